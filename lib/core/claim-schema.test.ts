@@ -1,0 +1,91 @@
+import { describe, expect, it } from "vitest";
+import { ClaimError, validateClaim } from "./claim-schema";
+import { readClaimsDocument } from "./claim-file";
+
+// These tests exercise the claim format only (common practice for a hand-written validator: every
+// rejection names the JSON path a person has to fix). The mathematics is tested in claims.test.ts.
+
+const p5 = { format: "named", text: "path(5)" };
+
+function errorOf(json: unknown): ClaimError {
+  try {
+    validateClaim(json);
+  } catch (e) {
+    if (e instanceof ClaimError) return e;
+    throw e;
+  }
+  throw new Error("expected a ClaimError");
+}
+
+describe("validateClaim", () => {
+  it("accepts a spectral-radius-bound claim and trims the bound", () => {
+    const c = validateClaim({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: p5, op: "<", bound: " 2 " });
+    expect(c).toEqual({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: p5, op: "<", bound: "2" });
+  });
+
+  it("fills in induced = false for subgraph and exclusion claims", () => {
+    const c = validateClaim({ format: "cairn-claim/1", kind: "subgraph", pattern: p5, host: p5 });
+    expect(c.kind === "subgraph" && c.induced).toBe(false);
+  });
+
+  it("names the path of a bad operator", () => {
+    const e = errorOf({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: p5, op: "≤", bound: "2" });
+    expect(e.path).toBe("$.op");
+    expect(e.message).toContain('"<="');
+  });
+
+  it("names the path of a bad graph format inside an exclusion list", () => {
+    const e = errorOf({ format: "cairn-claim/1", kind: "exclusion", host: p5, patterns: [p5, { format: "dot", text: "x" }] });
+    expect(e.path).toBe("$.patterns[1].format");
+  });
+
+  it("rejects a misspelt field instead of ignoring it", () => {
+    const e = errorOf({ format: "cairn-claim/1", kind: "subgraph", pattern: p5, host: p5, indcued: true });
+    expect(e.path).toBe("$.indcued");
+  });
+
+  it("rejects a wrong format version", () => {
+    expect(errorOf({ format: "cairn-claim/2", kind: "structure", graph: p5, predicate: "tree" }).path).toBe("$.format");
+  });
+
+  it("checks vector entries are rationals with non-zero denominators", () => {
+    expect(errorOf({ format: "cairn-claim/1", kind: "vector-certificate", graph: p5, vector: ["1", "x"], relation: "<", bound: "2" }).path).toBe("$.vector[1]");
+    expect(errorOf({ format: "cairn-claim/1", kind: "vector-certificate", graph: p5, vector: ["1/0"], relation: "<", bound: "2" }).path).toBe("$.vector[0]");
+  });
+
+  it("accepts characteristic polynomial coefficients as numbers or strings and normalises them", () => {
+    const c = validateClaim({ format: "cairn-claim/1", kind: "characteristic-polynomial", graph: p5, coefficients: [1, "0", "-04"] });
+    expect(c.kind === "characteristic-polynomial" && c.coefficients).toEqual(["1", "0", "-4"]);
+  });
+
+  it("requires the right parameter for each structure predicate", () => {
+    expect(errorOf({ format: "cairn-claim/1", kind: "structure", graph: p5, predicate: "max-degree" }).path).toBe("$.parameter");
+    expect(errorOf({ format: "cairn-claim/1", kind: "structure", graph: p5, predicate: "tree", parameter: 3 }).path).toBe("$.parameter");
+    expect(errorOf({ format: "cairn-claim/1", kind: "structure", graph: p5, predicate: "leg-lengths", parameter: [1, 0] }).path).toBe("$.parameter[1]");
+  });
+
+  it("rejects an empty graph text", () => {
+    expect(errorOf({ format: "cairn-claim/1", kind: "identification", graph: { format: "edges", text: "  " } }).path).toBe("$.graph.text");
+  });
+});
+
+describe("readClaimsDocument", () => {
+  const good = { format: "cairn-claim/1", kind: "structure", graph: p5, predicate: "tree" };
+
+  it("reads one claim, an array, and a claims list", () => {
+    expect(readClaimsDocument(good)).toHaveLength(1);
+    expect(readClaimsDocument([good, good])).toHaveLength(2);
+    expect(readClaimsDocument({ format: "cairn-claims/1", claims: [good, good, good] }).map((e) => e.path))
+      .toEqual(["$.claims[0]", "$.claims[1]", "$.claims[2]"]);
+  });
+
+  it("keeps a malformed claim as an entry with its error so the others are still checked", () => {
+    const entries = readClaimsDocument([good, { ...good, predicate: "planar" }]);
+    expect("claim" in entries[0]).toBe(true);
+    expect("error" in entries[1] && entries[1].error.path).toBe("$[1].predicate");
+  });
+
+  it("throws on an unknown document format", () => {
+    expect(() => readClaimsDocument({ format: "something-else" })).toThrow(ClaimError);
+  });
+});
