@@ -1,0 +1,205 @@
+/**
+ * Reading graphs from the text a user pastes into a claim: edge lists, adjacency matrices, graph6,
+ * sparse6 and the named syntax of constructors.ts. Every error is a GraphError naming the line and
+ * the 1-based column, so a person can find and fix the mistake.
+ *
+ * Edge list:
+ *   - one edge per line: `u v` (multiplicity 1) or `u v m`; `v v` is a loop of weight m (A[v][v] = m);
+ *     a pair given twice has its multiplicities added; fields are separated by spaces, tabs or commas;
+ *   - `#` starts a comment; blank lines are ignored;
+ *   - optional header line `n = 7` (before the first edge) fixing the vertex count, e.g. to add isolated vertices;
+ *   - vertex names: when every name is a decimal integer, name i is vertex i (0-based) and n is
+ *     max(name)+1 unless the header says more; otherwise names (identifiers such as `a`, `x1`, `v_2'`)
+ *     are numbered in order of first appearance and kept as labels, and header vertices beyond them
+ *     get their index as label.
+ * Adjacency matrix: one row per line of non-negative integers (spaces, commas or brackets between
+ * them), square and symmetric; A[v][v] is the loop weight at v.
+ */
+
+import { GraphError, makeGraph, type Graph } from "./graph";
+import { parseGraph6, parseSparse6, GRAPH6_HEADER, SPARSE6_HEADER } from "./graph6";
+import { parseNamed, looksNamed } from "./constructors";
+
+export type GraphFormat = "auto" | "edges" | "matrix" | "graph6" | "sparse6" | "named";
+
+/** Largest vertex count accepted from an edge list or matrix, so adversarial text cannot exhaust memory. */
+export const MAX_PARSED_VERTICES = 10_000_000;
+
+interface Token { text: string; line: number; column: number }
+
+/** Splits text into lines of tokens, dropping comments; separators are whitespace, commas, brackets and ';'. */
+function tokenLines(text: string, separators: RegExp): Token[][] {
+  const out: Token[][] = [];
+  const lines = text.split(/\r\n|\n|\r/);
+  for (let li = 0; li < lines.length; li++) {
+    const raw = lines[li];
+    const hash = raw.indexOf("#");
+    const body = hash >= 0 ? raw.slice(0, hash) : raw;
+    const tokens: Token[] = [];
+    let i = 0;
+    while (i < body.length) {
+      if (separators.test(body[i])) { i++; continue; }
+      const start = i;
+      while (i < body.length && !separators.test(body[i])) i++;
+      tokens.push({ text: body.slice(start, i), line: li + 1, column: start + 1 });
+    }
+    if (tokens.length > 0) out.push(tokens);
+  }
+  return out;
+}
+
+const EDGE_SEPARATORS = /[\s,]/;
+const MATRIX_SEPARATORS = /[\s,;[\]]/;
+const INTEGER = /^\d+$/;
+const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_.']*$/;
+
+function positiveInteger(t: Token, what: string): number {
+  if (!INTEGER.test(t.text)) throw new GraphError(`${what} must be a positive integer, found "${t.text}"`, t.line, t.column);
+  const value = Number(t.text);
+  if (!Number.isSafeInteger(value) || value < 1) throw new GraphError(`${what} must be a positive integer, found "${t.text}"`, t.line, t.column);
+  return value;
+}
+
+/** Reads an edge list (see the module comment). */
+export function parseEdgeList(text: string): Graph {
+  const lines = tokenLines(text.replace(/=/g, " = "), EDGE_SEPARATORS);
+  let header: number | undefined;
+  let headerToken: Token | undefined;
+  const edgeLines: Token[][] = [];
+  for (const tokens of lines) {
+    if (tokens[0].text === "n" && tokens[1]?.text === "=") {
+      if (edgeLines.length > 0 || header !== undefined) throw new GraphError("the header `n = …` must come once, before the first edge", tokens[0].line, tokens[0].column);
+      if (tokens.length !== 3) throw new GraphError("the header reads `n = <vertex count>`", tokens[0].line, tokens[0].column);
+      if (!INTEGER.test(tokens[2].text)) throw new GraphError(`vertex count must be a non-negative integer, found "${tokens[2].text}"`, tokens[2].line, tokens[2].column);
+      header = Number(tokens[2].text);
+      if (header > MAX_PARSED_VERTICES) throw new GraphError(`vertex count ${header} is beyond the limit of ${MAX_PARSED_VERTICES}`, tokens[2].line, tokens[2].column);
+      headerToken = tokens[2];
+      continue;
+    }
+    const eq = tokens.find((t) => t.text === "=");
+    if (eq) throw new GraphError("unexpected \"=\": only the header `n = <count>` uses it", eq.line, eq.column);
+    if (tokens.length < 2 || tokens.length > 3)
+      throw new GraphError(`an edge line reads "u v" or "u v multiplicity"; found ${tokens.length} field${tokens.length === 1 ? "" : "s"}`, tokens[0].line, tokens[0].column);
+    edgeLines.push(tokens);
+  }
+  for (const tokens of edgeLines)
+    for (const t of tokens.slice(0, 2))
+      if (!INTEGER.test(t.text) && !IDENTIFIER.test(t.text))
+        throw new GraphError(`"${t.text}" is not a vertex name: use a non-negative integer or an identifier (letters, digits, _ . ')`, t.line, t.column);
+  const numeric = edgeLines.every((tokens) => INTEGER.test(tokens[0].text) && INTEGER.test(tokens[1].text));
+  const edges: Array<{ u: number; v: number; m: number }> = [];
+  if (numeric) {
+    let maxVertex = -1;
+    for (const tokens of edgeLines) {
+      for (const t of tokens.slice(0, 2)) {
+        const value = Number(t.text);
+        if (!Number.isSafeInteger(value) || value >= MAX_PARSED_VERTICES) throw new GraphError(`vertex ${t.text} is beyond the limit of ${MAX_PARSED_VERTICES} vertices`, t.line, t.column);
+        if (header !== undefined && value >= header)
+          throw new GraphError(`vertex ${value} is outside 0..${header - 1} declared by the header n = ${header} (line ${headerToken!.line})`, t.line, t.column);
+        maxVertex = Math.max(maxVertex, value);
+      }
+      edges.push({ u: Number(tokens[0].text), v: Number(tokens[1].text), m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
+    }
+    return makeGraph(header ?? maxVertex + 1, edges);
+  }
+  const index = new Map<string, number>();
+  const labels: string[] = [];
+  const vertexOf = (t: Token): number => {
+    let v = index.get(t.text);
+    if (v === undefined) {
+      v = labels.length;
+      if (header !== undefined && v >= header)
+        throw new GraphError(`vertex "${t.text}" is vertex number ${v + 1}, more than the ${header} declared by the header`, t.line, t.column);
+      index.set(t.text, v);
+      labels.push(t.text);
+    }
+    return v;
+  };
+  for (const tokens of edgeLines) {
+    const u = vertexOf(tokens[0]), v = vertexOf(tokens[1]);
+    edges.push({ u, v, m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
+  }
+  const n = header ?? labels.length;
+  for (let i = labels.length; i < n; i++) {
+    let name = String(i);
+    while (index.has(name)) name += "'";
+    index.set(name, i);
+    labels.push(name);
+  }
+  return makeGraph(n, edges, labels);
+}
+
+/** Reads a square symmetric matrix of non-negative integers; the first asymmetric entry is reported. */
+export function parseAdjacencyMatrix(text: string): Graph {
+  const rows = tokenLines(text, MATRIX_SEPARATORS);
+  const n = rows.length;
+  if (n > 20_000) throw new GraphError(`a ${n}×${n} matrix is beyond the limit of 20000 rows; use an edge list or sparse6`);
+  const values: number[][] = rows.map((row) =>
+    row.map((t) => {
+      if (!INTEGER.test(t.text)) throw new GraphError(`matrix entries must be non-negative integers, found "${t.text}"`, t.line, t.column);
+      const value = Number(t.text);
+      if (!Number.isSafeInteger(value)) throw new GraphError(`entry ${t.text} is too large`, t.line, t.column);
+      return value;
+    }),
+  );
+  for (let i = 0; i < n; i++)
+    if (rows[i].length !== n) {
+      const t = rows[i][Math.min(rows[i].length, n) - (rows[i].length > n ? 0 : 1)];
+      throw new GraphError(`the matrix must be square: row ${i + 1} has ${rows[i].length} entries but there are ${n} rows`, t.line, t.column);
+    }
+  const edges: Array<{ u: number; v: number; m: number }> = [];
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      if (values[i][j] !== values[j][i]) {
+        const t = rows[i][j];
+        throw new GraphError(`the matrix is not symmetric: entry (${i + 1},${j + 1}) = ${values[i][j]} but entry (${j + 1},${i + 1}) = ${values[j][i]}`, t.line, t.column);
+      }
+      if (j >= i && values[i][j] > 0) edges.push({ u: i, v: j, m: values[i][j] });
+    }
+  }
+  return makeGraph(n, edges);
+}
+
+/**
+ * Guesses the format of a text:
+ * - `>>graph6<<` / `>>sparse6<<` headers or a leading ':' → graph6 / sparse6;
+ * - a family name followed by "(" → named;
+ * - a single word of bytes 63–126 (graph6 never contains digits, spaces or brackets) → graph6;
+ * - a square block of integers → matrix when its side is not 2 or 3; for side 2 or 3 only when it is
+ *   symmetric with zero diagonal, or (side 3) has a 0 in the third column, which no edge list can have;
+ *   otherwise such a block reads more naturally as 2–3 edges;
+ * - anything else → edge list.
+ * Pass the format explicitly to override the guess.
+ */
+export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
+  const t = text.trim();
+  if (t.startsWith(SPARSE6_HEADER) || t.startsWith(":") || t.startsWith(";")) return "sparse6";
+  if (t.startsWith(GRAPH6_HEADER)) return "graph6";
+  if (looksNamed(t)) return "named";
+  if (/^[\x3f-\x7e]+$/.test(t)) return "graph6";
+  const rows = tokenLines(t, MATRIX_SEPARATORS);
+  const side = rows.length;
+  if (side > 0 && !/^n\s*=/m.test(t) && rows.every((r) => r.length === side && r.every((tok) => INTEGER.test(tok.text)))) {
+    if (side !== 2 && side !== 3) return "matrix";
+    let symmetricZeroDiagonal = true;
+    for (let i = 0; i < side; i++) for (let j = 0; j < side; j++) if (rows[i][j].text !== rows[j][i].text || (i === j && Number(rows[i][i].text) !== 0)) symmetricZeroDiagonal = false;
+    if (symmetricZeroDiagonal) return "matrix";
+    // A zero in the third column cannot be a multiplicity, so a 3×3 block with one is a matrix.
+    if (side === 3 && rows.some((r) => Number(r[2].text) === 0)) return "matrix";
+  }
+  return "edges";
+}
+
+/** Reads a graph in the given format (default: detected, see detectFormat). */
+export function parseGraph(text: string, format: GraphFormat = "auto"): Graph {
+  if (typeof text !== "string") throw new GraphError("graph input must be text");
+  const chosen = format === "auto" ? detectFormat(text) : format;
+  switch (chosen) {
+    case "edges": return parseEdgeList(text);
+    case "matrix": return parseAdjacencyMatrix(text);
+    case "graph6": return parseGraph6(text);
+    case "sparse6": return parseSparse6(text);
+    case "named": return parseNamed(text);
+    default: throw new GraphError(`unknown graph format "${String(chosen)}"; use auto, edges, matrix, graph6, sparse6 or named`);
+  }
+}
