@@ -18,7 +18,7 @@
 
 import { GraphError, makeGraph, type Graph } from "./graph";
 import { parseGraph6, parseSparse6, GRAPH6_HEADER, SPARSE6_HEADER } from "./graph6";
-import { parseNamed, looksNamed } from "./constructors";
+import { parseNamed, looksNamed } from "./named";
 
 export type GraphFormat = "auto" | "edges" | "matrix" | "graph6" | "sparse6" | "named";
 
