@@ -1,12 +1,18 @@
+import path from "node:path";
 import { defineConfig } from "vitest/config";
 
+const root = import.meta.dirname;
+
 export default defineConfig({
-  resolve: { tsconfigPaths: true },
+  resolve: {
+    tsconfigPaths: true,
+    alias: { "server-only": path.join(root, "tests/stubs/empty.ts") },
+  },
   test: {
     projects: [
       {
         extends: true,
-        test: { name: "unit", environment: "node", include: ["lib/**/*.test.ts", "tests/unit/**/*.test.ts"], testTimeout: 60_000 },
+        test: { name: "unit", environment: "node", include: ["lib/**/*.test.ts", "tests/unit/**/*.test.{ts,tsx}"], testTimeout: 60_000 },
       },
       {
         extends: true,
@@ -18,6 +24,18 @@ export default defineConfig({
           fileParallelism: false,
           hookTimeout: 60_000,
           testTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          environment: "node",
+          include: ["tests/e2e/**/*.test.ts"],
+          globalSetup: ["tests/e2e/global-setup.ts"],
+          fileParallelism: false,
+          hookTimeout: 120_000,
+          testTimeout: 120_000,
         },
       },
     ],

@@ -1,0 +1,36 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { requireUser } from "@/lib/session";
+import { listProofsForUser } from "@/lib/data/proofs";
+import { RoleTag } from "@/components/ui/role-tag";
+
+export const metadata: Metadata = { title: "Your proofs" };
+
+export default async function ProofsPage() {
+  const user = await requireUser();
+  const proofs = await listProofsForUser(user.id);
+  return (
+    <main>
+      <h1 className="text-3xl font-semibold">Your proofs</h1>
+      {proofs.length === 0 ? (
+        <p className="mt-6 text-stone-600">You are not a member of any proof yet. An editor or author can add you.</p>
+      ) : (
+        <ul className="mt-6 divide-y divide-stone-200 rounded border border-stone-200 bg-white" data-testid="proof-list">
+          {proofs.map((p) => (
+            <li key={p.id} className="flex items-center justify-between gap-4 px-5 py-4">
+              <div>
+                <Link href={`/proofs/${p.id}`} className="text-lg font-semibold text-lichen-700 hover:underline">
+                  {p.title}
+                </Link>
+                <p className="font-mono text-xs text-stone-500">
+                  {p.caseCount} cases · {p.memberCount} members · updated {p.updatedAt.slice(0, 10)}
+                </p>
+              </div>
+              <RoleTag role={p.role} />
+            </li>
+          ))}
+        </ul>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,25 @@
+import { getSequelize } from "@/lib/db";
+
+export const dynamic = "force-dynamic";
+
+const startedAt = Date.now();
+
+/** App and database state as JSON: 200 when the database answers, 503 when it does not. */
+export async function GET() {
+  const t0 = performance.now();
+  let database: { status: "up" | "down"; latencyMs?: number; message?: string };
+  try {
+    await Promise.race([
+      getSequelize().authenticate(),
+      new Promise((_, reject) => setTimeout(() => reject(new Error("no answer within 3 s")), 3_000)),
+    ]);
+    database = { status: "up", latencyMs: Math.round((performance.now() - t0) * 10) / 10 };
+  } catch (e) {
+    database = { status: "down", message: `the database did not answer: ${(e as Error).message}` };
+  }
+  const ok = database.status === "up";
+  return Response.json(
+    { status: ok ? "ok" : "degraded", app: { name: "cairn", uptimeSeconds: Math.round((Date.now() - startedAt) / 1000) }, database },
+    { status: ok ? 200 : 503, headers: { "cache-control": "no-store" } },
+  );
+}

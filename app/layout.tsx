@@ -1,0 +1,17 @@
+import type { Metadata } from "next";
+import "katex/dist/katex.min.css";
+import "./globals.css";
+import { codeFace, textFace } from "./fonts";
+
+export const metadata: Metadata = {
+  title: { default: "Cairn", template: "%s · Cairn" },
+  description: "Case-by-case review of classification proofs, with exactly verified computational certificates.",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${textFace.variable} ${codeFace.variable}`}>
+      <body className="min-h-screen antialiased">{children}</body>
+    </html>
+  );
+}

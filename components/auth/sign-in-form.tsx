@@ -1,0 +1,62 @@
+"use client";
+
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { signIn } from "next-auth/react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { signInSchema, type SignInInput } from "@/lib/validations/sign-in";
+
+export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    const result = await signIn("credentials", { ...values, redirect: false, callbackUrl });
+    if (!result || result.error) {
+      setFailure(result?.error && result.error !== "CredentialsSignin" ? result.error : "The e-mail address or password is not right.");
+      return;
+    }
+    router.push(callbackUrl);
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} className="mt-8 space-y-5" noValidate>
+      <label className="block">
+        <span className="text-sm font-semibold text-stone-700">E-mail</span>
+        <input
+          type="email"
+          autoComplete="username"
+          {...register("email")}
+          className="mt-1 block w-full rounded border border-stone-300 bg-white px-3 py-2 font-mono text-sm"
+        />
+        {formState.errors.email && <span className="mt-1 block text-sm text-refuted">{formState.errors.email.message}</span>}
+      </label>
+      <label className="block">
+        <span className="text-sm font-semibold text-stone-700">Password</span>
+        <input
+          type="password"
+          autoComplete="current-password"
+          {...register("password")}
+          className="mt-1 block w-full rounded border border-stone-300 bg-white px-3 py-2 font-mono text-sm"
+        />
+        {formState.errors.password && <span className="mt-1 block text-sm text-refuted">{formState.errors.password.message}</span>}
+      </label>
+      {failure && (
+        <p role="alert" data-testid="sign-in-failure" className="rounded border border-refuted/40 bg-red-50 px-3 py-2 text-sm text-refuted">
+          {failure}
+        </p>
+      )}
+      <button
+        type="submit"
+        disabled={formState.isSubmitting}
+        className="w-full rounded bg-lichen-600 px-4 py-2 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60"
+      >
+        {formState.isSubmitting ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,82 @@
+import "server-only";
+import { models } from "@/models";
+import type { ProofRole } from "@/models/proof-member";
+
+export interface ProofListItem {
+  id: number;
+  title: string;
+  role: ProofRole;
+  updatedAt: string;
+  caseCount: number;
+  memberCount: number;
+}
+
+/** The proofs a user belongs to, with their role in each, most recently changed first. */
+export async function listProofsForUser(userId: number): Promise<ProofListItem[]> {
+  const { ProofMember, Proof, Case } = models();
+  const memberships = await ProofMember.findAll({
+    where: { userId },
+    include: [{ model: Proof, as: "proof", attributes: ["id", "title", "updatedAt"] }],
+  });
+  const ids = memberships.map((m) => m.proofId);
+  if (ids.length === 0) return [];
+  const [caseCounts, memberCounts] = await Promise.all([
+    Case.count({ where: { proofId: ids }, group: ["proofId"] }),
+    ProofMember.count({ where: { proofId: ids }, group: ["proofId"] }),
+  ]);
+  const countOf = (rows: Array<{ proofId?: number; count: number }>, id: number) =>
+    Number(rows.find((r) => Number(r.proofId) === id)?.count ?? 0);
+  return memberships
+    .map((m) => {
+      const p = (m as unknown as { proof: { id: number; title: string; updatedAt: Date } }).proof;
+      return {
+        id: p.id,
+        title: p.title,
+        role: m.role,
+        updatedAt: p.updatedAt.toISOString(),
+        caseCount: countOf(caseCounts as never, p.id),
+        memberCount: countOf(memberCounts as never, p.id),
+      };
+    })
+    .sort((a, b) => b.updatedAt.localeCompare(a.updatedAt) || a.id - b.id);
+}
+
+export async function proofExists(proofId: number): Promise<boolean> {
+  const { Proof } = models();
+  return (await Proof.count({ where: { id: proofId } })) > 0;
+}
+
+export async function getMembershipRole(proofId: number, userId: number): Promise<ProofRole | null> {
+  const { ProofMember } = models();
+  const m = await ProofMember.findOne({ where: { proofId, userId } });
+  return m?.role ?? null;
+}
+
+export interface ProofSummary {
+  id: number;
+  title: string;
+  statement: string;
+  requiredApprovals: number;
+  createdAt: string;
+  updatedAt: string;
+  members: Array<{ userId: number; name: string; email: string; role: ProofRole }>;
+}
+
+export async function getProofSummary(proofId: number): Promise<ProofSummary | null> {
+  const { Proof, ProofMember, User } = models();
+  const p = await Proof.findByPk(proofId);
+  if (!p) return null;
+  const members = await ProofMember.findAll({ where: { proofId }, include: [{ model: User, as: "user" }], order: [["role", "ASC"]] });
+  return {
+    id: p.id,
+    title: p.title,
+    statement: p.statement,
+    requiredApprovals: p.requiredApprovals,
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+    members: members.map((m) => {
+      const u = (m as unknown as { user: { id: number; name: string; email: string } }).user;
+      return { userId: u.id, name: u.name, email: u.email, role: m.role };
+    }),
+  };
+}

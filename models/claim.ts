@@ -1,0 +1,50 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type ClaimStatus = "pending" | "verified" | "refuted" | "undecided";
+
+/** A computational statement attached to a step, with the checker's last verdict. */
+export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes<Claim>> {
+  declare id: CreationOptional<number>;
+  declare stepId: number;
+  declare position: CreationOptional<number>;
+  declare kind: string;
+  /** The claim as canonical JSON text. */
+  declare input: string;
+  declare digest: string | null;
+  declare status: CreationOptional<ClaimStatus>;
+  declare statement: string | null;
+  declare method: string | null;
+  declare reason: string | null;
+  declare certificate: string | null;
+  declare checkerVersion: string | null;
+  declare checkedBy: number | null;
+  declare checkedAt: Date | null;
+  declare createdBy: number;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Claim.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        position: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+        kind: { type: DataTypes.STRING(40), allowNull: false },
+        input: { type: DataTypes.TEXT("long"), allowNull: false },
+        digest: { type: DataTypes.CHAR(64), allowNull: true },
+        status: { type: DataTypes.ENUM("pending", "verified", "refuted", "undecided"), allowNull: false, defaultValue: "pending" },
+        statement: { type: DataTypes.STRING(500), allowNull: true },
+        method: { type: DataTypes.STRING(200), allowNull: true },
+        reason: { type: DataTypes.TEXT, allowNull: true },
+        certificate: { type: DataTypes.TEXT("long"), allowNull: true },
+        checkerVersion: { type: DataTypes.STRING(40), allowNull: true },
+        checkedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        checkedAt: { type: DataTypes.DATE(3), allowNull: true },
+        createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "claims", underscored: true },
+    );
+  }
+}

@@ -1,0 +1,28 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export class Comment extends Model<InferAttributes<Comment>, InferCreationAttributes<Comment>> {
+  declare id: CreationOptional<number>;
+  declare stepId: number;
+  declare reviewId: number | null;
+  declare parentId: number | null;
+  declare revisionId: number | null;
+  declare authorId: number;
+  declare body: string;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Comment.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        reviewId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        parentId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        authorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        body: { type: DataTypes.TEXT("medium"), allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "comments", underscored: true, updatedAt: false },
+    );
+  }
+}

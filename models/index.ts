@@ -1,0 +1,46 @@
+/** All models, initialised once against the process's Sequelize instance, with their associations. */
+import { getSequelize } from "@/lib/db";
+import { User } from "./user";
+import { SignInThrottle } from "./sign-in-throttle";
+import { Proof } from "./proof";
+import { ProofMember } from "./proof-member";
+import { Case } from "./case";
+import { Step } from "./step";
+import { StepRevision } from "./step-revision";
+import { Claim } from "./claim";
+import { Review } from "./review";
+import { Comment } from "./comment";
+import { AuditEvent } from "./audit-event";
+
+const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent };
+
+function initModels() {
+  const sequelize = getSequelize();
+  for (const m of Object.values(all)) m.initModel(sequelize);
+  Proof.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
+  Proof.hasMany(ProofMember, { as: "members", foreignKey: "proofId" });
+  ProofMember.belongsTo(Proof, { as: "proof", foreignKey: "proofId" });
+  ProofMember.belongsTo(User, { as: "user", foreignKey: "userId" });
+  User.hasMany(ProofMember, { as: "memberships", foreignKey: "userId" });
+  Proof.hasMany(Case, { as: "cases", foreignKey: "proofId" });
+  Case.belongsTo(Proof, { as: "proof", foreignKey: "proofId" });
+  Case.hasMany(Case, { as: "children", foreignKey: "parentId" });
+  Case.hasMany(Step, { as: "steps", foreignKey: "caseId" });
+  Step.belongsTo(Case, { as: "case", foreignKey: "caseId" });
+  Step.hasMany(StepRevision, { as: "revisions", foreignKey: "stepId" });
+  StepRevision.belongsTo(User, { as: "author", foreignKey: "authorId" });
+  Step.hasMany(Claim, { as: "claims", foreignKey: "stepId" });
+  Step.hasMany(Review, { as: "reviews", foreignKey: "stepId" });
+  Review.belongsTo(User, { as: "reviewer", foreignKey: "reviewerId" });
+  Step.hasMany(Comment, { as: "comments", foreignKey: "stepId" });
+  Comment.belongsTo(User, { as: "author", foreignKey: "authorId" });
+}
+
+/** Returns the models, initialising them on first use (not at import: `next build` imports without a database). */
+export function models() {
+  // Checked on the class itself, so a module reloaded by the dev server initialises its own classes.
+  if (!User.sequelize) initModels();
+  return all;
+}
+
+export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent };

@@ -1,0 +1,22 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type ProofRole = "author" | "reviewer" | "editor";
+
+export class ProofMember extends Model<InferAttributes<ProofMember>, InferCreationAttributes<ProofMember>> {
+  declare proofId: number;
+  declare userId: number;
+  declare role: ProofRole;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    ProofMember.init(
+      {
+        proofId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
+        userId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
+        role: { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "proof_members", underscored: true, updatedAt: false },
+    );
+  }
+}

@@ -1,0 +1,26 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import type { User } from "./user";
+
+export class Proof extends Model<InferAttributes<Proof>, InferCreationAttributes<Proof>> {
+  declare id: CreationOptional<number>;
+  declare title: string;
+  declare statement: string;
+  declare requiredApprovals: CreationOptional<number>;
+  declare createdBy: ForeignKey<User["id"]>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Proof.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        title: { type: DataTypes.STRING(300), allowNull: false },
+        statement: { type: DataTypes.TEXT("medium"), allowNull: false },
+        requiredApprovals: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 },
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "proofs", underscored: true },
+    );
+  }
+}

@@ -1,0 +1,32 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type ReviewVerdict = "approve" | "dispute";
+export type DisputeState = "open" | "answered" | "closed" | "reopened";
+
+/** A reviewer's verdict on one revision of a step. */
+export class Review extends Model<InferAttributes<Review>, InferCreationAttributes<Review>> {
+  declare id: CreationOptional<number>;
+  declare stepId: number;
+  declare revisionId: number;
+  declare reviewerId: number;
+  declare verdict: ReviewVerdict;
+  declare disputeState: DisputeState | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Review.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        reviewerId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        verdict: { type: DataTypes.ENUM("approve", "dispute"), allowNull: false },
+        disputeState: { type: DataTypes.ENUM("open", "answered", "closed", "reopened"), allowNull: true },
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "reviews", underscored: true },
+    );
+  }
+}

@@ -1,0 +1,20 @@
+/** Debian's Chromium driven by playwright-core: no browser download, headless, no calls out. */
+import { chromium, type Browser, type Page } from "playwright-core";
+import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
+
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    headless: true,
+    args: ["--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],
+  });
+}
+
+/** Signs in through the real form as a demo person and waits for the proofs page. */
+export async function signInAs(page: Page, baseUrl: string, key: string, password = DEMO_PASSWORD): Promise<void> {
+  const person = demoPeople.find((p) => p.key === key)!;
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel("E-mail").fill(person.email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+}

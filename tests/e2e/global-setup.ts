@@ -1,0 +1,47 @@
+/**
+ * Browser tests run against the built app (`next build` ran in npm test) served by `next start` on
+ * loopback, with its own migrated and seeded database. The server runs in its own process group so
+ * that teardown stops next-server too.
+ */
+import { spawn, execFileSync, type ChildProcess } from "node:child_process";
+import type { TestProject } from "vitest/node";
+
+export const E2E_PORT = Number(process.env.CAIRN_E2E_PORT ?? 3101);
+
+let server: ChildProcess | undefined;
+
+export default async function setup(project: TestProject) {
+  const dbUrl = process.env.CAIRN_E2E_DATABASE_URL;
+  if (!dbUrl) throw new Error("Browser tests need CAIRN_E2E_DATABASE_URL; run them through `npm test`.");
+  const env = { ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret" };
+  for (const script of ["scripts/migrate.ts", "scripts/seed.ts"]) execFileSync("node_modules/.bin/tsx", [script], { env, stdio: "inherit" });
+  server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(E2E_PORT)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
+  const base = `http://localhost:${E2E_PORT}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    try {
+      const res = await fetch(`${base}/api/health`);
+      if (res.ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) throw new Error(`the app did not answer on ${base}/api/health within 60 s`);
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  project.provide("baseUrl", base);
+  return async () => {
+    if (server?.pid) {
+      try {
+        process.kill(-server.pid, "SIGTERM");
+      } catch {
+        // already gone
+      }
+    }
+  };
+}
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}

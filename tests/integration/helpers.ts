@@ -1,0 +1,47 @@
+/**
+ * Helpers for calling route handlers directly with `new Request(...)` as a chosen user.
+ * `next-auth` is mocked in each test file (vi.mock) so that getServerSession returns `sessionFor(...)`.
+ */
+import { vi } from "vitest";
+import { getServerSession } from "next-auth";
+import { models } from "@/models";
+import { demoPeople } from "@/seeders/demo-content";
+
+export async function userIdOf(key: string): Promise<number> {
+  const person = demoPeople.find((p) => p.key === key);
+  if (!person) throw new Error(`no demo person ${key}`);
+  const u = await models().User.findOne({ where: { email: person.email } });
+  if (!u) throw new Error(`demo person ${key} is not seeded`);
+  return u.id;
+}
+
+/** Makes the mocked getServerSession answer as this demo person, or as nobody. */
+export async function actAs(key: string | null): Promise<number | null> {
+  const mocked = vi.mocked(getServerSession);
+  if (key === null) {
+    mocked.mockResolvedValue(null);
+    return null;
+  }
+  const id = await userIdOf(key);
+  const person = demoPeople.find((p) => p.key === key)!;
+  mocked.mockResolvedValue({ user: { id: String(id), name: person.name, email: person.email, role: person.role }, expires: "2999-01-01" });
+  return id;
+}
+
+export async function demoProofId(): Promise<number> {
+  const p = await models().Proof.findOne({ order: [["id", "ASC"]] });
+  if (!p) throw new Error("demo proof is not seeded");
+  return p.id;
+}
+
+export function params<T extends Record<string, string>>(p: T) {
+  return { params: Promise.resolve(p) };
+}
+
+export function jsonRequest(url: string, method: string, body?: unknown): Request {
+  return new Request(`http://localhost${url}`, {
+    method,
+    headers: { "content-type": "application/json" },
+    body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
+  });
+}
