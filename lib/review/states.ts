@@ -1,0 +1,96 @@
+/**
+ * Review rules: the derived state of a step, a case and a proof. Never stored by hand; always computed
+ * from revisions, reviews and claims, so that the overview, the queues and the export agree.
+ * Pure TypeScript: no framework or database imports.
+ */
+
+export type DisputeState = "open" | "answered" | "closed" | "reopened";
+export type ClaimStatus = "pending" | "verified" | "refuted" | "undecided";
+
+export interface ReviewFact {
+  reviewerId: number;
+  revisionNumber: number;
+  verdict: "approve" | "dispute";
+  disputeState: DisputeState | null;
+}
+
+export interface StepFacts {
+  id: number;
+  /** Number of the latest revision; 0 for a step never saved. */
+  latestRevision: number;
+  reviews: ReviewFact[];
+  claims: ClaimStatus[];
+  /** Users who wrote any revision of this step: their approvals never count (no self-approval). */
+  authorIds?: number[];
+}
+
+export interface CaseFacts {
+  id: number;
+  steps: StepFacts[];
+  children: CaseFacts[];
+}
+
+export type CaseState = "drafting" | "claim failing" | "under review" | "disputed" | "settled";
+export type ProofState = "in progress" | "ready to certify";
+
+export const isUnresolved = (s: DisputeState | null) => s === "open" || s === "answered" || s === "reopened";
+
+export interface StepStatus {
+  approvals: number;
+  staleApprovals: number;
+  openDisputes: number;
+  claimsVerified: boolean;
+  claimFailing: boolean;
+  approved: boolean;
+  settled: boolean;
+  reviewed: boolean;
+}
+
+/** Approvals count once per reviewer, at the latest revision only; earlier ones are stale. */
+export function stepStatus(step: StepFacts, requiredApprovals: number): StepStatus {
+  const authors = new Set(step.authorIds ?? []);
+  const current = new Set<number>();
+  const stale = new Set<number>();
+  for (const r of step.reviews) {
+    if (r.verdict !== "approve" || authors.has(r.reviewerId)) continue;
+    if (r.revisionNumber === step.latestRevision) current.add(r.reviewerId);
+    else stale.add(r.reviewerId);
+  }
+  for (const id of current) stale.delete(id);
+  const openDisputes = step.reviews.filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState)).length;
+  const claimsVerified = step.claims.every((c) => c === "verified");
+  const claimFailing = step.claims.some((c) => c === "refuted");
+  const approved = step.latestRevision > 0 && current.size >= requiredApprovals;
+  return {
+    approvals: current.size,
+    staleApprovals: stale.size,
+    openDisputes,
+    claimsVerified,
+    claimFailing,
+    approved,
+    settled: approved && openDisputes === 0 && claimsVerified,
+    reviewed: step.reviews.length > 0,
+  };
+}
+
+/**
+ * A case is settled when every step of it and of its sub-cases is settled (and it has at least one step
+ * somewhere). Otherwise the most urgent state wins: a failing claim, then an open dispute, then
+ * "under review" once any verdict was given, else "drafting".
+ */
+export function caseState(c: CaseFacts, requiredApprovals: number): CaseState {
+  const steps = allSteps(c).map((s) => stepStatus(s, requiredApprovals));
+  if (steps.some((s) => s.claimFailing)) return "claim failing";
+  if (steps.some((s) => s.openDisputes > 0)) return "disputed";
+  if (steps.length > 0 && steps.every((s) => s.settled)) return "settled";
+  if (steps.some((s) => s.reviewed)) return "under review";
+  return "drafting";
+}
+
+export function proofState(cases: CaseFacts[], requiredApprovals: number): ProofState {
+  return cases.length > 0 && cases.every((c) => caseState(c, requiredApprovals) === "settled") ? "ready to certify" : "in progress";
+}
+
+function allSteps(c: CaseFacts): StepFacts[] {
+  return [...c.steps, ...c.children.flatMap(allSteps)];
+}
