@@ -1,0 +1,234 @@
+import { describe, expect, it } from "vitest";
+import { eigs } from "mathjs";
+import { Graph, makeGraph } from "./graph";
+import { Budget } from "./verdict";
+import { rat } from "./rational";
+import { inertia, recheckSpectralRadiusBound, spectralRadiusBound, type Relation, type SpectralRadiusCertificate } from "./inertia";
+import { treeInertia } from "./tree-inertia";
+import { sparseInertia } from "./sparse-inertia";
+import { path, cycle, star, complete, completeBipartite, dynkinD, dynkinE, affineD, affineE, starlike } from "./constructors";
+
+/** LCG with the "Numerical Recipes" constants, as in the benchmark workload description. */
+function lcg(seed: number) {
+  let x = seed >>> 0;
+  return (m: number) => {
+    x = (Math.imul(1664525, x) + 1013904223) >>> 0;
+    return Math.floor((x * m) / 2 ** 32);
+  };
+}
+function randomTree(n: number, seed: number): Graph {
+  const r = lcg(seed);
+  return makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: r(i + 1), v: i + 1 })));
+}
+function randomGraph(n: number, p: number, seed: number): Graph {
+  const r = lcg(seed);
+  const edges = [];
+  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (r(1000) < p * 1000) edges.push({ u: i, v: j });
+  return makeGraph(n, edges);
+}
+function floatEigenvalues(g: Graph): number[] {
+  const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
+  for (const e of g.edges) { a[e.u][e.v] += e.m; if (e.u !== e.v) a[e.v][e.u] += e.m; }
+  return (eigs(a).values as number[]).map(Number);
+}
+/** Extended E8 in the benchmark vertex order: path 0..7 plus (5, 8). */
+const affineE8 = makeGraph(9, [...Array.from({ length: 7 }, (_, i) => ({ u: i, v: i + 1 })), { u: 5, v: 8 }]);
+
+const verdict = (g: Graph, op: Relation, b: string) => spectralRadiusBound(g, op, b, new Budget(1e8));
+
+describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
+  it("inertia of -A(P_n): eigenvalues 2cos(pi j/(n+1)) give floor(n/2) of each sign and one zero for odd n (Brouwer & Haemers §1.4.4)", () => {
+    for (let n = 1; n <= 12; n++) {
+      const r = treeInertia(path(n), rat(0), "none", new Budget());
+      expect([r.positive, r.negative, r.zero], `P_${n}`).toEqual([Math.floor(n / 2), Math.floor(n / 2), n % 2]);
+    }
+  });
+  it("inertia of I - A(P_n): eigenvalue 1 = 2cos(pi/3) occurs iff 3 | n+1 (Brouwer & Haemers §1.4.4)", () => {
+    for (let n = 1; n <= 14; n++) {
+      const above = Array.from({ length: n }, (_, j) => j + 1).filter((j) => 3 * j < n + 1).length;
+      const at = (n + 1) % 3 === 0 ? 1 : 0;
+      const r = treeInertia(path(n), rat(1), "none", new Budget());
+      expect([r.positive, r.negative, r.zero], `P_${n}`).toEqual([n - above - at, above, at]);
+    }
+  });
+  it("agrees with the sparse elimination and with float eigenvalue counts on random trees (mathjs, far from b)", () => {
+    for (let seed = 1; seed <= 40; seed++) {
+      const g = randomTree(3 + (seed % 12), seed);
+      const ev = floatEigenvalues(g);
+      for (const b of [rat(0), rat(1), rat(3, 2), rat(2), rat(-1)]) {
+        const t = treeInertia(g, b, "none", new Budget());
+        const s = sparseInertia(g, b, "none", new Budget());
+        expect([t.positive, t.negative, t.zero]).toEqual([s.positive, s.negative, s.zero]);
+        const bf = Number(b.num) / Number(b.den);
+        if (ev.every((x) => Math.abs(x - bf) > 1e-6)) {
+          expect(t.negative).toBe(ev.filter((x) => x > bf).length);
+          expect(t.zero).toBe(0);
+        }
+      }
+    }
+  });
+  it("handles multiplicities and loops: a double edge has eigenvalues ±2, a loop of weight 2 is the 1x1 matrix [2] (direct computation)", () => {
+    const dbl = makeGraph(2, [{ u: 0, v: 1, m: 2 }]);
+    expect(verdict(dbl, "=", "2").status).toBe("verified");
+    const loop2 = makeGraph(1, [{ u: 0, v: 0, m: 2 }]);
+    expect(verdict(loop2, "=", "2").status).toBe("verified");
+    // A path with a loop of weight 1 at one end folds A_{2n}: ρ = 2cos(pi/(2n+1)) < 2 (from memory; float-checked here).
+    const tadpole = makeGraph(4, [{ u: 0, v: 0 }, { u: 0, v: 1 }, { u: 1, v: 2 }, { u: 2, v: 3 }]);
+    expect(verdict(tadpole, "<", "2").status).toBe("verified");
+    expect(Math.max(...floatEigenvalues(tadpole))).toBeCloseTo(2 * Math.cos(Math.PI / 9), 9);
+  });
+});
+
+describe("ρ(G) op b for rational b", () => {
+  it("Smith graphs: A_n, D_n, E6, E7, E8 have ρ < 2 (J. H. Smith 1970; Brouwer & Haemers §3.1.1)", () => {
+    const finite = [path(1), path(7), path(100), dynkinD(4), dynkinD(9), dynkinE(6), dynkinE(7), dynkinE(8)];
+    for (const g of finite) {
+      expect(verdict(g, "<", "2").status).toBe("verified");
+      expect(verdict(g, "=", "2").status).toBe("refuted");
+    }
+  });
+  it("affine diagrams have ρ = 2 (Smith 1970): cycles, D~_n, E~6, E~7, E~8, K_{1,4}", () => {
+    for (const g of [cycle(5), cycle(6), affineD(4), affineD(8), affineE(6), affineE(7), affineE(8), star(4), affineE8]) {
+      const v = verdict(g, "=", "2");
+      expect(v.status).toBe("verified");
+      expect(verdict(g, "<", "2").status).toBe("refuted");
+      expect(verdict(g, "<=", "2").status).toBe("verified");
+      expect(verdict(g, ">", "2").status).toBe("refuted");
+      expect(verdict(g, ">=", "2").status).toBe("verified");
+    }
+  });
+  it("T(1,2,6) = E~8 plus a vertex has ρ > 2 with a Rayleigh vector certificate (Smith 1970)", () => {
+    const v = verdict(starlike([1, 2, 6]), ">", "2");
+    expect(v.status).toBe("verified");
+    expect(v.certificate!.kind).toBe("rayleigh");
+  });
+  it("K_n has ρ = n - 1 and K_{m,n} has ρ = sqrt(mn) (Brouwer & Haemers §1.4.1, §1.4.2); Petersen ρ = 3", () => {
+    expect(verdict(complete(6), "=", "5").status).toBe("verified");
+    expect(verdict(complete(6), "<", "5").status).toBe("refuted");
+    expect(verdict(completeBipartite(2, 8), "=", "4").status).toBe("verified");
+    expect(verdict(completeBipartite(2, 3), "=", "sqrt(6)").status).toBe("verified");
+    const petersen = makeGraph(10, [
+      ...[0, 1, 2, 3, 4].map((i) => ({ u: i, v: (i + 1) % 5 })),
+      ...[0, 1, 2, 3, 4].map((i) => ({ u: i, v: i + 5 })),
+      ...[0, 1, 2, 3, 4].map((i) => ({ u: 5 + i, v: 5 + ((i + 2) % 5) })),
+    ]);
+    expect(verdict(petersen, "=", "3").status).toBe("verified");
+    expect(verdict(petersen, "<", "3").status).toBe("refuted");
+  });
+  it("zero pivots at small b: ρ(P_2) = 1 and ρ(P_3) > 1 and ρ(P_2) > 0 (Brouwer & Haemers §1.4.4)", () => {
+    expect(verdict(path(2), "=", "1").status).toBe("verified");
+    expect(verdict(path(3), ">", "1").status).toBe("verified");
+    expect(verdict(path(2), ">", "0").status).toBe("verified");
+    expect(verdict(path(3), "<=", "0").status).toBe("refuted");
+    expect(verdict(makeGraph(3, []), "=", "0").status).toBe("verified");
+  });
+});
+
+describe("irrational bounds", () => {
+  it("ρ(P_4) = 2cos(pi/5) and ρ(P_6) = 2cos(pi/7) (Brouwer & Haemers §1.4.4)", () => {
+    expect(verdict(path(4), "=", "2cos(pi/5)").status).toBe("verified");
+    expect(verdict(path(6), "=", "2cos(pi/7)").status).toBe("verified");
+    expect(verdict(path(6), "<", "2cos(pi/7)").status).toBe("refuted");
+    expect(verdict(path(7), "<", "2cos(pi/7)").status).toBe("refuted");
+    expect(verdict(path(5), "<", "2cos(pi/7)").status).toBe("verified");
+  });
+  it("ρ(K_{1,5}) = sqrt 5 and ρ(P_3) = sqrt 2 (Brouwer & Haemers §1.4.2)", () => {
+    expect(verdict(star(5), "=", "sqrt(5)").status).toBe("verified");
+    expect(verdict(star(5), "<", "√5").status).toBe("refuted");
+    expect(verdict(path(3), "=", "√2").status).toBe("verified");
+    expect(verdict(star(4), "<", "sqrt(5)").status).toBe("verified");
+  });
+  it("T(2,2,k) has ρ < sqrt(2+sqrt(5)) for every k (Hoffman 1972), increasing in k", () => {
+    for (const k of [2, 3, 5, 8, 12, 20]) {
+      const v = verdict(starlike([2, 2, k]), "<", "sqrt(2+sqrt(5))");
+      expect(v.status, `k = ${k}`).toBe("verified");
+    }
+    // A star-like tree with four legs of length 2: its float ρ (mathjs, far from the bound) sets the expected side.
+    const g = starlike([2, 2, 2, 2]);
+    const rho = Math.max(...floatEigenvalues(g));
+    expect(Math.abs(rho - Math.sqrt(2 + Math.sqrt(5)))).toBeGreaterThan(1e-3);
+    expect(verdict(g, rho > Math.sqrt(2 + Math.sqrt(5)) ? ">" : "<", "sqrt(2+sqrt(5))").status).toBe("verified");
+  });
+});
+
+describe("certificates re-check and resist tampering", () => {
+  const cases: Array<[Graph, Relation, string]> = [
+    [affineE8, "=", "2"], [dynkinE(8), "<", "2"], [starlike([1, 2, 6]), ">", "2"], [cycle(7), "=", "2"],
+    [petersenLike(), "<", "3"], [path(6), "=", "2cos(pi/7)"], [star(5), "<", "sqrt(6)"], [complete(4), ">", "sqrt(8)"],
+  ];
+  it("every verdict's certificate re-checks", () => {
+    for (const [g, op, b] of cases) {
+      const v = verdict(g, op, b);
+      expect(v.status).not.toBe("undecided");
+      const r = recheckSpectralRadiusBound(g, op, b, v.status as "verified" | "refuted", v.certificate);
+      expect(r.status, `${op} ${b}: ${r.reason}`).toBe("verified");
+      const wrong = recheckSpectralRadiusBound(g, op, b, v.status === "verified" ? "refuted" : "verified", v.certificate);
+      expect(wrong.status).toBe("refuted");
+    }
+  });
+  it("a Rayleigh vector with one entry changed is rejected", () => {
+    const g = starlike([1, 2, 6]);
+    const v = verdict(g, ">", "2");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "rayleigh" };
+    c.vector[0][1] = c.vector[0][1] + "1";
+    expect(recheckSpectralRadiusBound(g, ">", "2", "verified", c).status).toBe("refuted");
+  });
+  it("an inertia certificate with a changed count, or a sparse order with a wrong step, is rejected", () => {
+    const v = verdict(affineE8, "=", "2");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "inertia" };
+    c.zero = 0; c.positive = 9;
+    expect(recheckSpectralRadiusBound(affineE8, "=", "2", "verified", c).status).toBe("refuted");
+    const g = cycle(6);
+    const w = verdict(g, "=", "2");
+    const d = structuredClone(w.certificate!) as SpectralRadiusCertificate & { kind: "inertia" };
+    expect(d.engine).toBe("sparse");
+    d.steps![1] = d.steps![0];
+    const r = recheckSpectralRadiusBound(g, "=", "2", "verified", d);
+    expect(r.status).toBe("refuted");
+    expect(r.reason).toMatch(/step 2/);
+  });
+  it("malformed input gives typed errors", () => {
+    expect(() => verdict(path(3), "<", "sqrt(")).toThrow(/column/);
+    expect(() => verdict(makeGraph(0, []), "<", "2")).toThrow(/no vertices/);
+  });
+  it("a tiny budget gives undecided, not an exception", () => {
+    const v = spectralRadiusBound(path(10_000), "<", "2", new Budget(100));
+    expect(v.status).toBe("undecided");
+  });
+});
+
+function petersenLike(): Graph {
+  return makeGraph(10, [
+    ...[0, 1, 2, 3, 4].map((i) => ({ u: i, v: (i + 1) % 5 })),
+    ...[0, 1, 2, 3, 4].map((i) => ({ u: i, v: i + 5 })),
+    ...[0, 1, 2, 3, 4].map((i) => ({ u: 5 + i, v: 5 + ((i + 2) % 5) })),
+  ]);
+}
+
+describe("cross-check against floating eigenvalues (mathjs eigs) on seeded random graphs", () => {
+  it("the exact verdict of ρ < b agrees with the float whenever |ρ_float - b| > 1e-9", () => {
+    const bounds: Array<[string, number]> = [["1", 1], ["3/2", 1.5], ["2", 2], ["5/2", 2.5], ["3", 3], ["sqrt(5)", Math.sqrt(5)], ["2cos(pi/7)", 2 * Math.cos(Math.PI / 7)]];
+    let compared = 0;
+    for (let seed = 1; seed <= 300; seed++) {
+      const n = 2 + (seed % 8);
+      const g = randomGraph(n, 0.2 + (seed % 5) * 0.12, 7000 + seed);
+      const rho = Math.max(...floatEigenvalues(g));
+      const [text, bf] = bounds[seed % bounds.length];
+      if (Math.abs(rho - bf) <= 1e-9) continue;
+      expect(verdict(g, "<", text).status, `seed ${seed}`).toBe(rho < bf ? "verified" : "refuted");
+      compared++;
+    }
+    expect(compared).toBeGreaterThan(250);
+  });
+  it("full inertia of random graphs matches float eigenvalue counts (mathjs eigs)", () => {
+    for (let seed = 1; seed <= 60; seed++) {
+      const g = randomGraph(4 + (seed % 9), 0.4, 9000 + seed);
+      const ev = floatEigenvalues(g);
+      const b = rat(seed % 4);
+      if (ev.some((x) => Math.abs(x - Number(b.num)) < 1e-6)) continue;
+      const r = inertia(g, b);
+      expect(r.negative).toBe(ev.filter((x) => x > Number(b.num)).length);
+      expect(r.positive).toBe(ev.filter((x) => x < Number(b.num)).length);
+    }
+  });
+});

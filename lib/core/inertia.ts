@@ -1,0 +1,247 @@
+/**
+ * Exact verdicts on "ρ(G) op b" for op in <, <=, =, >=, >.
+ *
+ * For a symmetric non-negative matrix A, ρ(A) = λ_max(A) (Perron–Frobenius), so
+ *   ρ < b  ⟺  bI − A positive definite,      ρ <= b ⟺ bI − A positive semidefinite,
+ *   ρ = b  ⟺  bI − A PSD and singular,
+ * and inertia decides each (Sylvester's law of inertia). Rational b: Jacobs–Trevisan on forests
+ * (tree-inertia.ts), fraction-free sparse elimination otherwise (sparse-inertia.ts), both with early
+ * stops. Irrational b: first rational enclosures lo < b < hi (PD at lo gives ρ < b; a Rayleigh vector
+ * at hi gives ρ >= hi > b); if ρ lies inside the enclosure, the characteristic polynomial and Sturm
+ * sequences decide (gcd with the bound's polynomial settles ρ = b).
+ */
+import { Graph, GraphError, adjacency } from "./graph";
+import { Budget, Verdict, withinBudget } from "./verdict";
+import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZERO } from "./rational";
+import { Bound, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
+import { isForest, treeInertia, EliminationResult, StopRule } from "./tree-inertia";
+import { sparseInertia, PivotStep, ReplayError } from "./sparse-inertia";
+import { characteristicPolynomial } from "./charpoly";
+import { Poly, polyGcd, squarefree, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
+import { reject, recheck, expectRecord, expectInt } from "./certificate-check";
+
+export type Relation = "<" | "<=" | "=" | ">=" | ">";
+const RELATIONS: readonly Relation[] = ["<", "<=", "=", ">=", ">"];
+const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
+
+export type SpectralRadiusCertificate =
+  /** Inertia of (at)I − A with no negative value: ρ <= at, and ρ < at when zero = 0. */
+  | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; positive: number; negative: 0; zero: number }
+  /** x^T((at)I − A)x = value <= 0: ρ >= at (ρ > at when value < 0). Entries [vertex, rational]. */
+  | { kind: "rayleigh"; at: string; vector: Array<[number, string]>; value: string }
+  /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
+  | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
+
+/** Largest graph for which the characteristic-polynomial fallback is attempted (irrational b only). */
+export const CHARPOLY_FALLBACK_LIMIT = 400;
+
+/** Inertia (positive, negative, zero) of bI − A: eigenvalues of A below, above and at b. */
+export function inertia(g: Graph, b: Rational, budget: Budget = new Budget()): EliminationResult {
+  return isForest(g) ? treeInertia(g, b, "none", budget) : sparseInertia(g, b, "none", budget);
+}
+
+/** x^T (bI − A) x, exact; x maps vertices to rationals (absent = 0). */
+export function quadraticForm(g: Graph, b: Rational, x: ReadonlyMap<number, Rational>, budget?: Budget): Rational {
+  const { start, nbr, wt, diag } = adjacency(g);
+  let s = ZERO;
+  for (const [v, xv] of x) {
+    budget?.tick(1 + start[v + 1] - start[v]);
+    s = add(s, mul(mul(xv, xv), sub(b, rat(diag[v]))));
+    for (let k = start[v]; k < start[v + 1]; k++) {
+      const u = nbr[k];
+      const xu = u > v ? x.get(u) : undefined;
+      if (xu) s = sub(s, mul(rat(2 * wt[k]), mul(xv, xu)));
+    }
+  }
+  return s;
+}
+
+/** What a certificate proves about ρ relative to its own point `at`. */
+type Fact = { rel: Relation; at: Rational };
+
+/** Truth of "ρ op b" from "ρ rel b": true, false, or undefined when the fact does not decide it. */
+export function implies(rel: Relation, op: Relation): boolean | undefined {
+  const table: Record<Relation, Partial<Record<Relation, boolean>>> = {
+    "<": { "<": true, "<=": true, "=": false, ">=": false, ">": false },
+    "<=": { "<=": true, ">": false },
+    "=": { "<": false, "<=": true, "=": true, ">=": true, ">": false },
+    ">=": { ">=": true, "<": false },
+    ">": { "<": false, "<=": false, "=": false, ">=": true, ">": true },
+  };
+  return table[rel][op];
+}
+
+/** Moves a fact about ρ vs `at` to a fact about ρ vs b, given sign(at − b). */
+function relativeTo(f: Fact, c: -1 | 0 | 1): Relation | undefined {
+  if (c === 0) return f.rel;
+  if (c < 0) return f.rel === "<" || f.rel === "<=" || f.rel === "=" ? "<" : undefined;
+  return f.rel === ">" || f.rel === ">=" || f.rel === "=" ? ">" : undefined;
+}
+
+function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
+  const forest = isForest(g);
+  const r = forest ? treeInertia(g, at, stop, budget) : sparseInertia(g, at, stop, budget);
+  const atText = ratToString(at);
+  if (r.complete) {
+    const steps = "steps" in r ? (r.steps as PivotStep[]) : undefined;
+    const cert: SpectralRadiusCertificate = { kind: "inertia", at: atText, engine: forest ? "forest" : "sparse", ...(steps ? { steps } : {}), positive: r.positive, negative: 0, zero: r.zero };
+    return { fact: { rel: r.zero > 0 ? "=" : "<", at }, cert, forest };
+  }
+  const vector = [...r.witness!].filter(([, x]) => x.num !== 0n).sort((a, b) => a[0] - b[0]);
+  // The certificate states the value recomputed from the vector itself, checked against the engine.
+  const value = quadraticForm(g, at, r.witness!, budget);
+  if (cmp(value, r.witnessValue!) !== 0) throw new Error(`internal error: witness value ${ratToString(value)} differs from the elimination's ${ratToString(r.witnessValue!)}`);
+  const cert: SpectralRadiusCertificate = { kind: "rayleigh", at: atText, vector: vector.map(([v, x]) => [v, ratToString(x)]), value: ratToString(value) };
+  return { fact: { rel: sign(value) < 0 ? ">" : ">=", at }, cert, forest };
+}
+
+function explain(cert: SpectralRadiusCertificate, n: number): string {
+  switch (cert.kind) {
+    case "inertia":
+      return cert.zero === 0
+        ? `All ${n} diagonal values of a matrix congruent to ${cert.at}I − A are positive, so ${cert.at}I − A is positive definite (Sylvester's law of inertia) and every eigenvalue of A is below ${cert.at}; ρ = λ_max for non-negative symmetric A (Perron–Frobenius).`
+        : `A matrix congruent to ${cert.at}I − A has ${cert.positive} positive and ${cert.zero} zero diagonal values and no negative one, so ${cert.at}I − A is positive semidefinite and singular: λ_max(A) = ρ = ${cert.at}.`;
+    case "rayleigh":
+      return `The vector x in the certificate (support ${cert.vector.length}) has xᵀ(${cert.at}I − A)x = ${cert.value} ${cert.value.startsWith("-") ? "< 0" : "≤ 0"}, so the Rayleigh quotient xᵀAx/xᵀx is ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at} and ρ ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at}.`;
+    case "sturm":
+      return `Sturm sequences of the square-free part of χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
+  }
+}
+
+/** Exact verdict on ρ(G) op b. `bound` is a Bound or its text (see bound.ts for the syntax). */
+export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | string, budget: Budget = new Budget()): Verdict<SpectralRadiusCertificate> {
+  if (!RELATIONS.includes(op)) throw new GraphError(`unknown relation "${op}"; use one of < <= = >= >`);
+  const b = typeof bound === "string" ? parseBound(bound) : bound;
+  if (g.n === 0) throw new GraphError("the spectral radius of a graph with no vertices is not defined");
+  const statement = `ρ(G) ${SYMBOL[op]} ${b.text}`;
+  const stop: StopRule = op === "<" || op === ">=" ? "nonPositive" : "negative";
+  return withinBudget(statement, "exact inertia", budget, () => {
+    const verdictFrom = (rel: Relation, cert: SpectralRadiusCertificate, method: string, notes: string[] = []): Verdict<SpectralRadiusCertificate> => ({
+      status: implies(rel, op) ? "verified" : "refuted",
+      statement, method, reason: explain(cert, g.n), certificate: cert, notes: [...notes, `established: ρ(G) ${SYMBOL[rel]} ${b.text}`],
+    });
+    const methodOf = (forest: boolean) => (forest ? "tree inertia (Jacobs–Trevisan 2011)" : "sparse fraction-free LDLᵀ inertia (minimum degree)");
+    if (b.kind === "rational") {
+      const { fact, cert, forest } = runAt(g, b.value, stop, budget);
+      return verdictFrom(fact.rel, cert, methodOf(forest));
+    }
+    for (const bits of [20, 50]) {
+      const { lo, hi } = enclose(b, bits);
+      const below = runAt(g, lo, "nonPositive", budget);
+      if (below.fact.rel === "<") return verdictFrom("<", below.cert, methodOf(below.forest), [`b lies above the rational ${ratToString(lo)}`]);
+      const above = runAt(g, hi, "nonPositive", budget);
+      if (above.fact.rel !== "<") return verdictFrom(">", above.cert, methodOf(above.forest), [`b lies below the rational ${ratToString(hi)}`]);
+    }
+    if (g.n > CHARPOLY_FALLBACK_LIMIT)
+      return { status: "undecided", statement, method: "exact inertia at rational enclosures", reason: `ρ lies within 2^-50 of ${b.text} and the graph has ${g.n} > ${CHARPOLY_FALLBACK_LIMIT} vertices, too many for the characteristic-polynomial fallback.` };
+    const cert = sturmCertificate(g, b, budget);
+    const rel: Relation = cert.rootsAbove > 0 ? ">" : cert.boundIsEigenvalue ? "=" : "<";
+    return verdictFrom(rel, cert, "characteristic polynomial and Sturm sequences");
+  });
+}
+
+function boundIsRootOf(f: Poly, b: Bound & { kind: "algebraic" }, budget: Budget): boolean {
+  const gg = polyGcd(f, boundPolynomial(b), budget);
+  if (deg(gg) < 1) return false;
+  // Roots of gg are roots of b.poly, whose only root in (b.lo, b.hi) is b; endpoints are not roots.
+  return rootsBetween(sturmSequence(gg, budget), b.lo, b.hi) === 1;
+}
+
+function sturmCertificate(g: Graph, b: Bound & { kind: "algebraic" }, budget: Budget): SpectralRadiusCertificate & { kind: "sturm" } {
+  const chi = characteristicPolynomial(g, budget);
+  const sf = squarefree(chi, budget);
+  const seq = sturmSequence(sf, budget);
+  const isRoot = boundIsRootOf(sf, b, budget);
+  for (let bits = 8; ; bits *= 2) {
+    budget.tick(bits);
+    const { lo, hi } = enclose(b, bits);
+    if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) continue;
+    if (rootsBetween(seq, lo, hi) !== (isRoot ? 1 : 0)) continue;
+    return { kind: "sturm", charpoly: chi.map(String), lo: ratToString(lo), hi: ratToString(hi), rootsAbove: rootsBetween(seq, hi, "+inf"), boundIsEigenvalue: isRoot };
+  }
+}
+
+function parseCertRational(x: unknown, name: string): Rational {
+  if (typeof x !== "string") reject(`${name} must be a rational written as a string`);
+  try { return parseRational(x); } catch { return reject(`${name} is not a rational: "${x}"`); }
+}
+
+/**
+ * Re-checks a certificate of spectralRadiusBound independently: `verified` when it establishes the
+ * given outcome of "ρ(G) op b", `refuted` (certificate rejected, with the first failing entry) otherwise.
+ */
+export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound | string, outcome: "verified" | "refuted", certificate: unknown, budget: Budget = new Budget()): Verdict<undefined> {
+  const b = typeof bound === "string" ? parseBound(bound) : bound;
+  const claim = `ρ(G) ${SYMBOL[op]} ${b.text} is ${outcome}`;
+  return recheck(claim, "certificate re-check", budget, () => {
+    const c = expectRecord(certificate, "certificate");
+    let rel: Relation | undefined;
+    if (c.kind === "inertia" || c.kind === "rayleigh") {
+      const at = parseCertRational(c.at, "certificate.at");
+      const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : recheckRayleigh(g, at, c, budget);
+      rel = relativeTo(fact, b.kind === "rational" ? cmp(at, b.value) : compareToBound(at, b));
+    } else if (c.kind === "sturm") {
+      if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
+      rel = recheckSturm(g, b, c, budget);
+    } else reject(`certificate.kind must be "inertia", "rayleigh" or "sturm"`);
+    if (rel === undefined) reject("the certificate's point does not separate ρ from b");
+    const truth = implies(rel, op);
+    if (truth === undefined) reject(`the certificate shows ρ ${SYMBOL[rel]} b, which does not decide the claim`);
+    if ((truth ? "verified" : "refuted") !== outcome) reject(`the certificate shows ρ ${SYMBOL[rel]} b, so the claim is ${truth ? "true" : "false"}, not ${outcome}`);
+    return `the certificate shows ρ(G) ${SYMBOL[rel]} ${b.text}`;
+  });
+}
+
+function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {
+  const pos = expectInt(c.positive, "certificate.positive", 0, g.n), zero = expectInt(c.zero, "certificate.zero", 0, g.n);
+  if (c.negative !== 0) reject("certificate.negative must be 0");
+  if (pos + zero !== g.n) reject(`certificate counts ${pos} + ${zero} values for ${g.n} vertices`);
+  let r: EliminationResult;
+  if (c.engine === "forest") {
+    if (!isForest(g)) reject("certificate.engine is forest but the graph has a cycle");
+    r = treeInertia(g, at, "negative", budget);
+  } else if (c.engine === "sparse") {
+    if (!Array.isArray(c.steps)) reject("certificate.steps must list the elimination order");
+    try { r = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]); } catch (e) {
+      if (e instanceof ReplayError) reject(`certificate.steps: ${e.message}`);
+      throw e;
+    }
+  } else return reject(`certificate.engine must be "forest" or "sparse"`);
+  if (!r.complete || r.negative > 0) reject(`${ratToString(at)}I − A has a negative value (at vertex ${r.stoppedAt ?? "?"}), not the claimed inertia`);
+  if (r.positive !== pos || r.zero !== zero) reject(`recomputed inertia (${r.positive}, 0, ${r.zero}) differs from the certificate's (${pos}, 0, ${zero})`);
+  return { rel: zero > 0 ? "=" : "<", at };
+}
+
+function recheckRayleigh(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {
+  if (!Array.isArray(c.vector) || c.vector.length === 0) reject("certificate.vector must be a non-empty list of [vertex, rational]");
+  const x = new Map<number, Rational>();
+  (c.vector as unknown[]).forEach((entry, i) => {
+    if (!Array.isArray(entry) || entry.length !== 2) reject(`certificate.vector[${i}] must be [vertex, rational]`);
+    const v = expectInt(entry[0], `certificate.vector[${i}][0]`, 0, g.n - 1);
+    if (x.has(v)) reject(`certificate.vector repeats vertex ${v}`);
+    x.set(v, parseCertRational(entry[1], `certificate.vector[${i}][1]`));
+  });
+  if ([...x.values()].every((v) => v.num === 0n)) reject("certificate.vector is zero");
+  const value = parseCertRational(c.value, "certificate.value");
+  const q = quadraticForm(g, at, x, budget);
+  if (cmp(q, value) !== 0) reject(`xᵀ(${ratToString(at)}I − A)x = ${ratToString(q)}, not the certificate's ${ratToString(value)}`);
+  if (sign(q) > 0) reject(`xᵀ(${ratToString(at)}I − A)x = ${ratToString(q)} is positive and proves nothing`);
+  return { rel: sign(q) < 0 ? ">" : ">=", at };
+}
+
+function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
+  const chi = characteristicPolynomial(g, budget);
+  if (!Array.isArray(c.charpoly) || c.charpoly.length !== chi.length || c.charpoly.some((s, i) => s !== String(chi[i])))
+    reject("certificate.charpoly is not the characteristic polynomial of the graph");
+  const lo = parseCertRational(c.lo, "certificate.lo"), hi = parseCertRational(c.hi, "certificate.hi");
+  if (compareToBound(lo, b) >= 0 || compareToBound(hi, b) <= 0) reject("certificate.lo < b < certificate.hi fails");
+  const sf = squarefree(chi, budget);
+  if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) reject("an end of the enclosure is an eigenvalue");
+  const seq = sturmSequence(sf, budget);
+  const isRoot = boundIsRootOf(sf, b, budget);
+  if (isRoot !== c.boundIsEigenvalue) reject(`b ${isRoot ? "is" : "is not"} an eigenvalue, contrary to the certificate`);
+  if (rootsBetween(seq, lo, hi) !== (isRoot ? 1 : 0)) reject("the enclosure contains another eigenvalue");
+  const above = rootsBetween(seq, hi, "+inf");
+  if (above !== c.rootsAbove) reject(`${above} eigenvalue(s) lie above the enclosure, not ${String(c.rootsAbove)}`);
+  return above > 0 ? ">" : isRoot ? "=" : "<";
+}
