@@ -98,13 +98,20 @@ export interface EigenvaluesClaim extends ClaimCommon {
   readonly multiset: readonly number[];
 }
 
-/** A structural fact; `parameter` is a number for max-degree/branch-vertices, a list for leg-lengths. */
+/**
+ * A structural fact; `parameter` is a number for max-degree/branch-vertices, a list for leg-lengths.
+ * For max-degree, `relation` (default "=") compares the maximum degree Δ(G) with the parameter.
+ */
 export interface StructureClaim extends ClaimCommon {
   readonly kind: "structure";
   readonly graph: GraphInput;
   readonly predicate: StructurePredicate;
   readonly parameter?: number | readonly number[];
+  readonly relation?: DegreeRelation;
 }
+
+export const DEGREE_RELATIONS = ["<=", "=", ">="] as const;
+export type DegreeRelation = (typeof DEGREE_RELATIONS)[number];
 
 export type Claim =
   | SpectralRadiusBoundClaim | VectorCertificateClaim | SubgraphClaim | ExclusionClaim
@@ -198,7 +205,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   identification: ["graph", "family"],
   "characteristic-polynomial": ["graph", "coefficients"],
   eigenvalues: ["graph", "h", "multiset"],
-  structure: ["graph", "predicate", "parameter"],
+  structure: ["graph", "predicate", "parameter", "relation"],
 };
 
 /**
@@ -270,11 +277,14 @@ export function validateClaim(json: unknown, path = "$"): Claim {
   }
 }
 
-function structureParameter(o: Json, path: string): { predicate: StructurePredicate; parameter?: number | number[] } {
+function structureParameter(o: Json, path: string): { predicate: StructurePredicate; parameter?: number | number[]; relation?: DegreeRelation } {
   const predicate = oneOf(o.predicate, STRUCTURE_PREDICATES, `${path}.predicate`);
   const p = `${path}.parameter`;
+  if (o.relation !== undefined && predicate !== "max-degree") throw new ClaimError(`${path}.relation`, `only "max-degree" takes a relation`);
   switch (predicate) {
     case "max-degree":
+      if (o.parameter === undefined) throw new ClaimError(p, `"max-degree" needs a number parameter`);
+      return { predicate, parameter: integer(o.parameter, p, 0), relation: o.relation === undefined ? "=" : oneOf(o.relation, DEGREE_RELATIONS, `${path}.relation`) };
     case "branch-vertices":
       if (o.parameter === undefined) throw new ClaimError(p, `"${predicate}" needs a number parameter`);
       return { predicate, parameter: integer(o.parameter, p, 0) };

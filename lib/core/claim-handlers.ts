@@ -1,0 +1,28 @@
+/**
+ * The registry of claim kinds: one handler per kind (see claim-support.ts for what a handler does).
+ */
+import type { Claim } from "./claim-schema";
+import type { ClaimHandler } from "./claim-support";
+import { STRUCTURE_HANDLER } from "./claim-structure";
+
+/** A kind whose exact check is not part of this build: always undecided, never a guess. */
+function unavailable(kind: string): ClaimHandler {
+  const reason = `this checker build has no exact check for "${kind}" claims yet`;
+  return {
+    statement: () => `${kind} claim`,
+    limit: () => undefined,
+    verify: () => ({ status: "undecided", statement: `${kind} claim`, method: "none", reason }),
+    recheck: () => ({ status: "undecided", statement: `${kind} claim`, method: "none", reason }),
+  };
+}
+
+export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kind: K }>> } = {
+  "spectral-radius-bound": unavailable("spectral-radius-bound"),
+  "vector-certificate": unavailable("vector-certificate"),
+  subgraph: unavailable("subgraph"),
+  exclusion: unavailable("exclusion"),
+  identification: unavailable("identification"),
+  "characteristic-polynomial": unavailable("characteristic-polynomial"),
+  eigenvalues: unavailable("eigenvalues"),
+  structure: STRUCTURE_HANDLER,
+};

@@ -1,0 +1,163 @@
+/**
+ * The claim layer: verifies a "cairn-claim/1" claim exactly and re-checks stored certificates.
+ *
+ * A claim names its inputs (graphs as text, a bound, a vector, …); `verifyClaim` parses them, applies
+ * the size limits of its kind, runs the exact check under a step budget and wraps the result:
+ * the verdict, the canonical JSON of the claim, its SHA-256 digest and the checker version.
+ *
+ * The certificate stored with a verdict is an envelope `{ kind, outcome, evidence }`: `outcome` is the
+ * verdict it supports (verified or refuted) and `evidence` is the check's own certificate. Saying the
+ * outcome explicitly lets `recheckClaim` confirm that a certificate proves *this* verdict, not merely
+ * something true about the graph.
+ */
+import { canonicalJson } from "./canonical";
+import { ClaimError, type Claim, type GraphInput } from "./claim-schema";
+import { sha256Hex } from "./digest";
+import { GraphError, type Graph } from "./graph";
+import { parseGraph } from "./parse";
+import { NumberFormatError } from "./rational";
+import { Budget, DEFAULT_STEP_LIMIT, type Verdict } from "./verdict";
+import { HANDLERS } from "./claim-handlers";
+import type { ClaimHandler, ParsedInputs } from "./claim-support";
+
+/** Version of the checker that produced a verdict; stored with every result and bundle. */
+export const CHECKER_VERSION = "cairn-check/0.1.0";
+
+export interface ClaimCertificate {
+  readonly kind: Claim["kind"];
+  readonly outcome: "verified" | "refuted";
+  readonly evidence: unknown;
+}
+
+/** The result of re-checking a stored certificate against a claim. */
+export interface CertificateCheck {
+  /** True when the certificate was accepted and supports the same verdict as a fresh verification. */
+  readonly matches: boolean;
+  /** The re-check itself: verified = the certificate is valid and establishes its stated outcome. */
+  readonly verdict: Verdict;
+}
+
+export interface ClaimResult {
+  /** The claim as checked (normalised, without its certificate). */
+  readonly claim: Claim;
+  /** Canonical JSON of the claim's content (format, kind and inputs; no id, no certificate). */
+  readonly canonical: string;
+  /** SHA-256 (hex) of `canonical`: the identity of the claim. */
+  readonly digest: string;
+  readonly checkerVersion: string;
+  readonly verdict: Verdict<ClaimCertificate>;
+  /** Present when the claim carried a certificate. */
+  readonly certificateCheck?: CertificateCheck;
+}
+
+export interface VerifyOptions {
+  readonly budget?: Budget;
+  /** JSON path of the claim inside its document, used in error messages (default "$"). */
+  readonly path?: string;
+}
+
+/** Canonical JSON of what a claim states: the id and certificate are left out, so they never change its digest. */
+export function claimCanonicalJson(claim: Claim): string {
+  const { id: _id, certificate: _certificate, ...content } = claim;
+  return canonicalJson(content);
+}
+
+export function claimDigest(claim: Claim): string {
+  return sha256Hex(claimCanonicalJson(claim));
+}
+
+/** Parses one graph of a claim; a parse error becomes a ClaimError naming the field's JSON path. */
+function readGraph(input: GraphInput, path: string): Graph {
+  try {
+    return parseGraph(input.text, input.format);
+  } catch (e) {
+    if (e instanceof GraphError || e instanceof NumberFormatError) throw new ClaimError(`${path}.text`, e.message);
+    throw e;
+  }
+}
+
+function parseInputs(claim: Claim, path: string): ParsedInputs {
+  switch (claim.kind) {
+    case "subgraph":
+      return { pattern: readGraph(claim.pattern, `${path}.pattern`), host: readGraph(claim.host, `${path}.host`) };
+    case "exclusion":
+      return { host: readGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readGraph(p, `${path}.patterns[${i}]`)) };
+    default:
+      return { graph: readGraph(claim.graph, `${path}.graph`) };
+  }
+}
+
+function handlerOf(claim: Claim): ClaimHandler {
+  return HANDLERS[claim.kind] as ClaimHandler;
+}
+
+/** Runs a handler step, turning input errors found late (a bound that does not parse, …) into ClaimErrors. */
+function guarded<T>(path: string, run: () => T): T {
+  try {
+    return run();
+  } catch (e) {
+    if (e instanceof GraphError || e instanceof NumberFormatError) throw new ClaimError(path, e.message);
+    throw e;
+  }
+}
+
+/**
+ * Verifies a validated claim. Throws ClaimError for input that cannot be read (the path names the
+ * field); everything else, including input over the size limits and an exhausted budget, is a verdict.
+ */
+export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimResult {
+  const path = options.path ?? "$";
+  const budget = options.budget ?? new Budget();
+  const { certificate: carried, ...content } = claim;
+  const canonical = claimCanonicalJson(claim);
+  const base = { claim: content as Claim, canonical, digest: sha256Hex(canonical), checkerVersion: CHECKER_VERSION };
+  const handler = handlerOf(claim);
+  const inputs = parseInputs(claim, path);
+  const statement = guarded(path, () => handler.statement(claim, inputs));
+  const tooLarge = handler.limit(claim, inputs);
+  if (tooLarge)
+    return { ...base, verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}` } };
+  const found = guarded(path, () => handler.verify(claim, inputs, budget));
+  const verdict: Verdict<ClaimCertificate> = {
+    ...found,
+    statement,
+    certificate: found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate },
+  };
+  if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
+  if (carried === undefined) return { ...base, verdict };
+  const check = guarded(path, () => recheckParsed(claim, inputs, carried, new Budget(budget.limit)));
+  const outcome = (carried as { outcome?: unknown } | null)?.outcome;
+  return { ...base, verdict, certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check } };
+}
+
+function rejected(statement: string, why: string): Verdict {
+  return { status: "refuted", statement, method: "certificate re-check", reason: `certificate rejected: ${why}` };
+}
+
+function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown, budget: Budget): Verdict {
+  const handler = handlerOf(claim);
+  const statement = handler.statement(claim, inputs);
+  const envelope = `certificate establishes the claim "${statement}" is`;
+  if (typeof certificate !== "object" || certificate === null || Array.isArray(certificate))
+    return rejected(`${envelope} decided`, "a claim certificate is an object { kind, outcome, evidence }");
+  const c = certificate as Record<string, unknown>;
+  if (c.outcome !== "verified" && c.outcome !== "refuted")
+    return rejected(`${envelope} decided`, `certificate.outcome must be "verified" or "refuted", got ${JSON.stringify(c.outcome)}`);
+  const full = `${envelope} ${c.outcome}`;
+  if (c.kind !== claim.kind) return rejected(full, `certificate.kind is ${JSON.stringify(c.kind)}, the claim is "${claim.kind}"`);
+  const tooLarge = handler.limit(claim, inputs);
+  if (tooLarge) return { status: "undecided", statement: full, method: "size limits", reason: `input over the size limit: ${tooLarge}` };
+  const v = handler.recheck(claim, inputs, c.outcome, c.evidence, budget);
+  return { ...v, statement: full };
+}
+
+/**
+ * Re-checks a stored certificate independently of any earlier run: `verified` when it is valid and
+ * establishes its stated outcome for this claim, `refuted` when it is rejected (the reason names the
+ * first failing entry), `undecided` when the budget ran out.
+ */
+export function recheckClaim(claim: Claim, certificate: unknown, options: VerifyOptions = {}): Verdict {
+  const path = options.path ?? "$";
+  const inputs = parseInputs(claim, path);
+  return guarded(path, () => recheckParsed(claim, inputs, certificate, options.budget ?? new Budget(DEFAULT_STEP_LIMIT)));
+}

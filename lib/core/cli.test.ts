@@ -1,0 +1,77 @@
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { checkFile, EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, formatReport, main } from "./cli";
+
+const FIXTURES = join(import.meta.dirname, "../../tests/fixtures/claims");
+const scratch = mkdtempSync(join(tmpdir(), "cairn-cli-"));
+
+function writeJson(name: string, value: unknown): string {
+  const path = join(scratch, name);
+  writeFileSync(path, typeof value === "string" ? value : JSON.stringify(value));
+  return path;
+}
+
+describe("offline checker", () => {
+  it("prints one line per claim and a summary; a refuted claim makes the exit code 1", () => {
+    const report = checkFile(join(FIXTURES, "structure.json"));
+    const text = formatReport(report);
+    // C5 is not bipartite (it is an odd cycle; common practice), the other four claims hold.
+    expect(text).toMatch(/✗ refuted\s+C5-bipartite/);
+    expect(text).toMatch(/✓ verified\s+E8-legs\s+G is the star-like tree T\(1,2,4\)/);
+    expect(text.split("\n").at(-1)).toBe("5 checked: 4 verified, 1 refuted, 0 undecided");
+    expect(report.exitCode).toBe(EXIT_NOT_VERIFIED);
+  });
+
+  it("exits 0 when everything is verified", () => {
+    const path = writeJson("ok.json", { format: "cairn-claim/1", kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "tree" });
+    expect(main([path], () => {})).toBe(EXIT_OK);
+  });
+
+  it("names the JSON path of a malformed claim and exits 2, still checking the others", () => {
+    const report = checkFile(join(FIXTURES, "malformed.json"));
+    expect(report.exitCode).toBe(EXIT_MALFORMED);
+    expect(report.lines[0].status).toBe("verified");
+    expect(report.lines[1]).toMatchObject({ status: "malformed", label: "#2" });
+    expect(report.lines[1].text).toContain("$.claims[1].op");
+  });
+
+  it("reports a file that is not JSON as malformed", () => {
+    const report = checkFile(writeJson("broken.json", "{ not json"));
+    expect(report.exitCode).toBe(EXIT_MALFORMED);
+    expect(report.lines[0].text).toContain("not valid JSON");
+  });
+
+  it("reports a graph that does not parse with the path of its text", () => {
+    const path = writeJson("bad-graph.json", [{ format: "cairn-claim/1", kind: "structure", graph: { format: "edges", text: "0 1\n1" }, predicate: "tree" }]);
+    const report = checkFile(path);
+    expect(report.exitCode).toBe(EXIT_MALFORMED);
+    expect(report.lines[0].text).toMatch(/^\$\[0\]\.graph\.text: /);
+  });
+
+  it("undecided counts against the exit code", () => {
+    const path = writeJson("big.json", { format: "cairn-claim/1", kind: "structure", graph: { format: "named", text: "path(1000)" }, predicate: "connected" });
+    const out: string[] = [];
+    expect(main(["--steps", "10", path], (s) => out.push(s))).toBe(EXIT_NOT_VERIFIED);
+    expect(out.join("\n")).toContain("? undecided");
+  });
+
+  it("re-checks a carried certificate and says whether it matches", () => {
+    const claim = { format: "cairn-claim/1", kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "connected" };
+    const good = { kind: "structure", outcome: "verified", evidence: { kind: "forest", parent: [-1, 0, 1] } };
+    const bad = { kind: "structure", outcome: "verified", evidence: { kind: "forest", parent: [-1, 0, 0] } };
+    const okReport = checkFile(writeJson("cert-ok.json", { ...claim, certificate: good }));
+    expect(okReport.lines[0].certificate?.matches).toBe(true);
+    expect(okReport.exitCode).toBe(EXIT_OK);
+    const badReport = checkFile(writeJson("cert-bad.json", { ...claim, certificate: bad }));
+    expect(badReport.lines[0].status).toBe("verified");
+    expect(badReport.lines[0].certificate?.matches).toBe(false);
+    expect(formatReport(badReport)).toContain("certificate does NOT match");
+    expect(badReport.exitCode).toBe(EXIT_NOT_VERIFIED);
+  });
+
+  it("rejects unknown options with exit 2", () => {
+    expect(main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
+  });
+});

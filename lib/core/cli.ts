@@ -1,0 +1,164 @@
+/**
+ * The offline checker: `npm run check -- FILE...` or `bin/cairn-check.mjs FILE...`.
+ *
+ * Reads a claims document (one claim, an array of claims, or a "cairn-claims/1" list), verifies every
+ * claim exactly, re-checks every certificate a claim carries, and prints one line per claim and a
+ * summary. Exit codes:
+ *   0  every claim verified and every carried certificate re-checked;
+ *   1  some claim refuted or undecided, or a carried certificate failed its re-check
+ *      (undecided counts against: a reader cannot rely on a claim nobody decided);
+ *   2  the file or some claim in it is malformed (the message names the JSON path), or usage error.
+ */
+import { readFileSync } from "node:fs";
+import { resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { readClaimsDocument } from "./claim-file";
+import { ClaimError } from "./claim-schema";
+import { CHECKER_VERSION, verifyClaim, type ClaimResult } from "./claims";
+import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
+
+export const EXIT_OK = 0;
+export const EXIT_NOT_VERIFIED = 1;
+export const EXIT_MALFORMED = 2;
+
+/** One printed line of a check. */
+export interface CheckLine {
+  readonly label: string;
+  readonly status: "verified" | "refuted" | "undecided" | "malformed";
+  readonly text: string;
+  /** Set when the claim carried a certificate: whether it re-checked. */
+  readonly certificate?: { readonly matches: boolean; readonly text: string };
+}
+
+export interface CheckReport {
+  readonly source: string;
+  readonly lines: CheckLine[];
+  readonly exitCode: number;
+}
+
+export interface CheckOptions {
+  /** Step limit per claim. */
+  readonly steps?: number;
+}
+
+const MARK: Record<CheckLine["status"], string> = { verified: "✓", refuted: "✗", undecided: "?", malformed: "!" };
+
+function lineOf(label: string, r: ClaimResult): CheckLine {
+  const v = r.verdict;
+  // A refutation or an undecided verdict is only useful with its reason; a verification names its method.
+  const reason = v.status === "verified" ? "" : `  — ${v.reason}`;
+  const certificate = r.certificateCheck && {
+    matches: r.certificateCheck.matches,
+    text: r.certificateCheck.matches
+      ? `certificate re-checked: matches (${r.certificateCheck.verdict.method})`
+      : `certificate does NOT match: ${r.certificateCheck.verdict.reason}`,
+  };
+  return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}) };
+}
+
+function exitCodeOf(lines: CheckLine[]): number {
+  if (lines.some((l) => l.status === "malformed")) return EXIT_MALFORMED;
+  if (lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches))) return EXIT_NOT_VERIFIED;
+  return EXIT_OK;
+}
+
+/**
+ * Checks a parsed document, dispatching on its "format" field. Claims documents are handled here;
+ * other formats (an exported bundle) are added as further cases of the switch.
+ */
+export function checkDocument(json: unknown, source: string, options: CheckOptions = {}): CheckReport {
+  const format = typeof json === "object" && json !== null && !Array.isArray(json) ? (json as { format?: unknown }).format : undefined;
+  switch (format) {
+    // Bundles: add `case "cairn-bundle/1": return checkBundle(json, source, options);` here.
+    default:
+      return checkClaims(json, source, options);
+  }
+}
+
+function checkClaims(json: unknown, source: string, options: CheckOptions): CheckReport {
+  const lines: CheckLine[] = [];
+  for (const entry of readClaimsDocument(json)) {
+    const label = ("claim" in entry && entry.claim.id) || `#${entry.index + 1}`;
+    if ("error" in entry) {
+      lines.push({ label, status: "malformed", text: entry.error.message });
+      continue;
+    }
+    try {
+      lines.push(lineOf(label, verifyClaim(entry.claim, { budget: new Budget(options.steps ?? DEFAULT_STEP_LIMIT), path: entry.path })));
+    } catch (e) {
+      // verifyClaim throws only for malformed input (a graph text that does not parse, an embedding of the wrong length).
+      if (e instanceof ClaimError) lines.push({ label, status: "malformed", text: e.message });
+      else throw e;
+    }
+  }
+  return { source, lines, exitCode: exitCodeOf(lines) };
+}
+
+/** Reads and checks one file; a file that is not JSON or not a known document is reported as malformed. */
+export function checkFile(path: string, options: CheckOptions = {}): CheckReport {
+  let json: unknown;
+  try {
+    json = JSON.parse(readFileSync(path, "utf8"));
+  } catch (e) {
+    const why = e instanceof SyntaxError ? `not valid JSON: ${e.message}` : `cannot read: ${e instanceof Error ? e.message : String(e)}`;
+    return { source: path, lines: [{ label: "$", status: "malformed", text: why }], exitCode: EXIT_MALFORMED };
+  }
+  try {
+    return checkDocument(json, path, options);
+  } catch (e) {
+    if (e instanceof ClaimError) return { source: path, lines: [{ label: "$", status: "malformed", text: e.message }], exitCode: EXIT_MALFORMED };
+    throw e;
+  }
+}
+
+export function formatReport(report: CheckReport): string {
+  const out = [`${report.source}`];
+  const width = Math.max(8, ...report.lines.map((l) => l.label.length));
+  for (const l of report.lines) {
+    out.push(`${MARK[l.status]} ${l.status.padEnd(10)} ${l.label.padEnd(width)}  ${l.text}`);
+    if (l.certificate) out.push(`  ${l.certificate.matches ? "✓" : "✗"} ${l.certificate.text}`);
+  }
+  const count = (s: CheckLine["status"]) => report.lines.filter((l) => l.status === s).length;
+  const mismatched = report.lines.filter((l) => l.certificate && !l.certificate.matches).length;
+  out.push(
+    `${report.lines.length} checked: ${count("verified")} verified, ${count("refuted")} refuted, ${count("undecided")} undecided` +
+      (count("malformed") ? `, ${count("malformed")} malformed` : "") +
+      (mismatched ? `, ${mismatched} certificate${mismatched > 1 ? "s" : ""} not matching` : ""),
+  );
+  return out.join("\n");
+}
+
+const USAGE = `usage: cairn-check [--steps N] [--json] FILE...
+Checks Cairn claims files (cairn-claim/1, cairn-claims/1) exactly, offline.
+Exit 0: all verified; 1: something refuted, undecided or a certificate not matching; 2: malformed input.`;
+
+/** Runs the checker on command-line arguments; returns the exit code. */
+export function main(argv: string[], print: (s: string) => void = (s) => process.stdout.write(s + "\n")): number {
+  const files: string[] = [];
+  let steps: number | undefined;
+  let json = false;
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === "--help" || a === "-h") { print(USAGE); return EXIT_OK; }
+    else if (a === "--json") json = true;
+    else if (a === "--steps") {
+      steps = Number(argv[++i]);
+      if (!Number.isSafeInteger(steps) || steps < 1) { print(`--steps needs a positive integer\n${USAGE}`); return EXIT_MALFORMED; }
+    } else if (a === "--version") { print(CHECKER_VERSION); return EXIT_OK; }
+    else if (a.startsWith("--")) { print(`unknown option ${a}\n${USAGE}`); return EXIT_MALFORMED; }
+    else files.push(a);
+  }
+  if (files.length === 0) { print(USAGE); return EXIT_MALFORMED; }
+  const reports = files.map((f) => checkFile(f, { steps }));
+  if (json) print(JSON.stringify({ checkerVersion: CHECKER_VERSION, reports }, null, 2));
+  else {
+    print(`cairn-check ${CHECKER_VERSION}`);
+    for (const r of reports) print(formatReport(r));
+  }
+  return Math.max(...reports.map((r) => r.exitCode));
+}
+
+// Run when executed directly (`tsx lib/core/cli.ts`); bin/cairn-check.mjs imports and calls `main`.
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  process.exitCode = main(process.argv.slice(2));
+}
