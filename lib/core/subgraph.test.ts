@@ -1,0 +1,117 @@
+import { describe, expect, it } from "vitest";
+import { Budget } from "./verdict";
+import { parseGraph } from "./parse";
+import { affineA, affineD, affineE, complete, cycle, dynkinE, path, star, starlike } from "./constructors";
+import { checkEmbedding, excludeSubgraphs, findSubgraph, recheckExclusion, recheckSubgraph } from "./subgraph";
+
+const PETERSEN = parseGraph("IheA@GUAo"); // graph6 of the Petersen graph, from memory; parse.test.ts checks girth 5
+
+describe("finding embeddings", () => {
+  it("finds C5 in the Petersen graph and the embedding re-checks; a changed entry is rejected", () => {
+    // The Petersen graph has girth 5, so it contains C5 (Brouwer & Haemers §1.4.2 / common practice).
+    const v = findSubgraph(cycle(5), PETERSEN);
+    expect(v.status).toBe("verified");
+    const phi = v.certificate?.kind === "embedding" ? v.certificate.embedding : [];
+    expect(checkEmbedding(cycle(5), PETERSEN, phi)).toBeNull();
+    expect(recheckSubgraph(cycle(5), PETERSEN, v.certificate).status).toBe("verified");
+    const bad = { kind: "embedding", embedding: [...phi] };
+    bad.embedding[0] = phi[2]; // no longer injective
+    expect(recheckSubgraph(cycle(5), PETERSEN, bad).status).toBe("refuted");
+  });
+
+  it("proves C4 absent from the Petersen graph by exhaustive search (girth 5)", () => {
+    // Girth of the Petersen graph is 5 (Brouwer & Haemers §1.4.2 / common practice).
+    const v = findSubgraph(cycle(4), PETERSEN);
+    expect(v.status).toBe("refuted");
+    expect(v.method).toBe("exhaustive backtracking search");
+    expect(recheckSubgraph(cycle(4), PETERSEN, v.certificate).status).toBe("verified");
+  });
+
+  it("respects multiplicities and loops", () => {
+    const triple = parseGraph("0 1 3\n1 2");
+    expect(findSubgraph(affineA(1), triple).status).toBe("verified"); // double edge under a triple edge
+    expect(findSubgraph(affineA(1), triple, { induced: true }).status).toBe("refuted"); // 2 ≠ 3
+    expect(findSubgraph(affineA(1), path(5)).status).toBe("refuted");
+    expect(findSubgraph(parseGraph("0 0 2"), parseGraph("0 1\n1 1 1")).status).toBe("refuted"); // loop weight 2 > 1
+  });
+
+  it("distinguishes subgraphs from induced subgraphs", () => {
+    // P3 is a subgraph of K3 but not an induced one (common practice).
+    expect(findSubgraph(path(3), complete(3)).status).toBe("verified");
+    const v = findSubgraph(path(3), complete(3), { induced: true });
+    expect(v.status).toBe("refuted");
+    expect(recheckSubgraph(path(3), complete(3), v.certificate, true).status).toBe("verified");
+    expect(recheckSubgraph(path(3), complete(3), { kind: "embedding", embedding: [0, 1, 2] }, true).status).toBe("refuted");
+    // C4 is an induced subgraph of K_{2,3} (common practice).
+    expect(findSubgraph(cycle(4), parseGraph("complete_bipartite(2,3)"), { induced: true }).status).toBe("verified");
+  });
+
+  it("finds Ẽ8 = T(1,2,5) in T(1,2,6) by the spider arm test", () => {
+    const g = starlike([1, 2, 6]);
+    const v = findSubgraph(affineE(8), g);
+    expect(v.status).toBe("verified");
+    expect(v.method).toMatch(/spider/);
+    expect(recheckSubgraph(affineE(8), g, v.certificate).status).toBe("verified");
+  });
+});
+
+describe("absence arguments", () => {
+  it("the degree count decides K_{1,4} ⊄ path, and a changed argument is rejected", () => {
+    const v = findSubgraph(star(4), path(1000));
+    expect(v.status).toBe("refuted");
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "degree-count", threshold: 4, inPattern: 1, inHost: 0 } });
+    expect(recheckSubgraph(star(4), path(1000), v.certificate).status).toBe("verified");
+    const bad = { kind: "absence", argument: { kind: "degree-count", threshold: 3, inPattern: 1, inHost: 0 } };
+    expect(recheckSubgraph(star(4), path(1000), bad).status).toBe("refuted");
+    expect(recheckSubgraph(star(3), affineD(6), v.certificate).status).toBe("refuted"); // K_{1,3} is present there
+  });
+
+  it("arm lengths decide Ẽ8 ⊄ D̃_n", () => {
+    const g = affineD(200);
+    const v = findSubgraph(affineE(8), g);
+    expect(v.status).toBe("refuted");
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "spider-arms", legs: [1, 2, 5] } });
+    expect(recheckSubgraph(affineE(8), g, v.certificate).status).toBe("verified");
+  });
+
+  it("a connected pattern must fit in one component", () => {
+    const v = findSubgraph(path(4), parseGraph("path(3) + path(3)"));
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "component-fit", components: 2 } });
+  });
+
+  it("a cycle never fits in a forest", () => {
+    const v = findSubgraph(cycle(3), path(10));
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "cycle-in-forest" } });
+  });
+
+  it("an exhausted budget gives undecided", () => {
+    expect(findSubgraph(cycle(4), PETERSEN, { budget: new Budget(20) }).status).toBe("undecided");
+  });
+});
+
+describe("exclusion", () => {
+  const affine = [affineD(4), affineE(6), affineE(7), affineE(8)];
+  const names = ["D̃4", "Ẽ6", "Ẽ7", "Ẽ8"];
+
+  it("E8 contains none of D̃4, Ẽ6, Ẽ7, Ẽ8", () => {
+    // E8 = T(1,2,4) has ρ < 2 and so contains no affine diagram (J. H. Smith 1970; Brouwer & Haemers §3.1.1).
+    const g = dynkinE(8);
+    const v = excludeSubgraphs(g, affine, { patternNames: names });
+    expect(v.status).toBe("verified");
+    expect(recheckExclusion(g, affine, v.certificate).status).toBe("verified");
+    const c = JSON.parse(JSON.stringify(v.certificate));
+    c.absent.pop();
+    expect(recheckExclusion(g, affine, c).status).toBe("refuted");
+  });
+
+  it("T(1,2,6) contains Ẽ8, found with an embedding", () => {
+    const g = starlike([1, 2, 6]);
+    const v = excludeSubgraphs(g, affine, { patternNames: names });
+    expect(v.status).toBe("refuted");
+    expect(v.certificate?.found?.index).toBe(3);
+    expect(recheckExclusion(g, affine, v.certificate).status).toBe("verified");
+    const c = JSON.parse(JSON.stringify(v.certificate));
+    c.found.embedding[0] = c.found.embedding[1];
+    expect(recheckExclusion(g, affine, c).status).toBe("refuted");
+  });
+});

@@ -1,0 +1,295 @@
+/**
+ * Subgraph containment H ⊆ G for multigraphs with loops, and exclusion "G contains none of H1…Hk".
+ *
+ * - Subgraph (monomorphism): an injective φ: V(H) → V(G) with m_H(u,v) ≤ m_G(φu,φv) for every pair,
+ *   loops included (m(v,v) is the loop weight).
+ * - Induced subgraph: the same with equality m_H(u,v) = m_G(φu,φv) for every pair of H-vertices,
+ *   including pairs with m = 0.
+ *
+ * An embedding is the certificate of presence and `checkEmbedding` verifies it in O(|E(H)|)
+ * (+ O(|V(H)|²) for induced). Absence is decided by the first argument that applies, and the verdict
+ * names it: the counting tests and the exact spider-in-forest test of subgraph-filters.ts, and
+ * otherwise an exhaustive backtracking search in the manner of VF2 (L. P. Cordella, P. Foggia,
+ * C. Sansone, M. Vento, "A (sub)graph isomorphism algorithm for matching large graphs", 2004):
+ * H's vertices in breadth-first order, each one's candidates drawn from the G-neighbours of its
+ * already-mapped BFS parent, with degree and loop filters. The search size (nodes visited) is reported.
+ *
+ * Spectral link: for connected G, H ⊆ G gives ρ(H) ≤ ρ(G), strictly when H is a proper subgraph
+ * (Perron–Frobenius monotonicity; Brouwer & Haemers, Spectra of Graphs, §3.1 / common practice).
+ */
+
+import { adjacency, type Graph } from "./graph";
+import { Budget, withinBudget, type Verdict } from "./verdict";
+import { expectIntArray, expectRecord, multiplicity, recheck, reject, CertificateRejected } from "./certificate-check";
+import { sweep } from "./structure";
+import {
+  asSpider, componentMembers, countingArgument, embedSpiderInForest, isForestGraph, type AbsenceArgument,
+} from "./subgraph-filters";
+
+export type { AbsenceArgument } from "./subgraph-filters";
+
+export interface EmbeddingCertificate { kind: "embedding"; embedding: number[] }
+export interface AbsenceCertificate { kind: "absence"; argument: AbsenceArgument | { kind: "cycle-in-forest" } }
+export type SubgraphCertificate = EmbeddingCertificate | AbsenceCertificate;
+
+export interface SubgraphOptions {
+  induced?: boolean;
+  budget?: Budget;
+  /** Names for the statement, e.g. { pattern: "Ẽ8", host: "G" }. */
+  names?: { pattern?: string; host?: string };
+}
+
+export const MONOTONICITY_NOTE =
+  "Perron–Frobenius monotonicity: for connected G, H ⊆ G gives ρ(H) ≤ ρ(G), with strict inequality when H is a proper subgraph (Brouwer & Haemers, Spectra of Graphs, §3.1).";
+
+/** Verifies an embedding; returns null when valid, else the first reason it fails. */
+export function checkEmbedding(h: Graph, g: Graph, phi: readonly number[], induced = false, budget = new Budget()): string | null {
+  if (phi.length !== h.n) return `the embedding has ${phi.length} entries, H has ${h.n} vertices`;
+  const used = new Set<number>();
+  for (let u = 0; u < h.n; u++) {
+    const x = phi[u];
+    if (!Number.isSafeInteger(x) || x < 0 || x >= g.n) return `φ(${u}) = ${x} is not a vertex of G`;
+    if (used.has(x)) return `φ is not injective: vertex ${x} of G is used twice`;
+    used.add(x);
+  }
+  for (const e of h.edges) {
+    budget.tick();
+    const m = multiplicity(g, phi[e.u], phi[e.v]);
+    if (induced ? m !== e.m : m < e.m) return `H's ${e.u === e.v ? `loop at ${e.u}` : `edge ${e.u}–${e.v}`} has multiplicity ${e.m} but its image ${phi[e.u]}–${phi[e.v]} has ${m}`;
+  }
+  if (induced) {
+    for (let u = 0; u < h.n; u++)
+      for (let w = u; w < h.n; w++) {
+        budget.tick();
+        if (multiplicity(h, u, w) === 0 && multiplicity(g, phi[u], phi[w]) !== 0) return `${u}, ${w} are not adjacent in H but their images ${phi[u]}, ${phi[w]} are adjacent in G`;
+      }
+  }
+  return null;
+}
+
+/** Exhaustive backtracking search (VF2-like); returns an embedding or null, and the nodes visited. */
+export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Budget, roots?: Int32Array): { embedding: number[] | null; nodesVisited: number } {
+  const ha = adjacency(h), ga = adjacency(g);
+  const hDeg = (u: number) => ha.start[u + 1] - ha.start[u];
+  // Breadth-first order of H, component by component, each started at a vertex of largest degree.
+  const order: number[] = [], anchor = new Int32Array(h.n).fill(-1), position = new Int32Array(h.n).fill(-1);
+  const byDegree = Array.from({ length: h.n }, (_, i) => i).sort((a, b) => hDeg(b) - hDeg(a) || a - b);
+  for (const s of byDegree) {
+    if (position[s] >= 0) continue;
+    position[s] = order.length; order.push(s);
+    for (let head = position[s]; head < order.length; head++) {
+      const x = order[head];
+      for (let p = ha.start[x]; p < ha.start[x + 1]; p++) {
+        const y = ha.nbr[p];
+        if (position[y] < 0) { position[y] = order.length; order.push(y); anchor[y] = x; }
+      }
+    }
+  }
+  // Constraints toward earlier vertices: [w, m] for each H-neighbour w mapped before u.
+  const constraints: Array<Array<[number, number]>> = order.map((u, i) => {
+    const list: Array<[number, number]> = [];
+    for (let p = ha.start[u]; p < ha.start[u + 1]; p++) if (position[ha.nbr[p]] < i) list.push([ha.nbr[p], ha.wt[p]]);
+    return list;
+  });
+  const phi = new Array<number>(h.n).fill(-1);
+  const used = new Uint8Array(g.n);
+  // Induced: besides equal multiplicities to the earlier neighbours, x may have no other mapped
+  // G-neighbour; counting x's mapped neighbours costs deg_G(x) instead of |V(H)| multiplicity look-ups.
+  const mappedNeighbours = (x: number): number => {
+    budget.tick(ga.start[x + 1] - ga.start[x]);
+    let count = 0;
+    for (let p = ga.start[x]; p < ga.start[x + 1]; p++) count += used[ga.nbr[p]];
+    return count;
+  };
+  const cursor = new Int32Array(h.n + 1);
+  let nodesVisited = 0;
+  const feasible = (u: number, x: number): boolean => {
+    if (used[x] || ga.start[x + 1] - ga.start[x] < hDeg(u)) return false;
+    if (induced ? ga.diag[x] !== ha.diag[u] : ga.diag[x] < ha.diag[u]) return false;
+    for (const [w, m] of constraints[position[u]]) {
+      const mg = multiplicity(g, phi[w], x);
+      if (induced ? mg !== m : mg < m) return false;
+    }
+    return !induced || mappedNeighbours(x) === constraints[position[u]].length;
+  };
+  let level = 0;
+  while (level >= 0) {
+    if (level === h.n) return { embedding: phi, nodesVisited };
+    const u = order[level];
+    if (phi[u] >= 0) { used[phi[u]] = 0; phi[u] = -1; }
+    const a = anchor[u];
+    let found = -1;
+    if (a < 0) {
+      const pool = level === 0 && roots ? roots : null;
+      const limit = pool ? pool.length : g.n;
+      while (cursor[level] < limit && found < 0) {
+        budget.tick();
+        const x = pool ? pool[cursor[level]] : cursor[level];
+        cursor[level]++;
+        if (feasible(u, x)) found = x;
+      }
+    } else {
+      const base = phi[a];
+      const begin = ga.start[base], end = ga.start[base + 1];
+      while (begin + cursor[level] < end && found < 0) {
+        budget.tick();
+        const x = ga.nbr[begin + cursor[level]];
+        cursor[level]++;
+        if (feasible(u, x)) found = x;
+      }
+    }
+    if (found >= 0) {
+      phi[u] = found; used[found] = 1; nodesVisited++;
+      level++;
+      if (level < h.n) cursor[level] = 0;
+    } else {
+      cursor[level] = 0;
+      level--;
+    }
+  }
+  return { embedding: null, nodesVisited };
+}
+
+type Decision = { embedding: number[]; method: string; nodesVisited?: number } | { argument: AbsenceCertificate["argument"] };
+
+/** Decides H ⊆ G by the cheapest argument that applies (see the module comment). */
+export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: Budget): Decision {
+  if (h.n === 0) return { embedding: [], method: "empty pattern" };
+  const counting = countingArgument(h, g);
+  if (counting) return { argument: counting };
+  const gs = sweep(g, budget), hs = sweep(h, budget);
+  let roots: Int32Array | undefined;
+  if (hs.componentCount === 1 && gs.componentCount > 1) {
+    const fits = componentMembers(gs, g.n).filter((members) => countingArgument(h, g, members) === null);
+    if (fits.length === 0) return { argument: { kind: "component-fit", components: gs.componentCount } };
+    roots = Int32Array.from(fits.flatMap((m) => Array.from(m)));
+  }
+  if (isForestGraph(g, gs)) {
+    if (!isForestGraph(h, hs)) return { argument: { kind: "cycle-in-forest" } };
+    const spider = hs.componentCount === 1 ? asSpider(h, budget) : null;
+    if (spider) {
+      const phi = embedSpiderInForest(spider, h.n, g, gs, budget);
+      if (phi) return { embedding: phi, method: "spider arm test in a forest" };
+      return { argument: { kind: "spider-arms", legs: spider.legs.map((l) => l.length).sort((a, b) => a - b) } };
+    }
+  }
+  const { embedding, nodesVisited } = searchEmbedding(h, g, induced, budget, roots);
+  if (embedding) return { embedding, method: "backtracking search", nodesVisited };
+  return { argument: { kind: "search", nodesVisited } };
+}
+
+const vertices = (k: number) => `${k} ${k === 1 ? "vertex" : "vertices"}`;
+
+export function describeAbsence(arg: AbsenceCertificate["argument"], pattern = "H", host = "G"): string {
+  switch (arg.kind) {
+    case "order": return `${pattern} has ${arg.patternOrder} vertices, more than the ${arg.hostOrder} of ${host}`;
+    case "degree-count": return `${pattern} has ${vertices(arg.inPattern)} of degree ≥ ${arg.threshold} but ${host} has only ${arg.inHost}; an embedding maps them to distinct vertices of at least that degree`;
+    case "loop-count": return `${pattern} has ${vertices(arg.inPattern)} with loop weight ≥ ${arg.threshold} but ${host} has only ${arg.inHost}`;
+    case "component-fit": return `${pattern} is connected, so it must lie in one component of ${host}, and each of the ${arg.components} components fails the vertex or degree count`;
+    case "cycle-in-forest": return `${pattern} contains a cycle (loops and multiple edges count) and ${host} is a forest`;
+    case "spider-arms": return `${host} is a forest and ${pattern} = T(${arg.legs.join(",")}) needs a vertex with ${arg.legs.length} disjoint arms of lengths ≥ ${arg.legs.slice().reverse().join(", ")}; no vertex of ${host} has them`;
+    case "search": return `exhaustive backtracking search visited ${arg.nodesVisited} partial embeddings and found none`;
+  }
+}
+
+export function findSubgraph(h: Graph, g: Graph, options: SubgraphOptions = {}): Verdict<SubgraphCertificate> {
+  const induced = options.induced ?? false, budget = options.budget ?? new Budget();
+  const pattern = options.names?.pattern ?? "H", host = options.names?.host ?? "G";
+  const statement = `${pattern} ⊆ ${host}${induced ? " (induced)" : ""}`;
+  return withinBudget<SubgraphCertificate>(statement, "subgraph search", budget, () => {
+    const d = decideContainment(h, g, induced, budget);
+    if ("embedding" in d) {
+      const count = d.nodesVisited !== undefined ? ` after visiting ${d.nodesVisited} partial embeddings` : "";
+      return {
+        status: "verified", statement, method: d.method, certificate: { kind: "embedding", embedding: d.embedding }, notes: [MONOTONICITY_NOTE],
+        reason: `the embedding φ found by ${d.method}${count} maps every ${induced ? "pair of vertices of H to a pair of G with equal multiplicity" : "edge (and loop) of H to one of G of at least the same multiplicity"}`,
+      };
+    }
+    const method = d.argument.kind === "search" ? "exhaustive backtracking search" : `${d.argument.kind} argument`;
+    return { status: "refuted", statement, method, reason: describeAbsence(d.argument, pattern, host), certificate: { kind: "absence", argument: d.argument }, notes: [MONOTONICITY_NOTE] };
+  });
+}
+
+/** Re-derives an absence argument; throws CertificateRejected when it does not hold. */
+function confirmAbsence(h: Graph, g: Graph, induced: boolean, argument: unknown, budget: Budget): string {
+  const arg = expectRecord(argument, "argument");
+  const d = decideContainment(h, g, induced, budget);
+  if ("embedding" in d) reject(`H is present: ${d.method} finds an embedding`);
+  // decideContainment is deterministic; the stated argument must be the one that decides.
+  if (d.argument.kind !== arg.kind) reject(`the stated argument "${String(arg.kind)}" is not the one that applies ("${d.argument.kind}")`);
+  for (const [key, value] of Object.entries(d.argument))
+    if (key !== "nodesVisited" && JSON.stringify(arg[key]) !== JSON.stringify(value)) reject(`argument.${key} should be ${JSON.stringify(value)}`);
+  return describeAbsence(d.argument);
+}
+
+export function recheckSubgraph(h: Graph, g: Graph, certificate: unknown, induced = false, budget = new Budget()): Verdict<undefined> {
+  const kind = typeof certificate === "object" && certificate !== null ? (certificate as { kind?: unknown }).kind : undefined;
+  const outcome = `${kind === "absence" ? "H ⊄ G" : "H ⊆ G"}${induced ? " (induced)" : ""}`;
+  return recheck(outcome, "certificate re-check", budget, () => {
+    const c = expectRecord(certificate, "certificate");
+    if (c.kind === "embedding") {
+      const phi = expectIntArray(c.embedding, "embedding", 0, Math.max(g.n - 1, 0), h.n);
+      const problem = checkEmbedding(h, g, phi, induced, budget);
+      if (problem) reject(problem);
+      return `the embedding is injective and preserves ${induced ? "every multiplicity exactly" : "edges with multiplicity"}`;
+    }
+    if (c.kind !== "absence") reject(`unknown certificate kind "${String(c.kind)}"`);
+    return confirmAbsence(h, g, induced, c.argument, budget);
+  });
+}
+
+export interface ExclusionCertificate {
+  kind: "exclusion";
+  /** One absence argument per pattern, in order; or the first pattern found with its embedding. */
+  absent?: AbsenceCertificate[];
+  found?: { index: number; embedding: number[] };
+}
+
+/** "G contains none of H1…Hk" — verified with one absence argument per pattern, refuted by an embedding. */
+export function excludeSubgraphs(g: Graph, patterns: readonly Graph[], options: SubgraphOptions & { patternNames?: string[] } = {}): Verdict<ExclusionCertificate> {
+  const induced = options.induced ?? false, budget = options.budget ?? new Budget();
+  const names = patterns.map((_, i) => options.patternNames?.[i] ?? `H${i + 1}`);
+  const statement = `${options.names?.host ?? "G"} contains none of ${names.join(", ")}${induced ? " as induced subgraphs" : ""}`;
+  return withinBudget<ExclusionCertificate>(statement, "subgraph exclusion", budget, () => {
+    const absent: AbsenceCertificate[] = [], reasons: string[] = [];
+    let nodes = 0;
+    for (let i = 0; i < patterns.length; i++) {
+      const d = decideContainment(patterns[i], g, induced, budget);
+      if ("embedding" in d)
+        return { status: "refuted", statement, method: d.method, reason: `${names[i]} ⊆ G: the embedding ${JSON.stringify(d.embedding.length <= 20 ? d.embedding : d.embedding.slice(0, 20))}${d.embedding.length > 20 ? "…" : ""} re-checks`, certificate: { kind: "exclusion", found: { index: i, embedding: d.embedding } } };
+      absent.push({ kind: "absence", argument: d.argument });
+      if (d.argument.kind === "search") nodes += d.argument.nodesVisited;
+      reasons.push(`${names[i]}: ${describeAbsence(d.argument, names[i])}`);
+    }
+    return {
+      status: "verified", statement, method: nodes > 0 ? `necessary conditions, then exhaustive search (${nodes} nodes)` : "necessary conditions (no search needed)",
+      reason: reasons.join("; "), certificate: { kind: "exclusion", absent }, notes: [MONOTONICITY_NOTE],
+    };
+  });
+}
+
+export function recheckExclusion(g: Graph, patterns: readonly Graph[], certificate: unknown, induced = false, budget = new Budget()): Verdict<undefined> {
+  const found = typeof certificate === "object" && certificate !== null && (certificate as { found?: unknown }).found !== undefined;
+  return recheck(found ? "G contains one of the patterns" : "G contains none of the patterns", "certificate re-check", budget, () => {
+    const c = expectRecord(certificate, "certificate");
+    if (c.kind !== "exclusion") reject(`expected kind "exclusion", got ${String(c.kind)}`);
+    if (found) {
+      const f = expectRecord(c.found, "found");
+      const index = expectIntArray([f.index], "found.index", 0, patterns.length - 1)[0];
+      const phi = expectIntArray(f.embedding, "found.embedding", 0, Math.max(g.n - 1, 0), patterns[index].n);
+      const problem = checkEmbedding(patterns[index], g, phi, induced, budget);
+      if (problem) reject(problem);
+      return `pattern ${index + 1} embeds`;
+    }
+    if (!Array.isArray(c.absent) || c.absent.length !== patterns.length) reject(`absent must list one argument per pattern (${patterns.length})`);
+    (c.absent as unknown[]).forEach((entry, i) => {
+      try {
+        confirmAbsence(patterns[i], g, induced, expectRecord(entry, `absent[${i}]`).argument, budget);
+      } catch (e) {
+        if (e instanceof CertificateRejected) reject(`pattern ${i + 1}: ${e.message}`);
+        throw e;
+      }
+    });
+    return `each of the ${patterns.length} absence arguments re-derives`;
+  });
+}
