@@ -11,8 +11,16 @@ import { Claim } from "./claim";
 import { Review } from "./review";
 import { Comment } from "./comment";
 import { AuditEvent } from "./audit-event";
+import { OutgoingMail } from "./outgoing-mail";
+import { Invitation } from "./invitation";
+import { InvitationCase } from "./invitation-case";
+import { ReviewerScope } from "./reviewer-scope";
+import { DisputeTransition } from "./dispute-transition";
+import { Notification } from "./notification";
+import { NotificationPreference } from "./notification-preference";
 
-const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent };
+const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -34,6 +42,9 @@ function initModels() {
   Review.belongsTo(User, { as: "reviewer", foreignKey: "reviewerId" });
   Step.hasMany(Comment, { as: "comments", foreignKey: "stepId" });
   Comment.belongsTo(User, { as: "author", foreignKey: "authorId" });
+  Invitation.belongsTo(OutgoingMail, { as: "mail", foreignKey: "mailId" });
+  Invitation.hasMany(InvitationCase, { as: "cases", foreignKey: "invitationId" });
+  DisputeTransition.belongsTo(User, { as: "actor", foreignKey: "actorId" });
 }
 
 /** Returns the models, initialising them on first use (not at import: `next build` imports without a database). */
@@ -43,4 +54,5 @@ export function models() {
   return all;
 }
 
-export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent };
+export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference };
