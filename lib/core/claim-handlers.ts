@@ -3,6 +3,7 @@
  */
 import type { Claim } from "./claim-schema";
 import type { ClaimHandler } from "./claim-support";
+import { CHARPOLY_HANDLER, SPECTRAL_RADIUS_HANDLER } from "./claim-spectral";
 import { STRUCTURE_HANDLER } from "./claim-structure";
 
 /** A kind whose exact check is not part of this build: always undecided, never a guess. */
@@ -17,12 +18,12 @@ function unavailable(kind: string): ClaimHandler {
 }
 
 export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kind: K }>> } = {
-  "spectral-radius-bound": unavailable("spectral-radius-bound"),
+  "spectral-radius-bound": SPECTRAL_RADIUS_HANDLER,
   "vector-certificate": unavailable("vector-certificate"),
   subgraph: unavailable("subgraph"),
   exclusion: unavailable("exclusion"),
   identification: unavailable("identification"),
-  "characteristic-polynomial": unavailable("characteristic-polynomial"),
+  "characteristic-polynomial": CHARPOLY_HANDLER,
   eigenvalues: unavailable("eigenvalues"),
   structure: STRUCTURE_HANDLER,
 };

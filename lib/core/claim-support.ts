@@ -29,6 +29,18 @@ export interface ClaimHandler<K extends Claim = Claim> {
   recheck(claim: K, inputs: ParsedInputs, outcome: "verified" | "refuted", evidence: unknown, budget: Budget): Verdict;
 }
 
+/**
+ * A claim field that cannot be read, found while checking (a bound that does not parse, an embedding
+ * of the wrong length). `field` is relative to the claim, e.g. "bound" or "vector[2]"; the claim layer
+ * prefixes the claim's own JSON path.
+ */
+export class ClaimInputError extends Error {
+  constructor(readonly field: string, message: string) {
+    super(message);
+    this.name = "ClaimInputError";
+  }
+}
+
 /** Size limits per kind (vertices, edges), chosen so every accepted input finishes within the default budget. */
 export const CLAIM_LIMITS = {
   /** Linear-time structure checks. */

@@ -5,6 +5,7 @@ import { ClaimError, validateClaim, type Claim } from "./claim-schema";
 import { readClaimsDocument } from "./claim-file";
 import { CHECKER_VERSION, claimDigest, recheckClaim, verifyClaim, type ClaimCertificate } from "./claims";
 import { Budget } from "./verdict";
+import { tamper } from "./certificate-tamper";
 
 const FIXTURES = join(import.meta.dirname, "../../tests/fixtures/claims");
 
@@ -13,21 +14,6 @@ function claim(json: Record<string, unknown>): Claim {
 }
 
 const named = (text: string) => ({ format: "named", text });
-
-/** Changes one entry of a JSON value: the first number found (depth first) is increased by one. */
-function tamper(value: unknown): unknown {
-  let done = false;
-  const walk = (v: unknown): unknown => {
-    if (done) return v;
-    if (typeof v === "number") { done = true; return v + 1; }
-    if (Array.isArray(v)) return v.map(walk);
-    if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, walk(x)]));
-    return v;
-  };
-  const out = walk(value);
-  if (!done) throw new Error("nothing to tamper with");
-  return out;
-}
 
 describe("structure claims", () => {
   it("E8 is the star-like tree T(1,2,4)", () => {
@@ -114,6 +100,44 @@ describe("claim results and certificates", () => {
   });
 });
 
+describe("spectral claims", () => {
+  it("decides ρ against 2 for Dynkin and affine diagrams", () => {
+    // J. H. Smith 1970 (see Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): ρ(E8) < 2, ρ(Ẽ8) = 2,
+    // and T(1,2,6) properly contains Ẽ8, so ρ > 2.
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("E(8)"), op: "<", bound: "2" })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("E~(8)"), op: "=", bound: "2" })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("E~(8)"), op: "<", bound: "2" })).verdict.status).toBe("refuted");
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("starlike(1,2,6)"), op: ">", bound: "2" })).verdict.status).toBe("verified");
+  });
+
+  it("decides irrational bounds: ρ(P5) = 2cos(π/6) = √3", () => {
+    // Brouwer & Haemers §1.4.4: the eigenvalues of P_n are 2cos(πj/(n+1)), j = 1..n.
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(5)"), op: "=", bound: "sqrt(3)" })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(5)"), op: "<", bound: "2cos(pi/6)" })).verdict.status).toBe("refuted");
+  });
+
+  it("a bound that does not parse names the bound field", () => {
+    const bad = claim({ kind: "spectral-radius-bound", graph: named("path(5)"), op: "<", bound: "2 +" });
+    expect(() => verifyClaim(bad)).toThrow(/^\$\.bound: /);
+  });
+
+  it("characteristic polynomials: stated coefficients are checked, the first wrong one is named", () => {
+    // Cvetković, Doob & Sachs, Spectra of Graphs, Table of small graphs / the path recurrence
+    // P_n = x P_{n-1} − P_{n-2}: χ(P4) = x^4 − 3x^2 + 1.
+    expect(verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("path(4)"), coefficients: [1, 0, -3, 0, 1] })).verdict.status).toBe("verified");
+    // K3 has eigenvalues 2, −1, −1 (Brouwer & Haemers §1.4.1), so χ = (x−2)(x+1)^2 = x^3 − 3x − 2.
+    const k3 = verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("complete(3)"), coefficients: [1, 0, -3, -1] }));
+    expect(k3.verdict.status).toBe("refuted");
+    expect(k3.verdict.reason).toContain("the coefficient of x^0 is -2, not -1");
+  });
+
+  it("size limits give undecided with the reason", () => {
+    const r = verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("path(201)") }));
+    expect(r.verdict.status).toBe("undecided");
+    expect(r.verdict.reason).toContain("201 vertices; the limit is 200");
+  });
+});
+
 describe("fixtures", () => {
   // Every example claim file is well-formed and every claim in it is decided (the expected verdicts
   // are checked one by one in cli.test.ts).
@@ -122,7 +146,13 @@ describe("fixtures", () => {
       const entries = readClaimsDocument(JSON.parse(readFileSync(join(FIXTURES, file), "utf8")));
       for (const e of entries) {
         expect("claim" in e).toBe(true);
-        if ("claim" in e) expect(verifyClaim(e.claim).verdict.status).not.toBe("undecided");
+        if (!("claim" in e)) continue;
+        const r = verifyClaim(e.claim);
+        expect(r.verdict.status).not.toBe("undecided");
+        // Every certificate a verification emits re-checks; with one entry changed it is rejected.
+        const cert = r.verdict.certificate as ClaimCertificate;
+        expect(recheckClaim(e.claim, cert).status, `${e.path} certificate`).toBe("verified");
+        expect(recheckClaim(e.claim, { ...cert, evidence: tamper(cert.evidence) }).status, `${e.path} tampered`).toBe("refuted");
       }
     });
   }

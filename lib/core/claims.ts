@@ -16,9 +16,9 @@ import { sha256Hex } from "./digest";
 import { GraphError, type Graph } from "./graph";
 import { parseGraph } from "./parse";
 import { NumberFormatError } from "./rational";
-import { Budget, DEFAULT_STEP_LIMIT, type Verdict } from "./verdict";
+import { Budget, BudgetExceeded, DEFAULT_STEP_LIMIT, type Verdict } from "./verdict";
 import { HANDLERS } from "./claim-handlers";
-import type { ClaimHandler, ParsedInputs } from "./claim-support";
+import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
 export const CHECKER_VERSION = "cairn-check/0.1.0";
@@ -67,7 +67,7 @@ export function claimDigest(claim: Claim): string {
 }
 
 /** Parses one graph of a claim; a parse error becomes a ClaimError naming the field's JSON path. */
-function readGraph(input: GraphInput, path: string): Graph {
+export function readClaimGraph(input: GraphInput, path: string): Graph {
   try {
     return parseGraph(input.text, input.format);
   } catch (e) {
@@ -79,11 +79,22 @@ function readGraph(input: GraphInput, path: string): Graph {
 function parseInputs(claim: Claim, path: string): ParsedInputs {
   switch (claim.kind) {
     case "subgraph":
-      return { pattern: readGraph(claim.pattern, `${path}.pattern`), host: readGraph(claim.host, `${path}.host`) };
+      return { pattern: readClaimGraph(claim.pattern, `${path}.pattern`), host: readClaimGraph(claim.host, `${path}.host`) };
     case "exclusion":
-      return { host: readGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readGraph(p, `${path}.patterns[${i}]`)) };
+      return { host: readClaimGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readClaimGraph(p, `${path}.patterns[${i}]`)) };
     default:
-      return { graph: readGraph(claim.graph, `${path}.graph`) };
+      return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
+  }
+}
+
+/** Runs a check; an exhausted budget anywhere inside becomes an undecided verdict. */
+function budgeted(statement: string, budget: Budget, run: () => Verdict): Verdict {
+  try {
+    return run();
+  } catch (e) {
+    if (e instanceof BudgetExceeded)
+      return { status: "undecided", statement, method: "step budget", reason: `budget exceeded: ${e.message}; retry with a larger budget`, steps: budget.used };
+    throw e;
   }
 }
 
@@ -96,6 +107,7 @@ function guarded<T>(path: string, run: () => T): T {
   try {
     return run();
   } catch (e) {
+    if (e instanceof ClaimInputError) throw new ClaimError(`${path}.${e.field}`, e.message);
     if (e instanceof GraphError || e instanceof NumberFormatError) throw new ClaimError(path, e.message);
     throw e;
   }
@@ -117,7 +129,7 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   const tooLarge = handler.limit(claim, inputs);
   if (tooLarge)
     return { ...base, verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}` } };
-  const found = guarded(path, () => handler.verify(claim, inputs, budget));
+  const found = guarded(path, () => budgeted(statement, budget, () => handler.verify(claim, inputs, budget)));
   const verdict: Verdict<ClaimCertificate> = {
     ...found,
     statement,
@@ -147,7 +159,8 @@ function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown,
   if (c.kind !== claim.kind) return rejected(full, `certificate.kind is ${JSON.stringify(c.kind)}, the claim is "${claim.kind}"`);
   const tooLarge = handler.limit(claim, inputs);
   if (tooLarge) return { status: "undecided", statement: full, method: "size limits", reason: `input over the size limit: ${tooLarge}` };
-  const v = handler.recheck(claim, inputs, c.outcome, c.evidence, budget);
+  const outcome = c.outcome;
+  const v = budgeted(full, budget, () => handler.recheck(claim, inputs, outcome, c.evidence, budget));
   return { ...v, statement: full };
 }
 

@@ -1,0 +1,102 @@
+/**
+ * Spectral claim kinds: "ρ(G) op b" (exact inertia, inertia.ts) and the characteristic polynomial
+ * (charpoly.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
+ * polynomial is read; the core's Poly type stores x^0 first.
+ */
+import type { CharacteristicPolynomialClaim, SpectralRadiusBoundClaim } from "./claim-schema";
+import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
+import { parseBound, type Bound } from "./bound";
+import { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
+import { recheckSpectralRadiusBound, spectralRadiusBound } from "./inertia";
+import { NumberFormatError } from "./rational";
+import { polyToString, type Poly } from "./sturm";
+import { isForest } from "./tree-inertia";
+import type { Graph } from "./graph";
+import type { Budget, Verdict } from "./verdict";
+
+const SYMBOL = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" } as const;
+
+function boundOf(c: SpectralRadiusBoundClaim): Bound {
+  try {
+    return parseBound(c.bound);
+  } catch (e) {
+    if (e instanceof NumberFormatError) throw new ClaimInputError("bound", e.message);
+    throw e;
+  }
+}
+
+export const SPECTRAL_RADIUS_HANDLER: ClaimHandler<SpectralRadiusBoundClaim> = {
+  statement: (c) => `ρ(G) ${SYMBOL[c.op]} ${boundOf(c).text}`,
+  limit: (_c, inputs) => {
+    const g = graphOf(inputs);
+    // Forests go through the linear Jacobs–Trevisan pass; graphs with cycles through sparse elimination, which can fill in.
+    return isForest(g)
+      ? overLimit(g, "the forest", CLAIM_LIMITS.inertiaForestVertices)
+      : overLimit(g, "the graph (with cycles)", CLAIM_LIMITS.inertiaGraphEdges);
+  },
+  verify: (c, inputs, budget) => spectralRadiusBound(graphOf(inputs), c.op, boundOf(c), budget),
+  recheck: (c, inputs, outcome, evidence, budget) => recheckSpectralRadiusBound(graphOf(inputs), c.op, boundOf(c), outcome, evidence, budget),
+};
+
+// ---------------------------------------------------------------- characteristic polynomial
+
+/** Highest degree first, as decimal strings. */
+function coefficientsOf(p: Poly): string[] {
+  return [...p].reverse().map(String);
+}
+
+function polyFromCoefficients(coefficients: readonly string[]): Poly {
+  return coefficients.map((s) => BigInt(s)).reverse();
+}
+
+/** Above this size the re-check uses the multi-modular algorithm again instead of Berkowitz's (quartic) one. */
+const BERKOWITZ_RECHECK_LIMIT = 100;
+
+function recomputed(g: Graph, budget: Budget): { poly: Poly; method: string } {
+  return g.n <= BERKOWITZ_RECHECK_LIMIT
+    ? { poly: charpolyBerkowitz(g, budget), method: "independent recomputation (Berkowitz's division-free algorithm, 1984)" }
+    : { poly: characteristicPolynomial(g, budget), method: "recomputation (multi-modular with a proven coefficient bound)" };
+}
+
+function sameCoefficients(a: readonly string[], b: readonly string[]): boolean {
+  return a.length === b.length && a.every((x, i) => x === b[i]);
+}
+
+function firstDifference(claimed: readonly string[], actual: readonly string[]): string {
+  if (claimed.length !== actual.length) return `the claim lists ${claimed.length} coefficients; χ_G has degree ${actual.length - 1}, so ${actual.length}`;
+  const i = claimed.findIndex((x, k) => x !== actual[k]);
+  const d = actual.length - 1 - i;
+  return `the coefficient of x^${d} is ${actual[i]}, not ${claimed[i]}`;
+}
+
+function charpolyStatement(c: CharacteristicPolynomialClaim): string {
+  return c.coefficients ? `χ_G(x) = ${polyToString(polyFromCoefficients(c.coefficients))}` : "χ_G(x) = det(xI − A) (computed)";
+}
+
+function verifyCharpoly(c: CharacteristicPolynomialClaim, g: Graph, budget: Budget): Verdict {
+  const statement = charpolyStatement(c), method = "multi-modular determinant with a proven coefficient bound (Chinese remaindering)";
+  const p = characteristicPolynomial(g, budget);
+  const actual = coefficientsOf(p);
+  const certificate = { coefficients: actual };
+  if (!c.coefficients || sameCoefficients(c.coefficients, actual))
+    return { status: "verified", statement, method, reason: `det(xI − A) = ${polyToString(p)}, computed exactly over the integers`, certificate };
+  return { status: "refuted", statement, method, reason: `det(xI − A) = ${polyToString(p)}: ${firstDifference(c.coefficients, actual)}`, certificate };
+}
+
+function recheckCharpoly(c: CharacteristicPolynomialClaim, g: Graph, outcome: "verified" | "refuted", evidence: unknown, budget: Budget): Verdict {
+  const statement = charpolyStatement(c);
+  const listed = typeof evidence === "object" && evidence !== null ? (evidence as { coefficients?: unknown }).coefficients : undefined;
+  const { poly, method } = recomputed(g, budget);
+  const actual = coefficientsOf(poly);
+  if (!Array.isArray(listed) || !listed.every((x) => typeof x === "string") || !sameCoefficients(listed as string[], actual))
+    return { status: "refuted", statement, method, reason: "certificate rejected: its coefficients are not the characteristic polynomial of G" };
+  const truth = !c.coefficients || sameCoefficients(c.coefficients, actual);
+  return withOutcome({ status: "verified", statement, method, reason: `the certificate lists χ_G = ${polyToString(poly)}, recomputed` }, truth, outcome, `χ_G = ${polyToString(poly)}`);
+}
+
+export const CHARPOLY_HANDLER: ClaimHandler<CharacteristicPolynomialClaim> = {
+  statement: (c) => charpolyStatement(c),
+  limit: (_c, inputs) => overLimit(graphOf(inputs), "the graph", CLAIM_LIMITS.charpolyVertices, CLAIM_LIMITS.charpolyVertices ** 2),
+  verify: (c, inputs, budget) => verifyCharpoly(c, graphOf(inputs), budget),
+  recheck: (c, inputs, outcome, evidence, budget) => recheckCharpoly(c, graphOf(inputs), outcome, evidence, budget),
+};
