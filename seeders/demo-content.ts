@@ -33,7 +33,10 @@ Recall that $\sqrt{2+\sqrt5} \approx 2.058$ is the limit of $\rho\big(T(2,2,k)\b
       steps: [
         String.raw`If $\deg v \ge 5$ then $T \supseteq K_{1,5}$, so $\rho(T) \ge \sqrt5 > \sqrt{2+\sqrt5}$ by monotonicity of $\rho$ under subgraphs (Perron–Frobenius).`,
         String.raw`If $\deg v = 4$ then $T \supseteq K_{1,4} = \tilde D_4$ with $\rho = 2$. Since $\rho(T) > 2$, $T \ne K_{1,4}$, so $T$ contains the tree $K_{1,4}$ with one leg extended, whose spectral radius already exceeds $\sqrt{2+\sqrt5}$:
-$$\rho\big(T(1,1,1,2)\big) = \sqrt{\tfrac{5+\sqrt{13}}{2}} \approx 2.074.$$`,
+
+$$
+\rho\big(T(1,1,1,2)\big) = \sqrt{\tfrac{5+\sqrt{13}}{2}} \approx 2.074.
+$$`,
       ],
     },
     {
