@@ -16,7 +16,12 @@ export const smtpUrl = () => process.env.SMTP_URL ?? `smtp://127.0.0.1:${process
 
 /** Sends one message; throws when the server cannot be reached or refuses it. */
 export async function sendMail(message: MailMessage): Promise<void> {
-  const transport = nodemailer.createTransport(smtpUrl(), {
+  const url = new URL(smtpUrl());
+  const transport = nodemailer.createTransport({
+    host: url.hostname,
+    port: Number(url.port || (url.protocol === "smtps:" ? 465 : 25)),
+    secure: url.protocol === "smtps:",
+    auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
     // Fail fast: the message stays queued and is retried, so a slow server must not hold up a request.
     connectionTimeout: 4_000,
     greetingTimeout: 4_000,
