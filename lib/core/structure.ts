@@ -37,15 +37,17 @@ export interface Sweep {
   order: Int32Array;
 }
 
-export function sweep(g: Graph, budget: Budget): Sweep {
+/** Breadth-first sweep of every component; the first one is started at `first`. */
+export function sweep(g: Graph, budget: Budget, first = 0): Sweep {
   const a = adjacency(g);
   const parent = new Int32Array(g.n).fill(-1);
   const depth = new Int32Array(g.n).fill(-1);
   const component = new Int32Array(g.n).fill(-1);
   const order = new Int32Array(g.n);
   let tail = 0, componentCount = 0;
-  for (let s = 0; s < g.n; s++) {
-    if (depth[s] >= 0) continue;
+  for (let i = -1; i < g.n; i++) {
+    const s = i < 0 ? first : i;
+    if (s >= g.n || depth[s] >= 0) continue;
     depth[s] = 0; component[s] = componentCount;
     order[tail++] = s;
     for (let head = tail - 1; head < tail; head++) {
@@ -61,8 +63,8 @@ export function sweep(g: Graph, budget: Budget): Sweep {
   return { parent, depth, component, componentCount, order };
 }
 
-/** The cycle closed by a non-tree edge (x, y) of a BFS forest: x → … → lca ← … ← y. */
-function cycleThrough(s: Sweep, x: number, y: number): number[] {
+/** The path x → … → lca ← … ← y in a BFS forest (x, y in one component); with a non-tree edge (x, y) it is a cycle. */
+export function treePath(s: Sweep, x: number, y: number): number[] {
   const left: number[] = [], right: number[] = [];
   let p = x, q = y;
   while (s.depth[p] > s.depth[q]) { left.push(p); p = s.parent[p]; }
@@ -80,7 +82,7 @@ export function findCycle(g: Graph, s: Sweep, budget: Budget): number[] | null {
   }
   for (const e of g.edges) {
     budget.tick();
-    if (s.parent[e.v] !== e.u && s.parent[e.u] !== e.v) return cycleThrough(s, e.u, e.v);
+    if (s.parent[e.v] !== e.u && s.parent[e.u] !== e.v) return treePath(s, e.u, e.v);
   }
   return null;
 }
@@ -113,7 +115,7 @@ export function isBipartite(g: Graph, budget = new Budget()): Verdict<BipartiteC
       budget.tick();
       if (e.u === e.v) return { status: "refuted", statement, method, reason: `the loop at ${e.u} is an odd cycle`, certificate: { kind: "cycle", cycle: [e.u] } };
       if ((s.depth[e.u] & 1) === (s.depth[e.v] & 1)) {
-        const cycle = cycleThrough(s, e.u, e.v);
+        const cycle = treePath(s, e.u, e.v);
         return { status: "refuted", statement, method, reason: `the edge ${e.u}–${e.v} joins two vertices of equal depth parity, closing the odd cycle ${cycle.join("–")}`, certificate: { kind: "cycle", cycle } };
       }
     }

@@ -1,0 +1,78 @@
+/**
+ * The families of connected graphs with spectral radius ρ ≤ 2 that identify.ts recognises.
+ *
+ * Without loops this is Smith's classification (J. H. Smith, "Some properties of the spectrum of a
+ * graph", 1970; Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): ρ < 2 exactly for A_n, D_n, E6,
+ * E7, E8, and ρ = 2 exactly for Ã_n, D̃_n, Ẽ6, Ẽ7, Ẽ8. With loops of weight 1 (A[v][v] = 1, the
+ * convention of constructors.ts) the norm ≤ 2 classification adds, from memory of F. M. Goodman,
+ * P. de la Harpe, V. F. R. Jones, Coxeter Graphs and Towers of Algebras, 1989, §1.4: the path with a
+ * loop at one end (ρ < 2, the "tadpole" T_n), and with ρ = 2 the path with a loop at each end and the
+ * path with a loop at one end and a fork at the other. A positive eigenvector checks ρ = 2 for the
+ * last two directly (all ones; resp. 1 on the two fork leaves and 2 elsewhere). Ã_0 is one vertex
+ * with a loop of weight 2 (ρ = 2).
+ */
+
+import type { Graph } from "./graph";
+import { affineA, affineD, affineE, dynkinA, dynkinD, dynkinE, forkLoop, loopPath, loopPath2 } from "./constructors";
+
+export type SmithFamily = "A" | "D" | "E" | "A~" | "D~" | "E~" | "loop_path" | "loop_path2" | "fork_loop";
+
+interface FamilyInfo {
+  /** Smallest parameter, and the largest (E families) */
+  min: number;
+  max?: number;
+  /** ρ < 2 ("finite") or ρ = 2 ("affine"). */
+  radius: "< 2" | "= 2";
+  build: (p: number) => Graph;
+  display: (p: number) => string;
+}
+
+export const SMITH_FAMILIES: Record<SmithFamily, FamilyInfo> = {
+  A: { min: 1, radius: "< 2", build: dynkinA, display: (p) => `A${p}` },
+  D: { min: 4, radius: "< 2", build: dynkinD, display: (p) => `D${p}` },
+  E: { min: 6, max: 8, radius: "< 2", build: dynkinE, display: (p) => `E${p}` },
+  loop_path: { min: 1, radius: "< 2", build: loopPath, display: (p) => `loop_path(${p}) (tadpole T${p})` },
+  "A~": { min: 0, radius: "= 2", build: affineA, display: (p) => `Ã${p}` },
+  "D~": { min: 4, radius: "= 2", build: affineD, display: (p) => `D̃${p}` },
+  "E~": { min: 6, max: 8, radius: "= 2", build: affineE, display: (p) => `Ẽ${p}` },
+  loop_path2: { min: 2, radius: "= 2", build: loopPath2, display: (p) => `loop_path2(${p})` },
+  fork_loop: { min: 3, radius: "= 2", build: forkLoop, display: (p) => `fork_loop(${p})` },
+};
+
+export function isSmithFamily(name: unknown): name is SmithFamily {
+  return typeof name === "string" && Object.prototype.hasOwnProperty.call(SMITH_FAMILIES, name);
+}
+
+export function validParameter(family: SmithFamily, p: number): boolean {
+  const info = SMITH_FAMILIES[family];
+  return Number.isSafeInteger(p) && p >= info.min && (info.max === undefined || p <= info.max) && p <= 10_000_000;
+}
+
+/** Vertex count of a family member: the affine Ã, D̃, Ẽ have p + 1 vertices, the others p. */
+export function familyOrder(family: SmithFamily, p: number): number {
+  return family === "A~" || family === "D~" || family === "E~" ? p + 1 : p;
+}
+
+export const familyDisplay = (family: SmithFamily, p: number): string => SMITH_FAMILIES[family].display(p);
+
+/**
+ * Reads a family name as a person writes it: "E7", "E_7", "E(7)", "E~7", "E~(7)", "Ẽ7", "affine E7",
+ * "D̃5", "A~0", "loop_path(3)", "tadpole 3". Returns null when the text is not a family name.
+ */
+export function parseFamilyName(text: string): { family: SmithFamily; parameter: number } | null {
+  let t = text.normalize("NFD").trim().replace(/\u0303/g, "~");
+  let affine = false;
+  const prefix = /^affine\s+/i.exec(t);
+  if (prefix) { affine = true; t = t.slice(prefix[0].length); }
+  const loop = /^(loop_path2|loop_path|fork_loop|tadpole)\s*[_(]?\s*(\d+)\s*\)?$/.exec(t);
+  if (loop && !affine) {
+    const family = (loop[1] === "tadpole" ? "loop_path" : loop[1]) as SmithFamily;
+    const parameter = Number(loop[2]);
+    return validParameter(family, parameter) ? { family, parameter } : null;
+  }
+  const m = /^([ADE])\s*(~?)\s*[_(]?\s*(\d+)\s*\)?$/.exec(t);
+  if (!m) return null;
+  const family = (m[1] + (affine || m[2] ? "~" : "")) as SmithFamily;
+  const parameter = Number(m[3]);
+  return validParameter(family, parameter) ? { family, parameter } : null;
+}
