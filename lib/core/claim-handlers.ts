@@ -3,7 +3,7 @@
  */
 import type { Claim } from "./claim-schema";
 import type { ClaimHandler } from "./claim-support";
-import { CHARPOLY_HANDLER, SPECTRAL_RADIUS_HANDLER } from "./claim-spectral";
+import { CHARPOLY_HANDLER, EIGENVALUES_HANDLER, SPECTRAL_RADIUS_HANDLER } from "./claim-spectral";
 import { STRUCTURE_HANDLER } from "./claim-structure";
 
 /** A kind whose exact check is not part of this build: always undecided, never a guess. */
@@ -24,6 +24,6 @@ export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kin
   exclusion: unavailable("exclusion"),
   identification: unavailable("identification"),
   "characteristic-polynomial": CHARPOLY_HANDLER,
-  eigenvalues: unavailable("eigenvalues"),
+  eigenvalues: EIGENVALUES_HANDLER,
   structure: STRUCTURE_HANDLER,
 };

@@ -1,13 +1,14 @@
 /**
- * Spectral claim kinds: "ρ(G) op b" (exact inertia, inertia.ts) and the characteristic polynomial
- * (charpoly.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
+ * Spectral claim kinds: "ρ(G) op b" (exact inertia, inertia.ts), the characteristic polynomial
+ * (charpoly.ts) and eigenvalue multisets 2cos(πm/h) (spectral.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
  * polynomial is read; the core's Poly type stores x^0 first.
  */
-import type { CharacteristicPolynomialClaim, SpectralRadiusBoundClaim } from "./claim-schema";
+import type { CharacteristicPolynomialClaim, EigenvaluesClaim, SpectralRadiusBoundClaim } from "./claim-schema";
 import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
 import { parseBound, type Bound } from "./bound";
 import { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
 import { recheckSpectralRadiusBound, spectralRadiusBound } from "./inertia";
+import { eigenvalueClaim, recheckEigenvalueClaim } from "./spectral";
 import { NumberFormatError } from "./rational";
 import { polyToString, type Poly } from "./sturm";
 import { isForest } from "./tree-inertia";
@@ -99,4 +100,17 @@ export const CHARPOLY_HANDLER: ClaimHandler<CharacteristicPolynomialClaim> = {
   limit: (_c, inputs) => overLimit(graphOf(inputs), "the graph", CLAIM_LIMITS.charpolyVertices, CLAIM_LIMITS.charpolyVertices ** 2),
   verify: (c, inputs, budget) => verifyCharpoly(c, graphOf(inputs), budget),
   recheck: (c, inputs, outcome, evidence, budget) => recheckCharpoly(c, graphOf(inputs), outcome, evidence, budget),
+};
+
+// ---------------------------------------------------------------- eigenvalues 2cos(πm/h)
+
+export const EIGENVALUES_HANDLER: ClaimHandler<EigenvaluesClaim> = {
+  statement: (c) => `spec(G) = { 2cos(πm/${c.h}) : m ∈ {${c.multiset.join(", ")}} }`,
+  limit: (c, inputs) => {
+    // The product ∏(x − 2cos(πm/h)) is computed in Z[ζ]/Φ_2h: quadratic in h per factor.
+    if (c.h > CLAIM_LIMITS.coxeterNumber) return `h = ${c.h}; the limit is ${CLAIM_LIMITS.coxeterNumber}`;
+    return overLimit(graphOf(inputs), "the graph", CLAIM_LIMITS.charpolyVertices, CLAIM_LIMITS.charpolyVertices ** 2);
+  },
+  verify: (c, inputs, budget) => eigenvalueClaim(graphOf(inputs), c.h, c.multiset, budget),
+  recheck: (c, inputs, outcome, evidence, budget) => recheckEigenvalueClaim(graphOf(inputs), c.h, c.multiset, outcome, evidence, budget),
 };

@@ -51,6 +51,8 @@ export const CLAIM_LIMITS = {
   vectorEdges: 2_000_000,
   /** Characteristic polynomials and eigenvalue multisets: cubic in n with big coefficients. */
   charpolyVertices: 200,
+  /** Largest h in an eigenvalue claim 2cos(πm/h). */
+  coxeterNumber: 2_000,
   /** Subgraph search: patterns are small, hosts may be large. */
   patternVertices: 200,
   hostEdges: 2_000_000,

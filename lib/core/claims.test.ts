@@ -131,6 +131,16 @@ describe("spectral claims", () => {
     expect(k3.verdict.reason).toContain("the coefficient of x^0 is -2, not -1");
   });
 
+  it("eigenvalue multisets 2cos(πm/h) over the exponents", () => {
+    // Bourbaki, Lie Groups and Lie Algebras Ch. 4–6, Plate VI: E7 has Coxeter number 18 and exponents 1, 5, 7, 9, 11, 13, 17;
+    // the eigenvalues of a Dynkin diagram's adjacency matrix are 2cos(πm/h) over the exponents m (common practice).
+    const e7 = (h: number) => claim({ kind: "eigenvalues", graph: named("E(7)"), h, multiset: [1, 5, 7, 9, 11, 13, 17] });
+    expect(verifyClaim(e7(18)).verdict.status).toBe("verified");
+    expect(verifyClaim(e7(20)).verdict.status).toBe("refuted");
+    // Plate IV: D4 has h = 6 and exponents 1, 3, 3, 5 (3 twice); dropping the repeat is wrong.
+    expect(verifyClaim(claim({ kind: "eigenvalues", graph: named("D(4)"), h: 6, multiset: [1, 3, 5] })).verdict.status).toBe("refuted");
+  });
+
   it("size limits give undecided with the reason", () => {
     const r = verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("path(201)") }));
     expect(r.verdict.status).toBe("undecided");
