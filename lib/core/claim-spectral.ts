@@ -1,14 +1,15 @@
 /**
  * Spectral claim kinds: "ρ(G) op b" (exact inertia, inertia.ts), the characteristic polynomial
- * (charpoly.ts) and eigenvalue multisets 2cos(πm/h) (spectral.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
+ * (charpoly.ts), eigenvalue multisets 2cos(πm/h) (spectral.ts) and Collatz–Wielandt vectors (vector.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
  * polynomial is read; the core's Poly type stores x^0 first.
  */
-import type { CharacteristicPolynomialClaim, EigenvaluesClaim, SpectralRadiusBoundClaim } from "./claim-schema";
+import type { CharacteristicPolynomialClaim, EigenvaluesClaim, SpectralRadiusBoundClaim, VectorCertificateClaim } from "./claim-schema";
 import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
 import { parseBound, type Bound } from "./bound";
 import { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
 import { recheckSpectralRadiusBound, spectralRadiusBound } from "./inertia";
 import { eigenvalueClaim, recheckEigenvalueClaim } from "./spectral";
+import { checkVectorCertificate } from "./vector";
 import { NumberFormatError } from "./rational";
 import { polyToString, type Poly } from "./sturm";
 import { isForest } from "./tree-inertia";
@@ -17,7 +18,7 @@ import type { Budget, Verdict } from "./verdict";
 
 const SYMBOL = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" } as const;
 
-function boundOf(c: SpectralRadiusBoundClaim): Bound {
+function boundOf(c: { readonly bound: string }): Bound {
   try {
     return parseBound(c.bound);
   } catch (e) {
@@ -113,4 +114,33 @@ export const EIGENVALUES_HANDLER: ClaimHandler<EigenvaluesClaim> = {
   },
   verify: (c, inputs, budget) => eigenvalueClaim(graphOf(inputs), c.h, c.multiset, budget),
   recheck: (c, inputs, outcome, evidence, budget) => recheckEigenvalueClaim(graphOf(inputs), c.h, c.multiset, outcome, evidence, budget),
+};
+
+// ---------------------------------------------------------------- Collatz–Wielandt vectors
+
+function vectorFor(c: VectorCertificateClaim, g: Graph): readonly string[] {
+  if (c.vector.length !== g.n) throw new ClaimInputError("vector", `the vector has ${c.vector.length} entries but G has ${g.n} vertices`);
+  return c.vector;
+}
+
+export const VECTOR_HANDLER: ClaimHandler<VectorCertificateClaim> = {
+  statement: (c) => `A·x ${SYMBOL[c.relation]} ${boundOf(c).text}·x entrywise, x ≥ 0 (Collatz–Wielandt)`,
+  limit: (_c, inputs) => overLimit(graphOf(inputs), "the graph", CLAIM_LIMITS.vectorEdges),
+  verify: (c, inputs, budget) => {
+    const g = graphOf(inputs);
+    return checkVectorCertificate(g, vectorFor(c, g), c.relation, boundOf(c), budget);
+  },
+  // The vector is part of the claim, so the re-check is the same linear check; the evidence must
+  // name the same conclusion (verified) or the same first failing vertex (refuted).
+  recheck: (c, inputs, outcome, evidence, budget) => {
+    const g = graphOf(inputs);
+    const fresh = checkVectorCertificate(g, vectorFor(c, g), c.relation, boundOf(c), budget);
+    const e = typeof evidence === "object" && evidence !== null ? (evidence as Record<string, unknown>) : {};
+    const method = "certificate re-check (Collatz–Wielandt vector check)";
+    if (fresh.status === "verified" && e.conclusion !== fresh.certificate?.conclusion)
+      return { ...fresh, method, status: "refuted", reason: `certificate rejected: the vector establishes ${String(fresh.certificate?.conclusion)}, not ${String(e.conclusion)}` };
+    if (fresh.status === "refuted" && e.failingVertex !== fresh.certificate?.failingVertex)
+      return { ...fresh, method, status: "refuted", reason: `certificate rejected: the first failing vertex is ${String(fresh.certificate?.failingVertex)}, not ${String(e.failingVertex)}` };
+    return withOutcome({ ...fresh, method, status: fresh.status === "undecided" ? "undecided" : "verified" }, fresh.status === "verified", outcome, fresh.reason);
+  },
 };

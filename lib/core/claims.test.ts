@@ -148,6 +148,61 @@ describe("spectral claims", () => {
   });
 });
 
+describe("vector, subgraph, exclusion and identification claims", () => {
+  const affineE8Edges = { format: "edges", text: "0 1\n1 2\n2 3\n3 4\n4 5\n5 6\n6 7\n5 8" };
+
+  it("the marks of the affine E8 diagram are a null vector of 2I − A", () => {
+    // Bourbaki, Plate VII: the highest root of E8 is 2α1+3α2+4α3+6α4+5α5+4α6+3α7+2α8, and the extended
+    // node has mark 1; along the legs of T(1,2,5) from the long end: 1,2,3,4,5, branch 6, then 4,2 and 3.
+    const marks = ["1", "2", "3", "4", "5", "6", "4", "2", "3"];
+    const r = verifyClaim(claim({ kind: "vector-certificate", graph: affineE8Edges, vector: marks, relation: "=", bound: "2" }));
+    expect(r.verdict.status).toBe("verified");
+    expect(r.verdict.notes).toContain("establishes ρ(G) = 2");
+    const wrong = [...marks];
+    wrong[5] = "7";
+    expect(verifyClaim(claim({ kind: "vector-certificate", graph: affineE8Edges, vector: wrong, relation: "=", bound: "2" })).verdict.status).toBe("refuted");
+  });
+
+  it("a vector of the wrong length names the vector field", () => {
+    expect(() => verifyClaim(claim({ kind: "vector-certificate", graph: named("path(3)"), vector: ["1", "1"], relation: "<=", bound: "2" }))).toThrow(/^\$\.vector: /);
+  });
+
+  it("subgraph containment: affine E8 in T(1,2,6), but K_{1,4} not in a path", () => {
+    // T(1,2,6) contains T(1,2,5) = Ẽ8 (Smith 1970; common practice); a path has maximum degree 2.
+    const found = verifyClaim(claim({ kind: "subgraph", pattern: named("E~(8)"), host: named("starlike(1,2,6)") }));
+    expect(found.verdict.status).toBe("verified");
+    expect(found.verdict.notes?.join(" ")).toContain("Perron–Frobenius");
+    expect(verifyClaim(claim({ kind: "subgraph", pattern: named("star(4)"), host: named("path(30)") })).verdict.status).toBe("refuted");
+  });
+
+  it("a stated embedding is checked as stated; induced containment needs equal adjacency", () => {
+    // Common practice: three vertices of a triangle induce a triangle, never a path; in C4, 0–1–2 induces P3.
+    expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("cycle(4)"), embedding: [0, 1, 2] })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("complete(3)"), embedding: [0, 1, 2] })).verdict.status).toBe("refuted");
+    expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("complete(3)") })).verdict.status).toBe("refuted");
+    expect(() => verifyClaim(claim({ kind: "subgraph", pattern: named("path(3)"), host: named("cycle(4)"), embedding: [0, 1] }))).toThrow(/^\$\.embedding: /);
+  });
+
+  it("E8 contains none of the affine diagrams", () => {
+    // ρ(E8) < 2 while every affine diagram has ρ = 2 (Smith 1970; Brouwer & Haemers Thm 3.1.3), so by
+    // Perron–Frobenius monotonicity none of them is a subgraph of E8.
+    const affine = ["star(4)", "D~(5)", "E~(6)", "E~(7)", "E~(8)"].map(named);
+    expect(verifyClaim(claim({ kind: "exclusion", host: named("E(8)"), patterns: affine })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "exclusion", host: named("E~(8)"), patterns: affine })).verdict.status).toBe("refuted");
+  });
+
+  it("identification within Smith's families", () => {
+    // Bourbaki, Plate VII: E8 = T(1,2,4); Plate V (extended E6): Ẽ6 = T(2,2,2); T(1,2,6) ⊋ Ẽ8 has ρ > 2 (Smith 1970).
+    expect(verifyClaim(claim({ kind: "identification", graph: named("starlike(1,2,4)"), family: "E8" })).verdict.status).toBe("verified");
+    expect(verifyClaim(claim({ kind: "identification", graph: named("starlike(1,2,4)"), family: "E7" })).verdict.status).toBe("refuted");
+    const e6t = verifyClaim(claim({ kind: "identification", graph: named("starlike(2,2,2)") }));
+    expect(e6t.verdict.status).toBe("verified");
+    expect(e6t.verdict.reason).toContain("Ẽ6");
+    expect(verifyClaim(claim({ kind: "identification", graph: named("starlike(1,2,6)") })).verdict.status).toBe("refuted");
+    expect(() => verifyClaim(claim({ kind: "identification", graph: named("path(3)"), family: "Q7" }))).toThrow(/^\$\.family: /);
+  });
+});
+
 describe("fixtures", () => {
   // Every example claim file is well-formed and every claim in it is decided (the expected verdicts
   // are checked one by one in cli.test.ts).
