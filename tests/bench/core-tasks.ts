@@ -1,0 +1,108 @@
+/**
+ * The verification-core section of the benchmark: exact verdicts on the shared workloads.
+ * Each task builds its graph in `prepare` (untimed) and times only the check in `run`.
+ */
+import type { BenchSection, BenchTask } from "./run";
+import {
+  extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
+  t12kWorkload, workloadGraph, type Workload,
+} from "./workloads";
+import { validateClaim } from "../../lib/core/claim-schema";
+import { verifyClaim } from "../../lib/core/claims";
+import { characteristicPolynomial } from "../../lib/core/charpoly";
+import type { Graph } from "../../lib/core/graph";
+import { inertia, spectralRadiusBound } from "../../lib/core/inertia";
+import { rat } from "../../lib/core/rational";
+import { findSubgraph } from "../../lib/core/subgraph";
+import { Budget } from "../../lib/core/verdict";
+
+/** A generous budget: the bench measures time, the default budget is the server's business. */
+const BENCH_STEPS = 50_000_000_000;
+
+function graphTask(id: string, w: () => Workload, task: string, quick: boolean, check: (g: Graph) => string, targetMs?: number): BenchTask {
+  return { id, workload: "", task, quick, targetMs, prepare: () => workloadGraph(w()), run: (g) => check(g as Graph) };
+}
+
+function named(t: BenchTask, workload: string): BenchTask {
+  return { ...t, workload };
+}
+
+const rhoBelow2 = (g: Graph) => spectralRadiusBound(g, "<", "2", new Budget(BENCH_STEPS)).status;
+
+function spectralRadiusTasks(): BenchTask[] {
+  const out: BenchTask[] = [];
+  for (const n of [1_000, 100_000, 1_000_000]) {
+    const target = n === 1_000_000 ? 2000 : undefined;
+    out.push(named(graphTask(`path-${n}-rho`, () => pathWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `path P_${n}`));
+    out.push(named(graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `tree-${n}`));
+  }
+  // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
+  for (const n of [1_000, 100_000])
+    out.push(named(graphTask(`tree-${n}-inertia`, () => randomTreeWorkload(n), "full inertia of 2I − A", n === 1_000, (g) => {
+      const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+      return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
+    }), `tree-${n}`));
+  return out;
+}
+
+function sparseTasks(): BenchTask[] {
+  return [200, 1_000, 2_000].flatMap((n) => [
+    named(graphTask(`gnm3-${n}-inertia`, () => sparseGraphWorkload(n), "full inertia of 2I − A", n === 200, (g) => {
+      const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+      return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
+    }, n === 1_000 ? 5000 : undefined), `G(n,m) deg 3, n=${n}`),
+    named(graphTask(`gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200,
+      (g) => spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS)).status), `G(n,m) deg 3, n=${n}`),
+  ]);
+}
+
+function subgraphTasks(): BenchTask[] {
+  const e8 = workloadGraph(extendedE8Workload());
+  const star = workloadGraph(star4Workload());
+  const find = (h: Graph) => (g: Graph) => {
+    const v = findSubgraph(h, g, { budget: new Budget(BENCH_STEPS) });
+    return `${v.status} (${v.method})`;
+  };
+  return [
+    ...[1_000, 10_000, 100_000].map((n) =>
+      named(graphTask(`tree-${n}-affineE8`, () => randomTreeWorkload(n), "find affine E8 (embedding)", n === 1_000, find(e8), n === 100_000 ? 1000 : undefined), `tree-${n}`)),
+    named(graphTask("path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)), "path P_100000"),
+    named(graphTask("path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)), "path P_1000"),
+  ];
+}
+
+function charpolyTasks(): BenchTask[] {
+  return [20, 30, 40, 60].map((n) =>
+    named(graphTask(`gnp-${n}-charpoly`, () => halfDenseGraphWorkload(n), "characteristic polynomial", n <= 30, (g) => {
+      const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
+      const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
+      return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
+    }), `G(n,1/2), n=${n}`));
+}
+
+function starlikeTasks(): BenchTask[] {
+  // T(1,2,k), n = k + 4: ρ < 2 for k ≤ 4 (E6–E8), = 2 for k = 5, > 2 beyond (Smith 1970).
+  return [16, 46, 96, 196].map((k) =>
+    named(graphTask(`t12k-${k + 4}-rho`, () => t12kWorkload(k), "ρ vs 2: ρ ≤ 2 (exact verdict)", k === 16,
+      (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status), `T(1,2,${k}) n=${k + 4}`));
+}
+
+/** The whole claim path as the server and the checker run it: validate, parse the edge-list text, verify. */
+function claimTasks(): BenchTask[] {
+  return [1_000, 100_000].map((n) => ({
+    id: `claim-tree-${n}`,
+    workload: `tree-${n} (edge-list text)`,
+    task: "claim ρ < 2: validate + parse + verify",
+    quick: n === 1_000,
+    prepare: () => randomTreeWorkload(n).edges.map(([u, v]) => `${u} ${v}`).join("\n"),
+    run: (text) => {
+      const claim = validateClaim({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "edges", text }, op: "<", bound: "2" });
+      return verifyClaim(claim, { budget: new Budget(BENCH_STEPS) }).verdict.status;
+    },
+  }));
+}
+
+export const coreSection: BenchSection = {
+  name: "verification core (exact)",
+  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...starlikeTasks(), ...claimTasks()],
+};
