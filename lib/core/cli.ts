@@ -12,34 +12,14 @@
 import { readFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
+import { BUNDLE_FORMAT, checkBundle } from "./bundle";
 import { readClaimsDocument } from "./claim-file";
 import { ClaimError } from "./claim-schema";
 import { CHECKER_VERSION, verifyClaim, type ClaimResult } from "./claims";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
+import { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
-export const EXIT_OK = 0;
-export const EXIT_NOT_VERIFIED = 1;
-export const EXIT_MALFORMED = 2;
-
-/** One printed line of a check. */
-export interface CheckLine {
-  readonly label: string;
-  readonly status: "verified" | "refuted" | "undecided" | "malformed";
-  readonly text: string;
-  /** Set when the claim carried a certificate: whether it re-checked. */
-  readonly certificate?: { readonly matches: boolean; readonly text: string };
-}
-
-export interface CheckReport {
-  readonly source: string;
-  readonly lines: CheckLine[];
-  readonly exitCode: number;
-}
-
-export interface CheckOptions {
-  /** Step limit per claim. */
-  readonly steps?: number;
-}
+export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
 const MARK: Record<CheckLine["status"], string> = { verified: "✓", refuted: "✗", undecided: "?", malformed: "!" };
 
@@ -69,7 +49,8 @@ function exitCodeOf(lines: CheckLine[]): number {
 export function checkDocument(json: unknown, source: string, options: CheckOptions = {}): CheckReport {
   const format = typeof json === "object" && json !== null && !Array.isArray(json) ? (json as { format?: unknown }).format : undefined;
   switch (format) {
-    // Bundles: add `case "cairn-bundle/1": return checkBundle(json, source, options);` here.
+    case BUNDLE_FORMAT:
+      return checkBundle(json, source, options);
     default:
       return checkClaims(json, source, options);
   }
