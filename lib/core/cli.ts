@@ -17,9 +17,9 @@ import { readClaimsDocument } from "./claim-file";
 import { ClaimError } from "./claim-schema";
 import { CHECKER_VERSION, verifyClaim, type ClaimResult } from "./claims";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
-import { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
+import { EXIT_MALFORMED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
-export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
+export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
 const MARK: Record<CheckLine["status"], string> = { verified: "✓", refuted: "✗", undecided: "?", malformed: "!" };
 
@@ -36,11 +36,6 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
   return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}) };
 }
 
-function exitCodeOf(lines: CheckLine[]): number {
-  if (lines.some((l) => l.status === "malformed")) return EXIT_MALFORMED;
-  if (lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches))) return EXIT_NOT_VERIFIED;
-  return EXIT_OK;
-}
 
 /**
  * Checks a parsed document, dispatching on its "format" field. Claims documents are handled here;

@@ -1,0 +1,41 @@
+/**
+ * The shape of a checker report, shared by the claims checker (cli.ts) and any other document
+ * checker (an exported bundle), so that every document prints and exits the same way.
+ *
+ * Exit codes:
+ *   0  every claim verified and every carried certificate re-checked;
+ *   1  some claim refuted or undecided, or a carried certificate failed its re-check
+ *      (undecided counts against: a reader cannot rely on a claim nobody decided);
+ *   2  the file or some claim in it is malformed (the message names the JSON path), or usage error.
+ */
+
+export const EXIT_OK = 0;
+export const EXIT_NOT_VERIFIED = 1;
+export const EXIT_MALFORMED = 2;
+
+/** One printed line of a check. */
+export interface CheckLine {
+  readonly label: string;
+  readonly status: "verified" | "refuted" | "undecided" | "malformed";
+  readonly text: string;
+  /** Set when the claim carried a certificate: whether it re-checked. */
+  readonly certificate?: { readonly matches: boolean; readonly text: string };
+}
+
+export interface CheckReport {
+  readonly source: string;
+  readonly lines: CheckLine[];
+  readonly exitCode: number;
+}
+
+export interface CheckOptions {
+  /** Step limit per claim. */
+  readonly steps?: number;
+}
+
+/** The exit code of a list of lines: 2 if any is malformed, else 1 if any is not verified or its certificate does not match, else 0. */
+export function exitCodeOf(lines: CheckLine[]): number {
+  if (lines.some((l) => l.status === "malformed")) return EXIT_MALFORMED;
+  if (lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches))) return EXIT_NOT_VERIFIED;
+  return EXIT_OK;
+}
