@@ -58,3 +58,12 @@ export async function retryMailNow(id: number): Promise<boolean> {
   await OutgoingMail.update({ status: "pending", nextAttemptAt: new Date() }, { where: { id, status: { [Op.ne]: "sent" } } });
   return deliverMail(id);
 }
+
+/** After a commit that queued mail: try to deliver now, never failing the caller (the queue keeps the messages). */
+export async function deliverAfterCommit(): Promise<void> {
+  try {
+    await deliverDueMail();
+  } catch (e) {
+    console.warn("[cairn] mail delivery after commit failed; the queue keeps the messages", e);
+  }
+}

@@ -33,3 +33,8 @@ export async function sendMail(message: MailMessage): Promise<void> {
     transport.close();
   }
 }
+
+/** An absolute link into the app, from the origin browsers use (NEXTAUTH_URL). */
+export function appUrl(pathname: string): string {
+  return new URL(pathname, process.env.NEXTAUTH_URL ?? "http://localhost:3000").toString();
+}

@@ -1,0 +1,18 @@
+import { readBody, route } from "@/lib/http";
+import { requireUser } from "@/lib/session";
+import { countUnread, listNotifications, markRead } from "@/lib/data/notifications";
+import { markReadSchema } from "@/lib/validations/review";
+
+/** The signed-in person's notifications, newest first. */
+export const GET = route(async () => {
+  const user = await requireUser();
+  const [notifications, unread] = await Promise.all([listNotifications(user.id), countUnread(user.id)]);
+  return Response.json({ notifications, unread });
+});
+
+/** Marks some (or all) of one's own notifications as read. */
+export const POST = route(async (request: Request) => {
+  const user = await requireUser();
+  const { ids } = await readBody(request, markReadSchema);
+  return Response.json({ marked: await markRead(user.id, ids) });
+});

@@ -1,0 +1,26 @@
+import { idParam, readBody, route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { assertCanManageReviewers } from "@/lib/data/invitations";
+import { setRequiredApprovals } from "@/lib/data/reviews";
+import { getReadiness } from "@/lib/data/review-queues";
+import { settingsSchema } from "@/lib/validations/review";
+
+type Context = { params: Promise<{ proofId: string }> };
+
+/** Review settings and the readiness roll-up. */
+export const GET = route(async (_request: Request, { params }: Context) => {
+  const proofId = idParam((await params).proofId, "This proof");
+  await requireProofRole(proofId);
+  const readiness = await getReadiness(proofId);
+  return Response.json({ requiredApprovals: readiness.requiredApprovals, readiness });
+});
+
+/** The editor sets how many approving reviewers each step needs. */
+export const PATCH = route(async (request: Request, { params }: Context) => {
+  const proofId = idParam((await params).proofId, "This proof");
+  const { user, role } = await requireProofRole(proofId);
+  await assertCanManageReviewers(proofId, user, role);
+  const input = await readBody(request, settingsSchema);
+  await setRequiredApprovals(proofId, user.id, input.requiredApprovals);
+  return Response.json({ requiredApprovals: input.requiredApprovals });
+});

@@ -1,0 +1,16 @@
+import { idParam, route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { assertCanManageReviewers, shareWholeProof } from "@/lib/data/invitations";
+
+type Context = { params: Promise<{ proofId: string; userId: string }> };
+
+/** Removes a reviewer's case limits: the editor shares the whole proof with them. */
+export const DELETE = route(async (_request: Request, { params }: Context) => {
+  const p = await params;
+  const proofId = idParam(p.proofId, "This proof");
+  const reviewerId = idParam(p.userId, "This reviewer");
+  const { user, role } = await requireProofRole(proofId);
+  await assertCanManageReviewers(proofId, user, role);
+  await shareWholeProof(proofId, reviewerId, user.id);
+  return Response.json({ scope: "whole proof" });
+});

@@ -1,0 +1,201 @@
+import "server-only";
+/**
+ * Inviting reviewers by e-mail. The link carries a random token; only its SHA-256 is stored. A link
+ * works once and until it expires; accepting creates the account (or uses the signed-in one) and makes
+ * the person a reviewer of the whole proof or of the chosen cases.
+ */
+import { createHash, randomBytes } from "node:crypto";
+import bcrypt from "bcryptjs";
+import { models } from "@/models";
+import { getSequelize } from "@/lib/db";
+import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { deliverAfterCommit, deliverMail, enqueueMail, retryMailNow } from "@/lib/mail/outbox";
+import { appUrl } from "@/lib/mail/transport";
+import type { ProofRole } from "@/models/proof-member";
+import type { MailStatus } from "@/models/outgoing-mail";
+import type { CurrentUser } from "@/lib/session";
+import { newAccountSchema, type AcceptInvitationInput, type InvitationInput } from "@/lib/validations/invitation";
+import { zodIssues } from "@/lib/http";
+import { recordEvent } from "./audit";
+import { notify } from "./notifications";
+
+export const INVITATION_DAYS = 14;
+export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
+
+/** Editors and the proof's owner manage reviewers. */
+export async function assertCanManageReviewers(proofId: number, user: CurrentUser, role: ProofRole): Promise<void> {
+  if (role === "editor") return;
+  const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy"] });
+  if (proof?.createdBy === user.id) return;
+  throw forbidden("Only an editor or the proof's owner invites reviewers and changes review settings.");
+}
+
+async function caseNumbers(proofId: number): Promise<Map<number, string>> {
+  const cases = await models().Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
+  return new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+}
+
+export interface InvitationCreated {
+  id: number;
+  mailStatus: MailStatus;
+  /** Only for tests and the e-mail itself; never shown in the interface. */
+  token: string;
+}
+
+export async function createInvitation(proofId: number, inviter: CurrentUser, input: InvitationInput): Promise<InvitationCreated> {
+  const { Proof, User, ProofMember, Invitation, InvitationCase } = models();
+  const numbers = await caseNumbers(proofId);
+  const caseIds = input.scope === "cases" ? [...new Set(input.caseIds ?? [])] : [];
+  const foreign = caseIds.filter((id) => !numbers.has(id));
+  if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
+  const existing = await User.findOne({ where: { email: input.email } });
+  const member = existing ? await ProofMember.findOne({ where: { proofId, userId: existing.id } }) : null;
+  if (member) throw conflict(`${existing!.name} is already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof.`);
+  const proof = await Proof.findByPk(proofId);
+  const token = randomBytes(32).toString("base64url");
+  const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
+  const scopeText = input.scope === "proof" ? "the whole proof" : `case${caseIds.length > 1 ? "s" : ""} ${caseIds.map((id) => numbers.get(id)).join(", ")}`;
+  const { id, mailId } = await getSequelize().transaction(async (transaction) => {
+    const mailId = await enqueueMail(
+      {
+        to: input.email,
+        subject: `[Cairn] ${inviter.name} invites you to review “${proof!.title}”`,
+        text: [
+          `${inviter.name} invites you to review ${scopeText} of the proof “${proof!.title}” in Cairn.`,
+          "",
+          "To accept, open this link (it works once, until " + expiresAt.toISOString().slice(0, 10) + "); you can create an account or sign in:",
+          appUrl(`/invitations/${token}`),
+          "",
+          "If you did not expect this invitation, ignore this message.",
+        ].join("\n"),
+      },
+      transaction,
+    );
+    const inv = await Invitation.create({ proofId, email: input.email, tokenHash: hashToken(token), scope: input.scope, invitedBy: inviter.id, mailId, expiresAt }, { transaction });
+    if (caseIds.length) await InvitationCase.bulkCreate(caseIds.map((caseId) => ({ invitationId: inv.id, caseId })), { transaction });
+    await recordEvent({ proofId, actorId: inviter.id, action: "invitation.sent", subjectType: "invitation", subjectId: inv.id, detail: `${input.email}; ${scopeText}` }, transaction);
+    return { id: inv.id, mailId };
+  });
+  const sent = await deliverMail(mailId);
+  return { id, mailStatus: sent ? "sent" : "pending", token };
+}
+
+export interface InvitationView {
+  id: number;
+  email: string;
+  scope: string;
+  state: "waiting" | "accepted" | "expired";
+  expiresAt: string;
+  createdAt: string;
+  mail: { id: number | null; status: MailStatus | "none"; attempts: number; lastError: string | null };
+}
+
+export async function listInvitations(proofId: number): Promise<InvitationView[]> {
+  const { Invitation, InvitationCase, OutgoingMail } = models();
+  const rows = await Invitation.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]] });
+  const ids = rows.map((r) => r.id);
+  const [scopes, mails, numbers] = await Promise.all([
+    ids.length ? InvitationCase.findAll({ where: { invitationId: ids } }) : [],
+    OutgoingMail.findAll({ where: { id: rows.map((r) => r.mailId).filter((x): x is number => x !== null) } }),
+    caseNumbers(proofId),
+  ]);
+  const now = Date.now();
+  return rows.map((r) => {
+    const mail = mails.find((m) => m.id === r.mailId);
+    return {
+      id: r.id,
+      email: r.email,
+      scope: r.scope === "proof" ? "whole proof" : `cases ${scopes.filter((s) => s.invitationId === r.id).map((s) => numbers.get(s.caseId) ?? "?").sort().join(", ")}`,
+      state: r.usedAt ? "accepted" : r.expiresAt.getTime() < now ? "expired" : "waiting",
+      expiresAt: r.expiresAt.toISOString(),
+      createdAt: r.createdAt.toISOString(),
+      mail: { id: r.mailId, status: mail?.status ?? "none", attempts: mail?.attempts ?? 0, lastError: mail?.lastError ?? null },
+    };
+  });
+}
+
+/** The editor's "try again" for an invitation whose mail has not gone out. */
+export async function retryInvitationMail(proofId: number, invitationId: number): Promise<{ mailStatus: MailStatus }> {
+  const inv = await models().Invitation.findOne({ where: { id: invitationId, proofId } });
+  if (!inv || !inv.mailId) throw notFound("This invitation");
+  const sent = await retryMailNow(inv.mailId);
+  const mail = await models().OutgoingMail.findByPk(inv.mailId);
+  return { mailStatus: sent ? "sent" : (mail?.status ?? "pending") };
+}
+
+export interface InvitationPreview {
+  proofTitle: string;
+  email: string;
+  scope: string;
+  inviterName: string;
+  state: "waiting" | "accepted" | "expired";
+  accountExists: boolean;
+}
+
+/** What the accept page shows for a link; 404 for an unknown token. */
+export async function previewInvitation(token: string): Promise<InvitationPreview> {
+  const { Invitation, Proof, User } = models();
+  const inv = await Invitation.findOne({ where: { tokenHash: hashToken(token) } });
+  if (!inv) throw notFound("This invitation link");
+  const [proof, inviter, account, view] = await Promise.all([
+    Proof.findByPk(inv.proofId),
+    User.findByPk(inv.invitedBy),
+    User.findOne({ where: { email: inv.email } }),
+    listInvitations(inv.proofId).then((all) => all.find((v) => v.id === inv.id)!),
+  ]);
+  return { proofTitle: proof?.title ?? "", email: inv.email, scope: view.scope, inviterName: inviter?.name ?? "", state: view.state, accountExists: account !== null };
+}
+
+/**
+ * Accepts an invitation: once, before it expires, as the invited address. Signed out, it creates the
+ * account from `input` (an existing account must sign in first). One transaction: nothing changes on refusal.
+ */
+export async function acceptInvitation(token: string, signedIn: CurrentUser | null, input: AcceptInvitationInput): Promise<{ proofId: number; userId: number; accountCreated: boolean }> {
+  const { Invitation, InvitationCase, User, ProofMember, ReviewerScope } = models();
+  const result = await getSequelize().transaction(async (transaction) => {
+    const inv = await Invitation.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!inv) throw notFound("This invitation link");
+    if (inv.usedAt) throw conflict("This invitation link was already used. Ask the editor for a new one if you still need to join.", { reason: "used" });
+    if (inv.expiresAt.getTime() < Date.now()) throw conflict("This invitation link has expired. Ask the editor to send a new one.", { reason: "expired" });
+    let userId: number;
+    let accountCreated = false;
+    if (signedIn) {
+      if (signedIn.email.toLowerCase() !== inv.email.toLowerCase())
+        throw forbidden(`This invitation was sent to ${inv.email}, but you are signed in as ${signedIn.email}. Sign in with the invited address.`);
+      userId = signedIn.id;
+    } else {
+      if (await User.findOne({ where: { email: inv.email }, transaction })) throw conflict(`An account for ${inv.email} exists already: sign in, then open the link again.`, { reason: "sign_in" });
+      const parsed = newAccountSchema.safeParse(input);
+      if (!parsed.success) throw invalid("Choose your name and a password for your new account.", zodIssues(parsed.error));
+      const user = await User.create({ email: inv.email, name: parsed.data.name, passwordHash: await bcrypt.hash(parsed.data.password, 10), role: "member" }, { transaction });
+      userId = user.id;
+      accountCreated = true;
+    }
+    const member = await ProofMember.findOne({ where: { proofId: inv.proofId, userId }, transaction });
+    if (member && member.role !== "reviewer") throw conflict(`You are already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof; one person has one role per proof.`);
+    const caseIds = (await InvitationCase.findAll({ where: { invitationId: inv.id }, transaction })).map((c) => c.caseId);
+    const hadScopes = member ? (await ReviewerScope.count({ where: { proofId: inv.proofId, userId }, transaction })) > 0 : false;
+    if (!member) await ProofMember.create({ proofId: inv.proofId, userId, role: "reviewer" }, { transaction });
+    if (inv.scope === "proof") await ReviewerScope.destroy({ where: { proofId: inv.proofId, userId }, transaction });
+    else if (!member || hadScopes)
+      for (const caseId of caseIds) await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
+    await inv.update({ usedAt: new Date(), usedBy: userId }, { transaction });
+    await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` }, transaction);
+    await notify([userId], { kind: "assigned", proofId: inv.proofId, message: "You are now a reviewer of this proof. Your queue lists the steps waiting for your verdict.", link: "/queue" }, transaction);
+    return { proofId: inv.proofId, userId, accountCreated };
+  });
+  await deliverAfterCommit();
+  return result;
+}
+
+/** The editor shares the whole proof with a reviewer who was invited to chosen cases. */
+export async function shareWholeProof(proofId: number, reviewerId: number, actorId: number): Promise<void> {
+  const { ProofMember, ReviewerScope } = models();
+  await getSequelize().transaction(async (transaction) => {
+    const member = await ProofMember.findOne({ where: { proofId, userId: reviewerId, role: "reviewer" }, transaction });
+    if (!member) throw notFound("This reviewer");
+    await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
+    await recordEvent({ proofId, actorId, action: "member.scope_shared", subjectType: "member", subjectId: reviewerId, detail: "whole proof shared" }, transaction);
+  });
+}

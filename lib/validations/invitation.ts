@@ -1,0 +1,22 @@
+import { z } from "zod";
+
+export const invitationSchema = z
+  .object({
+    email: z.string().trim().toLowerCase().email("Enter an e-mail address such as name@example.org."),
+    scope: z.enum(["proof", "cases"], { error: "Invite to the whole proof or to chosen cases." }),
+    caseIds: z.array(z.number().int().positive()).max(500).optional(),
+  })
+  .refine((v) => v.scope === "proof" || (v.caseIds?.length ?? 0) > 0, { path: ["caseIds"], message: "Choose at least one case." });
+export type InvitationInput = z.infer<typeof invitationSchema>;
+
+/** Accepting while signed out creates the account: a name and a password. */
+export const newAccountSchema = z.object({
+  name: z.string().trim().min(1, "Enter your name as colleagues know it.").max(120),
+  password: z.string().min(10, "Use at least 10 characters.").max(200),
+});
+
+export const acceptInvitationSchema = z.object({
+  name: z.string().max(120).optional(),
+  password: z.string().max(200).optional(),
+});
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
