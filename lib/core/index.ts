@@ -1,0 +1,74 @@
+/**
+ * The public surface of Cairn's verification core: what the server, the worker pool and the offline
+ * checker import. Everything here is framework-free; `digest.ts` (SHA-256) is the one module that uses
+ * a Node built-in (node:crypto), and the checker command (cli.ts, node:fs) is deliberately not
+ * re-exported so that nothing here reads files.
+ *
+ * Every exact check returns a Verdict (verified / refuted / undecided, statement, method, reason,
+ * certificate) and has a matching re-check that takes the input and a certificate.
+ */
+
+// Graphs, verdicts, budgets.
+export * from "./graph";
+export * from "./verdict";
+
+// Reading and writing graphs; canonical JSON and digests.
+export { parseGraph, parseEdgeList, parseAdjacencyMatrix, detectFormat, MAX_PARSED_VERTICES, type GraphFormat } from "./parse";
+export * from "./graph6";
+export { parseNamed, looksNamed, NAMED_FAMILIES } from "./named";
+export * from "./constructors";
+export * from "./canonical";
+export * from "./digest";
+
+// Exact numbers and bounds.
+export { NumberFormatError, parseRational, rat, ratToString, ratToNumber, type Rational } from "./rational";
+export { parseBound, rationalBound, twoCosBound, compareToBound, boundApprox, type Bound } from "./bound";
+export { polyToString, type Poly } from "./sturm";
+
+// Structure.
+export {
+  isConnected, isBipartite, isForest, isTree, containsCycle,
+  recheckConnected, recheckBipartite, recheckTree, recheckContainsCycle,
+  type ForestCertificate, type ComponentsCertificate, type CycleCertificate, type ColouringCertificate,
+  type ConnectivityCertificate, type TreeCertificate, type BipartiteCertificate,
+} from "./structure";
+export {
+  maxDegree, recheckMaxDegree, branchVertices, branchVertexList, recheckBranchVertices, starlikeLegs, recheckStarlikeLegs,
+  type DegreeRelation, type MaxDegreeCertificate, type BranchVerticesCertificate, type LegsCertificate, type StarlikeCertificate,
+} from "./degree-structure";
+
+// Containment and identification.
+export {
+  findSubgraph, recheckSubgraph, excludeSubgraphs, recheckExclusion, checkEmbedding, MONOTONICITY_NOTE,
+  type SubgraphCertificate, type EmbeddingCertificate, type AbsenceCertificate, type AbsenceArgument,
+  type ExclusionCertificate, type SubgraphOptions,
+} from "./subgraph";
+export {
+  identifySmith, recheckIdentification,
+  type IdentificationCertificate, type IsomorphismCertificate, type ForbiddenSubgraphCertificate, type ExpectedFamily,
+} from "./identify";
+export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type SmithFamily } from "./smith-families";
+
+// Spectra.
+export { spectralRadiusBound, recheckSpectralRadiusBound, inertia, type Relation, type SpectralRadiusCertificate } from "./inertia";
+export { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
+export { checkVectorCertificate, checkRayleighCertificate, recheckVectorCertificate, type VectorEvidence } from "./vector";
+export * from "./spectral";
+export * from "./perron";
+
+// Claims, the checker's reports, and exported bundles.
+export {
+  CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS,
+  MAX_GRAPH_TEXT, ClaimError, validateClaim, validateGraphInput,
+  type Claim, type ClaimKind, type GraphInput, type GraphFormat as ClaimGraphFormat, type StructurePredicate,
+  type SpectralRadiusBoundClaim, type VectorCertificateClaim, type SubgraphClaim, type ExclusionClaim,
+  type IdentificationClaim, type CharacteristicPolynomialClaim, type EigenvaluesClaim, type StructureClaim,
+} from "./claim-schema";
+export { readClaimsDocument, type ClaimEntry } from "./claim-file";
+export {
+  CHECKER_VERSION, verifyClaim, recheckClaim, claimCanonicalJson, claimDigest, readClaimGraph,
+  type ClaimResult, type ClaimCertificate, type CertificateCheck, type VerifyOptions,
+} from "./claims";
+export { CLAIM_LIMITS } from "./claim-support";
+export * from "./check-report";
+export * from "./bundle";
