@@ -19,6 +19,8 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
   declare checkerVersion: string | null;
   declare checkedBy: number | null;
   declare checkedAt: Date | null;
+  /** Display data (layout, embedding image, float spectrum) as JSON; never part of a verdict. */
+  declare picture: CreationOptional<string | null>;
   declare createdBy: number;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -40,6 +42,7 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
         checkerVersion: { type: DataTypes.STRING(40), allowNull: true },
         checkedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         checkedAt: { type: DataTypes.DATE(3), allowNull: true },
+        picture: { type: DataTypes.TEXT("long"), allowNull: true },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),

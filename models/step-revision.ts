@@ -7,6 +7,8 @@ export class StepRevision extends Model<InferAttributes<StepRevision>, InferCrea
   declare number: number;
   declare body: string;
   declare authorId: number;
+  /** The revision the author was editing when saving (null for a step's first revision). */
+  declare baseRevisionId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -17,6 +19,7 @@ export class StepRevision extends Model<InferAttributes<StepRevision>, InferCrea
         number: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         body: { type: DataTypes.TEXT("medium"), allowNull: false },
         authorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        baseRevisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         createdAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: "step_revisions", underscored: true, updatedAt: false },

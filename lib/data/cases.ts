@@ -1,11 +1,16 @@
 import "server-only";
 import { models } from "@/models";
-import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, type CaseNode } from "@/lib/proof-tree";
+import { caseState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ReviewFact, type StepFacts } from "@/lib/review/states";
 
 export interface StepView {
   id: number;
   position: number;
   revision: { id: number; number: number; body: string; authorName: string; createdAt: string } | null;
+  claims: ClaimStatus[];
+  /** Derived from revisions, reviews and claims (lib/review/states.ts). */
+  approvals: number;
+  openDisputes: number;
 }
 
 export interface CaseView {
@@ -15,46 +20,104 @@ export interface CaseView {
   title: string;
   condition: string;
   steps: StepView[];
+  /** Rolled up over this case's steps and its sub-cases' steps. */
+  state: CaseState;
 }
 
-/** The proof's case tree with each step's latest revision. Three queries, whatever the size of the tree. */
+export const CASE_STATES: readonly CaseState[] = ["drafting", "claim failing", "under review", "disputed", "settled"];
+
+/** Ids of deleted cases and everything below them: hidden from the tree, kept for the history. */
+export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number | null; deletedAt: Date | null }>): Set<number> {
+  const hidden = new Set(rows.filter((r) => r.deletedAt).map((r) => r.id));
+  let grew = true;
+  while (grew) {
+    grew = false;
+    for (const r of rows)
+      if (!hidden.has(r.id) && r.parentId !== null && hidden.has(r.parentId)) {
+        hidden.add(r.id);
+        grew = true;
+      }
+  }
+  return hidden;
+}
+
+/** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
+export async function liveCases(proofId: number) {
+  const { Case } = models();
+  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]] });
+  const hidden = hiddenCaseIds(all);
+  return all.filter((c) => !hidden.has(c.id));
+}
+
+/**
+ * The proof's case tree with each step's latest revision and each case's derived state.
+ * A fixed number of queries, whatever the size of the tree.
+ */
 export async function getCaseTree(proofId: number): Promise<CaseNode<CaseView>[]> {
-  const { Case, Step, StepRevision, User } = models();
-  const cases = await Case.findAll({ where: { proofId }, order: [["position", "ASC"]] });
-  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"]] }) : [];
-  const revisions = steps.length
-    ? await StepRevision.findAll({
-        where: { stepId: steps.map((s) => s.id) },
-        include: [{ model: User, as: "author", attributes: ["name"] }],
-        order: [["number", "DESC"]],
-      })
-    : [];
+  const { Step, StepRevision, User, Claim, Review, Proof } = models();
+  const cases = await liveCases(proofId);
+  const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
+  const required = proof?.requiredApprovals ?? 1;
+  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  const stepIds = steps.map((s) => s.id);
+  const [revisions, claims, reviews] = stepIds.length
+    ? await Promise.all([
+        StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
+        Claim.findAll({ where: { stepId: stepIds }, attributes: ["stepId", "status"], order: [["position", "ASC"], ["id", "ASC"]] }),
+        Review.findAll({ where: { stepId: stepIds } }),
+      ])
+    : [[], [], []];
   const latest = new Map<number, (typeof revisions)[number]>();
-  for (const r of revisions) if (!latest.has(r.stepId)) latest.set(r.stepId, r);
-  const rows: CaseView[] = cases.map((c) => ({
+  const numberOf = new Map<number, number>();
+  const authorsOf = new Map<number, Set<number>>();
+  for (const r of revisions) {
+    if (!latest.has(r.stepId)) latest.set(r.stepId, r);
+    numberOf.set(r.id, r.number);
+    authorsOf.set(r.stepId, (authorsOf.get(r.stepId) ?? new Set()).add(r.authorId));
+  }
+  const factsOf = (stepId: number): StepFacts => ({
+    id: stepId,
+    latestRevision: latest.get(stepId)?.number ?? 0,
+    claims: claims.filter((c) => c.stepId === stepId).map((c) => c.status),
+    reviews: reviews
+      .filter((r) => r.stepId === stepId)
+      .map((r): ReviewFact => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, disputeState: r.disputeState })),
+    authorIds: [...(authorsOf.get(stepId) ?? [])],
+  });
+  const facts = new Map(steps.map((s) => [s.id, factsOf(s.id)]));
+  const rows = cases.map((c) => ({
     id: c.id,
     parentId: c.parentId,
     position: c.position,
     title: c.title,
     condition: c.condition,
+    state: "drafting" as CaseState,
     steps: steps
       .filter((s) => s.caseId === c.id)
-      .map((s) => {
+      .map((s): StepView => {
         const r = latest.get(s.id);
+        const status = stepStatus(facts.get(s.id)!, required);
         return {
           id: s.id,
           position: s.position,
+          claims: facts.get(s.id)!.claims,
+          approvals: status.approvals,
+          openDisputes: status.openDisputes,
           revision: r
-            ? {
-                id: r.id,
-                number: r.number,
-                body: r.body,
-                authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "",
-                createdAt: r.createdAt.toISOString(),
-              }
+            ? { id: r.id, number: r.number, body: r.body, authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "", createdAt: r.createdAt.toISOString() }
             : null,
         };
       }),
   }));
-  return buildCaseTree(rows);
+  const tree = buildCaseTree(rows);
+  const toFacts = (n: CaseNode<CaseView>): CaseFacts => ({ id: n.id, steps: n.steps.map((s) => facts.get(s.id)!), children: n.children.map(toFacts) });
+  for (const n of flattenCaseTree(tree)) n.state = caseState(toFacts(n), required);
+  return tree;
+}
+
+/** How many cases are in each state (every case of the tree, sub-cases included). */
+export function countCaseStates(tree: CaseNode<CaseView>[]): Record<CaseState, number> {
+  const counts = Object.fromEntries(CASE_STATES.map((s) => [s, 0])) as Record<CaseState, number>;
+  for (const n of flattenCaseTree(tree)) counts[n.state]++;
+  return counts;
 }

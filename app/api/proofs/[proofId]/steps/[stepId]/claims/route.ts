@@ -1,0 +1,29 @@
+import { readBody, route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { attachClaims, listStepClaims } from "@/lib/data/claims";
+import { stepInProof } from "@/lib/data/steps";
+import { attachClaimsSchema } from "@/lib/validations/claim";
+import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+
+type Context = { params: Promise<{ proofId: string; stepId: string }> };
+
+/** The step's claims with their verdicts (poll this while any is `pending`); any member. */
+export const GET = route(async (_request: Request, { params }: Context) => {
+  const { proofId, stepId } = await routeIds(params);
+  await requireProofRole(proofId);
+  await stepInProof(proofId, stepId);
+  return Response.json({ claims: await listStepClaims(stepId) });
+});
+
+/**
+ * Attaches one or more "cairn-claim/1" claims to the step; authors only. Input that cannot be read
+ * is a 422 naming the field (e.g. `claims.0.graph.text`) and nothing is saved; otherwise the claims
+ * are stored `pending` and verified in the worker pool (202).
+ */
+export const POST = route(async (request: Request, { params }: Context) => {
+  const { proofId, stepId } = await routeIds(params);
+  const { user } = await requireProofRole(proofId, "author");
+  const input = await readBody(request, attachClaimsSchema);
+  const claims = await attachClaims(proofId, stepId, user.id, input.claims);
+  return Response.json({ claims }, { status: 202 });
+});

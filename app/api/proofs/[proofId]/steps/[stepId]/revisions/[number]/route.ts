@@ -1,0 +1,13 @@
+import { route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { getRevision } from "@/lib/data/steps";
+import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+
+type Context = { params: Promise<{ proofId: string; stepId: string; number: string }> };
+
+/** One revision of a step, with its Markdown; any member. */
+export const GET = route(async (_request: Request, { params }: Context) => {
+  const { proofId, stepId, number } = await routeIds(params);
+  await requireProofRole(proofId);
+  return Response.json({ revision: await getRevision(proofId, stepId, number) });
+});

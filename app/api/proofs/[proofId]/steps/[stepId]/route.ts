@@ -1,0 +1,15 @@
+import { route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { getStep } from "@/lib/data/steps";
+import { listStepClaims } from "@/lib/data/claims";
+import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+
+type Context = { params: Promise<{ proofId: string; stepId: string }> };
+
+/** A step: its latest revision, its history (without bodies) and its claims; any member. */
+export const GET = route(async (_request: Request, { params }: Context) => {
+  const { proofId, stepId } = await routeIds(params);
+  await requireProofRole(proofId);
+  const step = await getStep(proofId, stepId);
+  return Response.json({ step, claims: await listStepClaims(stepId) });
+});

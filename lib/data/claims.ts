@@ -1,0 +1,265 @@
+import "server-only";
+import { Op } from "sequelize";
+import { models } from "@/models";
+import { getSequelize } from "@/lib/db";
+import { invalid, notFound, type Issue } from "@/lib/errors";
+import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
+import { claimDigest } from "@/lib/core/claims";
+import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
+import type { ClaimPicture } from "@/lib/verification/picture";
+import type { ClaimStatus } from "@/models/claim";
+import { liveCases } from "@/lib/data/cases";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { stepInProof } from "@/lib/data/steps";
+
+export interface ClaimView {
+  id: number;
+  stepId: number;
+  position: number;
+  kind: string;
+  status: ClaimStatus;
+  statement: string | null;
+  method: string | null;
+  reason: string | null;
+  digest: string | null;
+  /** The claim's inputs as JSON; graph texts longer than 4 000 characters are cut for display. */
+  input: Record<string, unknown>;
+  certificate: { summary: string; bytes: number; preview: string } | null;
+  checkerVersion: string | null;
+  checkedByName: string | null;
+  checkedAt: string | null;
+  createdAt: string;
+  picture: ClaimPicture | null;
+}
+
+type ClaimRow = InstanceType<ReturnType<typeof models>["Claim"]>;
+
+const PREVIEW = 4_000;
+
+function cut(value: unknown): unknown {
+  if (typeof value === "string") return value.length > PREVIEW ? `${value.slice(0, PREVIEW)}… (${value.length} characters)` : value;
+  if (Array.isArray(value)) return value.length > 500 ? [...value.slice(0, 500).map(cut), `… ${value.length} entries`] : value.map(cut);
+  if (typeof value === "object" && value !== null) return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, cut(v)]));
+  return value;
+}
+
+function certificateSummary(text: string): ClaimView["certificate"] {
+  let summary = "certificate";
+  try {
+    const c = JSON.parse(text) as { outcome?: string; evidence?: { kind?: string } };
+    summary = `supports “${c.outcome}”${c.evidence?.kind ? `; evidence: ${c.evidence.kind}` : ""}`;
+  } catch {
+    // stored by this server, always JSON; keep the generic summary otherwise
+  }
+  return { summary, bytes: text.length, preview: text.length > 1_500 ? `${text.slice(0, 1_500)}…` : text };
+}
+
+function claimView(c: ClaimRow): ClaimView {
+  const checker = (c as unknown as { checker?: { name: string } | null }).checker;
+  return {
+    id: c.id,
+    stepId: c.stepId,
+    position: c.position,
+    kind: c.kind,
+    status: c.status,
+    statement: c.statement,
+    method: c.method,
+    reason: c.reason,
+    digest: c.digest,
+    input: cut(JSON.parse(c.input)) as Record<string, unknown>,
+    certificate: c.certificate ? certificateSummary(c.certificate) : null,
+    checkerVersion: c.checkerVersion,
+    checkedByName: checker?.name ?? null,
+    checkedAt: c.checkedAt ? c.checkedAt.toISOString() : null,
+    createdAt: c.createdAt.toISOString(),
+    picture: c.picture ? (JSON.parse(c.picture) as ClaimPicture) : null,
+  };
+}
+
+// ---------------------------------------------------------------- background verification
+
+const inFlight = ((globalThis as unknown as { __cairnClaimJobs?: Map<number, Promise<void>> }).__cairnClaimJobs ??= new Map());
+
+/** Verifies a stored claim in the worker pool and stores the verdict; one job per claim at a time. */
+export function scheduleVerification(claimId: number, checkedBy: number): Promise<void> {
+  const running = inFlight.get(claimId);
+  if (running) return running;
+  const job = (async () => {
+    const { Claim } = models();
+    const row = await Claim.findByPk(claimId);
+    if (!row) return;
+    let update: Partial<Record<string, unknown>>;
+    try {
+      const answer = await runInPool({ mode: "verify", claim: JSON.parse(row.input), stepLimit: STEP_LIMIT, picture: true });
+      update = answer.ok
+        ? (() => {
+            const o = answer.outcome!;
+            const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
+            return {
+              status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason + notes,
+              certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
+            };
+          })()
+        : { status: "undecided", method: "input", reason: `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`, certificate: null };
+    } catch (e) {
+      if (!(e instanceof WorkerFailure)) console.error("[cairn] verification job failed", e);
+      update = { status: "undecided", method: "worker", reason: e instanceof WorkerFailure ? e.message : "the verification could not run; re-check to try again", certificate: null };
+    }
+    await Claim.update({ ...update, checkedBy, checkedAt: new Date() }, { where: { id: claimId } });
+  })().finally(() => inFlight.delete(claimId));
+  inFlight.set(claimId, job);
+  return job;
+}
+
+/** Resolves when the claim's current verification (if any) has stored its verdict. */
+export async function verificationSettled(claimId: number): Promise<void> {
+  await inFlight.get(claimId);
+}
+
+/** Pending claims whose job is not running here (the server restarted meanwhile) are queued again. */
+function resumeStale(rows: ClaimRow[]): void {
+  const stale = Date.now() - 5_000;
+  for (const r of rows) if (r.status === "pending" && !inFlight.has(r.id) && r.updatedAt.getTime() < stale) void scheduleVerification(r.id, r.checkedBy ?? r.createdBy);
+}
+
+// ---------------------------------------------------------------- reads and writes
+
+const withChecker = () => [{ model: models().User, as: "checker", attributes: ["name"], required: false }];
+
+function ensureAssociation() {
+  const { Claim, User } = models();
+  if (!Claim.associations.checker) Claim.belongsTo(User, { as: "checker", foreignKey: "checkedBy", constraints: false });
+}
+
+/**
+ * Reads every claim's inputs the way the check will (graph text, bound, embedding and vector sizes)
+ * in the worker pool, so that malformed input is a 422 naming the field and nothing is stored.
+ */
+async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> {
+  const issues: Issue[] = [];
+  const claims: ClaimJson[] = [];
+  const pathOf = (i: number, p: string) => `claims.${i}${p.replace(/^\$/, "")}`;
+  for (const [i, json] of raw.entries()) {
+    try {
+      claims.push(validateClaim(json));
+    } catch (e) {
+      if (!(e instanceof ClaimError)) throw e;
+      issues.push({ path: pathOf(i, e.path), message: e.detail });
+    }
+  }
+  if (issues.length === 0)
+    for (const [i, claim] of claims.entries()) {
+      const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
+        throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
+      });
+      if (!answer.ok) issues.push({ path: pathOf(i, answer.problem.path), message: answer.problem.detail });
+    }
+  if (issues.length) throw invalid("Some claims need attention; nothing was saved.", issues);
+  return claims;
+}
+
+/** Attaches claims to a step (all or none) and queues their verification; they start `pending`. */
+export async function attachClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<ClaimView[]> {
+  const { Claim, AuditEvent } = models();
+  await stepInProof(proofId, stepId);
+  const claims = await readClaims(raw);
+  const ids = await getSequelize().transaction(async (transaction) => {
+    const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
+    const out: number[] = [];
+    for (const [i, claim] of claims.entries()) {
+      const row = await Claim.create(
+        {
+          stepId, position: (last ?? 0) + i + 1, kind: claim.kind, input: JSON.stringify(claim), digest: claimDigest(claim), status: "pending",
+          statement: null, method: null, reason: null, certificate: null, checkerVersion: null, checkedBy: null, checkedAt: null, createdBy: userId,
+        },
+        { transaction },
+      );
+      await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
+      out.push(row.id);
+    }
+    return out;
+  });
+  for (const id of ids) void scheduleVerification(id, userId);
+  ensureAssociation();
+  return (await Claim.findAll({ where: { id: ids }, include: withChecker(), order: [["position", "ASC"]] })).map(claimView);
+}
+
+async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow> {
+  const { Claim } = models();
+  ensureAssociation();
+  const row = await Claim.findByPk(claimId, { include: withChecker() });
+  if (!row) throw notFound("This claim");
+  await stepInProof(proofId, row.stepId).catch(() => {
+    throw notFound("This claim");
+  });
+  return row;
+}
+
+export async function getClaim(proofId: number, claimId: number): Promise<ClaimView> {
+  const row = await claimInProof(proofId, claimId);
+  resumeStale([row]);
+  return claimView(row);
+}
+
+/** Runs the check again (e.g. after an `undecided` for budget or time): the claim is `pending` until it ends. */
+export async function recheck(proofId: number, claimId: number, userId: number): Promise<ClaimView> {
+  const { AuditEvent } = models();
+  const row = await claimInProof(proofId, claimId);
+  if (!inFlight.has(claimId)) {
+    await row.update({ status: "pending" });
+    await AuditEvent.create({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
+    void scheduleVerification(claimId, userId);
+  }
+  return claimView(row);
+}
+
+export async function listStepClaims(stepId: number): Promise<ClaimView[]> {
+  const { Claim } = models();
+  ensureAssociation();
+  const rows = await Claim.findAll({ where: { stepId }, include: withChecker(), order: [["position", "ASC"], ["id", "ASC"]] });
+  resumeStale(rows);
+  return rows.map(claimView);
+}
+
+export interface ClaimRowView {
+  id: number;
+  stepId: number;
+  stepNumber: string;
+  caseNumber: string;
+  caseTitle: string;
+  kind: string;
+  status: ClaimStatus;
+  statement: string | null;
+  method: string | null;
+  checkedAt: string | null;
+}
+
+/** Every claim of the proof's live cases, with the number of its step (for the overview table). */
+export async function listProofClaims(proofId: number): Promise<ClaimRowView[]> {
+  const { Step, Claim } = models();
+  const cases = await liveCases(proofId);
+  const numbered = new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]));
+  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  if (steps.length === 0) return [];
+  const place = new Map<number, string>();
+  for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, `${numbered.get(c.id)!.number}.${i + 1}`));
+  const rows = await Claim.findAll({
+    where: { stepId: { [Op.in]: steps.map((s) => s.id) } },
+    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt", "updatedAt", "createdBy", "checkedBy"],
+    order: [["id", "ASC"]],
+  });
+  resumeStale(rows);
+  const caseOf = new Map(steps.map((s) => [s.id, numbered.get(s.caseId)!]));
+  return rows.map((r) => ({
+    id: r.id,
+    stepId: r.stepId,
+    stepNumber: place.get(r.stepId) ?? "",
+    caseNumber: caseOf.get(r.stepId)?.number ?? "",
+    caseTitle: caseOf.get(r.stepId)?.title ?? "",
+    kind: r.kind,
+    status: r.status,
+    statement: r.statement,
+    method: r.method,
+    checkedAt: r.checkedAt ? r.checkedAt.toISOString() : null,
+  }));
+}

@@ -1,0 +1,148 @@
+import "server-only";
+import { diffLines } from "diff";
+import { models } from "@/models";
+import { getSequelize } from "@/lib/db";
+import { conflict, invalid, notFound } from "@/lib/errors";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { liveCases } from "@/lib/data/cases";
+
+export interface RevisionView {
+  id: number;
+  number: number;
+  body: string;
+  authorId: number;
+  authorName: string;
+  baseRevisionId: number | null;
+  createdAt: string;
+}
+
+export interface StepDetail {
+  id: number;
+  proofId: number;
+  caseId: number;
+  caseNumber: string;
+  caseTitle: string;
+  /** "3.2.1": the case number and the step's place in it. */
+  number: string;
+  latest: RevisionView | null;
+  revisions: Array<Omit<RevisionView, "body">>;
+}
+
+type RevisionRow = InstanceType<ReturnType<typeof models>["StepRevision"]>;
+
+function revisionView(r: RevisionRow): RevisionView {
+  return {
+    id: r.id,
+    number: r.number,
+    body: r.body,
+    authorId: r.authorId,
+    authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "",
+    baseRevisionId: r.baseRevisionId ?? null,
+    createdAt: r.createdAt.toISOString(),
+  };
+}
+
+/** The step if it belongs to a live case of this proof; a 404 otherwise. */
+export async function stepInProof(proofId: number, stepId: number) {
+  const { Step } = models();
+  const step = await Step.findByPk(stepId);
+  if (!step) throw notFound("This step");
+  const cases = await liveCases(proofId);
+  const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).find(
+    (c) => c.id === step.caseId,
+  );
+  if (!node) throw notFound("This step");
+  return { step, node };
+}
+
+export async function getStep(proofId: number, stepId: number): Promise<StepDetail> {
+  const { Step, StepRevision, User } = models();
+  const { step, node } = await stepInProof(proofId, stepId);
+  const revisions = await StepRevision.findAll({
+    where: { stepId },
+    include: [{ model: User, as: "author", attributes: ["name"] }],
+    order: [["number", "DESC"]],
+  });
+  const siblings = await Step.findAll({ where: { caseId: step.caseId }, attributes: ["id", "position"], order: [["position", "ASC"], ["id", "ASC"]] });
+  const place = siblings.findIndex((s) => s.id === stepId) + 1;
+  return {
+    id: step.id,
+    proofId,
+    caseId: step.caseId,
+    caseNumber: node.number,
+    caseTitle: node.title,
+    number: `${node.number}.${place}`,
+    latest: revisions[0] ? revisionView(revisions[0]) : null,
+    revisions: revisions.map((r) => {
+      const { body: _body, ...rest } = revisionView(r);
+      return rest;
+    }),
+  };
+}
+
+/** Adds a step at the end of a case, with its first revision, in one transaction. */
+export async function createStep(proofId: number, caseId: number, userId: number, body: string): Promise<{ id: number; revisionId: number }> {
+  const { Step, StepRevision, AuditEvent } = models();
+  if (!(await liveCases(proofId)).some((c) => c.id === caseId)) throw notFound("This case");
+  return getSequelize().transaction(async (transaction) => {
+    const last = await Step.max<number, InstanceType<typeof Step>>("position", { where: { caseId }, transaction });
+    const step = await Step.create({ caseId, position: (last ?? 0) + 1 }, { transaction });
+    const revision = await StepRevision.create({ stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null }, { transaction });
+    await AuditEvent.create({ proofId, actorId: userId, action: "step.created", subjectType: "step", subjectId: step.id, detail: null }, { transaction });
+    return { id: step.id, revisionId: revision.id };
+  });
+}
+
+/**
+ * Saves a new immutable revision based on `baseRevisionId`. When someone saved a newer revision
+ * meanwhile, nothing is written and the 409 carries that newer revision, so the editor can merge or
+ * overwrite knowingly (by saving again with the newer revision as its base).
+ */
+export async function saveRevision(proofId: number, stepId: number, userId: number, baseRevisionId: number, body: string): Promise<RevisionView> {
+  const { Step, StepRevision, User, AuditEvent } = models();
+  await stepInProof(proofId, stepId);
+  return getSequelize().transaction(async (transaction) => {
+    // Locking the step row serialises concurrent saves of one step, so exactly one of two wins.
+    await Step.findByPk(stepId, { transaction, lock: transaction.LOCK.UPDATE });
+    const latest = await StepRevision.findOne({ where: { stepId }, order: [["number", "DESC"]], include: [{ model: User, as: "author", attributes: ["name"] }], transaction });
+    const base = await StepRevision.findOne({ where: { id: baseRevisionId, stepId }, attributes: ["id"], transaction });
+    if (!base) throw invalid("The base revision is not a revision of this step.", [{ path: "baseRevisionId", message: "name a revision of this step" }]);
+    if (latest && latest.id !== baseRevisionId)
+      throw conflict(`Someone saved revision ${latest.number} of this step while you were editing. Merge your text with it, or overwrite it knowingly.`, {
+        latest: revisionView(latest),
+      });
+    const created = await StepRevision.create({ stepId, number: (latest?.number ?? 0) + 1, body, authorId: userId, baseRevisionId }, { transaction });
+    await AuditEvent.create({ proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` }, { transaction });
+    const author = await User.findByPk(userId, { attributes: ["name"], transaction });
+    return { ...revisionView(created), authorName: author?.name ?? "" };
+  });
+}
+
+export interface RevisionDiff {
+  from: { id: number; number: number };
+  to: { id: number; number: number };
+  parts: Array<{ value: string; added: boolean; removed: boolean }>;
+}
+
+/** Line diff between two revisions of a step, by revision number. */
+export async function diffRevisions(proofId: number, stepId: number, from: number, to: number): Promise<RevisionDiff> {
+  const { StepRevision } = models();
+  await stepInProof(proofId, stepId);
+  const rows = await StepRevision.findAll({ where: { stepId, number: [from, to] } });
+  const a = rows.find((r) => r.number === from), b = rows.find((r) => r.number === to);
+  if (!a || !b) throw notFound(`Revision ${!a ? from : to} of this step`);
+  return {
+    from: { id: a.id, number: a.number },
+    to: { id: b.id, number: b.number },
+    parts: diffLines(a.body, b.body).map((p) => ({ value: p.value, added: !!p.added, removed: !!p.removed })),
+  };
+}
+
+/** The body of one revision (for showing an older revision next to the latest). */
+export async function getRevision(proofId: number, stepId: number, number: number): Promise<RevisionView> {
+  const { StepRevision, User } = models();
+  await stepInProof(proofId, stepId);
+  const r = await StepRevision.findOne({ where: { stepId, number }, include: [{ model: User, as: "author", attributes: ["name"] }] });
+  if (!r) throw notFound(`Revision ${number} of this step`);
+  return revisionView(r);
+}

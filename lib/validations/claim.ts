@@ -1,0 +1,154 @@
+/**
+ * Claims attached to a step. The API takes claims in the core's "cairn-claim/1" JSON (validated by
+ * lib/core/claim-schema.ts, whose errors name the JSON path); the form has flat text fields, which
+ * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
+ */
+import { z } from "zod";
+import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
+
+export const MAX_CLAIMS_PER_REQUEST = 20;
+
+export const attachClaimsSchema = z.object({
+  claims: z
+    .array(z.record(z.string(), z.unknown()), { message: "Send claims as a list of cairn-claim/1 objects." })
+    .min(1, "Attach at least one claim.")
+    .max(MAX_CLAIMS_PER_REQUEST, `Attach at most ${MAX_CLAIMS_PER_REQUEST} claims at once.`),
+});
+
+const graphFormat = z.enum(GRAPH_FORMATS);
+
+/** Splits "1, 2 3" into ["1", "2", "3"]. */
+const listOf = (text: string) => text.split(/[\s,;]+/).filter(Boolean);
+
+export const claimFormSchema = z.object({
+  kind: z.enum(CLAIM_KINDS),
+  graphFormat: graphFormat,
+  graphText: z.string(),
+  patternFormat: graphFormat,
+  patternText: z.string(),
+  op: z.enum(RELATIONS),
+  bound: z.string(),
+  vector: z.string(),
+  induced: z.boolean(),
+  embedding: z.string(),
+  family: z.string(),
+  coefficients: z.string(),
+  h: z.string(),
+  multiset: z.string(),
+  predicate: z.enum(STRUCTURE_PREDICATES),
+  parameter: z.string(),
+  degreeRelation: z.enum(DEGREE_RELATIONS),
+  certificate: z.string(),
+});
+export type ClaimForm = z.infer<typeof claimFormSchema>;
+
+export const emptyClaimForm: ClaimForm = {
+  kind: "spectral-radius-bound", graphFormat: "named", graphText: "", patternFormat: "named", patternText: "", op: "<", bound: "2",
+  vector: "", induced: false, embedding: "", family: "", coefficients: "", h: "", multiset: "", predicate: "tree", parameter: "",
+  degreeRelation: "=", certificate: "",
+};
+
+type Issue = { field: keyof ClaimForm; message: string };
+
+function integers(text: string, field: keyof ClaimForm, issues: Issue[]): number[] {
+  const parts = listOf(text);
+  const bad = parts.find((p) => !/^\d+$/.test(p));
+  if (bad !== undefined) issues.push({ field, message: `"${bad}" is not a non-negative integer; separate entries with commas or spaces` });
+  return parts.map(Number);
+}
+
+/** Turns the form's fields into a cairn-claim/1 object; problems are reported per field. */
+export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } | { issues: Issue[] } {
+  const issues: Issue[] = [];
+  const need = (field: keyof ClaimForm, what: string) => {
+    if (String(f[field]).trim() === "") issues.push({ field, message: `Enter ${what}.` });
+  };
+  const graph = (format: string, text: string) => ({ format, text });
+  const claim: Record<string, unknown> = { format: "cairn-claim/1", kind: f.kind };
+  const main = () => {
+    need("graphText", "the graph G");
+    claim.graph = graph(f.graphFormat, f.graphText);
+  };
+  switch (f.kind) {
+    case "spectral-radius-bound":
+      main();
+      need("bound", "the bound, e.g. 2, 7/2, sqrt(5) or 2cos(pi/7)");
+      Object.assign(claim, { op: f.op, bound: f.bound.trim() });
+      break;
+    case "vector-certificate":
+      main();
+      need("bound", "the bound");
+      need("vector", "the vector, one rational per vertex");
+      Object.assign(claim, { vector: listOf(f.vector), relation: f.op, bound: f.bound.trim() });
+      break;
+    case "subgraph":
+      need("patternText", "the pattern H");
+      need("graphText", "the host G");
+      Object.assign(claim, { pattern: graph(f.patternFormat, f.patternText), host: graph(f.graphFormat, f.graphText), induced: f.induced });
+      if (f.embedding.trim()) claim.embedding = integers(f.embedding, "embedding", issues);
+      break;
+    case "exclusion":
+      need("graphText", "the host G");
+      need("patternText", "the excluded patterns, separated by lines of ---");
+      Object.assign(claim, {
+        host: graph(f.graphFormat, f.graphText),
+        patterns: f.patternText.split(/^\s*---\s*$/m).map((t) => t.trim()).filter(Boolean).map((t) => graph(f.patternFormat, t)),
+        induced: f.induced,
+      });
+      break;
+    case "identification":
+      main();
+      if (f.family.trim()) claim.family = f.family.trim();
+      break;
+    case "characteristic-polynomial":
+      main();
+      if (f.coefficients.trim()) claim.coefficients = listOf(f.coefficients);
+      break;
+    case "eigenvalues":
+      main();
+      need("h", "h (the denominator in 2cos(πm/h))");
+      if (f.h.trim() && !/^\d+$/.test(f.h.trim())) issues.push({ field: "h", message: "h is a positive integer" });
+      Object.assign(claim, { h: Number(f.h.trim()), multiset: integers(f.multiset, "multiset", issues) });
+      break;
+    case "structure": {
+      main();
+      claim.predicate = f.predicate;
+      if (f.predicate === "max-degree" || f.predicate === "branch-vertices") {
+        need("parameter", "the number");
+        const [n] = integers(f.parameter, "parameter", issues);
+        claim.parameter = n;
+        if (f.predicate === "max-degree") claim.relation = f.degreeRelation;
+      } else if (f.predicate === "leg-lengths") {
+        need("parameter", "the leg lengths, e.g. 1, 2, 5");
+        claim.parameter = integers(f.parameter, "parameter", issues);
+      }
+      break;
+    }
+  }
+  if (f.certificate.trim()) {
+    try {
+      claim.certificate = JSON.parse(f.certificate);
+    } catch {
+      issues.push({ field: "certificate", message: "The certificate must be JSON, e.g. as shown under an earlier verdict." });
+    }
+  }
+  return issues.length ? { issues } : { claim };
+}
+
+/** The form field for an error path such as "claims.0.graph.text" or "claims.0.patterns[1].text". */
+export function formFieldOf(path: string): keyof ClaimForm | null {
+  const rest = path.replace(/^claims\.\d+\.?/, "");
+  if (/^(graph|host)\b/.test(rest)) return "graphText";
+  if (/^(pattern|patterns)\b/.test(rest)) return "patternText";
+  if (/^(bound)\b/.test(rest)) return "bound";
+  if (/^(op|relation)\b/.test(rest)) return "op";
+  if (/^vector\b/.test(rest)) return "vector";
+  if (/^embedding\b/.test(rest)) return "embedding";
+  if (/^family\b/.test(rest)) return "family";
+  if (/^coefficients\b/.test(rest)) return "coefficients";
+  if (/^h\b/.test(rest)) return "h";
+  if (/^multiset\b/.test(rest)) return "multiset";
+  if (/^parameter\b/.test(rest)) return "parameter";
+  if (/^certificate\b/.test(rest)) return "certificate";
+  return null;
+}

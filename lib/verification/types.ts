@@ -1,0 +1,37 @@
+/** What the server sends to a verification worker and what comes back (plain JSON both ways). */
+import type { ClaimPicture } from "./picture";
+
+export interface VerificationTask {
+  /** "check": validate and read every input (fast, for a 422 on the request); "verify": run the exact check. */
+  mode: "check" | "verify";
+  /** The claim as validated JSON ("cairn-claim/1"), including a carried certificate if any. */
+  claim: unknown;
+  /** Step budget of the exact check (see lib/core/verdict.ts). */
+  stepLimit: number;
+  /** Also compute the display picture (layout, float spectrum). */
+  picture: boolean;
+}
+
+export interface VerificationOutcome {
+  status: "verified" | "refuted" | "undecided";
+  statement: string;
+  method: string;
+  reason: string;
+  /** The verdict's certificate envelope as JSON text, or null for undecided. */
+  certificate: string | null;
+  digest: string;
+  checkerVersion: string;
+  /** Set when the claim carried a certificate: whether it re-checked and agrees with the verdict. */
+  certificateMatches: boolean | null;
+  notes: string[];
+  steps: number | null;
+  picture: ClaimPicture | null;
+}
+
+/** A claim whose input cannot be read: `path` is the JSON path of the field (e.g. "$.graph.text"). */
+export interface InputProblem {
+  path: string;
+  detail: string;
+}
+
+export type WorkerAnswer = { ok: true; outcome: VerificationOutcome | null } | { ok: false; problem: InputProblem };

@@ -1,0 +1,152 @@
+/**
+ * The verification worker (bundled to plain JS by lib/verification/pool.ts and run in a piscina
+ * worker thread): validates and verifies one claim with the exact core under a step budget, and
+ * computes its display picture. Nothing here touches the database; the server stores the outcome.
+ */
+import { CHECKER_VERSION, verifyClaim } from "../core/claims";
+import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claim-schema";
+import { GraphError } from "../core/graph";
+import { NumberFormatError } from "../core/rational";
+import { parseGraph } from "../core/parse";
+import { boundApprox, parseBound } from "../core/bound";
+import { Budget } from "../core/verdict";
+import type { Graph } from "../core/graph";
+import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
+import type { VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
+
+function embeddingIn(evidence: unknown): number[] | undefined {
+  if (typeof evidence !== "object" || evidence === null) return undefined;
+  const e = (evidence as { embedding?: unknown }).embedding;
+  return Array.isArray(e) && e.every((v) => Number.isInteger(v)) ? (e as number[]) : undefined;
+}
+
+function read(input: GraphInput): Graph | null {
+  try {
+    return parseGraph(input.text, input.format);
+  } catch {
+    return null;
+  }
+}
+
+function boundOf(claim: Claim): ClaimPicture["bound"] {
+  if (claim.kind !== "spectral-radius-bound" && claim.kind !== "vector-certificate") return null;
+  try {
+    return { text: claim.bound, approx: boundApprox(parseBound(claim.bound)) };
+  } catch {
+    return null;
+  }
+}
+
+/** The pictures of a claim: its graph, or the host with the embedding's image highlighted. */
+export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
+  const pictures: GraphPicture[] = [];
+  const add = (g: Graph | null, title: string, map?: readonly number[], pattern?: Graph) => {
+    const p = g ? pictureOf(g, title, map, pattern) : null;
+    if (p) pictures.push(p);
+  };
+  if (claim.kind === "subgraph") {
+    const pattern = read(claim.pattern);
+    add(read(claim.host), "G (host), the embedding's image highlighted", claim.embedding ?? embeddingIn(evidence), pattern ?? undefined);
+    add(pattern, "H (pattern)");
+  } else if (claim.kind === "exclusion") {
+    add(read(claim.host), "G (host)");
+    claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
+  } else {
+    add(read(claim.graph), "G", embeddingIn(evidence));
+  }
+  return { pictures, bound: boundOf(claim), ...(pictures.length === 0 ? { note: "the graph is too large to draw" } : {}) };
+}
+
+/** Parses a graph of the claim, naming the field on failure. */
+function readOrFail(input: GraphInput, path: string): Graph {
+  try {
+    return parseGraph(input.text, input.format);
+  } catch (e) {
+    if (e instanceof GraphError || e instanceof NumberFormatError) throw new ClaimError(`${path}.text`, e.message);
+    throw e;
+  }
+}
+
+function boundOrFail(text: string, path: string): void {
+  try {
+    parseBound(text);
+  } catch (e) {
+    if (e instanceof NumberFormatError) throw new ClaimError(path, e.message);
+    throw e;
+  }
+}
+
+/**
+ * Reads every input of a claim the way the check will, so that malformed input is refused before a
+ * claim is stored: graph text, the bound, and the sizes of an embedding or a vector.
+ */
+export function checkInputs(claim: Claim): void {
+  switch (claim.kind) {
+    case "subgraph": {
+      const h = readOrFail(claim.pattern, "$.pattern");
+      const g = readOrFail(claim.host, "$.host");
+      if (claim.embedding) {
+        if (claim.embedding.length !== h.n)
+          throw new ClaimError("$.embedding", `the embedding lists ${claim.embedding.length} vertices but the pattern H has ${h.n}; give one host vertex per pattern vertex`);
+        const bad = claim.embedding.findIndex((v) => v >= g.n);
+        if (bad >= 0) throw new ClaimError(`$.embedding[${bad}]`, `vertex ${claim.embedding[bad]} is not in the host G, which has vertices 0..${g.n - 1}`);
+      }
+      return;
+    }
+    case "exclusion":
+      readOrFail(claim.host, "$.host");
+      claim.patterns.forEach((p, i) => readOrFail(p, `$.patterns[${i}]`));
+      return;
+    case "spectral-radius-bound":
+      readOrFail(claim.graph, "$.graph");
+      boundOrFail(claim.bound, "$.bound");
+      return;
+    case "vector-certificate": {
+      const g = readOrFail(claim.graph, "$.graph");
+      boundOrFail(claim.bound, "$.bound");
+      if (claim.vector.length !== g.n)
+        throw new ClaimError("$.vector", `the vector has ${claim.vector.length} entries but G has ${g.n} vertices; give one entry per vertex`);
+      return;
+    }
+    default:
+      readOrFail(claim.graph, "$.graph");
+  }
+}
+
+function run(task: VerificationTask): VerificationOutcome | null {
+  const claim = validateClaim(task.claim);
+  if (task.mode === "check") {
+    checkInputs(claim);
+    return null;
+  }
+  return verifyOne(claim, task);
+}
+
+/** Entry point of the worker: never throws for bad input, answers with the field to fix instead. */
+export default function answer(task: VerificationTask): WorkerAnswer {
+  try {
+    return { ok: true, outcome: run(task) };
+  } catch (e) {
+    if (e instanceof ClaimError) return { ok: false, problem: { path: e.path, detail: e.detail } };
+    throw e;
+  }
+}
+
+function verifyOne(claim: Claim, task: VerificationTask): VerificationOutcome {
+  const result = verifyClaim(claim, { budget: new Budget(task.stepLimit) });
+  const v = result.verdict;
+  const evidence = (v.certificate as { evidence?: unknown } | undefined)?.evidence;
+  return {
+    status: v.status,
+    statement: v.statement,
+    method: v.method,
+    reason: v.reason,
+    certificate: v.certificate === undefined ? null : JSON.stringify(v.certificate),
+    digest: result.digest,
+    checkerVersion: result.checkerVersion ?? CHECKER_VERSION,
+    certificateMatches: result.certificateCheck ? result.certificateCheck.matches : null,
+    notes: v.notes ?? [],
+    steps: v.steps ?? null,
+    picture: task.picture ? claimPicture(claim, evidence) : null,
+  };
+}
