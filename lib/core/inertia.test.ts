@@ -58,11 +58,26 @@ describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
       for (const b of [rat(0), rat(1), rat(3, 2), rat(2), rat(-1)]) {
         const t = treeInertia(g, b, "none", new Budget());
         const s = sparseInertia(g, b, "none", new Budget());
+        const e = treeInertia(g, b, "none", new Budget(), true);
         expect([t.positive, t.negative, t.zero]).toEqual([s.positive, s.negative, s.zero]);
+        expect([e.positive, e.negative, e.zero]).toEqual([s.positive, s.negative, s.zero]);
         const bf = Number(b.num) / Number(b.den);
         if (ev.every((x) => Math.abs(x - bf) > 1e-6)) {
           expect(t.negative).toBe(ev.filter((x) => x > bf).length);
           expect(t.zero).toBe(0);
+        }
+      }
+    }
+  });
+  it("interval-first and exact-only runs agree on larger random trees, where zero pivots occur at b = 0, 1, 2 (common practice)", () => {
+    for (const seed of [11, 12, 13]) {
+      const g = randomTree(3000, seed);
+      for (const b of [rat(0), rat(1), rat(2), rat(5, 2), rat(-1, 3)]) {
+        for (const stop of ["none", "negative", "nonPositive"] as const) {
+          const h = treeInertia(g, b, stop, new Budget());
+          const e = treeInertia(g, b, stop, new Budget(), true);
+          expect([h.complete, h.stoppedAt, h.witnessValue]).toEqual([e.complete, e.stoppedAt, e.witnessValue]);
+          if (stop === "none") expect([h.positive, h.negative, h.zero]).toEqual([e.positive, e.negative, e.zero]);
         }
       }
     }

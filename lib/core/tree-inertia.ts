@@ -17,7 +17,7 @@
  */
 import { adjacency, Graph } from "./graph";
 import { Budget } from "./verdict";
-import { Rational, rat, sub, div, sign, cmp, ONE, mul } from "./rational";
+import { Rational, rat, sub, div, sign, cmp, ONE, mul, bitSize, ratToNumber } from "./rational";
 
 export type StopRule = "none" | "nonPositive" | "negative";
 
@@ -77,53 +77,161 @@ export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; paren
 /**
  * Jacobs–Trevisan diagonalisation of bI - A for a forest (caller checks isForest). Iterative: the
  * reversed breadth-first order visits every child before its parent, so no recursion is needed.
+ *
+ * Speed without giving up exactness: each value is first enclosed in a floating-point interval with
+ * outward rounding (every result widened by one ulp each way, which contains the exact value since IEEE
+ * round-to-nearest errs by at most half an ulp; R. E. Moore, "Interval Analysis", 1966). An interval
+ * that excludes 0 proves the sign, which is all the inertia needs. Only where an interval may contain 0
+ * (a possible zero pivot, where the paper's special rule may apply) is the value computed in exact
+ * rationals, from exact values of its subtree computed on demand (each vertex at most once); an exact
+ * value then re-enters the interval pass as a tight enclosure. Witness vectors are always exact.
+ * `exactOnly` skips the intervals (for cross-checks).
  */
-export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget): EliminationResult {
+export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, exactOnly = false): EliminationResult {
   const { start, nbr, wt, diag } = adjacency(g);
   const { order, parent } = bfsForest(g, budget);
-  const value: Array<Rational | undefined> = new Array(g.n);
-  const cut = new Uint8Array(g.n);
-  let positive = 0, negative = 0, zero = 0;
-  for (let idx = g.n - 1; idx >= 0; idx--) {
-    const v = order[idx];
-    budget.tick(1 + start[v + 1] - start[v]);
-    let a = diag[v] === 0 ? b : sub(b, rat(diag[v]));
-    let zeroChild = -1;
+  const n = g.n;
+  const lo = new Float64Array(n), hi = new Float64Array(n);
+  const exact: Array<Rational | undefined> = new Array(n);
+  const cut = new Uint8Array(n);
+  const bEnclosure = exactOnly ? undefined : ratEnclosure(b);
+  const diagonal = (v: number) => (diag[v] === 0 ? b : sub(b, rat(diag[v])));
+  const setExact = (v: number, a: Rational) => {
+    exact[v] = a;
+    [lo[v], hi[v]] = ratEnclosure(a) ?? [-Infinity, Infinity];
+  };
+  const isChild = (v: number, c: number) => c !== parent[v] && !cut[c];
+  /** Exact a(v) from exact child values; zeroChild >= 0 when the special rule applies. */
+  const exactFromChildren = (v: number): { a: Rational; zeroChild: number } => {
+    let a = diagonal(v);
     for (let k = start[v]; k < start[v + 1]; k++) {
       const c = nbr[k];
-      if (c === parent[v] || cut[c]) continue;
-      const ac = value[c]!;
-      if (ac.num === 0n) { zeroChild = c; break; }
-      const w2 = BigInt(wt[k]) * BigInt(wt[k]);
-      a = sub(a, rat(w2 * ac.den, ac.num));
+      if (!isChild(v, c)) continue;
+      const ac = exact[c]!;
+      if (ac.num === 0n) return { a, zeroChild: c };
+      a = sub(a, rat(BigInt(wt[k]) * BigInt(wt[k]) * ac.den, ac.num));
     }
-    if (zeroChild >= 0) {
-      // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
-      value[zeroChild] = rat(2);
-      zero--; positive++;
-      a = rat(-1, 2);
-      if (parent[v] >= 0) cut[v] = 1;
-      if (stop === "negative" || stop === "nonPositive") {
-        const w = edgeWeight(g, v, zeroChild);
-        const x = subtreeVector(g, zeroChild, parent, value, budget);
-        // x^T M x = 0 on the subtree of c; adding t*e_v adds -2 t w x_c + t^2 M[v][v] < 0 for small t > 0.
-        const mvv = diag[v] === 0 ? b : sub(b, rat(diag[v]));
-        const t = cmp(mvv, rat(w)) <= 0 ? ONE : div(rat(w), mvv);
-        x.set(v, t);
-        return { positive, negative, zero, complete: false, witness: x, witnessValue: sub(mul(mul(t, t), mvv), mul(rat(2 * w), t)), stoppedAt: v };
+    // Large rationals cost more than a step each: tick by size so huge growth ends in "undecided".
+    if (a.den > BIG || a.num > BIG || -a.num > BIG) budget.tick(bitSize(a) >> 6);
+    return { a, zeroChild: -1 };
+  };
+  /** Exact values for the subtree of `top` (invariant: an exact vertex has an exact subtree). */
+  const ensureExact = (top: number) => {
+    const list: number[] = [];
+    const stack = [top];
+    while (stack.length) {
+      const v = stack.pop()!;
+      if (exact[v] !== undefined) continue;
+      list.push(v);
+      for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) stack.push(nbr[k]);
+    }
+    for (let i = list.length - 1; i >= 0; i--) {
+      budget.tick(1 + start[list[i] + 1] - start[list[i]]);
+      const { a, zeroChild } = exactFromChildren(list[i]);
+      // Interval-decided vertices have children with intervals excluding 0, hence non-zero.
+      if (zeroChild >= 0) throw new Error("internal error: zero child below an interval-decided vertex");
+      exact[list[i]] = a;
+    }
+  };
+  let positive = 0, negative = 0, zero = 0;
+  for (let idx = n - 1; idx >= 0; idx--) {
+    const v = order[idx];
+    budget.tick(1 + start[v + 1] - start[v]);
+    let needExact = bEnclosure === undefined;
+    let aLo = 0, aHi = 0;
+    if (!needExact) {
+      aLo = diag[v] === 0 ? bEnclosure![0] : nextDown(bEnclosure![0] - diag[v]);
+      aHi = diag[v] === 0 ? bEnclosure![1] : nextUp(bEnclosure![1] - diag[v]);
+      for (let k = start[v]; k < start[v + 1] && !needExact; k++) {
+        const c = nbr[k];
+        if (!isChild(v, c)) continue;
+        if (!(lo[c] > 0 || hi[c] < 0)) { needExact = true; break; }
+        // w^2/a over [l, h] not containing 0 is [w^2/h, w^2/l] (decreasing on each side of 0).
+        const w2 = wt[k] * wt[k];
+        aLo = nextDown(aLo - nextUp(w2 / lo[c]));
+        aHi = nextUp(aHi - nextDown(w2 / hi[c]));
       }
+      if (!(aLo > 0 || aHi < 0)) needExact = true; // may be zero, or NaN
     }
-    value[v] = a;
-    const s = sign(a);
+    let s: number;
+    if (needExact) {
+      for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) ensureExact(nbr[k]);
+      const { a, zeroChild } = exactFromChildren(v);
+      if (zeroChild >= 0) {
+        // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
+        setExact(zeroChild, rat(2));
+        zero--; positive++;
+        setExact(v, rat(-1, 2));
+        negative++;
+        if (parent[v] >= 0) cut[v] = 1;
+        if (stop !== "none") return zeroChildWitness(v, zeroChild);
+        continue;
+      }
+      setExact(v, a);
+      s = sign(a);
+    } else {
+      lo[v] = aLo; hi[v] = aHi;
+      s = aLo > 0 ? 1 : -1;
+    }
     if (s > 0) positive++;
     else if (s < 0) negative++;
     else zero++;
     if ((stop === "nonPositive" && s <= 0) || (stop === "negative" && s < 0)) {
-      const x = subtreeVector(g, v, parent, value, budget);
-      return { positive, negative, zero, complete: false, witness: x, witnessValue: a, stoppedAt: v };
+      ensureExact(v);
+      const x = subtreeVector(g, v, parent, exact, budget);
+      return { positive, negative, zero, complete: false, witness: x, witnessValue: exact[v]!, stoppedAt: v };
     }
   }
   return { positive, negative, zero, complete: true };
+
+  function zeroChildWitness(v: number, c: number): EliminationResult {
+    const w = edgeWeight(g, v, c);
+    const x = subtreeVector(g, c, parent, exact, budget);
+    // x^T M x = 0 on the subtree of c; adding t*e_v adds -2 t w x_c + t^2 M[v][v] < 0 for small t > 0.
+    const mvv = diagonal(v);
+    const t = cmp(mvv, rat(w)) <= 0 ? ONE : div(rat(w), mvv);
+    x.set(v, t);
+    return { positive, negative, zero, complete: false, witness: x, witnessValue: sub(mul(mul(t, t), mvv), mul(rat(2 * w), t)), stoppedAt: v };
+  }
+}
+
+const BIG = 1n << 256n;
+
+// ------------------------------------------------------------ outward-rounded interval arithmetic
+
+const f64 = new Float64Array(1);
+const u32 = new Uint32Array(f64.buffer);
+f64[0] = 1;
+const [LOW, HIGH] = u32[1] === 0x3ff00000 ? [0, 1] : [1, 0];
+
+/** The next double above x (x itself for NaN and +Infinity). */
+function nextUp(x: number): number {
+  if (x !== x || x === Infinity) return x;
+  if (x === 0) return Number.MIN_VALUE;
+  f64[0] = x;
+  if (x > 0) { if (u32[LOW] === 0xffffffff) { u32[LOW] = 0; u32[HIGH]++; } else u32[LOW]++; }
+  else { if (u32[LOW] === 0) { u32[LOW] = 0xffffffff; u32[HIGH]--; } else u32[LOW]--; }
+  return f64[0];
+}
+
+function nextDown(x: number): number {
+  return -nextUp(-x);
+}
+
+const EXACT_LIMIT = 2n ** 53n;
+
+/** A double interval containing r ([0, 0] for 0); undefined when no finite non-zero enclosure is at hand. */
+function ratEnclosure(r: Rational): [number, number] | undefined {
+  if (r.num === 0n) return [0, 0];
+  if (r.num <= EXACT_LIMIT && -r.num <= EXACT_LIMIT && r.den <= EXACT_LIMIT) {
+    const q = Number(r.num) / Number(r.den); // one rounding: both operands convert exactly
+    return [nextDown(q), nextUp(q)];
+  }
+  // ratToNumber truncates to ~60 bits and rounds three times: relative error < 2^-50; widen by 2^-40.
+  const f = ratToNumber(r);
+  if (!Number.isFinite(f) || f === 0) return undefined;
+  const m = Math.abs(f) * 2 ** -40;
+  return [nextDown(f - m), nextUp(f + m)];
 }
 
 function edgeWeight(g: Graph, u: number, v: number): number {
