@@ -1,0 +1,142 @@
+/** Claims on steps: 422 naming the field, verification off the request path in the worker pool, verdicts and pictures. */
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
+
+import { actAs, jsonRequest, params } from "./helpers";
+import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
+import { closeSequelize } from "@/lib/db";
+import { models } from "@/models";
+import { verificationSettled } from "@/lib/data/claims";
+import { closePool, runInPool } from "@/lib/verification/pool";
+import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
+import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
+import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
+import * as recheckRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/recheck/route";
+
+let proofId: string;
+let stepId: string;
+const named = (text: string) => ({ format: "named", text });
+const claim = (o: object) => ({ format: "cairn-claim/1", ...o });
+// ρ(K_{1,5}) = √5 exactly (a star with k leaves has spectral radius √k).
+const starBound = claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" });
+const starInTree = claim({ kind: "subgraph", pattern: named("star(4)"), host: named("starlike(1,1,1,2,3)"), induced: false });
+
+beforeAll(async () => {
+  proofId = await draftProof("Workspace claims test");
+  const caseId = await addCase(proofId, "A vertex of degree at least 5");
+  stepId = String((await addStep(proofId, caseId, "$K_{1,5} \\subseteq G$, so $\\rho(G) \\ge \\sqrt 5$.")).id);
+});
+afterAll(async () => {
+  await dropProofs([proofId]);
+  await closePool();
+  await closeSequelize();
+});
+
+const attach = (claims: unknown, step = stepId) => claimsRoute.POST(jsonRequest("/x", "POST", { claims }), params({ proofId, stepId: step }));
+const getClaim = async (id: number) => (await (await claimRoute.GET(new Request("http://localhost/x"), params({ proofId, claimId: String(id) }))).json()).claim;
+
+describe("POST .../steps/[stepId]/claims", () => {
+  it("stores claims pending (202), verifies them in the pool, and shows verdict, method, certificate and picture", async () => {
+    await actAs("author");
+    const res = await attach([starBound, starInTree]);
+    expect(res.status).toBe(202);
+    const { claims } = await res.json();
+    expect(claims.map((c: { status: string }) => c.status)).toEqual(["pending", "pending"]);
+    for (const c of claims) await verificationSettled(c.id);
+    await actAs("reviewer");
+    const bound = await getClaim(claims[0].id);
+    expect(bound).toMatchObject({ status: "verified", statement: "ρ(G) ≥ sqrt(5)", checkerVersion: expect.stringMatching(/^cairn-check\//), checkedByName: "Ada Quenby" });
+    expect(bound.certificate.summary).toMatch(/supports “verified”/);
+    expect(bound.digest).toMatch(/^[0-9a-f]{64}$/);
+    // The picture: 6 vertices laid out, the float spectrum of K_{1,5} is ±√5 and 0 (display only).
+    const picture = bound.picture.pictures[0];
+    expect(picture.n).toBe(6);
+    expect(picture.x).toHaveLength(6);
+    expect(Math.max(...picture.spectrum)).toBeCloseTo(Math.sqrt(5), 6);
+    expect(bound.picture.bound.approx).toBeCloseTo(Math.sqrt(5), 9);
+    const sub = await getClaim(claims[1].id);
+    expect(sub.status).toBe("verified");
+    // The embedding's image is highlighted in the host: 5 vertices of K_{1,4}, its centre of degree 4.
+    expect(sub.picture.pictures[0].highlight.vertices).toHaveLength(5);
+    expect(sub.picture.pictures[0].highlight.edges).toHaveLength(4);
+  });
+
+  it("answers 422 naming the field for a malformed graph, a bound that does not parse, or a wrong-size embedding; nothing is saved", async () => {
+    await actAs("author");
+    const before = await models().Claim.count({ where: { stepId: Number(stepId) } });
+    const badGraph = await attach([claim({ kind: "structure", graph: { format: "matrix", text: "0 1\n1 0 1" }, predicate: "tree" })]);
+    expect(badGraph.status).toBe(422);
+    const g = (await badGraph.json()).error.issues[0];
+    expect(g.path).toBe("claims.0.graph.text");
+    expect(g.message).toMatch(/line 2/);
+    const badBound = await attach([starBound, claim({ kind: "spectral-radius-bound", graph: named("path(4)"), op: "<", bound: "sqrt(5" })]);
+    expect(badBound.status).toBe(422);
+    expect((await badBound.json()).error.issues[0].path).toBe("claims.1.bound");
+    const badEmbedding = await attach([{ ...starInTree, embedding: [0, 1, 2] }]);
+    expect(badEmbedding.status).toBe(422);
+    const e = (await badEmbedding.json()).error.issues[0];
+    expect(e).toMatchObject({ path: "claims.0.embedding", message: expect.stringMatching(/3 vertices but the pattern H has 5/) });
+    const badKind = await attach([claim({ kind: "magic", graph: named("path(3)") })]);
+    expect((await badKind.json()).error.issues[0].path).toBe("claims.0.kind");
+    expect((await attach([])).status).toBe(422);
+    expect(await models().Claim.count({ where: { stepId: Number(stepId) } })).toBe(before);
+  });
+
+  it("401, 403 for a reviewer and a non-member, 404 for a step of another proof", async () => {
+    await actAs(null);
+    expect((await attach([starBound])).status).toBe(401);
+    await actAs("reviewer");
+    expect((await attach([starBound])).status).toBe(403);
+    await actAs("outsider");
+    expect((await attach([starBound])).status).toBe(403);
+    await actAs("author");
+    const foreign = await models().Step.findOne({ order: [["id", "ASC"]] });
+    expect((await attach([starBound], String(foreign!.id))).status).toBe(404);
+  });
+});
+
+describe("claims list, one claim and re-check", () => {
+  it("lists every claim of the proof with its step number; re-check runs again (202) for authors, 403 for reviewers", async () => {
+    await actAs("reviewer");
+    const list = await proofClaimsRoute.GET(new Request("http://localhost/x"), params({ proofId }));
+    expect(list.status).toBe(200);
+    const rows = (await list.json()).claims;
+    expect(rows.length).toBeGreaterThanOrEqual(2);
+    expect(rows[0]).toMatchObject({ stepNumber: "1.1", caseNumber: "1", kind: "spectral-radius-bound", status: "verified" });
+    expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }))).status).toBe(403);
+    await actAs("author");
+    const again = await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }));
+    expect(again.status).toBe(202);
+    expect((await models().Claim.findByPk(rows[0].id))!.status).toBe("pending");
+    await verificationSettled(rows[0].id);
+    expect((await getClaim(rows[0].id)).status).toBe("verified");
+    expect((await claimRoute.GET(new Request("http://localhost/x"), params({ proofId, claimId: "987654" }))).status).toBe(404);
+    await actAs("outsider");
+    expect((await proofClaimsRoute.GET(new Request("http://localhost/x"), params({ proofId }))).status).toBe(403);
+    await actAs(null);
+    expect((await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }))).status).toBe(401);
+  });
+});
+
+describe("the worker pool", () => {
+  it("runs a heavy check in a worker thread while this thread keeps answering", async () => {
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 10);
+    const started = Date.now();
+    // det(xI − A) of K_150 takes about a second of exact arithmetic.
+    const answer = await runInPool({ mode: "verify", claim: claim({ kind: "characteristic-polynomial", graph: named("complete(150)") }), stepLimit: 200_000_000, picture: false });
+    clearInterval(timer);
+    const elapsed = Date.now() - started;
+    expect(answer.ok && answer.outcome?.status).toBe("verified");
+    // Had the check run on this thread, no timer could have fired until it ended.
+    expect(ticks).toBeGreaterThan(elapsed / 10 / 4);
+  });
+
+  it("turns an exhausted budget into undecided with the reason", async () => {
+    const answer = await runInPool({ mode: "verify", claim: claim({ kind: "structure", graph: named("path(100000)"), predicate: "tree" }), stepLimit: 50, picture: false });
+    expect(answer.ok).toBe(true);
+    if (!answer.ok) return;
+    expect(answer.outcome).toMatchObject({ status: "undecided", reason: expect.stringMatching(/budget exceeded/) });
+  });
+});
