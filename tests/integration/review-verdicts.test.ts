@@ -24,7 +24,7 @@ afterAll(async () => {
   await closeSequelize();
 });
 
-const p = (proofId: number, stepId?: number) => params(stepId === undefined ? { proofId: String(proofId) } : { proofId: String(proofId), stepId: String(stepId) });
+const p = (proofId: number, stepId?: number) => params({ proofId: String(proofId), stepId: String(stepId ?? "") });
 const verdict = (proofId: number, stepId: number, body: unknown) => reviews.POST(jsonRequest("/x", "POST", body), p(proofId, stepId));
 const panel = async (proofId: number, stepId: number) => (await (await reviews.GET(new Request("http://localhost/x"), p(proofId, stepId))).json()).review;
 const move = (proofId: number, reviewId: number, body: unknown) => dispute.POST(jsonRequest("/x", "POST", body), params({ proofId: String(proofId), reviewId: String(reviewId) }));
