@@ -8,7 +8,7 @@
  * before use and a malformed one is refuted with a message naming the field, never an exception.
  */
 
-import type { Graph } from "./graph";
+import { adjacency, type Adjacency, type Graph } from "./graph";
 import { Budget, BudgetExceeded, type Verdict } from "./verdict";
 
 export class CertificateRejected extends Error {
@@ -49,17 +49,40 @@ export function expectDistinct(list: readonly number[], name: string): void {
   }
 }
 
-const multiplicityCache = new WeakMap<Graph, Map<number, number>>();
+const sortedCache = new WeakMap<Graph, Adjacency>();
 
-/** m(u, v): the multiplicity of the pair (the loop weight when u = v), 0 when absent. O(1) after an O(|E|) index. */
+/** The CSR adjacency with every neighbour list sorted (it already is for normalised graphs; checked, not assumed). */
+function sortedAdjacency(g: Graph): Adjacency {
+  const hit = sortedCache.get(g);
+  if (hit) return hit;
+  const a = adjacency(g);
+  let result = a;
+  outer: for (let v = 0; v < g.n; v++)
+    for (let p = a.start[v] + 1; p < a.start[v + 1]; p++)
+      if (a.nbr[p - 1] >= a.nbr[p]) {
+        const nbr = a.nbr.slice(), wt = a.wt.slice();
+        for (let x = 0; x < g.n; x++) {
+          const idx = Array.from({ length: a.start[x + 1] - a.start[x] }, (_, i) => a.start[x] + i).sort((i, j) => a.nbr[i] - a.nbr[j]);
+          idx.forEach((from, i) => { nbr[a.start[x] + i] = a.nbr[from]; wt[a.start[x] + i] = a.wt[from]; });
+        }
+        result = { start: a.start, nbr, wt, diag: a.diag };
+        break outer;
+      }
+  sortedCache.set(g, result);
+  return result;
+}
+
+/** m(u, v): the multiplicity of the pair (the loop weight when u = v), 0 when absent; binary search, O(log deg). */
 export function multiplicity(g: Graph, u: number, v: number): number {
-  let index = multiplicityCache.get(g);
-  if (!index) {
-    index = new Map();
-    for (const e of g.edges) index.set(e.u * g.n + e.v, e.m);
-    multiplicityCache.set(g, index);
+  const a = sortedAdjacency(g);
+  if (u === v) return a.diag[u];
+  let lo = a.start[u], hi = a.start[u + 1] - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1, x = a.nbr[mid];
+    if (x === v) return a.wt[mid];
+    if (x < v) lo = mid + 1; else hi = mid - 1;
   }
-  return u <= v ? index.get(u * g.n + v) ?? 0 : index.get(v * g.n + u) ?? 0;
+  return 0;
 }
 
 /** Sum of all multiplicities, loops included: the number of edges of the multigraph. */

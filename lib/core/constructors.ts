@@ -46,7 +46,8 @@
  *   which is the path 0..n-2 plus (1, n-1) and (n-3, n); D~(4) is the same rule (path 0..2, plus (1,3), (1,4)).
  */
 
-import { GraphError, makeGraph, type Graph } from "./graph";
+import { GraphError, type Graph } from "./graph";
+import { buildGraph } from "./graph-build";
 
 /** Largest graph the named syntax will build (vertices or edges), so a typo cannot exhaust memory. */
 export const MAX_NAMED_SIZE = 5_000_000;
@@ -66,19 +67,19 @@ function requireAtLeast(name: string, value: number, min: number): void {
 
 export function path(n: number): Graph {
   requireAtLeast("path", n, 1);
-  return makeGraph(n, pathEdges(n));
+  return buildGraph(n, pathEdges(n));
 }
 
 export function cycle(n: number): Graph {
   requireAtLeast("cycle", n, 3);
-  return makeGraph(n, [...pathEdges(n), { u: n - 1, v: 0 }]);
+  return buildGraph(n, [...pathEdges(n), { u: n - 1, v: 0 }]);
 }
 
 export function star(k: number): Graph {
   requireAtLeast("star", k, 1);
   const edges: EdgeInput[] = [];
   for (let i = 1; i <= k; i++) edges.push({ u: 0, v: i });
-  return makeGraph(k + 1, edges);
+  return buildGraph(k + 1, edges);
 }
 
 export function complete(n: number): Graph {
@@ -86,7 +87,7 @@ export function complete(n: number): Graph {
   if ((n * (n - 1)) / 2 > MAX_NAMED_SIZE) throw new GraphError(`complete(${n}) has more than ${MAX_NAMED_SIZE} edges`);
   const edges: EdgeInput[] = [];
   for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) edges.push({ u: i, v: j });
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 export function completeBipartite(a: number, b: number): Graph {
@@ -95,7 +96,7 @@ export function completeBipartite(a: number, b: number): Graph {
   if (a * b > MAX_NAMED_SIZE) throw new GraphError(`complete_bipartite(${a},${b}) has more than ${MAX_NAMED_SIZE} edges`);
   const edges: EdgeInput[] = [];
   for (let i = 0; i < a; i++) for (let j = 0; j < b; j++) edges.push({ u: i, v: a + j });
-  return makeGraph(a + b, edges);
+  return buildGraph(a + b, edges);
 }
 
 /** Star-like tree T(l1,…,lk) in the benchmark layout (see the header comment). */
@@ -114,7 +115,7 @@ export function starlike(legs: readonly number[]): Graph {
     for (let j = 1; j < sorted[i]; j++) edges.push({ u: next + j - 1, v: next + j });
     next += sorted[i];
   }
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 /** Tree with two branch vertices: legs a,b at the first, k ≥ 1 inner edges, legs c,d at the second. */
@@ -132,7 +133,7 @@ export function twoBranch(a: number, b: number, k: number, c: number, d: number)
     for (let j = 1; j < len; j++) edges.push({ u: next + j - 1, v: next + j });
     next += len;
   }
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 export const dynkinA = (n: number): Graph => path(n);
@@ -149,8 +150,8 @@ export function dynkinE(n: number): Graph {
 
 export function affineA(n: number): Graph {
   requireAtLeast("A~", n, 0);
-  if (n === 0) return makeGraph(1, [{ u: 0, v: 0, m: 2 }]);
-  if (n === 1) return makeGraph(2, [{ u: 0, v: 1, m: 2 }]);
+  if (n === 0) return buildGraph(1, [{ u: 0, v: 0, m: 2 }]);
+  if (n === 1) return buildGraph(2, [{ u: 0, v: 1, m: 2 }]);
   return cycle(n + 1);
 }
 
@@ -158,7 +159,7 @@ export function affineD(n: number): Graph {
   requireAtLeast("D~", n, 4);
   // Benchmark rule for N = n+1 vertices: path 0..N-3 plus (1, N-2) and (N-4, N-1).
   const N = n + 1;
-  return makeGraph(N, [...pathEdges(N - 2), { u: 1, v: N - 2 }, { u: N - 4, v: N - 1 }]);
+  return buildGraph(N, [...pathEdges(N - 2), { u: 1, v: N - 2 }, { u: N - 4, v: N - 1 }]);
 }
 
 export function affineE(n: number): Graph {
@@ -170,22 +171,22 @@ export function affineE(n: number): Graph {
 
 export function loopPath(n: number): Graph {
   requireAtLeast("loop_path", n, 1);
-  return makeGraph(n, [{ u: 0, v: 0, m: 1 }, ...pathEdges(n)]);
+  return buildGraph(n, [{ u: 0, v: 0, m: 1 }, ...pathEdges(n)]);
 }
 
 export function loopPath2(n: number): Graph {
   requireAtLeast("loop_path2", n, 2);
-  return makeGraph(n, [{ u: 0, v: 0, m: 1 }, { u: n - 1, v: n - 1, m: 1 }, ...pathEdges(n)]);
+  return buildGraph(n, [{ u: 0, v: 0, m: 1 }, { u: n - 1, v: n - 1, m: 1 }, ...pathEdges(n)]);
 }
 
 export function forkLoop(n: number): Graph {
   requireAtLeast("fork_loop", n, 3);
-  return makeGraph(n, [{ u: 0, v: 0, m: 1 }, ...pathEdges(n - 1), { u: n - 3, v: n - 1 }]);
+  return buildGraph(n, [{ u: 0, v: 0, m: 1 }, ...pathEdges(n - 1), { u: n - 3, v: n - 1 }]);
 }
 
 /** Disjoint union: h's vertices are renumbered after g's; labels are kept only when both have them. */
 export function disjointUnion(g: Graph, h: Graph): Graph {
   const edges = [...g.edges, ...h.edges.map((e) => ({ u: e.u + g.n, v: e.v + g.n, m: e.m }))];
   const labels = g.labels && h.labels ? [...g.labels, ...h.labels] : undefined;
-  return makeGraph(g.n + h.n, edges, labels);
+  return buildGraph(g.n + h.n, edges, labels);
 }

@@ -10,7 +10,8 @@
  * Errors name line 1 and the 1-based column (character position) of the offending byte.
  */
 
-import { GraphError, makeGraph, type Graph } from "./graph";
+import { GraphError, type Graph } from "./graph";
+import { buildGraph } from "./graph-build";
 
 export const GRAPH6_HEADER = ">>graph6<<";
 export const SPARSE6_HEADER = ">>sparse6<<";
@@ -81,8 +82,7 @@ export function parseGraph6(text: string): Graph {
   let k = 0;
   for (let j = 1; j < n; j++) {
     for (let i = 0; i < j; i++, k++) {
-      const byteIndex = next + Math.floor(k / 6);
-      const value = byteValue(body, byteIndex, offset + byteIndex + 1);
+      const value = body.charCodeAt(next + Math.floor(k / 6)) - 63; // bytes validated above
       if ((value >> (5 - (k % 6))) & 1) edges.push({ u: i, v: j });
     }
   }
@@ -91,7 +91,7 @@ export function parseGraph6(text: string): Graph {
     const last = byteValue(body, body.length - 1, offset + body.length);
     if (last & ((1 << (6 - (bits % 6))) - 1)) throw new GraphError("graph6 padding bits in the last byte are not zero", 1, offset + body.length);
   }
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 /** Writes a simple graph as graph6 (no trailing newline); loops or multiple edges are an error. */
@@ -105,10 +105,7 @@ export function writeGraph6(g: Graph, header = false): string {
     const k = (e.v * (e.v - 1)) / 2 + e.u; // column-wise order (0,1),(0,2),(1,2),(0,3),…
     bytes[Math.floor(k / 6)] |= 1 << (5 - (k % 6));
   }
-  let out = header ? GRAPH6_HEADER : "";
-  out += writeOrder(n);
-  for (const b of bytes) out += String.fromCharCode(b + 63);
-  return out;
+  return (header ? GRAPH6_HEADER : "") + writeOrder(n) + printable(bytes);
 }
 
 /** Bits needed for a vertex number in sparse6: the least k ≥ 1 with 2^k ≥ n (as nauty and networkx do). */
@@ -128,11 +125,10 @@ export function parseSparse6(text: string): Graph {
   const { n, next } = readOrder(body, 1, offset);
   if (n > MAX_BUILD_ORDER) throw new GraphError(`sparse6 with ${n} vertices is beyond the limit of ${MAX_BUILD_ORDER}`, 1, offset + 2);
   const k = sparse6Width(n);
-  const totalBits = (body.length - next) * 6;
-  const bitAt = (p: number): number => {
-    const byteIndex = next + Math.floor(p / 6);
-    return (byteValue(body, byteIndex, offset + byteIndex + 1) >> (5 - (p % 6))) & 1;
-  };
+  const data = new Uint8Array(body.length - next);
+  for (let q = 0; q < data.length; q++) data[q] = body.charCodeAt(next + q) - 63; // validated above
+  const totalBits = data.length * 6;
+  const bitAt = (p: number): number => (data[(p / 6) | 0] >> (5 - (p % 6))) & 1;
   const edges: Array<{ u: number; v: number }> = [];
   let v = 0;
   let p = 0;
@@ -148,38 +144,55 @@ export function parseSparse6(text: string): Graph {
     if (x > v) v = x;
     else edges.push({ u: x, v });
   }
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 /** Writes any graph (loops and multiple edges allowed) as sparse6, following the encoder of formats.txt. */
 export function writeSparse6(g: Graph, header = false): string {
   const n = g.n;
   const k = sparse6Width(n);
-  const bits: number[] = [];
-  const push = (b: number, x: number) => {
-    bits.push(b);
-    for (let i = k - 1; i >= 0; i--) bits.push(Math.floor(x / 2 ** i) % 2);
+  // Bits go straight into 6-bit groups; a growable byte buffer keeps 10⁶-edge graphs cheap.
+  let groups = new Uint8Array(64);
+  let bitCount = 0;
+  const pushBit = (bit: number) => {
+    const at = (bitCount / 6) | 0;
+    if (at >= groups.length) { const bigger = new Uint8Array(groups.length * 2); bigger.set(groups); groups = bigger; }
+    if (bit) groups[at] |= 1 << (5 - (bitCount % 6));
+    bitCount++;
   };
-  // Pairs in order of the larger end, then the smaller; each unit of multiplicity is one occurrence.
-  const pairs = g.edges.map((e) => ({ hi: e.v, lo: e.u, m: e.m })).sort((a, b) => a.hi - b.hi || a.lo - b.lo);
+  const push = (b: number, x: number) => {
+    pushBit(b);
+    if (k <= 30) for (let i = k - 1; i >= 0; i--) pushBit((x >>> i) & 1);
+    else for (let i = k - 1; i >= 0; i--) pushBit(Math.floor(x / 2 ** i) % 2);
+  };
+  // Pairs in order of the larger end, then the smaller (a counting sort on the larger end keeps the
+  // normalised order of the smaller); each unit of multiplicity is one occurrence.
+  const byHigh = new Int32Array(n + 1);
+  for (const e of g.edges) byHigh[e.v + 1]++;
+  for (let v = 0; v < n; v++) byHigh[v + 1] += byHigh[v];
+  const order = new Int32Array(g.edges.length);
+  const sortedEdges = [...g.edges].sort((a, b) => a.u - b.u || a.v - b.v); // no-op for normalised graphs
+  sortedEdges.forEach((e, i) => { order[byHigh[e.v]++] = i; });
   let current = 0;
-  for (const { hi, lo, m } of pairs) {
+  for (const i of order) {
+    const { u: lo, v: hi, m } = sortedEdges[i];
     for (let r = 0; r < m; r++) {
       if (hi === current) push(0, lo);
       else if (hi === current + 1) { current++; push(1, lo); }
       else { current = hi; push(1, hi); push(0, lo); }
     }
   }
-  const pad = (6 - (bits.length % 6)) % 6;
+  const pad = (6 - (bitCount % 6)) % 6;
   // Special case of formats.txt: with n = 2^k (k < 6), padding of ≥ k one-bits after a (0,…) start
   // would read as a pair (1, n-1) and add an edge at vertex n-1; a leading 0 bit prevents it.
-  if (k < 6 && n === 2 ** k && pad >= k && current < n - 1) bits.push(0);
-  while (bits.length % 6 !== 0) bits.push(1);
-  let out = (header ? SPARSE6_HEADER : "") + ":" + writeOrder(n);
-  for (let i = 0; i < bits.length; i += 6) {
-    let value = 0;
-    for (let j = 0; j < 6; j++) value = value * 2 + bits[i + j];
-    out += String.fromCharCode(value + 63);
-  }
-  return out;
+  if (k < 6 && n === 2 ** k && pad >= k && current < n - 1) pushBit(0);
+  while (bitCount % 6 !== 0) pushBit(1);
+  return (header ? SPARSE6_HEADER : "") + ":" + writeOrder(n) + printable(groups.subarray(0, bitCount / 6));
+}
+
+/** 6-bit groups as the printable bytes 63–126, in chunks so long graphs do not overflow the call stack. */
+function printable(groups: Uint8Array): string {
+  const chunks: string[] = [];
+  for (let i = 0; i < groups.length; i += 8192) chunks.push(String.fromCharCode(...Array.from(groups.subarray(i, i + 8192), (b) => b + 63)));
+  return chunks.join("");
 }

@@ -13,7 +13,7 @@
  * F found is embedded; G is F itself exactly when they have the same vertex and edge counts.
  */
 
-import { adjacency, makeGraph, type Graph } from "./graph";
+import { adjacency, type Graph } from "./graph";
 import { Budget, withinBudget, type Verdict } from "./verdict";
 import { edgeTotal, expectInt, expectIntArray, expectRecord, multiplicity, recheck, reject } from "./certificate-check";
 import { findCycle, sweep, treePath, recheckConnected, type ComponentsCertificate, type Sweep } from "./structure";
@@ -130,7 +130,7 @@ function classify(g: Graph, budget: Budget): Found | ComponentsCertificate {
     if (e.u !== e.v && e.m >= 2) return { family: "A~", parameter: 1, phi: [e.u, e.v], why: `${e.u}–${e.v} is an edge of multiplicity ${e.m}` };
     if (e.u === e.v && e.m >= 2) return { family: "A~", parameter: 0, phi: [e.u], why: `vertex ${e.u} has a loop of weight ${e.m}` };
   }
-  const cycle = findCycle(makeGraph(g.n, g.edges.filter((e) => e.u !== e.v)), s, budget);
+  const cycle = findCycle(g, s, budget, true);
   if (cycle) return { family: "A~", parameter: cycle.length - 1, phi: cycle, why: `G contains the cycle ${cycle.length <= 12 ? cycle.join("–") : `of length ${cycle.length}`}` };
   return treeCase(g, s, budget);
 }

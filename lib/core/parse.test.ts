@@ -191,3 +191,11 @@ describe("format detection", () => {
     expect([e.line, e.column]).toEqual([1, 11]);
   });
 });
+
+describe("edge list header columns", () => {
+  it("reads n=4 without spaces and points at the count", () => {
+    expect(parseEdgeList("n=4\n0 1").n).toBe(4);
+    const e = errorOf(() => parseEdgeList("n=x\n0 1"));
+    expect([e.line, e.column]).toEqual([1, 3]);
+  });
+});

@@ -16,7 +16,8 @@
  * them), square and symmetric; A[v][v] is the loop weight at v.
  */
 
-import { GraphError, makeGraph, type Graph } from "./graph";
+import { GraphError, type Graph } from "./graph";
+import { buildGraph } from "./graph-build";
 import { parseGraph6, parseSparse6, GRAPH6_HEADER, SPARSE6_HEADER } from "./graph6";
 import { parseNamed, looksNamed } from "./named";
 
@@ -27,29 +28,40 @@ export const MAX_PARSED_VERTICES = 10_000_000;
 
 interface Token { text: string; line: number; column: number }
 
-/** Splits text into lines of tokens, dropping comments; separators are whitespace, commas, brackets and ';'. */
-function tokenLines(text: string, separators: RegExp): Token[][] {
+/**
+ * Splits text into lines of tokens, dropping `#` comments; `separator(code)` says which characters
+ * separate fields and the `punctuation` character (if any) is a token of its own.
+ */
+function tokenLines(text: string, separator: (code: number) => boolean, punctuation = -1): Token[][] {
   const out: Token[][] = [];
-  const lines = text.split(/\r\n|\n|\r/);
-  for (let li = 0; li < lines.length; li++) {
-    const raw = lines[li];
-    const hash = raw.indexOf("#");
-    const body = hash >= 0 ? raw.slice(0, hash) : raw;
-    const tokens: Token[] = [];
-    let i = 0;
-    while (i < body.length) {
-      if (separators.test(body[i])) { i++; continue; }
-      const start = i;
-      while (i < body.length && !separators.test(body[i])) i++;
-      tokens.push({ text: body.slice(start, i), line: li + 1, column: start + 1 });
+  let line = 1, lineStart = 0, i = 0;
+  let tokens: Token[] = [];
+  const n = text.length;
+  while (i <= n) {
+    const code = i < n ? text.charCodeAt(i) : 10;
+    if (code === 10 || code === 13) {
+      if (tokens.length > 0) { out.push(tokens); tokens = []; }
+      if (code === 13 && text.charCodeAt(i + 1) === 10) i++;
+      i++; line++; lineStart = i;
+      continue;
     }
-    if (tokens.length > 0) out.push(tokens);
+    if (code === 35) { while (i < n && text.charCodeAt(i) !== 10 && text.charCodeAt(i) !== 13) i++; continue; } // "#"
+    if (separator(code)) { i++; continue; }
+    const start = i;
+    if (code === punctuation) { i++; tokens.push({ text: text[start], line, column: start - lineStart + 1 }); continue; }
+    while (i < n) {
+      const c = text.charCodeAt(i);
+      if (c === 10 || c === 13 || c === 35 || c === punctuation || separator(c)) break;
+      i++;
+    }
+    tokens.push({ text: text.slice(start, i), line, column: start - lineStart + 1 });
   }
   return out;
 }
 
-const EDGE_SEPARATORS = /[\s,]/;
-const MATRIX_SEPARATORS = /[\s,;[\]]/;
+const isSpace = (c: number) => c === 32 || c === 9 || c === 11 || c === 12 || c === 0xa0 || c === 0xfeff || (c >= 0x2000 && c <= 0x200a) || c === 0x3000;
+const EDGE_SEPARATORS = (c: number) => isSpace(c) || c === 44; // ","
+const MATRIX_SEPARATORS = (c: number) => isSpace(c) || c === 44 || c === 59 || c === 91 || c === 93; // , ; [ ]
 const INTEGER = /^\d+$/;
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_.']*$/;
 
@@ -62,7 +74,7 @@ function positiveInteger(t: Token, what: string): number {
 
 /** Reads an edge list (see the module comment). */
 export function parseEdgeList(text: string): Graph {
-  const lines = tokenLines(text.replace(/=/g, " = "), EDGE_SEPARATORS);
+  const lines = tokenLines(text, EDGE_SEPARATORS, 61); // "=" stands alone, as in "n=7"
   let header: number | undefined;
   let headerToken: Token | undefined;
   const edgeLines: Token[][] = [];
@@ -100,7 +112,7 @@ export function parseEdgeList(text: string): Graph {
       }
       edges.push({ u: Number(tokens[0].text), v: Number(tokens[1].text), m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
     }
-    return makeGraph(header ?? maxVertex + 1, edges);
+    return buildGraph(header ?? maxVertex + 1, edges);
   }
   const index = new Map<string, number>();
   const labels: string[] = [];
@@ -126,7 +138,7 @@ export function parseEdgeList(text: string): Graph {
     index.set(name, i);
     labels.push(name);
   }
-  return makeGraph(n, edges, labels);
+  return buildGraph(n, edges, labels);
 }
 
 /** Reads a square symmetric matrix of non-negative integers; the first asymmetric entry is reported. */
@@ -157,7 +169,7 @@ export function parseAdjacencyMatrix(text: string): Graph {
       if (j >= i && values[i][j] > 0) edges.push({ u: i, v: j, m: values[i][j] });
     }
   }
-  return makeGraph(n, edges);
+  return buildGraph(n, edges);
 }
 
 /**

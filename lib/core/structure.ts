@@ -73,16 +73,16 @@ export function treePath(s: Sweep, x: number, y: number): number[] {
   return [...left, p, ...right.reverse()];
 }
 
-/** Some cycle of G (a loop, a multiple edge, or a BFS non-tree edge), or null for a forest. */
-export function findCycle(g: Graph, s: Sweep, budget: Budget): number[] | null {
+/** Some cycle of G (a loop, a multiple edge, or a BFS non-tree edge), or null for a forest; `skipLoops` ignores loops. */
+export function findCycle(g: Graph, s: Sweep, budget: Budget, skipLoops = false): number[] | null {
   for (const e of g.edges) {
     budget.tick();
-    if (e.u === e.v) return [e.u];
-    if (e.m >= 2) return [e.u, e.v];
+    if (e.u === e.v && !skipLoops) return [e.u];
+    if (e.u !== e.v && e.m >= 2) return [e.u, e.v];
   }
   for (const e of g.edges) {
     budget.tick();
-    if (s.parent[e.v] !== e.u && s.parent[e.u] !== e.v) return treePath(s, e.u, e.v);
+    if (e.u !== e.v && s.parent[e.v] !== e.u && s.parent[e.u] !== e.v) return treePath(s, e.u, e.v);
   }
   return null;
 }
