@@ -1,0 +1,81 @@
+/**
+ * Snapshot → certificate bundle ("cairn-bundle/1", sealed by lib/core/bundle.ts). Items in reading
+ * order: the proof, then each case followed by its steps and their claims, depth first.
+ */
+import { CHECKER_VERSION } from "@/lib/core/claims";
+import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/bundle";
+import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type SnapshotClaim } from "./snapshot";
+
+export const stepItemId = (caseNumber: string, position: number) => `step ${caseNumber}:${position}`;
+/** Claims are numbered 1, 2, … in their order on the step. */
+export const claimItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `claim ${caseNumber}:${stepPosition}#${ordinal}`;
+
+/** JSON text from the database, parsed; text that is not JSON is kept as the text itself (the checker reports it). */
+function parsed(text: string | null): unknown {
+  if (text === null) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return text;
+  }
+}
+
+/** The claim without any certificate it carried (the certificate travels beside it). */
+function claimJson(c: SnapshotClaim): unknown {
+  const json = parsed(c.input);
+  if (typeof json === "object" && json !== null && !Array.isArray(json) && "certificate" in json) {
+    const { certificate: _certificate, ...rest } = json as Record<string, unknown>;
+    return rest;
+  }
+  return json;
+}
+
+export interface ExportMeta {
+  kind: ExportKind;
+  exportedAt: string;
+  exportedBy: string;
+}
+
+export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
+  const items: Array<{ id: string; type: BundleItemType; data: unknown }> = [];
+  items.push({
+    id: "proof",
+    type: "proof",
+    data: { title: p.title, statement: p.statement, requiredApprovals: p.requiredApprovals, members: p.members.map((m) => ({ name: m.name, role: m.role })) },
+  });
+  for (const c of flattenCases(p.cases)) {
+    const parent = c.number.includes(".") ? `case ${c.number.slice(0, c.number.lastIndexOf("."))}` : null;
+    items.push({
+      id: `case ${c.number}`,
+      type: "case",
+      data: { number: c.number, parent, title: c.title, condition: c.condition, state: caseStateOf(c, p.requiredApprovals) },
+    });
+    for (const s of c.steps) {
+      items.push({
+        id: stepItemId(c.number, s.position),
+        type: "step",
+        data: {
+          case: c.number,
+          position: s.position,
+          revision: s.revision,
+          reviews: s.reviews.map((r) => ({ reviewer: r.reviewerName, verdict: r.verdict, revision: r.revisionNumber, disputeState: r.disputeState, at: r.at })),
+        },
+      });
+      for (const [k, cl] of s.claims.entries()) {
+        const data: ClaimItemData = {
+          step: stepItemId(c.number, s.position),
+          position: cl.position,
+          claim: claimJson(cl),
+          digest: cl.digest,
+          verdict: { status: cl.status, statement: cl.statement, method: cl.method, reason: cl.reason },
+          certificate: parsed(cl.certificate),
+          checkerVersion: cl.checkerVersion,
+          checkedAt: cl.checkedAt,
+        };
+        items.push({ id: claimItemId(c.number, s.position, k + 1), type: "claim", data });
+      }
+    }
+  }
+  const { state } = certificationOf(p);
+  return sealBundle({ kind: meta.kind, exportedAt: meta.exportedAt, exportedBy: meta.exportedBy, proofState: state, checkerVersion: CHECKER_VERSION }, items);
+}

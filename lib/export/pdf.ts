@@ -1,0 +1,69 @@
+/**
+ * PDF from the exported LaTeX with pdflatex, in a fresh temporary directory: no shell escape,
+ * non-interactive, halting on the first error, files outside the directory unreadable and unwritable
+ * (openin_any/openout_any = p), and a time limit. Node-only (child_process), framework-free.
+ */
+import { execFile, type ExecFileException } from "node:child_process";
+import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+
+export class PdfUnavailableError extends Error {
+  constructor() {
+    super("pdflatex is not installed on this server. Install Debian's texlive-latex-base, texlive-latex-recommended and texlive-fonts-recommended (apt-get install …), or download the .tex and compile it yourself, or print the print view to PDF from your browser.");
+    this.name = "PdfUnavailableError";
+  }
+}
+
+export class PdfFailedError extends Error {
+  constructor(readonly log: string) {
+    super("pdflatex could not compile the exported document");
+    this.name = "PdfFailedError";
+  }
+}
+
+export interface CompileResult {
+  pdf: Buffer;
+  log: string;
+}
+
+interface RunResult {
+  code: number | null;
+  error?: ExecFileException;
+}
+
+function run(cmd: string, args: string[], cwd: string, timeoutMs: number): Promise<RunResult> {
+  return new Promise((resolve) => {
+    execFile(
+      cmd,
+      args,
+      {
+        cwd,
+        timeout: timeoutMs,
+        killSignal: "SIGKILL",
+        maxBuffer: 16 * 1024 * 1024,
+        env: { NODE_ENV: process.env.NODE_ENV, PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: cwd, openin_any: "p", openout_any: "p", shell_escape: "f", TEXMFOUTPUT: cwd } as NodeJS.ProcessEnv,
+      },
+      (error) => resolve({ code: error ? (typeof error.code === "number" ? error.code : null) : 0, error: error ?? undefined }),
+    );
+  });
+}
+
+/** Compiles LaTeX source to PDF; throws PdfUnavailableError when pdflatex is missing, PdfFailedError with the log otherwise. */
+export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1 } = {}): Promise<CompileResult> {
+  const dir = await mkdtemp(join(tmpdir(), "cairn-tex-"));
+  try {
+    await writeFile(join(dir, "proof.tex"), tex, "utf8");
+    let last: RunResult = { code: 0 };
+    for (let i = 0; i < runs; i++) {
+      last = await run("pdflatex", ["-no-shell-escape", "-interaction=nonstopmode", "-halt-on-error", "-file-line-error", "proof.tex"], dir, timeoutMs);
+      if (last.error?.code === "ENOENT") throw new PdfUnavailableError();
+      if (last.code !== 0) break;
+    }
+    const log = await readFile(join(dir, "proof.log"), "utf8").catch(() => "");
+    if (last.code !== 0) throw new PdfFailedError(log || String(last.error?.message ?? "no log"));
+    return { pdf: await readFile(join(dir, "proof.pdf")), log };
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}

@@ -1,0 +1,105 @@
+/**
+ * A proof as the data layer reads it for an export: plain objects, no models. Pure functions here
+ * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
+ */
+import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type DisputeState, type ProofState, type StepFacts } from "@/lib/review/states";
+
+export interface SnapshotReview {
+  reviewerId: number;
+  reviewerName: string;
+  verdict: "approve" | "dispute";
+  revisionNumber: number;
+  disputeState: DisputeState | null;
+  at: string;
+}
+
+export interface SnapshotClaim {
+  position: number;
+  kind: string;
+  /** The claim as stored (JSON text of a cairn-claim/1 claim). */
+  input: string;
+  digest: string | null;
+  status: ClaimStatus;
+  statement: string | null;
+  method: string | null;
+  reason: string | null;
+  /** The stored certificate as JSON text, or null. */
+  certificate: string | null;
+  checkerVersion: string | null;
+  checkedAt: string | null;
+}
+
+export interface SnapshotStep {
+  id: number;
+  position: number;
+  revision: { number: number; body: string; authorName: string; savedAt: string } | null;
+  authorIds: number[];
+  reviews: SnapshotReview[];
+  claims: SnapshotClaim[];
+}
+
+export interface SnapshotCase {
+  id: number;
+  number: string;
+  depth: number;
+  title: string;
+  condition: string;
+  steps: SnapshotStep[];
+  children: SnapshotCase[];
+}
+
+export interface ProofSnapshot {
+  id: number;
+  title: string;
+  statement: string;
+  requiredApprovals: number;
+  members: Array<{ name: string; role: string }>;
+  cases: SnapshotCase[];
+}
+
+function stepFacts(s: SnapshotStep): StepFacts {
+  return {
+    id: s.id,
+    latestRevision: s.revision?.number ?? 0,
+    reviews: s.reviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: r.revisionNumber, verdict: r.verdict, disputeState: r.disputeState })),
+    claims: s.claims.map((c) => c.status),
+    authorIds: s.authorIds,
+  };
+}
+
+export function caseFacts(c: SnapshotCase): CaseFacts {
+  return { id: c.id, steps: c.steps.map(stepFacts), children: c.children.map(caseFacts) };
+}
+
+export const caseStateOf = (c: SnapshotCase, requiredApprovals: number): CaseState => caseState(caseFacts(c), requiredApprovals);
+
+export function flattenCases(cases: SnapshotCase[]): SnapshotCase[] {
+  return cases.flatMap((c) => [c, ...flattenCases(c.children)]);
+}
+
+export interface Certification {
+  state: ProofState;
+  /** Why the proof cannot be certified yet, one sentence per unsettled case or step; empty when ready. */
+  blockers: string[];
+}
+
+/** Whether the proof is ready to certify and, if not, what stands in the way, in the product's words. */
+export function certificationOf(p: ProofSnapshot): Certification {
+  const state = proofState(p.cases.map(caseFacts), p.requiredApprovals);
+  const blockers: string[] = [];
+  if (p.cases.length === 0) blockers.push("The proof has no cases yet.");
+  for (const c of flattenCases(p.cases)) {
+    for (const s of c.steps) {
+      const st = stepStatus(stepFacts(s), p.requiredApprovals);
+      const where = `Step ${c.number}:${s.position}`;
+      if (st.openDisputes > 0) blockers.push(`${where} has ${st.openDisputes} open dispute${st.openDisputes > 1 ? "s" : ""}.`);
+      if (st.claimFailing) blockers.push(`${where} has a refuted claim.`);
+      else if (!st.claimsVerified) blockers.push(`${where} has a claim that is not verified.`);
+      if (!st.approved)
+        blockers.push(`${where} has ${st.approvals} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.staleApprovals ? ` (${st.staleApprovals} stale)` : ""}.`);
+    }
+    if (c.steps.length === 0 && c.children.length === 0) blockers.push(`Case ${c.number} has no steps.`);
+  }
+  if (state !== "ready to certify" && blockers.length === 0) blockers.push("Not every case is settled.");
+  return { state, blockers: state === "ready to certify" ? [] : blockers };
+}

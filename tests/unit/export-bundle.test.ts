@@ -1,0 +1,126 @@
+import { execFile } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { checkBundle, sealBundle, type Bundle } from "@/lib/core/bundle";
+import { buildBundle } from "@/lib/export/bundle";
+import { certificationOf } from "@/lib/export/snapshot";
+import { settledSnapshot } from "./export-fixture";
+
+const dir = mkdtempSync(join(tmpdir(), "cairn-bundle-test-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+const fresh = (): Bundle => buildBundle(settledSnapshot(), { kind: "certified", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" });
+const copy = (b: Bundle) => JSON.parse(JSON.stringify(b)) as Record<string, any>;
+
+/** Runs the offline checker command (`npm run check -- FILE`) on a bundle written to disk. */
+function runChecker(json: unknown, name: string): Promise<{ code: number; out: string }> {
+  const file = join(dir, name);
+  writeFileSync(file, JSON.stringify(json, null, 2));
+  return new Promise((resolve) => {
+    execFile("npm", ["run", "--silent", "check", "--", file], { cwd: process.cwd(), timeout: 60_000 }, (error, stdout, stderr) =>
+      resolve({ code: error ? Number(error.code ?? 1) : 0, out: stdout + stderr }),
+    );
+  });
+}
+
+describe("bundle", () => {
+  it("holds every item with its SHA-256 and a manifest digest, and re-checks clean", () => {
+    const b = fresh();
+    expect(b.format).toBe("cairn-bundle/1");
+    expect(b.items.map((i) => i.id)).toEqual(["proof", "case 1", "step 1:1", "claim 1:1#1", "case 1.1", "step 1.1:1", "claim 1.1:1#1"]);
+    for (const i of b.items) expect(i.sha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(b.manifestDigest).toMatch(/^[0-9a-f]{64}$/);
+    const r = checkBundle(copy(b), "b.json");
+    expect(r.exitCode).toBe(0);
+    expect(r.lines.filter((l) => l.label.startsWith("claim")).every((l) => l.status === "verified" && l.certificate?.matches)).toBe(true);
+  });
+
+  it("is deterministic: the same snapshot and time give the same manifest digest", () => {
+    expect(fresh().manifestDigest).toBe(fresh().manifestDigest);
+  });
+
+  it("a changed character in a step fails and names the step", () => {
+    const b = copy(fresh());
+    const step = b.items.find((i: { id: string }) => i.id === "step 1.1:1");
+    step.data.revision.body = step.data.revision.body.replace("2", "3");
+    const r = checkBundle(b, "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "step 1.1:1")?.text).toMatch(/CHANGED since export/);
+    expect(r.lines.find((l) => l.label === "manifest")?.text).toContain("step 1.1:1");
+  });
+
+  it("a changed certificate entry fails the claim's re-check and names the claim", () => {
+    const b = copy(fresh());
+    const claim = b.items.find((i: { id: string }) => i.id === "claim 1.1:1#1");
+    const before = JSON.stringify(claim.data.certificate);
+    // Change one entry of the evidence: the first number found in it.
+    claim.data.certificate = JSON.parse(before.replace(/(\d+)/, (d) => String(Number(d) + 1)));
+    expect(JSON.stringify(claim.data.certificate)).not.toBe(before);
+    const r = checkBundle(b, "b.json");
+    expect(r.exitCode).not.toBe(0);
+    const line = r.lines.find((l) => l.label === "claim 1.1:1#1")!;
+    expect(line.status).not.toBe("verified");
+    expect(line.text).toMatch(/CHANGED since export/);
+  });
+
+  it("a changed verdict fails even when the tamperer re-seals every digest", () => {
+    const b = fresh();
+    const items = b.items.map((i) =>
+      i.id === "claim 1:1#1" ? { ...i, data: { ...(i.data as object), verdict: { ...(i.data as { verdict: object }).verdict, status: "refuted" } } } : i,
+    );
+    // Re-seal honestly with the tampered data: digests all match, only the re-verification can catch it.
+    const resealed = sealBundle(b.export, items.map(({ id, type, data }) => ({ id, type, data })));
+    const r = checkBundle(copy(resealed), "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
+  });
+
+  it("a changed export header (draft turned certified) fails at the manifest", () => {
+    const b = copy(buildBundle(settledSnapshot(), { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" }));
+    b.export.kind = "certified";
+    const r = checkBundle(b, "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "manifest")?.text).toMatch(/manifest digest does not match/);
+  });
+
+  it("a document that is not a bundle is malformed (exit 2)", () => {
+    expect(checkBundle({ format: "cairn-bundle/1" }, "x").exitCode).toBe(2);
+  });
+});
+
+describe("certification", () => {
+  it("a settled snapshot is ready to certify; an open dispute blocks it with the reason", () => {
+    expect(certificationOf(settledSnapshot())).toEqual({ state: "ready to certify", blockers: [] });
+    const s = settledSnapshot();
+    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "open", at: "2026-11-30T13:00:00.000Z" });
+    const c = certificationOf(s);
+    expect(c.state).toBe("in progress");
+    expect(c.blockers).toContain("Step 1:1 has 1 open dispute.");
+  });
+});
+
+describe("the offline checker command on a bundle", () => {
+  it("exits 0 on an untouched bundle and prints a per-claim report and a final line", async () => {
+    const { code, out } = await runChecker(fresh(), "clean.json");
+    expect(code).toBe(0);
+    expect(out).toMatch(/✓ verified\s+claim 1:1#1/);
+    expect(out).toMatch(/✓ verified\s+claim 1.1:1#1/);
+    expect(out.trim().split("\n").at(-1)).toBe("3 checked: 3 verified, 0 refuted, 0 undecided");
+  });
+
+  it("exits non-zero and names the item for a changed step character, certificate entry or verdict", async () => {
+    const step = copy(fresh());
+    step.items[2].data.revision.body += ".";
+    const cert = copy(fresh());
+    cert.items[6].data.certificate = JSON.parse(JSON.stringify(cert.items[6].data.certificate).replace(/(\d+)/, (d) => String(Number(d) + 1)));
+    const verdict = copy(fresh());
+    verdict.items[3].data.verdict.status = "undecided";
+    const results = await Promise.all([runChecker(step, "step.json"), runChecker(cert, "cert.json"), runChecker(verdict, "verdict.json")]);
+    expect(results.map((r) => r.code)).toEqual([1, 1, 1]);
+    expect(results[0].out).toMatch(/✗ refuted\s+step 1:1\s+CHANGED since export/);
+    expect(results[1].out).toMatch(/claim 1.1:1#1\s+CHANGED since export/);
+    expect(results[2].out).toMatch(/claim 1:1#1\s+CHANGED since export.*records "undecided" but the re-check gives "verified"/);
+  });
+});

@@ -1,0 +1,94 @@
+import { describe, expect, it } from "vitest";
+import { buildBundle } from "@/lib/export/bundle";
+import { documentOf } from "@/lib/export/document";
+import { renderLatex } from "@/lib/export/latex";
+import { escapeLine, sanitizeMath } from "@/lib/export/latex-escape";
+import { inlineToLatex, markdownToLatex } from "@/lib/export/markdown-latex";
+import { compileLatex } from "@/lib/export/pdf";
+import { settledSnapshot } from "./export-fixture";
+
+const EVIL_TITLE = String.raw`Evil \input{/etc/passwd} \end{document} 100% & #1 _x_ ^ ~ {brace} $\write18{ls}$`;
+const EVIL_STEP = String.raw`Text \input{/etc/passwd} and \immediate\write18{rm -rf /} here.
+
+Inline $\input{/etc/passwd} x^2$ and $\def\x{\x}\x$ and $\catcode` + "`" + String.raw`\@=11$ and $^^5cinput{/etc/passwd}$.
+
+$$
+\openout1=/tmp/cairn-pwned \immediate\write1{owned} \include{/etc/passwd}
+$$
+
+A brace attack $x}\input{/etc/passwd}{$ and a comment $x % hides the rest$ and \$5 literally.`;
+
+function texOf(title: string, body: string, kind: "certified" | "draft" = "draft") {
+  const s = settledSnapshot(title);
+  s.cases[0].steps[0].revision!.body = body;
+  return renderLatex(documentOf(buildBundle(s, { kind, exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada \\Quenby" })));
+}
+
+/** The document body with every allowed use of a backslash-word removed: whatever is left must be inert. */
+const commandsIn = (tex: string) => new Set([...tex.matchAll(/\\([A-Za-z]+)/g)].map((m) => m[1]));
+
+describe("LaTeX escaping", () => {
+  it("escapes every LaTeX special character in text", () => {
+    expect(escapeLine(String.raw`\ { } $ & # ^ _ ~ % < > |`)).toBe(
+      String.raw`\textbackslash{} \{ \} \$ \& \# \textasciicircum{} \_ \textasciitilde{} \% \textless{} \textgreater{} \textbar{}`,
+    );
+  });
+
+  it("passes harmless math through and neutralises dangerous commands inside math", () => {
+    expect(sanitizeMath(String.raw`\rho\big(T(2,2,k)\big) \le \sqrt{2+\sqrt5}`)).toBe(String.raw`\rho\big(T(2,2,k)\big) \le \sqrt{2+\sqrt5}`);
+    for (const cmd of ["input", "include", "write", "openout", "immediate", "catcode", "def", "csname", "usepackage", "newcommand"])
+      expect(sanitizeMath(`\\${cmd}{x}`)).toBe(`\\backslash\\mathrm{${cmd}}{x}`);
+    expect(sanitizeMath("^^5cinput{x}")).toBeNull(); // TeX's ^^ notation spells a backslash
+    expect(sanitizeMath("x}")).toBeNull();
+    expect(sanitizeMath(String.raw`\begin{document}`)).toBeNull();
+    expect(sanitizeMath(String.raw`\left( x`)).toBeNull();
+    expect(sanitizeMath("x % y")).toBe(String.raw`x \% y`);
+    expect(sanitizeMath(String.raw`\begin{pmatrix} 1 & 0 \\ 0 & 1 \end{pmatrix}`)).toBe(String.raw`\begin{pmatrix} 1 & 0 \\ 0 & 1 \end{pmatrix}`);
+  });
+
+  it("turns Markdown into LaTeX: emphasis, code, lists and display math", () => {
+    expect(inlineToLatex("**If $x_1$ then** *y* and `a_b`")).toBe(String.raw`\textbf{If $x_1$ then} \emph{y} and \texttt{a\_b}`);
+    expect(markdownToLatex("- one\n- two")).toBe("\\begin{itemize}\n\\item one\n\\item two\n\\end{itemize}");
+    // Line breaks inside math become spaces: a blank line in display math would not compile.
+    expect(markdownToLatex("$$\n\\rho < 2\n\n$$")).toBe("\\[ \\rho < 2  \\]");
+  });
+
+  it("LaTeX specials and injection attempts in titles and steps come out escaped", () => {
+    const tex = texOf(EVIL_TITLE, EVIL_STEP);
+    // Only our own preamble and layout commands remain; every user command is printed, not run.
+    for (const bad of ["input", "include", "write", "immediate", "openout", "catcode", "def", "write18"]) expect(commandsIn(tex).has(bad)).toBe(false);
+    expect(tex).toContain(String.raw`Evil \textbackslash{}input\{/etc/passwd\} \textbackslash{}end\{document\} 100\% \& \#1 \_x\_ \textasciicircum{} \textasciitilde{} \{brace\}`);
+    expect(tex).toContain(String.raw`$\backslash\mathrm{input}{/etc/passwd} x^2$`);
+    expect(tex).toContain(String.raw`\texttt{\$\textasciicircum{}\textasciicircum{}5cinput\{/etc/passwd\}\$}`);
+    expect(tex).toContain(String.raw`\$5 literally`);
+    expect(tex.match(/\\end\{document\}/g)).toHaveLength(1);
+  });
+});
+
+describe("LaTeX document", () => {
+  it("marks a draft as DRAFT in the header of every page style and in the title block", () => {
+    const tex = texOf("A proof", "A step.", "draft");
+    expect(tex).toContain(String.raw`\fancyhead[R]{\small \textbf{DRAFT --- not certified}}`);
+    // The plain style (first pages of \maketitle-like layouts, floats) carries the same header.
+    expect(tex).toMatch(/\\fancypagestyle\{plain\}\{\\fancyhf\{\}\n\\fancyhead\[L\][^\n]*\n\\fancyhead\[R\]\{\\small \\textbf\{DRAFT/);
+    expect(tex).toContain(String.raw`\textbf{DRAFT export} (not certified)`);
+    const certified = texOf("A proof", "A step.", "certified");
+    expect(certified).not.toContain("DRAFT");
+    expect(certified).toContain("Certified export");
+  });
+
+  it("states what a verified claim means and does not mean, and each claim with its method and digest", () => {
+    const tex = texOf("A proof", "A step.", "certified");
+    expect(tex).toContain("the stated computation with exact arithmetic");
+    expect(tex).toContain("It does not mean that the case split is exhaustive, nor that the prose argument of any step is right");
+    expect(tex).toMatch(/Verified:\} G is a tree, by breadth-first search; certificate in bundle item \\texttt\{claim 1:1\\#1\}/);
+    expect(tex).toContain("Celia Marwood & 2 & 2026-11-30 12:00 UTC");
+  });
+
+  it("compiles with pdflatex, including the injection attempts, without reading or writing outside its directory", async () => {
+    const { pdf, log } = await compileLatex(texOf(EVIL_TITLE, EVIL_STEP), { runs: 2 });
+    expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    expect(log).not.toContain("(/etc/passwd"); // pdflatex logs every file it opens as "(path"
+    expect(log).not.toMatch(/^! /m);
+  }, 120_000);
+});
