@@ -4,6 +4,7 @@ import { Graph, makeGraph } from "./graph";
 import { characteristicPolynomial, charpolyBerkowitz, coefficientBound } from "./charpoly";
 import { Poly, polyMul, polySub, trim } from "./sturm";
 import { path, cycle, complete, completeBipartite } from "./constructors";
+import { chebyshevC } from "./bound";
 
 const X: Poly = [0n, 1n];
 const linear = (r: bigint): Poly => [-r, 1n]; // x - r
@@ -29,9 +30,10 @@ describe("characteristic polynomial", () => {
       expect(characteristicPolynomial(path(n)), `P_${n}`).toEqual(b);
     }
   });
-  it("C_n: χ = 2(T_n(x/2) - 1), e.g. C_4 = x^4 - 4x^2 and C_5 = x^5 - 5x^3 + 5x - 2 (Cvetković, Doob & Sachs; from memory, checked by Berkowitz)", () => {
+  it("C_n: χ = 2T_n(x/2) - 2, e.g. C_4 = x^4 - 4x^2 and C_5 = x^5 - 5x^3 + 5x - 2 (Cvetković, Doob & Sachs; Brouwer & Haemers §1.4.3)", () => {
     expect(characteristicPolynomial(cycle(4))).toEqual([0n, 0n, -4n, 0n, 1n]);
     expect(characteristicPolynomial(cycle(5))).toEqual([-2n, 5n, 0n, -5n, 0n, 1n]);
+    for (let n = 3; n <= 40; n++) expect(characteristicPolynomial(cycle(n)), `C_${n}`).toEqual(polySub(chebyshevC(n), [2n]));
   });
   it("K_n = (x - n + 1)(x + 1)^(n-1) and K_{m,n} = x^(m+n-2)(x^2 - mn) (Brouwer & Haemers §1.4.1–1.4.2)", () => {
     for (const n of [2, 5, 9, 30]) expect(characteristicPolynomial(complete(n))).toEqual(polyMul(linear(BigInt(n - 1)), power(linear(-1n), n - 1)));
