@@ -18,9 +18,10 @@ import { ReviewerScope } from "./reviewer-scope";
 import { DisputeTransition } from "./dispute-transition";
 import { Notification } from "./notification";
 import { NotificationPreference } from "./notification-preference";
+import { ProofExport } from "./proof-export";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference };
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -45,6 +46,7 @@ function initModels() {
   Invitation.belongsTo(OutgoingMail, { as: "mail", foreignKey: "mailId" });
   Invitation.hasMany(InvitationCase, { as: "cases", foreignKey: "invitationId" });
   DisputeTransition.belongsTo(User, { as: "actor", foreignKey: "actorId" });
+  ProofExport.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
 }
 
 /** Returns the models, initialising them on first use (not at import: `next build` imports without a database). */
@@ -55,4 +57,4 @@ export function models() {
 }
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference };
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport };
