@@ -19,7 +19,7 @@ import { edgeTotal, expectInt, expectIntArray, expectRecord, multiplicity, reche
 import { findCycle, sweep, treePath, recheckConnected, type ComponentsCertificate, type Sweep } from "./structure";
 import { branchVertexList, legsAt } from "./degree-structure";
 import { checkEmbedding } from "./subgraph";
-import { SMITH_FAMILIES, familyDisplay, familyOrder, isSmithFamily, parseFamilyName, validParameter, type SmithFamily } from "./smith-families";
+import { FamilyNameError, SMITH_FAMILIES, familyDisplay, familyOrder, isSmithFamily, parseFamilyName, validParameter, type SmithFamily } from "./smith-families";
 
 /** G ≅ family(parameter): bijection[v] is the family graph's vertex for G's vertex v. */
 export interface IsomorphismCertificate { kind: "isomorphism"; family: SmithFamily; parameter: number; bijection: number[] }
@@ -144,7 +144,8 @@ export interface ExpectedFamily { family: SmithFamily; parameter: number }
  */
 export function identifySmith(g: Graph, expected?: ExpectedFamily | string, budget = new Budget()): Verdict<IdentificationCertificate> {
   const want = typeof expected === "string" ? parseFamilyName(expected) : expected ?? null;
-  if (typeof expected === "string" && !want) throw new TypeError(`"${expected}" is not a family name; write e.g. E7, D5, affine E8, A~0, loop_path(3)`);
+  if (typeof expected === "string" && !want) throw new FamilyNameError(expected);
+  if (want && !validParameter(want.family, want.parameter)) throw new FamilyNameError(`${want.family}(${want.parameter})`);
   const statement = want ? `G ≅ ${familyDisplay(want.family, want.parameter)}` : "G belongs to a family with ρ ≤ 2 (Dynkin A/D/E, affine Ã/D̃/Ẽ, or a loop family)";
   const method = "structural identification (Smith's classification)";
   return withinBudget<IdentificationCertificate>(statement, method, budget, () => {

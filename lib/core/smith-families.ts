@@ -39,6 +39,14 @@ export const SMITH_FAMILIES: Record<SmithFamily, FamilyInfo> = {
   fork_loop: { min: 3, radius: "= 2", build: forkLoop, display: (p) => `fork_loop(${p})` },
 };
 
+/** A family name that cannot be read (e.g. "E9", "F4"); the message says what to write instead. */
+export class FamilyNameError extends Error {
+  constructor(readonly text: string) {
+    super(`"${text}" is not a family name; write e.g. E7, D5, affine E8, A~0, loop_path(3), loop_path2(4) or fork_loop(5)`);
+    this.name = "FamilyNameError";
+  }
+}
+
 export function isSmithFamily(name: unknown): name is SmithFamily {
   return typeof name === "string" && Object.prototype.hasOwnProperty.call(SMITH_FAMILIES, name);
 }

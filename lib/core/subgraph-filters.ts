@@ -42,7 +42,8 @@ function degreeArray(g: Graph, members?: Int32Array): number[] {
 
 /** Compares "how many values ≥ t" for every t; returns the first threshold where the pattern has more. */
 function countDominance(pattern: number[], host: number[]): { threshold: number; inPattern: number; inHost: number } | null {
-  const top = Math.max(0, ...pattern);
+  let top = 0;
+  for (const d of pattern) if (d > top) top = d; // a loop, not Math.max(...): patterns can have 10⁶ vertices
   const count = (values: number[]) => {
     const c = new Array(top + 2).fill(0);
     for (const d of values) c[Math.min(d, top + 1)]++;
@@ -60,8 +61,9 @@ function loopWeights(g: Graph, members?: Int32Array): number[] {
 }
 
 /** Order, degree-count and loop-count tests on G (or on the vertex set `members` of G). */
-export function countingArgument(h: Graph, g: Graph, members?: Int32Array): AbsenceArgument | null {
+export function countingArgument(h: Graph, g: Graph, budget: Budget, members?: Int32Array): AbsenceArgument | null {
   const hostOrder = members ? members.length : g.n;
+  budget.tick(h.n + hostOrder);
   if (h.n > hostOrder) return { kind: "order", patternOrder: h.n, hostOrder };
   const deg = countDominance(degreeArray(h), degreeArray(g, members));
   if (deg) return { kind: "degree-count", ...deg };

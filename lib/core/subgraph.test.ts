@@ -1,4 +1,7 @@
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import type { Graph } from "./graph";
+import { buildGraph } from "./graph-build";
 import { Budget } from "./verdict";
 import { parseGraph } from "./parse";
 import { affineA, affineD, affineE, complete, cycle, dynkinE, path, star, starlike } from "./constructors";
@@ -113,5 +116,49 @@ describe("exclusion", () => {
     const c = JSON.parse(JSON.stringify(v.certificate));
     c.found.embedding[0] = c.found.embedding[1];
     expect(recheckExclusion(g, affine, c).status).toBe("refuted");
+  });
+});
+
+describe("search agrees with brute force (property)", () => {
+  // Brute force over all injections V(H) → V(G): the definition itself (common practice).
+  function bruteForce(h: Graph, g: Graph, induced: boolean): boolean {
+    const phi: number[] = [];
+    const used = new Set<number>();
+    const extend = (u: number): boolean => {
+      if (u === h.n) return checkEmbedding(h, g, phi, induced) === null;
+      for (let x = 0; x < g.n; x++) {
+        if (used.has(x)) continue;
+        phi[u] = x; used.add(x);
+        if (extend(u + 1)) return true;
+        used.delete(x);
+      }
+      return false;
+    };
+    return extend(0);
+  }
+  const small = (maxN: number) => fc.integer({ min: 1, max: maxN }).chain((n) =>
+    fc.array(fc.record({ u: fc.integer({ min: 0, max: n - 1 }), v: fc.integer({ min: 0, max: n - 1 }), m: fc.integer({ min: 1, max: 2 }) }), { maxLength: 9 })
+      .map((edges) => buildGraph(n, edges.filter((e) => e.u !== e.v || e.m === 1))));
+
+  it("for subgraphs and induced subgraphs of small multigraphs with loops", () => {
+    fc.assert(fc.property(small(4), small(6), fc.boolean(), (h, g, induced) => {
+      const v = findSubgraph(h, g, { induced });
+      expect(v.status).toBe(bruteForce(h, g, induced) ? "verified" : "refuted");
+      expect(recheckSubgraph(h, g, v.certificate, induced).status).toBe("verified");
+    }), { numRuns: 400 });
+  });
+
+  it("for trees inside forests, where the spider arm test decides", () => {
+    const tree = (maxN: number) => fc.integer({ min: 1, max: maxN }).chain((n) =>
+      fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) => buildGraph(n, parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })))));
+    fc.assert(fc.property(tree(6), tree(9), (h, g) => {
+      const v = findSubgraph(h, g);
+      expect(v.status).toBe(bruteForce(h, g, false) ? "verified" : "refuted");
+    }), { numRuns: 300 });
+  });
+
+  it("handles a pattern with 2·10⁵ vertices", () => {
+    const v = findSubgraph(path(200_000), starlike([100_000, 100_000, 3]));
+    expect(v.status).toBe("verified");
   });
 });

@@ -155,12 +155,12 @@ type Decision = { embedding: number[]; method: string; nodesVisited?: number } |
 /** Decides H ⊆ G by the cheapest argument that applies (see the module comment). */
 export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: Budget): Decision {
   if (h.n === 0) return { embedding: [], method: "empty pattern" };
-  const counting = countingArgument(h, g);
+  const counting = countingArgument(h, g, budget);
   if (counting) return { argument: counting };
   const gs = sweep(g, budget), hs = sweep(h, budget);
   let roots: Int32Array | undefined;
   if (hs.componentCount === 1 && gs.componentCount > 1) {
-    const fits = componentMembers(gs, g.n).filter((members) => countingArgument(h, g, members) === null);
+    const fits = componentMembers(gs, g.n).filter((members) => countingArgument(h, g, budget, members) === null);
     if (fits.length === 0) return { argument: { kind: "component-fit", components: gs.componentCount } };
     roots = Int32Array.from(fits.flatMap((m) => Array.from(m)));
   }
