@@ -199,3 +199,26 @@ describe("edge list header columns", () => {
     expect([e.line, e.column]).toEqual([1, 3]);
   });
 });
+
+describe("graph6/sparse6 orders (N(n) encodings)", () => {
+  it("writes the null, trivial and empty graphs as networkx does", () => {
+    // networkx test_sparse6.py: null → ":?", trivial → ":@", empty 5 → ":D", empty 68 → ":~?@C", empty 258049 → ":~~???~?@";
+    // networkx test_graph6.py: null → "?", trivial → "@".
+    const empty = (n: number) => parseEdgeList(`n = ${n}`);
+    expect([0, 1, 5, 68, 258049].map((n) => writeSparse6(empty(n)))).toEqual([":?", ":@", ":D", ":~?@C", ":~~???~?@"]);
+    expect([writeGraph6(empty(0)), writeGraph6(empty(1))]).toEqual(["?", "@"]);
+    expect(parseSparse6(":~~???~?@").n).toBe(258049);
+  });
+
+  it("reads formats.txt's N(n) examples", () => {
+    // formats.txt: N(30) = 93; N(12345) = 126 66 63 120; N(460175067) = 126 126 63 90 90 90 90 90.
+    const order = (bytes: number[]) => parseSparse6(":" + String.fromCharCode(...bytes)).n;
+    expect(order([93])).toBe(30);
+    expect(order([126, 66, 63, 120])).toBe(12345);
+    expect(() => order([126, 126, 63, 90, 90, 90, 90, 90])).toThrow(/460175067 vertices is beyond the limit/);
+  });
+
+  it("sends a bare family name to the named reader, which asks for its argument", () => {
+    expect(() => parseGraph("path")).toThrow(/expected "\("/);
+  });
+});
