@@ -1,27 +1,57 @@
+import Link from "next/link";
 import type { CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
+import { VerdictBadge } from "@/components/claims/verdict-badge";
+import { CaseStateBadge } from "./case-state-badge";
+import { CaseActions } from "./case-actions";
 
-/** The case tree, read-only: numbered cases with their condition and steps at their latest revision. */
-export function CaseTree({ nodes }: { nodes: CaseNode<CaseView>[] }) {
+export interface TreeOptions {
+  proofId: number;
+  /** Authors get the editing controls. */
+  editable: boolean;
+  /** Every live case, for "move under …". */
+  targets: Array<{ id: number; number: string }>;
+}
+
+/** The case tree: numbered cases with their derived state, condition and steps at their latest revision. */
+export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; options: TreeOptions }) {
   return (
     <ol className="space-y-4">
-      {nodes.map((c) => (
-        <li key={c.id} id={`case-${c.number}`} className="rounded border border-stone-200 bg-white" data-testid="case">
+      {nodes.map((c, i) => (
+        <li key={c.id} id={`case-${c.number}`} className="rounded border border-stone-200 bg-white" data-testid="case" data-case-number={c.number}>
           <div className="border-b border-stone-100 px-4 py-2">
-            <h3 className="font-semibold">
-              <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
-              {c.title}
-            </h3>
+            <div className="flex flex-wrap items-start justify-between gap-2">
+              <h3 className="font-semibold">
+                <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
+                {c.title}
+              </h3>
+              <CaseStateBadge state={c.state} />
+            </div>
             <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
+            {options.editable && (
+              <CaseActions
+                proofId={options.proofId}
+                caseId={c.id}
+                number={c.number}
+                first={i === 0}
+                last={i === nodes.length - 1}
+                targets={options.targets.filter((t) => t.id !== c.id && !t.number.startsWith(`${c.number}.`))}
+              />
+            )}
           </div>
           {c.steps.length > 0 && (
             <ol className="divide-y divide-stone-100">
-              {c.steps.map((s) => (
+              {c.steps.map((s, j) => (
                 <li key={s.id} className="px-4 py-3" data-testid="step">
-                  <p className="font-mono text-xs text-stone-500">
-                    Step {c.number}.{s.position}
-                    {s.revision && ` · revision ${s.revision.number} by ${s.revision.authorName}`}
+                  <p className="flex flex-wrap items-center gap-2 font-mono text-xs text-stone-500">
+                    <Link href={`/proofs/${options.proofId}/steps/${s.id}`} className="text-lichen-700 hover:underline">
+                      Step {c.number}.{j + 1}
+                    </Link>
+                    {s.revision && <span>revision {s.revision.number} by {s.revision.authorName}</span>}
+                    {s.claims.map((st, k) => (
+                      <VerdictBadge key={k} status={st} />
+                    ))}
                   </p>
                   {s.revision ? <MathMarkdown source={s.revision.body} /> : <p className="italic text-stone-500">empty step</p>}
                 </li>
@@ -29,8 +59,8 @@ export function CaseTree({ nodes }: { nodes: CaseNode<CaseView>[] }) {
             </ol>
           )}
           {c.children.length > 0 && (
-            <div className="px-4 pb-4 pl-8">
-              <CaseTree nodes={c.children} />
+            <div className="px-4 pb-4 pl-8 pt-3">
+              <CaseTree nodes={c.children} options={options} />
             </div>
           )}
         </li>

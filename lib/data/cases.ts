@@ -1,7 +1,9 @@
 import "server-only";
 import { models } from "@/models";
 import { buildCaseTree, flattenCaseTree, type CaseNode } from "@/lib/proof-tree";
-import { caseState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ReviewFact, type StepFacts } from "@/lib/review/states";
+import {
+  caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ProofState, type ReviewFact, type StepFacts,
+} from "@/lib/review/states";
 
 export interface StepView {
   id: number;
@@ -54,6 +56,22 @@ export async function liveCases(proofId: number) {
  * A fixed number of queries, whatever the size of the tree.
  */
 export async function getCaseTree(proofId: number): Promise<CaseNode<CaseView>[]> {
+  return (await loadTree(proofId)).tree;
+}
+
+export interface ProofOverview {
+  cases: CaseNode<CaseView>[];
+  counts: Record<CaseState, number>;
+  proofState: ProofState;
+}
+
+/** The case tree with the counts per case state and the proof's derived state. */
+export async function getProofOverview(proofId: number): Promise<ProofOverview> {
+  const { tree, facts, required } = await loadTree(proofId);
+  return { cases: tree, counts: countCaseStates(tree), proofState: proofState(facts, required) };
+}
+
+async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
   const { Step, StepRevision, User, Claim, Review, Proof } = models();
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
@@ -112,7 +130,7 @@ export async function getCaseTree(proofId: number): Promise<CaseNode<CaseView>[]
   const tree = buildCaseTree(rows);
   const toFacts = (n: CaseNode<CaseView>): CaseFacts => ({ id: n.id, steps: n.steps.map((s) => facts.get(s.id)!), children: n.children.map(toFacts) });
   for (const n of flattenCaseTree(tree)) n.state = caseState(toFacts(n), required);
-  return tree;
+  return { tree, facts: tree.map(toFacts), required };
 }
 
 /** How many cases are in each state (every case of the tree, sub-cases included). */

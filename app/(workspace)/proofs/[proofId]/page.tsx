@@ -1,36 +1,43 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { requireProofRole } from "@/lib/session";
 import { getProofSummary } from "@/lib/data/proofs";
-import { getCaseTree } from "@/lib/data/cases";
-import { AppError } from "@/lib/errors";
+import { getProofOverview } from "@/lib/data/cases";
+import { listProofClaims } from "@/lib/data/claims";
+import { flattenCaseTree } from "@/lib/proof-tree";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { CaseTree } from "@/components/proof/case-tree";
+import { AddCaseForm } from "@/components/proof/add-case-form";
+import { ClaimsTable } from "@/components/proof/claims-table";
+import { StateCounts } from "@/components/proof/state-counts";
 import { RoleTag } from "@/components/ui/role-tag";
 import { VerdictCaution } from "@/components/ui/caution";
+import { pageRole } from "./page-access";
 
 export const metadata: Metadata = { title: "Proof" };
 
 export default async function ProofPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const proofId = Number((await params).proofId);
-  if (!Number.isInteger(proofId) || proofId <= 0) notFound();
-  try {
-    await requireProofRole(proofId);
-  } catch (e) {
-    if (e instanceof AppError && (e.status === 403 || e.status === 404)) notFound();
-    throw e;
-  }
-  const [proof, tree] = await Promise.all([getProofSummary(proofId), getCaseTree(proofId)]);
+  const { proofId, role } = await pageRole((await params).proofId);
+  const [proof, overview, claims] = await Promise.all([getProofSummary(proofId), getProofOverview(proofId), listProofClaims(proofId)]);
   if (!proof) notFound();
+  const editable = role === "author";
+  const targets = flattenCaseTree(overview.cases).map((c) => ({ id: c.id, number: c.number }));
   return (
     <main className="grid gap-8 lg:grid-cols-[1fr_16rem]">
       <section>
         <h1 className="text-3xl font-semibold">{proof.title}</h1>
         <MathMarkdown source={proof.statement} className="mt-4 max-w-prose text-lg" />
         <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
-        <CaseTree nodes={tree} />
+        {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
+        <CaseTree nodes={overview.cases} options={{ proofId, editable, targets }} />
+        {editable && <AddCaseForm proofId={proofId} parentId={null} />}
+        <h2 className="mb-3 mt-10 text-xl font-semibold">All claims</h2>
+        <div className="mb-3">
+          <VerdictCaution />
+        </div>
+        <ClaimsTable proofId={proofId} claims={claims} />
       </section>
       <aside className="space-y-6">
+        <StateCounts counts={overview.counts} proofState={overview.proofState} />
         <div>
           <h2 className="font-semibold">Members</h2>
           <ul className="mt-2 space-y-1 text-sm">

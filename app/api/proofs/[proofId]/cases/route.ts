@@ -1,17 +1,16 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { countCaseStates, getCaseTree } from "@/lib/data/cases";
+import { getProofOverview } from "@/lib/data/cases";
 import { createCase } from "@/lib/data/case-edits";
 import { createCaseSchema } from "@/lib/validations/case";
 
 type Context = { params: Promise<{ proofId: string }> };
 
-/** The case tree, numbered, with each case's derived state and the counts per state; any member. */
+/** The case tree, numbered, with each case's derived state, the counts per state and the proof state; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   await requireProofRole(proofId);
-  const cases = await getCaseTree(proofId);
-  return Response.json({ cases, counts: countCaseStates(cases) });
+  return Response.json(await getProofOverview(proofId));
 });
 
 /** Adds a case (top level, or under `parentId`) at the end of its siblings; authors only. */

@@ -1,0 +1,52 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { getProofSummary } from "@/lib/data/proofs";
+import { getStep } from "@/lib/data/steps";
+import { listStepClaims } from "@/lib/data/claims";
+import { MathMarkdown } from "@/components/markdown/math-markdown";
+import { StepEditor } from "@/components/editor/step-editor";
+import { RevisionHistory } from "@/components/editor/revision-history";
+import { ClaimList } from "@/components/claims/claim-list";
+import { ClaimForm } from "@/components/claims/claim-form";
+import { VerdictCaution } from "@/components/ui/caution";
+import { StepReviewSlot } from "@/components/review/step-review-slot";
+import { orNotFound, pageRole } from "../../page-access";
+
+export const metadata: Metadata = { title: "Step" };
+
+export default async function StepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
+  const p = await params;
+  const { proofId, user, role } = await pageRole(p.proofId);
+  const stepId = Number(p.stepId);
+  const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
+  const claims = await listStepClaims(step.id);
+  const isAuthor = role === "author";
+  return (
+    <main>
+      <nav className="text-sm text-stone-600">
+        <Link href={`/proofs/${proofId}`} className="text-lichen-700 hover:underline">
+          {proof?.title}
+        </Link>{" "}
+        › <a href={`/proofs/${proofId}#case-${step.caseNumber}`}>Case {step.caseNumber}</a>
+      </nav>
+      <h1 className="mt-2 text-2xl font-semibold">
+        <span className="mr-2 font-mono text-lichen-700">Step {step.number}</span>
+        <span className="text-stone-700">in “{step.caseTitle}”</span>
+      </h1>
+      {step.latest && (
+        <p className="font-mono text-xs text-stone-500">
+          revision {step.latest.number} by {step.latest.authorName}
+        </p>
+      )}
+      {step.latest && <MathMarkdown source={step.latest.body} className="mt-3 max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
+      {isAuthor && step.latest && <StepEditor key={step.latest.id} proofId={proofId} stepId={step.id} latest={step.latest} />}
+      <div className="mt-8">
+        <VerdictCaution />
+      </div>
+      <ClaimList proofId={proofId} stepId={step.id} initial={claims} canRecheck={role !== "reviewer"} />
+      {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
+      <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
+      <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
+    </main>
+  );
+}

@@ -1,0 +1,85 @@
+"use client";
+import { useState } from "react";
+import type { ClaimView } from "@/lib/data/claims";
+import { GraphPicture } from "@/components/graph/graph-picture";
+import { SpectrumPlot } from "@/components/graph/spectrum-plot";
+import { apiFetch } from "@/components/proof/api-client";
+import { VerdictBadge } from "./verdict-badge";
+
+/** One claim: verdict, method, reason, certificate summary, who checked it with which checker, picture. */
+export function ClaimCard({ claim, proofId, canRecheck, onChanged }: { claim: ClaimView; proofId: number; canRecheck: boolean; onChanged: () => void }) {
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const recheck = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      await apiFetch(`/api/proofs/${proofId}/claims/${claim.id}/recheck`, { method: "POST" });
+      onChanged();
+    } catch (e) {
+      setError((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+  const first = claim.picture?.pictures[0];
+  return (
+    <li className="rounded border border-stone-200 bg-white p-4" data-testid="claim" data-claim-id={claim.id}>
+      <div className="flex flex-wrap items-center gap-3">
+        <VerdictBadge status={claim.status} />
+        <span className="font-mono text-sm text-stone-500">{claim.kind}</span>
+        <span className="font-semibold">{claim.statement ?? "being checked…"}</span>
+        {canRecheck && claim.status !== "pending" && (
+          <button type="button" onClick={recheck} disabled={busy} className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100">
+            ↻ Re-check
+          </button>
+        )}
+      </div>
+      {claim.status === "pending" ? (
+        <p className="mt-2 text-sm text-stone-600" aria-live="polite">
+          The checker is working on this claim in the background; the verdict appears here when it is done.
+        </p>
+      ) : (
+        <dl className="mt-2 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_1fr]">
+          <dt className="text-stone-500">method</dt>
+          <dd>{claim.method}</dd>
+          <dt className="text-stone-500">{claim.status === "undecided" ? "why undecided" : "why"}</dt>
+          <dd className="break-words">{claim.reason}</dd>
+          <dt className="text-stone-500">certificate</dt>
+          <dd>
+            {claim.certificate ? (
+              <details>
+                <summary className="cursor-pointer">
+                  {claim.certificate.summary} · <span className="font-mono">{claim.certificate.bytes}</span> bytes
+                </summary>
+                <pre className="mt-1 max-h-48 overflow-auto whitespace-pre-wrap break-all rounded bg-stone-100 p-2 font-mono text-xs">{claim.certificate.preview}</pre>
+              </details>
+            ) : (
+              "none (no decision to certify)"
+            )}
+          </dd>
+          <dt className="text-stone-500">last checked</dt>
+          <dd>
+            {claim.checkedByName ?? "—"} · {claim.checkedAt?.slice(0, 16).replace("T", " ")} UTC · <span className="font-mono">{claim.checkerVersion}</span>
+          </dd>
+          <dt className="text-stone-500">digest</dt>
+          <dd className="break-all font-mono text-xs">{claim.digest}</dd>
+        </dl>
+      )}
+      {error && (
+        <p role="alert" className="mt-2 text-sm text-refuted">
+          {error}
+        </p>
+      )}
+      {claim.picture && (
+        <div className="mt-3 grid gap-3">
+          {claim.picture.pictures.map((p, i) => (
+            <GraphPicture key={i} picture={p} />
+          ))}
+          {first?.spectrum && <SpectrumPlot spectrum={first.spectrum} bound={claim.picture.bound} />}
+          {claim.picture.note && <p className="text-sm text-stone-500">{claim.picture.note}</p>}
+        </div>
+      )}
+    </li>
+  );
+}

@@ -1,0 +1,199 @@
+"use client";
+import { useState } from "react";
+import { useForm, type UseFormRegister } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useSWRConfig } from "swr";
+import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
+import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
+import { ApiError, apiFetch } from "@/components/proof/api-client";
+
+const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
+  "spectral-radius-bound": "spectral radius bound  ρ(G) op b",
+  "vector-certificate": "vector certificate  A·x op b·x",
+  subgraph: "subgraph  H ⊆ G",
+  exclusion: "exclusion  no Hᵢ ⊆ G",
+  identification: "identification  G is of type …",
+  "characteristic-polynomial": "characteristic polynomial",
+  eigenvalues: "eigenvalues  2cos(πm/h)",
+  structure: "structure  (tree, degrees, legs …)",
+};
+
+const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
+
+function Field({ label, error, children, hint }: { label: string; error?: string; children: React.ReactNode; hint?: string }) {
+  return (
+    <label className="block text-sm">
+      <span className="font-semibold">{label}</span>
+      {hint && <span className="ml-2 text-stone-500">{hint}</span>}
+      <div className="mt-1">{children}</div>
+      {error && (
+        <span role="alert" className="mt-1 block text-refuted">
+          ✗ {error}
+        </span>
+      )}
+    </label>
+  );
+}
+
+function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
+  return (
+    <select {...register(name)} className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs" aria-label={name === "graphFormat" ? "format of G" : "format of H"}>
+      {GRAPH_FORMATS.map((f) => (
+        <option key={f} value={f}>
+          {f}
+        </option>
+      ))}
+    </select>
+  );
+}
+
+/** Attaches a claim of any kind the core offers; problems come back per field and are shown beside it. */
+export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number }) {
+  const { mutate } = useSWRConfig();
+  const [message, setMessage] = useState<string | null>(null);
+  const { register, handleSubmit, watch, setError, formState } = useForm<ClaimForm>({ resolver: zodResolver(claimFormSchema), defaultValues: emptyClaimForm });
+  const kind = watch("kind");
+  const predicate = watch("predicate");
+  const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
+  const twoGraphs = kind === "subgraph" || kind === "exclusion";
+
+  const submit = handleSubmit(async (values) => {
+    setMessage(null);
+    const built = claimFromForm(values);
+    if ("issues" in built) {
+      for (const i of built.issues) setError(i.field, { message: i.message });
+      return;
+    }
+    try {
+      await apiFetch(`/api/proofs/${proofId}/steps/${stepId}/claims`, { method: "POST", body: { claims: [built.claim] } });
+      setMessage("Attached. The checker is working on it; the verdict appears above.");
+      await mutate(`/api/proofs/${proofId}/steps/${stepId}/claims`);
+    } catch (e) {
+      if (e instanceof ApiError && e.body.issues?.length) {
+        for (const i of e.body.issues) {
+          const field = formFieldOf(i.path);
+          if (field) setError(field, { message: i.message });
+          else setMessage(`${i.path}: ${i.message}`);
+        }
+      } else setMessage((e as Error).message);
+    }
+  });
+
+  return (
+    <form onSubmit={submit} className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4" aria-labelledby="claim-form-heading" data-testid="claim-form">
+      <h3 id="claim-form-heading" className="font-semibold">
+        Attach a claim
+      </h3>
+      <Field label="Kind">
+        <select {...register("kind")} className={input}>
+          {CLAIM_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {KIND_LABEL[k]}
+            </option>
+          ))}
+        </select>
+      </Field>
+      {twoGraphs && (
+        <Field label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"} hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"} error={err("patternText")}>
+          <div className="flex gap-2">
+            <FormatSelect name="patternFormat" register={register} />
+            <textarea {...register("patternText")} rows={2} className={input} aria-label="pattern H" />
+          </div>
+        </Field>
+      )}
+      <Field label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
+        <div className="flex gap-2">
+          <FormatSelect name="graphFormat" register={register} />
+          <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
+        </div>
+      </Field>
+      {(kind === "spectral-radius-bound" || kind === "vector-certificate") && (
+        <div className="flex gap-3">
+          <Field label="Relation" error={err("op")}>
+            <select {...register("op")} className={input} aria-label="relation">
+              {RELATIONS.map((r) => (
+                <option key={r}>{r}</option>
+              ))}
+            </select>
+          </Field>
+          <Field label="Bound b" hint="2, 7/2, sqrt(5), sqrt(2+sqrt(5)), 2cos(pi/7)" error={err("bound")}>
+            <input {...register("bound")} className={input} aria-label="bound" />
+          </Field>
+        </div>
+      )}
+      {kind === "vector-certificate" && (
+        <Field label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" error={err("vector")}>
+          <input {...register("vector")} className={input} />
+        </Field>
+      )}
+      {twoGraphs && (
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" {...register("induced")} /> induced
+        </label>
+      )}
+      {kind === "subgraph" && (
+        <Field label="Embedding (optional)" hint="host vertex of each pattern vertex, e.g. 0, 3, 4" error={err("embedding")}>
+          <input {...register("embedding")} className={input} />
+        </Field>
+      )}
+      {kind === "identification" && (
+        <Field label="Type (optional)" hint="e.g. E7, affine D5" error={err("family")}>
+          <input {...register("family")} className={input} />
+        </Field>
+      )}
+      {kind === "characteristic-polynomial" && (
+        <Field label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
+          <input {...register("coefficients")} className={input} />
+        </Field>
+      )}
+      {kind === "eigenvalues" && (
+        <div className="flex gap-3">
+          <Field label="h" error={err("h")}>
+            <input {...register("h")} className={input} />
+          </Field>
+          <Field label="Multiset of m" hint="e.g. 1, 7, 11, 13, 17, 19, 23, 29" error={err("multiset")}>
+            <input {...register("multiset")} className={input} />
+          </Field>
+        </div>
+      )}
+      {kind === "structure" && (
+        <div className="flex flex-wrap gap-3">
+          <Field label="Predicate">
+            <select {...register("predicate")} className={input}>
+              {STRUCTURE_PREDICATES.map((p) => (
+                <option key={p}>{p}</option>
+              ))}
+            </select>
+          </Field>
+          {predicate === "max-degree" && (
+            <Field label="Δ(G)">
+              <select {...register("degreeRelation")} className={input} aria-label="degree relation">
+                {DEGREE_RELATIONS.map((r) => (
+                  <option key={r}>{r}</option>
+                ))}
+              </select>
+            </Field>
+          )}
+          {(predicate === "max-degree" || predicate === "branch-vertices" || predicate === "leg-lengths") && (
+            <Field label={predicate === "leg-lengths" ? "Leg lengths" : "Number"} error={err("parameter")}>
+              <input {...register("parameter")} className={input} />
+            </Field>
+          )}
+        </div>
+      )}
+      <Field label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" error={err("certificate")}>
+        <textarea {...register("certificate")} rows={2} className={input} />
+      </Field>
+      <div className="flex items-center gap-3">
+        <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
+          {formState.isSubmitting ? "Checking the input…" : "Attach claim"}
+        </button>
+        {message && (
+          <p className="text-sm" aria-live="polite">
+            {message}
+          </p>
+        )}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,103 @@
+"use client";
+import { useMemo, useState } from "react";
+import Link from "next/link";
+import {
+  createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
+  type ColumnFiltersState, type SortingState,
+} from "@tanstack/react-table";
+import type { ClaimRowView } from "@/lib/data/claims";
+import { VerdictBadge } from "@/components/claims/verdict-badge";
+
+const col = createColumnHelper<ClaimRowView>();
+// Step numbers sort as 1.2 < 1.10 < 2.1.
+const byNumber = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
+
+/** Every claim of the proof: sort by any column, filter by kind and verdict, jump to the step. */
+export function ClaimsTable({ proofId, claims }: { proofId: number; claims: ClaimRowView[] }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: "stepNumber", desc: false }]);
+  const [filters, setFilters] = useState<ColumnFiltersState>([]);
+  const columns = useMemo(
+    () => [
+      col.accessor("stepNumber", {
+        header: "Step",
+        sortingFn: (a, b) => byNumber(a.original.stepNumber, b.original.stepNumber),
+        cell: (c) => (
+          <Link href={`/proofs/${proofId}/steps/${c.row.original.stepId}`} className="font-mono text-lichen-700 hover:underline">
+            {c.getValue()}
+          </Link>
+        ),
+      }),
+      col.accessor("caseTitle", { header: "Case" }),
+      col.accessor("kind", { header: "Kind", filterFn: "equals", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
+      col.accessor("status", { header: "Verdict", filterFn: "equals", cell: (c) => <VerdictBadge status={c.getValue()} /> }),
+      col.accessor("statement", { header: "Claim", cell: (c) => c.getValue() ?? "…" }),
+      col.accessor("method", { header: "Method", cell: (c) => <span className="text-xs">{c.getValue() ?? ""}</span> }),
+    ],
+    [proofId],
+  );
+  const table = useReactTable({
+    data: claims,
+    columns,
+    state: { sorting, columnFilters: filters },
+    onSortingChange: setSorting,
+    onColumnFiltersChange: setFilters,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+  const options = (key: "kind" | "status") => [...new Set(claims.map((c) => c[key]))].sort();
+  const filterSelect = (key: "kind" | "status", label: string) => (
+    <label className="text-sm">
+      {label}{" "}
+      <select
+        className="rounded border border-stone-300 bg-white px-1 font-mono text-xs"
+        value={(table.getColumn(key)?.getFilterValue() as string) ?? ""}
+        onChange={(e) => table.getColumn(key)?.setFilterValue(e.target.value || undefined)}
+      >
+        <option value="">all</option>
+        {options(key).map((o) => (
+          <option key={o}>{o}</option>
+        ))}
+      </select>
+    </label>
+  );
+  if (claims.length === 0) return <p className="text-stone-600">No claims in this proof yet.</p>;
+  return (
+    <div data-testid="claims-table">
+      <div className="mb-2 flex flex-wrap gap-4">
+        {filterSelect("kind", "Kind")}
+        {filterSelect("status", "Verdict")}
+        <span className="text-sm text-stone-500">
+          {table.getRowModel().rows.length} of {claims.length} claims
+        </span>
+      </div>
+      <table className="w-full border-collapse text-sm">
+        <thead>
+          {table.getHeaderGroups().map((g) => (
+            <tr key={g.id} className="border-b border-stone-300 text-left">
+              {g.headers.map((h) => (
+                <th key={h.id} className="px-2 py-1" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : "none"}>
+                  <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold hover:underline">
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                    {{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
+                  </button>
+                </th>
+              ))}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((r) => (
+            <tr key={r.id} className="border-b border-stone-100 align-top">
+              {r.getVisibleCells().map((c) => (
+                <td key={c.id} className="px-2 py-1">
+                  {flexRender(c.column.columnDef.cell, c.getContext())}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
