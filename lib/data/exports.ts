@@ -1,0 +1,194 @@
+import "server-only";
+/**
+ * Exports of a proof: reading the proof into a snapshot, deciding certified vs draft with the review
+ * rules, sealing the bundle and the LaTeX source and recording them. An export is immutable once made.
+ */
+import { getSequelize } from "@/lib/db";
+import { models } from "@/models";
+import { conflict, notFound } from "@/lib/errors";
+import { checkBundle, type Bundle, type ExportKind } from "@/lib/core/bundle";
+import { buildBundle } from "@/lib/export/bundle";
+import { documentOf } from "@/lib/export/document";
+import { renderLatex } from "@/lib/export/latex";
+import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotStep } from "@/lib/export/snapshot";
+import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
+import type { ClaimStatus, DisputeState } from "@/lib/review/states";
+import { liveCases } from "./cases";
+import { recordEvent } from "./audit";
+
+const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: string } | undefined>)[as]?.name ?? "";
+
+/** The proof as it stands: live cases in order, each step's latest revision, all reviews and claims. */
+export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | null> {
+  const { Proof, ProofMember, User, Step, StepRevision, Review, Claim } = models();
+  const proof = await Proof.findByPk(proofId);
+  if (!proof) return null;
+  const [members, cases] = await Promise.all([
+    ProofMember.findAll({ where: { proofId }, include: [{ model: User, as: "user", attributes: ["name"] }], order: [["role", "ASC"], ["userId", "ASC"]] }),
+    liveCases(proofId),
+  ]);
+  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  const stepIds = steps.map((s) => s.id);
+  const [revisions, reviews, claims] = stepIds.length
+    ? await Promise.all([
+        StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
+        Review.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "reviewer", attributes: ["name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+        Claim.findAll({ where: { stepId: stepIds }, order: [["position", "ASC"], ["id", "ASC"]] }),
+      ])
+    : [[], [], []];
+  const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
+
+  const stepView = (s: (typeof steps)[number], ordinal: number): SnapshotStep => {
+    const own = revisions.filter((r) => r.stepId === s.id);
+    const latest = own[0];
+    return {
+      id: s.id,
+      position: ordinal,
+      revision: latest ? { number: latest.number, body: latest.body, authorName: nameOf(latest, "author"), savedAt: latest.createdAt.toISOString() } : null,
+      authorIds: [...new Set(own.map((r) => r.authorId))],
+      reviews: reviews
+        .filter((r) => r.stepId === s.id)
+        .map((r) => ({
+          reviewerId: r.reviewerId,
+          reviewerName: nameOf(r, "reviewer"),
+          verdict: r.verdict,
+          revisionNumber: revisionNumber.get(r.revisionId) ?? 0,
+          disputeState: r.disputeState as DisputeState | null,
+          at: (r.verdict === "approve" ? r.updatedAt : r.createdAt).toISOString(),
+        })),
+      claims: claims
+        .filter((c) => c.stepId === s.id)
+        .map((c) => ({
+          position: c.position,
+          kind: c.kind,
+          input: c.input,
+          digest: c.digest,
+          status: c.status as ClaimStatus,
+          statement: c.statement,
+          method: c.method,
+          reason: c.reason,
+          certificate: c.certificate,
+          checkerVersion: c.checkerVersion,
+          checkedAt: c.checkedAt ? c.checkedAt.toISOString() : null,
+        })),
+    };
+  };
+  const tree = buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title, condition: c.condition })));
+  const toSnapshot = (n: CaseNode<{ id: number; parentId: number | null; position: number; title: string; condition: string }>): SnapshotCase => ({
+    id: n.id,
+    number: n.number,
+    depth: n.depth,
+    title: n.title,
+    condition: n.condition,
+    steps: steps.filter((s) => s.caseId === n.id).map((s, i) => stepView(s, i + 1)),
+    children: n.children.map(toSnapshot),
+  });
+  return {
+    id: proof.id,
+    title: proof.title,
+    statement: proof.statement,
+    requiredApprovals: proof.requiredApprovals,
+    members: members.map((m) => ({ name: nameOf(m, "user"), role: m.role })),
+    cases: tree.map(toSnapshot),
+  };
+}
+
+export async function getCertification(proofId: number): Promise<Certification> {
+  const snapshot = await loadSnapshot(proofId);
+  if (!snapshot) throw notFound("This proof");
+  return certificationOf(snapshot);
+}
+
+export interface ExportSummary {
+  id: number;
+  proofId: number;
+  kind: ExportKind;
+  manifestDigest: string;
+  itemCount: number;
+  claimCount: number;
+  createdByName: string | null;
+  createdAt: string;
+}
+
+type ExportRow = InstanceType<ReturnType<typeof models>["ProofExport"]>;
+
+function summaryOf(e: ExportRow): ExportSummary {
+  return {
+    id: e.id,
+    proofId: e.proofId,
+    kind: e.kind,
+    manifestDigest: e.manifestDigest,
+    itemCount: e.itemCount,
+    claimCount: e.claimCount,
+    createdByName: nameOf(e, "creator") || null,
+    createdAt: e.createdAt.toISOString(),
+  };
+}
+
+/**
+ * Makes an export. A certified export is refused (409, with every reason) unless the proof is ready to
+ * certify, and also unless the sealed bundle re-checks cleanly here, exactly as a reader will re-check it.
+ */
+export async function createExport(proofId: number, user: { id: number; name: string }, kind: ExportKind): Promise<ExportSummary> {
+  const snapshot = await loadSnapshot(proofId);
+  if (!snapshot) throw notFound("This proof");
+  const certification = certificationOf(snapshot);
+  if (kind === "certified" && certification.state !== "ready to certify")
+    throw conflict(`This proof is not ready to certify: ${certification.blockers.join(" ")} You can export a draft instead.`, { blockers: certification.blockers });
+  const bundle = buildBundle(snapshot, { kind, exportedAt: new Date().toISOString(), exportedBy: user.name });
+  if (kind === "certified") {
+    const report = checkBundle(JSON.parse(JSON.stringify(bundle)), "bundle");
+    const failing = report.lines.filter((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches));
+    if (report.exitCode !== 0)
+      throw conflict(`The bundle does not re-check, so it cannot be certified: ${failing.map((l) => `${l.label}: ${l.certificate && !l.certificate.matches ? l.certificate.text : l.text}`).join("; ")}`);
+  }
+  const tex = renderLatex(documentOf(bundle));
+  const { ProofExport } = models();
+  const row = await getSequelize().transaction(async (transaction) => {
+    const created = await ProofExport.create(
+      {
+        proofId,
+        kind,
+        manifestDigest: bundle.manifestDigest,
+        createdBy: user.id,
+        itemCount: bundle.items.length,
+        claimCount: bundle.items.filter((i) => i.type === "claim").length,
+        bundle: JSON.stringify(bundle, null, 1),
+        tex,
+        createdAt: new Date(bundle.export.exportedAt),
+      },
+      { transaction },
+    );
+    await recordEvent(
+      { proofId, actorId: user.id, action: `export.${kind}`, subjectType: "proof", subjectId: proofId, detail: `${kind} export #${created.id}, manifest digest ${bundle.manifestDigest}` },
+      transaction,
+    );
+    return created;
+  });
+  return { ...summaryOf(row), createdByName: user.name };
+}
+
+export async function listExports(proofId: number): Promise<ExportSummary[]> {
+  const { ProofExport, User } = models();
+  const rows = await ProofExport.findAll({
+    where: { proofId },
+    attributes: { exclude: ["bundle", "tex"] },
+    include: [{ model: User, as: "creator", attributes: ["name"] }],
+    order: [["createdAt", "DESC"], ["id", "DESC"]],
+  });
+  return rows.map(summaryOf);
+}
+
+export interface ExportFull extends ExportSummary {
+  bundle: Bundle;
+  bundleText: string;
+  tex: string;
+}
+
+/** One export of this proof with its bundle and LaTeX source; 404 for an export of another proof. */
+export async function getExport(proofId: number, exportId: number): Promise<ExportFull> {
+  const { ProofExport, User } = models();
+  const row = await ProofExport.findOne({ where: { id: exportId, proofId }, include: [{ model: User, as: "creator", attributes: ["name"] }] });
+  if (!row) throw notFound("This export");
+  return { ...summaryOf(row), bundle: JSON.parse(row.bundle) as Bundle, bundleText: row.bundle, tex: row.tex };
+}
