@@ -7,6 +7,6 @@ import { withAuth } from "next-auth/middleware";
 export default withAuth({ pages: { signIn: "/sign-in" } });
 
 export const config = {
-  // Everything except the landing page, sign-in, the API (handlers answer 401 themselves) and static files.
-  matcher: ["/((?!$|sign-in|api/|_next/|favicon|fonts/|.*\\.(?:svg|png|ico|woff2|css|js)$).+)"],
+  // Everything except the landing page, sign-in, invitation links (a new reviewer has no account yet), the API (handlers answer 401 themselves) and static files.
+  matcher: ["/((?!$|sign-in|invitations/|api/|_next/|favicon|fonts/|.*\\.(?:svg|png|ico|woff2|css|js)$).+)"],
 };

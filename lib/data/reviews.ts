@@ -15,6 +15,7 @@ import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { getMembershipRole } from "./proofs";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 
 export interface StepRef {
   id: number;
@@ -347,4 +348,33 @@ export async function setRequiredApprovals(proofId: number, actorId: number, req
     await proof.update({ requiredApprovals }, { transaction });
     await recordEvent({ proofId, actorId, action: "settings.required_approvals", subjectType: "settings", subjectId: proofId, detail: `${before} → ${requiredApprovals}` }, transaction);
   });
+}
+
+export interface StepDescription {
+  proofTitle: string;
+  caseNumber: string;
+  caseTitle: string;
+  stepLabel: string;
+  revision: { id: number; number: number; body: string; authorName: string } | null;
+}
+
+/** What the queue's step view shows above the review panel. */
+export async function describeStep(step: StepRef): Promise<StepDescription> {
+  const { Proof, Case, Step, StepRevision, User } = models();
+  const [proof, cases, row, revision] = await Promise.all([
+    Proof.findByPk(step.proofId, { attributes: ["title"] }),
+    Case.findAll({ where: { proofId: step.proofId }, attributes: ["id", "parentId", "position", "title"] }),
+    Step.findByPk(step.id),
+    step.latest ? StepRevision.findByPk(step.latest.id) : null,
+  ]);
+  const numbered = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title }))));
+  const c = numbered.find((n) => n.id === step.caseId);
+  const author = revision ? await User.findByPk(revision.authorId, { attributes: ["name"] }) : null;
+  return {
+    proofTitle: proof?.title ?? "",
+    caseNumber: c?.number ?? "?",
+    caseTitle: c?.title ?? "",
+    stepLabel: `${c?.number ?? "?"}.${row?.position ?? "?"}`,
+    revision: revision ? { id: revision.id, number: revision.number, body: revision.body, authorName: author?.name ?? "" } : null,
+  };
 }

@@ -4,7 +4,8 @@ export const invitationSchema = z
   .object({
     email: z.string().trim().toLowerCase().email("Enter an e-mail address such as name@example.org."),
     scope: z.enum(["proof", "cases"], { error: "Invite to the whole proof or to chosen cases." }),
-    caseIds: z.array(z.number().int().positive()).max(500).optional(),
+    // Coerced: checkbox values arrive as strings from the form.
+    caseIds: z.array(z.coerce.number().int().positive()).max(500).optional(),
   })
   .refine((v) => v.scope === "proof" || (v.caseIds?.length ?? 0) > 0, { path: ["caseIds"], message: "Choose at least one case." });
 export type InvitationInput = z.infer<typeof invitationSchema>;

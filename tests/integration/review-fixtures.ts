@@ -13,6 +13,12 @@ export interface ReviewFixture {
 }
 
 let counter = 0;
+const made: number[] = [];
+
+/** Removes the proofs this file made (cascading to their cases, reviews, …), so other test files see only the demo. */
+export async function dropProofs(): Promise<void> {
+  if (made.length) await models().Proof.destroy({ where: { id: made.splice(0) } });
+}
 
 export async function makeProof(label = "review test"): Promise<ReviewFixture> {
   const { Proof, ProofMember, Case, Step, StepRevision } = models();
@@ -24,6 +30,7 @@ export async function makeProof(label = "review test"): Promise<ReviewFixture> {
     outsider: await userIdOf("outsider"),
   };
   const proof = await Proof.create({ title: `${label} ${++counter} ${Date.now()}`, statement: "Every $x$ is fine.", createdBy: ids.author });
+  made.push(proof.id);
   for (const [key, role] of [["author", "author"], ["coauthor", "author"], ["reviewer", "reviewer"], ["editor", "editor"]] as const)
     await ProofMember.create({ proofId: proof.id, userId: ids[key], role });
   const c1 = await Case.create({ proofId: proof.id, parentId: null, position: 1, title: "Small", condition: "$n \\le 3$" });

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { makeProof, waitForMail, type ReviewFixture } from "./review-fixtures";
+import { makeProof, waitForMail, dropProofs, type ReviewFixture } from "./review-fixtures";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { authenticate } from "@/lib/data/users";
@@ -23,6 +23,7 @@ beforeAll(async () => {
   other = await makeProof("other");
 });
 afterAll(async () => {
+  await dropProofs();
   await closeSequelize();
 });
 

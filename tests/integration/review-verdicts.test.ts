@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params, userIdOf } from "./helpers";
-import { latestRevision, makeProof, revise, waitForMail, type ReviewFixture } from "./review-fixtures";
+import { latestRevision, makeProof, revise, waitForMail, dropProofs, type ReviewFixture } from "./review-fixtures";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { getReviewerQueue, getAuthorQueue, getReadiness, getReviewerProgress } from "@/lib/data/review-queues";
@@ -21,6 +21,7 @@ beforeAll(async () => {
   other = await makeProof("verdicts-other");
 });
 afterAll(async () => {
+  await dropProofs();
   await closeSequelize();
 });
 

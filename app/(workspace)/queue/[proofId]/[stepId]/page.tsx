@@ -1,0 +1,61 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { requireProofRole } from "@/lib/session";
+import { AppError } from "@/lib/errors";
+import { assertCanSeeStep, describeStep, loadStep, visibleCaseIds } from "@/lib/data/reviews";
+import { getReadiness } from "@/lib/data/review-queues";
+import { MathMarkdown } from "@/components/markdown/math-markdown";
+import { StepReviewSlot } from "@/components/review/step-review-slot";
+import { CaseStateBadge } from "@/components/review/badges";
+
+export const metadata: Metadata = { title: "Review a step" };
+
+/** One step to review, reached from the queue: its latest revision and its review panel. */
+export default async function QueueStepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
+  const p = await params;
+  const proofId = Number(p.proofId);
+  const stepId = Number(p.stepId);
+  if (!Number.isInteger(proofId) || proofId <= 0 || !Number.isInteger(stepId) || stepId <= 0) notFound();
+  const access = await (async () => {
+    try {
+      const { user, role } = await requireProofRole(proofId);
+      const step = await loadStep(proofId, stepId);
+      await assertCanSeeStep(step, user.id);
+      return { user, role, step };
+    } catch (e) {
+      if (e instanceof AppError && (e.status === 403 || e.status === 404)) return null;
+      throw e;
+    }
+  })();
+  if (!access) notFound();
+  const [info, readiness] = await Promise.all([describeStep(access.step), getReadiness(proofId, await visibleCaseIds(proofId, access.user.id))]);
+  const caseState = readiness.cases.find((c) => c.id === access.step.caseId)?.state;
+  return (
+    <main className="max-w-prose space-y-4">
+      <p className="text-sm">
+        <Link href="/queue" className="text-lichen-700 underline">
+          ← Review queue
+        </Link>{" "}
+        · <Link href={`/proofs/${proofId}`} className="text-lichen-700 underline">{info.proofTitle}</Link>
+      </p>
+      <h1 className="text-2xl font-semibold">
+        <span className="mr-2 font-mono text-lichen-700">Step {info.stepLabel}</span>
+      </h1>
+      <p className="flex flex-wrap items-center gap-2" data-testid="case-state">
+        Case {info.caseNumber}: {info.caseTitle} {caseState && <CaseStateBadge state={caseState} />}
+      </p>
+      {info.revision ? (
+        <article className="rounded border border-stone-200 bg-white p-4" data-testid="step-body">
+          <p className="font-mono text-xs text-stone-500">
+            revision {info.revision.number} by {info.revision.authorName}
+          </p>
+          <MathMarkdown source={info.revision.body} />
+        </article>
+      ) : (
+        <p className="italic text-stone-500">This step has no revision yet.</p>
+      )}
+      <StepReviewSlot proofId={proofId} stepId={stepId} revisionId={info.revision?.id ?? null} viewer={{ id: access.user.id, role: access.role }} />
+    </main>
+  );
+}

@@ -1,0 +1,68 @@
+"use client";
+/** The editor invites a reviewer by e-mail, to the whole proof or to chosen cases. */
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { z } from "zod";
+import { invitationSchema, type InvitationInput } from "@/lib/validations/invitation";
+
+type InviteFields = z.input<typeof invitationSchema>;
+import { send } from "./send";
+
+export function InviteForm({ proofId, cases }: { proofId: number; cases: Array<{ id: number; number: string; title: string }> }) {
+  const router = useRouter();
+  const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
+  const { register, handleSubmit, watch, reset, formState } = useForm<InviteFields, unknown, InvitationInput>({
+    resolver: zodResolver(invitationSchema),
+    defaultValues: { email: "", scope: "proof", caseIds: [] },
+  });
+  const scope = watch("scope");
+  const onSubmit = handleSubmit(async (values) => {
+    const body = { ...values, caseIds: values.scope === "cases" ? (values.caseIds ?? []).map(Number) : undefined };
+    const res = await send<{ mailStatus: string }>(`/api/proofs/${proofId}/invitations`, "POST", body);
+    if (!res.ok) return setResult({ ok: false, text: res.error ?? "Not sent." });
+    setResult({
+      ok: true,
+      text: res.data?.mailStatus === "sent" ? `Invitation sent to ${values.email}.` : `Invitation stored for ${values.email}; the mail has not gone out yet and will be retried.`,
+    });
+    reset();
+    router.refresh();
+  });
+  return (
+    <form onSubmit={onSubmit} className="space-y-3 rounded border border-stone-200 bg-white p-4" data-testid="invite-form" noValidate>
+      <label className="block">
+        <span className="text-sm font-semibold">Reviewer’s e-mail</span>
+        <input type="email" {...register("email")} className="mt-1 block w-full rounded border border-stone-300 px-3 py-1.5 font-mono text-sm" />
+        {formState.errors.email && <span className="text-sm text-refuted">{formState.errors.email.message}</span>}
+      </label>
+      <fieldset className="space-y-1 text-sm">
+        <legend className="font-semibold">Asked to review</legend>
+        <label className="mr-4">
+          <input type="radio" value="proof" {...register("scope")} /> the whole proof
+        </label>
+        <label>
+          <input type="radio" value="cases" {...register("scope")} /> chosen cases
+        </label>
+        {scope === "cases" && (
+          <div className="mt-1 max-h-48 overflow-y-auto rounded border border-stone-200 p-2">
+            {cases.map((c) => (
+              <label key={c.id} className="block">
+                <input type="checkbox" value={c.id} {...register("caseIds")} /> <span className="font-mono">Case {c.number}</span> {c.title}
+              </label>
+            ))}
+          </div>
+        )}
+        {formState.errors.caseIds && <span className="block text-refuted">{formState.errors.caseIds.message}</span>}
+      </fieldset>
+      <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-600 px-4 py-1.5 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60">
+        {formState.isSubmitting ? "Sending…" : "Send invitation"}
+      </button>
+      {result && (
+        <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verified" : "text-refuted"}`} data-testid="invite-result">
+          {result.text}
+        </p>
+      )}
+    </form>
+  );
+}

@@ -1,0 +1,129 @@
+"use client";
+/** A sortable, filterable table of a queue (@tanstack/react-table v8): a text filter and one column filter. */
+import { useMemo, useState } from "react";
+import Link from "next/link";
+import {
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from "@tanstack/react-table";
+import type { QueueDisputeRow, QueueStepRow, ReviewerProgress } from "@/lib/data/review-queues";
+import { DisputeStateBadge } from "./badges";
+
+type Kind = "steps" | "disputes" | "progress";
+type Row = QueueStepRow | QueueDisputeRow | ReviewerProgress;
+
+const day = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" });
+const stepLink = (r: { proofId: number; stepId: number; stepLabel: string }) => (
+  <Link className="font-mono text-lichen-700 underline" href={`/queue/${r.proofId}/${r.stepId}`}>
+    Step {r.stepLabel}
+  </Link>
+);
+
+const columns: Record<Kind, ColumnDef<Row>[]> = {
+  steps: [
+    { id: "step", header: "Step", accessorFn: (r) => (r as QueueStepRow).stepLabel, cell: (c) => stepLink(c.row.original as QueueStepRow) },
+    { id: "case", header: "Case", accessorFn: (r) => (r as QueueStepRow).caseTitle },
+    { id: "proof", header: "Proof", accessorFn: (r) => (r as QueueStepRow).proofTitle },
+    { id: "revision", header: "Revision", accessorFn: (r) => (r as QueueStepRow).revision },
+    {
+      id: "reason",
+      header: "Why",
+      accessorFn: (r) => (r as QueueStepRow).reason,
+      cell: (c) => (c.getValue() === "needs re-review" ? <span className="font-mono text-undecided">↻ needs re-review</span> : <span className="font-mono">○ not reviewed</span>),
+      filterFn: "equalsString",
+    },
+    { id: "since", header: "Since", accessorFn: (r) => (r as QueueStepRow).since, cell: (c) => day(String(c.getValue())) },
+  ],
+  disputes: [
+    { id: "step", header: "Step", accessorFn: (r) => (r as QueueDisputeRow).stepLabel, cell: (c) => stepLink(c.row.original as QueueDisputeRow) },
+    { id: "proof", header: "Proof", accessorFn: (r) => (r as QueueDisputeRow).proofTitle },
+    { id: "state", header: "State", accessorFn: (r) => (r as QueueDisputeRow).state, cell: (c) => <DisputeStateBadge state={(c.row.original as QueueDisputeRow).state} />, filterFn: "equalsString" },
+    { id: "reviewer", header: "Reviewer", accessorFn: (r) => (r as QueueDisputeRow).reviewerName },
+    { id: "revision", header: "Revision", accessorFn: (r) => (r as QueueDisputeRow).revision },
+    { id: "since", header: "Since", accessorFn: (r) => (r as QueueDisputeRow).since, cell: (c) => day(String(c.getValue())) },
+  ],
+  progress: [
+    { id: "reviewer", header: "Reviewer", accessorFn: (r) => (r as ReviewerProgress).reviewerName },
+    { id: "proof", header: "Proof", accessorFn: (r) => (r as ReviewerProgress).proofTitle, filterFn: "equalsString" },
+    { id: "scope", header: "Scope", accessorFn: (r) => (r as ReviewerProgress).scope },
+    { id: "inScope", header: "Steps", accessorFn: (r) => (r as ReviewerProgress).inScope },
+    { id: "approved", header: "✓ Approved", accessorFn: (r) => (r as ReviewerProgress).approved },
+    { id: "stale", header: "↻ Needs re-review", accessorFn: (r) => (r as ReviewerProgress).stale },
+    { id: "disputes", header: "⚑ Unresolved disputes", accessorFn: (r) => (r as ReviewerProgress).unresolvedDisputes },
+    { id: "waiting", header: "Waiting", accessorFn: (r) => (r as ReviewerProgress).waiting },
+  ],
+};
+const facet: Record<Kind, string> = { steps: "reason", disputes: "state", progress: "proof" };
+
+export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Row[]; empty: string; testId: string }) {
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [globalFilter, setGlobalFilter] = useState("");
+  const [facetValue, setFacetValue] = useState("");
+  const columnFilters = useMemo(() => (facetValue ? [{ id: facet[kind], value: facetValue }] : []), [facetValue, kind]);
+  const table = useReactTable({
+    data: rows,
+    columns: columns[kind],
+    state: { sorting, globalFilter, columnFilters },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setGlobalFilter,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+  const facetColumn = table.getColumn(facet[kind]);
+  const options = [...new Set(rows.map((r) => String(facetColumn?.accessorFn?.(r, 0) ?? "")))].sort();
+  if (rows.length === 0) return <p className="text-sm italic text-stone-500" data-testid={testId}>{empty}</p>;
+  return (
+    <div className="space-y-2" data-testid={testId}>
+      <div className="flex flex-wrap items-center gap-3 text-sm">
+        <label>
+          Filter{" "}
+          <input value={globalFilter} onChange={(e) => setGlobalFilter(e.target.value)} className="rounded border border-stone-300 px-2 py-1" placeholder="any text" />
+        </label>
+        <label>
+          {String(facetColumn?.columnDef.header)}{" "}
+          <select value={facetValue} onChange={(e) => setFacetValue(e.target.value)} className="rounded border border-stone-300 px-2 py-1">
+            <option value="">all</option>
+            {options.map((o) => (
+              <option key={o} value={o}>
+                {o}
+              </option>
+            ))}
+          </select>
+        </label>
+      </div>
+      <table className="w-full border-collapse text-sm">
+        <thead>
+          {table.getHeaderGroups().map((g) => (
+            <tr key={g.id} className="border-b border-stone-300 text-left">
+              {g.headers.map((h) => (
+                <th key={h.id} className="px-2 py-1" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : "none"}>
+                  <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold">
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                    <span aria-hidden="true"> {h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}</span>
+                  </button>
+                </th>
+              ))}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => (
+            <tr key={row.id} className="border-b border-stone-100" data-testid="queue-row">
+              {row.getVisibleCells().map((cell) => (
+                <td key={cell.id} className="px-2 py-1">
+                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
