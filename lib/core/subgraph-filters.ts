@@ -6,7 +6,10 @@
  * - degree count: φ is injective and maps the distinct neighbours of u to distinct neighbours of
  *   φ(u), so deg_G(φu) ≥ deg_H(u); hence for every t, #{u : deg_H(u) ≥ t} ≤ #{x : deg_G(x) ≥ t}.
  *   (t = 3 is the count of branch vertices.) Likewise for loop weights: diag_G(φu) ≥ diag_H(u);
- * - component fit: a connected H lands inside one component of G, which must pass the two tests above.
+ * - component fit: a connected H lands inside one component of G, which must pass the two tests above;
+ * - cycles: a subgraph of a forest is a forest, and a subgraph of a bipartite graph is bipartite, so
+ *   H with a cycle (loops and multiple edges count) is absent from a forest, and H with an odd
+ *   cycle (a loop counts) from a bipartite G.
  *
  * A decision procedure for "spiders" (trees with at most one vertex of degree ≥ 3: paths and
  * star-like trees T(l1,…,lk)) inside a forest G: the image of a leg of length l from φ(c) is a path
@@ -30,6 +33,8 @@ export type AbsenceArgument =
   | { kind: "loop-count"; threshold: number; inPattern: number; inHost: number }
   | { kind: "component-fit"; components: number }
   | { kind: "spider-arms"; legs: number[] }
+  | { kind: "cycle-in-forest" }
+  | { kind: "odd-cycle-in-bipartite" }
   | { kind: "search"; nodesVisited: number };
 
 function degreeArray(g: Graph, members?: Int32Array): number[] {
@@ -85,6 +90,11 @@ export function componentMembers(s: Sweep, n: number): Int32Array[] {
 /** True when G has no loops, no multiple edges and no cycle. */
 export function isForestGraph(g: Graph, s: Sweep): boolean {
   return g.edges.every((e) => e.u !== e.v && e.m === 1) && edgeTotal(g) === g.n - s.componentCount;
+}
+
+/** True when G is bipartite: no loop and no edge joining two vertices of equal BFS depth parity. */
+export function isBipartiteGraph(g: Graph, s: Sweep): boolean {
+  return g.edges.every((e) => e.u !== e.v && (s.depth[e.u] & 1) !== (s.depth[e.v] & 1));
 }
 
 /** A spider: a tree with ≤ 1 vertex of degree ≥ 3, as a centre and legs (vertex paths leaving it). */

@@ -162,3 +162,20 @@ describe("search agrees with brute force (property)", () => {
     expect(v.status).toBe("verified");
   });
 });
+
+describe("odd cycles and bipartite hosts", () => {
+  it("C5 is absent from a 40×40 grid because the grid is bipartite", () => {
+    // Grid graphs are bipartite (colour by i + j parity; common practice), and C5 is an odd cycle.
+    const lines: string[] = [];
+    const id = (i: number, j: number) => i * 40 + j;
+    for (let i = 0; i < 40; i++) for (let j = 0; j < 40; j++) {
+      if (i + 1 < 40) lines.push(`${id(i, j)} ${id(i + 1, j)}`);
+      if (j + 1 < 40) lines.push(`${id(i, j)} ${id(i, j + 1)}`);
+    }
+    const grid = parseGraph(lines.join("\n"));
+    const v = findSubgraph(cycle(5), grid);
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "odd-cycle-in-bipartite" } });
+    expect(recheckSubgraph(cycle(5), grid, v.certificate).status).toBe("verified");
+    expect(findSubgraph(cycle(6), grid).status).toBe("verified");
+  });
+});

@@ -23,13 +23,13 @@ import { Budget, withinBudget, type Verdict } from "./verdict";
 import { expectIntArray, expectRecord, multiplicity, recheck, reject, CertificateRejected } from "./certificate-check";
 import { sweep } from "./structure";
 import {
-  asSpider, componentMembers, countingArgument, embedSpiderInForest, isForestGraph, type AbsenceArgument,
+  asSpider, componentMembers, countingArgument, embedSpiderInForest, isBipartiteGraph, isForestGraph, type AbsenceArgument,
 } from "./subgraph-filters";
 
 export type { AbsenceArgument } from "./subgraph-filters";
 
 export interface EmbeddingCertificate { kind: "embedding"; embedding: number[] }
-export interface AbsenceCertificate { kind: "absence"; argument: AbsenceArgument | { kind: "cycle-in-forest" } }
+export interface AbsenceCertificate { kind: "absence"; argument: AbsenceArgument }
 export type SubgraphCertificate = EmbeddingCertificate | AbsenceCertificate;
 
 export interface SubgraphOptions {
@@ -150,7 +150,7 @@ export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Bu
   return { embedding: null, nodesVisited };
 }
 
-type Decision = { embedding: number[]; method: string; nodesVisited?: number } | { argument: AbsenceCertificate["argument"] };
+type Decision = { embedding: number[]; method: string; nodesVisited?: number } | { argument: AbsenceArgument };
 
 /** Decides H ⊆ G by the cheapest argument that applies (see the module comment). */
 export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: Budget): Decision {
@@ -173,6 +173,7 @@ export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: 
       return { argument: { kind: "spider-arms", legs: spider.legs.map((l) => l.length).sort((a, b) => a - b) } };
     }
   }
+  if (isBipartiteGraph(g, gs) && !isBipartiteGraph(h, hs)) return { argument: { kind: "odd-cycle-in-bipartite" } };
   const { embedding, nodesVisited } = searchEmbedding(h, g, induced, budget, roots);
   if (embedding) return { embedding, method: "backtracking search", nodesVisited };
   return { argument: { kind: "search", nodesVisited } };
@@ -180,13 +181,14 @@ export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: 
 
 const vertices = (k: number) => `${k} ${k === 1 ? "vertex" : "vertices"}`;
 
-export function describeAbsence(arg: AbsenceCertificate["argument"], pattern = "H", host = "G"): string {
+export function describeAbsence(arg: AbsenceArgument, pattern = "H", host = "G"): string {
   switch (arg.kind) {
     case "order": return `${pattern} has ${arg.patternOrder} vertices, more than the ${arg.hostOrder} of ${host}`;
     case "degree-count": return `${pattern} has ${vertices(arg.inPattern)} of degree ≥ ${arg.threshold} but ${host} has only ${arg.inHost}; an embedding maps them to distinct vertices of at least that degree`;
     case "loop-count": return `${pattern} has ${vertices(arg.inPattern)} with loop weight ≥ ${arg.threshold} but ${host} has only ${arg.inHost}`;
     case "component-fit": return `${pattern} is connected, so it must lie in one component of ${host}, and each of the ${arg.components} components fails the vertex or degree count`;
     case "cycle-in-forest": return `${pattern} contains a cycle (loops and multiple edges count) and ${host} is a forest`;
+    case "odd-cycle-in-bipartite": return `${pattern} contains an odd cycle (a loop counts) and ${host} is bipartite`;
     case "spider-arms": return `${host} is a forest and ${pattern} = T(${arg.legs.join(",")}) needs a vertex with ${arg.legs.length} disjoint arms of lengths ≥ ${arg.legs.slice().reverse().join(", ")}; no vertex of ${host} has them`;
     case "search": return `exhaustive backtracking search visited ${arg.nodesVisited} partial embeddings and found none`;
   }
