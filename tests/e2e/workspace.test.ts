@@ -1,0 +1,91 @@
+/** The author's day in the browser: draft a proof with two cases, write a step with math, attach a claim, see its verdict and picture. */
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { launchBrowser, signInAs } from "./browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("proof workspace in the browser", () => {
+  it("drafts a proof with two cases, a step with math and a verified claim with its picture", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, baseUrl, "author");
+    await page.waitForURL(`${baseUrl}/proofs`);
+
+    await page.goto(`${baseUrl}/proofs/new`);
+    await page.getByLabel("Title").fill("Stars and the golden bound");
+    await page.getByLabel(/^Statement/).fill("Every graph $G$ with $\\rho(G) < \\sqrt{5}$ has maximum degree at most $4$.");
+    await page.getByRole("button", { name: "Create proof" }).click();
+    await page.waitForURL(/\/proofs\/\d+$/);
+    await page.getByRole("heading", { name: "Stars and the golden bound" }).waitFor();
+
+    const addCase = page.getByTestId("add-case");
+    await addCase.getByLabel("Case title").fill("A vertex of degree at least 5");
+    await addCase.getByLabel(/^Condition/).fill("$\\Delta(G) \\ge 5$");
+    await addCase.getByRole("button", { name: "Add case" }).click();
+    await page.locator('[data-case-number="1"]').waitFor();
+    await addCase.getByLabel("Case title").fill("All degrees at most 4");
+    await addCase.getByLabel(/^Condition/).fill("$\\Delta(G) \\le 4$");
+    await addCase.getByRole("button", { name: "Add case" }).click();
+    await page.locator('[data-case-number="2"]').waitFor();
+    expect(await page.getByTestId("case").count()).toBe(2);
+    expect(await page.locator('[data-case-number="1"] [data-case-state]').first().getAttribute("data-case-state")).toBe("drafting");
+
+    // A step in case 1, written with math; it opens on its own page.
+    await page.getByTestId("case-actions-1").getByRole("button", { name: "+ Step" }).click();
+    await page.getByTestId("add-step").getByRole("textbox").fill("$K_{1,5} \\subseteq G$, hence\n\n$$\n\\rho(G) \\ge \\rho(K_{1,5}) = \\sqrt{5}.\n$$");
+    await page.getByRole("button", { name: "Add step and open it" }).click();
+    await page.waitForURL(/\/steps\/\d+$/);
+    await page.getByText("Step 1.1").first().waitFor();
+    expect(await page.locator("main .katex").count()).toBeGreaterThanOrEqual(2);
+    expect(await page.locator("main .katex-display").count()).toBeGreaterThanOrEqual(1);
+
+    // A new revision through the editor.
+    const editor = page.getByLabel("step text (Markdown with $…$ math)");
+    await editor.waitFor();
+    await editor.fill("Since $K_{1,5} \\subseteq G$ and $\\rho$ is monotone under subgraphs,\n\n$$\n\\rho(G) \\ge \\sqrt{5}.\n$$");
+    await page.getByRole("button", { name: "Save as new revision" }).click();
+    await page.getByText("Saved as revision 2.").waitFor();
+
+    // A claim with malformed input shows the problem next to the field and saves nothing.
+    const form = page.getByTestId("claim-form");
+    await form.getByLabel("graph G", { exact: true }).fill("star(5)");
+    await form.getByLabel("relation", { exact: true }).selectOption(">=");
+    await form.getByLabel("bound", { exact: true }).fill("sqrt(5");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await form.getByRole("alert").filter({ hasText: "sqrt(5" }).waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(0);
+
+    // The corrected claim goes pending, then verified, with its drawing and spectrum.
+    await form.getByLabel("bound", { exact: true }).fill("sqrt(5)");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    const claim = page.getByTestId("claim").first();
+    await claim.locator('[data-verdict="verified"]').waitFor({ timeout: 60_000 });
+    expect(await claim.textContent()).toContain("ρ(G) ≥ sqrt(5)");
+    expect(await claim.textContent()).toContain("cairn-check/");
+    const picture = claim.getByTestId("graph-picture");
+    expect(await picture.locator("svg circle").count()).toBe(6);
+    expect(await picture.locator("svg line").count()).toBe(5);
+    await claim.getByTestId("spectrum-plot").waitFor();
+    await picture.getByLabel("Perron vector values (display only)").check();
+    expect(await picture.getByTestId("perron-value").count()).toBe(6);
+    expect(await page.getByRole("note").first().textContent()).toContain("What a verdict means");
+
+    // The overview lists the claim in the table, filterable by verdict, with a link back to the step.
+    await page.getByRole("link", { name: "Stars and the golden bound" }).click();
+    const table = page.getByTestId("claims-table");
+    await table.waitFor();
+    expect(await table.locator('tbody [data-verdict="verified"]').count()).toBe(1);
+    await table.getByLabel("Verdict").selectOption("verified");
+    expect(await table.getByRole("link", { name: "1.1" }).count()).toBe(1);
+    await context.close();
+  });
+});
