@@ -7,6 +7,7 @@
  * entry A[v][v] (our loop weight). Incremental sparse6 (lines starting with ";") and digraph6
  * ("&") are not supported and are rejected with a clear error.
  *
+ * Both formats number vertices 0..n-1 and hold no labels: writing drops a graph's display labels.
  * Errors name line 1 and the 1-based column (character position) of the offending byte.
  */
 
