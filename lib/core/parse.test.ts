@@ -222,3 +222,13 @@ describe("graph6/sparse6 orders (N(n) encodings)", () => {
     expect(() => parseGraph("path")).toThrow(/expected "\("/);
   });
 });
+
+describe("JSON-style matrices", () => {
+  it("reads [[…],[…]] on one line or several, and points at an asymmetric entry", () => {
+    expect(pairs(parseGraph("[[0,1,0],[1,0,1],[0,1,0]]"))).toEqual([[0, 1, 1], [1, 2, 1]]);
+    expect(pairs(parseGraph("[[0, 2],\n [2, 0]]"))).toEqual([[0, 1, 2]]);
+    const e = errorOf(() => parseGraph("[[0,1],[0,0]]"));
+    expect(e.message).toMatch(/not symmetric/);
+    expect([e.line, e.column]).toEqual([1, 5]);
+  });
+});

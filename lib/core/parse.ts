@@ -13,7 +13,8 @@
  *     are numbered in order of first appearance and kept as labels, and header vertices beyond them
  *     get their index as label.
  * Adjacency matrix: one row per line of non-negative integers (spaces, commas or brackets between
- * them), square and symmetric; A[v][v] is the loop weight at v.
+ * them), or JSON style `[[0,1],[1,0]]` where each "]" closes a row; square and symmetric; A[v][v] is
+ * the loop weight at v.
  */
 
 import { GraphError, type Graph } from "./graph";
@@ -32,7 +33,7 @@ interface Token { text: string; line: number; column: number }
  * Splits text into lines of tokens, dropping `#` comments; `separator(code)` says which characters
  * separate fields and the `punctuation` character (if any) is a token of its own.
  */
-function tokenLines(text: string, separator: (code: number) => boolean, punctuation = -1): Token[][] {
+function tokenLines(text: string, separator: (code: number) => boolean, punctuation = -1, rowBreak = -1): Token[][] {
   const out: Token[][] = [];
   let line = 1, lineStart = 0, i = 0;
   let tokens: Token[] = [];
@@ -46,12 +47,13 @@ function tokenLines(text: string, separator: (code: number) => boolean, punctuat
       continue;
     }
     if (code === 35) { while (i < n && text.charCodeAt(i) !== 10 && text.charCodeAt(i) !== 13) i++; continue; } // "#"
+    if (code === rowBreak) { if (tokens.length > 0) { out.push(tokens); tokens = []; } i++; continue; }
     if (separator(code)) { i++; continue; }
     const start = i;
     if (code === punctuation) { i++; tokens.push({ text: text[start], line, column: start - lineStart + 1 }); continue; }
     while (i < n) {
       const c = text.charCodeAt(i);
-      if (c === 10 || c === 13 || c === 35 || c === punctuation || separator(c)) break;
+      if (c === 10 || c === 13 || c === 35 || c === punctuation || c === rowBreak || separator(c)) break;
       i++;
     }
     tokens.push({ text: text.slice(start, i), line, column: start - lineStart + 1 });
@@ -143,7 +145,8 @@ export function parseEdgeList(text: string): Graph {
 
 /** Reads a square symmetric matrix of non-negative integers; the first asymmetric entry is reported. */
 export function parseAdjacencyMatrix(text: string): Graph {
-  const rows = tokenLines(text, MATRIX_SEPARATORS);
+  // "[[0,1],[1,0]]" (JSON style, possibly on one line): each "]" closes a row.
+  const rows = tokenLines(text, MATRIX_SEPARATORS, -1, text.trimStart().startsWith("[[") ? 93 : -1);
   const n = rows.length;
   if (n > 20_000) throw new GraphError(`a ${n}×${n} matrix is beyond the limit of 20000 rows; use an edge list or sparse6`);
   const values: number[][] = rows.map((row) =>
@@ -174,7 +177,7 @@ export function parseAdjacencyMatrix(text: string): Graph {
 
 /**
  * Guesses the format of a text:
- * - `>>graph6<<` / `>>sparse6<<` headers or a leading ':' → graph6 / sparse6;
+ * - `>>graph6<<` / `>>sparse6<<` headers or a leading ':' → graph6 / sparse6; a leading "[[" → matrix;
  * - a family name followed by "(" → named;
  * - a single word of bytes 63–126 (graph6 never contains digits, spaces or brackets) → graph6;
  * - a square block of integers → matrix when its side is not 2 or 3; for side 2 or 3 only when it is
@@ -187,7 +190,8 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
   const t = text.trim();
   if (t.startsWith(SPARSE6_HEADER) || t.startsWith(":") || t.startsWith(";")) return "sparse6";
   if (t.startsWith(GRAPH6_HEADER)) return "graph6";
-  if (looksNamed(t) || NAMED_FAMILIES.includes(t)) return "named"; // a bare "path" is a named graph missing "(n)", not graph6
+  if (looksNamed(t) || NAMED_FAMILIES.includes(t)) return "named";
+  if (t.startsWith("[[")) return "matrix"; // a bare "path" is a named graph missing "(n)", not graph6
   if (/^[\x3f-\x7e]+$/.test(t)) return "graph6";
   const rows = tokenLines(t, MATRIX_SEPARATORS);
   const side = rows.length;
