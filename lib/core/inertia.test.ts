@@ -4,7 +4,9 @@ import { Graph, makeGraph } from "./graph";
 import { Budget } from "./verdict";
 import { rat } from "./rational";
 import { inertia, recheckSpectralRadiusBound, spectralRadiusBound, type Relation, type SpectralRadiusCertificate } from "./inertia";
-import { treeInertia } from "./tree-inertia";
+import { treeInertia, treeInertiaOver } from "./tree-inertia";
+import { AlgebraicField } from "./number-field";
+import { parseBound, type Bound } from "./bound";
 import { sparseInertia } from "./sparse-inertia";
 import { path, cycle, star, complete, completeBipartite, dynkinD, dynkinE, affineD, affineE, starlike } from "./constructors";
 
@@ -163,6 +165,46 @@ describe("irrational bounds", () => {
     const rho = Math.max(...floatEigenvalues(g));
     expect(Math.abs(rho - Math.sqrt(2 + Math.sqrt(5)))).toBeGreaterThan(1e-3);
     expect(verdict(g, rho > Math.sqrt(2 + Math.sqrt(5)) ? ">" : "<", "sqrt(2+sqrt(5))").status).toBe("verified");
+  });
+});
+
+describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)", () => {
+  it("T(2,2,k) stays below sqrt(2+sqrt(5)) even where ρ is within 2^-50 of it (Hoffman 1972)", () => {
+    for (const k of [60, 200, 500]) {
+      const v = verdict(starlike([2, 2, k]), "<", "sqrt(2+sqrt(5))");
+      expect(v.status, `k = ${k}: ${v.reason}`).toBe("verified");
+    }
+    expect(verdict(starlike([2, 2, 500]), "<", "sqrt(2+sqrt(5))").method).toMatch(/Q\(b\)/);
+  });
+  it("ρ(P_n) = 2cos(π/(n+1)) exactly for n = 30 and 44, which lies above 2cos(π/n) (Brouwer & Haemers §1.4.4)", () => {
+    for (const n of [30, 44]) {
+      const v = verdict(path(n), "=", `2cos(pi/${n + 1})`);
+      expect(v.status).toBe("verified");
+      expect(v.certificate!.kind).toBe("algebraic-tree");
+      expect(verdict(path(n), ">", `2cos(pi/${n})`).status).toBe("verified");
+      expect(verdict(path(n), "<", `2cos(pi/${n + 1})`).status).toBe("refuted");
+    }
+  });
+  it("full inertia of bI - A over Q(b) matches float eigenvalue counts on random trees (mathjs eigs, far from b)", () => {
+    const bounds = ["sqrt(2)", "sqrt(3)", "sqrt(5)", "2cos(pi/7)", "sqrt(2+sqrt(5))", "2cos(2pi/9)"];
+    for (let seed = 1; seed <= 30; seed++) {
+      const g = randomTree(4 + (seed % 10), 500 + seed);
+      const ev = floatEigenvalues(g);
+      const b = parseBound(bounds[seed % bounds.length]) as Bound & { kind: "algebraic" };
+      const F = new AlgebraicField(b);
+      const r = treeInertiaOver(g, F, F.generator, "none", new Budget());
+      if (ev.some((x) => Math.abs(x - b.approx) < 1e-9)) continue;
+      expect(r.negative, `seed ${seed}`).toBe(ev.filter((x) => x > b.approx).length);
+      expect(r.zero).toBe(0);
+    }
+  });
+  it("algebraic-tree certificates re-check; a changed count is rejected", () => {
+    const g = path(30);
+    const v = verdict(g, "=", "2cos(pi/31)");
+    expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", v.certificate).status).toBe("verified");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-tree" };
+    c.zero = 2; c.positive = 28;
+    expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", c).status).toBe("refuted");
   });
 });
 

@@ -14,7 +14,8 @@ import { Graph, GraphError, adjacency } from "./graph";
 import { Budget, Verdict, withinBudget } from "./verdict";
 import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZERO } from "./rational";
 import { Bound, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
-import { isForest, treeInertia, EliminationResult, StopRule } from "./tree-inertia";
+import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } from "./tree-inertia";
+import { AlgebraicField } from "./number-field";
 import { sparseInertia, PivotStep, ReplayError } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
 import { Poly, polyGcd, squarefree, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
@@ -29,6 +30,12 @@ export type SpectralRadiusCertificate =
   | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; positive: number; negative: 0; zero: number }
   /** x^T((at)I − A)x = value <= 0: ρ >= at (ρ > at when value < 0). Entries [vertex, rational]. */
   | { kind: "rayleigh"; at: string; vector: Array<[number, string]>; value: string }
+  /**
+   * Jacobs–Trevisan over Q(b) for a forest and an irrational b, with the given stop rule: counts of
+   * positive and zero values (complete run), or the vertex whose value is negative (sign -1) or,
+   * for the "nonPositive" rule, non-positive (sign 0 or -1). The re-check repeats the elimination.
+   */
+  | { kind: "algebraic-tree"; stop: "nonPositive" | "negative"; complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 }
   /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
 
@@ -78,7 +85,7 @@ function relativeTo(f: Fact, c: -1 | 0 | 1): Relation | undefined {
   return f.rel === ">" || f.rel === ">=" || f.rel === "=" ? ">" : undefined;
 }
 
-function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
+function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly = false): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
   const forest = isForest(g);
   const r = forest ? treeInertia(g, at, stop, budget) : sparseInertia(g, at, stop, budget);
   const atText = ratToString(at);
@@ -87,6 +94,8 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget): { fact: 
     const cert: SpectralRadiusCertificate = { kind: "inertia", at: atText, engine: forest ? "forest" : "sparse", ...(steps ? { steps } : {}), positive: r.positive, negative: 0, zero: r.zero };
     return { fact: { rel: r.zero > 0 ? "=" : "<", at }, cert, forest };
   }
+  // A probe whose failure is not going to be reported needs no certificate (and no costly re-evaluation).
+  if (probeOnly) return { fact: { rel: ">=", at }, cert: { kind: "rayleigh", at: atText, vector: [], value: "0" }, forest };
   const vector = [...r.witness!].filter(([, x]) => x.num !== 0n).sort((a, b) => a[0] - b[0]);
   // The certificate states the value recomputed from the vector itself, checked against the engine.
   const value = quadraticForm(g, at, r.witness!, budget);
@@ -103,6 +112,10 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
         : `A matrix congruent to ${cert.at}I − A has ${cert.positive} positive and ${cert.zero} zero diagonal values and no negative one, so ${cert.at}I − A is positive semidefinite and singular: λ_max(A) = ρ = ${cert.at}.`;
     case "rayleigh":
       return `The vector x in the certificate (support ${cert.vector.length}) has xᵀ(${cert.at}I − A)x = ${cert.value} ${cert.value.startsWith("-") ? "< 0" : "≤ 0"}, so the Rayleigh quotient xᵀAx/xᵀx is ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at} and ρ ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at}.`;
+    case "algebraic-tree":
+      return cert.complete
+        ? `Jacobs–Trevisan elimination of bI − A with exact arithmetic in Q(b) gives ${cert.positive} positive and ${cert.zero} zero values and no negative one, so bI − A is positive ${cert.zero ? "semidefinite and singular: ρ = b" : "definite: ρ < b"} (Sylvester's law of inertia, Perron–Frobenius).`
+        : `Jacobs–Trevisan elimination of bI − A in Q(b) reaches a ${cert.sign === -1 ? "negative" : "zero"} value at vertex ${cert.stoppedAt} with every value below it positive, so xᵀ(bI − A)x ${cert.sign === -1 ? "<" : "≤"} 0 for the minimising vector of that subtree: ρ ${cert.sign === -1 ? ">" : "≥"} b.`;
     case "sturm":
       return `Sturm sequences of the square-free part of χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
   }
@@ -127,10 +140,14 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     }
     for (const bits of [20, 50]) {
       const { lo, hi } = enclose(b, bits);
-      const below = runAt(g, lo, "nonPositive", budget);
+      const below = runAt(g, lo, "nonPositive", budget, true);
       if (below.fact.rel === "<") return verdictFrom("<", below.cert, methodOf(below.forest), [`b lies above the rational ${ratToString(lo)}`]);
       const above = runAt(g, hi, "nonPositive", budget);
       if (above.fact.rel !== "<") return verdictFrom(">", above.cert, methodOf(above.forest), [`b lies below the rational ${ratToString(hi)}`]);
+    }
+    if (isForest(g)) {
+      const { rel, cert } = algebraicTree(g, b, stop, budget);
+      return verdictFrom(rel, cert, "tree inertia over Q(b) (Jacobs–Trevisan 2011, exact algebraic arithmetic)");
     }
     if (g.n > CHARPOLY_FALLBACK_LIMIT)
       return { status: "undecided", statement, method: "exact inertia at rational enclosures", reason: `ρ lies within 2^-50 of ${b.text} and the graph has ${g.n} > ${CHARPOLY_FALLBACK_LIMIT} vertices, too many for the characteristic-polynomial fallback.` };
@@ -138,6 +155,16 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     const rel: Relation = cert.rootsAbove > 0 ? ">" : cert.boundIsEigenvalue ? "=" : "<";
     return verdictFrom(rel, cert, "characteristic polynomial and Sturm sequences");
   });
+}
+
+/** Exact Jacobs–Trevisan over Q(b): what it proves about ρ versus b, and the certificate. */
+function algebraicTree(g: Graph, b: Bound & { kind: "algebraic" }, stop: StopRule, budget: Budget): { rel: Relation; cert: SpectralRadiusCertificate & { kind: "algebraic-tree" } } {
+  const F = new AlgebraicField(b, budget);
+  const r = treeInertiaOver(g, F, F.generator, stop, budget);
+  const st = stop === "negative" ? "negative" : "nonPositive";
+  if (r.complete) return { rel: r.zero > 0 ? "=" : "<", cert: { kind: "algebraic-tree", stop: st, complete: true, positive: r.positive, zero: r.zero } };
+  const sg = F.sign(r.witnessValue!) < 0 ? -1 : 0;
+  return { rel: sg < 0 ? ">" : ">=", cert: { kind: "algebraic-tree", stop: st, complete: false, positive: 0, zero: 0, stoppedAt: r.stoppedAt, sign: sg } };
 }
 
 function boundIsRootOf(f: Poly, b: Bound & { kind: "algebraic" }, budget: Budget): boolean {
@@ -180,6 +207,9 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
       const at = parseCertRational(c.at, "certificate.at");
       const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : recheckRayleigh(g, at, c, budget);
       rel = relativeTo(fact, b.kind === "rational" ? cmp(at, b.value) : compareToBound(at, b));
+    } else if (c.kind === "algebraic-tree") {
+      if (b.kind !== "algebraic") reject("an algebraic-tree certificate needs an irrational bound");
+      rel = recheckAlgebraicTree(g, b, c, budget);
     } else if (c.kind === "sturm") {
       if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
       rel = recheckSturm(g, b, c, budget);
@@ -227,6 +257,15 @@ function recheckRayleigh(g: Graph, at: Rational, c: Record<string, unknown>, bud
   if (cmp(q, value) !== 0) reject(`xᵀ(${ratToString(at)}I − A)x = ${ratToString(q)}, not the certificate's ${ratToString(value)}`);
   if (sign(q) > 0) reject(`xᵀ(${ratToString(at)}I − A)x = ${ratToString(q)} is positive and proves nothing`);
   return { rel: sign(q) < 0 ? ">" : ">=", at };
+}
+
+function recheckAlgebraicTree(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
+  if (!isForest(g)) reject("an algebraic-tree certificate needs a forest");
+  if (c.stop !== "negative" && c.stop !== "nonPositive") reject(`certificate.stop must be "negative" or "nonPositive"`);
+  const { rel, cert } = algebraicTree(g, b, c.stop, budget);
+  for (const key of ["complete", "positive", "zero", "stoppedAt", "sign"] as const)
+    if (c[key] !== cert[key]) reject(`certificate.${key} is ${JSON.stringify(c[key])}, the elimination gives ${JSON.stringify(cert[key])}`);
+  return rel;
 }
 
 function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {

@@ -17,19 +17,20 @@
  */
 import { adjacency, Graph } from "./graph";
 import { Budget } from "./verdict";
-import { Rational, rat, sub, div, sign, cmp, ONE, mul, bitSize, ratToNumber } from "./rational";
+import type { Rational } from "./rational";
+import { Field, RATIONALS, nextUp, nextDown } from "./number-field";
 
 export type StopRule = "none" | "nonPositive" | "negative";
 
-export interface EliminationResult {
+export interface EliminationResult<T = Rational> {
   positive: number;
   negative: number;
   zero: number;
   /** False when an early stop cut the run short (the counts then cover only the eliminated part). */
   complete: boolean;
   /** Vector with x^T (bI - A) x = witnessValue, present when the run stopped early. */
-  witness?: Map<number, Rational>;
-  witnessValue?: Rational;
+  witness?: Map<number, T>;
+  witnessValue?: T;
   /** Vertex at which the run stopped. */
   stoppedAt?: number;
 }
@@ -88,31 +89,37 @@ export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; paren
  * `exactOnly` skips the intervals (for cross-checks).
  */
 export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, exactOnly = false): EliminationResult {
+  return treeInertiaOver(g, RATIONALS, b, stop, budget, exactOnly);
+}
+
+/** The same elimination over any exact ordered field containing b (Q, or Q(b) for algebraic b). */
+export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, budget: Budget, exactOnly = false): EliminationResult<T> {
   const { start, nbr, wt, diag } = adjacency(g);
   const { order, parent } = bfsForest(g, budget);
   const n = g.n;
   const lo = new Float64Array(n), hi = new Float64Array(n);
-  const exact: Array<Rational | undefined> = new Array(n);
+  const exact: Array<T | undefined> = new Array(n);
   const cut = new Uint8Array(n);
-  const bEnclosure = exactOnly ? undefined : ratEnclosure(b);
-  const diagonal = (v: number) => (diag[v] === 0 ? b : sub(b, rat(diag[v])));
-  const setExact = (v: number, a: Rational) => {
+  const bEnclosure = exactOnly ? undefined : F.enclosure(b);
+  const diagonal = (v: number) => (diag[v] === 0 ? b : F.sub(b, F.fromInt(diag[v])));
+  const setExact = (v: number, a: T) => {
     exact[v] = a;
-    [lo[v], hi[v]] = ratEnclosure(a) ?? [-Infinity, Infinity];
+    [lo[v], hi[v]] = F.enclosure(a) ?? [-Infinity, Infinity];
   };
   const isChild = (v: number, c: number) => c !== parent[v] && !cut[c];
   /** Exact a(v) from exact child values; zeroChild >= 0 when the special rule applies. */
-  const exactFromChildren = (v: number): { a: Rational; zeroChild: number } => {
+  const exactFromChildren = (v: number): { a: T; zeroChild: number } => {
     let a = diagonal(v);
     for (let k = start[v]; k < start[v + 1]; k++) {
       const c = nbr[k];
       if (!isChild(v, c)) continue;
       const ac = exact[c]!;
-      if (ac.num === 0n) return { a, zeroChild: c };
-      a = sub(a, rat(BigInt(wt[k]) * BigInt(wt[k]) * ac.den, ac.num));
+      if (F.sign(ac) === 0) return { a, zeroChild: c };
+      a = F.sub(a, F.div(F.fromInt(wt[k] * wt[k]), ac));
     }
-    // Large rationals cost more than a step each: tick by size so huge growth ends in "undecided".
-    if (a.den > BIG || a.num > BIG || -a.num > BIG) budget.tick(bitSize(a) >> 6);
+    // Large numbers cost more than a step each: tick by size so huge growth ends in "undecided".
+    const bits = F.bits(a);
+    if (bits > 256) budget.tick(bits >> 6);
     return { a, zeroChild: -1 };
   };
   /** Exact values for the subtree of `top` (invariant: an exact vertex has an exact subtree). */
@@ -159,16 +166,16 @@ export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budge
       const { a, zeroChild } = exactFromChildren(v);
       if (zeroChild >= 0) {
         // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
-        setExact(zeroChild, rat(2));
+        setExact(zeroChild, F.fromInt(2));
         zero--; positive++;
-        setExact(v, rat(-1, 2));
+        setExact(v, F.div(F.fromInt(-1), F.fromInt(2)));
         negative++;
         if (parent[v] >= 0) cut[v] = 1;
         if (stop !== "none") return zeroChildWitness(v, zeroChild);
         continue;
       }
       setExact(v, a);
-      s = sign(a);
+      s = F.sign(a);
     } else {
       lo[v] = aLo; hi[v] = aHi;
       s = aLo > 0 ? 1 : -1;
@@ -178,60 +185,22 @@ export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budge
     else zero++;
     if ((stop === "nonPositive" && s <= 0) || (stop === "negative" && s < 0)) {
       ensureExact(v);
-      const x = subtreeVector(g, v, parent, exact, budget);
+      const x = subtreeVector(g, F, v, parent, exact, budget);
       return { positive, negative, zero, complete: false, witness: x, witnessValue: exact[v]!, stoppedAt: v };
     }
   }
   return { positive, negative, zero, complete: true };
 
-  function zeroChildWitness(v: number, c: number): EliminationResult {
-    const w = edgeWeight(g, v, c);
-    const x = subtreeVector(g, c, parent, exact, budget);
+  function zeroChildWitness(v: number, c: number): EliminationResult<T> {
+    const w = F.fromInt(edgeWeight(g, v, c));
+    const x = subtreeVector(g, F, c, parent, exact, budget);
     // x^T M x = 0 on the subtree of c; adding t*e_v adds -2 t w x_c + t^2 M[v][v] < 0 for small t > 0.
     const mvv = diagonal(v);
-    const t = cmp(mvv, rat(w)) <= 0 ? ONE : div(rat(w), mvv);
+    const t = F.sign(F.sub(mvv, w)) <= 0 ? F.fromInt(1) : F.div(w, mvv);
     x.set(v, t);
-    return { positive, negative, zero, complete: false, witness: x, witnessValue: sub(mul(mul(t, t), mvv), mul(rat(2 * w), t)), stoppedAt: v };
+    const value = F.sub(F.mul(F.mul(t, t), mvv), F.mul(F.mul(F.fromInt(2), w), t));
+    return { positive, negative, zero, complete: false, witness: x, witnessValue: value, stoppedAt: v };
   }
-}
-
-const BIG = 1n << 256n;
-
-// ------------------------------------------------------------ outward-rounded interval arithmetic
-
-const f64 = new Float64Array(1);
-const u32 = new Uint32Array(f64.buffer);
-f64[0] = 1;
-const [LOW, HIGH] = u32[1] === 0x3ff00000 ? [0, 1] : [1, 0];
-
-/** The next double above x (x itself for NaN and +Infinity). */
-function nextUp(x: number): number {
-  if (x !== x || x === Infinity) return x;
-  if (x === 0) return Number.MIN_VALUE;
-  f64[0] = x;
-  if (x > 0) { if (u32[LOW] === 0xffffffff) { u32[LOW] = 0; u32[HIGH]++; } else u32[LOW]++; }
-  else { if (u32[LOW] === 0) { u32[LOW] = 0xffffffff; u32[HIGH]--; } else u32[LOW]--; }
-  return f64[0];
-}
-
-function nextDown(x: number): number {
-  return -nextUp(-x);
-}
-
-const EXACT_LIMIT = 2n ** 53n;
-
-/** A double interval containing r ([0, 0] for 0); undefined when no finite non-zero enclosure is at hand. */
-function ratEnclosure(r: Rational): [number, number] | undefined {
-  if (r.num === 0n) return [0, 0];
-  if (r.num <= EXACT_LIMIT && -r.num <= EXACT_LIMIT && r.den <= EXACT_LIMIT) {
-    const q = Number(r.num) / Number(r.den); // one rounding: both operands convert exactly
-    return [nextDown(q), nextUp(q)];
-  }
-  // ratToNumber truncates to ~60 bits and rounds three times: relative error < 2^-50; widen by 2^-40.
-  const f = ratToNumber(r);
-  if (!Number.isFinite(f) || f === 0) return undefined;
-  const m = Math.abs(f) * 2 ** -40;
-  return [nextDown(f - m), nextUp(f + m)];
 }
 
 function edgeWeight(g: Graph, u: number, v: number): number {
@@ -244,9 +213,9 @@ function edgeWeight(g: Graph, u: number, v: number): number {
  * The minimising vector on the subtree below `top`: x_top = 1, x_u = w(u) x_parent(u) / a(u).
  * With every a(u) > 0 below `top`, x^T M x restricted to the subtree equals a(top).
  */
-function subtreeVector(g: Graph, top: number, parent: Int32Array, value: Array<Rational | undefined>, budget: Budget): Map<number, Rational> {
+function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array, value: Array<T | undefined>, budget: Budget): Map<number, T> {
   const { start, nbr, wt } = adjacency(g);
-  const x = new Map<number, Rational>([[top, ONE]]);
+  const x = new Map<number, T>([[top, F.fromInt(1)]]);
   const queue = [top];
   for (let h = 0; h < queue.length; h++) {
     const v = queue[h];
@@ -256,7 +225,7 @@ function subtreeVector(g: Graph, top: number, parent: Int32Array, value: Array<R
       const u = nbr[k];
       if (parent[u] !== v) continue;
       const au = value[u]!;
-      x.set(u, div(mul(rat(wt[k]), xv), au));
+      x.set(u, F.div(F.mul(F.fromInt(wt[k]), xv), au));
       queue.push(u);
     }
   }
