@@ -57,7 +57,7 @@ export function CaseActions({ proofId, caseId, number, first, last, targets }: {
           <option value="top">top level</option>
           {targets.map((t) => (
             <option key={t.id} value={t.id}>
-              Case {t.number}
+              → {t.number}
             </option>
           ))}
         </select>
