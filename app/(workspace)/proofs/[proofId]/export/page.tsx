@@ -1,0 +1,50 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { getProofSummary } from "@/lib/data/proofs";
+import { getCertification, listExports } from "@/lib/data/exports";
+import { ExportActions } from "@/components/export/export-actions";
+import { ExportList } from "@/components/export/export-list";
+import { OfflineCheckHelp } from "@/components/export/offline-check-help";
+import { VerdictCaution } from "@/components/ui/caution";
+import { pageRole } from "../page-access";
+
+export const metadata: Metadata = { title: "Export" };
+
+/** Certified or draft exports of a proof: make one, list past ones with their digests, download their files. */
+export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
+  const { proofId, role } = await pageRole((await params).proofId);
+  const [proof, certification, exports] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId)]);
+  if (!proof) notFound();
+  const ready = certification.state === "ready to certify";
+  return (
+    <main className="max-w-4xl space-y-8">
+      <div>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <h1 className="mt-2 text-3xl font-semibold">Export</h1>
+      </div>
+      <section className="space-y-3" aria-labelledby="state">
+        <h2 id="state" className="text-xl font-semibold">
+          Proof: <span data-proof-state={certification.state}>{ready ? "● ready to certify" : "◐ in progress"}</span>
+        </h2>
+        {ready ? (
+          <p>Every case is settled: a certified export is possible.</p>
+        ) : (
+          <div data-testid="blockers">
+            <p>Not ready to certify; a draft export is still possible and is marked DRAFT on every page. What stands in the way:</p>
+            <ul className="mt-2 list-disc pl-6 text-sm">
+              {certification.blockers.map((b) => <li key={b}>{b}</li>)}
+            </ul>
+          </div>
+        )}
+        {role === "reviewer" ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} />}
+      </section>
+      <VerdictCaution />
+      <section className="space-y-3">
+        <h2 className="text-xl font-semibold">Past exports</h2>
+        <ExportList proofId={proofId} exports={exports} />
+      </section>
+      <OfflineCheckHelp proofId={proofId} />
+    </main>
+  );
+}
