@@ -4,7 +4,7 @@
  */
 import type { BenchSection, BenchTask } from "./run";
 import {
-  extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
+  extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
   t12kWorkload, workloadGraph, type Workload,
 } from "./workloads";
 import { validateClaim } from "../../lib/core/claim-schema";
@@ -68,6 +68,8 @@ function subgraphTasks(): BenchTask[] {
       named(graphTask(`tree-${n}-affineE8`, () => randomTreeWorkload(n), "find affine E8 (embedding)", n === 1_000, find(e8), n === 100_000 ? 1000 : undefined), `tree-${n}`)),
     named(graphTask("path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)), "path P_100000"),
     named(graphTask("path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)), "path P_1000"),
+    ...[1_000, 100_000].map((n) =>
+      named(graphTask(`affineD-${n}-affineE8`, () => extendedDWorkload(n), "affine E8 absent (proof of absence)", n === 1_000, find(e8)), `extended D, n=${n}`)),
   ];
 }
 
