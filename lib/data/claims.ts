@@ -116,6 +116,18 @@ export async function verificationSettled(claimId: number): Promise<void> {
   await inFlight.get(claimId);
 }
 
+/**
+ * Waits up to `ms` for the claims' verdicts (the checks still run in the worker pool) and returns
+ * the claims as they are then; those not done are still `pending`.
+ */
+export async function awaitVerdicts(proofId: number, ids: number[], ms: number): Promise<ClaimView[]> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const timeout = new Promise<void>((resolve) => (timer = setTimeout(resolve, ms)));
+  await Promise.race([Promise.all(ids.map(verificationSettled)), timeout]);
+  clearTimeout(timer);
+  return Promise.all(ids.map((id) => getClaim(proofId, id)));
+}
+
 /** Pending claims whose job is not running here (the server restarted meanwhile) are queued again. */
 function resumeStale(rows: ClaimRow[]): void {
   const stale = Date.now() - 5_000;

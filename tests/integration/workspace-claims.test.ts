@@ -83,6 +83,13 @@ describe("POST .../steps/[stepId]/claims", () => {
     expect(await models().Claim.count({ where: { stepId: Number(stepId) } })).toBe(before);
   });
 
+  it("with ?wait answers 200 with the verdict once the pool is done", async () => {
+    await actAs("author");
+    const res = await claimsRoute.POST(jsonRequest("/x?wait=30", "POST", { claims: [starBound] }), params({ proofId, stepId }));
+    expect(res.status).toBe(200);
+    expect((await res.json()).claims[0]).toMatchObject({ status: "verified", statement: "ρ(G) ≥ sqrt(5)" });
+  });
+
   it("401, 403 for a reviewer and a non-member, 404 for a step of another proof", async () => {
     await actAs(null);
     expect((await attach([starBound])).status).toBe(401);

@@ -1,6 +1,6 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { attachClaims, listStepClaims } from "@/lib/data/claims";
+import { attachClaims, awaitVerdicts, listStepClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
 import { attachClaimsSchema } from "@/lib/validations/claim";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
@@ -18,12 +18,16 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 /**
  * Attaches one or more "cairn-claim/1" claims to the step; authors only. Input that cannot be read
  * is a 422 naming the field (e.g. `claims.0.graph.text`) and nothing is saved; otherwise the claims
- * are stored `pending` and verified in the worker pool (202).
+ * are stored `pending` and verified in the worker pool (202). With `?wait=SECONDS` (at most 60) the
+ * answer waits that long for the verdicts: 200 when all are in, else 202 with those still pending.
  */
 export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireProofRole(proofId, "author");
   const input = await readBody(request, attachClaimsSchema);
   const claims = await attachClaims(proofId, stepId, user.id, input.claims);
-  return Response.json({ claims }, { status: 202 });
+  const wait = Math.min(Number(new URL(request.url).searchParams.get("wait")) || 0, 60);
+  if (wait <= 0) return Response.json({ claims }, { status: 202 });
+  const settled = await awaitVerdicts(proofId, claims.map((c) => c.id), wait * 1000);
+  return Response.json({ claims: settled }, { status: settled.some((c) => c.status === "pending") ? 202 : 200 });
 });

@@ -1,0 +1,35 @@
+import { describe, expect, it } from "vitest";
+import { layoutGraph, perronVector, pictureOf, symmetricEigenvalues } from "./picture";
+import { parseGraph } from "../core/parse";
+
+describe("graph pictures (display only)", () => {
+  it("lays a graph out the same way every time, inside the drawing box", () => {
+    const g = parseGraph("E~(8)", "named");
+    const a = layoutGraph(g), b = layoutGraph(g);
+    expect(a).toEqual(b);
+    for (const [x, y] of a.x.map((x, i) => [x, a.y[i]])) {
+      expect(x).toBeGreaterThanOrEqual(0);
+      expect(x).toBeLessThanOrEqual(1000);
+      expect(y).toBeGreaterThanOrEqual(0);
+      expect(y).toBeLessThanOrEqual(700);
+    }
+  });
+
+  it("finds the spectrum of the path P3, {−√2, 0, √2} (eigenvalues 2cos(kπ/4))", () => {
+    const ev = symmetricEigenvalues([[0, 1, 0], [1, 0, 1], [0, 1, 0]]);
+    expect(ev[0]).toBeCloseTo(-Math.SQRT2, 10);
+    expect(ev[1]).toBeCloseTo(0, 10);
+    expect(ev[2]).toBeCloseTo(Math.SQRT2, 10);
+  });
+
+  it("gives the Perron vector of the star K_{1,4}: centre 1, leaves 1/2 (ρ = 2)", () => {
+    expect(perronVector(parseGraph("star(4)", "named"))).toEqual([1, 0.5, 0.5, 0.5, 0.5]);
+  });
+
+  it("highlights the image of an embedding, vertices and edges", () => {
+    const host = parseGraph("path(5)", "named"), pattern = parseGraph("path(3)", "named");
+    const p = pictureOf(host, "G", [1, 2, 3], pattern)!;
+    expect(p.highlight).toEqual({ vertices: [1, 2, 3], edges: [[1, 2], [2, 3]] });
+    expect(pictureOf(host, "G", [7, 8, 9], pattern)!.highlight).toBeNull();
+  });
+});
