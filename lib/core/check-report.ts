@@ -20,6 +20,8 @@ export interface CheckLine {
   readonly text: string;
   /** Set when the claim carried a certificate: whether it re-checked. */
   readonly certificate?: { readonly matches: boolean; readonly text: string };
+  /** The reason of a verification and the verdict's notes, printed with --verbose. */
+  readonly details?: readonly string[];
 }
 
 export interface CheckReport {

@@ -11,6 +11,7 @@ import { recheckSpectralRadiusBound, spectralRadiusBound } from "./inertia";
 import { eigenvalueClaim, recheckEigenvalueClaim } from "./spectral";
 import { checkVectorCertificate } from "./vector";
 import { NumberFormatError } from "./rational";
+import { perronApproximation } from "./perron";
 import { polyToString, type Poly } from "./sturm";
 import { isForest } from "./tree-inertia";
 import type { Graph } from "./graph";
@@ -27,6 +28,17 @@ function boundOf(c: { readonly bound: string }): Bound {
   }
 }
 
+/** Small enough for a quick floating-point estimate of ρ to show beside the exact verdict. */
+const DISPLAY_ESTIMATE_EDGES = 20_000;
+
+/** Adds ρ ≈ … from power iteration, labelled display-only: readers like a number, the proof never uses it. */
+function withDisplayValue(g: Graph, v: Verdict): Verdict {
+  if (v.status === "undecided" || g.edges.length > DISPLAY_ESTIMATE_EDGES) return v;
+  const estimate = perronApproximation(g, 2_000, 1e-12);
+  if (!Number.isFinite(estimate.rho) || estimate.residual > 1e-6) return v;
+  return { ...v, notes: [...(v.notes ?? []), `ρ(G) ≈ ${estimate.rho.toFixed(6)} (floating-point power iteration, display only; not part of the proof)`] };
+}
+
 export const SPECTRAL_RADIUS_HANDLER: ClaimHandler<SpectralRadiusBoundClaim> = {
   statement: (c) => `ρ(G) ${SYMBOL[c.op]} ${boundOf(c).text}`,
   limit: (_c, inputs) => {
@@ -36,7 +48,7 @@ export const SPECTRAL_RADIUS_HANDLER: ClaimHandler<SpectralRadiusBoundClaim> = {
       ? overLimit(g, "the forest", CLAIM_LIMITS.inertiaForestVertices)
       : overLimit(g, "the graph (with cycles)", CLAIM_LIMITS.inertiaGraphEdges);
   },
-  verify: (c, inputs, budget) => spectralRadiusBound(graphOf(inputs), c.op, boundOf(c), budget),
+  verify: (c, inputs, budget) => withDisplayValue(graphOf(inputs), spectralRadiusBound(graphOf(inputs), c.op, boundOf(c), budget)),
   recheck: (c, inputs, outcome, evidence, budget) => recheckSpectralRadiusBound(graphOf(inputs), c.op, boundOf(c), outcome, evidence, budget),
 };
 

@@ -110,6 +110,14 @@ describe("spectral claims", () => {
     expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("starlike(1,2,6)"), op: ">", bound: "2" })).verdict.status).toBe("verified");
   });
 
+  it("shows a floating-point estimate of ρ, labelled display only", () => {
+    // ρ(E8) = 2cos(π/30) ≈ 1.989044 (largest exponent 29 of h = 30, Bourbaki Plate VII; eigenvalues 2cos(πm/h)).
+    const r = verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("E(8)"), op: "<", bound: "2" }));
+    const note = r.verdict.notes?.find((n) => n.startsWith("ρ(G) ≈"));
+    expect(note).toContain("1.989044");
+    expect(note).toContain("display only");
+  });
+
   it("decides irrational bounds: ρ(P5) = 2cos(π/6) = √3", () => {
     // Brouwer & Haemers §1.4.4: the eigenvalues of P_n are 2cos(πj/(n+1)), j = 1..n.
     expect(verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(5)"), op: "=", bound: "sqrt(3)" })).verdict.status).toBe("verified");

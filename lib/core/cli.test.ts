@@ -71,6 +71,20 @@ describe("offline checker", () => {
     expect(badReport.exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
+  it("--verbose prints the reason and notes of each verdict", () => {
+    const out: string[] = [];
+    main(["--verbose", join(FIXTURES, "structure.json")], (s) => out.push(s));
+    expect(out.join("\n")).toMatch(/\n    · a spanning tree exists and G has exactly n − 1 = 7 edges/);
+  });
+
+  it("--json prints a machine-readable report", () => {
+    const out: string[] = [];
+    main(["--json", join(FIXTURES, "structure.json")], (s) => out.push(s));
+    const parsed = JSON.parse(out.join("\n"));
+    expect(parsed.reports[0].lines).toHaveLength(5);
+    expect(parsed.reports[0].exitCode).toBe(EXIT_NOT_VERIFIED);
+  });
+
   it("rejects unknown options with exit 2", () => {
     expect(main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
   });

@@ -33,7 +33,8 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
       ? `certificate re-checked: matches (${r.certificateCheck.verdict.method})`
       : `certificate does NOT match: ${r.certificateCheck.verdict.reason}`,
   };
-  return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}) };
+  const details = [...(v.status === "verified" ? [v.reason] : []), ...(v.notes ?? [])];
+  return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}) };
 }
 
 
@@ -87,12 +88,13 @@ export function checkFile(path: string, options: CheckOptions = {}): CheckReport
   }
 }
 
-export function formatReport(report: CheckReport): string {
+export function formatReport(report: CheckReport, verbose = false): string {
   const out = [`${report.source}`];
   const width = Math.max(8, ...report.lines.map((l) => l.label.length));
   for (const l of report.lines) {
     out.push(`${MARK[l.status]} ${l.status.padEnd(10)} ${l.label.padEnd(width)}  ${l.text}`);
     if (l.certificate) out.push(`  ${l.certificate.matches ? "✓" : "✗"} ${l.certificate.text}`);
+    if (verbose) for (const d of l.details ?? []) out.push(`    · ${d}`);
   }
   const count = (s: CheckLine["status"]) => report.lines.filter((l) => l.status === s).length;
   const mismatched = report.lines.filter((l) => l.certificate && !l.certificate.matches).length;
@@ -104,7 +106,7 @@ export function formatReport(report: CheckReport): string {
   return out.join("\n");
 }
 
-const USAGE = `usage: cairn-check [--steps N] [--json] FILE...
+const USAGE = `usage: cairn-check [--steps N] [--json] [--verbose] FILE...
 Checks Cairn claims files (cairn-claim/1, cairn-claims/1) exactly, offline.
 Exit 0: all verified; 1: something refuted, undecided or a certificate not matching; 2: malformed input.`;
 
@@ -112,11 +114,12 @@ Exit 0: all verified; 1: something refuted, undecided or a certificate not match
 export function main(argv: string[], print: (s: string) => void = (s) => process.stdout.write(s + "\n")): number {
   const files: string[] = [];
   let steps: number | undefined;
-  let json = false;
+  let json = false, verbose = false;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === "--help" || a === "-h") { print(USAGE); return EXIT_OK; }
     else if (a === "--json") json = true;
+    else if (a === "--verbose" || a === "-v") verbose = true;
     else if (a === "--steps") {
       steps = Number(argv[++i]);
       if (!Number.isSafeInteger(steps) || steps < 1) { print(`--steps needs a positive integer\n${USAGE}`); return EXIT_MALFORMED; }
@@ -129,7 +132,7 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
   if (json) print(JSON.stringify({ checkerVersion: CHECKER_VERSION, reports }, null, 2));
   else {
     print(`cairn-check ${CHECKER_VERSION}`);
-    for (const r of reports) print(formatReport(r));
+    for (const r of reports) print(formatReport(r, verbose));
   }
   return Math.max(...reports.map((r) => r.exitCode));
 }
