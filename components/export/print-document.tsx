@@ -11,7 +11,7 @@ const isVerdict = (s: string): s is ClaimStatus => ["verified", "refuted", "unde
 
 function CaseSection({ c }: { c: DocCase }) {
   return (
-    <section className="break-inside-avoid-page" data-case={c.number}>
+    <section data-case={c.number}>
       <Heading depth={c.depth}>Case {c.number}: {c.title}</Heading>
       <div className="flex flex-wrap items-baseline gap-2 text-sm">
         <em>Condition.</em>
@@ -19,7 +19,7 @@ function CaseSection({ c }: { c: DocCase }) {
       </div>
       <p className="text-xs text-stone-600">Case state: {c.state}</p>
       {c.steps.map((s) => (
-        <article key={s.id} className="mt-4" data-step={s.id}>
+        <article key={s.id} className="mt-4 break-inside-avoid" data-step={s.id}>
           <h5 className="font-semibold">
             Step {c.number}:{s.position}{" "}
             <span className="text-sm font-normal text-stone-600">

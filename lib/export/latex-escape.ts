@@ -22,6 +22,8 @@ const UNICODE: Record<string, string> = {
   "Γ": "\\Gamma", "Δ": "\\Delta", "Θ": "\\Theta", "Λ": "\\Lambda", "Ξ": "\\Xi", "Π": "\\Pi", "Σ": "\\Sigma", "Υ": "\\Upsilon",
   "Φ": "\\Phi", "Ψ": "\\Psi", "Ω": "\\Omega",
 };
+/** Combining marks after a letter (D̃4 for the affine D4) become math accents. */
+const COMBINING: Record<string, string> = { "\u0303": "tilde", "\u0302": "hat", "\u0304": "bar", "\u0307": "dot", "\u0301": "acute" };
 const SUBSCRIPTS = "₀₁₂₃₄₅₆₇₈₉";
 const SUPERSCRIPTS = "⁰¹²³⁴⁵⁶⁷⁸⁹";
 const TEXT_UNICODE: Record<string, string> = {
@@ -59,8 +61,14 @@ export function stripControl(s: string): string {
  */
 export function escapeText(s: string): string {
   let out = "";
-  for (const ch of s) {
-    if (ch === "\u0000" || ch === "\n" || ch === "\t") out += ch === "\t" ? " " : ch;
+  const chars = [...s];
+  for (let k = 0; k < chars.length; k++) {
+    const ch = chars[k];
+    const accent = COMBINING[chars[k + 1]];
+    if (accent && /^[A-Za-z0-9]$/.test(ch)) {
+      out += `\\ensuremath{\\${accent}{${ch}}}`;
+      k++;
+    } else if (ch === "\u0000" || ch === "\n" || ch === "\t") out += ch === "\t" ? " " : ch;
     else if (TEXT_SPECIALS[ch]) out += TEXT_SPECIALS[ch];
     else if (ch.charCodeAt(0) < 0x80) out += ch;
     else if (TEXT_UNICODE[ch]) out += TEXT_UNICODE[ch];

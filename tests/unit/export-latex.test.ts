@@ -34,6 +34,13 @@ describe("LaTeX escaping", () => {
     );
   });
 
+  it("writes the Unicode of claim statements as LaTeX that pdflatex knows", () => {
+    expect(escapeLine("ρ(G) ≥ √5, G ≅ D̃4, x₁")).toBe(
+      String.raw`\ensuremath{\rho}(G) \ensuremath{\ge} \ensuremath{\surd}5, G \ensuremath{\cong} \ensuremath{\tilde{D}}4, x\ensuremath{_{1}}`,
+    );
+    expect(escapeLine("日")).toBe(String.raw`\texttt{[U+65E5]}`);
+  });
+
   it("passes harmless math through and neutralises dangerous commands inside math", () => {
     expect(sanitizeMath(String.raw`\rho\big(T(2,2,k)\big) \le \sqrt{2+\sqrt5}`)).toBe(String.raw`\rho\big(T(2,2,k)\big) \le \sqrt{2+\sqrt5}`);
     for (const cmd of ["input", "include", "write", "openout", "immediate", "catcode", "def", "csname", "usepackage", "newcommand"])
