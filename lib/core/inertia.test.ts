@@ -212,16 +212,30 @@ describe("certificates re-check and resist tampering", () => {
   const cases: Array<[Graph, Relation, string]> = [
     [affineE8, "=", "2"], [dynkinE(8), "<", "2"], [starlike([1, 2, 6]), ">", "2"], [cycle(7), "=", "2"],
     [petersenLike(), "<", "3"], [path(6), "=", "2cos(pi/7)"], [star(5), "<", "sqrt(6)"], [complete(4), ">", "sqrt(8)"],
+    [completeBipartite(2, 3), "=", "sqrt(6)"], [cycle(5), "<", "2cos(pi/7)"], [starlike([2, 2, 80]), "<", "sqrt(2+sqrt(5))"],
   ];
   it("every verdict's certificate re-checks", () => {
+    const kinds = new Set<string>();
     for (const [g, op, b] of cases) {
       const v = verdict(g, op, b);
+      kinds.add(v.certificate!.kind);
       expect(v.status).not.toBe("undecided");
       const r = recheckSpectralRadiusBound(g, op, b, v.status as "verified" | "refuted", v.certificate);
       expect(r.status, `${op} ${b}: ${r.reason}`).toBe("verified");
       const wrong = recheckSpectralRadiusBound(g, op, b, v.status === "verified" ? "refuted" : "verified", v.certificate);
       expect(wrong.status).toBe("refuted");
     }
+    expect([...kinds].sort()).toEqual(["algebraic-tree", "inertia", "rayleigh", "sturm"]);
+  });
+  it("a Sturm certificate with a changed coefficient or count is rejected", () => {
+    const g = completeBipartite(2, 3);
+    const v = verdict(g, "=", "sqrt(6)");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "sturm" };
+    c.charpoly[1] = "7";
+    expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", c).status).toBe("refuted");
+    const d = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "sturm" };
+    d.rootsAbove = 1;
+    expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", d).status).toBe("refuted");
   });
   it("a Rayleigh vector with one entry changed is rejected", () => {
     const g = starlike([1, 2, 6]);

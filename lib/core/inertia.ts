@@ -18,7 +18,7 @@ import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } f
 import { AlgebraicField } from "./number-field";
 import { sparseInertia, PivotStep, ReplayError } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
-import { Poly, polyGcd, squarefree, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
+import { Poly, polyGcd, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
 import { reject, recheck, expectRecord, expectInt } from "./certificate-check";
 
 export type Relation = "<" | "<=" | "=" | ">=" | ">";
@@ -39,8 +39,8 @@ export type SpectralRadiusCertificate =
   /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
 
-/** Largest graph for which the characteristic-polynomial fallback is attempted (irrational b only). */
-export const CHARPOLY_FALLBACK_LIMIT = 400;
+/** Largest graph with cycles for which the characteristic-polynomial fallback is attempted (irrational b, ρ within 2^-50 of b). */
+export const CHARPOLY_FALLBACK_LIMIT = 150;
 
 /** Inertia (positive, negative, zero) of bI − A: eigenvalues of A below, above and at b. */
 export function inertia(g: Graph, b: Rational, budget: Budget = new Budget()): EliminationResult {
@@ -117,7 +117,7 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
         ? `Jacobs–Trevisan elimination of bI − A with exact arithmetic in Q(b) gives ${cert.positive} positive and ${cert.zero} zero values and no negative one, so bI − A is positive ${cert.zero ? "semidefinite and singular: ρ = b" : "definite: ρ < b"} (Sylvester's law of inertia, Perron–Frobenius).`
         : `Jacobs–Trevisan elimination of bI − A in Q(b) reaches a ${cert.sign === -1 ? "negative" : "zero"} value at vertex ${cert.stoppedAt} with every value below it positive, so xᵀ(bI − A)x ${cert.sign === -1 ? "<" : "≤"} 0 for the minimising vector of that subtree: ρ ${cert.sign === -1 ? ">" : "≥"} b.`;
     case "sturm":
-      return `Sturm sequences of the square-free part of χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
+      return `Sturm sequences of the characteristic polynomial χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
   }
 }
 
@@ -176,7 +176,8 @@ function boundIsRootOf(f: Poly, b: Bound & { kind: "algebraic" }, budget: Budget
 
 function sturmCertificate(g: Graph, b: Bound & { kind: "algebraic" }, budget: Budget): SpectralRadiusCertificate & { kind: "sturm" } {
   const chi = characteristicPolynomial(g, budget);
-  const sf = squarefree(chi, budget);
+  // Sturm counts distinct roots of χ itself (no square-free part needed; endpoints are kept off roots).
+  const sf = chi;
   const seq = sturmSequence(sf, budget);
   const isRoot = boundIsRootOf(sf, b, budget);
   for (let bits = 8; ; bits *= 2) {
@@ -274,7 +275,7 @@ function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<stri
     reject("certificate.charpoly is not the characteristic polynomial of the graph");
   const lo = parseCertRational(c.lo, "certificate.lo"), hi = parseCertRational(c.hi, "certificate.hi");
   if (compareToBound(lo, b) >= 0 || compareToBound(hi, b) <= 0) reject("certificate.lo < b < certificate.hi fails");
-  const sf = squarefree(chi, budget);
+  const sf = chi;
   if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) reject("an end of the enclosure is an eigenvalue");
   const seq = sturmSequence(sf, budget);
   const isRoot = boundIsRootOf(sf, b, budget);

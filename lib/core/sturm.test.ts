@@ -48,6 +48,22 @@ describe("Sturm sequences count distinct real roots", () => {
     expect(rootsBetween(seq, rat(-2), rat(2))).toBe(7);
     expect(rootsBetween(seq, rat(18, 10), rat(2))).toBe(1); // 2cos(pi/8) = 1.8477...
   });
+  it("random products of (x - r)^k and (a x^2 + 1) factors: counts equal the number of distinct integer roots in the interval (common practice)", () => {
+    let seed = 12345;
+    const next = (m: number) => { seed = (Math.imul(1664525, seed) + 1013904223) >>> 0; return Math.floor((seed / 2 ** 32) * m); };
+    for (let t = 0; t < 60; t++) {
+      const roots = Array.from({ length: 1 + next(7) }, () => BigInt(next(21) - 10));
+      let p: Poly = [BigInt(1 + next(3))];
+      for (const r of roots) for (let k = 0; k <= next(3); k++) p = polyMul(p, linear(r));
+      if (next(2)) p = polyMul(p, [1n, 0n, BigInt(1 + next(5))]); // no real roots
+      const lo = next(25) - 12, hi = lo + 1 + next(15);
+      const seq = sturmSequence(p);
+      const expected = new Set(roots.filter((r) => r > BigInt(lo) && r < BigInt(hi)).map(String)).size;
+      if (roots.some((r) => r === BigInt(lo) || r === BigInt(hi))) continue;
+      expect(rootsBetween(seq, rat(lo), rat(hi)), `t = ${t}`).toBe(expected);
+      expect(polyGcd(p, derivative(p)).length - 1).toBe(p.length - 1 - (squarefree(p).length - 1));
+    }
+  });
   it("refuses endpoints that are roots, and Cauchy's bound contains all roots", () => {
     const seq = sturmSequence(product(linear(1n), linear(-2n)));
     expect(() => rootsBetween(seq, rat(1), rat(3))).toThrow(/endpoint/);

@@ -111,16 +111,76 @@ export function positiveRemainder(a: Poly, b: Poly, budget?: Budget): Poly {
   return primitive(negate ? r.map((c) => -c) : r);
 }
 
+/**
+ * Pseudo-remainder prem(a, b) = lc(b)^(deg a - deg b + 1) a mod b, exactly that power (the
+ * subresultant formulas below depend on it).
+ */
+export function prem(a: Poly, b: Poly, budget?: Budget): Poly {
+  const db = deg(b), lb = lead(b);
+  if (db < 0) throw new RangeError("polynomial division by zero");
+  const r = trim(a).slice();
+  for (let k = r.length - 1; k >= db; k--) {
+    budget?.tick(1 + ((r.length * bitLength(r[k])) >> 6));
+    const t = r[k];
+    for (let i = 0; i < k; i++) r[i] *= lb;
+    for (let j = 0; j < db; j++) r[k - db + j] -= t * b[j];
+    r[k] = 0n;
+  }
+  return trim(r.slice(0, Math.max(0, db)));
+}
+
+function bitLength(x: bigint): number {
+  return (x < 0n ? -x : x).toString(16).length * 4;
+}
+
+/**
+ * Subresultant polynomial remainder sequence r_0 = a, r_1 = b, r_{i+1} = prem(r_{i-1}, r_i) / beta_i
+ * (G. E. Collins, "Subresultants and reduced polynomial remainder sequences", J. ACM 14 (1967) 128–142;
+ * W. S. Brown, "On Euclid's algorithm and the computation of polynomial greatest common divisors",
+ * J. ACM 18 (1971) 478–504): every division is exact and the coefficients grow only linearly, with no
+ * gcd of coefficients. `signs[i]` is the sign s_i with r_i = s_i · (positive multiple of the i-th
+ * signed remainder), so the signed sequence s_i r_i is a Sturm sequence when b = a'.
+ */
+export function subresultantPRS(a: Poly, b: Poly, budget?: Budget): { rs: Poly[]; signs: number[] } {
+  const rs: Poly[] = [trim(a), trim(b)];
+  const signs = [1, 1];
+  if (rs[1].length === 0) return { rs: [rs[0]], signs: [1] };
+  let psi = -1n, beta = 0n, dPrev = 0;
+  for (let i = 1; ; i++) {
+    const r0 = rs[i - 1], r1 = rs[i];
+    const d = deg(r0) - deg(r1);
+    if (i === 1) beta = d % 2 === 0 ? -1n : 1n; // (-1)^(d+1)
+    else {
+      // psi_i = (-a_{i-1})^(d_{i-1}) / psi_{i-1}^(d_{i-1} - 1); beta_i = -a_{i-1} psi_i^(d_i)
+      const aPrev = lead(r0);
+      psi = dPrev === 0 ? psi : (-aPrev) ** BigInt(dPrev) / psi ** BigInt(dPrev - 1);
+      beta = -aPrev * psi ** BigInt(d);
+    }
+    const pr = prem(r0, r1, budget);
+    if (pr.length === 0) break;
+    const next = pr.map((c) => {
+      if (c % beta !== 0n) throw new Error("internal error: inexact subresultant division");
+      return c / beta;
+    });
+    // r_{i+1} = lc(r_i)^(d+1) rem(r_{i-1}, r_i) / beta and rem(r_{i-1}, r_i) = -s_{i-1} (next Sturm term).
+    const lcPow = lead(r1) < 0n && d % 2 === 0 ? -1 : 1;
+    signs.push(-signs[i - 1] * lcPow * (beta < 0n ? -1 : 1));
+    rs.push(next);
+    dPrev = d;
+  }
+  return { rs, signs };
+}
+
 /** Greatest common divisor over Q, returned primitive with positive leading coefficient. */
 export function polyGcd(a: Poly, b: Poly, budget?: Budget): Poly {
   let x = primitive(trim(a)), y = primitive(trim(b));
-  while (y.length > 0) {
-    const r = positiveRemainder(x, y, budget);
-    x = y;
-    y = r;
-  }
+  if (x.length === 0) [x, y] = [y, x];
   if (x.length === 0) return [];
-  return lead(x) < 0n ? x.map((c) => -c) : x;
+  if (y.length === 0) return lead(x) < 0n ? x.map((c) => -c) : x;
+  if (deg(x) < deg(y)) [x, y] = [y, x];
+  const { rs } = subresultantPRS(x, y, budget);
+  const g = primitive(rs[rs.length - 1]);
+  return lead(g) < 0n ? g.map((c) => -c) : g;
 }
 
 /** a / b when b divides a over Q (both integer, b primitive): the quotient is integral (Gauss's lemma). */
@@ -149,18 +209,16 @@ export function squarefree(p: Poly, budget?: Budget): Poly {
   return lead(q) < 0n ? q.map((c) => -c) : q;
 }
 
-/** Sturm sequence of p (which should be square-free for root counting to count distinct roots). */
+/**
+ * Sturm sequence of p, up to positive factors (which change no sign): the subresultant sequence of
+ * p and p' with the tracked signs applied. Its sign variations count the distinct real roots of p
+ * even when p is not square-free (the sequence then ends in a multiple of gcd(p, p')).
+ */
 export function sturmSequence(p: Poly, budget?: Budget): Poly[] {
-  const seq: Poly[] = [trim(p)];
-  if (seq[0].length === 0) throw new RangeError("Sturm sequence of the zero polynomial");
-  let prev = seq[0], cur = derivative(prev);
-  while (cur.length > 0) {
-    seq.push(cur);
-    const r = positiveRemainder(prev, cur, budget).map((c) => -c);
-    prev = cur;
-    cur = r;
-  }
-  return seq;
+  const t = trim(p);
+  if (t.length === 0) throw new RangeError("Sturm sequence of the zero polynomial");
+  const { rs, signs } = subresultantPRS(t, derivative(t), budget);
+  return rs.map((r, i) => (signs[i] < 0 ? r.map((c) => -c) : r));
 }
 
 function variations(signs: number[]): number {
