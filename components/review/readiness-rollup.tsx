@@ -4,7 +4,8 @@
  */
 import type { Readiness } from "@/lib/data/review-queues";
 import { VerdictCaution } from "@/components/ui/caution";
-import { CaseStateBadge, ProofStateBadge } from "./badges";
+import { CaseStateBadge } from "@/components/proof/case-state-badge";
+import { ProofStateBadge } from "./badges";
 
 export function ReadinessRollup({ readiness }: { readiness: Readiness }) {
   return (

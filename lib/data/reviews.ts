@@ -15,6 +15,7 @@ import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { getMembershipRole } from "./proofs";
+import { requireProofRole, type CurrentUser } from "@/lib/session";
 import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 
 export interface StepRef {
@@ -63,6 +64,17 @@ export async function canSeeStep(step: StepRef, userId: number): Promise<boolean
 /** 403 unless this person sees the step's case. */
 export async function assertCanSeeStep(step: StepRef, userId: number): Promise<void> {
   if (!(await canSeeStep(step, userId))) throw forbidden("This step is in a case you were not asked to review.");
+}
+
+/**
+ * The first checks of every step route and page: session (401), proof (404), membership (403), a step of
+ * this proof (404), a case this person sees (403).
+ */
+export async function requireStepAccess(proofId: number, stepId: number): Promise<{ user: CurrentUser; actor: Actor; step: StepRef }> {
+  const { user, role } = await requireProofRole(proofId);
+  const step = await loadStep(proofId, stepId);
+  await assertCanSeeStep(step, user.id);
+  return { user, actor: { id: user.id, role }, step };
 }
 
 /** 403 unless this person may give a verdict on this step. */

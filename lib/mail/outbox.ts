@@ -10,8 +10,18 @@ import { sendMail, type MailMessage } from "./transport";
 
 export const MAX_ATTEMPTS = 8;
 
+const g = globalThis as unknown as { __cairnMailRetry?: ReturnType<typeof setInterval> };
+
+/** While the server runs, due messages are retried every minute even when nothing else happens (not under Vitest). */
+function ensureRetryLoop(): void {
+  if (g.__cairnMailRetry || process.env.VITEST) return;
+  g.__cairnMailRetry = setInterval(() => void deliverDueMail().catch((e) => console.warn("[cairn] mail retry failed", e)), 60_000);
+  g.__cairnMailRetry.unref?.();
+}
+
 export async function enqueueMail(message: MailMessage, transaction?: Transaction): Promise<number> {
   const { OutgoingMail } = models();
+  ensureRetryLoop();
   const row = await OutgoingMail.create({ toAddress: message.to, subject: message.subject, textBody: message.text }, { transaction });
   return row.id;
 }

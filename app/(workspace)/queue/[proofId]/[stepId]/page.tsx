@@ -1,13 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requireProofRole } from "@/lib/session";
 import { AppError } from "@/lib/errors";
-import { assertCanSeeStep, describeStep, loadStep, visibleCaseIds } from "@/lib/data/reviews";
+import { describeStep, requireStepAccess, visibleCaseIds } from "@/lib/data/reviews";
 import { getReadiness } from "@/lib/data/review-queues";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
-import { CaseStateBadge } from "@/components/review/badges";
+import { CaseStateBadge } from "@/components/proof/case-state-badge";
 
 export const metadata: Metadata = { title: "Review a step" };
 
@@ -19,10 +18,8 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
   if (!Number.isInteger(proofId) || proofId <= 0 || !Number.isInteger(stepId) || stepId <= 0) notFound();
   const access = await (async () => {
     try {
-      const { user, role } = await requireProofRole(proofId);
-      const step = await loadStep(proofId, stepId);
-      await assertCanSeeStep(step, user.id);
-      return { user, role, step };
+      const { user, actor, step } = await requireStepAccess(proofId, stepId);
+      return { user, role: actor.role, step };
     } catch (e) {
       if (e instanceof AppError && (e.status === 403 || e.status === 404)) return null;
       throw e;

@@ -1,17 +1,17 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { assertCanManageReviewers } from "@/lib/data/invitations";
-import { setRequiredApprovals } from "@/lib/data/reviews";
+import { setRequiredApprovals, visibleCaseIds } from "@/lib/data/reviews";
 import { getReadiness } from "@/lib/data/review-queues";
 import { settingsSchema } from "@/lib/validations/review";
 
 type Context = { params: Promise<{ proofId: string }> };
 
-/** Review settings and the readiness roll-up. */
+/** Review settings and the readiness roll-up (a case-limited reviewer sees only their cases in it). */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  await requireProofRole(proofId);
-  const readiness = await getReadiness(proofId);
+  const { user } = await requireProofRole(proofId);
+  const readiness = await getReadiness(proofId, await visibleCaseIds(proofId, user.id));
   return Response.json({ requiredApprovals: readiness.requiredApprovals, readiness });
 });
 
