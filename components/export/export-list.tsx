@@ -5,7 +5,7 @@ import { ExportKindBadge } from "./export-kind-badge";
 const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 /** Past exports, newest first, each with its manifest digest and its files. */
-export function ExportList({ proofId, exports }: { proofId: number; exports: ExportSummary[] }) {
+export function ExportList({ proofId, exports, pdf = true }: { proofId: number; exports: ExportSummary[]; pdf?: boolean }) {
   if (exports.length === 0) return <p className="text-stone-600">No exports yet.</p>;
   const link = "text-lichen-700 underline hover:text-lichen-800";
   return (
@@ -27,7 +27,11 @@ export function ExportList({ proofId, exports }: { proofId: number; exports: Exp
             <p className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
               <a className={link} href={`${base}/bundle`} download>Bundle (.json)</a>
               <a className={link} href={`${base}/tex`} download>LaTeX (.tex)</a>
-              <a className={link} href={`${base}/pdf`}>PDF</a>
+              {pdf ? (
+                <a className={link} href={`${base}/pdf`}>PDF</a>
+              ) : (
+                <span className="text-stone-600" data-testid="pdf-unavailable">PDF: not on this server (pdflatex is not installed); compile the .tex or print the print view</span>
+              )}
               <Link className={link} href={`/proofs/${proofId}/print/${e.id}`}>Print view</Link>
             </p>
           </li>

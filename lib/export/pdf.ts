@@ -4,9 +4,10 @@
  * (openin_any/openout_any = p), and a time limit. Node-only (child_process), framework-free.
  */
 import { execFile, type ExecFileException } from "node:child_process";
-import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { access, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { constants } from "node:fs";
 import { tmpdir } from "node:os";
-import { join } from "node:path";
+import { delimiter, join } from "node:path";
 
 export class PdfUnavailableError extends Error {
   constructor() {
@@ -66,4 +67,17 @@ export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1 }
   } finally {
     await rm(dir, { recursive: true, force: true });
   }
+}
+
+/** Whether pdflatex is on this server's PATH, so that pages can say so before anyone clicks. */
+export async function pdflatexAvailable(): Promise<boolean> {
+  for (const dir of (process.env.PATH ?? "").split(delimiter).filter(Boolean)) {
+    try {
+      await access(join(dir, "pdflatex"), constants.X_OK);
+      return true;
+    } catch {
+      // not in this directory
+    }
+  }
+  return false;
 }

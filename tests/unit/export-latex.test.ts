@@ -4,7 +4,7 @@ import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
 import { escapeLine, sanitizeMath } from "@/lib/export/latex-escape";
 import { inlineToLatex, markdownToLatex } from "@/lib/export/markdown-latex";
-import { compileLatex } from "@/lib/export/pdf";
+import { compileLatex, pdflatexAvailable, PdfUnavailableError } from "@/lib/export/pdf";
 import { settledSnapshot } from "./export-fixture";
 
 const EVIL_TITLE = String.raw`Evil \input{/etc/passwd} \end{document} 100% & #1 _x_ ^ ~ {brace} $\write18{ls}$`;
@@ -98,4 +98,16 @@ describe("LaTeX document", () => {
     expect(log).not.toContain("(/etc/passwd"); // pdflatex logs every file it opens as "(path"
     expect(log).not.toMatch(/^! /m);
   }, 120_000);
+
+  it("says when pdflatex is missing instead of failing obscurely", async () => {
+    expect(await pdflatexAvailable()).toBe(true);
+    const path = process.env.PATH;
+    process.env.PATH = "/nonexistent";
+    try {
+      expect(await pdflatexAvailable()).toBe(false);
+      await expect(compileLatex("\\documentclass{article}")).rejects.toBeInstanceOf(PdfUnavailableError);
+    } finally {
+      process.env.PATH = path;
+    }
+  });
 });

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getCertification, listExports } from "@/lib/data/exports";
+import { pdflatexAvailable } from "@/lib/export/pdf";
 import { ExportActions } from "@/components/export/export-actions";
 import { ExportList } from "@/components/export/export-list";
 import { OfflineCheckHelp } from "@/components/export/offline-check-help";
@@ -14,7 +15,7 @@ export const metadata: Metadata = { title: "Export" };
 /** Certified or draft exports of a proof: make one, list past ones with their digests, download their files. */
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
   const { proofId, role } = await pageRole((await params).proofId);
-  const [proof, certification, exports] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId)]);
+  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";
   return (
@@ -42,7 +43,7 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
       <VerdictCaution />
       <section className="space-y-3">
         <h2 className="text-xl font-semibold">Past exports</h2>
-        <ExportList proofId={proofId} exports={exports} />
+        <ExportList proofId={proofId} exports={exports} pdf={pdf} />
       </section>
       <OfflineCheckHelp proofId={proofId} />
     </main>
