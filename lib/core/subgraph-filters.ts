@@ -33,6 +33,7 @@ export type AbsenceArgument =
   | { kind: "loop-count"; threshold: number; inPattern: number; inHost: number }
   | { kind: "component-fit"; components: number }
   | { kind: "spider-arms"; legs: number[] }
+  | { kind: "tree-dp" }
   | { kind: "cycle-in-forest" }
   | { kind: "odd-cycle-in-bipartite" }
   | { kind: "search"; nodesVisited: number };

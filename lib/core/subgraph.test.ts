@@ -4,7 +4,9 @@ import type { Graph } from "./graph";
 import { buildGraph } from "./graph-build";
 import { Budget } from "./verdict";
 import { parseGraph } from "./parse";
-import { affineA, affineD, affineE, complete, cycle, dynkinE, path, star, starlike } from "./constructors";
+import { affineA, affineD, affineE, complete, cycle, disjointUnion, dynkinE, path, star, starlike } from "./constructors";
+import { embedTreeInForest } from "./tree-embedding";
+import { sweep } from "./structure";
 import { checkEmbedding, excludeSubgraphs, findSubgraph, recheckExclusion, recheckSubgraph } from "./subgraph";
 
 const PETERSEN = parseGraph("IheA@GUAo"); // graph6 of the Petersen graph, from memory; parse.test.ts checks girth 5
@@ -177,5 +179,51 @@ describe("odd cycles and bipartite hosts", () => {
     expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "odd-cycle-in-bipartite" } });
     expect(recheckSubgraph(cycle(5), grid, v.certificate).status).toBe("verified");
     expect(findSubgraph(cycle(6), grid).status).toBe("verified");
+  });
+});
+
+describe("tree dynamic programme (Matula 1978) against brute force", () => {
+  const tree = (minN: number, maxN: number) => fc.integer({ min: minN, max: maxN }).chain((n) =>
+    fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) => buildGraph(n, parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })))));
+  const forest = fc.tuple(tree(1, 6), tree(1, 5)).map(([a, b]) => disjointUnion(a, b));
+
+  it("decides every small tree in every small forest, with a valid embedding", () => {
+    fc.assert(fc.property(tree(1, 6), forest, (h, g) => {
+      const budget = new Budget();
+      const phi = embedTreeInForest(h, g, sweep(g, budget), budget);
+      // Brute force over injections, checking each H-edge to an earlier vertex as soon as both ends are placed.
+      const brute = (() => {
+        const perm: number[] = [], used = new Set<number>();
+        const adjacent = (a: number, b: number) => g.edges.some((e) => (e.u === a && e.v === b) || (e.u === b && e.v === a));
+        const extend = (u: number): boolean => {
+          if (u === h.n) return true;
+          for (let x = 0; x < g.n; x++) {
+            if (used.has(x)) continue;
+            if (!h.edges.every((e) => (e.v !== u || e.u >= u ? true : adjacent(perm[e.u], x)))) continue;
+            perm[u] = x; used.add(x);
+            if (extend(u + 1)) return true;
+            used.delete(x);
+          }
+          return false;
+        };
+        return extend(0);
+      })();
+      expect(phi !== null).toBe(brute);
+      if (Array.isArray(phi)) expect(checkEmbedding(h, g, phi)).toBeNull();
+    }), { numRuns: 300 });
+  });
+
+  it("decides D̃ patterns the search cannot finish: D̃8 is absent from a star of forks", () => {
+    // Centre with 1000 legs a–b, a–c: every two branch vertices are at distance ≤ 2, D̃8 needs distance 4.
+    const edges: Array<{ u: number; v: number }> = [];
+    let n = 1;
+    for (let i = 0; i < 1000; i++) { const a = n++, b = n++, c = n++; edges.push({ u: 0, v: a }, { u: a, v: b }, { u: a, v: c }); }
+    const g = buildGraph(n, edges);
+    const v = findSubgraph(affineD(8), g);
+    expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "tree-dp" } });
+    expect(recheckSubgraph(affineD(8), g, v.certificate).status).toBe("verified");
+    const w = findSubgraph(affineD(6), g); // D̃6: branch vertices at distance 2, present (a – centre – a')
+    expect(w.status).toBe("verified");
+    expect(recheckSubgraph(affineD(6), g, w.certificate).status).toBe("verified");
   });
 });

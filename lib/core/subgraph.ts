@@ -8,8 +8,8 @@
  *
  * An embedding is the certificate of presence and `checkEmbedding` verifies it in O(|E(H)|)
  * (+ O(|V(H)|²) for induced). Absence is decided by the first argument that applies, and the verdict
- * names it: the counting tests and the exact spider-in-forest test of subgraph-filters.ts, and
- * otherwise an exhaustive backtracking search in the manner of VF2 (L. P. Cordella, P. Foggia,
+ * names it: the counting tests and the exact spider-in-forest test of subgraph-filters.ts, the exact
+ * tree-in-forest dynamic programme of tree-embedding.ts, and otherwise an exhaustive backtracking search in the manner of VF2 (L. P. Cordella, P. Foggia,
  * C. Sansone, M. Vento, "A (sub)graph isomorphism algorithm for matching large graphs", 2004):
  * H's vertices in breadth-first order, each one's candidates drawn from the G-neighbours of its
  * already-mapped BFS parent, with degree and loop filters. The search size (nodes visited) is reported.
@@ -18,10 +18,14 @@
  * (Perron–Frobenius monotonicity; Brouwer & Haemers, Spectra of Graphs, §3.1 / common practice).
  */
 
-import { adjacency, type Graph } from "./graph";
-import { Budget, withinBudget, type Verdict } from "./verdict";
+import type { Graph } from "./graph";
+import { Budget, BudgetExceeded, withinBudget, type Verdict } from "./verdict";
 import { expectIntArray, expectRecord, multiplicity, recheck, reject, CertificateRejected } from "./certificate-check";
 import { sweep } from "./structure";
+import { embedTreeInForest } from "./tree-embedding";
+import { searchEmbedding } from "./subgraph-search";
+
+export { searchEmbedding } from "./subgraph-search";
 import {
   asSpider, componentMembers, countingArgument, embedSpiderInForest, isBipartiteGraph, isForestGraph, type AbsenceArgument,
 } from "./subgraph-filters";
@@ -67,88 +71,8 @@ export function checkEmbedding(h: Graph, g: Graph, phi: readonly number[], induc
   return null;
 }
 
-/** Exhaustive backtracking search (VF2-like); returns an embedding or null, and the nodes visited. */
-export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Budget, roots?: Int32Array): { embedding: number[] | null; nodesVisited: number } {
-  const ha = adjacency(h), ga = adjacency(g);
-  const hDeg = (u: number) => ha.start[u + 1] - ha.start[u];
-  // Breadth-first order of H, component by component, each started at a vertex of largest degree.
-  const order: number[] = [], anchor = new Int32Array(h.n).fill(-1), position = new Int32Array(h.n).fill(-1);
-  const byDegree = Array.from({ length: h.n }, (_, i) => i).sort((a, b) => hDeg(b) - hDeg(a) || a - b);
-  for (const s of byDegree) {
-    if (position[s] >= 0) continue;
-    position[s] = order.length; order.push(s);
-    for (let head = position[s]; head < order.length; head++) {
-      const x = order[head];
-      for (let p = ha.start[x]; p < ha.start[x + 1]; p++) {
-        const y = ha.nbr[p];
-        if (position[y] < 0) { position[y] = order.length; order.push(y); anchor[y] = x; }
-      }
-    }
-  }
-  // Constraints toward earlier vertices: [w, m] for each H-neighbour w mapped before u.
-  const constraints: Array<Array<[number, number]>> = order.map((u, i) => {
-    const list: Array<[number, number]> = [];
-    for (let p = ha.start[u]; p < ha.start[u + 1]; p++) if (position[ha.nbr[p]] < i) list.push([ha.nbr[p], ha.wt[p]]);
-    return list;
-  });
-  const phi = new Array<number>(h.n).fill(-1);
-  const used = new Uint8Array(g.n);
-  // Induced: besides equal multiplicities to the earlier neighbours, x may have no other mapped
-  // G-neighbour; counting x's mapped neighbours costs deg_G(x) instead of |V(H)| multiplicity look-ups.
-  const mappedNeighbours = (x: number): number => {
-    budget.tick(ga.start[x + 1] - ga.start[x]);
-    let count = 0;
-    for (let p = ga.start[x]; p < ga.start[x + 1]; p++) count += used[ga.nbr[p]];
-    return count;
-  };
-  const cursor = new Int32Array(h.n + 1);
-  let nodesVisited = 0;
-  const feasible = (u: number, x: number): boolean => {
-    if (used[x] || ga.start[x + 1] - ga.start[x] < hDeg(u)) return false;
-    if (induced ? ga.diag[x] !== ha.diag[u] : ga.diag[x] < ha.diag[u]) return false;
-    for (const [w, m] of constraints[position[u]]) {
-      const mg = multiplicity(g, phi[w], x);
-      if (induced ? mg !== m : mg < m) return false;
-    }
-    return !induced || mappedNeighbours(x) === constraints[position[u]].length;
-  };
-  let level = 0;
-  while (level >= 0) {
-    if (level === h.n) return { embedding: phi, nodesVisited };
-    const u = order[level];
-    if (phi[u] >= 0) { used[phi[u]] = 0; phi[u] = -1; }
-    const a = anchor[u];
-    let found = -1;
-    if (a < 0) {
-      const pool = level === 0 && roots ? roots : null;
-      const limit = pool ? pool.length : g.n;
-      while (cursor[level] < limit && found < 0) {
-        budget.tick();
-        const x = pool ? pool[cursor[level]] : cursor[level];
-        cursor[level]++;
-        if (feasible(u, x)) found = x;
-      }
-    } else {
-      const base = phi[a];
-      const begin = ga.start[base], end = ga.start[base + 1];
-      while (begin + cursor[level] < end && found < 0) {
-        budget.tick();
-        const x = ga.nbr[begin + cursor[level]];
-        cursor[level]++;
-        if (feasible(u, x)) found = x;
-      }
-    }
-    if (found >= 0) {
-      phi[u] = found; used[found] = 1; nodesVisited++;
-      level++;
-      if (level < h.n) cursor[level] = 0;
-    } else {
-      cursor[level] = 0;
-      level--;
-    }
-  }
-  return { embedding: null, nodesVisited };
-}
+/** Step limit of the backtracking probe tried before the tree table. */
+const TREE_PROBE_STEPS = 50_000;
 
 type Decision = { embedding: number[]; method: string; nodesVisited?: number } | { argument: AbsenceArgument };
 
@@ -172,6 +96,23 @@ export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: 
       if (phi) return { embedding: phi, method: "spider arm test in a forest" };
       return { argument: { kind: "spider-arms", legs: spider.legs.map((l) => l.length).sort((a, b) => a - b) } };
     }
+    if (hs.componentCount === 1) {
+      // A short backtracking probe first: presence is usually found in a few steps, while the table
+      // costs a pass over G per state. The probe's step limit is a constant, so a re-check takes the same path.
+      const probe = new Budget(TREE_PROBE_STEPS);
+      try {
+        const found = searchEmbedding(h, g, induced, probe, roots);
+        budget.tick(probe.used);
+        if (found.embedding) return { embedding: found.embedding, method: "backtracking search", nodesVisited: found.nodesVisited };
+        return { argument: { kind: "search", nodesVisited: found.nodesVisited } };
+      } catch (e) {
+        if (!(e instanceof BudgetExceeded)) throw e;
+        budget.tick(probe.used);
+      }
+      const phi = embedTreeInForest(h, g, gs, budget);
+      if (Array.isArray(phi)) return { embedding: phi, method: "subtree dynamic programming in a forest" };
+      if (phi === null) return { argument: { kind: "tree-dp" } };
+    }
   }
   if (isBipartiteGraph(g, gs) && !isBipartiteGraph(h, hs)) return { argument: { kind: "odd-cycle-in-bipartite" } };
   const { embedding, nodesVisited } = searchEmbedding(h, g, induced, budget, roots);
@@ -187,6 +128,7 @@ export function describeAbsence(arg: AbsenceArgument, pattern = "H", host = "G")
     case "degree-count": return `${pattern} has ${vertices(arg.inPattern)} of degree ≥ ${arg.threshold} but ${host} has only ${arg.inHost}; an embedding maps them to distinct vertices of at least that degree`;
     case "loop-count": return `${pattern} has ${vertices(arg.inPattern)} with loop weight ≥ ${arg.threshold} but ${host} has only ${arg.inHost}`;
     case "component-fit": return `${pattern} is connected, so it must lie in one component of ${host}, and each of the ${arg.components} components fails the vertex or degree count`;
+    case "tree-dp": return `${host} is a forest and no vertex of ${host} can be the top of an image of the tree ${pattern} (subtree matching over all roots, Matula 1978)`;
     case "cycle-in-forest": return `${pattern} contains a cycle (loops and multiple edges count) and ${host} is a forest`;
     case "odd-cycle-in-bipartite": return `${pattern} contains an odd cycle (a loop counts) and ${host} is bipartite`;
     case "spider-arms": return `${host} is a forest and ${pattern} = T(${arg.legs.join(",")}) needs a vertex with ${arg.legs.length} disjoint arms of lengths ≥ ${arg.legs.slice().reverse().join(", ")}; no vertex of ${host} has them`;
