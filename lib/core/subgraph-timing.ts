@@ -4,7 +4,7 @@
  * Prints the median of 5 runs per case; not part of the test suite.
  */
 import { makeGraph } from "./graph";
-import { path, starlike, star, affineD } from "./constructors";
+import { path, starlike, star, affineD, twoBranch } from "./constructors";
 import { findSubgraph, searchEmbedding, checkEmbedding } from "./subgraph";
 import { Budget } from "./verdict";
 
@@ -31,6 +31,8 @@ const e8 = starlike([1, 2, 5]), k14 = star(4);
 time("Ẽ8 in random tree 1e5", () => findSubgraph(e8, tree));
 time("K_{1,4} absent from path 1e5", () => findSubgraph(k14, p));
 time("Ẽ8 absent from D̃ tree 1e5", () => findSubgraph(e8, dt));
+time("D̃40 in random tree 1e5 (tree table)", () => findSubgraph(affineD(40), tree));
+time("two_branch(3,3; 30; 3,3) in random tree 1e5", () => findSubgraph(twoBranch(3, 3, 30, 3, 3), tree));
 // Pure backtracking, without the forest shortcut, for comparison.
 time("Ẽ8 in random tree 1e5 (backtracking only)", () => { const b = new Budget(); const r = searchEmbedding(e8, tree, false, b); return { status: r.embedding && checkEmbedding(e8, tree, r.embedding) === null ? "verified" : "refuted", method: "searchEmbedding", reason: `${r.nodesVisited} nodes, ${b.used} steps` }; });
 time("Ẽ8 absent from D̃ tree 1e5 (backtracking only)", () => { const b = new Budget(); const r = searchEmbedding(e8, dt, false, b); return { status: r.embedding ? "verified" : "refuted", method: "searchEmbedding", reason: `${r.nodesVisited} nodes, ${b.used} steps` }; });
