@@ -181,6 +181,24 @@ describe("export files", () => {
     expect((await file(texRoute, proofId, mine)).status).toBe(403);
   });
 
+  it("403 for a reviewer invited to chosen cases only: an export shows every case", async () => {
+    const { ReviewerScope, Case } = models();
+    const reviewer = await userIdOf("reviewer");
+    const only = await Case.findOne({ where: { proofId } });
+    const scope = await ReviewerScope.create({ proofId, userId: reviewer, caseId: only!.id });
+    try {
+      await actAs("reviewer");
+      const mine = (await models().ProofExport.findOne({ where: { proofId } }))!.id;
+      const listed = await list(proofId);
+      expect(listed.status).toBe(403);
+      expect((await listed.json()).error.message).toMatch(/share the whole proof/);
+      expect((await file(bundleRoute, proofId, mine)).status).toBe(403);
+      expect((await file(texRoute, proofId, mine)).status).toBe(403);
+    } finally {
+      await scope.destroy();
+    }
+  });
+
   it("answers 503 with what to do when pdflatex is missing", async () => {
     await actAs("author");
     const mine = (await (await list(proofId)).json()).exports[0].id;

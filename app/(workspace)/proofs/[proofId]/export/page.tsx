@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
-import { getCertification, listExports } from "@/lib/data/exports";
+import { getCertification, listExports, WHOLE_PROOF_ONLY } from "@/lib/data/exports";
+import { visibleCaseIds } from "@/lib/data/reviews";
 import { pdflatexAvailable } from "@/lib/export/pdf";
 import { ExportActions } from "@/components/export/export-actions";
 import { ExportList } from "@/components/export/export-list";
@@ -14,7 +15,8 @@ export const metadata: Metadata = { title: "Export" };
 
 /** Certified or draft exports of a proof: make one, list past ones with their digests, download their files. */
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role } = await pageRole((await params).proofId);
+  const { proofId, role, user } = await pageRole((await params).proofId);
+  if ((await visibleCaseIds(proofId, user.id)) !== null) return <main className="max-w-prose" role="alert">{WHOLE_PROOF_ONLY}</main>;
   const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";

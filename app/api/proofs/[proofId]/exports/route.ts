@@ -1,14 +1,15 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { createExport, getCertification, listExports } from "@/lib/data/exports";
+import { assertSeesWholeProof, createExport, getCertification, listExports } from "@/lib/data/exports";
 import { createExportSchema } from "@/lib/validations/export";
 
 type Context = { params: Promise<{ proofId: string }> };
 
-/** The proof's exports, newest first, and whether it can be certified now (with the reasons if not); any member. */
+/** The proof's exports, newest first, and whether it can be certified now (with the reasons if not); members who see the whole proof. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  await requireProofRole(proofId);
+  const { user } = await requireProofRole(proofId);
+  await assertSeesWholeProof(proofId, user.id);
   const [exports, certification] = await Promise.all([listExports(proofId), getCertification(proofId)]);
   return Response.json({ exports, certification });
 });

@@ -1,7 +1,10 @@
-/** Shared by the handlers of one export: parse the ids (404), require membership (401/403), load the export (404). */
+/**
+ * Shared by the handlers of one export: parse the ids (404), require membership (401/403), load the
+ * export (404), and refuse a reviewer limited to chosen cases (403): an export shows every case.
+ */
 import { idParam } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { getExport, type ExportFull } from "@/lib/data/exports";
+import { assertSeesWholeProof, getExport, type ExportFull } from "@/lib/data/exports";
 
 export type ExportContext = { params: Promise<{ proofId: string; exportId: string }> };
 
@@ -9,6 +12,8 @@ export async function memberExport({ params }: ExportContext): Promise<ExportFul
   const p = await params;
   const proofId = idParam(p.proofId, "This proof");
   const exportId = idParam(p.exportId, "This export");
-  await requireProofRole(proofId);
-  return getExport(proofId, exportId);
+  const { user } = await requireProofRole(proofId);
+  const found = await getExport(proofId, exportId);
+  await assertSeesWholeProof(proofId, user.id);
+  return found;
 }
