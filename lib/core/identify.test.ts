@@ -69,7 +69,7 @@ describe("family claims and non-identification", () => {
   });
 
   const forbidden: Array<[string, string, number, RegExp]> = [
-    // T(a,b,c) with 1/(a+1)+1/(b+1)+1/(c+1) ≤ 1 contains Ẽ6, Ẽ7 or Ẽ8 (J. H. Smith 1970; Brouwer & Haemers §3.1.1).
+    // T(a,b,c) with 1/(a+1)+1/(b+1)+1/(c+1) ≤ 1 contains Ẽ6, Ẽ7 or Ẽ8 (J. H. Smith 1970; Brouwer & Haemers §3.1.1, section number from memory).
     ["starlike(1,2,6)", "E~", 8, /1\/2 \+ 1\/3 \+ 1\/7 ≤ 1/],
     ["starlike(2,2,3)", "E~", 6, /contains Ẽ6/],
     ["starlike(1,3,4)", "E~", 7, /contains Ẽ7/],
@@ -89,7 +89,7 @@ describe("family claims and non-identification", () => {
     });
 
   it("the forbidden-subgraph argument really means ρ > 2 (float cross-check far from 2)", () => {
-    // ρ(K_{1,5}) = √5 (Brouwer & Haemers §1.4.1: ρ(K_{1,n}) = √n); T(1,2,6) lies just above 2 (Smith 1970).
+    // ρ(K_{1,5}) = √5 (ρ(K_{1,n}) = √n: Brouwer & Haemers §1.4, from memory); T(1,2,6) lies just above 2 (Smith 1970).
     expect(floatRadius(star(5))).toBeCloseTo(Math.sqrt(5), 9);
     expect(floatRadius(starlike([1, 2, 6]))).toBeGreaterThan(2.0001);
   });

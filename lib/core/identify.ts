@@ -29,8 +29,8 @@ export type IdentificationCertificate = IsomorphismCertificate | ForbiddenSubgra
 
 interface Found { family: SmithFamily; parameter: number; phi: number[]; why: string }
 
-const SOURCE = "J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3";
-const LOOP_SOURCE = "Goodman, de la Harpe & Jones 1989, §1.4 (from memory), checked by a positive eigenvector";
+const SOURCE = "J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, §3.1";
+const LOOP_SOURCE = "Goodman, de la Harpe & Jones, Coxeter Graphs and Towers of Algebras, 1989; ρ checked by a positive eigenvector";
 
 /** Walks from `start` through vertices of degree 2 until a vertex of degree ≠ 2 (or `stop`); returns the walk. */
 function walk(g: Graph, start: number, budget: Budget): number[] {

@@ -50,7 +50,7 @@ describe("graph6", () => {
 
   it("reads the Petersen graph and cross-checks it is 3-regular with 15 edges and girth 5", () => {
     // "IheA@GUAo" from memory; cross-checked structurally (Petersen: 10 vertices, 3-regular, girth 5,
-    // Brouwer & Haemers §1.4.2 / common practice).
+    // common practice; from memory).
     const g = parseGraph("IheA@GUAo");
     expect(g.n).toBe(10);
     expect(g.edges.length).toBe(15);

@@ -2,7 +2,7 @@
  * The families of connected graphs with spectral radius ρ ≤ 2 that identify.ts recognises.
  *
  * Without loops this is Smith's classification (J. H. Smith, "Some properties of the spectrum of a
- * graph", 1970; Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): ρ < 2 exactly for A_n, D_n, E6,
+ * graph", 1970; Brouwer & Haemers, Spectra of Graphs, §3.1.1, section number from memory): ρ < 2 exactly for A_n, D_n, E6,
  * E7, E8, and ρ = 2 exactly for Ã_n, D̃_n, Ẽ6, Ẽ7, Ẽ8. With loops of weight 1 (A[v][v] = 1, the
  * convention of constructors.ts) the norm ≤ 2 classification adds, from memory of F. M. Goodman,
  * P. de la Harpe, V. F. R. Jones, Coxeter Graphs and Towers of Algebras, 1989, §1.4: the path with a

@@ -121,7 +121,7 @@ describe("degrees, branch vertices and legs", () => {
   });
 
   it("counts vertices of degree ≥ 3", () => {
-    const g = affineD(7); // D̃_7 has two vertices of degree 3 (Brouwer & Haemers §3.1.1 figure of D̃_n)
+    const g = affineD(7); // D̃_7 has two vertices of degree 3 (Brouwer & Haemers §3.1.1, section number from memory)
     const v = branchVertices(g, 2);
     expect(v.status).toBe("verified");
     expect(v.certificate?.branchVertices).toEqual([1, 4]);
@@ -131,7 +131,7 @@ describe("degrees, branch vertices and legs", () => {
   });
 
   it("reads the legs of Ẽ8 = T(1,2,5) and re-checks them", () => {
-    // Ẽ8 is the star-like tree T(1,2,5) (Bourbaki Ch. 6 plates; Brouwer & Haemers §3.1.1).
+    // Ẽ8 is the star-like tree T(1,2,5) (Bourbaki Ch. 6 plates; Brouwer & Haemers §3.1.1, section number from memory).
     const g = starlike([1, 2, 5]);
     const v = starlikeLegs(g, [5, 2, 1]);
     expect(v.status).toBe("verified");
