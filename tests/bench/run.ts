@@ -18,6 +18,7 @@ import { spawnSync } from "node:child_process";
 import { availableParallelism, cpus, totalmem } from "node:os";
 import { fileURLToPath } from "node:url";
 import { coreSection } from "./core-tasks";
+import { apiLoadSection } from "./api-load";
 
 /** One timed job: `prepare` builds the input (untimed), `run` does the verification (timed). */
 export interface BenchTask {
@@ -48,7 +49,7 @@ export interface BenchOptions {
 }
 
 /** The sections of the benchmark, in print order. Add new sections here. */
-export const SECTIONS: BenchSection[] = [coreSection];
+export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection];
 
 interface ChildReport {
   readonly timesMs: number[];

@@ -39,7 +39,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
         </p>
       )}
       {step.latest && <MathMarkdown source={step.latest.body} className="mt-3 max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
-      {isAuthor && step.latest && <StepEditor key={step.latest.id} proofId={proofId} stepId={step.id} latest={step.latest} />}
+      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} />}
       <div className="mt-8">
         <VerdictCaution />
       </div>
