@@ -30,7 +30,7 @@ export type IdentificationCertificate = IsomorphismCertificate | ForbiddenSubgra
 interface Found { family: SmithFamily; parameter: number; phi: number[]; why: string }
 
 const SOURCE = "J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, §3.1";
-const LOOP_SOURCE = "Goodman, de la Harpe & Jones, Coxeter Graphs and Towers of Algebras, 1989; ρ checked by a positive eigenvector";
+const LOOP_SOURCE = "Goodman, de la Harpe & Jones, Coxeter Graphs and Towers of Algebras, 1989";
 
 /** Walks from `start` through vertices of degree 2 until a vertex of degree ≠ 2 (or `stop`); returns the walk. */
 function walk(g: Graph, start: number, budget: Budget): number[] {
