@@ -126,7 +126,8 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   const v = fresh.verdict;
   const problems: string[] = [];
   if (changed) problems.push("CHANGED since export: its content no longer matches its SHA-256");
-  if (recorded !== v.status) problems.push(`the bundle records "${recorded}" but the re-check gives "${v.status}"`);
+  if (recorded === "pending") problems.push(`the claim had not been checked when it was exported (pending); the re-check gives "${v.status}"`);
+  else if (recorded !== v.status) problems.push(`the bundle records "${recorded}" but the re-check gives "${v.status}"`);
   if (data.digest && data.digest !== claimDigest(claim)) problems.push(`the recorded claim digest ${short(data.digest)} is not the claim's digest ${short(fresh.digest)}`);
   if (recorded === "verified" && !hasCertificate) problems.push("a verified claim without its certificate");
   const certificate = fresh.certificateCheck && {

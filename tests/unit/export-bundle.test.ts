@@ -85,6 +85,14 @@ describe("bundle", () => {
     expect(r.lines.find((l) => l.label === "manifest")?.text).toMatch(/manifest digest does not match/);
   });
 
+  it("a claim exported before it was checked (pending) fails the re-check and says so", () => {
+    const s = settledSnapshot();
+    s.cases[0].steps[0].claims[0] = { ...s.cases[0].steps[0].claims[0], status: "pending", certificate: null, statement: null, method: null, reason: null };
+    const r = checkBundle(copy(buildBundle(s, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" })), "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/had not been checked when it was exported \(pending\)/);
+  });
+
   it("a document that is not a bundle is malformed (exit 2)", () => {
     expect(checkBundle({ format: "cairn-bundle/1" }, "x").exitCode).toBe(2);
   });
