@@ -8,11 +8,10 @@
  *
  * An embedding is the certificate of presence and `checkEmbedding` verifies it in O(|E(H)|)
  * (+ O(|V(H)|²) for induced). Absence is decided by the first argument that applies, and the verdict
- * names it: the counting tests and the exact spider-in-forest test of subgraph-filters.ts, the exact
- * tree-in-forest dynamic programme of tree-embedding.ts, and otherwise an exhaustive backtracking search in the manner of VF2 (L. P. Cordella, P. Foggia,
- * C. Sansone, M. Vento, "A (sub)graph isomorphism algorithm for matching large graphs", 2004):
- * H's vertices in breadth-first order, each one's candidates drawn from the G-neighbours of its
- * already-mapped BFS parent, with degree and loop filters. The search size (nodes visited) is reported.
+ * names it, in this order: the counting tests, component fit and cycle tests of subgraph-filters.ts;
+ * for a tree H in a forest G the exact spider arm test (subgraph-filters.ts) or, after a short search
+ * probe, the exact subtree table (tree-embedding.ts); otherwise the exhaustive VF2-like backtracking
+ * search of subgraph-search.ts, whose size (nodes visited) is reported.
  *
  * Spectral link: for connected G, H ⊆ G gives ρ(H) ≤ ρ(G), strictly when H is a proper subgraph
  * (Perron–Frobenius monotonicity; Brouwer & Haemers, Spectra of Graphs, §3.1 / common practice).
@@ -24,12 +23,11 @@ import { expectIntArray, expectRecord, multiplicity, recheck, reject, Certificat
 import { sweep } from "./structure";
 import { embedTreeInForest } from "./tree-embedding";
 import { searchEmbedding } from "./subgraph-search";
-
-export { searchEmbedding } from "./subgraph-search";
 import {
   asSpider, componentMembers, countingArgument, embedSpiderInForest, isBipartiteGraph, isForestGraph, type AbsenceArgument,
 } from "./subgraph-filters";
 
+export { searchEmbedding } from "./subgraph-search";
 export type { AbsenceArgument } from "./subgraph-filters";
 
 export interface EmbeddingCertificate { kind: "embedding"; embedding: number[] }
