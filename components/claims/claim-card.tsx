@@ -72,11 +72,15 @@ export function ClaimCard({ claim, proofId, canRecheck, onChanged }: { claim: Cl
         </p>
       )}
       {claim.picture && (
-        <div className="mt-3 grid gap-3">
+        <div className="mt-3 grid gap-3 md:grid-cols-2">
           {claim.picture.pictures.map((p, i) => (
             <GraphPicture key={i} picture={p} />
           ))}
-          {first?.spectrum && <SpectrumPlot spectrum={first.spectrum} bound={claim.picture.bound} />}
+          {first?.spectrum && (
+            <div className="md:col-span-2">
+              <SpectrumPlot spectrum={first.spectrum} bound={claim.picture.bound} />
+            </div>
+          )}
           {claim.picture.note && <p className="text-sm text-stone-500">{claim.picture.note}</p>}
         </div>
       )}

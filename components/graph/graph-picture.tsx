@@ -29,7 +29,7 @@ export function GraphPicture({ picture }: { picture: Picture }) {
           </label>
         )}
       </figcaption>
-      <svg viewBox="0 0 1000 700" className="h-auto w-full" role="img" aria-label={`${picture.title}: a drawing of the graph`}>
+      <svg viewBox="0 0 1000 700" className="mx-auto h-auto max-h-80 w-full" role="img" aria-label={`${picture.title}: a drawing of the graph`}>
         {picture.edges.map(([u, v, m], i) => {
           const on = litEdge.has(`${Math.min(u, v)}-${Math.max(u, v)}`);
           if (u === v)

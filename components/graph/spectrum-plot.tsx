@@ -42,7 +42,14 @@ export function SpectrumPlot({ spectrum, bound }: { spectrum: number[]; bound: {
         {bound && (
           <g>
             <line x1={at(bound.approx)} y1={10} x2={at(bound.approx)} y2={90} stroke="#8a6a12" strokeWidth={2} strokeDasharray="6 4" />
-            <text x={at(bound.approx) + 6} y={22} fontSize={14} className="font-mono" fill="#8a6a12">
+            <text
+              x={at(bound.approx) + (at(bound.approx) > W / 2 ? -6 : 6)}
+              y={22}
+              fontSize={14}
+              textAnchor={at(bound.approx) > W / 2 ? "end" : "start"}
+              className="font-mono"
+              fill="#8a6a12"
+            >
               bound {bound.text}
             </text>
           </g>

@@ -103,6 +103,31 @@ describe("POST .../steps/[stepId]/claims", () => {
   });
 });
 
+describe("every kind the core offers", () => {
+  it("attaches one claim of each kind and gets a verdict for each", async () => {
+    await actAs("author");
+    const e8 = named("E(8)");
+    const all = [
+      starBound,
+      // Ẽ8 = T(1,2,5); its null vector (the marks 1..6, 4, 2, 3) certifies ρ = 2.
+      claim({ kind: "vector-certificate", graph: named("E~(8)"), vector: ["1", "2", "3", "4", "5", "6", "4", "2", "3"], relation: "=", bound: "2" }),
+      starInTree,
+      claim({ kind: "exclusion", host: named("path(6)"), patterns: [named("star(3)"), named("cycle(3)")], induced: false }),
+      claim({ kind: "identification", graph: e8, family: "E8" }),
+      // χ(P3) = x³ − 2x.
+      claim({ kind: "characteristic-polynomial", graph: named("path(3)"), coefficients: ["1", "0", "-2", "0"] }),
+      // E8's exponents with Coxeter number 30.
+      claim({ kind: "eigenvalues", graph: e8, h: 30, multiset: [1, 7, 11, 13, 17, 19, 23, 29] }),
+      claim({ kind: "structure", graph: e8, predicate: "leg-lengths", parameter: [1, 2, 4] }),
+    ];
+    const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: all }), params({ proofId, stepId }));
+    expect(res.status).toBe(200);
+    const claims = (await res.json()).claims as Array<{ kind: string; status: string }>;
+    expect(new Set(claims.map((c) => c.kind)).size).toBe(8);
+    expect(claims.map((c) => `${c.kind}: ${c.status}`)).toEqual(all.map((c) => `${(c as { kind: string }).kind}: verified`));
+  });
+});
+
 describe("claims list, one claim and re-check", () => {
   it("lists every claim of the proof with its step number; re-check runs again (202) for authors, 403 for reviewers", async () => {
     await actAs("reviewer");
@@ -119,10 +144,18 @@ describe("claims list, one claim and re-check", () => {
     await verificationSettled(rows[0].id);
     expect((await getClaim(rows[0].id)).status).toBe("verified");
     expect((await claimRoute.GET(new Request("http://localhost/x"), params({ proofId, claimId: "987654" }))).status).toBe(404);
+    expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: "987654" }))).status).toBe(404);
+    const one = { proofId, claimId: String(rows[0].id) };
     await actAs("outsider");
     expect((await proofClaimsRoute.GET(new Request("http://localhost/x"), params({ proofId }))).status).toBe(403);
+    expect((await claimRoute.GET(new Request("http://localhost/x"), params(one))).status).toBe(403);
+    expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params(one))).status).toBe(403);
+    expect((await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }))).status).toBe(403);
     await actAs(null);
     expect((await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }))).status).toBe(401);
+    expect((await proofClaimsRoute.GET(new Request("http://localhost/x"), params({ proofId }))).status).toBe(401);
+    expect((await claimRoute.GET(new Request("http://localhost/x"), params(one))).status).toBe(401);
+    expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params(one))).status).toBe(401);
   });
 });
 
