@@ -18,30 +18,33 @@ export class CanonicalJsonError extends Error {
   }
 }
 
-function write(value: unknown, path: string, out: string[], seen: Set<object>): void {
+/** Writes `value` into `out`; `path` holds the keys/indices down to it, joined only for an error message. */
+function write(value: unknown, path: Array<string | number>, out: string[], seen: Set<object>): void {
   if (value === null) { out.push("null"); return; }
   switch (typeof value) {
     case "boolean": out.push(value ? "true" : "false"); return;
     case "string": out.push(JSON.stringify(value)); return;
     case "bigint": out.push(JSON.stringify(value.toString())); return;
     case "number":
-      if (!Number.isSafeInteger(value)) throw new CanonicalJsonError(`canonical JSON holds safe integers only (write rationals as strings "p/q" and big integers as BigInt), got ${value}`, path);
+      if (!Number.isSafeInteger(value)) throw new CanonicalJsonError(`canonical JSON holds safe integers only (write rationals as strings "p/q" and big integers as BigInt), got ${value}`, pathText(path));
       out.push(Object.is(value, -0) ? "0" : String(value));
       return;
     case "object": {
-      if (seen.has(value as object)) throw new CanonicalJsonError("a value refers to itself", path);
+      if (isIntegerArray(value)) { out.push(`[${(value as ArrayLike<number>).length === 0 ? "" : Array.prototype.join.call(value, ",")}]`); return; }
+      if (seen.has(value as object)) throw new CanonicalJsonError("a value refers to itself", pathText(path));
       seen.add(value as object);
-      if (Array.isArray(value)) {
+      if (Array.isArray(value) || ArrayBuffer.isView(value)) {
+        const items = value as ArrayLike<unknown>;
         out.push("[");
-        value.forEach((item, i) => {
+        for (let i = 0; i < items.length; i++) {
           if (i > 0) out.push(",");
           // JSON.stringify turns undefined array items into null; do the same, explicitly.
-          if (item === undefined) out.push("null");
-          else write(item, `${path}[${i}]`, out, seen);
-        });
+          path.push(i);
+          if (items[i] === undefined) out.push("null");
+          else write(items[i], path, out, seen);
+          path.pop();
+        }
         out.push("]");
-      } else if (ArrayBuffer.isView(value)) {
-        write(Array.from(value as unknown as ArrayLike<number>), path, out, seen);
       } else {
         const record = value as Record<string, unknown>;
         const keys = Object.keys(record).filter((k) => record[k] !== undefined).sort();
@@ -49,7 +52,9 @@ function write(value: unknown, path: string, out: string[], seen: Set<object>): 
         keys.forEach((k, i) => {
           if (i > 0) out.push(",");
           out.push(JSON.stringify(k), ":");
-          write(record[k], path ? `${path}.${k}` : k, out, seen);
+          path.push(k);
+          write(record[k], path, out, seen);
+          path.pop();
         });
         out.push("}");
       }
@@ -57,14 +62,26 @@ function write(value: unknown, path: string, out: string[], seen: Set<object>): 
       return;
     }
     default:
-      throw new CanonicalJsonError(`canonical JSON cannot hold a ${typeof value}`, path);
+      throw new CanonicalJsonError(`canonical JSON cannot hold a ${typeof value}`, pathText(path));
   }
+}
+
+/** Fast path: an array of safe integers is written as its join (String(-0) is "0", as wanted). */
+function isIntegerArray(value: unknown): boolean {
+  if (!Array.isArray(value) && !(value instanceof Int32Array) && !(value instanceof Uint32Array) && !(value instanceof Uint8Array)) return false;
+  const items = value as ArrayLike<unknown>;
+  for (let i = 0; i < items.length; i++) if (typeof items[i] !== "number" || !Number.isSafeInteger(items[i])) return false;
+  return true;
+}
+
+function pathText(path: Array<string | number>): string {
+  return path.map((p, i) => (typeof p === "number" ? `[${p}]` : i === 0 ? p : `.${p}`)).join("");
 }
 
 /** Deterministic JSON text: sorted keys, no whitespace, safe integers only, BigInt as decimal strings. */
 export function canonicalJson(value: unknown): string {
   const out: string[] = [];
-  write(value, "", out, new Set());
+  write(value, [], out, new Set());
   return out.join("");
 }
 

@@ -118,3 +118,13 @@ describe("canonical JSON and digests", () => {
     expect(valueDigest({ b: 1, a: 2 })).toBe(sha256Hex('{"a":2,"b":1}'));
   });
 });
+
+describe("canonical JSON errors", () => {
+  it("name the path of the offending value", () => {
+    expect(() => canonicalJson({ a: [1, { b: 0.25 }] })).toThrow("at a[1].b");
+    const loop: Record<string, unknown> = {};
+    loop.self = loop;
+    expect(() => canonicalJson(loop)).toThrow(/refers to itself at self/);
+    expect(canonicalJson(new Int32Array([3, 1]))).toBe("[3,1]");
+  });
+});
