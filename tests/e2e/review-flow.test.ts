@@ -8,6 +8,7 @@ import { readFileSync, existsSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
+import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -44,7 +45,7 @@ describe("review workflow in the browser", () => {
   it("invite → mail → join → dispute → notify → revise → answer → close → approve → case settled", async () => {
     // The editor opens the demo proof's members page and invites a new reviewer to case 3.2 only.
     const editor = await personPage("editor");
-    await editor.getByTestId("proof-list").getByRole("link").first().click();
+    await editor.getByTestId("proof-list").getByRole("link", { name: demoProof.title }).click();
     await editor.waitForURL(/\/proofs\/\d+$/);
     const proofId = Number(new URL(editor.url()).pathname.split("/")[2]);
     await editor.goto(`${baseUrl}/proofs/${proofId}/members`);
