@@ -88,4 +88,40 @@ describe("proof workspace in the browser", () => {
     expect(await table.getByRole("link", { name: "1.1" }).count()).toBe(1);
     await context.close();
   });
+
+  it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
+    const context = await browser.newContext();
+    const first = await context.newPage();
+    await signInAs(first, baseUrl, "author");
+    await first.waitForURL(`${baseUrl}/proofs`);
+    const post = async (path: string, data: unknown) => (await first.request.post(`${baseUrl}${path}`, { data })).json();
+    const { proof } = await post("/api/proofs", { title: "Two tabs", statement: "$\\rho < 2$" });
+    const { case: c } = await post(`/api/proofs/${proof.id}/cases`, { title: "Only case", condition: "" });
+    const { step } = await post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body: "First draft." });
+    const second = await context.newPage();
+    const stepUrl = `${baseUrl}/proofs/${proof.id}/steps/${step.id}`;
+    await first.goto(stepUrl);
+    await second.goto(stepUrl);
+    const label = "step text (Markdown with $…$ math)";
+    await second.getByLabel(label).fill("Second tab: $\\lambda_1 = 2$.");
+    await second.getByRole("button", { name: "Save as new revision" }).click();
+    await second.getByText("Saved as revision 2.").waitFor();
+
+    await first.getByLabel(label).fill("First tab: $\\lambda_1 < 2$.");
+    await first.getByRole("button", { name: "Save as new revision" }).click();
+    const conflict = first.getByTestId("save-conflict");
+    await conflict.waitFor();
+    expect(await conflict.textContent()).toContain("Revision 2");
+    expect(await conflict.locator(".katex").count()).toBe(2);
+    await conflict.getByRole("button", { name: "Overwrite revision 2 knowingly" }).click();
+    await first.getByText("Saved as revision 3.").waitFor();
+    // History keeps all three; the diff between 2 and 3 shows the replaced line.
+    await first.reload();
+    const history = first.getByTestId("revision-history");
+    await history.getByTestId("revision-diff").waitFor();
+    const diff = await history.getByTestId("revision-diff").textContent();
+    expect(diff).toContain("− Second tab");
+    expect(diff).toContain("+ First tab");
+    await context.close();
+  });
 });
