@@ -232,3 +232,13 @@ describe("JSON-style matrices", () => {
     expect([e.line, e.column]).toEqual([1, 5]);
   });
 });
+
+describe("line endings", () => {
+  it("reads matrices and edge lists with CRLF and CR line ends alike", () => {
+    for (const eol of ["\n", "\r\n", "\r"]) {
+      expect(pairs(parseGraph(["0 1 1 1", "1 0 0 0", "1 0 0 0", "1 0 0 0"].join(eol)))).toEqual([[0, 1, 1], [0, 2, 1], [0, 3, 1]]);
+      const e = errorOf(() => parseGraph(["0 1", "1 2", "2 x y"].join(eol)));
+      expect([e.line, e.column]).toEqual([3, 5]);
+    }
+  });
+});

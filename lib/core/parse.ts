@@ -193,6 +193,7 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
   if (looksNamed(t) || NAMED_FAMILIES.includes(t)) return "named";
   if (t.startsWith("[[")) return "matrix"; // a bare "path" is a named graph missing "(n)", not graph6
   if (/^[\x3f-\x7e]+$/.test(t)) return "graph6";
+  if (!couldBeSquare(t)) return "edges";
   const rows = tokenLines(t, MATRIX_SEPARATORS);
   const side = rows.length;
   if (side > 0 && !/^n\s*=/m.test(t) && rows.every((r) => r.length === side && r.every((tok) => INTEGER.test(tok.text)))) {
@@ -204,6 +205,26 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
     if (side === 3 && rows.some((r) => Number(r[2].text) === 0)) return "matrix";
   }
   return "edges";
+}
+
+/** Cheap pre-check before tokenising everything: the first row's field count must equal the number of non-blank lines. */
+function couldBeSquare(t: string): boolean {
+  const firstLineEnd = t.search(/[\r\n]/);
+  const first = tokenLines(firstLineEnd < 0 ? t : t.slice(0, firstLineEnd), MATRIX_SEPARATORS)[0];
+  if (!first) return true; // the first line is a comment: let the full check decide
+  // Count non-blank lines, stopping as soon as there are more than the first row has fields.
+  const find = (ch: string, from: number) => { const i = t.indexOf(ch, from); return i < 0 ? Infinity : i; };
+  let lines = 0, at = 0, nextNl = -1, nextCr = -1;
+  while (at <= t.length && lines <= first.length) {
+    // Next "\n" and "\r" found once each and reused, so the scan stays linear ("\r\n" leaves an empty, uncounted line).
+    if (nextNl < at) nextNl = find("\n", at);
+    if (nextCr < at) nextCr = find("\r", at);
+    const end = Math.min(nextNl, nextCr, t.length);
+    const line = t.slice(at, end);
+    if (/[^\s#]/.test(line.split("#")[0])) lines++;
+    at = end + 1;
+  }
+  return first.length === lines;
 }
 
 /** Reads a graph in the given format (default: detected, see detectFormat). */
