@@ -15,6 +15,12 @@ export function GraphPicture({ picture }: { picture: Picture }) {
   const litEdge = new Set((picture.highlight?.edges ?? []).map(([u, v]) => `${Math.min(u, v)}-${Math.max(u, v)}`));
   const big = picture.n > 60;
   const r = big ? 6 : R;
+  // Frame the drawing tightly, so a small graph fills its box instead of floating in it.
+  const pad = 40;
+  const [x0, x1] = [Math.min(...picture.x) - pad, Math.max(...picture.x) + pad];
+  const [y0, y1] = [Math.min(...picture.y) - pad, Math.max(...picture.y) + pad];
+  const w = Math.max(x1 - x0, 240), h = Math.max(y1 - y0, 160);
+  const viewBox = picture.n === 0 ? "0 0 1000 700" : `${(x0 + x1 - w) / 2} ${(y0 + y1 - h) / 2} ${w} ${h}`;
   return (
     <figure className="rounded border border-stone-200 bg-white p-2" data-testid="graph-picture">
       <figcaption className="flex flex-wrap items-center justify-between gap-2 px-1 text-sm">
@@ -29,7 +35,7 @@ export function GraphPicture({ picture }: { picture: Picture }) {
           </label>
         )}
       </figcaption>
-      <svg viewBox="0 0 1000 700" className="mx-auto h-auto max-h-80 w-full" role="img" aria-label={`${picture.title}: a drawing of the graph`}>
+      <svg viewBox={viewBox} className="mx-auto h-auto max-h-80 w-full" role="img" aria-label={`${picture.title}: a drawing of the graph`}>
         {picture.edges.map(([u, v, m], i) => {
           const on = litEdge.has(`${Math.min(u, v)}-${Math.max(u, v)}`);
           if (u === v)
