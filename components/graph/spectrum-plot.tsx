@@ -39,6 +39,9 @@ export function SpectrumPlot({ spectrum, bound }: { spectrum: number[]; bound: {
           stack.set(key, k + 1);
           return <circle key={i} cx={at(v)} cy={80 - 9 - k * 9} r={4} fill={i === spectrum.length - 1 ? "#1d5044" : "#5f594f"} />;
         })}
+        <text x={at(rho)} y={80 - 9 - (stack.get(rho.toFixed(3)) ?? 1) * 9 - 6} fontSize={15} textAnchor="middle" className="font-mono" fill="#1d5044">
+          ρ
+        </text>
         {bound && (
           <g>
             <line x1={at(bound.approx)} y1={10} x2={at(bound.approx)} y2={90} stroke="#8a6a12" strokeWidth={2} strokeDasharray="6 4" />
