@@ -33,6 +33,8 @@ export interface CheckReport {
 export interface CheckOptions {
   /** Step limit per claim. */
   readonly steps?: number;
+  /** Wall-clock limit per claim in milliseconds (the checker command's default is 120 s). */
+  readonly timeLimitMs?: number;
 }
 
 /** The exit code of a list of lines: 2 if any is malformed, else 1 if any is not verified or its certificate does not match, else 0. */

@@ -93,6 +93,14 @@ describe("claim results and certificates", () => {
     expect(r.verdict.reason).toContain("budget");
   });
 
+  it("a time limit gives undecided, never a different verdict", () => {
+    const big = claim({ kind: "structure", graph: named("path(200000)"), predicate: "connected" });
+    const r = verifyClaim(big, { timeLimitMs: 0 });
+    expect(r.verdict.status).toBe("undecided");
+    expect(r.verdict.reason).toContain("time limit");
+    expect(verifyClaim(big, { timeLimitMs: 60_000 }).verdict.status).toBe("verified");
+  });
+
   it("a graph text that does not parse is a ClaimError naming the field", () => {
     const bad = claim({ kind: "structure", graph: { format: "edges", text: "0 1\n1 x y z" }, predicate: "tree" });
     expect(() => verifyClaim(bad, { path: "$.claims[3]" })).toThrow(ClaimError);
@@ -150,9 +158,9 @@ describe("spectral claims", () => {
   });
 
   it("size limits give undecided with the reason", () => {
-    const r = verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("path(201)") }));
+    const r = verifyClaim(claim({ kind: "characteristic-polynomial", graph: named("path(151)") }));
     expect(r.verdict.status).toBe("undecided");
-    expect(r.verdict.reason).toContain("201 vertices; the limit is 200");
+    expect(r.verdict.reason).toContain("151 vertices; the limit is 150");
   });
 });
 

@@ -18,6 +18,7 @@ import { parseGraph } from "./parse";
 import { NumberFormatError } from "./rational";
 import { Budget, BudgetExceeded, DEFAULT_STEP_LIMIT, type Verdict } from "./verdict";
 import { HANDLERS } from "./claim-handlers";
+import { TimedBudget } from "./time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
@@ -51,7 +52,10 @@ export interface ClaimResult {
 }
 
 export interface VerifyOptions {
+  /** Step budget, used as given (a TimedBudget carries a time limit too); default DEFAULT_STEP_LIMIT steps. */
   readonly budget?: Budget;
+  /** Without `budget`: a wall-clock limit per claim in milliseconds, past which the verdict is undecided (time-budget.ts). */
+  readonly timeLimitMs?: number;
   /** JSON path of the claim inside its document, used in error messages (default "$"). */
   readonly path?: string;
 }
@@ -87,13 +91,18 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
   }
 }
 
+function budgetOf(options: VerifyOptions): Budget {
+  if (options.budget) return options.budget;
+  return options.timeLimitMs !== undefined ? new TimedBudget(DEFAULT_STEP_LIMIT, options.timeLimitMs) : new Budget(DEFAULT_STEP_LIMIT);
+}
+
 /** Runs a check; an exhausted budget anywhere inside becomes an undecided verdict. */
 function budgeted(statement: string, budget: Budget, run: () => Verdict): Verdict {
   try {
     return run();
   } catch (e) {
     if (e instanceof BudgetExceeded)
-      return { status: "undecided", statement, method: "step budget", reason: `budget exceeded: ${e.message}; retry with a larger budget`, steps: budget.used };
+      return { status: "undecided", statement, method: "step budget", reason: `${e.message}; retry with a larger budget`, steps: budget.used };
     throw e;
   }
 }
@@ -119,7 +128,7 @@ function guarded<T>(path: string, run: () => T): T {
  */
 export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimResult {
   const path = options.path ?? "$";
-  const budget = options.budget ?? new Budget();
+  const budget = budgetOf(options);
   const { certificate: carried, ...content } = claim;
   const canonical = claimCanonicalJson(claim);
   const base = { claim: content as Claim, canonical, digest: sha256Hex(canonical), checkerVersion: CHECKER_VERSION };
@@ -137,7 +146,7 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   };
   if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
   if (carried === undefined) return { ...base, verdict };
-  const check = guarded(path, () => recheckParsed(claim, inputs, carried, new Budget(budget.limit)));
+  const check = guarded(path, () => recheckParsed(claim, inputs, carried, budget instanceof TimedBudget ? budget.renewed() : new Budget(budget.limit)));
   const outcome = (carried as { outcome?: unknown } | null)?.outcome;
   return { ...base, verdict, certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check } };
 }
@@ -172,5 +181,5 @@ function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown,
 export function recheckClaim(claim: Claim, certificate: unknown, options: VerifyOptions = {}): Verdict {
   const path = options.path ?? "$";
   const inputs = parseInputs(claim, path);
-  return guarded(path, () => recheckParsed(claim, inputs, certificate, options.budget ?? new Budget(DEFAULT_STEP_LIMIT)));
+  return guarded(path, () => recheckParsed(claim, inputs, certificate, budgetOf(options)));
 }

@@ -16,6 +16,7 @@ import { BUNDLE_FORMAT, checkBundle } from "./bundle";
 import { readClaimsDocument } from "./claim-file";
 import { ClaimError } from "./claim-schema";
 import { CHECKER_VERSION, verifyClaim, type ClaimResult } from "./claims";
+import { TimedBudget } from "./time-budget";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
 import { EXIT_MALFORMED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
@@ -61,7 +62,9 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
       continue;
     }
     try {
-      lines.push(lineOf(label, verifyClaim(entry.claim, { budget: new Budget(options.steps ?? DEFAULT_STEP_LIMIT), path: entry.path })));
+      const steps = options.steps ?? DEFAULT_STEP_LIMIT;
+      const budget = options.timeLimitMs !== undefined ? new TimedBudget(steps, options.timeLimitMs) : new Budget(steps);
+      lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path })));
     } catch (e) {
       // verifyClaim throws only for malformed input (a graph text that does not parse, an embedding of the wrong length).
       if (e instanceof ClaimError) lines.push({ label, status: "malformed", text: e.message });
@@ -106,7 +109,10 @@ export function formatReport(report: CheckReport, verbose = false): string {
   return out.join("\n");
 }
 
-const USAGE = `usage: cairn-check [--steps N] [--json] [--verbose] FILE...
+/** A reader's machine should never hang on a claim: past this, the claim is reported undecided. */
+const DEFAULT_TIME_LIMIT_S = 120;
+
+const USAGE = `usage: cairn-check [--steps N] [--time-limit SECONDS] [--json] [--verbose] FILE...
 Checks Cairn claims files (cairn-claim/1, cairn-claims/1) exactly, offline.
 Exit 0: all verified; 1: something refuted, undecided or a certificate not matching; 2: malformed input.`;
 
@@ -114,6 +120,7 @@ Exit 0: all verified; 1: something refuted, undecided or a certificate not match
 export function main(argv: string[], print: (s: string) => void = (s) => process.stdout.write(s + "\n")): number {
   const files: string[] = [];
   let steps: number | undefined;
+  let seconds = DEFAULT_TIME_LIMIT_S;
   let json = false, verbose = false;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
@@ -123,12 +130,15 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
     else if (a === "--steps") {
       steps = Number(argv[++i]);
       if (!Number.isSafeInteger(steps) || steps < 1) { print(`--steps needs a positive integer\n${USAGE}`); return EXIT_MALFORMED; }
+    } else if (a === "--time-limit") {
+      seconds = Number(argv[++i]);
+      if (!Number.isFinite(seconds) || seconds <= 0) { print(`--time-limit needs a positive number of seconds\n${USAGE}`); return EXIT_MALFORMED; }
     } else if (a === "--version") { print(CHECKER_VERSION); return EXIT_OK; }
     else if (a.startsWith("--")) { print(`unknown option ${a}\n${USAGE}`); return EXIT_MALFORMED; }
     else files.push(a);
   }
   if (files.length === 0) { print(USAGE); return EXIT_MALFORMED; }
-  const reports = files.map((f) => checkFile(f, { steps }));
+  const reports = files.map((f) => checkFile(f, { steps, timeLimitMs: seconds * 1000 }));
   if (json) print(JSON.stringify({ checkerVersion: CHECKER_VERSION, reports }, null, 2));
   else {
     print(`cairn-check ${CHECKER_VERSION}`);
