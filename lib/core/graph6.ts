@@ -109,7 +109,7 @@ export function writeGraph6(g: Graph, header = false): string {
   return (header ? GRAPH6_HEADER : "") + writeOrder(n) + printable(bytes);
 }
 
-/** Bits needed for a vertex number in sparse6: the least k ≥ 1 with 2^k ≥ n (as nauty and networkx do). */
+/** Bits needed for a vertex number in sparse6: the least k ≥ 1 with 2^k ≥ n (as networkx does; its writer was checked against Sage). */
 function sparse6Width(n: number): number {
   let k = 1;
   while (2 ** k < n) k++;
