@@ -11,6 +11,7 @@
 // Graphs, verdicts, budgets.
 export * from "./graph";
 export * from "./verdict";
+export * from "./time-budget";
 
 // Reading and writing graphs; canonical JSON and digests.
 export { parseGraph, parseEdgeList, parseAdjacencyMatrix, detectFormat, MAX_PARSED_VERTICES, type GraphFormat } from "./parse";

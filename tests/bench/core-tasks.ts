@@ -82,6 +82,13 @@ function charpolyTasks(): BenchTask[] {
     }), `G(n,1/2), n=${n}`));
 }
 
+/** Irrational bounds exactly at ρ: ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4). */
+function irrationalBoundTasks(): BenchTask[] {
+  return [20, 50, 100].map((n) =>
+    named(graphTask(`path-${n}-2cos`, () => pathWorkload(n), `ρ = 2cos(π/${n + 1}) (exact, irrational b)`, n === 20,
+      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status), `path P_${n}`));
+}
+
 function starlikeTasks(): BenchTask[] {
   // T(1,2,k), n = k + 4: ρ < 2 for k ≤ 4 (E6–E8), = 2 for k = 5, > 2 beyond (Smith 1970).
   return [16, 46, 96, 196].map((k) =>
@@ -106,5 +113,5 @@ function claimTasks(): BenchTask[] {
 
 export const coreSection: BenchSection = {
   name: "verification core (exact)",
-  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...starlikeTasks(), ...claimTasks()],
+  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...irrationalBoundTasks(), ...starlikeTasks(), ...claimTasks()],
 };
