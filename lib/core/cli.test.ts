@@ -85,6 +85,13 @@ describe("offline checker", () => {
     expect(parsed.reports[0].exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
+  it("stored certificates keep re-checking (a change of certificate format must not orphan old claims)", () => {
+    // with-certificates.json holds claims with certificates from an earlier run of this checker.
+    const report = checkFile(join(FIXTURES, "with-certificates.json"));
+    expect(report.lines).toHaveLength(8);
+    for (const line of report.lines) expect(line.certificate?.matches, `${line.label}: ${line.certificate?.text}`).toBe(true);
+  });
+
   it("rejects unknown options with exit 2", () => {
     expect(main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
   });
