@@ -1,9 +1,9 @@
 /**
  * The offline checker: `npm run check -- FILE...` or `bin/cairn-check.mjs FILE...`.
  *
- * Reads a claims document (one claim, an array of claims, or a "cairn-claims/1" list), verifies every
- * claim exactly, re-checks every certificate a claim carries, and prints one line per claim and a
- * summary. Exit codes:
+ * Reads a claims document (one claim, an array of claims, or a "cairn-claims/1" list) or an exported
+ * bundle ("cairn-bundle/1", bundle.ts), verifies every claim exactly, re-checks every certificate a
+ * claim carries, and prints one line per claim and a summary. Exit codes (check-report.ts):
  *   0  every claim verified and every carried certificate re-checked;
  *   1  some claim refuted or undecided, or a carried certificate failed its re-check
  *      (undecided counts against: a reader cannot rely on a claim nobody decided);
@@ -38,7 +38,6 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
   return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}) };
 }
 
-
 /**
  * Checks a parsed document, dispatching on its "format" field. Claims documents are handled here;
  * other formats (an exported bundle) are added as further cases of the switch.
@@ -66,9 +65,11 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
       const budget = options.timeLimitMs !== undefined ? new TimedBudget(steps, options.timeLimitMs) : new Budget(steps);
       lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path })));
     } catch (e) {
-      // verifyClaim throws only for malformed input (a graph text that does not parse, an embedding of the wrong length).
+      // verifyClaim throws for malformed input (a graph text that does not parse, an embedding of the
+      // wrong length). Anything else is a fault in the checker: a reader gets a line, not a stack trace,
+      // and the claim counts as not verified.
       if (e instanceof ClaimError) lines.push({ label, status: "malformed", text: e.message });
-      else throw e;
+      else lines.push({ label, status: "undecided", text: `internal error in the checker (${e instanceof Error ? e.message : String(e)}); please report it with this claim` });
     }
   }
   return { source, lines, exitCode: exitCodeOf(lines) };
