@@ -4,15 +4,17 @@ import { useRouter } from "next/navigation";
 import { ApiError, apiFetch } from "./api-client";
 import { AddCaseForm } from "./add-case-form";
 import { AddStepForm } from "./add-step-form";
+import { EditCaseForm } from "./edit-case-form";
 
 type Pending = { what: "delete" } | { what: "move"; parentId: number | null };
 
 /** An author's controls on one case: sub-case, step, reorder, move under another case, delete (confirmed when it holds work). */
-export function CaseActions({ proofId, caseId, number, first, last, targets }: {
+export function CaseActions({ proofId, caseId, number, first, last, targets, title, condition }: {
   proofId: number; caseId: number; number: string; first: boolean; last: boolean; targets: Array<{ id: number; number: string }>;
+  title: string; condition: string;
 }) {
   const router = useRouter();
-  const [open, setOpen] = useState<"case" | "step" | null>(null);
+  const [open, setOpen] = useState<"case" | "step" | "edit" | null>(null);
   const [confirming, setConfirming] = useState<{ pending: Pending; message: string } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const url = `/api/proofs/${proofId}/cases/${caseId}`;
@@ -40,6 +42,9 @@ export function CaseActions({ proofId, caseId, number, first, last, targets }: {
         </button>
         <button type="button" className={button} onClick={() => setOpen(open === "case" ? null : "case")}>
           + Sub-case
+        </button>
+        <button type="button" className={button} onClick={() => setOpen(open === "edit" ? null : "edit")}>
+          ✎ Edit
         </button>
         <button type="button" className={button} disabled={first} onClick={() => run({ what: "reorder", move: "up" })} aria-label={`move case ${number} up`}>
           ↑
@@ -85,6 +90,7 @@ export function CaseActions({ proofId, caseId, number, first, last, targets }: {
       )}
       {open === "case" && <AddCaseForm proofId={proofId} parentId={caseId} onDone={() => setOpen(null)} />}
       {open === "step" && <AddStepForm proofId={proofId} caseId={caseId} />}
+      {open === "edit" && <EditCaseForm proofId={proofId} caseId={caseId} initial={{ title, condition }} onDone={() => setOpen(null)} />}
     </div>
   );
 }

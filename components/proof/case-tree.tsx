@@ -34,6 +34,8 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 proofId={options.proofId}
                 caseId={c.id}
                 number={c.number}
+                title={c.title}
+                condition={c.condition}
                 first={i === 0}
                 last={i === nodes.length - 1}
                 targets={options.targets.filter((t) => t.id !== c.id && !t.number.startsWith(`${c.number}.`))}
