@@ -53,6 +53,11 @@ describe("validateClaim", () => {
     expect(errorOf({ format: "cairn-claim/1", kind: "vector-certificate", graph: p5, vector: ["1/0"], relation: "<", bound: "2" }).path).toBe("$.vector[0]");
   });
 
+  it("accepts vector entries as fractions or decimals", () => {
+    const c = validateClaim({ format: "cairn-claim/1", kind: "vector-certificate", graph: p5, vector: ["1", "3/2", "0.25", "-2"], relation: "<=", bound: "2" });
+    expect(c.kind === "vector-certificate" && c.vector).toEqual(["1", "3/2", "0.25", "-2"]);
+  });
+
   it("accepts characteristic polynomial coefficients as numbers or strings and normalises them", () => {
     const c = validateClaim({ format: "cairn-claim/1", kind: "characteristic-polynomial", graph: p5, coefficients: [1, "0", "-04"] });
     expect(c.kind === "characteristic-polynomial" && c.coefficients).toEqual(["1", "0", "-4"]);

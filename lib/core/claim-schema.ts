@@ -171,13 +171,13 @@ function optionalBoolean(v: unknown, path: string): boolean {
   return v;
 }
 
-/** Rationals as text: "3", "-2", "7/2"; checked here so the arithmetic later never meets junk. */
-const RATIONAL_TEXT = /^-?\d+(\/\d+)?$/;
+/** Rationals as text: "3", "-2", "7/2", "0.25"; checked here so the arithmetic later never meets junk. */
+const RATIONAL_TEXT = /^-?\d+(\/\d+|\.\d+)?$/;
 const INTEGER_TEXT = /^-?\d+$/;
 
 function rationalText(v: unknown, path: string): string {
   const s = string(v, path).trim();
-  if (!RATIONAL_TEXT.test(s)) throw new ClaimError(path, `expected a rational such as "3", "-2" or "7/2", got ${describe(v)}`);
+  if (!RATIONAL_TEXT.test(s)) throw new ClaimError(path, `expected a rational such as "3", "-2", "7/2" or "0.25", got ${describe(v)}`);
   if (/\/0+$/.test(s)) throw new ClaimError(path, `denominator is zero in "${s}"`);
   return s;
 }
