@@ -22,6 +22,8 @@ export interface CheckLine {
   readonly certificate?: { readonly matches: boolean; readonly text: string };
   /** The reason of a verification and the verdict's notes, printed with --verbose. */
   readonly details?: readonly string[];
+  /** SHA-256 of the claim's canonical JSON, to match the claim with the one shown in the web app. */
+  readonly digest?: string;
 }
 
 export interface CheckReport {

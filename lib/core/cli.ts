@@ -35,7 +35,10 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
       : `certificate does NOT match: ${r.certificateCheck.verdict.reason}`,
   };
   const details = [...(v.status === "verified" ? [v.reason] : []), ...(v.notes ?? [])];
-  return { label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}) };
+  return {
+    label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, digest: r.digest,
+    ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}),
+  };
 }
 
 /**
@@ -98,7 +101,7 @@ export function formatReport(report: CheckReport, verbose = false): string {
   for (const l of report.lines) {
     out.push(`${MARK[l.status]} ${l.status.padEnd(10)} ${l.label.padEnd(width)}  ${l.text}`);
     if (l.certificate) out.push(`  ${l.certificate.matches ? "✓" : "✗"} ${l.certificate.text}`);
-    if (verbose) for (const d of l.details ?? []) out.push(`    · ${d}`);
+    if (verbose) for (const d of [...(l.details ?? []), ...(l.digest ? [`claim digest ${l.digest}`] : [])]) out.push(`    · ${d}`);
   }
   const count = (s: CheckLine["status"]) => report.lines.filter((l) => l.status === s).length;
   const mismatched = report.lines.filter((l) => l.certificate && !l.certificate.matches).length;
