@@ -5,7 +5,10 @@
  * §3.1); and every certificate the core emits must re-check, and fail to re-check with one entry changed.
  */
 import fc from "fast-check";
+import { readdirSync, readFileSync } from "node:fs";
+import { join } from "node:path";
 import { describe, expect, it } from "vitest";
+import { readClaimsDocument } from "./claim-file";
 import { oracleAccepts, type ClaimGraphs } from "./certificate-oracle";
 import { numericLeafCount, tamper } from "./certificate-tamper";
 import { validateClaim, type Claim } from "./claim-schema";
@@ -140,6 +143,21 @@ describe("every certificate re-verifies, and one changed entry is rejected", () 
         const stillValid = oracleAccepts(claim, graphs, changed.evidence, cert.evidence);
         expect(again, `${r.verdict.statement}: ${JSON.stringify(cert.evidence)} → ${JSON.stringify(changed.evidence)}`).toBe(stillValid ? "verified" : "refuted");
       }
+    }), { seed: SEED, numRuns: RUNS });
+  });
+});
+
+describe("arbitrary JSON as a certificate", () => {
+  const fixtures = join(import.meta.dirname, "../../tests/fixtures/claims");
+  const fixtureClaims: Claim[] = readdirSync(fixtures).filter((f) => f.endsWith(".json") && !f.startsWith("malformed"))
+    .flatMap((f) => readClaimsDocument(JSON.parse(readFileSync(join(fixtures, f), "utf8"))))
+    .flatMap((e) => ("claim" in e ? [e.claim] : []));
+
+  it("never crashes a re-check and is never accepted", () => {
+    const evidence = fc.oneof(fc.jsonValue({ maxDepth: 3 }), fc.record({ kind: fc.constantFrom("inertia", "rayleigh", "embedding", "absence", "forest", "cycle", "components", "isomorphism", "legs"), value: fc.jsonValue({ maxDepth: 2 }) }));
+    fc.assert(fc.property(fc.constantFrom(...fixtureClaims), fc.constantFrom("verified", "refuted"), evidence, (claim, outcome, e) => {
+      const v = recheckClaim(claim, { kind: claim.kind, outcome, evidence: e });
+      expect(v.status).not.toBe("verified");
     }), { seed: SEED, numRuns: RUNS });
   });
 });
