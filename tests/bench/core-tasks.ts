@@ -98,7 +98,7 @@ function starlikeTasks(): BenchTask[] {
 
 /** The whole claim path as the server and the checker run it: validate, parse the edge-list text, verify. */
 function claimTasks(): BenchTask[] {
-  return [1_000, 100_000].map((n) => ({
+  return [1_000, 100_000, 1_000_000].map((n) => ({
     id: `claim-tree-${n}`,
     workload: `tree-${n} (edge-list text)`,
     task: "claim ρ < 2: validate + parse + verify",
