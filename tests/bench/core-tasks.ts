@@ -11,6 +11,7 @@ import { validateClaim } from "../../lib/core/claim-schema";
 import { verifyClaim } from "../../lib/core/claims";
 import { characteristicPolynomial } from "../../lib/core/charpoly";
 import type { Graph } from "../../lib/core/graph";
+import { identifySmith } from "../../lib/core/identify";
 import { inertia, spectralRadiusBound } from "../../lib/core/inertia";
 import { rat } from "../../lib/core/rational";
 import { findSubgraph } from "../../lib/core/subgraph";
@@ -91,9 +92,14 @@ function irrationalBoundTasks(): BenchTask[] {
 
 function starlikeTasks(): BenchTask[] {
   // T(1,2,k), n = k + 4: ρ < 2 for k ≤ 4 (E6–E8), = 2 for k = 5, > 2 beyond (Smith 1970).
-  return [16, 46, 96, 196].map((k) =>
+  return [16, 46, 96, 196].flatMap((k) => [
     named(graphTask(`t12k-${k + 4}-rho`, () => t12kWorkload(k), "ρ vs 2: ρ ≤ 2 (exact verdict)", k === 16,
-      (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status), `T(1,2,${k}) n=${k + 4}`));
+      (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status), `T(1,2,${k}) n=${k + 4}`),
+    named(graphTask(`t12k-${k + 4}-identify`, () => t12kWorkload(k), "identification (Smith families)", k === 16, (g) => {
+      const v = identifySmith(g, undefined, new Budget(BENCH_STEPS));
+      return `${v.status} (${v.certificate?.kind ?? "-"})`;
+    }), `T(1,2,${k}) n=${k + 4}`),
+  ]);
 }
 
 /** The whole claim path as the server and the checker run it: validate, parse the edge-list text, verify. */
