@@ -6,6 +6,7 @@ import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
 import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
+import { FormField } from "@/components/proof/form-field";
 
 const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   "spectral-radius-bound": "spectral radius bound  ρ(G) op b",
@@ -19,21 +20,6 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
 };
 
 const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
-
-function Field({ label, error, children, hint }: { label: string; error?: string; children: React.ReactNode; hint?: string }) {
-  return (
-    <label className="block text-sm">
-      <span className="font-semibold">{label}</span>
-      {hint && <span className="ml-2 text-stone-500">{hint}</span>}
-      <div className="mt-1">{children}</div>
-      {error && (
-        <span role="alert" className="mt-1 block text-refuted">
-          ✗ {error}
-        </span>
-      )}
-    </label>
-  );
-}
 
 function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
   return (
@@ -84,7 +70,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       <h3 id="claim-form-heading" className="font-semibold">
         Attach a claim
       </h3>
-      <Field label="Kind">
+      <FormField label="Kind">
         <select {...register("kind")} className={input}>
           {CLAIM_KINDS.map((k) => (
             <option key={k} value={k}>
@@ -92,39 +78,39 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
             </option>
           ))}
         </select>
-      </Field>
+      </FormField>
       {twoGraphs && (
-        <Field label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"} hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"} error={err("patternText")}>
+        <FormField label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"} hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"} error={err("patternText")}>
           <div className="flex gap-2">
             <FormatSelect name="patternFormat" register={register} />
             <textarea {...register("patternText")} rows={2} className={input} aria-label="pattern H" />
           </div>
-        </Field>
+        </FormField>
       )}
-      <Field label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
+      <FormField label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
         <div className="flex gap-2">
           <FormatSelect name="graphFormat" register={register} />
           <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
         </div>
-      </Field>
+      </FormField>
       {(kind === "spectral-radius-bound" || kind === "vector-certificate") && (
         <div className="flex gap-3">
-          <Field label="Relation" error={err("op")}>
+          <FormField label="Relation" error={err("op")}>
             <select {...register("op")} className={input} aria-label="relation">
               {RELATIONS.map((r) => (
                 <option key={r}>{r}</option>
               ))}
             </select>
-          </Field>
-          <Field label="Bound b" hint="2, 7/2, sqrt(5), sqrt(2+sqrt(5)), 2cos(pi/7)" error={err("bound")}>
+          </FormField>
+          <FormField label="Bound b" hint="2, 7/2, sqrt(5), sqrt(2+sqrt(5)), 2cos(pi/7)" error={err("bound")}>
             <input {...register("bound")} className={input} aria-label="bound" />
-          </Field>
+          </FormField>
         </div>
       )}
       {kind === "vector-certificate" && (
-        <Field label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" error={err("vector")}>
+        <FormField label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" error={err("vector")}>
           <input {...register("vector")} className={input} />
-        </Field>
+        </FormField>
       )}
       {twoGraphs && (
         <label className="flex items-center gap-2 text-sm">
@@ -132,58 +118,58 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         </label>
       )}
       {kind === "subgraph" && (
-        <Field label="Embedding (optional)" hint="host vertex of each pattern vertex, e.g. 0, 3, 4" error={err("embedding")}>
+        <FormField label="Embedding (optional)" hint="host vertex of each pattern vertex, e.g. 0, 3, 4" error={err("embedding")}>
           <input {...register("embedding")} className={input} />
-        </Field>
+        </FormField>
       )}
       {kind === "identification" && (
-        <Field label="Type (optional)" hint="e.g. E7, affine D5" error={err("family")}>
+        <FormField label="Type (optional)" hint="e.g. E7, affine D5" error={err("family")}>
           <input {...register("family")} className={input} />
-        </Field>
+        </FormField>
       )}
       {kind === "characteristic-polynomial" && (
-        <Field label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
+        <FormField label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
           <input {...register("coefficients")} className={input} />
-        </Field>
+        </FormField>
       )}
       {kind === "eigenvalues" && (
         <div className="flex gap-3">
-          <Field label="h" error={err("h")}>
+          <FormField label="h" error={err("h")}>
             <input {...register("h")} className={input} />
-          </Field>
-          <Field label="Multiset of m" hint="e.g. 1, 7, 11, 13, 17, 19, 23, 29" error={err("multiset")}>
+          </FormField>
+          <FormField label="Multiset of m" hint="e.g. 1, 7, 11, 13, 17, 19, 23, 29" error={err("multiset")}>
             <input {...register("multiset")} className={input} />
-          </Field>
+          </FormField>
         </div>
       )}
       {kind === "structure" && (
         <div className="flex flex-wrap gap-3">
-          <Field label="Predicate">
+          <FormField label="Predicate">
             <select {...register("predicate")} className={input}>
               {STRUCTURE_PREDICATES.map((p) => (
                 <option key={p}>{p}</option>
               ))}
             </select>
-          </Field>
+          </FormField>
           {predicate === "max-degree" && (
-            <Field label="Δ(G)">
+            <FormField label="Δ(G)">
               <select {...register("degreeRelation")} className={input} aria-label="degree relation">
                 {DEGREE_RELATIONS.map((r) => (
                   <option key={r}>{r}</option>
                 ))}
               </select>
-            </Field>
+            </FormField>
           )}
           {(predicate === "max-degree" || predicate === "branch-vertices" || predicate === "leg-lengths") && (
-            <Field label={predicate === "leg-lengths" ? "Leg lengths" : "Number"} error={err("parameter")}>
+            <FormField label={predicate === "leg-lengths" ? "Leg lengths" : "Number"} error={err("parameter")}>
               <input {...register("parameter")} className={input} />
-            </Field>
+            </FormField>
           )}
         </div>
       )}
-      <Field label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" error={err("certificate")}>
+      <FormField label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" error={err("certificate")}>
         <textarea {...register("certificate")} rows={2} className={input} />
-      </Field>
+      </FormField>
       <div className="flex items-center gap-3">
         <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
           {formState.isSubmitting ? "Checking the input…" : "Attach claim"}

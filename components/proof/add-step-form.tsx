@@ -4,6 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createStepSchema, type CreateStepInput } from "@/lib/validations/step";
 import { apiFetch } from "./api-client";
+import { FormField, FormProblem } from "./form-field";
 
 /** Starts a step at the end of a case, then opens it for editing and claims. */
 export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: number }) {
@@ -19,12 +20,10 @@ export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: numb
   });
   return (
     <form onSubmit={submit} className="mt-2 space-y-2 rounded border border-stone-200 bg-stone-50 p-3" data-testid="add-step">
-      <label className="block text-sm">
-        <span className="font-semibold">First draft of the step</span> <span className="text-stone-500">Markdown with $…$ math</span>
+      <FormField label="First draft of the step" hint="Markdown with $…$ math" error={formState.errors.body?.message}>
         <textarea {...register("body")} rows={4} className="w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm" />
-        {formState.errors.body && <span role="alert" className="block text-refuted">✗ {formState.errors.body.message}</span>}
-      </label>
-      {formState.errors.root && <p role="alert" className="text-sm text-refuted">{formState.errors.root.message}</p>}
+      </FormField>
+      <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
         Add step and open it
       </button>

@@ -4,6 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createProofSchema, type CreateProofInput } from "@/lib/validations/proof";
 import { ApiError, apiFetch } from "./api-client";
+import { FormField, FormProblem } from "./form-field";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 
 /** Title and statement (Markdown with math, previewed as typed); creates the proof and opens it. */
@@ -23,23 +24,19 @@ export function NewProofForm() {
   const field = "mt-1 w-full rounded border border-stone-300 bg-white px-2 py-1";
   return (
     <form onSubmit={submit} className="mt-6 space-y-4" data-testid="new-proof-form">
-      <label className="block">
-        <span className="font-semibold">Title</span>
+      <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={field} />
-        {formState.errors.title && <span role="alert" className="block text-sm text-refuted">✗ {formState.errors.title.message}</span>}
-      </label>
-      <label className="block">
-        <span className="font-semibold">Statement</span> <span className="text-sm text-stone-500">Markdown with $…$ and $$…$$ math</span>
+      </FormField>
+      <FormField label="Statement" hint="Markdown with $…$ and $$…$$ math" error={formState.errors.statement?.message}>
         <textarea {...register("statement")} rows={5} className={`${field} font-mono text-sm`} />
-        {formState.errors.statement && <span role="alert" className="block text-sm text-refuted">✗ {formState.errors.statement.message}</span>}
-      </label>
+      </FormField>
       {statement.trim() && (
         <div className="rounded border border-stone-200 bg-white p-3">
           <p className="text-xs text-stone-500">Preview</p>
           <MathMarkdown source={statement} />
         </div>
       )}
-      {formState.errors.root && <p role="alert" className="text-refuted">{formState.errors.root.message}</p>}
+      <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-4 py-1.5 text-white hover:bg-lichen-800 disabled:opacity-60">
         {formState.isSubmitting ? "Creating…" : "Create proof"}
       </button>

@@ -3,9 +3,8 @@
  * worker thread): validates and verifies one claim with the exact core under a step budget, and
  * computes its display picture. Nothing here touches the database; the server stores the outcome.
  */
-import { CHECKER_VERSION, verifyClaim } from "../core/claims";
+import { CHECKER_VERSION, readClaimGraph, verifyClaim } from "../core/claims";
 import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claim-schema";
-import { GraphError } from "../core/graph";
 import { NumberFormatError } from "../core/rational";
 import { parseGraph } from "../core/parse";
 import { boundApprox, parseBound } from "../core/bound";
@@ -57,16 +56,6 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
   return { pictures, bound: boundOf(claim), ...(pictures.length === 0 ? { note: "the graph is too large to draw" } : {}) };
 }
 
-/** Parses a graph of the claim, naming the field on failure. */
-function readOrFail(input: GraphInput, path: string): Graph {
-  try {
-    return parseGraph(input.text, input.format);
-  } catch (e) {
-    if (e instanceof GraphError || e instanceof NumberFormatError) throw new ClaimError(`${path}.text`, e.message);
-    throw e;
-  }
-}
-
 function boundOrFail(text: string, path: string): void {
   try {
     parseBound(text);
@@ -83,8 +72,8 @@ function boundOrFail(text: string, path: string): void {
 export function checkInputs(claim: Claim): void {
   switch (claim.kind) {
     case "subgraph": {
-      const h = readOrFail(claim.pattern, "$.pattern");
-      const g = readOrFail(claim.host, "$.host");
+      const h = readClaimGraph(claim.pattern, "$.pattern");
+      const g = readClaimGraph(claim.host, "$.host");
       if (claim.embedding) {
         if (claim.embedding.length !== h.n)
           throw new ClaimError("$.embedding", `the embedding lists ${claim.embedding.length} vertices but the pattern H has ${h.n}; give one host vertex per pattern vertex`);
@@ -94,22 +83,22 @@ export function checkInputs(claim: Claim): void {
       return;
     }
     case "exclusion":
-      readOrFail(claim.host, "$.host");
-      claim.patterns.forEach((p, i) => readOrFail(p, `$.patterns[${i}]`));
+      readClaimGraph(claim.host, "$.host");
+      claim.patterns.forEach((p, i) => readClaimGraph(p, `$.patterns[${i}]`));
       return;
     case "spectral-radius-bound":
-      readOrFail(claim.graph, "$.graph");
+      readClaimGraph(claim.graph, "$.graph");
       boundOrFail(claim.bound, "$.bound");
       return;
     case "vector-certificate": {
-      const g = readOrFail(claim.graph, "$.graph");
+      const g = readClaimGraph(claim.graph, "$.graph");
       boundOrFail(claim.bound, "$.bound");
       if (claim.vector.length !== g.n)
         throw new ClaimError("$.vector", `the vector has ${claim.vector.length} entries but G has ${g.n} vertices; give one entry per vertex`);
       return;
     }
     default:
-      readOrFail(claim.graph, "$.graph");
+      readClaimGraph(claim.graph, "$.graph");
   }
 }
 
