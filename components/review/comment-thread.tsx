@@ -2,7 +2,7 @@
 /** A thread of comments with replies, in sanitised Markdown with math, and a box to add to it. */
 import { useState } from "react";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
-import type { CommentNode } from "@/lib/data/reviews";
+import type { CommentNode } from "@/lib/data/review-panel";
 import { send } from "./send";
 
 export function CommentBox({ label, onSubmit, testId }: { label: string; onSubmit: (body: string) => Promise<string | null>; testId?: string }) {

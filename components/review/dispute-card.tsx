@@ -1,7 +1,7 @@
 "use client";
 /** One dispute: its state, its recorded transitions, its own thread, and the moves this viewer may make. */
 import { useState } from "react";
-import type { StepReviewView } from "@/lib/data/reviews";
+import type { StepReviewView } from "@/lib/data/review-panel";
 import { DisputeStateBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
 import { send } from "./send";

@@ -7,7 +7,7 @@
 import { useState } from "react";
 import useSWR from "swr";
 import { useRouter } from "next/navigation";
-import type { StepReviewView } from "@/lib/data/reviews";
+import type { StepReviewView } from "@/lib/data/review-panel";
 import { VerdictCaution } from "@/components/ui/caution";
 import { ApprovalBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";

@@ -1,22 +1,19 @@
 import "server-only";
 /**
- * Verdicts on step revisions, disputes and their transitions, comments, and who sees which cases.
- * Each write runs in one transaction together with its audit event, notifications and queued mail;
+ * Who sees which cases, verdicts on step revisions, comments, and the required approvals. Disputes:
+ * ./disputes.ts; what the review panel shows: ./review-panel.ts. Each write runs in one transaction together with its audit event, notifications and queued mail;
  * mail goes out after commit (see lib/mail/outbox.ts).
  */
 import { Op, type Transaction } from "sequelize";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
-import type { DisputeState } from "@/models/review";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
-import { canMoveDispute, disputeRefusal, expandScope, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
-import { stepStatus, type StepStatus } from "@/lib/review/states";
+import { expandScope, verdictRefusal, type Actor } from "@/lib/review/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { getMembershipRole } from "./proofs";
 import { requireProofRole, type CurrentUser } from "@/lib/session";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 
 export interface StepRef {
   id: number;
@@ -83,10 +80,10 @@ export async function assertCanGiveVerdict(step: StepRef, actor: Actor): Promise
   if (refusal) throw forbidden(refusal);
 }
 
-const authorsOf = async (proofId: number, transaction?: Transaction) =>
+export const authorsOf = async (proofId: number, transaction?: Transaction) =>
   (await models().ProofMember.findAll({ where: { proofId, role: "author" }, attributes: ["userId"], transaction })).map((m) => m.userId);
 
-const stepLink = (proofId: number, stepId: number) => `/queue/${proofId}/${stepId}`;
+export const stepLink = (proofId: number, stepId: number) => `/queue/${proofId}/${stepId}`;
 
 export interface VerdictInput {
   revisionId: number;
@@ -148,62 +145,6 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
   return result;
 }
 
-export interface DisputeRef {
-  id: number;
-  reviewerId: number;
-  state: DisputeState;
-  step: StepRef;
-}
-
-/** A dispute of this proof, or 404. */
-export async function loadDispute(proofId: number, reviewId: number): Promise<DisputeRef> {
-  const review = await models().Review.findByPk(reviewId);
-  if (!review || review.verdict !== "dispute" || !review.disputeState) throw notFound("This dispute");
-  const step = await loadStep(proofId, review.stepId).catch(() => {
-    throw notFound("This dispute");
-  });
-  return { id: review.id, reviewerId: review.reviewerId, state: review.disputeState, step };
-}
-
-export async function assertCanMoveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget): Promise<void> {
-  await assertCanSeeStep(d.step, actor.id);
-  const refusal = disputeRefusal(actor, d.reviewerId, to);
-  if (refusal) throw forbidden(refusal);
-}
-
-const verbOf: Record<DisputeTarget, string> = { answered: "answered", closed: "closed", reopened: "reopened" };
-
-/** Moves a dispute (answered / closed / reopened), with an optional comment in its thread; 409 when the move does not exist from its state. */
-export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget, comment?: string): Promise<{ state: DisputeState }> {
-  const { Review, Comment, DisputeTransition, StepRevision } = models();
-  await getSequelize().transaction(async (transaction) => {
-    const review = await Review.findByPk(d.id, { transaction, lock: transaction.LOCK.UPDATE });
-    const from = review!.disputeState;
-    if (!canMoveDispute(from, to)) throw conflict(`This dispute is ${from}; it cannot be ${verbOf[to]} from there.`, { state: from });
-    await review!.update({ disputeState: to }, { transaction });
-    await DisputeTransition.create({ reviewId: d.id, actorId: actor.id, fromState: from, toState: to }, { transaction });
-    if (comment) {
-      const latest = await StepRevision.findOne({ where: { stepId: d.step.id }, order: [["number", "DESC"]], transaction });
-      await Comment.create({ stepId: d.step.id, reviewId: d.id, parentId: null, revisionId: latest?.id ?? null, authorId: actor.id, body: comment }, { transaction });
-    }
-    const recipients = to === "answered" ? [d.reviewerId] : [...(await authorsOf(d.step.proofId, transaction)), d.reviewerId];
-    await notify(
-      recipients.filter((id) => id !== actor.id),
-      {
-        kind: to === "answered" ? "dispute_answered" : to === "closed" ? "dispute_closed" : "dispute_reopened",
-        proofId: d.step.proofId,
-        stepId: d.step.id,
-        message: to === "answered" ? "The authors answered your dispute; close it or reopen it." : `A dispute on a step of your proof was ${verbOf[to]}.`,
-        link: stepLink(d.step.proofId, d.step.id),
-      },
-      transaction,
-    );
-    await recordEvent({ proofId: d.step.proofId, actorId: actor.id, action: `dispute.${to}`, subjectType: "review", subjectId: d.id, detail: `${from} → ${to}; step ${d.step.id}` }, transaction);
-  });
-  await deliverAfterCommit();
-  return { state: to };
-}
-
 export interface CommentInput {
   body: string;
   parentId?: number | null;
@@ -234,113 +175,6 @@ export async function addComment(step: StepRef, actor: Actor, input: CommentInpu
   });
 }
 
-export interface CommentNode {
-  id: number;
-  authorName: string;
-  authorId: number;
-  body: string;
-  revisionNumber: number | null;
-  at: string;
-  replies: CommentNode[];
-}
-
-export interface StepReviewView {
-  stepId: number;
-  latestRevision: { id: number; number: number } | null;
-  requiredApprovals: number;
-  status: StepStatus;
-  approvals: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
-  disputes: Array<{
-    id: number;
-    reviewerId: number;
-    reviewerName: string;
-    state: DisputeState;
-    revisionNumber: number;
-    at: string;
-    transitions: Array<{ from: DisputeState | null; to: DisputeState; actorName: string; at: string }>;
-    thread: CommentNode[];
-    can: { answer: boolean; close: boolean; reopen: boolean };
-  }>;
-  comments: CommentNode[];
-  can: { verdict: boolean; verdictRefusal: string | null; comment: boolean };
-}
-
-/** Everything the review panel under a step shows, with what this viewer may do. */
-export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepReviewView> {
-  const { Review, Comment, DisputeTransition, StepRevision, User, Proof } = models();
-  const [reviews, comments, revisions, proof] = await Promise.all([
-    Review.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-    Comment.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-    StepRevision.findAll({ where: { stepId: step.id }, attributes: ["id", "number"] }),
-    Proof.findByPk(step.proofId, { attributes: ["requiredApprovals"] }),
-  ]);
-  const transitions = reviews.length
-    ? await DisputeTransition.findAll({ where: { reviewId: reviews.map((r) => r.id) }, order: [["createdAt", "ASC"], ["id", "ASC"]] })
-    : [];
-  const userIds = [...new Set([...reviews.map((r) => r.reviewerId), ...comments.map((c) => c.authorId), ...transitions.map((t) => t.actorId)])];
-  const names = new Map((userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
-  const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
-  const latestNumber = step.latest?.number ?? 0;
-  const required = proof?.requiredApprovals ?? 1;
-  const status = stepStatus(
-    {
-      id: step.id,
-      latestRevision: latestNumber,
-      reviews: reviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, disputeState: r.disputeState })),
-      claims: await claimStatuses([step.id]).then((m) => m.get(step.id) ?? []),
-      authorIds: step.authorIds,
-    },
-    required,
-  );
-  const tree = (rows: typeof comments): CommentNode[] => {
-    const nodes = new Map<number, CommentNode>(
-      rows.map((c) => [c.id, { id: c.id, authorId: c.authorId, authorName: names.get(c.authorId) ?? "", body: c.body, revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null, at: c.createdAt.toISOString(), replies: [] }]),
-    );
-    const roots: CommentNode[] = [];
-    for (const c of rows) (c.parentId && nodes.has(c.parentId) ? nodes.get(c.parentId)!.replies : roots).push(nodes.get(c.id)!);
-    return roots;
-  };
-  const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
-  // Only the latest approval per reviewer is listed; it is stale when made on an older revision.
-  const latestApproval = new Map<number, (typeof reviews)[number]>();
-  for (const r of reviews) if (r.verdict === "approve") latestApproval.set(r.reviewerId, r);
-  return {
-    stepId: step.id,
-    latestRevision: step.latest,
-    requiredApprovals: required,
-    status,
-    approvals: [...latestApproval.values()].map((r) => ({
-      id: r.id,
-      reviewerId: r.reviewerId,
-      reviewerName: names.get(r.reviewerId) ?? "",
-      revisionNumber: numberOf.get(r.revisionId) ?? 0,
-      stale: (numberOf.get(r.revisionId) ?? 0) !== latestNumber,
-      at: r.createdAt.toISOString(),
-    })),
-    disputes: reviews
-      .filter((r) => r.verdict === "dispute" && r.disputeState)
-      .map((r) => {
-        const state = r.disputeState!;
-        const allowed = (to: DisputeTarget) => canMoveDispute(state, to) && disputeRefusal(viewer, r.reviewerId, to) === null;
-        return {
-          id: r.id,
-          reviewerId: r.reviewerId,
-          reviewerName: names.get(r.reviewerId) ?? "",
-          state,
-          revisionNumber: numberOf.get(r.revisionId) ?? 0,
-          at: r.createdAt.toISOString(),
-          transitions: transitions
-            .filter((t) => t.reviewId === r.id)
-            .map((t) => ({ from: t.fromState, to: t.toState, actorName: names.get(t.actorId) ?? "", at: t.createdAt.toISOString() })),
-          thread: tree(comments.filter((c) => c.reviewId === r.id)),
-          can: { answer: allowed("answered"), close: allowed("closed"), reopen: allowed("reopened") },
-        };
-      }),
-    comments: tree(comments.filter((c) => c.reviewId === null)),
-    can: { verdict: refusal === null && step.latest !== null, verdictRefusal: refusal, comment: true },
-  };
-}
-
 /** Claim statuses per step id (every claim must be verified for a step to be settled). */
 export async function claimStatuses(stepIds: number[]): Promise<Map<number, Array<"pending" | "verified" | "refuted" | "undecided">>> {
   const out = new Map<number, Array<"pending" | "verified" | "refuted" | "undecided">>();
@@ -360,33 +194,4 @@ export async function setRequiredApprovals(proofId: number, actorId: number, req
     await proof.update({ requiredApprovals }, { transaction });
     await recordEvent({ proofId, actorId, action: "settings.required_approvals", subjectType: "settings", subjectId: proofId, detail: `${before} → ${requiredApprovals}` }, transaction);
   });
-}
-
-export interface StepDescription {
-  proofTitle: string;
-  caseNumber: string;
-  caseTitle: string;
-  stepLabel: string;
-  revision: { id: number; number: number; body: string; authorName: string } | null;
-}
-
-/** What the queue's step view shows above the review panel. */
-export async function describeStep(step: StepRef): Promise<StepDescription> {
-  const { Proof, Case, Step, StepRevision, User } = models();
-  const [proof, cases, row, revision] = await Promise.all([
-    Proof.findByPk(step.proofId, { attributes: ["title"] }),
-    Case.findAll({ where: { proofId: step.proofId }, attributes: ["id", "parentId", "position", "title"] }),
-    Step.findByPk(step.id),
-    step.latest ? StepRevision.findByPk(step.latest.id) : null,
-  ]);
-  const numbered = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title }))));
-  const c = numbered.find((n) => n.id === step.caseId);
-  const author = revision ? await User.findByPk(revision.authorId, { attributes: ["name"] }) : null;
-  return {
-    proofTitle: proof?.title ?? "",
-    caseNumber: c?.number ?? "?",
-    caseTitle: c?.title ?? "",
-    stepLabel: `${c?.number ?? "?"}.${row?.position ?? "?"}`,
-    revision: revision ? { id: revision.id, number: revision.number, body: revision.body, authorName: author?.name ?? "" } : null,
-  };
 }

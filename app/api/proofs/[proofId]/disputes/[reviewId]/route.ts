@@ -1,6 +1,6 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanMoveDispute, loadDispute, moveDispute } from "@/lib/data/reviews";
+import { assertCanMoveDispute, loadDispute, moveDispute } from "@/lib/data/disputes";
 import { disputeMoveSchema } from "@/lib/validations/review";
 
 type Context = { params: Promise<{ proofId: string; reviewId: string }> };

@@ -1,5 +1,6 @@
 import { readBody, route } from "@/lib/http";
-import { addComment, getStepReview, requireStepAccess } from "@/lib/data/reviews";
+import { addComment, requireStepAccess } from "@/lib/data/reviews";
+import { getStepReview } from "@/lib/data/review-panel";
 import { commentSchema } from "@/lib/validations/comment";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 

@@ -1,5 +1,6 @@
 import { readBody, route } from "@/lib/http";
-import { assertCanGiveVerdict, getStepReview, giveVerdict, requireStepAccess } from "@/lib/data/reviews";
+import { assertCanGiveVerdict, giveVerdict, requireStepAccess } from "@/lib/data/reviews";
+import { getStepReview } from "@/lib/data/review-panel";
 import { verdictSchema } from "@/lib/validations/review";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 

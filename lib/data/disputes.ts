@@ -1,0 +1,67 @@
+import "server-only";
+/** Disputes: moving one (answered / closed / reopened) with its recorded transition, notifications and audit event. */
+import { getSequelize } from "@/lib/db";
+import { models } from "@/models";
+import type { DisputeState } from "@/models/review";
+import { conflict, forbidden, notFound } from "@/lib/errors";
+import { canMoveDispute, disputeRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { recordEvent } from "./audit";
+import { notify } from "./notifications";
+import { assertCanSeeStep, authorsOf, loadStep, stepLink, type StepRef } from "./reviews";
+
+export interface DisputeRef {
+  id: number;
+  reviewerId: number;
+  state: DisputeState;
+  step: StepRef;
+}
+
+/** A dispute of this proof, or 404. */
+export async function loadDispute(proofId: number, reviewId: number): Promise<DisputeRef> {
+  const review = await models().Review.findByPk(reviewId);
+  if (!review || review.verdict !== "dispute" || !review.disputeState) throw notFound("This dispute");
+  const step = await loadStep(proofId, review.stepId).catch(() => {
+    throw notFound("This dispute");
+  });
+  return { id: review.id, reviewerId: review.reviewerId, state: review.disputeState, step };
+}
+
+export async function assertCanMoveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget): Promise<void> {
+  await assertCanSeeStep(d.step, actor.id);
+  const refusal = disputeRefusal(actor, d.reviewerId, to);
+  if (refusal) throw forbidden(refusal);
+}
+
+const verbOf: Record<DisputeTarget, string> = { answered: "answered", closed: "closed", reopened: "reopened" };
+
+/** Moves a dispute (answered / closed / reopened), with an optional comment in its thread; 409 when the move does not exist from its state. */
+export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget, comment?: string): Promise<{ state: DisputeState }> {
+  const { Review, Comment, DisputeTransition, StepRevision } = models();
+  await getSequelize().transaction(async (transaction) => {
+    const review = await Review.findByPk(d.id, { transaction, lock: transaction.LOCK.UPDATE });
+    const from = review!.disputeState;
+    if (!canMoveDispute(from, to)) throw conflict(`This dispute is ${from}; it cannot be ${verbOf[to]} from there.`, { state: from });
+    await review!.update({ disputeState: to }, { transaction });
+    await DisputeTransition.create({ reviewId: d.id, actorId: actor.id, fromState: from, toState: to }, { transaction });
+    if (comment) {
+      const latest = await StepRevision.findOne({ where: { stepId: d.step.id }, order: [["number", "DESC"]], transaction });
+      await Comment.create({ stepId: d.step.id, reviewId: d.id, parentId: null, revisionId: latest?.id ?? null, authorId: actor.id, body: comment }, { transaction });
+    }
+    const recipients = to === "answered" ? [d.reviewerId] : [...(await authorsOf(d.step.proofId, transaction)), d.reviewerId];
+    await notify(
+      recipients.filter((id) => id !== actor.id),
+      {
+        kind: to === "answered" ? "dispute_answered" : to === "closed" ? "dispute_closed" : "dispute_reopened",
+        proofId: d.step.proofId,
+        stepId: d.step.id,
+        message: to === "answered" ? "The authors answered your dispute; close it or reopen it." : `A dispute on a step of your proof was ${verbOf[to]}.`,
+        link: stepLink(d.step.proofId, d.step.id),
+      },
+      transaction,
+    );
+    await recordEvent({ proofId: d.step.proofId, actorId: actor.id, action: `dispute.${to}`, subjectType: "review", subjectId: d.id, detail: `${from} → ${to}; step ${d.step.id}` }, transaction);
+  });
+  await deliverAfterCommit();
+  return { state: to };
+}

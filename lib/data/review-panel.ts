@@ -1,0 +1,144 @@
+import "server-only";
+/** What the review panel under a step shows (verdicts, stale approvals, disputes with threads, comments) and the queue's step view. */
+import { models } from "@/models";
+import type { DisputeState } from "@/models/review";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { canMoveDispute, disputeRefusal, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
+import { stepStatus, type StepStatus } from "@/lib/review/states";
+import { canSeeStep, claimStatuses, type StepRef } from "./reviews";
+
+export interface CommentNode {
+  id: number;
+  authorName: string;
+  authorId: number;
+  body: string;
+  revisionNumber: number | null;
+  at: string;
+  replies: CommentNode[];
+}
+
+export interface StepReviewView {
+  stepId: number;
+  latestRevision: { id: number; number: number } | null;
+  requiredApprovals: number;
+  status: StepStatus;
+  approvals: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
+  disputes: Array<{
+    id: number;
+    reviewerId: number;
+    reviewerName: string;
+    state: DisputeState;
+    revisionNumber: number;
+    at: string;
+    transitions: Array<{ from: DisputeState | null; to: DisputeState; actorName: string; at: string }>;
+    thread: CommentNode[];
+    can: { answer: boolean; close: boolean; reopen: boolean };
+  }>;
+  comments: CommentNode[];
+  can: { verdict: boolean; verdictRefusal: string | null; comment: boolean };
+}
+
+/** Everything the review panel under a step shows, with what this viewer may do. */
+export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepReviewView> {
+  const { Review, Comment, DisputeTransition, StepRevision, User, Proof } = models();
+  const [reviews, comments, revisions, proof] = await Promise.all([
+    Review.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+    Comment.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+    StepRevision.findAll({ where: { stepId: step.id }, attributes: ["id", "number"] }),
+    Proof.findByPk(step.proofId, { attributes: ["requiredApprovals"] }),
+  ]);
+  const transitions = reviews.length
+    ? await DisputeTransition.findAll({ where: { reviewId: reviews.map((r) => r.id) }, order: [["createdAt", "ASC"], ["id", "ASC"]] })
+    : [];
+  const userIds = [...new Set([...reviews.map((r) => r.reviewerId), ...comments.map((c) => c.authorId), ...transitions.map((t) => t.actorId)])];
+  const names = new Map((userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
+  const latestNumber = step.latest?.number ?? 0;
+  const required = proof?.requiredApprovals ?? 1;
+  const status = stepStatus(
+    {
+      id: step.id,
+      latestRevision: latestNumber,
+      reviews: reviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, disputeState: r.disputeState })),
+      claims: await claimStatuses([step.id]).then((m) => m.get(step.id) ?? []),
+      authorIds: step.authorIds,
+    },
+    required,
+  );
+  const tree = (rows: typeof comments): CommentNode[] => {
+    const nodes = new Map<number, CommentNode>(
+      rows.map((c) => [c.id, { id: c.id, authorId: c.authorId, authorName: names.get(c.authorId) ?? "", body: c.body, revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null, at: c.createdAt.toISOString(), replies: [] }]),
+    );
+    const roots: CommentNode[] = [];
+    for (const c of rows) (c.parentId && nodes.has(c.parentId) ? nodes.get(c.parentId)!.replies : roots).push(nodes.get(c.id)!);
+    return roots;
+  };
+  const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
+  // Only the latest approval per reviewer is listed; it is stale when made on an older revision.
+  const latestApproval = new Map<number, (typeof reviews)[number]>();
+  for (const r of reviews) if (r.verdict === "approve") latestApproval.set(r.reviewerId, r);
+  return {
+    stepId: step.id,
+    latestRevision: step.latest,
+    requiredApprovals: required,
+    status,
+    approvals: [...latestApproval.values()].map((r) => ({
+      id: r.id,
+      reviewerId: r.reviewerId,
+      reviewerName: names.get(r.reviewerId) ?? "",
+      revisionNumber: numberOf.get(r.revisionId) ?? 0,
+      stale: (numberOf.get(r.revisionId) ?? 0) !== latestNumber,
+      at: r.createdAt.toISOString(),
+    })),
+    disputes: reviews
+      .filter((r) => r.verdict === "dispute" && r.disputeState)
+      .map((r) => {
+        const state = r.disputeState!;
+        const allowed = (to: DisputeTarget) => canMoveDispute(state, to) && disputeRefusal(viewer, r.reviewerId, to) === null;
+        return {
+          id: r.id,
+          reviewerId: r.reviewerId,
+          reviewerName: names.get(r.reviewerId) ?? "",
+          state,
+          revisionNumber: numberOf.get(r.revisionId) ?? 0,
+          at: r.createdAt.toISOString(),
+          transitions: transitions
+            .filter((t) => t.reviewId === r.id)
+            .map((t) => ({ from: t.fromState, to: t.toState, actorName: names.get(t.actorId) ?? "", at: t.createdAt.toISOString() })),
+          thread: tree(comments.filter((c) => c.reviewId === r.id)),
+          can: { answer: allowed("answered"), close: allowed("closed"), reopen: allowed("reopened") },
+        };
+      }),
+    comments: tree(comments.filter((c) => c.reviewId === null)),
+    can: { verdict: refusal === null && step.latest !== null, verdictRefusal: refusal, comment: true },
+  };
+}
+
+export interface StepDescription {
+  proofTitle: string;
+  caseNumber: string;
+  caseTitle: string;
+  stepLabel: string;
+  revision: { id: number; number: number; body: string; authorName: string } | null;
+}
+
+/** What the queue's step view shows above the review panel. */
+export async function describeStep(step: StepRef): Promise<StepDescription> {
+  const { Proof, Case, Step, StepRevision, User } = models();
+  const [proof, cases, row, revision] = await Promise.all([
+    Proof.findByPk(step.proofId, { attributes: ["title"] }),
+    Case.findAll({ where: { proofId: step.proofId }, attributes: ["id", "parentId", "position", "title"] }),
+    Step.findByPk(step.id),
+    step.latest ? StepRevision.findByPk(step.latest.id) : null,
+  ]);
+  const numbered = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title }))));
+  const c = numbered.find((n) => n.id === step.caseId);
+  const author = revision ? await User.findByPk(revision.authorId, { attributes: ["name"] }) : null;
+  return {
+    proofTitle: proof?.title ?? "",
+    caseNumber: c?.number ?? "?",
+    caseTitle: c?.title ?? "",
+    stepLabel: `${c?.number ?? "?"}.${row?.position ?? "?"}`,
+    revision: revision ? { id: revision.id, number: revision.number, body: revision.body, authorName: author?.name ?? "" } : null,
+  };
+}
