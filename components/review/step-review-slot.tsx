@@ -73,7 +73,12 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
       )}
 
       {viewingOld && <p className="text-sm text-undecided">You are looking at an older revision; verdicts are given on revision {data.latestRevision!.number}.</p>}
-      {data.can.verdict ? (
+      {data.can.verdict && data.can.ownDisputeOpen && (
+        <p className="text-sm text-stone-600" data-testid="verdict-waits">
+          Your dispute on this step is not closed yet: close it below before approving.
+        </p>
+      )}
+      {data.can.verdict && !data.can.ownDisputeOpen && (
         <div className="space-y-2">
           <div className="flex flex-wrap gap-2">
             <button type="button" onClick={() => verdict("approve")} className="rounded bg-lichen-600 px-3 py-1 text-sm font-semibold text-white hover:bg-lichen-700">
@@ -95,9 +100,8 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
             />
           )}
         </div>
-      ) : (
-        data.can.verdictRefusal && data.can.verdictRefusal.startsWith("You wrote") && <p className="text-xs text-stone-500">{data.can.verdictRefusal}</p>
       )}
+      {!data.can.verdict && data.can.verdictRefusal?.startsWith("You wrote") && <p className="text-xs text-stone-500">{data.can.verdictRefusal}</p>}
       {message && (
         <p role="alert" className="text-sm text-refuted">
           {message}

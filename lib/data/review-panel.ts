@@ -35,7 +35,8 @@ export interface StepReviewView {
     can: { answer: boolean; close: boolean; reopen: boolean };
   }>;
   comments: CommentNode[];
-  can: { verdict: boolean; verdictRefusal: string | null; comment: boolean };
+  /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no approval, no second dispute until it is closed). */
+  can: { verdict: boolean; verdictRefusal: string | null; ownDisputeOpen: boolean; comment: boolean };
 }
 
 /** Everything the review panel under a step shows, with what this viewer may do. */
@@ -110,7 +111,12 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
         };
       }),
     comments: tree(comments.filter((c) => c.reviewId === null)),
-    can: { verdict: refusal === null && step.latest !== null, verdictRefusal: refusal, comment: true },
+    can: {
+      verdict: refusal === null && step.latest !== null,
+      verdictRefusal: refusal,
+      ownDisputeOpen: reviews.some((r) => r.reviewerId === viewer.id && r.verdict === "dispute" && r.disputeState !== "closed"),
+      comment: true,
+    },
   };
 }
 

@@ -129,6 +129,7 @@ describe("a dispute from open to closed", () => {
     expect(view.disputes[0]).toMatchObject({ id: disputeId, state: "open", reviewerName: "Celia Marwood" });
     expect(view.disputes[0].thread[0].body).toContain("x^2");
     expect(view.status.openDisputes).toBe(1);
+    expect(view.can).toMatchObject({ verdict: true, ownDisputeOpen: true });
     const { Notification } = models();
     for (const id of [fx.ids.author, fx.ids.coauthor]) expect(await Notification.count({ where: { userId: id, kind: "dispute_opened", stepId: fx.steps[stepKey] } })).toBe(1);
     expect(await Notification.count({ where: { userId: fx.ids.reviewer, kind: "dispute_opened", stepId: fx.steps[stepKey] } })).toBe(0);
