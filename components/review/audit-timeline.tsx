@@ -15,8 +15,7 @@ export function AuditTimeline({ events }: { events: AuditEntry[] }) {
           </span>
           <p className="font-mono text-xs text-stone-500">{new Date(e.at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "medium" })}</p>
           <p>
-            <strong>{e.actorName ?? "Cairn"}</strong> <span className="font-mono text-sm">{e.action}</span> on {e.subjectType}
-            {e.subjectId !== null && ` #${e.subjectId}`}
+            <strong>{e.actorName ?? "Cairn"}</strong> <span className="font-mono text-sm">{e.action}</span> on {e.subjectLabel}
             {e.detail && <span className="text-stone-600"> — {e.detail}</span>}
           </p>
         </li>

@@ -5,6 +5,7 @@ import "server-only";
  */
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
+import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 
 export interface AuditInput {
   proofId: number;
@@ -27,7 +28,18 @@ export interface AuditEntry {
   subjectId: number | null;
   detail: string | null;
   actorName: string | null;
+  /** "step 2.1", "case 3.2" … when the subject is a step or case of the proof, else "step #12". */
+  subjectLabel: string;
   at: string;
+}
+
+/** Numbers of the proof's cases ("3.2") and steps ("3.2.1"), for readable subjects. */
+async function labels(proofId: number): Promise<{ cases: Map<number, string>; steps: Map<number, string> }> {
+  const { Case, Step } = models();
+  const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
+  const cases = new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+  const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
+  return { cases, steps: new Map(steps.map((st) => [st.id, `${cases.get(st.caseId) ?? "?"}.${st.position}`])) };
 }
 
 /** A proof's events, newest first. */
@@ -35,6 +47,9 @@ export async function listProofEvents(proofId: number, limit = 500): Promise<Aud
   const { AuditEvent, User } = models();
   const events = await AuditEvent.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
+  const { cases, steps } = await labels(proofId);
+  const labelOf = (type: string, id: number | null) =>
+    id === null ? type : type === "step" && steps.has(id) ? `step ${steps.get(id)}` : type === "case" && cases.has(id) ? `case ${cases.get(id)}` : `${type} #${id}`;
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
   return events.map((e) => ({
     id: Number(e.id),
@@ -43,6 +58,7 @@ export async function listProofEvents(proofId: number, limit = 500): Promise<Aud
     subjectId: e.subjectId,
     detail: e.detail,
     actorName: e.actorId === null ? null : (names.get(e.actorId) ?? null),
+    subjectLabel: labelOf(e.subjectType, e.subjectId),
     at: e.createdAt.toISOString(),
   }));
 }

@@ -89,7 +89,7 @@ describe("settings and the audit trail", () => {
 
   it("keeps the events of a proof, newest first, with the actor's name", async () => {
     const events = await listProofEvents(fx.proofId);
-    expect(events[0]).toMatchObject({ action: "review.disputed", actorName: "Celia Marwood", subjectType: "step", subjectId: fx.steps["2.1"] });
+    expect(events[0]).toMatchObject({ action: "review.disputed", actorName: "Celia Marwood", subjectType: "step", subjectId: fx.steps["2.1"], subjectLabel: "step 2.1" });
     expect(events.map((e) => e.action).filter((a) => a === "review.disputed")).toHaveLength(2);
   });
 });
