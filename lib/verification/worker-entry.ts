@@ -12,6 +12,18 @@ import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
 import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
 import type { VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
+import { setPriority } from "node:os";
+import { isMainThread } from "node:worker_threads";
+
+// Inside a pool thread, lower this thread's scheduling priority (on Linux, nice is per thread), so
+// the thread answering requests wins the CPU whenever both want it.
+if (!isMainThread) {
+  try {
+    setPriority(10);
+  } catch {
+    // not permitted here: run at normal priority
+  }
+}
 
 function embeddingIn(evidence: unknown): number[] | undefined {
   if (typeof evidence !== "object" || evidence === null) return undefined;

@@ -107,25 +107,29 @@ async function api<T>(url: string, cookie: string, path: string, body: unknown):
   return (await res.json()) as T;
 }
 
-/** GET /api/health every 100 ms until stopped; returns the latencies in ms. */
-function probeHealth(url: string): { stop: () => Promise<number[]> } {
-  const times: number[] = [];
-  let running = true;
-  const loop = (async () => {
-    while (running) {
-      const t = performance.now();
-      await fetch(`${url}/api/health`).then((r) => r.arrayBuffer()).catch(() => undefined);
-      times.push(performance.now() - t);
-      await new Promise((r) => setTimeout(r, 100));
-    }
-  })();
-  return {
-    stop: async () => {
-      running = false;
-      await loop;
-      return times;
-    },
-  };
+/**
+ * GET /api/health every 100 ms for `seconds`, from a child process of its own so that the load
+ * generator's event loop never delays the probe; returns the latencies in ms.
+ */
+function probeHealth(url: string, seconds: number): Promise<number[]> {
+  const code = `
+    const times = [], end = Date.now() + ${seconds * 1000};
+    (async () => {
+      while (Date.now() < end) {
+        const t = performance.now();
+        await fetch(${JSON.stringify(`${url}/api/health`)}).then((r) => r.arrayBuffer()).catch(() => undefined);
+        times.push(performance.now() - t);
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      console.log(JSON.stringify(times));
+    })();`;
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ["-e", code], { stdio: ["ignore", "pipe", "inherit"] });
+    let out = "";
+    child.stdout.on("data", (d: Buffer) => (out += d));
+    child.on("error", reject);
+    child.on("close", () => resolve((JSON.parse(out || "[]") as number[]).sort((a, b) => a - b)));
+  });
 }
 
 async function run(options: BenchOptions): Promise<void> {
@@ -142,12 +146,10 @@ async function run(options: BenchOptions): Promise<void> {
       graph: { format: "edges", text: w.edges.map(([u, v]) => `${u} ${v}`).join("\n") },
     };
     const duration = options.quick ? 5 : 20;
-    const idle = probeHealth(stack.url);
-    await new Promise((r) => setTimeout(r, 2_000));
-    const baseline = (await idle.stop()).sort((a, b) => a - b);
+    const baseline = await probeHealth(stack.url, 3);
     const statuses = new Map<number, number>();
     const times: number[] = [];
-    const probe = probeHealth(stack.url);
+    const probe = probeHealth(stack.url, duration);
     const result = await autocannon({
       url: `${stack.url}/api/proofs/${proof.id}/steps/${step.id}/claims?wait=60`,
       method: "POST",
@@ -162,7 +164,7 @@ async function run(options: BenchOptions): Promise<void> {
           times.push(ms);
         }),
     });
-    const health = (await probe.stop()).sort((a, b) => a - b);
+    const health = await probe;
     times.sort((a, b) => a - b);
     console.log(`verify a claim on G(50, 1/2) (${w.edges.length} edges) through POST …/claims?wait=60, ${CLIENTS} concurrent clients, ${duration} s on loopback (autocannon)`);
     console.log(`  requests: ${result.requests.total} (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(", ")}), errors ${result.errors}, timeouts ${result.timeouts}`);
