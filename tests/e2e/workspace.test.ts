@@ -26,6 +26,10 @@ describe("proof workspace in the browser", () => {
     await page.getByRole("button", { name: "Create proof" }).click();
     await page.waitForURL(/\/proofs\/\d+$/);
     await page.getByRole("heading", { name: "Stars and the golden bound" }).waitFor();
+    await page.getByRole("button", { name: "✎ Edit title and statement" }).click();
+    await page.getByTestId("edit-proof").getByLabel(/^Statement/).fill("Every connected graph $G$ with $\\rho(G) < \\sqrt{5}$ has maximum degree at most $4$.");
+    await page.getByTestId("edit-proof").getByRole("button", { name: "Save" }).click();
+    await page.getByText("Every connected graph").waitFor();
 
     const addCase = page.getByTestId("add-case");
     await addCase.getByLabel("Case title").fill("A vertex of degree at least 5");

@@ -9,6 +9,7 @@ import { CaseTree } from "@/components/proof/case-tree";
 import { AddCaseForm } from "@/components/proof/add-case-form";
 import { ClaimsTable } from "@/components/proof/claims-table";
 import { StateCounts } from "@/components/proof/state-counts";
+import { EditProof } from "@/components/proof/edit-proof";
 import { RoleTag } from "@/components/ui/role-tag";
 import { VerdictCaution } from "@/components/ui/caution";
 import { pageRole } from "./page-access";
@@ -26,6 +27,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
       <section>
         <h1 className="text-3xl font-semibold">{proof.title}</h1>
         <MathMarkdown source={proof.statement} className="mt-4 max-w-prose text-lg" />
+        {editable && <EditProof proofId={proofId} initial={{ title: proof.title, statement: proof.statement }} />}
         <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
         {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
         <CaseTree nodes={overview.cases} options={{ proofId, editable, targets }} />
