@@ -128,7 +128,16 @@ async function runSections(options: BenchOptions): Promise<void> {
   printMachine(options);
   for (const section of SECTIONS) {
     console.log(`\n## ${section.name}`);
-    if (section.run) { await section.run(options); continue; }
+    if (section.run) {
+      // One failing section (a server that would not start) must not hide the figures of the others.
+      try {
+        await section.run(options);
+      } catch (e) {
+        console.log(`section "${section.name}" failed: ${e instanceof Error ? e.message.split("\n")[0] : String(e)}`);
+        process.exitCode = 1;
+      }
+      continue;
+    }
     const tasks = (section.tasks ?? []).filter((t) => (!options.quick || t.quick) && (!options.only || t.id.includes(options.only)));
     console.log(`${pad("workload", 28)} ${pad("task", 44)} ${pad("median ms", 10)} ${pad("RSS/heap MiB", 14)} ${pad("target", 10)} result`);
     for (const task of tasks) {
