@@ -1,3 +1,3 @@
 export default function Loading() {
-  return <p className="text-stone-500">Loading the queue…</p>;
+  return <p className="text-stone-500">Loading…</p>;
 }

@@ -1,0 +1,6 @@
+"use client";
+import { SegmentError } from "@/components/review/segment-error";
+
+export default function ErrorBoundary({ reset }: { error: Error; reset: () => void }) {
+  return <SegmentError reset={reset} what="The captured mail" />;
+}

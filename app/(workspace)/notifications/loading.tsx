@@ -1,0 +1,3 @@
+export default function Loading() {
+  return <p className="text-stone-500">Loading…</p>;
+}
