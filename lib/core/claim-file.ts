@@ -8,7 +8,7 @@ import { array, CLAIM_FORMAT, ClaimError, CLAIMS_FILE_FORMAT, describe, object, 
 /** One entry of a claims file: the claim, or the error that kept it out. */
 export type ClaimEntry =
   | { readonly index: number; readonly path: string; readonly claim: Claim }
-  | { readonly index: number; readonly path: string; readonly error: ClaimError };
+  | { readonly index: number; readonly path: string; readonly error: ClaimError; readonly id?: string };
 
 /**
  * Reads a claims document: one claim, an array of claims, or `{ "format": "cairn-claims/1", "claims": [...] }`.
@@ -36,7 +36,11 @@ function entry(json: unknown, index: number, path: string): ClaimEntry {
   try {
     return { index, path, claim: validateClaim(json, path) };
   } catch (e) {
-    if (e instanceof ClaimError) return { index, path, error: e };
+    if (e instanceof ClaimError) {
+      // Keep the author's label when it is readable, so the report names the claim they know.
+      const id = typeof json === "object" && json !== null ? (json as { id?: unknown }).id : undefined;
+      return typeof id === "string" ? { index, path, error: e, id } : { index, path, error: e };
+    }
     throw e;
   }
 }

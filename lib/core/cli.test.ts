@@ -33,7 +33,7 @@ describe("offline checker", () => {
     const report = checkFile(join(FIXTURES, "malformed.json"));
     expect(report.exitCode).toBe(EXIT_MALFORMED);
     expect(report.lines[0].status).toBe("verified");
-    expect(report.lines[1]).toMatchObject({ status: "malformed", label: "#2" });
+    expect(report.lines[1]).toMatchObject({ status: "malformed", label: "bad-op" });
     expect(report.lines[1].text).toContain("$.claims[1].op");
   });
 

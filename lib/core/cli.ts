@@ -58,7 +58,7 @@ export function checkDocument(json: unknown, source: string, options: CheckOptio
 function checkClaims(json: unknown, source: string, options: CheckOptions): CheckReport {
   const lines: CheckLine[] = [];
   for (const entry of readClaimsDocument(json)) {
-    const label = ("claim" in entry && entry.claim.id) || `#${entry.index + 1}`;
+    const label = ("claim" in entry ? entry.claim.id : entry.id) || `#${entry.index + 1}`;
     if ("error" in entry) {
       lines.push({ label, status: "malformed", text: entry.error.message });
       continue;
