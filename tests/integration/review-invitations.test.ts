@@ -164,6 +164,31 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
   });
 });
 
+describe("GET invitations and DELETE a reviewer's case limits", () => {
+  it("lists invitations for editors only (401, 403 non-member, 403 author who is not the owner)", async () => {
+    const list = () => invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }));
+    await actAs(null);
+    expect((await list()).status).toBe(401);
+    await actAs("outsider");
+    expect((await list()).status).toBe(403);
+    await actAs("coauthor");
+    expect((await list()).status).toBe(403);
+    await actAs("editor");
+    const res = await list();
+    expect(res.status).toBe(200);
+    expect((await res.json()).invitations.find((i: { state: string }) => i.state === "accepted")).toBeTruthy();
+  });
+
+  it("DELETE settings/scopes/[userId]: 401, 404 for someone who is not a reviewer", async () => {
+    const share = (userId: number) => scopes.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), userId: String(userId) }));
+    await actAs(null);
+    expect((await share(fx.ids.reviewer)).status).toBe(401);
+    await actAs("editor");
+    expect((await share(fx.ids.author)).status).toBe(404);
+    expect((await share(fx.ids.reviewer)).status).toBe(200);
+  });
+});
+
 describe("when the mail server is down", () => {
   it("stores the invitation, shows the mail as not sent yet, and sends it on retry", async () => {
     const realSmtp = process.env.SMTP_URL;
