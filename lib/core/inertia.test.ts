@@ -257,6 +257,11 @@ describe("certificates re-check and resist tampering", () => {
     const r = recheckSpectralRadiusBound(g, "=", "2", "verified", d);
     expect(r.status).toBe("refuted");
     expect(r.reason).toMatch(/step 2/);
+    const e = structuredClone(w.certificate!) as SpectralRadiusCertificate & { kind: "inertia" };
+    e.signs = "0" + e.signs!.slice(1);
+    const s = recheckSpectralRadiusBound(g, "=", "2", "verified", e);
+    expect(s.status).toBe("refuted");
+    expect(s.reason).toMatch(/step 1 has pivot sign/);
   });
   it("malformed input gives typed errors", () => {
     expect(() => verdict(path(3), "<", "sqrt(")).toThrow(/column/);

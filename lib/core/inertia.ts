@@ -16,7 +16,7 @@ import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZE
 import { Bound, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
 import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } from "./tree-inertia";
 import { AlgebraicField } from "./number-field";
-import { sparseInertia, PivotStep, ReplayError } from "./sparse-inertia";
+import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
 import { Poly, polyGcd, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
 import { reject, recheck, expectRecord, expectInt } from "./certificate-check";
@@ -27,7 +27,7 @@ const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">="
 
 export type SpectralRadiusCertificate =
   /** Inertia of (at)I − A with no negative value: ρ <= at, and ρ < at when zero = 0. */
-  | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; positive: number; negative: 0; zero: number }
+  | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; signs?: string; positive: number; negative: 0; zero: number }
   /** x^T((at)I − A)x = value <= 0: ρ >= at (ρ > at when value < 0). Entries [vertex, rational]. */
   | { kind: "rayleigh"; at: string; vector: Array<[number, string]>; value: string }
   /**
@@ -90,8 +90,8 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   const r = forest ? treeInertia(g, at, stop, budget) : sparseInertia(g, at, stop, budget);
   const atText = ratToString(at);
   if (r.complete) {
-    const steps = "steps" in r ? (r.steps as PivotStep[]) : undefined;
-    const cert: SpectralRadiusCertificate = { kind: "inertia", at: atText, engine: forest ? "forest" : "sparse", ...(steps ? { steps } : {}), positive: r.positive, negative: 0, zero: r.zero };
+    const sparse = "steps" in r ? { steps: (r as SparseEliminationResult).steps, signs: (r as SparseEliminationResult).signs } : {};
+    const cert: SpectralRadiusCertificate = { kind: "inertia", at: atText, engine: forest ? "forest" : "sparse", ...sparse, positive: r.positive, negative: 0, zero: r.zero };
     return { fact: { rel: r.zero > 0 ? "=" : "<", at }, cert, forest };
   }
   // A probe whose failure is not going to be reported needs no certificate (and no costly re-evaluation).
@@ -233,10 +233,16 @@ function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budg
     r = treeInertia(g, at, "negative", budget);
   } else if (c.engine === "sparse") {
     if (!Array.isArray(c.steps)) reject("certificate.steps must list the elimination order");
-    try { r = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]); } catch (e) {
+    let replayed;
+    try { replayed = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]); } catch (e) {
       if (e instanceof ReplayError) reject(`certificate.steps: ${e.message}`);
       throw e;
     }
+    if (c.signs !== replayed.signs) {
+      const i = typeof c.signs === "string" ? [...replayed.signs].findIndex((x, k) => x !== [...(c.signs as string)][k]) : -1;
+      reject(i >= 0 ? `certificate.signs: step ${i + 1} has pivot sign ${[...replayed.signs][i]}, not ${[...(c.signs as string)][i]}` : "certificate.signs does not match the elimination");
+    }
+    r = replayed;
   } else return reject(`certificate.engine must be "forest" or "sparse"`);
   if (!r.complete || r.negative > 0) reject(`${ratToString(at)}I − A has a negative value (at vertex ${r.stoppedAt ?? "?"}), not the claimed inertia`);
   if (r.positive !== pos || r.zero !== zero) reject(`recomputed inertia (${r.positive}, 0, ${r.zero}) differs from the certificate's (${pos}, 0, ${zero})`);

@@ -27,6 +27,8 @@ export type PivotStep = number | [number, number];
 
 export interface SparseEliminationResult extends EliminationResult {
   steps: PivotStep[];
+  /** Sign of each step's pivot: "+", "-", "0" (empty row) or "±" (2x2 block). */
+  signs: string;
 }
 
 /** A certificate whose elimination order cannot be replayed; the message says which step failed. */
@@ -38,6 +40,12 @@ export class ReplayError extends Error {
 }
 
 interface Entry { v: bigint; s: number }
+
+/** Budget steps charged per entry update when the current minor has the size of d. */
+function costOf(d: bigint): number {
+  const words = (d < 0n ? -d : d).toString(16).length >> 4;
+  return 1 + words + Math.floor((words * words) / 16);
+}
 
 export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, replay?: readonly PivotStep[]): SparseEliminationResult {
   const n = g.n;
@@ -63,6 +71,7 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
   const cur = (e: Entry | undefined): bigint => (e === undefined ? 0n : e.s === t ? e.v : (e.v * D[t]) / D[e.s]);
   const alive = new Uint8Array(n).fill(1);
   const steps: PivotStep[] = [];
+  const signs: string[] = [];
   // L columns for lifting a witness: x_piv = -sum_i (N_ipiv / N_pivpiv) x_i.
   const lcols: Array<{ piv: number; nPP: bigint; col: Array<[number, bigint]> }> = [];
   let positive = 0, negative = 0, zero = 0;
@@ -110,7 +119,7 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     return y;
   };
   const result = (complete: boolean, extra: Partial<EliminationResult> = {}): SparseEliminationResult =>
-    ({ positive, negative, zero, complete, steps, ...extra });
+    ({ positive, negative, zero, complete, steps, signs: signs.join(""), ...extra });
 
   for (let done = 0; done < n; ) {
     let piv: number, partner = -1;
@@ -126,11 +135,14 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     const nPP = cur(diag[piv]);
     const nb: Array<[number, bigint]> = [];
     for (const [i, e] of rows[piv]) nb.push([i, cur(e)]);
-    budget.tick(1 + (nb.length * (nb.length + 1)) / 2);
+    // Each update multiplies and divides numbers about as long as D_t: charge by that length (with a
+    // quadratic term for the superlinear BigInt arithmetic), so growth is paid for in budget steps.
+    const sizeFactor = costOf(Dt);
+    budget.tick(1 + ((nb.length * (nb.length + 1)) / 2) * sizeFactor);
 
     if (nPP === 0n && nb.length === 0) {
       if (partner >= 0) throw new ReplayError(`step ${steps.length + 1}: a 2x2 pivot at vertex ${piv} whose row is empty`);
-      zero++; steps.push(piv); removeVertex(piv); done++;
+      zero++; steps.push(piv); signs.push("0"); removeVertex(piv); done++;
       if (stop === "nonPositive") return result(false, { witness: lift(new Map([[piv, rat(1)]])), witnessValue: ZERO, stoppedAt: piv });
       continue;
     }
@@ -148,13 +160,14 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
         return result(false, { witness: lift(y), witnessValue: rat(-1n, q), stoppedAt: piv });
       }
       eliminatePair(piv, r, nPR, Dt);
-      positive++; negative++; steps.push([piv, r]); done += 2;
+      positive++; negative++; steps.push([piv, r]); signs.push("±"); done += 2;
       continue;
     }
     if (partner >= 0) throw new ReplayError(`step ${steps.length + 1}: a 2x2 pivot at vertex ${piv} whose diagonal entry is not zero`);
     const s = (nPP > 0n ? 1 : -1) * (Dt > 0n ? 1 : -1);
     if (s > 0) positive++; else negative++;
     steps.push(piv);
+    signs.push(s > 0 ? "+" : "-");
     if (stop !== "none") lcols.push({ piv, nPP, col: nb });
     if ((stop === "nonPositive" || stop === "negative") && s < 0)
       return result(false, { witness: lift(new Map([[piv, rat(1)]])), witnessValue: rat(nPP, Dt * q), stoppedAt: piv });
@@ -183,7 +196,7 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     for (const [i, e] of rows[pv]) if (i !== r) others.set(i, [cur(e), 0n]);
     for (const [i, e] of rows[r]) if (i !== pv) others.set(i, [others.get(i)?.[0] ?? 0n, cur(e)]);
     const list = [...others];
-    budget.tick(1 + (list.length * (list.length + 1)) / 2);
+    budget.tick(1 + ((list.length * (list.length + 1)) / 2) * costOf(Dt));
     const D2 = Dt * Dt;
     const updates: Array<[number, number, bigint]> = [];
     for (let a = 0; a < list.length; a++) {

@@ -117,9 +117,10 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       if (F.sign(ac) === 0) return { a, zeroChild: c };
       a = F.sub(a, F.div(F.fromInt(wt[k] * wt[k]), ac));
     }
-    // Large numbers cost more than a step each: tick by size so huge growth ends in "undecided".
+    // Large numbers cost more than a step each (a gcd is quadratic in their length): tick by size so
+    // huge growth ends in "undecided" in bounded time.
     const bits = F.bits(a);
-    if (bits > 256) budget.tick(bits >> 6);
+    if (bits > 256) { const w = bits >> 6; budget.tick(w + ((w * w) >> 1)); }
     return { a, zeroChild: -1 };
   };
   /** Exact values for the subtree of `top` (invariant: an exact vertex has an exact subtree). */
