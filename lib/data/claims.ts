@@ -6,11 +6,14 @@ import { invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
 import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
+import { isVerifying, resumeStale, scheduleVerification, verificationSettled } from "@/lib/data/claim-jobs";
 import type { ClaimPicture } from "@/lib/verification/picture";
 import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
+
+export { verificationSettled };
 
 export interface ClaimView {
   id: number;
@@ -76,46 +79,6 @@ function claimView(c: ClaimRow): ClaimView {
   };
 }
 
-// ---------------------------------------------------------------- background verification
-
-const inFlight = ((globalThis as unknown as { __cairnClaimJobs?: Map<number, Promise<void>> }).__cairnClaimJobs ??= new Map());
-
-/** Verifies a stored claim in the worker pool and stores the verdict; one job per claim at a time. */
-export function scheduleVerification(claimId: number, checkedBy: number): Promise<void> {
-  const running = inFlight.get(claimId);
-  if (running) return running;
-  const job = (async () => {
-    const { Claim } = models();
-    const row = await Claim.findByPk(claimId);
-    if (!row) return;
-    let update: Partial<Record<string, unknown>>;
-    try {
-      const answer = await runInPool({ mode: "verify", claim: JSON.parse(row.input), stepLimit: STEP_LIMIT, picture: true });
-      update = answer.ok
-        ? (() => {
-            const o = answer.outcome!;
-            const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
-            return {
-              status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason + notes,
-              certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
-            };
-          })()
-        : { status: "undecided", method: "input", reason: `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`, certificate: null };
-    } catch (e) {
-      if (!(e instanceof WorkerFailure)) console.error("[cairn] verification job failed", e);
-      update = { status: "undecided", method: "worker", reason: e instanceof WorkerFailure ? e.message : "the verification could not run; re-check to try again", certificate: null };
-    }
-    await Claim.update({ ...update, checkedBy, checkedAt: new Date() }, { where: { id: claimId } });
-  })().finally(() => inFlight.delete(claimId));
-  inFlight.set(claimId, job);
-  return job;
-}
-
-/** Resolves when the claim's current verification (if any) has stored its verdict. */
-export async function verificationSettled(claimId: number): Promise<void> {
-  await inFlight.get(claimId);
-}
-
 /**
  * Waits up to `ms` for the claims' verdicts (the checks still run in the worker pool) and returns
  * the claims as they are then; those not done are still `pending`.
@@ -126,12 +89,6 @@ export async function awaitVerdicts(proofId: number, ids: number[], ms: number):
   await Promise.race([Promise.all(ids.map(verificationSettled)), timeout]);
   clearTimeout(timer);
   return Promise.all(ids.map((id) => getClaim(proofId, id)));
-}
-
-/** Pending claims whose job is not running here (the server restarted meanwhile) are queued again. */
-function resumeStale(rows: ClaimRow[]): void {
-  const stale = Date.now() - 5_000;
-  for (const r of rows) if (r.status === "pending" && !inFlight.has(r.id) && r.updatedAt.getTime() < stale) void scheduleVerification(r.id, r.checkedBy ?? r.createdBy);
 }
 
 // ---------------------------------------------------------------- reads and writes
@@ -217,7 +174,7 @@ export async function getClaim(proofId: number, claimId: number): Promise<ClaimV
 export async function recheck(proofId: number, claimId: number, userId: number): Promise<ClaimView> {
   const { AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
-  if (!inFlight.has(claimId)) {
+  if (!isVerifying(claimId)) {
     await row.update({ status: "pending" });
     await AuditEvent.create({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
     void scheduleVerification(claimId, userId);

@@ -17,7 +17,7 @@ import * as recheckRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/reche
 let proofId: string;
 let stepId: string;
 const named = (text: string) => ({ format: "named", text });
-const claim = (o: object) => ({ format: "cairn-claim/1", ...o });
+const claim = <T extends object>(o: T) => ({ format: "cairn-claim/1", ...o });
 // ρ(K_{1,5}) = √5 exactly (a star with k leaves has spectral radius √k).
 const starBound = claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" });
 const starInTree = claim({ kind: "subgraph", pattern: named("star(4)"), host: named("starlike(1,1,1,2,3)"), induced: false });
@@ -124,7 +124,7 @@ describe("every kind the core offers", () => {
     expect(res.status).toBe(200);
     const claims = (await res.json()).claims as Array<{ kind: string; status: string }>;
     expect(new Set(claims.map((c) => c.kind)).size).toBe(8);
-    expect(claims.map((c) => `${c.kind}: ${c.status}`)).toEqual(all.map((c) => `${(c as { kind: string }).kind}: verified`));
+    expect(claims.map((c) => `${c.kind}: ${c.status}`)).toEqual(all.map((c) => `${c.kind}: verified`));
   });
 });
 
