@@ -139,3 +139,23 @@ export function countCaseStates(tree: CaseNode<CaseView>[]): Record<CaseState, n
   for (const n of flattenCaseTree(tree)) counts[n.state]++;
   return counts;
 }
+
+export interface DeletedCaseView {
+  id: number;
+  title: string;
+  deletedAt: string;
+  /** Steps kept in the database with all their revisions and reviews. */
+  steps: number;
+}
+
+/** Cases deleted from the tree (newest first); their steps, revisions and reviews are kept. */
+export async function listDeletedCases(proofId: number): Promise<DeletedCaseView[]> {
+  const { Case, Step } = models();
+  const all = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "title", "deletedAt"] });
+  const deleted = all.filter((c) => c.deletedAt).sort((a, b) => b.deletedAt!.getTime() - a.deletedAt!.getTime());
+  if (deleted.length === 0) return [];
+  const below = (id: number): number[] => [id, ...all.filter((c) => c.parentId === id).flatMap((c) => below(c.id))];
+  return Promise.all(
+    deleted.map(async (c) => ({ id: c.id, title: c.title, deletedAt: c.deletedAt!.toISOString(), steps: await Step.count({ where: { caseId: below(c.id) } }) })),
+  );
+}

@@ -7,6 +7,7 @@ import { actAs, jsonRequest, params } from "./helpers";
 import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
+import { listDeletedCases } from "@/lib/data/cases";
 import * as proofsRoute from "@/app/api/proofs/route";
 import * as proofRoute from "@/app/api/proofs/[proofId]/route";
 import * as casesRoute from "@/app/api/proofs/[proofId]/cases/route";
@@ -137,6 +138,7 @@ describe("case tree", () => {
     // The history stays: the case row (marked deleted), its step and revision are still stored.
     expect((await models().Case.findByPk(target.id))!.deletedAt).toBeInstanceOf(Date);
     expect(await models().StepRevision.count({ where: { stepId: step.id } })).toBe(1);
+    expect(await listDeletedCases(Number(proofId))).toEqual([expect.objectContaining({ id: target.id, title: target.title, steps: 1 })]);
   });
 
   it("refuses to move a case under its own sub-case (422) and answers 404, 401, 403 on PATCH/DELETE", async () => {

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
-import { getProofOverview } from "@/lib/data/cases";
+import { getProofOverview, listDeletedCases } from "@/lib/data/cases";
 import { listProofClaims } from "@/lib/data/claims";
 import { flattenCaseTree } from "@/lib/proof-tree";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
@@ -10,6 +10,7 @@ import { AddCaseForm } from "@/components/proof/add-case-form";
 import { ClaimsTable } from "@/components/proof/claims-table";
 import { StateCounts } from "@/components/proof/state-counts";
 import { EditProof } from "@/components/proof/edit-proof";
+import { DeletedCases } from "@/components/proof/deleted-cases";
 import { RoleTag } from "@/components/ui/role-tag";
 import { VerdictCaution } from "@/components/ui/caution";
 import { pageRole } from "./page-access";
@@ -18,7 +19,9 @@ export const metadata: Metadata = { title: "Proof" };
 
 export default async function ProofPage({ params }: { params: Promise<{ proofId: string }> }) {
   const { proofId, role } = await pageRole((await params).proofId);
-  const [proof, overview, claims] = await Promise.all([getProofSummary(proofId), getProofOverview(proofId), listProofClaims(proofId)]);
+  const [proof, overview, claims, deleted] = await Promise.all([
+    getProofSummary(proofId), getProofOverview(proofId), listProofClaims(proofId), listDeletedCases(proofId),
+  ]);
   if (!proof) notFound();
   const editable = role === "author";
   const targets = flattenCaseTree(overview.cases).map((c) => ({ id: c.id, number: c.number }));
@@ -32,6 +35,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
         {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
         <CaseTree nodes={overview.cases} options={{ proofId, editable, targets }} />
         {editable && <AddCaseForm proofId={proofId} parentId={null} />}
+        <DeletedCases cases={deleted} />
         <h2 className="mb-3 mt-10 text-xl font-semibold">All claims</h2>
         <div className="mb-3">
           <VerdictCaution />
