@@ -7,8 +7,9 @@
  * and inertia decides each (Sylvester's law of inertia). Rational b: Jacobs–Trevisan on forests
  * (tree-inertia.ts), fraction-free sparse elimination otherwise (sparse-inertia.ts), both with early
  * stops. Irrational b: first rational enclosures lo < b < hi (PD at lo gives ρ < b; a Rayleigh vector
- * at hi gives ρ >= hi > b); if ρ lies inside the enclosure, the characteristic polynomial and Sturm
- * sequences decide (gcd with the bound's polynomial settles ρ = b).
+ * at hi gives ρ >= hi > b); if ρ lies inside the enclosure, forests are decided by the same elimination
+ * over the field Q(b) (number-field.ts), other graphs by the characteristic polynomial and Sturm
+ * sequences (gcd with the bound's polynomial settles ρ = b), up to CHARPOLY_FALLBACK_LIMIT vertices.
  */
 import { Graph, GraphError, adjacency } from "./graph";
 import { Budget, Verdict, withinBudget } from "./verdict";

@@ -5,8 +5,9 @@
  * (the zero polynomial is []). Sturm's theorem (J. C. F. Sturm, 1829; see e.g. Basu, Pollack & Roy,
  * "Algorithms in Real Algebraic Geometry", 2006, Thm. 2.50): for a square-free p with Sturm sequence
  * p0 = p, p1 = p', p_{k+1} = -rem(p_{k-1}, p_k), and a < b with p(a), p(b) != 0, the number of real
- * roots of p in (a, b) is V(a) - V(b), V counting sign changes. Remainders are computed over Z by
- * pseudo-division and scaled by POSITIVE factors only, which keeps every sign, hence every count.
+ * roots of p in (a, b) is V(a) - V(b), V counting sign changes. The sequence is computed over Z as a
+ * subresultant remainder sequence whose members differ from the signed remainders by tracked signs
+ * and positive factors only, which keeps every sign, hence every count.
  */
 import { Budget } from "./verdict";
 import { absBig, gcd, Rational } from "./rational";
@@ -88,27 +89,6 @@ export function content(p: Poly): bigint {
 export function primitive(p: Poly): Poly {
   const g = content(p);
   return g <= 1n ? p : p.map((c) => c / g);
-}
-
-/**
- * Remainder of a by b up to a POSITIVE factor: lc(b)^k * a = q*b + r with k = deg a - deg b + 1;
- * if lc(b)^k < 0 the result is negated so that sign(r) = sign(a mod b) everywhere.
- */
-export function positiveRemainder(a: Poly, b: Poly, budget?: Budget): Poly {
-  if (b.length === 0) throw new RangeError("polynomial division by zero");
-  let r = a.slice();
-  const lb = lead(b), db = deg(b);
-  let k = 0;
-  while (r.length > 0 && deg(r) >= db) {
-    budget?.tick(r.length);
-    const lr = lead(r), shift = deg(r) - db;
-    r = r.map((c) => c * lb);
-    for (let j = 0; j <= db; j++) r[j + shift] -= lr * b[j];
-    r = trim(r);
-    k++;
-  }
-  const negate = lb < 0n && k % 2 === 1;
-  return primitive(negate ? r.map((c) => -c) : r);
 }
 
 /**
