@@ -296,6 +296,23 @@ describe("cross-check against floating eigenvalues (mathjs eigs) on seeded rando
     }
     expect(compared).toBeGreaterThan(250);
   });
+  it("full inertia of random multigraphs with loops matches float eigenvalue counts, zero pivots included (mathjs eigs)", () => {
+    const next = lcg(4242);
+    for (let t = 0; t < 60; t++) {
+      const n = 3 + next(8);
+      const edges = [];
+      for (let i = 0; i < n; i++) for (let j = i; j < n; j++) if (next(3) === 0) edges.push({ u: i, v: j, m: 1 + next(2) });
+      const g = makeGraph(n, edges);
+      const ev = floatEigenvalues(g);
+      for (const b of [0, 1, 2]) {
+        if (ev.some((x) => Math.abs(x - b) < 1e-6 && Math.abs(x - b) > 1e-12)) continue; // ambiguous in floats
+        const r = sparseInertia(g, rat(b), "none", new Budget());
+        expect([r.positive, r.negative, r.zero], `t = ${t}, b = ${b}`).toEqual([
+          ev.filter((x) => x < b - 1e-9).length, ev.filter((x) => x > b + 1e-9).length, ev.filter((x) => Math.abs(x - b) <= 1e-9).length,
+        ]);
+      }
+    }
+  });
   it("full inertia of random graphs matches float eigenvalue counts (mathjs eigs)", () => {
     for (let seed = 1; seed <= 60; seed++) {
       const g = randomGraph(4 + (seed % 9), 0.4, 9000 + seed);
