@@ -71,6 +71,12 @@ describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
       }
     }
   });
+  it("huge multiplicities stay exact: K_{1,3} with every edge of multiplicity 2^30 has ρ = 2^30·√3 (ρ(K_{1,3}) = √3, Brouwer & Haemers §1.4.2, scaled)", () => {
+    const w = 2 ** 30;
+    const g = makeGraph(4, [{ u: 0, v: 1, m: w }, { u: 0, v: 2, m: w }, { u: 0, v: 3, m: w }]);
+    expect(verdict(g, "=", `sqrt(${3n * BigInt(w) * BigInt(w)})`).status).toBe("verified");
+    expect(verdict(g, "<", `${Math.ceil(w * Math.sqrt(3))}`).status).toBe("verified");
+  });
   it("interval-first and exact-only runs agree on larger random trees, where zero pivots occur at b = 0, 1, 2 (common practice)", () => {
     for (const seed of [11, 12, 13]) {
       const g = randomTree(3000, seed);

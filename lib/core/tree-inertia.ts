@@ -115,7 +115,8 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       if (!isChild(v, c)) continue;
       const ac = exact[c]!;
       if (F.sign(ac) === 0) return { a, zeroChild: c };
-      a = F.sub(a, F.div(F.fromInt(wt[k] * wt[k]), ac));
+      const w = F.fromInt(wt[k]); // w^2 formed in the field: exact even beyond 2^53
+      a = F.sub(a, F.div(F.mul(w, w), ac));
     }
     // Large numbers cost more than a step each (a gcd is quadratic in their length): tick by size so
     // huge growth ends in "undecided" in bounded time.
@@ -156,6 +157,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
         if (!(lo[c] > 0 || hi[c] < 0)) { needExact = true; break; }
         // w^2/a over [l, h] not containing 0 is [w^2/h, w^2/l] (decreasing on each side of 0).
         const w2 = wt[k] * wt[k];
+        if (w2 > Number.MAX_SAFE_INTEGER) { needExact = true; break; } // w^2 would be rounded
         aLo = nextDown(aLo - nextUp(w2 / lo[c]));
         aHi = nextUp(aHi - nextDown(w2 / hi[c]));
       }
