@@ -5,10 +5,11 @@ import { Budget } from "./verdict";
 import { rat } from "./rational";
 import { inertia, recheckSpectralRadiusBound, spectralRadiusBound, type Relation, type SpectralRadiusCertificate } from "./inertia";
 import { treeInertia, treeInertiaOver } from "./tree-inertia";
-import { AlgebraicField } from "./number-field";
+import { AlgebraicField, RATIONALS } from "./number-field";
+import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { parseBound, type Bound } from "./bound";
 import { sparseInertia } from "./sparse-inertia";
-import { path, cycle, star, complete, completeBipartite, dynkinD, dynkinE, affineD, affineE, starlike } from "./constructors";
+import { path, cycle, star, complete, completeBipartite, dynkinD, dynkinE, affineD, affineE, starlike, disjointUnion } from "./constructors";
 
 /** LCG with the "Numerical Recipes" constants, as in the benchmark workload description. */
 function lcg(seed: number) {
@@ -214,6 +215,45 @@ describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)",
   });
 });
 
+describe("irrational bounds on larger graphs with cycles: sparse elimination over Q(b)", () => {
+  it("over Q it agrees with the fraction-free engine on PD/PSD decisions (random graphs)", () => {
+    for (let seed = 1; seed <= 40; seed++) {
+      const g = randomGraph(4 + (seed % 9), 0.35, 3000 + seed);
+      for (const b of [rat(1), rat(2), rat(5, 2), rat(3)]) {
+        for (const stop of ["nonPositive", "negative"] as const) {
+          const f = fieldSparseDefiniteness(g, RATIONALS, b, stop, new Budget());
+          const s = sparseInertia(g, b, stop, new Budget());
+          expect(f.complete, `seed ${seed} b ${b.num}/${b.den} ${stop}`).toBe(s.complete);
+          if (s.complete) expect([f.positive, f.zero]).toEqual([s.positive, s.zero]);
+        }
+      }
+    }
+  });
+  it("over Q(b) it matches float eigenvalues on random graphs (mathjs eigs, far from b)", () => {
+    const bounds = ["sqrt(2)", "sqrt(5)", "2cos(pi/7)", "sqrt(2+sqrt(5))", "sqrt(7)"];
+    for (let seed = 1; seed <= 30; seed++) {
+      const g = randomGraph(4 + (seed % 8), 0.4, 6000 + seed);
+      const rho = Math.max(...floatEigenvalues(g));
+      const b = parseBound(bounds[seed % bounds.length]) as Bound & { kind: "algebraic" };
+      if (Math.abs(rho - b.approx) < 1e-9) continue;
+      const F = new AlgebraicField(b);
+      expect(fieldSparseDefiniteness(g, F, F.generator, "nonPositive", new Budget()).complete, `seed ${seed}`).toBe(rho < b.approx);
+    }
+  });
+  it("K_{2,3} + C_200 (205 vertices, above the characteristic-polynomial limit) has ρ = sqrt 6 exactly (Brouwer & Haemers §1.4.2, §1.4.3)", () => {
+    const g = disjointUnion(completeBipartite(2, 3), cycle(200));
+    const v = verdict(g, "=", "sqrt(6)");
+    expect(v.status).toBe("verified");
+    expect(v.certificate!.kind).toBe("algebraic-sparse");
+    expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", v.certificate).status).toBe("verified");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-sparse" };
+    c.zero = 0; c.positive = 205;
+    expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", c).status).toBe("refuted");
+    expect(verdict(g, "<", "sqrt(6)").status).toBe("refuted");
+    expect(verdict(disjointUnion(completeBipartite(2, 3), cycle(200)), "<", "sqrt(7)").status).toBe("verified");
+  });
+});
+
 describe("certificates re-check and resist tampering", () => {
   const cases: Array<[Graph, Relation, string]> = [
     [affineE8, "=", "2"], [dynkinE(8), "<", "2"], [starlike([1, 2, 6]), ">", "2"], [cycle(7), "=", "2"],
@@ -231,7 +271,7 @@ describe("certificates re-check and resist tampering", () => {
       const wrong = recheckSpectralRadiusBound(g, op, b, v.status === "verified" ? "refuted" : "verified", v.certificate);
       expect(wrong.status).toBe("refuted");
     }
-    expect([...kinds].sort()).toEqual(["algebraic-tree", "inertia", "rayleigh", "sturm"]);
+    expect([...kinds].sort()).toEqual(["algebraic-tree", "inertia", "rayleigh", "sturm"]); // algebraic-sparse: see above
   });
   it("a Sturm certificate with a changed coefficient or count is rejected", () => {
     const g = completeBipartite(2, 3);

@@ -17,6 +17,7 @@ import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZE
 import { Bound, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
 import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } from "./tree-inertia";
 import { AlgebraicField } from "./number-field";
+import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
 import { Poly, polyGcd, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
@@ -36,7 +37,7 @@ export type SpectralRadiusCertificate =
    * positive and zero values (complete run), or the vertex whose value is negative (sign -1) or,
    * for the "nonPositive" rule, non-positive (sign 0 or -1). The re-check repeats the elimination.
    */
-  | { kind: "algebraic-tree"; stop: "nonPositive" | "negative"; complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 }
+  | { kind: "algebraic-tree" | "algebraic-sparse"; stop: "nonPositive" | "negative"; complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 }
   /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
 
@@ -113,6 +114,10 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
         : `A matrix congruent to ${cert.at}I − A has ${cert.positive} positive and ${cert.zero} zero diagonal values and no negative one, so ${cert.at}I − A is positive semidefinite and singular: λ_max(A) = ρ = ${cert.at}.`;
     case "rayleigh":
       return `The vector x in the certificate (support ${cert.vector.length}) has xᵀ(${cert.at}I − A)x = ${cert.value} ${cert.value.startsWith("-") ? "< 0" : "≤ 0"}, so the Rayleigh quotient xᵀAx/xᵀx is ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at} and ρ ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at}.`;
+    case "algebraic-sparse":
+      return cert.complete
+        ? `Minimum-degree elimination of bI − A with exact arithmetic in Q(b) has ${cert.positive} positive pivots and ${cert.zero} zero row(s) and no negative pivot, so bI − A is positive ${cert.zero ? "semidefinite and singular: ρ = b" : "definite: ρ < b"} (Sylvester's law of inertia, Perron–Frobenius).`
+        : `Minimum-degree elimination of bI − A in Q(b) reaches a ${cert.sign === -1 ? "negative pivot (or a zero pivot with a non-zero row)" : "zero pivot"} at vertex ${cert.stoppedAt} after positive pivots only, so bI − A is not positive ${cert.sign === -1 ? "semidefinite: ρ > b" : "definite: ρ ≥ b"}.`;
     case "algebraic-tree":
       return cert.complete
         ? `Jacobs–Trevisan elimination of bI − A with exact arithmetic in Q(b) gives ${cert.positive} positive and ${cert.zero} zero values and no negative one, so bI − A is positive ${cert.zero ? "semidefinite and singular: ρ = b" : "definite: ρ < b"} (Sylvester's law of inertia, Perron–Frobenius).`
@@ -147,25 +152,33 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
       if (above.fact.rel !== "<") return verdictFrom(">", above.cert, methodOf(above.forest), [`b lies below the rational ${ratToString(hi)}`]);
     }
     if (isForest(g)) {
-      const { rel, cert } = algebraicTree(g, b, stop, budget);
+      const { rel, cert } = algebraicElimination(g, b, stop, budget);
       return verdictFrom(rel, cert, "tree inertia over Q(b) (Jacobs–Trevisan 2011, exact algebraic arithmetic)");
     }
-    if (g.n > CHARPOLY_FALLBACK_LIMIT)
-      return { status: "undecided", statement, method: "exact inertia at rational enclosures", reason: `ρ lies within 2^-50 of ${b.text} and the graph has ${g.n} > ${CHARPOLY_FALLBACK_LIMIT} vertices, too many for the characteristic-polynomial fallback.` };
+    if (g.n > CHARPOLY_FALLBACK_LIMIT) {
+      const { rel, cert } = algebraicElimination(g, b, stop, budget);
+      return verdictFrom(rel, cert, "sparse elimination over Q(b) (minimum degree, exact algebraic arithmetic)");
+    }
     const cert = sturmCertificate(g, b, budget);
     const rel: Relation = cert.rootsAbove > 0 ? ">" : cert.boundIsEigenvalue ? "=" : "<";
     return verdictFrom(rel, cert, "characteristic polynomial and Sturm sequences");
   });
 }
 
-/** Exact Jacobs–Trevisan over Q(b): what it proves about ρ versus b, and the certificate. */
-function algebraicTree(g: Graph, b: Bound & { kind: "algebraic" }, stop: StopRule, budget: Budget): { rel: Relation; cert: SpectralRadiusCertificate & { kind: "algebraic-tree" } } {
+type AlgebraicCertificate = SpectralRadiusCertificate & { kind: "algebraic-tree" | "algebraic-sparse" };
+
+/** Exact elimination over Q(b) (Jacobs–Trevisan on forests, sparse otherwise): the fact about ρ versus b, and the certificate. */
+function algebraicElimination(g: Graph, b: Bound & { kind: "algebraic" }, stop: StopRule, budget: Budget): { rel: Relation; cert: AlgebraicCertificate } {
   const F = new AlgebraicField(b, budget);
-  const r = treeInertiaOver(g, F, F.generator, stop, budget);
   const st = stop === "negative" ? "negative" : "nonPositive";
-  if (r.complete) return { rel: r.zero > 0 ? "=" : "<", cert: { kind: "algebraic-tree", stop: st, complete: true, positive: r.positive, zero: r.zero } };
-  const sg = F.sign(r.witnessValue!) < 0 ? -1 : 0;
-  return { rel: sg < 0 ? ">" : ">=", cert: { kind: "algebraic-tree", stop: st, complete: false, positive: 0, zero: 0, stoppedAt: r.stoppedAt, sign: sg } };
+  let out: { complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 };
+  const kind = isForest(g) ? "algebraic-tree" : "algebraic-sparse";
+  if (kind === "algebraic-tree") {
+    const r = treeInertiaOver(g, F, F.generator, st, budget);
+    out = r.complete ? r : { ...r, sign: F.sign(r.witnessValue!) < 0 ? -1 : 0 };
+  } else out = fieldSparseDefiniteness(g, F, F.generator, st, budget);
+  if (out.complete) return { rel: out.zero > 0 ? "=" : "<", cert: { kind, stop: st, complete: true, positive: out.positive, zero: out.zero } };
+  return { rel: out.sign! < 0 ? ">" : ">=", cert: { kind, stop: st, complete: false, positive: 0, zero: 0, stoppedAt: out.stoppedAt, sign: out.sign } };
 }
 
 function boundIsRootOf(f: Poly, b: Bound & { kind: "algebraic" }, budget: Budget): boolean {
@@ -209,9 +222,9 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
       const at = parseCertRational(c.at, "certificate.at");
       const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : recheckRayleigh(g, at, c, budget);
       rel = relativeTo(fact, b.kind === "rational" ? cmp(at, b.value) : compareToBound(at, b));
-    } else if (c.kind === "algebraic-tree") {
-      if (b.kind !== "algebraic") reject("an algebraic-tree certificate needs an irrational bound");
-      rel = recheckAlgebraicTree(g, b, c, budget);
+    } else if (c.kind === "algebraic-tree" || c.kind === "algebraic-sparse") {
+      if (b.kind !== "algebraic") reject(`an ${c.kind} certificate needs an irrational bound`);
+      rel = recheckAlgebraic(g, b, c, budget);
     } else if (c.kind === "sturm") {
       if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
       rel = recheckSturm(g, b, c, budget);
@@ -267,11 +280,10 @@ function recheckRayleigh(g: Graph, at: Rational, c: Record<string, unknown>, bud
   return { rel: sign(q) < 0 ? ">" : ">=", at };
 }
 
-function recheckAlgebraicTree(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
-  if (!isForest(g)) reject("an algebraic-tree certificate needs a forest");
+function recheckAlgebraic(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
   if (c.stop !== "negative" && c.stop !== "nonPositive") reject(`certificate.stop must be "negative" or "nonPositive"`);
-  const { rel, cert } = algebraicTree(g, b, c.stop, budget);
-  for (const key of ["complete", "positive", "zero", "stoppedAt", "sign"] as const)
+  const { rel, cert } = algebraicElimination(g, b, c.stop, budget);
+  for (const key of ["kind", "complete", "positive", "zero", "stoppedAt", "sign"] as const)
     if (c[key] !== cert[key]) reject(`certificate.${key} is ${JSON.stringify(c[key])}, the elimination gives ${JSON.stringify(cert[key])}`);
   return rel;
 }
