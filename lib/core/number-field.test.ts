@@ -34,6 +34,16 @@ describe("exact arithmetic in Q(b)", () => {
     const [lo, hi] = F.enclosure(b)!;
     expect(lo <= 2 * Math.cos(Math.PI / 7) && 2 * Math.cos(Math.PI / 7) <= hi).toBe(true);
   });
+  it("non-monic defining polynomials: sqrt(7/2) is a root of 2x^2 - 7, so 2b^2 = 7 and b^3 = (7/2) b", () => {
+    for (const text of ["sqrt(7/2)", "root(2x^2-7, 1, 2)"]) {
+      const F = field(text);
+      const b = F.generator;
+      const b2 = F.mul(b, b);
+      expect(F.sign(F.sub(F.mul(F.fromInt(2), b2), F.fromInt(7))), text).toBe(0);
+      expect(F.sign(F.sub(F.mul(F.fromInt(2), F.mul(b2, b)), F.mul(F.fromInt(7), b))), text).toBe(0);
+      expect(F.sign(F.sub(F.div(F.fromInt(7), b), F.mul(F.fromInt(2), b))), text).toBe(0); // 7/b = 2b
+    }
+  });
   it("division by zero is refused", () => {
     const F = field("sqrt(2)");
     const b = F.generator;
