@@ -38,3 +38,15 @@ export function buildCaseTree<T extends CaseRow>(rows: readonly T[]): CaseNode<T
 export function flattenCaseTree<T extends CaseRow>(tree: CaseNode<T>[]): CaseNode<T>[] {
   return tree.flatMap((n) => [n, ...flattenCaseTree(n.children)]);
 }
+
+/**
+ * The part of a numbered tree a reader may see: visible cases keep their numbers and their visible
+ * descendants; an invisible case is replaced by its visible descendants. `null` means everything.
+ */
+export function pruneCaseTree<T extends CaseRow>(tree: CaseNode<T>[], visible: ReadonlySet<number> | null): CaseNode<T>[] {
+  if (visible === null) return tree;
+  return tree.flatMap((n) => {
+    const children = pruneCaseTree(n.children, visible);
+    return visible.has(n.id) ? [{ ...n, children }] : children;
+  });
+}

@@ -1,6 +1,6 @@
 import "server-only";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, type CaseNode } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, pruneCaseTree, type CaseNode } from "@/lib/proof-tree";
 import {
   caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ProofState, type ReviewFact, type StepFacts,
 } from "@/lib/review/states";
@@ -66,9 +66,10 @@ export interface ProofOverview {
 }
 
 /** The case tree with the counts per case state and the proof's derived state. */
-export async function getProofOverview(proofId: number): Promise<ProofOverview> {
+export async function getProofOverview(proofId: number, visible: ReadonlySet<number> | null = null): Promise<ProofOverview> {
   const { tree, facts, required } = await loadTree(proofId);
-  return { cases: tree, counts: countCaseStates(tree), proofState: proofState(facts, required) };
+  const shown = pruneCaseTree(tree, visible);
+  return { cases: shown, counts: countCaseStates(shown), proofState: proofState(facts, required) };
 }
 
 async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {

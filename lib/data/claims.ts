@@ -204,10 +204,12 @@ export interface ClaimRowView {
 }
 
 /** Every claim of the proof's live cases, with the number of its step (for the overview table). */
-export async function listProofClaims(proofId: number): Promise<ClaimRowView[]> {
+export async function listProofClaims(proofId: number, visible: ReadonlySet<number> | null = null): Promise<ClaimRowView[]> {
   const { Step, Claim } = models();
-  const cases = await liveCases(proofId);
-  const numbered = new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]));
+  const all = await liveCases(proofId);
+  // Numbering uses every live case; the listing only the cases this reader may see.
+  const cases = visible === null ? all : all.filter((c) => visible.has(c.id));
+  const numbered = new Map(flattenCaseTree(buildCaseTree(all.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]));
   const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
   if (steps.length === 0) return [];
   const place = new Map<number, string>();

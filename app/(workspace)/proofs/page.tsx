@@ -11,7 +11,12 @@ export default async function ProofsPage() {
   const proofs = await listProofsForUser(user.id);
   return (
     <main>
-      <h1 className="text-3xl font-semibold">Your proofs</h1>
+      <div className="flex items-center justify-between gap-4">
+        <h1 className="text-3xl font-semibold">Your proofs</h1>
+        <Link href="/proofs/new" className="rounded bg-lichen-600 px-4 py-2 font-semibold text-white hover:bg-lichen-700">
+          Start a proof
+        </Link>
+      </div>
       {proofs.length === 0 ? (
         <p className="mt-6 text-stone-600">You are not a member of any proof yet. An editor or author can add you.</p>
       ) : (

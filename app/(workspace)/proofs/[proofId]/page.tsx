@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getProofOverview, listDeletedCases } from "@/lib/data/cases";
@@ -13,14 +14,20 @@ import { EditProof } from "@/components/proof/edit-proof";
 import { DeletedCases } from "@/components/proof/deleted-cases";
 import { RoleTag } from "@/components/ui/role-tag";
 import { VerdictCaution } from "@/components/ui/caution";
+import { ProofExportsCard } from "@/components/export/proof-exports-card";
+import { listExports } from "@/lib/data/exports";
+import { visibleCaseIds } from "@/lib/data/reviews";
 import { pageRole } from "./page-access";
 
 export const metadata: Metadata = { title: "Proof" };
 
 export default async function ProofPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role } = await pageRole((await params).proofId);
-  const [proof, overview, claims, deleted] = await Promise.all([
-    getProofSummary(proofId), getProofOverview(proofId), listProofClaims(proofId), listDeletedCases(proofId),
+  const { proofId, role, user } = await pageRole((await params).proofId);
+  // A reviewer invited to chosen cases sees those cases only (and no whole-proof exports).
+  const visible = await visibleCaseIds(proofId, user.id);
+  const [proof, overview, claims, deleted, exports] = await Promise.all([
+    getProofSummary(proofId), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
+    visible === null ? listExports(proofId) : Promise.resolve(null),
   ]);
   if (!proof) notFound();
   const editable = role === "author";
@@ -44,6 +51,11 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
       </section>
       <aside className="space-y-6">
         <StateCounts counts={overview.counts} proofState={overview.proofState} />
+        <nav className="flex flex-col gap-1 text-sm" aria-label="This proof">
+          <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">Members and reviewers</Link>
+          <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">Timeline</Link>
+        </nav>
+        {exports && <ProofExportsCard proofId={proofId} exports={exports} />}
         <div>
           <h2 className="font-semibold">Members</h2>
           <ul className="mt-2 space-y-1 text-sm">

@@ -1,6 +1,7 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { getProofOverview } from "@/lib/data/cases";
+import { visibleCaseIds } from "@/lib/data/reviews";
 import { createCase } from "@/lib/data/case-edits";
 import { createCaseSchema } from "@/lib/validations/case";
 
@@ -9,8 +10,8 @@ type Context = { params: Promise<{ proofId: string }> };
 /** The case tree, numbered, with each case's derived state, the counts per state and the proof state; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  await requireProofRole(proofId);
-  return Response.json(await getProofOverview(proofId));
+  const { user } = await requireProofRole(proofId);
+  return Response.json(await getProofOverview(proofId, await visibleCaseIds(proofId, user.id)));
 });
 
 /** Adds a case (top level, or under `parentId`) at the end of its siblings; authors only. */

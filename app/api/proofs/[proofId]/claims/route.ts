@@ -1,12 +1,13 @@
 import { idParam, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { listProofClaims } from "@/lib/data/claims";
+import { visibleCaseIds } from "@/lib/data/reviews";
 
 type Context = { params: Promise<{ proofId: string }> };
 
 /** Every claim of the proof with its verdict and the number of its step; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  await requireProofRole(proofId);
-  return Response.json({ claims: await listProofClaims(proofId) });
+  const { user } = await requireProofRole(proofId);
+  return Response.json({ claims: await listProofClaims(proofId, await visibleCaseIds(proofId, user.id)) });
 });

@@ -11,6 +11,8 @@ import { ClaimForm } from "@/components/claims/claim-form";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { orNotFound, pageRole } from "../../page-access";
+import { requireStepAccess } from "@/lib/data/reviews";
+import { AppError, notFound as notFoundError } from "@/lib/errors";
 
 export const metadata: Metadata = { title: "Step" };
 
@@ -18,6 +20,10 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   const p = await params;
   const { proofId, user, role } = await pageRole(p.proofId);
   const stepId = Number(p.stepId);
+  // A reviewer invited to chosen cases sees only their steps; for anyone else this is the same membership check.
+  await orNotFound(requireStepAccess(proofId, Number.isInteger(stepId) ? stepId : 0).catch((e) => {
+    throw e instanceof AppError && e.status === 403 ? notFoundError("This step") : e;
+  }));
   const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
   const claims = await listStepClaims(step.id);
   const isAuthor = role === "author";

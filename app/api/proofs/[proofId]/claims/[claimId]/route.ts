@@ -1,6 +1,7 @@
 import { route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { getClaim } from "@/lib/data/claims";
+import { requireStepAccess } from "@/lib/data/reviews";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; claimId: string }> };
@@ -9,5 +10,7 @@ type Context = { params: Promise<{ proofId: string; claimId: string }> };
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, claimId } = await routeIds(params);
   await requireProofRole(proofId);
-  return Response.json({ claim: await getClaim(proofId, claimId) });
+  const claim = await getClaim(proofId, claimId);
+  await requireStepAccess(proofId, claim.stepId); // a reviewer of chosen cases sees only those
+  return Response.json({ claim });
 });

@@ -1,5 +1,5 @@
 import { route } from "@/lib/http";
-import { requireProofRole } from "@/lib/session";
+import { requireStepAccess } from "@/lib/data/reviews";
 import { getStep } from "@/lib/data/steps";
 import { listStepClaims } from "@/lib/data/claims";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
@@ -9,7 +9,7 @@ type Context = { params: Promise<{ proofId: string; stepId: string }> };
 /** A step: its latest revision, its history (without bodies) and its claims; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
-  await requireProofRole(proofId);
+  await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   const step = await getStep(proofId, stepId);
   return Response.json({ step, claims: await listStepClaims(stepId) });
 });

@@ -1,5 +1,6 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
+import { requireStepAccess } from "@/lib/data/reviews";
 import { attachClaims, awaitVerdicts, listStepClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
 import { attachClaimsSchema } from "@/lib/validations/claim";
@@ -10,7 +11,7 @@ type Context = { params: Promise<{ proofId: string; stepId: string }> };
 /** The step's claims with their verdicts (poll this while any is `pending`); any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
-  await requireProofRole(proofId);
+  await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   await stepInProof(proofId, stepId);
   return Response.json({ claims: await listStepClaims(stepId) });
 });

@@ -1,5 +1,6 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
+import { requireStepAccess } from "@/lib/data/reviews";
 import { getStep, saveRevision } from "@/lib/data/steps";
 import { saveRevisionSchema } from "@/lib/validations/step";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
@@ -9,7 +10,7 @@ type Context = { params: Promise<{ proofId: string; stepId: string }> };
 /** The step's revisions, newest first (numbers, authors, bases and times); any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
-  await requireProofRole(proofId);
+  await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   return Response.json({ revisions: (await getStep(proofId, stepId)).revisions });
 });
 

@@ -1,5 +1,5 @@
 import { route } from "@/lib/http";
-import { requireProofRole } from "@/lib/session";
+import { requireStepAccess } from "@/lib/data/reviews";
 import { getRevision } from "@/lib/data/steps";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
@@ -8,6 +8,6 @@ type Context = { params: Promise<{ proofId: string; stepId: string; number: stri
 /** One revision of a step, with its Markdown; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId, number } = await routeIds(params);
-  await requireProofRole(proofId);
+  await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   return Response.json({ revision: await getRevision(proofId, stepId, number) });
 });
