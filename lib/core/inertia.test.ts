@@ -309,6 +309,22 @@ describe("certificates re-check and resist tampering", () => {
     expect(s.status).toBe("refuted");
     expect(s.reason).toMatch(/step 1 has pivot sign/);
   });
+  it("malformed certificates are refuted with a message, never a raw exception", () => {
+    const junk: unknown[] = [
+      null, 5, "x", [], {}, { kind: "inertia" }, { kind: "inertia", at: 2, engine: "sparse" },
+      { kind: "inertia", at: "2", engine: "sparse", steps: [{}, "a", null], positive: 6, negative: 0, zero: 0 },
+      { kind: "inertia", at: "2", engine: "sparse", steps: "0,1", positive: 6, negative: 0, zero: 0 },
+      { kind: "inertia", at: "2", engine: "forest", positive: 6, negative: 0, zero: 0 },
+      { kind: "rayleigh", at: "2", vector: [[99, "1"]], value: "0" }, { kind: "rayleigh", at: "2", vector: [[0, 1]], value: "0" },
+      { kind: "rayleigh", at: "2/0", vector: [[0, "1"]], value: "0" }, { kind: "sturm", charpoly: "1" },
+      { kind: "algebraic-tree", stop: "x" }, { kind: "algebraic-sparse", stop: "negative" },
+    ];
+    for (const c of junk) {
+      const r = recheckSpectralRadiusBound(cycle(6), "=", "2", "verified", c);
+      expect(r.status, JSON.stringify(c)).toBe("refuted");
+      expect(r.reason).toMatch(/certificate/);
+    }
+  });
   it("malformed input gives typed errors", () => {
     expect(() => verdict(path(3), "<", "sqrt(")).toThrow(/column/);
     expect(() => verdict(makeGraph(0, []), "<", "2")).toThrow(/no vertices/);

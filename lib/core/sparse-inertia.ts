@@ -126,6 +126,8 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     if (replay) {
       const st = replay[steps.length];
       if (st === undefined) throw new ReplayError(`the elimination order stops after ${steps.length} steps with ${n - done} vertices left`);
+      if (typeof st !== "number" && !(Array.isArray(st) && st.length === 2))
+        throw new ReplayError(`step ${steps.length + 1} must be a vertex or a pair [vertex, vertex], got ${JSON.stringify(st)}`);
       const [a, c] = typeof st === "number" ? [st, -1] : st;
       for (const x of c >= 0 ? [a, c] : [a])
         if (!Number.isInteger(x) || x < 0 || x >= n || !alive[x]) throw new ReplayError(`step ${steps.length + 1}: vertex ${x} is not a remaining vertex`);
