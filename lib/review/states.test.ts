@@ -18,6 +18,12 @@ describe("step status", () => {
     expect(stepStatus(step({ reviews: [approve(9, 2)] }), 1).approved).toBe(false);
   });
 
+  it("does not count the approval of a reviewer whose own dispute on the step is unresolved", () => {
+    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "open")] }), 1)).toMatchObject({ approvals: 0, approved: false });
+    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "closed")] }), 1)).toMatchObject({ approvals: 1, approved: true });
+    expect(stepStatus(step({ reviews: [approve(2, 2), dispute(1, "answered")] }), 1)).toMatchObject({ approvals: 1, openDisputes: 1, settled: false });
+  });
+
   it("needs the required number of approvals", () => {
     expect(stepStatus(step({ reviews: [approve(1, 2)] }), 2).approved).toBe(false);
     expect(stepStatus(step({ reviews: [approve(1, 2), approve(3, 2)] }), 2).approved).toBe(true);

@@ -49,10 +49,12 @@ export interface StepStatus {
 /** Approvals count once per reviewer, at the latest revision only; earlier ones are stale. */
 export function stepStatus(step: StepFacts, requiredApprovals: number): StepStatus {
   const authors = new Set(step.authorIds ?? []);
+  // A reviewer who still has an unresolved dispute on the step does not approve it at the same time.
+  const disputing = new Set(step.reviews.filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState)).map((r) => r.reviewerId));
   const current = new Set<number>();
   const stale = new Set<number>();
   for (const r of step.reviews) {
-    if (r.verdict !== "approve" || authors.has(r.reviewerId)) continue;
+    if (r.verdict !== "approve" || authors.has(r.reviewerId) || disputing.has(r.reviewerId)) continue;
     if (r.revisionNumber === step.latestRevision) current.add(r.reviewerId);
     else stale.add(r.reviewerId);
   }
