@@ -80,11 +80,16 @@ db_start() {
   die "MariaDB '$name' did not start: $(grep -iE 'error|denied|abort' "$dir/error.log" | tail -3 | tr '\n' ' ')(full log: .data/$name/error.log)"
 }
 
-# db_stop NAME: stops the server started by db_start.
+# db_stop NAME: stops the server started by db_start and waits (up to 20 s) until it has exited,
+# so that its data directory can be removed right after.
 db_stop() {
-  local dir="$DATA/$1"
+  local dir="$DATA/$1" pid="" i
+  [ -f "$dir/mysqld.pid" ] && pid="$(cat "$dir/mysqld.pid" 2>/dev/null || true)"
   if [ -S "$dir/mysqld.sock" ]; then
     mariadb-admin --no-defaults --socket="$dir/mysqld.sock" -uroot shutdown >/dev/null 2>&1 || true
+  fi
+  if [ -n "$pid" ]; then
+    for i in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
   fi
 }
 
