@@ -36,6 +36,15 @@ async function caseNumbers(proofId: number): Promise<Map<number, string>> {
   return new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
 }
 
+/** The stored subject line is at most 300 characters: a long title is shortened there (the message body keeps it whole). */
+const SUBJECT_MAX = 300;
+function invitationSubject(inviterName: string, title: string): string {
+  const head = `[Cairn] ${inviterName} invites you to review “`;
+  const room = SUBJECT_MAX - head.length - 1;
+  const shown = title.length <= room ? title : `${title.slice(0, Math.max(room - 1, 0)).trimEnd()}…`;
+  return `${head}${shown}”`.slice(0, SUBJECT_MAX);
+}
+
 export interface InvitationCreated {
   id: number;
   mailStatus: MailStatus;
@@ -60,7 +69,7 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
     const mailId = await enqueueMail(
       {
         to: input.email,
-        subject: `[Cairn] ${inviter.name} invites you to review “${proof!.title}”`,
+        subject: invitationSubject(inviter.name, proof!.title),
         text: [
           `${inviter.name} invites you to review ${scopeText} of the proof “${proof!.title}” in Cairn.`,
           "",

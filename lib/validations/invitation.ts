@@ -2,7 +2,8 @@ import { z } from "zod";
 
 export const invitationSchema = z
   .object({
-    email: z.string().trim().toLowerCase().email("Enter an e-mail address such as name@example.org."),
+    // 254 characters is the longest address mail can carry (RFC 5321), and the width of the stored column.
+    email: z.string().trim().toLowerCase().max(254, "An e-mail address has at most 254 characters.").email("Enter an e-mail address such as name@example.org."),
     scope: z.enum(["proof", "cases"], { error: "Invite to the whole proof or to chosen cases." }),
     // Coerced: checkbox values arrive as strings from the form.
     caseIds: z.array(z.coerce.number().int().positive()).max(500).optional(),
