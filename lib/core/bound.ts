@@ -14,8 +14,8 @@
  * "The minimal polynomial of cos(2 pi/n)", Amer. Math. Monthly 100 (1993) 471-474), obtained from the
  * cyclotomic polynomial Phi_N through the Chebyshev relation z^j + z^-j = C_j(z + 1/z).
  */
-import { NumberFormatError, parseRational, Rational, rat, cmp, midpoint, sub, ratToNumber, ratToString, isqrt, gcd as gcdBig, sign } from "./rational";
-import { Poly, trim, polyMul, polySub, polyScale, signAt, squarefree, sturmSequence, signVariations, rootBound, deg, polyToString } from "./sturm";
+import { NumberFormatError, parseRational, Rational, rat, cmp, midpoint, sub, floor, ratToNumber, ratToString, isqrt, gcd as gcdBig, sign } from "./rational";
+import { Poly, trim, polyMul, polySub, polyScale, signAt, squarefree, sturmSequence, signVariations, rootBound, deg, lead, polyToString } from "./sturm";
 import { minimalPolynomial2Cos } from "./cyclotomic";
 
 export type Bound =
@@ -216,8 +216,30 @@ class Parser {
   }
 }
 
+/**
+ * The root of `poly` in (lo, hi) when it is rational (poly need not be irreducible, e.g. root(x^3-x, 1/2, 3/2) = 1).
+ * A rational root p/q in lowest terms of an integer polynomial has q | lead(poly), so lead·root is an
+ * integer; once the interval is narrower than 1/|lead| it holds at most one candidate m/lead.
+ */
+function rationalRootIn(poly: Poly, lo: Rational, hi: Rational): Rational | undefined {
+  const L = lead(poly) < 0n ? -lead(poly) : lead(poly);
+  const sLo = signAt(poly, lo);
+  while (cmp(sub(hi, lo), rat(1n, L)) >= 0) {
+    const mid = midpoint(lo, hi);
+    const s = signAt(poly, mid);
+    if (s === 0) return mid;
+    if (s === sLo) lo = mid; else hi = mid;
+  }
+  const m = floor(rat(lo.num * L, lo.den)) + 1n;
+  const r = rat(m, L);
+  return cmp(r, hi) < 0 && signAt(poly, r) === 0 ? r : undefined;
+}
+
 function algebraic(form: "sqrt" | "2cos" | "root", text: string, poly: Poly, lo: Rational, hi: Rational): Bound {
   if (deg(poly) === 1) return rationalBound(rat(-poly[0], poly[1]), text);
+  // A rational b must be a rational bound: the irrational-b code relies on lo < b < hi strictly and on Q(b) = Q[x]/(poly).
+  const r = rationalRootIn(poly, lo, hi);
+  if (r) return rationalBound(r, text);
   const b: Bound = { kind: "algebraic", form, text, poly, lo, hi, approx: 0 };
   const { lo: l, hi: h } = enclose(b, 60);
   return { ...b, approx: (ratToNumber(l) + ratToNumber(h)) / 2 };

@@ -27,9 +27,10 @@ export interface Graph {
 export interface Adjacency {
   readonly start: Int32Array;
   readonly nbr: Int32Array;
-  readonly wt: Int32Array;
-  /** Diagonal entry A[v][v] (loop weight, 0 when none). */
-  readonly diag: Int32Array;
+  /** Multiplicities: Float64Array, since a multiplicity may be any safe integer (an Int32Array would wrap at 2^31). */
+  readonly wt: Float64Array;
+  /** Diagonal entry A[v][v] (loop weight, 0 when none); a safe integer, hence Float64Array. */
+  readonly diag: Float64Array;
 }
 
 export class GraphError extends Error {
@@ -68,7 +69,7 @@ export function adjacency(g: Graph): Adjacency {
   const hit = adjacencyCache.get(g);
   if (hit) return hit;
   const deg = new Int32Array(g.n + 1);
-  const diag = new Int32Array(g.n);
+  const diag = new Float64Array(g.n);
   for (const e of g.edges) {
     if (e.u === e.v) diag[e.u] += e.m;
     else { deg[e.u]++; deg[e.v]++; }
@@ -77,7 +78,7 @@ export function adjacency(g: Graph): Adjacency {
   for (let v = 0; v < g.n; v++) start[v + 1] = start[v] + deg[v];
   const fill = start.slice(0, g.n);
   const nbr = new Int32Array(start[g.n]);
-  const wt = new Int32Array(start[g.n]);
+  const wt = new Float64Array(start[g.n]);
   for (const e of g.edges) {
     if (e.u === e.v) continue;
     nbr[fill[e.u]] = e.v; wt[fill[e.u]++] = e.m;

@@ -67,11 +67,17 @@ export function rationalEnclosure(r: Rational): [number, number] | undefined {
     const q = Number(r.num) / Number(r.den); // one rounding: both operands convert exactly
     return [nextDown(q), nextUp(q)];
   }
-  // ratToNumber truncates to ~60 bits and rounds three times: relative error < 2^-50; widen by 2^-40.
-  const f = ratToNumber(r);
-  if (!Number.isFinite(f) || f === 0) return undefined;
-  const m = Math.abs(f) * 2 ** -40;
-  return [nextDown(f - m), nextUp(f + m)];
+  // Integer arithmetic, not ratToNumber (which shifts numerator and denominator by the same amount and
+  // can leave the shorter one with a few bits, i.e. a large relative error): with q = floor(|num|·2^k / den)
+  // of about 64 bits, |r| lies in [q, q + 1]·2^-k; round q down and q + 1 up, then scale by the exact
+  // power of two 2^-k (k is kept where every result stays a normal double, so the scaling is exact).
+  const a = r.num < 0n ? -r.num : r.num;
+  const k = 64 - (a.toString(2).length - r.den.toString(2).length);
+  if (k < -900 || k > 1000) return undefined;
+  const q = k >= 0 ? (a << BigInt(k)) / r.den : a / (r.den << BigInt(-k));
+  const s = 2 ** -k;
+  const lo = nextDown(Number(q)) * s, hi = nextUp(Number(q + 1n)) * s;
+  return r.num < 0n ? [-hi, -lo] : [lo, hi];
 }
 
 // ------------------------------------------------------------ Q(b)

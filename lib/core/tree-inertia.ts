@@ -52,9 +52,9 @@ export function isForest(g: Graph): boolean {
 }
 
 /** Breadth-first order of every component (roots: the smallest vertex of each), parents and edge weights. */
-export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; parent: Int32Array; weight: Int32Array } {
+export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; parent: Int32Array; weight: Float64Array } {
   const { start, nbr, wt } = adjacency(g);
-  const order = new Int32Array(g.n), parent = new Int32Array(g.n).fill(-2), weight = new Int32Array(g.n);
+  const order = new Int32Array(g.n), parent = new Int32Array(g.n).fill(-2), weight = new Float64Array(g.n);
   let head = 0, tail = 0;
   for (let r = 0; r < g.n; r++) {
     if (parent[r] !== -2) continue;
