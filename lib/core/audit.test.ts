@@ -6,7 +6,14 @@ import { describe, expect, it } from "vitest";
 import { validateClaim, type Claim } from "./claim-schema";
 import { recheckClaim, verifyClaim } from "./claims";
 import { rationalEnclosure } from "./number-field";
-import { parseBound } from "./bound";
+import { boundApprox, parseBound } from "./bound";
+import { eigs } from "mathjs";
+import { makeGraph, type Graph } from "./graph";
+import { findSubgraph, recheckSubgraph, excludeSubgraphs, recheckExclusion } from "./subgraph";
+import { identifySmith, recheckIdentification } from "./identify";
+import { spectralRadiusBound, recheckSpectralRadiusBound, type Relation } from "./inertia";
+import { characteristicPolynomial } from "./charpoly";
+import { Budget } from "./verdict";
 import { rat } from "./rational";
 
 function claim(json: Record<string, unknown>): Claim {
@@ -112,3 +119,206 @@ function frexpExact(x: number): [bigint, number] {
   while (Math.abs(x) > Number.MAX_SAFE_INTEGER) { x /= 2; e++; }
   return [BigInt(x), e];
 }
+
+// ---------------------------------------------------------------- randomized cross-checks
+
+
+function rng(seed: number) {
+  let s = seed >>> 0;
+  return (k: number) => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s % k; };
+}
+
+/** Random multigraph with loops on n vertices: each pair present with probability p, multiplicity 1..maxM. */
+function randomGraph(r: (k: number) => number, n: number, pPercent: number, maxM: number, loops: boolean): Graph {
+  const edges: Array<{ u: number; v: number; m: number }> = [];
+  for (let u = 0; u < n; u++)
+    for (let v = u; v < n; v++) {
+      if (u === v && !loops) continue;
+      if (r(100) < (u === v ? pPercent / 3 : pPercent)) edges.push({ u, v, m: 1 + r(maxM) });
+    }
+  return makeGraph(n, edges);
+}
+
+function matrix(g: Graph): number[][] {
+  const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
+  for (const e of g.edges) { a[e.u][e.v] = e.m; a[e.v][e.u] = e.m; }
+  return a;
+}
+
+function floatEigenvalues(g: Graph): number[] {
+  if (g.n === 1) return [matrix(g)[0][0]];
+  return (eigs(matrix(g)).values as unknown as number[]).map(Number).sort((x, y) => x - y);
+}
+
+/** Brute force over all injective maps V(H) → V(G). */
+function bruteContains(h: Graph, g: Graph, induced: boolean): boolean {
+  const mh = matrix(h), mg = matrix(g);
+  const phi: number[] = [], used = new Array<boolean>(g.n).fill(false);
+  const ok = (u: number, x: number) => {
+    for (let w = 0; w <= u; w++) {
+      const y = w === u ? x : phi[w];
+      if (induced ? mg[x][y] !== mh[u][w] : mg[x][y] < mh[u][w]) return false;
+    }
+    return true;
+  };
+  const go = (u: number): boolean => {
+    if (u === h.n) return true;
+    for (let x = 0; x < g.n; x++) {
+      if (used[x] || !ok(u, x)) continue;
+      used[x] = true; phi[u] = x;
+      if (go(u + 1)) return true;
+      used[x] = false;
+    }
+    return false;
+  };
+  return go(0);
+}
+
+describe("subgraph containment against brute force over all vertex maps", () => {
+  it("random multigraphs with loops, induced and not, with re-checks", () => {
+    const r = rng(7);
+    let present = 0, absent = 0;
+    for (let t = 0; t < 1500; t++) {
+      const h = randomGraph(r, 1 + r(4), 30 + r(50), 1 + r(2), r(3) === 0);
+      const g = randomGraph(r, 1 + r(6), 20 + r(60), 1 + r(3), r(2) === 0);
+      const induced = r(2) === 0;
+      const truth = bruteContains(h, g, induced);
+      const v = findSubgraph(h, g, { induced });
+      expect(v.status, `H=${JSON.stringify(h.edges)} n=${h.n} G=${JSON.stringify(g.edges)} n=${g.n} induced=${induced}`).toBe(truth ? "verified" : "refuted");
+      expect(recheckSubgraph(h, g, v.certificate, induced).status).toBe("verified");
+      const ex = excludeSubgraphs(g, [h], { induced });
+      expect(ex.status).toBe(truth ? "refuted" : "verified");
+      expect(recheckExclusion(g, [h], ex.certificate, induced).status).toBe("verified");
+      if (truth) present++; else absent++;
+    }
+    expect(present).toBeGreaterThan(100);
+    expect(absent).toBeGreaterThan(100);
+  });
+  it("random forests (the spider and subtree-table paths)", () => {
+    const r = rng(11);
+    for (let t = 0; t < 800; t++) {
+      const tree = (n: number, forest: boolean) => makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: i + 1, v: r(i + 1) })).filter(() => !forest || r(5) > 0));
+      const h = tree(1 + r(6), false), g = tree(1 + r(8), true);
+      const induced = r(2) === 0;
+      const v = findSubgraph(h, g, { induced });
+      expect(v.status).toBe(bruteContains(h, g, induced) ? "verified" : "refuted");
+      expect(recheckSubgraph(h, g, v.certificate, induced).status).toBe("verified");
+    }
+  });
+});
+
+describe("spectral verdicts against floating-point eigenvalues far from the bound", () => {
+  const ops: Relation[] = ["<", "<=", "=", ">=", ">"];
+  const truth = (rho: number, op: Relation, b: number) =>
+    op === "<" ? rho < b : op === "<=" ? rho <= b : op === "=" ? rho === b : op === ">=" ? rho >= b : rho > b;
+  it("random multigraphs with loops, rational and irrational bounds", () => {
+    const r = rng(3);
+    const bounds = ["0", "1/2", "1", "3/2", "2", "5/2", "3", "7/2", "4", "sqrt(2)", "sqrt(3)", "sqrt(5)", "sqrt(2+sqrt(2))", "2cos(pi/7)", "2cos(2pi/9)", "root(x^3-3x-1, 1, 2)", "-1", "sqrt(7)"];
+    let checked = 0;
+    for (let t = 0; t < 150; t++) {
+      const g = randomGraph(r, 1 + r(6), 20 + r(60), 1 + r(2), r(2) === 0);
+      const rho = Math.max(...floatEigenvalues(g).map(Math.abs));
+      for (const bt of bounds) {
+        const b = spectralRadiusBoundValue(bt);
+        if (Math.abs(rho - b) < 1e-6) continue;
+        for (const op of ops) {
+          const v = spectralRadiusBound(g, op, bt);
+          expect(v.status, `${JSON.stringify(g.edges)} n=${g.n} ρ≈${rho} ${op} ${bt}`).toBe(truth(rho, op, b) ? "verified" : "refuted");
+          expect(recheckSpectralRadiusBound(g, op, bt, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
+          // The same certificate never supports the opposite outcome.
+          expect(recheckSpectralRadiusBound(g, op, bt, v.status === "verified" ? "refuted" : "verified", v.certificate).status).toBe("refuted");
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(2000);
+  });
+  it("ρ = b exactly: integer and irrational spectral radii (hand computation)", () => {
+    // ρ(K_n) = n − 1; ρ(C_n) = 2; ρ(P_n) = 2cos(π/(n+1)); ρ(K_{1,k}) = √k; a loop of weight w alone: ρ = w.
+    const eq = (g: Graph, b: string) => {
+      for (const op of ops) {
+        const v = spectralRadiusBound(g, op, b);
+        expect(v.status, `${op} ${b}`).toBe(op === "=" || op === "<=" || op === ">=" ? "verified" : "refuted");
+        expect(recheckSpectralRadiusBound(g, op, b, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
+      }
+    };
+    eq(makeGraph(4, [{ u: 0, v: 1 }, { u: 0, v: 2 }, { u: 0, v: 3 }, { u: 1, v: 2 }, { u: 1, v: 3 }, { u: 2, v: 3 }]), "3");
+    eq(makeGraph(5, [0, 1, 2, 3, 4].map((i) => ({ u: i, v: (i + 1) % 5 }))), "2");
+    eq(makeGraph(5, [0, 1, 2, 3].map((i) => ({ u: i, v: i + 1 }))), "2cos(pi/6)");
+    eq(makeGraph(6, [0, 1, 2, 3, 4].map((i) => ({ u: i, v: i + 1 }))), "2cos(pi/7)");
+    eq(makeGraph(6, [1, 2, 3, 4, 5].map((i) => ({ u: 0, v: i }))), "sqrt(5)");
+    eq(makeGraph(1, [{ u: 0, v: 0, m: 3 }]), "3");
+    eq(makeGraph(1, []), "0");
+    eq(makeGraph(3, []), "sqrt(0)");
+    // C4 plus a chord has ρ = (1 + √17)/2, a root of x^2 − x − 4 (hand computation), and a cycle: Sturm path.
+    eq(makeGraph(4, [{ u: 0, v: 1 }, { u: 1, v: 2 }, { u: 2, v: 3 }, { u: 3, v: 0 }, { u: 0, v: 2 }]), "root(x^2-x-4, 2, 3)");
+  });
+});
+
+function spectralRadiusBoundValue(text: string): number {
+  return boundApprox(parseBound(text));
+}
+
+describe("Smith identification against floating-point ρ", () => {
+  it("random connected graphs with loops and multiplicities: verified iff ρ ≤ 2", () => {
+    const r = rng(5);
+    let yes = 0;
+    for (let t = 0; t < 3000; t++) {
+      const n = 1 + r(9);
+      // A random tree plus a few extra edges/loops, so that many are Smith graphs.
+      const edges: Array<{ u: number; v: number; m: number }> = Array.from({ length: n - 1 }, (_, i) => ({ u: i + 1, v: r(i + 1), m: r(20) === 0 ? 2 : 1 }));
+      for (let k = r(3); k > 0; k--) { const u = r(n), v = r(n); edges.push({ u, v, m: 1 }); }
+      const g = makeGraph(n, edges);
+      const rho = Math.max(...floatEigenvalues(g).map(Math.abs));
+      const v = identifySmith(g);
+      expect(v.status, `${JSON.stringify(g.edges)} n=${n} ρ≈${rho}`).toBe(rho <= 2 + 1e-9 ? "verified" : "refuted");
+      if (rho > 2 - 1e-9 && rho < 2 + 1e-9) expect(v.status).toBe("verified");
+      expect(recheckIdentification(g, v.certificate).status).toBe("verified");
+      if (v.status === "verified") yes++;
+    }
+    expect(yes).toBeGreaterThan(200);
+  });
+});
+
+describe("characteristic polynomial against floating-point eigenvalues", () => {
+  it("χ vanishes (to rounding) at every float eigenvalue of random multigraphs with loops", () => {
+    const r = rng(9);
+    for (let t = 0; t < 200; t++) {
+      const g = randomGraph(r, 1 + r(7), 20 + r(60), 1 + r(2), true);
+      const chi = characteristicPolynomial(g, new Budget());
+      const lambda = floatEigenvalues(g);
+      // χ is monic of degree n with coefficients c_k of x^k: compare with ∏(x − λ_i) coefficientwise.
+      let prod = [1];
+      for (const l of lambda) {
+        const next = new Array<number>(prod.length + 1).fill(0);
+        prod.forEach((c, k) => { next[k + 1] += c; next[k] -= l * c; });
+        prod = next;
+      }
+      expect(chi.length).toBe(g.n + 1);
+      chi.forEach((c, k) => expect(Math.abs(Number(c) - prod[k])).toBeLessThan(1e-6 * (1 + Math.abs(prod[k]))));
+    }
+  });
+});
+
+describe("adversarial inputs end in a verdict or a typed error", () => {
+  it("huge loop weights in patterns do not allocate an array indexed by weight", () => {
+    // A loop of weight 2^40 in H cannot map into G = K2 (no loop); weight 10^8 maps onto an equal loop.
+    // The degree/loop count once built an array of length max weight + 2: RangeError, or out of memory.
+    expect(status({ kind: "subgraph", pattern: edges("0 0 1099511627776"), host: edges("0 1") })).toBe("refuted");
+    expect(status({ kind: "subgraph", pattern: edges("0 0 100000000"), host: edges("0 0 100000000") })).toBe("verified");
+    expect(status({ kind: "subgraph", pattern: edges("0 0 100000001"), host: edges("0 0 100000000\n1 1 5") })).toBe("refuted");
+    expect(status({ kind: "exclusion", patterns: [edges("0 0 9007199254740991")], host: edges("0 1"), induced: false })).toBe("verified");
+  });
+  it("degenerate bounds and graphs", () => {
+    // n = 1 without edges: ρ = 0 (hand computation). 2cos(π) = −2, 2cos(0) = 2, √0 = 0.
+    const k1 = edges("n = 1");
+    expect(status({ kind: "spectral-radius-bound", graph: k1, op: "=", bound: "0" })).toBe("verified");
+    expect(status({ kind: "spectral-radius-bound", graph: k1, op: "=", bound: "sqrt(0)" })).toBe("verified");
+    expect(status({ kind: "spectral-radius-bound", graph: k1, op: ">", bound: "-1" })).toBe("verified");
+    expect(status({ kind: "spectral-radius-bound", graph: k1, op: ">", bound: "2cos(pi/1)" })).toBe("verified");
+    expect(status({ kind: "spectral-radius-bound", graph: k1, op: "<", bound: "2cos(0pi/3)" })).toBe("verified");
+    expect(status({ kind: "spectral-radius-bound", graph: edges("n = 3"), op: "<", bound: "2cos(2pi/5)" })).toBe("verified");
+    // No vertices: a typed input error, not a crash.
+    expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: edges("n = 0"), op: "<", bound: "2" }))).toThrow(/no vertices/);
+  });
+});

@@ -46,18 +46,22 @@ function degreeArray(g: Graph, members?: Int32Array): number[] {
   return out;
 }
 
-/** Compares "how many values ≥ t" for every t; returns the first threshold where the pattern has more. */
+/**
+ * Compares "how many values ≥ t" for every t; returns the largest threshold where the pattern has more.
+ * The largest failing t is always one of the pattern's values (between two of them the pattern's count
+ * is constant and the host's can only grow as t falls), so sorted copies suffice: no array indexed by
+ * value, which a loop weight of 10⁸ or 2⁵³ would make huge.
+ */
 function countDominance(pattern: number[], host: number[]): { threshold: number; inPattern: number; inHost: number } | null {
-  let top = 0;
-  for (const d of pattern) if (d > top) top = d; // a loop, not Math.max(...): patterns can have 10⁶ vertices
-  const count = (values: number[]) => {
-    const c = new Array(top + 2).fill(0);
-    for (const d of values) c[Math.min(d, top + 1)]++;
-    for (let t = top; t >= 0; t--) c[t] += c[t + 1];
-    return c;
-  };
-  const p = count(pattern), h = count(host);
-  for (let t = top; t >= 1; t--) if (p[t] > h[t]) return { threshold: t, inPattern: p[t], inHost: h[t] };
+  const p = Float64Array.from(pattern).sort(), h = Float64Array.from(host).sort(); // ascending; read from the end
+  let i = p.length - 1, j = h.length - 1;
+  while (i >= 0 && p[i] >= 1) {
+    const t = p[i];
+    while (i >= 0 && p[i] === t) i--;
+    while (j >= 0 && h[j] >= t) j--;
+    const inPattern = p.length - 1 - i, inHost = h.length - 1 - j;
+    if (inPattern > inHost) return { threshold: t, inPattern, inHost };
+  }
   return null;
 }
 
