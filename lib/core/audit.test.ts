@@ -322,3 +322,15 @@ describe("adversarial inputs end in a verdict or a typed error", () => {
     expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: edges("n = 0"), op: "<", bound: "2" }))).toThrow(/no vertices/);
   });
 });
+
+describe("re-checks under an exhausted budget", () => {
+  it("an eigenvalue certificate re-check that runs out of steps is undecided, not an exception", () => {
+    // The eigenvalues of the path P_n are 2cos(πm/(n+1)), m = 1..n (Brouwer & Haemers, Spectra of Graphs, §1.4.4).
+    const c = claim({ kind: "eigenvalues", graph: { format: "named", text: "path(20)" }, h: 21, multiset: Array.from({ length: 20 }, (_, i) => i + 1) });
+    const r = verifyClaim(c);
+    expect(r.verdict.status).toBe("verified");
+    const envelope = r.verdict.certificate;
+    for (const steps of [10, 1000]) expect(recheckClaim(c, envelope, { budget: new Budget(steps) }).status).toBe("undecided");
+    expect(recheckClaim(c, envelope).status).toBe("verified");
+  });
+});

@@ -13,7 +13,7 @@
  */
 import type { Graph } from "./graph";
 import { GraphError } from "./graph";
-import { Budget, Verdict, withinBudget } from "./verdict";
+import { Budget, BudgetExceeded, Verdict, withinBudget } from "./verdict";
 import { characteristicPolynomial } from "./charpoly";
 import { cyclotomic, minimalPolynomial2Cos } from "./bound";
 import { Poly, trim, deg, polyEquals, polySub, polyMul, polyToString } from "./sturm";
@@ -132,7 +132,7 @@ export function recheckEigenvalueClaim(g: Graph, h: number, multiset: readonly n
   return recheck(`eigenvalue claim is ${outcome}`, "certificate re-check", budget, () => {
     const c = expectRecord(certificate, "certificate");
     const fresh = eigenvalueClaim(g, h, multiset, budget);
-    if (fresh.status === "undecided") throw new RangeError(fresh.reason);
+    if (fresh.status === "undecided") throw new BudgetExceeded(budget.limit); // recheck() turns this into "undecided"
     const same = (a: unknown, b: string[] | undefined) => (a === undefined && b === undefined) || (Array.isArray(a) && b !== undefined && a.length === b.length && a.every((x, i) => x === b[i]));
     if (!same(c.charpoly, fresh.certificate!.charpoly)) reject("certificate.charpoly is not the characteristic polynomial of G");
     if (!same(c.product, fresh.certificate!.product)) reject("certificate.product is not the product of the claimed factors");
