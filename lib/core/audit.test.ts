@@ -6,7 +6,7 @@ import { describe, expect, it } from "vitest";
 import { validateClaim, type Claim } from "./claim-schema";
 import { recheckClaim, verifyClaim } from "./claims";
 import { rationalEnclosure } from "./number-field";
-import { boundApprox, parseBound } from "./bound";
+import { boundApprox, enclose, parseBound, twoCosBound } from "./bound";
 import { eigs } from "mathjs";
 import { makeGraph, type Graph } from "./graph";
 import { findSubgraph, recheckSubgraph, excludeSubgraphs, recheckExclusion } from "./subgraph";
@@ -15,6 +15,8 @@ import { spectralRadiusBound, recheckSpectralRadiusBound, type Relation } from "
 import { characteristicPolynomial } from "./charpoly";
 import { Budget } from "./verdict";
 import { rat } from "./rational";
+import { treeInertia } from "./tree-inertia";
+import { sparseInertia } from "./sparse-inertia";
 
 function claim(json: Record<string, unknown>): Claim {
   return validateClaim({ format: "cairn-claim/1", ...json });
@@ -332,5 +334,61 @@ describe("re-checks under an exhausted budget", () => {
     const envelope = r.verdict.certificate;
     for (const steps of [10, 1000]) expect(recheckClaim(c, envelope, { budget: new Budget(steps) }).status).toBe("undecided");
     expect(recheckClaim(c, envelope).status).toBe("verified");
+  });
+});
+
+
+describe("inertia engines agree with each other and with float eigenvalues", () => {
+  it("Jacobs–Trevisan (intervals and exact-only) and the sparse LDLᵀ on random weighted forests with loops", () => {
+    // Points b include eigenvalues of the trees (integers and 0 for stars/paths), where zero pivots and the
+    // special rule occur; away from eigenvalues the counts must match float eigenvalues (gap > 1e-6).
+    const r = rng(21);
+    const points = ["0", "1", "-1", "2", "-2", "3", "1/2", "-3/2", "5/3", "7/4", "4"];
+    let zeroRuleHits = 0;
+    for (let t = 0; t < 600; t++) {
+      const n = 1 + r(9);
+      const edges: Array<{ u: number; v: number; m: number }> = [];
+      for (let i = 1; i < n; i++) if (r(6) > 0) edges.push({ u: i, v: r(i), m: r(4) === 0 ? 2 : 1 });
+      for (let v = 0; v < n; v++) if (r(5) === 0) edges.push({ u: v, v, m: 1 + r(2) });
+      const g = makeGraph(n, edges);
+      const lambda = floatEigenvalues(g);
+      for (const p of points) {
+        const b = parseBound(p);
+        if (b.kind !== "rational") throw new Error("rational points only");
+        const fast = treeInertia(g, b.value, "none", new Budget());
+        const exact = treeInertia(g, b.value, "none", new Budget(), true);
+        const sparse = sparseInertia(g, b.value, "none", new Budget());
+        const counts = (x: { positive: number; negative: number; zero: number }) => [x.positive, x.negative, x.zero];
+        expect(counts(fast)).toEqual(counts(exact));
+        expect(counts(sparse)).toEqual(counts(exact));
+        const bv = boundApprox(b);
+        if (lambda.every((l) => Math.abs(l - bv) > 1e-6))
+          expect(counts(exact)).toEqual([lambda.filter((l) => l < bv).length, lambda.filter((l) => l > bv).length, 0]);
+        else {
+          // b is (numerically) an eigenvalue: below/above counts still match, the rest is the multiplicity.
+          expect(exact.positive).toBe(lambda.filter((l) => l < bv - 1e-6).length);
+          expect(exact.negative).toBe(lambda.filter((l) => l > bv + 1e-6).length);
+          if (exact.zero > 0) zeroRuleHits++;
+        }
+      }
+    }
+    expect(zeroRuleHits).toBeGreaterThan(100);
+  });
+});
+
+
+describe("interval pass on long paths near ρ (big rationals in the enclosures)", () => {
+  it("bI − A of the path P_n just below and just above ρ = 2cos(π/(n+1))", () => {
+    // Eigenvalues of P_n: 2cos(πj/(n+1)) (Brouwer & Haemers §1.4.4); for b in (λ2, ρ) exactly one eigenvalue lies above b.
+    for (const n of [13, 40, 64]) {
+      const g = makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: i, v: i + 1 })));
+      const { lo, hi } = enclose(twoCosBound(1n, BigInt(n + 1)), 80);
+      for (const [b, above] of [[lo, 1], [hi, 0]] as const) {
+        const fast = treeInertia(g, b, "none", new Budget());
+        const exact = treeInertia(g, b, "none", new Budget(), true);
+        expect([fast.positive, fast.negative, fast.zero]).toEqual([n - above, above, 0]);
+        expect([exact.positive, exact.negative, exact.zero]).toEqual([n - above, above, 0]);
+      }
+    }
   });
 });
