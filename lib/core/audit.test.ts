@@ -392,3 +392,13 @@ describe("interval pass on long paths near ρ (big rationals in the enclosures)"
     }
   });
 });
+
+describe("bound parsing stays bounded in time", () => {
+  it("2cos(pi p/q) with a large denominator is a typed input error, not minutes of root isolation", () => {
+    // Before the cap, 2cos(pi/1001) took over 100 s to parse (outside any step budget).
+    expect(() => parseBound("2cos(pi/1001)")).toThrow(/q <= 300/);
+    expect(() => parseBound("2cos(pi/49999)")).toThrow(/q <= 300/);
+    expect(parseBound("2cos(2pi/600)").kind).toBe("algebraic"); // reduces to 2cos(pi/300)
+    expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: edges("0 1"), op: "<", bound: "2cos(pi/1001)" }))).toThrow(/q <= 300/);
+  });
+});

@@ -283,7 +283,9 @@ export function twoCosBound(p: bigint, q: bigint, text = `2cos(${p}pi/${q})`): B
   if (p > q) p = 2n * q - p; // cos is even and 2pi-periodic: angle now pi p/q in [0, pi]
   const odd = p % 2n === 1n;
   const N = Number(odd ? 2n * q : q), k0 = Number(odd ? p : p / 2n);
-  if (N > 100_000) throw new NumberFormatError(`2cos(pi p/q) needs q <= 50000, got ${q}`);
+  // Parsing is not under a step budget and isolating a root of Psi_N costs steeply in N (about 9 s at
+  // q = 293, minutes at q = 1001), so q is capped like the Coxeter number h of eigenvalue claims.
+  if (q > 300n) throw new NumberFormatError(`2cos(pi p/q) needs q <= 300 (in lowest terms), got ${q}`);
   if (N <= 2) return rationalBound(rat(N === 1 ? 2n : -2n), text);
   // Roots of Psi_N are 2cos(2 pi k/N), gcd(k, N) = 1, 1 <= k < N/2, decreasing in k.
   let rank = 0;
