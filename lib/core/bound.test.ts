@@ -103,3 +103,20 @@ describe("cyclotomic and Chebyshev polynomials", () => {
     expect(() => parsePolynomial("x^2 + y")).toThrow(NumberFormatError);
   });
 });
+
+describe("size limits of root(...) bounds", () => {
+  // Parsing and root isolation happen before any step budget applies, so the polynomial's size is
+  // capped (common practice for untrusted input; the limits are Cairn's own).
+  it("refuses a degree above 300 and coefficients above 200 digits, naming the column", () => {
+    expect(() => parseBound("root(x^301-2, 1, 2)")).toThrow(/degree above 300/);
+    expect(() => parseBound(`root(x^2-${"9".repeat(201)}, 1, 2)`)).toThrow(NumberFormatError);
+    expect(() => parsePolynomial("x^10000-2")).toThrow(/degree above 300/);
+  });
+
+  it("still accepts polynomials at the limits", () => {
+    expect(parsePolynomial("x^300-2")).toHaveLength(301);
+    const b = parseBound("root(x^2-2, 1, 2)"); // √2, the unique root of x²−2 in (1, 2)
+    expect(compareToBound(rat(141, 100), b)).toBe(-1);
+    expect(compareToBound(rat(142, 100), b)).toBe(1);
+  });
+});

@@ -296,6 +296,9 @@ export function twoCosBound(p: bigint, q: bigint, text = `2cos(${p}pi/${q})`): B
   return algebraic("2cos", text, psi, lo, hi);
 }
 
+export const MAX_POLYNOMIAL_DEGREE = 300;
+export const MAX_COEFFICIENT_DIGITS = 200;
+
 /** Parses an integer polynomial in x such as "x^4 - 4x^2 - 1" or "2*x^3+x-7". */
 export function parsePolynomial(text: string, columnOffset = 0): Poly {
   const s = text.replace(/\s+/g, "");
@@ -308,9 +311,13 @@ export function parsePolynomial(text: string, columnOffset = 0): Poly {
     const m = term.exec(s);
     if (!m || m[0].length === 0 || (m[2] === "" && m[3] === undefined) || (i > 0 && m[1] === ""))
       throw new NumberFormatError(`cannot read the polynomial "${text}" here (use integer coefficients in x, e.g. x^4-4x^2-1)`, columnOffset + i + 1);
+    // Parsing and root isolation run before any step budget exists, so the size of a polynomial is
+    // capped here (degree as for 2cos(πp/q) bounds; coefficients of at most 200 digits).
+    if (m[2].length > MAX_COEFFICIENT_DIGITS)
+      throw new NumberFormatError(`a coefficient has more than ${MAX_COEFFICIENT_DIGITS} digits`, columnOffset + i + 1);
     const c = BigInt(m[2] === "" ? "1" : m[2]) * (m[1] === "-" ? -1n : 1n);
     const e = m[3] === undefined ? 0 : m[4] === undefined ? 1 : Number(m[4]);
-    if (e > 10_000) throw new NumberFormatError("polynomial degree above 10000", columnOffset + i + 1);
+    if (e > MAX_POLYNOMIAL_DEGREE) throw new NumberFormatError(`polynomial degree above ${MAX_POLYNOMIAL_DEGREE}`, columnOffset + i + 1);
     while (out.length <= e) out.push(0n);
     out[e] += c;
     i += m[0].length;
