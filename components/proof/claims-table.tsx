@@ -1,8 +1,9 @@
 "use client";
 import { useMemo, useState } from "react";
+import { SortableTable } from "@/components/ui/sortable-table";
 import Link from "next/link";
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
+  createColumnHelper, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
   type ColumnFiltersState, type SortingState,
 } from "@tanstack/react-table";
 import type { ClaimRowView } from "@/lib/data/claims";
@@ -71,33 +72,7 @@ export function ClaimsTable({ proofId, claims }: { proofId: number; claims: Clai
           {table.getRowModel().rows.length} of {claims.length} claims
         </span>
       </div>
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          {table.getHeaderGroups().map((g) => (
-            <tr key={g.id} className="border-b border-stone-300 text-left">
-              {g.headers.map((h) => (
-                <th key={h.id} className="px-2 py-1" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : "none"}>
-                  <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold hover:underline">
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                    {{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
-                  </button>
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((r) => (
-            <tr key={r.id} className="border-b border-stone-100 align-top">
-              {r.getVisibleCells().map((c) => (
-                <td key={c.id} className="px-2 py-1">
-                  {flexRender(c.column.columnDef.cell, c.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <SortableTable table={table} rowClassName="align-top" />
     </div>
   );
 }

@@ -1,9 +1,9 @@
 "use client";
 /** A sortable, filterable table of a queue (@tanstack/react-table v8): a text filter and one column filter. */
 import { useMemo, useState } from "react";
+import { SortableTable } from "@/components/ui/sortable-table";
 import Link from "next/link";
 import {
-  flexRender,
   getCoreRowModel,
   getFilteredRowModel,
   getSortedRowModel,
@@ -97,33 +97,7 @@ export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Ro
           </select>
         </label>
       </div>
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          {table.getHeaderGroups().map((g) => (
-            <tr key={g.id} className="border-b border-stone-300 text-left">
-              {g.headers.map((h) => (
-                <th key={h.id} className="px-2 py-1" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : "none"}>
-                  <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold">
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                    <span aria-hidden="true"> {h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}</span>
-                  </button>
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-stone-100" data-testid="queue-row">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-2 py-1">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <SortableTable table={table} rowTestId="queue-row" />
     </div>
   );
 }
