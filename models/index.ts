@@ -39,6 +39,7 @@ function initModels() {
   Step.hasMany(StepRevision, { as: "revisions", foreignKey: "stepId" });
   StepRevision.belongsTo(User, { as: "author", foreignKey: "authorId" });
   Step.hasMany(Claim, { as: "claims", foreignKey: "stepId" });
+  Claim.belongsTo(User, { as: "checker", foreignKey: "checkedBy", constraints: false });
   Step.hasMany(Review, { as: "reviews", foreignKey: "stepId" });
   Review.belongsTo(User, { as: "reviewer", foreignKey: "reviewerId" });
   Step.hasMany(Comment, { as: "comments", foreignKey: "stepId" });

@@ -95,11 +95,6 @@ export async function awaitVerdicts(proofId: number, ids: number[], ms: number):
 
 const withChecker = () => [{ model: models().User, as: "checker", attributes: ["name"], required: false }];
 
-function ensureAssociation() {
-  const { Claim, User } = models();
-  if (!Claim.associations.checker) Claim.belongsTo(User, { as: "checker", foreignKey: "checkedBy", constraints: false });
-}
-
 /**
  * Reads every claim's inputs the way the check will (graph text, bound, embedding and vector sizes)
  * in the worker pool, so that malformed input is a 422 naming the field and nothing is stored.
@@ -149,13 +144,11 @@ export async function attachClaims(proofId: number, stepId: number, userId: numb
     return out;
   });
   for (const id of ids) void scheduleVerification(id, userId);
-  ensureAssociation();
   return (await Claim.findAll({ where: { id: ids }, include: withChecker(), order: [["position", "ASC"]] })).map(claimView);
 }
 
 async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow> {
   const { Claim } = models();
-  ensureAssociation();
   const row = await Claim.findByPk(claimId, { include: withChecker() });
   if (!row) throw notFound("This claim");
   await stepInProof(proofId, row.stepId).catch(() => {
@@ -184,7 +177,6 @@ export async function recheck(proofId: number, claimId: number, userId: number):
 
 export async function listStepClaims(stepId: number): Promise<ClaimView[]> {
   const { Claim } = models();
-  ensureAssociation();
   const rows = await Claim.findAll({ where: { stepId }, include: withChecker(), order: [["position", "ASC"], ["id", "ASC"]] });
   resumeStale(rows);
   return rows.map(claimView);
