@@ -39,8 +39,11 @@ export CAIRN_MIGRATIONS_DATABASE_URL; CAIRN_MIGRATIONS_DATABASE_URL="$(url cairn
 export CAIRN_E2E_DATABASE_URL; CAIRN_E2E_DATABASE_URL="$(url cairn_e2e)"
 export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-test-secret-$(head -c 12 /dev/urandom | base64)}"
 
-say "building the app for the browser tests"
-node_modules/.bin/next build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
+# CAIRN_TEST_SKIP_BUILD=1 (local iteration on unit or integration tests only) reuses the last build.
+if [ -z "${CAIRN_TEST_SKIP_BUILD:-}" ]; then
+  say "building the app for the browser tests"
+  node_modules/.bin/next build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
+fi
 
 say "vitest: unit, integration, browser"
 set +e
