@@ -2,7 +2,7 @@ import "server-only";
 import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth";
 import { forbidden, notFound, unauthenticated } from "@/lib/errors";
-import { getMembershipRole, proofExists } from "@/lib/data/proofs";
+import { proofAndRole } from "@/lib/data/proofs";
 import type { ProofRole } from "@/models/proof-member";
 import type { GlobalRole } from "@/models/user";
 
@@ -34,8 +34,9 @@ export async function requireUser(): Promise<CurrentUser> {
  */
 export async function requireProofRole(proofId: number, ...roles: ProofRole[]): Promise<{ user: CurrentUser; role: ProofRole }> {
   const user = await requireUser();
-  if (!(await proofExists(proofId))) throw notFound("This proof");
-  const role = await getMembershipRole(proofId, user.id);
+  const found = await proofAndRole(proofId, user.id);
+  if (!found) throw notFound("This proof");
+  const { role } = found;
   if (!role) throw forbidden("You are not a member of this proof.");
   if (roles.length > 0 && !roles.includes(role))
     throw forbidden(`This needs the ${roles.join(" or ")} role on this proof; you are ${role === "author" ? "an" : "a"} ${role}.`);

@@ -1,6 +1,7 @@
 import "server-only";
 import { models } from "@/models";
 import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
+import type { Claim } from "@/lib/core/claim-schema";
 
 /**
  * Verification jobs of stored claims: each runs in the worker pool and stores its verdict. One job
@@ -8,17 +9,24 @@ import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
  */
 const inFlight = ((globalThis as unknown as { __cairnClaimJobs?: Map<number, Promise<void>> }).__cairnClaimJobs ??= new Map());
 
-/** Verifies a stored claim in the worker pool and stores the verdict; one job per claim at a time. */
-export function scheduleVerification(claimId: number, checkedBy: number): Promise<void> {
+/**
+ * Verifies a stored claim in the worker pool and stores the verdict; one job per claim at a time.
+ * `claim` is the stored input when the caller has it at hand (it is read from the row otherwise).
+ */
+export function scheduleVerification(claimId: number, checkedBy: number, claim?: Claim): Promise<void> {
   const running = inFlight.get(claimId);
   if (running) return running;
   const job = (async () => {
     const { Claim } = models();
-    const row = await Claim.findByPk(claimId);
-    if (!row) return;
+    let input = claim;
+    if (!input) {
+      const row = await Claim.findByPk(claimId, { attributes: ["id", "input"] });
+      if (!row) return;
+      input = JSON.parse(row.input) as Claim;
+    }
     let update: Partial<Record<string, unknown>>;
     try {
-      const answer = await runInPool({ mode: "verify", claim: JSON.parse(row.input), stepLimit: STEP_LIMIT, picture: true });
+      const answer = await runInPool({ mode: "verify", claim: input, stepLimit: STEP_LIMIT, picture: true });
       update = answer.ok
         ? (() => {
             const o = answer.outcome!;

@@ -80,20 +80,26 @@ function claimView(c: ClaimRow): ClaimView {
 }
 
 /**
- * Waits up to `ms` for the claims' verdicts (the checks still run in the worker pool) and returns
- * the claims as they are then; those not done are still `pending`.
+ * Waits up to `ms` for the verdicts of claims just attached to a step (the checks still run in the
+ * worker pool) and returns the claims as they are then; those not done are still `pending`.
  */
-export async function awaitVerdicts(proofId: number, ids: number[], ms: number): Promise<ClaimView[]> {
+export async function awaitVerdicts(stepId: number, ids: number[], ms: number): Promise<ClaimView[]> {
   let timer: ReturnType<typeof setTimeout> | undefined;
   const timeout = new Promise<void>((resolve) => (timer = setTimeout(resolve, ms)));
   await Promise.race([Promise.all(ids.map(verificationSettled)), timeout]);
   clearTimeout(timer);
-  return Promise.all(ids.map((id) => getClaim(proofId, id)));
+  return readClaimViews(stepId, ids);
 }
 
 // ---------------------------------------------------------------- reads and writes
 
 const withChecker = () => [{ model: models().User, as: "checker", attributes: ["name"], required: false }];
+
+/** The step's claims with these ids, in step order, read in one query. */
+async function readClaimViews(stepId: number, ids: number[]): Promise<ClaimView[]> {
+  const { Claim } = models();
+  return (await Claim.findAll({ where: { id: ids, stepId }, include: withChecker(), order: [["position", "ASC"]] })).map(claimView);
+}
 
 /**
  * Reads every claim's inputs the way the check will (graph text, bound, embedding and vector sizes)
@@ -122,14 +128,17 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
   return claims;
 }
 
-/** Attaches claims to a step (all or none) and queues their verification; they start `pending`. */
-export async function attachClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<ClaimView[]> {
+/**
+ * Stores claims on a step (all or none) and queues their verification; they start `pending`.
+ * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
+ */
+export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
   const { Claim, AuditEvent } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
-  const ids = await getSequelize().transaction(async (transaction) => {
+  const stored = await getSequelize().transaction(async (transaction) => {
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
-    const out: number[] = [];
+    const out: Array<{ id: number; claim: ClaimJson }> = [];
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
@@ -139,12 +148,17 @@ export async function attachClaims(proofId: number, stepId: number, userId: numb
         { transaction },
       );
       await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
-      out.push(row.id);
+      out.push({ id: row.id, claim });
     }
     return out;
   });
-  for (const id of ids) void scheduleVerification(id, userId);
-  return (await Claim.findAll({ where: { id: ids }, include: withChecker(), order: [["position", "ASC"]] })).map(claimView);
+  for (const { id, claim } of stored) void scheduleVerification(id, userId, claim);
+  return stored.map((s) => s.id);
+}
+
+/** Attaches claims to a step (all or none) and queues their verification; they start `pending`. */
+export async function attachClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<ClaimView[]> {
+  return readClaimViews(stepId, await storeClaims(proofId, stepId, userId, raw));
 }
 
 async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow> {

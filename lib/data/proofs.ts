@@ -1,5 +1,7 @@
 import "server-only";
+import { QueryTypes } from "sequelize";
 import { models } from "@/models";
+import { getSequelize } from "@/lib/db";
 import type { ProofRole } from "@/models/proof-member";
 
 export interface ProofListItem {
@@ -41,9 +43,16 @@ export async function listProofsForUser(userId: number): Promise<ProofListItem[]
     .sort((a, b) => b.updatedAt.localeCompare(a.updatedAt) || a.id - b.id);
 }
 
-export async function proofExists(proofId: number): Promise<boolean> {
-  const { Proof } = models();
-  return (await Proof.count({ where: { id: proofId } })) > 0;
+/**
+ * Whether the proof exists and the user's role on it, in one query (the permission check of every
+ * request): `null` when there is no such proof, `{ role: null }` for a non-member.
+ */
+export async function proofAndRole(proofId: number, userId: number): Promise<{ role: ProofRole | null } | null> {
+  const rows = await getSequelize().query<{ role: ProofRole | null }>(
+    "SELECT m.role AS role FROM proofs p LEFT JOIN proof_members m ON m.proof_id = p.id AND m.user_id = :userId WHERE p.id = :proofId",
+    { replacements: { proofId, userId }, type: QueryTypes.SELECT },
+  );
+  return rows.length ? { role: rows[0].role ?? null } : null;
 }
 
 export async function getMembershipRole(proofId: number, userId: number): Promise<ProofRole | null> {

@@ -1,7 +1,7 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { requireStepAccess } from "@/lib/data/reviews";
-import { attachClaims, awaitVerdicts, listStepClaims } from "@/lib/data/claims";
+import { attachClaims, awaitVerdicts, listStepClaims, storeClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
 import { attachClaimsSchema } from "@/lib/validations/claim";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
@@ -26,9 +26,9 @@ export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireProofRole(proofId, "author");
   const input = await readBody(request, attachClaimsSchema);
-  const claims = await attachClaims(proofId, stepId, user.id, input.claims);
   const wait = Math.min(Number(new URL(request.url).searchParams.get("wait")) || 0, 60);
-  if (wait <= 0) return Response.json({ claims }, { status: 202 });
-  const settled = await awaitVerdicts(proofId, claims.map((c) => c.id), wait * 1000);
+  if (wait <= 0) return Response.json({ claims: await attachClaims(proofId, stepId, user.id, input.claims) }, { status: 202 });
+  const ids = await storeClaims(proofId, stepId, user.id, input.claims);
+  const settled = await awaitVerdicts(stepId, ids, wait * 1000);
   return Response.json({ claims: settled }, { status: settled.some((c) => c.status === "pending") ? 202 : 200 });
 });
