@@ -116,12 +116,15 @@ interface HealthProbes {
 
 /**
  * GET /api/health every 100 ms for `seconds`, from a child process of its own so that the load
- * generator's event loop never delays the probe.
+ * generator's event loop never delays the probe. The child's first request is a warm-up and is not
+ * timed: Node loads its fetch implementation on first use, and that alone took 50–80 ms on an idle
+ * server here (the first timed probe of a fresh process was always the slowest, with or without load).
  */
 function probeHealth(url: string, seconds: number): Promise<HealthProbes> {
   const code = `
     const times = [], database = [], end = Date.now() + ${seconds * 1000};
     (async () => {
+      await fetch(${JSON.stringify(`${url}/api/health`)}).then((r) => r.arrayBuffer()).catch(() => undefined);
       while (Date.now() < end) {
         const t = performance.now();
         const db = await fetch(${JSON.stringify(`${url}/api/health`)}).then((r) => r.json()).then((j) => j.database.latencyMs).catch(() => undefined);
