@@ -3,6 +3,23 @@
  * Pure functions, shared by pages, handlers and exports.
  */
 
+/**
+ * The label of a step: its case's number, a colon, and its place in the case ("2.1:3" is the third
+ * step of case 2.1). A dot would be ambiguous: "2.1.3" could as well be case 2.1.3.
+ */
+export const stepLabel = (caseNumber: string, place: number): string => `${caseNumber}:${place}`;
+
+/** Orders step labels as the proof reads: by case number part by part (a case before its sub-cases), then by place. */
+export function compareStepLabels(a: string, b: string): number {
+  const parts = (label: string) => {
+    const [caseNumber, place] = label.split(":");
+    return { caseParts: caseNumber.split(".").map(Number), place: Number(place) };
+  };
+  const x = parts(a), y = parts(b);
+  for (let i = 0; i < Math.min(x.caseParts.length, y.caseParts.length); i++) if (x.caseParts[i] !== y.caseParts[i]) return x.caseParts[i] - y.caseParts[i];
+  return x.caseParts.length - y.caseParts.length || x.place - y.place;
+}
+
 export interface CaseRow {
   id: number;
   parentId: number | null;

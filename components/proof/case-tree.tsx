@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { CaseNode } from "@/lib/proof-tree";
+import { stepLabel, type CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
@@ -48,7 +48,7 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 <li key={s.id} className="px-4 py-3" data-testid="step">
                   <p className="flex flex-wrap items-center gap-2 font-mono text-xs text-stone-500">
                     <Link href={`/proofs/${options.proofId}/steps/${s.id}`} className="text-lichen-700 hover:underline">
-                      Step {c.number}.{j + 1}
+                      Step {stepLabel(c.number, j + 1)}
                     </Link>
                     {s.revision && <span>revision {s.revision.number} by {s.revision.authorName}</span>}
                     {s.claims.map((st, k) => (

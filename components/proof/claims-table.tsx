@@ -8,10 +8,10 @@ import {
 } from "@tanstack/react-table";
 import type { ClaimRowView } from "@/lib/data/claims";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
+import { compareStepLabels } from "@/lib/proof-tree";
 
 const col = createColumnHelper<ClaimRowView>();
 // Step numbers sort as 1.2 < 1.10 < 2.1.
-const byNumber = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
 
 /** Every claim of the proof: sort by any column, filter by kind and verdict, jump to the step. */
 export function ClaimsTable({ proofId, claims }: { proofId: number; claims: ClaimRowView[] }) {
@@ -21,7 +21,7 @@ export function ClaimsTable({ proofId, claims }: { proofId: number; claims: Clai
     () => [
       col.accessor("stepNumber", {
         header: "Step",
-        sortingFn: (a, b) => byNumber(a.original.stepNumber, b.original.stepNumber),
+        sortingFn: (a, b) => compareStepLabels(a.original.stepNumber, b.original.stepNumber),
         cell: (c) => (
           <Link href={`/proofs/${proofId}/steps/${c.row.original.stepId}`} className="font-mono text-lichen-700 hover:underline">
             {c.getValue()}

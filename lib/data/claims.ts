@@ -10,7 +10,7 @@ import { isVerifying, resumeStale, scheduleVerification, verificationSettled } f
 import type { ClaimPicture } from "@/lib/verification/picture";
 import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
 
 export { verificationSettled };
@@ -219,7 +219,7 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
   if (steps.length === 0) return [];
   const place = new Map<number, string>();
-  for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, `${numbered.get(c.id)!.number}.${i + 1}`));
+  for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));
   const rows = await Claim.findAll({
     where: { stepId: { [Op.in]: steps.map((s) => s.id) } },
     attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt", "updatedAt", "createdBy", "checkedBy"],

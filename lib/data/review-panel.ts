@@ -2,7 +2,7 @@ import "server-only";
 /** What the review panel under a step shows (verdicts, stale approvals, disputes with threads, comments) and the queue's step view. */
 import { models } from "@/models";
 import type { DisputeState } from "@/models/review";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, disputeRefusal, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
 import { stepStatus, type StepStatus } from "@/lib/review/states";
 import { canSeeStep, claimStatuses, type StepRef } from "./reviews";
@@ -144,7 +144,7 @@ export async function describeStep(step: StepRef): Promise<StepDescription> {
     proofTitle: proof?.title ?? "",
     caseNumber: c?.number ?? "?",
     caseTitle: c?.title ?? "",
-    stepLabel: `${c?.number ?? "?"}.${row?.position ?? "?"}`,
+    stepLabel: c && row ? stepLabel(c.number, row.position) : "?",
     revision: revision ? { id: revision.id, number: revision.number, body: revision.body, authorName: author?.name ?? "" } : null,
   };
 }

@@ -4,7 +4,7 @@ import "server-only";
  * the reviewer's and the author's queues, and per-reviewer progress for editors.
  */
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { caseState, proofState, stepStatus, isUnresolved, type CaseFacts, type CaseState, type ProofState, type StepFacts } from "@/lib/review/states";
 import { expandScope } from "@/lib/review/rules";
 import type { DisputeState } from "@/models/review";
@@ -88,7 +88,7 @@ const proofIdsWhere = async (userId: number, role: "author" | "reviewer" | "edit
 export interface QueueStepRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; caseTitle: string; revision: number; reason: "not reviewed" | "needs re-review"; since: string }
 export interface QueueDisputeRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; disputeId: number; state: DisputeState; reviewerName: string; revision: number; since: string }
 
-const labelOf = (f: Awaited<ReturnType<typeof loadFacts>>, s: StepRow) => `${f.numbered.get(s.caseId)?.number ?? "?"}.${s.position}`;
+const labelOf = (f: Awaited<ReturnType<typeof loadFacts>>, s: StepRow) => stepLabel(f.numbered.get(s.caseId)?.number ?? "?", s.position);
 
 /** A reviewer's queue: steps waiting for their verdict at the latest revision, and their disputes the authors answered. */
 export async function getReviewerQueue(userId: number): Promise<{ steps: QueueStepRow[]; answered: QueueDisputeRow[] }> {

@@ -3,7 +3,7 @@ import { diffLines } from "diff";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { liveCases } from "@/lib/data/cases";
 
 export interface RevisionView {
@@ -22,7 +22,7 @@ export interface StepDetail {
   caseId: number;
   caseNumber: string;
   caseTitle: string;
-  /** "3.2.1": the case number and the step's place in it. */
+  /** "3.2:1": the case number and the step's place in it (see stepLabel). */
   number: string;
   latest: RevisionView | null;
   revisions: Array<Omit<RevisionView, "body">>;
@@ -71,7 +71,7 @@ export async function getStep(proofId: number, stepId: number): Promise<StepDeta
     caseId: step.caseId,
     caseNumber: node.number,
     caseTitle: node.title,
-    number: `${node.number}.${place}`,
+    number: stepLabel(node.number, place),
     latest: revisions[0] ? revisionView(revisions[0]) : null,
     revisions: revisions.map((r) => {
       const { body: _body, ...rest } = revisionView(r);

@@ -48,7 +48,7 @@ describe("proof workspace in the browser", () => {
     await page.getByTestId("add-step").getByRole("textbox").fill("$K_{1,5} \\subseteq G$, hence\n\n$$\n\\rho(G) \\ge \\rho(K_{1,5}) = \\sqrt{5}.\n$$");
     await page.getByRole("button", { name: "Add step and open it" }).click();
     await page.waitForURL(/\/steps\/\d+$/);
-    await page.getByText("Step 1.1").first().waitFor();
+    await page.getByText("Step 1:1").first().waitFor();
     expect(await page.locator("main .katex").count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator("main .katex-display").count()).toBeGreaterThanOrEqual(1);
 
