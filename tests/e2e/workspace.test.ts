@@ -89,12 +89,12 @@ describe("proof workspace in the browser", () => {
     await table.waitFor();
     expect(await table.locator('tbody [data-verdict="verified"]').count()).toBe(1);
     await table.getByLabel("Verdict").selectOption("verified");
-    expect(await table.getByRole("link", { name: "1.1" }).count()).toBe(1);
+    expect(await table.getByRole("link", { name: "1:1" }).count()).toBe(1);
 
-    // Reordering renumbers: case 1 moves down and its step becomes 2.1; a case is edited in place.
+    // Reordering renumbers: case 1 moves down and its step becomes 2:1; a case is edited in place.
     await page.getByRole("button", { name: "move case 1 down" }).click();
     await page.locator('[data-case-number="1"]', { hasText: "All degrees at most 4" }).waitFor();
-    await page.getByTestId("claims-table").getByRole("link", { name: "2.1" }).waitFor();
+    await page.getByTestId("claims-table").getByRole("link", { name: "2:1" }).waitFor();
     await page.getByTestId("case-actions-1").getByRole("button", { name: "✎ Edit" }).click();
     await page.getByTestId("edit-case").getByLabel("Title").fill("Maximum degree at most 4");
     await page.getByTestId("edit-case").getByRole("button", { name: "Save case" }).click();
