@@ -6,7 +6,7 @@ import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
 import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
-import { FormField } from "@/components/proof/form-field";
+import { FormField, SubmitRow } from "@/components/proof/form-field";
 
 const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   "spectral-radius-bound": "spectral radius bound  ρ(G) op b",
@@ -170,16 +170,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       <FormField label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" error={err("certificate")}>
         <textarea {...register("certificate")} rows={2} className={input} />
       </FormField>
-      <div className="flex items-center gap-3">
-        <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
-          {formState.isSubmitting ? "Checking the input…" : "Attach claim"}
-        </button>
-        {message && (
-          <p className="text-sm" aria-live="polite">
-            {message}
-          </p>
-        )}
-      </div>
+      <SubmitRow label="Attach claim" busyLabel="Checking the input…" busy={formState.isSubmitting} message={message} />
     </form>
   );
 }

@@ -4,7 +4,7 @@
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
 import { z } from "zod";
-import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
+import { CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
 
@@ -151,4 +151,40 @@ export function formFieldOf(path: string): keyof ClaimForm | null {
   if (/^parameter\b/.test(rest)) return "parameter";
   if (/^certificate\b/.test(rest)) return "certificate";
   return null;
+}
+
+/**
+ * The claims of a claims document as the offline checker reads it (one `cairn-claim/1` claim, an
+ * array of claims, or `{ "format": "cairn-claims/1", "claims": [...] }`), ready for the API; the
+ * claims themselves are validated by the server, which names the field of any problem.
+ */
+export function claimsFromDocument(text: string): { claims: Record<string, unknown>[] } | { problem: string } {
+  if (!text.trim()) return { problem: "Paste a claims document or choose a file." };
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (e) {
+    return { problem: `This is not JSON: ${(e as Error).message}` };
+  }
+  const isObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
+  let list: unknown[] | null = null;
+  if (Array.isArray(json)) list = json;
+  else if (isObject(json) && json.format === CLAIM_FORMAT) list = [json];
+  else if (isObject(json) && json.format === CLAIMS_FILE_FORMAT && Array.isArray(json.claims)) list = json.claims;
+  if (list === null)
+    return { problem: `Expected one "${CLAIM_FORMAT}" claim, an array of claims, or { "format": "${CLAIMS_FILE_FORMAT}", "claims": [...] }.` };
+  if (list.length === 0) return { problem: "The document holds no claims." };
+  if (list.length > MAX_CLAIMS_PER_REQUEST) return { problem: `The document holds ${list.length} claims; attach at most ${MAX_CLAIMS_PER_REQUEST} at once (split the file).` };
+  const notObject = list.findIndex((c) => !isObject(c));
+  if (notObject >= 0) return { problem: `Claim ${notObject + 1} is not a JSON object.` };
+  return { claims: list as Record<string, unknown>[] };
+}
+
+/** A server issue about claim N of a document, in words: "claim 2 (E7-below-2), graph.text: …". */
+export function describeClaimIssue(path: string, message: string, claims: readonly Record<string, unknown>[]): string {
+  const m = /^claims\.(\d+)\.?(.*)$/.exec(path);
+  if (!m) return `${path}: ${message}`;
+  const i = Number(m[1]);
+  const id = typeof claims[i]?.id === "string" ? ` (${claims[i].id as string})` : "";
+  return `claim ${i + 1}${id}${m[2] ? `, ${m[2]}` : ""}: ${message}`;
 }

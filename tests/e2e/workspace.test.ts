@@ -1,6 +1,6 @@
 /** The author's day in the browser: draft a proof with two cases, write a step with math, attach a claim, see its verdict and picture. */
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
 
 const baseUrl = inject("baseUrl");
@@ -12,6 +12,17 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
+
+/** Signs the demo author in and makes (through the API) a proof with one case and one step; returns the step's page. */
+async function authorWithOneStep(page: Page, title: string, body: string): Promise<string> {
+  await signInAs(page, baseUrl, "author");
+  await page.waitForURL(`${baseUrl}/proofs`);
+  const post = async (path: string, data: unknown) => (await page.request.post(`${baseUrl}${path}`, { data })).json();
+  const { proof } = await post("/api/proofs", { title, statement: "$\\rho < 2$" });
+  const { case: c } = await post(`/api/proofs/${proof.id}/cases`, { title: "Only case", condition: "" });
+  const { step } = await post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body });
+  return `${baseUrl}/proofs/${proof.id}/steps/${step.id}`;
+}
 
 describe("proof workspace in the browser", () => {
   it("drafts a proof with two cases, a step with math and a verified claim with its picture", async () => {
@@ -102,17 +113,37 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
+  it("attaches every claim of a claims file at once, and none when one of them cannot be read", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const stepUrl = await authorWithOneStep(page, "A claims file", "The Dynkin diagrams.");
+    await page.goto(stepUrl);
+    await page.getByText("Attach several claims at once from a claims file").click();
+    const form = page.getByTestId("claim-file-form");
+    const claim = (id: string, text: string, op: string) => ({ format: "cairn-claim/1", id, kind: "spectral-radius-bound", graph: { format: "named", text }, op, bound: "2" });
+
+    // The second claim's graph does not parse: a 422 names it, and neither claim is stored.
+    const bad = { format: "cairn-claims/1", claims: [claim("E7-below-2", "E(7)", "<"), claim("broken", "E(", "<")] };
+    await form.getByLabel("claims document").fill(JSON.stringify(bad));
+    await form.getByRole("button", { name: "Attach all" }).click();
+    await form.getByTestId("claim-file-problems").getByText(/claim 2 \(broken\), graph/).waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(0);
+
+    // Fixed, both are attached and verified: E7 below 2, affine E8 exactly 2 (Smith 1970).
+    const good = { format: "cairn-claims/1", claims: [claim("E7-below-2", "E(7)", "<"), claim("E8-affine-is-2", "E~(8)", "=")] };
+    await form.getByLabel("claims document").fill(JSON.stringify(good));
+    await form.getByRole("button", { name: "Attach all" }).click();
+    await form.getByText("Attached 2 claims.", { exact: false }).waitFor();
+    await page.locator('[data-testid="claim"] [data-verdict="verified"]').nth(1).waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(2);
+    await context.close();
+  });
+
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
     const context = await browser.newContext();
     const first = await context.newPage();
-    await signInAs(first, baseUrl, "author");
-    await first.waitForURL(`${baseUrl}/proofs`);
-    const post = async (path: string, data: unknown) => (await first.request.post(`${baseUrl}${path}`, { data })).json();
-    const { proof } = await post("/api/proofs", { title: "Two tabs", statement: "$\\rho < 2$" });
-    const { case: c } = await post(`/api/proofs/${proof.id}/cases`, { title: "Only case", condition: "" });
-    const { step } = await post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body: "First draft." });
+    const stepUrl = await authorWithOneStep(first, "Two tabs", "First draft.");
     const second = await context.newPage();
-    const stepUrl = `${baseUrl}/proofs/${proof.id}/steps/${step.id}`;
     await first.goto(stepUrl);
     await second.goto(stepUrl);
     const label = "step text (Markdown with $…$ math)";

@@ -8,6 +8,7 @@ import { StepEditor } from "@/components/editor/step-editor";
 import { RevisionHistory } from "@/components/editor/revision-history";
 import { ClaimList } from "@/components/claims/claim-list";
 import { ClaimForm } from "@/components/claims/claim-form";
+import { ClaimFileForm } from "@/components/claims/claim-file-form";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { orNotFound, pageRole } from "../../page-access";
@@ -51,6 +52,12 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       </div>
       <ClaimList proofId={proofId} stepId={step.id} initial={claims} canRecheck={role !== "reviewer"} />
       {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
+      {isAuthor && (
+        <details className="mt-3">
+          <summary className="cursor-pointer text-sm text-lichen-700">Attach several claims at once from a claims file</summary>
+          <ClaimFileForm proofId={proofId} stepId={step.id} />
+        </details>
+      )}
       <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
       <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
     </main>
