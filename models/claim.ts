@@ -22,6 +22,9 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
   /** Display data (layout, embedding image, float spectrum) as JSON; never part of a verdict. */
   declare picture: CreationOptional<string | null>;
   declare createdBy: number;
+  /** Set when an author withdrew the claim; the default scope leaves withdrawn claims out of every query. */
+  declare withdrawnAt: CreationOptional<Date | null>;
+  declare withdrawnBy: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -44,10 +47,13 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
         checkedAt: { type: DataTypes.DATE(3), allowNull: true },
         picture: { type: DataTypes.TEXT("long"), allowNull: true },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        withdrawnAt: { type: DataTypes.DATE(3), allowNull: true },
+        withdrawnBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "claims", underscored: true },
+      // Withdrawn claims are history: only Claim.unscoped() sees them.
+      { sequelize, tableName: "claims", underscored: true, defaultScope: { where: { withdrawnAt: null } } },
     );
   }
 }

@@ -40,6 +40,7 @@ function initModels() {
   StepRevision.belongsTo(User, { as: "author", foreignKey: "authorId" });
   Step.hasMany(Claim, { as: "claims", foreignKey: "stepId" });
   Claim.belongsTo(User, { as: "checker", foreignKey: "checkedBy", constraints: false });
+  Claim.belongsTo(User, { as: "withdrawer", foreignKey: "withdrawnBy", constraints: false });
   Step.hasMany(Review, { as: "reviews", foreignKey: "stepId" });
   Review.belongsTo(User, { as: "reviewer", foreignKey: "reviewerId" });
   Step.hasMany(Comment, { as: "comments", foreignKey: "stepId" });

@@ -7,20 +7,25 @@ import { apiFetch } from "@/components/proof/api-client";
 import { VerdictBadge } from "./verdict-badge";
 
 /** One claim: verdict, method, reason, certificate summary, who checked it with which checker, picture. */
-export function ClaimCard({ claim, proofId, canRecheck, onChanged }: { claim: ClaimView; proofId: number; canRecheck: boolean; onChanged: () => void }) {
+export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck: boolean; canWithdraw: boolean; onChanged: () => void }) {
+  const { claim, proofId, canRecheck, canWithdraw, onChanged } = props;
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const recheck = async () => {
+  const act = async (method: "POST" | "DELETE", path: string) => {
     setBusy(true);
     setError(null);
     try {
-      await apiFetch(`/api/proofs/${proofId}/claims/${claim.id}/recheck`, { method: "POST" });
+      await apiFetch(`/api/proofs/${proofId}/claims/${claim.id}${path}`, { method });
       onChanged();
     } catch (e) {
       setError((e as Error).message);
     } finally {
       setBusy(false);
     }
+  };
+  const recheck = () => act("POST", "/recheck");
+  const withdraw = () => {
+    if (window.confirm("Withdraw this claim? It stays in the history with your name, but no longer counts for the step, the case or an export.")) void act("DELETE", "");
   };
   const first = claim.picture?.pictures[0];
   return (
@@ -32,6 +37,11 @@ export function ClaimCard({ claim, proofId, canRecheck, onChanged }: { claim: Cl
         {canRecheck && claim.status !== "pending" && (
           <button type="button" onClick={recheck} disabled={busy} className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100">
             ↻ Re-check
+          </button>
+        )}
+        {canWithdraw && (
+          <button type="button" onClick={withdraw} disabled={busy} className={`${canRecheck && claim.status !== "pending" ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}>
+            ⨯ Withdraw
           </button>
         )}
       </div>

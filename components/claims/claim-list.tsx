@@ -1,16 +1,20 @@
 "use client";
 import useSWR from "swr";
-import type { ClaimView } from "@/lib/data/claims";
+import type { ClaimView, WithdrawnClaimView } from "@/lib/data/claims";
 import { jsonFetcher } from "@/components/proof/api-client";
 import { ClaimCard } from "./claim-card";
 
-/** The step's claims, polled every second while any is pending. */
-export function ClaimList({ proofId, stepId, initial, canRecheck }: { proofId: number; stepId: number; initial: ClaimView[]; canRecheck: boolean }) {
-  const { data, error, mutate } = useSWR<{ claims: ClaimView[] }>(`/api/proofs/${proofId}/steps/${stepId}/claims`, jsonFetcher, {
-    fallbackData: { claims: initial },
+type StepClaims = { claims: ClaimView[]; withdrawn: WithdrawnClaimView[] };
+
+/** The step's claims, polled every second while any is pending, and below them the withdrawn ones. */
+export function ClaimList(props: { proofId: number; stepId: number; initial: StepClaims; canRecheck: boolean; canWithdraw: boolean }) {
+  const { proofId, stepId, initial, canRecheck, canWithdraw } = props;
+  const { data, error, mutate } = useSWR<StepClaims>(`/api/proofs/${proofId}/steps/${stepId}/claims`, jsonFetcher, {
+    fallbackData: initial,
     refreshInterval: (latest) => (latest?.claims.some((c) => c.status === "pending") ? 1000 : 0),
   });
   const claims = data?.claims ?? [];
+  const withdrawn = data?.withdrawn ?? [];
   return (
     <section aria-labelledby="claims-heading" className="mt-8">
       <h2 id="claims-heading" className="text-xl font-semibold">
@@ -26,9 +30,24 @@ export function ClaimList({ proofId, stepId, initial, canRecheck }: { proofId: n
       ) : (
         <ul className="mt-3 space-y-4">
           {claims.map((c) => (
-            <ClaimCard key={c.id} claim={c} proofId={proofId} canRecheck={canRecheck} onChanged={() => void mutate()} />
+            <ClaimCard key={c.id} claim={c} proofId={proofId} canRecheck={canRecheck} canWithdraw={canWithdraw} onChanged={() => void mutate()} />
           ))}
         </ul>
+      )}
+      {withdrawn.length > 0 && (
+        <details className="mt-3 text-sm text-stone-600" data-testid="withdrawn-claims">
+          <summary className="cursor-pointer">
+            {withdrawn.length} withdrawn {withdrawn.length === 1 ? "claim" : "claims"} (kept as history; they count nowhere)
+          </summary>
+          <ul className="mt-2 space-y-1">
+            {withdrawn.map((w) => (
+              <li key={w.id} data-testid="withdrawn-claim">
+                <span className="font-mono text-xs">{w.kind}</span> {w.statement ?? "(not checked)"} — was {w.status}; withdrawn by {w.withdrawnByName ?? "a former member"} on{" "}
+                {w.withdrawnAt.slice(0, 16).replace("T", " ")} UTC
+              </li>
+            ))}
+          </ul>
+        </details>
       )}
     </section>
   );

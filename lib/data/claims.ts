@@ -189,6 +189,50 @@ export async function recheck(proofId: number, claimId: number, userId: number):
   return claimView(row);
 }
 
+/**
+ * Withdraws a claim (an author's mistake, say a typo in a graph that left a refuted claim). The row
+ * stays, with who withdrew it and when, and an audit event; the proof's states, tables and exports
+ * leave it out from now on. A claim already withdrawn is not found (404).
+ */
+export async function withdrawClaim(proofId: number, claimId: number, userId: number): Promise<WithdrawnClaimView> {
+  const { Claim, AuditEvent } = models();
+  const row = await claimInProof(proofId, claimId);
+  await getSequelize().transaction(async (transaction) => {
+    const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
+    if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
+    await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
+  });
+  return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
+}
+
+export interface WithdrawnClaimView {
+  id: number;
+  kind: string;
+  statement: string | null;
+  status: ClaimStatus;
+  withdrawnAt: string;
+  withdrawnByName: string | null;
+}
+
+/** The step's withdrawn claims, most recent first: kept as history, shown apart from the live ones. */
+export async function listWithdrawnClaims(stepId: number): Promise<WithdrawnClaimView[]> {
+  const { Claim, User } = models();
+  const rows = await Claim.unscoped().findAll({
+    where: { stepId, withdrawnAt: { [Op.ne]: null } },
+    attributes: ["id", "kind", "statement", "status", "withdrawnAt"],
+    include: [{ model: User, as: "withdrawer", attributes: ["name"], required: false }],
+    order: [["withdrawnAt", "DESC"], ["id", "DESC"]],
+  });
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    statement: r.statement,
+    status: r.status,
+    withdrawnAt: r.withdrawnAt!.toISOString(),
+    withdrawnByName: (r as unknown as { withdrawer?: { name: string } | null }).withdrawer?.name ?? null,
+  }));
+}
+
 export async function listStepClaims(stepId: number): Promise<ClaimView[]> {
   const { Claim } = models();
   const rows = await Claim.findAll({ where: { stepId }, include: withChecker(), order: [["position", "ASC"], ["id", "ASC"]] });

@@ -113,7 +113,7 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
-  it("attaches every claim of a claims file at once, and none when one of them cannot be read", async () => {
+  it("attaches every claim of a claims file at once (none when one cannot be read) and withdraws one", async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     const stepUrl = await authorWithOneStep(page, "A claims file", "The Dynkin diagrams.");
@@ -136,6 +136,14 @@ describe("proof workspace in the browser", () => {
     await form.getByText("Attached 2 claims.", { exact: false }).waitFor();
     await page.locator('[data-testid="claim"] [data-verdict="verified"]').nth(1).waitFor();
     expect(await page.getByTestId("claim").count()).toBe(2);
+
+    // Withdrawing one (after confirming) leaves one live claim and one line of history.
+    page.once("dialog", (dialog) => void dialog.accept());
+    await page.getByTestId("claim").first().getByRole("button", { name: "⨯ Withdraw" }).click();
+    await page.getByTestId("withdrawn-claims").waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(1);
+    await page.getByTestId("withdrawn-claims").locator("summary").click();
+    expect(await page.getByTestId("withdrawn-claim").first().textContent()).toMatch(/withdrawn by Ada Quenby/);
     await context.close();
   });
 

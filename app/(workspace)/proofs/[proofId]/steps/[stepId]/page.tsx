@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getStep } from "@/lib/data/steps";
-import { listStepClaims } from "@/lib/data/claims";
+import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepEditor } from "@/components/editor/step-editor";
 import { RevisionHistory } from "@/components/editor/revision-history";
@@ -26,7 +26,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
     throw e instanceof AppError && e.status === 403 ? notFoundError("This step") : e;
   }));
   const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
-  const claims = await listStepClaims(step.id);
+  const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
   const isAuthor = role === "author";
   return (
     <main>
@@ -50,7 +50,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       <div className="mt-8">
         <VerdictCaution />
       </div>
-      <ClaimList proofId={proofId} stepId={step.id} initial={claims} canRecheck={role !== "reviewer"} />
+      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn }} canRecheck={role !== "reviewer"} canWithdraw={isAuthor} />
       {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
       {isAuthor && (
         <details className="mt-3">

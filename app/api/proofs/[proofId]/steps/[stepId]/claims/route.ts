@@ -1,19 +1,19 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { requireStepAccess } from "@/lib/data/reviews";
-import { attachClaims, awaitVerdicts, listStepClaims, storeClaims } from "@/lib/data/claims";
+import { attachClaims, awaitVerdicts, listStepClaims, listWithdrawnClaims, storeClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
 import { attachClaimsSchema } from "@/lib/validations/claim";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 
-/** The step's claims with their verdicts (poll this while any is `pending`); any member. */
+/** The step's claims with their verdicts (poll this while any is `pending`) and its withdrawn claims; any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   await stepInProof(proofId, stepId);
-  return Response.json({ claims: await listStepClaims(stepId) });
+  return Response.json({ claims: await listStepClaims(stepId), withdrawn: await listWithdrawnClaims(stepId) });
 });
 
 /**
