@@ -160,6 +160,8 @@ async function run(options: BenchOptions): Promise<void> {
       graph: { format: "edges", text: w.edges.map(([u, v]) => `${u} ${v}`).join("\n") },
     };
     const duration = options.quick ? 5 : 20;
+    // Warm-up, not timed: the first claim loads the route's code and starts the worker pool, once per server.
+    await api(stack.url, cookie, `/api/proofs/${proof.id}/steps/${step.id}/claims?wait=60`, { claims: [claim] });
     const baseline = await probeHealth(stack.url, 3);
     const statuses = new Map<number, number>();
     const times: number[] = [];
