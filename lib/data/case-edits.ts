@@ -115,3 +115,29 @@ export async function deleteCase(proofId: number, caseId: number, userId: number
     await audit(proofId, userId, "case.deleted", caseId, JSON.stringify(held), transaction);
   });
 }
+
+/**
+ * Brings a deleted case back into the tree, with its sub-cases, steps, revisions and reviews as they
+ * were; it goes last among its siblings. A case whose parent is itself deleted cannot come back on
+ * its own (409 naming the parent to restore first); a case that is not deleted is a 409 too.
+ */
+export async function restoreCase(proofId: number, caseId: number, userId: number): Promise<void> {
+  const { Case } = models();
+  await getSequelize().transaction(async (transaction) => {
+    const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+    const c = all.find((x) => x.id === caseId);
+    if (!c) throw notFound("This case");
+    if (!c.deletedAt) throw conflict("This case is not deleted; there is nothing to restore.");
+    const hidden = hiddenCaseIds(all);
+    if (c.parentId !== null && hidden.has(c.parentId)) {
+      // Name the outermost deleted ancestor: restoring it first makes the way back shortest.
+      let top: CaseRow | undefined;
+      for (let a = all.find((x) => x.id === c.parentId); a; a = all.find((x) => x.id === a!.parentId)) if (a.deletedAt) top = a;
+      if (!top) throw notFound("This case"); // hidden without a deleted ancestor cannot happen
+      throw conflict(`Its parent case “${top.title}” is deleted too; restore that one first (this case comes back with it).`, { restoreFirst: top.id });
+    }
+    const live = all.filter((x) => !hidden.has(x.id));
+    await c.update({ deletedAt: null, position: siblingsOf(live, c.parentId).length + 1 }, { transaction });
+    await audit(proofId, userId, "case.restored", caseId, null, transaction);
+  });
+}

@@ -147,6 +147,24 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
+  it("deletes a case that holds a step (after confirming) and restores it with its step", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const stepUrl = await authorWithOneStep(page, "Delete and restore", "A step worth keeping.");
+    await page.goto(stepUrl.replace(/\/steps\/\d+$/, ""));
+    const actions = page.getByTestId("case-actions-1");
+    await actions.getByRole("button", { name: "✗ Delete" }).click();
+    await actions.getByRole("button", { name: "Yes, delete it" }).click();
+    await page.getByTestId("deleted-cases").waitFor();
+    expect(await page.locator('[data-case-number="1"]').count()).toBe(0);
+    await page.getByTestId("deleted-cases").locator("summary").click();
+    await page.getByTestId("deleted-case").getByRole("button", { name: "↺ Restore" }).click();
+    await page.locator('[data-case-number="1"]', { hasText: "Only case" }).waitFor();
+    await page.getByText("Step 1:1").waitFor();
+    expect(await page.getByTestId("deleted-cases").count()).toBe(0);
+    await context.close();
+  });
+
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
     const context = await browser.newContext();
     const first = await context.newPage();

@@ -42,7 +42,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
         {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
         <CaseTree nodes={overview.cases} options={{ proofId, editable, targets }} />
         {editable && <AddCaseForm proofId={proofId} parentId={null} />}
-        <DeletedCases cases={deleted} />
+        <DeletedCases proofId={proofId} cases={deleted} editable={editable} />
         <h2 className="mb-3 mt-10 text-xl font-semibold">All claims</h2>
         <div className="mb-3">
           <VerdictCaution />
