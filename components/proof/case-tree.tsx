@@ -3,6 +3,7 @@ import { stepLabel, type CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
+import { StepMoveButtons } from "./step-move-buttons";
 import { CaseStateBadge } from "./case-state-badge";
 import { CaseActions } from "./case-actions";
 
@@ -50,6 +51,9 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                     <Link href={`/proofs/${options.proofId}/steps/${s.id}`} className="text-lichen-700 hover:underline">
                       Step {stepLabel(c.number, j + 1)}
                     </Link>
+                    {options.editable && c.steps.length > 1 && (
+                      <StepMoveButtons proofId={options.proofId} stepId={s.id} label={stepLabel(c.number, j + 1)} first={j === 0} last={j === c.steps.length - 1} />
+                    )}
                     {s.revision && <span>revision {s.revision.number} by {s.revision.authorName}</span>}
                     {s.claims.map((st, k) => (
                       <VerdictBadge key={k} status={st} />

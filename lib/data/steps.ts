@@ -94,6 +94,25 @@ export async function createStep(proofId: number, caseId: number, userId: number
 }
 
 /**
+ * Moves a step one place up or down among the steps of its case (places stay 1..k, so labels such as
+ * 2.1:3 follow); moving the first step up or the last down changes nothing. Reviews, revisions and
+ * claims stay with the step.
+ */
+export async function moveStep(proofId: number, stepId: number, userId: number, move: "up" | "down"): Promise<void> {
+  const { Step, AuditEvent } = models();
+  const { step } = await stepInProof(proofId, stepId);
+  await getSequelize().transaction(async (transaction) => {
+    const siblings = await Step.findAll({ where: { caseId: step.caseId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+    const i = siblings.findIndex((s) => s.id === stepId);
+    const j = move === "up" ? i - 1 : i + 1;
+    if (i < 0 || j < 0 || j >= siblings.length) return;
+    [siblings[i], siblings[j]] = [siblings[j], siblings[i]];
+    for (const [k, s] of siblings.entries()) if (s.position !== k + 1) await s.update({ position: k + 1 }, { transaction });
+    await AuditEvent.create({ proofId, actorId: userId, action: "step.moved", subjectType: "step", subjectId: stepId, detail: move }, { transaction });
+  });
+}
+
+/**
  * Saves a new immutable revision based on `baseRevisionId`. When someone saved a newer revision
  * meanwhile, nothing is written and the 409 carries that newer revision, so the editor can merge or
  * overwrite knowingly (by saving again with the newer revision as its base).

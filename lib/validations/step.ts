@@ -16,6 +16,9 @@ export const saveRevisionSchema = z.object({
 });
 export type SaveRevisionInput = z.infer<typeof saveRevisionSchema>;
 
+/** Moves a step one place up or down within its case. */
+export const moveStepSchema = z.object({ move: z.enum(["up", "down"], { message: 'move must be "up" or "down"' }) });
+
 export const diffQuerySchema = z.object({
   from: z.coerce.number().int().positive({ message: "from must be a revision number" }),
   to: z.coerce.number().int().positive({ message: "to must be a revision number" }),

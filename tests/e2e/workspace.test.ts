@@ -14,14 +14,14 @@ afterAll(async () => {
 });
 
 /** Signs the demo author in and makes (through the API) a proof with one case and one step; returns the step's page. */
-async function authorWithOneStep(page: Page, title: string, body: string): Promise<string> {
+async function authorWithOneStep(page: Page, title: string, body: string): Promise<{ stepUrl: string; proofUrl: string; caseId: number }> {
   await signInAs(page, baseUrl, "author");
   await page.waitForURL(`${baseUrl}/proofs`);
   const post = async (path: string, data: unknown) => (await page.request.post(`${baseUrl}${path}`, { data })).json();
   const { proof } = await post("/api/proofs", { title, statement: "$\\rho < 2$" });
   const { case: c } = await post(`/api/proofs/${proof.id}/cases`, { title: "Only case", condition: "" });
   const { step } = await post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body });
-  return `${baseUrl}/proofs/${proof.id}/steps/${step.id}`;
+  return { stepUrl: `${baseUrl}/proofs/${proof.id}/steps/${step.id}`, proofUrl: `${baseUrl}/proofs/${proof.id}`, caseId: c.id };
 }
 
 describe("proof workspace in the browser", () => {
@@ -116,7 +116,7 @@ describe("proof workspace in the browser", () => {
   it("attaches every claim of a claims file at once (none when one cannot be read) and withdraws one", async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
-    const stepUrl = await authorWithOneStep(page, "A claims file", "The Dynkin diagrams.");
+    const { stepUrl } = await authorWithOneStep(page, "A claims file", "The Dynkin diagrams.");
     await page.goto(stepUrl);
     await page.getByText("Attach several claims at once from a claims file").click();
     const form = page.getByTestId("claim-file-form");
@@ -147,11 +147,18 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
-  it("deletes a case that holds a step (after confirming) and restores it with its step", async () => {
+  it("reorders the steps of a case, deletes the case (after confirming) and restores it with its steps", async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
-    const stepUrl = await authorWithOneStep(page, "Delete and restore", "A step worth keeping.");
-    await page.goto(stepUrl.replace(/\/steps\/\d+$/, ""));
+    const { proofUrl, caseId } = await authorWithOneStep(page, "Delete and restore", "A step worth keeping.");
+    await page.request.post(`${proofUrl.replace(baseUrl, `${baseUrl}/api`)}/cases/${caseId}/steps`, { data: { body: "A second step, $E_6$." } });
+    await page.goto(proofUrl);
+
+    // The second step moves up: it becomes 1:1 and the first one 1:2.
+    await page.getByRole("button", { name: "move step 1:2 up" }).click();
+    await page.getByTestId("step").first().getByText("A second step").waitFor();
+    expect(await page.getByTestId("step").nth(1).textContent()).toContain("A step worth keeping.");
+
     const actions = page.getByTestId("case-actions-1");
     await actions.getByRole("button", { name: "✗ Delete" }).click();
     await actions.getByRole("button", { name: "Yes, delete it" }).click();
@@ -160,7 +167,8 @@ describe("proof workspace in the browser", () => {
     await page.getByTestId("deleted-cases").locator("summary").click();
     await page.getByTestId("deleted-case").getByRole("button", { name: "↺ Restore" }).click();
     await page.locator('[data-case-number="1"]', { hasText: "Only case" }).waitFor();
-    await page.getByText("Step 1:1").waitFor();
+    await page.getByText("Step 1:2").waitFor();
+    expect(await page.getByTestId("step").count()).toBe(2);
     expect(await page.getByTestId("deleted-cases").count()).toBe(0);
     await context.close();
   });
@@ -168,7 +176,7 @@ describe("proof workspace in the browser", () => {
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
     const context = await browser.newContext();
     const first = await context.newPage();
-    const stepUrl = await authorWithOneStep(first, "Two tabs", "First draft.");
+    const { stepUrl } = await authorWithOneStep(first, "Two tabs", "First draft.");
     const second = await context.newPage();
     await first.goto(stepUrl);
     await second.goto(stepUrl);

@@ -1,6 +1,8 @@
-import { route } from "@/lib/http";
+import { readBody, route } from "@/lib/http";
+import { requireProofRole } from "@/lib/session";
+import { moveStepSchema } from "@/lib/validations/step";
 import { requireStepAccess } from "@/lib/data/reviews";
-import { getStep } from "@/lib/data/steps";
+import { getStep, moveStep } from "@/lib/data/steps";
 import { listStepClaims } from "@/lib/data/claims";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
@@ -12,4 +14,13 @@ export const GET = route(async (_request: Request, { params }: Context) => {
   await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   const step = await getStep(proofId, stepId);
   return Response.json({ step, claims: await listStepClaims(stepId) });
+});
+
+/** Moves the step one place up or down in its case (`{ "move": "up" | "down" }`); authors only. */
+export const PATCH = route(async (request: Request, { params }: Context) => {
+  const { proofId, stepId } = await routeIds(params);
+  const { user } = await requireProofRole(proofId, "author");
+  const { move } = await readBody(request, moveStepSchema);
+  await moveStep(proofId, stepId, user.id, move);
+  return Response.json({ ok: true });
 });
