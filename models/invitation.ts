@@ -14,6 +14,9 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare expiresAt: Date;
   declare usedAt: CreationOptional<Date | null>;
   declare usedBy: CreationOptional<number | null>;
+  /** Set when an editor took the invitation back before it was used; its link then no longer works. */
+  declare revokedAt: CreationOptional<Date | null>;
+  declare revokedBy: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -29,6 +32,8 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         expiresAt: { type: DataTypes.DATE(3), allowNull: false },
         usedAt: { type: DataTypes.DATE(3), allowNull: true },
         usedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        revokedAt: { type: DataTypes.DATE(3), allowNull: true },
+        revokedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         createdAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: "invitations", underscored: true, updatedAt: false },

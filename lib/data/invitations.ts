@@ -94,11 +94,16 @@ export interface InvitationView {
   id: number;
   email: string;
   scope: string;
-  state: "waiting" | "accepted" | "expired";
+  state: InvitationState;
   expiresAt: string;
   createdAt: string;
   mail: { id: number | null; status: MailStatus | "none"; attempts: number; lastError: string | null };
 }
+
+export type InvitationState = "waiting" | "accepted" | "expired" | "revoked";
+
+const stateOf = (r: { usedAt: Date | null; revokedAt: Date | null; expiresAt: Date }, now = Date.now()): InvitationState =>
+  r.usedAt ? "accepted" : r.revokedAt ? "revoked" : r.expiresAt.getTime() < now ? "expired" : "waiting";
 
 export async function listInvitations(proofId: number): Promise<InvitationView[]> {
   const { Invitation, InvitationCase, OutgoingMail } = models();
@@ -116,7 +121,7 @@ export async function listInvitations(proofId: number): Promise<InvitationView[]
       id: r.id,
       email: r.email,
       scope: r.scope === "proof" ? "whole proof" : `cases ${scopes.filter((s) => s.invitationId === r.id).map((s) => numbers.get(s.caseId) ?? "?").sort().join(", ")}`,
-      state: r.usedAt ? "accepted" : r.expiresAt.getTime() < now ? "expired" : "waiting",
+      state: stateOf(r, now),
       expiresAt: r.expiresAt.toISOString(),
       createdAt: r.createdAt.toISOString(),
       mail: { id: r.mailId, status: mail?.status ?? "none", attempts: mail?.attempts ?? 0, lastError: mail?.lastError ?? null },
@@ -128,9 +133,28 @@ export async function listInvitations(proofId: number): Promise<InvitationView[]
 export async function retryInvitationMail(proofId: number, invitationId: number): Promise<{ mailStatus: MailStatus }> {
   const inv = await models().Invitation.findOne({ where: { id: invitationId, proofId } });
   if (!inv || !inv.mailId) throw notFound("This invitation");
+  if (inv.revokedAt) throw conflict("This invitation was revoked, so its mail is not sent.", { reason: "revoked" });
   const sent = await retryMailNow(inv.mailId);
   const mail = await models().OutgoingMail.findByPk(inv.mailId);
   return { mailStatus: sent ? "sent" : (mail?.status ?? "pending") };
+}
+
+/**
+ * Takes back an invitation that has not been used: its link stops working at once, and a mail still
+ * waiting to go out is not sent. An accepted invitation cannot be revoked (409); revoking twice is a 409 too.
+ */
+export async function revokeInvitation(proofId: number, invitationId: number, actorId: number): Promise<void> {
+  const { Invitation, OutgoingMail } = models();
+  await getSequelize().transaction(async (transaction) => {
+    const inv = await Invitation.findOne({ where: { id: invitationId, proofId }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!inv) throw notFound("This invitation");
+    if (inv.usedAt) throw conflict("This invitation was already accepted; the reviewer has joined the proof.", { reason: "used" });
+    if (inv.revokedAt) throw conflict("This invitation was already revoked.", { reason: "revoked" });
+    await inv.update({ revokedAt: new Date(), revokedBy: actorId }, { transaction });
+    // A mail still being retried would carry a dead link: mark it failed so that it is not sent.
+    if (inv.mailId) await OutgoingMail.update({ status: "failed", lastError: "not sent: the invitation was revoked" }, { where: { id: inv.mailId, status: "pending" }, transaction });
+    await recordEvent({ proofId, actorId, action: "invitation.revoked", subjectType: "invitation", subjectId: inv.id, detail: inv.email }, transaction);
+  });
 }
 
 export interface InvitationPreview {
@@ -138,7 +162,7 @@ export interface InvitationPreview {
   email: string;
   scope: string;
   inviterName: string;
-  state: "waiting" | "accepted" | "expired";
+  state: InvitationState;
   accountExists: boolean;
 }
 
@@ -166,6 +190,7 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
     const inv = await Invitation.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction.LOCK.UPDATE });
     if (!inv) throw notFound("This invitation link");
     if (inv.usedAt) throw conflict("This invitation link was already used. Ask the editor for a new one if you still need to join.", { reason: "used" });
+    if (inv.revokedAt) throw conflict("This invitation was withdrawn by the proof's editor. Ask them for a new one if you should still join.", { reason: "revoked" });
     if (inv.expiresAt.getTime() < Date.now()) throw conflict("This invitation link has expired. Ask the editor to send a new one.", { reason: "expired" });
     let userId: number;
     let accountCreated = false;

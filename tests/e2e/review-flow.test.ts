@@ -142,4 +142,23 @@ describe("review workflow in the browser", () => {
     expect(await page.getByTestId("invitation-closed").textContent()).toContain("already used");
     await page.context().close();
   });
+
+  it("revokes an invitation sent to the wrong address; its link then says so", async () => {
+    const editor = await personPage("editor");
+    await editor.getByTestId("proof-list").getByRole("link", { name: demoProof.title }).click();
+    await editor.waitForURL(/\/proofs\/\d+$/);
+    await editor.goto(`${editor.url()}/members`);
+    const email = `wrong.address.${Date.now()}@moorfield.example`;
+    const form = editor.getByTestId("invite-form");
+    await form.getByLabel("Reviewer’s e-mail").fill(email);
+    await form.getByRole("button", { name: "Send invitation" }).click();
+    const row = editor.locator('[data-testid="invitation"]', { hasText: email });
+    await row.getByRole("button", { name: "Revoke" }).click();
+    await row.getByText("⊘ revoked").waitFor();
+    const link = /(http\S+\/invitations\/[A-Za-z0-9_-]+)/.exec((await mailTo(email)).text)![1];
+    const stranger = await (await browser.newContext()).newPage();
+    await stranger.goto(link);
+    expect(await stranger.getByTestId("invitation-closed").textContent()).toContain("withdrawn by the proof's editor");
+    for (const p of [editor, stranger]) await p.context().close();
+  });
 });

@@ -139,6 +139,45 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     expect(await models().User.count({ where: { email } })).toBe(0);
   });
 
+  it("revokes a waiting invitation: its link stops working, its mail is not retried, nothing joins", async () => {
+    await actAs("editor");
+    const email = `wrong.address.${Date.now()}@moorfield.example`;
+    const created = await invite(fx.proofId, { email, scope: "proof" });
+    expect(created.status).toBe(201);
+    const { id } = await created.json();
+    const token = tokenFrom((await waitForMail(email, /invites you/)).text);
+    const revoke = () => invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
+    // Only an editor or the proof's owner may revoke.
+    await actAs("reviewer");
+    expect((await revoke()).status).toBe(403);
+    await actAs("editor");
+    expect((await revoke()).status).toBe(200);
+    expect((await revoke()).status).toBe(409); // already revoked
+    const listed = await (await invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }))).json();
+    expect(listed.invitations.find((i: { id: number }) => i.id === id)).toMatchObject({ state: "revoked" });
+    expect((await invitationRetry.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: String(fx.proofId), invitationId: String(id) }))).status).toBe(409);
+    await actAs(null);
+    expect((await (await accept.GET(new Request("http://localhost/x"), params({ token }))).json()).invitation).toMatchObject({ state: "revoked" });
+    const res = await acceptAs(token, { name: "Wrong Person", password: "a long enough password" });
+    expect(res.status).toBe(409);
+    expect((await res.json()).error).toMatchObject({ reason: "revoked", message: expect.stringMatching(/withdrawn by the proof's editor/) });
+    expect(await models().User.count({ where: { email } })).toBe(0);
+    expect(await models().AuditEvent.count({ where: { action: "invitation.revoked", subjectId: id } })).toBe(1);
+  });
+
+  it("cannot revoke an accepted invitation (409)", async () => {
+    await actAs("editor");
+    const email = `joined.${Date.now()}@moorfield.example`;
+    const { id } = await (await invite(fx.proofId, { email, scope: "proof" })).json();
+    const token = tokenFrom((await waitForMail(email, /invites you/)).text);
+    await actAs(null);
+    expect((await acceptAs(token, { name: "Joined Reviewer", password: "a long enough password" })).status).toBe(200);
+    await actAs("editor");
+    const res = await invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
+    expect(res.status).toBe(409);
+    expect((await res.json()).error.message).toMatch(/already accepted/);
+  });
+
   it("accepts while signed in only as the invited address, and asks an existing account to sign in", async () => {
     await actAs("editor");
     const res = await invite(other.proofId, { email: "fen.calloway@tarnhollow.example", scope: "proof" });

@@ -29,7 +29,7 @@ function InvitationBody({ token, preview, user }: { token: string; preview: Invi
   if (preview.state !== "waiting")
     return (
       <p className="mt-4" role="alert" data-testid="invitation-closed">
-        {preview.state === "accepted" ? "This invitation link was already used." : "This invitation link has expired."} Ask the editor for a new one if you still need to join.
+        {{ accepted: "This invitation link was already used.", expired: "This invitation link has expired.", revoked: "This invitation was withdrawn by the proof's editor." }[preview.state]} Ask the editor for a new one if you still need to join.
       </p>
     );
   const callback = encodeURIComponent(`/invitations/${token}`);
