@@ -6,7 +6,8 @@ import "server-only";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { conflict, forbidden, notFound } from "@/lib/errors";
-import { checkBundle, type Bundle, type ExportKind } from "@/lib/core/bundle";
+import type { Bundle, ExportKind } from "@/lib/core/bundle";
+import { checkBundleInPool, WorkerFailure } from "@/lib/verification/pool";
 import { buildBundle } from "@/lib/export/bundle";
 import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
@@ -145,7 +146,10 @@ export async function createExport(proofId: number, user: { id: number; name: st
     throw conflict(`This proof is not ready to certify: ${certification.blockers.join(" ")} You can export a draft instead.`, { blockers: certification.blockers });
   const bundle = buildBundle(snapshot, { kind, exportedAt: new Date().toISOString(), exportedBy: user.name });
   if (kind === "certified") {
-    const report = checkBundle(JSON.parse(JSON.stringify(bundle)), "bundle");
+    // In the worker pool, not here: re-checking every claim of a large proof must not hold up other requests.
+    const report = await checkBundleInPool(JSON.parse(JSON.stringify(bundle)), bundle.items.filter((i) => i.type === "claim").length).catch((e) => {
+      throw conflict(`The bundle could not be re-checked, so it cannot be certified: ${e instanceof WorkerFailure ? e.message : "the checker stopped"}.`);
+    });
     const failing = report.lines.filter((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches));
     if (report.exitCode !== 0)
       throw conflict(`The bundle does not re-check, so it cannot be certified: ${failing.map((l) => `${l.label}: ${l.certificate && !l.certificate.matches ? l.certificate.text : l.text}`).join("; ")}`);

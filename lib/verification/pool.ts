@@ -10,7 +10,8 @@ import { existsSync, mkdirSync, readdirSync, renameSync, statSync } from "node:f
 import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Piscina } from "piscina";
-import type { VerificationTask, WorkerAnswer } from "./types";
+import type { BundleTask, VerificationTask, WorkerAnswer } from "./types";
+import type { BundleCheckReport } from "../core/bundle";
 
 /** Step budget of a check (the core's default); CAIRN_VERIFY_STEP_LIMIT overrides it. */
 export const STEP_LIMIT = Number(process.env.CAIRN_VERIFY_STEP_LIMIT) || 200_000_000;
@@ -45,10 +46,11 @@ export function workerFile(): string {
   return out;
 }
 
-const g = globalThis as unknown as { __cairnVerifyPool?: Piscina<VerificationTask, WorkerAnswer> };
+// One pool, two entries of the worker module: the default (one claim) and `bundle` (a whole export).
+const g = globalThis as unknown as { __cairnVerifyPool?: Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport> };
 
-function pool(): Piscina<VerificationTask, WorkerAnswer> {
-  g.__cairnVerifyPool ??= new Piscina<VerificationTask, WorkerAnswer>({
+function pool(): Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport> {
+  g.__cairnVerifyPool ??= new Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport>({
     filename: workerFile(),
     minThreads: 1,
     // One core stays with the thread that answers requests, so checks never slow the pages down.
@@ -68,9 +70,22 @@ export class WorkerFailure extends Error {
 }
 
 /** Runs one task in the pool; rejects with WorkerFailure when the worker is stopped or dies. */
-export async function runInPool(task: VerificationTask, timeLimitMs = TIME_LIMIT_MS): Promise<WorkerAnswer> {
+export function runInPool(task: VerificationTask, timeLimitMs = TIME_LIMIT_MS): Promise<WorkerAnswer> {
+  return run(task, timeLimitMs) as Promise<WorkerAnswer>;
+}
+
+/**
+ * Re-checks an export bundle in the pool, exactly as the offline checker does; the limit grows with
+ * the number of claims (each has the usual one), up to ten minutes.
+ */
+export function checkBundleInPool(bundle: unknown, claims: number): Promise<BundleCheckReport> {
+  const limit = Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000);
+  return run({ bundle, stepLimit: STEP_LIMIT }, limit, "bundle") as Promise<BundleCheckReport>;
+}
+
+async function run(task: VerificationTask | BundleTask, timeLimitMs: number, name?: string): Promise<WorkerAnswer | BundleCheckReport> {
   try {
-    return await pool().run(task, { signal: AbortSignal.timeout(timeLimitMs) });
+    return await pool().run(task, { signal: AbortSignal.timeout(timeLimitMs), ...(name ? { name } : {}) });
   } catch (e) {
     const name = (e as { name?: string }).name;
     if (name === "AbortError" || name === "TimeoutError")

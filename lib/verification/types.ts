@@ -12,6 +12,14 @@ export interface VerificationTask {
   picture: boolean;
 }
 
+/** Re-check a whole export bundle exactly as a reader will (run by the worker's `bundle` entry). */
+export interface BundleTask {
+  /** The bundle as JSON (a `cairn-bundle/1` document). */
+  bundle: unknown;
+  /** Step budget of each claim's check. */
+  stepLimit: number;
+}
+
 export interface VerificationOutcome {
   status: "verified" | "refuted" | "undecided";
   statement: string;

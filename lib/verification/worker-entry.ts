@@ -11,7 +11,8 @@ import { boundApprox, parseBound } from "../core/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
 import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
-import type { VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
+import type { BundleTask, VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
+import { checkBundle, type BundleCheckReport } from "../core/bundle";
 import { setPriority } from "node:os";
 import { isMainThread } from "node:worker_threads";
 
@@ -131,6 +132,11 @@ export default function answer(task: VerificationTask): WorkerAnswer {
     if (e instanceof ClaimError) return { ok: false, problem: { path: e.path, detail: e.detail } };
     throw e;
   }
+}
+
+/** The worker's `bundle` entry: the offline checker's bundle re-check, off the thread that answers requests. */
+export function bundle(task: BundleTask): BundleCheckReport {
+  return checkBundle(task.bundle, "bundle", { steps: task.stepLimit });
 }
 
 function verifyOne(claim: Claim, task: VerificationTask): VerificationOutcome {
