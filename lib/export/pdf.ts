@@ -4,7 +4,8 @@
  * (openin_any/openout_any = p), and a time limit. Node-only (child_process), framework-free.
  */
 import { execFile, type ExecFileException } from "node:child_process";
-import { access, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { access, mkdir, mkdtemp, readFile, rename, rm, writeFile } from "node:fs/promises";
+import { createHash } from "node:crypto";
 import { constants } from "node:fs";
 import { tmpdir } from "node:os";
 import { delimiter, join } from "node:path";
@@ -80,4 +81,36 @@ export async function pdflatexAvailable(): Promise<boolean> {
     }
   }
   return false;
+}
+
+const inFlight = new Map<string, Promise<Buffer>>();
+let queue: Promise<unknown> = Promise.resolve();
+
+/**
+ * The PDF of an export's LaTeX, compiled once and kept: exports never change, so the file is cached
+ * on disk under the SHA-256 of its source (CAIRN_PDF_CACHE, default .data/pdf-cache). Requests for
+ * the same source while it compiles share that compilation, and pdflatex runs one at a time, so a
+ * burst of downloads cannot start a crowd of TeX processes.
+ */
+export async function cachedPdf(tex: string, options: { runs?: number; timeoutMs?: number } = {}): Promise<{ pdf: Buffer; cached: boolean }> {
+  const key = createHash("sha256").update(tex).digest("hex");
+  const dir = process.env.CAIRN_PDF_CACHE ?? join(process.cwd(), ".data", "pdf-cache");
+  const file = join(dir, `${key}.pdf`);
+  const kept = await readFile(file).catch(() => null);
+  if (kept) return { pdf: kept, cached: true };
+  let job = inFlight.get(key);
+  if (!job) {
+    const start = queue.then(() => compileLatex(tex, options));
+    queue = start.catch(() => undefined);
+    job = start.then(async ({ pdf }) => {
+      await mkdir(dir, { recursive: true });
+      const tmp = `${file}.${process.pid}.${Date.now()}.tmp`;
+      await writeFile(tmp, pdf);
+      await rename(tmp, file); // whole files only: a reader never sees half a PDF
+      return pdf;
+    });
+    inFlight.set(key, job);
+    void job.catch(() => undefined).finally(() => inFlight.delete(key));
+  }
+  return { pdf: await job, cached: false };
 }

@@ -7,6 +7,10 @@ import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { checkBundle } from "@/lib/core/bundle";
 import { compileLatex } from "@/lib/export/pdf";
+import { createHash } from "node:crypto";
+import { mkdtempSync, rmSync, statSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { verifiedClaim } from "../unit/export-fixture";
 import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
 import * as exportRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/route";
@@ -26,6 +30,7 @@ const file = (route: { GET: (r: Request, c: { params: Promise<{ proofId: string;
   route.GET(new Request(`http://localhost/api/proofs/${id}/exports/${exportId}`), params({ proofId: String(id), exportId: String(exportId) }));
 
 beforeAll(async () => {
+  process.env.CAIRN_PDF_CACHE = mkdtempSync(join(tmpdir(), "cairn-pdf-cache-"));
   const { Proof, ProofMember, Case, Step, StepRevision, Claim, Review } = models();
   const [author, reviewer, editor] = await Promise.all([userIdOf("author"), userIdOf("reviewer"), userIdOf("editor")]);
   const proof = await Proof.create({ title: EVIL, statement: "**Theorem.** Every $E_8$ is a tree.", createdBy: author });
@@ -49,6 +54,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await models().Proof.destroy({ where: { id: proofId } });
   await closeSequelize();
+  rmSync(process.env.CAIRN_PDF_CACHE!, { recursive: true, force: true });
 });
 
 describe("GET /api/proofs/:proofId/exports", () => {
@@ -123,7 +129,14 @@ describe("POST /api/proofs/:proofId/exports", () => {
     const pdfRes = await file(pdfRoute, proofId, made.id);
     expect(pdfRes.status).toBe(200);
     expect(pdfRes.headers.get("content-type")).toBe("application/pdf");
-    expect(Buffer.from(await pdfRes.arrayBuffer()).subarray(0, 5).toString()).toBe("%PDF-");
+    const first = Buffer.from(await pdfRes.arrayBuffer());
+    expect(first.subarray(0, 5).toString()).toBe("%PDF-");
+    // Compiled once, then kept under the SHA-256 of the source: the second download is the same file, not a new run.
+    const cached = join(process.env.CAIRN_PDF_CACHE!, `${createHash("sha256").update(tex).digest("hex")}.pdf`);
+    const before = statSync(cached).mtimeMs;
+    const again = Buffer.from(await (await file(pdfRoute, proofId, made.id)).arrayBuffer());
+    expect(again.equals(first)).toBe(true);
+    expect(statSync(cached).mtimeMs).toBe(before);
   }, 120_000);
 
   it("refuses a certified export while a dispute is open (409 naming the step), and a draft is still possible and marked draft", async () => {
