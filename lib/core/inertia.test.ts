@@ -148,6 +148,61 @@ describe("ρ(G) op b for rational b", () => {
   });
 });
 
+describe("large graphs with a cycle: a Rayleigh witness is tried before any elimination", () => {
+  // A random graph with n vertices and 3n/2 edges from a seeded 32-bit LCG (Numerical Recipes constants;
+  // the same rule as the bench workloads). A seeded generator is common practice for reproducible tests.
+  const sparse = (n: number): Graph => {
+    let x = (1_000_000 + n) >>> 0;
+    const next = () => (x = (Math.imul(1664525, x) + 1013904223) >>> 0);
+    const randint = (m: number) => Math.floor((next() * m) / 2 ** 32);
+    const seen = new Set<string>(), edges: Array<{ u: number; v: number }> = [];
+    while (edges.length < (3 * n) / 2) {
+      const u = randint(n), v = randint(n);
+      const key = `${Math.min(u, v)} ${Math.max(u, v)}`;
+      if (u === v || seen.has(key)) continue;
+      seen.add(key);
+      edges.push({ u: Math.min(u, v), v: Math.max(u, v) });
+    }
+    return makeGraph(n, edges);
+  };
+
+  it("refutes ρ ≤ 3 on a random 1000-vertex graph of average degree 3 with a Rayleigh certificate that re-checks", () => {
+    const g = sparse(1000);
+    const v = verdict(g, "<=", "3");
+    expect(v.status).toBe("refuted");
+    expect(v.certificate!.kind).toBe("rayleigh");
+    expect(v.method).toMatch(/^Rayleigh quotient/);
+    expect(recheckSpectralRadiusBound(g, "<=", "3", "refuted", v.certificate).status).toBe("verified");
+    // The other exact route agrees: the elimination of 3I − A meets negative pivots.
+    expect(inertia(g, rat(3)).negative).toBeGreaterThan(0);
+  });
+
+  it("does the same against an irrational bound, at a rational just above it: ρ > 2√2", () => {
+    const g = sparse(400);
+    const v = verdict(g, ">", "sqrt(8)");
+    expect(v.status).toBe("verified");
+    expect(v.certificate!.kind).toBe("rayleigh");
+    expect(recheckSpectralRadiusBound(g, ">", "sqrt(8)", "verified", v.certificate).status).toBe("verified");
+    expect(inertia(g, rat(3)).negative).toBeGreaterThan(0); // ρ > 3 > 2√2
+  });
+
+  it("rejects the all-ones vector in its place: for average degree 3 its value xᵀ(3I − A)x is 3n − 2m = 0", () => {
+    const g = sparse(1000);
+    const v = verdict(g, "<=", "3");
+    const ones = { ...(v.certificate as object), vector: Array.from({ length: 1000 }, (_, i) => [i, "1"]) };
+    expect(recheckSpectralRadiusBound(g, "<=", "3", "refuted", ones).status).not.toBe("verified");
+  });
+
+  it("leaves ρ ≤ b to the elimination: the 300-cycle has ρ = 2 exactly and ρ < 3 (Brouwer & Haemers §1.4.3)", () => {
+    const eq = verdict(cycle(300), "=", "2");
+    expect(eq.status).toBe("verified");
+    expect(eq.certificate!.kind).toBe("inertia");
+    const below = verdict(cycle(300), "<", "3");
+    expect(below.status).toBe("verified");
+    expect(below.certificate!.kind).toBe("inertia");
+  });
+});
+
 describe("irrational bounds", () => {
   it("ρ(P_4) = 2cos(pi/5) and ρ(P_6) = 2cos(pi/7) (Brouwer & Haemers §1.4.4)", () => {
     expect(verdict(path(4), "=", "2cos(pi/5)").status).toBe("verified");

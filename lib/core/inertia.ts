@@ -20,6 +20,7 @@ import { AlgebraicField } from "./number-field";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
+import { perronApproximation } from "./perron";
 import { Poly, polyGcd, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
 import { reject, recheck, expectRecord, expectInt } from "./certificate-check";
 
@@ -106,6 +107,33 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   return { fact: { rel: sign(value) < 0 ? ">" : ">=", at }, cert, forest };
 }
 
+/** Graphs with a cycle and at least this many vertices try a Rayleigh witness before any elimination. */
+export const RAYLEIGH_FIRST_MIN_VERTICES = 200;
+
+/**
+ * A quick exact proof of ρ > at for a large graph with a cycle, when there is one: floating-point
+ * power iteration only suggests a vector (its entries rounded to integers); the verdict rests on
+ * the exact value xᵀ(at·I − A)x < 0, computed in rationals and re-checked like any Rayleigh
+ * certificate. Undefined when the hint does not clearly exceed `at` or the exact value is not negative;
+ * the elimination then decides.
+ */
+function rayleighFirst(g: Graph, at: Rational, budget: Budget): SpectralRadiusCertificate | undefined {
+  if (g.n < RAYLEIGH_FIRST_MIN_VERTICES || isForest(g)) return undefined;
+  const hint = perronApproximation(g, 2_000, 1e-10);
+  budget.tick(hint.iterations * (g.n + 2 * g.edges.length));
+  const b = Number(at.num) / Number(at.den);
+  if (!(hint.rho > b + 1e-9 * Math.max(1, Math.abs(b)))) return undefined;
+  const x = new Map<number, Rational>();
+  hint.vector.forEach((v, i) => {
+    const k = Math.round(v * 2 ** 24);
+    if (k > 0) x.set(i, rat(k));
+  });
+  if (x.size === 0) return undefined;
+  const value = quadraticForm(g, at, x, budget);
+  if (sign(value) >= 0) return undefined;
+  return { kind: "rayleigh", at: ratToString(at), vector: [...x].map(([v, xv]) => [v, ratToString(xv)]), value: ratToString(value) };
+}
+
 function explain(cert: SpectralRadiusCertificate, n: number): string {
   switch (cert.kind) {
     case "inertia":
@@ -141,9 +169,14 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     });
     const methodOf = (forest: boolean) => (forest ? "tree inertia (Jacobs–Trevisan 2011)" : "sparse fraction-free LDLᵀ inertia (minimum degree)");
     if (b.kind === "rational") {
+      const quick = rayleighFirst(g, b.value, budget);
+      if (quick) return verdictFrom(">", quick, "Rayleigh quotient at an exact integer vector (suggested by power iteration)");
       const { fact, cert, forest } = runAt(g, b.value, stop, budget);
       return verdictFrom(fact.rel, cert, methodOf(forest));
     }
+    const above = enclose(b, 50).hi;
+    const quick = rayleighFirst(g, above, budget);
+    if (quick) return verdictFrom(">", quick, "Rayleigh quotient at an exact integer vector (suggested by power iteration)", [`b lies below the rational ${ratToString(above)}`]);
     for (const bits of [20, 50]) {
       const { lo, hi } = enclose(b, bits);
       const below = runAt(g, lo, "nonPositive", budget, true);
