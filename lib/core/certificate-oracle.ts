@@ -119,6 +119,27 @@ function rayleighVector(g: Graph, e: Json, original: Json): boolean {
   return sameValue(q, value) && sign(q) <= 0 && sign(q) === sign(before);
 }
 
+/**
+ * A Collatz–Wielandt vector for a rational bound p/q: one positive integer per vertex with
+ * q·(Ax)_v < p·x_v everywhere (then ρ ≤ max (Ax)_v/x_v < p/q). Irrational bounds: not judged here.
+ */
+function collatzWielandtVector(g: Graph, e: Json, boundText: string): boolean {
+  const b = fraction(boundText.trim());
+  if (!b || b[1] <= 0n || !Array.isArray(e.vector) || e.vector.length !== g.n) return false;
+  const x = (e.vector as unknown[]).map((v) => (typeof v === "string" && /^[1-9]\d*$/.test(v) ? BigInt(v) : 0n));
+  if (x.some((v) => v === 0n)) return false;
+  const ax = new Array<bigint>(g.n).fill(0n);
+  for (const edge of g.edges) {
+    const m = BigInt(edge.m);
+    if (edge.u === edge.v) ax[edge.u] += m * x[edge.u];
+    else {
+      ax[edge.u] += m * x[edge.v];
+      ax[edge.v] += m * x[edge.u];
+    }
+  }
+  return ax.every((a, v) => b[1] * a < b[0] * x[v]);
+}
+
 /** The graphs a claim talks about: the graph itself, or host and pattern(s). */
 export interface ClaimGraphs {
   readonly graph?: Graph;
@@ -151,6 +172,7 @@ export function oracleAccepts(claim: Claim, graphs: ClaimGraphs, evidence: unkno
     case "embedding": return validEmbedding(graphs.pattern!, g, e.embedding, induced);
     case "max-degree": return maxDegreeWitness(g, e);
     case "rayleigh": return rayleighVector(g, e, original as Json);
+    case "collatz-wielandt": return claim.kind === "spectral-radius-bound" && collatzWielandtVector(g, e, claim.bound);
     case "forbidden-subgraph": {
       if (!isSmithFamily(e.family) || typeof e.parameter !== "number") return false;
       const f = SMITH_FAMILIES[e.family].build(e.parameter);

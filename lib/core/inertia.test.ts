@@ -148,7 +148,7 @@ describe("ρ(G) op b for rational b", () => {
   });
 });
 
-describe("large graphs with a cycle: a Rayleigh witness is tried before any elimination", () => {
+describe("large graphs with a cycle: a vector certificate (Rayleigh or Collatz–Wielandt) is tried before any elimination", () => {
   // A random graph with n vertices and 3n/2 edges from a seeded 32-bit LCG (Numerical Recipes constants;
   // the same rule as the bench workloads). A seeded generator is common practice for reproducible tests.
   const sparse = (n: number): Graph => {
@@ -193,13 +193,47 @@ describe("large graphs with a cycle: a Rayleigh witness is tried before any elim
     expect(recheckSpectralRadiusBound(g, "<=", "3", "refuted", ones).status).not.toBe("verified");
   });
 
-  it("leaves ρ ≤ b to the elimination: the 300-cycle has ρ = 2 exactly and ρ < 3 (Brouwer & Haemers §1.4.3)", () => {
+  it("proves ρ < 5 on the same graph with a Collatz–Wielandt vector: (Ax)_v < 5·x_v at every vertex", () => {
+    const g = sparse(1000);
+    const v = verdict(g, "<", "5");
+    expect(v.status).toBe("verified");
+    expect(v.method).toMatch(/^Collatz–Wielandt/);
+    const cert = v.certificate as { kind: string; vector: string[] };
+    expect(cert.kind).toBe("collatz-wielandt");
+    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", cert).status).toBe("verified");
+    expect(verdict(g, ">=", "5").status).toBe("refuted");
+    // The elimination agrees: 5I − A is positive definite.
+    expect(inertia(g, rat(5))).toMatchObject({ negative: 0, zero: 0 });
+    // One entry made small breaks the inequality at that vertex, and the re-check says so.
+    const broken = { ...cert, vector: cert.vector.map((x, i) => (i === 0 ? "1" : x)) };
+    const r = recheckSpectralRadiusBound(g, "<", "5", "verified", broken);
+    expect(r.status).not.toBe("verified");
+    expect(r.reason).toMatch(/vertex 0/);
+    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", { ...cert, vector: cert.vector.map((x, i) => (i === 3 ? "0" : x)) }).status).not.toBe("verified");
+  });
+
+  it("compares with an irrational bound exactly: ρ < √20 (the float hint is 4.20)", () => {
+    const g = sparse(400);
+    const v = verdict(g, "<", "sqrt(20)");
+    expect(v.status).toBe("verified");
+    expect(v.certificate!.kind).toBe("collatz-wielandt");
+    expect(recheckSpectralRadiusBound(g, "<", "sqrt(20)", "verified", v.certificate).status).toBe("verified");
+    expect(inertia(g, rat(447n, 100n))).toMatchObject({ negative: 0 }); // ρ < 4.47 < √20
+  });
+
+  it("normalises each component on its own, so a small component does not fade: G(300) + C_50 has ρ < 5", () => {
+    const g = disjointUnion(sparse(300), cycle(50));
+    const v = verdict(g, "<", "5");
+    expect(v.status).toBe("verified");
+    expect(v.certificate!.kind).toBe("collatz-wielandt");
+    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", v.certificate).status).toBe("verified");
+  });
+
+  it("leaves b close to ρ to the elimination: the 300-cycle has ρ = 2 exactly (Brouwer & Haemers §1.4.3)", () => {
     const eq = verdict(cycle(300), "=", "2");
     expect(eq.status).toBe("verified");
     expect(eq.certificate!.kind).toBe("inertia");
-    const below = verdict(cycle(300), "<", "3");
-    expect(below.status).toBe("verified");
-    expect(below.certificate!.kind).toBe("inertia");
+    expect(verdict(cycle(300), "<", "2").status).toBe("refuted");
   });
 });
 

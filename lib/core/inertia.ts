@@ -14,13 +14,14 @@
 import { Graph, GraphError, adjacency } from "./graph";
 import { Budget, Verdict, withinBudget } from "./verdict";
 import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZERO } from "./rational";
-import { Bound, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
+import { Bound, boundApprox, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
 import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } from "./tree-inertia";
 import { AlgebraicField } from "./number-field";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
-import { perronApproximation } from "./perron";
+import { perronApproximation, perronVectorsByComponent } from "./perron";
+import { checkVectorCertificate, components } from "./vector";
 import { Poly, polyGcd, sturmSequence, rootsBetween, deg, signAt } from "./sturm";
 import { reject, recheck, expectRecord, expectInt } from "./certificate-check";
 
@@ -39,6 +40,11 @@ export type SpectralRadiusCertificate =
    * for the "nonPositive" rule, non-positive (sign 0 or -1). The re-check repeats the elimination.
    */
   | { kind: "algebraic-tree" | "algebraic-sparse"; stop: "nonPositive" | "negative"; complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 }
+  /**
+   * Collatz–Wielandt: a positive integer vector x (one entry per vertex) with (Ax)_v < b·x_v at every
+   * vertex, compared exactly with b itself (rational or not): ρ < b.
+   */
+  | { kind: "collatz-wielandt"; vector: string[] }
   /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
 
@@ -107,31 +113,48 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   return { fact: { rel: sign(value) < 0 ? ">" : ">=", at }, cert, forest };
 }
 
-/** Graphs with a cycle and at least this many vertices try a Rayleigh witness before any elimination. */
-export const RAYLEIGH_FIRST_MIN_VERTICES = 200;
+const VECTOR_METHOD = {
+  rayleigh: "Rayleigh quotient at an exact integer vector (suggested by power iteration)",
+  "collatz-wielandt": "Collatz–Wielandt bound at an exact positive integer vector (suggested by power iteration)",
+};
+
+/** Graphs with a cycle and at least this many vertices try a vector certificate before any elimination. */
+export const VECTOR_FIRST_MIN_VERTICES = 200;
 
 /**
- * A quick exact proof of ρ > at for a large graph with a cycle, when there is one: floating-point
- * power iteration only suggests a vector (its entries rounded to integers); the verdict rests on
- * the exact value xᵀ(at·I − A)x < 0, computed in rationals and re-checked like any Rayleigh
- * certificate. Undefined when the hint does not clearly exceed `at` or the exact value is not negative;
- * the elimination then decides.
+ * A quick exact proof for a large graph with a cycle, when there is one. Floating-point power
+ * iteration only suggests a vector (entries rounded to integers); the proof is exact:
+ * - ρ > b: xᵀ(at·I − A)x < 0 at a rational `at` ≥ b, computed in rationals (a Rayleigh certificate);
+ * - ρ < b: x > 0 with (Ax)_v < b·x_v at every vertex, compared exactly with b (Collatz–Wielandt).
+ * Undefined when the hint is too close to b or the exact check fails; the elimination then decides.
  */
-function rayleighFirst(g: Graph, at: Rational, budget: Budget): SpectralRadiusCertificate | undefined {
-  if (g.n < RAYLEIGH_FIRST_MIN_VERTICES || isForest(g)) return undefined;
-  const hint = perronApproximation(g, 2_000, 1e-10);
+function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation; cert: SpectralRadiusCertificate; at?: Rational } | undefined {
+  if (g.n < VECTOR_FIRST_MIN_VERTICES || isForest(g)) return undefined;
+  const { comp, count } = components(g);
+  const hint = perronVectorsByComponent(g, comp, count);
   budget.tick(hint.iterations * (g.n + 2 * g.edges.length));
-  const b = Number(at.num) / Number(at.den);
-  if (!(hint.rho > b + 1e-9 * Math.max(1, Math.abs(b)))) return undefined;
-  const x = new Map<number, Rational>();
-  hint.vector.forEach((v, i) => {
-    const k = Math.round(v * 2 ** 24);
-    if (k > 0) x.set(i, rat(k));
-  });
-  if (x.size === 0) return undefined;
-  const value = quadraticForm(g, at, x, budget);
-  if (sign(value) >= 0) return undefined;
-  return { kind: "rayleigh", at: ratToString(at), vector: [...x].map(([v, xv]) => [v, ratToString(xv)]), value: ratToString(value) };
+  const approx = b.kind === "rational" ? Number(b.value.num) / Number(b.value.den) : boundApprox(b);
+  const margin = 1e-9 * Math.max(1, Math.abs(approx));
+  if (hint.rho > approx + margin) {
+    const at = b.kind === "rational" ? b.value : enclose(b, 50).hi;
+    // The component of largest ρ only: the others would add positive terms to xᵀ(at·I − A)x.
+    const x = new Map<number, Rational>();
+    hint.vector.forEach((v, i) => {
+      const k = Math.round(v * 2 ** 24);
+      if (k > 0 && comp[i] === hint.top) x.set(i, rat(k));
+    });
+    if (x.size === 0) return undefined;
+    const value = quadraticForm(g, at, x, budget);
+    if (sign(value) >= 0) return undefined;
+    return { rel: ">", at, cert: { kind: "rayleigh", at: ratToString(at), vector: [...x].map(([v, xv]) => [v, ratToString(xv)]), value: ratToString(value) } };
+  }
+  if (hint.rho < approx - margin) {
+    // Rounded up, so every entry is a positive integer.
+    const vector = Array.from(hint.vector, (v) => String(Math.max(1, Math.ceil(v * 2 ** 24))));
+    if (checkVectorCertificate(g, vector, "<", b, budget).status !== "verified") return undefined;
+    return { rel: "<", cert: { kind: "collatz-wielandt", vector } };
+  }
+  return undefined;
 }
 
 function explain(cert: SpectralRadiusCertificate, n: number): string {
@@ -150,6 +173,8 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
       return cert.complete
         ? `Jacobs–Trevisan elimination of bI − A with exact arithmetic in Q(b) gives ${cert.positive} positive and ${cert.zero} zero values and no negative one, so bI − A is positive ${cert.zero ? "semidefinite and singular: ρ = b" : "definite: ρ < b"} (Sylvester's law of inertia, Perron–Frobenius).`
         : `Jacobs–Trevisan elimination of bI − A in Q(b) reaches a ${cert.sign === -1 ? "negative" : "zero"} value at vertex ${cert.stoppedAt} with every value below it positive, so xᵀ(bI − A)x ${cert.sign === -1 ? "<" : "≤"} 0 for the minimising vector of that subtree: ρ ${cert.sign === -1 ? ">" : "≥"} b.`;
+    case "collatz-wielandt":
+      return `The positive vector x in the certificate has (Ax)_v < b·x_v at each of the ${n} vertices (checked exactly), so ρ(G) ≤ max_v (Ax)_v / x_v < b (Collatz–Wielandt; Perron–Frobenius for non-negative A).`;
     case "sturm":
       return `Sturm sequences of the characteristic polynomial χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
   }
@@ -169,14 +194,14 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     });
     const methodOf = (forest: boolean) => (forest ? "tree inertia (Jacobs–Trevisan 2011)" : "sparse fraction-free LDLᵀ inertia (minimum degree)");
     if (b.kind === "rational") {
-      const quick = rayleighFirst(g, b.value, budget);
-      if (quick) return verdictFrom(">", quick, "Rayleigh quotient at an exact integer vector (suggested by power iteration)");
+      const quick = vectorFirst(g, b, budget);
+      if (quick) return verdictFrom(quick.rel, quick.cert, VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"]);
       const { fact, cert, forest } = runAt(g, b.value, stop, budget);
       return verdictFrom(fact.rel, cert, methodOf(forest));
     }
-    const above = enclose(b, 50).hi;
-    const quick = rayleighFirst(g, above, budget);
-    if (quick) return verdictFrom(">", quick, "Rayleigh quotient at an exact integer vector (suggested by power iteration)", [`b lies below the rational ${ratToString(above)}`]);
+    const quick = vectorFirst(g, b, budget);
+    if (quick)
+      return verdictFrom(quick.rel, quick.cert, VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"], quick.at ? [`b lies below the rational ${ratToString(quick.at)}`] : []);
     for (const bits of [20, 50]) {
       const { lo, hi } = enclose(b, bits);
       const below = runAt(g, lo, "nonPositive", budget, true);
@@ -258,10 +283,16 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
     } else if (c.kind === "algebraic-tree" || c.kind === "algebraic-sparse") {
       if (b.kind !== "algebraic") reject(`an ${c.kind} certificate needs an irrational bound`);
       rel = recheckAlgebraic(g, b, c, budget);
+    } else if (c.kind === "collatz-wielandt") {
+      if (!Array.isArray(c.vector) || c.vector.length !== g.n || !c.vector.every((x) => typeof x === "string" && /^[1-9][0-9]*$/.test(x)))
+        reject(`certificate.vector must list one positive integer (as a string) per vertex, ${g.n} in all`);
+      const check = checkVectorCertificate(g, c.vector as string[], "<", b, budget);
+      if (check.status !== "verified") reject(`certificate.vector: ${check.reason}`);
+      rel = "<";
     } else if (c.kind === "sturm") {
       if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
       rel = recheckSturm(g, b, c, budget);
-    } else reject(`certificate.kind must be "inertia", "rayleigh" or "sturm"`);
+    } else reject(`certificate.kind must be "inertia", "rayleigh", "collatz-wielandt", "algebraic-tree", "algebraic-sparse" or "sturm"`);
     if (rel === undefined) reject("the certificate's point does not separate ρ from b");
     const truth = implies(rel, op);
     if (truth === undefined) reject(`the certificate shows ρ ${SYMBOL[rel]} b, which does not decide the claim`);
