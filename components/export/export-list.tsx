@@ -25,6 +25,7 @@ export function ExportList({ proofId, exports, pdf = true }: { proofId: number; 
               Manifest digest (SHA-256): <span className="break-all font-mono text-xs" data-testid="manifest-digest">{e.manifestDigest}</span>
             </p>
             <p className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+              <a className={link} href={`${base}/archive`} download>Everything for an offline re-check (.zip)</a>
               <a className={link} href={`${base}/bundle`} download>Bundle (.json)</a>
               <a className={link} href={`${base}/tex`} download>LaTeX (.tex)</a>
               {pdf ? (

@@ -3,6 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { strFromU8, unzipSync } from "fflate";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
@@ -64,6 +65,13 @@ describe("exporting the seeded proof in the browser", () => {
     const bundlePath = await saveDownload(page, "Bundle (.json)", "bundle.json");
     await saveDownload(page, /self-contained checker/, "cairn-check.mjs");
     const texPath = await saveDownload(page, "LaTeX (.tex)", "proof.tex");
+    // The one-archive download holds the same bundle, the checker and a README naming the digest.
+    const zipPath = await saveDownload(page, "Everything for an offline re-check (.zip)", "export.zip");
+    const zipped = unzipSync(new Uint8Array(readFileSync(zipPath)));
+    const inZip = (name: string) => Object.entries(zipped).find(([k]) => k.endsWith(`/${name}`))![1];
+    expect(JSON.parse(strFromU8(inZip("bundle.json"))).manifestDigest).toBe(digest);
+    expect(strFromU8(inZip("README.txt"))).toContain(digest);
+    expect(strFromU8(inZip("cairn-check.mjs")).startsWith("#!/usr/bin/env node")).toBe(true);
     expect(JSON.parse(readFileSync(bundlePath, "utf8")).manifestDigest).toBe(digest);
     expect(readFileSync(texPath, "utf8")).toContain("DRAFT --- not certified");
 

@@ -8,7 +8,7 @@ import { models } from "@/models";
 import { checkBundle } from "@/lib/core/bundle";
 import { compileLatex } from "@/lib/export/pdf";
 import { createHash } from "node:crypto";
-import { mkdtempSync, rmSync, statSync } from "node:fs";
+import { mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { verifiedClaim } from "../unit/export-fixture";
@@ -18,6 +18,9 @@ import * as bundleRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/bund
 import * as texRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/tex/route";
 import * as pdfRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/pdf/route";
 import * as checkerRoute from "@/app/api/proofs/[proofId]/exports/checker/route";
+import * as archiveRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/archive/route";
+import { strFromU8, unzipSync } from "fflate";
+import { spawnSync } from "node:child_process";
 
 const EVIL = String.raw`Settled \input{/etc/passwd} & 100% #1 _x_ $\write18{ls}$`;
 let proofId: number; // a proof of this file's own, made ready to certify
@@ -240,4 +243,35 @@ describe("export files", () => {
     expect(script).toContain("cairn-bundle/1");
     expect(script).not.toMatch(/^import .* from "(?!node:)/m); // nothing outside Node's own modules
   }, 60_000);
+
+  it("packs everything for an offline re-check in one .zip, and the checker in it passes the bundle in it", async () => {
+    const made = (await models().ProofExport.findOne({ where: { proofId }, order: [["id", "ASC"]] }))!;
+    const get = () => archiveRoute.GET(new Request("http://localhost/x"), params({ proofId: String(proofId), exportId: String(made.id) }));
+    await actAs("outsider");
+    expect((await get()).status).toBe(403);
+    await actAs("reviewer");
+    const res = await get();
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/zip");
+    expect(res.headers.get("content-disposition")).toContain(`cairn-proof-${proofId}-export-${made.id}-${made.kind}.zip`);
+    const files = unzipSync(new Uint8Array(await res.arrayBuffer()));
+    const folder = `cairn-export-${made.id}`;
+    expect(Object.keys(files).filter((k) => !k.endsWith("/")).sort()).toEqual(["README.txt", "bundle.json", "cairn-check.mjs", "proof.pdf", "proof.tex"].map((f) => `${folder}/${f}`));
+    expect(strFromU8(files[`${folder}/bundle.json`])).toBe(made.bundle);
+    expect(strFromU8(files[`${folder}/proof.pdf`].subarray(0, 5))).toBe("%PDF-");
+    const readme = strFromU8(files[`${folder}/README.txt`]);
+    expect(readme).toContain(`Manifest digest (SHA-256): ${made.manifestDigest}`);
+    expect(readme).toContain("node cairn-check.mjs bundle.json");
+    expect(readme).toMatch(/stays with the authors and the referees/);
+    // Unpacked in an empty folder, with nothing but Node.js, the checker passes the bundle (exit 0).
+    const dir = mkdtempSync(join(tmpdir(), "cairn-archive-"));
+    try {
+      for (const name of ["bundle.json", "cairn-check.mjs"]) writeFileSync(join(dir, name), files[`${folder}/${name}`]);
+      const run = spawnSync(process.execPath, ["cairn-check.mjs", "bundle.json"], { cwd: dir, encoding: "utf8", timeout: 60_000 });
+      expect(run.status, run.stdout + run.stderr).toBe(0);
+      expect(run.stdout).toMatch(/verified/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 120_000);
 });
