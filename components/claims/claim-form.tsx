@@ -17,6 +17,7 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   "characteristic-polynomial": "characteristic polynomial",
   eigenvalues: "eigenvalues  2cos(πm/h)",
   structure: "structure  (tree, degrees, legs …)",
+  enumeration: "enumeration  all connected G, |G| ≤ N, ρ(G) op b",
 };
 
 const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
@@ -42,6 +43,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   const predicate = watch("predicate");
   const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
   const twoGraphs = kind === "subgraph" || kind === "exclusion";
+  const enumeration = kind === "enumeration";
 
   const submit = handleSubmit(async (values) => {
     setMessage(null);
@@ -87,13 +89,26 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </div>
         </FormField>
       )}
-      <FormField label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
+      {enumeration && (
+        <>
+          <FormField label="N, the largest number of vertices" hint="at most 12" error={err("maxVertices")}>
+            <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
+          </FormField>
+          <FormField label="The graphs, all of them" hint="connected simple graphs, separated by a line ---; e.g. A(5) --- D(5)" error={err("patternText")}>
+            <div className="flex gap-2">
+              <FormatSelect name="patternFormat" register={register} />
+              <textarea {...register("patternText")} rows={4} className={input} aria-label="listed graphs" />
+            </div>
+          </FormField>
+        </>
+      )}
+      {!enumeration && <FormField label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
         <div className="flex gap-2">
           <FormatSelect name="graphFormat" register={register} />
           <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
         </div>
-      </FormField>
-      {(kind === "spectral-radius-bound" || kind === "vector-certificate") && (
+      </FormField>}
+      {(kind === "spectral-radius-bound" || kind === "vector-certificate" || enumeration) && (
         <div className="flex gap-3">
           <FormField label="Relation" error={err("op")}>
             <select {...register("op")} className={input} aria-label="relation">

@@ -4,7 +4,7 @@
 import type { Claim } from "./claim-schema";
 import type { ClaimHandler } from "./claim-support";
 import { EXCLUSION_HANDLER, IDENTIFICATION_HANDLER, SUBGRAPH_HANDLER } from "./claim-combinatorial";
-import { CHARPOLY_HANDLER, EIGENVALUES_HANDLER, SPECTRAL_RADIUS_HANDLER, VECTOR_HANDLER } from "./claim-spectral";
+import { CHARPOLY_HANDLER, EIGENVALUES_HANDLER, ENUMERATION_HANDLER, SPECTRAL_RADIUS_HANDLER, VECTOR_HANDLER } from "./claim-spectral";
 import { STRUCTURE_HANDLER } from "./claim-structure";
 
 export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kind: K }>> } = {
@@ -16,4 +16,5 @@ export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kin
   "characteristic-polynomial": CHARPOLY_HANDLER,
   eigenvalues: EIGENVALUES_HANDLER,
   structure: STRUCTURE_HANDLER,
+  enumeration: ENUMERATION_HANDLER,
 };

@@ -39,6 +39,14 @@ describe("validateClaim", () => {
     expect(e.path).toBe("$.patterns[1].format");
   });
 
+  it("bounds an enumeration claim: N at most 12, op only < or <= (families closed under removing a vertex)", () => {
+    const base = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 6, op: "<", bound: "2", graphs: [p5] };
+    expect(validateClaim(base)).toMatchObject({ kind: "enumeration", maxVertices: 6, graphs: [p5] });
+    expect(errorOf({ ...base, maxVertices: 13 }).path).toBe("$.maxVertices");
+    expect(errorOf({ ...base, op: ">" }).path).toBe("$.op");
+    expect(errorOf({ ...base, graphs: [p5, { format: "named" }] }).path).toBe("$.graphs[1].text");
+  });
+
   it("rejects a misspelt field instead of ignoring it", () => {
     const e = errorOf({ format: "cairn-claim/1", kind: "subgraph", pattern: p5, host: p5, indcued: true });
     expect(e.path).toBe("$.indcued");

@@ -30,7 +30,7 @@ export type StructurePredicate = (typeof STRUCTURE_PREDICATES)[number];
 
 export const CLAIM_KINDS = [
   "spectral-radius-bound", "vector-certificate", "subgraph", "exclusion", "identification",
-  "characteristic-polynomial", "eigenvalues", "structure",
+  "characteristic-polynomial", "eigenvalues", "structure", "enumeration",
 ] as const;
 export type ClaimKind = (typeof CLAIM_KINDS)[number];
 
@@ -110,12 +110,26 @@ export interface StructureClaim extends ClaimCommon {
   readonly relation?: DegreeRelation;
 }
 
+/**
+ * The connected simple graphs on at most `maxVertices` vertices with ρ(G) op b are, up to
+ * isomorphism, exactly `graphs` (op is "<" or "<=": families closed under removing a vertex).
+ */
+export interface EnumerationClaim extends ClaimCommon {
+  readonly kind: "enumeration";
+  readonly maxVertices: number;
+  readonly op: "<" | "<=";
+  readonly bound: string;
+  readonly graphs: readonly GraphInput[];
+}
+
+export const ENUMERATION_RELATIONS = ["<", "<="] as const;
+
 export const DEGREE_RELATIONS = ["<=", "=", ">="] as const;
 export type DegreeRelation = (typeof DEGREE_RELATIONS)[number];
 
 export type Claim =
   | SpectralRadiusBoundClaim | VectorCertificateClaim | SubgraphClaim | ExclusionClaim
-  | IdentificationClaim | CharacteristicPolynomialClaim | EigenvaluesClaim | StructureClaim;
+  | IdentificationClaim | CharacteristicPolynomialClaim | EigenvaluesClaim | StructureClaim | EnumerationClaim;
 
 /** A malformed claim: `path` is the JSON path of the offending value, e.g. `$.claims[2].graph.format`. */
 export class ClaimError extends Error {
@@ -206,6 +220,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   "characteristic-polynomial": ["graph", "coefficients"],
   eigenvalues: ["graph", "h", "multiset"],
   structure: ["graph", "predicate", "parameter", "relation"],
+  enumeration: ["maxVertices", "op", "bound", "graphs"],
 };
 
 /**
@@ -274,6 +289,18 @@ export function validateClaim(json: unknown, path = "$"): Claim {
       };
     case "structure":
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };
+    case "enumeration": {
+      const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
+      if (maxVertices > 12) throw new ClaimError(`${path}.maxVertices`, `at most 12 vertices can be enumerated here (got ${maxVertices})`);
+      const graphs = array(o.graphs, `${path}.graphs`);
+      if (graphs.length > 500) throw new ClaimError(`${path}.graphs`, `at most 500 graphs can be listed (got ${graphs.length})`);
+      return {
+        ...common, kind, maxVertices,
+        op: oneOf(o.op, ENUMERATION_RELATIONS, `${path}.op`),
+        bound: boundText(o.bound, `${path}.bound`),
+        graphs: graphs.map((g, i) => validateGraphInput(g, `${path}.graphs[${i}]`)),
+      };
+    }
   }
 }
 

@@ -3,7 +3,8 @@
  * (charpoly.ts), eigenvalue multisets 2cos(πm/h) (spectral.ts) and Collatz–Wielandt vectors (vector.ts). Coefficients in claims and certificates are written from x^n down to x^0, as a
  * polynomial is read; the core's Poly type stores x^0 first.
  */
-import type { CharacteristicPolynomialClaim, EigenvaluesClaim, SpectralRadiusBoundClaim, VectorCertificateClaim } from "./claim-schema";
+import type { CharacteristicPolynomialClaim, EigenvaluesClaim, EnumerationClaim, SpectralRadiusBoundClaim, VectorCertificateClaim } from "./claim-schema";
+import { checkEnumeration, enumerationStatement, recheckEnumeration } from "./enumeration";
 import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
 import { parseBound, type Bound } from "./bound";
 import { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
@@ -155,4 +156,16 @@ export const VECTOR_HANDLER: ClaimHandler<VectorCertificateClaim> = {
       return { ...fresh, method, status: "refuted", reason: `certificate rejected: the first failing vertex is ${String(fresh.certificate?.failingVertex)}, not ${String(e.failingVertex)}` };
     return withOutcome({ ...fresh, method, status: fresh.status === "undecided" ? "undecided" : "verified" }, fresh.status === "verified", outcome, fresh.reason);
   },
+};
+
+/** "These are all the connected graphs on at most N vertices with ρ op b": exhaustive enumeration. */
+export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
+  statement: (c) => enumerationStatement(c.maxVertices, c.op, c.bound, c.graphs.length),
+  limit: (c, inputs) => {
+    const listed = inputs.patterns ?? [];
+    const big = listed.findIndex((g) => g.n > 200 || g.edges.length > 2_000);
+    return big >= 0 ? `listed graph ${big + 1} is far larger than any graph enumerated (${c.maxVertices} vertices at most)` : undefined;
+  },
+  verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget),
+  recheck: (c, inputs, outcome, evidence, budget) => recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget),
 };

@@ -86,6 +86,8 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
       return { pattern: readClaimGraph(claim.pattern, `${path}.pattern`), host: readClaimGraph(claim.host, `${path}.host`) };
     case "exclusion":
       return { host: readClaimGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readClaimGraph(p, `${path}.patterns[${i}]`)) };
+    case "enumeration":
+      return { patterns: claim.graphs.map((g, i) => readClaimGraph(g, `${path}.graphs[${i}]`)) };
     default:
       return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
   }

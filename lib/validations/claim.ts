@@ -38,6 +38,7 @@ export const claimFormSchema = z.object({
   predicate: z.enum(STRUCTURE_PREDICATES),
   parameter: z.string(),
   degreeRelation: z.enum(DEGREE_RELATIONS),
+  maxVertices: z.string(),
   certificate: z.string(),
 });
 export type ClaimForm = z.infer<typeof claimFormSchema>;
@@ -45,7 +46,7 @@ export type ClaimForm = z.infer<typeof claimFormSchema>;
 export const emptyClaimForm: ClaimForm = {
   kind: "spectral-radius-bound", graphFormat: "named", graphText: "", patternFormat: "named", patternText: "", op: "<", bound: "2",
   vector: "", induced: false, embedding: "", family: "", coefficients: "", h: "", multiset: "", predicate: "tree", parameter: "",
-  degreeRelation: "=", certificate: "",
+  degreeRelation: "=", maxVertices: "", certificate: "",
 };
 
 type Issue = { field: keyof ClaimForm; message: string };
@@ -110,6 +111,15 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       if (f.h.trim() && !/^\d+$/.test(f.h.trim())) issues.push({ field: "h", message: "h is a positive integer" });
       Object.assign(claim, { h: Number(f.h.trim()), multiset: integers(f.multiset, "multiset", issues) });
       break;
+    case "enumeration":
+      need("maxVertices", "the largest number of vertices N (at most 12)");
+      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer (at most 12)" });
+      need("bound", "the bound, e.g. 2");
+      Object.assign(claim, {
+        maxVertices: Number(f.maxVertices.trim()), op: f.op, bound: f.bound.trim(),
+        graphs: f.patternText.split(/^\s*---\s*$/m).map((t) => t.trim()).filter(Boolean).map((t) => graph(f.patternFormat, t)),
+      });
+      break;
     case "structure": {
       main();
       claim.predicate = f.predicate;
@@ -139,7 +149,8 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
 export function formFieldOf(path: string): keyof ClaimForm | null {
   const rest = path.replace(/^claims\.\d+\.?/, "");
   if (/^(graph|host)\b/.test(rest)) return "graphText";
-  if (/^(pattern|patterns)\b/.test(rest)) return "patternText";
+  if (/^(pattern|patterns|graphs)\b/.test(rest)) return "patternText";
+  if (/^maxVertices\b/.test(rest)) return "maxVertices";
   if (/^(bound)\b/.test(rest)) return "bound";
   if (/^(op|relation)\b/.test(rest)) return "op";
   if (/^vector\b/.test(rest)) return "vector";

@@ -60,6 +60,8 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
     const pattern = read(claim.pattern);
     add(read(claim.host), "G (host), the embedding's image highlighted", claim.embedding ?? embeddingIn(evidence), pattern ?? undefined);
     add(pattern, "H (pattern)");
+  } else if (claim.kind === "enumeration") {
+    claim.graphs.slice(0, 4).forEach((g, i) => add(read(g), `listed graph ${i + 1}`));
   } else if (claim.kind === "exclusion") {
     add(read(claim.host), "G (host)");
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
@@ -95,6 +97,10 @@ export function checkInputs(claim: Claim): void {
       }
       return;
     }
+    case "enumeration":
+      claim.graphs.forEach((g, i) => readClaimGraph(g, `$.graphs[${i}]`));
+      boundOrFail(claim.bound, "$.bound");
+      return;
     case "exclusion":
       readClaimGraph(claim.host, "$.host");
       claim.patterns.forEach((p, i) => readClaimGraph(p, `$.patterns[${i}]`));

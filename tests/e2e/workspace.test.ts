@@ -173,6 +173,28 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
+  it("attaches an enumeration claim through the form: N over the limit is refused beside N, the right list is verified", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const { stepUrl } = await authorWithOneStep(page, "All small Dynkin diagrams", "Smith's list up to five vertices.");
+    await page.goto(stepUrl);
+    const form = page.getByTestId("claim-form");
+    await form.getByLabel("Kind").selectOption("enumeration");
+    await form.getByLabel("largest number of vertices").fill("13");
+    await form.getByLabel("relation", { exact: true }).selectOption("<");
+    await form.getByLabel("bound", { exact: true }).fill("2");
+    // Smith 1970: the connected graphs with ρ < 2 on at most 5 vertices are A1–A5, D4 and D5.
+    await form.getByLabel("listed graphs").fill(["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].join("\n---\n"));
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await form.getByRole("alert").filter({ hasText: "at most 12" }).waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(0);
+    await form.getByLabel("largest number of vertices").fill("5");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await page.locator('[data-testid="claim"] [data-verdict="verified"]').waitFor();
+    expect(await page.getByTestId("claim").first().textContent()).toContain("exactly the 7 listed");
+    await context.close();
+  });
+
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
     const context = await browser.newContext();
     const first = await context.newPage();

@@ -9,6 +9,7 @@ import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { closePool, runInPool } from "@/lib/verification/pool";
+import { CLAIM_KINDS } from "@/lib/core/claim-schema";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
@@ -119,11 +120,13 @@ describe("every kind the core offers", () => {
       // E8's exponents with Coxeter number 30.
       claim({ kind: "eigenvalues", graph: e8, h: 30, multiset: [1, 7, 11, 13, 17, 19, 23, 29] }),
       claim({ kind: "structure", graph: e8, predicate: "leg-lengths", parameter: [1, 2, 4] }),
+      // Smith 1970: the connected graphs with ρ < 2 on at most 5 vertices are A1–A5, D4, D5.
+      claim({ kind: "enumeration", maxVertices: 5, op: "<", bound: "2", graphs: ["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].map(named) }),
     ];
     const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: all }), params({ proofId, stepId }));
     expect(res.status).toBe(200);
     const claims = (await res.json()).claims as Array<{ kind: string; status: string }>;
-    expect(new Set(claims.map((c) => c.kind)).size).toBe(8);
+    expect(new Set(claims.map((c) => c.kind)).size).toBe(CLAIM_KINDS.length);
     expect(claims.map((c) => `${c.kind}: ${c.status}`)).toEqual(all.map((c) => `${c.kind}: verified`));
   });
 });
