@@ -7,6 +7,8 @@ import {
   extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
   t12kWorkload, workloadGraph, type Workload,
 } from "./workloads";
+import { enumerateConnected } from "../../lib/core/enumeration";
+import { parseBound } from "../../lib/core/bound";
 import { validateClaim } from "../../lib/core/claim-schema";
 import { verifyClaim } from "../../lib/core/claims";
 import { characteristicPolynomial } from "../../lib/core/charpoly";
@@ -112,6 +114,21 @@ function starlikeTasks(): BenchTask[] {
   ]);
 }
 
+/** "All connected graphs on at most N vertices with ρ op b": the exhaustive enumeration behind enumeration claims. */
+function enumerationTasks(): BenchTask[] {
+  return ([[12, "<=", "2"], [10, "<=", "sqrt(2+sqrt(5))"]] as const).map(([n, op, b]) => ({
+    id: `enumerate-${n}-${b}`,
+    workload: `connected graphs, ≤ ${n} vertices`,
+    task: `all with ρ ${op === "<=" ? "≤" : "<"} ${b} (exhaustive)`,
+    quick: false,
+    prepare: () => null,
+    run: () => {
+      const r = enumerateConnected(n, op, parseBound(b), new Budget(BENCH_STEPS));
+      return `${r.levels.flat().length} graphs (${r.levels.map((l) => l.length).join(",")}); ${r.checked} exact checks`;
+    },
+  }));
+}
+
 /** The whole claim path as the server and the checker run it: validate, parse the edge-list text, verify. */
 function claimTasks(): BenchTask[] {
   return [1_000, 100_000, 1_000_000].map((n) => ({
@@ -129,5 +146,5 @@ function claimTasks(): BenchTask[] {
 
 export const coreSection: BenchSection = {
   name: "verification core (exact)",
-  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...irrationalBoundTasks(), ...starlikeTasks(), ...claimTasks()],
+  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...irrationalBoundTasks(), ...starlikeTasks(), ...enumerationTasks(), ...claimTasks()],
 };
