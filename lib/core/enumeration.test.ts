@@ -1,9 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { checkEnumeration, enumerateConnected, recheckEnumeration } from "./enumeration";
+import { checkEnumeration, enumerateConnected, isomorphic, recheckEnumeration } from "./enumeration";
 import { parseBound } from "./bound";
 import { Budget } from "./verdict";
 import { parseGraph } from "./parse";
 import { identifySmith } from "./identify";
+import { parseGraph6, writeGraph6 } from "./graph6";
 
 // Smith's theorem (J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): the connected
 // graphs with ρ < 2 are A_n (n ≥ 1), D_n (n ≥ 4), E6, E7, E8; with ρ = 2 they are the cycles C_n
@@ -39,6 +40,14 @@ describe("enumeration of connected graphs with small spectral radius", () => {
     expect(recheckEnumeration(7, "<", "2", listed, "refuted", v.certificate, budget()).status).toBe("refuted");
     const forged = { ...v.certificate!, counts: [1, 1, 1, 2, 2, 3, 2] };
     expect(recheckEnumeration(7, "<", "2", listed, "verified", forged, budget()).status).toBe("refuted");
+    // The graphs are compared up to isomorphism: another labelling of E7 (as the checker of another
+    // version might write it) still re-checks; the cycle C7 (ρ = 2) in its place does not.
+    const e7 = v.certificate!.graph6.findIndex((t) => isomorphic(parseGraph6(t), parseGraph("E(7)", "named"), budget()));
+    expect(e7).toBeGreaterThanOrEqual(0);
+    const relabelled = { ...v.certificate!, graph6: v.certificate!.graph6.map((t, i) => (i === e7 ? writeGraph6(parseGraph("E(7)", "named")) : t)) };
+    expect(recheckEnumeration(7, "<", "2", listed, "verified", relabelled, budget()).status).toBe("verified");
+    const wrong = { ...v.certificate!, graph6: v.certificate!.graph6.map((t, i) => (i === e7 ? writeGraph6(parseGraph("cycle(7)", "named")) : t)) };
+    expect(recheckEnumeration(7, "<", "2", listed, "verified", wrong, budget()).reason).toMatch(/graph6\[\d+\] is not one of the graphs/);
   });
 
   it("refutes a list with a graph missing, one too many, or one twice, and says which", () => {
