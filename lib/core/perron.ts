@@ -25,32 +25,9 @@ export interface PerronApproximation {
  * on a component of largest ρ.
  */
 export function perronApproximation(g: Graph, maxIterations = 10_000, tolerance = 1e-12): PerronApproximation {
-  const { start, nbr, wt, diag } = adjacency(g);
-  const n = g.n;
-  let x = new Float64Array(n).fill(1);
-  let y = new Float64Array(n);
-  let rho = 0, residual = Infinity, it = 0;
-  for (; it < maxIterations && residual > tolerance; it++) {
-    let top = 0;
-    for (let v = 0; v < n; v++) {
-      let s = x[v] * (1 + diag[v]);
-      for (let k = start[v]; k < start[v + 1]; k++) s += wt[k] * x[nbr[k]];
-      y[v] = s;
-      if (s > top) top = s;
-    }
-    if (top === 0) break;
-    // Rayleigh quotient of A at the current vector (better than the ratio of maxima).
-    let num = 0, den = 0;
-    for (let v = 0; v < n; v++) { num += x[v] * (y[v] - x[v]); den += x[v] * x[v]; }
-    rho = den > 0 ? num / den : 0;
-    residual = 0;
-    for (let v = 0; v < n; v++) {
-      y[v] /= top;
-      residual = Math.max(residual, Math.abs(y[v] - x[v]));
-    }
-    [x, y] = [y, x];
-  }
-  return { rho, vector: Array.from(x), iterations: it, residual, displayOnly: true };
+  // One normalisation for the whole graph: every vertex in "component" 0.
+  const r = perronVectorsByComponent(g, new Int32Array(g.n), 1, maxIterations, tolerance);
+  return { rho: r.rho, vector: Array.from(r.vector), iterations: r.iterations, residual: r.residual, displayOnly: true };
 }
 
 /**
@@ -59,7 +36,7 @@ export function perronApproximation(g: Graph, maxIterations = 10_000, tolerance 
  * at once, the largest Rayleigh quotient among them and its component (`top`). Floating point: a HINT for choosing an exact
  * certificate, never a verdict.
  */
-export function perronVectorsByComponent(g: Graph, comp: Int32Array, count: number, maxIterations = 2_000, tolerance = 1e-10): { vector: Float64Array; rho: number; top: number; iterations: number } {
+export function perronVectorsByComponent(g: Graph, comp: Int32Array, count: number, maxIterations = 2_000, tolerance = 1e-10): { vector: Float64Array; rho: number; top: number; iterations: number; residual: number } {
   const { start, nbr, wt, diag } = adjacency(g);
   const n = g.n;
   let x = new Float64Array(n).fill(1);
@@ -89,5 +66,5 @@ export function perronVectorsByComponent(g: Graph, comp: Int32Array, count: numb
   }
   let rho = 0, best = 0;
   for (let c = 0; c < count; c++) if (den[c] > 0 && num[c] / den[c] > rho) [rho, best] = [num[c] / den[c], c];
-  return { vector: x, rho, top: best, iterations: it };
+  return { vector: x, rho, top: best, iterations: it, residual };
 }
