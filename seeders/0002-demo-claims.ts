@@ -35,6 +35,11 @@ const DEMO_CLAIMS: Array<[number[], number, object[]]> = [
     // Ẽ8 = T(1,2,5): its null vector of 2I − A certifies ρ = 2 (the marks of the affine E8 diagram).
     claim({ kind: "vector-certificate", graph: named("E~(8)"), vector: ["1", "2", "3", "4", "5", "6", "4", "2", "3"], relation: "=", bound: "2" }),
     claim({ kind: "structure", graph: named("E~(8)"), predicate: "leg-lengths", parameter: [1, 2, 5] }),
+    // Smith's list up to 9 vertices, by exhaustive enumeration: the connected graphs with ρ < 2 are A_n, D_n, E6–E8.
+    claim({
+      kind: "enumeration", maxVertices: 9, op: "<", bound: "2",
+      graphs: [...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((n) => `A(${n})`), ...[4, 5, 6, 7, 8, 9].map((n) => `D(${n})`), "E(6)", "E(7)", "E(8)"].map(named),
+    }),
   ]],
   [[3, 1], 1, [claim({ kind: "spectral-radius-bound", graph: named("starlike(1,2,6)"), op: "<", bound: GOLDEN })]],
   [[3, 2], 1, [
