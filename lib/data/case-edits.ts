@@ -127,15 +127,15 @@ export async function restoreCase(proofId: number, caseId: number, userId: numbe
     const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
     const c = all.find((x) => x.id === caseId);
     if (!c) throw notFound("This case");
-    if (!c.deletedAt) throw conflict("This case is not deleted; there is nothing to restore.");
     const hidden = hiddenCaseIds(all);
-    if (c.parentId !== null && hidden.has(c.parentId)) {
-      // Name the outermost deleted ancestor: restoring it first makes the way back shortest.
-      let top: CaseRow | undefined;
-      for (let a = all.find((x) => x.id === c.parentId); a; a = all.find((x) => x.id === a!.parentId)) if (a.deletedAt) top = a;
-      if (!top) throw notFound("This case"); // hidden without a deleted ancestor cannot happen
-      throw conflict(`Its parent case “${top.title}” is deleted too; restore that one first (this case comes back with it).`, { restoreFirst: top.id });
-    }
+    // The outermost deleted case above this one, if any: restoring it first makes the way back shortest.
+    let top: CaseRow | undefined;
+    for (let a = all.find((x) => x.id === c.parentId); a; a = all.find((x) => x.id === a!.parentId)) if (a.deletedAt) top = a;
+    if (!c.deletedAt)
+      throw top
+        ? conflict(`This case was not deleted itself: it is hidden because “${top.title}” above it is deleted. Restore that one and this case comes back with it.`, { restoreFirst: top.id })
+        : conflict("This case is not deleted; there is nothing to restore.");
+    if (top) throw conflict(`The case “${top.title}” above this one is deleted too; restore that one first, then this one.`, { restoreFirst: top.id });
     const live = all.filter((x) => !hidden.has(x.id));
     await c.update({ deletedAt: null, position: siblingsOf(live, c.parentId).length + 1 }, { transaction });
     await audit(proofId, userId, "case.restored", caseId, null, transaction);

@@ -69,4 +69,15 @@ describe("POST /api/proofs/[proofId]/cases/[caseId]/restore", () => {
     expect((await live.json()).error.message).toMatch(/not deleted/);
     expect((await restore(987654)).status).toBe(404);
   });
+
+  it("explains a sub-case hidden by its deleted parent: it comes back with the parent", async () => {
+    await actAs("author");
+    const c1 = await addCase(proofId, "A cycle with a chord", ids.c);
+    expect((await del(ids.c)).status).toBe(200);
+    const hidden = await restore(c1);
+    expect(hidden.status).toBe(409);
+    expect((await hidden.json()).error).toMatchObject({ restoreFirst: ids.c, message: expect.stringMatching(/not deleted itself.*“A cycle”/) });
+    expect((await restore(ids.c)).status).toBe(200);
+    expect(await numbered()).toContain("3.1 A cycle with a chord");
+  });
 });
