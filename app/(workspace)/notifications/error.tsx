@@ -1,5 +1,5 @@
 "use client";
-import { SegmentError } from "@/components/review/segment-error";
+import { SegmentError } from "@/components/ui/segment-error";
 
 export default function ErrorBoundary({ reset }: { error: Error; reset: () => void }) {
   return <SegmentError reset={reset} what="Your notifications" />;

@@ -1,12 +1,6 @@
 "use client";
+import { SegmentError } from "@/components/ui/segment-error";
 
-export default function ProofError({ reset }: { error: Error; reset: () => void }) {
-  return (
-    <div role="alert" className="rounded border border-refuted/40 bg-red-50 p-4">
-      <p>This part of the proof could not be loaded. Nothing was changed.</p>
-      <button type="button" onClick={reset} className="mt-2 underline">
-        Try again
-      </button>
-    </div>
-  );
+export default function ErrorBoundary({ reset }: { error: Error; reset: () => void }) {
+  return <SegmentError reset={reset} what="This part of the proof" />;
 }
