@@ -19,6 +19,10 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
   declare checkerVersion: string | null;
   declare checkedBy: number | null;
   declare checkedAt: Date | null;
+  /** Incremented by each re-check; a job stores its verdict only for the round it was queued for. */
+  declare verifyRound: CreationOptional<number>;
+  /** The worker (host:pid) that stored the verdict. */
+  declare decidedBy: CreationOptional<string | null>;
   /** Display data (layout, embedding image, float spectrum) as JSON; never part of a verdict. */
   declare picture: CreationOptional<string | null>;
   declare createdBy: number;
@@ -45,6 +49,8 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
         checkerVersion: { type: DataTypes.STRING(40), allowNull: true },
         checkedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         checkedAt: { type: DataTypes.DATE(3), allowNull: true },
+        verifyRound: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+        decidedBy: { type: DataTypes.STRING(200), allowNull: true },
         picture: { type: DataTypes.TEXT("long"), allowNull: true },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         withdrawnAt: { type: DataTypes.DATE(3), allowNull: true },

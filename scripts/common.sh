@@ -118,3 +118,44 @@ ensure_secret() {
     export NEXTAUTH_SECRET
   fi
 }
+
+# redis_start NAME PORT: starts Debian's redis-server with its data under .data/NAME/redis, listening on
+# 127.0.0.1:PORT only, with an append-only file so that queued jobs survive a restart. Sets REDIS_URL.
+redis_start() {
+  local name="$1" port="$2"
+  local dir="$DATA/$name/redis"
+  ensure_debian_package redis-server redis-server
+  mkdir -p "$dir"
+  export REDIS_URL="redis://127.0.0.1:$port"
+  if redis-cli -p "$port" ping 2>/dev/null | grep -q PONG; then
+    if [ -f "$dir/redis.pid" ] && kill -0 "$(cat "$dir/redis.pid")" 2>/dev/null; then say "Redis '$name' already running on 127.0.0.1:$port"; return 0; fi
+    die "port $port on 127.0.0.1 is already taken by another Redis; stop it, set CAIRN_REDIS_PORT to a free port, or set REDIS_URL to use it"
+  fi
+  if (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then
+    die "port $port on 127.0.0.1 is already taken by another program; stop it or set CAIRN_REDIS_PORT to a free port"
+  fi
+  say "starting Redis '$name' on 127.0.0.1:$port"
+  redis-server --port "$port" --bind 127.0.0.1 --dir "$dir" --pidfile "$dir/redis.pid" --logfile "$dir/redis.log" \
+    --appendonly yes --save "" --daemonize yes >/dev/null || die "redis-server did not start; see .data/$name/redis/redis.log"
+  local i
+  for i in $(seq 1 100); do
+    redis-cli -p "$port" ping 2>/dev/null | grep -q PONG && { say "Redis '$name' is ready"; return 0; }
+    sleep 0.1
+  done
+  die "Redis '$name' did not answer on 127.0.0.1:$port: $(tail -3 "$dir/redis.log" | tr '\n' ' ')"
+}
+
+# redis_stop NAME: stops the Redis started by redis_start and waits (up to 10 s) until it has exited.
+redis_stop() {
+  local dir="$DATA/$1/redis" pid="" i
+  [ -f "$dir/redis.pid" ] && pid="$(cat "$dir/redis.pid" 2>/dev/null || true)"
+  [ -n "$pid" ] || return 0
+  kill "$pid" 2>/dev/null || true
+  for i in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+}
+
+# worker_count: verification workers for `npm start`: one per core less one (the web server's), at least one.
+worker_count() {
+  local n; n="$(nproc 2>/dev/null || echo 2)"
+  if [ -n "${CAIRN_WORKERS:-}" ]; then echo "$CAIRN_WORKERS"; elif [ "$n" -gt 2 ]; then echo $((n - 1)); else echo 1; fi
+}

@@ -39,15 +39,24 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
             ↻ Re-check
           </button>
         )}
+        {canRecheck && claim.status === "pending" && (
+          <button type="button" onClick={() => void act("POST", "/cancel")} disabled={busy} className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100">
+            ■ Cancel check
+          </button>
+        )}
         {canWithdraw && (
-          <button type="button" onClick={withdraw} disabled={busy} className={`${canRecheck && claim.status !== "pending" ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}>
+          <button type="button" onClick={withdraw} disabled={busy} className={`${canRecheck ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}>
             ⨯ Withdraw
           </button>
         )}
       </div>
       {claim.status === "pending" ? (
         <p className="mt-2 text-sm text-stone-600" aria-live="polite">
-          The checker is working on this claim in the background; the verdict appears here when it is done.
+          {claim.progress?.state === "checking"
+            ? `A verification worker (${claim.progress.worker ?? "unnamed"}) is checking this claim; the verdict appears here when it is done.`
+            : claim.progress?.state === "retrying"
+              ? `This claim's check is being tried again (a worker stopped while checking it; attempt ${claim.progress.attempts + 1}); the verdict appears here when it is done.`
+              : "This claim waits for a verification worker; the verdict appears here when it is done."}
         </p>
       ) : (
         <dl className="mt-2 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_1fr]">
@@ -71,6 +80,7 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
           <dt className="text-stone-500">last checked</dt>
           <dd>
             {claim.checkedByName ?? "—"} · {claim.checkedAt?.slice(0, 16).replace("T", " ")} UTC · <span className="font-mono">{claim.checkerVersion}</span>
+            {claim.decidedBy && <span className="font-mono text-stone-500"> · worker {claim.decidedBy}</span>}
           </dd>
           <dt className="text-stone-500">digest</dt>
           <dd className="break-all font-mono text-xs">{claim.digest}</dd>

@@ -1,10 +1,11 @@
 "use client";
 import useSWR from "swr";
 import type { ClaimView, WithdrawnClaimView } from "@/lib/data/claims";
+import type { VerificationService } from "@/lib/jobs/queue";
 import { jsonFetcher } from "@/components/proof/api-client";
 import { ClaimCard } from "./claim-card";
 
-type StepClaims = { claims: ClaimView[]; withdrawn: WithdrawnClaimView[] };
+type StepClaims = { claims: ClaimView[]; withdrawn: WithdrawnClaimView[]; verification: VerificationService | null };
 
 /** The step's claims, polled every second while any is pending, and below them the withdrawn ones. */
 export function ClaimList(props: { proofId: number; stepId: number; initial: StepClaims; canRecheck: boolean; canWithdraw: boolean }) {
@@ -23,6 +24,11 @@ export function ClaimList(props: { proofId: number; stepId: number; initial: Ste
       {error && (
         <p role="alert" className="mt-2 text-sm text-refuted">
           The claims could not be refreshed: {(error as Error).message}
+        </p>
+      )}
+      {data?.verification?.paused && (
+        <p role="status" data-testid="verification-paused" className="mt-2 rounded border border-amber-300 bg-amber-50 p-2 text-sm text-amber-900">
+          {data.verification.message}
         </p>
       )}
       {claims.length === 0 ? (

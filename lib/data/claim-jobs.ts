@@ -1,62 +1,59 @@
 import "server-only";
+import { Op } from "sequelize";
 import { models } from "@/models";
-import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
-import type { Claim } from "@/lib/core/claim-schema";
+import { claimJobProgress, queueClaim, QueueUnavailable, verificationService, type JobProgress, type VerificationService } from "@/lib/jobs/queue";
 
 /**
- * Verification jobs of stored claims: each runs in the worker pool and stores its verdict. One job
- * per claim at a time; the map lives on globalThis so route handlers and pages of one server share it.
+ * The web side of verification jobs: it queues a claim's job (BullMQ, taken by a worker process) and
+ * reads the verdict from the database; it never runs a check itself. When Redis is away the claim
+ * simply stays `pending`; the workers' sweep queues it once Redis is back.
  */
-const inFlight = ((globalThis as unknown as { __cairnClaimJobs?: Map<number, Promise<void>> }).__cairnClaimJobs ??= new Map());
+
+/** Queues the claim's verification for its current round; false when the queue is away (it waits, pending). */
+export async function scheduleVerification(claimId: number, round: number, checkedBy: number): Promise<boolean> {
+  try {
+    await queueClaim({ claimId, round, checkedBy });
+    return true;
+  } catch (e) {
+    if (!(e instanceof QueueUnavailable)) console.error("[cairn] could not queue verification", e);
+    return false;
+  }
+}
 
 /**
- * Verifies a stored claim in the worker pool and stores the verdict; one job per claim at a time.
- * `claim` is the stored input when the caller has it at hand (it is read from the row otherwise).
+ * Resolves when none of these claims is `pending` any more, or after `ms` (polling the database
+ * every 200 ms: the verdict is stored there by whichever worker decided it).
  */
-export function scheduleVerification(claimId: number, checkedBy: number, claim?: Claim): Promise<void> {
-  const running = inFlight.get(claimId);
-  if (running) return running;
-  const job = (async () => {
-    const { Claim } = models();
-    let input = claim;
-    if (!input) {
-      const row = await Claim.findByPk(claimId, { attributes: ["id", "input"] });
-      if (!row) return;
-      input = JSON.parse(row.input) as Claim;
-    }
-    let update: Partial<Record<string, unknown>>;
-    try {
-      const answer = await runInPool({ mode: "verify", claim: input, stepLimit: STEP_LIMIT, picture: true });
-      update = answer.ok
-        ? (() => {
-            const o = answer.outcome!;
-            const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
-            return {
-              status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason + notes,
-              certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
-            };
-          })()
-        : { status: "undecided", method: "input", reason: `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`, certificate: null };
-    } catch (e) {
-      if (!(e instanceof WorkerFailure)) console.error("[cairn] verification job failed", e);
-      update = { status: "undecided", method: "worker", reason: e instanceof WorkerFailure ? e.message : "the verification could not run; re-check to try again", certificate: null };
-    }
-    await Claim.update({ ...update, checkedBy, checkedAt: new Date() }, { where: { id: claimId } });
-  })().finally(() => inFlight.delete(claimId));
-  inFlight.set(claimId, job);
-  return job;
+export async function waitForVerdicts(ids: number[], ms: number): Promise<void> {
+  const { Claim } = models();
+  const deadline = Date.now() + ms;
+  while ((await Claim.unscoped().count({ where: { id: { [Op.in]: ids }, status: "pending" } })) > 0 && Date.now() < deadline)
+    await new Promise((r) => setTimeout(r, Math.min(200, Math.max(0, deadline - Date.now()))));
 }
 
-/** Resolves when the claim's current verification (if any) has stored its verdict. */
-export async function verificationSettled(claimId: number): Promise<void> {
-  await inFlight.get(claimId);
+/** Resolves when the claim is no longer pending (up to ten minutes): for tests and scripts. */
+export const verificationSettled = (claimId: number): Promise<void> => waitForVerdicts([claimId], 600_000);
+
+export type { JobProgress, VerificationService };
+
+/** Whether verification runs now (Redis reachable, a worker connected), for the pages' notice. */
+export const verificationStatus = (): Promise<VerificationService> => verificationService();
+
+/** The notice for a list of claims: asked of the queue only when one of them waits for a verdict. */
+export async function verificationNotice(rows: Array<{ status: string }>): Promise<VerificationService | null> {
+  return rows.some((r) => r.status === "pending") ? verificationService() : null;
 }
 
-/** Whether a verification of this claim is running in this process. */
-export const isVerifying = (claimId: number) => inFlight.has(claimId);
-
-/** Pending claims whose job is not running here (the server restarted meanwhile) are queued again. */
-export function resumeStale(rows: Array<{ id: number; status: string; updatedAt: Date; checkedBy: number | null; createdBy: number }>): void {
-  const stale = Date.now() - 5_000;
-  for (const r of rows) if (r.status === "pending" && !inFlight.has(r.id) && r.updatedAt.getTime() < stale) void scheduleVerification(r.id, r.checkedBy ?? r.createdBy);
+/** Where each pending claim's job is (queued, being checked by which worker, retried); empty when Redis is away. */
+export async function pendingProgress(rows: Array<{ id: number; status: string; verifyRound: number }>): Promise<Map<number, JobProgress>> {
+  const out = new Map<number, JobProgress>();
+  try {
+    for (const r of rows.filter((c) => c.status === "pending").slice(0, 50)) {
+      const p = await claimJobProgress(r.id, r.verifyRound);
+      if (p) out.set(r.id, p);
+    }
+  } catch (e) {
+    if (!(e instanceof QueueUnavailable)) throw e;
+  }
+  return out;
 }

@@ -2,11 +2,12 @@ import "server-only";
 import { Op } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
-import { invalid, notFound, type Issue } from "@/lib/errors";
+import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
-import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
-import { isVerifying, resumeStale, scheduleVerification, verificationSettled } from "@/lib/data/claim-jobs";
+import { checkInputs } from "@/lib/verification/worker-entry";
+import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
+import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
 import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
@@ -29,6 +30,10 @@ export interface ClaimView {
   input: Record<string, unknown>;
   certificate: { summary: string; bytes: number; preview: string } | null;
   checkerVersion: string | null;
+  /** The worker (host:pid) that stored the verdict. */
+  decidedBy: string | null;
+  /** While pending: where its job is (queued, checking on which worker, retried), when the queue can be asked. */
+  progress: JobProgress | null;
   checkedByName: string | null;
   checkedAt: string | null;
   createdAt: string;
@@ -57,7 +62,7 @@ function certificateSummary(text: string): ClaimView["certificate"] {
   return { summary, bytes: text.length, preview: text.length > 1_500 ? `${text.slice(0, 1_500)}…` : text };
 }
 
-function claimView(c: ClaimRow): ClaimView {
+function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView {
   const checker = (c as unknown as { checker?: { name: string } | null }).checker;
   return {
     id: c.id,
@@ -72,6 +77,8 @@ function claimView(c: ClaimRow): ClaimView {
     input: cut(JSON.parse(c.input)) as Record<string, unknown>,
     certificate: c.certificate ? certificateSummary(c.certificate) : null,
     checkerVersion: c.checkerVersion,
+    decidedBy: c.decidedBy ?? null,
+    progress: c.status === "pending" ? progress : null,
     checkedByName: checker?.name ?? null,
     checkedAt: c.checkedAt ? c.checkedAt.toISOString() : null,
     createdAt: c.createdAt.toISOString(),
@@ -80,14 +87,11 @@ function claimView(c: ClaimRow): ClaimView {
 }
 
 /**
- * Waits up to `ms` for the verdicts of claims just attached to a step (the checks still run in the
- * worker pool) and returns the claims as they are then; those not done are still `pending`.
+ * Waits up to `ms` for the verdicts of claims just attached to a step (the checks run as jobs in the
+ * worker processes) and returns the claims as they are then; those not done are still `pending`.
  */
 export async function awaitVerdicts(stepId: number, ids: number[], ms: number): Promise<ClaimView[]> {
-  let timer: ReturnType<typeof setTimeout> | undefined;
-  const timeout = new Promise<void>((resolve) => (timer = setTimeout(resolve, ms)));
-  await Promise.race([Promise.all(ids.map(verificationSettled)), timeout]);
-  clearTimeout(timer);
+  await waitForVerdicts(ids, ms);
   return readClaimViews(stepId, ids);
 }
 
@@ -98,12 +102,13 @@ const withChecker = () => [{ model: models().User, as: "checker", attributes: ["
 /** The step's claims with these ids, in step order, read in one query. */
 async function readClaimViews(stepId: number, ids: number[]): Promise<ClaimView[]> {
   const { Claim } = models();
-  return (await Claim.findAll({ where: { id: ids, stepId }, include: withChecker(), order: [["position", "ASC"]] })).map(claimView);
+  return (await Claim.findAll({ where: { id: ids, stepId }, include: withChecker(), order: [["position", "ASC"]] })).map((c) => claimView(c));
 }
 
 /**
- * Reads every claim's inputs the way the check will (graph text, bound, embedding and vector sizes)
- * in the worker pool, so that malformed input is a 422 naming the field and nothing is stored.
+ * Reads every claim's inputs the way the check will (graph text, bound, embedding and vector sizes),
+ * so that malformed input is a 422 naming the field and nothing is stored. Reading is parsing only;
+ * the check itself runs in a worker process.
  */
 async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> {
   const issues: Issue[] = [];
@@ -119,10 +124,12 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
   }
   if (issues.length === 0)
     for (const [i, claim] of claims.entries()) {
-      const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
-        throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
-      });
-      if (!answer.ok) issues.push({ path: pathOf(i, answer.problem.path), message: answer.problem.detail });
+      try {
+        checkInputs(claim);
+      } catch (e) {
+        if (!(e instanceof ClaimError)) throw e;
+        issues.push({ path: pathOf(i, e.path), message: e.detail });
+      }
     }
   if (issues.length) throw invalid("Some claims need attention; nothing was saved.", issues);
   return claims;
@@ -138,7 +145,7 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
-    const out: Array<{ id: number; claim: ClaimJson }> = [];
+    const out: Array<{ id: number }> = [];
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
@@ -148,11 +155,12 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         { transaction },
       );
       await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
-      out.push({ id: row.id, claim });
+      out.push({ id: row.id });
     }
     return out;
   });
-  for (const { id, claim } of stored) void scheduleVerification(id, userId, claim);
+  // Queued after the commit, so a worker never looks for a claim that is not there yet.
+  for (const { id } of stored) await scheduleVerification(id, 0, userId);
   return stored.map((s) => s.id);
 }
 
@@ -173,20 +181,44 @@ async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow>
 
 export async function getClaim(proofId: number, claimId: number): Promise<ClaimView> {
   const row = await claimInProof(proofId, claimId);
-  resumeStale([row]);
-  return claimView(row);
+  return claimView(row, (await pendingProgress([row])).get(row.id) ?? null);
 }
 
-/** Runs the check again (e.g. after an `undecided` for budget or time): the claim is `pending` until it ends. */
+/**
+ * Runs the check again (e.g. after an `undecided` for budget or time) in a new verification round:
+ * the claim is `pending` until a worker stores the new verdict. A claim already pending is left as it is.
+ */
 export async function recheck(proofId: number, claimId: number, userId: number): Promise<ClaimView> {
   const { AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
-  if (!isVerifying(claimId)) {
-    await row.update({ status: "pending" });
+  if (row.status !== "pending") {
+    await row.update({ status: "pending", verifyRound: row.verifyRound + 1 });
     await AuditEvent.create({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
-    void scheduleVerification(claimId, userId);
+    await scheduleVerification(claimId, row.verifyRound, userId);
   }
   return claimView(row);
+}
+
+/**
+ * Cancels a pending claim's verification: the claim becomes `undecided` (re-check runs it again), a
+ * job still waiting is removed, and a worker checking it stops within about a second. 409 when the
+ * claim is not pending (its verdict is already in).
+ */
+export async function cancelVerification(proofId: number, claimId: number, user: { id: number; name: string }): Promise<ClaimView> {
+  const { Claim, AuditEvent } = models();
+  const row = await claimInProof(proofId, claimId);
+  const cancelled = await getSequelize().transaction(async (transaction) => {
+    const [changed] = await Claim.update(
+      { status: "undecided", method: "cancelled", reason: `the verification was cancelled by ${user.name}; re-check to run it again`, certificate: null, checkedBy: user.id, checkedAt: new Date() },
+      { where: { id: claimId, status: "pending", verifyRound: row.verifyRound }, transaction },
+    );
+    if (changed === 1) await AuditEvent.create({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, { transaction });
+    return changed === 1;
+  });
+  if (!cancelled) throw conflict("This claim is not waiting for a verdict any more; there is nothing to cancel.");
+  // A job still waiting is removed; an active one is stopped by its worker, which watches the claim.
+  await bounded(async () => (await verificationQueue().getJob(claimJobId(claimId, row.verifyRound)))?.remove()).catch(() => undefined);
+  return claimView((await claimInProof(proofId, claimId)));
 }
 
 /**
@@ -236,8 +268,8 @@ export async function listWithdrawnClaims(stepId: number): Promise<WithdrawnClai
 export async function listStepClaims(stepId: number): Promise<ClaimView[]> {
   const { Claim } = models();
   const rows = await Claim.findAll({ where: { stepId }, include: withChecker(), order: [["position", "ASC"], ["id", "ASC"]] });
-  resumeStale(rows);
-  return rows.map(claimView);
+  const progress = await pendingProgress(rows);
+  return rows.map((r) => claimView(r, progress.get(r.id) ?? null));
 }
 
 export interface ClaimRowView {
@@ -266,10 +298,9 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));
   const rows = await Claim.findAll({
     where: { stepId: { [Op.in]: steps.map((s) => s.id) } },
-    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt", "updatedAt", "createdBy", "checkedBy"],
+    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt"],
     order: [["id", "ASC"]],
   });
-  resumeStale(rows);
   const caseOf = new Map(steps.map((s) => [s.id, numbered.get(s.caseId)!]));
   return rows.map((r) => ({
     id: r.id,

@@ -5,9 +5,10 @@ import "server-only";
  */
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { conflict, forbidden, notFound } from "@/lib/errors";
+import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import type { Bundle, ExportKind } from "@/lib/core/bundle";
-import { checkBundleInPool, WorkerFailure } from "@/lib/verification/pool";
+import { QueueUnavailable, runBundleJob } from "@/lib/jobs/queue";
+import { TIME_LIMIT_MS } from "@/lib/verification/limits";
 import { buildBundle } from "@/lib/export/bundle";
 import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
@@ -146,9 +147,12 @@ export async function createExport(proofId: number, user: { id: number; name: st
     throw conflict(`This proof is not ready to certify: ${certification.blockers.join(" ")} You can export a draft instead.`, { blockers: certification.blockers });
   const bundle = buildBundle(snapshot, { kind, exportedAt: new Date().toISOString(), exportedBy: user.name });
   if (kind === "certified") {
-    // In the worker pool, not here: re-checking every claim of a large proof must not hold up other requests.
-    const report = await checkBundleInPool(JSON.parse(JSON.stringify(bundle)), bundle.items.filter((i) => i.type === "claim").length).catch((e) => {
-      throw conflict(`The bundle could not be re-checked, so it cannot be certified: ${e instanceof WorkerFailure ? e.message : "the checker stopped"}.`);
+    // As a job in a worker process, not here: re-checking every claim of a large proof must not hold up other requests.
+    // The wait covers the re-check's own limit (that of each claim, up to ten minutes) and a minute in the queue.
+    const claims = bundle.items.filter((i) => i.type === "claim").length;
+    const report = await runBundleJob(JSON.parse(JSON.stringify(bundle)), claims, Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000) + 60_000).catch((e) => {
+      if (e instanceof QueueUnavailable) throw new AppError("unavailable", "Verification is paused (the job queue cannot be reached), so the bundle cannot be re-checked and certified now. Try again in a few minutes; a draft export works meanwhile.");
+      throw conflict(`The bundle could not be re-checked, so it cannot be certified: ${(e as Error).message}.`);
     });
     const failing = report.lines.filter((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches));
     if (report.exitCode !== 0)

@@ -1,22 +1,20 @@
 /**
- * The verification worker pool: exact checks run in piscina worker threads, never on the thread that
- * answers requests, so a heavy claim does not block other users. The worker is plain JavaScript
+ * The verification worker pool of a worker process (lib/jobs/worker.ts): exact checks run in piscina
+ * worker threads, so the process's own thread stays free to keep its job's lock alive and to notice a
+ * cancel, and a check past its time limit can be stopped. The worker is plain JavaScript
  * bundled by esbuild from lib/verification/worker-entry.ts (which imports lib/core) the first time a
  * process needs it, and again whenever a source file is newer than the bundle; the bundle is written
  * to a temporary name and renamed, so processes building side by side never read half a file.
  */
 import { execFileSync } from "node:child_process";
 import { existsSync, mkdirSync, readdirSync, renameSync, statSync } from "node:fs";
-import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Piscina } from "piscina";
 import type { BundleTask, VerificationTask, WorkerAnswer } from "./types";
 import type { BundleCheckReport } from "../core/bundle";
+import { STEP_LIMIT, TIME_LIMIT_MS } from "./limits";
 
-/** Step budget of a check (the core's default); CAIRN_VERIFY_STEP_LIMIT overrides it. */
-export const STEP_LIMIT = Number(process.env.CAIRN_VERIFY_STEP_LIMIT) || 200_000_000;
-/** Wall-clock limit of one check; past it the worker is stopped and the verdict is undecided. */
-export const TIME_LIMIT_MS = Number(process.env.CAIRN_VERIFY_TIME_LIMIT_MS) || 120_000;
+export { STEP_LIMIT, TIME_LIMIT_MS };
 
 const SOURCE_DIRS = ["lib/core", "lib/verification"];
 
@@ -53,8 +51,8 @@ function pool(): Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleChe
   g.__cairnVerifyPool ??= new Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport>({
     filename: workerFile(),
     minThreads: 1,
-    // One core stays with the thread that answers requests, so checks never slow the pages down.
-    maxThreads: Number(process.env.CAIRN_VERIFY_THREADS) || Math.max(1, availableParallelism() - 1),
+    // A worker process takes one job at a time; more cores mean more worker processes (npm start).
+    maxThreads: Number(process.env.CAIRN_VERIFY_THREADS) || 1,
     idleTimeout: 60_000,
     resourceLimits: { maxOldGenerationSizeMb: 1536 },
   });
@@ -69,9 +67,20 @@ export class WorkerFailure extends Error {
   }
 }
 
-/** Runs one task in the pool; rejects with WorkerFailure when the worker is stopped or dies. */
-export function runInPool(task: VerificationTask, timeLimitMs = TIME_LIMIT_MS): Promise<WorkerAnswer> {
-  return run(task, timeLimitMs) as Promise<WorkerAnswer>;
+/**
+ * Runs one task in the pool; rejects with WorkerFailure when the worker is stopped or dies, and with
+ * CheckCancelled when `cancel` fires first (the claim was cancelled, withdrawn or re-queued).
+ */
+export function runInPool(task: VerificationTask, timeLimitMs = TIME_LIMIT_MS, cancel?: AbortSignal): Promise<WorkerAnswer> {
+  return run(task, timeLimitMs, undefined, cancel) as Promise<WorkerAnswer>;
+}
+
+/** The check was stopped on purpose before it ended; nothing is stored for it. */
+export class CheckCancelled extends Error {
+  constructor() {
+    super("the check was cancelled");
+    this.name = "CheckCancelled";
+  }
 }
 
 /**
@@ -83,10 +92,12 @@ export function checkBundleInPool(bundle: unknown, claims: number): Promise<Bund
   return run({ bundle, stepLimit: STEP_LIMIT }, limit, "bundle") as Promise<BundleCheckReport>;
 }
 
-async function run(task: VerificationTask | BundleTask, timeLimitMs: number, name?: string): Promise<WorkerAnswer | BundleCheckReport> {
+async function run(task: VerificationTask | BundleTask, timeLimitMs: number, name?: string, cancel?: AbortSignal): Promise<WorkerAnswer | BundleCheckReport> {
+  const timeout = AbortSignal.timeout(timeLimitMs);
   try {
-    return await pool().run(task, { signal: AbortSignal.timeout(timeLimitMs), ...(name ? { name } : {}) });
+    return await pool().run(task, { signal: cancel ? AbortSignal.any([timeout, cancel]) : timeout, ...(name ? { name } : {}) });
   } catch (e) {
+    if (cancel?.aborted && !timeout.aborted) throw new CheckCancelled();
     const name = (e as { name?: string }).name;
     if (name === "AbortError" || name === "TimeoutError")
       throw new WorkerFailure(`the check ran longer than ${Math.round(timeLimitMs / 1000)} s and was stopped; re-check to try again`);

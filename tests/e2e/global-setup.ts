@@ -1,10 +1,11 @@
 /**
  * Browser tests run against the built app (`next build` ran in npm test) served by `next start` on
- * loopback, with its own migrated and seeded database. The server runs in its own process group so
+ * loopback, with its own migrated and seeded database and one verification worker. The server runs in its own process group so
  * that teardown stops next-server too.
  */
 import { spawn, execFileSync, type ChildProcess } from "node:child_process";
 import type { TestProject } from "vitest/node";
+import { startTestWorker } from "../support/workers";
 
 export const E2E_PORT = Number(process.env.CAIRN_E2E_PORT ?? 3101);
 
@@ -13,7 +14,11 @@ let server: ChildProcess | undefined;
 export default async function setup(project: TestProject) {
   const dbUrl = process.env.CAIRN_E2E_DATABASE_URL;
   if (!dbUrl) throw new Error("Browser tests need CAIRN_E2E_DATABASE_URL; run them through `npm test`.");
-  const env = { ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret" };
+  const env = {
+    ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret",
+    // Its own queue on the tests' Redis, apart from the integration tests' (another database).
+    CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e`,
+  };
   for (const script of ["scripts/migrate.ts", "scripts/seed.ts"]) execFileSync("node_modules/.bin/tsx", [script], { env, stdio: "inherit" });
   server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(E2E_PORT)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
   const base = `http://localhost:${E2E_PORT}`;
@@ -29,7 +34,10 @@ export default async function setup(project: TestProject) {
     await new Promise((r) => setTimeout(r, 300));
   }
   project.provide("baseUrl", base);
+  const worker = startTestWorker(env, ".data/e2e-worker.log");
+  await worker.ready;
   return async () => {
+    worker.stop();
     if (server?.pid) {
       try {
         process.kill(-server.pid, "SIGTERM");

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getStep } from "@/lib/data/steps";
 import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
+import { verificationNotice } from "@/lib/data/claim-jobs";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepEditor } from "@/components/editor/step-editor";
 import { RevisionHistory } from "@/components/editor/revision-history";
@@ -27,6 +28,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   }));
   const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
   const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
+  const verification = await verificationNotice(claims);
   const isAuthor = role === "author";
   return (
     <main>
@@ -50,7 +52,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       <div className="mt-8">
         <VerdictCaution />
       </div>
-      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn }} canRecheck={role !== "reviewer"} canWithdraw={isAuthor} />
+      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={role !== "reviewer"} canWithdraw={isAuthor} />
       {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
       {isAuthor && (
         <details className="mt-3">

@@ -3,23 +3,28 @@ import { requireProofRole } from "@/lib/session";
 import { requireStepAccess } from "@/lib/data/reviews";
 import { attachClaims, awaitVerdicts, listStepClaims, listWithdrawnClaims, storeClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
+import { verificationNotice } from "@/lib/data/claim-jobs";
 import { attachClaimsSchema } from "@/lib/validations/claim";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 
-/** The step's claims with their verdicts (poll this while any is `pending`) and its withdrawn claims; any member. */
+/**
+ * The step's claims with their verdicts (poll this while any is `pending`), its withdrawn claims, and,
+ * while a claim is pending, whether verification runs (`verification.paused` with a message); any member.
+ */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   await requireStepAccess(proofId, stepId); // a reviewer of chosen cases sees only those
   await stepInProof(proofId, stepId);
-  return Response.json({ claims: await listStepClaims(stepId), withdrawn: await listWithdrawnClaims(stepId) });
+  const claims = await listStepClaims(stepId);
+  return Response.json({ claims, withdrawn: await listWithdrawnClaims(stepId), verification: await verificationNotice(claims) });
 });
 
 /**
  * Attaches one or more "cairn-claim/1" claims to the step; authors only. Input that cannot be read
  * is a 422 naming the field (e.g. `claims.0.graph.text`) and nothing is saved; otherwise the claims
- * are stored `pending` and verified in the worker pool (202). With `?wait=SECONDS` (at most 60) the
+ * are stored `pending` and verified as jobs by the worker processes (202). With `?wait=SECONDS` (at most 60) the
  * answer waits that long for the verdicts: 200 when all are in, else 202 with those still pending.
  */
 export const POST = route(async (request: Request, { params }: Context) => {

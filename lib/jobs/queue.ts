@@ -1,0 +1,190 @@
+/**
+ * The verification job queue (BullMQ over Redis), as the web process and the workers both see it.
+ * The web process only adds jobs and reads their state; workers (scripts/worker.ts, lib/jobs/worker.ts)
+ * take them. Redis is REDIS_URL (npm start and npm test start one on loopback when it is unset); the
+ * key prefix CAIRN_QUEUE_PREFIX keeps two databases' queues apart on one Redis.
+ *
+ * Every call from the web process is bounded in time: with Redis unreachable it fails within
+ * WEB_REDIS_TIMEOUT_MS instead of waiting, and the caller treats verification as paused
+ * (claims stay `pending`; the workers' sweep queues them when Redis is back).
+ */
+import { Queue, type ConnectionOptions, type Job } from "bullmq";
+import type { BundleCheckReport } from "../core/bundle";
+
+export const QUEUE_NAME = "verification";
+/** How long the web process waits for Redis before calling verification paused. */
+const WEB_REDIS_TIMEOUT_MS = 1_500;
+
+/** Data of a claim's verification job; `round` is the claim's verify_round when it was queued. */
+export interface ClaimJobData {
+  type: "claim";
+  claimId: number;
+  round: number;
+  checkedBy: number;
+}
+
+/** Data of a certified export's re-check: the whole bundle, and how many claims it holds. */
+export interface BundleJobData {
+  type: "bundle";
+  bundle: unknown;
+  claims: number;
+}
+
+export type JobData = ClaimJobData | BundleJobData;
+export type JobResult = { decided: boolean } | BundleCheckReport;
+
+export const redisUrl = (): string => process.env.REDIS_URL ?? "redis://127.0.0.1:6389";
+export const queuePrefix = (): string => process.env.CAIRN_QUEUE_PREFIX ?? "cairn";
+
+/** ioredis options from REDIS_URL; `worker` connections retry commands forever (BullMQ requires it). */
+export function redisConnection(kind: "web" | "worker"): ConnectionOptions {
+  const url = new URL(redisUrl());
+  return {
+    host: url.hostname || "127.0.0.1",
+    port: Number(url.port) || 6379,
+    ...(url.username ? { username: decodeURIComponent(url.username) } : {}),
+    ...(url.password ? { password: decodeURIComponent(url.password) } : {}),
+    ...(url.pathname.length > 1 ? { db: Number(url.pathname.slice(1)) || 0 } : {}),
+    ...(url.protocol === "rediss:" ? { tls: {} } : {}),
+    // The web process gives up on a command quickly when Redis is gone (each call is also bounded in
+    // time, see `bounded`); a worker waits for Redis to return.
+    ...(kind === "web"
+      ? { maxRetriesPerRequest: 1, connectTimeout: WEB_REDIS_TIMEOUT_MS, retryStrategy: (n: number) => Math.min(n * 200, 2_000) }
+      : { maxRetriesPerRequest: null, retryStrategy: (n: number) => Math.min(n * 200, 2_000) }),
+  };
+}
+
+/** Job ids: one job per claim and verification round, so queueing twice is harmless. */
+export const claimJobId = (claimId: number, round: number) => `claim-${claimId}-r${round}`;
+
+/** Retries: a job whose worker died is taken up again (stalled) twice; a job that threw, three tries in all. */
+export const JOB_ATTEMPTS = 3;
+export const MAX_STALLED = 2;
+
+const g = globalThis as unknown as { __cairnQueue?: { key: string; queue: Queue<JobData, JobResult> } };
+
+/** The queue of this process (one per REDIS_URL and prefix), created lazily. */
+export function verificationQueue(kind: "web" | "worker" = "web"): Queue<JobData, JobResult> {
+  const key = `${kind} ${redisUrl()} ${queuePrefix()}`;
+  if (g.__cairnQueue?.key !== key) {
+    void g.__cairnQueue?.queue.close().catch(() => undefined);
+    const queue = new Queue<JobData, JobResult>(QUEUE_NAME, {
+      connection: redisConnection(kind),
+      prefix: queuePrefix(),
+      defaultJobOptions: {
+        attempts: JOB_ATTEMPTS,
+        backoff: { type: "exponential", delay: 1_000 },
+        removeOnComplete: { age: 24 * 3600, count: 5_000 },
+        removeOnFail: { age: 7 * 24 * 3600 },
+      },
+    });
+    // Connection errors surface as rejected calls (the caller decides); do not crash on the event.
+    queue.on("error", () => undefined);
+    g.__cairnQueue = { key, queue };
+  }
+  return g.__cairnQueue.queue;
+}
+
+/** Raised when Redis does not answer in time: verification is paused, nothing is lost. */
+export class QueueUnavailable extends Error {
+  constructor(cause?: unknown) {
+    super(`the verification queue (Redis at ${new URL(redisUrl()).host}) cannot be reached${cause instanceof Error ? `: ${cause.message}` : ""}`);
+    this.name = "QueueUnavailable";
+  }
+}
+
+/** Runs a Redis call with the web process's time bound; QueueUnavailable when Redis is away. */
+export async function bounded<T>(call: () => Promise<T>, ms = WEB_REDIS_TIMEOUT_MS): Promise<T> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const late = new Promise<never>((_, reject) => (timer = setTimeout(() => reject(new QueueUnavailable()), ms)));
+  try {
+    return await Promise.race([call(), late]);
+  } catch (e) {
+    throw e instanceof QueueUnavailable ? e : new QueueUnavailable(e);
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+/** Queues a claim's verification (idempotent per claim and round). */
+export async function queueClaim(data: Omit<ClaimJobData, "type">, kind: "web" | "worker" = "web"): Promise<void> {
+  const add = () => verificationQueue(kind).add("claim", { type: "claim", ...data }, { jobId: claimJobId(data.claimId, data.round) });
+  await (kind === "web" ? bounded(add) : add());
+}
+
+/** What a person can be told about the verification service right now. */
+export interface VerificationService {
+  /** True when verification cannot go on now (queue unreachable or no worker connected). */
+  paused: boolean;
+  /** Why, in words a person can act on; null when running. */
+  message: string | null;
+  workers: number;
+}
+
+export async function verificationService(): Promise<VerificationService> {
+  try {
+    const workers = await bounded(() => verificationQueue().getWorkersCount());
+    if (workers === 0)
+      return { paused: true, workers, message: "Verification is paused: no verification worker is running (start one with `npm run worker`). Pending claims keep their place and are checked when a worker starts." };
+    return { paused: false, workers, message: null };
+  } catch {
+    return {
+      paused: true,
+      workers: 0,
+      message: "Verification is paused: the job queue cannot be reached right now. Pending claims keep their place and are checked as soon as it is back; nothing is lost.",
+    };
+  }
+}
+
+/** Where a pending claim's job is: waiting its turn, being checked (by which worker), or retried. */
+export interface JobProgress {
+  state: "queued" | "checking" | "retrying" | "unknown";
+  worker: string | null;
+  attempts: number;
+}
+
+export async function claimJobProgress(claimId: number, round: number): Promise<JobProgress | null> {
+  const job = await bounded(() => verificationQueue().getJob(claimJobId(claimId, round)));
+  if (!job) return null;
+  const state = await bounded(() => job.getState());
+  const progress = (job.progress ?? {}) as { worker?: string };
+  const retried = job.attemptsMade > 0 || (job.stalledCounter ?? 0) > 0;
+  return {
+    state: state === "active" ? "checking" : state === "waiting" || state === "prioritized" ? (retried ? "retrying" : "queued") : state === "delayed" ? "retrying" : "unknown",
+    worker: state === "active" ? (progress.worker ?? job.processedBy ?? null) : null,
+    attempts: job.attemptsMade + (job.stalledCounter ?? 0),
+  };
+}
+
+/**
+ * Runs a certified export's bundle re-check as a job and waits for its report (polling the job,
+ * every 200 ms, up to `ms`). Rejects with QueueUnavailable when Redis is away, or with an Error
+ * saying why the job did not finish.
+ */
+export async function runBundleJob(bundle: unknown, claims: number, ms: number): Promise<BundleCheckReport> {
+  const job: Job<JobData, JobResult> = await bounded(() => verificationQueue().add("bundle", { type: "bundle", bundle, claims }, { attempts: 2 }));
+  const deadline = Date.now() + ms;
+  for (;;) {
+    const state = await bounded(() => job.getState());
+    if (state === "completed") {
+      const done = await bounded(() => verificationQueue().getJob(job.id!));
+      return done!.returnvalue as BundleCheckReport;
+    }
+    if (state === "failed") {
+      const done = await bounded(() => verificationQueue().getJob(job.id!));
+      throw new Error(done?.failedReason || "the re-check failed");
+    }
+    if (Date.now() > deadline) {
+      await bounded(() => job.remove()).catch(() => undefined);
+      throw new Error(`the re-check did not finish within ${Math.round(ms / 1000)} s`);
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** For tests and scripts: close this process's queue connection. */
+export async function closeQueue(): Promise<void> {
+  const q = g.__cairnQueue;
+  g.__cairnQueue = undefined;
+  await q?.queue.close().catch(() => undefined);
+}

@@ -1,0 +1,188 @@
+/**
+ * A verification worker process (started by `npm run worker`, any number per host, any number of
+ * hosts against the same Redis and MariaDB): takes jobs from the queue one at a time, runs the exact
+ * check in a worker thread (lib/verification/pool.ts, with its step budget and time limit), and
+ * stores the verdict with the worker's name (host:pid) and the checker version.
+ *
+ * Exactly once: a verdict is written only while the claim is still `pending` in the round the job
+ * was queued for (one UPDATE … WHERE), so a job run twice after a worker died stores one verdict.
+ * Durable: a worker that dies leaves its job locked until the lock runs out; another worker then
+ * takes it again (at most MAX_STALLED times), and a job that fails for good leaves its claim
+ * `undecided` with the reason. A sweep every few seconds queues pending claims that have no job
+ * (attached while Redis was away) and settles claims whose job failed for good.
+ */
+import { hostname } from "node:os";
+import { QueryTypes } from "sequelize";
+import { Worker, type Job } from "bullmq";
+import { getSequelize } from "../db";
+import { models } from "../../models";
+import type { Claim as ClaimJson } from "../core/claim-schema";
+import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
+import { claimJobId, JOB_ATTEMPTS, MAX_STALLED, QUEUE_NAME, queueClaim, queuePrefix, redisConnection, verificationQueue, type BundleJobData, type ClaimJobData, type JobData, type JobResult } from "./queue";
+
+/** This worker's name, stored with each verdict it decides. */
+export const workerName = (): string => `${hostname()}:${process.pid}`;
+
+const num = (name: string, fallback: number) => Number(process.env[name]) || fallback;
+
+type Decision = Record<string, unknown>;
+
+/** Stores a decision if the claim is still pending in this round; true when this call stored it. */
+async function decide(claimId: number, round: number, checkedBy: number, decision: Decision): Promise<boolean> {
+  const { Claim, AuditEvent } = models();
+  return getSequelize().transaction(async (transaction) => {
+    const [changed] = await Claim.unscoped().update(
+      { ...decision, checkedBy, checkedAt: new Date(), decidedBy: workerName() },
+      { where: { id: claimId, status: "pending", verifyRound: round }, transaction },
+    );
+    if (changed !== 1) return false;
+    const row = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "stepId"], transaction });
+    const proof = await getSequelize().query<{ proofId: number }>(
+      "SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?",
+      { replacements: [row!.stepId], type: QueryTypes.SELECT, transaction },
+    );
+    await AuditEvent.create(
+      { proofId: proof[0].proofId, actorId: null, action: "claim.decided", subjectType: "claim", subjectId: claimId, detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}` },
+      { transaction },
+    );
+    return true;
+  });
+}
+
+const undecided = (method: string, reason: string): Decision => ({ status: "undecided", method, reason, certificate: null });
+
+/** Whether the claim still waits for this round's verdict (not decided, cancelled, withdrawn or re-queued). */
+async function stillWanted(claimId: number, round: number): Promise<boolean> {
+  const { Claim } = models();
+  const row = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "status", "verifyRound", "withdrawnAt"] });
+  return !!row && row.status === "pending" && row.verifyRound === round && row.withdrawnAt === null;
+}
+
+async function verifyClaimJob(job: Job<JobData, JobResult>, data: ClaimJobData): Promise<{ decided: boolean }> {
+  const { Claim } = models();
+  if (!(await stillWanted(data.claimId, data.round))) return { decided: false };
+  const row = await Claim.unscoped().findByPk(data.claimId, { attributes: ["id", "input"] });
+  await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
+  // Cancelled, withdrawn or re-queued meanwhile (asked of the database, so it works across hosts): stop.
+  const cancel = new AbortController();
+  const watch = setInterval(() => {
+    stillWanted(data.claimId, data.round).then((yes) => yes || cancel.abort(), () => undefined);
+  }, num("CAIRN_CANCEL_POLL_MS", 1_000));
+  let decision: Decision;
+  try {
+    const answer = await runInPool({ mode: "verify", claim: JSON.parse(row!.input) as ClaimJson, stepLimit: STEP_LIMIT, picture: true }, undefined, cancel.signal);
+    if (answer.ok) {
+      const o = answer.outcome!;
+      const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
+      decision = {
+        status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason + notes,
+        certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
+      };
+    } else {
+      decision = undecided("input", `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`);
+    }
+  } catch (e) {
+    if (e instanceof CheckCancelled) return { decided: false };
+    // A time limit or a thread out of memory is an answer (undecided), not a reason to try again.
+    if (!(e instanceof WorkerFailure)) throw e;
+    decision = undecided("worker", e.message);
+  } finally {
+    clearInterval(watch);
+  }
+  return { decided: await decide(data.claimId, data.round, data.checkedBy, decision) };
+}
+
+/** A claim whose job failed for good is undecided, with the reason; never left pending. */
+export async function settleFailed(data: ClaimJobData, failedReason: string | undefined): Promise<boolean> {
+  const why = /stalled/i.test(failedReason ?? "")
+    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking this claim (killed, or out of memory); re-check to try again`
+    : `the verification failed ${JOB_ATTEMPTS} times (${(failedReason ?? "no reason given").slice(0, 300)}); re-check to try again`;
+  return decide(data.claimId, data.round, data.checkedBy, undecided("worker", why));
+}
+
+async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
+  if (job.data.type === "bundle") {
+    const data = job.data as BundleJobData;
+    await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
+    return checkBundleInPool(data.bundle, data.claims);
+  }
+  return verifyClaimJob(job, job.data);
+}
+
+interface PendingRow {
+  id: number;
+  verifyRound: number;
+  checkedBy: number | null;
+  createdBy: number;
+}
+
+/**
+ * Queues pending claims that have no job (attached while Redis was away, or lost with it) and
+ * settles those whose job failed for good. Claims younger than CAIRN_SWEEP_AFTER_MS are left to the
+ * web process's own queueing.
+ */
+export async function sweep(): Promise<{ queued: number; settled: number }> {
+  const after = num("CAIRN_SWEEP_AFTER_MS", 10_000);
+  const rows = await getSequelize().query<PendingRow>(
+    `SELECT id, verify_round AS verifyRound, checked_by AS checkedBy, created_by AS createdBy FROM claims
+     WHERE status = 'pending' AND withdrawn_at IS NULL AND updated_at < NOW(3) - INTERVAL ? MICROSECOND ORDER BY id LIMIT 1000`,
+    { replacements: [after * 1000], type: QueryTypes.SELECT },
+  );
+  let queued = 0, settled = 0;
+  const queue = verificationQueue("worker");
+  for (const r of rows) {
+    const data: ClaimJobData = { type: "claim", claimId: r.id, round: r.verifyRound, checkedBy: r.checkedBy ?? r.createdBy };
+    const job = await queue.getJob(claimJobId(r.id, r.verifyRound));
+    const state = job ? await job.getState() : "missing";
+    if (state === "failed") {
+      if (await settleFailed(data, job!.failedReason)) settled++;
+    } else if (state === "missing" || state === "unknown" || state === "completed") {
+      // Completed yet still pending cannot normally happen (the job stores or finds it decided); queue it again.
+      if (job && state === "completed") await job.remove().catch(() => undefined);
+      await queueClaim(data, "worker");
+      queued++;
+    }
+  }
+  return { queued, settled };
+}
+
+/** Starts a worker in this process; resolves to a function that stops it. */
+export async function startWorker(log: (line: string) => void = console.log): Promise<() => Promise<void>> {
+  const lockDuration = num("CAIRN_JOB_LOCK_MS", 30_000);
+  const worker = new Worker<JobData, JobResult>(QUEUE_NAME, process_, {
+    connection: redisConnection("worker"),
+    prefix: queuePrefix(),
+    name: workerName(),
+    concurrency: 1,
+    lockDuration,
+    stalledInterval: num("CAIRN_JOB_STALLED_CHECK_MS", Math.min(30_000, lockDuration)),
+    maxStalledCount: MAX_STALLED,
+  });
+  worker.on("error", (e) => log(`[cairn worker] queue error: ${e.message}`));
+  worker.on("failed", (job, e) => {
+    if (!job || job.data.type !== "claim") return;
+    log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
+    if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(job.data, e.message).catch(() => undefined);
+  });
+  worker.on("completed", (job, result) => {
+    if (job.data.type === "claim") log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
+  });
+  let sweeping = true;
+  const sweepLoop = (async () => {
+    while (sweeping) {
+      try {
+        const { queued, settled } = await sweep();
+        if (queued || settled) log(`[cairn worker] sweep: queued ${queued} pending claims, settled ${settled} failed ones`);
+      } catch (e) {
+        log(`[cairn worker] sweep skipped: ${(e as Error).message}`);
+      }
+      await new Promise((r) => setTimeout(r, num("CAIRN_SWEEP_INTERVAL_MS", 5_000)));
+    }
+  })();
+  log(`[cairn worker] ${workerName()} is taking verification jobs from ${new URL(process.env.REDIS_URL ?? "redis://127.0.0.1:6389").host} (prefix ${queuePrefix()})`);
+  return async () => {
+    sweeping = false;
+    await worker.close();
+    await sweepLoop.catch(() => undefined);
+  };
+}

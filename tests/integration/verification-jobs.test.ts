@@ -1,0 +1,191 @@
+/**
+ * Verification as BullMQ jobs in worker processes: a worker killed mid-check (SIGKILL) leaves its job
+ * to another worker and the claim is decided exactly once; with Redis stopped claims wait `pending`
+ * and the step says verification is paused, then they are checked when Redis is back; cancel.
+ * Each part runs its own workers on a queue prefix of its own (and the outage part its own Redis),
+ * so the suite's shared worker never takes these jobs.
+ */
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
+
+import { execFileSync, spawn } from "node:child_process";
+import { mkdtempSync, rmSync } from "node:fs";
+import { createServer } from "node:net";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { actAs, jsonRequest, params } from "./helpers";
+import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
+import { closeSequelize } from "@/lib/db";
+import { models } from "@/models";
+import { verificationSettled } from "@/lib/data/claims";
+import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
+import { startTestWorker, type TestWorker } from "../support/workers";
+import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
+import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
+
+let proofId: string;
+let stepId: string;
+const workers: TestWorker[] = [];
+const saved = { REDIS_URL: process.env.REDIS_URL, CAIRN_QUEUE_PREFIX: process.env.CAIRN_QUEUE_PREFIX };
+const named = (text: string) => ({ format: "named", text });
+// ρ(K_{1,5}) = √5 exactly (a star with k leaves has spectral radius √k; from memory, common knowledge).
+const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" };
+// Several seconds of exhaustive enumeration here. The empty list is refuted: K₁ has ρ = 0 ≤ the bound
+// and is not listed (from the definition of the claim).
+const slow = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 9, op: "<=", bound: "sqrt(2+sqrt(5))", graphs: [] };
+
+beforeAll(async () => {
+  proofId = await draftProof("Verification jobs test");
+  const caseId = await addCase(proofId, "Jobs");
+  stepId = String((await addStep(proofId, caseId, "Checked by the workers.")).id);
+});
+afterEach(async () => {
+  for (const w of workers.splice(0)) w.stop("SIGKILL");
+  await closeQueue();
+  Object.assign(process.env, saved);
+});
+afterAll(async () => {
+  await dropProofs([proofId]);
+  await closeSequelize();
+});
+
+const attach = async (claims: unknown[]) => {
+  await actAs("author");
+  const res = await claimsRoute.POST(jsonRequest("/x", "POST", { claims }), params({ proofId, stepId }));
+  return { status: res.status, claims: (await res.json()).claims as Array<{ id: number; status: string }> };
+};
+const stepClaims = async () => (await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }))).json();
+const claimRow = (id: number) => models().Claim.unscoped().findByPk(id);
+const decisions = (id: number) => models().AuditEvent.count({ where: { action: "claim.decided", subjectType: "claim", subjectId: id } });
+const nameOf = async (w: TestWorker) => {
+  await w.ready;
+  return /\] (\S+) is taking verification jobs/.exec(w.output.join("\n"))![1];
+};
+async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, ms = 60_000): Promise<T> {
+  const deadline = Date.now() + ms;
+  for (;;) {
+    const v = await probe();
+    if (v) return v;
+    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+const worker = (env: Record<string, string> = {}) => {
+  const w = startTestWorker({ ...process.env, CAIRN_SWEEP_AFTER_MS: "600000", ...env }, `.data/jobs-test-worker-${workers.length}.log`);
+  workers.push(w);
+  return w;
+};
+
+describe("a worker killed mid-check", () => {
+  it("leaves the job to another worker, and the claim is decided exactly once", async () => {
+    process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-kill`;
+    // Short locks so that the dead worker's job is noticed within seconds, not the default 30 s.
+    const fast = { CAIRN_JOB_LOCK_MS: "2000", CAIRN_JOB_STALLED_CHECK_MS: "1000" };
+    const first = worker(fast);
+    const firstName = await nameOf(first);
+    const { claims } = await attach([slow]);
+    const id = claims[0].id;
+    const row = await claimRow(id);
+    await until("the first worker to take the job", async () => (await claimJobProgress(id, row!.verifyRound))?.state === "checking");
+    expect((await claimJobProgress(id, row!.verifyRound))?.worker).toBe(firstName);
+    const second = worker(fast);
+    const secondName = await nameOf(second);
+    first.stop("SIGKILL");
+    await verificationSettled(id);
+    const decided = await claimRow(id);
+    expect(decided).toMatchObject({ status: "refuted", decidedBy: secondName, checkerVersion: expect.stringMatching(/^cairn-check\//) });
+    expect(await decisions(id)).toBe(1);
+    expect(first.output.join("\n")).not.toMatch(new RegExp(`claim ${id} decided`));
+    expect(second.output.join("\n")).toMatch(new RegExp(`claim ${id} decided`));
+  }, 240_000);
+});
+
+describe("cancel", () => {
+  it("stops a running check: undecided with who cancelled, no verdict stored afterwards; 409 when nothing is pending; 401/403", async () => {
+    process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-cancel`;
+    const w = worker();
+    await w.ready;
+    const { claims } = await attach([slow]);
+    const id = claims[0].id;
+    await until("the job to start", async () => (await claimJobProgress(id, 0))?.state === "checking");
+    const cancel = () => cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(id) }));
+    await actAs(null);
+    expect((await cancel()).status).toBe(401);
+    await actAs("reviewer");
+    expect((await cancel()).status).toBe(403);
+    await actAs("author");
+    const res = await cancel();
+    expect(res.status).toBe(200);
+    expect((await res.json()).claim).toMatchObject({ status: "undecided", method: "cancelled", reason: expect.stringMatching(/cancelled by Ada Quenby/) });
+    await until("the worker to stop the check", async () => w.output.some((l) => l.includes(`claim ${id} no longer pending`)));
+    expect(await claimRow(id)).toMatchObject({ status: "undecided", method: "cancelled" });
+    expect(await decisions(id)).toBe(0);
+    expect((await cancel()).status).toBe(409);
+  }, 120_000);
+});
+
+describe("Redis stopped", () => {
+  let dir: string;
+  let port: number;
+  const redisUp = () => {
+    execFileSync("redis-server", ["--port", String(port), "--bind", "127.0.0.1", "--dir", dir, "--pidfile", path.join(dir, "redis.pid"), "--appendonly", "yes", "--save", "", "--daemonize", "yes", "--logfile", path.join(dir, "redis.log")]);
+  };
+  const redisDown = () => execFileSync("redis-cli", ["-p", String(port), "shutdown"]);
+  afterAll(() => {
+    try {
+      redisDown();
+    } catch {
+      // already down
+    }
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it("claims wait pending and the step says verification is paused; they are checked when Redis is back", async () => {
+    dir = mkdtempSync(path.join(tmpdir(), "cairn-redis-"));
+    port = await new Promise<number>((resolve) => {
+      const s = createServer().listen(0, "127.0.0.1", () => {
+        const p = (s.address() as { port: number }).port;
+        s.close(() => resolve(p));
+      });
+    });
+    redisUp();
+    await until("Redis", async () => spawnOk("redis-cli", ["-p", String(port), "ping"]));
+    process.env.REDIS_URL = `redis://127.0.0.1:${port}`;
+    process.env.CAIRN_QUEUE_PREFIX = "cairn-outage";
+    const w = worker({ CAIRN_SWEEP_AFTER_MS: "500", CAIRN_SWEEP_INTERVAL_MS: "500" });
+    await w.ready;
+    const before = await attach([quick]);
+    await verificationSettled(before.claims[0].id);
+    expect(await claimRow(before.claims[0].id)).toMatchObject({ status: "verified" });
+
+    redisDown();
+    const t0 = Date.now();
+    const during = await attach([quick]);
+    // The attach itself does not wait for Redis beyond its short bound.
+    expect(Date.now() - t0).toBeLessThan(5_000);
+    expect(during.status).toBe(202);
+    const id = during.claims[0].id;
+    expect(await verificationService()).toMatchObject({ paused: true, message: expect.stringMatching(/Verification is paused: the job queue cannot be reached/) });
+    const listed = await stepClaims();
+    expect(listed.verification).toMatchObject({ paused: true });
+    await new Promise((r) => setTimeout(r, 3_000));
+    expect(await claimRow(id)).toMatchObject({ status: "pending" });
+
+    redisUp();
+    await until("the claim to be decided after Redis came back", async () => (await claimRow(id))?.status !== "pending", 60_000);
+    expect(await claimRow(id)).toMatchObject({ status: "verified", decidedBy: await nameOf(w) });
+    expect(await decisions(id)).toBe(1);
+    expect(await until("the worker to reconnect", async () => !(await verificationService()).paused)).toBe(true);
+  }, 180_000);
+});
+
+function spawnOk(cmd: string, args: string[]): Promise<boolean> {
+  return new Promise((resolve) => {
+    const c = spawn(cmd, args, { stdio: ["ignore", "pipe", "ignore"] });
+    let out = "";
+    c.stdout.on("data", (d: Buffer) => (out += d));
+    c.on("close", () => resolve(out.includes("PONG")));
+    c.on("error", () => resolve(false));
+  });
+}
