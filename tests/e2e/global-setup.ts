@@ -15,7 +15,7 @@ export default async function setup(project: TestProject) {
   const dbUrl = process.env.CAIRN_E2E_DATABASE_URL;
   if (!dbUrl) throw new Error("Browser tests need CAIRN_E2E_DATABASE_URL; run them through `npm test`.");
   const env = {
-    ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret",
+    ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests",
     // Its own queue on the tests' Redis, apart from the integration tests' (another database).
     CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e`,
   };
