@@ -125,7 +125,7 @@ export async function sweep(): Promise<{ queued: number; settled: number }> {
   const after = num("CAIRN_SWEEP_AFTER_MS", 10_000);
   const rows = await getSequelize().query<PendingRow>(
     `SELECT id, verify_round AS verifyRound, checked_by AS checkedBy, created_by AS createdBy FROM claims
-     WHERE status = 'pending' AND withdrawn_at IS NULL AND updated_at < NOW(3) - INTERVAL ? MICROSECOND ORDER BY id LIMIT 1000`,
+     WHERE status = 'pending' AND withdrawn_at IS NULL AND updated_at < UTC_TIMESTAMP(3) - INTERVAL ? MICROSECOND ORDER BY id LIMIT 1000`,
     { replacements: [after * 1000], type: QueryTypes.SELECT },
   );
   let queued = 0, settled = 0;
