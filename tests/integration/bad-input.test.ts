@@ -13,6 +13,7 @@ import { actAs, jsonRequest, params, userIdOf } from "./helpers";
 import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
+import { verificationSettled } from "@/lib/data/claims";
 import * as proofsRoute from "@/app/api/proofs/route";
 import * as proofRoute from "@/app/api/proofs/[proofId]/route";
 import * as casesRoute from "@/app/api/proofs/[proofId]/cases/route";
@@ -93,6 +94,8 @@ beforeAll(async () => {
     params({ proofId: otherProofId, stepId: String(otherStep.id) }),
   );
   expect(claim.status).toBe(202);
+  // Its verdict (stored by a worker process, with an audit event) must be in before rows are counted.
+  await verificationSettled((await claim.json()).claims[0].id);
   const invitation = await invitationsRoute.POST(req("POST", { email: "invitee.other@example.org", scope: "proof" }), params({ proofId: otherProofId }));
   expect(invitation.status).toBe(201);
   const otherExport = await exportsRoute.POST(req("POST", { kind: "draft" }), params({ proofId: otherProofId }));
