@@ -98,7 +98,8 @@ beforeAll(async () => {
   );
   expect(claim.status).toBe(202);
   // Its verdict (stored by a worker process, with an audit event) must be in before rows are counted.
-  await verificationSettled((await claim.json()).claims[0].id);
+  const claimId: number = (await claim.json()).claims[0].id;
+  await verificationSettled(claimId);
   const invitation = await invitationsRoute.POST(req("POST", { email: "invitee.other@example.org", scope: "proof" }), params({ proofId: otherProofId }));
   expect(invitation.status).toBe(201);
   const otherExport = await exportsRoute.POST(req("POST", { kind: "draft" }), params({ proofId: otherProofId }));
@@ -116,7 +117,7 @@ beforeAll(async () => {
     step: otherStep,
     commentId: (await otherComment.json()).id,
     disputeId: (await otherDispute.json()).reviewId,
-    claimId: (await claim.json()).claims[0].id,
+    claimId,
     invitationId: (await invitation.json()).id,
     exportId: (await otherExport.json()).export.id,
   };
