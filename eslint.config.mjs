@@ -21,7 +21,7 @@ export default tseslint.config(
     rules: { "no-debugger": "error", "no-var": "error", "prefer-const": "error" },
   },
   {
-    files: ["lib/core/**/*.ts", "lib/proof-tree.ts", "lib/review/**/*.ts"],
+    files: ["lib/core/**/*.ts", "lib/proof-tree.ts", "lib/review/**/*.ts", "lib/verification/layout.ts", "lib/verification/picture.ts"],
     rules: { "no-restricted-imports": ["error", frameworkAndDatabase] },
   },
 );

@@ -97,7 +97,7 @@ export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Ro
           </select>
         </label>
       </div>
-      <SortableTable table={table} rowTestId="queue-row" />
+      <SortableTable table={table} label={{ steps: "Steps to review", disputes: "Disputes", progress: "Reviewers’ progress" }[kind]} rowTestId="queue-row" />
     </div>
   );
 }
