@@ -5,6 +5,7 @@
  */
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
+import { readEnv } from "@/lib/env";
 
 export interface CapturedMail {
   id: string;
@@ -18,7 +19,7 @@ export interface CapturedMail {
 // A data file written at run time, not a source of the app: the ignore comment keeps the bundler from tracing
 // the whole project because of a path made from the working directory and a variable.
 export const mailStorePath = () =>
-  process.env.CAIRN_MAIL_STORE ?? path.join(/* turbopackIgnore: true */ process.cwd(), ".data", "mail", `messages-${process.env.CAIRN_SMTP_PORT ?? 2525}.jsonl`);
+  readEnv().CAIRN_MAIL_STORE ?? path.join(/* turbopackIgnore: true */ process.cwd(), ".data", "mail", `messages-${readEnv().CAIRN_SMTP_PORT}.jsonl`);
 
 function decodeQuotedPrintable(s: string): string {
   const bytes: number[] = [];

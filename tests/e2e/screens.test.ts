@@ -57,11 +57,13 @@ function pagesFor(role: string): Array<[string, string]> {
     ["members", `${proof}/members`],
     ["timeline", `${proof}/timeline`],
     ["export", `${proof}/export`],
+    ["rounds", `${proof}/rounds`],
     ["print", printPath],
   ];
   const everyone: Array<[string, string]> = [["proofs", "/proofs"], ["queue", "/queue"], ["notifications", "/notifications"]];
   if (role === "admin") return [...everyone, ["new-proof", "/proofs/new"], ["captured-mail", "/admin/mail"]];
-  if (role === "author") return [...everyone, ["new-proof", "/proofs/new"], ...onProof];
+  if (role === "author") return [...everyone, ["new-proof", "/proofs/new"], ["verdicts", "/verdicts"], ...onProof];
+  if (role === "editor") return [...everyone, ...onProof, ["desk", `${proof}/desk`]];
   return [...everyone, ...onProof];
 }
 
