@@ -67,11 +67,11 @@ function pagesFor(role: string): Array<[string, string]> {
   return [...everyone, ...onProof];
 }
 
-interface Finding { page: string; width: number; serious: string[] }
+interface Finding { page: string; status: number; width: number; serious: string[] }
 
 async function inspect(page: Page, label: string, viewport: (typeof VIEWPORTS)[number], path: string): Promise<Finding> {
   const response = await page.goto(`${baseUrl}${path}`);
-  expect(response?.status(), `${label} ${path}`).toBeLessThan(400);
+  const status = response?.status() ?? 0;
   await page.waitForLoadState("networkidle");
   const width = await page.evaluate(() => Math.max(document.documentElement.scrollWidth, document.body.scrollWidth));
   await page.evaluate(axe.source);
@@ -86,7 +86,7 @@ async function inspect(page: Page, label: string, viewport: (typeof VIEWPORTS)[n
   const dir = join(SHOTS, viewport.name);
   mkdirSync(dir, { recursive: true });
   await page.screenshot({ path: join(dir, `${label}.png`), fullPage: true });
-  return { page: `${label} ${path}`, width, serious };
+  return { page: `${label} ${path}`, status, width, serious };
 }
 
 async function signedIn(role: string, viewport: (typeof VIEWPORTS)[number]): Promise<{ context: BrowserContext; page: Page }> {
@@ -101,6 +101,7 @@ function expectClean(findings: Finding[], viewport: (typeof VIEWPORTS)[number]) 
   // Every measurement is kept beside the screenshots (one JSON line per page), passed or not.
   mkdirSync(SHOTS, { recursive: true });
   for (const f of findings) appendFileSync(join(SHOTS, "findings.jsonl"), `${JSON.stringify({ viewport: viewport.name, ...f })}\n`);
+  expect(findings.filter((f) => f.status >= 400 || f.status === 0).map((f) => `${f.page}: ${f.status}`), "pages that did not answer").toEqual([]);
   const wide = findings.filter((f) => f.width > viewport.width).map((f) => `${f.page}: ${f.width} px`);
   const axe = findings.filter((f) => f.serious.length > 0).map((f) => `${f.page}: ${f.serious.join("; ")}`);
   expect(wide, "pages wider than the window").toEqual([]);
