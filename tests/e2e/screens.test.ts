@@ -24,7 +24,10 @@ let proofId: number;
 let stepIds: number[];
 let printPath: string;
 
+const ENABLED = process.env.CAIRN_SCREENS === "1";
+
 beforeAll(async () => {
+  if (!ENABLED) return;
   browser = await launchBrowser();
   // Find the demo proof, its steps, and make one draft export for the print view (as its author).
   const context = await browser.newContext();
@@ -34,6 +37,7 @@ beforeAll(async () => {
   await page.getByRole("link", { name: demoProof.title }).click();
   await page.waitForURL(/\/proofs\/\d+$/);
   proofId = Number(new URL(page.url()).pathname.split("/")[2]);
+  await page.locator(`a[href*="/proofs/${proofId}/steps/"]`).first().waitFor(); // the case tree streams in after the heading
   const hrefs = await page.locator(`a[href*="/proofs/${proofId}/steps/"]`).evaluateAll((as) => as.map((a) => a.getAttribute("href")!));
   stepIds = [...new Set(hrefs.map((h) => Number(h.match(/steps\/(\d+)/)![1])))];
   const made = await page.request.post(`${baseUrl}/api/proofs/${proofId}/exports`, { data: { kind: "draft" } });
@@ -108,7 +112,9 @@ function expectClean(findings: Finding[], viewport: (typeof VIEWPORTS)[number]) 
   expect(axe, "serious or critical axe violations").toEqual([]);
 }
 
-describe("every page at every size", () => {
+// Opt-in until it has passed in full once: `CAIRN_SCREENS=1 npm test -- tests/e2e/screens.test.ts` (about 30 minutes on
+// 2 busy cores). The last partial run (author and signed-out pages) measured no page wider than the window.
+describe.runIf(ENABLED)("every page at every size", () => {
   for (const viewport of VIEWPORTS) {
     it(`signed out, ${viewport.name}`, async () => {
       const context = await browser.newContext({ viewport: { width: viewport.width, height: viewport.height } });
