@@ -196,9 +196,13 @@ function rationalText(v: unknown, path: string): string {
   return s;
 }
 
+/** Long enough for the root(...) normal form of a degree-64 bound with large coefficients. */
+export const MAX_BOUND_LENGTH = 20_000;
+
 function boundText(v: unknown, path: string): string {
   const s = string(v, path).trim();
-  if (s.length === 0 || s.length > 200) throw new ClaimError(path, `expected a bound such as "2", "7/2", "sqrt(5)" or "2cos(pi/7)"`);
+  if (s.length === 0) throw new ClaimError(path, `expected a bound such as "2", "7/2", "(1+sqrt(5))/2", "2cos(pi/7)" or "root(x^3-x-1, 1, 2)", got an empty text`);
+  if (s.length > MAX_BOUND_LENGTH) throw new ClaimError(path, `a bound has at most ${MAX_BOUND_LENGTH} characters, got ${s.length}`);
   return s;
 }
 
