@@ -156,7 +156,16 @@ export function object(v: unknown, path: string): Json {
   return v as Json;
 }
 
+/** Past 2^53 a JSON number has already been rounded by the time anyone reads it. */
+function precisionLost(v: unknown): boolean {
+  return typeof v === "number" && Number.isFinite(v) && Math.abs(v) > Number.MAX_SAFE_INTEGER;
+}
+
+const PRECISION_LOST = "is beyond 2^53, where JSON numbers lose precision: it was already rounded when the file was read (the digits shown are not the ones written). Write it as a string in quotes, e.g. \"12345678901234567891\", so every digit is kept";
+
 function string(v: unknown, path: string): string {
+  if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST}`);
+  if (typeof v === "number") throw new ClaimError(path, `expected a string, got the number ${v}: write numbers here in quotes ("${v}") so that they are read exactly`);
   if (typeof v !== "string") throw new ClaimError(path, `expected a string, got ${describe(v)}`);
   return v;
 }
@@ -168,6 +177,7 @@ function oneOf<T extends string>(v: unknown, allowed: readonly T[], path: string
 }
 
 function integer(v: unknown, path: string, min: number): number {
+  if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST.replace(/\. Write it as a string.*$/, "; integers here are at most 2^53 − 1")}`);
   if (typeof v !== "number" || !Number.isSafeInteger(v) || v < min)
     throw new ClaimError(path, `expected an integer ≥ ${min}, got ${describe(v)}`);
   return v;
