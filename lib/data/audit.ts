@@ -11,7 +11,7 @@ export interface AuditInput {
   proofId: number;
   actorId: number | null;
   action: string;
-  subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings";
+  subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings" | "round" | "report";
   subjectId: number | null;
   detail?: string;
 }

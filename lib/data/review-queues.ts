@@ -125,6 +125,11 @@ export async function listProofDisputes(proofId: number, visible: Set<number> | 
   return disputeRows(await loadFacts([proofId]), visible, false);
 }
 
+/** The proof's unresolved disputes (the editor's desk), each with when it last moved. */
+export async function listOpenDisputes(proofId: number): Promise<QueueDisputeRow[]> {
+  return disputeRows(await loadFacts([proofId]), null, true);
+}
+
 function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<number> | null, unresolvedOnly: boolean): QueueDisputeRow[] {
   const title = new Map(f.proofs.map((p) => [p.id, p.title]));
   const name = new Map(f.members.map((m) => [m.userId, m.name]));
