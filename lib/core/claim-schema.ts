@@ -8,6 +8,9 @@
  * See CLAIMS.md beside this file for the documented format with examples.
  */
 
+import { parseFamilyName } from "./smith-families";
+import { coxeterData } from "./spectral";
+
 export const CLAIM_FORMAT = "cairn-claim/1";
 /** A file holding several claims: `{ "format": "cairn-claims/1", "claims": [...] }`. */
 export const CLAIMS_FILE_FORMAT = "cairn-claims/1";
@@ -216,6 +219,20 @@ function boundText(v: unknown, path: string): string {
   return s;
 }
 
+/**
+ * "Coxeter number of E7" / "exponents of D5": the data of a finite simply-laced type (Bourbaki, Lie
+ * Groups and Lie Algebras Ch. VI, Plates I, IV–VII, via spectral.ts), with the type spelt as in
+ * parseFamilyName ("E_7", "E(7)", …). The claim keeps the numbers, so its digest does not depend on the spelling.
+ */
+function byType(text: string, form: RegExp, example: string, path: string): { coxeterNumber: number; exponents: number[] } {
+  const m = form.exec(text.trim());
+  if (!m) throw new ClaimError(path, `expected a number or text like "${example}", got ${describe(text)}`);
+  const f = parseFamilyName(m[1]);
+  if (!f || !["A", "D", "E"].includes(f.family))
+    throw new ClaimError(path, `"${m[1].trim()}" is not a finite Dynkin type A_n, D_n, E6, E7 or E8 (affine diagrams have no exponents here)`);
+  return coxeterData(`${f.family}${f.parameter}`);
+}
+
 export function validateGraphInput(v: unknown, path: string): GraphInput {
   const o = object(v, path);
   const format = oneOf(o.format, GRAPH_FORMATS, `${path}.format`);
@@ -298,8 +315,10 @@ export function validateClaim(json: unknown, path = "$"): Claim {
     case "eigenvalues":
       return {
         ...common, kind, graph: graph(),
-        h: integer(o.h, `${path}.h`, 1),
-        multiset: array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
+        h: typeof o.h === "string" ? byType(o.h, /^coxeter\s+number\s+of\s+(.+)$/i, "Coxeter number of E7", `${path}.h`).coxeterNumber : integer(o.h, `${path}.h`, 1),
+        multiset: typeof o.multiset === "string"
+          ? byType(o.multiset, /^exponents\s+of\s+(.+)$/i, "exponents of E7", `${path}.multiset`).exponents
+          : array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
       };
     case "structure":
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };

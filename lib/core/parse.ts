@@ -26,7 +26,7 @@
 import { GraphError, type Graph } from "./graph";
 import { buildGraph } from "./graph-build";
 import { parseGraph6, parseSparse6, GRAPH6_HEADER, SPARSE6_HEADER } from "./graph6";
-import { parseNamed, looksNamed, NAMED_FAMILIES } from "./named";
+import { parseNamed, looksNamed, looksLikeDiagramName, NAMED_FAMILIES } from "./named";
 
 export type GraphFormat = "auto" | "edges" | "matrix" | "graph6" | "sparse6" | "named";
 
@@ -248,7 +248,7 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
   const t = text.trim();
   if (t.startsWith(SPARSE6_HEADER) || t.startsWith(":") || t.startsWith(";")) return "sparse6";
   if (t.startsWith(GRAPH6_HEADER)) return "graph6";
-  if (looksNamed(t) || NAMED_FAMILIES.includes(t)) return "named";
+  if (looksNamed(t) || NAMED_FAMILIES.includes(t) || looksLikeDiagramName(t)) return "named";
   if (t.startsWith("[[")) return "matrix"; // a bare "path" is a named graph missing "(n)", not graph6
   if (/^[\x3f-\x7e]+$/.test(t)) return "graph6";
   if (!couldBeSquare(t)) return "edges";
