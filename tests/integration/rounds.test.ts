@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession } from "next-auth";
-import { actAs, jsonRequest, params } from "./helpers";
+import { actAs, demoProofId, jsonRequest, params } from "./helpers";
 import { dropProofs, makeProof, mailsTo, revise, waitForMail, type ReviewFixture } from "./review-fixtures";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
@@ -23,6 +23,14 @@ import * as refereeDue from "@/app/api/proofs/[proofId]/rounds/[round]/referees/
 import * as decision from "@/app/api/proofs/[proofId]/rounds/[round]/decision/route";
 import * as policy from "@/app/api/proofs/[proofId]/review-policy/route";
 import * as desk from "@/app/api/proofs/[proofId]/desk/route";
+import * as proofRoute from "@/app/api/proofs/[proofId]/route";
+import * as disputesRoute from "@/app/api/proofs/[proofId]/disputes/route";
+import * as stepReviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
+import * as stepComments from "@/app/api/proofs/[proofId]/steps/[stepId]/comments/route";
+import { getAuthorQueue } from "@/lib/data/review-queues";
+import { listProofEvents } from "@/lib/data/audit";
+import { refereeLens } from "@/lib/data/blind";
+import { loadSnapshot } from "@/lib/data/exports";
 
 let fx: ReviewFixture;
 const stamp = Date.now();
@@ -339,6 +347,47 @@ describe("blind review", () => {
     expect(editorText).toContain(CELIA.name);
     expect(editorText).toContain(GALE.name);
   });
+
+  it("keeps referee names and addresses out of every author-visible API response, queue, timeline and export; editors still see them", async () => {
+    // Gale disputes step 2.2 with a comment; Celia vouches for step 1.1: both leave their names in many places.
+    const { Review, Comment, StepRevision, DisputeTransition, AuditEvent } = models();
+    const rev22 = (await StepRevision.findOne({ where: { stepId: fx.steps["2.2"] } }))!;
+    const rev11 = (await StepRevision.findOne({ where: { stepId: fx.steps["1.1"] } }))!;
+    const d = await Review.create({ stepId: fx.steps["2.2"], revisionId: rev22.id, reviewerId: galeId, verdict: "dispute", disputeState: "open" });
+    await DisputeTransition.create({ reviewId: d.id, actorId: galeId, fromState: null, toState: "open" });
+    await Comment.create({ stepId: fx.steps["2.2"], reviewId: d.id, parentId: null, revisionId: rev22.id, authorId: galeId, body: "Which bound is meant here?" });
+    await Review.create({ stepId: fx.steps["1.1"], revisionId: rev11.id, reviewerId: fx.ids.reviewer, verdict: "approve", disputeState: null });
+    await AuditEvent.create({ proofId: fx.proofId, actorId: galeId, action: "review.disputed", subjectType: "step", subjectId: fx.steps["2.2"], detail: "dispute opened" });
+
+    const secrets = [CELIA.name, CELIA.email, GALE.name, GALE.email];
+    const surfaces = async (who: string) => {
+      const viewer = (await actAs(who))!;
+      const role = who === "editor" ? "editor" : "author";
+      const step = (stepId: number) => params({ proofId: P(), stepId: String(stepId) });
+      return [
+        JSON.stringify(await (await proofRoute.GET(jsonRequest("/x", "GET"), params({ proofId: P() }))).json()),
+        JSON.stringify(await (await disputesRoute.GET(jsonRequest("/x", "GET"), params({ proofId: P() }))).json()),
+        JSON.stringify(await (await stepReviews.GET(jsonRequest("/x", "GET"), step(fx.steps["2.2"]))).json()),
+        JSON.stringify(await (await stepReviews.GET(jsonRequest("/x", "GET"), step(fx.steps["1.1"]))).json()),
+        JSON.stringify(await (await stepComments.GET(jsonRequest("/x", "GET"), step(fx.steps["2.2"]))).json()),
+        JSON.stringify(await (await listRounds()).json()),
+        JSON.stringify((await getAuthorQueue(viewer)).filter((r) => r.proofId === fx.proofId)), // the demo proof is not blind
+        JSON.stringify(await listProofEvents(fx.proofId, 500, await refereeLens(fx.proofId, { id: viewer, role }))),
+      ].join("\n");
+    };
+    for (const who of ["author", "coauthor"]) {
+      const text = await surfaces(who);
+      for (const secret of secrets) expect(text, `${who} sees ${secret}`).not.toContain(secret);
+      expect(text).toMatch(/Referee [12]/);
+    }
+    const snapshot = JSON.stringify(await loadSnapshot(fx.proofId));
+    for (const secret of secrets) expect(snapshot, `the export names ${secret}`).not.toContain(secret);
+    const editorText = await surfaces("editor");
+    expect(editorText).toContain(GALE.name);
+    expect(editorText).toContain(CELIA.name);
+    await Review.destroy({ where: { id: d.id } });
+    await Review.destroy({ where: { stepId: fx.steps["1.1"], reviewerId: fx.ids.reviewer } });
+  });
 });
 
 describe("reminders", () => {
@@ -371,5 +420,24 @@ describe("reminders", () => {
     expect((await submitDraft("2")).status).toBe(200);
     await sendDueReminders(new Date(Date.now() + 5 * 86_400_000));
     expect(await rows()).toHaveLength(2);
+  });
+});
+
+describe("the demo", () => {
+  it("shows the Tarn Hollow proof in round 2, with round 1's report and decision readable by the authors and the note not", async () => {
+    const proofId = String(await demoProofId());
+    await actAs("author");
+    const seen = (await (await listRounds(proofId)).json()).rounds;
+    expect(seen.map((r: { number: number; state: string }) => [r.number, r.state])).toEqual([[1, "decided"], [2, "open"]]);
+    expect(seen[0].decision).toMatchObject({ decision: "minor_revision", editor: "Dov Ashgrove" });
+    expect(seen[0].reports).toHaveLength(1);
+    expect(seen[0].reports[0]).toMatchObject({ referee: CELIA.name, recommendation: "minor_revision" });
+    expect(JSON.stringify(seen)).not.toMatch(/Nothing confidential/);
+    expect(seen[1].reports).toEqual([]); // Celia's round-2 report is a draft
+    await actAs("editor");
+    const d = (await (await readDesk(proofId)).json()).desk;
+    expect(d.current).toMatchObject({ number: 2, state: "open" });
+    expect(d.decisions).toHaveLength(1);
+    expect(d.disputes.length).toBeGreaterThanOrEqual(1);
   });
 });

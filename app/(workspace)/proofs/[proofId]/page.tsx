@@ -27,7 +27,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
   // A reviewer invited to chosen cases sees those cases only (and no whole-proof exports).
   const visible = await visibleCaseIds(proofId, user.id);
   const [proof, overview, claims, deleted, exports] = await Promise.all([
-    getProofSummary(proofId), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
+    getProofSummary(proofId, { id: user.id, role }), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
     visible === null ? listExports(proofId) : Promise.resolve(null),
   ]);
   if (!proof) notFound();
