@@ -130,7 +130,7 @@ describe("an expression and its root(...) normal form give the same verdict (pro
     fc.array(fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 0, max: n - 1 })), { minLength: 1, maxLength: 12 })
       .map((es) => {
         const seen = new Set<string>();
-        const lines = [`n = ${n}`];
+        const lines = [`n = ${n}`, "base = 0"];
         for (const [u, v] of es) { const k = u < v ? `${u} ${v}` : `${v} ${u}`; if (u !== v && !seen.has(k)) { seen.add(k); lines.push(k); } }
         return { format: "edges", text: lines.join("\n") };
       }));
