@@ -11,6 +11,8 @@ export class Review extends Model<InferAttributes<Review>, InferCreationAttribut
   declare reviewerId: number;
   declare verdict: ReviewVerdict;
   declare disputeState: DisputeState | null;
+  /** The digest of the revision (text and claims) this verdict covers. */
+  declare digest: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -23,6 +25,7 @@ export class Review extends Model<InferAttributes<Review>, InferCreationAttribut
         reviewerId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         verdict: { type: DataTypes.ENUM("approve", "dispute"), allowNull: false },
         disputeState: { type: DataTypes.ENUM("open", "answered", "closed", "reopened"), allowNull: true },
+        digest: { type: DataTypes.CHAR(64), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -5,6 +5,7 @@
  */
 import type { Sequelize } from "sequelize";
 import { models } from "@/models";
+import { claimSetText, digestOfRevision, parseClaimSet } from "@/lib/review/revisions";
 import { demoPeople, demoProof } from "./demo-content";
 
 const MARK = "demo.reviews";
@@ -29,7 +30,7 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
 
     const approve = async (stepId: number) => {
       const rev = await latest(stepId);
-      await Review.create({ stepId, revisionId: rev.id, reviewerId: reviewer, verdict: "approve", disputeState: null }, { transaction });
+      await Review.create({ stepId, revisionId: rev.id, reviewerId: reviewer, verdict: "approve", disputeState: null, digest: rev.digest ?? digestOfRevision(rev.number, rev.body, parseClaimSet(rev.claimSet)) }, { transaction });
       await event("review.approved", "step", stepId, `revision ${rev.number}`);
     };
     for (const s of [...(await stepsOf(case1.id)), ...(await stepsOf(case31.id))]) await approve(s.id);
@@ -38,8 +39,10 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     const [step3] = await stepsOf(case3.id);
     await approve(step3.id);
     const first = await latest(step3.id);
+    const body2 = `${first.body}\n\nEquivalently, $T$ is not one of $A_n, D_n, E_6, E_7, E_8$ (the connected graphs with $\\rho < 2$).`;
+    const claims2 = parseClaimSet(first.claimSet);
     const rev2 = await StepRevision.create(
-      { stepId: step3.id, number: first.number + 1, body: `${first.body}\n\nEquivalently, $T$ is not one of $A_n, D_n, E_6, E_7, E_8$ (the connected graphs with $\\rho < 2$).`, authorId: author },
+      { stepId: step3.id, number: first.number + 1, body: body2, authorId: author, baseRevisionId: first.id, claimSet: claimSetText(claims2), digest: digestOfRevision(first.number + 1, body2, claims2), origin: "text" },
       { transaction },
     );
     await event("revision.created", "revision", rev2.id, `step ${step3.id} revision ${rev2.number}`, author);

@@ -92,7 +92,7 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
   for (const r of revisions) {
     if (!latest.has(r.stepId)) latest.set(r.stepId, r);
     numberOf.set(r.id, r.number);
-    authorsOf.set(r.stepId, (authorsOf.get(r.stepId) ?? new Set()).add(r.authorId));
+    if (r.origin !== "claims") authorsOf.set(r.stepId, (authorsOf.get(r.stepId) ?? new Set()).add(r.authorId));
   }
   const factsOf = (stepId: number): StepFacts => ({
     id: stepId,

@@ -12,6 +12,8 @@ import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { lockLatest, reviseClaims, revisionClaimOf } from "@/lib/data/revisions";
 
 export { verificationSettled };
 
@@ -137,8 +139,9 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
+    const latest = await lockLatest(stepId, transaction);
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
-    const out: Array<{ id: number; claim: ClaimJson }> = [];
+    const out: Array<{ id: number; claim: ClaimJson; row: ClaimRow }> = [];
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
@@ -148,10 +151,12 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         { transaction },
       );
       await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
-      out.push({ id: row.id, claim });
+      out.push({ id: row.id, claim, row });
     }
+    await reviseClaims(proofId, stepId, userId, transaction, latest, (set) => [...set, ...out.map((o) => revisionClaimOf(o.row))]);
     return out;
   });
+  await deliverAfterCommit();
   for (const { id, claim } of stored) void scheduleVerification(id, userId, claim);
   return stored.map((s) => s.id);
 }
@@ -198,10 +203,13 @@ export async function withdrawClaim(proofId: number, claimId: number, userId: nu
   const { Claim, AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
+    const latest = await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
+    await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
     await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
   });
+  await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
 }
 

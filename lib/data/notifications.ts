@@ -17,6 +17,7 @@ export const kindLabel: Record<NotificationKind, string> = {
   dispute_answered: "An answer to your dispute",
   dispute_closed: "A dispute was closed",
   dispute_reopened: "A dispute was reopened",
+  vouch_superseded: "Your vouch was superseded by a new revision",
 };
 
 export interface NoticeInput {

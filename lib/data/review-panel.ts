@@ -6,6 +6,7 @@ import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, disputeRefusal, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
 import { stepStatus, type StepStatus } from "@/lib/review/states";
 import { canSeeStep, claimStatuses, type StepRef } from "./reviews";
+import { claimsOf, digestOf } from "./revisions";
 
 export interface CommentNode {
   id: number;
@@ -19,7 +20,8 @@ export interface CommentNode {
 
 export interface StepReviewView {
   stepId: number;
-  latestRevision: { id: number; number: number } | null;
+  /** The latest revision with the digest a vouch on it covers, and how many of its claims are still being checked. */
+  latestRevision: { id: number; number: number; digest: string; pendingClaims: number } | null;
   requiredApprovals: number;
   status: StepStatus;
   approvals: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
@@ -37,6 +39,8 @@ export interface StepReviewView {
   comments: CommentNode[];
   /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no approval, no second dispute until it is closed). */
   can: { verdict: boolean; verdictRefusal: string | null; ownDisputeOpen: boolean; comment: boolean };
+  /** What the viewer already did on the latest revision: the time of their vouch, or null. */
+  mine: { vouchedAt: string | null };
 }
 
 /** Everything the review panel under a step shows, with what this viewer may do. */
@@ -45,7 +49,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   const [reviews, comments, revisions, proof] = await Promise.all([
     Review.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
     Comment.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-    StepRevision.findAll({ where: { stepId: step.id }, attributes: ["id", "number"] }),
+    StepRevision.findAll({ where: { stepId: step.id } }),
     Proof.findByPk(step.proofId, { attributes: ["requiredApprovals"] }),
   ]);
   const transitions = reviews.length
@@ -78,9 +82,14 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   // Only the latest approval per reviewer is listed; it is stale when made on an older revision.
   const latestApproval = new Map<number, (typeof reviews)[number]>();
   for (const r of reviews) if (r.verdict === "approve") latestApproval.set(r.reviewerId, r);
+  const latestRow = revisions.find((r) => r.id === step.latest?.id);
+  const mineNow = reviews.find((r) => r.reviewerId === viewer.id && r.verdict === "approve" && r.revisionId === step.latest?.id);
   return {
     stepId: step.id,
-    latestRevision: step.latest,
+    latestRevision: latestRow
+      ? { id: latestRow.id, number: latestRow.number, digest: digestOf(latestRow), pendingClaims: claimsOf(latestRow).filter((c) => c.status === "pending").length }
+      : null,
+    mine: { vouchedAt: mineNow ? mineNow.createdAt.toISOString() : null },
     requiredApprovals: required,
     status,
     approvals: [...latestApproval.values()].map((r) => ({

@@ -1,4 +1,5 @@
 import "server-only";
+import { textAuthors } from "@/lib/review/revisions";
 /**
  * Read models of the review workflow: the readiness roll-up of a proof (through lib/review/states.ts),
  * the reviewer's and the author's queues, and per-reviewer progress for editors.
@@ -24,7 +25,7 @@ async function loadFacts(proofIds: number[]) {
   const stepRows = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) } }) : [];
   const stepIds = stepRows.map((s) => s.id);
   const [revisions, reviews, claims, scopes, members] = await Promise.all([
-    stepIds.length ? StepRevision.findAll({ where: { stepId: stepIds }, attributes: ["id", "stepId", "number", "authorId", "createdAt"] }) : [],
+    stepIds.length ? StepRevision.findAll({ where: { stepId: stepIds }, attributes: ["id", "stepId", "number", "authorId", "origin", "createdAt"] }) : [],
     stepIds.length ? Review.findAll({ where: { stepId: stepIds } }) : [],
     claimStatuses(stepIds),
     ReviewerScope.findAll({ where: { proofId: proofIds } }),
@@ -33,7 +34,7 @@ async function loadFacts(proofIds: number[]) {
   const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
   const steps: StepRow[] = stepRows.map((s) => {
     const mine = revisions.filter((r) => r.stepId === s.id).sort((a, b) => b.number - a.number);
-    return { id: s.id, caseId: s.caseId, position: s.position, latestNumber: mine[0]?.number ?? 0, latestAt: mine[0]?.createdAt ?? null, authorIds: [...new Set(mine.map((r) => r.authorId))] };
+    return { id: s.id, caseId: s.caseId, position: s.position, latestNumber: mine[0]?.number ?? 0, latestAt: mine[0]?.createdAt ?? null, authorIds: textAuthors(mine) };
   });
   const reviewRows: ReviewRow[] = reviews.map((r) => ({ id: r.id, stepId: r.stepId, reviewerId: r.reviewerId, verdict: r.verdict, disputeState: r.disputeState, revisionNumber: numberOf.get(r.revisionId) ?? 0, at: r.updatedAt }));
   const numbered = new Map<number, { number: string; title: string; proofId: number }>();

@@ -10,6 +10,8 @@ import { models } from "@/models";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
 import { expandScope, verdictRefusal, type Actor } from "@/lib/review/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib/review/revisions";
+import { claimsOf, digestOf, lockLatest } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { getMembershipRole } from "./proofs";
@@ -29,13 +31,13 @@ export async function loadStep(proofId: number, stepId: number, transaction?: Tr
   const step = await Step.findByPk(stepId, { transaction });
   const c = step ? await Case.findByPk(step.caseId, { transaction }) : null;
   if (!step || !c || c.proofId !== proofId || (c as { deletedAt?: Date | null }).deletedAt) throw notFound("This step");
-  const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId"], order: [["number", "DESC"]], transaction });
+  const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
   return {
     id: step.id,
     caseId: c.id,
     proofId,
     latest: revisions[0] ? { id: revisions[0].id, number: revisions[0].number } : null,
-    authorIds: [...new Set(revisions.map((r) => r.authorId))],
+    authorIds: textAuthors(revisions),
   };
 }
 
@@ -89,6 +91,8 @@ export interface VerdictInput {
   revisionId: number;
   verdict: "approve" | "dispute";
   comment?: string;
+  /** The revision digest the referee read (from the review panel); a mismatch is refused. */
+  digest?: string;
 }
 
 /**
@@ -100,15 +104,31 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
   const result = await getSequelize().transaction(async (transaction) => {
     const revision = await StepRevision.findByPk(input.revisionId, { transaction });
     if (!revision || revision.stepId !== step.id) throw invalid("That revision does not belong to this step.", [{ path: "revisionId", message: "not a revision of this step" }]);
-    const latest = await StepRevision.findOne({ where: { stepId: step.id }, order: [["number", "DESC"]], transaction, lock: transaction.LOCK.UPDATE });
-    if (!latest || latest.id !== revision.id)
-      throw conflict(`Revision ${revision.number} is stale: the step was revised (latest is revision ${latest?.number}). Read the latest revision and give your verdict on it.`, {
-        latestRevisionId: latest?.id,
-        latestRevisionNumber: latest?.number,
+    // The step row lock serialises this verdict against claim changes: a claim attached, withdrawn or
+    // re-decided meanwhile made a newer revision, and the verdict is refused rather than moved onto it.
+    const latest = await lockLatest(step.id, transaction);
+    if (!latest || latest.id !== revision.id) {
+      const change = latest ? compareRevisions({ body: revision.body, claims: claimsOf(revision) }, { body: latest.body, claims: claimsOf(latest) }) : null;
+      throw conflict(
+        `Revision ${revision.number} is no longer the latest: revision ${latest?.number} is${change ? `, and since revision ${revision.number} ${describeChange(change)}` : ""}. Read revision ${latest?.number} and give your verdict on it.`,
+        { latestRevisionId: latest?.id, latestRevisionNumber: latest?.number, ...(change ? { changed: changeJson(change) } : {}) },
+      );
+    }
+    const digest = digestOf(latest);
+    if (input.digest && input.digest !== digest)
+      throw conflict(`The claims of revision ${latest.number} changed while you were reading it (a verdict came in). Read it again and give your verdict on what it now says.`, {
+        latestRevisionId: latest.id,
+        latestRevisionNumber: latest.number,
+        digest,
       });
     const mine = await Review.findAll({ where: { stepId: step.id, reviewerId: actor.id }, transaction });
     const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "closed");
     if (input.verdict === "approve") {
+      const pending = claimsOf(latest).filter((c) => c.status === "pending");
+      if (pending.length)
+        throw conflict(`Claim${pending.length > 1 ? "s" : ""} ${pending.map((c) => `#${c.id}`).join(", ")} of revision ${latest.number} ${pending.length > 1 ? "are" : "is"} still being checked; a vouch covers the verdicts too, so vouch once ${pending.length > 1 ? "they are" : "it is"} decided.`, {
+          pendingClaimIds: pending.map((c) => c.id),
+        });
       if (unresolved) throw conflict("You have an unresolved dispute on this step; close it before approving the step.", { disputeId: unresolved.id });
       const existing = mine.find((r) => r.verdict === "approve" && r.revisionId === revision.id);
       if (existing) return { reviewId: existing.id, created: false };
@@ -116,7 +136,7 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       throw conflict("You already have an unresolved dispute on this step; add to its thread instead.", { disputeId: unresolved.id });
     }
     const review = await Review.create(
-      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "open" : null },
+      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "open" : null, digest },
       { transaction },
     );
     if (input.verdict === "dispute") {

@@ -2,6 +2,7 @@
  * A proof as the data layer reads it for an export: plain objects, no models. Pure functions here
  * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
  */
+import type { CoveredClaim } from "@/lib/core/revision-digest";
 import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type DisputeState, type ProofState, type StepFacts } from "@/lib/review/states";
 
 export interface SnapshotReview {
@@ -10,6 +11,8 @@ export interface SnapshotReview {
   verdict: "approve" | "dispute";
   revisionNumber: number;
   disputeState: DisputeState | null;
+  /** The revision digest the verdict covers (lib/core/revision-digest.ts). */
+  digest: string | null;
   at: string;
 }
 
@@ -32,7 +35,8 @@ export interface SnapshotClaim {
 export interface SnapshotStep {
   id: number;
   position: number;
-  revision: { number: number; body: string; authorName: string; savedAt: string } | null;
+  /** The latest revision: its text, the claims it covers (input digest and verdict, in step order) and its digest. */
+  revision: { number: number; body: string; authorName: string; savedAt: string; claims: CoveredClaim[]; digest: string } | null;
   authorIds: number[];
   reviews: SnapshotReview[];
   claims: SnapshotClaim[];

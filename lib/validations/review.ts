@@ -9,6 +9,7 @@ export const verdictSchema = z
     revisionId: id,
     verdict: z.enum(["approve", "dispute"], { error: "The verdict is either approve or dispute." }),
     comment: z.string().max(20_000, "Keep the comment under 20,000 characters.").optional(),
+    digest: z.string().regex(/^[0-9a-f]{64}$/, "The digest is the 64 hex digits the review panel shows for the revision.").optional(),
   })
   .refine((v) => v.verdict !== "dispute" || (v.comment ?? "").trim().length > 0, {
     path: ["comment"],

@@ -115,7 +115,7 @@ describe("review workflow in the browser", () => {
     await reviewer.getByText("revision 2 by Ada Quenby").waitFor();
     await reviewer.getByTestId("dispute").getByRole("button", { name: "Close dispute" }).click();
     await reviewer.getByTestId("dispute").locator('[data-dispute-state="closed"]').waitFor();
-    await reviewer.getByRole("button", { name: "✓ Approve revision 2" }).click();
+    await reviewer.getByRole("button", { name: "I vouch for revision 2" }).click();
     await reviewer.locator('[data-approval="current"]').waitFor();
     await reviewer.locator('[data-testid="case-state"] [data-case-state="settled"]').waitFor();
     const transitions = await reviewer.getByRole("list", { name: "Transitions" }).textContent();

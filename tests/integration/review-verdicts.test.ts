@@ -104,7 +104,8 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
     const stale = await verdict(fx.proofId, stepId, { revisionId: old.id, verdict: "approve" });
     expect(stale.status).toBe(409);
     const body = await stale.json();
-    expect(body.error.message).toMatch(/Revision 1 is stale/);
+    expect(body.error.message).toMatch(/Revision 1 is no longer the latest: revision 2 is, and since revision 1 the text changed/);
+    expect(body.error.changed).toEqual({ text: true, claimsAdded: [], claimsWithdrawn: [], claimsRedecided: [] });
     expect(body.error.latestRevisionNumber).toBe(2);
     expect(await reviewCount()).toBe(before);
 
