@@ -1,11 +1,11 @@
 "use client";
-import { useState } from "react";
+import { useId, useState } from "react";
 import type { GraphPicture as Picture } from "@/lib/verification/picture";
 
 const R = 13;
 
 /**
- * A claim's graph as SVG, laid out on the server (deterministic force layout). The embedding's image,
+ * A claim's graph as SVG, laid out on the server by its structure (lib/verification/layout.ts). The embedding's image,
  * when there is one, is drawn thick and filled; Perron vector values appear on request (floats,
  * display only).
  */
@@ -21,6 +21,8 @@ export function GraphPicture({ picture }: { picture: Picture }) {
   const [y0, y1] = [Math.min(...picture.y) - pad, Math.max(...picture.y) + pad];
   const w = Math.max(x1 - x0, 240), h = Math.max(y1 - y0, 160);
   const viewBox = picture.n === 0 ? "0 0 1000 700" : `${(x0 + x1 - w) / 2} ${(y0 + y1 - h) / 2} ${w} ${h}`;
+  const words = picture.summary ?? `${picture.n} vertices, ${picture.edges.filter(([u, v]) => u !== v).length} edges`;
+  const titleId = useId(), descId = useId();
   return (
     <figure className="rounded border border-stone-200 bg-white p-2" data-testid="graph-picture">
       <figcaption className="flex flex-wrap items-center justify-between gap-2 px-1 text-sm">
@@ -35,7 +37,13 @@ export function GraphPicture({ picture }: { picture: Picture }) {
           </label>
         )}
       </figcaption>
-      <svg viewBox={viewBox} className="mx-auto h-auto max-h-80 w-full" role="img" aria-label={`${picture.title}: a drawing of the graph`}>
+      <svg viewBox={viewBox} className="mx-auto h-auto max-h-80 w-full" role="img" aria-labelledby={titleId} aria-describedby={descId}>
+        <title id={titleId}>{`${picture.title}: a drawing of the graph`}</title>
+        <desc id={descId}>
+          {words}
+          {picture.graph6 ? `; graph6 ${picture.graph6}` : ""}
+          {picture.highlight ? `; the embedding's image is vertices ${picture.highlight.vertices.map((v) => picture.labels[v]).join(", ")}` : ""}
+        </desc>
         {picture.edges.map(([u, v, m], i) => {
           const on = litEdge.has(`${Math.min(u, v)}-${Math.max(u, v)}`);
           if (u === v)
@@ -67,6 +75,15 @@ export function GraphPicture({ picture }: { picture: Picture }) {
           </g>
         ))}
       </svg>
+      <details className="px-1 text-xs text-stone-700" data-testid="graph-in-words">
+        <summary className="cursor-pointer">The graph in words</summary>
+        <p className="mt-1">{words}.</p>
+        {picture.graph6 && (
+          <p className="mt-1">
+            graph6: <code className="break-all font-mono">{picture.graph6}</code>
+          </p>
+        )}
+      </details>
     </figure>
   );
 }

@@ -108,6 +108,9 @@ begin end
 
 const TEXT_GROUP_WORDS = new Set(["text", "textrm", "textbf", "textit", "emph", "mbox"]);
 const MATH_ENVS = new Set(["matrix", "pmatrix", "bmatrix", "vmatrix", "Vmatrix", "smallmatrix", "cases", "aligned", "gathered", "split", "array"]);
+/** The column spec of an array: an optional [t|c|b] position, then l, c, r and | only. */
+const ARRAY_SPEC = /^\s*(\[[tcb]\]\s*)?\{[lcr|\s]+\}/;
+const MAX_MATH_GROUPS = 64;
 /** Control symbols (backslash + one non-letter) allowed in math. */
 const MATH_SYMBOLS = new Set([",", ";", ":", "!", " ", "{", "}", "|", "%", "$", "#", "&", "_"]);
 
@@ -144,6 +147,14 @@ export function sanitizeMath(src: string): string | null {
           else if (envs.pop() !== m[1]) return null;
           out += `\\${word}{${m[1]}}`;
           i += m[0].length;
+          if (word === "begin" && m[1] === "array") {
+            // Column specs: only l, c, r and rules. amsmath's array does not know >{…}, p{…}, @{…} or *{…}:
+            // pdflatex stops on them ("Illegal pream-token") and the whole document fails.
+            const spec = ARRAY_SPEC.exec(s.slice(i));
+            if (!spec) return null;
+            out += spec[0].replace(/\s+/g, "");
+            i += spec[0].length;
+          }
           continue;
         }
         if (word === "left") lefts++;
@@ -167,6 +178,8 @@ export function sanitizeMath(src: string): string | null {
     }
     i++;
     if (ch === "{") {
+      // TeX allows 255 levels of grouping in all; a formula this deep is an attack, not mathematics.
+      if (groups.length >= MAX_MATH_GROUPS) return null;
       groups.push(nextGroupIsText ? "text" : "math");
       nextGroupIsText = false;
       out += "{";

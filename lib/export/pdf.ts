@@ -9,6 +9,7 @@ import { createHash } from "node:crypto";
 import { constants } from "node:fs";
 import { tmpdir } from "node:os";
 import { delimiter, join } from "node:path";
+import { failingLines, setMathAsSource } from "./latex-fallback";
 
 export class PdfUnavailableError extends Error {
   constructor() {
@@ -52,13 +53,13 @@ function run(cmd: string, args: string[], cwd: string, timeoutMs: number): Promi
 }
 
 /** Compiles LaTeX source to PDF; throws PdfUnavailableError when pdflatex is missing, PdfFailedError with the log otherwise. */
-export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1 } = {}): Promise<CompileResult> {
+export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1, haltOnError = true } = {}): Promise<CompileResult> {
   const dir = await mkdtemp(join(tmpdir(), "cairn-tex-"));
   try {
     await writeFile(join(dir, "proof.tex"), tex, "utf8");
     let last: RunResult = { code: 0 };
     for (let i = 0; i < runs; i++) {
-      last = await run("pdflatex", ["-no-shell-escape", "-interaction=nonstopmode", "-halt-on-error", "-file-line-error", "proof.tex"], dir, timeoutMs);
+      last = await run("pdflatex", ["-no-shell-escape", "-interaction=nonstopmode", ...(haltOnError ? ["-halt-on-error"] : []), "-file-line-error", "proof.tex"], dir, timeoutMs);
       if (last.error?.code === "ENOENT") throw new PdfUnavailableError();
       if (last.code !== 0) break;
     }
@@ -67,6 +68,31 @@ export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1 }
     return { pdf: await readFile(join(dir, "proof.pdf")), log };
   } finally {
     await rm(dir, { recursive: true, force: true });
+  }
+}
+
+/** Rounds of setting failing formulas as source before every formula of the document is. */
+const MAX_FORMULA_ROUNDS = 3;
+
+/**
+ * compileLatex, but a formula that does not compile cannot take the document down. pdflatex runs on
+ * past errors here, so one run names every failing line; the formulas on those lines are set as their
+ * source with a mark (latex-fallback.ts) and the document compiled again; after a few such rounds every
+ * formula of the body is. `recovered` counts the rounds; `tex` is the source that compiled.
+ */
+export async function compileLatexRobustly(tex: string, options: { timeoutMs?: number; runs?: number } = {}): Promise<CompileResult & { tex: string; recovered: number }> {
+  let current = tex;
+  for (let round = 0; ; round++) {
+    try {
+      return { ...(await compileLatex(current, { ...options, haltOnError: false })), tex: current, recovered: round };
+    } catch (e) {
+      if (!(e instanceof PdfFailedError)) throw e;
+      let next: string | null = null;
+      if (round < MAX_FORMULA_ROUNDS) for (const line of failingLines(e.log)) next = setMathAsSource(next ?? current, line) ?? next;
+      next ??= setMathAsSource(current, "all");
+      if (next === null) throw e;
+      current = next;
+    }
   }
 }
 
@@ -100,7 +126,7 @@ export async function cachedPdf(tex: string, options: { runs?: number; timeoutMs
   if (kept) return { pdf: kept, cached: true };
   let job = inFlight.get(key);
   if (!job) {
-    const start = queue.then(() => compileLatex(tex, options));
+    const start = queue.then(() => compileLatexRobustly(tex, options));
     queue = start.catch(() => undefined);
     job = start.then(async ({ pdf }) => {
       await mkdir(dir, { recursive: true });

@@ -1,11 +1,12 @@
 /**
- * Display data for a claim's graph: a deterministic force layout, the image of an embedding, and
+ * Display data for a claim's graph: a layout chosen by its structure (./layout.ts), the image of an embedding, and
  * floating-point eigen-data (Perron vector, spectrum) for pictures only. Nothing here ever decides a
  * verdict: the verdict comes from the exact core, these floats only help a person see why it holds.
  * Pure TypeScript (no framework or database imports): it runs inside the verification worker.
  */
-import { forceCenter, forceLink, forceManyBody, forceSimulation, forceX, forceY, type SimulationNodeDatum } from "d3-force";
-import type { Graph } from "../core/graph";
+import { isSimple, type Graph } from "../core/graph";
+import { writeGraph6 } from "../core/graph6";
+import { describeLayout, layoutByStructure } from "./layout";
 
 /** Largest graph drawn; larger graphs get no picture (the verdict is unaffected). */
 export const MAX_DRAWN_VERTICES = 400;
@@ -18,6 +19,10 @@ export interface GraphPicture {
   labels: string[];
   /** [u, v, multiplicity]; u === v for a loop. */
   edges: Array<[number, number, number]>;
+  /** What the drawing shows, in words (its text alternative). */
+  summary?: string;
+  /** graph6 of a simple graph (null for loops or multiple edges); absent on pictures stored before it existed. */
+  graph6?: string | null;
   /** Layout in a 0..1000 × 0..700 box. */
   x: number[];
   y: number[];
@@ -34,46 +39,6 @@ export interface ClaimPicture {
   /** The bound of a spectral claim, for the spectrum plot (display only). */
   bound: { text: string; approx: number } | null;
   note?: string;
-}
-
-/** Seeded linear congruential generator so that one graph is always drawn the same way. */
-function lcg(seed: number): () => number {
-  let s = seed >>> 0 || 1;
-  return () => {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    return s / 2 ** 32;
-  };
-}
-
-interface Node extends SimulationNodeDatum {
-  index: number;
-}
-
-/**
- * Force-directed layout, run synchronously for a fixed number of ticks from a seeded start. Dense
- * graphs get fewer ticks: their drawing is a tangle whatever the layout, and it should stay cheap.
- */
-export function layoutGraph(g: Graph, ticks = g.edges.length > 300 ? 80 : 300): { x: number[]; y: number[] } {
-  const W = 1000, H = 700;
-  if (g.n === 0) return { x: [], y: [] };
-  if (g.n === 1) return { x: [W / 2], y: [H / 2] };
-  const nodes: Node[] = Array.from({ length: g.n }, (_, i) => ({ index: i }));
-  const links = g.edges.filter((e) => e.u !== e.v).map((e) => ({ source: e.u, target: e.v }));
-  const sim = forceSimulation<Node>(nodes)
-    .randomSource(lcg(g.n * 7919 + g.edges.length))
-    .force("link", forceLink<Node, { source: number; target: number }>(links).distance(40).strength(0.9))
-    .force("charge", forceManyBody<Node>().strength(-60))
-    .force("x", forceX<Node>(0).strength(0.03))
-    .force("y", forceY<Node>(0).strength(0.03))
-    .force("center", forceCenter(0, 0))
-    .stop();
-  sim.tick(ticks);
-  const xs = nodes.map((d) => d.x ?? 0), ys = nodes.map((d) => d.y ?? 0);
-  const [x0, x1] = [Math.min(...xs), Math.max(...xs)], [y0, y1] = [Math.min(...ys), Math.max(...ys)];
-  const scale = Math.min((W - 80) / Math.max(x1 - x0, 1e-9), (H - 80) / Math.max(y1 - y0, 1e-9), 3);
-  const cx = (x0 + x1) / 2, cy = (y0 + y1) / 2;
-  const round = (v: number) => Math.round(v * 10) / 10;
-  return { x: xs.map((v) => round(W / 2 + (v - cx) * scale)), y: ys.map((v) => round(H / 2 + (v - cy) * scale)) };
 }
 
 function denseAdjacency(g: Graph): number[][] {
@@ -135,7 +100,8 @@ export function perronVector(g: Graph, iterations = 2000): number[] {
 /** The picture of one graph; `highlightMap` is an embedding H-vertex → G-vertex whose image is highlighted. */
 export function pictureOf(g: Graph, title: string, highlightMap?: readonly number[], pattern?: Graph): GraphPicture | null {
   if (g.n > MAX_DRAWN_VERTICES) return null;
-  const { x, y } = layoutGraph(g);
+  const layout = layoutByStructure(g);
+  const { x, y } = layout;
   let highlight: GraphPicture["highlight"] = null;
   if (highlightMap && highlightMap.every((v) => Number.isInteger(v) && v >= 0 && v < g.n)) {
     const edges: Array<[number, number]> = (pattern?.edges ?? [])
@@ -149,6 +115,8 @@ export function pictureOf(g: Graph, title: string, highlightMap?: readonly numbe
     n: g.n,
     labels: g.labels ? [...g.labels] : Array.from({ length: g.n }, (_, i) => String(i)),
     edges: g.edges.map((e) => [e.u, e.v, e.m]),
+    summary: describeLayout(g, layout),
+    graph6: isSimple(g) ? writeGraph6(g) : null,
     x,
     y,
     highlight,

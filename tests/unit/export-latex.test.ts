@@ -4,7 +4,8 @@ import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
 import { escapeLine, sanitizeMath } from "@/lib/export/latex-escape";
 import { inlineToLatex, markdownToLatex } from "@/lib/export/markdown-latex";
-import { compileLatex, pdflatexAvailable, PdfUnavailableError } from "@/lib/export/pdf";
+import { compileLatex, compileLatexRobustly, pdflatexAvailable, PdfFailedError, PdfUnavailableError } from "@/lib/export/pdf";
+import { NOT_TYPESET_MARK, setMathAsSource } from "@/lib/export/latex-fallback";
 import { settledSnapshot } from "./export-fixture";
 
 const EVIL_TITLE = String.raw`Evil \input{/etc/passwd} \end{document} 100% & #1 _x_ ^ ~ {brace} $\write18{ls}$`;
@@ -50,6 +51,12 @@ describe("LaTeX escaping", () => {
     expect(sanitizeMath(String.raw`\begin{document}`)).toBeNull();
     expect(sanitizeMath(String.raw`\left( x`)).toBeNull();
     expect(sanitizeMath("x % y")).toBe(String.raw`x \% y`);
+    // Array column specs: l, c, r and rules only (">{x}c" stopped pdflatex for the whole proof).
+    expect(sanitizeMath(String.raw`\begin{array}{>{x}c}x\end{array}`)).toBeNull();
+    expect(sanitizeMath(String.raw`\begin{array}{p{1cm}}x\end{array}`)).toBeNull();
+    expect(sanitizeMath(String.raw`\begin{array}{@{}c}x\end{array}`)).toBeNull();
+    expect(sanitizeMath(String.raw`\begin{array}{l | c r}a&b&c\end{array}`)).toBe(String.raw`\begin{array}{l|cr}a&b&c\end{array}`);
+    expect(sanitizeMath(`${"{".repeat(400)}x${"}".repeat(400)}`)).toBeNull(); // TeX's grouping limit is 255
     expect(sanitizeMath(String.raw`\begin{pmatrix} 1 & 0 \\ 0 & 1 \end{pmatrix}`)).toBe(String.raw`\begin{pmatrix} 1 & 0 \\ 0 & 1 \end{pmatrix}`);
   });
 
@@ -111,3 +118,37 @@ describe("LaTeX document", () => {
     }
   });
 });
+
+/** Formulas that pass the math check (or fail it) and would stop pdflatex: each must not take the document down. */
+const UNCOMPILABLE = [
+  String.raw`$\begin{array}{>{x}c}x\end{array}$`,
+  String.raw`$x^1^2$`,
+  String.raw`$a\limits^2$`,
+  String.raw`$\begin{matrix}1&2&3&4&5&6&7&8&9&10&11\end{matrix}$`,
+  String.raw`$\text{\alpha}$`,
+  String.raw`$\frac$`,
+  `$${"\\sqrt{".repeat(400)}x${"}".repeat(400)}$`,
+  String.raw`$\begin{split}a\end{split}$`,
+];
+
+describe("a formula that would not compile", () => {
+  it("is set as its source with a mark, and the rest of the document still compiles", async () => {
+    const body = [String.raw`Good $\rho(T) \le 2$ first.`, ...UNCOMPILABLE.map((f) => `Then ${f} here.`), String.raw`Good $$\sqrt{2+\sqrt5}$$ last.`].join("\n\n");
+    const tex = texOf("Hostile formulas", body);
+    await expect(compileLatex(tex)).rejects.toBeInstanceOf(PdfFailedError); // the document as written does not compile
+    const result = await compileLatexRobustly(tex, { runs: 1 });
+    expect(result.pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    expect(result.recovered).toBeGreaterThan(0);
+    expect(result.tex).toContain(NOT_TYPESET_MARK);
+    expect(result.tex).toContain(String.raw`Good $\rho(T) \le 2$ first.`); // good math is still typeset
+    expect(result.tex).toContain(String.raw`\texttt{x\textasciicircum{}1\textasciicircum{}2}~${NOT_TYPESET_MARK}`);
+  }, 300_000);
+
+  it("is found on the line pdflatex names; a line without math gives nothing to replace", () => {
+    const tex = "\\begin{document}\nplain text\nsee $x^1^2$ and \\$5 and \\[ a \\] end\n\\end{document}";
+    expect(setMathAsSource(tex, 2)).toBeNull();
+    const fixed = setMathAsSource(tex, 3)!;
+    expect(fixed.split("\n")[2]).toBe(String.raw`see \texttt{x\textasciicircum{}1\textasciicircum{}2}~${NOT_TYPESET_MARK} and \$5 and \par\noindent \texttt{a}~${NOT_TYPESET_MARK}\par  end`);
+  });
+});
+

@@ -36,3 +36,39 @@ describe("MathMarkdown", () => {
     expect(html).toMatch(/katex-error|Too many expansions/);
   });
 });
+
+describe("MathMarkdown budget per formula", () => {
+  // The hostile step that killed tabs: 400 nested \sqrt{ in 2.8 KB rendered to about 1.2 MB.
+  const nested = `$${"\\sqrt{".repeat(400)}x${"}".repeat(400)}$`;
+
+  it("replaces a too deeply nested formula by an error box, keeping the page small", () => {
+    const html = renderToStaticMarkup(<MathMarkdown source={`Before ${nested} after.`} />);
+    expect(html.length).toBeLessThan(5_000);
+    expect(html).toContain('class="math-over-budget"');
+    expect(html).toContain("400 levels deep");
+    expect(html).toContain("Before");
+    expect(html).toContain("after.");
+  });
+
+  it("also boxes a display formula and a ```math block over budget", () => {
+    const deep = `${"x^{".repeat(60)}1${"}".repeat(60)}`;
+    const html = renderToStaticMarkup(<MathMarkdown source={`$$\n${deep}\n$$\n\n\`\`\`math\n${deep}\n\`\`\``} />);
+    expect(html.match(/math-over-budget/g)?.length).toBe(2);
+    expect(html).not.toContain('class="katex"');
+  });
+
+  it("boxes a shallow formula whose rendering would be huge", () => {
+    // 20×20 matrix: nesting 2 and a short source, but well over the rendered-size budget.
+    const big = `\\begin{pmatrix}${Array.from({ length: 20 }, () => Array(20).fill("a_{ij}").join("&")).join("\\\\")}\\end{pmatrix}`;
+    const html = renderToStaticMarkup(<MathMarkdown source={`$${big}$`} />);
+    expect(html).toContain("math-over-budget");
+    expect(html).toMatch(/KB of markup/);
+  });
+
+  it("still renders ordinary formulas, including a 10×10 matrix and moderate nesting", () => {
+    const matrix = `\\begin{pmatrix}${Array.from({ length: 10 }, () => Array(10).fill("a_{ij}").join("&")).join("\\\\")}\\end{pmatrix}`;
+    const html = renderToStaticMarkup(<MathMarkdown source={`$${matrix}$ and $${"\\sqrt{".repeat(8)}2${"}".repeat(8)}$ and $\\{x\\}$`} />);
+    expect(html).not.toContain("math-over-budget");
+    expect(html.match(/class="katex"/g)?.length).toBe(3);
+  });
+});
