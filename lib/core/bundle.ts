@@ -155,7 +155,7 @@ function checkStepCover(item: BundleItem, claimItems: readonly BundleItem[]): Bu
   if (!isRecord(data) || !isRecord(data.revision)) return null;
   const r = data.revision as { number?: unknown; body?: unknown; claims?: unknown; digest?: unknown };
   const vouches = (Array.isArray(data.reviews) ? data.reviews : []).filter(
-    (v): v is Record<string, unknown> => isRecord(v) && (v.verdict === "vouch" || v.verdict === "approve"),
+    (v): v is Record<string, unknown> => isRecord(v) && (v.verdict === "vouch" || v.verdict === "vouch"),
   );
   if (typeof r.digest !== "string") return vouches.length ? { label: item.id, status: "refuted", text: "vouches are recorded but the revision carries no digest of what they cover" } : null;
   if (typeof r.number !== "number" || typeof r.body !== "string" || !Array.isArray(r.claims))

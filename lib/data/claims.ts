@@ -108,26 +108,28 @@ async function readClaimViews(stepId: number, ids: number[]): Promise<ClaimView[
  * in the worker pool, so that malformed input is a 422 naming the field and nothing is stored.
  */
 async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> {
-  const issues: Issue[] = [];
-  const claims: ClaimJson[] = [];
+  // Every claim is read, also after an unreadable one, so that one answer names every problem at once.
+  const found: Array<{ index: number; issue: Issue }> = [];
+  const claims: Array<ClaimJson | null> = [];
   const pathOf = (i: number, p: string) => `claims.${i}${p.replace(/^\$/, "")}`;
   for (const [i, json] of raw.entries()) {
     try {
       claims.push(validateClaim(json));
     } catch (e) {
       if (!(e instanceof ClaimError)) throw e;
-      issues.push({ path: pathOf(i, e.path), message: e.detail });
+      claims.push(null);
+      found.push({ index: i, issue: { path: pathOf(i, e.path), message: e.detail } });
     }
   }
-  if (issues.length === 0)
-    for (const [i, claim] of claims.entries()) {
-      const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
-        throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
-      });
-      if (!answer.ok) issues.push({ path: pathOf(i, answer.problem.path), message: answer.problem.detail });
-    }
-  if (issues.length) throw invalid("Some claims need attention; nothing was saved.", issues);
-  return claims;
+  for (const [i, claim] of claims.entries()) {
+    if (!claim) continue;
+    const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
+      throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
+    });
+    if (!answer.ok) found.push({ index: i, issue: { path: pathOf(i, answer.problem.path), message: answer.problem.detail } });
+  }
+  if (found.length) throw invalid("Some claims need attention; nothing was saved.", found.sort((a, b) => a.index - b.index).map((f) => f.issue));
+  return claims as ClaimJson[];
 }
 
 /**

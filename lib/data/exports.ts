@@ -71,7 +71,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
           revisionNumber: revisionNumber.get(r.revisionId) ?? 0,
           disputeState: r.disputeState as DisputeState | null,
           digest: r.digest ?? null,
-          at: (r.verdict === "approve" ? r.updatedAt : r.createdAt).toISOString(),
+          at: (r.verdict === "vouch" ? r.updatedAt : r.createdAt).toISOString(),
         })),
       claims: claims
         .filter((c) => c.stepId === s.id)

@@ -1,5 +1,5 @@
 import "server-only";
-/** What the review panel under a step shows (verdicts, stale approvals, disputes with threads, comments) and the queue's step view. */
+/** What the review panel under a step shows (verdicts, stale vouches, disputes with threads, comments) and the queue's step view. */
 import { models } from "@/models";
 import type { DisputeState } from "@/models/review";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
@@ -24,7 +24,7 @@ export interface StepReviewView {
   latestRevision: { id: number; number: number; digest: string; pendingClaims: number } | null;
   requiredApprovals: number;
   status: StepStatus;
-  approvals: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
+  vouches: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
   disputes: Array<{
     id: number;
     reviewerId: number;
@@ -34,10 +34,10 @@ export interface StepReviewView {
     at: string;
     transitions: Array<{ from: DisputeState | null; to: DisputeState; actorName: string; at: string }>;
     thread: CommentNode[];
-    can: { answer: boolean; close: boolean; reopen: boolean };
+    can: { answer: boolean; withdraw: boolean; uphold: boolean };
   }>;
   comments: CommentNode[];
-  /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no approval, no second dispute until it is closed). */
+  /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no vouch, no second dispute until it is withdrawn). */
   can: { verdict: boolean; verdictRefusal: string | null; ownDisputeOpen: boolean; comment: boolean };
   /** What the viewer already did on the latest revision: the time of their vouch, or null. */
   mine: { vouchedAt: string | null };
@@ -79,11 +79,11 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     return roots;
   };
   const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
-  // Only the latest approval per reviewer is listed; it is stale when made on an older revision.
-  const latestApproval = new Map<number, (typeof reviews)[number]>();
-  for (const r of reviews) if (r.verdict === "approve") latestApproval.set(r.reviewerId, r);
+  // Only the latest vouch per referee is listed; it is superseded when given on an older revision.
+  const latestVouch = new Map<number, (typeof reviews)[number]>();
+  for (const r of reviews) if (r.verdict === "vouch") latestVouch.set(r.reviewerId, r);
   const latestRow = revisions.find((r) => r.id === step.latest?.id);
-  const mineNow = reviews.find((r) => r.reviewerId === viewer.id && r.verdict === "approve" && r.revisionId === step.latest?.id);
+  const mineNow = reviews.find((r) => r.reviewerId === viewer.id && r.verdict === "vouch" && r.revisionId === step.latest?.id);
   return {
     stepId: step.id,
     latestRevision: latestRow
@@ -92,7 +92,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     mine: { vouchedAt: mineNow ? mineNow.createdAt.toISOString() : null },
     requiredApprovals: required,
     status,
-    approvals: [...latestApproval.values()].map((r) => ({
+    vouches: [...latestVouch.values()].map((r) => ({
       id: r.id,
       reviewerId: r.reviewerId,
       reviewerName: names.get(r.reviewerId) ?? "",
@@ -116,14 +116,14 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
             .filter((t) => t.reviewId === r.id)
             .map((t) => ({ from: t.fromState, to: t.toState, actorName: names.get(t.actorId) ?? "", at: t.createdAt.toISOString() })),
           thread: tree(comments.filter((c) => c.reviewId === r.id)),
-          can: { answer: allowed("answered"), close: allowed("closed"), reopen: allowed("reopened") },
+          can: { answer: allowed("answered"), withdraw: allowed("withdrawn"), uphold: allowed("upheld") },
         };
       }),
     comments: tree(comments.filter((c) => c.reviewId === null)),
     can: {
       verdict: refusal === null && step.latest !== null,
       verdictRefusal: refusal,
-      ownDisputeOpen: reviews.some((r) => r.reviewerId === viewer.id && r.verdict === "dispute" && r.disputeState !== "closed"),
+      ownDisputeOpen: reviews.some((r) => r.reviewerId === viewer.id && r.verdict === "dispute" && r.disputeState !== "withdrawn"),
       comment: true,
     },
   };

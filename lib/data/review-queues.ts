@@ -11,7 +11,7 @@ import { expandScope } from "@/lib/review/rules";
 import type { DisputeState } from "@/models/review";
 import { claimStatuses } from "./reviews";
 
-interface ReviewRow { id: number; stepId: number; reviewerId: number; verdict: "approve" | "dispute"; disputeState: DisputeState | null; revisionNumber: number; at: Date }
+interface ReviewRow { id: number; stepId: number; reviewerId: number; verdict: "vouch" | "dispute"; disputeState: DisputeState | null; revisionNumber: number; at: Date }
 interface StepRow { id: number; caseId: number; position: number; latestNumber: number; latestAt: Date | null; authorIds: number[] }
 interface CaseRowFull { id: number; proofId: number; parentId: number | null; position: number; title: string }
 
@@ -86,7 +86,7 @@ export async function getReadiness(proofId: number, visible: Set<number> | null 
 const proofIdsWhere = async (userId: number, role: "author" | "reviewer" | "editor") =>
   (await models().ProofMember.findAll({ where: { userId, role }, attributes: ["proofId"] })).map((m) => m.proofId);
 
-export interface QueueStepRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; caseTitle: string; revision: number; reason: "not reviewed" | "needs re-review"; since: string }
+export interface QueueStepRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; caseTitle: string; revision: number; reason: "not read yet" | "vouch superseded"; since: string }
 export interface QueueDisputeRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; disputeId: number; state: DisputeState; reviewerName: string; revision: number; since: string }
 
 const labelOf = (f: Awaited<ReturnType<typeof loadFacts>>, s: StepRow) => stepLabel(f.numbered.get(s.caseId)?.number ?? "?", s.position);
@@ -108,9 +108,9 @@ export async function getReviewerQueue(userId: number): Promise<{ steps: QueueSt
     for (const d of mine.filter((r) => r.verdict === "dispute" && r.disputeState === "answered"))
       answered.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), disputeId: d.id, state: "answered", reviewerName: "", revision: d.revisionNumber, since: d.at.toISOString() });
     if (mine.some((r) => r.verdict === "dispute" && isUnresolved(r.disputeState))) continue;
-    if (mine.some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber)) continue;
-    const hadApproval = mine.some((r) => r.verdict === "approve");
-    steps.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), caseTitle: c.title, revision: s.latestNumber, reason: hadApproval ? "needs re-review" : "not reviewed", since: (s.latestAt ?? new Date()).toISOString() });
+    if (mine.some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber)) continue;
+    const hadVouch = mine.some((r) => r.verdict === "vouch");
+    steps.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), caseTitle: c.title, revision: s.latestNumber, reason: hadVouch ? "vouch superseded" : "not read yet", since: (s.latestAt ?? new Date()).toISOString() });
   }
   return { steps, answered };
 }
@@ -139,7 +139,7 @@ function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<numb
     });
 }
 
-export interface ReviewerProgress { proofId: number; proofTitle: string; reviewerId: number; reviewerName: string; scope: string; inScope: number; approved: number; stale: number; unresolvedDisputes: number; waiting: number }
+export interface ReviewerProgress { proofId: number; proofTitle: string; reviewerId: number; reviewerName: string; scope: string; inScope: number; vouched: number; stale: number; unresolvedDisputes: number; waiting: number }
 
 /** Per-reviewer progress on the given proofs (the editor's view). */
 export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerProgress[]> {
@@ -152,8 +152,8 @@ export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerP
       const visible = f.scopeOf(m.proofId, m.userId);
       const steps = f.steps.filter((s) => f.numbered.get(s.caseId)?.proofId === m.proofId && (!visible || visible.has(s.caseId)) && s.latestNumber > 0);
       const mine = (s: StepRow) => f.reviews.filter((r) => r.stepId === s.id && r.reviewerId === m.userId);
-      const approved = steps.filter((s) => mine(s).some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber)).length;
-      const stale = steps.filter((s) => !mine(s).some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber) && mine(s).some((r) => r.verdict === "approve")).length;
+      const vouched = steps.filter((s) => mine(s).some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber)).length;
+      const stale = steps.filter((s) => !mine(s).some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber) && mine(s).some((r) => r.verdict === "vouch")).length;
       const disputed = steps.filter((s) => mine(s).some((r) => r.verdict === "dispute" && isUnresolved(r.disputeState))).length;
       return {
         proofId: m.proofId,
@@ -162,10 +162,10 @@ export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerP
         reviewerName: m.name,
         scope: visible ? `cases ${[...visible].map((id) => f.numbered.get(id)?.number).filter(Boolean).sort().join(", ")}` : "whole proof",
         inScope: steps.length,
-        approved,
+        vouched,
         stale,
         unresolvedDisputes: disputed,
-        waiting: steps.length - approved - disputed,
+        waiting: steps.length - vouched - disputed,
       };
     });
 }

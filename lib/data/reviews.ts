@@ -1,6 +1,6 @@
 import "server-only";
 /**
- * Who sees which cases, verdicts on step revisions, comments, and the required approvals. Disputes:
+ * Who sees which cases, verdicts on step revisions, comments, and the required vouches. Disputes:
  * ./disputes.ts; what the review panel shows: ./review-panel.ts. Each write runs in one transaction together with its audit event, notifications and queued mail;
  * mail goes out after commit (see lib/mail/outbox.ts).
  */
@@ -89,15 +89,15 @@ export const stepLink = (proofId: number, stepId: number) => `/queue/${proofId}/
 
 export interface VerdictInput {
   revisionId: number;
-  verdict: "approve" | "dispute";
+  verdict: "vouch" | "dispute";
   comment?: string;
   /** The revision digest the referee read (from the review panel); a mismatch is refused. */
   digest?: string;
 }
 
 /**
- * Records a verdict at the step's latest revision. A verdict on an older revision is refused (409, stale),
- * as is approving while one's own dispute on the step is unresolved, or raising a second dispute.
+ * Records a verdict at the step's latest revision. A verdict on an older revision is refused (409, naming what changed),
+ * as is vouching while one's own dispute on the step is unresolved, or raising a second dispute.
  */
 export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInput): Promise<{ reviewId: number; created: boolean }> {
   const { Review, StepRevision, Comment, DisputeTransition } = models();
@@ -122,29 +122,29 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
         digest,
       });
     const mine = await Review.findAll({ where: { stepId: step.id, reviewerId: actor.id }, transaction });
-    const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "closed");
-    if (input.verdict === "approve") {
+    const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "withdrawn");
+    if (input.verdict === "vouch") {
       const pending = claimsOf(latest).filter((c) => c.status === "pending");
       if (pending.length)
         throw conflict(`Claim${pending.length > 1 ? "s" : ""} ${pending.map((c) => `#${c.id}`).join(", ")} of revision ${latest.number} ${pending.length > 1 ? "are" : "is"} still being checked; a vouch covers the verdicts too, so vouch once ${pending.length > 1 ? "they are" : "it is"} decided.`, {
           pendingClaimIds: pending.map((c) => c.id),
         });
-      if (unresolved) throw conflict("You have an unresolved dispute on this step; close it before approving the step.", { disputeId: unresolved.id });
-      const existing = mine.find((r) => r.verdict === "approve" && r.revisionId === revision.id);
+      if (unresolved) throw conflict("You have an unresolved dispute on this step; withdraw it before vouching for the step.", { disputeId: unresolved.id });
+      const existing = mine.find((r) => r.verdict === "vouch" && r.revisionId === revision.id);
       if (existing) return { reviewId: existing.id, created: false };
     } else if (unresolved) {
       throw conflict("You already have an unresolved dispute on this step; add to its thread instead.", { disputeId: unresolved.id });
     }
     const review = await Review.create(
-      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "open" : null, digest },
+      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "raised" : null, digest },
       { transaction },
     );
     if (input.verdict === "dispute") {
       await Comment.create({ stepId: step.id, reviewId: review.id, parentId: null, revisionId: revision.id, authorId: actor.id, body: input.comment ?? "" }, { transaction });
-      await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "open" }, { transaction });
+      await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
       await notify(
         (await authorsOf(step.proofId, transaction)).concat(step.authorIds).filter((id) => id !== actor.id),
-        { kind: "dispute_opened", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
+        { kind: "dispute_raised", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
         transaction,
       );
     }
@@ -152,7 +152,7 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       {
         proofId: step.proofId,
         actorId: actor.id,
-        action: input.verdict === "approve" ? "review.approved" : "review.disputed",
+        action: input.verdict === "vouch" ? "review.vouched" : "review.disputed",
         subjectType: "step",
         subjectId: step.id,
         detail: `revision ${revision.number}${input.verdict === "dispute" ? `; dispute #${review.id} opened` : ""}`,
@@ -204,7 +204,7 @@ export async function claimStatuses(stepIds: number[]): Promise<Map<number, Arra
   return out;
 }
 
-/** Sets how many approving reviewers each step needs (at its latest revision). */
+/** Sets how many vouches each step needs (at its latest revision). */
 export async function setRequiredApprovals(proofId: number, actorId: number, requiredApprovals: number): Promise<void> {
   const { Proof } = models();
   await getSequelize().transaction(async (transaction) => {

@@ -51,7 +51,7 @@ export async function stepPhrase(stepId: number, transaction?: Transaction): Pro
 
 /** Tells every referee who vouched for `previous` that the new revision supersedes it, and why. */
 export async function noticeSuperseded(proofId: number, stepId: number, previous: RevisionRow, created: RevisionRow, actorId: number, transaction: Transaction): Promise<void> {
-  const vouches = await models().Review.findAll({ where: { stepId, revisionId: previous.id, verdict: "approve" }, attributes: ["reviewerId"], transaction });
+  const vouches = await models().Review.findAll({ where: { stepId, revisionId: previous.id, verdict: "vouch" }, attributes: ["reviewerId"], transaction });
   const recipients = vouches.map((v) => v.reviewerId).filter((id) => id !== actorId);
   if (recipients.length === 0) return;
   const change = describeChange(compareRevisions({ body: previous.body, claims: claimsOf(previous) }, { body: created.body, claims: claimsOf(created) }));
@@ -109,7 +109,7 @@ export async function storeVerdict(claimId: number, update: Record<string, unkno
   if (!recorded || recorded.status === now.status) return;
   const stepId = row.stepId;
   if (recorded.status === "pending") {
-    const vouched = new Set((await Review.findAll({ where: { stepId, verdict: "approve" }, attributes: ["revisionId"], transaction })).map((r) => r.revisionId));
+    const vouched = new Set((await Review.findAll({ where: { stepId, verdict: "vouch" }, attributes: ["revisionId"], transaction })).map((r) => r.revisionId));
     if (!vouched.has(latest.id)) {
       for (const r of await StepRevision.findAll({ where: { stepId }, transaction })) {
         const set = claimsOf(r);

@@ -60,7 +60,7 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
           revision: s.revision,
           reviews: s.reviews.map((r) => ({
             reviewer: r.reviewerName, verdict: r.verdict, revision: r.revisionNumber, disputeState: r.disputeState, at: r.at,
-            digest: r.digest, superseded: r.verdict === "approve" && r.revisionNumber !== s.revision?.number,
+            digest: r.digest, superseded: r.verdict === "vouch" && r.revisionNumber !== s.revision?.number,
           })),
         },
       });

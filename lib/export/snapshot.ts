@@ -8,7 +8,7 @@ import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type
 export interface SnapshotReview {
   reviewerId: number;
   reviewerName: string;
-  verdict: "approve" | "dispute";
+  verdict: "vouch" | "dispute";
   revisionNumber: number;
   disputeState: DisputeState | null;
   /** The revision digest the verdict covers (lib/core/revision-digest.ts). */
@@ -99,8 +99,8 @@ export function certificationOf(p: ProofSnapshot): Certification {
       if (st.openDisputes > 0) blockers.push(`${where} has ${st.openDisputes} open dispute${st.openDisputes > 1 ? "s" : ""}.`);
       if (st.claimFailing) blockers.push(`${where} has a refuted claim.`);
       else if (!st.claimsVerified) blockers.push(`${where} has a claim that is not verified.`);
-      if (!st.approved)
-        blockers.push(`${where} has ${st.approvals} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.staleApprovals ? ` (${st.staleApprovals} stale)` : ""}.`);
+      if (!st.vouched)
+        blockers.push(`${where} has ${st.vouches} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.supersededVouches ? ` (${st.supersededVouches} stale)` : ""}.`);
     }
     if (c.steps.length === 0 && c.children.length === 0) blockers.push(`Case ${c.number} has no steps.`);
   }

@@ -56,7 +56,7 @@ beforeAll(async () => {
   const covered = [{ id: claim.id, position: 1, kind: claim.kind, statement: claim.statement, digest: claim.digest!, status: claim.status }];
   const digest = digestOfRevision(rev.number, rev.body, covered);
   await rev.update({ claimSet: claimSetText(covered), digest });
-  await Review.create({ stepId, revisionId, reviewerId: reviewer, verdict: "approve", disputeState: null, digest });
+  await Review.create({ stepId, revisionId, reviewerId: reviewer, verdict: "vouch", disputeState: null, digest });
 });
 
 afterAll(async () => {
@@ -149,7 +149,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
 
   it("refuses a certified export while a dispute is open (409 naming the step), and a draft is still possible and marked draft", async () => {
     const { Review } = models();
-    const dispute = await Review.create({ stepId, revisionId, reviewerId: await userIdOf("editor"), verdict: "dispute", disputeState: "open" });
+    const dispute = await Review.create({ stepId, revisionId, reviewerId: await userIdOf("editor"), verdict: "dispute", disputeState: "raised" });
     try {
       await actAs("author");
       const refused = await create(proofId, { kind: "certified" });
@@ -167,7 +167,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
       expect(tex).toContain(String.raw`\fancyhead[R]{\small \textbf{DRAFT --- not certified}}`);
       const bundle = await (await file(bundleRoute, proofId, made.id)).json();
       expect(bundle.export).toMatchObject({ kind: "draft", proofState: "in progress" });
-      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(expect.objectContaining({ verdict: "dispute", disputeState: "open" }));
+      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(expect.objectContaining({ verdict: "dispute", disputeState: "raised" }));
     } finally {
       await dispute.destroy();
     }

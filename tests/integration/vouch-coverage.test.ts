@@ -33,7 +33,7 @@ afterAll(async () => {
 });
 
 const p = (stepId: number) => params({ proofId: String(fx.proofId), stepId: String(stepId) });
-const vouch = (stepId: number, body: Record<string, unknown>) => reviews.POST(jsonRequest("/x", "POST", { verdict: "approve", ...body }), p(stepId));
+const vouch = (stepId: number, body: Record<string, unknown>) => reviews.POST(jsonRequest("/x", "POST", { verdict: "vouch", ...body }), p(stepId));
 const panel = async (stepId: number) => (await (await reviews.GET(new Request("http://localhost/x"), p(stepId))).json()).review;
 // E7 is a Dynkin diagram, so ρ(E7) < 2 (Smith 1970; Brouwer & Haemers, Spectra of Graphs, §3.1.1).
 const e7 = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "E(7)" }, op: "<", bound: "2" };
@@ -66,7 +66,7 @@ describe("a vouch covers the text and the claims of one revision", () => {
 
     await actAs("reviewer");
     const view = await panel(stepId);
-    expect(view.status).toMatchObject({ approvals: 0, staleApprovals: 1, approved: false });
+    expect(view.status).toMatchObject({ vouches: 0, supersededVouches: 1, vouched: false });
     const [notice] = await inbox(fx.ids.reviewer);
     expect(notice.message).toMatch(/^Your vouch for step 1:1 of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/);
     expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);
@@ -79,7 +79,7 @@ describe("a vouch covers the text and the claims of one revision", () => {
 
     const again = await vouch(stepId, { revisionId: r2.id, digest: r2.digest });
     expect(again.status).toBe(201);
-    expect((await panel(stepId)).status).toMatchObject({ approvals: 1, staleApprovals: 0, approved: true });
+    expect((await panel(stepId)).status).toMatchObject({ vouches: 1, supersededVouches: 0, vouched: true });
   });
 
   it("a vouch whose digest is not the revision's is refused, and so is a vouch while a claim of the revision is pending", async () => {
@@ -147,7 +147,7 @@ describe("a vouch covers the text and the claims of one revision", () => {
     const stepId = fx.steps["2.2"];
     const r = await latestRevision(stepId);
     const step = await loadStep(fx.proofId, stepId);
-    const vouching = giveVerdict(step, { id: fx.ids.reviewer, role: "reviewer" }, { revisionId: r.id, verdict: "approve" }).then(
+    const vouching = giveVerdict(step, { id: fx.ids.reviewer, role: "reviewer" }, { revisionId: r.id, verdict: "vouch" }).then(
       () => ({ status: 201 }),
       (e: AppError) => ({ status: e.status }),
     );

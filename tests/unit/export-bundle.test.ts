@@ -149,7 +149,7 @@ describe("certification", () => {
   it("a settled snapshot is ready to certify; an open dispute blocks it with the reason", () => {
     expect(certificationOf(settledSnapshot())).toEqual({ state: "ready to certify", blockers: [] });
     const s = settledSnapshot();
-    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "open", digest: null, at: "2026-11-30T13:00:00.000Z" });
+    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "raised", digest: null, at: "2026-11-30T13:00:00.000Z" });
     const c = certificationOf(s);
     expect(c.state).toBe("in progress");
     expect(c.blockers).toContain("Step 1:1 has 1 open dispute.");

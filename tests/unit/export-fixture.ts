@@ -23,10 +23,10 @@ export function verifiedClaim(json: Record<string, unknown>): SnapshotClaim {
 }
 
 const approve = (revisionNumber: number, digest: string): SnapshotReview => ({
-  reviewerId: 3, reviewerName: "Celia Marwood", verdict: "approve", revisionNumber, disputeState: null, digest, at: "2026-11-30T12:00:00.000Z",
+  reviewerId: 3, reviewerName: "Celia Marwood", verdict: "vouch", revisionNumber, disputeState: null, digest, at: "2026-11-30T12:00:00.000Z",
 });
 
-/** Ready to certify: every step approved at its latest revision, every claim verified, no dispute. */
+/** Ready to certify: every step vouched at its latest revision, every claim verified, no dispute. */
 export function settledSnapshot(title = "Trees with spectral radius in (2, √(2+√5)]"): ProofSnapshot {
   const step = (id: number, body: string, claims: SnapshotClaim[] = []) => {
     const covered = claims.map((c) => ({ digest: c.digest ?? "", status: c.status }));
