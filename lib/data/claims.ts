@@ -141,6 +141,8 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
+    // Locking the step row (lockLatest) serialises attaches to one step, so each claim takes its own place
+    // (the unique index on (step_id, position) is the backstop), and serialises them against vouches.
     const latest = await lockLatest(stepId, transaction);
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
     const out: Array<{ id: number; claim: ClaimJson; row: ClaimRow }> = [];

@@ -17,6 +17,7 @@ import { VerdictCaution } from "@/components/ui/caution";
 import { ProofExportsCard } from "@/components/export/proof-exports-card";
 import { listExports } from "@/lib/data/exports";
 import { visibleCaseIds } from "@/lib/data/reviews";
+import { mayDoInRound } from "@/lib/review/rounds";
 import { pageRole } from "./page-access";
 
 export const metadata: Metadata = { title: "Proof" };
@@ -26,7 +27,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
   // A reviewer invited to chosen cases sees those cases only (and no whole-proof exports).
   const visible = await visibleCaseIds(proofId, user.id);
   const [proof, overview, claims, deleted, exports] = await Promise.all([
-    getProofSummary(proofId), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
+    getProofSummary(proofId, { id: user.id, role }), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
     visible === null ? listExports(proofId) : Promise.resolve(null),
   ]);
   if (!proof) notFound();
@@ -54,6 +55,8 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
         <nav className="flex flex-col gap-1 text-sm" aria-label="This proof">
           <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">Members and reviewers</Link>
           <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">Timeline</Link>
+          <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 hover:underline">Review rounds and reports</Link>
+          {mayDoInRound(role, "read_desk") && <Link href={`/proofs/${proofId}/desk`} className="text-lichen-700 hover:underline">Editor’s desk</Link>}
         </nav>
         {exports && <ProofExportsCard proofId={proofId} exports={exports} />}
         <div>

@@ -17,7 +17,7 @@ export const metadata: Metadata = { title: "Export" };
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
   const { proofId, role, user } = await pageRole((await params).proofId);
   if ((await visibleCaseIds(proofId, user.id)) !== null) return <main className="max-w-prose" role="alert">{WHOLE_PROOF_ONLY}</main>;
-  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
+  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";
   return (

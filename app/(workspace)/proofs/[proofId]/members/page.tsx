@@ -25,7 +25,7 @@ export default async function MembersPage({ params }: { params: Promise<{ proofI
   const manages = await assertCanManageReviewers(proofId, access.user, access.role).then(() => true, () => false);
   if (manages) await deliverAfterCommit(); // messages whose retry is due go out now
   const [proof, readiness, progress, invitations] = await Promise.all([
-    getProofSummary(proofId),
+    getProofSummary(proofId, { id: access.user.id, role: access.role }),
     getReadiness(proofId),
     getReviewerProgress([proofId]),
     manages ? listInvitations(proofId) : Promise.resolve([]),

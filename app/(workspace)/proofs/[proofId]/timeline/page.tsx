@@ -5,6 +5,7 @@ import { requireProofRole } from "@/lib/session";
 import { AppError } from "@/lib/errors";
 import { getProofSummary } from "@/lib/data/proofs";
 import { listProofEvents } from "@/lib/data/audit";
+import { refereeLens } from "@/lib/data/blind";
 import { AuditTimeline } from "@/components/review/audit-timeline";
 
 export const metadata: Metadata = { title: "Timeline" };
@@ -15,7 +16,7 @@ export default async function TimelinePage({ params }: { params: Promise<{ proof
   if (!Number.isInteger(proofId) || proofId <= 0) notFound();
   const access = await requireProofRole(proofId).catch((e) => (e instanceof AppError && (e.status === 403 || e.status === 404) ? null : Promise.reject(e)));
   if (!access) notFound();
-  const [proof, events] = await Promise.all([getProofSummary(proofId), listProofEvents(proofId)]);
+  const [proof, events] = await Promise.all([getProofSummary(proofId, { id: access.user.id, role: access.role }), refereeLens(proofId, { id: access.user.id, role: access.role }).then((lens) => listProofEvents(proofId, 500, lens))]);
   if (!proof) notFound();
   return (
     <main className="max-w-prose space-y-6">

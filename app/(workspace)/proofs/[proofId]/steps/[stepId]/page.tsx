@@ -25,7 +25,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   await orNotFound(requireStepAccess(proofId, Number.isInteger(stepId) ? stepId : 0).catch((e) => {
     throw e instanceof AppError && e.status === 403 ? notFoundError("This step") : e;
   }));
-  const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
+  const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
   const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
   const isAuthor = role === "author";
   return (
