@@ -1,14 +1,15 @@
 import type { ClaimStatus } from "@/models/claim";
 import { Mark } from "@/components/ui/mark";
 
-const look: Record<ClaimStatus, { glyph: string; tone: string }> = {
-  verified: { glyph: "✓", tone: "text-verified" },
-  refuted: { glyph: "✕", tone: "text-refuted" },
-  undecided: { glyph: "?", tone: "text-undecided" },
-  pending: { glyph: "◌", tone: "text-stone-500" },
+const look: Record<ClaimStatus, { glyph: string; className: string }> = {
+  verified: { glyph: "✓", className: "text-verified" },
+  refuted: { glyph: "✗", className: "text-refuted" },
+  undecided: { glyph: "?", className: "text-undecided" },
+  pending: { glyph: "◌", className: "text-stone-600" },
 };
 
-/** A claim's verdict: a shape and the word in small capitals (never colour alone). */
+/** A claim's verdict with a glyph and the word (never colour alone). */
 export function VerdictBadge({ status }: { status: ClaimStatus }) {
-  return <Mark {...look[status]} word={status} data={{ "data-verdict": status }} pulse={status === "pending"} />;
+  const l = look[status];
+  return <Mark glyph={l.glyph} word={status} tone={l.className} data={{ "data-verdict": status }} pulse={status === "pending"} />;
 }

@@ -1,16 +1,16 @@
 import type { CaseState } from "@/lib/review/states";
 import { Mark } from "@/components/ui/mark";
 
-/** Each state has its own shape; no progression of one shape from grey to green. */
-const look: Record<CaseState, { glyph: string; tone: string }> = {
-  drafting: { glyph: "¶", tone: "text-stone-500" },
-  "claim failing": { glyph: "✕", tone: "text-refuted" },
-  "under review": { glyph: "◇", tone: "text-lichen-700" },
-  disputed: { glyph: "△", tone: "text-undecided" },
-  settled: { glyph: "◆", tone: "text-verified" },
+const look: Record<CaseState, { glyph: string; className: string }> = {
+  drafting: { glyph: "✎", className: "text-stone-600" },
+  "claim failing": { glyph: "✗", className: "text-refuted" },
+  "under review": { glyph: "◐", className: "text-lichen-700" },
+  disputed: { glyph: "⚑", className: "text-undecided" },
+  settled: { glyph: "●", className: "text-verified" },
 };
 
-/** A case's derived state: a shape and the word in small capitals. */
+/** A case's derived state with a glyph and the word. */
 export function CaseStateBadge({ state }: { state: CaseState }) {
-  return <Mark {...look[state]} word={state} data={{ "data-case-state": state }} />;
+  const l = look[state];
+  return <Mark glyph={l.glyph} word={state} tone={l.className} data={{ "data-case-state": state }} />;
 }

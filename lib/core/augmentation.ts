@@ -10,7 +10,8 @@
  * leaves it connected (a leaf of a spanning tree); call such vertices eligible (for a tree: its
  * leaves). The canonical parent of H is H − m(H), where m(H) is chosen among the eligible vertices
  * invariantly: first by the invariant f(v) = (weighted degree, Σ over neighbours u of A_vu·(weighted
- * degree of u)) taken smallest, then by the largest position in the canonical labelling
+ * degree of u)) taken smallest, then by the first cell of the coarsest equitable partition, then by the
+ * largest position in the canonical labelling
  * (canonical-label.ts). A child H = G + x of G (x joined to the vertex multiset S, with loop weight
  * l) is kept exactly when x lies in the Aut(H)-orbit of m(H); children are formed from one S per
  * Aut(G)-orbit. McKay's theorem: every isomorphism class is then output exactly once, provided each
@@ -35,7 +36,7 @@ import { Graph, makeGraph } from "./graph";
 import { Budget } from "./verdict";
 import { Bound, compareToBound, enclose } from "./bound";
 import { Rational, rat } from "./rational";
-import { canonicalLabelling } from "./canonical-label";
+import { canonicalLabelling, equitableCells } from "./canonical-label";
 import { spectralRadiusSign } from "./inertia";
 
 export type EnumerationSetting =
@@ -354,11 +355,20 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     }
     if (!spectralOk(W, n)) return false;
     if (ties.length === 0) return true;
+    // Among the tied eligible vertices, those in the first cell of the equitable partition (an
+    // invariant, coarser than the orbits) — then the largest canonical position.
+    const D = dense(W, n);
+    const cell = equitableCells(n, D, budget);
+    let first = cell[x];
+    for (const v of ties) if (cell[v] < first) first = cell[v];
+    if (cell[x] !== first) { stats.invariantRejected++; return false; }
+    const rivals = ties.filter((v) => cell[v] === first);
+    if (rivals.length === 0) return true;
     stats.labellings++;
-    const lab = canonicalLabelling(n, dense(W, n), budget);
+    const lab = canonicalLabelling(n, D, budget);
     node.gens = lab.generators;
     let m = x;
-    for (const v of ties) if (lab.position[v] > lab.position[m]) m = v;
+    for (const v of rivals) if (lab.position[v] > lab.position[m]) m = v;
     return lab.orbit[m] === lab.orbit[x];
   };
 

@@ -67,6 +67,20 @@ export function orbitsOf(n: number, gens: readonly Int32Array[]): Int32Array {
 
 /** Canonical labelling of the weighted graph W (n×n, symmetric, non-negative integers). */
 export function canonicalLabelling(n: number, W: ArrayLike<number>, budget?: Budget): CanonicalLabelling {
+  return labelling(n, W, budget, false) as CanonicalLabelling;
+}
+
+/**
+ * The cell of each vertex in the coarsest equitable partition (by loop weight first; colour
+ * refinement), named by the cell's start position in the refined ordered partition. The same
+ * refinement as the root of canonicalLabelling, hence invariant: isomorphic graphs get the same
+ * cells in the same positions, and vertices in one orbit share a cell.
+ */
+export function equitableCells(n: number, W: ArrayLike<number>, budget?: Budget): Int32Array {
+  return labelling(n, W, budget, true) as Int32Array;
+}
+
+function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, rootOnly: boolean): CanonicalLabelling | Int32Array {
   // Neighbour lists with weights (the diagonal is handled by the initial partition).
   const nbr: number[][] = [], nwt: number[][] = [];
   for (let v = 0; v < n; v++) {
@@ -147,6 +161,7 @@ export function canonicalLabelling(n: number, W: ArrayLike<number>, budget?: Bud
     for (let i = s; i < e; i++) root.cellOf[root.lab[i]] = s;
   }
   if (n > 0) refine(root, queue0);
+  if (rootOnly) return root.cellOf;
 
   const keyOf = (lab: Int32Array): Int32Array => {
     const k = new Int32Array((n * (n + 1)) / 2);
