@@ -23,10 +23,14 @@ import { notify } from "./notifications";
 export const INVITATION_DAYS = 14;
 export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
-/** Editors and the proof's owner manage reviewers. */
+/**
+ * Editors and the proof's owner manage reviewers; on a blind proof only editors do, since managing them
+ * shows their names and addresses to the owner, who is an author.
+ */
 export async function assertCanManageReviewers(proofId: number, user: CurrentUser, role: ProofRole): Promise<void> {
   if (role === "editor") return;
-  const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy"] });
+  const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy", "blindReview"] });
+  if (proof?.blindReview && proof.createdBy === user.id) throw forbidden("This proof is refereed blind: only its editors manage the referees, so that their names stay hidden from the authors.");
   if (proof?.createdBy === user.id) return;
   throw forbidden("Only an editor or the proof's owner invites reviewers and changes review settings.");
 }
@@ -234,4 +238,22 @@ export async function shareWholeProof(proofId: number, reviewerId: number, actor
     await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
     await recordEvent({ proofId, actorId, action: "member.scope_shared", subjectType: "member", subjectId: reviewerId, detail: "whole proof shared" }, transaction);
   });
+}
+
+/** The editor changes a referee's cases after the invitation: exactly these cases (and what lies below them). */
+export async function setReviewerCases(proofId: number, reviewerId: number, actorId: number, caseIds: number[]): Promise<{ scope: string }> {
+  const { ProofMember, ReviewerScope } = models();
+  const numbers = await caseNumbers(proofId);
+  const chosen = [...new Set(caseIds)];
+  const foreign = chosen.filter((id) => !numbers.has(id));
+  if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
+  const scope = `case${chosen.length > 1 ? "s" : ""} ${chosen.map((id) => numbers.get(id)).sort().join(", ")}`;
+  await getSequelize().transaction(async (transaction) => {
+    const member = await ProofMember.findOne({ where: { proofId, userId: reviewerId, role: "reviewer" }, transaction });
+    if (!member) throw notFound("This reviewer");
+    await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
+    await ReviewerScope.bulkCreate(chosen.map((caseId) => ({ proofId, userId: reviewerId, caseId })), { transaction });
+    await recordEvent({ proofId, actorId, action: "member.scope_changed", subjectType: "member", subjectId: reviewerId, detail: scope }, transaction);
+  });
+  return { scope };
 }
