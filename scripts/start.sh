@@ -50,7 +50,7 @@ fi
 WORKERS="$(worker_count)"
 say "starting $WORKERS verification worker(s) (CAIRN_WORKERS sets how many; more hosts: see README)"
 for _ in $(seq 1 "$WORKERS"); do
-  node_modules/.bin/tsx scripts/worker.ts &
+  node_modules/.bin/tsx --conditions=react-server scripts/worker.ts &
   STOPS+=("kill $! 2>/dev/null")
 done
 

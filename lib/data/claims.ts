@@ -13,6 +13,8 @@ import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { lockLatest, recordVerdictInRevisions, reviseClaims, revisionClaimOf } from "@/lib/data/revisions";
 
 export { verificationSettled };
 
@@ -111,28 +113,30 @@ async function readClaimViews(stepId: number, ids: number[]): Promise<ClaimView[
  * the check itself runs in a worker process.
  */
 async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> {
-  const issues: Issue[] = [];
-  const claims: ClaimJson[] = [];
+  // Every claim is read, also after an unreadable one, so that one answer names every problem at once.
+  const found: Array<{ index: number; issue: Issue }> = [];
+  const claims: Array<ClaimJson | null> = [];
   const pathOf = (i: number, p: string) => `claims.${i}${p.replace(/^\$/, "")}`;
   for (const [i, json] of raw.entries()) {
     try {
       claims.push(validateClaim(json));
     } catch (e) {
       if (!(e instanceof ClaimError)) throw e;
-      issues.push({ path: pathOf(i, e.path), message: e.detail });
+      claims.push(null);
+      found.push({ index: i, issue: { path: pathOf(i, e.path), message: e.detail } });
     }
   }
-  if (issues.length === 0)
-    for (const [i, claim] of claims.entries()) {
-      try {
-        checkInputs(claim);
-      } catch (e) {
-        if (!(e instanceof ClaimError)) throw e;
-        issues.push({ path: pathOf(i, e.path), message: e.detail });
-      }
+  for (const [i, claim] of claims.entries()) {
+    if (!claim) continue;
+    try {
+      checkInputs(claim);
+    } catch (e) {
+      if (!(e instanceof ClaimError)) throw e;
+      found.push({ index: i, issue: { path: pathOf(i, e.path), message: e.detail } });
     }
-  if (issues.length) throw invalid("Some claims need attention; nothing was saved.", issues);
-  return claims;
+  }
+  if (found.length) throw invalid("Some claims need attention; nothing was saved.", found.sort((a, b) => a.index - b.index).map((f) => f.issue));
+  return claims as ClaimJson[];
 }
 
 /**
@@ -140,15 +144,15 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
-  const { Step, Claim, AuditEvent } = models();
+  const { Claim, AuditEvent } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
-    // Locking the step row serialises attaches to one step, so each claim takes its own place
-    // (the unique index on (step_id, position) is the backstop).
-    await Step.findByPk(stepId, { attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
+    // Locking the step row (lockLatest) serialises attaches to one step, so each claim takes its own place
+    // (the unique index on (step_id, position) is the backstop), and serialises them against vouches.
+    const latest = await lockLatest(stepId, transaction);
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
-    const out: Array<{ id: number }> = [];
+    const out: Array<{ id: number; row: ClaimRow }> = [];
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
@@ -158,10 +162,12 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         { transaction },
       );
       await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
-      out.push({ id: row.id });
+      out.push({ id: row.id, row });
     }
+    await reviseClaims(proofId, stepId, userId, transaction, latest, (set) => [...set, ...out.map((o) => revisionClaimOf(o.row))]);
     return out;
   });
+  await deliverAfterCommit();
   // Queued after the commit, so a worker never looks for a claim that is not there yet.
   for (const { id } of stored) await scheduleVerification(id, 0, userId);
   return stored.map((s) => s.id);
@@ -211,14 +217,19 @@ export async function cancelVerification(proofId: number, claimId: number, user:
   const { Claim, AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   const cancelled = await getSequelize().transaction(async (transaction) => {
+    await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.update(
       { status: "undecided", method: "cancelled", reason: `the verification was cancelled by ${user.name}; re-check to run it again`, certificate: null, checkedBy: user.id, checkedAt: new Date() },
       { where: { id: claimId, status: "pending", verifyRound: row.verifyRound }, transaction },
     );
-    if (changed === 1) await AuditEvent.create({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, { transaction });
-    return changed === 1;
+    if (changed !== 1) return false;
+    await AuditEvent.create({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, { transaction });
+    // `undecided` is a verdict like any other for the step's revisions (a vouch waits for no pending claim).
+    await recordVerdictInRevisions(claimId, user.id, transaction);
+    return true;
   });
   if (!cancelled) throw conflict("This claim is not waiting for a verdict any more; there is nothing to cancel.");
+  await deliverAfterCommit();
   // A job still waiting is removed; an active one is stopped by its worker, which watches the claim.
   await bounded(async () => (await verificationQueue().getJob(claimJobId(claimId, row.verifyRound)))?.remove()).catch(() => undefined);
   return claimView((await claimInProof(proofId, claimId)));
@@ -233,10 +244,13 @@ export async function withdrawClaim(proofId: number, claimId: number, userId: nu
   const { Claim, AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
+    const latest = await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
+    await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
     await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
   });
+  await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
 }
 

@@ -18,6 +18,8 @@ import { getSequelize } from "../db";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claim-schema";
 import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
+import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
+import { deliverAfterCommit } from "../mail/outbox";
 import { claimJobId, JOB_ATTEMPTS, MAX_STALLED, QUEUE_NAME, queueClaim, queuePrefix, redisConnection, verificationQueue, type BundleJobData, type ClaimJobData, type JobData, type JobResult } from "./queue";
 
 /** This worker's name, stored with each verdict it decides. */
@@ -27,26 +29,37 @@ const num = (name: string, fallback: number) => Number(process.env[name]) || fal
 
 type Decision = Record<string, unknown>;
 
-/** Stores a decision if the claim is still pending in this round; true when this call stored it. */
+/**
+ * Stores a decision if the claim is still pending in this round; true when this call stored it. The
+ * verdict is carried into the step's revisions in the same transaction (recordVerdictInRevisions:
+ * a first verdict fills the revision that recorded the claim pending; a changed one makes a new
+ * revision, supersedes vouches and notifies their referees), and the mail goes out after commit.
+ */
 async function decide(claimId: number, round: number, checkedBy: number, decision: Decision): Promise<boolean> {
   const { Claim, AuditEvent } = models();
-  return getSequelize().transaction(async (transaction) => {
+  const stored = await getSequelize().transaction(async (transaction) => {
+    const found = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "stepId"], transaction });
+    if (!found) return false;
+    // The step row first, as attaches, withdrawals and vouches take it, then the claim row.
+    await lockLatest(found.stepId, transaction);
     const [changed] = await Claim.unscoped().update(
       { ...decision, checkedBy, checkedAt: new Date(), decidedBy: workerName() },
       { where: { id: claimId, status: "pending", verifyRound: round }, transaction },
     );
     if (changed !== 1) return false;
-    const row = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "stepId"], transaction });
     const proof = await getSequelize().query<{ proofId: number }>(
       "SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?",
-      { replacements: [row!.stepId], type: QueryTypes.SELECT, transaction },
+      { replacements: [found.stepId], type: QueryTypes.SELECT, transaction },
     );
     await AuditEvent.create(
       { proofId: proof[0].proofId, actorId: null, action: "claim.decided", subjectType: "claim", subjectId: claimId, detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}` },
       { transaction },
     );
+    await recordVerdictInRevisions(claimId, checkedBy, transaction);
     return true;
   });
+  if (stored) await deliverAfterCommit();
+  return stored;
 }
 
 const undecided = (method: string, reason: string): Decision => ({ status: "undecided", method, reason, certificate: null });

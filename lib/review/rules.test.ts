@@ -2,15 +2,15 @@ import { describe, expect, it } from "vitest";
 import { canMoveDispute, disputeRefusal, expandScope, verdictRefusal } from "./rules";
 
 describe("dispute transitions", () => {
-  it("follow open → answered → closed or reopened", () => {
-    expect(canMoveDispute("open", "answered")).toBe(true);
-    expect(canMoveDispute("answered", "closed")).toBe(true);
-    expect(canMoveDispute("answered", "reopened")).toBe(true);
-    expect(canMoveDispute("reopened", "answered")).toBe(true);
-    expect(canMoveDispute("closed", "reopened")).toBe(true);
-    expect(canMoveDispute("closed", "answered")).toBe(false);
-    expect(canMoveDispute("open", "reopened")).toBe(false);
-    expect(canMoveDispute(null, "closed")).toBe(false);
+  it("follow raised → answered → withdrawn or upheld", () => {
+    expect(canMoveDispute("raised", "answered")).toBe(true);
+    expect(canMoveDispute("answered", "withdrawn")).toBe(true);
+    expect(canMoveDispute("answered", "upheld")).toBe(true);
+    expect(canMoveDispute("upheld", "answered")).toBe(true);
+    expect(canMoveDispute("withdrawn", "upheld")).toBe(true);
+    expect(canMoveDispute("withdrawn", "answered")).toBe(false);
+    expect(canMoveDispute("raised", "upheld")).toBe(false);
+    expect(canMoveDispute(null, "withdrawn")).toBe(false);
   });
 });
 
@@ -25,10 +25,10 @@ describe("permissions", () => {
   it("lets authors answer and the disputing reviewer or an editor close or reopen", () => {
     expect(disputeRefusal({ id: 5, role: "author" }, 1, "answered")).toBeNull();
     expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "answered")).toMatch(/authors/);
-    expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "closed")).toBeNull();
-    expect(disputeRefusal({ id: 9, role: "editor" }, 1, "reopened")).toBeNull();
-    expect(disputeRefusal({ id: 7, role: "reviewer" }, 1, "closed")).toMatch(/raised this dispute/);
-    expect(disputeRefusal({ id: 5, role: "author" }, 1, "closed")).toMatch(/raised this dispute/);
+    expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "withdrawn")).toBeNull();
+    expect(disputeRefusal({ id: 9, role: "editor" }, 1, "upheld")).toBeNull();
+    expect(disputeRefusal({ id: 7, role: "reviewer" }, 1, "withdrawn")).toMatch(/raised this dispute/);
+    expect(disputeRefusal({ id: 5, role: "author" }, 1, "withdrawn")).toMatch(/raised this dispute/);
   });
 });
 

@@ -5,13 +5,16 @@
 import type { DisputeState } from "./states";
 
 export type ProofRole = "author" | "reviewer" | "editor";
-export type DisputeTarget = "answered" | "closed" | "reopened";
+export type DisputeTarget = "answered" | "withdrawn" | "upheld";
 
-/** A dispute is open → answered (by an author) → closed (by its reviewer) or reopened. */
+/**
+ * A dispute is raised → answered (by an author) → withdrawn (its referee is satisfied) or upheld (back
+ * to the authors, who answer again). A withdrawn dispute can still be upheld if the referee thinks again.
+ */
 const transitions: Record<DisputeTarget, DisputeState[]> = {
-  answered: ["open", "reopened"],
-  closed: ["open", "answered", "reopened"],
-  reopened: ["answered", "closed"],
+  answered: ["raised", "upheld"],
+  withdrawn: ["raised", "answered", "upheld"],
+  upheld: ["answered", "withdrawn"],
 };
 
 export function canMoveDispute(from: DisputeState | null, to: DisputeTarget): boolean {
@@ -26,7 +29,7 @@ export interface Actor {
 /** Why this person may not give a verdict on this step, or null when they may. */
 export function verdictRefusal(actor: Actor, stepAuthorIds: readonly number[], inScope: boolean): string | null {
   if (actor.role !== "reviewer") return "Only invited reviewers give verdicts on steps.";
-  if (stepAuthorIds.includes(actor.id)) return "You wrote a revision of this step; an author never approves or disputes their own step.";
+  if (stepAuthorIds.includes(actor.id)) return "You wrote a revision of this step; an author never vouches for or disputes their own step.";
   if (!inScope) return "This step is in a case you were not asked to review.";
   return null;
 }
@@ -35,7 +38,7 @@ export function verdictRefusal(actor: Actor, stepAuthorIds: readonly number[], i
 export function disputeRefusal(actor: Actor, disputingReviewerId: number, to: DisputeTarget): string | null {
   if (to === "answered") return actor.role === "author" ? null : "Only the proof's authors mark a dispute as answered.";
   if (actor.id === disputingReviewerId || actor.role === "editor") return null;
-  return `Only the reviewer who raised this dispute (or an editor) can ${to === "closed" ? "close" : "reopen"} it.`;
+  return `Only the reviewer who raised this dispute (or an editor) can ${to === "withdrawn" ? "withdraw" : "uphold"} it.`;
 }
 
 /** Whole proof (null) or the given cases and everything below them. */

@@ -20,6 +20,7 @@ import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
+import { parseClaimSet } from "@/lib/review/revisions";
 import { startTestWorker, type TestWorker } from "../support/workers";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
@@ -71,6 +72,12 @@ async function until<T>(what: string, probe: () => Promise<T | null | undefined 
     await new Promise((r) => setTimeout(r, 200));
   }
 }
+/** The claim's status as the step's latest revision records it (what a vouch would cover). */
+const inLatestRevision = async (claimId: number) => {
+  const r = await models().StepRevision.findOne({ where: { stepId: Number(stepId) }, order: [["number", "DESC"]] });
+  return parseClaimSet(r!.claimSet).find((c) => c.id === claimId)?.status;
+};
+
 const worker = (env: Record<string, string> = {}) => {
   const w = startTestWorker({ ...process.env, CAIRN_SWEEP_AFTER_MS: "600000", ...env }, `.data/jobs-test-worker-${workers.length}.log`);
   workers.push(w);
@@ -89,13 +96,17 @@ describe("a worker killed mid-check", () => {
     const row = await claimRow(id);
     await until("the first worker to take the job", async () => (await claimJobProgress(id, row!.verifyRound))?.state === "checking");
     expect((await claimJobProgress(id, row!.verifyRound))?.worker).toBe(firstName);
+    // Killed before the second worker starts (its start-up takes seconds on a busy host, long enough for the
+    // first to finish the check otherwise); the second takes the job over once the dead worker's lock runs out.
+    first.stop("SIGKILL");
     const second = worker(fast);
     const secondName = await nameOf(second);
-    first.stop("SIGKILL");
     await verificationSettled(id);
     const decided = await claimRow(id);
     expect(decided).toMatchObject({ status: "refuted", decidedBy: secondName, checkerVersion: expect.stringMatching(/^cairn-check\//) });
     expect(await decisions(id)).toBe(1);
+    // The worker carried the verdict into the step's revision (which recorded the claim pending).
+    expect(await inLatestRevision(id)).toBe("refuted");
     expect(first.output.join("\n")).not.toMatch(new RegExp(`claim ${id} decided`));
     expect(second.output.join("\n")).toMatch(new RegExp(`claim ${id} decided`));
   }, 240_000);
@@ -121,6 +132,8 @@ describe("cancel", () => {
     await until("the worker to stop the check", async () => w.output.some((l) => l.includes(`claim ${id} no longer pending`)));
     expect(await claimRow(id)).toMatchObject({ status: "undecided", method: "cancelled" });
     expect(await decisions(id)).toBe(0);
+    // A cancelled check is `undecided` in the step's revision too, so a vouch does not wait for it.
+    expect(await inLatestRevision(id)).toBe("undecided");
     expect((await cancel()).status).toBe(409);
   }, 120_000);
 });

@@ -17,7 +17,7 @@ export interface TestWorker {
 /** Starts `scripts/worker.ts` with this environment (DATABASE_URL, REDIS_URL, CAIRN_QUEUE_PREFIX, …). */
 export function startTestWorker(env: NodeJS.ProcessEnv, logFile?: string): TestWorker {
   if (!env.REDIS_URL) throw new Error("The tests need Redis; run them through `npm test`, which starts one and sets REDIS_URL.");
-  const child = spawn("node_modules/.bin/tsx", ["scripts/worker.ts"], { env, detached: true, stdio: ["ignore", "pipe", "pipe"] });
+  const child = spawn("node_modules/.bin/tsx", ["--conditions=react-server", "scripts/worker.ts"], { env, detached: true, stdio: ["ignore", "pipe", "pipe"] });
   const output: string[] = [];
   const log = logFile ? createWriteStream(logFile, { flags: "a" }) : null;
   let onReady: () => void = () => undefined;
