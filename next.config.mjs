@@ -8,6 +8,16 @@ const nextConfig = {
   // Type checking runs once, over the whole project (tests and scripts included), as `npm run typecheck`
   // inside `npm test`; the build does not repeat it.
   typescript: { ignoreBuildErrors: true },
+  // forbidden() (HTTP 403 with app/forbidden.tsx) for a member whose standing refuses a page.
+  experimental: { authInterrupts: true },
+  // Static files too: no MIME sniffing, no framing (pages get their CSP with a nonce from proxy.ts).
+  async headers() {
+    return [{ source: "/:path*", headers: [
+      { key: "X-Content-Type-Options", value: "nosniff" },
+      { key: "X-Frame-Options", value: "DENY" },
+      { key: "Referrer-Policy", value: "same-origin" },
+    ] }];
+  },
 };
 
 export default nextConfig;

@@ -3,9 +3,11 @@ import "server-only";
 import { models } from "@/models";
 import type { DisputeState } from "@/models/review";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
-import { canMoveDispute, disputeRefusal, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
+import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
+import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";
 import { stepStatus, type StepStatus } from "@/lib/review/states";
-import { canSeeStep, claimStatuses, type StepRef } from "./reviews";
+import { claimStatuses, type StepRef } from "./reviews";
+import { canSeeStep } from "@/lib/access";
 
 export interface CommentNode {
   id: number;

@@ -1,10 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requireProofRole } from "@/lib/session";
-import { AppError } from "@/lib/errors";
 import { getProofSummary } from "@/lib/data/proofs";
-import { assertCanManageReviewers, listInvitations } from "@/lib/data/invitations";
+import { listInvitations } from "@/lib/data/invitations";
 import { getReadiness, getReviewerProgress } from "@/lib/data/review-queues";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { RoleTag } from "@/components/ui/role-tag";
@@ -14,19 +12,18 @@ import { RequiredApprovalsForm } from "@/components/review/required-approvals-fo
 import { ReadinessRollup } from "@/components/review/readiness-rollup";
 import { QueueTable } from "@/components/review/queue-table";
 import { ActionButton } from "@/components/review/action-button";
+import { pageAccess } from "@/app/(workspace)/page-access";
+import { may } from "@/lib/access";
 
 export const metadata: Metadata = { title: "Members and reviewers" };
 
 export default async function MembersPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const proofId = Number((await params).proofId);
-  if (!Number.isInteger(proofId) || proofId <= 0) notFound();
-  const access = await requireProofRole(proofId).catch((e) => (e instanceof AppError && (e.status === 403 || e.status === 404) ? null : Promise.reject(e)));
-  if (!access) notFound();
-  const manages = await assertCanManageReviewers(proofId, access.user, access.role).then(() => true, () => false);
+  const { proofId, standing, visible } = await pageAccess((await params).proofId);
+  const manages = may(standing, "reviewers.manage");
   if (manages) await deliverAfterCommit(); // messages whose retry is due go out now
   const [proof, readiness, progress, invitations] = await Promise.all([
     getProofSummary(proofId),
-    getReadiness(proofId),
+    getReadiness(proofId, visible), // a reviewer of chosen cases sees the readiness of those cases only
     getReviewerProgress([proofId]),
     manages ? listInvitations(proofId) : Promise.resolve([]),
   ]);
