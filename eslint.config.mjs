@@ -2,6 +2,8 @@
 // domain modules beside it) never imports the framework or the database, so the server, the worker
 // pool and the offline checker share one implementation.
 import tseslint from "typescript-eslint";
+import reactHooks from "eslint-plugin-react-hooks";
+import nextPlugin from "@next/eslint-plugin-next";
 
 const frameworkAndDatabase = {
   patterns: [
@@ -19,6 +21,17 @@ export default tseslint.config(
     languageOptions: { parser: tseslint.parser },
     plugins: { "@typescript-eslint": tseslint.plugin },
     rules: { "no-debugger": "error", "no-var": "error", "prefer-const": "error" },
+  },
+  {
+    // The rules of hooks and the framework's own rules (links, images, scripts, fonts).
+    files: ["app/**/*.{ts,tsx}", "components/**/*.{ts,tsx}"],
+    plugins: { "react-hooks": reactHooks, "@next/next": nextPlugin },
+    rules: {
+      "react-hooks/rules-of-hooks": "error",
+      "react-hooks/exhaustive-deps": "error",
+      ...nextPlugin.configs.recommended.rules,
+      ...nextPlugin.configs["core-web-vitals"].rules,
+    },
   },
   {
     files: ["lib/core/**/*.ts", "lib/proof-tree.ts", "lib/review/**/*.ts"],

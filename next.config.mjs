@@ -5,9 +5,7 @@ const nextConfig = {
   poweredByHeader: false,
   // Lets several test runs build side by side on one machine (default ".next").
   distDir: process.env.CAIRN_DIST_DIR || ".next",
-  // Type checking runs once, over the whole project (tests and scripts included), as `npm run typecheck`
-  // inside `npm test`; the build does not repeat it.
-  typescript: { ignoreBuildErrors: true },
+  // Type errors fail the build (and `npm test` also runs `tsc --noEmit` over tests and scripts).
   // forbidden() (HTTP 403 with app/forbidden.tsx) for a member whose standing refuses a page.
   experimental: { authInterrupts: true },
   // Static files too: no MIME sniffing, no framing (pages get their CSP with a nonce from proxy.ts).

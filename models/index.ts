@@ -19,9 +19,15 @@ import { DisputeTransition } from "./dispute-transition";
 import { Notification } from "./notification";
 import { NotificationPreference } from "./notification-preference";
 import { ProofExport } from "./proof-export";
+import { ReviewRound } from "./review-round";
+import { RoundReferee } from "./round-referee";
+import { RefereeReport } from "./referee-report";
+import { RoundDecision } from "./round-decision";
+import { RoundReminder } from "./round-reminder";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport };
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -59,4 +65,5 @@ export function models() {
 }
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport };
+  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };

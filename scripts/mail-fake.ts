@@ -8,8 +8,9 @@ import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { SMTPServer } from "smtp-server";
 import { mailStorePath, parseRawMail } from "../lib/mail/store";
+import { readEnv } from "../lib/env";
 
-const port = Number(process.env.CAIRN_SMTP_PORT ?? 2525);
+const port = readEnv().CAIRN_SMTP_PORT;
 const file = mailStorePath();
 mkdirSync(path.dirname(file), { recursive: true });
 

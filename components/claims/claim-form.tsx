@@ -4,7 +4,7 @@ import { useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
-import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
+import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES } from "@/lib/core/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
 
@@ -91,10 +91,16 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       )}
       {enumeration && (
         <>
-          <FormField label="N, the largest number of vertices" hint="at most 12" error={err("maxVertices")}>
+          <FormField label="N, the largest number of vertices" hint={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`} error={err("maxVertices")}>
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <FormField label="The graphs, all of them" hint="connected simple graphs, separated by a line ---; e.g. A(5) --- D(5)" error={err("patternText")}>
+          <FormField label="Which graphs" error={err("enumerationSetting")}>
+            <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
+              <option value="simple">connected simple graphs</option>
+              <option value="tree">trees</option>
+            </select>
+          </FormField>
+          <FormField label="The graphs, all of them" hint="connected simple graphs (or trees), separated by a line ---; e.g. A(5) --- D(5)" error={err("patternText")}>
             <div className="flex gap-2">
               <FormatSelect name="patternFormat" register={register} />
               <textarea {...register("patternText")} rows={4} className={input} aria-label="listed graphs" />

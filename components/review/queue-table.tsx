@@ -14,7 +14,7 @@ import {
 import type { QueueDisputeRow, QueueStepRow, ReviewerProgress } from "@/lib/data/review-queues";
 import { DisputeStateBadge } from "./badges";
 
-type Kind = "steps" | "disputes" | "progress";
+type Kind = "steps" | "disputes" | "progress" | "myDisputes";
 type Row = QueueStepRow | QueueDisputeRow | ReviewerProgress;
 
 const day = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" });
@@ -47,6 +47,7 @@ const columns: Record<Kind, ColumnDef<Row>[]> = {
     { id: "revision", header: "Revision", accessorFn: (r) => (r as QueueDisputeRow).revision },
     { id: "since", header: "Since", accessorFn: (r) => (r as QueueDisputeRow).since, cell: (c) => day(String(c.getValue())) },
   ],
+  myDisputes: [],
   progress: [
     { id: "reviewer", header: "Reviewer", accessorFn: (r) => (r as ReviewerProgress).reviewerName },
     { id: "proof", header: "Proof", accessorFn: (r) => (r as ReviewerProgress).proofTitle, filterFn: "equalsString" },
@@ -58,7 +59,9 @@ const columns: Record<Kind, ColumnDef<Row>[]> = {
     { id: "waiting", header: "Waiting", accessorFn: (r) => (r as ReviewerProgress).waiting },
   ],
 };
-const facet: Record<Kind, string> = { steps: "reason", disputes: "state", progress: "proof" };
+// A referee's own disputes: the reviewer column would only repeat their own name.
+columns.myDisputes = columns.disputes.filter((c) => c.id !== "reviewer");
+const facet: Record<Kind, string> = { steps: "reason", disputes: "state", myDisputes: "state", progress: "proof" };
 
 export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Row[]; empty: string; testId: string }) {
   const [sorting, setSorting] = useState<SortingState>([]);

@@ -111,18 +111,25 @@ export interface StructureClaim extends ClaimCommon {
 }
 
 /**
- * The connected simple graphs on at most `maxVertices` vertices with ρ(G) op b are, up to
- * isomorphism, exactly `graphs` (op is "<" or "<=": families closed under removing a vertex).
+ * The connected simple graphs (or, with setting "tree", the trees) on at most `maxVertices` vertices
+ * with ρ(G) op b are, up to isomorphism, exactly `graphs` (op is "<" or "<=": families closed under
+ * removing a vertex).
  */
 export interface EnumerationClaim extends ClaimCommon {
   readonly kind: "enumeration";
   readonly maxVertices: number;
+  /** "simple" (the default) or "tree". */
+  readonly setting?: EnumerationSetting;
   readonly op: "<" | "<=";
   readonly bound: string;
   readonly graphs: readonly GraphInput[];
 }
 
 export const ENUMERATION_RELATIONS = ["<", "<="] as const;
+export const ENUMERATION_SETTINGS = ["simple", "tree"] as const;
+export type EnumerationSetting = (typeof ENUMERATION_SETTINGS)[number];
+/** Largest N an enumeration claim may name; the time budget decides what is reached within it. */
+export const ENUMERATION_MAX_VERTICES = 20;
 
 export const DEGREE_RELATIONS = ["<=", "=", ">="] as const;
 export type DegreeRelation = (typeof DEGREE_RELATIONS)[number];
@@ -220,7 +227,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   "characteristic-polynomial": ["graph", "coefficients"],
   eigenvalues: ["graph", "h", "multiset"],
   structure: ["graph", "predicate", "parameter", "relation"],
-  enumeration: ["maxVertices", "op", "bound", "graphs"],
+  enumeration: ["maxVertices", "setting", "op", "bound", "graphs"],
 };
 
 /**
@@ -291,11 +298,12 @@ export function validateClaim(json: unknown, path = "$"): Claim {
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };
     case "enumeration": {
       const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
-      if (maxVertices > 12) throw new ClaimError(`${path}.maxVertices`, `at most 12 vertices can be enumerated here (got ${maxVertices})`);
+      if (maxVertices > ENUMERATION_MAX_VERTICES) throw new ClaimError(`${path}.maxVertices`, `at most ${ENUMERATION_MAX_VERTICES} vertices can be enumerated here (got ${maxVertices})`);
       const graphs = array(o.graphs, `${path}.graphs`);
       if (graphs.length > 500) throw new ClaimError(`${path}.graphs`, `at most 500 graphs can be listed (got ${graphs.length})`);
       return {
         ...common, kind, maxVertices,
+        ...(o.setting !== undefined ? { setting: oneOf(o.setting, ENUMERATION_SETTINGS, `${path}.setting`) } : {}),
         op: oneOf(o.op, ENUMERATION_RELATIONS, `${path}.op`),
         bound: boundText(o.bound, `${path}.bound`),
         graphs: graphs.map((g, i) => validateGraphInput(g, `${path}.graphs[${i}]`)),

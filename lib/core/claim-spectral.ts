@@ -160,12 +160,12 @@ export const VECTOR_HANDLER: ClaimHandler<VectorCertificateClaim> = {
 
 /** "These are all the connected graphs on at most N vertices with ρ op b": exhaustive enumeration. */
 export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
-  statement: (c) => enumerationStatement(c.maxVertices, c.op, c.bound, c.graphs.length),
+  statement: (c) => enumerationStatement(c.maxVertices, c.op, c.bound, c.graphs.length, c.setting),
   limit: (c, inputs) => {
     const listed = inputs.patterns ?? [];
     const big = listed.findIndex((g) => g.n > 200 || g.edges.length > 2_000);
     return big >= 0 ? `listed graph ${big + 1} is far larger than any graph enumerated (${c.maxVertices} vertices at most)` : undefined;
   },
-  verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget),
-  recheck: (c, inputs, outcome, evidence, budget) => recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget),
+  verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, c.setting),
+  recheck: (c, inputs, outcome, evidence, budget) => recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, c.setting),
 };

@@ -60,4 +60,22 @@ describe("enumeration of connected graphs with small spectral radius", () => {
     const twice = checkEnumeration(7, "<", "2", graphs([...dynkinUpTo7, "path(4)"]), budget());
     expect(twice.reason).toMatch(/listed graphs 4 and 14 are isomorphic/);
   });
+
+  it("refutes a list of trees with ρ < 2 up to 20 vertices that leaves out E8, naming it", () => {
+    // Smith's list (Brouwer & Haemers Thm 3.1.3): the trees with ρ < 2 on at most 20 vertices are A_1..A_20,
+    // D_4..D_20, E6, E7, E8 — 39 trees.
+    const names = [
+      ...Array.from({ length: 20 }, (_, i) => `A(${i + 1})`), ...Array.from({ length: 17 }, (_, i) => `D(${i + 4})`), "E(6)", "E(7)", "E(8)",
+    ];
+    const full = checkEnumeration(20, "<", "2", graphs(names), budget(), "tree");
+    expect(full.status).toBe("verified");
+    expect(full.statement).toMatch(/^the trees on at most 20 vertices/);
+    expect(recheckEnumeration(20, "<", "2", graphs(names), "verified", full.certificate, budget(), "tree").status).toBe("verified");
+    const missing = checkEnumeration(20, "<", "2", graphs(names.filter((t) => t !== "E(8)")), budget(), "tree");
+    expect(missing.status).toBe("refuted");
+    const g6 = /a graph on 8 vertices \(graph6 (\S+)\) with ρ < 2 is not listed/.exec(missing.reason)![1];
+    expect(isomorphic(parseGraph6(g6), parseGraph("E(8)", "named"), budget())).toBe(true);
+    // A cycle is not a tree.
+    expect(checkEnumeration(6, "<=", "2", graphs(["cycle(5)"]), budget(), "tree").reason).toMatch(/listed graph 1 has a cycle; this claim is about trees/);
+  });
 });

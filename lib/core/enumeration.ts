@@ -1,32 +1,31 @@
 /**
- * "These are all the connected graphs on at most N vertices with ρ(G) < b (or ≤ b)": an exhaustive,
- * exact enumeration, and the comparison of its result with a stated list.
+ * "These are all the connected graphs (or trees) on at most N vertices with ρ(G) < b (or ≤ b)": an
+ * exhaustive, exact enumeration, and the comparison of its result with a stated list.
  *
- * Completeness. Let F_k be the connected simple graphs on k vertices with ρ op b, op ∈ {<, ≤}. Every
+ * Completeness. Let F_k be the connected graphs on k vertices with ρ op b, op ∈ {<, ≤}. Every
  * connected H on k + 1 vertices has a vertex v whose removal leaves H − v connected (a leaf of a
  * spanning tree), and ρ(H − v) ≤ ρ(H) (Perron–Frobenius: ρ does not decrease when a graph grows; or
- * Cauchy interlacing), so H − v ∈ F_k when H ∈ F_{k+1}. Hence every member of F_{k+1} arises from a
- * member of F_k by adding one vertex joined to a non-empty set S of its vertices; we try every such
- * extension, keep those whose exact verdict "ρ op b" is verified, and keep one graph per isomorphism
- * class. Extensions creating a vertex of degree d with √d > b are skipped without a check, since
- * ρ(G) ≥ ρ(K_{1,d}) = √d (Brouwer & Haemers §1.4.2 and monotonicity).
- *
- * Isomorphism is decided exactly: equal vertex and edge counts and degree sequences, then an induced
- * embedding found by the exhaustive search of subgraph-search.ts (an induced embedding between graphs
- * of equal order is an isomorphism).
+ * Cauchy interlacing), so H − v ∈ F_k when H ∈ F_{k+1}. The generation (augmentation.ts) is McKay's
+ * canonical augmentation (B. D. McKay, "Isomorph-free exhaustive generation", J. Algorithms 26
+ * (1998)): each class is produced exactly once from its canonical parent, every kept graph's verdict
+ * "ρ op b" is exact (bounds that are theorems, an exact integer vector, or exact inertia), and
+ * graphs are compared up to isomorphism by canonical labelling (canonical-label.ts).
  */
-import { Graph, makeGraph } from "./graph";
+import { Graph, isSimple } from "./graph";
 import { Budget, Verdict, withinBudget } from "./verdict";
-import { Bound, boundApprox, parseBound } from "./bound";
-import { spectralRadiusBound } from "./inertia";
-import { searchEmbedding } from "./subgraph-search";
+import { Bound, parseBound } from "./bound";
 import { parseGraph6, writeGraph6 } from "./graph6";
 import { isConnected } from "./structure";
+import { isForest } from "./tree-inertia";
+import { canonicalKeyOf } from "./canonical-label";
+import { ENUMERATION_MAX_VERTICES, type EnumerationSetting as ClaimEnumerationSetting } from "./claim-schema";
+import { EnumerationSetting, GENERATION_MAX_VERTICES, GenerationStatistics, SIMPLE, generateConnected } from "./augmentation";
 
 export type EnumerationRelation = "<" | "<=";
 
-/** Largest N accepted: the candidates grow like 2^N per graph kept. */
-export const ENUMERATION_MAX_VERTICES = 12;
+/** The settings an enumeration claim can name (its graphs are written in graph6). */
+type ClaimSetting = ClaimEnumerationSetting;
+export { ENUMERATION_MAX_VERTICES };
 
 export interface EnumerationCertificate {
   kind: "enumeration";
@@ -36,66 +35,33 @@ export interface EnumerationCertificate {
   graph6: string[];
 }
 
-const degreeSequence = (g: Graph): number[] => {
-  const d = new Array<number>(g.n).fill(0);
-  for (const e of g.edges) {
-    d[e.u] += e.m;
-    d[e.v] += e.m;
-  }
-  return d.sort((a, b) => a - b);
-};
-
-const edgeTotal = (g: Graph) => g.edges.reduce((s, e) => s + e.m, 0);
-
-/** Exact isomorphism test for small graphs. */
-export function isomorphic(a: Graph, b: Graph, budget: Budget): boolean {
-  if (a.n !== b.n || edgeTotal(a) !== edgeTotal(b)) return false;
-  const da = degreeSequence(a), db = degreeSequence(b);
-  if (da.some((x, i) => x !== db[i])) return false;
-  return searchEmbedding(a, b, true, budget).embedding !== null;
+/** Exact isomorphism test (canonical labelling; loops and multiplicities count). */
+export function isomorphic(a: Graph, b: Graph, budget?: Budget): boolean {
+  if (a.n !== b.n || a.edges.length !== b.edges.length) return false;
+  return canonicalKeyOf(a, budget) === canonicalKeyOf(b, budget);
 }
 
-/** Whether a graph is simple: no loops, no multiple edges. */
-const isSimple = (g: Graph) => g.edges.every((e) => e.u !== e.v && e.m === 1);
+const settingOf = (s: ClaimSetting | EnumerationSetting | undefined): EnumerationSetting =>
+  s === undefined || s === "simple" ? SIMPLE : s === "tree" ? { kind: "tree" } : s;
 
-/** All connected simple graphs on 1..maxVertices vertices with ρ op b, one per isomorphism class, by order. */
-export function enumerateConnected(maxVertices: number, op: EnumerationRelation, b: Bound, budget: Budget): { levels: Graph[][]; checked: number } {
-  const approx = boundApprox(b);
-  // A vertex of degree d forces ρ ≥ √d: skip d > b² (with a margin far above the approximation's error).
-  const degreeLimit = (d: number) => d > approx * approx + 1e-6;
-  const holds = (g: Graph) => spectralRadiusBound(g, op, b, budget).status === "verified";
-  let checked = 1;
-  const one = makeGraph(1, []);
-  const levels: Graph[][] = [holds(one) ? [one] : []];
-  for (let k = 1; k < maxVertices; k++) {
-    const next: Graph[] = [];
-    for (const g of levels[k - 1]) {
-      const deg = new Array<number>(k).fill(0);
-      for (const e of g.edges) {
-        deg[e.u]++;
-        deg[e.v]++;
-      }
-      for (let mask = 1; mask < 1 << k; mask++) {
-        budget.tick();
-        const s: number[] = [];
-        for (let v = 0; v < k; v++) if (mask & (1 << v)) s.push(v);
-        if (degreeLimit(s.length) || s.some((v) => degreeLimit(deg[v] + 1))) continue;
-        const h = makeGraph(k + 1, [...g.edges.map((e) => ({ u: e.u, v: e.v })), ...s.map((v) => ({ u: v, v: k }))]);
-        if (next.some((x) => isomorphic(x, h, budget))) continue;
-        checked++;
-        if (holds(h)) next.push(h);
-      }
-    }
-    levels.push(next);
-  }
-  return { levels, checked };
+/**
+ * All connected graphs of the setting on 1..maxVertices vertices with ρ op b, one per isomorphism
+ * class, by order; `part` selects one of several independent parts (see augmentation.ts).
+ */
+export function enumerateConnected(
+  maxVertices: number, op: EnumerationRelation, b: Bound, budget: Budget,
+  options: { setting?: ClaimSetting | EnumerationSetting; part?: { index: number; of: number } } = {},
+): { levels: Graph[][]; checked: number; stats: GenerationStatistics } {
+  if (maxVertices > GENERATION_MAX_VERTICES) throw new RangeError(`at most ${GENERATION_MAX_VERTICES} vertices can be enumerated`);
+  const r = generateConnected({ maxVertices, setting: settingOf(options.setting), spectral: { op, bound: b }, part: options.part, budget });
+  return { levels: r.levels, checked: r.stats.rowSum + r.stats.vector + r.stats.elimination, stats: r.stats };
 }
 
 const SYMBOL: Record<EnumerationRelation, string> = { "<": "<", "<=": "≤" };
 
-export function enumerationStatement(maxVertices: number, op: EnumerationRelation, b: Bound | string, listed: number): string {
+export function enumerationStatement(maxVertices: number, op: EnumerationRelation, b: Bound | string, listed: number, setting: ClaimSetting = "simple"): string {
   const text = typeof b === "string" ? b : b.text;
-  return `the connected simple graphs on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
+  return `the ${setting === "tree" ? "trees" : "connected simple graphs"} on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
 }
 
 /**
@@ -103,22 +69,24 @@ export function enumerationStatement(maxVertices: number, op: EnumerationRelatio
  * most `maxVertices` vertices with ρ op b. A refutation names the first listed graph that does not
  * belong, a repeated class, or a missing graph (in graph6).
  */
-export function checkEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], budget: Budget = new Budget()): Verdict<EnumerationCertificate> {
+export function checkEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], budget: Budget = new Budget(), setting: ClaimSetting = "simple"): Verdict<EnumerationCertificate> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
-  const statement = enumerationStatement(maxVertices, op, b, listed.length);
-  const method = "exhaustive enumeration by one-vertex extensions with exact ρ verdicts (complete by Perron–Frobenius monotonicity)";
+  const statement = enumerationStatement(maxVertices, op, b, listed.length, setting);
+  const method = "exhaustive enumeration by canonical augmentation (McKay 1998) with exact ρ verdicts (complete by Perron–Frobenius monotonicity)";
   return withinBudget(statement, method, budget, () => {
-    const { levels, checked } = enumerateConnected(maxVertices, op, b, budget);
+    const { levels, checked } = enumerateConnected(maxVertices, op, b, budget, { setting });
     const found = levels.flat();
     const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map((g) => writeGraph6(g)) };
     const summary = `${found.length} graph(s) found (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
     const refuted = (reason: string): Verdict<EnumerationCertificate> => ({ status: "refuted", statement, method, reason: `${reason}; the enumeration found ${summary}.`, certificate });
     const matched = new Array<number>(found.length).fill(-1);
+    const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
     for (const [i, g] of listed.entries()) {
       if (g.n > maxVertices) return refuted(`listed graph ${i + 1} has ${g.n} vertices, more than ${maxVertices}`);
       if (!isSimple(g)) return refuted(`listed graph ${i + 1} has a loop or a multiple edge; this claim is about simple graphs`);
       if (isConnected(g, budget).status !== "verified") return refuted(`listed graph ${i + 1} is not connected`);
-      const j = found.findIndex((f) => isomorphic(f, g, budget));
+      if (setting === "tree" && !isForest(g)) return refuted(`listed graph ${i + 1} has a cycle; this claim is about trees`);
+      const j = index.get(canonicalKeyOf(g, budget)) ?? -1;
       if (j < 0) return refuted(`listed graph ${i + 1} (${writeGraph6(g)}) does not have ρ ${SYMBOL[op]} ${b.text}`);
       if (matched[j] >= 0) return refuted(`listed graphs ${matched[j] + 1} and ${i + 1} are isomorphic`);
       matched[j] = i;
@@ -134,8 +102,8 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
 }
 
 /** Re-runs the enumeration and compares it with the certificate's counts and graphs, then the outcome. */
-export function recheckEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], outcome: "verified" | "refuted", evidence: unknown, budget: Budget = new Budget()): Verdict<undefined> {
-  const again = checkEnumeration(maxVertices, op, bound, listed, budget);
+export function recheckEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], outcome: "verified" | "refuted", evidence: unknown, budget: Budget = new Budget(), setting: ClaimSetting = "simple"): Verdict<undefined> {
+  const again = checkEnumeration(maxVertices, op, bound, listed, budget, setting);
   const statement = `${again.statement} is ${outcome}`;
   const method = "certificate re-check (the enumeration repeated)";
   const e = typeof evidence === "object" && evidence !== null ? (evidence as Partial<EnumerationCertificate>) : {};
@@ -146,8 +114,11 @@ export function recheckEnumeration(maxVertices: number, op: EnumerationRelation,
   if (JSON.stringify(e.counts) !== JSON.stringify(cert.counts)) return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
   // The graphs are compared up to isomorphism, so a checker that labels or orders them differently agrees.
   if (!Array.isArray(e.graph6) || e.graph6.length !== cert.graph6.length) return fail(`certificate.graph6 must list the ${cert.graph6.length} graphs found`);
-  const found = cert.graph6.map((t) => parseGraph6(t));
-  const used = new Array<boolean>(found.length).fill(false);
+  const unused = new Map<string, number>();
+  for (const t of cert.graph6) {
+    const k = canonicalKeyOf(parseGraph6(t), budget);
+    unused.set(k, (unused.get(k) ?? 0) + 1);
+  }
   for (const [i, text] of (e.graph6 as unknown[]).entries()) {
     let g: Graph;
     try {
@@ -155,9 +126,10 @@ export function recheckEnumeration(maxVertices: number, op: EnumerationRelation,
     } catch {
       return fail(`certificate.graph6[${i}] is not graph6`);
     }
-    const j = found.findIndex((f, k) => !used[k] && isomorphic(f, g, budget));
-    if (j < 0) return fail(`certificate.graph6[${i}] is not one of the graphs the enumeration finds`);
-    used[j] = true;
+    const k = canonicalKeyOf(g, budget);
+    const left = unused.get(k) ?? 0;
+    if (left === 0) return fail(`certificate.graph6[${i}] is not one of the graphs the enumeration finds`);
+    unused.set(k, left - 1);
   }
   if (again.status !== outcome) return fail(`the enumeration shows the claim is ${again.status}, not ${outcome}`);
   return { status: "verified", statement, method, reason: `the enumeration repeated gives the same ${cert.graph6.length} graphs and the claim is ${outcome}` };

@@ -368,3 +368,24 @@ function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<stri
   if (above !== c.rootsAbove) reject(`${above} eigenvalue(s) lie above the enclosure, not ${String(c.rootsAbove)}`);
   return above > 0 ? ">" : isRoot ? "=" : "<";
 }
+
+/**
+ * "ρ(G) op b" for op in {<, ≤} as a bare exact truth value: the same eliminations as
+ * spectralRadiusBound (Sylvester's law of inertia, Perron–Frobenius), but no certificate is kept and
+ * no witness is re-evaluated — for callers that only need the sign, such as the exhaustive
+ * enumeration, whose own certificate is the list of graphs found.
+ */
+export function spectralRadiusSign(g: Graph, op: "<" | "<=", b: Bound, budget: Budget): boolean {
+  const stop: StopRule = op === "<" ? "nonPositive" : "negative";
+  const eliminate = (at: Rational, rule: StopRule) => (isForest(g) ? treeInertia(g, at, rule, budget) : sparseInertia(g, at, rule, budget));
+  if (b.kind === "rational") {
+    // Complete under "nonPositive": every pivot positive, ρ < b; under "negative": none negative, ρ ≤ b.
+    return eliminate(b.value, stop).complete;
+  }
+  for (const bits of [20, 50]) {
+    const { lo, hi } = enclose(b, bits);
+    if (eliminate(lo, "nonPositive").complete) return true; // ρ < lo < b
+    if (!eliminate(hi, "nonPositive").complete) return false; // ρ ≥ hi > b
+  }
+  return implies(algebraicElimination(g, b, stop, budget).rel, op) === true;
+}

@@ -6,12 +6,16 @@ import "server-only";
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import type { NameLens } from "./blind";
+
+/** Events whose detail names a member or an address (invitations, membership, due dates). */
+const HIDDEN_DETAIL = /^(invitation|member|round\.due_date)/;
 
 export interface AuditInput {
   proofId: number;
   actorId: number | null;
   action: string;
-  subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings";
+  subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings" | "round" | "report";
   subjectId: number | null;
   detail?: string;
 }
@@ -62,8 +66,11 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
   return found;
 }
 
-/** A proof's events, newest first. */
-export async function listProofEvents(proofId: number, limit = 500): Promise<AuditEntry[]> {
+/**
+ * A proof's events, newest first. With a `lens` (lib/data/blind.ts), a referee of a blind proof acts as
+ * "Referee k", and the free-text detail of events about members (which may hold an address) is withheld.
+ */
+export async function listProofEvents(proofId: number, limit = 500, lens?: NameLens): Promise<AuditEntry[]> {
   const { AuditEvent, User } = models();
   const events = await AuditEvent.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
@@ -83,8 +90,8 @@ export async function listProofEvents(proofId: number, limit = 500): Promise<Aud
     action: e.action,
     subjectType: e.subjectType,
     subjectId: e.subjectId,
-    detail: e.detail,
-    actorName: e.actorId === null ? null : (names.get(e.actorId) ?? null),
+    detail: lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail,
+    actorName: e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null),
     subjectLabel: labelOf(e.subjectType, e.subjectId),
     caseId: caseOf(e.subjectType, e.subjectId),
     at: e.createdAt.toISOString(),

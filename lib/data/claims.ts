@@ -133,10 +133,13 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
-  const { Claim, AuditEvent } = models();
+  const { Step, Claim, AuditEvent } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
+    // Locking the step row serialises attaches to one step, so each claim takes its own place
+    // (the unique index on (step_id, position) is the backstop).
+    await Step.findByPk(stepId, { attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
     const out: Array<{ id: number; claim: ClaimJson }> = [];
     for (const [i, claim] of claims.entries()) {

@@ -5,6 +5,7 @@ import "server-only";
  */
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
+import { refereeLens } from "./blind";
 import { conflict, forbidden, notFound } from "@/lib/errors";
 import type { Bundle, ExportKind } from "@/lib/core/bundle";
 import { checkBundleInPool, WorkerFailure } from "@/lib/verification/pool";
@@ -39,6 +40,10 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
       ])
     : [[], [], []];
   const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
+  // A blind proof's export goes to readers: referees appear as "Referee k" and the bundle keeps no mapping
+  // to names (the editors have the names in Cairn itself).
+  const lens = proof.blindReview ? await refereeLens(proofId, { id: 0, role: "author" }) : null;
+  const shown = (userId: number, name: string) => (lens ? lens.name(userId, name) : name);
 
   const stepView = (s: (typeof steps)[number], ordinal: number): SnapshotStep => {
     const own = revisions.filter((r) => r.stepId === s.id);
@@ -52,7 +57,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
         .filter((r) => r.stepId === s.id)
         .map((r) => ({
           reviewerId: r.reviewerId,
-          reviewerName: nameOf(r, "reviewer"),
+          reviewerName: shown(r.reviewerId, nameOf(r, "reviewer")),
           verdict: r.verdict,
           revisionNumber: revisionNumber.get(r.revisionId) ?? 0,
           disputeState: r.disputeState as DisputeState | null,
@@ -90,7 +95,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
     title: proof.title,
     statement: proof.statement,
     requiredApprovals: proof.requiredApprovals,
-    members: members.map((m) => ({ name: nameOf(m, "user"), role: m.role })),
+    members: members.map((m) => ({ name: shown(m.userId, nameOf(m, "user")), role: m.role })),
     cases: tree.map(toSnapshot),
   };
 }

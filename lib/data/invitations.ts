@@ -57,13 +57,15 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
   const token = randomBytes(32).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
   const scopeText = input.scope === "proof" ? "the whole proof" : `case${caseIds.length > 1 ? "s" : ""} ${caseIds.map((id) => numbers.get(id)).join(", ")}`;
+  // "the whole proof of the proof …" read badly: the whole proof is simply "the proof".
+  const whatText = input.scope === "proof" ? `the proof “${proof!.title}”` : `${scopeText} of the proof “${proof!.title}”`;
   const { id, mailId } = await getSequelize().transaction(async (transaction) => {
     const mailId = await enqueueMail(
       {
         to: input.email,
         subject: invitationSubject(inviter.name, proof!.title),
         text: [
-          `${inviter.name} invites you to review ${scopeText} of the proof “${proof!.title}” in Cairn.`,
+          `${inviter.name} invites you to review ${whatText} in Cairn.`,
           "",
           "To accept, open this link (it works once, until " + expiresAt.toISOString().slice(0, 10) + "); you can create an account or sign in:",
           appUrl(`/invitations/${token}`),

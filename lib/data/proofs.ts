@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import type { ProofRole } from "@/models/proof-member";
+import { refereeLens } from "./blind";
 
 export interface ProofListItem {
   id: number;
@@ -71,11 +72,17 @@ export interface ProofSummary {
   members: Array<{ userId: number; name: string; email: string; role: ProofRole }>;
 }
 
-export async function getProofSummary(proofId: number): Promise<ProofSummary | null> {
+/**
+ * A proof with its members. With a `viewer`, referees of a blind proof are shown to authors and other
+ * referees as "Referee k" with neither address nor id (userId is then -k); without one, names are plain
+ * (for editors' and internal use only).
+ */
+export async function getProofSummary(proofId: number, viewer?: { id: number; role: ProofRole | null }): Promise<ProofSummary | null> {
   const { Proof, ProofMember, User } = models();
   const p = await Proof.findByPk(proofId);
   if (!p) return null;
   const members = await ProofMember.findAll({ where: { proofId }, include: [{ model: User, as: "user" }], order: [["role", "ASC"]] });
+  const lens = viewer ? await refereeLens(proofId, viewer) : null;
   return {
     id: p.id,
     title: p.title,
@@ -85,6 +92,10 @@ export async function getProofSummary(proofId: number): Promise<ProofSummary | n
     updatedAt: p.updatedAt.toISOString(),
     members: members.map((m) => {
       const u = (m as unknown as { user: { id: number; name: string; email: string } }).user;
+      if (lens?.hides(u.id)) {
+        const name = lens.name(u.id, u.name);
+        return { userId: -Number(name.replace(/\D/g, "")), name, email: "", role: m.role };
+      }
       return { userId: u.id, name: u.name, email: u.email, role: m.role };
     }),
   };

@@ -1,6 +1,7 @@
 import "server-only";
 /** What the review panel under a step shows (verdicts, stale approvals, disputes with threads, comments) and the queue's step view. */
 import { models } from "@/models";
+import { refereeLens } from "./blind";
 import type { DisputeState } from "@/models/review";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
@@ -54,7 +55,8 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     ? await DisputeTransition.findAll({ where: { reviewId: reviews.map((r) => r.id) }, order: [["createdAt", "ASC"], ["id", "ASC"]] })
     : [];
   const userIds = [...new Set([...reviews.map((r) => r.reviewerId), ...comments.map((c) => c.authorId), ...transitions.map((t) => t.actorId)])];
-  const names = new Map((userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  const lens = await refereeLens(step.proofId, viewer);
+  const names = new Map((userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, lens.name(u.id, u.name)]));
   const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
   const latestNumber = step.latest?.number ?? 0;
   const required = proof?.requiredApprovals ?? 1;

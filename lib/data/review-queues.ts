@@ -9,6 +9,7 @@ import { caseState, proofState, stepStatus, isUnresolved, type CaseFacts, type C
 import { expandScope } from "@/lib/access/rules";
 import type { DisputeState } from "@/models/review";
 import { claimStatuses } from "./reviews";
+import { refereeLenses, type NameLens } from "./blind";
 
 interface ReviewRow { id: number; stepId: number; reviewerId: number; verdict: "approve" | "dispute"; disputeState: DisputeState | null; revisionNumber: number; at: Date }
 interface StepRow { id: number; caseId: number; position: number; latestNumber: number; latestAt: Date | null; authorIds: number[] }
@@ -117,15 +118,21 @@ export async function getReviewerQueue(userId: number): Promise<{ steps: QueueSt
 /** An author's queue: unresolved disputes on the proofs they are an author of. */
 export async function getAuthorQueue(userId: number): Promise<QueueDisputeRow[]> {
   const proofIds = await proofIdsWhere(userId, "author");
-  return proofIds.length === 0 ? [] : disputeRows(await loadFacts(proofIds), null, true);
+  return proofIds.length === 0 ? [] : disputeRows(await loadFacts(proofIds), null, true, await refereeLenses(proofIds, userId));
 }
 
 /** Every dispute of a proof, resolved or not (limited to the visible cases when given). */
-export async function listProofDisputes(proofId: number, visible: Set<number> | null): Promise<QueueDisputeRow[]> {
-  return disputeRows(await loadFacts([proofId]), visible, false);
+export async function listProofDisputes(proofId: number, visible: Set<number> | null, viewerId?: number): Promise<QueueDisputeRow[]> {
+  return disputeRows(await loadFacts([proofId]), visible, false, viewerId === undefined ? undefined : await refereeLenses([proofId], viewerId));
 }
 
-function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<number> | null, unresolvedOnly: boolean): QueueDisputeRow[] {
+/** The proof's unresolved disputes (the editor's desk), each with when it last moved. */
+export async function listOpenDisputes(proofId: number): Promise<QueueDisputeRow[]> {
+  return disputeRows(await loadFacts([proofId]), null, true);
+}
+
+/** `lenses`: per proof, how the viewer sees referees (blind review); none means names as they are. */
+function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<number> | null, unresolvedOnly: boolean, lenses?: Map<number, NameLens>): QueueDisputeRow[] {
   const title = new Map(f.proofs.map((p) => [p.id, p.title]));
   const name = new Map(f.members.map((m) => [m.userId, m.name]));
   return f.reviews
@@ -134,7 +141,7 @@ function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<numb
     .map((r) => {
       const s = f.steps.find((x) => x.id === r.stepId)!;
       const proofId = f.numbered.get(s.caseId)!.proofId;
-      return { proofId, proofTitle: title.get(proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), disputeId: r.id, state: r.disputeState!, reviewerName: name.get(r.reviewerId) ?? "", revision: r.revisionNumber, since: r.at.toISOString() };
+      return { proofId, proofTitle: title.get(proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), disputeId: r.id, state: r.disputeState!, reviewerName: lenses?.get(proofId)?.name(r.reviewerId, name.get(r.reviewerId) ?? "") ?? name.get(r.reviewerId) ?? "", revision: r.revisionNumber, since: r.at.toISOString() };
     });
 }
 

@@ -1,4 +1,5 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { diffLines } from "diff";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
@@ -82,9 +83,12 @@ export async function getStep(proofId: number, stepId: number): Promise<StepDeta
 
 /** Adds a step at the end of a case, with its first revision, in one transaction. */
 export async function createStep(proofId: number, caseId: number, userId: number, body: string): Promise<{ id: number; revisionId: number }> {
-  const { Step, StepRevision, AuditEvent } = models();
+  const { Case, Step, StepRevision, AuditEvent } = models();
   if (!(await liveCases(proofId)).some((c) => c.id === caseId)) throw notFound("This case");
   return getSequelize().transaction(async (transaction) => {
+    // Locking the case row serialises step creates in one case, so each takes its own place
+    // (the unique index on (case_id, position) is the backstop).
+    await Case.findByPk(caseId, { attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
     const last = await Step.max<number, InstanceType<typeof Step>>("position", { where: { caseId }, transaction });
     const step = await Step.create({ caseId, position: (last ?? 0) + 1 }, { transaction });
     const revision = await StepRevision.create({ stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null }, { transaction });
@@ -107,9 +111,20 @@ export async function moveStep(proofId: number, stepId: number, userId: number, 
     const j = move === "up" ? i - 1 : i + 1;
     if (i < 0 || j < 0 || j >= siblings.length) return;
     [siblings[i], siblings[j]] = [siblings[j], siblings[i]];
-    for (const [k, s] of siblings.entries()) if (s.position !== k + 1) await s.update({ position: k + 1 }, { transaction });
+    await renumberSteps(siblings, transaction);
     await AuditEvent.create({ proofId, actorId: userId, action: "step.moved", subjectType: "step", subjectId: stepId, detail: move }, { transaction });
   });
+}
+
+/**
+ * Gives the steps places 1..k in the order given. Positions are unique per case, so the steps that
+ * move first step aside to places past the end, then take their new places.
+ */
+async function renumberSteps(ordered: Array<InstanceType<ReturnType<typeof models>["Step"]>>, transaction: Transaction): Promise<void> {
+  const moving = ordered.map((s, k) => ({ s, place: k + 1 })).filter(({ s, place }) => s.position !== place);
+  const aside = Math.max(ordered.length, ...ordered.map((s) => s.position));
+  for (const [n, { s }] of moving.entries()) await s.update({ position: aside + n + 1 }, { transaction });
+  for (const { s, place } of moving) await s.update({ position: place }, { transaction });
 }
 
 /**

@@ -9,6 +9,7 @@ import { createHash } from "node:crypto";
 import { constants } from "node:fs";
 import { tmpdir } from "node:os";
 import { delimiter, join } from "node:path";
+import { readEnv } from "@/lib/env";
 import { failingLines, setMathAsSource } from "./latex-fallback";
 
 export class PdfUnavailableError extends Error {
@@ -120,7 +121,7 @@ let queue: Promise<unknown> = Promise.resolve();
  */
 export async function cachedPdf(tex: string, options: { runs?: number; timeoutMs?: number } = {}): Promise<{ pdf: Buffer; cached: boolean }> {
   const key = createHash("sha256").update(tex).digest("hex");
-  const dir = process.env.CAIRN_PDF_CACHE ?? join(process.cwd(), ".data", "pdf-cache");
+  const dir = readEnv().CAIRN_PDF_CACHE ?? join(process.cwd(), ".data", "pdf-cache");
   const file = join(dir, `${key}.pdf`);
   const kept = await readFile(file).catch(() => null);
   if (kept) return { pdf: kept, cached: true };

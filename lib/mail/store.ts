@@ -5,6 +5,7 @@
  */
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
+import { readEnv } from "@/lib/env";
 
 export interface CapturedMail {
   id: string;
@@ -16,7 +17,7 @@ export interface CapturedMail {
 }
 
 export const mailStorePath = () =>
-  process.env.CAIRN_MAIL_STORE ?? path.join(process.cwd(), ".data", "mail", `messages-${process.env.CAIRN_SMTP_PORT ?? 2525}.jsonl`);
+  readEnv().CAIRN_MAIL_STORE ?? path.join(process.cwd(), ".data", "mail", `messages-${readEnv().CAIRN_SMTP_PORT}.jsonl`);
 
 function decodeQuotedPrintable(s: string): string {
   const bytes: number[] = [];

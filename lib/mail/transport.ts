@@ -4,6 +4,7 @@
  * Without SMTP_URL the local mail fake on 127.0.0.1:2525 is used (started by `npm start` and `npm test`).
  */
 import nodemailer from "nodemailer";
+import { readEnv } from "@/lib/env";
 
 export interface MailMessage {
   to: string;
@@ -11,8 +12,8 @@ export interface MailMessage {
   text: string;
 }
 
-export const mailFrom = () => process.env.MAIL_FROM ?? "Cairn <no-reply@cairn.localhost>";
-export const smtpUrl = () => process.env.SMTP_URL ?? `smtp://127.0.0.1:${process.env.CAIRN_SMTP_PORT ?? 2525}`;
+export const mailFrom = () => readEnv().MAIL_FROM ?? "Cairn <no-reply@cairn.localhost>";
+export const smtpUrl = () => readEnv().SMTP_URL ?? `smtp://127.0.0.1:${readEnv().CAIRN_SMTP_PORT}`;
 
 /** Sends one message; throws when the server cannot be reached or refuses it. */
 export async function sendMail(message: MailMessage): Promise<void> {
@@ -36,5 +37,5 @@ export async function sendMail(message: MailMessage): Promise<void> {
 
 /** An absolute link into the app, from the origin browsers use (NEXTAUTH_URL). */
 export function appUrl(pathname: string): string {
-  return new URL(pathname, process.env.NEXTAUTH_URL ?? "http://localhost:3000").toString();
+  return new URL(pathname, readEnv().NEXTAUTH_URL ?? "http://localhost:3000").toString();
 }

@@ -4,7 +4,7 @@
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
 import { z } from "./zod";
-import { CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS } from "@/lib/core/claim-schema";
+import { CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES, ENUMERATION_SETTINGS } from "@/lib/core/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
 
@@ -39,6 +39,7 @@ export const claimFormSchema = z.object({
   parameter: z.string(),
   degreeRelation: z.enum(DEGREE_RELATIONS),
   maxVertices: z.string(),
+  enumerationSetting: z.enum(ENUMERATION_SETTINGS),
   certificate: z.string(),
 });
 export type ClaimForm = z.infer<typeof claimFormSchema>;
@@ -46,7 +47,7 @@ export type ClaimForm = z.infer<typeof claimFormSchema>;
 export const emptyClaimForm: ClaimForm = {
   kind: "spectral-radius-bound", graphFormat: "named", graphText: "", patternFormat: "named", patternText: "", op: "<", bound: "2",
   vector: "", induced: false, embedding: "", family: "", coefficients: "", h: "", multiset: "", predicate: "tree", parameter: "",
-  degreeRelation: "=", maxVertices: "", certificate: "",
+  degreeRelation: "=", maxVertices: "", enumerationSetting: "simple", certificate: "",
 };
 
 type Issue = { field: keyof ClaimForm; message: string };
@@ -112,11 +113,12 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       Object.assign(claim, { h: Number(f.h.trim()), multiset: integers(f.multiset, "multiset", issues) });
       break;
     case "enumeration":
-      need("maxVertices", "the largest number of vertices N (at most 12)");
-      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer (at most 12)" });
+      need("maxVertices", `the largest number of vertices N (at most ${ENUMERATION_MAX_VERTICES})`);
+      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: `N is a positive integer (at most ${ENUMERATION_MAX_VERTICES})` });
       need("bound", "the bound, e.g. 2");
       Object.assign(claim, {
         maxVertices: Number(f.maxVertices.trim()), op: f.op, bound: f.bound.trim(),
+        ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}),
         graphs: f.patternText.split(/^\s*---\s*$/m).map((t) => t.trim()).filter(Boolean).map((t) => graph(f.patternFormat, t)),
       });
       break;
@@ -151,6 +153,7 @@ export function formFieldOf(path: string): keyof ClaimForm | null {
   if (/^(graph|host)\b/.test(rest)) return "graphText";
   if (/^(pattern|patterns|graphs)\b/.test(rest)) return "patternText";
   if (/^maxVertices\b/.test(rest)) return "maxVertices";
+  if (/^setting\b/.test(rest)) return "enumerationSetting";
   if (/^(bound)\b/.test(rest)) return "bound";
   if (/^(op|relation)\b/.test(rest)) return "op";
   if (/^vector\b/.test(rest)) return "vector";

@@ -7,7 +7,9 @@ import {
   extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
   t12kWorkload, workloadGraph, type Workload,
 } from "./workloads";
+import { spawnSync } from "node:child_process";
 import { enumerateConnected } from "../../lib/core/enumeration";
+import { generateConnected, type GenerationOptions } from "../../lib/core/augmentation";
 import { parseBound } from "../../lib/core/bound";
 import { validateClaim } from "../../lib/core/claim-schema";
 import { verifyClaim } from "../../lib/core/claims";
@@ -114,17 +116,45 @@ function starlikeTasks(): BenchTask[] {
   ]);
 }
 
-/** "All connected graphs on at most N vertices with ρ op b": the exhaustive enumeration behind enumeration claims. */
+/** "All connected graphs on at most N vertices with ρ op b": the canonical augmentation behind enumeration claims. */
 function enumerationTasks(): BenchTask[] {
-  return ([[12, "<=", "2"], [10, "<=", "sqrt(2+sqrt(5))"]] as const).map(([n, op, b]) => ({
+  const bounded = ([[20, "<=", "2", 5000], [10, "<=", "sqrt(2+sqrt(5))", 500], [16, "<=", "sqrt(2+sqrt(5))", undefined], [12, "<=", "2", undefined]] as const).map(([n, op, b, targetMs]): BenchTask => ({
     id: `enumerate-${n}-${b}`,
     workload: `connected graphs, ≤ ${n} vertices`,
     task: `all with ρ ${op === "<=" ? "≤" : "<"} ${b} (exhaustive)`,
-    quick: false,
+    quick: n <= 10,
+    targetMs,
     prepare: () => null,
     run: () => {
       const r = enumerateConnected(n, op, parseBound(b), new Budget(BENCH_STEPS));
-      return `${r.levels.flat().length} graphs (${r.levels.map((l) => l.length).join(",")}); ${r.checked} exact checks`;
+      return `${r.levels.flat().length} graphs (${r.levels.map((l) => l.length).join(",")}); ${r.checked} exact checks, ${r.stats.labellings} labellings`;
+    },
+  }));
+  const counted = (id: string, workload: string, task: string, targetMs: number | undefined, options: Omit<GenerationOptions, "budget">): BenchTask => ({
+    id, workload, task, quick: false, targetMs, prepare: () => null,
+    run: () => {
+      const r = generateConnected({ ...options, collect: false, budget: new Budget(BENCH_STEPS) });
+      return `${r.counts[r.counts.length - 1]} on ${r.counts.length} vertices (${r.counts.reduce((a, c) => a + c, 0)} in all); ${r.stats.labellings} labellings`;
+    },
+  });
+  return [
+    ...bounded,
+    counted("enumerate-connected-8", "connected graphs, ≤ 8 vertices", "all, with ρ < 8 (a bound above every ρ)", 10_000, { maxVertices: 8, spectral: { op: "<", bound: parseBound("8") } }),
+    counted("enumerate-connected-9", "connected graphs, ≤ 9 vertices", "all (no bound)", undefined, { maxVertices: 9 }),
+    counted("enumerate-trees-16", "trees, ≤ 16 vertices", "all (no bound)", 5000, { maxVertices: 16, setting: { kind: "tree" } }),
+    ...nautyTasks(),
+  ];
+}
+
+/** The same counts by Debian's nauty (geng, gentreeg), for comparison; the timing includes starting the process. */
+function nautyTasks(): BenchTask[] {
+  const tool = (name: string) => [`nauty-${name}`, name].find((c) => spawnSync("sh", ["-c", `command -v ${c}`]).status === 0);
+  return ([["nauty-geng-8", "geng", "-c -u 8", "connected graphs, 8 vertices"], ["nauty-geng-9", "geng", "-c -u 9", "connected graphs, 9 vertices"], ["nauty-gentreeg-16", "gentreeg", "-u 16", "trees, 16 vertices"]] as const).map(([id, name, args, workload]) => ({
+    id, workload, task: `nauty ${name} ${args} (for comparison)`, quick: false, prepare: () => tool(name),
+    run: (cmd) => {
+      if (!cmd) return "nauty not installed (apt-get install nauty)";
+      const r = spawnSync("sh", ["-c", `${cmd as string} ${args} 2>&1`], { encoding: "utf8" });
+      return /(\d+ (?:graphs|trees) generated)/.exec(r.stdout)?.[1] ?? r.stdout.trim();
     },
   }));
 }

@@ -51,6 +51,8 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "/proofs/[proofId]/timeline": MEMBERS(200),
   "/proofs/[proofId]/export": MEMBERS(200, 403),
   "/proofs/[proofId]/print/[exportId]": MEMBERS(200, 403),
+  "/proofs/[proofId]/rounds": MEMBERS(200),
+  "/proofs/[proofId]/desk": { ...MEMBERS(403), editor: 200 },
   "/proofs/[proofId]/steps/[stepId]:in": MEMBERS(200),
   "/proofs/[proofId]/steps/[stepId]:out": MEMBERS(200, 404),
   "/proofs/[proofId]/steps/[stepId]:gone": MEMBERS(404),

@@ -180,13 +180,13 @@ describe("proof workspace in the browser", () => {
     await page.goto(stepUrl);
     const form = page.getByTestId("claim-form");
     await form.getByLabel("Kind").selectOption("enumeration");
-    await form.getByLabel("largest number of vertices").fill("13");
+    await form.getByLabel("largest number of vertices").fill("21");
     await form.getByLabel("relation", { exact: true }).selectOption("<");
     await form.getByLabel("bound", { exact: true }).fill("2");
     // Smith 1970: the connected graphs with ρ < 2 on at most 5 vertices are A1–A5, D4 and D5.
     await form.getByLabel("listed graphs").fill(["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].join("\n---\n"));
     await form.getByRole("button", { name: "Attach claim" }).click();
-    await form.getByRole("alert").filter({ hasText: "at most 12" }).waitFor();
+    await form.getByRole("alert").filter({ hasText: "at most 20" }).waitFor();
     expect(await page.getByTestId("claim").count()).toBe(0);
     await form.getByLabel("largest number of vertices").fill("5");
     await form.getByRole("button", { name: "Attach claim" }).click();

@@ -23,7 +23,7 @@ export default async function QueuePage() {
           </section>
           <section className="space-y-3">
             <h2 className="text-xl font-semibold">Your disputes the authors answered</h2>
-            <QueueTable kind="disputes" rows={reviewer.answered} empty="No answered dispute is waiting for you." testId="queue-answered" />
+            <QueueTable kind="myDisputes" rows={reviewer.answered} empty="No answered dispute is waiting for you." testId="queue-answered" />
           </section>
         </>
       )}

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { forbidden } from "next/navigation";
 import { requireUser } from "@/lib/session";
 import { mailStorePath, readCapturedMail } from "@/lib/mail/store";
+import { LinkedText } from "@/components/ui/linked-text";
 
 export const metadata: Metadata = { title: "Captured mail" };
 export const dynamic = "force-dynamic";
@@ -25,7 +26,7 @@ export default async function CapturedMailPage() {
               {new Date(m.receivedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "medium" })} · to {m.to.join(", ")}
             </p>
             <p className="font-semibold">{m.subject}</p>
-            <pre className="mt-2 whitespace-pre-wrap font-mono text-sm">{m.text}</pre>
+            <pre className="mt-2 whitespace-pre-wrap font-mono text-sm"><LinkedText text={m.text} /></pre>
           </li>
         ))}
       </ol>

@@ -10,8 +10,8 @@ type Context = { params: Promise<{ proofId: string }> };
 /** One proof's summary and members; any member may read it. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  const { role } = await requireProofRole(proofId);
-  const proof = await getProofSummary(proofId);
+  const { user, role } = await requireProofRole(proofId);
+  const proof = await getProofSummary(proofId, { id: user.id, role });
   if (!proof) throw notFound("This proof");
   return Response.json({ proof, role });
 });
@@ -22,5 +22,5 @@ export const PATCH = route(async (request: Request, { params }: Context) => {
   const { user } = await requireProofRole(proofId, "author");
   const input = await readBody(request, updateProofSchema);
   await updateProof(proofId, user.id, input);
-  return Response.json({ proof: await getProofSummary(proofId) });
+  return Response.json({ proof: await getProofSummary(proofId, { id: user.id, role: "author" }) });
 });

@@ -16,8 +16,8 @@ export const metadata: Metadata = { title: "Export" };
 /** Certified or draft exports of a proof: make one, list past ones with their digests, download their files. */
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
   // A reviewer limited to chosen cases does not see whole-proof exports (403).
-  const { proofId, standing } = await pageAccess((await params).proofId, "exports.read");
-  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
+  const { proofId, standing, user, role } = await pageAccess((await params).proofId, "exports.read");
+  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";
   return (

@@ -18,11 +18,11 @@ import { may } from "@/lib/access";
 export const metadata: Metadata = { title: "Members and reviewers" };
 
 export default async function MembersPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, standing, visible } = await pageAccess((await params).proofId);
+  const { proofId, standing, visible, user, role } = await pageAccess((await params).proofId);
   const manages = may(standing, "reviewers.manage");
   if (manages) await deliverAfterCommit(); // messages whose retry is due go out now
   const [proof, readiness, progress, invitations] = await Promise.all([
-    getProofSummary(proofId),
+    getProofSummary(proofId, { id: user.id, role }),
     getReadiness(proofId, visible), // a reviewer of chosen cases sees the readiness of those cases only
     getReviewerProgress([proofId]),
     manages ? listInvitations(proofId) : Promise.resolve([]),

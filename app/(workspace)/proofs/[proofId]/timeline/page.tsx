@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { withinScope } from "@/lib/access";
 import { getProofSummary } from "@/lib/data/proofs";
 import { listProofEvents } from "@/lib/data/audit";
+import { refereeLens } from "@/lib/data/blind";
 import { AuditTimeline } from "@/components/review/audit-timeline";
 import { pageAccess } from "@/app/(workspace)/page-access";
 
@@ -11,8 +12,8 @@ export const metadata: Metadata = { title: "Timeline" };
 
 /** The proof's audit trail, newest first: every event, or for a reviewer of chosen cases the events of those cases. */
 export default async function TimelinePage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, visible } = await pageAccess((await params).proofId, "timeline.read");
-  const [proof, all] = await Promise.all([getProofSummary(proofId), listProofEvents(proofId)]);
+  const { proofId, visible, user, role } = await pageAccess((await params).proofId, "timeline.read");
+  const [proof, all] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), refereeLens(proofId, { id: user.id, role }).then((lens) => listProofEvents(proofId, 500, lens))]);
   const events = withinScope(all, (e) => e.caseId, visible);
   if (!proof) notFound();
   return (

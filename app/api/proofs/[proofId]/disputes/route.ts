@@ -9,5 +9,5 @@ type Context = { params: Promise<{ proofId: string }> };
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user } = await requireProofRole(proofId);
-  return Response.json({ disputes: await listProofDisputes(proofId, await visibleCaseIds(proofId, user.id)) });
+  return Response.json({ disputes: await listProofDisputes(proofId, await visibleCaseIds(proofId, user.id), user.id) });
 });

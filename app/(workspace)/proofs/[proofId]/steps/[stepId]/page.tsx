@@ -21,7 +21,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   // A reviewer invited to chosen cases sees only their steps; a step under a deleted case is gone.
   const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
   const { proofId, user, role, standing } = access;
-  const [proof, step] = await Promise.all([getProofSummary(proofId), orNotFound(getStep(proofId, ref.id))]);
+  const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
   const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
   const isAuthor = may(standing, "steps.write");
   return (

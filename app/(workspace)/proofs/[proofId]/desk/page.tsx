@@ -1,0 +1,32 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forbidden, notFound } from "next/navigation";
+import { getProofSummary } from "@/lib/data/proofs";
+import { getDesk } from "@/lib/data/desk";
+import { mayDoInRound } from "@/lib/review/rounds";
+import { DeskView } from "@/components/rounds/desk-view";
+import { pageAccess } from "@/app/(workspace)/page-access";
+
+export const metadata: Metadata = { title: "Editor's desk" };
+
+/** The editor's desk: open disputes with their age, referees against their due dates, reports received, decisions. */
+export default async function DeskPage({ params }: { params: Promise<{ proofId: string }> }) {
+  const { proofId, role, user } = await pageAccess((await params).proofId);
+  if (!mayDoInRound(role, "read_desk")) forbidden(); // HTTP 403: the desk is the editors'
+  const [proof, desk] = await Promise.all([getProofSummary(proofId), getDesk(proofId, { id: user.id, role })]);
+  if (!proof) notFound();
+  return (
+    <main className="max-w-4xl space-y-8">
+      <div>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <h1 className="mt-2 text-3xl font-semibold">Editor’s desk</h1>
+        <p className="text-sm text-stone-600">
+          <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 underline">Rounds, reports and decisions</Link> ·{" "}
+          {desk.blind ? "blind review (authors see “Referee k”; you see names)" : "referees named to the authors"} · reminders {desk.remindBeforeDays} days before and{" "}
+          {desk.remindAfterDays} after a due date
+        </p>
+      </div>
+      <DeskView proofId={proofId} desk={desk} />
+    </main>
+  );
+}
