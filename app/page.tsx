@@ -4,7 +4,7 @@ import { VerdictCaution } from "@/components/ui/caution";
 
 export default function LandingPage() {
   return (
-    <main className="mx-auto max-w-prose px-6 py-16">
+    <main className="mx-auto max-w-prose px-4 py-12 sm:px-6 sm:py-16">
       <Wordmark />
       <h1 className="mt-10 text-4xl font-semibold leading-tight">Classification proofs, checked case by case.</h1>
       <p className="mt-6 text-lg text-stone-700">
@@ -12,7 +12,7 @@ export default function LandingPage() {
         bound, a positive vector — and Cairn re-does it in exact arithmetic and keeps the certificate. Reviewers approve
         or dispute individual steps; the finished proof leaves as a bundle anyone can re-check offline.
       </p>
-      <div className="mt-8 flex gap-4">
+      <div className="mt-8 flex flex-wrap gap-4">
         <Link href="/sign-in" className="rounded bg-lichen-600 px-5 py-2 font-semibold text-white hover:bg-lichen-700">
           Sign in
         </Link>
@@ -21,7 +21,7 @@ export default function LandingPage() {
         </Link>
       </div>
       <div className="mt-12">
-        <VerdictCaution />
+        <VerdictCaution full />
       </div>
     </main>
   );

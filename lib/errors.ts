@@ -10,6 +10,8 @@ export type ErrorCode =
   | "not_found"
   | "conflict"
   | "invalid"
+  | "too_large"
+  | "unsupported_media_type"
   | "rate_limited"
   | "unavailable"
   | "internal";
@@ -21,6 +23,8 @@ const statusOf: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   invalid: 422,
+  too_large: 413,
+  unsupported_media_type: 415,
   rate_limited: 429,
   unavailable: 503,
   internal: 500,

@@ -1,16 +1,32 @@
 /**
- * Route-handler plumbing: turn thrown errors into the one error body, parse JSON bodies with a zod
- * schema, parse numeric route ids. Unknown errors are logged here and sent as a plain 500 message.
+ * Route-handler plumbing: turn thrown errors into the one error body, refuse state-changing
+ * requests from other sites, parse JSON bodies with a zod schema (right content type, bounded
+ * size), parse numeric route ids. Unknown errors are logged here and sent as a plain 500 message;
+ * a database that does not answer is a 503 the client may retry.
  */
+import { UniqueConstraintError } from "sequelize";
 import type { ZodType } from "zod";
-import { AppError, errorBody, invalid, notFound, type Issue } from "./errors";
+import { AppError, errorBody, forbidden, invalid, notFound, type Issue } from "./errors";
+import { isDatabaseUnavailable } from "./db";
 
 export function json(data: unknown, init?: ResponseInit): Response {
   return Response.json(data, init);
 }
 
+/** Seconds a client should wait before retrying after a 503 for a database outage. */
+const RETRY_AFTER_SECONDS = 5;
+
 export function errorResponse(e: unknown): Response {
   if (e instanceof AppError) return Response.json(errorBody(e), { status: e.status });
+  if (isDatabaseUnavailable(e)) {
+    console.error("[cairn] database unavailable", (e as Error).message);
+    const err = new AppError("unavailable", `The database is not answering at the moment; nothing was changed. This is temporary: try again in a few seconds.`);
+    return Response.json(errorBody(err), { status: 503, headers: { "retry-after": String(RETRY_AFTER_SECONDS) } });
+  }
+  // The unique (parent, position) indexes are the backstop behind the locks: a collision means a
+  // concurrent write won the place; nothing was written by this request.
+  if (e instanceof UniqueConstraintError)
+    return Response.json(errorBody(new AppError("conflict", "Someone else changed this at the same moment; nothing was saved. Reload and try again.")), { status: 409 });
   console.error("[cairn] unexpected error", e);
   return Response.json(
     { error: { code: "internal", message: "Something went wrong on the server; nothing was changed. Try again, and report it if it persists." } },
@@ -20,10 +36,53 @@ export function errorResponse(e: unknown): Response {
 
 type Handler<C> = (request: Request, context: C) => Promise<Response>;
 
-/** Wraps a route handler so that every thrown error becomes the one error response. */
+const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+/** The hosts this request may legitimately come from: the one it was sent to (and NEXTAUTH_URL's). */
+function ownHosts(request: Request): Set<string> {
+  const hosts = new Set<string>([new URL(request.url).host]);
+  for (const h of [request.headers.get("host"), request.headers.get("x-forwarded-host")]) if (h) hosts.add(h.split(",")[0].trim().toLowerCase());
+  if (process.env.NEXTAUTH_URL) {
+    try {
+      hosts.add(new URL(process.env.NEXTAUTH_URL).host);
+    } catch {
+      // a malformed NEXTAUTH_URL adds nothing
+    }
+  }
+  return hosts;
+}
+
+/**
+ * Refuses a state-changing request that a browser sent from another site (cross-site request
+ * forgery): `Sec-Fetch-Site` other than same-origin / none, or an `Origin` that is not this
+ * server. Requests without either header are not from a browser page and pass (the session
+ * cookie is what they would need, and SameSite keeps it from being sent cross-site anyway).
+ */
+export function assertSameOrigin(request: Request): void {
+  if (!STATE_CHANGING.has(request.method.toUpperCase())) return;
+  const refuse = (from: string) =>
+    forbidden(`This request came from another site (${from}); Cairn accepts changes only from its own pages. Open Cairn itself and do it there.`);
+  const site = request.headers.get("sec-fetch-site");
+  if (site && site !== "same-origin" && site !== "none") throw refuse(`Sec-Fetch-Site: ${site}`);
+  const origin = request.headers.get("origin");
+  if (origin === null) return;
+  let host: string | null = null;
+  try {
+    host = origin === "null" ? null : new URL(origin).host;
+  } catch {
+    host = null;
+  }
+  if (!host || !ownHosts(request).has(host)) throw refuse(`Origin: ${origin.slice(0, 100)}`);
+}
+
+/**
+ * Wraps a route handler so that every thrown error becomes the one error response, and every
+ * state-changing request from another site is refused (403) before the handler runs.
+ */
 export function route<C>(handler: Handler<C>): Handler<C> {
   return async (request, context) => {
     try {
+      assertSameOrigin(request);
       return await handler(request, context);
     } catch (e) {
       return errorResponse(e);
@@ -35,11 +94,61 @@ export function zodIssues(error: { issues: ReadonlyArray<{ path: ReadonlyArray<P
   return error.issues.map((i) => ({ path: i.path.map(String).join(".") || "body", message: i.message }));
 }
 
-/** Reads a JSON body and validates it; 422 with per-field issues when it does not fit. */
-export async function readBody<T>(request: Request, schema: ZodType<T>): Promise<T> {
+/**
+ * Body size limits, chosen per route: `small` for forms of a few fields, `text` for routes that
+ * carry a step, a statement or a report (200 000 characters of text at most), `claims` for claim
+ * attachments (graphs can be large; 20 claims of 64 MiB each are not accepted in one request).
+ */
+export const BODY_LIMITS = { small: 64 * 1024, text: 2 * 1024 * 1024, claims: 16 * 1024 * 1024 } as const;
+
+const sizeName = (bytes: number) => (bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MiB` : `${Math.round(bytes / 1024)} KiB`);
+
+const tooLarge = (limit: number) =>
+  new AppError("too_large", `The request body is larger than this request's limit of ${sizeName(limit)}; nothing was saved. Send less at once (for claims: fewer or smaller graphs per request).`);
+
+/** Reads the body as UTF-8 text, giving up (413) as soon as more than `limit` bytes have arrived. */
+async function readLimited(request: Request, limit: number): Promise<string> {
+  const declared = Number(request.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      throw tooLarge(limit);
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(size);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    throw invalid("The request body is not valid UTF-8 text.", [{ path: "body", message: "not UTF-8" }]);
+  }
+}
+
+/**
+ * Reads a JSON body and validates it: 415 unless it is sent as `application/json`, 413 past
+ * `limit` bytes (checked while reading), 422 with per-field issues when it does not fit.
+ */
+export async function readBody<T>(request: Request, schema: ZodType<T>, limit: number = BODY_LIMITS.text): Promise<T> {
+  const type = (request.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/json")
+    throw new AppError("unsupported_media_type", `Send the request body as JSON with the header Content-Type: application/json (it was ${type ? `"${type}"` : "missing"}).`);
+  const text = await readLimited(request, limit);
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     throw invalid("The request body must be JSON.", [{ path: "body", message: "not valid JSON" }]);
   }

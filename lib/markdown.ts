@@ -10,6 +10,7 @@ import rehypeSanitize, { defaultSchema } from "rehype-sanitize";
 import rehypeKatex from "rehype-katex";
 import type { PluggableList } from "unified";
 import { rehypeMathBudget } from "@/lib/math-budget";
+import { remarkDisplayMathInline } from "@/lib/display-math";
 
 export const sanitizeSchema = {
   ...defaultSchema,
@@ -17,7 +18,9 @@ export const sanitizeSchema = {
   tagNames: (defaultSchema.tagNames ?? []).filter((t) => t !== "img"),
   attributes: {
     ...defaultSchema.attributes,
-    code: [...(defaultSchema.attributes?.code ?? []), ["className", "language-math", "math-inline", "math-display"]],
+    // One className rule for code (the sanitizer reads only the first rule naming an attribute): the default's
+    // language-* classes plus the two math classes, so `$$…$$` within a line keeps its math-display class.
+    code: [...(defaultSchema.attributes?.code ?? []).filter((a) => (Array.isArray(a) ? a[0] : a) !== "className"), ["className", /^language-./, "math-inline", "math-display"]],
     span: [...(defaultSchema.attributes?.span ?? []), ["className", "math", "math-inline", "math-display"]],
     div: [...(defaultSchema.attributes?.div ?? []), ["className", "math", "math-display"]],
   },
@@ -26,7 +29,8 @@ export const sanitizeSchema = {
 
 export const katexOptions = { trust: false, maxExpand: 1000, maxSize: 20, strict: "ignore" as const, throwOnError: false };
 
-export const remarkPlugins: PluggableList = [remarkGfm, remarkMath];
+// `$$…$$` within a line is display math, as in the PDF (lib/display-math.ts).
+export const remarkPlugins: PluggableList = [remarkGfm, remarkMath, remarkDisplayMathInline];
 // The budget sits between the two: an over-large or too deeply nested formula becomes an error box
 // before KaTeX renders it (see lib/math-budget.ts).
 export const rehypePlugins: PluggableList = [[rehypeSanitize, sanitizeSchema], [rehypeMathBudget, katexOptions], [rehypeKatex, katexOptions]];

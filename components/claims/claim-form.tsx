@@ -1,5 +1,6 @@
 "use client";
 import { useState } from "react";
+import { ClaimPreview } from "./claim-preview";
 import { useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useSWRConfig } from "swr";
@@ -38,7 +39,7 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
 export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number }) {
   const { mutate } = useSWRConfig();
   const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setError, formState } = useForm<ClaimForm>({ resolver: zodResolver(claimFormSchema), defaultValues: emptyClaimForm });
+  const { register, handleSubmit, watch, setError, setValue, formState } = useForm<ClaimForm>({ resolver: zodResolver(claimFormSchema), defaultValues: emptyClaimForm });
   const kind = watch("kind");
   const predicate = watch("predicate");
   const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
@@ -123,10 +124,18 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
               ))}
             </select>
           </FormField>
-          <FormField label="Bound b" hint="2, 7/2, sqrt(5), sqrt(2+sqrt(5)), 2cos(pi/7)" error={err("bound")}>
+          <FormField label="Bound b" hint="2, 7/2, (1+sqrt(5))/2, phi, 1+sqrt(2), sqrt(2+sqrt(5)), 2cos(pi/7), root(x^3-x-1, 1, 2)" error={err("bound")}>
             <input {...register("bound")} className={input} aria-label="bound" />
           </FormField>
         </div>
+      )}
+      {!enumeration && (
+        <ClaimPreview
+          graphText={watch("graphText")}
+          graphFormat={watch("graphFormat")}
+          bound={kind === "spectral-radius-bound" || kind === "vector-certificate" ? watch("bound") : undefined}
+          onBaseOne={() => setValue("graphText", `base = 1\n${watch("graphText")}`, { shouldDirty: true })}
+        />
       )}
       {kind === "vector-certificate" && (
         <FormField label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" error={err("vector")}>

@@ -1,13 +1,9 @@
 "use client";
-import dynamic from "next/dynamic";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import "katex/dist/katex.min.css";
-import { rehypePlugins, remarkPlugins } from "@/lib/markdown";
+import { MathEditor } from "./math-editor";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
-
-const MDEditor = dynamic(() => import("@uiw/react-md-editor"), { ssr: false, loading: () => <p className="text-stone-500">Loading the editor…</p> });
 
 interface Latest {
   id: number;
@@ -58,15 +54,7 @@ export function StepEditor({ proofId, stepId, latest }: { proofId: number; stepI
 
   return (
     <section aria-label="edit this step" className="mt-4" data-testid="step-editor">
-      <div data-color-mode="light">
-        <MDEditor
-          value={text}
-          onChange={(v) => setText(v ?? "")}
-          height={280}
-          textareaProps={{ "aria-label": "step text (Markdown with $…$ math)" }}
-          previewOptions={{ remarkPlugins, rehypePlugins, skipHtml: true }}
-        />
-      </div>
+      <MathEditor value={text} onChange={setText} height={280} label="Step text" hint="Markdown with $…$ math" />
       <div className="mt-2 flex flex-wrap items-center gap-3">
         <button type="button" disabled={saving || text.trim() === ""} onClick={() => save(baseId)} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
           {saving ? "Saving…" : "Save as new revision"}

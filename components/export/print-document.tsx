@@ -3,6 +3,7 @@ import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type ExportDocument } fr
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { ExportKindBadge } from "./export-kind-badge";
+import { TableScroll } from "@/components/ui/table-scroll";
 
 const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 const Heading = ({ depth, children }: { depth: number; children: React.ReactNode }) =>
@@ -75,6 +76,7 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
         <p className="text-sm">
           Members: {doc.members.map((m) => `${m.name} (${m.role})`).join(", ")}. Each step needs {doc.requiredApprovals} approval{doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.
         </p>
+        <TableScroll label="Approvals">
         <table className="mt-3 w-full text-left text-sm">
           <thead><tr><th>Step</th><th>Reviewer</th><th>Approved revision</th><th>Date</th></tr></thead>
           <tbody>
@@ -84,6 +86,7 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
             ))}
           </tbody>
         </table>
+        </TableScroll>
       </section>
     </article>
   );

@@ -1,15 +1,16 @@
 "use client";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createStepSchema, type CreateStepInput } from "@/lib/validations/step";
 import { apiFetch } from "./api-client";
-import { FormField, FormProblem } from "./form-field";
+import { FormProblem } from "./form-field";
+import { MathEditor } from "@/components/editor/math-editor";
 
 /** Starts a step at the end of a case, then opens it for editing and claims. */
 export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: number }) {
   const router = useRouter();
-  const { register, handleSubmit, setError, formState } = useForm<CreateStepInput>({ resolver: zodResolver(createStepSchema), defaultValues: { body: "" } });
+  const { control, handleSubmit, setError, formState } = useForm<CreateStepInput>({ resolver: zodResolver(createStepSchema), defaultValues: { body: "" } });
   const submit = handleSubmit(async (values) => {
     try {
       const { step } = await apiFetch<{ step: { id: number } }>(`/api/proofs/${proofId}/cases/${caseId}/steps`, { method: "POST", body: values });
@@ -20,9 +21,11 @@ export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: numb
   });
   return (
     <form onSubmit={submit} className="mt-2 space-y-2 rounded border border-stone-200 bg-stone-50 p-3" data-testid="add-step">
-      <FormField label="First draft of the step" hint="Markdown with $…$ math" error={formState.errors.body?.message}>
-        <textarea {...register("body")} rows={4} className="w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm" />
-      </FormField>
+        <Controller
+          control={control}
+          name="body"
+          render={({ field: f }) => <MathEditor value={f.value} onChange={f.onChange} label="First draft of the step" hint="Markdown with $…$ math" error={formState.errors.body?.message} height={200} />}
+        />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
         Add step and open it

@@ -72,7 +72,7 @@ export function ClaimsTable({ proofId, claims }: { proofId: number; claims: Clai
           {table.getRowModel().rows.length} of {claims.length} claims
         </span>
       </div>
-      <SortableTable table={table} rowClassName="align-top" />
+      <SortableTable table={table} label="All claims" rowClassName="align-top" />
     </div>
   );
 }

@@ -1,17 +1,18 @@
 "use client";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createProofSchema, type CreateProofInput } from "@/lib/validations/proof";
 import { apiFetch } from "./api-client";
 import { FormField, FormProblem } from "./form-field";
+import { MathEditor } from "@/components/editor/math-editor";
 
 /** An author's "edit title and statement" control on the overview. */
 export function EditProof({ proofId, initial }: { proofId: number; initial: CreateProofInput }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const { register, handleSubmit, setError, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: initial });
+  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: initial });
   const submit = handleSubmit(async (values) => {
     try {
       await apiFetch(`/api/proofs/${proofId}`, { method: "PATCH", body: values });
@@ -33,9 +34,11 @@ export function EditProof({ proofId, initial }: { proofId: number; initial: Crea
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={field} />
       </FormField>
-      <FormField label="Statement" hint="Markdown with $…$ math" error={formState.errors.statement?.message}>
-        <textarea {...register("statement")} rows={6} className={`${field} font-mono text-sm`} />
-      </FormField>
+        <Controller
+          control={control}
+          name="statement"
+          render={({ field: f }) => <MathEditor value={f.value} onChange={f.onChange} label="Statement" hint="Markdown with $…$ math" error={formState.errors.statement?.message} height={220} />}
+        />
       <FormProblem message={formState.errors.root?.message} />
       <div className="flex gap-2">
         <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">

@@ -1,17 +1,16 @@
 "use client";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createProofSchema, type CreateProofInput } from "@/lib/validations/proof";
 import { ApiError, apiFetch } from "./api-client";
 import { FormField, FormProblem } from "./form-field";
-import { MathMarkdown } from "@/components/markdown/math-markdown";
+import { MathEditor } from "@/components/editor/math-editor";
 
-/** Title and statement (Markdown with math, previewed as typed); creates the proof and opens it. */
+/** Title and statement (Markdown with math, in the editor steps use, previewed as typed); creates the proof and opens it. */
 export function NewProofForm() {
   const router = useRouter();
-  const { register, handleSubmit, setError, watch, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: { title: "", statement: "" } });
-  const statement = watch("statement");
+  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: { title: "", statement: "" } });
   const submit = handleSubmit(async (values) => {
     try {
       const { proof } = await apiFetch<{ proof: { id: number } }>("/api/proofs", { method: "POST", body: values });
@@ -27,15 +26,11 @@ export function NewProofForm() {
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={field} />
       </FormField>
-      <FormField label="Statement" hint="Markdown with $…$ and $$…$$ math" error={formState.errors.statement?.message}>
-        <textarea {...register("statement")} rows={5} className={`${field} font-mono text-sm`} />
-      </FormField>
-      {statement.trim() && (
-        <div className="rounded border border-stone-200 bg-white p-3">
-          <p className="text-xs text-stone-500">Preview</p>
-          <MathMarkdown source={statement} />
-        </div>
-      )}
+        <Controller
+          control={control}
+          name="statement"
+          render={({ field: f }) => <MathEditor value={f.value} onChange={f.onChange} label="Statement" hint="Markdown with $…$ and $$…$$ math" error={formState.errors.statement?.message} height={240} />}
+        />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-4 py-1.5 text-white hover:bg-lichen-800 disabled:opacity-60">
         {formState.isSubmitting ? "Creating…" : "Create proof"}

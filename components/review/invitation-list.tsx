@@ -1,6 +1,7 @@
 /** The proof's invitations, with whether each mail has gone out ("not sent yet" while it is retried). */
 import type { InvitationView } from "@/lib/data/invitations";
 import { ActionButton } from "./action-button";
+import { TableScroll } from "@/components/ui/table-scroll";
 
 const mailText = (m: InvitationView["mail"]) =>
   m.status === "sent" ? "✓ mail sent" : m.status === "failed" ? `✗ mail failed after ${m.attempts} attempts` : `… not sent yet (${m.attempts} attempt${m.attempts === 1 ? "" : "s"}; retrying)`;
@@ -10,6 +11,7 @@ const STATE_TEXT: Record<InvitationView["state"], string> = { accepted: "✓ acc
 export function InvitationList({ proofId, invitations }: { proofId: number; invitations: InvitationView[] }) {
   if (invitations.length === 0) return <p className="text-sm italic text-stone-500">No invitations yet.</p>;
   return (
+    <TableScroll label="Invitations">
     <table className="w-full text-sm" data-testid="invitations">
       <thead>
         <tr className="border-b border-stone-300 text-left">
@@ -36,5 +38,6 @@ export function InvitationList({ proofId, invitations }: { proofId: number; invi
         ))}
       </tbody>
     </table>
+    </TableScroll>
   );
 }

@@ -15,6 +15,7 @@ import type { QueueDisputeRow, QueueStepRow, ReviewerProgress } from "@/lib/data
 import { DisputeStateBadge } from "./badges";
 
 type Kind = "steps" | "disputes" | "progress" | "myDisputes";
+const TABLE_LABEL: Record<Kind, string> = { steps: "Steps to review", disputes: "Disputes", progress: "Reviewers’ progress", myDisputes: "Your disputes" };
 type Row = QueueStepRow | QueueDisputeRow | ReviewerProgress;
 
 const day = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" });
@@ -100,7 +101,7 @@ export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Ro
           </select>
         </label>
       </div>
-      <SortableTable table={table} rowTestId="queue-row" />
+      <SortableTable table={table} label={TABLE_LABEL[kind]} rowTestId="queue-row" />
     </div>
   );
 }

@@ -3,7 +3,6 @@
  * Shown on the proof overview (rendered by the workspace), the members page and the queue's step view.
  */
 import type { Readiness } from "@/lib/data/review-queues";
-import { VerdictCaution } from "@/components/ui/caution";
 import { CaseStateBadge } from "@/components/proof/case-state-badge";
 import { ProofStateBadge } from "./badges";
 
@@ -35,7 +34,6 @@ export function ReadinessRollup({ readiness }: { readiness: Readiness }) {
           </li>
         ))}
       </ul>
-      <VerdictCaution compact />
     </section>
   );
 }

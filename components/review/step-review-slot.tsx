@@ -8,7 +8,6 @@ import { useState } from "react";
 import useSWR from "swr";
 import { useRouter } from "next/navigation";
 import type { StepReviewView } from "@/lib/data/review-panel";
-import { VerdictCaution } from "@/components/ui/caution";
 import { ApprovalBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
 import { DisputeCard } from "./dispute-card";
@@ -127,7 +126,6 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
           />
         </div>
       </details>
-      <VerdictCaution compact />
     </section>
   );
 }

@@ -1,5 +1,6 @@
 /** The sections of the editor's desk. */
 import Link from "next/link";
+import { TableScroll } from "@/components/ui/table-scroll";
 import type { Desk } from "@/lib/data/desk";
 import { RecommendationMark, ReportBlock } from "./round-card";
 
@@ -28,6 +29,7 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
       <section className="space-y-2" data-testid="desk-disputes">
         <h2 className="text-xl font-semibold">Open disputes ({desk.disputes.length})</h2>
         {desk.disputes.length === 0 ? <p className="text-stone-600">None open.</p> : (
+          <TableScroll label="Open disputes">
           <table className="w-full text-sm">
             <thead><tr className="text-left"><th>Step</th><th>Raised by</th><th>State</th><th>Age</th></tr></thead>
             <tbody>
@@ -41,6 +43,7 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
               ))}
             </tbody>
           </table>
+          </TableScroll>
         )}
       </section>
       <section className="space-y-2" data-testid="desk-reports">

@@ -1,5 +1,6 @@
 /** One review round as its viewer may see it: due date, decision and letter, the readable reports, the editor's referee table. */
 import type { ReactNode } from "react";
+import { TableScroll } from "@/components/ui/table-scroll";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { recommendationLabel } from "@/lib/review/rounds";
 import type { ReportView, RoundView } from "@/lib/data/rounds";
@@ -59,6 +60,7 @@ export function RoundCard({ proofId, round, children }: { proofId: number; round
         </div>
       )}
       {round.referees && round.referees.length > 0 && (
+        <TableScroll label="Referees">
         <table className="w-full text-sm" data-testid="referees">
           <thead>
             <tr className="text-left"><th>Referee</th><th>Due</th><th>Progress</th><th>Recommendation</th></tr>
@@ -76,6 +78,7 @@ export function RoundCard({ proofId, round, children }: { proofId: number; round
             ))}
           </tbody>
         </table>
+        </TableScroll>
       )}
       {round.reports.map((r) => <ReportBlock key={r.id} report={r} />)}
       {children}

@@ -1,13 +1,16 @@
 "use client";
 
 import { flexRender, type Table } from "@tanstack/react-table";
+import { TableScroll } from "./table-scroll";
 
 /**
  * Renders a @tanstack/react-table instance as a plain table whose headers sort on click. Sorting is
- * announced with aria-sort and shown with an arrow (never colour alone). Knows nothing of the data.
+ * announced with aria-sort and shown with an arrow (never colour alone). A wide table scrolls inside its frame.
+ * Knows nothing of the data.
  */
-export function SortableTable<T>({ table, rowClassName = "", rowTestId }: { table: Table<T>; rowClassName?: string; rowTestId?: string }) {
+export function SortableTable<T>({ table, label, rowClassName = "", rowTestId }: { table: Table<T>; label: string; rowClassName?: string; rowTestId?: string }) {
   return (
+    <TableScroll label={label}>
     <table className="w-full border-collapse text-sm">
       <thead>
         {table.getHeaderGroups().map((g) => (
@@ -38,5 +41,6 @@ export function SortableTable<T>({ table, rowClassName = "", rowTestId }: { tabl
         ))}
       </tbody>
     </table>
+    </TableScroll>
   );
 }

@@ -85,7 +85,11 @@ export async function assertCanGiveVerdict(step: StepRef, actor: Actor): Promise
 
 /** Editors and the proof's owner manage reviewers. */
 export async function assertCanManageReviewers(proofId: number, user: CurrentUser, role: ProofRole): Promise<void> {
-  const refusal = accessRefusal({ role, owner: await isOwner(proofId, user.id), caseLimited: false }, "reviewers.manage");
+  const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy", "blindReview"] });
+  // On a blind proof only editors do: managing referees shows their names to the owner, who is an author.
+  if (role !== "editor" && proof?.blindReview && proof.createdBy === user.id)
+    throw forbidden("This proof is refereed blind: only its editors manage the referees, so that their names stay hidden from the authors.");
+  const refusal = accessRefusal({ role, owner: proof?.createdBy === user.id, caseLimited: false }, "reviewers.manage");
   if (refusal) throw forbidden(refusal);
 }
 

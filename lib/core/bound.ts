@@ -1,85 +1,37 @@
 /**
- * Bounds for spectral claims: exact real algebraic numbers with a small text syntax.
+ * Bounds for spectral claims: exact real algebraic numbers written as expressions.
  *
- * Syntax (whitespace ignored, case-insensitive):
- *   rational      2   5/2   -1.25
- *   square root   sqrt(5)   √5   √(7/2)   sqrt(2+sqrt(5))   sqrt(a-sqrt(c))   (a, c rational)
- *   2cos          2cos(pi/7)   2cos(3pi/7)   2*cos(pi*3/7)   2cos(π/5)
- *   root          root(x^4-4x^2-1, 2, 3)  — the unique root of an integer polynomial in (lo, hi)
+ * Syntax (whitespace ignored, names case-insensitive; the README's claim section has examples):
+ *   numbers        2   5/2   -1.25   (decimals are exact: 0.1 = 1/10)
+ *   arithmetic     + - * / and integer powers ^k (|k| <= 64; also ² ³, −, ·, ×); a number may stand
+ *                  before a function or a parenthesis: 2cos(pi/7), 2sqrt(2), 3(1+√2)
+ *   square roots   sqrt(…)   √5   √(7/2)   sqrt(2+sqrt(5))
+ *   cosines        cos(pπ/q), sin(pπ/q) and so 2cos(pπ/q), with "pi" or "π": 2cos(pi/7), cos(3π/7), 2*cos(pi*3/7)
+ *   golden ratio   phi, φ or ϕ = (1+√5)/2 (the only named constant; π itself is not algebraic)
+ *   root           root(x^4-4x^2-1, 2, 3): the unique root of an integer polynomial in (lo, hi)
  *
- * A bound is either a Rational or an algebraic number given by a square-free integer polynomial and
- * an isolating interval (lo, hi) containing exactly one of its roots. Every comparison with a
- * rational is exact: by squaring for square roots, by Sturm counts / sign changes otherwise.
+ * Every bound is reduced exactly, while it is parsed, to a Rational or to its minimal polynomial with an
+ * isolating interval (algebraic.ts); `describeBound` shows that normal form back to the author, and
+ * `boundRootForm` writes it as a root(...) input that parses to the same number. Comparisons with a
+ * rational are exact: by squaring for square roots, by Sturm counts / sign changes otherwise.
  * For 2cos(pi p/q) the polynomial is the minimal polynomial Psi_N of 2cos(2 pi/N) (Watkins & Zeitlin,
  * "The minimal polynomial of cos(2 pi/n)", Amer. Math. Monthly 100 (1993) 471-474), obtained from the
  * cyclotomic polynomial Phi_N through the Chebyshev relation z^j + z^-j = C_j(z + 1/z).
  */
-import { NumberFormatError, parseRational, Rational, rat, cmp, midpoint, sub, floor, ratToNumber, ratToString, isqrt, gcd as gcdBig, sign } from "./rational";
-import { Poly, trim, polyMul, polySub, polyScale, signAt, squarefree, sturmSequence, signVariations, rootBound, deg, lead, polyToString } from "./sturm";
+import { NumberFormatError, parseRational, Rational, rat, cmp, ratToNumber, ratToString, gcd as gcdBig, sign, floor } from "./rational";
+import { Poly, trim, signAt, sturmSequence, signVariations, deg, polyToString } from "./sturm";
 import { minimalPolynomial2Cos } from "./cyclotomic";
+import { FactorLimitError } from "./factor";
+import {
+  Bound, AlgebraicBound, rationalBound, algebraicBound, enclose, isolateByRank, BoundValueError, MAX_EXPRESSION_DEGREE, MAX_EXPONENT,
+  plus, minus, times, quotient, power, negate, squareRoot, rootOf,
+} from "./algebraic";
 
-export type Bound =
-  | { readonly kind: "rational"; readonly text: string; readonly value: Rational }
-  | {
-      readonly kind: "algebraic";
-      readonly text: string;
-      readonly form: "sqrt" | "2cos" | "root";
-      /** Square-free integer polynomial with the bound as a root (the minimal polynomial for sqrt and 2cos). */
-      readonly poly: Poly;
-      /** Isolating interval: exactly one root of `poly` in (lo, hi); poly(lo), poly(hi) != 0. */
-      readonly lo: Rational;
-      readonly hi: Rational;
-      /** Display only. */
-      readonly approx: number;
-    };
-
-export function rationalBound(value: Rational, text = ratToString(value)): Bound {
-  return { kind: "rational", text, value };
-}
-
+export type { Bound, AlgebraicBound } from "./algebraic";
+export { rationalBound, enclose, isolateByRank, MAX_EXPRESSION_DEGREE, MAX_EXPONENT } from "./algebraic";
 export { cyclotomic, chebyshevC, minimalPolynomial2Cos } from "./cyclotomic";
 
-// ---------------------------------------------------------------- isolation and refinement
-
-/** Isolating interval of the rank-th largest real root (rank 0 = largest) of a square-free polynomial. */
-export function isolateByRank(p: Poly, rank: number): { lo: Rational; hi: Rational } {
-  const seq = sturmSequence(p);
-  const B = rootBound(p);
-  const above = (x: Rational) => signVariations(seq, x) - signVariations(seq, "+inf");
-  let lo = rat(-B), hi = rat(B);
-  if (above(lo) < rank + 1) throw new RangeError(`polynomial ${polyToString(p)} has fewer than ${rank + 1} real roots`);
-  for (let guard = 0; guard < 100_000; guard++) {
-    const nLo = above(lo), nHi = above(hi);
-    if (nLo === rank + 1 && nHi === rank) return { lo, hi };
-    let mid = midpoint(lo, hi);
-    // Never split at a root: nudge the split point until p does not vanish there.
-    for (let t = 4n; signAt(p, mid) === 0; t *= 2n) mid = rat(mid.num * t + 1n, mid.den * t);
-    if (above(mid) >= rank + 1) lo = mid;
-    else hi = mid;
-  }
-  throw new RangeError("root isolation did not converge");
-}
-
-const refined = new WeakMap<Bound, { lo: Rational; hi: Rational }>();
-
-/**
- * Exact rational enclosure lo <= b <= hi with hi - lo <= 2^-bits (lo = hi = b for rational b;
- * lo < b < hi strictly for irrational b). Refinement bisects on the sign change of `poly`.
- */
-export function enclose(b: Bound, bits: number): { lo: Rational; hi: Rational } {
-  if (b.kind === "rational") return { lo: b.value, hi: b.value };
-  let cur = refined.get(b) ?? { lo: b.lo, hi: b.hi };
-  const width = rat(1n, 1n << BigInt(Math.max(0, Math.ceil(bits))));
-  const sLo = signAt(b.poly, b.lo);
-  while (cmp(sub(cur.hi, cur.lo), width) > 0) {
-    const mid = midpoint(cur.lo, cur.hi);
-    const s = signAt(b.poly, mid);
-    if (s === 0) return { lo: mid, hi: mid }; // a rational root inside the isolating interval is b itself
-    cur = s === sLo ? { lo: mid, hi: cur.hi } : { lo: cur.lo, hi: mid };
-  }
-  refined.set(b, cur);
-  return cur;
-}
+// ---------------------------------------------------------------- comparison
 
 /** Sign of x - b, exact. */
 export function compareToBound(x: Rational, b: Bound): -1 | 0 | 1 {
@@ -103,14 +55,37 @@ export function compareToBound(x: Rational, b: Bound): -1 | 0 | 1 {
 
 // ---------------------------------------------------------------- parsing
 
+/** Recently parsed bounds (they are immutable): claims re-check the same few bounds many times. */
+const parsedBounds = new Map<string, Bound>();
+const PARSED_BOUNDS_KEPT = 256;
+
 /** Parses a bound; errors are NumberFormatError with the 1-based column of the problem. */
 export function parseBound(text: string): Bound {
-  const p = new Parser(text);
-  const b = p.bound();
-  p.skipSpace();
-  if (p.i < text.length) p.fail(`unexpected "${text.slice(p.i)}" after the bound`);
+  const hit = parsedBounds.get(text);
+  if (hit) return hit;
+  const b = parseBoundUncached(text);
+  if (parsedBounds.size >= PARSED_BOUNDS_KEPT) parsedBounds.delete(parsedBounds.keys().next().value!);
+  parsedBounds.set(text, b);
   return b;
 }
+
+function parseBoundUncached(text: string): Bound {
+  const p = new Parser(text);
+  try {
+    p.skipSpace();
+    if (p.i >= text.length) p.fail("empty bound: write a number or an expression such as (1+sqrt(5))/2");
+    const b = p.expr();
+    p.skipSpace();
+    if (p.i < text.length) p.fail(`unexpected "${text.slice(p.i)}" after the bound`);
+    return b.text === text.trim() ? b : { ...b, text: text.trim() };
+  } catch (e) {
+    if (e instanceof BoundValueError) throw new NumberFormatError(`${e.detail} in bound "${text}"`, e.column);
+    if (e instanceof FactorLimitError) throw new NumberFormatError(`${e.message} in bound "${text}"`, 1);
+    throw e;
+  }
+}
+
+const NAME = /^(sqrt|root|cos|sin|phi|pi)/i;
 
 class Parser {
   i = 0;
@@ -126,10 +101,16 @@ class Parser {
     if (this.s.slice(this.i, this.i + tok.length).toLowerCase() === tok) { this.i += tok.length; return true; }
     return false;
   }
+  eatAny(...toks: string[]): boolean {
+    return toks.some((t) => this.eat(t));
+  }
   expect(tok: string): void {
     if (!this.eat(tok)) this.fail(`expected "${tok}"`);
   }
-  rational(): Rational {
+  text(start: number): string {
+    return this.s.slice(start, this.i).trim();
+  }
+  signedRational(): Rational {
     this.skipSpace();
     const m = /^[+-]?\s*\d+(?:\.\d+)?(?:\s*\/\s*\d+)?/.exec(this.s.slice(this.i));
     if (!m) this.fail("expected a rational number");
@@ -144,54 +125,133 @@ class Parser {
     this.i += m[0].length;
     return BigInt(m[0]);
   }
-  bound(): Bound {
+  /** Does a factor start here (for a number written before a function or a parenthesis)? */
+  startsFactor(): boolean {
+    this.skipSpace();
+    const rest = this.s.slice(this.i);
+    return /^[(√φϕ]/.test(rest) || /^(sqrt|root|cos|sin|phi)/i.test(rest);
+  }
+  expr(): Bound {
     this.skipSpace();
     const start = this.i;
-    if (this.eat("sqrt") || this.eat("√")) return this.sqrt(start);
-    if (this.eat("root")) return this.root(start);
-    if (/^2\s*\*?\s*cos/i.test(this.s.slice(this.i))) {
-      this.i = this.s.toLowerCase().indexOf("cos", this.i) + 3;
-      return this.twoCos(start);
+    let a = this.term();
+    for (;;) {
+      if (this.eat("+")) a = plus(a, this.term(), this.text(start));
+      else if (this.eatAny("-", "−")) a = minus(a, this.term(), this.text(start));
+      else return a;
     }
-    const v = this.rational();
-    return rationalBound(v, this.s.trim());
   }
-  sqrt(start: number): Bound {
-    const paren = this.eat("(");
-    const argAt = this.i;
-    const a = this.rational();
-    let nested: { sgn: bigint; c: Rational } | undefined;
-    if (paren) {
+  term(): Bound {
+    this.skipSpace();
+    const start = this.i;
+    let a = this.unary();
+    for (;;) {
       this.skipSpace();
-      const op = this.s[this.i];
-      if (op === "+" || op === "-") {
-        this.i++;
-        if (!(this.eat("sqrt") || this.eat("√"))) this.fail("expected sqrt(...) after the sign");
-        const inner = this.eat("(");
-        const c = this.rational();
-        if (inner) this.expect(")");
-        if (sign(c) < 0) this.fail("square root of a negative number", argAt);
-        nested = { sgn: op === "+" ? 1n : -1n, c };
-      }
-      this.expect(")");
+      if (this.s.startsWith("**", this.i)) return a; // handled by power(); never a product
+      if (this.eatAny("*", "·", "×")) a = times(a, this.unary(), this.text(start));
+      else if (this.eat("/")) {
+        this.skipSpace();
+        const at = this.i + 1;
+        const d = this.unary();
+        a = quotient(a, d, this.text(start), at);
+      } else if (this.startsFactor()) a = times(a, this.power(), this.text(start));
+      else return a;
     }
-    const text = this.s.slice(start, this.i).trim();
-    if (!nested) return sqrtBound(a, text, argAt, this);
-    return nestedSqrt(a, nested.sgn, nested.c, text, argAt, this);
   }
-  twoCos(start: number): Bound {
+  unary(): Bound {
+    this.skipSpace();
+    const start = this.i;
+    if (this.eatAny("-", "−")) return negate(this.unary(), this.text(start));
+    if (this.eat("+")) return this.unary();
+    return this.power();
+  }
+  power(): Bound {
+    this.skipSpace();
+    const start = this.i;
+    const base = this.primary();
+    this.skipSpace();
+    const at = this.i + 1;
+    if (this.eat("²")) return power(base, 2, this.text(start), at);
+    if (this.eat("³")) return power(base, 3, this.text(start), at);
+    if (this.eatAny("^", "**")) {
+      const paren = this.eat("(");
+      const neg = this.eatAny("-", "−");
+      this.skipSpace();
+      if (!/^\d/.test(this.s.slice(this.i))) this.fail("powers take an integer exponent (for roots use sqrt(...) or root(...))");
+      const k = this.integer();
+      if (paren) this.expect(")");
+      const kk = Number(k > 1000n ? 1001n : k) * (neg ? -1 : 1);
+      return power(base, kk, this.text(start), at);
+    }
+    return base;
+  }
+  primary(): Bound {
+    this.skipSpace();
+    const start = this.i;
+    const rest = this.s.slice(this.i);
+    if (/^\d/.test(rest)) {
+      const m = /^\d+(?:\.\d+)?/.exec(rest)!;
+      this.i += m[0].length;
+      return rationalBound(parseRational(m[0], start), m[0]);
+    }
+    if (this.eat("(")) {
+      const b = this.expr();
+      this.expect(")");
+      return { ...b, text: this.text(start) } as Bound;
+    }
+    if (this.eat("√")) {
+      const at = this.i + 1;
+      const arg = this.primary();
+      return squareRoot(arg, this.text(start), at);
+    }
+    const name = NAME.exec(rest)?.[1]?.toLowerCase();
+    if (name === "sqrt") {
+      this.i += 4;
+      this.skipSpace();
+      const at = this.i + 1 + (this.s[this.i] === "(" ? 1 : 0);
+      let arg: Bound;
+      if (this.eat("(")) {
+        this.skipSpace();
+        const argAt = this.i + 1;
+        arg = this.expr();
+        this.expect(")");
+        return squareRoot(arg, this.text(start), argAt);
+      }
+      arg = this.primary();
+      return squareRoot(arg, this.text(start), at);
+    }
+    if (name === "root") { this.i += 4; return this.root(start); }
+    if (name === "cos" || name === "sin") { this.i += 3; return this.cosine(start, name); }
+    if (name === "phi" || this.eatAny("φ", "ϕ")) {
+      if (name === "phi") this.i += 3;
+      return goldenRatio(this.text(start));
+    }
+    if (name === "pi" || rest.startsWith("π")) this.fail("π on its own is not algebraic; use it inside an angle, as in 2cos(pi/7)");
+    this.fail(this.i >= this.s.length ? "the bound ends too early" : `expected a number, "(", sqrt, cos, phi or root here, not "${rest[0]}"`);
+  }
+  /** cos(pπ/q) or sin(pπ/q): half of 2cos(pπ/q); sin(pπ/q) = cos((q − 2p)π/(2q)). */
+  cosine(start: number, name: "cos" | "sin"): Bound {
     this.expect("(");
     let p = 1n, q = 1n;
-    const negative = this.eat("-");
+    const negative = this.eatAny("-", "−");
     this.skipSpace();
-    if (/^\d/.test(this.s.slice(this.i))) { p = this.integer(); this.eat("*"); }
+    if (/^0\s*\)/.test(this.s.slice(this.i))) { this.integer(); p = 0n; }
+    else {
+      if (/^\d/.test(this.s.slice(this.i))) { p = this.integer(); this.eatAny("*", "·"); }
+      if (!(this.eat("pi") || this.eat("π"))) this.fail(`expected "pi" or "π" in ${name}(...): angles are rational multiples of π, as in ${name}(3pi/7)`);
+      if (this.eatAny("*", "·")) p *= this.integer();
+      if (this.eat("/")) {
+        const at = this.i;
+        q = this.integer();
+        if (q === 0n) this.fail("zero denominator in the angle", at);
+      }
+    }
     if (negative) p = -p;
-    if (!(this.eat("pi") || this.eat("π"))) this.fail('expected "pi" in 2cos(...)');
-    if (this.eat("*")) p *= this.integer();
-    if (this.eat("/")) q = this.integer();
-    if (q === 0n) this.fail("zero denominator in the angle");
     this.expect(")");
-    return twoCosBound(p, q, this.s.slice(start, this.i).trim());
+    if (name === "sin") { [p, q] = [q - 2n * p, 2n * q]; }
+    const text = this.text(start);
+    const two = twoCosBound(p, q, text);
+    return times(two, rationalBound(rat(1n, 2n)), text);
   }
   root(start: number): Bound {
     this.expect("(");
@@ -200,78 +260,90 @@ class Parser {
     if (close < 0) this.fail("expected root(polynomial, lo, hi)");
     const poly = parsePolynomial(this.s.slice(this.i, close), polyAt);
     this.i = close + 1;
-    const lo = this.rational();
+    const lo = this.signedRational();
     this.expect(",");
-    const hi = this.rational();
+    const hi = this.signedRational();
     this.expect(")");
-    const text = this.s.slice(start, this.i).trim();
+    const text = this.text(start);
     if (cmp(lo, hi) >= 0) this.fail("root(...) needs lo < hi", polyAt);
-    const sf = squarefree(poly);
-    if (deg(sf) < 1) this.fail("root(...) needs a non-constant polynomial", polyAt);
-    if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) this.fail("an endpoint of root(...) is itself a root; choose endpoints strictly around it", polyAt);
-    const seq = sturmSequence(sf);
+    if (deg(poly) < 1) this.fail("root(...) needs a non-constant polynomial", polyAt);
+    if (signAt(poly, lo) === 0 || signAt(poly, hi) === 0) this.fail("an endpoint of root(...) is itself a root; choose endpoints strictly around it", polyAt);
+    const seq = sturmSequence(poly);
     const count = signVariations(seq, lo) - signVariations(seq, hi);
     if (count !== 1) this.fail(`the polynomial has ${count} roots in (lo, hi), not exactly one`, polyAt);
-    return algebraic("root", text, sf, lo, hi);
+    return rootOf(poly, lo, hi, text);
   }
 }
 
-/**
- * The root of `poly` in (lo, hi) when it is rational (poly need not be irreducible, e.g. root(x^3-x, 1/2, 3/2) = 1).
- * A rational root p/q in lowest terms of an integer polynomial has q | lead(poly), so lead·root is an
- * integer; once the interval is narrower than 1/|lead| it holds at most one candidate m/lead.
- */
-function rationalRootIn(poly: Poly, lo: Rational, hi: Rational): Rational | undefined {
-  const L = lead(poly) < 0n ? -lead(poly) : lead(poly);
-  const sLo = signAt(poly, lo);
-  while (cmp(sub(hi, lo), rat(1n, L)) >= 0) {
-    const mid = midpoint(lo, hi);
-    const s = signAt(poly, mid);
-    if (s === 0) return mid;
-    if (s === sLo) lo = mid; else hi = mid;
+/** The golden ratio φ = (1+√5)/2 = 2cos(π/5), minimal polynomial x² − x − 1. */
+export function goldenRatio(text = "phi"): Bound {
+  return algebraicBound("expression", text, [-1n, -1n, 1n], rat(1), rat(2));
+}
+
+// ---------------------------------------------------------------- normal form
+
+/** The simplest dyadic isolating interval (lo, lo + 2^-k) of an algebraic bound with a minimal polynomial. */
+export function simpleIsolatingInterval(b: AlgebraicBound): { lo: Rational; hi: Rational } {
+  const seq = sturmSequence(b.poly);
+  for (let k = 0n; k < 200n; k++) {
+    const den = 1n << k;
+    const { lo, hi } = enclose(b, Number(k) + 2);
+    const fl = floor(rat(lo.num * den, lo.den)), fh = floor(rat(hi.num * den, hi.den));
+    if (fl !== fh) continue;
+    const l = rat(fl, den), h = rat(fl + 1n, den);
+    if (signAt(b.poly, l) === 0 || signAt(b.poly, h) === 0) continue;
+    if (signVariations(seq, l) - signVariations(seq, h) === 1) return { lo: l, hi: h };
   }
-  const m = floor(rat(lo.num * L, lo.den)) + 1n;
-  const r = rat(m, L);
-  return cmp(r, hi) < 0 && signAt(poly, r) === 0 ? r : undefined;
+  return { lo: b.lo, hi: b.hi };
 }
 
-function algebraic(form: "sqrt" | "2cos" | "root", text: string, poly: Poly, lo: Rational, hi: Rational): Bound {
-  if (deg(poly) === 1) return rationalBound(rat(-poly[0], poly[1]), text);
-  // A rational b must be a rational bound: the irrational-b code relies on lo < b < hi strictly and on Q(b) = Q[x]/(poly).
-  const r = rationalRootIn(poly, lo, hi);
-  if (r) return rationalBound(r, text);
-  const b: Bound = { kind: "algebraic", form, text, poly, lo, hi, approx: 0 };
-  const { lo: l, hi: h } = enclose(b, 60);
-  return { ...b, approx: (ratToNumber(l) + ratToNumber(h)) / 2 };
+/** The bound as a root(...) input (or a rational) that parses back to the same number. */
+export function boundRootForm(b: Bound): string {
+  if (b.kind === "rational") return ratToString(b.value);
+  const { lo, hi } = simpleIsolatingInterval(b);
+  return `root(${polyToString(b.poly).replace(/\s+/g, "")}, ${ratToString(lo)}, ${ratToString(hi)})`;
 }
 
-function sqrtBound(r: Rational, text: string, at: number, p: Parser): Bound {
-  if (sign(r) < 0) p.fail("square root of a negative number", at);
-  const u = r.num, v = r.den;
-  const su = isqrt(u), sv = isqrt(v);
-  if (su * su === u && sv * sv === v) return rationalBound(rat(su, sv), text);
-  const poly: Poly = [-u, 0n, v];
-  const s = isqrt(u * v); // sqrt(u/v) = sqrt(uv)/v lies in [s/v, (s+1)/v]
-  return algebraic("sqrt", text, poly, rat(s, v), rat(s + 1n, v));
+const SUPERSCRIPT: Record<string, string> = { 0: "⁰", 1: "¹", 2: "²", 3: "³", 4: "⁴", 5: "⁵", 6: "⁶", 7: "⁷", 8: "⁸", 9: "⁹" };
+
+/** x^4 - 4x^2 - 1 as x⁴−4x²−1 (display only). */
+export function prettyPolynomial(p: Poly): string {
+  return polyToString(p).replace(/\^(\d+)/g, (_, d: string) => [...d].map((c) => SUPERSCRIPT[c]).join("")).replace(/ /g, "").replace(/-/g, "−");
 }
 
-/** sqrt(a + sgn*sqrt(c)): a root of (x^2 - a)^2 - c; the largest root for "+", the second largest for "-". */
-function nestedSqrt(a: Rational, sgn: bigint, c: Rational, text: string, at: number, p: Parser): Bound {
-  const sc = isqrt(c.num), sd = isqrt(c.den);
-  if (sc * sc === c.num && sd * sd === c.den) {
-    const inner = rat(a.num * sd + sgn * sc * a.den, a.den * sd);
-    return sqrtBound(inner, text, at, p);
+export interface BoundNormalForm {
+  /** What the author typed. */
+  text: string;
+  /** "rational" or "algebraic". */
+  kind: Bound["kind"];
+  /** The exact value for a rational bound. */
+  value?: string;
+  /** Minimal polynomial (or, for root(...) inputs of degree above the factoring limit, a square-free one). */
+  polynomial?: string;
+  degree?: number;
+  minimal?: boolean;
+  /** Isolating interval with simple rational endpoints. */
+  interval?: [string, string];
+  /** The same number as a root(...) input. */
+  rootForm: string;
+  /** Decimal approximation, display only. */
+  approx: string;
+  /** One sentence for the author: "= root of x²−x−1 in (1, 2) ≈ 1.618034, as you wrote: (1+√5)/2". */
+  sentence: string;
+}
+
+export function describeBound(b: Bound): BoundNormalForm {
+  const approx = boundApprox(b).toPrecision(7).replace(/\.?0+$/, "");
+  if (b.kind === "rational") {
+    const v = ratToString(b.value);
+    return { text: b.text, kind: b.kind, value: v, rootForm: v, approx, sentence: `= ${v}${v === b.text.replace(/\s+/g, "") ? "" : `, as you wrote: ${b.text}`}` };
   }
-  // a - sqrt(c) must be >= 0: a >= 0 and a^2 >= c.
-  if (sgn < 0n && (sign(a) < 0 || cmp(rat(a.num * a.num, a.den * a.den), c) < 0)) p.fail("square root of a negative number", at);
-  if (sgn > 0n && sign(a) < 0 && cmp(rat(a.num * a.num, a.den * a.den), c) > 0) p.fail("square root of a negative number", at);
-  // (x^2 - a)^2 - c scaled by den(a)^2 den(c) to integers.
-  const A = a.num, Ad = a.den;
-  const x2a: Poly = [-A, 0n, Ad]; // Ad x^2 - A
-  const poly = polySub(polyScale(polyMul(x2a, x2a), c.den), [c.num * Ad * Ad]);
-  const sf = squarefree(poly);
-  const { lo, hi } = isolateByRank(sf, sgn > 0n ? 0 : 1);
-  return algebraic("sqrt", text, sf, lo, hi);
+  const { lo, hi } = simpleIsolatingInterval(b);
+  const minimal = b.minimal !== false;
+  const poly = prettyPolynomial(b.poly);
+  const interval: [string, string] = [ratToString(lo), ratToString(hi)];
+  const sentence = `= root of ${poly} in (${interval[0]}, ${interval[1]}) ≈ ${approx}…${minimal ? "" : " (square-free polynomial, not factored above degree " + MAX_EXPRESSION_DEGREE + ")"}, as you wrote: ${b.text}`;
+  return { text: b.text, kind: b.kind, polynomial: polyToString(b.poly), degree: deg(b.poly), minimal, interval, rootForm: boundRootForm(b), approx, sentence };
 }
 
 /** 2cos(pi p/q) as an exact bound (rational when p/q makes it one of -2, -1, 0, 1, 2). */
@@ -293,7 +365,7 @@ export function twoCosBound(p: bigint, q: bigint, text = `2cos(${p}pi/${q})`): B
   const psi = minimalPolynomial2Cos(N);
   if (deg(psi) === 1) return rationalBound(rat(-psi[0], psi[1]), text);
   const { lo, hi } = isolateByRank(psi, rank);
-  return algebraic("2cos", text, psi, lo, hi);
+  return algebraicBound("2cos", text, psi, lo, hi);
 }
 
 export const MAX_POLYNOMIAL_DEGREE = 300;

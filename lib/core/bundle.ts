@@ -16,6 +16,7 @@ import { ClaimError, validateClaim } from "./claim-schema";
 import { CHECKER_VERSION, claimDigest, verifyClaim } from "./claims";
 import { sha256Hex } from "./digest";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
+import { claimLineFields, type CheckLine } from "./check-report";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
@@ -78,13 +79,8 @@ export function sealBundle(header: BundleHeader, items: ReadonlyArray<{ id: stri
 
 // ---- the re-check ---------------------------------------------------------------------------------
 
-/** One printed line; the same shape as the checker's lines (lib/core/cli.ts). */
-export interface BundleCheckLine {
-  readonly label: string;
-  readonly status: "verified" | "refuted" | "undecided" | "malformed";
-  readonly text: string;
-  readonly certificate?: { readonly matches: boolean; readonly text: string };
-}
+/** One printed line; the same shape as the checker's lines (check-report.ts). */
+export type BundleCheckLine = CheckLine;
 
 export interface BundleCheckReport {
   readonly source: string;
@@ -139,7 +135,7 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   const reason = v.status === "verified" ? "" : `  — ${v.reason}`;
   const status = problems.length > 0 && v.status === "verified" ? "refuted" : v.status;
   const text = `${problems.length ? problems.join("; ") + ". " : ""}${v.statement}  (${v.method})${reason}`;
-  return { label, status, text, ...(certificate ? { certificate } : {}) };
+  return { label, status, text, ...(certificate ? { certificate } : {}), ...claimLineFields(fresh), ...(problems.length ? { reason: [...problems, v.reason].join("; ") } : {}) };
 }
 
 /**

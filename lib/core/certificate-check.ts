@@ -9,7 +9,7 @@
  */
 
 import { adjacency, type Adjacency, type Graph } from "./graph";
-import { Budget, BudgetExceeded, type Verdict } from "./verdict";
+import { Budget, BudgetExceeded, budgetReason, type Verdict } from "./verdict";
 
 export class CertificateRejected extends Error {
   constructor(message: string) {
@@ -100,7 +100,7 @@ export function recheck(outcome: string, method: string, budget: Budget, run: ()
     return { status: "verified", statement, method, reason, steps: budget.used };
   } catch (e) {
     if (e instanceof CertificateRejected) return { status: "refuted", statement, method, reason: `certificate rejected: ${e.message}`, steps: budget.used };
-    if (e instanceof BudgetExceeded) return { status: "undecided", statement, method, reason: `budget exceeded: ${e.message}`, steps: budget.used };
+    if (e instanceof BudgetExceeded) return { status: "undecided", statement, method, reason: budgetReason(e), steps: budget.used };
     throw e;
   }
 }

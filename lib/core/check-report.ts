@@ -9,6 +9,12 @@
  *   2  the file or some claim in it is malformed (the message names the JSON path), or usage error.
  */
 
+import { canonicalJson } from "./canonical";
+import { sha256Hex } from "./digest";
+import type { ClaimResult, ClaimTimings } from "./claims";
+import type { GraphSummary } from "./graph";
+import type { BoundNormalForm } from "./bound";
+
 export const EXIT_OK = 0;
 export const EXIT_NOT_VERIFIED = 1;
 export const EXIT_MALFORMED = 2;
@@ -24,6 +30,39 @@ export interface CheckLine {
   readonly details?: readonly string[];
   /** SHA-256 of the claim's canonical JSON, to match the claim with the one shown in the web app. */
   readonly digest?: string;
+  // The verdict as separate fields for tools (`--json`; documented by report.schema.json beside this file).
+  readonly statement?: string;
+  readonly method?: string;
+  /** Why the verdict holds, or why no decision: said once, never prefixed by the text above. */
+  readonly reason?: string;
+  /** The kind of the evidence stored with a decided verdict (e.g. "inertia", "embedding"), null when undecided. */
+  readonly certificateKind?: string | null;
+  readonly digests?: { readonly claim: string; readonly certificate: string | null };
+  readonly timings?: ClaimTimings;
+  /** Budget steps used. */
+  readonly steps?: number | null;
+  /** The graphs the check ran on. */
+  readonly ranOn?: readonly GraphSummary[];
+  /** The bound in normal form, for claims with a bound. */
+  readonly bound?: BoundNormalForm;
+}
+
+/** The structured fields of a checked claim's line. */
+export function claimLineFields(r: ClaimResult): Pick<CheckLine, "statement" | "method" | "reason" | "certificateKind" | "digests" | "timings" | "steps" | "ranOn" | "bound"> {
+  const v = r.verdict;
+  const evidence = (v.certificate as { evidence?: unknown } | undefined)?.evidence;
+  const evidenceKind = typeof evidence === "object" && evidence !== null ? (evidence as { kind?: unknown }).kind : undefined;
+  return {
+    statement: v.statement,
+    method: v.method,
+    reason: v.reason,
+    certificateKind: v.certificate === undefined ? null : typeof evidenceKind === "string" ? evidenceKind : v.certificate.kind,
+    digests: { claim: r.digest, certificate: v.certificate === undefined ? null : sha256Hex(canonicalJson(v.certificate)) },
+    timings: r.timings,
+    steps: v.steps ?? null,
+    ranOn: v.ranOn ?? [],
+    ...(r.bound ? { bound: r.bound } : {}),
+  };
 }
 
 export interface CheckReport {

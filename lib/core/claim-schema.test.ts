@@ -105,3 +105,22 @@ describe("readClaimsDocument", () => {
     expect(() => readClaimsDocument({ format: "something-else" })).toThrow(ClaimError);
   });
 });
+
+describe("numbers that JSON cannot carry exactly", () => {
+  const problem = (json: Record<string, unknown>) => {
+    try { validateClaim({ format: "cairn-claim/1", ...json }); } catch (e) { return (e as Error).message; }
+    throw new Error("accepted");
+  };
+  it("a JSON number beyond 2^53 is refused with a message that says precision was lost and to use a string", () => {
+    const m = problem({ kind: "vector-certificate", graph: { format: "named", text: "path(2)" }, vector: [12345678901234567891, "1"], relation: "<=", bound: "1" });
+    expect(m).toMatch(/\$\.vector\[0\]/);
+    expect(m).toMatch(/is beyond 2\^53, where JSON numbers lose precision: it was already rounded when the file was read/);
+    expect(m).toMatch(/Write it as a string in quotes/);
+  });
+  it("a small JSON number where a string is expected says to quote it", () => {
+    expect(problem({ kind: "spectral-radius-bound", graph: { format: "named", text: "path(2)" }, op: "<", bound: 2 })).toMatch(/expected a string, got the number 2: write numbers here in quotes \("2"\)/);
+  });
+  it("an integer field beyond 2^53 says precision was lost", () => {
+    expect(problem({ kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "max-degree", relation: "<=", parameter: 2 ** 60 })).toMatch(/beyond 2\^53, where JSON numbers lose precision.*at most 2\^53 − 1/);
+  });
+});

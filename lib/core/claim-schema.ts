@@ -8,6 +8,9 @@
  * See CLAIMS.md beside this file for the documented format with examples.
  */
 
+import { parseFamilyName } from "./smith-families";
+import { coxeterData } from "./spectral";
+
 export const CLAIM_FORMAT = "cairn-claim/1";
 /** A file holding several claims: `{ "format": "cairn-claims/1", "claims": [...] }`. */
 export const CLAIMS_FILE_FORMAT = "cairn-claims/1";
@@ -163,7 +166,16 @@ export function object(v: unknown, path: string): Json {
   return v as Json;
 }
 
+/** Past 2^53 a JSON number has already been rounded by the time anyone reads it. */
+function precisionLost(v: unknown): boolean {
+  return typeof v === "number" && Number.isFinite(v) && Math.abs(v) > Number.MAX_SAFE_INTEGER;
+}
+
+const PRECISION_LOST = "is beyond 2^53, where JSON numbers lose precision: it was already rounded when the file was read (the digits shown are not the ones written). Write it as a string in quotes, e.g. \"12345678901234567891\", so every digit is kept";
+
 function string(v: unknown, path: string): string {
+  if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST}`);
+  if (typeof v === "number") throw new ClaimError(path, `expected a string, got the number ${v}: write numbers here in quotes ("${v}") so that they are read exactly`);
   if (typeof v !== "string") throw new ClaimError(path, `expected a string, got ${describe(v)}`);
   return v;
 }
@@ -175,6 +187,7 @@ function oneOf<T extends string>(v: unknown, allowed: readonly T[], path: string
 }
 
 function integer(v: unknown, path: string, min: number): number {
+  if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST.replace(/\. Write it as a string.*$/, "; integers here are at most 2^53 − 1")}`);
   if (typeof v !== "number" || !Number.isSafeInteger(v) || v < min)
     throw new ClaimError(path, `expected an integer ≥ ${min}, got ${describe(v)}`);
   return v;
@@ -203,10 +216,28 @@ function rationalText(v: unknown, path: string): string {
   return s;
 }
 
+/** Long enough for the root(...) normal form of a degree-64 bound with large coefficients. */
+export const MAX_BOUND_LENGTH = 20_000;
+
 function boundText(v: unknown, path: string): string {
   const s = string(v, path).trim();
-  if (s.length === 0 || s.length > 200) throw new ClaimError(path, `expected a bound such as "2", "7/2", "sqrt(5)" or "2cos(pi/7)"`);
+  if (s.length === 0) throw new ClaimError(path, `expected a bound such as "2", "7/2", "(1+sqrt(5))/2", "2cos(pi/7)" or "root(x^3-x-1, 1, 2)", got an empty text`);
+  if (s.length > MAX_BOUND_LENGTH) throw new ClaimError(path, `a bound has at most ${MAX_BOUND_LENGTH} characters, got ${s.length}`);
   return s;
+}
+
+/**
+ * "Coxeter number of E7" / "exponents of D5": the data of a finite simply-laced type (Bourbaki, Lie
+ * Groups and Lie Algebras Ch. VI, Plates I, IV–VII, via spectral.ts), with the type spelt as in
+ * parseFamilyName ("E_7", "E(7)", …). The claim keeps the numbers, so its digest does not depend on the spelling.
+ */
+function byType(text: string, form: RegExp, example: string, path: string): { coxeterNumber: number; exponents: number[] } {
+  const m = form.exec(text.trim());
+  if (!m) throw new ClaimError(path, `expected a number or text like "${example}", got ${describe(text)}`);
+  const f = parseFamilyName(m[1]);
+  if (!f || !["A", "D", "E"].includes(f.family))
+    throw new ClaimError(path, `"${m[1].trim()}" is not a finite Dynkin type A_n, D_n, E6, E7 or E8 (affine diagrams have no exponents here)`);
+  return coxeterData(`${f.family}${f.parameter}`);
 }
 
 export function validateGraphInput(v: unknown, path: string): GraphInput {
@@ -291,8 +322,10 @@ export function validateClaim(json: unknown, path = "$"): Claim {
     case "eigenvalues":
       return {
         ...common, kind, graph: graph(),
-        h: integer(o.h, `${path}.h`, 1),
-        multiset: array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
+        h: typeof o.h === "string" ? byType(o.h, /^coxeter\s+number\s+of\s+(.+)$/i, "Coxeter number of E7", `${path}.h`).coxeterNumber : integer(o.h, `${path}.h`, 1),
+        multiset: typeof o.multiset === "string"
+          ? byType(o.multiset, /^exponents\s+of\s+(.+)$/i, "exponents of E7", `${path}.multiset`).exponents
+          : array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
       };
     case "structure":
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };

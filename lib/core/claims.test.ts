@@ -3,7 +3,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { ClaimError, validateClaim, type Claim } from "./claim-schema";
 import { readClaimsDocument } from "./claim-file";
-import { CHECKER_VERSION, claimDigest, recheckClaim, verifyClaim, type ClaimCertificate } from "./claims";
+import { CHECKER_VERSION, claimDigest, describeRanOn, recheckClaim, verifyClaim, type ClaimCertificate } from "./claims";
 import { Budget } from "./verdict";
 import { tamper } from "./certificate-tamper";
 
@@ -237,4 +237,19 @@ describe("fixtures", () => {
       }
     });
   }
+});
+
+describe("every verdict says which graph it ran on", () => {
+  it("order, size, loops and multiple edges, for each input graph", () => {
+    const r = verifyClaim(claim({ kind: "spectral-radius-bound", graph: { format: "edges", text: "multigraph: true\n0 1\n1 0\n2 2" }, op: "<", bound: "5" }));
+    expect(r.verdict.ranOn).toEqual([{ role: "G", order: 3, size: 2, loops: 1, multipleEdges: 1 }]);
+    expect(describeRanOn(r.verdict.ranOn!)).toBe("Ran on G: order 3, size 2, 1 loop, 1 multiple edge.");
+    const s = verifyClaim(claim({ kind: "subgraph", pattern: named("path(3)"), host: named("cycle(5)"), induced: true }));
+    expect(describeRanOn(s.verdict.ranOn!)).toBe("Ran on H: order 3, size 2, no loops, no multiple edges; G: order 5, size 5, no loops, no multiple edges.");
+    // Size limits still say what was read.
+    expect(verifyClaim(claim({ kind: "structure", graph: { format: "edges", text: "n = 4\n0 1" }, predicate: "tree" })).verdict.ranOn).toEqual([{ role: "G", order: 4, size: 1, loops: 0, multipleEdges: 0 }]);
+  });
+  it("a bound that does not parse names the bound field", () => {
+    expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(3)"), op: "<", bound: "sqrt(-1)" }))).toThrow(/\$\.bound.*square root of a negative number/);
+  });
 });

@@ -13,10 +13,11 @@
 import { canonicalJson } from "./canonical";
 import { ClaimError, type Claim, type GraphInput } from "./claim-schema";
 import { sha256Hex } from "./digest";
-import { GraphError, type Graph } from "./graph";
+import { GraphError, describeGraphSummary, summarizeGraph, type Graph, type GraphSummary } from "./graph";
 import { parseGraph } from "./parse";
 import { NumberFormatError } from "./rational";
-import { Budget, BudgetExceeded, DEFAULT_STEP_LIMIT, type Verdict } from "./verdict";
+import { describeBound, parseBound, type BoundNormalForm } from "./bound";
+import { Budget, BudgetExceeded, DEFAULT_STEP_LIMIT, budgetReason, type Verdict } from "./verdict";
 import { HANDLERS } from "./claim-handlers";
 import { TimedBudget } from "./time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
@@ -49,7 +50,20 @@ export interface ClaimResult {
   readonly verdict: Verdict<ClaimCertificate>;
   /** Present when the claim carried a certificate. */
   readonly certificateCheck?: CertificateCheck;
+  /** The claim's bound (when it has one) in normal form: minimal polynomial, isolating interval, as written. */
+  readonly bound?: BoundNormalForm;
+  /** Wall-clock milliseconds: reading the inputs (graphs, bound), the check, the re-check of a carried certificate. */
+  readonly timings: ClaimTimings;
 }
+
+export interface ClaimTimings {
+  readonly parseMs: number;
+  readonly checkMs: number;
+  readonly recheckMs?: number;
+}
+
+const now = () => performance.now();
+const elapsed = (since: number) => Math.round((now() - since) * 1000) / 1000;
 
 export interface VerifyOptions {
   /** Step budget, used as given (a TimedBudget carries a time limit too); default DEFAULT_STEP_LIMIT steps. */
@@ -80,6 +94,18 @@ export function readClaimGraph(input: GraphInput, path: string): Graph {
   }
 }
 
+/** Reads the bound of a claim that has one, before any check, so its normal form is known and a bad bound names its field. */
+function readClaimBound(claim: Claim, path: string): BoundNormalForm | undefined {
+  const text = (claim as { bound?: unknown }).bound;
+  if (typeof text !== "string") return undefined;
+  try {
+    return describeBound(parseBound(text));
+  } catch (e) {
+    if (e instanceof NumberFormatError) throw new ClaimError(`${path}.bound`, e.message);
+    throw e;
+  }
+}
+
 function parseInputs(claim: Claim, path: string): ParsedInputs {
   switch (claim.kind) {
     case "subgraph":
@@ -93,6 +119,23 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
   }
 }
 
+/** The graphs a claim runs on, named as its statement names them. */
+export function claimGraphSummaries(inputs: ParsedInputs): GraphSummary[] {
+  const out: GraphSummary[] = [];
+  if (inputs.graph) out.push(summarizeGraph(inputs.graph, "G"));
+  if (inputs.pattern) out.push(summarizeGraph(inputs.pattern, "H"));
+  if (inputs.host) out.push(summarizeGraph(inputs.host, "G"));
+  (inputs.patterns ?? []).forEach((p, i) => out.push(summarizeGraph(p, inputs.host ? `H${i + 1}` : `G${i + 1}`)));
+  return out;
+}
+
+/** One sentence for people: "Ran on G: order 4, size 3, no loops, no multiple edges." (long lists are cut short). */
+export function describeRanOn(ranOn: readonly GraphSummary[]): string {
+  if (ranOn.length === 0) return "";
+  const shown = ranOn.slice(0, 4).map(describeGraphSummary).join("; ");
+  return `Ran on ${shown}${ranOn.length > 4 ? `; and ${ranOn.length - 4} more graphs` : ""}.`;
+}
+
 function budgetOf(options: VerifyOptions): Budget {
   if (options.budget) return options.budget;
   return options.timeLimitMs !== undefined ? new TimedBudget(DEFAULT_STEP_LIMIT, options.timeLimitMs) : new Budget(DEFAULT_STEP_LIMIT);
@@ -104,7 +147,7 @@ function budgeted(statement: string, budget: Budget, run: () => Verdict): Verdic
     return run();
   } catch (e) {
     if (e instanceof BudgetExceeded)
-      return { status: "undecided", statement, method: "step budget", reason: `${e.message}; retry with a larger budget`, steps: budget.used };
+      return { status: "undecided", statement, method: "step budget", reason: budgetReason(e), steps: budget.used };
     throw e;
   }
 }
@@ -133,24 +176,33 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   const budget = budgetOf(options);
   const { certificate: carried, ...content } = claim;
   const canonical = claimCanonicalJson(claim);
-  const base = { claim: content as Claim, canonical, digest: sha256Hex(canonical), checkerVersion: CHECKER_VERSION };
   const handler = handlerOf(claim);
+  const parseStart = now();
   const inputs = parseInputs(claim, path);
+  const bound = readClaimBound(claim, path);
   const statement = guarded(path, () => handler.statement(claim, inputs));
+  const parseMs = elapsed(parseStart);
+  const base = { claim: content as Claim, canonical, digest: sha256Hex(canonical), checkerVersion: CHECKER_VERSION, ...(bound ? { bound } : {}) };
+  const ranOn = claimGraphSummaries(inputs);
   const tooLarge = handler.limit(claim, inputs);
   if (tooLarge)
-    return { ...base, verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}` } };
+    return { ...base, timings: { parseMs, checkMs: 0 }, verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}`, ranOn } };
+  const checkStart = now();
   const found = guarded(path, () => budgeted(statement, budget, () => handler.verify(claim, inputs, budget)));
+  const checkMs = elapsed(checkStart);
   const verdict: Verdict<ClaimCertificate> = {
     ...found,
     statement,
+    ranOn,
     certificate: found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate },
   };
   if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
-  if (carried === undefined) return { ...base, verdict };
+  if (carried === undefined) return { ...base, verdict, timings: { parseMs, checkMs } };
+  const recheckStart = now();
   const check = guarded(path, () => recheckParsed(claim, inputs, carried, budget instanceof TimedBudget ? budget.renewed() : new Budget(budget.limit)));
+  const recheckMs = elapsed(recheckStart);
   const outcome = (carried as { outcome?: unknown } | null)?.outcome;
-  return { ...base, verdict, certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check } };
+  return { ...base, verdict, timings: { parseMs, checkMs, recheckMs }, certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check } };
 }
 
 function rejected(statement: string, why: string): Verdict {

@@ -15,10 +15,10 @@ import { fileURLToPath } from "node:url";
 import { BUNDLE_FORMAT, checkBundle } from "./bundle";
 import { readClaimsDocument } from "./claim-file";
 import { ClaimError } from "./claim-schema";
-import { CHECKER_VERSION, verifyClaim, type ClaimResult } from "./claims";
+import { CHECKER_VERSION, describeRanOn, verifyClaim, type ClaimResult } from "./claims";
 import { TimedBudget } from "./time-budget";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
-import { EXIT_MALFORMED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
+import { EXIT_MALFORMED, EXIT_OK, claimLineFields, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
 export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
 
@@ -34,10 +34,12 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
       ? `certificate re-checked: matches (${r.certificateCheck.verdict.method})`
       : `certificate does NOT match: ${r.certificateCheck.verdict.reason}`,
   };
-  const details = [...(v.status === "verified" ? [v.reason] : []), ...(v.notes ?? [])];
+  const ranOn = describeRanOn(v.ranOn ?? []);
+  const details = [...(v.status === "verified" ? [v.reason] : []), ...(r.bound ? [`bound ${r.bound.sentence}`] : []), ...(ranOn ? [ranOn] : []), ...(v.notes ?? [])];
   return {
     label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, digest: r.digest,
     ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}),
+    ...claimLineFields(r),
   };
 }
 

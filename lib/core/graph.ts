@@ -103,3 +103,32 @@ export function label(g: Graph, v: number): string {
 export function isSimple(g: Graph): boolean {
   return g.edges.every((e) => e.u !== e.v && e.m === 1);
 }
+
+/** What a verdict says about the graph it ran on, so a misread input shows. */
+export interface GraphSummary {
+  /** Which input: "G", "H" (pattern), "host", "pattern 2", … */
+  readonly role: string;
+  /** Number of vertices. */
+  readonly order: number;
+  /** Number of edges between distinct vertices, counted with multiplicity. */
+  readonly size: number;
+  /** Number of vertices with a loop (any weight). */
+  readonly loops: number;
+  /** Number of vertex pairs joined by more than one edge. */
+  readonly multipleEdges: number;
+}
+
+export function summarizeGraph(g: Graph, role: string): GraphSummary {
+  let size = 0, loops = 0, multipleEdges = 0;
+  for (const e of g.edges) {
+    if (e.u === e.v) loops++;
+    else { size += e.m; if (e.m > 1) multipleEdges++; }
+  }
+  return { role, order: g.n, size, loops, multipleEdges };
+}
+
+/** "G: order 4, size 3, no loops, no multiple edges" (the words of graph theory). */
+export function describeGraphSummary(s: GraphSummary): string {
+  const plural = (k: number, one: string, many: string) => (k === 0 ? `no ${many}` : `${k} ${k === 1 ? one : many}`);
+  return `${s.role}: order ${s.order}, size ${s.size}, ${plural(s.loops, "loop", "loops")}, ${plural(s.multipleEdges, "multiple edge", "multiple edges")}`;
+}

@@ -5,6 +5,8 @@ import { parseGraph } from "./parse";
 import { identifySmith, recheckIdentification } from "./identify";
 import { parseFamilyName, SMITH_FAMILIES, type SmithFamily } from "./smith-families";
 import { starlike, star, dynkinE, affineE } from "./constructors";
+import { validateClaim } from "./claim-schema";
+import { verifyClaim } from "./claims";
 
 /** The same graph with vertices renumbered by a fixed pseudo-random permutation (LCG shuffle). */
 function relabel(g: Graph, seed = 7): Graph {
@@ -65,7 +67,8 @@ describe("family claims and non-identification", () => {
     expect(v.status).toBe("refuted");
     expect(v.reason).toMatch(/E7/);
     expect(identifySmith(affineE(8), "affine E8").status).toBe("verified");
-    expect(() => identifySmith(dynkinE(7), "E9")).toThrow(/not a family name/);
+    expect(identifySmith(affineE(8), "E9").status).toBe("verified"); // E9 = Ẽ8 in texts that continue E6, E7, E8
+    expect(() => identifySmith(dynkinE(7), "E10")).toThrow(/not a family name/);
   });
 
   const forbidden: Array<[string, string, number, RegExp]> = [
@@ -113,5 +116,37 @@ describe("family names", () => {
     expect(parseFamilyName("tadpole 3")).toEqual({ family: "loop_path", parameter: 3 });
     expect(parseFamilyName("D3")).toBeNull();
     expect(parseFamilyName("F4")).toBeNull();
+  });
+});
+
+describe("diagram names as the literature writes them", () => {
+  it("every spelling of affine E8 names the same diagram: T(1,2,5) by arm lengths, T_{2,3,6} by vertex counts with the centre (Bourbaki Plate VII; Brouwer & Haemers §3.1.1)", () => {
+    for (const t of ["E~8", "E~(8)", "E8~", "Ẽ8", "Ẽ_8", "\\tilde{E}_8", "\\tilde E_8", "affine E8", "E_8^{(1)}", "E8^(1)", "E9", "E_9", "T(1,2,5)", "T_{2,3,6}", "T[2,3,6]"])
+      expect(parseFamilyName(t), t).toEqual({ family: "E~", parameter: 8 });
+    // E8 itself: T(1,2,4) by arm lengths = T_{2,3,5} by vertex counts (Bourbaki Plate VII).
+    for (const t of ["E8", "E_8", "E(8)", "E_{8}", "T(1,2,4)", "T_{2,3,5}", "T_2,3,5"]) expect(parseFamilyName(t), t).toEqual({ family: "E", parameter: 8 });
+    expect(parseFamilyName("T(1,1,3)")).toEqual({ family: "D", parameter: 6 }); // D_n = T(1,1,n-3)
+    expect(parseFamilyName("T(2,2,3)")).toBeNull(); // not a family (it contains Ẽ6 = T(2,2,2))
+    expect(parseFamilyName("E10")).toBeNull();
+  });
+  it("the named graph input reads them too, and the graphs are the same", () => {
+    const same = (a: string, b: string) => expect(JSON.stringify(parseGraph(a).edges.length) + parseGraph(a).n, a).toBe(JSON.stringify(parseGraph(b).edges.length) + parseGraph(b).n);
+    for (const t of ["affine E8", "Ẽ8", "E9", "T(1,2,5)", "T_{2,3,6}"]) same(t, "E~(8)");
+    expect(parseGraph("T_{3,3,3}").n).toBe(7); // Ẽ6 = T(2,2,2) has 7 vertices
+    expect(parseGraph("T(2,2,3)").n).toBe(8);
+    expect(() => parseGraph("T_{0,2,3}")).toThrow(/including the centre/);
+  });
+  it("identification claims accept the literature's names", () => {
+    for (const family of ["E9", "T_{2,3,6}", "Ẽ8"])
+      expect(verifyClaim(validateClaim({ format: "cairn-claim/1", kind: "identification", graph: { format: "named", text: "starlike(1,2,5)" }, family })).verdict.status, family).toBe("verified");
+  });
+  it("eigenvalue claims by type: exponents of E7 with its Coxeter number 18 (Bourbaki Plate VI: 1, 5, 7, 9, 11, 13, 17)", () => {
+    const c = validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "Coxeter number of E7", multiset: "exponents of E_7" });
+    expect(c).toMatchObject({ h: 18, multiset: [1, 5, 7, 9, 11, 13, 17] });
+    expect(verifyClaim(c).verdict.status).toBe("verified");
+    // D5: h = 8, exponents 1, 3, 4, 5, 7 (Bourbaki Plate IV).
+    expect(validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "D(5)" }, h: "coxeter number of D5", multiset: "exponents of D5" })).toMatchObject({ h: 8, multiset: [1, 3, 4, 5, 7] });
+    expect(() => validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "Coxeter number of E9", multiset: [1] })).toThrow(/"E9" is not a finite Dynkin type/);
+    expect(() => validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "eighteen", multiset: [1] })).toThrow(/expected a number or text like "Coxeter number of E7"/);
   });
 });

@@ -4,6 +4,7 @@
  */
 
 import { GraphError, type Graph } from "./graph";
+import { SMITH_FAMILIES, parseFamilyName } from "./smith-families";
 import {
   MAX_NAMED_SIZE, path, cycle, star, complete, completeBipartite, starlike, twoBranch, dynkinA, dynkinD, dynkinE,
   affineA, affineD, affineE, loopPath, loopPath2, forkLoop, disjointUnion,
@@ -17,6 +18,8 @@ const FAMILIES: Record<string, { groups: number[] | "any"; build: (args: number[
   complete: { groups: [1], build: ([[n]]) => complete(n) },
   complete_bipartite: { groups: [2], build: ([[a, b]]) => completeBipartite(a, b) },
   starlike: { groups: "any", build: ([legs]) => starlike(legs) },
+  // T(a,b,c): the star-like tree by arm lengths (vertices of each arm besides the centre), as in identify.ts.
+  T: { groups: "any", build: ([legs]) => starlike(legs) },
   two_branch: { groups: [2, 1, 2], build: ([[a, b], [k], [c, d]]) => twoBranch(a, b, k, c, d) },
   A: { groups: [1], build: ([[n]]) => dynkinA(n) },
   D: { groups: [1], build: ([[n]]) => dynkinD(n) },
@@ -139,9 +142,35 @@ function describeShape(shape: number[] | "any"): string {
   return `groups of ${shape.join(", ")} integers separated by ";" (for example two_branch(1,1; 3; 1,2))`;
 }
 
-/** Parses the named syntax, e.g. `E~(8) + path(3)`. Throws GraphError with line and column. */
+/**
+ * Parses the named syntax, e.g. `E~(8) + path(3)`. Throws GraphError with line and column. A whole text
+ * that is a diagram name as the literature writes it ("affine E8", "Ẽ8", "E9", "T_{2,3,6}", see
+ * parseFamilyName) is that diagram; "T_{p,q,r}" that is no family is the star-like tree with arms of
+ * p − 1, q − 1, r − 1 vertices besides the centre (vertex counts include the centre).
+ */
 export function parseNamed(text: string): Graph {
+  const diagram = diagramOf(text);
+  if (diagram) return diagram;
   return new NamedReader(text).readAll();
+}
+
+const T_BY_VERTEX_COUNTS = /^\s*T\s*(?:_\s*\{|_|\[)\s*(\d+)\s*,\s*(\d+)\s*,\s*(\d+)\s*[}\]]?\s*$/;
+
+function diagramOf(text: string): Graph | undefined {
+  const t = T_BY_VERTEX_COUNTS.exec(text);
+  if (t) {
+    const counts = [t[1], t[2], t[3]].map(Number);
+    if (counts.some((c) => c < 1 || c > MAX_NAMED_SIZE)) throw new GraphError("T_{p,q,r} counts the vertices of each arm including the centre, so p, q, r >= 1");
+    return starlike(counts.map((c) => c - 1).filter((c) => c > 0));
+  }
+  if (/^\s*[A-Za-z_][A-Za-z0-9_]*~?\s*\(/.test(text)) return undefined; // the named syntax proper
+  const f = parseFamilyName(text);
+  return f ? SMITH_FAMILIES[f.family].build(f.parameter) : undefined;
+}
+
+/** A diagram name as the literature writes it (whole text), read by parseNamed. */
+export function looksLikeDiagramName(text: string): boolean {
+  return T_BY_VERTEX_COUNTS.test(text) || (!/^\s*[A-Za-z_][A-Za-z0-9_]*~?\s*\(/.test(text) && parseFamilyName(text) !== null);
 }
 
 /** True when the text looks like the named syntax (a family name followed by "("). */

@@ -115,7 +115,7 @@ describe("sparse6", () => {
   it("round-trips powers of two, where the padding special case bites", () => {
     for (const n of [2, 4, 8, 16, 32, 64]) {
       for (const edges of [[[0, 1]], [[n - 2, n - 1]], [[0, n - 2]], [[n - 1, n - 1]]]) {
-        const g = parseEdgeList(`n = ${n}\n` + edges.map(([u, v]) => `${u} ${v}`).join("\n"));
+        const g = parseEdgeList(`n = ${n}\nbase = 0\n` + edges.map(([u, v]) => `${u} ${v}`).join("\n"));
         expect(graphJson(parseSparse6(writeSparse6(g)))).toBe(graphJson(g));
       }
     }
@@ -134,8 +134,8 @@ describe("edge lists", () => {
     expect(g.labels).toBeUndefined();
   });
 
-  it("keeps identifier labels in order of first appearance and adds repeated pairs", () => {
-    const g = parseGraph("a b\nb c\nc a\nb a");
+  it("keeps identifier labels in order of first appearance and adds repeated pairs of a multigraph", () => {
+    const g = parseGraph("multigraph: true\na b\nb c\nc a\nb a");
     expect(g.labels).toEqual(["a", "b", "c"]);
     expect(pairs(g)).toEqual([[0, 1, 2], [0, 2, 1], [1, 2, 1]]);
   });
@@ -240,5 +240,38 @@ describe("line endings", () => {
       const e = errorOf(() => parseGraph(["0 1", "1 2", "2 x y"].join(eol)));
       expect([e.line, e.column]).toEqual([3, 5]);
     }
+  });
+});
+
+describe("edge lists that could mislead are refused with a way out", () => {
+  const message = (text: string) => { try { parseGraph(text); } catch (e) { return (e as Error).message; } throw new Error("accepted: " + text); };
+  it("1-based numbering: refused without a base header, read as 1..n with base = 1", () => {
+    // P3 written 1-based (common practice in papers): would otherwise be P3 plus an isolated vertex 0.
+    expect(message("1 2\n2 3")).toBe('line 1, column 1: the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant');
+    const g = parseGraph("base = 1\n1 2\n2 3");
+    expect(g.n).toBe(3);
+    expect(g.edges.map((e) => [e.u, e.v])).toEqual([[0, 1], [1, 2]]);
+    expect(parseGraph("base: 1\nn = 4\n1 2").n).toBe(4);
+    expect(parseGraph("base = 0\n1 2\n2 3").n).toBe(4);
+    expect(message("base = 1\n0 1")).toMatch(/line 2, column 1: vertex 0 does not exist with the header "base = 1"/);
+    expect(message("base = 2\n1 2")).toMatch(/"base" is 0 \(vertices 0..n-1\) or 1/);
+    expect(message("base = 1\nn = 2\n1 3")).toMatch(/vertex 3 is outside 1..2 declared by the header n = 2/);
+    // A list that starts at 0 or at 2 is read as before.
+    expect(parseGraph("0 1\n1 2").n).toBe(3);
+  });
+  it("a repeated pair is refused unless the header says multigraph; an explicit multiplicity is fine", () => {
+    expect(message("0 1\n1 2\n1 0")).toBe('line 3, column 1: the edge {0, 1} is given twice (lines 1 and 3); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("0 1 2") or add the header "multigraph: true"');
+    expect(message("2 2\n2 2\n0 1")).toMatch(/the loop at 2 is given twice/);
+    expect(message("base = 1\n1 2\n2 1")).toMatch(/the edge \{1, 2\} is given twice/);
+    expect(parseGraph("multigraph = true\n0 1\n1 0").edges).toEqual([{ u: 0, v: 1, m: 2 }]);
+    expect(parseGraph("0 1 2").edges).toEqual([{ u: 0, v: 1, m: 2 }]);
+    expect(message("multigraph: maybe\n0 1")).toMatch(/"multigraph" is true or false/);
+    expect(message("n = 3\n0 1\nn = 4")).toMatch(/header `n = …` must come once/);
+  });
+  it("an edgeless graph needs its vertex count, and says so", () => {
+    expect(message("")).toMatch(/the graph is empty: give edges one per line \("0 1"\), or for a graph without edges its vertex count as a header, e.g. "n = 5"/);
+    expect(message("# only a comment")).toMatch(/there are no edges: for a graph without edges give its vertex count/);
+    expect(parseGraph("n = 5").n).toBe(5);
+    expect(parseGraph("n = 5").edges).toEqual([]);
   });
 });

@@ -5,11 +5,17 @@
  *
  * Edge list:
  *   - one edge per line: `u v` (multiplicity 1) or `u v m`; `v v` is a loop of weight m (A[v][v] = m);
- *     a pair given twice has its multiplicities added; fields are separated by spaces, tabs or commas;
+ *     fields are separated by spaces, tabs or commas;
+ *   - a pair given twice is refused (it would silently become a double edge) unless the header
+ *     `multigraph: true` says so, when the multiplicities are added; `u v 2` is a double edge without it;
  *   - `#` starts a comment; blank lines are ignored;
- *   - optional header line `n = 7` (before the first edge) fixing the vertex count, e.g. to add isolated vertices;
- *   - vertex names: when every name is a decimal integer, name i is vertex i (0-based) and n is
- *     max(name)+1 unless the header says more; otherwise names (identifiers such as `a`, `x1`, `v_2'`)
+ *   - optional header lines before the first edge, `name = value` or `name: value`:
+ *       `n = 7` fixes the vertex count, e.g. to add isolated vertices (an edgeless graph needs it);
+ *       `base = 1` reads integer names as 1..n (default 0..n-1); a list whose smallest vertex is 1 and
+ *       has no vertex 0 is refused without a `base` header, since it would add an isolated vertex 0;
+ *       `multigraph = true` allows repeated pairs;
+ *   - vertex names: when every name is a decimal integer, name i is vertex i - base and n is
+ *     max(name)+1-base unless the header says more; otherwise names (identifiers such as `a`, `x1`, `v_2'`)
  *     are numbered in order of first appearance and kept as labels, and header vertices beyond them
  *     get their index as label.
  * Adjacency matrix: one row per line of non-negative integers (spaces, commas or brackets between
@@ -20,7 +26,7 @@
 import { GraphError, type Graph } from "./graph";
 import { buildGraph } from "./graph-build";
 import { parseGraph6, parseSparse6, GRAPH6_HEADER, SPARSE6_HEADER } from "./graph6";
-import { parseNamed, looksNamed, NAMED_FAMILIES } from "./named";
+import { parseNamed, looksNamed, looksLikeDiagramName, NAMED_FAMILIES } from "./named";
 
 export type GraphFormat = "auto" | "edges" | "matrix" | "graph6" | "sparse6" | "named";
 
@@ -74,45 +80,96 @@ function positiveInteger(t: Token, what: string): number {
   return value;
 }
 
+const HEADER_NAMES = ["n", "base", "multigraph"] as const;
+type HeaderName = (typeof HEADER_NAMES)[number];
+
+/** A header line `name = value` or `name: value`, or undefined for an edge line. */
+function headerOf(tokens: Token[]): { name: HeaderName; value: Token; at: Token } | undefined {
+  const first = tokens[0].text.toLowerCase();
+  const colon = first.endsWith(":") ? first.slice(0, -1) : undefined;
+  const name = colon ?? (tokens[1]?.text === "=" ? first : undefined);
+  if (name === undefined || !(HEADER_NAMES as readonly string[]).includes(name)) return undefined;
+  const valueTokens = tokens.slice(colon !== undefined ? 1 : 2);
+  if (valueTokens.length !== 1) throw new GraphError(`the header reads "${name} = <value>"`, tokens[0].line, tokens[0].column);
+  return { name: name as HeaderName, value: valueTokens[0], at: tokens[0] };
+}
+
 /** Reads an edge list (see the module comment). */
 export function parseEdgeList(text: string): Graph {
   const lines = tokenLines(text, EDGE_SEPARATORS, 61); // "=" stands alone, as in "n=7"
   let header: number | undefined;
   let headerToken: Token | undefined;
+  let base: 0 | 1 | undefined;
+  let multigraph = false;
+  const seenHeaders = new Set<string>();
   const edgeLines: Token[][] = [];
   for (const tokens of lines) {
-    if (tokens[0].text === "n" && tokens[1]?.text === "=") {
-      if (edgeLines.length > 0 || header !== undefined) throw new GraphError("the header `n = …` must come once, before the first edge", tokens[0].line, tokens[0].column);
-      if (tokens.length !== 3) throw new GraphError("the header reads `n = <vertex count>`", tokens[0].line, tokens[0].column);
-      if (!INTEGER.test(tokens[2].text)) throw new GraphError(`vertex count must be a non-negative integer, found "${tokens[2].text}"`, tokens[2].line, tokens[2].column);
-      header = Number(tokens[2].text);
-      if (header > MAX_PARSED_VERTICES) throw new GraphError(`vertex count ${header} is beyond the limit of ${MAX_PARSED_VERTICES}`, tokens[2].line, tokens[2].column);
-      headerToken = tokens[2];
+    const h = headerOf(tokens);
+    if (h) {
+      if (edgeLines.length > 0 || seenHeaders.has(h.name)) throw new GraphError(`the header \`${h.name} = …\` must come once, before the first edge`, h.at.line, h.at.column);
+      seenHeaders.add(h.name);
+      const v = h.value;
+      if (h.name === "n") {
+        if (!INTEGER.test(v.text)) throw new GraphError(`vertex count must be a non-negative integer, found "${v.text}"`, v.line, v.column);
+        header = Number(v.text);
+        if (header > MAX_PARSED_VERTICES) throw new GraphError(`vertex count ${header} is beyond the limit of ${MAX_PARSED_VERTICES}`, v.line, v.column);
+        headerToken = v;
+      } else if (h.name === "base") {
+        if (v.text !== "0" && v.text !== "1") throw new GraphError(`the header "base" is 0 (vertices 0..n-1) or 1 (vertices 1..n), found "${v.text}"`, v.line, v.column);
+        base = v.text === "1" ? 1 : 0;
+      } else {
+        const t = v.text.toLowerCase();
+        if (!["true", "false", "yes", "no"].includes(t)) throw new GraphError(`the header "multigraph" is true or false, found "${v.text}"`, v.line, v.column);
+        multigraph = t === "true" || t === "yes";
+      }
       continue;
     }
     const eq = tokens.find((t) => t.text === "=");
-    if (eq) throw new GraphError("unexpected \"=\": only the header `n = <count>` uses it", eq.line, eq.column);
+    if (eq) throw new GraphError("unexpected \"=\": only the headers `n = <count>`, `base = 1` and `multigraph = true` use it", eq.line, eq.column);
     if (tokens.length < 2 || tokens.length > 3)
       throw new GraphError(`an edge line reads "u v" or "u v multiplicity"; found ${tokens.length} field${tokens.length === 1 ? "" : "s"}`, tokens[0].line, tokens[0].column);
     edgeLines.push(tokens);
   }
+  if (edgeLines.length === 0 && header === undefined)
+    throw new GraphError(text.trim() === "" ? "the graph is empty: give edges one per line (\"0 1\"), or for a graph without edges its vertex count as a header, e.g. \"n = 5\""
+      : "there are no edges: for a graph without edges give its vertex count as a header, e.g. \"n = 5\"");
   for (const tokens of edgeLines)
     for (const t of tokens.slice(0, 2))
       if (!INTEGER.test(t.text) && !IDENTIFIER.test(t.text))
         throw new GraphError(`"${t.text}" is not a vertex name: use a non-negative integer or an identifier (letters, digits, _ . ')`, t.line, t.column);
   const numeric = edgeLines.every((tokens) => INTEGER.test(tokens[0].text) && INTEGER.test(tokens[1].text));
   const edges: Array<{ u: number; v: number; m: number }> = [];
+  const firstSeen = new Map<string, number>();
+  const refuseRepeat = (u: number, v: number, tokens: Token[], show: (x: number) => string) => {
+    const key = u <= v ? `${u} ${v}` : `${v} ${u}`;
+    const before = firstSeen.get(key);
+    if (before !== undefined && !multigraph) {
+      const [a, b] = u <= v ? [u, v] : [v, u];
+      const what = a === b ? `the loop at ${show(a)}` : `the edge {${show(a)}, ${show(b)}}`;
+      throw new GraphError(`${what} is given twice (lines ${before} and ${tokens[0].line}); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("${show(a)} ${show(b)} 2") or add the header "multigraph: true"`, tokens[0].line, tokens[0].column);
+    }
+    if (before === undefined) firstSeen.set(key, tokens[0].line);
+  };
   if (numeric) {
-    let maxVertex = -1;
+    let maxVertex = -1, minVertex = Infinity;
+    for (const tokens of edgeLines) for (const t of tokens.slice(0, 2)) minVertex = Math.min(minVertex, Number(t.text));
+    if (base === undefined && minVertex === 1) {
+      const t = edgeLines.flatMap((tk) => tk.slice(0, 2)).find((tk) => Number(tk.text) === 1)!;
+      throw new GraphError(`the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant`, t.line, t.column);
+    }
+    const shift = base ?? 0;
     for (const tokens of edgeLines) {
       for (const t of tokens.slice(0, 2)) {
         const value = Number(t.text);
         if (!Number.isSafeInteger(value) || value >= MAX_PARSED_VERTICES) throw new GraphError(`vertex ${t.text} is beyond the limit of ${MAX_PARSED_VERTICES} vertices`, t.line, t.column);
-        if (header !== undefined && value >= header)
-          throw new GraphError(`vertex ${value} is outside 0..${header - 1} declared by the header n = ${header} (line ${headerToken!.line})`, t.line, t.column);
-        maxVertex = Math.max(maxVertex, value);
+        if (shift === 1 && value === 0) throw new GraphError(`vertex 0 does not exist with the header "base = 1" (vertices are 1..n)`, t.line, t.column);
+        if (header !== undefined && value - shift >= header)
+          throw new GraphError(`vertex ${value} is outside ${shift}..${header - 1 + shift} declared by the header n = ${header} (line ${headerToken!.line})`, t.line, t.column);
+        maxVertex = Math.max(maxVertex, value - shift);
       }
-      edges.push({ u: Number(tokens[0].text), v: Number(tokens[1].text), m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
+      const u = Number(tokens[0].text) - shift, v = Number(tokens[1].text) - shift;
+      refuseRepeat(u, v, tokens, (x) => String(x + shift));
+      edges.push({ u, v, m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
     }
     return buildGraph(header ?? maxVertex + 1, edges);
   }
@@ -131,6 +188,7 @@ export function parseEdgeList(text: string): Graph {
   };
   for (const tokens of edgeLines) {
     const u = vertexOf(tokens[0]), v = vertexOf(tokens[1]);
+    refuseRepeat(u, v, tokens, (x) => labels[x]);
     edges.push({ u, v, m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
   }
   const n = header ?? labels.length;
@@ -190,7 +248,7 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
   const t = text.trim();
   if (t.startsWith(SPARSE6_HEADER) || t.startsWith(":") || t.startsWith(";")) return "sparse6";
   if (t.startsWith(GRAPH6_HEADER)) return "graph6";
-  if (looksNamed(t) || NAMED_FAMILIES.includes(t)) return "named";
+  if (looksNamed(t) || NAMED_FAMILIES.includes(t) || looksLikeDiagramName(t)) return "named";
   if (t.startsWith("[[")) return "matrix"; // a bare "path" is a named graph missing "(n)", not graph6
   if (/^[\x3f-\x7e]+$/.test(t)) return "graph6";
   if (!couldBeSquare(t)) return "edges";

@@ -6,6 +6,7 @@
  */
 
 export type VerdictStatus = "verified" | "refuted" | "undecided";
+import type { GraphSummary } from "./graph";
 
 export interface Verdict<C = unknown> {
   status: VerdictStatus;
@@ -21,6 +22,8 @@ export interface Verdict<C = unknown> {
   notes?: string[];
   /** Work done, in budget steps. */
   steps?: number;
+  /** The graphs the check ran on (order, size, loops, multiple edges); set by verifyClaim. */
+  ranOn?: GraphSummary[];
 }
 
 export class BudgetExceeded extends Error {
@@ -42,6 +45,11 @@ export class Budget {
 
 export const DEFAULT_STEP_LIMIT = 200_000_000;
 
+/** The one wording of an exhausted budget ("budget exceeded: more than N steps; retry with a larger budget"), said once. */
+export function budgetReason(e: BudgetExceeded): string {
+  return `${e.message}; retry with a larger budget`;
+}
+
 /** Runs a check, turning an exhausted budget into an `undecided` verdict instead of an exception. */
 export function withinBudget<C>(statement: string, method: string, budget: Budget, run: () => Verdict<C>): Verdict<C> {
   try {
@@ -49,7 +57,7 @@ export function withinBudget<C>(statement: string, method: string, budget: Budge
     return { ...v, steps: budget.used };
   } catch (e) {
     if (e instanceof BudgetExceeded)
-      return { status: "undecided", statement, method, reason: `budget exceeded: ${e.message}; retry with a larger budget`, steps: budget.used };
+      return { status: "undecided", statement, method, reason: budgetReason(e), steps: budget.used };
     throw e;
   }
 }

@@ -32,7 +32,7 @@ export function scheduleVerification(claimId: number, checkedBy: number, claim?:
             const o = answer.outcome!;
             const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
             return {
-              status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason + notes,
+              status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: [o.reason + notes, o.ranOn].filter(Boolean).join(" "),
               certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
             };
           })()

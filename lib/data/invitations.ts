@@ -227,3 +227,21 @@ export async function shareWholeProof(proofId: number, reviewerId: number, actor
     await recordEvent({ proofId, actorId, action: "member.scope_shared", subjectType: "member", subjectId: reviewerId, detail: "whole proof shared" }, transaction);
   });
 }
+
+/** The editor changes a referee's cases after the invitation: exactly these cases (and what lies below them). */
+export async function setReviewerCases(proofId: number, reviewerId: number, actorId: number, caseIds: number[]): Promise<{ scope: string }> {
+  const { ProofMember, ReviewerScope } = models();
+  const numbers = await caseNumbers(proofId);
+  const chosen = [...new Set(caseIds)];
+  const foreign = chosen.filter((id) => !numbers.has(id));
+  if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
+  const scope = `case${chosen.length > 1 ? "s" : ""} ${chosen.map((id) => numbers.get(id)).sort().join(", ")}`;
+  await getSequelize().transaction(async (transaction) => {
+    const member = await ProofMember.findOne({ where: { proofId, userId: reviewerId, role: "reviewer" }, transaction });
+    if (!member) throw notFound("This reviewer");
+    await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
+    await ReviewerScope.bulkCreate(chosen.map((caseId) => ({ proofId, userId: reviewerId, caseId })), { transaction });
+    await recordEvent({ proofId, actorId, action: "member.scope_changed", subjectType: "member", subjectId: reviewerId, detail: scope }, transaction);
+  });
+  return { scope };
+}

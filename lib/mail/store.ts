@@ -16,8 +16,10 @@ export interface CapturedMail {
   text: string;
 }
 
+// A data file written at run time, not a source of the app: the ignore comment keeps the bundler from tracing
+// the whole project because of a path made from the working directory and a variable.
 export const mailStorePath = () =>
-  readEnv().CAIRN_MAIL_STORE ?? path.join(process.cwd(), ".data", "mail", `messages-${readEnv().CAIRN_SMTP_PORT}.jsonl`);
+  readEnv().CAIRN_MAIL_STORE ?? path.join(/* turbopackIgnore: true */ process.cwd(), ".data", "mail", `messages-${readEnv().CAIRN_SMTP_PORT}.jsonl`);
 
 function decodeQuotedPrintable(s: string): string {
   const bytes: number[] = [];
@@ -50,8 +52,8 @@ export function parseRawMail(raw: string): { subject: string; text: string } {
 
 /** Every captured message, newest first. */
 export function readCapturedMail(file = mailStorePath()): CapturedMail[] {
-  if (!existsSync(file)) return [];
-  return readFileSync(file, "utf8")
+  if (!existsSync(/* turbopackIgnore: true */ file)) return [];
+  return readFileSync(/* turbopackIgnore: true */ file, "utf8")
     .split("\n")
     .filter((l) => l.trim())
     .map((l) => JSON.parse(l) as CapturedMail)

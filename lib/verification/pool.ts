@@ -22,10 +22,14 @@ const SOURCE_DIRS = ["lib/core", "lib/verification"];
 
 function newestSource(root: string): number {
   let newest = 0;
-  // turbopackIgnore: these are the worker's sources, read at run time, not files the server bundle needs.
-  for (const dir of SOURCE_DIRS)
-    for (const f of readdirSync(/* turbopackIgnore: true */ path.join(root, dir)))
-      if (f.endsWith(".ts") && !f.endsWith(".test.ts")) newest = Math.max(newest, statSync(/* turbopackIgnore: true */ path.join(root, dir, f)).mtimeMs);
+  // These are the worker's sources, read at run time, not files the server bundle needs. The bundler traces a
+  // path built from the working directory and a variable as "the whole project", so the ignore comment goes on
+  // the path itself as well as on the fs call.
+  for (const dir of SOURCE_DIRS) {
+    const folder = path.join(/* turbopackIgnore: true */ root, dir);
+    for (const f of readdirSync(/* turbopackIgnore: true */ folder))
+      if (f.endsWith(".ts") && !f.endsWith(".test.ts")) newest = Math.max(newest, statSync(/* turbopackIgnore: true */ path.join(/* turbopackIgnore: true */ folder, f)).mtimeMs);
+  }
   return newest;
 }
 

@@ -32,6 +32,8 @@ export interface VerificationOutcome {
   /** Set when the claim carried a certificate: whether it re-checked and agrees with the verdict. */
   certificateMatches: boolean | null;
   notes: string[];
+  /** "Ran on G: order 4, size 3, no loops, no multiple edges." — the graphs as read, so a misread input shows. */
+  ranOn: string;
   steps: number | null;
   picture: ClaimPicture | null;
 }

@@ -3,7 +3,7 @@
  * worker thread): validates and verifies one claim with the exact core under a step budget, and
  * computes its display picture. Nothing here touches the database; the server stores the outcome.
  */
-import { CHECKER_VERSION, readClaimGraph, verifyClaim } from "../core/claims";
+import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims";
 import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claim-schema";
 import { NumberFormatError } from "../core/rational";
 import { parseGraph } from "../core/parse";
@@ -159,6 +159,7 @@ function verifyOne(claim: Claim, task: VerificationTask): VerificationOutcome {
     checkerVersion: result.checkerVersion ?? CHECKER_VERSION,
     certificateMatches: result.certificateCheck ? result.certificateCheck.matches : null,
     notes: v.notes ?? [],
+    ranOn: describeRanOn(v.ranOn ?? []),
     steps: v.steps ?? null,
     picture: task.picture ? claimPicture(claim, evidence) : null,
   };

@@ -40,6 +40,7 @@ describe("proof workspace in the browser", () => {
     await page.getByRole("button", { name: "✎ Edit title and statement" }).click();
     await page.getByTestId("edit-proof").getByLabel(/^Statement/).fill("Every connected graph $G$ with $\\rho(G) < \\sqrt{5}$ has maximum degree at most $4$.");
     await page.getByTestId("edit-proof").getByRole("button", { name: "Save" }).click();
+    await page.getByTestId("edit-proof").waitFor({ state: "detached" }); // the editor shows the text too while it is open
     await page.getByText("Every connected graph").waitFor();
 
     const addCase = page.getByTestId("add-case");

@@ -24,6 +24,7 @@ import * as decision from "@/app/api/proofs/[proofId]/rounds/[round]/decision/ro
 import * as policy from "@/app/api/proofs/[proofId]/review-policy/route";
 import * as desk from "@/app/api/proofs/[proofId]/desk/route";
 import * as proofRoute from "@/app/api/proofs/[proofId]/route";
+import * as invitationsRoute from "@/app/api/proofs/[proofId]/invitations/route";
 import * as disputesRoute from "@/app/api/proofs/[proofId]/disputes/route";
 import * as stepReviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as stepComments from "@/app/api/proofs/[proofId]/steps/[stepId]/comments/route";
@@ -380,6 +381,11 @@ describe("blind review", () => {
       for (const secret of secrets) expect(text, `${who} sees ${secret}`).not.toContain(secret);
       expect(text).toMatch(/Referee [12]/);
     }
+    // The owner (an author) no longer manages referees on a blind proof: that would show their names and addresses.
+    await actAs("author");
+    const ownerInvites = await invitationsRoute.GET(jsonRequest("/x", "GET"), params({ proofId: P() }));
+    expect(ownerInvites.status).toBe(403);
+    expect((await ownerInvites.json()).error.message).toMatch(/refereed blind/);
     const snapshot = JSON.stringify(await loadSnapshot(fx.proofId));
     for (const secret of secrets) expect(snapshot, `the export names ${secret}`).not.toContain(secret);
     const editorText = await surfaces("editor");

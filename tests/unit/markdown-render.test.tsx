@@ -72,3 +72,12 @@ describe("MathMarkdown budget per formula", () => {
     expect(html.match(/class="katex"/g)?.length).toBe(3);
   });
 });
+
+describe("display math written on one line", () => {
+  it("renders $$…$$ within a line as display math, as the PDF does, and $…$ inline", () => {
+    const html = renderToStaticMarkup(<MathMarkdown source={"Hence $$\\rho(G) \\ge \\sqrt{5}$$ and $x$ is inline."} />);
+    expect(html.match(/katex-display/g)).toHaveLength(1);
+    expect(html).toContain('<annotation encoding="application/x-tex">\\rho(G) \\ge \\sqrt{5}</annotation>');
+    expect(html.match(/class="katex"/g)).toHaveLength(2); // both formulas rendered, one of them in a display block
+  });
+});

@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireUser } from "@/lib/session";
 import { countUnread, listNotifications, markRead } from "@/lib/data/notifications";
 import { markReadSchema } from "@/lib/validations/review";
@@ -13,6 +13,6 @@ export const GET = route(async () => {
 /** Marks some (or all) of one's own notifications as read. */
 export const POST = route(async (request: Request) => {
   const user = await requireUser();
-  const { ids } = await readBody(request, markReadSchema);
+  const { ids } = await readBody(request, markReadSchema, BODY_LIMITS.small);
   return Response.json({ marked: await markRead(user.id, ids) });
 });

@@ -35,46 +35,49 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
   const editable = may(standing, "cases.write");
   const targets = editable ? flattenCaseTree(overview.cases).map((c) => ({ id: c.id, number: c.number })) : [];
   return (
-    <main className="grid gap-8 lg:grid-cols-[1fr_16rem]">
-      <section>
-        <h1 className="text-3xl font-semibold">{proof.title}</h1>
-        <MathMarkdown source={proof.statement} className="mt-4 max-w-prose text-lg" />
-        {editable && <EditProof proofId={proofId} initial={{ title: proof.title, statement: proof.statement }} />}
-        <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
-        {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
-        <CaseTargets targets={targets}>
-          <CaseTree nodes={overview.cases} options={{ proofId, editable }} />
-        </CaseTargets>
-        {editable && <AddCaseForm proofId={proofId} parentId={null} />}
-        <DeletedCases proofId={proofId} cases={deleted} editable={editable} />
-        <h2 className="mb-3 mt-10 text-xl font-semibold">All claims</h2>
+    <main className="space-y-10">
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_16rem]">
+        <section className="min-w-0">
+          <h1 className="break-words text-3xl font-semibold">{proof.title}</h1>
+          <MathMarkdown source={proof.statement} className="mt-4 max-w-prose text-lg" />
+          {editable && <EditProof proofId={proofId} initial={{ title: proof.title, statement: proof.statement }} />}
+          <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
+          {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
+          <CaseTargets targets={targets}>
+            <CaseTree nodes={overview.cases} options={{ proofId, editable }} />
+          </CaseTargets>
+          {editable && <AddCaseForm proofId={proofId} parentId={null} />}
+          <DeletedCases proofId={proofId} cases={deleted} editable={editable} />
+        </section>
+        <aside className="min-w-0 space-y-6">
+          <StateCounts counts={overview.counts} proofState={overview.proofState} />
+          <nav className="flex flex-col gap-1 text-sm" aria-label="This proof">
+            <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">Members and reviewers</Link>
+            <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">Timeline</Link>
+            <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 hover:underline">Review rounds and reports</Link>
+            {mayDoInRound(role, "read_desk") && <Link href={`/proofs/${proofId}/desk`} className="text-lichen-700 hover:underline">Editor’s desk</Link>}
+          </nav>
+          {exports && <ProofExportsCard proofId={proofId} exports={exports} />}
+          <div>
+            <h2 className="font-semibold">Members</h2>
+            <ul className="mt-2 space-y-1 text-sm">
+              {proof.members.map((m) => (
+                <li key={m.userId} className="flex items-center justify-between gap-2">
+                  <span>{m.name}</span>
+                  <RoleTag role={m.role} />
+                </li>
+              ))}
+            </ul>
+          </div>
+        </aside>
+      </div>
+      <section className="min-w-0">
+        <h2 className="mb-3 text-xl font-semibold">All claims</h2>
         <div className="mb-3">
           <VerdictCaution />
         </div>
         <ClaimsTable proofId={proofId} claims={claims} />
       </section>
-      <aside className="space-y-6">
-        <StateCounts counts={overview.counts} proofState={overview.proofState} />
-        <nav className="flex flex-col gap-1 text-sm" aria-label="This proof">
-          <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">Members and reviewers</Link>
-          <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">Timeline</Link>
-          <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 hover:underline">Review rounds and reports</Link>
-          {mayDoInRound(role, "read_desk") && <Link href={`/proofs/${proofId}/desk`} className="text-lichen-700 hover:underline">Editor’s desk</Link>}
-        </nav>
-        {exports && <ProofExportsCard proofId={proofId} exports={exports} />}
-        <div>
-          <h2 className="font-semibold">Members</h2>
-          <ul className="mt-2 space-y-1 text-sm">
-            {proof.members.map((m) => (
-              <li key={m.userId} className="flex items-center justify-between gap-2">
-                <span>{m.name}</span>
-                <RoleTag role={m.role} />
-              </li>
-            ))}
-          </ul>
-        </div>
-        <VerdictCaution compact />
-      </aside>
     </main>
   );
 }

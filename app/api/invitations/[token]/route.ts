@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { getCurrentUser } from "@/lib/session";
 import { acceptInvitation, previewInvitation } from "@/lib/data/invitations";
 import { acceptInvitationSchema } from "@/lib/validations/invitation";
@@ -21,6 +21,6 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const token = tokenParam((await params).token);
   const user = await getCurrentUser();
-  const input = await readBody(request, acceptInvitationSchema);
+  const input = await readBody(request, acceptInvitationSchema, BODY_LIMITS.small);
   return Response.json(await acceptInvitation(token, user, input));
 });

@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireUser } from "@/lib/session";
 import { getEmailPreferences, setEmailPreference } from "@/lib/data/notifications";
 import { emailPreferenceSchema } from "@/lib/validations/review";
@@ -12,7 +12,7 @@ export const GET = route(async () => {
 /** Turns e-mail on or off for one kind. */
 export const PUT = route(async (request: Request) => {
   const user = await requireUser();
-  const { kind, email } = await readBody(request, emailPreferenceSchema);
+  const { kind, email } = await readBody(request, emailPreferenceSchema, BODY_LIMITS.small);
   await setEmailPreference(user.id, kind, email);
   return Response.json({ email: await getEmailPreferences(user.id) });
 });

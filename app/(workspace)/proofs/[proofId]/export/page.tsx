@@ -10,6 +10,7 @@ import { OfflineCheckHelp } from "@/components/export/offline-check-help";
 import { VerdictCaution } from "@/components/ui/caution";
 import { pageAccess } from "@/app/(workspace)/page-access";
 import { may } from "@/lib/access";
+import { ProofStateBadge } from "@/components/review/badges";
 
 export const metadata: Metadata = { title: "Export" };
 
@@ -28,7 +29,7 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
       </div>
       <section className="space-y-3" aria-labelledby="state">
         <h2 id="state" className="text-xl font-semibold">
-          Proof: <span data-proof-state={certification.state}>{ready ? "● ready to certify" : "◐ in progress"}</span>
+          Proof: <ProofStateBadge state={certification.state} />
         </h2>
         {ready ? (
           <p>Every case is settled: a certified export is possible.</p>

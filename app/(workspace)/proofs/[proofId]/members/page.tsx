@@ -10,6 +10,7 @@ import { InviteForm } from "@/components/review/invite-form";
 import { InvitationList } from "@/components/review/invitation-list";
 import { RequiredApprovalsForm } from "@/components/review/required-approvals-form";
 import { ReadinessRollup } from "@/components/review/readiness-rollup";
+import { VerdictCaution } from "@/components/ui/caution";
 import { QueueTable } from "@/components/review/queue-table";
 import { ActionButton } from "@/components/review/action-button";
 import { pageAccess } from "@/app/(workspace)/page-access";
@@ -41,7 +42,7 @@ export default async function MembersPage({ params }: { params: Promise<{ proofI
           {proof.members.map((m) => (
             <li key={m.userId} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
               <span>
-                {m.name} <span className="font-mono text-xs text-stone-500">{m.email}</span>
+                {m.name} <span className="break-all font-mono text-xs text-stone-600">{m.email}</span>
               </span>
               <span className="flex items-center gap-2 text-sm">
                 {m.role === "reviewer" && <span className="text-stone-600">{scopeOf.get(m.userId)}</span>}
@@ -69,6 +70,7 @@ export default async function MembersPage({ params }: { params: Promise<{ proofI
         </>
       )}
       <ReadinessRollup readiness={readiness} />
+      <VerdictCaution />
     </main>
   );
 }

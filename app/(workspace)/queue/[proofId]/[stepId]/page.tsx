@@ -3,6 +3,7 @@ import Link from "next/link";
 import { describeStep } from "@/lib/data/review-panel";
 import { getReadiness } from "@/lib/data/review-queues";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
+import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { CaseStateBadge } from "@/components/proof/case-state-badge";
 import { stepPageAccess } from "@/app/(workspace)/page-access";
@@ -42,6 +43,7 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
         <p className="italic text-stone-500">This step has no revision yet.</p>
       )}
       <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={info.revision?.id ?? null} viewer={{ id: access.user.id, role: access.role }} />
+      <VerdictCaution />
     </main>
   );
 }

@@ -1,4 +1,4 @@
-import { idParam, readBody, route } from "@/lib/http";
+import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { getProofOverview } from "@/lib/data/cases";
 import { createCase } from "@/lib/data/case-edits";
@@ -18,7 +18,7 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user } = await requireProofRole(proofId, "author");
-  const input = await readBody(request, createCaseSchema);
+  const input = await readBody(request, createCaseSchema, BODY_LIMITS.small);
   const created = await createCase(proofId, user.id, input);
   return Response.json({ case: created }, { status: 201 });
 });

@@ -1,4 +1,4 @@
-import { idParam, readBody, route } from "@/lib/http";
+import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { createExport, getCertification, listExports } from "@/lib/data/exports";
 import { createExportSchema } from "@/lib/validations/export";
@@ -19,7 +19,7 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user } = await requireProofRole(proofId, "author", "editor");
-  const { kind } = await readBody(request, createExportSchema);
+  const { kind } = await readBody(request, createExportSchema, BODY_LIMITS.small);
   const created = await createExport(proofId, user, kind);
   return Response.json({ export: created }, { status: 201, headers: { location: `/api/proofs/${proofId}/exports/${created.id}` } });
 });

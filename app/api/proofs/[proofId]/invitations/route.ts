@@ -1,4 +1,4 @@
-import { idParam, readBody, route } from "@/lib/http";
+import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { createInvitation, listInvitations } from "@/lib/data/invitations";
 import { invitationSchema } from "@/lib/validations/invitation";
@@ -19,7 +19,7 @@ export const POST = route(async (request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user, role } = await requireProofRole(proofId);
   await assertCanManageReviewers(proofId, user, role);
-  const input = await readBody(request, invitationSchema);
+  const input = await readBody(request, invitationSchema, BODY_LIMITS.small);
   const created = await createInvitation(proofId, user, input);
   return Response.json({ id: created.id, mailStatus: created.mailStatus }, { status: 201 });
 });

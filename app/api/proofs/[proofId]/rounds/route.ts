@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { assertMayInRound, listRoundViews, openRound, parseDueDate } from "@/lib/data/rounds";
 import { openRoundSchema } from "@/lib/validations/round";
@@ -18,6 +18,6 @@ export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId } = await routeIds(params);
   const { user, role } = await requireProofRole(proofId);
   assertMayInRound(role, "open_round");
-  const input = await readBody(request, openRoundSchema);
+  const input = await readBody(request, openRoundSchema, BODY_LIMITS.small);
   return Response.json(await openRound(proofId, user.id, parseDueDate(input.dueAt)), { status: 201 });
 });

@@ -1,4 +1,4 @@
-import { idParam, readBody, route } from "@/lib/http";
+import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { setRequiredApprovals } from "@/lib/data/reviews";
 import { getReadiness } from "@/lib/data/review-queues";
@@ -20,7 +20,7 @@ export const PATCH = route(async (request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user, role } = await requireProofRole(proofId);
   await assertCanManageReviewers(proofId, user, role);
-  const input = await readBody(request, settingsSchema);
+  const input = await readBody(request, settingsSchema, BODY_LIMITS.small);
   await setRequiredApprovals(proofId, user.id, input.requiredApprovals);
   return Response.json({ requiredApprovals: input.requiredApprovals });
 });

@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { deleteCase, updateCase } from "@/lib/data/case-edits";
 import { deleteCaseSchema, updateCaseSchema } from "@/lib/validations/case";
@@ -13,7 +13,7 @@ type Context = { params: Promise<{ proofId: string; caseId: string }> };
 export const PATCH = route(async (request: Request, { params }: Context) => {
   const { proofId, caseId } = await routeIds(params);
   const { user } = await requireProofRole(proofId, "author");
-  const input = await readBody(request, updateCaseSchema);
+  const input = await readBody(request, updateCaseSchema, BODY_LIMITS.small);
   await updateCase(proofId, caseId, user.id, input);
   return Response.json({ ok: true });
 });
@@ -24,7 +24,7 @@ export const DELETE = route(async (request: Request, { params }: Context) => {
   const { user } = await requireProofRole(proofId, "author");
   // `{ "confirm": true }` as a JSON body, or `?confirm=true` for a request without one.
   const input = request.headers.get("content-type")?.includes("json")
-    ? await readBody(request, deleteCaseSchema)
+    ? await readBody(request, deleteCaseSchema, BODY_LIMITS.small)
     : { confirm: new URL(request.url).searchParams.get("confirm") === "true" };
   await deleteCase(proofId, caseId, user.id, input.confirm === true);
   return Response.json({ ok: true });

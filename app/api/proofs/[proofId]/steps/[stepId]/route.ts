@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { moveStepSchema } from "@/lib/validations/step";
 import { getStep, moveStep } from "@/lib/data/steps";
@@ -20,7 +20,7 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const PATCH = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireProofRole(proofId, "author");
-  const { move } = await readBody(request, moveStepSchema);
+  const { move } = await readBody(request, moveStepSchema, BODY_LIMITS.small);
   await moveStep(proofId, stepId, user.id, move);
   return Response.json({ ok: true });
 });

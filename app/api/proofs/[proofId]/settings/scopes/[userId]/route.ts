@@ -1,7 +1,8 @@
-import { idParam, route } from "@/lib/http";
+import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { shareWholeProof } from "@/lib/data/invitations";
+import { setReviewerCases, shareWholeProof } from "@/lib/data/invitations";
 import { assertCanManageReviewers } from "@/lib/access";
+import { reviewerScopeSchema } from "@/lib/validations/membership";
 
 type Context = { params: Promise<{ proofId: string; userId: string }> };
 
@@ -14,4 +15,15 @@ export const DELETE = route(async (_request: Request, { params }: Context) => {
   await assertCanManageReviewers(proofId, user, role);
   await shareWholeProof(proofId, reviewerId, user.id);
   return Response.json({ scope: "whole proof" });
+});
+
+/** The editor changes which cases a reviewer reviews (422 for an empty list or a case of another proof). */
+export const PUT = route(async (request: Request, { params }: Context) => {
+  const p = await params;
+  const proofId = idParam(p.proofId, "This proof");
+  const reviewerId = idParam(p.userId, "This reviewer");
+  const { user, role } = await requireProofRole(proofId);
+  await assertCanManageReviewers(proofId, user, role);
+  const input = await readBody(request, reviewerScopeSchema);
+  return Response.json(await setReviewerCases(proofId, reviewerId, user.id, input.caseIds));
 });

@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { attachClaims, awaitVerdicts, listStepClaims, listWithdrawnClaims, storeClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
@@ -25,7 +25,7 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireProofRole(proofId, "author");
-  const input = await readBody(request, attachClaimsSchema);
+  const input = await readBody(request, attachClaimsSchema, BODY_LIMITS.claims);
   const wait = Math.min(Number(new URL(request.url).searchParams.get("wait")) || 0, 60);
   if (wait <= 0) return Response.json({ claims: await attachClaims(proofId, stepId, user.id, input.claims) }, { status: 202 });
   const ids = await storeClaims(proofId, stepId, user.id, input.claims);

@@ -1,4 +1,4 @@
-import { readBody, route } from "@/lib/http";
+import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { assertMayInRound, loadRound, parseDueDate, setRefereeDue } from "@/lib/data/rounds";
 import { refereeDueSchema } from "@/lib/validations/round";
@@ -12,7 +12,7 @@ export const PATCH = route(async (request: Request, { params }: Context) => {
   const { user, role } = await requireProofRole(proofId);
   await loadRound(proofId, round);
   assertMayInRound(role, "set_due_date");
-  const input = await readBody(request, refereeDueSchema);
+  const input = await readBody(request, refereeDueSchema, BODY_LIMITS.small);
   const dueAt = parseDueDate(input.dueAt);
   await setRefereeDue(proofId, round, userId, user.id, dueAt);
   return Response.json({ dueAt: dueAt.toISOString() });
