@@ -9,7 +9,7 @@ export default function LandingPage() {
       <h1 className="mt-10 text-4xl font-semibold leading-tight">Classification proofs, checked case by case.</h1>
       <p className="mt-6 text-lg text-stone-700">
         Draft a proof as a tree of cases. Close each case with a computation — a forbidden subgraph, a spectral radius
-        bound, a positive vector — and Cairn re-does it in exact arithmetic and keeps the certificate. Reviewers approve
+        bound, a positive vector — and Cairn re-does it in exact arithmetic and keeps the certificate. Referees vouch for
         or dispute individual steps; the finished proof leaves as a bundle anyone can re-check offline.
       </p>
       <div className="mt-8 flex flex-wrap gap-4">

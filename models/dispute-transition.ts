@@ -11,7 +11,7 @@ export class DisputeTransition extends Model<InferAttributes<DisputeTransition>,
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
-    const states = DataTypes.ENUM("open", "answered", "closed", "reopened");
+    const states = DataTypes.ENUM("raised", "answered", "withdrawn", "upheld");
     DisputeTransition.init(
       {
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export const NOTIFICATION_KINDS = ["assigned", "dispute_opened", "dispute_answered", "dispute_closed", "dispute_reopened"] as const;
+export const NOTIFICATION_KINDS = ["assigned", "dispute_raised", "dispute_answered", "dispute_withdrawn", "dispute_upheld", "vouch_superseded"] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 /** An in-app notice for one person. */

@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export type ReviewVerdict = "approve" | "dispute";
-export type DisputeState = "open" | "answered" | "closed" | "reopened";
+export type ReviewVerdict = "vouch" | "dispute";
+export type DisputeState = "raised" | "answered" | "withdrawn" | "upheld";
 
 /** A reviewer's verdict on one revision of a step. */
 export class Review extends Model<InferAttributes<Review>, InferCreationAttributes<Review>> {
@@ -11,6 +11,8 @@ export class Review extends Model<InferAttributes<Review>, InferCreationAttribut
   declare reviewerId: number;
   declare verdict: ReviewVerdict;
   declare disputeState: DisputeState | null;
+  /** The digest of the revision (text and claims) this verdict covers. */
+  declare digest: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -21,8 +23,9 @@ export class Review extends Model<InferAttributes<Review>, InferCreationAttribut
         stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         reviewerId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        verdict: { type: DataTypes.ENUM("approve", "dispute"), allowNull: false },
-        disputeState: { type: DataTypes.ENUM("open", "answered", "closed", "reopened"), allowNull: true },
+        verdict: { type: DataTypes.ENUM("vouch", "dispute"), allowNull: false },
+        disputeState: { type: DataTypes.ENUM("raised", "answered", "withdrawn", "upheld"), allowNull: true },
+        digest: { type: DataTypes.CHAR(64), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -8,6 +8,7 @@ import { models } from "@/models";
 import answer from "@/lib/verification/worker-entry";
 import { claimDigest } from "@/lib/core/claims";
 import { validateClaim } from "@/lib/core/claim-schema";
+import { claimSetText, digestOfRevision, type RevisionClaim } from "@/lib/review/revisions";
 import { demoPeople, demoProof } from "./demo-content";
 
 const named = (text: string) => ({ format: "named", text });
@@ -50,7 +51,7 @@ const DEMO_CLAIMS: Array<[number[], number, object[]]> = [
 ];
 
 export async function up({ context: sequelize }: { context: Sequelize }) {
-  const { User, Proof, Case, Step, Claim } = models();
+  const { User, Proof, Case, Step, StepRevision, Claim } = models();
   const author = await User.findOne({ where: { email: demoPeople.find((p) => p.key === "author")!.email } });
   const proof = author && (await Proof.findOne({ where: { title: demoProof.title, createdBy: author.id } }));
   if (!author || !proof) return;
@@ -72,12 +73,13 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
       const c = caseAt(path);
       const step = c && steps.find((s) => s.caseId === c.id && s.position === position);
       if (!step) continue;
+      const attached: RevisionClaim[] = [];
       for (const [i, raw] of claims.entries()) {
         const valid = validateClaim(raw);
         const result = answer({ mode: "verify", claim: valid, stepLimit: 200_000_000, picture: true });
         if (!result.ok || !result.outcome) throw new Error(`demo claim ${JSON.stringify(raw)} could not be read`);
         const o = result.outcome;
-        await Claim.create(
+        const row = await Claim.create(
           {
             stepId: step.id, position: i + 1, kind: valid.kind, input: JSON.stringify(valid), digest: claimDigest(valid), status: o.status,
             statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason, certificate: o.certificate,
@@ -86,13 +88,17 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
           },
           { transaction },
         );
+        attached.push({ id: row.id, position: row.position, kind: row.kind, statement: row.statement, digest: row.digest ?? "", status: row.status });
       }
+      // The demo's claims were there from the step's first revision: it covers them (nobody has vouched yet).
+      const first = await StepRevision.findOne({ where: { stepId: step.id }, order: [["number", "DESC"]], transaction });
+      if (first) await first.update({ claimSet: claimSetText(attached), digest: digestOfRevision(first.number, first.body, attached) }, { transaction });
     }
   });
 }
 
 export async function down({ context: sequelize }: { context: Sequelize }) {
-  const { User, Proof, Case, Step, Claim } = models();
+  const { User, Proof, Case, Step, StepRevision, Claim } = models();
   const author = await User.findOne({ where: { email: demoPeople.find((p) => p.key === "author")!.email } });
   const proof = author && (await Proof.findOne({ where: { title: demoProof.title, createdBy: author.id } }));
   if (!proof) return;

@@ -1,10 +1,11 @@
 /**
- * Demo seed for the review workflow, so the demo shows every state: Celia's approvals (case 1 and case 3.1
- * settled), a stale approval after Ada revised the step of case 3 ("needs re-review"), and one open dispute
+ * Demo seed for the review workflow, so the demo shows every state: Celia's vouches (case 1 and case 3.1
+ * settled), a superseded vouch after Ada revised the step of case 3, and one open dispute
  * on the step of case 2 with a thread. Case 3.2 stays untouched (drafting). Idempotent.
  */
 import type { Sequelize } from "sequelize";
 import { models } from "@/models";
+import { claimSetText, digestOfRevision, parseClaimSet } from "@/lib/review/revisions";
 import { demoPeople, demoProof } from "./demo-content";
 
 const MARK = "demo.reviews";
@@ -29,17 +30,19 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
 
     const approve = async (stepId: number) => {
       const rev = await latest(stepId);
-      await Review.create({ stepId, revisionId: rev.id, reviewerId: reviewer, verdict: "approve", disputeState: null }, { transaction });
-      await event("review.approved", "step", stepId, `revision ${rev.number}`);
+      await Review.create({ stepId, revisionId: rev.id, reviewerId: reviewer, verdict: "vouch", disputeState: null, digest: rev.digest ?? digestOfRevision(rev.number, rev.body, parseClaimSet(rev.claimSet)) }, { transaction });
+      await event("review.vouched", "step", stepId, `revision ${rev.number}`);
     };
     for (const s of [...(await stepsOf(case1.id)), ...(await stepsOf(case31.id))]) await approve(s.id);
 
-    // Approved, then revised by the author: the approval is stale until Celia looks again.
+    // Vouched for, then revised by the author: the vouch is superseded until Celia reads it again.
     const [step3] = await stepsOf(case3.id);
     await approve(step3.id);
     const first = await latest(step3.id);
+    const body2 = `${first.body}\n\nEquivalently, $T$ is not one of $A_n, D_n, E_6, E_7, E_8$ (the connected graphs with $\\rho < 2$).`;
+    const claims2 = parseClaimSet(first.claimSet);
     const rev2 = await StepRevision.create(
-      { stepId: step3.id, number: first.number + 1, body: `${first.body}\n\nEquivalently, $T$ is not one of $A_n, D_n, E_6, E_7, E_8$ (the connected graphs with $\\rho < 2$).`, authorId: author },
+      { stepId: step3.id, number: first.number + 1, body: body2, authorId: author, baseRevisionId: first.id, claimSet: claimSetText(claims2), digest: digestOfRevision(first.number + 1, body2, claims2), origin: "text" },
       { transaction },
     );
     await event("revision.created", "revision", rev2.id, `step ${step3.id} revision ${rev2.number}`, author);
@@ -47,8 +50,8 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     // One open dispute with a thread.
     const [step2] = await stepsOf(case2.id);
     const rev = await latest(step2.id);
-    const dispute = await Review.create({ stepId: step2.id, revisionId: rev.id, reviewerId: reviewer, verdict: "dispute", disputeState: "open" }, { transaction });
-    await DisputeTransition.create({ reviewId: dispute.id, actorId: reviewer, fromState: null, toState: "open" }, { transaction });
+    const dispute = await Review.create({ stepId: step2.id, revisionId: rev.id, reviewerId: reviewer, verdict: "dispute", disputeState: "raised" }, { transaction });
+    await DisputeTransition.create({ reviewId: dispute.id, actorId: reviewer, fromState: null, toState: "raised" }, { transaction });
     const opening = await Comment.create(
       {
         stepId: step2.id,
@@ -67,7 +70,7 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     await event("review.disputed", "step", step2.id, `revision ${rev.number}; dispute #${dispute.id} opened`);
     for (const key of ["author", "coauthor"])
       await Notification.create(
-        { userId: await idOf(key), proofId: proof.id, stepId: step2.id, kind: "dispute_opened", message: `A reviewer disputed revision ${rev.number} of a step you are an author of.`, link: `/queue/${proof.id}/${step2.id}` },
+        { userId: await idOf(key), proofId: proof.id, stepId: step2.id, kind: "dispute_raised", message: `A reviewer disputed revision ${rev.number} of a step you are an author of.`, link: `/queue/${proof.id}/${step2.id}` },
         { transaction },
       );
     await AuditEvent.create({ proofId: proof.id, actorId: null, action: MARK, subjectType: "proof", subjectId: proof.id, detail: "demo reviews seeded" }, { transaction });

@@ -48,7 +48,7 @@ function CaseSection({ c }: { c: DocCase }) {
 /** The exported document laid out for paper: the same content as the LaTeX source, from the same bundle. */
 export function PrintDocument({ doc }: { doc: ExportDocument }) {
   const draft = doc.kind === "draft";
-  const approvals = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.approvals.map((a) => ({ step: `${c.number}:${s.position}`, ...a, stale: s.revision !== null && a.revision !== s.revision.number }))));
+  const vouches = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.vouches.map((a) => ({ step: `${c.number}:${s.position}`, ...a, stale: s.revision !== null && a.revision !== s.revision.number }))));
   return (
     <article className="print-document mx-auto max-w-prose bg-white p-8 print:p-0" data-testid="print-document">
       {/* Every printed page carries the export's kind in its top margin (CSS page margin boxes). */}
@@ -72,17 +72,17 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
       <MathMarkdown source={doc.statement} />
       {doc.cases.map((c) => <CaseSection key={c.number} c={c} />)}
       <section className="mt-10 break-before-page">
-        <h2 className="text-2xl font-semibold">Appendix: reviewers and approvals</h2>
+        <h2 className="text-2xl font-semibold">Appendix: reviewers and vouches</h2>
         <p className="text-sm">
           Members: {doc.members.map((m) => `${m.name} (${m.role})`).join(", ")}. Each step needs {doc.requiredApprovals} approval{doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.
         </p>
         <TableScroll label="Approvals">
         <table className="mt-3 w-full text-left text-sm">
-          <thead><tr><th>Step</th><th>Reviewer</th><th>Approved revision</th><th>Date</th></tr></thead>
+          <thead><tr><th>Step</th><th>Reviewer</th><th>Vouched for revision</th><th>Date</th></tr></thead>
           <tbody>
-            {approvals.length === 0 && <tr><td colSpan={4}><em>No approvals recorded.</em></td></tr>}
-            {approvals.map((a) => (
-              <tr key={`${a.step}-${a.reviewer}-${a.revision}`}><td className="font-mono">{a.step}</td><td>{a.reviewer}</td><td>{a.revision}{a.stale ? " (stale)" : ""}</td><td>{when(a.at)}</td></tr>
+            {vouches.length === 0 && <tr><td colSpan={4}><em>No vouches recorded.</em></td></tr>}
+            {vouches.map((a) => (
+              <tr key={`${a.step}-${a.reviewer}-${a.revision}`}><td className="font-mono">{a.step}</td><td>{a.reviewer}</td><td>{a.revision}{a.stale ? " (superseded)" : ""}</td><td>{when(a.at)}</td></tr>
             ))}
           </tbody>
         </table>

@@ -2,7 +2,7 @@
 import type { AuditEntry } from "@/lib/data/audit";
 
 const glyph = (action: string) =>
-  action.startsWith("review.approved") ? "✓" : action.startsWith("review.disputed") || action === "dispute.reopened" ? "⚑" : action === "dispute.answered" ? "↩" : action === "dispute.closed" ? "■" : action.startsWith("invitation") ? "✉" : action.startsWith("comment") ? "❝" : "•";
+  action.startsWith("review.vouched") ? "✓" : action.startsWith("review.disputed") || action === "dispute.upheld" ? "⚑" : action === "dispute.answered" ? "↩" : action === "dispute.withdrawn" ? "■" : action.startsWith("invitation") ? "✉" : action.startsWith("comment") ? "❝" : "•";
 
 export function AuditTimeline({ events }: { events: AuditEntry[] }) {
   if (events.length === 0) return <p className="italic text-stone-500">Nothing recorded yet.</p>;

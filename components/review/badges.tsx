@@ -1,4 +1,4 @@
-/** States of the review workflow, always as a glyph and a word (never colour alone), drawn by the one Mark. Case states: components/proof/case-state-badge.tsx. */
+/** States of the review workflow, always as a glyph and a word (never colour alone). Case states: components/proof/case-state-badge.tsx. */
 import type { DisputeState, ProofState } from "@/lib/review/states";
 import { Mark } from "@/components/ui/mark";
 
@@ -7,10 +7,10 @@ function Badge({ glyph, word, className, data }: { glyph: string; word: string; 
 }
 
 const disputeLook: Record<DisputeState, { glyph: string; className: string }> = {
-  open: { glyph: "⚑", className: "text-refuted" },
-  reopened: { glyph: "⚑", className: "text-refuted" },
+  raised: { glyph: "△", className: "text-refuted" },
+  upheld: { glyph: "▲", className: "text-refuted" },
   answered: { glyph: "↩", className: "text-undecided" },
-  closed: { glyph: "■", className: "text-stone-600" },
+  withdrawn: { glyph: "▽", className: "text-stone-600" },
 };
 
 export function DisputeStateBadge({ state }: { state: DisputeState }) {
@@ -20,15 +20,15 @@ export function DisputeStateBadge({ state }: { state: DisputeState }) {
 export function ProofStateBadge({ state }: { state: ProofState }) {
   const ready = state === "ready to certify";
   return (
-    <Badge glyph={ready ? "●" : "◐"} word={state} className={ready ? "text-verified" : "text-stone-700"} data={{ "data-proof-state": state }} />
+    <Badge glyph={ready ? "●" : "…"} word={state} className={ready ? "text-verified" : "text-stone-500"} data={{ "data-proof-state": state }} />
   );
 }
 
-/** An approval, current or stale ("needs re-review"). */
-export function ApprovalBadge({ stale }: { stale: boolean }) {
+/** A vouch, covering the latest revision or superseded by a newer one. */
+export function VouchBadge({ stale }: { stale: boolean }) {
   return stale ? (
-    <Badge glyph="↻" word="needs re-review" className="text-undecided" data={{ "data-approval": "stale" }} />
+    <Badge glyph="◌" word="superseded" className="text-undecided" data={{ "data-approval": "stale" }} />
   ) : (
-    <Badge glyph="✓" word="approved" className="text-verified" data={{ "data-approval": "current" }} />
+    <Badge glyph="◆" word="vouched" className="text-verified" data={{ "data-approval": "current" }} />
   );
 }

@@ -15,8 +15,8 @@ export function DisputeCard({ dispute, proofId, commentsUrl, onChange }: { dispu
   const [busy, setBusy] = useState(false);
   const moves = [
     dispute.can.answer && { to: "answered", label: "Mark answered" },
-    dispute.can.close && { to: "closed", label: "Close dispute" },
-    dispute.can.reopen && { to: "reopened", label: "Reopen dispute" },
+    dispute.can.withdraw && { to: "withdrawn", label: "Withdraw: I am satisfied" },
+    dispute.can.uphold && { to: "upheld", label: "Uphold: not yet answered" },
   ].filter(Boolean) as Array<{ to: string; label: string }>;
 
   const moveTo = async (to: string) => {

@@ -1,14 +1,14 @@
 "use client";
 /**
  * The review panel under a step (rendered by the workspace under each step, and by the queue's step view):
- * verdicts at the current revision, approvals on older revisions marked "needs re-review", disputes with
+ * verdicts at the current revision, vouches on older revisions marked superseded, disputes with
  * their states, transitions and threads, and the step's comments with replies.
  */
 import { useState } from "react";
 import useSWR from "swr";
 import { useRouter } from "next/navigation";
 import type { StepReviewView } from "@/lib/data/review-panel";
-import { ApprovalBadge } from "./badges";
+import { VouchBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
 import { DisputeCard } from "./dispute-card";
 import { send } from "./send";
@@ -42,8 +42,10 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
 
   const at = revisionId ?? data.latestRevision?.id;
   const viewingOld = revisionId !== null && data.latestRevision !== null && revisionId !== data.latestRevision.id;
-  const verdict = async (kind: "approve" | "dispute", comment?: string) => {
-    const res = await send(`${base}/reviews`, "POST", { revisionId: at, verdict: kind, comment });
+  const verdict = async (kind: "vouch" | "dispute", comment?: string) => {
+    // A vouch names the digest of what the referee read: a claim change meanwhile makes the server refuse it.
+    const digest = kind === "vouch" && data.latestRevision && at === data.latestRevision.id ? data.latestRevision.digest : undefined;
+    const res = await send(`${base}/reviews`, "POST", { revisionId: at, verdict: kind, comment, digest });
     setMessage(res.ok ? null : (res.error ?? "Not recorded."));
     if (res.ok) changed();
     return res.ok ? null : (res.error ?? "Not recorded.");
@@ -53,19 +55,20 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
     <section className="mt-3 space-y-3 rounded border border-stone-200 bg-stone-50/60 p-3" aria-label="Review of this step" data-testid="step-review" data-step-id={stepId}>
       <header className="flex flex-wrap items-center gap-3 text-sm">
         <strong>Review</strong>
-        <span className="font-mono" data-testid="approval-count">
-          {data.status.approvals}/{data.requiredApprovals} approval{data.requiredApprovals === 1 ? "" : "s"} at revision {data.latestRevision?.number ?? "—"}
+        <span data-testid="approval-count">
+          {data.status.vouches} of {data.requiredApprovals} vouch{data.requiredApprovals === 1 ? "" : "es"} needed for revision {data.latestRevision?.number ?? "—"}
         </span>
-        {data.status.staleApprovals > 0 && <span className="font-mono text-undecided">↻ {data.status.staleApprovals} needs re-review</span>}
+        {data.status.supersededVouches > 0 && <span className="text-undecided">{data.status.supersededVouches} superseded</span>}
         {data.status.openDisputes > 0 && <span className="font-mono text-refuted">⚑ {data.status.openDisputes} unresolved dispute{data.status.openDisputes === 1 ? "" : "s"}</span>}
       </header>
 
-      {data.approvals.length > 0 && (
+      {data.vouches.length > 0 && (
         <ul className="space-y-1 text-sm">
-          {data.approvals.map((a) => (
+          {data.vouches.map((a) => (
             <li key={a.id} className="flex items-center gap-2" data-testid="approval">
-              <ApprovalBadge stale={a.stale} />
-              {a.reviewerName}, on revision {a.revisionNumber}
+              <VouchBadge stale={a.stale} />
+              {a.reviewerName} vouched for revision {a.revisionNumber}
+              {a.stale && data.latestRevision && <span className="text-stone-500">— revision {data.latestRevision.number} has changed since</span>}
             </li>
           ))}
         </ul>
@@ -74,17 +77,33 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
       {viewingOld && <p className="text-sm text-undecided">You are looking at an older revision; verdicts are given on revision {data.latestRevision!.number}.</p>}
       {data.can.verdict && data.can.ownDisputeOpen && (
         <p className="text-sm text-stone-600" data-testid="verdict-waits">
-          Your dispute on this step is not closed yet: close it below before approving.
+          Your dispute on this step is still open: withdraw it below (if you are satisfied) before vouching.
         </p>
       )}
-      {data.can.verdict && !data.can.ownDisputeOpen && (
+      {data.can.verdict && data.mine.vouchedAt && !viewingOld && (
+        <p className="text-sm" data-testid="already-vouched">
+          You vouched for revision {data.latestRevision?.number} on {new Date(data.mine.vouchedAt).toLocaleDateString()}. Your vouch covers its text and its {""}
+          claims as they stand; any change makes a new revision and asks you again.
+        </p>
+      )}
+      {data.can.verdict && !data.mine.vouchedAt && data.latestRevision && data.latestRevision.pendingClaims > 0 && (
+        <p className="text-sm text-stone-600" data-testid="vouch-waits">
+          {data.latestRevision.pendingClaims} claim{data.latestRevision.pendingClaims === 1 ? " is" : "s are"} still being checked; a vouch covers the verdicts too, so it waits for them.
+        </p>
+      )}
+      {data.can.verdict && !data.can.ownDisputeOpen && !data.mine.vouchedAt && (
         <div className="space-y-2">
           <div className="flex flex-wrap gap-2">
-            <button type="button" onClick={() => verdict("approve")} className="rounded bg-lichen-600 px-3 py-1 text-sm font-semibold text-white hover:bg-lichen-700">
-              ✓ Approve revision {data.latestRevision?.number}
+            <button
+              type="button"
+              disabled={(data.latestRevision?.pendingClaims ?? 0) > 0}
+              onClick={() => verdict("vouch")}
+              className="rounded border border-stone-400 bg-white px-3 py-1 text-sm hover:border-lichen-600 disabled:opacity-50"
+            >
+              I vouch for revision {data.latestRevision?.number}
             </button>
-            <button type="button" onClick={() => setDisputing((d) => !d)} className="rounded border border-refuted/50 bg-white px-3 py-1 text-sm text-refuted hover:bg-red-50">
-              ⚑ Dispute…
+            <button type="button" onClick={() => setDisputing((d) => !d)} className="rounded border border-stone-400 bg-white px-3 py-1 text-sm hover:border-stone-600">
+              I raise a dispute…
             </button>
           </div>
           {disputing && (

@@ -9,13 +9,13 @@ describe("permissions", () => {
     expect(verdictRefusal({ id: 1, role: "reviewer" }, [2], false)).toMatch(/not asked to review/);
   });
 
-  it("lets authors answer and the disputing reviewer or an editor close or reopen", () => {
+  it("lets authors answer and the disputing reviewer or an editor withdraw or uphold", () => {
     expect(disputeRefusal({ id: 5, role: "author" }, 1, "answered")).toBeNull();
     expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "answered")).toMatch(/authors/);
-    expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "closed")).toBeNull();
-    expect(disputeRefusal({ id: 9, role: "editor" }, 1, "reopened")).toBeNull();
-    expect(disputeRefusal({ id: 7, role: "reviewer" }, 1, "closed")).toMatch(/raised this dispute/);
-    expect(disputeRefusal({ id: 5, role: "author" }, 1, "closed")).toMatch(/raised this dispute/);
+    expect(disputeRefusal({ id: 1, role: "reviewer" }, 1, "withdrawn")).toBeNull();
+    expect(disputeRefusal({ id: 9, role: "editor" }, 1, "upheld")).toBeNull();
+    expect(disputeRefusal({ id: 7, role: "reviewer" }, 1, "withdrawn")).toMatch(/raised this dispute/);
+    expect(disputeRefusal({ id: 5, role: "author" }, 1, "withdrawn")).toMatch(/raised this dispute/);
   });
 });
 

@@ -31,8 +31,8 @@ export type ProofAction =
   | "steps.write" // add, move and revise steps
   | "claims.write" // attach and withdraw claims
   | "claims.recheck"
-  | "verdict.give" // approve or dispute a step (lib/access/rules verdictRefusal adds the per-step rules)
-  | "reviewers.manage" // invite, revoke, share the whole proof, required approvals
+  | "verdict.give" // vouch for or dispute a step (lib/access/rules verdictRefusal adds the per-step rules)
+  | "reviewers.manage" // invite, revoke, share the whole proof, required vouches
   | "exports.read" // list and download exports, the print view
   | "exports.create"
   | "timeline.read"; // the audit trail (a case-limited member: events of their cases only)
@@ -109,7 +109,7 @@ export function expandScope(scopeCaseIds: readonly number[], cases: ReadonlyArra
 /** Why this person may not give a verdict on this step, or null when they may. */
 export function verdictRefusal(actor: Actor, stepAuthorIds: readonly number[], inScope: boolean): string | null {
   if (actor.role !== "reviewer") return ACCESS["verdict.give"].refusal;
-  if (stepAuthorIds.includes(actor.id)) return "You wrote a revision of this step; an author never approves or disputes their own step.";
+  if (stepAuthorIds.includes(actor.id)) return "You wrote a revision of this step; an author never vouches for or disputes their own step.";
   if (!inScope) return "This step is in a case you were not asked to review.";
   return null;
 }
@@ -118,5 +118,5 @@ export function verdictRefusal(actor: Actor, stepAuthorIds: readonly number[], i
 export function disputeRefusal(actor: Actor, disputingReviewerId: number, to: DisputeTarget): string | null {
   if (to === "answered") return actor.role === "author" ? null : "Only the proof's authors mark a dispute as answered.";
   if (actor.id === disputingReviewerId || actor.role === "editor") return null;
-  return `Only the reviewer who raised this dispute (or an editor) can ${to === "closed" ? "close" : "reopen"} it.`;
+  return `Only the reviewer who raised this dispute (or an editor) can ${to === "withdrawn" ? "withdraw" : "uphold"} it.`;
 }

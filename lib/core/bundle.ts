@@ -8,13 +8,15 @@
  * (whitespace and key order aside, which canonical JSON ignores), and is the one number to cite.
  *
  * `checkBundle` recomputes every digest and re-verifies every claim from scratch (a fresh verification
- * plus an independent re-check of the stored certificate), and compares each with the recorded verdict.
+ * plus an independent re-check of the stored certificate), and compares each with the recorded verdict;
+ * each step's vouches are checked against the digest of the revision (text and claims) they cover.
  * Framework-free: the server, the offline checker and a bundled single-file checker all use it.
  */
 import { canonicalJson } from "./canonical";
 import { ClaimError, validateClaim } from "./claim-schema";
 import { CHECKER_VERSION, claimDigest, verifyClaim } from "./claims";
 import { sha256Hex } from "./digest";
+import { revisionDigest } from "./revision-digest";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
 import { claimLineFields, type CheckLine } from "./check-report";
 
@@ -139,6 +141,50 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
 }
 
 /**
+ * What a step's vouches cover: the revision digest recomputed from the step's text and claim set, the
+ * claim set compared with the claim items of the step, and every vouch's stored digest compared with
+ * the revision it was given on. A vouch on an older revision must be marked superseded. Returns null
+ * for a step with no recorded revision digest and no vouch (nothing to say).
+ */
+function checkStepCover(item: BundleItem, claimItems: readonly BundleItem[]): BundleCheckLine | null {
+  const data = item.data as { revision?: unknown; reviews?: unknown } | undefined;
+  if (!isRecord(data) || !isRecord(data.revision)) return null;
+  const r = data.revision as { number?: unknown; body?: unknown; claims?: unknown; digest?: unknown };
+  const vouches = (Array.isArray(data.reviews) ? data.reviews : []).filter(
+    (v): v is Record<string, unknown> => isRecord(v) && (v.verdict === "vouch" || v.verdict === "vouch"),
+  );
+  if (typeof r.digest !== "string") return vouches.length ? { label: item.id, status: "refuted", text: "vouches are recorded but the revision carries no digest of what they cover" } : null;
+  if (typeof r.number !== "number" || typeof r.body !== "string" || !Array.isArray(r.claims))
+    return { label: item.id, status: "malformed", text: "the revision needs a number, a body and a list of claims" };
+  const claims = (r.claims as unknown[]).map((c) => (isRecord(c) ? { digest: String(c.digest), status: String(c.status) } : { digest: "", status: "" }));
+  const recomputed = revisionDigest({ number: r.number, body: r.body, claims });
+  const problems: string[] = [];
+  if (recomputed !== r.digest) problems.push(`the revision digest ${short(r.digest)} does not match its text and claims (${short(recomputed)})`);
+  const inBundle = claimItems.map((c) => {
+    const d = c.data as Partial<ClaimItemData> | undefined;
+    return { digest: String(d?.digest ?? ""), status: String(isRecord(d?.verdict) ? d.verdict.status : "") };
+  });
+  if (inBundle.length !== claims.length || inBundle.some((c, i) => c.digest !== claims[i].digest || c.status !== claims[i].status))
+    problems.push(`the bundle's ${inBundle.length} claim(s) of this step are not the ${claims.length} claim(s) (with their verdicts) that revision ${r.number} covers`);
+  let current = 0;
+  for (const v of vouches) {
+    const who = String(v.reviewer ?? "a referee");
+    if (v.revision === r.number) {
+      current++;
+      if (v.digest !== recomputed) problems.push(`the vouch by ${who} records digest ${short(v.digest)}, but revision ${r.number} (text and claims) digests to ${short(recomputed)}`);
+    } else if (v.superseded !== true) problems.push(`the vouch by ${who} on revision ${String(v.revision)} is counted, but it does not cover revision ${r.number}`);
+  }
+  if (problems.length) return { label: item.id, status: "refuted", text: `${problems.join("; ")}.` };
+  if (vouches.length === 0) return null;
+  const superseded = vouches.length - current;
+  return {
+    label: item.id,
+    status: "verified",
+    text: `revision ${r.number} (text and ${claims.length} claim(s)) digests to ${short(recomputed)}; ${current} vouch(es) cover exactly it${superseded ? `, ${superseded} superseded` : ""}`,
+  };
+}
+
+/**
  * Checks a parsed bundle: every item digest, the manifest digest, every claim re-verified. Exit code
  * 0 when all hold, 1 when a claim fails or anything was changed (each changed item is named), 2 when
  * the document is not a bundle at all.
@@ -153,6 +199,8 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
   const seen = new Set<string>();
   const changedItems: string[] = [];
   let claims = 0;
+  const stepItems: BundleItem[] = [];
+  const claimsOfStep = new Map<string, BundleItem[]>();
   for (const [index, raw] of (json.items as unknown[]).entries()) {
     if (!isRecord(raw) || typeof raw.id !== "string" || typeof raw.type !== "string" || typeof raw.sha256 !== "string") {
       lines.push({ label: `items[${index}]`, status: "malformed", text: "an item needs a string id, type and sha256" });
@@ -171,8 +219,11 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
     }
     const changed = actual !== item.sha256 || extraKeys.length > 0;
     if (changed) changedItems.push(item.id);
+    if (item.type === "step") stepItems.push(item);
     if (item.type === "claim") {
       claims++;
+      const owner = isRecord(item.data) ? String(item.data.step) : "";
+      claimsOfStep.set(owner, [...(claimsOfStep.get(owner) ?? []), item]);
       lines.push(checkClaimItem(item, changed, options.steps ?? DEFAULT_STEP_LIMIT));
     } else if (changed) {
       lines.push({
@@ -183,6 +234,10 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
           : `CHANGED since export: its content no longer matches its SHA-256 (recorded ${short(item.sha256)}, now ${short(actual)})`,
       });
     }
+  }
+  for (const step of stepItems) {
+    const line = checkStepCover(step, claimsOfStep.get(step.id) ?? []);
+    if (line) lines.push(line);
   }
   let manifest: string;
   try {

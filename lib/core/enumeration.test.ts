@@ -59,6 +59,9 @@ describe("enumeration of connected graphs with small spectral radius", () => {
     expect(extra.reason).toMatch(/listed graph 14 .* does not have ρ < 2/);
     const twice = checkEnumeration(7, "<", "2", graphs([...dynkinUpTo7, "path(4)"]), budget());
     expect(twice.reason).toMatch(/listed graphs 4 and 14 are isomorphic/);
+    // Smith's list up to 7 vertices has 1+1+1+2+2+3+3 = 13 graphs (BELOW_2 above); said once, "found" once.
+    expect(missing.reason).toMatch(/; the enumeration found 13 graph\(s\) \(1 on 1, 1 on 2, 1 on 3, 2 on 4, 2 on 5, 3 on 6, 3 on 7\), after \d+ exact checks\.$/);
+    expect(missing.reason).not.toMatch(/found.*found/);
   });
 
   it("refutes a list of trees with ρ < 2 up to 20 vertices that leaves out E8, naming it", () => {

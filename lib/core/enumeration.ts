@@ -77,7 +77,8 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
     const { levels, checked } = enumerateConnected(maxVertices, op, b, budget, { setting });
     const found = levels.flat();
     const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map((g) => writeGraph6(g)) };
-    const summary = `${found.length} graph(s) found (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
+    // Phrased to follow "found" or "enumerated" ("… found 20 graph(s) (…)"), never "found … found".
+    const summary = `${found.length} graph(s) (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
     const refuted = (reason: string): Verdict<EnumerationCertificate> => ({ status: "refuted", statement, method, reason: `${reason}; the enumeration found ${summary}.`, certificate });
     const matched = new Array<number>(found.length).fill(-1);
     const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
@@ -95,7 +96,7 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
     if (missing >= 0) return refuted(`a graph on ${found[missing].n} vertices (graph6 ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`);
     return {
       status: "verified", statement, method, certificate,
-      reason: `Every listed graph is isomorphic to exactly one graph of the enumeration and every enumerated graph is listed: ${summary}.`,
+      reason: `Every listed graph is isomorphic to exactly one graph of the enumeration and every enumerated graph is listed; the enumeration found ${summary}.`,
       notes: ["Completeness: every connected graph has a vertex whose removal keeps it connected, and removing a vertex never raises ρ."],
     };
   });

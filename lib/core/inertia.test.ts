@@ -3,7 +3,7 @@ import { eigs } from "mathjs";
 import { Graph, makeGraph } from "./graph";
 import { Budget } from "./verdict";
 import { rat } from "./rational";
-import { inertia, recheckSpectralRadiusBound, spectralRadiusBound, type Relation, type SpectralRadiusCertificate } from "./inertia";
+import { CERTIFICATE_KIND, inertia, recheckSpectralRadiusBound, spectralRadiusBound, type Relation, type SpectralRadiusCertificate } from "./inertia";
 import { treeInertia, treeInertiaOver } from "./tree-inertia";
 import { AlgebraicField, RATIONALS } from "./number-field";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
@@ -475,4 +475,22 @@ describe("cross-check against floating eigenvalues (mathjs eigs) on seeded rando
       expect(r.positive).toBe(ev.filter((x) => x < Number(b.num)).length);
     }
   });
+});
+
+describe("the method named is the method that decided, with its certificate kind beside it", () => {
+  // ρ(K_{1,m}) = √m and ρ(P_n) = 2cos(π/(n+1)) < 2, ρ(C_n) = 2 (Brouwer & Haemers, Spectra of Graphs, §1.4).
+  const cases: Array<[string, Graph, Relation, string, SpectralRadiusCertificate["kind"], RegExp]> = [
+    ["K_{1,5} > 2 (the elimination stops and leaves a vector)", star(5), ">", "2", "rayleigh", /^tree inertia \(Jacobs–Trevisan 2011\); certificate: Rayleigh vector$/],
+    ["P_6 < 2", path(6), "<", "2", "inertia", /^tree inertia \(Jacobs–Trevisan 2011\); certificate: inertia count/],
+    ["C_7 <= 2", cycle(7), "<=", "2", "inertia", /^sparse fraction-free LDLᵀ inertia .*; certificate: inertia count/],
+    ["T(2,2,500) < √(2+√5)", starlike([2, 2, 500]), "<", "sqrt(2+sqrt(5))", "algebraic-tree", /^tree inertia over Q\(b\).*; certificate: signs of the Jacobs–Trevisan values in Q\(b\)$/],
+  ];
+  for (const [name, g, op, bound, kind, method] of cases)
+    it(name, () => {
+      const v = spectralRadiusBound(g, op, bound, new Budget(1e9));
+      expect(v.status).toBe("verified");
+      expect(v.certificate!.kind).toBe(kind);
+      expect(v.method).toMatch(method);
+      expect(v.method.endsWith(`certificate: ${CERTIFICATE_KIND[kind]}`)).toBe(true);
+    });
 });

@@ -113,6 +113,16 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   return { fact: { rel: sign(value) < 0 ? ">" : ">=", at }, cert, forest };
 }
 
+/** What each certificate kind is, in the words shown beside the method. */
+export const CERTIFICATE_KIND: Record<SpectralRadiusCertificate["kind"], string> = {
+  inertia: "inertia count of a congruent diagonal",
+  rayleigh: "Rayleigh vector",
+  "collatz-wielandt": "Collatz–Wielandt vector",
+  "algebraic-tree": "signs of the Jacobs–Trevisan values in Q(b)",
+  "algebraic-sparse": "pivot signs in Q(b)",
+  sturm: "characteristic polynomial with Sturm counts",
+};
+
 const VECTOR_METHOD = {
   rayleigh: "Rayleigh quotient at an exact integer vector (suggested by power iteration)",
   "collatz-wielandt": "Collatz–Wielandt bound at an exact positive integer vector (suggested by power iteration)",
@@ -188,9 +198,11 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
   const statement = `ρ(G) ${SYMBOL[op]} ${b.text}`;
   const stop: StopRule = op === "<" || op === ">=" ? "nonPositive" : "negative";
   return withinBudget(statement, "exact inertia", budget, () => {
+    // The method that decided, with the kind of certificate it left beside it: an elimination that stops
+    // early leaves a Rayleigh vector, and the label must not read as if the vector were an inertia count.
     const verdictFrom = (rel: Relation, cert: SpectralRadiusCertificate, method: string, notes: string[] = []): Verdict<SpectralRadiusCertificate> => ({
       status: implies(rel, op) ? "verified" : "refuted",
-      statement, method, reason: explain(cert, g.n), certificate: cert, notes: [...notes, `established: ρ(G) ${SYMBOL[rel]} ${b.text}`],
+      statement, method: `${method}; certificate: ${CERTIFICATE_KIND[cert.kind]}`, reason: explain(cert, g.n), certificate: cert, notes: [...notes, `established: ρ(G) ${SYMBOL[rel]} ${b.text}`],
     });
     const methodOf = (forest: boolean) => (forest ? "tree inertia (Jacobs–Trevisan 2011)" : "sparse fraction-free LDLᵀ inertia (minimum degree)");
     if (b.kind === "rational") {

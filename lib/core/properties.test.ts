@@ -41,7 +41,7 @@ const withPermutation = (arb: fc.Arbitrary<Graph>) =>
   arb.chain((g) => fc.shuffledSubarray([...Array(g.n).keys()], { minLength: g.n, maxLength: g.n }).map((perm) => ({ g, perm })));
 
 function edgeText(g: Graph): string {
-  return [`n = ${g.n}`, ...g.edges.map((e) => `${e.u} ${e.v} ${e.m}`)].join("\n");
+  return [`n = ${g.n}`, "base = 0", ...g.edges.map((e) => `${e.u} ${e.v} ${e.m}`)].join("\n");
 }
 
 const BOUNDS = ["3/2", "2", "sqrt(5)", "5/2", "3"];

@@ -11,7 +11,7 @@ export interface StepView {
   revision: { id: number; number: number; body: string; authorName: string; createdAt: string } | null;
   claims: ClaimStatus[];
   /** Derived from revisions, reviews and claims (lib/review/states.ts). */
-  approvals: number;
+  vouches: number;
   openDisputes: number;
 }
 
@@ -92,7 +92,7 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
   for (const r of revisions) {
     if (!latest.has(r.stepId)) latest.set(r.stepId, r);
     numberOf.set(r.id, r.number);
-    authorsOf.set(r.stepId, (authorsOf.get(r.stepId) ?? new Set()).add(r.authorId));
+    if (r.origin !== "claims") authorsOf.set(r.stepId, (authorsOf.get(r.stepId) ?? new Set()).add(r.authorId));
   }
   const factsOf = (stepId: number): StepFacts => ({
     id: stepId,
@@ -120,7 +120,7 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
           id: s.id,
           position: s.position,
           claims: facts.get(s.id)!.claims,
-          approvals: status.approvals,
+          vouches: status.vouches,
           openDisputes: status.openDisputes,
           revision: r
             ? { id: r.id, number: r.number, body: r.body, authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "", createdAt: r.createdAt.toISOString() }

@@ -2,6 +2,9 @@ import "server-only";
 import { models } from "@/models";
 import { runInPool, STEP_LIMIT, WorkerFailure } from "@/lib/verification/pool";
 import type { Claim } from "@/lib/core/claim-schema";
+import { getSequelize } from "@/lib/db";
+import { storeVerdict } from "./revisions";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
 
 /**
  * Verification jobs of stored claims: each runs in the worker pool and stores its verdict. One job
@@ -41,7 +44,8 @@ export function scheduleVerification(claimId: number, checkedBy: number, claim?:
       if (!(e instanceof WorkerFailure)) console.error("[cairn] verification job failed", e);
       update = { status: "undecided", method: "worker", reason: e instanceof WorkerFailure ? e.message : "the verification could not run; re-check to try again", certificate: null };
     }
-    await Claim.update({ ...update, checkedBy, checkedAt: new Date() }, { where: { id: claimId } });
+    await getSequelize().transaction((transaction) => storeVerdict(claimId, { ...update, checkedBy, checkedAt: new Date() }, checkedBy, transaction));
+    await deliverAfterCommit();
   })().finally(() => inFlight.delete(claimId));
   inFlight.set(claimId, job);
   return job;

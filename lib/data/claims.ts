@@ -12,6 +12,8 @@ import type { ClaimStatus } from "@/models/claim";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { lockLatest, reviseClaims, revisionClaimOf } from "@/lib/data/revisions";
 
 export { verificationSettled };
 
@@ -106,26 +108,28 @@ async function readClaimViews(stepId: number, ids: number[]): Promise<ClaimView[
  * in the worker pool, so that malformed input is a 422 naming the field and nothing is stored.
  */
 async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> {
-  const issues: Issue[] = [];
-  const claims: ClaimJson[] = [];
+  // Every claim is read, also after an unreadable one, so that one answer names every problem at once.
+  const found: Array<{ index: number; issue: Issue }> = [];
+  const claims: Array<ClaimJson | null> = [];
   const pathOf = (i: number, p: string) => `claims.${i}${p.replace(/^\$/, "")}`;
   for (const [i, json] of raw.entries()) {
     try {
       claims.push(validateClaim(json));
     } catch (e) {
       if (!(e instanceof ClaimError)) throw e;
-      issues.push({ path: pathOf(i, e.path), message: e.detail });
+      claims.push(null);
+      found.push({ index: i, issue: { path: pathOf(i, e.path), message: e.detail } });
     }
   }
-  if (issues.length === 0)
-    for (const [i, claim] of claims.entries()) {
-      const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
-        throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
-      });
-      if (!answer.ok) issues.push({ path: pathOf(i, answer.problem.path), message: answer.problem.detail });
-    }
-  if (issues.length) throw invalid("Some claims need attention; nothing was saved.", issues);
-  return claims;
+  for (const [i, claim] of claims.entries()) {
+    if (!claim) continue;
+    const answer = await runInPool({ mode: "check", claim, stepLimit: STEP_LIMIT, picture: false }).catch((e) => {
+      throw invalid(e instanceof WorkerFailure ? `Claim ${i + 1} could not be read: ${e.message}` : "A claim could not be read.");
+    });
+    if (!answer.ok) found.push({ index: i, issue: { path: pathOf(i, answer.problem.path), message: answer.problem.detail } });
+  }
+  if (found.length) throw invalid("Some claims need attention; nothing was saved.", found.sort((a, b) => a.index - b.index).map((f) => f.issue));
+  return claims as ClaimJson[];
 }
 
 /**
@@ -133,15 +137,15 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
-  const { Step, Claim, AuditEvent } = models();
+  const { Claim, AuditEvent } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
-    // Locking the step row serialises attaches to one step, so each claim takes its own place
-    // (the unique index on (step_id, position) is the backstop).
-    await Step.findByPk(stepId, { attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
+    // Locking the step row (lockLatest) serialises attaches to one step, so each claim takes its own place
+    // (the unique index on (step_id, position) is the backstop), and serialises them against vouches.
+    const latest = await lockLatest(stepId, transaction);
     const last = await Claim.max<number, ClaimRow>("position", { where: { stepId }, transaction });
-    const out: Array<{ id: number; claim: ClaimJson }> = [];
+    const out: Array<{ id: number; claim: ClaimJson; row: ClaimRow }> = [];
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
@@ -151,10 +155,12 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         { transaction },
       );
       await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
-      out.push({ id: row.id, claim });
+      out.push({ id: row.id, claim, row });
     }
+    await reviseClaims(proofId, stepId, userId, transaction, latest, (set) => [...set, ...out.map((o) => revisionClaimOf(o.row))]);
     return out;
   });
+  await deliverAfterCommit();
   for (const { id, claim } of stored) void scheduleVerification(id, userId, claim);
   return stored.map((s) => s.id);
 }
@@ -201,10 +207,13 @@ export async function withdrawClaim(proofId: number, claimId: number, userId: nu
   const { Claim, AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
+    const latest = await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
+    await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
     await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
   });
+  await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
 }
 

@@ -1,5 +1,5 @@
 import "server-only";
-/** Disputes: moving one (answered / closed / reopened) with its recorded transition, notifications and audit event. */
+/** Disputes: moving one (answered / withdrawn / upheld) with its recorded transition, notifications and audit event. */
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import type { DisputeState } from "@/models/review";
@@ -28,9 +28,9 @@ export async function loadDispute(proofId: number, reviewId: number): Promise<Di
   return { id: review.id, reviewerId: review.reviewerId, state: review.disputeState, step };
 }
 
-const verbOf: Record<DisputeTarget, string> = { answered: "answered", closed: "closed", reopened: "reopened" };
+const verbOf: Record<DisputeTarget, string> = { answered: "answered", withdrawn: "withdrawn", upheld: "upheld" };
 
-/** Moves a dispute (answered / closed / reopened), with an optional comment in its thread; 409 when the move does not exist from its state. */
+/** Moves a dispute (answered / withdrawn / upheld), with an optional comment in its thread; 409 when the move does not exist from its state. */
 export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget, comment?: string): Promise<{ state: DisputeState }> {
   const { Review, Comment, DisputeTransition, StepRevision } = models();
   await getSequelize().transaction(async (transaction) => {
@@ -47,10 +47,10 @@ export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget
     await notify(
       recipients.filter((id) => id !== actor.id),
       {
-        kind: to === "answered" ? "dispute_answered" : to === "closed" ? "dispute_closed" : "dispute_reopened",
+        kind: to === "answered" ? "dispute_answered" : to === "withdrawn" ? "dispute_withdrawn" : "dispute_upheld",
         proofId: d.step.proofId,
         stepId: d.step.id,
-        message: to === "answered" ? "The authors answered your dispute; close it or reopen it." : `A dispute on a step of your proof was ${verbOf[to]}.`,
+        message: to === "answered" ? "The authors answered your dispute; withdraw it if you are satisfied, or uphold it." : `A dispute on a step of your proof was ${verbOf[to]}.`,
         link: stepLink(d.step.proofId, d.step.id),
       },
       transaction,

@@ -1,4 +1,6 @@
 import "server-only";
+import { textAuthors } from "@/lib/review/revisions";
+import { claimsOf, digestOf } from "./revisions";
 /**
  * Exports of a proof: reading the proof into a snapshot, deciding certified vs draft with the review
  * rules, sealing the bundle and the LaTeX source and recording them. An export is immutable once made.
@@ -51,8 +53,13 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
     return {
       id: s.id,
       position: ordinal,
-      revision: latest ? { number: latest.number, body: latest.body, authorName: nameOf(latest, "author"), savedAt: latest.createdAt.toISOString() } : null,
-      authorIds: [...new Set(own.map((r) => r.authorId))],
+      revision: latest
+        ? {
+            number: latest.number, body: latest.body, authorName: nameOf(latest, "author"), savedAt: latest.createdAt.toISOString(),
+            claims: claimsOf(latest).map((c) => ({ digest: c.digest, status: c.status })), digest: digestOf(latest),
+          }
+        : null,
+      authorIds: textAuthors(own),
       reviews: reviews
         .filter((r) => r.stepId === s.id)
         .map((r) => ({
@@ -61,7 +68,8 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
           verdict: r.verdict,
           revisionNumber: revisionNumber.get(r.revisionId) ?? 0,
           disputeState: r.disputeState as DisputeState | null,
-          at: (r.verdict === "approve" ? r.updatedAt : r.createdAt).toISOString(),
+          digest: r.digest ?? null,
+          at: (r.verdict === "vouch" ? r.updatedAt : r.createdAt).toISOString(),
         })),
       claims: claims
         .filter((c) => c.stepId === s.id)

@@ -13,10 +13,11 @@ export { NOTIFICATION_KINDS, type NotificationKind };
 
 export const kindLabel: Record<NotificationKind, string> = {
   assigned: "You were made a reviewer",
-  dispute_opened: "A new dispute on your step",
+  dispute_raised: "A new dispute on your step",
   dispute_answered: "An answer to your dispute",
-  dispute_closed: "A dispute was closed",
-  dispute_reopened: "A dispute was reopened",
+  dispute_withdrawn: "A dispute was withdrawn",
+  dispute_upheld: "A dispute was upheld",
+  vouch_superseded: "Your vouch was superseded by a new revision",
 };
 
 export interface NoticeInput {

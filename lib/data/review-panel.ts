@@ -1,5 +1,5 @@
 import "server-only";
-/** What the review panel under a step shows (verdicts, stale approvals, disputes with threads, comments) and the queue's step view. */
+/** What the review panel under a step shows (verdicts, stale vouches, disputes with threads, comments) and the queue's step view. */
 import { models } from "@/models";
 import { refereeLens } from "./blind";
 import type { DisputeState } from "@/models/review";
@@ -9,6 +9,7 @@ import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";
 import { stepStatus, type StepStatus } from "@/lib/review/states";
 import { claimStatuses, type StepRef } from "./reviews";
 import { canSeeStep } from "@/lib/access";
+import { claimsOf, digestOf } from "./revisions";
 
 export interface CommentNode {
   id: number;
@@ -22,10 +23,11 @@ export interface CommentNode {
 
 export interface StepReviewView {
   stepId: number;
-  latestRevision: { id: number; number: number } | null;
+  /** The latest revision with the digest a vouch on it covers, and how many of its claims are still being checked. */
+  latestRevision: { id: number; number: number; digest: string; pendingClaims: number } | null;
   requiredApprovals: number;
   status: StepStatus;
-  approvals: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
+  vouches: Array<{ id: number; reviewerId: number; reviewerName: string; revisionNumber: number; stale: boolean; at: string }>;
   disputes: Array<{
     id: number;
     reviewerId: number;
@@ -35,11 +37,13 @@ export interface StepReviewView {
     at: string;
     transitions: Array<{ from: DisputeState | null; to: DisputeState; actorName: string; at: string }>;
     thread: CommentNode[];
-    can: { answer: boolean; close: boolean; reopen: boolean };
+    can: { answer: boolean; withdraw: boolean; uphold: boolean };
   }>;
   comments: CommentNode[];
-  /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no approval, no second dispute until it is closed). */
+  /** `ownDisputeOpen`: the viewer's own dispute on this step is unresolved (no vouch, no second dispute until it is withdrawn). */
   can: { verdict: boolean; verdictRefusal: string | null; ownDisputeOpen: boolean; comment: boolean };
+  /** What the viewer already did on the latest revision: the time of their vouch, or null. */
+  mine: { vouchedAt: string | null };
 }
 
 /** Everything the review panel under a step shows, with what this viewer may do. */
@@ -48,7 +52,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   const [reviews, comments, revisions, proof] = await Promise.all([
     Review.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
     Comment.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-    StepRevision.findAll({ where: { stepId: step.id }, attributes: ["id", "number"] }),
+    StepRevision.findAll({ where: { stepId: step.id } }),
     Proof.findByPk(step.proofId, { attributes: ["requiredApprovals"] }),
   ]);
   const transitions = reviews.length
@@ -79,15 +83,20 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     return roots;
   };
   const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
-  // Only the latest approval per reviewer is listed; it is stale when made on an older revision.
-  const latestApproval = new Map<number, (typeof reviews)[number]>();
-  for (const r of reviews) if (r.verdict === "approve") latestApproval.set(r.reviewerId, r);
+  // Only the latest vouch per referee is listed; it is superseded when given on an older revision.
+  const latestVouch = new Map<number, (typeof reviews)[number]>();
+  for (const r of reviews) if (r.verdict === "vouch") latestVouch.set(r.reviewerId, r);
+  const latestRow = revisions.find((r) => r.id === step.latest?.id);
+  const mineNow = reviews.find((r) => r.reviewerId === viewer.id && r.verdict === "vouch" && r.revisionId === step.latest?.id);
   return {
     stepId: step.id,
-    latestRevision: step.latest,
+    latestRevision: latestRow
+      ? { id: latestRow.id, number: latestRow.number, digest: digestOf(latestRow), pendingClaims: claimsOf(latestRow).filter((c) => c.status === "pending").length }
+      : null,
+    mine: { vouchedAt: mineNow ? mineNow.createdAt.toISOString() : null },
     requiredApprovals: required,
     status,
-    approvals: [...latestApproval.values()].map((r) => ({
+    vouches: [...latestVouch.values()].map((r) => ({
       id: r.id,
       reviewerId: r.reviewerId,
       reviewerName: names.get(r.reviewerId) ?? "",
@@ -111,14 +120,14 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
             .filter((t) => t.reviewId === r.id)
             .map((t) => ({ from: t.fromState, to: t.toState, actorName: names.get(t.actorId) ?? "", at: t.createdAt.toISOString() })),
           thread: tree(comments.filter((c) => c.reviewId === r.id)),
-          can: { answer: allowed("answered"), close: allowed("closed"), reopen: allowed("reopened") },
+          can: { answer: allowed("answered"), withdraw: allowed("withdrawn"), uphold: allowed("upheld") },
         };
       }),
     comments: tree(comments.filter((c) => c.reviewId === null)),
     can: {
       verdict: refusal === null && step.latest !== null,
       verdictRefusal: refusal,
-      ownDisputeOpen: reviews.some((r) => r.reviewerId === viewer.id && r.verdict === "dispute" && r.disputeState !== "closed"),
+      ownDisputeOpen: reviews.some((r) => r.reviewerId === viewer.id && r.verdict === "dispute" && r.disputeState !== "withdrawn"),
       comment: true,
     },
   };

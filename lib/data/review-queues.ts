@@ -1,4 +1,5 @@
 import "server-only";
+import { textAuthors } from "@/lib/review/revisions";
 /**
  * Read models of the review workflow: the readiness roll-up of a proof (through lib/review/states.ts),
  * the reviewer's and the author's queues, and per-reviewer progress for editors.
@@ -11,7 +12,7 @@ import type { DisputeState } from "@/models/review";
 import { claimStatuses } from "./reviews";
 import { refereeLenses, type NameLens } from "./blind";
 
-interface ReviewRow { id: number; stepId: number; reviewerId: number; verdict: "approve" | "dispute"; disputeState: DisputeState | null; revisionNumber: number; at: Date }
+interface ReviewRow { id: number; stepId: number; reviewerId: number; verdict: "vouch" | "dispute"; disputeState: DisputeState | null; revisionNumber: number; at: Date }
 interface StepRow { id: number; caseId: number; position: number; latestNumber: number; latestAt: Date | null; authorIds: number[] }
 interface CaseRowFull { id: number; proofId: number; parentId: number | null; position: number; title: string }
 
@@ -25,7 +26,7 @@ async function loadFacts(proofIds: number[]) {
   const stepRows = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) } }) : [];
   const stepIds = stepRows.map((s) => s.id);
   const [revisions, reviews, claims, scopes, members] = await Promise.all([
-    stepIds.length ? StepRevision.findAll({ where: { stepId: stepIds }, attributes: ["id", "stepId", "number", "authorId", "createdAt"] }) : [],
+    stepIds.length ? StepRevision.findAll({ where: { stepId: stepIds }, attributes: ["id", "stepId", "number", "authorId", "origin", "createdAt"] }) : [],
     stepIds.length ? Review.findAll({ where: { stepId: stepIds } }) : [],
     claimStatuses(stepIds),
     ReviewerScope.findAll({ where: { proofId: proofIds } }),
@@ -34,7 +35,7 @@ async function loadFacts(proofIds: number[]) {
   const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
   const steps: StepRow[] = stepRows.map((s) => {
     const mine = revisions.filter((r) => r.stepId === s.id).sort((a, b) => b.number - a.number);
-    return { id: s.id, caseId: s.caseId, position: s.position, latestNumber: mine[0]?.number ?? 0, latestAt: mine[0]?.createdAt ?? null, authorIds: [...new Set(mine.map((r) => r.authorId))] };
+    return { id: s.id, caseId: s.caseId, position: s.position, latestNumber: mine[0]?.number ?? 0, latestAt: mine[0]?.createdAt ?? null, authorIds: textAuthors(mine) };
   });
   const reviewRows: ReviewRow[] = reviews.map((r) => ({ id: r.id, stepId: r.stepId, reviewerId: r.reviewerId, verdict: r.verdict, disputeState: r.disputeState, revisionNumber: numberOf.get(r.revisionId) ?? 0, at: r.updatedAt }));
   const numbered = new Map<number, { number: string; title: string; proofId: number }>();
@@ -86,7 +87,7 @@ export async function getReadiness(proofId: number, visible: Set<number> | null 
 const proofIdsWhere = async (userId: number, role: "author" | "reviewer" | "editor") =>
   (await models().ProofMember.findAll({ where: { userId, role }, attributes: ["proofId"] })).map((m) => m.proofId);
 
-export interface QueueStepRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; caseTitle: string; revision: number; reason: "not reviewed" | "needs re-review"; since: string }
+export interface QueueStepRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; caseTitle: string; revision: number; reason: "not read yet" | "vouch superseded"; since: string }
 export interface QueueDisputeRow { proofId: number; proofTitle: string; stepId: number; stepLabel: string; disputeId: number; state: DisputeState; reviewerName: string; revision: number; since: string }
 
 const labelOf = (f: Awaited<ReturnType<typeof loadFacts>>, s: StepRow) => stepLabel(f.numbered.get(s.caseId)?.number ?? "?", s.position);
@@ -108,9 +109,9 @@ export async function getReviewerQueue(userId: number): Promise<{ steps: QueueSt
     for (const d of mine.filter((r) => r.verdict === "dispute" && r.disputeState === "answered"))
       answered.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), disputeId: d.id, state: "answered", reviewerName: "", revision: d.revisionNumber, since: d.at.toISOString() });
     if (mine.some((r) => r.verdict === "dispute" && isUnresolved(r.disputeState))) continue;
-    if (mine.some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber)) continue;
-    const hadApproval = mine.some((r) => r.verdict === "approve");
-    steps.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), caseTitle: c.title, revision: s.latestNumber, reason: hadApproval ? "needs re-review" : "not reviewed", since: (s.latestAt ?? new Date()).toISOString() });
+    if (mine.some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber)) continue;
+    const hadVouch = mine.some((r) => r.verdict === "vouch");
+    steps.push({ proofId: c.proofId, proofTitle: title.get(c.proofId) ?? "", stepId: s.id, stepLabel: labelOf(f, s), caseTitle: c.title, revision: s.latestNumber, reason: hadVouch ? "vouch superseded" : "not read yet", since: (s.latestAt ?? new Date()).toISOString() });
   }
   return { steps, answered };
 }
@@ -145,7 +146,7 @@ function disputeRows(f: Awaited<ReturnType<typeof loadFacts>>, visible: Set<numb
     });
 }
 
-export interface ReviewerProgress { proofId: number; proofTitle: string; reviewerId: number; reviewerName: string; scope: string; inScope: number; approved: number; stale: number; unresolvedDisputes: number; waiting: number }
+export interface ReviewerProgress { proofId: number; proofTitle: string; reviewerId: number; reviewerName: string; scope: string; inScope: number; vouched: number; stale: number; unresolvedDisputes: number; waiting: number }
 
 /** Per-reviewer progress on the given proofs (the editor's view). */
 export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerProgress[]> {
@@ -158,8 +159,8 @@ export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerP
       const visible = f.scopeOf(m.proofId, m.userId);
       const steps = f.steps.filter((s) => f.numbered.get(s.caseId)?.proofId === m.proofId && (!visible || visible.has(s.caseId)) && s.latestNumber > 0);
       const mine = (s: StepRow) => f.reviews.filter((r) => r.stepId === s.id && r.reviewerId === m.userId);
-      const approved = steps.filter((s) => mine(s).some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber)).length;
-      const stale = steps.filter((s) => !mine(s).some((r) => r.verdict === "approve" && r.revisionNumber === s.latestNumber) && mine(s).some((r) => r.verdict === "approve")).length;
+      const vouched = steps.filter((s) => mine(s).some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber)).length;
+      const stale = steps.filter((s) => !mine(s).some((r) => r.verdict === "vouch" && r.revisionNumber === s.latestNumber) && mine(s).some((r) => r.verdict === "vouch")).length;
       const disputed = steps.filter((s) => mine(s).some((r) => r.verdict === "dispute" && isUnresolved(r.disputeState))).length;
       return {
         proofId: m.proofId,
@@ -168,10 +169,10 @@ export async function getReviewerProgress(proofIds: number[]): Promise<ReviewerP
         reviewerName: m.name,
         scope: visible ? `cases ${[...visible].map((id) => f.numbered.get(id)?.number).filter(Boolean).sort().join(", ")}` : "whole proof",
         inScope: steps.length,
-        approved,
+        vouched,
         stale,
         unresolvedDisputes: disputed,
-        waiting: steps.length - approved - disputed,
+        waiting: steps.length - vouched - disputed,
       };
     });
 }

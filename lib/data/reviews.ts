@@ -1,6 +1,6 @@
 import "server-only";
 /**
- * Who sees which cases, verdicts on step revisions, comments, and the required approvals. Disputes:
+ * Who sees which cases, verdicts on step revisions, comments, and the required vouches. Disputes:
  * ./disputes.ts; what the review panel shows: ./review-panel.ts. Each write runs in one transaction together with its audit event, notifications and queued mail;
  * mail goes out after commit (see lib/mail/outbox.ts).
  */
@@ -10,6 +10,8 @@ import { models } from "@/models";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import type { Actor } from "@/lib/access/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib/review/revisions";
+import { claimsOf, digestOf, lockLatest } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { hiddenCaseIds } from "./cases";
@@ -31,13 +33,13 @@ export async function loadStep(proofId: number, stepId: number, transaction?: Tr
   // A step under a deleted case, however high up, is gone (as GET says): no verdict, comment or dispute on it.
   const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "deletedAt"], transaction });
   if (hiddenCaseIds(cases).has(c.id)) throw notFound("This step");
-  const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId"], order: [["number", "DESC"]], transaction });
+  const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
   return {
     id: step.id,
     caseId: c.id,
     proofId,
     latest: revisions[0] ? { id: revisions[0].id, number: revisions[0].number } : null,
-    authorIds: [...new Set(revisions.map((r) => r.authorId))],
+    authorIds: textAuthors(revisions),
   };
 }
 
@@ -48,44 +50,62 @@ export const stepLink = (proofId: number, stepId: number) => `/queue/${proofId}/
 
 export interface VerdictInput {
   revisionId: number;
-  verdict: "approve" | "dispute";
+  verdict: "vouch" | "dispute";
   comment?: string;
+  /** The revision digest the referee read (from the review panel); a mismatch is refused. */
+  digest?: string;
 }
 
 /**
- * Records a verdict at the step's latest revision. A verdict on an older revision is refused (409, stale),
- * as is approving while one's own dispute on the step is unresolved, or raising a second dispute.
+ * Records a verdict at the step's latest revision. A verdict on an older revision is refused (409, naming what changed),
+ * as is vouching while one's own dispute on the step is unresolved, or raising a second dispute.
  */
 export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInput): Promise<{ reviewId: number; created: boolean }> {
   const { Review, StepRevision, Comment, DisputeTransition } = models();
   const result = await getSequelize().transaction(async (transaction) => {
     const revision = await StepRevision.findByPk(input.revisionId, { transaction });
     if (!revision || revision.stepId !== step.id) throw invalid("That revision does not belong to this step.", [{ path: "revisionId", message: "not a revision of this step" }]);
-    const latest = await StepRevision.findOne({ where: { stepId: step.id }, order: [["number", "DESC"]], transaction, lock: transaction.LOCK.UPDATE });
-    if (!latest || latest.id !== revision.id)
-      throw conflict(`Revision ${revision.number} is stale: the step was revised (latest is revision ${latest?.number}). Read the latest revision and give your verdict on it.`, {
-        latestRevisionId: latest?.id,
-        latestRevisionNumber: latest?.number,
+    // The step row lock serialises this verdict against claim changes: a claim attached, withdrawn or
+    // re-decided meanwhile made a newer revision, and the verdict is refused rather than moved onto it.
+    const latest = await lockLatest(step.id, transaction);
+    if (!latest || latest.id !== revision.id) {
+      const change = latest ? compareRevisions({ body: revision.body, claims: claimsOf(revision) }, { body: latest.body, claims: claimsOf(latest) }) : null;
+      throw conflict(
+        `Revision ${revision.number} is no longer the latest: revision ${latest?.number} is${change ? `, and since revision ${revision.number} ${describeChange(change)}` : ""}. Read revision ${latest?.number} and give your verdict on it.`,
+        { latestRevisionId: latest?.id, latestRevisionNumber: latest?.number, ...(change ? { changed: changeJson(change) } : {}) },
+      );
+    }
+    const digest = digestOf(latest);
+    if (input.digest && input.digest !== digest)
+      throw conflict(`The claims of revision ${latest.number} changed while you were reading it (a verdict came in). Read it again and give your verdict on what it now says.`, {
+        latestRevisionId: latest.id,
+        latestRevisionNumber: latest.number,
+        digest,
       });
     const mine = await Review.findAll({ where: { stepId: step.id, reviewerId: actor.id }, transaction });
-    const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "closed");
-    if (input.verdict === "approve") {
-      if (unresolved) throw conflict("You have an unresolved dispute on this step; close it before approving the step.", { disputeId: unresolved.id });
-      const existing = mine.find((r) => r.verdict === "approve" && r.revisionId === revision.id);
+    const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "withdrawn");
+    if (input.verdict === "vouch") {
+      const pending = claimsOf(latest).filter((c) => c.status === "pending");
+      if (pending.length)
+        throw conflict(`Claim${pending.length > 1 ? "s" : ""} ${pending.map((c) => `#${c.id}`).join(", ")} of revision ${latest.number} ${pending.length > 1 ? "are" : "is"} still being checked; a vouch covers the verdicts too, so vouch once ${pending.length > 1 ? "they are" : "it is"} decided.`, {
+          pendingClaimIds: pending.map((c) => c.id),
+        });
+      if (unresolved) throw conflict("You have an unresolved dispute on this step; withdraw it before vouching for the step.", { disputeId: unresolved.id });
+      const existing = mine.find((r) => r.verdict === "vouch" && r.revisionId === revision.id);
       if (existing) return { reviewId: existing.id, created: false };
     } else if (unresolved) {
       throw conflict("You already have an unresolved dispute on this step; add to its thread instead.", { disputeId: unresolved.id });
     }
     const review = await Review.create(
-      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "open" : null },
+      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "raised" : null, digest },
       { transaction },
     );
     if (input.verdict === "dispute") {
       await Comment.create({ stepId: step.id, reviewId: review.id, parentId: null, revisionId: revision.id, authorId: actor.id, body: input.comment ?? "" }, { transaction });
-      await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "open" }, { transaction });
+      await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
       await notify(
         (await authorsOf(step.proofId, transaction)).concat(step.authorIds).filter((id) => id !== actor.id),
-        { kind: "dispute_opened", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
+        { kind: "dispute_raised", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
         transaction,
       );
     }
@@ -93,7 +113,7 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       {
         proofId: step.proofId,
         actorId: actor.id,
-        action: input.verdict === "approve" ? "review.approved" : "review.disputed",
+        action: input.verdict === "vouch" ? "review.vouched" : "review.disputed",
         subjectType: "step",
         subjectId: step.id,
         detail: `revision ${revision.number}${input.verdict === "dispute" ? `; dispute #${review.id} opened` : ""}`,
@@ -145,7 +165,7 @@ export async function claimStatuses(stepIds: number[]): Promise<Map<number, Arra
   return out;
 }
 
-/** Sets how many approving reviewers each step needs (at its latest revision). */
+/** Sets how many vouches each step needs (at its latest revision). */
 export async function setRequiredApprovals(proofId: number, actorId: number, requiredApprovals: number): Promise<void> {
   const { Proof } = models();
   await getSequelize().transaction(async (transaction) => {

@@ -6,6 +6,10 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { liveCases } from "@/lib/data/cases";
+import { Op } from "sequelize";
+import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
+import { claimsOf, lockLatest, noticeSuperseded } from "@/lib/data/revisions";
 
 export interface RevisionView {
   id: number;
@@ -91,7 +95,10 @@ export async function createStep(proofId: number, caseId: number, userId: number
     await Case.findByPk(caseId, { attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
     const last = await Step.max<number, InstanceType<typeof Step>>("position", { where: { caseId }, transaction });
     const step = await Step.create({ caseId, position: (last ?? 0) + 1 }, { transaction });
-    const revision = await StepRevision.create({ stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null }, { transaction });
+    const revision = await StepRevision.create(
+      { stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null, claimSet: claimSetText([]), digest: digestOfRevision(1, body, []), origin: "text" },
+      { transaction },
+    );
     await AuditEvent.create({ proofId, actorId: userId, action: "step.created", subjectType: "step", subjectId: step.id, detail: null }, { transaction });
     return { id: step.id, revisionId: revision.id };
   });
@@ -133,23 +140,33 @@ async function renumberSteps(ordered: Array<InstanceType<ReturnType<typeof model
  * overwrite knowingly (by saving again with the newer revision as its base).
  */
 export async function saveRevision(proofId: number, stepId: number, userId: number, baseRevisionId: number, body: string): Promise<RevisionView> {
-  const { Step, StepRevision, User, AuditEvent } = models();
+  const { StepRevision, User, AuditEvent } = models();
   await stepInProof(proofId, stepId);
-  return getSequelize().transaction(async (transaction) => {
-    // Locking the step row serialises concurrent saves of one step, so exactly one of two wins.
-    await Step.findByPk(stepId, { transaction, lock: transaction.LOCK.UPDATE });
+  const saved = await getSequelize().transaction(async (transaction) => {
+    // Locking the step row serialises concurrent saves of one step (and claim changes), so exactly one of two wins.
+    const previous = await lockLatest(stepId, transaction);
     const latest = await StepRevision.findOne({ where: { stepId }, order: [["number", "DESC"]], include: [{ model: User, as: "author", attributes: ["name"] }], transaction });
-    const base = await StepRevision.findOne({ where: { id: baseRevisionId, stepId }, attributes: ["id"], transaction });
+    const base = await StepRevision.findOne({ where: { id: baseRevisionId, stepId }, attributes: ["id", "number"], transaction });
     if (!base) throw invalid("The base revision is not a revision of this step.", [{ path: "baseRevisionId", message: "name a revision of this step" }]);
-    if (latest && latest.id !== baseRevisionId)
+    // Revisions made by claim changes since the base do not touch the text: saving over them is no conflict.
+    const textSince = latest && latest.id !== base.id ? await StepRevision.count({ where: { stepId, origin: "text", number: { [Op.gt]: base.number } }, transaction }) : 0;
+    if (latest && textSince > 0)
       throw conflict(`Someone saved revision ${latest.number} of this step while you were editing. Merge your text with it, or overwrite it knowingly.`, {
         latest: revisionView(latest),
       });
-    const created = await StepRevision.create({ stepId, number: (latest?.number ?? 0) + 1, body, authorId: userId, baseRevisionId }, { transaction });
+    const number = (latest?.number ?? 0) + 1;
+    const claims = previous ? claimsOf(previous) : [];
+    const created = await StepRevision.create(
+      { stepId, number, body, authorId: userId, baseRevisionId, claimSet: claimSetText(claims), digest: digestOfRevision(number, body, claims), origin: "text" },
+      { transaction },
+    );
     await AuditEvent.create({ proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` }, { transaction });
+    if (previous) await noticeSuperseded(proofId, stepId, previous, created, userId, transaction);
     const author = await User.findByPk(userId, { attributes: ["name"], transaction });
     return { ...revisionView(created), authorName: author?.name ?? "" };
   });
+  await deliverAfterCommit();
+  return saved;
 }
 
 export interface RevisionDiff {

@@ -58,7 +58,10 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
           case: c.number,
           position: s.position,
           revision: s.revision,
-          reviews: s.reviews.map((r) => ({ reviewer: r.reviewerName, verdict: r.verdict, revision: r.revisionNumber, disputeState: r.disputeState, at: r.at })),
+          reviews: s.reviews.map((r) => ({
+            reviewer: r.reviewerName, verdict: r.verdict, revision: r.revisionNumber, disputeState: r.disputeState, at: r.at,
+            digest: r.digest, superseded: r.verdict === "vouch" && r.revisionNumber !== s.revision?.number,
+          })),
         },
       });
       for (const [k, cl] of s.claims.entries()) {

@@ -28,7 +28,7 @@ export interface DocStep {
   position: number;
   revision: { number: number; body: string; authorName: string; savedAt: string } | null;
   claims: DocClaim[];
-  approvals: Array<{ reviewer: string; revision: number; at: string }>;
+  vouches: Array<{ reviewer: string; revision: number; at: string }>;
   openDisputes: number;
 }
 
@@ -95,7 +95,7 @@ export function documentOf(bundle: Bundle): ExportDocument {
         position: d.position,
         revision: d.revision,
         claims: [],
-        approvals: d.reviews.filter((r) => r.verdict === "approve").map((r) => ({ reviewer: r.reviewer, revision: r.revision, at: r.at })),
+        vouches: d.reviews.filter((r) => r.verdict === "vouch").map((r) => ({ reviewer: r.reviewer, revision: r.revision, at: r.at })),
         openDisputes: d.reviews.filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState as DisputeState | null)).length,
       };
       steps.set(item.id, step);

@@ -56,17 +56,17 @@ function caseTex(c: DocCase): string {
 function appendixTex(doc: ExportDocument): string {
   const rows = doc.cases.flatMap((c) =>
     c.steps.flatMap((s) =>
-      s.approvals.length
-        ? s.approvals.map((a) => `${escapeLine(`${c.number}:${s.position}`)} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (stale)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
-        : [`${escapeLine(`${c.number}:${s.position}`)} & \\textit{no approval} & & \\\\`],
+      s.vouches.length
+        ? s.vouches.map((a) => `${escapeLine(`${c.number}:${s.position}`)} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
+        : [`${escapeLine(`${c.number}:${s.position}`)} & \\textit{no vouch} & & \\\\`],
     ),
   );
   const members = doc.members.map((m) => `${escapeLine(m.name)} (${escapeLine(m.role)})`).join(", ");
   return [
-    "\\section*{Appendix: reviewers and approvals}",
+    "\\section*{Appendix: reviewers and vouches}",
     `\\noindent Members of the proof: ${members || "none recorded"}. Each step needs ${doc.requiredApprovals} approval${doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.`,
     "\\begin{longtable}{llll}",
-    "\\textbf{Step} & \\textbf{Reviewer} & \\textbf{Approved revision} & \\textbf{Date} \\\\ \\hline \\endhead",
+    "\\textbf{Step} & \\textbf{Reviewer} & \\textbf{Vouched for revision} & \\textbf{Date} \\\\ \\hline \\endhead",
     ...rows,
     "\\end{longtable}",
   ].join("\n");
@@ -109,7 +109,7 @@ ${header}}
 \\vspace{0.5em}
 {\\small ${draft ? "\\textbf{DRAFT export} (not certified)" : "\\textbf{Certified export}"} made ${escapeLine(formatUtc(doc.exportedAt))} by ${escapeLine(doc.exportedBy)}. Proof state at export: ${escapeLine(doc.proofState)}. Checker: ${escapeLine(doc.checkerVersion)}.\\\\
 Manifest digest of the certificate bundle (SHA-256): ${digestTex(doc.manifestDigest)}\\par}
-${draft ? "\n\\noindent\\fbox{\\parbox{0.95\\linewidth}{\\textbf{DRAFT.} This proof is not ready to certify: some case is not settled (a step without the required approvals, an open dispute, or a claim that is not verified). Do not cite it as certified.}}\n" : ""}
+${draft ? "\n\\noindent\\fbox{\\parbox{0.95\\linewidth}{\\textbf{DRAFT.} This proof is not ready to certify: some case is not settled (a step without the required vouches, an open dispute, or a claim that is not verified). Do not cite it as certified.}}\n" : ""}
 \\section*{What the verdicts mean}
 ${escapeText(CAUTION_MEANS)}
 \\textbf{${escapeText(CAUTION_DOES_NOT)}}

@@ -2,14 +2,17 @@
  * A proof as the data layer reads it for an export: plain objects, no models. Pure functions here
  * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
  */
+import type { CoveredClaim } from "@/lib/core/revision-digest";
 import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type DisputeState, type ProofState, type StepFacts } from "@/lib/review/states";
 
 export interface SnapshotReview {
   reviewerId: number;
   reviewerName: string;
-  verdict: "approve" | "dispute";
+  verdict: "vouch" | "dispute";
   revisionNumber: number;
   disputeState: DisputeState | null;
+  /** The revision digest the verdict covers (lib/core/revision-digest.ts). */
+  digest: string | null;
   at: string;
 }
 
@@ -32,7 +35,8 @@ export interface SnapshotClaim {
 export interface SnapshotStep {
   id: number;
   position: number;
-  revision: { number: number; body: string; authorName: string; savedAt: string } | null;
+  /** The latest revision: its text, the claims it covers (input digest and verdict, in step order) and its digest. */
+  revision: { number: number; body: string; authorName: string; savedAt: string; claims: CoveredClaim[]; digest: string } | null;
   authorIds: number[];
   reviews: SnapshotReview[];
   claims: SnapshotClaim[];
@@ -95,8 +99,8 @@ export function certificationOf(p: ProofSnapshot): Certification {
       if (st.openDisputes > 0) blockers.push(`${where} has ${st.openDisputes} open dispute${st.openDisputes > 1 ? "s" : ""}.`);
       if (st.claimFailing) blockers.push(`${where} has a refuted claim.`);
       else if (!st.claimsVerified) blockers.push(`${where} has a claim that is not verified.`);
-      if (!st.approved)
-        blockers.push(`${where} has ${st.approvals} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.staleApprovals ? ` (${st.staleApprovals} stale)` : ""}.`);
+      if (!st.vouched)
+        blockers.push(`${where} has ${st.vouches} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.supersededVouches ? ` (${st.supersededVouches} stale)` : ""}.`);
     }
     if (c.steps.length === 0 && c.children.length === 0) blockers.push(`Case ${c.number} has no steps.`);
   }

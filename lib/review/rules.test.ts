@@ -2,14 +2,15 @@ import { describe, expect, it } from "vitest";
 import { canMoveDispute } from "./rules";
 
 describe("dispute transitions", () => {
-  it("follow open → answered → closed or reopened", () => {
-    expect(canMoveDispute("open", "answered")).toBe(true);
-    expect(canMoveDispute("answered", "closed")).toBe(true);
-    expect(canMoveDispute("answered", "reopened")).toBe(true);
-    expect(canMoveDispute("reopened", "answered")).toBe(true);
-    expect(canMoveDispute("closed", "reopened")).toBe(true);
-    expect(canMoveDispute("closed", "answered")).toBe(false);
-    expect(canMoveDispute("open", "reopened")).toBe(false);
-    expect(canMoveDispute(null, "closed")).toBe(false);
+  it("follow raised → answered → withdrawn or upheld", () => {
+    expect(canMoveDispute("raised", "answered")).toBe(true);
+    expect(canMoveDispute("answered", "withdrawn")).toBe(true);
+    expect(canMoveDispute("answered", "upheld")).toBe(true);
+    expect(canMoveDispute("upheld", "answered")).toBe(true);
+    expect(canMoveDispute("withdrawn", "upheld")).toBe(true);
+    expect(canMoveDispute("withdrawn", "answered")).toBe(false);
+    expect(canMoveDispute("raised", "upheld")).toBe(false);
+    expect(canMoveDispute(null, "withdrawn")).toBe(false);
   });
 });
+

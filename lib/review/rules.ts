@@ -4,13 +4,16 @@
  */
 import type { DisputeState } from "./states";
 
-export type DisputeTarget = "answered" | "closed" | "reopened";
+export type DisputeTarget = "answered" | "withdrawn" | "upheld";
 
-/** A dispute is open → answered (by an author) → closed (by its reviewer) or reopened. */
+/**
+ * A dispute is raised → answered (by an author) → withdrawn (its referee is satisfied) or upheld (back
+ * to the authors, who answer again). A withdrawn dispute can still be upheld if the referee thinks again.
+ */
 const transitions: Record<DisputeTarget, DisputeState[]> = {
-  answered: ["open", "reopened"],
-  closed: ["open", "answered", "reopened"],
-  reopened: ["answered", "closed"],
+  answered: ["raised", "upheld"],
+  withdrawn: ["raised", "answered", "upheld"],
+  upheld: ["answered", "withdrawn"],
 };
 
 export function canMoveDispute(from: DisputeState | null, to: DisputeTarget): boolean {

@@ -3,30 +3,30 @@ import { caseState, proofState, stepStatus, type CaseFacts, type StepFacts } fro
 
 // The rules under test are Cairn's own (see ../shared product notes: case and proof states); no outside source applies.
 const step = (over: Partial<StepFacts> = {}): StepFacts => ({ id: 1, latestRevision: 2, reviews: [], claims: [], authorIds: [9], ...over });
-const approve = (reviewerId: number, revisionNumber: number) => ({ reviewerId, revisionNumber, verdict: "approve" as const, disputeState: null });
-const dispute = (reviewerId: number, state: "open" | "answered" | "closed" | "reopened") => ({ reviewerId, revisionNumber: 2, verdict: "dispute" as const, disputeState: state });
+const approve = (reviewerId: number, revisionNumber: number) => ({ reviewerId, revisionNumber, verdict: "vouch" as const, disputeState: null });
+const dispute = (reviewerId: number, state: "raised" | "answered" | "withdrawn" | "upheld") => ({ reviewerId, revisionNumber: 2, verdict: "dispute" as const, disputeState: state });
 const one = (s: StepFacts, children: CaseFacts[] = []): CaseFacts => ({ id: 1, steps: [s], children });
 
 describe("step status", () => {
-  it("counts approvals per reviewer at the latest revision and marks older ones stale", () => {
+  it("counts vouches per reviewer at the latest revision and marks older ones stale", () => {
     const s = stepStatus(step({ reviews: [approve(1, 2), approve(1, 2), approve(2, 1)] }), 1);
-    expect(s).toMatchObject({ approvals: 1, staleApprovals: 1, approved: true });
-    expect(stepStatus(step({ reviews: [approve(2, 1)] }), 1)).toMatchObject({ approvals: 0, staleApprovals: 1, approved: false });
+    expect(s).toMatchObject({ vouches: 1, supersededVouches: 1, vouched: true });
+    expect(stepStatus(step({ reviews: [approve(2, 1)] }), 1)).toMatchObject({ vouches: 0, supersededVouches: 1, vouched: false });
   });
 
   it("ignores an author's approval of their own step", () => {
-    expect(stepStatus(step({ reviews: [approve(9, 2)] }), 1).approved).toBe(false);
+    expect(stepStatus(step({ reviews: [approve(9, 2)] }), 1).vouched).toBe(false);
   });
 
   it("does not count the approval of a reviewer whose own dispute on the step is unresolved", () => {
-    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "open")] }), 1)).toMatchObject({ approvals: 0, approved: false });
-    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "closed")] }), 1)).toMatchObject({ approvals: 1, approved: true });
-    expect(stepStatus(step({ reviews: [approve(2, 2), dispute(1, "answered")] }), 1)).toMatchObject({ approvals: 1, openDisputes: 1, settled: false });
+    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "raised")] }), 1)).toMatchObject({ vouches: 0, vouched: false });
+    expect(stepStatus(step({ reviews: [approve(1, 2), dispute(1, "withdrawn")] }), 1)).toMatchObject({ vouches: 1, vouched: true });
+    expect(stepStatus(step({ reviews: [approve(2, 2), dispute(1, "answered")] }), 1)).toMatchObject({ vouches: 1, openDisputes: 1, settled: false });
   });
 
-  it("needs the required number of approvals", () => {
-    expect(stepStatus(step({ reviews: [approve(1, 2)] }), 2).approved).toBe(false);
-    expect(stepStatus(step({ reviews: [approve(1, 2), approve(3, 2)] }), 2).approved).toBe(true);
+  it("needs the required number of vouches", () => {
+    expect(stepStatus(step({ reviews: [approve(1, 2)] }), 2).vouched).toBe(false);
+    expect(stepStatus(step({ reviews: [approve(1, 2), approve(3, 2)] }), 2).vouched).toBe(true);
   });
 });
 
@@ -36,14 +36,14 @@ describe("case state", () => {
     expect(caseState(one(step({ reviews: [approve(1, 1)] })), 1)).toBe("under review");
   });
 
-  it("is disputed while a dispute is open, answered or reopened, and settled once it is closed and approvals are current", () => {
-    for (const st of ["open", "answered", "reopened"] as const)
+  it("is disputed while a dispute is open, answered or reopened, and settled once it is closed and vouches are current", () => {
+    for (const st of ["raised", "answered", "upheld"] as const)
       expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, st)] })), 1)).toBe("disputed");
-    expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, "closed")] })), 1)).toBe("settled");
+    expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, "withdrawn")] })), 1)).toBe("settled");
   });
 
   it("reports a refuted claim before anything else and needs every claim verified to settle", () => {
-    expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, "open")], claims: ["refuted"] })), 1)).toBe("claim failing");
+    expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, "raised")], claims: ["refuted"] })), 1)).toBe("claim failing");
     expect(caseState(one(step({ reviews: [approve(1, 2)], claims: ["verified", "pending"] })), 1)).toBe("under review");
     expect(caseState(one(step({ reviews: [approve(1, 2)], claims: ["verified"] })), 1)).toBe("settled");
   });

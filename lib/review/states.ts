@@ -4,13 +4,13 @@
  * Pure TypeScript: no framework or database imports.
  */
 
-export type DisputeState = "open" | "answered" | "closed" | "reopened";
+export type DisputeState = "raised" | "answered" | "withdrawn" | "upheld";
 export type ClaimStatus = "pending" | "verified" | "refuted" | "undecided";
 
 export interface ReviewFact {
   reviewerId: number;
   revisionNumber: number;
-  verdict: "approve" | "dispute";
+  verdict: "vouch" | "dispute";
   disputeState: DisputeState | null;
 }
 
@@ -20,7 +20,7 @@ export interface StepFacts {
   latestRevision: number;
   reviews: ReviewFact[];
   claims: ClaimStatus[];
-  /** Users who wrote any revision of this step: their approvals never count (no self-approval). */
+  /** Users who wrote any revision of this step: their vouches never count (no vouching for oneself). */
   authorIds?: number[];
 }
 
@@ -33,28 +33,28 @@ export interface CaseFacts {
 export type CaseState = "drafting" | "claim failing" | "under review" | "disputed" | "settled";
 export type ProofState = "in progress" | "ready to certify";
 
-export const isUnresolved = (s: DisputeState | null) => s === "open" || s === "answered" || s === "reopened";
+export const isUnresolved = (s: DisputeState | null) => s === "raised" || s === "answered" || s === "upheld";
 
 export interface StepStatus {
-  approvals: number;
-  staleApprovals: number;
+  vouches: number;
+  supersededVouches: number;
   openDisputes: number;
   claimsVerified: boolean;
   claimFailing: boolean;
-  approved: boolean;
+  vouched: boolean;
   settled: boolean;
   reviewed: boolean;
 }
 
-/** Approvals count once per reviewer, at the latest revision only; earlier ones are stale. */
+/** Vouches count once per referee, at the latest revision only; earlier ones are superseded. */
 export function stepStatus(step: StepFacts, requiredApprovals: number): StepStatus {
   const authors = new Set(step.authorIds ?? []);
-  // A reviewer who still has an unresolved dispute on the step does not approve it at the same time.
+  // A reviewer who still has an unresolved dispute on the step does not vouch for it at the same time.
   const disputing = new Set(step.reviews.filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState)).map((r) => r.reviewerId));
   const current = new Set<number>();
   const stale = new Set<number>();
   for (const r of step.reviews) {
-    if (r.verdict !== "approve" || authors.has(r.reviewerId) || disputing.has(r.reviewerId)) continue;
+    if (r.verdict !== "vouch" || authors.has(r.reviewerId) || disputing.has(r.reviewerId)) continue;
     if (r.revisionNumber === step.latestRevision) current.add(r.reviewerId);
     else stale.add(r.reviewerId);
   }
@@ -62,15 +62,15 @@ export function stepStatus(step: StepFacts, requiredApprovals: number): StepStat
   const openDisputes = step.reviews.filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState)).length;
   const claimsVerified = step.claims.every((c) => c === "verified");
   const claimFailing = step.claims.some((c) => c === "refuted");
-  const approved = step.latestRevision > 0 && current.size >= requiredApprovals;
+  const vouched = step.latestRevision > 0 && current.size >= requiredApprovals;
   return {
-    approvals: current.size,
-    staleApprovals: stale.size,
+    vouches: current.size,
+    supersededVouches: stale.size,
     openDisputes,
     claimsVerified,
     claimFailing,
-    approved,
-    settled: approved && openDisputes === 0 && claimsVerified,
+    vouched,
+    settled: vouched && openDisputes === 0 && claimsVerified,
     reviewed: step.reviews.length > 0,
   };
 }

@@ -7,8 +7,9 @@ const id = z.number({ error: "Give the id as a number." }).int().positive();
 export const verdictSchema = z
   .object({
     revisionId: id,
-    verdict: z.enum(["approve", "dispute"], { error: "The verdict is either approve or dispute." }),
+    verdict: z.enum(["vouch", "dispute"], { error: "The verdict is either vouch or dispute." }),
     comment: z.string().max(20_000, "Keep the comment under 20,000 characters.").optional(),
+    digest: z.string().regex(/^[0-9a-f]{64}$/, "The digest is the 64 hex digits the review panel shows for the revision.").optional(),
   })
   .refine((v) => v.verdict !== "dispute" || (v.comment ?? "").trim().length > 0, {
     path: ["comment"],
@@ -17,13 +18,13 @@ export const verdictSchema = z
 export type VerdictInput = z.infer<typeof verdictSchema>;
 
 export const disputeMoveSchema = z.object({
-  to: z.enum(["answered", "closed", "reopened"], { error: "Move a dispute to answered, closed or reopened." }),
+  to: z.enum(["answered", "withdrawn", "upheld"], { error: "Move a dispute to answered, withdrawn or upheld." }),
   comment: z.string().trim().max(20_000, "Keep the comment under 20,000 characters.").optional(),
 });
 export type DisputeMoveInput = z.infer<typeof disputeMoveSchema>;
 
 export const settingsSchema = z.object({
-  requiredApprovals: z.number({ error: "Give the number of approvals as a whole number." }).int("Give a whole number.").min(1, "At least one approval is required.").max(9, "At most 9 approvals can be required."),
+  requiredApprovals: z.number({ error: "Give the number of vouches as a whole number." }).int("Give a whole number.").min(1, "At least one approval is required.").max(9, "At most 9 vouches can be required."),
 });
 export type SettingsInput = z.infer<typeof settingsSchema>;
 

@@ -2,7 +2,7 @@
  * The review workflow end to end, one browser context per person, against MariaDB and the local mail fake:
  * the editor invites a reviewer to case 3.2 → the mail arrives at the fake → the reviewer follows the link,
  * creates an account and disputes the step → the author is notified, revises the step in the step editor and
- * marks the dispute answered → the reviewer closes it and approves the new revision → case 3.2 is settled.
+ * marks the dispute answered → the referee withdraws it and vouches for the new revision → case 3.2 is settled.
  */
 import { readFileSync, existsSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
@@ -42,7 +42,7 @@ async function personPage(key: string): Promise<Page> {
 }
 
 describe("review workflow in the browser", () => {
-  it("invite → mail → join → dispute → notify → revise → answer → close → approve → case settled", async () => {
+  it("invite → mail → join → dispute → notify → revise → answer → withdraw → vouch → case settled", async () => {
     // The editor opens the demo proof's members page and invites a new reviewer to case 3.2 only.
     const editor = await personPage("editor");
     await editor.getByTestId("proof-list").getByRole("link", { name: demoProof.title }).click();
@@ -80,19 +80,19 @@ describe("review workflow in the browser", () => {
     await reviewer.waitForURL(/\/queue\/\d+\/\d+$/);
     const stepPath = new URL(reviewer.url()).pathname;
     const stepId = Number(stepPath.split("/")[3]);
-    await reviewer.getByRole("button", { name: "⚑ Dispute…" }).click();
+    await reviewer.getByRole("button", { name: "I raise a dispute…" }).click();
     const disputeForm = reviewer.getByTestId("dispute-form");
     await disputeForm.getByLabel(/What is wrong/).fill("Monotonicity in $c$ needs an argument: why is $\\rho(T(2,2,c))$ increasing?");
     await disputeForm.getByRole("button", { name: "Post" }).click();
     const dispute = reviewer.getByTestId("dispute");
-    await dispute.locator('[data-dispute-state="open"]').waitFor();
+    await dispute.locator('[data-dispute-state="raised"]').waitFor();
     expect(await dispute.locator(".katex").count()).toBeGreaterThan(0);
     await reviewer.locator('[data-testid="case-state"] [data-case-state="disputed"]').waitFor();
 
     // The author is notified, revises the step in the step editor and marks the dispute answered.
     const author = await personPage("author");
     await author.goto(`${baseUrl}/notifications`);
-    const notice = author.locator('[data-testid="notification"][data-kind="dispute_opened"]', { hasText: "disputed revision 1" });
+    const notice = author.locator('[data-testid="notification"][data-kind="dispute_raised"]', { hasText: "disputed revision 1" });
     await notice.first().waitFor();
     expect(await notice.first().getAttribute("data-read")).toBe("false");
     expect((await mailTo("ada.quenby@tarnhollow.example")).subject).toContain("dispute");
@@ -113,19 +113,19 @@ describe("review workflow in the browser", () => {
     await reviewer.getByTestId("queue-answered").getByRole("link", { name: "Step 3.2:1" }).click();
     await reviewer.waitForURL(`${baseUrl}${stepPath}`);
     await reviewer.getByText("revision 2 by Ada Quenby").waitFor();
-    await reviewer.getByTestId("dispute").getByRole("button", { name: "Close dispute" }).click();
-    await reviewer.getByTestId("dispute").locator('[data-dispute-state="closed"]').waitFor();
-    await reviewer.getByRole("button", { name: "✓ Approve revision 2" }).click();
+    await reviewer.getByTestId("dispute").getByRole("button", { name: "Withdraw: I am satisfied" }).click();
+    await reviewer.getByTestId("dispute").locator('[data-dispute-state="withdrawn"]').waitFor();
+    await reviewer.getByRole("button", { name: "I vouch for revision 2" }).click();
     await reviewer.locator('[data-approval="current"]').waitFor();
     await reviewer.locator('[data-testid="case-state"] [data-case-state="settled"]').waitFor();
     const transitions = await reviewer.getByRole("list", { name: "Transitions" }).textContent();
-    expect(transitions).toMatch(/· → open by Wren Halloway.*open → answered by Ada Quenby.*answered → closed by Wren Halloway/s);
+    expect(transitions).toMatch(/· → raised by Wren Halloway.*raised → answered by Ada Quenby.*answered → withdrawn by Wren Halloway/s);
 
     // The editor's roll-up agrees, and the timeline recorded each step of the way.
     await editor.goto(`${baseUrl}/proofs/${proofId}/members`);
     expect(await editor.locator('[data-testid="readiness-case"][data-case-number="3.2"] [data-case-state]').getAttribute("data-case-state")).toBe("settled");
     await editor.goto(`${baseUrl}/proofs/${proofId}/timeline`);
-    for (const action of ["invitation.sent", "invitation.accepted", "review.disputed", "dispute.answered", "dispute.closed", "review.approved"])
+    for (const action of ["invitation.sent", "invitation.accepted", "review.disputed", "dispute.answered", "dispute.withdrawn", "review.vouched"])
       expect(await editor.locator(`[data-testid="timeline-event"][data-action="${action}"]`).count(), action).toBeGreaterThan(0);
 
     // The admin page lists the captured invitation.

@@ -101,8 +101,10 @@ beforeAll(async () => {
   const otherExport = await exportsRoute.POST(req("POST", { kind: "draft" }), params({ proofId: otherProofId }));
   expect(otherExport.status).toBe(201);
   await actAs("reviewer");
+  // Attaching the claim made revision 2 of the step (a revision is text plus claims): dispute that one.
+  const otherLatest = await models().StepRevision.findOne({ where: { stepId: otherStep.id }, order: [["number", "DESC"]] });
   const otherDispute = await reviewsRoute.POST(
-    req("POST", { revisionId: otherStep.revisionId, verdict: "dispute", comment: "The case split misses T(1,1,1)." }),
+    req("POST", { revisionId: otherLatest!.id, verdict: "dispute", comment: "The case split misses T(1,1,1)." }),
     params({ proofId: otherProofId, stepId: String(otherStep.id) }),
   );
   expect(otherDispute.status).toBe(201);
@@ -126,7 +128,7 @@ beforeAll(async () => {
   expect(dispute.status).toBe(201);
   disputeId = (await dispute.json()).reviewId;
   await actAs("admin");
-  const approval = await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "approve" }), params({ proofId, stepId: String(step.id) }));
+  const approval = await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(step.id) }));
   expect(approval.status).toBe(201);
   approvalId = (await approval.json()).reviewId;
 });
@@ -215,7 +217,7 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
     const before = await rowCounts();
     const sid = String(step.id);
     await actAs("reviewer");
-    for (const body of [{}, { verdict: "approve" }, { revisionId: "1", verdict: "approve" }, { revisionId: step.revisionId, verdict: "maybe" }, { revisionId: step.revisionId, verdict: "dispute" }, { revisionId: step.revisionId, verdict: "dispute", comment: "   " }, { revisionId: step.revisionId, verdict: "dispute", comment: MB }, { revisionId: 2 ** 60, verdict: "approve" }, { revisionId: 99999999999, verdict: "approve" }])
+    for (const body of [{}, { verdict: "vouch" }, { revisionId: "1", verdict: "vouch" }, { revisionId: step.revisionId, verdict: "maybe" }, { revisionId: step.revisionId, verdict: "dispute" }, { revisionId: step.revisionId, verdict: "dispute", comment: "   " }, { revisionId: step.revisionId, verdict: "dispute", comment: MB }, { revisionId: 2 ** 60, verdict: "vouch" }, { revisionId: 99999999999, verdict: "vouch" }])
       await expectError(await reviewsRoute.POST(req("POST", body), params({ proofId, stepId: sid })), 422);
     await actAs("author");
     for (const body of [{}, { to: "sideways" }, { to: 1 }, { to: "answered", comment: 5 }, { to: "answered", comment: MB }])
@@ -277,7 +279,7 @@ describe("nonsense ids in the path and the query", () => {
       await expectError(await invitationRoute.POST(req("POST"), params({ proofId, invitationId: bad })), 404);
       await expectError(await scopeRoute.DELETE(req("DELETE"), params({ proofId, userId: bad })), 404);
       await actAs("reviewer");
-      await expectError(await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "approve" }), params({ proofId, stepId: bad })), 404);
+      await expectError(await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "vouch" }), params({ proofId, stepId: bad })), 404);
     }
     for (const token of ["", "short", "a".repeat(101), "../../etc/passwd-aaaaaaaaaaaaaaa", "a".repeat(43)]) {
       await expectError(await tokenRoute.GET(new Request("http://localhost/x"), params({ token })), 404);
@@ -324,8 +326,8 @@ describe("ids of rows that belong to another proof", () => {
     await expectError(await scopeRoute.DELETE(req("DELETE"), params({ proofId, userId: String(await userIdOf("outsider")) })), 404);
     await expectError(await exportRoute.GET(get, params({ proofId, exportId: String(other.exportId) })), 404);
     await actAs("reviewer");
-    await expectError(await reviewsRoute.POST(req("POST", { revisionId: other.step.revisionId, verdict: "approve" }), params({ proofId, stepId: String(step.id) })), 422);
-    await expectError(await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "approve" }), params({ proofId, stepId: String(other.step.id) })), 404);
+    await expectError(await reviewsRoute.POST(req("POST", { revisionId: other.step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(step.id) })), 422);
+    await expectError(await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(other.step.id) })), 404);
     expect(await rowCounts()).toEqual(before);
   });
 });

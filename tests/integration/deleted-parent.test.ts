@@ -52,7 +52,7 @@ describe("a step under a deleted parent case", () => {
   it("refuses a verdict, a comment and a dispute move with 404, and writes nothing", async () => {
     const before = await counts();
     await actAs("reviewer");
-    expect((await reviewsRoute.POST(jsonRequest("/x", "POST", { revisionId, verdict: "approve" }), step())).status).toBe(404);
+    expect((await reviewsRoute.POST(jsonRequest("/x", "POST", { revisionId, verdict: "vouch" }), step())).status).toBe(404);
     expect((await commentsRoute.POST(jsonRequest("/x", "POST", { body: "Still here?" }), step())).status).toBe(404);
     await actAs("author");
     const moved = await disputeRoute.POST(jsonRequest("/x", "POST", { to: "answered", comment: "Answered." }), params({ proofId: String(fx.proofId), reviewId: String(disputeId) }));

@@ -21,6 +21,7 @@ import * as checkerRoute from "@/app/api/proofs/[proofId]/exports/checker/route"
 import * as archiveRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/archive/route";
 import { strFromU8, unzipSync } from "fflate";
 import { spawnSync } from "node:child_process";
+import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
 
 const EVIL = String.raw`Settled \input{/etc/passwd} & 100% #1 _x_ $\write18{ls}$`;
 let proofId: number; // a proof of this file's own, made ready to certify
@@ -49,9 +50,13 @@ beforeAll(async () => {
   const rev = await StepRevision.create({ stepId, number: 1, body: String.raw`Step text \immediate\write18{rm -rf /} with $\rho(E_8) < 2$.`, authorId: author });
   revisionId = rev.id;
   const v = verifiedClaim({ kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" });
-  await Claim.create({ stepId, position: 1, kind: v.kind, input: v.input, digest: v.digest, status: v.status, statement: v.statement, method: v.method,
+  const claim = await Claim.create({ stepId, position: 1, kind: v.kind, input: v.input, digest: v.digest, status: v.status, statement: v.statement, method: v.method,
     reason: v.reason, certificate: v.certificate, checkerVersion: v.checkerVersion, checkedAt: new Date(), createdBy: author });
-  await Review.create({ stepId, revisionId, reviewerId: reviewer, verdict: "approve", disputeState: null });
+  // The revision covers the claim (as attaching it through the API would record), and the vouch that revision's digest.
+  const covered = [{ id: claim.id, position: 1, kind: claim.kind, statement: claim.statement, digest: claim.digest!, status: claim.status }];
+  const digest = digestOfRevision(rev.number, rev.body, covered);
+  await rev.update({ claimSet: claimSetText(covered), digest });
+  await Review.create({ stepId, revisionId, reviewerId: reviewer, verdict: "vouch", disputeState: null, digest });
 });
 
 afterAll(async () => {
@@ -144,7 +149,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
 
   it("refuses a certified export while a dispute is open (409 naming the step), and a draft is still possible and marked draft", async () => {
     const { Review } = models();
-    const dispute = await Review.create({ stepId, revisionId, reviewerId: await userIdOf("editor"), verdict: "dispute", disputeState: "open" });
+    const dispute = await Review.create({ stepId, revisionId, reviewerId: await userIdOf("editor"), verdict: "dispute", disputeState: "raised" });
     try {
       await actAs("author");
       const refused = await create(proofId, { kind: "certified" });
@@ -162,7 +167,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
       expect(tex).toContain(String.raw`\fancyhead[R]{\small \textbf{DRAFT --- not certified}}`);
       const bundle = await (await file(bundleRoute, proofId, made.id)).json();
       expect(bundle.export).toMatchObject({ kind: "draft", proofState: "in progress" });
-      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(expect.objectContaining({ verdict: "dispute", disputeState: "open" }));
+      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(expect.objectContaining({ verdict: "dispute", disputeState: "raised" }));
     } finally {
       await dispute.destroy();
     }

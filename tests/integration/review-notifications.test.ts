@@ -39,7 +39,7 @@ describe("notifications", () => {
     const body = await (await notifications.GET(new Request("http://localhost/x"), params({}))).json();
     const mine = body.notifications.filter((n: { link: string }) => n.link === `/queue/${fx.proofId}/${fx.steps["1.1"]}`);
     expect(mine).toHaveLength(1);
-    expect(mine[0]).toMatchObject({ kind: "dispute_opened", read: false });
+    expect(mine[0]).toMatchObject({ kind: "dispute_raised", read: false });
     expect(body.unread).toBeGreaterThanOrEqual(1);
 
     const authorsNotice = await models().Notification.findOne({ where: { userId: fx.ids.author, stepId: fx.steps["1.1"] } });
@@ -54,13 +54,13 @@ describe("notifications", () => {
 
   it("lets a person turn e-mail off per kind: the in-app notice still comes, the mail does not", async () => {
     await actAs(null);
-    expect((await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_opened", email: false }), params({}))).status).toBe(401);
+    expect((await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_raised", email: false }), params({}))).status).toBe(401);
     await actAs("coauthor");
     expect((await preferences.PUT(jsonRequest("/x", "PUT", { kind: "everything", email: false }), params({}))).status).toBe(422);
-    expect((await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_opened", email: "no" }), params({}))).status).toBe(422);
-    const res = await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_opened", email: false }), params({}));
+    expect((await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_raised", email: "no" }), params({}))).status).toBe(422);
+    const res = await preferences.PUT(jsonRequest("/x", "PUT", { kind: "dispute_raised", email: false }), params({}));
     expect(res.status).toBe(200);
-    expect((await res.json()).email).toMatchObject({ dispute_opened: false, dispute_answered: true });
+    expect((await res.json()).email).toMatchObject({ dispute_raised: false, dispute_answered: true });
 
     await waitForMail(BRAM, /A new dispute on your step/); // the first dispute's mail went out
     const before = mailsTo(BRAM).length;
@@ -68,9 +68,9 @@ describe("notifications", () => {
     await waitForMail("ada.quenby@tarnhollow.example", /A new dispute/); // Ada still gets hers…
     await new Promise((r) => setTimeout(r, 500));
     expect(mailsTo(BRAM).length).toBe(before); // …Bram does not
-    expect(await models().Notification.count({ where: { userId: fx.ids.coauthor, stepId: fx.steps["2.1"], kind: "dispute_opened" } })).toBe(1);
+    expect(await models().Notification.count({ where: { userId: fx.ids.coauthor, stepId: fx.steps["2.1"], kind: "dispute_raised" } })).toBe(1);
     await actAs("coauthor");
-    expect((await (await preferences.GET(new Request("http://localhost/x"), params({}))).json()).email.dispute_opened).toBe(false);
+    expect((await (await preferences.GET(new Request("http://localhost/x"), params({}))).json()).email.dispute_raised).toBe(false);
   });
 });
 

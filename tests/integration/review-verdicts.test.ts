@@ -36,19 +36,19 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
   it("lets the invited reviewer approve the latest revision (201), and again is a no-op (200)", async () => {
     const rev = await latestRevision(fx.steps["1.1"]);
     await actAs("reviewer");
-    const res = await verdict(fx.proofId, fx.steps["1.1"], { revisionId: rev.id, verdict: "approve" });
+    const res = await verdict(fx.proofId, fx.steps["1.1"], { revisionId: rev.id, verdict: "vouch" });
     expect(res.status).toBe(201);
-    const again = await verdict(fx.proofId, fx.steps["1.1"], { revisionId: rev.id, verdict: "approve" });
+    const again = await verdict(fx.proofId, fx.steps["1.1"], { revisionId: rev.id, verdict: "vouch" });
     expect(again.status).toBe(200);
     expect((await again.json()).created).toBe(false);
     const view = await panel(fx.proofId, fx.steps["1.1"]);
-    expect(view.status).toMatchObject({ approvals: 1, approved: true, settled: true });
-    expect(view.approvals[0]).toMatchObject({ reviewerName: "Celia Marwood", revisionNumber: 1, stale: false });
+    expect(view.status).toMatchObject({ vouches: 1, vouched: true, settled: true });
+    expect(view.vouches[0]).toMatchObject({ reviewerName: "Celia Marwood", revisionNumber: 1, stale: false });
   });
 
   it("refuses anonymous (401), non-members (403), editors and authors (403: only invited reviewers), and a missing step (404)", async () => {
     const rev = await latestRevision(fx.steps["2.2"]);
-    const body = { revisionId: rev.id, verdict: "approve" };
+    const body = { revisionId: rev.id, verdict: "vouch" };
     const before = await reviewCount();
     await actAs(null);
     expect((await verdict(fx.proofId, fx.steps["2.2"], body)).status).toBe(401);
@@ -69,7 +69,7 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
     const { ids } = fx;
     const rev = await revise(fx.steps["2.2"], ids.reviewer, "The reviewer's own wording.");
     await actAs("reviewer");
-    const res = await verdict(fx.proofId, fx.steps["2.2"], { revisionId: rev.id, verdict: "approve" });
+    const res = await verdict(fx.proofId, fx.steps["2.2"], { revisionId: rev.id, verdict: "vouch" });
     expect(res.status).toBe(403);
     expect((await res.json()).error.message).toMatch(/own step/);
     expect((await panel(fx.proofId, fx.steps["2.2"])).can.verdict).toBe(false);
@@ -85,8 +85,8 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
     expect((await verdict(fx.proofId, fx.steps["2.1"], { revisionId: rev.id, verdict: "maybe" })).status).toBe(422);
     expect((await verdict(fx.proofId, fx.steps["2.1"], "not json")).status).toBe(422);
     const otherRev = await latestRevision(fx.steps["1.1"]);
-    expect((await verdict(fx.proofId, fx.steps["2.1"], { revisionId: otherRev.id, verdict: "approve" })).status).toBe(422);
-    expect((await verdict(fx.proofId, other.steps["1.1"], { revisionId: (await latestRevision(other.steps["1.1"])).id, verdict: "approve" })).status).toBe(404);
+    expect((await verdict(fx.proofId, fx.steps["2.1"], { revisionId: otherRev.id, verdict: "vouch" })).status).toBe(422);
+    expect((await verdict(fx.proofId, other.steps["1.1"], { revisionId: (await latestRevision(other.steps["1.1"])).id, verdict: "vouch" })).status).toBe(404);
     expect(await reviewCount()).toBe(before);
   });
 
@@ -97,20 +97,21 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
     await actAs("reviewer");
     const view = await panel(fx.proofId, stepId);
     expect(view.latestRevision.number).toBe(2);
-    expect(view.approvals[0]).toMatchObject({ revisionNumber: 1, stale: true });
-    expect(view.status).toMatchObject({ approvals: 0, staleApprovals: 1, approved: false });
+    expect(view.vouches[0]).toMatchObject({ revisionNumber: 1, stale: true });
+    expect(view.status).toMatchObject({ vouches: 0, supersededVouches: 1, vouched: false });
 
     const before = await reviewCount();
-    const stale = await verdict(fx.proofId, stepId, { revisionId: old.id, verdict: "approve" });
+    const stale = await verdict(fx.proofId, stepId, { revisionId: old.id, verdict: "vouch" });
     expect(stale.status).toBe(409);
     const body = await stale.json();
-    expect(body.error.message).toMatch(/Revision 1 is stale/);
+    expect(body.error.message).toMatch(/Revision 1 is no longer the latest: revision 2 is, and since revision 1 the text changed/);
+    expect(body.error.changed).toEqual({ text: true, claimsAdded: [], claimsWithdrawn: [], claimsRedecided: [] });
     expect(body.error.latestRevisionNumber).toBe(2);
     expect(await reviewCount()).toBe(before);
 
     const queue = await getReviewerQueue(fx.ids.reviewer);
-    expect(queue.steps.find((r) => r.stepId === stepId)).toMatchObject({ reason: "needs re-review", revision: 2, stepLabel: "1:1" });
-    expect((await verdict(fx.proofId, stepId, { revisionId: (await latestRevision(stepId)).id, verdict: "approve" })).status).toBe(201);
+    expect(queue.steps.find((r) => r.stepId === stepId)).toMatchObject({ reason: "vouch superseded", revision: 2, stepLabel: "1:1" });
+    expect((await verdict(fx.proofId, stepId, { revisionId: (await latestRevision(stepId)).id, verdict: "vouch" })).status).toBe(201);
     expect((await getReviewerQueue(fx.ids.reviewer)).steps.find((r) => r.stepId === stepId)).toBeUndefined();
   });
 });
@@ -126,25 +127,25 @@ describe("a dispute from open to closed", () => {
     expect(res.status).toBe(201);
     disputeId = (await res.json()).reviewId;
     const view = await panel(fx.proofId, fx.steps[stepKey]);
-    expect(view.disputes[0]).toMatchObject({ id: disputeId, state: "open", reviewerName: "Celia Marwood" });
+    expect(view.disputes[0]).toMatchObject({ id: disputeId, state: "raised", reviewerName: "Celia Marwood" });
     expect(view.disputes[0].thread[0].body).toContain("x^2");
     expect(view.status.openDisputes).toBe(1);
     expect(view.can).toMatchObject({ verdict: true, ownDisputeOpen: true });
     const { Notification } = models();
-    for (const id of [fx.ids.author, fx.ids.coauthor]) expect(await Notification.count({ where: { userId: id, kind: "dispute_opened", stepId: fx.steps[stepKey] } })).toBe(1);
-    expect(await Notification.count({ where: { userId: fx.ids.reviewer, kind: "dispute_opened", stepId: fx.steps[stepKey] } })).toBe(0);
+    for (const id of [fx.ids.author, fx.ids.coauthor]) expect(await Notification.count({ where: { userId: id, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(1);
+    expect(await Notification.count({ where: { userId: fx.ids.reviewer, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(0);
     const mail = await waitForMail("ada.quenby@tarnhollow.example", /A new dispute on your step/);
     expect(mail.text).toContain(`/queue/${fx.proofId}/${fx.steps[stepKey]}`);
-    expect((await getAuthorQueue(fx.ids.author)).find((d) => d.disputeId === disputeId)).toMatchObject({ state: "open", stepLabel: "2:1" });
+    expect((await getAuthorQueue(fx.ids.author)).find((d) => d.disputeId === disputeId)).toMatchObject({ state: "raised", stepLabel: "2:1" });
   });
 
   it("refuses a second dispute and an approval while it is unresolved (409)", async () => {
     const rev = await latestRevision(fx.steps[stepKey]);
     await actAs("reviewer");
     expect((await verdict(fx.proofId, fx.steps[stepKey], { revisionId: rev.id, verdict: "dispute", comment: "Again" })).status).toBe(409);
-    const approve = await verdict(fx.proofId, fx.steps[stepKey], { revisionId: rev.id, verdict: "approve" });
+    const approve = await verdict(fx.proofId, fx.steps[stepKey], { revisionId: rev.id, verdict: "vouch" });
     expect(approve.status).toBe(409);
-    expect((await approve.json()).error.message).toMatch(/close it before approving/);
+    expect((await approve.json()).error.message).toMatch(/withdraw it before vouching/);
   });
 
   it("only authors mark it answered; the reviewer cannot (403), nor can a non-member (403) or anonymous (401)", async () => {
@@ -164,8 +165,8 @@ describe("a dispute from open to closed", () => {
     await actAs("author");
     expect((await move(fx.proofId, disputeId, { to: "settled" })).status).toBe(422);
     expect((await move(other.proofId, disputeId, { to: "answered" })).status).toBe(404);
-    const approval = await models().Review.findOne({ where: { verdict: "approve" } });
-    expect((await move(fx.proofId, approval!.id, { to: "closed" })).status).toBe(404);
+    const approval = await models().Review.findOne({ where: { verdict: "vouch" } });
+    expect((await move(fx.proofId, approval!.id, { to: "withdrawn" })).status).toBe(404);
   });
 
   it("the author replies in the thread, revises the step and marks it answered; the reviewer is notified", async () => {
@@ -182,28 +183,28 @@ describe("a dispute from open to closed", () => {
     expect(again.status).toBe(409);
   });
 
-  it("the author cannot close it (403); the reviewer reopens it; an editor closes it; closed cannot be answered (409)", async () => {
+  it("the author cannot withdraw it (403); the referee upholds it; an editor withdraws it; withdrawn cannot be answered (409)", async () => {
     await actAs("author");
-    expect((await move(fx.proofId, disputeId, { to: "closed" })).status).toBe(403);
+    expect((await move(fx.proofId, disputeId, { to: "withdrawn" })).status).toBe(403);
     await actAs("reviewer");
-    expect((await move(fx.proofId, disputeId, { to: "reopened", comment: "Not yet: what about complex $x$?" })).status).toBe(200);
+    expect((await move(fx.proofId, disputeId, { to: "upheld", comment: "Not yet: what about complex $x$?" })).status).toBe(200);
     await actAs("author");
     expect((await move(fx.proofId, disputeId, { to: "answered" })).status).toBe(200);
     await actAs("editor");
-    expect((await move(fx.proofId, disputeId, { to: "closed" })).status).toBe(200);
+    expect((await move(fx.proofId, disputeId, { to: "withdrawn" })).status).toBe(200);
     await actAs("author");
     const res = await move(fx.proofId, disputeId, { to: "answered" });
     expect(res.status).toBe(409);
-    expect((await res.json()).error.message).toMatch(/is closed/);
+    expect((await res.json()).error.message).toMatch(/This dispute is withdrawn; it cannot be answered from there/);
   });
 
   it("records every transition with who and when, and an append-only audit trail", async () => {
     const transitions = await models().DisputeTransition.findAll({ where: { reviewId: disputeId }, order: [["id", "ASC"]] });
-    expect(transitions.map((t) => `${t.fromState ?? "∅"}→${t.toState}`)).toEqual(["∅→open", "open→answered", "answered→reopened", "reopened→answered", "answered→closed"]);
+    expect(transitions.map((t) => `${t.fromState ?? "∅"}→${t.toState}`)).toEqual(["∅→raised", "raised→answered", "answered→upheld", "upheld→answered", "answered→withdrawn"]);
     expect(transitions.map((t) => t.actorId)).toEqual([fx.ids.reviewer, fx.ids.author, fx.ids.reviewer, fx.ids.author, fx.ids.editor]);
     expect(transitions.every((t) => t.createdAt instanceof Date)).toBe(true);
     const actions = (await models().AuditEvent.findAll({ where: { proofId: fx.proofId }, order: [["id", "ASC"]] })).map((e) => e.action);
-    expect(actions).toEqual(expect.arrayContaining(["review.approved", "review.disputed", "dispute.answered", "dispute.reopened", "dispute.closed", "comment.added"]));
+    expect(actions).toEqual(expect.arrayContaining(["review.vouched", "review.disputed", "dispute.answered", "dispute.upheld", "dispute.withdrawn", "comment.added"]));
     await actAs("reviewer");
     const view = await panel(fx.proofId, fx.steps[stepKey]);
     expect(view.disputes[0].transitions).toHaveLength(5);
@@ -214,7 +215,7 @@ describe("a dispute from open to closed", () => {
     await actAs("coauthor");
     const res = await disputes.GET(new Request("http://localhost/x"), p(fx.proofId));
     expect(res.status).toBe(200);
-    expect((await res.json()).disputes.find((d: { disputeId: number }) => d.disputeId === disputeId).state).toBe("closed");
+    expect((await res.json()).disputes.find((d: { disputeId: number }) => d.disputeId === disputeId).state).toBe("withdrawn");
     await actAs("outsider");
     expect((await disputes.GET(new Request("http://localhost/x"), p(fx.proofId))).status).toBe(403);
   });
@@ -247,7 +248,7 @@ describe("comments: POST /api/proofs/[proofId]/steps/[stepId]/comments", () => {
 });
 
 describe("readiness roll-up", () => {
-  it("settles a case when its steps are approved at the latest revision as required, with no open dispute", async () => {
+  it("settles a case when its steps are vouched at the latest revision as required, with no open dispute", async () => {
     const r = await getReadiness(fx.proofId);
     const byNumber = Object.fromEntries(r.cases.map((c) => [c.number, c]));
     expect(byNumber["1"].state).toBe("settled");
@@ -255,7 +256,7 @@ describe("readiness roll-up", () => {
     expect(r.state).toBe("in progress");
   });
 
-  it("lets an editor require more approvals (422 outside 1–9, 403 for others), which unsettles the case", async () => {
+  it("lets an editor require more vouches (422 outside 1–9, 403 for others), which unsettles the case", async () => {
     const patch = (body: unknown) => settings.PATCH(jsonRequest("/x", "PATCH", body), p(fx.proofId));
     await actAs("coauthor");
     expect((await patch({ requiredApprovals: 2 })).status).toBe(403);
@@ -276,14 +277,14 @@ describe("readiness roll-up", () => {
     await actAs("reviewer");
     for (const key of ["2.1", "2.1.1"]) {
       const stepId = fx.steps[key];
-      const res = await verdict(fx.proofId, stepId, { revisionId: (await latestRevision(stepId)).id, verdict: "approve" });
+      const res = await verdict(fx.proofId, stepId, { revisionId: (await latestRevision(stepId)).id, verdict: "vouch" });
       expect(res.status).toBe(201);
     }
     // Step 2.2 has a revision by Celia, so her approval can never count: a second reviewer is needed.
     expect(await getReadiness(fx.proofId)).toMatchObject({ state: "in progress" });
     await models().ProofMember.create({ proofId: fx.proofId, userId: await userIdOf("admin"), role: "reviewer" });
     await actAs("admin");
-    expect((await verdict(fx.proofId, fx.steps["2.2"], { revisionId: (await latestRevision(fx.steps["2.2"])).id, verdict: "approve" })).status).toBe(201);
+    expect((await verdict(fx.proofId, fx.steps["2.2"], { revisionId: (await latestRevision(fx.steps["2.2"])).id, verdict: "vouch" })).status).toBe(201);
     expect((await getReadiness(fx.proofId)).state).toBe("ready to certify");
     const claim = await models().Claim.create({ stepId: fx.steps["1.1"], kind: "spectral-radius-bound", input: "{}", status: "refuted", createdBy: fx.ids.author } as never);
     const r = await getReadiness(fx.proofId);
@@ -294,7 +295,7 @@ describe("readiness roll-up", () => {
 
   it("gives editors per-reviewer progress", async () => {
     const rows = await getReviewerProgress([fx.proofId]);
-    expect(rows.find((r) => r.reviewerId === fx.ids.reviewer)).toMatchObject({ scope: "whole proof", inScope: 4, approved: 3, unresolvedDisputes: 0 });
-    expect(rows.find((r) => r.reviewerName === "Esme Pollard")).toMatchObject({ inScope: 4, approved: 1 });
+    expect(rows.find((r) => r.reviewerId === fx.ids.reviewer)).toMatchObject({ scope: "whole proof", inScope: 4, vouched: 3, unresolvedDisputes: 0 });
+    expect(rows.find((r) => r.reviewerName === "Esme Pollard")).toMatchObject({ inScope: 4, vouched: 1 });
   });
 });

@@ -245,7 +245,7 @@ describe("due dates and the editor's desk", () => {
     expect((await readDesk("999999")).status).toBe(404);
     const rev = await models().StepRevision.findOne({ where: { stepId: fx.steps["2.1"] } });
     const old = new Date(Date.now() - 5 * 86_400_000 - 60_000);
-    const r = await models().Review.create({ stepId: fx.steps["2.1"], revisionId: rev!.id, reviewerId: fx.ids.reviewer, verdict: "dispute", disputeState: "open" });
+    const r = await models().Review.create({ stepId: fx.steps["2.1"], revisionId: rev!.id, reviewerId: fx.ids.reviewer, verdict: "dispute", disputeState: "raised" });
     await models().Review.update({ updatedAt: old, createdAt: old }, { where: { id: r.id }, silent: true });
     const d = (await (await readDesk()).json()).desk;
     expect(d.disputes).toHaveLength(1);
@@ -354,10 +354,10 @@ describe("blind review", () => {
     const { Review, Comment, StepRevision, DisputeTransition, AuditEvent } = models();
     const rev22 = (await StepRevision.findOne({ where: { stepId: fx.steps["2.2"] } }))!;
     const rev11 = (await StepRevision.findOne({ where: { stepId: fx.steps["1.1"] } }))!;
-    const d = await Review.create({ stepId: fx.steps["2.2"], revisionId: rev22.id, reviewerId: galeId, verdict: "dispute", disputeState: "open" });
-    await DisputeTransition.create({ reviewId: d.id, actorId: galeId, fromState: null, toState: "open" });
+    const d = await Review.create({ stepId: fx.steps["2.2"], revisionId: rev22.id, reviewerId: galeId, verdict: "dispute", disputeState: "raised" });
+    await DisputeTransition.create({ reviewId: d.id, actorId: galeId, fromState: null, toState: "raised" });
     await Comment.create({ stepId: fx.steps["2.2"], reviewId: d.id, parentId: null, revisionId: rev22.id, authorId: galeId, body: "Which bound is meant here?" });
-    await Review.create({ stepId: fx.steps["1.1"], revisionId: rev11.id, reviewerId: fx.ids.reviewer, verdict: "approve", disputeState: null });
+    await Review.create({ stepId: fx.steps["1.1"], revisionId: rev11.id, reviewerId: fx.ids.reviewer, verdict: "vouch", disputeState: null });
     await AuditEvent.create({ proofId: fx.proofId, actorId: galeId, action: "review.disputed", subjectType: "step", subjectId: fx.steps["2.2"], detail: "dispute opened" });
 
     const secrets = [CELIA.name, CELIA.email, GALE.name, GALE.email];

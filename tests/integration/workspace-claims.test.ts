@@ -81,6 +81,16 @@ describe("POST .../steps/[stepId]/claims", () => {
     const badKind = await attach([claim({ kind: "magic", graph: named("path(3)") })]);
     expect((await badKind.json()).error.issues[0].path).toBe("claims.0.kind");
     expect((await attach([])).status).toBe(422);
+    // Two unreadable claims, one whose graph text is cut short and one with a misspelt field: both are named at once.
+    const both = await attach([
+      claim({ kind: "spectral-radius-bound", graph: named("A(5"), op: "<", bound: "2" }),
+      { ...starInTree, indcued: true },
+    ]);
+    expect(both.status).toBe(422);
+    const paths = (await both.json()).error.issues.map((i: { path: string }) => i.path);
+    expect(paths).toHaveLength(2);
+    expect(paths[0]).toMatch(/^claims\.0\.graph/);
+    expect(paths[1]).toMatch(/^claims\.1/);
     expect(await models().Claim.count({ where: { stepId: Number(stepId) } })).toBe(before);
   });
 

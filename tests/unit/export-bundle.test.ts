@@ -77,6 +77,53 @@ describe("bundle", () => {
     expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
   });
 
+  it("each vouch carries the digest of the revision it covers (text and claims), and the re-check recomputes it", () => {
+    const r = checkBundle(copy(fresh()), "b.json");
+    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    expect(line.status).toBe("verified");
+    expect(line.text).toMatch(/revision 2 \(text and 1 claim\(s\)\) digests to .*; 1 vouch\(es\) cover exactly it/);
+  });
+
+  /** Re-seals a bundle after `edit` changed a step's data, so that only the vouch check can catch it. */
+  const resealedWith = (stepId: string, edit: (data: any) => void) => {
+    const b = fresh();
+    const items = b.items.map((i) => {
+      if (i.id !== stepId) return { id: i.id, type: i.type, data: i.data };
+      const data = JSON.parse(JSON.stringify(i.data));
+      edit(data);
+      return { id: i.id, type: i.type, data };
+    });
+    return copy(sealBundle(b.export, items));
+  };
+
+  it("a vouch whose digest does not match its revision is rejected, even when every item digest is re-sealed", () => {
+    const r = checkBundle(resealedWith("step 1:1", (d) => (d.reviews[0].digest = "0".repeat(64))), "b.json");
+    expect(r.exitCode).toBe(1);
+    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    expect(line.status).toBe("refuted");
+    expect(line.text).toMatch(/the vouch by Celia Marwood records digest 0000000000000000…, but revision 2 \(text and claims\) digests to/);
+  });
+
+  it("a vouch given before a claim was attached does not cover it: the revision's claim set must be the step's claims", () => {
+    // The revision (and the vouch's digest) as it was before the claim: no claims; the bundle still lists the claim.
+    const r = checkBundle(
+      resealedWith("step 1:1", (d) => {
+        d.revision.claims = [];
+      }),
+      "b.json",
+    );
+    expect(r.exitCode).toBe(1);
+    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    expect(line.text).toMatch(/does not match its text and claims/);
+    expect(line.text).toMatch(/the bundle's 1 claim\(s\) of this step are not the 0 claim\(s\)/);
+  });
+
+  it("a vouch on an older revision that is not marked superseded is rejected", () => {
+    const r = checkBundle(resealedWith("step 1:1", (d) => (d.reviews[0].revision = 1)), "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "step 1:1")?.text).toMatch(/on revision 1 is counted, but it does not cover revision 2/);
+  });
+
   it("a changed export header (draft turned certified) fails at the manifest", () => {
     const b = copy(buildBundle(settledSnapshot(), { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" }));
     b.export.kind = "certified";
@@ -102,7 +149,7 @@ describe("certification", () => {
   it("a settled snapshot is ready to certify; an open dispute blocks it with the reason", () => {
     expect(certificationOf(settledSnapshot())).toEqual({ state: "ready to certify", blockers: [] });
     const s = settledSnapshot();
-    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "open", at: "2026-11-30T13:00:00.000Z" });
+    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "raised", digest: null, at: "2026-11-30T13:00:00.000Z" });
     const c = certificationOf(s);
     expect(c.state).toBe("in progress");
     expect(c.blockers).toContain("Step 1:1 has 1 open dispute.");
@@ -115,7 +162,9 @@ describe("the offline checker command on a bundle", () => {
     expect(code).toBe(0);
     expect(out).toMatch(/✓ verified\s+claim 1:1#1/);
     expect(out).toMatch(/✓ verified\s+claim 1.1:1#1/);
-    expect(out.trim().split("\n").at(-1)).toBe("3 checked: 3 verified, 0 refuted, 0 undecided");
+    expect(out).toMatch(/✓ verified\s+step 1:1\s+revision 2 \(text and 1 claim\(s\)\)/);
+    // Two claims, two steps whose vouch digests match their revisions, and the manifest.
+    expect(out.trim().split("\n").at(-1)).toBe("5 checked: 5 verified, 0 refuted, 0 undecided");
   });
 
   it("exits non-zero and names the item for a changed step character, certificate entry or verdict", async () => {

@@ -2,6 +2,7 @@
 import { canonicalJson } from "@/lib/core/canonical";
 import { validateClaim } from "@/lib/core/claim-schema";
 import { verifyClaim } from "@/lib/core/claims";
+import { revisionDigest } from "@/lib/core/revision-digest";
 import type { ProofSnapshot, SnapshotClaim, SnapshotReview } from "@/lib/export/snapshot";
 
 export function verifiedClaim(json: Record<string, unknown>): SnapshotClaim {
@@ -21,15 +22,19 @@ export function verifiedClaim(json: Record<string, unknown>): SnapshotClaim {
   };
 }
 
-const approve = (revisionNumber: number): SnapshotReview => ({
-  reviewerId: 3, reviewerName: "Celia Marwood", verdict: "approve", revisionNumber, disputeState: null, at: "2026-11-30T12:00:00.000Z",
+const approve = (revisionNumber: number, digest: string): SnapshotReview => ({
+  reviewerId: 3, reviewerName: "Celia Marwood", verdict: "vouch", revisionNumber, disputeState: null, digest, at: "2026-11-30T12:00:00.000Z",
 });
 
-/** Ready to certify: every step approved at its latest revision, every claim verified, no dispute. */
+/** Ready to certify: every step vouched at its latest revision, every claim verified, no dispute. */
 export function settledSnapshot(title = "Trees with spectral radius in (2, √(2+√5)]"): ProofSnapshot {
-  const step = (id: number, body: string, claims: SnapshotClaim[] = []) => ({
-    id, position: 1, revision: { number: 2, body, authorName: "Ada Quenby", savedAt: "2026-11-29T09:00:00.000Z" }, authorIds: [1], reviews: [approve(2)], claims,
-  });
+  const step = (id: number, body: string, claims: SnapshotClaim[] = []) => {
+    const covered = claims.map((c) => ({ digest: c.digest ?? "", status: c.status }));
+    const digest = revisionDigest({ number: 2, body, claims: covered });
+    return {
+      id, position: 1, revision: { number: 2, body, authorName: "Ada Quenby", savedAt: "2026-11-29T09:00:00.000Z", claims: covered, digest }, authorIds: [1], reviews: [approve(2, digest)], claims,
+    };
+  };
   return {
     id: 1,
     title,

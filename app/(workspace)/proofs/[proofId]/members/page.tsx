@@ -8,7 +8,7 @@ import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { RoleTag } from "@/components/ui/role-tag";
 import { InviteForm } from "@/components/review/invite-form";
 import { InvitationList } from "@/components/review/invitation-list";
-import { RequiredApprovalsForm } from "@/components/review/required-approvals-form";
+import { RequiredApprovalsForm } from "@/components/review/required-vouches-form";
 import { ReadinessRollup } from "@/components/review/readiness-rollup";
 import { VerdictCaution } from "@/components/ui/caution";
 import { QueueTable } from "@/components/review/queue-table";

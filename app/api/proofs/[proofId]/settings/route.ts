@@ -15,7 +15,7 @@ export const GET = route(async (_request: Request, { params }: Context) => {
   return Response.json({ requiredApprovals: readiness.requiredApprovals, readiness });
 });
 
-/** The editor sets how many approving reviewers each step needs. */
+/** The editor sets how many vouches each step needs. */
 export const PATCH = route(async (request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
   const { user, role } = await requireProofRole(proofId);

@@ -9,11 +9,11 @@ type Context = { params: Promise<{ proofId: string; reviewId: string }> };
 async function readTarget(request: Request) {
   const clone = request.clone();
   const raw = (await clone.json().catch(() => null)) as { to?: unknown } | null;
-  return raw && (raw.to === "answered" || raw.to === "closed" || raw.to === "reopened") ? raw.to : null;
+  return raw && (raw.to === "answered" || raw.to === "withdrawn" || raw.to === "upheld") ? raw.to : null;
 }
 
 /**
- * Moves a dispute: an author marks it answered; its reviewer (or an editor) closes or reopens it.
+ * Moves a dispute: an author marks it answered; its reviewer (or an editor) withdraws or upholds it.
  * Who may act depends on the target state, so the target is peeked at for the 403 before the full 422 check.
  */
 export const POST = route(async (request: Request, { params }: Context) => {

@@ -8,7 +8,7 @@ import { memberExport, type ExportContext } from "../member-export";
 export const GET = route(async (_request: Request, context: ExportContext) => {
   const e = await memberExport(context);
   try {
-    // Two runs: the long table of approvals settles its column widths on the second. Compiled once per export, then kept.
+    // Two runs: the long table of vouches settles its column widths on the second. Compiled once per export, then kept.
     const { pdf } = await cachedPdf(e.tex, { runs: 2 });
     return download(new Uint8Array(pdf), "application/pdf", exportFileName(e.proofId, e.id, e.kind, "pdf"));
   } catch (err) {

@@ -7,14 +7,14 @@ import { assertCanGiveVerdict, requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 
-/** The review panel of a step: verdicts (stale ones marked), disputes with their threads, comments, and what the viewer may do. */
+/** The review panel of a step: verdicts (superseded vouches marked), disputes with their threads, comments, and what the viewer may do. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { actor, step } = await requireStepAccess(proofId, stepId);
   return Response.json({ review: await getStepReview(step, actor) });
 });
 
-/** A reviewer approves or disputes the step at its latest revision (a stale revision is refused with 409). */
+/** A referee vouches for or disputes the step at its latest revision (an older revision is refused with 409 naming what changed). */
 export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { actor, step } = await requireStepAccess(proofId, stepId);

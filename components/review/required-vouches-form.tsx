@@ -1,5 +1,5 @@
 "use client";
-/** The editor sets the number of approving reviewers each step needs. */
+/** The editor sets the number of vouches each step needs. */
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { send } from "./send";
@@ -11,7 +11,7 @@ export function RequiredApprovalsForm({ proofId, current }: { proofId: number; c
   return (
     <form
       className="flex flex-wrap items-end gap-2"
-      data-testid="required-approvals"
+      data-testid="required-vouches"
       onSubmit={async (e) => {
         e.preventDefault();
         const res = await send(`/api/proofs/${proofId}/settings`, "PATCH", { requiredApprovals: Number(value) });
@@ -20,7 +20,7 @@ export function RequiredApprovalsForm({ proofId, current }: { proofId: number; c
       }}
     >
       <label className="text-sm">
-        <span className="block font-semibold">Approvals required per step</span>
+        <span className="block font-semibold">Vouches required per step</span>
         <input type="number" min={1} max={9} value={value} onChange={(e) => setValue(e.target.value)} className="mt-1 w-20 rounded border border-stone-300 px-2 py-1 font-mono" />
       </label>
       <button type="submit" className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50">
