@@ -44,6 +44,7 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "/admin/mail": { ...SIGNED_IN(403), admin: 200 },
   "/notifications": SIGNED_IN(200),
   "/queue": SIGNED_IN(200),
+  "/verdicts": SIGNED_IN(200), // the full text behind the verdict note; no proof data
   "/proofs": SIGNED_IN(200),
   "/proofs/new": SIGNED_IN(200),
   "/proofs/[proofId]": MEMBERS(200),
