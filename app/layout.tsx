@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { connection } from "next/server";
 import "katex/dist/katex.min.css";
 import "./globals.css";
 import { codeFace, textFace } from "./fonts";
@@ -13,7 +14,9 @@ export const metadata: Metadata = {
   },
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so that Next.js can put this request's CSP nonce on its scripts (proxy.ts).
+  await connection();
   return (
     <html lang="en" className={`${textFace.variable} ${codeFace.variable}`}>
       <body className="min-h-screen antialiased">{children}</body>

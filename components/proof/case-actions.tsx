@@ -5,18 +5,21 @@ import { ApiError, apiFetch } from "./api-client";
 import { AddCaseForm } from "./add-case-form";
 import { AddStepForm } from "./add-step-form";
 import { EditCaseForm } from "./edit-case-form";
+import { useMoveTargets } from "./case-targets";
 
 type Pending = { what: "delete" } | { what: "move"; parentId: number | null };
 
 /** An author's controls on one case: sub-case, step, reorder, move under another case, delete (confirmed when it holds work). */
-export function CaseActions({ proofId, caseId, number, first, last, targets, title, condition }: {
-  proofId: number; caseId: number; number: string; first: boolean; last: boolean; targets: Array<{ id: number; number: string }>;
-  title: string; condition: string;
+export function CaseActions({ proofId, caseId, number, first, last, title, condition }: {
+  proofId: number; caseId: number; number: string; first: boolean; last: boolean; title: string; condition: string;
 }) {
   const router = useRouter();
   const [open, setOpen] = useState<"case" | "step" | "edit" | null>(null);
   const [confirming, setConfirming] = useState<{ pending: Pending; message: string } | null>(null);
   const [error, setError] = useState<string | null>(null);
+  // The menu's options are built when it is first focused: the page carries the list of cases once, not once per case.
+  const [menuOpened, setMenuOpened] = useState(false);
+  const targets = useMoveTargets(caseId, number);
   const url = `/api/proofs/${proofId}/cases/${caseId}`;
 
   const run = async (pending: Pending | { what: "reorder"; move: "up" | "down" }, confirm = false) => {
@@ -56,11 +59,13 @@ export function CaseActions({ proofId, caseId, number, first, last, targets, tit
           className="rounded border border-stone-300 bg-white px-1 py-0.5"
           aria-label={`move case ${number} under`}
           value=""
+          onFocus={() => setMenuOpened(true)}
+          onPointerDown={() => setMenuOpened(true)}
           onChange={(e) => run({ what: "move", parentId: e.target.value === "top" ? null : Number(e.target.value) })}
         >
           <option value="">move under…</option>
           <option value="top">top level</option>
-          {targets.map((t) => (
+          {menuOpened && targets.map((t) => (
             <option key={t.id} value={t.id}>
               → {t.number}
             </option>

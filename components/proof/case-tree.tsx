@@ -9,10 +9,8 @@ import { CaseActions } from "./case-actions";
 
 export interface TreeOptions {
   proofId: number;
-  /** Authors get the editing controls. */
+  /** Authors get the editing controls (their "move under…" menus read the cases from CaseTargets). */
   editable: boolean;
-  /** Every live case, for "move under …". */
-  targets: Array<{ id: number; number: string }>;
 }
 
 /** The case tree: numbered cases with their derived state, condition and steps at their latest revision. */
@@ -39,7 +37,6 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 condition={c.condition}
                 first={i === 0}
                 last={i === nodes.length - 1}
-                targets={options.targets.filter((t) => t.id !== c.id && !t.number.startsWith(`${c.number}.`))}
               />
             )}
           </div>

@@ -2,7 +2,7 @@
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { z } from "zod";
+import { z } from "@/lib/validations/zod";
 import { caseConditionSchema, caseTitleSchema } from "@/lib/validations/case";
 import { apiFetch } from "./api-client";
 import { FormField, FormProblem } from "./form-field";

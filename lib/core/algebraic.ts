@@ -71,7 +71,14 @@ export function isolateByRank(p: Poly, rank: number): { lo: Rational; hi: Ration
   throw new RangeError("root isolation did not converge");
 }
 
-const refined = new WeakMap<Bound, { lo: Rational; hi: Rational }>();
+/**
+ * Enclosures already computed, per bound and precision. Bisection from the isolating interval is one fixed
+ * chain of intervals, so the enclosure for `bits` is the same whether it starts from (lo, hi) or from a
+ * coarser cached one. It must never be a *finer* one: a bound shared by many claims (parsed bounds are
+ * cached) would otherwise hand a 60-bit request the 2^-5000 interval of an earlier claim, and every
+ * rational computed from it would carry thousands of digits.
+ */
+const refined = new WeakMap<Bound, Map<number, { lo: Rational; hi: Rational }>>();
 
 /**
  * Exact rational enclosure lo <= b <= hi with hi - lo <= 2^-bits (lo = hi = b for rational b;
@@ -79,8 +86,15 @@ const refined = new WeakMap<Bound, { lo: Rational; hi: Rational }>();
  */
 export function enclose(b: Bound, bits: number): { lo: Rational; hi: Rational } {
   if (b.kind === "rational") return { lo: b.value, hi: b.value };
-  let cur = refined.get(b) ?? { lo: b.lo, hi: b.hi };
-  const width = rat(1n, 1n << BigInt(Math.max(0, Math.ceil(bits))));
+  const k = Math.max(0, Math.ceil(bits));
+  let levels = refined.get(b);
+  if (!levels) refined.set(b, (levels = new Map()));
+  const known = levels.get(k);
+  if (known) return known;
+  let cur = { lo: b.lo, hi: b.hi };
+  let from = -1;
+  for (const [j, interval] of levels) if (j < k && j > from) [from, cur] = [j, interval];
+  const width = rat(1n, 1n << BigInt(k));
   const sLo = signAt(b.poly, b.lo);
   while (cmp(sub(cur.hi, cur.lo), width) > 0) {
     const mid = midpoint(cur.lo, cur.hi);
@@ -88,7 +102,7 @@ export function enclose(b: Bound, bits: number): { lo: Rational; hi: Rational } 
     if (s === 0) return { lo: mid, hi: mid }; // a rational root inside the isolating interval is b itself
     cur = s === sLo ? { lo: mid, hi: cur.hi } : { lo: cur.lo, hi: mid };
   }
-  refined.set(b, cur);
+  levels.set(k, cur);
   return cur;
 }
 

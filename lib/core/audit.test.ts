@@ -402,3 +402,21 @@ describe("bound parsing stays bounded in time", () => {
     expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: edges("0 1"), op: "<", bound: "2cos(pi/1001)" }))).toThrow(/q <= 300/);
   });
 });
+
+describe("shared bounds stay cheap", () => {
+  // Parsed bounds are cached and shared by every claim that writes the same text. An enclosure asked
+  // for at 60 bits must not come back as a much finer one computed for an earlier claim: before this
+  // was fixed, T(2,2,500) < sqrt(2+sqrt(5)) took ~1 s alone but 40-60 s after a first such claim.
+  it("a coarse enclosure is the same whether or not a finer one was computed before", () => {
+    const shared = parseBound("sqrt(2+sqrt(5))");
+    expect(shared.kind).toBe("algebraic");
+    const fresh = { ...shared }; // same number, no cached refinements
+    enclose(shared, 1000);
+    const after = enclose(shared, 60);
+    const alone = enclose(fresh, 60);
+    expect(after.lo).toEqual(alone.lo);
+    expect(after.hi).toEqual(alone.hi);
+    // The enclosure of width 2^-60 has a dyadic denominator of about 2^60, not 2^1000.
+    expect(after.hi.den.toString(2).length).toBeLessThan(80);
+  });
+});

@@ -34,16 +34,36 @@ export interface AuditEntry {
   actorName: string | null;
   /** "step 2.1", "case 3.2" … when the subject is a step or case of the proof, else "step #12". */
   subjectLabel: string;
+  /** The case the event is about (through its step, revision, claim, review or comment), or null for the whole proof. */
+  caseId: number | null;
   at: string;
 }
 
 /** Numbers of the proof's cases ("3.2") and steps ("3.2.1"), for readable subjects. */
-async function labels(proofId: number): Promise<{ cases: Map<number, string>; steps: Map<number, string> }> {
+async function labels(proofId: number): Promise<{ cases: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
   const { Case, Step } = models();
   const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
   const cases = new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
-  return { cases, steps: new Map(steps.map((st) => [st.id, `${cases.get(st.caseId) ?? "?"}.${st.position}`])) };
+  return { cases, steps: new Map(steps.map((st) => [st.id, `${cases.get(st.caseId) ?? "?"}.${st.position}`])), caseOfStep: new Map(steps.map((st) => [st.id, st.caseId])) };
+}
+
+/** The step of each revision, claim, review and comment named by these events, so that every event finds its case. */
+async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subjectId: number | null }>): Promise<Map<string, number>> {
+  const { StepRevision, Claim, Review, Comment } = models();
+  const ids = (type: string) => [...new Set(events.filter((e) => e.subjectType === type && e.subjectId !== null).map((e) => e.subjectId!))];
+  const sources = [["revision", StepRevision], ["claim", Claim], ["review", Review], ["comment", Comment]] as const;
+  const found = new Map<string, number>();
+  await Promise.all(
+    sources.map(async ([type, model]) => {
+      const wanted = ids(type);
+      if (wanted.length === 0) return;
+      // Claims are read unscoped: a withdrawn claim's events still belong to its case.
+      const rows = await (model as typeof Review).unscoped().findAll({ where: { id: wanted }, attributes: ["id", "stepId"] });
+      for (const r of rows) found.set(`${type}:${r.id}`, r.stepId);
+    }),
+  );
+  return found;
 }
 
 /**
@@ -54,7 +74,14 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
   const { AuditEvent, User } = models();
   const events = await AuditEvent.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
-  const { cases, steps } = await labels(proofId);
+  const [{ cases, steps, caseOfStep }, stepOf] = await Promise.all([labels(proofId), stepsOfSubjects(events)]);
+  const caseOf = (type: string, id: number | null): number | null => {
+    if (id === null) return null;
+    if (type === "case") return id;
+    if (type === "step") return caseOfStep.get(id) ?? null;
+    const stepId = stepOf.get(`${type}:${id}`);
+    return stepId === undefined ? null : (caseOfStep.get(stepId) ?? null);
+  };
   const labelOf = (type: string, id: number | null) =>
     id === null ? type : type === "step" && steps.has(id) ? `step ${steps.get(id)}` : type === "case" && cases.has(id) ? `case ${cases.get(id)}` : `${type} #${id}`;
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
@@ -66,6 +93,7 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
     detail: lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail,
     actorName: e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null),
     subjectLabel: labelOf(e.subjectType, e.subjectId),
+    caseId: caseOf(e.subjectType, e.subjectId),
     at: e.createdAt.toISOString(),
   }));
 }

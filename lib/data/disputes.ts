@@ -4,11 +4,12 @@ import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import type { DisputeState } from "@/models/review";
 import { conflict, forbidden, notFound } from "@/lib/errors";
-import { canMoveDispute, disputeRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
+import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
+import type { Actor } from "@/lib/access/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
-import { assertCanSeeStep, authorsOf, loadStep, stepLink, type StepRef } from "./reviews";
+import { authorsOf, loadStep, stepLink, type StepRef } from "./reviews";
 
 export interface DisputeRef {
   id: number;
@@ -25,12 +26,6 @@ export async function loadDispute(proofId: number, reviewId: number): Promise<Di
     throw notFound("This dispute");
   });
   return { id: review.id, reviewerId: review.reviewerId, state: review.disputeState, step };
-}
-
-export async function assertCanMoveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget): Promise<void> {
-  await assertCanSeeStep(d.step, actor.id);
-  const refusal = disputeRefusal(actor, d.reviewerId, to);
-  if (refusal) throw forbidden(refusal);
 }
 
 const verbOf: Record<DisputeTarget, string> = { answered: "answered", withdrawn: "withdrawn", upheld: "upheld" };

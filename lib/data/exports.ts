@@ -20,14 +20,7 @@ import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
 import type { ClaimStatus, DisputeState } from "@/lib/review/states";
 import { liveCases } from "./cases";
 import { recordEvent } from "./audit";
-import { visibleCaseIds } from "./reviews";
 
-export const WHOLE_PROOF_ONLY = "Exports hold the whole proof, and you were invited to review some of its cases only. Ask an editor to share the whole proof with you.";
-
-/** 403 for a reviewer limited to chosen cases: an export shows every case. */
-export async function assertSeesWholeProof(proofId: number, userId: number): Promise<void> {
-  if ((await visibleCaseIds(proofId, userId)) !== null) throw forbidden(WHOLE_PROOF_ONLY);
-}
 
 const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: string } | undefined>)[as]?.name ?? "";
 

@@ -23,18 +23,6 @@ import { notify } from "./notifications";
 export const INVITATION_DAYS = 14;
 export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
-/**
- * Editors and the proof's owner manage reviewers; on a blind proof only editors do, since managing them
- * shows their names and addresses to the owner, who is an author.
- */
-export async function assertCanManageReviewers(proofId: number, user: CurrentUser, role: ProofRole): Promise<void> {
-  if (role === "editor") return;
-  const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy", "blindReview"] });
-  if (proof?.blindReview && proof.createdBy === user.id) throw forbidden("This proof is refereed blind: only its editors manage the referees, so that their names stay hidden from the authors.");
-  if (proof?.createdBy === user.id) return;
-  throw forbidden("Only an editor or the proof's owner invites reviewers and changes review settings.");
-}
-
 async function caseNumbers(proofId: number): Promise<Map<number, string>> {
   const cases = await models().Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
   return new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));

@@ -4,9 +4,11 @@ import { models } from "@/models";
 import { refereeLens } from "./blind";
 import type { DisputeState } from "@/models/review";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
-import { canMoveDispute, disputeRefusal, verdictRefusal, type Actor, type DisputeTarget } from "@/lib/review/rules";
+import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
+import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";
 import { stepStatus, type StepStatus } from "@/lib/review/states";
-import { canSeeStep, claimStatuses, type StepRef } from "./reviews";
+import { claimStatuses, type StepRef } from "./reviews";
+import { canSeeStep } from "@/lib/access";
 import { claimsOf, digestOf } from "./revisions";
 
 export interface CommentNode {

@@ -7,15 +7,14 @@ import "server-only";
 import { Op, type Transaction } from "sequelize";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
-import { expandScope, verdictRefusal, type Actor } from "@/lib/review/rules";
+import { conflict, invalid, notFound } from "@/lib/errors";
+import type { Actor } from "@/lib/access/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib/review/revisions";
 import { claimsOf, digestOf, lockLatest } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
-import { getMembershipRole } from "./proofs";
-import { requireProofRole, type CurrentUser } from "@/lib/session";
+import { hiddenCaseIds } from "./cases";
 
 export interface StepRef {
   id: number;
@@ -25,12 +24,15 @@ export interface StepRef {
   authorIds: number[];
 }
 
-/** A step of this proof, or 404 (a step of another proof is "not found" here, and nothing changes). */
+/** A live step of this proof, or 404 (a step of another proof or under a deleted case is "not found" here, and nothing changes). */
 export async function loadStep(proofId: number, stepId: number, transaction?: Transaction): Promise<StepRef> {
   const { Step, Case, StepRevision } = models();
   const step = await Step.findByPk(stepId, { transaction });
   const c = step ? await Case.findByPk(step.caseId, { transaction }) : null;
-  if (!step || !c || c.proofId !== proofId || (c as { deletedAt?: Date | null }).deletedAt) throw notFound("This step");
+  if (!step || !c || c.proofId !== proofId) throw notFound("This step");
+  // A step under a deleted case, however high up, is gone (as GET says): no verdict, comment or dispute on it.
+  const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "deletedAt"], transaction });
+  if (hiddenCaseIds(cases).has(c.id)) throw notFound("This step");
   const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
   return {
     id: step.id,
@@ -39,47 +41,6 @@ export async function loadStep(proofId: number, stepId: number, transaction?: Tr
     latest: revisions[0] ? { id: revisions[0].id, number: revisions[0].number } : null,
     authorIds: textAuthors(revisions),
   };
-}
-
-/**
- * The case ids this person may see in a proof, or null for all of them. A reviewer invited to chosen
- * cases sees those cases and their sub-cases only, until an editor shares the whole proof. Pages and
- * handlers that list or show steps must filter by this.
- */
-export async function visibleCaseIds(proofId: number, userId: number): Promise<Set<number> | null> {
-  const { ReviewerScope, Case } = models();
-  if ((await getMembershipRole(proofId, userId)) !== "reviewer") return null;
-  const scopes = await ReviewerScope.findAll({ where: { proofId, userId }, attributes: ["caseId"] });
-  if (scopes.length === 0) return null;
-  const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId"] });
-  return expandScope(scopes.map((s) => s.caseId), cases);
-}
-
-export async function canSeeStep(step: StepRef, userId: number): Promise<boolean> {
-  const visible = await visibleCaseIds(step.proofId, userId);
-  return visible === null || visible.has(step.caseId);
-}
-
-/** 403 unless this person sees the step's case. */
-export async function assertCanSeeStep(step: StepRef, userId: number): Promise<void> {
-  if (!(await canSeeStep(step, userId))) throw forbidden("This step is in a case you were not asked to review.");
-}
-
-/**
- * The first checks of every step route and page: session (401), proof (404), membership (403), a step of
- * this proof (404), a case this person sees (403).
- */
-export async function requireStepAccess(proofId: number, stepId: number): Promise<{ user: CurrentUser; actor: Actor; step: StepRef }> {
-  const { user, role } = await requireProofRole(proofId);
-  const step = await loadStep(proofId, stepId);
-  await assertCanSeeStep(step, user.id);
-  return { user, actor: { id: user.id, role }, step };
-}
-
-/** 403 unless this person may give a verdict on this step. */
-export async function assertCanGiveVerdict(step: StepRef, actor: Actor): Promise<void> {
-  const refusal = verdictRefusal(actor, step.authorIds, await canSeeStep(step, actor.id));
-  if (refusal) throw forbidden(refusal);
 }
 
 export const authorsOf = async (proofId: number, transaction?: Transaction) =>

@@ -3,7 +3,7 @@
  * part of a report, how referees are named under blind review, who is late, and which reminders are due.
  * Read by the route handlers, the data layer, the editor's desk and the mail texts alike.
  */
-import type { ProofRole } from "./rules";
+import type { ProofRole } from "@/lib/access/rules";
 
 export const RECOMMENDATIONS = ["accept", "minor_revision", "major_revision", "reject"] as const;
 export type Recommendation = (typeof RECOMMENDATIONS)[number];

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 const id = z.number().int().positive();
 export const caseTitleSchema = z.string().trim().min(1, "Give the case a title.").max(300, "Keep the title under 300 characters.");

@@ -3,7 +3,7 @@
  * lib/core/claim-schema.ts, whose errors name the JSON path); the form has flat text fields, which
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
-import { z } from "zod";
+import { z } from "./zod";
 import { CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES, ENUMERATION_SETTINGS } from "@/lib/core/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 /** A comment on a step, a reply to one (parentId), or a post in a dispute's thread (reviewId). Markdown with math. */
 export const commentSchema = z.object({

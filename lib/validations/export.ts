@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 /** Making an export: certified (only when the proof is ready to certify) or draft. */
 export const createExportSchema = z.object({

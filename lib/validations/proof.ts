@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 export const proofTitleSchema = z.string().trim().min(1, "Give the proof a title.").max(300, "Keep the title under 300 characters.");
 export const proofStatementSchema = z

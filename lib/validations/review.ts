@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 import { NOTIFICATION_KINDS } from "@/models/notification";
 
 const id = z.number({ error: "Give the id as a number." }).int().positive();

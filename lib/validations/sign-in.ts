@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 export const signInSchema = z.object({
   email: z.string().trim().toLowerCase().email("Enter an e-mail address such as name@example.org."),

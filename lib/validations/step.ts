@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 export const stepBodySchema = z.string().max(200_000, "A step is limited to 200 000 characters; split it into several steps.");
 

@@ -49,7 +49,7 @@ async function waitForHealth(url: string, seconds: number): Promise<void> {
 }
 
 /** A throwaway database and a production build of the app, served on loopback. */
-async function startStack(): Promise<Stack> {
+export async function startStack(): Promise<Stack> {
   const dbPort = Number(process.env.CAIRN_BENCH_DB_PORT ?? 3337);
   const port = Number(process.env.CAIRN_BENCH_PORT ?? 3190);
   const name = `bench-${dbPort}`;
@@ -99,7 +99,7 @@ async function startStack(): Promise<Stack> {
 }
 
 /** Signs the demo author in through next-auth's credentials endpoint and returns the cookie header. */
-async function signIn(url: string): Promise<string> {
+export async function signIn(url: string): Promise<string> {
   const author = demoPeople.find((p) => p.key === "author")!;
   const csrf = await fetch(`${url}/api/auth/csrf`);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
@@ -116,7 +116,7 @@ async function signIn(url: string): Promise<string> {
   return all.join("; ");
 }
 
-async function api<T>(url: string, cookie: string, path: string, body: unknown): Promise<T> {
+export async function api<T>(url: string, cookie: string, path: string, body: unknown): Promise<T> {
   const res = await fetch(`${url}${path}`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify(body) });
   if (!res.ok) throw new Error(`POST ${path}: ${res.status} ${await res.text()}`);
   return (await res.json()) as T;

@@ -19,6 +19,7 @@ import { availableParallelism, cpus, totalmem } from "node:os";
 import { fileURLToPath } from "node:url";
 import { coreSection } from "./core-tasks";
 import { apiLoadSection } from "./api-load";
+import { overviewBytesSection } from "./overview-bytes";
 
 /** One timed job: `prepare` builds the input (untimed), `run` does the verification (timed). */
 export interface BenchTask {
@@ -49,7 +50,7 @@ export interface BenchOptions {
 }
 
 /** The sections of the benchmark, in print order. Add new sections here. */
-export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection];
+export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBytesSection];
 
 interface ChildReport {
   readonly timesMs: number[];

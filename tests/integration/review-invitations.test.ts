@@ -7,13 +7,13 @@ import { makeProof, waitForMail, dropProofs, type ReviewFixture } from "./review
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { authenticate } from "@/lib/data/users";
-import { visibleCaseIds } from "@/lib/data/reviews";
 import { hashToken } from "@/lib/data/invitations";
 import * as invitations from "@/app/api/proofs/[proofId]/invitations/route";
 import * as invitationRetry from "@/app/api/proofs/[proofId]/invitations/[invitationId]/route";
 import * as accept from "@/app/api/invitations/[token]/route";
 import * as scopes from "@/app/api/proofs/[proofId]/settings/scopes/[userId]/route";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
+import { visibleCaseIds } from "@/lib/access";
 
 let fx: ReviewFixture;
 let other: ReviewFixture;

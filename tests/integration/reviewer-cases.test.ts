@@ -7,7 +7,7 @@ import { actAs, jsonRequest, params } from "./helpers";
 import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { visibleCaseIds } from "@/lib/data/reviews";
+import { visibleCaseIds } from "@/lib/access";
 import { listProofEvents } from "@/lib/data/audit";
 import * as scopes from "@/app/api/proofs/[proofId]/settings/scopes/[userId]/route";
 

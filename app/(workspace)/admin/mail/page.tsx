@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
+import { forbidden } from "next/navigation";
 import { requireUser } from "@/lib/session";
 import { mailStorePath, readCapturedMail } from "@/lib/mail/store";
 import { LinkedText } from "@/components/ui/linked-text";
@@ -10,7 +10,7 @@ export const dynamic = "force-dynamic";
 /** Site admins only: every message the local mail fake captured, so the flow can be followed without a mail provider. */
 export default async function CapturedMailPage() {
   const user = await requireUser();
-  if (user.role !== "admin") notFound();
+  if (user.role !== "admin") forbidden(); // HTTP 403: the mail view is for site admins
   const messages = readCapturedMail();
   return (
     <main className="space-y-4">

@@ -7,6 +7,7 @@ import { listProofClaims } from "@/lib/data/claims";
 import { flattenCaseTree } from "@/lib/proof-tree";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { CaseTree } from "@/components/proof/case-tree";
+import { CaseTargets } from "@/components/proof/case-targets";
 import { AddCaseForm } from "@/components/proof/add-case-form";
 import { ClaimsTable } from "@/components/proof/claims-table";
 import { StateCounts } from "@/components/proof/state-counts";
@@ -16,23 +17,23 @@ import { RoleTag } from "@/components/ui/role-tag";
 import { VerdictCaution } from "@/components/ui/caution";
 import { ProofExportsCard } from "@/components/export/proof-exports-card";
 import { listExports } from "@/lib/data/exports";
-import { visibleCaseIds } from "@/lib/data/reviews";
+import { pageAccess } from "@/app/(workspace)/page-access";
+import { may, withinScope } from "@/lib/access";
 import { mayDoInRound } from "@/lib/review/rounds";
-import { pageRole } from "./page-access";
 
 export const metadata: Metadata = { title: "Proof" };
 
 export default async function ProofPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role, user } = await pageRole((await params).proofId);
   // A reviewer invited to chosen cases sees those cases only (and no whole-proof exports).
-  const visible = await visibleCaseIds(proofId, user.id);
+  const { proofId, standing, visible, user, role } = await pageAccess((await params).proofId);
   const [proof, overview, claims, deleted, exports] = await Promise.all([
-    getProofSummary(proofId, { id: user.id, role }), getProofOverview(proofId, visible), listProofClaims(proofId, visible), listDeletedCases(proofId),
-    visible === null ? listExports(proofId) : Promise.resolve(null),
+    getProofSummary(proofId, { id: user.id, role }), getProofOverview(proofId, visible), listProofClaims(proofId, visible),
+    listDeletedCases(proofId).then((rows) => withinScope(rows, (c) => c.id, visible)),
+    may(standing, "exports.read") ? listExports(proofId) : Promise.resolve(null),
   ]);
   if (!proof) notFound();
-  const editable = role === "author";
-  const targets = flattenCaseTree(overview.cases).map((c) => ({ id: c.id, number: c.number }));
+  const editable = may(standing, "cases.write");
+  const targets = editable ? flattenCaseTree(overview.cases).map((c) => ({ id: c.id, number: c.number })) : [];
   return (
     <main className="space-y-10">
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_16rem]">
@@ -42,7 +43,9 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
           {editable && <EditProof proofId={proofId} initial={{ title: proof.title, statement: proof.statement }} />}
           <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
           {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
-          <CaseTree nodes={overview.cases} options={{ proofId, editable, targets }} />
+          <CaseTargets targets={targets}>
+            <CaseTree nodes={overview.cases} options={{ proofId, editable }} />
+          </CaseTargets>
           {editable && <AddCaseForm proofId={proofId} parentId={null} />}
           <DeletedCases proofId={proofId} cases={deleted} editable={editable} />
         </section>

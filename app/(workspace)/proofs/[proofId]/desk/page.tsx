@@ -1,18 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
+import { forbidden, notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getDesk } from "@/lib/data/desk";
 import { mayDoInRound } from "@/lib/review/rounds";
 import { DeskView } from "@/components/rounds/desk-view";
-import { pageRole } from "../page-access";
+import { pageAccess } from "@/app/(workspace)/page-access";
 
 export const metadata: Metadata = { title: "Editor's desk" };
 
 /** The editor's desk: open disputes with their age, referees against their due dates, reports received, decisions. */
 export default async function DeskPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role, user } = await pageRole((await params).proofId);
-  if (!mayDoInRound(role, "read_desk")) notFound();
+  const { proofId, role, user } = await pageAccess((await params).proofId);
+  if (!mayDoInRound(role, "read_desk")) forbidden(); // HTTP 403: the desk is the editors'
   const [proof, desk] = await Promise.all([getProofSummary(proofId), getDesk(proofId, { id: user.id, role })]);
   if (!proof) notFound();
   return (

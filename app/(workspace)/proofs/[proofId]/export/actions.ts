@@ -1,6 +1,6 @@
 "use server";
 import { revalidatePath } from "next/cache";
-import { requireProofRole } from "@/lib/session";
+import { proofAccess } from "@/lib/access";
 import { AppError } from "@/lib/errors";
 import { createExport } from "@/lib/data/exports";
 import { createExportSchema } from "@/lib/validations/export";
@@ -13,7 +13,7 @@ export async function createExportAction(proofId: number, kind: unknown): Promis
   if (!parsed.success) return { ok: false, message: parsed.error.issues[0]?.message ?? "Choose certified or draft." };
   try {
     if (!Number.isInteger(proofId) || proofId <= 0) return { ok: false, message: "This proof was not found." };
-    const { user } = await requireProofRole(proofId, "author", "editor");
+    const { user } = await proofAccess(proofId, "exports.create");
     const made = await createExport(proofId, user, parsed.data.kind);
     revalidatePath(`/proofs/${proofId}/export`);
     return { ok: true, exportId: made.id, manifestDigest: made.manifestDigest };

@@ -2,22 +2,22 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
-import { getCertification, listExports, WHOLE_PROOF_ONLY } from "@/lib/data/exports";
-import { visibleCaseIds } from "@/lib/data/reviews";
+import { getCertification, listExports } from "@/lib/data/exports";
 import { pdflatexAvailable } from "@/lib/export/pdf";
 import { ExportActions } from "@/components/export/export-actions";
 import { ExportList } from "@/components/export/export-list";
 import { OfflineCheckHelp } from "@/components/export/offline-check-help";
 import { VerdictCaution } from "@/components/ui/caution";
+import { pageAccess } from "@/app/(workspace)/page-access";
+import { may } from "@/lib/access";
 import { ProofStateBadge } from "@/components/review/badges";
-import { pageRole } from "../page-access";
 
 export const metadata: Metadata = { title: "Export" };
 
 /** Certified or draft exports of a proof: make one, list past ones with their digests, download their files. */
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role, user } = await pageRole((await params).proofId);
-  if ((await visibleCaseIds(proofId, user.id)) !== null) return <main className="max-w-prose" role="alert">{WHOLE_PROOF_ONLY}</main>;
+  // A reviewer limited to chosen cases does not see whole-proof exports (403).
+  const { proofId, standing, user, role } = await pageAccess((await params).proofId, "exports.read");
   const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";
@@ -41,7 +41,7 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
             </ul>
           </div>
         )}
-        {role === "reviewer" ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} />}
+        {!may(standing, "exports.create") ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} />}
       </section>
       <VerdictCaution />
       <section className="space-y-3">

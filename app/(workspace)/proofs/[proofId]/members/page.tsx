@@ -1,10 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requireProofRole } from "@/lib/session";
-import { AppError } from "@/lib/errors";
 import { getProofSummary } from "@/lib/data/proofs";
-import { assertCanManageReviewers, listInvitations } from "@/lib/data/invitations";
+import { listInvitations } from "@/lib/data/invitations";
 import { getReadiness, getReviewerProgress } from "@/lib/data/review-queues";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { RoleTag } from "@/components/ui/role-tag";
@@ -15,19 +13,18 @@ import { ReadinessRollup } from "@/components/review/readiness-rollup";
 import { VerdictCaution } from "@/components/ui/caution";
 import { QueueTable } from "@/components/review/queue-table";
 import { ActionButton } from "@/components/review/action-button";
+import { pageAccess } from "@/app/(workspace)/page-access";
+import { may } from "@/lib/access";
 
 export const metadata: Metadata = { title: "Members and reviewers" };
 
 export default async function MembersPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const proofId = Number((await params).proofId);
-  if (!Number.isInteger(proofId) || proofId <= 0) notFound();
-  const access = await requireProofRole(proofId).catch((e) => (e instanceof AppError && (e.status === 403 || e.status === 404) ? null : Promise.reject(e)));
-  if (!access) notFound();
-  const manages = await assertCanManageReviewers(proofId, access.user, access.role).then(() => true, () => false);
+  const { proofId, standing, visible, user, role } = await pageAccess((await params).proofId);
+  const manages = may(standing, "reviewers.manage");
   if (manages) await deliverAfterCommit(); // messages whose retry is due go out now
   const [proof, readiness, progress, invitations] = await Promise.all([
-    getProofSummary(proofId, { id: access.user.id, role: access.role }),
-    getReadiness(proofId),
+    getProofSummary(proofId, { id: user.id, role }),
+    getReadiness(proofId, visible), // a reviewer of chosen cases sees the readiness of those cases only
     getReviewerProgress([proofId]),
     manages ? listInvitations(proofId) : Promise.resolve([]),
   ]);

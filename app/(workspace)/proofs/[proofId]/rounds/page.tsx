@@ -8,13 +8,13 @@ import { isFinalDecision, mayDoInRound } from "@/lib/review/rounds";
 import { RoundCard } from "@/components/rounds/round-card";
 import { ReportForm } from "@/components/rounds/report-form";
 import { DecisionForm, OpenRoundForm, ReviewPolicyForm } from "@/components/rounds/editor-forms";
-import { pageRole } from "../page-access";
+import { pageAccess } from "@/app/(workspace)/page-access";
 
 export const metadata: Metadata = { title: "Review rounds" };
 
 /** Every round of the proof as the viewer may see it; referees write their report here, editors open rounds and decide. */
 export default async function RoundsPage({ params }: { params: Promise<{ proofId: string }> }) {
-  const { proofId, role, user } = await pageRole((await params).proofId);
+  const { proofId, role, user } = await pageAccess((await params).proofId);
   const [proof, rounds, policy] = await Promise.all([
     getProofSummary(proofId),
     listRoundViews(proofId, { id: user.id, role }),

@@ -1,22 +1,20 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requireProofRole } from "@/lib/session";
-import { AppError } from "@/lib/errors";
+import { withinScope } from "@/lib/access";
 import { getProofSummary } from "@/lib/data/proofs";
 import { listProofEvents } from "@/lib/data/audit";
 import { refereeLens } from "@/lib/data/blind";
 import { AuditTimeline } from "@/components/review/audit-timeline";
+import { pageAccess } from "@/app/(workspace)/page-access";
 
 export const metadata: Metadata = { title: "Timeline" };
 
-/** The proof's audit trail: every recorded event, newest first. */
+/** The proof's audit trail, newest first: every event, or for a reviewer of chosen cases the events of those cases. */
 export default async function TimelinePage({ params }: { params: Promise<{ proofId: string }> }) {
-  const proofId = Number((await params).proofId);
-  if (!Number.isInteger(proofId) || proofId <= 0) notFound();
-  const access = await requireProofRole(proofId).catch((e) => (e instanceof AppError && (e.status === 403 || e.status === 404) ? null : Promise.reject(e)));
-  if (!access) notFound();
-  const [proof, events] = await Promise.all([getProofSummary(proofId, { id: access.user.id, role: access.role }), refereeLens(proofId, { id: access.user.id, role: access.role }).then((lens) => listProofEvents(proofId, 500, lens))]);
+  const { proofId, visible, user, role } = await pageAccess((await params).proofId, "timeline.read");
+  const [proof, all] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), refereeLens(proofId, { id: user.id, role }).then((lens) => listProofEvents(proofId, 500, lens))]);
+  const events = withinScope(all, (e) => e.caseId, visible);
   if (!proof) notFound();
   return (
     <main className="max-w-prose space-y-6">

@@ -1,34 +1,22 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors";
-import { requireStepAccess, visibleCaseIds } from "@/lib/data/reviews";
 import { describeStep } from "@/lib/data/review-panel";
 import { getReadiness } from "@/lib/data/review-queues";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { CaseStateBadge } from "@/components/proof/case-state-badge";
+import { stepPageAccess } from "@/app/(workspace)/page-access";
 
 export const metadata: Metadata = { title: "Review a step" };
 
 /** One step to review, reached from the queue: its latest revision and its review panel. */
 export default async function QueueStepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
   const p = await params;
-  const proofId = Number(p.proofId);
-  const stepId = Number(p.stepId);
-  if (!Number.isInteger(proofId) || proofId <= 0 || !Number.isInteger(stepId) || stepId <= 0) notFound();
-  const access = await (async () => {
-    try {
-      const { user, actor, step } = await requireStepAccess(proofId, stepId);
-      return { user, role: actor.role, step };
-    } catch (e) {
-      if (e instanceof AppError && (e.status === 403 || e.status === 404)) return null;
-      throw e;
-    }
-  })();
-  if (!access) notFound();
-  const [info, readiness] = await Promise.all([describeStep(access.step), getReadiness(proofId, await visibleCaseIds(proofId, access.user.id))]);
+  const { access: viewer, step } = await stepPageAccess(p.proofId, p.stepId);
+  const access = { user: viewer.user, role: viewer.role, step };
+  const [info, readiness] = await Promise.all([describeStep(step), getReadiness(viewer.proofId, viewer.visible)]);
+  const proofId = viewer.proofId;
   const caseState = readiness.cases.find((c) => c.id === access.step.caseId)?.state;
   return (
     <main className="max-w-prose space-y-4">
@@ -54,7 +42,7 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
       ) : (
         <p className="italic text-stone-500">This step has no revision yet.</p>
       )}
-      <StepReviewSlot proofId={proofId} stepId={stepId} revisionId={info.revision?.id ?? null} viewer={{ id: access.user.id, role: access.role }} />
+      <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={info.revision?.id ?? null} viewer={{ id: access.user.id, role: access.role }} />
       <VerdictCaution />
     </main>
   );

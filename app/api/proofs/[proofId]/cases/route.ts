@@ -1,9 +1,9 @@
 import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { getProofOverview } from "@/lib/data/cases";
-import { visibleCaseIds } from "@/lib/data/reviews";
 import { createCase } from "@/lib/data/case-edits";
 import { createCaseSchema } from "@/lib/validations/case";
+import { visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

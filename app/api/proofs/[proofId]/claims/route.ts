@@ -1,7 +1,7 @@
 import { idParam, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { listProofClaims } from "@/lib/data/claims";
-import { visibleCaseIds } from "@/lib/data/reviews";
+import { visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

@@ -1,7 +1,7 @@
 import { idParam, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { visibleCaseIds } from "@/lib/data/reviews";
 import { listProofDisputes } from "@/lib/data/review-queues";
+import { visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

@@ -1,7 +1,8 @@
 import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertSeesWholeProof, createExport, getCertification, listExports } from "@/lib/data/exports";
+import { createExport, getCertification, listExports } from "@/lib/data/exports";
 import { createExportSchema } from "@/lib/validations/export";
+import { assertSeesWholeProof } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

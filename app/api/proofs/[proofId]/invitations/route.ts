@@ -1,7 +1,8 @@
 import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanManageReviewers, createInvitation, listInvitations } from "@/lib/data/invitations";
+import { createInvitation, listInvitations } from "@/lib/data/invitations";
 import { invitationSchema } from "@/lib/validations/invitation";
+import { assertCanManageReviewers } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

@@ -1,9 +1,9 @@
 import { idParam, BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanManageReviewers } from "@/lib/data/invitations";
-import { setRequiredApprovals, visibleCaseIds } from "@/lib/data/reviews";
+import { setRequiredApprovals } from "@/lib/data/reviews";
 import { getReadiness } from "@/lib/data/review-queues";
 import { settingsSchema } from "@/lib/validations/review";
+import { assertCanManageReviewers, visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 

@@ -12,24 +12,20 @@ import { ClaimForm } from "@/components/claims/claim-form";
 import { ClaimFileForm } from "@/components/claims/claim-file-form";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
-import { orNotFound, pageRole } from "../../page-access";
-import { requireStepAccess } from "@/lib/data/reviews";
-import { AppError, notFound as notFoundError } from "@/lib/errors";
+import { orNotFound, stepPageAccess } from "@/app/(workspace)/page-access";
+import { may } from "@/lib/access";
 
 export const metadata: Metadata = { title: "Step" };
 
 export default async function StepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
   const p = await params;
-  const { proofId, user, role } = await pageRole(p.proofId);
-  const stepId = Number(p.stepId);
-  // A reviewer invited to chosen cases sees only their steps; for anyone else this is the same membership check.
-  await orNotFound(requireStepAccess(proofId, Number.isInteger(stepId) ? stepId : 0).catch((e) => {
-    throw e instanceof AppError && e.status === 403 ? notFoundError("This step") : e;
-  }));
-  const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, Number.isInteger(stepId) ? stepId : 0))]);
+  // A reviewer invited to chosen cases sees only their steps; a step under a deleted case is gone.
+  const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
+  const { proofId, user, role, standing } = access;
+  const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
   const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
   const verification = await verificationNotice(claims);
-  const isAuthor = role === "author";
+  const isAuthor = may(standing, "steps.write");
   return (
     <main>
       <nav className="text-sm text-stone-600">
@@ -52,7 +48,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       <div className="mt-8">
         <VerdictCaution />
       </div>
-      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={role !== "reviewer"} canWithdraw={isAuthor} />
+      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={may(standing, "claims.recheck")} canWithdraw={isAuthor} />
       {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
       {isAuthor && (
         <details className="mt-3">

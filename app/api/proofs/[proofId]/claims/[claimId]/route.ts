@@ -1,8 +1,8 @@
 import { route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { getClaim, withdrawClaim } from "@/lib/data/claims";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; claimId: string }> };
 

@@ -1,7 +1,8 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanMoveDispute, loadDispute, moveDispute } from "@/lib/data/disputes";
+import { loadDispute, moveDispute } from "@/lib/data/disputes";
 import { disputeMoveSchema } from "@/lib/validations/review";
+import { assertCanMoveDispute } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; reviewId: string }> };
 

@@ -4,7 +4,8 @@
  */
 import { idParam } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertSeesWholeProof, getExport, type ExportFull } from "@/lib/data/exports";
+import { getExport, type ExportFull } from "@/lib/data/exports";
+import { assertSeesWholeProof } from "@/lib/access";
 
 export type ExportContext = { params: Promise<{ proofId: string; exportId: string }> };
 

@@ -1,6 +1,7 @@
 import { idParam, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanManageReviewers, retryInvitationMail, revokeInvitation } from "@/lib/data/invitations";
+import { retryInvitationMail, revokeInvitation } from "@/lib/data/invitations";
+import { assertCanManageReviewers } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; invitationId: string }> };
 

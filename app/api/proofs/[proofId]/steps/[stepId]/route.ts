@@ -1,10 +1,10 @@
 import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { moveStepSchema } from "@/lib/validations/step";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { getStep, moveStep } from "@/lib/data/steps";
 import { listStepClaims } from "@/lib/data/claims";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

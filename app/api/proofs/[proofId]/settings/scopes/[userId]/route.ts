@@ -1,6 +1,7 @@
 import { idParam, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { assertCanManageReviewers, setReviewerCases, shareWholeProof } from "@/lib/data/invitations";
+import { setReviewerCases, shareWholeProof } from "@/lib/data/invitations";
+import { assertCanManageReviewers } from "@/lib/access";
 import { reviewerScopeSchema } from "@/lib/validations/membership";
 
 type Context = { params: Promise<{ proofId: string; userId: string }> };

@@ -1,11 +1,11 @@
 import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { attachClaims, awaitVerdicts, listStepClaims, listWithdrawnClaims, storeClaims } from "@/lib/data/claims";
 import { stepInProof } from "@/lib/data/steps";
 import { verificationNotice } from "@/lib/data/claim-jobs";
 import { attachClaimsSchema } from "@/lib/validations/claim";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

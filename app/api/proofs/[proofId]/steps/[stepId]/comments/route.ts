@@ -1,8 +1,9 @@
 import { readBody, route } from "@/lib/http";
-import { addComment, requireStepAccess } from "@/lib/data/reviews";
+import { addComment } from "@/lib/data/reviews";
 import { getStepReview } from "@/lib/data/review-panel";
 import { commentSchema } from "@/lib/validations/comment";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

@@ -1,9 +1,9 @@
 import { route, zodIssues } from "@/lib/http";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { diffRevisions } from "@/lib/data/steps";
 import { invalid } from "@/lib/errors";
 import { diffQuerySchema } from "@/lib/validations/step";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

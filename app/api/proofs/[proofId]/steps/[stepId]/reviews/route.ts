@@ -1,8 +1,9 @@
 import { readBody, route } from "@/lib/http";
-import { assertCanGiveVerdict, giveVerdict, requireStepAccess } from "@/lib/data/reviews";
+import { giveVerdict } from "@/lib/data/reviews";
 import { getStepReview } from "@/lib/data/review-panel";
 import { verdictSchema } from "@/lib/validations/review";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { assertCanGiveVerdict, requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

@@ -1,9 +1,9 @@
 import { readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { getStep, saveRevision } from "@/lib/data/steps";
 import { saveRevisionSchema } from "@/lib/validations/step";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 

@@ -1,7 +1,7 @@
 import { route } from "@/lib/http";
-import { requireStepAccess } from "@/lib/data/reviews";
 import { getRevision } from "@/lib/data/steps";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireStepAccess } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string; stepId: string; number: string }> };
 

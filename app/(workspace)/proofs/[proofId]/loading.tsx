@@ -1,3 +1,0 @@
-export default function Loading() {
-  return <p className="text-stone-500" aria-busy="true">Loading the proof…</p>;
-}

@@ -1,3 +1,0 @@
-export default function Loading() {
-  return <p className="text-stone-500">Loading…</p>;
-}
