@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { ProofRole } from "./proof-member";
+import type { ProofRole } from "../lib/access/rules";
 
 /**
  * A person removed from a proof. Their vouches, disputes, comments and reports stay in the record under

@@ -1,4 +1,4 @@
-import type { ProofRole } from "./proof-member";
+import type { ProofRole } from "../lib/access/rules";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 export type InvitationScope = "proof" | "cases";

@@ -8,8 +8,8 @@ import { z } from "@/lib/validations/zod";
 import { invitationSchema, type InvitationInput } from "@/lib/validations/invitation";
 
 type InviteFields = z.input<typeof invitationSchema>;
-import { send } from "./send";
-import type { ProofRole } from "@/models/proof-member";
+import { send } from "@/components/proof/api-client";
+import type { ProofRole } from "@/lib/access/rules";
 
 const ROLE_LABEL: Record<ProofRole, string> = { reviewer: "a reviewer", author: "a co-author", editor: "an editor" };
 

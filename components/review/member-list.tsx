@@ -3,7 +3,7 @@
  * ownership, share the whole proof with a case-limited referee. The permissions come from the page
  * (the access module); this only renders them.
  */
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { RoleTag } from "@/components/ui/role-tag";
 import { ActionButton } from "./action-button";
 

@@ -10,7 +10,7 @@ import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, notFound } from "@/lib/errors";
 import { mayOwn } from "@/lib/access/rules";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { recordEvent } from "./audit";
 import { ROLE_WORD } from "./invitations";
 
