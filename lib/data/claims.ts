@@ -5,7 +5,7 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
-import { checkInputs } from "@/lib/verification/worker-entry";
+import { checkInputs } from "@/lib/core/claim-inputs";
 import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
