@@ -4,7 +4,7 @@ import { authOptions } from "@/lib/auth";
 import { forbidden, notFound, unauthenticated } from "@/lib/errors";
 import { proofAndRole } from "@/lib/data/proofs";
 import { sessionIsCurrent } from "@/lib/data/users";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { GlobalRole } from "@/models/user";
 
 export interface CurrentUser {
