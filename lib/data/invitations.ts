@@ -210,7 +210,12 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
       for (const caseId of caseIds) await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
     await inv.update({ usedAt: new Date(), usedBy: userId }, { transaction });
     await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` }, transaction);
-    await notify([userId], { kind: "assigned", proofId: inv.proofId, message: "You are now a reviewer of this proof. Your queue lists the steps waiting for your verdict.", link: "/queue" }, transaction);
+    const title = (await models().Proof.findByPk(inv.proofId, { attributes: ["title"], transaction }))?.title ?? "";
+    await notify(
+      [userId],
+      { kind: "assigned", proofId: inv.proofId, message: `You are now a referee of “${title}”${inv.scope === "proof" ? "" : ` (${caseIds.length} chosen case${caseIds.length === 1 ? "" : "s"})`}. Your queue lists its steps waiting for your verdict.`, link: "/queue" },
+      transaction,
+    );
     return { proofId: inv.proofId, userId, accountCreated };
   });
   await deliverAfterCommit();
