@@ -1,4 +1,5 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, type CaseNode } from "@/lib/proof-tree";
 import {
@@ -34,9 +35,9 @@ export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number
 }
 
 /** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
-export async function liveCases(proofId: number) {
+export async function liveCases(proofId: number, transaction?: Transaction) {
   const { Case } = models();
-  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]] });
+  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction });
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }

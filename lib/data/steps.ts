@@ -48,12 +48,15 @@ function revisionView(r: RevisionRow): RevisionView {
   };
 }
 
-/** The step if it belongs to a live case of this proof; a 404 otherwise. */
-export async function stepInProof(proofId: number, stepId: number) {
+/**
+ * The step if it belongs to a live case of this proof (no deleted case above it, however high up),
+ * with its numbered case; a 404 otherwise. The one definition of "this step is in this proof".
+ */
+export async function stepInProof(proofId: number, stepId: number, transaction?: Transaction) {
   const { Step } = models();
-  const step = await Step.findByPk(stepId);
+  const step = await Step.findByPk(stepId, { transaction });
   if (!step) throw notFound("This step");
-  const cases = await liveCases(proofId);
+  const cases = await liveCases(proofId, transaction);
   const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).find(
     (c) => c.id === step.caseId,
   );

@@ -5,7 +5,7 @@
 import type { Bundle, ClaimItemData, ExportKind } from "@/lib/core/bundle";
 import { isUnresolved, type DisputeState } from "@/lib/review/states";
 import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
-import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-inputs";
+import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-display";
 
 export const CAUTION_MEANS =
   "A verified claim means that Cairn's checker redid the stated computation with exact arithmetic (integers, rationals, Sturm sequences; never floating point) on the stated input, and that the certificate stored with it re-checks independently, for example with the offline checker on this bundle.";
@@ -23,7 +23,7 @@ export interface DocClaim {
   /** The kind of the stored certificate in words, read from the certificate itself; null when there is none. */
   certificateKind: string | null;
   reason: string | null;
-  /** The inputs as entered (lib/core/claim-inputs.ts), with the vector a certificate carries. */
+  /** The inputs as entered (lib/core/claim-display.ts), with the vector a certificate carries. */
   inputs: ClaimInputsView;
   digest: string | null;
   /** SHA-256 of the bundle item that carries the claim and its certificate. */
