@@ -24,10 +24,11 @@ import { RoundReferee } from "./round-referee";
 import { RefereeReport } from "./referee-report";
 import { RoundDecision } from "./round-decision";
 import { RoundReminder } from "./round-reminder";
+import { FormerMember } from "./former-member";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -66,4 +67,4 @@ export function models() {
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember };

@@ -23,7 +23,8 @@ import { CERTIFICATE_SEPARATOR, certificateKindOf } from "./certificate-kind";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
-export type BundleItemType = "proof" | "case" | "step" | "claim";
+/** "round": one review round with its decision, as the authors may read it (referees as "Referee k" on a blind proof). */
+export type BundleItemType = "proof" | "case" | "step" | "claim" | "round";
 export type ExportKind = "certified" | "draft";
 
 export interface BundleItem {
