@@ -76,6 +76,9 @@ export function eventSentence(e: EventFacts): string {
     case "invitation.accepted": return `${who} accepted an invitation to referee.`;
     case "member.scope_changed": return withDetail(`${who} changed which cases a referee sees`);
     case "member.scope_shared": return withDetail(`${who} shared the whole proof with a referee`);
+    case "member.owner_changed": return withDetail(`${who} handed over the proof`);
+    case "member.left": return withDetail(`${who} left the proof`);
+    case "member.removed": return withDetail(`${who} removed a member`);
     case "settings.required_approvals": return withDetail(`${who} changed how many vouches a step needs`);
     case "settings.review_policy": return withDetail(`${who} changed the review policy`);
     case "round.opened": return withDetail(`${who} opened a round of refereeing`);

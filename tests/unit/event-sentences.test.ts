@@ -18,7 +18,9 @@ function recordedActions(): string[] {
   const found = new Set<string>();
   for (const file of sources(join(root, "lib", "data"))) {
     const text = readFileSync(file, "utf8");
-    for (const m of text.matchAll(/action: "([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
+    // Every dotted name on a line that sets an action, ternaries included ("member.left" : "member.removed").
+    for (const line of text.split("\n").filter((l) => /action: /.test(l)))
+      for (const m of line.matchAll(/"([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
     for (const m of text.matchAll(/audit\([^,]+, [^,]+, "([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
   }
   for (const to of ["answered", "withdrawn", "upheld"]) found.add(`dispute.${to}`);
