@@ -3,7 +3,7 @@ import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth";
 import { forbidden, notFound, unauthenticated } from "@/lib/errors";
 import { proofAndRole } from "@/lib/data/proofs";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { GlobalRole } from "@/models/user";
 
 export interface CurrentUser {

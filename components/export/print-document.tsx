@@ -1,4 +1,4 @@
-import type { ClaimStatus } from "@/models/claim";
+import type { ClaimStatus } from "@/lib/review/states";
 import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type ExportDocument } from "@/lib/export/document";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function AcceptInvitation({ token, email, signedIn }: { token: string; email: string; signedIn: boolean }) {
   const router = useRouter();

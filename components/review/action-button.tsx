@@ -2,7 +2,7 @@
 /** A button that calls one API route and refreshes the page (retry a mail, share the whole proof). */
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function ActionButton({ url, method = "POST", label, doneText }: { url: string; method?: string; label: string; doneText?: string }) {
   const router = useRouter();

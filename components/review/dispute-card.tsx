@@ -4,7 +4,7 @@ import { useState } from "react";
 import type { StepReviewView } from "@/lib/data/review-panel";
 import { DisputeStateBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 type Dispute = StepReviewView["disputes"][number];
 const when = (at: string) => new Date(at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });

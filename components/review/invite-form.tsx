@@ -8,7 +8,7 @@ import { z } from "@/lib/validations/zod";
 import { invitationSchema, type InvitationInput } from "@/lib/validations/invitation";
 
 type InviteFields = z.input<typeof invitationSchema>;
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function InviteForm({ proofId, cases }: { proofId: number; cases: Array<{ id: number; number: string; title: string }> }) {
   const router = useRouter();

@@ -9,6 +9,7 @@
  * standing on a proof they are not a member of: admin pages are their own (the mail view).
  */
 import type { DisputeTarget } from "@/lib/review/rules";
+import { casesBelow } from "@/lib/proof-tree";
 
 export type ProofRole = "author" | "reviewer" | "editor";
 
@@ -94,18 +95,7 @@ export function withinScope<T>(items: readonly T[], caseOf: (item: T) => number 
 
 /** Whole proof (null) or the given cases and everything below them. */
 export function expandScope(scopeCaseIds: readonly number[], cases: ReadonlyArray<{ id: number; parentId: number | null }>): Set<number> | null {
-  if (scopeCaseIds.length === 0) return null;
-  const visible = new Set(scopeCaseIds);
-  let grew = true;
-  while (grew) {
-    grew = false;
-    for (const c of cases)
-      if (c.parentId !== null && visible.has(c.parentId) && !visible.has(c.id)) {
-        visible.add(c.id);
-        grew = true;
-      }
-  }
-  return visible;
+  return scopeCaseIds.length === 0 ? null : casesBelow(scopeCaseIds, cases);
 }
 
 /** Why this person may not give a verdict on this step, or null when they may. */

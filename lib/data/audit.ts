@@ -17,7 +17,7 @@ export interface AuditInput {
   action: string;
   subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings" | "round" | "report";
   subjectId: number | null;
-  detail?: string;
+  detail?: string | null;
 }
 
 export async function recordEvent(e: AuditInput, transaction?: Transaction): Promise<void> {

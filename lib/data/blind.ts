@@ -6,7 +6,7 @@ import "server-only";
  */
 import { models } from "@/models";
 import { refereeDisplayName } from "@/lib/review/rounds";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { listReferees } from "./rounds";
 
 export interface NameLens {

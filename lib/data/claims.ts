@@ -5,15 +5,16 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
-import { checkInputs } from "@/lib/verification/worker-entry";
+import { checkInputs } from "@/lib/core/claim-inputs";
 import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
-import type { ClaimStatus } from "@/models/claim";
+import type { ClaimStatus } from "@/lib/review/states";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { recordEvent } from "@/lib/data/audit";
 import { lockLatest, recordVerdictInRevisions, reviseClaims, revisionClaimOf } from "@/lib/data/revisions";
 
 export { verificationSettled };
@@ -144,7 +145,7 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
@@ -161,7 +162,7 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         },
         { transaction },
       );
-      await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
+      await recordEvent({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, transaction);
       out.push({ id: row.id, row });
     }
     await reviseClaims(proofId, stepId, userId, transaction, latest, (set) => [...set, ...out.map((o) => revisionClaimOf(o.row))]);
@@ -198,11 +199,10 @@ export async function getClaim(proofId: number, claimId: number): Promise<ClaimV
  * the claim is `pending` until a worker stores the new verdict. A claim already pending is left as it is.
  */
 export async function recheck(proofId: number, claimId: number, userId: number): Promise<ClaimView> {
-  const { AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   if (row.status !== "pending") {
     await row.update({ status: "pending", verifyRound: row.verifyRound + 1 });
-    await AuditEvent.create({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
+    await recordEvent({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
     await scheduleVerification(claimId, row.verifyRound, userId);
   }
   return claimView(row);
@@ -214,7 +214,7 @@ export async function recheck(proofId: number, claimId: number, userId: number):
  * claim is not pending (its verdict is already in).
  */
 export async function cancelVerification(proofId: number, claimId: number, user: { id: number; name: string }): Promise<ClaimView> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   const row = await claimInProof(proofId, claimId);
   const cancelled = await getSequelize().transaction(async (transaction) => {
     await lockLatest(row.stepId, transaction);
@@ -223,7 +223,7 @@ export async function cancelVerification(proofId: number, claimId: number, user:
       { where: { id: claimId, status: "pending", verifyRound: row.verifyRound }, transaction },
     );
     if (changed !== 1) return false;
-    await AuditEvent.create({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, { transaction });
+    await recordEvent({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, transaction);
     // `undecided` is a verdict like any other for the step's revisions (a vouch waits for no pending claim).
     await recordVerdictInRevisions(claimId, user.id, transaction);
     return true;
@@ -241,14 +241,14 @@ export async function cancelVerification(proofId: number, claimId: number, user:
  * leave it out from now on. A claim already withdrawn is not found (404).
  */
 export async function withdrawClaim(proofId: number, claimId: number, userId: number): Promise<WithdrawnClaimView> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
     const latest = await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
     await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
-    await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
+    await recordEvent({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, transaction);
   });
   await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;

@@ -2,7 +2,7 @@ import "server-only";
 /** Disputes: moving one (answered / withdrawn / upheld) with its recorded transition, notifications and audit event. */
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
-import type { DisputeState } from "@/models/review";
+import type { DisputeState } from "@/lib/review/states";
 import { conflict, forbidden, notFound } from "@/lib/errors";
 import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
 import type { Actor } from "@/lib/access/rules";

@@ -12,7 +12,7 @@ import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
 import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 import { deliverAfterCommit, deliverMail, enqueueMail, retryMailNow } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { MailStatus } from "@/models/outgoing-mail";
 import type { CurrentUser } from "@/lib/session";
 import { newAccountSchema, type AcceptInvitationInput, type InvitationInput } from "@/lib/validations/invitation";

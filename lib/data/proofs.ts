@@ -2,7 +2,7 @@ import "server-only";
 import { QueryTypes } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { refereeLens } from "./blind";
 
 export interface ProofListItem {

@@ -14,7 +14,7 @@ import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib
 import { claimsOf, digestOf, lockLatest } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
-import { hiddenCaseIds } from "./cases";
+import { stepInProof } from "./steps";
 
 export interface StepRef {
   id: number;
@@ -26,13 +26,9 @@ export interface StepRef {
 
 /** A live step of this proof, or 404 (a step of another proof or under a deleted case is "not found" here, and nothing changes). */
 export async function loadStep(proofId: number, stepId: number, transaction?: Transaction): Promise<StepRef> {
-  const { Step, Case, StepRevision } = models();
-  const step = await Step.findByPk(stepId, { transaction });
-  const c = step ? await Case.findByPk(step.caseId, { transaction }) : null;
-  if (!step || !c || c.proofId !== proofId) throw notFound("This step");
+  const { StepRevision } = models();
   // A step under a deleted case, however high up, is gone (as GET says): no verdict, comment or dispute on it.
-  const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "deletedAt"], transaction });
-  if (hiddenCaseIds(cases).has(c.id)) throw notFound("This step");
+  const { step, node: c } = await stepInProof(proofId, stepId, transaction);
   const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
   return {
     id: step.id,

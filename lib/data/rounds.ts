@@ -15,7 +15,7 @@ import {
   isFinalDecision, mayDoInRound, recommendationLabel, refereeDisplayName, refereeStanding, reportAccess, roundRefusal,
   type Recommendation, type RefereeStanding, type RoundAction,
 } from "@/lib/review/rounds";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { ReviewRound } from "@/models/review-round";
 import type { RefereeReport } from "@/models/referee-report";
 import { parseDueDate, type DecisionInput, type ReportDraftInput, type ReviewPolicyInput } from "@/lib/validations/round";

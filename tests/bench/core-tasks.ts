@@ -42,11 +42,11 @@ function spectralRadiusTasks(): BenchTask[] {
     out.push(named(graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `tree-${n}`));
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
-  for (const n of [1_000, 100_000])
+  for (const n of [1_000, 100_000, 1_000_000])
     out.push(named(graphTask(`tree-${n}-inertia`, () => randomTreeWorkload(n), "full inertia of 2I − A", n === 1_000, (g) => {
       const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
       return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-    }), `tree-${n}`));
+    }, n === 1_000_000 ? 5000 : undefined), `tree-${n}`));
   return out;
 }
 
@@ -57,7 +57,7 @@ function sparseTasks(): BenchTask[] {
       ? [named(graphTask(`gnm3-${n}-inertia`, () => sparseGraphWorkload(n), "full inertia of 2I − A", n === 200, (g) => {
           const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
           return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-        }, n === 1_000 ? 5000 : undefined), `G(n,m) deg 3, n=${n}`)]
+        }, n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined), `G(n,m) deg 3, n=${n}`)]
       : []),
     named(graphTask(`gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, (g) => {
       const v = spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS));
@@ -89,19 +89,19 @@ function subgraphTasks(): BenchTask[] {
 }
 
 function charpolyTasks(): BenchTask[] {
-  return [20, 30, 40, 60].map((n) =>
+  return [20, 30, 40, 60, 100].map((n) =>
     named(graphTask(`gnp-${n}-charpoly`, () => halfDenseGraphWorkload(n), "characteristic polynomial", n <= 30, (g) => {
       const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
       const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
       return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
-    }), `G(n,1/2), n=${n}`));
+    }, n === 100 ? 60 : undefined), `G(n,1/2), n=${n}`));
 }
 
 /** Irrational bounds exactly at ρ: ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4). */
 function irrationalBoundTasks(): BenchTask[] {
   return [20, 50, 100].map((n) =>
     named(graphTask(`path-${n}-2cos`, () => pathWorkload(n), `ρ = 2cos(π/${n + 1}) (exact, irrational b)`, n === 20,
-      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status), `path P_${n}`));
+      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status, n === 100 ? 100 : undefined), `path P_${n}`));
 }
 
 function starlikeTasks(): BenchTask[] {

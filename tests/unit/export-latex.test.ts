@@ -64,7 +64,7 @@ describe("LaTeX escaping", () => {
     expect(inlineToLatex("**If $x_1$ then** *y* and `a_b`")).toBe(String.raw`\textbf{If $x_1$ then} \emph{y} and \texttt{a\_b}`);
     expect(markdownToLatex("- one\n- two")).toBe("\\begin{itemize}\n\\item one\n\\item two\n\\end{itemize}");
     // Line breaks inside math become spaces: a blank line in display math would not compile.
-    expect(markdownToLatex("$$\n\\rho < 2\n\n$$")).toBe("\\[ \\rho < 2  \\]");
+    expect(markdownToLatex("$$\n\\rho < 2\n\n$$")).toBe("\\[\\rho < 2 \\]");
   });
 
   it("LaTeX specials and injection attempts in titles and steps come out escaped", () => {
