@@ -25,10 +25,11 @@ import { RefereeReport } from "./referee-report";
 import { RoundDecision } from "./round-decision";
 import { RoundReminder } from "./round-reminder";
 import { StepFile } from "./step-file";
+import { FormerMember } from "./former-member";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, StepFile };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -68,4 +69,4 @@ export function models() {
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, StepFile };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };

@@ -1,5 +1,5 @@
 import type { ClaimStatus } from "@/lib/review/states";
-import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type ExportDocument } from "@/lib/export/document";
+import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocRound, type ExportDocument } from "@/lib/export/document";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { ExportKindBadge } from "./export-kind-badge";
@@ -45,6 +45,44 @@ function CaseSection({ c }: { c: DocCase }) {
   );
 }
 
+/** The review rounds and their decisions, as in the LaTeX source (referees as "Referee k" on a blind proof). */
+function RoundsSection({ rounds }: { rounds: DocRound[] }) {
+  if (rounds.length === 0) return null;
+  return (
+    <section className="mt-10" data-testid="print-rounds">
+      <h2 className="text-2xl font-semibold">Review rounds and decisions</h2>
+      {rounds.map((r) => (
+        <div key={r.number} className="mt-4">
+          <h3 className="text-xl font-semibold">Round {r.number}</h3>
+          <p className="text-sm text-stone-700">
+            opened {when(r.openedAt)}, due {when(r.dueAt)}
+            {r.closedAt ? `, closed ${when(r.closedAt)}` : ""}.
+          </p>
+          {r.decision ? (
+            <>
+              <p>
+                <strong>Decision: {recommendationWords(r.decision.decision)}</strong>, by {r.decision.editor}, {when(r.decision.decidedAt)}.
+              </p>
+              <MathMarkdown source={r.decision.letter} />
+            </>
+          ) : (
+            <p className="italic">No decision yet.</p>
+          )}
+          {r.reports.length > 0 && (
+            <ul className="list-disc pl-6 text-sm">
+              {r.reports.map((p) => (
+                <li key={p.referee}>
+                  {p.referee} (report version {p.version}): recommends {recommendationWords(p.recommendation)}.
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+      ))}
+    </section>
+  );
+}
+
 /** The exported document laid out for paper: the same content as the LaTeX source, from the same bundle. */
 export function PrintDocument({ doc }: { doc: ExportDocument }) {
   const draft = doc.kind === "draft";
@@ -71,6 +109,7 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
       <h2 className="mt-8 text-2xl font-semibold">Statement</h2>
       <MathMarkdown source={doc.statement} />
       {doc.cases.map((c) => <CaseSection key={c.number} c={c} />)}
+      <RoundsSection rounds={doc.rounds ?? []} />
       <section className="mt-10 break-before-page">
         <h2 className="text-2xl font-semibold">Appendix: reviewers and vouches</h2>
         <p className="text-sm">

@@ -22,7 +22,8 @@ import { claimLineFields, type CheckLine } from "./check-report";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
-export type BundleItemType = "proof" | "case" | "step" | "claim";
+/** "round": one review round with its decision, as the authors may read it (referees as "Referee k" on a blind proof). */
+export type BundleItemType = "proof" | "case" | "step" | "claim" | "round";
 export type ExportKind = "certified" | "draft";
 
 export interface BundleItem {

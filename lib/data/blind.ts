@@ -16,6 +16,11 @@ export interface NameLens {
   hides(userId: number): boolean;
 }
 
+/** Whether the proof is refereed blind (read per request: switching it on hides names at once). */
+export async function isBlind(proofId: number): Promise<boolean> {
+  return (await models().Proof.findByPk(proofId, { attributes: ["blindReview"] }))?.blindReview ?? false;
+}
+
 const open: NameLens = { name: (_id, name) => name, hides: () => false };
 
 export async function refereeLens(proofId: number, viewer: { id: number; role: ProofRole | null }): Promise<NameLens> {

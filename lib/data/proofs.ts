@@ -67,6 +67,8 @@ export interface ProofSummary {
   title: string;
   statement: string;
   requiredApprovals: number;
+  /** The member who owns the proof (its creator, until they hand it over). */
+  ownerId: number;
   createdAt: string;
   updatedAt: string;
   members: Array<{ userId: number; name: string; email: string; role: ProofRole }>;
@@ -88,6 +90,7 @@ export async function getProofSummary(proofId: number, viewer?: { id: number; ro
     title: p.title,
     statement: p.statement,
     requiredApprovals: p.requiredApprovals,
+    ownerId: p.createdBy,
     createdAt: p.createdAt.toISOString(),
     updatedAt: p.updatedAt.toISOString(),
     members: members.map((m) => {

@@ -79,6 +79,8 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
       }
     }
   }
+  // Rounds and decisions close the bundle: what the authors may read of them, never an editor-only note.
+  for (const r of p.rounds ?? []) items.push({ id: `round ${r.number}`, type: "round", data: r });
   const { state } = certificationOf(p);
   return sealBundle({ kind: meta.kind, exportedAt: meta.exportedAt, exportedBy: meta.exportedBy, proofState: state, checkerVersion: CHECKER_VERSION }, items);
 }

@@ -4,6 +4,7 @@
  */
 import type { Bundle, ClaimItemData, ExportKind } from "@/lib/core/bundle";
 import { isUnresolved, type DisputeState } from "@/lib/review/states";
+import type { SnapshotRound } from "./snapshot";
 
 export const CAUTION_MEANS =
   "A verified claim means that Cairn's checker redid the stated computation with exact arithmetic (integers, rationals, Sturm sequences; never floating point) on the stated input, and that the certificate stored with it re-checks independently, for example with the offline checker on this bundle.";
@@ -41,6 +42,12 @@ export interface DocCase {
   steps: DocStep[];
 }
 
+/** A round in the document is the round as the snapshot read it (what the authors may see). */
+export type DocRound = SnapshotRound;
+
+/** "minor_revision" → "minor revision". */
+export const recommendationWords = (r: string | null) => (r ? r.replace(/_/g, " ") : "no recommendation");
+
 export interface ExportDocument {
   kind: ExportKind;
   title: string;
@@ -53,6 +60,8 @@ export interface ExportDocument {
   requiredApprovals: number;
   members: Array<{ name: string; role: string }>;
   cases: DocCase[];
+  /** Review rounds and their decisions, oldest first. */
+  rounds: DocRound[];
 }
 
 interface StepData {
@@ -83,9 +92,12 @@ export function documentOf(bundle: Bundle): ExportDocument {
     | { title: string; statement: string; requiredApprovals: number; members: Array<{ name: string; role: string }> }
     | undefined;
   const cases: DocCase[] = [];
+  const rounds: DocRound[] = [];
   const steps = new Map<string, DocStep>();
   for (const item of bundle.items) {
-    if (item.type === "case") {
+    if (item.type === "round") {
+      rounds.push(item.data as DocRound);
+    } else if (item.type === "case") {
       const d = item.data as { number: string; title: string; condition: string; state: string };
       cases.push({ number: d.number, depth: d.number.split(".").length - 1, title: d.title, condition: d.condition, state: d.state, steps: [] });
     } else if (item.type === "step") {
@@ -126,5 +138,6 @@ export function documentOf(bundle: Bundle): ExportDocument {
     requiredApprovals: proof?.requiredApprovals ?? 1,
     members: proof?.members ?? [],
     cases,
+    rounds,
   };
 }

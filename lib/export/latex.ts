@@ -4,7 +4,7 @@
  * string goes through latex-escape.ts or markdown-latex.ts; a draft carries "DRAFT" in the header of
  * every page (the plain page style is redefined too, so no page escapes it).
  */
-import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type DocClaim, type DocStep, type ExportDocument } from "./document";
+import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocClaim, type DocRound, type DocStep, type ExportDocument } from "./document";
 import { escapeLine, escapeText } from "./latex-escape";
 import { markdownToLatex } from "./markdown-latex";
 
@@ -51,6 +51,25 @@ function caseTex(c: DocCase): string {
     `\\noindent{\\small Case state: ${escapeLine(c.state)}.}`,
     ...c.steps.map((s) => stepTex(s, c.number)),
   ].join("\n\n");
+}
+
+function roundTex(r: DocRound): string {
+  const when = `opened ${escapeLine(formatUtc(r.openedAt))}, due ${escapeLine(formatUtc(r.dueAt))}${r.closedAt ? `, closed ${escapeLine(formatUtc(r.closedAt))}` : ""}`;
+  const decision = r.decision
+    ? `\\noindent\\textbf{Decision: ${escapeLine(recommendationWords(r.decision.decision))}}, by ${escapeLine(r.decision.editor)}, ${escapeLine(formatUtc(r.decision.decidedAt))}.\\par\n\\noindent\\textit{Letter to the authors.} ${markdownToLatex(r.decision.letter)}`
+    : "\\noindent\\textit{No decision yet.}";
+  const reports = r.reports.length
+    ? `\n\n\\begin{itemize}\n${r.reports.map((p) => `\\item ${escapeLine(p.referee)} (report version ${p.version}${p.submittedAt ? `, ${escapeLine(formatUtc(p.submittedAt))}` : ""}): recommends ${escapeLine(recommendationWords(p.recommendation))}.`).join("\n")}\n\\end{itemize}`
+    : r.decision && !r.decision.reportsAttached
+      ? "\n\n\\noindent{\\small The referees' reports were not attached to this decision.}"
+      : "";
+  return `\\subsection*{Round ${r.number}}\n\\noindent{\\small ${when}.}\\par\n${decision}${reports}`;
+}
+
+/** The review rounds with their decisions; referees as the authors see them ("Referee k" on a blind proof). */
+function roundsTex(doc: ExportDocument): string {
+  if (doc.rounds.length === 0) return "";
+  return ["\\section*{Review rounds and decisions}", ...doc.rounds.map(roundTex)].join("\n\n");
 }
 
 function appendixTex(doc: ExportDocument): string {
@@ -120,6 +139,8 @@ To re-check this document's computations offline, run Cairn's checker on the bun
 ${markdownToLatex(doc.statement)}
 
 ${doc.cases.map(caseTex).join("\n\n")}
+
+${roundsTex(doc)}
 
 ${appendixTex(doc)}
 
