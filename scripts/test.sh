@@ -54,7 +54,7 @@ export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-test-secret-$(head -c 12 /dev/urandom
 # CAIRN_TEST_SKIP_BUILD=1 (local iteration on unit or integration tests only) reuses the last build.
 if [ -z "${CAIRN_TEST_SKIP_BUILD:-}" ]; then
   say "building the app for the browser tests"
-  node_modules/.bin/next build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
+  npm run -s build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
 fi
 
 say "vitest: unit, integration, browser"

@@ -4,6 +4,7 @@ import { getProofSummary } from "@/lib/data/proofs";
 import { getStep } from "@/lib/data/steps";
 import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
 import { verificationNotice } from "@/lib/data/claim-jobs";
+import { proofReferences } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepEditor } from "@/components/editor/step-editor";
 import { RevisionHistory } from "@/components/editor/revision-history";
@@ -26,6 +27,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
   const verification = await verificationNotice(claims);
   const isAuthor = may(standing, "steps.write");
+  const references = isAuthor ? await proofReferences(proofId) : [];
   return (
     <main>
       <nav className="text-sm text-stone-600">
@@ -44,7 +46,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
         </p>
       )}
       {step.latest && <MathMarkdown source={step.latest.body} className="mt-3 max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
-      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} />}
+      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} references={references} />}
       <div className="mt-8">
         <VerdictCaution />
       </div>
