@@ -15,6 +15,9 @@ import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { orNotFound, stepPageAccess } from "@/app/(workspace)/page-access";
 import { may } from "@/lib/access";
+import { listStepFiles } from "@/lib/data/files";
+import { FileList } from "@/components/files/file-list";
+import { FileUpload } from "@/components/files/file-upload";
 
 export const metadata: Metadata = { title: "Step" };
 
@@ -24,7 +27,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
   const { proofId, user, role, standing } = access;
   const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
-  const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
+  const [claims, withdrawn, files] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id), listStepFiles(proofId, step.id)]);
   const verification = await verificationNotice(claims);
   const isAuthor = may(standing, "steps.write");
   const references = isAuthor ? await proofReferences(proofId) : [];
@@ -58,6 +61,8 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
           <ClaimFileForm proofId={proofId} stepId={step.id} />
         </details>
       )}
+      <FileList proofId={proofId} stepId={step.id} initial={files} />
+      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
       <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
       <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
     </main>
