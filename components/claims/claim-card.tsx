@@ -100,6 +100,10 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
         </p>
       )}
       {claim.picture && (
+        <details className="mt-3" data-testid="claim-pictures">
+          <summary className="cursor-pointer text-sm text-lichen-700">
+            Pictures ({claim.picture.pictures.length} graph{claim.picture.pictures.length === 1 ? "" : "s"}{first?.spectrum ? " and the spectrum" : ""}; drawn in floating point, not part of the verdict)
+          </summary>
         <div className="mt-3 grid gap-3 md:grid-cols-2">
           {claim.picture.pictures.map((p, i) => (
             <GraphPicture key={i} picture={p} />
@@ -111,6 +115,7 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
           )}
           {claim.picture.note && <p className="text-sm text-stone-500">{claim.picture.note}</p>}
         </div>
+        </details>
       )}
     </li>
   );

@@ -17,7 +17,7 @@ export function ClaimList(props: { proofId: number; stepId: number; initial: Ste
   const claims = data?.claims ?? [];
   const withdrawn = data?.withdrawn ?? [];
   return (
-    <section aria-labelledby="claims-heading" className="mt-8">
+    <section aria-labelledby="claims-heading" className="mt-8" data-testid="claim-list">
       <h2 id="claims-heading" className="text-xl font-semibold">
         Claims <span className="font-mono text-sm text-stone-500">({claims.length})</span>
       </h2>

@@ -4,13 +4,16 @@
  * creates an account and disputes the step → the author is notified, revises the step in the step editor and
  * marks the dispute answered → the referee withdraws it and vouches for the new revision → case 3.2 is settled.
  */
-import { readFileSync, existsSync } from "node:fs";
+import { readFileSync, existsSync, mkdirSync } from "node:fs";
+import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
+/** Screenshots kept as test artefacts (git-ignored). */
+const SHOTS = join(process.cwd(), "test-results", "review");
 let browser: Browser;
 let usedLink = "";
 
@@ -80,6 +83,15 @@ describe("review workflow in the browser", () => {
     await reviewer.waitForURL(/\/queue\/\d+\/\d+$/);
     const stepPath = new URL(reviewer.url()).pathname;
     const stepId = Number(stepPath.split("/")[3]);
+    // Reader first: at 1280×800 the argument, its claims and the review panel are all on the first screen.
+    await reviewer.setViewportSize({ width: 1280, height: 800 });
+    for (const id of ["step-body", "claim-list", "step-review"]) {
+      const box = await reviewer.getByTestId(id).boundingBox();
+      expect(box, id).not.toBeNull();
+      expect(box!.y, `${id} starts on the first screen`).toBeLessThan(800);
+    }
+    mkdirSync(SHOTS, { recursive: true });
+    await reviewer.screenshot({ path: join(SHOTS, "step-as-referee-1280.png") });
     await reviewer.getByRole("button", { name: "I raise a dispute…" }).click();
     const disputeForm = reviewer.getByTestId("dispute-form");
     await disputeForm.getByLabel(/What is wrong/).fill("Monotonicity in $c$ needs an argument: why is $\\rho(T(2,2,c))$ increasing?");
@@ -97,6 +109,7 @@ describe("review workflow in the browser", () => {
     expect(await notice.first().getAttribute("data-read")).toBe("false");
     expect((await mailTo("ada.quenby@tarnhollow.example")).subject).toContain("dispute");
     await author.goto(`${baseUrl}/proofs/${proofId}/steps/${stepId}`);
+    await author.getByTestId("step-edit").locator("summary").click();
     const editorBox = author.getByLabel("step text (Markdown with $…$ math)");
     await editorBox.waitFor();
     await editorBox.fill("Since $T(2,2,c) \\subsetneq T(2,2,c+1)$, Perron–Frobenius makes $\\rho\\big(T(2,2,c)\\big)$ strictly increasing in $c$; it converges to $\\sqrt{2+\\sqrt5}$.");
@@ -113,6 +126,13 @@ describe("review workflow in the browser", () => {
     await reviewer.getByTestId("queue-answered").getByRole("link", { name: "Step 3.2:1" }).click();
     await reviewer.waitForURL(`${baseUrl}${stepPath}`);
     await reviewer.getByText("revision 2 by Ada Quenby").waitFor();
+    // The referee compares revisions 1 and 2, typeset side by side with the changed words marked.
+    const compare = reviewer.getByTestId("revision-compare");
+    await compare.waitFor();
+    expect(await compare.getByTestId("compare-newer").locator("mark.word-added").count()).toBeGreaterThan(0);
+    expect(await compare.getByTestId("compare-newer").locator(".katex").count()).toBeGreaterThan(0);
+    await compare.scrollIntoViewIfNeeded();
+    await compare.screenshot({ path: join(SHOTS, "comparison-1280.png") });
     await reviewer.getByTestId("dispute").getByRole("button", { name: "Withdraw: I am satisfied" }).click();
     await reviewer.getByTestId("dispute").locator('[data-dispute-state="withdrawn"]').waitFor();
     await reviewer.getByRole("button", { name: "I vouch for revision 2" }).click();

@@ -64,7 +64,8 @@ describe("proof workspace in the browser", () => {
     expect(await page.locator("main .katex").count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator("main .katex-display").count()).toBeGreaterThanOrEqual(1);
 
-    // A new revision through the editor.
+    // A new revision through the editor, which opens on request (the page reads first).
+    await page.getByTestId("step-edit").locator("summary").click();
     const editor = page.getByLabel("step text (Markdown with $…$ math)");
     await editor.waitFor();
     await editor.fill("Since $K_{1,5} \\subseteq G$ and $\\rho$ is monotone under subgraphs,\n\n$$\n\\rho(G) \\ge \\sqrt{5}.\n$$");
@@ -87,6 +88,8 @@ describe("proof workspace in the browser", () => {
     await claim.locator('[data-verdict="verified"]').waitFor({ timeout: 60_000 });
     expect(await claim.textContent()).toContain("ρ(G) ≥ sqrt(5)");
     expect(await claim.textContent()).toContain("cairn-check/");
+    // Pictures are folded: the claim's inputs and verdict come first.
+    await claim.getByTestId("claim-pictures").locator("summary").click();
     const picture = claim.getByTestId("graph-picture");
     expect(await picture.locator("svg circle").count()).toBe(6);
     expect(await picture.locator("svg line").count()).toBe(5);
@@ -204,6 +207,7 @@ describe("proof workspace in the browser", () => {
     await first.goto(stepUrl);
     await second.goto(stepUrl);
     const label = "step text (Markdown with $…$ math)";
+    for (const tab of [first, second]) await tab.getByTestId("step-edit").locator("summary").click();
     await second.getByLabel(label).fill("Second tab: $\\lambda_1 = 2$.");
     await second.getByRole("button", { name: "Save as new revision" }).click();
     await second.getByText("Saved as revision 2.").waitFor();

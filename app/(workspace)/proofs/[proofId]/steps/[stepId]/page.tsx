@@ -48,12 +48,25 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
           revision {step.latest.number} by {step.latest.authorName}
         </p>
       )}
-      {step.latest && <MathMarkdown source={step.latest.body} className="mt-3 max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
-      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} references={references} />}
-      <div className="mt-8">
-        <VerdictCaution />
+      {/* Reader first: the argument and its claims, with the review beside them; the author's tools below. */}
+      <div className="mt-3 lg:grid lg:grid-cols-[minmax(0,1fr)_24rem] lg:gap-6">
+        <div className="min-w-0">
+          {step.latest && <MathMarkdown source={step.latest.body} className="max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
+          <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={may(standing, "claims.recheck")} canWithdraw={isAuthor} />
+          <div className="mt-4">
+            <VerdictCaution />
+          </div>
+        </div>
+        <div className="min-w-0 lg:sticky lg:top-4 lg:self-start">
+          <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
+        </div>
       </div>
-      <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={may(standing, "claims.recheck")} canWithdraw={isAuthor} />
+      {isAuthor && step.latest && (
+        <details className="mt-8" data-testid="step-edit">
+          <summary className="cursor-pointer font-semibold text-lichen-700">Edit the text (makes revision {step.latest.number + 1})</summary>
+          <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} references={references} />
+        </details>
+      )}
       {isAuthor && <ClaimForm proofId={proofId} stepId={step.id} />}
       {isAuthor && (
         <details className="mt-3">
@@ -63,7 +76,6 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       )}
       <FileList proofId={proofId} stepId={step.id} initial={files} />
       {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
-      <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
       <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
     </main>
   );
