@@ -86,6 +86,7 @@ describe("review workflow in the browser", () => {
     // Reader first: at 1280×800 the argument, its claims and the review panel are all on the first screen.
     await reviewer.setViewportSize({ width: 1280, height: 800 });
     for (const id of ["step-body", "claim-list", "step-review"]) {
+      await reviewer.getByTestId(id).waitFor();
       const box = await reviewer.getByTestId(id).boundingBox();
       expect(box, id).not.toBeNull();
       expect(box!.y, `${id} starts on the first screen`).toBeLessThan(800);
@@ -153,7 +154,7 @@ describe("review workflow in the browser", () => {
     await admin.goto(`${baseUrl}/admin/mail`);
     await admin.getByTestId("captured-message").filter({ hasText: email }).first().waitFor();
     for (const p of [editor, reviewer, author, admin]) await p.context().close();
-  });
+  }, 240_000); // a long flow across four people; a loaded 2-core machine needs the room
 
   it("refuses a used invitation link in the browser", async () => {
     expect(usedLink, "the flow above ran").not.toBe("");

@@ -89,7 +89,7 @@ describe("proof workspace in the browser", () => {
     expect(await claim.textContent()).toContain("ρ(G) ≥ sqrt(5)");
     expect(await claim.textContent()).toContain("cairn-check/");
     // Pictures are folded: the claim's inputs and verdict come first.
-    await claim.getByTestId("claim-pictures").locator("summary").click();
+    await claim.getByTestId("claim-pictures").locator(":scope > summary").click();
     const picture = claim.getByTestId("graph-picture");
     expect(await picture.locator("svg circle").count()).toBe(6);
     expect(await picture.locator("svg line").count()).toBe(5);
