@@ -85,14 +85,16 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
   const labelOf = (type: string, id: number | null) =>
     id === null ? type : type === "step" && steps.has(id) ? `step ${steps.get(id)}` : type === "case" && cases.has(id) ? `case ${cases.get(id)}` : `${type} #${id}`;
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  // A member event about a hidden referee names them "Referee k", without their user id.
+  const hiddenMember = (e: { subjectType: string; subjectId: number | null }) => lens !== undefined && e.subjectType === "member" && e.subjectId !== null && lens.hides(e.subjectId);
   return events.map((e) => ({
     id: Number(e.id),
     action: e.action,
     subjectType: e.subjectType,
-    subjectId: e.subjectId,
+    subjectId: hiddenMember(e) ? null : e.subjectId,
     detail: lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail,
     actorName: e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null),
-    subjectLabel: labelOf(e.subjectType, e.subjectId),
+    subjectLabel: hiddenMember(e) ? lens!.name(e.subjectId!, "") : labelOf(e.subjectType, e.subjectId),
     caseId: caseOf(e.subjectType, e.subjectId),
     at: e.createdAt.toISOString(),
   }));
