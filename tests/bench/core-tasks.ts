@@ -19,6 +19,7 @@ import { identifySmith } from "../../lib/core/identify";
 import { inertia, spectralRadiusBound } from "../../lib/core/inertia";
 import { rat } from "../../lib/core/rational";
 import { findSubgraph } from "../../lib/core/subgraph";
+import { perronApproximation } from "../../lib/core/perron";
 import { Budget } from "../../lib/core/verdict";
 
 /** A generous budget: the bench measures time, the default budget is the server's business. */
@@ -47,6 +48,23 @@ function spectralRadiusTasks(): BenchTask[] {
       const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
       return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
     }, n === 1_000_000 ? 5000 : undefined), `tree-${n}`));
+  // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
+  // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
+  for (const eps of [1e-12, -1e-12])
+    out.push({
+      id: `tree-100000-near-${eps > 0 ? "above" : "below"}`, workload: "tree-100000", quick: false, targetMs: 5000,
+      task: `ρ < √r, √r = ρ ${eps > 0 ? "+" : "−"} 1e-12 (irrational b)`,
+      prepare: () => {
+        const g = workloadGraph(randomTreeWorkload(100_000));
+        const rho = perronApproximation(g, 100_000, 1e-15).rho;
+        return { g, bound: `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})` };
+      },
+      run: (input) => {
+        const { g, bound } = input as { g: Graph; bound: string };
+        const v = spectralRadiusBound(g, "<", bound, new Budget(BENCH_STEPS));
+        return `${v.status} (${v.certificate?.kind ?? "-"})`;
+      },
+    });
   return out;
 }
 

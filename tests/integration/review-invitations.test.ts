@@ -110,7 +110,7 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     const { User } = models();
     const iris = await User.findOne({ where: { name: "Iris Penhallow" }, order: [["id", "DESC"]] });
     const { getServerSession } = await import("next-auth");
-    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member" }, expires: "2999-01-01" });
+    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
     const stepIn = fx.steps["2.1.1"];
     const stepOut = fx.steps["1.1"];
     const get = (stepId: number) => reviews.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId), stepId: String(stepId) }));

@@ -43,7 +43,7 @@ const NOTE_CELIA = `Between us: the bound in case 2 looks borrowed ${stamp}.`;
 const NOTE_GALE = `Editor only: I know the authors ${stamp}.`;
 
 async function actAsGale() {
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member" }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
 }
 
 const P = () => String(fx.proofId);
