@@ -57,7 +57,7 @@ let title = "";
 
 async function actAsUser(id: number) {
   const u = (await models().User.findByPk(id))!;
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member" }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion }, expires: "2999-01-01" });
 }
 
 type Get = (r: Request, c: { params: Promise<Record<string, string>> }) => Promise<Response>;
