@@ -40,6 +40,8 @@ if [ -z "${REDIS_URL:-}" ]; then
 else
   say "using the Redis in REDIS_URL; starting none"
 fi
+# Uploaded files of this run (the tests and their worker processes share them); removed with the run's folder.
+export CAIRN_STORAGE_DIR="${CAIRN_STORAGE_DIR:-$DATA/$TEST_DB/files}"
 export CAIRN_QUEUE_PREFIX="cairn-test-$TEST_DB_PORT-$(date +%s)"
 cleanup() { kill "$MAIL_PID" 2>/dev/null || true; if [ -n "$OWN_REDIS" ]; then redis_stop "$TEST_DB"; fi; db_stop "$TEST_DB"; rm -rf "${DATA:?}/$TEST_DB"; }
 trap cleanup EXIT

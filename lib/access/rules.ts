@@ -32,6 +32,7 @@ export type ProofAction =
   | "steps.write" // add, move and revise steps
   | "claims.write" // attach and withdraw claims
   | "claims.recheck"
+  | "files.upload" // upload graph lists, claims files and documents to a step (reading them: proof.read, in scope)
   | "verdict.give" // vouch for or dispute a step (lib/access/rules verdictRefusal adds the per-step rules)
   | "reviewers.manage" // invite, revoke, share the whole proof, required vouches
   | "exports.read" // list and download exports, the print view
@@ -60,6 +61,7 @@ export const ACCESS: Readonly<Record<ProofAction, Rule>> = {
   "cases.write": { roles: ["author"], refusal: "Only the proof's authors change its cases." },
   "steps.write": { roles: ["author"], refusal: "Only the proof's authors write steps." },
   "claims.write": { roles: ["author"], refusal: "Only the proof's authors attach or withdraw claims." },
+  "files.upload": { roles: ["author"], owner: true, refusal: "Only the proof's authors (and its owner) upload files to its steps." },
   "claims.recheck": { roles: ["author", "editor"], refusal: "Only an author or an editor re-checks a claim." },
   "verdict.give": { roles: ["reviewer"], refusal: "Only invited reviewers give verdicts on steps." },
   "reviewers.manage": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner invites reviewers and changes review settings." },

@@ -1,7 +1,7 @@
 import "server-only";
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, type CaseNode } from "@/lib/proof-tree";
+import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import {
   caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ProofState, type ReviewFact, type StepFacts,
 } from "@/lib/review/states";
@@ -149,4 +149,14 @@ export async function listDeletedCases(proofId: number): Promise<DeletedCaseView
   return Promise.all(
     deleted.map(async (c) => ({ id: c.id, title: c.title, deletedAt: c.deletedAt!.toISOString(), steps: await Step.count({ where: { caseId: [...casesBelow([c.id], all)] } }) })),
   );
+}
+
+/** The cases and steps a text of this proof may refer to, labelled as the pages print them (for the editor). */
+export async function proofReferences(proofId: number, limit = 300): Promise<Array<{ label: string; text: string }>> {
+  const out: Array<{ label: string; text: string }> = [];
+  for (const c of flattenCaseTree(await getCaseTree(proofId))) {
+    out.push({ label: `${c.number} ${c.title}`, text: `Case ${c.number}` });
+    c.steps.forEach((_s, i) => out.push({ label: stepLabel(c.number, i + 1), text: `Step ${stepLabel(c.number, i + 1)}` }));
+  }
+  return out.slice(0, limit);
 }

@@ -43,7 +43,7 @@ const events = async (proofId: number, action: string) => (await listProofEvents
 
 async function actAsUser(id: number) {
   const u = (await models().User.findByPk(id))!;
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member" }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion }, expires: "2999-01-01" });
 }
 
 async function newPerson(name: string): Promise<number> {
