@@ -9,6 +9,22 @@
  */
 export const stepLabel = (caseNumber: string, place: number): string => `${caseNumber}:${place}`;
 
+/**
+ * The label of every step, its place being its rank among its case's steps by position (then id), as the
+ * case tree, the step page and the claims table number them. Steps of unknown cases are left out.
+ */
+export function labelSteps(caseNumbers: ReadonlyMap<number, string>, steps: ReadonlyArray<{ id: number; caseId: number; position: number }>): Map<number, string> {
+  const byCase = new Map<number, Array<{ id: number; position: number }>>();
+  for (const s of steps) byCase.set(s.caseId, [...(byCase.get(s.caseId) ?? []), s]);
+  const out = new Map<number, string>();
+  for (const [caseId, list] of byCase) {
+    const number = caseNumbers.get(caseId);
+    if (number === undefined) continue;
+    [...list].sort((a, b) => a.position - b.position || a.id - b.id).forEach((s, i) => out.set(s.id, stepLabel(number, i + 1)));
+  }
+  return out;
+}
+
 /** Orders step labels as the proof reads: by case number part by part (a case before its sub-cases), then by place. */
 export function compareStepLabels(a: string, b: string): number {
   const parts = (label: string) => {

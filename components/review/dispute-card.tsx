@@ -31,7 +31,7 @@ export function DisputeCard({ dispute, proofId, commentsUrl, onChange }: { dispu
   };
 
   return (
-    <article className="rounded border border-stone-300 bg-stone-50 p-3" data-testid="dispute" data-dispute-id={dispute.id}>
+    <article id={`dispute-${dispute.id}`} className="scroll-mt-4 rounded border border-stone-300 bg-stone-50 p-3" data-testid="dispute" data-dispute-id={dispute.id}>
       <header className="flex flex-wrap items-center gap-2">
         <DisputeStateBadge state={dispute.state} />
         <span className="text-sm">

@@ -5,6 +5,8 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
+import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
+import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-display";
 import { checkInputs } from "@/lib/core/claim-inputs";
 import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
@@ -26,11 +28,16 @@ export interface ClaimView {
   kind: string;
   status: ClaimStatus;
   statement: string | null;
+  /** The method that decided (without the certificate words: those are `certificateKind`). */
   method: string | null;
+  /** The kind of the stored certificate in words, read from the certificate; null when none. */
+  certificateKind: string | null;
   reason: string | null;
   digest: string | null;
   /** The claim's inputs as JSON; graph texts longer than 4 000 characters are cut for display. */
   input: Record<string, unknown>;
+  /** The inputs as a reader sees them (lib/core/claim-display.ts): graphs as entered and as graph6, bound, vector, … */
+  inputs: ClaimInputsView;
   certificate: { summary: string; bytes: number; preview: string } | null;
   checkerVersion: string | null;
   /** The worker (host:pid) that stored the verdict. */
@@ -54,15 +61,25 @@ function cut(value: unknown): unknown {
   return value;
 }
 
-function certificateSummary(text: string): ClaimView["certificate"] {
+function certificateSummary(text: string, claimKind: string): ClaimView["certificate"] {
   let summary = "certificate";
   try {
-    const c = JSON.parse(text) as { outcome?: string; evidence?: { kind?: string } };
-    summary = `supports “${c.outcome}”${c.evidence?.kind ? `; evidence: ${c.evidence.kind}` : ""}`;
+    const c = JSON.parse(text) as { outcome?: string };
+    const kind = certificateKindOf(claimKind, c);
+    summary = `supports “${c.outcome}”${kind ? `; ${kind.words}` : ""}`;
   } catch {
     // stored by this server, always JSON; keep the generic summary otherwise
   }
   return { summary, bytes: text.length, preview: text.length > 1_500 ? `${text.slice(0, 1_500)}…` : text };
+}
+
+function certificateJson(text: string | null): unknown {
+  if (text === null) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
 }
 
 function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView {
@@ -74,11 +91,13 @@ function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView 
     kind: c.kind,
     status: c.status,
     statement: c.statement,
-    method: c.method,
+    method: c.method === null ? null : methodWithoutCertificate(c.method),
+    certificateKind: certificateKindOf(c.kind, certificateJson(c.certificate))?.words ?? null,
     reason: c.reason,
     digest: c.digest,
     input: cut(JSON.parse(c.input)) as Record<string, unknown>,
-    certificate: c.certificate ? certificateSummary(c.certificate) : null,
+    inputs: claimInputsView(c.input, certificateJson(c.certificate)),
+    certificate: c.certificate ? certificateSummary(c.certificate, c.kind) : null,
     checkerVersion: c.checkerVersion,
     decidedBy: c.decidedBy ?? null,
     progress: c.status === "pending" ? progress : null,
@@ -187,6 +206,12 @@ async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow>
     throw notFound("This claim");
   });
   return row;
+}
+
+/** The claim's input exactly as stored (cairn-claim/1 JSON text), with its step, for the download of a large input. */
+export async function getClaimInput(proofId: number, claimId: number): Promise<{ stepId: number; input: string }> {
+  const row = await claimInProof(proofId, claimId);
+  return { stepId: row.stepId, input: row.input };
 }
 
 export async function getClaim(proofId: number, claimId: number): Promise<ClaimView> {
@@ -299,6 +324,8 @@ export interface ClaimRowView {
   status: ClaimStatus;
   statement: string | null;
   method: string | null;
+  certificateKind: string | null;
+  inputs: ClaimInputsView;
   checkedAt: string | null;
 }
 
@@ -315,7 +342,7 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));
   const rows = await Claim.findAll({
     where: { stepId: { [Op.in]: steps.map((s) => s.id) } },
-    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt"],
+    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt", "input", "certificate"],
     order: [["id", "ASC"]],
   });
   const caseOf = new Map(steps.map((s) => [s.id, numbered.get(s.caseId)!]));
@@ -328,7 +355,9 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
     kind: r.kind,
     status: r.status,
     statement: r.statement,
-    method: r.method,
+    method: r.method === null ? null : methodWithoutCertificate(r.method),
+    certificateKind: certificateKindOf(r.kind, certificateJson(r.certificate))?.words ?? null,
+    inputs: claimInputsView(r.input, certificateJson(r.certificate)),
     checkedAt: r.checkedAt ? r.checkedAt.toISOString() : null,
   }));
 }

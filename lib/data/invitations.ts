@@ -235,11 +235,12 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
       for (const caseId of caseIds) await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
     await inv.update({ usedAt: new Date(), usedBy: userId }, { transaction });
     await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: inv.role === "reviewer" ? `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` : `joined as ${ROLE_WORD[inv.role as ProofRole]}` }, transaction);
+    const title = (await models().Proof.findByPk(inv.proofId, { attributes: ["title"], transaction }))?.title ?? "";
     await notify(
       [userId],
       inv.role === "reviewer"
-        ? { kind: "assigned", proofId: inv.proofId, message: "You are now a reviewer of this proof. Your queue lists the steps waiting for your verdict.", link: "/queue" }
-        : { kind: "assigned", proofId: inv.proofId, message: `You are now ${inv.role === "author" ? "a co-author" : "an editor"} of this proof.`, link: `/proofs/${inv.proofId}` },
+        ? { kind: "assigned", proofId: inv.proofId, message: `You are now a referee of “${title}”${inv.scope === "proof" ? "" : ` (${caseIds.length} chosen case${caseIds.length === 1 ? "" : "s"})`}. Your queue lists its steps waiting for your verdict.`, link: "/queue" }
+        : { kind: "assigned", proofId: inv.proofId, message: `You are now ${inv.role === "author" ? "a co-author" : "an editor"} of “${title}”.`, link: `/proofs/${inv.proofId}` },
       transaction,
     );
     return { proofId: inv.proofId, userId, accountCreated };

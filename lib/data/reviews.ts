@@ -11,7 +11,7 @@ import { conflict, invalid, notFound } from "@/lib/errors";
 import type { Actor } from "@/lib/access/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib/review/revisions";
-import { claimsOf, digestOf, lockLatest } from "./revisions";
+import { claimsOf, digestOf, lockLatest, stepPhrase } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 import { stepInProof } from "./steps";
@@ -101,7 +101,11 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
       await notify(
         (await authorsOf(step.proofId, transaction)).concat(step.authorIds).filter((id) => id !== actor.id),
-        { kind: "dispute_raised", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
+        {
+          kind: "dispute_raised", proofId: step.proofId, stepId: step.id,
+          message: `A referee raised a dispute on revision ${revision.number} of ${await stepPhrase(step.id, transaction)}, a step you are an author of.`,
+          link: `${stepLink(step.proofId, step.id)}#dispute-${review.id}`,
+        },
         transaction,
       );
     }

@@ -7,6 +7,8 @@
 import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocClaim, type DocRound, type DocStep, type ExportDocument } from "./document";
 import { escapeLine, escapeText } from "./latex-escape";
 import { markdownToLatex } from "./markdown-latex";
+import { claimInputsAppendixTex } from "./latex-inputs";
+import { stepLabel } from "@/lib/proof-tree";
 
 /** "2026-12-01T22:58:11.000Z" → "2026-12-01 22:58 UTC". */
 export function formatUtc(iso: string): string {
@@ -25,17 +27,18 @@ const SECTION = ["section", "subsection", "subsubsection", "paragraph"];
 
 function claimTex(c: DocClaim): string {
   const what = `${escapeLine(c.statement || "(no statement recorded)")}`;
-  const method = c.method ? `, by ${escapeLine(c.method)}` : "";
+  const method = c.method ? `, by ${escapeLine(c.method)}${c.certificateKind ? ` (certificate: ${escapeLine(c.certificateKind)})` : ""}` : "";
   const digest = c.digest ? `; claim digest ${digestTex(c.digest)}` : "";
   const reason = c.reason && c.status !== "verified" ? `: ${escapeLine(c.reason)}` : "";
   const label = { verified: "$\\checkmark$ Verified", refuted: "$\\times$ Refuted", undecided: "? Undecided" }[c.status] ?? "$\\circ$ Not checked yet";
   const cert = c.status === "verified" ? `; certificate in bundle item \\texttt{${escapeLine(c.id)}} (SHA-256 ${digestTex(c.itemDigest)})` : "";
-  return `\\item \\textbf{${label}:} ${what}${method}${reason}${cert}${digest}.`;
+  const inputs = c.inputs.short ? `; inputs ${escapeLine(c.inputs.short.length > 160 ? `${c.inputs.short.slice(0, 160)}…` : c.inputs.short)} (in full in the appendix of claim inputs)` : "";
+  return `\\item \\textbf{${label}:} ${what}${method}${reason}${cert}${digest}${inputs}.`;
 }
 
 function stepTex(s: DocStep, caseNumber: string): string {
   const rev = s.revision;
-  const head = `\\paragraph{Step ${escapeLine(caseNumber)}:${s.position}}` +
+  const head = `\\paragraph{Step ${escapeLine(stepLabel(caseNumber, s.position))}}` +
     (rev ? ` {\\small(revision ${rev.number}, by ${escapeLine(rev.authorName)}, ${escapeLine(formatUtc(rev.savedAt))})}` : " {\\small(no text saved)}");
   const body = rev ? markdownToLatex(rev.body) : "";
   const claims = s.claims.length ? `\n\n\\begin{itemize}\n${s.claims.map(claimTex).join("\n")}\n\\end{itemize}` : "";
@@ -76,8 +79,8 @@ function appendixTex(doc: ExportDocument): string {
   const rows = doc.cases.flatMap((c) =>
     c.steps.flatMap((s) =>
       s.vouches.length
-        ? s.vouches.map((a) => `${escapeLine(`${c.number}:${s.position}`)} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
-        : [`${escapeLine(`${c.number}:${s.position}`)} & \\textit{no vouch} & & \\\\`],
+        ? s.vouches.map((a) => `${escapeLine(stepLabel(c.number, s.position))} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
+        : [`${escapeLine(stepLabel(c.number, s.position))} & \\textit{no vouch} & & \\\\`],
     ),
   );
   const members = doc.members.map((m) => `${escapeLine(m.name)} (${escapeLine(m.role)})`).join(", ");
@@ -143,6 +146,8 @@ ${doc.cases.map(caseTex).join("\n\n")}
 ${roundsTex(doc)}
 
 ${appendixTex(doc)}
+
+${claimInputsAppendixTex(doc, stepLabel)}
 
 \\end{document}
 `;
