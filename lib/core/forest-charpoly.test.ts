@@ -138,6 +138,28 @@ describe("the tree elimination on unreduced fractions with double intervals (the
       }
     }), { numRuns: 400, seed: 1618 });
   });
+  it("values that outgrow 2^52 part-way (large denominators in b, long paths) switch from doubles to BigInt and still agree with reduced rationals", () => {
+    // Far-apart points and points close to ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4), where values shrink towards 0.
+    const points = [rat(2n ** 45n + 3n, 2n ** 44n), rat(1999999, 1000000), rat(-(2n ** 50n) + 1n, 2n ** 49n), rat(7, 3), rat(3n ** 30n, 3n ** 30n - 1n)];
+    const graphs = [path(120), path(57), disjointUnion(star(9), path(60))];
+    for (let seed = 1; seed <= 3; seed++) {
+      const edges = [];
+      let x = seed;
+      const next = () => (x = (Math.imul(1664525, x) + 1013904223) >>> 0);
+      for (let i = 1; i < 100; i++) edges.push({ u: Math.floor((next() * i) / 2 ** 32), v: i });
+      graphs.push(makeGraph(100, edges));
+    }
+    for (const g of graphs)
+      for (const b of points) {
+        const fast = treeInertia(g, b, "none", new Budget(1e10));
+        const slow = treeInertiaOver(g, RATIONALS, b, "none", new Budget(1e10), true);
+        expect([fast.positive, fast.negative, fast.zero]).toEqual([slow.positive, slow.negative, slow.zero]);
+        const f = treeInertia(g, b, "nonPositive", new Budget(1e10));
+        const sl = treeInertiaOver(g, RATIONALS, b, "nonPositive", new Budget(1e10), true);
+        expect([f.complete, f.stoppedAt, f.stopSign]).toEqual([sl.complete, sl.stoppedAt, sl.stopSign]);
+        if (!f.complete) expect(f.witnessValue).toEqual(sl.witnessValue); // reduced on the way out
+      }
+  });
   it("a 300-vertex random tree against √r within 10^-12 of ρ on either side: the verdicts agree with the elimination over Q(b)", () => {
     const edges = [];
     let x = 300; // the benchmark's LCG and random recursive tree (seed = n)
