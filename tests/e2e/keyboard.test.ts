@@ -98,8 +98,14 @@ describe("keyboard", () => {
     await page.getByTestId("step-review").waitFor();
     await page.waitForLoadState("networkidle");
     const stops = await tabStops(page);
-    expectReached(stops, [/^button: .*Menu$/, /^button: I vouch for revision \d+$/, /^button: I raise a dispute/, /^textarea: Comment on this step/, /^summary: The graph in words$/]);
+    expectReached(stops, [/^button: .*Menu$/, /^button: I vouch for revision \d+$/, /^button: I raise a dispute/, /^summary: Comments \(\d+\)$/, /^summary: The graph in words$/]);
     expect(await unnamedControls(page)).toEqual([]);
+    // The comments fold open with Enter on their summary, and the next Tab is in the comment box.
+    const comments = page.locator("summary", { hasText: /^Comments \(/ });
+    await comments.focus();
+    await page.keyboard.press("Enter");
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => (document.activeElement as HTMLTextAreaElement).labels?.[0]?.textContent?.trim())).toMatch(/^Comment on this step/);
     // Enter on the focused dispute button opens the dispute form, and its text box has a name.
     await page.getByRole("button", { name: /I raise a dispute/ }).focus();
     await page.keyboard.press("Enter");
