@@ -110,6 +110,11 @@ interface Finding { who: Who; viewport: string; page: string; status: number; sc
 
 const AXE_TAGS = ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"];
 
+/** The Markdown editor is loaded in the browser after the page (components/editor/math-editor.tsx): measure it loaded. */
+async function editorsLoaded(page: Page): Promise<void> {
+  await page.waitForFunction(() => [...document.querySelectorAll(".math-editor")].every((el) => el.querySelector(".w-md-editor-toolbar")), null, { timeout: 30_000 });
+}
+
 /** Refusals (403, 404) already fully measured for a person at a size: the same page again is only checked for width. */
 const refusalsSeen = new Set<string>();
 
@@ -123,6 +128,7 @@ async function inspect(page: Page, who: Who, viewport: Viewport, route: string, 
   const response = await page.goto(`${baseUrl}${path}`);
   const status = response?.status() ?? 0;
   await page.waitForLoadState("networkidle");
+  await editorsLoaded(page);
   const refusal = status === 403 || status === 404 ? `${who} ${viewport.name} ${status}` : null;
   const repeat = refusal !== null && refusalsSeen.has(refusal);
   if (refusal) refusalsSeen.add(refusal);
@@ -205,6 +211,7 @@ describe("every page at every size", () => {
               // The README's pictures: the step page with its claims and drawings, as much as one screen shows.
               await page.goto(`${baseUrl}${urlsOf("/proofs/[proofId]/steps/[stepId]")[1][1]}`);
               await page.waitForLoadState("networkidle");
+              await editorsLoaded(page);
               await page.screenshot({ path: join(SHOTS, viewport.name, "readme-step.png"), animations: "disabled", caret: "hide" });
             }
             await page.close();
