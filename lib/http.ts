@@ -101,41 +101,58 @@ export function zodIssues(error: { issues: ReadonlyArray<{ path: ReadonlyArray<P
  */
 export const BODY_LIMITS = { small: 64 * 1024, text: 2 * 1024 * 1024, claims: 16 * 1024 * 1024 } as const;
 
-const sizeName = (bytes: number) => (bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MiB` : `${Math.round(bytes / 1024)} KiB`);
+const sizeName = (bytes: number) =>
+  bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MiB` : bytes % 1024 === 0 || bytes > 100 * 1024 ? `${Math.round(bytes / 1024)} KiB` : `${bytes} bytes`;
 
 const tooLarge = (limit: number) =>
   new AppError("too_large", `The request body is larger than this request's limit of ${sizeName(limit)}; nothing was saved. Send less at once (for claims: fewer or smaller graphs per request).`);
 
-/** Reads the body as UTF-8 text, giving up (413) as soon as more than `limit` bytes have arrived. */
-async function readLimited(request: Request, limit: number): Promise<string> {
+/** Reads the body as bytes, giving up (with `tooBig`, a 413) as soon as more than `limit` bytes have arrived. */
+async function readLimitedBytes(request: Request, limit: number, tooBig: () => AppError): Promise<Uint8Array> {
   const declared = Number(request.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit);
-  if (!request.body) return "";
+  if (Number.isFinite(declared) && declared > limit) throw tooBig();
+  if (!request.body) return new Uint8Array();
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    let part: ReadableStreamReadResult<Uint8Array>;
+    try {
+      part = await reader.read();
+    } catch {
+      // The client went away mid-body (closed tab, lost connection): nothing has been written yet.
+      throw new AppError("bad_request", "The request was cut off before its end; nothing was saved. Send it again.");
+    }
+    const { done, value } = part;
     if (done) break;
     size += value.byteLength;
     if (size > limit) {
       await reader.cancel().catch(() => undefined);
-      throw tooLarge(limit);
+      throw tooBig();
     }
     chunks.push(value);
   }
-  const bytes = new Uint8Array(size);
-  let at = 0;
-  for (const c of chunks) {
-    bytes.set(c, at);
-    at += c.byteLength;
-  }
+  return Buffer.concat(chunks, size);
+}
+
+/** Reads the body as UTF-8 text, giving up (413) as soon as more than `limit` bytes have arrived. */
+async function readLimited(request: Request, limit: number): Promise<string> {
+  const bytes = await readLimitedBytes(request, limit, () => tooLarge(limit));
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
     throw invalid("The request body is not valid UTF-8 text.", [{ path: "body", message: "not UTF-8" }]);
   }
 }
+
+/** A file sent as the raw request body (uploads): 413 naming the limit past `limit` bytes (checked while reading). */
+export function readFileBody(request: Request, limit: number): Promise<Uint8Array> {
+  return readLimitedBytes(request, limit, () =>
+    new AppError("too_large", `The file is larger than the upload limit of ${sizeName(limit)}; nothing was saved. Compress a graph list with gzip, or split it into several files.`, undefined, { limitBytes: limit }),
+  );
+}
+
+export { sizeName };
 
 /**
  * Reads a JSON body and validates it: 415 unless it is sent as `application/json`, 413 past

@@ -9,6 +9,22 @@
  */
 export const stepLabel = (caseNumber: string, place: number): string => `${caseNumber}:${place}`;
 
+/**
+ * The label of every step, its place being its rank among its case's steps by position (then id), as the
+ * case tree, the step page and the claims table number them. Steps of unknown cases are left out.
+ */
+export function labelSteps(caseNumbers: ReadonlyMap<number, string>, steps: ReadonlyArray<{ id: number; caseId: number; position: number }>): Map<number, string> {
+  const byCase = new Map<number, Array<{ id: number; position: number }>>();
+  for (const s of steps) byCase.set(s.caseId, [...(byCase.get(s.caseId) ?? []), s]);
+  const out = new Map<number, string>();
+  for (const [caseId, list] of byCase) {
+    const number = caseNumbers.get(caseId);
+    if (number === undefined) continue;
+    [...list].sort((a, b) => a.position - b.position || a.id - b.id).forEach((s, i) => out.set(s.id, stepLabel(number, i + 1)));
+  }
+  return out;
+}
+
 /** Orders step labels as the proof reads: by case number part by part (a case before its sub-cases), then by place. */
 export function compareStepLabels(a: string, b: string): number {
   const parts = (label: string) => {
@@ -66,4 +82,23 @@ export function pruneCaseTree<T extends CaseRow>(tree: CaseNode<T>[], visible: R
     const children = pruneCaseTree(n.children, visible);
     return visible.has(n.id) ? [{ ...n, children }] : children;
   });
+}
+
+/**
+ * The given cases and every case below them (the one definition of "everything below this case",
+ * used for a referee's scope, for the cases hidden by a deletion and for what a deleted case holds).
+ * Linear in the number of cases; a cycle in broken data cannot loop.
+ */
+export function casesBelow(roots: Iterable<number>, cases: ReadonlyArray<{ id: number; parentId: number | null }>): Set<number> {
+  const children = new Map<number, number[]>();
+  for (const c of cases) if (c.parentId !== null) children.set(c.parentId, [...(children.get(c.parentId) ?? []), c.id]);
+  const out = new Set<number>();
+  const stack = [...roots];
+  while (stack.length > 0) {
+    const id = stack.pop()!;
+    if (out.has(id)) continue;
+    out.add(id);
+    stack.push(...(children.get(id) ?? []));
+  }
+  return out;
 }

@@ -3,7 +3,8 @@ import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth";
 import { forbidden, notFound, unauthenticated } from "@/lib/errors";
 import { proofAndRole } from "@/lib/data/proofs";
-import type { ProofRole } from "@/models/proof-member";
+import { sessionIsCurrent } from "@/lib/data/users";
+import type { ProofRole } from "@/lib/access/rules";
 import type { GlobalRole } from "@/models/user";
 
 export interface CurrentUser {
@@ -13,10 +14,17 @@ export interface CurrentUser {
   role: GlobalRole;
 }
 
+/**
+ * The person of this request's session, or null. Every page, route handler and server action reads the
+ * session here, and here a token whose version is no longer the person's (signed out, password changed)
+ * stops being a session. A database that does not answer throws (503), it does not sign anyone out.
+ */
 export async function getCurrentUser(): Promise<CurrentUser | null> {
   const session = await getServerSession(authOptions);
   const id = Number(session?.user?.id);
   if (!session?.user || !Number.isInteger(id) || id <= 0) return null;
+  const version = session.user.sessionVersion;
+  if (typeof version !== "number" || !(await sessionIsCurrent(id, version))) return null;
   return { id, name: session.user.name ?? "", email: session.user.email ?? "", role: session.user.role };
 }
 

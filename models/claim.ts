@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export type ClaimStatus = "pending" | "verified" | "refuted" | "undecided";
+import type { ClaimStatus } from "../lib/review/states";
 
 /** A computational statement attached to a step, with the checker's last verdict. */
 export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes<Claim>> {

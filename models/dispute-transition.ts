@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { DisputeState } from "./review";
+import type { DisputeState } from "../lib/review/states";
 
 /** One recorded change of a dispute's state: who, when, from, to. Inserted only. */
 export class DisputeTransition extends Model<InferAttributes<DisputeTransition>, InferCreationAttributes<DisputeTransition>> {

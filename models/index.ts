@@ -24,10 +24,12 @@ import { RoundReferee } from "./round-referee";
 import { RefereeReport } from "./referee-report";
 import { RoundDecision } from "./round-decision";
 import { RoundReminder } from "./round-reminder";
+import { StepFile } from "./step-file";
+import { FormerMember } from "./former-member";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -55,6 +57,7 @@ function initModels() {
   Invitation.hasMany(InvitationCase, { as: "cases", foreignKey: "invitationId" });
   DisputeTransition.belongsTo(User, { as: "actor", foreignKey: "actorId" });
   ProofExport.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
+  StepFile.belongsTo(User, { as: "uploader", foreignKey: "uploadedBy" });
 }
 
 /** Returns the models, initialising them on first use (not at import: `next build` imports without a database). */
@@ -66,4 +69,4 @@ export function models() {
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };

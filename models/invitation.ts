@@ -1,14 +1,17 @@
+import type { ProofRole } from "../lib/access/rules";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 export type InvitationScope = "proof" | "cases";
 
-/** An e-mailed invitation to review a proof (or chosen cases). Only the SHA-256 of the token is stored. */
+/** An e-mailed invitation to join a proof: as a referee (of the whole proof or chosen cases), a co-author or an editor. Only the SHA-256 of the token is stored. */
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
   declare id: CreationOptional<number>;
   declare proofId: number;
   declare email: string;
   declare tokenHash: string;
   declare scope: InvitationScope;
+  /** The role the invitation grants: co-author, referee (the default) or editor. */
+  declare role: CreationOptional<ProofRole>;
   declare invitedBy: number;
   declare mailId: number | null;
   declare expiresAt: Date;
@@ -27,6 +30,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         email: { type: DataTypes.STRING(254), allowNull: false },
         tokenHash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
         scope: { type: DataTypes.ENUM("proof", "cases"), allowNull: false },
+        role: { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false, defaultValue: "reviewer" },
         invitedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         mailId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         expiresAt: { type: DataTypes.DATE(3), allowNull: false },

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export type ProofRole = "author" | "reviewer" | "editor";
+import type { ProofRole } from "../lib/access/rules";
 
 export class ProofMember extends Model<InferAttributes<ProofMember>, InferCreationAttributes<ProofMember>> {
   declare proofId: number;

@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 export type ReviewVerdict = "vouch" | "dispute";
-export type DisputeState = "raised" | "answered" | "withdrawn" | "upheld";
+import type { DisputeState } from "../lib/review/states";
 
 /** A reviewer's verdict on one revision of a step. */
 export class Review extends Model<InferAttributes<Review>, InferCreationAttributes<Review>> {

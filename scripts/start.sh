@@ -47,6 +47,9 @@ if [ -z "${REDIS_URL:-}" ]; then
 else
   say "using the Redis in REDIS_URL; starting none"
 fi
+# The build bundles the worker thread and the offline checker too (scripts/build-workers.mjs), so build first.
+say "building"
+npm run -s build
 WORKERS="$(worker_count)"
 say "starting $WORKERS verification worker(s) (CAIRN_WORKERS sets how many; more hosts: see README)"
 for _ in $(seq 1 "$WORKERS"); do
@@ -54,7 +57,5 @@ for _ in $(seq 1 "$WORKERS"); do
   STOPS+=("kill $! 2>/dev/null")
 done
 
-say "building"
-node_modules/.bin/next build
 say "serving on http://localhost:$PORT (Ctrl-C stops the app, its workers, Redis and the database)"
 node_modules/.bin/next start -H 127.0.0.1 -p "$PORT"

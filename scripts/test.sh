@@ -40,6 +40,8 @@ if [ -z "${REDIS_URL:-}" ]; then
 else
   say "using the Redis in REDIS_URL; starting none"
 fi
+# Uploaded files of this run (the tests and their worker processes share them); removed with the run's folder.
+export CAIRN_STORAGE_DIR="${CAIRN_STORAGE_DIR:-$DATA/$TEST_DB/files}"
 export CAIRN_QUEUE_PREFIX="cairn-test-$TEST_DB_PORT-$(date +%s)"
 cleanup() { kill "$MAIL_PID" 2>/dev/null || true; if [ -n "$OWN_REDIS" ]; then redis_stop "$TEST_DB"; fi; db_stop "$TEST_DB"; rm -rf "${DATA:?}/$TEST_DB"; }
 trap cleanup EXIT
@@ -54,7 +56,7 @@ export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-test-secret-$(head -c 12 /dev/urandom
 # CAIRN_TEST_SKIP_BUILD=1 (local iteration on unit or integration tests only) reuses the last build.
 if [ -z "${CAIRN_TEST_SKIP_BUILD:-}" ]; then
   say "building the app for the browser tests"
-  node_modules/.bin/next build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
+  npm run -s build >"$DATA/$TEST_DB-build.log" 2>&1 || { tail -40 "$DATA/$TEST_DB-build.log"; die "next build failed"; }
 fi
 
 say "vitest: unit, integration, browser"

@@ -4,7 +4,7 @@
  * All people and addresses are invented; `.example` is a reserved domain.
  */
 import type { GlobalRole } from "@/models/user";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 
 export const DEMO_PASSWORD = "cairn-demo-2026";
 

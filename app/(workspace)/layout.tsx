@@ -27,9 +27,9 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
               {user.role === "admin" && <Link href="/admin/mail" className="hover:underline">Captured mail</Link>}
             </nav>
             <div className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
-              <span data-testid="current-user" className="break-words">
+              <Link href="/account" data-testid="current-user" className="break-words hover:underline" title="Your account">
                 {user.name} {user.role === "admin" && <span className="font-mono text-xs text-stone-600">(admin)</span>}
-              </span>
+              </Link>
               <SignOutButton />
             </div>
           </SiteMenu>

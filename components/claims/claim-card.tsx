@@ -5,6 +5,7 @@ import { GraphPicture } from "@/components/graph/graph-picture";
 import { SpectrumPlot } from "@/components/graph/spectrum-plot";
 import { apiFetch } from "@/components/proof/api-client";
 import { VerdictBadge } from "./verdict-badge";
+import { ClaimInputs, claimInputHref } from "./claim-inputs";
 
 /** One claim: verdict, method, reason, certificate summary, who checked it with which checker, picture. */
 export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck: boolean; canWithdraw: boolean; onChanged: () => void }) {
@@ -50,6 +51,10 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
           </button>
         )}
       </div>
+      <section aria-label="inputs" className="mt-2" data-testid="claim-card-inputs">
+        <h4 className="text-xs uppercase tracking-wide text-stone-500">Inputs</h4>
+        <ClaimInputs inputs={claim.inputs} download={claim.inputs.large ? claimInputHref(proofId, claim.id) : undefined} />
+      </section>
       {claim.status === "pending" ? (
         <p className="mt-2 text-sm text-stone-600" aria-live="polite">
           {claim.progress?.state === "checking"
@@ -61,7 +66,10 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
       ) : (
         <dl className="mt-2 grid grid-cols-[minmax(0,1fr)] gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_minmax(0,1fr)]">
           <dt className="text-stone-500">method</dt>
-          <dd>{claim.method}</dd>
+          <dd data-testid="claim-method">
+            {claim.method}
+            {claim.certificateKind && <span className="text-stone-600"> · certificate: {claim.certificateKind}</span>}
+          </dd>
           <dt className="text-stone-500">{claim.status === "undecided" ? "why undecided" : "why"}</dt>
           <dd className="[overflow-wrap:anywhere]">{claim.reason}</dd>
           <dt className="text-stone-500">certificate</dt>

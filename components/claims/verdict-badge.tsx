@@ -1,4 +1,4 @@
-import type { ClaimStatus } from "@/models/claim";
+import type { ClaimStatus } from "@/lib/review/states";
 import { Mark } from "@/components/ui/mark";
 
 const look: Record<ClaimStatus, { glyph: string; className: string }> = {

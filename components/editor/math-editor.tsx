@@ -2,7 +2,9 @@
 import dynamic from "next/dynamic";
 import { cloneElement, isValidElement, useEffect, useRef, type ComponentProps } from "react";
 import "katex/dist/katex.min.css";
+import { useMemo } from "react";
 import { rehypePlugins, remarkPlugins } from "@/lib/markdown";
+import { mathCommands, type Reference } from "./math-commands";
 
 /**
  * The editor with its toolbar made accessible: each button is named by its aria-label, so the icons inside are
@@ -29,16 +31,19 @@ const MDEditor = dynamic(
 /**
  * The one editor for Markdown with math: statements and steps alike. The text is set in Cairn's mono face and
  * the preview in its text face, with the same math renderer as the pages (see .math-editor in globals.css).
- * `label` names the text area (the editor's toolbar buttons are not form controls to label).
+ * `label` names the text area (the editor's toolbar buttons are not form controls to label). The toolbar is
+ * math-first (components/editor/math-commands.tsx); `references` lists the cases and steps it may point to.
  */
-export function MathEditor({ value, onChange, label, hint, error, height = 240 }: {
+export function MathEditor({ value, onChange, label, hint, error, height = 240, references }: {
   value: string;
   onChange: (v: string) => void;
   label: string;
   hint?: string;
   error?: string;
   height?: number;
+  references?: readonly Reference[];
 }) {
+<<<<<<< HEAD
   const box = useRef<HTMLDivElement>(null);
   // The preview pane scrolls; keyboard users reach it with Tab and scroll it with the arrow keys. The library renders it
   // without a tabindex, so it is given one (and a name) once the editor is in the page.
@@ -54,6 +59,9 @@ export function MathEditor({ value, onChange, label, hint, error, height = 240 }
     if (box.current) watch.observe(box.current, { childList: true, subtree: true });
     return () => watch.disconnect();
   }, [label]);
+=======
+  const commands = useMemo(() => mathCommands(references), [references]);
+>>>>>>> main
   return (
     <div ref={box} className="math-editor text-sm" data-color-mode="light">
       <p className="mb-1" aria-hidden="true">
@@ -64,6 +72,7 @@ export function MathEditor({ value, onChange, label, hint, error, height = 240 }
         value={value}
         onChange={(v) => onChange(v ?? "")}
         height={height}
+        commands={commands}
         textareaProps={{ "aria-label": hint ? `${label} (${hint})` : label, "aria-invalid": error ? true : undefined }}
         previewOptions={{ remarkPlugins, rehypePlugins, skipHtml: true }}
       />

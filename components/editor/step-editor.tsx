@@ -2,6 +2,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { MathEditor } from "./math-editor";
+import type { Reference } from "./math-commands";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 
@@ -16,7 +17,7 @@ interface Latest {
  * Edits a step. Every save is a new revision naming the one it was based on; if someone saved in
  * between, the server refuses (409) and this shows both texts, to merge or to overwrite knowingly.
  */
-export function StepEditor({ proofId, stepId, latest }: { proofId: number; stepId: number; latest: Latest }) {
+export function StepEditor({ proofId, stepId, latest, references }: { proofId: number; stepId: number; latest: Latest; references?: readonly Reference[] }) {
   const router = useRouter();
   const [text, setText] = useState(latest.body);
   const [baseId, setBaseId] = useState(latest.id);
@@ -54,7 +55,7 @@ export function StepEditor({ proofId, stepId, latest }: { proofId: number; stepI
 
   return (
     <section aria-label="edit this step" className="mt-4" data-testid="step-editor">
-      <MathEditor value={text} onChange={setText} height={280} label="Step text" hint="Markdown with $…$ math" />
+      <MathEditor value={text} onChange={setText} height={280} label="Step text" hint="Markdown with $…$ math" references={references} />
       <div className="mt-2 flex flex-wrap items-center gap-3">
         <button type="button" disabled={saving || text.trim() === ""} onClick={() => save(baseId)} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
           {saving ? "Saving…" : "Save as new revision"}

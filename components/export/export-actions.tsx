@@ -2,16 +2,19 @@
 import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import type { ExportKind } from "@/lib/core/bundle";
-import { createExportAction, type ExportActionResult } from "@/app/(workspace)/proofs/[proofId]/export/actions";
+import type { ExportActionResult } from "@/lib/validations/export";
 
-/** The two export buttons. Certified is offered only when the proof is ready; a refusal shows its reasons. */
-export function ExportActions({ proofId, ready }: { proofId: number; ready: boolean }) {
+/**
+ * The two export buttons. Certified is offered only when the proof is ready; a refusal shows its reasons.
+ * The page hands in its server action (`create`), so this component imports nothing from a route.
+ */
+export function ExportActions({ proofId, ready, create }: { proofId: number; ready: boolean; create: (proofId: number, kind: ExportKind) => Promise<ExportActionResult> }) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [result, setResult] = useState<ExportActionResult | null>(null);
   const run = (kind: ExportKind) =>
     start(async () => {
-      const r = await createExportAction(proofId, kind);
+      const r = await create(proofId, kind);
       setResult(r);
       if (r.ok) router.refresh();
     });

@@ -1,9 +1,11 @@
-import type { ClaimStatus } from "@/models/claim";
-import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type ExportDocument } from "@/lib/export/document";
+import type { ClaimStatus } from "@/lib/review/states";
+import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocRound, type ExportDocument } from "@/lib/export/document";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { ExportKindBadge } from "./export-kind-badge";
 import { TableScroll } from "@/components/ui/table-scroll";
+import { ClaimInputs } from "@/components/claims/claim-inputs";
+import { stepLabel } from "@/lib/proof-tree";
 
 const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 const Heading = ({ depth, children }: { depth: number; children: React.ReactNode }) =>
@@ -22,7 +24,7 @@ function CaseSection({ c }: { c: DocCase }) {
       {c.steps.map((s) => (
         <article key={s.id} className="mt-4 break-inside-avoid" data-step={s.id}>
           <h5 className="font-semibold">
-            Step {c.number}:{s.position}{" "}
+            Step {stepLabel(c.number, s.position)}{" "}
             <span className="text-sm font-normal text-stone-600">
               {s.revision ? `(revision ${s.revision.number}, by ${s.revision.authorName}, ${when(s.revision.savedAt)})` : "(no text saved)"}
             </span>
@@ -45,10 +47,72 @@ function CaseSection({ c }: { c: DocCase }) {
   );
 }
 
+/** One section per claim with its inputs, as in the LaTeX appendix (lib/export/latex-inputs.ts). */
+function ClaimInputsAppendix({ doc }: { doc: ExportDocument }) {
+  const claims = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.claims.map((cl) => ({ where: stepLabel(c.number, s.position), cl }))));
+  if (claims.length === 0) return null;
+  return (
+    <section className="mt-10 break-before-page" data-testid="print-claim-inputs">
+      <h2 className="text-2xl font-semibold">Appendix: claim inputs</h2>
+      <p className="text-sm">Each claim with its inputs as entered and as graph6 (sparse6 for loops or multiple edges), and the vector its certificate carries. Large inputs are summarised by order, size, degree sequence and SHA-256; the bundle holds them in full.</p>
+      {claims.map(({ where, cl }) => (
+        <article key={cl.id} className="mt-4 break-inside-avoid" data-claim-item={cl.id}>
+          <h3 className="font-semibold">
+            Step {where}, {cl.id.replace(/^claim /, "claim ")}: {cl.statement || cl.kind}
+          </h3>
+          <p className="text-xs text-stone-600">
+            Kind <span className="font-mono">{cl.kind}</span>.{" "}
+            {cl.status === "pending" ? "Not checked yet." : `Decided ${cl.status} by ${cl.method || "an unnamed method"}; certificate: ${cl.certificateKind ?? "none (no decision to certify)"}.`}
+          </p>
+          <ClaimInputs inputs={cl.inputs} />
+        </article>
+      ))}
+    </section>
+  );
+}
+
+/** The review rounds and their decisions, as in the LaTeX source (referees as "Referee k" on a blind proof). */
+function RoundsSection({ rounds }: { rounds: DocRound[] }) {
+  if (rounds.length === 0) return null;
+  return (
+    <section className="mt-10" data-testid="print-rounds">
+      <h2 className="text-2xl font-semibold">Review rounds and decisions</h2>
+      {rounds.map((r) => (
+        <div key={r.number} className="mt-4">
+          <h3 className="text-xl font-semibold">Round {r.number}</h3>
+          <p className="text-sm text-stone-700">
+            opened {when(r.openedAt)}, due {when(r.dueAt)}
+            {r.closedAt ? `, closed ${when(r.closedAt)}` : ""}.
+          </p>
+          {r.decision ? (
+            <>
+              <p>
+                <strong>Decision: {recommendationWords(r.decision.decision)}</strong>, by {r.decision.editor}, {when(r.decision.decidedAt)}.
+              </p>
+              <MathMarkdown source={r.decision.letter} />
+            </>
+          ) : (
+            <p className="italic">No decision yet.</p>
+          )}
+          {r.reports.length > 0 && (
+            <ul className="list-disc pl-6 text-sm">
+              {r.reports.map((p) => (
+                <li key={p.referee}>
+                  {p.referee} (report version {p.version}): recommends {recommendationWords(p.recommendation)}.
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+      ))}
+    </section>
+  );
+}
+
 /** The exported document laid out for paper: the same content as the LaTeX source, from the same bundle. */
 export function PrintDocument({ doc }: { doc: ExportDocument }) {
   const draft = doc.kind === "draft";
-  const vouches = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.vouches.map((a) => ({ step: `${c.number}:${s.position}`, ...a, stale: s.revision !== null && a.revision !== s.revision.number }))));
+  const vouches = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.vouches.map((a) => ({ step: stepLabel(c.number, s.position), ...a, stale: s.revision !== null && a.revision !== s.revision.number }))));
   return (
     <article className="print-document mx-auto max-w-prose bg-white p-8 print:p-0" data-testid="print-document">
       {/* Every printed page carries the export's kind in its top margin (CSS page margin boxes). */}
@@ -71,6 +135,8 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
       <h2 className="mt-8 text-2xl font-semibold">Statement</h2>
       <MathMarkdown source={doc.statement} />
       {doc.cases.map((c) => <CaseSection key={c.number} c={c} />)}
+      <RoundsSection rounds={doc.rounds ?? []} />
+      <ClaimInputsAppendix doc={doc} />
       <section className="mt-10 break-before-page">
         <h2 className="text-2xl font-semibold">Appendix: reviewers and vouches</h2>
         <p className="text-sm">

@@ -28,3 +28,25 @@ export async function apiFetch<T>(url: string, init?: { method?: string; body?: 
 
 /** For SWR: `useSWR(url, jsonFetcher)`. */
 export const jsonFetcher = <T,>(url: string) => apiFetch<T>(url);
+
+/** The outcome of a call as forms display it: never throws; a network failure is status 0 with a message. */
+export interface Sent<T> {
+  ok: boolean;
+  status: number;
+  data?: T;
+  error?: string;
+  issues?: ApiIssue[];
+}
+
+/** `apiFetch` for forms that show the outcome inline: the error's message with each field's issue appended. */
+export async function send<T = unknown>(url: string, method: string, body?: unknown): Promise<Sent<T>> {
+  try {
+    const data = await apiFetch<T>(url, { method, body });
+    return { ok: true, status: 200, data };
+  } catch (e) {
+    if (!(e instanceof ApiError)) return { ok: false, status: 0, error: "Could not reach Cairn; check the connection and try again." };
+    const issues = e.body.issues;
+    const detail = issues?.length ? ` ${issues.map((i) => i.message).join(" ")}` : "";
+    return { ok: false, status: e.status, error: `${e.message}${detail}`, issues };
+  }
+}

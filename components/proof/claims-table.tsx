@@ -9,6 +9,7 @@ import {
 import type { ClaimRowView } from "@/lib/data/claims";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { compareStepLabels } from "@/lib/proof-tree";
+import { ClaimInputsShort, claimInputHref } from "@/components/claims/claim-inputs";
 
 const col = createColumnHelper<ClaimRowView>();
 // Step numbers sort as 1.2 < 1.10 < 2.1.
@@ -32,7 +33,20 @@ export function ClaimsTable({ proofId, claims }: { proofId: number; claims: Clai
       col.accessor("kind", { header: "Kind", filterFn: "equals", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
       col.accessor("status", { header: "Verdict", filterFn: "equals", cell: (c) => <VerdictBadge status={c.getValue()} /> }),
       col.accessor("statement", { header: "Claim", cell: (c) => c.getValue() ?? "…" }),
-      col.accessor("method", { header: "Method", cell: (c) => <span className="text-xs">{c.getValue() ?? ""}</span> }),
+      col.accessor((r) => r.inputs.short, {
+        id: "inputs",
+        header: "Inputs",
+        cell: (c) => <ClaimInputsShort inputs={c.row.original.inputs} download={c.row.original.inputs.large ? claimInputHref(proofId, c.row.original.id) : undefined} />,
+      }),
+      col.accessor("method", {
+        header: "Method",
+        cell: (c) => (
+          <span className="text-xs">
+            {c.getValue() ?? ""}
+            {c.row.original.certificateKind && <span className="text-stone-600"> · certificate: {c.row.original.certificateKind}</span>}
+          </span>
+        ),
+      }),
     ],
     [proofId],
   );

@@ -3,9 +3,9 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
-export function AcceptInvitation({ token, email, signedIn }: { token: string; email: string; signedIn: boolean }) {
+export function AcceptInvitation({ token, email, signedIn, roleWord = "reviewer" }: { token: string; email: string; signedIn: boolean; roleWord?: string }) {
   const router = useRouter();
   const [name, setName] = useState("");
   const [password, setPassword] = useState("");
@@ -55,7 +55,7 @@ export function AcceptInvitation({ token, email, signedIn }: { token: string; em
         </p>
       )}
       <button type="submit" disabled={busy} className="w-full rounded bg-lichen-600 px-4 py-2 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60">
-        {signedIn ? "Join as reviewer" : "Create account and join as reviewer"}
+        {signedIn ? `Join as ${roleWord}` : `Create account and join as ${roleWord}`}
       </button>
     </form>
   );

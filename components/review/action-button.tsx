@@ -1,10 +1,10 @@
 "use client";
-/** A button that calls one API route and refreshes the page (retry a mail, share the whole proof). */
+/** A button that calls one API route and refreshes the page (retry a mail, share the whole proof, remove a member). */
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
-export function ActionButton({ url, method = "POST", label, doneText }: { url: string; method?: string; label: string; doneText?: string }) {
+export function ActionButton({ url, method = "POST", label, doneText, body, confirmText }: { url: string; method?: string; label: string; doneText?: string; body?: unknown; confirmText?: string }) {
   const router = useRouter();
   const [state, setState] = useState<{ busy: boolean; error: string | null; done: boolean }>({ busy: false, error: null, done: false });
   return (
@@ -13,8 +13,9 @@ export function ActionButton({ url, method = "POST", label, doneText }: { url: s
         type="button"
         disabled={state.busy}
         onClick={async () => {
+          if (confirmText && !window.confirm(confirmText)) return;
           setState({ busy: true, error: null, done: false });
-          const res = await send(url, method);
+          const res = await send(url, method, body);
           setState({ busy: false, error: res.ok ? null : (res.error ?? "Failed."), done: res.ok });
           if (res.ok) router.refresh();
         }}

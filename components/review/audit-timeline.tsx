@@ -1,4 +1,5 @@
 /** The audit trail as a timeline: who did what to which step, case, claim or revision, and when. */
+import Link from "next/link";
 import type { AuditEntry } from "@/lib/data/audit";
 
 const glyph = (action: string) =>
@@ -14,9 +15,10 @@ export function AuditTimeline({ events }: { events: AuditEntry[] }) {
             {glyph(e.action)}
           </span>
           <p className="font-mono text-xs text-stone-500">{new Date(e.at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "medium" })}</p>
-          <p>
-            <strong>{e.actorName ?? "Cairn"}</strong> <span className="font-mono text-sm">{e.action}</span> on {e.subjectLabel}
-            {e.detail && <span className="text-stone-600"> — {e.detail}</span>}
+          <p data-testid="timeline-sentence">
+            <Link href={e.href} className="hover:underline">
+              {e.sentence}
+            </Link>
           </p>
         </li>
       ))}

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import type { CommentNode } from "@/lib/data/review-panel";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function CommentBox({ label, onSubmit, testId }: { label: string; onSubmit: (body: string) => Promise<string | null>; testId?: string }) {
   const [body, setBody] = useState("");

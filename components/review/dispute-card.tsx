@@ -4,7 +4,7 @@ import { useState } from "react";
 import type { StepReviewView } from "@/lib/data/review-panel";
 import { DisputeStateBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 type Dispute = StepReviewView["disputes"][number];
 const when = (at: string) => new Date(at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
@@ -31,7 +31,7 @@ export function DisputeCard({ dispute, proofId, commentsUrl, onChange }: { dispu
   };
 
   return (
-    <article className="rounded border border-stone-300 bg-stone-50 p-3" data-testid="dispute" data-dispute-id={dispute.id}>
+    <article id={`dispute-${dispute.id}`} className="scroll-mt-4 rounded border border-stone-300 bg-stone-50 p-3" data-testid="dispute" data-dispute-id={dispute.id}>
       <header className="flex flex-wrap items-center gap-2">
         <DisputeStateBadge state={dispute.state} />
         <span className="text-sm">

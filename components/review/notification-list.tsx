@@ -4,7 +4,7 @@ import { useState } from "react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import type { NotificationView, NotificationKind } from "@/lib/data/notifications";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function NotificationList({ notifications }: { notifications: NotificationView[] }) {
   const router = useRouter();

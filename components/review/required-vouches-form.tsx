@@ -2,7 +2,7 @@
 /** The editor sets the number of vouches each step needs. */
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { send } from "./send";
+import { send } from "@/components/proof/api-client";
 
 export function RequiredApprovalsForm({ proofId, current }: { proofId: number; current: number }) {
   const router = useRouter();

@@ -11,7 +11,7 @@ import type { StepReviewView } from "@/lib/data/review-panel";
 import { VouchBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
 import { DisputeCard } from "./dispute-card";
-import { send } from "./send";
+import { apiFetch, send } from "@/components/proof/api-client";
 
 export interface StepReviewSlotProps {
   proofId: number;
@@ -20,12 +20,7 @@ export interface StepReviewSlotProps {
   viewer: { id: number; role: "author" | "reviewer" | "editor" };
 }
 
-const fetcher = async (url: string): Promise<StepReviewView> => {
-  const res = await fetch(url);
-  const body = await res.json();
-  if (!res.ok) throw new Error(body?.error?.message ?? `The server answered ${res.status}.`);
-  return body.review;
-};
+const fetcher = async (url: string): Promise<StepReviewView> => (await apiFetch<{ review: StepReviewView }>(url)).review;
 
 export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotProps) {
   const base = `/api/proofs/${proofId}/steps/${stepId}`;

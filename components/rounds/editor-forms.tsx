@@ -2,7 +2,7 @@
 /** The editor's forms on the rounds page: open a round, record a decision, blind review and reminders. */
 import { useState, type ReactNode } from "react";
 import { useRouter } from "next/navigation";
-import { send } from "@/components/review/send";
+import { send } from "@/components/proof/api-client";
 import { RECOMMENDATIONS, recommendationLabel } from "@/lib/review/rounds";
 
 function useSubmit() {

@@ -2,7 +2,7 @@
 /** A referee's report for the open round: save as draft, submit once, then start a correction (a new version). */
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { send } from "@/components/review/send";
+import { send } from "@/components/proof/api-client";
 import { RECOMMENDATIONS, recommendationLabel, type Recommendation } from "@/lib/review/rounds";
 
 export interface ReportDraft { body: string; recommendation: Recommendation | null; editorNote?: string; state: "draft" | "submitted"; version: number }

@@ -1,4 +1,4 @@
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 
 const glyph: Record<ProofRole, string> = { author: "✎", reviewer: "⚖", editor: "◈" };
 

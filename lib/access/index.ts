@@ -11,10 +11,11 @@ import { forbidden } from "@/lib/errors";
 import { requireProofRole, type CurrentUser } from "@/lib/session";
 import { loadStep, type StepRef } from "@/lib/data/reviews";
 import type { DisputeRef } from "@/lib/data/disputes";
+import { isBlind } from "@/lib/data/blind";
 import type { DisputeTarget } from "@/lib/review/rules";
-import { accessRefusal, disputeRefusal, expandScope, verdictRefusal, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
+import { accessRefusal, BLIND_REFEREES_REFUSAL, disputeRefusal, expandScope, invitationRefusal, removalRefusal, verdictRefusal, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
 
-export { ACCESS, accessRefusal, may, withinScope, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
+export { ACCESS, accessRefusal, invitationRefusal, mayOwn, removalRefusal, may, withinScope, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
 
 export interface ProofAccess {
   proofId: number;
@@ -87,8 +88,7 @@ export async function assertCanGiveVerdict(step: StepRef, actor: Actor): Promise
 export async function assertCanManageReviewers(proofId: number, user: CurrentUser, role: ProofRole): Promise<void> {
   const proof = await models().Proof.findByPk(proofId, { attributes: ["createdBy", "blindReview"] });
   // On a blind proof only editors do: managing referees shows their names to the owner, who is an author.
-  if (role !== "editor" && proof?.blindReview && proof.createdBy === user.id)
-    throw forbidden("This proof is refereed blind: only its editors manage the referees, so that their names stay hidden from the authors.");
+  if (role !== "editor" && proof?.blindReview && proof.createdBy === user.id) throw forbidden(BLIND_REFEREES_REFUSAL);
   const refusal = accessRefusal({ role, owner: proof?.createdBy === user.id, caseLimited: false }, "reviewers.manage");
   if (refusal) throw forbidden(refusal);
 }
@@ -101,5 +101,37 @@ export async function assertSeesWholeProof(proofId: number, userId: number): Pro
 export async function assertCanMoveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget): Promise<void> {
   await assertCanSeeStep(d.step, actor.id);
   const refusal = disputeRefusal(actor, d.reviewerId, to);
+  if (refusal) throw forbidden(refusal);
+}
+
+export interface MembershipAccess extends ProofAccess {
+  blind: boolean;
+  /** The roles this member may invite (empty: none). */
+  invites: ProofRole[];
+}
+
+const ROLES: readonly ProofRole[] = ["author", "reviewer", "editor"];
+
+/**
+ * The standing of someone managing membership: 401 / 404 / 403 as for any proof page, then 403 when they
+ * may invite no one at all (the refusal of inviting referees). Which role they may invite is `invites`.
+ */
+export async function membershipAccess(proofId: number, requireInviting = true): Promise<MembershipAccess> {
+  const access = await proofAccess(proofId);
+  const blind = await isBlind(proofId);
+  const invites = ROLES.filter((r) => invitationRefusal(access.standing, r, blind) === null);
+  if (requireInviting && invites.length === 0) throw forbidden(invitationRefusal(access.standing, "reviewer", blind)!);
+  return { ...access, blind, invites };
+}
+
+/** 403 unless this member may invite (or revoke an invitation of) someone as `role`. */
+export function assertMayInvite(m: MembershipAccess, role: ProofRole): void {
+  const refusal = invitationRefusal(m.standing, role, m.blind);
+  if (refusal) throw forbidden(refusal);
+}
+
+/** 403 unless this member may remove `target` (anyone may leave). */
+export function assertMayRemove(m: MembershipAccess, target: { userId: number; role: ProofRole }): void {
+  const refusal = removalRefusal(m.standing, m.user.id, target, m.blind);
   if (refusal) throw forbidden(refusal);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACCESS, accessRefusal, disputeRefusal, expandScope, may, verdictRefusal, withinScope, type ProofAction, type Standing } from "./rules";
+import { ACCESS, accessRefusal, disputeRefusal, expandScope, invitationRefusal, may, mayOwn, removalRefusal, verdictRefusal, withinScope, type ProofAction, type Standing } from "./rules";
 
 describe("permissions", () => {
   it("lets only an in-scope reviewer who did not write the step give a verdict", () => {
@@ -54,6 +54,28 @@ describe("the access table", () => {
       if (whole) expect(accessRefusal(limited, action)).toMatch(/some of its cases only/);
       else expect(may(limited, action)).toBe(may(s("reviewer"), action));
     }
+  });
+
+  it("lets authors invite co-authors, editors and the owner invite editors and referees, and only the owner hand over ownership", () => {
+    expect(invitationRefusal(s("author"), "author", false)).toBeNull();
+    expect(invitationRefusal(s("reviewer"), "author", false)).toMatch(/co-authors/);
+    expect(invitationRefusal(s("author"), "editor", false)).toMatch(/invites editors/);
+    expect(invitationRefusal(s("author", { owner: true }), "editor", false)).toBeNull();
+    expect(invitationRefusal(s("editor"), "reviewer", true)).toBeNull();
+    expect(invitationRefusal(s("author", { owner: true }), "reviewer", false)).toBeNull();
+    expect(invitationRefusal(s("author", { owner: true }), "reviewer", true)).toMatch(/refereed blind/);
+    expect(may(s("editor"), "ownership.transfer")).toBe(false);
+    expect(may(s("author", { owner: true }), "ownership.transfer")).toBe(true);
+    expect([mayOwn("author"), mayOwn("editor"), mayOwn("reviewer")]).toEqual([true, true, false]);
+  });
+
+  it("lets anyone leave, editors and the owner remove others, and keeps a blind proof's referees to its editors", () => {
+    const referee = { userId: 7, role: "reviewer" as const };
+    expect(removalRefusal(s("reviewer"), 7, referee, true)).toBeNull(); // leaving
+    expect(removalRefusal(s("author"), 1, { userId: 2, role: "author" }, false)).toMatch(/removes members/);
+    expect(removalRefusal(s("author", { owner: true }), 1, referee, false)).toBeNull();
+    expect(removalRefusal(s("author", { owner: true }), 1, referee, true)).toMatch(/refereed blind/);
+    expect(removalRefusal(s("editor"), 1, referee, true)).toBeNull();
   });
 
   it("filters to the cases in scope; items of no case are whole-proof only", () => {

@@ -9,6 +9,7 @@
  * standing on a proof they are not a member of: admin pages are their own (the mail view).
  */
 import type { DisputeTarget } from "@/lib/review/rules";
+import { casesBelow } from "@/lib/proof-tree";
 
 export type ProofRole = "author" | "reviewer" | "editor";
 
@@ -31,11 +32,16 @@ export type ProofAction =
   | "steps.write" // add, move and revise steps
   | "claims.write" // attach and withdraw claims
   | "claims.recheck"
+  | "files.upload" // upload graph lists, claims files and documents to a step (reading them: proof.read, in scope)
   | "verdict.give" // vouch for or dispute a step (lib/access/rules verdictRefusal adds the per-step rules)
   | "reviewers.manage" // invite, revoke, share the whole proof, required vouches
   | "exports.read" // list and download exports, the print view
   | "exports.create"
-  | "timeline.read"; // the audit trail (a case-limited member: events of their cases only)
+  | "timeline.read" // the audit trail (a case-limited member: events of their cases only)
+  | "authors.invite" // invite co-authors by e-mail
+  | "editors.invite" // invite editors by e-mail
+  | "members.remove" // remove another member (their vouches, disputes and reports stay, attributed)
+  | "ownership.transfer"; // hand the proof's ownership to another author or editor
 
 interface Rule {
   roles: readonly ProofRole[];
@@ -55,6 +61,7 @@ export const ACCESS: Readonly<Record<ProofAction, Rule>> = {
   "cases.write": { roles: ["author"], refusal: "Only the proof's authors change its cases." },
   "steps.write": { roles: ["author"], refusal: "Only the proof's authors write steps." },
   "claims.write": { roles: ["author"], refusal: "Only the proof's authors attach or withdraw claims." },
+  "files.upload": { roles: ["author"], owner: true, refusal: "Only the proof's authors (and its owner) upload files to its steps." },
   "claims.recheck": { roles: ["author", "editor"], refusal: "Only an author or an editor re-checks a claim." },
   "verdict.give": { roles: ["reviewer"], refusal: "Only invited reviewers give verdicts on steps." },
   "reviewers.manage": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner invites reviewers and changes review settings." },
@@ -65,7 +72,36 @@ export const ACCESS: Readonly<Record<ProofAction, Rule>> = {
   },
   "exports.create": { roles: ["author", "editor"], wholeProof: true, refusal: "Only an author or an editor makes an export of the whole proof." },
   "timeline.read": { roles: ALL, refusal: "You are not a member of this proof." },
+  "authors.invite": { roles: ["author", "editor"], owner: true, refusal: "Only an author, an editor or the proof's owner invites co-authors." },
+  "editors.invite": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner invites editors." },
+  "members.remove": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner removes members." },
+  "ownership.transfer": { roles: [], owner: true, refusal: "Only the proof's owner hands over its ownership." },
 };
+
+/** The action that inviting someone with this role needs. */
+export const INVITE_ACTION: Readonly<Record<ProofRole, ProofAction>> = { author: "authors.invite", reviewer: "reviewers.manage", editor: "editors.invite" };
+
+/** On a blind proof only editors see referees' names, so only editors manage (invite, list, remove) referees. */
+export const BLIND_REFEREES_REFUSAL = "This proof is refereed blind: only its editors manage the referees, so that their names stay hidden from the authors.";
+
+/** Why this standing may not invite someone as `role`, or null when it may. */
+export function invitationRefusal(standing: Standing, role: ProofRole, blind: boolean): string | null {
+  if (role === "reviewer" && blind && standing.role !== "editor") return BLIND_REFEREES_REFUSAL;
+  return accessRefusal(standing, INVITE_ACTION[role]);
+}
+
+/**
+ * Why this person may not remove the member `target`, or null when they may. Anyone but the owner may
+ * leave (remove themselves); the owner must hand over ownership first (a conflict, decided by the caller).
+ */
+export function removalRefusal(standing: Standing, actorId: number, target: { userId: number; role: ProofRole }, blind: boolean): string | null {
+  if (target.userId === actorId) return null;
+  if (target.role === "reviewer" && blind && standing.role !== "editor") return BLIND_REFEREES_REFUSAL;
+  return accessRefusal(standing, "members.remove");
+}
+
+/** Ownership goes to a current author or editor: a referee owning the proof would manage their own refereeing. */
+export const mayOwn = (role: ProofRole) => role !== "reviewer";
 
 /** Why this standing may not take this action, or null when it may. */
 export function accessRefusal(standing: Standing, action: ProofAction): string | null {
@@ -92,18 +128,7 @@ export function withinScope<T>(items: readonly T[], caseOf: (item: T) => number 
 
 /** Whole proof (null) or the given cases and everything below them. */
 export function expandScope(scopeCaseIds: readonly number[], cases: ReadonlyArray<{ id: number; parentId: number | null }>): Set<number> | null {
-  if (scopeCaseIds.length === 0) return null;
-  const visible = new Set(scopeCaseIds);
-  let grew = true;
-  while (grew) {
-    grew = false;
-    for (const c of cases)
-      if (c.parentId !== null && visible.has(c.parentId) && !visible.has(c.id)) {
-        visible.add(c.id);
-        grew = true;
-      }
-  }
-  return visible;
+  return scopeCaseIds.length === 0 ? null : casesBelow(scopeCaseIds, cases);
 }
 
 /** Why this person may not give a verdict on this step, or null when they may. */

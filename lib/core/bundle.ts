@@ -19,10 +19,12 @@ import { sha256Hex } from "./digest";
 import { revisionDigest } from "./revision-digest";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
 import { claimLineFields, type CheckLine } from "./check-report";
+import { CERTIFICATE_SEPARATOR, certificateKindOf } from "./certificate-kind";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
-export type BundleItemType = "proof" | "case" | "step" | "claim";
+/** "round": one review round with its decision, as the authors may read it (referees as "Referee k" on a blind proof). */
+export type BundleItemType = "proof" | "case" | "step" | "claim" | "round";
 export type ExportKind = "certified" | "draft";
 
 export interface BundleItem {
@@ -128,6 +130,9 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   else if (recorded !== v.status) problems.push(`the bundle records "${recorded}" but the re-check gives "${v.status}"`);
   if (data.digest && data.digest !== claimDigest(claim)) problems.push(`the recorded claim digest ${short(data.digest)} is not the claim's digest ${short(fresh.digest)}`);
   if (recorded === "verified" && !hasCertificate) problems.push("a verified claim without its certificate");
+  const named = typeof data.verdict.method === "string" && data.verdict.method.includes(CERTIFICATE_SEPARATOR) ? data.verdict.method.split(CERTIFICATE_SEPARATOR)[1] : null;
+  const carried = hasCertificate ? certificateKindOf(claim.kind, data.certificate)?.words ?? null : null;
+  if (named !== null && named !== carried) problems.push(`the recorded method names a certificate of kind "${named}" but the certificate carried is ${carried ? `of kind "${carried}"` : "none"}`);
   const certificate = fresh.certificateCheck && {
     matches: fresh.certificateCheck.matches,
     text: fresh.certificateCheck.matches

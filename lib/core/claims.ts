@@ -21,6 +21,7 @@ import { Budget, BudgetExceeded, DEFAULT_STEP_LIMIT, budgetReason, type Verdict 
 import { HANDLERS } from "./claim-handlers";
 import { TimedBudget } from "./time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
+import { methodWithCertificate } from "./certificate-kind";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
 export const CHECKER_VERSION = "cairn-check/0.1.0";
@@ -190,12 +191,9 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   const checkStart = now();
   const found = guarded(path, () => budgeted(statement, budget, () => handler.verify(claim, inputs, budget)));
   const checkMs = elapsed(checkStart);
-  const verdict: Verdict<ClaimCertificate> = {
-    ...found,
-    statement,
-    ranOn,
-    certificate: found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate },
-  };
+  const certificate: ClaimCertificate | undefined = found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate };
+  // The method named is the one that decided, with the kind of evidence it left beside it.
+  const verdict: Verdict<ClaimCertificate> = { ...found, statement, ranOn, method: methodWithCertificate(claim.kind, found.method, certificate), certificate };
   if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
   if (carried === undefined) return { ...base, verdict, timings: { parseMs, checkMs } };
   const recheckStart = now();

@@ -276,7 +276,7 @@ describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)",
     for (const n of [30, 44]) {
       const v = verdict(path(n), "=", `2cos(pi/${n + 1})`);
       expect(v.status).toBe("verified");
-      expect(v.certificate!.kind).toBe("algebraic-tree");
+      expect(v.certificate!.kind).toBe("forest-count");
       expect(verdict(path(n), ">", `2cos(pi/${n})`).status).toBe("verified");
       expect(verdict(path(n), "<", `2cos(pi/${n + 1})`).status).toBe("refuted");
     }
@@ -295,12 +295,32 @@ describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)",
     }
   });
   it("algebraic-tree certificates re-check; a changed count is rejected", () => {
+    // b is no eigenvalue of T(2,2,80) (ρ < b, Hoffman 1972), so the elimination over Q(b) decides.
+    const g = starlike([2, 2, 80]);
+    const v = verdict(g, "<", "sqrt(2+sqrt(5))");
+    expect(v.certificate!.kind).toBe("algebraic-tree");
+    expect(recheckSpectralRadiusBound(g, "<", "sqrt(2+sqrt(5))", "verified", v.certificate).status).toBe("verified");
+    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-tree" };
+    c.zero = 2; c.positive -= 2;
+    expect(recheckSpectralRadiusBound(g, "<", "sqrt(2+sqrt(5))", "verified", c).status).toBe("refuted");
+  });
+  it("forest-count certificates (b an eigenvalue of a forest) re-check; a changed multiplicity, count or enclosure is rejected", () => {
     const g = path(30);
     const v = verdict(g, "=", "2cos(pi/31)");
+    expect(v.certificate!.kind).toBe("forest-count");
     expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", v.certificate).status).toBe("verified");
-    const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-tree" };
-    c.zero = 2; c.positive = 28;
-    expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", c).status).toBe("refuted");
+    const tampered: Array<(c: SpectralRadiusCertificate & { kind: "forest-count" }) => void> = [
+      (c) => { c.multiplicity = 2; c.inside = 2; },
+      (c) => { c.inside = 0; c.multiplicity = 0; },
+      (c) => { c.atOrAbove = 1; },
+      (c) => { [c.lo, c.hi] = [c.hi, c.lo]; },
+      (c) => { c.lo = "1"; }, // (1, hi) holds many eigenvalues of P_30
+    ];
+    for (const change of tampered) {
+      const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "forest-count" };
+      change(c);
+      expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", c).status, JSON.stringify(c)).toBe("refuted");
+    }
   });
 });
 
@@ -360,7 +380,7 @@ describe("certificates re-check and resist tampering", () => {
       const wrong = recheckSpectralRadiusBound(g, op, b, v.status === "verified" ? "refuted" : "verified", v.certificate);
       expect(wrong.status).toBe("refuted");
     }
-    expect([...kinds].sort()).toEqual(["algebraic-tree", "inertia", "rayleigh", "sturm"]); // algebraic-sparse: see above
+    expect([...kinds].sort()).toEqual(["algebraic-tree", "forest-count", "inertia", "rayleigh", "sturm"]); // algebraic-sparse: see above
   });
   it("a Sturm certificate with a changed coefficient or count is rejected", () => {
     const g = completeBipartite(2, 3);

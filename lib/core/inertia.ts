@@ -16,6 +16,7 @@ import { Budget, Verdict, withinBudget } from "./verdict";
 import { Rational, add, cmp, mul, parseRational, rat, ratToString, sign, sub, ZERO } from "./rational";
 import { Bound, boundApprox, compareToBound, enclose, parseBound, boundPolynomial } from "./bound";
 import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } from "./tree-inertia";
+import { FOREST_CHARPOLY_LIMIT, forestCharpoly, forestCountAt, forestEigenvalueCount, countRelation, multiplicityOf } from "./forest-charpoly";
 import { AlgebraicField } from "./number-field";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
@@ -32,6 +33,12 @@ const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">="
 export type SpectralRadiusCertificate =
   /** Inertia of (at)I − A with no negative value: ρ <= at, and ρ < at when zero = 0. */
   | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; signs?: string; positive: number; negative: 0; zero: number }
+  /**
+   * Forest: the Jacobs–Trevisan elimination of (at)I − A with the given stop rule stops at vertex
+   * `stoppedAt` on a value of sign `sign` (every earlier value positive): ρ >= at (ρ > at when sign is -1).
+   * The re-check repeats the elimination.
+   */
+  | { kind: "tree-signs"; at: string; stop: StopRule; stoppedAt: number; sign: -1 | 0 }
   /** x^T((at)I − A)x = value <= 0: ρ >= at (ρ > at when value < 0). Entries [vertex, rational]. */
   | { kind: "rayleigh"; at: string; vector: Array<[number, string]>; value: string }
   /**
@@ -45,8 +52,17 @@ export type SpectralRadiusCertificate =
    * vertex, compared exactly with b itself (rational or not): ρ < b.
    */
   | { kind: "collatz-wielandt"; vector: string[] }
+  /**
+   * Forest and irrational b: exact inertia of (lo)I − A and (hi)I − A, lo < b < hi, counts `inside`
+   * eigenvalues in (lo, hi) and `atOrAbove` at or above hi; b's minimal polynomial divides χ_A
+   * `multiplicity` times. inside = multiplicity means every eigenvalue in (lo, hi) is b.
+   */
+  | { kind: "forest-count"; lo: string; hi: string; multiplicity: number; inside: number; atOrAbove: number }
   /** χ_A (coefficients x^0 first) has rootsAbove distinct roots above b, all outside (lo, hi) but b. */
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
+
+/** Precisions (bits) of the rational enclosures lo < b < hi at which an irrational b is probed. */
+export const PROBE_BITS: readonly number[] = [20, 50];
 
 /** Largest graph with cycles for which the characteristic-polynomial fallback is attempted (irrational b, ρ within 2^-50 of b). */
 export const CHARPOLY_FALLBACK_LIMIT = 150;
@@ -94,9 +110,12 @@ function relativeTo(f: Fact, c: -1 | 0 | 1): Relation | undefined {
   return f.rel === ">" || f.rel === ">=" || f.rel === "=" ? ">" : undefined;
 }
 
-function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly = false): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
+function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly = false, signsOnly = false): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
   const forest = isForest(g);
-  const r = forest ? treeInertia(g, at, stop, budget) : sparseInertia(g, at, stop, budget);
+  // A forest's early stop is certified by its sign alone when asked (the re-check repeats the
+  // elimination): no witness vector, whose exact quadratic form can cost far more than the elimination.
+  const witness = !probeOnly && !(signsOnly && forest);
+  const r = forest ? treeInertia(g, at, stop, budget, false, witness) : sparseInertia(g, at, stop, budget);
   const atText = ratToString(at);
   if (r.complete) {
     const sparse = "steps" in r ? { steps: (r as SparseEliminationResult).steps, signs: (r as SparseEliminationResult).signs } : {};
@@ -105,6 +124,10 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   }
   // A probe whose failure is not going to be reported needs no certificate (and no costly re-evaluation).
   if (probeOnly) return { fact: { rel: ">=", at }, cert: { kind: "rayleigh", at: atText, vector: [], value: "0" }, forest };
+  if (!witness) {
+    const sign = r.stopSign!;
+    return { fact: { rel: sign < 0 ? ">" : ">=", at }, cert: { kind: "tree-signs", at: atText, stop, stoppedAt: r.stoppedAt!, sign }, forest };
+  }
   const vector = [...r.witness!].filter(([, x]) => x.num !== 0n).sort((a, b) => a[0] - b[0]);
   // The certificate states the value recomputed from the vector itself, checked against the engine.
   const value = quadraticForm(g, at, r.witness!, budget);
@@ -121,6 +144,8 @@ export const CERTIFICATE_KIND: Record<SpectralRadiusCertificate["kind"], string>
   "algebraic-tree": "signs of the Jacobs–Trevisan values in Q(b)",
   "algebraic-sparse": "pivot signs in Q(b)",
   sturm: "characteristic polynomial with Sturm counts",
+  "forest-count": "eigenvalue counts at two rational points and the multiplicity of b",
+  "tree-signs": "sign of the Jacobs–Trevisan value where the elimination stopped",
 };
 
 const VECTOR_METHOD = {
@@ -185,6 +210,16 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
         : `Jacobs–Trevisan elimination of bI − A in Q(b) reaches a ${cert.sign === -1 ? "negative" : "zero"} value at vertex ${cert.stoppedAt} with every value below it positive, so xᵀ(bI − A)x ${cert.sign === -1 ? "<" : "≤"} 0 for the minimising vector of that subtree: ρ ${cert.sign === -1 ? ">" : "≥"} b.`;
     case "collatz-wielandt":
       return `The positive vector x in the certificate has (Ax)_v < b·x_v at each of the ${n} vertices (checked exactly), so ρ(G) ≤ max_v (Ax)_v / x_v < b (Collatz–Wielandt; Perron–Frobenius for non-negative A).`;
+    case "tree-signs":
+      return `Jacobs–Trevisan elimination of ${cert.at}·I − A reaches a ${cert.sign < 0 ? "negative" : "zero"} value at vertex ${cert.stoppedAt}, every value before it being positive, so ${cert.at}·I − A is not positive ${cert.sign < 0 ? "semidefinite" : "definite"} (Sylvester's law of inertia) and ρ ${cert.sign < 0 ? ">" : "≥"} ${cert.at}.`;
+    case "forest-count": {
+      const tail = cert.atOrAbove > 0
+        ? `${cert.atOrAbove} eigenvalue(s) lie at or above ${cert.hi} > b, so ρ > b.`
+        : cert.multiplicity > 0
+          ? `b's minimal polynomial divides χ_A (the matching polynomial of the forest) ${cert.multiplicity} time(s), so b is an eigenvalue of that multiplicity; (${cert.lo}, ${cert.hi}) holds exactly ${cert.inside} eigenvalue(s), hence only b, and none lies at or above ${cert.hi}: ρ = b.`
+          : `b is not a root of χ_A (the matching polynomial of the forest), (${cert.lo}, ${cert.hi}) holds no eigenvalue and none lies at or above ${cert.hi}: ρ ≤ ${cert.lo} < b.`;
+      return `Exact inertia of ${cert.lo}·I − A and ${cert.hi}·I − A (Jacobs–Trevisan elimination, Sylvester's law of inertia) counts the eigenvalues around b, with ${cert.lo} < b < ${cert.hi}. ${tail}`;
+    }
     case "sturm":
       return `Sturm sequences of the characteristic polynomial χ_A count ${cert.rootsAbove} eigenvalue(s) above ${cert.hi} (an upper end of an enclosure of b containing no other eigenvalue), and b ${cert.boundIsEigenvalue ? "is" : "is not"} a root of χ_A (gcd with the bound's polynomial).`;
   }
@@ -214,12 +249,18 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     const quick = vectorFirst(g, b, budget);
     if (quick)
       return verdictFrom(quick.rel, quick.cert, VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"], quick.at ? [`b lies below the rational ${ratToString(quick.at)}`] : []);
-    for (const bits of [20, 50]) {
+    for (const bits of PROBE_BITS) {
       const { lo, hi } = enclose(b, bits);
       const below = runAt(g, lo, "nonPositive", budget, true);
       if (below.fact.rel === "<") return verdictFrom("<", below.cert, methodOf(below.forest), [`b lies above the rational ${ratToString(lo)}`]);
-      const above = runAt(g, hi, "nonPositive", budget);
+      const above = runAt(g, hi, "nonPositive", budget, false, true);
       if (above.fact.rel !== "<") return verdictFrom(">", above.cert, methodOf(above.forest), [`b lies below the rational ${ratToString(hi)}`]);
+    }
+    const counted = isForest(g) && g.n <= FOREST_CHARPOLY_LIMIT && b.minimal !== false ? forestEigenvalueCount(g, b, budget) : undefined;
+    if (counted) {
+      const { rel, lo, hi, multiplicity, inside, atOrAbove } = counted;
+      const cert: SpectralRadiusCertificate = { kind: "forest-count", lo: ratToString(lo), hi: ratToString(hi), multiplicity, inside, atOrAbove };
+      return verdictFrom(rel, cert, "eigenvalue counts by tree inertia at rational points around b, with b's multiplicity in the characteristic (matching) polynomial of the forest");
     }
     if (isForest(g)) {
       const { rel, cert } = algebraicElimination(g, b, stop, budget);
@@ -288,9 +329,11 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
   return recheck(claim, "certificate re-check", budget, () => {
     const c = expectRecord(certificate, "certificate");
     let rel: Relation | undefined;
-    if (c.kind === "inertia" || c.kind === "rayleigh") {
+    if (c.kind === "inertia" || c.kind === "rayleigh" || c.kind === "tree-signs") {
       const at = parseCertRational(c.at, "certificate.at");
-      const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : recheckRayleigh(g, at, c, budget);
+      if (c.kind === "tree-signs" && (b.kind !== "algebraic" || !PROBE_BITS.some((bits) => cmp(enclose(b, bits).hi, at) === 0)))
+        reject(`certificate.at must be the upper end of b's enclosure at ${PROBE_BITS.map((k) => `2^-${k}`).join(" or ")} (the points the verdict probes)`);
+      const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : c.kind === "rayleigh" ? recheckRayleigh(g, at, c, budget) : recheckTreeSigns(g, at, c, budget);
       rel = relativeTo(fact, b.kind === "rational" ? cmp(at, b.value) : compareToBound(at, b));
     } else if (c.kind === "algebraic-tree" || c.kind === "algebraic-sparse") {
       if (b.kind !== "algebraic") reject(`an ${c.kind} certificate needs an irrational bound`);
@@ -301,10 +344,13 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
       const check = checkVectorCertificate(g, c.vector as string[], "<", b, budget);
       if (check.status !== "verified") reject(`certificate.vector: ${check.reason}`);
       rel = "<";
+    } else if (c.kind === "forest-count") {
+      if (b.kind !== "algebraic" || b.minimal === false) reject("a forest-count certificate needs an irrational bound with a minimal polynomial");
+      rel = recheckForestCount(g, b, c, budget);
     } else if (c.kind === "sturm") {
       if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
       rel = recheckSturm(g, b, c, budget);
-    } else reject(`certificate.kind must be "inertia", "rayleigh", "collatz-wielandt", "algebraic-tree", "algebraic-sparse" or "sturm"`);
+    } else reject(`certificate.kind must be "inertia", "rayleigh", "tree-signs", "collatz-wielandt", "algebraic-tree", "algebraic-sparse", "forest-count" or "sturm"`);
     if (rel === undefined) reject("the certificate's point does not separate ρ from b");
     const truth = implies(rel, op);
     if (truth === undefined) reject(`the certificate shows ρ ${SYMBOL[rel]} b, which does not decide the claim`);
@@ -364,6 +410,39 @@ function recheckAlgebraic(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<
   return rel;
 }
 
+function recheckTreeSigns(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {
+  if (!isForest(g)) reject("a tree-signs certificate needs a forest");
+  if (c.stop !== "negative" && c.stop !== "nonPositive") reject(`certificate.stop must be "negative" or "nonPositive"`);
+  const r = treeInertia(g, at, c.stop, budget, false, false);
+  if (r.complete) reject(`the elimination of ${ratToString(at)}I − A does not stop: every value is ${c.stop === "negative" ? "non-negative" : "positive"}`);
+  if (c.stoppedAt !== r.stoppedAt) reject(`the elimination stops at vertex ${r.stoppedAt}, not ${JSON.stringify(c.stoppedAt)}`);
+  if (c.sign !== r.stopSign) reject(`the value there has sign ${r.stopSign}, not ${JSON.stringify(c.sign)}`);
+  return { rel: r.stopSign! < 0 ? ">" : ">=", at };
+}
+
+function recheckForestCount(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
+  if (!isForest(g)) reject("a forest-count certificate needs a forest");
+  if (g.n > FOREST_CHARPOLY_LIMIT) reject(`a forest-count certificate is re-checked up to ${FOREST_CHARPOLY_LIMIT} vertices`);
+  const lo = parseCertRational(c.lo, "certificate.lo"), hi = parseCertRational(c.hi, "certificate.hi");
+  if (compareToBound(lo, b) >= 0 || compareToBound(hi, b) <= 0) reject("certificate.lo < b < certificate.hi fails");
+  // One valid form only: the enclosure the verdict reaches (2^-20, 2^-40, … as in forestEigenvalueCount).
+  const size = Math.max(lo.den.toString(2).length, hi.den.toString(2).length);
+  let canonical = false;
+  for (let bits = 20; bits <= size + 64 && !canonical; bits *= 2) {
+    const e = enclose(b, bits);
+    canonical = cmp(e.lo, lo) === 0 && cmp(e.hi, hi) === 0;
+  }
+  if (!canonical) reject("certificate.lo and certificate.hi must be b's enclosure at 2^-20, 2^-40, 2^-80, … (the one the verdict reaches)");
+  const multiplicity = multiplicityOf(b.poly, forestCharpoly(g, budget), budget);
+  if (c.multiplicity !== multiplicity) reject(`b is an eigenvalue of multiplicity ${multiplicity}, not ${JSON.stringify(c.multiplicity)}`);
+  const fresh = forestCountAt(g, multiplicity, lo, hi, budget);
+  if (c.inside !== fresh.inside) reject(`(lo, hi) holds ${fresh.inside} eigenvalue(s), not ${JSON.stringify(c.inside)}`);
+  if (c.atOrAbove !== fresh.atOrAbove) reject(`${fresh.atOrAbove} eigenvalue(s) lie at or above hi, not ${JSON.stringify(c.atOrAbove)}`);
+  const rel = countRelation(fresh);
+  if (!rel) reject("(lo, hi) holds eigenvalues other than b: the counts decide nothing");
+  return rel;
+}
+
 function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
   const chi = characteristicPolynomial(g, budget);
   if (!Array.isArray(c.charpoly) || c.charpoly.length !== chi.length || c.charpoly.some((s, i) => s !== String(chi[i])))
@@ -389,7 +468,8 @@ function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<stri
  */
 export function spectralRadiusSign(g: Graph, op: "<" | "<=", b: Bound, budget: Budget): boolean {
   const stop: StopRule = op === "<" ? "nonPositive" : "negative";
-  const eliminate = (at: Rational, rule: StopRule) => (isForest(g) ? treeInertia(g, at, rule, budget) : sparseInertia(g, at, rule, budget));
+  // Signs only: no witness vector is built at a probe whose outcome is a bare truth value.
+  const eliminate = (at: Rational, rule: StopRule) => (isForest(g) ? treeInertia(g, at, rule, budget, false, false) : sparseInertia(g, at, rule, budget));
   if (b.kind === "rational") {
     // Complete under "nonPositive": every pivot positive, ρ < b; under "negative": none negative, ρ ≤ b.
     return eliminate(b.value, stop).complete;

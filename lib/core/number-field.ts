@@ -28,6 +28,8 @@ export interface Field<T> {
   enclosure(a: T): [number, number] | undefined;
   /** Approximate size in bits (budget accounting). */
   bits(a: T): number;
+  /** The canonical (reduced) form, for values handed out of a computation; identity when omitted. */
+  normalize?(a: T): T;
 }
 
 export const RATIONALS: Field<Rational> = {
@@ -35,6 +37,27 @@ export const RATIONALS: Field<Rational> = {
   sub, mul, div, sign,
   enclosure: (a) => rationalEnclosure(a),
   bits: (a) => Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4,
+};
+
+/**
+ * Q with fractions kept unreduced inside one elimination: num/den with den > 0 and no gcd taken, so each
+ * operation costs a few multiplications instead of a Euclidean gcd on numbers of thousands of bits.
+ * For the tree elimination at b = p/q the unreduced value of a(v) is q^|T_v| χ(T_v)(b) over
+ * q·∏_c q^|T_c| χ(T_c)(b) (the recurrence of the characteristic polynomials), so the sizes are those of
+ * the reduced fractions up to common factors. Values leave through `normalize` (one gcd each).
+ */
+export const LAZY_RATIONALS: Field<Rational> = {
+  fromInt: (k) => ({ num: BigInt(k), den: 1n }),
+  sub: (a, b) => (a.den === b.den ? { num: a.num - b.num, den: a.den } : { num: a.num * b.den - b.num * a.den, den: a.den * b.den }),
+  mul: (a, b) => ({ num: a.num * b.num, den: a.den * b.den }),
+  div: (a, b) => {
+    if (b.num === 0n) throw new RangeError("division by zero rational");
+    return b.num < 0n ? { num: -a.num * b.den, den: -a.den * b.num } : { num: a.num * b.den, den: a.den * b.num };
+  },
+  sign: (a) => (a.num > 0n ? 1 : a.num < 0n ? -1 : 0),
+  enclosure: (a) => rationalEnclosure(a),
+  bits: (a) => Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4,
+  normalize: (a) => rat(a.num, a.den),
 };
 
 // ------------------------------------------------------------ outward rounding

@@ -120,6 +120,19 @@ export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: 
 
 const vertices = (k: number) => `${k} ${k === 1 ? "vertex" : "vertices"}`;
 
+/** Each absence argument named in words, for the method that decided and its certificate kind. */
+export const ABSENCE_ARGUMENT_WORDS: Record<AbsenceArgument["kind"], string> = {
+  order: "order count",
+  "degree-count": "degree count",
+  "loop-count": "loop count",
+  "component-fit": "component fit",
+  "tree-dp": "subtree matching in a forest",
+  "cycle-in-forest": "cycle against a forest",
+  "odd-cycle-in-bipartite": "odd cycle against a bipartite host",
+  "spider-arms": "spider arms in a forest",
+  search: "exhaustive search",
+};
+
 export function describeAbsence(arg: AbsenceArgument, pattern = "H", host = "G"): string {
   switch (arg.kind) {
     case "order": return `${pattern} has ${arg.patternOrder} vertices, more than the ${arg.hostOrder} of ${host}`;
@@ -147,7 +160,7 @@ export function findSubgraph(h: Graph, g: Graph, options: SubgraphOptions = {}):
         reason: `the embedding φ found by ${d.method}${count} maps every ${induced ? "pair of vertices of H to a pair of G with equal multiplicity" : "edge (and loop) of H to one of G of at least the same multiplicity"}`,
       };
     }
-    const method = d.argument.kind === "search" ? "exhaustive backtracking search" : `${d.argument.kind} argument`;
+    const method = d.argument.kind === "search" ? "exhaustive backtracking search" : `${ABSENCE_ARGUMENT_WORDS[d.argument.kind]} argument`;
     return { status: "refuted", statement, method, reason: describeAbsence(d.argument, pattern, host), certificate: { kind: "absence", argument: d.argument }, notes: [MONOTONICITY_NOTE] };
   });
 }

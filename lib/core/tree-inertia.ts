@@ -18,7 +18,7 @@
 import { adjacency, Graph } from "./graph";
 import { Budget } from "./verdict";
 import type { Rational } from "./rational";
-import { Field, RATIONALS, nextUp, nextDown } from "./number-field";
+import { Field, LAZY_RATIONALS, nextUp, nextDown } from "./number-field";
 
 export type StopRule = "none" | "nonPositive" | "negative";
 
@@ -33,6 +33,8 @@ export interface EliminationResult<T = Rational> {
   witnessValue?: T;
   /** Vertex at which the run stopped. */
   stoppedAt?: number;
+  /** Sign of the value that stopped the run (-1 or 0), also when no witness was asked for. */
+  stopSign?: -1 | 0;
 }
 
 /** True when the graph, ignoring loops, has no cycle (multiple edges count as one weighted edge). */
@@ -86,14 +88,17 @@ export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; paren
  * (a possible zero pivot, where the paper's special rule may apply) is the value computed in exact
  * rationals, from exact values of its subtree computed on demand (each vertex at most once); an exact
  * value then re-enters the interval pass as a tight enclosure. Witness vectors are always exact.
- * `exactOnly` skips the intervals (for cross-checks).
+ * `exactOnly` skips the intervals (for cross-checks). `witness = false` is the sign probe: an early stop
+ * returns the counts so far and the sign of the stopping value only, with no vector and no exact value
+ * (a probe whose outcome decides nothing, or whose certificate is the count, needs neither).
  */
-export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, exactOnly = false): EliminationResult {
-  return treeInertiaOver(g, RATIONALS, b, stop, budget, exactOnly);
+export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, exactOnly = false, witness = true): EliminationResult {
+  // Unreduced fractions inside; the witness and its value leave reduced.
+  return treeInertiaOver(g, LAZY_RATIONALS, b, stop, budget, exactOnly, witness);
 }
 
 /** The same elimination over any exact ordered field containing b (Q, or Q(b) for algebraic b). */
-export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, budget: Budget, exactOnly = false): EliminationResult<T> {
+export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, budget: Budget, exactOnly = false, witness = true): EliminationResult<T> {
   const { start, nbr, wt, diag } = adjacency(g);
   const { order, parent } = bfsForest(g, budget);
   const n = g.n;
@@ -142,6 +147,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       exact[list[i]] = a;
     }
   };
+  const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
   let positive = 0, negative = 0, zero = 0;
   for (let idx = n - 1; idx >= 0; idx--) {
     const v = order[idx];
@@ -174,7 +180,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
         setExact(v, F.div(F.fromInt(-1), F.fromInt(2)));
         negative++;
         if (parent[v] >= 0) cut[v] = 1;
-        if (stop !== "none") return zeroChildWitness(v, zeroChild);
+        if (stop !== "none") return witness ? zeroChildWitness(v, zeroChild) : { positive, negative, zero, complete: false, stoppedAt: v, stopSign: -1 };
         continue;
       }
       setExact(v, a);
@@ -187,9 +193,10 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     else if (s < 0) negative++;
     else zero++;
     if ((stop === "nonPositive" && s <= 0) || (stop === "negative" && s < 0)) {
+      if (!witness) return { positive, negative, zero, complete: false, stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
       ensureExact(v);
       const x = subtreeVector(g, F, v, parent, exact, budget);
-      return { positive, negative, zero, complete: false, witness: x, witnessValue: exact[v]!, stoppedAt: v };
+      return { positive, negative, zero, complete: false, witness: x, witnessValue: norm(exact[v]!), stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
     }
   }
   return { positive, negative, zero, complete: true };
@@ -200,9 +207,9 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     // x^T M x = 0 on the subtree of c; adding t*e_v adds -2 t w x_c + t^2 M[v][v] < 0 for small t > 0.
     const mvv = diagonal(v);
     const t = F.sign(F.sub(mvv, w)) <= 0 ? F.fromInt(1) : F.div(w, mvv);
-    x.set(v, t);
-    const value = F.sub(F.mul(F.mul(t, t), mvv), F.mul(F.mul(F.fromInt(2), w), t));
-    return { positive, negative, zero, complete: false, witness: x, witnessValue: value, stoppedAt: v };
+    x.set(v, norm(t));
+    const value = norm(F.sub(F.mul(F.mul(t, t), mvv), F.mul(F.mul(F.fromInt(2), w), t)));
+    return { positive, negative, zero, complete: false, witness: x, witnessValue: value, stoppedAt: v, stopSign: -1 };
   }
 }
 
@@ -218,6 +225,7 @@ function edgeWeight(g: Graph, u: number, v: number): number {
  */
 function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array, value: Array<T | undefined>, budget: Budget): Map<number, T> {
   const { start, nbr, wt } = adjacency(g);
+  const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
   const x = new Map<number, T>([[top, F.fromInt(1)]]);
   const queue = [top];
   for (let h = 0; h < queue.length; h++) {
@@ -227,8 +235,8 @@ function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array
     for (let k = start[v]; k < start[v + 1]; k++) {
       const u = nbr[k];
       if (parent[u] !== v) continue;
-      const au = value[u]!;
-      x.set(u, F.div(F.mul(F.fromInt(wt[k]), xv), au));
+      const au = norm(value[u]!);
+      x.set(u, norm(F.div(F.mul(F.fromInt(wt[k]), xv), au)));
       queue.push(u);
     }
   }

@@ -5,7 +5,8 @@ import "server-only";
  */
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
+import { eventSentence, placePhrase, type EventPlace } from "@/lib/review/event-sentences";
 import type { NameLens } from "./blind";
 
 /** Events whose detail names a member or an address (invitations, membership, due dates). */
@@ -17,7 +18,7 @@ export interface AuditInput {
   action: string;
   subjectType: "proof" | "case" | "step" | "revision" | "claim" | "review" | "comment" | "invitation" | "member" | "settings" | "round" | "report";
   subjectId: number | null;
-  detail?: string;
+  detail?: string | null;
 }
 
 export async function recordEvent(e: AuditInput, transaction?: Transaction): Promise<void> {
@@ -32,20 +33,24 @@ export interface AuditEntry {
   subjectId: number | null;
   detail: string | null;
   actorName: string | null;
-  /** "step 2.1", "case 3.2" … when the subject is a step or case of the proof, else "step #12". */
+  /** "step 2.1:1 (case 2.1, “Title”)", "case 3.2, “Title”", or "the proof": where the event happened, in the pages' labels. */
   subjectLabel: string;
+  /** The event in one sentence: who did what, where (lib/review/event-sentences.ts). */
+  sentence: string;
+  /** The page of the step or proof the event is about. */
+  href: string;
   /** The case the event is about (through its step, revision, claim, review or comment), or null for the whole proof. */
   caseId: number | null;
   at: string;
 }
 
-/** Numbers of the proof's cases ("3.2") and steps ("3.2.1"), for readable subjects. */
-async function labels(proofId: number): Promise<{ cases: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
+/** Numbers and titles of the proof's cases ("3.2") and labels of its steps ("3.2:1", lib/proof-tree.ts), for readable subjects. */
+async function labels(proofId: number): Promise<{ cases: Map<number, string>; titles: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
   const { Case, Step } = models();
-  const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
+  const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position", "title"] });
   const cases = new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
-  return { cases, steps: new Map(steps.map((st) => [st.id, `${cases.get(st.caseId) ?? "?"}.${st.position}`])), caseOfStep: new Map(steps.map((st) => [st.id, st.caseId])) };
+  return { cases, titles: new Map(rows.map((c) => [c.id, c.title])), steps: labelSteps(cases, steps), caseOfStep: new Map(steps.map((st) => [st.id, st.caseId])) };
 }
 
 /** The step of each revision, claim, review and comment named by these events, so that every event finds its case. */
@@ -74,7 +79,7 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
   const { AuditEvent, User } = models();
   const events = await AuditEvent.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
-  const [{ cases, steps, caseOfStep }, stepOf] = await Promise.all([labels(proofId), stepsOfSubjects(events)]);
+  const [{ cases, titles, steps, caseOfStep }, stepOf] = await Promise.all([labels(proofId), stepsOfSubjects(events)]);
   const caseOf = (type: string, id: number | null): number | null => {
     if (id === null) return null;
     if (type === "case") return id;
@@ -82,18 +87,30 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
     const stepId = stepOf.get(`${type}:${id}`);
     return stepId === undefined ? null : (caseOfStep.get(stepId) ?? null);
   };
-  const labelOf = (type: string, id: number | null) =>
-    id === null ? type : type === "step" && steps.has(id) ? `step ${steps.get(id)}` : type === "case" && cases.has(id) ? `case ${cases.get(id)}` : `${type} #${id}`;
+  const stepIdOf = (type: string, id: number | null): number | null => (id === null ? null : type === "step" ? id : (stepOf.get(`${type}:${id}`) ?? null));
+  const placeOf = (type: string, id: number | null): EventPlace => {
+    const stepId = stepIdOf(type, id);
+    const caseId = caseOf(type, id);
+    return { step: stepId === null ? null : (steps.get(stepId) ?? null), caseNumber: caseId === null ? null : (cases.get(caseId) ?? null), caseTitle: caseId === null ? null : (titles.get(caseId) ?? null) };
+  };
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
-  return events.map((e) => ({
-    id: Number(e.id),
-    action: e.action,
-    subjectType: e.subjectType,
-    subjectId: e.subjectId,
-    detail: lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail,
-    actorName: e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null),
-    subjectLabel: labelOf(e.subjectType, e.subjectId),
-    caseId: caseOf(e.subjectType, e.subjectId),
-    at: e.createdAt.toISOString(),
-  }));
+  return events.map((e) => {
+    const detail = lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail;
+    const actorName = e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null);
+    const place = placeOf(e.subjectType, e.subjectId);
+    const stepId = stepIdOf(e.subjectType, e.subjectId);
+    return {
+      id: Number(e.id),
+      action: e.action,
+      subjectType: e.subjectType,
+      subjectId: e.subjectId,
+      detail,
+      actorName,
+      subjectLabel: placePhrase(place),
+      sentence: eventSentence({ action: e.action, subjectType: e.subjectType, actorName, detail, place }),
+      href: stepId !== null && place.step !== null ? `/proofs/${proofId}/steps/${stepId}` : `/proofs/${proofId}`,
+      caseId: caseOf(e.subjectType, e.subjectId),
+      at: e.createdAt.toISOString(),
+    };
+  });
 }

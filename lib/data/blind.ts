@@ -6,7 +6,7 @@ import "server-only";
  */
 import { models } from "@/models";
 import { refereeDisplayName } from "@/lib/review/rounds";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { listReferees } from "./rounds";
 
 export interface NameLens {
@@ -14,6 +14,11 @@ export interface NameLens {
   name(userId: number, name: string): string;
   /** Whether this person's e-mail address and id must stay hidden from the viewer. */
   hides(userId: number): boolean;
+}
+
+/** Whether the proof is refereed blind (read per request: switching it on hides names at once). */
+export async function isBlind(proofId: number): Promise<boolean> {
+  return (await models().Proof.findByPk(proofId, { attributes: ["blindReview"] }))?.blindReview ?? false;
 }
 
 const open: NameLens = { name: (_id, name) => name, hides: () => false };

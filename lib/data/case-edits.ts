@@ -4,6 +4,7 @@ import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { hiddenCaseIds } from "@/lib/data/cases";
+import { recordEvent } from "@/lib/data/audit";
 import type { CreateCaseInput, UpdateCaseInput } from "@/lib/validations/case";
 
 type CaseRow = InstanceType<ReturnType<typeof models>["Case"]>;
@@ -51,7 +52,7 @@ function needConfirmation(what: string, held: { steps: number; reviews: number }
 }
 
 async function audit(proofId: number, actorId: number, action: string, caseId: number, detail: string | null, transaction: Transaction) {
-  await models().AuditEvent.create({ proofId, actorId, action, subjectType: "case", subjectId: caseId, detail }, { transaction });
+  await recordEvent({ proofId, actorId, action, subjectType: "case", subjectId: caseId, detail }, transaction);
 }
 
 export async function createCase(proofId: number, userId: number, input: CreateCaseInput): Promise<{ id: number }> {

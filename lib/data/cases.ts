@@ -1,6 +1,7 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, pruneCaseTree, type CaseNode } from "@/lib/proof-tree";
+import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import {
   caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ProofState, type ReviewFact, type StepFacts,
 } from "@/lib/review/states";
@@ -30,23 +31,13 @@ export const CASE_STATES: readonly CaseState[] = ["drafting", "claim failing", "
 
 /** Ids of deleted cases and everything below them: hidden from the tree, kept for the history. */
 export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number | null; deletedAt: Date | null }>): Set<number> {
-  const hidden = new Set(rows.filter((r) => r.deletedAt).map((r) => r.id));
-  let grew = true;
-  while (grew) {
-    grew = false;
-    for (const r of rows)
-      if (!hidden.has(r.id) && r.parentId !== null && hidden.has(r.parentId)) {
-        hidden.add(r.id);
-        grew = true;
-      }
-  }
-  return hidden;
+  return casesBelow(rows.filter((r) => r.deletedAt).map((r) => r.id), rows);
 }
 
 /** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
-export async function liveCases(proofId: number) {
+export async function liveCases(proofId: number, transaction?: Transaction) {
   const { Case } = models();
-  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]] });
+  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction });
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }
@@ -155,8 +146,17 @@ export async function listDeletedCases(proofId: number): Promise<DeletedCaseView
   const all = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "title", "deletedAt"] });
   const deleted = all.filter((c) => c.deletedAt).sort((a, b) => b.deletedAt!.getTime() - a.deletedAt!.getTime());
   if (deleted.length === 0) return [];
-  const below = (id: number): number[] => [id, ...all.filter((c) => c.parentId === id).flatMap((c) => below(c.id))];
   return Promise.all(
-    deleted.map(async (c) => ({ id: c.id, title: c.title, deletedAt: c.deletedAt!.toISOString(), steps: await Step.count({ where: { caseId: below(c.id) } }) })),
+    deleted.map(async (c) => ({ id: c.id, title: c.title, deletedAt: c.deletedAt!.toISOString(), steps: await Step.count({ where: { caseId: [...casesBelow([c.id], all)] } }) })),
   );
+}
+
+/** The cases and steps a text of this proof may refer to, labelled as the pages print them (for the editor). */
+export async function proofReferences(proofId: number, limit = 300): Promise<Array<{ label: string; text: string }>> {
+  const out: Array<{ label: string; text: string }> = [];
+  for (const c of flattenCaseTree(await getCaseTree(proofId))) {
+    out.push({ label: `${c.number} ${c.title}`, text: `Case ${c.number}` });
+    c.steps.forEach((_s, i) => out.push({ label: stepLabel(c.number, i + 1), text: `Step ${stepLabel(c.number, i + 1)}` }));
+  }
+  return out.slice(0, limit);
 }

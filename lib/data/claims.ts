@@ -5,15 +5,18 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
 import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
 import { claimDigest } from "@/lib/core/claims";
-import { checkInputs } from "@/lib/verification/worker-entry";
+import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
+import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-display";
+import { checkInputs } from "@/lib/core/claim-inputs";
 import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
-import type { ClaimStatus } from "@/models/claim";
+import type { ClaimStatus } from "@/lib/review/states";
 import { liveCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { recordEvent } from "@/lib/data/audit";
 import { lockLatest, recordVerdictInRevisions, reviseClaims, revisionClaimOf } from "@/lib/data/revisions";
 
 export { verificationSettled };
@@ -25,11 +28,16 @@ export interface ClaimView {
   kind: string;
   status: ClaimStatus;
   statement: string | null;
+  /** The method that decided (without the certificate words: those are `certificateKind`). */
   method: string | null;
+  /** The kind of the stored certificate in words, read from the certificate; null when none. */
+  certificateKind: string | null;
   reason: string | null;
   digest: string | null;
   /** The claim's inputs as JSON; graph texts longer than 4 000 characters are cut for display. */
   input: Record<string, unknown>;
+  /** The inputs as a reader sees them (lib/core/claim-display.ts): graphs as entered and as graph6, bound, vector, … */
+  inputs: ClaimInputsView;
   certificate: { summary: string; bytes: number; preview: string } | null;
   checkerVersion: string | null;
   /** The worker (host:pid) that stored the verdict. */
@@ -53,15 +61,25 @@ function cut(value: unknown): unknown {
   return value;
 }
 
-function certificateSummary(text: string): ClaimView["certificate"] {
+function certificateSummary(text: string, claimKind: string): ClaimView["certificate"] {
   let summary = "certificate";
   try {
-    const c = JSON.parse(text) as { outcome?: string; evidence?: { kind?: string } };
-    summary = `supports “${c.outcome}”${c.evidence?.kind ? `; evidence: ${c.evidence.kind}` : ""}`;
+    const c = JSON.parse(text) as { outcome?: string };
+    const kind = certificateKindOf(claimKind, c);
+    summary = `supports “${c.outcome}”${kind ? `; ${kind.words}` : ""}`;
   } catch {
     // stored by this server, always JSON; keep the generic summary otherwise
   }
   return { summary, bytes: text.length, preview: text.length > 1_500 ? `${text.slice(0, 1_500)}…` : text };
+}
+
+function certificateJson(text: string | null): unknown {
+  if (text === null) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
 }
 
 function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView {
@@ -73,11 +91,13 @@ function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView 
     kind: c.kind,
     status: c.status,
     statement: c.statement,
-    method: c.method,
+    method: c.method === null ? null : methodWithoutCertificate(c.method),
+    certificateKind: certificateKindOf(c.kind, certificateJson(c.certificate))?.words ?? null,
     reason: c.reason,
     digest: c.digest,
     input: cut(JSON.parse(c.input)) as Record<string, unknown>,
-    certificate: c.certificate ? certificateSummary(c.certificate) : null,
+    inputs: claimInputsView(c.input, certificateJson(c.certificate)),
+    certificate: c.certificate ? certificateSummary(c.certificate, c.kind) : null,
     checkerVersion: c.checkerVersion,
     decidedBy: c.decidedBy ?? null,
     progress: c.status === "pending" ? progress : null,
@@ -144,7 +164,7 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   await stepInProof(proofId, stepId);
   const claims = await readClaims(raw);
   const stored = await getSequelize().transaction(async (transaction) => {
@@ -161,7 +181,7 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
         },
         { transaction },
       );
-      await AuditEvent.create({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, { transaction });
+      await recordEvent({ proofId, actorId: userId, action: "claim.attached", subjectType: "claim", subjectId: row.id, detail: claim.kind }, transaction);
       out.push({ id: row.id, row });
     }
     await reviseClaims(proofId, stepId, userId, transaction, latest, (set) => [...set, ...out.map((o) => revisionClaimOf(o.row))]);
@@ -188,6 +208,12 @@ async function claimInProof(proofId: number, claimId: number): Promise<ClaimRow>
   return row;
 }
 
+/** The claim's input exactly as stored (cairn-claim/1 JSON text), with its step, for the download of a large input. */
+export async function getClaimInput(proofId: number, claimId: number): Promise<{ stepId: number; input: string }> {
+  const row = await claimInProof(proofId, claimId);
+  return { stepId: row.stepId, input: row.input };
+}
+
 export async function getClaim(proofId: number, claimId: number): Promise<ClaimView> {
   const row = await claimInProof(proofId, claimId);
   return claimView(row, (await pendingProgress([row])).get(row.id) ?? null);
@@ -198,11 +224,10 @@ export async function getClaim(proofId: number, claimId: number): Promise<ClaimV
  * the claim is `pending` until a worker stores the new verdict. A claim already pending is left as it is.
  */
 export async function recheck(proofId: number, claimId: number, userId: number): Promise<ClaimView> {
-  const { AuditEvent } = models();
   const row = await claimInProof(proofId, claimId);
   if (row.status !== "pending") {
     await row.update({ status: "pending", verifyRound: row.verifyRound + 1 });
-    await AuditEvent.create({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
+    await recordEvent({ proofId, actorId: userId, action: "claim.rechecked", subjectType: "claim", subjectId: claimId, detail: null });
     await scheduleVerification(claimId, row.verifyRound, userId);
   }
   return claimView(row);
@@ -214,7 +239,7 @@ export async function recheck(proofId: number, claimId: number, userId: number):
  * claim is not pending (its verdict is already in).
  */
 export async function cancelVerification(proofId: number, claimId: number, user: { id: number; name: string }): Promise<ClaimView> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   const row = await claimInProof(proofId, claimId);
   const cancelled = await getSequelize().transaction(async (transaction) => {
     await lockLatest(row.stepId, transaction);
@@ -223,7 +248,7 @@ export async function cancelVerification(proofId: number, claimId: number, user:
       { where: { id: claimId, status: "pending", verifyRound: row.verifyRound }, transaction },
     );
     if (changed !== 1) return false;
-    await AuditEvent.create({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, { transaction });
+    await recordEvent({ proofId, actorId: user.id, action: "claim.cancelled", subjectType: "claim", subjectId: claimId, detail: null }, transaction);
     // `undecided` is a verdict like any other for the step's revisions (a vouch waits for no pending claim).
     await recordVerdictInRevisions(claimId, user.id, transaction);
     return true;
@@ -241,14 +266,14 @@ export async function cancelVerification(proofId: number, claimId: number, user:
  * leave it out from now on. A claim already withdrawn is not found (404).
  */
 export async function withdrawClaim(proofId: number, claimId: number, userId: number): Promise<WithdrawnClaimView> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
     const latest = await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
     await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
-    await AuditEvent.create({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, { transaction });
+    await recordEvent({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, transaction);
   });
   await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
@@ -299,6 +324,8 @@ export interface ClaimRowView {
   status: ClaimStatus;
   statement: string | null;
   method: string | null;
+  certificateKind: string | null;
+  inputs: ClaimInputsView;
   checkedAt: string | null;
 }
 
@@ -315,7 +342,7 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));
   const rows = await Claim.findAll({
     where: { stepId: { [Op.in]: steps.map((s) => s.id) } },
-    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt"],
+    attributes: ["id", "stepId", "kind", "status", "statement", "method", "checkedAt", "input", "certificate"],
     order: [["id", "ASC"]],
   });
   const caseOf = new Map(steps.map((s) => [s.id, numbered.get(s.caseId)!]));
@@ -328,7 +355,9 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
     kind: r.kind,
     status: r.status,
     statement: r.statement,
-    method: r.method,
+    method: r.method === null ? null : methodWithoutCertificate(r.method),
+    certificateKind: certificateKindOf(r.kind, certificateJson(r.certificate))?.words ?? null,
+    inputs: claimInputsView(r.input, certificateJson(r.certificate)),
     checkedAt: r.checkedAt ? r.checkedAt.toISOString() : null,
   }));
 }

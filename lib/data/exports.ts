@@ -15,10 +15,11 @@ import { TIME_LIMIT_MS } from "@/lib/verification/limits";
 import { buildBundle } from "@/lib/export/bundle";
 import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
-import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotStep } from "@/lib/export/snapshot";
+import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotRound, type SnapshotStep } from "@/lib/export/snapshot";
 import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
 import type { ClaimStatus, DisputeState } from "@/lib/review/states";
 import { liveCases } from "./cases";
+import { listRoundViews } from "./rounds";
 import { recordEvent } from "./audit";
 
 
@@ -106,7 +107,25 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
     requiredApprovals: proof.requiredApprovals,
     members: members.map((m) => ({ name: shown(m.userId, nameOf(m, "user")), role: m.role })),
     cases: tree.map(toSnapshot),
+    rounds: await exportedRounds(proofId),
   };
+}
+
+/**
+ * The rounds as an export carries them: exactly what the proof's authors may read (lib/review/rounds.ts
+ * reportAccess through listRoundViews, with the blind lens), with no ids, no addresses and no editor note.
+ */
+async function exportedRounds(proofId: number): Promise<SnapshotRound[]> {
+  const views = await listRoundViews(proofId, { id: 0, role: "author" });
+  return views.map((v) => ({
+    number: v.number,
+    state: v.state,
+    openedAt: v.openedAt,
+    dueAt: v.dueAt,
+    closedAt: v.closedAt,
+    decision: v.decision && { decision: v.decision.decision, editor: v.decision.editor, decidedAt: v.decision.decidedAt, letter: v.decision.letter, reportsAttached: v.decision.reportsAttached },
+    reports: v.reports.filter((r) => r.state === "submitted").map((r) => ({ referee: r.referee, version: r.version, recommendation: r.recommendation, submittedAt: r.submittedAt, body: r.body })),
+  }));
 }
 
 export async function getCertification(proofId: number): Promise<Certification> {

@@ -1,8 +1,9 @@
 import "server-only";
 /**
- * Inviting reviewers by e-mail. The link carries a random token; only its SHA-256 is stored. A link
- * works once and until it expires; accepting creates the account (or uses the signed-in one) and makes
- * the person a reviewer of the whole proof or of the chosen cases.
+ * Inviting members by e-mail: referees (of the whole proof or chosen cases), co-authors and editors. The
+ * link carries a random token; only its SHA-256 is stored. A link works once and until it expires;
+ * accepting creates the account (or uses the signed-in one) and makes the person a member in the
+ * invitation's role. Who may invite whom is the access module's (lib/access/rules.ts invitationRefusal).
  */
 import { createHash, randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
@@ -12,7 +13,7 @@ import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
 import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
 import { deliverAfterCommit, deliverMail, enqueueMail, retryMailNow } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { MailStatus } from "@/models/outgoing-mail";
 import type { CurrentUser } from "@/lib/session";
 import { newAccountSchema, type AcceptInvitationInput, type InvitationInput } from "@/lib/validations/invitation";
@@ -30,8 +31,13 @@ async function caseNumbers(proofId: number): Promise<Map<number, string>> {
 
 /** The stored subject line is at most 300 characters: a long title is shortened there (the message body keeps it whole). */
 const SUBJECT_MAX = 300;
-function invitationSubject(inviterName: string, title: string): string {
-  const head = `[Cairn] ${inviterName} invites you to review “`;
+/** What the invitation asks of the person, in its subject and first line. */
+const INVITED_TO: Record<ProofRole, string> = { reviewer: "review", author: "co-author", editor: "act as editor for" };
+/** The role's name in mails, notifications and the audit trail. */
+export const ROLE_WORD: Record<ProofRole, string> = { reviewer: "reviewer", author: "co-author", editor: "editor" };
+
+function invitationSubject(inviterName: string, title: string, role: ProofRole): string {
+  const head = `[Cairn] ${inviterName} invites you to ${INVITED_TO[role]} “`;
   const room = SUBJECT_MAX - head.length - 1;
   const shown = title.length <= room ? title : `${title.slice(0, Math.max(room - 1, 0)).trimEnd()}…`;
   return `${head}${shown}”`.slice(0, SUBJECT_MAX);
@@ -47,7 +53,8 @@ export interface InvitationCreated {
 export async function createInvitation(proofId: number, inviter: CurrentUser, input: InvitationInput): Promise<InvitationCreated> {
   const { Proof, User, ProofMember, Invitation, InvitationCase } = models();
   const numbers = await caseNumbers(proofId);
-  const caseIds = input.scope === "cases" ? [...new Set(input.caseIds ?? [])] : [];
+  const role = input.role ?? "reviewer";
+  const caseIds = role === "reviewer" && input.scope === "cases" ? [...new Set(input.caseIds ?? [])] : [];
   const foreign = caseIds.filter((id) => !numbers.has(id));
   if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
   const existing = await User.findOne({ where: { email: input.email } });
@@ -56,16 +63,20 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
   const proof = await Proof.findByPk(proofId);
   const token = randomBytes(32).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
-  const scopeText = input.scope === "proof" ? "the whole proof" : `case${caseIds.length > 1 ? "s" : ""} ${caseIds.map((id) => numbers.get(id)).join(", ")}`;
+  const scopeText = caseIds.length === 0 ? "the whole proof" : `case${caseIds.length > 1 ? "s" : ""} ${caseIds.map((id) => numbers.get(id)).join(", ")}`;
   // "the whole proof of the proof …" read badly: the whole proof is simply "the proof".
-  const whatText = input.scope === "proof" ? `the proof “${proof!.title}”` : `${scopeText} of the proof “${proof!.title}”`;
+  const whatText = caseIds.length === 0 ? `the proof “${proof!.title}”` : `${scopeText} of the proof “${proof!.title}”`;
+  const firstLine =
+    role === "reviewer"
+      ? `${inviter.name} invites you to review ${whatText} in Cairn.`
+      : `${inviter.name} invites you to join ${whatText} in Cairn as ${role === "author" ? "a co-author" : "an editor"}.`;
   const { id, mailId } = await getSequelize().transaction(async (transaction) => {
     const mailId = await enqueueMail(
       {
         to: input.email,
-        subject: invitationSubject(inviter.name, proof!.title),
+        subject: invitationSubject(inviter.name, proof!.title, role),
         text: [
-          `${inviter.name} invites you to review ${whatText} in Cairn.`,
+          firstLine,
           "",
           "To accept, open this link (it works once, until " + expiresAt.toISOString().slice(0, 10) + "); you can create an account or sign in:",
           appUrl(`/invitations/${token}`),
@@ -75,9 +86,9 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
       },
       transaction,
     );
-    const inv = await Invitation.create({ proofId, email: input.email, tokenHash: hashToken(token), scope: input.scope, invitedBy: inviter.id, mailId, expiresAt }, { transaction });
+    const inv = await Invitation.create({ proofId, email: input.email, tokenHash: hashToken(token), scope: caseIds.length ? "cases" : "proof", role, invitedBy: inviter.id, mailId, expiresAt }, { transaction });
     if (caseIds.length) await InvitationCase.bulkCreate(caseIds.map((caseId) => ({ invitationId: inv.id, caseId })), { transaction });
-    await recordEvent({ proofId, actorId: inviter.id, action: "invitation.sent", subjectType: "invitation", subjectId: inv.id, detail: `${input.email}; ${scopeText}` }, transaction);
+    await recordEvent({ proofId, actorId: inviter.id, action: "invitation.sent", subjectType: "invitation", subjectId: inv.id, detail: `${input.email}; ${role === "reviewer" ? scopeText : `as ${ROLE_WORD[role]}`}` }, transaction);
     return { id: inv.id, mailId };
   });
   const sent = await deliverMail(mailId);
@@ -87,6 +98,7 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
 export interface InvitationView {
   id: number;
   email: string;
+  role: ProofRole;
   scope: string;
   state: InvitationState;
   expiresAt: string;
@@ -99,9 +111,11 @@ export type InvitationState = "waiting" | "accepted" | "expired" | "revoked";
 const stateOf = (r: { usedAt: Date | null; revokedAt: Date | null; expiresAt: Date }, now = Date.now()): InvitationState =>
   r.usedAt ? "accepted" : r.revokedAt ? "revoked" : r.expiresAt.getTime() < now ? "expired" : "waiting";
 
-export async function listInvitations(proofId: number): Promise<InvitationView[]> {
+/** The proof's invitations (only those granting one of `roles`, when given: what the viewer may invite). */
+export async function listInvitations(proofId: number, roles?: readonly ProofRole[]): Promise<InvitationView[]> {
   const { Invitation, InvitationCase, OutgoingMail } = models();
-  const rows = await Invitation.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]] });
+  if (roles && roles.length === 0) return [];
+  const rows = await Invitation.findAll({ where: roles ? { proofId, role: [...roles] } : { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]] });
   const ids = rows.map((r) => r.id);
   const [scopes, mails, numbers] = await Promise.all([
     ids.length ? InvitationCase.findAll({ where: { invitationId: ids } }) : [],
@@ -114,6 +128,7 @@ export async function listInvitations(proofId: number): Promise<InvitationView[]
     return {
       id: r.id,
       email: r.email,
+      role: r.role,
       scope: r.scope === "proof" ? "whole proof" : `cases ${scopes.filter((s) => s.invitationId === r.id).map((s) => numbers.get(s.caseId) ?? "?").sort().join(", ")}`,
       state: stateOf(r, now),
       expiresAt: r.expiresAt.toISOString(),
@@ -121,6 +136,13 @@ export async function listInvitations(proofId: number): Promise<InvitationView[]
       mail: { id: r.mailId, status: mail?.status ?? "none", attempts: mail?.attempts ?? 0, lastError: mail?.lastError ?? null },
     };
   });
+}
+
+/** The role an invitation of this proof grants (404 for an invitation of another proof): the access check depends on it. */
+export async function invitationRole(proofId: number, invitationId: number): Promise<ProofRole> {
+  const inv = await models().Invitation.findOne({ where: { id: invitationId, proofId }, attributes: ["role"] });
+  if (!inv) throw notFound("This invitation");
+  return inv.role;
 }
 
 /** The editor's "try again" for an invitation whose mail has not gone out. */
@@ -153,6 +175,7 @@ export async function revokeInvitation(proofId: number, invitationId: number, ac
 
 export interface InvitationPreview {
   proofTitle: string;
+  role: ProofRole;
   email: string;
   scope: string;
   inviterName: string;
@@ -171,7 +194,7 @@ export async function previewInvitation(token: string): Promise<InvitationPrevie
     User.findOne({ where: { email: inv.email } }),
     listInvitations(inv.proofId).then((all) => all.find((v) => v.id === inv.id)!),
   ]);
-  return { proofTitle: proof?.title ?? "", email: inv.email, scope: view.scope, inviterName: inviter?.name ?? "", state: view.state, accountExists: account !== null };
+  return { proofTitle: proof?.title ?? "", role: inv.role, email: inv.email, scope: view.scope, inviterName: inviter?.name ?? "", state: view.state, accountExists: account !== null };
 }
 
 /**
@@ -201,16 +224,25 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
       accountCreated = true;
     }
     const member = await ProofMember.findOne({ where: { proofId: inv.proofId, userId }, transaction });
-    if (member && member.role !== "reviewer") throw conflict(`You are already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof; one person has one role per proof.`);
+    if (member && member.role !== inv.role) throw conflict(`You are already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof; one person has one role per proof.`);
     const caseIds = (await InvitationCase.findAll({ where: { invitationId: inv.id }, transaction })).map((c) => c.caseId);
     const hadScopes = member ? (await ReviewerScope.count({ where: { proofId: inv.proofId, userId }, transaction })) > 0 : false;
-    if (!member) await ProofMember.create({ proofId: inv.proofId, userId, role: "reviewer" }, { transaction });
-    if (inv.scope === "proof") await ReviewerScope.destroy({ where: { proofId: inv.proofId, userId }, transaction });
+    if (!member) await ProofMember.create({ proofId: inv.proofId, userId, role: inv.role }, { transaction });
+    if (inv.role !== "reviewer") {
+      // co-authors and editors see the whole proof: nothing to scope
+    } else if (inv.scope === "proof") await ReviewerScope.destroy({ where: { proofId: inv.proofId, userId }, transaction });
     else if (!member || hadScopes)
       for (const caseId of caseIds) await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
     await inv.update({ usedAt: new Date(), usedBy: userId }, { transaction });
-    await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` }, transaction);
-    await notify([userId], { kind: "assigned", proofId: inv.proofId, message: "You are now a reviewer of this proof. Your queue lists the steps waiting for your verdict.", link: "/queue" }, transaction);
+    await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: inv.role === "reviewer" ? `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` : `joined as ${ROLE_WORD[inv.role as ProofRole]}` }, transaction);
+    const title = (await models().Proof.findByPk(inv.proofId, { attributes: ["title"], transaction }))?.title ?? "";
+    await notify(
+      [userId],
+      inv.role === "reviewer"
+        ? { kind: "assigned", proofId: inv.proofId, message: `You are now a referee of “${title}”${inv.scope === "proof" ? "" : ` (${caseIds.length} chosen case${caseIds.length === 1 ? "" : "s"})`}. Your queue lists its steps waiting for your verdict.`, link: "/queue" }
+        : { kind: "assigned", proofId: inv.proofId, message: `You are now ${inv.role === "author" ? "a co-author" : "an editor"} of “${title}”.`, link: `/proofs/${inv.proofId}` },
+      transaction,
+    );
     return { proofId: inv.proofId, userId, accountCreated };
   });
   await deliverAfterCommit();

@@ -2,7 +2,7 @@ import "server-only";
 import { QueryTypes } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import { refereeLens } from "./blind";
 
 export interface ProofListItem {
@@ -67,6 +67,8 @@ export interface ProofSummary {
   title: string;
   statement: string;
   requiredApprovals: number;
+  /** The member who owns the proof (its creator, until they hand it over). */
+  ownerId: number;
   createdAt: string;
   updatedAt: string;
   members: Array<{ userId: number; name: string; email: string; role: ProofRole }>;
@@ -88,6 +90,7 @@ export async function getProofSummary(proofId: number, viewer?: { id: number; ro
     title: p.title,
     statement: p.statement,
     requiredApprovals: p.requiredApprovals,
+    ownerId: p.createdBy,
     createdAt: p.createdAt.toISOString(),
     updatedAt: p.updatedAt.toISOString(),
     members: members.map((m) => {

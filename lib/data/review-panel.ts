@@ -2,7 +2,7 @@ import "server-only";
 /** What the review panel under a step shows (verdicts, stale vouches, disputes with threads, comments) and the queue's step view. */
 import { models } from "@/models";
 import { refereeLens } from "./blind";
-import type { DisputeState } from "@/models/review";
+import type { DisputeState } from "@/lib/review/states";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
 import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";

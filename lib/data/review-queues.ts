@@ -8,7 +8,7 @@ import { models } from "@/models";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { caseState, proofState, stepStatus, isUnresolved, type CaseFacts, type CaseState, type ProofState, type StepFacts } from "@/lib/review/states";
 import { expandScope } from "@/lib/access/rules";
-import type { DisputeState } from "@/models/review";
+import type { DisputeState } from "@/lib/review/states";
 import { claimStatuses } from "./reviews";
 import { refereeLenses, type NameLens } from "./blind";
 

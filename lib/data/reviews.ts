@@ -11,10 +11,10 @@ import { conflict, invalid, notFound } from "@/lib/errors";
 import type { Actor } from "@/lib/access/rules";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { changeJson, compareRevisions, describeChange, textAuthors } from "@/lib/review/revisions";
-import { claimsOf, digestOf, lockLatest } from "./revisions";
+import { claimsOf, digestOf, lockLatest, stepPhrase } from "./revisions";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
-import { hiddenCaseIds } from "./cases";
+import { stepInProof } from "./steps";
 
 export interface StepRef {
   id: number;
@@ -26,13 +26,9 @@ export interface StepRef {
 
 /** A live step of this proof, or 404 (a step of another proof or under a deleted case is "not found" here, and nothing changes). */
 export async function loadStep(proofId: number, stepId: number, transaction?: Transaction): Promise<StepRef> {
-  const { Step, Case, StepRevision } = models();
-  const step = await Step.findByPk(stepId, { transaction });
-  const c = step ? await Case.findByPk(step.caseId, { transaction }) : null;
-  if (!step || !c || c.proofId !== proofId) throw notFound("This step");
+  const { StepRevision } = models();
   // A step under a deleted case, however high up, is gone (as GET says): no verdict, comment or dispute on it.
-  const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "deletedAt"], transaction });
-  if (hiddenCaseIds(cases).has(c.id)) throw notFound("This step");
+  const { step, node: c } = await stepInProof(proofId, stepId, transaction);
   const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
   return {
     id: step.id,
@@ -105,7 +101,11 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
       await notify(
         (await authorsOf(step.proofId, transaction)).concat(step.authorIds).filter((id) => id !== actor.id),
-        { kind: "dispute_raised", proofId: step.proofId, stepId: step.id, message: `A reviewer disputed revision ${revision.number} of a step you are an author of.`, link: stepLink(step.proofId, step.id) },
+        {
+          kind: "dispute_raised", proofId: step.proofId, stepId: step.id,
+          message: `A referee raised a dispute on revision ${revision.number} of ${await stepPhrase(step.id, transaction)}, a step you are an author of.`,
+          link: `${stepLink(step.proofId, step.id)}#dispute-${review.id}`,
+        },
         transaction,
       );
     }

@@ -8,7 +8,8 @@ import "server-only";
  */
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
+import { placePhrase, type EventPlace } from "@/lib/review/event-sentences";
 import {
   claimSetText, compareRevisions, describeChange, digestOfRevision, ordered, parseClaimSet, type RevisionClaim,
 } from "@/lib/review/revisions";
@@ -35,18 +36,23 @@ export async function lockLatest(stepId: number, transaction: Transaction): Prom
   return StepRevision.findOne({ where: { stepId }, order: [["number", "DESC"]], transaction });
 }
 
-/** "step 3.1:2 of “Title”", for sentences in notifications. */
+/**
+ * "step 3.1:2 (case 3.1, “Trees with a long leg”) of “Title”", for sentences in notifications: proof, case and
+ * step named with the labels the pages show (lib/proof-tree.ts).
+ */
 export async function stepPhrase(stepId: number, transaction?: Transaction): Promise<string> {
   const { Step, Case, Proof } = models();
   const step = await Step.findByPk(stepId, { transaction });
   const here = step ? await Case.findByPk(step.caseId, { transaction }) : null;
   if (!step || !here) return "a step";
-  const [cases, proof] = await Promise.all([
+  const [cases, siblings, proof] = await Promise.all([
     Case.findAll({ where: { proofId: here.proofId }, attributes: ["id", "parentId", "position"], transaction }),
+    Step.findAll({ where: { caseId: here.id }, attributes: ["id", "caseId", "position"], transaction }),
     Proof.findByPk(here.proofId, { attributes: ["title"], transaction }),
   ]);
-  const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).find((n) => n.id === here.id);
-  return `step ${node ? stepLabel(node.number, step.position) : "?"} of “${proof?.title ?? ""}”`;
+  const numbers = new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+  const place: EventPlace = { step: labelSteps(numbers, siblings).get(step.id) ?? null, caseNumber: numbers.get(here.id) ?? null, caseTitle: here.title };
+  return `${placePhrase(place)} of “${proof?.title ?? ""}”`;
 }
 
 /** Tells every referee who vouched for `previous` that the new revision supersedes it, and why. */

@@ -15,7 +15,7 @@ import {
   isFinalDecision, mayDoInRound, recommendationLabel, refereeDisplayName, refereeStanding, reportAccess, roundRefusal,
   type Recommendation, type RefereeStanding, type RoundAction,
 } from "@/lib/review/rounds";
-import type { ProofRole } from "@/models/proof-member";
+import type { ProofRole } from "@/lib/access/rules";
 import type { ReviewRound } from "@/models/review-round";
 import type { RefereeReport } from "@/models/referee-report";
 import { parseDueDate, type DecisionInput, type ReportDraftInput, type ReviewPolicyInput } from "@/lib/validations/round";
@@ -53,20 +53,25 @@ export interface Referee {
   email: string;
   /** 1, 2, … in the order the referees joined the proof: the k of "Referee k". */
   index: number;
-  /** Still a reviewer of the proof (a former one is listed only for the reports they wrote). */
+  /** Still a reviewer of the proof (a removed one stays listed: their vouches and reports stay in the record). */
   current: boolean;
 }
 
 /**
- * Every referee the proof has had: current reviewers in the order they joined, then former ones who
- * wrote a report (so "Referee k" never changes when someone leaves or joins later).
+ * Every referee the proof has had: current and removed reviewers in the order they first joined, then
+ * anyone else who wrote a report (so "Referee k" never changes when someone leaves or joins later).
  */
 export async function listReferees(proofId: number, transaction?: Transaction): Promise<Referee[]> {
-  const { ProofMember, User, ReviewRound, RefereeReport } = models();
+  const { ProofMember, FormerMember, User, ReviewRound, RefereeReport } = models();
   const members = await ProofMember.findAll({ where: { proofId, role: "reviewer" }, order: [["createdAt", "ASC"], ["userId", "ASC"]], transaction });
+  // Removed referees keep their number (their vouches and reports stay in the record): present and
+  // former referees are numbered together by when they first joined.
+  const former = await FormerMember.findAll({ where: { proofId, role: "reviewer" }, transaction });
+  const joined = new Map<number, number>(members.map((m) => [m.userId, m.createdAt.getTime()]));
+  for (const f of former) joined.set(f.userId, Math.min(joined.get(f.userId) ?? Infinity, f.joinedAt.getTime()));
   const rounds = await ReviewRound.findAll({ where: { proofId }, attributes: ["id"], transaction });
   const writers = rounds.length ? await RefereeReport.findAll({ where: { roundId: rounds.map((r) => r.id) }, attributes: ["refereeId"], transaction }) : [];
-  const ids = [...members.map((m) => m.userId)];
+  const ids = [...joined.entries()].sort((a, b) => a[1] - b[1] || a[0] - b[0]).map(([id]) => id);
   for (const id of [...new Set(writers.map((w) => w.refereeId))].sort((a, b) => a - b)) if (!ids.includes(id)) ids.push(id);
   const users = ids.length ? await User.findAll({ where: { id: ids }, attributes: ["id", "name", "email"], transaction }) : [];
   return ids.map((id, i) => {

@@ -8,6 +8,7 @@ import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { liveCases } from "@/lib/data/cases";
 import { Op } from "sequelize";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
+import { recordEvent } from "@/lib/data/audit";
 import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
 import { claimsOf, lockLatest, noticeSuperseded } from "@/lib/data/revisions";
 
@@ -47,12 +48,15 @@ function revisionView(r: RevisionRow): RevisionView {
   };
 }
 
-/** The step if it belongs to a live case of this proof; a 404 otherwise. */
-export async function stepInProof(proofId: number, stepId: number) {
+/**
+ * The step if it belongs to a live case of this proof (no deleted case above it, however high up),
+ * with its numbered case; a 404 otherwise. The one definition of "this step is in this proof".
+ */
+export async function stepInProof(proofId: number, stepId: number, transaction?: Transaction) {
   const { Step } = models();
-  const step = await Step.findByPk(stepId);
+  const step = await Step.findByPk(stepId, { transaction });
   if (!step) throw notFound("This step");
-  const cases = await liveCases(proofId);
+  const cases = await liveCases(proofId, transaction);
   const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).find(
     (c) => c.id === step.caseId,
   );
@@ -87,7 +91,7 @@ export async function getStep(proofId: number, stepId: number): Promise<StepDeta
 
 /** Adds a step at the end of a case, with its first revision, in one transaction. */
 export async function createStep(proofId: number, caseId: number, userId: number, body: string): Promise<{ id: number; revisionId: number }> {
-  const { Case, Step, StepRevision, AuditEvent } = models();
+  const { Case, Step, StepRevision } = models();
   if (!(await liveCases(proofId)).some((c) => c.id === caseId)) throw notFound("This case");
   return getSequelize().transaction(async (transaction) => {
     // Locking the case row serialises step creates in one case, so each takes its own place
@@ -99,7 +103,7 @@ export async function createStep(proofId: number, caseId: number, userId: number
       { stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null, claimSet: claimSetText([]), digest: digestOfRevision(1, body, []), origin: "text" },
       { transaction },
     );
-    await AuditEvent.create({ proofId, actorId: userId, action: "step.created", subjectType: "step", subjectId: step.id, detail: null }, { transaction });
+    await recordEvent({ proofId, actorId: userId, action: "step.created", subjectType: "step", subjectId: step.id, detail: null }, transaction);
     return { id: step.id, revisionId: revision.id };
   });
 }
@@ -110,7 +114,7 @@ export async function createStep(proofId: number, caseId: number, userId: number
  * claims stay with the step.
  */
 export async function moveStep(proofId: number, stepId: number, userId: number, move: "up" | "down"): Promise<void> {
-  const { Step, AuditEvent } = models();
+  const { Step } = models();
   const { step } = await stepInProof(proofId, stepId);
   await getSequelize().transaction(async (transaction) => {
     const siblings = await Step.findAll({ where: { caseId: step.caseId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
@@ -119,7 +123,7 @@ export async function moveStep(proofId: number, stepId: number, userId: number, 
     if (i < 0 || j < 0 || j >= siblings.length) return;
     [siblings[i], siblings[j]] = [siblings[j], siblings[i]];
     await renumberSteps(siblings, transaction);
-    await AuditEvent.create({ proofId, actorId: userId, action: "step.moved", subjectType: "step", subjectId: stepId, detail: move }, { transaction });
+    await recordEvent({ proofId, actorId: userId, action: "step.moved", subjectType: "step", subjectId: stepId, detail: move }, transaction);
   });
 }
 
@@ -140,7 +144,7 @@ async function renumberSteps(ordered: Array<InstanceType<ReturnType<typeof model
  * overwrite knowingly (by saving again with the newer revision as its base).
  */
 export async function saveRevision(proofId: number, stepId: number, userId: number, baseRevisionId: number, body: string): Promise<RevisionView> {
-  const { StepRevision, User, AuditEvent } = models();
+  const { StepRevision, User } = models();
   await stepInProof(proofId, stepId);
   const saved = await getSequelize().transaction(async (transaction) => {
     // Locking the step row serialises concurrent saves of one step (and claim changes), so exactly one of two wins.
@@ -160,7 +164,7 @@ export async function saveRevision(proofId: number, stepId: number, userId: numb
       { stepId, number, body, authorId: userId, baseRevisionId, claimSet: claimSetText(claims), digest: digestOfRevision(number, body, claims), origin: "text" },
       { transaction },
     );
-    await AuditEvent.create({ proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` }, { transaction });
+    await recordEvent({ proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` }, transaction);
     if (previous) await noticeSuperseded(proofId, stepId, previous, created, userId, transaction);
     const author = await User.findByPk(userId, { attributes: ["name"], transaction });
     return { ...revisionView(created), authorName: author?.name ?? "" };

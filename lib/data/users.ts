@@ -5,13 +5,15 @@ import { Op } from "sequelize";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import type { GlobalRole } from "@/models/user";
-import { AppError } from "@/lib/errors";
+import { AppError, invalid } from "@/lib/errors";
 
 export interface SessionUser {
   id: number;
   email: string;
   name: string;
   role: GlobalRole;
+  /** Goes in the session token at sign-in; a token of an older version is no longer a session. */
+  sessionVersion: number;
 }
 
 /** After this many consecutive failures for one e-mail address, sign-in is refused for LOCK_MINUTES. */
@@ -70,7 +72,7 @@ export async function authenticate(email: string, password: string): Promise<Ses
   const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
   if (user && user.passwordHash && ok) {
     await SignInThrottle.destroy({ where: { keyHash, lockedUntil: null } });
-    return { id: user.id, email: user.email, name: user.name, role: user.role };
+    return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
   }
   // The failure is already counted; the MAX_FAILURES-th one locks the address at once.
   await SignInThrottle.update(
@@ -83,5 +85,34 @@ export async function authenticate(email: string, password: string): Promise<Ses
 export async function getUser(id: number): Promise<SessionUser | null> {
   const { User } = models();
   const u = await User.findByPk(id);
-  return u ? { id: u.id, email: u.email, name: u.name, role: u.role } : null;
+  return u ? { id: u.id, email: u.email, name: u.name, role: u.role, sessionVersion: u.sessionVersion } : null;
+}
+
+/**
+ * Whether a session token issued under `version` is still a session: the person exists and has not
+ * signed out or changed their password since. Asked on every request that reads the session (lib/session.ts).
+ */
+export async function sessionIsCurrent(userId: number, version: number): Promise<boolean> {
+  const u = await models().User.findByPk(userId, { attributes: ["sessionVersion"] });
+  return u !== null && u.sessionVersion === version;
+}
+
+/**
+ * Ends every session of the person (sign-out ends them on every device: one version per person).
+ * With `version`, only if the sessions are still of that version, so a replayed old token changes nothing.
+ */
+export async function endSessions(userId: number, version?: number): Promise<void> {
+  await models().User.increment("sessionVersion", { by: 1, where: { id: userId, ...(version === undefined ? {} : { sessionVersion: version }) } });
+}
+
+/**
+ * Sets a new password once the current one is proved (counted against sign-in failures like a sign-in:
+ * 429 while the address is locked), and ends every session of the person in the same statement.
+ */
+export async function changePassword(user: { id: number; email: string }, currentPassword: string, newPassword: string): Promise<void> {
+  const proved = await authenticate(user.email, currentPassword);
+  if (!proved || proved.id !== user.id)
+    throw invalid("This is not your current password; nothing was changed.", [{ path: "currentPassword", message: "This is not your current password." }]);
+  const hash = await bcrypt.hash(newPassword, 10);
+  await getSequelize().query("UPDATE users SET password_hash = ?, session_version = session_version + 1, updated_at = NOW(3) WHERE id = ?", { replacements: [hash, user.id] });
 }

@@ -3,6 +3,7 @@
  * order: the proof, then each case followed by its steps and their claims, depth first.
  */
 import { CHECKER_VERSION } from "@/lib/core/claims";
+import { methodWithCertificate } from "@/lib/core/certificate-kind";
 import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/bundle";
 import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type SnapshotClaim } from "./snapshot";
 
@@ -70,7 +71,8 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
           position: cl.position,
           claim: claimJson(cl),
           digest: cl.digest,
-          verdict: { status: cl.status, statement: cl.statement, method: cl.method, reason: cl.reason },
+          // The method that decided with the certificate kind beside it, also for verdicts stored before it was named.
+          verdict: { status: cl.status, statement: cl.statement, method: cl.method === null ? null : methodWithCertificate(cl.kind, cl.method, parsed(cl.certificate)), reason: cl.reason },
           certificate: parsed(cl.certificate),
           checkerVersion: cl.checkerVersion,
           checkedAt: cl.checkedAt,
@@ -79,6 +81,8 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
       }
     }
   }
+  // Rounds and decisions close the bundle: what the authors may read of them, never an editor-only note.
+  for (const r of p.rounds ?? []) items.push({ id: `round ${r.number}`, type: "round", data: r });
   const { state } = certificationOf(p);
   return sealBundle({ kind: meta.kind, exportedAt: meta.exportedAt, exportedBy: meta.exportedBy, proofState: state, checkerVersion: CHECKER_VERSION }, items);
 }

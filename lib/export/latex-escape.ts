@@ -37,6 +37,9 @@ function unicodeChar(ch: string): string {
   if (UNICODE[ch]) return UNICODE[ch].startsWith("\\") ? `\\ensuremath{${UNICODE[ch]}}` : UNICODE[ch];
   if (SUBSCRIPTS.includes(ch)) return `\\ensuremath{_{${SUBSCRIPTS.indexOf(ch)}}}`;
   if (SUPERSCRIPTS.includes(ch)) return `\\ensuremath{^{${SUPERSCRIPTS.indexOf(ch)}}}`;
+  // The transpose and the exponent n of the reasons and input labels ("xᵀ(2I − A)x", "from xⁿ down to x⁰").
+  if (ch === "ᵀ") return "\\ensuremath{^{\\mathsf{T}}}";
+  if (ch === "ⁿ") return "\\ensuremath{^{n}}";
   if (TEXT_UNICODE[ch]) return `\\text{${TEXT_UNICODE[ch]}}`;
   const code = ch.codePointAt(0)!;
   // Latin-1 letters and Latin Extended-A are set up by LaTeX's utf8 input with T1 fonts.

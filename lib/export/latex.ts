@@ -4,9 +4,11 @@
  * string goes through latex-escape.ts or markdown-latex.ts; a draft carries "DRAFT" in the header of
  * every page (the plain page style is redefined too, so no page escapes it).
  */
-import { CAUTION_DOES_NOT, CAUTION_MEANS, type DocCase, type DocClaim, type DocStep, type ExportDocument } from "./document";
+import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocClaim, type DocRound, type DocStep, type ExportDocument } from "./document";
 import { escapeLine, escapeText } from "./latex-escape";
 import { markdownToLatex } from "./markdown-latex";
+import { claimInputsAppendixTex } from "./latex-inputs";
+import { stepLabel } from "@/lib/proof-tree";
 
 /** "2026-12-01T22:58:11.000Z" → "2026-12-01 22:58 UTC". */
 export function formatUtc(iso: string): string {
@@ -25,17 +27,18 @@ const SECTION = ["section", "subsection", "subsubsection", "paragraph"];
 
 function claimTex(c: DocClaim): string {
   const what = `${escapeLine(c.statement || "(no statement recorded)")}`;
-  const method = c.method ? `, by ${escapeLine(c.method)}` : "";
+  const method = c.method ? `, by ${escapeLine(c.method)}${c.certificateKind ? ` (certificate: ${escapeLine(c.certificateKind)})` : ""}` : "";
   const digest = c.digest ? `; claim digest ${digestTex(c.digest)}` : "";
   const reason = c.reason && c.status !== "verified" ? `: ${escapeLine(c.reason)}` : "";
   const label = { verified: "$\\checkmark$ Verified", refuted: "$\\times$ Refuted", undecided: "? Undecided" }[c.status] ?? "$\\circ$ Not checked yet";
   const cert = c.status === "verified" ? `; certificate in bundle item \\texttt{${escapeLine(c.id)}} (SHA-256 ${digestTex(c.itemDigest)})` : "";
-  return `\\item \\textbf{${label}:} ${what}${method}${reason}${cert}${digest}.`;
+  const inputs = c.inputs.short ? `; inputs ${escapeLine(c.inputs.short.length > 160 ? `${c.inputs.short.slice(0, 160)}…` : c.inputs.short)} (in full in the appendix of claim inputs)` : "";
+  return `\\item \\textbf{${label}:} ${what}${method}${reason}${cert}${digest}${inputs}.`;
 }
 
 function stepTex(s: DocStep, caseNumber: string): string {
   const rev = s.revision;
-  const head = `\\paragraph{Step ${escapeLine(caseNumber)}:${s.position}}` +
+  const head = `\\paragraph{Step ${escapeLine(stepLabel(caseNumber, s.position))}}` +
     (rev ? ` {\\small(revision ${rev.number}, by ${escapeLine(rev.authorName)}, ${escapeLine(formatUtc(rev.savedAt))})}` : " {\\small(no text saved)}");
   const body = rev ? markdownToLatex(rev.body) : "";
   const claims = s.claims.length ? `\n\n\\begin{itemize}\n${s.claims.map(claimTex).join("\n")}\n\\end{itemize}` : "";
@@ -53,12 +56,31 @@ function caseTex(c: DocCase): string {
   ].join("\n\n");
 }
 
+function roundTex(r: DocRound): string {
+  const when = `opened ${escapeLine(formatUtc(r.openedAt))}, due ${escapeLine(formatUtc(r.dueAt))}${r.closedAt ? `, closed ${escapeLine(formatUtc(r.closedAt))}` : ""}`;
+  const decision = r.decision
+    ? `\\noindent\\textbf{Decision: ${escapeLine(recommendationWords(r.decision.decision))}}, by ${escapeLine(r.decision.editor)}, ${escapeLine(formatUtc(r.decision.decidedAt))}.\\par\n\\noindent\\textit{Letter to the authors.} ${markdownToLatex(r.decision.letter)}`
+    : "\\noindent\\textit{No decision yet.}";
+  const reports = r.reports.length
+    ? `\n\n\\begin{itemize}\n${r.reports.map((p) => `\\item ${escapeLine(p.referee)} (report version ${p.version}${p.submittedAt ? `, ${escapeLine(formatUtc(p.submittedAt))}` : ""}): recommends ${escapeLine(recommendationWords(p.recommendation))}.`).join("\n")}\n\\end{itemize}`
+    : r.decision && !r.decision.reportsAttached
+      ? "\n\n\\noindent{\\small The referees' reports were not attached to this decision.}"
+      : "";
+  return `\\subsection*{Round ${r.number}}\n\\noindent{\\small ${when}.}\\par\n${decision}${reports}`;
+}
+
+/** The review rounds with their decisions; referees as the authors see them ("Referee k" on a blind proof). */
+function roundsTex(doc: ExportDocument): string {
+  if (doc.rounds.length === 0) return "";
+  return ["\\section*{Review rounds and decisions}", ...doc.rounds.map(roundTex)].join("\n\n");
+}
+
 function appendixTex(doc: ExportDocument): string {
   const rows = doc.cases.flatMap((c) =>
     c.steps.flatMap((s) =>
       s.vouches.length
-        ? s.vouches.map((a) => `${escapeLine(`${c.number}:${s.position}`)} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
-        : [`${escapeLine(`${c.number}:${s.position}`)} & \\textit{no vouch} & & \\\\`],
+        ? s.vouches.map((a) => `${escapeLine(stepLabel(c.number, s.position))} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
+        : [`${escapeLine(stepLabel(c.number, s.position))} & \\textit{no vouch} & & \\\\`],
     ),
   );
   const members = doc.members.map((m) => `${escapeLine(m.name)} (${escapeLine(m.role)})`).join(", ");
@@ -121,7 +143,11 @@ ${markdownToLatex(doc.statement)}
 
 ${doc.cases.map(caseTex).join("\n\n")}
 
+${roundsTex(doc)}
+
 ${appendixTex(doc)}
+
+${claimInputsAppendixTex(doc, stepLabel)}
 
 \\end{document}
 `;

@@ -1,195 +1,140 @@
 /**
- * A small Markdown → LaTeX writer for steps, statements and conditions: paragraphs, emphasis, code,
- * lists, quotes, headings and links, with $…$ and $$…$$ math passed through sanitizeMath. Everything
- * that is not math is escaped; math that fails the check is printed verbatim. It covers the Markdown
- * that proofs use, not every corner of CommonMark; what it does not know comes out as escaped text.
+ * Markdown with math → LaTeX, written from the same syntax tree the web pages render: remark-parse with
+ * the page's remark plugins (GitHub-flavoured Markdown, $…$ and $$…$$ math, `$$…$$` within a line as
+ * display math; lib/markdown.ts). A step therefore cannot say one thing on screen and another in the
+ * PDF: both read one parse. Every text node is escaped; every formula goes through sanitizeMath and is
+ * printed verbatim when it fails the check. What the web page drops (raw HTML, images) is dropped here
+ * too; an image keeps its alternative text.
  */
+import { unified } from "unified";
+import remarkParse from "remark-parse";
+import type { Root, RootContent, PhrasingContent, ListItem, Table } from "mdast";
+import { remarkPlugins } from "@/lib/markdown";
 import { escapeText, sanitizeMath, stripControl } from "./latex-escape";
 
-const HOLD = "\u0000";
+const processor = unified().use(remarkParse).use(remarkPlugins);
 
-/** Replaces protected pieces by placeholders \u0000n\u0000 and restores them after escaping. */
-class Holder {
-  private pieces: string[] = [];
-  hold(latex: string): string {
-    this.pieces.push(latex);
-    return `${HOLD}${this.pieces.length - 1}${HOLD}`;
-  }
-  restore(s: string): string {
-    // Restored pieces may contain placeholders of their own (emphasis around math): repeat until stable.
-    let prev: string;
-    do {
-      prev = s;
-      s = s.replace(/\u0000(\d+)\u0000/g, (_, n) => this.pieces[Number(n)] ?? "");
-    } while (s !== prev);
-    return s;
-  }
+function parse(md: string): Root {
+  const source = stripControl(md.replace(/\r\n?/g, "\n"));
+  return processor.runSync(processor.parse(source), source) as Root;
 }
 
-function verbatim(s: string): string {
-  return `\\texttt{${escapeText(s)}}`;
-}
+const verbatim = (s: string): string => `\\texttt{${escapeText(s.replace(/\n/g, " "))}}`;
 
-export function mathInline(src: string, raw: string): string {
+function mathInline(src: string): string {
   const m = sanitizeMath(src);
-  return m === null ? verbatim(raw) : `$${m}$`;
+  return m === null ? verbatim(`$${src}$`) : `$${m}$`;
 }
 
-export function mathDisplay(src: string, raw: string): string {
+function mathDisplay(src: string): string {
   const m = sanitizeMath(src);
-  return m === null ? `\n\n\\noindent${verbatim(raw)}\n\n` : `\\[${m}\\]`;
+  return m === null ? `\n\n\\noindent${verbatim(`$$${src}$$`)}\n\n` : `\\[${m}\\]`;
 }
 
-/** Finds the closing `$` of inline math starting after `from`, skipping escaped dollars. */
-function closingDollar(s: string, from: string | number, double: boolean): number {
-  let i = Number(from);
-  while (i < s.length) {
-    if (s[i] === "\\") { i += 2; continue; }
-    if (s[i] === "$" && (!double || s[i + 1] === "$")) return i;
-    i++;
-  }
-  return -1;
+/** Whether remark-math's inline node was written `$$…$$` (display math within a line; lib/display-math.ts). */
+const isDisplay = (node: { data?: { hProperties?: Record<string, unknown> } }): boolean => {
+  const cls = node.data?.hProperties?.className;
+  return Array.isArray(cls) && cls.includes("math-display");
+};
+
+function inline(nodes: readonly PhrasingContent[]): string {
+  return nodes.map(phrasing).join("");
 }
 
-/** Inline Markdown of one paragraph or list item → LaTeX. */
-export function inlineToLatex(text: string): string {
-  const h = new Holder();
-  let s = "";
-  let i = 0;
-  // Pass 1: code spans, math and backslash escapes become placeholders, in reading order.
-  while (i < text.length) {
-    const ch = text[i];
-    if (ch === "`") {
-      const ticks = /^`+/.exec(text.slice(i))![0];
-      const end = text.indexOf(ticks, i + ticks.length);
-      if (end > 0) {
-        s += h.hold(verbatim(text.slice(i + ticks.length, end).trim()));
-        i = end + ticks.length;
-        continue;
-      }
+function phrasing(node: PhrasingContent): string {
+  switch (node.type) {
+    case "text":
+      return escapeText(node.value);
+    case "emphasis":
+      return `\\emph{${inline(node.children)}}`;
+    case "strong":
+      return `\\textbf{${inline(node.children)}}`;
+    case "delete":
+      return `[struck: ${inline(node.children)}]`;
+    case "inlineCode":
+      return verbatim(node.value);
+    case "break":
+      return "\\newline\n";
+    case "link":
+      return `${inline(node.children)} (${verbatim(node.url)})`;
+    case "linkReference":
+      return inline(node.children);
+    case "image":
+    case "imageReference":
+      return node.alt ? escapeText(node.alt) : "";
+    case "footnoteReference":
+      return `\\textsuperscript{${escapeText(node.label ?? node.identifier)}}`;
+    case "html":
+      return ""; // the web page skips raw HTML
+    default: {
+      const math = node as unknown as { type: string; value?: string };
+      if (math.type === "inlineMath") return isDisplay(node as never) ? mathDisplay(math.value ?? "") : mathInline(math.value ?? "");
+      return "";
     }
-    if (ch === "$") {
-      const double = text[i + 1] === "$";
-      const start = i + (double ? 2 : 1);
-      const end = closingDollar(text, start, double);
-      if (end > start) {
-        const raw = text.slice(i, end + (double ? 2 : 1));
-        s += h.hold(double ? mathDisplay(text.slice(start, end), raw) : mathInline(text.slice(start, end), raw));
-        i = end + (double ? 2 : 1);
-        continue;
-      }
-    }
-    if (ch === "\\" && i + 1 < text.length && /[!-/:-@[-`{-~]/.test(text[i + 1])) {
-      s += h.hold(escapeText(text[i + 1]));
-      i += 2;
-      continue;
-    }
-    s += ch;
-    i++;
   }
-  // Pass 2: links, strong and emphasis on what is left; their contents are escaped recursively.
-  const emph = (t: string): string =>
-    t.replace(
-      /\[([^\]\u0000]*)\]\(([^)\s]*)\)|\*\*([\s\S]+?)\*\*|__([\s\S]+?)__|\*([^*\s](?:[^*]*[^*\s])?)\*|(?<![A-Za-z0-9])_([^_\s](?:[^_]*[^_\s])?)_(?![A-Za-z0-9])/g,
-      (_m, linkText, url, strong1, strong2, em1, em2) => {
-        if (linkText !== undefined) return h.hold(`${emph(linkText)} (${verbatim(url)})`);
-        if (strong1 !== undefined || strong2 !== undefined) return h.hold(`\\textbf{${emph(strong1 ?? strong2)}}`);
-        return h.hold(`\\emph{${emph(em1 ?? em2)}}`);
-      },
-    )
-      .split(/(\u0000\d+\u0000)/)
-      .map((part) => (part.startsWith(HOLD) ? part : escapeText(part)))
-      .join("");
-  return h.restore(emph(s));
 }
 
-type Block =
-  | { type: "para"; text: string }
-  | { type: "display"; src: string; raw: string }
-  | { type: "code"; lines: string[] }
-  | { type: "heading"; text: string }
-  | { type: "list"; ordered: boolean; items: string[] }
-  | { type: "quote"; text: string };
+function listItem(item: ListItem): string {
+  const box = item.checked === true ? "\\ensuremath{\\boxtimes} " : item.checked === false ? "\\ensuremath{\\square} " : "";
+  return `\\item ${box}${blocks(item.children).trim()}`;
+}
 
-function blocksOf(md: string): Block[] {
-  const lines = stripControl(md.replace(/\r\n?/g, "\n")).split("\n");
-  const blocks: Block[] = [];
-  let para: string[] = [];
-  const flush = () => {
-    if (para.length) blocks.push({ type: "para", text: para.join("\n") });
-    para = [];
-  };
-  for (let i = 0; i < lines.length; i++) {
-    const line = lines[i];
-    const t = line.trim();
-    if (t === "") { flush(); continue; }
-    if (/^(```|~~~)/.test(t)) {
-      flush();
-      const fence = t.slice(0, 3);
-      const code: string[] = [];
-      for (i++; i < lines.length && !lines[i].trim().startsWith(fence); i++) code.push(lines[i]);
-      blocks.push({ type: "code", lines: code });
-      continue;
+function table(node: Table): string {
+  const columns = Math.max(1, ...node.children.map((r) => r.children.length));
+  const align = Array.from({ length: columns }, (_, i) => ({ left: "l", right: "r", center: "c" })[node.align?.[i] ?? "left"] ?? "l").join("");
+  const rows = node.children.map((row, r) => {
+    const cells = Array.from({ length: columns }, (_, i) => (row.children[i] ? inline(row.children[i].children) : ""));
+    const line = `${cells.join(" & ")} \\\\`;
+    return r === 0 ? `${line}\n\\hline` : line;
+  });
+  return `\\begin{center}\\begin{tabular}{${align}}\n${rows.join("\n")}\n\\end{tabular}\\end{center}`;
+}
+
+function block(node: RootContent): string {
+  switch (node.type) {
+    case "paragraph":
+      return inline(node.children);
+    case "heading":
+      return `\\par\\noindent\\textbf{${inline(node.children)}}\\par`;
+    case "thematicBreak":
+      return "\\par\\noindent\\rule{\\linewidth}{0.4pt}\\par";
+    case "blockquote":
+      return `\\begin{quote}\n${blocks(node.children)}\n\\end{quote}`;
+    case "list": {
+      const env = node.ordered ? "enumerate" : "itemize";
+      const start = node.ordered && node.start != null && node.start !== 1 ? `\\setcounter{enumi}{${node.start - 1}}\n` : "";
+      return `\\begin{${env}}\n${start}${node.children.map(listItem).join("\n")}\n\\end{${env}}`;
     }
-    if (t.startsWith("$$") && (t === "$$" || !t.slice(2).includes("$$"))) {
-      flush();
-      const body: string[] = [t.slice(2)];
-      let j = i + 1;
-      for (; j < lines.length && !lines[j].includes("$$"); j++) body.push(lines[j]);
-      if (j < lines.length) {
-        const last = lines[j];
-        body.push(last.slice(0, last.indexOf("$$")));
-        const src = body.join("\n");
-        blocks.push({ type: "display", src, raw: `$$${src}$$` });
-        const after = last.slice(last.indexOf("$$") + 2).trim();
-        if (after) para.push(after);
-        i = j;
-        continue;
-      }
+    case "code":
+      return `\\begin{quote}\\ttfamily\\raggedright\n${node.value.split("\n").map((l) => escapeText(l) || "~").join("\\\\\n")}\n\\end{quote}`;
+    case "table":
+      return table(node);
+    case "footnoteDefinition":
+      return `\\par\\noindent\\textsuperscript{${escapeText(node.label ?? node.identifier)}} ${blocks(node.children)}`;
+    case "html":
+    case "definition":
+      return "";
+    default: {
+      const math = node as unknown as { type: string; value?: string };
+      if (math.type === "math") return mathDisplay(math.value ?? "");
+      return "";
     }
-    const heading = /^#{1,6}\s+(.*)$/.exec(t);
-    if (heading) { flush(); blocks.push({ type: "heading", text: heading[1] }); continue; }
-    const item = /^([-*+]|\d{1,9}[.)])\s+(.*)$/.exec(t);
-    if (item) {
-      flush();
-      const ordered = /\d/.test(item[1]);
-      const prev = blocks[blocks.length - 1];
-      if (prev?.type === "list" && prev.ordered === ordered && lines[i - 1]?.trim() !== "") prev.items.push(item[2]);
-      else blocks.push({ type: "list", ordered, items: [item[2]] });
-      continue;
-    }
-    const prev = blocks[blocks.length - 1];
-    if (t.startsWith(">")) {
-      flush();
-      if (prev?.type === "quote" && lines[i - 1]?.trim().startsWith(">")) prev.text += "\n" + t.replace(/^>\s?/, "");
-      else blocks.push({ type: "quote", text: t.replace(/^>\s?/, "") });
-      continue;
-    }
-    if (para.length === 0 && prev?.type === "list" && /^\s{2,}/.test(line) && lines[i - 1]?.trim() !== "") {
-      prev.items[prev.items.length - 1] += " " + t;
-      continue;
-    }
-    para.push(line);
   }
-  flush();
-  return blocks;
+}
+
+function blocks(nodes: readonly RootContent[]): string {
+  return nodes
+    .map(block)
+    .filter((s) => s !== "")
+    .join("\n\n");
 }
 
 /** Markdown with math → LaTeX body text. */
 export function markdownToLatex(md: string): string {
-  return blocksOf(md)
-    .map((b) => {
-      switch (b.type) {
-        case "para": return inlineToLatex(b.text);
-        case "display": return mathDisplay(b.src, b.raw);
-        case "code": return `\\begin{quote}\\ttfamily\\raggedright\n${b.lines.map((l) => escapeText(l) || "~").join("\\\\\n")}\n\\end{quote}`;
-        case "heading": return `\\par\\noindent\\textbf{${inlineToLatex(b.text)}}\\par`;
-        case "list": {
-          const env = b.ordered ? "enumerate" : "itemize";
-          return `\\begin{${env}}\n${b.items.map((it) => `\\item ${inlineToLatex(it)}`).join("\n")}\n\\end{${env}}`;
-        }
-        case "quote": return `\\begin{quote}\n${markdownToLatex(b.text)}\n\\end{quote}`;
-      }
-    })
-    .join("\n\n");
+  return blocks(parse(md).children);
+}
+
+/** The inline Markdown of one line (a title, a list item) → LaTeX, without paragraph breaks. */
+export function inlineToLatex(text: string): string {
+  return markdownToLatex(text).replace(/\n\n+/g, " ");
 }

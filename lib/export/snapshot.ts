@@ -52,6 +52,18 @@ export interface SnapshotCase {
   children: SnapshotCase[];
 }
 
+/** A review round as the authors may read it: no editor-only note, reports only when the decision attached them. */
+export interface SnapshotRound {
+  number: number;
+  state: string;
+  openedAt: string;
+  dueAt: string;
+  closedAt: string | null;
+  decision: { decision: string; editor: string; decidedAt: string; letter: string; reportsAttached: boolean } | null;
+  /** Each referee's latest submitted report, by their name or, on a blind proof, "Referee k". */
+  reports: Array<{ referee: string; version: number; recommendation: string | null; submittedAt: string | null; body: string }>;
+}
+
 export interface ProofSnapshot {
   id: number;
   title: string;
@@ -59,6 +71,8 @@ export interface ProofSnapshot {
   requiredApprovals: number;
   members: Array<{ name: string; role: string }>;
   cases: SnapshotCase[];
+  /** Review rounds, oldest first (absent for a proof read without them). */
+  rounds?: SnapshotRound[];
 }
 
 function stepFacts(s: SnapshotStep): StepFacts {

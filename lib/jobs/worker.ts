@@ -20,6 +20,7 @@ import type { Claim as ClaimJson } from "../core/claim-schema";
 import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";
+import { recordEvent } from "../data/audit";
 import { claimJobId, JOB_ATTEMPTS, MAX_STALLED, QUEUE_NAME, queueClaim, queuePrefix, redisConnection, verificationQueue, type BundleJobData, type ClaimJobData, type JobData, type JobResult } from "./queue";
 
 /** This worker's name, stored with each verdict it decides. */
@@ -36,7 +37,7 @@ type Decision = Record<string, unknown>;
  * revision, supersedes vouches and notifies their referees), and the mail goes out after commit.
  */
 async function decide(claimId: number, round: number, checkedBy: number, decision: Decision): Promise<boolean> {
-  const { Claim, AuditEvent } = models();
+  const { Claim } = models();
   const stored = await getSequelize().transaction(async (transaction) => {
     const found = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "stepId"], transaction });
     if (!found) return false;
@@ -51,9 +52,9 @@ async function decide(claimId: number, round: number, checkedBy: number, decisio
       "SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?",
       { replacements: [found.stepId], type: QueryTypes.SELECT, transaction },
     );
-    await AuditEvent.create(
+    await recordEvent(
       { proofId: proof[0].proofId, actorId: null, action: "claim.decided", subjectType: "claim", subjectId: claimId, detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}` },
-      { transaction },
+      transaction,
     );
     await recordVerdictInRevisions(claimId, checkedBy, transaction);
     return true;

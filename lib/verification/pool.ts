@@ -2,41 +2,27 @@
  * The verification worker pool of a worker process (lib/jobs/worker.ts): exact checks run in piscina
  * worker threads, so the process's own thread stays free to keep its job's lock alive and to notice a
  * cancel, and a check past its time limit can be stopped. The worker is plain JavaScript
- * bundled by esbuild from lib/verification/worker-entry.ts (which imports lib/core) the first time a
- * process needs it, and again whenever a source file is newer than the bundle; the bundle is written
- * to a temporary name and renamed, so processes building side by side never read half a file.
+ * bundled by esbuild from lib/verification/worker-entry.ts (which imports lib/core) by `npm run build`
+ * (scripts/build-workers.mjs); a process that finds it missing or older than a source file (a development
+ * checkout) builds it again, to a temporary name then renamed, so processes side by side never read half a file.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, readdirSync, renameSync, statSync } from "node:fs";
+import { mkdirSync, renameSync } from "node:fs";
 import path from "node:path";
 import { Piscina } from "piscina";
 import type { BundleTask, VerificationTask, WorkerAnswer } from "./types";
 import type { BundleCheckReport } from "../core/bundle";
 import { STEP_LIMIT, TIME_LIMIT_MS } from "./limits";
+import { isFresh, WORKER_SOURCES, workerBundlePath } from "./bundles";
 
 export { STEP_LIMIT, TIME_LIMIT_MS };
 
-const SOURCE_DIRS = ["lib/core", "lib/verification"];
-
-function newestSource(root: string): number {
-  let newest = 0;
-  // These are the worker's sources, read at run time, not files the server bundle needs. The bundler traces a
-  // path built from the working directory and a variable as "the whole project", so the ignore comment goes on
-  // the path itself as well as on the fs call.
-  for (const dir of SOURCE_DIRS) {
-    const folder = path.join(/* turbopackIgnore: true */ root, dir);
-    for (const f of readdirSync(/* turbopackIgnore: true */ folder))
-      if (f.endsWith(".ts") && !f.endsWith(".test.ts")) newest = Math.max(newest, statSync(/* turbopackIgnore: true */ path.join(/* turbopackIgnore: true */ folder, f)).mtimeMs);
-  }
-  return newest;
-}
-
-/** The bundled worker file, built when missing or older than its sources. */
+/** The bundled worker file: the one `npm run build` wrote, or built here when missing or older than its sources. */
 export function workerFile(): string {
   if (process.env.CAIRN_VERIFY_WORKER) return process.env.CAIRN_VERIFY_WORKER;
   const root = process.cwd();
-  const out = path.join(root, ".data", "build", "verify-worker.mjs");
-  if (existsSync(/* turbopackIgnore: true */ out) && statSync(/* turbopackIgnore: true */ out).mtimeMs >= newestSource(root)) return out;
+  const out = workerBundlePath(root);
+  if (isFresh(out, root, WORKER_SOURCES)) return out;
   mkdirSync(/* turbopackIgnore: true */ path.dirname(out), { recursive: true });
   const tmp = `${out}.${process.pid}.${Date.now()}.tmp.mjs`;
   execFileSync(

@@ -19,6 +19,7 @@ import { identifySmith } from "../../lib/core/identify";
 import { inertia, spectralRadiusBound } from "../../lib/core/inertia";
 import { rat } from "../../lib/core/rational";
 import { findSubgraph } from "../../lib/core/subgraph";
+import { perronApproximation } from "../../lib/core/perron";
 import { Budget } from "../../lib/core/verdict";
 
 /** A generous budget: the bench measures time, the default budget is the server's business. */
@@ -42,11 +43,28 @@ function spectralRadiusTasks(): BenchTask[] {
     out.push(named(graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `tree-${n}`));
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
-  for (const n of [1_000, 100_000])
+  for (const n of [1_000, 100_000, 1_000_000])
     out.push(named(graphTask(`tree-${n}-inertia`, () => randomTreeWorkload(n), "full inertia of 2I − A", n === 1_000, (g) => {
       const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
       return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-    }), `tree-${n}`));
+    }, n === 1_000_000 ? 5000 : undefined), `tree-${n}`));
+  // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
+  // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
+  for (const eps of [1e-12, -1e-12])
+    out.push({
+      id: `tree-100000-near-${eps > 0 ? "above" : "below"}`, workload: "tree-100000", quick: false, targetMs: 5000,
+      task: `ρ < √r, √r = ρ ${eps > 0 ? "+" : "−"} 1e-12 (irrational b)`,
+      prepare: () => {
+        const g = workloadGraph(randomTreeWorkload(100_000));
+        const rho = perronApproximation(g, 100_000, 1e-15).rho;
+        return { g, bound: `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})` };
+      },
+      run: (input) => {
+        const { g, bound } = input as { g: Graph; bound: string };
+        const v = spectralRadiusBound(g, "<", bound, new Budget(BENCH_STEPS));
+        return `${v.status} (${v.certificate?.kind ?? "-"})`;
+      },
+    });
   return out;
 }
 
@@ -57,7 +75,7 @@ function sparseTasks(): BenchTask[] {
       ? [named(graphTask(`gnm3-${n}-inertia`, () => sparseGraphWorkload(n), "full inertia of 2I − A", n === 200, (g) => {
           const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
           return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-        }, n === 1_000 ? 5000 : undefined), `G(n,m) deg 3, n=${n}`)]
+        }, n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined), `G(n,m) deg 3, n=${n}`)]
       : []),
     named(graphTask(`gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, (g) => {
       const v = spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS));
@@ -89,19 +107,19 @@ function subgraphTasks(): BenchTask[] {
 }
 
 function charpolyTasks(): BenchTask[] {
-  return [20, 30, 40, 60].map((n) =>
+  return [20, 30, 40, 60, 100].map((n) =>
     named(graphTask(`gnp-${n}-charpoly`, () => halfDenseGraphWorkload(n), "characteristic polynomial", n <= 30, (g) => {
       const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
       const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
       return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
-    }), `G(n,1/2), n=${n}`));
+    }, n === 100 ? 60 : undefined), `G(n,1/2), n=${n}`));
 }
 
 /** Irrational bounds exactly at ρ: ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4). */
 function irrationalBoundTasks(): BenchTask[] {
   return [20, 50, 100].map((n) =>
     named(graphTask(`path-${n}-2cos`, () => pathWorkload(n), `ρ = 2cos(π/${n + 1}) (exact, irrational b)`, n === 20,
-      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status), `path P_${n}`));
+      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status, n === 100 ? 100 : undefined), `path P_${n}`));
 }
 
 function starlikeTasks(): BenchTask[] {

@@ -54,6 +54,8 @@ export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBy
 
 interface ChildReport {
   readonly timesMs: number[];
+  /** User + system CPU time of each run (the machine is shared: wall time alone can mislead). */
+  readonly cpuMs?: number[];
   readonly result: string;
   readonly maxRssMiB: number;
   readonly peakHeapMiB: number;
@@ -77,15 +79,19 @@ function runChild(taskId: string, runs: number): void {
   const timer = setInterval(sample, 5);
   timer.unref();
   const timesMs: number[] = [];
+  const cpuMs: number[] = [];
   let result = "";
   let error: string | undefined;
   try {
     const input = task.prepare();
     sample();
     for (let i = 0; i < runs; i++) {
+      const c0 = process.cpuUsage();
       const t0 = process.hrtime.bigint();
       result = task.run(input);
       timesMs.push(Number(process.hrtime.bigint() - t0) / 1e6);
+      const c = process.cpuUsage(c0);
+      cpuMs.push((c.user + c.system) / 1000);
       sample();
     }
   } catch (e) {
@@ -94,7 +100,7 @@ function runChild(taskId: string, runs: number): void {
   clearInterval(timer);
   sample();
   // resourceUsage().maxRSS is in KiB.
-  const out: ChildReport = { timesMs, result, maxRssMiB: process.resourceUsage().maxRSS / 1024, peakHeapMiB: peakHeap / MiB, ...(error ? { error } : {}) };
+  const out: ChildReport = { timesMs, cpuMs, result, maxRssMiB: process.resourceUsage().maxRSS / 1024, peakHeapMiB: peakHeap / MiB, ...(error ? { error } : {}) };
   process.stdout.write(`BENCH-REPORT ${JSON.stringify(out)}\n`);
 }
 
@@ -140,14 +146,15 @@ async function runSections(options: BenchOptions): Promise<void> {
       continue;
     }
     const tasks = (section.tasks ?? []).filter((t) => (!options.quick || t.quick) && (!options.only || t.id.includes(options.only)));
-    console.log(`${pad("workload", 28)} ${pad("task", 44)} ${pad("median ms", 10)} ${pad("RSS/heap MiB", 14)} ${pad("target", 10)} result`);
+    console.log(`${pad("workload", 28)} ${pad("task", 44)} ${pad("median ms", 10)} ${pad("CPU ms", 10)} ${pad("RSS/heap MiB", 14)} ${pad("target", 10)} result`);
     for (const task of tasks) {
       const r = runInChild(task, options.runs);
       const ms = r.timesMs.length ? median(r.timesMs) : NaN;
+      const cpu = r.cpuMs?.length ? median(r.cpuMs).toFixed(1) : "-";
       const mem = r.maxRssMiB ? `${r.maxRssMiB.toFixed(0)}/${r.peakHeapMiB.toFixed(0)}` : "-";
       const target = task.targetMs === undefined ? "" : `< ${task.targetMs}${Number.isFinite(ms) ? (ms < task.targetMs ? " ok" : " MISS") : ""}`;
       const result = r.error ? `ERROR: ${r.error}` : r.result;
-      console.log(`${pad(task.workload, 28)} ${pad(task.task, 44)} ${pad(Number.isFinite(ms) ? ms.toFixed(1) : "-", 10)} ${pad(mem, 14)} ${pad(target, 10)} ${result}`);
+      console.log(`${pad(task.workload, 28)} ${pad(task.task, 44)} ${pad(Number.isFinite(ms) ? ms.toFixed(1) : "-", 10)} ${pad(cpu, 10)} ${pad(mem, 14)} ${pad(target, 10)} ${result}`);
     }
   }
 }

@@ -36,7 +36,7 @@ export interface Fixture {
 interface TreeCase { id: number; title: string; steps: Array<{ id: number }>; children: TreeCase[] }
 const flat = (nodes: TreeCase[]): TreeCase[] => nodes.flatMap((n) => [n, ...flat(n.children)]);
 
-async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
+export async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
   const url = new URL(process.env.CAIRN_E2E_DATABASE_URL!);
   const c = await mariadb.createConnection({ host: url.hostname, port: Number(url.port), user: decodeURIComponent(url.username), password: decodeURIComponent(url.password), database: url.pathname.slice(1) });
   try {

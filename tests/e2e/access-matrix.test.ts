@@ -31,6 +31,7 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "/invitations/[token]": ALL(200), // an unknown token is explained on the page
   "/admin/mail": { ...SIGNED_IN(403), admin: 200 },
   "/notifications": SIGNED_IN(200),
+  "/account": SIGNED_IN(200),
   "/queue": SIGNED_IN(200),
   "/verdicts": SIGNED_IN(200), // the full text behind the verdict note; no proof data
   "/proofs": SIGNED_IN(200),

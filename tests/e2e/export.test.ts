@@ -100,6 +100,20 @@ describe("exporting the seeded proof in the browser", () => {
     expect(await page.getByTestId("draft-banner").textContent()).toContain("DRAFT");
     expect(await page.getByTestId("print-caution").textContent()).toContain("remains the responsibility of the authors and the referees");
     expect(await page.locator(".print-document .katex").count()).toBeGreaterThan(5);
+    // Every claim has its inputs in the appendix, the graph as entered among them; the .tex has the same appendix.
+    const claimItems = JSON.parse(readFileSync(bundlePath, "utf8")).items.filter((i: { type: string }) => i.type === "claim");
+    expect(claimItems.length).toBeGreaterThan(0);
+    await page.getByTestId("print-claim-inputs").waitFor();
+    expect(await page.locator("[data-claim-item]").count()).toBe(claimItems.length);
+    for (const item of claimItems) {
+      const section = page.locator(`[data-claim-item="${item.id}"]`);
+      expect(await section.getByTestId("claim-inputs").count(), item.id).toBe(1);
+      const claim = item.data.claim as { graph?: { text: string }; host?: { text: string }; bound?: string };
+      const graph = claim.graph ?? claim.host;
+      if (graph && graph.text.length <= 2000) expect(await section.textContent(), item.id).toContain(graph.text.split("\n")[0].trim());
+      if (claim.bound) expect(await section.textContent(), item.id).toContain(claim.bound);
+    }
+    expect(readFileSync(texPath, "utf8")).toContain("\\section*{Appendix: claim inputs}");
     await context.close();
   });
 

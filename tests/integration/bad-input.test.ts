@@ -346,7 +346,7 @@ describe("long but valid input is not a server error", () => {
     // The inviter's name comes from the session; names may be up to 120 characters long.
     const editorId = await userIdOf("editor");
     const longName = `Dov ${"Ashgrove-Longname ".repeat(7)}`.slice(0, 120);
-    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(editorId), name: longName, email: "dov.ashgrove@tarnhollow.example", role: "member" }, expires: "2999-01-01" });
+    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(editorId), name: longName, email: "dov.ashgrove@tarnhollow.example", role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
     const res = await invitationsRoute.POST(req("POST", { email: "long.title.invitee@example.org", scope: "proof" }), params({ proofId }));
     expect(res.status, await res.clone().text()).toBe(201);
     const { id } = await res.json();

@@ -24,7 +24,8 @@ export async function actAs(key: string | null): Promise<number | null> {
   }
   const id = await userIdOf(key);
   const person = demoPeople.find((p) => p.key === key)!;
-  mocked.mockResolvedValue({ user: { id: String(id), name: person.name, email: person.email, role: person.role }, expires: "2999-01-01" });
+  const { sessionVersion } = (await models().User.findByPk(id, { attributes: ["sessionVersion"] }))!;
+  mocked.mockResolvedValue({ user: { id: String(id), name: person.name, email: person.email, role: person.role, sessionVersion }, expires: "2999-01-01" });
   return id;
 }
 

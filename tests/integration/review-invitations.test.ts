@@ -110,7 +110,7 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     const { User } = models();
     const iris = await User.findOne({ where: { name: "Iris Penhallow" }, order: [["id", "DESC"]] });
     const { getServerSession } = await import("next-auth");
-    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member" }, expires: "2999-01-01" });
+    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
     const stepIn = fx.steps["2.1.1"];
     const stepOut = fx.steps["1.1"];
     const get = (stepId: number) => reviews.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId), stepId: String(stepId) }));
@@ -204,14 +204,18 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
 });
 
 describe("GET invitations and DELETE a reviewer's case limits", () => {
-  it("lists invitations for editors only (401, 403 non-member, 403 author who is not the owner)", async () => {
+  it("lists reviewer invitations for editors only (401, 403 non-member and referee; a co-author sees co-author invitations only)", async () => {
     const list = () => invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }));
     await actAs(null);
     expect((await list()).status).toBe(401);
     await actAs("outsider");
     expect((await list()).status).toBe(403);
-    await actAs("coauthor");
+    await actAs("reviewer");
     expect((await list()).status).toBe(403);
+    await actAs("coauthor");
+    const coauthors = await list();
+    expect(coauthors.status).toBe(200);
+    expect((await coauthors.json()).invitations).toEqual([]); // every invitation here is a referee's
     await actAs("editor");
     const res = await list();
     expect(res.status).toBe(200);

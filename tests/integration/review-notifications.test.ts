@@ -37,9 +37,14 @@ describe("notifications", () => {
     expect((await notifications.GET(new Request("http://localhost/x"), params({}))).status).toBe(401);
     await actAs("coauthor");
     const body = await (await notifications.GET(new Request("http://localhost/x"), params({}))).json();
-    const mine = body.notifications.filter((n: { link: string }) => n.link === `/queue/${fx.proofId}/${fx.steps["1.1"]}`);
+    const mine = body.notifications.filter((n: { link: string }) => n.link.startsWith(`/queue/${fx.proofId}/${fx.steps["1.1"]}#`));
     expect(mine).toHaveLength(1);
     expect(mine[0]).toMatchObject({ kind: "dispute_raised", read: false });
+    // A sentence naming proof, case and step with the pages' labels, and a link to the dispute itself.
+    const raised = await models().Review.findOne({ where: { stepId: fx.steps["1.1"], verdict: "dispute" } });
+    const title = (await models().Proof.findByPk(fx.proofId))!.title;
+    expect(mine[0].message).toBe(`A referee raised a dispute on revision 1 of step 1:1 (case 1, “Small”) of “${title}”, a step you are an author of.`);
+    expect(mine[0].link).toBe(`/queue/${fx.proofId}/${fx.steps["1.1"]}#dispute-${raised!.id}`);
     expect(body.unread).toBeGreaterThanOrEqual(1);
 
     const authorsNotice = await models().Notification.findOne({ where: { userId: fx.ids.author, stepId: fx.steps["1.1"] } });
@@ -89,7 +94,10 @@ describe("settings and the audit trail", () => {
 
   it("keeps the events of a proof, newest first, with the actor's name", async () => {
     const events = await listProofEvents(fx.proofId);
-    expect(events[0]).toMatchObject({ action: "review.disputed", actorName: "Celia Marwood", subjectType: "step", subjectId: fx.steps["2.1"], subjectLabel: "step 2.1" });
+    expect(events[0]).toMatchObject({
+      action: "review.disputed", actorName: "Celia Marwood", subjectType: "step", subjectId: fx.steps["2.1"], subjectLabel: "step 2:1 (case 2, “Large”)",
+      sentence: "Celia Marwood raised a dispute on step 2:1 (case 2, “Large”) at revision 1.", href: `/proofs/${fx.proofId}/steps/${fx.steps["2.1"]}`,
+    });
     expect(events.map((e) => e.action).filter((a) => a === "review.disputed")).toHaveLength(2);
   });
 });

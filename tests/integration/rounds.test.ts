@@ -43,7 +43,7 @@ const NOTE_CELIA = `Between us: the bound in case 2 looks borrowed ${stamp}.`;
 const NOTE_GALE = `Editor only: I know the authors ${stamp}.`;
 
 async function actAsGale() {
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member" }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
 }
 
 const P = () => String(fx.proofId);
@@ -383,9 +383,13 @@ describe("blind review", () => {
     }
     // The owner (an author) no longer manages referees on a blind proof: that would show their names and addresses.
     await actAs("author");
+    // The owner still lists (and sends) co-author and editor invitations, but no referee invitation is among them.
     const ownerInvites = await invitationsRoute.GET(jsonRequest("/x", "GET"), params({ proofId: P() }));
-    expect(ownerInvites.status).toBe(403);
-    expect((await ownerInvites.json()).error.message).toMatch(/refereed blind/);
+    expect(ownerInvites.status).toBe(200);
+    expect((await ownerInvites.json()).invitations.filter((i: { role: string }) => i.role === "reviewer")).toEqual([]);
+    const ownerInvitesReferee = await invitationsRoute.POST(jsonRequest("/x", "POST", { email: "someone@moorfield.example", scope: "proof" }), params({ proofId: P() }));
+    expect(ownerInvitesReferee.status).toBe(403);
+    expect((await ownerInvitesReferee.json()).error.message).toMatch(/refereed blind/);
     const snapshot = JSON.stringify(await loadSnapshot(fx.proofId));
     for (const secret of secrets) expect(snapshot, `the export names ${secret}`).not.toContain(secret);
     const editorText = await surfaces("editor");

@@ -68,7 +68,7 @@ describe("a vouch covers the text and the claims of one revision", () => {
     const view = await panel(stepId);
     expect(view.status).toMatchObject({ vouches: 0, supersededVouches: 1, vouched: false });
     const [notice] = await inbox(fx.ids.reviewer);
-    expect(notice.message).toMatch(/^Your vouch for step 1:1 of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/);
+    expect(notice.message).toMatch(/^Your vouch for step 1:1 \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/);
     expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);
 
     const stale = await vouch(stepId, { revisionId: r1.id });

@@ -14,6 +14,7 @@ import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/r
 import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
 import * as recheckRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/recheck/route";
+import * as inputRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/input/route";
 
 let proofId: string;
 let stepId: string;
@@ -56,11 +57,37 @@ describe("POST .../steps/[stepId]/claims", () => {
     expect(picture.x).toHaveLength(6);
     expect(Math.max(...picture.spectrum)).toBeCloseTo(Math.sqrt(5), 6);
     expect(bound.picture.bound.approx).toBeCloseTo(Math.sqrt(5), 9);
+    // The inputs as entered and as graph6 (K1,5 = "Esa?" by McKay's formats.txt), and the method without the
+    // certificate words, which stand beside it as the certificate kind read from the certificate.
+    expect(bound.inputs.entries[0]).toMatchObject({ type: "graph", graph: { entered: "star(5)", encoding: "graph6", encoded: "Esa?", order: 6, size: 5 } });
+    expect(bound.inputs.entries.map((e: { label: string }) => e.label)).toEqual(["graph G", "relation", "bound b"]);
+    expect(bound.method).not.toContain("certificate:");
+    expect(bound.certificateKind).toEqual(expect.any(String));
+    expect(bound.certificate.summary).toContain(bound.certificateKind);
     const sub = await getClaim(claims[1].id);
     expect(sub.status).toBe("verified");
     // The embedding's image is highlighted in the host: 5 vertices of K_{1,4}, its centre of degree 4.
     expect(sub.picture.pictures[0].highlight.vertices).toHaveLength(5);
     expect(sub.picture.pictures[0].highlight.edges).toHaveLength(4);
+  });
+
+  it("downloads a claim's full stored input to members who may see its step; 401 signed out, 403 for outsiders, 404 for another proof's id", async () => {
+    await actAs("author");
+    const [c] = await (await attach([starBound])).json().then((b: { claims: Array<{ id: number }> }) => b.claims);
+    const get = (id: number | string, proof = proofId) => inputRoute.GET(new Request("http://localhost/x"), params({ proofId: proof, claimId: String(id) }));
+    await actAs("reviewer");
+    const res = await get(c.id);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-disposition")).toMatch(/attachment; filename="cairn-proof-\d+-claim-\d+-input\.json"/);
+    expect(JSON.parse(await res.text())).toMatchObject({ kind: "spectral-radius-bound", graph: { format: "named", text: "star(5)" }, bound: "sqrt(5)" });
+    await actAs("outsider");
+    expect((await get(c.id)).status).toBe(403);
+    await actAs("author");
+    expect((await get(999_999_999)).status).toBe(404);
+    await actAs(null);
+    expect((await get(c.id)).status).toBe(401);
+    await actAs("author");
+    await verificationSettled(c.id);
   });
 
   it("answers 422 naming the field for a malformed graph, a bound that does not parse, or a wrong-size embedding; nothing is saved", async () => {

@@ -36,3 +36,19 @@ describe("settings from the environment", () => {
     expect(checkServerEnv({ DATABASE_URL: "mariadb://a:b@127.0.0.1:3307/cairn", NEXTAUTH_SECRET: "x".repeat(32) }).DATABASE_URL).toContain("3307");
   });
 });
+
+describe("storage settings", () => {
+  it("default to local disk and read the S3 settings", () => {
+    expect(readEnv({}).CAIRN_STORAGE).toBe("local");
+    expect(readEnv({}).CAIRN_UPLOAD_MAX_BYTES).toBe(64 * 1024 * 1024);
+    const env = readEnv({ CAIRN_STORAGE: "s3", CAIRN_S3_BUCKET: "proof-files", CAIRN_S3_ENDPOINT: "http://127.0.0.1:9000", CAIRN_S3_PATH_STYLE: "true" });
+    expect(env).toMatchObject({ CAIRN_STORAGE: "s3", CAIRN_S3_BUCKET: "proof-files", CAIRN_S3_PATH_STYLE: true });
+  });
+
+  it("name what is wrong with them", () => {
+    expect(() => readEnv({ CAIRN_STORAGE: "s3" })).toThrow(/CAIRN_S3_BUCKET: not set; CAIRN_STORAGE=s3 needs the bucket/);
+    expect(() => readEnv({ CAIRN_STORAGE: "s3", CAIRN_S3_BUCKET: "Bad_Bucket" })).toThrow(/CAIRN_S3_BUCKET: must be an S3 bucket name/);
+    expect(() => readEnv({ CAIRN_S3_ENDPOINT: "not a url" })).toThrow(/CAIRN_S3_ENDPOINT: must be the service's URL/);
+    expect(() => readEnv({ CAIRN_UPLOAD_MAX_BYTES: "-3" })).toThrow(/CAIRN_UPLOAD_MAX_BYTES/);
+  });
+});

@@ -77,6 +77,19 @@ describe("bundle", () => {
     expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
   });
 
+  it("carries the method that decided with its certificate kind, and rejects a method naming another kind, even re-sealed", () => {
+    const b = fresh();
+    const claim = b.items.find((i) => i.id === "claim 1:1#1")!.data as { verdict: { method: string } };
+    // E8 is a tree: breadth-first search leaves a spanning forest (each vertex's parent).
+    expect(claim.verdict.method).toBe("breadth-first search; certificate: spanning forest (parent of each vertex)");
+    const items = b.items.map((i) =>
+      i.id === "claim 1:1#1" ? { ...i, data: { ...(i.data as object), verdict: { ...claim.verdict, method: "breadth-first search; certificate: Rayleigh vector" } } } : i,
+    );
+    const r = checkBundle(copy(sealBundle(b.export, items.map(({ id, type, data }) => ({ id, type, data })))), "b.json");
+    expect(r.exitCode).toBe(1);
+    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/the recorded method names a certificate of kind "Rayleigh vector" but the certificate carried is of kind "spanning forest/);
+  });
+
   it("each vouch carries the digest of the revision it covers (text and claims), and the re-check recomputes it", () => {
     const r = checkBundle(copy(fresh()), "b.json");
     const line = r.lines.find((l) => l.label === "step 1:1")!;

@@ -64,7 +64,7 @@ describe("LaTeX escaping", () => {
     expect(inlineToLatex("**If $x_1$ then** *y* and `a_b`")).toBe(String.raw`\textbf{If $x_1$ then} \emph{y} and \texttt{a\_b}`);
     expect(markdownToLatex("- one\n- two")).toBe("\\begin{itemize}\n\\item one\n\\item two\n\\end{itemize}");
     // Line breaks inside math become spaces: a blank line in display math would not compile.
-    expect(markdownToLatex("$$\n\\rho < 2\n\n$$")).toBe("\\[ \\rho < 2  \\]");
+    expect(markdownToLatex("$$\n\\rho < 2\n\n$$")).toBe("\\[\\rho < 2 \\]");
   });
 
   it("LaTeX specials and injection attempts in titles and steps come out escaped", () => {
@@ -95,7 +95,7 @@ describe("LaTeX document", () => {
     const tex = texOf("A proof", "A step.", "certified");
     expect(tex).toContain("the stated computation with exact arithmetic");
     expect(tex).toContain("It does not mean that the case split is exhaustive, nor that the prose argument of any step is right");
-    expect(tex).toMatch(/Verified:\} G is a tree, by breadth-first search; certificate in bundle item \\texttt\{claim 1:1\\#1\}/);
+    expect(tex).toMatch(/Verified:\} G is a tree, by breadth-first search \(certificate: spanning forest \(parent of each vertex\)\); certificate in bundle item \\texttt\{claim 1:1\\#1\}/);
     expect(tex).toContain("Celia Marwood & 2 & 2026-11-30 12:00 UTC");
   });
 
@@ -103,6 +103,22 @@ describe("LaTeX document", () => {
     const { pdf, log } = await compileLatex(texOf(EVIL_TITLE, EVIL_STEP), { runs: 2 });
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
     expect(log).not.toContain("(/etc/passwd"); // pdflatex logs every file it opens as "(path"
+    expect(log).not.toMatch(/^! /m);
+  }, 120_000);
+
+  it("compiles the appendix of claim inputs, with hostile text in a family name and in a graph that does not read", async () => {
+    const s = settledSnapshot("Inputs");
+    const hostile = String.raw`\input{/etc/passwd} $\write18{ls}$ 100% & #1 _x_ ^^5c ~ {`;
+    s.cases[0].steps[0].claims.push({
+      ...s.cases[0].steps[0].claims[0], position: 2, kind: "identification", status: "refuted", certificate: null,
+      input: JSON.stringify({ format: "cairn-claim/1", kind: "identification", graph: { format: "edges", text: hostile }, family: hostile }),
+    });
+    const tex = renderLatex(documentOf(buildBundle(s, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada" })));
+    expect(tex).toContain("\\section*{Appendix: claim inputs}");
+    for (const bad of ["input", "write", "write18"]) expect(commandsIn(tex).has(bad)).toBe(false);
+    const { pdf, log } = await compileLatex(tex, { runs: 1 });
+    expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    expect(log).not.toContain("(/etc/passwd");
     expect(log).not.toMatch(/^! /m);
   }, 120_000);
 

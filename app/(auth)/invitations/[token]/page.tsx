@@ -2,13 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Wordmark } from "@/components/ui/logo";
 import { getCurrentUser } from "@/lib/session";
-import { previewInvitation, type InvitationPreview } from "@/lib/data/invitations";
+import { previewInvitation, ROLE_WORD, type InvitationPreview } from "@/lib/data/invitations";
 import { AppError } from "@/lib/errors";
 import { AcceptInvitation } from "@/components/review/accept-invitation";
 
-export const metadata: Metadata = { title: "Invitation to review" };
+export const metadata: Metadata = { title: "Invitation" };
 
-/** The link from an invitation e-mail: create an account or sign in, and join the proof as a reviewer. */
+/** The link from an invitation e-mail: create an account or sign in, and join the proof in the invited role. */
 export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const [user, preview] = await Promise.all([
@@ -18,7 +18,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
   return (
     <main className="mx-auto max-w-md px-6 py-16">
       <Wordmark />
-      <h1 className="mt-8 text-2xl font-semibold">Invitation to review</h1>
+      <h1 className="mt-8 text-2xl font-semibold">{preview && preview.role !== "reviewer" ? "Invitation to join a proof" : "Invitation to review"}</h1>
       <InvitationBody token={token} preview={preview} user={user} />
     </main>
   );
@@ -35,7 +35,17 @@ function InvitationBody({ token, preview, user }: { token: string; preview: Invi
   const callback = encodeURIComponent(`/invitations/${token}`);
   const intro = (
     <p className="mt-4">
-      {preview.inviterName} invites <span className="font-mono">{preview.email}</span> to review <strong>{preview.scope}</strong> of “{preview.proofTitle}”.
+      {preview.inviterName} invites <span className="font-mono">{preview.email}</span>{" "}
+      {preview.role === "reviewer" ? (
+        <>
+          to review <strong>{preview.scope}</strong> of
+        </>
+      ) : (
+        <>
+          to join as <strong>{ROLE_WORD[preview.role]}</strong>
+        </>
+      )}{" "}
+      “{preview.proofTitle}”.
     </p>
   );
   if (user && user.email.toLowerCase() !== preview.email.toLowerCase())
@@ -59,7 +69,7 @@ function InvitationBody({ token, preview, user }: { token: string; preview: Invi
   return (
     <>
       {intro}
-      <AcceptInvitation token={token} email={preview.email} signedIn={user !== null} />
+      <AcceptInvitation token={token} email={preview.email} signedIn={user !== null} roleWord={ROLE_WORD[preview.role]} />
     </>
   );
 }

@@ -3,9 +3,8 @@ import { revalidatePath } from "next/cache";
 import { proofAccess } from "@/lib/access";
 import { AppError } from "@/lib/errors";
 import { createExport } from "@/lib/data/exports";
-import { createExportSchema } from "@/lib/validations/export";
+import { createExportSchema, type ExportActionResult } from "@/lib/validations/export";
 
-export type ExportActionResult = { ok: true; exportId: number; manifestDigest: string } | { ok: false; message: string; blockers?: string[] };
 
 /** Makes an export from the export page; checks the role itself (authors and editors), like the route handler. */
 export async function createExportAction(proofId: number, kind: unknown): Promise<ExportActionResult> {

@@ -5,6 +5,7 @@ import { getProofSummary } from "@/lib/data/proofs";
 import { getCertification, listExports } from "@/lib/data/exports";
 import { pdflatexAvailable } from "@/lib/export/pdf";
 import { ExportActions } from "@/components/export/export-actions";
+import { createExportAction } from "./actions";
 import { ExportList } from "@/components/export/export-list";
 import { OfflineCheckHelp } from "@/components/export/offline-check-help";
 import { VerdictCaution } from "@/components/ui/caution";
@@ -41,7 +42,7 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
             </ul>
           </div>
         )}
-        {!may(standing, "exports.create") ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} />}
+        {!may(standing, "exports.create") ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} create={createExportAction} />}
       </section>
       <VerdictCaution />
       <section className="space-y-3">

@@ -4,6 +4,7 @@ import { getProofSummary } from "@/lib/data/proofs";
 import { getStep } from "@/lib/data/steps";
 import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
 import { verificationNotice } from "@/lib/data/claim-jobs";
+import { proofReferences } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepEditor } from "@/components/editor/step-editor";
 import { RevisionHistory } from "@/components/editor/revision-history";
@@ -14,6 +15,9 @@ import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { orNotFound, stepPageAccess } from "@/app/(workspace)/page-access";
 import { may } from "@/lib/access";
+import { listStepFiles } from "@/lib/data/files";
+import { FileList } from "@/components/files/file-list";
+import { FileUpload } from "@/components/files/file-upload";
 
 export const metadata: Metadata = { title: "Step" };
 
@@ -23,9 +27,10 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
   const { proofId, user, role, standing } = access;
   const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
-  const [claims, withdrawn] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id)]);
+  const [claims, withdrawn, files] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id), listStepFiles(proofId, step.id)]);
   const verification = await verificationNotice(claims);
   const isAuthor = may(standing, "steps.write");
+  const references = isAuthor ? await proofReferences(proofId) : [];
   return (
     <main>
       <nav className="text-sm text-stone-600">
@@ -44,7 +49,7 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
         </p>
       )}
       {step.latest && <MathMarkdown source={step.latest.body} className="mt-3 max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
-      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} />}
+      {isAuthor && step.latest && <StepEditor key={step.id} proofId={proofId} stepId={step.id} latest={step.latest} references={references} />}
       <div className="mt-8">
         <VerdictCaution />
       </div>
@@ -56,6 +61,8 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
           <ClaimFileForm proofId={proofId} stepId={step.id} />
         </details>
       )}
+      <FileList proofId={proofId} stepId={step.id} initial={files} />
+      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
       <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
       <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
     </main>

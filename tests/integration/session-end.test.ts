@@ -1,0 +1,70 @@
+/**
+ * Sessions end (issue 10, defect 9), at the level every handler shares (lib/session.ts): a session token
+ * whose version is older than the person's is no session (401), and removal from a proof ends that
+ * proof's access at the next request, because membership is read from the database on each request,
+ * not from the token. The browser-level test with real cookies is tests/e2e/session-end.test.ts.
+ */
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
+
+import { getServerSession, type Session } from "next-auth";
+import { actAs, params } from "./helpers";
+import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
+import { closeSequelize } from "@/lib/db";
+import { endSessions } from "@/lib/data/users";
+import { models } from "@/models";
+import * as proofsRoute from "@/app/api/proofs/route";
+import * as proofRoute from "@/app/api/proofs/[proofId]/route";
+import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
+
+let fx: ReviewFixture;
+beforeAll(async () => {
+  fx = await makeProof("session end");
+});
+afterAll(async () => {
+  await dropProofs();
+  await closeSequelize();
+});
+
+const list = () => proofsRoute.GET(new Request("http://localhost/api/proofs"), params({}));
+const readProof = () => proofRoute.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }));
+
+describe("session version", () => {
+  it("a token of an older version, or without one, is no session: 401", async () => {
+    const id = (await actAs("coauthor"))!;
+    expect((await list()).status).toBe(200);
+    const session = (await vi.mocked(getServerSession)()) as Session;
+    await endSessions(id); // what sign-out and a password change do
+    const stale = await list();
+    expect(stale.status).toBe(401);
+    expect((await stale.json()).error.code).toBe("unauthenticated");
+    // A token minted before versions existed carries none.
+    vi.mocked(getServerSession).mockResolvedValue({ ...session, user: { ...session.user, sessionVersion: undefined } });
+    expect((await list()).status).toBe(401);
+    await actAs("coauthor"); // a new sign-in carries the new version
+    expect((await list()).status).toBe(200);
+  });
+
+  it("ending one version twice changes nothing the second time (a replayed sign-out of an old token)", async () => {
+    const id = (await actAs("outsider"))!;
+    const { sessionVersion } = (await models().User.findByPk(id))!;
+    await endSessions(id, sessionVersion);
+    await endSessions(id, sessionVersion);
+    expect((await models().User.findByPk(id))!.sessionVersion).toBe(sessionVersion + 1);
+  });
+});
+
+describe("removal from a proof", () => {
+  it("ends that proof's access at the next request of the same session; other proofs are untouched", async () => {
+    await actAs("reviewer");
+    expect((await readProof()).status).toBe(200);
+    const step = () => stepRoute.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId), stepId: String(fx.steps["1.1"]) }));
+    expect((await step()).status).toBe(200);
+    await models().ProofMember.destroy({ where: { proofId: fx.proofId, userId: fx.ids.reviewer } });
+    expect((await readProof()).status).toBe(403);
+    expect((await step()).status).toBe(403);
+    expect((await list()).status).toBe(200);
+    await models().ProofMember.create({ proofId: fx.proofId, userId: fx.ids.reviewer, role: "reviewer" });
+  });
+});

@@ -1,0 +1,36 @@
+/**
+ * An S3-compatible fake on loopback for the tests of the S3 storage driver: s3rver (npm), with its
+ * files in a throwaway folder. The bucket is created by the fake itself at start.
+ */
+import { mkdtemp, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import S3rver from "s3rver";
+
+export interface S3Fake {
+  endpoint: string;
+  bucket: string;
+  /** Settings for lib/env.ts / storeFromEnv that point at this fake. */
+  env: Record<string, string>;
+  stop(): Promise<void>;
+}
+
+export async function startS3Fake(port: number, bucket = "cairn-test-files"): Promise<S3Fake> {
+  const directory = await mkdtemp(path.join(tmpdir(), "cairn-s3-"));
+  const server = new S3rver({ port, address: "127.0.0.1", silent: true, directory, configureBuckets: [{ name: bucket, configs: [] }] });
+  await server.run();
+  const endpoint = `http://127.0.0.1:${port}`;
+  return {
+    endpoint,
+    bucket,
+    // s3rver's fixed credentials (its README): access key S3RVER, secret S3RVER.
+    env: { CAIRN_STORAGE: "s3", CAIRN_S3_BUCKET: bucket, CAIRN_S3_ENDPOINT: endpoint, CAIRN_S3_PATH_STYLE: "true", CAIRN_S3_ACCESS_KEY_ID: "S3RVER", CAIRN_S3_SECRET_ACCESS_KEY: "S3RVER" },
+    async stop() {
+      await server.close();
+      await rm(directory, { recursive: true, force: true });
+    },
+  };
+}
+
+/** The port of the S3 fake: CAIRN_TEST_S3_PORT, else the test database's port + 200. */
+export const s3FakePort = (): number => Number(process.env.CAIRN_TEST_S3_PORT) || (Number(process.env.CAIRN_TEST_DB_PORT) || 3317) + 200;

@@ -1,0 +1,66 @@
+/** The timeline speaks in sentences naming proof, case and step with the pages' labels, never in event codes. */
+import { describe, expect, it } from "vitest";
+import { readdirSync, readFileSync, statSync } from "node:fs";
+import { join } from "node:path";
+import { eventSentence, placePhrase } from "@/lib/review/event-sentences";
+import { labelSteps, stepLabel } from "@/lib/proof-tree";
+
+const root = join(import.meta.dirname, "..", "..");
+function sources(dir: string): string[] {
+  return readdirSync(dir).flatMap((f) => {
+    const p = join(dir, f);
+    return statSync(p).isDirectory() ? sources(p) : /\.tsx?$/.test(f) && !/\.test\./.test(f) ? [p] : [];
+  });
+}
+
+/** Every audit action the code records ("step.revised", `dispute.${to}` → answered/withdrawn/upheld, …). */
+function recordedActions(): string[] {
+  const found = new Set<string>();
+  for (const file of sources(join(root, "lib", "data"))) {
+    const text = readFileSync(file, "utf8");
+    // Every dotted name on a line that sets an action, ternaries included ("member.left" : "member.removed").
+    for (const line of text.split("\n").filter((l) => /action: /.test(l)))
+      for (const m of line.matchAll(/"([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
+    for (const m of text.matchAll(/audit\([^,]+, [^,]+, "([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
+  }
+  for (const to of ["answered", "withdrawn", "upheld"]) found.add(`dispute.${to}`);
+  for (const kind of ["certified", "draft"]) found.add(`export.${kind}`);
+  for (const a of ["case.created", "case.edited", "case.moved", "case.reparented", "case.deleted", "case.restored"]) found.add(a);
+  return [...found].sort();
+}
+
+const place = { step: "2.1:1", caseNumber: "2.1", caseTitle: "Legs 1 and 2" };
+
+describe("event sentences", () => {
+  it("name the step with the pages' label and its case with number and title", () => {
+    expect(placePhrase(place)).toBe("step 2.1:1 (case 2.1, “Legs 1 and 2”)");
+    expect(placePhrase({ step: null, caseNumber: "3", caseTitle: "Large" })).toBe("case 3, “Large”");
+    expect(placePhrase({ step: null, caseNumber: null, caseTitle: null })).toBe("the proof");
+    expect(eventSentence({ action: "review.vouched", subjectType: "step", actorName: "Celia Marwood", detail: "revision 2", place }))
+      .toBe("Celia Marwood vouched for step 2.1:1 (case 2.1, “Legs 1 and 2”) at revision 2.");
+  });
+
+  it("drop the database ids older details carried ('raised → withdrawn; step 8')", () => {
+    const s = eventSentence({ action: "dispute.withdrawn", subjectType: "review", actorName: "Celia Marwood", detail: "raised → withdrawn; step 8", place });
+    expect(s).toBe("Celia Marwood withdrew the dispute on step 2.1:1 (case 2.1, “Legs 1 and 2”).");
+  });
+
+  it("word every action the code records, with no event code, review number or bare id left", () => {
+    const actions = recordedActions();
+    expect(actions.length).toBeGreaterThan(25);
+    for (const action of actions) {
+      const s = eventSentence({ action, subjectType: "step", actorName: "Ada Quenby", detail: null, place });
+      expect(s, action).toMatch(/^Ada Quenby |^A claim /);
+      expect(s, action).not.toContain(action);
+      expect(s, action).not.toMatch(/#\d|“[a-z]+ [a-z_ ]+”/);
+      expect(s.endsWith("."), action).toBe(true);
+    }
+  });
+
+  it("number steps by their rank in the case, as the case tree and the step page do", () => {
+    const labels = labelSteps(new Map([[1, "1"], [2, "2.1"]]), [
+      { id: 10, caseId: 1, position: 3 }, { id: 11, caseId: 1, position: 7 }, { id: 12, caseId: 2, position: 2 },
+    ]);
+    expect([...labels]).toEqual([[10, stepLabel("1", 1)], [11, stepLabel("1", 2)], [12, stepLabel("2.1", 1)]]);
+  });
+});
