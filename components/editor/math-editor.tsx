@@ -1,8 +1,7 @@
 "use client";
 import dynamic from "next/dynamic";
-import { cloneElement, isValidElement, useEffect, useRef, type ComponentProps } from "react";
+import { cloneElement, isValidElement, useEffect, useMemo, useRef, type ComponentProps } from "react";
 import "katex/dist/katex.min.css";
-import { useMemo } from "react";
 import { rehypePlugins, remarkPlugins } from "@/lib/markdown";
 import { mathCommands, type Reference } from "./math-commands";
 
@@ -19,10 +18,11 @@ const MDEditor = dynamic(
         const icon = isValidElement<{ "aria-hidden"?: boolean }>(c.icon) ? cloneElement(c.icon, { "aria-hidden": true }) : c.icon;
         return Array.isArray(c.children) ? ({ ...c, icon, children: c.children.map(decorative) } as Command) : { ...c, icon };
       };
-      const commands = getCommands().map(decorative), extraCommands = getExtraCommands().map(decorative);
-      return function AccessibleEditor(props: ComponentProps<typeof Editor>) {
+      const extraCommands = getExtraCommands().map(decorative);
+      return function AccessibleEditor({ commands, ...props }: ComponentProps<typeof Editor>) {
         const narrow = typeof window !== "undefined" && window.matchMedia("(max-width: 639px)").matches;
-        return <Editor commands={commands} extraCommands={extraCommands} preview={narrow ? "edit" : "live"} {...props} />;
+        const toolbar = useMemo(() => (commands ?? getCommands()).map(decorative), [commands]);
+        return <Editor commands={toolbar} extraCommands={extraCommands} preview={narrow ? "edit" : "live"} {...props} />;
       };
     }),
   { ssr: false, loading: () => <p className="text-stone-500">Loading the editor…</p> },
@@ -43,7 +43,7 @@ export function MathEditor({ value, onChange, label, hint, error, height = 240, 
   height?: number;
   references?: readonly Reference[];
 }) {
-<<<<<<< HEAD
+  const commands = useMemo(() => mathCommands(references), [references]);
   const box = useRef<HTMLDivElement>(null);
   // The preview pane scrolls; keyboard users reach it with Tab and scroll it with the arrow keys. The library renders it
   // without a tabindex, so it is given one (and a name) once the editor is in the page.
@@ -59,9 +59,6 @@ export function MathEditor({ value, onChange, label, hint, error, height = 240, 
     if (box.current) watch.observe(box.current, { childList: true, subtree: true });
     return () => watch.disconnect();
   }, [label]);
-=======
-  const commands = useMemo(() => mathCommands(references), [references]);
->>>>>>> main
   return (
     <div ref={box} className="math-editor text-sm" data-color-mode="light">
       <p className="mb-1" aria-hidden="true">
