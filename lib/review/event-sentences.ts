@@ -70,6 +70,7 @@ export function eventSentence(e: EventFacts): string {
     case "dispute.answered": return `${who} answered the dispute on ${where}.`;
     case "dispute.withdrawn": return `${who} withdrew the dispute on ${where}.`;
     case "dispute.upheld": return `${who} upheld the dispute on ${where}.`;
+    case "file.uploaded": return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
     case "comment.added": return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
     case "invitation.sent": return withDetail(`${who} invited a referee`);
     case "invitation.revoked": return withDetail(`${who} revoked an invitation`);
