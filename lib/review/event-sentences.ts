@@ -60,6 +60,9 @@ export function eventSentence(e: EventFacts): string {
     case "step.created": return `${who} added ${where}.`;
     case "step.revised": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
     case "step.moved": return `${who} moved ${where}.`;
+    case "revision.created": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
+    case "demo.reviews": return `${who} added the demonstration reviews.`;
+    case "demo.rounds": return `${who} added the demonstration rounds.`;
     case "claim.attached": return `${who} attached a claim to ${where}${detail ? ` (${detail})` : ""}.`;
     case "claim.decided": return withDetail(`A claim on ${where} was decided`);
     case "claim.rechecked": return `${who} asked for a claim on ${where} to be checked again.`;

@@ -16,12 +16,14 @@ function sources(dir: string): string[] {
 /** Every audit action the code records ("step.revised", `dispute.${to}` → answered/withdrawn/upheld, …). */
 function recordedActions(): string[] {
   const found = new Set<string>();
-  for (const file of sources(join(root, "lib", "data"))) {
+  for (const file of [...sources(join(root, "lib", "data")), ...sources(join(root, "seeders"))]) {
     const text = readFileSync(file, "utf8");
     // Every dotted name on a line that sets an action, ternaries included ("member.left" : "member.removed").
     for (const line of text.split("\n").filter((l) => /action: /.test(l)))
       for (const m of line.matchAll(/"([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
     for (const m of text.matchAll(/audit\([^,]+, [^,]+, "([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
+    // The demo seeders write events through a local helper: event("revision.created", …), "demo.reviews".
+    for (const m of text.matchAll(/event\("([a-z_]+\.[a-z_]+)"|"(demo\.[a-z_]+)"/g)) found.add(m[1] ?? m[2]);
   }
   for (const to of ["answered", "withdrawn", "upheld"]) found.add(`dispute.${to}`);
   for (const kind of ["certified", "draft"]) found.add(`export.${kind}`);
