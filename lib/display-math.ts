@@ -4,7 +4,8 @@
  * which rehype-katex renders in display mode. The web pages, the print view and the editor preview share it
  * through lib/markdown.ts, so all three agree with the PDF.
  */
-interface MdNode {
+/** The part of a Markdown syntax-tree node (mdast) that the remark plugins here read and write. */
+export interface MdNode {
   type: string;
   value?: string;
   children?: MdNode[];

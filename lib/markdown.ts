@@ -15,14 +15,16 @@ import { remarkDisplayMathInline } from "@/lib/display-math";
 export const sanitizeSchema = {
   ...defaultSchema,
   // No images at all: a step must not load remote content.
-  tagNames: (defaultSchema.tagNames ?? []).filter((t) => t !== "img"),
+  // <mark> only comes from the revision comparison (lib/review/word-marks.ts): raw HTML never reaches here.
+  tagNames: [...(defaultSchema.tagNames ?? []).filter((t) => t !== "img"), "mark"],
   attributes: {
     ...defaultSchema.attributes,
     // One className rule for code (the sanitizer reads only the first rule naming an attribute): the default's
     // language-* classes plus the two math classes, so `$$…$$` within a line keeps its math-display class.
     code: [...(defaultSchema.attributes?.code ?? []).filter((a) => (Array.isArray(a) ? a[0] : a) !== "className"), ["className", /^language-./, "math-inline", "math-display"]],
     span: [...(defaultSchema.attributes?.span ?? []), ["className", "math", "math-inline", "math-display"]],
-    div: [...(defaultSchema.attributes?.div ?? []), ["className", "math", "math-display"]],
+    div: [...(defaultSchema.attributes?.div ?? []), ["className", "math", "math-display", "word-removed-block", "word-added-block"]],
+    mark: [["className", "word-removed", "word-added"] as [string, ...string[]]],
   },
   protocols: { ...defaultSchema.protocols, href: ["http", "https", "mailto"] },
 };

@@ -26,10 +26,11 @@ import { RoundDecision } from "./round-decision";
 import { RoundReminder } from "./round-reminder";
 import { StepFile } from "./step-file";
 import { FormerMember } from "./former-member";
+import { BatchClaim, BatchResult } from "./batch-claim";
 
 const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile, BatchClaim, BatchResult };
 
 function initModels() {
   const sequelize = getSequelize();
@@ -69,4 +70,4 @@ export function models() {
 
 export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
   OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile };
+  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile, BatchClaim, BatchResult };

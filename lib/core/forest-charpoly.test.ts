@@ -9,6 +9,7 @@ import { treeInertia, treeInertiaOver } from "./tree-inertia";
 import { RATIONALS } from "./number-field";
 import { rat } from "./rational";
 import { perronApproximation } from "./perron";
+import { rootsBetween, sturmSequence } from "./sturm";
 import { spectralRadiusBound, recheckSpectralRadiusBound } from "./inertia";
 import { path, star, disjointUnion } from "./constructors";
 import { Budget } from "./verdict";
@@ -138,6 +139,28 @@ describe("the tree elimination on unreduced fractions with double intervals (the
       }
     }), { numRuns: 400, seed: 1618 });
   });
+  it("values that outgrow 2^52 part-way (large denominators in b, long paths) switch from doubles to BigInt and still agree with reduced rationals", () => {
+    // Far-apart points and points close to ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4), where values shrink towards 0.
+    const points = [rat(2n ** 45n + 3n, 2n ** 44n), rat(1999999, 1000000), rat(-(2n ** 50n) + 1n, 2n ** 49n), rat(7, 3), rat(3n ** 30n, 3n ** 30n - 1n)];
+    const graphs = [path(120), path(57), disjointUnion(star(9), path(60))];
+    for (let seed = 1; seed <= 3; seed++) {
+      const edges = [];
+      let x = seed;
+      const next = () => (x = (Math.imul(1664525, x) + 1013904223) >>> 0);
+      for (let i = 1; i < 100; i++) edges.push({ u: Math.floor((next() * i) / 2 ** 32), v: i });
+      graphs.push(makeGraph(100, edges));
+    }
+    for (const g of graphs)
+      for (const b of points) {
+        const fast = treeInertia(g, b, "none", new Budget(1e10));
+        const slow = treeInertiaOver(g, RATIONALS, b, "none", new Budget(1e10), true);
+        expect([fast.positive, fast.negative, fast.zero]).toEqual([slow.positive, slow.negative, slow.zero]);
+        const f = treeInertia(g, b, "nonPositive", new Budget(1e10));
+        const sl = treeInertiaOver(g, RATIONALS, b, "nonPositive", new Budget(1e10), true);
+        expect([f.complete, f.stoppedAt, f.stopSign]).toEqual([sl.complete, sl.stoppedAt, sl.stopSign]);
+        if (!f.complete) expect(f.witnessValue).toEqual(sl.witnessValue); // reduced on the way out
+      }
+  });
   it("a 300-vertex random tree against √r within 10^-12 of ρ on either side: the verdicts agree with the elimination over Q(b)", () => {
     const edges = [];
     let x = 300; // the benchmark's LCG and random recursive tree (seed = n)
@@ -158,5 +181,17 @@ describe("the tree elimination on unreduced fractions with double intervals (the
       outcomes.add(v.status);
     }
     expect([...outcomes].sort()).toEqual(["refuted", "verified"]); // the two bounds really lie on both sides of ρ
+  });
+});
+
+describe("2cos(pπ/q) bounds isolated by exact sign changes at float-suggested separators", () => {
+  it("every interval holds exactly one root of its polynomial (Sturm count) and the value is 2cos(pπ/q) (definition; Watkins & Zeitlin 1993 for the polynomial)", () => {
+    for (let q = 2; q <= 45; q++)
+      for (let p = 1; p < 2 * q; p++) {
+        const b = parseBound(`2cos(${p}pi/${q})`);
+        if (b.kind !== "algebraic") continue;
+        expect(rootsBetween(sturmSequence(b.poly), b.lo, b.hi), `2cos(${p}π/${q})`).toBe(1);
+        expect(Math.abs(b.approx - 2 * Math.cos((p * Math.PI) / q))).toBeLessThan(1e-12);
+      }
   });
 });

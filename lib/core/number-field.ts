@@ -30,6 +30,10 @@ export interface Field<T> {
   bits(a: T): number;
   /** The canonical (reduced) form, for values handed out of a computation; identity when omitted. */
   normalize?(a: T): T;
+  /** Rationals only: num/den as exact doubles with |num|, den < 2^52 and den > 0, when the value fits. */
+  smallPair?(a: T): [number, number] | undefined;
+  /** Rationals only: the element num/den from exact integer doubles (den > 0). */
+  fromPair?(num: number, den: number): T;
 }
 
 export const RATIONALS: Field<Rational> = {
@@ -46,6 +50,9 @@ export const RATIONALS: Field<Rational> = {
  * q·∏_c q^|T_c| χ(T_c)(b) (the recurrence of the characteristic polynomials), so the sizes are those of
  * the reduced fractions up to common factors. Values leave through `normalize` (one gcd each).
  */
+const SMALL = 1n << 64n;
+const PAIR = 1n << 52n;
+
 export const LAZY_RATIONALS: Field<Rational> = {
   fromInt: (k) => ({ num: BigInt(k), den: 1n }),
   sub: (a, b) => (a.den === b.den ? { num: a.num - b.num, den: a.den } : { num: a.num * b.den - b.num * a.den, den: a.den * b.den }),
@@ -56,8 +63,11 @@ export const LAZY_RATIONALS: Field<Rational> = {
   },
   sign: (a) => (a.num > 0n ? 1 : a.num < 0n ? -1 : 0),
   enclosure: (a) => rationalEnclosure(a),
-  bits: (a) => Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4,
+  // Most values are small: skip the string conversion below 2^64 (the budget only weighs sizes above 256 bits).
+  bits: (a) => (a.num < SMALL && a.num > -SMALL && a.den < SMALL ? 64 : Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4),
   normalize: (a) => rat(a.num, a.den),
+  smallPair: (a) => (a.num < PAIR && a.num > -PAIR && a.den < PAIR ? [Number(a.num), Number(a.den)] : undefined),
+  fromPair: (num, den) => ({ num: BigInt(num), den: BigInt(den) }),
 };
 
 // ------------------------------------------------------------ outward rounding

@@ -107,21 +107,75 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
   const cut = new Uint8Array(n);
   const bEnclosure = exactOnly ? undefined : F.enclosure(b);
   const diagonal = (v: number) => (diag[v] === 0 ? b : F.sub(b, F.fromInt(diag[v])));
-  const setExact = (v: number, a: T) => {
+  // Small exact values (|num|, den < 2^52, reduced) live in two double arrays, with no allocation; the
+  // field's own elements (BigInt-backed) are made only for larger values or when handed out. Every
+  // product is checked to stay below 2^52, so each double holds an exact integer; otherwise the vertex
+  // takes the field's arithmetic. sDen[v] = 0 marks "no small value".
+  const pairs = F.fromPair !== undefined && F.smallPair !== undefined;
+  const bPair = pairs ? F.smallPair!(b) : undefined;
+  const sNum = new Float64Array(bPair ? n : 0), sDen = new Float64Array(bPair ? n : 0);
+  const hasExact = (v: number) => exact[v] !== undefined || (bPair !== undefined && sDen[v] !== 0);
+  const getExact = (v: number): T => exact[v] ?? (exact[v] = F.fromPair!(sNum[v], sDen[v]));
+  const setExact = (v: number, a: T, interval = true) => {
     exact[v] = a;
-    [lo[v], hi[v]] = F.enclosure(a) ?? [-Infinity, Infinity];
+    if (bPair) {
+      const pr = F.smallPair!(a);
+      if (pr) { sNum[v] = pr[0]; sDen[v] = pr[1]; } else sDen[v] = 0;
+    }
+    if (interval) [lo[v], hi[v]] = F.enclosure(a) ?? [-Infinity, Infinity];
   };
   const isChild = (v: number, c: number) => c !== parent[v] && !cut[c];
+  // w^2 formed in the field (exact even beyond 2^53), once per distinct weight.
+  const squares = new Map<number, T>();
+  const square = (w: number): T => {
+    let s2 = squares.get(w);
+    if (s2 === undefined) { const x = F.fromInt(w); squares.set(w, (s2 = F.mul(x, x))); }
+    return s2;
+  };
+  const LIM = 4503599627370496; // 2^52
+  let zeroChildFound = -1;
+  /**
+   * a(v) in small doubles when every child is small and every product stays below 2^52: 1 (value stored,
+   * with its interval when asked), -1 (a child is zero: zeroChildFound), 0 (use the field).
+   */
+  const smallFromChildren = (v: number, interval: boolean): number => {
+    if (!bPair) return 0;
+    let num = bPair[0] - diag[v] * bPair[1], den = bPair[1];
+    if (!(Math.abs(num) < LIM)) return 0;
+    for (let k = start[v]; k < start[v + 1]; k++) {
+      const c = nbr[k];
+      if (!isChild(v, c)) continue;
+      if (exact[c] !== undefined && sDen[c] === 0) return 0; // a large child
+      const nc = sNum[c], dc = sDen[c];
+      if (nc === 0) { zeroChildFound = c; return -1; }
+      const t1 = num * nc, nd = den * nc;
+      let t2 = wt[k] * wt[k] * dc;
+      if (!(Math.abs(t1) < LIM && Math.abs(nd) < LIM && t2 < LIM)) return 0;
+      t2 *= den;
+      if (!(t2 < LIM)) return 0;
+      num = t1 - t2; den = nd;
+      if (den < 0) { num = -num; den = -den; }
+      let x = Math.abs(num), y = den; // gcd, exact on integers below 2^53
+      while (y !== 0) { const t = x % y; x = y; y = t; }
+      if (x > 1) { num /= x; den /= x; }
+    }
+    exact[v] = undefined;
+    sNum[v] = num; sDen[v] = den;
+    if (interval) {
+      if (num === 0) { lo[v] = 0; hi[v] = 0; }
+      else { const q = num / den; lo[v] = nextDown(q); hi[v] = nextUp(q); } // one rounding of exact operands
+    }
+    return 1;
+  };
   /** Exact a(v) from exact child values; zeroChild >= 0 when the special rule applies. */
   const exactFromChildren = (v: number): { a: T; zeroChild: number } => {
     let a = diagonal(v);
     for (let k = start[v]; k < start[v + 1]; k++) {
       const c = nbr[k];
       if (!isChild(v, c)) continue;
-      const ac = exact[c]!;
+      const ac = getExact(c);
       if (F.sign(ac) === 0) return { a, zeroChild: c };
-      const w = F.fromInt(wt[k]); // w^2 formed in the field: exact even beyond 2^53
-      a = F.sub(a, F.div(F.mul(w, w), ac));
+      a = F.sub(a, F.div(square(wt[k]), ac));
     }
     // Large numbers cost more than a step each (a gcd is quadratic in their length): tick by size so
     // huge growth ends in "undecided" in bounded time.
@@ -129,22 +183,31 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     if (bits > 256) { const w = bits >> 6; budget.tick(w + ((w * w) >> 1)); }
     return { a, zeroChild: -1 };
   };
+  /** Exact a(v), stored (small or in the field); returns the zero child when the special rule applies, else -1. */
+  const computeExact = (v: number, interval: boolean): number => {
+    const r = smallFromChildren(v, interval);
+    if (r === 1) return -1;
+    if (r === -1) return zeroChildFound;
+    const { a, zeroChild } = exactFromChildren(v);
+    if (zeroChild >= 0) return zeroChild;
+    setExact(v, a, interval);
+    return -1;
+  };
+  const exactSign = (v: number): number => (exact[v] !== undefined ? F.sign(exact[v]!) : Math.sign(sNum[v]));
   /** Exact values for the subtree of `top` (invariant: an exact vertex has an exact subtree). */
   const ensureExact = (top: number) => {
     const list: number[] = [];
     const stack = [top];
     while (stack.length) {
       const v = stack.pop()!;
-      if (exact[v] !== undefined) continue;
+      if (hasExact(v)) continue;
       list.push(v);
       for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) stack.push(nbr[k]);
     }
     for (let i = list.length - 1; i >= 0; i--) {
       budget.tick(1 + start[list[i] + 1] - start[list[i]]);
-      const { a, zeroChild } = exactFromChildren(list[i]);
       // Interval-decided vertices have children with intervals excluding 0, hence non-zero.
-      if (zeroChild >= 0) throw new Error("internal error: zero child below an interval-decided vertex");
-      exact[list[i]] = a;
+      if (computeExact(list[i], false) >= 0) throw new Error("internal error: zero child below an interval-decided vertex");
     }
   };
   const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
@@ -172,7 +235,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     let s: number;
     if (needExact) {
       for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) ensureExact(nbr[k]);
-      const { a, zeroChild } = exactFromChildren(v);
+      const zeroChild = computeExact(v, true);
       if (zeroChild >= 0) {
         // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
         setExact(zeroChild, F.fromInt(2));
@@ -183,8 +246,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
         if (stop !== "none") return witness ? zeroChildWitness(v, zeroChild) : { positive, negative, zero, complete: false, stoppedAt: v, stopSign: -1 };
         continue;
       }
-      setExact(v, a);
-      s = F.sign(a);
+      s = exactSign(v);
     } else {
       lo[v] = aLo; hi[v] = aHi;
       s = aLo > 0 ? 1 : -1;
@@ -195,15 +257,15 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     if ((stop === "nonPositive" && s <= 0) || (stop === "negative" && s < 0)) {
       if (!witness) return { positive, negative, zero, complete: false, stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
       ensureExact(v);
-      const x = subtreeVector(g, F, v, parent, exact, budget);
-      return { positive, negative, zero, complete: false, witness: x, witnessValue: norm(exact[v]!), stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
+      const x = subtreeVector(g, F, v, parent, getExact, budget);
+      return { positive, negative, zero, complete: false, witness: x, witnessValue: norm(getExact(v)), stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
     }
   }
   return { positive, negative, zero, complete: true };
 
   function zeroChildWitness(v: number, c: number): EliminationResult<T> {
     const w = F.fromInt(edgeWeight(g, v, c));
-    const x = subtreeVector(g, F, c, parent, exact, budget);
+    const x = subtreeVector(g, F, c, parent, getExact, budget);
     // x^T M x = 0 on the subtree of c; adding t*e_v adds -2 t w x_c + t^2 M[v][v] < 0 for small t > 0.
     const mvv = diagonal(v);
     const t = F.sign(F.sub(mvv, w)) <= 0 ? F.fromInt(1) : F.div(w, mvv);
@@ -223,7 +285,7 @@ function edgeWeight(g: Graph, u: number, v: number): number {
  * The minimising vector on the subtree below `top`: x_top = 1, x_u = w(u) x_parent(u) / a(u).
  * With every a(u) > 0 below `top`, x^T M x restricted to the subtree equals a(top).
  */
-function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array, value: Array<T | undefined>, budget: Budget): Map<number, T> {
+function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array, value: (u: number) => T, budget: Budget): Map<number, T> {
   const { start, nbr, wt } = adjacency(g);
   const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
   const x = new Map<number, T>([[top, F.fromInt(1)]]);
@@ -235,7 +297,7 @@ function subtreeVector<T>(g: Graph, F: Field<T>, top: number, parent: Int32Array
     for (let k = start[v]; k < start[v + 1]; k++) {
       const u = nbr[k];
       if (parent[u] !== v) continue;
-      const au = norm(value[u]!);
+      const au = norm(value(u));
       x.set(u, norm(F.div(F.mul(F.fromInt(wt[k]), xv), au)));
       queue.push(u);
     }

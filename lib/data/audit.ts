@@ -94,6 +94,8 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
     return { step: stepId === null ? null : (steps.get(stepId) ?? null), caseNumber: caseId === null ? null : (cases.get(caseId) ?? null), caseTitle: caseId === null ? null : (titles.get(caseId) ?? null) };
   };
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  // A member event about a hidden referee does not carry their user id.
+  const hiddenMember = (e: { subjectType: string; subjectId: number | null }) => lens !== undefined && e.subjectType === "member" && e.subjectId !== null && lens.hides(e.subjectId);
   return events.map((e) => {
     const detail = lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail;
     const actorName = e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null);
@@ -103,7 +105,7 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
       id: Number(e.id),
       action: e.action,
       subjectType: e.subjectType,
-      subjectId: e.subjectId,
+      subjectId: hiddenMember(e) ? null : e.subjectId,
       detail,
       actorName,
       subjectLabel: placePhrase(place),

@@ -14,6 +14,8 @@ export interface NameLens {
   name(userId: number, name: string): string;
   /** Whether this person's e-mail address and id must stay hidden from the viewer. */
   hides(userId: number): boolean;
+  /** The id to show for this person: a hidden referee is −k ("Referee k"), so that no id can be matched to a person. */
+  id(userId: number): number;
 }
 
 /** Whether the proof is refereed blind (read per request: switching it on hides names at once). */
@@ -21,7 +23,7 @@ export async function isBlind(proofId: number): Promise<boolean> {
   return (await models().Proof.findByPk(proofId, { attributes: ["blindReview"] }))?.blindReview ?? false;
 }
 
-const open: NameLens = { name: (_id, name) => name, hides: () => false };
+const open: NameLens = { name: (_id, name) => name, hides: () => false, id: (userId) => userId };
 
 export async function refereeLens(proofId: number, viewer: { id: number; role: ProofRole | null }): Promise<NameLens> {
   const proof = await models().Proof.findByPk(proofId, { attributes: ["blindReview"] });
@@ -30,6 +32,7 @@ export async function refereeLens(proofId: number, viewer: { id: number; role: P
   const hides = (userId: number) => referees.has(userId) && userId !== viewer.id;
   return {
     hides,
+    id: (userId) => (hides(userId) ? -referees.get(userId)! : userId),
     name: (userId, name) =>
       referees.has(userId) ? refereeDisplayName({ viewerRole: viewer.role ?? "author", viewerId: viewer.id, blind: true, refereeId: userId, name, index: referees.get(userId)! }) : name,
   };

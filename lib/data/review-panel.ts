@@ -76,7 +76,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   );
   const tree = (rows: typeof comments): CommentNode[] => {
     const nodes = new Map<number, CommentNode>(
-      rows.map((c) => [c.id, { id: c.id, authorId: c.authorId, authorName: names.get(c.authorId) ?? "", body: c.body, revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null, at: c.createdAt.toISOString(), replies: [] }]),
+      rows.map((c) => [c.id, { id: c.id, authorId: lens.id(c.authorId), authorName: names.get(c.authorId) ?? "", body: c.body, revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null, at: c.createdAt.toISOString(), replies: [] }]),
     );
     const roots: CommentNode[] = [];
     for (const c of rows) (c.parentId && nodes.has(c.parentId) ? nodes.get(c.parentId)!.replies : roots).push(nodes.get(c.id)!);
@@ -98,7 +98,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     status,
     vouches: [...latestVouch.values()].map((r) => ({
       id: r.id,
-      reviewerId: r.reviewerId,
+      reviewerId: lens.id(r.reviewerId),
       reviewerName: names.get(r.reviewerId) ?? "",
       revisionNumber: numberOf.get(r.revisionId) ?? 0,
       stale: (numberOf.get(r.revisionId) ?? 0) !== latestNumber,
@@ -111,7 +111,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
         const allowed = (to: DisputeTarget) => canMoveDispute(state, to) && disputeRefusal(viewer, r.reviewerId, to) === null;
         return {
           id: r.id,
-          reviewerId: r.reviewerId,
+          reviewerId: lens.id(r.reviewerId),
           reviewerName: names.get(r.reviewerId) ?? "",
           state,
           revisionNumber: numberOf.get(r.revisionId) ?? 0,

@@ -9,7 +9,8 @@ import { liveCases } from "@/lib/data/cases";
 import { Op } from "sequelize";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { recordEvent } from "@/lib/data/audit";
-import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
+import { claimName, claimSetText, compareRevisions, digestOfRevision } from "@/lib/review/revisions";
+import { wordMarks, type WordMarks } from "@/lib/review/word-marks";
 import { claimsOf, lockLatest, noticeSuperseded } from "@/lib/data/revisions";
 
 export interface RevisionView {
@@ -174,22 +175,36 @@ export async function saveRevision(proofId: number, stepId: number, userId: numb
 }
 
 export interface RevisionDiff {
-  from: { id: number; number: number };
-  to: { id: number; number: number };
+  from: { id: number; number: number; body: string };
+  to: { id: number; number: number; body: string };
+  /** Line diff of the sources (kept for API clients). */
   parts: Array<{ value: string; added: boolean; removed: boolean }>;
+  /** Word-level marks for typesetting both sides (lib/review/word-marks.ts). */
+  words: WordMarks;
+  /** The claim set's change between the two revisions, one sentence per claim. */
+  claims: { added: string[]; withdrawn: string[]; redecided: string[]; kept: number };
 }
 
-/** Line diff between two revisions of a step, by revision number. */
+/** Two revisions of a step compared, by revision number: text (lines and words) and claim set. */
 export async function diffRevisions(proofId: number, stepId: number, from: number, to: number): Promise<RevisionDiff> {
   const { StepRevision } = models();
   await stepInProof(proofId, stepId);
   const rows = await StepRevision.findAll({ where: { stepId, number: [from, to] } });
   const a = rows.find((r) => r.number === from), b = rows.find((r) => r.number === to);
   if (!a || !b) throw notFound(`Revision ${!a ? from : to} of this step`);
+  const change = compareRevisions({ body: a.body, claims: claimsOf(a) }, { body: b.body, claims: claimsOf(b) });
+  const gone = new Set([...change.withdrawn, ...change.redecided.map((r) => r.claim)].map((c) => c.id));
   return {
-    from: { id: a.id, number: a.number },
-    to: { id: b.id, number: b.number },
+    from: { id: a.id, number: a.number, body: a.body },
+    to: { id: b.id, number: b.number, body: b.body },
     parts: diffLines(a.body, b.body).map((p) => ({ value: p.value, added: !!p.added, removed: !!p.removed })),
+    words: wordMarks(a.body, b.body),
+    claims: {
+      added: change.added.map(claimName),
+      withdrawn: change.withdrawn.map(claimName),
+      redecided: change.redecided.map((r) => `${claimName(r.claim)}: ${r.from} → ${r.to}`),
+      kept: claimsOf(b).filter((c) => !gone.has(c.id) && !change.added.some((x) => x.id === c.id)).length,
+    },
   };
 }
 

@@ -30,8 +30,15 @@ export interface BundleJobData {
   claims: number;
 }
 
-export type JobData = ClaimJobData | BundleJobData;
-export type JobResult = { decided: boolean } | BundleCheckReport;
+/** Data of one chunk of a batch claim: entries [chunk × chunkSize, (chunk + 1) × chunkSize) of its list. */
+export interface BatchJobData {
+  type: "batch";
+  batchId: number;
+  chunk: number;
+}
+
+export type JobData = ClaimJobData | BundleJobData | BatchJobData;
+export type JobResult = { decided: boolean } | { decided: number } | BundleCheckReport;
 
 export const redisUrl = (): string => process.env.REDIS_URL ?? "redis://127.0.0.1:6389";
 export const queuePrefix = (): string => process.env.CAIRN_QUEUE_PREFIX ?? "cairn";
@@ -56,6 +63,19 @@ export function redisConnection(kind: "web" | "worker"): ConnectionOptions {
 
 /** Job ids: one job per claim and verification round, so queueing twice is harmless. */
 export const claimJobId = (claimId: number, round: number) => `claim-${claimId}-r${round}`;
+
+/** Graphs per batch job: a few thousand small graphs take a second or two, well inside a job's lock. */
+export const batchChunkSize = (): number => Number(process.env.CAIRN_BATCH_CHUNK) || 2_000;
+
+/** Job ids of batch chunks: queueing a chunk twice is harmless. */
+export const batchJobId = (batchId: number, chunk: number) => `batch-${batchId}-c${chunk}`;
+
+/** Queues the chunks of a batch claim (idempotent per chunk). */
+export async function queueBatchChunks(batchId: number, chunks: readonly number[], kind: "web" | "worker" = "web"): Promise<void> {
+  const add = () =>
+    verificationQueue(kind).addBulk(chunks.map((chunk) => ({ name: "batch", data: { type: "batch" as const, batchId, chunk }, opts: { jobId: batchJobId(batchId, chunk) } })));
+  await (kind === "web" ? bounded(add, 10_000) : add());
+}
 
 /** Retries: a job whose worker died is taken up again (stalled) twice; a job that threw, three tries in all. */
 export const JOB_ATTEMPTS = 3;

@@ -21,6 +21,7 @@ import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure
 import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";
 import { recordEvent } from "../data/audit";
+import { runBatchChunk } from "./batch";
 import { claimJobId, JOB_ATTEMPTS, MAX_STALLED, QUEUE_NAME, queueClaim, queuePrefix, redisConnection, verificationQueue, type BundleJobData, type ClaimJobData, type JobData, type JobResult } from "./queue";
 
 /** This worker's name, stored with each verdict it decides. */
@@ -115,6 +116,10 @@ export async function settleFailed(data: ClaimJobData, failedReason: string | un
 }
 
 async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
+  if (job.data.type === "batch") {
+    await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
+    return runBatchChunk(job.data, workerName());
+  }
   if (job.data.type === "bundle") {
     const data = job.data as BundleJobData;
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });

@@ -58,7 +58,9 @@ export function compareRevisions(a: { body: string; claims: readonly RevisionCla
 
 export const isUnchanged = (c: RevisionChange) => !c.text && c.added.length === 0 && c.withdrawn.length === 0 && c.redecided.length === 0;
 
-const named = (c: RevisionClaim) => `claim #${c.id}${c.statement ? ` (${c.statement})` : ` (${c.kind})`}`;
+/** A claim as sentences name it: "claim #4 (ρ(G) < 2)". */
+export const claimName = (c: RevisionClaim) => `claim #${c.id}${c.statement ? ` (${c.statement})` : ` (${c.kind})`}`;
+const named = claimName;
 
 /** One sentence: "the text changed; claim #4 (ρ(G) < 2) attached; claim #2 (…) re-decided: verified → refuted". */
 export function describeChange(c: RevisionChange): string {

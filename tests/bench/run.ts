@@ -20,6 +20,7 @@ import { fileURLToPath } from "node:url";
 import { coreSection } from "./core-tasks";
 import { apiLoadSection } from "./api-load";
 import { overviewBytesSection } from "./overview-bytes";
+import { batchThroughputSection } from "./batch-throughput";
 
 /** One timed job: `prepare` builds the input (untimed), `run` does the verification (timed). */
 export interface BenchTask {
@@ -50,7 +51,7 @@ export interface BenchOptions {
 }
 
 /** The sections of the benchmark, in print order. Add new sections here. */
-export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBytesSection];
+export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBytesSection, batchThroughputSection];
 
 interface ChildReport {
   readonly timesMs: number[];

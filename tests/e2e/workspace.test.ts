@@ -216,10 +216,17 @@ describe("proof workspace in the browser", () => {
     expect(await conflict.locator(".katex").count()).toBe(2);
     await conflict.getByRole("button", { name: "Overwrite revision 2 knowingly" }).click();
     await first.getByText("Saved as revision 3.").waitFor();
-    // History keeps all three; the diff between 2 and 3 shows the replaced line.
+    // History keeps all three; 2 and 3 are compared typeset side by side, the changed words marked.
     await first.reload();
     const history = first.getByTestId("revision-history");
-    await history.getByTestId("revision-diff").waitFor();
+    const compare = history.getByTestId("revision-compare");
+    await compare.waitFor();
+    expect(await compare.getByTestId("compare-older").locator("mark.word-removed").first().textContent()).toBe("Second");
+    expect(await compare.getByTestId("compare-newer").locator("mark.word-added").first().textContent()).toBe("First");
+    expect(await compare.getByTestId("compare-older").locator(".katex").count()).toBe(1);
+    expect(await compare.getByTestId("compare-newer").locator(".katex").count()).toBe(1);
+    expect(await compare.getByTestId("compare-claims").textContent()).toContain("The claim set is the same");
+    // The source, line by line, stays available (folded).
     const diff = await history.getByTestId("revision-diff").textContent();
     expect(diff).toContain("− Second tab");
     expect(diff).toContain("+ First tab");

@@ -21,6 +21,7 @@ import { digestOfRevision, parseClaimSet } from "@/lib/review/revisions";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
+import * as diffRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/diff/route";
 
 let fx: ReviewFixture;
 beforeAll(async () => {
@@ -67,6 +68,11 @@ describe("a vouch covers the text and the claims of one revision", () => {
     await actAs("reviewer");
     const view = await panel(stepId);
     expect(view.status).toMatchObject({ vouches: 0, supersededVouches: 1, vouched: false });
+    // Comparing the two revisions shows the claim set's change (and no change of text).
+    const compared = (await (await diffRoute.GET(new Request("http://localhost/x?from=1&to=2"), p(stepId))).json()).diff;
+    expect(compared.claims).toEqual({ added: [`claim #${claimId} (ρ(G) < 2)`], withdrawn: [], redecided: [], kept: 0 });
+    expect(compared.words).toEqual({ removed: [], added: [], counts: { removed: 0, added: 0 } });
+    expect(compared.to.body).toBe(r1.body);
     const [notice] = await inbox(fx.ids.reviewer);
     expect(notice.message).toMatch(/^Your vouch for step 1:1 \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/);
     expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);

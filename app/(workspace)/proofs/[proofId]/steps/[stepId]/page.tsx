@@ -18,6 +18,8 @@ import { may } from "@/lib/access";
 import { listStepFiles } from "@/lib/data/files";
 import { FileList } from "@/components/files/file-list";
 import { FileUpload } from "@/components/files/file-upload";
+import { BatchForm } from "@/components/batches/batch-form";
+import { BatchList } from "@/components/batches/batch-list";
 
 export const metadata: Metadata = { title: "Step" };
 
@@ -63,6 +65,8 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       )}
       <FileList proofId={proofId} stepId={step.id} initial={files} />
       {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
+      <BatchList proofId={proofId} stepId={step.id} canCancel={isAuthor} />
+      {may(standing, "claims.write") && <BatchForm proofId={proofId} stepId={step.id} />}
       <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={step.latest?.id ?? null} viewer={{ id: user.id, role }} />
       <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
     </main>

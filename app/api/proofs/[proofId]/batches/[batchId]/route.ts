@@ -1,0 +1,12 @@
+import { route } from "@/lib/http";
+import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
+import { requireBatchAccess } from "./batch-access";
+
+type Context = { params: Promise<{ proofId: string; batchId: string }> };
+
+/** A batch claim's progress: done / total, verdict counts, failing so far, rate and estimate; any member who sees its step. */
+export const GET = route(async (_request: Request, { params }: Context) => {
+  const { proofId, batchId } = await routeIds(params);
+  const { batch } = await requireBatchAccess(proofId, batchId);
+  return Response.json({ batch });
+});

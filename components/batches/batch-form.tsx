@@ -1,0 +1,73 @@
+"use client";
+import { useState } from "react";
+import useSWR, { useSWRConfig } from "swr";
+import { ApiError, apiFetch, jsonFetcher } from "@/components/proof/api-client";
+import { FormProblem, SubmitRow } from "@/components/proof/form-field";
+import type { StepFileView } from "@/lib/data/files";
+
+const OPS = ["<", "<=", "=", ">=", ">"] as const;
+const SHOWN: Record<(typeof OPS)[number], string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
+
+/** Starts a batch claim: every graph of an uploaded graph list satisfies ρ(G) op b. */
+export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number }) {
+  const { mutate } = useSWRConfig();
+  const { data } = useSWR<{ files: StepFileView[] }>(`/api/proofs/${proofId}/steps/${stepId}/files`, jsonFetcher);
+  const lists = (data?.files ?? []).filter((f) => f.kind === "graph-list");
+  const [fileId, setFileId] = useState<string>("");
+  const [op, setOp] = useState<(typeof OPS)[number]>("<");
+  const [bound, setBound] = useState("2");
+  const [busy, setBusy] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+  const [problem, setProblem] = useState<string | undefined>();
+
+  const chosen = fileId || (lists[0] ? String(lists[0].id) : "");
+  const submit = async (e: React.FormEvent) => {
+    e.preventDefault();
+    setProblem(undefined);
+    setMessage(null);
+    setBusy(true);
+    try {
+      const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
+        method: "POST",
+        body: { fileId: Number(chosen), op, bound },
+      });
+      setMessage(`Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`);
+      await mutate(`/api/proofs/${proofId}/steps/${stepId}/batches`);
+    } catch (err) {
+      const issues = err instanceof ApiError ? (err.body.issues ?? []) : [];
+      setProblem([(err as Error).message, ...issues.map((i) => `${i.path}: ${i.message}`)].join(" "));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  if (lists.length === 0) return <p className="mt-3 text-sm text-stone-600">Upload a graph list to this step to claim something of every graph in it.</p>;
+  return (
+    <form onSubmit={submit} className="mt-4 space-y-3 rounded border border-stone-200 bg-white p-4" aria-labelledby="batch-heading" data-testid="batch-form">
+      <h3 id="batch-heading" className="font-semibold">
+        Claim something of every graph in a list
+      </h3>
+      <div className="flex flex-wrap items-center gap-2 text-sm">
+        <span>Every graph of</span>
+        <select value={chosen} onChange={(e) => setFileId(e.target.value)} aria-label="graph list" className="rounded border border-stone-300 bg-white px-1 py-0.5">
+          {lists.map((f) => (
+            <option key={f.id} value={f.id}>
+              {f.name} ({f.graphCount} graphs)
+            </option>
+          ))}
+        </select>
+        <span>has ρ(G)</span>
+        <select value={op} onChange={(e) => setOp(e.target.value as (typeof OPS)[number])} aria-label="relation" className="rounded border border-stone-300 bg-white px-1 py-0.5">
+          {OPS.map((o) => (
+            <option key={o} value={o}>
+              {SHOWN[o]}
+            </option>
+          ))}
+        </select>
+        <input value={bound} onChange={(e) => setBound(e.target.value)} aria-label="bound" className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono" />
+      </div>
+      <FormProblem message={problem} />
+      <SubmitRow label="Check every graph" busyLabel="Starting…" busy={busy} message={message} />
+    </form>
+  );
+}

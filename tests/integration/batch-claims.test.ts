@@ -1,0 +1,170 @@
+/**
+ * Batch claims over an uploaded graph list, checked by the worker process that the integration
+ * global setup starts: all 106 trees on 10 vertices (from nauty's gentreeg when installed, else from
+ * Cairn's own enumeration) plus one bad line; progress, results, CSV and graph6 of the failures,
+ * cancel, exactly-once chunks, and who may do what.
+ */
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
+
+import { spawnSync } from "node:child_process";
+import { actAs, jsonRequest, params } from "./helpers";
+import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
+import { closeSequelize } from "@/lib/db";
+import { models } from "@/models";
+import { closeQueue } from "@/lib/jobs/queue";
+import { runBatchChunk } from "@/lib/jobs/batch";
+import { generateConnected } from "@/lib/core/augmentation";
+import { writeGraph6, parseGraph6 } from "@/lib/core/graph6";
+import { degree } from "@/lib/core/graph";
+import { Budget } from "@/lib/core/verdict";
+import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
+import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
+import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route";
+import * as cancelRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/cancel/route";
+import * as resultsRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/results/route";
+
+let proofId: string;
+let stepId: string;
+let listId: number;
+let documentId: number;
+
+/** All trees on 10 vertices: sparse6 from nauty's gentreeg, or graph6 from our own enumeration. */
+function treesOn10(): string[] {
+  for (const cmd of ["nauty-gentreeg", "gentreeg"]) {
+    const r = spawnSync(cmd, ["-q", "10"], { encoding: "utf8" });
+    if (r.status === 0 && r.stdout) return r.stdout.trim().split("\n");
+  }
+  return generateConnected({ maxVertices: 10, setting: { kind: "tree" }, collect: true, budget: new Budget(1e9) }).levels[9].map((g) => writeGraph6(g));
+}
+
+const upload = async (text: string, name: string) => {
+  await actAs("author");
+  const res = await filesRoute.POST(new Request(`http://localhost/x?name=${name}`, { method: "POST", body: text }), params({ proofId, stepId }));
+  expect(res.status, await res.clone().text()).toBe(201);
+  return (await res.json()).file.id as number;
+};
+const start = (body: unknown) => batchesRoute.POST(jsonRequest("/x", "POST", body), params({ proofId, stepId }));
+const progress = async (batchId: number) => (await (await batchRoute.GET(new Request("http://localhost/x"), params({ proofId, batchId: String(batchId) }))).json()).batch;
+const results = (batchId: number, query = "") => resultsRoute.GET(new Request(`http://localhost/x?${query}`), params({ proofId, batchId: String(batchId) }));
+
+async function finished(batchId: number, ms = 90_000) {
+  const deadline = Date.now() + ms;
+  for (;;) {
+    const b = await progress(batchId);
+    if (b.status === "done" || b.status === "cancelled" || Date.now() > deadline) return b;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+const trees = treesOn10();
+
+beforeAll(async () => {
+  proofId = await draftProof("Batch claims test");
+  const caseId = await addCase(proofId, "Trees on ten vertices");
+  stepId = String((await addStep(proofId, caseId, "Of the trees on 10 vertices only $A_{10}$ and $D_{10}$ have $\\rho < 2$.")).id);
+  // OEIS A000055: 106 trees on 10 unlabeled vertices.
+  expect(trees).toHaveLength(106);
+  // One bad line at the end (line 107): "!" is no graph6/sparse6 byte.
+  const bad = `${trees[0].slice(0, 3)}!${trees[0].slice(4)}`;
+  listId = await upload([...trees, bad].join("\n") + "\n", "trees-10.s6");
+  documentId = await upload("Notes on the search.\n", "notes.txt");
+});
+afterAll(async () => {
+  delete process.env.CAIRN_BATCH_CHUNK;
+  await dropProofs([proofId]);
+  await closeQueue();
+  await closeSequelize();
+});
+
+describe("a batch claim over the trees on 10 vertices", () => {
+  it("refuses without a session (401), for a reviewer (403), on a file that is no graph list or a bad bound (422)", async () => {
+    await actAs(null);
+    expect((await start({ fileId: listId, op: "<", bound: "2" })).status).toBe(401);
+    await actAs("reviewer");
+    expect((await start({ fileId: listId, op: "<", bound: "2" })).status).toBe(403);
+    await actAs("author");
+    const notList = await start({ fileId: documentId, op: "<", bound: "2" });
+    expect(notList.status).toBe(422);
+    expect((await notList.json()).error.issues[0]).toMatchObject({ path: "fileId", message: expect.stringMatching(/plain text/) });
+    const badBound = await start({ fileId: listId, op: "<", bound: "two" });
+    expect(badBound.status).toBe(422);
+    expect((await badBound.json()).error.issues[0].path).toBe("bound");
+    expect((await start({ fileId: listId, op: "≪", bound: "2" })).status).toBe(422);
+  });
+
+  it("finds exactly A₁₀ and D₁₀ with ρ < 2, reports the bad line by number, and offers CSV and graph6 of the failures", async () => {
+    process.env.CAIRN_BATCH_CHUNK = "40"; // three chunks of the 107 entries
+    await actAs("author");
+    const res = await start({ fileId: listId, op: "<", bound: "2" });
+    expect(res.status).toBe(202);
+    const { batch } = await res.json();
+    expect(batch).toMatchObject({ total: 107, statement: "every graph of the list: ρ(G) < 2" });
+    await actAs("reviewer");
+    const b = await finished(batch.id);
+    // Smith 1970 (Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): connected graphs with ρ < 2 are the
+    // Dynkin diagrams A_n, D_n, E6, E7, E8; among trees on 10 vertices exactly A₁₀ and D₁₀.
+    expect(b).toMatchObject({ status: "done", done: 107, verified: 2, refuted: 104, undecided: 0, unreadable: 1, failing: 105 });
+    expect(b.rate).toBeGreaterThan(0);
+
+    const json = await (await results(batch.id)).json();
+    expect(json.results).toHaveLength(107);
+    const verified = json.results.filter((r: { verdict: string }) => r.verdict === "verified");
+    const shapes = verified.map((r: { graph6: string }) => {
+      const g = parseGraph6(r.graph6);
+      return Array.from({ length: g.n }, (_, v) => degree(g, v)).sort((x, y) => y - x).join("");
+    });
+    expect(shapes.sort()).toEqual(["2222222211", "3222222111"]); // A₁₀ (the path), D₁₀
+    expect(verified[0].certificate).not.toBeNull();
+    const unreadable = json.results.find((r: { verdict: string }) => r.verdict === "unreadable");
+    expect(unreadable).toMatchObject({ line: 107, reason: expect.stringMatching(/^line 107, column 4: /) });
+
+    const failing = await (await results(batch.id, "only=failing")).json();
+    expect(failing.results).toHaveLength(105);
+    const csv = await (await results(batch.id, "format=csv")).text();
+    const csvLines = csv.trimEnd().split("\r\n");
+    expect(csvLines[0]).toBe("line,verdict,graph6,vertices,edges,method,reason");
+    expect(csvLines).toHaveLength(108);
+    expect(csvLines.filter((l) => /^\d+,verified,/.test(l))).toHaveLength(2);
+    const g6res = await results(batch.id, "format=graph6");
+    expect(g6res.headers.get("content-disposition")).toMatch(/batch-\d+-failures\.g6/);
+    const g6 = (await g6res.text()).trimEnd().split("\n");
+    // 104 refuted trees, each a tree on 10 vertices (9 edges); the unreadable line has no graph to write.
+    expect(g6).toHaveLength(104);
+    for (const line of g6) expect(parseGraph6(line).edges).toHaveLength(9);
+
+    await actAs("outsider");
+    expect((await results(batch.id)).status).toBe(403);
+    await actAs(null);
+    expect((await batchRoute.GET(new Request("http://localhost/x"), params({ proofId, batchId: String(batch.id) }))).status).toBe(401);
+  });
+
+  it("decides each graph once even when a chunk runs twice (a worker died after storing it)", async () => {
+    const { BatchClaim, BatchResult } = models();
+    const file = await models().StepFile.findByPk(listId);
+    // A batch of its own, not queued, so that only this test runs its chunks.
+    const b = await BatchClaim.create({ stepId: Number(stepId), fileId: file!.id, kind: "spectral-radius-bound", op: "<=", bound: "2", statement: "every graph of the list: ρ(G) ≤ 2", total: 107, chunkSize: 50, checkerVersion: "test", createdBy: (await models().User.findOne())!.id });
+    expect(await runBatchChunk({ type: "batch", batchId: b.id, chunk: 0 }, "test-a")).toEqual({ decided: 50 });
+    expect(await runBatchChunk({ type: "batch", batchId: b.id, chunk: 0 }, "test-b")).toEqual({ decided: 0 });
+    await b.reload();
+    expect([b.done, b.status, await BatchResult.count({ where: { batchId: b.id } })]).toEqual([50, "running", 50]);
+  });
+
+  it("cancels: no chunk is stored after the cancel, and a finished batch cannot be cancelled (409)", async () => {
+    process.env.CAIRN_BATCH_CHUNK = "5";
+    await actAs("author");
+    const { batch } = await (await start({ fileId: listId, op: "<=", bound: "2" })).json();
+    const cancelled = await cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, batchId: String(batch.id) }));
+    expect(cancelled.status).toBe(200);
+    const at = await progress(batch.id);
+    expect(at.status).toBe("cancelled");
+    await new Promise((r) => setTimeout(r, 1_500));
+    const later = await progress(batch.id);
+    expect(later.done).toBe(at.done);
+    expect(await models().BatchResult.count({ where: { batchId: batch.id } })).toBe(later.done);
+    expect((await cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, batchId: String(batch.id) }))).status).toBe(409);
+    await actAs("reviewer");
+    expect((await cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, batchId: String(batch.id) }))).status).toBe(403);
+  });
+});
