@@ -364,8 +364,35 @@ export function twoCosBound(p: bigint, q: bigint, text = `2cos(${p}pi/${q})`): B
   for (let k = 1; k < k0; k++) if (Number(gcdBig(BigInt(k), BigInt(N))) === 1) rank++;
   const psi = minimalPolynomial2Cos(N);
   if (deg(psi) === 1) return rationalBound(rat(-psi[0], psi[1]), text);
-  const { lo, hi } = isolateByRank(psi, rank);
+  const { lo, hi } = isolateTwoCos(psi, N, rank) ?? isolateByRank(psi, rank);
   return algebraicBound("2cos", text, psi, lo, hi);
+}
+
+/**
+ * Isolating interval of the rank-th largest root of Psi_N without a Sturm sequence. The roots are
+ * 2cos(2πk/N), gcd(k, N) = 1, 1 <= k < N/2 (Watkins & Zeitlin 1993), all real and distinct: floating
+ * point only *suggests* rational separators s_0 > s_1 > … > s_d between consecutive ones (d = deg Psi_N);
+ * if Psi_N changes sign between every two consecutive separators (checked exactly), each of the d
+ * intervals holds at least one root, hence exactly one. Undefined when the check fails (the caller then
+ * isolates by Sturm counts).
+ */
+function isolateTwoCos(psi: Poly, N: number, rank: number): { lo: Rational; hi: Rational } | undefined {
+  const approx: number[] = [];
+  for (let k = 1; 2 * k < N; k++) if (Number(gcdBig(BigInt(k), BigInt(N))) === 1) approx.push(2 * Math.cos((2 * Math.PI * k) / N));
+  const d = deg(psi);
+  if (approx.length !== d || rank < 0 || rank >= d) return undefined;
+  const scale = 2 ** 40;
+  const seps: Rational[] = [rat(3)];
+  for (let i = 1; i < d; i++) seps.push(rat(BigInt(Math.round(((approx[i - 1] + approx[i]) / 2) * scale)), BigInt(scale)));
+  seps.push(rat(-3));
+  let last = 0;
+  for (let i = 0; i <= d; i++) {
+    if (i > 0 && cmp(seps[i], seps[i - 1]) >= 0) return undefined;
+    const s = signAt(psi, seps[i]);
+    if (s === 0 || s === last) return undefined;
+    last = s;
+  }
+  return { lo: seps[rank + 1], hi: seps[rank] };
 }
 
 export const MAX_POLYNOMIAL_DEGREE = 300;

@@ -9,6 +9,7 @@ import { treeInertia, treeInertiaOver } from "./tree-inertia";
 import { RATIONALS } from "./number-field";
 import { rat } from "./rational";
 import { perronApproximation } from "./perron";
+import { rootsBetween, sturmSequence } from "./sturm";
 import { spectralRadiusBound, recheckSpectralRadiusBound } from "./inertia";
 import { path, star, disjointUnion } from "./constructors";
 import { Budget } from "./verdict";
@@ -180,5 +181,17 @@ describe("the tree elimination on unreduced fractions with double intervals (the
       outcomes.add(v.status);
     }
     expect([...outcomes].sort()).toEqual(["refuted", "verified"]); // the two bounds really lie on both sides of ρ
+  });
+});
+
+describe("2cos(pπ/q) bounds isolated by exact sign changes at float-suggested separators", () => {
+  it("every interval holds exactly one root of its polynomial (Sturm count) and the value is 2cos(pπ/q) (definition; Watkins & Zeitlin 1993 for the polynomial)", () => {
+    for (let q = 2; q <= 45; q++)
+      for (let p = 1; p < 2 * q; p++) {
+        const b = parseBound(`2cos(${p}pi/${q})`);
+        if (b.kind !== "algebraic") continue;
+        expect(rootsBetween(sturmSequence(b.poly), b.lo, b.hi), `2cos(${p}π/${q})`).toBe(1);
+        expect(Math.abs(b.approx - 2 * Math.cos((p * Math.PI) / q))).toBeLessThan(1e-12);
+      }
   });
 });
