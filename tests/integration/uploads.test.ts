@@ -30,7 +30,7 @@ const saved = Object.fromEntries(STORAGE_KEYS.map((k) => [k, process.env[k]]));
 
 beforeAll(async () => {
   localDir = await mkdtemp(path.join(tmpdir(), "cairn-upload-"));
-  fake = await startS3Fake(s3FakePort());
+  fake = await startS3Fake(s3FakePort(1));
   proofId = await draftProof("Uploads test");
   const caseId = await addCase(proofId, "Trees on ten vertices");
   stepId = String((await addStep(proofId, caseId, "A computer search over all trees on 10 vertices.")).id);

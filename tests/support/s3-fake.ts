@@ -32,5 +32,8 @@ export async function startS3Fake(port: number, bucket = "cairn-test-files"): Pr
   };
 }
 
-/** The port of the S3 fake: CAIRN_TEST_S3_PORT, else the test database's port + 200. */
-export const s3FakePort = (): number => Number(process.env.CAIRN_TEST_S3_PORT) || (Number(process.env.CAIRN_TEST_DB_PORT) || 3317) + 200;
+/**
+ * The port of an S3 fake: CAIRN_TEST_S3_PORT (+ offset), else the test database's port + 200 + offset.
+ * The unit and the integration tests may run at the same time, so each takes its own offset.
+ */
+export const s3FakePort = (offset = 0): number => (Number(process.env.CAIRN_TEST_S3_PORT) || (Number(process.env.CAIRN_TEST_DB_PORT) || 3317) + 200) + offset;
