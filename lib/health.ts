@@ -4,7 +4,7 @@
  * long-lived connection, opened again after any error, measures the database itself.
  */
 import * as mariadb from "mariadb";
-import { databaseUrl } from "./db";
+import { databaseUrl } from "./env";
 
 const g = globalThis as unknown as { __cairnHealthConnection?: Promise<mariadb.Connection> };
 

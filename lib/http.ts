@@ -8,20 +8,18 @@ import { UniqueConstraintError } from "sequelize";
 import type { ZodType } from "zod";
 import { AppError, errorBody, forbidden, invalid, notFound, type Issue } from "./errors";
 import { isDatabaseUnavailable } from "./db";
+import { DATABASE_UNAVAILABLE, RETRY_AFTER_SECONDS } from "./unavailable";
 
 export function json(data: unknown, init?: ResponseInit): Response {
   return Response.json(data, init);
 }
 
-/** Seconds a client should wait before retrying after a 503 for a database outage. */
-const RETRY_AFTER_SECONDS = 5;
 
 export function errorResponse(e: unknown): Response {
   if (e instanceof AppError) return Response.json(errorBody(e), { status: e.status });
   if (isDatabaseUnavailable(e)) {
     console.error("[cairn] database unavailable", (e as Error).message);
-    const err = new AppError("unavailable", `The database is not answering at the moment; nothing was changed. This is temporary: try again in a few seconds.`);
-    return Response.json(errorBody(err), { status: 503, headers: { "retry-after": String(RETRY_AFTER_SECONDS) } });
+    return Response.json(errorBody(new AppError("unavailable", DATABASE_UNAVAILABLE)), { status: 503, headers: { "retry-after": String(RETRY_AFTER_SECONDS) } });
   }
   // The unique (parent, position) indexes are the backstop behind the locks: a collision means a
   // concurrent write won the place; nothing was written by this request.

@@ -64,14 +64,14 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
               : "This claim waits for a verification worker; the verdict appears here when it is done."}
         </p>
       ) : (
-        <dl className="mt-2 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_1fr]">
+        <dl className="mt-2 grid grid-cols-[minmax(0,1fr)] gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_minmax(0,1fr)]">
           <dt className="text-stone-500">method</dt>
           <dd data-testid="claim-method">
             {claim.method}
             {claim.certificateKind && <span className="text-stone-600"> · certificate: {claim.certificateKind}</span>}
           </dd>
           <dt className="text-stone-500">{claim.status === "undecided" ? "why undecided" : "why"}</dt>
-          <dd className="break-words">{claim.reason}</dd>
+          <dd className="[overflow-wrap:anywhere]">{claim.reason}</dd>
           <dt className="text-stone-500">certificate</dt>
           <dd>
             {claim.certificate ? (
@@ -100,7 +100,7 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
         </p>
       )}
       {claim.picture && (
-        <div className="mt-3 grid gap-3 md:grid-cols-2">
+        <div className="mt-3 grid grid-cols-[minmax(0,1fr)] gap-3 md:grid-cols-2">
           {claim.picture.pictures.map((p, i) => (
             <GraphPicture key={i} picture={p} />
           ))}

@@ -60,7 +60,7 @@ const glyph = (text: string) => (
 /** The toolbar. References are offered only when the page hands some in (the proof's cases and steps). */
 export function mathCommands(references: readonly Reference[] = []): ICommand[] {
   const commands: ICommand[] = [
-    { name: "inline-math", keyCommand: "inline-math", shortcuts: "ctrlcmd+m", buttonProps: { "aria-label": "Inline math: $…$ (Ctrl+M)", title: "Inline math: $…$ (Ctrl+M)" }, icon: glyph("$x$"), execute: inlineMath },
+    { name: "inline-math", keyCommand: "inline-math", shortcuts: "ctrlcmd+m", buttonProps: { "aria-label": "Inline math $x$: $…$ (Ctrl+M)", title: "Inline math $x$: $…$ (Ctrl+M)" }, icon: glyph("$x$"), execute: inlineMath },
     { name: "display-math", keyCommand: "display-math", buttonProps: { "aria-label": "Display math: $$…$$ on its own lines", title: "Display math: $$…$$ on its own lines" }, icon: glyph("$$"), execute: displayMath },
     group(
       NAMED_GRAPH_SNIPPETS.map((g) => ({ name: `graph-${g.name}`, keyCommand: `graph-${g.name}`, buttonProps: { "aria-label": `Insert ${g.name}` }, icon: <span>{g.name}</span>, execute: insert(`$${g.tex}$`) })),

@@ -35,7 +35,7 @@ function CaseSection({ c }: { c: DocCase }) {
               {s.claims.map((cl) => (
                 <li key={cl.id} className="flex flex-wrap items-baseline gap-2">
                   {isVerdict(cl.status) && <VerdictBadge status={cl.status} />}
-                  <span>{cl.sentence}</span>
+                  <span className="min-w-0 [overflow-wrap:anywhere]">{cl.sentence}</span>
                 </li>
               ))}
             </ul>

@@ -54,7 +54,7 @@ export function FileUpload({ proofId, stepId }: { proofId: number; stepId: numbe
       </h3>
       <label className="mt-2 block text-sm">
         <span className="font-semibold">Kind</span>
-        <select value={kind} onChange={(e) => setKind(e.target.value)} className="ml-2 rounded border border-stone-300 bg-white px-1 py-0.5">
+        <select value={kind} onChange={(e) => setKind(e.target.value)} className="ml-2 max-w-full rounded border border-stone-300 bg-white px-1 py-0.5">
           {KINDS.map((k) => (
             <option key={k.value} value={k.value}>
               {k.label}

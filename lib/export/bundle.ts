@@ -4,12 +4,14 @@
  */
 import { CHECKER_VERSION } from "@/lib/core/claims";
 import { methodWithCertificate } from "@/lib/core/certificate-kind";
+import { stepLabel } from "@/lib/proof-tree";
 import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/bundle";
 import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type SnapshotClaim } from "./snapshot";
 
-export const stepItemId = (caseNumber: string, position: number) => `step ${caseNumber}:${position}`;
+/** Bundle items are named by the step label the pages use (lib/proof-tree.ts owns it). */
+export const stepItemId = (caseNumber: string, position: number) => `step ${stepLabel(caseNumber, position)}`;
 /** Claims are numbered 1, 2, … in their order on the step. */
-export const claimItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `claim ${caseNumber}:${stepPosition}#${ordinal}`;
+export const claimItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `claim ${stepLabel(caseNumber, stepPosition)}#${ordinal}`;
 
 /** JSON text from the database, parsed; text that is not JSON is kept as the text itself (the checker reports it). */
 function parsed(text: string | null): unknown {

@@ -3,6 +3,7 @@
  * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
  */
 import type { CoveredClaim } from "@/lib/core/revision-digest";
+import { stepLabel } from "@/lib/proof-tree";
 import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type DisputeState, type ProofState, type StepFacts } from "@/lib/review/states";
 
 export interface SnapshotReview {
@@ -109,7 +110,7 @@ export function certificationOf(p: ProofSnapshot): Certification {
   for (const c of flattenCases(p.cases)) {
     for (const s of c.steps) {
       const st = stepStatus(stepFacts(s), p.requiredApprovals);
-      const where = `Step ${c.number}:${s.position}`;
+      const where = `Step ${stepLabel(c.number, s.position)}`;
       if (st.openDisputes > 0) blockers.push(`${where} has ${st.openDisputes} open dispute${st.openDisputes > 1 ? "s" : ""}.`);
       if (st.claimFailing) blockers.push(`${where} has a refuted claim.`);
       else if (!st.claimsVerified) blockers.push(`${where} has a claim that is not verified.`);

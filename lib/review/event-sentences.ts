@@ -60,6 +60,9 @@ export function eventSentence(e: EventFacts): string {
     case "step.created": return `${who} added ${where}.`;
     case "step.revised": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
     case "step.moved": return `${who} moved ${where}.`;
+    case "revision.created": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
+    case "demo.reviews": return `${who} added the demonstration reviews.`;
+    case "demo.rounds": return `${who} added the demonstration rounds.`;
     case "claim.attached": return `${who} attached a claim to ${where}${detail ? ` (${detail})` : ""}.`;
     case "claim.decided": return withDetail(`A claim on ${where} was decided`);
     case "claim.rechecked": return `${who} asked for a claim on ${where} to be checked again.`;
@@ -70,6 +73,8 @@ export function eventSentence(e: EventFacts): string {
     case "dispute.answered": return `${who} answered the dispute on ${where}.`;
     case "dispute.withdrawn": return `${who} withdrew the dispute on ${where}.`;
     case "dispute.upheld": return `${who} upheld the dispute on ${where}.`;
+    case "batch.created": return `${who} attached a batch claim to ${where}${detail ? ` (${detail})` : ""}.`;
+    case "batch.cancelled": return `${who} cancelled a batch claim on ${where}${detail ? ` (${detail})` : ""}.`;
     case "file.uploaded": return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
     case "comment.added": return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
     case "invitation.sent": return withDetail(`${who} invited a referee`);
@@ -89,6 +94,7 @@ export function eventSentence(e: EventFacts): string {
     case "report.correction_started": return withDetail(`${who} reopened a report for correction`);
     case "export.certified": return withDetail(`${who} made a certified export`);
     case "export.draft": return withDetail(`${who} made a draft export`);
-    default: return withDetail(`${who} recorded “${e.action.replace(/[._]/g, " ")}” on ${where}`);
+    // An action added later without its own sentence still reads as words, never as the code.
+    default: return withDetail(`${who}: ${e.action.replace(/[._]/g, " ")}, on ${where}`);
   }
 }

@@ -148,6 +148,34 @@ describe("drawings by structure", () => {
     expect(crossings(g)).toBe(0); // a pentagram would cross itself
   });
 
+  it("draws unicyclic graphs with the cycle as a regular polygon and the hanging trees outside it, without crossings (300 random ones)", () => {
+    const rand = seeded(4051);
+    for (let k = 0; k < 300; k++) {
+      // a cycle of length 3–12 on vertices 0..len-1, then trees grown by joining each new vertex to an earlier one
+      const len = 3 + Math.floor(rand() * 10), n = len + 1 + Math.floor(rand() * 30);
+      const edges = Array.from({ length: len }, (_, i) => ({ u: i, v: (i + 1) % len }));
+      for (let v = len; v < n; v++) edges.push({ u: Math.floor(rand() * v), v });
+      const g = makeGraph(n, edges);
+      const layout = layoutByStructure(g);
+      expect(layout.components.map((c) => [c.shape, c.cycle])).toEqual([["unicyclic", len]]);
+      const p = layout.x.map((x, i) => [x, layout.y[i]] as Pt);
+      expect(new Set(p.map(([x, y]) => `${x},${y}`)).size, `graph ${k}: two vertices in one place`).toBe(n);
+      expect(crossings(g), `graph ${k}: ${JSON.stringify(edges)}`).toBe(0);
+      const ring = p.slice(0, len);
+      const cx = ring.reduce((s, q) => s + q[0], 0) / len, cy = ring.reduce((s, q) => s + q[1], 0) / len;
+      const r = ring.map(([x, y]) => Math.hypot(x - cx, y - cy));
+      for (const ri of r) expect(Math.abs(ri - r[0])).toBeLessThan(0.5); // positions are rounded to 0.1
+      // every hanging vertex lies outside the polygon's circle
+      for (const [x, y] of p.slice(len)) expect(Math.hypot(x - cx, y - cy)).toBeGreaterThan(r[0]);
+    }
+  });
+
+  it("describes a unicyclic graph by its cycle", () => {
+    // C4 with one pendant vertex (the "banner" graph)
+    const g = makeGraph(5, [[0, 1], [1, 2], [2, 3], [3, 0], [0, 4]].map(([u, v]) => ({ u, v })));
+    expect(describeLayout(g, layoutByStructure(g))).toBe("5 vertices, 5 edges; connected: a graph with one cycle on 5 vertices (a 4-cycle drawn as a polygon, trees hanging outward)");
+  });
+
   it("draws the same graph the same way every time, inside the box, and lays out every component", () => {
     const petersen = makeGraph(10, [[0, 1], [1, 2], [2, 3], [3, 4], [4, 0], [0, 5], [1, 6], [2, 7], [3, 8], [4, 9], [5, 7], [7, 9], [9, 6], [6, 8], [8, 5]].map(([u, v]) => ({ u, v })));
     const g = makeGraph(14, [...petersen.edges, { u: 10, v: 11 }, { u: 12, v: 12, m: 1 }]);

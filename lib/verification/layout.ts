@@ -10,6 +10,8 @@
  *    two-branch trees) with that path straight and the hanging paths at right angles;
  *  - any other tree as a tidy tree (d3-hierarchy's Reingold–Tilford layout), rooted at a centre;
  *  - a cycle as a regular polygon;
+ *  - a unicyclic graph (one cycle with trees hanging from it) with its cycle as a regular polygon and each hanging tree
+ *    drawn outward as a tidy tree, inside the wedge of its cycle vertex, so no edges cross;
  *  - everything else by a force layout from a fixed seed (d3-force).
  * Loops and multiplicities do not change the shape. Components are packed in rows and the whole drawing is
  * scaled into a 1000 × 700 box. Pure TypeScript: no framework imports (it runs inside the verification worker).
@@ -23,13 +25,15 @@ export const LAYOUT_HEIGHT = 700;
 /** Largest edge length in the 1000 × 700 box, so a small graph is not drawn huge. */
 const MAX_EDGE = 90;
 
-export type ComponentShape = "vertex" | "path" | "star-like" | "spine" | "tree" | "cycle" | "other";
+export type ComponentShape = "vertex" | "path" | "star-like" | "spine" | "tree" | "cycle" | "unicyclic" | "other";
 
 export interface ComponentLayout {
   vertices: number[];
   shape: ComponentShape;
   /** Leg lengths of a star-like tree, longest first. */
   legs?: number[];
+  /** Length of the one cycle of a unicyclic component. */
+  cycle?: number;
   edges: number;
 }
 
@@ -187,6 +191,61 @@ function layoutCycle(nb: number[][], comp: number[]): Local {
   return local;
 }
 
+/** The cycle of a connected unicyclic graph, in cycle order: what is left after stripping leaves again and again. */
+function theCycle(nb: number[][], comp: number[]): number[] {
+  const degree = new Map(comp.map((v) => [v, nb[v].length]));
+  const leaves = comp.filter((v) => degree.get(v) === 1);
+  const gone = new Set<number>();
+  while (leaves.length > 0) {
+    const v = leaves.pop()!;
+    gone.add(v);
+    for (const w of nb[v])
+      if (!gone.has(w)) {
+        degree.set(w, degree.get(w)! - 1);
+        if (degree.get(w) === 1) leaves.push(w);
+      }
+  }
+  const on = comp.filter((v) => !gone.has(v));
+  const order = [on[0]];
+  let prev = -1, cur = on[0];
+  while (order.length < on.length) {
+    const next = nb[cur].find((w) => w !== prev && !gone.has(w))!;
+    prev = cur;
+    cur = next;
+    order.push(cur);
+  }
+  return order;
+}
+
+/**
+ * One cycle of length k as a regular polygon; the tree hanging from each cycle vertex drawn by d3-hierarchy's tidy
+ * layout with its root on the vertex and its levels pointing outward. A tree of half-width h (in edge lengths) stays
+ * within h of its vertex's outward ray, and that ray is R·tan(π/k) from the bisectors to the neighbouring vertices;
+ * with R ≥ (h + 1)/tan(π/k) every tree keeps to its own wedge, so no two edges cross.
+ */
+function layoutUnicyclic(nb: number[][], comp: number[]): { local: Local; cycle: number } {
+  const ring = theCycle(nb, comp);
+  const onRing = new Set(ring);
+  interface TNode { v: number; children: TNode[] }
+  const trees = ring.map((root) => {
+    const build = (v: number, from: number): TNode => ({ v, children: nb[v].filter((w) => w !== from && !onRing.has(w)).map((w) => build(w, v)) });
+    const laid = tree<TNode>().nodeSize([1, 1])(hierarchy(build(root, -1)));
+    const nodes: Array<{ v: number; side: number; out: number }> = [];
+    laid.each((d) => nodes.push({ v: d.data.v, side: d.x - laid.x, out: d.depth }));
+    return nodes;
+  });
+  const k = ring.length;
+  const half = Math.max(0, ...trees.flat().map((d) => Math.abs(d.side)));
+  const r = Math.max(1 / (2 * Math.sin(Math.PI / k)), half > 0 ? (half + 1) / Math.tan(Math.PI / k) : 0);
+  const local: Local = { x: new Map(), y: new Map() };
+  ring.forEach((_, i) => {
+    const t = -Math.PI / 2 + (2 * Math.PI * i) / k;
+    const [ux, uy, vx, vy] = [Math.cos(t), Math.sin(t), -Math.sin(t), Math.cos(t)];
+    for (const d of trees[i]) place(local, d.v, (r + d.out) * ux + d.side * vx, (r + d.out) * uy + d.side * vy);
+  });
+  return { local, cycle: k };
+}
+
 /** Seeded linear congruential generator so that one graph is always drawn the same way. */
 function lcg(seed: number): () => number {
   let s = seed >>> 0 || 1;
@@ -239,6 +298,10 @@ function layoutComponent(nb: number[][], comp: number[]): { local: Local; info: 
     return { local: layoutTidyTree(nb, comp), info: info("tree") };
   }
   if (edges === comp.length && comp.every((v) => nb[v].length === 2)) return { local: layoutCycle(nb, comp), info: info("cycle") };
+  if (edges === comp.length) {
+    const { local, cycle } = layoutUnicyclic(nb, comp);
+    return { local, info: { ...info("unicyclic"), cycle } };
+  }
   return { local: layoutForce(nb, comp), info: info("other") };
 }
 
@@ -283,6 +346,7 @@ const SHAPE_WORDS: Record<ComponentShape, string> = {
   spine: "a tree drawn along a longest path",
   tree: "a tree",
   cycle: "a cycle",
+  unicyclic: "a graph with one cycle",
   other: "a graph",
 };
 
@@ -293,7 +357,7 @@ export function describeLayout(g: Graph, layout: StructuredLayout): string {
   const edgeCount = g.edges.filter((e) => e.u !== e.v).reduce((s, e) => s + e.m, 0);
   const parts = layout.components.map((c) => {
     const size = c.shape === "vertex" ? "" : ` on ${c.vertices.length} vertices`;
-    const legs = c.legs ? ` (legs ${c.legs.join(", ")})` : "";
+    const legs = c.legs ? ` (legs ${c.legs.join(", ")})` : c.cycle ? ` (a ${c.cycle}-cycle drawn as a polygon, trees hanging outward)` : "";
     return `${SHAPE_WORDS[c.shape]}${size}${legs}`;
   });
   const head = `${g.n} vertices, ${edgeCount} edges${loops ? `, ${loops} loop${loops > 1 ? "s" : ""}` : ""}${multi ? `, ${multi} multiple edge${multi > 1 ? "s" : ""}` : ""}`;

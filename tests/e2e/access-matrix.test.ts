@@ -4,27 +4,15 @@
  * table; each answer is checked for its HTTP status, and every page a case-limited reviewer can open
  * is checked for titles of cases outside their scope. The API's own matrix is in tests/integration.
  */
-import { readdirSync, statSync } from "node:fs";
-import { join, relative } from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { launchBrowser } from "./browser";
 import { buildFixture, ROLES, type Fixture, type Role } from "./access-fixture";
+import { pageRoutes } from "./page-routes";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
 let fx: Fixture;
-
-/** Page routes as the file tree has them: "/proofs/[proofId]/steps/[stepId]". */
-function pageRoutes(dir = "app"): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) return pageRoutes(path);
-    if (name !== "page.tsx") return [];
-    const route = "/" + relative("app", dir).split("/").filter((seg) => !/^\(.*\)$/.test(seg)).join("/");
-    return [route === "/" ? "/" : route.replace(/\/$/, "")];
-  });
-}
 
 type Outcome = 200 | 403 | 404 | "sign-in" | "redirect";
 const ALL = (o: Outcome) => Object.fromEntries(ROLES.map((r) => [r, o])) as Record<Role, Outcome>;

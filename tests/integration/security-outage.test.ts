@@ -6,12 +6,12 @@
  * the app talks to it through a TCP relay that the test "stops" — every open connection is cut and
  * new ones are refused, as when the server goes away — and then starts again on the same port.
  */
-import net from "node:net";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
+import { TcpRelay } from "../support/tcp-relay";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import * as proofsRoute from "@/app/api/proofs/route";
@@ -20,37 +20,13 @@ import * as casesRoute from "@/app/api/proofs/[proofId]/cases/route";
 
 const realUrl = process.env.DATABASE_URL!;
 const target = new URL(realUrl);
-let relay: net.Server;
-let relayPort = 0;
-const open = new Set<net.Socket>();
-
-function startRelay(port: number): Promise<number> {
-  relay = net.createServer((client) => {
-    const upstream = net.connect(Number(target.port), target.hostname);
-    for (const s of [client, upstream]) {
-      open.add(s);
-      s.on("close", () => open.delete(s));
-      s.on("error", () => s.destroy());
-    }
-    client.pipe(upstream).pipe(client);
-    client.on("close", () => upstream.destroy());
-    upstream.on("close", () => client.destroy());
-  });
-  return new Promise((resolve) => relay.listen(port, "127.0.0.1", () => resolve((relay.address() as net.AddressInfo).port)));
-}
-
-async function stopDatabase(): Promise<void> {
-  await new Promise<void>((resolve) => {
-    relay.close(() => resolve());
-    for (const s of open) s.destroy();
-  });
-}
+const relay = new TcpRelay(target.hostname, Number(target.port));
 
 let proofId: string;
 
 beforeAll(async () => {
   await closeSequelize();
-  relayPort = await startRelay(0);
+  const relayPort = await relay.start(0);
   const viaRelay = new URL(realUrl);
   viaRelay.port = String(relayPort);
   process.env.DATABASE_URL = viaRelay.toString();
@@ -62,7 +38,7 @@ afterAll(async () => {
   await models().Proof.destroy({ where: { id: Number(proofId) } });
   await closeSequelize();
   process.env.DATABASE_URL = realUrl;
-  relay.close();
+  await relay.stop();
 });
 
 const read = () => proofRoute.GET(new Request("http://localhost/x"), params({ proofId }));
@@ -73,7 +49,7 @@ describe("database outage", () => {
     expect((await read()).status).toBe(200);
     const casesBefore = await models().Case.count({ where: { proofId: Number(proofId) } });
 
-    await stopDatabase();
+    await relay.stop();
     const during = await Promise.all([...Array.from({ length: 10 }, () => read()), ...Array.from({ length: 10 }, (_, i) => write(i))]);
     const statuses = during.map((r) => r.status);
     console.log(`[outage] answers during the outage: ${JSON.stringify(countBy(statuses))}`);
@@ -84,7 +60,7 @@ describe("database outage", () => {
     expect(err.message).toMatch(/try again/i);
     expect(during[0].headers.get("retry-after")).toBe("5");
 
-    await startRelay(relayPort);
+    await relay.start();
     const t0 = Date.now();
     const seen: number[] = [];
     for (;;) {

@@ -24,6 +24,14 @@ describe("MathMarkdown", () => {
     expect(html).toContain('<annotation encoding="application/x-tex">\\lambda_1(G) \\ge \\sqrt{5}</annotation>');
   });
 
+  it("keeps KaTeX's MathML output, which screen readers read (inline and display)", () => {
+    // KaTeX's default output "htmlAndMathml" (katex.org Options): the visual HTML plus a hidden <math> tree.
+    const one = renderToStaticMarkup(<MathMarkdown source={"Then $\\rho(T) > 2$, and\n\n$$\n\\sqrt{2+\\sqrt5}\n$$"} />);
+    expect(one.match(/class="katex-mathml"/g)?.length).toBe(2);
+    expect(one).toMatch(/<span class="katex-mathml"><math xmlns="http:\/\/www.w3.org\/1998\/Math\/MathML"( display="block")?>/);
+    expect(one).toContain("<msqrt>");
+  });
+
   it("lets no script, event handler, javascript: link or remote image through", () => {
     expect(html).not.toMatch(/<script/i);
     expect(html).not.toMatch(/\son[a-z]+=/i);
