@@ -67,6 +67,7 @@ status=$?
 set -e
 node -e '
   const r = JSON.parse(require("fs").readFileSync(process.argv[1], "utf8"));
-  console.log(`${r.numPassedTests} passed, ${r.numFailedTests} failed` + (r.numPendingTests ? `, ${r.numPendingTests} skipped` : ""));
+  const broken = r.testResults.filter((f) => f.status === "failed" && f.assertionResults.every((a) => a.status !== "failed")).length;
+  console.log(`${r.numPassedTests} passed, ${r.numFailedTests} failed` + (r.numPendingTests ? `, ${r.numPendingTests} skipped` : "") + (broken ? `, ${broken} test file(s) failed outside any test (setup or import)` : ""));
 ' "$DATA/$TEST_DB-vitest.json" 2>/dev/null || true
 exit $status

@@ -88,7 +88,10 @@ describe("the page permission matrix", () => {
         const got: Outcome | number =
           status >= 300 && status < 400 ? (location.includes("/sign-in") && role === "anonymous" ? "sign-in" : "redirect") : status;
         if (got !== row[role]) mismatches.push(`${variant} as ${role}: expected ${row[role]}, got ${got}`);
-        if (status === 200 && (role === "caseLimited" || role === "nonmember" || role === "otherProof" || role === "admin" || role === "anonymous")) {
+        // The site admin's outgoing-mail page shows every message as sent (mail now names proof, case and step):
+        // that is its purpose, so case titles there are not a leak. Every other page is checked for them.
+        const mailLog = variant === "/admin/mail" && role === "admin";
+        if (status === 200 && !mailLog && (role === "caseLimited" || role === "nonmember" || role === "otherProof" || role === "admin" || role === "anonymous")) {
           const html = await res.text();
           const leaked = (role === "caseLimited" ? fx.outOfScopeTitles : [...fx.outOfScopeTitles, ...fx.inScopeTitles]).filter((t) => html.includes(t));
           if (leaked.length) mismatches.push(`${variant} as ${role}: shows ${leaked.map((t) => `"${t}"`).join(", ")}`);
