@@ -9,7 +9,10 @@ const frameworkAndDatabase = {
   patterns: [
     { group: ["next", "next/*", "next-auth", "next-auth/*"], message: "lib/core is framework-free: no Next.js or next-auth here." },
     { group: ["react", "react-dom", "react/*", "react-dom/*"], message: "lib/core is framework-free: no React here." },
-    { group: ["sequelize", "mariadb", "umzug", "@/models", "@/models/*", "@/lib/db", "@/lib/data/*", "**/models/**"], message: "lib/core never touches the database." },
+    {
+      group: ["sequelize", "mariadb", "umzug", "@/models", "@/models/*", "@/lib/db", "@/lib/data/*", "**/models/**"],
+      message: "lib/core never touches the database.",
+    },
     { group: ["server-only"], message: "lib/core also runs in the offline checker and in workers." },
   ],
 };

@@ -10,11 +10,16 @@ const nextConfig = {
   experimental: { authInterrupts: true },
   // Static files too: no MIME sniffing, no framing (pages get their CSP with a nonce from proxy.ts).
   async headers() {
-    return [{ source: "/:path*", headers: [
-      { key: "X-Content-Type-Options", value: "nosniff" },
-      { key: "X-Frame-Options", value: "DENY" },
-      { key: "Referrer-Policy", value: "same-origin" },
-    ] }];
+    return [
+      {
+        source: "/:path*",
+        headers: [
+          { key: "X-Content-Type-Options", value: "nosniff" },
+          { key: "X-Frame-Options", value: "DENY" },
+          { key: "Referrer-Policy", value: "same-origin" },
+        ],
+      },
+    ];
   },
 };
 

@@ -9,7 +9,10 @@ export const metadata: Metadata = {
   description: "Case-by-case review of classification proofs, with exactly verified computational certificates.",
   // Drawn for Cairn by scripts/draw-icons.mjs and served from public/.
   icons: {
-    icon: [{ url: "/favicon.svg", type: "image/svg+xml" }, { url: "/favicon.ico", sizes: "16x16 32x32" }],
+    icon: [
+      { url: "/favicon.svg", type: "image/svg+xml" },
+      { url: "/favicon.ico", sizes: "16x16 32x32" },
+    ],
     apple: "/apple-touch-icon.png",
   },
 };

@@ -16,8 +16,11 @@ const bundle = here("./cairn-check.bundle.mjs");
 
 if (process.argv[2] === "--make-bundle") {
   const esbuild = here("../node_modules/.bin/esbuild");
-  const r = spawnSync(esbuild, [here("../lib/core/cli.ts"), "--bundle", "--platform=node", "--format=esm", "--target=node20",
-    `--outfile=${bundle}`, "--log-level=warning"], { stdio: "inherit" });
+  const r = spawnSync(
+    esbuild,
+    [here("../lib/core/cli.ts"), "--bundle", "--platform=node", "--format=esm", "--target=node20", `--outfile=${bundle}`, "--log-level=warning"],
+    { stdio: "inherit" },
+  );
   if (r.status === 0) process.stdout.write(`wrote ${bundle}\n`);
   process.exit(r.status ?? 2);
 }
@@ -30,8 +33,10 @@ if (existsSync(bundle)) {
   try {
     ({ register } = await import("tsx/esm/api"));
   } catch {
-    process.stderr.write("cairn-check: neither bin/cairn-check.bundle.mjs nor the TypeScript loader (tsx) is available;\n" +
-      "run `npm install` in the Cairn package, or use a bundled checker (see the top of bin/cairn-check.mjs).\n");
+    process.stderr.write(
+      "cairn-check: neither bin/cairn-check.bundle.mjs nor the TypeScript loader (tsx) is available;\n" +
+        "run `npm install` in the Cairn package, or use a bundled checker (see the top of bin/cairn-check.mjs).\n",
+    );
     process.exit(2);
   }
   register();

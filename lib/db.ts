@@ -32,9 +32,20 @@ export async function closeSequelize(): Promise<void> {
 // Connector error codes that mean the database is not there (or went away mid-query), not that the
 // query was wrong: connection refused or cut, the pool could not get a connection in time.
 const GONE_CODES = new Set([
-  "ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EHOSTUNREACH", "ENOTFOUND", "EPIPE",
-  "ER_SOCKET_UNEXPECTED_CLOSE", "ER_CONNECTION_TIMEOUT", "ER_GET_CONNECTION_TIMEOUT", "ER_CMD_CONNECTION_CLOSED",
-  "ER_CONNECTION_ALREADY_CLOSED", "ER_POOL_ALREADY_CLOSED", "ER_SERVER_SHUTDOWN", "ER_CON_COUNT_ERROR",
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENOTFOUND",
+  "EPIPE",
+  "ER_SOCKET_UNEXPECTED_CLOSE",
+  "ER_CONNECTION_TIMEOUT",
+  "ER_GET_CONNECTION_TIMEOUT",
+  "ER_CMD_CONNECTION_CLOSED",
+  "ER_CONNECTION_ALREADY_CLOSED",
+  "ER_POOL_ALREADY_CLOSED",
+  "ER_SERVER_SHUTDOWN",
+  "ER_CON_COUNT_ERROR",
 ]);
 
 /**

@@ -38,7 +38,12 @@ export interface Issue {
 
 export class AppError extends Error {
   readonly status: number;
-  constructor(readonly code: ErrorCode, message: string, readonly issues?: Issue[], readonly extra?: Record<string, unknown>) {
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues?: Issue[],
+    readonly extra?: Record<string, unknown>,
+  ) {
     super(message);
     this.name = "AppError";
     this.status = statusOf[code];

@@ -29,9 +29,12 @@ function connection(timeoutMs: number): Promise<mariadb.Connection> {
 }
 
 function forget(conn: mariadb.Connection): void {
-  void g.__cairnHealthConnection?.then((c) => {
-    if (c === conn) g.__cairnHealthConnection = undefined;
-  }, () => undefined);
+  void g.__cairnHealthConnection?.then(
+    (c) => {
+      if (c === conn) g.__cairnHealthConnection = undefined;
+    },
+    () => undefined,
+  );
 }
 
 /**

@@ -14,17 +14,21 @@ export function json(data: unknown, init?: ResponseInit): Response {
   return Response.json(data, init);
 }
 
-
 export function errorResponse(e: unknown): Response {
   if (e instanceof AppError) return Response.json(errorBody(e), { status: e.status });
   if (isDatabaseUnavailable(e)) {
     console.error("[cairn] database unavailable", (e as Error).message);
-    return Response.json(errorBody(new AppError("unavailable", DATABASE_UNAVAILABLE)), { status: 503, headers: { "retry-after": String(RETRY_AFTER_SECONDS) } });
+    return Response.json(errorBody(new AppError("unavailable", DATABASE_UNAVAILABLE)), {
+      status: 503,
+      headers: { "retry-after": String(RETRY_AFTER_SECONDS) },
+    });
   }
   // The unique (parent, position) indexes are the backstop behind the locks: a collision means a
   // concurrent write won the place; nothing was written by this request.
   if (e instanceof UniqueConstraintError)
-    return Response.json(errorBody(new AppError("conflict", "Someone else changed this at the same moment; nothing was saved. Reload and try again.")), { status: 409 });
+    return Response.json(errorBody(new AppError("conflict", "Someone else changed this at the same moment; nothing was saved. Reload and try again.")), {
+      status: 409,
+    });
   console.error("[cairn] unexpected error", e);
   return Response.json(
     { error: { code: "internal", message: "Something went wrong on the server; nothing was changed. Try again, and report it if it persists." } },
@@ -100,10 +104,17 @@ export function zodIssues(error: { issues: ReadonlyArray<{ path: ReadonlyArray<P
 export const BODY_LIMITS = { small: 64 * 1024, text: 2 * 1024 * 1024, claims: 16 * 1024 * 1024 } as const;
 
 const sizeName = (bytes: number) =>
-  bytes % (1024 * 1024) === 0 ? `${bytes / (1024 * 1024)} MiB` : bytes % 1024 === 0 || bytes > 100 * 1024 ? `${Math.round(bytes / 1024)} KiB` : `${bytes} bytes`;
+  bytes % (1024 * 1024) === 0
+    ? `${bytes / (1024 * 1024)} MiB`
+    : bytes % 1024 === 0 || bytes > 100 * 1024
+      ? `${Math.round(bytes / 1024)} KiB`
+      : `${bytes} bytes`;
 
 const tooLarge = (limit: number) =>
-  new AppError("too_large", `The request body is larger than this request's limit of ${sizeName(limit)}; nothing was saved. Send less at once (for claims: fewer or smaller graphs per request).`);
+  new AppError(
+    "too_large",
+    `The request body is larger than this request's limit of ${sizeName(limit)}; nothing was saved. Send less at once (for claims: fewer or smaller graphs per request).`,
+  );
 
 /** Reads the body as bytes, giving up (with `tooBig`, a 413) as soon as more than `limit` bytes have arrived. */
 async function readLimitedBytes(request: Request, limit: number, tooBig: () => AppError): Promise<Uint8Array> {
@@ -145,8 +156,16 @@ async function readLimited(request: Request, limit: number): Promise<string> {
 
 /** A file sent as the raw request body (uploads): 413 naming the limit past `limit` bytes (checked while reading). */
 export function readFileBody(request: Request, limit: number): Promise<Uint8Array> {
-  return readLimitedBytes(request, limit, () =>
-    new AppError("too_large", `The file is larger than the upload limit of ${sizeName(limit)}; nothing was saved. Compress a graph list with gzip, or split it into several files.`, undefined, { limitBytes: limit }),
+  return readLimitedBytes(
+    request,
+    limit,
+    () =>
+      new AppError(
+        "too_large",
+        `The file is larger than the upload limit of ${sizeName(limit)}; nothing was saved. Compress a graph list with gzip, or split it into several files.`,
+        undefined,
+        { limitBytes: limit },
+      ),
   );
 }
 
@@ -159,7 +178,10 @@ export { sizeName };
 export async function readBody<T>(request: Request, schema: ZodType<T>, limit: number = BODY_LIMITS.text): Promise<T> {
   const type = (request.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
   if (type !== "application/json")
-    throw new AppError("unsupported_media_type", `Send the request body as JSON with the header Content-Type: application/json (it was ${type ? `"${type}"` : "missing"}).`);
+    throw new AppError(
+      "unsupported_media_type",
+      `Send the request body as JSON with the header Content-Type: application/json (it was ${type ? `"${type}"` : "missing"}).`,
+    );
   const text = await readLimited(request, limit);
   let raw: unknown;
   try {

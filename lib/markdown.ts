@@ -21,7 +21,10 @@ export const sanitizeSchema = {
     ...defaultSchema.attributes,
     // One className rule for code (the sanitizer reads only the first rule naming an attribute): the default's
     // language-* classes plus the two math classes, so `$$…$$` within a line keeps its math-display class.
-    code: [...(defaultSchema.attributes?.code ?? []).filter((a) => (Array.isArray(a) ? a[0] : a) !== "className"), ["className", /^language-./, "math-inline", "math-display"]],
+    code: [
+      ...(defaultSchema.attributes?.code ?? []).filter((a) => (Array.isArray(a) ? a[0] : a) !== "className"),
+      ["className", /^language-./, "math-inline", "math-display"],
+    ],
     span: [...(defaultSchema.attributes?.span ?? []), ["className", "math", "math-inline", "math-display"]],
     div: [...(defaultSchema.attributes?.div ?? []), ["className", "math", "math-display", "word-removed-block", "word-added-block"]],
     mark: [["className", "word-removed", "word-added"] as [string, ...string[]]],
@@ -35,4 +38,8 @@ export const katexOptions = { trust: false, maxExpand: 1000, maxSize: 20, strict
 export const remarkPlugins: PluggableList = [remarkGfm, remarkMath, remarkDisplayMathInline];
 // The budget sits between the two: an over-large or too deeply nested formula becomes an error box
 // before KaTeX renders it (see lib/math-budget.ts).
-export const rehypePlugins: PluggableList = [[rehypeSanitize, sanitizeSchema], [rehypeMathBudget, katexOptions], [rehypeKatex, katexOptions]];
+export const rehypePlugins: PluggableList = [
+  [rehypeSanitize, sanitizeSchema],
+  [rehypeMathBudget, katexOptions],
+  [rehypeKatex, katexOptions],
+];

@@ -13,7 +13,10 @@ export const stepLabel = (caseNumber: string, place: number): string => `${caseN
  * The label of every step, its place being its rank among its case's steps by position (then id), as the
  * case tree, the step page and the claims table number them. Steps of unknown cases are left out.
  */
-export function labelSteps(caseNumbers: ReadonlyMap<number, string>, steps: ReadonlyArray<{ id: number; caseId: number; position: number }>): Map<number, string> {
+export function labelSteps(
+  caseNumbers: ReadonlyMap<number, string>,
+  steps: ReadonlyArray<{ id: number; caseId: number; position: number }>,
+): Map<number, string> {
   const byCase = new Map<number, Array<{ id: number; position: number }>>();
   for (const s of steps) byCase.set(s.caseId, [...(byCase.get(s.caseId) ?? []), s]);
   const out = new Map<number, string>();
@@ -31,7 +34,8 @@ export function compareStepLabels(a: string, b: string): number {
     const [caseNumber, place] = label.split(":");
     return { caseParts: caseNumber.split(".").map(Number), place: Number(place) };
   };
-  const x = parts(a), y = parts(b);
+  const x = parts(a),
+    y = parts(b);
   for (let i = 0; i < Math.min(x.caseParts.length, y.caseParts.length); i++) if (x.caseParts[i] !== y.caseParts[i]) return x.caseParts[i] - y.caseParts[i];
   return x.caseParts.length - y.caseParts.length || x.place - y.place;
 }

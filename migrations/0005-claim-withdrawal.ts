@@ -9,7 +9,11 @@ import type { MigrationParams } from "umzug";
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.addColumn("claims", "withdrawn_at", { type: DataTypes.DATE(3), allowNull: true });
   await qi.addColumn("claims", "withdrawn_by", {
-    type: DataTypes.INTEGER.UNSIGNED, allowNull: true, references: { model: "users", key: "id" }, onDelete: "SET NULL", onUpdate: "CASCADE",
+    type: DataTypes.INTEGER.UNSIGNED,
+    allowNull: true,
+    references: { model: "users", key: "id" },
+    onDelete: "SET NULL",
+    onUpdate: "CASCADE",
   });
 }
 

@@ -20,7 +20,10 @@ const renumber = (table: string, parent: string) => `
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   const sq = qi.sequelize;
-  for (const [table, parent, oldIndex] of [["steps", "case_id", "steps_case"], ["claims", "step_id", "claims_step"]] as const) {
+  for (const [table, parent, oldIndex] of [
+    ["steps", "case_id", "steps_case"],
+    ["claims", "step_id", "claims_step"],
+  ] as const) {
     await sq.query(renumber(table, parent));
     await qi.addIndex(table, [parent, "position"], { unique: true, name: `${table}_position_unique` });
     await qi.removeIndex(table, oldIndex);
@@ -30,7 +33,10 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.removeColumn("users", "session_version");
-  for (const [table, parent, oldIndex] of [["steps", "case_id", "steps_case"], ["claims", "step_id", "claims_step"]] as const) {
+  for (const [table, parent, oldIndex] of [
+    ["steps", "case_id", "steps_case"],
+    ["claims", "step_id", "claims_step"],
+  ] as const) {
     await qi.addIndex(table, [parent, "position"], { name: oldIndex });
     await qi.removeIndex(table, `${table}_position_unique`);
   }

@@ -24,11 +24,18 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.changeColumn("notification_preferences", "kind", { type: DataTypes.ENUM(...KINDS_AFTER), allowNull: false });
 
   const sq = qi.sequelize;
-  const claims = await sq.query<{ id: number; step_id: number; position: number; kind: string; statement: string | null; digest: string | null; status: RevisionClaim["status"] }>(
-    "SELECT id, step_id, position, kind, statement, digest, status FROM claims WHERE withdrawn_at IS NULL",
-    { type: QueryTypes.SELECT },
-  );
-  const revisions = await sq.query<{ id: number; step_id: number; number: number; body: string }>("SELECT id, step_id, number, body FROM step_revisions", { type: QueryTypes.SELECT });
+  const claims = await sq.query<{
+    id: number;
+    step_id: number;
+    position: number;
+    kind: string;
+    statement: string | null;
+    digest: string | null;
+    status: RevisionClaim["status"];
+  }>("SELECT id, step_id, position, kind, statement, digest, status FROM claims WHERE withdrawn_at IS NULL", { type: QueryTypes.SELECT });
+  const revisions = await sq.query<{ id: number; step_id: number; number: number; body: string }>("SELECT id, step_id, number, body FROM step_revisions", {
+    type: QueryTypes.SELECT,
+  });
   for (const r of revisions) {
     const set = ordered(
       claims

@@ -24,7 +24,8 @@ const inverse = (map: Renames): Renames => Object.fromEntries(Object.entries(map
 async function renameEnum(qi: QueryInterface, table: string, column: string, from: string[], map: Renames, allowNull: boolean) {
   const to = renamed(from, map);
   await qi.changeColumn(table, column, { type: DataTypes.ENUM(...new Set([...from, ...to])), allowNull });
-  for (const [a, b] of Object.entries(map)) await qi.sequelize.query(`UPDATE \`${table}\` SET \`${column}\` = ? WHERE \`${column}\` = ?`, { replacements: [b, a] });
+  for (const [a, b] of Object.entries(map))
+    await qi.sequelize.query(`UPDATE \`${table}\` SET \`${column}\` = ? WHERE \`${column}\` = ?`, { replacements: [b, a] });
   await qi.changeColumn(table, column, { type: DataTypes.ENUM(...to), allowNull });
 }
 

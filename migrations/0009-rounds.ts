@@ -25,56 +25,76 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.addColumn("proofs", "remind_before_days", { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 3 });
   await qi.addColumn("proofs", "remind_after_days", { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 });
 
-  await qi.createTable("review_rounds", {
-    id,
-    proof_id: ref("proofs", "CASCADE"),
-    number: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-    due_at: { type: DataTypes.DATE(3), allowNull: false },
-    opened_by: ref("users", "RESTRICT"),
-    closed_at: { type: DataTypes.DATE(3), allowNull: true },
-    created_at: now,
-  }, table);
+  await qi.createTable(
+    "review_rounds",
+    {
+      id,
+      proof_id: ref("proofs", "CASCADE"),
+      number: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      due_at: { type: DataTypes.DATE(3), allowNull: false },
+      opened_by: ref("users", "RESTRICT"),
+      closed_at: { type: DataTypes.DATE(3), allowNull: true },
+      created_at: now,
+    },
+    table,
+  );
   await qi.addIndex("review_rounds", ["proof_id", "number"], { name: "review_rounds_number", unique: true });
 
-  await qi.createTable("round_referees", {
-    round_id: { ...ref("review_rounds", "CASCADE"), primaryKey: true },
-    user_id: { ...ref("users", "CASCADE"), primaryKey: true },
-    due_at: { type: DataTypes.DATE(3), allowNull: false },
-    created_at: now,
-  }, table);
+  await qi.createTable(
+    "round_referees",
+    {
+      round_id: { ...ref("review_rounds", "CASCADE"), primaryKey: true },
+      user_id: { ...ref("users", "CASCADE"), primaryKey: true },
+      due_at: { type: DataTypes.DATE(3), allowNull: false },
+      created_at: now,
+    },
+    table,
+  );
 
-  await qi.createTable("referee_reports", {
-    id,
-    round_id: ref("review_rounds", "CASCADE"),
-    referee_id: ref("users", "RESTRICT"),
-    version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-    body: { type: DataTypes.TEXT("medium"), allowNull: false },
-    recommendation: { type: DataTypes.ENUM(...RECOMMENDATIONS), allowNull: true },
-    editor_note: { type: DataTypes.TEXT("medium"), allowNull: false },
-    submitted_at: { type: DataTypes.DATE(3), allowNull: true },
-    created_at: now,
-    updated_at: now,
-  }, table);
+  await qi.createTable(
+    "referee_reports",
+    {
+      id,
+      round_id: ref("review_rounds", "CASCADE"),
+      referee_id: ref("users", "RESTRICT"),
+      version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      body: { type: DataTypes.TEXT("medium"), allowNull: false },
+      recommendation: { type: DataTypes.ENUM(...RECOMMENDATIONS), allowNull: true },
+      editor_note: { type: DataTypes.TEXT("medium"), allowNull: false },
+      submitted_at: { type: DataTypes.DATE(3), allowNull: true },
+      created_at: now,
+      updated_at: now,
+    },
+    table,
+  );
   await qi.addIndex("referee_reports", ["round_id", "referee_id", "version"], { name: "referee_reports_version", unique: true });
 
-  await qi.createTable("round_decisions", {
-    id,
-    round_id: { ...ref("review_rounds", "CASCADE"), unique: true },
-    editor_id: ref("users", "RESTRICT"),
-    decision: { type: DataTypes.ENUM(...RECOMMENDATIONS), allowNull: false },
-    letter: { type: DataTypes.TEXT("medium"), allowNull: false },
-    reports_attached: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
-    created_at: now,
-  }, table);
+  await qi.createTable(
+    "round_decisions",
+    {
+      id,
+      round_id: { ...ref("review_rounds", "CASCADE"), unique: true },
+      editor_id: ref("users", "RESTRICT"),
+      decision: { type: DataTypes.ENUM(...RECOMMENDATIONS), allowNull: false },
+      letter: { type: DataTypes.TEXT("medium"), allowNull: false },
+      reports_attached: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+      created_at: now,
+    },
+    table,
+  );
 
   // One row per reminder that went (or is going) out: written in the transaction that queues its mail.
-  await qi.createTable("round_reminders", {
-    round_id: { ...ref("review_rounds", "CASCADE"), primaryKey: true },
-    user_id: { ...ref("users", "CASCADE"), primaryKey: true },
-    kind: { type: DataTypes.STRING(20), allowNull: false, primaryKey: true },
-    mail_id: ref("outgoing_mails", "SET NULL", true),
-    created_at: now,
-  }, table);
+  await qi.createTable(
+    "round_reminders",
+    {
+      round_id: { ...ref("review_rounds", "CASCADE"), primaryKey: true },
+      user_id: { ...ref("users", "CASCADE"), primaryKey: true },
+      kind: { type: DataTypes.STRING(20), allowNull: false, primaryKey: true },
+      mail_id: ref("outgoing_mails", "SET NULL", true),
+      created_at: now,
+    },
+    table,
+  );
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

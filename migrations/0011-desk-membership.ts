@@ -17,15 +17,19 @@ const ref = (model: string, onDelete: "CASCADE" | "RESTRICT" | "SET NULL", allow
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.addColumn("invitations", "role", { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false, defaultValue: "reviewer" });
-  await qi.createTable("former_members", {
-    proof_id: { ...ref("proofs", "CASCADE"), primaryKey: true },
-    user_id: { ...ref("users", "CASCADE"), primaryKey: true },
-    role: { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false },
-    /** When they first joined: a blind proof numbers its referees in this order, present and former alike. */
-    joined_at: { type: DataTypes.DATE(3), allowNull: false },
-    removed_at: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
-    removed_by: ref("users", "SET NULL", true),
-  }, table);
+  await qi.createTable(
+    "former_members",
+    {
+      proof_id: { ...ref("proofs", "CASCADE"), primaryKey: true },
+      user_id: { ...ref("users", "CASCADE"), primaryKey: true },
+      role: { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false },
+      /** When they first joined: a blind proof numbers its referees in this order, present and former alike. */
+      joined_at: { type: DataTypes.DATE(3), allowNull: false },
+      removed_at: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
+      removed_by: ref("users", "SET NULL", true),
+    },
+    table,
+  );
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

@@ -16,20 +16,24 @@ const ref = (model: string, onDelete: "CASCADE" | "RESTRICT") => ({
 });
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
-  await qi.createTable("step_files", {
-    id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true, allowNull: false },
-    step_id: ref("steps", "CASCADE"),
-    sha256: { type: DataTypes.CHAR(64), allowNull: false },
-    size: { type: DataTypes.BIGINT.UNSIGNED, allowNull: false },
-    name: { type: DataTypes.STRING(255), allowNull: false },
-    kind: { type: DataTypes.ENUM("graph-list", "claims", "document"), allowNull: false },
-    media_type: { type: DataTypes.STRING(100), allowNull: false },
-    description: { type: DataTypes.STRING(200), allowNull: false },
-    graph_format: { type: DataTypes.ENUM("graph6", "sparse6", "edges"), allowNull: true },
-    graph_count: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-    uploaded_by: ref("users", "RESTRICT"),
-    created_at: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
-  }, table);
+  await qi.createTable(
+    "step_files",
+    {
+      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true, allowNull: false },
+      step_id: ref("steps", "CASCADE"),
+      sha256: { type: DataTypes.CHAR(64), allowNull: false },
+      size: { type: DataTypes.BIGINT.UNSIGNED, allowNull: false },
+      name: { type: DataTypes.STRING(255), allowNull: false },
+      kind: { type: DataTypes.ENUM("graph-list", "claims", "document"), allowNull: false },
+      media_type: { type: DataTypes.STRING(100), allowNull: false },
+      description: { type: DataTypes.STRING(200), allowNull: false },
+      graph_format: { type: DataTypes.ENUM("graph6", "sparse6", "edges"), allowNull: true },
+      graph_count: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      uploaded_by: ref("users", "RESTRICT"),
+      created_at: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
+    },
+    table,
+  );
   // One row per file and step: uploading the same bytes to a step again returns the row it has.
   await qi.addIndex("step_files", ["step_id", "sha256"], { name: "step_files_step_sha", unique: true });
   await qi.addIndex("step_files", ["sha256"], { name: "step_files_sha" });

@@ -28,9 +28,36 @@ import { StepFile } from "./step-file";
 import { FormerMember } from "./former-member";
 import { BatchClaim, BatchResult } from "./batch-claim";
 
-const all = { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile, BatchClaim, BatchResult };
+const all = {
+  User,
+  SignInThrottle,
+  Proof,
+  ProofMember,
+  Case,
+  Step,
+  StepRevision,
+  Claim,
+  Review,
+  Comment,
+  AuditEvent,
+  OutgoingMail,
+  Invitation,
+  InvitationCase,
+  ReviewerScope,
+  DisputeTransition,
+  Notification,
+  NotificationPreference,
+  ProofExport,
+  ReviewRound,
+  RoundReferee,
+  RefereeReport,
+  RoundDecision,
+  RoundReminder,
+  FormerMember,
+  StepFile,
+  BatchClaim,
+  BatchResult,
+};
 
 function initModels() {
   const sequelize = getSequelize();
@@ -68,6 +95,33 @@ export function models() {
   return all;
 }
 
-export { User, SignInThrottle, Proof, ProofMember, Case, Step, StepRevision, Claim, Review, Comment, AuditEvent,
-  OutgoingMail, Invitation, InvitationCase, ReviewerScope, DisputeTransition, Notification, NotificationPreference, ProofExport,
-  ReviewRound, RoundReferee, RefereeReport, RoundDecision, RoundReminder, FormerMember, StepFile, BatchClaim, BatchResult };
+export {
+  User,
+  SignInThrottle,
+  Proof,
+  ProofMember,
+  Case,
+  Step,
+  StepRevision,
+  Claim,
+  Review,
+  Comment,
+  AuditEvent,
+  OutgoingMail,
+  Invitation,
+  InvitationCase,
+  ReviewerScope,
+  DisputeTransition,
+  Notification,
+  NotificationPreference,
+  ProofExport,
+  ReviewRound,
+  RoundReferee,
+  RefereeReport,
+  RoundDecision,
+  RoundReminder,
+  FormerMember,
+  StepFile,
+  BatchClaim,
+  BatchResult,
+};

@@ -25,7 +25,13 @@ export class StepFile extends Model<InferAttributes<StepFile>, InferCreationAttr
         stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         sha256: { type: DataTypes.CHAR(64), allowNull: false },
         // BIGINT comes back as a string from the driver; sizes stay far below 2^53.
-        size: { type: DataTypes.BIGINT.UNSIGNED, allowNull: false, get() { return Number(this.getDataValue("size")); } },
+        size: {
+          type: DataTypes.BIGINT.UNSIGNED,
+          allowNull: false,
+          get() {
+            return Number(this.getDataValue("size"));
+          },
+        },
         name: { type: DataTypes.STRING(255), allowNull: false },
         kind: { type: DataTypes.ENUM("graph-list", "claims", "document"), allowNull: false },
         mediaType: { type: DataTypes.STRING(100), allowNull: false },

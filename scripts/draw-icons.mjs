@@ -29,13 +29,22 @@ function raster(size, background) {
   const scale = (size - 2 * pad) / 32;
   for (let py = 0; py < size; py++)
     for (let qx = 0; qx < size; qx++) {
-      let r = 0, g = 0, b = 0, a = 0;
+      let r = 0,
+        g = 0,
+        b = 0,
+        a = 0;
       for (let sy = 0; sy < 4; sy++)
         for (let sx = 0; sx < 4; sx++) {
-          const x = (qx + (sx + 0.5) / 4 - pad) / scale, y = (py + (sy + 0.5) / 4 - pad) / scale;
+          const x = (qx + (sx + 0.5) / 4 - pad) / scale,
+            y = (py + (sy + 0.5) / 4 - pad) / scale;
           let colour = background ? rgb(background) : null;
           for (const [cx, cy, rx, ry, c] of STONES) if (((x - cx) / rx) ** 2 + ((y - cy) / ry) ** 2 <= 1) colour = rgb(c);
-          if (colour) { r += colour[0]; g += colour[1]; b += colour[2]; a += 1; }
+          if (colour) {
+            r += colour[0];
+            g += colour[1];
+            b += colour[2];
+            a += 1;
+          }
         }
       const o = (py * size + qx) * 4;
       px[o] = a ? Math.round(r / a) : 0;
@@ -57,9 +66,11 @@ function crc32(buf) {
   return (c ^ 0xffffffff) >>> 0;
 }
 function chunk(type, data) {
-  const len = Buffer.alloc(4); len.writeUInt32BE(data.length);
+  const len = Buffer.alloc(4);
+  len.writeUInt32BE(data.length);
   const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
-  const crc = Buffer.alloc(4); crc.writeUInt32BE(crc32(body));
+  const crc = Buffer.alloc(4);
+  crc.writeUInt32BE(crc32(body));
   return Buffer.concat([len, body, crc]);
 }
 /** A PNG (RFC 2083): 8-bit RGBA, filter 0 on every row. */
@@ -68,18 +79,32 @@ function png(size, background) {
   const rows = Buffer.alloc(size * (size * 4 + 1));
   for (let y = 0; y < size; y++) px.copy(rows, y * (size * 4 + 1) + 1, y * size * 4, (y + 1) * size * 4);
   const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(size, 0); ihdr.writeUInt32BE(size, 4); ihdr[8] = 8; ihdr[9] = 6;
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", ihdr), chunk("IDAT", deflateSync(rows)), chunk("IEND", Buffer.alloc(0))]);
+  ihdr.writeUInt32BE(size, 0);
+  ihdr.writeUInt32BE(size, 4);
+  ihdr[8] = 8;
+  ihdr[9] = 6;
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    chunk("IDAT", deflateSync(rows)),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
 }
 /** An ICO file holding PNG images (allowed since Windows Vista; every current browser reads it). */
 function ico(images) {
   const head = Buffer.alloc(6 + 16 * images.length);
-  head.writeUInt16LE(0, 0); head.writeUInt16LE(1, 2); head.writeUInt16LE(images.length, 4);
+  head.writeUInt16LE(0, 0);
+  head.writeUInt16LE(1, 2);
+  head.writeUInt16LE(images.length, 4);
   let offset = head.length;
   images.forEach(([size, data], i) => {
     const e = 6 + 16 * i;
-    head[e] = size; head[e + 1] = size; head.writeUInt16LE(1, e + 4); head.writeUInt16LE(32, e + 6);
-    head.writeUInt32LE(data.length, e + 8); head.writeUInt32LE(offset, e + 12);
+    head[e] = size;
+    head[e + 1] = size;
+    head.writeUInt16LE(1, e + 4);
+    head.writeUInt16LE(32, e + 6);
+    head.writeUInt32LE(data.length, e + 8);
+    head.writeUInt32LE(offset, e + 12);
     offset += data.length;
   });
   return Buffer.concat([head, ...images.map(([, d]) => d)]);
@@ -87,6 +112,12 @@ function ico(images) {
 
 const out = new URL("../public/", import.meta.url);
 writeFileSync(new URL("favicon.svg", out), svg);
-writeFileSync(new URL("favicon.ico", out), ico([[16, png(16)], [32, png(32)]]));
+writeFileSync(
+  new URL("favicon.ico", out),
+  ico([
+    [16, png(16)],
+    [32, png(32)],
+  ]),
+);
 writeFileSync(new URL("apple-touch-icon.png", out), png(180, "#f7f6f3"));
 console.log("wrote public/favicon.svg, public/favicon.ico, public/apple-touch-icon.png");

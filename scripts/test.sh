@@ -18,6 +18,8 @@ if [ -z "${CAIRN_TEST_FAST:-}" ]; then
   node_modules/.bin/tsc --noEmit
   say "lint (eslint)"
   node_modules/.bin/eslint --max-warnings=0 .
+  say "format (prettier --check; npm run format rewrites)"
+  node_modules/.bin/prettier --check --log-level=warn .
 fi
 
 TEST_DB_PORT="${CAIRN_TEST_DB_PORT:-3317}"

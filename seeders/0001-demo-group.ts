@@ -22,8 +22,7 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     if (existing) return; // already seeded
 
     const proof = await Proof.create({ title: demoProof.title, statement: demoProof.statement, createdBy: authorId }, { transaction });
-    for (const p of demoPeople)
-      if (p.proofRole) await ProofMember.create({ proofId: proof.id, userId: users.get(p.key)!, role: p.proofRole }, { transaction });
+    for (const p of demoPeople) if (p.proofRole) await ProofMember.create({ proofId: proof.id, userId: users.get(p.key)!, role: p.proofRole }, { transaction });
 
     const addCases = async (cases: DemoCase[], parentId: number | null) => {
       for (const [i, c] of cases.entries()) {

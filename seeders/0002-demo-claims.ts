@@ -17,37 +17,60 @@ const GOLDEN = "sqrt(2+sqrt(5))";
 
 /** Claims per demo step: [case path (positions from the top), step position, claims]. */
 const DEMO_CLAIMS: Array<[number[], number, object[]]> = [
-  [[1], 1, [
-    // K_{1,5} ⊆ G ⇒ ρ(G) ≥ ρ(K_{1,5}) = √5 > √(2+√5).
-    claim({ kind: "subgraph", pattern: named("star(5)"), host: named("starlike(1,1,1,1,3)"), induced: false }),
-    claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" }),
-    claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">", bound: GOLDEN }),
-  ]],
-  [[1], 2, [
-    claim({ kind: "identification", graph: named("star(4)"), family: "D~4" }),
-    claim({ kind: "spectral-radius-bound", graph: named("starlike(1,1,1,2)"), op: ">", bound: GOLDEN }),
-  ]],
-  [[2], 1, [
-    // The smallest tree with three branch vertices in a row: a path of 5 with a leaf at each inner vertex.
-    claim({ kind: "structure", graph: { format: "edges", text: "0 1\n1 2\n2 3\n3 4\n1 5\n2 6\n3 7" }, predicate: "branch-vertices", parameter: 3 }),
-    claim({ kind: "spectral-radius-bound", graph: { format: "edges", text: "0 1\n1 2\n2 3\n3 4\n1 5\n2 6\n3 7" }, op: ">", bound: GOLDEN }),
-  ]],
-  [[3], 1, [
-    // Ẽ8 = T(1,2,5): its null vector of 2I − A certifies ρ = 2 (the marks of the affine E8 diagram).
-    claim({ kind: "vector-certificate", graph: named("E~(8)"), vector: ["1", "2", "3", "4", "5", "6", "4", "2", "3"], relation: "=", bound: "2" }),
-    claim({ kind: "structure", graph: named("E~(8)"), predicate: "leg-lengths", parameter: [1, 2, 5] }),
-    // Smith's list up to 9 vertices, by exhaustive enumeration: the connected graphs with ρ < 2 are A_n, D_n, E6–E8.
-    claim({
-      kind: "enumeration", maxVertices: 9, op: "<", bound: "2",
-      graphs: [...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((n) => `A(${n})`), ...[4, 5, 6, 7, 8, 9].map((n) => `D(${n})`), "E(6)", "E(7)", "E(8)"].map(named),
-    }),
-  ]],
+  [
+    [1],
+    1,
+    [
+      // K_{1,5} ⊆ G ⇒ ρ(G) ≥ ρ(K_{1,5}) = √5 > √(2+√5).
+      claim({ kind: "subgraph", pattern: named("star(5)"), host: named("starlike(1,1,1,1,3)"), induced: false }),
+      claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" }),
+      claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">", bound: GOLDEN }),
+    ],
+  ],
+  [
+    [1],
+    2,
+    [
+      claim({ kind: "identification", graph: named("star(4)"), family: "D~4" }),
+      claim({ kind: "spectral-radius-bound", graph: named("starlike(1,1,1,2)"), op: ">", bound: GOLDEN }),
+    ],
+  ],
+  [
+    [2],
+    1,
+    [
+      // The smallest tree with three branch vertices in a row: a path of 5 with a leaf at each inner vertex.
+      claim({ kind: "structure", graph: { format: "edges", text: "0 1\n1 2\n2 3\n3 4\n1 5\n2 6\n3 7" }, predicate: "branch-vertices", parameter: 3 }),
+      claim({ kind: "spectral-radius-bound", graph: { format: "edges", text: "0 1\n1 2\n2 3\n3 4\n1 5\n2 6\n3 7" }, op: ">", bound: GOLDEN }),
+    ],
+  ],
+  [
+    [3],
+    1,
+    [
+      // Ẽ8 = T(1,2,5): its null vector of 2I − A certifies ρ = 2 (the marks of the affine E8 diagram).
+      claim({ kind: "vector-certificate", graph: named("E~(8)"), vector: ["1", "2", "3", "4", "5", "6", "4", "2", "3"], relation: "=", bound: "2" }),
+      claim({ kind: "structure", graph: named("E~(8)"), predicate: "leg-lengths", parameter: [1, 2, 5] }),
+      // Smith's list up to 9 vertices, by exhaustive enumeration: the connected graphs with ρ < 2 are A_n, D_n, E6–E8.
+      claim({
+        kind: "enumeration",
+        maxVertices: 9,
+        op: "<",
+        bound: "2",
+        graphs: [...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((n) => `A(${n})`), ...[4, 5, 6, 7, 8, 9].map((n) => `D(${n})`), "E(6)", "E(7)", "E(8)"].map(named),
+      }),
+    ],
+  ],
   [[3, 1], 1, [claim({ kind: "spectral-radius-bound", graph: named("starlike(1,2,6)"), op: "<", bound: GOLDEN })]],
-  [[3, 2], 1, [
-    claim({ kind: "spectral-radius-bound", graph: named("starlike(2,2,12)"), op: "<", bound: GOLDEN }),
-    // E8's eigenvalues are 2cos(πm/30) for its exponents m (Coxeter number 30).
-    claim({ kind: "eigenvalues", graph: named("E(8)"), h: 30, multiset: [1, 7, 11, 13, 17, 19, 23, 29] }),
-  ]],
+  [
+    [3, 2],
+    1,
+    [
+      claim({ kind: "spectral-radius-bound", graph: named("starlike(2,2,12)"), op: "<", bound: GOLDEN }),
+      // E8's eigenvalues are 2cos(πm/30) for its exponents m (Coxeter number 30).
+      claim({ kind: "eigenvalues", graph: named("E(8)"), h: 30, multiset: [1, 7, 11, 13, 17, 19, 23, 29] }),
+    ],
+  ],
 ];
 
 export async function up({ context: sequelize }: { context: Sequelize }) {
@@ -81,9 +104,20 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
         const o = result.outcome;
         const row = await Claim.create(
           {
-            stepId: step.id, position: i + 1, kind: valid.kind, input: JSON.stringify(valid), digest: claimDigest(valid), status: o.status,
-            statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: o.reason, certificate: o.certificate,
-            checkerVersion: o.checkerVersion, checkedBy: author.id, checkedAt: new Date(), createdBy: author.id,
+            stepId: step.id,
+            position: i + 1,
+            kind: valid.kind,
+            input: JSON.stringify(valid),
+            digest: claimDigest(valid),
+            status: o.status,
+            statement: o.statement.slice(0, 500),
+            method: o.method.slice(0, 200),
+            reason: o.reason,
+            certificate: o.certificate,
+            checkerVersion: o.checkerVersion,
+            checkedBy: author.id,
+            checkedAt: new Date(),
+            createdBy: author.id,
             picture: o.picture ? JSON.stringify(o.picture) : null,
           },
           { transaction },

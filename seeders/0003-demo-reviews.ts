@@ -30,7 +30,17 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
 
     const approve = async (stepId: number) => {
       const rev = await latest(stepId);
-      await Review.create({ stepId, revisionId: rev.id, reviewerId: reviewer, verdict: "vouch", disputeState: null, digest: rev.digest ?? digestOfRevision(rev.number, rev.body, parseClaimSet(rev.claimSet)) }, { transaction });
+      await Review.create(
+        {
+          stepId,
+          revisionId: rev.id,
+          reviewerId: reviewer,
+          verdict: "vouch",
+          disputeState: null,
+          digest: rev.digest ?? digestOfRevision(rev.number, rev.body, parseClaimSet(rev.claimSet)),
+        },
+        { transaction },
+      );
       await event("review.vouched", "step", stepId, `revision ${rev.number}`);
     };
     for (const s of [...(await stepsOf(case1.id)), ...(await stepsOf(case31.id))]) await approve(s.id);
@@ -42,7 +52,16 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     const body2 = `${first.body}\n\nEquivalently, $T$ is not one of $A_n, D_n, E_6, E_7, E_8$ (the connected graphs with $\\rho < 2$).`;
     const claims2 = parseClaimSet(first.claimSet);
     const rev2 = await StepRevision.create(
-      { stepId: step3.id, number: first.number + 1, body: body2, authorId: author, baseRevisionId: first.id, claimSet: claimSetText(claims2), digest: digestOfRevision(first.number + 1, body2, claims2), origin: "text" },
+      {
+        stepId: step3.id,
+        number: first.number + 1,
+        body: body2,
+        authorId: author,
+        baseRevisionId: first.id,
+        claimSet: claimSetText(claims2),
+        digest: digestOfRevision(first.number + 1, body2, claims2),
+        origin: "text",
+      },
       { transaction },
     );
     await event("revision.created", "revision", rev2.id, `step ${step3.id} revision ${rev2.number}`, author);
@@ -50,7 +69,10 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     // One open dispute with a thread.
     const [step2] = await stepsOf(case2.id);
     const rev = await latest(step2.id);
-    const dispute = await Review.create({ stepId: step2.id, revisionId: rev.id, reviewerId: reviewer, verdict: "dispute", disputeState: "raised" }, { transaction });
+    const dispute = await Review.create(
+      { stepId: step2.id, revisionId: rev.id, reviewerId: reviewer, verdict: "dispute", disputeState: "raised" },
+      { transaction },
+    );
     await DisputeTransition.create({ reviewId: dispute.id, actorId: reviewer, fromState: null, toState: "raised" }, { transaction });
     const opening = await Comment.create(
       {
@@ -64,16 +86,33 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
       { transaction },
     );
     await Comment.create(
-      { stepId: step2.id, reviewId: dispute.id, parentId: opening.id, revisionId: rev.id, authorId: author, body: String.raw`Fair point: in that case take the two nearest branch vertices; the path between them with its four pendant neighbours is $\tilde D_n$. I will spell this out.` },
+      {
+        stepId: step2.id,
+        reviewId: dispute.id,
+        parentId: opening.id,
+        revisionId: rev.id,
+        authorId: author,
+        body: String.raw`Fair point: in that case take the two nearest branch vertices; the path between them with its four pendant neighbours is $\tilde D_n$. I will spell this out.`,
+      },
       { transaction },
     );
     await event("review.disputed", "step", step2.id, `revision ${rev.number}; dispute #${dispute.id} opened`);
     for (const key of ["author", "coauthor"])
       await Notification.create(
-        { userId: await idOf(key), proofId: proof.id, stepId: step2.id, kind: "dispute_raised", message: `A reviewer disputed revision ${rev.number} of a step you are an author of.`, link: `/queue/${proof.id}/${step2.id}` },
+        {
+          userId: await idOf(key),
+          proofId: proof.id,
+          stepId: step2.id,
+          kind: "dispute_raised",
+          message: `A reviewer disputed revision ${rev.number} of a step you are an author of.`,
+          link: `/queue/${proof.id}/${step2.id}`,
+        },
         { transaction },
       );
-    await AuditEvent.create({ proofId: proof.id, actorId: null, action: MARK, subjectType: "proof", subjectId: proof.id, detail: "demo reviews seeded" }, { transaction });
+    await AuditEvent.create(
+      { proofId: proof.id, actorId: null, action: MARK, subjectType: "proof", subjectId: proof.id, detail: "demo reviews seeded" },
+      { transaction },
+    );
   });
 }
 

@@ -70,10 +70,21 @@ Dov`,
     await RoundReferee.create({ roundId: round2.id, userId: reviewer, dueAt: new Date(Date.now() + 12 * DAY) }, { transaction });
     await event("round.opened", "round", round2.id, "round 2", editor, ago(2));
     await RefereeReport.create(
-      { roundId: round2.id, refereeId: reviewer, version: 1, body: "Case 3 now states the list of trees with $\\rho(T) < 2$; thank you. Still reading case 2.", recommendation: null, editorNote: "", submittedAt: null },
+      {
+        roundId: round2.id,
+        refereeId: reviewer,
+        version: 1,
+        body: "Case 3 now states the list of trees with $\\rho(T) < 2$; thank you. Still reading case 2.",
+        recommendation: null,
+        editorNote: "",
+        submittedAt: null,
+      },
       { transaction },
     );
-    await AuditEvent.create({ proofId: proof.id, actorId: null, action: MARK, subjectType: "proof", subjectId: proof.id, detail: "demo rounds seeded" }, { transaction });
+    await AuditEvent.create(
+      { proofId: proof.id, actorId: null, action: MARK, subjectType: "proof", subjectId: proof.id, detail: "demo rounds seeded" },
+      { transaction },
+    );
   });
 }
 

@@ -8,7 +8,13 @@ import type { ProofRole } from "@/lib/access/rules";
 
 export const DEMO_PASSWORD = "cairn-demo-2026";
 
-export interface DemoPerson { key: string; name: string; email: string; role: GlobalRole; proofRole?: ProofRole }
+export interface DemoPerson {
+  key: string;
+  name: string;
+  email: string;
+  role: GlobalRole;
+  proofRole?: ProofRole;
+}
 
 export const demoPeople: DemoPerson[] = [
   { key: "author", name: "Ada Quenby", email: "ada.quenby@tarnhollow.example", role: "member", proofRole: "author" },
@@ -19,7 +25,12 @@ export const demoPeople: DemoPerson[] = [
   { key: "outsider", name: "Fen Calloway", email: "fen.calloway@tarnhollow.example", role: "member" },
 ];
 
-export interface DemoCase { title: string; condition: string; steps: string[]; children?: DemoCase[] }
+export interface DemoCase {
+  title: string;
+  condition: string;
+  steps: string[];
+  children?: DemoCase[];
+}
 
 export const demoProof = {
   title: "Trees with spectral radius in (2, √(2+√5)]",
@@ -49,9 +60,7 @@ $$`,
     {
       title: "Exactly one branch vertex",
       condition: String.raw`$T = T(a,b,c)$ with $1 \le a \le b \le c$.`,
-      steps: [
-        String.raw`Since $\rho(T) > 2$, $T$ is not a Dynkin diagram, so $\frac1{a+1} + \frac1{b+1} + \frac1{c+1} \le 1$.`,
-      ],
+      steps: [String.raw`Since $\rho(T) > 2$, $T$ is not a Dynkin diagram, so $\frac1{a+1} + \frac1{b+1} + \frac1{c+1} \le 1$.`],
       children: [
         {
           title: "Legs 1 and 2",

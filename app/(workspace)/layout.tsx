@@ -19,12 +19,26 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
           </Link>
           <SiteMenu>
             <nav className="flex flex-col gap-3 text-sm md:flex-row md:items-center md:gap-5" aria-label="Main">
-              <Link href="/proofs" className="hover:underline">Proofs</Link>
-              <Link href="/queue" className="hover:underline">Review queue</Link>
-              <Link href="/notifications" className="hover:underline" data-testid="nav-notifications">
-                Notifications{unread > 0 && <span className="ml-1 rounded-full bg-lichen-600 px-1.5 font-mono text-xs text-white">{unread}<span className="sr-only"> unread</span></span>}
+              <Link href="/proofs" className="hover:underline">
+                Proofs
               </Link>
-              {user.role === "admin" && <Link href="/admin/mail" className="hover:underline">Captured mail</Link>}
+              <Link href="/queue" className="hover:underline">
+                Review queue
+              </Link>
+              <Link href="/notifications" className="hover:underline" data-testid="nav-notifications">
+                Notifications
+                {unread > 0 && (
+                  <span className="ml-1 rounded-full bg-lichen-600 px-1.5 font-mono text-xs text-white">
+                    {unread}
+                    <span className="sr-only"> unread</span>
+                  </span>
+                )}
+              </Link>
+              {user.role === "admin" && (
+                <Link href="/admin/mail" className="hover:underline">
+                  Captured mail
+                </Link>
+              )}
             </nav>
             <div className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
               <Link href="/account" data-testid="current-user" className="break-words hover:underline" title="Your account">

@@ -28,7 +28,11 @@ export async function stepPageAccess(rawProofId: string, rawStepId: string) {
   const access = await pageAccess(rawProofId);
   const stepId = Number(rawStepId);
   if (!Number.isInteger(stepId) || stepId <= 0) notFound();
-  return orNotFound(requireStepAccess(access.proofId, stepId).catch((e) => Promise.reject(e instanceof AppError && e.status === 403 ? new AppError("not_found", "This step") : e)));
+  return orNotFound(
+    requireStepAccess(access.proofId, stepId).catch((e) =>
+      Promise.reject(e instanceof AppError && e.status === 403 ? new AppError("not_found", "This step") : e),
+    ),
+  );
 }
 
 /** Runs a data-layer read, turning its 404 into the page's not-found. */

@@ -9,7 +9,10 @@ import { FormField, FormProblem } from "@/components/proof/form-field";
 /** Current and new password; on success every session has ended, so it goes to the sign-in page. */
 export function PasswordForm() {
   const router = useRouter();
-  const { register, handleSubmit, setError, formState } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema), defaultValues: { currentPassword: "", newPassword: "" } });
+  const { register, handleSubmit, setError, formState } = useForm<ChangePasswordInput>({
+    resolver: zodResolver(changePasswordSchema),
+    defaultValues: { currentPassword: "", newPassword: "" },
+  });
   const submit = handleSubmit(async (values) => {
     try {
       await apiFetch("/api/account/password", { method: "POST", body: values });

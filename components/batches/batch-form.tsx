@@ -31,7 +31,9 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
         method: "POST",
         body: { fileId: Number(chosen), op, bound },
       });
-      setMessage(`Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`);
+      setMessage(
+        `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
+      );
       await mutate(`/api/proofs/${proofId}/steps/${stepId}/batches`);
     } catch (err) {
       const issues = err instanceof ApiError ? (err.body.issues ?? []) : [];
@@ -49,7 +51,12 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
       </h3>
       <div className="flex flex-wrap items-center gap-2 text-sm">
         <span>Every graph of</span>
-        <select value={chosen} onChange={(e) => setFileId(e.target.value)} aria-label="graph list" className="rounded border border-stone-300 bg-white px-1 py-0.5">
+        <select
+          value={chosen}
+          onChange={(e) => setFileId(e.target.value)}
+          aria-label="graph list"
+          className="rounded border border-stone-300 bg-white px-1 py-0.5"
+        >
           {lists.map((f) => (
             <option key={f.id} value={f.id}>
               {f.name} ({f.graphCount} graphs)
@@ -57,14 +64,24 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
           ))}
         </select>
         <span>has ρ(G)</span>
-        <select value={op} onChange={(e) => setOp(e.target.value as (typeof OPS)[number])} aria-label="relation" className="rounded border border-stone-300 bg-white px-1 py-0.5">
+        <select
+          value={op}
+          onChange={(e) => setOp(e.target.value as (typeof OPS)[number])}
+          aria-label="relation"
+          className="rounded border border-stone-300 bg-white px-1 py-0.5"
+        >
           {OPS.map((o) => (
             <option key={o} value={o}>
               {SHOWN[o]}
             </option>
           ))}
         </select>
-        <input value={bound} onChange={(e) => setBound(e.target.value)} aria-label="bound" className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono" />
+        <input
+          value={bound}
+          onChange={(e) => setBound(e.target.value)}
+          aria-label="bound"
+          className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
+        />
       </div>
       <FormProblem message={problem} />
       <SubmitRow label="Check every graph" busyLabel="Starting…" busy={busy} message={message} />

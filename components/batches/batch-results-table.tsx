@@ -17,7 +17,10 @@ export function BatchResultsTable({ proofId, batch }: { proofId: number; batch: 
   const columns = useMemo(
     () => [
       column.accessor("line", { header: "Line" }),
-      column.accessor("verdict", { header: "Verdict", cell: (c) => <span className={c.getValue() === "verified" ? "" : "text-refuted"}>{MARK[c.getValue()]}</span> }),
+      column.accessor("verdict", {
+        header: "Verdict",
+        cell: (c) => <span className={c.getValue() === "verified" ? "" : "text-refuted"}>{MARK[c.getValue()]}</span>,
+      }),
       column.accessor("graph6", { header: "graph6", cell: (c) => <code className="font-mono text-xs">{c.getValue() ?? "—"}</code> }),
       column.accessor((r) => (r.vertices === null ? "—" : `${r.vertices} / ${r.edges}`), { id: "size", header: "Vertices / edges" }),
       column.accessor("reason", { header: "Why", cell: (c) => <span className="text-xs">{c.getValue()}</span> }),
@@ -37,7 +40,14 @@ export function BatchResultsTable({ proofId, batch }: { proofId: number; batch: 
     [],
   );
   const [sorting, setSorting] = useState<SortingState>([]);
-  const table = useReactTable({ data: data?.results ?? [], columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({
+    data: data?.results ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
   return (
     <div className="mt-3">
       <label className="text-sm">

@@ -26,7 +26,8 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
   };
   const recheck = () => act("POST", "/recheck");
   const withdraw = () => {
-    if (window.confirm("Withdraw this claim? It stays in the history with your name, but no longer counts for the step, the case or an export.")) void act("DELETE", "");
+    if (window.confirm("Withdraw this claim? It stays in the history with your name, but no longer counts for the step, the case or an export."))
+      void act("DELETE", "");
   };
   const first = claim.picture?.pictures[0];
   return (
@@ -41,12 +42,22 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
           </button>
         )}
         {canRecheck && claim.status === "pending" && (
-          <button type="button" onClick={() => void act("POST", "/cancel")} disabled={busy} className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100">
+          <button
+            type="button"
+            onClick={() => void act("POST", "/cancel")}
+            disabled={busy}
+            className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100"
+          >
             ■ Cancel check
           </button>
         )}
         {canWithdraw && (
-          <button type="button" onClick={withdraw} disabled={busy} className={`${canRecheck ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}>
+          <button
+            type="button"
+            onClick={withdraw}
+            disabled={busy}
+            className={`${canRecheck ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}
+          >
             ⨯ Withdraw
           </button>
         )}
@@ -79,7 +90,9 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
                 <summary className="cursor-pointer">
                   {claim.certificate.summary} · <span className="font-mono">{claim.certificate.bytes}</span> bytes
                 </summary>
-                <pre className="mt-1 max-h-48 overflow-auto whitespace-pre-wrap break-all rounded bg-stone-100 p-2 font-mono text-xs">{claim.certificate.preview}</pre>
+                <pre className="mt-1 max-h-48 overflow-auto whitespace-pre-wrap break-all rounded bg-stone-100 p-2 font-mono text-xs">
+                  {claim.certificate.preview}
+                </pre>
               </details>
             ) : (
               "none (no decision to certify)"
@@ -102,19 +115,20 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
       {claim.picture && (
         <details className="mt-3" data-testid="claim-pictures">
           <summary className="cursor-pointer text-sm text-lichen-700">
-            Pictures ({claim.picture.pictures.length} graph{claim.picture.pictures.length === 1 ? "" : "s"}{first?.spectrum ? " and the spectrum" : ""}; drawn in floating point, not part of the verdict)
+            Pictures ({claim.picture.pictures.length} graph{claim.picture.pictures.length === 1 ? "" : "s"}
+            {first?.spectrum ? " and the spectrum" : ""}; drawn in floating point, not part of the verdict)
           </summary>
-        <div className="mt-3 grid grid-cols-[minmax(0,1fr)] gap-3 md:grid-cols-2">
-          {claim.picture.pictures.map((p, i) => (
-            <GraphPicture key={i} picture={p} />
-          ))}
-          {first?.spectrum && (
-            <div className="md:col-span-2">
-              <SpectrumPlot spectrum={first.spectrum} bound={claim.picture.bound} />
-            </div>
-          )}
-          {claim.picture.note && <p className="text-sm text-stone-500">{claim.picture.note}</p>}
-        </div>
+          <div className="mt-3 grid grid-cols-[minmax(0,1fr)] gap-3 md:grid-cols-2">
+            {claim.picture.pictures.map((p, i) => (
+              <GraphPicture key={i} picture={p} />
+            ))}
+            {first?.spectrum && (
+              <div className="md:col-span-2">
+                <SpectrumPlot spectrum={first.spectrum} bound={claim.picture.bound} />
+              </div>
+            )}
+            {claim.picture.note && <p className="text-sm text-stone-500">{claim.picture.note}</p>}
+          </div>
         </details>
       )}
     </li>

@@ -33,7 +33,7 @@ export function ClaimFileForm({ proofId, stepId }: { proofId: number; stepId: nu
       setText("");
       await mutate(`/api/proofs/${proofId}/steps/${stepId}/claims`);
     } catch (e) {
-      const issues = e instanceof ApiError ? e.body.issues ?? [] : [];
+      const issues = e instanceof ApiError ? (e.body.issues ?? []) : [];
       setProblems([(e as Error).message, ...issues.map((i) => describeClaimIssue(i.path, i.message, read.claims))]);
     } finally {
       setBusy(false);
@@ -41,23 +41,42 @@ export function ClaimFileForm({ proofId, stepId }: { proofId: number; stepId: nu
   };
 
   return (
-    <form onSubmit={submit} className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4" aria-labelledby="claim-file-heading" data-testid="claim-file-form">
+    <form
+      onSubmit={submit}
+      className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4"
+      aria-labelledby="claim-file-heading"
+      data-testid="claim-file-form"
+    >
       <h3 id="claim-file-heading" className="font-semibold">
         Attach claims from a file
       </h3>
       <p className="text-sm text-stone-600">
-        One <code>cairn-claim/1</code> claim, an array of claims, or a <code>cairn-claims/1</code> list (up to {MAX_CLAIMS_PER_REQUEST}), as the
-        offline checker reads them. All are attached or none.
+        One <code>cairn-claim/1</code> claim, an array of claims, or a <code>cairn-claims/1</code> list (up to {MAX_CLAIMS_PER_REQUEST}), as the offline checker
+        reads them. All are attached or none.
       </p>
       <FormField label="Claims file">
         <input type="file" accept=".json,application/json" onChange={(e) => void readFile(e.target.files?.[0])} className="text-sm" />
       </FormField>
       <FormField label="or paste it here">
-        <textarea value={text} onChange={(e) => setText(e.target.value)} rows={5} className="w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm" aria-label="claims document" />
+        <textarea
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+          rows={5}
+          className="w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm"
+          aria-label="claims document"
+        />
       </FormField>
       {problems.length > 0 && (
         <div role="alert" className="space-y-1" data-testid="claim-file-problems">
-          {problems.map((p, i) => (i === 0 ? <FormProblem key={i} message={p} /> : <p key={i} className="font-mono text-xs text-refuted">✗ {p}</p>))}
+          {problems.map((p, i) =>
+            i === 0 ? (
+              <FormProblem key={i} message={p} />
+            ) : (
+              <p key={i} className="font-mono text-xs text-refuted">
+                ✗ {p}
+              </p>
+            ),
+          )}
         </div>
       )}
       <SubmitRow label="Attach all" busyLabel="Checking the input…" busy={busy} message={message} />

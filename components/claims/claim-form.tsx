@@ -25,7 +25,11 @@ const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mo
 
 function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
   return (
-    <select {...register(name)} className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs" aria-label={name === "graphFormat" ? "format of G" : "format of H"}>
+    <select
+      {...register(name)}
+      className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs"
+      aria-label={name === "graphFormat" ? "format of G" : "format of H"}
+    >
       {GRAPH_FORMATS.map((f) => (
         <option key={f} value={f}>
           {f}
@@ -39,7 +43,10 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
 export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number }) {
   const { mutate } = useSWRConfig();
   const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setError, setValue, formState } = useForm<ClaimForm>({ resolver: zodResolver(claimFormSchema), defaultValues: emptyClaimForm });
+  const { register, handleSubmit, watch, setError, setValue, formState } = useForm<ClaimForm>({
+    resolver: zodResolver(claimFormSchema),
+    defaultValues: emptyClaimForm,
+  });
   const kind = watch("kind");
   const predicate = watch("predicate");
   const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
@@ -69,7 +76,12 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   });
 
   return (
-    <form onSubmit={submit} className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4" aria-labelledby="claim-form-heading" data-testid="claim-form">
+    <form
+      onSubmit={submit}
+      className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4"
+      aria-labelledby="claim-form-heading"
+      data-testid="claim-form"
+    >
       <h3 id="claim-form-heading" className="font-semibold">
         Attach a claim
       </h3>
@@ -83,7 +95,11 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         </select>
       </FormField>
       {twoGraphs && (
-        <FormField label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"} hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"} error={err("patternText")}>
+        <FormField
+          label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"}
+          hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"}
+          error={err("patternText")}
+        >
           <div className="flex gap-2">
             <FormatSelect name="patternFormat" register={register} />
             <textarea {...register("patternText")} rows={2} className={input} aria-label="pattern H" />
@@ -92,7 +108,11 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       )}
       {enumeration && (
         <>
-          <FormField label="N, the largest number of vertices" hint={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`} error={err("maxVertices")}>
+          <FormField
+            label="N, the largest number of vertices"
+            hint={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`}
+            error={err("maxVertices")}
+          >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
           <FormField label="Which graphs" error={err("enumerationSetting")}>
@@ -101,7 +121,11 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
               <option value="tree">trees</option>
             </select>
           </FormField>
-          <FormField label="The graphs, all of them" hint="connected simple graphs (or trees), separated by a line ---; e.g. A(5) --- D(5)" error={err("patternText")}>
+          <FormField
+            label="The graphs, all of them"
+            hint="connected simple graphs (or trees), separated by a line ---; e.g. A(5) --- D(5)"
+            error={err("patternText")}
+          >
             <div className="flex gap-2">
               <FormatSelect name="patternFormat" register={register} />
               <textarea {...register("patternText")} rows={4} className={input} aria-label="listed graphs" />
@@ -109,12 +133,18 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </FormField>
         </>
       )}
-      {!enumeration && <FormField label={twoGraphs ? "Host G" : "Graph G"} hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6" error={err("graphText")}>
-        <div className="flex gap-2">
-          <FormatSelect name="graphFormat" register={register} />
-          <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
-        </div>
-      </FormField>}
+      {!enumeration && (
+        <FormField
+          label={twoGraphs ? "Host G" : "Graph G"}
+          hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
+          error={err("graphText")}
+        >
+          <div className="flex gap-2">
+            <FormatSelect name="graphFormat" register={register} />
+            <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
+          </div>
+        </FormField>
+      )}
       {(kind === "spectral-radius-bound" || kind === "vector-certificate" || enumeration) && (
         <div className="flex gap-3">
           <FormField label="Relation" error={err("op")}>

@@ -33,8 +33,8 @@ function GraphInput({ g, download }: { g: GraphInputView; download?: string }) {
       )}
       {g.large && (
         <p data-testid="input-summary">
-          Large input ({g.enteredCharacters} characters as entered{g.encodedCharacters ? `, ${g.encodedCharacters} as ${g.encoding}` : ""}): shown as a summary. SHA-256 of the {g.encoding ?? "text"}{" "}
-          <span className="break-all font-mono text-xs">{g.digest}</span>.{" "}
+          Large input ({g.enteredCharacters} characters as entered{g.encodedCharacters ? `, ${g.encodedCharacters} as ${g.encoding}` : ""}): shown as a summary.
+          SHA-256 of the {g.encoding ?? "text"} <span className="break-all font-mono text-xs">{g.digest}</span>.{" "}
           {download ? (
             <a href={download} className="text-lichen-700 underline" download>
               Download the full input

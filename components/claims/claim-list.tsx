@@ -48,8 +48,8 @@ export function ClaimList(props: { proofId: number; stepId: number; initial: Ste
           <ul className="mt-2 space-y-1">
             {withdrawn.map((w) => (
               <li key={w.id} data-testid="withdrawn-claim">
-                <span className="font-mono text-xs">{w.kind}</span> {w.statement ?? "(not checked)"} — was {w.status}; withdrawn by {w.withdrawnByName ?? "a former member"} on{" "}
-                {w.withdrawnAt.slice(0, 16).replace("T", " ")} UTC
+                <span className="font-mono text-xs">{w.kind}</span> {w.statement ?? "(not checked)"} — was {w.status}; withdrawn by{" "}
+                {w.withdrawnByName ?? "a former member"} on {w.withdrawnAt.slice(0, 16).replace("T", " ")} UTC
               </li>
             ))}
           </ul>

@@ -21,7 +21,12 @@ export function ClaimPreview({ graphText, graphFormat, bound, onBaseOne }: { gra
     try {
       const g = parseGraph(graphText, (graphFormat || "auto") as GraphFormat);
       const degrees = Array.from({ length: g.n }, (_, v) => degree(g, v)).sort((a, b) => b - a);
-      return { ok: true as const, summary: describeGraphSummary(summarizeGraph(g, "G")), degrees, picture: g.n <= PREVIEW_DRAWN_VERTICES ? pictureOf(g, "G as read") : null };
+      return {
+        ok: true as const,
+        summary: describeGraphSummary(summarizeGraph(g, "G")),
+        degrees,
+        picture: g.n <= PREVIEW_DRAWN_VERTICES ? pictureOf(g, "G as read") : null,
+      };
     } catch (e) {
       const message = e instanceof Error ? e.message : String(e);
       return { ok: false as const, message, baseOne: /numbered from 1/.test(message) };
@@ -37,11 +42,17 @@ export function ClaimPreview({ graphText, graphFormat, bound, onBaseOne }: { gra
   }, [bound]);
   if (!graph && !normal) return null;
   return (
-    <section aria-label="preview of the input as read" data-testid="claim-preview" className="space-y-2 rounded border border-dashed border-stone-300 p-3 text-sm">
+    <section
+      aria-label="preview of the input as read"
+      data-testid="claim-preview"
+      className="space-y-2 rounded border border-dashed border-stone-300 p-3 text-sm"
+    >
       <h3 className="font-semibold">As the checker will read it</h3>
       {graph?.ok && (
         <>
-          <p data-testid="preview-graph">{graph.summary}; degree sequence <span className="font-mono">({graph.degrees.join(", ")})</span></p>
+          <p data-testid="preview-graph">
+            {graph.summary}; degree sequence <span className="font-mono">({graph.degrees.join(", ")})</span>
+          </p>
           {graph.picture && <GraphPicture picture={graph.picture} />}
         </>
       )}
@@ -56,7 +67,11 @@ export function ClaimPreview({ graphText, graphFormat, bound, onBaseOne }: { gra
         </p>
       )}
       {normal?.ok && <p data-testid="preview-bound">b {normal.sentence}</p>}
-      {normal && !normal.ok && <p role="alert" className="text-rust-700" data-testid="preview-bound-error">{normal.message}</p>}
+      {normal && !normal.ok && (
+        <p role="alert" className="text-rust-700" data-testid="preview-bound-error">
+          {normal.message}
+        </p>
+      )}
       <p className="text-xs text-stone-500">A preview of the input, not a verdict: the checker decides after you attach the claim.</p>
     </section>
   );

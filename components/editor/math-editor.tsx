@@ -34,7 +34,15 @@ const MDEditor = dynamic(
  * `label` names the text area (the editor's toolbar buttons are not form controls to label). The toolbar is
  * math-first (components/editor/math-commands.tsx); `references` lists the cases and steps it may point to.
  */
-export function MathEditor({ value, onChange, label, hint, error, height = 240, references }: {
+export function MathEditor({
+  value,
+  onChange,
+  label,
+  hint,
+  error,
+  height = 240,
+  references,
+}: {
   value: string;
   onChange: (v: string) => void;
   label: string;

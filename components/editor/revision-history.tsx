@@ -19,7 +19,12 @@ export function RevisionHistory({ proofId, stepId, revisions }: { proofId: numbe
   const key = revisions.length > 1 && from !== to ? `/api/proofs/${proofId}/steps/${stepId}/diff?from=${from}&to=${to}` : null;
   const { data, error, isLoading } = useSWR<{ diff: RevisionDiff }>(key, jsonFetcher);
   const select = (value: number, set: (n: number) => void, label: string) => (
-    <select value={value} onChange={(e) => set(Number(e.target.value))} aria-label={label} className="rounded border border-stone-300 bg-white px-1 font-mono text-sm">
+    <select
+      value={value}
+      onChange={(e) => set(Number(e.target.value))}
+      aria-label={label}
+      className="rounded border border-stone-300 bg-white px-1 font-mono text-sm"
+    >
       {revisions.map((r) => (
         <option key={r.id} value={r.number}>
           {r.number}
@@ -68,9 +73,14 @@ function Comparison({ diff }: { diff: RevisionDiff }) {
   return (
     <div className="mt-2 space-y-3" data-testid="revision-compare">
       <p className="text-sm text-stone-700">
-        Text: {words.counts.removed === 0 && words.counts.added === 0 ? "unchanged" : `${words.counts.removed} word${words.counts.removed === 1 ? "" : "s"} removed, ${words.counts.added} added`}.{" "}
+        Text:{" "}
+        {words.counts.removed === 0 && words.counts.added === 0
+          ? "unchanged"
+          : `${words.counts.removed} word${words.counts.removed === 1 ? "" : "s"} removed, ${words.counts.added} added`}
+        .{" "}
         <span className="text-stone-600">
-          Removed words are <del className="word-removed">struck through</del> in revision {diff.from.number}; added words are <ins className="word-added">underlined</ins> in revision {diff.to.number}.
+          Removed words are <del className="word-removed">struck through</del> in revision {diff.from.number}; added words are{" "}
+          <ins className="word-added">underlined</ins> in revision {diff.to.number}.
         </span>
       </p>
       <div className="grid gap-3 md:grid-cols-2">
@@ -78,7 +88,12 @@ function Comparison({ diff }: { diff: RevisionDiff }) {
           { side: diff.from, ranges: words.removed, className: "word-removed", title: `Revision ${diff.from.number}` },
           { side: diff.to, ranges: words.added, className: "word-added", title: `Revision ${diff.to.number}` },
         ].map(({ side, ranges, className, title }) => (
-          <section key={className} aria-label={title} className="min-w-0 rounded border border-stone-200 bg-white p-3" data-testid={className === "word-removed" ? "compare-older" : "compare-newer"}>
+          <section
+            key={className}
+            aria-label={title}
+            className="min-w-0 rounded border border-stone-200 bg-white p-3"
+            data-testid={className === "word-removed" ? "compare-older" : "compare-newer"}
+          >
             <h3 className="mb-1 font-mono text-xs text-stone-600">{title}</h3>
             <MathMarkdown source={side.body} marks={[[remarkMarkRanges, { ranges, className }]]} />
           </section>
@@ -87,7 +102,9 @@ function Comparison({ diff }: { diff: RevisionDiff }) {
       <div className="text-sm" data-testid="compare-claims">
         <p className="font-semibold">Claims</p>
         {claimLines.length === 0 ? (
-          <p className="text-stone-600">The claim set is the same ({claims.kept} claim{claims.kept === 1 ? "" : "s"}).</p>
+          <p className="text-stone-600">
+            The claim set is the same ({claims.kept} claim{claims.kept === 1 ? "" : "s"}).
+          </p>
         ) : (
           <ul className="list-disc pl-5">
             {claimLines.map((line) => (
@@ -105,7 +122,11 @@ function Comparison({ diff }: { diff: RevisionDiff }) {
             const cls = p.added ? "underline" : p.removed ? "line-through" : "text-stone-600";
             return (
               <span key={i} className={`block ${cls}`}>
-                {p.value.replace(/\n$/, "").split("\n").map((line) => `${sign}${line}`).join("\n")}
+                {p.value
+                  .replace(/\n$/, "")
+                  .split("\n")
+                  .map((line) => `${sign}${line}`)
+                  .join("\n")}
               </span>
             );
           })}

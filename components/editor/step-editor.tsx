@@ -30,7 +30,10 @@ export function StepEditor({ proofId, stepId, latest, references }: { proofId: n
     setSaving(true);
     setStatus(null);
     try {
-      const { revision } = await apiFetch<{ revision: Latest }>(`/api/proofs/${proofId}/steps/${stepId}/revisions`, { method: "POST", body: { baseRevisionId: base, body: text } });
+      const { revision } = await apiFetch<{ revision: Latest }>(`/api/proofs/${proofId}/steps/${stepId}/revisions`, {
+        method: "POST",
+        body: { baseRevisionId: base, body: text },
+      });
       setBaseId(revision.id);
       setBaseNumber(revision.number);
       setTheirs(null);
@@ -57,7 +60,12 @@ export function StepEditor({ proofId, stepId, latest, references }: { proofId: n
     <section aria-label="edit this step" className="mt-4" data-testid="step-editor">
       <MathEditor value={text} onChange={setText} height={280} label="Step text" hint="Markdown with $…$ math" references={references} />
       <div className="mt-2 flex flex-wrap items-center gap-3">
-        <button type="button" disabled={saving || text.trim() === ""} onClick={() => save(baseId)} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
+        <button
+          type="button"
+          disabled={saving || text.trim() === ""}
+          onClick={() => save(baseId)}
+          className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60"
+        >
           {saving ? "Saving…" : "Save as new revision"}
         </button>
         <span className="font-mono text-xs text-stone-500">editing from revision {baseNumber}</span>
@@ -69,7 +77,9 @@ export function StepEditor({ proofId, stepId, latest, references }: { proofId: n
       </div>
       {theirs && (
         <div className="mt-4 rounded border border-undecided/50 bg-amber-50 p-4" data-testid="save-conflict">
-          <p className="font-semibold">⚠ Revision {theirs.number} by {theirs.authorName} was saved while you were editing.</p>
+          <p className="font-semibold">
+            ⚠ Revision {theirs.number} by {theirs.authorName} was saved while you were editing.
+          </p>
           <div className="mt-3 grid gap-4 md:grid-cols-2">
             <div>
               <h4 className="text-sm font-semibold">Revision {theirs.number} (saved)</h4>

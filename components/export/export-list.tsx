@@ -22,18 +22,33 @@ export function ExportList({ proofId, exports, pdf = true }: { proofId: number; 
               </span>
             </div>
             <p className="mt-2 text-sm">
-              Manifest digest (SHA-256): <span className="break-all font-mono text-xs" data-testid="manifest-digest">{e.manifestDigest}</span>
+              Manifest digest (SHA-256):{" "}
+              <span className="break-all font-mono text-xs" data-testid="manifest-digest">
+                {e.manifestDigest}
+              </span>
             </p>
             <p className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
-              <a className={link} href={`${base}/archive`} download>Everything for an offline re-check (.zip)</a>
-              <a className={link} href={`${base}/bundle`} download>Bundle (.json)</a>
-              <a className={link} href={`${base}/tex`} download>LaTeX (.tex)</a>
+              <a className={link} href={`${base}/archive`} download>
+                Everything for an offline re-check (.zip)
+              </a>
+              <a className={link} href={`${base}/bundle`} download>
+                Bundle (.json)
+              </a>
+              <a className={link} href={`${base}/tex`} download>
+                LaTeX (.tex)
+              </a>
               {pdf ? (
-                <a className={link} href={`${base}/pdf`}>PDF</a>
+                <a className={link} href={`${base}/pdf`}>
+                  PDF
+                </a>
               ) : (
-                <span className="text-stone-600" data-testid="pdf-unavailable">PDF: not on this server (pdflatex is not installed); compile the .tex or print the print view</span>
+                <span className="text-stone-600" data-testid="pdf-unavailable">
+                  PDF: not on this server (pdflatex is not installed); compile the .tex or print the print view
+                </span>
               )}
-              <Link className={link} href={`/proofs/${proofId}/print/${e.id}`}>Print view</Link>
+              <Link className={link} href={`/proofs/${proofId}/print/${e.id}`}>
+                Print view
+              </Link>
             </p>
           </li>
         );

@@ -2,10 +2,15 @@
 export function OfflineCheckHelp({ proofId }: { proofId: number }) {
   return (
     <section className="space-y-2 rounded border border-stone-200 bg-white p-4 text-sm" aria-labelledby="offline">
-      <h2 id="offline" className="text-lg font-semibold">Re-check a bundle offline</h2>
+      <h2 id="offline" className="text-lg font-semibold">
+        Re-check a bundle offline
+      </h2>
       <p>
-        Download the <a className="text-lichen-700 underline" href={`/api/proofs/${proofId}/exports/checker`} download>self-contained checker (cairn-check.mjs)</a> and
-        a bundle, then on any machine with Node.js 20 or later:
+        Download the{" "}
+        <a className="text-lichen-700 underline" href={`/api/proofs/${proofId}/exports/checker`} download>
+          self-contained checker (cairn-check.mjs)
+        </a>{" "}
+        and a bundle, then on any machine with Node.js 20 or later:
       </p>
       <pre className="overflow-x-auto rounded bg-stone-100 p-2 font-mono text-xs">node cairn-check.mjs cairn-proof-{proofId}-export-N-certified.json</pre>
       <p>

@@ -9,13 +9,21 @@ import { stepLabel } from "@/lib/proof-tree";
 
 const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 const Heading = ({ depth, children }: { depth: number; children: React.ReactNode }) =>
-  depth === 0 ? <h2 className="mt-8 text-2xl font-semibold">{children}</h2> : depth === 1 ? <h3 className="mt-6 text-xl font-semibold">{children}</h3> : <h4 className="mt-5 text-lg font-semibold">{children}</h4>;
+  depth === 0 ? (
+    <h2 className="mt-8 text-2xl font-semibold">{children}</h2>
+  ) : depth === 1 ? (
+    <h3 className="mt-6 text-xl font-semibold">{children}</h3>
+  ) : (
+    <h4 className="mt-5 text-lg font-semibold">{children}</h4>
+  );
 const isVerdict = (s: string): s is ClaimStatus => ["verified", "refuted", "undecided", "pending"].includes(s);
 
 function CaseSection({ c }: { c: DocCase }) {
   return (
     <section data-case={c.number}>
-      <Heading depth={c.depth}>Case {c.number}: {c.title}</Heading>
+      <Heading depth={c.depth}>
+        Case {c.number}: {c.title}
+      </Heading>
       <div className="flex flex-wrap items-baseline gap-2 text-sm">
         <em>Condition.</em>
         <MathMarkdown source={c.condition} />
@@ -40,7 +48,11 @@ function CaseSection({ c }: { c: DocCase }) {
               ))}
             </ul>
           )}
-          {s.openDisputes > 0 && <p className="mt-1 text-sm text-refuted">⚑ {s.openDisputes} open dispute{s.openDisputes > 1 ? "s" : ""} on this step.</p>}
+          {s.openDisputes > 0 && (
+            <p className="mt-1 text-sm text-refuted">
+              ⚑ {s.openDisputes} open dispute{s.openDisputes > 1 ? "s" : ""} on this step.
+            </p>
+          )}
         </article>
       ))}
     </section>
@@ -54,7 +66,10 @@ function ClaimInputsAppendix({ doc }: { doc: ExportDocument }) {
   return (
     <section className="mt-10 break-before-page" data-testid="print-claim-inputs">
       <h2 className="text-2xl font-semibold">Appendix: claim inputs</h2>
-      <p className="text-sm">Each claim with its inputs as entered and as graph6 (sparse6 for loops or multiple edges), and the vector its certificate carries. Large inputs are summarised by order, size, degree sequence and SHA-256; the bundle holds them in full.</p>
+      <p className="text-sm">
+        Each claim with its inputs as entered and as graph6 (sparse6 for loops or multiple edges), and the vector its certificate carries. Large inputs are
+        summarised by order, size, degree sequence and SHA-256; the bundle holds them in full.
+      </p>
       {claims.map(({ where, cl }) => (
         <article key={cl.id} className="mt-4 break-inside-avoid" data-claim-item={cl.id}>
           <h3 className="font-semibold">
@@ -62,7 +77,9 @@ function ClaimInputsAppendix({ doc }: { doc: ExportDocument }) {
           </h3>
           <p className="text-xs text-stone-600">
             Kind <span className="font-mono">{cl.kind}</span>.{" "}
-            {cl.status === "pending" ? "Not checked yet." : `Decided ${cl.status} by ${cl.method || "an unnamed method"}; certificate: ${cl.certificateKind ?? "none (no decision to certify)"}.`}
+            {cl.status === "pending"
+              ? "Not checked yet."
+              : `Decided ${cl.status} by ${cl.method || "an unnamed method"}; certificate: ${cl.certificateKind ?? "none (no decision to certify)"}.`}
           </p>
           <ClaimInputs inputs={cl.inputs} />
         </article>
@@ -112,7 +129,11 @@ function RoundsSection({ rounds }: { rounds: DocRound[] }) {
 /** The exported document laid out for paper: the same content as the LaTeX source, from the same bundle. */
 export function PrintDocument({ doc }: { doc: ExportDocument }) {
   const draft = doc.kind === "draft";
-  const vouches = doc.cases.flatMap((c) => c.steps.flatMap((s) => s.vouches.map((a) => ({ step: stepLabel(c.number, s.position), ...a, stale: s.revision !== null && a.revision !== s.revision.number }))));
+  const vouches = doc.cases.flatMap((c) =>
+    c.steps.flatMap((s) =>
+      s.vouches.map((a) => ({ step: stepLabel(c.number, s.position), ...a, stale: s.revision !== null && a.revision !== s.revision.number })),
+    ),
+  );
   return (
     <article className="print-document mx-auto max-w-prose bg-white p-8 print:p-0" data-testid="print-document">
       {/* Every printed page carries the export's kind in its top margin (CSS page margin boxes). */}
@@ -124,7 +145,8 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
       )}
       <h1 className="text-3xl font-semibold">{doc.title}</h1>
       <p className="mt-2 flex flex-wrap items-center gap-2 text-sm text-stone-700">
-        <ExportKindBadge kind={doc.kind} /> made {when(doc.exportedAt)} by {doc.exportedBy}; proof state at export: {doc.proofState}; checker {doc.checkerVersion}.
+        <ExportKindBadge kind={doc.kind} /> made {when(doc.exportedAt)} by {doc.exportedBy}; proof state at export: {doc.proofState}; checker{" "}
+        {doc.checkerVersion}.
       </p>
       <p className="mt-1 text-xs">
         Manifest digest (SHA-256): <span className="break-all font-mono">{doc.manifestDigest}</span>
@@ -134,24 +156,48 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
       </aside>
       <h2 className="mt-8 text-2xl font-semibold">Statement</h2>
       <MathMarkdown source={doc.statement} />
-      {doc.cases.map((c) => <CaseSection key={c.number} c={c} />)}
+      {doc.cases.map((c) => (
+        <CaseSection key={c.number} c={c} />
+      ))}
       <RoundsSection rounds={doc.rounds ?? []} />
       <ClaimInputsAppendix doc={doc} />
       <section className="mt-10 break-before-page">
         <h2 className="text-2xl font-semibold">Appendix: reviewers and vouches</h2>
         <p className="text-sm">
-          Members: {doc.members.map((m) => `${m.name} (${m.role})`).join(", ")}. Each step needs {doc.requiredApprovals} approval{doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.
+          Members: {doc.members.map((m) => `${m.name} (${m.role})`).join(", ")}. Each step needs {doc.requiredApprovals} approval
+          {doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.
         </p>
         <TableScroll label="Approvals">
-        <table className="mt-3 w-full text-left text-sm">
-          <thead><tr><th>Step</th><th>Reviewer</th><th>Vouched for revision</th><th>Date</th></tr></thead>
-          <tbody>
-            {vouches.length === 0 && <tr><td colSpan={4}><em>No vouches recorded.</em></td></tr>}
-            {vouches.map((a) => (
-              <tr key={`${a.step}-${a.reviewer}-${a.revision}`}><td className="font-mono">{a.step}</td><td>{a.reviewer}</td><td>{a.revision}{a.stale ? " (superseded)" : ""}</td><td>{when(a.at)}</td></tr>
-            ))}
-          </tbody>
-        </table>
+          <table className="mt-3 w-full text-left text-sm">
+            <thead>
+              <tr>
+                <th>Step</th>
+                <th>Reviewer</th>
+                <th>Vouched for revision</th>
+                <th>Date</th>
+              </tr>
+            </thead>
+            <tbody>
+              {vouches.length === 0 && (
+                <tr>
+                  <td colSpan={4}>
+                    <em>No vouches recorded.</em>
+                  </td>
+                </tr>
+              )}
+              {vouches.map((a) => (
+                <tr key={`${a.step}-${a.reviewer}-${a.revision}`}>
+                  <td className="font-mono">{a.step}</td>
+                  <td>{a.reviewer}</td>
+                  <td>
+                    {a.revision}
+                    {a.stale ? " (superseded)" : ""}
+                  </td>
+                  <td>{when(a.at)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </TableScroll>
       </section>
     </article>

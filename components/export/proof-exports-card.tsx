@@ -19,7 +19,9 @@ export function ProofExportsCard({ proofId, exports, limit = 3 }: { proofId: num
               <span className="flex items-center gap-2">
                 #{e.id} <ExportKindBadge kind={e.kind} /> <span className="text-xs text-stone-600">{e.createdAt.slice(0, 10)}</span>
               </span>
-              <span className="block break-all font-mono text-xs text-stone-600" title="manifest digest (SHA-256)">{e.manifestDigest}</span>
+              <span className="block break-all font-mono text-xs text-stone-600" title="manifest digest (SHA-256)">
+                {e.manifestDigest}
+              </span>
             </li>
           ))}
         </ul>

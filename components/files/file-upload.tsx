@@ -30,10 +30,14 @@ export function FileUpload({ proofId, stepId }: { proofId: number; stepId: numbe
     setProgress({ name: file.name, sent: 0, total: file.size });
     const query = new URLSearchParams({ name: file.name, ...(kind ? { kind } : {}) });
     try {
-      const answer = await uploadWithProgress(`/api/proofs/${proofId}/steps/${stepId}/files?${query}`, file, (sent, total) => setProgress({ name: file.name, sent, total }));
+      const answer = await uploadWithProgress(`/api/proofs/${proofId}/steps/${stepId}/files?${query}`, file, (sent, total) =>
+        setProgress({ name: file.name, sent, total }),
+      );
       if (answer.status === 200 || answer.status === 201) {
         const f = answer.body!.file!;
-        setMessage(answer.body!.duplicate ? `This step already has these bytes, as “${f.name}”: nothing new was stored.` : `Uploaded “${f.name}”: ${f.description}.`);
+        setMessage(
+          answer.body!.duplicate ? `This step already has these bytes, as “${f.name}”: nothing new was stored.` : `Uploaded “${f.name}”: ${f.description}.`,
+        );
         await mutate(`/api/proofs/${proofId}/steps/${stepId}/files`);
       } else {
         setProblem(answer.body?.error?.message ?? `The server answered ${answer.status}; nothing was saved.`);

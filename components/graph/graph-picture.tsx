@@ -19,10 +19,12 @@ export function GraphPicture({ picture }: { picture: Picture }) {
   const pad = 40;
   const [x0, x1] = [Math.min(...picture.x) - pad, Math.max(...picture.x) + pad];
   const [y0, y1] = [Math.min(...picture.y) - pad, Math.max(...picture.y) + pad];
-  const w = Math.max(x1 - x0, 240), h = Math.max(y1 - y0, 160);
+  const w = Math.max(x1 - x0, 240),
+    h = Math.max(y1 - y0, 160);
   const viewBox = picture.n === 0 ? "0 0 1000 700" : `${(x0 + x1 - w) / 2} ${(y0 + y1 - h) / 2} ${w} ${h}`;
   const words = picture.summary ?? `${picture.n} vertices, ${picture.edges.filter(([u, v]) => u !== v).length} edges`;
-  const titleId = useId(), descId = useId();
+  const titleId = useId(),
+    descId = useId();
   return (
     <figure className="rounded border border-stone-200 bg-white p-2" data-testid="graph-picture">
       <figcaption className="flex flex-wrap items-center justify-between gap-2 px-1 text-sm">
@@ -46,13 +48,19 @@ export function GraphPicture({ picture }: { picture: Picture }) {
         </desc>
         {picture.edges.map(([u, v, m], i) => {
           const on = litEdge.has(`${Math.min(u, v)}-${Math.max(u, v)}`);
-          if (u === v)
-            return <circle key={i} cx={picture.x[u]} cy={picture.y[u] - r - 6} r={8} fill="none" stroke="#7d766a" strokeWidth={2} />;
+          if (u === v) return <circle key={i} cx={picture.x[u]} cy={picture.y[u] - r - 6} r={8} fill="none" stroke="#7d766a" strokeWidth={2} />;
           return (
             <g key={i}>
               <line x1={picture.x[u]} y1={picture.y[u]} x2={picture.x[v]} y2={picture.y[v]} stroke={on ? "#1d5044" : "#a29b8c"} strokeWidth={on ? 6 : 2} />
               {m > 1 && (
-                <text x={(picture.x[u] + picture.x[v]) / 2} y={(picture.y[u] + picture.y[v]) / 2 - 6} fontSize={16} textAnchor="middle" className="font-mono" fill="#48433c">
+                <text
+                  x={(picture.x[u] + picture.x[v]) / 2}
+                  y={(picture.y[u] + picture.y[v]) / 2 - 6}
+                  fontSize={16}
+                  textAnchor="middle"
+                  className="font-mono"
+                  fill="#48433c"
+                >
                   ×{m}
                 </text>
               )}
@@ -61,7 +69,14 @@ export function GraphPicture({ picture }: { picture: Picture }) {
         })}
         {picture.x.map((x, v) => (
           <g key={v} data-highlighted={lit.has(v) ? "true" : undefined}>
-            <circle cx={x} cy={picture.y[v]} r={r} fill={lit.has(v) ? "#2f7d6b" : "#ffffff"} stroke={lit.has(v) ? "#1d5044" : "#5f594f"} strokeWidth={lit.has(v) ? 3 : 2} />
+            <circle
+              cx={x}
+              cy={picture.y[v]}
+              r={r}
+              fill={lit.has(v) ? "#2f7d6b" : "#ffffff"}
+              stroke={lit.has(v) ? "#1d5044" : "#5f594f"}
+              strokeWidth={lit.has(v) ? 3 : 2}
+            />
             {!big && (
               <text x={x} y={picture.y[v] + 5} fontSize={13} textAnchor="middle" className="font-mono" fill={lit.has(v) ? "#ffffff" : "#322f2a"}>
                 {picture.labels[v]}

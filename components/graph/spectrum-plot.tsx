@@ -6,7 +6,9 @@ export function SpectrumPlot({ spectrum, bound }: { spectrum: number[]; bound: {
   if (spectrum.length === 0) return null;
   const lo = Math.min(spectrum[0], bound?.approx ?? Infinity) - 0.5;
   const hi = Math.max(spectrum[spectrum.length - 1], bound?.approx ?? -Infinity) + 0.5;
-  const W = 1000, H = 120, pad = 40;
+  const W = 1000,
+    H = 120,
+    pad = 40;
   const at = (v: number) => pad + ((v - lo) / (hi - lo)) * (W - 2 * pad);
   const rho = spectrum[spectrum.length - 1];
   const stack = new Map<string, number>();

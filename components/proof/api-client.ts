@@ -6,7 +6,11 @@ export interface ApiIssue {
 }
 
 export class ApiError extends Error {
-  constructor(readonly status: number, message: string, readonly body: { code?: string; issues?: ApiIssue[]; [key: string]: unknown }) {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly body: { code?: string; issues?: ApiIssue[]; [key: string]: unknown },
+  ) {
     super(message);
     this.name = "ApiError";
   }
@@ -27,7 +31,7 @@ export async function apiFetch<T>(url: string, init?: { method?: string; body?: 
 }
 
 /** For SWR: `useSWR(url, jsonFetcher)`. */
-export const jsonFetcher = <T,>(url: string) => apiFetch<T>(url);
+export const jsonFetcher = <T>(url: string) => apiFetch<T>(url);
 
 /** The outcome of a call as forms display it: never throws; a network failure is status 0 with a message. */
 export interface Sent<T> {

@@ -10,8 +10,22 @@ import { useMoveTargets } from "./case-targets";
 type Pending = { what: "delete" } | { what: "move"; parentId: number | null };
 
 /** An author's controls on one case: sub-case, step, reorder, move under another case, delete (confirmed when it holds work). */
-export function CaseActions({ proofId, caseId, number, first, last, title, condition }: {
-  proofId: number; caseId: number; number: string; first: boolean; last: boolean; title: string; condition: string;
+export function CaseActions({
+  proofId,
+  caseId,
+  number,
+  first,
+  last,
+  title,
+  condition,
+}: {
+  proofId: number;
+  caseId: number;
+  number: string;
+  first: boolean;
+  last: boolean;
+  title: string;
+  condition: string;
 }) {
   const router = useRouter();
   const [open, setOpen] = useState<"case" | "step" | "edit" | null>(null);
@@ -65,11 +79,12 @@ export function CaseActions({ proofId, caseId, number, first, last, title, condi
         >
           <option value="">move under…</option>
           <option value="top">top level</option>
-          {menuOpened && targets.map((t) => (
-            <option key={t.id} value={t.id}>
-              → {t.number}
-            </option>
-          ))}
+          {menuOpened &&
+            targets.map((t) => (
+              <option key={t.id} value={t.id}>
+                → {t.number}
+              </option>
+            ))}
         </select>
         <button type="button" className={`${button} text-refuted`} onClick={() => run({ what: "delete" })}>
           ✗ Delete

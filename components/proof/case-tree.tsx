@@ -49,9 +49,19 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                       Step {stepLabel(c.number, j + 1)}
                     </Link>
                     {options.editable && c.steps.length > 1 && (
-                      <StepMoveButtons proofId={options.proofId} stepId={s.id} label={stepLabel(c.number, j + 1)} first={j === 0} last={j === c.steps.length - 1} />
+                      <StepMoveButtons
+                        proofId={options.proofId}
+                        stepId={s.id}
+                        label={stepLabel(c.number, j + 1)}
+                        first={j === 0}
+                        last={j === c.steps.length - 1}
+                      />
                     )}
-                    {s.revision && <span>revision {s.revision.number} by {s.revision.authorName}</span>}
+                    {s.revision && (
+                      <span>
+                        revision {s.revision.number} by {s.revision.authorName}
+                      </span>
+                    )}
                     {s.claims.map((st, k) => (
                       <VerdictBadge key={k} status={st} />
                     ))}

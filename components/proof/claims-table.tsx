@@ -3,8 +3,13 @@ import { useMemo, useState } from "react";
 import { SortableTable } from "@/components/ui/sortable-table";
 import Link from "next/link";
 import {
-  createColumnHelper, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
-  type ColumnFiltersState, type SortingState,
+  createColumnHelper,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnFiltersState,
+  type SortingState,
 } from "@tanstack/react-table";
 import type { ClaimRowView } from "@/lib/data/claims";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
@@ -36,7 +41,9 @@ export function ClaimsTable({ proofId, claims }: { proofId: number; claims: Clai
       col.accessor((r) => r.inputs.short, {
         id: "inputs",
         header: "Inputs",
-        cell: (c) => <ClaimInputsShort inputs={c.row.original.inputs} download={c.row.original.inputs.large ? claimInputHref(proofId, c.row.original.id) : undefined} />,
+        cell: (c) => (
+          <ClaimInputsShort inputs={c.row.original.inputs} download={c.row.original.inputs.large ? claimInputHref(proofId, c.row.original.id) : undefined} />
+        ),
       }),
       col.accessor("method", {
         header: "Method",

@@ -10,7 +10,8 @@ export function DeletedCases({ proofId, cases, editable }: { proofId: number; ca
       <ul className="mt-2 space-y-1 pl-4">
         {cases.map((c) => (
           <li key={c.id} data-testid="deleted-case">
-            <span className="line-through">{c.title}</span> · deleted {c.deletedAt.slice(0, 16).replace("T", " ")} UTC · {c.steps} step{c.steps === 1 ? "" : "s"} kept
+            <span className="line-through">{c.title}</span> · deleted {c.deletedAt.slice(0, 16).replace("T", " ")} UTC · {c.steps} step
+            {c.steps === 1 ? "" : "s"} kept
             {editable && <RestoreCaseButton proofId={proofId} caseId={c.id} />}
           </li>
         ))}

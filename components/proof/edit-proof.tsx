@@ -12,7 +12,10 @@ import { MathEditor } from "@/components/editor/math-editor";
 export function EditProof({ proofId, initial }: { proofId: number; initial: CreateProofInput }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: initial });
+  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({
+    resolver: zodResolver(createProofSchema),
+    defaultValues: initial,
+  });
   const submit = handleSubmit(async (values) => {
     try {
       await apiFetch(`/api/proofs/${proofId}`, { method: "PATCH", body: values });
@@ -34,11 +37,20 @@ export function EditProof({ proofId, initial }: { proofId: number; initial: Crea
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={field} />
       </FormField>
-        <Controller
-          control={control}
-          name="statement"
-          render={({ field: f }) => <MathEditor value={f.value} onChange={f.onChange} label="Statement" hint="Markdown with $…$ math" error={formState.errors.statement?.message} height={220} />}
-        />
+      <Controller
+        control={control}
+        name="statement"
+        render={({ field: f }) => (
+          <MathEditor
+            value={f.value}
+            onChange={f.onChange}
+            label="Statement"
+            hint="Markdown with $…$ math"
+            error={formState.errors.statement?.message}
+            height={220}
+          />
+        )}
+      />
       <FormProblem message={formState.errors.root?.message} />
       <div className="flex gap-2">
         <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">

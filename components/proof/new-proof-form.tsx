@@ -10,7 +10,10 @@ import { MathEditor } from "@/components/editor/math-editor";
 /** Title and statement (Markdown with math, in the editor steps use, previewed as typed); creates the proof and opens it. */
 export function NewProofForm() {
   const router = useRouter();
-  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({ resolver: zodResolver(createProofSchema), defaultValues: { title: "", statement: "" } });
+  const { register, control, handleSubmit, setError, formState } = useForm<CreateProofInput>({
+    resolver: zodResolver(createProofSchema),
+    defaultValues: { title: "", statement: "" },
+  });
   const submit = handleSubmit(async (values) => {
     try {
       const { proof } = await apiFetch<{ proof: { id: number } }>("/api/proofs", { method: "POST", body: values });
@@ -26,11 +29,20 @@ export function NewProofForm() {
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={field} />
       </FormField>
-        <Controller
-          control={control}
-          name="statement"
-          render={({ field: f }) => <MathEditor value={f.value} onChange={f.onChange} label="Statement" hint="Markdown with $…$ and $$…$$ math" error={formState.errors.statement?.message} height={240} />}
-        />
+      <Controller
+        control={control}
+        name="statement"
+        render={({ field: f }) => (
+          <MathEditor
+            value={f.value}
+            onChange={f.onChange}
+            label="Statement"
+            hint="Markdown with $…$ and $$…$$ math"
+            error={formState.errors.statement?.message}
+            height={240}
+          />
+        )}
+      />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-4 py-1.5 text-white hover:bg-lichen-800 disabled:opacity-60">
         {formState.isSubmitting ? "Creating…" : "Create proof"}

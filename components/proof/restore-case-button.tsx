@@ -22,7 +22,12 @@ export function RestoreCaseButton({ proofId, caseId }: { proofId: number; caseId
   };
   return (
     <>
-      <button type="button" onClick={restore} disabled={busy} className="ml-2 rounded border border-stone-300 px-2 py-0.5 text-xs hover:bg-stone-100 disabled:opacity-40">
+      <button
+        type="button"
+        onClick={restore}
+        disabled={busy}
+        className="ml-2 rounded border border-stone-300 px-2 py-0.5 text-xs hover:bg-stone-100 disabled:opacity-40"
+      >
         ↺ Restore
       </button>
       {error && (

@@ -41,11 +41,22 @@ export function AcceptInvitation({ token, email, signedIn, roleWord = "reviewer"
         <>
           <label className="block">
             <span className="text-sm font-semibold">Your name</span>
-            <input value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" />
+            <input
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+              autoComplete="name"
+              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2"
+            />
           </label>
           <label className="block">
             <span className="text-sm font-semibold">Choose a password (at least 10 characters)</span>
-            <input type="password" value={password} onChange={(e) => setPassword(e.target.value)} autoComplete="new-password" className="mt-1 block w-full rounded border border-stone-300 px-3 py-2 font-mono" />
+            <input
+              type="password"
+              value={password}
+              onChange={(e) => setPassword(e.target.value)}
+              autoComplete="new-password"
+              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2 font-mono"
+            />
           </label>
         </>
       )}

@@ -4,7 +4,21 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { send } from "@/components/proof/api-client";
 
-export function ActionButton({ url, method = "POST", label, doneText, body, confirmText }: { url: string; method?: string; label: string; doneText?: string; body?: unknown; confirmText?: string }) {
+export function ActionButton({
+  url,
+  method = "POST",
+  label,
+  doneText,
+  body,
+  confirmText,
+}: {
+  url: string;
+  method?: string;
+  label: string;
+  doneText?: string;
+  body?: unknown;
+  confirmText?: string;
+}) {
   const router = useRouter();
   const [state, setState] = useState<{ busy: boolean; error: string | null; done: boolean }>({ busy: false, error: null, done: false });
   return (

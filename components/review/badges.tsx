@@ -19,9 +19,7 @@ export function DisputeStateBadge({ state }: { state: DisputeState }) {
 
 export function ProofStateBadge({ state }: { state: ProofState }) {
   const ready = state === "ready to certify";
-  return (
-    <Badge glyph={ready ? "●" : "…"} word={state} className={ready ? "text-verified" : "text-stone-500"} data={{ "data-proof-state": state }} />
-  );
+  return <Badge glyph={ready ? "●" : "…"} word={state} className={ready ? "text-verified" : "text-stone-500"} data={{ "data-proof-state": state }} />;
 }
 
 /** A vouch, covering the latest revision or superseded by a newer one. */

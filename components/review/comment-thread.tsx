@@ -37,7 +37,11 @@ export function CommentBox({ label, onSubmit, testId }: { label: string; onSubmi
           {error}
         </p>
       )}
-      <button type="submit" disabled={busy || !body.trim()} className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50 disabled:opacity-50">
+      <button
+        type="submit"
+        disabled={busy || !body.trim()}
+        className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50 disabled:opacity-50"
+      >
         {busy ? "Posting…" : "Post"}
       </button>
     </form>

@@ -31,7 +31,12 @@ export function DisputeCard({ dispute, proofId, commentsUrl, onChange }: { dispu
   };
 
   return (
-    <article id={`dispute-${dispute.id}`} className="scroll-mt-4 rounded border border-stone-300 bg-stone-50 p-3" data-testid="dispute" data-dispute-id={dispute.id}>
+    <article
+      id={`dispute-${dispute.id}`}
+      className="scroll-mt-4 rounded border border-stone-300 bg-stone-50 p-3"
+      data-testid="dispute"
+      data-dispute-id={dispute.id}
+    >
       <header className="flex flex-wrap items-center gap-2">
         <DisputeStateBadge state={dispute.state} />
         <span className="text-sm">
@@ -61,11 +66,22 @@ export function DisputeCard({ dispute, proofId, commentsUrl, onChange }: { dispu
         <div className="mt-3 space-y-2 border-t border-stone-200 pt-3">
           <label className="block text-xs font-semibold text-stone-600">
             Note with the change (optional)
-            <textarea value={note} onChange={(e) => setNote(e.target.value)} rows={2} className="mt-1 block w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm" />
+            <textarea
+              value={note}
+              onChange={(e) => setNote(e.target.value)}
+              rows={2}
+              className="mt-1 block w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm"
+            />
           </label>
           <div className="flex flex-wrap gap-2">
             {moves.map((m) => (
-              <button key={m.to} type="button" disabled={busy} onClick={() => moveTo(m.to)} className="rounded bg-lichen-600 px-3 py-1 text-sm font-semibold text-white hover:bg-lichen-700 disabled:opacity-60">
+              <button
+                key={m.to}
+                type="button"
+                disabled={busy}
+                onClick={() => moveTo(m.to)}
+                className="rounded bg-lichen-600 px-3 py-1 text-sm font-semibold text-white hover:bg-lichen-700 disabled:opacity-60"
+              >
                 {m.label}
               </button>
             ))}

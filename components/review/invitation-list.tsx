@@ -4,7 +4,11 @@ import { ActionButton } from "./action-button";
 import { TableScroll } from "@/components/ui/table-scroll";
 
 const mailText = (m: InvitationView["mail"]) =>
-  m.status === "sent" ? "✓ mail sent" : m.status === "failed" ? `✗ mail failed after ${m.attempts} attempts` : `… not sent yet (${m.attempts} attempt${m.attempts === 1 ? "" : "s"}; retrying)`;
+  m.status === "sent"
+    ? "✓ mail sent"
+    : m.status === "failed"
+      ? `✗ mail failed after ${m.attempts} attempts`
+      : `… not sent yet (${m.attempts} attempt${m.attempts === 1 ? "" : "s"}; retrying)`;
 
 const STATE_TEXT: Record<InvitationView["state"], string> = { accepted: "✓ accepted", expired: "⌛ expired", waiting: "○ waiting", revoked: "⊘ revoked" };
 
@@ -12,32 +16,34 @@ export function InvitationList({ proofId, invitations }: { proofId: number; invi
   if (invitations.length === 0) return <p className="text-sm italic text-stone-500">No invitations yet.</p>;
   return (
     <TableScroll label="Invitations">
-    <table className="w-full text-sm" data-testid="invitations">
-      <thead>
-        <tr className="border-b border-stone-300 text-left">
-          <th className="px-2 py-1">E-mail</th>
-          <th className="px-2 py-1">Scope</th>
-          <th className="px-2 py-1">Invitation</th>
-          <th className="px-2 py-1">Mail</th>
-        </tr>
-      </thead>
-      <tbody>
-        {invitations.map((i) => (
-          <tr key={i.id} className="border-b border-stone-100" data-testid="invitation" data-mail-status={i.mail.status}>
-            <td className="px-2 py-1 font-mono">{i.email}</td>
-            <td className="px-2 py-1">{i.scope}</td>
-            <td className="px-2 py-1">
-              {STATE_TEXT[i.state]}{" "}
-              {i.state === "waiting" && <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} method="DELETE" label="Revoke" />}
-            </td>
-            <td className="px-2 py-1">
-              <span title={i.mail.lastError ?? undefined}>{mailText(i.mail)}</span>{" "}
-              {i.mail.status !== "sent" && i.mail.id !== null && i.state !== "revoked" && <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} label="Try again now" />}
-            </td>
+      <table className="w-full text-sm" data-testid="invitations">
+        <thead>
+          <tr className="border-b border-stone-300 text-left">
+            <th className="px-2 py-1">E-mail</th>
+            <th className="px-2 py-1">Scope</th>
+            <th className="px-2 py-1">Invitation</th>
+            <th className="px-2 py-1">Mail</th>
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {invitations.map((i) => (
+            <tr key={i.id} className="border-b border-stone-100" data-testid="invitation" data-mail-status={i.mail.status}>
+              <td className="px-2 py-1 font-mono">{i.email}</td>
+              <td className="px-2 py-1">{i.scope}</td>
+              <td className="px-2 py-1">
+                {STATE_TEXT[i.state]}{" "}
+                {i.state === "waiting" && <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} method="DELETE" label="Revoke" />}
+              </td>
+              <td className="px-2 py-1">
+                <span title={i.mail.lastError ?? undefined}>{mailText(i.mail)}</span>{" "}
+                {i.mail.status !== "sent" && i.mail.id !== null && i.state !== "revoked" && (
+                  <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} label="Try again now" />
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
     </TableScroll>
   );
 }

@@ -29,7 +29,10 @@ export function InviteForm({ proofId, cases, roles }: { proofId: number; cases: 
     if (!res.ok) return setResult({ ok: false, text: res.error ?? "Not sent." });
     setResult({
       ok: true,
-      text: res.data?.mailStatus === "sent" ? `Invitation sent to ${values.email}.` : `Invitation stored for ${values.email}; the mail has not gone out yet and will be retried.`,
+      text:
+        res.data?.mailStatus === "sent"
+          ? `Invitation sent to ${values.email}.`
+          : `Invitation stored for ${values.email}; the mail has not gone out yet and will be retried.`,
     });
     reset();
     router.refresh();
@@ -55,27 +58,31 @@ export function InviteForm({ proofId, cases, roles }: { proofId: number; cases: 
         </label>
       )}
       {role === "reviewer" && (
-      <fieldset className="space-y-1 text-sm">
-        <legend className="font-semibold">Asked to review</legend>
-        <label className="mr-4">
-          <input type="radio" value="proof" {...register("scope")} /> the whole proof
-        </label>
-        <label>
-          <input type="radio" value="cases" {...register("scope")} /> chosen cases
-        </label>
-        {scope === "cases" && (
-          <div className="mt-1 max-h-48 overflow-y-auto rounded border border-stone-200 p-2">
-            {cases.map((c) => (
-              <label key={c.id} className="block">
-                <input type="checkbox" value={c.id} {...register("caseIds")} /> <span className="font-mono">Case {c.number}</span> {c.title}
-              </label>
-            ))}
-          </div>
-        )}
-        {formState.errors.caseIds && <span className="block text-refuted">{formState.errors.caseIds.message}</span>}
-      </fieldset>
+        <fieldset className="space-y-1 text-sm">
+          <legend className="font-semibold">Asked to review</legend>
+          <label className="mr-4">
+            <input type="radio" value="proof" {...register("scope")} /> the whole proof
+          </label>
+          <label>
+            <input type="radio" value="cases" {...register("scope")} /> chosen cases
+          </label>
+          {scope === "cases" && (
+            <div className="mt-1 max-h-48 overflow-y-auto rounded border border-stone-200 p-2">
+              {cases.map((c) => (
+                <label key={c.id} className="block">
+                  <input type="checkbox" value={c.id} {...register("caseIds")} /> <span className="font-mono">Case {c.number}</span> {c.title}
+                </label>
+              ))}
+            </div>
+          )}
+          {formState.errors.caseIds && <span className="block text-refuted">{formState.errors.caseIds.message}</span>}
+        </fieldset>
       )}
-      <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-600 px-4 py-1.5 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60">
+      <button
+        type="submit"
+        disabled={formState.isSubmitting}
+        className="rounded bg-lichen-600 px-4 py-1.5 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60"
+      >
         {formState.isSubmitting ? "Sending…" : "Send invitation"}
       </button>
       {result && (

@@ -33,14 +33,22 @@ export function MemberList({ proofId, members }: { proofId: number; members: Mem
             {m.scope && <span className="text-stone-600">{m.scope}</span>}
             {m.mayShare && <ActionButton url={`/api/proofs/${proofId}/settings/scopes/${m.userId}`} method="DELETE" label="Share the whole proof" />}
             {m.mayMakeOwner && (
-              <ActionButton url={`/api/proofs/${proofId}/owner`} method="PUT" body={{ userId: m.userId }} label="Make owner" confirmText={`Hand the ownership of this proof to ${m.name}? You keep your role.`} />
+              <ActionButton
+                url={`/api/proofs/${proofId}/owner`}
+                method="PUT"
+                body={{ userId: m.userId }}
+                label="Make owner"
+                confirmText={`Hand the ownership of this proof to ${m.name}? You keep your role.`}
+              />
             )}
             {m.mayRemove && (
               <ActionButton
                 url={`/api/proofs/${proofId}/members/${m.userId}`}
                 method="DELETE"
                 label={m.self ? "Leave the proof" : "Remove"}
-                confirmText={m.self ? "Leave this proof? What you wrote stays in the record." : `Remove ${m.name}? Their vouches, disputes and reports stay in the record.`}
+                confirmText={
+                  m.self ? "Leave this proof? What you wrote stays in the record." : `Remove ${m.name}? Their vouches, disputes and reports stay in the record.`
+                }
               />
             )}
             <RoleTag role={m.role} />

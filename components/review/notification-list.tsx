@@ -27,7 +27,9 @@ export function NotificationList({ notifications }: { notifications: Notificatio
       <ul className="divide-y divide-stone-100 rounded border border-stone-200 bg-white" data-testid="notifications">
         {notifications.map((n) => (
           <li key={n.id} className="flex items-start gap-3 px-3 py-2" data-testid="notification" data-kind={n.kind} data-read={n.read}>
-            <span aria-label={n.read ? "read" : "unread"} className="font-mono">{n.read ? "○" : "●"}</span>
+            <span aria-label={n.read ? "read" : "unread"} className="font-mono">
+              {n.read ? "○" : "●"}
+            </span>
             <div>
               <p className={n.read ? "text-stone-600" : "font-semibold"}>{n.message}</p>
               <p className="font-mono text-xs text-stone-500">
@@ -70,7 +72,11 @@ export function EmailPreferences({ preferences, labels }: { preferences: Record<
           {labels[kind]}
         </label>
       ))}
-      {error && <p role="alert" className="text-sm text-refuted">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-refuted">
+          {error}
+        </p>
+      )}
     </fieldset>
   );
 }

@@ -3,14 +3,7 @@
 import { useMemo, useState } from "react";
 import { SortableTable } from "@/components/ui/sortable-table";
 import Link from "next/link";
-import {
-  getCoreRowModel,
-  getFilteredRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type SortingState,
-} from "@tanstack/react-table";
+import { getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
 import type { QueueDisputeRow, QueueStepRow, ReviewerProgress } from "@/lib/data/review-queues";
 import { DisputeStateBadge } from "./badges";
 
@@ -35,7 +28,12 @@ const columns: Record<Kind, ColumnDef<Row>[]> = {
       id: "reason",
       header: "Why",
       accessorFn: (r) => (r as QueueStepRow).reason,
-      cell: (c) => (c.getValue() === "vouch superseded" ? <span className="[font-variant-caps:all-small-caps] text-undecided">◌ vouch superseded</span> : <span className="[font-variant-caps:all-small-caps]">○ not read yet</span>),
+      cell: (c) =>
+        c.getValue() === "vouch superseded" ? (
+          <span className="[font-variant-caps:all-small-caps] text-undecided">◌ vouch superseded</span>
+        ) : (
+          <span className="[font-variant-caps:all-small-caps]">○ not read yet</span>
+        ),
       filterFn: "equalsString",
     },
     { id: "since", header: "Since", accessorFn: (r) => (r as QueueStepRow).since, cell: (c) => day(String(c.getValue())) },
@@ -43,7 +41,13 @@ const columns: Record<Kind, ColumnDef<Row>[]> = {
   disputes: [
     { id: "step", header: "Step", accessorFn: (r) => (r as QueueDisputeRow).stepLabel, cell: (c) => stepLink(c.row.original as QueueDisputeRow) },
     { id: "proof", header: "Proof", accessorFn: (r) => (r as QueueDisputeRow).proofTitle },
-    { id: "state", header: "State", accessorFn: (r) => (r as QueueDisputeRow).state, cell: (c) => <DisputeStateBadge state={(c.row.original as QueueDisputeRow).state} />, filterFn: "equalsString" },
+    {
+      id: "state",
+      header: "State",
+      accessorFn: (r) => (r as QueueDisputeRow).state,
+      cell: (c) => <DisputeStateBadge state={(c.row.original as QueueDisputeRow).state} />,
+      filterFn: "equalsString",
+    },
     { id: "reviewer", header: "Reviewer", accessorFn: (r) => (r as QueueDisputeRow).reviewerName },
     { id: "revision", header: "Revision", accessorFn: (r) => (r as QueueDisputeRow).revision },
     { id: "since", header: "Since", accessorFn: (r) => (r as QueueDisputeRow).since, cell: (c) => day(String(c.getValue())) },
@@ -81,13 +85,23 @@ export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Ro
   });
   const facetColumn = table.getColumn(facet[kind]);
   const options = [...new Set(rows.map((r) => String(facetColumn?.accessorFn?.(r, 0) ?? "")))].sort();
-  if (rows.length === 0) return <p className="text-sm italic text-stone-500" data-testid={testId}>{empty}</p>;
+  if (rows.length === 0)
+    return (
+      <p className="text-sm italic text-stone-500" data-testid={testId}>
+        {empty}
+      </p>
+    );
   return (
     <div className="space-y-2" data-testid={testId}>
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <label>
           Filter{" "}
-          <input value={globalFilter} onChange={(e) => setGlobalFilter(e.target.value)} className="rounded border border-stone-300 px-2 py-1" placeholder="any text" />
+          <input
+            value={globalFilter}
+            onChange={(e) => setGlobalFilter(e.target.value)}
+            className="rounded border border-stone-300 px-2 py-1"
+            placeholder="any text"
+          />
         </label>
         <label>
           {String(facetColumn?.columnDef.header)}{" "}

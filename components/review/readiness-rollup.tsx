@@ -20,7 +20,13 @@ export function ReadinessRollup({ readiness }: { readiness: Readiness }) {
       </div>
       <ul className="divide-y divide-stone-100 rounded border border-stone-200 bg-white">
         {readiness.cases.map((c) => (
-          <li key={c.id} className="flex items-center justify-between gap-3 px-3 py-2" style={{ paddingLeft: `${0.75 + c.depth * 1.25}rem` }} data-testid="readiness-case" data-case-number={c.number}>
+          <li
+            key={c.id}
+            className="flex items-center justify-between gap-3 px-3 py-2"
+            style={{ paddingLeft: `${0.75 + c.depth * 1.25}rem` }}
+            data-testid="readiness-case"
+            data-case-number={c.number}
+          >
             <span>
               <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
               {c.title}

@@ -21,12 +21,23 @@ export function RequiredApprovalsForm({ proofId, current }: { proofId: number; c
     >
       <label className="text-sm">
         <span className="block font-semibold">Vouches required per step</span>
-        <input type="number" min={1} max={9} value={value} onChange={(e) => setValue(e.target.value)} className="mt-1 w-20 rounded border border-stone-300 px-2 py-1 font-mono" />
+        <input
+          type="number"
+          min={1}
+          max={9}
+          value={value}
+          onChange={(e) => setValue(e.target.value)}
+          className="mt-1 w-20 rounded border border-stone-300 px-2 py-1 font-mono"
+        />
       </label>
       <button type="submit" className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50">
         Save
       </button>
-      {message && <span role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>{message.text}</span>}
+      {message && (
+        <span role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
+          {message.text}
+        </span>
+      )}
     </form>
   );
 }

@@ -47,14 +47,24 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
   };
 
   return (
-    <section className="mt-3 space-y-3 rounded border border-stone-200 bg-stone-50/60 p-3" aria-label="Review of this step" data-testid="step-review" data-step-id={stepId}>
+    <section
+      className="mt-3 space-y-3 rounded border border-stone-200 bg-stone-50/60 p-3"
+      aria-label="Review of this step"
+      data-testid="step-review"
+      data-step-id={stepId}
+    >
       <header className="flex flex-wrap items-center gap-3 text-sm">
         <strong>Review</strong>
         <span data-testid="approval-count">
-          {data.status.vouches} of {data.requiredApprovals} vouch{data.requiredApprovals === 1 ? "" : "es"} needed for revision {data.latestRevision?.number ?? "—"}
+          {data.status.vouches} of {data.requiredApprovals} vouch{data.requiredApprovals === 1 ? "" : "es"} needed for revision{" "}
+          {data.latestRevision?.number ?? "—"}
         </span>
         {data.status.supersededVouches > 0 && <span className="text-undecided">{data.status.supersededVouches} superseded</span>}
-        {data.status.openDisputes > 0 && <span className="font-mono text-refuted">⚑ {data.status.openDisputes} unresolved dispute{data.status.openDisputes === 1 ? "" : "s"}</span>}
+        {data.status.openDisputes > 0 && (
+          <span className="font-mono text-refuted">
+            ⚑ {data.status.openDisputes} unresolved dispute{data.status.openDisputes === 1 ? "" : "s"}
+          </span>
+        )}
       </header>
 
       {data.vouches.length > 0 && (
@@ -69,7 +79,9 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
         </ul>
       )}
 
-      {viewingOld && <p className="text-sm text-undecided">You are looking at an older revision; verdicts are given on revision {data.latestRevision!.number}.</p>}
+      {viewingOld && (
+        <p className="text-sm text-undecided">You are looking at an older revision; verdicts are given on revision {data.latestRevision!.number}.</p>
+      )}
       {data.can.verdict && data.can.ownDisputeOpen && (
         <p className="text-sm text-stone-600" data-testid="verdict-waits">
           Your dispute on this step is still open: withdraw it below (if you are satisfied) before vouching.
@@ -77,13 +89,15 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
       )}
       {data.can.verdict && data.mine.vouchedAt && !viewingOld && (
         <p className="text-sm" data-testid="already-vouched">
-          You vouched for revision {data.latestRevision?.number} on {new Date(data.mine.vouchedAt).toLocaleDateString()}. Your vouch covers its text and its {""}
+          You vouched for revision {data.latestRevision?.number} on {new Date(data.mine.vouchedAt).toLocaleDateString()}. Your vouch covers its text and its{" "}
+          {""}
           claims as they stand; any change makes a new revision and asks you again.
         </p>
       )}
       {data.can.verdict && !data.mine.vouchedAt && data.latestRevision && data.latestRevision.pendingClaims > 0 && (
         <p className="text-sm text-stone-600" data-testid="vouch-waits">
-          {data.latestRevision.pendingClaims} claim{data.latestRevision.pendingClaims === 1 ? " is" : "s are"} still being checked; a vouch covers the verdicts too, so it waits for them.
+          {data.latestRevision.pendingClaims} claim{data.latestRevision.pendingClaims === 1 ? " is" : "s are"} still being checked; a vouch covers the verdicts
+          too, so it waits for them.
         </p>
       )}
       {data.can.verdict && !data.can.ownDisputeOpen && !data.mine.vouchedAt && (
@@ -97,7 +111,11 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
             >
               I vouch for revision {data.latestRevision?.number}
             </button>
-            <button type="button" onClick={() => setDisputing((d) => !d)} className="rounded border border-stone-400 bg-white px-3 py-1 text-sm hover:border-stone-600">
+            <button
+              type="button"
+              onClick={() => setDisputing((d) => !d)}
+              className="rounded border border-stone-400 bg-white px-3 py-1 text-sm hover:border-stone-600"
+            >
               I raise a dispute…
             </button>
           </div>

@@ -13,14 +13,21 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
         <h2 className="text-xl font-semibold">Referees {desk.current ? `in round ${desk.current.number} (${desk.current.state})` : ""}</h2>
         {!desk.current && <p className="text-stone-600">No round yet: open round 1 on the rounds page.</p>}
         {desk.late.length > 0 && (
-          <p role="note" className="font-semibold" data-testid="late">⏰ Late: {desk.late.map((r) => `${r.referee} (${r.standing.daysLate} day${r.standing.daysLate === 1 ? "" : "s"})`).join(", ")}</p>
+          <p role="note" className="font-semibold" data-testid="late">
+            ⏰ Late: {desk.late.map((r) => `${r.referee} (${r.standing.daysLate} day${r.standing.daysLate === 1 ? "" : "s"})`).join(", ")}
+          </p>
         )}
         {desk.current && (
           <ul className="divide-y divide-stone-100 rounded border border-stone-200 bg-white text-sm">
             {desk.current.referees.map((r) => (
               <li key={r.refereeId} className="flex flex-wrap justify-between gap-2 px-3 py-2" data-late={r.standing.late}>
-                <span>{r.referee} <span className="font-mono text-xs text-stone-500">{r.email}</span></span>
-                <span>due {day(r.dueAt)} · {r.standing.late ? <strong>late by {r.standing.daysLate} d</strong> : r.standing.progress} · <RecommendationMark value={r.recommendation} /></span>
+                <span>
+                  {r.referee} <span className="font-mono text-xs text-stone-500">{r.email}</span>
+                </span>
+                <span>
+                  due {day(r.dueAt)} · {r.standing.late ? <strong>late by {r.standing.daysLate} d</strong> : r.standing.progress} ·{" "}
+                  <RecommendationMark value={r.recommendation} />
+                </span>
               </li>
             ))}
           </ul>
@@ -28,21 +35,36 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
       </section>
       <section className="space-y-2" data-testid="desk-disputes">
         <h2 className="text-xl font-semibold">Open disputes ({desk.disputes.length})</h2>
-        {desk.disputes.length === 0 ? <p className="text-stone-600">None open.</p> : (
+        {desk.disputes.length === 0 ? (
+          <p className="text-stone-600">None open.</p>
+        ) : (
           <TableScroll label="Open disputes">
-          <table className="w-full text-sm">
-            <thead><tr className="text-left"><th>Step</th><th>Raised by</th><th>State</th><th>Age</th></tr></thead>
-            <tbody>
-              {desk.disputes.map((d) => (
-                <tr key={d.disputeId}>
-                  <td><Link className="text-lichen-700 underline" href={`/proofs/${proofId}/steps/${d.stepId}`}>{d.stepLabel}</Link></td>
-                  <td>{d.reviewerName}</td>
-                  <td className="[font-variant:small-caps]">{d.state}</td>
-                  <td>{d.ageDays} day{d.ageDays === 1 ? "" : "s"} (since {day(d.since)})</td>
+            <table className="w-full text-sm">
+              <thead>
+                <tr className="text-left">
+                  <th>Step</th>
+                  <th>Raised by</th>
+                  <th>State</th>
+                  <th>Age</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {desk.disputes.map((d) => (
+                  <tr key={d.disputeId}>
+                    <td>
+                      <Link className="text-lichen-700 underline" href={`/proofs/${proofId}/steps/${d.stepId}`}>
+                        {d.stepLabel}
+                      </Link>
+                    </td>
+                    <td>{d.reviewerName}</td>
+                    <td className="[font-variant:small-caps]">{d.state}</td>
+                    <td>
+                      {d.ageDays} day{d.ageDays === 1 ? "" : "s"} (since {day(d.since)})
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
           </TableScroll>
         )}
       </section>
@@ -57,10 +79,15 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
       </section>
       <section className="space-y-2" data-testid="desk-decisions">
         <h2 className="text-xl font-semibold">Decisions</h2>
-        {desk.decisions.length === 0 ? <p className="text-stone-600">None yet.</p> : (
+        {desk.decisions.length === 0 ? (
+          <p className="text-stone-600">None yet.</p>
+        ) : (
           <ol className="space-y-1 text-sm">
             {desk.decisions.map((d) => (
-              <li key={d.round}>Round {d.round}: <RecommendationMark value={d.decision} /> — {d.editor}, {day(d.decidedAt)}{d.reportsAttached ? ", reports attached" : ", reports not attached"}</li>
+              <li key={d.round}>
+                Round {d.round}: <RecommendationMark value={d.decision} /> — {d.editor}, {day(d.decidedAt)}
+                {d.reportsAttached ? ", reports attached" : ", reports not attached"}
+              </li>
             ))}
           </ol>
         )}

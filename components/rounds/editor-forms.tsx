@@ -13,7 +13,11 @@ function useSubmit() {
     setMessage(res.ok ? { ok: true, text: done } : { ok: false, text: res.error ?? "Not saved." });
     if (res.ok) router.refresh();
   };
-  const shown: ReactNode = message && <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>{message.text}</p>;
+  const shown: ReactNode = message && (
+    <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
+      {message.text}
+    </p>
+  );
   return { submit, shown };
 }
 
@@ -23,12 +27,21 @@ export function OpenRoundForm({ proofId, next }: { proofId: number; next: number
   const { submit, shown } = useSubmit();
   const [dueAt, setDueAt] = useState("");
   return (
-    <form data-testid="open-round" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); void submit(`/api/proofs/${proofId}/rounds`, "POST", { dueAt }, `Round ${next} opened.`); }}>
+    <form
+      data-testid="open-round"
+      className="flex flex-wrap items-end gap-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit(`/api/proofs/${proofId}/rounds`, "POST", { dueAt }, `Round ${next} opened.`);
+      }}
+    >
       <label className="text-sm">
         <span className="block font-semibold">Reports for round {next} due on</span>
         <input type="date" name="dueAt" value={dueAt} onChange={(e) => setDueAt(e.target.value)} className="mt-1 rounded border border-stone-300 px-2 py-1" />
       </label>
-      <button type="submit" className={button}>Open round {next}</button>
+      <button type="submit" className={button}>
+        Open round {next}
+      </button>
       {shown}
     </form>
   );
@@ -40,23 +53,47 @@ export function DecisionForm({ proofId, round }: { proofId: number; round: numbe
   const [letter, setLetter] = useState("");
   const [attachReports, setAttach] = useState(true);
   return (
-    <form data-testid="decision-form" className="space-y-2" onSubmit={(e) => { e.preventDefault(); void submit(`/api/proofs/${proofId}/rounds/${round}/decision`, "POST", { decision, letter, attachReports }, "Decision recorded; the authors were mailed."); }}>
+    <form
+      data-testid="decision-form"
+      className="space-y-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit(
+          `/api/proofs/${proofId}/rounds/${round}/decision`,
+          "POST",
+          { decision, letter, attachReports },
+          "Decision recorded; the authors were mailed.",
+        );
+      }}
+    >
       <label className="block text-sm">
         <span className="font-semibold">Decision</span>
         <select name="decision" value={decision} onChange={(e) => setDecision(e.target.value)} className="ml-2 rounded border border-stone-300 px-2 py-1">
           <option value="">— choose —</option>
-          {RECOMMENDATIONS.map((r) => <option key={r} value={r}>{recommendationLabel[r]}</option>)}
+          {RECOMMENDATIONS.map((r) => (
+            <option key={r} value={r}>
+              {recommendationLabel[r]}
+            </option>
+          ))}
         </select>
       </label>
       <label className="block text-sm">
         <span className="font-semibold">Letter to the authors</span> (Markdown with $math$)
-        <textarea name="letter" value={letter} onChange={(e) => setLetter(e.target.value)} rows={6} className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm" />
+        <textarea
+          name="letter"
+          value={letter}
+          onChange={(e) => setLetter(e.target.value)}
+          rows={6}
+          className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm"
+        />
       </label>
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="attachReports" checked={attachReports} onChange={(e) => setAttach(e.target.checked)} />
         Attach the submitted reports (named as the blind setting allows; notes for the editors never go out)
       </label>
-      <button type="submit" className={button}>Record the decision and mail the authors</button>
+      <button type="submit" className={button}>
+        Record the decision and mail the authors
+      </button>
       {shown}
     </form>
   );
@@ -67,18 +104,50 @@ export function ReviewPolicyForm({ proofId, blind, before, after }: { proofId: n
   const [b, setB] = useState(blind);
   const [days, setDays] = useState({ before: String(before), after: String(after) });
   return (
-    <form data-testid="review-policy" className="flex flex-wrap items-end gap-3" onSubmit={(e) => { e.preventDefault(); void submit(`/api/proofs/${proofId}/review-policy`, "PATCH", { blind: b, remindBeforeDays: Number(days.before), remindAfterDays: Number(days.after) }, "Saved."); }}>
+    <form
+      data-testid="review-policy"
+      className="flex flex-wrap items-end gap-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit(
+          `/api/proofs/${proofId}/review-policy`,
+          "PATCH",
+          { blind: b, remindBeforeDays: Number(days.before), remindAfterDays: Number(days.after) },
+          "Saved.",
+        );
+      }}
+    >
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="blind" checked={b} onChange={(e) => setB(e.target.checked)} />
         Blind review: authors see referees as “Referee 1, 2, …”
       </label>
       <label className="text-sm">
-        Remind <input type="number" min={0} max={60} value={days.before} onChange={(e) => setDays({ ...days, before: e.target.value })} className="w-14 rounded border border-stone-300 px-1" /> days before
+        Remind{" "}
+        <input
+          type="number"
+          min={0}
+          max={60}
+          value={days.before}
+          onChange={(e) => setDays({ ...days, before: e.target.value })}
+          className="w-14 rounded border border-stone-300 px-1"
+        />{" "}
+        days before
       </label>
       <label className="text-sm">
-        and <input type="number" min={0} max={60} value={days.after} onChange={(e) => setDays({ ...days, after: e.target.value })} className="w-14 rounded border border-stone-300 px-1" /> days after a due date
+        and{" "}
+        <input
+          type="number"
+          min={0}
+          max={60}
+          value={days.after}
+          onChange={(e) => setDays({ ...days, after: e.target.value })}
+          className="w-14 rounded border border-stone-300 px-1"
+        />{" "}
+        days after a due date
       </label>
-      <button type="submit" className={button}>Save</button>
+      <button type="submit" className={button}>
+        Save
+      </button>
       {shown}
     </form>
   );
@@ -88,9 +157,23 @@ export function RefereeDueForm({ proofId, round, refereeId, current }: { proofId
   const { submit, shown } = useSubmit();
   const [dueAt, setDueAt] = useState(current.slice(0, 10));
   return (
-    <form className="inline-flex items-center gap-1" onSubmit={(e) => { e.preventDefault(); void submit(`/api/proofs/${proofId}/rounds/${round}/referees/${refereeId}`, "PATCH", { dueAt }, "Moved."); }}>
-      <input type="date" aria-label="Due date" value={dueAt} onChange={(e) => setDueAt(e.target.value)} className="rounded border border-stone-300 px-1 text-xs" />
-      <button type="submit" className="rounded border border-stone-300 bg-white px-2 py-0.5 text-xs hover:bg-stone-50">Move</button>
+    <form
+      className="inline-flex items-center gap-1"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit(`/api/proofs/${proofId}/rounds/${round}/referees/${refereeId}`, "PATCH", { dueAt }, "Moved.");
+      }}
+    >
+      <input
+        type="date"
+        aria-label="Due date"
+        value={dueAt}
+        onChange={(e) => setDueAt(e.target.value)}
+        className="rounded border border-stone-300 px-1 text-xs"
+      />
+      <button type="submit" className="rounded border border-stone-300 bg-white px-2 py-0.5 text-xs hover:bg-stone-50">
+        Move
+      </button>
       {shown}
     </form>
   );

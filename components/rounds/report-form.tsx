@@ -5,7 +5,13 @@ import { useRouter } from "next/navigation";
 import { send } from "@/components/proof/api-client";
 import { RECOMMENDATIONS, recommendationLabel, type Recommendation } from "@/lib/review/rounds";
 
-export interface ReportDraft { body: string; recommendation: Recommendation | null; editorNote?: string; state: "draft" | "submitted"; version: number }
+export interface ReportDraft {
+  body: string;
+  recommendation: Recommendation | null;
+  editorNote?: string;
+  state: "draft" | "submitted";
+  version: number;
+}
 
 export function ReportForm({ proofId, round, latest }: { proofId: number; round: number; latest: ReportDraft | null }) {
   const router = useRouter();
@@ -28,41 +34,88 @@ export function ReportForm({ proofId, round, latest }: { proofId: number; round:
   if (submitted)
     return (
       <div className="space-y-2" data-testid="report-submitted">
-        <p className="text-sm">Version {latest.version} of your report is submitted and read-only. A correction starts version {latest.version + 1}; both are kept.</p>
-        <button type="button" onClick={() => act(`${base}/corrections`, "Correction started.")} className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50">
+        <p className="text-sm">
+          Version {latest.version} of your report is submitted and read-only. A correction starts version {latest.version + 1}; both are kept.
+        </p>
+        <button
+          type="button"
+          onClick={() => act(`${base}/corrections`, "Correction started.")}
+          className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50"
+        >
           Start a correction
         </button>
-        {message && <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>{message.text}</p>}
+        {message && (
+          <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
+            {message.text}
+          </p>
+        )}
       </div>
     );
   return (
     <form className="space-y-3" data-testid="report-form" onSubmit={(e) => e.preventDefault()}>
       <label className="block text-sm">
-        <span className="font-semibold">Your report</span> <span className="text-stone-600">(Markdown with $math$; the authors read it once the editor decides and attaches it)</span>
-        <textarea name="body" value={body} onChange={(e) => setBody(e.target.value)} rows={10} className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm" />
+        <span className="font-semibold">Your report</span>{" "}
+        <span className="text-stone-600">(Markdown with $math$; the authors read it once the editor decides and attaches it)</span>
+        <textarea
+          name="body"
+          value={body}
+          onChange={(e) => setBody(e.target.value)}
+          rows={10}
+          className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm"
+        />
       </label>
       <label className="block text-sm">
         <span className="font-semibold">Recommendation</span>
-        <select name="recommendation" value={recommendation} onChange={(e) => setRecommendation(e.target.value)} className="ml-2 rounded border border-stone-300 px-2 py-1">
+        <select
+          name="recommendation"
+          value={recommendation}
+          onChange={(e) => setRecommendation(e.target.value)}
+          className="ml-2 rounded border border-stone-300 px-2 py-1"
+        >
           <option value="">— choose —</option>
           {RECOMMENDATIONS.map((r) => (
-            <option key={r} value={r}>{recommendationLabel[r]}</option>
+            <option key={r} value={r}>
+              {recommendationLabel[r]}
+            </option>
           ))}
         </select>
       </label>
       <label className="block text-sm">
-        <span className="font-semibold">Note for the editors only</span> <span className="text-stone-600">(never shown to the authors or to other referees)</span>
-        <textarea name="editorNote" value={editorNote} onChange={(e) => setEditorNote(e.target.value)} rows={3} className="mt-1 w-full rounded border border-stone-300 p-2 text-sm" />
+        <span className="font-semibold">Note for the editors only</span>{" "}
+        <span className="text-stone-600">(never shown to the authors or to other referees)</span>
+        <textarea
+          name="editorNote"
+          value={editorNote}
+          onChange={(e) => setEditorNote(e.target.value)}
+          rows={3}
+          className="mt-1 w-full rounded border border-stone-300 p-2 text-sm"
+        />
       </label>
       <div className="flex gap-2">
-        <button type="button" onClick={async () => { if (await save()) router.refresh(); }} className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50">
+        <button
+          type="button"
+          onClick={async () => {
+            if (await save()) router.refresh();
+          }}
+          className="rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50"
+        >
           Save draft
         </button>
-        <button type="button" onClick={async () => { if (await save()) await act(`${base}/submit`, "Report submitted."); }} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
+        <button
+          type="button"
+          onClick={async () => {
+            if (await save()) await act(`${base}/submit`, "Report submitted.");
+          }}
+          className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800"
+        >
           Submit report
         </button>
       </div>
-      {message && <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>{message.text}</p>}
+      {message && (
+        <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
+          {message.text}
+        </p>
+      )}
     </form>
   );
 }

@@ -44,11 +44,15 @@ export function RoundCard({ proofId, round, children }: { proofId: number; round
   return (
     <section className="space-y-3 rounded border border-stone-200 bg-stone-50 p-4" data-testid="round" data-round={round.number} data-state={round.state}>
       <h2 className="text-xl font-semibold">
-        Round {round.number} <span className="text-base font-normal text-stone-600">· {round.state === "open" ? `open, reports due ${day(round.dueAt)}` : `decided ${day(round.closedAt!)}`}</span>
+        Round {round.number}{" "}
+        <span className="text-base font-normal text-stone-600">
+          · {round.state === "open" ? `open, reports due ${day(round.dueAt)}` : `decided ${day(round.closedAt!)}`}
+        </span>
       </h2>
       {round.changedSincePreviousDecision.length > 0 && (
         <p className="text-sm">
-          Revised since the last decision: {round.changedSincePreviousDecision.map((c) => `step ${c.label} (${c.revisions} revision${c.revisions === 1 ? "" : "s"})`).join(", ")}.
+          Revised since the last decision:{" "}
+          {round.changedSincePreviousDecision.map((c) => `step ${c.label} (${c.revisions} revision${c.revisions === 1 ? "" : "s"})`).join(", ")}.
         </p>
       )}
       {round.decision && (
@@ -61,26 +65,44 @@ export function RoundCard({ proofId, round, children }: { proofId: number; round
       )}
       {round.referees && round.referees.length > 0 && (
         <TableScroll label="Referees">
-        <table className="w-full text-sm" data-testid="referees">
-          <thead>
-            <tr className="text-left"><th>Referee</th><th>Due</th><th>Progress</th><th>Recommendation</th></tr>
-          </thead>
-          <tbody>
-            {round.referees.map((r) => (
-              <tr key={r.refereeId} data-late={r.standing.late}>
-                <td>{r.referee}</td>
-                <td>
-                  {day(r.dueAt)} {round.state === "open" && <RefereeDueForm proofId={proofId} round={round.number} refereeId={r.refereeId} current={r.dueAt} />}
-                </td>
-                <td>{r.standing.late ? <strong>⏰ late by {r.standing.daysLate} day{r.standing.daysLate === 1 ? "" : "s"}</strong> : r.standing.progress}</td>
-                <td><RecommendationMark value={r.recommendation} /></td>
+          <table className="w-full text-sm" data-testid="referees">
+            <thead>
+              <tr className="text-left">
+                <th>Referee</th>
+                <th>Due</th>
+                <th>Progress</th>
+                <th>Recommendation</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {round.referees.map((r) => (
+                <tr key={r.refereeId} data-late={r.standing.late}>
+                  <td>{r.referee}</td>
+                  <td>
+                    {day(r.dueAt)}{" "}
+                    {round.state === "open" && <RefereeDueForm proofId={proofId} round={round.number} refereeId={r.refereeId} current={r.dueAt} />}
+                  </td>
+                  <td>
+                    {r.standing.late ? (
+                      <strong>
+                        ⏰ late by {r.standing.daysLate} day{r.standing.daysLate === 1 ? "" : "s"}
+                      </strong>
+                    ) : (
+                      r.standing.progress
+                    )}
+                  </td>
+                  <td>
+                    <RecommendationMark value={r.recommendation} />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </TableScroll>
       )}
-      {round.reports.map((r) => <ReportBlock key={r.id} report={r} />)}
+      {round.reports.map((r) => (
+        <ReportBlock key={r.id} report={r} />
+      ))}
       {children}
     </section>
   );

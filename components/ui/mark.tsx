@@ -3,16 +3,12 @@
  * state's colour. Shape and word carry the meaning; colour only repeats it. Every mark component (verdict, case
  * state, proof state, dispute state, vouch) renders through this.
  */
-export function Mark({ glyph, word, tone, data, pulse = false }: {
-  glyph: string;
-  word: string;
-  tone: string;
-  data: Record<string, string>;
-  pulse?: boolean;
-}) {
+export function Mark({ glyph, word, tone, data, pulse = false }: { glyph: string; word: string; tone: string; data: Record<string, string>; pulse?: boolean }) {
   return (
     <span className={`mark inline-flex shrink-0 items-baseline gap-1 whitespace-nowrap ${tone}`} {...data}>
-      <span aria-hidden="true" className={`mark-glyph${pulse ? " animate-pulse" : ""}`}>{glyph}</span>
+      <span aria-hidden="true" className={`mark-glyph${pulse ? " animate-pulse" : ""}`}>
+        {glyph}
+      </span>
       <span className="mark-word">{word}</span>
     </span>
   );

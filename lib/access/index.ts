@@ -13,9 +13,33 @@ import { loadStep, type StepRef } from "@/lib/data/reviews";
 import type { DisputeRef } from "@/lib/data/disputes";
 import { isBlind } from "@/lib/data/blind";
 import type { DisputeTarget } from "@/lib/review/rules";
-import { accessRefusal, BLIND_REFEREES_REFUSAL, disputeRefusal, expandScope, invitationRefusal, removalRefusal, verdictRefusal, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
+import {
+  accessRefusal,
+  BLIND_REFEREES_REFUSAL,
+  disputeRefusal,
+  expandScope,
+  invitationRefusal,
+  removalRefusal,
+  verdictRefusal,
+  type Actor,
+  type ProofAction,
+  type ProofRole,
+  type Standing,
+} from "./rules";
 
-export { ACCESS, accessRefusal, invitationRefusal, mayOwn, removalRefusal, may, withinScope, type Actor, type ProofAction, type ProofRole, type Standing } from "./rules";
+export {
+  ACCESS,
+  accessRefusal,
+  invitationRefusal,
+  mayOwn,
+  removalRefusal,
+  may,
+  withinScope,
+  type Actor,
+  type ProofAction,
+  type ProofRole,
+  type Standing,
+} from "./rules";
 
 export interface ProofAccess {
   proofId: number;
@@ -37,7 +61,10 @@ export async function visibleCaseIds(proofId: number, userId: number, role?: Pro
   const scopes = await ReviewerScope.findAll({ where: { proofId, userId }, attributes: ["caseId"] });
   if (scopes.length === 0) return null;
   const cases = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId"] });
-  return expandScope(scopes.map((s) => s.caseId), cases);
+  return expandScope(
+    scopes.map((s) => s.caseId),
+    cases,
+  );
 }
 
 async function isOwner(proofId: number, userId: number): Promise<boolean> {
@@ -71,7 +98,11 @@ export async function assertCanSeeStep(step: StepRef, userId: number): Promise<v
  * The first checks of every step route and page: session (401), proof (404), membership (403), a live step
  * of this proof (404: a step under a deleted case, however high up, is gone), a case this person sees (403).
  */
-export async function requireStepAccess(proofId: number, stepId: number, action: ProofAction = "proof.read"): Promise<{ user: CurrentUser; actor: Actor; step: StepRef; access: ProofAccess }> {
+export async function requireStepAccess(
+  proofId: number,
+  stepId: number,
+  action: ProofAction = "proof.read",
+): Promise<{ user: CurrentUser; actor: Actor; step: StepRef; access: ProofAccess }> {
   const access = await proofAccess(proofId, action);
   const step = await loadStep(proofId, stepId);
   if (!seesCase(access, step.caseId)) throw forbidden("This step is in a case you were not asked to review.");

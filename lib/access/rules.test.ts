@@ -1,5 +1,18 @@
 import { describe, expect, it } from "vitest";
-import { ACCESS, accessRefusal, disputeRefusal, expandScope, invitationRefusal, may, mayOwn, removalRefusal, verdictRefusal, withinScope, type ProofAction, type Standing } from "./rules";
+import {
+  ACCESS,
+  accessRefusal,
+  disputeRefusal,
+  expandScope,
+  invitationRefusal,
+  may,
+  mayOwn,
+  removalRefusal,
+  verdictRefusal,
+  withinScope,
+  type ProofAction,
+  type Standing,
+} from "./rules";
 
 describe("permissions", () => {
   it("lets only an in-scope reviewer who did not write the step give a verdict", () => {

@@ -57,10 +57,12 @@ export function isolateByRank(p: Poly, rank: number): { lo: Rational; hi: Ration
   const seq = sturmSequence(p);
   const B = rootBound(p);
   const above = (x: Rational) => signVariations(seq, x) - signVariations(seq, "+inf");
-  let lo = rat(-B), hi = rat(B);
+  let lo = rat(-B),
+    hi = rat(B);
   if (above(lo) < rank + 1) throw new RangeError(`polynomial ${polyToString(p)} has fewer than ${rank + 1} real roots`);
   for (let guard = 0; guard < 100_000; guard++) {
-    const nLo = above(lo), nHi = above(hi);
+    const nLo = above(lo),
+      nHi = above(hi);
     if (nLo === rank + 1 && nHi === rank) return { lo, hi };
     let mid = midpoint(lo, hi);
     // Never split at a root: nudge the split point until p does not vanish there.
@@ -128,7 +130,8 @@ export function algebraicBound(form: "sqrt" | "2cos" | "root" | "expression", te
 function determinant(m: bigint[][]): bigint {
   const n = m.length;
   const a = m.map((r) => r.slice());
-  let prev = 1n, sgn = 1n;
+  let prev = 1n,
+    sgn = 1n;
   for (let k = 0; k < n - 1; k++) {
     if (a[k][k] === 0n) {
       const swap = a.findIndex((r, i) => i > k && r[k] !== 0n);
@@ -136,8 +139,7 @@ function determinant(m: bigint[][]): bigint {
       [a[k], a[swap]] = [a[swap], a[k]];
       sgn = -sgn;
     }
-    for (let i = k + 1; i < n; i++)
-      for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
+    for (let i = k + 1; i < n; i++) for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
     prev = a[k][k];
   }
   return sgn * a[n - 1][n - 1];
@@ -145,13 +147,22 @@ function determinant(m: bigint[][]): bigint {
 
 /** Resultant of two univariate integer polynomials (Sylvester matrix). */
 function resultant(f: Poly, g: Poly): bigint {
-  const m = deg(f), n = deg(g);
+  const m = deg(f),
+    n = deg(g);
   if (m === 0) return f[0] ** BigInt(n);
   if (n === 0) return g[0] ** BigInt(m);
   const size = m + n;
   const rows: bigint[][] = [];
-  for (let i = 0; i < n; i++) { const r = new Array<bigint>(size).fill(0n); for (let j = 0; j <= m; j++) r[i + j] = f[m - j]; rows.push(r); }
-  for (let i = 0; i < m; i++) { const r = new Array<bigint>(size).fill(0n); for (let j = 0; j <= n; j++) r[i + j] = g[n - j]; rows.push(r); }
+  for (let i = 0; i < n; i++) {
+    const r = new Array<bigint>(size).fill(0n);
+    for (let j = 0; j <= m; j++) r[i + j] = f[m - j];
+    rows.push(r);
+  }
+  for (let i = 0; i < m; i++) {
+    const r = new Array<bigint>(size).fill(0n);
+    for (let j = 0; j <= n; j++) r[i + j] = g[n - j];
+    rows.push(r);
+  }
   return determinant(rows);
 }
 
@@ -171,7 +182,12 @@ function interpolate(values: bigint[]): Poly {
     next[0] = add(next[0], c[i]);
     poly = next;
   }
-  return trim(poly.map((r) => { if (r.den !== 1n) throw new Error("resultant interpolation is not integral"); return r.num; }));
+  return trim(
+    poly.map((r) => {
+      if (r.den !== 1n) throw new Error("resultant interpolation is not integral");
+      return r.num;
+    }),
+  );
 }
 
 /** Res_y(f(y), G(x, y)) where G is given by its specialisation at integer x (leading y-coefficient constant in x). */
@@ -190,7 +206,10 @@ function shiftedReflect(g: Poly, x0: bigint): Poly {
     const add_: bigint[] = pw.map((c) => c * g[k]);
     out = Array.from({ length: Math.max(out.length, add_.length) }, (_, i) => (out[i] ?? 0n) + (add_[i] ?? 0n));
     const next = new Array<bigint>(pw.length + 1).fill(0n);
-    for (let i = 0; i < pw.length; i++) { next[i] += pw[i] * x0; next[i + 1] -= pw[i]; }
+    for (let i = 0; i < pw.length; i++) {
+      next[i] += pw[i] * x0;
+      next[i + 1] -= pw[i];
+    }
     pw = next;
   }
   return out;
@@ -200,12 +219,20 @@ function shiftedReflect(g: Poly, x0: bigint): Poly {
 
 type Interval = { lo: Rational; hi: Rational };
 const minMax = (xs: Rational[]): Interval => {
-  let lo = xs[0], hi = xs[0];
-  for (const x of xs) { if (cmp(x, lo) < 0) lo = x; if (cmp(x, hi) > 0) hi = x; }
+  let lo = xs[0],
+    hi = xs[0];
+  for (const x of xs) {
+    if (cmp(x, lo) < 0) lo = x;
+    if (cmp(x, hi) > 0) hi = x;
+  }
   return { lo, hi };
 };
-function iAdd(a: Interval, b: Interval): Interval { return { lo: add(a.lo, b.lo), hi: add(a.hi, b.hi) }; }
-function iMul(a: Interval, b: Interval): Interval { return minMax([mul(a.lo, b.lo), mul(a.lo, b.hi), mul(a.hi, b.lo), mul(a.hi, b.hi)]); }
+function iAdd(a: Interval, b: Interval): Interval {
+  return { lo: add(a.lo, b.lo), hi: add(a.hi, b.hi) };
+}
+function iMul(a: Interval, b: Interval): Interval {
+  return minMax([mul(a.lo, b.lo), mul(a.lo, b.hi), mul(a.hi, b.lo), mul(a.hi, b.hi)]);
+}
 function iPow(a: Interval, k: number): Interval {
   const pw = (r: Rational) => rat(r.num ** BigInt(k), r.den ** BigInt(k));
   const ends = [pw(a.lo), pw(a.hi)];
@@ -226,14 +253,19 @@ function iSqrt(a: Interval, bits: number): Interval {
 
 /** Thrown for a value that is out of range or undefined (division by zero, root of a negative number). */
 export class BoundValueError extends NumberFormatError {
-  constructor(readonly detail: string, column?: number) {
+  constructor(
+    readonly detail: string,
+    column?: number,
+  ) {
     super(detail, column);
   }
 }
 
 function checkDegree(d: number, what: string): void {
   if (d > MAX_EXPRESSION_DEGREE)
-    throw new BoundValueError(`${what} would need a polynomial of degree ${d}, above the limit ${MAX_EXPRESSION_DEGREE}; write the bound as root(minimal polynomial, lo, hi)`);
+    throw new BoundValueError(
+      `${what} would need a polynomial of degree ${d}, above the limit ${MAX_EXPRESSION_DEGREE}; write the bound as root(minimal polynomial, lo, hi)`,
+    );
 }
 
 /**
@@ -269,14 +301,19 @@ function affine(a: AlgebraicBound, scale: Rational, shift: Rational, text: strin
   // β = scale·α + shift, so α = (β − shift)/scale: f((x − shift)/scale) times (scale.num · shift.den)^d, integral.
   const d = deg(a.poly);
   // Substitute x -> (u·x + v)/w with u = scale.den·shift.den, v = −shift.num·scale.den, w = scale.num·shift.den.
-  const u = scale.den * shift.den, v = -shift.num * scale.den, w = scale.num * shift.den;
+  const u = scale.den * shift.den,
+    v = -shift.num * scale.den,
+    w = scale.num * shift.den;
   let out: bigint[] = new Array(d + 1).fill(0n);
   let lin: bigint[] = [1n]; // (u x + v)^k
   for (let k = 0; k <= d; k++) {
     const c = a.poly[k] * w ** BigInt(d - k);
     for (let i = 0; i < lin.length; i++) out[i] += c * lin[i];
     const next = new Array<bigint>(lin.length + 1).fill(0n);
-    for (let i = 0; i < lin.length; i++) { next[i] += lin[i] * v; next[i + 1] += lin[i] * u; }
+    for (let i = 0; i < lin.length; i++) {
+      next[i] += lin[i] * v;
+      next[i + 1] += lin[i] * u;
+    }
     lin = next;
   }
   out = trim(out);
@@ -293,7 +330,8 @@ export function plus(a: Bound, b: Bound, text: string): Bound {
   if (a.kind === "rational" && b.kind === "rational") return rationalBound(add(a.value, b.value), text);
   if (a.kind === "rational") return affine(b as AlgebraicBound, rat(1), a.value, text);
   if (b.kind === "rational") return affine(a, rat(1), b.value, text);
-  const m = deg(a.poly), n = deg(b.poly);
+  const m = deg(a.poly),
+    n = deg(b.poly);
   checkDegree(m * n, "this sum");
   const R = resultantInX(a.poly, (x) => shiftedReflect(b.poly, x), m * n);
   return pinDown(R, (bits) => iAdd(asInterval(a, bits), asInterval(b, bits)), text);
@@ -307,10 +345,19 @@ export function times(a: Bound, b: Bound, text: string): Bound {
   if (a.kind === "rational" && b.kind === "rational") return rationalBound(mul(a.value, b.value), text);
   if (a.kind === "rational") return sign(a.value) === 0 ? rationalBound(rat(0), text) : affine(b as AlgebraicBound, a.value, rat(0), text);
   if (b.kind === "rational") return sign(b.value) === 0 ? rationalBound(rat(0), text) : affine(a, b.value, rat(0), text);
-  const m = deg(a.poly), n = deg(b.poly);
+  const m = deg(a.poly),
+    n = deg(b.poly);
   checkDegree(m * n, "this product");
   // y^n g(x/y) = sum_k g_k x^k y^(n-k).
-  const R = resultantInX(a.poly, (x) => { const out = new Array<bigint>(n + 1).fill(0n); for (let k = 0; k <= n; k++) out[n - k] = b.poly[k] * x ** BigInt(k); return out; }, m * n);
+  const R = resultantInX(
+    a.poly,
+    (x) => {
+      const out = new Array<bigint>(n + 1).fill(0n);
+      for (let k = 0; k <= n; k++) out[n - k] = b.poly[k] * x ** BigInt(k);
+      return out;
+    },
+    m * n,
+  );
   return pinDown(R, (bits) => iMul(asInterval(a, bits), asInterval(b, bits)), text);
 }
 
@@ -339,14 +386,26 @@ export function power(a: Bound, k: number, text: string, column?: number): Bound
   if (k === 1) return { ...a, text };
   const m = deg(a.poly);
   // Res_y(f(y), x − y^k) has degree m in x.
-  const R = resultantInX(a.poly, (x) => { const out = new Array<bigint>(k + 1).fill(0n); out[0] = x; out[k] = -1n; return out; }, m);
+  const R = resultantInX(
+    a.poly,
+    (x) => {
+      const out = new Array<bigint>(k + 1).fill(0n);
+      out[0] = x;
+      out[k] = -1n;
+      return out;
+    },
+    m,
+  );
   return pinDown(R, (bits) => iPow(asInterval(a, bits), k), text);
 }
 
 export function squareRoot(a: Bound, text: string, column?: number): Bound {
   if (a.kind === "rational") {
     if (sign(a.value) < 0) throw new BoundValueError("square root of a negative number", column);
-    const u = a.value.num, v = a.value.den, su = isqrt(u), sv = isqrt(v);
+    const u = a.value.num,
+      v = a.value.den,
+      su = isqrt(u),
+      sv = isqrt(v);
     if (su * su === u && sv * sv === v) return rationalBound(rat(su, sv), text);
     const s = isqrt(u * v); // sqrt(u/v) = sqrt(uv)/v lies in [s/v, (s+1)/v]
     return algebraicBound("sqrt", text, [-u, 0n, v], rat(s, v), rat(s + 1n, v));
@@ -371,7 +430,11 @@ export function rootOf(poly: Poly, lo: Rational, hi: Rational, text: string): Bo
   }
   const factors = factorSquarefree(sf);
   for (const f of factors) {
-    if (deg(f) === 1) { const r = rat(-f[0], f[1]); if (cmp(lo, r) < 0 && cmp(r, hi) < 0) return rationalBound(r, text); continue; }
+    if (deg(f) === 1) {
+      const r = rat(-f[0], f[1]);
+      if (cmp(lo, r) < 0 && cmp(r, hi) < 0) return rationalBound(r, text);
+      continue;
+    }
     const seq = sturmSequence(f);
     if (signVariations(seq, lo) - signVariations(seq, hi) === 1) return algebraicBound("root", text, f, lo, hi);
   }
@@ -390,7 +453,8 @@ function rationalRootIn(poly: Poly, lo: Rational, hi: Rational): Rational | unde
     const mid = midpoint(lo, hi);
     const s = signAt(poly, mid);
     if (s === 0) return mid;
-    if (s === sLo) lo = mid; else hi = mid;
+    if (s === sLo) lo = mid;
+    else hi = mid;
   }
   const r = rat(floor(rat(lo.num * L, lo.den)) + 1n, L);
   return cmp(lo, r) < 0 && cmp(r, hi) < 0 && signAt(poly, r) === 0 ? r : undefined;

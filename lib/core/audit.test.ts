@@ -90,8 +90,10 @@ describe("double enclosures of big rationals", () => {
     let seed = 12345n;
     const next = () => (seed = (seed * 6364136223846793005n + 1442695040888963407n) % (1n << 64n));
     for (let t = 0; t < 300; t++) {
-      let num = 1n, den = 1n;
-      const ln = Number(next() % 1200n) + 1, ld = Number(next() % 1200n) + 1;
+      let num = 1n,
+        den = 1n;
+      const ln = Number(next() % 1200n) + 1,
+        ld = Number(next() % 1200n) + 1;
       for (let i = 0; i < ln; i += 60) num = (num << 60n) | next();
       for (let i = 0; i < ld; i += 60) den = (den << 60n) | next();
       num >>= BigInt(Math.max(0, num.toString(2).length - ln));
@@ -117,17 +119,25 @@ describe("double enclosures of big rationals", () => {
 /** x = m·2^e exactly with an integer m. */
 function frexpExact(x: number): [bigint, number] {
   let e = 0;
-  while (!Number.isInteger(x)) { x *= 2; e--; }
-  while (Math.abs(x) > Number.MAX_SAFE_INTEGER) { x /= 2; e++; }
+  while (!Number.isInteger(x)) {
+    x *= 2;
+    e--;
+  }
+  while (Math.abs(x) > Number.MAX_SAFE_INTEGER) {
+    x /= 2;
+    e++;
+  }
   return [BigInt(x), e];
 }
 
 // ---------------------------------------------------------------- randomized cross-checks
 
-
 function rng(seed: number) {
   let s = seed >>> 0;
-  return (k: number) => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s % k; };
+  return (k: number) => {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    return s % k;
+  };
 }
 
 /** Random multigraph with loops on n vertices: each pair present with probability p, multiplicity 1..maxM. */
@@ -143,7 +153,10 @@ function randomGraph(r: (k: number) => number, n: number, pPercent: number, maxM
 
 function matrix(g: Graph): number[][] {
   const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
-  for (const e of g.edges) { a[e.u][e.v] = e.m; a[e.v][e.u] = e.m; }
+  for (const e of g.edges) {
+    a[e.u][e.v] = e.m;
+    a[e.v][e.u] = e.m;
+  }
   return a;
 }
 
@@ -154,8 +167,10 @@ function floatEigenvalues(g: Graph): number[] {
 
 /** Brute force over all injective maps V(H) → V(G). */
 function bruteContains(h: Graph, g: Graph, induced: boolean): boolean {
-  const mh = matrix(h), mg = matrix(g);
-  const phi: number[] = [], used = new Array<boolean>(g.n).fill(false);
+  const mh = matrix(h),
+    mg = matrix(g);
+  const phi: number[] = [],
+    used = new Array<boolean>(g.n).fill(false);
   const ok = (u: number, x: number) => {
     for (let w = 0; w <= u; w++) {
       const y = w === u ? x : phi[w];
@@ -167,7 +182,8 @@ function bruteContains(h: Graph, g: Graph, induced: boolean): boolean {
     if (u === h.n) return true;
     for (let x = 0; x < g.n; x++) {
       if (used[x] || !ok(u, x)) continue;
-      used[x] = true; phi[u] = x;
+      used[x] = true;
+      phi[u] = x;
       if (go(u + 1)) return true;
       used[x] = false;
     }
@@ -179,7 +195,8 @@ function bruteContains(h: Graph, g: Graph, induced: boolean): boolean {
 describe("subgraph containment against brute force over all vertex maps", () => {
   it("random multigraphs with loops, induced and not, with re-checks", () => {
     const r = rng(7);
-    let present = 0, absent = 0;
+    let present = 0,
+      absent = 0;
     for (let t = 0; t < 1500; t++) {
       const h = randomGraph(r, 1 + r(4), 30 + r(50), 1 + r(2), r(3) === 0);
       const g = randomGraph(r, 1 + r(6), 20 + r(60), 1 + r(3), r(2) === 0);
@@ -191,7 +208,8 @@ describe("subgraph containment against brute force over all vertex maps", () => 
       const ex = excludeSubgraphs(g, [h], { induced });
       expect(ex.status).toBe(truth ? "refuted" : "verified");
       expect(recheckExclusion(g, [h], ex.certificate, induced).status).toBe("verified");
-      if (truth) present++; else absent++;
+      if (truth) present++;
+      else absent++;
     }
     expect(present).toBeGreaterThan(100);
     expect(absent).toBeGreaterThan(100);
@@ -199,8 +217,13 @@ describe("subgraph containment against brute force over all vertex maps", () => 
   it("random forests (the spider and subtree-table paths)", () => {
     const r = rng(11);
     for (let t = 0; t < 800; t++) {
-      const tree = (n: number, forest: boolean) => makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: i + 1, v: r(i + 1) })).filter(() => !forest || r(5) > 0));
-      const h = tree(1 + r(6), false), g = tree(1 + r(8), true);
+      const tree = (n: number, forest: boolean) =>
+        makeGraph(
+          n,
+          Array.from({ length: n - 1 }, (_, i) => ({ u: i + 1, v: r(i + 1) })).filter(() => !forest || r(5) > 0),
+        );
+      const h = tree(1 + r(6), false),
+        g = tree(1 + r(8), true);
       const induced = r(2) === 0;
       const v = findSubgraph(h, g, { induced });
       expect(v.status).toBe(bruteContains(h, g, induced) ? "verified" : "refuted");
@@ -215,7 +238,26 @@ describe("spectral verdicts against floating-point eigenvalues far from the boun
     op === "<" ? rho < b : op === "<=" ? rho <= b : op === "=" ? rho === b : op === ">=" ? rho >= b : rho > b;
   it("random multigraphs with loops, rational and irrational bounds", () => {
     const r = rng(3);
-    const bounds = ["0", "1/2", "1", "3/2", "2", "5/2", "3", "7/2", "4", "sqrt(2)", "sqrt(3)", "sqrt(5)", "sqrt(2+sqrt(2))", "2cos(pi/7)", "2cos(2pi/9)", "root(x^3-3x-1, 1, 2)", "-1", "sqrt(7)"];
+    const bounds = [
+      "0",
+      "1/2",
+      "1",
+      "3/2",
+      "2",
+      "5/2",
+      "3",
+      "7/2",
+      "4",
+      "sqrt(2)",
+      "sqrt(3)",
+      "sqrt(5)",
+      "sqrt(2+sqrt(2))",
+      "2cos(pi/7)",
+      "2cos(2pi/9)",
+      "root(x^3-3x-1, 1, 2)",
+      "-1",
+      "sqrt(7)",
+    ];
     let checked = 0;
     for (let t = 0; t < 150; t++) {
       const g = randomGraph(r, 1 + r(6), 20 + r(60), 1 + r(2), r(2) === 0);
@@ -244,16 +286,59 @@ describe("spectral verdicts against floating-point eigenvalues far from the boun
         expect(recheckSpectralRadiusBound(g, op, b, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
       }
     };
-    eq(makeGraph(4, [{ u: 0, v: 1 }, { u: 0, v: 2 }, { u: 0, v: 3 }, { u: 1, v: 2 }, { u: 1, v: 3 }, { u: 2, v: 3 }]), "3");
-    eq(makeGraph(5, [0, 1, 2, 3, 4].map((i) => ({ u: i, v: (i + 1) % 5 }))), "2");
-    eq(makeGraph(5, [0, 1, 2, 3].map((i) => ({ u: i, v: i + 1 }))), "2cos(pi/6)");
-    eq(makeGraph(6, [0, 1, 2, 3, 4].map((i) => ({ u: i, v: i + 1 }))), "2cos(pi/7)");
-    eq(makeGraph(6, [1, 2, 3, 4, 5].map((i) => ({ u: 0, v: i }))), "sqrt(5)");
+    eq(
+      makeGraph(4, [
+        { u: 0, v: 1 },
+        { u: 0, v: 2 },
+        { u: 0, v: 3 },
+        { u: 1, v: 2 },
+        { u: 1, v: 3 },
+        { u: 2, v: 3 },
+      ]),
+      "3",
+    );
+    eq(
+      makeGraph(
+        5,
+        [0, 1, 2, 3, 4].map((i) => ({ u: i, v: (i + 1) % 5 })),
+      ),
+      "2",
+    );
+    eq(
+      makeGraph(
+        5,
+        [0, 1, 2, 3].map((i) => ({ u: i, v: i + 1 })),
+      ),
+      "2cos(pi/6)",
+    );
+    eq(
+      makeGraph(
+        6,
+        [0, 1, 2, 3, 4].map((i) => ({ u: i, v: i + 1 })),
+      ),
+      "2cos(pi/7)",
+    );
+    eq(
+      makeGraph(
+        6,
+        [1, 2, 3, 4, 5].map((i) => ({ u: 0, v: i })),
+      ),
+      "sqrt(5)",
+    );
     eq(makeGraph(1, [{ u: 0, v: 0, m: 3 }]), "3");
     eq(makeGraph(1, []), "0");
     eq(makeGraph(3, []), "sqrt(0)");
     // C4 plus a chord has ρ = (1 + √17)/2, a root of x^2 − x − 4 (hand computation), and a cycle: Sturm path.
-    eq(makeGraph(4, [{ u: 0, v: 1 }, { u: 1, v: 2 }, { u: 2, v: 3 }, { u: 3, v: 0 }, { u: 0, v: 2 }]), "root(x^2-x-4, 2, 3)");
+    eq(
+      makeGraph(4, [
+        { u: 0, v: 1 },
+        { u: 1, v: 2 },
+        { u: 2, v: 3 },
+        { u: 3, v: 0 },
+        { u: 0, v: 2 },
+      ]),
+      "root(x^2-x-4, 2, 3)",
+    );
   });
 });
 
@@ -269,7 +354,11 @@ describe("Smith identification against floating-point ρ", () => {
       const n = 1 + r(9);
       // A random tree plus a few extra edges/loops, so that many are Smith graphs.
       const edges: Array<{ u: number; v: number; m: number }> = Array.from({ length: n - 1 }, (_, i) => ({ u: i + 1, v: r(i + 1), m: r(20) === 0 ? 2 : 1 }));
-      for (let k = r(3); k > 0; k--) { const u = r(n), v = r(n); edges.push({ u, v, m: 1 }); }
+      for (let k = r(3); k > 0; k--) {
+        const u = r(n),
+          v = r(n);
+        edges.push({ u, v, m: 1 });
+      }
       const g = makeGraph(n, edges);
       const rho = Math.max(...floatEigenvalues(g).map(Math.abs));
       const v = identifySmith(g);
@@ -293,7 +382,10 @@ describe("characteristic polynomial against floating-point eigenvalues", () => {
       let prod = [1];
       for (const l of lambda) {
         const next = new Array<number>(prod.length + 1).fill(0);
-        prod.forEach((c, k) => { next[k + 1] += c; next[k] -= l * c; });
+        prod.forEach((c, k) => {
+          next[k + 1] += c;
+          next[k] -= l * c;
+        });
         prod = next;
       }
       expect(chi.length).toBe(g.n + 1);
@@ -337,7 +429,6 @@ describe("re-checks under an exhausted budget", () => {
   });
 });
 
-
 describe("inertia engines agree with each other and with float eigenvalues", () => {
   it("Jacobs–Trevisan (intervals and exact-only) and the sparse LDLᵀ on random weighted forests with loops", () => {
     // Points b include eigenvalues of the trees (integers and 0 for stars/paths), where zero pivots and the
@@ -376,14 +467,19 @@ describe("inertia engines agree with each other and with float eigenvalues", () 
   });
 });
 
-
 describe("interval pass on long paths near ρ (big rationals in the enclosures)", () => {
   it("bI − A of the path P_n just below and just above ρ = 2cos(π/(n+1))", () => {
     // Eigenvalues of P_n: 2cos(πj/(n+1)) (Brouwer & Haemers §1.4.4); for b in (λ2, ρ) exactly one eigenvalue lies above b.
     for (const n of [13, 40, 64]) {
-      const g = makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: i, v: i + 1 })));
+      const g = makeGraph(
+        n,
+        Array.from({ length: n - 1 }, (_, i) => ({ u: i, v: i + 1 })),
+      );
       const { lo, hi } = enclose(twoCosBound(1n, BigInt(n + 1)), 80);
-      for (const [b, above] of [[lo, 1], [hi, 0]] as const) {
+      for (const [b, above] of [
+        [lo, 1],
+        [hi, 0],
+      ] as const) {
         const fast = treeInertia(g, b, "none", new Budget());
         const exact = treeInertia(g, b, "none", new Budget(), true);
         expect([fast.positive, fast.negative, fast.zero]).toEqual([n - above, above, 0]);

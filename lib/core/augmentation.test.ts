@@ -30,13 +30,17 @@ const sh = (cmd: string) => spawnSync("sh", ["-c", cmd], { encoding: "utf8", max
 
 /** Graphs of nauty's simple text format "nv ne c_1..c_nv {v1 v2 mult}": the colour is the loop weight. */
 function parseNautyText(text: string): Graph[] {
-  return text.trim().split("\n").filter(Boolean).map((line) => {
-    const t = line.trim().split(/\s+/).map(Number);
-    const [nv, ne] = t;
-    const edges = Array.from({ length: nv }, (_, v) => ({ u: v, v, m: t[2 + v] })).filter((e) => e.m > 0);
-    for (let i = 0; i < ne; i++) edges.push({ u: t[2 + nv + 3 * i], v: t[3 + nv + 3 * i], m: t[4 + nv + 3 * i] });
-    return makeGraph(nv, edges);
-  });
+  return text
+    .trim()
+    .split("\n")
+    .filter(Boolean)
+    .map((line) => {
+      const t = line.trim().split(/\s+/).map(Number);
+      const [nv, ne] = t;
+      const edges = Array.from({ length: nv }, (_, v) => ({ u: v, v, m: t[2 + v] })).filter((e) => e.m > 0);
+      for (let i = 0; i < ne; i++) edges.push({ u: t[2 + nv + 3 * i], v: t[3 + nv + 3 * i], m: t[4 + nv + 3 * i] });
+      return makeGraph(nv, edges);
+    });
 }
 
 const keys = (gs: Graph[]) => gs.map((g) => canonicalKeyOf(g)).sort();
@@ -49,7 +53,10 @@ describe("canonical labelling", () => {
     const inner = [0, 1, 2, 3, 4].map((i) => ({ u: 5 + i, v: 5 + ((i + 2) % 5) }));
     const petersen = makeGraph(10, [...outer, ...spokes, ...inner]);
     const perm = [3, 7, 1, 9, 0, 5, 2, 8, 4, 6];
-    const relabelled = makeGraph(10, petersen.edges.map((e) => ({ u: perm[e.u], v: perm[e.v] })));
+    const relabelled = makeGraph(
+      10,
+      petersen.edges.map((e) => ({ u: perm[e.u], v: perm[e.v] })),
+    );
     expect(canonicalKeyOf(relabelled)).toBe(canonicalKeyOf(petersen));
     const W = new Int32Array(100);
     for (const e of petersen.edges) W[e.u * 10 + e.v] = W[e.v * 10 + e.u] = 1;
@@ -63,9 +70,21 @@ describe("canonical labelling", () => {
   });
 
   it("tells loops and multiplicities apart", () => {
-    const a = makeGraph(3, [{ u: 0, v: 1, m: 2 }, { u: 1, v: 2 }, { u: 0, v: 0 }]);
-    const b = makeGraph(3, [{ u: 0, v: 1 }, { u: 1, v: 2, m: 2 }, { u: 0, v: 0 }]);
-    const c = makeGraph(3, [{ u: 2, v: 1, m: 2 }, { u: 1, v: 0 }, { u: 2, v: 2 }]);
+    const a = makeGraph(3, [
+      { u: 0, v: 1, m: 2 },
+      { u: 1, v: 2 },
+      { u: 0, v: 0 },
+    ]);
+    const b = makeGraph(3, [
+      { u: 0, v: 1 },
+      { u: 1, v: 2, m: 2 },
+      { u: 0, v: 0 },
+    ]);
+    const c = makeGraph(3, [
+      { u: 2, v: 1, m: 2 },
+      { u: 1, v: 0 },
+      { u: 2, v: 2 },
+    ]);
     expect(canonicalKeyOf(a)).not.toBe(canonicalKeyOf(b));
     expect(canonicalKeyOf(a)).toBe(canonicalKeyOf(c));
   });
@@ -85,8 +104,14 @@ describe("enumeration by canonical augmentation", () => {
   it("finds exactly Smith's graphs with ρ < 2 and ρ = 2 on up to 20 vertices", () => {
     // J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3: ρ < 2 exactly for A_n (n ≥ 1),
     // D_n (n ≥ 4), E6, E7, E8; ρ = 2 exactly for C_n (n ≥ 3), D̃_{n−1} on n ≥ 5 vertices, Ẽ6, Ẽ7, Ẽ8 on 7, 8, 9.
-    const below = Array.from({ length: 20 }, (_, i) => { const n = i + 1; return 1 + (n >= 4 ? 1 : 0) + (n >= 6 && n <= 8 ? 1 : 0); });
-    const equal = Array.from({ length: 20 }, (_, i) => { const n = i + 1; return (n >= 3 ? 1 : 0) + (n >= 5 ? 1 : 0) + (n >= 7 && n <= 9 ? 1 : 0); });
+    const below = Array.from({ length: 20 }, (_, i) => {
+      const n = i + 1;
+      return 1 + (n >= 4 ? 1 : 0) + (n >= 6 && n <= 8 ? 1 : 0);
+    });
+    const equal = Array.from({ length: 20 }, (_, i) => {
+      const n = i + 1;
+      return (n >= 3 ? 1 : 0) + (n >= 5 ? 1 : 0) + (n >= 7 && n <= 9 ? 1 : 0);
+    });
     const lt = generateConnected({ maxVertices: 20, spectral: { op: "<", bound: parseBound("2") }, budget: budget() });
     const le = generateConnected({ maxVertices: 20, spectral: { op: "<=", bound: parseBound("2") }, budget: budget() });
     expect(lt.counts).toEqual(below);
@@ -94,7 +119,13 @@ describe("enumeration by canonical augmentation", () => {
     // Each graph with ρ < 2 is identified as a Dynkin diagram by the independent identification check.
     for (const g of lt.levels.flat()) expect(identifySmith(g, undefined, budget()).status).toBe("verified");
     // The trees among them: every graph with ρ ≤ 2 but the cycles.
-    const trees = generateConnected({ maxVertices: 20, setting: { kind: "tree" }, spectral: { op: "<=", bound: parseBound("2") }, budget: budget(), collect: false });
+    const trees = generateConnected({
+      maxVertices: 20,
+      setting: { kind: "tree" },
+      spectral: { op: "<=", bound: parseBound("2") },
+      budget: budget(),
+      collect: false,
+    });
     expect(trees.counts).toEqual(le.counts.map((x, i) => x - (i >= 2 ? 1 : 0)));
   });
 
@@ -108,7 +139,8 @@ describe("enumeration by canonical augmentation", () => {
       // Every part below the split level does some of the work.
       expect(parts.every((p) => p.counts.some((c) => c > 0))).toBe(true);
     }
-    const rho = (index: number, of: number) => generateConnected({ maxVertices: 14, spectral: { op: "<=", bound: parseBound("sqrt(2+sqrt(5))") }, part: { index, of }, budget: budget() });
+    const rho = (index: number, of: number) =>
+      generateConnected({ maxVertices: 14, spectral: { op: "<=", bound: parseBound("sqrt(2+sqrt(5))") }, part: { index, of }, budget: budget() });
     const all = rho(0, 1).levels.flat();
     expect(keys([0, 1, 2, 3].flatMap((i) => rho(i, 4).levels.flat()))).toEqual(keys(all));
     expect(() => rho(4, 4)).toThrow(/parts are numbered 0\.\.3/);
@@ -139,7 +171,8 @@ describe("enumeration by canonical augmentation", () => {
   });
 
   it.skipIf(!geng)("agrees with nauty (geng | vcolg | multig) on connected graphs with loops and multiple edges", () => {
-    const vcolg = nautyTool("vcolg")!, multig = nautyTool("multig")!;
+    const vcolg = nautyTool("vcolg")!,
+      multig = nautyTool("multig")!;
     const counted = (cmd: string) => Number(/(\d+) (?:coloured graphs|multigraphs) generated/.exec(sh(`${cmd} 2>&1`))![1]);
     // Loop weight ≤ 1 is a vertex colour out of 2; multiplicity ≤ 2 is nauty's multig -m2.
     const loops = count(6, { kind: "multigraph", maxMultiplicity: 1, maxLoop: 1 });
@@ -150,8 +183,14 @@ describe("enumeration by canonical augmentation", () => {
     for (let n = 2; n <= 4; n++) expect(both[n - 1]).toBe(counted(`${geng} -cq ${n} | ${vcolg} -T -m2 | ${multig} -V -u -m2`));
     // Bounded: the same graphs with ρ ≤ 2 as nauty's list filtered by the exact verdict, n ≤ 4.
     const b = parseBound("2");
-    const ours = generateConnected({ maxVertices: 4, setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 1 }, spectral: { op: "<=", bound: b }, budget: budget() }).levels.flat();
-    const theirs = [1, 2, 3, 4].flatMap((n) => parseNautyText(sh(n === 1 ? `printf '1 0 0\\n1 0 1\\n'` : `${geng} -cq ${n} | ${vcolg} -T -m2 | ${multig} -V -T -m2`)))
+    const ours = generateConnected({
+      maxVertices: 4,
+      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 1 },
+      spectral: { op: "<=", bound: b },
+      budget: budget(),
+    }).levels.flat();
+    const theirs = [1, 2, 3, 4]
+      .flatMap((n) => parseNautyText(sh(n === 1 ? `printf '1 0 0\\n1 0 1\\n'` : `${geng} -cq ${n} | ${vcolg} -T -m2 | ${multig} -V -T -m2`)))
       .filter((g) => spectralRadiusBound(g, "<=", b, budget()).status === "verified");
     expect(ours.length).toBeGreaterThan(0);
     expect(keys(ours)).toEqual(keys(theirs));

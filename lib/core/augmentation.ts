@@ -40,9 +40,7 @@ import { canonicalLabelling, equitableCells } from "./canonical-label";
 import { spectralRadiusSign } from "./inertia";
 
 export type EnumerationSetting =
-  | { readonly kind: "simple" }
-  | { readonly kind: "tree" }
-  | { readonly kind: "multigraph"; readonly maxMultiplicity: number; readonly maxLoop: number };
+  { readonly kind: "simple" } | { readonly kind: "tree" } | { readonly kind: "multigraph"; readonly maxMultiplicity: number; readonly maxLoop: number };
 
 export const SIMPLE: EnumerationSetting = { kind: "simple" };
 
@@ -95,7 +93,8 @@ interface Node {
 /** Runs the generation; see the module comment. */
 export function generateConnected(options: GenerationOptions): GenerationResult {
   const N = options.maxVertices;
-  if (!Number.isSafeInteger(N) || N < 1 || N > GENERATION_MAX_VERTICES) throw new RangeError(`the number of vertices must be 1..${GENERATION_MAX_VERTICES}, got ${N}`);
+  if (!Number.isSafeInteger(N) || N < 1 || N > GENERATION_MAX_VERTICES)
+    throw new RangeError(`the number of vertices must be 1..${GENERATION_MAX_VERTICES}, got ${N}`);
   const setting = options.setting ?? SIMPLE;
   const M = setting.kind === "multigraph" ? setting.maxMultiplicity : 1;
   const L = setting.kind === "multigraph" ? setting.maxLoop : 0;
@@ -137,11 +136,20 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     if (b!.kind === "rational") {
       const v = b!.value;
       if (v.num <= 0n) return false;
-      const lhs = BigInt(s) * v.den * v.den, rhs = v.num * v.num; // s vs b², never equal (s not a square... b² may still equal s)
+      const lhs = BigInt(s) * v.den * v.den,
+        rhs = v.num * v.num; // s vs b², never equal (s not a square... b² may still equal s)
       return op === "<" ? lhs < rhs : lhs <= rhs;
     }
     // Irrational b: ρ(K_{1,s}) = √s (Brouwer & Haemers §1.4.2), so the exact verdict on the star decides it.
-    return spectralRadiusSign(makeGraph(s + 1, Array.from({ length: s }, (_, i) => ({ u: 0, v: i + 1 }))), op!, b!, budget);
+    return spectralRadiusSign(
+      makeGraph(
+        s + 1,
+        Array.from({ length: s }, (_, i) => ({ u: 0, v: i + 1 })),
+      ),
+      op!,
+      b!,
+      budget,
+    );
   };
   const avgMemo = new Map<string, boolean>();
   const averageAllowed = (total: number, n: number): boolean => {
@@ -169,16 +177,23 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
       for (let u = 0; u < n; u++) s += W[v * N + u];
       if (s > maxRow) maxRow = s;
     }
-    if (rowSumEnough(maxRow)) { stats.rowSum++; return true; }
+    if (rowSumEnough(maxRow)) {
+      stats.rowSum++;
+      return true;
+    }
     const v = vectorVerdict(W, n);
-    if (v !== undefined) { stats.vector++; return v; }
+    if (v !== undefined) {
+      stats.vector++;
+      return v;
+    }
     stats.elimination++;
     return spectralRadiusSign(toGraph(W, n), op!, b, budget);
   };
 
   /** Power iteration on A + I (a hint), then exact integer checks; undefined when neither decides. */
   const vectorVerdict = (W: Int32Array, n: number): boolean | undefined => {
-    let x = new Float64Array(n).fill(1), y = new Float64Array(n);
+    let x = new Float64Array(n).fill(1),
+      y = new Float64Array(n);
     for (let it = 0; it < 60; it++) {
       let top = 0;
       for (let v = 0; v < n; v++) {
@@ -191,9 +206,11 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
       [x, y] = [y, x];
     }
     budget.tick(60 * n);
-    const xi = new Array<bigint>(n), yi = new Array<bigint>(n);
+    const xi = new Array<bigint>(n),
+      yi = new Array<bigint>(n);
     for (let v = 0; v < n; v++) xi[v] = BigInt(Math.max(1, Math.round(x[v] * 65536)));
-    let xAx = 0n, xx = 0n;
+    let xAx = 0n,
+      xx = 0n;
     for (let v = 0; v < n; v++) {
       let s = 0n;
       for (let u = 0; u < n; u++) if (W[v * N + u]) s += BigInt(W[v * N + u]) * xi[u];
@@ -243,7 +260,8 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     if (k >= N) return [];
     const W = node.W;
     const gens = generatorsOf(node);
-    const rowNorm = new Array<number>(k).fill(0), rowSum = new Array<number>(k).fill(0);
+    const rowNorm = new Array<number>(k).fill(0),
+      rowSum = new Array<number>(k).fill(0);
     let total = 0;
     for (let v = 0; v < k; v++)
       for (let u = 0; u < k; u++) {
@@ -272,7 +290,10 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
             for (let v = 0; v < k; v++) img[g[v]] = cur[v];
             let ic = 0;
             for (let v = k - 1; v >= 0; v--) ic = ic * base + img[v];
-            if (!seen.has(ic)) { seen.add(ic); stack.push(img); }
+            if (!seen.has(ic)) {
+              seen.add(ic);
+              stack.push(img);
+            }
           }
         }
         const added = c.reduce((s, x) => s + x, 0);
@@ -280,7 +301,11 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
         stats.candidates++;
         const H = new Int32Array(N * N);
         H.set(W);
-        for (let v = 0; v < k; v++) if (c[v]) { H[v * N + k] = c[v]; H[k * N + v] = c[v]; }
+        for (let v = 0; v < k; v++)
+          if (c[v]) {
+            H[v * N + k] = c[v];
+            H[k * N + v] = c[v];
+          }
         H[k * N + k] = loop;
         const child: Node = { n: k + 1, W: H };
         if (accept(child)) out.push(child);
@@ -309,7 +334,9 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
 
   /** Whether the child H = G + x (x = the last vertex) is kept: spectral test, then McKay's parent test. */
   const accept = (node: Node): boolean => {
-    const n = node.n, W = node.W, x = n - 1;
+    const n = node.n,
+      W = node.W,
+      x = n - 1;
     const deg = new Array<number>(n).fill(0);
     const masks = new Array<number>(n).fill(0);
     for (let v = 0; v < n; v++)
@@ -324,12 +351,13 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
       return [deg[v], s];
     };
     const fx = f(x);
-    const all = (1 << n) - 1 >>> 0;
+    const all = ((1 << n) - 1) >>> 0;
     const eligible = (v: number): boolean => {
       // H − v connected: a breadth-first sweep over bit masks.
       const rest = (all & ~(1 << v)) >>> 0;
       if (rest === 0) return true;
-      let seen = rest & -rest, frontier = seen;
+      let seen = rest & -rest,
+        frontier = seen;
       while (frontier) {
         let next = 0;
         let fr = frontier;
@@ -342,7 +370,7 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
         seen |= next;
         frontier = next;
       }
-      return (seen >>> 0) === rest;
+      return seen >>> 0 === rest;
     };
     const ties: number[] = [];
     for (let v = 0; v < x; v++) {
@@ -350,7 +378,10 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
       const cmpf = fv[0] - fx[0] || fv[1] - fx[1];
       if (cmpf > 0) continue;
       if (!eligible(v)) continue;
-      if (cmpf < 0) { stats.invariantRejected++; return false; }
+      if (cmpf < 0) {
+        stats.invariantRejected++;
+        return false;
+      }
       ties.push(v);
     }
     if (!spectralOk(W, n)) return false;
@@ -361,7 +392,10 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     const cell = equitableCells(n, D, budget);
     let first = cell[x];
     for (const v of ties) if (cell[v] < first) first = cell[v];
-    if (cell[x] !== first) { stats.invariantRejected++; return false; }
+    if (cell[x] !== first) {
+      stats.invariantRejected++;
+      return false;
+    }
     const rivals = ties.filter((v) => cell[v] === first);
     if (rivals.length === 0) return true;
     stats.labellings++;

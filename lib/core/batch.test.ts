@@ -48,7 +48,9 @@ describe("batch claim over the trees on 10 vertices", () => {
     expect(results.filter((r) => r.verdict === "refuted")).toHaveLength(104);
     const degrees = verified.map((r) => {
       const g = parseGraph6(r.graph6!);
-      return Array.from({ length: g.n }, (_, v) => degree(g, v)).sort((a, b) => b - a).join("");
+      return Array.from({ length: g.n }, (_, v) => degree(g, v))
+        .sort((a, b) => b - a)
+        .join("");
     });
     // A₁₀: the path (two leaves, eight vertices of degree 2); D₁₀: one vertex of degree 3 and three leaves.
     expect(degrees.sort()).toEqual(["2222222211", "3222222111"].sort());
@@ -57,7 +59,9 @@ describe("batch claim over the trees on 10 vertices", () => {
 
   it("reports a bad line by its number and still checks the others", () => {
     const lines = text.trimEnd().split("\n");
-    const bad = [...lines.slice(0, 3), `${lines[3].slice(0, 4)}!${lines[3].slice(5)}` /* "!" (byte 33) is no graph6/sparse6 byte */, ...lines.slice(4, 6)].join("\n") + "\n";
+    const bad =
+      [...lines.slice(0, 3), `${lines[3].slice(0, 4)}!${lines[3].slice(5)}` /* "!" (byte 33) is no graph6/sparse6 byte */, ...lines.slice(4, 6)].join("\n") +
+      "\n";
     const list = splitGraphList(bad, format);
     const results = checkListedGraphs(list, format, { kind: "spectral-radius-bound", op: "<=", bound: "2" }, 0, list.length, 10_000_000);
     expect(results.map((r) => r.verdict === "unreadable")).toEqual([false, false, false, true, false, false]);

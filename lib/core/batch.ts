@@ -46,7 +46,13 @@ function checkOne(g: Graph, op: Relation, bound: Bound, stepLimit: number): Omit
   const shape = { graph6: isSimple(g) && g.n > 0 ? writeGraph6(g) : null, vertices: g.n, edges: g.edges.length };
   try {
     const v = spectralRadiusBound(g, op, bound, new Budget(stepLimit));
-    return { ...shape, verdict: v.status, method: v.method.slice(0, 200), reason: v.reason, certificate: v.certificate === undefined ? null : JSON.stringify(v.certificate) };
+    return {
+      ...shape,
+      verdict: v.status,
+      method: v.method.slice(0, 200),
+      reason: v.reason,
+      certificate: v.certificate === undefined ? null : JSON.stringify(v.certificate),
+    };
   } catch (e) {
     // Only input the verdict cannot be stated for (a graph with no vertices) reaches here.
     return { ...shape, verdict: "undecided", method: null, reason: (e as Error).message, certificate: null };
@@ -73,7 +79,17 @@ export function checkListedGraphs(
     try {
       g = readListedGraph(entry, format);
     } catch (e) {
-      out.push({ entry: i, line: entry.line, verdict: "unreadable", graph6: null, vertices: null, edges: null, method: null, reason: describeListProblem(entry, e), certificate: null });
+      out.push({
+        entry: i,
+        line: entry.line,
+        verdict: "unreadable",
+        graph6: null,
+        vertices: null,
+        edges: null,
+        method: null,
+        reason: describeListProblem(entry, e),
+        certificate: null,
+      });
       continue;
     }
     out.push({ entry: i, line: entry.line, ...checkOne(g, statement.op, bound, stepLimit) });

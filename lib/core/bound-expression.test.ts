@@ -75,7 +75,12 @@ describe("bounds as algebraic expressions, reduced to a minimal polynomial", () 
 
 describe("bound messages (each one)", () => {
   const message = (t: string) => {
-    try { parseBound(t); } catch (e) { expect(e).toBeInstanceOf(NumberFormatError); return (e as Error).message; }
+    try {
+      parseBound(t);
+    } catch (e) {
+      expect(e).toBeInstanceOf(NumberFormatError);
+      return (e as Error).message;
+    }
     throw new Error(`no error for ${t}`);
   };
   it("says what is wrong and where", () => {
@@ -104,7 +109,8 @@ describe("bound messages (each one)", () => {
 
 describe("verdicts with expression bounds", () => {
   it("ρ(Ẽ8) = 2 (Smith graphs have spectral radius 2; Brouwer & Haemers §3.1.1), written several ways", () => {
-    for (const b of ["2", "2cos(0)", "sqrt(4)", "phi^2 - phi + 1", "(1+sqrt(5))/2 + (1-sqrt(5))/2 + 1"]) expect(status(named("E~(8)"), "=", b), b).toBe("verified");
+    for (const b of ["2", "2cos(0)", "sqrt(4)", "phi^2 - phi + 1", "(1+sqrt(5))/2 + (1-sqrt(5))/2 + 1"])
+      expect(status(named("E~(8)"), "=", b), b).toBe("verified");
   });
   it("T(1,2,6) lies between 2 and √(2+√5) = √φ + 1/√φ (ρ(T(1,2,k)) increases to τ^(1/2)+τ^(−1/2); Brouwer & Haemers §3.1.1)", () => {
     const t126 = named("starlike(1,2,6)");
@@ -123,24 +129,39 @@ describe("an expression and its root(...) normal form give the same verdict (pro
   // Small expressions (degree at most 16): random rationals and a few irrational atoms, two operations deep.
   const atom = fc.oneof(
     fc.constantFrom("sqrt(2)", "sqrt(3)", "phi", "2cos(pi/7)", "sqrt(2+sqrt(5))", "cos(pi/9)", "sqrt(5)"),
-    fc.tuple(fc.integer({ min: -9, max: 9 }), fc.integer({ min: 1, max: 5 })).map(([p, q]) => `(${p}/${q})`));
+    fc.tuple(fc.integer({ min: -9, max: 9 }), fc.integer({ min: 1, max: 5 })).map(([p, q]) => `(${p}/${q})`),
+  );
   const op = fc.constantFrom("+", "-", "*", "/");
   const expression = fc.tuple(atom, op, atom, op, fc.constantFrom("1", "2", "3/2", "sqrt(2)")).map(([a, o, b, o2, c]) => `(${a}${o}${b})${o2}${c}`);
   const graph = fc.integer({ min: 2, max: 7 }).chain((n) =>
-    fc.array(fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 0, max: n - 1 })), { minLength: 1, maxLength: 12 })
-      .map((es) => {
-        const seen = new Set<string>();
-        const lines = [`n = ${n}`, "base = 0"];
-        for (const [u, v] of es) { const k = u < v ? `${u} ${v}` : `${v} ${u}`; if (u !== v && !seen.has(k)) { seen.add(k); lines.push(k); } }
-        return { format: "edges", text: lines.join("\n") };
-      }));
+    fc.array(fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 0, max: n - 1 })), { minLength: 1, maxLength: 12 }).map((es) => {
+      const seen = new Set<string>();
+      const lines = [`n = ${n}`, "base = 0"];
+      for (const [u, v] of es) {
+        const k = u < v ? `${u} ${v}` : `${v} ${u}`;
+        if (u !== v && !seen.has(k)) {
+          seen.add(k);
+          lines.push(k);
+        }
+      }
+      return { format: "edges", text: lines.join("\n") };
+    }),
+  );
   it("on random graphs and random expressions", () => {
-    fc.assert(fc.property(expression, graph, fc.constantFrom("<", "<=", "=", ">=", ">"), (e, g, op) => {
-      let b;
-      try { b = parseBound(e); } catch (err) { if (err instanceof NumberFormatError && /division by zero/.test(err.message)) return; throw err; }
-      const normal = boundRootForm(b);
-      expect(compareToBound(rat(0), parseBound(normal))).toBe(compareToBound(rat(0), b));
-      expect(status(g, op, normal)).toBe(status(g, op, e));
-    }), { numRuns: 40, seed: 17 });
+    fc.assert(
+      fc.property(expression, graph, fc.constantFrom("<", "<=", "=", ">=", ">"), (e, g, op) => {
+        let b;
+        try {
+          b = parseBound(e);
+        } catch (err) {
+          if (err instanceof NumberFormatError && /division by zero/.test(err.message)) return;
+          throw err;
+        }
+        const normal = boundRootForm(b);
+        expect(compareToBound(rat(0), parseBound(normal))).toBe(compareToBound(rat(0), b));
+        expect(status(g, op, normal)).toBe(status(g, op, e));
+      }),
+      { numRuns: 40, seed: 17 },
+    );
   });
 });

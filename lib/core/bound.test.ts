@@ -54,7 +54,13 @@ describe("parseBound", () => {
     expect(() => parseBound("root(x^2-1, 1, 2)")).toThrow(/endpoint/);
   });
   it("parse errors name the column", () => {
-    const cases: Array<[string, number]> = [["sqrt(5", 7], ["2cos(p/7)", 6], ["sqrt(-3)", 6], ["5/2x", 4], ["1/0", 3]];
+    const cases: Array<[string, number]> = [
+      ["sqrt(5", 7],
+      ["2cos(p/7)", 6],
+      ["sqrt(-3)", 6],
+      ["5/2x", 4],
+      ["1/0", 3],
+    ];
     for (const [t, col] of cases) {
       try {
         parseBound(t);

@@ -23,8 +23,23 @@ import { Poly, trim, signAt, sturmSequence, signVariations, deg, polyToString } 
 import { minimalPolynomial2Cos } from "./cyclotomic";
 import { FactorLimitError } from "./factor";
 import {
-  Bound, AlgebraicBound, rationalBound, algebraicBound, enclose, isolateByRank, BoundValueError, MAX_EXPRESSION_DEGREE, MAX_EXPONENT,
-  plus, minus, times, quotient, power, negate, squareRoot, rootOf,
+  Bound,
+  AlgebraicBound,
+  rationalBound,
+  algebraicBound,
+  enclose,
+  isolateByRank,
+  BoundValueError,
+  MAX_EXPRESSION_DEGREE,
+  MAX_EXPONENT,
+  plus,
+  minus,
+  times,
+  quotient,
+  power,
+  negate,
+  squareRoot,
+  rootOf,
 } from "./algebraic";
 
 export type { Bound, AlgebraicBound } from "./algebraic";
@@ -39,7 +54,8 @@ export function compareToBound(x: Rational, b: Bound): -1 | 0 | 1 {
   if (b.form === "sqrt" && deg(b.poly) === 2 && b.poly[1] === 0n) {
     // b = sqrt(u/v) > 0 with poly v x^2 - u: compare signs, then squares.
     if (sign(x) <= 0) return -1;
-    const v = b.poly[2], u = -b.poly[0];
+    const v = b.poly[2],
+      u = -b.poly[0];
     const d = x.num * x.num * v - u * x.den * x.den;
     return d > 0n ? 1 : d < 0n ? -1 : 0;
   }
@@ -98,7 +114,10 @@ class Parser {
   }
   eat(tok: string): boolean {
     this.skipSpace();
-    if (this.s.slice(this.i, this.i + tok.length).toLowerCase() === tok) { this.i += tok.length; return true; }
+    if (this.s.slice(this.i, this.i + tok.length).toLowerCase() === tok) {
+      this.i += tok.length;
+      return true;
+    }
     return false;
   }
   eatAny(...toks: string[]): boolean {
@@ -220,8 +239,14 @@ class Parser {
       arg = this.primary();
       return squareRoot(arg, this.text(start), at);
     }
-    if (name === "root") { this.i += 4; return this.root(start); }
-    if (name === "cos" || name === "sin") { this.i += 3; return this.cosine(start, name); }
+    if (name === "root") {
+      this.i += 4;
+      return this.root(start);
+    }
+    if (name === "cos" || name === "sin") {
+      this.i += 3;
+      return this.cosine(start, name);
+    }
     if (name === "phi" || this.eatAny("φ", "ϕ")) {
       if (name === "phi") this.i += 3;
       return goldenRatio(this.text(start));
@@ -232,12 +257,18 @@ class Parser {
   /** cos(pπ/q) or sin(pπ/q): half of 2cos(pπ/q); sin(pπ/q) = cos((q − 2p)π/(2q)). */
   cosine(start: number, name: "cos" | "sin"): Bound {
     this.expect("(");
-    let p = 1n, q = 1n;
+    let p = 1n,
+      q = 1n;
     const negative = this.eatAny("-", "−");
     this.skipSpace();
-    if (/^0\s*\)/.test(this.s.slice(this.i))) { this.integer(); p = 0n; }
-    else {
-      if (/^\d/.test(this.s.slice(this.i))) { p = this.integer(); this.eatAny("*", "·"); }
+    if (/^0\s*\)/.test(this.s.slice(this.i))) {
+      this.integer();
+      p = 0n;
+    } else {
+      if (/^\d/.test(this.s.slice(this.i))) {
+        p = this.integer();
+        this.eatAny("*", "·");
+      }
       if (!(this.eat("pi") || this.eat("π"))) this.fail(`expected "pi" or "π" in ${name}(...): angles are rational multiples of π, as in ${name}(3pi/7)`);
       if (this.eatAny("*", "·")) p *= this.integer();
       if (this.eat("/")) {
@@ -248,7 +279,9 @@ class Parser {
     }
     if (negative) p = -p;
     this.expect(")");
-    if (name === "sin") { [p, q] = [q - 2n * p, 2n * q]; }
+    if (name === "sin") {
+      [p, q] = [q - 2n * p, 2n * q];
+    }
     const text = this.text(start);
     const two = twoCosBound(p, q, text);
     return times(two, rationalBound(rat(1n, 2n)), text);
@@ -288,9 +321,11 @@ export function simpleIsolatingInterval(b: AlgebraicBound): { lo: Rational; hi: 
   for (let k = 0n; k < 200n; k++) {
     const den = 1n << k;
     const { lo, hi } = enclose(b, Number(k) + 2);
-    const fl = floor(rat(lo.num * den, lo.den)), fh = floor(rat(hi.num * den, hi.den));
+    const fl = floor(rat(lo.num * den, lo.den)),
+      fh = floor(rat(hi.num * den, hi.den));
     if (fl !== fh) continue;
-    const l = rat(fl, den), h = rat(fl + 1n, den);
+    const l = rat(fl, den),
+      h = rat(fl + 1n, den);
     if (signAt(b.poly, l) === 0 || signAt(b.poly, h) === 0) continue;
     if (signVariations(seq, l) - signVariations(seq, h) === 1) return { lo: l, hi: h };
   }
@@ -308,7 +343,10 @@ const SUPERSCRIPT: Record<string, string> = { 0: "⁰", 1: "¹", 2: "²", 3: "³
 
 /** x^4 - 4x^2 - 1 as x⁴−4x²−1 (display only). */
 export function prettyPolynomial(p: Poly): string {
-  return polyToString(p).replace(/\^(\d+)/g, (_, d: string) => [...d].map((c) => SUPERSCRIPT[c]).join("")).replace(/ /g, "").replace(/-/g, "−");
+  return polyToString(p)
+    .replace(/\^(\d+)/g, (_, d: string) => [...d].map((c) => SUPERSCRIPT[c]).join(""))
+    .replace(/ /g, "")
+    .replace(/-/g, "−");
 }
 
 export interface BoundNormalForm {
@@ -333,10 +371,19 @@ export interface BoundNormalForm {
 }
 
 export function describeBound(b: Bound): BoundNormalForm {
-  const approx = boundApprox(b).toPrecision(7).replace(/\.?0+$/, "");
+  const approx = boundApprox(b)
+    .toPrecision(7)
+    .replace(/\.?0+$/, "");
   if (b.kind === "rational") {
     const v = ratToString(b.value);
-    return { text: b.text, kind: b.kind, value: v, rootForm: v, approx, sentence: `= ${v}${v === b.text.replace(/\s+/g, "") ? "" : `, as you wrote: ${b.text}`}` };
+    return {
+      text: b.text,
+      kind: b.kind,
+      value: v,
+      rootForm: v,
+      approx,
+      sentence: `= ${v}${v === b.text.replace(/\s+/g, "") ? "" : `, as you wrote: ${b.text}`}`,
+    };
   }
   const { lo, hi } = simpleIsolatingInterval(b);
   const minimal = b.minimal !== false;
@@ -349,12 +396,17 @@ export function describeBound(b: Bound): BoundNormalForm {
 /** 2cos(pi p/q) as an exact bound (rational when p/q makes it one of -2, -1, 0, 1, 2). */
 export function twoCosBound(p: bigint, q: bigint, text = `2cos(${p}pi/${q})`): Bound {
   const g = gcdBig(p, q);
-  p /= g; q /= g;
-  if (q < 0n) { p = -p; q = -q; }
+  p /= g;
+  q /= g;
+  if (q < 0n) {
+    p = -p;
+    q = -q;
+  }
   p = ((p % (2n * q)) + 2n * q) % (2n * q);
   if (p > q) p = 2n * q - p; // cos is even and 2pi-periodic: angle now pi p/q in [0, pi]
   const odd = p % 2n === 1n;
-  const N = Number(odd ? 2n * q : q), k0 = Number(odd ? p : p / 2n);
+  const N = Number(odd ? 2n * q : q),
+    k0 = Number(odd ? p : p / 2n);
   // Parsing is not under a step budget and isolating a root of Psi_N costs steeply in N (about 9 s at
   // q = 293, minutes at q = 1001), so q is capped like the Coxeter number h of eigenvalue claims.
   if (q > 300n) throw new NumberFormatError(`2cos(pi p/q) needs q <= 300 (in lowest terms), got ${q}`);
@@ -412,8 +464,7 @@ export function parsePolynomial(text: string, columnOffset = 0): Poly {
       throw new NumberFormatError(`cannot read the polynomial "${text}" here (use integer coefficients in x, e.g. x^4-4x^2-1)`, columnOffset + i + 1);
     // Parsing and root isolation run before any step budget exists, so the size of a polynomial is
     // capped here (degree as for 2cos(πp/q) bounds; coefficients of at most 200 digits).
-    if (m[2].length > MAX_COEFFICIENT_DIGITS)
-      throw new NumberFormatError(`a coefficient has more than ${MAX_COEFFICIENT_DIGITS} digits`, columnOffset + i + 1);
+    if (m[2].length > MAX_COEFFICIENT_DIGITS) throw new NumberFormatError(`a coefficient has more than ${MAX_COEFFICIENT_DIGITS} digits`, columnOffset + i + 1);
     const c = BigInt(m[2] === "" ? "1" : m[2]) * (m[1] === "-" ? -1n : 1n);
     const e = m[3] === undefined ? 0 : m[4] === undefined ? 1 : Number(m[4]);
     if (e > MAX_POLYNOMIAL_DEGREE) throw new NumberFormatError(`polynomial degree above ${MAX_POLYNOMIAL_DEGREE}`, columnOffset + i + 1);

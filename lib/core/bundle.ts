@@ -67,11 +67,13 @@ export function itemDigest(item: { id: string; type: string; data: unknown }): s
 }
 
 export function manifestDigestOf(bundle: Pick<Bundle, "format" | "export" | "items">): string {
-  return sha256Hex(canonicalJson({
-    format: bundle.format,
-    export: bundle.export,
-    items: bundle.items.map((i) => ({ id: i.id, type: i.type, sha256: i.sha256 })),
-  }));
+  return sha256Hex(
+    canonicalJson({
+      format: bundle.format,
+      export: bundle.export,
+      items: bundle.items.map((i) => ({ id: i.id, type: i.type, sha256: i.sha256 })),
+    }),
+  );
 }
 
 /** Seals items and a header into a bundle: per-item digests, then the manifest digest. */
@@ -128,11 +130,14 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   if (changed) problems.push("CHANGED since export: its content no longer matches its SHA-256");
   if (recorded === "pending") problems.push(`the claim had not been checked when it was exported (pending); the re-check gives "${v.status}"`);
   else if (recorded !== v.status) problems.push(`the bundle records "${recorded}" but the re-check gives "${v.status}"`);
-  if (data.digest && data.digest !== claimDigest(claim)) problems.push(`the recorded claim digest ${short(data.digest)} is not the claim's digest ${short(fresh.digest)}`);
+  if (data.digest && data.digest !== claimDigest(claim))
+    problems.push(`the recorded claim digest ${short(data.digest)} is not the claim's digest ${short(fresh.digest)}`);
   if (recorded === "verified" && !hasCertificate) problems.push("a verified claim without its certificate");
-  const named = typeof data.verdict.method === "string" && data.verdict.method.includes(CERTIFICATE_SEPARATOR) ? data.verdict.method.split(CERTIFICATE_SEPARATOR)[1] : null;
-  const carried = hasCertificate ? certificateKindOf(claim.kind, data.certificate)?.words ?? null : null;
-  if (named !== null && named !== carried) problems.push(`the recorded method names a certificate of kind "${named}" but the certificate carried is ${carried ? `of kind "${carried}"` : "none"}`);
+  const named =
+    typeof data.verdict.method === "string" && data.verdict.method.includes(CERTIFICATE_SEPARATOR) ? data.verdict.method.split(CERTIFICATE_SEPARATOR)[1] : null;
+  const carried = hasCertificate ? (certificateKindOf(claim.kind, data.certificate)?.words ?? null) : null;
+  if (named !== null && named !== carried)
+    problems.push(`the recorded method names a certificate of kind "${named}" but the certificate carried is ${carried ? `of kind "${carried}"` : "none"}`);
   const certificate = fresh.certificateCheck && {
     matches: fresh.certificateCheck.matches,
     text: fresh.certificateCheck.matches
@@ -142,7 +147,14 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   const reason = v.status === "verified" ? "" : `  — ${v.reason}`;
   const status = problems.length > 0 && v.status === "verified" ? "refuted" : v.status;
   const text = `${problems.length ? problems.join("; ") + ". " : ""}${v.statement}  (${v.method})${reason}`;
-  return { label, status, text, ...(certificate ? { certificate } : {}), ...claimLineFields(fresh), ...(problems.length ? { reason: [...problems, v.reason].join("; ") } : {}) };
+  return {
+    label,
+    status,
+    text,
+    ...(certificate ? { certificate } : {}),
+    ...claimLineFields(fresh),
+    ...(problems.length ? { reason: [...problems, v.reason].join("; ") } : {}),
+  };
 }
 
 /**
@@ -158,7 +170,8 @@ function checkStepCover(item: BundleItem, claimItems: readonly BundleItem[]): Bu
   const vouches = (Array.isArray(data.reviews) ? data.reviews : []).filter(
     (v): v is Record<string, unknown> => isRecord(v) && (v.verdict === "vouch" || v.verdict === "vouch"),
   );
-  if (typeof r.digest !== "string") return vouches.length ? { label: item.id, status: "refuted", text: "vouches are recorded but the revision carries no digest of what they cover" } : null;
+  if (typeof r.digest !== "string")
+    return vouches.length ? { label: item.id, status: "refuted", text: "vouches are recorded but the revision carries no digest of what they cover" } : null;
   if (typeof r.number !== "number" || typeof r.body !== "string" || !Array.isArray(r.claims))
     return { label: item.id, status: "malformed", text: "the revision needs a number, a body and a list of claims" };
   const claims = (r.claims as unknown[]).map((c) => (isRecord(c) ? { digest: String(c.digest), status: String(c.status) } : { digest: "", status: "" }));
@@ -170,14 +183,18 @@ function checkStepCover(item: BundleItem, claimItems: readonly BundleItem[]): Bu
     return { digest: String(d?.digest ?? ""), status: String(isRecord(d?.verdict) ? d.verdict.status : "") };
   });
   if (inBundle.length !== claims.length || inBundle.some((c, i) => c.digest !== claims[i].digest || c.status !== claims[i].status))
-    problems.push(`the bundle's ${inBundle.length} claim(s) of this step are not the ${claims.length} claim(s) (with their verdicts) that revision ${r.number} covers`);
+    problems.push(
+      `the bundle's ${inBundle.length} claim(s) of this step are not the ${claims.length} claim(s) (with their verdicts) that revision ${r.number} covers`,
+    );
   let current = 0;
   for (const v of vouches) {
     const who = String(v.reviewer ?? "a referee");
     if (v.revision === r.number) {
       current++;
-      if (v.digest !== recomputed) problems.push(`the vouch by ${who} records digest ${short(v.digest)}, but revision ${r.number} (text and claims) digests to ${short(recomputed)}`);
-    } else if (v.superseded !== true) problems.push(`the vouch by ${who} on revision ${String(v.revision)} is counted, but it does not cover revision ${r.number}`);
+      if (v.digest !== recomputed)
+        problems.push(`the vouch by ${who} records digest ${short(v.digest)}, but revision ${r.number} (text and claims) digests to ${short(recomputed)}`);
+    } else if (v.superseded !== true)
+      problems.push(`the vouch by ${who} on revision ${String(v.revision)} is counted, but it does not cover revision ${r.number}`);
   }
   if (problems.length) return { label: item.id, status: "refuted", text: `${problems.join("; ")}.` };
   if (vouches.length === 0) return null;
@@ -248,12 +265,23 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
   try {
     manifest = manifestDigestOf({ format: BUNDLE_FORMAT, export: header, items: json.items as BundleItem[] });
   } catch (e) {
-    return { source, lines: [...lines, { label: "manifest", status: "malformed", text: `the export header cannot be digested: ${e instanceof Error ? e.message : String(e)}` }], exitCode: 2 };
+    return {
+      source,
+      lines: [
+        ...lines,
+        { label: "manifest", status: "malformed", text: `the export header cannot be digested: ${e instanceof Error ? e.message : String(e)}` },
+      ],
+      exitCode: 2,
+    };
   }
   const items = (json.items as unknown[]).length;
   if (manifest !== json.manifestDigest || extra.length > 0) {
     const why = extra.length ? `unexpected top-level field(s) ${extra.join(", ")}` : `recorded ${short(json.manifestDigest)}, recomputed ${short(manifest)}`;
-    lines.push({ label: "manifest", status: "refuted", text: `CHANGED since export: the manifest digest does not match (${why}); the export header or the list of items was altered` });
+    lines.push({
+      label: "manifest",
+      status: "refuted",
+      text: `CHANGED since export: the manifest digest does not match (${why}); the export header or the list of items was altered`,
+    });
   } else {
     lines.push({
       label: "manifest",
@@ -265,6 +293,10 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
   }
   const checker = header.checkerVersion === CHECKER_VERSION ? "" : ` (exported with ${String(header.checkerVersion)}, re-checked with ${CHECKER_VERSION})`;
   const describeSource = `${source}: ${String(header.kind)} export, ${claims} claim(s), ${items} item(s), exported ${String(header.exportedAt)} by ${String(header.exportedBy)}${checker}; manifest digest ${json.manifestDigest}`;
-  const exitCode = lines.some((l) => l.status === "malformed") ? 2 : lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches)) ? 1 : 0;
+  const exitCode = lines.some((l) => l.status === "malformed")
+    ? 2
+    : lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches))
+      ? 1
+      : 0;
   return { source: describeSource, lines, exitCode };
 }

@@ -52,12 +52,16 @@ const copy = (p: Partition): Partition => ({ lab: p.lab.slice(), cellEnd: p.cell
 export function orbitsOf(n: number, gens: readonly Int32Array[]): Int32Array {
   const parent = new Int32Array(n).map((_, i) => i);
   const find = (x: number): number => {
-    while (parent[x] !== x) { parent[x] = parent[parent[x]]; x = parent[x]; }
+    while (parent[x] !== x) {
+      parent[x] = parent[parent[x]];
+      x = parent[x];
+    }
     return x;
   };
   for (const g of gens)
     for (let v = 0; v < n; v++) {
-      const a = find(v), b = find(g[v]);
+      const a = find(v),
+        b = find(g[v]);
       if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
     }
   const out = new Int32Array(n);
@@ -82,10 +86,16 @@ export function equitableCells(n: number, W: ArrayLike<number>, budget?: Budget)
 
 function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, rootOnly: boolean): CanonicalLabelling | Int32Array {
   // Neighbour lists with weights (the diagonal is handled by the initial partition).
-  const nbr: number[][] = [], nwt: number[][] = [];
+  const nbr: number[][] = [],
+    nwt: number[][] = [];
   for (let v = 0; v < n; v++) {
-    const a: number[] = [], w: number[] = [];
-    for (let u = 0; u < n; u++) if (u !== v && W[v * n + u] !== 0) { a.push(u); w.push(W[v * n + u]); }
+    const a: number[] = [],
+      w: number[] = [];
+    for (let u = 0; u < n; u++)
+      if (u !== v && W[v * n + u] !== 0) {
+        a.push(u);
+        w.push(W[v * n + u]);
+      }
     nbr.push(a);
     nwt.push(w);
   }
@@ -105,12 +115,16 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
       budget?.tick(e - s);
       for (let i = s; i < e; i++) {
         const y = p.lab[i];
-        const ny = nbr[y], wy = nwt[y];
+        const ny = nbr[y],
+          wy = nwt[y];
         for (let k = 0; k < ny.length; k++) {
           const x = ny[k];
           cnt[x] += wy[k];
           const c = p.cellOf[x];
-          if (!mark[c]) { mark[c] = 1; touched.push(c); }
+          if (!mark[c]) {
+            mark[c] = 1;
+            touched.push(c);
+          }
         }
       }
       touched.sort((a, b) => a - b);
@@ -126,18 +140,26 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
         const starts: number[] = [c];
         for (let i = 1; i < seg.length; i++) if (cnt[seg[i]] !== cnt[seg[i - 1]]) starts.push(c + i);
         for (let i = 0; i < seg.length; i++) p.lab[c + i] = seg[i];
-        let largest = c, largestSize = -1;
+        let largest = c,
+          largestSize = -1;
         for (let f = 0; f < starts.length; f++) {
-          const fs = starts[f], fe = f + 1 < starts.length ? starts[f + 1] : end;
+          const fs = starts[f],
+            fe = f + 1 < starts.length ? starts[f + 1] : end;
           p.cellEnd[fs] = fe;
           for (let i = fs; i < fe; i++) p.cellOf[p.lab[i]] = fs;
-          if (fe - fs > largestSize) { largestSize = fe - fs; largest = fs; }
+          if (fe - fs > largestSize) {
+            largestSize = fe - fs;
+            largest = fs;
+          }
         }
         p.cells += starts.length - 1;
         // Hopcroft's rule: a cell already waiting keeps all its fragments waiting; otherwise all but the largest.
         const wasQueued = inQueue[c] === 1;
         for (const fs of starts)
-          if (!inQueue[fs] && (wasQueued || fs !== largest)) { inQueue[fs] = 1; queue.push(fs); }
+          if (!inQueue[fs] && (wasQueued || fs !== largest)) {
+            inQueue[fs] = 1;
+            queue.push(fs);
+          }
       }
       touched.length = 0;
       for (let i = s; i < e; i++) {
@@ -153,10 +175,14 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
   const queue0: number[] = [];
   for (let i = 0; i < n; i++) {
     root.lab[i] = byLoop[i];
-    if (i === 0 || W[byLoop[i] * n + byLoop[i]] !== W[byLoop[i - 1] * n + byLoop[i - 1]]) { root.cells++; queue0.push(i); }
+    if (i === 0 || W[byLoop[i] * n + byLoop[i]] !== W[byLoop[i - 1] * n + byLoop[i - 1]]) {
+      root.cells++;
+      queue0.push(i);
+    }
   }
   for (let k = 0; k < queue0.length; k++) {
-    const s = queue0[k], e = k + 1 < queue0.length ? queue0[k + 1] : n;
+    const s = queue0[k],
+      e = k + 1 < queue0.length ? queue0[k + 1] : n;
     root.cellEnd[s] = e;
     for (let i = s; i < e; i++) root.cellOf[root.lab[i]] = s;
   }
@@ -193,8 +219,10 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
     if (p.cells === n) {
       const key = keyOf(p.lab);
       if (!firstKey) {
-        firstLab = p.lab.slice(); firstKey = key;
-        bestLab = firstLab; bestKey = key;
+        firstLab = p.lab.slice();
+        firstKey = key;
+        bestLab = firstLab;
+        bestKey = key;
         return NORMAL;
       }
       if (compare(key, firstKey) === 0) {
@@ -203,14 +231,21 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
       }
       const c = compare(key, bestKey!);
       if (c === 0) addAutomorphism(p.lab, bestLab!);
-      else if (c > 0) { bestLab = p.lab.slice(); bestKey = key; }
+      else if (c > 0) {
+        bestLab = p.lab.slice();
+        bestKey = key;
+      }
       return NORMAL;
     }
     // Target: the first smallest non-singleton cell.
-    let target = -1, size = n + 1;
+    let target = -1,
+      size = n + 1;
     for (let s = 0; s < n; s = p.cellEnd[s]) {
       const z = p.cellEnd[s] - s;
-      if (z > 1 && z < size) { size = z; target = s; }
+      if (z > 1 && z < size) {
+        size = z;
+        target = s;
+      }
     }
     const verts: number[] = [];
     for (let i = target; i < p.cellEnd[target]; i++) verts.push(p.lab[i]);
@@ -222,13 +257,21 @@ function labelling(n: number, W: ArrayLike<number>, budget: Budget | undefined, 
         const stab: Int32Array[] = [];
         for (const g of generators) {
           let fixes = true;
-          for (const f of fixed) if (g[f] !== f) { fixes = false; break; }
+          for (const f of fixed)
+            if (g[f] !== f) {
+              fixes = false;
+              break;
+            }
           if (fixes) stab.push(g);
         }
         if (stab.length > 0) {
           const orb = orbitsOf(n, stab);
           let same = false;
-          for (const t of tried) if (orb[t] === orb[w]) { same = true; break; }
+          for (const t of tried)
+            if (orb[t] === orb[w]) {
+              same = true;
+              break;
+            }
           if (same) continue;
         }
       }

@@ -12,7 +12,10 @@
 import type { Graph } from "./graph";
 
 export class CanonicalJsonError extends Error {
-  constructor(message: string, readonly path: string) {
+  constructor(
+    message: string,
+    readonly path: string,
+  ) {
     super(`${message} at ${path || "the top level"}`);
     this.name = "CanonicalJsonError";
   }
@@ -20,17 +23,33 @@ export class CanonicalJsonError extends Error {
 
 /** Writes `value` into `out`; `path` holds the keys/indices down to it, joined only for an error message. */
 function write(value: unknown, path: Array<string | number>, out: string[], seen: Set<object>): void {
-  if (value === null) { out.push("null"); return; }
+  if (value === null) {
+    out.push("null");
+    return;
+  }
   switch (typeof value) {
-    case "boolean": out.push(value ? "true" : "false"); return;
-    case "string": out.push(JSON.stringify(value)); return;
-    case "bigint": out.push(JSON.stringify(value.toString())); return;
+    case "boolean":
+      out.push(value ? "true" : "false");
+      return;
+    case "string":
+      out.push(JSON.stringify(value));
+      return;
+    case "bigint":
+      out.push(JSON.stringify(value.toString()));
+      return;
     case "number":
-      if (!Number.isSafeInteger(value)) throw new CanonicalJsonError(`canonical JSON holds safe integers only (write rationals as strings "p/q" and big integers as BigInt), got ${value}`, pathText(path));
+      if (!Number.isSafeInteger(value))
+        throw new CanonicalJsonError(
+          `canonical JSON holds safe integers only (write rationals as strings "p/q" and big integers as BigInt), got ${value}`,
+          pathText(path),
+        );
       out.push(Object.is(value, -0) ? "0" : String(value));
       return;
     case "object": {
-      if (isIntegerArray(value)) { out.push(`[${(value as ArrayLike<number>).length === 0 ? "" : Array.prototype.join.call(value, ",")}]`); return; }
+      if (isIntegerArray(value)) {
+        out.push(`[${(value as ArrayLike<number>).length === 0 ? "" : Array.prototype.join.call(value, ",")}]`);
+        return;
+      }
       if (seen.has(value as object)) throw new CanonicalJsonError("a value refers to itself", pathText(path));
       seen.add(value as object);
       if (Array.isArray(value) || ArrayBuffer.isView(value)) {
@@ -47,7 +66,9 @@ function write(value: unknown, path: Array<string | number>, out: string[], seen
         out.push("]");
       } else {
         const record = value as Record<string, unknown>;
-        const keys = Object.keys(record).filter((k) => record[k] !== undefined).sort();
+        const keys = Object.keys(record)
+          .filter((k) => record[k] !== undefined)
+          .sort();
         out.push("{");
         keys.forEach((k, i) => {
           if (i > 0) out.push(",");

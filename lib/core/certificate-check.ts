@@ -60,10 +60,14 @@ function sortedAdjacency(g: Graph): Adjacency {
   outer: for (let v = 0; v < g.n; v++)
     for (let p = a.start[v] + 1; p < a.start[v + 1]; p++)
       if (a.nbr[p - 1] >= a.nbr[p]) {
-        const nbr = a.nbr.slice(), wt = a.wt.slice();
+        const nbr = a.nbr.slice(),
+          wt = a.wt.slice();
         for (let x = 0; x < g.n; x++) {
           const idx = Array.from({ length: a.start[x + 1] - a.start[x] }, (_, i) => a.start[x] + i).sort((i, j) => a.nbr[i] - a.nbr[j]);
-          idx.forEach((from, i) => { nbr[a.start[x] + i] = a.nbr[from]; wt[a.start[x] + i] = a.wt[from]; });
+          idx.forEach((from, i) => {
+            nbr[a.start[x] + i] = a.nbr[from];
+            wt[a.start[x] + i] = a.wt[from];
+          });
         }
         result = { start: a.start, nbr, wt, diag: a.diag };
         break outer;
@@ -76,11 +80,14 @@ function sortedAdjacency(g: Graph): Adjacency {
 export function multiplicity(g: Graph, u: number, v: number): number {
   const a = sortedAdjacency(g);
   if (u === v) return a.diag[u];
-  let lo = a.start[u], hi = a.start[u + 1] - 1;
+  let lo = a.start[u],
+    hi = a.start[u + 1] - 1;
   while (lo <= hi) {
-    const mid = (lo + hi) >> 1, x = a.nbr[mid];
+    const mid = (lo + hi) >> 1,
+      x = a.nbr[mid];
     if (x === v) return a.wt[mid];
-    if (x < v) lo = mid + 1; else hi = mid - 1;
+    if (x < v) lo = mid + 1;
+    else hi = mid - 1;
   }
   return 0;
 }

@@ -14,7 +14,6 @@ export interface CertificateKind {
   readonly words: string;
 }
 
-
 const STRUCTURE_WORDS: Record<string, string> = {
   forest: "spanning forest (parent of each vertex)",
   components: "component of each vertex",
@@ -25,7 +24,8 @@ const STRUCTURE_WORDS: Record<string, string> = {
   legs: "centre and legs",
 };
 
-const record = (v: unknown): Record<string, unknown> | null => (typeof v === "object" && v !== null && !Array.isArray(v) ? (v as Record<string, unknown>) : null);
+const record = (v: unknown): Record<string, unknown> | null =>
+  typeof v === "object" && v !== null && !Array.isArray(v) ? (v as Record<string, unknown>) : null;
 
 /**
  * The evidence kind of a stored certificate. `certificate` is the claim certificate envelope
@@ -49,7 +49,10 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       if (kind === "embedding") return { key: "embedding", words: "embedding of H in G" };
       if (kind === "absence") {
         const arg = record(e.argument)?.kind;
-        return { key: "absence", words: `absence argument (${typeof arg === "string" ? (ABSENCE_ARGUMENT_WORDS[arg as keyof typeof ABSENCE_ARGUMENT_WORDS] ?? arg) : "unnamed"})` };
+        return {
+          key: "absence",
+          words: `absence argument (${typeof arg === "string" ? (ABSENCE_ARGUMENT_WORDS[arg as keyof typeof ABSENCE_ARGUMENT_WORDS] ?? arg) : "unnamed"})`,
+        };
       }
       return null;
     case "exclusion":

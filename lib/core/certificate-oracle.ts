@@ -17,8 +17,7 @@ function multiplicities(g: Graph): (u: number, v: number) => number {
   return (u, v) => m.get(`${Math.min(u, v)},${Math.max(u, v)}`) ?? 0;
 }
 
-const isIndexList = (x: unknown, n: number, min = 0): x is number[] =>
-  Array.isArray(x) && x.every((v) => Number.isInteger(v) && v >= min && v < n);
+const isIndexList = (x: unknown, n: number, min = 0): x is number[] => Array.isArray(x) && x.every((v) => Number.isInteger(v) && v >= min && v < n);
 
 const edgeTotal = (g: Graph) => g.edges.reduce((s, e) => s + e.m, 0);
 
@@ -51,7 +50,8 @@ function forestRoots(g: Graph, parent: unknown): number {
 function closedWalkCycle(g: Graph, cycle: unknown, odd: boolean): boolean {
   if (!isIndexList(cycle, g.n) || cycle.length === 0 || new Set(cycle).size !== cycle.length) return false;
   if (odd && cycle.length % 2 === 0) return false;
-  const m = multiplicities(g), k = cycle.length;
+  const m = multiplicities(g),
+    k = cycle.length;
   if (k === 1) return m(cycle[0], cycle[0]) >= 1;
   if (k === 2) return m(cycle[0], cycle[1]) >= 2;
   return cycle.every((x, i) => m(x, cycle[(i + 1) % k]) >= 1);
@@ -60,10 +60,12 @@ function closedWalkCycle(g: Graph, cycle: unknown, odd: boolean): boolean {
 /** φ: V(H) → V(G) injective, preserving multiplicities (at least, or exactly when induced). */
 export function validEmbedding(h: Graph, g: Graph, phi: unknown, induced: boolean): boolean {
   if (!isIndexList(phi, g.n) || phi.length !== h.n || new Set(phi).size !== h.n) return false;
-  const mh = multiplicities(h), mg = multiplicities(g);
+  const mh = multiplicities(h),
+    mg = multiplicities(g);
   for (let u = 0; u < h.n; u++)
     for (let w = u; w < h.n; w++) {
-      const a = mh(u, w), b = mg(phi[u], phi[w]);
+      const a = mh(u, w),
+        b = mg(phi[u], phi[w]);
       if (induced ? a !== b : a > b) return false;
     }
   return true;
@@ -71,10 +73,16 @@ export function validEmbedding(h: Graph, g: Graph, phi: unknown, induced: boolea
 
 /** A vertex with maxDegree listed distinct neighbours, and no vertex with more neighbours. */
 function maxDegreeWitness(g: Graph, e: Json): boolean {
-  const top = e.maxDegree, w = e.witness, list = e.neighbours;
+  const top = e.maxDegree,
+    w = e.witness,
+    list = e.neighbours;
   if (typeof top !== "number" || !isIndexList(list, g.n) || new Set(list).size !== list.length || list.length !== top) return false;
   const neighbours = Array.from({ length: g.n }, () => new Set<number>());
-  for (const x of g.edges) if (x.u !== x.v) { neighbours[x.u].add(x.v); neighbours[x.v].add(x.u); }
+  for (const x of g.edges)
+    if (x.u !== x.v) {
+      neighbours[x.u].add(x.v);
+      neighbours[x.v].add(x.u);
+    }
   if (g.n === 0) return top === 0;
   if (typeof w !== "number" || !Number.isInteger(w) || w < 0 || w >= g.n) return false;
   return list.every((y) => neighbours[w].has(y)) && neighbours.every((s) => s.size <= top);
@@ -91,7 +99,7 @@ function fraction(text: unknown): Fraction | null {
 const plus = (a: Fraction, b: Fraction): Fraction => [a[0] * b[1] + b[0] * a[1], a[1] * b[1]];
 const times = (a: Fraction, b: Fraction): Fraction => [a[0] * b[0], a[1] * b[1]];
 const sameValue = (a: Fraction, b: Fraction) => a[0] * b[1] === b[0] * a[1];
-const sign = (a: Fraction) => (a[0] === 0n ? 0 : (a[0] > 0n) === (a[1] > 0n) ? 1 : -1);
+const sign = (a: Fraction) => (a[0] === 0n ? 0 : a[0] > 0n === a[1] > 0n ? 1 : -1);
 
 /**
  * A Rayleigh vector at the same point as the original certificate: xᵀ(at·I − A)x equals the stated
@@ -99,7 +107,9 @@ const sign = (a: Fraction) => (a[0] === 0n ? 0 : (a[0] > 0n) === (a[1] > 0n) ? 1
  * constant keeps a zero value zero, so such a change is still a valid certificate.
  */
 function rayleighVector(g: Graph, e: Json, original: Json): boolean {
-  const at = fraction(e.at), value = fraction(e.value), before = fraction(original.value);
+  const at = fraction(e.at),
+    value = fraction(e.value),
+    before = fraction(original.value);
   if (!at || !value || !before || e.at !== original.at || !Array.isArray(e.vector)) return false;
   const x = new Map<number, Fraction>();
   for (const entry of e.vector as unknown[]) {
@@ -159,9 +169,12 @@ export function oracleAccepts(claim: Claim, graphs: ClaimGraphs, evidence: unkno
   const g = graphs.graph ?? graphs.host!;
   const induced = (claim.kind === "subgraph" || claim.kind === "exclusion") && claim.induced;
   switch (e.kind) {
-    case "components": return separatingLabels(g, e.component);
-    case "colouring": return properTwoColouring(g, e.colour);
-    case "cycle": return closedWalkCycle(g, e.cycle, claim.kind === "structure" && claim.predicate === "bipartite");
+    case "components":
+      return separatingLabels(g, e.component);
+    case "colouring":
+      return properTwoColouring(g, e.colour);
+    case "cycle":
+      return closedWalkCycle(g, e.cycle, claim.kind === "structure" && claim.predicate === "bipartite");
     case "forest": {
       const roots = forestRoots(g, e.parent);
       if (roots < 0) return false;
@@ -169,10 +182,14 @@ export function oracleAccepts(claim: Claim, graphs: ClaimGraphs, evidence: unkno
       if (claim.kind === "structure" && claim.predicate === "tree") return roots === 1 && edgeTotal(g) === g.n - 1;
       return edgeTotal(g) === g.n - roots;
     }
-    case "embedding": return validEmbedding(graphs.pattern!, g, e.embedding, induced);
-    case "max-degree": return maxDegreeWitness(g, e);
-    case "rayleigh": return rayleighVector(g, e, original as Json);
-    case "collatz-wielandt": return claim.kind === "spectral-radius-bound" && collatzWielandtVector(g, e, claim.bound);
+    case "embedding":
+      return validEmbedding(graphs.pattern!, g, e.embedding, induced);
+    case "max-degree":
+      return maxDegreeWitness(g, e);
+    case "rayleigh":
+      return rayleighVector(g, e, original as Json);
+    case "collatz-wielandt":
+      return claim.kind === "spectral-radius-bound" && collatzWielandtVector(g, e, claim.bound);
     case "forbidden-subgraph": {
       if (!isSmithFamily(e.family) || typeof e.parameter !== "number") return false;
       const f = SMITH_FAMILIES[e.family].build(e.parameter);
@@ -180,9 +197,11 @@ export function oracleAccepts(claim: Claim, graphs: ClaimGraphs, evidence: unkno
     }
     case "exclusion": {
       const found = e.found as Json | undefined;
-      if (found) return typeof found.index === "number" && !!graphs.patterns?.[found.index] && validEmbedding(graphs.patterns[found.index], g, found.embedding, induced);
+      if (found)
+        return typeof found.index === "number" && !!graphs.patterns?.[found.index] && validEmbedding(graphs.patterns[found.index], g, found.embedding, induced);
       return false;
     }
-    default: return false;
+    default:
+      return false;
   }
 }

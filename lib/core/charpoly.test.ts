@@ -9,11 +9,18 @@ import { chebyshevC } from "./bound";
 
 const X: Poly = [0n, 1n];
 const linear = (r: bigint): Poly => [-r, 1n]; // x - r
-const power = (p: Poly, k: number): Poly => { let out: Poly = [1n]; for (let i = 0; i < k; i++) out = polyMul(out, p); return out; };
+const power = (p: Poly, k: number): Poly => {
+  let out: Poly = [1n];
+  for (let i = 0; i < k; i++) out = polyMul(out, p);
+  return out;
+};
 
 function lcg(seed: number) {
   let x = seed >>> 0;
-  return () => { x = (Math.imul(1664525, x) + 1013904223) >>> 0; return x; };
+  return () => {
+    x = (Math.imul(1664525, x) + 1013904223) >>> 0;
+    return x;
+  };
 }
 /** G(n, 1/2) exactly as in the benchmark workload description (seed 2000000 + n). */
 function gnHalf(n: number): Graph {
@@ -25,7 +32,8 @@ function gnHalf(n: number): Graph {
 
 describe("characteristic polynomial", () => {
   it("P_n satisfies the Chebyshev recurrence χ_n = x χ_{n-1} - χ_{n-2} (Cvetković, Doob & Sachs §2.6)", () => {
-    let a: Poly = [1n], b: Poly = X;
+    let a: Poly = [1n],
+      b: Poly = X;
     for (let n = 2; n <= 40; n++) {
       [a, b] = [b, polySub(polyMul(X, b), a)];
       expect(characteristicPolynomial(path(n)), `P_${n}`).toEqual(b);
@@ -38,7 +46,12 @@ describe("characteristic polynomial", () => {
   });
   it("K_n = (x - n + 1)(x + 1)^(n-1) and K_{m,n} = x^(m+n-2)(x^2 - mn) (Brouwer & Haemers §1.4.1–1.4.2)", () => {
     for (const n of [2, 5, 9, 30]) expect(characteristicPolynomial(complete(n))).toEqual(polyMul(linear(BigInt(n - 1)), power(linear(-1n), n - 1)));
-    for (const [m, n] of [[1, 4], [3, 5], [7, 7]]) expect(characteristicPolynomial(completeBipartite(m, n))).toEqual(polyMul(power(X, m + n - 2), [-BigInt(m * n), 0n, 1n]));
+    for (const [m, n] of [
+      [1, 4],
+      [3, 5],
+      [7, 7],
+    ])
+      expect(characteristicPolynomial(completeBipartite(m, n))).toEqual(polyMul(power(X, m + n - 2), [-BigInt(m * n), 0n, 1n]));
   });
   it("Petersen = (x-3)(x-1)^5(x+2)^4 and Q3 = (x-3)(x-1)^3(x+1)^3(x+3) (Brouwer & Haemers §1.4; Cvetković, Doob & Sachs)", () => {
     const petersen = makeGraph(10, [
@@ -53,7 +66,14 @@ describe("characteristic polynomial", () => {
     expect(characteristicPolynomial(q3)).toEqual(polyMul(polyMul(linear(3n), power(linear(1n), 3)), polyMul(power(linear(-1n), 3), linear(-3n))));
   });
   it("loops and multiplicities: [[1,2],[2,0]] has χ = x^2 - x - 4 (direct computation)", () => {
-    expect(characteristicPolynomial(makeGraph(2, [{ u: 0, v: 0 }, { u: 0, v: 1, m: 2 }]))).toEqual([-4n, -1n, 1n]);
+    expect(
+      characteristicPolynomial(
+        makeGraph(2, [
+          { u: 0, v: 0 },
+          { u: 0, v: 1, m: 2 },
+        ]),
+      ),
+    ).toEqual([-4n, -1n, 1n]);
   });
   it("agrees with Berkowitz's division-free algorithm on the G(n,1/2) workloads and random multigraphs", () => {
     for (const n of [10, 20, 30]) expect(characteristicPolynomial(gnHalf(n))).toEqual(charpolyBerkowitz(gnHalf(n)));
@@ -81,14 +101,17 @@ describe("characteristic polynomial", () => {
   it("the constant term is (-1)^n det A, against mathjs eigs: prod of float eigenvalues of G(10,1/2)", () => {
     const g = gnHalf(10);
     const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
-    for (const e of g.edges) { a[e.u][e.v] = 1; a[e.v][e.u] = 1; }
+    for (const e of g.edges) {
+      a[e.u][e.v] = 1;
+      a[e.v][e.u] = 1;
+    }
     const det = (eigs(a).values as number[]).reduce((p, x) => p * Number(x), 1);
     expect(Number(characteristicPolynomial(g)[0])).toBeCloseTo(det, 6); // n = 10 is even
   });
   it("coefficients pass 2^53 at n = 40 and stay within the proven bound (EXACT-CORE-HINTS observation; common practice)", () => {
     const g = gnHalf(40);
     const chi = characteristicPolynomial(g);
-    const big = chi.reduce((m, c) => (c < 0n ? -c : c) > m ? (c < 0n ? -c : c) : m, 0n);
+    const big = chi.reduce((m, c) => ((c < 0n ? -c : c) > m ? (c < 0n ? -c : c) : m), 0n);
     expect(big > 2n ** 53n).toBe(true);
     expect(big <= coefficientBound(g)).toBe(true);
     expect(trim(chi).length).toBe(41);
@@ -96,15 +119,23 @@ describe("characteristic polynomial", () => {
   // Multigraphs with loops, random sizes: the multi-modular path (double-precision Barrett reduction,
   // the split-off-λ_1 coefficient bound) against the independent division-free BigInt algorithm.
   const multigraphArb = fc.integer({ min: 1, max: 24 }).chain((n) =>
-    fc.array(fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 1, max: 4 })), { maxLength: 3 * n })
-      .map((es) => makeGraph(n, es.map(([u, v, m]) => ({ u: Math.min(u, v), v: Math.max(u, v), m })))));
+    fc.array(fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 1, max: 4 })), { maxLength: 3 * n }).map((es) =>
+      makeGraph(
+        n,
+        es.map(([u, v, m]) => ({ u: Math.min(u, v), v: Math.max(u, v), m })),
+      ),
+    ),
+  );
   it("agrees with Berkowitz (1984) on random multigraphs with loops, and every coefficient lies within coefficientBound (fast-check)", () => {
-    fc.assert(fc.property(multigraphArb, (g) => {
-      const chi = characteristicPolynomial(g);
-      expect(chi).toEqual(charpolyBerkowitz(g));
-      const bound = coefficientBound(g);
-      for (const c of chi) expect((c < 0n ? -c : c) <= bound).toBe(true);
-    }), { numRuns: 150, seed: 14 });
+    fc.assert(
+      fc.property(multigraphArb, (g) => {
+        const chi = characteristicPolynomial(g);
+        expect(chi).toEqual(charpolyBerkowitz(g));
+        const bound = coefficientBound(g);
+        for (const c of chi) expect((c < 0n ? -c : c) <= bound).toBe(true);
+      }),
+      { numRuns: 150, seed: 14 },
+    );
   });
   it("dense graphs: agrees with Berkowitz on G(40, 1/2) and on K_n minus a perfect matching, with many coefficients of equal magnitude", () => {
     expect(characteristicPolynomial(gnHalf(40))).toEqual(charpolyBerkowitz(gnHalf(40)));
@@ -112,7 +143,9 @@ describe("characteristic polynomial", () => {
     for (const k of [3, 10, 25]) {
       const edges = [];
       for (let i = 0; i < 2 * k; i++) for (let j = i + 1; j < 2 * k; j++) if (!(i % 2 === 0 && j === i + 1)) edges.push({ u: i, v: j });
-      expect(characteristicPolynomial(makeGraph(2 * k, edges)), `CP(${k})`).toEqual(polyMul(polyMul(linear(BigInt(2 * k - 2)), power(X, k)), power(linear(-2n), k - 1)));
+      expect(characteristicPolynomial(makeGraph(2 * k, edges)), `CP(${k})`).toEqual(
+        polyMul(polyMul(linear(BigInt(2 * k - 2)), power(X, k)), power(linear(-2n), k - 1)),
+      );
     }
   });
   it("coefficientBound: splitting off λ_1 keeps G(100, 1/2) below 2^262 (Maclaurin alone gives about 2^300), while its χ needs 2^189 (computed; 57 digits)", () => {
@@ -120,7 +153,7 @@ describe("characteristic polynomial", () => {
     const bound = coefficientBound(g);
     expect(bound < 2n ** 262n).toBe(true);
     const chi = characteristicPolynomial(g);
-    const big = chi.reduce((m, c) => (c < 0n ? -c : c) > m ? (c < 0n ? -c : c) : m, 0n);
+    const big = chi.reduce((m, c) => ((c < 0n ? -c : c) > m ? (c < 0n ? -c : c) : m), 0n);
     expect(big.toString().length).toBe(57);
     expect(big <= bound).toBe(true);
     // c_{n−2} = −|E| (Cvetković, Doob & Sachs, Thm 1.3) as an independent spot check at n = 100.

@@ -31,7 +31,8 @@ function reduce(x: number, p: number, pInv: number): number {
 
 function modPow(a: number, e: number, p: number): number {
   const pInv = 1 / p;
-  let r = 1, b = a % p;
+  let r = 1,
+    b = a % p;
   while (e > 0) {
     if (e & 1) r = reduce(r * b, p, pInv);
     b = reduce(b * b, p, pInv);
@@ -60,7 +61,8 @@ function prime(k: number): number {
 
 /** Dense n×n adjacency as a flat array of small integers (loops on the diagonal). */
 function denseAdjacency(g: Graph): number[] {
-  const n = g.n, a = new Array<number>(n * n).fill(0);
+  const n = g.n,
+    a = new Array<number>(n * n).fill(0);
   for (const e of g.edges) {
     a[e.u * n + e.v] += e.m;
     if (e.u !== e.v) a[e.v * n + e.u] += e.m;
@@ -84,19 +86,31 @@ function charpolyModP(a0: readonly number[], n: number, p: number, budget: Budge
     if (i === n) continue;
     const piv = (j + 1) * n;
     if (i !== j + 1) {
-      for (let c = 0; c < n; c++) { const t = H[i * n + c]; H[i * n + c] = H[piv + c]; H[piv + c] = t; }
-      for (let r = 0; r < n; r++) { const t = H[r * n + i]; H[r * n + i] = H[r * n + j + 1]; H[r * n + j + 1] = t; }
+      for (let c = 0; c < n; c++) {
+        const t = H[i * n + c];
+        H[i * n + c] = H[piv + c];
+        H[piv + c] = t;
+      }
+      for (let r = 0; r < n; r++) {
+        const t = H[r * n + i];
+        H[r * n + i] = H[r * n + j + 1];
+        H[r * n + j + 1] = t;
+      }
     }
     const inv = modPow(H[piv + j], p - 2, p);
     let any = false;
     for (let k = j + 2; k < n; k++) {
       const hk = H[k * n + j];
-      if (hk === 0) { u[k] = 0; continue; }
+      if (hk === 0) {
+        u[k] = 0;
+        continue;
+      }
       any = true;
       const uk = reduce(hk * inv, p, pInv);
       u[k] = uk;
       // row k -= u_k * row (j+1)
-      const mu = p - uk, row = k * n;
+      const mu = p - uk,
+        row = k * n;
       for (let c = j; c < n; c++) {
         const x = H[row + c] + mu * H[piv + c];
         const r = x - Math.floor(x * pInv) * p;
@@ -108,10 +122,14 @@ function charpolyModP(a0: readonly number[], n: number, p: number, budget: Budge
     // With p < 2^25 a residue plus seven products stays below 2^53: reduce once per seven terms.
     for (let r = 0; r < n; r++) {
       const row = r * n;
-      let s = H[row + j + 1], terms = 0;
+      let s = H[row + j + 1],
+        terms = 0;
       for (let k = j + 2; k < n; k++) {
         s += u[k] * H[row + k];
-        if (++terms === 7) { s = reduce(s, p, pInv); terms = 0; }
+        if (++terms === 7) {
+          s = reduce(s, p, pInv);
+          terms = 0;
+        }
       }
       H[row + j + 1] = reduce(s, p, pInv);
     }
@@ -133,7 +151,8 @@ function charpolyModP(a0: readonly number[], n: number, p: number, budget: Budge
       if (prod === 0) break;
       const coef = reduce(H[i * n + m] * prod, p, pInv);
       if (coef === 0) continue;
-      const q = polys[i], mc = p - coef;
+      const q = polys[i],
+        mc = p - coef;
       for (let d = 0; d < q.length; d++) {
         const x = next[d] + mc * q[d];
         const t = x - Math.floor(x * pInv) * p;
@@ -158,7 +177,8 @@ function charpolyModP(a0: readonly number[], n: number, p: number, budget: Budge
 export function coefficientBound(g: Graph): bigint {
   const n = g.n;
   if (n === 0) return 1n;
-  let tr2 = 0n, total = 0n;
+  let tr2 = 0n,
+    total = 0n;
   const rowSum = new Array<bigint>(n).fill(0n);
   for (const e of g.edges) {
     const m = BigInt(e.m);
@@ -167,19 +187,29 @@ export function coefficientBound(g: Graph): bigint {
     rowSum[e.u] += m;
     if (e.u !== e.v) rowSum[e.v] += m;
   }
-  const N = BigInt(n), F = 24n, one = 1n << F;
+  const N = BigInt(n),
+    F = 24n,
+    one = 1n << F;
   const delta = rowSum.reduce((a, b) => (a > b ? a : b), 0n);
   const sqrtUp = (num: bigint, den: bigint) => isqrt((num * one * one + den - 1n) / den) + 1n; // >= sqrt(num/den)·2^F
   const s = sqrtUp(tr2, N); // (i): root mean square of |λ|
   // (ii): S − d̄² = (tr2·n² − total²)/n² over n − 1 eigenvalues (>= 0 by Cauchy–Schwarz).
   const t = n > 1 ? sqrtUp(tr2 * N * N - total * total, N * N * (N - 1n)) : 0n;
-  let best = 1n, binomN = 1n, binomM = 1n, sPow = 1n, tPow = 1n, scale = 1n;
+  let best = 1n,
+    binomN = 1n,
+    binomM = 1n,
+    sPow = 1n,
+    tPow = 1n,
+    scale = 1n;
   // Loop invariant at step k: binomN = C(n,k), binomM = C(n−1,k), sPow = s^k, tPow = t^k, scale = 2^(F·k).
   for (let k = 1n; k <= N; k++) {
-    const tPrev = tPow, binomPrev = binomM; // t^{k−1}, C(n−1,k−1)
+    const tPrev = tPow,
+      binomPrev = binomM; // t^{k−1}, C(n−1,k−1)
     binomN = (binomN * (N - k + 1n)) / k;
     binomM = k <= N - 1n ? (binomM * (N - k)) / k : 0n;
-    sPow *= s; tPow *= t; scale <<= F;
+    sPow *= s;
+    tPow *= t;
+    scale <<= F;
     const b1 = binomN * sPow;
     const b2 = delta * binomPrev * tPrev * one + binomM * tPow;
     const b = ((b1 < b2 ? b1 : b2) + scale - 1n) / scale;
@@ -197,7 +227,8 @@ export function characteristicPolynomial(g: Graph, budget: Budget = new Budget()
   let M = 1n;
   let x: bigint[] = new Array(n + 1).fill(0n);
   for (let k = 0; M <= need; k++) {
-    const p = prime(k), P = BigInt(p);
+    const p = prime(k),
+      P = BigInt(p);
     const r = charpolyModP(a, n, p, budget);
     // Garner step: x += M * ((r − x) * M^{-1} mod p).
     const mInv = BigInt(modPow(Number(M % P), p - 2, p));

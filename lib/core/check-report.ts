@@ -48,7 +48,9 @@ export interface CheckLine {
 }
 
 /** The structured fields of a checked claim's line. */
-export function claimLineFields(r: ClaimResult): Pick<CheckLine, "statement" | "method" | "reason" | "certificateKind" | "digests" | "timings" | "steps" | "ranOn" | "bound"> {
+export function claimLineFields(
+  r: ClaimResult,
+): Pick<CheckLine, "statement" | "method" | "reason" | "certificateKind" | "digests" | "timings" | "steps" | "ranOn" | "bound"> {
   const v = r.verdict;
   const evidence = (v.certificate as { evidence?: unknown } | undefined)?.evidence;
   const evidenceKind = typeof evidence === "object" && evidence !== null ? (evidence as { kind?: unknown }).kind : undefined;

@@ -33,11 +33,16 @@ function subgraphStatement(c: SubgraphClaim): string {
 function verifyStatedEmbedding(c: SubgraphClaim, h: Graph, g: Graph, budget: Budget): Verdict {
   const phi = c.embedding!;
   if (phi.length !== h.n) throw new ClaimInputError("embedding", `the embedding lists ${phi.length} vertices but H has ${h.n}`);
-  const statement = subgraphStatement(c), method = "embedding check";
+  const statement = subgraphStatement(c),
+    method = "embedding check";
   const problem = checkEmbedding(h, g, phi, c.induced, budget);
   if (problem) return { status: "refuted", statement, method, reason: `the stated embedding fails: ${problem}` };
   return {
-    status: "verified", statement, method, certificate: { kind: "embedding", embedding: [...phi] }, notes: [MONOTONICITY_NOTE],
+    status: "verified",
+    statement,
+    method,
+    certificate: { kind: "embedding", embedding: [...phi] },
+    notes: [MONOTONICITY_NOTE],
     reason: `the stated embedding is injective and maps every ${c.induced ? "pair of vertices of H to a pair of G with equal multiplicity" : "edge (and loop) of H to one of G of at least the same multiplicity"}`,
   };
 }
@@ -59,10 +64,19 @@ export const SUBGRAPH_HANDLER: ClaimHandler<SubgraphClaim> = {
     // A refutation of a stated embedding carries no evidence; re-running the embedding check is the re-check.
     if (c.embedding && outcome === "refuted" && evidence === undefined) {
       const v = verifyStatedEmbedding(c, h, g, budget);
-      return { ...v, status: v.status === "refuted" ? "verified" : "refuted", reason: v.status === "refuted" ? v.reason : "certificate rejected: the stated embedding is valid" };
+      return {
+        ...v,
+        status: v.status === "refuted" ? "verified" : "refuted",
+        reason: v.status === "refuted" ? v.reason : "certificate rejected: the stated embedding is valid",
+      };
     }
     if (c.embedding && present && JSON.stringify((evidence as { embedding?: unknown }).embedding) !== JSON.stringify(c.embedding))
-      return { status: "refuted", statement: subgraphStatement(c), method: "certificate re-check", reason: "certificate rejected: its embedding is not the one stated in the claim" };
+      return {
+        status: "refuted",
+        statement: subgraphStatement(c),
+        method: "certificate re-check",
+        reason: "certificate rejected: its embedding is not the one stated in the claim",
+      };
     return withOutcome(recheckSubgraph(h, g, evidence, c.induced, budget), present, outcome, present ? "an embedding of H in G" : "H is absent from G");
   },
 };
@@ -92,7 +106,12 @@ export const EXCLUSION_HANDLER: ClaimHandler<ExclusionClaim> = {
   recheck: (c, inputs, outcome, evidence, budget) => {
     const { g, patterns } = hostAndPatterns(inputs);
     const found = typeof evidence === "object" && evidence !== null && (evidence as { found?: unknown }).found !== undefined;
-    return withOutcome(recheckExclusion(g, patterns, evidence, c.induced, budget), !found, outcome, found ? "one pattern embeds in G" : "every pattern is absent");
+    return withOutcome(
+      recheckExclusion(g, patterns, evidence, c.induced, budget),
+      !found,
+      outcome,
+      found ? "one pattern embeds in G" : "every pattern is absent",
+    );
   },
 };
 

@@ -76,7 +76,7 @@ const RELATION_WORDS: Record<string, string> = { "<": "<", "<=": "≤", "=": "="
 
 function groupedDegrees(degrees: number[]): string {
   const groups: string[] = [];
-  for (let i = 0; i < degrees.length; ) {
+  for (let i = 0; i < degrees.length;) {
     let j = i;
     while (j < degrees.length && degrees[j] === degrees[i]) j++;
     groups.push(j - i > 1 ? `${degrees[i]}×${j - i}` : String(degrees[i]));
@@ -101,8 +101,20 @@ export function graphInputView(input: GraphInput, name: string): GraphInputView 
   if (!g) {
     const large = enteredCharacters > LARGE_INPUT_CHARACTERS;
     return {
-      name, format: input.format, entered: large ? null : input.text, enteredCharacters, encoding: null, encoded: null, encodedCharacters: null,
-      order: null, size: null, loops: null, degreeSequence: null, digest: sha256Hex(input.text), large, problem,
+      name,
+      format: input.format,
+      entered: large ? null : input.text,
+      enteredCharacters,
+      encoding: null,
+      encoded: null,
+      encodedCharacters: null,
+      order: null,
+      size: null,
+      loops: null,
+      degreeSequence: null,
+      digest: sha256Hex(input.text),
+      large,
+      problem,
     };
   }
   const encoding = isSimple(g) ? "graph6" : "sparse6";
@@ -111,9 +123,20 @@ export function graphInputView(input: GraphInput, name: string): GraphInputView 
   const large = g.n > LARGE_INPUT_VERTICES || enteredCharacters > LARGE_INPUT_CHARACTERS || encoded.length > LARGE_INPUT_CHARACTERS;
   const degrees = Array.from({ length: g.n }, (_, v) => degree(g, v)).sort((a, b) => b - a);
   return {
-    name, format: input.format, entered: large ? null : input.text, enteredCharacters, encoding, encoded: large ? null : encoded, encodedCharacters: encoded.length,
-    order: summary.order, size: summary.size, loops: summary.loops, degreeSequence: large ? groupedDegrees(degrees) : `(${degrees.join(", ")})`,
-    digest: sha256Hex(encoded), large, problem: null,
+    name,
+    format: input.format,
+    entered: large ? null : input.text,
+    enteredCharacters,
+    encoding,
+    encoded: large ? null : encoded,
+    encodedCharacters: encoded.length,
+    order: summary.order,
+    size: summary.size,
+    loops: summary.loops,
+    degreeSequence: large ? groupedDegrees(degrees) : `(${degrees.join(", ")})`,
+    digest: sha256Hex(encoded),
+    large,
+    problem: null,
   };
 }
 
@@ -133,18 +156,39 @@ function entriesOf(c: Claim): InputEntry[] {
     case "spectral-radius-bound":
       return [graph("graph G", c.graph, "G"), text("relation", `ρ(G) ${RELATION_WORDS[c.op]} b`), text("bound b", c.bound)];
     case "vector-certificate":
-      return [graph("graph G", c.graph, "G"), listEntry("vector x (entry of each vertex, in vertex order)", c.vector), text("relation", `A·x ${RELATION_WORDS[c.relation]} b·x entrywise`), text("bound b", c.bound)];
+      return [
+        graph("graph G", c.graph, "G"),
+        listEntry("vector x (entry of each vertex, in vertex order)", c.vector),
+        text("relation", `A·x ${RELATION_WORDS[c.relation]} b·x entrywise`),
+        text("bound b", c.bound),
+      ];
     case "subgraph":
       return [
-        graph("pattern H", c.pattern, "H"), graph("host G", c.host, "G"), text("induced", yesNo(c.induced)),
-        c.embedding ? listEntry("embedding φ: H → G (vertex of H → vertex of G)", c.embedding.map((t, h) => `${h} → ${t}`)) : text("embedding φ", "not given (the checker searches for one)"),
+        graph("pattern H", c.pattern, "H"),
+        graph("host G", c.host, "G"),
+        text("induced", yesNo(c.induced)),
+        c.embedding
+          ? listEntry(
+              "embedding φ: H → G (vertex of H → vertex of G)",
+              c.embedding.map((t, h) => `${h} → ${t}`),
+            )
+          : text("embedding φ", "not given (the checker searches for one)"),
       ];
     case "exclusion":
-      return [graph("host G", c.host, "G"), ...c.patterns.map((p, i) => graph(`excluded pattern H${i + 1}`, p, `H${i + 1}`)), text("induced", yesNo(c.induced))];
+      return [
+        graph("host G", c.host, "G"),
+        ...c.patterns.map((p, i) => graph(`excluded pattern H${i + 1}`, p, `H${i + 1}`)),
+        text("induced", yesNo(c.induced)),
+      ];
     case "identification":
       return [graph("graph G", c.graph, "G"), text("family", c.family ?? "any member of Smith's family (the checker names it)")];
     case "characteristic-polynomial":
-      return [graph("graph G", c.graph, "G"), c.coefficients ? listEntry("coefficients of det(xI − A), from xⁿ down to x⁰", c.coefficients) : text("coefficients", "not given (the checker computes them)")];
+      return [
+        graph("graph G", c.graph, "G"),
+        c.coefficients
+          ? listEntry("coefficients of det(xI − A), from xⁿ down to x⁰", c.coefficients)
+          : text("coefficients", "not given (the checker computes them)"),
+      ];
     case "eigenvalues":
       return [graph("graph G", c.graph, "G"), text("h", String(c.h)), listEntry("multiset of m (eigenvalues 2cos(πm/h))", c.multiset.map(String))];
     case "structure": {
@@ -159,8 +203,11 @@ function entriesOf(c: Claim): InputEntry[] {
         return v.encoded ?? `${g.format}: ${g.text.length > 60 ? `${g.text.slice(0, 60)}…` : g.text}`;
       });
       return [
-        text("setting", c.setting === "tree" ? "trees" : "connected simple graphs"), text("at most N vertices", String(c.maxVertices)),
-        text("relation", `ρ(G) ${RELATION_WORDS[c.op]} b`), text("bound b", c.bound), listEntry(`graphs listed (${c.graphs.length}, graph6 where simple)`, listed),
+        text("setting", c.setting === "tree" ? "trees" : "connected simple graphs"),
+        text("at most N vertices", String(c.maxVertices)),
+        text("relation", `ρ(G) ${RELATION_WORDS[c.op]} b`),
+        text("bound b", c.bound),
+        listEntry(`graphs listed (${c.graphs.length}, graph6 where simple)`, listed),
       ];
     }
   }
@@ -176,7 +223,13 @@ function certificateEntries(kind: ClaimKind, certificate: unknown): InputEntry[]
     const pairs = e.vector.filter((p): p is [number, string] => Array.isArray(p) && p.length === 2).map(([v, x]) => `${v}: ${String(x)}`);
     return [listEntry(`certificate: Rayleigh vector x (vertex: entry; other entries 0), with xᵀ(${String(e.at)}I − A)x = ${String(e.value)}`, pairs)];
   }
-  if (e.kind === "collatz-wielandt") return [listEntry("certificate: Collatz–Wielandt vector x (vertex: entry)", e.vector.map((x, i) => `${i}: ${String(x)}`))];
+  if (e.kind === "collatz-wielandt")
+    return [
+      listEntry(
+        "certificate: Collatz–Wielandt vector x (vertex: entry)",
+        e.vector.map((x, i) => `${i}: ${String(x)}`),
+      ),
+    ];
   return [];
 }
 
@@ -203,7 +256,13 @@ export function claimInputsView(stored: unknown, certificate?: unknown): ClaimIn
     try {
       json = JSON.parse(stored);
     } catch {
-      return { kind: "unknown", entries: [text("input", stored.slice(0, LARGE_INPUT_CHARACTERS))], large: stored.length > LARGE_INPUT_CHARACTERS, short: stored.slice(0, 60), problem: "the stored input is not JSON" };
+      return {
+        kind: "unknown",
+        entries: [text("input", stored.slice(0, LARGE_INPUT_CHARACTERS))],
+        large: stored.length > LARGE_INPUT_CHARACTERS,
+        short: stored.slice(0, 60),
+        problem: "the stored input is not JSON",
+      };
     }
   }
   let claim: Claim;
@@ -213,7 +272,13 @@ export function claimInputsView(stored: unknown, certificate?: unknown): ClaimIn
   } catch (e) {
     const raw = JSON.stringify(json) ?? String(json);
     const kind = typeof (json as { kind?: unknown } | null)?.kind === "string" ? String((json as { kind: string }).kind) : "unknown";
-    return { kind, entries: [text("input", raw.slice(0, LARGE_INPUT_CHARACTERS))], large: raw.length > LARGE_INPUT_CHARACTERS, short: raw.slice(0, 60), problem: e instanceof ClaimError ? e.message : String(e) };
+    return {
+      kind,
+      entries: [text("input", raw.slice(0, LARGE_INPUT_CHARACTERS))],
+      large: raw.length > LARGE_INPUT_CHARACTERS,
+      short: raw.slice(0, 60),
+      problem: e instanceof ClaimError ? e.message : String(e),
+    };
   }
   const entries = [...entriesOf(claim), ...certificateEntries(claim.kind, certificate)];
   const large = entries.some((e) => (e.type === "graph" ? e.graph.large : e.type === "list" ? e.large : false));

@@ -27,7 +27,10 @@ export function checkInputs(claim: Claim): void {
       const g = readClaimGraph(claim.host, "$.host");
       if (claim.embedding) {
         if (claim.embedding.length !== h.n)
-          throw new ClaimError("$.embedding", `the embedding lists ${claim.embedding.length} vertices but the pattern H has ${h.n}; give one host vertex per pattern vertex`);
+          throw new ClaimError(
+            "$.embedding",
+            `the embedding lists ${claim.embedding.length} vertices but the pattern H has ${h.n}; give one host vertex per pattern vertex`,
+          );
         const bad = claim.embedding.findIndex((v) => v >= g.n);
         if (bad >= 0) throw new ClaimError(`$.embedding[${bad}]`, `vertex ${claim.embedding[bad]} is not in the host G, which has vertices 0..${g.n - 1}`);
       }
@@ -56,4 +59,3 @@ export function checkInputs(claim: Claim): void {
       readClaimGraph(claim.graph, "$.graph");
   }
 }
-

@@ -91,8 +91,11 @@ describe("readClaimsDocument", () => {
   it("reads one claim, an array, and a claims list", () => {
     expect(readClaimsDocument(good)).toHaveLength(1);
     expect(readClaimsDocument([good, good])).toHaveLength(2);
-    expect(readClaimsDocument({ format: "cairn-claims/1", claims: [good, good, good] }).map((e) => e.path))
-      .toEqual(["$.claims[0]", "$.claims[1]", "$.claims[2]"]);
+    expect(readClaimsDocument({ format: "cairn-claims/1", claims: [good, good, good] }).map((e) => e.path)).toEqual([
+      "$.claims[0]",
+      "$.claims[1]",
+      "$.claims[2]",
+    ]);
   });
 
   it("keeps a malformed claim as an entry with its error so the others are still checked", () => {
@@ -108,19 +111,33 @@ describe("readClaimsDocument", () => {
 
 describe("numbers that JSON cannot carry exactly", () => {
   const problem = (json: Record<string, unknown>) => {
-    try { validateClaim({ format: "cairn-claim/1", ...json }); } catch (e) { return (e as Error).message; }
+    try {
+      validateClaim({ format: "cairn-claim/1", ...json });
+    } catch (e) {
+      return (e as Error).message;
+    }
     throw new Error("accepted");
   };
   it("a JSON number beyond 2^53 is refused with a message that says precision was lost and to use a string", () => {
-    const m = problem({ kind: "vector-certificate", graph: { format: "named", text: "path(2)" }, vector: [12345678901234567891, "1"], relation: "<=", bound: "1" });
+    const m = problem({
+      kind: "vector-certificate",
+      graph: { format: "named", text: "path(2)" },
+      vector: [12345678901234567891, "1"],
+      relation: "<=",
+      bound: "1",
+    });
     expect(m).toMatch(/\$\.vector\[0\]/);
     expect(m).toMatch(/is beyond 2\^53, where JSON numbers lose precision: it was already rounded when the file was read/);
     expect(m).toMatch(/Write it as a string in quotes/);
   });
   it("a small JSON number where a string is expected says to quote it", () => {
-    expect(problem({ kind: "spectral-radius-bound", graph: { format: "named", text: "path(2)" }, op: "<", bound: 2 })).toMatch(/expected a string, got the number 2: write numbers here in quotes \("2"\)/);
+    expect(problem({ kind: "spectral-radius-bound", graph: { format: "named", text: "path(2)" }, op: "<", bound: 2 })).toMatch(
+      /expected a string, got the number 2: write numbers here in quotes \("2"\)/,
+    );
   });
   it("an integer field beyond 2^53 says precision was lost", () => {
-    expect(problem({ kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "max-degree", relation: "<=", parameter: 2 ** 60 })).toMatch(/beyond 2\^53, where JSON numbers lose precision.*at most 2\^53 − 1/);
+    expect(problem({ kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "max-degree", relation: "<=", parameter: 2 ** 60 })).toMatch(
+      /beyond 2\^53, where JSON numbers lose precision.*at most 2\^53 − 1/,
+    );
   });
 });

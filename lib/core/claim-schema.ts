@@ -26,14 +26,19 @@ export interface GraphInput {
 export const RELATIONS = ["<", "<=", "=", ">=", ">"] as const;
 export type Relation = (typeof RELATIONS)[number];
 
-export const STRUCTURE_PREDICATES = [
-  "connected", "bipartite", "tree", "forest", "acyclic", "max-degree", "branch-vertices", "leg-lengths",
-] as const;
+export const STRUCTURE_PREDICATES = ["connected", "bipartite", "tree", "forest", "acyclic", "max-degree", "branch-vertices", "leg-lengths"] as const;
 export type StructurePredicate = (typeof STRUCTURE_PREDICATES)[number];
 
 export const CLAIM_KINDS = [
-  "spectral-radius-bound", "vector-certificate", "subgraph", "exclusion", "identification",
-  "characteristic-polynomial", "eigenvalues", "structure", "enumeration",
+  "spectral-radius-bound",
+  "vector-certificate",
+  "subgraph",
+  "exclusion",
+  "identification",
+  "characteristic-polynomial",
+  "eigenvalues",
+  "structure",
+  "enumeration",
 ] as const;
 export type ClaimKind = (typeof CLAIM_KINDS)[number];
 
@@ -138,12 +143,22 @@ export const DEGREE_RELATIONS = ["<=", "=", ">="] as const;
 export type DegreeRelation = (typeof DEGREE_RELATIONS)[number];
 
 export type Claim =
-  | SpectralRadiusBoundClaim | VectorCertificateClaim | SubgraphClaim | ExclusionClaim
-  | IdentificationClaim | CharacteristicPolynomialClaim | EigenvaluesClaim | StructureClaim | EnumerationClaim;
+  | SpectralRadiusBoundClaim
+  | VectorCertificateClaim
+  | SubgraphClaim
+  | ExclusionClaim
+  | IdentificationClaim
+  | CharacteristicPolynomialClaim
+  | EigenvaluesClaim
+  | StructureClaim
+  | EnumerationClaim;
 
 /** A malformed claim: `path` is the JSON path of the offending value, e.g. `$.claims[2].graph.format`. */
 export class ClaimError extends Error {
-  constructor(readonly path: string, readonly detail: string) {
+  constructor(
+    readonly path: string,
+    readonly detail: string,
+  ) {
     super(`${path}: ${detail}`);
     this.name = "ClaimError";
   }
@@ -171,11 +186,13 @@ function precisionLost(v: unknown): boolean {
   return typeof v === "number" && Number.isFinite(v) && Math.abs(v) > Number.MAX_SAFE_INTEGER;
 }
 
-const PRECISION_LOST = "is beyond 2^53, where JSON numbers lose precision: it was already rounded when the file was read (the digits shown are not the ones written). Write it as a string in quotes, e.g. \"12345678901234567891\", so every digit is kept";
+const PRECISION_LOST =
+  'is beyond 2^53, where JSON numbers lose precision: it was already rounded when the file was read (the digits shown are not the ones written). Write it as a string in quotes, e.g. "12345678901234567891", so every digit is kept';
 
 function string(v: unknown, path: string): string {
   if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST}`);
-  if (typeof v === "number") throw new ClaimError(path, `expected a string, got the number ${v}: write numbers here in quotes ("${v}") so that they are read exactly`);
+  if (typeof v === "number")
+    throw new ClaimError(path, `expected a string, got the number ${v}: write numbers here in quotes ("${v}") so that they are read exactly`);
   if (typeof v !== "string") throw new ClaimError(path, `expected a string, got ${describe(v)}`);
   return v;
 }
@@ -187,9 +204,12 @@ function oneOf<T extends string>(v: unknown, allowed: readonly T[], path: string
 }
 
 function integer(v: unknown, path: string, min: number): number {
-  if (precisionLost(v)) throw new ClaimError(path, `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST.replace(/\. Write it as a string.*$/, "; integers here are at most 2^53 − 1")}`);
-  if (typeof v !== "number" || !Number.isSafeInteger(v) || v < min)
-    throw new ClaimError(path, `expected an integer ≥ ${min}, got ${describe(v)}`);
+  if (precisionLost(v))
+    throw new ClaimError(
+      path,
+      `the number ${describe(v).replace(/^number /, "")} ${PRECISION_LOST.replace(/\. Write it as a string.*$/, "; integers here are at most 2^53 − 1")}`,
+    );
+  if (typeof v !== "number" || !Number.isSafeInteger(v) || v < min) throw new ClaimError(path, `expected an integer ≥ ${min}, got ${describe(v)}`);
   return v;
 }
 
@@ -221,7 +241,8 @@ export const MAX_BOUND_LENGTH = 20_000;
 
 function boundText(v: unknown, path: string): string {
   const s = string(v, path).trim();
-  if (s.length === 0) throw new ClaimError(path, `expected a bound such as "2", "7/2", "(1+sqrt(5))/2", "2cos(pi/7)" or "root(x^3-x-1, 1, 2)", got an empty text`);
+  if (s.length === 0)
+    throw new ClaimError(path, `expected a bound such as "2", "7/2", "(1+sqrt(5))/2", "2cos(pi/7)" or "root(x^3-x-1, 1, 2)", got an empty text`);
   if (s.length > MAX_BOUND_LENGTH) throw new ClaimError(path, `a bound has at most ${MAX_BOUND_LENGTH} characters, got ${s.length}`);
   return s;
 }
@@ -268,8 +289,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
  */
 export function validateClaim(json: unknown, path = "$"): Claim {
   const o = object(json, path);
-  if (o.format !== CLAIM_FORMAT)
-    throw new ClaimError(`${path}.format`, `expected "${CLAIM_FORMAT}", got ${describe(o.format)}`);
+  if (o.format !== CLAIM_FORMAT) throw new ClaimError(`${path}.format`, `expected "${CLAIM_FORMAT}", got ${describe(o.format)}`);
   const kind = oneOf(o.kind, CLAIM_KINDS, `${path}.kind`);
   const allowed = new Set(["format", "kind", "id", "certificate", ...KNOWN_KEYS[kind]]);
   for (const key of Object.keys(o))
@@ -285,16 +305,18 @@ export function validateClaim(json: unknown, path = "$"): Claim {
       return { ...common, kind, graph: graph(), op: oneOf(o.op, RELATIONS, `${path}.op`), bound: boundText(o.bound, `${path}.bound`) };
     case "vector-certificate":
       return {
-        ...common, kind, graph: graph(),
+        ...common,
+        kind,
+        graph: graph(),
         vector: array(o.vector, `${path}.vector`, 1).map((x, i) => rationalText(x, `${path}.vector[${i}]`)),
         relation: oneOf(o.relation, RELATIONS, `${path}.relation`),
         bound: boundText(o.bound, `${path}.bound`),
       };
     case "subgraph": {
-      const embedding = o.embedding === undefined ? undefined
-        : array(o.embedding, `${path}.embedding`).map((x, i) => integer(x, `${path}.embedding[${i}]`, 0));
+      const embedding = o.embedding === undefined ? undefined : array(o.embedding, `${path}.embedding`).map((x, i) => integer(x, `${path}.embedding[${i}]`, 0));
       return {
-        ...common, kind,
+        ...common,
+        kind,
         pattern: validateGraphInput(o.pattern, `${path}.pattern`),
         host: validateGraphInput(o.host, `${path}.host`),
         induced: optionalBoolean(o.induced, `${path}.induced`),
@@ -303,7 +325,8 @@ export function validateClaim(json: unknown, path = "$"): Claim {
     }
     case "exclusion":
       return {
-        ...common, kind,
+        ...common,
+        kind,
         host: validateGraphInput(o.host, `${path}.host`),
         patterns: array(o.patterns, `${path}.patterns`, 1).map((p, i) => validateGraphInput(p, `${path}.patterns[${i}]`)),
         induced: optionalBoolean(o.induced, `${path}.induced`),
@@ -311,31 +334,43 @@ export function validateClaim(json: unknown, path = "$"): Claim {
     case "identification":
       return { ...common, kind, graph: graph(), ...(o.family !== undefined ? { family: string(o.family, `${path}.family`).trim() } : {}) };
     case "characteristic-polynomial": {
-      const coefficients = o.coefficients === undefined ? undefined
-        : array(o.coefficients, `${path}.coefficients`, 1).map((c, i) => {
-          const s = typeof c === "number" && Number.isSafeInteger(c) ? String(c) : string(c, `${path}.coefficients[${i}]`).trim();
-          if (!INTEGER_TEXT.test(s)) throw new ClaimError(`${path}.coefficients[${i}]`, `expected an integer (as a string for large values), got ${describe(c)}`);
-          return s.replace(/^(-?)0+(?=\d)/, "$1");
-        });
+      const coefficients =
+        o.coefficients === undefined
+          ? undefined
+          : array(o.coefficients, `${path}.coefficients`, 1).map((c, i) => {
+              const s = typeof c === "number" && Number.isSafeInteger(c) ? String(c) : string(c, `${path}.coefficients[${i}]`).trim();
+              if (!INTEGER_TEXT.test(s))
+                throw new ClaimError(`${path}.coefficients[${i}]`, `expected an integer (as a string for large values), got ${describe(c)}`);
+              return s.replace(/^(-?)0+(?=\d)/, "$1");
+            });
       return { ...common, kind, graph: graph(), ...(coefficients ? { coefficients } : {}) };
     }
     case "eigenvalues":
       return {
-        ...common, kind, graph: graph(),
-        h: typeof o.h === "string" ? byType(o.h, /^coxeter\s+number\s+of\s+(.+)$/i, "Coxeter number of E7", `${path}.h`).coxeterNumber : integer(o.h, `${path}.h`, 1),
-        multiset: typeof o.multiset === "string"
-          ? byType(o.multiset, /^exponents\s+of\s+(.+)$/i, "exponents of E7", `${path}.multiset`).exponents
-          : array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
+        ...common,
+        kind,
+        graph: graph(),
+        h:
+          typeof o.h === "string"
+            ? byType(o.h, /^coxeter\s+number\s+of\s+(.+)$/i, "Coxeter number of E7", `${path}.h`).coxeterNumber
+            : integer(o.h, `${path}.h`, 1),
+        multiset:
+          typeof o.multiset === "string"
+            ? byType(o.multiset, /^exponents\s+of\s+(.+)$/i, "exponents of E7", `${path}.multiset`).exponents
+            : array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
       };
     case "structure":
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };
     case "enumeration": {
       const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
-      if (maxVertices > ENUMERATION_MAX_VERTICES) throw new ClaimError(`${path}.maxVertices`, `at most ${ENUMERATION_MAX_VERTICES} vertices can be enumerated here (got ${maxVertices})`);
+      if (maxVertices > ENUMERATION_MAX_VERTICES)
+        throw new ClaimError(`${path}.maxVertices`, `at most ${ENUMERATION_MAX_VERTICES} vertices can be enumerated here (got ${maxVertices})`);
       const graphs = array(o.graphs, `${path}.graphs`);
       if (graphs.length > 500) throw new ClaimError(`${path}.graphs`, `at most 500 graphs can be listed (got ${graphs.length})`);
       return {
-        ...common, kind, maxVertices,
+        ...common,
+        kind,
+        maxVertices,
         ...(o.setting !== undefined ? { setting: oneOf(o.setting, ENUMERATION_SETTINGS, `${path}.setting`) } : {}),
         op: oneOf(o.op, ENUMERATION_RELATIONS, `${path}.op`),
         bound: boundText(o.bound, `${path}.bound`),
@@ -352,7 +387,11 @@ function structureParameter(o: Json, path: string): { predicate: StructurePredic
   switch (predicate) {
     case "max-degree":
       if (o.parameter === undefined) throw new ClaimError(p, `"max-degree" needs a number parameter`);
-      return { predicate, parameter: integer(o.parameter, p, 0), relation: o.relation === undefined ? "=" : oneOf(o.relation, DEGREE_RELATIONS, `${path}.relation`) };
+      return {
+        predicate,
+        parameter: integer(o.parameter, p, 0),
+        relation: o.relation === undefined ? "=" : oneOf(o.relation, DEGREE_RELATIONS, `${path}.relation`),
+      };
     case "branch-vertices":
       if (o.parameter === undefined) throw new ClaimError(p, `"${predicate}" needs a number parameter`);
       return { predicate, parameter: integer(o.parameter, p, 0) };

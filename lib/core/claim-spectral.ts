@@ -89,7 +89,8 @@ function charpolyStatement(c: CharacteristicPolynomialClaim): string {
 }
 
 function verifyCharpoly(c: CharacteristicPolynomialClaim, g: Graph, budget: Budget): Verdict {
-  const statement = charpolyStatement(c), method = "multi-modular determinant with a proven coefficient bound (Chinese remaindering)";
+  const statement = charpolyStatement(c),
+    method = "multi-modular determinant with a proven coefficient bound (Chinese remaindering)";
   const p = characteristicPolynomial(g, budget);
   const actual = coefficientsOf(p);
   const certificate = { coefficients: actual };
@@ -106,7 +107,12 @@ function recheckCharpoly(c: CharacteristicPolynomialClaim, g: Graph, outcome: "v
   if (!Array.isArray(listed) || !listed.every((x) => typeof x === "string") || !sameCoefficients(listed as string[], actual))
     return { status: "refuted", statement, method, reason: "certificate rejected: its coefficients are not the characteristic polynomial of G" };
   const truth = !c.coefficients || sameCoefficients(c.coefficients, actual);
-  return withOutcome({ status: "verified", statement, method, reason: `the certificate lists χ_G = ${polyToString(poly)}, recomputed` }, truth, outcome, `χ_G = ${polyToString(poly)}`);
+  return withOutcome(
+    { status: "verified", statement, method, reason: `the certificate lists χ_G = ${polyToString(poly)}, recomputed` },
+    truth,
+    outcome,
+    `χ_G = ${polyToString(poly)}`,
+  );
 }
 
 export const CHARPOLY_HANDLER: ClaimHandler<CharacteristicPolynomialClaim> = {
@@ -151,10 +157,25 @@ export const VECTOR_HANDLER: ClaimHandler<VectorCertificateClaim> = {
     const e = typeof evidence === "object" && evidence !== null ? (evidence as Record<string, unknown>) : {};
     const method = "certificate re-check (Collatz–Wielandt vector check)";
     if (fresh.status === "verified" && e.conclusion !== fresh.certificate?.conclusion)
-      return { ...fresh, method, status: "refuted", reason: `certificate rejected: the vector establishes ${String(fresh.certificate?.conclusion)}, not ${String(e.conclusion)}` };
+      return {
+        ...fresh,
+        method,
+        status: "refuted",
+        reason: `certificate rejected: the vector establishes ${String(fresh.certificate?.conclusion)}, not ${String(e.conclusion)}`,
+      };
     if (fresh.status === "refuted" && e.failingVertex !== fresh.certificate?.failingVertex)
-      return { ...fresh, method, status: "refuted", reason: `certificate rejected: the first failing vertex is ${String(fresh.certificate?.failingVertex)}, not ${String(e.failingVertex)}` };
-    return withOutcome({ ...fresh, method, status: fresh.status === "undecided" ? "undecided" : "verified" }, fresh.status === "verified", outcome, fresh.reason);
+      return {
+        ...fresh,
+        method,
+        status: "refuted",
+        reason: `certificate rejected: the first failing vertex is ${String(fresh.certificate?.failingVertex)}, not ${String(e.failingVertex)}`,
+      };
+    return withOutcome(
+      { ...fresh, method, status: fresh.status === "undecided" ? "undecided" : "verified" },
+      fresh.status === "verified",
+      outcome,
+      fresh.reason,
+    );
   },
 };
 
@@ -167,5 +188,6 @@ export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
     return big >= 0 ? `listed graph ${big + 1} is far larger than any graph enumerated (${c.maxVertices} vertices at most)` : undefined;
   },
   verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, c.setting),
-  recheck: (c, inputs, outcome, evidence, budget) => recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, c.setting),
+  recheck: (c, inputs, outcome, evidence, budget) =>
+    recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, c.setting),
 };

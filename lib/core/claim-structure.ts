@@ -6,9 +6,7 @@
  */
 import type { StructureClaim } from "./claim-schema";
 import { CLAIM_LIMITS, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
-import {
-  branchVertices, maxDegree, recheckBranchVertices, recheckMaxDegree, recheckStarlikeLegs, starlikeLegs,
-} from "./degree-structure";
+import { branchVertices, maxDegree, recheckBranchVertices, recheckMaxDegree, recheckStarlikeLegs, starlikeLegs } from "./degree-structure";
 import { isBipartite, isConnected, isForest, isTree, recheckBipartite, recheckConnected, recheckTree } from "./structure";
 import type { Budget, Verdict } from "./verdict";
 import type { Graph } from "./graph";
@@ -17,14 +15,22 @@ const DEGREE_SYMBOL = { "<=": "≤", "=": "=", ">=": "≥" } as const;
 
 function statementOf(c: StructureClaim): string {
   switch (c.predicate) {
-    case "connected": return "G is connected";
-    case "bipartite": return "G is bipartite";
-    case "tree": return "G is a tree";
-    case "forest": return "G is a forest";
-    case "acyclic": return "G is acyclic (no cycles, loops or multiple edges)";
-    case "max-degree": return `Δ(G) ${DEGREE_SYMBOL[c.relation ?? "="]} ${String(c.parameter)}`;
-    case "branch-vertices": return `G has exactly ${String(c.parameter)} vertices of degree ≥ 3`;
-    case "leg-lengths": return `G is the star-like tree T(${(c.parameter as number[]).join(",")})`;
+    case "connected":
+      return "G is connected";
+    case "bipartite":
+      return "G is bipartite";
+    case "tree":
+      return "G is a tree";
+    case "forest":
+      return "G is a forest";
+    case "acyclic":
+      return "G is acyclic (no cycles, loops or multiple edges)";
+    case "max-degree":
+      return `Δ(G) ${DEGREE_SYMBOL[c.relation ?? "="]} ${String(c.parameter)}`;
+    case "branch-vertices":
+      return `G has exactly ${String(c.parameter)} vertices of degree ≥ 3`;
+    case "leg-lengths":
+      return `G is the star-like tree T(${(c.parameter as number[]).join(",")})`;
   }
 }
 
@@ -41,20 +47,28 @@ function compareDegree(x: number, rel: "<=" | "=" | ">=", k: number): boolean {
 }
 
 function sameMultiset(a: readonly number[], b: readonly number[]): boolean {
-  const x = [...a].sort((p, q) => p - q), y = [...b].sort((p, q) => p - q);
+  const x = [...a].sort((p, q) => p - q),
+    y = [...b].sort((p, q) => p - q);
   return x.length === y.length && x.every((v, i) => v === y[i]);
 }
 
 function verifyStructure(c: StructureClaim, g: Graph, budget: Budget): Verdict {
   switch (c.predicate) {
-    case "connected": return isConnected(g, budget);
-    case "bipartite": return isBipartite(g, budget);
-    case "tree": return isTree(g, budget);
+    case "connected":
+      return isConnected(g, budget);
+    case "bipartite":
+      return isBipartite(g, budget);
+    case "tree":
+      return isTree(g, budget);
     case "forest":
-    case "acyclic": return isForest(g, budget);
-    case "max-degree": return maxDegree(g, c.relation ?? "=", c.parameter as number, budget);
-    case "branch-vertices": return branchVertices(g, c.parameter as number, budget);
-    case "leg-lengths": return starlikeLegs(g, c.parameter as number[], budget);
+    case "acyclic":
+      return isForest(g, budget);
+    case "max-degree":
+      return maxDegree(g, c.relation ?? "=", c.parameter as number, budget);
+    case "branch-vertices":
+      return branchVertices(g, c.parameter as number, budget);
+    case "leg-lengths":
+      return starlikeLegs(g, c.parameter as number[], budget);
   }
 }
 
@@ -69,7 +83,12 @@ function recheckStructure(c: StructureClaim, g: Graph, outcome: "verified" | "re
     case "forest":
     case "acyclic": {
       const tree = c.predicate === "tree";
-      return withOutcome(recheckTree(g, evidence, tree, budget), kind === "forest", outcome, kind === "forest" ? `G is a ${tree ? "tree" : "forest"}` : `G is not a ${tree ? "tree" : "forest"}`);
+      return withOutcome(
+        recheckTree(g, evidence, tree, budget),
+        kind === "forest",
+        outcome,
+        kind === "forest" ? `G is a ${tree ? "tree" : "forest"}` : `G is not a ${tree ? "tree" : "forest"}`,
+      );
     }
     case "max-degree": {
       const shown = field(evidence, "maxDegree");

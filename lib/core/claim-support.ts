@@ -35,7 +35,10 @@ export interface ClaimHandler<K extends Claim = Claim> {
  * prefixes the claim's own JSON path.
  */
 export class ClaimInputError extends Error {
-  constructor(readonly field: string, message: string) {
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
     super(message);
     this.name = "ClaimInputError";
   }

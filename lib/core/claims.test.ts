@@ -104,7 +104,11 @@ describe("claim results and certificates", () => {
   it("a graph text that does not parse is a ClaimError naming the field", () => {
     const bad = claim({ kind: "structure", graph: { format: "edges", text: "0 1\n1 x y z" }, predicate: "tree" });
     expect(() => verifyClaim(bad, { path: "$.claims[3]" })).toThrow(ClaimError);
-    try { verifyClaim(bad, { path: "$.claims[3]" }); } catch (e) { expect((e as ClaimError).path).toBe("$.claims[3].graph.text"); }
+    try {
+      verifyClaim(bad, { path: "$.claims[3]" });
+    } catch (e) {
+      expect((e as ClaimError).path).toBe("$.claims[3].graph.text");
+    }
   });
 });
 
@@ -180,7 +184,9 @@ describe("vector, subgraph, exclusion and identification claims", () => {
   });
 
   it("a vector of the wrong length names the vector field", () => {
-    expect(() => verifyClaim(claim({ kind: "vector-certificate", graph: named("path(3)"), vector: ["1", "1"], relation: "<=", bound: "2" }))).toThrow(/^\$\.vector: /);
+    expect(() => verifyClaim(claim({ kind: "vector-certificate", graph: named("path(3)"), vector: ["1", "1"], relation: "<=", bound: "2" }))).toThrow(
+      /^\$\.vector: /,
+    );
   });
 
   it("subgraph containment: affine E8 in T(1,2,6), but K_{1,4} not in a path", () => {
@@ -193,8 +199,12 @@ describe("vector, subgraph, exclusion and identification claims", () => {
 
   it("a stated embedding is checked as stated; induced containment needs equal adjacency", () => {
     // Common practice: three vertices of a triangle induce a triangle, never a path; in C4, 0–1–2 induces P3.
-    expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("cycle(4)"), embedding: [0, 1, 2] })).verdict.status).toBe("verified");
-    expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("complete(3)"), embedding: [0, 1, 2] })).verdict.status).toBe("refuted");
+    expect(
+      verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("cycle(4)"), embedding: [0, 1, 2] })).verdict.status,
+    ).toBe("verified");
+    expect(
+      verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("complete(3)"), embedding: [0, 1, 2] })).verdict.status,
+    ).toBe("refuted");
     expect(verifyClaim(claim({ kind: "subgraph", induced: true, pattern: named("path(3)"), host: named("complete(3)") })).verdict.status).toBe("refuted");
     expect(() => verifyClaim(claim({ kind: "subgraph", pattern: named("path(3)"), host: named("cycle(4)"), embedding: [0, 1] }))).toThrow(/^\$\.embedding: /);
   });
@@ -247,9 +257,13 @@ describe("every verdict says which graph it ran on", () => {
     const s = verifyClaim(claim({ kind: "subgraph", pattern: named("path(3)"), host: named("cycle(5)"), induced: true }));
     expect(describeRanOn(s.verdict.ranOn!)).toBe("Ran on H: order 3, size 2, no loops, no multiple edges; G: order 5, size 5, no loops, no multiple edges.");
     // Size limits still say what was read.
-    expect(verifyClaim(claim({ kind: "structure", graph: { format: "edges", text: "n = 4\n0 1" }, predicate: "tree" })).verdict.ranOn).toEqual([{ role: "G", order: 4, size: 1, loops: 0, multipleEdges: 0 }]);
+    expect(verifyClaim(claim({ kind: "structure", graph: { format: "edges", text: "n = 4\n0 1" }, predicate: "tree" })).verdict.ranOn).toEqual([
+      { role: "G", order: 4, size: 1, loops: 0, multipleEdges: 0 },
+    ]);
   });
   it("a bound that does not parse names the bound field", () => {
-    expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(3)"), op: "<", bound: "sqrt(-1)" }))).toThrow(/\$\.bound.*square root of a negative number/);
+    expect(() => verifyClaim(claim({ kind: "spectral-radius-bound", graph: named("path(3)"), op: "<", bound: "sqrt(-1)" }))).toThrow(
+      /\$\.bound.*square root of a negative number/,
+    );
   });
 });

@@ -147,8 +147,7 @@ function budgeted(statement: string, budget: Budget, run: () => Verdict): Verdic
   try {
     return run();
   } catch (e) {
-    if (e instanceof BudgetExceeded)
-      return { status: "undecided", statement, method: "step budget", reason: budgetReason(e), steps: budget.used };
+    if (e instanceof BudgetExceeded) return { status: "undecided", statement, method: "step budget", reason: budgetReason(e), steps: budget.used };
     throw e;
   }
 }
@@ -187,11 +186,16 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   const ranOn = claimGraphSummaries(inputs);
   const tooLarge = handler.limit(claim, inputs);
   if (tooLarge)
-    return { ...base, timings: { parseMs, checkMs: 0 }, verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}`, ranOn } };
+    return {
+      ...base,
+      timings: { parseMs, checkMs: 0 },
+      verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}`, ranOn },
+    };
   const checkStart = now();
   const found = guarded(path, () => budgeted(statement, budget, () => handler.verify(claim, inputs, budget)));
   const checkMs = elapsed(checkStart);
-  const certificate: ClaimCertificate | undefined = found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate };
+  const certificate: ClaimCertificate | undefined =
+    found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate };
   // The method named is the one that decided, with the kind of evidence it left beside it.
   const verdict: Verdict<ClaimCertificate> = { ...found, statement, ranOn, method: methodWithCertificate(claim.kind, found.method, certificate), certificate };
   if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
@@ -200,7 +204,12 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   const check = guarded(path, () => recheckParsed(claim, inputs, carried, budget instanceof TimedBudget ? budget.renewed() : new Budget(budget.limit)));
   const recheckMs = elapsed(recheckStart);
   const outcome = (carried as { outcome?: unknown } | null)?.outcome;
-  return { ...base, verdict, timings: { parseMs, checkMs, recheckMs }, certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check } };
+  return {
+    ...base,
+    verdict,
+    timings: { parseMs, checkMs, recheckMs },
+    certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check },
+  };
 }
 
 function rejected(statement: string, why: string): Verdict {

@@ -35,10 +35,19 @@ function lineOf(label: string, r: ClaimResult): CheckLine {
       : `certificate does NOT match: ${r.certificateCheck.verdict.reason}`,
   };
   const ranOn = describeRanOn(v.ranOn ?? []);
-  const details = [...(v.status === "verified" ? [v.reason] : []), ...(r.bound ? [`bound ${r.bound.sentence}`] : []), ...(ranOn ? [ranOn] : []), ...(v.notes ?? [])];
+  const details = [
+    ...(v.status === "verified" ? [v.reason] : []),
+    ...(r.bound ? [`bound ${r.bound.sentence}`] : []),
+    ...(ranOn ? [ranOn] : []),
+    ...(v.notes ?? []),
+  ];
   return {
-    label, status: v.status, text: `${v.statement}  (${v.method})${reason}`, digest: r.digest,
-    ...(certificate ? { certificate } : {}), ...(details.length ? { details } : {}),
+    label,
+    status: v.status,
+    text: `${v.statement}  (${v.method})${reason}`,
+    digest: r.digest,
+    ...(certificate ? { certificate } : {}),
+    ...(details.length ? { details } : {}),
     ...claimLineFields(r),
   };
 }
@@ -74,7 +83,12 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
       // wrong length). Anything else is a fault in the checker: a reader gets a line, not a stack trace,
       // and the claim counts as not verified.
       if (e instanceof ClaimError) lines.push({ label, status: "malformed", text: e.message });
-      else lines.push({ label, status: "undecided", text: `internal error in the checker (${e instanceof Error ? e.message : String(e)}); please report it with this claim` });
+      else
+        lines.push({
+          label,
+          status: "undecided",
+          text: `internal error in the checker (${e instanceof Error ? e.message : String(e)}); please report it with this claim`,
+        });
     }
   }
   return { source, lines, exitCode: exitCodeOf(lines) };
@@ -127,23 +141,39 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
   const files: string[] = [];
   let steps: number | undefined;
   let seconds = DEFAULT_TIME_LIMIT_S;
-  let json = false, verbose = false;
+  let json = false,
+    verbose = false;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
-    if (a === "--help" || a === "-h") { print(USAGE); return EXIT_OK; }
-    else if (a === "--json") json = true;
+    if (a === "--help" || a === "-h") {
+      print(USAGE);
+      return EXIT_OK;
+    } else if (a === "--json") json = true;
     else if (a === "--verbose" || a === "-v") verbose = true;
     else if (a === "--steps") {
       steps = Number(argv[++i]);
-      if (!Number.isSafeInteger(steps) || steps < 1) { print(`--steps needs a positive integer\n${USAGE}`); return EXIT_MALFORMED; }
+      if (!Number.isSafeInteger(steps) || steps < 1) {
+        print(`--steps needs a positive integer\n${USAGE}`);
+        return EXIT_MALFORMED;
+      }
     } else if (a === "--time-limit") {
       seconds = Number(argv[++i]);
-      if (!Number.isFinite(seconds) || seconds <= 0) { print(`--time-limit needs a positive number of seconds\n${USAGE}`); return EXIT_MALFORMED; }
-    } else if (a === "--version") { print(CHECKER_VERSION); return EXIT_OK; }
-    else if (a.startsWith("--")) { print(`unknown option ${a}\n${USAGE}`); return EXIT_MALFORMED; }
-    else files.push(a);
+      if (!Number.isFinite(seconds) || seconds <= 0) {
+        print(`--time-limit needs a positive number of seconds\n${USAGE}`);
+        return EXIT_MALFORMED;
+      }
+    } else if (a === "--version") {
+      print(CHECKER_VERSION);
+      return EXIT_OK;
+    } else if (a.startsWith("--")) {
+      print(`unknown option ${a}\n${USAGE}`);
+      return EXIT_MALFORMED;
+    } else files.push(a);
   }
-  if (files.length === 0) { print(USAGE); return EXIT_MALFORMED; }
+  if (files.length === 0) {
+    print(USAGE);
+    return EXIT_MALFORMED;
+  }
   const reports = files.map((f) => checkFile(f, { steps, timeLimitMs: seconds * 1000 }));
   if (json) print(JSON.stringify({ checkerVersion: CHECKER_VERSION, reports }, null, 2));
   else {

@@ -20,17 +20,55 @@ describe("constructors follow the benchmark layouts", () => {
   it("extended E8 = T(1,2,5) and K_{1,4}: benchmark digests and our vertex numbering", () => {
     // Digests from BENCH-WORKLOADS.md (the project's shared workload table).
     expect(benchDigest(benchT12k(5))).toBe("69beba24bea93427");
-    expect(benchDigest([[0, 1], [0, 2], [0, 3], [0, 4]])).toBe("9ee64e6554036144");
-    expect(graphJson(affineE(8))).toBe(graphJson(makeGraph(9, benchT12k(5).map(([u, v]) => ({ u, v })))));
-    expect(graphJson(star(4))).toBe(graphJson(makeGraph(5, [[0, 1], [0, 2], [0, 3], [0, 4]].map(([u, v]) => ({ u, v })))));
+    expect(
+      benchDigest([
+        [0, 1],
+        [0, 2],
+        [0, 3],
+        [0, 4],
+      ]),
+    ).toBe("9ee64e6554036144");
+    expect(graphJson(affineE(8))).toBe(
+      graphJson(
+        makeGraph(
+          9,
+          benchT12k(5).map(([u, v]) => ({ u, v })),
+        ),
+      ),
+    );
+    expect(graphJson(star(4))).toBe(
+      graphJson(
+        makeGraph(
+          5,
+          [
+            [0, 1],
+            [0, 2],
+            [0, 3],
+            [0, 4],
+          ].map(([u, v]) => ({ u, v })),
+        ),
+      ),
+    );
   });
 
   it("T(1,2,k) for n = 20, 50, 100, 200 matches the benchmark digests", () => {
-    const table: Array<[number, string]> = [[20, "60118d01c8181288"], [50, "f40d7fe3d5c834b1"], [100, "0c6d046406a48b8c"], [200, "232d24d07e25dabe"]];
+    const table: Array<[number, string]> = [
+      [20, "60118d01c8181288"],
+      [50, "f40d7fe3d5c834b1"],
+      [100, "0c6d046406a48b8c"],
+      [200, "232d24d07e25dabe"],
+    ];
     for (const [n, digest] of table) {
       const edges = benchT12k(n - 4);
       expect(benchDigest(edges)).toBe(digest);
-      expect(graphJson(starlike([1, 2, n - 4]))).toBe(graphJson(makeGraph(n, edges.map(([u, v]) => ({ u, v })))));
+      expect(graphJson(starlike([1, 2, n - 4]))).toBe(
+        graphJson(
+          makeGraph(
+            n,
+            edges.map(([u, v]) => ({ u, v })),
+          ),
+        ),
+      );
     }
   });
 
@@ -54,8 +92,17 @@ describe("family sizes", () => {
     expect(affineA(4).edges.length).toBe(5);
     expect(affineA(0).edges).toEqual([{ u: 0, v: 0, m: 2 }]);
     expect(affineA(1).edges).toEqual([{ u: 0, v: 1, m: 2 }]);
-    expect(loopPath(3).edges).toEqual([{ u: 0, v: 0, m: 1 }, { u: 0, v: 1, m: 1 }, { u: 1, v: 2, m: 1 }]);
-    expect(forkLoop(4).edges.map((e) => [e.u, e.v])).toEqual([[0, 0], [0, 1], [1, 2], [1, 3]]);
+    expect(loopPath(3).edges).toEqual([
+      { u: 0, v: 0, m: 1 },
+      { u: 0, v: 1, m: 1 },
+      { u: 1, v: 2, m: 1 },
+    ]);
+    expect(forkLoop(4).edges.map((e) => [e.u, e.v])).toEqual([
+      [0, 0],
+      [0, 1],
+      [1, 2],
+      [1, 3],
+    ]);
   });
 
   it("rejects parameters outside a family", () => {
@@ -70,7 +117,12 @@ describe("named syntax", () => {
   it("builds unions left to right and accepts comments and brackets", () => {
     const g = parseGraph("(path(2) + star(2)) # a P2 and a P3\n + A~(0)", "named");
     expect(g.n).toBe(2 + 3 + 1);
-    expect(g.edges.map((e) => [e.u, e.v, e.m])).toEqual([[0, 1, 1], [2, 3, 1], [2, 4, 1], [5, 5, 2]]);
+    expect(g.edges.map((e) => [e.u, e.v, e.m])).toEqual([
+      [0, 1, 1],
+      [2, 3, 1],
+      [2, 4, 1],
+      [5, 5, 2],
+    ]);
   });
 
   it("names line and column of mistakes", () => {
@@ -83,7 +135,11 @@ describe("named syntax", () => {
     ];
     for (const [text, line, column, message] of cases) {
       let error: unknown;
-      try { parseGraph(text, "named"); } catch (e) { error = e; }
+      try {
+        parseGraph(text, "named");
+      } catch (e) {
+        error = e;
+      }
       expect(error, text).toBeInstanceOf(GraphError);
       const e = error as GraphError;
       expect([e.line, e.column], text).toEqual([line, column]);
@@ -105,8 +161,14 @@ describe("canonical JSON and digests", () => {
   });
 
   it("is deterministic for graphs and independent of edge input order", () => {
-    const g1 = makeGraph(3, [{ u: 2, v: 1 }, { u: 0, v: 1 }]);
-    const g2 = makeGraph(3, [{ u: 0, v: 1 }, { u: 1, v: 2 }]);
+    const g1 = makeGraph(3, [
+      { u: 2, v: 1 },
+      { u: 0, v: 1 },
+    ]);
+    const g2 = makeGraph(3, [
+      { u: 0, v: 1 },
+      { u: 1, v: 2 },
+    ]);
     expect(graphJson(g1)).toBe('{"edges":[[0,1,1],[1,2,1]],"n":3}');
     expect(graphDigest(g1)).toBe(graphDigest(g2));
     expect(graphDigest(completeBipartite(1, 2))).not.toBe(graphDigest(g1)); // a different numbering is a different labelled graph

@@ -120,15 +120,25 @@ export function starlike(legs: readonly number[]): Graph {
 
 /** Tree with two branch vertices: legs a,b at the first, k ≥ 1 inner edges, legs c,d at the second. */
 export function twoBranch(a: number, b: number, k: number, c: number, d: number): Graph {
-  for (const [name, l] of [["a", a], ["b", b], ["c", c], ["d", d]] as const) requireAtLeast(`two_branch leg ${name}`, l, 1);
+  for (const [name, l] of [
+    ["a", a],
+    ["b", b],
+    ["c", c],
+    ["d", d],
+  ] as const)
+    requireAtLeast(`two_branch leg ${name}`, l, 1);
   requireAtLeast("two_branch inner edge count k", k, 1);
   const spine = a + k + c + 1; // leg a, branch₁ … branch₂, leg c
   const n = spine + b + d;
   if (n > MAX_NAMED_SIZE) throw new GraphError(`two_branch is larger than the limit of ${MAX_NAMED_SIZE} vertices`);
   const edges = pathEdges(spine);
-  const branch1 = a, branch2 = a + k;
+  const branch1 = a,
+    branch2 = a + k;
   let next = spine;
-  for (const [at, len] of [[branch1, b], [branch2, d]] as const) {
+  for (const [at, len] of [
+    [branch1, b],
+    [branch2, d],
+  ] as const) {
     edges.push({ u: at, v: next });
     for (let j = 1; j < len; j++) edges.push({ u: next + j - 1, v: next + j });
     next += len;

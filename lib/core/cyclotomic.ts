@@ -24,7 +24,8 @@ export function cyclotomic(n: number): Poly {
 
 /** C_j(x) = 2 T_j(x/2), so that z^j + z^-j = C_j(z + 1/z); C_0 = 2, C_1 = x, C_{j+1} = x C_j - C_{j-1}. */
 export function chebyshevC(j: number): Poly {
-  let a: Poly = [2n], b: Poly = [0n, 1n];
+  let a: Poly = [2n],
+    b: Poly = [0n, 1n];
   if (j === 0) return a;
   for (let k = 1; k < j; k++) [a, b] = [b, polySub(polyMul([0n, 1n], b), a)];
   return b;

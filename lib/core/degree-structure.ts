@@ -14,10 +14,22 @@ import { findCycle, sweep, recheckTree, type ComponentsCertificate, type CycleCe
 
 export type DegreeRelation = "<=" | ">=" | "=";
 
-export interface MaxDegreeCertificate { kind: "max-degree"; maxDegree: number; witness: number; neighbours: number[] }
-export interface BranchVerticesCertificate { kind: "branch-vertices"; branchVertices: number[] }
+export interface MaxDegreeCertificate {
+  kind: "max-degree";
+  maxDegree: number;
+  witness: number;
+  neighbours: number[];
+}
+export interface BranchVerticesCertificate {
+  kind: "branch-vertices";
+  branchVertices: number[];
+}
 /** The branch vertex and each leg as the vertex path leaving it (nearest vertex first). */
-export interface LegsCertificate { kind: "legs"; centre: number; legs: number[][] }
+export interface LegsCertificate {
+  kind: "legs";
+  centre: number;
+  legs: number[][];
+}
 export type StarlikeCertificate = LegsCertificate | BranchVerticesCertificate | CycleCertificate | ComponentsCertificate;
 
 function degrees(g: Graph, budget: Budget): Int32Array {
@@ -37,14 +49,26 @@ const compare = (x: number, rel: DegreeRelation, k: number): boolean => (rel ===
 
 /** "Δ(G) rel k" with the maximum degree, a vertex attaining it, and that vertex's neighbours. */
 export function maxDegree(g: Graph, relation: DegreeRelation, k: number, budget = new Budget()): Verdict<MaxDegreeCertificate> {
-  const statement = `Δ(G) ${relation === "<=" ? "≤" : relation === ">=" ? "≥" : "="} ${k}`, method = "degree count";
+  const statement = `Δ(G) ${relation === "<=" ? "≤" : relation === ">=" ? "≥" : "="} ${k}`,
+    method = "degree count";
   return withinBudget<MaxDegreeCertificate>(statement, method, budget, () => {
     const d = degrees(g, budget);
-    let witness = -1, best = 0;
-    for (let v = 0; v < g.n; v++) if (witness < 0 || d[v] > best) { witness = v; best = d[v]; }
+    let witness = -1,
+      best = 0;
+    for (let v = 0; v < g.n; v++)
+      if (witness < 0 || d[v] > best) {
+        witness = v;
+        best = d[v];
+      }
     const certificate: MaxDegreeCertificate = { kind: "max-degree", maxDegree: best, witness, neighbours: witness < 0 ? [] : neighbours(g, witness) };
     const ok = compare(best, relation, k);
-    return { status: ok ? "verified" : "refuted", statement, method, certificate, reason: witness < 0 ? "the null graph has maximum degree 0" : `Δ(G) = ${best}, attained at vertex ${witness}; no vertex has more neighbours` };
+    return {
+      status: ok ? "verified" : "refuted",
+      statement,
+      method,
+      certificate,
+      reason: witness < 0 ? "the null graph has maximum degree 0" : `Δ(G) = ${best}, attained at vertex ${witness}; no vertex has more neighbours`,
+    };
   });
 }
 
@@ -83,7 +107,13 @@ export function branchVertices(g: Graph, expected?: number, budget = new Budget(
     const list = branchVertexList(g, budget);
     const ok = expected === undefined || list.length === expected;
     const shown = list.length <= 20 ? `: ${list.join(", ") || "none"}` : "";
-    return { status: ok ? "verified" : "refuted", statement, method, reason: `G has ${list.length} vertices of degree ≥ 3${shown}`, certificate: { kind: "branch-vertices", branchVertices: list } };
+    return {
+      status: ok ? "verified" : "refuted",
+      statement,
+      method,
+      reason: `G has ${list.length} vertices of degree ≥ 3${shown}`,
+      certificate: { kind: "branch-vertices", branchVertices: list },
+    };
   });
 }
 
@@ -112,14 +142,16 @@ export function legsAt(g: Graph, centre: number, budget: Budget): number[][] {
   const legs: number[][] = [];
   for (let p = a.start[centre]; p < a.start[centre + 1]; p++) {
     const leg: number[] = [];
-    let previous = centre, x = a.nbr[p];
+    let previous = centre,
+      x = a.nbr[p];
     for (;;) {
       budget.tick();
       leg.push(x);
       let next = -1;
       for (let q = a.start[x]; q < a.start[x + 1]; q++) if (a.nbr[q] !== previous) next = a.nbr[q];
       if (next < 0) break;
-      previous = x; x = next;
+      previous = x;
+      x = next;
     }
     legs.push(leg);
   }
@@ -135,21 +167,50 @@ export function starlikeLegs(g: Graph, expected?: readonly number[], budget = ne
   return withinBudget<StarlikeCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
     if (s.componentCount !== 1)
-      return { status: "refuted", statement, method, reason: `G is not connected (${s.componentCount} components), so not a tree`, certificate: { kind: "components", component: Array.from(s.component) } };
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason: `G is not connected (${s.componentCount} components), so not a tree`,
+        certificate: { kind: "components", component: Array.from(s.component) },
+      };
     const cycle = findCycle(g, s, budget);
-    if (cycle) return { status: "refuted", statement, method, reason: `G contains the cycle ${cycle.join("–")}, so it is not a tree`, certificate: { kind: "cycle", cycle } };
+    if (cycle)
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason: `G contains the cycle ${cycle.join("–")}, so it is not a tree`,
+        certificate: { kind: "cycle", cycle },
+      };
     const list = branchVertexList(g, budget);
     if (list.length !== 1)
-      return { status: "refuted", statement, method, reason: list.length === 0 ? "G is a path: no vertex has degree ≥ 3" : `G has ${list.length} vertices of degree ≥ 3 (${list.slice(0, 5).join(", ")}${list.length > 5 ? ", …" : ""})`, certificate: { kind: "branch-vertices", branchVertices: list } };
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason:
+          list.length === 0
+            ? "G is a path: no vertex has degree ≥ 3"
+            : `G has ${list.length} vertices of degree ≥ 3 (${list.slice(0, 5).join(", ")}${list.length > 5 ? ", …" : ""})`,
+        certificate: { kind: "branch-vertices", branchVertices: list },
+      };
     const legs = legsAt(g, list[0], budget);
     const lengths = legs.map((l) => l.length);
     const ok = !expected || sameMultiset(lengths, expected);
-    return { status: ok ? "verified" : "refuted", statement, method, reason: `G is ${legName(lengths)}: the tree with branch vertex ${list[0]} and legs of lengths ${lengths.join(", ")}`, certificate: { kind: "legs", centre: list[0], legs } };
+    return {
+      status: ok ? "verified" : "refuted",
+      statement,
+      method,
+      reason: `G is ${legName(lengths)}: the tree with branch vertex ${list[0]} and legs of lengths ${lengths.join(", ")}`,
+      certificate: { kind: "legs", centre: list[0], legs },
+    };
   });
 }
 
 function sameMultiset(a: readonly number[], b: readonly number[]): boolean {
-  const x = [...a].sort((p, q) => p - q), y = [...b].sort((p, q) => p - q);
+  const x = [...a].sort((p, q) => p - q),
+    y = [...b].sort((p, q) => p - q);
   return x.length === y.length && x.every((v, i) => v === y[i]);
 }
 
@@ -167,7 +228,8 @@ export function checkLegs(g: Graph, c: Record<string, unknown>, budget: Budget):
     for (const x of leg) {
       budget.tick();
       if (seen[x]) reject(`vertex ${x} appears twice (legs[${i}])`);
-      seen[x] = 1; covered++;
+      seen[x] = 1;
+      covered++;
       if (multiplicity(g, previous, x) < 1) reject(`${previous}–${x} is not an edge (legs[${i}])`);
       previous = x;
     }
@@ -187,10 +249,14 @@ export function recheckStarlikeLegs(g: Graph, certificate: unknown, budget = new
     return { ...v, statement: v.statement.replace("G is not a tree", "G is not star-like (not a tree)") };
   }
   const legs = typeof certificate === "object" && certificate !== null ? (certificate as { legs?: unknown }).legs : undefined;
-  const outcome = kind === "legs" && Array.isArray(legs) ? `G is ${legName(legs.map((l) => (Array.isArray(l) ? l.length : 0)))}` : "G does not have exactly one vertex of degree ≥ 3";
+  const outcome =
+    kind === "legs" && Array.isArray(legs)
+      ? `G is ${legName(legs.map((l) => (Array.isArray(l) ? l.length : 0)))}`
+      : "G does not have exactly one vertex of degree ≥ 3";
   return recheck(outcome, "certificate re-check (linear)", budget, () => {
     const c = expectRecord(certificate, "certificate");
-    if (c.kind === "legs") return `the centre and the listed legs use every vertex and all ${checkLegs(g, c, budget).length} legs' edges exist; G has exactly n − 1 edges`;
+    if (c.kind === "legs")
+      return `the centre and the listed legs use every vertex and all ${checkLegs(g, c, budget).length} legs' edges exist; G has exactly n − 1 edges`;
     if (c.kind !== "branch-vertices") reject(`unknown certificate kind "${String(c.kind)}"`);
     const list = checkBranchList(g, c.branchVertices, budget);
     if (list.length === 1) reject("exactly one vertex has degree ≥ 3, which does not refute star-likeness");

@@ -60,16 +60,16 @@ describe("enumeration of connected graphs with small spectral radius", () => {
     const twice = checkEnumeration(7, "<", "2", graphs([...dynkinUpTo7, "path(4)"]), budget());
     expect(twice.reason).toMatch(/listed graphs 4 and 14 are isomorphic/);
     // Smith's list up to 7 vertices has 1+1+1+2+2+3+3 = 13 graphs (BELOW_2 above); said once, "found" once.
-    expect(missing.reason).toMatch(/; the enumeration found 13 graph\(s\) \(1 on 1, 1 on 2, 1 on 3, 2 on 4, 2 on 5, 3 on 6, 3 on 7\), after \d+ exact checks\.$/);
+    expect(missing.reason).toMatch(
+      /; the enumeration found 13 graph\(s\) \(1 on 1, 1 on 2, 1 on 3, 2 on 4, 2 on 5, 3 on 6, 3 on 7\), after \d+ exact checks\.$/,
+    );
     expect(missing.reason).not.toMatch(/found.*found/);
   });
 
   it("refutes a list of trees with ρ < 2 up to 20 vertices that leaves out E8, naming it", () => {
     // Smith's list (Brouwer & Haemers Thm 3.1.3): the trees with ρ < 2 on at most 20 vertices are A_1..A_20,
     // D_4..D_20, E6, E7, E8 — 39 trees.
-    const names = [
-      ...Array.from({ length: 20 }, (_, i) => `A(${i + 1})`), ...Array.from({ length: 17 }, (_, i) => `D(${i + 4})`), "E(6)", "E(7)", "E(8)",
-    ];
+    const names = [...Array.from({ length: 20 }, (_, i) => `A(${i + 1})`), ...Array.from({ length: 17 }, (_, i) => `D(${i + 4})`), "E(6)", "E(7)", "E(8)"];
     const full = checkEnumeration(20, "<", "2", graphs(names), budget(), "tree");
     expect(full.status).toBe("verified");
     expect(full.statement).toMatch(/^the trees on at most 20 vertices/);

@@ -49,7 +49,10 @@ const settingOf = (s: ClaimSetting | EnumerationSetting | undefined): Enumeratio
  * class, by order; `part` selects one of several independent parts (see augmentation.ts).
  */
 export function enumerateConnected(
-  maxVertices: number, op: EnumerationRelation, b: Bound, budget: Budget,
+  maxVertices: number,
+  op: EnumerationRelation,
+  b: Bound,
+  budget: Budget,
   options: { setting?: ClaimSetting | EnumerationSetting; part?: { index: number; of: number } } = {},
 ): { levels: Graph[][]; checked: number; stats: GenerationStatistics } {
   if (maxVertices > GENERATION_MAX_VERTICES) throw new RangeError(`at most ${GENERATION_MAX_VERTICES} vertices can be enumerated`);
@@ -59,7 +62,13 @@ export function enumerateConnected(
 
 const SYMBOL: Record<EnumerationRelation, string> = { "<": "<", "<=": "≤" };
 
-export function enumerationStatement(maxVertices: number, op: EnumerationRelation, b: Bound | string, listed: number, setting: ClaimSetting = "simple"): string {
+export function enumerationStatement(
+  maxVertices: number,
+  op: EnumerationRelation,
+  b: Bound | string,
+  listed: number,
+  setting: ClaimSetting = "simple",
+): string {
   const text = typeof b === "string" ? b : b.text;
   return `the ${setting === "tree" ? "trees" : "connected simple graphs"} on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
 }
@@ -69,7 +78,14 @@ export function enumerationStatement(maxVertices: number, op: EnumerationRelatio
  * most `maxVertices` vertices with ρ op b. A refutation names the first listed graph that does not
  * belong, a repeated class, or a missing graph (in graph6).
  */
-export function checkEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], budget: Budget = new Budget(), setting: ClaimSetting = "simple"): Verdict<EnumerationCertificate> {
+export function checkEnumeration(
+  maxVertices: number,
+  op: EnumerationRelation,
+  bound: Bound | string,
+  listed: readonly Graph[],
+  budget: Budget = new Budget(),
+  setting: ClaimSetting = "simple",
+): Verdict<EnumerationCertificate> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const statement = enumerationStatement(maxVertices, op, b, listed.length, setting);
   const method = "exhaustive enumeration by canonical augmentation (McKay 1998) with exact ρ verdicts (complete by Perron–Frobenius monotonicity)";
@@ -79,7 +95,13 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
     const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map((g) => writeGraph6(g)) };
     // Phrased to follow "found" or "enumerated" ("… found 20 graph(s) (…)"), never "found … found".
     const summary = `${found.length} graph(s) (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
-    const refuted = (reason: string): Verdict<EnumerationCertificate> => ({ status: "refuted", statement, method, reason: `${reason}; the enumeration found ${summary}.`, certificate });
+    const refuted = (reason: string): Verdict<EnumerationCertificate> => ({
+      status: "refuted",
+      statement,
+      method,
+      reason: `${reason}; the enumeration found ${summary}.`,
+      certificate,
+    });
     const matched = new Array<number>(found.length).fill(-1);
     const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
     for (const [i, g] of listed.entries()) {
@@ -93,9 +115,13 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
       matched[j] = i;
     }
     const missing = matched.indexOf(-1);
-    if (missing >= 0) return refuted(`a graph on ${found[missing].n} vertices (graph6 ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`);
+    if (missing >= 0)
+      return refuted(`a graph on ${found[missing].n} vertices (graph6 ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`);
     return {
-      status: "verified", statement, method, certificate,
+      status: "verified",
+      statement,
+      method,
+      certificate,
       reason: `Every listed graph is isomorphic to exactly one graph of the enumeration and every enumerated graph is listed; the enumeration found ${summary}.`,
       notes: ["Completeness: every connected graph has a vertex whose removal keeps it connected, and removing a vertex never raises ρ."],
     };
@@ -103,7 +129,16 @@ export function checkEnumeration(maxVertices: number, op: EnumerationRelation, b
 }
 
 /** Re-runs the enumeration and compares it with the certificate's counts and graphs, then the outcome. */
-export function recheckEnumeration(maxVertices: number, op: EnumerationRelation, bound: Bound | string, listed: readonly Graph[], outcome: "verified" | "refuted", evidence: unknown, budget: Budget = new Budget(), setting: ClaimSetting = "simple"): Verdict<undefined> {
+export function recheckEnumeration(
+  maxVertices: number,
+  op: EnumerationRelation,
+  bound: Bound | string,
+  listed: readonly Graph[],
+  outcome: "verified" | "refuted",
+  evidence: unknown,
+  budget: Budget = new Budget(),
+  setting: ClaimSetting = "simple",
+): Verdict<undefined> {
   const again = checkEnumeration(maxVertices, op, bound, listed, budget, setting);
   const statement = `${again.statement} is ${outcome}`;
   const method = "certificate re-check (the enumeration repeated)";
@@ -112,7 +147,8 @@ export function recheckEnumeration(maxVertices: number, op: EnumerationRelation,
   const fail = (reason: string): Verdict<undefined> => ({ status: "refuted", statement, method, reason });
   if (again.status === "undecided" || !cert) return { status: "undecided", statement, method, reason: again.reason };
   if (e.kind !== "enumeration") return fail(`certificate.kind must be "enumeration"`);
-  if (JSON.stringify(e.counts) !== JSON.stringify(cert.counts)) return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
+  if (JSON.stringify(e.counts) !== JSON.stringify(cert.counts))
+    return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
   // The graphs are compared up to isomorphism, so a checker that labels or orders them differently agrees.
   if (!Array.isArray(e.graph6) || e.graph6.length !== cert.graph6.length) return fail(`certificate.graph6 must list the ${cert.graph6.length} graphs found`);
   const unused = new Map<string, number>();

@@ -17,7 +17,10 @@ import { Poly, trim, deg, lead, primitive, polyMul, exactQuotient, polyEquals } 
 
 export const MAX_FACTOR_SUBSETS = 200_000;
 
-const mod = (a: bigint, p: bigint) => { const r = a % p; return r < 0n ? r + p : r; };
+const mod = (a: bigint, p: bigint) => {
+  const r = a % p;
+  return r < 0n ? r + p : r;
+};
 
 function modInverse(a: bigint, p: bigint): bigint {
   let [r0, r1, s0, s1] = [mod(a, p), p, 1n, 0n];
@@ -80,7 +83,8 @@ function monic(a: bigint[], p: bigint): bigint[] {
 }
 
 function mgcd(a: bigint[], b: bigint[], p: bigint): bigint[] {
-  let x = mtrim(a.map((c) => mod(c, p))), y = mtrim(b.map((c) => mod(c, p)));
+  let x = mtrim(a.map((c) => mod(c, p))),
+    y = mtrim(b.map((c) => mod(c, p)));
   while (y.length > 0) [x, y] = [y, mrem(x, y, p)];
   return x.length === 0 ? x : monic(x, p);
 }
@@ -92,7 +96,8 @@ function msub(a: bigint[], b: bigint[], p: bigint): bigint[] {
 }
 
 function mpow(base: bigint[], e: bigint, f: bigint[], p: bigint): bigint[] {
-  let result: bigint[] = [1n], b = mrem(base, f, p);
+  let result: bigint[] = [1n],
+    b = mrem(base, f, p);
   while (e > 0n) {
     if (e & 1n) result = mrem(mmul(result, b, p), f, p);
     e >>= 1n;
@@ -110,11 +115,20 @@ function derivativeMod(a: bigint[], p: bigint): bigint[] {
 function isProbablePrime(n: bigint): boolean {
   if (n < 2n) return false;
   for (const q of [2n, 3n, 5n, 7n, 11n, 13n, 17n, 19n, 23n, 29n, 31n, 37n]) if (n % q === 0n) return n === q;
-  let d = n - 1n, s = 0;
-  while ((d & 1n) === 0n) { d >>= 1n; s++; }
+  let d = n - 1n,
+    s = 0;
+  while ((d & 1n) === 0n) {
+    d >>= 1n;
+    s++;
+  }
   const powmod = (b: bigint, e: bigint) => {
-    let r = 1n; b %= n;
-    while (e > 0n) { if (e & 1n) r = (r * b) % n; b = (b * b) % n; e >>= 1n; }
+    let r = 1n;
+    b %= n;
+    while (e > 0n) {
+      if (e & 1n) r = (r * b) % n;
+      b = (b * b) % n;
+      e >>= 1n;
+    }
     return r;
   };
   // Miller–Rabin with 24 fixed bases: error probability below 4^-24 for any composite n.
@@ -142,7 +156,10 @@ function factorCoefficientBound(f: Poly): bigint {
 /** Deterministic pseudo-random residues (reproducible factorisations). */
 function lcg(seed: bigint): (p: bigint) => bigint {
   let x = seed;
-  return (p) => { x = (x * 6364136223846793005n + 1442695040888963407n) & ((1n << 64n) - 1n); return ((x >> 11n) * 2654435761n) % p; };
+  return (p) => {
+    x = (x * 6364136223846793005n + 1442695040888963407n) & ((1n << 64n) - 1n);
+    return ((x >> 11n) * 2654435761n) % p;
+  };
 }
 
 /** Irreducible monic factors of a square-free monic f modulo an odd prime p. */
@@ -177,14 +194,22 @@ function factorModP(f: bigint[], p: bigint): bigint[][] {
 }
 
 function equalDegree(g: bigint[], i: number, p: bigint, frob: (g: bigint[]) => bigint[], out: bigint[][]): void {
-  if (g.length - 1 === i) { out.push(g); return; }
+  if (g.length - 1 === i) {
+    out.push(g);
+    return;
+  }
   const rand = lcg(BigInt(g.length) * 7919n + BigInt(i));
   for (let attempt = 0; attempt < 200; attempt++) {
     const a = mtrim(Array.from({ length: g.length - 1 }, () => rand(p)));
     if (a.length < 2) continue;
     // a^((p^i - 1)/2) = (a^(1 + p + ... + p^(i-1)))^((p - 1)/2), the powers a^(p^j) by the Frobenius matrix (mod f, then mod g).
-    let t = a, prod = a;
-    for (let j = 1; j < i; j++) { t = frob(t); prod = mmul(prod, t, p); prod = mrem(prod, g, p); }
+    let t = a,
+      prod = a;
+    for (let j = 1; j < i; j++) {
+      t = frob(t);
+      prod = mmul(prod, t, p);
+      prod = mrem(prod, g, p);
+    }
     const b = mpow(prod, (p - 1n) / 2n, g, p);
     const d = mgcd(g, msub(b, [1n], p), p);
     if (d.length > 1 && d.length < g.length) {
@@ -232,24 +257,36 @@ export function factorSquarefree(f0: Poly): Poly[] {
   if (deg(f) <= 1) return [f];
   const factors: Poly[] = [];
   // Pull out the factor x (p must not divide the constant term for nothing, but x | f is cheap to see).
-  if (f[0] === 0n) { factors.push([0n, 1n]); f = f.slice(1); if (deg(f) === 0) return factors; }
+  if (f[0] === 0n) {
+    factors.push([0n, 1n]);
+    f = f.slice(1);
+    if (deg(f) === 0) return factors;
+  }
   const L = absBig(lead(f));
   if (irreducibleByDegreePatterns(f)) return finish(factors.concat([f]), f0);
   let p = 2n * L * factorCoefficientBound(f) + 1n;
   if (p % 2n === 0n) p++;
-  for (;; p += 2n) {
+  for (; ; p += 2n) {
     if (!isProbablePrime(p) || L % p === 0n) continue;
     const fm = f.map((c) => mod(c, p));
     if (mgcd(fm, derivativeMod(fm, p), p).length > 1) continue; // f not square-free mod p
     break;
   }
-  let modular = factorModP(monic(f.map((c) => mod(c, p)), p), p);
+  let modular = factorModP(
+    monic(
+      f.map((c) => mod(c, p)),
+      p,
+    ),
+    p,
+  );
   const sym = (c: bigint) => (c > p / 2n ? c - p : c);
-  let s = 1, tried = 0;
+  let s = 1,
+    tried = 0;
   while (2 * s <= modular.length) {
     let found = false;
     for (const subset of combinations(modular.length, s)) {
-      if (++tried > MAX_FACTOR_SUBSETS) throw new FactorLimitError(`factoring needs more than ${MAX_FACTOR_SUBSETS} trial combinations; simplify the expression`);
+      if (++tried > MAX_FACTOR_SUBSETS)
+        throw new FactorLimitError(`factoring needs more than ${MAX_FACTOR_SUBSETS} trial combinations; simplify the expression`);
       const lc = lead(f);
       let g: bigint[] = [mod(lc, p)];
       for (const k of subset) g = mmul(g, modular[k], p);
@@ -275,7 +312,14 @@ function finish(factors: Poly[], f0: Poly): Poly[] {
   let prod: Poly = [1n];
   for (const g of factors) prod = polyMul(prod, g);
   const target = primitive(trim(f0));
-  if (!polyEquals(prod, target) && !polyEquals(prod, target.map((c) => -c))) throw new Error("factorisation check failed");
+  if (
+    !polyEquals(prod, target) &&
+    !polyEquals(
+      prod,
+      target.map((c) => -c),
+    )
+  )
+    throw new Error("factorisation check failed");
   return factors;
 }
 
@@ -287,7 +331,8 @@ function divides(f: Poly, cand: Poly): boolean {
   if (g[0] !== 0n && f[0] % g[0] !== 0n) return false;
   // Exact division over Q with an integrality check of the quotient.
   const r = f.slice();
-  const dg = deg(g), lg = lead(g);
+  const dg = deg(g),
+    lg = lead(g);
   for (let i = r.length - 1; i >= dg; i--) {
     if (r[i] === 0n) continue;
     if (r[i] % lg !== 0n) return false;

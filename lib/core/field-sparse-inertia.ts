@@ -35,7 +35,8 @@ export function fieldSparseDefiniteness<T>(g: Graph, F: Field<T>, b: T, stop: "n
     rows.push(row);
   }
   const alive = new Uint8Array(n).fill(1);
-  let positive = 0, zero = 0;
+  let positive = 0,
+    zero = 0;
   for (let done = 0; done < n; done++) {
     // Minimum current degree (a linear scan: this path serves graphs of moderate size).
     let p = -1;
@@ -62,8 +63,13 @@ export function fieldSparseDefiniteness<T>(g: Graph, F: Field<T>, b: T, stop: "n
           else {
             const cur = rows[i].get(j);
             const next = cur === undefined ? F.sub(F.fromInt(0), update) : F.sub(cur, update);
-            if (F.sign(next) === 0) { rows[i].delete(j); rows[j].delete(i); }
-            else { rows[i].set(j, next); rows[j].set(i, next); }
+            if (F.sign(next) === 0) {
+              rows[i].delete(j);
+              rows[j].delete(i);
+            } else {
+              rows[i].set(j, next);
+              rows[j].set(i, next);
+            }
           }
         }
       }

@@ -18,31 +18,43 @@ type Algebraic = Bound & { kind: "algebraic" };
 
 /** Random forests with loops and multi-edges: each vertex i > 0 hangs on a random earlier vertex or starts a new tree. */
 const forestArb: fc.Arbitrary<Graph> = fc.integer({ min: 1, max: 16 }).chain((n) =>
-  fc.tuple(
-    fc.array(fc.integer({ min: -1, max: n }), { minLength: n, maxLength: n }),
-    fc.array(fc.integer({ min: 1, max: 3 }), { minLength: n, maxLength: n }),
-    fc.array(fc.integer({ min: 0, max: 2 }), { minLength: n, maxLength: n }),
-  ).map(([par, mult, loops]) => {
-    const edges = [];
-    for (let i = 1; i < n; i++) {
-      // -1 or n: no parent (vertex i starts a new tree); otherwise the parent is par[i] mod i.
-      if (par[i] >= 0 && par[i] < n) edges.push({ u: par[i] % i, v: i, m: mult[i] });
-    }
-    for (let i = 0; i < n; i++) if (loops[i] > 0) edges.push({ u: i, v: i, m: loops[i] });
-    return makeGraph(n, edges);
-  }));
+  fc
+    .tuple(
+      fc.array(fc.integer({ min: -1, max: n }), { minLength: n, maxLength: n }),
+      fc.array(fc.integer({ min: 1, max: 3 }), { minLength: n, maxLength: n }),
+      fc.array(fc.integer({ min: 0, max: 2 }), { minLength: n, maxLength: n }),
+    )
+    .map(([par, mult, loops]) => {
+      const edges = [];
+      for (let i = 1; i < n; i++) {
+        // -1 or n: no parent (vertex i starts a new tree); otherwise the parent is par[i] mod i.
+        if (par[i] >= 0 && par[i] < n) edges.push({ u: par[i] % i, v: i, m: mult[i] });
+      }
+      for (let i = 0; i < n; i++) if (loops[i] > 0) edges.push({ u: i, v: i, m: loops[i] });
+      return makeGraph(n, edges);
+    }),
+);
 
 /** Simple random trees (recursive attachment), the shape of the benchmark's trees. */
 const treeArb: fc.Arbitrary<Graph> = fc.integer({ min: 2, max: 14 }).chain((n) =>
-  fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((r) => makeGraph(n, r.map((x, i) => ({ u: x % (i + 1), v: i + 1 })))));
+  fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((r) =>
+    makeGraph(
+      n,
+      r.map((x, i) => ({ u: x % (i + 1), v: i + 1 })),
+    ),
+  ),
+);
 
 describe("characteristic polynomial of a forest by the tree recurrence", () => {
   it("equals the multi-modular Hessenberg result and Berkowitz's algorithm on random forests with loops and multi-edges (fast-check)", () => {
-    fc.assert(fc.property(forestArb, (g) => {
-      const chi = forestCharpoly(g);
-      expect(chi).toEqual(characteristicPolynomial(g));
-      expect(chi).toEqual(charpolyBerkowitz(g));
-    }), { numRuns: 200, seed: 314 });
+    fc.assert(
+      fc.property(forestArb, (g) => {
+        const chi = forestCharpoly(g);
+        expect(chi).toEqual(characteristicPolynomial(g));
+        expect(chi).toEqual(charpolyBerkowitz(g));
+      }),
+      { numRuns: 200, seed: 314 },
+    );
   });
   it("P_n has the simple eigenvalues 2cos(πk/(n+1)), k = 1..n (Brouwer & Haemers, Spectra of Graphs, §1.4.4): each minimal polynomial divides χ(P_100) once", () => {
     const chi = forestCharpoly(path(100));
@@ -70,23 +82,26 @@ describe("ρ versus an irrational b on forests by counting, against the exact el
   const bounds = ["sqrt(2)", "sqrt(3)", "(1+sqrt(5))/2", "sqrt(5)", "2cos(pi/7)", "sqrt(6)", "2cos(pi/9)", "sqrt(2+sqrt(2))", "sqrt(2+sqrt(5))"];
   it("the relation and b's multiplicity agree with Jacobs–Trevisan over Q(b) (the slow exact path) on random trees (fast-check)", () => {
     let counted = 0;
-    fc.assert(fc.property(treeArb, fc.constantFrom(...bounds), (g, text) => {
-      const b = parseBound(text) as Algebraic;
-      const F = new AlgebraicField(b);
-      const slow = treeInertiaOver(g, F, F.generator, "none", new Budget());
-      const slowRel = slow.negative > 0 ? ">" : slow.zero > 0 ? "=" : "<";
-      const fast = forestEigenvalueCount(g, b, new Budget(1e9));
-      // Full inertia over Q(b): the zero count is the multiplicity of b as an eigenvalue.
-      expect(multiplicityOf(b.poly, forestCharpoly(g))).toBe(slow.zero);
-      if (fast) {
-        counted++;
-        expect(fast.rel).toBe(slowRel);
-        expect(fast.multiplicity).toBe(slow.zero);
-      } else expect(slow.zero).toBe(0);
-      const v = spectralRadiusBound(g, "=", b, new Budget(1e9));
-      expect(v.status).toBe(slowRel === "=" ? "verified" : "refuted");
-      expect(recheckSpectralRadiusBound(g, "=", b, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
-    }), { numRuns: 250, seed: 2718 });
+    fc.assert(
+      fc.property(treeArb, fc.constantFrom(...bounds), (g, text) => {
+        const b = parseBound(text) as Algebraic;
+        const F = new AlgebraicField(b);
+        const slow = treeInertiaOver(g, F, F.generator, "none", new Budget());
+        const slowRel = slow.negative > 0 ? ">" : slow.zero > 0 ? "=" : "<";
+        const fast = forestEigenvalueCount(g, b, new Budget(1e9));
+        // Full inertia over Q(b): the zero count is the multiplicity of b as an eigenvalue.
+        expect(multiplicityOf(b.poly, forestCharpoly(g))).toBe(slow.zero);
+        if (fast) {
+          counted++;
+          expect(fast.rel).toBe(slowRel);
+          expect(fast.multiplicity).toBe(slow.zero);
+        } else expect(slow.zero).toBe(0);
+        const v = spectralRadiusBound(g, "=", b, new Budget(1e9));
+        expect(v.status).toBe(slowRel === "=" ? "verified" : "refuted");
+        expect(recheckSpectralRadiusBound(g, "=", b, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
+      }),
+      { numRuns: 250, seed: 2718 },
+    );
     expect(counted).toBeGreaterThan(5); // the counting route was really exercised
   });
   it("a forest whose other component has ρ > b: b is an eigenvalue, yet ρ > b", () => {
@@ -108,11 +123,21 @@ describe("ρ versus an irrational b on forests by counting, against the exact el
     expect(recheckSpectralRadiusBound(g, ">", "2cos(pi/100)", "verified", above.certificate).status).toBe("verified");
     expect(recheckSpectralRadiusBound(g, ">", "2cos(pi/100)", "refuted", above.certificate).status).toBe("refuted");
     const tampered: Array<(c: Record<string, unknown>) => void> = [
-      (c) => { c.stoppedAt = (c.stoppedAt as number) + 1; },
-      (c) => { c.sign = c.sign === 0 ? -1 : 0; },
-      (c) => { c.at = "1"; }, // 1 < b: proves nothing about b
-      (c) => { c.at = "2"; }, // 2 > ρ: the elimination at 2 never stops
-      (c) => { c.stop = "sideways"; },
+      (c) => {
+        c.stoppedAt = (c.stoppedAt as number) + 1;
+      },
+      (c) => {
+        c.sign = c.sign === 0 ? -1 : 0;
+      },
+      (c) => {
+        c.at = "1";
+      }, // 1 < b: proves nothing about b
+      (c) => {
+        c.at = "2";
+      }, // 2 > ρ: the elimination at 2 never stops
+      (c) => {
+        c.stop = "sideways";
+      },
     ];
     for (const change of tampered) {
       const c = structuredClone(above.certificate!) as unknown as Record<string, unknown>;
@@ -128,16 +153,19 @@ describe("the tree elimination on unreduced fractions with double intervals (the
   it("full inertia agrees with exact reduced rationals (exactOnly, RATIONALS) on random trees at points that make zero pivots (fast-check)", () => {
     // b = 0, 1, 2 give zero values often (e.g. K_{1,4} at 2, P_2 at 1, isolated vertices at 0).
     const pointArb = fc.constantFrom(rat(0), rat(1), rat(2), rat(3, 2), rat(-1), rat(5, 3), rat(7, 2));
-    fc.assert(fc.property(treeArb, pointArb, (g, b) => {
-      const fast = treeInertia(g, b, "none", new Budget());
-      const slow = treeInertiaOver(g, RATIONALS, b, "none", new Budget(), true);
-      expect([fast.positive, fast.negative, fast.zero]).toEqual([slow.positive, slow.negative, slow.zero]);
-      for (const stop of ["nonPositive", "negative"] as const) {
-        const f = treeInertia(g, b, stop, new Budget(), false, false);
-        const s = treeInertiaOver(g, RATIONALS, b, stop, new Budget(), true);
-        expect([f.complete, f.stoppedAt, f.stopSign]).toEqual([s.complete, s.stoppedAt, s.stopSign]);
-      }
-    }), { numRuns: 400, seed: 1618 });
+    fc.assert(
+      fc.property(treeArb, pointArb, (g, b) => {
+        const fast = treeInertia(g, b, "none", new Budget());
+        const slow = treeInertiaOver(g, RATIONALS, b, "none", new Budget(), true);
+        expect([fast.positive, fast.negative, fast.zero]).toEqual([slow.positive, slow.negative, slow.zero]);
+        for (const stop of ["nonPositive", "negative"] as const) {
+          const f = treeInertia(g, b, stop, new Budget(), false, false);
+          const s = treeInertiaOver(g, RATIONALS, b, stop, new Budget(), true);
+          expect([f.complete, f.stoppedAt, f.stopSign]).toEqual([s.complete, s.stoppedAt, s.stopSign]);
+        }
+      }),
+      { numRuns: 400, seed: 1618 },
+    );
   });
   it("values that outgrow 2^52 part-way (large denominators in b, long paths) switch from doubles to BigInt and still agree with reduced rationals", () => {
     // Far-apart points and points close to ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4), where values shrink towards 0.

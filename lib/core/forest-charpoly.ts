@@ -58,7 +58,8 @@ export function forestCharpoly(g: Graph, budget?: Budget): Poly {
       const c = nbr[k];
       if (parent[c] !== v) continue;
       const w2 = BigInt(wt[k]) * BigInt(wt[k]);
-      const Fc = F[c]!, Gc = G[c]!;
+      const Fc = F[c]!,
+        Gc = G[c]!;
       Q = addPoly(mulTicked(Q, Fc, budget), scale(mulTicked(Gc, P, budget), w2));
       P = mulTicked(P, Fc, budget);
       F[c] = G[c] = undefined;
@@ -89,7 +90,8 @@ function scale(a: Poly, c: bigint): Poly {
  * the multiplicity of each root of m as a root of χ.
  */
 export function multiplicityOf(m: Poly, chi: Poly, budget?: Budget): number {
-  let mu = 0, rest = trim(chi);
+  let mu = 0,
+    rest = trim(chi);
   while (deg(rest) >= deg(m)) {
     budget?.tick(1 + rest.length * m.length);
     try {
@@ -129,7 +131,8 @@ export function countRelation(c: ForestCount): "<" | "=" | ">" | undefined {
 
 /** The counts at lo and hi (lo < b < hi, checked by the caller). */
 export function forestCountAt(g: Graph, multiplicity: number, lo: Rational, hi: Rational, budget: Budget): ForestCount {
-  const L = countsAt(g, lo, budget), H = countsAt(g, hi, budget);
+  const L = countsAt(g, lo, budget),
+    H = countsAt(g, hi, budget);
   // (lo, hi) holds the eigenvalues above lo minus those at or above hi.
   return { lo, hi, multiplicity, inside: L.above - H.above - H.at, atOrAbove: H.above + H.at };
 }

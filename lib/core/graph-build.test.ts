@@ -6,14 +6,22 @@ import { parseSparse6, writeSparse6, parseGraph6, writeGraph6 } from "./graph6";
 import { multiplicity } from "./certificate-check";
 
 const multigraph = fc.integer({ min: 1, max: 40 }).chain((n) =>
-  fc.tuple(fc.constant(n), fc.array(fc.record({ u: fc.integer({ min: 0, max: n - 1 }), v: fc.integer({ min: 0, max: n - 1 }), m: fc.integer({ min: 1, max: 3 }) }), { maxLength: 60 })),
+  fc.tuple(
+    fc.constant(n),
+    fc.array(fc.record({ u: fc.integer({ min: 0, max: n - 1 }), v: fc.integer({ min: 0, max: n - 1 }), m: fc.integer({ min: 1, max: 3 }) }), {
+      maxLength: 60,
+    }),
+  ),
 );
 
 describe("buildGraph", () => {
   it("gives exactly makeGraph's normalised graph (property, common practice: same contract)", () => {
-    fc.assert(fc.property(multigraph, ([n, edges]) => {
-      expect(buildGraph(n, edges)).toEqual(makeGraph(n, edges));
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(multigraph, ([n, edges]) => {
+        expect(buildGraph(n, edges)).toEqual(makeGraph(n, edges));
+      }),
+      { numRuns: 500 },
+    );
   });
 
   it("rejects what makeGraph rejects, with the same message", () => {
@@ -24,24 +32,44 @@ describe("buildGraph", () => {
 
 describe("sparse6 and graph6 round trips (property)", () => {
   it("sparse6 preserves every multigraph with loops", () => {
-    fc.assert(fc.property(multigraph, ([n, edges]) => {
-      const g = buildGraph(n, edges);
-      expect(parseSparse6(writeSparse6(g))).toEqual(g);
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(multigraph, ([n, edges]) => {
+        const g = buildGraph(n, edges);
+        expect(parseSparse6(writeSparse6(g))).toEqual(g);
+      }),
+      { numRuns: 500 },
+    );
   });
 
   it("graph6 preserves every simple graph", () => {
-    fc.assert(fc.property(multigraph, ([n, edges]) => {
-      const g = buildGraph(n, edges.filter((e) => e.u !== e.v).map((e) => ({ u: e.u, v: e.v })));
-      const simple = buildGraph(n, g.edges.map((e) => ({ u: e.u, v: e.v })));
-      expect(parseGraph6(writeGraph6(simple))).toEqual(simple);
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(multigraph, ([n, edges]) => {
+        const g = buildGraph(
+          n,
+          edges.filter((e) => e.u !== e.v).map((e) => ({ u: e.u, v: e.v })),
+        );
+        const simple = buildGraph(
+          n,
+          g.edges.map((e) => ({ u: e.u, v: e.v })),
+        );
+        expect(parseGraph6(writeGraph6(simple))).toEqual(simple);
+      }),
+      { numRuns: 300 },
+    );
   });
 });
 
 describe("multiplicity look-up", () => {
   it("is right even for a graph literal whose edges are not in normalised order", () => {
-    const g: Graph = { n: 4, edges: [{ u: 2, v: 3, m: 1 }, { u: 0, v: 3, m: 2 }, { u: 0, v: 1, m: 1 }, { u: 1, v: 1, m: 1 }] };
+    const g: Graph = {
+      n: 4,
+      edges: [
+        { u: 2, v: 3, m: 1 },
+        { u: 0, v: 3, m: 2 },
+        { u: 0, v: 1, m: 1 },
+        { u: 1, v: 1, m: 1 },
+      ],
+    };
     expect([multiplicity(g, 3, 0), multiplicity(g, 0, 1), multiplicity(g, 1, 1), multiplicity(g, 1, 3), multiplicity(g, 3, 2)]).toEqual([2, 1, 1, 0, 1]);
   });
 });

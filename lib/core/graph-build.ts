@@ -12,8 +12,10 @@ export function buildGraph(n: number, edges: Iterable<{ u: number; v: number; m?
   if (!Number.isSafeInteger(n) || n < 0) throw new GraphError(`vertex count must be a non-negative integer, got ${n}`);
   if (labels && labels.length !== n) throw new GraphError(`expected ${n} labels, got ${labels.length}`);
   if (n > 90_000_000) throw new GraphError(`vertex count ${n} is beyond the supported 9·10⁷`); // keeps u·n + v exact in a double
-  const keys: number[] = [], mults: number[] = [];
-  let sorted = true, unit = true;
+  const keys: number[] = [],
+    mults: number[] = [];
+  let sorted = true,
+    unit = true;
   for (const e of edges) {
     const m = e.m ?? 1;
     if (!Number.isInteger(e.u) || !Number.isInteger(e.v) || e.u < 0 || e.v < 0 || e.u >= n || e.v >= n)
@@ -22,23 +24,31 @@ export function buildGraph(n: number, edges: Iterable<{ u: number; v: number; m?
     const key = e.u <= e.v ? e.u * n + e.v : e.v * n + e.u;
     if (keys.length > 0 && key <= keys[keys.length - 1]) sorted = false;
     if (m !== 1) unit = false;
-    keys.push(key); mults.push(m);
+    keys.push(key);
+    mults.push(m);
   }
   let order: ArrayLike<number>;
   let keyArray: Float64Array;
-  if (sorted) { keyArray = Float64Array.from(keys); order = { length: keys.length } as ArrayLike<number>; }
-  else if (unit) { keyArray = Float64Array.from(keys).sort(); order = { length: keys.length } as ArrayLike<number>; }
-  else {
+  if (sorted) {
+    keyArray = Float64Array.from(keys);
+    order = { length: keys.length } as ArrayLike<number>;
+  } else if (unit) {
+    keyArray = Float64Array.from(keys).sort();
+    order = { length: keys.length } as ArrayLike<number>;
+  } else {
     const idx = Uint32Array.from(keys.keys()).sort((a, b) => keys[a] - keys[b]);
     keyArray = Float64Array.from(idx, (i) => keys[i]);
     order = idx;
   }
-  const multiplicityAt = (i: number) => (sorted || unit ? mults[i] ?? 1 : mults[(order as Uint32Array)[i]]);
+  const multiplicityAt = (i: number) => (sorted || unit ? (mults[i] ?? 1) : mults[(order as Uint32Array)[i]]);
   const out: Edge[] = [];
   for (let i = 0; i < keyArray.length; i++) {
     const key = keyArray[i];
     let m = unit ? 1 : multiplicityAt(i);
-    while (i + 1 < keyArray.length && keyArray[i + 1] === key) { i++; m += unit ? 1 : multiplicityAt(i); }
+    while (i + 1 < keyArray.length && keyArray[i + 1] === key) {
+      i++;
+      m += unit ? 1 : multiplicityAt(i);
+    }
     if (!Number.isSafeInteger(m)) throw new GraphError(`a pair's total multiplicity ${m} is too large`);
     const u = Math.floor(key / n);
     out.push({ u, v: key - u * n, m });

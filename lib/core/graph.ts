@@ -34,7 +34,11 @@ export interface Adjacency {
 }
 
 export class GraphError extends Error {
-  constructor(message: string, readonly line?: number, readonly column?: number) {
+  constructor(
+    message: string,
+    readonly line?: number,
+    readonly column?: number,
+  ) {
     super(line !== undefined ? `line ${line}${column !== undefined ? `, column ${column}` : ""}: ${message}` : message);
     this.name = "GraphError";
   }
@@ -51,7 +55,8 @@ export function makeGraph(n: number, edges: Iterable<{ u: number; v: number; m?:
     if (!Number.isInteger(e.u) || !Number.isInteger(e.v) || e.u < 0 || e.v < 0 || e.u >= n || e.v >= n)
       throw new GraphError(`edge (${e.u}, ${e.v}) names a vertex outside 0..${n - 1}`);
     if (!Number.isSafeInteger(m) || m < 1) throw new GraphError(`edge (${e.u}, ${e.v}) has multiplicity ${m}; it must be a positive integer`);
-    const u = Math.min(e.u, e.v), v = Math.max(e.u, e.v);
+    const u = Math.min(e.u, e.v),
+      v = Math.max(e.u, e.v);
     const key = u * n + v; // exact for n < 2^26
     const old = merged.get(key);
     if (old === undefined) keys.push([u, v]);
@@ -72,7 +77,10 @@ export function adjacency(g: Graph): Adjacency {
   const diag = new Float64Array(g.n);
   for (const e of g.edges) {
     if (e.u === e.v) diag[e.u] += e.m;
-    else { deg[e.u]++; deg[e.v]++; }
+    else {
+      deg[e.u]++;
+      deg[e.v]++;
+    }
   }
   const start = new Int32Array(g.n + 1);
   for (let v = 0; v < g.n; v++) start[v + 1] = start[v] + deg[v];
@@ -81,8 +89,10 @@ export function adjacency(g: Graph): Adjacency {
   const wt = new Float64Array(start[g.n]);
   for (const e of g.edges) {
     if (e.u === e.v) continue;
-    nbr[fill[e.u]] = e.v; wt[fill[e.u]++] = e.m;
-    nbr[fill[e.v]] = e.u; wt[fill[e.v]++] = e.m;
+    nbr[fill[e.u]] = e.v;
+    wt[fill[e.u]++] = e.m;
+    nbr[fill[e.v]] = e.u;
+    wt[fill[e.v]++] = e.m;
   }
   const a = { start, nbr, wt, diag };
   adjacencyCache.set(g, a);
@@ -119,10 +129,15 @@ export interface GraphSummary {
 }
 
 export function summarizeGraph(g: Graph, role: string): GraphSummary {
-  let size = 0, loops = 0, multipleEdges = 0;
+  let size = 0,
+    loops = 0,
+    multipleEdges = 0;
   for (const e of g.edges) {
     if (e.u === e.v) loops++;
-    else { size += e.m; if (e.m > 1) multipleEdges++; }
+    else {
+      size += e.m;
+      if (e.m > 1) multipleEdges++;
+    }
   }
   return { role, order: g.n, size, loops, multipleEdges };
 }

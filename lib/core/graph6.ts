@@ -34,7 +34,8 @@ function readOrder(text: string, at: number, columnOffset: number): { n: number;
   const long = at + 1 < text.length && text.charCodeAt(at + 1) === 126;
   const start = long ? at + 2 : at + 1;
   const width = long ? 6 : 3;
-  if (start + width > text.length) throw new GraphError(`the vertex count N(n) is cut short: expected ${width} bytes after "${long ? "~~" : "~"}"`, 1, columnOffset + text.length + 1);
+  if (start + width > text.length)
+    throw new GraphError(`the vertex count N(n) is cut short: expected ${width} bytes after "${long ? "~~" : "~"}"`, 1, columnOffset + text.length + 1);
   let n = 0;
   for (let i = 0; i < width; i++) n = n * 64 + byteValue(text, start + i, columnOffset + start + i + 1);
   return { n, next: start + width };
@@ -78,7 +79,11 @@ export function parseGraph6(text: string): Graph {
   const expectedBytes = Math.ceil(bits / 6);
   const have = body.length - next;
   if (have !== expectedBytes)
-    throw new GraphError(`graph6 for n = ${n} needs ${expectedBytes} data bytes after N(n), found ${have}`, 1, offset + next + Math.min(have, expectedBytes) + 1);
+    throw new GraphError(
+      `graph6 for n = ${n} needs ${expectedBytes} data bytes after N(n), found ${have}`,
+      1,
+      offset + next + Math.min(have, expectedBytes) + 1,
+    );
   const edges: Array<{ u: number; v: number }> = [];
   let k = 0;
   for (let j = 1; j < n; j++) {
@@ -98,7 +103,10 @@ export function parseGraph6(text: string): Graph {
 /** Writes a simple graph as graph6 (no trailing newline); loops or multiple edges are an error. */
 export function writeGraph6(g: Graph, header = false): string {
   const bad = g.edges.find((e) => e.u === e.v || e.m !== 1);
-  if (bad) throw new GraphError(`graph6 holds simple graphs only; edge (${bad.u}, ${bad.v}) is ${bad.u === bad.v ? "a loop" : `of multiplicity ${bad.m}`} — use sparse6`);
+  if (bad)
+    throw new GraphError(
+      `graph6 holds simple graphs only; edge (${bad.u}, ${bad.v}) is ${bad.u === bad.v ? "a loop" : `of multiplicity ${bad.m}`} — use sparse6`,
+    );
   const n = g.n;
   const bitCount = (n * (n - 1)) / 2;
   const bytes = new Uint8Array(Math.ceil(bitCount / 6));
@@ -157,7 +165,11 @@ export function writeSparse6(g: Graph, header = false): string {
   let bitCount = 0;
   const pushBit = (bit: number) => {
     const at = (bitCount / 6) | 0;
-    if (at >= groups.length) { const bigger = new Uint8Array(groups.length * 2); bigger.set(groups); groups = bigger; }
+    if (at >= groups.length) {
+      const bigger = new Uint8Array(groups.length * 2);
+      bigger.set(groups);
+      groups = bigger;
+    }
     if (bit) groups[at] |= 1 << (5 - (bitCount % 6));
     bitCount++;
   };
@@ -173,14 +185,22 @@ export function writeSparse6(g: Graph, header = false): string {
   for (let v = 0; v < n; v++) byHigh[v + 1] += byHigh[v];
   const order = new Int32Array(g.edges.length);
   const sortedEdges = [...g.edges].sort((a, b) => a.u - b.u || a.v - b.v); // no-op for normalised graphs
-  sortedEdges.forEach((e, i) => { order[byHigh[e.v]++] = i; });
+  sortedEdges.forEach((e, i) => {
+    order[byHigh[e.v]++] = i;
+  });
   let current = 0;
   for (const i of order) {
     const { u: lo, v: hi, m } = sortedEdges[i];
     for (let r = 0; r < m; r++) {
       if (hi === current) push(0, lo);
-      else if (hi === current + 1) { current++; push(1, lo); }
-      else { current = hi; push(1, hi); push(0, lo); }
+      else if (hi === current + 1) {
+        current++;
+        push(1, lo);
+      } else {
+        current = hi;
+        push(1, hi);
+        push(0, lo);
+      }
     }
   }
   const pad = (6 - (bitCount % 6)) % 6;

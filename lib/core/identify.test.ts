@@ -17,21 +17,34 @@ function relabel(g: Graph, seed = 7): Graph {
     const j = Math.floor((x / 2 ** 32) * (i + 1));
     [perm[i], perm[j]] = [perm[j], perm[i]];
   }
-  return makeGraph(g.n, g.edges.map((e) => ({ u: perm[e.u], v: perm[e.v], m: e.m })));
+  return makeGraph(
+    g.n,
+    g.edges.map((e) => ({ u: perm[e.u], v: perm[e.v], m: e.m })),
+  );
 }
 
 /** Floating-point spectral radius, for display-style cross-checks far from the threshold only. */
 function floatRadius(g: Graph): number {
   const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
-  for (const e of g.edges) { a[e.u][e.v] = e.m; a[e.v][e.u] = e.m; }
+  for (const e of g.edges) {
+    a[e.u][e.v] = e.m;
+    a[e.v][e.u] = e.m;
+  }
   const values = eigs(a).values as unknown as number[];
   return Math.max(...values.map((v) => Math.abs(v)));
 }
 
 describe("identification of every family", () => {
   const cases: Array<[SmithFamily, number[]]> = [
-    ["A", [1, 2, 5, 30]], ["D", [4, 5, 9]], ["E", [6, 7, 8]], ["loop_path", [1, 2, 6]],
-    ["A~", [0, 1, 2, 3, 11]], ["D~", [4, 5, 6, 13]], ["E~", [6, 7, 8]], ["loop_path2", [2, 3, 7]], ["fork_loop", [3, 4, 8]],
+    ["A", [1, 2, 5, 30]],
+    ["D", [4, 5, 9]],
+    ["E", [6, 7, 8]],
+    ["loop_path", [1, 2, 6]],
+    ["A~", [0, 1, 2, 3, 11]],
+    ["D~", [4, 5, 6, 13]],
+    ["E~", [6, 7, 8]],
+    ["loop_path2", [2, 3, 7]],
+    ["fork_loop", [3, 4, 8]],
   ];
   for (const [family, sizes] of cases)
     for (const p of sizes)
@@ -121,7 +134,23 @@ describe("family names", () => {
 
 describe("diagram names as the literature writes them", () => {
   it("every spelling of affine E8 names the same diagram: T(1,2,5) by arm lengths, T_{2,3,6} by vertex counts with the centre (Bourbaki Plate VII; Brouwer & Haemers §3.1.1)", () => {
-    for (const t of ["E~8", "E~(8)", "E8~", "Ẽ8", "Ẽ_8", "\\tilde{E}_8", "\\tilde E_8", "affine E8", "E_8^{(1)}", "E8^(1)", "E9", "E_9", "T(1,2,5)", "T_{2,3,6}", "T[2,3,6]"])
+    for (const t of [
+      "E~8",
+      "E~(8)",
+      "E8~",
+      "Ẽ8",
+      "Ẽ_8",
+      "\\tilde{E}_8",
+      "\\tilde E_8",
+      "affine E8",
+      "E_8^{(1)}",
+      "E8^(1)",
+      "E9",
+      "E_9",
+      "T(1,2,5)",
+      "T_{2,3,6}",
+      "T[2,3,6]",
+    ])
       expect(parseFamilyName(t), t).toEqual({ family: "E~", parameter: 8 });
     // E8 itself: T(1,2,4) by arm lengths = T_{2,3,5} by vertex counts (Bourbaki Plate VII).
     for (const t of ["E8", "E_8", "E(8)", "E_{8}", "T(1,2,4)", "T_{2,3,5}", "T_2,3,5"]) expect(parseFamilyName(t), t).toEqual({ family: "E", parameter: 8 });
@@ -130,7 +159,8 @@ describe("diagram names as the literature writes them", () => {
     expect(parseFamilyName("E10")).toBeNull();
   });
   it("the named graph input reads them too, and the graphs are the same", () => {
-    const same = (a: string, b: string) => expect(JSON.stringify(parseGraph(a).edges.length) + parseGraph(a).n, a).toBe(JSON.stringify(parseGraph(b).edges.length) + parseGraph(b).n);
+    const same = (a: string, b: string) =>
+      expect(JSON.stringify(parseGraph(a).edges.length) + parseGraph(a).n, a).toBe(JSON.stringify(parseGraph(b).edges.length) + parseGraph(b).n);
     for (const t of ["affine E8", "Ẽ8", "E9", "T(1,2,5)", "T_{2,3,6}"]) same(t, "E~(8)");
     expect(parseGraph("T_{3,3,3}").n).toBe(7); // Ẽ6 = T(2,2,2) has 7 vertices
     expect(parseGraph("T(2,2,3)").n).toBe(8);
@@ -138,15 +168,37 @@ describe("diagram names as the literature writes them", () => {
   });
   it("identification claims accept the literature's names", () => {
     for (const family of ["E9", "T_{2,3,6}", "Ẽ8"])
-      expect(verifyClaim(validateClaim({ format: "cairn-claim/1", kind: "identification", graph: { format: "named", text: "starlike(1,2,5)" }, family })).verdict.status, family).toBe("verified");
+      expect(
+        verifyClaim(validateClaim({ format: "cairn-claim/1", kind: "identification", graph: { format: "named", text: "starlike(1,2,5)" }, family })).verdict
+          .status,
+        family,
+      ).toBe("verified");
   });
   it("eigenvalue claims by type: exponents of E7 with its Coxeter number 18 (Bourbaki Plate VI: 1, 5, 7, 9, 11, 13, 17)", () => {
-    const c = validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "Coxeter number of E7", multiset: "exponents of E_7" });
+    const c = validateClaim({
+      format: "cairn-claim/1",
+      kind: "eigenvalues",
+      graph: { format: "named", text: "E(7)" },
+      h: "Coxeter number of E7",
+      multiset: "exponents of E_7",
+    });
     expect(c).toMatchObject({ h: 18, multiset: [1, 5, 7, 9, 11, 13, 17] });
     expect(verifyClaim(c).verdict.status).toBe("verified");
     // D5: h = 8, exponents 1, 3, 4, 5, 7 (Bourbaki Plate IV).
-    expect(validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "D(5)" }, h: "coxeter number of D5", multiset: "exponents of D5" })).toMatchObject({ h: 8, multiset: [1, 3, 4, 5, 7] });
-    expect(() => validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "Coxeter number of E9", multiset: [1] })).toThrow(/"E9" is not a finite Dynkin type/);
-    expect(() => validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "eighteen", multiset: [1] })).toThrow(/expected a number or text like "Coxeter number of E7"/);
+    expect(
+      validateClaim({
+        format: "cairn-claim/1",
+        kind: "eigenvalues",
+        graph: { format: "named", text: "D(5)" },
+        h: "coxeter number of D5",
+        multiset: "exponents of D5",
+      }),
+    ).toMatchObject({ h: 8, multiset: [1, 3, 4, 5, 7] });
+    expect(() =>
+      validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "Coxeter number of E9", multiset: [1] }),
+    ).toThrow(/"E9" is not a finite Dynkin type/);
+    expect(() =>
+      validateClaim({ format: "cairn-claim/1", kind: "eigenvalues", graph: { format: "named", text: "E(7)" }, h: "eighteen", multiset: [1] }),
+    ).toThrow(/expected a number or text like "Coxeter number of E7"/);
   });
 });

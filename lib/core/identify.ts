@@ -19,15 +19,39 @@ import { edgeTotal, expectInt, expectIntArray, expectRecord, multiplicity, reche
 import { findCycle, sweep, treePath, recheckConnected, type ComponentsCertificate, type Sweep } from "./structure";
 import { branchVertexList, legsAt } from "./degree-structure";
 import { checkEmbedding } from "./subgraph";
-import { FamilyNameError, SMITH_FAMILIES, familyDisplay, familyOrder, isSmithFamily, parseFamilyName, validParameter, type SmithFamily } from "./smith-families";
+import {
+  FamilyNameError,
+  SMITH_FAMILIES,
+  familyDisplay,
+  familyOrder,
+  isSmithFamily,
+  parseFamilyName,
+  validParameter,
+  type SmithFamily,
+} from "./smith-families";
 
 /** G ≅ family(parameter): bijection[v] is the family graph's vertex for G's vertex v. */
-export interface IsomorphismCertificate { kind: "isomorphism"; family: SmithFamily; parameter: number; bijection: number[] }
+export interface IsomorphismCertificate {
+  kind: "isomorphism";
+  family: SmithFamily;
+  parameter: number;
+  bijection: number[];
+}
 /** family(parameter) (ρ = 2) ⊊ G: embedding[u] is G's vertex for the family graph's vertex u. */
-export interface ForbiddenSubgraphCertificate { kind: "forbidden-subgraph"; family: SmithFamily; parameter: number; embedding: number[] }
+export interface ForbiddenSubgraphCertificate {
+  kind: "forbidden-subgraph";
+  family: SmithFamily;
+  parameter: number;
+  embedding: number[];
+}
 export type IdentificationCertificate = IsomorphismCertificate | ForbiddenSubgraphCertificate | ComponentsCertificate;
 
-interface Found { family: SmithFamily; parameter: number; phi: number[]; why: string }
+interface Found {
+  family: SmithFamily;
+  parameter: number;
+  phi: number[];
+  why: string;
+}
 
 const SOURCE = "J. H. Smith 1970; Brouwer & Haemers, Spectra of Graphs, §3.1";
 const LOOP_SOURCE = "Goodman, de la Harpe & Jones, Coxeter Graphs and Towers of Algebras, 1989";
@@ -36,14 +60,20 @@ const LOOP_SOURCE = "Goodman, de la Harpe & Jones, Coxeter Graphs and Towers of 
 function walk(g: Graph, start: number, budget: Budget): number[] {
   const a = adjacency(g);
   const out = [start];
-  let previous = -1, current = start;
+  let previous = -1,
+    current = start;
   for (;;) {
     budget.tick();
     let next = -1;
-    for (let p = a.start[current]; p < a.start[current + 1]; p++) if (a.nbr[p] !== previous) { next = a.nbr[p]; break; }
+    for (let p = a.start[current]; p < a.start[current + 1]; p++)
+      if (a.nbr[p] !== previous) {
+        next = a.nbr[p];
+        break;
+      }
     if (next < 0) return out;
     out.push(next);
-    previous = current; current = next;
+    previous = current;
+    current = next;
     if (a.start[current + 1] - a.start[current] !== 2) return out;
   }
 }
@@ -61,9 +91,15 @@ function starlikeCase(g: Graph, centre: number, budget: Budget): Found {
   const [a, b, c] = legs.map((l) => l.length);
   let family: SmithFamily, parameter: number, why: string;
   const shape = `T(${a},${b},${c})`;
-  if (a === 1 && b === 1) { family = "D"; parameter = g.n; why = `${shape} is D${g.n}`; }
-  else if (a === 1 && b === 2 && c <= 4) { family = "E"; parameter = c + 4; why = `${shape} is E${c + 4}`; }
-  else {
+  if (a === 1 && b === 1) {
+    family = "D";
+    parameter = g.n;
+    why = `${shape} is D${g.n}`;
+  } else if (a === 1 && b === 2 && c <= 4) {
+    family = "E";
+    parameter = c + 4;
+    why = `${shape} is E${c + 4}`;
+  } else {
     [family, parameter] = a >= 2 ? ["E~", 6] : b >= 3 ? ["E~", 7] : ["E~", 8];
     // The remaining T(a,b,c) are exactly those with 1/(a+1) + 1/(b+1) + 1/(c+1) ≤ 1 (Smith 1970).
     why = `${shape} has 1/${a + 1} + 1/${b + 1} + 1/${c + 1} ≤ 1, so it contains ${familyDisplay(family, parameter)}`;
@@ -73,7 +109,11 @@ function starlikeCase(g: Graph, centre: number, budget: Budget): Found {
   const fLegs = legsAt(f, fCentre, budget).sort((x, y) => x.length - y.length);
   const phi = new Array<number>(f.n).fill(-1);
   phi[fCentre] = centre;
-  fLegs.forEach((leg, i) => leg.forEach((fv, j) => { phi[fv] = legs[i][j]; }));
+  fLegs.forEach((leg, i) =>
+    leg.forEach((fv, j) => {
+      phi[fv] = legs[i][j];
+    }),
+  );
   return { family, parameter, phi, why };
 }
 
@@ -106,7 +146,10 @@ function treeCase(g: Graph, s: Sweep, budget: Budget): Found {
     }
   const branch = branchVertexList(g, budget);
   if (branch.length === 0) {
-    const start = Math.max(0, Array.from({ length: g.n }, (_, v) => v).findIndex((v) => deg(v) <= 1));
+    const start = Math.max(
+      0,
+      Array.from({ length: g.n }, (_, v) => v).findIndex((v) => deg(v) <= 1),
+    );
     return { family: "A", parameter: g.n, phi: g.n === 1 ? [start] : walk(g, start, budget), why: `G is the path on ${g.n} vertices` };
   }
   if (branch.length === 1) return starlikeCase(g, branch[0], budget);
@@ -131,11 +174,20 @@ function classify(g: Graph, budget: Budget): Found | ComponentsCertificate {
     if (e.u === e.v && e.m >= 2) return { family: "A~", parameter: 0, phi: [e.u], why: `vertex ${e.u} has a loop of weight ${e.m}` };
   }
   const cycle = findCycle(g, s, budget, true);
-  if (cycle) return { family: "A~", parameter: cycle.length - 1, phi: cycle, why: `G contains the cycle ${cycle.length <= 12 ? cycle.join("–") : `of length ${cycle.length}`}` };
+  if (cycle)
+    return {
+      family: "A~",
+      parameter: cycle.length - 1,
+      phi: cycle,
+      why: `G contains the cycle ${cycle.length <= 12 ? cycle.join("–") : `of length ${cycle.length}`}`,
+    };
   return treeCase(g, s, budget);
 }
 
-export interface ExpectedFamily { family: SmithFamily; parameter: number }
+export interface ExpectedFamily {
+  family: SmithFamily;
+  parameter: number;
+}
 
 /**
  * "G is a Smith graph" (connected, ρ ≤ 2: Dynkin, affine or loop family), or with `expected`,
@@ -143,10 +195,12 @@ export interface ExpectedFamily { family: SmithFamily; parameter: number }
  * disconnection, by a different identification, or by a forbidden proper subgraph with ρ = 2.
  */
 export function identifySmith(g: Graph, expected?: ExpectedFamily | string, budget = new Budget()): Verdict<IdentificationCertificate> {
-  const want = typeof expected === "string" ? parseFamilyName(expected) : expected ?? null;
+  const want = typeof expected === "string" ? parseFamilyName(expected) : (expected ?? null);
   if (typeof expected === "string" && !want) throw new FamilyNameError(expected);
   if (want && !validParameter(want.family, want.parameter)) throw new FamilyNameError(`${want.family}(${want.parameter})`);
-  const statement = want ? `G ≅ ${familyDisplay(want.family, want.parameter)}` : "G belongs to a family with ρ ≤ 2 (Dynkin A/D/E, affine Ã/D̃/Ẽ, or a loop family)";
+  const statement = want
+    ? `G ≅ ${familyDisplay(want.family, want.parameter)}`
+    : "G belongs to a family with ρ ≤ 2 (Dynkin A/D/E, affine Ã/D̃/Ẽ, or a loop family)";
   const method = "structural identification (Smith's classification)";
   return withinBudget<IdentificationCertificate>(statement, method, budget, () => {
     const found = classify(g, budget);
@@ -157,16 +211,24 @@ export function identifySmith(g: Graph, expected?: ExpectedFamily | string, budg
     const name = familyDisplay(found.family, found.parameter);
     if (f.n === g.n && edgeTotal(f) === edgeTotal(g)) {
       const bijection = new Array<number>(g.n);
-      found.phi.forEach((x, u) => { bijection[x] = u; });
+      found.phi.forEach((x, u) => {
+        bijection[x] = u;
+      });
       const info = SMITH_FAMILIES[found.family];
       const ok = !want || (want.family === found.family && want.parameter === found.parameter);
       return {
-        status: ok ? "verified" : "refuted", statement, method, certificate: { kind: "isomorphism", family: found.family, parameter: found.parameter, bijection },
+        status: ok ? "verified" : "refuted",
+        statement,
+        method,
+        certificate: { kind: "isomorphism", family: found.family, parameter: found.parameter, bijection },
         reason: `G ≅ ${name}: the bijection maps G's edges onto those of ${name} with equal multiplicities (same vertex and edge counts); ρ(${name}) ${info.radius} (${found.family.startsWith("loop") || found.family === "fork_loop" ? LOOP_SOURCE : SOURCE})${ok ? "" : `, and ${name} is not ${familyDisplay(want!.family, want!.parameter)}`}`,
       };
     }
     return {
-      status: "refuted", statement, method, certificate: { kind: "forbidden-subgraph", family: found.family, parameter: found.parameter, embedding: found.phi },
+      status: "refuted",
+      statement,
+      method,
+      certificate: { kind: "forbidden-subgraph", family: found.family, parameter: found.parameter, embedding: found.phi },
       reason: `${found.why}: G contains ${name} (ρ = 2) as a proper subgraph, so ρ(G) > 2 (Perron–Frobenius, G connected) and G is in no family with ρ ≤ 2`,
     };
   });
@@ -179,7 +241,8 @@ export function recheckIdentification(g: Graph, certificate: unknown, budget = n
     const v = recheckConnected(g, certificate, budget);
     return { ...v, statement: v.statement.replace("G is not connected", "G is not connected, so in no family") };
   }
-  const shown = isSmithFamily(c0.family) && typeof c0.parameter === "number" && validParameter(c0.family, c0.parameter) ? familyDisplay(c0.family, c0.parameter) : "?";
+  const shown =
+    isSmithFamily(c0.family) && typeof c0.parameter === "number" && validParameter(c0.family, c0.parameter) ? familyDisplay(c0.family, c0.parameter) : "?";
   const outcome = c0.kind === "forbidden-subgraph" ? `G properly contains ${shown}, so ρ(G) > 2` : `G ≅ ${shown}`;
   return recheck(outcome, "certificate re-check (rebuild the family graph)", budget, () => {
     const c = expectRecord(certificate, "certificate");
@@ -195,7 +258,10 @@ export function recheckIdentification(g: Graph, certificate: unknown, budget = n
       if (new Set(bijection).size !== g.n) reject("the bijection is not one-to-one");
       for (const e of g.edges) {
         budget.tick();
-        if (multiplicity(f, bijection[e.u], bijection[e.v]) !== e.m) reject(`G's pair ${e.u}–${e.v} (multiplicity ${e.m}) maps to ${bijection[e.u]}–${bijection[e.v]} with multiplicity ${multiplicity(f, bijection[e.u], bijection[e.v])}`);
+        if (multiplicity(f, bijection[e.u], bijection[e.v]) !== e.m)
+          reject(
+            `G's pair ${e.u}–${e.v} (multiplicity ${e.m}) maps to ${bijection[e.u]}–${bijection[e.v]} with multiplicity ${multiplicity(f, bijection[e.u], bijection[e.v])}`,
+          );
       }
       if (edgeTotal(f) !== edgeTotal(g)) reject(`G has ${edgeTotal(g)} edges, ${familyDisplay(family, parameter)} has ${edgeTotal(f)}`);
       return "the bijection carries G's edges onto the family graph's with equal multiplicities and both have the same number of edges";

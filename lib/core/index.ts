@@ -28,25 +28,60 @@ export { polyToString, type Poly } from "./sturm";
 
 // Structure.
 export {
-  isConnected, isBipartite, isForest, isTree, containsCycle,
-  recheckConnected, recheckBipartite, recheckTree, recheckContainsCycle,
-  type ForestCertificate, type ComponentsCertificate, type CycleCertificate, type ColouringCertificate,
-  type ConnectivityCertificate, type TreeCertificate, type BipartiteCertificate,
+  isConnected,
+  isBipartite,
+  isForest,
+  isTree,
+  containsCycle,
+  recheckConnected,
+  recheckBipartite,
+  recheckTree,
+  recheckContainsCycle,
+  type ForestCertificate,
+  type ComponentsCertificate,
+  type CycleCertificate,
+  type ColouringCertificate,
+  type ConnectivityCertificate,
+  type TreeCertificate,
+  type BipartiteCertificate,
 } from "./structure";
 export {
-  maxDegree, recheckMaxDegree, branchVertices, branchVertexList, recheckBranchVertices, starlikeLegs, recheckStarlikeLegs,
-  type DegreeRelation, type MaxDegreeCertificate, type BranchVerticesCertificate, type LegsCertificate, type StarlikeCertificate,
+  maxDegree,
+  recheckMaxDegree,
+  branchVertices,
+  branchVertexList,
+  recheckBranchVertices,
+  starlikeLegs,
+  recheckStarlikeLegs,
+  type DegreeRelation,
+  type MaxDegreeCertificate,
+  type BranchVerticesCertificate,
+  type LegsCertificate,
+  type StarlikeCertificate,
 } from "./degree-structure";
 
 // Containment and identification.
 export {
-  findSubgraph, recheckSubgraph, excludeSubgraphs, recheckExclusion, checkEmbedding, MONOTONICITY_NOTE,
-  type SubgraphCertificate, type EmbeddingCertificate, type AbsenceCertificate, type AbsenceArgument,
-  type ExclusionCertificate, type SubgraphOptions,
+  findSubgraph,
+  recheckSubgraph,
+  excludeSubgraphs,
+  recheckExclusion,
+  checkEmbedding,
+  MONOTONICITY_NOTE,
+  type SubgraphCertificate,
+  type EmbeddingCertificate,
+  type AbsenceCertificate,
+  type AbsenceArgument,
+  type ExclusionCertificate,
+  type SubgraphOptions,
 } from "./subgraph";
 export {
-  identifySmith, recheckIdentification,
-  type IdentificationCertificate, type IsomorphismCertificate, type ForbiddenSubgraphCertificate, type ExpectedFamily,
+  identifySmith,
+  recheckIdentification,
+  type IdentificationCertificate,
+  type IsomorphismCertificate,
+  type ForbiddenSubgraphCertificate,
+  type ExpectedFamily,
 } from "./identify";
 export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type SmithFamily } from "./smith-families";
 
@@ -59,16 +94,43 @@ export * from "./perron";
 
 // Claims, the checker's reports, and exported bundles.
 export {
-  CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS,
-  MAX_GRAPH_TEXT, ClaimError, validateClaim, validateGraphInput,
-  type Claim, type ClaimKind, type GraphInput, type GraphFormat as ClaimGraphFormat, type StructurePredicate,
-  type SpectralRadiusBoundClaim, type VectorCertificateClaim, type SubgraphClaim, type ExclusionClaim,
-  type IdentificationClaim, type CharacteristicPolynomialClaim, type EigenvaluesClaim, type StructureClaim,
+  CLAIM_FORMAT,
+  CLAIMS_FILE_FORMAT,
+  CLAIM_KINDS,
+  GRAPH_FORMATS,
+  RELATIONS,
+  STRUCTURE_PREDICATES,
+  DEGREE_RELATIONS,
+  MAX_GRAPH_TEXT,
+  ClaimError,
+  validateClaim,
+  validateGraphInput,
+  type Claim,
+  type ClaimKind,
+  type GraphInput,
+  type GraphFormat as ClaimGraphFormat,
+  type StructurePredicate,
+  type SpectralRadiusBoundClaim,
+  type VectorCertificateClaim,
+  type SubgraphClaim,
+  type ExclusionClaim,
+  type IdentificationClaim,
+  type CharacteristicPolynomialClaim,
+  type EigenvaluesClaim,
+  type StructureClaim,
 } from "./claim-schema";
 export { readClaimsDocument, type ClaimEntry } from "./claim-file";
 export {
-  CHECKER_VERSION, verifyClaim, recheckClaim, claimCanonicalJson, claimDigest, readClaimGraph,
-  type ClaimResult, type ClaimCertificate, type CertificateCheck, type VerifyOptions,
+  CHECKER_VERSION,
+  verifyClaim,
+  recheckClaim,
+  claimCanonicalJson,
+  claimDigest,
+  readClaimGraph,
+  type ClaimResult,
+  type ClaimCertificate,
+  type CertificateCheck,
+  type VerifyOptions,
 } from "./claims";
 export { CLAIM_LIMITS } from "./claim-support";
 export * from "./check-report";

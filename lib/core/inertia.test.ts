@@ -21,7 +21,10 @@ function lcg(seed: number) {
 }
 function randomTree(n: number, seed: number): Graph {
   const r = lcg(seed);
-  return makeGraph(n, Array.from({ length: n - 1 }, (_, i) => ({ u: r(i + 1), v: i + 1 })));
+  return makeGraph(
+    n,
+    Array.from({ length: n - 1 }, (_, i) => ({ u: r(i + 1), v: i + 1 })),
+  );
 }
 function randomGraph(n: number, p: number, seed: number): Graph {
   const r = lcg(seed);
@@ -31,7 +34,10 @@ function randomGraph(n: number, p: number, seed: number): Graph {
 }
 function floatEigenvalues(g: Graph): number[] {
   const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
-  for (const e of g.edges) { a[e.u][e.v] += e.m; if (e.u !== e.v) a[e.v][e.u] += e.m; }
+  for (const e of g.edges) {
+    a[e.u][e.v] += e.m;
+    if (e.u !== e.v) a[e.v][e.u] += e.m;
+  }
   return (eigs(a).values as number[]).map(Number);
 }
 /** Extended E8 in the benchmark vertex order: path 0..7 plus (5, 8). */
@@ -74,7 +80,11 @@ describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
   });
   it("huge multiplicities stay exact: K_{1,3} with every edge of multiplicity 2^30 has ρ = 2^30·√3 (ρ(K_{1,3}) = √3, Brouwer & Haemers §1.4.2, scaled)", () => {
     const w = 2 ** 30;
-    const g = makeGraph(4, [{ u: 0, v: 1, m: w }, { u: 0, v: 2, m: w }, { u: 0, v: 3, m: w }]);
+    const g = makeGraph(4, [
+      { u: 0, v: 1, m: w },
+      { u: 0, v: 2, m: w },
+      { u: 0, v: 3, m: w },
+    ]);
     expect(verdict(g, "=", `sqrt(${3n * BigInt(w) * BigInt(w)})`).status).toBe("verified");
     expect(verdict(g, "<", `${Math.ceil(w * Math.sqrt(3))}`).status).toBe("verified");
   });
@@ -97,7 +107,12 @@ describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
     const loop2 = makeGraph(1, [{ u: 0, v: 0, m: 2 }]);
     expect(verdict(loop2, "=", "2").status).toBe("verified");
     // A path with a loop of weight 1 at one end folds A_{2n}: ρ = 2cos(pi/(2n+1)) < 2 (from memory; float-checked here).
-    const tadpole = makeGraph(4, [{ u: 0, v: 0 }, { u: 0, v: 1 }, { u: 1, v: 2 }, { u: 2, v: 3 }]);
+    const tadpole = makeGraph(4, [
+      { u: 0, v: 0 },
+      { u: 0, v: 1 },
+      { u: 1, v: 2 },
+      { u: 2, v: 3 },
+    ]);
     expect(verdict(tadpole, "<", "2").status).toBe("verified");
     expect(Math.max(...floatEigenvalues(tadpole))).toBeCloseTo(2 * Math.cos(Math.PI / 9), 9);
   });
@@ -155,9 +170,11 @@ describe("large graphs with a cycle: a vector certificate (Rayleigh or Collatz�
     let x = (1_000_000 + n) >>> 0;
     const next = () => (x = (Math.imul(1664525, x) + 1013904223) >>> 0);
     const randint = (m: number) => Math.floor((next() * m) / 2 ** 32);
-    const seen = new Set<string>(), edges: Array<{ u: number; v: number }> = [];
+    const seen = new Set<string>(),
+      edges: Array<{ u: number; v: number }> = [];
     while (edges.length < (3 * n) / 2) {
-      const u = randint(n), v = randint(n);
+      const u = randint(n),
+        v = randint(n);
       const key = `${Math.min(u, v)} ${Math.max(u, v)}`;
       if (u === v || seen.has(key)) continue;
       seen.add(key);
@@ -209,7 +226,9 @@ describe("large graphs with a cycle: a vector certificate (Rayleigh or Collatz�
     const r = recheckSpectralRadiusBound(g, "<", "5", "verified", broken);
     expect(r.status).not.toBe("verified");
     expect(r.reason).toMatch(/vertex 0/);
-    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", { ...cert, vector: cert.vector.map((x, i) => (i === 3 ? "0" : x)) }).status).not.toBe("verified");
+    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", { ...cert, vector: cert.vector.map((x, i) => (i === 3 ? "0" : x)) }).status).not.toBe(
+      "verified",
+    );
   });
 
   it("compares with an irrational bound exactly: ρ < √20 (the float hint is 4.20)", () => {
@@ -301,7 +320,8 @@ describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)",
     expect(v.certificate!.kind).toBe("algebraic-tree");
     expect(recheckSpectralRadiusBound(g, "<", "sqrt(2+sqrt(5))", "verified", v.certificate).status).toBe("verified");
     const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-tree" };
-    c.zero = 2; c.positive -= 2;
+    c.zero = 2;
+    c.positive -= 2;
     expect(recheckSpectralRadiusBound(g, "<", "sqrt(2+sqrt(5))", "verified", c).status).toBe("refuted");
   });
   it("forest-count certificates (b an eigenvalue of a forest) re-check; a changed multiplicity, count or enclosure is rejected", () => {
@@ -310,11 +330,23 @@ describe("irrational bounds on larger trees: exact Jacobs–Trevisan over Q(b)",
     expect(v.certificate!.kind).toBe("forest-count");
     expect(recheckSpectralRadiusBound(g, "=", "2cos(pi/31)", "verified", v.certificate).status).toBe("verified");
     const tampered: Array<(c: SpectralRadiusCertificate & { kind: "forest-count" }) => void> = [
-      (c) => { c.multiplicity = 2; c.inside = 2; },
-      (c) => { c.inside = 0; c.multiplicity = 0; },
-      (c) => { c.atOrAbove = 1; },
-      (c) => { [c.lo, c.hi] = [c.hi, c.lo]; },
-      (c) => { c.lo = "1"; }, // (1, hi) holds many eigenvalues of P_30
+      (c) => {
+        c.multiplicity = 2;
+        c.inside = 2;
+      },
+      (c) => {
+        c.inside = 0;
+        c.multiplicity = 0;
+      },
+      (c) => {
+        c.atOrAbove = 1;
+      },
+      (c) => {
+        [c.lo, c.hi] = [c.hi, c.lo];
+      },
+      (c) => {
+        c.lo = "1";
+      }, // (1, hi) holds many eigenvalues of P_30
     ];
     for (const change of tampered) {
       const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "forest-count" };
@@ -356,7 +388,8 @@ describe("irrational bounds on larger graphs with cycles: sparse elimination ove
     expect(v.certificate!.kind).toBe("algebraic-sparse");
     expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", v.certificate).status).toBe("verified");
     const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-sparse" };
-    c.zero = 0; c.positive = 205;
+    c.zero = 0;
+    c.positive = 205;
     expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", c).status).toBe("refuted");
     expect(verdict(g, "<", "sqrt(6)").status).toBe("refuted");
     expect(verdict(disjointUnion(completeBipartite(2, 3), cycle(200)), "<", "sqrt(7)").status).toBe("verified");
@@ -365,9 +398,17 @@ describe("irrational bounds on larger graphs with cycles: sparse elimination ove
 
 describe("certificates re-check and resist tampering", () => {
   const cases: Array<[Graph, Relation, string]> = [
-    [affineE8, "=", "2"], [dynkinE(8), "<", "2"], [starlike([1, 2, 6]), ">", "2"], [cycle(7), "=", "2"],
-    [petersenLike(), "<", "3"], [path(6), "=", "2cos(pi/7)"], [star(5), "<", "sqrt(6)"], [complete(4), ">", "sqrt(8)"],
-    [completeBipartite(2, 3), "=", "sqrt(6)"], [cycle(5), "<", "2cos(pi/7)"], [starlike([2, 2, 80]), "<", "sqrt(2+sqrt(5))"],
+    [affineE8, "=", "2"],
+    [dynkinE(8), "<", "2"],
+    [starlike([1, 2, 6]), ">", "2"],
+    [cycle(7), "=", "2"],
+    [petersenLike(), "<", "3"],
+    [path(6), "=", "2cos(pi/7)"],
+    [star(5), "<", "sqrt(6)"],
+    [complete(4), ">", "sqrt(8)"],
+    [completeBipartite(2, 3), "=", "sqrt(6)"],
+    [cycle(5), "<", "2cos(pi/7)"],
+    [starlike([2, 2, 80]), "<", "sqrt(2+sqrt(5))"],
   ];
   it("every verdict's certificate re-checks", () => {
     const kinds = new Set<string>();
@@ -402,7 +443,8 @@ describe("certificates re-check and resist tampering", () => {
   it("an inertia certificate with a changed count, or a sparse order with a wrong step, is rejected", () => {
     const v = verdict(affineE8, "=", "2");
     const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "inertia" };
-    c.zero = 0; c.positive = 9;
+    c.zero = 0;
+    c.positive = 9;
     expect(recheckSpectralRadiusBound(affineE8, "=", "2", "verified", c).status).toBe("refuted");
     const g = cycle(6);
     const w = verdict(g, "=", "2");
@@ -420,13 +462,22 @@ describe("certificates re-check and resist tampering", () => {
   });
   it("malformed certificates are refuted with a message, never a raw exception", () => {
     const junk: unknown[] = [
-      null, 5, "x", [], {}, { kind: "inertia" }, { kind: "inertia", at: 2, engine: "sparse" },
+      null,
+      5,
+      "x",
+      [],
+      {},
+      { kind: "inertia" },
+      { kind: "inertia", at: 2, engine: "sparse" },
       { kind: "inertia", at: "2", engine: "sparse", steps: [{}, "a", null], positive: 6, negative: 0, zero: 0 },
       { kind: "inertia", at: "2", engine: "sparse", steps: "0,1", positive: 6, negative: 0, zero: 0 },
       { kind: "inertia", at: "2", engine: "forest", positive: 6, negative: 0, zero: 0 },
-      { kind: "rayleigh", at: "2", vector: [[99, "1"]], value: "0" }, { kind: "rayleigh", at: "2", vector: [[0, 1]], value: "0" },
-      { kind: "rayleigh", at: "2/0", vector: [[0, "1"]], value: "0" }, { kind: "sturm", charpoly: "1" },
-      { kind: "algebraic-tree", stop: "x" }, { kind: "algebraic-sparse", stop: "negative" },
+      { kind: "rayleigh", at: "2", vector: [[99, "1"]], value: "0" },
+      { kind: "rayleigh", at: "2", vector: [[0, 1]], value: "0" },
+      { kind: "rayleigh", at: "2/0", vector: [[0, "1"]], value: "0" },
+      { kind: "sturm", charpoly: "1" },
+      { kind: "algebraic-tree", stop: "x" },
+      { kind: "algebraic-sparse", stop: "negative" },
     ];
     for (const c of junk) {
       const r = recheckSpectralRadiusBound(cycle(6), "=", "2", "verified", c);
@@ -454,7 +505,15 @@ function petersenLike(): Graph {
 
 describe("cross-check against floating eigenvalues (mathjs eigs) on seeded random graphs", () => {
   it("the exact verdict of ρ < b agrees with the float whenever |ρ_float - b| > 1e-9", () => {
-    const bounds: Array<[string, number]> = [["1", 1], ["3/2", 1.5], ["2", 2], ["5/2", 2.5], ["3", 3], ["sqrt(5)", Math.sqrt(5)], ["2cos(pi/7)", 2 * Math.cos(Math.PI / 7)]];
+    const bounds: Array<[string, number]> = [
+      ["1", 1],
+      ["3/2", 1.5],
+      ["2", 2],
+      ["5/2", 2.5],
+      ["3", 3],
+      ["sqrt(5)", Math.sqrt(5)],
+      ["2cos(pi/7)", 2 * Math.cos(Math.PI / 7)],
+    ];
     let compared = 0;
     for (let seed = 1; seed <= 300; seed++) {
       const n = 2 + (seed % 8);
@@ -479,7 +538,9 @@ describe("cross-check against floating eigenvalues (mathjs eigs) on seeded rando
         if (ev.some((x) => Math.abs(x - b) < 1e-6 && Math.abs(x - b) > 1e-12)) continue; // ambiguous in floats
         const r = sparseInertia(g, rat(b), "none", new Budget());
         expect([r.positive, r.negative, r.zero], `t = ${t}, b = ${b}`).toEqual([
-          ev.filter((x) => x < b - 1e-9).length, ev.filter((x) => x > b + 1e-9).length, ev.filter((x) => Math.abs(x - b) <= 1e-9).length,
+          ev.filter((x) => x < b - 1e-9).length,
+          ev.filter((x) => x > b + 1e-9).length,
+          ev.filter((x) => Math.abs(x - b) <= 1e-9).length,
         ]);
       }
     }
@@ -500,10 +561,24 @@ describe("cross-check against floating eigenvalues (mathjs eigs) on seeded rando
 describe("the method named is the method that decided, with its certificate kind beside it", () => {
   // ρ(K_{1,m}) = √m and ρ(P_n) = 2cos(π/(n+1)) < 2, ρ(C_n) = 2 (Brouwer & Haemers, Spectra of Graphs, §1.4).
   const cases: Array<[string, Graph, Relation, string, SpectralRadiusCertificate["kind"], RegExp]> = [
-    ["K_{1,5} > 2 (the elimination stops and leaves a vector)", star(5), ">", "2", "rayleigh", /^tree inertia \(Jacobs–Trevisan 2011\); certificate: Rayleigh vector$/],
+    [
+      "K_{1,5} > 2 (the elimination stops and leaves a vector)",
+      star(5),
+      ">",
+      "2",
+      "rayleigh",
+      /^tree inertia \(Jacobs–Trevisan 2011\); certificate: Rayleigh vector$/,
+    ],
     ["P_6 < 2", path(6), "<", "2", "inertia", /^tree inertia \(Jacobs–Trevisan 2011\); certificate: inertia count/],
     ["C_7 <= 2", cycle(7), "<=", "2", "inertia", /^sparse fraction-free LDLᵀ inertia .*; certificate: inertia count/],
-    ["T(2,2,500) < √(2+√5)", starlike([2, 2, 500]), "<", "sqrt(2+sqrt(5))", "algebraic-tree", /^tree inertia over Q\(b\).*; certificate: signs of the Jacobs–Trevisan values in Q\(b\)$/],
+    [
+      "T(2,2,500) < √(2+√5)",
+      starlike([2, 2, 500]),
+      "<",
+      "sqrt(2+sqrt(5))",
+      "algebraic-tree",
+      /^tree inertia over Q\(b\).*; certificate: signs of the Jacobs–Trevisan values in Q\(b\)$/,
+    ],
   ];
   for (const [name, g, op, bound, kind, method] of cases)
     it(name, () => {

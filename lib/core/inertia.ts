@@ -46,7 +46,15 @@ export type SpectralRadiusCertificate =
    * positive and zero values (complete run), or the vertex whose value is negative (sign -1) or,
    * for the "nonPositive" rule, non-positive (sign 0 or -1). The re-check repeats the elimination.
    */
-  | { kind: "algebraic-tree" | "algebraic-sparse"; stop: "nonPositive" | "negative"; complete: boolean; positive: number; zero: number; stoppedAt?: number; sign?: -1 | 0 }
+  | {
+      kind: "algebraic-tree" | "algebraic-sparse";
+      stop: "nonPositive" | "negative";
+      complete: boolean;
+      positive: number;
+      zero: number;
+      stoppedAt?: number;
+      sign?: -1 | 0;
+    }
   /**
    * Collatz–Wielandt: a positive integer vector x (one entry per vertex) with (Ax)_v < b·x_v at every
    * vertex, compared exactly with b itself (rational or not): ρ < b.
@@ -110,7 +118,14 @@ function relativeTo(f: Fact, c: -1 | 0 | 1): Relation | undefined {
   return f.rel === ">" || f.rel === ">=" || f.rel === "=" ? ">" : undefined;
 }
 
-function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly = false, signsOnly = false): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
+function runAt(
+  g: Graph,
+  at: Rational,
+  stop: StopRule,
+  budget: Budget,
+  probeOnly = false,
+  signsOnly = false,
+): { fact: Fact; cert: SpectralRadiusCertificate; forest: boolean } {
   const forest = isForest(g);
   // A forest's early stop is certified by its sign alone when asked (the re-check repeats the
   // elimination): no witness vector, whose exact quadratic form can cost far more than the elimination.
@@ -119,7 +134,15 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   const atText = ratToString(at);
   if (r.complete) {
     const sparse = "steps" in r ? { steps: (r as SparseEliminationResult).steps, signs: (r as SparseEliminationResult).signs } : {};
-    const cert: SpectralRadiusCertificate = { kind: "inertia", at: atText, engine: forest ? "forest" : "sparse", ...sparse, positive: r.positive, negative: 0, zero: r.zero };
+    const cert: SpectralRadiusCertificate = {
+      kind: "inertia",
+      at: atText,
+      engine: forest ? "forest" : "sparse",
+      ...sparse,
+      positive: r.positive,
+      negative: 0,
+      zero: r.zero,
+    };
     return { fact: { rel: r.zero > 0 ? "=" : "<", at }, cert, forest };
   }
   // A probe whose failure is not going to be reported needs no certificate (and no costly re-evaluation).
@@ -131,7 +154,8 @@ function runAt(g: Graph, at: Rational, stop: StopRule, budget: Budget, probeOnly
   const vector = [...r.witness!].filter(([, x]) => x.num !== 0n).sort((a, b) => a[0] - b[0]);
   // The certificate states the value recomputed from the vector itself, checked against the engine.
   const value = quadraticForm(g, at, r.witness!, budget);
-  if (cmp(value, r.witnessValue!) !== 0) throw new Error(`internal error: witness value ${ratToString(value)} differs from the elimination's ${ratToString(r.witnessValue!)}`);
+  if (cmp(value, r.witnessValue!) !== 0)
+    throw new Error(`internal error: witness value ${ratToString(value)} differs from the elimination's ${ratToString(r.witnessValue!)}`);
   const cert: SpectralRadiusCertificate = { kind: "rayleigh", at: atText, vector: vector.map(([v, x]) => [v, ratToString(x)]), value: ratToString(value) };
   return { fact: { rel: sign(value) < 0 ? ">" : ">=", at }, cert, forest };
 }
@@ -213,11 +237,12 @@ function explain(cert: SpectralRadiusCertificate, n: number): string {
     case "tree-signs":
       return `Jacobs–Trevisan elimination of ${cert.at}·I − A reaches a ${cert.sign < 0 ? "negative" : "zero"} value at vertex ${cert.stoppedAt}, every value before it being positive, so ${cert.at}·I − A is not positive ${cert.sign < 0 ? "semidefinite" : "definite"} (Sylvester's law of inertia) and ρ ${cert.sign < 0 ? ">" : "≥"} ${cert.at}.`;
     case "forest-count": {
-      const tail = cert.atOrAbove > 0
-        ? `${cert.atOrAbove} eigenvalue(s) lie at or above ${cert.hi} > b, so ρ > b.`
-        : cert.multiplicity > 0
-          ? `b's minimal polynomial divides χ_A (the matching polynomial of the forest) ${cert.multiplicity} time(s), so b is an eigenvalue of that multiplicity; (${cert.lo}, ${cert.hi}) holds exactly ${cert.inside} eigenvalue(s), hence only b, and none lies at or above ${cert.hi}: ρ = b.`
-          : `b is not a root of χ_A (the matching polynomial of the forest), (${cert.lo}, ${cert.hi}) holds no eigenvalue and none lies at or above ${cert.hi}: ρ ≤ ${cert.lo} < b.`;
+      const tail =
+        cert.atOrAbove > 0
+          ? `${cert.atOrAbove} eigenvalue(s) lie at or above ${cert.hi} > b, so ρ > b.`
+          : cert.multiplicity > 0
+            ? `b's minimal polynomial divides χ_A (the matching polynomial of the forest) ${cert.multiplicity} time(s), so b is an eigenvalue of that multiplicity; (${cert.lo}, ${cert.hi}) holds exactly ${cert.inside} eigenvalue(s), hence only b, and none lies at or above ${cert.hi}: ρ = b.`
+            : `b is not a root of χ_A (the matching polynomial of the forest), (${cert.lo}, ${cert.hi}) holds no eigenvalue and none lies at or above ${cert.hi}: ρ ≤ ${cert.lo} < b.`;
       return `Exact inertia of ${cert.lo}·I − A and ${cert.hi}·I − A (Jacobs–Trevisan elimination, Sylvester's law of inertia) counts the eigenvalues around b, with ${cert.lo} < b < ${cert.hi}. ${tail}`;
     }
     case "sturm":
@@ -237,7 +262,11 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     // early leaves a Rayleigh vector, and the label must not read as if the vector were an inertia count.
     const verdictFrom = (rel: Relation, cert: SpectralRadiusCertificate, method: string, notes: string[] = []): Verdict<SpectralRadiusCertificate> => ({
       status: implies(rel, op) ? "verified" : "refuted",
-      statement, method: `${method}; certificate: ${CERTIFICATE_KIND[cert.kind]}`, reason: explain(cert, g.n), certificate: cert, notes: [...notes, `established: ρ(G) ${SYMBOL[rel]} ${b.text}`],
+      statement,
+      method: `${method}; certificate: ${CERTIFICATE_KIND[cert.kind]}`,
+      reason: explain(cert, g.n),
+      certificate: cert,
+      notes: [...notes, `established: ρ(G) ${SYMBOL[rel]} ${b.text}`],
     });
     const methodOf = (forest: boolean) => (forest ? "tree inertia (Jacobs–Trevisan 2011)" : "sparse fraction-free LDLᵀ inertia (minimum degree)");
     if (b.kind === "rational") {
@@ -248,7 +277,12 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     }
     const quick = vectorFirst(g, b, budget);
     if (quick)
-      return verdictFrom(quick.rel, quick.cert, VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"], quick.at ? [`b lies below the rational ${ratToString(quick.at)}`] : []);
+      return verdictFrom(
+        quick.rel,
+        quick.cert,
+        VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"],
+        quick.at ? [`b lies below the rational ${ratToString(quick.at)}`] : [],
+      );
     for (const bits of PROBE_BITS) {
       const { lo, hi } = enclose(b, bits);
       const below = runAt(g, lo, "nonPositive", budget, true);
@@ -260,7 +294,11 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
     if (counted) {
       const { rel, lo, hi, multiplicity, inside, atOrAbove } = counted;
       const cert: SpectralRadiusCertificate = { kind: "forest-count", lo: ratToString(lo), hi: ratToString(hi), multiplicity, inside, atOrAbove };
-      return verdictFrom(rel, cert, "eigenvalue counts by tree inertia at rational points around b, with b's multiplicity in the characteristic (matching) polynomial of the forest");
+      return verdictFrom(
+        rel,
+        cert,
+        "eigenvalue counts by tree inertia at rational points around b, with b's multiplicity in the characteristic (matching) polynomial of the forest",
+      );
     }
     if (isForest(g)) {
       const { rel, cert } = algebraicElimination(g, b, stop, budget);
@@ -310,20 +348,38 @@ function sturmCertificate(g: Graph, b: Bound & { kind: "algebraic" }, budget: Bu
     const { lo, hi } = enclose(b, bits);
     if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) continue;
     if (rootsBetween(seq, lo, hi) !== (isRoot ? 1 : 0)) continue;
-    return { kind: "sturm", charpoly: chi.map(String), lo: ratToString(lo), hi: ratToString(hi), rootsAbove: rootsBetween(seq, hi, "+inf"), boundIsEigenvalue: isRoot };
+    return {
+      kind: "sturm",
+      charpoly: chi.map(String),
+      lo: ratToString(lo),
+      hi: ratToString(hi),
+      rootsAbove: rootsBetween(seq, hi, "+inf"),
+      boundIsEigenvalue: isRoot,
+    };
   }
 }
 
 function parseCertRational(x: unknown, name: string): Rational {
   if (typeof x !== "string") reject(`${name} must be a rational written as a string`);
-  try { return parseRational(x); } catch { return reject(`${name} is not a rational: "${x}"`); }
+  try {
+    return parseRational(x);
+  } catch {
+    return reject(`${name} is not a rational: "${x}"`);
+  }
 }
 
 /**
  * Re-checks a certificate of spectralRadiusBound independently: `verified` when it establishes the
  * given outcome of "ρ(G) op b", `refuted` (certificate rejected, with the first failing entry) otherwise.
  */
-export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound | string, outcome: "verified" | "refuted", certificate: unknown, budget: Budget = new Budget()): Verdict<undefined> {
+export function recheckSpectralRadiusBound(
+  g: Graph,
+  op: Relation,
+  bound: Bound | string,
+  outcome: "verified" | "refuted",
+  certificate: unknown,
+  budget: Budget = new Budget(),
+): Verdict<undefined> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const claim = `ρ(G) ${SYMBOL[op]} ${b.text} is ${outcome}`;
   return recheck(claim, "certificate re-check", budget, () => {
@@ -333,7 +389,12 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
       const at = parseCertRational(c.at, "certificate.at");
       if (c.kind === "tree-signs" && (b.kind !== "algebraic" || !PROBE_BITS.some((bits) => cmp(enclose(b, bits).hi, at) === 0)))
         reject(`certificate.at must be the upper end of b's enclosure at ${PROBE_BITS.map((k) => `2^-${k}`).join(" or ")} (the points the verdict probes)`);
-      const fact = c.kind === "inertia" ? recheckInertia(g, at, c, budget) : c.kind === "rayleigh" ? recheckRayleigh(g, at, c, budget) : recheckTreeSigns(g, at, c, budget);
+      const fact =
+        c.kind === "inertia"
+          ? recheckInertia(g, at, c, budget)
+          : c.kind === "rayleigh"
+            ? recheckRayleigh(g, at, c, budget)
+            : recheckTreeSigns(g, at, c, budget);
       rel = relativeTo(fact, b.kind === "rational" ? cmp(at, b.value) : compareToBound(at, b));
     } else if (c.kind === "algebraic-tree" || c.kind === "algebraic-sparse") {
       if (b.kind !== "algebraic") reject(`an ${c.kind} certificate needs an irrational bound`);
@@ -350,17 +411,22 @@ export function recheckSpectralRadiusBound(g: Graph, op: Relation, bound: Bound 
     } else if (c.kind === "sturm") {
       if (b.kind !== "algebraic") reject("a Sturm certificate needs an irrational bound");
       rel = recheckSturm(g, b, c, budget);
-    } else reject(`certificate.kind must be "inertia", "rayleigh", "tree-signs", "collatz-wielandt", "algebraic-tree", "algebraic-sparse", "forest-count" or "sturm"`);
+    } else
+      reject(
+        `certificate.kind must be "inertia", "rayleigh", "tree-signs", "collatz-wielandt", "algebraic-tree", "algebraic-sparse", "forest-count" or "sturm"`,
+      );
     if (rel === undefined) reject("the certificate's point does not separate ρ from b");
     const truth = implies(rel, op);
     if (truth === undefined) reject(`the certificate shows ρ ${SYMBOL[rel]} b, which does not decide the claim`);
-    if ((truth ? "verified" : "refuted") !== outcome) reject(`the certificate shows ρ ${SYMBOL[rel]} b, so the claim is ${truth ? "true" : "false"}, not ${outcome}`);
+    if ((truth ? "verified" : "refuted") !== outcome)
+      reject(`the certificate shows ρ ${SYMBOL[rel]} b, so the claim is ${truth ? "true" : "false"}, not ${outcome}`);
     return `the certificate shows ρ(G) ${SYMBOL[rel]} ${b.text}`;
   });
 }
 
 function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {
-  const pos = expectInt(c.positive, "certificate.positive", 0, g.n), zero = expectInt(c.zero, "certificate.zero", 0, g.n);
+  const pos = expectInt(c.positive, "certificate.positive", 0, g.n),
+    zero = expectInt(c.zero, "certificate.zero", 0, g.n);
   if (c.negative !== 0) reject("certificate.negative must be 0");
   if (pos + zero !== g.n) reject(`certificate counts ${pos} + ${zero} values for ${g.n} vertices`);
   let r: EliminationResult;
@@ -370,13 +436,19 @@ function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budg
   } else if (c.engine === "sparse") {
     if (!Array.isArray(c.steps)) reject("certificate.steps must list the elimination order");
     let replayed;
-    try { replayed = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]); } catch (e) {
+    try {
+      replayed = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]);
+    } catch (e) {
       if (e instanceof ReplayError) reject(`certificate.steps: ${e.message}`);
       throw e;
     }
     if (c.signs !== replayed.signs) {
       const i = typeof c.signs === "string" ? [...replayed.signs].findIndex((x, k) => x !== [...(c.signs as string)][k]) : -1;
-      reject(i >= 0 ? `certificate.signs: step ${i + 1} has pivot sign ${[...replayed.signs][i]}, not ${[...(c.signs as string)][i]}` : "certificate.signs does not match the elimination");
+      reject(
+        i >= 0
+          ? `certificate.signs: step ${i + 1} has pivot sign ${[...replayed.signs][i]}, not ${[...(c.signs as string)][i]}`
+          : "certificate.signs does not match the elimination",
+      );
     }
     r = replayed;
   } else return reject(`certificate.engine must be "forest" or "sparse"`);
@@ -423,7 +495,8 @@ function recheckTreeSigns(g: Graph, at: Rational, c: Record<string, unknown>, bu
 function recheckForestCount(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<string, unknown>, budget: Budget): Relation {
   if (!isForest(g)) reject("a forest-count certificate needs a forest");
   if (g.n > FOREST_CHARPOLY_LIMIT) reject(`a forest-count certificate is re-checked up to ${FOREST_CHARPOLY_LIMIT} vertices`);
-  const lo = parseCertRational(c.lo, "certificate.lo"), hi = parseCertRational(c.hi, "certificate.hi");
+  const lo = parseCertRational(c.lo, "certificate.lo"),
+    hi = parseCertRational(c.hi, "certificate.hi");
   if (compareToBound(lo, b) >= 0 || compareToBound(hi, b) <= 0) reject("certificate.lo < b < certificate.hi fails");
   // One valid form only: the enclosure the verdict reaches (2^-20, 2^-40, … as in forestEigenvalueCount).
   const size = Math.max(lo.den.toString(2).length, hi.den.toString(2).length);
@@ -447,7 +520,8 @@ function recheckSturm(g: Graph, b: Bound & { kind: "algebraic" }, c: Record<stri
   const chi = characteristicPolynomial(g, budget);
   if (!Array.isArray(c.charpoly) || c.charpoly.length !== chi.length || c.charpoly.some((s, i) => s !== String(chi[i])))
     reject("certificate.charpoly is not the characteristic polynomial of the graph");
-  const lo = parseCertRational(c.lo, "certificate.lo"), hi = parseCertRational(c.hi, "certificate.hi");
+  const lo = parseCertRational(c.lo, "certificate.lo"),
+    hi = parseCertRational(c.hi, "certificate.hi");
   if (compareToBound(lo, b) >= 0 || compareToBound(hi, b) <= 0) reject("certificate.lo < b < certificate.hi fails");
   const sf = chi;
   if (signAt(sf, lo) === 0 || signAt(sf, hi) === 0) reject("an end of the enclosure is an eigenvalue");

@@ -6,8 +6,24 @@
 import { GraphError, type Graph } from "./graph";
 import { SMITH_FAMILIES, parseFamilyName } from "./smith-families";
 import {
-  MAX_NAMED_SIZE, path, cycle, star, complete, completeBipartite, starlike, twoBranch, dynkinA, dynkinD, dynkinE,
-  affineA, affineD, affineE, loopPath, loopPath2, forkLoop, disjointUnion,
+  MAX_NAMED_SIZE,
+  path,
+  cycle,
+  star,
+  complete,
+  completeBipartite,
+  starlike,
+  twoBranch,
+  dynkinA,
+  dynkinD,
+  dynkinE,
+  affineA,
+  affineD,
+  affineE,
+  loopPath,
+  loopPath2,
+  forkLoop,
+  disjointUnion,
 } from "./constructors";
 
 /** The families the named syntax knows, with their argument shape. */
@@ -40,8 +56,13 @@ class NamedReader {
   constructor(private readonly text: string) {}
 
   private where(at = this.pos): { line: number; column: number } {
-    let line = 1, lineStart = 0;
-    for (let i = 0; i < at; i++) if (this.text[i] === "\n") { line++; lineStart = i + 1; }
+    let line = 1,
+      lineStart = 0;
+    for (let i = 0; i < at; i++)
+      if (this.text[i] === "\n") {
+        line++;
+        lineStart = i + 1;
+      }
     return { line, column: at - lineStart + 1 };
   }
 
@@ -53,8 +74,9 @@ class NamedReader {
   private skipSpace(): void {
     while (this.pos < this.text.length) {
       const c = this.text[this.pos];
-      if (c === "#") { while (this.pos < this.text.length && this.text[this.pos] !== "\n") this.pos++; }
-      else if (/\s/.test(c)) this.pos++;
+      if (c === "#") {
+        while (this.pos < this.text.length && this.text[this.pos] !== "\n") this.pos++;
+      } else if (/\s/.test(c)) this.pos++;
       else break;
     }
   }
@@ -65,7 +87,8 @@ class NamedReader {
   }
 
   private expect(ch: string): void {
-    if (this.peek() !== ch) this.fail(this.pos < this.text.length ? `expected "${ch}" but found "${this.text[this.pos]}"` : `expected "${ch}" but the text ended`);
+    if (this.peek() !== ch)
+      this.fail(this.pos < this.text.length ? `expected "${ch}" but found "${this.text[this.pos]}"` : `expected "${ch}" but the text ended`);
     this.pos++;
   }
 
@@ -123,15 +146,22 @@ class NamedReader {
       this.skipSpace();
       const numStart = this.pos;
       const m = /^\d+/.exec(this.text.slice(this.pos));
-      if (!m) this.fail(this.pos < this.text.length ? `expected a non-negative integer, found "${this.text[this.pos]}"` : "expected a non-negative integer but the text ended");
+      if (!m)
+        this.fail(
+          this.pos < this.text.length
+            ? `expected a non-negative integer, found "${this.text[this.pos]}"`
+            : "expected a non-negative integer but the text ended",
+        );
       const value = Number(m[0]);
       if (!Number.isSafeInteger(value) || value > MAX_NAMED_SIZE) this.fail(`${m[0]} is larger than the limit of ${MAX_NAMED_SIZE}`, numStart);
       groups[groups.length - 1].push(value);
       this.pos += m[0].length;
       const sep = this.peek();
       if (sep === ",") this.pos++;
-      else if (sep === ";") { this.pos++; groups.push([]); }
-      else return groups;
+      else if (sep === ";") {
+        this.pos++;
+        groups.push([]);
+      } else return groups;
     }
   }
 }
@@ -160,7 +190,8 @@ function diagramOf(text: string): Graph | undefined {
   const t = T_BY_VERTEX_COUNTS.exec(text);
   if (t) {
     const counts = [t[1], t[2], t[3]].map(Number);
-    if (counts.some((c) => c < 1 || c > MAX_NAMED_SIZE)) throw new GraphError("T_{p,q,r} counts the vertices of each arm including the centre, so p, q, r >= 1");
+    if (counts.some((c) => c < 1 || c > MAX_NAMED_SIZE))
+      throw new GraphError("T_{p,q,r} counts the vertices of each arm including the centre, so p, q, r >= 1");
     return starlike(counts.map((c) => c - 1).filter((c) => c > 0));
   }
   if (/^\s*[A-Za-z_][A-Za-z0-9_]*~?\s*\(/.test(text)) return undefined; // the named syntax proper

@@ -20,7 +20,9 @@ describe("exact arithmetic in Q(b)", () => {
     // Parsing now reduces sqrt(3+sqrt(8)) to x^2 - 2x - 1 at once; the field must still cope with a
     // reducible square-free polynomial (root(...) inputs above the factoring degree keep one), so build it by hand.
     expect(boundPolynomialOf(parseBound("sqrt(3+sqrt(8))"))).toEqual([-1n, -2n, 1n]);
-    const F = new AlgebraicField(algebraicBound("root", "root(x^4-6x^2+1, 2, 3)", [1n, 0n, -6n, 0n, 1n], rat(2), rat(3), false) as Bound & { kind: "algebraic" });
+    const F = new AlgebraicField(
+      algebraicBound("root", "root(x^4-6x^2+1, 2, 3)", [1n, 0n, -6n, 0n, 1n], rat(2), rat(3), false) as Bound & { kind: "algebraic" },
+    );
     const b = F.generator;
     const bm1 = F.sub(b, F.fromInt(1));
     const e = F.sub(F.mul(bm1, bm1), F.fromInt(2)); // (b-1)^2 - 2 = 0, though not 0 modulo the quartic
@@ -32,7 +34,8 @@ describe("exact arithmetic in Q(b)", () => {
   it("2cos(pi/7): b^3 - b^2 - 2b + 1 = 0 (Watkins & Zeitlin 1993) and signs of nearby rationals", () => {
     const F = field("2cos(pi/7)");
     const b = F.generator;
-    const b2 = F.mul(b, b), b3 = F.mul(b2, b);
+    const b2 = F.mul(b, b),
+      b3 = F.mul(b2, b);
     expect(F.sign(F.sub(F.sub(F.sub(b3, b2), F.mul(F.fromInt(2), b)), F.fromInt(-1)))).toBe(0);
     expect(F.sign(F.sub(F.mul(F.fromInt(1000), b), F.fromInt(1801)))).toBe(1); // 2cos(pi/7) = 1.8019...
     expect(F.sign(F.sub(F.mul(F.fromInt(1000), b), F.fromInt(1802)))).toBe(-1);

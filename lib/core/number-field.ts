@@ -38,7 +38,10 @@ export interface Field<T> {
 
 export const RATIONALS: Field<Rational> = {
   fromInt: (k) => rat(k),
-  sub, mul, div, sign,
+  sub,
+  mul,
+  div,
+  sign,
   enclosure: (a) => rationalEnclosure(a),
   bits: (a) => Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4,
 };
@@ -82,8 +85,17 @@ export function nextUp(x: number): number {
   if (x !== x || x === Infinity) return x;
   if (x === 0) return Number.MIN_VALUE;
   f64[0] = x;
-  if (x > 0) { if (u32[LOW] === 0xffffffff) { u32[LOW] = 0; u32[HIGH]++; } else u32[LOW]++; }
-  else { if (u32[LOW] === 0) { u32[LOW] = 0xffffffff; u32[HIGH]--; } else u32[LOW]--; }
+  if (x > 0) {
+    if (u32[LOW] === 0xffffffff) {
+      u32[LOW] = 0;
+      u32[HIGH]++;
+    } else u32[LOW]++;
+  } else {
+    if (u32[LOW] === 0) {
+      u32[LOW] = 0xffffffff;
+      u32[HIGH]--;
+    } else u32[LOW]--;
+  }
   return f64[0];
 }
 
@@ -109,7 +121,8 @@ export function rationalEnclosure(r: Rational): [number, number] | undefined {
   if (k < -900 || k > 1000) return undefined;
   const q = k >= 0 ? (a << BigInt(k)) / r.den : a / (r.den << BigInt(-k));
   const s = 2 ** -k;
-  const lo = nextDown(Number(q)) * s, hi = nextUp(Number(q + 1n)) * s;
+  const lo = nextDown(Number(q)) * s,
+    hi = nextUp(Number(q + 1n)) * s;
   return r.num < 0n ? [-hi, -lo] : [lo, hi];
 }
 
@@ -133,10 +146,12 @@ function rtrim(p: RPoly): RPoly {
 /** Quotient and remainder over Q. */
 function rdivmod(a: RPoly, b: RPoly): [RPoly, RPoly] {
   let r = rtrim(a.slice());
-  const db = b.length - 1, lb = b[db];
+  const db = b.length - 1,
+    lb = b[db];
   const q: RPoly = new Array(Math.max(0, r.length - db)).fill(ZERO);
   while (r.length - 1 >= db && r.length > 0) {
-    const k = r.length - 1 - db, t = div(r[r.length - 1], lb);
+    const k = r.length - 1 - db,
+      t = div(r[r.length - 1], lb);
     q[k] = t;
     for (let i = 0; i <= db; i++) r[k + i] = sub(r[k + i], mul(t, b[i]));
     r = rtrim(r);
@@ -165,7 +180,10 @@ export class AlgebraicField implements Field<AlgebraicElement> {
   private modulus: Poly;
   readonly generator: AlgebraicElement = { c: [0n, 1n], d: 1n };
 
-  constructor(readonly bound: Bound & { kind: "algebraic" }, private readonly budget?: Budget) {
+  constructor(
+    readonly bound: Bound & { kind: "algebraic" },
+    private readonly budget?: Budget,
+  ) {
     this.modulus = bound.poly;
   }
 
@@ -175,21 +193,32 @@ export class AlgebraicField implements Field<AlgebraicElement> {
 
   private normalise(c: bigint[], d: bigint): AlgebraicElement {
     const t = trim(c);
-    if (d < 0n) { for (let i = 0; i < t.length; i++) t[i] = -t[i]; d = -d; }
+    if (d < 0n) {
+      for (let i = 0; i < t.length; i++) t[i] = -t[i];
+      d = -d;
+    }
     if (t.length === 0) return { c: [], d: 1n };
     let g = d;
-    for (const x of t) { if (g === 1n) break; g = gcd(g, x); }
+    for (const x of t) {
+      if (g === 1n) break;
+      g = gcd(g, x);
+    }
     return g === 1n ? { c: t, d } : { c: t.map((x) => x / g), d: d / g };
   }
 
   /** Reduces modulo the current modulus (non-monic: scale by its leading coefficient). */
   private reduce(c: bigint[], d: bigint): AlgebraicElement {
-    const P = this.modulus, dp = deg(P), L = lead(P);
+    const P = this.modulus,
+      dp = deg(P),
+      L = lead(P);
     const r = c.slice();
     for (let k = r.length - 1; k >= dp; k--) {
       const t = r[k];
       if (t === 0n) continue;
-      if (L !== 1n) { for (let i = 0; i < k; i++) r[i] *= L; d *= L; }
+      if (L !== 1n) {
+        for (let i = 0; i < k; i++) r[i] *= L;
+        d *= L;
+      }
       r[k] = 0n;
       for (let i = 0; i < dp; i++) r[k - dp + i] -= t * P[i];
     }
@@ -197,7 +226,8 @@ export class AlgebraicField implements Field<AlgebraicElement> {
   }
 
   sub(a: AlgebraicElement, b: AlgebraicElement): AlgebraicElement {
-    const n = Math.max(a.c.length, b.c.length), out: bigint[] = [];
+    const n = Math.max(a.c.length, b.c.length),
+      out: bigint[] = [];
     for (let i = 0; i < n; i++) out.push((a.c[i] ?? 0n) * b.d - (b.c[i] ?? 0n) * a.d);
     return this.normalise(out, a.d * b.d);
   }
@@ -224,7 +254,10 @@ export class AlgebraicField implements Field<AlgebraicElement> {
   private splitBy(g: Poly): boolean {
     if (deg(g) < 1) return false;
     if (lead(g) < 0n) g = g.map((x) => -x);
-    if (this.vanishesAtB(g)) { this.modulus = g; return true; }
+    if (this.vanishesAtB(g)) {
+      this.modulus = g;
+      return true;
+    }
     this.modulus = primitive(exactQuotient(this.modulus, g));
     return false;
   }
@@ -233,11 +266,17 @@ export class AlgebraicField implements Field<AlgebraicElement> {
     for (;;) {
       const e2 = this.reduce(e.c.slice(), e.d);
       if (e2.c.length === 0) throw new RangeError("division by an element that vanishes at b");
-      if (e2.c.length === 1) return this.normalise(a.c.map((x) => x * e2.d), a.d * e2.c[0]);
+      if (e2.c.length === 1)
+        return this.normalise(
+          a.c.map((x) => x * e2.d),
+          a.d * e2.c[0],
+        );
       // Extended Euclid over Q: s e ≡ r (mod P). A constant r inverts e; a non-constant r is a common
       // factor of e and P, so split P there (dynamic evaluation) and try again.
-      let r0: RPoly = this.modulus.map((x) => rat(x)), r1: RPoly = e2.c.map((x) => rat(x));
-      let s0: RPoly = [], s1: RPoly = [ONE];
+      let r0: RPoly = this.modulus.map((x) => rat(x)),
+        r1: RPoly = e2.c.map((x) => rat(x));
+      let s0: RPoly = [],
+        s1: RPoly = [ONE];
       this.budget?.tick(4 * r0.length * r0.length);
       while (r1.length > 1) {
         const [q, r] = rdivmod(r0, r1);
@@ -255,7 +294,13 @@ export class AlgebraicField implements Field<AlgebraicElement> {
       const inv = s1.map((x) => mul(div(x, r1[0]), rat(e2.d)));
       let den = 1n;
       for (const x of inv) den = (den / gcd(den, x.den)) * x.den;
-      return this.mul(a, this.normalise(inv.map((x) => (x.num * den) / x.den), den));
+      return this.mul(
+        a,
+        this.normalise(
+          inv.map((x) => (x.num * den) / x.den),
+          den,
+        ),
+      );
     }
   }
 
@@ -267,15 +312,24 @@ export class AlgebraicField implements Field<AlgebraicElement> {
   private intervalAt(e: AlgebraicElement, p: number): [bigint, bigint] {
     const { lo, hi } = enclose(this.bound, p + 2);
     const P = BigInt(p);
-    const L = floorDiv(lo.num << P, lo.den), H = -floorDiv(-(hi.num << P), hi.den);
-    let aL = 0n, aH = 0n;
+    const L = floorDiv(lo.num << P, lo.den),
+      H = -floorDiv(-(hi.num << P), hi.den);
+    let aL = 0n,
+      aH = 0n;
     for (let i = e.c.length - 1; i >= 0; i--) {
-      const q1 = aL * L, q2 = aL * H, q3 = aH * L, q4 = aH * H;
-      let mn = q1, mx = q1;
-      for (const q of [q2, q3, q4]) { if (q < mn) mn = q; if (q > mx) mx = q; }
+      const q1 = aL * L,
+        q2 = aL * H,
+        q3 = aH * L,
+        q4 = aH * H;
+      let mn = q1,
+        mx = q1;
+      for (const q of [q2, q3, q4]) {
+        if (q < mn) mn = q;
+        if (q > mx) mx = q;
+      }
       const ci = e.c[i] << P;
       aL = (mn >> P) + ci;
-      aH = -((-mx) >> P) + ci;
+      aH = -(-mx >> P) + ci;
     }
     return [aL, aH];
   }
@@ -300,7 +354,8 @@ export class AlgebraicField implements Field<AlgebraicElement> {
     if (e.c.length <= 1) return rationalEnclosure(rat(e.c[0] ?? 0n, e.d));
     const [lo, hi] = this.intervalAt(e, 64);
     const scale = e.d << 64n;
-    const a = rationalEnclosure(rat(lo, scale)), b = rationalEnclosure(rat(hi, scale));
+    const a = rationalEnclosure(rat(lo, scale)),
+      b = rationalEnclosure(rat(hi, scale));
     if (!a || !b) return undefined;
     return [a[0], b[1]];
   }

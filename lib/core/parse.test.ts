@@ -22,15 +22,19 @@ function girth(g: Graph): number {
   const a = adjacency(g);
   let best = Infinity;
   for (let s = 0; s < g.n; s++) {
-    const dist = new Array(g.n).fill(-1), parent = new Array(g.n).fill(-1);
+    const dist = new Array(g.n).fill(-1),
+      parent = new Array(g.n).fill(-1);
     dist[s] = 0;
     const queue = [s];
     for (let qi = 0; qi < queue.length; qi++) {
       const x = queue[qi];
       for (let p = a.start[x]; p < a.start[x + 1]; p++) {
         const y = a.nbr[p];
-        if (dist[y] < 0) { dist[y] = dist[x] + 1; parent[y] = x; queue.push(y); }
-        else if (parent[x] !== y) best = Math.min(best, dist[x] + dist[y] + 1);
+        if (dist[y] < 0) {
+          dist[y] = dist[x] + 1;
+          parent[y] = x;
+          queue.push(y);
+        } else if (parent[x] !== y) best = Math.min(best, dist[x] + dist[y] + 1);
       }
     }
   }
@@ -40,12 +44,25 @@ function girth(g: Graph): number {
 describe("graph6", () => {
   it("decodes the worked example of McKay's formats.txt", () => {
     // formats.txt: n = 5 with edges 0-2, 0-4, 1-3, 3-4 is "DQc".
-    expect(pairs(parseGraph6("DQc"))).toEqual([[0, 2, 1], [0, 4, 1], [1, 3, 1], [3, 4, 1]]);
+    expect(pairs(parseGraph6("DQc"))).toEqual([
+      [0, 2, 1],
+      [0, 4, 1],
+      [1, 3, 1],
+      [3, 4, 1],
+    ]);
   });
 
   it("decodes networkx's documented example DF{", () => {
     // networkx test_graph6.py: "DF{" has edges (0,3),(0,4),(1,3),(1,4),(2,3),(2,4),(3,4).
-    expect(pairs(parseGraph("DF{")).map(([u, v]) => [u, v])).toEqual([[0, 3], [0, 4], [1, 3], [1, 4], [2, 3], [2, 4], [3, 4]]);
+    expect(pairs(parseGraph("DF{")).map(([u, v]) => [u, v])).toEqual([
+      [0, 3],
+      [0, 4],
+      [1, 3],
+      [1, 4],
+      [2, 3],
+      [2, 4],
+      [3, 4],
+    ]);
   });
 
   it("reads the Petersen graph and cross-checks it is 3-regular with 15 edges and girth 5", () => {
@@ -93,9 +110,11 @@ describe("sparse6", () => {
     // networkx test_sparse6.py: ":Q___eDcdFcDeFcE`GaJ`IaHbKNbLM" has these 27 edges.
     const g = parseGraph(":Q___eDcdFcDeFcE`GaJ`IaHbKNbLM");
     expect(g.n).toBe(18);
-    expect(pairs(g).map(([u, v]) => `${u}-${v}`).join(" ")).toBe(
-      "0-1 0-2 0-3 1-12 1-14 2-13 2-15 3-16 3-17 4-7 4-9 4-11 5-6 5-8 5-9 6-10 6-11 7-8 7-10 8-12 9-15 10-14 11-13 12-16 13-17 14-17 15-16",
-    );
+    expect(
+      pairs(g)
+        .map(([u, v]) => `${u}-${v}`)
+        .join(" "),
+    ).toBe("0-1 0-2 0-3 1-12 1-14 2-13 2-15 3-16 3-17 4-7 4-9 4-11 5-6 5-8 5-9 6-10 6-11 7-8 7-10 8-12 9-15 10-14 11-13 12-16 13-17 14-17 15-16");
   });
 
   it("writes the padding special case exactly as networkx/Sage do", () => {
@@ -130,14 +149,23 @@ describe("edge lists", () => {
   it("reads integers, comments, multiplicities, loops and the n header", () => {
     const g = parseGraph("# a triangle with extras\nn = 6\n0 1\n1 2 2   # double edge\n2 0\n3 3\n");
     expect(g.n).toBe(6);
-    expect(pairs(g)).toEqual([[0, 1, 1], [0, 2, 1], [1, 2, 2], [3, 3, 1]]);
+    expect(pairs(g)).toEqual([
+      [0, 1, 1],
+      [0, 2, 1],
+      [1, 2, 2],
+      [3, 3, 1],
+    ]);
     expect(g.labels).toBeUndefined();
   });
 
   it("keeps identifier labels in order of first appearance and adds repeated pairs of a multigraph", () => {
     const g = parseGraph("multigraph: true\na b\nb c\nc a\nb a");
     expect(g.labels).toEqual(["a", "b", "c"]);
-    expect(pairs(g)).toEqual([[0, 1, 2], [0, 2, 1], [1, 2, 1]]);
+    expect(pairs(g)).toEqual([
+      [0, 1, 2],
+      [0, 2, 1],
+      [1, 2, 1],
+    ]);
   });
 
   it("names line and column of each mistake", () => {
@@ -160,7 +188,11 @@ describe("edge lists", () => {
 describe("adjacency matrices", () => {
   it("reads a symmetric matrix with a loop weight on the diagonal", () => {
     const g = parseGraph("[0, 1, 0]\n[1, 2, 1]\n[0, 1, 0]");
-    expect(pairs(g)).toEqual([[0, 1, 1], [1, 1, 2], [1, 2, 1]]);
+    expect(pairs(g)).toEqual([
+      [0, 1, 1],
+      [1, 1, 2],
+      [1, 2, 1],
+    ]);
   });
 
   it("names the first asymmetric entry", () => {
@@ -225,7 +257,10 @@ describe("graph6/sparse6 orders (N(n) encodings)", () => {
 
 describe("JSON-style matrices", () => {
   it("reads [[…],[…]] on one line or several, and points at an asymmetric entry", () => {
-    expect(pairs(parseGraph("[[0,1,0],[1,0,1],[0,1,0]]"))).toEqual([[0, 1, 1], [1, 2, 1]]);
+    expect(pairs(parseGraph("[[0,1,0],[1,0,1],[0,1,0]]"))).toEqual([
+      [0, 1, 1],
+      [1, 2, 1],
+    ]);
     expect(pairs(parseGraph("[[0, 2],\n [2, 0]]"))).toEqual([[0, 1, 2]]);
     const e = errorOf(() => parseGraph("[[0,1],[0,0]]"));
     expect(e.message).toMatch(/not symmetric/);
@@ -236,7 +271,11 @@ describe("JSON-style matrices", () => {
 describe("line endings", () => {
   it("reads matrices and edge lists with CRLF and CR line ends alike", () => {
     for (const eol of ["\n", "\r\n", "\r"]) {
-      expect(pairs(parseGraph(["0 1 1 1", "1 0 0 0", "1 0 0 0", "1 0 0 0"].join(eol)))).toEqual([[0, 1, 1], [0, 2, 1], [0, 3, 1]]);
+      expect(pairs(parseGraph(["0 1 1 1", "1 0 0 0", "1 0 0 0", "1 0 0 0"].join(eol)))).toEqual([
+        [0, 1, 1],
+        [0, 2, 1],
+        [0, 3, 1],
+      ]);
       const e = errorOf(() => parseGraph(["0 1", "1 2", "2 x y"].join(eol)));
       expect([e.line, e.column]).toEqual([3, 5]);
     }
@@ -244,13 +283,25 @@ describe("line endings", () => {
 });
 
 describe("edge lists that could mislead are refused with a way out", () => {
-  const message = (text: string) => { try { parseGraph(text); } catch (e) { return (e as Error).message; } throw new Error("accepted: " + text); };
+  const message = (text: string) => {
+    try {
+      parseGraph(text);
+    } catch (e) {
+      return (e as Error).message;
+    }
+    throw new Error("accepted: " + text);
+  };
   it("1-based numbering: refused without a base header, read as 1..n with base = 1", () => {
     // P3 written 1-based (common practice in papers): would otherwise be P3 plus an isolated vertex 0.
-    expect(message("1 2\n2 3")).toBe('line 1, column 1: the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant');
+    expect(message("1 2\n2 3")).toBe(
+      'line 1, column 1: the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant',
+    );
     const g = parseGraph("base = 1\n1 2\n2 3");
     expect(g.n).toBe(3);
-    expect(g.edges.map((e) => [e.u, e.v])).toEqual([[0, 1], [1, 2]]);
+    expect(g.edges.map((e) => [e.u, e.v])).toEqual([
+      [0, 1],
+      [1, 2],
+    ]);
     expect(parseGraph("base: 1\nn = 4\n1 2").n).toBe(4);
     expect(parseGraph("base = 0\n1 2\n2 3").n).toBe(4);
     expect(message("base = 1\n0 1")).toMatch(/line 2, column 1: vertex 0 does not exist with the header "base = 1"/);
@@ -260,7 +311,9 @@ describe("edge lists that could mislead are refused with a way out", () => {
     expect(parseGraph("0 1\n1 2").n).toBe(3);
   });
   it("a repeated pair is refused unless the header says multigraph; an explicit multiplicity is fine", () => {
-    expect(message("0 1\n1 2\n1 0")).toBe('line 3, column 1: the edge {0, 1} is given twice (lines 1 and 3); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("0 1 2") or add the header "multigraph: true"');
+    expect(message("0 1\n1 2\n1 0")).toBe(
+      'line 3, column 1: the edge {0, 1} is given twice (lines 1 and 3); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("0 1 2") or add the header "multigraph: true"',
+    );
     expect(message("2 2\n2 2\n0 1")).toMatch(/the loop at 2 is given twice/);
     expect(message("base = 1\n1 2\n2 1")).toMatch(/the edge \{1, 2\} is given twice/);
     expect(parseGraph("multigraph = true\n0 1\n1 0").edges).toEqual([{ u: 0, v: 1, m: 2 }]);
@@ -269,7 +322,9 @@ describe("edge lists that could mislead are refused with a way out", () => {
     expect(message("n = 3\n0 1\nn = 4")).toMatch(/header `n = …` must come once/);
   });
   it("an edgeless graph needs its vertex count, and says so", () => {
-    expect(message("")).toMatch(/the graph is empty: give edges one per line \("0 1"\), or for a graph without edges its vertex count as a header, e.g. "n = 5"/);
+    expect(message("")).toMatch(
+      /the graph is empty: give edges one per line \("0 1"\), or for a graph without edges its vertex count as a header, e.g. "n = 5"/,
+    );
     expect(message("# only a comment")).toMatch(/there are no edges: for a graph without edges give its vertex count/);
     expect(parseGraph("n = 5").n).toBe(5);
     expect(parseGraph("n = 5").edges).toEqual([]);

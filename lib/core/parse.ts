@@ -33,7 +33,11 @@ export type GraphFormat = "auto" | "edges" | "matrix" | "graph6" | "sparse6" | "
 /** Largest vertex count accepted from an edge list or matrix, so adversarial text cannot exhaust memory. */
 export const MAX_PARSED_VERTICES = 10_000_000;
 
-interface Token { text: string; line: number; column: number }
+interface Token {
+  text: string;
+  line: number;
+  column: number;
+}
 
 /**
  * Splits text into lines of tokens, dropping `#` comments; `separator(code)` says which characters
@@ -41,22 +45,46 @@ interface Token { text: string; line: number; column: number }
  */
 function tokenLines(text: string, separator: (code: number) => boolean, punctuation = -1, rowBreak = -1): Token[][] {
   const out: Token[][] = [];
-  let line = 1, lineStart = 0, i = 0;
+  let line = 1,
+    lineStart = 0,
+    i = 0;
   let tokens: Token[] = [];
   const n = text.length;
   while (i <= n) {
     const code = i < n ? text.charCodeAt(i) : 10;
     if (code === 10 || code === 13) {
-      if (tokens.length > 0) { out.push(tokens); tokens = []; }
+      if (tokens.length > 0) {
+        out.push(tokens);
+        tokens = [];
+      }
       if (code === 13 && text.charCodeAt(i + 1) === 10) i++;
-      i++; line++; lineStart = i;
+      i++;
+      line++;
+      lineStart = i;
       continue;
     }
-    if (code === 35) { while (i < n && text.charCodeAt(i) !== 10 && text.charCodeAt(i) !== 13) i++; continue; } // "#"
-    if (code === rowBreak) { if (tokens.length > 0) { out.push(tokens); tokens = []; } i++; continue; }
-    if (separator(code)) { i++; continue; }
+    if (code === 35) {
+      while (i < n && text.charCodeAt(i) !== 10 && text.charCodeAt(i) !== 13) i++;
+      continue;
+    } // "#"
+    if (code === rowBreak) {
+      if (tokens.length > 0) {
+        out.push(tokens);
+        tokens = [];
+      }
+      i++;
+      continue;
+    }
+    if (separator(code)) {
+      i++;
+      continue;
+    }
     const start = i;
-    if (code === punctuation) { i++; tokens.push({ text: text[start], line, column: start - lineStart + 1 }); continue; }
+    if (code === punctuation) {
+      i++;
+      tokens.push({ text: text[start], line, column: start - lineStart + 1 });
+      continue;
+    }
     while (i < n) {
       const c = text.charCodeAt(i);
       if (c === 10 || c === 13 || c === 35 || c === punctuation || c === rowBreak || separator(c)) break;
@@ -106,7 +134,8 @@ export function parseEdgeList(text: string): Graph {
   for (const tokens of lines) {
     const h = headerOf(tokens);
     if (h) {
-      if (edgeLines.length > 0 || seenHeaders.has(h.name)) throw new GraphError(`the header \`${h.name} = …\` must come once, before the first edge`, h.at.line, h.at.column);
+      if (edgeLines.length > 0 || seenHeaders.has(h.name))
+        throw new GraphError(`the header \`${h.name} = …\` must come once, before the first edge`, h.at.line, h.at.column);
       seenHeaders.add(h.name);
       const v = h.value;
       if (h.name === "n") {
@@ -115,7 +144,8 @@ export function parseEdgeList(text: string): Graph {
         if (header > MAX_PARSED_VERTICES) throw new GraphError(`vertex count ${header} is beyond the limit of ${MAX_PARSED_VERTICES}`, v.line, v.column);
         headerToken = v;
       } else if (h.name === "base") {
-        if (v.text !== "0" && v.text !== "1") throw new GraphError(`the header "base" is 0 (vertices 0..n-1) or 1 (vertices 1..n), found "${v.text}"`, v.line, v.column);
+        if (v.text !== "0" && v.text !== "1")
+          throw new GraphError(`the header "base" is 0 (vertices 0..n-1) or 1 (vertices 1..n), found "${v.text}"`, v.line, v.column);
         base = v.text === "1" ? 1 : 0;
       } else {
         const t = v.text.toLowerCase();
@@ -125,14 +155,21 @@ export function parseEdgeList(text: string): Graph {
       continue;
     }
     const eq = tokens.find((t) => t.text === "=");
-    if (eq) throw new GraphError("unexpected \"=\": only the headers `n = <count>`, `base = 1` and `multigraph = true` use it", eq.line, eq.column);
+    if (eq) throw new GraphError('unexpected "=": only the headers `n = <count>`, `base = 1` and `multigraph = true` use it', eq.line, eq.column);
     if (tokens.length < 2 || tokens.length > 3)
-      throw new GraphError(`an edge line reads "u v" or "u v multiplicity"; found ${tokens.length} field${tokens.length === 1 ? "" : "s"}`, tokens[0].line, tokens[0].column);
+      throw new GraphError(
+        `an edge line reads "u v" or "u v multiplicity"; found ${tokens.length} field${tokens.length === 1 ? "" : "s"}`,
+        tokens[0].line,
+        tokens[0].column,
+      );
     edgeLines.push(tokens);
   }
   if (edgeLines.length === 0 && header === undefined)
-    throw new GraphError(text.trim() === "" ? "the graph is empty: give edges one per line (\"0 1\"), or for a graph without edges its vertex count as a header, e.g. \"n = 5\""
-      : "there are no edges: for a graph without edges give its vertex count as a header, e.g. \"n = 5\"");
+    throw new GraphError(
+      text.trim() === ""
+        ? 'the graph is empty: give edges one per line ("0 1"), or for a graph without edges its vertex count as a header, e.g. "n = 5"'
+        : 'there are no edges: for a graph without edges give its vertex count as a header, e.g. "n = 5"',
+    );
   for (const tokens of edgeLines)
     for (const t of tokens.slice(0, 2))
       if (!INTEGER.test(t.text) && !IDENTIFIER.test(t.text))
@@ -146,28 +183,43 @@ export function parseEdgeList(text: string): Graph {
     if (before !== undefined && !multigraph) {
       const [a, b] = u <= v ? [u, v] : [v, u];
       const what = a === b ? `the loop at ${show(a)}` : `the edge {${show(a)}, ${show(b)}}`;
-      throw new GraphError(`${what} is given twice (lines ${before} and ${tokens[0].line}); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("${show(a)} ${show(b)} 2") or add the header "multigraph: true"`, tokens[0].line, tokens[0].column);
+      throw new GraphError(
+        `${what} is given twice (lines ${before} and ${tokens[0].line}); a graph has one edge between two vertices. For a multigraph write the multiplicity once ("${show(a)} ${show(b)} 2") or add the header "multigraph: true"`,
+        tokens[0].line,
+        tokens[0].column,
+      );
     }
     if (before === undefined) firstSeen.set(key, tokens[0].line);
   };
   if (numeric) {
-    let maxVertex = -1, minVertex = Infinity;
+    let maxVertex = -1,
+      minVertex = Infinity;
     for (const tokens of edgeLines) for (const t of tokens.slice(0, 2)) minVertex = Math.min(minVertex, Number(t.text));
     if (base === undefined && minVertex === 1) {
       const t = edgeLines.flatMap((tk) => tk.slice(0, 2)).find((tk) => Number(tk.text) === 1)!;
-      throw new GraphError(`the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant`, t.line, t.column);
+      throw new GraphError(
+        `the vertices are numbered from 1 (no vertex 0 appears), but edge lists count from 0, so vertex 0 would be an extra isolated vertex. Add the header "base = 1" to read the vertices as 1..n, or "base = 0" if an isolated vertex 0 is meant`,
+        t.line,
+        t.column,
+      );
     }
     const shift = base ?? 0;
     for (const tokens of edgeLines) {
       for (const t of tokens.slice(0, 2)) {
         const value = Number(t.text);
-        if (!Number.isSafeInteger(value) || value >= MAX_PARSED_VERTICES) throw new GraphError(`vertex ${t.text} is beyond the limit of ${MAX_PARSED_VERTICES} vertices`, t.line, t.column);
+        if (!Number.isSafeInteger(value) || value >= MAX_PARSED_VERTICES)
+          throw new GraphError(`vertex ${t.text} is beyond the limit of ${MAX_PARSED_VERTICES} vertices`, t.line, t.column);
         if (shift === 1 && value === 0) throw new GraphError(`vertex 0 does not exist with the header "base = 1" (vertices are 1..n)`, t.line, t.column);
         if (header !== undefined && value - shift >= header)
-          throw new GraphError(`vertex ${value} is outside ${shift}..${header - 1 + shift} declared by the header n = ${header} (line ${headerToken!.line})`, t.line, t.column);
+          throw new GraphError(
+            `vertex ${value} is outside ${shift}..${header - 1 + shift} declared by the header n = ${header} (line ${headerToken!.line})`,
+            t.line,
+            t.column,
+          );
         maxVertex = Math.max(maxVertex, value - shift);
       }
-      const u = Number(tokens[0].text) - shift, v = Number(tokens[1].text) - shift;
+      const u = Number(tokens[0].text) - shift,
+        v = Number(tokens[1].text) - shift;
       refuseRepeat(u, v, tokens, (x) => String(x + shift));
       edges.push({ u, v, m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
     }
@@ -187,7 +239,8 @@ export function parseEdgeList(text: string): Graph {
     return v;
   };
   for (const tokens of edgeLines) {
-    const u = vertexOf(tokens[0]), v = vertexOf(tokens[1]);
+    const u = vertexOf(tokens[0]),
+      v = vertexOf(tokens[1]);
     refuseRepeat(u, v, tokens, (x) => labels[x]);
     edges.push({ u, v, m: tokens[2] ? positiveInteger(tokens[2], "multiplicity") : 1 });
   }
@@ -225,7 +278,11 @@ export function parseAdjacencyMatrix(text: string): Graph {
     for (let j = 0; j < n; j++) {
       if (values[i][j] !== values[j][i]) {
         const t = rows[i][j];
-        throw new GraphError(`the matrix is not symmetric: entry (${i + 1},${j + 1}) = ${values[i][j]} but entry (${j + 1},${i + 1}) = ${values[j][i]}`, t.line, t.column);
+        throw new GraphError(
+          `the matrix is not symmetric: entry (${i + 1},${j + 1}) = ${values[i][j]} but entry (${j + 1},${i + 1}) = ${values[j][i]}`,
+          t.line,
+          t.column,
+        );
       }
       if (j >= i && values[i][j] > 0) edges.push({ u: i, v: j, m: values[i][j] });
     }
@@ -257,7 +314,8 @@ export function detectFormat(text: string): Exclude<GraphFormat, "auto"> {
   if (side > 0 && !/^n\s*=/m.test(t) && rows.every((r) => r.length === side && r.every((tok) => INTEGER.test(tok.text)))) {
     if (side !== 2 && side !== 3) return "matrix";
     let symmetricZeroDiagonal = true;
-    for (let i = 0; i < side; i++) for (let j = 0; j < side; j++) if (rows[i][j].text !== rows[j][i].text || (i === j && Number(rows[i][i].text) !== 0)) symmetricZeroDiagonal = false;
+    for (let i = 0; i < side; i++)
+      for (let j = 0; j < side; j++) if (rows[i][j].text !== rows[j][i].text || (i === j && Number(rows[i][i].text) !== 0)) symmetricZeroDiagonal = false;
     if (symmetricZeroDiagonal) return "matrix";
     // A zero in the third column cannot be a multiplicity, so a 3×3 block with one is a matrix.
     if (side === 3 && rows.some((r) => Number(r[2].text) === 0)) return "matrix";
@@ -271,8 +329,14 @@ function couldBeSquare(t: string): boolean {
   const first = tokenLines(firstLineEnd < 0 ? t : t.slice(0, firstLineEnd), MATRIX_SEPARATORS)[0];
   if (!first) return true; // the first line is a comment: let the full check decide
   // Count non-blank lines, stopping as soon as there are more than the first row has fields.
-  const find = (ch: string, from: number) => { const i = t.indexOf(ch, from); return i < 0 ? Infinity : i; };
-  let lines = 0, at = 0, nextNl = -1, nextCr = -1;
+  const find = (ch: string, from: number) => {
+    const i = t.indexOf(ch, from);
+    return i < 0 ? Infinity : i;
+  };
+  let lines = 0,
+    at = 0,
+    nextNl = -1,
+    nextCr = -1;
   while (at <= t.length && lines <= first.length) {
     // Next "\n" and "\r" found once each and reused, so the scan stays linear ("\r\n" leaves an empty, uncounted line).
     if (nextNl < at) nextNl = find("\n", at);
@@ -290,11 +354,17 @@ export function parseGraph(text: string, format: GraphFormat = "auto"): Graph {
   if (typeof text !== "string") throw new GraphError("graph input must be text");
   const chosen = format === "auto" ? detectFormat(text) : format;
   switch (chosen) {
-    case "edges": return parseEdgeList(text);
-    case "matrix": return parseAdjacencyMatrix(text);
-    case "graph6": return parseGraph6(text);
-    case "sparse6": return parseSparse6(text);
-    case "named": return parseNamed(text);
-    default: throw new GraphError(`unknown graph format "${String(chosen)}"; use auto, edges, matrix, graph6, sparse6 or named`);
+    case "edges":
+      return parseEdgeList(text);
+    case "matrix":
+      return parseAdjacencyMatrix(text);
+    case "graph6":
+      return parseGraph6(text);
+    case "sparse6":
+      return parseSparse6(text);
+    case "named":
+      return parseNamed(text);
+    default:
+      throw new GraphError(`unknown graph format "${String(chosen)}"; use auto, edges, matrix, graph6, sparse6 or named`);
   }
 }

@@ -36,13 +36,22 @@ export function perronApproximation(g: Graph, maxIterations = 10_000, tolerance 
  * at once, the largest Rayleigh quotient among them and its component (`top`). Floating point: a HINT for choosing an exact
  * certificate, never a verdict.
  */
-export function perronVectorsByComponent(g: Graph, comp: Int32Array, count: number, maxIterations = 2_000, tolerance = 1e-10): { vector: Float64Array; rho: number; top: number; iterations: number; residual: number } {
+export function perronVectorsByComponent(
+  g: Graph,
+  comp: Int32Array,
+  count: number,
+  maxIterations = 2_000,
+  tolerance = 1e-10,
+): { vector: Float64Array; rho: number; top: number; iterations: number; residual: number } {
   const { start, nbr, wt, diag } = adjacency(g);
   const n = g.n;
   let x = new Float64Array(n).fill(1);
   let y = new Float64Array(n);
-  const top = new Float64Array(count), num = new Float64Array(count), den = new Float64Array(count);
-  let residual = Infinity, it = 0;
+  const top = new Float64Array(count),
+    num = new Float64Array(count),
+    den = new Float64Array(count);
+  let residual = Infinity,
+    it = 0;
   for (; it < maxIterations && residual > tolerance; it++) {
     top.fill(0);
     num.fill(0);
@@ -64,7 +73,8 @@ export function perronVectorsByComponent(g: Graph, comp: Int32Array, count: numb
     }
     [x, y] = [y, x];
   }
-  let rho = 0, best = 0;
+  let rho = 0,
+    best = 0;
   for (let c = 0; c < count; c++) if (den[c] > 0 && num[c] / den[c] > rho) [rho, best] = [num[c] / den[c], c];
   return { vector: x, rho, top: best, iterations: it, residual };
 }

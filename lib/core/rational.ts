@@ -13,7 +13,10 @@ export interface Rational {
 
 /** A malformed number or bound in user input; `column` is 1-based inside the text that was parsed. */
 export class NumberFormatError extends Error {
-  constructor(message: string, readonly column?: number) {
+  constructor(
+    message: string,
+    readonly column?: number,
+  ) {
     super(column !== undefined ? `column ${column}: ${message}` : message);
     this.name = "NumberFormatError";
   }
@@ -40,9 +43,13 @@ export function gcd(a: bigint, b: bigint): bigint {
 
 /** Normalised p/q; throws on q = 0. */
 export function rat(p: bigint | number, q: bigint | number = 1n): Rational {
-  let n = BigInt(p), d = BigInt(q);
+  let n = BigInt(p),
+    d = BigInt(q);
   if (d === 0n) throw new RangeError("rational with zero denominator");
-  if (d < 0n) { n = -n; d = -d; }
+  if (d < 0n) {
+    n = -n;
+    d = -d;
+  }
   if (d === 1n) return { num: n, den: 1n };
   const g = gcd(n, d);
   return g === 1n ? { num: n, den: d } : { num: n / g, den: d / g };
@@ -110,7 +117,8 @@ export function ratToString(a: Rational): string {
 
 /** Nearest double, for display only (never for a verdict). */
 export function ratToNumber(a: Rational): number {
-  const n = Number(a.num), d = Number(a.den);
+  const n = Number(a.num),
+    d = Number(a.den);
   if (Number.isFinite(n) && Number.isFinite(d)) return n / d;
   // Huge numerator/denominator: shift both down to keep ~60 significant bits.
   const shift = BigInt(Math.max(a.num.toString(2).length, a.den.toString(2).length) - 60);
@@ -119,7 +127,8 @@ export function ratToNumber(a: Rational): number {
 
 /** Bit length of the larger of numerator and denominator, a measure of cost. */
 export function bitSize(a: Rational): number {
-  const n = absBig(a.num), d = a.den;
+  const n = absBig(a.num),
+    d = a.den;
   return (n > d ? n : d).toString(16).length * 4;
 }
 

@@ -25,25 +25,39 @@ function randomGraph(rng: Lcg): Graph {
 
 function floatSpectralRadius(g: Graph): number {
   const a: number[][] = Array.from({ length: g.n }, () => new Array(g.n).fill(0));
-  for (const e of g.edges) { a[e.u][e.v] = e.m; a[e.v][e.u] = e.m; }
+  for (const e of g.edges) {
+    a[e.u][e.v] = e.m;
+    a[e.v][e.u] = e.m;
+  }
   const values = eigs(a).values as unknown as number[];
   return Math.max(...values.map((x) => Math.abs(x)));
 }
 
 // The bounds: rationals and irrationals (display values used only to compare with the float).
 const BOUNDS: Array<[string, number]> = [
-  ["1", 1], ["3/2", 1.5], ["2", 2], ["sqrt(5)", Math.sqrt(5)], ["5/2", 2.5], ["3", 3], ["2cos(pi/7)", 2 * Math.cos(Math.PI / 7)], ["4", 4],
+  ["1", 1],
+  ["3/2", 1.5],
+  ["2", 2],
+  ["sqrt(5)", Math.sqrt(5)],
+  ["5/2", 2.5],
+  ["3", 3],
+  ["2cos(pi/7)", 2 * Math.cos(Math.PI / 7)],
+  ["4", 4],
 ];
 
 describe("exact ρ verdicts agree with mathjs eigs away from the bound", () => {
   it("300 seeded random graphs × 8 bounds × 3 relations", () => {
     const rng = new Lcg(20261201);
-    let compared = 0, skipped = 0;
+    let compared = 0,
+      skipped = 0;
     for (let trial = 0; trial < 300; trial++) {
       const g = randomGraph(rng);
       const rho = floatSpectralRadius(g);
       for (const [text, b] of BOUNDS) {
-        if (Math.abs(rho - b) <= 1e-9) { skipped++; continue; }
+        if (Math.abs(rho - b) <= 1e-9) {
+          skipped++;
+          continue;
+        }
         for (const op of ["<", "<=", ">"] as const) {
           const expected = op === ">" ? rho > b : rho < b;
           const v = spectralRadiusBound(g, op, text);
@@ -59,8 +73,23 @@ describe("exact ρ verdicts agree with mathjs eigs away from the bound", () => {
 
   it("graphs exactly on the bound are decided exactly (where floats cannot)", () => {
     // Smith 1970: ρ(Ẽ8) = 2 and ρ(C_n) = 2; K_{1,4} has ρ = √4 = 2 (Brouwer & Haemers §1.4.5: K_{1,n} has ±√n).
-    const e8t = makeGraph(9, [[0, 1], [1, 2], [2, 3], [3, 4], [4, 5], [5, 6], [6, 7], [5, 8]].map(([u, v]) => ({ u, v })));
-    const star = makeGraph(5, [1, 2, 3, 4].map((v) => ({ u: 0, v })));
+    const e8t = makeGraph(
+      9,
+      [
+        [0, 1],
+        [1, 2],
+        [2, 3],
+        [3, 4],
+        [4, 5],
+        [5, 6],
+        [6, 7],
+        [5, 8],
+      ].map(([u, v]) => ({ u, v })),
+    );
+    const star = makeGraph(
+      5,
+      [1, 2, 3, 4].map((v) => ({ u: 0, v })),
+    );
     for (const g of [e8t, star]) {
       expect(Math.abs(floatSpectralRadius(g) - 2)).toBeLessThan(1e-9);
       expect(spectralRadiusBound(g, "=", "2").status).toBe("verified");

@@ -15,10 +15,31 @@ type Schema = { [k: string]: unknown };
  * $ref. It throws on any other keyword, so the schema cannot grow past what this test checks.
  */
 function validate(value: unknown, schema: Schema, root: Schema, path = "$"): string[] {
-  const known = new Set(["$schema", "$id", "title", "description", "$defs", "type", "enum", "required", "properties", "additionalProperties", "items", "minItems", "maxItems", "minimum", "pattern", "oneOf", "$ref"]);
+  const known = new Set([
+    "$schema",
+    "$id",
+    "title",
+    "description",
+    "$defs",
+    "type",
+    "enum",
+    "required",
+    "properties",
+    "additionalProperties",
+    "items",
+    "minItems",
+    "maxItems",
+    "minimum",
+    "pattern",
+    "oneOf",
+    "$ref",
+  ]);
   for (const k of Object.keys(schema)) if (!known.has(k)) throw new Error(`validator does not know the keyword ${k}`);
   if (typeof schema.$ref === "string") {
-    const target = schema.$ref.replace(/^#\//, "").split("/").reduce<unknown>((o, k) => (o as Schema)[k], root) as Schema;
+    const target = schema.$ref
+      .replace(/^#\//, "")
+      .split("/")
+      .reduce<unknown>((o, k) => (o as Schema)[k], root) as Schema;
     return validate(value, target, root, path);
   }
   const errors: string[] = [];
@@ -29,7 +50,8 @@ function validate(value: unknown, schema: Schema, root: Schema, path = "$"): str
     if (!types.includes(t) && !(t === "integer" && types.includes("number"))) return [`${path}: expected ${types.join("|")}, got ${t}`];
   }
   if (schema.enum && !(schema.enum as unknown[]).includes(value)) errors.push(`${path}: ${JSON.stringify(value)} not in enum`);
-  if (typeof schema.pattern === "string" && typeof value === "string" && !new RegExp(schema.pattern, "u").test(value)) errors.push(`${path}: does not match ${schema.pattern}`);
+  if (typeof schema.pattern === "string" && typeof value === "string" && !new RegExp(schema.pattern, "u").test(value))
+    errors.push(`${path}: does not match ${schema.pattern}`);
   if (typeof schema.minimum === "number" && typeof value === "number" && value < schema.minimum) errors.push(`${path}: below ${schema.minimum}`);
   if (schema.oneOf) {
     const passing = (schema.oneOf as Schema[]).filter((s) => validate(value, s, root, path).length === 0).length;
@@ -53,7 +75,9 @@ function validate(value: unknown, schema: Schema, root: Schema, path = "$"): str
 
 function runJson(args: string[]): unknown {
   let out = "";
-  main(["--json", ...args], (s) => { out += s; });
+  main(["--json", ...args], (s) => {
+    out += s;
+  });
   return JSON.parse(out);
 }
 
@@ -61,13 +85,17 @@ describe("the checker's --json report follows lib/core/report.schema.json", () =
   it("the validator itself rejects what it should (a wrong status, a missing field, an extra field)", () => {
     const ok = { checkerVersion: "x", reports: [{ source: "f", exitCode: 0, lines: [{ label: "a", status: "verified", text: "t" }] }] };
     expect(validate(ok, SCHEMA, SCHEMA)).toEqual([]);
-    expect(validate({ ...ok, reports: [{ ...ok.reports[0], lines: [{ label: "a", status: "proved", text: "t" }] }] }, SCHEMA, SCHEMA)).toEqual(['$.reports[0].lines[0].status: "proved" not in enum']);
+    expect(validate({ ...ok, reports: [{ ...ok.reports[0], lines: [{ label: "a", status: "proved", text: "t" }] }] }, SCHEMA, SCHEMA)).toEqual([
+      '$.reports[0].lines[0].status: "proved" not in enum',
+    ]);
     expect(validate({ checkerVersion: "x" }, SCHEMA, SCHEMA)).toEqual(["$: missing reports"]);
     expect(validate({ ...ok, extra: 1 }, SCHEMA, SCHEMA)).toEqual(["$: unexpected property extra"]);
   });
 
   it("on every claims fixture (verified, refuted, malformed, carried certificates), with separate fields for each checked claim", () => {
-    const files = readdirSync(FIXTURES).filter((f) => f.endsWith(".json")).map((f) => join(FIXTURES, f));
+    const files = readdirSync(FIXTURES)
+      .filter((f) => f.endsWith(".json"))
+      .map((f) => join(FIXTURES, f));
     const report = runJson(files) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
     expect(validate(report, SCHEMA, SCHEMA)).toEqual([]);
     const lines = report.reports.flatMap((r) => r.lines);
@@ -104,7 +132,17 @@ describe("the checker's --json report follows lib/core/report.schema.json", () =
   it("a bound is reported in normal form", () => {
     const dir = mkdtempSync(join(tmpdir(), "cairn-report-"));
     const path = join(dir, "phi.json");
-    writeFileSync(path, JSON.stringify({ format: "cairn-claim/1", id: "P4", kind: "spectral-radius-bound", graph: { format: "named", text: "path(4)" }, op: "=", bound: "(1+sqrt(5))/2" }));
+    writeFileSync(
+      path,
+      JSON.stringify({
+        format: "cairn-claim/1",
+        id: "P4",
+        kind: "spectral-radius-bound",
+        graph: { format: "named", text: "path(4)" },
+        op: "=",
+        bound: "(1+sqrt(5))/2",
+      }),
+    );
     const report = runJson([path]) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
     expect(validate(report, SCHEMA, SCHEMA)).toEqual([]);
     // ρ(P4) = 2cos(π/5) = φ (Brouwer & Haemers §1.4.4).

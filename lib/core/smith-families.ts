@@ -42,7 +42,9 @@ export const SMITH_FAMILIES: Record<SmithFamily, FamilyInfo> = {
 /** A family name that cannot be read (e.g. "E9", "F4"); the message says what to write instead. */
 export class FamilyNameError extends Error {
   constructor(readonly text: string) {
-    super(`"${text}" is not a family name; write e.g. E7, D5, affine E8 (also Ẽ8, E~8, E9), T(1,2,4) (arm lengths) or T_{2,3,5} (vertex counts with the centre), A~0, loop_path(3), loop_path2(4) or fork_loop(5)`);
+    super(
+      `"${text}" is not a family name; write e.g. E7, D5, affine E8 (also Ẽ8, E~8, E9), T(1,2,4) (arm lengths) or T_{2,3,5} (vertex counts with the centre), A~0, loop_path(3), loop_path2(4) or fork_loop(5)`,
+    );
     this.name = "FamilyNameError";
   }
 }
@@ -78,16 +80,25 @@ export const familyDisplay = (family: SmithFamily, p: number): string => SMITH_F
  * Returns null when the text is not a family name.
  */
 export function parseFamilyName(text: string): { family: SmithFamily; parameter: number } | null {
-  let t = text.normalize("NFD").trim().replace(/\u0303/g, "~");
+  let t = text
+    .normalize("NFD")
+    .trim()
+    .replace(/\u0303/g, "~");
   // LaTeX: \tilde{E}_8, \tilde E_8, \widetilde{E}_8; braces around subscripts.
   t = t.replace(/^\\(?:wide)?tilde\s*\{?\s*([ADE])\s*\}?/, "$1~").replace(/_\{\s*([^{}]*?)\s*\}/g, "_$1");
   const tree = readT(t);
   if (tree !== undefined) return tree;
   let affine = false;
   const prefix = /^affine\s+/i.exec(t);
-  if (prefix) { affine = true; t = t.slice(prefix[0].length); }
+  if (prefix) {
+    affine = true;
+    t = t.slice(prefix[0].length);
+  }
   const kac = /\s*\^\s*\{?\s*\(\s*1\s*\)\s*\}?$/.exec(t); // untwisted affine, Kac's notation X_n^(1)
-  if (kac) { affine = true; t = t.slice(0, kac.index); }
+  if (kac) {
+    affine = true;
+    t = t.slice(0, kac.index);
+  }
   const loop = /^(loop_path2|loop_path|fork_loop|tadpole)\s*[_(]?\s*(\d+)\s*\)?$/.exec(t);
   if (loop && !affine) {
     const family = (loop[1] === "tadpole" ? "loop_path" : loop[1]) as SmithFamily;
@@ -98,7 +109,10 @@ export function parseFamilyName(text: string): { family: SmithFamily; parameter:
   if (!m) return null;
   let parameter = Number(m[3]);
   let tilde = affine || m[2] === "~" || m[4] === "~";
-  if (m[1] === "E" && parameter === 9 && !tilde) { tilde = true; parameter = 8; }
+  if (m[1] === "E" && parameter === 9 && !tilde) {
+    tilde = true;
+    parameter = 8;
+  }
   const family = (m[1] + (tilde ? "~" : "")) as SmithFamily;
   return validParameter(family, parameter) ? { family, parameter } : null;
 }

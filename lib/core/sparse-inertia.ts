@@ -39,7 +39,10 @@ export class ReplayError extends Error {
   }
 }
 
-interface Entry { v: bigint; s: number }
+interface Entry {
+  v: bigint;
+  s: number;
+}
 
 /** Budget steps charged per entry update when the current minor has the size of d. */
 function costOf(d: bigint): number {
@@ -50,7 +53,8 @@ function costOf(d: bigint): number {
 export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, replay?: readonly PivotStep[]): SparseEliminationResult {
   const n = g.n;
   const { start, nbr, wt, diag: loops } = adjacency(g);
-  const p = b.num, q = b.den;
+  const p = b.num,
+    q = b.den;
   const rows: Array<Map<number, Entry>> = [];
   const diag: Entry[] = [];
   for (let v = 0; v < n; v++) {
@@ -74,7 +78,9 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
   const signs: string[] = [];
   // L columns for lifting a witness: x_piv = -sum_i (N_ipiv / N_pivpiv) x_i.
   const lcols: Array<{ piv: number; nPP: bigint; col: Array<[number, bigint]> }> = [];
-  let positive = 0, negative = 0, zero = 0;
+  let positive = 0,
+    negative = 0,
+    zero = 0;
 
   // Bucket queue by current degree (lazy: stale entries are skipped on pop).
   const buckets: number[][] = [];
@@ -94,10 +100,26 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
   };
 
   const setEntry = (i: number, j: number, val: bigint) => {
-    if (i === j) { diag[i] = { v: val, s: t }; return; }
+    if (i === j) {
+      diag[i] = { v: val, s: t };
+      return;
+    }
     const e = rows[i].get(j);
-    if (val === 0n) { if (e) { rows[i].delete(j); rows[j].delete(i); } return; }
-    if (e) { e.v = val; e.s = t; } else { const ne = { v: val, s: t }; rows[i].set(j, ne); rows[j].set(i, ne); }
+    if (val === 0n) {
+      if (e) {
+        rows[i].delete(j);
+        rows[j].delete(i);
+      }
+      return;
+    }
+    if (e) {
+      e.v = val;
+      e.s = t;
+    } else {
+      const ne = { v: val, s: t };
+      rows[i].set(j, ne);
+      rows[j].set(i, ne);
+    }
   };
   const removeVertex = (v: number) => {
     for (const u of rows[v].keys()) rows[u].delete(v);
@@ -118,11 +140,19 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     }
     return y;
   };
-  const result = (complete: boolean, extra: Partial<EliminationResult> = {}): SparseEliminationResult =>
-    ({ positive, negative, zero, complete, steps, signs: signs.join(""), ...extra });
+  const result = (complete: boolean, extra: Partial<EliminationResult> = {}): SparseEliminationResult => ({
+    positive,
+    negative,
+    zero,
+    complete,
+    steps,
+    signs: signs.join(""),
+    ...extra,
+  });
 
-  for (let done = 0; done < n; ) {
-    let piv: number, partner = -1;
+  for (let done = 0; done < n;) {
+    let piv: number,
+      partner = -1;
     if (replay) {
       const st = replay[steps.length];
       if (st === undefined) throw new ReplayError(`the elimination order stops after ${steps.length} steps with ${n - done} vertices left`);
@@ -131,7 +161,8 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
       const [a, c] = typeof st === "number" ? [st, -1] : st;
       for (const x of c >= 0 ? [a, c] : [a])
         if (!Number.isInteger(x) || x < 0 || x >= n || !alive[x]) throw new ReplayError(`step ${steps.length + 1}: vertex ${x} is not a remaining vertex`);
-      piv = a; partner = c;
+      piv = a;
+      partner = c;
     } else piv = popMin();
     const Dt = D[t];
     const nPP = cur(diag[piv]);
@@ -144,30 +175,49 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
 
     if (nPP === 0n && nb.length === 0) {
       if (partner >= 0) throw new ReplayError(`step ${steps.length + 1}: a 2x2 pivot at vertex ${piv} whose row is empty`);
-      zero++; steps.push(piv); signs.push("0"); removeVertex(piv); done++;
+      zero++;
+      steps.push(piv);
+      signs.push("0");
+      removeVertex(piv);
+      done++;
       if (stop === "nonPositive") return result(false, { witness: lift(new Map([[piv, rat(1)]])), witnessValue: ZERO, stoppedAt: piv });
       continue;
     }
     if (nPP === 0n) {
       if (replay && partner < 0) throw new ReplayError(`step ${steps.length + 1}: the pivot at vertex ${piv} is zero but its row is not`);
       let r = partner;
-      if (r < 0) { let best = Infinity; for (const [i] of nb) if (rows[i].size < best) { best = rows[i].size; r = i; } }
+      if (r < 0) {
+        let best = Infinity;
+        for (const [i] of nb)
+          if (rows[i].size < best) {
+            best = rows[i].size;
+            r = i;
+          }
+      }
       const nPR = cur(rows[piv].get(r));
       if (nPR === 0n) throw new ReplayError(`step ${steps.length + 1}: vertices ${piv} and ${r} do not form an invertible 2x2 pivot`);
       if (stop !== "none") {
         // Indefinite: y = t e_piv + e_r has y^T S y = S_rr + 2 t S_pr = -1 for t = -(N_rr + D)/(2 N_pr)
         // (S of the scaled matrix qbI - qA, so -1/q for bI - A).
         const nRR = cur(diag[r]);
-        const y = new Map<number, Rational>([[r, rat(1)], [piv, rat(-(nRR + Dt), 2n * nPR)]]);
+        const y = new Map<number, Rational>([
+          [r, rat(1)],
+          [piv, rat(-(nRR + Dt), 2n * nPR)],
+        ]);
         return result(false, { witness: lift(y), witnessValue: rat(-1n, q), stoppedAt: piv });
       }
       eliminatePair(piv, r, nPR, Dt);
-      positive++; negative++; steps.push([piv, r]); signs.push("±"); done += 2;
+      positive++;
+      negative++;
+      steps.push([piv, r]);
+      signs.push("±");
+      done += 2;
       continue;
     }
     if (partner >= 0) throw new ReplayError(`step ${steps.length + 1}: a 2x2 pivot at vertex ${piv} whose diagonal entry is not zero`);
     const s = (nPP > 0n ? 1 : -1) * (Dt > 0n ? 1 : -1);
-    if (s > 0) positive++; else negative++;
+    if (s > 0) positive++;
+    else negative++;
     steps.push(piv);
     signs.push(s > 0 ? "+" : "-");
     if (stop !== "none") lcols.push({ piv, nPP, col: nb });
@@ -185,7 +235,8 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
       }
     }
     removeVertex(piv);
-    D.push(nextD); t++;
+    D.push(nextD);
+    t++;
     for (const [i, j, val] of updates) setEntry(i, j, val);
     for (const [i] of nb) push(i);
     done++;
@@ -209,8 +260,10 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
         updates.push([i, j, (nPR * (iP * jR + iR * jP) - nPR * nPR * nIJ - nRR * iP * jP) / D2]);
       }
     }
-    removeVertex(pv); removeVertex(r);
-    D.push(-(nPR * nPR) / Dt); t++;
+    removeVertex(pv);
+    removeVertex(r);
+    D.push(-(nPR * nPR) / Dt);
+    t++;
     for (const [i, j, val] of updates) setEntry(i, j, val);
     for (const [i] of list) push(i);
   }

@@ -21,7 +21,13 @@ describe("Coxeter numbers and exponents (Bourbaki, Lie Groups and Lie Algebras C
     expect(() => coxeterData("F4x")).toThrow(/not a Dynkin type/);
   });
   it("the exponents sum to (number of positive roots) = rank·h/2 (Bourbaki Ch. V §6.2): E8 120, E7 63, E6 36", () => {
-    for (const [t, roots] of [["E8", 120], ["E7", 63], ["E6", 36], ["D6", 30], ["A7", 28]] as const) {
+    for (const [t, roots] of [
+      ["E8", 120],
+      ["E7", 63],
+      ["E6", 36],
+      ["D6", 30],
+      ["A7", 28],
+    ] as const) {
       const d = coxeterData(t);
       expect(d.exponents.reduce((a, b) => a + b, 0)).toBe(roots);
       expect((d.rank * d.coxeterNumber) / 2).toBe(roots);
@@ -31,7 +37,14 @@ describe("Coxeter numbers and exponents (Bourbaki, Lie Groups and Lie Algebras C
 
 describe("exact eigenvalue claims", () => {
   it("the eigenvalues of E6, E7, E8 are 2cos(πm/h) over the exponents (Bourbaki Ch. V §6.2; Brouwer & Haemers §3.1.1)", () => {
-    for (const [g, t] of [[dynkinE(6), "E6"], [dynkinE(7), "E7"], [dynkinE(8), "E8"], [path(9), "A9"], [dynkinD(7), "D7"], [dynkinD(4), "D4"]] as const) {
+    for (const [g, t] of [
+      [dynkinE(6), "E6"],
+      [dynkinE(7), "E7"],
+      [dynkinE(8), "E8"],
+      [path(9), "A9"],
+      [dynkinD(7), "D7"],
+      [dynkinD(4), "D4"],
+    ] as const) {
       const v = dynkinEigenvalueClaim(g, t);
       expect(v.status, `${t}: ${v.reason}`).toBe("verified");
     }

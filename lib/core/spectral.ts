@@ -30,7 +30,8 @@ export interface CoxeterData {
 export function coxeterData(type: string): CoxeterData {
   const m = /^\s*([ADE])\s*_?\s*(\d+)\s*$/i.exec(type);
   if (!m) throw new GraphError(`"${type}" is not a Dynkin type; write e.g. A5, D6, E8`);
-  const family = m[1].toUpperCase(), n = Number(m[2]);
+  const family = m[1].toUpperCase(),
+    n = Number(m[2]);
   const name = `${family}${n}`;
   if (family === "A" && n >= 1) return { type: name, rank: n, coxeterNumber: n + 1, exponents: Array.from({ length: n }, (_, i) => i + 1) };
   if (family === "D" && n >= 4) {
@@ -115,25 +116,57 @@ export function eigenvalueClaim(g: Graph, h: number, multiset: readonly number[]
     const chi = characteristicPolynomial(g, budget);
     const high = (p: Poly) => [...p].reverse().map(String);
     if (multiset.length !== g.n)
-      return { status: "refuted", statement, method, reason: `the multiset has ${multiset.length} entries but G has ${g.n} eigenvalues`, certificate: { charpoly: high(chi) } };
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason: `the multiset has ${multiset.length} entries but G has ${g.n} eigenvalues`,
+        certificate: { charpoly: high(chi) },
+      };
     const prod = productOfTwoCos(h, multiset, budget);
     if (!prod)
-      return { status: "refuted", statement, method, reason: `∏(x − 2cos(πm/${h})) is not an integer polynomial (the multiset is not closed under Galois conjugation), so it cannot equal χ_G`, certificate: { charpoly: high(chi) } };
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason: `∏(x − 2cos(πm/${h})) is not an integer polynomial (the multiset is not closed under Galois conjugation), so it cannot equal χ_G`,
+        certificate: { charpoly: high(chi) },
+      };
     const certificate = { charpoly: high(chi), product: high(prod) };
     if (polyEquals(prod, chi))
-      return { status: "verified", statement, method, reason: `∏(x − 2cos(πm/${h})) = ${polyToString(chi)} = χ_G exactly, so the eigenvalues with multiplicity are as claimed.`, certificate };
+      return {
+        status: "verified",
+        statement,
+        method,
+        reason: `∏(x − 2cos(πm/${h})) = ${polyToString(chi)} = χ_G exactly, so the eigenvalues with multiplicity are as claimed.`,
+        certificate,
+      };
     const diff = polySub(prod, chi);
-    return { status: "refuted", statement, method, reason: `∏(x − 2cos(πm/${h})) = ${polyToString(prod)} differs from χ_G = ${polyToString(chi)} (first at x^${deg(diff)})`, certificate };
+    return {
+      status: "refuted",
+      statement,
+      method,
+      reason: `∏(x − 2cos(πm/${h})) = ${polyToString(prod)} differs from χ_G = ${polyToString(chi)} (first at x^${deg(diff)})`,
+      certificate,
+    };
   });
 }
 
 /** Re-check: recomputes both polynomials and compares them with the certificate's. */
-export function recheckEigenvalueClaim(g: Graph, h: number, multiset: readonly number[], outcome: "verified" | "refuted", certificate: unknown, budget: Budget = new Budget()): Verdict<undefined> {
+export function recheckEigenvalueClaim(
+  g: Graph,
+  h: number,
+  multiset: readonly number[],
+  outcome: "verified" | "refuted",
+  certificate: unknown,
+  budget: Budget = new Budget(),
+): Verdict<undefined> {
   return recheck(`eigenvalue claim is ${outcome}`, "certificate re-check", budget, () => {
     const c = expectRecord(certificate, "certificate");
     const fresh = eigenvalueClaim(g, h, multiset, budget);
     if (fresh.status === "undecided") throw new BudgetExceeded(budget.limit); // recheck() turns this into "undecided"
-    const same = (a: unknown, b: string[] | undefined) => (a === undefined && b === undefined) || (Array.isArray(a) && b !== undefined && a.length === b.length && a.every((x, i) => x === b[i]));
+    const same = (a: unknown, b: string[] | undefined) =>
+      (a === undefined && b === undefined) || (Array.isArray(a) && b !== undefined && a.length === b.length && a.every((x, i) => x === b[i]));
     if (!same(c.charpoly, fresh.certificate!.charpoly)) reject("certificate.charpoly is not the characteristic polynomial of G");
     if (!same(c.product, fresh.certificate!.product)) reject("certificate.product is not the product of the claimed factors");
     if (fresh.status !== outcome) reject(`the claim is ${fresh.status}, not ${outcome}`);
@@ -166,7 +199,8 @@ export interface QuantumInteger {
 export function quantumInteger(n: number, h: number): QuantumInteger {
   if (!Number.isSafeInteger(n) || n < 0 || n > 100_000) throw new GraphError(`n must be an integer in 0..100000, got ${n}`);
   if (!Number.isSafeInteger(h) || h < 2 || h > 10_000) throw new GraphError(`h must be an integer in 2..10000, got ${h}`);
-  let prev: Poly = [], cur: Poly = [1n]; // S_0 = 0, S_1 = 1, S_{k+1} = x S_k − S_{k−1}
+  let prev: Poly = [],
+    cur: Poly = [1n]; // S_0 = 0, S_1 = 1, S_{k+1} = x S_k − S_{k−1}
   if (n === 0) cur = [];
   for (let k = 1; k < n; k++) [prev, cur] = [cur, polySub(polyMul([0n, 1n], cur), prev)];
   const psi = minimalPolynomial2Cos(2 * h); // 2cos(π/h) = 2cos(2π/(2h))

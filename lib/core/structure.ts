@@ -15,13 +15,25 @@ import { Budget, withinBudget, type Verdict } from "./verdict";
 import { edgeTotal, expectIntArray, expectRecord, multiplicity, recheck, reject, expectDistinct } from "./certificate-check";
 
 /** A spanning forest: parent[v] is v's parent, −1 at a root. One root means a spanning tree. */
-export interface ForestCertificate { kind: "forest"; parent: number[] }
+export interface ForestCertificate {
+  kind: "forest";
+  parent: number[];
+}
 /** A component label per vertex; no edge joins two labels. */
-export interface ComponentsCertificate { kind: "components"; component: number[] }
+export interface ComponentsCertificate {
+  kind: "components";
+  component: number[];
+}
 /** A cycle v0 v1 … v(k−1) (closed back to v0); length 1 is a loop, length 2 a multiple edge. */
-export interface CycleCertificate { kind: "cycle"; cycle: number[] }
+export interface CycleCertificate {
+  kind: "cycle";
+  cycle: number[];
+}
 /** A proper 2-colouring, 0/1 per vertex. */
-export interface ColouringCertificate { kind: "colouring"; colour: number[] }
+export interface ColouringCertificate {
+  kind: "colouring";
+  colour: number[];
+}
 
 export type ConnectivityCertificate = ForestCertificate | ComponentsCertificate;
 export type TreeCertificate = ForestCertificate | ComponentsCertificate | CycleCertificate;
@@ -44,18 +56,25 @@ export function sweep(g: Graph, budget: Budget, first = 0): Sweep {
   const depth = new Int32Array(g.n).fill(-1);
   const component = new Int32Array(g.n).fill(-1);
   const order = new Int32Array(g.n);
-  let tail = 0, componentCount = 0;
+  let tail = 0,
+    componentCount = 0;
   for (let i = -1; i < g.n; i++) {
     const s = i < 0 ? first : i;
     if (s >= g.n || depth[s] >= 0) continue;
-    depth[s] = 0; component[s] = componentCount;
+    depth[s] = 0;
+    component[s] = componentCount;
     order[tail++] = s;
     for (let head = tail - 1; head < tail; head++) {
       const x = order[head];
       budget.tick(1 + a.start[x + 1] - a.start[x]);
       for (let p = a.start[x]; p < a.start[x + 1]; p++) {
         const y = a.nbr[p];
-        if (depth[y] < 0) { depth[y] = depth[x] + 1; parent[y] = x; component[y] = componentCount; order[tail++] = y; }
+        if (depth[y] < 0) {
+          depth[y] = depth[x] + 1;
+          parent[y] = x;
+          component[y] = componentCount;
+          order[tail++] = y;
+        }
       }
     }
     componentCount++;
@@ -65,11 +84,24 @@ export function sweep(g: Graph, budget: Budget, first = 0): Sweep {
 
 /** The path x → … → lca ← … ← y in a BFS forest (x, y in one component); with a non-tree edge (x, y) it is a cycle. */
 export function treePath(s: Sweep, x: number, y: number): number[] {
-  const left: number[] = [], right: number[] = [];
-  let p = x, q = y;
-  while (s.depth[p] > s.depth[q]) { left.push(p); p = s.parent[p]; }
-  while (s.depth[q] > s.depth[p]) { right.push(q); q = s.parent[q]; }
-  while (p !== q) { left.push(p); right.push(q); p = s.parent[p]; q = s.parent[q]; }
+  const left: number[] = [],
+    right: number[] = [];
+  let p = x,
+    q = y;
+  while (s.depth[p] > s.depth[q]) {
+    left.push(p);
+    p = s.parent[p];
+  }
+  while (s.depth[q] > s.depth[p]) {
+    right.push(q);
+    q = s.parent[q];
+  }
+  while (p !== q) {
+    left.push(p);
+    right.push(q);
+    p = s.parent[p];
+    q = s.parent[q];
+  }
   return [...left, p, ...right.reverse()];
 }
 
@@ -91,14 +123,21 @@ const forestOf = (s: Sweep): ForestCertificate => ({ kind: "forest", parent: Arr
 const componentsOf = (s: Sweep): ComponentsCertificate => ({ kind: "components", component: Array.from(s.component) });
 
 export function isConnected(g: Graph, budget = new Budget()): Verdict<ConnectivityCertificate> {
-  const statement = "G is connected", method = "breadth-first search";
+  const statement = "G is connected",
+    method = "breadth-first search";
   return withinBudget<ConnectivityCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
     if (s.componentCount === 1)
       return { status: "verified", statement, method, reason: `a spanning tree rooted at ${s.order[0]} reaches all ${g.n} vertices`, certificate: forestOf(s) };
     return {
-      status: "refuted", statement, method, certificate: componentsOf(s),
-      reason: g.n === 0 ? "the null graph has no vertices (not connected by convention)" : `G has ${s.componentCount} components; vertex ${firstOutside(s)} is not reached from vertex 0`,
+      status: "refuted",
+      statement,
+      method,
+      certificate: componentsOf(s),
+      reason:
+        g.n === 0
+          ? "the null graph has no vertices (not connected by convention)"
+          : `G has ${s.componentCount} components; vertex ${firstOutside(s)} is not reached from vertex 0`,
     };
   });
 }
@@ -108,37 +147,65 @@ function firstOutside(s: Sweep): number {
 }
 
 export function isBipartite(g: Graph, budget = new Budget()): Verdict<BipartiteCertificate> {
-  const statement = "G is bipartite", method = "breadth-first 2-colouring by depth parity";
+  const statement = "G is bipartite",
+    method = "breadth-first 2-colouring by depth parity";
   return withinBudget<BipartiteCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
     for (const e of g.edges) {
       budget.tick();
-      if (e.u === e.v) return { status: "refuted", statement, method, reason: `the loop at ${e.u} is an odd cycle`, certificate: { kind: "cycle", cycle: [e.u] } };
+      if (e.u === e.v)
+        return { status: "refuted", statement, method, reason: `the loop at ${e.u} is an odd cycle`, certificate: { kind: "cycle", cycle: [e.u] } };
       if ((s.depth[e.u] & 1) === (s.depth[e.v] & 1)) {
         const cycle = treePath(s, e.u, e.v);
-        return { status: "refuted", statement, method, reason: `the edge ${e.u}–${e.v} joins two vertices of equal depth parity, closing the odd cycle ${cycle.join("–")}`, certificate: { kind: "cycle", cycle } };
+        return {
+          status: "refuted",
+          statement,
+          method,
+          reason: `the edge ${e.u}–${e.v} joins two vertices of equal depth parity, closing the odd cycle ${cycle.join("–")}`,
+          certificate: { kind: "cycle", cycle },
+        };
       }
     }
-    return { status: "verified", statement, method, reason: "colouring each vertex by the parity of its BFS depth makes every edge bichromatic", certificate: { kind: "colouring", colour: Array.from(s.depth, (d) => d & 1) } };
+    return {
+      status: "verified",
+      statement,
+      method,
+      reason: "colouring each vertex by the parity of its BFS depth makes every edge bichromatic",
+      certificate: { kind: "colouring", colour: Array.from(s.depth, (d) => d & 1) },
+    };
   });
 }
 
 export function isForest(g: Graph, budget = new Budget()): Verdict<ForestCertificate | CycleCertificate> {
-  const statement = "G is a forest (contains no cycle)", method = "breadth-first search";
+  const statement = "G is a forest (contains no cycle)",
+    method = "breadth-first search";
   return withinBudget<ForestCertificate | CycleCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
     const cycle = findCycle(g, s, budget);
     if (cycle) return { status: "refuted", statement, method, reason: describeCycle(cycle), certificate: { kind: "cycle", cycle } };
-    return { status: "verified", statement, method, reason: `a BFS spanning forest with ${s.componentCount} roots uses all ${edgeTotal(g)} = n − ${s.componentCount} edges`, certificate: forestOf(s) };
+    return {
+      status: "verified",
+      statement,
+      method,
+      reason: `a BFS spanning forest with ${s.componentCount} roots uses all ${edgeTotal(g)} = n − ${s.componentCount} edges`,
+      certificate: forestOf(s),
+    };
   });
 }
 
 export function isTree(g: Graph, budget = new Budget()): Verdict<TreeCertificate> {
-  const statement = "G is a tree", method = "breadth-first search";
+  const statement = "G is a tree",
+    method = "breadth-first search";
   return withinBudget<TreeCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
     if (s.componentCount !== 1)
-      return { status: "refuted", statement, method, reason: g.n === 0 ? "the null graph is not a tree" : `G is not connected (${s.componentCount} components)`, certificate: componentsOf(s) };
+      return {
+        status: "refuted",
+        statement,
+        method,
+        reason: g.n === 0 ? "the null graph is not a tree" : `G is not connected (${s.componentCount} components)`,
+        certificate: componentsOf(s),
+      };
     const cycle = findCycle(g, s, budget);
     if (cycle) return { status: "refuted", statement, method, reason: describeCycle(cycle), certificate: { kind: "cycle", cycle } };
     return { status: "verified", statement, method, reason: `a spanning tree exists and G has exactly n − 1 = ${g.n - 1} edges`, certificate: forestOf(s) };
@@ -172,7 +239,8 @@ export function checkCycle(g: Graph, value: unknown, budget: Budget, odd = false
   if (k >= 3)
     for (let i = 0; i < k; i++) {
       budget.tick();
-      const x = cycle[i], y = cycle[(i + 1) % k];
+      const x = cycle[i],
+        y = cycle[(i + 1) % k];
       if (multiplicity(g, x, y) < 1) reject(`${x}–${y} is not an edge`);
     }
   return k;
@@ -184,13 +252,21 @@ export function checkForest(g: Graph, value: unknown, budget: Budget): number {
   const state = new Uint8Array(g.n); // 0 new, 1 on the current parent chain, 2 known to reach a root
   let roots = 0;
   for (let v = 0; v < g.n; v++) {
-    if (parent[v] === -1) { roots++; continue; }
+    if (parent[v] === -1) {
+      roots++;
+      continue;
+    }
     if (parent[v] === v || multiplicity(g, v, parent[v]) < 1) reject(`parent[${v}] = ${parent[v]} is not a neighbour of ${v}`);
   }
   const chain: number[] = [];
   for (let v = 0; v < g.n; v++) {
     let x = v;
-    while (x !== -1 && state[x] === 0) { budget.tick(); state[x] = 1; chain.push(x); x = parent[x]; }
+    while (x !== -1 && state[x] === 0) {
+      budget.tick();
+      state[x] = 1;
+      chain.push(x);
+      x = parent[x];
+    }
     if (x !== -1 && state[x] === 1) reject(`following parents from ${v} returns to ${x} without reaching a root`);
     for (const y of chain) state[y] = 2;
     chain.length = 0;
@@ -263,7 +339,8 @@ export function recheckTree(g: Graph, certificate: unknown, tree = true, budget 
     const roots = checkForest(g, c.parent, budget);
     if (tree && roots !== 1) reject(`the forest has ${roots} roots, not one`);
     const total = edgeTotal(g);
-    if (total !== g.n - roots) reject(`G has ${total} edges (loops and multiplicities counted), but a forest with ${roots} roots on ${g.n} vertices has ${g.n - roots}`);
+    if (total !== g.n - roots)
+      reject(`G has ${total} edges (loops and multiplicities counted), but a forest with ${roots} roots on ${g.n} vertices has ${g.n - roots}`);
     return `a spanning forest with ${roots} root${roots === 1 ? "" : "s"} and G has exactly n − ${roots} edges, so G is that forest`;
   });
 }
@@ -273,4 +350,3 @@ export function recheckContainsCycle(g: Graph, certificate: unknown, budget = ne
   const v = recheckTree(g, certificate, false, budget);
   return { ...v, statement: v.statement.replace("G is not a forest", "G contains a cycle").replace("G is a forest", "G contains no cycle") };
 }
-

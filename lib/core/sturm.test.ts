@@ -42,7 +42,8 @@ describe("Sturm sequences count distinct real roots", () => {
     expect(rootsBetween(seq, rat(205, 100), rat(206, 100))).toBe(1); // sqrt(2 + sqrt 5) = 2.0582...
   });
   it("Chebyshev U_7(x/2) (the characteristic polynomial of P_7) has 7 roots 2cos(pi j/8) in (-2, 2) (Brouwer & Haemers §1.4.4)", () => {
-    let a: Poly = [1n], b: Poly = [0n, 1n];
+    let a: Poly = [1n],
+      b: Poly = [0n, 1n];
     for (let k = 2; k <= 7; k++) [a, b] = [b, [0n, ...b].map((c, i) => c - (a[i] ?? 0n))];
     const seq = sturmSequence(b);
     expect(rootsBetween(seq, rat(-2), rat(2))).toBe(7);
@@ -50,13 +51,17 @@ describe("Sturm sequences count distinct real roots", () => {
   });
   it("random products of (x - r)^k and (a x^2 + 1) factors: counts equal the number of distinct integer roots in the interval (common practice)", () => {
     let seed = 12345;
-    const next = (m: number) => { seed = (Math.imul(1664525, seed) + 1013904223) >>> 0; return Math.floor((seed / 2 ** 32) * m); };
+    const next = (m: number) => {
+      seed = (Math.imul(1664525, seed) + 1013904223) >>> 0;
+      return Math.floor((seed / 2 ** 32) * m);
+    };
     for (let t = 0; t < 60; t++) {
       const roots = Array.from({ length: 1 + next(7) }, () => BigInt(next(21) - 10));
       let p: Poly = [BigInt(1 + next(3))];
       for (const r of roots) for (let k = 0; k <= next(3); k++) p = polyMul(p, linear(r));
       if (next(2)) p = polyMul(p, [1n, 0n, BigInt(1 + next(5))]); // no real roots
-      const lo = next(25) - 12, hi = lo + 1 + next(15);
+      const lo = next(25) - 12,
+        hi = lo + 1 + next(15);
       const seq = sturmSequence(p);
       const expected = new Set(roots.filter((r) => r > BigInt(lo) && r < BigInt(hi)).map(String)).size;
       if (roots.some((r) => r === BigInt(lo) || r === BigInt(hi))) continue;

@@ -57,14 +57,16 @@ export function derivative(p: Poly): Poly {
 }
 
 export function polyEquals(a: Poly, b: Poly): boolean {
-  const x = trim(a), y = trim(b);
+  const x = trim(a),
+    y = trim(b);
   return x.length === y.length && x.every((c, i) => c === y[i]);
 }
 
 /** Sign of p(u/v), v > 0, by homogeneous Horner: sign(sum c_i u^i v^(d-i)) = sign(p(u/v)). */
 export function signAt(p: Poly, x: Rational): -1 | 0 | 1 {
   if (p.length === 0) return 0;
-  let acc = 0n, vPow = 1n;
+  let acc = 0n,
+    vPow = 1n;
   for (let i = p.length - 1; i >= 0; i--) {
     acc = acc * x.num + p[i] * vPow;
     vPow *= x.den;
@@ -81,7 +83,10 @@ export function signAtInfinity(p: Poly, dir: 1 | -1): -1 | 0 | 1 {
 
 export function content(p: Poly): bigint {
   let g = 0n;
-  for (const c of p) { g = gcd(g, c); if (g === 1n) break; }
+  for (const c of p) {
+    g = gcd(g, c);
+    if (g === 1n) break;
+  }
   return g;
 }
 
@@ -96,7 +101,8 @@ export function primitive(p: Poly): Poly {
  * subresultant formulas below depend on it).
  */
 export function prem(a: Poly, b: Poly, budget?: Budget): Poly {
-  const db = deg(b), lb = lead(b);
+  const db = deg(b),
+    lb = lead(b);
   if (db < 0) throw new RangeError("polynomial division by zero");
   const r = trim(a).slice();
   for (let k = r.length - 1; k >= db; k--) {
@@ -125,11 +131,15 @@ export function subresultantPRS(a: Poly, b: Poly, budget?: Budget): { rs: Poly[]
   const rs: Poly[] = [trim(a), trim(b)];
   const signs = [1, 1];
   if (rs[1].length === 0) return { rs: [rs[0]], signs: [1] };
-  let psi = -1n, beta = 0n, dPrev = 0;
+  let psi = -1n,
+    beta = 0n,
+    dPrev = 0;
   for (let i = 1; ; i++) {
-    const r0 = rs[i - 1], r1 = rs[i];
+    const r0 = rs[i - 1],
+      r1 = rs[i];
     const d = deg(r0) - deg(r1);
-    if (i === 1) beta = d % 2 === 0 ? -1n : 1n; // (-1)^(d+1)
+    if (i === 1)
+      beta = d % 2 === 0 ? -1n : 1n; // (-1)^(d+1)
     else {
       // psi_i = (-a_{i-1})^(d_{i-1}) / psi_{i-1}^(d_{i-1} - 1); beta_i = -a_{i-1} psi_i^(d_i)
       const aPrev = lead(r0);
@@ -153,7 +163,8 @@ export function subresultantPRS(a: Poly, b: Poly, budget?: Budget): { rs: Poly[]
 
 /** Greatest common divisor over Q, returned primitive with positive leading coefficient. */
 export function polyGcd(a: Poly, b: Poly, budget?: Budget): Poly {
-  let x = primitive(trim(a)), y = primitive(trim(b));
+  let x = primitive(trim(a)),
+    y = primitive(trim(b));
   if (x.length === 0) [x, y] = [y, x];
   if (x.length === 0) return [];
   if (y.length === 0) return lead(x) < 0n ? x.map((c) => -c) : x;
@@ -166,10 +177,12 @@ export function polyGcd(a: Poly, b: Poly, budget?: Budget): Poly {
 /** a / b when b divides a over Q (both integer, b primitive): the quotient is integral (Gauss's lemma). */
 export function exactQuotient(a: Poly, b: Poly): Poly {
   let r = a.slice();
-  const db = deg(b), lb = lead(b);
+  const db = deg(b),
+    lb = lead(b);
   const q: Poly = new Array(Math.max(0, r.length - db)).fill(0n);
   while (r.length > 0 && deg(r) >= db) {
-    const lr = lead(r), shift = deg(r) - db;
+    const lr = lead(r),
+      shift = deg(r) - db;
     if (lr % lb !== 0n) throw new RangeError("exactQuotient: divisor does not divide exactly");
     const c = lr / lb;
     q[shift] = c;
@@ -202,7 +215,8 @@ export function sturmSequence(p: Poly, budget?: Budget): Poly[] {
 }
 
 function variations(signs: number[]): number {
-  let count = 0, last = 0;
+  let count = 0,
+    last = 0;
   for (const s of signs) {
     if (s === 0) continue;
     if (last !== 0 && s !== last) count++;
@@ -223,8 +237,7 @@ export function signVariations(seq: Poly[], x: Rational | "+inf" | "-inf"): numb
  * not be roots (checked: a RangeError names the offending endpoint).
  */
 export function rootsBetween(seq: Poly[], lo: Rational | "-inf", hi: Rational | "+inf"): number {
-  for (const e of [lo, hi])
-    if (typeof e !== "string" && signAt(seq[0], e) === 0) throw new RangeError(`Sturm count: endpoint ${e.num}/${e.den} is a root`);
+  for (const e of [lo, hi]) if (typeof e !== "string" && signAt(seq[0], e) === 0) throw new RangeError(`Sturm count: endpoint ${e.num}/${e.den} is a root`);
   return signVariations(seq, lo) - signVariations(seq, hi);
 }
 

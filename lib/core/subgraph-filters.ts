@@ -53,13 +53,16 @@ function degreeArray(g: Graph, members?: Int32Array): number[] {
  * value, which a loop weight of 10⁸ or 2⁵³ would make huge.
  */
 function countDominance(pattern: number[], host: number[]): { threshold: number; inPattern: number; inHost: number } | null {
-  const p = Float64Array.from(pattern).sort(), h = Float64Array.from(host).sort(); // ascending; read from the end
-  let i = p.length - 1, j = h.length - 1;
+  const p = Float64Array.from(pattern).sort(),
+    h = Float64Array.from(host).sort(); // ascending; read from the end
+  let i = p.length - 1,
+    j = h.length - 1;
   while (i >= 0 && p[i] >= 1) {
     const t = p[i];
     while (i >= 0 && p[i] === t) i--;
     while (j >= 0 && h[j] >= t) j--;
-    const inPattern = p.length - 1 - i, inHost = h.length - 1 - j;
+    const inPattern = p.length - 1 - i,
+      inHost = h.length - 1 - j;
     if (inPattern > inHost) return { threshold: t, inPattern, inHost };
   }
   return null;
@@ -103,7 +106,10 @@ export function isBipartiteGraph(g: Graph, s: Sweep): boolean {
 }
 
 /** A spider: a tree with ≤ 1 vertex of degree ≥ 3, as a centre and legs (vertex paths leaving it). */
-export interface Spider { centre: number; legs: number[][] }
+export interface Spider {
+  centre: number;
+  legs: number[][];
+}
 
 /** Reads H as a spider (centre = its branch vertex, else an end of the path), or null. */
 export function asSpider(h: Graph, budget: Budget): Spider | null {
@@ -113,7 +119,13 @@ export function asSpider(h: Graph, budget: Budget): Spider | null {
   const deg = degreeArray(h);
   const branch = deg.flatMap((d, v) => (d >= 3 ? [v] : []));
   if (branch.length > 1) return null;
-  const centre = branch.length === 1 ? branch[0] : Math.max(0, deg.findIndex((d) => d <= 1));
+  const centre =
+    branch.length === 1
+      ? branch[0]
+      : Math.max(
+          0,
+          deg.findIndex((d) => d <= 1),
+        );
   return { centre, legs: legsAt(h, centre, budget) };
 }
 
@@ -125,20 +137,28 @@ export function embedSpiderInForest(spider: Spider, hOrder: number, g: Graph, s:
   const a = adjacency(g);
   const n = g.n;
   // down[v]: longest downward path from v (edges) in the BFS forest; up[v]: longest path from v whose first edge goes to its parent.
-  const down = new Int32Array(n), up = new Int32Array(n);
-  const best1 = new Int32Array(n), best2 = new Int32Array(n), bestChild = new Int32Array(n).fill(-1);
+  const down = new Int32Array(n),
+    up = new Int32Array(n);
+  const best1 = new Int32Array(n),
+    best2 = new Int32Array(n),
+    bestChild = new Int32Array(n).fill(-1);
   for (let i = n - 1; i >= 0; i--) {
     budget.tick();
-    const v = s.order[i], p = s.parent[v];
+    const v = s.order[i],
+      p = s.parent[v];
     down[v] = best1[v];
     if (p >= 0) {
       const arm = 1 + down[v];
-      if (arm > best1[p]) { best2[p] = best1[p]; best1[p] = arm; bestChild[p] = v; }
-      else if (arm > best2[p]) best2[p] = arm;
+      if (arm > best1[p]) {
+        best2[p] = best1[p];
+        best1[p] = arm;
+        bestChild[p] = v;
+      } else if (arm > best2[p]) best2[p] = arm;
     }
   }
   for (let i = 0; i < n; i++) {
-    const v = s.order[i], p = s.parent[v];
+    const v = s.order[i],
+      p = s.parent[v];
     if (p < 0) continue;
     const sibling = bestChild[p] === v ? best2[p] : best1[p];
     up[v] = 1 + Math.max(s.parent[p] >= 0 ? up[p] : 0, sibling);
@@ -157,15 +177,21 @@ export function embedSpiderInForest(spider: Spider, hOrder: number, g: Graph, s:
     phi[spider.centre] = x;
     legs.forEach((leg, i) => {
       // Walk out along the longest continuation; the arm length guarantees the walk lasts.
-      let previous = x, current = arms[i].y;
+      let previous = x,
+        current = arms[i].y;
       for (const hv of spider.legs[leg.i]) {
         phi[hv] = current;
-        let nextVertex = -1, nextLength = -1;
+        let nextVertex = -1,
+          nextLength = -1;
         for (let p = a.start[current]; p < a.start[current + 1]; p++) {
           const y = a.nbr[p];
-          if (y !== previous && arm(current, y) > nextLength) { nextVertex = y; nextLength = arm(current, y); }
+          if (y !== previous && arm(current, y) > nextLength) {
+            nextVertex = y;
+            nextLength = arm(current, y);
+          }
         }
-        previous = current; current = nextVertex;
+        previous = current;
+        current = nextVertex;
       }
     });
     return phi;

@@ -12,20 +12,34 @@ import type { Budget } from "./verdict";
 import { multiplicity } from "./certificate-check";
 
 /** Exhaustive backtracking search (VF2-like); returns an embedding or null, and the nodes visited. */
-export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Budget, roots?: Int32Array): { embedding: number[] | null; nodesVisited: number } {
-  const ha = adjacency(h), ga = adjacency(g);
+export function searchEmbedding(
+  h: Graph,
+  g: Graph,
+  induced: boolean,
+  budget: Budget,
+  roots?: Int32Array,
+): { embedding: number[] | null; nodesVisited: number } {
+  const ha = adjacency(h),
+    ga = adjacency(g);
   const hDeg = (u: number) => ha.start[u + 1] - ha.start[u];
   // Breadth-first order of H, component by component, each started at a vertex of largest degree.
-  const order: number[] = [], anchor = new Int32Array(h.n).fill(-1), position = new Int32Array(h.n).fill(-1);
+  const order: number[] = [],
+    anchor = new Int32Array(h.n).fill(-1),
+    position = new Int32Array(h.n).fill(-1);
   const byDegree = Array.from({ length: h.n }, (_, i) => i).sort((a, b) => hDeg(b) - hDeg(a) || a - b);
   for (const s of byDegree) {
     if (position[s] >= 0) continue;
-    position[s] = order.length; order.push(s);
+    position[s] = order.length;
+    order.push(s);
     for (let head = position[s]; head < order.length; head++) {
       const x = order[head];
       for (let p = ha.start[x]; p < ha.start[x + 1]; p++) {
         const y = ha.nbr[p];
-        if (position[y] < 0) { position[y] = order.length; order.push(y); anchor[y] = x; }
+        if (position[y] < 0) {
+          position[y] = order.length;
+          order.push(y);
+          anchor[y] = x;
+        }
       }
     }
   }
@@ -60,7 +74,10 @@ export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Bu
   while (level >= 0) {
     if (level === h.n) return { embedding: phi, nodesVisited };
     const u = order[level];
-    if (phi[u] >= 0) { used[phi[u]] = 0; phi[u] = -1; }
+    if (phi[u] >= 0) {
+      used[phi[u]] = 0;
+      phi[u] = -1;
+    }
     const a = anchor[u];
     let found = -1;
     if (a < 0) {
@@ -74,7 +91,8 @@ export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Bu
       }
     } else {
       const base = phi[a];
-      const begin = ga.start[base], end = ga.start[base + 1];
+      const begin = ga.start[base],
+        end = ga.start[base + 1];
       while (begin + cursor[level] < end && found < 0) {
         budget.tick();
         const x = ga.nbr[begin + cursor[level]];
@@ -83,7 +101,9 @@ export function searchEmbedding(h: Graph, g: Graph, induced: boolean, budget: Bu
       }
     }
     if (found >= 0) {
-      phi[u] = found; used[found] = 1; nodesVisited++;
+      phi[u] = found;
+      used[found] = 1;
+      nodesVisited++;
       level++;
       if (level < h.n) cursor[level] = 0;
     } else {

@@ -130,7 +130,8 @@ describe("search agrees with brute force (property)", () => {
       if (u === h.n) return checkEmbedding(h, g, phi, induced) === null;
       for (let x = 0; x < g.n; x++) {
         if (used.has(x)) continue;
-        phi[u] = x; used.add(x);
+        phi[u] = x;
+        used.add(x);
         if (extend(u + 1)) return true;
         used.delete(x);
       }
@@ -138,25 +139,46 @@ describe("search agrees with brute force (property)", () => {
     };
     return extend(0);
   }
-  const small = (maxN: number) => fc.integer({ min: 1, max: maxN }).chain((n) =>
-    fc.array(fc.record({ u: fc.integer({ min: 0, max: n - 1 }), v: fc.integer({ min: 0, max: n - 1 }), m: fc.integer({ min: 1, max: 2 }) }), { maxLength: 9 })
-      .map((edges) => buildGraph(n, edges.filter((e) => e.u !== e.v || e.m === 1))));
+  const small = (maxN: number) =>
+    fc.integer({ min: 1, max: maxN }).chain((n) =>
+      fc
+        .array(fc.record({ u: fc.integer({ min: 0, max: n - 1 }), v: fc.integer({ min: 0, max: n - 1 }), m: fc.integer({ min: 1, max: 2 }) }), { maxLength: 9 })
+        .map((edges) =>
+          buildGraph(
+            n,
+            edges.filter((e) => e.u !== e.v || e.m === 1),
+          ),
+        ),
+    );
 
   it("for subgraphs and induced subgraphs of small multigraphs with loops", () => {
-    fc.assert(fc.property(small(4), small(6), fc.boolean(), (h, g, induced) => {
-      const v = findSubgraph(h, g, { induced });
-      expect(v.status).toBe(bruteForce(h, g, induced) ? "verified" : "refuted");
-      expect(recheckSubgraph(h, g, v.certificate, induced).status).toBe("verified");
-    }), { numRuns: 400 });
+    fc.assert(
+      fc.property(small(4), small(6), fc.boolean(), (h, g, induced) => {
+        const v = findSubgraph(h, g, { induced });
+        expect(v.status).toBe(bruteForce(h, g, induced) ? "verified" : "refuted");
+        expect(recheckSubgraph(h, g, v.certificate, induced).status).toBe("verified");
+      }),
+      { numRuns: 400 },
+    );
   });
 
   it("for trees inside forests, where the spider arm test decides", () => {
-    const tree = (maxN: number) => fc.integer({ min: 1, max: maxN }).chain((n) =>
-      fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) => buildGraph(n, parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })))));
-    fc.assert(fc.property(tree(6), tree(9), (h, g) => {
-      const v = findSubgraph(h, g);
-      expect(v.status).toBe(bruteForce(h, g, false) ? "verified" : "refuted");
-    }), { numRuns: 300 });
+    const tree = (maxN: number) =>
+      fc.integer({ min: 1, max: maxN }).chain((n) =>
+        fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) =>
+          buildGraph(
+            n,
+            parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })),
+          ),
+        ),
+      );
+    fc.assert(
+      fc.property(tree(6), tree(9), (h, g) => {
+        const v = findSubgraph(h, g);
+        expect(v.status).toBe(bruteForce(h, g, false) ? "verified" : "refuted");
+      }),
+      { numRuns: 300 },
+    );
   });
 
   it("handles a pattern with 2·10⁵ vertices", () => {
@@ -170,10 +192,11 @@ describe("odd cycles and bipartite hosts", () => {
     // Grid graphs are bipartite (colour by i + j parity; common practice), and C5 is an odd cycle.
     const lines: string[] = [];
     const id = (i: number, j: number) => i * 40 + j;
-    for (let i = 0; i < 40; i++) for (let j = 0; j < 40; j++) {
-      if (i + 1 < 40) lines.push(`${id(i, j)} ${id(i + 1, j)}`);
-      if (j + 1 < 40) lines.push(`${id(i, j)} ${id(i, j + 1)}`);
-    }
+    for (let i = 0; i < 40; i++)
+      for (let j = 0; j < 40; j++) {
+        if (i + 1 < 40) lines.push(`${id(i, j)} ${id(i + 1, j)}`);
+        if (j + 1 < 40) lines.push(`${id(i, j)} ${id(i, j + 1)}`);
+      }
     const grid = parseGraph(lines.join("\n"));
     const v = findSubgraph(cycle(5), grid);
     expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "odd-cycle-in-bipartite" } });
@@ -183,41 +206,58 @@ describe("odd cycles and bipartite hosts", () => {
 });
 
 describe("tree dynamic programme (Matula 1978) against brute force", () => {
-  const tree = (minN: number, maxN: number) => fc.integer({ min: minN, max: maxN }).chain((n) =>
-    fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) => buildGraph(n, parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })))));
+  const tree = (minN: number, maxN: number) =>
+    fc.integer({ min: minN, max: maxN }).chain((n) =>
+      fc.array(fc.nat(), { minLength: n - 1, maxLength: n - 1 }).map((parents) =>
+        buildGraph(
+          n,
+          parents.map((p, i) => ({ u: p % (i + 1), v: i + 1 })),
+        ),
+      ),
+    );
   const forest = fc.tuple(tree(1, 6), tree(1, 5)).map(([a, b]) => disjointUnion(a, b));
 
   it("decides every small tree in every small forest, with a valid embedding", () => {
-    fc.assert(fc.property(tree(1, 6), forest, (h, g) => {
-      const budget = new Budget();
-      const phi = embedTreeInForest(h, g, sweep(g, budget), budget);
-      // Brute force over injections, checking each H-edge to an earlier vertex as soon as both ends are placed.
-      const brute = (() => {
-        const perm: number[] = [], used = new Set<number>();
-        const adjacent = (a: number, b: number) => g.edges.some((e) => (e.u === a && e.v === b) || (e.u === b && e.v === a));
-        const extend = (u: number): boolean => {
-          if (u === h.n) return true;
-          for (let x = 0; x < g.n; x++) {
-            if (used.has(x)) continue;
-            if (!h.edges.every((e) => (e.v !== u || e.u >= u ? true : adjacent(perm[e.u], x)))) continue;
-            perm[u] = x; used.add(x);
-            if (extend(u + 1)) return true;
-            used.delete(x);
-          }
-          return false;
-        };
-        return extend(0);
-      })();
-      expect(phi !== null).toBe(brute);
-      if (Array.isArray(phi)) expect(checkEmbedding(h, g, phi)).toBeNull();
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(tree(1, 6), forest, (h, g) => {
+        const budget = new Budget();
+        const phi = embedTreeInForest(h, g, sweep(g, budget), budget);
+        // Brute force over injections, checking each H-edge to an earlier vertex as soon as both ends are placed.
+        const brute = (() => {
+          const perm: number[] = [],
+            used = new Set<number>();
+          const adjacent = (a: number, b: number) => g.edges.some((e) => (e.u === a && e.v === b) || (e.u === b && e.v === a));
+          const extend = (u: number): boolean => {
+            if (u === h.n) return true;
+            for (let x = 0; x < g.n; x++) {
+              if (used.has(x)) continue;
+              if (!h.edges.every((e) => (e.v !== u || e.u >= u ? true : adjacent(perm[e.u], x)))) continue;
+              perm[u] = x;
+              used.add(x);
+              if (extend(u + 1)) return true;
+              used.delete(x);
+            }
+            return false;
+          };
+          return extend(0);
+        })();
+        expect(phi !== null).toBe(brute);
+        if (Array.isArray(phi)) expect(checkEmbedding(h, g, phi)).toBeNull();
+      }),
+      { numRuns: 300 },
+    );
   });
 
   it("decides D̃ patterns the search cannot finish: D̃8 is absent from a star of forks", () => {
     // Centre with 1000 legs a–b, a–c: every two branch vertices are at distance ≤ 2, D̃8 needs distance 4.
     const edges: Array<{ u: number; v: number }> = [];
     let n = 1;
-    for (let i = 0; i < 1000; i++) { const a = n++, b = n++, c = n++; edges.push({ u: 0, v: a }, { u: a, v: b }, { u: a, v: c }); }
+    for (let i = 0; i < 1000; i++) {
+      const a = n++,
+        b = n++,
+        c = n++;
+      edges.push({ u: 0, v: a }, { u: a, v: b }, { u: a, v: c });
+    }
     const g = buildGraph(n, edges);
     const v = findSubgraph(affineD(8), g);
     expect(v.certificate).toEqual({ kind: "absence", argument: { kind: "tree-dp" } });

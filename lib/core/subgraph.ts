@@ -23,15 +23,19 @@ import { expectIntArray, expectRecord, multiplicity, recheck, reject, Certificat
 import { sweep } from "./structure";
 import { embedTreeInForest } from "./tree-embedding";
 import { searchEmbedding } from "./subgraph-search";
-import {
-  asSpider, componentMembers, countingArgument, embedSpiderInForest, isBipartiteGraph, isForestGraph, type AbsenceArgument,
-} from "./subgraph-filters";
+import { asSpider, componentMembers, countingArgument, embedSpiderInForest, isBipartiteGraph, isForestGraph, type AbsenceArgument } from "./subgraph-filters";
 
 export { searchEmbedding } from "./subgraph-search";
 export type { AbsenceArgument } from "./subgraph-filters";
 
-export interface EmbeddingCertificate { kind: "embedding"; embedding: number[] }
-export interface AbsenceCertificate { kind: "absence"; argument: AbsenceArgument }
+export interface EmbeddingCertificate {
+  kind: "embedding";
+  embedding: number[];
+}
+export interface AbsenceCertificate {
+  kind: "absence";
+  argument: AbsenceArgument;
+}
 export type SubgraphCertificate = EmbeddingCertificate | AbsenceCertificate;
 
 export interface SubgraphOptions {
@@ -57,13 +61,15 @@ export function checkEmbedding(h: Graph, g: Graph, phi: readonly number[], induc
   for (const e of h.edges) {
     budget.tick();
     const m = multiplicity(g, phi[e.u], phi[e.v]);
-    if (induced ? m !== e.m : m < e.m) return `H's ${e.u === e.v ? `loop at ${e.u}` : `edge ${e.u}–${e.v}`} has multiplicity ${e.m} but its image ${phi[e.u]}–${phi[e.v]} has ${m}`;
+    if (induced ? m !== e.m : m < e.m)
+      return `H's ${e.u === e.v ? `loop at ${e.u}` : `edge ${e.u}–${e.v}`} has multiplicity ${e.m} but its image ${phi[e.u]}–${phi[e.v]} has ${m}`;
   }
   if (induced) {
     for (let u = 0; u < h.n; u++)
       for (let w = u; w < h.n; w++) {
         budget.tick();
-        if (multiplicity(h, u, w) === 0 && multiplicity(g, phi[u], phi[w]) !== 0) return `${u}, ${w} are not adjacent in H but their images ${phi[u]}, ${phi[w]} are adjacent in G`;
+        if (multiplicity(h, u, w) === 0 && multiplicity(g, phi[u], phi[w]) !== 0)
+          return `${u}, ${w} are not adjacent in H but their images ${phi[u]}, ${phi[w]} are adjacent in G`;
       }
   }
   return null;
@@ -79,7 +85,8 @@ export function decideContainment(h: Graph, g: Graph, induced: boolean, budget: 
   if (h.n === 0) return { embedding: [], method: "empty pattern" };
   const counting = countingArgument(h, g, budget);
   if (counting) return { argument: counting };
-  const gs = sweep(g, budget), hs = sweep(h, budget);
+  const gs = sweep(g, budget),
+    hs = sweep(h, budget);
   let roots: Int32Array | undefined;
   if (hs.componentCount === 1 && gs.componentCount > 1) {
     const fits = componentMembers(gs, g.n).filter((members) => countingArgument(h, g, budget, members) === null);
@@ -135,33 +142,55 @@ export const ABSENCE_ARGUMENT_WORDS: Record<AbsenceArgument["kind"], string> = {
 
 export function describeAbsence(arg: AbsenceArgument, pattern = "H", host = "G"): string {
   switch (arg.kind) {
-    case "order": return `${pattern} has ${arg.patternOrder} vertices, more than the ${arg.hostOrder} of ${host}`;
-    case "degree-count": return `${pattern} has ${vertices(arg.inPattern)} of degree ≥ ${arg.threshold} but ${host} has only ${arg.inHost}; an embedding maps them to distinct vertices of at least that degree`;
-    case "loop-count": return `${pattern} has ${vertices(arg.inPattern)} with loop weight ≥ ${arg.threshold} but ${host} has only ${arg.inHost}`;
-    case "component-fit": return `${pattern} is connected, so it must lie in one component of ${host}, and each of the ${arg.components} components fails the vertex or degree count`;
-    case "tree-dp": return `${host} is a forest and no vertex of ${host} can be the top of an image of the tree ${pattern} (subtree matching over all roots, Matula 1978)`;
-    case "cycle-in-forest": return `${pattern} contains a cycle (loops and multiple edges count) and ${host} is a forest`;
-    case "odd-cycle-in-bipartite": return `${pattern} contains an odd cycle (a loop counts) and ${host} is bipartite`;
-    case "spider-arms": return `${host} is a forest and ${pattern} = T(${arg.legs.join(",")}) needs a vertex with ${arg.legs.length} disjoint arms of lengths ≥ ${arg.legs.slice().reverse().join(", ")}; no vertex of ${host} has them`;
-    case "search": return `exhaustive backtracking search visited ${arg.nodesVisited} partial embeddings and found none`;
+    case "order":
+      return `${pattern} has ${arg.patternOrder} vertices, more than the ${arg.hostOrder} of ${host}`;
+    case "degree-count":
+      return `${pattern} has ${vertices(arg.inPattern)} of degree ≥ ${arg.threshold} but ${host} has only ${arg.inHost}; an embedding maps them to distinct vertices of at least that degree`;
+    case "loop-count":
+      return `${pattern} has ${vertices(arg.inPattern)} with loop weight ≥ ${arg.threshold} but ${host} has only ${arg.inHost}`;
+    case "component-fit":
+      return `${pattern} is connected, so it must lie in one component of ${host}, and each of the ${arg.components} components fails the vertex or degree count`;
+    case "tree-dp":
+      return `${host} is a forest and no vertex of ${host} can be the top of an image of the tree ${pattern} (subtree matching over all roots, Matula 1978)`;
+    case "cycle-in-forest":
+      return `${pattern} contains a cycle (loops and multiple edges count) and ${host} is a forest`;
+    case "odd-cycle-in-bipartite":
+      return `${pattern} contains an odd cycle (a loop counts) and ${host} is bipartite`;
+    case "spider-arms":
+      return `${host} is a forest and ${pattern} = T(${arg.legs.join(",")}) needs a vertex with ${arg.legs.length} disjoint arms of lengths ≥ ${arg.legs.slice().reverse().join(", ")}; no vertex of ${host} has them`;
+    case "search":
+      return `exhaustive backtracking search visited ${arg.nodesVisited} partial embeddings and found none`;
   }
 }
 
 export function findSubgraph(h: Graph, g: Graph, options: SubgraphOptions = {}): Verdict<SubgraphCertificate> {
-  const induced = options.induced ?? false, budget = options.budget ?? new Budget();
-  const pattern = options.names?.pattern ?? "H", host = options.names?.host ?? "G";
+  const induced = options.induced ?? false,
+    budget = options.budget ?? new Budget();
+  const pattern = options.names?.pattern ?? "H",
+    host = options.names?.host ?? "G";
   const statement = `${pattern} ⊆ ${host}${induced ? " (induced)" : ""}`;
   return withinBudget<SubgraphCertificate>(statement, "subgraph search", budget, () => {
     const d = decideContainment(h, g, induced, budget);
     if ("embedding" in d) {
       const count = d.nodesVisited !== undefined ? ` after visiting ${d.nodesVisited} partial embeddings` : "";
       return {
-        status: "verified", statement, method: d.method, certificate: { kind: "embedding", embedding: d.embedding }, notes: [MONOTONICITY_NOTE],
+        status: "verified",
+        statement,
+        method: d.method,
+        certificate: { kind: "embedding", embedding: d.embedding },
+        notes: [MONOTONICITY_NOTE],
         reason: `the embedding φ found by ${d.method}${count} maps every ${induced ? "pair of vertices of H to a pair of G with equal multiplicity" : "edge (and loop) of H to one of G of at least the same multiplicity"}`,
       };
     }
     const method = d.argument.kind === "search" ? "exhaustive backtracking search" : `${ABSENCE_ARGUMENT_WORDS[d.argument.kind]} argument`;
-    return { status: "refuted", statement, method, reason: describeAbsence(d.argument, pattern, host), certificate: { kind: "absence", argument: d.argument }, notes: [MONOTONICITY_NOTE] };
+    return {
+      status: "refuted",
+      statement,
+      method,
+      reason: describeAbsence(d.argument, pattern, host),
+      certificate: { kind: "absence", argument: d.argument },
+      notes: [MONOTONICITY_NOTE],
+    };
   });
 }
 
@@ -201,24 +230,40 @@ export interface ExclusionCertificate {
 }
 
 /** "G contains none of H1…Hk" — verified with one absence argument per pattern, refuted by an embedding. */
-export function excludeSubgraphs(g: Graph, patterns: readonly Graph[], options: SubgraphOptions & { patternNames?: string[] } = {}): Verdict<ExclusionCertificate> {
-  const induced = options.induced ?? false, budget = options.budget ?? new Budget();
+export function excludeSubgraphs(
+  g: Graph,
+  patterns: readonly Graph[],
+  options: SubgraphOptions & { patternNames?: string[] } = {},
+): Verdict<ExclusionCertificate> {
+  const induced = options.induced ?? false,
+    budget = options.budget ?? new Budget();
   const names = patterns.map((_, i) => options.patternNames?.[i] ?? `H${i + 1}`);
   const statement = `${options.names?.host ?? "G"} contains none of ${names.join(", ")}${induced ? " as induced subgraphs" : ""}`;
   return withinBudget<ExclusionCertificate>(statement, "subgraph exclusion", budget, () => {
-    const absent: AbsenceCertificate[] = [], reasons: string[] = [];
+    const absent: AbsenceCertificate[] = [],
+      reasons: string[] = [];
     let nodes = 0;
     for (let i = 0; i < patterns.length; i++) {
       const d = decideContainment(patterns[i], g, induced, budget);
       if ("embedding" in d)
-        return { status: "refuted", statement, method: d.method, reason: `${names[i]} ⊆ G: the embedding ${JSON.stringify(d.embedding.length <= 20 ? d.embedding : d.embedding.slice(0, 20))}${d.embedding.length > 20 ? "…" : ""} re-checks`, certificate: { kind: "exclusion", found: { index: i, embedding: d.embedding } } };
+        return {
+          status: "refuted",
+          statement,
+          method: d.method,
+          reason: `${names[i]} ⊆ G: the embedding ${JSON.stringify(d.embedding.length <= 20 ? d.embedding : d.embedding.slice(0, 20))}${d.embedding.length > 20 ? "…" : ""} re-checks`,
+          certificate: { kind: "exclusion", found: { index: i, embedding: d.embedding } },
+        };
       absent.push({ kind: "absence", argument: d.argument });
       if (d.argument.kind === "search") nodes += d.argument.nodesVisited;
       reasons.push(`${names[i]}: ${describeAbsence(d.argument, names[i])}`);
     }
     return {
-      status: "verified", statement, method: nodes > 0 ? `necessary conditions, then exhaustive search (${nodes} nodes)` : "necessary conditions (no search needed)",
-      reason: reasons.join("; "), certificate: { kind: "exclusion", absent }, notes: [MONOTONICITY_NOTE],
+      status: "verified",
+      statement,
+      method: nodes > 0 ? `necessary conditions, then exhaustive search (${nodes} nodes)` : "necessary conditions (no search needed)",
+      reason: reasons.join("; "),
+      certificate: { kind: "exclusion", absent },
+      notes: [MONOTONICITY_NOTE],
     };
   });
 }

@@ -8,7 +8,10 @@
 import { Budget, BudgetExceeded } from "./verdict";
 
 export class TimeLimitExceeded extends BudgetExceeded {
-  constructor(limit: number, readonly timeLimitMs: number) {
+  constructor(
+    limit: number,
+    readonly timeLimitMs: number,
+  ) {
     super(limit);
     this.message = `time limit of ${timeLimitMs / 1000} s exceeded`;
     this.name = "TimeLimitExceeded";
@@ -22,7 +25,10 @@ export class TimedBudget extends Budget {
   private readonly deadline: number;
   private ticks = 0;
 
-  constructor(limit: number, readonly timeLimitMs: number) {
+  constructor(
+    limit: number,
+    readonly timeLimitMs: number,
+  ) {
     super(limit);
     this.deadline = Date.now() + timeLimitMs;
   }

@@ -22,7 +22,10 @@ import type { Sweep } from "./structure";
 /** Largest table (states × host vertices) we build; beyond it the caller falls back to search. */
 export const TREE_DP_MAX_CELLS = 40_000_000;
 
-interface State { u: number; children: number[] }
+interface State {
+  u: number;
+  children: number[];
+}
 
 /** The rooted-subtree states of H: state of (u, parent p) or (u, none), with the states of u's children. */
 function statesOf(h: Graph): { states: State[]; top: number[] } {
@@ -32,7 +35,11 @@ function statesOf(h: Graph): { states: State[]; top: number[] } {
   const id = (u: number, p: number): number => {
     const k = u * (h.n + 1) + (p + 1);
     let s = key.get(k);
-    if (s === undefined) { s = states.length; key.set(k, s); states.push({ u, children: [] }); }
+    if (s === undefined) {
+      s = states.length;
+      key.set(k, s);
+      states.push({ u, children: [] });
+    }
     return s;
   };
   const top: number[] = [];
@@ -41,7 +48,8 @@ function statesOf(h: Graph): { states: State[]; top: number[] } {
     for (let q = a.start[u]; q < a.start[u + 1]; q++) id(u, a.nbr[q]); // u seen from its neighbour as parent
   }
   for (const [k, s] of key) {
-    const u = Math.floor(k / (h.n + 1)), p = (k % (h.n + 1)) - 1;
+    const u = Math.floor(k / (h.n + 1)),
+      p = (k % (h.n + 1)) - 1;
     for (let q = a.start[u]; q < a.start[u + 1]; q++) if (a.nbr[q] !== p) states[s].children.push(id(a.nbr[q], u));
   }
   return { states, top };
@@ -49,19 +57,26 @@ function statesOf(h: Graph): { states: State[]; top: number[] } {
 
 /** Matches child states to distinct G-children (Kuhn's augmenting paths); returns the assignment or null. */
 function match(children: number[], gChildren: number[], ok: Uint8Array[]): number[] | null {
-  const m = children.length, d = gChildren.length;
+  const m = children.length,
+    d = gChildren.length;
   if (m === 1) {
     const table = ok[children[0]];
     for (const y of gChildren) if (table[y]) return [y];
     return null;
   }
-  const owner = new Int32Array(d).fill(-1), assigned = new Int32Array(m).fill(-1), seen = new Uint8Array(d);
+  const owner = new Int32Array(d).fill(-1),
+    assigned = new Int32Array(m).fill(-1),
+    seen = new Uint8Array(d);
   const tryAssign = (i: number): boolean => {
     const table = ok[children[i]];
     for (let j = 0; j < d; j++) {
       if (seen[j] || !table[gChildren[j]]) continue;
       seen[j] = 1;
-      if (owner[j] < 0 || tryAssign(owner[j])) { owner[j] = i; assigned[i] = j; return true; }
+      if (owner[j] < 0 || tryAssign(owner[j])) {
+        owner[j] = i;
+        assigned[i] = j;
+        return true;
+      }
     }
     return false;
   };
@@ -82,7 +97,10 @@ function stateHeights(states: State[]): Int32Array {
     while (stack.length > 0) {
       const top = stack[stack.length - 1];
       const pending = states[top].children.filter((c) => height[c] < 0);
-      if (pending.length > 0) { stack.push(...pending); continue; }
+      if (pending.length > 0) {
+        stack.push(...pending);
+        continue;
+      }
       height[top] = states[top].children.reduce((best, c) => Math.max(best, height[c] + 1), 0);
       stack.pop();
     }

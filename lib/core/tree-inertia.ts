@@ -41,12 +41,16 @@ export interface EliminationResult<T = Rational> {
 export function isForest(g: Graph): boolean {
   const parent = new Int32Array(g.n).map((_, i) => i);
   const find = (x: number): number => {
-    while (parent[x] !== x) { parent[x] = parent[parent[x]]; x = parent[x]; }
+    while (parent[x] !== x) {
+      parent[x] = parent[parent[x]];
+      x = parent[x];
+    }
     return x;
   };
   for (const e of g.edges) {
     if (e.u === e.v) continue;
-    const a = find(e.u), b = find(e.v);
+    const a = find(e.u),
+      b = find(e.v);
     if (a === b) return false;
     parent[a] = b;
   }
@@ -56,8 +60,11 @@ export function isForest(g: Graph): boolean {
 /** Breadth-first order of every component (roots: the smallest vertex of each), parents and edge weights. */
 export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; parent: Int32Array; weight: Float64Array } {
   const { start, nbr, wt } = adjacency(g);
-  const order = new Int32Array(g.n), parent = new Int32Array(g.n).fill(-2), weight = new Float64Array(g.n);
-  let head = 0, tail = 0;
+  const order = new Int32Array(g.n),
+    parent = new Int32Array(g.n).fill(-2),
+    weight = new Float64Array(g.n);
+  let head = 0,
+    tail = 0;
   for (let r = 0; r < g.n; r++) {
     if (parent[r] !== -2) continue;
     parent[r] = -1;
@@ -102,7 +109,8 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
   const { start, nbr, wt, diag } = adjacency(g);
   const { order, parent } = bfsForest(g, budget);
   const n = g.n;
-  const lo = new Float64Array(n), hi = new Float64Array(n);
+  const lo = new Float64Array(n),
+    hi = new Float64Array(n);
   const exact: Array<T | undefined> = new Array(n);
   const cut = new Uint8Array(n);
   const bEnclosure = exactOnly ? undefined : F.enclosure(b);
@@ -113,14 +121,18 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
   // takes the field's arithmetic. sDen[v] = 0 marks "no small value".
   const pairs = F.fromPair !== undefined && F.smallPair !== undefined;
   const bPair = pairs ? F.smallPair!(b) : undefined;
-  const sNum = new Float64Array(bPair ? n : 0), sDen = new Float64Array(bPair ? n : 0);
+  const sNum = new Float64Array(bPair ? n : 0),
+    sDen = new Float64Array(bPair ? n : 0);
   const hasExact = (v: number) => exact[v] !== undefined || (bPair !== undefined && sDen[v] !== 0);
   const getExact = (v: number): T => exact[v] ?? (exact[v] = F.fromPair!(sNum[v], sDen[v]));
   const setExact = (v: number, a: T, interval = true) => {
     exact[v] = a;
     if (bPair) {
       const pr = F.smallPair!(a);
-      if (pr) { sNum[v] = pr[0]; sDen[v] = pr[1]; } else sDen[v] = 0;
+      if (pr) {
+        sNum[v] = pr[0];
+        sDen[v] = pr[1];
+      } else sDen[v] = 0;
     }
     if (interval) [lo[v], hi[v]] = F.enclosure(a) ?? [-Infinity, Infinity];
   };
@@ -129,7 +141,10 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
   const squares = new Map<number, T>();
   const square = (w: number): T => {
     let s2 = squares.get(w);
-    if (s2 === undefined) { const x = F.fromInt(w); squares.set(w, (s2 = F.mul(x, x))); }
+    if (s2 === undefined) {
+      const x = F.fromInt(w);
+      squares.set(w, (s2 = F.mul(x, x)));
+    }
     return s2;
   };
   const LIM = 4503599627370496; // 2^52
@@ -140,30 +155,55 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
    */
   const smallFromChildren = (v: number, interval: boolean): number => {
     if (!bPair) return 0;
-    let num = bPair[0] - diag[v] * bPair[1], den = bPair[1];
+    let num = bPair[0] - diag[v] * bPair[1],
+      den = bPair[1];
     if (!(Math.abs(num) < LIM)) return 0;
     for (let k = start[v]; k < start[v + 1]; k++) {
       const c = nbr[k];
       if (!isChild(v, c)) continue;
       if (exact[c] !== undefined && sDen[c] === 0) return 0; // a large child
-      const nc = sNum[c], dc = sDen[c];
-      if (nc === 0) { zeroChildFound = c; return -1; }
-      const t1 = num * nc, nd = den * nc;
+      const nc = sNum[c],
+        dc = sDen[c];
+      if (nc === 0) {
+        zeroChildFound = c;
+        return -1;
+      }
+      const t1 = num * nc,
+        nd = den * nc;
       let t2 = wt[k] * wt[k] * dc;
       if (!(Math.abs(t1) < LIM && Math.abs(nd) < LIM && t2 < LIM)) return 0;
       t2 *= den;
       if (!(t2 < LIM)) return 0;
-      num = t1 - t2; den = nd;
-      if (den < 0) { num = -num; den = -den; }
-      let x = Math.abs(num), y = den; // gcd, exact on integers below 2^53
-      while (y !== 0) { const t = x % y; x = y; y = t; }
-      if (x > 1) { num /= x; den /= x; }
+      num = t1 - t2;
+      den = nd;
+      if (den < 0) {
+        num = -num;
+        den = -den;
+      }
+      let x = Math.abs(num),
+        y = den; // gcd, exact on integers below 2^53
+      while (y !== 0) {
+        const t = x % y;
+        x = y;
+        y = t;
+      }
+      if (x > 1) {
+        num /= x;
+        den /= x;
+      }
     }
     exact[v] = undefined;
-    sNum[v] = num; sDen[v] = den;
+    sNum[v] = num;
+    sDen[v] = den;
     if (interval) {
-      if (num === 0) { lo[v] = 0; hi[v] = 0; }
-      else { const q = num / den; lo[v] = nextDown(q); hi[v] = nextUp(q); } // one rounding of exact operands
+      if (num === 0) {
+        lo[v] = 0;
+        hi[v] = 0;
+      } else {
+        const q = num / den;
+        lo[v] = nextDown(q);
+        hi[v] = nextUp(q);
+      } // one rounding of exact operands
     }
     return 1;
   };
@@ -180,7 +220,10 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     // Large numbers cost more than a step each (a gcd is quadratic in their length): tick by size so
     // huge growth ends in "undecided" in bounded time.
     const bits = F.bits(a);
-    if (bits > 256) { const w = bits >> 6; budget.tick(w + ((w * w) >> 1)); }
+    if (bits > 256) {
+      const w = bits >> 6;
+      budget.tick(w + ((w * w) >> 1));
+    }
     return { a, zeroChild: -1 };
   };
   /** Exact a(v), stored (small or in the field); returns the zero child when the special rule applies, else -1. */
@@ -211,22 +254,31 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     }
   };
   const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
-  let positive = 0, negative = 0, zero = 0;
+  let positive = 0,
+    negative = 0,
+    zero = 0;
   for (let idx = n - 1; idx >= 0; idx--) {
     const v = order[idx];
     budget.tick(1 + start[v + 1] - start[v]);
     let needExact = bEnclosure === undefined;
-    let aLo = 0, aHi = 0;
+    let aLo = 0,
+      aHi = 0;
     if (!needExact) {
       aLo = diag[v] === 0 ? bEnclosure![0] : nextDown(bEnclosure![0] - diag[v]);
       aHi = diag[v] === 0 ? bEnclosure![1] : nextUp(bEnclosure![1] - diag[v]);
       for (let k = start[v]; k < start[v + 1] && !needExact; k++) {
         const c = nbr[k];
         if (!isChild(v, c)) continue;
-        if (!(lo[c] > 0 || hi[c] < 0)) { needExact = true; break; }
+        if (!(lo[c] > 0 || hi[c] < 0)) {
+          needExact = true;
+          break;
+        }
         // w^2/a over [l, h] not containing 0 is [w^2/h, w^2/l] (decreasing on each side of 0).
         const w2 = wt[k] * wt[k];
-        if (w2 > Number.MAX_SAFE_INTEGER) { needExact = true; break; } // w^2 would be rounded
+        if (w2 > Number.MAX_SAFE_INTEGER) {
+          needExact = true;
+          break;
+        } // w^2 would be rounded
         aLo = nextDown(aLo - nextUp(w2 / lo[c]));
         aHi = nextUp(aHi - nextDown(w2 / hi[c]));
       }
@@ -239,7 +291,8 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       if (zeroChild >= 0) {
         // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
         setExact(zeroChild, F.fromInt(2));
-        zero--; positive++;
+        zero--;
+        positive++;
         setExact(v, F.div(F.fromInt(-1), F.fromInt(2)));
         negative++;
         if (parent[v] >= 0) cut[v] = 1;
@@ -248,7 +301,8 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       }
       s = exactSign(v);
     } else {
-      lo[v] = aLo; hi[v] = aHi;
+      lo[v] = aLo;
+      hi[v] = aHi;
       s = aLo > 0 ? 1 : -1;
     }
     if (s > 0) positive++;

@@ -45,7 +45,11 @@ export function components(g: Graph): { comp: Int32Array; count: number } {
     stack.push(r);
     while (stack.length) {
       const v = stack.pop()!;
-      for (let k = start[v]; k < start[v + 1]; k++) if (comp[nbr[k]] < 0) { comp[nbr[k]] = count; stack.push(nbr[k]); }
+      for (let k = start[v]; k < start[v + 1]; k++)
+        if (comp[nbr[k]] < 0) {
+          comp[nbr[k]] = count;
+          stack.push(nbr[k]);
+        }
     }
     count++;
   }
@@ -56,7 +60,11 @@ function toRationals(g: Graph, x: ReadonlyArray<string | Rational>): Rational[] 
   if (x.length !== g.n) throw new GraphError(`the vector has ${x.length} entries but the graph has ${g.n} vertices`);
   return x.map((e, i) => {
     if (typeof e !== "string") return e;
-    try { return parseRational(e); } catch (err) { throw new GraphError(`vector entry ${i} (vertex ${label(g, i)}): ${(err as Error).message}`); }
+    try {
+      return parseRational(e);
+    } catch (err) {
+      throw new GraphError(`vector entry ${i} (vertex ${label(g, i)}): ${(err as Error).message}`);
+    }
   });
 }
 
@@ -83,17 +91,30 @@ function compareEntry(ax: Rational, xv: Rational, b: Bound): -1 | 0 | 1 {
  * Checks "A·x rel b·x entrywise" for a non-negative rational vector x (strings like "3/2" or Rationals)
  * and states what it proves about ρ(G). Refuted verdicts name the first vertex where a condition fails.
  */
-export function checkVectorCertificate(g: Graph, vector: ReadonlyArray<string | Rational>, rel: Relation, bound: Bound | string, budget: Budget = new Budget()): Verdict<VectorEvidence> {
+export function checkVectorCertificate(
+  g: Graph,
+  vector: ReadonlyArray<string | Rational>,
+  rel: Relation,
+  bound: Bound | string,
+  budget: Budget = new Budget(),
+): Verdict<VectorEvidence> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const x = toRationals(g, vector);
   const statement = `A·x ${SYMBOL[rel]} ${b.text}·x entrywise, x ≥ 0 (Collatz–Wielandt)`;
   const method = "Collatz–Wielandt vector check";
   return withinBudget(statement, method, budget, () => {
-    const fail = (v: number, why: string): Verdict<VectorEvidence> => ({ status: "refuted", statement, method, reason: `at vertex ${label(g, v)}: ${why}`, certificate: { failingVertex: v } });
+    const fail = (v: number, why: string): Verdict<VectorEvidence> => ({
+      status: "refuted",
+      statement,
+      method,
+      reason: `at vertex ${label(g, v)}: ${why}`,
+      certificate: { failingVertex: v },
+    });
     for (let v = 0; v < g.n; v++) if (sign(x[v]) < 0) return fail(v, `x = ${ratToString(x[v])} is negative`);
     const ax = multiply(g, x, budget);
     const { comp, count } = components(g);
-    const nonzero = new Uint8Array(count), strict = new Uint8Array(count);
+    const nonzero = new Uint8Array(count),
+      strict = new Uint8Array(count);
     const wanted: Record<Relation, Array<-1 | 0 | 1>> = { "<": [-1], "<=": [-1, 0], "=": [0], ">=": [0, 1], ">": [1] };
     for (let v = 0; v < g.n; v++) {
       budget.tick();
@@ -104,7 +125,8 @@ export function checkVectorCertificate(g: Graph, vector: ReadonlyArray<string | 
     }
     let conclusion: string, why: string;
     if (rel === "<" || rel === "<=" || rel === "=") {
-      for (let v = 0; v < g.n; v++) if (!nonzero[comp[v]]) return fail(v, "x vanishes on the whole connected component of this vertex, so it bounds nothing there");
+      for (let v = 0; v < g.n; v++)
+        if (!nonzero[comp[v]]) return fail(v, "x vanishes on the whole connected component of this vertex, so it bounds nothing there");
       const allStrict = strict.every((s) => s === 1);
       const op = rel === "=" ? "=" : allStrict ? "<" : "≤";
       conclusion = `ρ(G) ${op} ${b.text}`;
@@ -122,26 +144,48 @@ export function checkVectorCertificate(g: Graph, vector: ReadonlyArray<string | 
 }
 
 /** Rayleigh quotient certificate: x != 0 with x^T A x ≥ b·x^T x proves ρ ≥ b (> b when strict). */
-export function checkRayleighCertificate(g: Graph, vector: ReadonlyArray<string | Rational>, bound: Bound | string, budget: Budget = new Budget()): Verdict<VectorEvidence> {
+export function checkRayleighCertificate(
+  g: Graph,
+  vector: ReadonlyArray<string | Rational>,
+  bound: Bound | string,
+  budget: Budget = new Budget(),
+): Verdict<VectorEvidence> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const x = toRationals(g, vector);
   const statement = `xᵀAx ≥ ${b.text}·xᵀx (Rayleigh quotient)`;
   const method = "Rayleigh quotient";
   return withinBudget(statement, method, budget, () => {
     const ax = multiply(g, x, budget);
-    let xax = ZERO, xx = ZERO;
-    for (let v = 0; v < g.n; v++) { xax = add(xax, mul(x[v], ax[v])); xx = add(xx, mul(x[v], x[v])); }
+    let xax = ZERO,
+      xx = ZERO;
+    for (let v = 0; v < g.n; v++) {
+      xax = add(xax, mul(x[v], ax[v]));
+      xx = add(xx, mul(x[v], x[v]));
+    }
     if (xx.num === 0n) return { status: "refuted", statement, method, reason: "x is the zero vector" };
     const c = compareToBound(div(xax, xx), b);
     const q = `${ratToString(xax)}/${ratToString(xx)}`;
     if (c < 0) return { status: "refuted", statement, method, reason: `the Rayleigh quotient xᵀAx/xᵀx = ${q} is below ${b.text}` };
     const conclusion = `ρ(G) ${c > 0 ? ">" : "≥"} ${b.text}`;
-    return { status: "verified", statement, method, reason: `xᵀAx/xᵀx = ${q} ${c > 0 ? ">" : "="} ${b.text}, and λ_max = ρ for non-negative symmetric A, so ${conclusion}.`, certificate: { conclusion } };
+    return {
+      status: "verified",
+      statement,
+      method,
+      reason: `xᵀAx/xᵀx = ${q} ${c > 0 ? ">" : "="} ${b.text}, and λ_max = ρ for non-negative symmetric A, so ${conclusion}.`,
+      certificate: { conclusion },
+    };
   });
 }
 
 /** Re-check: the vector itself is the certificate; verified when it still establishes `conclusion`. */
-export function recheckVectorCertificate(g: Graph, vector: ReadonlyArray<string | Rational>, rel: Relation, bound: Bound | string, conclusion: string, budget: Budget = new Budget()): Verdict<VectorEvidence> {
+export function recheckVectorCertificate(
+  g: Graph,
+  vector: ReadonlyArray<string | Rational>,
+  rel: Relation,
+  bound: Bound | string,
+  conclusion: string,
+  budget: Budget = new Budget(),
+): Verdict<VectorEvidence> {
   const v = checkVectorCertificate(g, vector, rel, bound, budget);
   if (v.status === "verified" && v.certificate?.conclusion !== conclusion)
     return { ...v, status: "refuted", reason: `the vector establishes ${v.certificate?.conclusion}, not ${conclusion}` };

@@ -56,8 +56,7 @@ export function withinBudget<C>(statement: string, method: string, budget: Budge
     const v = run();
     return { ...v, steps: budget.used };
   } catch (e) {
-    if (e instanceof BudgetExceeded)
-      return { status: "undecided", statement, method, reason: budgetReason(e), steps: budget.used };
+    if (e instanceof BudgetExceeded) return { status: "undecided", statement, method, reason: budgetReason(e), steps: budget.used };
     throw e;
   }
 }

@@ -45,19 +45,33 @@ export interface AuditEntry {
 }
 
 /** Numbers and titles of the proof's cases ("3.2") and labels of its steps ("3.2:1", lib/proof-tree.ts), for readable subjects. */
-async function labels(proofId: number): Promise<{ cases: Map<number, string>; titles: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
+async function labels(
+  proofId: number,
+): Promise<{ cases: Map<number, string>; titles: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
   const { Case, Step } = models();
   const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position", "title"] });
-  const cases = new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+  const cases = new Map(
+    flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
+  );
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
-  return { cases, titles: new Map(rows.map((c) => [c.id, c.title])), steps: labelSteps(cases, steps), caseOfStep: new Map(steps.map((st) => [st.id, st.caseId])) };
+  return {
+    cases,
+    titles: new Map(rows.map((c) => [c.id, c.title])),
+    steps: labelSteps(cases, steps),
+    caseOfStep: new Map(steps.map((st) => [st.id, st.caseId])),
+  };
 }
 
 /** The step of each revision, claim, review and comment named by these events, so that every event finds its case. */
 async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subjectId: number | null }>): Promise<Map<string, number>> {
   const { StepRevision, Claim, Review, Comment } = models();
   const ids = (type: string) => [...new Set(events.filter((e) => e.subjectType === type && e.subjectId !== null).map((e) => e.subjectId!))];
-  const sources = [["revision", StepRevision], ["claim", Claim], ["review", Review], ["comment", Comment]] as const;
+  const sources = [
+    ["revision", StepRevision],
+    ["claim", Claim],
+    ["review", Review],
+    ["comment", Comment],
+  ] as const;
   const found = new Map<string, number>();
   await Promise.all(
     sources.map(async ([type, model]) => {
@@ -77,7 +91,14 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
  */
 export async function listProofEvents(proofId: number, limit = 500, lens?: NameLens): Promise<AuditEntry[]> {
   const { AuditEvent, User } = models();
-  const events = await AuditEvent.findAll({ where: { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
+  const events = await AuditEvent.findAll({
+    where: { proofId },
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    limit,
+  });
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
   const [{ cases, titles, steps, caseOfStep }, stepOf] = await Promise.all([labels(proofId), stepsOfSubjects(events)]);
   const caseOf = (type: string, id: number | null): number | null => {
@@ -91,11 +112,16 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
   const placeOf = (type: string, id: number | null): EventPlace => {
     const stepId = stepIdOf(type, id);
     const caseId = caseOf(type, id);
-    return { step: stepId === null ? null : (steps.get(stepId) ?? null), caseNumber: caseId === null ? null : (cases.get(caseId) ?? null), caseTitle: caseId === null ? null : (titles.get(caseId) ?? null) };
+    return {
+      step: stepId === null ? null : (steps.get(stepId) ?? null),
+      caseNumber: caseId === null ? null : (cases.get(caseId) ?? null),
+      caseTitle: caseId === null ? null : (titles.get(caseId) ?? null),
+    };
   };
   const names = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
   // A member event about a hidden referee does not carry their user id.
-  const hiddenMember = (e: { subjectType: string; subjectId: number | null }) => lens !== undefined && e.subjectType === "member" && e.subjectId !== null && lens.hides(e.subjectId);
+  const hiddenMember = (e: { subjectType: string; subjectId: number | null }) =>
+    lens !== undefined && e.subjectType === "member" && e.subjectId !== null && lens.hides(e.subjectId);
   return events.map((e) => {
     const detail = lens && ((e.actorId !== null && lens.hides(e.actorId)) || HIDDEN_DETAIL.test(e.action)) ? null : e.detail;
     const actorName = e.actorId === null ? null : lens ? lens.name(e.actorId, names.get(e.actorId) ?? "") : (names.get(e.actorId) ?? null);

@@ -50,15 +50,36 @@ export function batchView(b: BatchClaim, fileName: string | null = null, now = D
   const rate = started !== null && b.done > 0 && end > started ? b.done / ((end - started) / 1000) : null;
   const active = b.status === "queued" || b.status === "running";
   return {
-    id: b.id, stepId: b.stepId, fileId: b.fileId, fileName, statement: b.statement, op: b.op, bound: b.bound, status: b.status,
-    total: b.total, done: b.done, verified: b.verified, refuted: b.refuted, undecided: b.undecided, unreadable: b.unreadable,
+    id: b.id,
+    stepId: b.stepId,
+    fileId: b.fileId,
+    fileName,
+    statement: b.statement,
+    op: b.op,
+    bound: b.bound,
+    status: b.status,
+    total: b.total,
+    done: b.done,
+    verified: b.verified,
+    refuted: b.refuted,
+    undecided: b.undecided,
+    unreadable: b.unreadable,
     failing: b.refuted + b.undecided + b.unreadable,
-    rate, etaSeconds: active && rate ? Math.ceil((b.total - b.done) / rate) : null,
-    checkerVersion: b.checkerVersion, createdAt: b.createdAt.toISOString(), startedAt: b.startedAt?.toISOString() ?? null, finishedAt: b.finishedAt?.toISOString() ?? null,
+    rate,
+    etaSeconds: active && rate ? Math.ceil((b.total - b.done) / rate) : null,
+    checkerVersion: b.checkerVersion,
+    createdAt: b.createdAt.toISOString(),
+    startedAt: b.startedAt?.toISOString() ?? null,
+    finishedAt: b.finishedAt?.toISOString() ?? null,
   };
 }
 
-export async function createBatch(proofId: number, stepId: number, userId: number, input: { fileId: number; op: Relation; bound: string }): Promise<{ batch: BatchView; queued: boolean }> {
+export async function createBatch(
+  proofId: number,
+  stepId: number,
+  userId: number,
+  input: { fileId: number; op: Relation; bound: string },
+): Promise<{ batch: BatchView; queued: boolean }> {
   const { StepFile, BatchClaim, AuditEvent } = models();
   const file = await StepFile.findByPk(input.fileId);
   if (!file || file.stepId !== stepId) throw invalid("Choose a file uploaded to this step.", [{ path: "fileId", message: "not a file of this step" }]);
@@ -75,10 +96,24 @@ export async function createBatch(proofId: number, stepId: number, userId: numbe
   if (total === 0) throw invalid("The file lists no graph.", [{ path: "fileId", message: "no graph in the list" }]);
   const batch = await getSequelize().transaction(async (transaction) => {
     const row = await BatchClaim.create(
-      { stepId, fileId: file.id, kind: "spectral-radius-bound", op: input.op, bound: input.bound, statement, total, chunkSize: batchChunkSize(), checkerVersion: CHECKER_VERSION, createdBy: userId },
+      {
+        stepId,
+        fileId: file.id,
+        kind: "spectral-radius-bound",
+        op: input.op,
+        bound: input.bound,
+        statement,
+        total,
+        chunkSize: batchChunkSize(),
+        checkerVersion: CHECKER_VERSION,
+        createdBy: userId,
+      },
       { transaction },
     );
-    await AuditEvent.create({ proofId, actorId: userId, action: "batch.created", subjectType: "step", subjectId: stepId, detail: `${statement} (${file.name}, ${total} graphs)` }, { transaction });
+    await AuditEvent.create(
+      { proofId, actorId: userId, action: "batch.created", subjectType: "step", subjectId: stepId, detail: `${statement} (${file.name}, ${total} graphs)` },
+      { transaction },
+    );
     return row;
   });
   const chunks = Array.from({ length: Math.ceil(total / batch.chunkSize) }, (_, k) => k);
@@ -106,7 +141,9 @@ export async function loadBatch(proofId: number, batchId: number): Promise<{ bat
 export async function listStepBatches(stepId: number): Promise<BatchView[]> {
   const { BatchClaim, StepFile } = models();
   const rows = await BatchClaim.findAll({ where: { stepId }, order: [["id", "DESC"]] });
-  const files = new Map((await StepFile.findAll({ where: { id: { [Op.in]: rows.map((r) => r.fileId) } }, attributes: ["id", "name"] })).map((f) => [f.id, f.name]));
+  const files = new Map(
+    (await StepFile.findAll({ where: { id: { [Op.in]: rows.map((r) => r.fileId) } }, attributes: ["id", "name"] })).map((f) => [f.id, f.name]),
+  );
   return rows.map((r) => batchView(r, files.get(r.fileId) ?? null));
 }
 
@@ -118,7 +155,10 @@ export async function cancelBatch(proofId: number, batchId: number, userId: numb
     if (!b) throw notFound("This batch claim");
     if (b.status === "done" || b.status === "cancelled") throw conflict(`This batch claim is already ${b.status === "done" ? "finished" : "cancelled"}.`);
     await b.update({ status: "cancelled", finishedAt: new Date() }, { transaction });
-    await AuditEvent.create({ proofId, actorId: userId, action: "batch.cancelled", subjectType: "step", subjectId: b.stepId, detail: `${b.statement} after ${b.done} of ${b.total}` }, { transaction });
+    await AuditEvent.create(
+      { proofId, actorId: userId, action: "batch.cancelled", subjectType: "step", subjectId: b.stepId, detail: `${b.statement} after ${b.done} of ${b.total}` },
+      { transaction },
+    );
     return b;
   });
   // Waiting chunks are removed if Redis answers; any that run anyway find the batch cancelled.
@@ -142,12 +182,22 @@ export interface BatchResultView {
 }
 
 const resultView = (r: BatchResult): BatchResultView => ({
-  entry: r.entry, line: r.line, verdict: r.verdict, graph6: r.graph6, vertices: r.vertices, edges: r.edges, method: r.method, reason: r.reason,
+  entry: r.entry,
+  line: r.line,
+  verdict: r.verdict,
+  graph6: r.graph6,
+  vertices: r.vertices,
+  edges: r.edges,
+  method: r.method,
+  reason: r.reason,
   certificate: r.certificate ? JSON.parse(r.certificate) : null,
 });
 
 /** Results in list order; `failing` keeps those whose verdict is not `verified`. */
-export async function batchResults(batchId: number, options: { failing?: boolean; offset?: number; limit?: number; certificates?: boolean } = {}): Promise<BatchResultView[]> {
+export async function batchResults(
+  batchId: number,
+  options: { failing?: boolean; offset?: number; limit?: number; certificates?: boolean } = {},
+): Promise<BatchResultView[]> {
   const rows = await models().BatchResult.findAll({
     where: { batchId, ...(options.failing ? { verdict: { [Op.ne]: "verified" } } : {}) },
     order: [["entry", "ASC"]],
@@ -170,4 +220,7 @@ export function resultsCsv(rows: readonly BatchResultView[]): string {
 
 /** The failing graphs that read, as a graph6 file (one per line); unreadable lines have no graph to write. */
 export const failuresGraph6 = (rows: readonly BatchResultView[]): string =>
-  rows.filter((r) => r.verdict !== "verified" && r.graph6).map((r) => r.graph6).join("\n") + "\n";
+  rows
+    .filter((r) => r.verdict !== "verified" && r.graph6)
+    .map((r) => r.graph6)
+    .join("\n") + "\n";

@@ -34,13 +34,17 @@ export async function refereeLens(proofId: number, viewer: { id: number; role: P
     hides,
     id: (userId) => (hides(userId) ? -referees.get(userId)! : userId),
     name: (userId, name) =>
-      referees.has(userId) ? refereeDisplayName({ viewerRole: viewer.role ?? "author", viewerId: viewer.id, blind: true, refereeId: userId, name, index: referees.get(userId)! }) : name,
+      referees.has(userId)
+        ? refereeDisplayName({ viewerRole: viewer.role ?? "author", viewerId: viewer.id, blind: true, refereeId: userId, name, index: referees.get(userId)! })
+        : name,
   };
 }
 
 /** The viewer's lens on each of several proofs (their own role on each). */
 export async function refereeLenses(proofIds: number[], viewerId: number): Promise<Map<number, NameLens>> {
   const roles = await models().ProofMember.findAll({ where: { proofId: proofIds, userId: viewerId }, attributes: ["proofId", "role"] });
-  const entries = await Promise.all(proofIds.map(async (id) => [id, await refereeLens(id, { id: viewerId, role: roles.find((r) => r.proofId === id)?.role ?? null })] as const));
+  const entries = await Promise.all(
+    proofIds.map(async (id) => [id, await refereeLens(id, { id: viewerId, role: roles.find((r) => r.proofId === id)?.role ?? null })] as const),
+  );
   return new Map(entries);
 }

@@ -11,7 +11,15 @@ type CaseRow = InstanceType<ReturnType<typeof models>["Case"]>;
 
 async function loadLive(proofId: number, transaction: Transaction): Promise<CaseRow[]> {
   const { Case } = models();
-  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+  const all = await Case.findAll({
+    where: { proofId },
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }
@@ -74,7 +82,10 @@ export async function updateCase(proofId: number, caseId: number, userId: number
     const cases = await loadLive(proofId, transaction);
     const c = findCase(cases, caseId);
     if (input.title !== undefined || input.condition !== undefined) {
-      await c.update({ ...(input.title !== undefined ? { title: input.title } : {}), ...(input.condition !== undefined ? { condition: input.condition } : {}) }, { transaction });
+      await c.update(
+        { ...(input.title !== undefined ? { title: input.title } : {}), ...(input.condition !== undefined ? { condition: input.condition } : {}) },
+        { transaction },
+      );
       await audit(proofId, userId, "case.edited", caseId, null, transaction);
     }
     if (input.move) {
@@ -125,7 +136,15 @@ export async function deleteCase(proofId: number, caseId: number, userId: number
 export async function restoreCase(proofId: number, caseId: number, userId: number): Promise<void> {
   const { Case } = models();
   await getSequelize().transaction(async (transaction) => {
-    const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+    const all = await Case.findAll({
+      where: { proofId },
+      order: [
+        ["position", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
     const c = all.find((x) => x.id === caseId);
     if (!c) throw notFound("This case");
     const hidden = hiddenCaseIds(all);
@@ -134,7 +153,10 @@ export async function restoreCase(proofId: number, caseId: number, userId: numbe
     for (let a = all.find((x) => x.id === c.parentId); a; a = all.find((x) => x.id === a!.parentId)) if (a.deletedAt) top = a;
     if (!c.deletedAt)
       throw top
-        ? conflict(`This case was not deleted itself: it is hidden because “${top.title}” above it is deleted. Restore that one and this case comes back with it.`, { restoreFirst: top.id })
+        ? conflict(
+            `This case was not deleted itself: it is hidden because “${top.title}” above it is deleted. Restore that one and this case comes back with it.`,
+            { restoreFirst: top.id },
+          )
         : conflict("This case is not deleted; there is nothing to restore.");
     if (top) throw conflict(`The case “${top.title}” above this one is deleted too; restore that one first, then this one.`, { restoreFirst: top.id });
     const live = all.filter((x) => !hidden.has(x.id));

@@ -3,7 +3,15 @@ import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import {
-  caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type ProofState, type ReviewFact, type StepFacts,
+  caseState,
+  proofState,
+  stepStatus,
+  type CaseFacts,
+  type CaseState,
+  type ClaimStatus,
+  type ProofState,
+  type ReviewFact,
+  type StepFacts,
 } from "@/lib/review/states";
 
 export interface StepView {
@@ -31,13 +39,23 @@ export const CASE_STATES: readonly CaseState[] = ["drafting", "claim failing", "
 
 /** Ids of deleted cases and everything below them: hidden from the tree, kept for the history. */
 export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number | null; deletedAt: Date | null }>): Set<number> {
-  return casesBelow(rows.filter((r) => r.deletedAt).map((r) => r.id), rows);
+  return casesBelow(
+    rows.filter((r) => r.deletedAt).map((r) => r.id),
+    rows,
+  );
 }
 
 /** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
 export async function liveCases(proofId: number, transaction?: Transaction) {
   const { Case } = models();
-  const all = await Case.findAll({ where: { proofId }, order: [["position", "ASC"], ["id", "ASC"]], transaction });
+  const all = await Case.findAll({
+    where: { proofId },
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction,
+  });
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }
@@ -68,12 +86,27 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
   const required = proof?.requiredApprovals ?? 1;
-  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  const steps = cases.length
+    ? await Step.findAll({
+        where: { caseId: cases.map((c) => c.id) },
+        order: [
+          ["position", "ASC"],
+          ["id", "ASC"],
+        ],
+      })
+    : [];
   const stepIds = steps.map((s) => s.id);
   const [revisions, claims, reviews] = stepIds.length
     ? await Promise.all([
         StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
-        Claim.findAll({ where: { stepId: stepIds }, attributes: ["stepId", "status"], order: [["position", "ASC"], ["id", "ASC"]] }),
+        Claim.findAll({
+          where: { stepId: stepIds },
+          attributes: ["stepId", "status"],
+          order: [
+            ["position", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
         Review.findAll({ where: { stepId: stepIds } }),
       ])
     : [[], [], []];
@@ -91,7 +124,12 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
     claims: claims.filter((c) => c.stepId === stepId).map((c) => c.status),
     reviews: reviews
       .filter((r) => r.stepId === stepId)
-      .map((r): ReviewFact => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, disputeState: r.disputeState })),
+      .map((r): ReviewFact => ({
+        reviewerId: r.reviewerId,
+        revisionNumber: numberOf.get(r.revisionId) ?? 0,
+        verdict: r.verdict,
+        disputeState: r.disputeState,
+      })),
     authorIds: [...(authorsOf.get(stepId) ?? [])],
   });
   const facts = new Map(steps.map((s) => [s.id, factsOf(s.id)]));
@@ -114,7 +152,13 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
           vouches: status.vouches,
           openDisputes: status.openDisputes,
           revision: r
-            ? { id: r.id, number: r.number, body: r.body, authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "", createdAt: r.createdAt.toISOString() }
+            ? {
+                id: r.id,
+                number: r.number,
+                body: r.body,
+                authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "",
+                createdAt: r.createdAt.toISOString(),
+              }
             : null,
         };
       }),
@@ -147,7 +191,12 @@ export async function listDeletedCases(proofId: number): Promise<DeletedCaseView
   const deleted = all.filter((c) => c.deletedAt).sort((a, b) => b.deletedAt!.getTime() - a.deletedAt!.getTime());
   if (deleted.length === 0) return [];
   return Promise.all(
-    deleted.map(async (c) => ({ id: c.id, title: c.title, deletedAt: c.deletedAt!.toISOString(), steps: await Step.count({ where: { caseId: [...casesBelow([c.id], all)] } }) })),
+    deleted.map(async (c) => ({
+      id: c.id,
+      title: c.title,
+      deletedAt: c.deletedAt!.toISOString(),
+      steps: await Step.count({ where: { caseId: [...casesBelow([c.id], all)] } }),
+    })),
   );
 }
 

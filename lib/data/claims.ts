@@ -155,7 +155,11 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
       found.push({ index: i, issue: { path: pathOf(i, e.path), message: e.detail } });
     }
   }
-  if (found.length) throw invalid("Some claims need attention; nothing was saved.", found.sort((a, b) => a.index - b.index).map((f) => f.issue));
+  if (found.length)
+    throw invalid(
+      "Some claims need attention; nothing was saved.",
+      found.sort((a, b) => a.index - b.index).map((f) => f.issue),
+    );
   return claims as ClaimJson[];
 }
 
@@ -176,8 +180,20 @@ export async function storeClaims(proofId: number, stepId: number, userId: numbe
     for (const [i, claim] of claims.entries()) {
       const row = await Claim.create(
         {
-          stepId, position: (last ?? 0) + i + 1, kind: claim.kind, input: JSON.stringify(claim), digest: claimDigest(claim), status: "pending",
-          statement: null, method: null, reason: null, certificate: null, checkerVersion: null, checkedBy: null, checkedAt: null, createdBy: userId,
+          stepId,
+          position: (last ?? 0) + i + 1,
+          kind: claim.kind,
+          input: JSON.stringify(claim),
+          digest: claimDigest(claim),
+          status: "pending",
+          statement: null,
+          method: null,
+          reason: null,
+          certificate: null,
+          checkerVersion: null,
+          checkedBy: null,
+          checkedAt: null,
+          createdBy: userId,
         },
         { transaction },
       );
@@ -244,7 +260,14 @@ export async function cancelVerification(proofId: number, claimId: number, user:
   const cancelled = await getSequelize().transaction(async (transaction) => {
     await lockLatest(row.stepId, transaction);
     const [changed] = await Claim.update(
-      { status: "undecided", method: "cancelled", reason: `the verification was cancelled by ${user.name}; re-check to run it again`, certificate: null, checkedBy: user.id, checkedAt: new Date() },
+      {
+        status: "undecided",
+        method: "cancelled",
+        reason: `the verification was cancelled by ${user.name}; re-check to run it again`,
+        certificate: null,
+        checkedBy: user.id,
+        checkedAt: new Date(),
+      },
       { where: { id: claimId, status: "pending", verifyRound: row.verifyRound }, transaction },
     );
     if (changed !== 1) return false;
@@ -257,7 +280,7 @@ export async function cancelVerification(proofId: number, claimId: number, user:
   await deliverAfterCommit();
   // A job still waiting is removed; an active one is stopped by its worker, which watches the claim.
   await bounded(async () => (await verificationQueue().getJob(claimJobId(claimId, row.verifyRound)))?.remove()).catch(() => undefined);
-  return claimView((await claimInProof(proofId, claimId)));
+  return claimView(await claimInProof(proofId, claimId));
 }
 
 /**
@@ -270,10 +293,16 @@ export async function withdrawClaim(proofId: number, claimId: number, userId: nu
   const row = await claimInProof(proofId, claimId);
   await getSequelize().transaction(async (transaction) => {
     const latest = await lockLatest(row.stepId, transaction);
-    const [changed] = await Claim.unscoped().update({ withdrawnAt: new Date(), withdrawnBy: userId }, { where: { id: claimId, withdrawnAt: null }, transaction });
+    const [changed] = await Claim.unscoped().update(
+      { withdrawnAt: new Date(), withdrawnBy: userId },
+      { where: { id: claimId, withdrawnAt: null }, transaction },
+    );
     if (changed !== 1) throw notFound("This claim"); // withdrawn meanwhile by someone else
     await reviseClaims(proofId, row.stepId, userId, transaction, latest, (set) => set.filter((c) => c.id !== claimId));
-    await recordEvent({ proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind }, transaction);
+    await recordEvent(
+      { proofId, actorId: userId, action: "claim.withdrawn", subjectType: "claim", subjectId: claimId, detail: row.statement ?? row.kind },
+      transaction,
+    );
   });
   await deliverAfterCommit();
   return (await listWithdrawnClaims(row.stepId)).find((w) => w.id === claimId)!;
@@ -295,7 +324,10 @@ export async function listWithdrawnClaims(stepId: number): Promise<WithdrawnClai
     where: { stepId, withdrawnAt: { [Op.ne]: null } },
     attributes: ["id", "kind", "statement", "status", "withdrawnAt"],
     include: [{ model: User, as: "withdrawer", attributes: ["name"], required: false }],
-    order: [["withdrawnAt", "DESC"], ["id", "DESC"]],
+    order: [
+      ["withdrawnAt", "DESC"],
+      ["id", "DESC"],
+    ],
   });
   return rows.map((r) => ({
     id: r.id,
@@ -309,7 +341,14 @@ export async function listWithdrawnClaims(stepId: number): Promise<WithdrawnClai
 
 export async function listStepClaims(stepId: number): Promise<ClaimView[]> {
   const { Claim } = models();
-  const rows = await Claim.findAll({ where: { stepId }, include: withChecker(), order: [["position", "ASC"], ["id", "ASC"]] });
+  const rows = await Claim.findAll({
+    where: { stepId },
+    include: withChecker(),
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
   const progress = await pendingProgress(rows);
   return rows.map((r) => claimView(r, progress.get(r.id) ?? null));
 }
@@ -335,8 +374,18 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   const all = await liveCases(proofId);
   // Numbering uses every live case; the listing only the cases this reader may see.
   const cases = visible === null ? all : all.filter((c) => visible.has(c.id));
-  const numbered = new Map(flattenCaseTree(buildCaseTree(all.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]));
-  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  const numbered = new Map(
+    flattenCaseTree(buildCaseTree(all.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]),
+  );
+  const steps = cases.length
+    ? await Step.findAll({
+        where: { caseId: cases.map((c) => c.id) },
+        order: [
+          ["position", "ASC"],
+          ["id", "ASC"],
+        ],
+      })
+    : [];
   if (steps.length === 0) return [];
   const place = new Map<number, string>();
   for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));

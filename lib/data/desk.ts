@@ -10,9 +10,26 @@ import { compareStepLabels } from "@/lib/proof-tree";
 import { listOpenDisputes } from "./review-queues";
 import { listRoundViews, type RefereeRow, type ReportView, type Viewer } from "./rounds";
 
-export interface DeskDispute { disputeId: number; stepId: number; stepLabel: string; state: string; reviewerName: string; since: string; ageDays: number }
-export interface DeskReport extends ReportView { round: number }
-export interface DeskDecision { round: number; decision: Recommendation; label: string; editor: string; decidedAt: string; reportsAttached: boolean }
+export interface DeskDispute {
+  disputeId: number;
+  stepId: number;
+  stepLabel: string;
+  state: string;
+  reviewerName: string;
+  since: string;
+  ageDays: number;
+}
+export interface DeskReport extends ReportView {
+  round: number;
+}
+export interface DeskDecision {
+  round: number;
+  decision: Recommendation;
+  label: string;
+  editor: string;
+  decidedAt: string;
+  reportsAttached: boolean;
+}
 
 export interface Desk {
   blind: boolean;
@@ -40,9 +57,32 @@ export async function getDesk(proofId: number, editor: Viewer, now = new Date())
     current,
     late: current && current.state === "open" ? current.referees.filter((r) => r.standing.late) : [],
     disputes: disputes
-      .map((d) => ({ disputeId: d.disputeId, stepId: d.stepId, stepLabel: d.stepLabel, state: d.state, reviewerName: d.reviewerName, since: d.since, ageDays: ageInDays(new Date(d.since), now) }))
+      .map((d) => ({
+        disputeId: d.disputeId,
+        stepId: d.stepId,
+        stepLabel: d.stepLabel,
+        state: d.state,
+        reviewerName: d.reviewerName,
+        since: d.since,
+        ageDays: ageInDays(new Date(d.since), now),
+      }))
       .sort((a, b) => b.ageDays - a.ageDays || compareStepLabels(a.stepLabel, b.stepLabel)),
     reports: rounds.flatMap((r) => r.reports.filter((x) => x.state === "submitted").map((x) => ({ ...x, round: r.number }))).reverse(),
-    decisions: rounds.flatMap((r) => (r.decision ? [{ round: r.number, decision: r.decision.decision, label: r.decision.label, editor: r.decision.editor, decidedAt: r.decision.decidedAt, reportsAttached: r.decision.reportsAttached }] : [])).reverse(),
+    decisions: rounds
+      .flatMap((r) =>
+        r.decision
+          ? [
+              {
+                round: r.number,
+                decision: r.decision.decision,
+                label: r.decision.label,
+                editor: r.decision.editor,
+                decidedAt: r.decision.decidedAt,
+                reportsAttached: r.decision.reportsAttached,
+              },
+            ]
+          : [],
+      )
+      .reverse(),
   };
 }

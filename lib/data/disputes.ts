@@ -45,7 +45,10 @@ export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget
     await DisputeTransition.create({ reviewId: d.id, actorId: actor.id, fromState: from, toState: to }, { transaction });
     if (comment) {
       const latest = await StepRevision.findOne({ where: { stepId: d.step.id }, order: [["number", "DESC"]], transaction });
-      await Comment.create({ stepId: d.step.id, reviewId: d.id, parentId: null, revisionId: latest?.id ?? null, authorId: actor.id, body: comment }, { transaction });
+      await Comment.create(
+        { stepId: d.step.id, reviewId: d.id, parentId: null, revisionId: latest?.id ?? null, authorId: actor.id, body: comment },
+        { transaction },
+      );
     }
     const recipients = to === "answered" ? [d.reviewerId] : [...(await authorsOf(d.step.proofId, transaction)), d.reviewerId];
     const where = await stepPhrase(d.step.id, transaction);
@@ -55,14 +58,18 @@ export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget
         kind: to === "answered" ? "dispute_answered" : to === "withdrawn" ? "dispute_withdrawn" : "dispute_upheld",
         proofId: d.step.proofId,
         stepId: d.step.id,
-        message: to === "answered"
-          ? `The authors answered your dispute on ${where}; withdraw it if you are satisfied, or uphold it.`
-          : `The dispute on ${where} was ${verbOf[to]}.`,
+        message:
+          to === "answered"
+            ? `The authors answered your dispute on ${where}; withdraw it if you are satisfied, or uphold it.`
+            : `The dispute on ${where} was ${verbOf[to]}.`,
         link: disputeLink(d.step.proofId, d.step.id, d.id),
       },
       transaction,
     );
-    await recordEvent({ proofId: d.step.proofId, actorId: actor.id, action: `dispute.${to}`, subjectType: "review", subjectId: d.id, detail: `${from} → ${to}` }, transaction);
+    await recordEvent(
+      { proofId: d.step.proofId, actorId: actor.id, action: `dispute.${to}`, subjectType: "review", subjectId: d.id, detail: `${from} → ${to}` },
+      transaction,
+    );
   });
   await deliverAfterCommit();
   return { state: to };

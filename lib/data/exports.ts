@@ -22,7 +22,6 @@ import { liveCases } from "./cases";
 import { listRoundViews } from "./rounds";
 import { recordEvent } from "./audit";
 
-
 const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: string } | undefined>)[as]?.name ?? "";
 
 /** The proof as it stands: live cases in order, each step's latest revision, all reviews and claims. */
@@ -31,16 +30,44 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
   const proof = await Proof.findByPk(proofId);
   if (!proof) return null;
   const [members, cases] = await Promise.all([
-    ProofMember.findAll({ where: { proofId }, include: [{ model: User, as: "user", attributes: ["name"] }], order: [["role", "ASC"], ["userId", "ASC"]] }),
+    ProofMember.findAll({
+      where: { proofId },
+      include: [{ model: User, as: "user", attributes: ["name"] }],
+      order: [
+        ["role", "ASC"],
+        ["userId", "ASC"],
+      ],
+    }),
     liveCases(proofId),
   ]);
-  const steps = cases.length ? await Step.findAll({ where: { caseId: cases.map((c) => c.id) }, order: [["position", "ASC"], ["id", "ASC"]] }) : [];
+  const steps = cases.length
+    ? await Step.findAll({
+        where: { caseId: cases.map((c) => c.id) },
+        order: [
+          ["position", "ASC"],
+          ["id", "ASC"],
+        ],
+      })
+    : [];
   const stepIds = steps.map((s) => s.id);
   const [revisions, reviews, claims] = stepIds.length
     ? await Promise.all([
         StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
-        Review.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "reviewer", attributes: ["name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-        Claim.findAll({ where: { stepId: stepIds }, order: [["position", "ASC"], ["id", "ASC"]] }),
+        Review.findAll({
+          where: { stepId: stepIds },
+          include: [{ model: User, as: "reviewer", attributes: ["name"] }],
+          order: [
+            ["createdAt", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
+        Claim.findAll({
+          where: { stepId: stepIds },
+          order: [
+            ["position", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
       ])
     : [[], [], []];
   const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
@@ -57,8 +84,12 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
       position: ordinal,
       revision: latest
         ? {
-            number: latest.number, body: latest.body, authorName: nameOf(latest, "author"), savedAt: latest.createdAt.toISOString(),
-            claims: claimsOf(latest).map((c) => ({ digest: c.digest, status: c.status })), digest: digestOf(latest),
+            number: latest.number,
+            body: latest.body,
+            authorName: nameOf(latest, "author"),
+            savedAt: latest.createdAt.toISOString(),
+            claims: claimsOf(latest).map((c) => ({ digest: c.digest, status: c.status })),
+            digest: digestOf(latest),
           }
         : null,
       authorIds: textAuthors(own),
@@ -123,8 +154,16 @@ async function exportedRounds(proofId: number): Promise<SnapshotRound[]> {
     openedAt: v.openedAt,
     dueAt: v.dueAt,
     closedAt: v.closedAt,
-    decision: v.decision && { decision: v.decision.decision, editor: v.decision.editor, decidedAt: v.decision.decidedAt, letter: v.decision.letter, reportsAttached: v.decision.reportsAttached },
-    reports: v.reports.filter((r) => r.state === "submitted").map((r) => ({ referee: r.referee, version: r.version, recommendation: r.recommendation, submittedAt: r.submittedAt, body: r.body })),
+    decision: v.decision && {
+      decision: v.decision.decision,
+      editor: v.decision.editor,
+      decidedAt: v.decision.decidedAt,
+      letter: v.decision.letter,
+      reportsAttached: v.decision.reportsAttached,
+    },
+    reports: v.reports
+      .filter((r) => r.state === "submitted")
+      .map((r) => ({ referee: r.referee, version: r.version, recommendation: r.recommendation, submittedAt: r.submittedAt, body: r.body })),
   }));
 }
 
@@ -169,19 +208,29 @@ export async function createExport(proofId: number, user: { id: number; name: st
   if (!snapshot) throw notFound("This proof");
   const certification = certificationOf(snapshot);
   if (kind === "certified" && certification.state !== "ready to certify")
-    throw conflict(`This proof is not ready to certify: ${certification.blockers.join(" ")} You can export a draft instead.`, { blockers: certification.blockers });
+    throw conflict(`This proof is not ready to certify: ${certification.blockers.join(" ")} You can export a draft instead.`, {
+      blockers: certification.blockers,
+    });
   const bundle = buildBundle(snapshot, { kind, exportedAt: new Date().toISOString(), exportedBy: user.name });
   if (kind === "certified") {
     // As a job in a worker process, not here: re-checking every claim of a large proof must not hold up other requests.
     // The wait covers the re-check's own limit (that of each claim, up to ten minutes) and a minute in the queue.
     const claims = bundle.items.filter((i) => i.type === "claim").length;
-    const report = await runBundleJob(JSON.parse(JSON.stringify(bundle)), claims, Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000) + 60_000).catch((e) => {
-      if (e instanceof QueueUnavailable) throw new AppError("unavailable", "Verification is paused (the job queue cannot be reached), so the bundle cannot be re-checked and certified now. Try again in a few minutes; a draft export works meanwhile.");
-      throw conflict(`The bundle could not be re-checked, so it cannot be certified: ${(e as Error).message}.`);
-    });
+    const report = await runBundleJob(JSON.parse(JSON.stringify(bundle)), claims, Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000) + 60_000).catch(
+      (e) => {
+        if (e instanceof QueueUnavailable)
+          throw new AppError(
+            "unavailable",
+            "Verification is paused (the job queue cannot be reached), so the bundle cannot be re-checked and certified now. Try again in a few minutes; a draft export works meanwhile.",
+          );
+        throw conflict(`The bundle could not be re-checked, so it cannot be certified: ${(e as Error).message}.`);
+      },
+    );
     const failing = report.lines.filter((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches));
     if (report.exitCode !== 0)
-      throw conflict(`The bundle does not re-check, so it cannot be certified: ${failing.map((l) => `${l.label}: ${l.certificate && !l.certificate.matches ? l.certificate.text : l.text}`).join("; ")}`);
+      throw conflict(
+        `The bundle does not re-check, so it cannot be certified: ${failing.map((l) => `${l.label}: ${l.certificate && !l.certificate.matches ? l.certificate.text : l.text}`).join("; ")}`,
+      );
   }
   const tex = renderLatex(documentOf(bundle));
   const { ProofExport } = models();
@@ -201,7 +250,14 @@ export async function createExport(proofId: number, user: { id: number; name: st
       { transaction },
     );
     await recordEvent(
-      { proofId, actorId: user.id, action: `export.${kind}`, subjectType: "proof", subjectId: proofId, detail: `${kind} export #${created.id}, manifest digest ${bundle.manifestDigest}` },
+      {
+        proofId,
+        actorId: user.id,
+        action: `export.${kind}`,
+        subjectType: "proof",
+        subjectId: proofId,
+        detail: `${kind} export #${created.id}, manifest digest ${bundle.manifestDigest}`,
+      },
       transaction,
     );
     return created;
@@ -215,7 +271,10 @@ export async function listExports(proofId: number): Promise<ExportSummary[]> {
     where: { proofId },
     attributes: { exclude: ["bundle", "tex"] },
     include: [{ model: User, as: "creator", attributes: ["name"] }],
-    order: [["createdAt", "DESC"], ["id", "DESC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
   });
   return rows.map(summaryOf);
 }

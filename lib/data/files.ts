@@ -58,7 +58,10 @@ export async function listStepFiles(proofId: number, stepId: number): Promise<St
 /** A display name for the stored row: the uploaded name without folders or control characters. */
 export function cleanFileName(name: string | null | undefined): string {
   const base = (name ?? "").split(/[\\/]/).pop() ?? "";
-  const clean = base.replace(/[\x00-\x1f\x7f"]/g, "").trim().slice(0, 200);
+  const clean = base
+    .replace(/[\x00-\x1f\x7f"]/g, "")
+    .trim()
+    .slice(0, 200);
   return clean || "upload";
 }
 
@@ -81,12 +84,23 @@ export async function saveStepFile(
     if (existing) return { row: existing, duplicate: true };
     const row = await StepFile.create(
       {
-        stepId, sha256: put.sha256, size: put.size, name: cleanFileName(name), kind: detected.kind, mediaType: detected.mediaType,
-        description: detected.description, graphFormat: detected.graphFormat, graphCount: detected.graphCount, uploadedBy: userId,
+        stepId,
+        sha256: put.sha256,
+        size: put.size,
+        name: cleanFileName(name),
+        kind: detected.kind,
+        mediaType: detected.mediaType,
+        description: detected.description,
+        graphFormat: detected.graphFormat,
+        graphCount: detected.graphCount,
+        uploadedBy: userId,
       },
       { transaction },
     );
-    await AuditEvent.create({ proofId, actorId: userId, action: "file.uploaded", subjectType: "step", subjectId: stepId, detail: `${row.name}: ${detected.description}` }, { transaction });
+    await AuditEvent.create(
+      { proofId, actorId: userId, action: "file.uploaded", subjectType: "step", subjectId: stepId, detail: `${row.name}: ${detected.description}` },
+      { transaction },
+    );
     return { row, duplicate: false };
   });
   const withUploader = await StepFile.findByPk(result.row.id, { include: [{ model: models().User, as: "uploader", attributes: ["name"] }] });

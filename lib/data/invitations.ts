@@ -56,7 +56,8 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
   const role = input.role ?? "reviewer";
   const caseIds = role === "reviewer" && input.scope === "cases" ? [...new Set(input.caseIds ?? [])] : [];
   const foreign = caseIds.filter((id) => !numbers.has(id));
-  if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
+  if (foreign.length)
+    throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
   const existing = await User.findOne({ where: { email: input.email } });
   const member = existing ? await ProofMember.findOne({ where: { proofId, userId: existing.id } }) : null;
   if (member) throw conflict(`${existing!.name} is already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof.`);
@@ -86,9 +87,26 @@ export async function createInvitation(proofId: number, inviter: CurrentUser, in
       },
       transaction,
     );
-    const inv = await Invitation.create({ proofId, email: input.email, tokenHash: hashToken(token), scope: caseIds.length ? "cases" : "proof", role, invitedBy: inviter.id, mailId, expiresAt }, { transaction });
-    if (caseIds.length) await InvitationCase.bulkCreate(caseIds.map((caseId) => ({ invitationId: inv.id, caseId })), { transaction });
-    await recordEvent({ proofId, actorId: inviter.id, action: "invitation.sent", subjectType: "invitation", subjectId: inv.id, detail: `${input.email}; ${role === "reviewer" ? scopeText : `as ${ROLE_WORD[role]}`}` }, transaction);
+    const inv = await Invitation.create(
+      { proofId, email: input.email, tokenHash: hashToken(token), scope: caseIds.length ? "cases" : "proof", role, invitedBy: inviter.id, mailId, expiresAt },
+      { transaction },
+    );
+    if (caseIds.length)
+      await InvitationCase.bulkCreate(
+        caseIds.map((caseId) => ({ invitationId: inv.id, caseId })),
+        { transaction },
+      );
+    await recordEvent(
+      {
+        proofId,
+        actorId: inviter.id,
+        action: "invitation.sent",
+        subjectType: "invitation",
+        subjectId: inv.id,
+        detail: `${input.email}; ${role === "reviewer" ? scopeText : `as ${ROLE_WORD[role]}`}`,
+      },
+      transaction,
+    );
     return { id: inv.id, mailId };
   });
   const sent = await deliverMail(mailId);
@@ -115,7 +133,13 @@ const stateOf = (r: { usedAt: Date | null; revokedAt: Date | null; expiresAt: Da
 export async function listInvitations(proofId: number, roles?: readonly ProofRole[]): Promise<InvitationView[]> {
   const { Invitation, InvitationCase, OutgoingMail } = models();
   if (roles && roles.length === 0) return [];
-  const rows = await Invitation.findAll({ where: roles ? { proofId, role: [...roles] } : { proofId }, order: [["createdAt", "DESC"], ["id", "DESC"]] });
+  const rows = await Invitation.findAll({
+    where: roles ? { proofId, role: [...roles] } : { proofId },
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+  });
   const ids = rows.map((r) => r.id);
   const [scopes, mails, numbers] = await Promise.all([
     ids.length ? InvitationCase.findAll({ where: { invitationId: ids } }) : [],
@@ -129,7 +153,14 @@ export async function listInvitations(proofId: number, roles?: readonly ProofRol
       id: r.id,
       email: r.email,
       role: r.role,
-      scope: r.scope === "proof" ? "whole proof" : `cases ${scopes.filter((s) => s.invitationId === r.id).map((s) => numbers.get(s.caseId) ?? "?").sort().join(", ")}`,
+      scope:
+        r.scope === "proof"
+          ? "whole proof"
+          : `cases ${scopes
+              .filter((s) => s.invitationId === r.id)
+              .map((s) => numbers.get(s.caseId) ?? "?")
+              .sort()
+              .join(", ")}`,
       state: stateOf(r, now),
       expiresAt: r.expiresAt.toISOString(),
       createdAt: r.createdAt.toISOString(),
@@ -168,7 +199,11 @@ export async function revokeInvitation(proofId: number, invitationId: number, ac
     if (inv.revokedAt) throw conflict("This invitation was already revoked.", { reason: "revoked" });
     await inv.update({ revokedAt: new Date(), revokedBy: actorId }, { transaction });
     // A mail still being retried would carry a dead link: mark it failed so that it is not sent.
-    if (inv.mailId) await OutgoingMail.update({ status: "failed", lastError: "not sent: the invitation was revoked" }, { where: { id: inv.mailId, status: "pending" }, transaction });
+    if (inv.mailId)
+      await OutgoingMail.update(
+        { status: "failed", lastError: "not sent: the invitation was revoked" },
+        { where: { id: inv.mailId, status: "pending" }, transaction },
+      );
     await recordEvent({ proofId, actorId, action: "invitation.revoked", subjectType: "invitation", subjectId: inv.id, detail: inv.email }, transaction);
   });
 }
@@ -194,20 +229,33 @@ export async function previewInvitation(token: string): Promise<InvitationPrevie
     User.findOne({ where: { email: inv.email } }),
     listInvitations(inv.proofId).then((all) => all.find((v) => v.id === inv.id)!),
   ]);
-  return { proofTitle: proof?.title ?? "", role: inv.role, email: inv.email, scope: view.scope, inviterName: inviter?.name ?? "", state: view.state, accountExists: account !== null };
+  return {
+    proofTitle: proof?.title ?? "",
+    role: inv.role,
+    email: inv.email,
+    scope: view.scope,
+    inviterName: inviter?.name ?? "",
+    state: view.state,
+    accountExists: account !== null,
+  };
 }
 
 /**
  * Accepts an invitation: once, before it expires, as the invited address. Signed out, it creates the
  * account from `input` (an existing account must sign in first). One transaction: nothing changes on refusal.
  */
-export async function acceptInvitation(token: string, signedIn: CurrentUser | null, input: AcceptInvitationInput): Promise<{ proofId: number; userId: number; accountCreated: boolean }> {
+export async function acceptInvitation(
+  token: string,
+  signedIn: CurrentUser | null,
+  input: AcceptInvitationInput,
+): Promise<{ proofId: number; userId: number; accountCreated: boolean }> {
   const { Invitation, InvitationCase, User, ProofMember, ReviewerScope } = models();
   const result = await getSequelize().transaction(async (transaction) => {
     const inv = await Invitation.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction.LOCK.UPDATE });
     if (!inv) throw notFound("This invitation link");
     if (inv.usedAt) throw conflict("This invitation link was already used. Ask the editor for a new one if you still need to join.", { reason: "used" });
-    if (inv.revokedAt) throw conflict("This invitation was withdrawn by the proof's editor. Ask them for a new one if you should still join.", { reason: "revoked" });
+    if (inv.revokedAt)
+      throw conflict("This invitation was withdrawn by the proof's editor. Ask them for a new one if you should still join.", { reason: "revoked" });
     if (inv.expiresAt.getTime() < Date.now()) throw conflict("This invitation link has expired. Ask the editor to send a new one.", { reason: "expired" });
     let userId: number;
     let accountCreated = false;
@@ -216,15 +264,20 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
         throw forbidden(`This invitation was sent to ${inv.email}, but you are signed in as ${signedIn.email}. Sign in with the invited address.`);
       userId = signedIn.id;
     } else {
-      if (await User.findOne({ where: { email: inv.email }, transaction })) throw conflict(`An account for ${inv.email} exists already: sign in, then open the link again.`, { reason: "sign_in" });
+      if (await User.findOne({ where: { email: inv.email }, transaction }))
+        throw conflict(`An account for ${inv.email} exists already: sign in, then open the link again.`, { reason: "sign_in" });
       const parsed = newAccountSchema.safeParse(input);
       if (!parsed.success) throw invalid("Choose your name and a password for your new account.", zodIssues(parsed.error));
-      const user = await User.create({ email: inv.email, name: parsed.data.name, passwordHash: await bcrypt.hash(parsed.data.password, 10), role: "member" }, { transaction });
+      const user = await User.create(
+        { email: inv.email, name: parsed.data.name, passwordHash: await bcrypt.hash(parsed.data.password, 10), role: "member" },
+        { transaction },
+      );
       userId = user.id;
       accountCreated = true;
     }
     const member = await ProofMember.findOne({ where: { proofId: inv.proofId, userId }, transaction });
-    if (member && member.role !== inv.role) throw conflict(`You are already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof; one person has one role per proof.`);
+    if (member && member.role !== inv.role)
+      throw conflict(`You are already ${member.role === "author" ? "an" : "a"} ${member.role} of this proof; one person has one role per proof.`);
     const caseIds = (await InvitationCase.findAll({ where: { invitationId: inv.id }, transaction })).map((c) => c.caseId);
     const hadScopes = member ? (await ReviewerScope.count({ where: { proofId: inv.proofId, userId }, transaction })) > 0 : false;
     if (!member) await ProofMember.create({ proofId: inv.proofId, userId, role: inv.role }, { transaction });
@@ -232,15 +285,39 @@ export async function acceptInvitation(token: string, signedIn: CurrentUser | nu
       // co-authors and editors see the whole proof: nothing to scope
     } else if (inv.scope === "proof") await ReviewerScope.destroy({ where: { proofId: inv.proofId, userId }, transaction });
     else if (!member || hadScopes)
-      for (const caseId of caseIds) await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
+      for (const caseId of caseIds)
+        await ReviewerScope.findOrCreate({ where: { proofId: inv.proofId, userId, caseId }, defaults: { proofId: inv.proofId, userId, caseId }, transaction });
     await inv.update({ usedAt: new Date(), usedBy: userId }, { transaction });
-    await recordEvent({ proofId: inv.proofId, actorId: userId, action: "invitation.accepted", subjectType: "invitation", subjectId: inv.id, detail: inv.role === "reviewer" ? `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})` : `joined as ${ROLE_WORD[inv.role as ProofRole]}` }, transaction);
+    await recordEvent(
+      {
+        proofId: inv.proofId,
+        actorId: userId,
+        action: "invitation.accepted",
+        subjectType: "invitation",
+        subjectId: inv.id,
+        detail:
+          inv.role === "reviewer"
+            ? `joined as reviewer (${inv.scope === "proof" ? "whole proof" : "chosen cases"})`
+            : `joined as ${ROLE_WORD[inv.role as ProofRole]}`,
+      },
+      transaction,
+    );
     const title = (await models().Proof.findByPk(inv.proofId, { attributes: ["title"], transaction }))?.title ?? "";
     await notify(
       [userId],
       inv.role === "reviewer"
-        ? { kind: "assigned", proofId: inv.proofId, message: `You are now a referee of “${title}”${inv.scope === "proof" ? "" : ` (${caseIds.length} chosen case${caseIds.length === 1 ? "" : "s"})`}. Your queue lists its steps waiting for your verdict.`, link: "/queue" }
-        : { kind: "assigned", proofId: inv.proofId, message: `You are now ${inv.role === "author" ? "a co-author" : "an editor"} of “${title}”.`, link: `/proofs/${inv.proofId}` },
+        ? {
+            kind: "assigned",
+            proofId: inv.proofId,
+            message: `You are now a referee of “${title}”${inv.scope === "proof" ? "" : ` (${caseIds.length} chosen case${caseIds.length === 1 ? "" : "s"})`}. Your queue lists its steps waiting for your verdict.`,
+            link: "/queue",
+          }
+        : {
+            kind: "assigned",
+            proofId: inv.proofId,
+            message: `You are now ${inv.role === "author" ? "a co-author" : "an editor"} of “${title}”.`,
+            link: `/proofs/${inv.proofId}`,
+          },
       transaction,
     );
     return { proofId: inv.proofId, userId, accountCreated };
@@ -256,7 +333,10 @@ export async function shareWholeProof(proofId: number, reviewerId: number, actor
     const member = await ProofMember.findOne({ where: { proofId, userId: reviewerId, role: "reviewer" }, transaction });
     if (!member) throw notFound("This reviewer");
     await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
-    await recordEvent({ proofId, actorId, action: "member.scope_shared", subjectType: "member", subjectId: reviewerId, detail: "whole proof shared" }, transaction);
+    await recordEvent(
+      { proofId, actorId, action: "member.scope_shared", subjectType: "member", subjectId: reviewerId, detail: "whole proof shared" },
+      transaction,
+    );
   });
 }
 
@@ -266,13 +346,20 @@ export async function setReviewerCases(proofId: number, reviewerId: number, acto
   const numbers = await caseNumbers(proofId);
   const chosen = [...new Set(caseIds)];
   const foreign = chosen.filter((id) => !numbers.has(id));
-  if (foreign.length) throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
-  const scope = `case${chosen.length > 1 ? "s" : ""} ${chosen.map((id) => numbers.get(id)).sort().join(", ")}`;
+  if (foreign.length)
+    throw invalid("Some chosen cases are not cases of this proof.", [{ path: "caseIds", message: `not in this proof: ${foreign.join(", ")}` }]);
+  const scope = `case${chosen.length > 1 ? "s" : ""} ${chosen
+    .map((id) => numbers.get(id))
+    .sort()
+    .join(", ")}`;
   await getSequelize().transaction(async (transaction) => {
     const member = await ProofMember.findOne({ where: { proofId, userId: reviewerId, role: "reviewer" }, transaction });
     if (!member) throw notFound("This reviewer");
     await ReviewerScope.destroy({ where: { proofId, userId: reviewerId }, transaction });
-    await ReviewerScope.bulkCreate(chosen.map((caseId) => ({ proofId, userId: reviewerId, caseId })), { transaction });
+    await ReviewerScope.bulkCreate(
+      chosen.map((caseId) => ({ proofId, userId: reviewerId, caseId })),
+      { transaction },
+    );
     await recordEvent({ proofId, actorId, action: "member.scope_changed", subjectType: "member", subjectId: reviewerId, detail: scope }, transaction);
   });
   return { scope };

@@ -45,7 +45,11 @@ export async function removeMember(proofId: number, userId: number, actorId: num
     const open = (await ReviewRound.findAll({ where: { proofId, closedAt: null }, attributes: ["id"], transaction })).map((r) => r.id);
     if (open.length) {
       await RefereeReport.destroy({ where: { roundId: open, refereeId: userId, submittedAt: null }, transaction });
-      const reported = await RefereeReport.findAll({ where: { roundId: open, refereeId: userId, submittedAt: { [Op.ne]: null } }, attributes: ["roundId"], transaction });
+      const reported = await RefereeReport.findAll({
+        where: { roundId: open, refereeId: userId, submittedAt: { [Op.ne]: null } },
+        attributes: ["roundId"],
+        transaction,
+      });
       const keep = new Set(reported.map((r) => r.roundId));
       const drop = open.filter((id) => !keep.has(id));
       if (drop.length) await RoundReferee.destroy({ where: { roundId: drop, userId }, transaction });
@@ -53,7 +57,14 @@ export async function removeMember(proofId: number, userId: number, actorId: num
     await member.destroy({ transaction });
     const name = (await User.findByPk(userId, { attributes: ["name"], transaction }))?.name ?? "";
     await recordEvent(
-      { proofId, actorId, action: actorId === userId ? "member.left" : "member.removed", subjectType: "member", subjectId: userId, detail: `${name} (${ROLE_WORD[member.role]})` },
+      {
+        proofId,
+        actorId,
+        action: actorId === userId ? "member.left" : "member.removed",
+        subjectType: "member",
+        subjectId: userId,
+        detail: `${name} (${ROLE_WORD[member.role]})`,
+      },
       transaction,
     );
     return { removed: userId, role: member.role };
@@ -73,7 +84,17 @@ export async function transferOwnership(proofId: number, toUserId: number, actor
     // The owner is the proof's `createdBy` (lib/access: isOwner); handing over moves it.
     await proof.update({ createdBy: toUserId }, { transaction });
     const name = (await User.findByPk(toUserId, { attributes: ["name"], transaction }))?.name ?? "";
-    await recordEvent({ proofId, actorId, action: "member.owner_changed", subjectType: "member", subjectId: toUserId, detail: `ownership handed to ${name} (${ROLE_WORD[member.role]})` }, transaction);
+    await recordEvent(
+      {
+        proofId,
+        actorId,
+        action: "member.owner_changed",
+        subjectType: "member",
+        subjectId: toUserId,
+        detail: `ownership handed to ${name} (${ROLE_WORD[member.role]})`,
+      },
+      transaction,
+    );
     return { ownerId: toUserId };
   });
 }

@@ -67,7 +67,14 @@ export interface NotificationView {
 
 export async function listNotifications(userId: number, limit = 200): Promise<NotificationView[]> {
   const { Notification } = models();
-  const rows = await Notification.findAll({ where: { userId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
+  const rows = await Notification.findAll({
+    where: { userId },
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    limit,
+  });
   return rows.map((n) => ({ id: n.id, kind: n.kind, message: n.message, link: n.link, read: n.readAt !== null, at: n.createdAt.toISOString() }));
 }
 

@@ -10,10 +10,7 @@ export async function createProof(userId: number, input: CreateProofInput): Prom
   return getSequelize().transaction(async (transaction) => {
     const proof = await Proof.create({ title: input.title, statement: input.statement, createdBy: userId }, { transaction });
     await ProofMember.create({ proofId: proof.id, userId, role: "author" }, { transaction });
-    await recordEvent(
-      { proofId: proof.id, actorId: userId, action: "proof.created", subjectType: "proof", subjectId: proof.id, detail: null },
-      transaction,
-    );
+    await recordEvent({ proofId: proof.id, actorId: userId, action: "proof.created", subjectType: "proof", subjectId: proof.id, detail: null }, transaction);
     return { id: proof.id };
   });
 }

@@ -27,8 +27,7 @@ export async function listProofsForUser(userId: number): Promise<ProofListItem[]
     Case.count({ where: { proofId: ids }, group: ["proofId"] }),
     ProofMember.count({ where: { proofId: ids }, group: ["proofId"] }),
   ]);
-  const countOf = (rows: Array<{ proofId?: number; count: number }>, id: number) =>
-    Number(rows.find((r) => Number(r.proofId) === id)?.count ?? 0);
+  const countOf = (rows: Array<{ proofId?: number; count: number }>, id: number) => Number(rows.find((r) => Number(r.proofId) === id)?.count ?? 0);
   return memberships
     .map((m) => {
       const p = (m as unknown as { proof: { id: number; title: string; updatedAt: Date } }).proof;

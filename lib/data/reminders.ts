@@ -23,7 +23,10 @@ const day = (d: Date) => d.toISOString().slice(0, 10);
 
 function reminderText(kind: ReminderKind, title: string, round: number, dueAt: Date, now: Date, proofId: number) {
   const days = Math.max(1, Math.round(Math.abs(dueAt.getTime() - now.getTime()) / 86_400_000));
-  const when = kind === "before" ? `is due on ${day(dueAt)} (in ${days} day${days === 1 ? "" : "s"})` : `was due on ${day(dueAt)}, ${days} day${days === 1 ? "" : "s"} ago`;
+  const when =
+    kind === "before"
+      ? `is due on ${day(dueAt)} (in ${days} day${days === 1 ? "" : "s"})`
+      : `was due on ${day(dueAt)}, ${days} day${days === 1 ? "" : "s"} ago`;
   return {
     subject: `[Cairn] ${kind === "before" ? "Reminder" : "Overdue"}: your report for round ${round} of “${title.slice(0, 200)}”`,
     text: [

@@ -50,17 +50,37 @@ export interface StepReviewView {
 export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepReviewView> {
   const { Review, Comment, DisputeTransition, StepRevision, User, Proof } = models();
   const [reviews, comments, revisions, proof] = await Promise.all([
-    Review.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
-    Comment.findAll({ where: { stepId: step.id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+    Review.findAll({
+      where: { stepId: step.id },
+      order: [
+        ["createdAt", "ASC"],
+        ["id", "ASC"],
+      ],
+    }),
+    Comment.findAll({
+      where: { stepId: step.id },
+      order: [
+        ["createdAt", "ASC"],
+        ["id", "ASC"],
+      ],
+    }),
     StepRevision.findAll({ where: { stepId: step.id } }),
     Proof.findByPk(step.proofId, { attributes: ["requiredApprovals"] }),
   ]);
   const transitions = reviews.length
-    ? await DisputeTransition.findAll({ where: { reviewId: reviews.map((r) => r.id) }, order: [["createdAt", "ASC"], ["id", "ASC"]] })
+    ? await DisputeTransition.findAll({
+        where: { reviewId: reviews.map((r) => r.id) },
+        order: [
+          ["createdAt", "ASC"],
+          ["id", "ASC"],
+        ],
+      })
     : [];
   const userIds = [...new Set([...reviews.map((r) => r.reviewerId), ...comments.map((c) => c.authorId), ...transitions.map((t) => t.actorId)])];
   const lens = await refereeLens(step.proofId, viewer);
-  const names = new Map((userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, lens.name(u.id, u.name)]));
+  const names = new Map(
+    (userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ["id", "name"] }) : []).map((u) => [u.id, lens.name(u.id, u.name)]),
+  );
   const numberOf = new Map(revisions.map((r) => [r.id, r.number]));
   const latestNumber = step.latest?.number ?? 0;
   const required = proof?.requiredApprovals ?? 1;
@@ -68,7 +88,12 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     {
       id: step.id,
       latestRevision: latestNumber,
-      reviews: reviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, disputeState: r.disputeState })),
+      reviews: reviews.map((r) => ({
+        reviewerId: r.reviewerId,
+        revisionNumber: numberOf.get(r.revisionId) ?? 0,
+        verdict: r.verdict,
+        disputeState: r.disputeState,
+      })),
       claims: await claimStatuses([step.id]).then((m) => m.get(step.id) ?? []),
       authorIds: step.authorIds,
     },
@@ -76,7 +101,18 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   );
   const tree = (rows: typeof comments): CommentNode[] => {
     const nodes = new Map<number, CommentNode>(
-      rows.map((c) => [c.id, { id: c.id, authorId: lens.id(c.authorId), authorName: names.get(c.authorId) ?? "", body: c.body, revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null, at: c.createdAt.toISOString(), replies: [] }]),
+      rows.map((c) => [
+        c.id,
+        {
+          id: c.id,
+          authorId: lens.id(c.authorId),
+          authorName: names.get(c.authorId) ?? "",
+          body: c.body,
+          revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null,
+          at: c.createdAt.toISOString(),
+          replies: [],
+        },
+      ]),
     );
     const roots: CommentNode[] = [];
     for (const c of rows) (c.parentId && nodes.has(c.parentId) ? nodes.get(c.parentId)!.replies : roots).push(nodes.get(c.id)!);
@@ -91,7 +127,12 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   return {
     stepId: step.id,
     latestRevision: latestRow
-      ? { id: latestRow.id, number: latestRow.number, digest: digestOf(latestRow), pendingClaims: claimsOf(latestRow).filter((c) => c.status === "pending").length }
+      ? {
+          id: latestRow.id,
+          number: latestRow.number,
+          digest: digestOf(latestRow),
+          pendingClaims: claimsOf(latestRow).filter((c) => c.status === "pending").length,
+        }
       : null,
     mine: { vouchedAt: mineNow ? mineNow.createdAt.toISOString() : null },
     requiredApprovals: required,

@@ -29,7 +29,12 @@ export async function loadStep(proofId: number, stepId: number, transaction?: Tr
   const { StepRevision } = models();
   // A step under a deleted case, however high up, is gone (as GET says): no verdict, comment or dispute on it.
   const { step, node: c } = await stepInProof(proofId, stepId, transaction);
-  const revisions = await StepRevision.findAll({ where: { stepId }, attributes: ["id", "number", "authorId", "origin"], order: [["number", "DESC"]], transaction });
+  const revisions = await StepRevision.findAll({
+    where: { stepId },
+    attributes: ["id", "number", "authorId", "origin"],
+    order: [["number", "DESC"]],
+    transaction,
+  });
   return {
     id: step.id,
     caseId: c.id,
@@ -60,7 +65,8 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
   const { Review, StepRevision, Comment, DisputeTransition } = models();
   const result = await getSequelize().transaction(async (transaction) => {
     const revision = await StepRevision.findByPk(input.revisionId, { transaction });
-    if (!revision || revision.stepId !== step.id) throw invalid("That revision does not belong to this step.", [{ path: "revisionId", message: "not a revision of this step" }]);
+    if (!revision || revision.stepId !== step.id)
+      throw invalid("That revision does not belong to this step.", [{ path: "revisionId", message: "not a revision of this step" }]);
     // The step row lock serialises this verdict against claim changes: a claim attached, withdrawn or
     // re-decided meanwhile made a newer revision, and the verdict is refused rather than moved onto it.
     const latest = await lockLatest(step.id, transaction);
@@ -73,19 +79,25 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
     }
     const digest = digestOf(latest);
     if (input.digest && input.digest !== digest)
-      throw conflict(`The claims of revision ${latest.number} changed while you were reading it (a verdict came in). Read it again and give your verdict on what it now says.`, {
-        latestRevisionId: latest.id,
-        latestRevisionNumber: latest.number,
-        digest,
-      });
+      throw conflict(
+        `The claims of revision ${latest.number} changed while you were reading it (a verdict came in). Read it again and give your verdict on what it now says.`,
+        {
+          latestRevisionId: latest.id,
+          latestRevisionNumber: latest.number,
+          digest,
+        },
+      );
     const mine = await Review.findAll({ where: { stepId: step.id, reviewerId: actor.id }, transaction });
     const unresolved = mine.find((r) => r.verdict === "dispute" && r.disputeState !== "withdrawn");
     if (input.verdict === "vouch") {
       const pending = claimsOf(latest).filter((c) => c.status === "pending");
       if (pending.length)
-        throw conflict(`Claim${pending.length > 1 ? "s" : ""} ${pending.map((c) => `#${c.id}`).join(", ")} of revision ${latest.number} ${pending.length > 1 ? "are" : "is"} still being checked; a vouch covers the verdicts too, so vouch once ${pending.length > 1 ? "they are" : "it is"} decided.`, {
-          pendingClaimIds: pending.map((c) => c.id),
-        });
+        throw conflict(
+          `Claim${pending.length > 1 ? "s" : ""} ${pending.map((c) => `#${c.id}`).join(", ")} of revision ${latest.number} ${pending.length > 1 ? "are" : "is"} still being checked; a vouch covers the verdicts too, so vouch once ${pending.length > 1 ? "they are" : "it is"} decided.`,
+          {
+            pendingClaimIds: pending.map((c) => c.id),
+          },
+        );
       if (unresolved) throw conflict("You have an unresolved dispute on this step; withdraw it before vouching for the step.", { disputeId: unresolved.id });
       const existing = mine.find((r) => r.verdict === "vouch" && r.revisionId === revision.id);
       if (existing) return { reviewId: existing.id, created: false };
@@ -93,16 +105,28 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
       throw conflict("You already have an unresolved dispute on this step; add to its thread instead.", { disputeId: unresolved.id });
     }
     const review = await Review.create(
-      { stepId: step.id, revisionId: revision.id, reviewerId: actor.id, verdict: input.verdict, disputeState: input.verdict === "dispute" ? "raised" : null, digest },
+      {
+        stepId: step.id,
+        revisionId: revision.id,
+        reviewerId: actor.id,
+        verdict: input.verdict,
+        disputeState: input.verdict === "dispute" ? "raised" : null,
+        digest,
+      },
       { transaction },
     );
     if (input.verdict === "dispute") {
-      await Comment.create({ stepId: step.id, reviewId: review.id, parentId: null, revisionId: revision.id, authorId: actor.id, body: input.comment ?? "" }, { transaction });
+      await Comment.create(
+        { stepId: step.id, reviewId: review.id, parentId: null, revisionId: revision.id, authorId: actor.id, body: input.comment ?? "" },
+        { transaction },
+      );
       await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
       await notify(
         (await authorsOf(step.proofId, transaction)).concat(step.authorIds).filter((id) => id !== actor.id),
         {
-          kind: "dispute_raised", proofId: step.proofId, stepId: step.id,
+          kind: "dispute_raised",
+          proofId: step.proofId,
+          stepId: step.id,
           message: `A referee raised a dispute on revision ${revision.number} of ${await stepPhrase(step.id, transaction)}, a step you are an author of.`,
           link: `${stepLink(step.proofId, step.id)}#dispute-${review.id}`,
         },
@@ -139,7 +163,8 @@ export async function addComment(step: StepRef, actor: Actor, input: CommentInpu
     let reviewId = input.reviewId ?? null;
     if (input.parentId) {
       const parent = await Comment.findByPk(input.parentId, { transaction });
-      if (!parent || parent.stepId !== step.id) throw invalid("You can only reply to a comment on this step.", [{ path: "parentId", message: "not a comment on this step" }]);
+      if (!parent || parent.stepId !== step.id)
+        throw invalid("You can only reply to a comment on this step.", [{ path: "parentId", message: "not a comment on this step" }]);
       reviewId = parent.reviewId;
     }
     if (reviewId) {
@@ -151,7 +176,17 @@ export async function addComment(step: StepRef, actor: Actor, input: CommentInpu
       { stepId: step.id, reviewId, parentId: input.parentId ?? null, revisionId: step.latest?.id ?? null, authorId: actor.id, body: input.body },
       { transaction },
     );
-    await recordEvent({ proofId: step.proofId, actorId: actor.id, action: "comment.added", subjectType: "step", subjectId: step.id, detail: reviewId ? `in dispute #${reviewId}` : undefined }, transaction);
+    await recordEvent(
+      {
+        proofId: step.proofId,
+        actorId: actor.id,
+        action: "comment.added",
+        subjectType: "step",
+        subjectId: step.id,
+        detail: reviewId ? `in dispute #${reviewId}` : undefined,
+      },
+      transaction,
+    );
     return { id: comment.id };
   });
 }
@@ -173,6 +208,9 @@ export async function setRequiredApprovals(proofId: number, actorId: number, req
     if (!proof) throw notFound("This proof");
     const before = proof.requiredApprovals;
     await proof.update({ requiredApprovals }, { transaction });
-    await recordEvent({ proofId, actorId, action: "settings.required_approvals", subjectType: "settings", subjectId: proofId, detail: `${before} → ${requiredApprovals}` }, transaction);
+    await recordEvent(
+      { proofId, actorId, action: "settings.required_approvals", subjectType: "settings", subjectId: proofId, detail: `${before} → ${requiredApprovals}` },
+      transaction,
+    );
   });
 }

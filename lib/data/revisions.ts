@@ -10,17 +10,27 @@ import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
 import { placePhrase, type EventPlace } from "@/lib/review/event-sentences";
-import {
-  claimSetText, compareRevisions, describeChange, digestOfRevision, ordered, parseClaimSet, type RevisionClaim,
-} from "@/lib/review/revisions";
+import { claimSetText, compareRevisions, describeChange, digestOfRevision, ordered, parseClaimSet, type RevisionClaim } from "@/lib/review/revisions";
 import type { ClaimStatus } from "@/lib/review/states";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
 
 type RevisionRow = InstanceType<ReturnType<typeof models>["StepRevision"]>;
 
-export const revisionClaimOf = (c: { id: number; position: number; kind: string; statement: string | null; digest: string | null; status: ClaimStatus }): RevisionClaim => ({
-  id: c.id, position: c.position, kind: c.kind, statement: c.statement, digest: c.digest ?? "", status: c.status,
+export const revisionClaimOf = (c: {
+  id: number;
+  position: number;
+  kind: string;
+  statement: string | null;
+  digest: string | null;
+  status: ClaimStatus;
+}): RevisionClaim => ({
+  id: c.id,
+  position: c.position,
+  kind: c.kind,
+  statement: c.statement,
+  digest: c.digest ?? "",
+  status: c.status,
 });
 
 /** The claim set a revision covers. */
@@ -50,13 +60,22 @@ export async function stepPhrase(stepId: number, transaction?: Transaction): Pro
     Step.findAll({ where: { caseId: here.id }, attributes: ["id", "caseId", "position"], transaction }),
     Proof.findByPk(here.proofId, { attributes: ["title"], transaction }),
   ]);
-  const numbers = new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+  const numbers = new Map(
+    flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
+  );
   const place: EventPlace = { step: labelSteps(numbers, siblings).get(step.id) ?? null, caseNumber: numbers.get(here.id) ?? null, caseTitle: here.title };
   return `${placePhrase(place)} of “${proof?.title ?? ""}”`;
 }
 
 /** Tells every referee who vouched for `previous` that the new revision supersedes it, and why. */
-export async function noticeSuperseded(proofId: number, stepId: number, previous: RevisionRow, created: RevisionRow, actorId: number, transaction: Transaction): Promise<void> {
+export async function noticeSuperseded(
+  proofId: number,
+  stepId: number,
+  previous: RevisionRow,
+  created: RevisionRow,
+  actorId: number,
+  transaction: Transaction,
+): Promise<void> {
   const vouches = await models().Review.findAll({ where: { stepId, revisionId: previous.id, verdict: "vouch" }, attributes: ["reviewerId"], transaction });
   const recipients = vouches.map((v) => v.reviewerId).filter((id) => id !== actorId);
   if (recipients.length === 0) return;
@@ -79,7 +98,12 @@ export async function noticeSuperseded(proofId: number, stepId: number, previous
  * unchanged. The step row must already be locked by this transaction (lockLatest).
  */
 export async function reviseClaims(
-  proofId: number, stepId: number, actorId: number, transaction: Transaction, latest: RevisionRow | null, next: (claims: RevisionClaim[]) => RevisionClaim[],
+  proofId: number,
+  stepId: number,
+  actorId: number,
+  transaction: Transaction,
+  latest: RevisionRow | null,
+  next: (claims: RevisionClaim[]) => RevisionClaim[],
 ): Promise<RevisionRow | null> {
   if (!latest) return null;
   const before = claimsOf(latest);
@@ -88,10 +112,22 @@ export async function reviseClaims(
   if (change.added.length + change.withdrawn.length + change.redecided.length === 0) return null;
   const number = latest.number + 1;
   const created = await models().StepRevision.create(
-    { stepId, number, body: latest.body, authorId: actorId, baseRevisionId: latest.id, claimSet: claimSetText(after), digest: digestOfRevision(number, latest.body, after), origin: "claims" },
+    {
+      stepId,
+      number,
+      body: latest.body,
+      authorId: actorId,
+      baseRevisionId: latest.id,
+      claimSet: claimSetText(after),
+      digest: digestOfRevision(number, latest.body, after),
+      origin: "claims",
+    },
     { transaction },
   );
-  await recordEvent({ proofId, actorId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${number}: ${describeChange(change)}` }, transaction);
+  await recordEvent(
+    { proofId, actorId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${number}: ${describeChange(change)}` },
+    transaction,
+  );
   await noticeSuperseded(proofId, stepId, latest, created, actorId, transaction);
   return created;
 }

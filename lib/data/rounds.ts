@@ -12,8 +12,16 @@ import { buildCaseTree, compareStepLabels, flattenCaseTree, stepLabel } from "@/
 import { deliverAfterCommit, enqueueMail } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
 import {
-  isFinalDecision, mayDoInRound, recommendationLabel, refereeDisplayName, refereeStanding, reportAccess, roundRefusal,
-  type Recommendation, type RefereeStanding, type RoundAction,
+  isFinalDecision,
+  mayDoInRound,
+  recommendationLabel,
+  refereeDisplayName,
+  refereeStanding,
+  reportAccess,
+  roundRefusal,
+  type Recommendation,
+  type RefereeStanding,
+  type RoundAction,
 } from "@/lib/review/rounds";
 import type { ProofRole } from "@/lib/access/rules";
 import type { ReviewRound } from "@/models/review-round";
@@ -43,9 +51,12 @@ export async function loadRound(proofId: number, number: number, transaction?: T
 }
 
 const closedConflict = (round: ReviewRound) =>
-  conflict(`Round ${round.number} is closed: the editor recorded its decision on ${day(round.closedAt!)}. Reports for it can no longer be submitted or changed.`, {
-    round: { number: round.number, state: stateOf(round), closedAt: round.closedAt!.toISOString() },
-  });
+  conflict(
+    `Round ${round.number} is closed: the editor recorded its decision on ${day(round.closedAt!)}. Reports for it can no longer be submitted or changed.`,
+    {
+      round: { number: round.number, state: stateOf(round), closedAt: round.closedAt!.toISOString() },
+    },
+  );
 
 export interface Referee {
   userId: number;
@@ -63,7 +74,14 @@ export interface Referee {
  */
 export async function listReferees(proofId: number, transaction?: Transaction): Promise<Referee[]> {
   const { ProofMember, FormerMember, User, ReviewRound, RefereeReport } = models();
-  const members = await ProofMember.findAll({ where: { proofId, role: "reviewer" }, order: [["createdAt", "ASC"], ["userId", "ASC"]], transaction });
+  const members = await ProofMember.findAll({
+    where: { proofId, role: "reviewer" },
+    order: [
+      ["createdAt", "ASC"],
+      ["userId", "ASC"],
+    ],
+    transaction,
+  });
   // Removed referees keep their number (their vouches and reports stay in the record): present and
   // former referees are numbered together by when they first joined.
   const former = await FormerMember.findAll({ where: { proofId, role: "reviewer" }, transaction });
@@ -93,16 +111,26 @@ export async function openRound(proofId: number, actorId: number, dueAt: Date): 
   const number = await getSequelize().transaction(async (transaction) => {
     await Proof.findByPk(proofId, { transaction, lock: transaction.LOCK.UPDATE }); // one opener at a time
     const last = await ReviewRound.findOne({ where: { proofId }, order: [["number", "DESC"]], transaction });
-    if (last && !last.closedAt) throw conflict(`Round ${last.number} is still open; record its decision before opening the next.`, { round: { number: last.number, state: "open" } });
+    if (last && !last.closedAt)
+      throw conflict(`Round ${last.number} is still open; record its decision before opening the next.`, { round: { number: last.number, state: "open" } });
     if (last) {
       const decision = await RoundDecision.findOne({ where: { roundId: last.id }, transaction });
       if (decision && isFinalDecision(decision.decision))
-        throw conflict(`Round ${last.number} ended with the final decision “${recommendationLabel[decision.decision]}”; no further round is opened.`, { round: { number: last.number, state: "decided" } });
+        throw conflict(`Round ${last.number} ended with the final decision “${recommendationLabel[decision.decision]}”; no further round is opened.`, {
+          round: { number: last.number, state: "decided" },
+        });
     }
     const round = await ReviewRound.create({ proofId, number: (last?.number ?? 0) + 1, dueAt, openedBy: actorId }, { transaction });
     const reviewers = await ProofMember.findAll({ where: { proofId, role: "reviewer" }, transaction });
-    if (reviewers.length) await RoundReferee.bulkCreate(reviewers.map((m) => ({ roundId: round.id, userId: m.userId, dueAt })), { transaction });
-    await recordEvent({ proofId, actorId, action: "round.opened", subjectType: "round", subjectId: round.id, detail: `round ${round.number}, due ${day(dueAt)}` }, transaction);
+    if (reviewers.length)
+      await RoundReferee.bulkCreate(
+        reviewers.map((m) => ({ roundId: round.id, userId: m.userId, dueAt })),
+        { transaction },
+      );
+    await recordEvent(
+      { proofId, actorId, action: "round.opened", subjectType: "round", subjectId: round.id, detail: `round ${round.number}, due ${day(dueAt)}` },
+      transaction,
+    );
     return round.number;
   });
   return { number, dueAt: dueAt.toISOString() };
@@ -125,7 +153,10 @@ export async function setRefereeDue(proofId: number, number: number, refereeId: 
     await RoundReferee.upsert({ roundId: round.id, userId: refereeId, dueAt }, { transaction });
     // A reminder already sent for the old date would otherwise block the one for the new date.
     await models().RoundReminder.destroy({ where: { roundId: round.id, userId: refereeId }, transaction });
-    await recordEvent({ proofId, actorId, action: "round.due_date_set", subjectType: "round", subjectId: round.id, detail: `referee #${refereeId}: due ${day(dueAt)}` }, transaction);
+    await recordEvent(
+      { proofId, actorId, action: "round.due_date_set", subjectType: "round", subjectId: round.id, detail: `referee #${refereeId}: due ${day(dueAt)}` },
+      transaction,
+    );
   });
 }
 
@@ -147,7 +178,14 @@ export interface ReportView {
 
 function reportView(r: RefereeReport, viewer: Viewer, referees: Referee[], blind: boolean, withNote: boolean): ReportView {
   const ref = referees.find((x) => x.userId === r.refereeId);
-  const referee = refereeDisplayName({ viewerRole: viewer.role, viewerId: viewer.id, blind, refereeId: r.refereeId, name: ref?.name ?? "", index: ref?.index ?? 0 });
+  const referee = refereeDisplayName({
+    viewerRole: viewer.role,
+    viewerId: viewer.id,
+    blind,
+    refereeId: r.refereeId,
+    name: ref?.name ?? "",
+    index: ref?.index ?? 0,
+  });
   const named = viewer.id === r.refereeId || viewer.role === "editor" || !blind;
   return {
     id: r.id,
@@ -202,7 +240,9 @@ export interface RoundView {
 async function stepLabels(proofId: number): Promise<Map<number, string>> {
   const { Case, Step } = models();
   const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
-  const cases = new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+  const cases = new Map(
+    flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
+  );
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
   return new Map(steps.filter((s) => cases.has(s.caseId)).map((s) => [s.id, stepLabel(cases.get(s.caseId)!, s.position)]));
 }
@@ -238,7 +278,9 @@ async function buildRoundViews(proofId: number, rounds: ReviewRound[], viewer: V
     RefereeReport.findAll({ where: { roundId: rounds.map((r) => r.id) }, order: [["version", "DESC"]] }),
     RoundDecision.findAll({ where: { roundId: (await ReviewRound.findAll({ where: { proofId }, attributes: ["id"] })).map((r) => r.id) } }),
   ]);
-  const editorNames = new Map((decisions.length ? await User.findAll({ where: { id: decisions.map((d) => d.editorId) }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  const editorNames = new Map(
+    (decisions.length ? await User.findAll({ where: { id: decisions.map((d) => d.editorId) }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]),
+  );
   const allRounds = await ReviewRound.findAll({ where: { proofId }, attributes: ["id", "number"] });
   const views: RoundView[] = [];
   for (const round of rounds) {
@@ -273,7 +315,8 @@ async function buildRoundViews(proofId: number, rounds: ReviewRound[], viewer: V
       reports: shown,
       changedSincePreviousDecision: await changedSince(proofId, previousDecision?.createdAt ?? null),
     };
-    if (viewer.role === "reviewer") view.myVersions = mine.filter((r) => r.refereeId === viewer.id).map((r) => reportView(r, viewer, referees, policy.blindReview, true));
+    if (viewer.role === "reviewer")
+      view.myVersions = mine.filter((r) => r.refereeId === viewer.id).map((r) => reportView(r, viewer, referees, policy.blindReview, true));
     if (viewer.role === "editor") {
       const due = await dueDates(round, referees);
       view.referees = referees
@@ -312,8 +355,15 @@ export async function saveReportDraft(proofId: number, number: number, refereeId
     if (round.closedAt) throw closedConflict(round);
     const latest = await latestOwn(round.id, refereeId, transaction);
     if (latest?.submittedAt)
-      throw conflict(`Your report (version ${latest.version}) was submitted on ${day(latest.submittedAt)} and is read-only. Start a correction to change it; both versions are kept.`, { reason: "submitted", version: latest.version });
-    await RoundReferee.findOrCreate({ where: { roundId: round.id, userId: refereeId }, defaults: { roundId: round.id, userId: refereeId, dueAt: round.dueAt }, transaction });
+      throw conflict(
+        `Your report (version ${latest.version}) was submitted on ${day(latest.submittedAt)} and is read-only. Start a correction to change it; both versions are kept.`,
+        { reason: "submitted", version: latest.version },
+      );
+    await RoundReferee.findOrCreate({
+      where: { roundId: round.id, userId: refereeId },
+      defaults: { roundId: round.id, userId: refereeId, dueAt: round.dueAt },
+      transaction,
+    });
     const fields = {
       ...(input.body !== undefined ? { body: input.body } : {}),
       ...(input.recommendation !== undefined ? { recommendation: input.recommendation } : {}),
@@ -332,13 +382,27 @@ export async function submitReport(proofId: number, number: number, refereeId: n
     if (round.closedAt) throw closedConflict(round);
     const latest = await latestOwn(round.id, refereeId, transaction);
     if (!latest) throw conflict("There is no draft to submit: write your report first.", { reason: "no_draft" });
-    if (latest.submittedAt) throw conflict(`Version ${latest.version} of your report was already submitted; a report is submitted once.`, { reason: "submitted", version: latest.version });
+    if (latest.submittedAt)
+      throw conflict(`Version ${latest.version} of your report was already submitted; a report is submitted once.`, {
+        reason: "submitted",
+        version: latest.version,
+      });
     const issues: Issue[] = [];
     if (!latest.body.trim()) issues.push({ path: "body", message: "Write the report before submitting it." });
     if (!latest.recommendation) issues.push({ path: "recommendation", message: "Choose a recommendation: accept, minor revision, major revision or reject." });
     if (issues.length) throw invalid("The draft is not complete yet.", issues);
     await latest.update({ submittedAt: new Date() }, { transaction });
-    await recordEvent({ proofId, actorId: refereeId, action: "report.submitted", subjectType: "report", subjectId: latest.id, detail: `round ${round.number}, version ${latest.version}: ${recommendationLabel[latest.recommendation!]}` }, transaction);
+    await recordEvent(
+      {
+        proofId,
+        actorId: refereeId,
+        action: "report.submitted",
+        subjectType: "report",
+        subjectId: latest.id,
+        detail: `round ${round.number}, version ${latest.version}: ${recommendationLabel[latest.recommendation!]}`,
+      },
+      transaction,
+    );
     return latest;
   });
   return reportView(submitted, { id: refereeId, role: "reviewer" }, [], false, true);
@@ -350,12 +414,25 @@ export async function startCorrection(proofId: number, number: number, refereeId
     const round = await loadRound(proofId, number, transaction);
     if (round.closedAt) throw closedConflict(round);
     const latest = await latestOwn(round.id, refereeId, transaction);
-    if (!latest?.submittedAt) throw conflict(latest ? "Your latest version is still a draft: edit it instead." : "You have not submitted a report in this round yet.", { reason: latest ? "draft" : "no_report" });
+    if (!latest?.submittedAt)
+      throw conflict(latest ? "Your latest version is still a draft: edit it instead." : "You have not submitted a report in this round yet.", {
+        reason: latest ? "draft" : "no_report",
+      });
     const next = await models().RefereeReport.create(
       { roundId: round.id, refereeId, version: latest.version + 1, body: latest.body, recommendation: latest.recommendation, editorNote: latest.editorNote },
       { transaction },
     );
-    await recordEvent({ proofId, actorId: refereeId, action: "report.correction_started", subjectType: "report", subjectId: next.id, detail: `round ${round.number}, version ${next.version}` }, transaction);
+    await recordEvent(
+      {
+        proofId,
+        actorId: refereeId,
+        action: "report.correction_started",
+        subjectType: "report",
+        subjectId: next.id,
+        detail: `round ${round.number}, version ${next.version}`,
+      },
+      transaction,
+    );
     return next;
   });
   return reportView(created, { id: refereeId, role: "reviewer" }, [], false, true);
@@ -369,8 +446,13 @@ export async function readEditorNote(proofId: number, number: number, reportId: 
   const round = await loadRound(proofId, number);
   const report = await models().RefereeReport.findOne({ where: { id: reportId, roundId: round.id } });
   if (!report) throw notFound("This report");
-  const access = reportAccess(viewer, { refereeId: report.refereeId, submitted: report.submittedAt !== null }, { decided: round.closedAt !== null, reportsAttached: false });
-  if (!access.note) throw forbidden(viewer.role === "editor" ? "This report is still a draft; its referee has not submitted it." : "This note is for the editors only.");
+  const access = reportAccess(
+    viewer,
+    { refereeId: report.refereeId, submitted: report.submittedAt !== null },
+    { decided: round.closedAt !== null, reportsAttached: false },
+  );
+  if (!access.note)
+    throw forbidden(viewer.role === "editor" ? "This report is still a draft; its referee has not submitted it." : "This note is for the editors only.");
   return { editorNote: report.editorNote, version: report.version };
 }
 
@@ -383,10 +465,16 @@ export async function recordDecision(proofId: number, number: number, editor: { 
   const { RoundDecision, RefereeReport, ProofMember, User } = models();
   const view = await getSequelize().transaction(async (transaction) => {
     const round = await loadRound(proofId, number, transaction);
-    if (round.closedAt) throw conflict(`Round ${round.number} was already decided on ${day(round.closedAt)}; a decision is recorded once.`, { round: { number: round.number, state: "decided", closedAt: round.closedAt.toISOString() } });
+    if (round.closedAt)
+      throw conflict(`Round ${round.number} was already decided on ${day(round.closedAt)}; a decision is recorded once.`, {
+        round: { number: round.number, state: "decided", closedAt: round.closedAt.toISOString() },
+      });
     const closedAt = new Date();
     await round.update({ closedAt }, { transaction });
-    const decision = await RoundDecision.create({ roundId: round.id, editorId: editor.id, decision: input.decision, letter: input.letter, reportsAttached: input.attachReports }, { transaction });
+    const decision = await RoundDecision.create(
+      { roundId: round.id, editorId: editor.id, decision: input.decision, letter: input.letter, reportsAttached: input.attachReports },
+      { transaction },
+    );
     const [policy, referees, reports, authors] = await Promise.all([
       proofPolicy(proofId, transaction),
       listReferees(proofId, transaction),
@@ -419,15 +507,29 @@ export async function recordDecision(proofId: number, number: number, editor: { 
         transaction,
       );
     }
-    await recordEvent({ proofId, actorId: editor.id, action: "round.decided", subjectType: "round", subjectId: round.id, detail: `round ${round.number}: ${label}` }, transaction);
-    return { decision: input.decision, label, letter: input.letter, reportsAttached: input.attachReports, editor: editor.name, decidedAt: decision.createdAt.toISOString() };
+    await recordEvent(
+      { proofId, actorId: editor.id, action: "round.decided", subjectType: "round", subjectId: round.id, detail: `round ${round.number}: ${label}` },
+      transaction,
+    );
+    return {
+      decision: input.decision,
+      label,
+      letter: input.letter,
+      reportsAttached: input.attachReports,
+      editor: editor.name,
+      decidedAt: decision.createdAt.toISOString(),
+    };
   });
   await deliverAfterCommit();
   return view;
 }
 
 /** Blind review and reminder offsets (editors). Switching blind on hides names at once: every view reads it per request. */
-export async function setReviewPolicy(proofId: number, actorId: number, input: ReviewPolicyInput): Promise<{ blind: boolean; remindBeforeDays: number; remindAfterDays: number }> {
+export async function setReviewPolicy(
+  proofId: number,
+  actorId: number,
+  input: ReviewPolicyInput,
+): Promise<{ blind: boolean; remindBeforeDays: number; remindAfterDays: number }> {
   return getSequelize().transaction(async (transaction) => {
     const proof = await models().Proof.findByPk(proofId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!proof) throw notFound("This proof");
@@ -437,7 +539,17 @@ export async function setReviewPolicy(proofId: number, actorId: number, input: R
       remindAfterDays: input.remindAfterDays ?? proof.remindAfterDays,
     };
     await proof.update(next, { transaction });
-    await recordEvent({ proofId, actorId, action: "settings.review_policy", subjectType: "settings", subjectId: null, detail: `blind ${next.blindReview ? "on" : "off"}; reminders ${next.remindBeforeDays} days before, ${next.remindAfterDays} after` }, transaction);
+    await recordEvent(
+      {
+        proofId,
+        actorId,
+        action: "settings.review_policy",
+        subjectType: "settings",
+        subjectId: null,
+        detail: `blind ${next.blindReview ? "on" : "off"}; reminders ${next.remindBeforeDays} days before, ${next.remindAfterDays} after`,
+      },
+      transaction,
+    );
     return { blind: next.blindReview, remindBeforeDays: next.remindBeforeDays, remindAfterDays: next.remindAfterDays };
   });
 }

@@ -73,7 +73,14 @@ export async function getStep(proofId: number, stepId: number): Promise<StepDeta
     include: [{ model: User, as: "author", attributes: ["name"] }],
     order: [["number", "DESC"]],
   });
-  const siblings = await Step.findAll({ where: { caseId: step.caseId }, attributes: ["id", "position"], order: [["position", "ASC"], ["id", "ASC"]] });
+  const siblings = await Step.findAll({
+    where: { caseId: step.caseId },
+    attributes: ["id", "position"],
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
   const place = siblings.findIndex((s) => s.id === stepId) + 1;
   return {
     id: step.id,
@@ -101,7 +108,16 @@ export async function createStep(proofId: number, caseId: number, userId: number
     const last = await Step.max<number, InstanceType<typeof Step>>("position", { where: { caseId }, transaction });
     const step = await Step.create({ caseId, position: (last ?? 0) + 1 }, { transaction });
     const revision = await StepRevision.create(
-      { stepId: step.id, number: 1, body, authorId: userId, baseRevisionId: null, claimSet: claimSetText([]), digest: digestOfRevision(1, body, []), origin: "text" },
+      {
+        stepId: step.id,
+        number: 1,
+        body,
+        authorId: userId,
+        baseRevisionId: null,
+        claimSet: claimSetText([]),
+        digest: digestOfRevision(1, body, []),
+        origin: "text",
+      },
       { transaction },
     );
     await recordEvent({ proofId, actorId: userId, action: "step.created", subjectType: "step", subjectId: step.id, detail: null }, transaction);
@@ -118,7 +134,15 @@ export async function moveStep(proofId: number, stepId: number, userId: number, 
   const { Step } = models();
   const { step } = await stepInProof(proofId, stepId);
   await getSequelize().transaction(async (transaction) => {
-    const siblings = await Step.findAll({ where: { caseId: step.caseId }, order: [["position", "ASC"], ["id", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+    const siblings = await Step.findAll({
+      where: { caseId: step.caseId },
+      order: [
+        ["position", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
     const i = siblings.findIndex((s) => s.id === stepId);
     const j = move === "up" ? i - 1 : i + 1;
     if (i < 0 || j < 0 || j >= siblings.length) return;
@@ -150,11 +174,17 @@ export async function saveRevision(proofId: number, stepId: number, userId: numb
   const saved = await getSequelize().transaction(async (transaction) => {
     // Locking the step row serialises concurrent saves of one step (and claim changes), so exactly one of two wins.
     const previous = await lockLatest(stepId, transaction);
-    const latest = await StepRevision.findOne({ where: { stepId }, order: [["number", "DESC"]], include: [{ model: User, as: "author", attributes: ["name"] }], transaction });
+    const latest = await StepRevision.findOne({
+      where: { stepId },
+      order: [["number", "DESC"]],
+      include: [{ model: User, as: "author", attributes: ["name"] }],
+      transaction,
+    });
     const base = await StepRevision.findOne({ where: { id: baseRevisionId, stepId }, attributes: ["id", "number"], transaction });
     if (!base) throw invalid("The base revision is not a revision of this step.", [{ path: "baseRevisionId", message: "name a revision of this step" }]);
     // Revisions made by claim changes since the base do not touch the text: saving over them is no conflict.
-    const textSince = latest && latest.id !== base.id ? await StepRevision.count({ where: { stepId, origin: "text", number: { [Op.gt]: base.number } }, transaction }) : 0;
+    const textSince =
+      latest && latest.id !== base.id ? await StepRevision.count({ where: { stepId, origin: "text", number: { [Op.gt]: base.number } }, transaction }) : 0;
     if (latest && textSince > 0)
       throw conflict(`Someone saved revision ${latest.number} of this step while you were editing. Merge your text with it, or overwrite it knowingly.`, {
         latest: revisionView(latest),
@@ -162,10 +192,22 @@ export async function saveRevision(proofId: number, stepId: number, userId: numb
     const number = (latest?.number ?? 0) + 1;
     const claims = previous ? claimsOf(previous) : [];
     const created = await StepRevision.create(
-      { stepId, number, body, authorId: userId, baseRevisionId, claimSet: claimSetText(claims), digest: digestOfRevision(number, body, claims), origin: "text" },
+      {
+        stepId,
+        number,
+        body,
+        authorId: userId,
+        baseRevisionId,
+        claimSet: claimSetText(claims),
+        digest: digestOfRevision(number, body, claims),
+        origin: "text",
+      },
       { transaction },
     );
-    await recordEvent({ proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` }, transaction);
+    await recordEvent(
+      { proofId, actorId: userId, action: "step.revised", subjectType: "step", subjectId: stepId, detail: `revision ${created.number}` },
+      transaction,
+    );
     if (previous) await noticeSuperseded(proofId, stepId, previous, created, userId, transaction);
     const author = await User.findByPk(userId, { attributes: ["name"], transaction });
     return { ...revisionView(created), authorName: author?.name ?? "" };
@@ -190,7 +232,8 @@ export async function diffRevisions(proofId: number, stepId: number, from: numbe
   const { StepRevision } = models();
   await stepInProof(proofId, stepId);
   const rows = await StepRevision.findAll({ where: { stepId, number: [from, to] } });
-  const a = rows.find((r) => r.number === from), b = rows.find((r) => r.number === to);
+  const a = rows.find((r) => r.number === from),
+    b = rows.find((r) => r.number === to);
   if (!a || !b) throw notFound(`Revision ${!a ? from : to} of this step`);
   const change = compareRevisions({ body: a.body, claims: claimsOf(a) }, { body: b.body, claims: claimsOf(b) });
   const gone = new Set([...change.withdrawn, ...change.redecided.map((r) => r.claim)].map((c) => c.id));

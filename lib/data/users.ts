@@ -42,10 +42,12 @@ async function reserveAttempt(keyHash: string): Promise<void> {
     // An upsert takes the row's exclusive lock at once (INSERT IGNORE would take a shared one, and
     // two attempts upgrading it deadlock).
     await getSequelize().query(
-      "INSERT INTO sign_in_throttles (key_hash, failures, locked_until, updated_at) VALUES (?, 0, NULL, NOW(3)) ON DUPLICATE KEY UPDATE updated_at = NOW(3)", {
-      replacements: [keyHash],
-      transaction,
-    });
+      "INSERT INTO sign_in_throttles (key_hash, failures, locked_until, updated_at) VALUES (?, 0, NULL, NOW(3)) ON DUPLICATE KEY UPDATE updated_at = NOW(3)",
+      {
+        replacements: [keyHash],
+        transaction,
+      },
+    );
     const row = await SignInThrottle.findByPk(keyHash, { transaction, lock: transaction.LOCK.UPDATE });
     if (!row) throw new Error("sign-in throttle row missing after insert");
     const now = new Date();
@@ -114,5 +116,7 @@ export async function changePassword(user: { id: number; email: string }, curren
   if (!proved || proved.id !== user.id)
     throw invalid("This is not your current password; nothing was changed.", [{ path: "currentPassword", message: "This is not your current password." }]);
   const hash = await bcrypt.hash(newPassword, 10);
-  await getSequelize().query("UPDATE users SET password_hash = ?, session_version = session_version + 1, updated_at = NOW(3) WHERE id = ?", { replacements: [hash, user.id] });
+  await getSequelize().query("UPDATE users SET password_hash = ?, session_version = session_version + 1, updated_at = NOW(3) WHERE id = ?", {
+    replacements: [hash, user.id],
+  });
 }

@@ -19,28 +19,33 @@ export interface ArchiveParts {
 }
 
 export function readmeText(p: Omit<ArchiveParts, "bundleText" | "tex" | "checker">): string {
-  const pdfLine = p.pdf instanceof Uint8Array ? "  proof.pdf         the same document, compiled by pdflatex on the server" : `  (no proof.pdf: ${p.pdf.missing})`;
-  return [
-    `Cairn export #${p.exportId} (${p.kind}) of “${p.proofTitle}”, made ${p.exportedAt}`,
-    `Manifest digest (SHA-256): ${p.manifestDigest}`,
-    "",
-    "Files",
-    "  bundle.json       the certificate bundle (cairn-bundle/1): every case, step, claim and certificate",
-    "  cairn-check.mjs   the offline checker, one file, needs only Node.js 20 or later",
-    "  proof.tex         the document in LaTeX",
-    pdfLine,
-    "",
-    "Re-check",
-    "  node cairn-check.mjs bundle.json",
-    "The checker recomputes every item's SHA-256 and the manifest digest, then re-does every claim's",
-    "computation in exact arithmetic and re-checks its certificate. It exits with 0 only when everything",
-    "matches and every claim is verified; cite the manifest digest above to name exactly this export.",
-    "",
-    "What a verified claim means",
-    "  The stated computation was redone exactly on the stated input. It does not say that the case split",
-    "  is exhaustive or that the prose argument is right: that stays with the authors and the referees.",
-    p.kind === "certified" ? "" : "\nThis is a DRAFT export: it was made while the proof was not ready to certify.",
-  ].join("\n").trimEnd() + "\n";
+  const pdfLine =
+    p.pdf instanceof Uint8Array ? "  proof.pdf         the same document, compiled by pdflatex on the server" : `  (no proof.pdf: ${p.pdf.missing})`;
+  return (
+    [
+      `Cairn export #${p.exportId} (${p.kind}) of “${p.proofTitle}”, made ${p.exportedAt}`,
+      `Manifest digest (SHA-256): ${p.manifestDigest}`,
+      "",
+      "Files",
+      "  bundle.json       the certificate bundle (cairn-bundle/1): every case, step, claim and certificate",
+      "  cairn-check.mjs   the offline checker, one file, needs only Node.js 20 or later",
+      "  proof.tex         the document in LaTeX",
+      pdfLine,
+      "",
+      "Re-check",
+      "  node cairn-check.mjs bundle.json",
+      "The checker recomputes every item's SHA-256 and the manifest digest, then re-does every claim's",
+      "computation in exact arithmetic and re-checks its certificate. It exits with 0 only when everything",
+      "matches and every claim is verified; cite the manifest digest above to name exactly this export.",
+      "",
+      "What a verified claim means",
+      "  The stated computation was redone exactly on the stated input. It does not say that the case split",
+      "  is exhaustive or that the prose argument is right: that stays with the authors and the referees.",
+      p.kind === "certified" ? "" : "\nThis is a DRAFT export: it was made while the proof was not ready to certify.",
+    ]
+      .join("\n")
+      .trimEnd() + "\n"
+  );
 }
 
 /** The zip archive's bytes. */

@@ -62,8 +62,13 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
           position: s.position,
           revision: s.revision,
           reviews: s.reviews.map((r) => ({
-            reviewer: r.reviewerName, verdict: r.verdict, revision: r.revisionNumber, disputeState: r.disputeState, at: r.at,
-            digest: r.digest, superseded: r.verdict === "vouch" && r.revisionNumber !== s.revision?.number,
+            reviewer: r.reviewerName,
+            verdict: r.verdict,
+            revision: r.revisionNumber,
+            disputeState: r.disputeState,
+            at: r.at,
+            digest: r.digest,
+            superseded: r.verdict === "vouch" && r.revisionNumber !== s.revision?.number,
           })),
         },
       });
@@ -74,7 +79,12 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
           claim: claimJson(cl),
           digest: cl.digest,
           // The method that decided with the certificate kind beside it, also for verdicts stored before it was named.
-          verdict: { status: cl.status, statement: cl.statement, method: cl.method === null ? null : methodWithCertificate(cl.kind, cl.method, parsed(cl.certificate)), reason: cl.reason },
+          verdict: {
+            status: cl.status,
+            statement: cl.statement,
+            method: cl.method === null ? null : methodWithCertificate(cl.kind, cl.method, parsed(cl.certificate)),
+            reason: cl.reason,
+          },
           certificate: parsed(cl.certificate),
           checkerVersion: cl.checkerVersion,
           checkedAt: cl.checkedAt,

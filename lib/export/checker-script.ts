@@ -23,7 +23,11 @@ function build(root: string): Promise<string> {
   const esbuild = join(root, "node_modules", ".bin", "esbuild");
   const entry = join(root, "lib", "core", "cli.ts");
   if (!existsSync(esbuild) || !existsSync(entry))
-    return Promise.reject(new CheckerUnavailableError("The bundled checker cannot be built here (esbuild or the checker sources are missing). Use `npm run check -- FILE` from a Cairn checkout instead."));
+    return Promise.reject(
+      new CheckerUnavailableError(
+        "The bundled checker cannot be built here (esbuild or the checker sources are missing). Use `npm run check -- FILE` from a Cairn checkout instead.",
+      ),
+    );
   return new Promise((resolve, reject) => {
     execFile(
       esbuild,

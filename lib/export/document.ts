@@ -103,8 +103,7 @@ function claimSentence(id: string, d: ClaimItemData, itemDigest: string, method:
 
 export function documentOf(bundle: Bundle): ExportDocument {
   const proof = bundle.items.find((i) => i.type === "proof")?.data as
-    | { title: string; statement: string; requiredApprovals: number; members: Array<{ name: string; role: string }> }
-    | undefined;
+    { title: string; statement: string; requiredApprovals: number; members: Array<{ name: string; role: string }> } | undefined;
   const cases: DocCase[] = [];
   const rounds: DocRound[] = [];
   const steps = new Map<string, DocStep>();

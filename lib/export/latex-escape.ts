@@ -8,28 +8,125 @@
 
 /** Characters that are not plain ASCII: math symbols as math, a few typographic ones as text commands. */
 const UNICODE: Record<string, string> = {
-  "√": "\\surd", "≤": "\\le", "≥": "\\ge", "≠": "\\ne", "≈": "\\approx", "∈": "\\in", "∉": "\\notin", "⊆": "\\subseteq",
-  "⊇": "\\supseteq", "⊂": "\\subset", "⊃": "\\supset", "⊊": "\\subsetneq", "→": "\\to", "←": "\\leftarrow", "⇒": "\\Rightarrow",
-  "⇔": "\\Leftrightarrow", "↦": "\\mapsto", "∞": "\\infty", "·": "\\cdot", "×": "\\times", "÷": "\\div", "±": "\\pm", "∓": "\\mp",
-  "−": "-", "∑": "\\sum", "∏": "\\prod", "∫": "\\int", "∂": "\\partial", "∇": "\\nabla", "∀": "\\forall", "∃": "\\exists",
-  "¬": "\\neg", "∧": "\\wedge", "∨": "\\vee", "∩": "\\cap", "∪": "\\cup", "∅": "\\emptyset", "ℕ": "\\mathbb{N}", "ℤ": "\\mathbb{Z}",
-  "ℚ": "\\mathbb{Q}", "ℝ": "\\mathbb{R}", "ℂ": "\\mathbb{C}", "≅": "\\cong", "≡": "\\equiv", "∼": "\\sim", "⌊": "\\lfloor",
-  "⌋": "\\rfloor", "⌈": "\\lceil", "⌉": "\\rceil", "⟨": "\\langle", "⟩": "\\rangle", "∘": "\\circ", "⊕": "\\oplus", "⊗": "\\otimes",
-  "∣": "\\mid", "∥": "\\parallel", "≪": "\\ll", "≫": "\\gg", "′": "'", "✓": "\\checkmark", "✗": "\\times", "ℓ": "\\ell",
-  "α": "\\alpha", "β": "\\beta", "γ": "\\gamma", "δ": "\\delta", "ε": "\\varepsilon", "ζ": "\\zeta", "η": "\\eta", "θ": "\\theta",
-  "ι": "\\iota", "κ": "\\kappa", "λ": "\\lambda", "μ": "\\mu", "ν": "\\nu", "ξ": "\\xi", "ο": "o", "π": "\\pi", "ρ": "\\rho",
-  "σ": "\\sigma", "ς": "\\varsigma", "τ": "\\tau", "υ": "\\upsilon", "φ": "\\varphi", "χ": "\\chi", "ψ": "\\psi", "ω": "\\omega",
-  "Γ": "\\Gamma", "Δ": "\\Delta", "Θ": "\\Theta", "Λ": "\\Lambda", "Ξ": "\\Xi", "Π": "\\Pi", "Σ": "\\Sigma", "Υ": "\\Upsilon",
-  "Φ": "\\Phi", "Ψ": "\\Psi", "Ω": "\\Omega",
+  "√": "\\surd",
+  "≤": "\\le",
+  "≥": "\\ge",
+  "≠": "\\ne",
+  "≈": "\\approx",
+  "∈": "\\in",
+  "∉": "\\notin",
+  "⊆": "\\subseteq",
+  "⊇": "\\supseteq",
+  "⊂": "\\subset",
+  "⊃": "\\supset",
+  "⊊": "\\subsetneq",
+  "→": "\\to",
+  "←": "\\leftarrow",
+  "⇒": "\\Rightarrow",
+  "⇔": "\\Leftrightarrow",
+  "↦": "\\mapsto",
+  "∞": "\\infty",
+  "·": "\\cdot",
+  "×": "\\times",
+  "÷": "\\div",
+  "±": "\\pm",
+  "∓": "\\mp",
+  "−": "-",
+  "∑": "\\sum",
+  "∏": "\\prod",
+  "∫": "\\int",
+  "∂": "\\partial",
+  "∇": "\\nabla",
+  "∀": "\\forall",
+  "∃": "\\exists",
+  "¬": "\\neg",
+  "∧": "\\wedge",
+  "∨": "\\vee",
+  "∩": "\\cap",
+  "∪": "\\cup",
+  "∅": "\\emptyset",
+  ℕ: "\\mathbb{N}",
+  ℤ: "\\mathbb{Z}",
+  ℚ: "\\mathbb{Q}",
+  ℝ: "\\mathbb{R}",
+  ℂ: "\\mathbb{C}",
+  "≅": "\\cong",
+  "≡": "\\equiv",
+  "∼": "\\sim",
+  "⌊": "\\lfloor",
+  "⌋": "\\rfloor",
+  "⌈": "\\lceil",
+  "⌉": "\\rceil",
+  "⟨": "\\langle",
+  "⟩": "\\rangle",
+  "∘": "\\circ",
+  "⊕": "\\oplus",
+  "⊗": "\\otimes",
+  "∣": "\\mid",
+  "∥": "\\parallel",
+  "≪": "\\ll",
+  "≫": "\\gg",
+  "′": "'",
+  "✓": "\\checkmark",
+  "✗": "\\times",
+  ℓ: "\\ell",
+  α: "\\alpha",
+  β: "\\beta",
+  γ: "\\gamma",
+  δ: "\\delta",
+  ε: "\\varepsilon",
+  ζ: "\\zeta",
+  η: "\\eta",
+  θ: "\\theta",
+  ι: "\\iota",
+  κ: "\\kappa",
+  λ: "\\lambda",
+  μ: "\\mu",
+  ν: "\\nu",
+  ξ: "\\xi",
+  ο: "o",
+  π: "\\pi",
+  ρ: "\\rho",
+  σ: "\\sigma",
+  ς: "\\varsigma",
+  τ: "\\tau",
+  υ: "\\upsilon",
+  φ: "\\varphi",
+  χ: "\\chi",
+  ψ: "\\psi",
+  ω: "\\omega",
+  Γ: "\\Gamma",
+  Δ: "\\Delta",
+  Θ: "\\Theta",
+  Λ: "\\Lambda",
+  Ξ: "\\Xi",
+  Π: "\\Pi",
+  Σ: "\\Sigma",
+  Υ: "\\Upsilon",
+  Φ: "\\Phi",
+  Ψ: "\\Psi",
+  Ω: "\\Omega",
 };
 /** Combining marks after a letter (D̃4 for the affine D4) become math accents. */
 const COMBINING: Record<string, string> = { "\u0303": "tilde", "\u0302": "hat", "\u0304": "bar", "\u0307": "dot", "\u0301": "acute" };
 const SUBSCRIPTS = "₀₁₂₃₄₅₆₇₈₉";
 const SUPERSCRIPTS = "⁰¹²³⁴⁵⁶⁷⁸⁹";
 const TEXT_UNICODE: Record<string, string> = {
-  "–": "\\textendash{}", "—": "\\textemdash{}", "‘": "\\textquoteleft{}", "’": "\\textquoteright{}", "“": "\\textquotedblleft{}",
-  "”": "\\textquotedblright{}", "…": "\\ldots{}", "•": "\\textbullet{}", "§": "\\S{}", "¶": "\\P{}", "©": "\\copyright{}",
-  "°": "\\textdegree{}", "\u00a0": "~", "«": "\\guillemotleft{}", "»": "\\guillemotright{}",
+  "–": "\\textendash{}",
+  "—": "\\textemdash{}",
+  "‘": "\\textquoteleft{}",
+  "’": "\\textquoteright{}",
+  "“": "\\textquotedblleft{}",
+  "”": "\\textquotedblright{}",
+  "…": "\\ldots{}",
+  "•": "\\textbullet{}",
+  "§": "\\S{}",
+  "¶": "\\P{}",
+  "©": "\\copyright{}",
+  "°": "\\textdegree{}",
+  "\u00a0": "~",
+  "«": "\\guillemotleft{}",
+  "»": "\\guillemotright{}",
 };
 
 /** A non-ASCII character as LaTeX (math symbols wrapped in \ensuremath so they work in text and math). */
@@ -48,8 +145,20 @@ function unicodeChar(ch: string): string {
 }
 
 const TEXT_SPECIALS: Record<string, string> = {
-  "\\": "\\textbackslash{}", "{": "\\{", "}": "\\}", $: "\\$", "&": "\\&", "#": "\\#", "^": "\\textasciicircum{}", _: "\\_",
-  "~": "\\textasciitilde{}", "%": "\\%", "<": "\\textless{}", ">": "\\textgreater{}", "|": "\\textbar{}", '"': "\\textquotedbl{}",
+  "\\": "\\textbackslash{}",
+  "{": "\\{",
+  "}": "\\}",
+  $: "\\$",
+  "&": "\\&",
+  "#": "\\#",
+  "^": "\\textasciicircum{}",
+  _: "\\_",
+  "~": "\\textasciitilde{}",
+  "%": "\\%",
+  "<": "\\textless{}",
+  ">": "\\textgreater{}",
+  "|": "\\textbar{}",
+  '"': "\\textquotedbl{}",
 };
 
 /** Control characters other than tab and newline are dropped before anything else. */
@@ -85,11 +194,16 @@ export function escapeText(s: string): string {
 
 /** A one-line user string (title, name): control characters and line breaks removed, then escaped. */
 export function escapeLine(s: string): string {
-  return escapeText(stripControl(s).replace(/[\r\n\t]+/g, " ").replace(/\u0000/g, ""));
+  return escapeText(
+    stripControl(s)
+      .replace(/[\r\n\t]+/g, " ")
+      .replace(/\u0000/g, ""),
+  );
 }
 
 /** Control words allowed in math: LaTeX, amsmath and amssymb only, none of which touch files or definitions. */
-const MATH_WORDS = new Set(`
+const MATH_WORDS = new Set(
+  `
 alpha beta gamma delta epsilon varepsilon zeta eta theta vartheta iota kappa lambda mu nu xi pi varpi rho varrho sigma varsigma
 tau upsilon phi varphi chi psi omega Gamma Delta Theta Lambda Xi Pi Sigma Upsilon Phi Psi Omega
 le leq ge geq ne neq leqslant geqslant approx sim simeq cong equiv propto subset subseteq supset supseteq subsetneq supsetneq
@@ -107,7 +221,10 @@ big Big bigg Bigg bigl bigr Bigl Bigr biggl biggr Biggl Biggr left right middle 
 sum prod int iint oint bigcup bigcap bigoplus bigotimes coprod limits nolimits substack stackrel overset underset not colon ell
 hbar imath jmath Re Im aleph wp top bot angle triangle square Box checkmark sharp flat natural lhd rhd unlhd unrhd
 begin end
-`.split(/\s+/).filter(Boolean));
+`
+    .split(/\s+/)
+    .filter(Boolean),
+);
 
 const TEXT_GROUP_WORDS = new Set(["text", "textrm", "textbf", "textit", "emph", "mbox"]);
 const MATH_ENVS = new Set(["matrix", "pmatrix", "bmatrix", "vmatrix", "Vmatrix", "smallmatrix", "cases", "aligned", "gathered", "split", "array"]);
@@ -172,7 +289,10 @@ export function sanitizeMath(src: string): string | null {
       if (sym === undefined) return null;
       i += 2;
       if (sym === "\\") {
-        if (envs.length === 0) { out += " "; continue; }
+        if (envs.length === 0) {
+          out += " ";
+          continue;
+        }
         out += "\\\\";
       } else if (MATH_SYMBOLS.has(sym)) out += `\\${sym}`;
       else out += `\\backslash ${sym.charCodeAt(0) < 0x80 ? escapeMathChar(sym, inText()) : unicodeChar(sym)}`;

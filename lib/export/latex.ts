@@ -4,7 +4,16 @@
  * string goes through latex-escape.ts or markdown-latex.ts; a draft carries "DRAFT" in the header of
  * every page (the plain page style is redefined too, so no page escapes it).
  */
-import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, type DocClaim, type DocRound, type DocStep, type ExportDocument } from "./document";
+import {
+  CAUTION_DOES_NOT,
+  CAUTION_MEANS,
+  recommendationWords,
+  type DocCase,
+  type DocClaim,
+  type DocRound,
+  type DocStep,
+  type ExportDocument,
+} from "./document";
 import { escapeLine, escapeText } from "./latex-escape";
 import { markdownToLatex } from "./markdown-latex";
 import { claimInputsAppendixTex } from "./latex-inputs";
@@ -32,13 +41,16 @@ function claimTex(c: DocClaim): string {
   const reason = c.reason && c.status !== "verified" ? `: ${escapeLine(c.reason)}` : "";
   const label = { verified: "$\\checkmark$ Verified", refuted: "$\\times$ Refuted", undecided: "? Undecided" }[c.status] ?? "$\\circ$ Not checked yet";
   const cert = c.status === "verified" ? `; certificate in bundle item \\texttt{${escapeLine(c.id)}} (SHA-256 ${digestTex(c.itemDigest)})` : "";
-  const inputs = c.inputs.short ? `; inputs ${escapeLine(c.inputs.short.length > 160 ? `${c.inputs.short.slice(0, 160)}…` : c.inputs.short)} (in full in the appendix of claim inputs)` : "";
+  const inputs = c.inputs.short
+    ? `; inputs ${escapeLine(c.inputs.short.length > 160 ? `${c.inputs.short.slice(0, 160)}…` : c.inputs.short)} (in full in the appendix of claim inputs)`
+    : "";
   return `\\item \\textbf{${label}:} ${what}${method}${reason}${cert}${digest}${inputs}.`;
 }
 
 function stepTex(s: DocStep, caseNumber: string): string {
   const rev = s.revision;
-  const head = `\\paragraph{Step ${escapeLine(stepLabel(caseNumber, s.position))}}` +
+  const head =
+    `\\paragraph{Step ${escapeLine(stepLabel(caseNumber, s.position))}}` +
     (rev ? ` {\\small(revision ${rev.number}, by ${escapeLine(rev.authorName)}, ${escapeLine(formatUtc(rev.savedAt))})}` : " {\\small(no text saved)}");
   const body = rev ? markdownToLatex(rev.body) : "";
   const claims = s.claims.length ? `\n\n\\begin{itemize}\n${s.claims.map(claimTex).join("\n")}\n\\end{itemize}` : "";
@@ -79,7 +91,10 @@ function appendixTex(doc: ExportDocument): string {
   const rows = doc.cases.flatMap((c) =>
     c.steps.flatMap((s) =>
       s.vouches.length
-        ? s.vouches.map((a) => `${escapeLine(stepLabel(c.number, s.position))} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`)
+        ? s.vouches.map(
+            (a) =>
+              `${escapeLine(stepLabel(c.number, s.position))} & ${escapeLine(a.reviewer)} & ${a.revision}${s.revision && a.revision !== s.revision.number ? " (superseded)" : ""} & ${escapeLine(formatUtc(a.at))} \\\\`,
+          )
         : [`${escapeLine(stepLabel(c.number, s.position))} & \\textit{no vouch} & & \\\\`],
     ),
   );
@@ -104,7 +119,10 @@ export function renderLatex(doc: ExportDocument): string {
     `\\fancyfoot[C]{\\thepage}`,
     draft ? `\\fancyfoot[R]{\\small\\textbf{DRAFT}}` : `\\fancyfoot[R]{\\scriptsize ${escapeLine(doc.checkerVersion)}}`,
   ].join("\n");
-  const pdfTitle = doc.title.replace(/[^A-Za-z0-9 ,.()-]/g, " ").replace(/\s+/g, " ").trim();
+  const pdfTitle = doc.title
+    .replace(/[^A-Za-z0-9 ,.()-]/g, " ")
+    .replace(/\s+/g, " ")
+    .trim();
   return `% Exported by Cairn (${escapeLine(doc.checkerVersion)}). ${draft ? "DRAFT: not certified." : "Certified export."}
 % Manifest digest of the certificate bundle: ${doc.manifestDigest}
 \\documentclass[11pt,a4paper]{article}

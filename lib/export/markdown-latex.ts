@@ -106,7 +106,10 @@ function block(node: RootContent): string {
       return `\\begin{${env}}\n${start}${node.children.map(listItem).join("\n")}\n\\end{${env}}`;
     }
     case "code":
-      return `\\begin{quote}\\ttfamily\\raggedright\n${node.value.split("\n").map((l) => escapeText(l) || "~").join("\\\\\n")}\n\\end{quote}`;
+      return `\\begin{quote}\\ttfamily\\raggedright\n${node.value
+        .split("\n")
+        .map((l) => escapeText(l) || "~")
+        .join("\\\\\n")}\n\\end{quote}`;
     case "table":
       return table(node);
     case "footnoteDefinition":

@@ -14,7 +14,9 @@ import { failingLines, setMathAsSource } from "./latex-fallback";
 
 export class PdfUnavailableError extends Error {
   constructor() {
-    super("pdflatex is not installed on this server. Install Debian's texlive-latex-base, texlive-latex-recommended and texlive-fonts-recommended (apt-get install …), or download the .tex and compile it yourself, or print the print view to PDF from your browser.");
+    super(
+      "pdflatex is not installed on this server. Install Debian's texlive-latex-base, texlive-latex-recommended and texlive-fonts-recommended (apt-get install …), or download the .tex and compile it yourself, or print the print view to PDF from your browser.",
+    );
     this.name = "PdfUnavailableError";
   }
 }
@@ -46,7 +48,15 @@ function run(cmd: string, args: string[], cwd: string, timeoutMs: number): Promi
         timeout: timeoutMs,
         killSignal: "SIGKILL",
         maxBuffer: 16 * 1024 * 1024,
-        env: { NODE_ENV: process.env.NODE_ENV, PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: cwd, openin_any: "p", openout_any: "p", shell_escape: "f", TEXMFOUTPUT: cwd } as NodeJS.ProcessEnv,
+        env: {
+          NODE_ENV: process.env.NODE_ENV,
+          PATH: process.env.PATH ?? "/usr/bin:/bin",
+          HOME: cwd,
+          openin_any: "p",
+          openout_any: "p",
+          shell_escape: "f",
+          TEXMFOUTPUT: cwd,
+        } as NodeJS.ProcessEnv,
       },
       (error) => resolve({ code: error ? (typeof error.code === "number" ? error.code : null) : 0, error: error ?? undefined }),
     );
@@ -60,7 +70,12 @@ export async function compileLatex(tex: string, { timeoutMs = 60_000, runs = 1, 
     await writeFile(join(dir, "proof.tex"), tex, "utf8");
     let last: RunResult = { code: 0 };
     for (let i = 0; i < runs; i++) {
-      last = await run("pdflatex", ["-no-shell-escape", "-interaction=nonstopmode", ...(haltOnError ? ["-halt-on-error"] : []), "-file-line-error", "proof.tex"], dir, timeoutMs);
+      last = await run(
+        "pdflatex",
+        ["-no-shell-escape", "-interaction=nonstopmode", ...(haltOnError ? ["-halt-on-error"] : []), "-file-line-error", "proof.tex"],
+        dir,
+        timeoutMs,
+      );
       if (last.error?.code === "ENOENT") throw new PdfUnavailableError();
       if (last.code !== 0) break;
     }
@@ -81,7 +96,10 @@ const MAX_FORMULA_ROUNDS = 3;
  * source with a mark (latex-fallback.ts) and the document compiled again; after a few such rounds every
  * formula of the body is. `recovered` counts the rounds; `tex` is the source that compiled.
  */
-export async function compileLatexRobustly(tex: string, options: { timeoutMs?: number; runs?: number } = {}): Promise<CompileResult & { tex: string; recovered: number }> {
+export async function compileLatexRobustly(
+  tex: string,
+  options: { timeoutMs?: number; runs?: number } = {},
+): Promise<CompileResult & { tex: string; recovered: number }> {
   let current = tex;
   for (let round = 0; ; round++) {
     try {

@@ -4,7 +4,17 @@
  */
 import type { CoveredClaim } from "@/lib/core/revision-digest";
 import { stepLabel } from "@/lib/proof-tree";
-import { caseState, proofState, stepStatus, type CaseFacts, type CaseState, type ClaimStatus, type DisputeState, type ProofState, type StepFacts } from "@/lib/review/states";
+import {
+  caseState,
+  proofState,
+  stepStatus,
+  type CaseFacts,
+  type CaseState,
+  type ClaimStatus,
+  type DisputeState,
+  type ProofState,
+  type StepFacts,
+} from "@/lib/review/states";
 
 export interface SnapshotReview {
   reviewerId: number;
@@ -115,7 +125,9 @@ export function certificationOf(p: ProofSnapshot): Certification {
       if (st.claimFailing) blockers.push(`${where} has a refuted claim.`);
       else if (!st.claimsVerified) blockers.push(`${where} has a claim that is not verified.`);
       if (!st.vouched)
-        blockers.push(`${where} has ${st.vouches} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.supersededVouches ? ` (${st.supersededVouches} stale)` : ""}.`);
+        blockers.push(
+          `${where} has ${st.vouches} of ${p.requiredApprovals} approval${p.requiredApprovals > 1 ? "s" : ""} at its latest revision${st.supersededVouches ? ` (${st.supersededVouches} stale)` : ""}.`,
+        );
     }
     if (c.steps.length === 0 && c.children.length === 0) blockers.push(`Case ${c.number} has no steps.`);
   }

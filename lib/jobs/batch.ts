@@ -44,7 +44,14 @@ export async function runBatchChunk(data: BatchJobData, workerName: string): Pro
   const to = Math.min(from + batch.chunkSize, entries.length);
   if (from >= to) return { decided: 0 };
   if (batch.status === "queued") await BatchClaim.update({ status: "running", startedAt: new Date() }, { where: { id: batch.id, status: "queued" } });
-  const results = checkListedGraphs(entries, file.graphFormat, { kind: "spectral-radius-bound", op: batch.op as Relation, bound: batch.bound }, from, to, readEnv().CAIRN_VERIFY_STEP_LIMIT);
+  const results = checkListedGraphs(
+    entries,
+    file.graphFormat,
+    { kind: "spectral-radius-bound", op: batch.op as Relation, bound: batch.bound },
+    from,
+    to,
+    readEnv().CAIRN_VERIFY_STEP_LIMIT,
+  );
   return getSequelize().transaction(async (transaction) => {
     const locked = await BatchClaim.findByPk(batch.id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!locked || locked.status === "cancelled" || locked.status === "done") return { decided: 0 };

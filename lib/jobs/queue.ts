@@ -73,7 +73,9 @@ export const batchJobId = (batchId: number, chunk: number) => `batch-${batchId}-
 /** Queues the chunks of a batch claim (idempotent per chunk). */
 export async function queueBatchChunks(batchId: number, chunks: readonly number[], kind: "web" | "worker" = "web"): Promise<void> {
   const add = () =>
-    verificationQueue(kind).addBulk(chunks.map((chunk) => ({ name: "batch", data: { type: "batch" as const, batchId, chunk }, opts: { jobId: batchJobId(batchId, chunk) } })));
+    verificationQueue(kind).addBulk(
+      chunks.map((chunk) => ({ name: "batch", data: { type: "batch" as const, batchId, chunk }, opts: { jobId: batchJobId(batchId, chunk) } })),
+    );
   await (kind === "web" ? bounded(add, 10_000) : add());
 }
 
@@ -145,13 +147,19 @@ export async function verificationService(): Promise<VerificationService> {
   try {
     const workers = await bounded(() => verificationQueue().getWorkersCount());
     if (workers === 0)
-      return { paused: true, workers, message: "Verification is paused: no verification worker is running (start one with `npm run worker`). Pending claims keep their place and are checked when a worker starts." };
+      return {
+        paused: true,
+        workers,
+        message:
+          "Verification is paused: no verification worker is running (start one with `npm run worker`). Pending claims keep their place and are checked when a worker starts.",
+      };
     return { paused: false, workers, message: null };
   } catch {
     return {
       paused: true,
       workers: 0,
-      message: "Verification is paused: the job queue cannot be reached right now. Pending claims keep their place and are checked as soon as it is back; nothing is lost.",
+      message:
+        "Verification is paused: the job queue cannot be reached right now. Pending claims keep their place and are checked as soon as it is back; nothing is lost.",
     };
   }
 }
@@ -170,7 +178,16 @@ export async function claimJobProgress(claimId: number, round: number): Promise<
   const progress = (job.progress ?? {}) as { worker?: string };
   const retried = job.attemptsMade > 0 || (job.stalledCounter ?? 0) > 0;
   return {
-    state: state === "active" ? "checking" : state === "waiting" || state === "prioritized" ? (retried ? "retrying" : "queued") : state === "delayed" ? "retrying" : "unknown",
+    state:
+      state === "active"
+        ? "checking"
+        : state === "waiting" || state === "prioritized"
+          ? retried
+            ? "retrying"
+            : "queued"
+          : state === "delayed"
+            ? "retrying"
+            : "unknown",
     worker: state === "active" ? (progress.worker ?? job.processedBy ?? null) : null,
     attempts: job.attemptsMade + (job.stalledCounter ?? 0),
   };

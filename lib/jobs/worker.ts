@@ -22,7 +22,20 @@ import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";
 import { recordEvent } from "../data/audit";
 import { runBatchChunk } from "./batch";
-import { claimJobId, JOB_ATTEMPTS, MAX_STALLED, QUEUE_NAME, queueClaim, queuePrefix, redisConnection, verificationQueue, type BundleJobData, type ClaimJobData, type JobData, type JobResult } from "./queue";
+import {
+  claimJobId,
+  JOB_ATTEMPTS,
+  MAX_STALLED,
+  QUEUE_NAME,
+  queueClaim,
+  queuePrefix,
+  redisConnection,
+  verificationQueue,
+  type BundleJobData,
+  type ClaimJobData,
+  type JobData,
+  type JobResult,
+} from "./queue";
 
 /** This worker's name, stored with each verdict it decides. */
 export const workerName = (): string => `${hostname()}:${process.pid}`;
@@ -49,12 +62,20 @@ async function decide(claimId: number, round: number, checkedBy: number, decisio
       { where: { id: claimId, status: "pending", verifyRound: round }, transaction },
     );
     if (changed !== 1) return false;
-    const proof = await getSequelize().query<{ proofId: number }>(
-      "SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?",
-      { replacements: [found.stepId], type: QueryTypes.SELECT, transaction },
-    );
+    const proof = await getSequelize().query<{ proofId: number }>("SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?", {
+      replacements: [found.stepId],
+      type: QueryTypes.SELECT,
+      transaction,
+    });
     await recordEvent(
-      { proofId: proof[0].proofId, actorId: null, action: "claim.decided", subjectType: "claim", subjectId: claimId, detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}` },
+      {
+        proofId: proof[0].proofId,
+        actorId: null,
+        action: "claim.decided",
+        subjectType: "claim",
+        subjectId: claimId,
+        detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}`,
+      },
       transaction,
     );
     await recordVerdictInRevisions(claimId, checkedBy, transaction);
@@ -80,18 +101,39 @@ async function verifyClaimJob(job: Job<JobData, JobResult>, data: ClaimJobData):
   await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
   // Cancelled, withdrawn or re-queued meanwhile (asked of the database, so it works across hosts): stop.
   const cancel = new AbortController();
-  const watch = setInterval(() => {
-    stillWanted(data.claimId, data.round).then((yes) => yes || cancel.abort(), () => undefined);
-  }, num("CAIRN_CANCEL_POLL_MS", 1_000));
+  const watch = setInterval(
+    () => {
+      stillWanted(data.claimId, data.round).then(
+        (yes) => yes || cancel.abort(),
+        () => undefined,
+      );
+    },
+    num("CAIRN_CANCEL_POLL_MS", 1_000),
+  );
   let decision: Decision;
   try {
-    const answer = await runInPool({ mode: "verify", claim: JSON.parse(row!.input) as ClaimJson, stepLimit: STEP_LIMIT, picture: true }, undefined, cancel.signal);
+    const answer = await runInPool(
+      { mode: "verify", claim: JSON.parse(row!.input) as ClaimJson, stepLimit: STEP_LIMIT, picture: true },
+      undefined,
+      cancel.signal,
+    );
     if (answer.ok) {
       const o = answer.outcome!;
-      const notes = o.certificateMatches === null ? "" : o.certificateMatches ? " The certificate given with the claim re-checked and agrees." : " The certificate given with the claim did not re-check or disagrees with this verdict.";
+      const notes =
+        o.certificateMatches === null
+          ? ""
+          : o.certificateMatches
+            ? " The certificate given with the claim re-checked and agrees."
+            : " The certificate given with the claim did not re-check or disagrees with this verdict.";
       decision = {
-        status: o.status, statement: o.statement.slice(0, 500), method: o.method.slice(0, 200), reason: [o.reason + notes, o.ranOn].filter(Boolean).join(" "),
-        certificate: o.certificate, digest: o.digest, checkerVersion: o.checkerVersion, picture: o.picture ? JSON.stringify(o.picture) : null,
+        status: o.status,
+        statement: o.statement.slice(0, 500),
+        method: o.method.slice(0, 200),
+        reason: [o.reason + notes, o.ranOn].filter(Boolean).join(" "),
+        certificate: o.certificate,
+        digest: o.digest,
+        checkerVersion: o.checkerVersion,
+        picture: o.picture ? JSON.stringify(o.picture) : null,
       };
     } else {
       decision = undecided("input", `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`);
@@ -147,7 +189,8 @@ export async function sweep(): Promise<{ queued: number; settled: number }> {
      WHERE status = 'pending' AND withdrawn_at IS NULL AND updated_at < UTC_TIMESTAMP(3) - INTERVAL ? MICROSECOND ORDER BY id LIMIT 1000`,
     { replacements: [after * 1000], type: QueryTypes.SELECT },
   );
-  let queued = 0, settled = 0;
+  let queued = 0,
+    settled = 0;
   const queue = verificationQueue("worker");
   for (const r of rows) {
     const data: ClaimJobData = { type: "claim", claimId: r.id, round: r.verifyRound, checkedBy: r.checkedBy ?? r.createdBy };
@@ -184,7 +227,8 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
     if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(job.data, e.message).catch(() => undefined);
   });
   worker.on("completed", (job, result) => {
-    if (job.data.type === "claim") log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
+    if (job.data.type === "claim")
+      log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
   });
   let sweeping = true;
   const sweepLoop = (async () => {
@@ -198,7 +242,9 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       await new Promise((r) => setTimeout(r, num("CAIRN_SWEEP_INTERVAL_MS", 5_000)));
     }
   })();
-  log(`[cairn worker] ${workerName()} is taking verification jobs from ${new URL(process.env.REDIS_URL ?? "redis://127.0.0.1:6389").host} (prefix ${queuePrefix()})`);
+  log(
+    `[cairn worker] ${workerName()} is taking verification jobs from ${new URL(process.env.REDIS_URL ?? "redis://127.0.0.1:6389").host} (prefix ${queuePrefix()})`,
+  );
   return async () => {
     sweeping = false;
     await worker.close();

@@ -44,7 +44,12 @@ export function parseRawMail(raw: string): { subject: string; text: string } {
   const cut = raw.search(/\r?\n\r?\n/);
   const head = (cut < 0 ? raw : raw.slice(0, cut)).replace(/\r?\n[ \t]+/g, " ");
   const body = cut < 0 ? "" : raw.slice(cut).replace(/^\r?\n\r?\n/, "");
-  const header = (name: string) => head.split(/\r?\n/).find((l) => l.toLowerCase().startsWith(`${name}:`))?.slice(name.length + 1).trim() ?? "";
+  const header = (name: string) =>
+    head
+      .split(/\r?\n/)
+      .find((l) => l.toLowerCase().startsWith(`${name}:`))
+      ?.slice(name.length + 1)
+      .trim() ?? "";
   const encoding = header("content-transfer-encoding").toLowerCase();
   const text = encoding === "quoted-printable" ? decodeQuotedPrintable(body) : encoding === "base64" ? Buffer.from(body, "base64").toString("utf8") : body;
   return { subject: decodeHeader(header("subject")), text: text.replace(/\r\n/g, "\n") };

@@ -31,7 +31,10 @@ export function placePhrase(p: EventPlace): string {
 /** Details written before events were worded (e.g. "raised → answered; step 8" named a database id) lose the code part. */
 function cleanDetail(detail: string | null): string | null {
   if (!detail) return null;
-  const d = detail.replace(/;\s*step \d+$/, "").replace(/^in dispute #\d+$/, "in a dispute thread").trim();
+  const d = detail
+    .replace(/;\s*step \d+$/, "")
+    .replace(/^in dispute #\d+$/, "in a dispute thread")
+    .trim();
   return d.length ? d : null;
 }
 
@@ -49,52 +52,98 @@ export function eventSentence(e: EventFacts): string {
   const atRevision = rev ? ` at revision ${rev}` : "";
   const withDetail = (s: string) => `${s}${detail ? `: ${detail}` : ""}.`;
   switch (e.action) {
-    case "proof.created": return `${who} started the proof.`;
-    case "proof.edited": return `${who} edited the proof's title or statement.`;
-    case "case.created": return `${who} added ${where}.`;
-    case "case.edited": return `${who} edited ${where}.`;
-    case "case.moved": return `${who} moved ${where}.`;
-    case "case.reparented": return withDetail(`${who} moved ${where} under another case`);
-    case "case.deleted": return `${who} deleted ${where}.`;
-    case "case.restored": return `${who} restored ${where}.`;
-    case "step.created": return `${who} added ${where}.`;
-    case "step.revised": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
-    case "step.moved": return `${who} moved ${where}.`;
-    case "revision.created": return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
-    case "demo.reviews": return `${who} added the demonstration reviews.`;
-    case "demo.rounds": return `${who} added the demonstration rounds.`;
-    case "claim.attached": return `${who} attached a claim to ${where}${detail ? ` (${detail})` : ""}.`;
-    case "claim.decided": return withDetail(`A claim on ${where} was decided`);
-    case "claim.rechecked": return `${who} asked for a claim on ${where} to be checked again.`;
-    case "claim.cancelled": return `${who} cancelled the check of a claim on ${where}.`;
-    case "claim.withdrawn": return `${who} withdrew a claim from ${where}${detail ? ` (${detail})` : ""}.`;
-    case "review.vouched": return `${who} vouched for ${where}${atRevision}.`;
-    case "review.disputed": return `${who} raised a dispute on ${where}${atRevision}.`;
-    case "dispute.answered": return `${who} answered the dispute on ${where}.`;
-    case "dispute.withdrawn": return `${who} withdrew the dispute on ${where}.`;
-    case "dispute.upheld": return `${who} upheld the dispute on ${where}.`;
-    case "batch.created": return `${who} attached a batch claim to ${where}${detail ? ` (${detail})` : ""}.`;
-    case "batch.cancelled": return `${who} cancelled a batch claim on ${where}${detail ? ` (${detail})` : ""}.`;
-    case "file.uploaded": return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
-    case "comment.added": return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
-    case "invitation.sent": return withDetail(`${who} invited a referee`);
-    case "invitation.revoked": return withDetail(`${who} revoked an invitation`);
-    case "invitation.accepted": return `${who} accepted an invitation to referee.`;
-    case "member.scope_changed": return withDetail(`${who} changed which cases a referee sees`);
-    case "member.scope_shared": return withDetail(`${who} shared the whole proof with a referee`);
-    case "member.owner_changed": return withDetail(`${who} handed over the proof`);
-    case "member.left": return withDetail(`${who} left the proof`);
-    case "member.removed": return withDetail(`${who} removed a member`);
-    case "settings.required_approvals": return withDetail(`${who} changed how many vouches a step needs`);
-    case "settings.review_policy": return withDetail(`${who} changed the review policy`);
-    case "round.opened": return withDetail(`${who} opened a round of refereeing`);
-    case "round.due_date_set": return withDetail(`${who} set a due date`);
-    case "round.decided": return withDetail(`${who} recorded a decision`);
-    case "report.submitted": return withDetail(`${who} submitted a report`);
-    case "report.correction_started": return withDetail(`${who} reopened a report for correction`);
-    case "export.certified": return withDetail(`${who} made a certified export`);
-    case "export.draft": return withDetail(`${who} made a draft export`);
+    case "proof.created":
+      return `${who} started the proof.`;
+    case "proof.edited":
+      return `${who} edited the proof's title or statement.`;
+    case "case.created":
+      return `${who} added ${where}.`;
+    case "case.edited":
+      return `${who} edited ${where}.`;
+    case "case.moved":
+      return `${who} moved ${where}.`;
+    case "case.reparented":
+      return withDetail(`${who} moved ${where} under another case`);
+    case "case.deleted":
+      return `${who} deleted ${where}.`;
+    case "case.restored":
+      return `${who} restored ${where}.`;
+    case "step.created":
+      return `${who} added ${where}.`;
+    case "step.revised":
+      return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
+    case "step.moved":
+      return `${who} moved ${where}.`;
+    case "revision.created":
+      return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
+    case "demo.reviews":
+      return `${who} added the demonstration reviews.`;
+    case "demo.rounds":
+      return `${who} added the demonstration rounds.`;
+    case "claim.attached":
+      return `${who} attached a claim to ${where}${detail ? ` (${detail})` : ""}.`;
+    case "claim.decided":
+      return withDetail(`A claim on ${where} was decided`);
+    case "claim.rechecked":
+      return `${who} asked for a claim on ${where} to be checked again.`;
+    case "claim.cancelled":
+      return `${who} cancelled the check of a claim on ${where}.`;
+    case "claim.withdrawn":
+      return `${who} withdrew a claim from ${where}${detail ? ` (${detail})` : ""}.`;
+    case "review.vouched":
+      return `${who} vouched for ${where}${atRevision}.`;
+    case "review.disputed":
+      return `${who} raised a dispute on ${where}${atRevision}.`;
+    case "dispute.answered":
+      return `${who} answered the dispute on ${where}.`;
+    case "dispute.withdrawn":
+      return `${who} withdrew the dispute on ${where}.`;
+    case "dispute.upheld":
+      return `${who} upheld the dispute on ${where}.`;
+    case "batch.created":
+      return `${who} attached a batch claim to ${where}${detail ? ` (${detail})` : ""}.`;
+    case "batch.cancelled":
+      return `${who} cancelled a batch claim on ${where}${detail ? ` (${detail})` : ""}.`;
+    case "file.uploaded":
+      return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
+    case "comment.added":
+      return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
+    case "invitation.sent":
+      return withDetail(`${who} invited a referee`);
+    case "invitation.revoked":
+      return withDetail(`${who} revoked an invitation`);
+    case "invitation.accepted":
+      return `${who} accepted an invitation to referee.`;
+    case "member.scope_changed":
+      return withDetail(`${who} changed which cases a referee sees`);
+    case "member.scope_shared":
+      return withDetail(`${who} shared the whole proof with a referee`);
+    case "member.owner_changed":
+      return withDetail(`${who} handed over the proof`);
+    case "member.left":
+      return withDetail(`${who} left the proof`);
+    case "member.removed":
+      return withDetail(`${who} removed a member`);
+    case "settings.required_approvals":
+      return withDetail(`${who} changed how many vouches a step needs`);
+    case "settings.review_policy":
+      return withDetail(`${who} changed the review policy`);
+    case "round.opened":
+      return withDetail(`${who} opened a round of refereeing`);
+    case "round.due_date_set":
+      return withDetail(`${who} set a due date`);
+    case "round.decided":
+      return withDetail(`${who} recorded a decision`);
+    case "report.submitted":
+      return withDetail(`${who} submitted a report`);
+    case "report.correction_started":
+      return withDetail(`${who} reopened a report for correction`);
+    case "export.certified":
+      return withDetail(`${who} made a certified export`);
+    case "export.draft":
+      return withDetail(`${who} made a draft export`);
     // An action added later without its own sentence still reads as words, never as the code.
-    default: return withDetail(`${who}: ${e.action.replace(/[._]/g, " ")}, on ${where}`);
+    default:
+      return withDetail(`${who}: ${e.action.replace(/[._]/g, " ")}, on ${where}`);
   }
 }

@@ -17,7 +17,12 @@ describe("round permissions", () => {
     expect(mayDoInRound("editor", "write_report")).toBe(false);
   });
   it("treats accept and reject as final, revisions as not", () => {
-    expect([isFinalDecision("accept"), isFinalDecision("reject"), isFinalDecision("minor_revision"), isFinalDecision("major_revision")]).toEqual([true, true, false, false]);
+    expect([isFinalDecision("accept"), isFinalDecision("reject"), isFinalDecision("minor_revision"), isFinalDecision("major_revision")]).toEqual([
+      true,
+      true,
+      false,
+      false,
+    ]);
   });
 });
 

@@ -13,4 +13,3 @@ describe("dispute transitions", () => {
     expect(canMoveDispute(null, "withdrawn")).toBe(false);
   });
 });
-

@@ -4,7 +4,12 @@ import { caseState, proofState, stepStatus, type CaseFacts, type StepFacts } fro
 // The rules under test are Cairn's own (see ../shared product notes: case and proof states); no outside source applies.
 const step = (over: Partial<StepFacts> = {}): StepFacts => ({ id: 1, latestRevision: 2, reviews: [], claims: [], authorIds: [9], ...over });
 const approve = (reviewerId: number, revisionNumber: number) => ({ reviewerId, revisionNumber, verdict: "vouch" as const, disputeState: null });
-const dispute = (reviewerId: number, state: "raised" | "answered" | "withdrawn" | "upheld") => ({ reviewerId, revisionNumber: 2, verdict: "dispute" as const, disputeState: state });
+const dispute = (reviewerId: number, state: "raised" | "answered" | "withdrawn" | "upheld") => ({
+  reviewerId,
+  revisionNumber: 2,
+  verdict: "dispute" as const,
+  disputeState: state,
+});
 const one = (s: StepFacts, children: CaseFacts[] = []): CaseFacts => ({ id: 1, steps: [s], children });
 
 describe("step status", () => {
@@ -37,8 +42,7 @@ describe("case state", () => {
   });
 
   it("is disputed while a dispute is open, answered or reopened, and settled once it is closed and vouches are current", () => {
-    for (const st of ["raised", "answered", "upheld"] as const)
-      expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, st)] })), 1)).toBe("disputed");
+    for (const st of ["raised", "answered", "upheld"] as const) expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, st)] })), 1)).toBe("disputed");
     expect(caseState(one(step({ reviews: [approve(1, 2), dispute(1, "withdrawn")] })), 1)).toBe("settled");
   });
 

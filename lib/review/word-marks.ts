@@ -27,16 +27,17 @@ const words = (s: string) => (s.match(/\S+/g) ?? []).length;
 export function wordMarks(before: string, after: string): WordMarks {
   const removed: Range[] = [];
   const added: Range[] = [];
-  let a = 0, b = 0;
+  let a = 0,
+    b = 0;
   const counts = { removed: 0, added: 0 };
   for (const part of diffWordsWithSpace(before, after)) {
     const len = part.value.length;
     const visible = /\S/.test(part.value);
     if (part.removed) {
-      if (visible) removed.push({ start: a, end: a + len }), (counts.removed += words(part.value));
+      if (visible) (removed.push({ start: a, end: a + len }), (counts.removed += words(part.value)));
       a += len;
     } else if (part.added) {
-      if (visible) added.push({ start: b, end: b + len }), (counts.added += words(part.value));
+      if (visible) (added.push({ start: b, end: b + len }), (counts.added += words(part.value)));
       b += len;
     } else {
       a += len;
@@ -48,11 +49,16 @@ export function wordMarks(before: string, after: string): WordMarks {
 
 const overlaps = (r: Range, start: number, end: number) => r.start < end && start < r.end;
 
-const markNode = (children: MdNode[], className: string): MdNode => ({ type: "changedWords", data: { hName: "mark", hProperties: { className: [className] } }, children });
+const markNode = (children: MdNode[], className: string): MdNode => ({
+  type: "changedWords",
+  data: { hName: "mark", hProperties: { className: [className] } },
+  children,
+});
 
 /** Splits a text node at the ranges it overlaps; the source offsets of text nodes match their value when no escape is involved. */
 function splitText(node: MdNode, ranges: readonly Range[], className: string): MdNode[] {
-  const start = node.position?.start.offset, end = node.position?.end.offset;
+  const start = node.position?.start.offset,
+    end = node.position?.end.offset;
   const value = node.value ?? "";
   if (start === undefined || end === undefined) return [node];
   const hit = ranges.filter((r) => overlaps(r, start, end));
@@ -62,7 +68,8 @@ function splitText(node: MdNode, ranges: readonly Range[], className: string): M
   const out: MdNode[] = [];
   let at = 0;
   for (const r of hit) {
-    const from = Math.max(0, r.start - start), to = Math.min(value.length, r.end - start);
+    const from = Math.max(0, r.start - start),
+      to = Math.min(value.length, r.end - start);
     if (from > at) out.push({ type: "text", value: value.slice(at, from) });
     if (to > from) out.push(markNode([{ type: "text", value: value.slice(from, to) }], className));
     at = Math.max(at, to);
@@ -75,7 +82,8 @@ function walk(node: MdNode, ranges: readonly Range[], className: string): void {
   if (!node.children) return;
   node.children = node.children.flatMap((child) => {
     if (child.type === "text") return splitText(child, ranges, className);
-    const start = child.position?.start.offset, end = child.position?.end.offset;
+    const start = child.position?.start.offset,
+      end = child.position?.end.offset;
     // A formula or code span is one unit: marked whole when any of it changed.
     if ((child.type === "inlineMath" || child.type === "inlineCode") && start !== undefined && end !== undefined && ranges.some((r) => overlaps(r, start, end)))
       return [markNode([child], className)];

@@ -80,7 +80,12 @@ export function fileStore(): BlobStore {
  * Deletes objects that no row names and that are older than `olderThanMs` (an upload in flight
  * writes its object before its row, so young objects are left alone). Returns how many went.
  */
-export async function sweepOrphans(store: BlobStore, isNamed: (sha256: string) => Promise<boolean>, olderThanMs = 3_600_000, now = Date.now()): Promise<number> {
+export async function sweepOrphans(
+  store: BlobStore,
+  isNamed: (sha256: string) => Promise<boolean>,
+  olderThanMs = 3_600_000,
+  now = Date.now(),
+): Promise<number> {
   let removed = (await store.removeStalePartials?.(olderThanMs, now)) ?? 0;
   for await (const o of store.list()) {
     if (now - o.modified.getTime() < olderThanMs) continue;

@@ -4,7 +4,15 @@
  * Checksums are sent and checked only where the API requires them, so that S3-compatible services
  * that do not know the newer checksum headers work too.
  */
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client, S3ServiceException } from "@aws-sdk/client-s3";
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadObjectCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+  S3ServiceException,
+} from "@aws-sdk/client-s3";
 import { assertDigest, sha256Hex, type BlobStore, type PutResult, type StoredObject } from "./index";
 
 export interface S3Settings {
@@ -17,8 +25,7 @@ export interface S3Settings {
   secretAccessKey?: string;
 }
 
-const missing = (e: unknown) =>
-  e instanceof S3ServiceException && (e.$metadata.httpStatusCode === 404 || e.name === "NotFound" || e.name === "NoSuchKey");
+const missing = (e: unknown) => e instanceof S3ServiceException && (e.$metadata.httpStatusCode === 404 || e.name === "NotFound" || e.name === "NoSuchKey");
 
 export class S3Store implements BlobStore {
   readonly driver = "s3" as const;
@@ -49,7 +56,13 @@ export class S3Store implements BlobStore {
     const sha256 = sha256Hex(bytes);
     if (await this.has(sha256)) return { sha256, size: bytes.byteLength, created: false };
     await this.client.send(
-      new PutObjectCommand({ Bucket: this.bucket, Key: this.key(sha256), Body: bytes, ContentLength: bytes.byteLength, ContentType: "application/octet-stream" }),
+      new PutObjectCommand({
+        Bucket: this.bucket,
+        Key: this.key(sha256),
+        Body: bytes,
+        ContentLength: bytes.byteLength,
+        ContentType: "application/octet-stream",
+      }),
     );
     return { sha256, size: bytes.byteLength, created: true };
   }

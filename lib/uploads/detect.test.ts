@@ -40,7 +40,10 @@ describe("detectFile", () => {
   it("tells TeX from plain text, and reads claims files", () => {
     expect(detectFile(bytes("\\documentclass{article}\n\\begin{document}x\\end{document}"), MiB).mediaType).toMatch(/^text\/x-tex/);
     expect(detectFile(bytes("The search ran for three days.\n"), MiB)).toMatchObject({ kind: "document", mediaType: "text/plain; charset=utf-8" });
-    const claims = { format: "cairn-claims/1", claims: [{ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "path(4)" }, op: "<", bound: "2" }] };
+    const claims = {
+      format: "cairn-claims/1",
+      claims: [{ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "path(4)" }, op: "<", bound: "2" }],
+    };
     expect(detectFile(bytes(JSON.stringify(claims)), MiB)).toMatchObject({ kind: "claims", description: "claims file of 1 claim" });
   });
 

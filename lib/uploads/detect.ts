@@ -39,7 +39,8 @@ export class UnpackedTooLarge extends Error {
   }
 }
 
-const ACCEPTED = "Cairn takes graph lists (graph6 or sparse6 one per line, or edge lists; plain or gzip-compressed), claims files (cairn-claims/1), PDF, PNG, plain text and TeX source.";
+const ACCEPTED =
+  "Cairn takes graph lists (graph6 or sparse6 one per line, or edge lists; plain or gzip-compressed), claims files (cairn-claims/1), PDF, PNG, plain text and TeX source.";
 
 const startsWith = (bytes: Uint8Array, magic: number[]) => magic.every((b, i) => bytes[i] === b);
 const PDF = [0x25, 0x50, 0x44, 0x46, 0x2d]; // "%PDF-"
@@ -92,7 +93,14 @@ function graphList(text: string, compressed: boolean): DetectedFile | null {
   const format = graphListFormat(text);
   if (!format) return null;
   const count = splitGraphList(text, format).length;
-  return { kind: "graph-list", mediaType: compressed ? "application/gzip" : "text/plain; charset=utf-8", description: describeList(format, count, compressed), graphFormat: format, graphCount: count, compressed };
+  return {
+    kind: "graph-list",
+    mediaType: compressed ? "application/gzip" : "text/plain; charset=utf-8",
+    description: describeList(format, count, compressed),
+    graphFormat: format,
+    graphCount: count,
+    compressed,
+  };
 }
 
 function claimsFile(text: string): DetectedFile | null {
@@ -110,10 +118,24 @@ function claimsFile(text: string): DetectedFile | null {
   } catch {
     return null;
   }
-  return { kind: "claims", mediaType: "application/json", description: `claims file of ${entries.length} ${entries.length === 1 ? "claim" : "claims"}`, graphFormat: null, graphCount: null, compressed: false };
+  return {
+    kind: "claims",
+    mediaType: "application/json",
+    description: `claims file of ${entries.length} ${entries.length === 1 ? "claim" : "claims"}`,
+    graphFormat: null,
+    graphCount: null,
+    compressed: false,
+  };
 }
 
-const document = (mediaType: string, description: string): DetectedFile => ({ kind: "document", mediaType, description, graphFormat: null, graphCount: null, compressed: false });
+const document = (mediaType: string, description: string): DetectedFile => ({
+  kind: "document",
+  mediaType,
+  description,
+  graphFormat: null,
+  graphCount: null,
+  compressed: false,
+});
 
 /**
  * What these bytes are. `expected`, when given, is the kind the uploader chose; a file whose content
@@ -123,7 +145,9 @@ export function detectFile(bytes: Uint8Array, maxUnpacked: number, expected?: Fi
   if (bytes.byteLength === 0) throw new UnsupportedContent(`The file is empty. ${ACCEPTED}`);
   const found = sniff(bytes, maxUnpacked);
   if (expected && found.kind !== expected)
-    throw new UnsupportedContent(`You chose “${expected}”, but by its content this file is a ${found.description}. Choose that kind, or upload the file you meant.`);
+    throw new UnsupportedContent(
+      `You chose “${expected}”, but by its content this file is a ${found.description}. Choose that kind, or upload the file you meant.`,
+    );
   return found;
 }
 
@@ -133,12 +157,19 @@ function sniff(bytes: Uint8Array, maxUnpacked: number): DetectedFile {
   if (isGzip(bytes)) {
     const text = asText(gunzipLimited(bytes, maxUnpacked));
     const list = text === null ? null : graphList(text, true);
-    if (!list) throw new UnsupportedContent(`The gzip file does not hold a graph list (graph6 or sparse6 one per line, or edge lists); only graph lists may be compressed. ${ACCEPTED}`);
+    if (!list)
+      throw new UnsupportedContent(
+        `The gzip file does not hold a graph list (graph6 or sparse6 one per line, or edge lists); only graph lists may be compressed. ${ACCEPTED}`,
+      );
     return list;
   }
   const text = asText(bytes);
   if (text === null) throw new UnsupportedContent(`By its content this is a binary file of a kind Cairn does not take (not PDF, PNG or gzip). ${ACCEPTED}`);
-  return graphList(text, false) ?? claimsFile(text) ?? (TEX.test(text) ? document("text/x-tex; charset=utf-8", "TeX source") : document("text/plain; charset=utf-8", "plain text"));
+  return (
+    graphList(text, false) ??
+    claimsFile(text) ??
+    (TEX.test(text) ? document("text/x-tex; charset=utf-8", "TeX source") : document("text/plain; charset=utf-8", "plain text"))
+  );
 }
 
 /** The text of a stored graph list (unpacked when gzip). */

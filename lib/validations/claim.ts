@@ -4,7 +4,17 @@
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
 import { z } from "./zod";
-import { CLAIM_FORMAT, CLAIMS_FILE_FORMAT, CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES, ENUMERATION_SETTINGS } from "@/lib/core/claim-schema";
+import {
+  CLAIM_FORMAT,
+  CLAIMS_FILE_FORMAT,
+  CLAIM_KINDS,
+  GRAPH_FORMATS,
+  RELATIONS,
+  STRUCTURE_PREDICATES,
+  DEGREE_RELATIONS,
+  ENUMERATION_MAX_VERTICES,
+  ENUMERATION_SETTINGS,
+} from "@/lib/core/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
 
@@ -45,9 +55,26 @@ export const claimFormSchema = z.object({
 export type ClaimForm = z.infer<typeof claimFormSchema>;
 
 export const emptyClaimForm: ClaimForm = {
-  kind: "spectral-radius-bound", graphFormat: "named", graphText: "", patternFormat: "named", patternText: "", op: "<", bound: "2",
-  vector: "", induced: false, embedding: "", family: "", coefficients: "", h: "", multiset: "", predicate: "tree", parameter: "",
-  degreeRelation: "=", maxVertices: "", enumerationSetting: "simple", certificate: "",
+  kind: "spectral-radius-bound",
+  graphFormat: "named",
+  graphText: "",
+  patternFormat: "named",
+  patternText: "",
+  op: "<",
+  bound: "2",
+  vector: "",
+  induced: false,
+  embedding: "",
+  family: "",
+  coefficients: "",
+  h: "",
+  multiset: "",
+  predicate: "tree",
+  parameter: "",
+  degreeRelation: "=",
+  maxVertices: "",
+  enumerationSetting: "simple",
+  certificate: "",
 };
 
 type Issue = { field: keyof ClaimForm; message: string };
@@ -94,7 +121,11 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       need("patternText", "the excluded patterns, separated by lines of ---");
       Object.assign(claim, {
         host: graph(f.graphFormat, f.graphText),
-        patterns: f.patternText.split(/^\s*---\s*$/m).map((t) => t.trim()).filter(Boolean).map((t) => graph(f.patternFormat, t)),
+        patterns: f.patternText
+          .split(/^\s*---\s*$/m)
+          .map((t) => t.trim())
+          .filter(Boolean)
+          .map((t) => graph(f.patternFormat, t)),
         induced: f.induced,
       });
       break;
@@ -114,12 +145,19 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       break;
     case "enumeration":
       need("maxVertices", `the largest number of vertices N (at most ${ENUMERATION_MAX_VERTICES})`);
-      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: `N is a positive integer (at most ${ENUMERATION_MAX_VERTICES})` });
+      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim()))
+        issues.push({ field: "maxVertices", message: `N is a positive integer (at most ${ENUMERATION_MAX_VERTICES})` });
       need("bound", "the bound, e.g. 2");
       Object.assign(claim, {
-        maxVertices: Number(f.maxVertices.trim()), op: f.op, bound: f.bound.trim(),
+        maxVertices: Number(f.maxVertices.trim()),
+        op: f.op,
+        bound: f.bound.trim(),
         ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}),
-        graphs: f.patternText.split(/^\s*---\s*$/m).map((t) => t.trim()).filter(Boolean).map((t) => graph(f.patternFormat, t)),
+        graphs: f.patternText
+          .split(/^\s*---\s*$/m)
+          .map((t) => t.trim())
+          .filter(Boolean)
+          .map((t) => graph(f.patternFormat, t)),
       });
       break;
     case "structure": {
@@ -185,10 +223,10 @@ export function claimsFromDocument(text: string): { claims: Record<string, unkno
   if (Array.isArray(json)) list = json;
   else if (isObject(json) && json.format === CLAIM_FORMAT) list = [json];
   else if (isObject(json) && json.format === CLAIMS_FILE_FORMAT && Array.isArray(json.claims)) list = json.claims;
-  if (list === null)
-    return { problem: `Expected one "${CLAIM_FORMAT}" claim, an array of claims, or { "format": "${CLAIMS_FILE_FORMAT}", "claims": [...] }.` };
+  if (list === null) return { problem: `Expected one "${CLAIM_FORMAT}" claim, an array of claims, or { "format": "${CLAIMS_FILE_FORMAT}", "claims": [...] }.` };
   if (list.length === 0) return { problem: "The document holds no claims." };
-  if (list.length > MAX_CLAIMS_PER_REQUEST) return { problem: `The document holds ${list.length} claims; attach at most ${MAX_CLAIMS_PER_REQUEST} at once (split the file).` };
+  if (list.length > MAX_CLAIMS_PER_REQUEST)
+    return { problem: `The document holds ${list.length} claims; attach at most ${MAX_CLAIMS_PER_REQUEST} at once (split the file).` };
   const notObject = list.findIndex((c) => !isObject(c));
   if (notObject >= 0) return { problem: `Claim ${notObject + 1} is not a JSON object.` };
   return { claims: list as Record<string, unknown>[] };

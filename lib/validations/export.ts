@@ -2,7 +2,7 @@ import { z } from "./zod";
 
 /** Making an export: certified (only when the proof is ready to certify) or draft. */
 export const createExportSchema = z.object({
-  kind: z.enum(["certified", "draft"], { message: "Choose the kind of export: \"certified\" or \"draft\"." }),
+  kind: z.enum(["certified", "draft"], { message: 'Choose the kind of export: "certified" or "draft".' }),
 });
 export type CreateExportInput = z.infer<typeof createExportSchema>;
 

@@ -11,7 +11,10 @@ export const invitationSchema = z
     role: z.enum(["author", "reviewer", "editor"], { error: "Invite as a co-author (author), a referee (reviewer) or an editor." }).default("reviewer"),
   })
   .refine((v) => v.scope === "proof" || (v.caseIds?.length ?? 0) > 0, { path: ["caseIds"], message: "Choose at least one case." })
-  .refine((v) => v.role === "reviewer" || v.scope === "proof", { path: ["scope"], message: "Only referees are invited to chosen cases; co-authors and editors join the whole proof." });
+  .refine((v) => v.role === "reviewer" || v.scope === "proof", {
+    path: ["scope"],
+    message: "Only referees are invited to chosen cases; co-authors and editors join the whole proof.",
+  });
 export type InvitationInput = z.infer<typeof invitationSchema>;
 
 /** Accepting while signed out creates the account: a name and a password. */

@@ -9,7 +9,10 @@ export const verdictSchema = z
     revisionId: id,
     verdict: z.enum(["vouch", "dispute"], { error: "The verdict is either vouch or dispute." }),
     comment: z.string().max(20_000, "Keep the comment under 20,000 characters.").optional(),
-    digest: z.string().regex(/^[0-9a-f]{64}$/, "The digest is the 64 hex digits the review panel shows for the revision.").optional(),
+    digest: z
+      .string()
+      .regex(/^[0-9a-f]{64}$/, "The digest is the 64 hex digits the review panel shows for the revision.")
+      .optional(),
   })
   .refine((v) => v.verdict !== "dispute" || (v.comment ?? "").trim().length > 0, {
     path: ["comment"],
@@ -24,7 +27,11 @@ export const disputeMoveSchema = z.object({
 export type DisputeMoveInput = z.infer<typeof disputeMoveSchema>;
 
 export const settingsSchema = z.object({
-  requiredApprovals: z.number({ error: "Give the number of vouches as a whole number." }).int("Give a whole number.").min(1, "At least one approval is required.").max(9, "At most 9 vouches can be required."),
+  requiredApprovals: z
+    .number({ error: "Give the number of vouches as a whole number." })
+    .int("Give a whole number.")
+    .min(1, "At least one approval is required.")
+    .max(9, "At most 9 vouches can be required."),
 });
 export type SettingsInput = z.infer<typeof settingsSchema>;
 

@@ -35,10 +35,23 @@ export type DecisionInput = z.infer<typeof decisionSchema>;
 export const reviewPolicySchema = z
   .object({
     blind: z.boolean({ error: "Say true or false." }).optional(),
-    remindBeforeDays: z.number({ error: "Give a whole number of days." }).int("Give a whole number of days.").min(0, "At least 0 days.").max(60, "At most 60 days.").optional(),
-    remindAfterDays: z.number({ error: "Give a whole number of days." }).int("Give a whole number of days.").min(0, "At least 0 days.").max(60, "At most 60 days.").optional(),
+    remindBeforeDays: z
+      .number({ error: "Give a whole number of days." })
+      .int("Give a whole number of days.")
+      .min(0, "At least 0 days.")
+      .max(60, "At most 60 days.")
+      .optional(),
+    remindAfterDays: z
+      .number({ error: "Give a whole number of days." })
+      .int("Give a whole number of days.")
+      .min(0, "At least 0 days.")
+      .max(60, "At most 60 days.")
+      .optional(),
   })
-  .refine((v) => v.blind !== undefined || v.remindBeforeDays !== undefined || v.remindAfterDays !== undefined, { message: "Change at least one of blind, remindBeforeDays, remindAfterDays.", path: ["body"] });
+  .refine((v) => v.blind !== undefined || v.remindBeforeDays !== undefined || v.remindAfterDays !== undefined, {
+    message: "Change at least one of blind, remindBeforeDays, remindAfterDays.",
+    path: ["body"],
+  });
 export type ReviewPolicyInput = z.infer<typeof reviewPolicySchema>;
 
 /** A date alone ("2026-06-30") is the end of that day in UTC. */

@@ -67,7 +67,11 @@ function componentsOf(nb: number[][]): number[][] {
     const comp = [s];
     seen[s] = 1;
     for (let i = 0; i < comp.length; i++)
-      for (const w of nb[comp[i]]) if (!seen[w]) { seen[w] = 1; comp.push(w); }
+      for (const w of nb[comp[i]])
+        if (!seen[w]) {
+          seen[w] = 1;
+          comp.push(w);
+        }
     out.push(comp.sort((a, b) => a - b));
   }
   return out;
@@ -78,7 +82,11 @@ function bfs(nb: number[][], s: number): { far: number; parent: Map<number, numb
   const parent = new Map<number, number>([[s, -1]]);
   const order = [s];
   for (let i = 0; i < order.length; i++)
-    for (const w of nb[order[i]]) if (!parent.has(w)) { parent.set(w, order[i]); order.push(w); }
+    for (const w of nb[order[i]])
+      if (!parent.has(w)) {
+        parent.set(w, order[i]);
+        order.push(w);
+      }
   return { far: order[order.length - 1], parent, order };
 }
 
@@ -94,7 +102,8 @@ function diameterPath(nb: number[][], start: number): number[] {
 /** The path that starts at `first` (a neighbour of `from`) and runs to a leaf, or null if it branches. */
 function hangingPath(nb: number[][], from: number, first: number): number[] | null {
   const out = [first];
-  let prev = from, cur = first;
+  let prev = from,
+    cur = first;
   for (;;) {
     const next = nb[cur].filter((w) => w !== prev);
     if (next.length === 0) return out;
@@ -125,7 +134,11 @@ function layoutStarLike(nb: number[][], centre: number): { local: Local; legs: n
   place(local, centre, 0, 0);
   const directions: Array<[number, number]> =
     legs.length === 3
-      ? [[-1, 0], [1, 0], [0, 1]]
+      ? [
+          [-1, 0],
+          [1, 0],
+          [0, 1],
+        ]
       : legs.map((_, i) => {
           const t = -Math.PI / 2 + (2 * Math.PI * i) / legs.length;
           return [Math.cos(t), Math.sin(t)];
@@ -158,7 +171,10 @@ function layoutSpine(nb: number[][], comp: number[]): Local | null {
 function layoutTidyTree(nb: number[][], comp: number[]): Local {
   const line = diameterPath(nb, comp[0]);
   const root = line[Math.floor(line.length / 2)];
-  interface TNode { v: number; children: TNode[] }
+  interface TNode {
+    v: number;
+    children: TNode[];
+  }
   const { parent, order } = bfs(nb, root);
   const nodes = new Map<number, TNode>(order.map((v) => [v, { v, children: [] }]));
   for (const v of order) {
@@ -175,7 +191,8 @@ function layoutTidyTree(nb: number[][], comp: number[]): Local {
 function layoutCycle(nb: number[][], comp: number[]): Local {
   const local: Local = { x: new Map(), y: new Map() };
   const order = [comp[0]];
-  let prev = -1, cur = comp[0];
+  let prev = -1,
+    cur = comp[0];
   while (order.length < comp.length) {
     const next = nb[cur].find((w) => w !== prev)!;
     prev = cur;
@@ -207,7 +224,8 @@ function theCycle(nb: number[][], comp: number[]): number[] {
   }
   const on = comp.filter((v) => !gone.has(v));
   const order = [on[0]];
-  let prev = -1, cur = on[0];
+  let prev = -1,
+    cur = on[0];
   while (order.length < on.length) {
     const next = nb[cur].find((w) => w !== prev && !gone.has(w))!;
     prev = cur;
@@ -226,7 +244,10 @@ function theCycle(nb: number[][], comp: number[]): number[] {
 function layoutUnicyclic(nb: number[][], comp: number[]): { local: Local; cycle: number } {
   const ring = theCycle(nb, comp);
   const onRing = new Set(ring);
-  interface TNode { v: number; children: TNode[] }
+  interface TNode {
+    v: number;
+    children: TNode[];
+  }
   const trees = ring.map((root) => {
     const build = (v: number, from: number): TNode => ({ v, children: nb[v].filter((w) => w !== from && !onRing.has(w)).map((w) => build(w, v)) });
     const laid = tree<TNode>().nodeSize([1, 1])(hierarchy(build(root, -1)));
@@ -311,8 +332,10 @@ export function layoutByStructure(g: Graph): StructuredLayout {
   const nb = simpleNeighbours(g);
   const parts = componentsOf(nb).map((comp) => {
     const { local, info } = layoutComponent(nb, comp);
-    const xs = comp.map((v) => local.x.get(v)!), ys = comp.map((v) => local.y.get(v)!);
-    const x0 = Math.min(...xs), y0 = Math.min(...ys);
+    const xs = comp.map((v) => local.x.get(v)!),
+      ys = comp.map((v) => local.y.get(v)!);
+    const x0 = Math.min(...xs),
+      y0 = Math.min(...ys);
     return { comp, local, info, x0, y0, w: Math.max(...xs) - x0, h: Math.max(...ys) - y0 };
   });
   // Shelf packing: largest components first, rows about as wide as the box's proportions suggest.
@@ -320,17 +343,29 @@ export function layoutByStructure(g: Graph): StructuredLayout {
   const order = [...parts].sort((a, b) => b.comp.length - a.comp.length || a.comp[0] - b.comp[0]);
   const area = parts.reduce((s, p) => s + (p.w + GAP) * (p.h + GAP), 0);
   const rowWidth = Math.max(Math.sqrt((area * LAYOUT_WIDTH) / LAYOUT_HEIGHT), ...parts.map((p) => p.w));
-  const gx = new Array<number>(g.n).fill(0), gy = new Array<number>(g.n).fill(0);
-  let cx = 0, cy = 0, rowH = 0;
+  const gx = new Array<number>(g.n).fill(0),
+    gy = new Array<number>(g.n).fill(0);
+  let cx = 0,
+    cy = 0,
+    rowH = 0;
   for (const p of order) {
-    if (cx > 0 && cx + p.w > rowWidth) { cx = 0; cy += rowH + GAP; rowH = 0; }
-    for (const v of p.comp) { gx[v] = cx + p.local.x.get(v)! - p.x0; gy[v] = cy + p.local.y.get(v)! - p.y0; }
+    if (cx > 0 && cx + p.w > rowWidth) {
+      cx = 0;
+      cy += rowH + GAP;
+      rowH = 0;
+    }
+    for (const v of p.comp) {
+      gx[v] = cx + p.local.x.get(v)! - p.x0;
+      gy[v] = cy + p.local.y.get(v)! - p.y0;
+    }
     cx += p.w + GAP;
     rowH = Math.max(rowH, p.h);
   }
-  const [x0, x1] = [Math.min(...gx), Math.max(...gx)], [y0, y1] = [Math.min(...gy), Math.max(...gy)];
+  const [x0, x1] = [Math.min(...gx), Math.max(...gx)],
+    [y0, y1] = [Math.min(...gy), Math.max(...gy)];
   const scale = Math.min((LAYOUT_WIDTH - 80) / Math.max(x1 - x0, 1e-9), (LAYOUT_HEIGHT - 80) / Math.max(y1 - y0, 1e-9), MAX_EDGE);
-  const mx = (x0 + x1) / 2, my = (y0 + y1) / 2;
+  const mx = (x0 + x1) / 2,
+    my = (y0 + y1) / 2;
   const round = (v: number) => Math.round(v * 10) / 10;
   return {
     x: gx.map((v) => round(LAYOUT_WIDTH / 2 + (v - mx) * scale)),

@@ -11,7 +11,11 @@ describe("graph pictures (display only)", () => {
   });
 
   it("finds the spectrum of the path P3, {−√2, 0, √2} (eigenvalues 2cos(kπ/4))", () => {
-    const ev = symmetricEigenvalues([[0, 1, 0], [1, 0, 1], [0, 1, 0]]);
+    const ev = symmetricEigenvalues([
+      [0, 1, 0],
+      [1, 0, 1],
+      [0, 1, 0],
+    ]);
     expect(ev[0]).toBeCloseTo(-Math.SQRT2, 10);
     expect(ev[1]).toBeCloseTo(0, 10);
     expect(ev[2]).toBeCloseTo(Math.SQRT2, 10);
@@ -22,9 +26,16 @@ describe("graph pictures (display only)", () => {
   });
 
   it("highlights the image of an embedding, vertices and edges", () => {
-    const host = parseGraph("path(5)", "named"), pattern = parseGraph("path(3)", "named");
+    const host = parseGraph("path(5)", "named"),
+      pattern = parseGraph("path(3)", "named");
     const p = pictureOf(host, "G", [1, 2, 3], pattern)!;
-    expect(p.highlight).toEqual({ vertices: [1, 2, 3], edges: [[1, 2], [2, 3]] });
+    expect(p.highlight).toEqual({
+      vertices: [1, 2, 3],
+      edges: [
+        [1, 2],
+        [2, 3],
+      ],
+    });
     expect(pictureOf(host, "G", [7, 8, 9], pattern)!.highlight).toBeNull();
   });
 });

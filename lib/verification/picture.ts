@@ -45,7 +45,10 @@ function denseAdjacency(g: Graph): number[][] {
   const a = Array.from({ length: g.n }, () => new Array<number>(g.n).fill(0));
   for (const e of g.edges) {
     if (e.u === e.v) a[e.u][e.u] += e.m;
-    else { a[e.u][e.v] += e.m; a[e.v][e.u] += e.m; }
+    else {
+      a[e.u][e.v] += e.m;
+      a[e.v][e.u] += e.m;
+    }
   }
   return a;
 }
@@ -63,14 +66,17 @@ export function symmetricEigenvalues(matrix: number[][], maxSweeps = 60): number
         if (Math.abs(a[p][q]) < 1e-300) continue;
         const theta = (a[q][q] - a[p][p]) / (2 * a[p][q]);
         const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
-        const c = 1 / Math.sqrt(t * t + 1), s = t * c;
+        const c = 1 / Math.sqrt(t * t + 1),
+          s = t * c;
         for (let k = 0; k < n; k++) {
-          const akp = a[k][p], akq = a[k][q];
+          const akp = a[k][p],
+            akq = a[k][q];
           a[k][p] = c * akp - s * akq;
           a[k][q] = s * akp + c * akq;
         }
         for (let k = 0; k < n; k++) {
-          const apk = a[p][k], aqk = a[q][k];
+          const apk = a[p][k],
+            aqk = a[q][k];
           a[p][k] = c * apk - s * aqk;
           a[q][k] = s * apk + c * aqk;
         }
@@ -86,7 +92,10 @@ export function perronVector(g: Graph, iterations = 2000): number[] {
     const y = x.slice();
     for (const e of g.edges) {
       if (e.u === e.v) y[e.u] += e.m * x[e.u];
-      else { y[e.u] += e.m * x[e.v]; y[e.v] += e.m * x[e.u]; }
+      else {
+        y[e.u] += e.m * x[e.v];
+        y[e.v] += e.m * x[e.u];
+      }
     }
     const max = Math.max(...y) || 1;
     const next = y.map((v) => v / max);

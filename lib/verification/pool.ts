@@ -27,7 +27,15 @@ export function workerFile(): string {
   const tmp = `${out}.${process.pid}.${Date.now()}.tmp.mjs`;
   execFileSync(
     path.join(root, "node_modules", ".bin", "esbuild"),
-    [path.join(root, "lib/verification/worker-entry.ts"), "--bundle", "--platform=node", "--format=esm", "--target=node20", "--log-level=error", `--outfile=${tmp}`],
+    [
+      path.join(root, "lib/verification/worker-entry.ts"),
+      "--bundle",
+      "--platform=node",
+      "--format=esm",
+      "--target=node20",
+      "--log-level=error",
+      `--outfile=${tmp}`,
+    ],
     { stdio: ["ignore", "ignore", "pipe"] },
   );
   renameSync(/* turbopackIgnore: true */ tmp, out);

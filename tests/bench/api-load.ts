@@ -54,7 +54,9 @@ export async function startStack(): Promise<Stack> {
   const port = Number(process.env.CAIRN_BENCH_PORT ?? 3190);
   const name = `bench-${dbPort}`;
   const redisPort = Number(process.env.CAIRN_BENCH_REDIS_PORT ?? dbPort + 3050);
-  sh(`rm -rf "$DATA/${name}"; db_start ${name} ${dbPort} >&2; db_create ${name} cairn_bench cairn_bench cairn-bench-password; redis_start ${name} ${redisPort} >&2`);
+  sh(
+    `rm -rf "$DATA/${name}"; db_start ${name} ${dbPort} >&2; db_create ${name} cairn_bench cairn_bench cairn-bench-password; redis_start ${name} ${redisPort} >&2`,
+  );
   const workerCount = Number(process.env.CAIRN_BENCH_WORKERS ?? sh("worker_count").trim());
   const env = {
     ...process.env,
@@ -80,7 +82,8 @@ export async function startStack(): Promise<Stack> {
     sh(`redis_stop ${name}; db_stop ${name}; rm -rf "$DATA/${name}"`);
   };
   try {
-    for (const script of ["scripts/migrate.ts", "scripts/seed.ts"]) execFileSync("node_modules/.bin/tsx", [script], { env, stdio: ["ignore", "ignore", "inherit"] });
+    for (const script of ["scripts/migrate.ts", "scripts/seed.ts"])
+      execFileSync("node_modules/.bin/tsx", [script], { env, stdio: ["ignore", "ignore", "inherit"] });
     if (!process.env.CAIRN_BENCH_SKIP_BUILD) {
       console.log("building the app into .next-bench (about a minute) …");
       execFileSync("node_modules/.bin/next", ["build"], { env, stdio: ["ignore", "ignore", "inherit"] });
@@ -183,12 +186,18 @@ async function run(options: BenchOptions): Promise<void> {
   const stack = process.env.CAIRN_BENCH_URL ? { url: process.env.CAIRN_BENCH_URL, stop: () => undefined } : await startStack();
   try {
     const cookie = await signIn(stack.url);
-    const { proof } = await api<{ proof: { id: number } }>(stack.url, cookie, "/api/proofs", { title: `API load ${new Date().toISOString()}`, statement: "Load test." });
+    const { proof } = await api<{ proof: { id: number } }>(stack.url, cookie, "/api/proofs", {
+      title: `API load ${new Date().toISOString()}`,
+      statement: "Load test.",
+    });
     const { case: c } = await api<{ case: { id: number } }>(stack.url, cookie, `/api/proofs/${proof.id}/cases`, { title: "Load", condition: "" });
     const { step } = await api<{ step: { id: number } }>(stack.url, cookie, `/api/proofs/${proof.id}/cases/${c.id}/steps`, { body: "Load." });
     const w = halfDenseGraphWorkload(50);
     const claim = {
-      format: "cairn-claim/1", kind: "spectral-radius-bound", op: "<", bound: "30",
+      format: "cairn-claim/1",
+      kind: "spectral-radius-bound",
+      op: "<",
+      bound: "30",
       graph: { format: "edges", text: w.edges.map(([u, v]) => `${u} ${v}`).join("\n") },
     };
     const duration = options.quick ? 5 : 20;
@@ -214,19 +223,28 @@ async function run(options: BenchOptions): Promise<void> {
     });
     const health = await probe;
     times.sort((a, b) => a - b);
-    console.log(`verify a claim on G(50, 1/2) (${w.edges.length} edges) through POST …/claims?wait=60, ${CLIENTS} concurrent clients, ${duration} s on loopback (autocannon)`);
-    console.log(`  requests: ${result.requests.total} (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(", ")}), errors ${result.errors}, timeouts ${result.timeouts}`);
+    console.log(
+      `verify a claim on G(50, 1/2) (${w.edges.length} edges) through POST …/claims?wait=60, ${CLIENTS} concurrent clients, ${duration} s on loopback (autocannon)`,
+    );
+    console.log(
+      `  requests: ${result.requests.total} (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(", ")}), errors ${result.errors}, timeouts ${result.timeouts}`,
+    );
     const f = (v: number) => v.toFixed(0);
     console.log(`  time to verdict per request, ms: median ${f(percentile(times, 50))}, p95 ${f(percentile(times, 95))}, max ${f(percentile(times, 100))}`);
-    const b = baseline.times, h = health.times;
+    const b = baseline.times,
+      h = health.times;
     console.log(`  GET /api/health before the load: ${b.length} probes, median ${percentile(b, 50).toFixed(1)} ms, max ${percentile(b, 100).toFixed(1)} ms`);
     const ok = percentile(h, 100) < 100;
-    console.log(`  GET /api/health meanwhile: ${h.length} probes, median ${percentile(h, 50).toFixed(1)} ms, p95 ${percentile(h, 95).toFixed(1)} ms, max ${percentile(h, 100).toFixed(1)} ms — ${ok ? "under 100 ms: ok" : "over 100 ms: MISS"}`);
+    console.log(
+      `  GET /api/health meanwhile: ${h.length} probes, median ${percentile(h, 50).toFixed(1)} ms, p95 ${percentile(h, 95).toFixed(1)} ms, max ${percentile(h, 100).toFixed(1)} ms — ${ok ? "under 100 ms: ok" : "over 100 ms: MISS"}`,
+    );
     const d = health.database;
     console.log(`    of which the route's own database round trip: median ${percentile(d, 50).toFixed(1)} ms, max ${percentile(d, 100).toFixed(1)} ms`);
     if (stack.pids) {
       const [web, ...workers] = stack.pids().map(peakMemoryMb);
-      console.log(`  peak memory (VmHWM of the largest process): web server ${web.toFixed(0)} MB; workers ${workers.map((m) => `${m.toFixed(0)} MB`).join(", ")}`);
+      console.log(
+        `  peak memory (VmHWM of the largest process): web server ${web.toFixed(0)} MB; workers ${workers.map((m) => `${m.toFixed(0)} MB`).join(", ")}`,
+      );
     }
   } finally {
     stack.stop();

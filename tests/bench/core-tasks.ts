@@ -4,8 +4,16 @@
  */
 import type { BenchSection, BenchTask } from "./run";
 import {
-  extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload, sparseGraphWorkload, star4Workload,
-  t12kWorkload, workloadGraph, type Workload,
+  extendedDWorkload,
+  extendedE8Workload,
+  halfDenseGraphWorkload,
+  pathWorkload,
+  randomTreeWorkload,
+  sparseGraphWorkload,
+  star4Workload,
+  t12kWorkload,
+  workloadGraph,
+  type Workload,
 } from "./workloads";
 import { spawnSync } from "node:child_process";
 import { enumerateConnected } from "../../lib/core/enumeration";
@@ -39,20 +47,45 @@ function spectralRadiusTasks(): BenchTask[] {
   const out: BenchTask[] = [];
   for (const n of [1_000, 100_000, 1_000_000]) {
     const target = n === 1_000_000 ? 2000 : undefined;
-    out.push(named(graphTask(`path-${n}-rho`, () => pathWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `path P_${n}`));
-    out.push(named(graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target), `tree-${n}`));
+    out.push(
+      named(
+        graphTask(`path-${n}-rho`, () => pathWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target),
+        `path P_${n}`,
+      ),
+    );
+    out.push(
+      named(
+        graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target),
+        `tree-${n}`,
+      ),
+    );
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
   for (const n of [1_000, 100_000, 1_000_000])
-    out.push(named(graphTask(`tree-${n}-inertia`, () => randomTreeWorkload(n), "full inertia of 2I − A", n === 1_000, (g) => {
-      const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
-      return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-    }, n === 1_000_000 ? 5000 : undefined), `tree-${n}`));
+    out.push(
+      named(
+        graphTask(
+          `tree-${n}-inertia`,
+          () => randomTreeWorkload(n),
+          "full inertia of 2I − A",
+          n === 1_000,
+          (g) => {
+            const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+            return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
+          },
+          n === 1_000_000 ? 5000 : undefined,
+        ),
+        `tree-${n}`,
+      ),
+    );
   // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
   // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
   for (const eps of [1e-12, -1e-12])
     out.push({
-      id: `tree-100000-near-${eps > 0 ? "above" : "below"}`, workload: "tree-100000", quick: false, targetMs: 5000,
+      id: `tree-100000-near-${eps > 0 ? "above" : "below"}`,
+      workload: "tree-100000",
+      quick: false,
+      targetMs: 5000,
       task: `ρ < √r, √r = ρ ${eps > 0 ? "+" : "−"} 1e-12 (irrational b)`,
       prepare: () => {
         const g = workloadGraph(randomTreeWorkload(100_000));
@@ -72,20 +105,50 @@ function sparseTasks(): BenchTask[] {
   // Full inertia (elimination to the end) up to n = 2000; the verdict also at n = 5000, a named workload.
   return [200, 1_000, 2_000, 5_000].flatMap((n) => [
     ...(n <= 2_000
-      ? [named(graphTask(`gnm3-${n}-inertia`, () => sparseGraphWorkload(n), "full inertia of 2I − A", n === 200, (g) => {
-          const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
-          return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-        }, n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined), `G(n,m) deg 3, n=${n}`)]
+      ? [
+          named(
+            graphTask(
+              `gnm3-${n}-inertia`,
+              () => sparseGraphWorkload(n),
+              "full inertia of 2I − A",
+              n === 200,
+              (g) => {
+                const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+                return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
+              },
+              n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined,
+            ),
+            `G(n,m) deg 3, n=${n}`,
+          ),
+        ]
       : []),
-    named(graphTask(`gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, (g) => {
-      const v = spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS));
-      return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
-    }), `G(n,m) deg 3, n=${n}`),
+    named(
+      graphTask(
+        `gnm3-${n}-rho3`,
+        () => sparseGraphWorkload(n),
+        "ρ ≤ 3 (exact verdict)",
+        n === 200,
+        (g) => {
+          const v = spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS));
+          return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
+        },
+      ),
+      `G(n,m) deg 3, n=${n}`,
+    ),
     // ρ ≈ 4.2–4.4 on these graphs (float hint), so ρ < 5 holds: the other direction of the same question.
-    named(graphTask(`gnm3-${n}-rho5`, () => sparseGraphWorkload(n), "ρ < 5 (exact verdict)", n === 200, (g) => {
-      const v = spectralRadiusBound(g, "<", "5", new Budget(BENCH_STEPS));
-      return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
-    }), `G(n,m) deg 3, n=${n}`),
+    named(
+      graphTask(
+        `gnm3-${n}-rho5`,
+        () => sparseGraphWorkload(n),
+        "ρ < 5 (exact verdict)",
+        n === 200,
+        (g) => {
+          const v = spectralRadiusBound(g, "<", "5", new Budget(BENCH_STEPS));
+          return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
+        },
+      ),
+      `G(n,m) deg 3, n=${n}`,
+    ),
   ]);
 }
 
@@ -98,45 +161,104 @@ function subgraphTasks(): BenchTask[] {
   };
   return [
     ...[1_000, 10_000, 100_000].map((n) =>
-      named(graphTask(`tree-${n}-affineE8`, () => randomTreeWorkload(n), "find affine E8 (embedding)", n === 1_000, find(e8), n === 100_000 ? 1000 : undefined), `tree-${n}`)),
-    named(graphTask("path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)), "path P_100000"),
-    named(graphTask("path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)), "path P_1000"),
+      named(
+        graphTask(`tree-${n}-affineE8`, () => randomTreeWorkload(n), "find affine E8 (embedding)", n === 1_000, find(e8), n === 100_000 ? 1000 : undefined),
+        `tree-${n}`,
+      ),
+    ),
+    named(
+      graphTask("path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)),
+      "path P_100000",
+    ),
+    named(
+      graphTask("path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)),
+      "path P_1000",
+    ),
     ...[1_000, 100_000].map((n) =>
-      named(graphTask(`affineD-${n}-affineE8`, () => extendedDWorkload(n), "affine E8 absent (proof of absence)", n === 1_000, find(e8)), `extended D, n=${n}`)),
+      named(
+        graphTask(`affineD-${n}-affineE8`, () => extendedDWorkload(n), "affine E8 absent (proof of absence)", n === 1_000, find(e8)),
+        `extended D, n=${n}`,
+      ),
+    ),
   ];
 }
 
 function charpolyTasks(): BenchTask[] {
   return [20, 30, 40, 60, 100].map((n) =>
-    named(graphTask(`gnp-${n}-charpoly`, () => halfDenseGraphWorkload(n), "characteristic polynomial", n <= 30, (g) => {
-      const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
-      const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
-      return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
-    }, n === 100 ? 60 : undefined), `G(n,1/2), n=${n}`));
+    named(
+      graphTask(
+        `gnp-${n}-charpoly`,
+        () => halfDenseGraphWorkload(n),
+        "characteristic polynomial",
+        n <= 30,
+        (g) => {
+          const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
+          const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
+          return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
+        },
+        n === 100 ? 60 : undefined,
+      ),
+      `G(n,1/2), n=${n}`,
+    ),
+  );
 }
 
 /** Irrational bounds exactly at ρ: ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4). */
 function irrationalBoundTasks(): BenchTask[] {
   return [20, 50, 100].map((n) =>
-    named(graphTask(`path-${n}-2cos`, () => pathWorkload(n), `ρ = 2cos(π/${n + 1}) (exact, irrational b)`, n === 20,
-      (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status, n === 100 ? 100 : undefined), `path P_${n}`));
+    named(
+      graphTask(
+        `path-${n}-2cos`,
+        () => pathWorkload(n),
+        `ρ = 2cos(π/${n + 1}) (exact, irrational b)`,
+        n === 20,
+        (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status,
+        n === 100 ? 100 : undefined,
+      ),
+      `path P_${n}`,
+    ),
+  );
 }
 
 function starlikeTasks(): BenchTask[] {
   // T(1,2,k), n = k + 4: ρ < 2 for k ≤ 4 (E6–E8), = 2 for k = 5, > 2 beyond (Smith 1970).
   return [16, 46, 96, 196].flatMap((k) => [
-    named(graphTask(`t12k-${k + 4}-rho`, () => t12kWorkload(k), "ρ vs 2: ρ ≤ 2 (exact verdict)", k === 16,
-      (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status), `T(1,2,${k}) n=${k + 4}`),
-    named(graphTask(`t12k-${k + 4}-identify`, () => t12kWorkload(k), "identification (Smith families)", k === 16, (g) => {
-      const v = identifySmith(g, undefined, new Budget(BENCH_STEPS));
-      return `${v.status} (${v.certificate?.kind ?? "-"})`;
-    }), `T(1,2,${k}) n=${k + 4}`),
+    named(
+      graphTask(
+        `t12k-${k + 4}-rho`,
+        () => t12kWorkload(k),
+        "ρ vs 2: ρ ≤ 2 (exact verdict)",
+        k === 16,
+        (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status,
+      ),
+      `T(1,2,${k}) n=${k + 4}`,
+    ),
+    named(
+      graphTask(
+        `t12k-${k + 4}-identify`,
+        () => t12kWorkload(k),
+        "identification (Smith families)",
+        k === 16,
+        (g) => {
+          const v = identifySmith(g, undefined, new Budget(BENCH_STEPS));
+          return `${v.status} (${v.certificate?.kind ?? "-"})`;
+        },
+      ),
+      `T(1,2,${k}) n=${k + 4}`,
+    ),
   ]);
 }
 
 /** "All connected graphs on at most N vertices with ρ op b": the canonical augmentation behind enumeration claims. */
 function enumerationTasks(): BenchTask[] {
-  const bounded = ([[20, "<=", "2", 5000], [10, "<=", "sqrt(2+sqrt(5))", 500], [16, "<=", "sqrt(2+sqrt(5))", undefined], [12, "<=", "2", undefined]] as const).map(([n, op, b, targetMs]): BenchTask => ({
+  const bounded = (
+    [
+      [20, "<=", "2", 5000],
+      [10, "<=", "sqrt(2+sqrt(5))", 500],
+      [16, "<=", "sqrt(2+sqrt(5))", undefined],
+      [12, "<=", "2", undefined],
+    ] as const
+  ).map(([n, op, b, targetMs]): BenchTask => ({
     id: `enumerate-${n}-${b}`,
     workload: `connected graphs, ≤ ${n} vertices`,
     task: `all with ρ ${op === "<=" ? "≤" : "<"} ${b} (exhaustive)`,
@@ -149,7 +271,12 @@ function enumerationTasks(): BenchTask[] {
     },
   }));
   const counted = (id: string, workload: string, task: string, targetMs: number | undefined, options: Omit<GenerationOptions, "budget">): BenchTask => ({
-    id, workload, task, quick: false, targetMs, prepare: () => null,
+    id,
+    workload,
+    task,
+    quick: false,
+    targetMs,
+    prepare: () => null,
     run: () => {
       const r = generateConnected({ ...options, collect: false, budget: new Budget(BENCH_STEPS) });
       return `${r.counts[r.counts.length - 1]} on ${r.counts.length} vertices (${r.counts.reduce((a, c) => a + c, 0)} in all); ${r.stats.labellings} labellings`;
@@ -157,7 +284,10 @@ function enumerationTasks(): BenchTask[] {
   });
   return [
     ...bounded,
-    counted("enumerate-connected-8", "connected graphs, ≤ 8 vertices", "all, with ρ < 8 (a bound above every ρ)", 10_000, { maxVertices: 8, spectral: { op: "<", bound: parseBound("8") } }),
+    counted("enumerate-connected-8", "connected graphs, ≤ 8 vertices", "all, with ρ < 8 (a bound above every ρ)", 10_000, {
+      maxVertices: 8,
+      spectral: { op: "<", bound: parseBound("8") },
+    }),
     counted("enumerate-connected-9", "connected graphs, ≤ 9 vertices", "all (no bound)", undefined, { maxVertices: 9 }),
     counted("enumerate-trees-16", "trees, ≤ 16 vertices", "all (no bound)", 5000, { maxVertices: 16, setting: { kind: "tree" } }),
     ...nautyTasks(),
@@ -167,8 +297,18 @@ function enumerationTasks(): BenchTask[] {
 /** The same counts by Debian's nauty (geng, gentreeg), for comparison; the timing includes starting the process. */
 function nautyTasks(): BenchTask[] {
   const tool = (name: string) => [`nauty-${name}`, name].find((c) => spawnSync("sh", ["-c", `command -v ${c}`]).status === 0);
-  return ([["nauty-geng-8", "geng", "-c -u 8", "connected graphs, 8 vertices"], ["nauty-geng-9", "geng", "-c -u 9", "connected graphs, 9 vertices"], ["nauty-gentreeg-16", "gentreeg", "-u 16", "trees, 16 vertices"]] as const).map(([id, name, args, workload]) => ({
-    id, workload, task: `nauty ${name} ${args} (for comparison)`, quick: false, prepare: () => tool(name),
+  return (
+    [
+      ["nauty-geng-8", "geng", "-c -u 8", "connected graphs, 8 vertices"],
+      ["nauty-geng-9", "geng", "-c -u 9", "connected graphs, 9 vertices"],
+      ["nauty-gentreeg-16", "gentreeg", "-u 16", "trees, 16 vertices"],
+    ] as const
+  ).map(([id, name, args, workload]) => ({
+    id,
+    workload,
+    task: `nauty ${name} ${args} (for comparison)`,
+    quick: false,
+    prepare: () => tool(name),
     run: (cmd) => {
       if (!cmd) return "nauty not installed (apt-get install nauty)";
       const r = spawnSync("sh", ["-c", `${cmd as string} ${args} 2>&1`], { encoding: "utf8" });
@@ -184,7 +324,10 @@ function claimTasks(): BenchTask[] {
     workload: `tree-${n} (edge-list text)`,
     task: "claim ρ < 2: validate + parse + verify",
     quick: n === 1_000,
-    prepare: () => randomTreeWorkload(n).edges.map(([u, v]) => `${u} ${v}`).join("\n"),
+    prepare: () =>
+      randomTreeWorkload(n)
+        .edges.map(([u, v]) => `${u} ${v}`)
+        .join("\n"),
     run: (text) => {
       const claim = validateClaim({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "edges", text }, op: "<", bound: "2" });
       return verifyClaim(claim, { budget: new Budget(BENCH_STEPS) }).verdict.status;
@@ -194,5 +337,14 @@ function claimTasks(): BenchTask[] {
 
 export const coreSection: BenchSection = {
   name: "verification core (exact)",
-  tasks: [...spectralRadiusTasks(), ...sparseTasks(), ...subgraphTasks(), ...charpolyTasks(), ...irrationalBoundTasks(), ...starlikeTasks(), ...enumerationTasks(), ...claimTasks()],
+  tasks: [
+    ...spectralRadiusTasks(),
+    ...sparseTasks(),
+    ...subgraphTasks(),
+    ...charpolyTasks(),
+    ...irrationalBoundTasks(),
+    ...starlikeTasks(),
+    ...enumerationTasks(),
+    ...claimTasks(),
+  ],
 };

@@ -25,12 +25,19 @@ export interface OverviewSize {
 export async function measureOverviewBytes(client: OverviewClient, sizes: readonly number[] = OVERVIEW_SIZES): Promise<OverviewSize[]> {
   const out: OverviewSize[] = [];
   for (const n of sizes) {
-    const { proof } = await client.post<{ proof: { id: number } }>("/api/proofs", { title: `Overview of ${n} cases`, statement: "Every tree $T$ with $\\rho(T) \\le 2$ is a Dynkin or affine diagram." });
+    const { proof } = await client.post<{ proof: { id: number } }>("/api/proofs", {
+      title: `Overview of ${n} cases`,
+      statement: "Every tree $T$ with $\\rho(T) \\le 2$ is a Dynkin or affine diagram.",
+    });
     const tops: number[] = [];
     for (let i = 0; i < n; i++) {
       // Two top-level cases for every sub-case: cases 1, 2, 2.1, 3, 4, 4.1 …
       const parentId = i % 3 === 2 ? tops[tops.length - 1] : null;
-      const { case: c } = await client.post<{ case: { id: number } }>(`/api/proofs/${proof.id}/cases`, { parentId, title: `Case with ${i} legs`, condition: `$T$ has ${i} legs of length at most $2$.` });
+      const { case: c } = await client.post<{ case: { id: number } }>(`/api/proofs/${proof.id}/cases`, {
+        parentId,
+        title: `Case with ${i} legs`,
+        condition: `$T$ has ${i} legs of length at most $2$.`,
+      });
       if (parentId === null) tops.push(c.id);
       await client.post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body: `By the leg count, $\\rho(T) \\le \\sqrt{${i + 2}}$.` });
     }
@@ -54,7 +61,9 @@ async function run(options: BenchOptions): Promise<void> {
     for (const s of sizes) console.log(`${String(s.cases).padStart(5)}  ${String(s.bytes).padStart(10)}  ${String(s.bytesPerCase).padStart(14)}`);
     const first = sizes[0];
     const last = sizes[sizes.length - 1];
-    console.log(`growth: ${last.cases / first.cases}× the cases → ${(last.bytes / first.bytes).toFixed(2)}× the bytes (linear would be ${last.cases / first.cases}×)`);
+    console.log(
+      `growth: ${last.cases / first.cases}× the cases → ${(last.bytes / first.bytes).toFixed(2)}× the bytes (linear would be ${last.cases / first.cases}×)`,
+    );
   } finally {
     stack.stop();
   }

@@ -76,7 +76,9 @@ function runChild(taskId: string, runs: number): void {
   const task = SECTIONS.flatMap((s) => s.tasks ?? []).find((t) => t.id === taskId);
   if (!task) throw new Error(`unknown task ${taskId}`);
   let peakHeap = 0;
-  const sample = () => { peakHeap = Math.max(peakHeap, process.memoryUsage().heapUsed); };
+  const sample = () => {
+    peakHeap = Math.max(peakHeap, process.memoryUsage().heapUsed);
+  };
   const timer = setInterval(sample, 5);
   timer.unref();
   const timesMs: number[] = [];
@@ -101,7 +103,14 @@ function runChild(taskId: string, runs: number): void {
   clearInterval(timer);
   sample();
   // resourceUsage().maxRSS is in KiB.
-  const out: ChildReport = { timesMs, cpuMs, result, maxRssMiB: process.resourceUsage().maxRSS / 1024, peakHeapMiB: peakHeap / MiB, ...(error ? { error } : {}) };
+  const out: ChildReport = {
+    timesMs,
+    cpuMs,
+    result,
+    maxRssMiB: process.resourceUsage().maxRSS / 1024,
+    peakHeapMiB: peakHeap / MiB,
+    ...(error ? { error } : {}),
+  };
   process.stdout.write(`BENCH-REPORT ${JSON.stringify(out)}\n`);
 }
 
@@ -128,8 +137,12 @@ function pad(s: string, n: number): string {
 function printMachine(options: BenchOptions): void {
   const cpu = cpus()[0]?.model ?? "unknown CPU";
   console.log(`Cairn bench — ${new Date().toISOString()}`);
-  console.log(`machine: ${availableParallelism()} cores (${cpu}), ${(totalmem() / 1024 ** 3).toFixed(1)} GiB RAM, Node ${process.version}, ${process.platform}/${process.arch}`);
-  console.log(`runs per task: ${options.runs} (median reported)${options.quick ? ", quick sizes only" : ""}; memory: peak RSS of the task's own process / peak V8 heap`);
+  console.log(
+    `machine: ${availableParallelism()} cores (${cpu}), ${(totalmem() / 1024 ** 3).toFixed(1)} GiB RAM, Node ${process.version}, ${process.platform}/${process.arch}`,
+  );
+  console.log(
+    `runs per task: ${options.runs} (median reported)${options.quick ? ", quick sizes only" : ""}; memory: peak RSS of the task's own process / peak V8 heap`,
+  );
 }
 
 async function runSections(options: BenchOptions): Promise<void> {
@@ -147,7 +160,9 @@ async function runSections(options: BenchOptions): Promise<void> {
       continue;
     }
     const tasks = (section.tasks ?? []).filter((t) => (!options.quick || t.quick) && (!options.only || t.id.includes(options.only)));
-    console.log(`${pad("workload", 28)} ${pad("task", 44)} ${pad("median ms", 10)} ${pad("CPU ms", 10)} ${pad("RSS/heap MiB", 14)} ${pad("target", 10)} result`);
+    console.log(
+      `${pad("workload", 28)} ${pad("task", 44)} ${pad("median ms", 10)} ${pad("CPU ms", 10)} ${pad("RSS/heap MiB", 14)} ${pad("target", 10)} result`,
+    );
     for (const task of tasks) {
       const r = runInChild(task, options.runs);
       const ms = r.timesMs.length ? median(r.timesMs) : NaN;
@@ -155,13 +170,18 @@ async function runSections(options: BenchOptions): Promise<void> {
       const mem = r.maxRssMiB ? `${r.maxRssMiB.toFixed(0)}/${r.peakHeapMiB.toFixed(0)}` : "-";
       const target = task.targetMs === undefined ? "" : `< ${task.targetMs}${Number.isFinite(ms) ? (ms < task.targetMs ? " ok" : " MISS") : ""}`;
       const result = r.error ? `ERROR: ${r.error}` : r.result;
-      console.log(`${pad(task.workload, 28)} ${pad(task.task, 44)} ${pad(Number.isFinite(ms) ? ms.toFixed(1) : "-", 10)} ${pad(cpu, 10)} ${pad(mem, 14)} ${pad(target, 10)} ${result}`);
+      console.log(
+        `${pad(task.workload, 28)} ${pad(task.task, 44)} ${pad(Number.isFinite(ms) ? ms.toFixed(1) : "-", 10)} ${pad(cpu, 10)} ${pad(mem, 14)} ${pad(target, 10)} ${result}`,
+      );
     }
   }
 }
 
 function parseArgs(argv: string[]): BenchOptions & { child?: string } {
-  const value = (flag: string) => { const i = argv.indexOf(flag); return i >= 0 ? argv[i + 1] : undefined; };
+  const value = (flag: string) => {
+    const i = argv.indexOf(flag);
+    return i >= 0 ? argv[i + 1] : undefined;
+  };
   const runs = Number(value("--runs") ?? 3);
   if (!Number.isInteger(runs) || runs < 1) throw new Error("--runs needs a positive integer");
   return { quick: argv.includes("--quick"), only: value("--only"), runs, child: value("--child") };

@@ -1,7 +1,16 @@
 import { describe, expect, it } from "vitest";
 import {
-  extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload,
-  sparseGraphWorkload, star4Workload, t12kWorkload, workloadDigest, workloadGraph, type Workload,
+  extendedDWorkload,
+  extendedE8Workload,
+  halfDenseGraphWorkload,
+  pathWorkload,
+  randomTreeWorkload,
+  sparseGraphWorkload,
+  star4Workload,
+  t12kWorkload,
+  workloadDigest,
+  workloadGraph,
+  type Workload,
 } from "./workloads";
 
 // Expected edge counts and digests: the shared benchmark workload table (BENCH-WORKLOADS.md).
@@ -37,7 +46,16 @@ describe("benchmark workloads match the shared table", () => {
 
   it("extended E8 has the edges listed in the table", () => {
     // Table: (0,1),(1,2),…,(6,7),(5,8).
-    expect(extendedE8Workload().edges).toEqual([[0, 1], [1, 2], [2, 3], [3, 4], [4, 5], [5, 6], [6, 7], [5, 8]]);
+    expect(extendedE8Workload().edges).toEqual([
+      [0, 1],
+      [1, 2],
+      [2, 3],
+      [3, 4],
+      [4, 5],
+      [5, 6],
+      [6, 7],
+      [5, 8],
+    ]);
   });
 
   it("extended D_n is a tree with two forks (4 leaves, n-1 edges)", () => {
@@ -45,12 +63,19 @@ describe("benchmark workloads match the shared table", () => {
     const g = workloadGraph(extendedDWorkload(12));
     expect(g.edges.length).toBe(11);
     const deg = new Array(12).fill(0);
-    for (const e of g.edges) { deg[e.u]++; deg[e.v]++; }
+    for (const e of g.edges) {
+      deg[e.u]++;
+      deg[e.v]++;
+    }
     expect(deg.filter((d) => d === 1).length).toBe(4);
     expect(deg.filter((d) => d === 3).length).toBe(2);
   });
 
   it("paths have n-1 edges in order", () => {
-    expect(pathWorkload(4).edges).toEqual([[0, 1], [1, 2], [2, 3]]);
+    expect(pathWorkload(4).edges).toEqual([
+      [0, 1],
+      [1, 2],
+      [2, 3],
+    ]);
   });
 });

@@ -56,7 +56,8 @@ export function sparseGraphWorkload(n: number): Workload {
     const u = rng.randint(n);
     const v = rng.randint(n);
     if (u === v) continue;
-    const a = Math.min(u, v), b = Math.max(u, v);
+    const a = Math.min(u, v),
+      b = Math.max(u, v);
     const key = a * n + b;
     if (seen.has(key)) continue;
     seen.add(key);
@@ -89,7 +90,16 @@ export function extendedE8Workload(): Workload {
 
 /** K_{1,4}, the extended D4 diagram. */
 export function star4Workload(): Workload {
-  return { name: "K_{1,4}", n: 5, edges: [[0, 1], [0, 2], [0, 3], [0, 4]] };
+  return {
+    name: "K_{1,4}",
+    n: 5,
+    edges: [
+      [0, 1],
+      [0, 2],
+      [0, 3],
+      [0, 4],
+    ],
+  };
 }
 
 /** Extended D on n vertices: path 0..n-3 forked at both ends by (1, n-2) and (n-4, n-1). */
@@ -107,12 +117,18 @@ export function workloadDigest(w: Workload): string {
   let chunk = "";
   for (const [u, v] of w.edges) {
     chunk += `${u} ${v}\n`;
-    if (chunk.length > 1 << 16) { hash.update(chunk); chunk = ""; }
+    if (chunk.length > 1 << 16) {
+      hash.update(chunk);
+      chunk = "";
+    }
   }
   hash.update(chunk);
   return hash.digest("hex").slice(0, 16);
 }
 
 export function workloadGraph(w: Workload): Graph {
-  return makeGraph(w.n, w.edges.map(([u, v]) => ({ u, v })));
+  return makeGraph(
+    w.n,
+    w.edges.map(([u, v]) => ({ u, v })),
+  );
 }

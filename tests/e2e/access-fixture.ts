@@ -14,7 +14,14 @@ export const ROLES = ["anonymous", "nonmember", "otherProof", "admin", "caseLimi
 export type Role = (typeof ROLES)[number];
 
 /** Seed keys of the demo people, and the two added here. */
-const SEED_KEY: Partial<Record<Role, string>> = { otherProof: "outsider", admin: "admin", reviewer: "reviewer", coauthor: "coauthor", owner: "author", editor: "editor" };
+const SEED_KEY: Partial<Record<Role, string>> = {
+  otherProof: "outsider",
+  admin: "admin",
+  reviewer: "reviewer",
+  coauthor: "coauthor",
+  owner: "author",
+  editor: "editor",
+};
 export const ADDED = {
   nonmember: { name: "Hal Wrenfield", email: "hal.wrenfield@tarnhollow.example" },
   caseLimited: { name: "Gil Ravensworth", email: "gil.ravensworth@tarnhollow.example" },
@@ -33,12 +40,23 @@ export interface Fixture {
   contexts: Record<Role, BrowserContext>;
 }
 
-interface TreeCase { id: number; title: string; steps: Array<{ id: number }>; children: TreeCase[] }
+interface TreeCase {
+  id: number;
+  title: string;
+  steps: Array<{ id: number }>;
+  children: TreeCase[];
+}
 const flat = (nodes: TreeCase[]): TreeCase[] => nodes.flatMap((n) => [n, ...flat(n.children)]);
 
 export async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
   const url = new URL(process.env.CAIRN_E2E_DATABASE_URL!);
-  const c = await mariadb.createConnection({ host: url.hostname, port: Number(url.port), user: decodeURIComponent(url.username), password: decodeURIComponent(url.password), database: url.pathname.slice(1) });
+  const c = await mariadb.createConnection({
+    host: url.hostname,
+    port: Number(url.port),
+    user: decodeURIComponent(url.username),
+    password: decodeURIComponent(url.password),
+    database: url.pathname.slice(1),
+  });
   try {
     return await run(c);
   } finally {
@@ -88,7 +106,11 @@ export async function buildFixture(browser: Browser, baseUrl: string): Promise<F
 
   await db(async (c) => {
     for (const person of Object.values(ADDED))
-      await c.query("INSERT IGNORE INTO users (email, name, password_hash, role) SELECT ?, ?, password_hash, 'member' FROM users WHERE email = ?", [person.email, person.name, demoPeople.find((p) => p.key === "outsider")!.email]);
+      await c.query("INSERT IGNORE INTO users (email, name, password_hash, role) SELECT ?, ?, password_hash, 'member' FROM users WHERE email = ?", [
+        person.email,
+        person.name,
+        demoPeople.find((p) => p.key === "outsider")!.email,
+      ]);
     const [gil] = await c.query("SELECT id FROM users WHERE email = ?", [ADDED.caseLimited.email]);
     await c.query("INSERT IGNORE INTO proof_members (proof_id, user_id, role) VALUES (?, ?, 'reviewer')", [proofId, gil.id]);
     await c.query("INSERT IGNORE INTO reviewer_scopes (proof_id, user_id, case_id) VALUES (?, ?, ?)", [proofId, gil.id, scopeRoot.id]);

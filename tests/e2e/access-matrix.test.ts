@@ -85,20 +85,25 @@ describe("the page permission matrix", () => {
         const res = await fx.contexts[role].request.get(`${baseUrl}${urlOf(variant)}`, { maxRedirects: 0 });
         const status = res.status();
         const location = res.headers()["location"] ?? "";
-        const got: Outcome | number =
-          status >= 300 && status < 400 ? (location.includes("/sign-in") && role === "anonymous" ? "sign-in" : "redirect") : status;
+        const got: Outcome | number = status >= 300 && status < 400 ? (location.includes("/sign-in") && role === "anonymous" ? "sign-in" : "redirect") : status;
         if (got !== row[role]) mismatches.push(`${variant} as ${role}: expected ${row[role]}, got ${got}`);
         // The site admin's outgoing-mail page shows every message as sent (mail now names proof, case and step):
         // that is its purpose, so case titles there are not a leak. Every other page is checked for them.
         const mailLog = variant === "/admin/mail" && role === "admin";
-        if (status === 200 && !mailLog && (role === "caseLimited" || role === "nonmember" || role === "otherProof" || role === "admin" || role === "anonymous")) {
+        if (
+          status === 200 &&
+          !mailLog &&
+          (role === "caseLimited" || role === "nonmember" || role === "otherProof" || role === "admin" || role === "anonymous")
+        ) {
           const html = await res.text();
           const leaked = (role === "caseLimited" ? fx.outOfScopeTitles : [...fx.outOfScopeTitles, ...fx.inScopeTitles]).filter((t) => html.includes(t));
           if (leaked.length) mismatches.push(`${variant} as ${role}: shows ${leaked.map((t) => `"${t}"`).join(", ")}`);
         }
       }
     }
-    console.log(`[access matrix] pages: ${Object.keys(EXPECTED).length} variants × ${ROLES.length} standings = ${cells} cells, ${mismatches.length} mismatches`);
+    console.log(
+      `[access matrix] pages: ${Object.keys(EXPECTED).length} variants × ${ROLES.length} standings = ${cells} cells, ${mismatches.length} mismatches`,
+    );
     expect(mismatches).toEqual([]);
   }, 300_000);
 });

@@ -39,7 +39,9 @@ describe("a batch claim in the browser", () => {
     await page.goto(`${baseUrl}${stepHref}`);
 
     await page.getByTestId("file-input").setInputFiles(listPath);
-    await expect.poll(async () => (await page.getByTestId("upload-message").textContent()) ?? "", { timeout: 60_000 }).toMatch(new RegExp(`graph6 list of ${COUNT} graphs`));
+    await expect
+      .poll(async () => (await page.getByTestId("upload-message").textContent()) ?? "", { timeout: 60_000 })
+      .toMatch(new RegExp(`graph6 list of ${COUNT} graphs`));
     expect(await page.getByTestId("file-list").textContent()).toContain("random-12.g6");
 
     const form = page.getByTestId("batch-form");

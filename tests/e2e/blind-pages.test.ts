@@ -24,7 +24,13 @@ const contexts: Record<"author" | "coauthor", BrowserContext | null> = { author:
 
 async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
   const url = new URL(process.env.CAIRN_E2E_DATABASE_URL!);
-  const c = await mariadb.createConnection({ host: url.hostname, port: Number(url.port), user: decodeURIComponent(url.username), password: decodeURIComponent(url.password), database: url.pathname.slice(1) });
+  const c = await mariadb.createConnection({
+    host: url.hostname,
+    port: Number(url.port),
+    user: decodeURIComponent(url.username),
+    password: decodeURIComponent(url.password),
+    database: url.pathname.slice(1),
+  });
   try {
     return await run(c);
   } finally {
@@ -32,7 +38,10 @@ async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
   }
 }
 
-interface TreeCase { steps: Array<{ id: number }>; children: TreeCase[] }
+interface TreeCase {
+  steps: Array<{ id: number }>;
+  children: TreeCase[];
+}
 const flat = (nodes: TreeCase[]): TreeCase[] => nodes.flatMap((n) => [n, ...flat(n.children)]);
 
 beforeAll(async () => {
@@ -67,9 +76,17 @@ afterAll(async () => {
 
 /** The pages an author opens, with the proof's ids filled in. */
 const pages = () => [
-  "/proofs", "/queue", "/notifications", "/verdicts",
-  `/proofs/${proofId}`, `/proofs/${proofId}/members`, `/proofs/${proofId}/rounds`, `/proofs/${proofId}/timeline`,
-  `/proofs/${proofId}/export`, `/proofs/${proofId}/print/${exportId}`, `/proofs/${proofId}/desk`,
+  "/proofs",
+  "/queue",
+  "/notifications",
+  "/verdicts",
+  `/proofs/${proofId}`,
+  `/proofs/${proofId}/members`,
+  `/proofs/${proofId}/rounds`,
+  `/proofs/${proofId}/timeline`,
+  `/proofs/${proofId}/export`,
+  `/proofs/${proofId}/print/${exportId}`,
+  `/proofs/${proofId}/desk`,
   ...stepIds.flatMap((s) => [`/proofs/${proofId}/steps/${s}`, `/queue/${proofId}/${s}`]),
 ];
 

@@ -15,12 +15,19 @@ export default async function setup(project: TestProject) {
   const dbUrl = process.env.CAIRN_E2E_DATABASE_URL;
   if (!dbUrl) throw new Error("Browser tests need CAIRN_E2E_DATABASE_URL; run them through `npm test`.");
   const env = {
-    ...process.env, DATABASE_URL: dbUrl, NEXTAUTH_URL: `http://localhost:${E2E_PORT}`, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests",
+    ...process.env,
+    DATABASE_URL: dbUrl,
+    NEXTAUTH_URL: `http://localhost:${E2E_PORT}`,
+    NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests",
     // Its own queue on the tests' Redis, apart from the integration tests' (another database).
     CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e`,
   };
   for (const script of ["scripts/migrate.ts", "scripts/seed.ts"]) execFileSync("node_modules/.bin/tsx", [script], { env, stdio: "inherit" });
-  server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(E2E_PORT)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
+  server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(E2E_PORT)], {
+    env,
+    detached: true,
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   const base = `http://localhost:${E2E_PORT}`;
   const deadline = Date.now() + 60_000;
   for (;;) {

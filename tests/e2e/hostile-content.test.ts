@@ -58,7 +58,9 @@ async function incidents(context: BrowserContext, url: string): Promise<string[]
   const found: string[] = [];
   const page = await context.newPage();
   await page.addInitScript(() => {
-    document.addEventListener("securitypolicyviolation", (e) => ((window as unknown as { __csp: string[] }).__csp ??= []).push(`${e.violatedDirective} ${e.blockedURI}`));
+    document.addEventListener("securitypolicyviolation", (e) =>
+      ((window as unknown as { __csp: string[] }).__csp ??= []).push(`${e.violatedDirective} ${e.blockedURI}`),
+    );
   });
   page.on("dialog", (d) => {
     found.push(`dialog: ${d.message()}`);
@@ -95,7 +97,9 @@ describe("hostile content in the browser", () => {
     const found: string[] = [];
     for (const [context, url] of pages) found.push(...(await incidents(context, url)));
     // Proof page and print view show every step; each step page shows one; timeline and mail view show the titles.
-    console.log(`[hostile] ${HOSTILE_PAYLOADS.length} payloads (+ a hostile title) on ${pages.length} page visits: ${HOSTILE_PAYLOADS.length * 3 + 2} payload renderings, ${found.length} incidents`);
+    console.log(
+      `[hostile] ${HOSTILE_PAYLOADS.length} payloads (+ a hostile title) on ${pages.length} page visits: ${HOSTILE_PAYLOADS.length * 3 + 2} payload renderings, ${found.length} incidents`,
+    );
     expect(found).toEqual([]);
   }, 600_000);
 

@@ -31,7 +31,11 @@ afterAll(async () => {
   await browser?.close();
 });
 
-interface Stop { name: string; tag: string; ring: boolean }
+interface Stop {
+  name: string;
+  tag: string;
+  ring: boolean;
+}
 
 /** Presses Tab until focus comes back round to the document (or `max` presses) and records every stop. */
 async function tabStops(page: Page, max = 250): Promise<Stop[]> {
@@ -45,7 +49,9 @@ async function tabStops(page: Page, max = 250): Promise<Stop[]> {
       const style = getComputedStyle(el);
       const outline = style.outlineStyle !== "none" && parseFloat(style.outlineWidth) >= 1;
       const shadow = style.boxShadow !== "none" && style.boxShadow !== "";
-      const labelled = el.getAttribute("aria-label") ?? (el.getAttribute("aria-labelledby") ? document.getElementById(el.getAttribute("aria-labelledby")!)?.textContent : null);
+      const labelled =
+        el.getAttribute("aria-label") ??
+        (el.getAttribute("aria-labelledby") ? document.getElementById(el.getAttribute("aria-labelledby")!)?.textContent : null);
       const label = (el as HTMLInputElement).labels?.[0]?.textContent;
       const name = (labelled ?? label ?? el.textContent ?? "").replace(/\s+/g, " ").trim().slice(0, 80);
       return { name, tag: el.tagName.toLowerCase(), ring: outline || shadow };
@@ -73,8 +79,15 @@ async function unnamedControls(page: Page): Promise<string[]> {
 
 function expectReached(stops: Stop[], wanted: RegExp[]) {
   const names = stops.map((s) => `${s.tag}: ${s.name}`);
-  for (const w of wanted) expect(names.some((n) => w.test(n)), `Tab never reaches ${w} (stops: ${names.join(" · ")})`).toBe(true);
-  expect(stops.filter((s) => !s.ring).map((s) => `${s.tag}: ${s.name}`), "stops without a visible focus ring").toEqual([]);
+  for (const w of wanted)
+    expect(
+      names.some((n) => w.test(n)),
+      `Tab never reaches ${w} (stops: ${names.join(" · ")})`,
+    ).toBe(true);
+  expect(
+    stops.filter((s) => !s.ring).map((s) => `${s.tag}: ${s.name}`),
+    "stops without a visible focus ring",
+  ).toEqual([]);
 }
 
 describe("keyboard", () => {
@@ -85,7 +98,15 @@ describe("keyboard", () => {
     await page.goto(`${baseUrl}/proofs/${proofId}`);
     await page.waitForLoadState("networkidle");
     const stops = await tabStops(page);
-    expectReached(stops, [/^a: Proofs$/, /^a: Step 1:1$/, /^a: Step 3\.2:1$/, /^input: Case title/, /^a: Members and reviewers$/, /^div: All claims$/, /^button: .*Sign out/i]);
+    expectReached(stops, [
+      /^a: Proofs$/,
+      /^a: Step 1:1$/,
+      /^a: Step 3\.2:1$/,
+      /^input: Case title/,
+      /^a: Members and reviewers$/,
+      /^div: All claims$/,
+      /^button: .*Sign out/i,
+    ]);
     expect(await unnamedControls(page)).toEqual([]);
     await page.context().close();
   }, 120_000);
@@ -98,7 +119,13 @@ describe("keyboard", () => {
     await page.getByTestId("step-review").waitFor();
     await page.waitForLoadState("networkidle");
     const stops = await tabStops(page);
-    expectReached(stops, [/^button: .*Menu$/, /^button: I vouch for revision \d+$/, /^button: I raise a dispute/, /^summary: Comments \(\d+\)$/, /^summary: The graph in words$/]);
+    expectReached(stops, [
+      /^button: .*Menu$/,
+      /^button: I vouch for revision \d+$/,
+      /^button: I raise a dispute/,
+      /^summary: Comments \(\d+\)$/,
+      /^summary: The graph in words$/,
+    ]);
     expect(await unnamedControls(page)).toEqual([]);
     // The comments fold open with Enter on their summary, and the next Tab is in the comment box.
     const comments = page.locator("summary", { hasText: /^Comments \(/ });

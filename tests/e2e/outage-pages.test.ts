@@ -33,14 +33,20 @@ const freePort = () =>
 async function signIn(email: string): Promise<string> {
   const csrf = await fetch(`${base}/api/auth/csrf`);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const jar = csrf.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const jar = csrf.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
   const res = await fetch(`${base}/api/auth/callback/credentials`, {
     method: "POST",
     redirect: "manual",
     headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar },
     body: new URLSearchParams({ csrfToken, email, password: DEMO_PASSWORD, json: "true" }),
   });
-  const session = res.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session-token"));
+  const session = res.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .filter((c) => c.includes("session-token"));
   if (!session.length) throw new Error(`sign-in gave no session cookie (${res.status})`);
   return session.join("; ");
 }
@@ -54,11 +60,20 @@ beforeAll(async () => {
   viaRelay.port = String(relayPort);
   const port = await freePort();
   base = `http://localhost:${port}`;
-  const env = { ...process.env, DATABASE_URL: viaRelay.toString(), NEXTAUTH_URL: base, NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests", CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e` };
+  const env = {
+    ...process.env,
+    DATABASE_URL: viaRelay.toString(),
+    NEXTAUTH_URL: base,
+    NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests",
+    CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e`,
+  };
   server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
   const deadline = Date.now() + 60_000;
   for (;;) {
-    const ok = await fetch(`${base}/api/health`).then((r) => r.ok, () => false);
+    const ok = await fetch(`${base}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) break;
     if (Date.now() > deadline) throw new Error(`the second server did not answer on ${base} within 60 s`);
     await new Promise((r) => setTimeout(r, 300));

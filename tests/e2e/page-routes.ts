@@ -7,7 +7,12 @@ export function pageRoutes(dir = "app"): string[] {
     const path = join(dir, name);
     if (statSync(path).isDirectory()) return pageRoutes(path);
     if (name !== "page.tsx") return [];
-    const route = "/" + relative("app", dir).split("/").filter((seg) => !/^\(.*\)$/.test(seg)).join("/");
+    const route =
+      "/" +
+      relative("app", dir)
+        .split("/")
+        .filter((seg) => !/^\(.*\)$/.test(seg))
+        .join("/");
     return [route === "/" ? "/" : route.replace(/\/$/, "")];
   });
 }

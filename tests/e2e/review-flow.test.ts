@@ -113,7 +113,9 @@ describe("review workflow in the browser", () => {
     await author.getByTestId("step-edit").locator("summary").click();
     const editorBox = author.getByLabel("step text (Markdown with $…$ math)");
     await editorBox.waitFor();
-    await editorBox.fill("Since $T(2,2,c) \\subsetneq T(2,2,c+1)$, Perron–Frobenius makes $\\rho\\big(T(2,2,c)\\big)$ strictly increasing in $c$; it converges to $\\sqrt{2+\\sqrt5}$.");
+    await editorBox.fill(
+      "Since $T(2,2,c) \\subsetneq T(2,2,c+1)$, Perron–Frobenius makes $\\rho\\big(T(2,2,c)\\big)$ strictly increasing in $c$; it converges to $\\sqrt{2+\\sqrt5}$.",
+    );
     await author.getByRole("button", { name: "Save as new revision" }).click();
     await author.getByText("Saved as revision 2.").waitFor();
     await author.reload();

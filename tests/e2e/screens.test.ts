@@ -45,8 +45,18 @@ function urlsOf(route: string): Array<[label: string, path: string]> {
   const { proofId, stepIds, exportId, invitationToken } = fx;
   const fill = (step: number) =>
     route.replace("[proofId]", String(proofId)).replace("[stepId]", String(step)).replace("[exportId]", String(exportId)).replace("[token]", invitationToken);
-  const label = route === "/" ? "landing" : route.slice(1).replace(/\[(\w+)\]/g, "$1").replace(/\//g, "-");
-  if (route.includes("[stepId]")) return [[`${label}-first`, fill(stepIds[0])], [`${label}-tree`, fill(stepIds[Math.min(2, stepIds.length - 1)])]];
+  const label =
+    route === "/"
+      ? "landing"
+      : route
+          .slice(1)
+          .replace(/\[(\w+)\]/g, "$1")
+          .replace(/\//g, "-");
+  if (route.includes("[stepId]"))
+    return [
+      [`${label}-first`, fill(stepIds[0])],
+      [`${label}-tree`, fill(stepIds[Math.min(2, stepIds.length - 1)])],
+    ];
   return [[label, fill(stepIds[0])]];
 }
 
@@ -103,16 +113,31 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await browser?.close();
-  console.log(`[screens] ${answered.size} pages of the file tree, ${visits} visits (people × sizes × filled routes), ${scans} scanned with axe and photographed, ${((Date.now() - started) / 1000).toFixed(0)} s in all`);
+  console.log(
+    `[screens] ${answered.size} pages of the file tree, ${visits} visits (people × sizes × filled routes), ${scans} scanned with axe and photographed, ${((Date.now() - started) / 1000).toFixed(0)} s in all`,
+  );
 });
 
-interface Finding { who: Who; viewport: string; page: string; status: number; scrollWidth: number; clientWidth: number; wideElements: string[]; serious: string[]; scanned: boolean; ms: { load: number; axe: number; shot: number } }
+interface Finding {
+  who: Who;
+  viewport: string;
+  page: string;
+  status: number;
+  scrollWidth: number;
+  clientWidth: number;
+  wideElements: string[];
+  serious: string[];
+  scanned: boolean;
+  ms: { load: number; axe: number; shot: number };
+}
 
 const AXE_TAGS = ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"];
 
 /** The Markdown editor is loaded in the browser after the page (components/editor/math-editor.tsx): measure it loaded. */
 async function editorsLoaded(page: Page): Promise<void> {
-  await page.waitForFunction(() => [...document.querySelectorAll(".math-editor")].every((el) => el.querySelector(".w-md-editor-toolbar")), null, { timeout: 30_000 });
+  await page.waitForFunction(() => [...document.querySelectorAll(".math-editor")].every((el) => el.querySelector(".w-md-editor-toolbar")), null, {
+    timeout: 30_000,
+  });
 }
 
 /** Refusals (403, 404) already fully measured for a person at a size: the same page again is only checked for width. */
@@ -140,41 +165,68 @@ async function inspect(page: Page, who: Who, viewport: Viewport, route: string, 
       for (let a = el.parentElement; a && a !== document.body; a = a.parentElement) if (getComputedStyle(a).overflowX !== "visible") return true;
       return false;
     };
-    const out = scrollWidth > clientWidth ? [...document.body.querySelectorAll("*")].filter((el) => el.getBoundingClientRect().right > clientWidth + 0.5 && !clipped(el)) : [];
+    const out =
+      scrollWidth > clientWidth
+        ? [...document.body.querySelectorAll("*")].filter((el) => el.getBoundingClientRect().right > clientWidth + 0.5 && !clipped(el))
+        : [];
     const innermost = out.filter((el) => !out.some((o) => o !== el && el.contains(o)));
-    const describe = (el: Element) => `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ""}.${[...el.classList].slice(0, 4).join(".")} right=${Math.round(el.getBoundingClientRect().right)} in ${el.parentElement?.tagName.toLowerCase()}.${[...(el.parentElement?.classList ?? [])].slice(0, 4).join(".")}`;
+    const describe = (el: Element) =>
+      `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ""}.${[...el.classList].slice(0, 4).join(".")} right=${Math.round(el.getBoundingClientRect().right)} in ${el.parentElement?.tagName.toLowerCase()}.${[...(el.parentElement?.classList ?? [])].slice(0, 4).join(".")}`;
     return { scrollWidth, clientWidth, wideElements: innermost.slice(0, 4).map(describe) };
   });
   const tLoaded = Date.now();
   if (!repeat) await page.evaluate(axe.source);
-  const violations = repeat ? [] : await page.evaluate(async (tags) => {
-    const w = window as unknown as { axe: typeof axe };
-    // KaTeX's visual HTML is skipped: it is aria-hidden (screen readers get the MathML beside it), takes its colour from
-    // the text around it (which is checked), and is most of the nodes on a page of math, so scanning it would double the time.
-    const result = await w.axe.run({ exclude: [".katex-html"] }, { runOnly: { type: "tag", values: tags }, resultTypes: ["violations"] });
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.map(String).join(" ")) }));
-  }, AXE_TAGS);
+  const violations = repeat
+    ? []
+    : await page.evaluate(async (tags) => {
+        const w = window as unknown as { axe: typeof axe };
+        // KaTeX's visual HTML is skipped: it is aria-hidden (screen readers get the MathML beside it), takes its colour from
+        // the text around it (which is checked), and is most of the nodes on a page of math, so scanning it would double the time.
+        const result = await w.axe.run({ exclude: [".katex-html"] }, { runOnly: { type: "tag", values: tags }, resultTypes: ["violations"] });
+        return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.map(String).join(" ")) }));
+      }, AXE_TAGS);
   const serious = violations
     .filter((v) => v.impact === "serious" || v.impact === "critical")
     .map((v) => `${v.id} (${v.impact}, ${v.targets.length}×): ${v.targets.slice(0, 3).join(" | ")}`);
   const tAxe = Date.now();
   const dir = join(SHOTS, viewport.name);
   mkdirSync(dir, { recursive: true });
-  if (!repeat) await page.screenshot({ path: join(dir, `${who}-${label}.jpg`), type: "jpeg", quality: 70, fullPage: true, animations: "disabled", caret: "hide" });
+  if (!repeat)
+    await page.screenshot({ path: join(dir, `${who}-${label}.jpg`), type: "jpeg", quality: 70, fullPage: true, animations: "disabled", caret: "hide" });
   if (!answered.has(route)) answered.set(route, new Set());
   answered.get(route)!.add(status);
   visits++;
   if (!repeat) scans++;
-  const finding = { who, viewport: viewport.name, page: `${label} ${path}`, status, scrollWidth, clientWidth, wideElements, serious, scanned: !repeat, ms: { load: tLoaded - t0, axe: tAxe - tLoaded, shot: Date.now() - tAxe } };
+  const finding = {
+    who,
+    viewport: viewport.name,
+    page: `${label} ${path}`,
+    status,
+    scrollWidth,
+    clientWidth,
+    wideElements,
+    serious,
+    scanned: !repeat,
+    ms: { load: tLoaded - t0, axe: tAxe - tLoaded, shot: Date.now() - tAxe },
+  };
   mkdirSync(SHOTS, { recursive: true });
   appendFileSync(join(SHOTS, "findings.jsonl"), `${JSON.stringify(finding)}\n`);
   return finding;
 }
 
 function expectClean(findings: Finding[]) {
-  expect(findings.filter((f) => f.status === 0 || f.status >= 500).map((f) => `${f.page}: ${f.status}`), "pages that failed").toEqual([]);
-  expect(findings.filter((f) => f.scrollWidth > f.clientWidth).map((f) => `${f.page}: ${f.scrollWidth} > ${f.clientWidth} px (${f.wideElements.join("; ")})`), "pages wider than the window").toEqual([]);
-  expect(findings.filter((f) => f.serious.length > 0).map((f) => `${f.page}: ${f.serious.join("; ")}`), "serious or critical axe violations").toEqual([]);
+  expect(
+    findings.filter((f) => f.status === 0 || f.status >= 500).map((f) => `${f.page}: ${f.status}`),
+    "pages that failed",
+  ).toEqual([]);
+  expect(
+    findings.filter((f) => f.scrollWidth > f.clientWidth).map((f) => `${f.page}: ${f.scrollWidth} > ${f.clientWidth} px (${f.wideElements.join("; ")})`),
+    "pages wider than the window",
+  ).toEqual([]);
+  expect(
+    findings.filter((f) => f.serious.length > 0).map((f) => `${f.page}: ${f.serious.join("; ")}`),
+    "serious or critical axe violations",
+  ).toEqual([]);
 }
 
 describe("every page at every size", () => {

@@ -32,7 +32,9 @@ export async function cspViolations(context: BrowserContext, url: string, act?: 
   const page = await context.newPage();
   await page.addInitScript(() => {
     window.__cspViolations = [];
-    document.addEventListener("securitypolicyviolation", (e) => window.__cspViolations!.push(`${e.violatedDirective} blocked ${e.blockedURI || "inline"} (${e.sourceFile}:${e.lineNumber})`));
+    document.addEventListener("securitypolicyviolation", (e) =>
+      window.__cspViolations!.push(`${e.violatedDirective} blocked ${e.blockedURI || "inline"} (${e.sourceFile}:${e.lineNumber})`),
+    );
   });
   const consoleHits: string[] = [];
   page.on("console", (m) => {

@@ -29,7 +29,10 @@ async function signedIn(email: string, password = DEMO_PASSWORD): Promise<{ cont
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL(`${baseUrl}/proofs`);
   await page.close();
-  const cookie = (await context.cookies(baseUrl)).filter((c) => c.name.includes("session-token")).map((c) => `${c.name}=${c.value}`).join("; ");
+  const cookie = (await context.cookies(baseUrl))
+    .filter((c) => c.name.includes("session-token"))
+    .map((c) => `${c.name}=${c.value}`)
+    .join("; ");
   expect(cookie).not.toBe("");
   return { context, cookie };
 }
@@ -56,7 +59,10 @@ beforeAll(async () => {
   await db(async (c) => {
     for (const person of Object.values(PEOPLE)) {
       await c.query("DELETE FROM users WHERE email = ?", [person.email]);
-      await c.query("INSERT INTO users (email, name, password_hash, role, created_at, updated_at) SELECT ?, ?, password_hash, 'member', NOW(3), NOW(3) FROM users WHERE email = ?", [person.email, person.name, demoPeople.find((p) => p.key === "outsider")!.email]);
+      await c.query(
+        "INSERT INTO users (email, name, password_hash, role, created_at, updated_at) SELECT ?, ?, password_hash, 'member', NOW(3), NOW(3) FROM users WHERE email = ?",
+        [person.email, person.name, demoPeople.find((p) => p.key === "outsider")!.email],
+      );
     }
   });
 });

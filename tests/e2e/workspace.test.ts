@@ -38,7 +38,10 @@ describe("proof workspace in the browser", () => {
     await page.waitForURL(/\/proofs\/\d+$/);
     await page.getByRole("heading", { name: "Stars and the golden bound" }).waitFor();
     await page.getByRole("button", { name: "✎ Edit title and statement" }).click();
-    await page.getByTestId("edit-proof").getByLabel(/^Statement/).fill("Every connected graph $G$ with $\\rho(G) < \\sqrt{5}$ has maximum degree at most $4$.");
+    await page
+      .getByTestId("edit-proof")
+      .getByLabel(/^Statement/)
+      .fill("Every connected graph $G$ with $\\rho(G) < \\sqrt{5}$ has maximum degree at most $4$.");
     await page.getByTestId("edit-proof").getByRole("button", { name: "Save" }).click();
     await page.getByTestId("edit-proof").waitFor({ state: "detached" }); // the editor shows the text too while it is open
     await page.getByText("Every connected graph").waitFor();
@@ -124,13 +127,23 @@ describe("proof workspace in the browser", () => {
     await page.goto(stepUrl);
     await page.getByText("Attach several claims at once from a claims file").click();
     const form = page.getByTestId("claim-file-form");
-    const claim = (id: string, text: string, op: string) => ({ format: "cairn-claim/1", id, kind: "spectral-radius-bound", graph: { format: "named", text }, op, bound: "2" });
+    const claim = (id: string, text: string, op: string) => ({
+      format: "cairn-claim/1",
+      id,
+      kind: "spectral-radius-bound",
+      graph: { format: "named", text },
+      op,
+      bound: "2",
+    });
 
     // The second claim's graph does not parse: a 422 names it, and neither claim is stored.
     const bad = { format: "cairn-claims/1", claims: [claim("E7-below-2", "E(7)", "<"), claim("broken", "E(", "<")] };
     await form.getByLabel("claims document").fill(JSON.stringify(bad));
     await form.getByRole("button", { name: "Attach all" }).click();
-    await form.getByTestId("claim-file-problems").getByText(/claim 2 \(broken\), graph/).waitFor();
+    await form
+      .getByTestId("claim-file-problems")
+      .getByText(/claim 2 \(broken\), graph/)
+      .waitFor();
     expect(await page.getByTestId("claim").count()).toBe(0);
 
     // Fixed, both are attached and verified: E7 below 2, affine E8 exactly 2 (Smith 1970).

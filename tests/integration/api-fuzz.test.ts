@@ -53,7 +53,18 @@ import * as passwordRoute from "@/app/api/account/password/route";
 import * as ownerRoute from "@/app/api/proofs/[proofId]/owner/route";
 
 const RUNS = Number(process.env.CAIRN_FUZZ_RUNS ?? 60);
-const ERROR_CODES = ["bad_request", "unauthenticated", "forbidden", "not_found", "conflict", "invalid", "too_large", "unsupported_media_type", "rate_limited", "unavailable"];
+const ERROR_CODES = [
+  "bad_request",
+  "unauthenticated",
+  "forbidden",
+  "not_found",
+  "conflict",
+  "invalid",
+  "too_large",
+  "unsupported_media_type",
+  "rate_limited",
+  "unavailable",
+];
 
 type Call = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface Target {
@@ -89,46 +100,252 @@ const spectral = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph
 
 const P = () => ({ proofId });
 const TARGETS: Target[] = [
-  { file: "api/proofs/route.ts", method: "POST", who: "author", call: proofsRoute.POST as Call, params: () => ({}), valid: () => ({ title: "Fuzzed proof", statement: "All $x$." }) },
-  { file: "api/proofs/[proofId]/route.ts", method: "PATCH", who: "author", call: proofRoute.PATCH as Call, params: P, valid: () => ({ title: "Fuzz target", statement: "A statement." }) },
-  { file: "api/proofs/[proofId]/cases/route.ts", method: "POST", who: "author", call: casesRoute.POST as Call, params: P, valid: () => ({ title: "A case", condition: "$n > 2$", parentId: caseId }) },
-  { file: "api/proofs/[proofId]/cases/[caseId]/route.ts", method: "PATCH", who: "author", call: caseRoute.PATCH as Call, params: () => ({ proofId, caseId: String(caseId) }), valid: () => ({ title: "Renamed", condition: "$n$ odd" }) },
-  { file: "api/proofs/[proofId]/cases/[caseId]/route.ts", method: "DELETE", who: "author", call: caseRoute.DELETE as Call, params: () => ({ proofId, caseId: String(doomedCaseId) }), valid: () => ({ confirm: false }) },
-  { file: "api/proofs/[proofId]/cases/[caseId]/steps/route.ts", method: "POST", who: "author", call: stepsRoute.POST as Call, params: () => ({ proofId, caseId: String(caseId) }), valid: () => ({ body: "A new step." }) },
-  { file: "api/proofs/[proofId]/steps/[stepId]/route.ts", method: "PATCH", who: "author", call: stepRoute.PATCH as Call, params: () => ({ proofId, stepId: String(step.id) }), valid: () => ({ move: "up" }) },
-  { file: "api/proofs/[proofId]/steps/[stepId]/revisions/route.ts", method: "POST", who: "author", call: revisionsRoute.POST as Call, params: () => ({ proofId, stepId: String(step.id) }), valid: () => ({ baseRevisionId: step.revisionId, body: "Revised text." }) },
-  { file: "api/proofs/[proofId]/steps/[stepId]/claims/route.ts", method: "POST", who: "author", call: stepClaimsRoute.POST as Call, params: () => ({ proofId, stepId: String(step.id) }), valid: () => ({ claims: [spectral] }) },
-  { file: "api/proofs/[proofId]/steps/[stepId]/comments/route.ts", method: "POST", who: "author", call: commentsRoute.POST as Call, params: () => ({ proofId, stepId: String(step.id) }), valid: () => ({ body: "A comment." }) },
-  { file: "api/proofs/[proofId]/steps/[stepId]/reviews/route.ts", method: "POST", who: "reviewer", call: reviewsRoute.POST as Call, params: () => ({ proofId, stepId: String(step.id) }), valid: () => ({ revisionId: step.revisionId, verdict: "dispute", comment: "Why?" }) },
-  { file: "api/proofs/[proofId]/disputes/[reviewId]/route.ts", method: "POST", who: "author", call: disputeRoute.POST as Call, params: () => ({ proofId, reviewId: String(disputeId) }), valid: () => ({ to: "answered", comment: "Because." }) },
-  { file: "api/proofs/[proofId]/exports/route.ts", method: "POST", who: "editor", call: exportsRoute.POST as Call, params: P, valid: () => ({ kind: "draft" }) },
-  { file: "api/proofs/[proofId]/invitations/route.ts", method: "POST", who: "editor", call: invitationsRoute.POST as Call, params: P, valid: () => ({ email: "fuzz.invitee@example.org", scope: "cases", caseIds: [caseId] }) },
-  { file: "api/proofs/[proofId]/settings/route.ts", method: "PATCH", who: "editor", call: settingsRoute.PATCH as Call, params: P, valid: () => ({ requiredApprovals: 2 }) },
-  { file: "api/proofs/[proofId]/settings/scopes/[userId]/route.ts", method: "PUT", who: "editor", call: scopeRoute.PUT as Call, params: () => ({ proofId, userId: String(reviewerId) }), valid: () => ({ caseIds: [caseId] }) },
-  { file: "api/proofs/[proofId]/review-policy/route.ts", method: "PATCH", who: "editor", call: policyRoute.PATCH as Call, params: P, valid: () => ({ blind: false, remindBeforeDays: 3, remindAfterDays: 2 }) },
-  { file: "api/proofs/[proofId]/rounds/route.ts", method: "POST", who: "editor", call: roundsRoute.POST as Call, params: P, valid: () => ({ dueAt: "2099-06-30" }) },
-  { file: "api/proofs/[proofId]/rounds/[round]/report/route.ts", method: "PUT", who: "reviewer", call: reportRoute.PUT as Call, params: () => ({ proofId, round: "1" }), valid: () => ({ body: "The report.", recommendation: "minor_revision", editorNote: "A note." }) },
-  { file: "api/proofs/[proofId]/rounds/[round]/referees/[userId]/route.ts", method: "PATCH", who: "editor", call: refereeRoute.PATCH as Call, params: () => ({ proofId, round: "1", userId: String(reviewerId) }), valid: () => ({ dueAt: "2099-07-31" }) },
-  { file: "api/proofs/[proofId]/rounds/[round]/decision/route.ts", method: "POST", who: "editor", call: decisionRoute.POST as Call, params: () => ({ proofId, round: "1" }), valid: () => ({ decision: "minor_revision", letter: "Dear authors.", attachReports: true }) },
-  { file: "api/notifications/route.ts", method: "POST", who: "author", call: notificationsRoute.POST as Call, params: () => ({}), valid: () => ({ ids: [1, 2] }) },
-  { file: "api/notifications/preferences/route.ts", method: "PUT", who: "author", call: preferencesRoute.PUT as Call, params: () => ({}), valid: () => ({ kind: "assigned", email: true }) },
-  { file: "api/invitations/[token]/route.ts", method: "POST", who: null, call: tokenRoute.POST as Call, params: () => ({ token }), valid: () => ({ name: "Quin Ashby", password: "a long enough password" }) },
+  {
+    file: "api/proofs/route.ts",
+    method: "POST",
+    who: "author",
+    call: proofsRoute.POST as Call,
+    params: () => ({}),
+    valid: () => ({ title: "Fuzzed proof", statement: "All $x$." }),
+  },
+  {
+    file: "api/proofs/[proofId]/route.ts",
+    method: "PATCH",
+    who: "author",
+    call: proofRoute.PATCH as Call,
+    params: P,
+    valid: () => ({ title: "Fuzz target", statement: "A statement." }),
+  },
+  {
+    file: "api/proofs/[proofId]/cases/route.ts",
+    method: "POST",
+    who: "author",
+    call: casesRoute.POST as Call,
+    params: P,
+    valid: () => ({ title: "A case", condition: "$n > 2$", parentId: caseId }),
+  },
+  {
+    file: "api/proofs/[proofId]/cases/[caseId]/route.ts",
+    method: "PATCH",
+    who: "author",
+    call: caseRoute.PATCH as Call,
+    params: () => ({ proofId, caseId: String(caseId) }),
+    valid: () => ({ title: "Renamed", condition: "$n$ odd" }),
+  },
+  {
+    file: "api/proofs/[proofId]/cases/[caseId]/route.ts",
+    method: "DELETE",
+    who: "author",
+    call: caseRoute.DELETE as Call,
+    params: () => ({ proofId, caseId: String(doomedCaseId) }),
+    valid: () => ({ confirm: false }),
+  },
+  {
+    file: "api/proofs/[proofId]/cases/[caseId]/steps/route.ts",
+    method: "POST",
+    who: "author",
+    call: stepsRoute.POST as Call,
+    params: () => ({ proofId, caseId: String(caseId) }),
+    valid: () => ({ body: "A new step." }),
+  },
+  {
+    file: "api/proofs/[proofId]/steps/[stepId]/route.ts",
+    method: "PATCH",
+    who: "author",
+    call: stepRoute.PATCH as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ move: "up" }),
+  },
+  {
+    file: "api/proofs/[proofId]/steps/[stepId]/revisions/route.ts",
+    method: "POST",
+    who: "author",
+    call: revisionsRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ baseRevisionId: step.revisionId, body: "Revised text." }),
+  },
+  {
+    file: "api/proofs/[proofId]/steps/[stepId]/claims/route.ts",
+    method: "POST",
+    who: "author",
+    call: stepClaimsRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ claims: [spectral] }),
+  },
+  {
+    file: "api/proofs/[proofId]/steps/[stepId]/comments/route.ts",
+    method: "POST",
+    who: "author",
+    call: commentsRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ body: "A comment." }),
+  },
+  {
+    file: "api/proofs/[proofId]/steps/[stepId]/reviews/route.ts",
+    method: "POST",
+    who: "reviewer",
+    call: reviewsRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ revisionId: step.revisionId, verdict: "dispute", comment: "Why?" }),
+  },
+  {
+    file: "api/proofs/[proofId]/disputes/[reviewId]/route.ts",
+    method: "POST",
+    who: "author",
+    call: disputeRoute.POST as Call,
+    params: () => ({ proofId, reviewId: String(disputeId) }),
+    valid: () => ({ to: "answered", comment: "Because." }),
+  },
+  {
+    file: "api/proofs/[proofId]/exports/route.ts",
+    method: "POST",
+    who: "editor",
+    call: exportsRoute.POST as Call,
+    params: P,
+    valid: () => ({ kind: "draft" }),
+  },
+  {
+    file: "api/proofs/[proofId]/invitations/route.ts",
+    method: "POST",
+    who: "editor",
+    call: invitationsRoute.POST as Call,
+    params: P,
+    valid: () => ({ email: "fuzz.invitee@example.org", scope: "cases", caseIds: [caseId] }),
+  },
+  {
+    file: "api/proofs/[proofId]/settings/route.ts",
+    method: "PATCH",
+    who: "editor",
+    call: settingsRoute.PATCH as Call,
+    params: P,
+    valid: () => ({ requiredApprovals: 2 }),
+  },
+  {
+    file: "api/proofs/[proofId]/settings/scopes/[userId]/route.ts",
+    method: "PUT",
+    who: "editor",
+    call: scopeRoute.PUT as Call,
+    params: () => ({ proofId, userId: String(reviewerId) }),
+    valid: () => ({ caseIds: [caseId] }),
+  },
+  {
+    file: "api/proofs/[proofId]/review-policy/route.ts",
+    method: "PATCH",
+    who: "editor",
+    call: policyRoute.PATCH as Call,
+    params: P,
+    valid: () => ({ blind: false, remindBeforeDays: 3, remindAfterDays: 2 }),
+  },
+  {
+    file: "api/proofs/[proofId]/rounds/route.ts",
+    method: "POST",
+    who: "editor",
+    call: roundsRoute.POST as Call,
+    params: P,
+    valid: () => ({ dueAt: "2099-06-30" }),
+  },
+  {
+    file: "api/proofs/[proofId]/rounds/[round]/report/route.ts",
+    method: "PUT",
+    who: "reviewer",
+    call: reportRoute.PUT as Call,
+    params: () => ({ proofId, round: "1" }),
+    valid: () => ({ body: "The report.", recommendation: "minor_revision", editorNote: "A note." }),
+  },
+  {
+    file: "api/proofs/[proofId]/rounds/[round]/referees/[userId]/route.ts",
+    method: "PATCH",
+    who: "editor",
+    call: refereeRoute.PATCH as Call,
+    params: () => ({ proofId, round: "1", userId: String(reviewerId) }),
+    valid: () => ({ dueAt: "2099-07-31" }),
+  },
+  {
+    file: "api/proofs/[proofId]/rounds/[round]/decision/route.ts",
+    method: "POST",
+    who: "editor",
+    call: decisionRoute.POST as Call,
+    params: () => ({ proofId, round: "1" }),
+    valid: () => ({ decision: "minor_revision", letter: "Dear authors.", attachReports: true }),
+  },
+  {
+    file: "api/notifications/route.ts",
+    method: "POST",
+    who: "author",
+    call: notificationsRoute.POST as Call,
+    params: () => ({}),
+    valid: () => ({ ids: [1, 2] }),
+  },
+  {
+    file: "api/notifications/preferences/route.ts",
+    method: "PUT",
+    who: "author",
+    call: preferencesRoute.PUT as Call,
+    params: () => ({}),
+    valid: () => ({ kind: "assigned", email: true }),
+  },
+  {
+    file: "api/invitations/[token]/route.ts",
+    method: "POST",
+    who: null,
+    call: tokenRoute.POST as Call,
+    params: () => ({ token }),
+    valid: () => ({ name: "Quin Ashby", password: "a long enough password" }),
+  },
   // Last: a valid body that names an author or editor hands the proof over.
   { file: "api/proofs/[proofId]/owner/route.ts", method: "PUT", who: "author", call: ownerRoute.PUT as Call, params: P, valid: () => ({ userId: reviewerId }) },
-  { file: "api/account/password/route.ts", method: "POST", who: FUZZ_USER.email, call: passwordRoute.POST as Call, params: () => ({}), valid: () => ({ currentPassword: "not the password at all", newPassword: "another long password" }) },
+  {
+    file: "api/account/password/route.ts",
+    method: "POST",
+    who: FUZZ_USER.email,
+    call: passwordRoute.POST as Call,
+    params: () => ({}),
+    valid: () => ({ currentPassword: "not the password at all", newPassword: "another long password" }),
+  },
 ];
 
 /** Row counts of every table a refused request could half-write (all of them, but the sign-in throttle, which counts failed password checks on purpose). */
 async function rowCounts(): Promise<Record<string, number>> {
   const sq = getSequelize();
-  const tables = (await sq.query<{ t: string }>("SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name NOT IN ('SequelizeMeta', 'sign_in_throttles') ORDER BY 1", { type: QueryTypes.SELECT })).map((r) => r.t);
-  const [row] = await sq.query<Record<string, number>>(`SELECT ${tables.map((t) => `(SELECT COUNT(*) FROM \`${t}\`) AS \`${t}\``).join(", ")}`, { type: QueryTypes.SELECT });
+  const tables = (
+    await sq.query<{ t: string }>(
+      "SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name NOT IN ('SequelizeMeta', 'sign_in_throttles') ORDER BY 1",
+      { type: QueryTypes.SELECT },
+    )
+  ).map((r) => r.t);
+  const [row] = await sq.query<Record<string, number>>(`SELECT ${tables.map((t) => `(SELECT COUNT(*) FROM \`${t}\`) AS \`${t}\``).join(", ")}`, {
+    type: QueryTypes.SELECT,
+  });
   return Object.fromEntries(Object.entries(row).map(([k, v]) => [k, Number(v)]));
 }
 
 // ---- bodies ----------------------------------------------------------------------------------------
 const odd = fc.oneof(
-  fc.constantFrom<unknown>(null, true, false, 0, -1, 1.5, 2 ** 53, 2 ** 60, -(2 ** 31), 1e308, "", "   ", "0", "-1", "true", "null", "up", "x".repeat(70_000), [], {}, [null], [[]], { "": 1 }),
+  fc.constantFrom<unknown>(
+    null,
+    true,
+    false,
+    0,
+    -1,
+    1.5,
+    2 ** 53,
+    2 ** 60,
+    -(2 ** 31),
+    1e308,
+    "",
+    "   ",
+    "0",
+    "-1",
+    "true",
+    "null",
+    "up",
+    "x".repeat(70_000),
+    [],
+    {},
+    [null],
+    [[]],
+    { "": 1 },
+  ),
   fc.integer(),
   fc.double({ noNaN: true }),
   fc.string({ unit: "binary", maxLength: 40 }),
@@ -161,10 +378,18 @@ function mutate(valid: unknown, edits: Array<{ path: Array<string | number>; op:
 }
 
 /** `refuse`: a body no route may accept whatever its state (not JSON, or not sent as JSON). */
-interface Body { text: string; type: string; refuse?: boolean }
+interface Body {
+  text: string;
+  type: string;
+  refuse?: boolean;
+}
 function bodies(valid: unknown): fc.Arbitrary<Body> {
   const leafs = [...paths(valid), ["unexpected"], ["__proto__"]];
-  const edit = fc.record({ path: fc.constantFrom(...leafs), op: fc.constantFrom("set" as const, "set" as const, "delete" as const, "wrap" as const), value: odd });
+  const edit = fc.record({
+    path: fc.constantFrom(...leafs),
+    op: fc.constantFrom("set" as const, "set" as const, "delete" as const, "wrap" as const),
+    value: odd,
+  });
   const json = (text: string): Body => ({ text, type: "application/json" });
   const validText = JSON.stringify(valid);
   return fc.oneof(
@@ -172,8 +397,24 @@ function bodies(valid: unknown): fc.Arbitrary<Body> {
     { weight: 2, arbitrary: fc.jsonValue({ maxDepth: 3 }).map((v) => json(JSON.stringify(v))) },
     { weight: 1, arbitrary: fc.string({ unit: "binary", maxLength: 300 }).map(json) },
     { weight: 1, arbitrary: fc.nat({ max: Math.max(0, validText.length - 1) }).map((n) => ({ ...json(validText.slice(0, n)), refuse: true })) },
-    { weight: 1, arbitrary: fc.constantFrom(`{"__proto__":{"admin":true},"constructor":{"prototype":{"x":1}}}`, `${validText.slice(0, -1)},"__proto__":{"role":"admin"}}`, `[${validText}]`, `${validText}${validText}`, "\uFEFF" + validText).map(json) },
-    { weight: 1, arbitrary: fc.constantFrom("text/plain", "", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x", "application/jsonx", "text/json").map((type) => ({ text: validText, type, refuse: true })) },
+    {
+      weight: 1,
+      arbitrary: fc
+        .constantFrom(
+          `{"__proto__":{"admin":true},"constructor":{"prototype":{"x":1}}}`,
+          `${validText.slice(0, -1)},"__proto__":{"role":"admin"}}`,
+          `[${validText}]`,
+          `${validText}${validText}`,
+          "\uFEFF" + validText,
+        )
+        .map(json),
+    },
+    {
+      weight: 1,
+      arbitrary: fc
+        .constantFrom("text/plain", "", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x", "application/jsonx", "text/json")
+        .map((type) => ({ text: validText, type, refuse: true })),
+    },
   );
 }
 
@@ -193,7 +434,8 @@ function assertErrorShape(status: number, text: string, where: string) {
   expect(typeof error.message === "string" && error.message.length > 10, where).toBe(true);
   expect(error.message as string, where).not.toMatch(/sequelize|SqlError|\bSQL\b|TypeError|undefined|\n\s+at /);
   if (error.issues !== undefined)
-    for (const issue of error.issues as Array<{ path: unknown; message: unknown }>) expect(typeof issue.path === "string" && typeof issue.message === "string", where).toBe(true);
+    for (const issue of error.issues as Array<{ path: unknown; message: unknown }>)
+      expect(typeof issue.path === "string" && typeof issue.message === "string", where).toBe(true);
 }
 
 async function settleClaims(text: string) {
@@ -211,11 +453,21 @@ beforeAll(async () => {
   step = await addStep(proofId, caseId, "Let $T$ be a tree. Then $\\rho(T) < 2$.");
   await addStep(proofId, caseId, "A second step, so that moves have somewhere to go.");
   await actAs("reviewer");
-  const dispute = await reviewsRoute.POST(new Request("http://localhost/x", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ revisionId: step.revisionId, verdict: "dispute", comment: "Why $< 2$?" }) }), params({ proofId, stepId: String(step.id) }));
+  const dispute = await reviewsRoute.POST(
+    new Request("http://localhost/x", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ revisionId: step.revisionId, verdict: "dispute", comment: "Why $< 2$?" }),
+    }),
+    params({ proofId, stepId: String(step.id) }),
+  );
   expect(dispute.status).toBe(201);
   disputeId = (await dispute.json()).reviewId;
   await actAs("editor");
-  const round = await roundsRoute.POST(new Request("http://localhost/x", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ dueAt: "2099-05-31" }) }), params({ proofId }));
+  const round = await roundsRoute.POST(
+    new Request("http://localhost/x", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ dueAt: "2099-05-31" }) }),
+    params({ proofId }),
+  );
   expect(round.status).toBe(201);
   const editor = { id: await userIdOf("editor"), name: "Editor", email: "e@example.org", role: "member" as const };
   token = (await createInvitation(Number(proofId), editor, { email: "fuzz.accept@example.org", scope: "proof", role: "reviewer" })).token;
@@ -224,7 +476,9 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  console.log(`[fuzz] ${tally.requests} requests on ${TARGETS.length} JSON routes: ${tally.refused} refused (4xx), ${tally.accepted} accepted; statuses ${JSON.stringify(tally.statuses)}`);
+  console.log(
+    `[fuzz] ${tally.requests} requests on ${TARGETS.length} JSON routes: ${tally.refused} refused (4xx), ${tally.accepted} accepted; statuses ${JSON.stringify(tally.statuses)}`,
+  );
   await dropProofs([proofId]);
   await models().User.destroy({ where: { id: fuzzUserId } });
   await models().Invitation.destroy({ where: { email: "fuzz.accept@example.org" } });
@@ -234,7 +488,10 @@ afterAll(async () => {
 async function actAsTarget(who: string | null) {
   if (who === null || !who.includes("@")) return actAs(who);
   const u = (await models().User.findOne({ where: { email: who } }))!;
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: u.role, sessionVersion: u.sessionVersion }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({
+    user: { id: String(u.id), name: u.name, email: u.email, role: u.role, sessionVersion: u.sessionVersion },
+    expires: "2999-01-01",
+  });
 }
 
 describe("fuzz of the JSON routes", () => {
@@ -250,7 +507,11 @@ describe("fuzz of the JSON routes", () => {
       await fc.assert(
         fc.asyncProperty(bodies(target.valid()), async (body) => {
           const where = `${target.method} ${target.file} with ${body.type || "no type"} ${JSON.stringify(body.text.slice(0, 200))}`;
-          const request = new Request(`http://localhost/api/${target.file}`, { method: target.method, headers: body.type ? { "content-type": body.type } : {}, body: body.text });
+          const request = new Request(`http://localhost/api/${target.file}`, {
+            method: target.method,
+            headers: body.type ? { "content-type": body.type } : {},
+            body: body.text,
+          });
           const res = await target.call(request, params(target.params()));
           const text = await res.text();
           tally.requests++;

@@ -50,7 +50,15 @@ let proofId: string; // the proof under test: Ada author, Celia and Esme reviewe
 let otherProofId: string; // a second proof whose rows must not be reachable through the first
 let caseId: number;
 let step: { id: number; revisionId: number };
-let other: { caseId: number; step: { id: number; revisionId: number }; commentId: number; disputeId: number; claimId: number; invitationId: number; exportId: number };
+let other: {
+  caseId: number;
+  step: { id: number; revisionId: number };
+  commentId: number;
+  disputeId: number;
+  claimId: number;
+  invitationId: number;
+  exportId: number;
+};
 let disputeId: number;
 let approvalId: number;
 
@@ -75,8 +83,18 @@ const within = (body: unknown, limit: number) => (JSON.stringify(body).length > 
 async function rowCounts(): Promise<Record<string, number>> {
   const m = models();
   const [proofs, cases, steps, revisions, claims, reviews, comments, exports, invitations, mails, notifications, audit] = await Promise.all([
-    m.Proof.count(), m.Case.count(), m.Step.count(), m.StepRevision.count(), m.Claim.count(), m.Review.count(), m.Comment.count(),
-    m.ProofExport.count(), m.Invitation.count(), m.OutgoingMail.count(), m.Notification.count(), m.AuditEvent.count(),
+    m.Proof.count(),
+    m.Case.count(),
+    m.Step.count(),
+    m.StepRevision.count(),
+    m.Claim.count(),
+    m.Review.count(),
+    m.Comment.count(),
+    m.ProofExport.count(),
+    m.Invitation.count(),
+    m.OutgoingMail.count(),
+    m.Notification.count(),
+    m.AuditEvent.count(),
   ]);
   return { proofs, cases, steps, revisions, claims, reviews, comments, exports, invitations, mails, notifications, audit };
 }
@@ -112,7 +130,10 @@ beforeAll(async () => {
     params({ proofId: otherProofId, stepId: String(otherStep.id) }),
   );
   expect(otherDispute.status).toBe(201);
-  const otherComment = await commentsRoute.POST(req("POST", { body: "A comment on the other proof." }), params({ proofId: otherProofId, stepId: String(otherStep.id) }));
+  const otherComment = await commentsRoute.POST(
+    req("POST", { body: "A comment on the other proof." }),
+    params({ proofId: otherProofId, stepId: String(otherStep.id) }),
+  );
   expect(otherComment.status).toBe(201);
   other = {
     caseId: otherCase,
@@ -184,14 +205,41 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
   it("proofs and cases", async () => {
     const before = await rowCounts();
     await actAs("author");
-    for (const body of [{}, { title: "T" }, { title: 5, statement: "S" }, { title: ["T"], statement: "S" }, { title: MB, statement: "S" }, { title: "T", statement: MB }, { title: "   ", statement: "S" }])
+    for (const body of [
+      {},
+      { title: "T" },
+      { title: 5, statement: "S" },
+      { title: ["T"], statement: "S" },
+      { title: MB, statement: "S" },
+      { title: "T", statement: MB },
+      { title: "   ", statement: "S" },
+    ])
       expect((await expectError(await proofsRoute.POST(req("POST", body), params({})), 422)).issues?.length).toBeGreaterThan(0);
     for (const body of [{}, { title: null }, { statement: 7 }, { title: MB }, { statement: MB }])
       await expectError(await proofRoute.PATCH(req("PATCH", body), params({ proofId })), 422);
-    for (const body of [{}, { title: 1 }, { title: MB }, { title: "C", condition: MB }, { title: "C", condition: 3 }, { title: "C", parentId: "1" }, { title: "C", parentId: -1 }, { title: "C", parentId: 1.5 }, { title: "C", parentId: 2 ** 60 }])
+    for (const body of [
+      {},
+      { title: 1 },
+      { title: MB },
+      { title: "C", condition: MB },
+      { title: "C", condition: 3 },
+      { title: "C", parentId: "1" },
+      { title: "C", parentId: -1 },
+      { title: "C", parentId: 1.5 },
+      { title: "C", parentId: 2 ** 60 },
+    ])
       await expectError(await casesRoute.POST(req("POST", body), params({ proofId })), within(body, BODY_LIMITS.small));
     const patchCase = (body: unknown, c = String(caseId)) => caseRoute.PATCH(req("PATCH", body), params({ proofId, caseId: c }));
-    for (const body of [{}, { move: "sideways" }, { move: 1 }, { title: "" }, { title: MB }, { condition: MB }, { parentId: "x" }, { confirm: "yes", move: "up" }])
+    for (const body of [
+      {},
+      { move: "sideways" },
+      { move: 1 },
+      { title: "" },
+      { title: MB },
+      { condition: MB },
+      { parentId: "x" },
+      { confirm: "yes", move: "up" },
+    ])
       await expectError(await patchCase(body), within(body, BODY_LIMITS.small));
     await expectError(await caseRoute.DELETE(req("DELETE", { confirm: "yes" }), params({ proofId, caseId: String(caseId) })), 422);
     expect(await rowCounts()).toEqual(before);
@@ -203,16 +251,49 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
     await actAs("author");
     for (const body of [{}, { body: 5 }, { body: ["a"] }, { body: MB }, { body: "  \n " }])
       await expectError(await stepsRoute.POST(req("POST", body), params({ proofId, caseId: String(caseId) })), 422);
-    for (const body of [{ body: "x" }, { baseRevisionId: "1", body: "x" }, { baseRevisionId: step.revisionId, body: MB }, { baseRevisionId: step.revisionId }, { baseRevisionId: -3, body: "x" }, { baseRevisionId: 2 ** 60, body: "x" }, { baseRevisionId: 99999999999, body: "x" }])
+    for (const body of [
+      { body: "x" },
+      { baseRevisionId: "1", body: "x" },
+      { baseRevisionId: step.revisionId, body: MB },
+      { baseRevisionId: step.revisionId },
+      { baseRevisionId: -3, body: "x" },
+      { baseRevisionId: 2 ** 60, body: "x" },
+      { baseRevisionId: 99999999999, body: "x" },
+    ])
       await expectError(await revisionsRoute.POST(req("POST", body), params({ proofId, stepId: sid })), 422);
     const attach = (body: unknown, url = "/x") => stepClaimsRoute.POST(req("POST", body, url), params({ proofId, stepId: sid }));
     const spectral = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "path(3)" }, op: "<", bound: "2" };
-    for (const body of [{}, { claims: "x" }, { claims: [] }, { claims: [1] }, { claims: [null] }, { claims: [[]] }, { claims: Array(21).fill(spectral) }, { claims: [{}] }, { claims: [{ ...spectral, kind: "nope" }] }, { claims: [{ ...spectral, op: "≈" }] }, { claims: [{ ...spectral, bound: MB }] }, { claims: [{ ...spectral, graph: { format: "named", text: MB } }] }, { claims: [{ ...spectral, graph: { format: "named", text: 5 } }] }, { claims: [spectral, { ...spectral, graph: null }] }])
+    for (const body of [
+      {},
+      { claims: "x" },
+      { claims: [] },
+      { claims: [1] },
+      { claims: [null] },
+      { claims: [[]] },
+      { claims: Array(21).fill(spectral) },
+      { claims: [{}] },
+      { claims: [{ ...spectral, kind: "nope" }] },
+      { claims: [{ ...spectral, op: "≈" }] },
+      { claims: [{ ...spectral, bound: MB }] },
+      { claims: [{ ...spectral, graph: { format: "named", text: MB } }] },
+      { claims: [{ ...spectral, graph: { format: "named", text: 5 } }] },
+      { claims: [spectral, { ...spectral, graph: null }] },
+    ])
       await expectError(await attach(body), 422);
     const named = await expectError(await attach({ claims: [spectral, { ...spectral, graph: { format: "edges", text: 12 } }] }), 422);
     expect(named.issues?.[0].path).toBe("claims.1.graph.text");
     await expectError(await attach({ claims: [{ ...spectral, kind: "nope" }] }, "/x?wait=abc"), 422);
-    for (const body of [{}, { body: "" }, { body: 3 }, { body: MB }, { body: "Reply", parentId: "1" }, { body: "Reply", parentId: -1 }, { body: "Reply", reviewId: 0 }, { body: "Reply", reviewId: approvalId }, { body: "Reply", parentId: 2 ** 60 }])
+    for (const body of [
+      {},
+      { body: "" },
+      { body: 3 },
+      { body: MB },
+      { body: "Reply", parentId: "1" },
+      { body: "Reply", parentId: -1 },
+      { body: "Reply", reviewId: 0 },
+      { body: "Reply", reviewId: approvalId },
+      { body: "Reply", parentId: 2 ** 60 },
+    ])
       await expectError(await commentsRoute.POST(req("POST", body), params({ proofId, stepId: sid })), 422);
     expect(await rowCounts()).toEqual(before);
   });
@@ -221,7 +302,17 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
     const before = await rowCounts();
     const sid = String(step.id);
     await actAs("reviewer");
-    for (const body of [{}, { verdict: "vouch" }, { revisionId: "1", verdict: "vouch" }, { revisionId: step.revisionId, verdict: "maybe" }, { revisionId: step.revisionId, verdict: "dispute" }, { revisionId: step.revisionId, verdict: "dispute", comment: "   " }, { revisionId: step.revisionId, verdict: "dispute", comment: MB }, { revisionId: 2 ** 60, verdict: "vouch" }, { revisionId: 99999999999, verdict: "vouch" }])
+    for (const body of [
+      {},
+      { verdict: "vouch" },
+      { revisionId: "1", verdict: "vouch" },
+      { revisionId: step.revisionId, verdict: "maybe" },
+      { revisionId: step.revisionId, verdict: "dispute" },
+      { revisionId: step.revisionId, verdict: "dispute", comment: "   " },
+      { revisionId: step.revisionId, verdict: "dispute", comment: MB },
+      { revisionId: 2 ** 60, verdict: "vouch" },
+      { revisionId: 99999999999, verdict: "vouch" },
+    ])
       await expectError(await reviewsRoute.POST(req("POST", body), params({ proofId, stepId: sid })), 422);
     await actAs("author");
     for (const body of [{}, { to: "sideways" }, { to: 1 }, { to: "answered", comment: 5 }, { to: "answered", comment: MB }])
@@ -229,7 +320,16 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
     await actAs("editor");
     for (const body of [{}, { kind: "final" }, { kind: 1 }, { kind: ["draft"] }])
       await expectError(await exportsRoute.POST(req("POST", body), params({ proofId })), 422);
-    for (const body of [{}, { requiredApprovals: "3" }, { requiredApprovals: 0 }, { requiredApprovals: -1 }, { requiredApprovals: 10 }, { requiredApprovals: 2.5 }, { requiredApprovals: 1e308 }, { requiredApprovals: null }])
+    for (const body of [
+      {},
+      { requiredApprovals: "3" },
+      { requiredApprovals: 0 },
+      { requiredApprovals: -1 },
+      { requiredApprovals: 10 },
+      { requiredApprovals: 2.5 },
+      { requiredApprovals: 1e308 },
+      { requiredApprovals: null },
+    ])
       await expectError(await settingsRoute.PATCH(req("PATCH", body), params({ proofId })), 422);
     expect(await rowCounts()).toEqual(before);
   });
@@ -238,7 +338,18 @@ describe("wrong field types, missing fields, unknown enum values, 1 MB strings",
     const before = await rowCounts();
     await actAs("editor");
     const invite = (body: unknown) => invitationsRoute.POST(req("POST", body), params({ proofId }));
-    for (const body of [{}, { email: "someone@example.org" }, { email: "not an address", scope: "proof" }, { email: 5, scope: "proof" }, { email: "someone@example.org", scope: "everything" }, { email: "someone@example.org", scope: "cases" }, { email: "someone@example.org", scope: "cases", caseIds: [] }, { email: "someone@example.org", scope: "cases", caseIds: ["abc"] }, { email: "someone@example.org", scope: "cases", caseIds: [-1] }, { email: "someone@example.org", scope: "cases", caseIds: "1" }])
+    for (const body of [
+      {},
+      { email: "someone@example.org" },
+      { email: "not an address", scope: "proof" },
+      { email: 5, scope: "proof" },
+      { email: "someone@example.org", scope: "everything" },
+      { email: "someone@example.org", scope: "cases" },
+      { email: "someone@example.org", scope: "cases", caseIds: [] },
+      { email: "someone@example.org", scope: "cases", caseIds: ["abc"] },
+      { email: "someone@example.org", scope: "cases", caseIds: [-1] },
+      { email: "someone@example.org", scope: "cases", caseIds: "1" },
+    ])
       await expectError(await invite(body), 422);
     // Addresses longer than an e-mail address can be (254 characters), up to 1 MB.
     for (const email of [`${"a".repeat(250)}@example.org`, `${"a".repeat(64)}@${"b".repeat(200)}.example.org`, `${MB}@example.org`]) {
@@ -293,7 +404,18 @@ describe("nonsense ids in the path and the query", () => {
   it("a diff query that names no two revisions is a 422, a revision that does not exist a 404", async () => {
     await actAs("reviewer");
     const diff = (query: string) => diffRoute.GET(new Request(`http://localhost/x${query}`), params({ proofId, stepId: String(step.id) }));
-    for (const q of ["", "?from=abc&to=1", "?from=1&to=abc", "?from=-1&to=1", "?from=0&to=1", "?from=1.5&to=1", "?from=1&to=1e999", "?from=1&to=99999999999999999999", "?from=&to=", `?from=${"9".repeat(10_000)}&to=1`])
+    for (const q of [
+      "",
+      "?from=abc&to=1",
+      "?from=1&to=abc",
+      "?from=-1&to=1",
+      "?from=0&to=1",
+      "?from=1.5&to=1",
+      "?from=1&to=1e999",
+      "?from=1&to=99999999999999999999",
+      "?from=&to=",
+      `?from=${"9".repeat(10_000)}&to=1`,
+    ])
       expect((await expectError(await diff(q), 422)).code).toBe("invalid");
     await expectError(await diff("?from=1&to=4294967296"), 404);
     const wait = await stepClaimsRoute.POST(req("POST", { claims: [{}] }, "/x?wait=-99999999999999999999"), params({ proofId, stepId: String(step.id) }));
@@ -312,12 +434,24 @@ describe("ids of rows that belong to another proof", () => {
     await expectError(await casesRoute.POST(req("POST", { title: "C", parentId: other.caseId }), params({ proofId })), 422);
     await expectError(await caseRoute.PATCH(req("PATCH", { parentId: other.caseId, confirm: true }), params({ proofId, caseId: String(caseId) })), 422);
     await expectError(await stepRoute.GET(get, params({ proofId, stepId: String(other.step.id) })), 404);
-    await expectError(await revisionsRoute.POST(req("POST", { baseRevisionId: other.step.revisionId, body: "S" }), params({ proofId, stepId: String(step.id) })), 422);
-    await expectError(await revisionsRoute.POST(req("POST", { baseRevisionId: other.step.revisionId, body: "S" }), params({ proofId, stepId: String(other.step.id) })), 404);
+    await expectError(
+      await revisionsRoute.POST(req("POST", { baseRevisionId: other.step.revisionId, body: "S" }), params({ proofId, stepId: String(step.id) })),
+      422,
+    );
+    await expectError(
+      await revisionsRoute.POST(req("POST", { baseRevisionId: other.step.revisionId, body: "S" }), params({ proofId, stepId: String(other.step.id) })),
+      404,
+    );
     await expectError(await revisionRoute.GET(get, params({ proofId, stepId: String(other.step.id), number: "1" })), 404);
     await expectError(await diffRoute.GET(new Request("http://localhost/x?from=1&to=1"), params({ proofId, stepId: String(other.step.id) })), 404);
     await expectError(await stepClaimsRoute.GET(get, params({ proofId, stepId: String(other.step.id) })), 404);
-    await expectError(await stepClaimsRoute.POST(req("POST", { claims: [{ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "path(3)" }, op: "<", bound: "2" }] }), params({ proofId, stepId: String(other.step.id) })), 404);
+    await expectError(
+      await stepClaimsRoute.POST(
+        req("POST", { claims: [{ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: "path(3)" }, op: "<", bound: "2" }] }),
+        params({ proofId, stepId: String(other.step.id) }),
+      ),
+      404,
+    );
     await expectError(await claimRoute.GET(get, params({ proofId, claimId: String(other.claimId) })), 404);
     await expectError(await recheckRoute.POST(req("POST"), params({ proofId, claimId: String(other.claimId) })), 404);
     await expectError(await commentsRoute.POST(req("POST", { body: "Reply", parentId: other.commentId }), params({ proofId, stepId: String(step.id) })), 422);
@@ -326,12 +460,21 @@ describe("ids of rows that belong to another proof", () => {
     await expectError(await disputeRoute.POST(req("POST", { to: "answered", comment: "Fixed." }), params({ proofId, reviewId: String(other.disputeId) })), 404);
     await expectError(await disputeRoute.POST(req("POST", { to: "answered" }), params({ proofId, reviewId: String(approvalId) })), 404);
     await expectError(await invitationRoute.POST(req("POST"), params({ proofId, invitationId: String(other.invitationId) })), 404);
-    await expectError(await invitationsRoute.POST(req("POST", { email: "someone@example.org", scope: "cases", caseIds: [other.caseId] }), params({ proofId })), 422);
+    await expectError(
+      await invitationsRoute.POST(req("POST", { email: "someone@example.org", scope: "cases", caseIds: [other.caseId] }), params({ proofId })),
+      422,
+    );
     await expectError(await scopeRoute.DELETE(req("DELETE"), params({ proofId, userId: String(await userIdOf("outsider")) })), 404);
     await expectError(await exportRoute.GET(get, params({ proofId, exportId: String(other.exportId) })), 404);
     await actAs("reviewer");
-    await expectError(await reviewsRoute.POST(req("POST", { revisionId: other.step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(step.id) })), 422);
-    await expectError(await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(other.step.id) })), 404);
+    await expectError(
+      await reviewsRoute.POST(req("POST", { revisionId: other.step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(step.id) })),
+      422,
+    );
+    await expectError(
+      await reviewsRoute.POST(req("POST", { revisionId: step.revisionId, verdict: "vouch" }), params({ proofId, stepId: String(other.step.id) })),
+      404,
+    );
     expect(await rowCounts()).toEqual(before);
   });
 });
@@ -346,7 +489,10 @@ describe("long but valid input is not a server error", () => {
     // The inviter's name comes from the session; names may be up to 120 characters long.
     const editorId = await userIdOf("editor");
     const longName = `Dov ${"Ashgrove-Longname ".repeat(7)}`.slice(0, 120);
-    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(editorId), name: longName, email: "dov.ashgrove@tarnhollow.example", role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
+    vi.mocked(getServerSession).mockResolvedValue({
+      user: { id: String(editorId), name: longName, email: "dov.ashgrove@tarnhollow.example", role: "member", sessionVersion: 1 },
+      expires: "2999-01-01",
+    });
     const res = await invitationsRoute.POST(req("POST", { email: "long.title.invitee@example.org", scope: "proof" }), params({ proofId }));
     expect(res.status, await res.clone().text()).toBe(201);
     const { id } = await res.json();

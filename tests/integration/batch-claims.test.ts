@@ -46,7 +46,8 @@ const upload = async (text: string, name: string) => {
   return (await res.json()).file.id as number;
 };
 const start = (body: unknown) => batchesRoute.POST(jsonRequest("/x", "POST", body), params({ proofId, stepId }));
-const progress = async (batchId: number) => (await (await batchRoute.GET(new Request("http://localhost/x"), params({ proofId, batchId: String(batchId) }))).json()).batch;
+const progress = async (batchId: number) =>
+  (await (await batchRoute.GET(new Request("http://localhost/x"), params({ proofId, batchId: String(batchId) }))).json()).batch;
 const results = (batchId: number, query = "") => resultsRoute.GET(new Request(`http://localhost/x?${query}`), params({ proofId, batchId: String(batchId) }));
 
 async function finished(batchId: number, ms = 90_000) {
@@ -113,7 +114,9 @@ describe("a batch claim over the trees on 10 vertices", () => {
     const verified = json.results.filter((r: { verdict: string }) => r.verdict === "verified");
     const shapes = verified.map((r: { graph6: string }) => {
       const g = parseGraph6(r.graph6);
-      return Array.from({ length: g.n }, (_, v) => degree(g, v)).sort((x, y) => y - x).join("");
+      return Array.from({ length: g.n }, (_, v) => degree(g, v))
+        .sort((x, y) => y - x)
+        .join("");
     });
     expect(shapes.sort()).toEqual(["2222222211", "3222222111"]); // A₁₀ (the path), D₁₀
     expect(verified[0].certificate).not.toBeNull();
@@ -144,7 +147,18 @@ describe("a batch claim over the trees on 10 vertices", () => {
     const { BatchClaim, BatchResult } = models();
     const file = await models().StepFile.findByPk(listId);
     // A batch of its own, not queued, so that only this test runs its chunks.
-    const b = await BatchClaim.create({ stepId: Number(stepId), fileId: file!.id, kind: "spectral-radius-bound", op: "<=", bound: "2", statement: "every graph of the list: ρ(G) ≤ 2", total: 107, chunkSize: 50, checkerVersion: "test", createdBy: (await models().User.findOne())!.id });
+    const b = await BatchClaim.create({
+      stepId: Number(stepId),
+      fileId: file!.id,
+      kind: "spectral-radius-bound",
+      op: "<=",
+      bound: "2",
+      statement: "every graph of the list: ρ(G) ≤ 2",
+      total: 107,
+      chunkSize: 50,
+      checkerVersion: "test",
+      createdBy: (await models().User.findOne())!.id,
+    });
     expect(await runBatchChunk({ type: "batch", batchId: b.id, chunk: 0 }, "test-a")).toEqual({ decided: 50 });
     expect(await runBatchChunk({ type: "batch", batchId: b.id, chunk: 0 }, "test-b")).toEqual({ decided: 0 });
     await b.reload();

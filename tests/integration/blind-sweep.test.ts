@@ -57,7 +57,10 @@ let title = "";
 
 async function actAsUser(id: number) {
   const u = (await models().User.findByPk(id))!;
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({
+    user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion },
+    expires: "2999-01-01",
+  });
 }
 
 type Get = (r: Request, c: { params: Promise<Record<string, string>> }) => Promise<Response>;
@@ -66,7 +69,12 @@ const read = async (get: Get, p: Record<string, string>, query = ""): Promise<{ 
   const type = res.headers.get("content-type") ?? "";
   if (type.includes("zip")) {
     const files = unzipSync(new Uint8Array(await res.arrayBuffer()));
-    return { status: res.status, text: Object.entries(files).map(([name, data]) => `${name}\n${name.endsWith(".pdf") ? "" : strFromU8(data)}`).join("\n") };
+    return {
+      status: res.status,
+      text: Object.entries(files)
+        .map(([name, data]) => `${name}\n${name.endsWith(".pdf") ? "" : strFromU8(data)}`)
+        .join("\n"),
+    };
   }
   return { status: res.status, text: await res.text() };
 };
@@ -81,24 +89,48 @@ beforeAll(async () => {
 
   // Celia vouches for step 1.1; Gale disputes step 2.2 and comments; the author answers the dispute.
   await actAs("reviewer");
-  const vouch = await reviews.POST(jsonRequest("/x", "POST", { revisionId: (await latestRevision(fx.steps["1.1"])).id, verdict: "vouch" }), params({ proofId: P, stepId: String(fx.steps["1.1"]) }));
+  const vouch = await reviews.POST(
+    jsonRequest("/x", "POST", { revisionId: (await latestRevision(fx.steps["1.1"])).id, verdict: "vouch" }),
+    params({ proofId: P, stepId: String(fx.steps["1.1"]) }),
+  );
   expect(vouch.status).toBe(201);
   await actAsUser(galeId);
-  const dispute = await reviews.POST(jsonRequest("/x", "POST", { revisionId: (await latestRevision(fx.steps["2.2"])).id, verdict: "dispute", comment: "Which bound is meant here?" }), params({ proofId: P, stepId: String(fx.steps["2.2"]) }));
+  const dispute = await reviews.POST(
+    jsonRequest("/x", "POST", { revisionId: (await latestRevision(fx.steps["2.2"])).id, verdict: "dispute", comment: "Which bound is meant here?" }),
+    params({ proofId: P, stepId: String(fx.steps["2.2"]) }),
+  );
   expect(dispute.status).toBe(201);
   const disputeId = (await models().Review.findOne({ where: { stepId: fx.steps["2.2"], reviewerId: galeId } }))!.id;
-  expect((await comments.POST(jsonRequest("/x", "POST", { body: "I mean the bound in the second line." }), params({ proofId: P, stepId: String(fx.steps["2.2"]) }))).status).toBe(201);
+  expect(
+    (await comments.POST(jsonRequest("/x", "POST", { body: "I mean the bound in the second line." }), params({ proofId: P, stepId: String(fx.steps["2.2"]) })))
+      .status,
+  ).toBe(201);
   await actAs("author");
-  expect((await disputeMove.POST(jsonRequest("/x", "POST", { to: "answered", comment: "The second line: $x^2 \\ge 0$." }), params({ proofId: P, reviewId: String(disputeId) }))).status).toBe(200);
+  expect(
+    (
+      await disputeMove.POST(
+        jsonRequest("/x", "POST", { to: "answered", comment: "The second line: $x^2 \\ge 0$." }),
+        params({ proofId: P, reviewId: String(disputeId) }),
+      )
+    ).status,
+  ).toBe(200);
 
   // A round: due dates, both reports, a decision with the reports attached (mailed to the authors).
   await openRound(fx.proofId, fx.ids.editor, new Date(Date.now() + 7 * 86_400_000));
   await setRefereeDue(fx.proofId, 1, galeId, fx.ids.editor, new Date(Date.now() + 9 * 86_400_000));
-  for (const [id, rec] of [[fx.ids.reviewer, "minor_revision"], [galeId, "major_revision"]] as const) {
+  for (const [id, rec] of [
+    [fx.ids.reviewer, "minor_revision"],
+    [galeId, "major_revision"],
+  ] as const) {
     await saveReportDraft(fx.proofId, 1, id, { body: "Report text.", recommendation: rec, editorNote: "for the editors" });
     await submitReport(fx.proofId, 1, id);
   }
-  await recordDecision(fx.proofId, 1, { id: fx.ids.editor, name: "Dov Ashgrove" }, { decision: "minor_revision", letter: "Please revise step 2.2.", attachReports: true });
+  await recordDecision(
+    fx.proofId,
+    1,
+    { id: fx.ids.editor, name: "Dov Ashgrove" },
+    { decision: "minor_revision", letter: "Please revise step 2.2.", attachReports: true },
+  );
 
   // The editor removes Gale (her dispute and report stay), and an author makes a draft export.
   await actAs("editor");
@@ -134,7 +166,13 @@ async function authorSurfaces(viewerId: number): Promise<Array<[string, string]>
   await add("round 1", oneRound.GET as Get, { proofId: P, round: "1" });
   await add("desk", desk.GET as Get, { proofId: P });
   await add("exports", exportsRoute.GET as Get, { proofId: P });
-  for (const [name, get] of [["export", oneExport.GET], ["bundle", bundle.GET], ["tex", tex.GET], ["archive", archive.GET]] as const) await add(name, get as Get, { proofId: P, exportId: String(exportId) });
+  for (const [name, get] of [
+    ["export", oneExport.GET],
+    ["bundle", bundle.GET],
+    ["tex", tex.GET],
+    ["archive", archive.GET],
+  ] as const)
+    await add(name, get as Get, { proofId: P, exportId: String(exportId) });
   for (const [key, stepId] of Object.entries(fx.steps)) {
     const s = { proofId: P, stepId: String(stepId) };
     await add(`step ${key}`, step.GET as Get, s);
@@ -156,11 +194,17 @@ async function authorSurfaces(viewerId: number): Promise<Array<[string, string]>
 /** The messages in the mail fake to this address about this proof. */
 function mailsAbout(to: string): Array<[string, string]> {
   const file = process.env.CAIRN_MAIL_STORE!;
-  const all = existsSync(file) ? readFileSync(file, "utf8").split("\n").filter(Boolean).map((l) => JSON.parse(l) as { to: string[]; subject: string; text: string }) : [];
+  const all = existsSync(file)
+    ? readFileSync(file, "utf8")
+        .split("\n")
+        .filter(Boolean)
+        .map((l) => JSON.parse(l) as { to: string[]; subject: string; text: string })
+    : [];
   return all.filter((m) => m.to.includes(to) && (m.subject + m.text).includes(title)).map((m) => [`mail “${m.subject}”`, `${m.subject}\n${m.text}`]);
 }
 
-const ID_KEYS = /^(userId|reviewerId|refereeId|authorId|actorId|memberId|editorId|createdBy|invitedBy|usedBy|removedBy|revokedBy|withdrawnBy|checkedBy|subjectId)$/;
+const ID_KEYS =
+  /^(userId|reviewerId|refereeId|authorId|actorId|memberId|editorId|createdBy|invitedBy|usedBy|removedBy|revokedBy|withdrawnBy|checkedBy|subjectId)$/;
 
 /** Id fields in JSON whose value is a referee's user id (a subjectId counts when its subject is a member). */
 function idLeaks(text: string, ids: number[]): string[] {

@@ -41,7 +41,11 @@ describe("a step under a deleted parent case", () => {
   const step = () => params({ proofId: String(fx.proofId), stepId: String(fx.steps["2.1.1"]) });
   const counts = async () => {
     const { Review, Comment, DisputeTransition } = models();
-    return [await Review.count({ where: { stepId: fx.steps["2.1.1"] } }), await Comment.count({ where: { stepId: fx.steps["2.1.1"] } }), await DisputeTransition.count({ where: { reviewId: disputeId } })];
+    return [
+      await Review.count({ where: { stepId: fx.steps["2.1.1"] } }),
+      await Comment.count({ where: { stepId: fx.steps["2.1.1"] } }),
+      await DisputeTransition.count({ where: { reviewId: disputeId } }),
+    ];
   };
 
   it("is not found on GET", async () => {
@@ -55,7 +59,10 @@ describe("a step under a deleted parent case", () => {
     expect((await reviewsRoute.POST(jsonRequest("/x", "POST", { revisionId, verdict: "vouch" }), step())).status).toBe(404);
     expect((await commentsRoute.POST(jsonRequest("/x", "POST", { body: "Still here?" }), step())).status).toBe(404);
     await actAs("author");
-    const moved = await disputeRoute.POST(jsonRequest("/x", "POST", { to: "answered", comment: "Answered." }), params({ proofId: String(fx.proofId), reviewId: String(disputeId) }));
+    const moved = await disputeRoute.POST(
+      jsonRequest("/x", "POST", { to: "answered", comment: "Answered." }),
+      params({ proofId: String(fx.proofId), reviewId: String(disputeId) }),
+    );
     expect(moved.status).toBe(404);
     expect(await counts()).toEqual(before);
   });

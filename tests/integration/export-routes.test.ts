@@ -47,11 +47,29 @@ beforeAll(async () => {
   const c = await Case.create({ proofId, parentId: null, position: 1, title: "The only case", condition: "$G = E_8$" });
   const step = await Step.create({ caseId: c.id, position: 1 });
   stepId = step.id;
-  const rev = await StepRevision.create({ stepId, number: 1, body: String.raw`Step text \immediate\write18{rm -rf /} with $\rho(E_8) < 2$.`, authorId: author });
+  const rev = await StepRevision.create({
+    stepId,
+    number: 1,
+    body: String.raw`Step text \immediate\write18{rm -rf /} with $\rho(E_8) < 2$.`,
+    authorId: author,
+  });
   revisionId = rev.id;
   const v = verifiedClaim({ kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" });
-  const claim = await Claim.create({ stepId, position: 1, kind: v.kind, input: v.input, digest: v.digest, status: v.status, statement: v.statement, method: v.method,
-    reason: v.reason, certificate: v.certificate, checkerVersion: v.checkerVersion, checkedAt: new Date(), createdBy: author });
+  const claim = await Claim.create({
+    stepId,
+    position: 1,
+    kind: v.kind,
+    input: v.input,
+    digest: v.digest,
+    status: v.status,
+    statement: v.statement,
+    method: v.method,
+    reason: v.reason,
+    certificate: v.certificate,
+    checkerVersion: v.checkerVersion,
+    checkedAt: new Date(),
+    createdBy: author,
+  });
   // The revision covers the claim (as attaching it through the API would record), and the vouch that revision's digest.
   const covered = [{ id: claim.id, position: 1, kind: claim.kind, statement: claim.statement, digest: claim.digest!, status: claim.status }];
   const digest = digestOfRevision(rev.number, rev.body, covered);
@@ -167,7 +185,9 @@ describe("POST /api/proofs/:proofId/exports", () => {
       expect(tex).toContain(String.raw`\fancyhead[R]{\small \textbf{DRAFT --- not certified}}`);
       const bundle = await (await file(bundleRoute, proofId, made.id)).json();
       expect(bundle.export).toMatchObject({ kind: "draft", proofState: "in progress" });
-      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(expect.objectContaining({ verdict: "dispute", disputeState: "raised" }));
+      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(
+        expect.objectContaining({ verdict: "dispute", disputeState: "raised" }),
+      );
     } finally {
       await dispute.destroy();
     }
@@ -261,7 +281,11 @@ describe("export files", () => {
     expect(res.headers.get("content-disposition")).toContain(`cairn-proof-${proofId}-export-${made.id}-${made.kind}.zip`);
     const files = unzipSync(new Uint8Array(await res.arrayBuffer()));
     const folder = `cairn-export-${made.id}`;
-    expect(Object.keys(files).filter((k) => !k.endsWith("/")).sort()).toEqual(["README.txt", "bundle.json", "cairn-check.mjs", "proof.pdf", "proof.tex"].map((f) => `${folder}/${f}`));
+    expect(
+      Object.keys(files)
+        .filter((k) => !k.endsWith("/"))
+        .sort(),
+    ).toEqual(["README.txt", "bundle.json", "cairn-check.mjs", "proof.pdf", "proof.tex"].map((f) => `${folder}/${f}`));
     expect(strFromU8(files[`${folder}/bundle.json`])).toBe(made.bundle);
     expect(strFromU8(files[`${folder}/proof.pdf`].subarray(0, 5))).toBe("%PDF-");
     const readme = strFromU8(files[`${folder}/README.txt`]);

@@ -32,22 +32,35 @@ afterAll(async () => {
   await closeSequelize();
 });
 
-const invite = (proofId: number, body: unknown) => invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
-const listInvitations = (proofId: number) => invitations.GET(new Request(`http://localhost/api/proofs/${proofId}/invitations`), params({ proofId: String(proofId) }));
+const invite = (proofId: number, body: unknown) =>
+  invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
+const listInvitations = (proofId: number) =>
+  invitations.GET(new Request(`http://localhost/api/proofs/${proofId}/invitations`), params({ proofId: String(proofId) }));
 const tokenFrom = (text: string) => /\/invitations\/([A-Za-z0-9_-]+)/.exec(text)![1];
 const acceptAs = (token: string, body: unknown = {}) => accept.POST(jsonRequest(`/api/invitations/${token}`, "POST", body), params({ token }));
 const remove = (proofId: number, userId: number | string) =>
-  members.DELETE(new Request(`http://localhost/api/proofs/${proofId}/members/${userId}`, { method: "DELETE" }), params({ proofId: String(proofId), userId: String(userId) }));
+  members.DELETE(
+    new Request(`http://localhost/api/proofs/${proofId}/members/${userId}`, { method: "DELETE" }),
+    params({ proofId: String(proofId), userId: String(userId) }),
+  );
 const handOver = (proofId: number, body: unknown) => owner.PUT(jsonRequest(`/api/proofs/${proofId}/owner`, "PUT", body), params({ proofId: String(proofId) }));
 const events = async (proofId: number, action: string) => (await listProofEvents(proofId)).filter((e) => e.action === action);
 
 async function actAsUser(id: number) {
   const u = (await models().User.findByPk(id))!;
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({
+    user: { id: String(u.id), name: u.name, email: u.email, role: "member", sessionVersion: u.sessionVersion },
+    expires: "2999-01-01",
+  });
 }
 
 async function newPerson(name: string): Promise<number> {
-  const u = await models().User.create({ email: `${name.toLowerCase().replace(/\W+/g, ".")}.${stamp}@moorfield.example`, name, passwordHash: null, role: "member" });
+  const u = await models().User.create({
+    email: `${name.toLowerCase().replace(/\W+/g, ".")}.${stamp}@moorfield.example`,
+    name,
+    passwordHash: null,
+    role: "member",
+  });
   return u.id;
 }
 
@@ -128,7 +141,8 @@ describe("inviting co-authors and editors", () => {
     await actAs("editor");
     const email = `late.editor.${stamp}@moorfield.example`;
     const { id } = await (await invite(fx.proofId, { email, scope: "proof", role: "editor" })).json();
-    const revoke = () => oneInvitation.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
+    const revoke = () =>
+      oneInvitation.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
     await actAs("coauthor");
     expect((await revoke()).status).toBe(403);
     await actAs("editor");
@@ -181,8 +195,20 @@ describe("removing members", () => {
   it("keeps a removed referee's vouch and dispute in the record, attributed, and logs the removal", async () => {
     const own = await makeProof("removal");
     const { Review } = models();
-    const vouch = await Review.create({ stepId: own.steps["1.1"], revisionId: (await latestRevision(own.steps["1.1"])).id, reviewerId: own.ids.reviewer, verdict: "vouch", disputeState: null });
-    const dispute = await Review.create({ stepId: own.steps["2.1"], revisionId: (await latestRevision(own.steps["2.1"])).id, reviewerId: own.ids.reviewer, verdict: "dispute", disputeState: "raised" });
+    const vouch = await Review.create({
+      stepId: own.steps["1.1"],
+      revisionId: (await latestRevision(own.steps["1.1"])).id,
+      reviewerId: own.ids.reviewer,
+      verdict: "vouch",
+      disputeState: null,
+    });
+    const dispute = await Review.create({
+      stepId: own.steps["2.1"],
+      revisionId: (await latestRevision(own.steps["2.1"])).id,
+      reviewerId: own.ids.reviewer,
+      verdict: "dispute",
+      disputeState: "raised",
+    });
     await actAs("editor");
     const res = await remove(own.proofId, own.ids.reviewer);
     expect(res.status).toBe(200);
@@ -255,7 +281,10 @@ describe("handing over ownership", () => {
     const res = await handOver(fx.proofId, { userId: fx.ids.coauthor });
     expect(res.status).toBe(200);
     expect((await models().Proof.findByPk(fx.proofId))!.createdBy).toBe(fx.ids.coauthor);
-    expect((await events(fx.proofId, "member.owner_changed")).at(0)).toMatchObject({ actorName: "Ada Quenby", detail: "ownership handed to Bram Theroux (co-author)" });
+    expect((await events(fx.proofId, "member.owner_changed")).at(0)).toMatchObject({
+      actorName: "Ada Quenby",
+      detail: "ownership handed to Bram Theroux (co-author)",
+    });
     expect((await handOver(fx.proofId, { userId: fx.ids.author })).status).toBe(403);
     // The former owner can now be removed; the new one cannot.
     await actAs("coauthor");

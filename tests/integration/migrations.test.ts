@@ -26,7 +26,9 @@ describe("migrations", () => {
     const migrator = createMigrator(sq);
     await migrator.up();
     const afterUp = await tables();
-    expect(afterUp).toEqual(expect.arrayContaining(["users", "proofs", "proof_members", "cases", "steps", "step_revisions", "claims", "reviews", "comments", "audit_events"]));
+    expect(afterUp).toEqual(
+      expect.arrayContaining(["users", "proofs", "proof_members", "cases", "steps", "step_revisions", "claims", "reviews", "comments", "audit_events"]),
+    );
     const engines = await sq.query<{ e: string; c: string }>(
       "SELECT engine AS e, table_collation AS c FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name NOT LIKE 'sequelize%'",
       { type: QueryTypes.SELECT },

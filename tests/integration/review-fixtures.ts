@@ -31,13 +31,23 @@ export async function makeProof(label = "review test"): Promise<ReviewFixture> {
   };
   const proof = await Proof.create({ title: `${label} ${++counter} ${Date.now()}`, statement: "Every $x$ is fine.", createdBy: ids.author });
   made.push(proof.id);
-  for (const [key, role] of [["author", "author"], ["coauthor", "author"], ["reviewer", "reviewer"], ["editor", "editor"]] as const)
+  for (const [key, role] of [
+    ["author", "author"],
+    ["coauthor", "author"],
+    ["reviewer", "reviewer"],
+    ["editor", "editor"],
+  ] as const)
     await ProofMember.create({ proofId: proof.id, userId: ids[key], role });
   const c1 = await Case.create({ proofId: proof.id, parentId: null, position: 1, title: "Small", condition: "$n \\le 3$" });
   const c2 = await Case.create({ proofId: proof.id, parentId: null, position: 2, title: "Large", condition: "$n > 3$" });
   const c21 = await Case.create({ proofId: proof.id, parentId: c2.id, position: 1, title: "Large and even", condition: "$n$ even" });
   const steps: Record<string, number> = {};
-  for (const [key, caseId, position] of [["1.1", c1.id, 1], ["2.1", c2.id, 1], ["2.2", c2.id, 2], ["2.1.1", c21.id, 1]] as const) {
+  for (const [key, caseId, position] of [
+    ["1.1", c1.id, 1],
+    ["2.1", c2.id, 1],
+    ["2.2", c2.id, 2],
+    ["2.1.1", c21.id, 1],
+  ] as const) {
     const s = await Step.create({ caseId, position });
     await StepRevision.create({ stepId: s.id, number: 1, body: `Step ${key}: since $x^2 \\ge 0$ we are done.`, authorId: ids.author });
     steps[key] = s.id;
@@ -56,7 +66,11 @@ export async function revise(stepId: number, authorId: number, body = "Revised: 
   return models().StepRevision.create({ stepId, number: latest.number + 1, body, authorId });
 }
 
-interface Captured { to: string[]; subject: string; text: string }
+interface Captured {
+  to: string[];
+  subject: string;
+  text: string;
+}
 
 /** Waits until the local mail fake has stored a message to `to` matching `subject`. */
 export async function waitForMail(to: string, subject: RegExp, timeoutMs = 8_000): Promise<Captured> {
@@ -64,7 +78,12 @@ export async function waitForMail(to: string, subject: RegExp, timeoutMs = 8_000
   if (!file) throw new Error("CAIRN_MAIL_STORE is not set: run through npm test, which starts the mail fake");
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const all = existsSync(file) ? readFileSync(file, "utf8").split("\n").filter(Boolean).map((l) => JSON.parse(l) as Captured) : [];
+    const all = existsSync(file)
+      ? readFileSync(file, "utf8")
+          .split("\n")
+          .filter(Boolean)
+          .map((l) => JSON.parse(l) as Captured)
+      : [];
     const hit = all.reverse().find((m) => m.to.includes(to) && subject.test(m.subject));
     if (hit) return hit;
     if (Date.now() > deadline) throw new Error(`no mail to ${to} matching ${subject} reached the mail fake`);
@@ -74,5 +93,11 @@ export async function waitForMail(to: string, subject: RegExp, timeoutMs = 8_000
 
 export const mailsTo = (to: string): Captured[] => {
   const file = process.env.CAIRN_MAIL_STORE!;
-  return existsSync(file) ? readFileSync(file, "utf8").split("\n").filter(Boolean).map((l) => JSON.parse(l) as Captured).filter((m) => m.to.includes(to)) : [];
+  return existsSync(file)
+    ? readFileSync(file, "utf8")
+        .split("\n")
+        .filter(Boolean)
+        .map((l) => JSON.parse(l) as Captured)
+        .filter((m) => m.to.includes(to))
+    : [];
 };

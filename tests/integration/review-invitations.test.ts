@@ -27,7 +27,8 @@ afterAll(async () => {
   await closeSequelize();
 });
 
-const invite = (proofId: number, body: unknown) => invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
+const invite = (proofId: number, body: unknown) =>
+  invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
 const tokenFrom = (text: string) => /\/invitations\/([A-Za-z0-9_-]+)/.exec(text)![1];
 const acceptAs = (token: string, body: unknown = {}) => accept.POST(jsonRequest(`/api/invitations/${token}`, "POST", body), params({ token }));
 
@@ -110,7 +111,10 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     const { User } = models();
     const iris = await User.findOne({ where: { name: "Iris Penhallow" }, order: [["id", "DESC"]] });
     const { getServerSession } = await import("next-auth");
-    vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
+    vi.mocked(getServerSession).mockResolvedValue({
+      user: { id: String(iris!.id), name: iris!.name, email: iris!.email, role: "member", sessionVersion: 1 },
+      expires: "2999-01-01",
+    });
     const stepIn = fx.steps["2.1.1"];
     const stepOut = fx.steps["1.1"];
     const get = (stepId: number) => reviews.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId), stepId: String(stepId) }));
@@ -119,7 +123,8 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     expect(outside.status).toBe(403);
     expect((await outside.json()).error.message).toMatch(/not asked to review/);
 
-    const share = () => scopes.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), userId: String(iris!.id) }));
+    const share = () =>
+      scopes.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), userId: String(iris!.id) }));
     expect((await share()).status).toBe(403); // a reviewer cannot widen their own scope
     await actAs("editor");
     expect((await share()).status).toBe(200);
@@ -146,7 +151,8 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     expect(created.status).toBe(201);
     const { id } = await created.json();
     const token = tokenFrom((await waitForMail(email, /invites you/)).text);
-    const revoke = () => invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
+    const revoke = () =>
+      invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
     // Only an editor or the proof's owner may revoke.
     await actAs("reviewer");
     expect((await revoke()).status).toBe(403);
@@ -155,7 +161,10 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     expect((await revoke()).status).toBe(409); // already revoked
     const listed = await (await invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }))).json();
     expect(listed.invitations.find((i: { id: number }) => i.id === id)).toMatchObject({ state: "revoked" });
-    expect((await invitationRetry.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: String(fx.proofId), invitationId: String(id) }))).status).toBe(409);
+    expect(
+      (await invitationRetry.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: String(fx.proofId), invitationId: String(id) })))
+        .status,
+    ).toBe(409);
     await actAs(null);
     expect((await (await accept.GET(new Request("http://localhost/x"), params({ token }))).json()).invitation).toMatchObject({ state: "revoked" });
     const res = await acceptAs(token, { name: "Wrong Person", password: "a long enough password" });
@@ -173,7 +182,10 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     await actAs(null);
     expect((await acceptAs(token, { name: "Joined Reviewer", password: "a long enough password" })).status).toBe(200);
     await actAs("editor");
-    const res = await invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
+    const res = await invitationRetry.DELETE(
+      new Request("http://localhost/x", { method: "DELETE" }),
+      params({ proofId: String(fx.proofId), invitationId: String(id) }),
+    );
     expect(res.status).toBe(409);
     expect((await res.json()).error.message).toMatch(/already accepted/);
   });
@@ -223,7 +235,8 @@ describe("GET invitations and DELETE a reviewer's case limits", () => {
   });
 
   it("DELETE settings/scopes/[userId]: 401, 404 for someone who is not a reviewer", async () => {
-    const share = (userId: number) => scopes.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), userId: String(userId) }));
+    const share = (userId: number) =>
+      scopes.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), userId: String(userId) }));
     await actAs(null);
     expect((await share(fx.ids.reviewer)).status).toBe(401);
     await actAs("editor");
@@ -250,7 +263,8 @@ describe("when the mail server is down", () => {
     expect(row.mail).toMatchObject({ status: "pending", attempts: 1 });
     expect(row.mail.lastError).toBeTruthy();
 
-    const retry = (proofId: number, id: number) => invitationRetry.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: String(proofId), invitationId: String(id) }));
+    const retry = (proofId: number, id: number) =>
+      invitationRetry.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: String(proofId), invitationId: String(id) }));
     await actAs("author"); // the proof's owner may retry too
     expect((await retry(fx.proofId, row.id)).status).toBe(200);
     await actAs("reviewer");

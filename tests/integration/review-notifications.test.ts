@@ -27,7 +27,10 @@ afterAll(async () => {
 const dispute = async (stepKey: string, comment: string) => {
   await actAs("reviewer");
   const rev = await latestRevision(fx.steps[stepKey]);
-  return reviews.POST(jsonRequest("/x", "POST", { revisionId: rev.id, verdict: "dispute", comment }), params({ proofId: String(fx.proofId), stepId: String(fx.steps[stepKey]) }));
+  return reviews.POST(
+    jsonRequest("/x", "POST", { revisionId: rev.id, verdict: "dispute", comment }),
+    params({ proofId: String(fx.proofId), stepId: String(fx.steps[stepKey]) }),
+  );
 };
 
 describe("notifications", () => {
@@ -95,8 +98,13 @@ describe("settings and the audit trail", () => {
   it("keeps the events of a proof, newest first, with the actor's name", async () => {
     const events = await listProofEvents(fx.proofId);
     expect(events[0]).toMatchObject({
-      action: "review.disputed", actorName: "Celia Marwood", subjectType: "step", subjectId: fx.steps["2.1"], subjectLabel: "step 2:1 (case 2, “Large”)",
-      sentence: "Celia Marwood raised a dispute on step 2:1 (case 2, “Large”) at revision 1.", href: `/proofs/${fx.proofId}/steps/${fx.steps["2.1"]}`,
+      action: "review.disputed",
+      actorName: "Celia Marwood",
+      subjectType: "step",
+      subjectId: fx.steps["2.1"],
+      subjectLabel: "step 2:1 (case 2, “Large”)",
+      sentence: "Celia Marwood raised a dispute on step 2:1 (case 2, “Large”) at revision 1.",
+      href: `/proofs/${fx.proofId}/steps/${fx.steps["2.1"]}`,
     });
     expect(events.map((e) => e.action).filter((a) => a === "review.disputed")).toHaveLength(2);
   });

@@ -28,7 +28,8 @@ afterAll(async () => {
 const p = (proofId: number, stepId?: number) => params({ proofId: String(proofId), stepId: String(stepId ?? "") });
 const verdict = (proofId: number, stepId: number, body: unknown) => reviews.POST(jsonRequest("/x", "POST", body), p(proofId, stepId));
 const panel = async (proofId: number, stepId: number) => (await (await reviews.GET(new Request("http://localhost/x"), p(proofId, stepId))).json()).review;
-const move = (proofId: number, reviewId: number, body: unknown) => dispute.POST(jsonRequest("/x", "POST", body), params({ proofId: String(proofId), reviewId: String(reviewId) }));
+const move = (proofId: number, reviewId: number, body: unknown) =>
+  dispute.POST(jsonRequest("/x", "POST", body), params({ proofId: String(proofId), reviewId: String(reviewId) }));
 const comment = (proofId: number, stepId: number, body: unknown) => comments.POST(jsonRequest("/x", "POST", body), p(proofId, stepId));
 const reviewCount = () => models().Review.count();
 
@@ -132,7 +133,8 @@ describe("a dispute from open to closed", () => {
     expect(view.status.openDisputes).toBe(1);
     expect(view.can).toMatchObject({ verdict: true, ownDisputeOpen: true });
     const { Notification } = models();
-    for (const id of [fx.ids.author, fx.ids.coauthor]) expect(await Notification.count({ where: { userId: id, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(1);
+    for (const id of [fx.ids.author, fx.ids.coauthor])
+      expect(await Notification.count({ where: { userId: id, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(1);
     expect(await Notification.count({ where: { userId: fx.ids.reviewer, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(0);
     const mail = await waitForMail("ada.quenby@tarnhollow.example", /A new dispute on your step/);
     expect(mail.text).toContain(`/queue/${fx.proofId}/${fx.steps[stepKey]}`);
@@ -200,11 +202,19 @@ describe("a dispute from open to closed", () => {
 
   it("records every transition with who and when, and an append-only audit trail", async () => {
     const transitions = await models().DisputeTransition.findAll({ where: { reviewId: disputeId }, order: [["id", "ASC"]] });
-    expect(transitions.map((t) => `${t.fromState ?? "∅"}→${t.toState}`)).toEqual(["∅→raised", "raised→answered", "answered→upheld", "upheld→answered", "answered→withdrawn"]);
+    expect(transitions.map((t) => `${t.fromState ?? "∅"}→${t.toState}`)).toEqual([
+      "∅→raised",
+      "raised→answered",
+      "answered→upheld",
+      "upheld→answered",
+      "answered→withdrawn",
+    ]);
     expect(transitions.map((t) => t.actorId)).toEqual([fx.ids.reviewer, fx.ids.author, fx.ids.reviewer, fx.ids.author, fx.ids.editor]);
     expect(transitions.every((t) => t.createdAt instanceof Date)).toBe(true);
     const actions = (await models().AuditEvent.findAll({ where: { proofId: fx.proofId }, order: [["id", "ASC"]] })).map((e) => e.action);
-    expect(actions).toEqual(expect.arrayContaining(["review.vouched", "review.disputed", "dispute.answered", "dispute.upheld", "dispute.withdrawn", "comment.added"]));
+    expect(actions).toEqual(
+      expect.arrayContaining(["review.vouched", "review.disputed", "dispute.answered", "dispute.upheld", "dispute.withdrawn", "comment.added"]),
+    );
     await actAs("reviewer");
     const view = await panel(fx.proofId, fx.steps[stepKey]);
     expect(view.disputes[0].transitions).toHaveLength(5);
@@ -286,7 +296,13 @@ describe("readiness roll-up", () => {
     await actAs("admin");
     expect((await verdict(fx.proofId, fx.steps["2.2"], { revisionId: (await latestRevision(fx.steps["2.2"])).id, verdict: "vouch" })).status).toBe(201);
     expect((await getReadiness(fx.proofId)).state).toBe("ready to certify");
-    const claim = await models().Claim.create({ stepId: fx.steps["1.1"], kind: "spectral-radius-bound", input: "{}", status: "refuted", createdBy: fx.ids.author } as never);
+    const claim = await models().Claim.create({
+      stepId: fx.steps["1.1"],
+      kind: "spectral-radius-bound",
+      input: "{}",
+      status: "refuted",
+      createdBy: fx.ids.author,
+    } as never);
     const r = await getReadiness(fx.proofId);
     expect(r.cases.find((c) => c.number === "1")!.state).toBe("claim failing");
     expect(r.state).toBe("in progress");

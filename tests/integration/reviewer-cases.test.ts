@@ -22,7 +22,8 @@ afterAll(async () => {
   await closeSequelize();
 });
 
-const put = (userId: number, body: unknown, proofId = fx.proofId) => scopes.PUT(jsonRequest("/x", "PUT", body), params({ proofId: String(proofId), userId: String(userId) }));
+const put = (userId: number, body: unknown, proofId = fx.proofId) =>
+  scopes.PUT(jsonRequest("/x", "PUT", body), params({ proofId: String(proofId), userId: String(userId) }));
 
 describe("PUT /api/proofs/[proofId]/settings/scopes/[userId]", () => {
   it("refuses anonymous (401), authors other than the owner and referees (403), a non-referee or missing proof (404), bad lists (422)", async () => {

@@ -43,7 +43,10 @@ const NOTE_CELIA = `Between us: the bound in case 2 looks borrowed ${stamp}.`;
 const NOTE_GALE = `Editor only: I know the authors ${stamp}.`;
 
 async function actAsGale() {
-  vi.mocked(getServerSession).mockResolvedValue({ user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member", sessionVersion: 1 }, expires: "2999-01-01" });
+  vi.mocked(getServerSession).mockResolvedValue({
+    user: { id: String(galeId), name: GALE.name, email: GALE.email, role: "member", sessionVersion: 1 },
+    expires: "2999-01-01",
+  });
 }
 
 const P = () => String(fx.proofId);
@@ -54,7 +57,8 @@ const saveDraft = (round: string, body: unknown) => report.PUT(jsonRequest("/x",
 const submitDraft = (round: string) => submit.POST(jsonRequest("/x", "POST"), params({ proofId: P(), round }));
 const correct = (round: string) => corrections.POST(jsonRequest("/x", "POST"), params({ proofId: P(), round }));
 const readNote = (round: string, reportId: number) => note.GET(jsonRequest("/x", "GET"), params({ proofId: P(), round, reportId: String(reportId) }));
-const moveDue = (round: string, userId: number, body: unknown) => refereeDue.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId: P(), round, userId: String(userId) }));
+const moveDue = (round: string, userId: number, body: unknown) =>
+  refereeDue.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId: P(), round, userId: String(userId) }));
 const decide = (round: string, body: unknown) => decision.POST(jsonRequest("/x", "POST", body), params({ proofId: P(), round }));
 const setPolicy = (body: unknown) => policy.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId: P() }));
 const readDesk = (proofId = P()) => desk.GET(jsonRequest("/x", "GET"), params({ proofId }));
@@ -168,7 +172,10 @@ describe("reports", () => {
     expect((await saveDraft("1", { body: "The argument of case $2$ is sound; step 2.1 needs the bound stated." })).status).toBe(200);
     expect((await submitDraft("1")).status).toBe(200);
     const mine = (await (await getRound("1")).json()).round.myVersions;
-    expect(mine.map((v: { version: number; state: string }) => [v.version, v.state])).toEqual([[2, "submitted"], [1, "submitted"]]);
+    expect(mine.map((v: { version: number; state: string }) => [v.version, v.state])).toEqual([
+      [2, "submitted"],
+      [1, "submitted"],
+    ]);
     expect(mine[1].body).toBe("The argument of case $2$ is sound, but see step 2.1.");
   });
 
@@ -245,7 +252,13 @@ describe("due dates and the editor's desk", () => {
     expect((await readDesk("999999")).status).toBe(404);
     const rev = await models().StepRevision.findOne({ where: { stepId: fx.steps["2.1"] } });
     const old = new Date(Date.now() - 5 * 86_400_000 - 60_000);
-    const r = await models().Review.create({ stepId: fx.steps["2.1"], revisionId: rev!.id, reviewerId: fx.ids.reviewer, verdict: "dispute", disputeState: "raised" });
+    const r = await models().Review.create({
+      stepId: fx.steps["2.1"],
+      revisionId: rev!.id,
+      reviewerId: fx.ids.reviewer,
+      verdict: "dispute",
+      disputeState: "raised",
+    });
     await models().Review.update({ updatedAt: old, createdAt: old }, { where: { id: r.id }, silent: true });
     const d = (await (await readDesk()).json()).desk;
     expect(d.disputes).toHaveLength(1);
@@ -339,7 +352,8 @@ describe("blind review", () => {
     for (const who of ["author", "coauthor"]) {
       await actAs(who);
       const text = JSON.stringify(await (await listRounds()).json()) + JSON.stringify(await (await getRound("1")).json());
-      for (const secret of [CELIA.name, CELIA.email, GALE.name, GALE.email, `"refereeId":${galeId}`, `"refereeId":${fx.ids.reviewer}`]) expect(text, `${who} sees ${secret}`).not.toContain(secret);
+      for (const secret of [CELIA.name, CELIA.email, GALE.name, GALE.email, `"refereeId":${galeId}`, `"refereeId":${fx.ids.reviewer}`])
+        expect(text, `${who} sees ${secret}`).not.toContain(secret);
       expect(text).toContain("Referee 1");
       expect(text).toContain("Referee 2");
     }
@@ -356,9 +370,23 @@ describe("blind review", () => {
     const rev11 = (await StepRevision.findOne({ where: { stepId: fx.steps["1.1"] } }))!;
     const d = await Review.create({ stepId: fx.steps["2.2"], revisionId: rev22.id, reviewerId: galeId, verdict: "dispute", disputeState: "raised" });
     await DisputeTransition.create({ reviewId: d.id, actorId: galeId, fromState: null, toState: "raised" });
-    await Comment.create({ stepId: fx.steps["2.2"], reviewId: d.id, parentId: null, revisionId: rev22.id, authorId: galeId, body: "Which bound is meant here?" });
+    await Comment.create({
+      stepId: fx.steps["2.2"],
+      reviewId: d.id,
+      parentId: null,
+      revisionId: rev22.id,
+      authorId: galeId,
+      body: "Which bound is meant here?",
+    });
     await Review.create({ stepId: fx.steps["1.1"], revisionId: rev11.id, reviewerId: fx.ids.reviewer, verdict: "vouch", disputeState: null });
-    await AuditEvent.create({ proofId: fx.proofId, actorId: galeId, action: "review.disputed", subjectType: "step", subjectId: fx.steps["2.2"], detail: "dispute opened" });
+    await AuditEvent.create({
+      proofId: fx.proofId,
+      actorId: galeId,
+      action: "review.disputed",
+      subjectType: "step",
+      subjectId: fx.steps["2.2"],
+      detail: "dispute opened",
+    });
 
     const secrets = [CELIA.name, CELIA.email, GALE.name, GALE.email];
     const surfaces = async (who: string) => {
@@ -387,7 +415,10 @@ describe("blind review", () => {
     const ownerInvites = await invitationsRoute.GET(jsonRequest("/x", "GET"), params({ proofId: P() }));
     expect(ownerInvites.status).toBe(200);
     expect((await ownerInvites.json()).invitations.filter((i: { role: string }) => i.role === "reviewer")).toEqual([]);
-    const ownerInvitesReferee = await invitationsRoute.POST(jsonRequest("/x", "POST", { email: "someone@moorfield.example", scope: "proof" }), params({ proofId: P() }));
+    const ownerInvitesReferee = await invitationsRoute.POST(
+      jsonRequest("/x", "POST", { email: "someone@moorfield.example", scope: "proof" }),
+      params({ proofId: P() }),
+    );
     expect(ownerInvitesReferee.status).toBe(403);
     expect((await ownerInvitesReferee.json()).error.message).toMatch(/refereed blind/);
     const snapshot = JSON.stringify(await loadSnapshot(fx.proofId));
@@ -416,7 +447,12 @@ describe("reminders", () => {
     expect(await rows()).toHaveLength(1); // the first reminder committed with its queued mail, the second not yet
     await sendDueReminders(new Date()); // the restart
     await sendDueReminders(new Date()); // and another run: nothing new
-    expect((await rows()).map((r) => [r.userId, r.kind]).sort()).toEqual([[fx.ids.reviewer, "before"], [galeId, "after"]].sort());
+    expect((await rows()).map((r) => [r.userId, r.kind]).sort()).toEqual(
+      [
+        [fx.ids.reviewer, "before"],
+        [galeId, "after"],
+      ].sort(),
+    );
     const overdue = await waitForMail(GALE.email, /Overdue: your report for round 2/);
     expect(overdue.text).toMatch(/was due on \d{4}-\d{2}-\d{2}, 2 days ago/);
     await waitForMail(CELIA.email, /Reminder: your report for round 2/);
@@ -438,7 +474,10 @@ describe("the demo", () => {
     const proofId = String(await demoProofId());
     await actAs("author");
     const seen = (await (await listRounds(proofId)).json()).rounds;
-    expect(seen.map((r: { number: number; state: string }) => [r.number, r.state])).toEqual([[1, "decided"], [2, "open"]]);
+    expect(seen.map((r: { number: number; state: string }) => [r.number, r.state])).toEqual([
+      [1, "decided"],
+      [2, "open"],
+    ]);
     expect(seen[0].decision).toMatchObject({ decision: "minor_revision", editor: "Dov Ashgrove" });
     expect(seen[0].reports).toHaveLength(1);
     expect(seen[0].reports[0]).toMatchObject({ referee: CELIA.name, recommendation: "minor_revision" });

@@ -100,7 +100,13 @@ describe("positions under concurrent writes", () => {
     await actAs("author");
     const { id: stepId } = await addStep(proofId, caseId, "$K_{1,4} \\subseteq T$.");
     // ρ(K_{1,k}) = √k (a star with k leaves), from memory; K_{1,4} has ρ = 2.
-    const claim = (k: number) => ({ format: "cairn-claim/1", kind: "spectral-radius-bound", graph: { format: "named", text: `star(${k})` }, op: "<=", bound: `sqrt(${k})` });
+    const claim = (k: number) => ({
+      format: "cairn-claim/1",
+      kind: "spectral-radius-bound",
+      graph: { format: "named", text: `star(${k})` },
+      op: "<=",
+      bound: `sqrt(${k})`,
+    });
     const results = await Promise.all(
       Array.from({ length: 10 }, (_, i) =>
         claimsRoute.POST(jsonRequest("/x", "POST", { claims: [claim(i + 1), claim(i + 2)] }), params({ proofId, stepId: String(stepId) })),
@@ -120,8 +126,7 @@ describe("two racing saves of one step", () => {
     for (let round = 0; round < 3; round++) {
       const latest = await models().StepRevision.findOne({ where: { stepId: step.id }, order: [["number", "DESC"]] });
       const base = latest!.id;
-      const go = (body: string) =>
-        revisionsRoute.POST(jsonRequest("/x", "POST", { baseRevisionId: base, body }), params({ proofId, stepId: String(step.id) }));
+      const go = (body: string) => revisionsRoute.POST(jsonRequest("/x", "POST", { baseRevisionId: base, body }), params({ proofId, stepId: String(step.id) }));
       const [a, b] = await Promise.all([go(`A${round}`), go(`B${round}`)]);
       expect([a.status, b.status].sort()).toEqual([201, 409]);
       const loser = a.status === 409 ? a : b;

@@ -54,7 +54,10 @@ describe("cross-site requests", () => {
     const headers: Record<string, string>[] = [{ "sec-fetch-site": "cross-site" }, { "sec-fetch-site": "same-site" }, { origin: "null" }];
     for (const h of headers) {
       expect((await createStep({ headers: { ...h, "content-type": "application/json" }, body })).status).toBe(403);
-      const patch = await proofRoute.PATCH(new Request("http://localhost/x", { method: "PATCH", headers: { ...h, "content-type": "application/json" }, body: '{"title":"Taken"}' }), params({ proofId }));
+      const patch = await proofRoute.PATCH(
+        new Request("http://localhost/x", { method: "PATCH", headers: { ...h, "content-type": "application/json" }, body: '{"title":"Taken"}' }),
+        params({ proofId }),
+      );
       expect(patch.status).toBe(403);
       const del = await caseRoute.DELETE(new Request("http://localhost/x", { method: "DELETE", headers: h }), params({ proofId, caseId: String(caseId) }));
       expect(del.status).toBe(403);
@@ -66,7 +69,10 @@ describe("cross-site requests", () => {
     await actAs("author");
     const own = await createStep({ headers: { origin: "http://localhost", "sec-fetch-site": "same-origin", "content-type": "application/json" }, body });
     expect(own.status).toBe(201);
-    const read = await casesRoute.GET(new Request("http://localhost/x", { headers: { origin: "https://elsewhere.example", "sec-fetch-site": "cross-site" } }), params({ proofId }));
+    const read = await casesRoute.GET(
+      new Request("http://localhost/x", { headers: { origin: "https://elsewhere.example", "sec-fetch-site": "cross-site" } }),
+      params({ proofId }),
+    );
     expect(read.status).toBe(200);
   });
 });
@@ -89,7 +95,11 @@ describe("body size", () => {
   it("answers 413 naming the limit when the declared length is over it", async () => {
     await actAs("author");
     const res = await proofRoute.PATCH(
-      new Request("http://localhost/x", { method: "PATCH", headers: { "content-type": "application/json", "content-length": String(BODY_LIMITS.text + 1) }, body: '{"title":"x"}' }),
+      new Request("http://localhost/x", {
+        method: "PATCH",
+        headers: { "content-type": "application/json", "content-length": String(BODY_LIMITS.text + 1) },
+        body: '{"title":"x"}',
+      }),
       params({ proofId }),
     );
     expect(res.status).toBe(413);

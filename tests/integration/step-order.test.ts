@@ -26,9 +26,11 @@ afterAll(async () => {
   await closeSequelize();
 });
 
-const move = (stepId: number, body: unknown, proof = proofId) => stepRoute.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId: proof, stepId: String(stepId) }));
+const move = (stepId: number, body: unknown, proof = proofId) =>
+  stepRoute.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId: proof, stepId: String(stepId) }));
 const order = async () => (await getCaseTree(Number(proofId))).find((c) => c.id === caseId)!.steps.map((s) => s.id);
-const label = async (stepId: number) => (await (await stepRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId: String(stepId) }))).json()).step.number;
+const label = async (stepId: number) =>
+  (await (await stepRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId: String(stepId) }))).json()).step.number;
 
 describe("PATCH /api/proofs/[proofId]/steps/[stepId]", () => {
   it("moves a step up and down within its case; the labels follow; the ends do not move", async () => {
@@ -44,7 +46,11 @@ describe("PATCH /api/proofs/[proofId]/steps/[stepId]", () => {
     expect((await move(s1, { move: "down" })).status).toBe(200);
     expect(await order()).toEqual([s3, s1, s2]);
     const positions = (await models().Step.findAll({ where: { caseId }, order: [["position", "ASC"]] })).map((s) => [s.id, s.position]);
-    expect(positions).toEqual([[s3, 1], [s1, 2], [s2, 3]]);
+    expect(positions).toEqual([
+      [s3, 1],
+      [s1, 2],
+      [s2, 3],
+    ]);
     expect(await models().AuditEvent.count({ where: { action: "step.moved", subjectId: [s1, s3] } })).toBe(2);
   });
 

@@ -25,7 +25,15 @@ let proofId: string;
 let stepId: string;
 let localDir: string;
 let fake: S3Fake;
-const STORAGE_KEYS = ["CAIRN_STORAGE", "CAIRN_STORAGE_DIR", "CAIRN_S3_BUCKET", "CAIRN_S3_ENDPOINT", "CAIRN_S3_PATH_STYLE", "CAIRN_S3_ACCESS_KEY_ID", "CAIRN_S3_SECRET_ACCESS_KEY"];
+const STORAGE_KEYS = [
+  "CAIRN_STORAGE",
+  "CAIRN_STORAGE_DIR",
+  "CAIRN_S3_BUCKET",
+  "CAIRN_S3_ENDPOINT",
+  "CAIRN_S3_PATH_STYLE",
+  "CAIRN_S3_ACCESS_KEY_ID",
+  "CAIRN_S3_SECRET_ACCESS_KEY",
+];
 const saved = Object.fromEntries(STORAGE_KEYS.map((k) => [k, process.env[k]]));
 
 beforeAll(async () => {
@@ -36,8 +44,9 @@ beforeAll(async () => {
   stepId = String((await addStep(proofId, caseId, "A computer search over all trees on 10 vertices.")).id);
 });
 afterAll(async () => {
-  for (const k of STORAGE_KEYS) if (saved[k] === undefined) delete process.env[k];
-  else process.env[k] = saved[k];
+  for (const k of STORAGE_KEYS)
+    if (saved[k] === undefined) delete process.env[k];
+    else process.env[k] = saved[k];
   await dropProofs([proofId]);
   await fake?.stop();
   await rm(localDir, { recursive: true, force: true });
@@ -46,7 +55,15 @@ afterAll(async () => {
 
 const bytes = (s: string) => new TextEncoder().encode(s);
 const upload = (body: BodyInit, query = "name=list.g6", step = stepId) =>
-  filesRoute.POST(new Request(`http://localhost/x?${query}`, { method: "POST", body, headers: { "content-type": "application/octet-stream" }, duplex: "half" } as RequestInit), params({ proofId, stepId: step }));
+  filesRoute.POST(
+    new Request(`http://localhost/x?${query}`, {
+      method: "POST",
+      body,
+      headers: { "content-type": "application/octet-stream" },
+      duplex: "half",
+    } as RequestInit),
+    params({ proofId, stepId: step }),
+  );
 const list = () => filesRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }));
 const download = (fileId: number) => fileRoute.GET(new Request("http://localhost/x"), params({ proofId, fileId: String(fileId) }));
 const rows = () => models().StepFile.count({ where: { stepId: Number(stepId) } });
@@ -85,7 +102,14 @@ describe.each(["local", "s3"])("uploads with the %s store", (driver) => {
     const res = await upload(bytes(text), "name=search/out.g6&kind=graph-list");
     expect(res.status).toBe(201);
     const { file } = await res.json();
-    expect(file).toMatchObject({ kind: "graph-list", graphFormat: "graph6", graphCount: driver === "s3" ? 6 : 3, name: "out.g6", sha256: sha256Hex(bytes(text)), size: text.length });
+    expect(file).toMatchObject({
+      kind: "graph-list",
+      graphFormat: "graph6",
+      graphCount: driver === "s3" ? 6 : 3,
+      name: "out.g6",
+      sha256: sha256Hex(bytes(text)),
+      size: text.length,
+    });
     await actAs("reviewer");
     const listed = (await (await list()).json()).files.map((f: { id: number }) => f.id);
     expect(listed).toContain(file.id);

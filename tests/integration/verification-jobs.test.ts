@@ -142,7 +142,24 @@ describe("Redis stopped", () => {
   let dir: string;
   let port: number;
   const redisUp = () => {
-    execFileSync("redis-server", ["--port", String(port), "--bind", "127.0.0.1", "--dir", dir, "--pidfile", path.join(dir, "redis.pid"), "--appendonly", "yes", "--save", "", "--daemonize", "yes", "--logfile", path.join(dir, "redis.log")]);
+    execFileSync("redis-server", [
+      "--port",
+      String(port),
+      "--bind",
+      "127.0.0.1",
+      "--dir",
+      dir,
+      "--pidfile",
+      path.join(dir, "redis.pid"),
+      "--appendonly",
+      "yes",
+      "--save",
+      "",
+      "--daemonize",
+      "yes",
+      "--logfile",
+      path.join(dir, "redis.log"),
+    ]);
   };
   const redisDown = () => execFileSync("redis-cli", ["-p", String(port), "shutdown"]);
   afterAll(() => {
@@ -179,7 +196,10 @@ describe("Redis stopped", () => {
     expect(Date.now() - t0).toBeLessThan(5_000);
     expect(during.status).toBe(202);
     const id = during.claims[0].id;
-    expect(await verificationService()).toMatchObject({ paused: true, message: expect.stringMatching(/Verification is paused: the job queue cannot be reached/) });
+    expect(await verificationService()).toMatchObject({
+      paused: true,
+      message: expect.stringMatching(/Verification is paused: the job queue cannot be reached/),
+    });
     const listed = await stepClaims();
     expect(listed.verification).toMatchObject({ paused: true });
     await new Promise((r) => setTimeout(r, 3_000));

@@ -74,14 +74,19 @@ describe("a vouch covers the text and the claims of one revision", () => {
     expect(compared.words).toEqual({ removed: [], added: [], counts: { removed: 0, added: 0 } });
     expect(compared.to.body).toBe(r1.body);
     const [notice] = await inbox(fx.ids.reviewer);
-    expect(notice.message).toMatch(/^Your vouch for step 1:1 \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/);
+    expect(notice.message).toMatch(
+      /^Your vouch for step 1:1 \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/,
+    );
     expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);
 
     const stale = await vouch(stepId, { revisionId: r1.id });
     expect(stale.status).toBe(409);
     const body = await stale.json();
     expect(body.error.message).toMatch(/Revision 1 is no longer the latest: revision 2 is, and since revision 1 claim #\d+ \(ρ\(G\) < 2\) attached/);
-    expect(body.error).toMatchObject({ latestRevisionNumber: 2, changed: { text: false, claimsAdded: [{ id: claimId }], claimsWithdrawn: [], claimsRedecided: [] } });
+    expect(body.error).toMatchObject({
+      latestRevisionNumber: 2,
+      changed: { text: false, claimsAdded: [{ id: claimId }], claimsWithdrawn: [], claimsRedecided: [] },
+    });
 
     const again = await vouch(stepId, { revisionId: r2.id, digest: r2.digest });
     expect(again.status).toBe(201);
@@ -128,7 +133,10 @@ describe("a vouch covers the text and the claims of one revision", () => {
     expect((await latestRevision(stepId)).number).toBe(redecided.number);
 
     await actAs("author");
-    expect((await claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), claimId: String(second) }))).status).toBe(200);
+    expect(
+      (await claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), claimId: String(second) })))
+        .status,
+    ).toBe(200);
     latest = await latestRevision(stepId);
     expect(latest.number).toBe(redecided.number + 1);
     expect(parseClaimSet(latest.claimSet).map((c) => c.id)).not.toContain(second);

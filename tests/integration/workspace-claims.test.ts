@@ -48,7 +48,12 @@ describe("POST .../steps/[stepId]/claims", () => {
     for (const c of claims) await verificationSettled(c.id);
     await actAs("reviewer");
     const bound = await getClaim(claims[0].id);
-    expect(bound).toMatchObject({ status: "verified", statement: "ρ(G) ≥ sqrt(5)", checkerVersion: expect.stringMatching(/^cairn-check\//), checkedByName: "Ada Quenby" });
+    expect(bound).toMatchObject({
+      status: "verified",
+      statement: "ρ(G) ≥ sqrt(5)",
+      checkerVersion: expect.stringMatching(/^cairn-check\//),
+      checkedByName: "Ada Quenby",
+    });
     expect(bound.certificate.summary).toMatch(/supports “verified”/);
     expect(bound.digest).toMatch(/^[0-9a-f]{64}$/);
     // The picture: 6 vertices laid out, the float spectrum of K_{1,5} is ±√5 and 0 (display only).
@@ -109,10 +114,7 @@ describe("POST .../steps/[stepId]/claims", () => {
     expect((await badKind.json()).error.issues[0].path).toBe("claims.0.kind");
     expect((await attach([])).status).toBe(422);
     // Two unreadable claims, one whose graph text is cut short and one with a misspelt field: both are named at once.
-    const both = await attach([
-      claim({ kind: "spectral-radius-bound", graph: named("A(5"), op: "<", bound: "2" }),
-      { ...starInTree, indcued: true },
-    ]);
+    const both = await attach([claim({ kind: "spectral-radius-bound", graph: named("A(5"), op: "<", bound: "2" }), { ...starInTree, indcued: true }]);
     expect(both.status).toBe(422);
     const paths = (await both.json()).error.issues.map((i: { path: string }) => i.path);
     expect(paths).toHaveLength(2);
@@ -205,7 +207,12 @@ describe("the worker pool", () => {
     const timer = setInterval(() => ticks++, 10);
     const started = Date.now();
     // det(xI − A) of K_150 takes about a second of exact arithmetic.
-    const answer = await runInPool({ mode: "verify", claim: claim({ kind: "characteristic-polynomial", graph: named("complete(150)") }), stepLimit: 200_000_000, picture: false });
+    const answer = await runInPool({
+      mode: "verify",
+      claim: claim({ kind: "characteristic-polynomial", graph: named("complete(150)") }),
+      stepLimit: 200_000_000,
+      picture: false,
+    });
     clearInterval(timer);
     const elapsed = Date.now() - started;
     expect(answer.ok && answer.outcome?.status).toBe("verified");
@@ -214,7 +221,12 @@ describe("the worker pool", () => {
   });
 
   it("turns an exhausted budget into undecided with the reason", async () => {
-    const answer = await runInPool({ mode: "verify", claim: claim({ kind: "structure", graph: named("path(100000)"), predicate: "tree" }), stepLimit: 50, picture: false });
+    const answer = await runInPool({
+      mode: "verify",
+      claim: claim({ kind: "structure", graph: named("path(100000)"), predicate: "tree" }),
+      stepLimit: 50,
+      picture: false,
+    });
     expect(answer.ok).toBe(true);
     if (!answer.ok) return;
     expect(answer.outcome).toMatchObject({ status: "undecided", reason: expect.stringMatching(/budget exceeded/) });

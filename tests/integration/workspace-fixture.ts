@@ -7,7 +7,10 @@ import * as stepsRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/steps/rou
 
 export async function draftProof(title: string): Promise<string> {
   await actAs("author");
-  const res = await proofsRoute.POST(jsonRequest("/api/proofs", "POST", { title, statement: "Every tree $T$ with $\\rho(T) \\le 2$ is a Dynkin diagram." }), params({}));
+  const res = await proofsRoute.POST(
+    jsonRequest("/api/proofs", "POST", { title, statement: "Every tree $T$ with $\\rho(T) \\le 2$ is a Dynkin diagram." }),
+    params({}),
+  );
   if (res.status !== 201) throw new Error(`draftProof: ${res.status} ${await res.text()}`);
   const id = (await res.json()).proof.id as number;
   await models().ProofMember.create({ proofId: id, userId: await userIdOf("reviewer"), role: "reviewer" });
@@ -16,7 +19,10 @@ export async function draftProof(title: string): Promise<string> {
 
 export async function addCase(proofId: string, title: string, parentId?: number): Promise<number> {
   await actAs("author");
-  const res = await casesRoute.POST(jsonRequest(`/api/proofs/${proofId}/cases`, "POST", { title, condition: "$\\Delta(T) \\ge 4$", parentId }), params({ proofId }));
+  const res = await casesRoute.POST(
+    jsonRequest(`/api/proofs/${proofId}/cases`, "POST", { title, condition: "$\\Delta(T) \\ge 4$", parentId }),
+    params({ proofId }),
+  );
   if (res.status !== 201) throw new Error(`addCase: ${res.status} ${await res.text()}`);
   return (await res.json()).case.id;
 }

@@ -29,7 +29,10 @@ const tree = async () => {
   await actAs("reviewer");
   const res = await casesRoute.GET(new Request(`http://localhost/api/proofs/${proofId}/cases`), params({ proofId }));
   expect(res.status).toBe(200);
-  return res.json() as Promise<{ cases: Array<{ id: number; number: string; title: string; state: string; children: Array<{ id: number; number: string; title: string }> }>; counts: Record<string, number> }>;
+  return res.json() as Promise<{
+    cases: Array<{ id: number; number: string; title: string; state: string; children: Array<{ id: number; number: string; title: string }> }>;
+    counts: Record<string, number>;
+  }>;
 };
 
 describe("POST /api/proofs", () => {
@@ -82,7 +85,10 @@ describe("case tree", () => {
     await addCase(proofId, "Sub-case b", one);
     await addCase(proofId, "All degrees at most 3");
     const { cases, counts } = await tree();
-    expect(cases.map((c) => [c.number, c.title])).toEqual([["1", "A vertex of degree at least 4"], ["2", "All degrees at most 3"]]);
+    expect(cases.map((c) => [c.number, c.title])).toEqual([
+      ["1", "A vertex of degree at least 4"],
+      ["2", "All degrees at most 3"],
+    ]);
     expect(cases[0].children.map((c) => c.number)).toEqual(["1.1", "1.2"]);
     expect(cases[0].state).toBe("drafting");
     expect(counts.drafting).toBe(4);
@@ -114,7 +120,10 @@ describe("case tree", () => {
     const res = await caseRoute.PATCH(jsonRequest("/x", "PATCH", { move: "down" }), params({ proofId, caseId: String(a.id) }));
     expect(res.status).toBe(200);
     const after = (await tree()).cases[0].children;
-    expect(after.map((c) => [c.id, c.number])).toEqual([[b.id, "1.1"], [a.id, "1.2"]]);
+    expect(after.map((c) => [c.id, c.number])).toEqual([
+      [b.id, "1.1"],
+      [a.id, "1.2"],
+    ]);
   });
 
   it("asks for confirmation before moving or deleting a case with steps, then keeps its history", async () => {

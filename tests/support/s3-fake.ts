@@ -24,7 +24,14 @@ export async function startS3Fake(port: number, bucket = "cairn-test-files"): Pr
     endpoint,
     bucket,
     // s3rver's fixed credentials (its README): access key S3RVER, secret S3RVER.
-    env: { CAIRN_STORAGE: "s3", CAIRN_S3_BUCKET: bucket, CAIRN_S3_ENDPOINT: endpoint, CAIRN_S3_PATH_STYLE: "true", CAIRN_S3_ACCESS_KEY_ID: "S3RVER", CAIRN_S3_SECRET_ACCESS_KEY: "S3RVER" },
+    env: {
+      CAIRN_STORAGE: "s3",
+      CAIRN_S3_BUCKET: bucket,
+      CAIRN_S3_ENDPOINT: endpoint,
+      CAIRN_S3_PATH_STYLE: "true",
+      CAIRN_S3_ACCESS_KEY_ID: "S3RVER",
+      CAIRN_S3_SECRET_ACCESS_KEY: "S3RVER",
+    },
     async stop() {
       await server.close();
       await rm(directory, { recursive: true, force: true });

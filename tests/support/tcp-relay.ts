@@ -10,7 +10,10 @@ export class TcpRelay {
   private readonly open = new Set<net.Socket>();
   port = 0;
 
-  constructor(private readonly host: string, private readonly targetPort: number) {}
+  constructor(
+    private readonly host: string,
+    private readonly targetPort: number,
+  ) {}
 
   /** Listens on `port` (0: any free port) and resolves to the port. */
   start(port = this.port): Promise<number> {

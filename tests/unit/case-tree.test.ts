@@ -43,7 +43,8 @@ describe("casesBelow", () => {
         const got = casesBelow(roots, forest);
         const parentOf = new Map(forest.map((r) => [r.id, r.parentId]));
         for (const r of forest) {
-          let at: number | null = r.id, inside = false;
+          let at: number | null = r.id,
+            inside = false;
           while (at !== null) {
             if (roots.includes(at)) inside = true;
             at = parentOf.get(at) ?? null;

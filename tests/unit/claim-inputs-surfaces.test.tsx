@@ -48,15 +48,26 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   eigenvalues: { claim: { graph: P3, h: 4, multiset: [1, 2, 3] }, shows: ["Bg", "1, 2, 3", "multiset of m"] },
   structure: { claim: { graph: CLAW, predicate: "max-degree", parameter: 3 }, shows: ["Cs", "max-degree", "parameter"] },
   // Connected graphs on ≤ 3 vertices with ρ < 2: P1, P2, P3 (K3 has ρ = 2).
-  enumeration: { claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] }, shows: ["@, A_, Bg", "at most N vertices", "connected simple graphs"] },
+  enumeration: {
+    claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] },
+    shows: ["@, A_, Bg", "at most N vertices", "connected simple graphs"],
+  },
 };
 
 function checked(kind: string, claim: Record<string, unknown>): SnapshotClaim {
   const r = verifyClaim(validateClaim({ format: "cairn-claim/1", kind, ...claim }));
   return {
-    position: 1, kind: r.claim.kind, input: r.canonical, digest: r.digest, status: r.verdict.status, statement: r.verdict.statement,
-    method: r.verdict.method, reason: r.verdict.reason, certificate: r.verdict.certificate === undefined ? null : JSON.stringify(r.verdict.certificate),
-    checkerVersion: r.checkerVersion, checkedAt: "2026-11-30T10:00:00.000Z",
+    position: 1,
+    kind: r.claim.kind,
+    input: r.canonical,
+    digest: r.digest,
+    status: r.verdict.status,
+    statement: r.verdict.statement,
+    method: r.verdict.method,
+    reason: r.verdict.reason,
+    certificate: r.verdict.certificate === undefined ? null : JSON.stringify(r.verdict.certificate),
+    checkerVersion: r.checkerVersion,
+    checkedAt: "2026-11-30T10:00:00.000Z",
   };
 }
 
@@ -64,34 +75,82 @@ function checked(kind: string, claim: Record<string, unknown>): SnapshotClaim {
 function cardView(c: SnapshotClaim, id: number): ClaimView {
   const certificate = c.certificate ? JSON.parse(c.certificate) : null;
   return {
-    id, stepId: 1, position: 1, kind: c.kind, status: c.status, statement: c.statement, method: methodWithoutCertificate(c.method ?? ""),
-    certificateKind: certificateKindOf(c.kind, certificate)?.words ?? null, reason: c.reason, digest: c.digest, input: JSON.parse(c.input),
-    inputs: claimInputsView(c.input, certificate), certificate: c.certificate ? { summary: "certificate", bytes: c.certificate.length, preview: "" } : null,
-    checkerVersion: c.checkerVersion, decidedBy: null, progress: null, checkedByName: "Ada Quenby", checkedAt: c.checkedAt, createdAt: "2026-11-30T10:00:00.000Z", picture: null,
+    id,
+    stepId: 1,
+    position: 1,
+    kind: c.kind,
+    status: c.status,
+    statement: c.statement,
+    method: methodWithoutCertificate(c.method ?? ""),
+    certificateKind: certificateKindOf(c.kind, certificate)?.words ?? null,
+    reason: c.reason,
+    digest: c.digest,
+    input: JSON.parse(c.input),
+    inputs: claimInputsView(c.input, certificate),
+    certificate: c.certificate ? { summary: "certificate", bytes: c.certificate.length, preview: "" } : null,
+    checkerVersion: c.checkerVersion,
+    decidedBy: null,
+    progress: null,
+    checkedByName: "Ada Quenby",
+    checkedAt: c.checkedAt,
+    createdAt: "2026-11-30T10:00:00.000Z",
+    picture: null,
   };
 }
 
 function rowView(c: SnapshotClaim, id: number): ClaimRowView {
   const v = cardView(c, id);
-  return { id, stepId: 1, stepNumber: "1:1", caseNumber: "1", caseTitle: "One case", kind: v.kind, status: v.status, statement: v.statement, method: v.method, certificateKind: v.certificateKind, inputs: v.inputs, checkedAt: v.checkedAt };
+  return {
+    id,
+    stepId: 1,
+    stepNumber: "1:1",
+    caseNumber: "1",
+    caseTitle: "One case",
+    kind: v.kind,
+    status: v.status,
+    statement: v.statement,
+    method: v.method,
+    certificateKind: v.certificateKind,
+    inputs: v.inputs,
+    checkedAt: v.checkedAt,
+  };
 }
 
 function snapshotOf(claims: SnapshotClaim[]): ProofSnapshot {
   return {
-    id: 1, title: "Inputs on every surface", statement: "A statement.", requiredApprovals: 1, members: [{ name: "Ada Quenby", role: "author" }],
-    cases: [{
-      id: 10, number: "1", depth: 0, title: "One case", condition: "Always.", children: [],
-      steps: claims.map((c, i) => ({ id: 100 + i, position: i + 1, revision: null, authorIds: [1], reviews: [], claims: [c] })),
-    }],
+    id: 1,
+    title: "Inputs on every surface",
+    statement: "A statement.",
+    requiredApprovals: 1,
+    members: [{ name: "Ada Quenby", role: "author" }],
+    cases: [
+      {
+        id: 10,
+        number: "1",
+        depth: 0,
+        title: "One case",
+        condition: "Always.",
+        children: [],
+        steps: claims.map((c, i) => ({ id: 100 + i, position: i + 1, revision: null, authorIds: [1], reviews: [], claims: [c] })),
+      },
+    ],
   };
 }
 
-const decode = (html: string) => html.replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/&amp;/g, "&");
+const decode = (html: string) =>
+  html
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/&quot;/g, '"')
+    .replace(/&#x27;/g, "'")
+    .replace(/&amp;/g, "&");
 /** The LaTeX with its break opportunities removed, so a code split across them reads as one string. */
 const flat = (tex: string) => tex.replace(/\\allowbreak\{\}/g, "");
 
 const claims = Object.fromEntries(CLAIM_KINDS.map((k) => [k, checked(k, EXAMPLES[k].claim)])) as Record<ClaimKind, SnapshotClaim>;
-const doc = documentOf(buildBundle(snapshotOf(CLAIM_KINDS.map((k) => claims[k])), { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" }));
+const doc = documentOf(
+  buildBundle(snapshotOf(CLAIM_KINDS.map((k) => claims[k])), { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" }),
+);
 const tex = flat(renderLatex(doc));
 const print = decode(renderToStaticMarkup(<PrintDocument doc={doc} />));
 const table = decode(renderToStaticMarkup(<ClaimsTable proofId={1} claims={CLAIM_KINDS.map((k, i) => rowView(claims[k], i + 1))} />));

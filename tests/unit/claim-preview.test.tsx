@@ -10,7 +10,7 @@ describe("claim preview", () => {
   it("shows order, size, degree sequence, a drawing and the bound in normal form", () => {
     const out = html("E~(8)", "named", "(1+sqrt(5))/2");
     // Ẽ8 = T(1,2,5): 9 vertices, 8 edges, degrees 3, 2×5, 1×3 (Bourbaki Plate VII).
-    expect(out).toContain("G: order 9, size 8, no loops, no multiple edges; degree sequence <span class=\"font-mono\">(3, 2, 2, 2, 2, 2, 1, 1, 1)</span>");
+    expect(out).toContain('G: order 9, size 8, no loops, no multiple edges; degree sequence <span class="font-mono">(3, 2, 2, 2, 2, 2, 1, 1, 1)</span>');
     expect(out).toContain('data-testid="graph-picture"');
     expect(out).toContain("b = root of x²−x−1 in (1, 2) ≈ 1.618034…, as you wrote: (1+sqrt(5))/2");
   });

@@ -6,7 +6,8 @@ const claim = (id: string) => ({ format: "cairn-claim/1", id, kind: "structure",
 
 describe("claims documents in the attach-from-file form", () => {
   it("accept the three shapes the offline checker reads, with the same claims in the same order", () => {
-    const a = claim("a"), b = claim("b");
+    const a = claim("a"),
+      b = claim("b");
     for (const doc of [[a, b], { format: "cairn-claims/1", claims: [a, b] }, a]) {
       const read = claimsFromDocument(JSON.stringify(doc));
       expect("claims" in read).toBe(true);

@@ -32,7 +32,9 @@ describe("settings from the environment", () => {
   it("refuses to start a server without a database or a signing key", () => {
     expect(() => checkServerEnv({ NEXTAUTH_SECRET: "x".repeat(32) })).toThrow(/DATABASE_URL: not set/);
     expect(() => checkServerEnv({ DATABASE_URL: "mariadb://a:b@127.0.0.1:3307/cairn" })).toThrow(/NEXTAUTH_SECRET: not set/);
-    expect(() => checkServerEnv({ DATABASE_URL: "mariadb://a:b@127.0.0.1:3307/cairn", NEXTAUTH_SECRET: "short" })).toThrow(/NEXTAUTH_SECRET: must be at least 16/);
+    expect(() => checkServerEnv({ DATABASE_URL: "mariadb://a:b@127.0.0.1:3307/cairn", NEXTAUTH_SECRET: "short" })).toThrow(
+      /NEXTAUTH_SECRET: must be at least 16/,
+    );
     expect(checkServerEnv({ DATABASE_URL: "mariadb://a:b@127.0.0.1:3307/cairn", NEXTAUTH_SECRET: "x".repeat(32) }).DATABASE_URL).toContain("3307");
   });
 });

@@ -19,8 +19,7 @@ function recordedActions(): string[] {
   for (const file of [...sources(join(root, "lib", "data")), ...sources(join(root, "seeders"))]) {
     const text = readFileSync(file, "utf8");
     // Every dotted name on a line that sets an action, ternaries included ("member.left" : "member.removed").
-    for (const line of text.split("\n").filter((l) => /action: /.test(l)))
-      for (const m of line.matchAll(/"([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
+    for (const line of text.split("\n").filter((l) => /action: /.test(l))) for (const m of line.matchAll(/"([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
     for (const m of text.matchAll(/audit\([^,]+, [^,]+, "([a-z_]+\.[a-z_]+)"/g)) found.add(m[1]);
     // The demo seeders write events through a local helper: event("revision.created", …), "demo.reviews".
     for (const m of text.matchAll(/event\("([a-z_]+\.[a-z_]+)"|"(demo\.[a-z_]+)"/g)) found.add(m[1] ?? m[2]);
@@ -38,8 +37,9 @@ describe("event sentences", () => {
     expect(placePhrase(place)).toBe("step 2.1:1 (case 2.1, “Legs 1 and 2”)");
     expect(placePhrase({ step: null, caseNumber: "3", caseTitle: "Large" })).toBe("case 3, “Large”");
     expect(placePhrase({ step: null, caseNumber: null, caseTitle: null })).toBe("the proof");
-    expect(eventSentence({ action: "review.vouched", subjectType: "step", actorName: "Celia Marwood", detail: "revision 2", place }))
-      .toBe("Celia Marwood vouched for step 2.1:1 (case 2.1, “Legs 1 and 2”) at revision 2.");
+    expect(eventSentence({ action: "review.vouched", subjectType: "step", actorName: "Celia Marwood", detail: "revision 2", place })).toBe(
+      "Celia Marwood vouched for step 2.1:1 (case 2.1, “Legs 1 and 2”) at revision 2.",
+    );
   });
 
   it("drop the database ids older details carried ('raised → withdrawn; step 8')", () => {
@@ -61,21 +61,72 @@ describe("event sentences", () => {
 
   it("give every action known today a sentence of its own (not the fallback)", () => {
     const known = [
-      "proof.created", "proof.edited", "case.created", "case.edited", "case.moved", "case.reparented", "case.deleted", "case.restored",
-      "step.created", "step.revised", "step.moved", "revision.created", "claim.attached", "claim.decided", "claim.rechecked", "claim.cancelled",
-      "claim.withdrawn", "batch.created", "batch.cancelled", "file.uploaded", "review.vouched", "review.disputed", "dispute.answered",
-      "dispute.withdrawn", "dispute.upheld", "comment.added", "invitation.sent", "invitation.revoked", "invitation.accepted",
-      "member.scope_changed", "member.scope_shared", "member.owner_changed", "member.left", "member.removed", "settings.required_approvals",
-      "settings.review_policy", "round.opened", "round.due_date_set", "round.decided", "report.submitted", "report.correction_started",
-      "export.certified", "export.draft", "demo.reviews", "demo.rounds",
+      "proof.created",
+      "proof.edited",
+      "case.created",
+      "case.edited",
+      "case.moved",
+      "case.reparented",
+      "case.deleted",
+      "case.restored",
+      "step.created",
+      "step.revised",
+      "step.moved",
+      "revision.created",
+      "claim.attached",
+      "claim.decided",
+      "claim.rechecked",
+      "claim.cancelled",
+      "claim.withdrawn",
+      "batch.created",
+      "batch.cancelled",
+      "file.uploaded",
+      "review.vouched",
+      "review.disputed",
+      "dispute.answered",
+      "dispute.withdrawn",
+      "dispute.upheld",
+      "comment.added",
+      "invitation.sent",
+      "invitation.revoked",
+      "invitation.accepted",
+      "member.scope_changed",
+      "member.scope_shared",
+      "member.owner_changed",
+      "member.left",
+      "member.removed",
+      "settings.required_approvals",
+      "settings.review_policy",
+      "round.opened",
+      "round.due_date_set",
+      "round.decided",
+      "report.submitted",
+      "report.correction_started",
+      "export.certified",
+      "export.draft",
+      "demo.reviews",
+      "demo.rounds",
     ];
-    for (const action of known) expect(eventSentence({ action, subjectType: "step", actorName: "Ada Quenby", detail: null, place }), action).not.toMatch(/^Ada Quenby: /);
+    for (const action of known)
+      expect(eventSentence({ action, subjectType: "step", actorName: "Ada Quenby", detail: null, place }), action).not.toMatch(/^Ada Quenby: /);
   });
 
   it("number steps by their rank in the case, as the case tree and the step page do", () => {
-    const labels = labelSteps(new Map([[1, "1"], [2, "2.1"]]), [
-      { id: 10, caseId: 1, position: 3 }, { id: 11, caseId: 1, position: 7 }, { id: 12, caseId: 2, position: 2 },
+    const labels = labelSteps(
+      new Map([
+        [1, "1"],
+        [2, "2.1"],
+      ]),
+      [
+        { id: 10, caseId: 1, position: 3 },
+        { id: 11, caseId: 1, position: 7 },
+        { id: 12, caseId: 2, position: 2 },
+      ],
+    );
+    expect([...labels]).toEqual([
+      [10, stepLabel("1", 1)],
+      [11, stepLabel("1", 2)],
+      [12, stepLabel("2.1", 1)],
     ]);
-    expect([...labels]).toEqual([[10, stepLabel("1", 1)], [11, stepLabel("1", 2)], [12, stepLabel("2.1", 1)]]);
   });
 });

@@ -71,7 +71,10 @@ describe("bundle", () => {
       i.id === "claim 1:1#1" ? { ...i, data: { ...(i.data as object), verdict: { ...(i.data as { verdict: object }).verdict, status: "refuted" } } } : i,
     );
     // Re-seal honestly with the tampered data: digests all match, only the re-verification can catch it.
-    const resealed = sealBundle(b.export, items.map(({ id, type, data }) => ({ id, type, data })));
+    const resealed = sealBundle(
+      b.export,
+      items.map(({ id, type, data }) => ({ id, type, data })),
+    );
     const r = checkBundle(copy(resealed), "b.json");
     expect(r.exitCode).toBe(1);
     expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
@@ -83,11 +86,23 @@ describe("bundle", () => {
     // E8 is a tree: breadth-first search leaves a spanning forest (each vertex's parent).
     expect(claim.verdict.method).toBe("breadth-first search; certificate: spanning forest (parent of each vertex)");
     const items = b.items.map((i) =>
-      i.id === "claim 1:1#1" ? { ...i, data: { ...(i.data as object), verdict: { ...claim.verdict, method: "breadth-first search; certificate: Rayleigh vector" } } } : i,
+      i.id === "claim 1:1#1"
+        ? { ...i, data: { ...(i.data as object), verdict: { ...claim.verdict, method: "breadth-first search; certificate: Rayleigh vector" } } }
+        : i,
     );
-    const r = checkBundle(copy(sealBundle(b.export, items.map(({ id, type, data }) => ({ id, type, data })))), "b.json");
+    const r = checkBundle(
+      copy(
+        sealBundle(
+          b.export,
+          items.map(({ id, type, data }) => ({ id, type, data })),
+        ),
+      ),
+      "b.json",
+    );
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/the recorded method names a certificate of kind "Rayleigh vector" but the certificate carried is of kind "spanning forest/);
+    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(
+      /the recorded method names a certificate of kind "Rayleigh vector" but the certificate carried is of kind "spanning forest/,
+    );
   });
 
   it("each vouch carries the digest of the revision it covers (text and claims), and the re-check recomputes it", () => {
@@ -110,7 +125,10 @@ describe("bundle", () => {
   };
 
   it("a vouch whose digest does not match its revision is rejected, even when every item digest is re-sealed", () => {
-    const r = checkBundle(resealedWith("step 1:1", (d) => (d.reviews[0].digest = "0".repeat(64))), "b.json");
+    const r = checkBundle(
+      resealedWith("step 1:1", (d) => (d.reviews[0].digest = "0".repeat(64))),
+      "b.json",
+    );
     expect(r.exitCode).toBe(1);
     const line = r.lines.find((l) => l.label === "step 1:1")!;
     expect(line.status).toBe("refuted");
@@ -132,7 +150,10 @@ describe("bundle", () => {
   });
 
   it("a vouch on an older revision that is not marked superseded is rejected", () => {
-    const r = checkBundle(resealedWith("step 1:1", (d) => (d.reviews[0].revision = 1)), "b.json");
+    const r = checkBundle(
+      resealedWith("step 1:1", (d) => (d.reviews[0].revision = 1)),
+      "b.json",
+    );
     expect(r.exitCode).toBe(1);
     expect(r.lines.find((l) => l.label === "step 1:1")?.text).toMatch(/on revision 1 is counted, but it does not cover revision 2/);
   });
@@ -162,7 +183,15 @@ describe("certification", () => {
   it("a settled snapshot is ready to certify; an open dispute blocks it with the reason", () => {
     expect(certificationOf(settledSnapshot())).toEqual({ state: "ready to certify", blockers: [] });
     const s = settledSnapshot();
-    s.cases[0].steps[0].reviews.push({ reviewerId: 3, reviewerName: "Celia Marwood", verdict: "dispute", revisionNumber: 2, disputeState: "raised", digest: null, at: "2026-11-30T13:00:00.000Z" });
+    s.cases[0].steps[0].reviews.push({
+      reviewerId: 3,
+      reviewerName: "Celia Marwood",
+      verdict: "dispute",
+      revisionNumber: 2,
+      disputeState: "raised",
+      digest: null,
+      at: "2026-11-30T13:00:00.000Z",
+    });
     const c = certificationOf(s);
     expect(c.state).toBe("in progress");
     expect(c.blockers).toContain("Step 1:1 has 1 open dispute.");

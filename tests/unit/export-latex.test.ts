@@ -9,9 +9,12 @@ import { NOT_TYPESET_MARK, setMathAsSource } from "@/lib/export/latex-fallback";
 import { settledSnapshot } from "./export-fixture";
 
 const EVIL_TITLE = String.raw`Evil \input{/etc/passwd} \end{document} 100% & #1 _x_ ^ ~ {brace} $\write18{ls}$`;
-const EVIL_STEP = String.raw`Text \input{/etc/passwd} and \immediate\write18{rm -rf /} here.
+const EVIL_STEP =
+  String.raw`Text \input{/etc/passwd} and \immediate\write18{rm -rf /} here.
 
-Inline $\input{/etc/passwd} x^2$ and $\def\x{\x}\x$ and $\catcode` + "`" + String.raw`\@=11$ and $^^5cinput{/etc/passwd}$.
+Inline $\input{/etc/passwd} x^2$ and $\def\x{\x}\x$ and $\catcode` +
+  "`" +
+  String.raw`\@=11$ and $^^5cinput{/etc/passwd}$.
 
 $$
 \openout1=/tmp/cairn-pwned \immediate\write1{owned} \include{/etc/passwd}
@@ -71,7 +74,9 @@ describe("LaTeX escaping", () => {
     const tex = texOf(EVIL_TITLE, EVIL_STEP);
     // Only our own preamble and layout commands remain; every user command is printed, not run.
     for (const bad of ["input", "include", "write", "immediate", "openout", "catcode", "def", "write18"]) expect(commandsIn(tex).has(bad)).toBe(false);
-    expect(tex).toContain(String.raw`Evil \textbackslash{}input\{/etc/passwd\} \textbackslash{}end\{document\} 100\% \& \#1 \_x\_ \textasciicircum{} \textasciitilde{} \{brace\}`);
+    expect(tex).toContain(
+      String.raw`Evil \textbackslash{}input\{/etc/passwd\} \textbackslash{}end\{document\} 100\% \& \#1 \_x\_ \textasciicircum{} \textasciitilde{} \{brace\}`,
+    );
     expect(tex).toContain(String.raw`$\backslash\mathrm{input}{/etc/passwd} x^2$`);
     expect(tex).toContain(String.raw`\texttt{\$\textasciicircum{}\textasciicircum{}5cinput\{/etc/passwd\}\$}`);
     expect(tex).toContain(String.raw`\$5 literally`);
@@ -95,7 +100,9 @@ describe("LaTeX document", () => {
     const tex = texOf("A proof", "A step.", "certified");
     expect(tex).toContain("the stated computation with exact arithmetic");
     expect(tex).toContain("It does not mean that the case split is exhaustive, nor that the prose argument of any step is right");
-    expect(tex).toMatch(/Verified:\} G is a tree, by breadth-first search \(certificate: spanning forest \(parent of each vertex\)\); certificate in bundle item \\texttt\{claim 1:1\\#1\}/);
+    expect(tex).toMatch(
+      /Verified:\} G is a tree, by breadth-first search \(certificate: spanning forest \(parent of each vertex\)\); certificate in bundle item \\texttt\{claim 1:1\\#1\}/,
+    );
     expect(tex).toContain("Celia Marwood & 2 & 2026-11-30 12:00 UTC");
   });
 
@@ -110,7 +117,11 @@ describe("LaTeX document", () => {
     const s = settledSnapshot("Inputs");
     const hostile = String.raw`\input{/etc/passwd} $\write18{ls}$ 100% & #1 _x_ ^^5c ~ {`;
     s.cases[0].steps[0].claims.push({
-      ...s.cases[0].steps[0].claims[0], position: 2, kind: "identification", status: "refuted", certificate: null,
+      ...s.cases[0].steps[0].claims[0],
+      position: 2,
+      kind: "identification",
+      status: "refuted",
+      certificate: null,
       input: JSON.stringify({ format: "cairn-claim/1", kind: "identification", graph: { format: "edges", text: hostile }, family: hostile }),
     });
     const tex = renderLatex(documentOf(buildBundle(s, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada" })));
@@ -149,7 +160,9 @@ const UNCOMPILABLE = [
 
 describe("a formula that would not compile", () => {
   it("is set as its source with a mark, and the rest of the document still compiles", async () => {
-    const body = [String.raw`Good $\rho(T) \le 2$ first.`, ...UNCOMPILABLE.map((f) => `Then ${f} here.`), String.raw`Good $$\sqrt{2+\sqrt5}$$ last.`].join("\n\n");
+    const body = [String.raw`Good $\rho(T) \le 2$ first.`, ...UNCOMPILABLE.map((f) => `Then ${f} here.`), String.raw`Good $$\sqrt{2+\sqrt5}$$ last.`].join(
+      "\n\n",
+    );
     const tex = texOf("Hostile formulas", body);
     await expect(compileLatex(tex)).rejects.toBeInstanceOf(PdfFailedError); // the document as written does not compile
     const result = await compileLatexRobustly(tex, { runs: 1 });
@@ -164,7 +177,8 @@ describe("a formula that would not compile", () => {
     const tex = "\\begin{document}\nplain text\nsee $x^1^2$ and \\$5 and \\[ a \\] end\n\\end{document}";
     expect(setMathAsSource(tex, 2)).toBeNull();
     const fixed = setMathAsSource(tex, 3)!;
-    expect(fixed.split("\n")[2]).toBe(String.raw`see \texttt{x\textasciicircum{}1\textasciicircum{}2}~${NOT_TYPESET_MARK} and \$5 and \par\noindent \texttt{a}~${NOT_TYPESET_MARK}\par  end`);
+    expect(fixed.split("\n")[2]).toBe(
+      String.raw`see \texttt{x\textasciicircum{}1\textasciicircum{}2}~${NOT_TYPESET_MARK} and \$5 and \par\noindent \texttt{a}~${NOT_TYPESET_MARK}\par  end`,
+    );
   });
 });
-

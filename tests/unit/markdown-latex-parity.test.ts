@@ -23,10 +23,15 @@ const wordsOf = (s: string): string[] => s.match(/[A-Za-z0-9]+/g) ?? [];
 const squash = (s: string) => s.replace(/\s+/g, " ").trim();
 
 function webReading(md: string): Reading {
-  const processor = unified().use(remarkParse).use(remarkPlugins).use(remarkRehype).use(rehypeSanitize, sanitizeSchema as Schema);
+  const processor = unified()
+    .use(remarkParse)
+    .use(remarkPlugins)
+    .use(remarkRehype)
+    .use(rehypeSanitize, sanitizeSchema as Schema);
   const tree = processor.runSync(processor.parse(md), md) as HastRoot;
   const out: Reading = { words: [], math: [] };
-  const text = (n: HastContent | HastRoot): string => ("value" in n && typeof n.value === "string" ? n.value : "children" in n ? n.children.map((c) => text(c as HastContent)).join("") : "");
+  const text = (n: HastContent | HastRoot): string =>
+    "value" in n && typeof n.value === "string" ? n.value : "children" in n ? n.children.map((c) => text(c as HastContent)).join("") : "";
   const walk = (n: HastContent | HastRoot) => {
     if (n.type === "text") {
       out.words.push(...wordsOf(n.value));
@@ -51,8 +56,14 @@ function webReading(md: string): Reading {
 }
 
 const UNESCAPE: Array<[RegExp, string]> = [
-  [/\\textbackslash\{\}/g, "\\"], [/\\textasciicircum\{\}/g, "^"], [/\\textasciitilde\{\}/g, "~"], [/\\textless\{\}/g, "<"],
-  [/\\textgreater\{\}/g, ">"], [/\\textbar\{\}/g, "|"], [/\\textquotedbl\{\}/g, '"'], [/\\([{}$&#_%])/g, "$1"],
+  [/\\textbackslash\{\}/g, "\\"],
+  [/\\textasciicircum\{\}/g, "^"],
+  [/\\textasciitilde\{\}/g, "~"],
+  [/\\textless\{\}/g, "<"],
+  [/\\textgreater\{\}/g, ">"],
+  [/\\textbar\{\}/g, "|"],
+  [/\\textquotedbl\{\}/g, '"'],
+  [/\\([{}$&#_%])/g, "$1"],
 ];
 
 function latexReading(tex: string): Reading {
@@ -89,7 +100,7 @@ const FIXTURES: Record<string, string> = {
   "hard break": "line one  \nline two\\\nline three",
   "indented code": "Run\n\n    cairn check claims.json\n\ndone.",
   "fenced code": "```\nA(5) <= 2\n```",
-  "raw html": "Before <span onclick=\"x()\">inside</span> after <!-- hidden comment -->",
+  "raw html": 'Before <span onclick="x()">inside</span> after <!-- hidden comment -->',
   quote: "> Quoted with $\\sqrt{2+\\sqrt5}$\n> and more.",
   link: "See [the bound](https://example.org/bound) and <https://example.org/auto>.",
   escapes: "A \\$5 note, \\*not emphasis\\*, 100% & #1 {braces}.",

@@ -18,13 +18,21 @@ function parts(html: string): { glyph: string; word: string; glyphHidden: boolea
 }
 
 const KINDS: Array<{ kind: string; values: string[]; render: (v: string) => React.ReactElement }> = [
-  { kind: "verdict", values: ["pending", "verified", "refuted", "undecided"] satisfies ClaimStatus[], render: (v) => <VerdictBadge status={v as ClaimStatus} /> },
+  {
+    kind: "verdict",
+    values: ["pending", "verified", "refuted", "undecided"] satisfies ClaimStatus[],
+    render: (v) => <VerdictBadge status={v as ClaimStatus} />,
+  },
   {
     kind: "case state",
     values: ["drafting", "claim failing", "under review", "disputed", "settled"] satisfies CaseState[],
     render: (v) => <CaseStateBadge state={v as CaseState} />,
   },
-  { kind: "dispute state", values: ["raised", "answered", "withdrawn", "upheld"] satisfies DisputeState[], render: (v) => <DisputeStateBadge state={v as DisputeState} /> },
+  {
+    kind: "dispute state",
+    values: ["raised", "answered", "withdrawn", "upheld"] satisfies DisputeState[],
+    render: (v) => <DisputeStateBadge state={v as DisputeState} />,
+  },
   { kind: "proof state", values: ["in progress", "ready to certify"] satisfies ProofState[], render: (v) => <ProofStateBadge state={v as ProofState} /> },
   { kind: "vouch", values: ["current", "stale"], render: (v) => <VouchBadge stale={v === "stale"} /> },
 ];

@@ -27,7 +27,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <Wordmark />
       <h1 className="mt-8 text-2xl font-semibold">Sign in</h1>
       {query.changed === "password" && (
-        <p role="status" className="mt-4 rounded border border-stone-300 bg-stone-50 px-3 py-2 text-sm">Your password was changed and every session ended. Sign in with the new password.</p>
+        <p role="status" className="mt-4 rounded border border-stone-300 bg-stone-50 px-3 py-2 text-sm">
+          Your password was changed and every session ended. Sign in with the new password.
+        </p>
       )}
       <SignInForm callbackUrl={callbackUrl} />
     </main>

@@ -18,7 +18,9 @@ export default async function ProofsPage() {
         </Link>
       </div>
       {proofs.length === 0 ? (
-        <p className="mt-6 text-stone-600">You are not a member of any proof yet. Start a proof of your own, or ask a proof’s editor to invite you as a referee (the invitation comes by e-mail).</p>
+        <p className="mt-6 text-stone-600">
+          You are not a member of any proof yet. Start a proof of your own, or ask a proof’s editor to invite you as a referee (the invitation comes by e-mail).
+        </p>
       ) : (
         <ul className="mt-6 divide-y divide-stone-200 rounded border border-stone-200 bg-white" data-testid="proof-list">
           {proofs.map((p) => (

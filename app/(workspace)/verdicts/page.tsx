@@ -14,9 +14,8 @@ export default function VerdictsPage() {
         <div>
           <dt className="font-semibold">✓ verified</dt>
           <dd>
-            Cairn’s checker re-did the stated computation on the stated input with exact arithmetic (integers, rationals,
-            Sturm sequences, exact inertia; never floating point), and stored a certificate that re-checks independently,
-            also offline with the exported checker.
+            Cairn’s checker re-did the stated computation on the stated input with exact arithmetic (integers, rationals, Sturm sequences, exact inertia; never
+            floating point), and stored a certificate that re-checks independently, also offline with the exported checker.
           </dd>
         </div>
         <div>
@@ -35,8 +34,8 @@ export default function VerdictsPage() {
         <li>Pictures, Perron vector values and spectra drawn beside a claim: they are floating-point display aids, never evidence.</li>
       </ul>
       <p>
-        Those stay with the authors and the referees. A referee’s vouch covers one revision of a step, text and claims
-        together; a <em>certified</em> export says that every case was settled when it was made, and nothing more.
+        Those stay with the authors and the referees. A referee’s vouch covers one revision of a step, text and claims together; a <em>certified</em> export
+        says that every case was settled when it was made, and nothing more.
       </p>
     </main>
   );

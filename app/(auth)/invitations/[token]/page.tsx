@@ -25,11 +25,23 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
 }
 
 function InvitationBody({ token, preview, user }: { token: string; preview: InvitationPreview | null; user: { email: string } | null }) {
-  if (!preview) return <p className="mt-4" role="alert">This invitation link is not valid. Check that you copied all of it, or ask the editor for a new one.</p>;
+  if (!preview)
+    return (
+      <p className="mt-4" role="alert">
+        This invitation link is not valid. Check that you copied all of it, or ask the editor for a new one.
+      </p>
+    );
   if (preview.state !== "waiting")
     return (
       <p className="mt-4" role="alert" data-testid="invitation-closed">
-        {{ accepted: "This invitation link was already used.", expired: "This invitation link has expired.", revoked: "This invitation was withdrawn by the proof's editor." }[preview.state]} Ask the editor for a new one if you still need to join.
+        {
+          {
+            accepted: "This invitation link was already used.",
+            expired: "This invitation link has expired.",
+            revoked: "This invitation was withdrawn by the proof's editor.",
+          }[preview.state]
+        }{" "}
+        Ask the editor for a new one if you still need to join.
       </p>
     );
   const callback = encodeURIComponent(`/invitations/${token}`);
@@ -62,7 +74,11 @@ function InvitationBody({ token, preview, user }: { token: string; preview: Invi
       <>
         {intro}
         <p className="mt-4">
-          An account for this address exists. <Link className="text-lichen-700 underline" href={`/sign-in?callbackUrl=${callback}`}>Sign in</Link> to accept.
+          An account for this address exists.{" "}
+          <Link className="text-lichen-700 underline" href={`/sign-in?callbackUrl=${callback}`}>
+            Sign in
+          </Link>{" "}
+          to accept.
         </p>
       </>
     );

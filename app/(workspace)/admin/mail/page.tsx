@@ -16,7 +16,8 @@ export default async function CapturedMailPage() {
     <main className="space-y-4">
       <h1 className="text-3xl font-semibold">Captured mail</h1>
       <p className="text-sm text-stone-600">
-        Messages received by the local mail fake, newest first (store: <span className="font-mono">{mailStorePath()}</span>). With a real SMTP provider configured, this list stays empty.
+        Messages received by the local mail fake, newest first (store: <span className="font-mono">{mailStorePath()}</span>). With a real SMTP provider
+        configured, this list stays empty.
       </p>
       {messages.length === 0 && <p className="italic text-stone-500">No message captured yet.</p>}
       <ol className="space-y-3" data-testid="captured-mail">
@@ -26,7 +27,9 @@ export default async function CapturedMailPage() {
               {new Date(m.receivedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "medium" })} · to {m.to.join(", ")}
             </p>
             <p className="font-semibold">{m.subject}</p>
-            <pre className="mt-2 whitespace-pre-wrap font-mono text-sm"><LinkedText text={m.text} /></pre>
+            <pre className="mt-2 whitespace-pre-wrap font-mono text-sm">
+              <LinkedText text={m.text} />
+            </pre>
           </li>
         ))}
       </ol>

@@ -27,7 +27,9 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
   // A reviewer invited to chosen cases sees those cases only (and no whole-proof exports).
   const { proofId, standing, visible, user, role } = await pageAccess((await params).proofId);
   const [proof, overview, claims, deleted, exports] = await Promise.all([
-    getProofSummary(proofId, { id: user.id, role }), getProofOverview(proofId, visible), listProofClaims(proofId, visible),
+    getProofSummary(proofId, { id: user.id, role }),
+    getProofOverview(proofId, visible),
+    listProofClaims(proofId, visible),
     listDeletedCases(proofId).then((rows) => withinScope(rows, (c) => c.id, visible)),
     may(standing, "exports.read") ? listExports(proofId) : Promise.resolve(null),
   ]);
@@ -52,10 +54,20 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
         <aside className="min-w-0 space-y-6">
           <StateCounts counts={overview.counts} proofState={overview.proofState} />
           <nav className="flex flex-col gap-1 text-sm" aria-label="This proof">
-            <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">Members and reviewers</Link>
-            <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">Timeline</Link>
-            <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 hover:underline">Review rounds and reports</Link>
-            {mayDoInRound(role, "read_desk") && <Link href={`/proofs/${proofId}/desk`} className="text-lichen-700 hover:underline">Editor’s desk</Link>}
+            <Link href={`/proofs/${proofId}/members`} className="text-lichen-700 hover:underline">
+              Members and reviewers
+            </Link>
+            <Link href={`/proofs/${proofId}/timeline`} className="text-lichen-700 hover:underline">
+              Timeline
+            </Link>
+            <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 hover:underline">
+              Review rounds and reports
+            </Link>
+            {mayDoInRound(role, "read_desk") && (
+              <Link href={`/proofs/${proofId}/desk`} className="text-lichen-700 hover:underline">
+                Editor’s desk
+              </Link>
+            )}
           </nav>
           {exports && <ProofExportsCard proofId={proofId} exports={exports} />}
           <div>

@@ -1,7 +1,17 @@
 import { idParam } from "@/lib/http";
 
-const WHAT = { proofId: "This proof", caseId: "This case", stepId: "This step", claimId: "This claim", number: "This revision",
-  round: "This round", reportId: "This report", userId: "This member", fileId: "This file", batchId: "This batch claim" } as const;
+const WHAT = {
+  proofId: "This proof",
+  caseId: "This case",
+  stepId: "This step",
+  claimId: "This claim",
+  number: "This revision",
+  round: "This round",
+  reportId: "This report",
+  userId: "This member",
+  fileId: "This file",
+  batchId: "This batch claim",
+} as const;
 type IdName = keyof typeof WHAT;
 
 /** Parses every numeric id segment of a workspace route (`[proofId]`, `[stepId]`, …); nonsense is a 404 for that resource. */

@@ -18,12 +18,16 @@ export default async function DeskPage({ params }: { params: Promise<{ proofId: 
   return (
     <main className="max-w-4xl space-y-8">
       <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
+          ← {proof.title}
+        </Link>
         <h1 className="mt-2 text-3xl font-semibold">Editor’s desk</h1>
         <p className="text-sm text-stone-600">
-          <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 underline">Rounds, reports and decisions</Link> ·{" "}
-          {desk.blind ? "blind review (authors see “Referee k”; you see names)" : "referees named to the authors"} · reminders {desk.remindBeforeDays} days before and{" "}
-          {desk.remindAfterDays} after a due date
+          <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 underline">
+            Rounds, reports and decisions
+          </Link>{" "}
+          · {desk.blind ? "blind review (authors see “Referee k”; you see names)" : "referees named to the authors"} · reminders {desk.remindBeforeDays} days
+          before and {desk.remindAfterDays} after a due date
         </p>
       </div>
       <DeskView proofId={proofId} desk={desk} />

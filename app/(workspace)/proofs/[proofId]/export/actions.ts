@@ -5,7 +5,6 @@ import { AppError } from "@/lib/errors";
 import { createExport } from "@/lib/data/exports";
 import { createExportSchema, type ExportActionResult } from "@/lib/validations/export";
 
-
 /** Makes an export from the export page; checks the role itself (authors and editors), like the route handler. */
 export async function createExportAction(proofId: number, kind: unknown): Promise<ExportActionResult> {
   const parsed = createExportSchema.safeParse({ kind });

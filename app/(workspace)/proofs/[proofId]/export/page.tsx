@@ -19,13 +19,20 @@ export const metadata: Metadata = { title: "Export" };
 export default async function ExportPage({ params }: { params: Promise<{ proofId: string }> }) {
   // A reviewer limited to chosen cases does not see whole-proof exports (403).
   const { proofId, standing, user, role } = await pageAccess((await params).proofId, "exports.read");
-  const [proof, certification, exports, pdf] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), getCertification(proofId), listExports(proofId), pdflatexAvailable()]);
+  const [proof, certification, exports, pdf] = await Promise.all([
+    getProofSummary(proofId, { id: user.id, role }),
+    getCertification(proofId),
+    listExports(proofId),
+    pdflatexAvailable(),
+  ]);
   if (!proof) notFound();
   const ready = certification.state === "ready to certify";
   return (
     <main className="max-w-4xl space-y-8">
       <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
+          ← {proof.title}
+        </Link>
         <h1 className="mt-2 text-3xl font-semibold">Export</h1>
       </div>
       <section className="space-y-3" aria-labelledby="state">
@@ -38,11 +45,17 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
           <div data-testid="blockers">
             <p>Not ready to certify; a draft export is still possible and is marked DRAFT on every page. What stands in the way:</p>
             <ul className="mt-2 list-disc pl-6 text-sm">
-              {certification.blockers.map((b) => <li key={b}>{b}</li>)}
+              {certification.blockers.map((b) => (
+                <li key={b}>{b}</li>
+              ))}
             </ul>
           </div>
         )}
-        {!may(standing, "exports.create") ? <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p> : <ExportActions proofId={proofId} ready={ready} create={createExportAction} />}
+        {!may(standing, "exports.create") ? (
+          <p className="text-sm text-stone-600">Authors and editors make exports; you can download them below.</p>
+        ) : (
+          <ExportActions proofId={proofId} ready={ready} create={createExportAction} />
+        )}
       </section>
       <VerdictCaution />
       <section className="space-y-3">

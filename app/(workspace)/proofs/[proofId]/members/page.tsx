@@ -48,7 +48,9 @@ export default async function MembersPage({ params }: { params: Promise<{ proofI
   return (
     <main className="space-y-10">
       <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
+          ← {proof.title}
+        </Link>
         <h1 className="mt-2 text-3xl font-semibold">Members and reviewers</h1>
       </div>
       <section className="space-y-2">

@@ -26,18 +26,24 @@ export default async function RoundsPage({ params }: { params: Promise<{ proofId
   return (
     <main className="max-w-3xl space-y-6">
       <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
+          ← {proof.title}
+        </Link>
         <h1 className="mt-2 text-3xl font-semibold">Review rounds</h1>
         <p className="text-sm text-stone-600">
           {policy.blindReview ? "Blind review: authors see referees as “Referee 1, 2, …”." : "Referees are named to the authors."} A referee’s report covers the
           argument as a whole; a verified claim inside it covers only its stated computation.
         </p>
       </div>
-      {mayDoInRound(role, "set_review_policy") && <ReviewPolicyForm proofId={proofId} blind={policy.blindReview} before={policy.remindBeforeDays} after={policy.remindAfterDays} />}
+      {mayDoInRound(role, "set_review_policy") && (
+        <ReviewPolicyForm proofId={proofId} blind={policy.blindReview} before={policy.remindBeforeDays} after={policy.remindAfterDays} />
+      )}
       {rounds.length === 0 && <p className="text-stone-600">No review round yet.{mayDoInRound(role, "open_round") ? "" : " The editor opens the first."}</p>}
       {[...rounds].reverse().map((round) => (
         <RoundCard key={round.number} proofId={proofId} round={round}>
-          {round.state === "open" && mayDoInRound(role, "write_report") && <ReportForm proofId={proofId} round={round.number} latest={round.myVersions?.[0] ?? null} />}
+          {round.state === "open" && mayDoInRound(role, "write_report") && (
+            <ReportForm proofId={proofId} round={round.number} latest={round.myVersions?.[0] ?? null} />
+          )}
           {round.state === "open" && mayDoInRound(role, "decide") && <DecisionForm proofId={proofId} round={round.number} />}
         </RoundCard>
       ))}

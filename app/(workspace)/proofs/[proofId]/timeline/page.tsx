@@ -13,13 +13,18 @@ export const metadata: Metadata = { title: "Timeline" };
 /** The proof's audit trail, newest first: every event, or for a reviewer of chosen cases the events of those cases. */
 export default async function TimelinePage({ params }: { params: Promise<{ proofId: string }> }) {
   const { proofId, visible, user, role } = await pageAccess((await params).proofId, "timeline.read");
-  const [proof, all] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), refereeLens(proofId, { id: user.id, role }).then((lens) => listProofEvents(proofId, 500, lens))]);
+  const [proof, all] = await Promise.all([
+    getProofSummary(proofId, { id: user.id, role }),
+    refereeLens(proofId, { id: user.id, role }).then((lens) => listProofEvents(proofId, 500, lens)),
+  ]);
   const events = withinScope(all, (e) => e.caseId, visible);
   if (!proof) notFound();
   return (
     <main className="max-w-prose space-y-6">
       <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">← {proof.title}</Link>
+        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
+          ← {proof.title}
+        </Link>
         <h1 className="mt-2 text-3xl font-semibold">Timeline</h1>
         <p className="text-sm text-stone-600">An append-only record: events are added, never changed or removed.</p>
       </div>

@@ -25,7 +25,12 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
   const { access: viewer, step } = await stepPageAccess(p.proofId, p.stepId);
   const access = { user: viewer.user, role: viewer.role, step };
   const proofId = viewer.proofId;
-  const [info, readiness, claims, withdrawn] = await Promise.all([describeStep(step), getReadiness(viewer.proofId, viewer.visible), listStepClaims(step.id), listWithdrawnClaims(step.id)]);
+  const [info, readiness, claims, withdrawn] = await Promise.all([
+    describeStep(step),
+    getReadiness(viewer.proofId, viewer.visible),
+    listStepClaims(step.id),
+    listWithdrawnClaims(step.id),
+  ]);
   const { revisions } = await getStep(proofId, step.id);
   const verification = await verificationNotice(claims);
   const caseState = readiness.cases.find((c) => c.id === access.step.caseId)?.state;
@@ -35,7 +40,10 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
         <Link href="/queue" className="text-lichen-700 underline">
           ← Review queue
         </Link>{" "}
-        · <Link href={`/proofs/${proofId}`} className="text-lichen-700 underline">{info.proofTitle}</Link>
+        ·{" "}
+        <Link href={`/proofs/${proofId}`} className="text-lichen-700 underline">
+          {info.proofTitle}
+        </Link>
       </p>
       <h1 className="text-2xl font-semibold">
         <span className="mr-2 font-mono text-lichen-700">Step {info.stepLabel}</span>
@@ -55,7 +63,13 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
           ) : (
             <p className="italic text-stone-500">This step has no revision yet.</p>
           )}
-          <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={may(viewer.standing, "claims.recheck")} canWithdraw={false} />
+          <ClaimList
+            proofId={proofId}
+            stepId={step.id}
+            initial={{ claims, withdrawn, verification }}
+            canRecheck={may(viewer.standing, "claims.recheck")}
+            canWithdraw={false}
+          />
           <VerdictCaution />
         </div>
         <div className="min-w-0 lg:sticky lg:top-4 lg:self-start">

@@ -20,7 +20,9 @@ export default async function PrintPage({ params }: { params: Promise<{ proofId:
   return (
     <main>
       <div className="no-print mb-4 flex items-center justify-between gap-4">
-        <Link href={`/proofs/${proofId}/export`} className="text-sm text-lichen-700 underline">← Exports</Link>
+        <Link href={`/proofs/${proofId}/export`} className="text-sm text-lichen-700 underline">
+          ← Exports
+        </Link>
         <PrintButton />
       </div>
       <PrintDocument doc={documentOf(e.bundle)} />

@@ -54,7 +54,13 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       <div className="mt-3 lg:grid lg:grid-cols-[minmax(0,1fr)_24rem] lg:gap-6">
         <div className="min-w-0">
           {step.latest && <MathMarkdown source={step.latest.body} className="max-w-prose rounded border border-stone-200 bg-white p-4 text-lg" />}
-          <ClaimList proofId={proofId} stepId={step.id} initial={{ claims, withdrawn, verification }} canRecheck={may(standing, "claims.recheck")} canWithdraw={isAuthor} />
+          <ClaimList
+            proofId={proofId}
+            stepId={step.id}
+            initial={{ claims, withdrawn, verification }}
+            canRecheck={may(standing, "claims.recheck")}
+            canWithdraw={isAuthor}
+          />
           <div className="mt-4">
             <VerdictCaution />
           </div>

@@ -24,12 +24,24 @@ export const GET = route(async (_request: Request, context: ExportContext) => {
     pdf = new Uint8Array((await cachedPdf(e.tex, { runs: 2 })).pdf);
   } catch (err) {
     if (!(err instanceof PdfUnavailableError || err instanceof PdfFailedError)) throw err;
-    pdf = { missing: err instanceof PdfUnavailableError ? "pdflatex is not installed on the server; compile proof.tex yourself" : "pdflatex could not compile it on the server; compile proof.tex yourself" };
+    pdf = {
+      missing:
+        err instanceof PdfUnavailableError
+          ? "pdflatex is not installed on the server; compile proof.tex yourself"
+          : "pdflatex could not compile it on the server; compile proof.tex yourself",
+    };
   }
   const proofItem = e.bundle.items.find((i) => i.type === "proof")?.data as { title?: string } | undefined;
   const zip = buildArchive({
-    proofTitle: proofItem?.title ?? `proof ${e.proofId}`, kind: e.kind, exportId: e.id, manifestDigest: e.manifestDigest,
-    exportedAt: e.createdAt, bundleText: e.bundleText, tex: e.tex, checker, pdf,
+    proofTitle: proofItem?.title ?? `proof ${e.proofId}`,
+    kind: e.kind,
+    exportId: e.id,
+    manifestDigest: e.manifestDigest,
+    exportedAt: e.createdAt,
+    bundleText: e.bundleText,
+    tex: e.tex,
+    checker,
+    pdf,
   });
   return download(new Uint8Array(zip), "application/zip", exportFileName(e.proofId, e.id, e.kind, "zip"));
 });

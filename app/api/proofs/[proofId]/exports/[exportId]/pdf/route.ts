@@ -14,8 +14,19 @@ export const GET = route(async (_request: Request, context: ExportContext) => {
   } catch (err) {
     if (err instanceof PdfUnavailableError) throw new AppError("unavailable", err.message);
     if (err instanceof PdfFailedError) {
-      console.error("[cairn] pdflatex failed on export", e.id, err.log.split("\n").filter((l) => l.startsWith("!") || /:\d+: /.test(l)).slice(0, 10).join("\n"));
-      throw new AppError("unavailable", "The PDF could not be made on the server this time. Download the .tex source or print the print view instead; the failure was logged.");
+      console.error(
+        "[cairn] pdflatex failed on export",
+        e.id,
+        err.log
+          .split("\n")
+          .filter((l) => l.startsWith("!") || /:\d+: /.test(l))
+          .slice(0, 10)
+          .join("\n"),
+      );
+      throw new AppError(
+        "unavailable",
+        "The PDF could not be made on the server this time. Download the .tex source or print the print view instead; the failure was logged.",
+      );
     }
     throw err;
   }

@@ -39,7 +39,12 @@ export const POST = route(async (request: Request, { params }: Context) => {
   } catch (e) {
     if (e instanceof UnsupportedContent) throw new AppError("unsupported_media_type", e.message);
     if (e instanceof UnpackedTooLarge)
-      throw new AppError("too_large", `The gzip file unpacks to more than ${UNPACK_FACTOR} × the upload limit (${e.limit} bytes); nothing was saved. Split the list into several files.`, undefined, { limitBytes: e.limit });
+      throw new AppError(
+        "too_large",
+        `The gzip file unpacks to more than ${UNPACK_FACTOR} × the upload limit (${e.limit} bytes); nothing was saved. Split the list into several files.`,
+        undefined,
+        { limitBytes: e.limit },
+      );
     throw e;
   }
   const { file, duplicate } = await saveStepFile(proofId, stepId, user.id, query.data.name, bytes, detected);
