@@ -57,8 +57,10 @@ describe("exporting the seeded proof in the browser", () => {
     const made = page.getByTestId("export-made");
     await made.waitFor();
     const digest = (await made.textContent())!.match(/[0-9a-f]{64}/)![0];
-    const row = page.locator("[data-export-id]").first();
+    // The list shows the export just made (other browser tests may have exported this proof before): find it by its digest.
+    const row = page.locator("[data-export-id]").filter({ has: page.getByTestId("manifest-digest").getByText(digest, { exact: true }) });
     await row.waitFor();
+    expect(await row.count()).toBe(1);
     expect(await row.locator("[data-export-kind]").getAttribute("data-export-kind")).toBe("draft");
     expect(await row.getByTestId("manifest-digest").textContent()).toBe(digest);
 

@@ -124,7 +124,7 @@ describe("keyboard", () => {
       /^button: I vouch for revision \d+$/,
       /^button: I raise a dispute/,
       /^summary: Comments \(\d+\)$/,
-      /^summary: The graph in words$/,
+      /^summary: Pictures \(\d+ graphs?/,
     ]);
     expect(await unnamedControls(page)).toEqual([]);
     // The comments fold open with Enter on their summary, and the next Tab is in the comment box.
@@ -133,6 +133,14 @@ describe("keyboard", () => {
     await page.keyboard.press("Enter");
     await page.keyboard.press("Tab");
     expect(await page.evaluate(() => (document.activeElement as HTMLTextAreaElement).labels?.[0]?.textContent?.trim())).toMatch(/^Comment on this step/);
+    // The claim's pictures are folded; Enter on their summary opens them, with the graph described in words.
+    const pictures = page.locator("summary", { hasText: /^Pictures \(/ }).first();
+    await pictures.focus();
+    await page.keyboard.press("Enter");
+    await page
+      .locator("summary", { hasText: /^The graph in words$/ })
+      .first()
+      .waitFor();
     // Enter on the focused dispute button opens the dispute form, and its text box has a name.
     await page.getByRole("button", { name: /I raise a dispute/ }).focus();
     await page.keyboard.press("Enter");

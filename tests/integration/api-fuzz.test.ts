@@ -51,6 +51,7 @@ import * as notificationsRoute from "@/app/api/notifications/route";
 import * as preferencesRoute from "@/app/api/notifications/preferences/route";
 import * as passwordRoute from "@/app/api/account/password/route";
 import * as ownerRoute from "@/app/api/proofs/[proofId]/owner/route";
+import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
 
 const RUNS = Number(process.env.CAIRN_FUZZ_RUNS ?? 60);
 const ERROR_CODES = [
@@ -171,6 +172,15 @@ const TARGETS: Target[] = [
     call: stepClaimsRoute.POST as Call,
     params: () => ({ proofId, stepId: String(step.id) }),
     valid: () => ({ claims: [spectral] }),
+  },
+  {
+    // No graph list is uploaded to this step: every body ends in a 4xx (a missing file is a 404), never a 5xx.
+    file: "api/proofs/[proofId]/steps/[stepId]/batches/route.ts",
+    method: "POST",
+    who: "author",
+    call: batchesRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ fileId: 2147483000, op: "<", bound: "sqrt(2+sqrt(5))" }),
   },
   {
     file: "api/proofs/[proofId]/steps/[stepId]/comments/route.ts",
