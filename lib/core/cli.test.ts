@@ -3,8 +3,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { checkFile, EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, formatReport, main } from "./cli";
-import { validateClaim } from "./claim-schema";
-import { verifyClaim } from "./claims";
+import { validateClaim } from "./claims/claim-schema";
+import { verifyClaim } from "./claims/claims";
 
 const FIXTURES = join(import.meta.dirname, "../../tests/fixtures/claims");
 const scratch = mkdtempSync(join(tmpdir(), "cairn-cli-"));

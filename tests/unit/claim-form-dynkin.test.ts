@@ -4,8 +4,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { claimFromForm, emptyClaimForm, formFieldOf } from "@/lib/validations/claim";
-import { validateClaim } from "@/lib/core/claim-schema";
-import { verifyClaim } from "@/lib/core/claims";
+import { validateClaim } from "@/lib/core/claims/claim-schema";
+import { verifyClaim } from "@/lib/core/claims/claims";
 
 describe("claim form: Dynkin data", () => {
   it("turns the stated lines into a claim that verifies (E8: Bourbaki, Plate VII; Humphreys, Table 2.4)", () => {
