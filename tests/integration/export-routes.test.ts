@@ -5,7 +5,7 @@ vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeo
 import { actAs, demoProofId, jsonRequest, params, userIdOf } from "./helpers";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { checkBundle } from "@/lib/core/bundle";
+import { checkBundle } from "@/lib/core/certificates/bundle";
 import { compileLatex } from "@/lib/export/pdf";
 import { createHash } from "node:crypto";
 import { mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";

@@ -9,7 +9,7 @@ import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { closePool, runInPool } from "@/lib/verification/pool";
-import { CLAIM_KINDS } from "@/lib/core/claim-schema";
+import { CLAIM_KINDS } from "@/lib/core/claims/claim-schema";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";

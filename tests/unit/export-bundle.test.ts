@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { checkBundle, sealBundle, type Bundle } from "@/lib/core/bundle";
+import { checkBundle, sealBundle, type Bundle } from "@/lib/core/certificates/bundle";
 import { buildBundle } from "@/lib/export/bundle";
 import { certificationOf } from "@/lib/export/snapshot";
 import { settledSnapshot } from "./export-fixture";
