@@ -177,7 +177,7 @@ describe("claims list, one claim and re-check", () => {
     expect(list.status).toBe(200);
     const rows = (await list.json()).claims;
     expect(rows.length).toBeGreaterThanOrEqual(2);
-    expect(rows[0]).toMatchObject({ stepNumber: "1:1", caseNumber: "1", kind: "spectral-radius-bound", status: "verified" });
+    expect(rows[0]).toMatchObject({ stepNumber: "1(a)", caseNumber: "1", kind: "spectral-radius-bound", status: "verified" });
     expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }))).status).toBe(403);
     await actAs("author");
     const again = await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }));

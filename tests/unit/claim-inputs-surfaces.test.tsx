@@ -105,7 +105,7 @@ function rowView(c: SnapshotClaim, id: number): ClaimRowView {
   return {
     id,
     stepId: 1,
-    stepNumber: "1:1",
+    stepNumber: "1(a)",
     caseNumber: "1",
     caseTitle: "One case",
     kind: v.kind,
