@@ -5,7 +5,7 @@ import { useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
-import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES } from "@/lib/core/claim-schema";
+import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES } from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
 

@@ -3,13 +3,13 @@ import { Op } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { invalid, notFound, conflict } from "@/lib/errors";
-import { batchStatement } from "@/lib/core/batch";
-import { CHECKER_VERSION } from "@/lib/core/claims";
-import { NumberFormatError } from "@/lib/core/rational";
+import { batchStatement } from "@/lib/core/claims/batch";
+import { CHECKER_VERSION } from "@/lib/core/claims/claims";
+import { NumberFormatError } from "@/lib/core/arithmetic/rational";
 import { batchChunkSize, QueueUnavailable, queueBatchChunks, verificationQueue, batchJobId, bounded } from "@/lib/jobs/queue";
 import { listEntries } from "@/lib/jobs/batch";
 import type { BatchClaim, BatchResult, BatchStatus, BatchVerdict } from "@/models/batch-claim";
-import type { Relation } from "@/lib/core/claim-schema";
+import type { Relation } from "@/lib/core/claims/claim-schema";
 
 /**
  * Batch claims: the web side. Creating one counts the graphs of the file, stores the batch and queues

@@ -3,11 +3,11 @@ import { Op } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound, type Issue } from "@/lib/errors";
-import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claim-schema";
-import { claimDigest } from "@/lib/core/claims";
-import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
-import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-display";
-import { checkInputs } from "@/lib/core/claim-inputs";
+import { ClaimError, validateClaim, type Claim as ClaimJson } from "@/lib/core/claims/claim-schema";
+import { claimDigest } from "@/lib/core/claims/claims";
+import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificates/certificate-kind";
+import { claimInputsView, type ClaimInputsView } from "@/lib/core/claims/claim-display";
+import { checkInputs } from "@/lib/core/claims/claim-inputs";
 import { pendingProgress, scheduleVerification, verificationSettled, waitForVerdicts, type JobProgress } from "@/lib/data/claim-jobs";
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
@@ -36,7 +36,7 @@ export interface ClaimView {
   digest: string | null;
   /** The claim's inputs as JSON; graph texts longer than 4 000 characters are cut for display. */
   input: Record<string, unknown>;
-  /** The inputs as a reader sees them (lib/core/claim-display.ts): graphs as entered and as graph6, bound, vector, … */
+  /** The inputs as a reader sees them (lib/core/claims/claim-display.ts): graphs as entered and as graph6, bound, vector, … */
   inputs: ClaimInputsView;
   certificate: { summary: string; bytes: number; preview: string } | null;
   checkerVersion: string | null;

@@ -9,7 +9,7 @@ import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { refereeLens } from "./blind";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
-import type { Bundle, ExportKind } from "@/lib/core/bundle";
+import type { Bundle, ExportKind } from "@/lib/core/certificates/bundle";
 import { QueueUnavailable, runBundleJob } from "@/lib/jobs/queue";
 import { TIME_LIMIT_MS } from "@/lib/verification/limits";
 import { buildBundle } from "@/lib/export/bundle";

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { RELATIONS } from "@/lib/core/claim-schema";
+import { RELATIONS } from "@/lib/core/claims/claim-schema";
 
 /** A batch claim over a graph list uploaded to the step: every graph satisfies ρ(G) op bound. */
 export const createBatchSchema = z.object({

@@ -1,6 +1,6 @@
 /**
  * Claims attached to a step. The API takes claims in the core's "cairn-claim/1" JSON (validated by
- * lib/core/claim-schema.ts, whose errors name the JSON path); the form has flat text fields, which
+ * lib/core/claims/claim-schema.ts, whose errors name the JSON path); the form has flat text fields, which
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
 import { z } from "./zod";
@@ -14,7 +14,7 @@ import {
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
   ENUMERATION_SETTINGS,
-} from "@/lib/core/claim-schema";
+} from "@/lib/core/claims/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
 

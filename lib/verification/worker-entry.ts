@@ -3,17 +3,17 @@
  * worker thread): validates and verifies one claim with the exact core under a step budget, and
  * computes its display picture. Nothing here touches the database; the server stores the outcome.
  */
-import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims";
-import { checkInputs } from "../core/claim-inputs";
-import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claim-schema";
-import { NumberFormatError } from "../core/rational";
-import { parseGraph } from "../core/parse";
-import { boundApprox, parseBound } from "../core/bound";
+import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims/claims";
+import { checkInputs } from "../core/claims/claim-inputs";
+import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claims/claim-schema";
+import { NumberFormatError } from "../core/arithmetic/rational";
+import { parseGraph } from "../core/input/parse";
+import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
 import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
 import type { BundleTask, VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
-import { checkBundle, type BundleCheckReport } from "../core/bundle";
+import { checkBundle, type BundleCheckReport } from "../core/certificates/bundle";
 import { setPriority } from "node:os";
 import { isMainThread } from "node:worker_threads";
 
