@@ -79,7 +79,7 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
       if (wanted.length === 0) return;
       // Claims are read unscoped: a withdrawn claim's events still belong to its case.
       const rows = await (model as typeof Review).unscoped().findAll({ where: { id: wanted }, attributes: ["id", "stepId"] });
-      for (const r of rows) found.set(`${type}:${r.id}`, r.stepId);
+      for (const r of rows) if (r.stepId !== null) found.set(`${type}:${r.id}`, r.stepId);
     }),
   );
   return found;

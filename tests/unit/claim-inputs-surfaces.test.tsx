@@ -47,6 +47,8 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   // A3 = P3 has Coxeter number 4 and exponents 1, 2, 3 (Bourbaki Plate I).
   eigenvalues: { claim: { graph: P3, h: 4, multiset: [1, 2, 3] }, shows: ["Bg", "1, 2, 3", "multiset of m"] },
   structure: { claim: { graph: CLAW, predicate: "max-degree", parameter: 3 }, shows: ["Cs", "max-degree", "parameter"] },
+  // A3 = P3: h = 4, |W(A3)| = 4! = 24 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+  "dynkin-data": { claim: { type: "A3", graph: P3, coxeterNumber: 4, weylGroupOrder: "24" }, shows: ["Bg", "Coxeter number h", "24"] },
   // Connected graphs on ≤ 3 vertices with ρ < 2: P1, P2, P3 (K3 has ρ = 2).
   enumeration: {
     claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] },
