@@ -4,10 +4,43 @@
  */
 
 /**
- * The label of a step: its case's number, a colon, and its place in the case ("2.1:3" is the third
- * step of case 2.1). A dot would be ambiguous: "2.1.3" could as well be case 2.1.3.
+ * Step labels: a step is named by its case's number and a letter for its place in the case, in
+ * parentheses: "3.2.1(a)" is the first step of case 3.2.1, "3.2.1(b)" the second. A dot or a bare
+ * number would be ambiguous ("2.1.3" could as well be case 2.1.3); a letter in parentheses cannot be.
+ *
+ * Places past 26 go on as spreadsheet columns do (bijective base 26): (a)…(z), (aa), (ab)…(az),
+ * (ba)…(zz), (aaa)… — so every place has exactly one letter string and every string of letters a-z
+ * names exactly one place. This module owns the format: pages, API fields, exports, the timeline and
+ * notifications all ask it, and nothing else builds or reads a label.
  */
-export const stepLabel = (caseNumber: string, place: number): string => `${caseNumber}:${place}`;
+const LETTERS = "abcdefghijklmnopqrstuvwxyz";
+
+/** The letters of a place: 1 → "a", 26 → "z", 27 → "aa", 52 → "az", 53 → "ba", 703 → "aaa". */
+export function placeLetters(place: number): string {
+  if (!Number.isSafeInteger(place) || place < 1) throw new RangeError(`a step's place is a whole number from 1, not ${place}`);
+  let out = "";
+  for (let n = place; n > 0; n = Math.floor((n - 1) / 26)) out = LETTERS[(n - 1) % 26] + out;
+  return out;
+}
+
+/** The place of a letter string ("a" → 1, "aa" → 27); null when it is not lower-case letters a-z. */
+export function placeOfLetters(letters: string): number | null {
+  if (!/^[a-z]{1,10}$/.test(letters)) return null;
+  let n = 0;
+  for (const ch of letters) n = n * 26 + (ch.charCodeAt(0) - 96);
+  return n;
+}
+
+/** The label of a step: "2.1(c)" is the third step of case 2.1. */
+export const stepLabel = (caseNumber: string, place: number): string => `${caseNumber}(${placeLetters(place)})`;
+
+const LABEL = /^(\d+(?:\.\d+)*)\(([a-z]{1,10})\)$/;
+
+/** Reads a label back into its case number and place; null for anything that is not a step label. */
+export function parseStepLabel(label: string): { caseNumber: string; place: number } | null {
+  const m = LABEL.exec(label.trim());
+  return m ? { caseNumber: m[1], place: placeOfLetters(m[2])! } : null;
+}
 
 /**
  * The label of every step, its place being its rank among its case's steps by position (then id), as the
@@ -28,16 +61,18 @@ export function labelSteps(
   return out;
 }
 
-/** Orders step labels as the proof reads: by case number part by part (a case before its sub-cases), then by place. */
+/**
+ * Orders step labels as the proof reads: by case number part by part (a case's own steps before its
+ * sub-cases), then by place ("1(b)" before "1(aa)"). Anything that is not a label sorts last, as text.
+ */
 export function compareStepLabels(a: string, b: string): number {
-  const parts = (label: string) => {
-    const [caseNumber, place] = label.split(":");
-    return { caseParts: caseNumber.split(".").map(Number), place: Number(place) };
-  };
-  const x = parts(a),
-    y = parts(b);
-  for (let i = 0; i < Math.min(x.caseParts.length, y.caseParts.length); i++) if (x.caseParts[i] !== y.caseParts[i]) return x.caseParts[i] - y.caseParts[i];
-  return x.caseParts.length - y.caseParts.length || x.place - y.place;
+  const x = parseStepLabel(a),
+    y = parseStepLabel(b);
+  if (!x || !y) return x ? -1 : y ? 1 : a < b ? -1 : a > b ? 1 : 0;
+  const xs = x.caseNumber.split(".").map(Number),
+    ys = y.caseNumber.split(".").map(Number);
+  for (let i = 0; i < Math.min(xs.length, ys.length); i++) if (xs[i] !== ys[i]) return xs[i] - ys[i];
+  return xs.length - ys.length || x.place - y.place;
 }
 
 export interface CaseRow {
@@ -106,3 +141,6 @@ export function casesBelow(roots: Iterable<number>, cases: ReadonlyArray<{ id: n
   }
   return out;
 }
+
+/** The overview's anchor of the thread on the statement (no case number) or on a case's condition. */
+export const commentsAnchor = (caseNumber: string | null): string => (caseNumber === null ? "statement-comments" : `case-${caseNumber}-comments`);

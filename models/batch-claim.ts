@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-import { BATCH_KINDS, type BatchKind } from "../lib/core/batch";
+import { BATCH_KINDS, type BatchKind } from "../lib/core/claims/batch";
 
 export type BatchStatus = "queued" | "running" | "done" | "cancelled";
 export type BatchVerdict = "verified" | "refuted" | "undecided" | "unreadable";

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { FileKind } from "@/lib/uploads/detect";
-import type { GraphListFormat } from "@/lib/core/graph-list";
+import type { GraphListFormat } from "@/lib/core/input/graph-list";
 
 /** A file uploaded to a step; its bytes are the file-store object named by `sha256`. */
 export class StepFile extends Model<InferAttributes<StepFile>, InferCreationAttributes<StepFile>> {

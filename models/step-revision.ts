@@ -11,7 +11,7 @@ export class StepRevision extends Model<InferAttributes<StepRevision>, InferCrea
   declare baseRevisionId: CreationOptional<number | null>;
   /** The claims attached at this revision, as JSON (lib/review/revisions.ts RevisionClaim[]). */
   declare claimSet: CreationOptional<string | null>;
-  /** SHA-256 of text and claim set (lib/core/revision-digest.ts): what a vouch at this revision covers. */
+  /** SHA-256 of text and claim set (lib/core/certificates/revision-digest.ts): what a vouch at this revision covers. */
   declare digest: CreationOptional<string | null>;
   /** "claims" when made by attaching, withdrawing or re-deciding a claim; "text" when saved from the editor. */
   declare origin: CreationOptional<"text" | "claims">;

@@ -6,8 +6,8 @@
 import type { Sequelize } from "sequelize";
 import { models } from "@/models";
 import answer from "@/lib/verification/worker-entry";
-import { claimDigest } from "@/lib/core/claims";
-import { validateClaim } from "@/lib/core/claim-schema";
+import { claimDigest } from "@/lib/core/claims/claims";
+import { validateClaim } from "@/lib/core/claims/claim-schema";
 import { claimSetText, digestOfRevision, type RevisionClaim } from "@/lib/review/revisions";
 import { demoPeople, demoProof } from "./demo-content";
 

@@ -1,4 +1,4 @@
-import type { ClaimInputsView, GraphInputView, InputEntry } from "@/lib/core/claim-display";
+import type { ClaimInputsView, GraphInputView, InputEntry } from "@/lib/core/claims/claim-display";
 
 /** A code text that wraps anywhere (graph6, vectors, edge lists). */
 function Code({ text, label }: { text: string; label?: string }) {
@@ -67,7 +67,7 @@ function Entry({ e, download }: { e: InputEntry; download?: string }) {
 }
 
 /**
- * A claim's inputs as lib/core/claim-display.ts gives them, the same on the claim card, in the claims
+ * A claim's inputs as lib/core/claims/claim-display.ts gives them, the same on the claim card, in the claims
  * table and in the print view. `download` is the address of the full input (web pages); without it the
  * summary points to the bundle (print view).
  */

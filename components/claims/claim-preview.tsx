@@ -1,7 +1,7 @@
 "use client";
 import { useMemo } from "react";
-import { parseGraph, type GraphFormat } from "@/lib/core/parse";
-import { describeBound, parseBound } from "@/lib/core/bound";
+import { parseGraph, type GraphFormat } from "@/lib/core/input/parse";
+import { describeBound, parseBound } from "@/lib/core/arithmetic/bound";
 import { summarizeGraph, describeGraphSummary, degree } from "@/lib/core/graph";
 import { pictureOf } from "@/lib/verification/picture";
 import { GraphPicture } from "@/components/graph/graph-picture";

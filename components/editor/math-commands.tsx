@@ -21,7 +21,7 @@ import {
 /** A case or step this text may point to: the label as the pages print it, and what it is. */
 export interface Reference {
   label: string;
-  /** The words inserted, e.g. "Case 2.1" or "Step 2.1:3". */
+  /** The words inserted, e.g. "Case 2.1" or "Step 2.1(c)". */
   text: string;
 }
 

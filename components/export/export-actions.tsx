@@ -1,7 +1,7 @@
 "use client";
 import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
-import type { ExportKind } from "@/lib/core/bundle";
+import type { ExportKind } from "@/lib/core/certificates/bundle";
 import type { ExportActionResult } from "@/lib/validations/export";
 
 /**

@@ -1,4 +1,4 @@
-import type { ExportKind } from "@/lib/core/bundle";
+import type { ExportKind } from "@/lib/core/certificates/bundle";
 
 const look: Record<ExportKind, { glyph: string; className: string }> = {
   certified: { glyph: "▲", className: "border-verified/50 text-verified" },

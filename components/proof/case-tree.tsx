@@ -1,16 +1,20 @@
 import Link from "next/link";
-import { stepLabel, type CaseNode } from "@/lib/proof-tree";
+import { commentsAnchor, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { StepMoveButtons } from "./step-move-buttons";
 import { CaseStateBadge } from "./case-state-badge";
 import { CaseActions } from "./case-actions";
+import { PlaceComments } from "@/components/review/place-comments";
+import type { PlaceThread } from "@/lib/data/proof-comments";
 
 export interface TreeOptions {
   proofId: number;
   /** Authors get the editing controls (their "move under…" menus read the cases from CaseTargets). */
   editable: boolean;
+  /** Each visible case's condition thread, by case id (a case without one shows no thread). */
+  conditionThreads?: Record<number, PlaceThread>;
 }
 
 /** The case tree: numbered cases with their derived state, condition and steps at their latest revision. */
@@ -28,6 +32,15 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
               <CaseStateBadge state={c.state} />
             </div>
             <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
+            {options.conditionThreads?.[c.id] && (
+              <PlaceComments
+                url={`/api/proofs/${options.proofId}/cases/${c.id}/comments`}
+                anchor={commentsAnchor(c.number)}
+                what={`the condition of case ${c.number}`}
+                digest={options.conditionThreads[c.id].digest}
+                comments={options.conditionThreads[c.id].comments}
+              />
+            )}
             {options.editable && (
               <CaseActions
                 proofId={options.proofId}

@@ -12,15 +12,15 @@
 import { readFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { BUNDLE_FORMAT, checkBundle } from "./bundle";
-import { readClaimsDocument } from "./claim-file";
-import { ClaimError } from "./claim-schema";
-import { CHECKER_VERSION, describeRanOn, verifyClaim, type ClaimResult } from "./claims";
+import { BUNDLE_FORMAT, checkBundle } from "./certificates/bundle";
+import { readClaimsDocument } from "./claims/claim-file";
+import { ClaimError } from "./claims/claim-schema";
+import { CHECKER_VERSION, describeRanOn, verifyClaim, type ClaimResult } from "./claims/claims";
 import { TimedBudget } from "./time-budget";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
-import { EXIT_MALFORMED, EXIT_OK, claimLineFields, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
+import { EXIT_MALFORMED, EXIT_OK, claimLineFields, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./certificates/check-report";
 
-export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./check-report";
+export { EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./certificates/check-report";
 
 const MARK: Record<CheckLine["status"], string> = { verified: "✓", refuted: "✗", undecided: "?", malformed: "!" };
 

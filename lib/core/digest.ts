@@ -5,7 +5,7 @@
 
 import { createHash } from "node:crypto";
 import type { Graph } from "./graph";
-import { canonicalJson, graphJson } from "./canonical";
+import { canonicalJson, graphJson } from "./input/canonical";
 
 /** Lower-case hex SHA-256 of the UTF-8 encoding of a text. */
 export function sha256Hex(text: string): string {

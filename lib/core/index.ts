@@ -14,17 +14,17 @@ export * from "./verdict";
 export * from "./time-budget";
 
 // Reading and writing graphs; canonical JSON and digests.
-export { parseGraph, parseEdgeList, parseAdjacencyMatrix, detectFormat, MAX_PARSED_VERTICES, type GraphFormat } from "./parse";
-export * from "./graph6";
-export { parseNamed, looksNamed, NAMED_FAMILIES } from "./named";
-export * from "./constructors";
-export * from "./canonical";
+export { parseGraph, parseEdgeList, parseAdjacencyMatrix, detectFormat, MAX_PARSED_VERTICES, type GraphFormat } from "./input/parse";
+export * from "./input/graph6";
+export { parseNamed, looksNamed, NAMED_FAMILIES } from "./input/named";
+export * from "./input/constructors";
+export * from "./input/canonical";
 export * from "./digest";
 
 // Exact numbers and bounds.
-export { NumberFormatError, parseRational, rat, ratToString, ratToNumber, type Rational } from "./rational";
-export { parseBound, rationalBound, twoCosBound, compareToBound, boundApprox, type Bound } from "./bound";
-export { polyToString, type Poly } from "./sturm";
+export { NumberFormatError, parseRational, rat, ratToString, ratToNumber, type Rational } from "./arithmetic/rational";
+export { parseBound, rationalBound, twoCosBound, compareToBound, boundApprox, type Bound } from "./arithmetic/bound";
+export { polyToString, type Poly } from "./arithmetic/sturm";
 
 // Structure.
 export {
@@ -44,7 +44,7 @@ export {
   type ConnectivityCertificate,
   type TreeCertificate,
   type BipartiteCertificate,
-} from "./structure";
+} from "./families/structure";
 export {
   maxDegree,
   recheckMaxDegree,
@@ -58,7 +58,7 @@ export {
   type BranchVerticesCertificate,
   type LegsCertificate,
   type StarlikeCertificate,
-} from "./degree-structure";
+} from "./families/degree-structure";
 
 // Containment and identification.
 export {
@@ -74,7 +74,7 @@ export {
   type AbsenceArgument,
   type ExclusionCertificate,
   type SubgraphOptions,
-} from "./subgraph";
+} from "./subgraph/subgraph";
 export {
   identifySmith,
   recheckIdentification,
@@ -82,15 +82,16 @@ export {
   type IsomorphismCertificate,
   type ForbiddenSubgraphCertificate,
   type ExpectedFamily,
-} from "./identify";
-export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type SmithFamily } from "./smith-families";
+} from "./families/identify";
+export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type SmithFamily } from "./families/smith-families";
 
 // Spectra.
-export { spectralRadiusBound, recheckSpectralRadiusBound, inertia, type Relation, type SpectralRadiusCertificate } from "./inertia";
-export { characteristicPolynomial, charpolyBerkowitz } from "./charpoly";
-export { checkVectorCertificate, checkRayleighCertificate, recheckVectorCertificate, type VectorEvidence } from "./vector";
-export * from "./spectral";
-export * from "./perron";
+export { spectralRadiusBound, recheckSpectralRadiusBound, inertia, type Relation, type SpectralRadiusCertificate } from "./spectral/inertia";
+export { characteristicPolynomial, charpolyBerkowitz } from "./spectral/charpoly";
+export { checkVectorCertificate, checkRayleighCertificate, recheckVectorCertificate, type VectorEvidence } from "./spectral/vector";
+export * from "./spectral/spectral";
+export * from "./spectral/perron";
+export * from "./spectral/dynkin-data";
 
 // Claims, the checker's reports, and exported bundles.
 export {
@@ -117,9 +118,10 @@ export {
   type IdentificationClaim,
   type CharacteristicPolynomialClaim,
   type EigenvaluesClaim,
+  type DynkinDataClaim,
   type StructureClaim,
-} from "./claim-schema";
-export { readClaimsDocument, type ClaimEntry } from "./claim-file";
+} from "./claims/claim-schema";
+export { readClaimsDocument, type ClaimEntry } from "./claims/claim-file";
 export {
   CHECKER_VERSION,
   verifyClaim,
@@ -131,7 +133,7 @@ export {
   type ClaimCertificate,
   type CertificateCheck,
   type VerifyOptions,
-} from "./claims";
-export { CLAIM_LIMITS } from "./claim-support";
-export * from "./check-report";
-export * from "./bundle";
+} from "./claims/claims";
+export { CLAIM_LIMITS } from "./claims/claim-support";
+export * from "./certificates/check-report";
+export * from "./certificates/bundle";

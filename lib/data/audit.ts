@@ -33,7 +33,7 @@ export interface AuditEntry {
   subjectId: number | null;
   detail: string | null;
   actorName: string | null;
-  /** "step 2.1:1 (case 2.1, “Title”)", "case 3.2, “Title”", or "the proof": where the event happened, in the pages' labels. */
+  /** "step 2.1(a) (case 2.1, “Title”)", "case 3.2, “Title”", or "the proof": where the event happened, in the pages' labels. */
   subjectLabel: string;
   /** The event in one sentence: who did what, where (lib/review/event-sentences.ts). */
   sentence: string;
@@ -44,7 +44,7 @@ export interface AuditEntry {
   at: string;
 }
 
-/** Numbers and titles of the proof's cases ("3.2") and labels of its steps ("3.2:1", lib/proof-tree.ts), for readable subjects. */
+/** Numbers and titles of the proof's cases ("3.2") and labels of its steps ("3.2(a)", lib/proof-tree.ts), for readable subjects. */
 async function labels(
   proofId: number,
 ): Promise<{ cases: Map<number, string>; titles: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
@@ -79,7 +79,7 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
       if (wanted.length === 0) return;
       // Claims are read unscoped: a withdrawn claim's events still belong to its case.
       const rows = await (model as typeof Review).unscoped().findAll({ where: { id: wanted }, attributes: ["id", "stepId"] });
-      for (const r of rows) found.set(`${type}:${r.id}`, r.stepId);
+      for (const r of rows) if (r.stepId !== null) found.set(`${type}:${r.id}`, r.stepId);
     }),
   );
   return found;

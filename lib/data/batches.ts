@@ -3,9 +3,9 @@ import { Op } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { invalid, notFound, conflict } from "@/lib/errors";
-import { batchStatement } from "@/lib/core/batch";
-import { CHECKER_VERSION } from "@/lib/core/claims";
-import { NumberFormatError } from "@/lib/core/rational";
+import { batchStatement } from "@/lib/core/claims/batch";
+import { CHECKER_VERSION } from "@/lib/core/claims/claims";
+import { NumberFormatError } from "@/lib/core/arithmetic/rational";
 import {
   batchChunkSize,
   QueueUnavailable,
@@ -17,7 +17,7 @@ import {
   type VerificationService,
 } from "@/lib/jobs/queue";
 import { batchColumns, listEntries } from "@/lib/jobs/batch";
-import type { BatchStatement } from "@/lib/core/batch";
+import type { BatchStatement } from "@/lib/core/claims/batch";
 import type { CreateBatchInput } from "@/lib/validations/batch";
 import type { BatchClaim, BatchResult, BatchStatus, BatchVerdict } from "@/models/batch-claim";
 

@@ -46,6 +46,19 @@ export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number
 }
 
 /** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
+/** The steps of these cases, in their order (position, then id). */
+export async function stepsOfCases(caseIds: number[]) {
+  if (caseIds.length === 0) return [];
+  const { Step } = models();
+  return Step.findAll({
+    where: { caseId: caseIds },
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
+}
+
 export async function liveCases(proofId: number, transaction?: Transaction) {
   const { Case } = models();
   const all = await Case.findAll({
@@ -82,19 +95,11 @@ export async function getProofOverview(proofId: number, visible: ReadonlySet<num
 }
 
 async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
-  const { Step, StepRevision, User, Claim, Review, Proof } = models();
+  const { StepRevision, User, Claim, Review, Proof } = models();
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
   const required = proof?.requiredApprovals ?? 1;
-  const steps = cases.length
-    ? await Step.findAll({
-        where: { caseId: cases.map((c) => c.id) },
-        order: [
-          ["position", "ASC"],
-          ["id", "ASC"],
-        ],
-      })
-    : [];
+  const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
   const [revisions, claims, reviews] = stepIds.length
     ? await Promise.all([

@@ -9,7 +9,7 @@ import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { refereeLens } from "./blind";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
-import type { Bundle, ExportKind } from "@/lib/core/bundle";
+import type { Bundle, ExportKind } from "@/lib/core/certificates/bundle";
 import { QueueUnavailable, runBundleJob } from "@/lib/jobs/queue";
 import { TIME_LIMIT_MS } from "@/lib/verification/limits";
 import { buildBundle } from "@/lib/export/bundle";
@@ -18,7 +18,7 @@ import { renderLatex } from "@/lib/export/latex";
 import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotRound, type SnapshotStep } from "@/lib/export/snapshot";
 import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
 import type { ClaimStatus, DisputeState } from "@/lib/review/states";
-import { liveCases } from "./cases";
+import { liveCases, stepsOfCases } from "./cases";
 import { listRoundViews } from "./rounds";
 import { recordEvent } from "./audit";
 
@@ -26,7 +26,7 @@ const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: str
 
 /** The proof as it stands: live cases in order, each step's latest revision, all reviews and claims. */
 export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | null> {
-  const { Proof, ProofMember, User, Step, StepRevision, Review, Claim } = models();
+  const { Proof, ProofMember, User, StepRevision, Review, Claim } = models();
   const proof = await Proof.findByPk(proofId);
   if (!proof) return null;
   const [members, cases] = await Promise.all([
@@ -40,15 +40,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
     }),
     liveCases(proofId),
   ]);
-  const steps = cases.length
-    ? await Step.findAll({
-        where: { caseId: cases.map((c) => c.id) },
-        order: [
-          ["position", "ASC"],
-          ["id", "ASC"],
-        ],
-      })
-    : [];
+  const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
   const [revisions, reviews, claims] = stepIds.length
     ? await Promise.all([

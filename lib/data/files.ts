@@ -4,7 +4,7 @@ import { getSequelize } from "@/lib/db";
 import { notFound } from "@/lib/errors";
 import { fileStore } from "@/lib/storage";
 import type { DetectedFile, FileKind } from "@/lib/uploads/detect";
-import type { GraphListFormat } from "@/lib/core/graph-list";
+import type { GraphListFormat } from "@/lib/core/input/graph-list";
 import type { StepFile } from "@/models/step-file";
 
 /**

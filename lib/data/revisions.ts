@@ -47,7 +47,7 @@ export async function lockLatest(stepId: number, transaction: Transaction): Prom
 }
 
 /**
- * "step 3.1:2 (case 3.1, “Trees with a long leg”) of “Title”", for sentences in notifications: proof, case and
+ * "step 3.1(b) (case 3.1, “Trees with a long leg”) of “Title”", for sentences in notifications: proof, case and
  * step named with the labels the pages show (lib/proof-tree.ts).
  */
 export async function stepPhrase(stepId: number, transaction?: Transaction): Promise<string> {

@@ -29,7 +29,7 @@ export interface StepDetail {
   caseId: number;
   caseNumber: string;
   caseTitle: string;
-  /** "3.2:1": the case number and the step's place in it (see stepLabel). */
+  /** "3.2(a)": the case number and the step's place in it (see stepLabel). */
   number: string;
   latest: RevisionView | null;
   revisions: Array<Omit<RevisionView, "body">>;
@@ -127,7 +127,7 @@ export async function createStep(proofId: number, caseId: number, userId: number
 
 /**
  * Moves a step one place up or down among the steps of its case (places stay 1..k, so labels such as
- * 2.1:3 follow); moving the first step up or the last down changes nothing. Reviews, revisions and
+ * 2.1(c) follow); moving the first step up or the last down changes nothing. Reviews, revisions and
  * claims stay with the step.
  */
 export async function moveStep(proofId: number, stepId: number, userId: number, move: "up" | "down"): Promise<void> {

@@ -1,11 +1,11 @@
 /**
- * Snapshot → certificate bundle ("cairn-bundle/1", sealed by lib/core/bundle.ts). Items in reading
+ * Snapshot → certificate bundle ("cairn-bundle/1", sealed by lib/core/certificates/bundle.ts). Items in reading
  * order: the proof, then each case followed by its steps and their claims, depth first.
  */
-import { CHECKER_VERSION } from "@/lib/core/claims";
-import { methodWithCertificate } from "@/lib/core/certificate-kind";
+import { CHECKER_VERSION } from "@/lib/core/claims/claims";
+import { methodWithCertificate } from "@/lib/core/certificates/certificate-kind";
 import { stepLabel } from "@/lib/proof-tree";
-import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/bundle";
+import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/certificates/bundle";
 import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type SnapshotClaim } from "./snapshot";
 
 /** Bundle items are named by the step label the pages use (lib/proof-tree.ts owns it). */

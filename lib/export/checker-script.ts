@@ -7,7 +7,7 @@
 import { execFile } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { CHECKER_VERSION } from "@/lib/core/claims";
+import { CHECKER_VERSION } from "@/lib/core/claims/claims";
 import { CHECKER_SOURCES, checkerBundlePath, isFresh } from "@/lib/verification/bundles";
 
 export class CheckerUnavailableError extends Error {}

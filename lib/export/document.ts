@@ -2,10 +2,10 @@
  * The exported document, read back from a sealed bundle, so that the LaTeX source, the print view and
  * the bundle say exactly the same thing. Pure: the writers (latex.ts, components/export) only lay it out.
  */
-import type { Bundle, ClaimItemData, ExportKind } from "@/lib/core/bundle";
+import type { Bundle, ClaimItemData, ExportKind } from "@/lib/core/certificates/bundle";
 import { isUnresolved, type DisputeState } from "@/lib/review/states";
-import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
-import { claimInputsView, type ClaimInputsView } from "@/lib/core/claim-display";
+import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificates/certificate-kind";
+import { claimInputsView, type ClaimInputsView } from "@/lib/core/claims/claim-display";
 import type { SnapshotRound } from "./snapshot";
 
 export const CAUTION_MEANS =
@@ -24,7 +24,7 @@ export interface DocClaim {
   /** The kind of the stored certificate in words, read from the certificate itself; null when there is none. */
   certificateKind: string | null;
   reason: string | null;
-  /** The inputs as entered (lib/core/claim-display.ts), with the vector a certificate carries. */
+  /** The inputs as entered (lib/core/claims/claim-display.ts), with the vector a certificate carries. */
   inputs: ClaimInputsView;
   digest: string | null;
   /** SHA-256 of the bundle item that carries the claim and its certificate. */

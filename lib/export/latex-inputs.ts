@@ -1,9 +1,9 @@
 /**
  * The appendix of claim inputs in the LaTeX export: one subsection per claim with its inputs as the
- * display model of lib/core/claim-display.ts gives them (the same model the claim card, the claims
+ * display model of lib/core/claims/claim-display.ts gives them (the same model the claim card, the claims
  * table and the print view lay out). Every user string is escaped here; long codes may break anywhere.
  */
-import type { GraphInputView, InputEntry } from "@/lib/core/claim-display";
+import type { GraphInputView, InputEntry } from "@/lib/core/claims/claim-display";
 import type { DocClaim, ExportDocument } from "./document";
 import { escapeLine } from "./latex-escape";
 

@@ -2,7 +2,7 @@
  * A proof as the data layer reads it for an export: plain objects, no models. Pure functions here
  * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
  */
-import type { CoveredClaim } from "@/lib/core/revision-digest";
+import type { CoveredClaim } from "@/lib/core/certificates/revision-digest";
 import { stepLabel } from "@/lib/proof-tree";
 import {
   caseState,
@@ -22,7 +22,7 @@ export interface SnapshotReview {
   verdict: "vouch" | "dispute";
   revisionNumber: number;
   disputeState: DisputeState | null;
-  /** The revision digest the verdict covers (lib/core/revision-digest.ts). */
+  /** The revision digest the verdict covers (lib/core/certificates/revision-digest.ts). */
   digest: string | null;
   at: string;
 }

@@ -1,7 +1,7 @@
 /**
  * Batch claims on the job engine: a batch over a graph list is split into chunks of CHUNK_SIZE graphs,
  * one BullMQ job per chunk (job id `batch-<id>-c<k>`, so queueing a chunk twice is harmless). A worker
- * checks its chunk in-process with the exact core (lib/core/batch.ts), then stores the chunk's results
+ * checks its chunk in-process with the exact core (lib/core/claims/batch.ts), then stores the chunk's results
  * and moves the batch's counts in one transaction, under the batch row's lock, skipping a chunk whose
  * results are already there: a chunk run twice after a worker died decides each graph exactly once.
  * A cancelled batch's remaining chunks do nothing.
@@ -12,11 +12,11 @@ import { models } from "../../models";
 import { fileStore } from "../storage";
 import { readEnv } from "../env";
 import { graphListText } from "../uploads/detect";
-import { readListedGraph, splitGraphList, type GraphListEntry, type GraphListFormat } from "../core/graph-list";
-import { checkListedGraphs, type BatchStatement, type ListedResult } from "../core/batch";
+import { readListedGraph, splitGraphList, type GraphListEntry, type GraphListFormat } from "../core/input/graph-list";
+import { checkListedGraphs, type BatchStatement, type ListedResult } from "../core/claims/batch";
 import { isSimple } from "../core/graph";
-import { writeGraph6 } from "../core/graph6";
-import type { Relation } from "../core/claim-schema";
+import { writeGraph6 } from "../core/input/graph6";
+import type { Relation } from "../core/claims/claim-schema";
 import { JOB_ATTEMPTS, MAX_STALLED, type BatchJobData } from "./queue";
 
 /** The list's entries, kept per file digest for the life of the worker (a batch's chunks share them). */

@@ -9,7 +9,7 @@
  * (claims stay `pending`; the workers' sweep queues them when Redis is back).
  */
 import { Queue, type ConnectionOptions, type Job } from "bullmq";
-import type { BundleCheckReport } from "../core/bundle";
+import type { BundleCheckReport } from "../core/certificates/bundle";
 
 export const QUEUE_NAME = "verification";
 /** How long the web process waits for Redis before calling verification paused. */

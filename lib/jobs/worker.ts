@@ -16,7 +16,7 @@ import { QueryTypes } from "sequelize";
 import { Worker, type Job } from "bullmq";
 import { getSequelize } from "../db";
 import { models } from "../../models";
-import type { Claim as ClaimJson } from "../core/claim-schema";
+import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";

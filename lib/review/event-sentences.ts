@@ -1,12 +1,12 @@
 /**
- * The timeline in sentences: "Celia Marwood vouched for step 2.1:1 (case 2.1, “Legs 1 and 2”) at
+ * The timeline in sentences: "Celia Marwood vouched for step 2.1(a) (case 2.1, “Legs 1 and 2”) at
  * revision 2." instead of an event code. Pure: the data layer resolves what an event is about (the
  * step label from lib/proof-tree.ts, as the pages show it) and this module only words it.
  */
 
 /** What an event is about, resolved by the data layer. */
 export interface EventPlace {
-  /** "1.1:2" (stepLabel) when the event concerns a step, or a revision, claim, review or comment of one. */
+  /** "1.1(b)" (stepLabel) when the event concerns a step, or a revision, claim, review or comment of one. */
   step: string | null;
   /** The case number and title, when known. */
   caseNumber: string | null;
@@ -21,7 +21,7 @@ export interface EventFacts {
   place: EventPlace;
 }
 
-/** "step 2.1:1 (case 2.1, “Legs 1 and 2”)", "case 2.1, “Legs 1 and 2”", or "the proof". */
+/** "step 2.1(a) (case 2.1, “Legs 1 and 2”)", "case 2.1, “Legs 1 and 2”", or "the proof". */
 export function placePhrase(p: EventPlace): string {
   const caseText = p.caseNumber ? `case ${p.caseNumber}${p.caseTitle ? `, “${p.caseTitle}”` : ""}` : null;
   if (p.step) return `step ${p.step}${caseText ? ` (${caseText})` : ""}`;
@@ -107,6 +107,8 @@ export function eventSentence(e: EventFacts): string {
     case "file.uploaded":
       return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
     case "comment.added":
+      if (e.subjectType === "proof") return `${who} commented on the statement.`;
+      if (e.subjectType === "case") return `${who} commented on the condition of ${where}.`;
       return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
     case "invitation.sent":
       return withDetail(`${who} invited a referee`);

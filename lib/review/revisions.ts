@@ -4,7 +4,7 @@
  * revision's claim set is, what changed between two revisions (in words a referee reads), and which
  * revisions count as written by someone (claim-only revisions do not make their actor an author).
  */
-import { revisionDigest } from "@/lib/core/revision-digest";
+import { revisionDigest } from "@/lib/core/certificates/revision-digest";
 import type { ClaimStatus } from "./states";
 
 export interface RevisionClaim {

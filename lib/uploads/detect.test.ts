@@ -2,7 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { gzipSync } from "fflate";
 import { detectFile, graphListText, UnpackedTooLarge, UnsupportedContent } from "./detect";
-import { describeListProblem, readListedGraph, splitGraphList } from "../core/graph-list";
+import { describeListProblem, readListedGraph, splitGraphList } from "../core/input/graph-list";
 
 const bytes = (s: string) => new TextEncoder().encode(s);
 const MiB = 1024 * 1024;

@@ -1,13 +1,13 @@
 /**
  * What an uploaded file is, decided by its bytes and never by its name: magic numbers for PDF, PNG
- * and gzip, then UTF-8 text read as a graph list (lib/core/graph-list.ts), a claims file
+ * and gzip, then UTF-8 text read as a graph list (lib/core/input/graph-list.ts), a claims file
  * (cairn-claim/1, cairn-claims/1), TeX source or plain text. Anything else is refused (415). A gzip
  * file must unpack to a graph list, and unpacking stops past a limit (a small file that unpacks to
  * gigabytes is refused, not unpacked).
  */
 import { Gunzip } from "fflate";
-import { graphListFormat, splitGraphList, type GraphListFormat } from "../core/graph-list";
-import { readClaimsDocument } from "../core/claim-file";
+import { graphListFormat, splitGraphList, type GraphListFormat } from "../core/input/graph-list";
+import { readClaimsDocument } from "../core/claims/claim-file";
 
 export const FILE_KINDS = ["graph-list", "claims", "document"] as const;
 export type FileKind = (typeof FILE_KINDS)[number];

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { RELATIONS } from "@/lib/core/claim-schema";
-import { MAX_BATCH_PATTERNS } from "@/lib/core/batch";
-import { SMITH_FAMILIES } from "@/lib/core/smith-families";
+import { RELATIONS } from "@/lib/core/claims/claim-schema";
+import { MAX_BATCH_PATTERNS } from "@/lib/core/claims/batch";
+import { SMITH_FAMILIES } from "@/lib/core/families/smith-families";
 
 const fileId = z.number({ message: "choose an uploaded graph list" }).int().positive();
 const FAMILIES = Object.keys(SMITH_FAMILIES) as [string, ...string[]];

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { perronVector, pictureOf, symmetricEigenvalues } from "./picture";
-import { parseGraph } from "../core/parse";
+import { parseGraph } from "../core/input/parse";
 
 describe("graph pictures (display only)", () => {
   it("gives a text alternative: the drawing in words and graph6 (null with a loop)", () => {

@@ -5,7 +5,7 @@
  * Pure TypeScript (no framework or database imports): it runs inside the verification worker.
  */
 import { isSimple, type Graph } from "../core/graph";
-import { writeGraph6 } from "../core/graph6";
+import { writeGraph6 } from "../core/input/graph6";
 import { describeLayout, layoutByStructure } from "./layout";
 
 /** Largest graph drawn; larger graphs get no picture (the verdict is unaffected). */

@@ -11,7 +11,7 @@ import { mkdirSync, renameSync } from "node:fs";
 import path from "node:path";
 import { Piscina } from "piscina";
 import type { BundleTask, VerificationTask, WorkerAnswer } from "./types";
-import type { BundleCheckReport } from "../core/bundle";
+import type { BundleCheckReport } from "../core/certificates/bundle";
 import { STEP_LIMIT, TIME_LIMIT_MS } from "./limits";
 import { isFresh, WORKER_SOURCES, workerBundlePath } from "./bundles";
 

@@ -3,17 +3,18 @@
  * worker thread): validates and verifies one claim with the exact core under a step budget, and
  * computes its display picture. Nothing here touches the database; the server stores the outcome.
  */
-import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims";
-import { checkInputs } from "../core/claim-inputs";
-import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claim-schema";
-import { NumberFormatError } from "../core/rational";
-import { parseGraph } from "../core/parse";
-import { boundApprox, parseBound } from "../core/bound";
+import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims/claims";
+import { checkInputs } from "../core/claims/claim-inputs";
+import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claims/claim-schema";
+import { NumberFormatError } from "../core/arithmetic/rational";
+import { parseGraph } from "../core/input/parse";
+import { dynkinDiagram } from "../core/input/constructors";
+import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
 import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
 import type { BundleTask, VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
-import { checkBundle, type BundleCheckReport } from "../core/bundle";
+import { checkBundle, type BundleCheckReport } from "../core/certificates/bundle";
 import { setPriority } from "node:os";
 import { isMainThread } from "node:worker_threads";
 
@@ -66,6 +67,8 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
   } else if (claim.kind === "exclusion") {
     add(read(claim.host), "G (host)");
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
+  } else if (claim.kind === "dynkin-data") {
+    add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {
     add(read(claim.graph), "G", embeddingIn(evidence));
   }

@@ -13,7 +13,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Lcg } from "./workloads";
 import { makeGraph } from "../../lib/core/graph";
-import { writeGraph6 } from "../../lib/core/graph6";
+import { writeGraph6 } from "../../lib/core/input/graph6";
 import type { BenchOptions, BenchSection } from "./run";
 import { startTestWorker } from "../support/workers";
 

@@ -16,18 +16,18 @@ import {
   type Workload,
 } from "./workloads";
 import { spawnSync } from "node:child_process";
-import { enumerateConnected } from "../../lib/core/enumeration";
-import { generateConnected, type GenerationOptions } from "../../lib/core/augmentation";
-import { parseBound } from "../../lib/core/bound";
-import { validateClaim } from "../../lib/core/claim-schema";
-import { verifyClaim } from "../../lib/core/claims";
-import { characteristicPolynomial } from "../../lib/core/charpoly";
+import { enumerateConnected } from "../../lib/core/families/enumeration";
+import { generateConnected, type GenerationOptions } from "../../lib/core/families/augmentation";
+import { parseBound } from "../../lib/core/arithmetic/bound";
+import { validateClaim } from "../../lib/core/claims/claim-schema";
+import { verifyClaim } from "../../lib/core/claims/claims";
+import { characteristicPolynomial } from "../../lib/core/spectral/charpoly";
 import type { Graph } from "../../lib/core/graph";
-import { identifySmith } from "../../lib/core/identify";
-import { inertia, spectralRadiusBound } from "../../lib/core/inertia";
-import { rat } from "../../lib/core/rational";
-import { findSubgraph } from "../../lib/core/subgraph";
-import { perronApproximation } from "../../lib/core/perron";
+import { identifySmith } from "../../lib/core/families/identify";
+import { inertia, spectralRadiusBound } from "../../lib/core/spectral/inertia";
+import { rat } from "../../lib/core/arithmetic/rational";
+import { findSubgraph } from "../../lib/core/subgraph/subgraph";
+import { perronApproximation } from "../../lib/core/spectral/perron";
 import { Budget } from "../../lib/core/verdict";
 
 /** A generous budget: the bench measures time, the default budget is the server's business. */

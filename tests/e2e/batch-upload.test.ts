@@ -10,7 +10,7 @@ import type { Browser } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 import { randomGraph6List } from "../bench/batch-throughput";
-import { parseGraph6 } from "@/lib/core/graph6";
+import { parseGraph6 } from "@/lib/core/input/graph6";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;

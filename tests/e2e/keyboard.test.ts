@@ -23,7 +23,7 @@ beforeAll(async () => {
   await page.getByRole("link", { name: demoProof.title }).click();
   await page.waitForURL(/\/proofs\/\d+$/);
   proofId = Number(new URL(page.url()).pathname.split("/")[2]);
-  const href = (await page.getByRole("link", { name: "Step 3:1", exact: true }).getAttribute("href"))!;
+  const href = (await page.getByRole("link", { name: "Step 3(a)", exact: true }).getAttribute("href"))!;
   revisedStep = Number(href.match(/steps\/(\d+)/)![1]);
   await page.context().close();
 }, 120_000);
@@ -100,8 +100,8 @@ describe("keyboard", () => {
     const stops = await tabStops(page);
     expectReached(stops, [
       /^a: Proofs$/,
-      /^a: Step 1:1$/,
-      /^a: Step 3\.2:1$/,
+      /^a: Step 1\(a\)$/,
+      /^a: Step 3\.2\(a\)$/,
       /^input: Case title/,
       /^a: Members and reviewers$/,
       /^div: All claims$/,

@@ -79,7 +79,7 @@ describe("review workflow in the browser", () => {
     const queue = reviewer.getByTestId("queue-verdicts");
     await queue.waitFor();
     expect(await queue.getByTestId("queue-row").count()).toBe(1);
-    await queue.getByRole("link", { name: "Step 3.2:1" }).click();
+    await queue.getByRole("link", { name: "Step 3.2(a)" }).click();
     await reviewer.waitForURL(/\/queue\/\d+\/\d+$/);
     const stepPath = new URL(reviewer.url()).pathname;
     const stepId = Number(stepPath.split("/")[3]);
@@ -126,7 +126,7 @@ describe("review workflow in the browser", () => {
 
     // The reviewer sees the answer, closes the dispute and approves revision 2: case 3.2 is settled.
     await reviewer.goto(`${baseUrl}/queue`);
-    await reviewer.getByTestId("queue-answered").getByRole("link", { name: "Step 3.2:1" }).click();
+    await reviewer.getByTestId("queue-answered").getByRole("link", { name: "Step 3.2(a)" }).click();
     await reviewer.waitForURL(`${baseUrl}${stepPath}`);
     await reviewer.getByText("revision 2 by Ada Quenby").waitFor();
     // The referee compares revisions 1 and 2, typeset side by side with the changed words marked.

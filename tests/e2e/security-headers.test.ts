@@ -91,7 +91,11 @@ describe("security headers", () => {
     // The step editor (loaded on demand) with its live preview of math.
     found.push(
       ...(await cspViolations(fx.contexts.owner, `${baseUrl}${p}/steps/${fx.stepIn}`, async (page) => {
-        const box = page.locator("textarea").first();
+        // The step editor by its label: the page also holds folded comment boxes (hidden textareas) that may come first.
+        // The editor opens on request (the page reads first).
+        const edit = page.getByTestId("step-edit");
+        if ((await edit.getAttribute("open")) === null) await edit.locator("summary").click();
+        const box = page.getByLabel("step text (Markdown with $…$ math)");
         await box.waitFor({ timeout: 20_000 });
         await box.fill("Preview: $\\sqrt{2+\\sqrt5}$ and $$\\rho(T) \\le 2$$");
         await page.locator(".katex").first().waitFor();

@@ -63,7 +63,7 @@ describe("proof workspace in the browser", () => {
     await page.getByTestId("add-step").getByRole("textbox").fill("$K_{1,5} \\subseteq G$, hence\n\n$$\n\\rho(G) \\ge \\rho(K_{1,5}) = \\sqrt{5}.\n$$");
     await page.getByRole("button", { name: "Add step and open it" }).click();
     await page.waitForURL(/\/steps\/\d+$/);
-    await page.getByText("Step 1:1").first().waitFor();
+    await page.getByText("Step 1(a)").first().waitFor();
     expect(await page.locator("main .katex").count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator("main .katex-display").count()).toBeGreaterThanOrEqual(1);
 
@@ -108,12 +108,12 @@ describe("proof workspace in the browser", () => {
     await table.waitFor();
     expect(await table.locator('tbody [data-verdict="verified"]').count()).toBe(1);
     await table.getByLabel("Verdict").selectOption("verified");
-    expect(await table.getByRole("link", { name: "1:1" }).count()).toBe(1);
+    expect(await table.getByRole("link", { name: "1(a)" }).count()).toBe(1);
 
-    // Reordering renumbers: case 1 moves down and its step becomes 2:1; a case is edited in place.
+    // Reordering renumbers: case 1 moves down and its step becomes 2(a); a case is edited in place.
     await page.getByRole("button", { name: "move case 1 down" }).click();
     await page.locator('[data-case-number="1"]', { hasText: "All degrees at most 4" }).waitFor();
-    await page.getByTestId("claims-table").getByRole("link", { name: "2:1" }).waitFor();
+    await page.getByTestId("claims-table").getByRole("link", { name: "2(a)" }).waitFor();
     await page.getByTestId("case-actions-1").getByRole("button", { name: "✎ Edit" }).click();
     await page.getByTestId("edit-case").getByLabel("Title").fill("Maximum degree at most 4");
     await page.getByTestId("edit-case").getByRole("button", { name: "Save case" }).click();
@@ -172,8 +172,8 @@ describe("proof workspace in the browser", () => {
     await page.request.post(`${proofUrl.replace(baseUrl, `${baseUrl}/api`)}/cases/${caseId}/steps`, { data: { body: "A second step, $E_6$." } });
     await page.goto(proofUrl);
 
-    // The second step moves up: it becomes 1:1 and the first one 1:2.
-    await page.getByRole("button", { name: "move step 1:2 up" }).click();
+    // The second step moves up: it becomes 1(a) and the first one 1(b).
+    await page.getByRole("button", { name: "move step 1(b) up" }).click();
     await page.getByTestId("step").first().getByText("A second step").waitFor();
     expect(await page.getByTestId("step").nth(1).textContent()).toContain("A step worth keeping.");
 
@@ -185,7 +185,7 @@ describe("proof workspace in the browser", () => {
     await page.getByTestId("deleted-cases").locator("summary").click();
     await page.getByTestId("deleted-case").getByRole("button", { name: "↺ Restore" }).click();
     await page.locator('[data-case-number="1"]', { hasText: "Only case" }).waitFor();
-    await page.getByText("Step 1:2").waitFor();
+    await page.getByText("Step 1(b)").waitFor();
     expect(await page.getByTestId("step").count()).toBe(2);
     expect(await page.getByTestId("deleted-cases").count()).toBe(0);
     await context.close();

@@ -22,7 +22,7 @@ import { closeSequelize, getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { closeQueue, verificationQueue, FILE_SWEEP_SCHEDULER } from "@/lib/jobs/queue";
 import { listEntries } from "@/lib/jobs/batch";
-import { checkListedGraphs } from "@/lib/core/batch";
+import { checkListedGraphs } from "@/lib/core/claims/batch";
 import { fileStore, sha256Hex } from "@/lib/storage";
 import { LocalStore } from "@/lib/storage/local";
 import { sweepStoredFiles } from "@/lib/data/file-sweep";

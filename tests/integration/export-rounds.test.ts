@@ -13,7 +13,7 @@ import { join } from "node:path";
 import { actAs, jsonRequest, params, userIdOf } from "./helpers";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { checkBundle } from "@/lib/core/bundle";
+import { checkBundle } from "@/lib/core/certificates/bundle";
 import { compileLatex } from "@/lib/export/pdf";
 import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
 import { openRound, recordDecision, saveReportDraft, submitReport } from "@/lib/data/rounds";

@@ -5,7 +5,7 @@ vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeo
 import { actAs, demoProofId, jsonRequest, params, userIdOf } from "./helpers";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { checkBundle } from "@/lib/core/bundle";
+import { checkBundle } from "@/lib/core/certificates/bundle";
 import { compileLatex } from "@/lib/export/pdf";
 import { createHash } from "node:crypto";
 import { mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
@@ -142,7 +142,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
     expect(bundle.manifestDigest).toBe(made.manifestDigest);
     const report = checkBundle(bundle, "downloaded");
     expect(report.exitCode).toBe(0);
-    expect(report.lines.find((l) => l.label === "claim 1:1#1")?.status).toBe("verified");
+    expect(report.lines.find((l) => l.label === "claim 1(a)#1")?.status).toBe("verified");
 
     const tex = await (await file(texRoute, proofId, made.id)).text();
     expect(tex).toContain(String.raw`Settled \textbackslash{}input\{/etc/passwd\} \& 100\% \#1 \_x\_`);
@@ -174,8 +174,8 @@ describe("POST /api/proofs/:proofId/exports", () => {
       expect(refused.status).toBe(409);
       const body = await refused.json();
       expect(body.error.code).toBe("conflict");
-      expect(body.error.message).toContain("Step 1:1 has 1 open dispute.");
-      expect(body.error.blockers).toContain("Step 1:1 has 1 open dispute.");
+      expect(body.error.message).toContain("Step 1(a) has 1 open dispute.");
+      expect(body.error.blockers).toContain("Step 1(a) has 1 open dispute.");
 
       const draft = await create(proofId, { kind: "draft" });
       expect(draft.status).toBe(201);
@@ -185,7 +185,7 @@ describe("POST /api/proofs/:proofId/exports", () => {
       expect(tex).toContain(String.raw`\fancyhead[R]{\small \textbf{DRAFT --- not certified}}`);
       const bundle = await (await file(bundleRoute, proofId, made.id)).json();
       expect(bundle.export).toMatchObject({ kind: "draft", proofState: "in progress" });
-      expect(bundle.items.find((i: { id: string }) => i.id === "step 1:1").data.reviews).toContainEqual(
+      expect(bundle.items.find((i: { id: string }) => i.id === "step 1(a)").data.reviews).toContainEqual(
         expect.objectContaining({ verdict: "dispute", disputeState: "raised" }),
       );
     } finally {

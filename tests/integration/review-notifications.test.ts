@@ -46,7 +46,7 @@ describe("notifications", () => {
     // A sentence naming proof, case and step with the pages' labels, and a link to the dispute itself.
     const raised = await models().Review.findOne({ where: { stepId: fx.steps["1.1"], verdict: "dispute" } });
     const title = (await models().Proof.findByPk(fx.proofId))!.title;
-    expect(mine[0].message).toBe(`A referee raised a dispute on revision 1 of step 1:1 (case 1, “Small”) of “${title}”, a step you are an author of.`);
+    expect(mine[0].message).toBe(`A referee raised a dispute on revision 1 of step 1(a) (case 1, “Small”) of “${title}”, a step you are an author of.`);
     expect(mine[0].link).toBe(`/queue/${fx.proofId}/${fx.steps["1.1"]}#dispute-${raised!.id}`);
     expect(body.unread).toBeGreaterThanOrEqual(1);
 
@@ -102,8 +102,8 @@ describe("settings and the audit trail", () => {
       actorName: "Celia Marwood",
       subjectType: "step",
       subjectId: fx.steps["2.1"],
-      subjectLabel: "step 2:1 (case 2, “Large”)",
-      sentence: "Celia Marwood raised a dispute on step 2:1 (case 2, “Large”) at revision 1.",
+      subjectLabel: "step 2(a) (case 2, “Large”)",
+      sentence: "Celia Marwood raised a dispute on step 2(a) (case 2, “Large”) at revision 1.",
       href: `/proofs/${fx.proofId}/steps/${fx.steps["2.1"]}`,
     });
     expect(events.map((e) => e.action).filter((a) => a === "review.disputed")).toHaveLength(2);

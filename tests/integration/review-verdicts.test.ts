@@ -111,7 +111,7 @@ describe("verdicts: POST /api/proofs/[proofId]/steps/[stepId]/reviews", () => {
     expect(await reviewCount()).toBe(before);
 
     const queue = await getReviewerQueue(fx.ids.reviewer);
-    expect(queue.steps.find((r) => r.stepId === stepId)).toMatchObject({ reason: "vouch superseded", revision: 2, stepLabel: "1:1" });
+    expect(queue.steps.find((r) => r.stepId === stepId)).toMatchObject({ reason: "vouch superseded", revision: 2, stepLabel: "1(a)" });
     expect((await verdict(fx.proofId, stepId, { revisionId: (await latestRevision(stepId)).id, verdict: "vouch" })).status).toBe(201);
     expect((await getReviewerQueue(fx.ids.reviewer)).steps.find((r) => r.stepId === stepId)).toBeUndefined();
   });
@@ -138,7 +138,7 @@ describe("a dispute from open to closed", () => {
     expect(await Notification.count({ where: { userId: fx.ids.reviewer, kind: "dispute_raised", stepId: fx.steps[stepKey] } })).toBe(0);
     const mail = await waitForMail("ada.quenby@tarnhollow.example", /A new dispute on your step/);
     expect(mail.text).toContain(`/queue/${fx.proofId}/${fx.steps[stepKey]}`);
-    expect((await getAuthorQueue(fx.ids.author)).find((d) => d.disputeId === disputeId)).toMatchObject({ state: "raised", stepLabel: "2:1" });
+    expect((await getAuthorQueue(fx.ids.author)).find((d) => d.disputeId === disputeId)).toMatchObject({ state: "raised", stepLabel: "2(a)" });
   });
 
   it("refuses a second dispute and an approval while it is unresolved (409)", async () => {

@@ -38,8 +38,8 @@ describe("PATCH /api/proofs/[proofId]/steps/[stepId]", () => {
     await actAs("author");
     expect((await move(s3, { move: "up" })).status).toBe(200);
     expect(await order()).toEqual([s1, s3, s2]);
-    expect(await label(s3)).toBe("1:2");
-    expect(await label(s2)).toBe("1:3");
+    expect(await label(s3)).toBe("1(b)");
+    expect(await label(s2)).toBe("1(c)");
     expect((await move(s1, { move: "up" })).status).toBe(200); // already first: nothing changes
     expect((await move(s2, { move: "down" })).status).toBe(200); // already last
     expect(await order()).toEqual([s1, s3, s2]);

@@ -75,7 +75,7 @@ describe("a vouch covers the text and the claims of one revision", () => {
     expect(compared.to.body).toBe(r1.body);
     const [notice] = await inbox(fx.ids.reviewer);
     expect(notice.message).toMatch(
-      /^Your vouch for step 1:1 \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/,
+      /^Your vouch for step 1\(a\) \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/,
     );
     expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);
 

@@ -9,7 +9,7 @@ import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { closePool, runInPool } from "@/lib/verification/pool";
-import { CLAIM_KINDS } from "@/lib/core/claim-schema";
+import { CLAIM_KINDS } from "@/lib/core/claims/claim-schema";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
@@ -177,7 +177,7 @@ describe("claims list, one claim and re-check", () => {
     expect(list.status).toBe(200);
     const rows = (await list.json()).claims;
     expect(rows.length).toBeGreaterThanOrEqual(2);
-    expect(rows[0]).toMatchObject({ stepNumber: "1:1", caseNumber: "1", kind: "spectral-radius-bound", status: "verified" });
+    expect(rows[0]).toMatchObject({ stepNumber: "1(a)", caseNumber: "1", kind: "spectral-radius-bound", status: "verified" });
     expect((await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }))).status).toBe(403);
     await actAs("author");
     const again = await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(rows[0].id) }));

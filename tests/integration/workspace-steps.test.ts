@@ -114,7 +114,7 @@ describe("revisions", () => {
     expect((await diffRoute.GET(new Request("http://localhost/x?from=1"), params({ proofId, stepId: String(step.id) }))).status).toBe(422);
     expect((await diffRoute.GET(new Request("http://localhost/x?from=1&to=99"), params({ proofId, stepId: String(step.id) }))).status).toBe(404);
     const full = await stepRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId: String(step.id) }));
-    expect((await full.json()).step).toMatchObject({ number: "1:1", caseTitle: "Exactly one branch vertex" });
+    expect((await full.json()).step).toMatchObject({ number: "1(a)", caseTitle: "Exactly one branch vertex" });
     expect((await revisionRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId: String(step.id), number: "99" }))).status).toBe(404);
     expect((await stepRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId: "987654" }))).status).toBe(404);
     await actAs("outsider");

@@ -3,7 +3,7 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, mkdirSync, utimesSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { CHECKER_VERSION } from "@/lib/core/claims";
+import { CHECKER_VERSION } from "@/lib/core/claims/claims";
 import { isFresh, newestSource } from "@/lib/verification/bundles";
 
 describe("bundles built at build time", () => {

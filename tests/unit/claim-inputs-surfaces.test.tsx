@@ -1,7 +1,7 @@
 /**
  * Every claim kind shows its inputs on every surface: the claim card, the claims table (short form,
  * expandable), the print view and the LaTeX export, all from the one display model of
- * lib/core/claim-display.ts; the method shown is the one that decided, with the certificate kind beside it.
+ * lib/core/claims/claim-display.ts; the method shown is the one that decided, with the certificate kind beside it.
  * The table of examples is keyed by claim kind, so a new kind without an example does not compile.
  *
  * graph6 codes are worked out by hand from McKay's format description (formats.txt: N(n) = n + 63, then
@@ -10,13 +10,13 @@
  */
 import { describe, expect, it } from "vitest";
 import { renderToStaticMarkup } from "react-dom/server";
-import { CLAIM_KINDS, validateClaim, type ClaimKind } from "@/lib/core/claim-schema";
-import { verifyClaim } from "@/lib/core/claims";
-import { claimInputsView } from "@/lib/core/claim-display";
-import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificate-kind";
+import { CLAIM_KINDS, validateClaim, type ClaimKind } from "@/lib/core/claims/claim-schema";
+import { verifyClaim } from "@/lib/core/claims/claims";
+import { claimInputsView } from "@/lib/core/claims/claim-display";
+import { certificateKindOf, methodWithoutCertificate } from "@/lib/core/certificates/certificate-kind";
 import { sha256Hex } from "@/lib/core/digest";
-import { writeGraph6 } from "@/lib/core/graph6";
-import { path } from "@/lib/core/constructors";
+import { writeGraph6 } from "@/lib/core/input/graph6";
+import { path } from "@/lib/core/input/constructors";
 import { buildBundle } from "@/lib/export/bundle";
 import { documentOf } from "@/lib/export/document";
 import { renderLatex } from "@/lib/export/latex";
@@ -47,6 +47,8 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   // A3 = P3 has Coxeter number 4 and exponents 1, 2, 3 (Bourbaki Plate I).
   eigenvalues: { claim: { graph: P3, h: 4, multiset: [1, 2, 3] }, shows: ["Bg", "1, 2, 3", "multiset of m"] },
   structure: { claim: { graph: CLAW, predicate: "max-degree", parameter: 3 }, shows: ["Cs", "max-degree", "parameter"] },
+  // A3 = P3: h = 4, |W(A3)| = 4! = 24 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+  "dynkin-data": { claim: { type: "A3", graph: P3, coxeterNumber: 4, weylGroupOrder: "24" }, shows: ["Bg", "Coxeter number h", "24"] },
   // Connected graphs on ≤ 3 vertices with ρ < 2: P1, P2, P3 (K3 has ρ = 2).
   enumeration: {
     claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] },
@@ -103,7 +105,7 @@ function rowView(c: SnapshotClaim, id: number): ClaimRowView {
   return {
     id,
     stepId: 1,
-    stepNumber: "1:1",
+    stepNumber: "1(a)",
     caseNumber: "1",
     caseTitle: "One case",
     kind: v.kind,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { claimsFromDocument, describeClaimIssue, MAX_CLAIMS_PER_REQUEST } from "@/lib/validations/claim";
-import { readClaimsDocument } from "@/lib/core/claim-file";
+import { readClaimsDocument } from "@/lib/core/claims/claim-file";
 
 const claim = (id: string) => ({ format: "cairn-claim/1", id, kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "tree" });
 

@@ -30,21 +30,21 @@ function recordedActions(): string[] {
   return [...found].sort();
 }
 
-const place = { step: "2.1:1", caseNumber: "2.1", caseTitle: "Legs 1 and 2" };
+const place = { step: "2.1(a)", caseNumber: "2.1", caseTitle: "Legs 1 and 2" };
 
 describe("event sentences", () => {
   it("name the step with the pages' label and its case with number and title", () => {
-    expect(placePhrase(place)).toBe("step 2.1:1 (case 2.1, “Legs 1 and 2”)");
+    expect(placePhrase(place)).toBe("step 2.1(a) (case 2.1, “Legs 1 and 2”)");
     expect(placePhrase({ step: null, caseNumber: "3", caseTitle: "Large" })).toBe("case 3, “Large”");
     expect(placePhrase({ step: null, caseNumber: null, caseTitle: null })).toBe("the proof");
     expect(eventSentence({ action: "review.vouched", subjectType: "step", actorName: "Celia Marwood", detail: "revision 2", place })).toBe(
-      "Celia Marwood vouched for step 2.1:1 (case 2.1, “Legs 1 and 2”) at revision 2.",
+      "Celia Marwood vouched for step 2.1(a) (case 2.1, “Legs 1 and 2”) at revision 2.",
     );
   });
 
   it("drop the database ids older details carried ('raised → withdrawn; step 8')", () => {
     const s = eventSentence({ action: "dispute.withdrawn", subjectType: "review", actorName: "Celia Marwood", detail: "raised → withdrawn; step 8", place });
-    expect(s).toBe("Celia Marwood withdrew the dispute on step 2.1:1 (case 2.1, “Legs 1 and 2”).");
+    expect(s).toBe("Celia Marwood withdrew the dispute on step 2.1(a) (case 2.1, “Legs 1 and 2”).");
   });
 
   it("word every action the code records, with no event code, review number or bare id left", () => {

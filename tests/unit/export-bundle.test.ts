@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { checkBundle, sealBundle, type Bundle } from "@/lib/core/bundle";
+import { checkBundle, sealBundle, type Bundle } from "@/lib/core/certificates/bundle";
 import { buildBundle } from "@/lib/export/bundle";
 import { certificationOf } from "@/lib/export/snapshot";
 import { settledSnapshot } from "./export-fixture";
@@ -29,7 +29,7 @@ describe("bundle", () => {
   it("holds every item with its SHA-256 and a manifest digest, and re-checks clean", () => {
     const b = fresh();
     expect(b.format).toBe("cairn-bundle/1");
-    expect(b.items.map((i) => i.id)).toEqual(["proof", "case 1", "step 1:1", "claim 1:1#1", "case 1.1", "step 1.1:1", "claim 1.1:1#1"]);
+    expect(b.items.map((i) => i.id)).toEqual(["proof", "case 1", "step 1(a)", "claim 1(a)#1", "case 1.1", "step 1.1(a)", "claim 1.1(a)#1"]);
     for (const i of b.items) expect(i.sha256).toMatch(/^[0-9a-f]{64}$/);
     expect(b.manifestDigest).toMatch(/^[0-9a-f]{64}$/);
     const r = checkBundle(copy(b), "b.json");
@@ -43,24 +43,24 @@ describe("bundle", () => {
 
   it("a changed character in a step fails and names the step", () => {
     const b = copy(fresh());
-    const step = b.items.find((i: { id: string }) => i.id === "step 1.1:1");
+    const step = b.items.find((i: { id: string }) => i.id === "step 1.1(a)");
     step.data.revision.body = step.data.revision.body.replace("2", "3");
     const r = checkBundle(b, "b.json");
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "step 1.1:1")?.text).toMatch(/CHANGED since export/);
-    expect(r.lines.find((l) => l.label === "manifest")?.text).toContain("step 1.1:1");
+    expect(r.lines.find((l) => l.label === "step 1.1(a)")?.text).toMatch(/CHANGED since export/);
+    expect(r.lines.find((l) => l.label === "manifest")?.text).toContain("step 1.1(a)");
   });
 
   it("a changed certificate entry fails the claim's re-check and names the claim", () => {
     const b = copy(fresh());
-    const claim = b.items.find((i: { id: string }) => i.id === "claim 1.1:1#1");
+    const claim = b.items.find((i: { id: string }) => i.id === "claim 1.1(a)#1");
     const before = JSON.stringify(claim.data.certificate);
     // Change one entry of the evidence: the first number found in it.
     claim.data.certificate = JSON.parse(before.replace(/(\d+)/, (d) => String(Number(d) + 1)));
     expect(JSON.stringify(claim.data.certificate)).not.toBe(before);
     const r = checkBundle(b, "b.json");
     expect(r.exitCode).not.toBe(0);
-    const line = r.lines.find((l) => l.label === "claim 1.1:1#1")!;
+    const line = r.lines.find((l) => l.label === "claim 1.1(a)#1")!;
     expect(line.status).not.toBe("verified");
     expect(line.text).toMatch(/CHANGED since export/);
   });
@@ -68,7 +68,7 @@ describe("bundle", () => {
   it("a changed verdict fails even when the tamperer re-seals every digest", () => {
     const b = fresh();
     const items = b.items.map((i) =>
-      i.id === "claim 1:1#1" ? { ...i, data: { ...(i.data as object), verdict: { ...(i.data as { verdict: object }).verdict, status: "refuted" } } } : i,
+      i.id === "claim 1(a)#1" ? { ...i, data: { ...(i.data as object), verdict: { ...(i.data as { verdict: object }).verdict, status: "refuted" } } } : i,
     );
     // Re-seal honestly with the tampered data: digests all match, only the re-verification can catch it.
     const resealed = sealBundle(
@@ -77,16 +77,16 @@ describe("bundle", () => {
     );
     const r = checkBundle(copy(resealed), "b.json");
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
+    expect(r.lines.find((l) => l.label === "claim 1(a)#1")?.text).toMatch(/records "refuted" but the re-check gives "verified"/);
   });
 
   it("carries the method that decided with its certificate kind, and rejects a method naming another kind, even re-sealed", () => {
     const b = fresh();
-    const claim = b.items.find((i) => i.id === "claim 1:1#1")!.data as { verdict: { method: string } };
+    const claim = b.items.find((i) => i.id === "claim 1(a)#1")!.data as { verdict: { method: string } };
     // E8 is a tree: breadth-first search leaves a spanning forest (each vertex's parent).
     expect(claim.verdict.method).toBe("breadth-first search; certificate: spanning forest (parent of each vertex)");
     const items = b.items.map((i) =>
-      i.id === "claim 1:1#1"
+      i.id === "claim 1(a)#1"
         ? { ...i, data: { ...(i.data as object), verdict: { ...claim.verdict, method: "breadth-first search; certificate: Rayleigh vector" } } }
         : i,
     );
@@ -100,14 +100,14 @@ describe("bundle", () => {
       "b.json",
     );
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(
+    expect(r.lines.find((l) => l.label === "claim 1(a)#1")?.text).toMatch(
       /the recorded method names a certificate of kind "Rayleigh vector" but the certificate carried is of kind "spanning forest/,
     );
   });
 
   it("each vouch carries the digest of the revision it covers (text and claims), and the re-check recomputes it", () => {
     const r = checkBundle(copy(fresh()), "b.json");
-    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    const line = r.lines.find((l) => l.label === "step 1(a)")!;
     expect(line.status).toBe("verified");
     expect(line.text).toMatch(/revision 2 \(text and 1 claim\(s\)\) digests to .*; 1 vouch\(es\) cover exactly it/);
   });
@@ -126,11 +126,11 @@ describe("bundle", () => {
 
   it("a vouch whose digest does not match its revision is rejected, even when every item digest is re-sealed", () => {
     const r = checkBundle(
-      resealedWith("step 1:1", (d) => (d.reviews[0].digest = "0".repeat(64))),
+      resealedWith("step 1(a)", (d) => (d.reviews[0].digest = "0".repeat(64))),
       "b.json",
     );
     expect(r.exitCode).toBe(1);
-    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    const line = r.lines.find((l) => l.label === "step 1(a)")!;
     expect(line.status).toBe("refuted");
     expect(line.text).toMatch(/the vouch by Celia Marwood records digest 0000000000000000…, but revision 2 \(text and claims\) digests to/);
   });
@@ -138,24 +138,24 @@ describe("bundle", () => {
   it("a vouch given before a claim was attached does not cover it: the revision's claim set must be the step's claims", () => {
     // The revision (and the vouch's digest) as it was before the claim: no claims; the bundle still lists the claim.
     const r = checkBundle(
-      resealedWith("step 1:1", (d) => {
+      resealedWith("step 1(a)", (d) => {
         d.revision.claims = [];
       }),
       "b.json",
     );
     expect(r.exitCode).toBe(1);
-    const line = r.lines.find((l) => l.label === "step 1:1")!;
+    const line = r.lines.find((l) => l.label === "step 1(a)")!;
     expect(line.text).toMatch(/does not match its text and claims/);
     expect(line.text).toMatch(/the bundle's 1 claim\(s\) of this step are not the 0 claim\(s\)/);
   });
 
   it("a vouch on an older revision that is not marked superseded is rejected", () => {
     const r = checkBundle(
-      resealedWith("step 1:1", (d) => (d.reviews[0].revision = 1)),
+      resealedWith("step 1(a)", (d) => (d.reviews[0].revision = 1)),
       "b.json",
     );
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "step 1:1")?.text).toMatch(/on revision 1 is counted, but it does not cover revision 2/);
+    expect(r.lines.find((l) => l.label === "step 1(a)")?.text).toMatch(/on revision 1 is counted, but it does not cover revision 2/);
   });
 
   it("a changed export header (draft turned certified) fails at the manifest", () => {
@@ -171,7 +171,7 @@ describe("bundle", () => {
     s.cases[0].steps[0].claims[0] = { ...s.cases[0].steps[0].claims[0], status: "pending", certificate: null, statement: null, method: null, reason: null };
     const r = checkBundle(copy(buildBundle(s, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" })), "b.json");
     expect(r.exitCode).toBe(1);
-    expect(r.lines.find((l) => l.label === "claim 1:1#1")?.text).toMatch(/had not been checked when it was exported \(pending\)/);
+    expect(r.lines.find((l) => l.label === "claim 1(a)#1")?.text).toMatch(/had not been checked when it was exported \(pending\)/);
   });
 
   it("a document that is not a bundle is malformed (exit 2)", () => {
@@ -194,7 +194,7 @@ describe("certification", () => {
     });
     const c = certificationOf(s);
     expect(c.state).toBe("in progress");
-    expect(c.blockers).toContain("Step 1:1 has 1 open dispute.");
+    expect(c.blockers).toContain("Step 1(a) has 1 open dispute.");
   });
 });
 
@@ -202,9 +202,9 @@ describe("the offline checker command on a bundle", () => {
   it("exits 0 on an untouched bundle and prints a per-claim report and a final line", async () => {
     const { code, out } = await runChecker(fresh(), "clean.json");
     expect(code).toBe(0);
-    expect(out).toMatch(/✓ verified\s+claim 1:1#1/);
-    expect(out).toMatch(/✓ verified\s+claim 1.1:1#1/);
-    expect(out).toMatch(/✓ verified\s+step 1:1\s+revision 2 \(text and 1 claim\(s\)\)/);
+    expect(out).toMatch(/✓ verified\s+claim 1\(a\)#1/);
+    expect(out).toMatch(/✓ verified\s+claim 1.1\(a\)#1/);
+    expect(out).toMatch(/✓ verified\s+step 1\(a\)\s+revision 2 \(text and 1 claim\(s\)\)/);
     // Two claims, two steps whose vouch digests match their revisions, and the manifest.
     expect(out.trim().split("\n").at(-1)).toBe("5 checked: 5 verified, 0 refuted, 0 undecided");
   });
@@ -218,8 +218,8 @@ describe("the offline checker command on a bundle", () => {
     verdict.items[3].data.verdict.status = "undecided";
     const results = await Promise.all([runChecker(step, "step.json"), runChecker(cert, "cert.json"), runChecker(verdict, "verdict.json")]);
     expect(results.map((r) => r.code)).toEqual([1, 1, 1]);
-    expect(results[0].out).toMatch(/✗ refuted\s+step 1:1\s+CHANGED since export/);
-    expect(results[1].out).toMatch(/claim 1.1:1#1\s+CHANGED since export/);
-    expect(results[2].out).toMatch(/claim 1:1#1\s+CHANGED since export.*records "undecided" but the re-check gives "verified"/);
+    expect(results[0].out).toMatch(/✗ refuted\s+step 1\(a\)\s+CHANGED since export/);
+    expect(results[1].out).toMatch(/claim 1.1\(a\)#1\s+CHANGED since export/);
+    expect(results[2].out).toMatch(/claim 1\(a\)#1\s+CHANGED since export.*records "undecided" but the re-check gives "verified"/);
   });
 });

@@ -1,8 +1,8 @@
 /** A small proof snapshot for the export unit tests, with claims verified by the real core. */
-import { canonicalJson } from "@/lib/core/canonical";
-import { validateClaim } from "@/lib/core/claim-schema";
-import { verifyClaim } from "@/lib/core/claims";
-import { revisionDigest } from "@/lib/core/revision-digest";
+import { canonicalJson } from "@/lib/core/input/canonical";
+import { validateClaim } from "@/lib/core/claims/claim-schema";
+import { verifyClaim } from "@/lib/core/claims/claims";
+import { revisionDigest } from "@/lib/core/certificates/revision-digest";
 import type { ProofSnapshot, SnapshotClaim, SnapshotReview } from "@/lib/export/snapshot";
 
 export function verifiedClaim(json: Record<string, unknown>): SnapshotClaim {

@@ -101,7 +101,7 @@ describe("LaTeX document", () => {
     expect(tex).toContain("the stated computation with exact arithmetic");
     expect(tex).toContain("It does not mean that the case split is exhaustive, nor that the prose argument of any step is right");
     expect(tex).toMatch(
-      /Verified:\} G is a tree, by breadth-first search \(certificate: spanning forest \(parent of each vertex\)\); certificate in bundle item \\texttt\{claim 1:1\\#1\}/,
+      /Verified:\} G is a tree, by breadth-first search \(certificate: spanning forest \(parent of each vertex\)\); certificate in bundle item \\texttt\{claim 1\(a\)\\#1\}/,
     );
     expect(tex).toContain("Celia Marwood & 2 & 2026-11-30 12:00 UTC");
   });

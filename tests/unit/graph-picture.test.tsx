@@ -7,7 +7,7 @@ import { describe, expect, it } from "vitest";
 import { renderToStaticMarkup } from "react-dom/server";
 import { GraphPicture } from "@/components/graph/graph-picture";
 import { pictureOf } from "@/lib/verification/picture";
-import { parseGraph } from "@/lib/core/parse";
+import { parseGraph } from "@/lib/core/input/parse";
 
 describe("GraphPicture", () => {
   // C5 with vertices 0..4 in cycle order, and the path P3 mapped onto 0, 1, 2.

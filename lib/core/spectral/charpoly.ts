@@ -1,0 +1,268 @@
+/**
+ * Exact characteristic polynomial χ_A(x) = det(xI − A) over the integers.
+ *
+ * Main method: multi-modular. For primes p < 2^25 (products stay below 2^50, exact in doubles, and a few may be summed before a reduction), reduce A
+ * to upper Hessenberg form by similarity modulo p and read χ_A mod p from the Hessenberg recurrence
+ * (H. Cohen, "A Course in Computational Algebraic Number Theory", Springer 1993, Alg. 2.2.9); combine
+ * the residues by the Chinese remainder theorem once the product of primes exceeds twice a proven bound
+ * on the coefficients: |c_{n-k}| = e_k(|λ|) <= C(n,k) (tr(A^2)/n)^(k/2) (Maclaurin's inequality with
+ * the power-mean inequality, since sum λ_i^2 = tr(A^2)). Every step is exact; no floating-point value
+ * other than exact integers below 2^53 is ever used.
+ *
+ * Independent check: the division-free algorithm of S. J. Berkowitz, "On computing the determinant in
+ * small parallel time using a small number of processors", Inform. Process. Lett. 18 (1984) 147–150,
+ * in BigInt (O(n^4), for re-checks and tests).
+ */
+import type { Graph } from "../graph";
+import { Budget } from "../verdict";
+import { isqrt } from "../arithmetic/rational";
+import type { Poly } from "../arithmetic/sturm";
+
+/**
+ * x mod p for an integer 0 <= x < 2^53 held in a double, without the (slow, library-call) floating
+ * remainder: q = floor(x / p) estimated through the precomputed 1/p is off by at most one, and
+ * q·p <= x + p < 2^53, so x − q·p is computed exactly and one correction brings it into [0, p).
+ * (Barrett-style reduction, P. Barrett, CRYPTO '86; the double-precision variant is common practice.)
+ */
+function reduce(x: number, p: number, pInv: number): number {
+  const r = x - Math.floor(x * pInv) * p;
+  return r < 0 ? r + p : r >= p ? r - p : r;
+}
+
+function modPow(a: number, e: number, p: number): number {
+  const pInv = 1 / p;
+  let r = 1,
+    b = a % p;
+  while (e > 0) {
+    if (e & 1) r = reduce(r * b, p, pInv);
+    b = reduce(b * b, p, pInv);
+    e = Math.floor(e / 2);
+  }
+  return r;
+}
+
+function isPrime(m: number): boolean {
+  if (m < 2) return false;
+  for (let d = 2; d * d <= m; d++) if (m % d === 0) return false;
+  return true;
+}
+
+const PRIMES: number[] = [];
+/** The k-th prime below 2^25, counting down (memoised). */
+function prime(k: number): number {
+  let c = PRIMES.length ? PRIMES[PRIMES.length - 1] - 2 : (1 << 25) - 1;
+  while (PRIMES.length <= k) {
+    while (!isPrime(c)) c -= 2;
+    PRIMES.push(c);
+    c -= 2;
+  }
+  return PRIMES[k];
+}
+
+/** Dense n×n adjacency as a flat array of small integers (loops on the diagonal). */
+function denseAdjacency(g: Graph): number[] {
+  const n = g.n,
+    a = new Array<number>(n * n).fill(0);
+  for (const e of g.edges) {
+    a[e.u * n + e.v] += e.m;
+    if (e.u !== e.v) a[e.v * n + e.u] += e.m;
+  }
+  return a;
+}
+
+/**
+ * χ_A mod p, coefficients x^0 first (monic, length n+1), via Hessenberg reduction. Every product of
+ * two residues is below p^2 < 2^50 and every sum of a residue and up to seven such products below 2^53, so all
+ * values are exact integers in doubles; `reduce` brings them back below p.
+ */
+function charpolyModP(a0: readonly number[], n: number, p: number, budget: Budget): number[] {
+  const pInv = 1 / p;
+  const H = Float64Array.from(a0, (x) => ((x % p) + p) % p);
+  const u = new Float64Array(n);
+  for (let j = 0; j < n - 2; j++) {
+    budget.tick(n * (n - j));
+    let i = j + 1;
+    while (i < n && H[i * n + j] === 0) i++;
+    if (i === n) continue;
+    const piv = (j + 1) * n;
+    if (i !== j + 1) {
+      for (let c = 0; c < n; c++) {
+        const t = H[i * n + c];
+        H[i * n + c] = H[piv + c];
+        H[piv + c] = t;
+      }
+      for (let r = 0; r < n; r++) {
+        const t = H[r * n + i];
+        H[r * n + i] = H[r * n + j + 1];
+        H[r * n + j + 1] = t;
+      }
+    }
+    const inv = modPow(H[piv + j], p - 2, p);
+    let any = false;
+    for (let k = j + 2; k < n; k++) {
+      const hk = H[k * n + j];
+      if (hk === 0) {
+        u[k] = 0;
+        continue;
+      }
+      any = true;
+      const uk = reduce(hk * inv, p, pInv);
+      u[k] = uk;
+      // row k -= u_k * row (j+1)
+      const mu = p - uk,
+        row = k * n;
+      for (let c = j; c < n; c++) {
+        const x = H[row + c] + mu * H[piv + c];
+        const r = x - Math.floor(x * pInv) * p;
+        H[row + c] = r < 0 ? r + p : r >= p ? r - p : r;
+      }
+    }
+    if (!any) continue;
+    // column (j+1) += sum_k u_k * column k (the similarity's other half), row by row for locality.
+    // With p < 2^25 a residue plus seven products stays below 2^53: reduce once per seven terms.
+    for (let r = 0; r < n; r++) {
+      const row = r * n;
+      let s = H[row + j + 1],
+        terms = 0;
+      for (let k = j + 2; k < n; k++) {
+        s += u[k] * H[row + k];
+        if (++terms === 7) {
+          s = reduce(s, p, pInv);
+          terms = 0;
+        }
+      }
+      H[row + j + 1] = reduce(s, p, pInv);
+    }
+  }
+  // p_m = (x − h_mm) p_{m−1} − sum_{i<m} h_im (prod_{k=i+1..m} h_{k,k−1}) p_{i−1}  (0-indexed below).
+  const polys: Float64Array[] = [Float64Array.of(1)];
+  for (let m = 0; m < n; m++) {
+    budget.tick(n * (m + 1));
+    const prev = polys[m];
+    const next = new Float64Array(m + 2);
+    const mh = p - H[m * n + m];
+    for (let d = 0; d <= m; d++) {
+      next[d + 1] = reduce(next[d + 1] + prev[d], p, pInv);
+      next[d] = reduce(next[d] + mh * prev[d], p, pInv);
+    }
+    let prod = 1;
+    for (let i = m - 1; i >= 0; i--) {
+      prod = reduce(prod * H[(i + 1) * n + i], p, pInv);
+      if (prod === 0) break;
+      const coef = reduce(H[i * n + m] * prod, p, pInv);
+      if (coef === 0) continue;
+      const q = polys[i],
+        mc = p - coef;
+      for (let d = 0; d < q.length; d++) {
+        const x = next[d] + mc * q[d];
+        const t = x - Math.floor(x * pInv) * p;
+        next[d] = t < 0 ? t + p : t >= p ? t - p : t;
+      }
+    }
+    polys.push(next);
+  }
+  return Array.from(polys[n]);
+}
+
+/**
+ * Proven bound B with |coefficient| <= B for every coefficient of χ_A. With λ_1 >= ... the eigenvalues,
+ * |c_{n−k}| = |e_k(λ)| <= e_k(|λ|), and two estimates of e_k(|λ|) hold, the smaller one is used per k:
+ *  (i)  C(n,k) (S/n)^{k/2} with S = tr(A²) = Σ λ_i² (Maclaurin's inequality and the power-mean inequality);
+ *  (ii) Δ·C(n−1,k−1) t^{k−1} + C(n−1,k) t^k with t² = (S − d̄²)/(n−1): split off λ_1, which is at most
+ *       the largest row sum Δ and at least the average row sum d̄ = 1ᵀA1/n (Rayleigh quotient of the
+ *       all-ones vector), so the other n−1 eigenvalues have Σ λ_i² <= S − d̄², and (i) applies to them.
+ * (ii) saves a prime or two on dense graphs, whose λ_1 carries half of S. Square roots are rounded up at
+ * 2^-FRACTION_BITS, in integers scaled by 2^(FRACTION_BITS·k); all arithmetic is exact.
+ */
+export function coefficientBound(g: Graph): bigint {
+  const n = g.n;
+  if (n === 0) return 1n;
+  let tr2 = 0n,
+    total = 0n;
+  const rowSum = new Array<bigint>(n).fill(0n);
+  for (const e of g.edges) {
+    const m = BigInt(e.m);
+    tr2 += (e.u === e.v ? 1n : 2n) * m * m;
+    total += e.u === e.v ? m : 2n * m;
+    rowSum[e.u] += m;
+    if (e.u !== e.v) rowSum[e.v] += m;
+  }
+  const N = BigInt(n),
+    F = 24n,
+    one = 1n << F;
+  const delta = rowSum.reduce((a, b) => (a > b ? a : b), 0n);
+  const sqrtUp = (num: bigint, den: bigint) => isqrt((num * one * one + den - 1n) / den) + 1n; // >= sqrt(num/den)·2^F
+  const s = sqrtUp(tr2, N); // (i): root mean square of |λ|
+  // (ii): S − d̄² = (tr2·n² − total²)/n² over n − 1 eigenvalues (>= 0 by Cauchy–Schwarz).
+  const t = n > 1 ? sqrtUp(tr2 * N * N - total * total, N * N * (N - 1n)) : 0n;
+  let best = 1n,
+    binomN = 1n,
+    binomM = 1n,
+    sPow = 1n,
+    tPow = 1n,
+    scale = 1n;
+  // Loop invariant at step k: binomN = C(n,k), binomM = C(n−1,k), sPow = s^k, tPow = t^k, scale = 2^(F·k).
+  for (let k = 1n; k <= N; k++) {
+    const tPrev = tPow,
+      binomPrev = binomM; // t^{k−1}, C(n−1,k−1)
+    binomN = (binomN * (N - k + 1n)) / k;
+    binomM = k <= N - 1n ? (binomM * (N - k)) / k : 0n;
+    sPow *= s;
+    tPow *= t;
+    scale <<= F;
+    const b1 = binomN * sPow;
+    const b2 = delta * binomPrev * tPrev * one + binomM * tPow;
+    const b = ((b1 < b2 ? b1 : b2) + scale - 1n) / scale;
+    if (b > best) best = b;
+  }
+  return best;
+}
+
+/** det(xI − A) exactly, coefficients x^0 first (length n + 1, leading coefficient 1). */
+export function characteristicPolynomial(g: Graph, budget: Budget = new Budget()): Poly {
+  const n = g.n;
+  if (n === 0) return [1n];
+  const a = denseAdjacency(g);
+  const need = 2n * coefficientBound(g) + 1n;
+  let M = 1n;
+  let x: bigint[] = new Array(n + 1).fill(0n);
+  for (let k = 0; M <= need; k++) {
+    const p = prime(k),
+      P = BigInt(p);
+    const r = charpolyModP(a, n, p, budget);
+    // Garner step: x += M * ((r − x) * M^{-1} mod p).
+    const mInv = BigInt(modPow(Number(M % P), p - 2, p));
+    x = x.map((xi, d) => {
+      const t = ((((BigInt(r[d]) - xi) % P) + P) * mInv) % P;
+      return xi + M * t;
+    });
+    M *= P;
+  }
+  return x.map((c) => (c > M / 2n ? c - M : c));
+}
+
+/** Berkowitz's division-free algorithm over BigInt: det(xI − A), coefficients x^0 first. */
+export function charpolyBerkowitz(g: Graph, budget: Budget = new Budget()): Poly {
+  const n = g.n;
+  if (n === 0) return [1n];
+  const a = denseAdjacency(g).map(BigInt);
+  let vect: bigint[] = [1n, -a[0]]; // highest degree first
+  for (let r = 1; r < n; r++) {
+    budget.tick(r * r * r + 1);
+    const q: bigint[] = [1n, -a[r * n + r]];
+    let w: bigint[] = [];
+    for (let i = 0; i < r; i++) w.push(a[i * n + r]); // column C
+    for (let k = 0; k < r; k++) {
+      let dot = 0n;
+      for (let i = 0; i < r; i++) dot += a[r * n + i] * w[i]; // R · A^k C
+      q.push(-dot);
+      const nw: bigint[] = new Array(r).fill(0n);
+      for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) nw[i] += a[i * n + j] * w[j];
+      w = nw;
+    }
+    const next: bigint[] = new Array(r + 2).fill(0n);
+    for (let i = 0; i < r + 2; i++) for (let j = 0; j <= Math.min(i, r); j++) next[i] += q[i - j] * vect[j];
+    vect = next;
+  }
+  return vect.reverse();
+}
