@@ -1,16 +1,30 @@
 import Link from "next/link";
-import { stepLabel, type CaseNode } from "@/lib/proof-tree";
+import { commentsAnchor, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { StepMoveButtons } from "./step-move-buttons";
 import { CaseStateBadge } from "./case-state-badge";
 import { CaseActions } from "./case-actions";
+import { PlaceComments } from "@/components/review/place-comments";
+import type { PlaceThread } from "@/lib/data/proof-comments";
 
 export interface TreeOptions {
   proofId: number;
   /** Authors get the editing controls (their "move under…" menus read the cases from CaseTargets). */
   editable: boolean;
+  /** Each visible case's condition thread, by case id (a case without one shows no thread). */
+  conditionThreads?: Record<number, PlaceThread>;
+  /** Steps and cases with a change since the viewer's last visit (marked in the outline). */
+  changed?: { stepIds: readonly number[]; caseIds: readonly number[] };
+}
+
+function ChangedMark() {
+  return (
+    <span className="rounded bg-amber-100 px-1.5 py-0.5 font-sans text-xs text-amber-900" data-testid="changed-mark">
+      changed since your last visit
+    </span>
+  );
 }
 
 /** The case tree: numbered cases with their derived state, condition and steps at their latest revision. */
@@ -25,9 +39,21 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
                 {c.title}
               </h3>
-              <CaseStateBadge state={c.state} />
+              <span className="flex items-center gap-2">
+                {options.changed?.caseIds.includes(c.id) && <ChangedMark />}
+                <CaseStateBadge state={c.state} />
+              </span>
             </div>
             <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
+            {options.conditionThreads?.[c.id] && (
+              <PlaceComments
+                url={`/api/proofs/${options.proofId}/cases/${c.id}/comments`}
+                anchor={commentsAnchor(c.number)}
+                what={`the condition of case ${c.number}`}
+                digest={options.conditionThreads[c.id].digest}
+                comments={options.conditionThreads[c.id].comments}
+              />
+            )}
             {options.editable && (
               <CaseActions
                 proofId={options.proofId}
@@ -65,6 +91,7 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                     {s.claims.map((st, k) => (
                       <VerdictBadge key={k} status={st} />
                     ))}
+                    {options.changed?.stepIds.includes(s.id) && <ChangedMark />}
                   </p>
                   {s.revision ? <MathMarkdown source={s.revision.body} /> : <p className="italic text-stone-500">empty step</p>}
                 </li>
