@@ -15,6 +15,16 @@ export interface TreeOptions {
   editable: boolean;
   /** Each visible case's condition thread, by case id (a case without one shows no thread). */
   conditionThreads?: Record<number, PlaceThread>;
+  /** Steps and cases with a change since the viewer's last visit (marked in the outline). */
+  changed?: { stepIds: readonly number[]; caseIds: readonly number[] };
+}
+
+function ChangedMark() {
+  return (
+    <span className="rounded bg-amber-100 px-1.5 py-0.5 font-sans text-xs text-amber-900" data-testid="changed-mark">
+      changed since your last visit
+    </span>
+  );
 }
 
 /** The case tree: numbered cases with their derived state, condition and steps at their latest revision. */
@@ -29,7 +39,10 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
                 {c.title}
               </h3>
-              <CaseStateBadge state={c.state} />
+              <span className="flex items-center gap-2">
+                {options.changed?.caseIds.includes(c.id) && <ChangedMark />}
+                <CaseStateBadge state={c.state} />
+              </span>
             </div>
             <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
             {options.conditionThreads?.[c.id] && (
@@ -78,6 +91,7 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                     {s.claims.map((st, k) => (
                       <VerdictBadge key={k} status={st} />
                     ))}
+                    {options.changed?.stepIds.includes(s.id) && <ChangedMark />}
                   </p>
                   {s.revision ? <MathMarkdown source={s.revision.body} /> : <p className="italic text-stone-500">empty step</p>}
                 </li>

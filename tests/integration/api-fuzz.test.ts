@@ -37,6 +37,7 @@ import * as stepClaimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/clai
 import * as commentsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/comments/route";
 import * as statementCommentsRoute from "@/app/api/proofs/[proofId]/statement/comments/route";
 import * as conditionCommentsRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/comments/route";
+import * as changesRoute from "@/app/api/proofs/[proofId]/changes/route";
 import * as reviewsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as disputeRoute from "@/app/api/proofs/[proofId]/disputes/[reviewId]/route";
 import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
@@ -199,6 +200,14 @@ const TARGETS: Target[] = [
     call: statementCommentsRoute.POST as Call,
     params: P,
     valid: () => ({ body: "Is $n \\ge 1$ meant?", parentId: null }),
+  },
+  {
+    file: "api/proofs/[proofId]/changes/route.ts",
+    method: "POST",
+    who: "editor",
+    call: changesRoute.POST as Call,
+    params: P,
+    valid: () => ({ through: new Date().toISOString() }),
   },
   {
     file: "api/proofs/[proofId]/cases/[caseId]/comments/route.ts",

@@ -46,6 +46,7 @@ import * as oneRevision from "@/app/api/proofs/[proofId]/steps/[stepId]/revision
 import * as diff from "@/app/api/proofs/[proofId]/steps/[stepId]/diff/route";
 import * as notifications from "@/app/api/notifications/route";
 import * as members from "@/app/api/proofs/[proofId]/members/[userId]/route";
+import * as changesSince from "@/app/api/proofs/[proofId]/changes/route";
 import * as statementComments from "@/app/api/proofs/[proofId]/statement/comments/route";
 import * as conditionComments from "@/app/api/proofs/[proofId]/cases/[caseId]/comments/route";
 
@@ -188,6 +189,7 @@ async function authorSurfaces(viewerId: number): Promise<Array<[string, string]>
   ] as const)
     await add(name, get as Get, { proofId: P, exportId: String(exportId) });
   await add("statement comments", statementComments.GET as Get, { proofId: P });
+  await add("changes since the last visit", changesSince.GET as Get, { proofId: P });
   for (const [key, caseId] of Object.entries(fx.cases))
     await add(`case ${key} condition comments`, conditionComments.GET as Get, { proofId: P, caseId: String(caseId) });
   for (const [key, stepId] of Object.entries(fx.steps)) {
