@@ -165,11 +165,21 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "POST api/proofs/[proofId]/rounds/[round]/report/corrections/route.ts": members(["reviewer"]),
   // The editors and the report's own referee (the fixture's submitted report is the demo referee's).
   "GET api/proofs/[proofId]/rounds/[round]/reports/[reportId]/note/route.ts": { ...members(["editor"]), reviewer: "ok" },
+  // The statement's discussion concerns the whole proof; a condition's thread belongs to its case (the referee's case here).
+  "GET api/proofs/[proofId]/statement/comments/route.ts": WHOLE_PROOF,
+  "POST api/proofs/[proofId]/statement/comments/route.ts": WHOLE_PROOF,
+  "GET api/proofs/[proofId]/cases/[caseId]/comments/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/cases/[caseId]/comments/route.ts": ALL_MEMBERS,
+  // Since the last visit: each member's own list and mark (a case-limited referee's list keeps to their cases).
+  "GET api/proofs/[proofId]/changes/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/changes/route.ts": ALL_MEMBERS,
   "action (workspace)/proofs/[proofId]/export/actions.ts#createExportAction": members(["author", "editor"], { caseLimited: 403 }),
 };
 
-/** The step routes again, on a step outside the case-limited referee's case: they are refused (403), everyone else as above. */
-const OUT_OF_SCOPE = Object.keys(EXPECTED).filter((k) => /\[stepId\]|\[claimId\]|\[fileId\]|\[batchId\]/.test(k) && !k.startsWith("action"));
+/** The step routes (and a condition's comments) again, outside the case-limited referee's case: they are refused (403), everyone else as above. */
+const OUT_OF_SCOPE = Object.keys(EXPECTED).filter(
+  (k) => /\[stepId\]|\[claimId\]|\[fileId\]|\[batchId\]|\[caseId\]\/comments/.test(k) && !k.startsWith("action"),
+);
 
 // ---- the file tree ----------------------------------------------------------------------------------------
 const METHODS = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
@@ -370,7 +380,7 @@ async function buildFixture(): Promise<Fixture> {
 function paramsFor(file: string, f: Fixture, out: boolean): Record<string, string> {
   const all: Record<string, string> = {
     proofId: f.proofId,
-    caseId: String(f.caseIn),
+    caseId: String(out ? f.caseOut : f.caseIn),
     stepId: String(out ? f.stepOut : f.stepIn),
     claimId: String(out ? f.claimOut : f.claimIn),
     fileId: String(out ? f.fileOut : f.fileIn),
