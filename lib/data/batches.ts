@@ -16,7 +16,12 @@ import {
   verificationService,
   type VerificationService,
 } from "@/lib/jobs/queue";
-import { batchColumns, listEntries } from "@/lib/jobs/batch";
+import { batchColumns, listEntries, statementOf } from "@/lib/jobs/batch";
+import { fileStore } from "@/lib/storage";
+import { graphListText } from "@/lib/uploads/detect";
+import { readEnv } from "@/lib/env";
+import { sha256Hex } from "@/lib/core/digest";
+import type { SnapshotBatch } from "@/lib/export/snapshot";
 import type { BatchStatement } from "@/lib/core/claims/batch";
 import type { CreateBatchInput } from "@/lib/validations/batch";
 import type { BatchClaim, BatchResult, BatchStatus, BatchVerdict } from "@/models/batch-claim";
@@ -244,3 +249,34 @@ export const failuresGraph6 = (rows: readonly BatchResultView[]): string =>
     .filter((r) => r.verdict !== "verified" && r.graph6)
     .map((r) => r.graph6)
     .join("\n") + "\n";
+
+/**
+ * The step's batch claims as a certified export carries them (lib/core/batch-check.ts re-checks them
+ * offline): the list's text as the workers read it, with its digest, and every graph's verdict and
+ * certificate. Batches in the order they were made.
+ */
+export async function exportedBatches(stepIds: readonly number[]): Promise<Map<number, SnapshotBatch[]>> {
+  const { BatchClaim, BatchResult, StepFile } = models();
+  const out = new Map<number, SnapshotBatch[]>();
+  if (stepIds.length === 0) return out;
+  const rows = await BatchClaim.findAll({ where: { stepId: [...stepIds] }, order: [["id", "ASC"]] });
+  for (const b of rows) {
+    const file = await StepFile.findByPk(b.fileId);
+    if (!file?.graphFormat) continue;
+    const bytes = await fileStore().get(file.sha256);
+    if (!bytes) throw new Error(`batch claim ${b.id}: its file ${file.name} is missing from the file store`);
+    const text = graphListText(bytes, readEnv().CAIRN_UPLOAD_MAX_BYTES * 4);
+    const results = await BatchResult.findAll({ where: { batchId: b.id }, order: [["entry", "ASC"]], attributes: ["entry", "line", "verdict", "certificate"] });
+    const batch: SnapshotBatch = {
+      statement: statementOf(b),
+      words: b.statement,
+      status: b.status,
+      file: { name: file.name, format: file.graphFormat, text, textSha256: sha256Hex(text), sha256: file.sha256 },
+      counts: { total: b.total, verified: b.verified, refuted: b.refuted, undecided: b.undecided, unreadable: b.unreadable },
+      results: results.map((r) => ({ entry: r.entry, line: r.line, verdict: r.verdict, certificate: r.certificate ? JSON.parse(r.certificate) : null })),
+      checkerVersion: b.checkerVersion,
+    };
+    out.set(b.stepId, [...(out.get(b.stepId) ?? []), batch]);
+  }
+  return out;
+}

@@ -1,4 +1,5 @@
 import "server-only";
+import { exportedBatches } from "./batches";
 import { textAuthors } from "@/lib/review/revisions";
 import { claimsOf, digestOf } from "./revisions";
 /**
@@ -63,6 +64,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
       ])
     : [[], [], []];
   const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
+  const batches = await exportedBatches(stepIds);
   // A blind proof's export goes to readers: referees appear as "Referee k" and the bundle keeps no mapping
   // to names (the editors have the names in Cairn itself).
   const lens = proof.blindReview ? await refereeLens(proofId, { id: 0, role: "author" }) : null;
@@ -111,6 +113,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
           checkerVersion: c.checkerVersion,
           checkedAt: c.checkedAt ? c.checkedAt.toISOString() : null,
         })),
+      ...(batches.has(s.id) ? { batches: batches.get(s.id) } : {}),
     };
   };
   const tree = buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title, condition: c.condition })));
@@ -207,7 +210,10 @@ export async function createExport(proofId: number, user: { id: number; name: st
   if (kind === "certified") {
     // As a job in a worker process, not here: re-checking every claim of a large proof must not hold up other requests.
     // The wait covers the re-check's own limit (that of each claim, up to ten minutes) and a minute in the queue.
-    const claims = bundle.items.filter((i) => i.type === "claim").length;
+    // A batch claim weighs one claim per thousand listed graphs (each graph re-decided and its certificate re-checked).
+    const claims =
+      bundle.items.filter((i) => i.type === "claim").length +
+      bundle.items.filter((i) => i.type === "batch").reduce((n, i) => n + Math.ceil((i.data as { counts: { total: number } }).counts.total / 1000), 0);
     const report = await runBundleJob(JSON.parse(JSON.stringify(bundle)), claims, Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000) + 60_000).catch(
       (e) => {
         if (e instanceof QueueUnavailable)

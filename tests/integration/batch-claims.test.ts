@@ -22,6 +22,10 @@ import { Budget } from "@/lib/core/verdict";
 import { recheckIdentification } from "@/lib/core/families/identify";
 import { recheckExclusion } from "@/lib/core/subgraph/subgraph";
 import { parseGraph } from "@/lib/core/input/parse";
+import { loadSnapshot } from "@/lib/data/exports";
+import { buildBundle } from "@/lib/export/bundle";
+import { checkBundle, sealBundle, type BundleItemType } from "@/lib/core/certificates/bundle";
+import type { BatchItemData } from "@/lib/core/certificates/batch-check";
 import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
 import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
 import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route";
@@ -257,5 +261,34 @@ describe("the other batch statements over the trees on 10 vertices", () => {
     expect(pattern.status).toBe(422);
     expect((await pattern.json()).error.issues[0]).toMatchObject({ path: "patterns", message: expect.stringMatching(/pattern 1/) });
     expect((await start({ fileId: listId, kind: "contains-one-of", patterns: [] })).status).toBe(422);
+  });
+});
+
+describe("the batch claims in the exported bundle", () => {
+  it("carry every graph's verdict and certificate, and the offline re-check agrees with each batch; a forged verdict is rejected", async () => {
+    const snapshot = await loadSnapshot(Number(proofId));
+    const bundle = buildBundle(snapshot!, { kind: "draft", exportedAt: new Date().toISOString(), exportedBy: "Ada Quenby" });
+    const items = bundle.items.filter((i) => i.type === "batch");
+    const made = await models().BatchClaim.count({ where: { stepId: Number(stepId) } });
+    expect(items).toHaveLength(made);
+    const report = checkBundle(JSON.parse(JSON.stringify(bundle)), "bundle.json");
+    const lines = report.lines.filter((l) => l.label.startsWith("batch "));
+    expect(lines).toHaveLength(made);
+    // Smith 1970 (Brouwer & Haemers Thm 3.1.3): 2 of the 106 trees are A or D; the bad line stays unreadable.
+    const identified = items.findIndex((i) => (i.data as BatchItemData).statement.kind === "identified-as");
+    expect(lines[identified]).toMatchObject({
+      status: "refuted",
+      text: expect.stringMatching(/: 2 of 107 graphs verified, 104 refuted, 0 undecided, 1 unreadable; 106 certificates re-checked$/),
+    });
+    for (const l of lines) expect(l.text).not.toMatch(/records|does not re-check|CHANGED/);
+
+    // Forge one verdict and re-seal every digest: the re-check still names the graph's line.
+    const forged = JSON.parse(JSON.stringify(bundle)) as { items: Array<{ id: string; type: BundleItemType; data: BatchItemData }> };
+    const item = forged.items.find((i) => i.type === "batch" && i.data.statement.kind === "identified-as")!;
+    const r = item.data.results.find((x) => x.verdict === "refuted")! as { verdict: string; line: number };
+    r.verdict = "verified";
+    const resealed = sealBundle(bundle.export, forged.items);
+    const line = checkBundle(resealed, "forged.json").lines.find((l) => l.label === item.id)!;
+    expect(line.text).toContain(`line ${r.line}: the bundle records "verified" but the re-check gives "refuted"`);
   });
 });
