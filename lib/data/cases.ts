@@ -59,16 +59,23 @@ export async function stepsOfCases(caseIds: number[]) {
   });
 }
 
-export async function liveCases(proofId: number, transaction?: Transaction) {
+/** Every case of the proof, deleted ones included, in order; `lock` takes them FOR UPDATE inside the transaction. */
+export async function allCases(proofId: number, transaction?: Transaction, lock = false) {
   const { Case } = models();
-  const all = await Case.findAll({
+  return Case.findAll({
     where: { proofId },
     order: [
       ["position", "ASC"],
       ["id", "ASC"],
     ],
     transaction,
+    ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}),
   });
+}
+
+/** The cases still in the tree (neither deleted nor under a deleted case), in order. */
+export async function liveCases(proofId: number, transaction?: Transaction, lock = false) {
+  const all = await allCases(proofId, transaction, lock);
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }

@@ -131,7 +131,8 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
     for (let k = 0; k < f; k++) err += Math.abs(X[i * f + k]) * v[k] + gamma * Math.abs(C[i * f + k]) * w[k];
     for (let j = 0; j < f; j++) if (j !== i) off += Math.abs(B[i * f + j]);
     const diag = B[i * f + i];
-    if (Math.abs(diag) * (1 - 4 * gamma) <= (off + err) * safety + 1e-300) return undefined;
+    // Written so that a NaN anywhere (∞·0 in a bound) declines instead of passing.
+    if (!(Math.abs(diag) * (1 - 4 * gamma) > (off + err) * safety + 1e-300)) return undefined;
     if (diag > 0) positive++;
     else negative++;
   }
