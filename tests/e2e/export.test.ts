@@ -86,7 +86,7 @@ describe("exporting the seeded proof in the browser", () => {
     writeFileSync(join(dir, "tampered.json"), JSON.stringify(tampered));
     const bad = await nodeCheck(join(dir, "tampered.json"));
     expect(bad.code).toBe(1);
-    expect(bad.out).toMatch(new RegExp(`✗ refuted\\s+${step.id}\\s+CHANGED since export`));
+    expect(bad.out).toMatch(new RegExp(`✗ refuted\\s+${step.id.replace(/[()]/g, "\\$&")}\\s+CHANGED since export`));
 
     // The server-side PDF and the print view of the same export.
     const pdf = await page.request.get(`${baseUrl}/api/proofs/${proofId}/exports/${await row.getAttribute("data-export-id")}/pdf`);

@@ -80,7 +80,7 @@ const WHOLE_PROOF = members(["author", "reviewer", "editor"], { caseLimited: 403
 
 /**
  * The one table: "METHOD route file" (relative to app/) and "action file#export" → outcome per standing.
- * Step and claim routes are called on a step inside the case-limited referee's case; the out-of-scope
+ * Case, step and claim routes are called on a case or step inside the case-limited referee's case; the out-of-scope
  * answers are in OUT_OF_SCOPE below.
  */
 const EXPECTED: Record<string, Record<Role, Outcome>> = {
@@ -104,6 +104,14 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "DELETE api/proofs/[proofId]/cases/[caseId]/route.ts": AUTHORS,
   "POST api/proofs/[proofId]/cases/[caseId]/restore/route.ts": AUTHORS,
   "POST api/proofs/[proofId]/cases/[caseId]/steps/route.ts": AUTHORS,
+  "GET api/proofs/[proofId]/cases/[caseId]/comments/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/cases/[caseId]/comments/route.ts": ALL_MEMBERS,
+  // The statement belongs to the whole proof: a case-limited referee neither reads nor writes its comments.
+  "GET api/proofs/[proofId]/statement/comments/route.ts": WHOLE_PROOF,
+  "POST api/proofs/[proofId]/statement/comments/route.ts": WHOLE_PROOF,
+  // What changed since the member's last visit (a case-limited referee: her cases only), and "mark as seen".
+  "GET api/proofs/[proofId]/changes/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/changes/route.ts": ALL_MEMBERS,
   "GET api/proofs/[proofId]/steps/[stepId]/route.ts": ALL_MEMBERS,
   "PATCH api/proofs/[proofId]/steps/[stepId]/route.ts": AUTHORS,
   "GET api/proofs/[proofId]/steps/[stepId]/revisions/route.ts": ALL_MEMBERS,
@@ -168,8 +176,8 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "action (workspace)/proofs/[proofId]/export/actions.ts#createExportAction": members(["author", "editor"], { caseLimited: 403 }),
 };
 
-/** The step routes again, on a step outside the case-limited referee's case: they are refused (403), everyone else as above. */
-const OUT_OF_SCOPE = Object.keys(EXPECTED).filter((k) => /\[stepId\]|\[claimId\]|\[fileId\]|\[batchId\]/.test(k) && !k.startsWith("action"));
+/** The case and step routes again, on a case or step outside the case-limited referee's case: she is refused (403), everyone else as above. */
+const OUT_OF_SCOPE = Object.keys(EXPECTED).filter((k) => /\[caseId\]|\[stepId\]|\[claimId\]|\[fileId\]|\[batchId\]/.test(k) && !k.startsWith("action"));
 
 // ---- the file tree ----------------------------------------------------------------------------------------
 const METHODS = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
@@ -370,7 +378,7 @@ async function buildFixture(): Promise<Fixture> {
 function paramsFor(file: string, f: Fixture, out: boolean): Record<string, string> {
   const all: Record<string, string> = {
     proofId: f.proofId,
-    caseId: String(f.caseIn),
+    caseId: String(out ? f.caseOut : f.caseIn),
     stepId: String(out ? f.stepOut : f.stepIn),
     claimId: String(out ? f.claimOut : f.claimIn),
     fileId: String(out ? f.fileOut : f.fileIn),
