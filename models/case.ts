@@ -8,6 +8,8 @@ export class Case extends Model<InferAttributes<Case>, InferCreationAttributes<C
   declare position: number;
   declare title: string;
   declare condition: string;
+  /** Machine-readable condition (case-condition.ts JSON, normalised), or null when the case has none. */
+  declare predicate: CreationOptional<string | null>;
   /** Set when the case was deleted; its steps and reviews stay for the history. */
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -22,6 +24,7 @@ export class Case extends Model<InferAttributes<Case>, InferCreationAttributes<C
         position: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         title: { type: DataTypes.STRING(300), allowNull: false },
         condition: { type: DataTypes.TEXT, allowNull: false },
+        predicate: { type: DataTypes.TEXT, allowNull: true },
         deletedAt: { type: DataTypes.DATE(3), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),

@@ -18,6 +18,7 @@ export function CaseActions({
   last,
   title,
   condition,
+  predicate,
 }: {
   proofId: number;
   caseId: number;
@@ -26,6 +27,8 @@ export function CaseActions({
   last: boolean;
   title: string;
   condition: string;
+  /** The stored machine-readable condition (JSON text), or null. */
+  predicate: string | null;
 }) {
   const router = useRouter();
   const [open, setOpen] = useState<"case" | "step" | "edit" | null>(null);
@@ -110,7 +113,9 @@ export function CaseActions({
       )}
       {open === "case" && <AddCaseForm proofId={proofId} parentId={caseId} onDone={() => setOpen(null)} />}
       {open === "step" && <AddStepForm proofId={proofId} caseId={caseId} />}
-      {open === "edit" && <EditCaseForm proofId={proofId} caseId={caseId} initial={{ title, condition }} onDone={() => setOpen(null)} />}
+      {open === "edit" && (
+        <EditCaseForm proofId={proofId} caseId={caseId} initial={{ title, condition, predicate: predicate ?? "" }} onDone={() => setOpen(null)} />
+      )}
     </div>
   );
 }

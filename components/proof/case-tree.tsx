@@ -45,6 +45,12 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
               </span>
             </div>
             <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
+            {c.predicate && (
+              <p className="mt-1 text-xs text-stone-500" data-testid="case-predicate">
+                <span className="font-medium">Machine-readable condition:</span> {c.predicate.words}{" "}
+                <code className="break-all font-mono text-stone-400">{c.predicate.json}</code>
+              </p>
+            )}
             {options.conditionThreads?.[c.id] && (
               <PlaceComments
                 url={`/api/proofs/${options.proofId}/cases/${c.id}/comments`}
@@ -61,6 +67,7 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                 number={c.number}
                 title={c.title}
                 condition={c.condition}
+                predicate={c.predicate?.json ?? null}
                 first={i === 0}
                 last={i === nodes.length - 1}
               />

@@ -5,7 +5,7 @@ import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { allCases, hiddenCaseIds, liveCases } from "@/lib/data/cases";
 import { recordEvent } from "@/lib/data/audit";
-import type { CreateCaseInput, UpdateCaseInput } from "@/lib/validations/case";
+import { normalisedPredicate, type CreateCaseInput, type UpdateCaseInput } from "@/lib/validations/case";
 
 type CaseRow = InstanceType<ReturnType<typeof models>["Case"]>;
 
@@ -58,7 +58,10 @@ export async function createCase(proofId: number, userId: number, input: CreateC
     if (parentId !== null && !cases.some((c) => c.id === parentId))
       throw invalid("The parent case is not in this proof.", [{ path: "parentId", message: "choose a case of this proof, or none for a top-level case" }]);
     const position = siblingsOf(cases, parentId).length + 1;
-    const row = await Case.create({ proofId, parentId, position, title: input.title, condition: input.condition ?? "" }, { transaction });
+    const row = await Case.create(
+      { proofId, parentId, position, title: input.title, condition: input.condition ?? "", predicate: normalisedPredicate(input.predicate) },
+      { transaction },
+    );
     await audit(proofId, userId, "case.created", row.id, input.title, transaction);
     return { id: row.id };
   });
@@ -68,9 +71,13 @@ export async function updateCase(proofId: number, caseId: number, userId: number
   await getSequelize().transaction(async (transaction) => {
     const cases = await loadLive(proofId, transaction);
     const c = findCase(cases, caseId);
-    if (input.title !== undefined || input.condition !== undefined) {
+    if (input.title !== undefined || input.condition !== undefined || input.predicate !== undefined) {
       await c.update(
-        { ...(input.title !== undefined ? { title: input.title } : {}), ...(input.condition !== undefined ? { condition: input.condition } : {}) },
+        {
+          ...(input.title !== undefined ? { title: input.title } : {}),
+          ...(input.condition !== undefined ? { condition: input.condition } : {}),
+          ...(input.predicate !== undefined ? { predicate: normalisedPredicate(input.predicate) } : {}),
+        },
         { transaction },
       );
       await audit(proofId, userId, "case.edited", caseId, null, transaction);

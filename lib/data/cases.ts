@@ -2,6 +2,7 @@ import "server-only";
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
+import { describeCondition, parseCondition } from "@/lib/core/families/case-condition";
 import {
   caseState,
   proofState,
@@ -30,9 +31,21 @@ export interface CaseView {
   position: number;
   title: string;
   condition: string;
+  /** The machine-readable condition, as stored (normalised JSON) and in words; null when the case has none. */
+  predicate: { json: string; words: string } | null;
   steps: StepView[];
   /** Rolled up over this case's steps and its sub-cases' steps. */
   state: CaseState;
+}
+
+/** A stored machine-readable condition for display; one that no longer reads is shown as stored, with the problem. */
+function predicateView(json: string | null | undefined): CaseView["predicate"] {
+  if (!json) return null;
+  try {
+    return { json, words: describeCondition(parseCondition(json)) };
+  } catch (e) {
+    return { json, words: `unreadable: ${(e as Error).message}` };
+  }
 }
 
 export const CASE_STATES: readonly CaseState[] = ["drafting", "claim failing", "under review", "disputed", "settled"];
@@ -151,6 +164,7 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
     position: c.position,
     title: c.title,
     condition: c.condition,
+    predicate: predicateView(c.predicate),
     state: "drafting" as CaseState,
     steps: steps
       .filter((s) => s.caseId === c.id)

@@ -1,14 +1,38 @@
 import { z } from "./zod";
+import { ConditionError, parseCondition } from "@/lib/core/families/case-condition";
 
 const id = z.number().int().positive();
 export const caseTitleSchema = z.string().trim().min(1, "Give the case a title.").max(300, "Keep the title under 300 characters.");
 export const caseConditionSchema = z.string().trim().max(5_000, "Keep the condition short (under 5 000 characters).");
+
+/**
+ * The machine-readable condition as JSON text (lib/core/families/case-condition.ts); empty means none.
+ * A problem is reported with the JSON path inside the condition, e.g. "$.and[1].relation: expected …".
+ */
+export const casePredicateSchema = z
+  .string()
+  .max(20_000, "Keep the machine-readable condition under 20 000 characters.")
+  .superRefine((text, ctx) => {
+    if (!text.trim()) return;
+    try {
+      parseCondition(text);
+    } catch (e) {
+      if (!(e instanceof ConditionError)) throw e;
+      ctx.addIssue({ code: "custom", message: `${e.message} (see the condition language in the help: { "predicate": "tree" }, { "and": [ … ] }, …)` });
+    }
+  });
+
+/** The stored form: normalised JSON, or null for none. */
+export function normalisedPredicate(text: string | null | undefined): string | null {
+  return text && text.trim() ? JSON.stringify(parseCondition(text)) : null;
+}
 
 export const createCaseSchema = z.object({
   /** The case this one refines; null or absent for a top-level case. */
   parentId: id.nullable().optional(),
   title: caseTitleSchema,
   condition: caseConditionSchema.default(""),
+  predicate: casePredicateSchema.nullable().optional(),
 });
 export type CreateCaseInput = z.input<typeof createCaseSchema>;
 
@@ -20,12 +44,14 @@ export const updateCaseSchema = z
   .object({
     title: caseTitleSchema.optional(),
     condition: caseConditionSchema.optional(),
+    /** JSON text of the machine-readable condition; "" or null removes it. */
+    predicate: casePredicateSchema.nullable().optional(),
     move: z.enum(["up", "down"]).optional(),
     parentId: id.nullable().optional(),
     confirm: z.boolean().optional(),
   })
-  .refine((v) => v.title !== undefined || v.condition !== undefined || v.move !== undefined || v.parentId !== undefined, {
-    message: "Say what to change: title, condition, move (up or down) or parentId.",
+  .refine((v) => v.title !== undefined || v.condition !== undefined || v.predicate !== undefined || v.move !== undefined || v.parentId !== undefined, {
+    message: "Say what to change: title, condition, predicate, move (up or down) or parentId.",
   });
 export type UpdateCaseInput = z.infer<typeof updateCaseSchema>;
 

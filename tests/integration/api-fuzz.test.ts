@@ -134,7 +134,7 @@ const TARGETS: Target[] = [
     who: "author",
     call: caseRoute.PATCH as Call,
     params: () => ({ proofId, caseId: String(caseId) }),
-    valid: () => ({ title: "Renamed", condition: "$n$ odd" }),
+    valid: () => ({ title: "Renamed", condition: "$n$ odd", predicate: JSON.stringify({ predicate: "max-degree", relation: "<=", value: 2 }) }),
   },
   {
     file: "api/proofs/[proofId]/cases/[caseId]/route.ts",

@@ -163,6 +163,8 @@ describe("every kind the core offers", () => {
       claim({ kind: "enumeration", maxVertices: 5, op: "<", bound: "2", graphs: ["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].map(named) }),
       // h(E8) = 30 and |W(E8)| = 696729600 (Humphreys, Reflection Groups and Coxeter Groups, Tables 2.4 and 3.1).
       claim({ kind: "dynkin-data", graph: e8, type: "E8", coxeterNumber: 30, weylGroupOrder: "696729600" }),
+      // Every connected graph is a tree or contains a cycle (elementary), here on ≤ 5 vertices.
+      claim({ kind: "coverage", maxVertices: 5, cases: [{ condition: { predicate: "tree" } }, { condition: { predicate: "has-cycle" } }] }),
     ];
     const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: all }), params({ proofId, stepId }));
     expect(res.status).toBe(200);

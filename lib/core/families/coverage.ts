@@ -43,7 +43,7 @@ export function coverageStatement(maxVertices: number, cases: readonly CoverageC
     .join("; ")}`;
 }
 
-export const COVERAGE_METHOD = "exhaustive enumeration by canonical augmentation (McKay 1998), each graph tested exactly against every sub-case condition";
+export const COVERAGE_METHOD = "enumeration by canonical augmentation (McKay 1998), every sub-case condition tested exactly";
 
 /** What remains the authors' and referees' job when a coverage claim is verified. */
 export function coverageCaution(maxVertices: number): string {

@@ -1,0 +1,101 @@
+/** A case's machine-readable condition (PATCH .../cases/[caseId]) and the coverage claim through the API. */
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
+
+import { actAs, jsonRequest, params } from "./helpers";
+import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
+import { closeSequelize } from "@/lib/db";
+import { models } from "@/models";
+import { closePool } from "@/lib/verification/pool";
+import { getCaseTree } from "@/lib/data/cases";
+import { flattenCaseTree } from "@/lib/proof-tree";
+import * as caseRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/route";
+import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
+
+let proofId: string;
+let caseId: number;
+let stepId: string;
+
+beforeAll(async () => {
+  proofId = await draftProof("Case coverage test");
+  caseId = await addCase(proofId, "Trees");
+  stepId = String((await addStep(proofId, caseId, "Split by the number of branch vertices.")).id);
+});
+afterAll(async () => {
+  await dropProofs([proofId]);
+  await closePool();
+  await closeSequelize();
+});
+
+const patch = (body: unknown) => caseRoute.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId, caseId: String(caseId) }));
+const stored = async () => (await models().Case.findByPk(caseId))!.predicate;
+
+describe("a case's machine-readable condition", () => {
+  it("answers 422 naming the JSON path inside the condition, and writes nothing", async () => {
+    await actAs("author");
+    const res = await patch({ predicate: JSON.stringify({ and: [{ predicate: "tree" }, { predicate: "max-degree", relation: "<<", value: 2 }] }) });
+    expect(res.status).toBe(422);
+    const { error } = await res.json();
+    expect(error.issues[0].path).toBe("predicate");
+    expect(error.issues[0].message).toMatch(/^\$\.and\[1\]\.relation: expected one of/);
+    expect((await patch({ predicate: "{ not json" })).status).toBe(422);
+    expect(await stored()).toBeNull();
+  });
+
+  it("stores a good condition normalised, shows it in words on the case, and clears it with an empty text", async () => {
+    await actAs("author");
+    const condition = { and: [{ predicate: "tree" }, { not: { predicate: "contains", graph: { format: "edges", text: "0 1\n0 2\n0 3" } } }] };
+    expect((await patch({ predicate: JSON.stringify(condition, null, 2) })).status).toBe(200);
+    // The claw K1,3 with edges 0-1 0-2 0-3 in graph6 (McKay's format description): "C" for n = 4, then the
+    // upper triangle by columns 01 02 12 03 13 23 = 110100 → 52 + 63 = 115 = "s".
+    expect(JSON.parse((await stored())!)).toEqual({
+      and: [{ predicate: "tree" }, { not: { predicate: "contains", graph: { format: "graph6", text: "Cs" } } }],
+    });
+    const view = flattenCaseTree(await getCaseTree(Number(proofId))).find((c) => c.id === caseId)!;
+    expect(view.predicate?.words).toBe("G is a tree and not (G contains Cs (graph6) as a subgraph)");
+    expect(view.condition).toBe("$\\Delta(T) \\ge 4$"); // the prose condition is untouched
+    await actAs("reviewer");
+    expect((await patch({ predicate: "" })).status).toBe(403);
+    await actAs("author");
+    expect((await patch({ predicate: "" })).status).toBe(200);
+    expect(await stored()).toBeNull();
+  });
+});
+
+describe("coverage claims through the API", () => {
+  it("verifies a split that covers and refutes a leaky one, naming the uncovered graphs", async () => {
+    await actAs("author");
+    const claim = (cases: unknown[]) => ({ format: "cairn-claim/1", kind: "coverage", maxVertices: 5, cases });
+    const covering = claim([
+      { label: "tree", condition: { predicate: "tree" } },
+      { label: "cyclic", condition: { predicate: "has-cycle" } },
+    ]);
+    // Connected graphs on ≤ 5 vertices that are neither trees nor contain a triangle: C4, C4 with a pendant, K2,3, C5
+    // (nauty's geng -c -t 4 and 5).
+    const leaky = claim([
+      { label: "tree", condition: { predicate: "tree" } },
+      { label: "triangle", condition: { predicate: "contains", graph: "Bw" } },
+    ]);
+    const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: [covering, leaky] }), params({ proofId, stepId }));
+    expect(res.status).toBe(200);
+    const [a, b] = (await res.json()).claims as Array<{ status: string; reason?: string }>;
+    expect(a.status).toBe("verified");
+    expect(b.status).toBe("refuted");
+    const rows = await models().Claim.findAll({ where: { stepId: Number(stepId) }, order: [["id", "ASC"]] });
+    const reason = rows.map((r) => JSON.stringify(r.toJSON())).join("\n");
+    // Trees on ≤ 5 vertices: 1 + 1 + 1 + 2 + 3 = 8 (OEIS A000055) of the 31 connected graphs (OEIS A001349).
+    expect(reason).toMatch(/tree covers 8, cyclic covers 23/);
+    // The method and its certificate words fit the 200-character column.
+    expect(rows.every((r) => r.method!.length < 200 && r.method!.endsWith("(graph6)"))).toBe(true);
+    expect(reason).toMatch(/4 of the 31 graphs satisfy no sub-case/);
+  });
+
+  it("answers 422 with the path of a bad condition inside a coverage claim", async () => {
+    await actAs("author");
+    const bad = { format: "cairn-claim/1", kind: "coverage", maxVertices: 5, cases: [{ condition: { predicate: "planar" } }] };
+    const res = await claimsRoute.POST(jsonRequest("/x", "POST", { claims: [bad] }), params({ proofId, stepId }));
+    expect(res.status).toBe(422);
+    expect(JSON.stringify(await res.json())).toMatch(/claims\.0\.cases\[0\]\.condition\.predicate/);
+  });
+});
