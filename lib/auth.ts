@@ -5,12 +5,15 @@
  */
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { authenticate, endSessions } from "@/lib/data/users";
+import { authenticate, endSessions, sessionIsCurrent } from "@/lib/data/users";
 import { signInSchema } from "@/lib/validations/sign-in";
 import { AppError } from "@/lib/errors";
 
 /** The one message for an unknown address or a wrong password: it must not say which. */
 export const NEUTRAL_SIGN_IN_ERROR = "The e-mail address or password is not right.";
+
+/** Thrown by the jwt callback for a token of an ended session: next-auth then answers an empty session and clears the cookie. */
+const SESSION_ENDED = "cairn: this session has ended (signed out or password changed)";
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 8 * 60 * 60 },
@@ -34,11 +37,27 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    jwt({ token, user }) {
+    /**
+     * On sign-in, the token takes the person's session version. On every later read (GET /api/auth/session, the
+     * browser's useSession, getServerSession) a token whose version is no longer the person's is refused, so a
+     * cookie kept after sign-out reads as signed out there too, not only in lib/session.ts. A database that does not
+     * answer keeps the token (lib/session.ts then answers 503): an outage must not sign anyone out.
+     */
+    async jwt({ token, user }) {
       if (user) {
         token.role = user.role;
         token.sv = user.sessionVersion;
+        return token;
       }
+      const id = Number(token.sub);
+      if (typeof token.sv !== "number" || !Number.isInteger(id) || id <= 0) throw new Error(SESSION_ENDED);
+      let current: boolean;
+      try {
+        current = await sessionIsCurrent(id, token.sv);
+      } catch {
+        return token;
+      }
+      if (!current) throw new Error(SESSION_ENDED);
       return token;
     },
     session({ session, token }) {
@@ -46,6 +65,14 @@ export const authOptions: NextAuthOptions = {
       session.user.role = token.role ?? "member";
       session.user.sessionVersion = token.sv;
       return session;
+    },
+  },
+  logger: {
+    // An ended session is an expected answer (an empty session), not an error worth a stack trace in the log.
+    error(code, metadata) {
+      const message = metadata instanceof Error ? metadata.message : (metadata as { error?: Error } | undefined)?.error?.message;
+      if (message === SESSION_ENDED) return;
+      console.error(`[next-auth][error][${code}]`, metadata);
     },
   },
   events: {

@@ -141,3 +141,6 @@ export function casesBelow(roots: Iterable<number>, cases: ReadonlyArray<{ id: n
   }
   return out;
 }
+
+/** The overview's anchor of the thread on the statement (no case number) or on a case's condition. */
+export const commentsAnchor = (caseNumber: string | null): string => (caseNumber === null ? "statement-comments" : `case-${caseNumber}-comments`);

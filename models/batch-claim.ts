@@ -1,14 +1,18 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
+import { BATCH_KINDS, type BatchKind } from "../lib/core/claims/batch";
+
 export type BatchStatus = "queued" | "running" | "done" | "cancelled";
 export type BatchVerdict = "verified" | "refuted" | "undecided" | "unreadable";
 
-/** "Every graph of this uploaded file satisfies ρ op b", checked in chunks by the workers, with its running counts. */
+/** "Every graph of this uploaded file satisfies …" (ρ op b, contains one / none of H₁…H_k, identified as a family member), checked in chunks by the workers, with its running counts. */
 export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreationAttributes<BatchClaim>> {
   declare id: CreationOptional<number>;
   declare stepId: number;
   declare fileId: number;
-  declare kind: "spectral-radius-bound";
+  declare kind: BatchKind;
+  /** The statement's patterns or families as JSON (kinds other than spectral-radius-bound); null otherwise. */
+  declare params: CreationOptional<string | null>;
   declare op: string;
   declare bound: string;
   declare statement: string;
@@ -21,6 +25,8 @@ export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreation
   declare undecided: CreationOptional<number>;
   declare unreadable: CreationOptional<number>;
   declare checkerVersion: string;
+  /** Why graphs were left undecided (chunks whose check failed for good), one line each; null when none. */
+  declare note: CreationOptional<string | null>;
   declare createdBy: number;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -35,7 +41,8 @@ export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreation
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
         stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         fileId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        kind: { type: DataTypes.ENUM("spectral-radius-bound"), allowNull: false },
+        kind: { type: DataTypes.ENUM(...BATCH_KINDS), allowNull: false },
+        params: { type: DataTypes.TEXT, allowNull: true },
         op: { type: DataTypes.STRING(2), allowNull: false },
         bound: { type: DataTypes.STRING(500), allowNull: false },
         statement: { type: DataTypes.STRING(500), allowNull: false },
@@ -48,6 +55,7 @@ export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreation
         undecided: count(),
         unreadable: count(),
         checkerVersion: { type: DataTypes.STRING(40), allowNull: false },
+        note: { type: DataTypes.TEXT, allowNull: true },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         startedAt: { type: DataTypes.DATE(3), allowNull: true },
         finishedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -2,7 +2,11 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 export class Comment extends Model<InferAttributes<Comment>, InferCreationAttributes<Comment>> {
   declare id: CreationOptional<number>;
-  declare stepId: number;
+  declare proofId: number;
+  /** The case of a step comment, or the case whose condition is commented on; null on the statement. */
+  declare caseId: number | null;
+  /** Null for a comment on the statement or on a case's condition. */
+  declare stepId: number | null;
   declare reviewId: number | null;
   declare parentId: number | null;
   declare revisionId: number | null;
@@ -14,7 +18,9 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
     Comment.init(
       {
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        proofId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        caseId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         reviewId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         parentId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

@@ -1,36 +1,8 @@
 /** All models, initialised once against the process's Sequelize instance, with their associations. */
 import { getSequelize } from "@/lib/db";
-import { User } from "./user";
-import { SignInThrottle } from "./sign-in-throttle";
-import { Proof } from "./proof";
-import { ProofMember } from "./proof-member";
-import { Case } from "./case";
-import { Step } from "./step";
-import { StepRevision } from "./step-revision";
-import { Claim } from "./claim";
-import { Review } from "./review";
-import { Comment } from "./comment";
-import { AuditEvent } from "./audit-event";
-import { OutgoingMail } from "./outgoing-mail";
-import { Invitation } from "./invitation";
-import { InvitationCase } from "./invitation-case";
-import { ReviewerScope } from "./reviewer-scope";
-import { DisputeTransition } from "./dispute-transition";
-import { Notification } from "./notification";
-import { NotificationPreference } from "./notification-preference";
-import { ProofExport } from "./proof-export";
-import { ReviewRound } from "./review-round";
-import { RoundReferee } from "./round-referee";
-import { RefereeReport } from "./referee-report";
-import { RoundDecision } from "./round-decision";
-import { RoundReminder } from "./round-reminder";
-import { StepFile } from "./step-file";
-import { FormerMember } from "./former-member";
-import { BatchClaim, BatchResult } from "./batch-claim";
-
-const all = {
+import * as all from "./all";
+import {
   User,
-  SignInThrottle,
   Proof,
   ProofMember,
   Case,
@@ -39,25 +11,13 @@ const all = {
   Claim,
   Review,
   Comment,
-  AuditEvent,
-  OutgoingMail,
   Invitation,
   InvitationCase,
-  ReviewerScope,
+  OutgoingMail,
   DisputeTransition,
-  Notification,
-  NotificationPreference,
   ProofExport,
-  ReviewRound,
-  RoundReferee,
-  RefereeReport,
-  RoundDecision,
-  RoundReminder,
-  FormerMember,
   StepFile,
-  BatchClaim,
-  BatchResult,
-};
+} from "./all";
 
 function initModels() {
   const sequelize = getSequelize();
@@ -95,33 +55,4 @@ export function models() {
   return all;
 }
 
-export {
-  User,
-  SignInThrottle,
-  Proof,
-  ProofMember,
-  Case,
-  Step,
-  StepRevision,
-  Claim,
-  Review,
-  Comment,
-  AuditEvent,
-  OutgoingMail,
-  Invitation,
-  InvitationCase,
-  ReviewerScope,
-  DisputeTransition,
-  Notification,
-  NotificationPreference,
-  ProofExport,
-  ReviewRound,
-  RoundReferee,
-  RefereeReport,
-  RoundDecision,
-  RoundReminder,
-  FormerMember,
-  StepFile,
-  BatchClaim,
-  BatchResult,
-};
+export * from "./all";

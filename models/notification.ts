@@ -1,6 +1,14 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export const NOTIFICATION_KINDS = ["assigned", "dispute_raised", "dispute_answered", "dispute_withdrawn", "dispute_upheld", "vouch_superseded"] as const;
+export const NOTIFICATION_KINDS = [
+  "assigned",
+  "dispute_raised",
+  "dispute_answered",
+  "dispute_withdrawn",
+  "dispute_upheld",
+  "vouch_superseded",
+  "comment_added",
+] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 /** An in-app notice for one person. */

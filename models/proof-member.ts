@@ -7,6 +7,9 @@ export class ProofMember extends Model<InferAttributes<ProofMember>, InferCreati
   declare userId: number;
   declare role: ProofRole;
   declare createdAt: CreationOptional<Date>;
+  /** Changes after this moment are listed on the overview as "since your last visit" until the member marks them seen. */
+  declare seenThrough: CreationOptional<Date>;
+  declare lastVisitAt: CreationOptional<Date | null>;
 
   static initModel(sequelize: Sequelize) {
     ProofMember.init(
@@ -15,6 +18,8 @@ export class ProofMember extends Model<InferAttributes<ProofMember>, InferCreati
         userId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
         role: { type: DataTypes.ENUM("author", "reviewer", "editor"), allowNull: false },
         createdAt: DataTypes.DATE(3),
+        seenThrough: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
+        lastVisitAt: { type: DataTypes.DATE(3), allowNull: true },
       },
       { sequelize, tableName: "proof_members", underscored: true, updatedAt: false },
     );

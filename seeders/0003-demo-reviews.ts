@@ -76,6 +76,8 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     await DisputeTransition.create({ reviewId: dispute.id, actorId: reviewer, fromState: null, toState: "raised" }, { transaction });
     const opening = await Comment.create(
       {
+        proofId: proof.id,
+        caseId: case2.id,
         stepId: step2.id,
         reviewId: dispute.id,
         parentId: null,
@@ -87,6 +89,8 @@ export async function up({ context: sequelize }: { context: Sequelize }) {
     );
     await Comment.create(
       {
+        proofId: proof.id,
+        caseId: case2.id,
         stepId: step2.id,
         reviewId: dispute.id,
         parentId: opening.id,

@@ -1,4 +1,5 @@
 "use client";
+import { FormField } from "@/components/proof/form-field";
 
 import { useState } from "react";
 import { useRouter } from "next/navigation";
@@ -25,26 +26,21 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
 
   return (
     <form onSubmit={onSubmit} className="mt-8 space-y-5" noValidate>
-      <label className="block">
-        <span className="text-sm font-semibold text-stone-700">E-mail</span>
-        <input
-          type="email"
-          autoComplete="username"
-          {...register("email")}
-          className="mt-1 block w-full rounded border border-stone-300 bg-white px-3 py-2 font-mono text-sm"
-        />
-        {formState.errors.email && <span className="mt-1 block text-sm text-refuted">{formState.errors.email.message}</span>}
-      </label>
-      <label className="block">
-        <span className="text-sm font-semibold text-stone-700">Password</span>
-        <input
-          type="password"
-          autoComplete="current-password"
-          {...register("password")}
-          className="mt-1 block w-full rounded border border-stone-300 bg-white px-3 py-2 font-mono text-sm"
-        />
-        {formState.errors.password && <span className="mt-1 block text-sm text-refuted">{formState.errors.password.message}</span>}
-      </label>
+      {(
+        [
+          ["email", "E-mail", "email", "username"],
+          ["password", "Password", "password", "current-password"],
+        ] as const
+      ).map(([name, label, type, autoComplete]) => (
+        <FormField key={name} label={label} error={formState.errors[name]?.message}>
+          <input
+            type={type}
+            autoComplete={autoComplete}
+            {...register(name)}
+            className="block w-full rounded border border-stone-300 bg-white px-3 py-2 font-mono text-sm"
+          />
+        </FormField>
+      ))}
       {failure && (
         <p role="alert" data-testid="sign-in-failure" className="rounded border border-refuted/40 bg-red-50 px-3 py-2 text-sm text-refuted">
           {failure}

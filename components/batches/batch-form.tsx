@@ -8,7 +8,41 @@ import type { StepFileView } from "@/lib/data/files";
 const OPS = ["<", "<=", "=", ">=", ">"] as const;
 const SHOWN: Record<(typeof OPS)[number], string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
 
-/** Starts a batch claim: every graph of an uploaded graph list satisfies ρ(G) op b. */
+type Kind = "spectral-radius-bound" | "contains-one-of" | "contains-none-of" | "identified-as";
+const KINDS: Record<Kind, string> = {
+  "spectral-radius-bound": "has ρ(G)",
+  "contains-one-of": "contains one of",
+  "contains-none-of": "contains none of",
+  "identified-as": "is identified as a member of",
+};
+/** Families of Smith's classification, as lib/core/smith-families.ts names them, with their display. */
+const FAMILIES: Array<[string, string]> = [
+  ["A", "A"],
+  ["D", "D"],
+  ["E", "E"],
+  ["A~", "Ã"],
+  ["D~", "D̃"],
+  ["E~", "Ẽ"],
+  ["loop_path", "loop_path"],
+  ["loop_path2", "loop_path2"],
+  ["fork_loop", "fork_loop"],
+];
+
+/** The request body for the statement chosen in the form. */
+function statementBody(kind: Kind, op: string, bound: string, patterns: string, induced: boolean, families: string[]) {
+  if (kind === "spectral-radius-bound") return { kind, op, bound };
+  if (kind === "identified-as") return { kind, families };
+  return {
+    kind,
+    induced,
+    patterns: patterns
+      .split("\n")
+      .map((p) => p.trim())
+      .filter(Boolean),
+  };
+}
+
+/** Starts a batch claim: every graph of an uploaded graph list satisfies ρ(G) op b, contains one / none of some patterns, or is identified as a family member. */
 export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number }) {
   const { mutate } = useSWRConfig();
   const { data } = useSWR<{ files: StepFileView[] }>(`/api/proofs/${proofId}/steps/${stepId}/files`, jsonFetcher);
@@ -16,6 +50,10 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [fileId, setFileId] = useState<string>("");
   const [op, setOp] = useState<(typeof OPS)[number]>("<");
   const [bound, setBound] = useState("2");
+  const [kind, setKind] = useState<Kind>("spectral-radius-bound");
+  const [patterns, setPatterns] = useState("star(3)");
+  const [induced, setInduced] = useState(false);
+  const [families, setFamilies] = useState<string[]>(["A", "D", "E"]);
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
@@ -29,7 +67,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
     try {
       const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
         method: "POST",
-        body: { fileId: Number(chosen), op, bound },
+        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families) },
       });
       setMessage(
         `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
@@ -63,26 +101,70 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
             </option>
           ))}
         </select>
-        <span>has ρ(G)</span>
         <select
-          value={op}
-          onChange={(e) => setOp(e.target.value as (typeof OPS)[number])}
-          aria-label="relation"
+          value={kind}
+          onChange={(e) => setKind(e.target.value as Kind)}
+          aria-label="statement"
           className="rounded border border-stone-300 bg-white px-1 py-0.5"
         >
-          {OPS.map((o) => (
-            <option key={o} value={o}>
-              {SHOWN[o]}
+          {(Object.keys(KINDS) as Kind[]).map((k) => (
+            <option key={k} value={k}>
+              {KINDS[k]}
             </option>
           ))}
         </select>
-        <input
-          value={bound}
-          onChange={(e) => setBound(e.target.value)}
-          aria-label="bound"
-          className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
-        />
+        {kind === "spectral-radius-bound" && (
+          <>
+            <select
+              value={op}
+              onChange={(e) => setOp(e.target.value as (typeof OPS)[number])}
+              aria-label="relation"
+              className="rounded border border-stone-300 bg-white px-1 py-0.5"
+            >
+              {OPS.map((o) => (
+                <option key={o} value={o}>
+                  {SHOWN[o]}
+                </option>
+              ))}
+            </select>
+            <input
+              value={bound}
+              onChange={(e) => setBound(e.target.value)}
+              aria-label="bound"
+              className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
+            />
+          </>
+        )}
       </div>
+      {(kind === "contains-one-of" || kind === "contains-none-of") && (
+        <div className="space-y-1 text-sm">
+          <textarea
+            value={patterns}
+            onChange={(e) => setPatterns(e.target.value)}
+            aria-label="patterns, one per line"
+            rows={3}
+            className="w-full rounded border border-stone-300 px-2 py-1 font-mono"
+          />
+          <label className="flex items-center gap-2">
+            <input type="checkbox" checked={induced} onChange={(e) => setInduced(e.target.checked)} /> as induced subgraphs
+          </label>
+        </div>
+      )}
+      {kind === "identified-as" && (
+        <fieldset className="flex flex-wrap gap-3 text-sm">
+          <legend className="sr-only">families</legend>
+          {FAMILIES.map(([name, shown]) => (
+            <label key={name} className="flex items-center gap-1">
+              <input
+                type="checkbox"
+                checked={families.includes(name)}
+                onChange={(e) => setFamilies(e.target.checked ? [...families, name] : families.filter((f) => f !== name))}
+              />
+              {shown}
+            </label>
+          ))}
+        </fieldset>
+      )}
       <FormProblem message={problem} />
       <SubmitRow label="Check every graph" busyLabel="Starting…" busy={busy} message={message} />
     </form>

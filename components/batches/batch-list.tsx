@@ -3,6 +3,7 @@ import { useState } from "react";
 import useSWR from "swr";
 import { apiFetch, jsonFetcher } from "@/components/proof/api-client";
 import type { BatchView } from "@/lib/data/batches";
+import type { VerificationService } from "@/lib/jobs/queue";
 import { BatchResultsTable } from "./batch-results-table";
 
 const STATE: Record<BatchView["status"], string> = { queued: "waiting for a worker", running: "being checked", done: "finished", cancelled: "cancelled" };
@@ -44,6 +45,11 @@ function BatchCard({ proofId, batch, canCancel, onChange }: { proofId: number; b
           {batch.rate !== null && ` · ${Math.round(batch.rate)} graphs/s`}
           {batch.etaSeconds !== null && ` · about ${seconds(batch.etaSeconds)} left`}
         </p>
+        {batch.note && (
+          <p className="mt-1 whitespace-pre-line text-xs text-stone-700" data-testid="batch-note">
+            {batch.note}
+          </p>
+        )}
         {outcome(batch) && (
           <p className={`small-caps mt-1 font-semibold ${batch.failing ? "text-refuted" : ""}`} data-testid="batch-outcome">
             {outcome(batch)}
@@ -75,7 +81,7 @@ function BatchCard({ proofId, batch, canCancel, onChange }: { proofId: number; b
 /** The step's batch claims, polled every second while one is still being checked. */
 export function BatchList({ proofId, stepId, canCancel }: { proofId: number; stepId: number; canCancel: boolean }) {
   const key = `/api/proofs/${proofId}/steps/${stepId}/batches`;
-  const { data, mutate } = useSWR<{ batches: BatchView[] }>(key, jsonFetcher, {
+  const { data, mutate } = useSWR<{ batches: BatchView[]; verification: VerificationService | null }>(key, jsonFetcher, {
     refreshInterval: (d) => (d?.batches.some((b) => b.status === "queued" || b.status === "running") ? 1_000 : 0),
   });
   const batches = data?.batches ?? [];
@@ -85,6 +91,11 @@ export function BatchList({ proofId, stepId, canCancel }: { proofId: number; ste
       <h2 id="batches-heading" className="text-lg font-semibold">
         Batch claims
       </h2>
+      {data?.verification?.paused && (
+        <p role="status" data-testid="batch-verification-paused" className="mt-2 rounded border border-amber-300 bg-amber-50 p-2 text-sm text-amber-900">
+          {data.verification.message} Unfinished batch claims wait where they are.
+        </p>
+      )}
       <ul className="mt-2 space-y-3">
         {batches.map((b) => (
           <BatchCard key={b.id} proofId={proofId} batch={b} canCancel={canCancel} onChange={() => void mutate()} />

@@ -19,6 +19,7 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   eigenvalues: "eigenvalues  2cos(πm/h)",
   structure: "structure  (tree, degrees, legs …)",
   enumeration: "enumeration  all connected G, |G| ≤ N, ρ(G) op b",
+  "dynkin-data": "Dynkin data  h, ρ, exponents, |W|, W(q), [k]_q",
 };
 
 const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
@@ -135,7 +136,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       )}
       {!enumeration && (
         <FormField
-          label={twoGraphs ? "Host G" : "Graph G"}
+          label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
           error={err("graphText")}
         >
@@ -186,6 +187,20 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         <FormField label="Type (optional)" hint="e.g. E7, affine D5" error={err("family")}>
           <input {...register("family")} className={input} />
         </FormField>
+      )}
+      {kind === "dynkin-data" && (
+        <>
+          <FormField label="Type" hint="A_n, D_n, E6, E7 or E8; leave the graph empty to use the named diagram" error={err("family")}>
+            <input {...register("family")} className={input} aria-label="Dynkin type" />
+          </FormField>
+          <FormField
+            label="Stated data, one per line"
+            hint="h = 30 · rho = 2cos(pi/30) · exponents = 1, 7, … · marks = … · f = 1 · |W| = 696729600 · W(q) = … (highest power first) · [2]_q = 2cos(pi/30) · [k]_q > 0"
+            error={err("dynkinData")}
+          >
+            <textarea {...register("dynkinData")} rows={4} className={input} aria-label="stated Dynkin data" />
+          </FormField>
+        </>
       )}
       {kind === "characteristic-polynomial" && (
         <FormField label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>

@@ -1,11 +1,13 @@
 import Link from "next/link";
-import { stepLabel, type CaseNode } from "@/lib/proof-tree";
+import { commentsAnchor, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import type { CaseView } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepMoveButtons } from "./step-move-buttons";
 import { CaseStateBadge } from "./case-state-badge";
 import { CaseActions } from "./case-actions";
 import { StepReviewSummary } from "./step-review-summary";
+import { PlaceComments } from "@/components/review/place-comments";
+import type { PlaceThread } from "@/lib/data/proof-comments";
 
 export interface TreeOptions {
   proofId: number;
@@ -13,6 +15,18 @@ export interface TreeOptions {
   editable: boolean;
   /** How many vouches a step needs (the proof's setting). */
   required: number;
+  /** Each visible case's condition thread, by case id (a case without one shows no thread). */
+  conditionThreads?: Record<number, PlaceThread>;
+  /** Steps and cases with a change since the viewer's last visit (marked in the outline). */
+  changed?: { stepIds: readonly number[]; caseIds: readonly number[] };
+}
+
+function ChangedMark() {
+  return (
+    <span className="rounded bg-amber-100 px-1.5 py-0.5 font-sans text-xs text-amber-900" data-testid="changed-mark">
+      changed since your last visit
+    </span>
+  );
 }
 
 /** The labels of the steps at or below a case that hold an unresolved dispute: why a case reads "disputed". */
@@ -43,10 +57,22 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                   <span className="mr-2 font-mono text-lichen-700">Case {c.number}</span>
                   {c.title}
                 </h3>
-                <CaseStateBadge state={c.state} />
+                <span className="flex items-center gap-2">
+                  {options.changed?.caseIds.includes(c.id) && <ChangedMark />}
+                  <CaseStateBadge state={c.state} />
+                </span>
               </summary>
               <div className="border-t border-stone-100 px-4 py-2">
                 <MathMarkdown source={c.condition} className="text-sm text-stone-600" />
+                {options.conditionThreads?.[c.id] && (
+                  <PlaceComments
+                    url={`/api/proofs/${options.proofId}/cases/${c.id}/comments`}
+                    anchor={commentsAnchor(c.number)}
+                    what={`the condition of case ${c.number}`}
+                    digest={options.conditionThreads[c.id].digest}
+                    comments={options.conditionThreads[c.id].comments}
+                  />
+                )}
                 {disputed.length > 0 && (
                   <p className="text-sm text-undecided" data-testid="case-disputed-steps">
                     Unresolved dispute{disputed.length === 1 ? "" : "s"} on step{disputed.length === 1 ? "" : "s"} {disputed.join(", ")}
@@ -83,6 +109,7 @@ export function CaseTree({ nodes, options }: { nodes: CaseNode<CaseView>[]; opti
                               revision {s.revision.number} by {s.revision.authorName}
                             </span>
                           )}
+                          {options.changed?.stepIds.includes(s.id) && <ChangedMark />}
                         </p>
                         {s.revision ? <MathMarkdown source={s.revision.body} /> : <p className="italic text-stone-500">empty step</p>}
                         <StepReviewSummary step={s} label={label} required={options.required} href={href} />

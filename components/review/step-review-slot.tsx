@@ -54,6 +54,7 @@ export function StepReviewSlot({ proofId, stepId, revisionId, viewer }: StepRevi
   return (
     <section
       className="mt-3 space-y-3 rounded border border-stone-200 bg-stone-50/60 p-3"
+      id="review"
       aria-label="Review of this step"
       data-testid="step-review"
       data-step-id={stepId}

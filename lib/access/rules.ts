@@ -38,6 +38,7 @@ export type ProofAction =
   | "exports.read" // list and download exports, the print view
   | "exports.create"
   | "timeline.read" // the audit trail (a case-limited member: events of their cases only)
+  | "statement.discuss" // read and post comments on the proof's statement (a condition's thread: proof.read, in scope)
   | "authors.invite" // invite co-authors by e-mail
   | "editors.invite" // invite editors by e-mail
   | "members.remove" // remove another member (their vouches, disputes and reports stay, attributed)
@@ -50,6 +51,8 @@ interface Rule {
   /** A case-limited member is refused: the thing shows or changes the whole proof. */
   wholeProof?: boolean;
   refusal: string;
+  /** What a case-limited member is told (default: the exports' refusal). */
+  caseLimitedRefusal?: string;
 }
 
 const ALL: readonly ProofRole[] = ["author", "reviewer", "editor"];
@@ -72,6 +75,12 @@ export const ACCESS: Readonly<Record<ProofAction, Rule>> = {
   },
   "exports.create": { roles: ["author", "editor"], wholeProof: true, refusal: "Only an author or an editor makes an export of the whole proof." },
   "timeline.read": { roles: ALL, refusal: "You are not a member of this proof." },
+  "statement.discuss": {
+    roles: ALL,
+    wholeProof: true,
+    refusal: "You are not a member of this proof.",
+    caseLimitedRefusal: "The discussion of the statement concerns the whole proof, and you were invited to review some of its cases only.",
+  },
   "authors.invite": { roles: ["author", "editor"], owner: true, refusal: "Only an author, an editor or the proof's owner invites co-authors." },
   "editors.invite": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner invites editors." },
   "members.remove": { roles: ["editor"], owner: true, refusal: "Only an editor or the proof's owner removes members." },
@@ -106,7 +115,7 @@ export const mayOwn = (role: ProofRole) => role !== "reviewer";
 /** Why this standing may not take this action, or null when it may. */
 export function accessRefusal(standing: Standing, action: ProofAction): string | null {
   const rule = ACCESS[action];
-  if (rule.wholeProof && standing.caseLimited) return ACCESS["exports.read"].refusal;
+  if (rule.wholeProof && standing.caseLimited) return rule.caseLimitedRefusal ?? ACCESS["exports.read"].refusal;
   if (rule.roles.includes(standing.role) || (rule.owner && standing.owner)) return null;
   return rule.refusal;
 }

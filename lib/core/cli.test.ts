@@ -3,6 +3,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { checkFile, EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, formatReport, main } from "./cli";
+import { validateClaim } from "./claims/claim-schema";
+import { verifyClaim } from "./claims/claims";
 
 const FIXTURES = join(import.meta.dirname, "../../tests/fixtures/claims");
 const scratch = mkdtempSync(join(tmpdir(), "cairn-cli-"));
@@ -90,6 +92,23 @@ describe("offline checker", () => {
     const report = checkFile(join(FIXTURES, "with-certificates.json"));
     expect(report.lines).toHaveLength(8);
     for (const line of report.lines) expect(line.certificate?.matches, `${line.label}: ${line.certificate?.text}`).toBe(true);
+  });
+
+  it("re-checks a dynkin-data certificate and rejects one with a tampered |W|", () => {
+    // |W(E8)| = 696729600 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+    const claim = { format: "cairn-claim/1", kind: "dynkin-data", type: "E8", weylGroupOrder: "696729600" };
+    const fresh = verifyClaim(validateClaim(claim));
+    expect(fresh.verdict.status).toBe("verified");
+    const certificate = fresh.verdict.certificate as { evidence: Record<string, unknown> };
+    const good = checkFile(writeJson("dynkin-good.json", { ...claim, certificate }));
+    expect(good.lines[0].certificate?.matches).toBe(true);
+    expect(good.exitCode).toBe(EXIT_OK);
+    const forged = { ...certificate, evidence: { ...certificate.evidence, weylGroupOrder: "696729601" } };
+    const bad = checkFile(writeJson("dynkin-bad.json", { ...claim, certificate: forged }));
+    expect(bad.lines[0].status).toBe("verified"); // the claim itself is still verified afresh …
+    expect(bad.lines[0].certificate?.matches).toBe(false); // … but the carried certificate is rejected
+    expect(bad.lines[0].certificate?.text).toMatch(/weylGroupOrder/);
+    expect(bad.exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
   it("rejects unknown options with exit 2", () => {

@@ -91,6 +91,7 @@ export { characteristicPolynomial, charpolyBerkowitz } from "./spectral/charpoly
 export { checkVectorCertificate, checkRayleighCertificate, recheckVectorCertificate, type VectorEvidence } from "./spectral/vector";
 export * from "./spectral/spectral";
 export * from "./spectral/perron";
+export * from "./spectral/dynkin-data";
 
 // Claims, the checker's reports, and exported bundles.
 export {
@@ -117,6 +118,7 @@ export {
   type IdentificationClaim,
   type CharacteristicPolynomialClaim,
   type EigenvaluesClaim,
+  type DynkinDataClaim,
   type StructureClaim,
 } from "./claims/claim-schema";
 export { readClaimsDocument, type ClaimEntry } from "./claims/claim-file";

@@ -3,7 +3,7 @@ import "server-only";
  * The audit trail: an append-only event log per proof (who did what to which step, case, claim,
  * revision). This module only inserts and reads; nothing here updates or deletes an event.
  */
-import type { Transaction } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { models } from "@/models";
 import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
 import { eventSentence, placePhrase, type EventPlace } from "@/lib/review/event-sentences";
@@ -41,6 +41,9 @@ export interface AuditEntry {
   href: string;
   /** The case the event is about (through its step, revision, claim, review or comment), or null for the whole proof. */
   caseId: number | null;
+  /** Its number ("2.1", lib/proof-tree.ts) while the case lives, and the step the event is about, if any. */
+  caseNumber: string | null;
+  stepId: number | null;
   at: string;
 }
 
@@ -79,7 +82,7 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
       if (wanted.length === 0) return;
       // Claims are read unscoped: a withdrawn claim's events still belong to its case.
       const rows = await (model as typeof Review).unscoped().findAll({ where: { id: wanted }, attributes: ["id", "stepId"] });
-      for (const r of rows) found.set(`${type}:${r.id}`, r.stepId);
+      for (const r of rows) if (r.stepId !== null) found.set(`${type}:${r.id}`, r.stepId);
     }),
   );
   return found;
@@ -88,11 +91,19 @@ async function stepsOfSubjects(events: ReadonlyArray<{ subjectType: string; subj
 /**
  * A proof's events, newest first. With a `lens` (lib/data/blind.ts), a referee of a blind proof acts as
  * "Referee k", and the free-text detail of events about members (which may hold an address) is withheld.
+ * `only`: the events with these actions after a moment, leaving out one person's own (what changed since their last visit).
  */
-export async function listProofEvents(proofId: number, limit = 500, lens?: NameLens): Promise<AuditEntry[]> {
+export async function listProofEvents(
+  proofId: number,
+  limit = 500,
+  lens?: NameLens,
+  only?: { after: Date; notBy: number; actions: readonly string[] },
+): Promise<AuditEntry[]> {
   const { AuditEvent, User } = models();
   const events = await AuditEvent.findAll({
-    where: { proofId },
+    where: only
+      ? { proofId, createdAt: { [Op.gt]: only.after }, action: [...only.actions], [Op.or]: [{ actorId: null }, { actorId: { [Op.ne]: only.notBy } }] }
+      : { proofId },
     order: [
       ["createdAt", "DESC"],
       ["id", "DESC"],
@@ -138,6 +149,8 @@ export async function listProofEvents(proofId: number, limit = 500, lens?: NameL
       sentence: eventSentence({ action: e.action, subjectType: e.subjectType, actorName, detail, place }),
       href: stepId !== null && place.step !== null ? `/proofs/${proofId}/steps/${stepId}` : `/proofs/${proofId}`,
       caseId: caseOf(e.subjectType, e.subjectId),
+      caseNumber: place.caseNumber,
+      stepId,
       at: e.createdAt.toISOString(),
     };
   });

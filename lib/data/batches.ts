@@ -6,10 +6,25 @@ import { invalid, notFound, conflict } from "@/lib/errors";
 import { batchStatement } from "@/lib/core/claims/batch";
 import { CHECKER_VERSION } from "@/lib/core/claims/claims";
 import { NumberFormatError } from "@/lib/core/arithmetic/rational";
-import { batchChunkSize, QueueUnavailable, queueBatchChunks, verificationQueue, batchJobId, bounded } from "@/lib/jobs/queue";
-import { listEntries } from "@/lib/jobs/batch";
+import {
+  batchChunkSize,
+  QueueUnavailable,
+  queueBatchChunks,
+  verificationQueue,
+  batchJobId,
+  bounded,
+  verificationService,
+  type VerificationService,
+} from "@/lib/jobs/queue";
+import { batchColumns, listEntries, statementOf } from "@/lib/jobs/batch";
+import { fileStore } from "@/lib/storage";
+import { graphListText } from "@/lib/uploads/detect";
+import { readEnv } from "@/lib/env";
+import { sha256Hex } from "@/lib/core/digest";
+import type { SnapshotBatch } from "@/lib/export/snapshot";
+import type { BatchStatement } from "@/lib/core/claims/batch";
+import type { CreateBatchInput } from "@/lib/validations/batch";
 import type { BatchClaim, BatchResult, BatchStatus, BatchVerdict } from "@/models/batch-claim";
-import type { Relation } from "@/lib/core/claims/claim-schema";
 
 /**
  * Batch claims: the web side. Creating one counts the graphs of the file, stores the batch and queues
@@ -23,6 +38,7 @@ export interface BatchView {
   fileId: number;
   fileName: string | null;
   statement: string;
+  kind: BatchClaim["kind"];
   op: string;
   bound: string;
   status: BatchStatus;
@@ -39,6 +55,8 @@ export interface BatchView {
   /** Seconds left at that rate; null when unknown or finished. */
   etaSeconds: number | null;
   checkerVersion: string;
+  /** Why graphs were left undecided (a chunk whose check failed for good); null when none. */
+  note: string | null;
   createdAt: string;
   startedAt: string | null;
   finishedAt: string | null;
@@ -55,6 +73,7 @@ export function batchView(b: BatchClaim, fileName: string | null = null, now = D
     fileId: b.fileId,
     fileName,
     statement: b.statement,
+    kind: b.kind,
     op: b.op,
     bound: b.bound,
     status: b.status,
@@ -68,28 +87,28 @@ export function batchView(b: BatchClaim, fileName: string | null = null, now = D
     rate,
     etaSeconds: active && rate ? Math.ceil((b.total - b.done) / rate) : null,
     checkerVersion: b.checkerVersion,
+    note: b.note ?? null,
     createdAt: b.createdAt.toISOString(),
     startedAt: b.startedAt?.toISOString() ?? null,
     finishedAt: b.finishedAt?.toISOString() ?? null,
   };
 }
 
-export async function createBatch(
-  proofId: number,
-  stepId: number,
-  userId: number,
-  input: { fileId: number; op: Relation; bound: string },
-): Promise<{ batch: BatchView; queued: boolean }> {
+export async function createBatch(proofId: number, stepId: number, userId: number, input: CreateBatchInput): Promise<{ batch: BatchView; queued: boolean }> {
   const { StepFile, BatchClaim, AuditEvent } = models();
   const file = await StepFile.findByPk(input.fileId);
   if (!file || file.stepId !== stepId) throw invalid("Choose a file uploaded to this step.", [{ path: "fileId", message: "not a file of this step" }]);
   if (file.kind !== "graph-list" || !file.graphFormat)
     throw invalid("A batch claim runs over a graph list; this file is not one.", [{ path: "fileId", message: `${file.name} is a ${file.description}` }]);
+  const { fileId: _file, ...statementInput } = input;
+  const wanted = statementInput as BatchStatement;
   let statement: string;
   try {
-    statement = batchStatement({ kind: "spectral-radius-bound", op: input.op, bound: input.bound });
+    statement = batchStatement(wanted);
   } catch (e) {
-    if (e instanceof NumberFormatError || e instanceof Error) throw invalid("The bound does not read.", [{ path: "bound", message: e.message }]);
+    const path = wanted.kind === "spectral-radius-bound" ? "bound" : wanted.kind === "identified-as" ? "families" : "patterns";
+    if (e instanceof NumberFormatError || e instanceof Error)
+      throw invalid(path === "bound" ? "The bound does not read." : `The ${path} do not read.`, [{ path, message: e.message }]);
     throw e;
   }
   const total = (await listEntries(file.sha256, file.graphFormat)).length;
@@ -99,9 +118,7 @@ export async function createBatch(
       {
         stepId,
         fileId: file.id,
-        kind: "spectral-radius-bound",
-        op: input.op,
-        bound: input.bound,
+        ...batchColumns(wanted),
         statement,
         total,
         chunkSize: batchChunkSize(),
@@ -125,6 +142,14 @@ export async function createBatch(
     queued = false;
   }
   return { batch: batchView(batch, file.name), queued };
+}
+
+/**
+ * Whether verification can go on for these batches: asked of the queue only while one is unfinished
+ * (Redis away or no worker: the page says verification is paused, and the batch waits); null otherwise.
+ */
+export async function batchesVerification(batches: readonly BatchView[]): Promise<VerificationService | null> {
+  return batches.some((b) => b.status === "queued" || b.status === "running") ? verificationService() : null;
 }
 
 /** The batch, if it belongs to this proof; 404 otherwise. */
@@ -224,3 +249,34 @@ export const failuresGraph6 = (rows: readonly BatchResultView[]): string =>
     .filter((r) => r.verdict !== "verified" && r.graph6)
     .map((r) => r.graph6)
     .join("\n") + "\n";
+
+/**
+ * The step's batch claims as a certified export carries them (lib/core/batch-check.ts re-checks them
+ * offline): the list's text as the workers read it, with its digest, and every graph's verdict and
+ * certificate. Batches in the order they were made.
+ */
+export async function exportedBatches(stepIds: readonly number[]): Promise<Map<number, SnapshotBatch[]>> {
+  const { BatchClaim, BatchResult, StepFile } = models();
+  const out = new Map<number, SnapshotBatch[]>();
+  if (stepIds.length === 0) return out;
+  const rows = await BatchClaim.findAll({ where: { stepId: [...stepIds] }, order: [["id", "ASC"]] });
+  for (const b of rows) {
+    const file = await StepFile.findByPk(b.fileId);
+    if (!file?.graphFormat) continue;
+    const bytes = await fileStore().get(file.sha256);
+    if (!bytes) throw new Error(`batch claim ${b.id}: its file ${file.name} is missing from the file store`);
+    const text = graphListText(bytes, readEnv().CAIRN_UPLOAD_MAX_BYTES * 4);
+    const results = await BatchResult.findAll({ where: { batchId: b.id }, order: [["entry", "ASC"]], attributes: ["entry", "line", "verdict", "certificate"] });
+    const batch: SnapshotBatch = {
+      statement: statementOf(b),
+      words: b.statement,
+      status: b.status,
+      file: { name: file.name, format: file.graphFormat, text, textSha256: sha256Hex(text), sha256: file.sha256 },
+      counts: { total: b.total, verified: b.verified, refuted: b.refuted, undecided: b.undecided, unreadable: b.unreadable },
+      results: results.map((r) => ({ entry: r.entry, line: r.line, verdict: r.verdict, certificate: r.certificate ? JSON.parse(r.certificate) : null })),
+      checkerVersion: b.checkerVersion,
+    };
+    out.set(b.stepId, [...(out.get(b.stepId) ?? []), batch]);
+  }
+  return out;
+}

@@ -3,26 +3,13 @@ import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
-import { hiddenCaseIds } from "@/lib/data/cases";
+import { allCases, hiddenCaseIds, liveCases } from "@/lib/data/cases";
 import { recordEvent } from "@/lib/data/audit";
 import type { CreateCaseInput, UpdateCaseInput } from "@/lib/validations/case";
 
 type CaseRow = InstanceType<ReturnType<typeof models>["Case"]>;
 
-async function loadLive(proofId: number, transaction: Transaction): Promise<CaseRow[]> {
-  const { Case } = models();
-  const all = await Case.findAll({
-    where: { proofId },
-    order: [
-      ["position", "ASC"],
-      ["id", "ASC"],
-    ],
-    transaction,
-    lock: transaction.LOCK.UPDATE,
-  });
-  const hidden = hiddenCaseIds(all);
-  return all.filter((c) => !hidden.has(c.id));
-}
+const loadLive = (proofId: number, transaction: Transaction): Promise<CaseRow[]> => liveCases(proofId, transaction, true);
 
 function findCase(cases: CaseRow[], caseId: number): CaseRow {
   const c = cases.find((x) => x.id === caseId);
@@ -134,17 +121,8 @@ export async function deleteCase(proofId: number, caseId: number, userId: number
  * its own (409 naming the parent to restore first); a case that is not deleted is a 409 too.
  */
 export async function restoreCase(proofId: number, caseId: number, userId: number): Promise<void> {
-  const { Case } = models();
   await getSequelize().transaction(async (transaction) => {
-    const all = await Case.findAll({
-      where: { proofId },
-      order: [
-        ["position", "ASC"],
-        ["id", "ASC"],
-      ],
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const all = await allCases(proofId, transaction, true);
     const c = all.find((x) => x.id === caseId);
     if (!c) throw notFound("This case");
     const hidden = hiddenCaseIds(all);

@@ -62,16 +62,36 @@ export function hiddenCaseIds(rows: ReadonlyArray<{ id: number; parentId: number
 }
 
 /** The live cases of a proof (deleted ones and their sub-cases left out), in position order. */
-export async function liveCases(proofId: number, transaction?: Transaction) {
+/** The steps of these cases, in their order (position, then id). */
+export async function stepsOfCases(caseIds: number[]) {
+  if (caseIds.length === 0) return [];
+  const { Step } = models();
+  return Step.findAll({
+    where: { caseId: caseIds },
+    order: [
+      ["position", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
+}
+
+/** Every case of the proof, deleted ones included, in order; `lock` takes them FOR UPDATE inside the transaction. */
+export async function allCases(proofId: number, transaction?: Transaction, lock = false) {
   const { Case } = models();
-  const all = await Case.findAll({
+  return Case.findAll({
     where: { proofId },
     order: [
       ["position", "ASC"],
       ["id", "ASC"],
     ],
     transaction,
+    ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}),
   });
+}
+
+/** The cases still in the tree (neither deleted nor under a deleted case), in order. */
+export async function liveCases(proofId: number, transaction?: Transaction, lock = false) {
+  const all = await allCases(proofId, transaction, lock);
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
 }
@@ -119,19 +139,11 @@ function groupBy<T>(rows: readonly T[], key: (row: T) => number): Map<number, T[
 
 /** `lens` null: no names are read (the tree is wanted for its numbers, not its review). */
 async function loadTree(proofId: number, lens: NameLens | null = null): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
-  const { Step, StepRevision, User, Claim, Review, Proof } = models();
+  const { StepRevision, User, Claim, Review, Proof } = models();
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
   const required = proof?.requiredApprovals ?? 1;
-  const steps = cases.length
-    ? await Step.findAll({
-        where: { caseId: cases.map((c) => c.id) },
-        order: [
-          ["position", "ASC"],
-          ["id", "ASC"],
-        ],
-      })
-    : [];
+  const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
   const [revisions, claims, reviews] = stepIds.length
     ? await Promise.all([

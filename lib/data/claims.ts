@@ -12,7 +12,7 @@ import { pendingProgress, scheduleVerification, verificationSettled, waitForVerd
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
 import type { ClaimStatus } from "@/lib/review/states";
-import { liveCases } from "@/lib/data/cases";
+import { liveCases, stepsOfCases } from "@/lib/data/cases";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
@@ -370,22 +370,14 @@ export interface ClaimRowView {
 
 /** Every claim of the proof's live cases, with the number of its step (for the overview table). */
 export async function listProofClaims(proofId: number, visible: ReadonlySet<number> | null = null): Promise<ClaimRowView[]> {
-  const { Step, Claim } = models();
+  const { Claim } = models();
   const all = await liveCases(proofId);
   // Numbering uses every live case; the listing only the cases this reader may see.
   const cases = visible === null ? all : all.filter((c) => visible.has(c.id));
   const numbered = new Map(
     flattenCaseTree(buildCaseTree(all.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]),
   );
-  const steps = cases.length
-    ? await Step.findAll({
-        where: { caseId: cases.map((c) => c.id) },
-        order: [
-          ["position", "ASC"],
-          ["id", "ASC"],
-        ],
-      })
-    : [];
+  const steps = await stepsOfCases(cases.map((c) => c.id));
   if (steps.length === 0) return [];
   const place = new Map<number, string>();
   for (const c of cases) steps.filter((s) => s.caseId === c.id).forEach((s, i) => place.set(s.id, stepLabel(numbered.get(c.id)!.number, i + 1)));

@@ -46,7 +46,16 @@ export async function moveDispute(d: DisputeRef, actor: Actor, to: DisputeTarget
     if (comment) {
       const latest = await StepRevision.findOne({ where: { stepId: d.step.id }, order: [["number", "DESC"]], transaction });
       await Comment.create(
-        { stepId: d.step.id, reviewId: d.id, parentId: null, revisionId: latest?.id ?? null, authorId: actor.id, body: comment },
+        {
+          proofId: d.step.proofId,
+          caseId: d.step.caseId,
+          stepId: d.step.id,
+          reviewId: d.id,
+          parentId: null,
+          revisionId: latest?.id ?? null,
+          authorId: actor.id,
+          body: comment,
+        },
         { transaction },
       );
     }

@@ -1,4 +1,5 @@
 import "server-only";
+import { exportedBatches } from "./batches";
 import { textAuthors } from "@/lib/review/revisions";
 import { claimsOf, digestOf } from "./revisions";
 /**
@@ -18,7 +19,7 @@ import { renderLatex } from "@/lib/export/latex";
 import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotRound, type SnapshotStep } from "@/lib/export/snapshot";
 import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
 import type { ClaimStatus, DisputeState } from "@/lib/review/states";
-import { liveCases } from "./cases";
+import { liveCases, stepsOfCases } from "./cases";
 import { listRoundViews } from "./rounds";
 import { recordEvent } from "./audit";
 
@@ -26,7 +27,7 @@ const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: str
 
 /** The proof as it stands: live cases in order, each step's latest revision, all reviews and claims. */
 export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | null> {
-  const { Proof, ProofMember, User, Step, StepRevision, Review, Claim } = models();
+  const { Proof, ProofMember, User, StepRevision, Review, Claim } = models();
   const proof = await Proof.findByPk(proofId);
   if (!proof) return null;
   const [members, cases] = await Promise.all([
@@ -40,15 +41,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
     }),
     liveCases(proofId),
   ]);
-  const steps = cases.length
-    ? await Step.findAll({
-        where: { caseId: cases.map((c) => c.id) },
-        order: [
-          ["position", "ASC"],
-          ["id", "ASC"],
-        ],
-      })
-    : [];
+  const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
   const [revisions, reviews, claims] = stepIds.length
     ? await Promise.all([
@@ -71,6 +64,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
       ])
     : [[], [], []];
   const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
+  const batches = await exportedBatches(stepIds);
   // A blind proof's export goes to readers: referees appear as "Referee k" and the bundle keeps no mapping
   // to names (the editors have the names in Cairn itself).
   const lens = proof.blindReview ? await refereeLens(proofId, { id: 0, role: "author" }) : null;
@@ -119,6 +113,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
           checkerVersion: c.checkerVersion,
           checkedAt: c.checkedAt ? c.checkedAt.toISOString() : null,
         })),
+      ...(batches.has(s.id) ? { batches: batches.get(s.id) } : {}),
     };
   };
   const tree = buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title, condition: c.condition })));
@@ -215,7 +210,10 @@ export async function createExport(proofId: number, user: { id: number; name: st
   if (kind === "certified") {
     // As a job in a worker process, not here: re-checking every claim of a large proof must not hold up other requests.
     // The wait covers the re-check's own limit (that of each claim, up to ten minutes) and a minute in the queue.
-    const claims = bundle.items.filter((i) => i.type === "claim").length;
+    // A batch claim weighs one claim per thousand listed graphs (each graph re-decided and its certificate re-checked).
+    const claims =
+      bundle.items.filter((i) => i.type === "claim").length +
+      bundle.items.filter((i) => i.type === "batch").reduce((n, i) => n + Math.ceil((i.data as { counts: { total: number } }).counts.total / 1000), 0);
     const report = await runBundleJob(JSON.parse(JSON.stringify(bundle)), claims, Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000) + 60_000).catch(
       (e) => {
         if (e instanceof QueueUnavailable)

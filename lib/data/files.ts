@@ -103,6 +103,9 @@ export async function saveStepFile(
     );
     return { row, duplicate: false };
   });
+  // The orphan sweep may have removed these bytes between `put` (which found them stored) and the commit
+  // (they were named by no row then); the row is committed now, so storing them again closes that gap.
+  if (!put.created && !(await fileStore().has(put.sha256))) await fileStore().put(bytes);
   const withUploader = await StepFile.findByPk(result.row.id, { include: [{ model: models().User, as: "uploader", attributes: ["name"] }] });
   return { file: view(proofId, withUploader as StepFile & { uploader?: { name: string } }), duplicate: result.duplicate, storedNew: put.created };
 }

@@ -18,6 +18,7 @@ export const kindLabel: Record<NotificationKind, string> = {
   dispute_withdrawn: "A dispute was withdrawn",
   dispute_upheld: "A dispute was upheld",
   vouch_superseded: "Your vouch was superseded by a new revision",
+  comment_added: "A new comment on the statement or a case's condition",
 };
 
 export interface NoticeInput {

@@ -10,16 +10,9 @@ import { latestVouches, stepStatus, type StepStatus } from "@/lib/review/states"
 import { claimStatuses, type StepRef } from "./reviews";
 import { canSeeStep } from "@/lib/access";
 import { claimsOf, digestOf } from "./revisions";
+import { commentTree, type CommentNode } from "./comment-tree";
 
-export interface CommentNode {
-  id: number;
-  authorName: string;
-  authorId: number;
-  body: string;
-  revisionNumber: number | null;
-  at: string;
-  replies: CommentNode[];
-}
+export type { CommentNode };
 
 export interface StepReviewView {
   stepId: number;
@@ -99,25 +92,7 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     },
     required,
   );
-  const tree = (rows: typeof comments): CommentNode[] => {
-    const nodes = new Map<number, CommentNode>(
-      rows.map((c) => [
-        c.id,
-        {
-          id: c.id,
-          authorId: lens.id(c.authorId),
-          authorName: names.get(c.authorId) ?? "",
-          body: c.body,
-          revisionNumber: c.revisionId ? (numberOf.get(c.revisionId) ?? null) : null,
-          at: c.createdAt.toISOString(),
-          replies: [],
-        },
-      ]),
-    );
-    const roots: CommentNode[] = [];
-    for (const c of rows) (c.parentId && nodes.has(c.parentId) ? nodes.get(c.parentId)!.replies : roots).push(nodes.get(c.id)!);
-    return roots;
-  };
+  const tree = (rows: typeof comments): CommentNode[] => commentTree(rows, names, lens, numberOf);
   const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
   // Only the latest vouch per referee is listed; it is superseded when given on an older revision.
   const listed = latestVouches(

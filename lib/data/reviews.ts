@@ -117,7 +117,16 @@ export async function giveVerdict(step: StepRef, actor: Actor, input: VerdictInp
     );
     if (input.verdict === "dispute") {
       await Comment.create(
-        { stepId: step.id, reviewId: review.id, parentId: null, revisionId: revision.id, authorId: actor.id, body: input.comment ?? "" },
+        {
+          proofId: step.proofId,
+          caseId: step.caseId,
+          stepId: step.id,
+          reviewId: review.id,
+          parentId: null,
+          revisionId: revision.id,
+          authorId: actor.id,
+          body: input.comment ?? "",
+        },
         { transaction },
       );
       await DisputeTransition.create({ reviewId: review.id, actorId: actor.id, fromState: null, toState: "raised" }, { transaction });
@@ -173,7 +182,16 @@ export async function addComment(step: StepRef, actor: Actor, input: CommentInpu
         throw invalid("That dispute is not on this step.", [{ path: "reviewId", message: "not a dispute on this step" }]);
     }
     const comment = await Comment.create(
-      { stepId: step.id, reviewId, parentId: input.parentId ?? null, revisionId: step.latest?.id ?? null, authorId: actor.id, body: input.body },
+      {
+        proofId: step.proofId,
+        caseId: step.caseId,
+        stepId: step.id,
+        reviewId,
+        parentId: input.parentId ?? null,
+        revisionId: step.latest?.id ?? null,
+        authorId: actor.id,
+        body: input.body,
+      },
       { transaction },
     );
     await recordEvent(

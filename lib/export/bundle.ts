@@ -10,6 +10,8 @@ import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type Sn
 
 /** Bundle items are named by the step label the pages use (lib/proof-tree.ts owns it). */
 export const stepItemId = (caseNumber: string, position: number) => `step ${stepLabel(caseNumber, position)}`;
+/** Batch claims are numbered 1, 2, … in the order they were made on the step. */
+export const batchItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `batch ${stepLabel(caseNumber, stepPosition)}#${ordinal}`;
 /** Claims are numbered 1, 2, … in their order on the step. */
 export const claimItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `claim ${stepLabel(caseNumber, stepPosition)}#${ordinal}`;
 
@@ -91,6 +93,8 @@ export function buildBundle(p: ProofSnapshot, meta: ExportMeta): Bundle {
         };
         items.push({ id: claimItemId(c.number, s.position, k + 1), type: "claim", data });
       }
+      for (const [k, b] of (s.batches ?? []).entries())
+        items.push({ id: batchItemId(c.number, s.position, k + 1), type: "batch", data: { step: stepItemId(c.number, s.position), ...b } });
     }
   }
   // Rounds and decisions close the bundle: what the authors may read of them, never an editor-only note.

@@ -2,6 +2,7 @@
  * A proof as the data layer reads it for an export: plain objects, no models. Pure functions here
  * decide whether it may be certified, using the review rules of lib/review/states.ts (never re-derived).
  */
+import type { BatchItemData } from "@/lib/core/certificates/batch-check";
 import type { CoveredClaim } from "@/lib/core/certificates/revision-digest";
 import { stepLabel } from "@/lib/proof-tree";
 import {
@@ -51,7 +52,12 @@ export interface SnapshotStep {
   authorIds: number[];
   reviews: SnapshotReview[];
   claims: SnapshotClaim[];
+  /** The step's batch claims with every listed graph's verdict and certificate (absent in older snapshots). */
+  batches?: SnapshotBatch[];
 }
+
+/** A batch claim as the bundle carries it (lib/core/batch-check.ts), less the step it belongs to. */
+export type SnapshotBatch = Omit<BatchItemData, "step">;
 
 export interface SnapshotCase {
   id: number;

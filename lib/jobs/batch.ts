@@ -12,10 +12,12 @@ import { models } from "../../models";
 import { fileStore } from "../storage";
 import { readEnv } from "../env";
 import { graphListText } from "../uploads/detect";
-import { splitGraphList, type GraphListEntry, type GraphListFormat } from "../core/input/graph-list";
-import { checkListedGraphs } from "../core/claims/batch";
+import { readListedGraph, splitGraphList, type GraphListEntry, type GraphListFormat } from "../core/input/graph-list";
+import { checkListedGraphs, type BatchStatement, type ListedResult } from "../core/claims/batch";
+import { isSimple } from "../core/graph";
+import { writeGraph6 } from "../core/input/graph6";
 import type { Relation } from "../core/claims/claim-schema";
-import type { BatchJobData } from "./queue";
+import { JOB_ATTEMPTS, MAX_STALLED, type BatchJobData } from "./queue";
 
 /** The list's entries, kept per file digest for the life of the worker (a batch's chunks share them). */
 const cache = new Map<string, { format: GraphListFormat; entries: GraphListEntry[] }>();
@@ -32,9 +34,24 @@ export async function listEntries(sha256: string, format: GraphListFormat): Prom
   return entries;
 }
 
+/** The columns that store a statement: op and bound for ρ statements, the rest as JSON in `params`. */
+export function batchColumns(s: BatchStatement): { kind: BatchStatement["kind"]; op: string; bound: string; params: string | null } {
+  if (s.kind === "spectral-radius-bound") return { kind: s.kind, op: s.op, bound: s.bound, params: null };
+  const { kind, ...params } = s;
+  return { kind, op: "", bound: "", params: JSON.stringify(params) };
+}
+
+/** The statement a batch row stores (the inverse of batchColumns). */
+export function statementOf(b: { kind: BatchStatement["kind"]; op: string; bound: string; params: string | null }): BatchStatement {
+  if (b.kind === "spectral-radius-bound") return { kind: b.kind, op: b.op as Relation, bound: b.bound };
+  const p = JSON.parse(b.params ?? "{}") as { patterns?: string[]; induced?: boolean; families?: string[] };
+  if (b.kind === "identified-as") return { kind: b.kind, families: (p.families ?? []) as Extract<BatchStatement, { kind: "identified-as" }>["families"] };
+  return { kind: b.kind, patterns: p.patterns ?? [], induced: p.induced ?? false };
+}
+
 /** Runs one chunk; returns how many graphs it decided (0 when cancelled or already done). */
 export async function runBatchChunk(data: BatchJobData, workerName: string): Promise<{ decided: number }> {
-  const { BatchClaim, BatchResult, StepFile } = models();
+  const { BatchClaim, StepFile } = models();
   const batch = await BatchClaim.findByPk(data.batchId);
   if (!batch || batch.status === "cancelled" || batch.status === "done") return { decided: 0 };
   const file = await StepFile.findByPk(batch.fileId);
@@ -44,25 +61,35 @@ export async function runBatchChunk(data: BatchJobData, workerName: string): Pro
   const to = Math.min(from + batch.chunkSize, entries.length);
   if (from >= to) return { decided: 0 };
   if (batch.status === "queued") await BatchClaim.update({ status: "running", startedAt: new Date() }, { where: { id: batch.id, status: "queued" } });
-  const results = checkListedGraphs(
-    entries,
-    file.graphFormat,
-    { kind: "spectral-radius-bound", op: batch.op as Relation, bound: batch.bound },
-    from,
-    to,
-    readEnv().CAIRN_VERIFY_STEP_LIMIT,
-  );
+  const results = checkListedGraphs(entries, file.graphFormat, statementOf(batch), from, to, readEnv().CAIRN_VERIFY_STEP_LIMIT);
+  return storeChunk(batch.id, from, to, results, workerName);
+}
+
+/**
+ * Stores a chunk's results and moves the batch's counts in one transaction under the batch row's lock;
+ * nothing when the chunk's results are already there (a chunk run twice) or the batch is over.
+ * `note` is added to the batch's own note (why graphs were left undecided).
+ */
+async function storeChunk(
+  batchId: number,
+  from: number,
+  to: number,
+  results: readonly ListedResult[],
+  decidedBy: string,
+  note?: string,
+): Promise<{ decided: number }> {
+  const { BatchClaim, BatchResult } = models();
   return getSequelize().transaction(async (transaction) => {
-    const locked = await BatchClaim.findByPk(batch.id, { transaction, lock: transaction.LOCK.UPDATE });
+    const locked = await BatchClaim.findByPk(batchId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!locked || locked.status === "cancelled" || locked.status === "done") return { decided: 0 };
     const there = await getSequelize().query<{ n: number }>("SELECT COUNT(*) AS n FROM batch_results WHERE batch_id = ? AND entry >= ? AND entry < ?", {
-      replacements: [batch.id, from, to],
+      replacements: [batchId, from, to],
       type: QueryTypes.SELECT,
       transaction,
     });
     if (Number(there[0].n) > 0) return { decided: 0 };
     await BatchResult.bulkCreate(
-      results.map((r) => ({ batchId: batch.id, ...r, decidedBy: workerName })),
+      results.map((r) => ({ batchId, ...r, decidedBy })),
       { transaction },
     );
     const tally = { verified: 0, refuted: 0, undecided: 0, unreadable: 0 };
@@ -75,10 +102,61 @@ export async function runBatchChunk(data: BatchJobData, workerName: string): Pro
         refuted: locked.refuted + tally.refuted,
         undecided: locked.undecided + tally.undecided,
         unreadable: locked.unreadable + tally.unreadable,
-        ...(done >= locked.total ? { status: "done" as const, finishedAt: new Date() } : {}),
+        ...(note ? { note: [locked.note, note].filter(Boolean).join("\n").slice(0, 60_000) } : {}),
+        status: done >= locked.total ? "done" : "running",
+        startedAt: locked.startedAt ?? new Date(),
+        ...(done >= locked.total ? { finishedAt: new Date() } : {}),
       },
       { transaction },
     );
     return { decided: results.length };
   });
+}
+
+/** Why a chunk's job failed for good, in words a person can act on. */
+export function chunkFailure(failedReason: string | undefined): string {
+  return /stalled/i.test(failedReason ?? "")
+    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking these graphs (killed, or out of memory)`
+    : `the check of these graphs failed ${JOB_ATTEMPTS} times (${(failedReason ?? "no reason given").slice(0, 300)})`;
+}
+
+/**
+ * A chunk whose job failed for good (its worker died too often, or it threw on every try): its graphs
+ * become `undecided` with the reason, so the batch still ends and says why, and no graph is left
+ * without a verdict. Does nothing when the chunk's results are already stored.
+ */
+export async function settleFailedChunk(data: BatchJobData, failedReason: string | undefined, decidedBy: string): Promise<{ decided: number }> {
+  const { BatchClaim, StepFile } = models();
+  const batch = await BatchClaim.findByPk(data.batchId);
+  if (!batch || batch.status === "cancelled" || batch.status === "done") return { decided: 0 };
+  const from = data.chunk * batch.chunkSize;
+  const to = Math.min(from + batch.chunkSize, batch.total);
+  if (from >= to) return { decided: 0 };
+  const why = chunkFailure(failedReason);
+  // Lines and graphs when the list still reads (the file may be what is missing); line 0 when unknown.
+  let entries: GraphListEntry[] | null = null;
+  const file = await StepFile.findByPk(batch.fileId);
+  if (file?.graphFormat) entries = await listEntries(file.sha256, file.graphFormat).catch(() => null);
+  const results: ListedResult[] = [];
+  for (let i = from; i < to; i++) {
+    const entry = entries?.[i];
+    let shape: Pick<ListedResult, "graph6" | "vertices" | "edges"> = { graph6: null, vertices: null, edges: null };
+    if (entry && file?.graphFormat)
+      try {
+        const g = readListedGraph(entry, file.graphFormat);
+        shape = { graph6: isSimple(g) && g.n > 0 ? writeGraph6(g) : null, vertices: g.n, edges: g.edges.length };
+      } catch {
+        // left without its graph; the reason below says why it is undecided
+      }
+    results.push({
+      entry: i,
+      line: entry?.line ?? 0,
+      verdict: "undecided",
+      ...shape,
+      method: "worker",
+      reason: `${why}; re-run the batch to try again`,
+      certificate: null,
+    });
+  }
+  return storeChunk(batch.id, from, to, results, decidedBy, `graphs ${from + 1}–${to} of the list left undecided: ${why}`);
 }

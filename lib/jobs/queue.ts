@@ -37,8 +37,17 @@ export interface BatchJobData {
   chunk: number;
 }
 
-export type JobData = ClaimJobData | BundleJobData | BatchJobData;
-export type JobResult = { decided: boolean } | { decided: number } | BundleCheckReport;
+/** The scheduled sweep of uploaded files (objects without rows, rows without objects). */
+export interface FileSweepJobData {
+  type: "file-sweep";
+}
+
+export type JobData = ClaimJobData | BundleJobData | BatchJobData | FileSweepJobData;
+export type JobResult = { decided: boolean } | { decided: number } | BundleCheckReport | { objectsRemoved: number; rowsRemoved: number; rowsKept: number };
+
+/** The file sweep's schedule: one repeatable job for all workers, every CAIRN_FILE_SWEEP_EVERY_MS (an hour by default). */
+export const FILE_SWEEP_SCHEDULER = "file-sweep";
+export const fileSweepEvery = (): number => Number(process.env.CAIRN_FILE_SWEEP_EVERY_MS) || 3_600_000;
 
 export const redisUrl = (): string => process.env.REDIS_URL ?? "redis://127.0.0.1:6389";
 export const queuePrefix = (): string => process.env.CAIRN_QUEUE_PREFIX ?? "cairn";

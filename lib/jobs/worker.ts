@@ -21,9 +21,14 @@ import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure
 import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";
 import { recordEvent } from "../data/audit";
-import { runBatchChunk } from "./batch";
+import { runBatchChunk, settleFailedChunk } from "./batch";
+import { sweepStoredFiles } from "../data/file-sweep";
 import {
+  batchJobId,
   claimJobId,
+  FILE_SWEEP_SCHEDULER,
+  fileSweepEvery,
+  queueBatchChunks,
   JOB_ATTEMPTS,
   MAX_STALLED,
   QUEUE_NAME,
@@ -31,6 +36,7 @@ import {
   queuePrefix,
   redisConnection,
   verificationQueue,
+  type BatchJobData,
   type BundleJobData,
   type ClaimJobData,
   type JobData,
@@ -162,6 +168,7 @@ async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
     return runBatchChunk(job.data, workerName());
   }
+  if (job.data.type === "file-sweep") return sweepStoredFiles();
   if (job.data.type === "bundle") {
     const data = job.data as BundleJobData;
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
@@ -208,6 +215,49 @@ export async function sweep(): Promise<{ queued: number; settled: number }> {
   return { queued, settled };
 }
 
+/**
+ * Batches still `queued` or `running` whose chunks have no results: a chunk without a job (the batch
+ * was created while Redis was away, or Redis lost it) is queued; a chunk whose job failed for good is
+ * settled (its graphs undecided with the reason), so no batch stays running for ever.
+ */
+export async function sweepBatches(): Promise<{ queued: number; settled: number }> {
+  const after = num("CAIRN_SWEEP_AFTER_MS", 10_000);
+  const rows = await getSequelize().query<{ id: number; total: number; chunkSize: number }>(
+    `SELECT id, total, chunk_size AS chunkSize FROM batch_claims
+     WHERE status IN ('queued', 'running') AND updated_at < UTC_TIMESTAMP(3) - INTERVAL ? MICROSECOND ORDER BY id LIMIT 100`,
+    { replacements: [after * 1000], type: QueryTypes.SELECT },
+  );
+  let queued = 0,
+    settled = 0;
+  const queue = verificationQueue("worker");
+  for (const b of rows) {
+    // A chunk's results are stored all at once, so one stored entry means the chunk is done.
+    const stored = await getSequelize().query<{ chunk: number }>("SELECT DISTINCT FLOOR(entry / ?) AS chunk FROM batch_results WHERE batch_id = ?", {
+      replacements: [b.chunkSize, b.id],
+      type: QueryTypes.SELECT,
+    });
+    const have = new Set(stored.map((r) => Number(r.chunk)));
+    const missing: number[] = [];
+    for (let k = 0; k < Math.ceil(b.total / b.chunkSize); k++) {
+      if (have.has(k)) continue;
+      const job = await queue.getJob(batchJobId(b.id, k));
+      const state = job ? await job.getState() : "missing";
+      const data: BatchJobData = { type: "batch", batchId: b.id, chunk: k };
+      if (state === "failed") {
+        if ((await settleFailedChunk(data, job!.failedReason, workerName())).decided > 0) settled++;
+      } else if (state === "missing" || state === "unknown" || state === "completed") {
+        if (job && state === "completed") await job.remove().catch(() => undefined);
+        missing.push(k);
+      }
+    }
+    if (missing.length) {
+      await queueBatchChunks(b.id, missing, "worker");
+      queued += missing.length;
+    }
+  }
+  return { queued, settled };
+}
+
 /** Starts a worker in this process; resolves to a function that stops it. */
 export async function startWorker(log: (line: string) => void = console.log): Promise<() => Promise<void>> {
   const lockDuration = num("CAIRN_JOB_LOCK_MS", 30_000);
@@ -222,11 +272,26 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
   });
   worker.on("error", (e) => log(`[cairn worker] queue error: ${e.message}`));
   worker.on("failed", (job, e) => {
+    if (job?.data.type === "batch") {
+      const data = job.data;
+      log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
+      if (job.attemptsMade >= JOB_ATTEMPTS || /stalled/i.test(e.message)) void settleFailedChunk(data, e.message, workerName()).catch(() => undefined);
+      return;
+    }
     if (!job || job.data.type !== "claim") return;
     log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
     if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(job.data, e.message).catch(() => undefined);
   });
+  // One schedule shared by every worker (upserted, so starting more workers does not add runs); not
+  // awaited, so a worker started while Redis is away still starts and schedules it when Redis answers.
+  void verificationQueue("worker")
+    .upsertJobScheduler(FILE_SWEEP_SCHEDULER, { every: fileSweepEvery() }, { name: FILE_SWEEP_SCHEDULER, data: { type: "file-sweep" } })
+    .catch((e: Error) => log(`[cairn worker] the file sweep could not be scheduled: ${e.message}`));
   worker.on("completed", (job, result) => {
+    if (job.data.type === "file-sweep" && "objectsRemoved" in result && result.objectsRemoved + result.rowsRemoved + result.rowsKept > 0)
+      log(
+        `[cairn worker] file sweep: removed ${result.objectsRemoved} stored files no row names, ${result.rowsRemoved} rows whose file was missing; kept ${result.rowsKept} such rows a batch claim refers to`,
+      );
     if (job.data.type === "claim")
       log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
   });
@@ -236,6 +301,8 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       try {
         const { queued, settled } = await sweep();
         if (queued || settled) log(`[cairn worker] sweep: queued ${queued} pending claims, settled ${settled} failed ones`);
+        const chunks = await sweepBatches();
+        if (chunks.queued || chunks.settled) log(`[cairn worker] sweep: queued ${chunks.queued} batch chunks, settled ${chunks.settled} failed ones`);
       } catch (e) {
         log(`[cairn worker] sweep skipped: ${(e as Error).message}`);
       }

@@ -107,6 +107,8 @@ export function eventSentence(e: EventFacts): string {
     case "file.uploaded":
       return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
     case "comment.added":
+      if (e.subjectType === "proof") return `${who} commented on the statement.`;
+      if (e.subjectType === "case") return `${who} commented on the condition of ${where}.`;
       return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
     case "invitation.sent":
       return withDetail(`${who} invited a referee`);

@@ -50,6 +50,7 @@ export const claimFormSchema = z.object({
   degreeRelation: z.enum(DEGREE_RELATIONS),
   maxVertices: z.string(),
   enumerationSetting: z.enum(ENUMERATION_SETTINGS),
+  dynkinData: z.string(),
   certificate: z.string(),
 });
 export type ClaimForm = z.infer<typeof claimFormSchema>;
@@ -74,6 +75,7 @@ export const emptyClaimForm: ClaimForm = {
   degreeRelation: "=",
   maxVertices: "",
   enumerationSetting: "simple",
+  dynkinData: "",
   certificate: "",
 };
 
@@ -84,6 +86,47 @@ function integers(text: string, field: keyof ClaimForm, issues: Issue[]): number
   const bad = parts.find((p) => !/^\d+$/.test(p));
   if (bad !== undefined) issues.push({ field, message: `"${bad}" is not a non-negative integer; separate entries with commas or spaces` });
   return parts.map(Number);
+}
+
+/**
+ * The stated data of a dynkin-data claim, one per line: "h = 30", "rho = 2cos(pi/30)", "exponents = 1, 7, 11",
+ * "marks = 2, 3, 4, 6, 5, 4, 3, 2", "f = 1", "|W| = 696729600", "W(q) = 1, 7, 27, …" (from the highest power
+ * down), "[2]_q = 2cos(pi/30)", "[k]_q > 0".
+ */
+export function dynkinDataFromText(text: string, issues: Issue[]): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  const quantum: { k: number; value: string }[] = [];
+  for (const raw of text.split("\n")) {
+    const line = raw.trim();
+    if (!line) continue;
+    if (/^\[\s*k\s*\]_?q\s*>\s*0$/i.test(line) || /^positivity$/i.test(line)) {
+      out.quantumPositivity = true;
+      continue;
+    }
+    const q = /^\[\s*(\d+)\s*\]_?q\s*=\s*(.+)$/i.exec(line);
+    if (q) {
+      quantum.push({ k: Number(q[1]), value: q[2].trim() });
+      continue;
+    }
+    const m = /^([^=:]+?)\s*[=:]\s*(.+)$/.exec(line);
+    const key = m?.[1].trim().toLowerCase() ?? "";
+    const value = m?.[2].trim() ?? "";
+    const ints = () => integers(value, "dynkinData", issues);
+    if (["h", "coxeter number"].includes(key)) out.coxeterNumber = ints()[0];
+    else if (["rho", "ρ", "spectral radius"].includes(key)) out.spectralRadius = value;
+    else if (key === "exponents") out.exponents = ints();
+    else if (key === "marks") out.marks = ints();
+    else if (["f", "index of connection"].includes(key)) out.indexOfConnection = ints()[0];
+    else if (["|w|", "order", "weyl group order"].includes(key)) out.weylGroupOrder = value;
+    else if (["w(q)", "poincare", "poincaré", "poincaré polynomial", "poincare polynomial"].includes(key)) out.poincarePolynomial = listOf(value);
+    else
+      issues.push({
+        field: "dynkinData",
+        message: `"${line}" is not one of: h = …, rho = …, exponents = …, marks = …, f = …, |W| = …, W(q) = …, [k]_q = …, [k]_q > 0`,
+      });
+  }
+  if (quantum.length) out.quantumIntegers = quantum;
+  return out;
 }
 
 /** Turns the form's fields into a cairn-claim/1 object; problems are reported per field. */
@@ -160,6 +203,12 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
           .map((t) => graph(f.patternFormat, t)),
       });
       break;
+    case "dynkin-data":
+      if (!f.family.trim() && !f.graphText.trim()) issues.push({ field: "family", message: "Enter the type (e.g. E8), the graph G, or both." });
+      if (f.family.trim()) claim.type = f.family.trim();
+      if (f.graphText.trim()) claim.graph = graph(f.graphFormat, f.graphText);
+      Object.assign(claim, dynkinDataFromText(f.dynkinData, issues));
+      break;
     case "structure": {
       main();
       claim.predicate = f.predicate;
@@ -196,7 +245,9 @@ export function formFieldOf(path: string): keyof ClaimForm | null {
   if (/^(op|relation)\b/.test(rest)) return "op";
   if (/^vector\b/.test(rest)) return "vector";
   if (/^embedding\b/.test(rest)) return "embedding";
-  if (/^family\b/.test(rest)) return "family";
+  if (/^(family|type)\b/.test(rest)) return "family";
+  if (/^(coxeterNumber|spectralRadius|exponents|marks|indexOfConnection|weylGroupOrder|poincarePolynomial|quantumIntegers|quantumPositivity)\b/.test(rest))
+    return "dynkinData";
   if (/^coefficients\b/.test(rest)) return "coefficients";
   if (/^h\b/.test(rest)) return "h";
   if (/^multiset\b/.test(rest)) return "multiset";

@@ -7,3 +7,14 @@ export const commentSchema = z.object({
   reviewId: z.number().int().positive().nullish(),
 });
 export type CommentInput = z.infer<typeof commentSchema>;
+
+/** A comment (or reply) on the statement or on a case's condition; `digest` is the text's digest the writer read (a changed text is refused). */
+export const placeCommentSchema = z.object({
+  body: commentSchema.shape.body,
+  parentId: z.number().int().positive().nullish(),
+  digest: z
+    .string()
+    .regex(/^[0-9a-f]{64}$/, "The digest is the 64 hexadecimal characters the thread was read with.")
+    .nullish(),
+});
+export type PlaceCommentInput = z.infer<typeof placeCommentSchema>;

@@ -8,6 +8,7 @@ import { checkInputs } from "../core/claims/claim-inputs";
 import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claims/claim-schema";
 import { NumberFormatError } from "../core/arithmetic/rational";
 import { parseGraph } from "../core/input/parse";
+import { dynkinDiagram } from "../core/input/constructors";
 import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
@@ -66,6 +67,8 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
   } else if (claim.kind === "exclusion") {
     add(read(claim.host), "G (host)");
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
+  } else if (claim.kind === "dynkin-data") {
+    add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {
     add(read(claim.graph), "G", embeddingIn(evidence));
   }

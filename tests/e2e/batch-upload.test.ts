@@ -7,8 +7,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
-import { demoProof } from "@/seeders/demo-content";
+import { launchBrowser, openDemoProofAsAuthor } from "./browser";
 import { randomGraph6List } from "../bench/batch-throughput";
 import { parseGraph6 } from "@/lib/core/input/graph6";
 
@@ -31,10 +30,7 @@ describe("a batch claim in the browser", () => {
     writeFileSync(listPath, randomGraph6List(COUNT, 12, 77));
     const context = await browser.newContext({ acceptDownloads: true });
     const page = await context.newPage();
-    await signInAs(page, baseUrl, "author");
-    await page.waitForURL(`${baseUrl}/proofs`);
-    await page.getByRole("link", { name: demoProof.title }).click();
-    await page.waitForURL(/\/proofs\/\d+$/);
+    await openDemoProofAsAuthor(page, baseUrl);
     const stepHref = await page.locator('a[href*="/steps/"]').first().getAttribute("href");
     await page.goto(`${baseUrl}${stepHref}`);
 

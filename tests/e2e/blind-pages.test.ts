@@ -6,10 +6,10 @@
  * page streams to the browser) must hold neither the referee's name nor her address nor her user id in
  * an id field; it must show her as "Referee 1".
  */
-import * as mariadb from "mariadb";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, BrowserContext } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
+import { db } from "./access-fixture";
 import { demoPeople } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
@@ -21,22 +21,6 @@ let exportId = 0;
 let wasBlind = 0;
 let stepIds: number[] = [];
 const contexts: Record<"author" | "coauthor", BrowserContext | null> = { author: null, coauthor: null };
-
-async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise<T> {
-  const url = new URL(process.env.CAIRN_E2E_DATABASE_URL!);
-  const c = await mariadb.createConnection({
-    host: url.hostname,
-    port: Number(url.port),
-    user: decodeURIComponent(url.username),
-    password: decodeURIComponent(url.password),
-    database: url.pathname.slice(1),
-  });
-  try {
-    return await run(c);
-  } finally {
-    await c.end();
-  }
-}
 
 interface TreeCase {
   steps: Array<{ id: number }>;

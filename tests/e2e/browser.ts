@@ -1,6 +1,6 @@
 /** Debian's Chromium driven by playwright-core: no browser download, headless, no calls out. */
 import { chromium, type Browser, type Page } from "playwright-core";
-import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
+import { DEMO_PASSWORD, demoPeople, demoProof } from "@/seeders/demo-content";
 
 export async function launchBrowser(): Promise<Browser> {
   return chromium.launch({
@@ -26,4 +26,13 @@ export async function signInAs(page: Page, baseUrl: string, key: string, passwor
   await page.getByLabel("E-mail").fill(person.email);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
+}
+
+/** Signs the demo author in, opens the demo proof from the proofs page and returns its id. */
+export async function openDemoProofAsAuthor(page: Page, baseUrl: string): Promise<number> {
+  await signInAs(page, baseUrl, "author");
+  await page.waitForURL(`${baseUrl}/proofs`);
+  await page.getByRole("link", { name: demoProof.title }).click();
+  await page.waitForURL(/\/proofs\/\d+$/);
+  return Number(new URL(page.url()).pathname.split("/")[2]);
 }

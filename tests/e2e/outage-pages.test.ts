@@ -11,8 +11,9 @@
 import net from "node:net";
 import { spawn, type ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
+import { demoPeople } from "@/seeders/demo-content";
 import { TcpRelay } from "../support/tcp-relay";
+import { signInByFetch } from "../support/sign-in";
 
 const target = new URL(process.env.CAIRN_E2E_DATABASE_URL!);
 const relay = new TcpRelay(target.hostname, Number(target.port));
@@ -28,28 +29,6 @@ const freePort = () =>
       probe.close(() => resolve(port));
     });
   });
-
-/** Signs in through next-auth's own endpoints and returns the session cookie. */
-async function signIn(email: string): Promise<string> {
-  const csrf = await fetch(`${base}/api/auth/csrf`);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const jar = csrf.headers
-    .getSetCookie()
-    .map((c) => c.split(";")[0])
-    .join("; ");
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar },
-    body: new URLSearchParams({ csrfToken, email, password: DEMO_PASSWORD, json: "true" }),
-  });
-  const session = res.headers
-    .getSetCookie()
-    .map((c) => c.split(";")[0])
-    .filter((c) => c.includes("session-token"));
-  if (!session.length) throw new Error(`sign-in gave no session cookie (${res.status})`);
-  return session.join("; ");
-}
 
 const PAGES = () => ["/proofs", `/proofs/${proofId}`, `/proofs/${proofId}/timeline`, "/queue", "/notifications"];
 const get = (path: string) => fetch(`${base}${path}`, { headers: { cookie }, redirect: "manual" });
@@ -78,7 +57,7 @@ beforeAll(async () => {
     if (Date.now() > deadline) throw new Error(`the second server did not answer on ${base} within 60 s`);
     await new Promise((r) => setTimeout(r, 300));
   }
-  cookie = await signIn(demoPeople.find((p) => p.key === "author")!.email);
+  cookie = await signInByFetch(base, demoPeople.find((p) => p.key === "author")!.email);
   const { proofs } = (await (await get("/api/proofs")).json()) as { proofs: Array<{ id: number }> };
   proofId = proofs[0].id;
 });

@@ -13,9 +13,8 @@ import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import axe from "axe-core";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
+import { launchBrowser, signInAs, openDemoProofAsAuthor } from "./browser";
 import { pageRoutes } from "./page-routes";
-import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
 const SHOTS = join(process.cwd(), "test-results", "screens");
@@ -84,11 +83,7 @@ beforeAll(async () => {
   // The demo proof, its steps, a draft export for the print view (as its author) and a waiting invitation (as its editor).
   const context = await browser.newContext();
   const page = await context.newPage();
-  await signInAs(page, baseUrl, "author");
-  await page.waitForURL(`${baseUrl}/proofs`);
-  await page.getByRole("link", { name: demoProof.title }).click();
-  await page.waitForURL(/\/proofs\/\d+$/);
-  const proofId = Number(new URL(page.url()).pathname.split("/")[2]);
+  const proofId = await openDemoProofAsAuthor(page, baseUrl);
   await page.locator(`a[href*="/proofs/${proofId}/steps/"]`).first().waitFor(); // the case tree streams in after the heading
   const hrefs = await page.locator(`a[href*="/proofs/${proofId}/steps/"]`).evaluateAll((as) => as.map((a) => a.getAttribute("href")!));
   const stepIds = [...new Set(hrefs.map((h) => Number(h.match(/steps\/(\d+)/)![1])))];

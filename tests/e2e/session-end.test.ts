@@ -37,15 +37,31 @@ async function signedIn(email: string, password = DEMO_PASSWORD): Promise<{ cont
   return { context, cookie };
 }
 
-/** What a captured cookie still opens: the API's proof list and the proofs page (no redirect followed). */
-async function replay(cookie: string): Promise<{ api: number; page: number; location: string | null }> {
-  const api = await fetch(`${baseUrl}/api/proofs`, { headers: { cookie } });
-  const page = await fetch(`${baseUrl}/proofs`, { headers: { cookie }, redirect: "manual" });
-  return { api: api.status, page: page.status, location: page.headers.get("location") };
+interface Replay {
+  api: number;
+  page: number;
+  location: string | null;
+  /** Whom next-auth's own session endpoint (what the browser's useSession reads) says the cookie belongs to, or null. */
+  session: string | null;
+  /** Whether that endpoint's answer expired the session cookie. */
+  sessionCleared: boolean;
 }
 
-function expectEnded(r: { api: number; page: number; location: string | null }) {
+/** What a captured cookie still opens: the API's proof list, the proofs page (no redirect followed) and GET /api/auth/session. */
+async function replay(cookie: string): Promise<Replay> {
+  const api = await fetch(`${baseUrl}/api/proofs`, { headers: { cookie } });
+  const page = await fetch(`${baseUrl}/proofs`, { headers: { cookie }, redirect: "manual" });
+  const auth = await fetch(`${baseUrl}/api/auth/session`, { headers: { cookie } });
+  const body = (await auth.json()) as { user?: { email?: string } };
+  const sessionCleared = auth.headers.getSetCookie().some((c) => c.includes("session-token=;") && /max-age=0|expires=thu, 01 jan 1970/i.test(c));
+  return { api: api.status, page: page.status, location: page.headers.get("location"), session: body.user?.email ?? null, sessionCleared };
+}
+
+function expectEnded(r: Replay) {
   expect(r.api).toBe(401);
+  // next-auth's session endpoint answered the stale cookie with its user until it checked the version too.
+  expect(r.session).toBeNull();
+  expect(r.sessionCleared).toBe(true);
   // A page sends the visitor to sign in (or refuses outright); it never renders for the old session.
   if (r.page >= 300 && r.page < 400) expect(new URL(r.location!, baseUrl).pathname).toBe("/sign-in");
   else expect([401, 403]).toContain(r.page);
@@ -74,7 +90,7 @@ describe("ending sessions", () => {
   it("sign-out ends the session: its captured cookie gets 401 from the API and the sign-in page instead of a page", async () => {
     const { context, cookie } = await signedIn(PEOPLE.leaver.email);
     const other = await signedIn(PEOPLE.leaver.email); // the same person on a second device
-    expect(await replay(cookie)).toMatchObject({ api: 200, page: 200 });
+    expect(await replay(cookie)).toMatchObject({ api: 200, page: 200, session: PEOPLE.leaver.email });
 
     const page = await context.newPage();
     await page.goto(`${baseUrl}/proofs`);
@@ -86,7 +102,7 @@ describe("ending sessions", () => {
 
     // Signing in again gives a working session.
     const again = await signedIn(PEOPLE.leaver.email);
-    expect(await replay(again.cookie)).toMatchObject({ api: 200, page: 200 });
+    expect(await replay(again.cookie)).toMatchObject({ api: 200, page: 200, session: PEOPLE.leaver.email });
     await Promise.all([context.close(), other.context.close(), again.context.close()]);
   });
 

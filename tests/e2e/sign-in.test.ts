@@ -44,7 +44,7 @@ describe("sign-in in the browser", () => {
 
     // The proof opens with its numbered cases and rendered math.
     await page.getByRole("link", { name: demoProof.title }).click();
-    await page.getByText("Case 3.2").waitFor();
+    await page.getByText("Case 3.2", { exact: true }).waitFor();
     expect(await page.locator(".katex").count()).toBeGreaterThan(5);
     await context.close();
   });

@@ -35,6 +35,9 @@ import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
 import * as revisionsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/revisions/route";
 import * as stepClaimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as commentsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/comments/route";
+import * as statementCommentsRoute from "@/app/api/proofs/[proofId]/statement/comments/route";
+import * as conditionCommentsRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/comments/route";
+import * as changesRoute from "@/app/api/proofs/[proofId]/changes/route";
 import * as reviewsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as disputeRoute from "@/app/api/proofs/[proofId]/disputes/[reviewId]/route";
 import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
@@ -189,6 +192,30 @@ const TARGETS: Target[] = [
     call: commentsRoute.POST as Call,
     params: () => ({ proofId, stepId: String(step.id) }),
     valid: () => ({ body: "A comment." }),
+  },
+  {
+    file: "api/proofs/[proofId]/statement/comments/route.ts",
+    method: "POST",
+    who: "reviewer",
+    call: statementCommentsRoute.POST as Call,
+    params: P,
+    valid: () => ({ body: "Is $n \\ge 1$ meant?", parentId: null }),
+  },
+  {
+    file: "api/proofs/[proofId]/changes/route.ts",
+    method: "POST",
+    who: "editor",
+    call: changesRoute.POST as Call,
+    params: P,
+    valid: () => ({ through: new Date().toISOString() }),
+  },
+  {
+    file: "api/proofs/[proofId]/cases/[caseId]/comments/route.ts",
+    method: "POST",
+    who: "author",
+    call: conditionCommentsRoute.POST as Call,
+    params: () => ({ proofId, caseId: String(caseId) }),
+    valid: () => ({ body: "The condition reads $n > 2$.", parentId: null }),
   },
   {
     file: "api/proofs/[proofId]/steps/[stepId]/reviews/route.ts",

@@ -19,6 +19,13 @@ import { generateConnected } from "@/lib/core/families/augmentation";
 import { writeGraph6, parseGraph6 } from "@/lib/core/input/graph6";
 import { degree } from "@/lib/core/graph";
 import { Budget } from "@/lib/core/verdict";
+import { recheckIdentification } from "@/lib/core/families/identify";
+import { recheckExclusion } from "@/lib/core/subgraph/subgraph";
+import { parseGraph } from "@/lib/core/input/parse";
+import { loadSnapshot } from "@/lib/data/exports";
+import { buildBundle } from "@/lib/export/bundle";
+import { checkBundle, sealBundle, type BundleItemType } from "@/lib/core/certificates/bundle";
+import type { BatchItemData } from "@/lib/core/certificates/batch-check";
 import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
 import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
 import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route";
@@ -180,5 +187,108 @@ describe("a batch claim over the trees on 10 vertices", () => {
     expect((await cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, batchId: String(batch.id) }))).status).toBe(409);
     await actAs("reviewer");
     expect((await cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, batchId: String(batch.id) }))).status).toBe(403);
+  });
+});
+
+describe("the other batch statements over the trees on 10 vertices", () => {
+  // Smith 1970 (Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3): a connected graph has ρ < 2 iff it is a
+  // Dynkin diagram A_n, D_n, E6–E8, and ρ ≤ 2 iff also affine Ã_n, D̃_n, Ẽ6–Ẽ8; so a tree with ρ > 2
+  // contains an affine tree D̃_k or Ẽ6–Ẽ8 (a proper subgraph of ρ = 2, Perron–Frobenius). Of the 106 trees on
+  // 10 vertices (OEIS A000055) only A₁₀ (the path) and D₁₀ are Dynkin; one, D̃₉, is affine (ρ = 2): it is
+  // no member of A or D, and it contains itself.
+  const run = async (body: Record<string, unknown>) => {
+    process.env.CAIRN_BATCH_CHUNK = "40";
+    await actAs("author");
+    const res = await start({ fileId: listId, ...body });
+    expect(res.status, await res.clone().text()).toBe(202);
+    const { batch } = await res.json();
+    const done = await finished(batch.id);
+    const rows = (await (await results(batch.id)).json()).results as Array<{ verdict: string; graph6: string | null; certificate: unknown; reason: string }>;
+    return { done, rows, statement: batch.statement as string };
+  };
+
+  it("identified as a member of A or D: exactly A₁₀ and D₁₀, each with an isomorphism certificate that re-checks", async () => {
+    const { done, rows, statement } = await run({ kind: "identified-as", families: ["A", "D"] });
+    expect(statement).toBe("every graph of the list is identified as a member of the families A, D");
+    expect(done).toMatchObject({ status: "done", kind: "identified-as", total: 107, verified: 2, refuted: 104, undecided: 0, unreadable: 1 });
+    const verified = rows.filter((r) => r.verdict === "verified");
+    expect(verified.map((r) => (r.certificate as { family: string; parameter: number }).family).sort()).toEqual(["A", "D"]);
+    for (const r of verified) {
+      expect(r.certificate).toMatchObject({ kind: "isomorphism", parameter: 10 });
+      expect(recheckIdentification(parseGraph(r.graph6!), r.certificate).status).toBe("verified");
+    }
+    // A refuted tree's certificate (a forbidden affine subgraph) re-checks too.
+    const refuted = rows.find((r) => r.verdict === "refuted")!;
+    expect(recheckIdentification(parseGraph(refuted.graph6!), refuted.certificate).status).toBe("verified");
+  });
+
+  it("contains none of the affine trees D̃4…D̃9, Ẽ6, Ẽ7, Ẽ8: exactly A₁₀ and D₁₀; contains one of them: the other 104", async () => {
+    const affine = ["D~4", "D~5", "D~6", "D~7", "D~8", "D~9", "E~6", "E~7", "E~8"];
+    const none = await run({ kind: "contains-none-of", patterns: affine });
+    expect(none.done).toMatchObject({ status: "done", verified: 2, refuted: 104, unreadable: 1 });
+    const shapes = none.rows
+      .filter((r) => r.verdict === "verified")
+      .map((r) => {
+        const g = parseGraph6(r.graph6!);
+        return Array.from({ length: g.n }, (_, v) => degree(g, v))
+          .sort((x, y) => y - x)
+          .join("");
+      });
+    expect(shapes.sort()).toEqual(["2222222211", "3222222111"]);
+    const patterns = affine.map((a) => parseGraph(a));
+    for (const r of none.rows.filter((x) => x.graph6).slice(0, 12))
+      expect(recheckExclusion(parseGraph6(r.graph6!), patterns, r.certificate).status).toBe("verified");
+
+    const one = await run({ kind: "contains-one-of", patterns: affine, induced: false });
+    expect(one.statement).toBe(`every graph of the list contains one of ${affine.join(", ")}`);
+    expect(one.done).toMatchObject({ status: "done", verified: 104, refuted: 2, unreadable: 1 });
+  });
+
+  it("contains one of the claw K₁,₃ (induced): every tree but the path (a tree without a vertex of degree 3 is a path; common knowledge)", async () => {
+    const { done, rows } = await run({ kind: "contains-one-of", patterns: ["star(3)"], induced: true });
+    expect(done).toMatchObject({ status: "done", verified: 105, refuted: 1, unreadable: 1 });
+    const path = rows.find((r) => r.verdict === "refuted")!;
+    expect(parseGraph6(path.graph6!).edges).toHaveLength(9);
+    expect(path.certificate).toMatchObject({ kind: "exclusion", absent: [expect.objectContaining({ kind: "absence" })] });
+  });
+
+  it("refuses a family that is none (422 on families) and a pattern that does not read (422 on patterns)", async () => {
+    await actAs("author");
+    const family = await start({ fileId: listId, kind: "identified-as", families: ["F4"] });
+    expect(family.status).toBe(422);
+    expect((await family.json()).error.issues[0].path).toMatch(/^families/);
+    const pattern = await start({ fileId: listId, kind: "contains-one-of", patterns: ["star(three)"] });
+    expect(pattern.status).toBe(422);
+    expect((await pattern.json()).error.issues[0]).toMatchObject({ path: "patterns", message: expect.stringMatching(/pattern 1/) });
+    expect((await start({ fileId: listId, kind: "contains-one-of", patterns: [] })).status).toBe(422);
+  });
+});
+
+describe("the batch claims in the exported bundle", () => {
+  it("carry every graph's verdict and certificate, and the offline re-check agrees with each batch; a forged verdict is rejected", async () => {
+    const snapshot = await loadSnapshot(Number(proofId));
+    const bundle = buildBundle(snapshot!, { kind: "draft", exportedAt: new Date().toISOString(), exportedBy: "Ada Quenby" });
+    const items = bundle.items.filter((i) => i.type === "batch");
+    const made = await models().BatchClaim.count({ where: { stepId: Number(stepId) } });
+    expect(items).toHaveLength(made);
+    const report = checkBundle(JSON.parse(JSON.stringify(bundle)), "bundle.json");
+    const lines = report.lines.filter((l) => l.label.startsWith("batch "));
+    expect(lines).toHaveLength(made);
+    // Smith 1970 (Brouwer & Haemers Thm 3.1.3): 2 of the 106 trees are A or D; the bad line stays unreadable.
+    const identified = items.findIndex((i) => (i.data as BatchItemData).statement.kind === "identified-as");
+    expect(lines[identified]).toMatchObject({
+      status: "refuted",
+      text: expect.stringMatching(/: 2 of 107 graphs verified, 104 refuted, 0 undecided, 1 unreadable; 106 certificates re-checked$/),
+    });
+    for (const l of lines) expect(l.text).not.toMatch(/records|does not re-check|CHANGED/);
+
+    // Forge one verdict and re-seal every digest: the re-check still names the graph's line.
+    const forged = JSON.parse(JSON.stringify(bundle)) as { items: Array<{ id: string; type: BundleItemType; data: BatchItemData }> };
+    const item = forged.items.find((i) => i.type === "batch" && i.data.statement.kind === "identified-as")!;
+    const r = item.data.results.find((x) => x.verdict === "refuted")! as { verdict: string; line: number };
+    r.verdict = "verified";
+    const resealed = sealBundle(bundle.export, forged.items);
+    const line = checkBundle(resealed, "forged.json").lines.find((l) => l.label === item.id)!;
+    expect(line.text).toContain(`line ${r.line}: the bundle records "verified" but the re-check gives "refuted"`);
   });
 });

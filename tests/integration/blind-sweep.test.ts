@@ -46,6 +46,9 @@ import * as oneRevision from "@/app/api/proofs/[proofId]/steps/[stepId]/revision
 import * as diff from "@/app/api/proofs/[proofId]/steps/[stepId]/diff/route";
 import * as notifications from "@/app/api/notifications/route";
 import * as members from "@/app/api/proofs/[proofId]/members/[userId]/route";
+import * as changesSince from "@/app/api/proofs/[proofId]/changes/route";
+import * as statementComments from "@/app/api/proofs/[proofId]/statement/comments/route";
+import * as conditionComments from "@/app/api/proofs/[proofId]/cases/[caseId]/comments/route";
 
 const stamp = Date.now();
 const CELIA = { name: "Celia Marwood", email: "celia.marwood@tarnhollow.example" };
@@ -105,7 +108,19 @@ beforeAll(async () => {
     (await comments.POST(jsonRequest("/x", "POST", { body: "I mean the bound in the second line." }), params({ proofId: P, stepId: String(fx.steps["2.2"]) })))
       .status,
   ).toBe(201);
+  // Gale also comments on the statement and on case 2's condition; the author answers on the statement (Gale is notified).
+  const onStatement = await statementComments.POST(jsonRequest("/x", "POST", { body: "Is the statement about all $x$?" }), params({ proofId: P }));
+  expect(onStatement.status).toBe(201);
+  const onCondition = await conditionComments.POST(
+    jsonRequest("/x", "POST", { body: "Does $n > 3$ include $n = 4$?" }),
+    params({ proofId: P, caseId: String(fx.cases["2"]) }),
+  );
+  expect(onCondition.status).toBe(201);
   await actAs("author");
+  expect(
+    (await statementComments.POST(jsonRequest("/x", "POST", { body: "Yes, all real $x$.", parentId: (await onStatement.json()).id }), params({ proofId: P })))
+      .status,
+  ).toBe(201);
   expect(
     (
       await disputeMove.POST(
@@ -173,6 +188,10 @@ async function authorSurfaces(viewerId: number): Promise<Array<[string, string]>
     ["archive", archive.GET],
   ] as const)
     await add(name, get as Get, { proofId: P, exportId: String(exportId) });
+  await add("statement comments", statementComments.GET as Get, { proofId: P });
+  await add("changes since the last visit", changesSince.GET as Get, { proofId: P });
+  for (const [key, caseId] of Object.entries(fx.cases))
+    await add(`case ${key} condition comments`, conditionComments.GET as Get, { proofId: P, caseId: String(caseId) });
   for (const [key, stepId] of Object.entries(fx.steps)) {
     const s = { proofId: P, stepId: String(stepId) };
     await add(`step ${key}`, step.GET as Get, s);
@@ -248,6 +267,8 @@ describe("blind sweep", () => {
       expect(joined).toContain("Referee 1");
       expect(joined).toContain("Referee 2");
       expect(joined).toContain("Which bound is meant here?");
+      expect(joined).toContain("Is the statement about all $x$?");
+      expect(joined).toContain("Does $n > 3$ include $n = 4$?");
       expect(all.some(([label]) => label.startsWith("mail"))).toBe(true);
       expect(all.filter(([label]) => label.endsWith("(200)")).length).toBeGreaterThan(30);
       surfaces += all.length;

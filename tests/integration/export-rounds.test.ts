@@ -17,7 +17,7 @@ import { checkBundle } from "@/lib/core/certificates/bundle";
 import { compileLatex } from "@/lib/export/pdf";
 import { claimSetText, digestOfRevision } from "@/lib/review/revisions";
 import { openRound, recordDecision, saveReportDraft, submitReport } from "@/lib/data/rounds";
-import { verifiedClaim } from "../unit/export-fixture";
+import { verifiedClaim, claimRow } from "../unit/export-fixture";
 import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
 import * as bundleRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/bundle/route";
 import * as texRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/tex/route";
@@ -56,21 +56,7 @@ beforeAll(async () => {
   const step = await Step.create({ caseId: c.id, position: 1 });
   const rev = await StepRevision.create({ stepId: step.id, number: 1, body: "Since $E_8$ has no cycle, it is a tree.", authorId: ids.author });
   const v = verifiedClaim({ kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" });
-  const claim = await Claim.create({
-    stepId: step.id,
-    position: 1,
-    kind: v.kind,
-    input: v.input,
-    digest: v.digest,
-    status: v.status,
-    statement: v.statement,
-    method: v.method,
-    reason: v.reason,
-    certificate: v.certificate,
-    checkerVersion: v.checkerVersion,
-    checkedAt: new Date(),
-    createdBy: ids.author,
-  });
+  const claim = await Claim.create(claimRow(v, step.id, ids.author));
   const covered = [{ id: claim.id, position: 1, kind: claim.kind, statement: claim.statement, digest: claim.digest!, status: claim.status }];
   const digest = digestOfRevision(rev.number, rev.body, covered);
   await rev.update({ claimSet: claimSetText(covered), digest });

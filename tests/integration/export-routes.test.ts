@@ -11,7 +11,7 @@ import { createHash } from "node:crypto";
 import { mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { verifiedClaim } from "../unit/export-fixture";
+import { verifiedClaim, claimRow } from "../unit/export-fixture";
 import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
 import * as exportRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/route";
 import * as bundleRoute from "@/app/api/proofs/[proofId]/exports/[exportId]/bundle/route";
@@ -55,21 +55,7 @@ beforeAll(async () => {
   });
   revisionId = rev.id;
   const v = verifiedClaim({ kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" });
-  const claim = await Claim.create({
-    stepId,
-    position: 1,
-    kind: v.kind,
-    input: v.input,
-    digest: v.digest,
-    status: v.status,
-    statement: v.statement,
-    method: v.method,
-    reason: v.reason,
-    certificate: v.certificate,
-    checkerVersion: v.checkerVersion,
-    checkedAt: new Date(),
-    createdBy: author,
-  });
+  const claim = await Claim.create(claimRow(v, stepId, author));
   // The revision covers the claim (as attaching it through the API would record), and the vouch that revision's digest.
   const covered = [{ id: claim.id, position: 1, kind: claim.kind, statement: claim.statement, digest: claim.digest!, status: claim.status }];
   const digest = digestOfRevision(rev.number, rev.body, covered);

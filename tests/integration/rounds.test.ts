@@ -371,6 +371,8 @@ describe("blind review", () => {
     const d = await Review.create({ stepId: fx.steps["2.2"], revisionId: rev22.id, reviewerId: galeId, verdict: "dispute", disputeState: "raised" });
     await DisputeTransition.create({ reviewId: d.id, actorId: galeId, fromState: null, toState: "raised" });
     await Comment.create({
+      proofId: fx.proofId,
+      caseId: fx.cases["2"],
       stepId: fx.steps["2.2"],
       reviewId: d.id,
       parentId: null,

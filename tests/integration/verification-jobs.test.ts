@@ -9,11 +9,6 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { execFileSync, spawn } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { actAs, jsonRequest, params } from "./helpers";
 import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
 import { closeSequelize } from "@/lib/db";
@@ -21,7 +16,8 @@ import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
 import { parseClaimSet } from "@/lib/review/revisions";
-import { startTestWorker, type TestWorker } from "../support/workers";
+import { startTestWorker, until, type TestWorker } from "../support/workers";
+import { ownRedis, type TestRedis } from "../support/redis";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
 
@@ -63,15 +59,6 @@ const nameOf = async (w: TestWorker) => {
   await w.ready;
   return /\] (\S+) is taking verification jobs/.exec(w.output.join("\n"))![1];
 };
-async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, ms = 60_000): Promise<T> {
-  const deadline = Date.now() + ms;
-  for (;;) {
-    const v = await probe();
-    if (v) return v;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 /** The claim's status as the step's latest revision records it (what a vouch would cover). */
 const inLatestRevision = async (claimId: number) => {
   const r = await models().StepRevision.findOne({ where: { stepId: Number(stepId) }, order: [["number", "DESC"]] });
@@ -139,49 +126,13 @@ describe("cancel", () => {
 });
 
 describe("Redis stopped", () => {
-  let dir: string;
-  let port: number;
-  const redisUp = () => {
-    execFileSync("redis-server", [
-      "--port",
-      String(port),
-      "--bind",
-      "127.0.0.1",
-      "--dir",
-      dir,
-      "--pidfile",
-      path.join(dir, "redis.pid"),
-      "--appendonly",
-      "yes",
-      "--save",
-      "",
-      "--daemonize",
-      "yes",
-      "--logfile",
-      path.join(dir, "redis.log"),
-    ]);
-  };
-  const redisDown = () => execFileSync("redis-cli", ["-p", String(port), "shutdown"]);
-  afterAll(() => {
-    try {
-      redisDown();
-    } catch {
-      // already down
-    }
-    rmSync(dir, { recursive: true, force: true });
-  });
+  let redis: TestRedis;
+  afterAll(() => redis?.remove());
 
   it("claims wait pending and the step says verification is paused; they are checked when Redis is back", async () => {
-    dir = mkdtempSync(path.join(tmpdir(), "cairn-redis-"));
-    port = await new Promise<number>((resolve) => {
-      const s = createServer().listen(0, "127.0.0.1", () => {
-        const p = (s.address() as { port: number }).port;
-        s.close(() => resolve(p));
-      });
-    });
-    redisUp();
-    await until("Redis", async () => spawnOk("redis-cli", ["-p", String(port), "ping"]));
-    process.env.REDIS_URL = `redis://127.0.0.1:${port}`;
+    redis = await ownRedis();
+    await redis.up();
+    process.env.REDIS_URL = redis.url;
     process.env.CAIRN_QUEUE_PREFIX = "cairn-outage";
     const w = worker({ CAIRN_SWEEP_AFTER_MS: "500", CAIRN_SWEEP_INTERVAL_MS: "500" });
     await w.ready;
@@ -189,7 +140,7 @@ describe("Redis stopped", () => {
     await verificationSettled(before.claims[0].id);
     expect(await claimRow(before.claims[0].id)).toMatchObject({ status: "verified" });
 
-    redisDown();
+    redis.down();
     const t0 = Date.now();
     const during = await attach([quick]);
     // The attach itself does not wait for Redis beyond its short bound.
@@ -205,20 +156,10 @@ describe("Redis stopped", () => {
     await new Promise((r) => setTimeout(r, 3_000));
     expect(await claimRow(id)).toMatchObject({ status: "pending" });
 
-    redisUp();
+    await redis.up();
     await until("the claim to be decided after Redis came back", async () => (await claimRow(id))?.status !== "pending", 60_000);
     expect(await claimRow(id)).toMatchObject({ status: "verified", decidedBy: await nameOf(w) });
     expect(await decisions(id)).toBe(1);
     expect(await until("the worker to reconnect", async () => !(await verificationService()).paused)).toBe(true);
   }, 180_000);
 });
-
-function spawnOk(cmd: string, args: string[]): Promise<boolean> {
-  return new Promise((resolve) => {
-    const c = spawn(cmd, args, { stdio: ["ignore", "pipe", "ignore"] });
-    let out = "";
-    c.stdout.on("data", (d: Buffer) => (out += d));
-    c.on("close", () => resolve(out.includes("PONG")));
-    c.on("error", () => resolve(false));
-  });
-}

@@ -161,6 +161,8 @@ describe("every kind the core offers", () => {
       claim({ kind: "structure", graph: e8, predicate: "leg-lengths", parameter: [1, 2, 4] }),
       // Smith 1970: the connected graphs with ρ < 2 on at most 5 vertices are A1–A5, D4, D5.
       claim({ kind: "enumeration", maxVertices: 5, op: "<", bound: "2", graphs: ["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].map(named) }),
+      // h(E8) = 30 and |W(E8)| = 696729600 (Humphreys, Reflection Groups and Coxeter Groups, Tables 2.4 and 3.1).
+      claim({ kind: "dynkin-data", graph: e8, type: "E8", coxeterNumber: 30, weylGroupOrder: "696729600" }),
     ];
     const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: all }), params({ proofId, stepId }));
     expect(res.status).toBe(200);

@@ -44,3 +44,14 @@ export function startTestWorker(env: NodeJS.ProcessEnv, logFile?: string): TestW
     },
   };
 }
+
+/** Polls `probe` every 200 ms until it gives a truthy value; throws after `ms` saying what it waited for. */
+export async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, ms = 60_000): Promise<T> {
+  const deadline = Date.now() + ms;
+  for (;;) {
+    const v = await probe();
+    if (v) return v;
+    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}

@@ -8,6 +8,7 @@
  * the upper triangle column by column, six bits a byte, + 63): P3 = "Bg", K3 = "Bw", C4 (0-1-2-3-0) = "Cl",
  * K1,3 centred at 0 = "Cs", P2 = "A_", P1 = "@".
  */
+import { verifiedClaim } from "./export-fixture";
 import { describe, expect, it } from "vitest";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CLAIM_KINDS, validateClaim, type ClaimKind } from "@/lib/core/claims/claim-schema";
@@ -47,6 +48,8 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   // A3 = P3 has Coxeter number 4 and exponents 1, 2, 3 (Bourbaki Plate I).
   eigenvalues: { claim: { graph: P3, h: 4, multiset: [1, 2, 3] }, shows: ["Bg", "1, 2, 3", "multiset of m"] },
   structure: { claim: { graph: CLAW, predicate: "max-degree", parameter: 3 }, shows: ["Cs", "max-degree", "parameter"] },
+  // A3 = P3: h = 4, |W(A3)| = 4! = 24 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+  "dynkin-data": { claim: { type: "A3", graph: P3, coxeterNumber: 4, weylGroupOrder: "24" }, shows: ["Bg", "Coxeter number h", "24"] },
   // Connected graphs on ≤ 3 vertices with ρ < 2: P1, P2, P3 (K3 has ρ = 2).
   enumeration: {
     claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] },
@@ -54,22 +57,7 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   },
 };
 
-function checked(kind: string, claim: Record<string, unknown>): SnapshotClaim {
-  const r = verifyClaim(validateClaim({ format: "cairn-claim/1", kind, ...claim }));
-  return {
-    position: 1,
-    kind: r.claim.kind,
-    input: r.canonical,
-    digest: r.digest,
-    status: r.verdict.status,
-    statement: r.verdict.statement,
-    method: r.verdict.method,
-    reason: r.verdict.reason,
-    certificate: r.verdict.certificate === undefined ? null : JSON.stringify(r.verdict.certificate),
-    checkerVersion: r.checkerVersion,
-    checkedAt: "2026-11-30T10:00:00.000Z",
-  };
-}
+const checked = (kind: string, claim: Record<string, unknown>): SnapshotClaim => verifiedClaim({ kind, ...claim });
 
 /** The card's view as lib/data/claims builds it (that module reads the database, so it is not imported here). */
 function cardView(c: SnapshotClaim, id: number): ClaimView {

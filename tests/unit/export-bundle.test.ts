@@ -6,7 +6,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { checkBundle, sealBundle, type Bundle } from "@/lib/core/certificates/bundle";
 import { buildBundle } from "@/lib/export/bundle";
 import { certificationOf } from "@/lib/export/snapshot";
-import { settledSnapshot } from "./export-fixture";
+import { settledSnapshot, verifiedClaim } from "./export-fixture";
 
 const dir = mkdtempSync(join(tmpdir(), "cairn-bundle-test-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -63,6 +63,40 @@ describe("bundle", () => {
     const line = r.lines.find((l) => l.label === "claim 1.1(a)#1")!;
     expect(line.status).not.toBe("verified");
     expect(line.text).toMatch(/CHANGED since export/);
+  });
+
+  it("a dynkin-data claim re-checks in the bundle; a forged marks entry is rejected even when every digest is re-sealed", () => {
+    // E8 in Bourbaki's numbering (Plate VII): highest root 2α1 + 3α2 + 4α3 + 6α4 + 5α5 + 4α6 + 3α7 + 2α8; |W(E8)| = 696729600
+    // (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+    const snapshot = settledSnapshot();
+    const e8 = verifiedClaim({
+      id: "E8-data",
+      kind: "dynkin-data",
+      graph: { format: "edges", text: "n = 8\n0 2\n2 3\n3 4\n4 5\n5 6\n6 7\n1 3" },
+      marks: [2, 3, 4, 6, 5, 4, 3, 2],
+      weylGroupOrder: "696729600",
+    });
+    expect(e8.status).toBe("verified");
+    snapshot.cases[0].steps[0].claims = [e8];
+    const b = buildBundle(snapshot, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" });
+    const clean = checkBundle(copy(b), "b.json");
+    const line = clean.lines.find((l) => l.label === "claim 1(a)#1")!;
+    expect(line.status).toBe("verified");
+    expect(line.certificate?.matches).toBe(true);
+    const items = b.items.map((i) => {
+      if (i.id !== "claim 1(a)#1") return i;
+      const data = JSON.parse(JSON.stringify(i.data)) as { certificate: string | { evidence: { marks: number[] } } };
+      const cert = typeof data.certificate === "string" ? JSON.parse(data.certificate) : data.certificate;
+      cert.evidence.marks = [2, 3, 4, 5, 6, 4, 3, 2];
+      return { ...i, data: { ...data, certificate: typeof data.certificate === "string" ? JSON.stringify(cert) : cert } };
+    });
+    const resealed = sealBundle(
+      b.export,
+      items.map(({ id, type, data }) => ({ id, type, data })),
+    );
+    const forged = checkBundle(copy(resealed), "b.json");
+    expect(forged.exitCode).toBe(1);
+    expect(forged.lines.find((l) => l.label === "claim 1(a)#1")?.certificate?.text).toMatch(/does NOT match: .*marks/);
   });
 
   it("a changed verdict fails even when the tamperer re-seals every digest", () => {

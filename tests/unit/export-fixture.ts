@@ -22,6 +22,12 @@ export function verifiedClaim(json: Record<string, unknown>): SnapshotClaim {
   };
 }
 
+/** The columns of a claims-table row for a claim checked by the real core (for tests that write rows directly). */
+export function claimRow(v: SnapshotClaim, stepId: number, createdBy: number) {
+  const { kind, input, digest, status, statement, method, reason, certificate, checkerVersion } = v;
+  return { stepId, position: 1, kind, input, digest, status, statement, method, reason, certificate, checkerVersion, checkedAt: new Date(), createdBy };
+}
+
 const approve = (revisionNumber: number, digest: string): SnapshotReview => ({
   reviewerId: 3,
   reviewerName: "Celia Marwood",

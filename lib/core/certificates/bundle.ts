@@ -20,11 +20,12 @@ import { revisionDigest } from "./revision-digest";
 import { Budget, DEFAULT_STEP_LIMIT } from "../verdict";
 import { claimLineFields, type CheckLine } from "./check-report";
 import { CERTIFICATE_SEPARATOR, certificateKindOf } from "./certificate-kind";
+import { checkBatchItem } from "./batch-check";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
 /** "round": one review round with its decision, as the authors may read it (referees as "Referee k" on a blind proof). */
-export type BundleItemType = "proof" | "case" | "step" | "claim" | "round";
+export type BundleItemType = "proof" | "case" | "step" | "claim" | "round" | "batch";
 export type ExportKind = "certified" | "draft";
 
 export interface BundleItem {
@@ -221,6 +222,7 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
   const seen = new Set<string>();
   const changedItems: string[] = [];
   let claims = 0;
+  let batches = 0;
   const stepItems: BundleItem[] = [];
   const claimsOfStep = new Map<string, BundleItem[]>();
   for (const [index, raw] of (json.items as unknown[]).entries()) {
@@ -247,6 +249,10 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
       const owner = isRecord(item.data) ? String(item.data.step) : "";
       claimsOfStep.set(owner, [...(claimsOfStep.get(owner) ?? []), item]);
       lines.push(checkClaimItem(item, changed, options.steps ?? DEFAULT_STEP_LIMIT));
+    } else if (item.type === "batch") {
+      // A batch claim: every listed graph re-decided and its certificate re-checked (batch-check.ts).
+      batches++;
+      lines.push(checkBatchItem(item.id, item.data, changed, options.steps ?? DEFAULT_STEP_LIMIT));
     } else if (changed) {
       lines.push({
         label: item.id,
@@ -292,7 +298,7 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
     });
   }
   const checker = header.checkerVersion === CHECKER_VERSION ? "" : ` (exported with ${String(header.checkerVersion)}, re-checked with ${CHECKER_VERSION})`;
-  const describeSource = `${source}: ${String(header.kind)} export, ${claims} claim(s), ${items} item(s), exported ${String(header.exportedAt)} by ${String(header.exportedBy)}${checker}; manifest digest ${json.manifestDigest}`;
+  const describeSource = `${source}: ${String(header.kind)} export, ${claims} claim(s)${batches ? `, ${batches} batch claim(s)` : ""}, ${items} item(s), exported ${String(header.exportedAt)} by ${String(header.exportedBy)}${checker}; manifest digest ${json.manifestDigest}`;
   const exitCode = lines.some((l) => l.status === "malformed")
     ? 2
     : lines.some((l) => l.status !== "verified" || (l.certificate && !l.certificate.matches))

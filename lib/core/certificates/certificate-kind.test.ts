@@ -282,6 +282,24 @@ const PINS: { [K in ClaimKind]: Pin[] } = {
       certificate: "cycle",
     },
   ],
+  "dynkin-data": [
+    // |W(E7)| = 2903040 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+    {
+      name: "|W(E7)| = 2903040",
+      claim: { type: "E7", weylGroupOrder: "2903040" },
+      status: "verified",
+      method: /^identification, exact inertia at 2cos\(π\/h\)/,
+      certificate: "dynkin-data",
+    },
+    // Ẽ8 = T(1,2,5) is affine (Bourbaki Ch. VI §4.3), so it has no Coxeter number as a finite diagram.
+    {
+      name: "Ẽ8 is no finite Dynkin diagram",
+      claim: { graph: named("E~(8)"), coxeterNumber: 30 },
+      status: "refuted",
+      method: /^structural identification/,
+      certificate: "dynkin-data",
+    },
+  ],
   enumeration: [
     // The connected graphs on ≤ 3 vertices with ρ < 2 are P1, P2, P3 (K3 has ρ = 2; OEIS A001349 counts 1, 1, 2).
     {

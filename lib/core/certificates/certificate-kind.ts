@@ -70,6 +70,11 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       return "charpoly" in e ? { key: "charpoly", words: "characteristic polynomial χ_G" } : null;
     case "structure":
       return kind && kind in STRUCTURE_WORDS ? { key: kind, words: STRUCTURE_WORDS[kind] } : null;
+    case "dynkin-data":
+      if (kind !== "dynkin-data") return null;
+      return "marks" in e
+        ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
+        : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
     case "enumeration":
       return kind === "enumeration" ? { key: "enumeration", words: "list of the graphs found (graph6), with counts by order" } : null;
     default:

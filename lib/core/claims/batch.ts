@@ -11,6 +11,11 @@ import { isSimple, type Graph } from "../graph";
 import { writeGraph6 } from "../input/graph6";
 import { Budget } from "../verdict";
 import { RELATIONS, type Relation } from "./claim-schema";
+import { parseGraph } from "../input/parse";
+import { excludeSubgraphs } from "../subgraph/subgraph";
+import { identifySmith, type IsomorphismCertificate } from "../families/identify";
+import { isSmithFamily, SMITH_FAMILIES, type SmithFamily } from "../families/smith-families";
+import type { Verdict } from "../verdict";
 
 export type ListedVerdict = "verified" | "refuted" | "undecided" | "unreadable";
 
@@ -34,18 +39,124 @@ export interface SpectralBatchStatement {
   bound: string;
 }
 
-const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
-
-/** The statement in words, e.g. "every graph of the list: ρ(G) < 2"; throws on a bound that does not read. */
-export function batchStatement(s: SpectralBatchStatement): string {
-  if (!RELATIONS.includes(s.op)) throw new Error(`unknown relation "${s.op}"; use one of ${RELATIONS.join(" ")}`);
-  return `every graph of the list: ρ(G) ${SYMBOL[s.op]} ${parseBound(s.bound).text}`;
+/**
+ * "Every graph of the list contains one of H₁…H_k" / "… none of H₁…H_k" (as subgraphs, or as induced
+ * subgraphs), each pattern in any graph syntax of parse.ts (graph6, edge list, a named graph such as
+ * star(3)). Decided per graph by excludeSubgraphs (subgraph.ts): one absence argument per pattern, or
+ * the first pattern found with its embedding; "one of" holds exactly when that exclusion is refuted.
+ */
+export interface SubgraphBatchStatement {
+  kind: "contains-one-of" | "contains-none-of";
+  patterns: string[];
+  induced: boolean;
 }
 
-function checkOne(g: Graph, op: Relation, bound: Bound, stepLimit: number): Omit<ListedResult, "entry" | "line"> {
+/**
+ * "Every graph of the list is identified as a member of these families" (families of Smith's
+ * classification, smith-families.ts: A, D, E, Ã, D̃, Ẽ and the loop families), decided per graph by
+ * identifySmith (identify.ts): an isomorphism onto the family's graph, or a forbidden subgraph.
+ */
+export interface IdentificationBatchStatement {
+  kind: "identified-as";
+  families: SmithFamily[];
+}
+
+export type BatchStatement = SpectralBatchStatement | SubgraphBatchStatement | IdentificationBatchStatement;
+export type BatchKind = BatchStatement["kind"];
+export const BATCH_KINDS: readonly BatchKind[] = ["spectral-radius-bound", "contains-one-of", "contains-none-of", "identified-as"];
+/** At most this many patterns or families in one statement. */
+export const MAX_BATCH_PATTERNS = 20;
+
+const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
+/** A family's name without its parameter, as smith-families.ts displays its members. */
+const FAMILY_WORDS: Record<SmithFamily, string> = {
+  A: "A",
+  D: "D",
+  E: "E",
+  "A~": "Ã",
+  "D~": "D̃",
+  "E~": "Ẽ",
+  loop_path: "loop_path",
+  loop_path2: "loop_path2",
+  fork_loop: "fork_loop",
+};
+
+/** A statement read once, for checking many graphs. */
+interface Prepared {
+  words: string;
+  check: (g: Graph, budget: Budget) => Verdict<unknown>;
+}
+
+function readPatterns(patterns: readonly string[]): Graph[] {
+  if (patterns.length === 0 || patterns.length > MAX_BATCH_PATTERNS) throw new Error(`list between 1 and ${MAX_BATCH_PATTERNS} patterns`);
+  return patterns.map((text, i) => {
+    try {
+      return parseGraph(text);
+    } catch (e) {
+      throw new Error(`pattern ${i + 1} ("${text.slice(0, 40)}") does not read: ${(e as Error).message}`);
+    }
+  });
+}
+
+/** Reads the statement; throws an Error saying what does not read (bound, relation, pattern, family). */
+function prepare(s: BatchStatement): Prepared {
+  switch (s.kind) {
+    case "spectral-radius-bound": {
+      if (!RELATIONS.includes(s.op)) throw new Error(`unknown relation "${s.op}"; use one of ${RELATIONS.join(" ")}`);
+      const bound: Bound = parseBound(s.bound);
+      return { words: `every graph of the list: ρ(G) ${SYMBOL[s.op]} ${bound.text}`, check: (g, budget) => spectralRadiusBound(g, s.op, bound, budget) };
+    }
+    case "contains-one-of":
+    case "contains-none-of": {
+      const patterns = readPatterns(s.patterns);
+      const names = s.patterns.map((p) => p.trim());
+      const as = s.induced ? " as an induced subgraph" : "";
+      if (s.kind === "contains-none-of")
+        return {
+          words: `every graph of the list contains none of ${names.join(", ")}${as}`,
+          check: (g, budget) => excludeSubgraphs(g, patterns, { induced: s.induced, budget, patternNames: names }),
+        };
+      return {
+        words: `every graph of the list contains one of ${names.join(", ")}${as}`,
+        check: (g, budget) => {
+          const v = excludeSubgraphs(g, patterns, { induced: s.induced, budget, patternNames: names });
+          const statement = `G contains one of ${names.join(", ")}${as}`;
+          // The same certificate decides both statements: an embedding proves "one of", absence arguments refute it.
+          if (v.status === "undecided") return { ...v, statement };
+          return { ...v, statement, status: v.status === "refuted" ? "verified" : "refuted" };
+        },
+      };
+    }
+    case "identified-as": {
+      if (s.families.length === 0 || s.families.length > MAX_BATCH_PATTERNS) throw new Error(`list between 1 and ${MAX_BATCH_PATTERNS} families`);
+      for (const f of s.families) if (!isSmithFamily(f)) throw new Error(`"${f}" is not a family; use one of ${Object.keys(SMITH_FAMILIES).join(", ")}`);
+      const listed = new Set<SmithFamily>(s.families);
+      const words = s.families.map((f) => FAMILY_WORDS[f]).join(", ");
+      return {
+        words: `every graph of the list is identified as a member of the families ${words}`,
+        check: (g, budget) => {
+          const v = identifySmith(g, undefined, budget);
+          const statement = `G is identified as a member of ${words}`;
+          if (v.status !== "verified") return { ...v, statement };
+          const family = (v.certificate as IsomorphismCertificate).family;
+          return listed.has(family)
+            ? { ...v, statement }
+            : { ...v, statement, status: "refuted", reason: `${v.reason}; ${family} is not among the listed families` };
+        },
+      };
+    }
+  }
+}
+
+/** The statement in words, e.g. "every graph of the list: ρ(G) < 2"; throws on a statement that does not read. */
+export function batchStatement(s: BatchStatement): string {
+  return prepare(s).words;
+}
+
+function checkOne(g: Graph, prepared: Prepared, stepLimit: number): Omit<ListedResult, "entry" | "line"> {
   const shape = { graph6: isSimple(g) && g.n > 0 ? writeGraph6(g) : null, vertices: g.n, edges: g.edges.length };
   try {
-    const v = spectralRadiusBound(g, op, bound, new Budget(stepLimit));
+    const v = prepared.check(g, new Budget(stepLimit));
     return {
       ...shape,
       verdict: v.status,
@@ -66,12 +177,12 @@ function checkOne(g: Graph, op: Relation, bound: Bound, stepLimit: number): Omit
 export function checkListedGraphs(
   entries: readonly GraphListEntry[],
   format: GraphListFormat,
-  statement: SpectralBatchStatement,
+  statement: BatchStatement,
   from: number,
   to: number,
   stepLimit: number,
 ): ListedResult[] {
-  const bound = parseBound(statement.bound);
+  const prepared = prepare(statement);
   const out: ListedResult[] = [];
   for (let i = from; i < Math.min(to, entries.length); i++) {
     const entry = entries[i];
@@ -92,7 +203,7 @@ export function checkListedGraphs(
       });
       continue;
     }
-    out.push({ entry: i, line: entry.line, ...checkOne(g, statement.op, bound, stepLimit) });
+    out.push({ entry: i, line: entry.line, ...checkOne(g, prepared, stepLimit) });
   }
   return out;
 }

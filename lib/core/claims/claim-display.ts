@@ -197,6 +197,28 @@ function entriesOf(c: Claim): InputEntry[] {
       if (c.parameter !== undefined) out.push(text("parameter", Array.isArray(c.parameter) ? `(${c.parameter.join(", ")})` : String(c.parameter)));
       return out;
     }
+    case "dynkin-data": {
+      const out: InputEntry[] = [];
+      if (c.type) out.push(text("type", c.type));
+      if (c.graph) out.push(graph("graph G", c.graph, "G"));
+      else out.push(text("graph G", `the diagram ${c.type} (vertex order of the named diagram)`));
+      if (c.coxeterNumber !== undefined) out.push(text("Coxeter number h", String(c.coxeterNumber)));
+      if (c.spectralRadius !== undefined) out.push(text("spectral radius ρ", c.spectralRadius));
+      if (c.exponents) out.push(listEntry("exponents m_i", c.exponents.map(String)));
+      if (c.marks) out.push(listEntry("marks a_i of the highest root (G's vertex order)", c.marks.map(String)));
+      if (c.indexOfConnection !== undefined) out.push(text("index of connection f", String(c.indexOfConnection)));
+      if (c.weylGroupOrder !== undefined) out.push(text("order of the Weyl group |W|", c.weylGroupOrder));
+      if (c.poincarePolynomial) out.push(listEntry("Poincaré polynomial W(q), coefficients from the highest power down", c.poincarePolynomial));
+      if (c.quantumIntegers)
+        out.push(
+          listEntry(
+            "quantum integers [k]_q at q = e^{iπ/h}",
+            c.quantumIntegers.map((q) => `[${q.k}]_q = ${q.value}`),
+          ),
+        );
+      if (c.quantumPositivity) out.push(text("quantum integers", "[k]_q > 0 for 1 ≤ k < h and [h]_q = 0"));
+      return out;
+    }
     case "enumeration": {
       const listed = c.graphs.map((g) => {
         const v = graphInputView(g, "");

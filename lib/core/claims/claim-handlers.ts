@@ -6,6 +6,7 @@ import type { ClaimHandler } from "./claim-support";
 import { EXCLUSION_HANDLER, IDENTIFICATION_HANDLER, SUBGRAPH_HANDLER } from "./claim-combinatorial";
 import { CHARPOLY_HANDLER, EIGENVALUES_HANDLER, ENUMERATION_HANDLER, SPECTRAL_RADIUS_HANDLER, VECTOR_HANDLER } from "./claim-spectral";
 import { STRUCTURE_HANDLER } from "./claim-structure";
+import { DYNKIN_DATA_HANDLER } from "./claim-dynkin";
 
 export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kind: K }>> } = {
   "spectral-radius-bound": SPECTRAL_RADIUS_HANDLER,
@@ -17,4 +18,5 @@ export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kin
   eigenvalues: EIGENVALUES_HANDLER,
   structure: STRUCTURE_HANDLER,
   enumeration: ENUMERATION_HANDLER,
+  "dynkin-data": DYNKIN_DATA_HANDLER,
 };

@@ -55,6 +55,11 @@ export function checkInputs(claim: Claim): void {
         throw new ClaimError("$.vector", `the vector has ${claim.vector.length} entries but G has ${g.n} vertices; give one entry per vertex`);
       return;
     }
+    case "dynkin-data":
+      if (claim.graph) readClaimGraph(claim.graph, "$.graph");
+      claim.quantumIntegers?.forEach((q, i) => boundOrFail(q.value, `$.quantumIntegers[${i}].value`));
+      if (claim.spectralRadius !== undefined) boundOrFail(claim.spectralRadius, "$.spectralRadius");
+      return;
     default:
       readClaimGraph(claim.graph, "$.graph");
   }

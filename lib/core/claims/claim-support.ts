@@ -68,6 +68,8 @@ export const CLAIM_LIMITS = {
   hostEdges: 2_000_000,
   exclusionPatterns: 64,
   identificationEdges: 2_000_000,
+  /** Rank of a dynkin-data claim: the spectrum check is quadratic in h per factor (D_60, h = 118: about 1 s). */
+  dynkinRank: 60,
 } as const;
 
 /** "n vertices, m edges over the limit" text, or undefined. */

@@ -22,6 +22,7 @@ import { HANDLERS } from "./claim-handlers";
 import { TimedBudget } from "../time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
 import { methodWithCertificate } from "../certificates/certificate-kind";
+import { dynkinDiagram } from "../input/constructors";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
 export const CHECKER_VERSION = "cairn-check/0.1.0";
@@ -115,6 +116,8 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
       return { host: readClaimGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readClaimGraph(p, `${path}.patterns[${i}]`)) };
     case "enumeration":
       return { patterns: claim.graphs.map((g, i) => readClaimGraph(g, `${path}.graphs[${i}]`)) };
+    case "dynkin-data":
+      return { graph: claim.graph ? readClaimGraph(claim.graph, `${path}.graph`) : dynkinDiagram(claim.type!) };
     default:
       return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
   }

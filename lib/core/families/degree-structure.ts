@@ -10,7 +10,7 @@
 import { adjacency, type Graph } from "../graph";
 import { Budget, withinBudget, type Verdict } from "../verdict";
 import { edgeTotal, expectDistinct, expectInt, expectIntArray, expectRecord, multiplicity, recheck, reject } from "../certificates/certificate-check";
-import { findCycle, sweep, recheckTree, type ComponentsCertificate, type CycleCertificate } from "./structure";
+import { notATree, sweep, recheckTree, type ComponentsCertificate, type CycleCertificate } from "./structure";
 
 export type DegreeRelation = "<=" | ">=" | "=";
 
@@ -165,24 +165,8 @@ export function starlikeLegs(g: Graph, expected?: readonly number[], budget = ne
   const statement = expected ? `G is the star-like tree ${legName([...expected])}` : "G is a star-like tree (a tree with exactly one vertex of degree ≥ 3)";
   const method = "breadth-first search and leg walk";
   return withinBudget<StarlikeCertificate>(statement, method, budget, () => {
-    const s = sweep(g, budget);
-    if (s.componentCount !== 1)
-      return {
-        status: "refuted",
-        statement,
-        method,
-        reason: `G is not connected (${s.componentCount} components), so not a tree`,
-        certificate: { kind: "components", component: Array.from(s.component) },
-      };
-    const cycle = findCycle(g, s, budget);
-    if (cycle)
-      return {
-        status: "refuted",
-        statement,
-        method,
-        reason: `G contains the cycle ${cycle.join("–")}, so it is not a tree`,
-        certificate: { kind: "cycle", cycle },
-      };
+    const obstruction = notATree(g, sweep(g, budget), budget);
+    if (obstruction) return { status: "refuted", statement, method, ...obstruction };
     const list = branchVertexList(g, budget);
     if (list.length !== 1)
       return {

@@ -198,18 +198,18 @@ export function isTree(g: Graph, budget = new Budget()): Verdict<TreeCertificate
     method = "breadth-first search";
   return withinBudget<TreeCertificate>(statement, method, budget, () => {
     const s = sweep(g, budget);
-    if (s.componentCount !== 1)
-      return {
-        status: "refuted",
-        statement,
-        method,
-        reason: g.n === 0 ? "the null graph is not a tree" : `G is not connected (${s.componentCount} components)`,
-        certificate: componentsOf(s),
-      };
-    const cycle = findCycle(g, s, budget);
-    if (cycle) return { status: "refuted", statement, method, reason: describeCycle(cycle), certificate: { kind: "cycle", cycle } };
+    const obstruction = notATree(g, s, budget);
+    if (obstruction) return { status: "refuted", statement, method, ...obstruction };
     return { status: "verified", statement, method, reason: `a spanning tree exists and G has exactly n − 1 = ${g.n - 1} edges`, certificate: forestOf(s) };
   });
+}
+
+/** Why G is not a tree (not connected, or a cycle), with the certificate; null when it is one. */
+export function notATree(g: Graph, s: Sweep, budget: Budget): { reason: string; certificate: ComponentsCertificate | CycleCertificate } | null {
+  if (s.componentCount !== 1)
+    return { reason: g.n === 0 ? "the null graph is not a tree" : `G is not connected (${s.componentCount} components)`, certificate: componentsOf(s) };
+  const cycle = findCycle(g, s, budget);
+  return cycle ? { reason: describeCycle(cycle), certificate: { kind: "cycle", cycle } } : null;
 }
 
 /** "G contains a cycle" — the negation of isForest, with the roles of the certificates swapped. */

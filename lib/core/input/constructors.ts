@@ -158,6 +158,14 @@ export function dynkinE(n: number): Graph {
   return starlike([1, 2, n - 4]);
 }
 
+/** The diagram of a normalised type name "A5", "D6", "E8" (claim-schema.ts dynkinTypeName). */
+export function dynkinDiagram(type: string): Graph {
+  const m = /^([ADE])(\d+)$/.exec(type);
+  if (!m) throw new GraphError(`"${type}" is not a Dynkin type name such as A5, D6 or E8`);
+  const n = Number(m[2]);
+  return m[1] === "A" ? dynkinA(n) : m[1] === "D" ? dynkinD(n) : dynkinE(n);
+}
+
 export function affineA(n: number): Graph {
   requireAtLeast("A~", n, 0);
   if (n === 0) return buildGraph(1, [{ u: 0, v: 0, m: 2 }]);

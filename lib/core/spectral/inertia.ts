@@ -19,7 +19,7 @@ import { isForest, treeInertia, treeInertiaOver, EliminationResult, StopRule } f
 import { FOREST_CHARPOLY_LIMIT, forestCharpoly, forestCountAt, forestEigenvalueCount, countRelation, multiplicityOf } from "./forest-charpoly";
 import { AlgebraicField } from "../arithmetic/number-field";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
-import { sparseInertia, PivotStep, ReplayError, type SparseEliminationResult } from "./sparse-inertia";
+import { sparseInertia, PivotStep, ReplayError, FLOAT_FRONT_DEGREE, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
 import { perronApproximation, perronVectorsByComponent } from "./perron";
 import { checkVectorCertificate, components } from "./vector";
@@ -75,9 +75,13 @@ export const PROBE_BITS: readonly number[] = [20, 50];
 /** Largest graph with cycles for which the characteristic-polynomial fallback is attempted (irrational b, ρ within 2^-50 of b). */
 export const CHARPOLY_FALLBACK_LIMIT = 150;
 
-/** Inertia (positive, negative, zero) of bI − A: eigenvalues of A below, above and at b. */
-export function inertia(g: Graph, b: Rational, budget: Budget = new Budget()): EliminationResult {
-  return isForest(g) ? treeInertia(g, b, "none", budget) : sparseInertia(g, b, "none", budget);
+/**
+ * Inertia (positive, negative, zero) of bI − A: eigenvalues of A below, above and at b. For graphs with
+ * cycles the dense front of the elimination is certified in floating point where the error bound allows
+ * (float-front.ts; `front` says how many vertices), exactly otherwise.
+ */
+export function inertia(g: Graph, b: Rational, budget: Budget = new Budget()): EliminationResult & { front?: number } {
+  return isForest(g) ? treeInertia(g, b, "none", budget) : sparseInertia(g, b, "none", budget, undefined, { degree: FLOAT_FRONT_DEGREE });
 }
 
 /** x^T (bI − A) x, exact; x maps vertices to rationals (absent = 0). */

@@ -21,6 +21,7 @@ import { adjacency, Graph } from "../graph";
 import { Budget } from "../verdict";
 import { Rational, rat, add, mul, neg, ZERO } from "../arithmetic/rational";
 import type { EliminationResult, StopRule } from "./tree-inertia";
+import { certifiedFrontInertia } from "./float-front";
 
 /** One elimination step as stored in certificates: a vertex (1x1 pivot or empty row) or a 2x2 pair. */
 export type PivotStep = number | [number, number];
@@ -29,7 +30,21 @@ export interface SparseEliminationResult extends EliminationResult {
   steps: PivotStep[];
   /** Sign of each step's pivot: "+", "-", "0" (empty row) or "±" (2x2 block). */
   signs: string;
+  /** Vertices of the dense front whose inertia was certified in floating point (float-front.ts) instead of eliminated. */
+  front?: number;
 }
+
+/**
+ * When to hand the rest of a full elimination to the certified floating-point front (float-front.ts):
+ * once the vertex of least current degree has `degree` neighbours or more. Only for full counts
+ * (stop rule "none", no replay): certificates that replay an elimination order stay exact throughout.
+ */
+export interface FrontOption {
+  readonly degree: number;
+}
+
+/** The default for full inertia counts: past this degree the front is dense and exact Bareiss steps are quadratic in it. */
+export const FLOAT_FRONT_DEGREE = 16;
 
 /** A certificate whose elimination order cannot be replayed; the message says which step failed. */
 export class ReplayError extends Error {
@@ -50,7 +65,14 @@ function costOf(d: bigint): number {
   return 1 + words + Math.floor((words * words) / 16);
 }
 
-export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, replay?: readonly PivotStep[]): SparseEliminationResult {
+export function sparseInertia(
+  g: Graph,
+  b: Rational,
+  stop: StopRule,
+  budget: Budget,
+  replay?: readonly PivotStep[],
+  front?: FrontOption,
+): SparseEliminationResult {
   const n = g.n;
   const { start, nbr, wt, diag: loops } = adjacency(g);
   const p = b.num,
@@ -140,7 +162,7 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     }
     return y;
   };
-  const result = (complete: boolean, extra: Partial<EliminationResult> = {}): SparseEliminationResult => ({
+  const result = (complete: boolean, extra: Partial<SparseEliminationResult> = {}): SparseEliminationResult => ({
     positive,
     negative,
     zero,
@@ -150,9 +172,38 @@ export function sparseInertia(g: Graph, b: Rational, stop: StopRule, budget: Bud
     ...extra,
   });
 
+  let frontTried = false;
+  /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
+  const tryFront = (): { positive: number; negative: number; size: number } | undefined => {
+    const list: number[] = [];
+    for (let v = 0; v < n; v++) if (alive[v]) list.push(v);
+    const pos = new Map(list.map((v, i) => [v, i]));
+    const rowsN = list.map((v) => {
+      const row = new Array<bigint>(list.length).fill(0n);
+      row[pos.get(v)!] = cur(diag[v]);
+      for (const [u, e] of rows[v]) row[pos.get(u)!] = cur(e);
+      return row;
+    });
+    const r = certifiedFrontInertia(rowsN, D[t], (s) => budget.tick(s));
+    return r && { ...r, size: list.length };
+  };
+
   for (let done = 0; done < n;) {
     let piv: number,
       partner = -1;
+    if (!replay && front && stop === "none" && !frontTried && n - done > 1) {
+      const v = popMin();
+      if (rows[v].size >= front.degree) {
+        frontTried = true;
+        const r = tryFront();
+        if (r) {
+          positive += r.positive;
+          negative += r.negative;
+          return result(true, { front: r.size });
+        }
+      }
+      push(v); // not popped after all: the loop below pops it again
+    }
     if (replay) {
       const st = replay[steps.length];
       if (st === undefined) throw new ReplayError(`the elimination order stops after ${steps.length} steps with ${n - done} vertices left`);

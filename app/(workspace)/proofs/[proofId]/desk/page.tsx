@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ProofPageHeading } from "@/components/proof/proof-page-heading";
 import { forbidden, notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getDesk } from "@/lib/data/desk";
@@ -17,11 +18,7 @@ export default async function DeskPage({ params }: { params: Promise<{ proofId: 
   if (!proof) notFound();
   return (
     <main className="max-w-4xl space-y-8">
-      <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
-          ← {proof.title}
-        </Link>
-        <h1 className="mt-2 text-3xl font-semibold">Editor’s desk</h1>
+      <ProofPageHeading proofId={proofId} proofTitle={proof.title} title="Editor’s desk">
         <p className="text-sm text-stone-600">
           <Link href={`/proofs/${proofId}/rounds`} className="text-lichen-700 underline">
             Rounds, reports and decisions
@@ -29,7 +26,7 @@ export default async function DeskPage({ params }: { params: Promise<{ proofId: 
           · {desk.blind ? "blind review (authors see “Referee k”; you see names)" : "referees named to the authors"} · reminders {desk.remindBeforeDays} days
           before and {desk.remindAfterDays} after a due date
         </p>
-      </div>
+      </ProofPageHeading>
       <DeskView proofId={proofId} desk={desk} />
     </main>
   );

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ProofPageHeading } from "@/components/proof/proof-page-heading";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getCertification, listExports } from "@/lib/data/exports";
@@ -29,12 +30,7 @@ export default async function ExportPage({ params }: { params: Promise<{ proofId
   const ready = certification.state === "ready to certify";
   return (
     <main className="max-w-4xl space-y-8">
-      <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
-          ← {proof.title}
-        </Link>
-        <h1 className="mt-2 text-3xl font-semibold">Export</h1>
-      </div>
+      <ProofPageHeading proofId={proofId} proofTitle={proof.title} title="Export" />
       <section className="space-y-3" aria-labelledby="state">
         <h2 id="state" className="text-xl font-semibold">
           Proof: <ProofStateBadge state={certification.state} />

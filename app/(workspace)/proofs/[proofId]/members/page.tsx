@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ProofPageHeading } from "@/components/proof/proof-page-heading";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { isBlind } from "@/lib/data/blind";
@@ -47,12 +48,7 @@ export default async function MembersPage({ params }: { params: Promise<{ proofI
   });
   return (
     <main className="space-y-10">
-      <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
-          ← {proof.title}
-        </Link>
-        <h1 className="mt-2 text-3xl font-semibold">Members and reviewers</h1>
-      </div>
+      <ProofPageHeading proofId={proofId} proofTitle={proof.title} title="Members and reviewers" />
       <section className="space-y-2">
         <h2 className="text-xl font-semibold">Members</h2>
         <MemberList proofId={proofId} members={rows} />

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ProofPageHeading } from "@/components/proof/proof-page-heading";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { listRoundViews } from "@/lib/data/rounds";
@@ -25,16 +26,12 @@ export default async function RoundsPage({ params }: { params: Promise<{ proofId
   const canOpen = mayDoInRound(role, "open_round") && (!last || (last.state === "decided" && !isFinalDecision(last.decision!.decision)));
   return (
     <main className="max-w-3xl space-y-6">
-      <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
-          ← {proof.title}
-        </Link>
-        <h1 className="mt-2 text-3xl font-semibold">Review rounds</h1>
+      <ProofPageHeading proofId={proofId} proofTitle={proof.title} title="Review rounds">
         <p className="text-sm text-stone-600">
           {policy.blindReview ? "Blind review: authors see referees as “Referee 1, 2, …”." : "Referees are named to the authors."} A referee’s report covers the
           argument as a whole; a verified claim inside it covers only its stated computation.
         </p>
-      </div>
+      </ProofPageHeading>
       {mayDoInRound(role, "set_review_policy") && (
         <ReviewPolicyForm proofId={proofId} blind={policy.blindReview} before={policy.remindBeforeDays} after={policy.remindAfterDays} />
       )}

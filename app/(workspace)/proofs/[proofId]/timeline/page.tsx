@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ProofPageHeading } from "@/components/proof/proof-page-heading";
 import { notFound } from "next/navigation";
 import { withinScope } from "@/lib/access";
 import { getProofSummary } from "@/lib/data/proofs";
@@ -21,13 +22,9 @@ export default async function TimelinePage({ params }: { params: Promise<{ proof
   if (!proof) notFound();
   return (
     <main className="max-w-prose space-y-6">
-      <div>
-        <Link href={`/proofs/${proofId}`} className="text-sm text-lichen-700 underline">
-          ← {proof.title}
-        </Link>
-        <h1 className="mt-2 text-3xl font-semibold">Timeline</h1>
+      <ProofPageHeading proofId={proofId} proofTitle={proof.title} title="Timeline">
         <p className="text-sm text-stone-600">An append-only record: events are added, never changed or removed.</p>
-      </div>
+      </ProofPageHeading>
       <AuditTimeline events={events} />
     </main>
   );

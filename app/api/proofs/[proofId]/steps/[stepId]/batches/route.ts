@@ -1,16 +1,17 @@
 import { readBody, route, BODY_LIMITS } from "@/lib/http";
 import { requireStepAccess } from "@/lib/access";
-import { createBatch, listStepBatches } from "@/lib/data/batches";
+import { batchesVerification, createBatch, listStepBatches } from "@/lib/data/batches";
 import { createBatchSchema } from "@/lib/validations/batch";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
 
-/** The step's batch claims with their progress; any member who sees the step. */
+/** The step's batch claims with their progress, and whether verification is paused while one is unfinished; any member who sees the step. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   await requireStepAccess(proofId, stepId);
-  return Response.json({ batches: await listStepBatches(stepId) });
+  const batches = await listStepBatches(stepId);
+  return Response.json({ batches, verification: await batchesVerification(batches) });
 });
 
 /**

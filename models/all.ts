@@ -1,0 +1,28 @@
+/** Every model class, one line each: models/index.ts initialises them all and re-exports them. */
+export { User } from "./user";
+export { SignInThrottle } from "./sign-in-throttle";
+export { Proof } from "./proof";
+export { ProofMember } from "./proof-member";
+export { Case } from "./case";
+export { Step } from "./step";
+export { StepRevision } from "./step-revision";
+export { Claim } from "./claim";
+export { Review } from "./review";
+export { Comment } from "./comment";
+export { AuditEvent } from "./audit-event";
+export { OutgoingMail } from "./outgoing-mail";
+export { Invitation } from "./invitation";
+export { InvitationCase } from "./invitation-case";
+export { ReviewerScope } from "./reviewer-scope";
+export { DisputeTransition } from "./dispute-transition";
+export { Notification } from "./notification";
+export { NotificationPreference } from "./notification-preference";
+export { ProofExport } from "./proof-export";
+export { ReviewRound } from "./review-round";
+export { RoundReferee } from "./round-referee";
+export { RefereeReport } from "./referee-report";
+export { RoundDecision } from "./round-decision";
+export { RoundReminder } from "./round-reminder";
+export { StepFile } from "./step-file";
+export { FormerMember } from "./former-member";
+export { BatchClaim, BatchResult } from "./batch-claim";
