@@ -24,6 +24,8 @@ export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreation
   declare refuted: CreationOptional<number>;
   declare undecided: CreationOptional<number>;
   declare unreadable: CreationOptional<number>;
+  /** Enumeration batches: classes of the enumeration the list does not name (0 otherwise). */
+  declare missing: CreationOptional<number>;
   declare checkerVersion: string;
   /** Why graphs were left undecided (chunks whose check failed for good), one line each; null when none. */
   declare note: CreationOptional<string | null>;
@@ -54,6 +56,7 @@ export class BatchClaim extends Model<InferAttributes<BatchClaim>, InferCreation
         refuted: count(),
         undecided: count(),
         unreadable: count(),
+        missing: count(),
         checkerVersion: { type: DataTypes.STRING(40), allowNull: false },
         note: { type: DataTypes.TEXT, allowNull: true },
         createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },

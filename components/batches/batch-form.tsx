@@ -8,12 +8,13 @@ import type { StepFileView } from "@/lib/data/files";
 const OPS = ["<", "<=", "=", ">=", ">"] as const;
 const SHOWN: Record<(typeof OPS)[number], string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
 
-type Kind = "spectral-radius-bound" | "contains-one-of" | "contains-none-of" | "identified-as";
+type Kind = "spectral-radius-bound" | "contains-one-of" | "contains-none-of" | "identified-as" | "enumeration-exactly";
 const KINDS: Record<Kind, string> = {
   "spectral-radius-bound": "has ρ(G)",
   "contains-one-of": "contains one of",
   "contains-none-of": "contains none of",
   "identified-as": "is identified as a member of",
+  "enumeration-exactly": "— the list is exactly, up to isomorphism, the enumeration of",
 };
 /** Families of Smith's classification, as lib/core/smith-families.ts names them, with their display. */
 const FAMILIES: Array<[string, string]> = [
@@ -29,8 +30,9 @@ const FAMILIES: Array<[string, string]> = [
 ];
 
 /** The request body for the statement chosen in the form. */
-function statementBody(kind: Kind, op: string, bound: string, patterns: string, induced: boolean, families: string[]) {
+function statementBody(kind: Kind, op: string, bound: string, patterns: string, induced: boolean, families: string[], setting: string, vertices: string) {
   if (kind === "spectral-radius-bound") return { kind, op, bound };
+  if (kind === "enumeration-exactly") return { kind, setting, vertices: Number(vertices) };
   if (kind === "identified-as") return { kind, families };
   return {
     kind,
@@ -54,6 +56,8 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [patterns, setPatterns] = useState("star(3)");
   const [induced, setInduced] = useState(false);
   const [families, setFamilies] = useState<string[]>(["A", "D", "E"]);
+  const [setting, setSetting] = useState("tree");
+  const [vertices, setVertices] = useState("10");
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
@@ -67,7 +71,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
     try {
       const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
         method: "POST",
-        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families) },
+        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices) },
       });
       setMessage(
         `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
@@ -148,6 +152,29 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
           <label className="flex items-center gap-2">
             <input type="checkbox" checked={induced} onChange={(e) => setInduced(e.target.checked)} /> as induced subgraphs
           </label>
+        </div>
+      )}
+      {kind === "enumeration-exactly" && (
+        <div className="flex flex-wrap items-center gap-2 text-sm">
+          <span>the</span>
+          <select
+            value={setting}
+            onChange={(e) => setSetting(e.target.value)}
+            aria-label="which graphs"
+            className="rounded border border-stone-300 bg-white px-1 py-0.5"
+          >
+            <option value="tree">trees</option>
+            <option value="simple">connected simple graphs</option>
+          </select>
+          <span>on</span>
+          <input
+            value={vertices}
+            onChange={(e) => setVertices(e.target.value)}
+            aria-label="vertices"
+            inputMode="numeric"
+            className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"
+          />
+          <span>vertices</span>
         </div>
       )}
       {kind === "identified-as" && (

@@ -10,7 +10,9 @@ const STATE: Record<BatchView["status"], string> = { queued: "waiting for a work
 
 function outcome(b: BatchView): string {
   if (b.status !== "done") return "";
-  return b.failing === 0 ? "✓ verified for every graph of the list" : `✗ not established: ${b.failing} of ${b.total} graphs fail`;
+  const missing = b.missing > 0 ? `${b.missing} graphs of the enumeration are not listed` : null;
+  if (b.failing === 0 && !missing) return "✓ verified for every graph of the list";
+  return `✗ not established: ${[b.failing ? `${b.failing} of ${b.total} graphs fail` : null, missing].filter(Boolean).join("; ")}`;
 }
 
 const seconds = (s: number) => (s < 90 ? `${s} s` : `${Math.round(s / 60)} min`);

@@ -5,7 +5,15 @@ import { useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
-import { CLAIM_KINDS, GRAPH_FORMATS, RELATIONS, STRUCTURE_PREDICATES, DEGREE_RELATIONS, ENUMERATION_MAX_VERTICES } from "@/lib/core/claims/claim-schema";
+import {
+  CLAIM_KINDS,
+  GRAPH_FORMATS,
+  RELATIONS,
+  STRUCTURE_PREDICATES,
+  DEGREE_RELATIONS,
+  ENUMERATION_MAX_VERTICES,
+  COVERAGE_MAX_VERTICES,
+} from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
 
@@ -20,6 +28,7 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   structure: "structure  (tree, degrees, legs …)",
   enumeration: "enumeration  all connected G, |G| ≤ N, ρ(G) op b",
   "dynkin-data": "Dynkin data  h, ρ, exponents, |W|, W(q), [k]_q",
+  coverage: "coverage  every G, |G| ≤ N, is in some sub-case",
 };
 
 const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
@@ -40,6 +49,18 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
   );
 }
 
+/** Which graphs an enumeration or coverage claim runs over. */
+function SettingSelect({ register, error }: { register: UseFormRegister<ClaimForm>; error?: string }) {
+  return (
+    <FormField label="Which graphs" error={error}>
+      <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
+        <option value="simple">connected simple graphs</option>
+        <option value="tree">trees</option>
+      </select>
+    </FormField>
+  );
+}
+
 /** Attaches a claim of any kind the core offers; problems come back per field and are shown beside it. */
 export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number }) {
   const { mutate } = useSWRConfig();
@@ -53,6 +74,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
   const twoGraphs = kind === "subgraph" || kind === "exclusion";
   const enumeration = kind === "enumeration";
+  const coverage = kind === "coverage";
 
   const submit = handleSubmit(async (values) => {
     setMessage(null);
@@ -107,6 +129,25 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </div>
         </FormField>
       )}
+      {coverage && (
+        <>
+          <FormField
+            label="N, the largest number of vertices"
+            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees`}
+            error={err("maxVertices")}
+          >
+            <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
+          </FormField>
+          <SettingSelect register={register} error={err("enumerationSetting")} />
+          <FormField
+            label="Sub-cases and their machine-readable conditions (JSON)"
+            hint='e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]'
+            error={err("cases")}
+          >
+            <textarea {...register("cases")} rows={5} className={input} aria-label="sub-cases" />
+          </FormField>
+        </>
+      )}
       {enumeration && (
         <>
           <FormField
@@ -116,12 +157,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <FormField label="Which graphs" error={err("enumerationSetting")}>
-            <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
-              <option value="simple">connected simple graphs</option>
-              <option value="tree">trees</option>
-            </select>
-          </FormField>
+          <SettingSelect register={register} error={err("enumerationSetting")} />
           <FormField
             label="The graphs, all of them"
             hint="connected simple graphs (or trees), separated by a line ---; e.g. A(5) --- D(5)"
@@ -134,7 +170,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </FormField>
         </>
       )}
-      {!enumeration && (
+      {!enumeration && !coverage && (
         <FormField
           label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
@@ -160,7 +196,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </FormField>
         </div>
       )}
-      {!enumeration && (
+      {!enumeration && !coverage && (
         <ClaimPreview
           graphText={watch("graphText")}
           graphFormat={watch("graphFormat")}

@@ -48,6 +48,8 @@ export interface BatchView {
   refuted: number;
   undecided: number;
   unreadable: number;
+  /** Enumeration batches: classes of the enumeration the list does not name. */
+  missing: number;
   /** refuted + undecided + unreadable: the graphs for which the statement is not established. */
   failing: number;
   /** Graphs per second since the first chunk started; null before. */
@@ -83,6 +85,7 @@ export function batchView(b: BatchClaim, fileName: string | null = null, now = D
     refuted: b.refuted,
     undecided: b.undecided,
     unreadable: b.unreadable,
+    missing: b.missing,
     failing: b.refuted + b.undecided + b.unreadable,
     rate,
     etaSeconds: active && rate ? Math.ceil((b.total - b.done) / rate) : null,
@@ -106,7 +109,14 @@ export async function createBatch(proofId: number, stepId: number, userId: numbe
   try {
     statement = batchStatement(wanted);
   } catch (e) {
-    const path = wanted.kind === "spectral-radius-bound" ? "bound" : wanted.kind === "identified-as" ? "families" : "patterns";
+    const path =
+      wanted.kind === "spectral-radius-bound"
+        ? "bound"
+        : wanted.kind === "identified-as"
+          ? "families"
+          : wanted.kind === "enumeration-exactly"
+            ? "vertices"
+            : "patterns";
     if (e instanceof NumberFormatError || e instanceof Error)
       throw invalid(path === "bound" ? "The bound does not read." : `The ${path} do not read.`, [{ path, message: e.message }]);
     throw e;
@@ -272,7 +282,7 @@ export async function exportedBatches(stepIds: readonly number[]): Promise<Map<n
       words: b.statement,
       status: b.status,
       file: { name: file.name, format: file.graphFormat, text, textSha256: sha256Hex(text), sha256: file.sha256 },
-      counts: { total: b.total, verified: b.verified, refuted: b.refuted, undecided: b.undecided, unreadable: b.unreadable },
+      counts: { total: b.total, verified: b.verified, refuted: b.refuted, undecided: b.undecided, unreadable: b.unreadable, missing: b.missing },
       results: results.map((r) => ({ entry: r.entry, line: r.line, verdict: r.verdict, certificate: r.certificate ? JSON.parse(r.certificate) : null })),
       checkerVersion: b.checkerVersion,
     };

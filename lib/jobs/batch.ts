@@ -6,7 +6,8 @@
  * results are already there: a chunk run twice after a worker died decides each graph exactly once.
  * A cancelled batch's remaining chunks do nothing.
  */
-import { QueryTypes } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
+import { duplicateReason, enumerationWords, settleEnumeration, type EnumerationBatchStatement } from "../core/claims/batch-enumeration";
 import { getSequelize } from "../db";
 import { models } from "../../models";
 import { fileStore } from "../storage";
@@ -46,6 +47,7 @@ export function statementOf(b: { kind: BatchStatement["kind"]; op: string; bound
   if (b.kind === "spectral-radius-bound") return { kind: b.kind, op: b.op as Relation, bound: b.bound };
   const p = JSON.parse(b.params ?? "{}") as { patterns?: string[]; induced?: boolean; families?: string[] };
   if (b.kind === "identified-as") return { kind: b.kind, families: (p.families ?? []) as Extract<BatchStatement, { kind: "identified-as" }>["families"] };
+  if (b.kind === "enumeration-exactly") return { kind: b.kind, ...(p as Omit<Extract<BatchStatement, { kind: "enumeration-exactly" }>, "kind">) };
   return { kind: b.kind, patterns: p.patterns ?? [], induced: p.induced ?? false };
 }
 
@@ -95,6 +97,8 @@ async function storeChunk(
     const tally = { verified: 0, refuted: 0, undecided: 0, unreadable: 0 };
     for (const r of results) tally[r.verdict]++;
     const done = locked.done + results.length;
+    // The last chunk of an enumeration batch settles the whole list: repeated classes, classes not listed.
+    const settled = done >= locked.total && locked.kind === "enumeration-exactly" ? await settleListedEnumeration(locked, tally, transaction) : null;
     await locked.update(
       {
         done,
@@ -102,7 +106,8 @@ async function storeChunk(
         refuted: locked.refuted + tally.refuted,
         undecided: locked.undecided + tally.undecided,
         unreadable: locked.unreadable + tally.unreadable,
-        ...(note ? { note: [locked.note, note].filter(Boolean).join("\n").slice(0, 60_000) } : {}),
+        ...(note || settled?.note ? { note: [locked.note, note, settled?.note].filter(Boolean).join("\n").slice(0, 60_000) } : {}),
+        ...(settled ? { missing: settled.missing } : {}),
         status: done >= locked.total ? "done" : "running",
         startedAt: locked.startedAt ?? new Date(),
         ...(done >= locked.total ? { finishedAt: new Date() } : {}),
@@ -159,4 +164,32 @@ export async function settleFailedChunk(data: BatchJobData, failedReason: string
     });
   }
   return storeChunk(batch.id, from, to, results, decidedBy, `graphs ${from + 1}–${to} of the list left undecided: ${why}`);
+}
+
+/**
+ * Settles an enumeration batch once every graph is decided (inside the transaction that stores the last
+ * chunk): a later listing of a class already listed becomes refuted, naming the first; the classes not
+ * listed are counted and the first few named in the note. `tally` is the last chunk's, moved accordingly.
+ */
+async function settleListedEnumeration(
+  batch: { id: number; kind: string; op: string; bound: string; params: string | null },
+  tally: Record<ListedResult["verdict"], number>,
+  transaction: Transaction,
+): Promise<{ missing: number; note: string | null }> {
+  const { BatchResult } = models();
+  const statement = statementOf(batch as Parameters<typeof statementOf>[0]) as EnumerationBatchStatement;
+  const rows = await BatchResult.findAll({ where: { batchId: batch.id }, attributes: ["entry", "line", "verdict", "certificate"], transaction });
+  const { duplicates, missing } = settleEnumeration(
+    statement,
+    rows.map((r) => ({ entry: r.entry, line: r.line, verdict: r.verdict, certificate: r.certificate ? JSON.parse(r.certificate) : null })),
+  );
+  for (const d of duplicates) {
+    await BatchResult.update({ verdict: "refuted", reason: duplicateReason(d.firstLine) }, { where: { batchId: batch.id, entry: d.entry }, transaction });
+    tally.verified--;
+    tally.refuted++;
+  }
+  const note = missing.length
+    ? `${missing.length} of the ${enumerationWords(statement)} ${missing.length === 1 ? "is" : "are"} not listed, e.g. (graph6) ${missing.slice(0, 5).join(" ")}`
+    : null;
+  return { missing: missing.length, note };
 }

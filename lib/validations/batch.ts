@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { RELATIONS } from "@/lib/core/claims/claim-schema";
 import { MAX_BATCH_PATTERNS } from "@/lib/core/claims/batch";
+import { ENUMERATION_BATCH_MAX } from "@/lib/core/claims/batch-enumeration";
 import { SMITH_FAMILIES } from "@/lib/core/families/smith-families";
 
 const fileId = z.number({ message: "choose an uploaded graph list" }).int().positive();
@@ -35,11 +36,21 @@ const identified = z.object({
     .max(MAX_BATCH_PATTERNS),
 });
 
+/** The list is, up to isomorphism, exactly the trees (or connected simple graphs) on n vertices, optionally with ρ op b. */
+const enumeration = z.object({
+  fileId,
+  kind: z.literal("enumeration-exactly"),
+  setting: z.enum(["tree", "simple"], { message: "tree or simple" }),
+  vertices: z.number({ message: "the number of vertices" }).int().min(1).max(ENUMERATION_BATCH_MAX.tree),
+  op: z.enum(["<", "<="], { message: "< or <=" }).optional(),
+  bound: z.string().trim().min(1).max(500).optional(),
+});
+
 /** A batch claim over a graph list uploaded to the step. */
 export const createBatchSchema = z.preprocess(
   (v) => (v && typeof v === "object" && !Array.isArray(v) && !("kind" in v) ? { ...v, kind: "spectral-radius-bound" } : v),
-  z.discriminatedUnion("kind", [spectral, subgraphs, identified], {
-    message: "kind: one of spectral-radius-bound, contains-one-of, contains-none-of, identified-as",
+  z.discriminatedUnion("kind", [spectral, subgraphs, identified, enumeration], {
+    message: "kind: one of spectral-radius-bound, contains-one-of, contains-none-of, identified-as, enumeration-exactly",
   }),
 );
 export type CreateBatchInput = z.infer<typeof createBatchSchema>;

@@ -51,6 +51,7 @@ export const claimFormSchema = z.object({
   maxVertices: z.string(),
   enumerationSetting: z.enum(ENUMERATION_SETTINGS),
   dynkinData: z.string(),
+  cases: z.string(),
   certificate: z.string(),
 });
 export type ClaimForm = z.infer<typeof claimFormSchema>;
@@ -76,6 +77,7 @@ export const emptyClaimForm: ClaimForm = {
   maxVertices: "",
   enumerationSetting: "simple",
   dynkinData: "",
+  cases: "",
   certificate: "",
 };
 
@@ -203,6 +205,18 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
           .map((t) => graph(f.patternFormat, t)),
       });
       break;
+    case "coverage":
+      need("maxVertices", "the largest number of vertices N");
+      if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer" });
+      Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}) });
+      if (f.cases.trim()) {
+        try {
+          claim.cases = JSON.parse(f.cases);
+        } catch (e) {
+          issues.push({ field: "cases", message: `The sub-cases must be JSON: ${(e as Error).message}` });
+        }
+      } else issues.push({ field: "cases", message: 'Enter the sub-cases, e.g. [{ "label": "3.1", "condition": { "predicate": "tree" } }, …].' });
+      break;
     case "dynkin-data":
       if (!f.family.trim() && !f.graphText.trim()) issues.push({ field: "family", message: "Enter the type (e.g. E8), the graph G, or both." });
       if (f.family.trim()) claim.type = f.family.trim();
@@ -252,6 +266,7 @@ export function formFieldOf(path: string): keyof ClaimForm | null {
   if (/^h\b/.test(rest)) return "h";
   if (/^multiset\b/.test(rest)) return "multiset";
   if (/^parameter\b/.test(rest)) return "parameter";
+  if (/^cases\b/.test(rest)) return "cases";
   if (/^certificate\b/.test(rest)) return "certificate";
   return null;
 }

@@ -67,6 +67,9 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
   } else if (claim.kind === "exclusion") {
     add(read(claim.host), "G (host)");
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
+  } else if (claim.kind === "coverage") {
+    const uncovered = (evidence as { uncovered?: unknown } | null)?.uncovered;
+    if (Array.isArray(uncovered)) uncovered.slice(0, 4).forEach((t, i) => add(read({ format: "graph6", text: String(t) }), `uncovered graph ${i + 1}`));
   } else if (claim.kind === "dynkin-data") {
     add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {

@@ -218,6 +218,28 @@ describe("proof workspace in the browser", () => {
     await context.close();
   });
 
+  it("attaches Dynkin data through the form: an unknown line is refused beside the field, E8's data are verified", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const { stepUrl } = await authorWithOneStep(page, "The Weyl group of E8", "Its order and Coxeter number.");
+    await page.goto(stepUrl);
+    const form = page.getByTestId("claim-form");
+    await form.getByLabel("Kind").selectOption("dynkin-data");
+    await form.getByLabel("Dynkin type").fill("E8");
+    await form.getByLabel("stated Dynkin data").fill("height = 29");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await form.getByRole("alert").filter({ hasText: "is not one of" }).waitFor();
+    expect(await page.getByTestId("claim").count()).toBe(0);
+    // h(E8) = 30 and |W(E8)| = 696729600 (Humphreys, Reflection Groups and Coxeter Groups, Tables 2.4 and 3.1).
+    await form.getByLabel("stated Dynkin data").fill("h = 30\n|W| = 696729600\n[k]_q > 0");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await page.locator('[data-testid="claim"] [data-verdict="verified"]').waitFor();
+    const card = (await page.getByTestId("claim").first().textContent()) ?? "";
+    expect(card).toContain("|W| = 696729600");
+    expect(card).toContain("h = 30");
+    await context.close();
+  });
+
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
     const context = await browser.newContext();
     const first = await context.newPage();

@@ -22,6 +22,8 @@ import { Budget } from "@/lib/core/verdict";
 import { recheckIdentification } from "@/lib/core/families/identify";
 import { recheckExclusion } from "@/lib/core/subgraph/subgraph";
 import { parseGraph } from "@/lib/core/input/parse";
+import { isomorphic } from "@/lib/core/families/enumeration";
+import { readListedGraph } from "@/lib/core/input/graph-list";
 import { loadSnapshot } from "@/lib/data/exports";
 import { buildBundle } from "@/lib/export/bundle";
 import { checkBundle, sealBundle, type BundleItemType } from "@/lib/core/certificates/bundle";
@@ -67,6 +69,8 @@ async function finished(batchId: number, ms = 90_000) {
 }
 
 const trees = treesOn10();
+/** One line of the tree list as a graph (sparse6 from gentreeg, or graph6). */
+const treeGraph = (line: string) => readListedGraph({ line: 1, text: line }, line.startsWith(":") ? "sparse6" : "graph6");
 
 beforeAll(async () => {
   proofId = await draftProof("Batch claims test");
@@ -261,6 +265,49 @@ describe("the other batch statements over the trees on 10 vertices", () => {
     expect(pattern.status).toBe(422);
     expect((await pattern.json()).error.issues[0]).toMatchObject({ path: "patterns", message: expect.stringMatching(/pattern 1/) });
     expect((await start({ fileId: listId, kind: "contains-one-of", patterns: [] })).status).toBe(422);
+  });
+});
+
+describe("the list is exactly an enumeration, up to isomorphism", () => {
+  const run = async (fileId: number, body: Record<string, unknown>) => {
+    process.env.CAIRN_BATCH_CHUNK = "40";
+    await actAs("author");
+    const res = await start({ fileId, ...body });
+    expect(res.status, await res.clone().text()).toBe(202);
+    const { batch } = await res.json();
+    return finished(batch.id);
+  };
+
+  it("the 106 trees on 10 vertices (nauty's gentreeg when installed) are exactly Cairn's enumeration of them; with ρ < 2 only A₁₀ and D₁₀ (Smith)", async () => {
+    // OEIS A000055: 106 trees on 10 vertices; the list's bad line stays unreadable.
+    const all = await run(listId, { kind: "enumeration-exactly", setting: "tree", vertices: 10 });
+    expect(all).toMatchObject({ status: "done", total: 107, verified: 106, refuted: 0, undecided: 0, unreadable: 1, missing: 0, note: null });
+    expect(all.statement).toBe("the list is, up to isomorphism, exactly the trees on 10 vertices");
+    // Brouwer & Haemers Thm 3.1.3 (Smith 1970): the enumeration with ρ < 2 has 2 classes, both listed.
+    const small = await run(listId, { kind: "enumeration-exactly", setting: "tree", vertices: 10, op: "<", bound: "2" });
+    expect(small).toMatchObject({ status: "done", verified: 2, refuted: 104, missing: 0 });
+  });
+
+  it("a list with one tree left out and another listed twice: the repeat is refuted naming the first line, the missing one is counted and named", async () => {
+    const listed = [...trees.slice(1), trees[5]];
+    const id = await upload(listed.join("\n") + "\n", "trees-10-one-off.s6");
+    const b = await run(id, { kind: "enumeration-exactly", setting: "tree", vertices: 10 });
+    expect(b).toMatchObject({ status: "done", total: 106, verified: 105, refuted: 1, unreadable: 0, missing: 1 });
+    expect(b.note).toMatch(/^1 of the trees on 10 vertices is not listed, e\.g\. \(graph6\) \S+$/);
+    const rows = (await (await results(b.id, "only=failing")).json()).results;
+    expect(rows).toEqual([
+      expect.objectContaining({ line: 106, verdict: "refuted", reason: "G is isomorphic to the graph listed at line 5: the list must name each class once" }),
+    ]);
+    // The named missing graph is the tree left out.
+    const named = parseGraph6(/\(graph6\) (\S+)$/.exec(b.note)![1]);
+    expect(isomorphic(named, treeGraph(trees[0]))).toBe(true);
+  });
+
+  it("refuses an enumeration too large to run (422 on vertices)", async () => {
+    await actAs("author");
+    const res = await start({ fileId: listId, kind: "enumeration-exactly", setting: "simple", vertices: 12 });
+    expect(res.status).toBe(422);
+    expect((await res.json()).error.issues[0].path).toBe("vertices");
   });
 });
 

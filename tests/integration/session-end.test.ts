@@ -9,6 +9,8 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession, type Session } from "next-auth";
+import { encode } from "next-auth/jwt";
+import { authOptions } from "@/lib/auth";
 import { actAs, params } from "./helpers";
 import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
 import { closeSequelize } from "@/lib/db";
@@ -66,5 +68,43 @@ describe("removal from a proof", () => {
     expect((await step()).status).toBe(403);
     expect((await list()).status).toBe(200);
     await models().ProofMember.create({ proofId: fx.proofId, userId: fx.ids.reviewer, role: "reviewer" });
+  });
+});
+
+describe("next-auth's own session endpoint (GET /api/auth/session, what the browser's useSession reads)", () => {
+  const secret = "a secret for the session endpoint test";
+  /**
+   * Runs next-auth's session action (the one behind GET /api/auth/session and getServerSession) on a cookie signed as
+   * the app signs it, with the app's callbacks: the real getServerSession (this file mocks the import) in its
+   * request/response form, which hands back the session body and the cookies it sets.
+   */
+  async function sessionEndpoint(token: Record<string, unknown>) {
+    const real = (await vi.importActual<typeof import("next-auth")>("next-auth")).getServerSession;
+    const cookie = await encode({ token, secret });
+    const headers = new Map<string, string[]>();
+    const res = {
+      getHeader: (name: string) => headers.get(name.toLowerCase()),
+      setHeader: (name: string, value: string | string[]) => headers.set(name.toLowerCase(), ([] as string[]).concat(value)),
+    };
+    const req = { headers: { host: "localhost" }, cookies: { "next-auth.session-token": cookie } };
+    const session = (await real(req as never, res as never, { ...authOptions, secret })) as { user?: { email?: string } } | null;
+    const cleared = (headers.get("set-cookie") ?? []).some((c) => /^next-auth\.session-token=;/.test(c) && /max-age=0/i.test(c));
+    return { session, cleared };
+  }
+
+  it("answers the person for a current version, and an empty session that clears the cookie once the version is ended", async () => {
+    const id = (await actAs("editor"))!;
+    const { sessionVersion, email } = (await models().User.findByPk(id))!;
+    const token = { sub: String(id), email, name: "Dov", role: "member", sv: sessionVersion };
+    const live = await sessionEndpoint(token);
+    expect(live.session?.user?.email).toBe(email);
+    expect(live.cleared).toBe(false);
+    await endSessions(id, sessionVersion); // what sign-out does
+    // Before the fix the endpoint decoded the cookie and answered its user until the JWT expired (8 h).
+    const ended = await sessionEndpoint(token);
+    expect(ended.session).toBeNull();
+    expect(ended.cleared).toBe(true);
+    // A token without a version (minted before versions existed) is no session either.
+    expect((await sessionEndpoint({ sub: String(id), email })).session).toBeNull();
   });
 });

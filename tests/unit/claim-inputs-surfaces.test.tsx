@@ -50,6 +50,18 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
   structure: { claim: { graph: CLAW, predicate: "max-degree", parameter: 3 }, shows: ["Cs", "max-degree", "parameter"] },
   // A3 = P3: h = 4, |W(A3)| = 4! = 24 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
   "dynkin-data": { claim: { type: "A3", graph: P3, coxeterNumber: 4, weylGroupOrder: "24" }, shows: ["Bg", "Coxeter number h", "24"] },
+  // Trees on ≤ 4 vertices: a path, or Δ ≥ 3 (K1,3 is the only other tree on 4 vertices; OEIS A000055).
+  coverage: {
+    claim: {
+      maxVertices: 4,
+      setting: "tree",
+      cases: [
+        { label: "3.1", condition: { predicate: "path" } },
+        { label: "3.2", condition: { predicate: "max-degree", relation: ">=", value: 3 } },
+      ],
+    },
+    shows: ["3.1: G is a path", "at most N vertices", "larger graph"],
+  },
   // Connected graphs on ≤ 3 vertices with ρ < 2: P1, P2, P3 (K3 has ρ = 2).
   enumeration: {
     claim: { maxVertices: 3, op: "<", bound: "2", graphs: [{ format: "named", text: "path(1)" }, { format: "named", text: "path(2)" }, P3] },

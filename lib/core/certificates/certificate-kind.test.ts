@@ -27,6 +27,23 @@ const named = (text: string) => ({ format: "named", text });
 // Containment and structure facts are elementary (a bipartite graph has no odd cycle, C_7 has no 5-cycle, …);
 // E7 data from Bourbaki, Lie Groups and Lie Algebras Ch. VI, Plate VI (Coxeter number 18, exponents 1 5 7 9 11 13 17).
 const PINS: { [K in ClaimKind]: Pin[] } = {
+  // Connected graphs on ≤ 4 vertices (OEIS A001349: 1, 1, 2, 6): each is a tree or has a cycle; K4 − e etc. are not bipartite.
+  coverage: [
+    {
+      name: "tree / has a cycle covers every connected graph on ≤ 4 vertices",
+      claim: { maxVertices: 4, cases: [{ condition: { predicate: "tree" } }, { condition: { predicate: "has-cycle" } }] },
+      status: "verified",
+      method: /^exhaustive enumeration by canonical augmentation/,
+      certificate: "coverage",
+    },
+    {
+      name: "bipartite alone misses the triangle",
+      claim: { maxVertices: 4, cases: [{ condition: { predicate: "bipartite" } }] },
+      status: "refuted",
+      method: /^exhaustive enumeration by canonical augmentation/,
+      certificate: "coverage",
+    },
+  ],
   "spectral-radius-bound": [
     {
       name: "ρ(K1,5) = √5 > 2: the tree elimination stops and leaves a vector",

@@ -75,6 +75,8 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       return "marks" in e
         ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
         : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
+    case "coverage":
+      return kind === "coverage" ? { key: "coverage", words: "graphs per order, graphs covered per sub-case, and every uncovered graph (graph6)" } : null;
     case "enumeration":
       return kind === "enumeration" ? { key: "enumeration", words: "list of the graphs found (graph6), with counts by order" } : null;
     default:

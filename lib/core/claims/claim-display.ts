@@ -14,6 +14,8 @@ import { sha256Hex } from "../digest";
 import { degree, isSimple, summarizeGraph, type Graph } from "../graph";
 import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { parseGraph } from "../input/parse";
+import { describeCondition } from "../families/case-condition";
+import { caseName, coverageCaution } from "../families/coverage";
 
 export const LARGE_INPUT_VERTICES = 200;
 export const LARGE_INPUT_CHARACTERS = 2_000;
@@ -219,6 +221,16 @@ function entriesOf(c: Claim): InputEntry[] {
       if (c.quantumPositivity) out.push(text("quantum integers", "[k]_q > 0 for 1 ≤ k < h and [h]_q = 0"));
       return out;
     }
+    case "coverage":
+      return [
+        text("setting", c.setting === "tree" ? "trees" : "connected simple graphs"),
+        text("at most N vertices", String(c.maxVertices)),
+        listEntry(
+          `sub-cases (${c.cases.length}) and their conditions`,
+          c.cases.map((x, i) => `${caseName(x, i)}: ${describeCondition(x.condition)}`),
+        ),
+        text("what remains", coverageCaution(c.maxVertices)),
+      ];
     case "enumeration": {
       const listed = c.graphs.map((g) => {
         const v = graphInputView(g, "");

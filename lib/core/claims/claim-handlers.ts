@@ -7,6 +7,7 @@ import { EXCLUSION_HANDLER, IDENTIFICATION_HANDLER, SUBGRAPH_HANDLER } from "./c
 import { CHARPOLY_HANDLER, EIGENVALUES_HANDLER, ENUMERATION_HANDLER, SPECTRAL_RADIUS_HANDLER, VECTOR_HANDLER } from "./claim-spectral";
 import { STRUCTURE_HANDLER } from "./claim-structure";
 import { DYNKIN_DATA_HANDLER } from "./claim-dynkin";
+import { COVERAGE_HANDLER } from "./claim-coverage";
 
 export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kind: K }>> } = {
   "spectral-radius-bound": SPECTRAL_RADIUS_HANDLER,
@@ -19,4 +20,5 @@ export const HANDLERS: { [K in Claim["kind"]]: ClaimHandler<Extract<Claim, { kin
   structure: STRUCTURE_HANDLER,
   enumeration: ENUMERATION_HANDLER,
   "dynkin-data": DYNKIN_DATA_HANDLER,
+  coverage: COVERAGE_HANDLER,
 };

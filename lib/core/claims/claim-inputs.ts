@@ -40,6 +40,8 @@ export function checkInputs(claim: Claim): void {
       claim.graphs.forEach((g, i) => readClaimGraph(g, `$.graphs[${i}]`));
       boundOrFail(claim.bound, "$.bound");
       return;
+    case "coverage":
+      return; // the conditions were read (patterns included) by validateClaim
     case "exclusion":
       readClaimGraph(claim.host, "$.host");
       claim.patterns.forEach((p, i) => readClaimGraph(p, `$.patterns[${i}]`));

@@ -10,6 +10,7 @@
 
 import { parseFamilyName } from "../families/smith-families";
 import { coxeterData } from "../spectral/spectral";
+import { ConditionError, validateCondition, type CaseCondition } from "../families/case-condition";
 
 export const CLAIM_FORMAT = "cairn-claim/1";
 /** A file holding several claims: `{ "format": "cairn-claims/1", "claims": [...] }`. */
@@ -40,6 +41,7 @@ export const CLAIM_KINDS = [
   "structure",
   "enumeration",
   "dynkin-data",
+  "coverage",
 ] as const;
 export type ClaimKind = (typeof CLAIM_KINDS)[number];
 
@@ -134,6 +136,28 @@ export interface EnumerationClaim extends ClaimCommon {
   readonly graphs: readonly GraphInput[];
 }
 
+/** One sub-case of a coverage claim: its label (shown only) and its machine-readable condition (case-condition.ts). */
+export interface CoverageCaseInput {
+  readonly label?: string;
+  readonly condition: CaseCondition;
+}
+
+/**
+ * Every connected simple graph (or, with setting "tree", every tree) on at most `maxVertices`
+ * vertices satisfies the condition of at least one of `cases`.
+ */
+export interface CoverageClaim extends ClaimCommon {
+  readonly kind: "coverage";
+  readonly maxVertices: number;
+  /** "simple" (the default) or "tree". */
+  readonly setting?: EnumerationSetting;
+  readonly cases: readonly CoverageCaseInput[];
+}
+
+/** Largest N of a coverage claim per setting (the enumeration keeps every graph: 11,117 at 8, 19,320 trees at 16). */
+export const COVERAGE_MAX_VERTICES: Record<EnumerationSetting, number> = { simple: 8, tree: 16 };
+export const COVERAGE_MAX_CASES = 64;
+
 /** [k]_q = value at q = e^{iπ/h}; the value is a bound text ("sqrt(2)", "2cos(pi/30)", "(1+sqrt(5))/2", "1"). */
 export interface QuantumIntegerStatement {
   readonly k: number;
@@ -199,7 +223,8 @@ export type Claim =
   | EigenvaluesClaim
   | StructureClaim
   | EnumerationClaim
-  | DynkinDataClaim;
+  | DynkinDataClaim
+  | CoverageClaim;
 
 /** A malformed claim: `path` is the JSON path of the offending value, e.g. `$.claims[2].graph.format`. */
 export class ClaimError extends Error {
@@ -329,6 +354,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   structure: ["graph", "predicate", "parameter", "relation"],
   enumeration: ["maxVertices", "setting", "op", "bound", "graphs"],
   "dynkin-data": ["type", "graph", ...DYNKIN_DATA_FIELDS],
+  coverage: ["maxVertices", "setting", "cases"],
 };
 
 /**
@@ -412,6 +438,8 @@ export function validateClaim(json: unknown, path = "$"): Claim {
       return { ...common, kind, graph: graph(), ...structureParameter(o, path) };
     case "dynkin-data":
       return dynkinData(o, path, common);
+    case "coverage":
+      return coverage(o, path, common);
     case "enumeration": {
       const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
       if (maxVertices > ENUMERATION_MAX_VERTICES)
@@ -429,6 +457,38 @@ export function validateClaim(json: unknown, path = "$"): Claim {
       };
     }
   }
+}
+
+/** A case condition read at its JSON path; its errors become ClaimErrors with the same path. */
+export function conditionAt(v: unknown, path: string): CaseCondition {
+  try {
+    return validateCondition(v, path);
+  } catch (e) {
+    if (e instanceof ConditionError) throw new ClaimError(e.path, e.detail);
+    throw e;
+  }
+}
+
+function coverage(o: Json, path: string, common: ClaimCommon): CoverageClaim {
+  const setting = o.setting === undefined ? undefined : oneOf(o.setting, ENUMERATION_SETTINGS, `${path}.setting`);
+  const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
+  const cap = COVERAGE_MAX_VERTICES[setting ?? "simple"];
+  if (maxVertices > cap)
+    throw new ClaimError(
+      `${path}.maxVertices`,
+      `coverage is checked for at most ${cap} vertices in the setting "${setting ?? "simple"}" (every graph is kept while its conditions are tested), got ${maxVertices}`,
+    );
+  const list = array(o.cases, `${path}.cases`, 1);
+  if (list.length > COVERAGE_MAX_CASES) throw new ClaimError(`${path}.cases`, `at most ${COVERAGE_MAX_CASES} sub-cases (got ${list.length})`);
+  const cases = list.map((c, i) => {
+    const p = `${path}.cases[${i}]`;
+    const e = object(c, p);
+    for (const key of Object.keys(e))
+      if (key !== "label" && key !== "condition") throw new ClaimError(`${p}.${key}`, `unknown field; a sub-case is { "label": "3.1", "condition": { … } }`);
+    if (e.condition === undefined) throw new ClaimError(`${p}.condition`, `each sub-case needs a machine-readable condition`);
+    return { ...(e.label !== undefined ? { label: string(e.label, `${p}.label`) } : {}), condition: conditionAt(e.condition, `${p}.condition`) };
+  });
+  return { ...common, kind: "coverage", maxVertices, ...(setting !== undefined ? { setting } : {}), cases };
 }
 
 /** "E_8", "E(8)", "e8" → "E8"; only the finite simply-laced types. */

@@ -116,6 +116,8 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
       return { host: readClaimGraph(claim.host, `${path}.host`), patterns: claim.patterns.map((p, i) => readClaimGraph(p, `${path}.patterns[${i}]`)) };
     case "enumeration":
       return { patterns: claim.graphs.map((g, i) => readClaimGraph(g, `${path}.graphs[${i}]`)) };
+    case "coverage":
+      return {};
     case "dynkin-data":
       return { graph: claim.graph ? readClaimGraph(claim.graph, `${path}.graph`) : dynkinDiagram(claim.type!) };
     default:

@@ -128,6 +128,31 @@ export function checkEnumeration(
   });
 }
 
+/**
+ * Compares a certificate's list of graph6 texts with the expected one as multisets up to isomorphism
+ * (same length assumed); returns what is wrong with the first entry that does not match, or null.
+ */
+export function graph6Mismatch(expected: readonly string[], given: readonly unknown[], field: string, what: string, budget: Budget): string | null {
+  const unused = new Map<string, number>();
+  for (const t of expected) {
+    const k = canonicalKeyOf(parseGraph6(t), budget);
+    unused.set(k, (unused.get(k) ?? 0) + 1);
+  }
+  for (const [i, text] of given.entries()) {
+    let g: Graph;
+    try {
+      g = parseGraph6(String(text));
+    } catch {
+      return `${field}[${i}] is not graph6`;
+    }
+    const k = canonicalKeyOf(g, budget);
+    const left = unused.get(k) ?? 0;
+    if (left === 0) return `${field}[${i}] is not ${what}`;
+    unused.set(k, left - 1);
+  }
+  return null;
+}
+
 /** Re-runs the enumeration and compares it with the certificate's counts and graphs, then the outcome. */
 export function recheckEnumeration(
   maxVertices: number,
@@ -151,23 +176,8 @@ export function recheckEnumeration(
     return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
   // The graphs are compared up to isomorphism, so a checker that labels or orders them differently agrees.
   if (!Array.isArray(e.graph6) || e.graph6.length !== cert.graph6.length) return fail(`certificate.graph6 must list the ${cert.graph6.length} graphs found`);
-  const unused = new Map<string, number>();
-  for (const t of cert.graph6) {
-    const k = canonicalKeyOf(parseGraph6(t), budget);
-    unused.set(k, (unused.get(k) ?? 0) + 1);
-  }
-  for (const [i, text] of (e.graph6 as unknown[]).entries()) {
-    let g: Graph;
-    try {
-      g = parseGraph6(String(text));
-    } catch {
-      return fail(`certificate.graph6[${i}] is not graph6`);
-    }
-    const k = canonicalKeyOf(g, budget);
-    const left = unused.get(k) ?? 0;
-    if (left === 0) return fail(`certificate.graph6[${i}] is not one of the graphs the enumeration finds`);
-    unused.set(k, left - 1);
-  }
+  const mismatch = graph6Mismatch(cert.graph6, e.graph6 as unknown[], "certificate.graph6", "one of the graphs the enumeration finds", budget);
+  if (mismatch) return fail(mismatch);
   if (again.status !== outcome) return fail(`the enumeration shows the claim is ${again.status}, not ${outcome}`);
   return { status: "verified", statement, method, reason: `the enumeration repeated gives the same ${cert.graph6.length} graphs and the claim is ${outcome}` };
 }

@@ -1,0 +1,130 @@
+/**
+ * The batch statement "the list is, up to isomorphism, exactly the trees (or the connected simple
+ * graphs) on n vertices [with ρ(G) op b]". The enumeration is Cairn's own (canonical augmentation,
+ * families/enumeration.ts), one graph per isomorphism class in a fixed order; classes are compared by
+ * canonical form (families/canonical-label.ts).
+ *
+ * Per listed graph: verified when it is a member (certificate: its class's place in the enumeration),
+ * refuted otherwise (too many vertices, not connected, a cycle, ρ not within the bound). The whole list:
+ * a class listed twice makes the later listing refuted (`duplicateOf` names the first), and the classes
+ * not listed at all are `missing`; both are settled once every graph is decided (settleEnumeration).
+ */
+import { isSimple, type Graph } from "../graph";
+import { Budget, type Verdict } from "../verdict";
+import { parseBound } from "../arithmetic/bound";
+import { writeGraph6 } from "../input/graph6";
+import { canonicalKeyOf } from "../families/canonical-label";
+import { enumerateConnected } from "../families/enumeration";
+import { isConnected } from "../families/structure";
+import { isForest } from "../spectral/tree-inertia";
+
+export interface EnumerationBatchStatement {
+  kind: "enumeration-exactly";
+  setting: "tree" | "simple";
+  vertices: number;
+  /** Optional ρ condition; without it, every class on `vertices` vertices. */
+  op?: "<" | "<=";
+  bound?: string;
+}
+
+/** Largest n: 23,724 trees on 18 vertices (OEIS A000055); 11,117 connected graphs on 8 vertices (OEIS A001349). */
+export const ENUMERATION_BATCH_MAX = { tree: 18, simple: 8 } as const;
+
+export interface MemberCertificate {
+  kind: "enumeration-member";
+  /** The class's place (0-based) in the enumeration, and the enumeration's size. */
+  index: number;
+  of: number;
+}
+
+export interface Enumeration {
+  graphs: Graph[];
+  index: Map<string, number>;
+}
+
+const cache = new Map<string, Enumeration>();
+
+export function enumerationWords(s: EnumerationBatchStatement): string {
+  const what = s.setting === "tree" ? "trees" : "connected simple graphs";
+  const rho = s.op && s.bound ? ` with ρ(G) ${s.op === "<" ? "<" : "≤"} ${parseBound(s.bound).text}` : "";
+  return `${what} on ${s.vertices} vertices${rho}`;
+}
+
+/** The enumeration (cached per statement); throws on a statement out of range. */
+export function enumerationOf(s: EnumerationBatchStatement, budget = new Budget(1e10)): Enumeration {
+  const max = ENUMERATION_BATCH_MAX[s.setting];
+  if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max)
+    throw new Error(`the ${s.setting === "tree" ? "trees" : "connected simple graphs"} can be enumerated on 1 to ${max} vertices`);
+  if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
+  const key = JSON.stringify([s.setting, s.vertices, s.op ?? null, s.bound ?? null]);
+  const hit = cache.get(key);
+  if (hit) return hit;
+  // Without a ρ condition: ρ(G) ≤ Δ(G) ≤ n − 1 < n for every graph on n vertices (Perron–Frobenius; common knowledge).
+  const bound = parseBound(s.bound ?? String(s.vertices));
+  const graphs = enumerateConnected(s.vertices, s.op ?? "<", bound, budget, { setting: s.setting }).levels[s.vertices - 1] ?? [];
+  const e = { graphs, index: new Map(graphs.map((g, i) => [canonicalKeyOf(g), i])) };
+  if (cache.size > 8) cache.clear();
+  cache.set(key, e);
+  return e;
+}
+
+/** "G is one of the …": membership of one listed graph (duplicates are settled over the whole list). */
+export function checkMember(s: EnumerationBatchStatement, g: Graph, budget: Budget): Verdict<MemberCertificate> {
+  const e = enumerationOf(s);
+  const statement = `G is one of the ${enumerationWords(s)}`;
+  const method = "canonical form looked up in the enumeration by canonical augmentation (McKay 1998)";
+  const no = (reason: string): Verdict<MemberCertificate> => ({ status: "refuted", statement, method, reason });
+  if (g.n !== s.vertices) return no(`G has ${g.n} vertices, not ${s.vertices}`);
+  if (!isSimple(g)) return no("G has a loop or a multiple edge");
+  if (isConnected(g, budget).status !== "verified") return no("G is not connected");
+  if (s.setting === "tree" && !isForest(g)) return no("G has a cycle");
+  const index = e.index.get(canonicalKeyOf(g, budget));
+  if (index === undefined) return no(`G is connected on ${s.vertices} vertices but not in the enumeration: ρ(G) is not within the bound`);
+  return {
+    status: "verified",
+    statement,
+    method,
+    reason: `G is isomorphic to graph ${index + 1} of the ${e.graphs.length} enumerated (${writeGraph6(e.graphs[index])}): equal canonical forms`,
+    certificate: { kind: "enumeration-member", index, of: e.graphs.length },
+  };
+}
+
+/** Re-checks a membership certificate: the enumeration's graph at `index` has G's canonical form. */
+export function recheckMember(s: EnumerationBatchStatement, g: Graph, certificate: unknown): string | null {
+  const c = certificate as Partial<MemberCertificate> | null;
+  const e = enumerationOf(s);
+  if (!c || c.kind !== "enumeration-member" || !Number.isInteger(c.index) || c.index! < 0 || c.index! >= e.graphs.length)
+    return "not a membership certificate with a place in the enumeration";
+  if (c.of !== e.graphs.length) return `the enumeration has ${e.graphs.length} graphs, the certificate says ${String(c.of)}`;
+  return g.n === e.graphs[c.index!].n && canonicalKeyOf(g) === canonicalKeyOf(e.graphs[c.index!])
+    ? null
+    : `G is not isomorphic to graph ${c.index! + 1} of the enumeration`;
+}
+
+export interface EnumerationSettlement {
+  /** Later listings of a class already listed: entry → the line of the first listing. */
+  duplicates: Array<{ entry: number; firstLine: number }>;
+  /** Classes of the enumeration not listed, in graph6. */
+  missing: string[];
+}
+
+/** Over the whole list, in list order: repeated classes and classes not listed. */
+export function settleEnumeration(
+  s: EnumerationBatchStatement,
+  results: ReadonlyArray<{ entry: number; line: number; verdict: string; certificate: unknown }>,
+): EnumerationSettlement {
+  const e = enumerationOf(s);
+  const first = new Map<number, number>();
+  const duplicates: EnumerationSettlement["duplicates"] = [];
+  for (const r of [...results].sort((a, b) => a.entry - b.entry)) {
+    const c = r.certificate as Partial<MemberCertificate> | null;
+    if (!c || c.kind !== "enumeration-member" || typeof c.index !== "number") continue;
+    const seen = first.get(c.index);
+    if (seen === undefined) first.set(c.index, r.line);
+    else duplicates.push({ entry: r.entry, firstLine: seen });
+  }
+  const missing = e.graphs.flatMap((g, i) => (first.has(i) ? [] : [writeGraph6(g)]));
+  return { duplicates, missing };
+}
+
+export const duplicateReason = (firstLine: number) => `G is isomorphic to the graph listed at line ${firstLine}: the list must name each class once`;

@@ -1,0 +1,15 @@
+/**
+ * The "coverage" claim kind: a case split covers every graph of an enumeration setting up to N
+ * vertices (families/coverage.ts). The conditions are in the claim, so the offline checker re-checks
+ * it from the bundle alone.
+ */
+import type { CoverageClaim } from "./claim-schema";
+import type { ClaimHandler } from "./claim-support";
+import { checkCoverage, coverageStatement, recheckCoverage } from "../families/coverage";
+
+export const COVERAGE_HANDLER: ClaimHandler<CoverageClaim> = {
+  statement: (c) => coverageStatement(c.maxVertices, c.cases, c.setting),
+  limit: () => undefined, // maxVertices and the number of sub-cases are capped by validateClaim
+  verify: (c, _inputs, budget) => checkCoverage(c.maxVertices, c.cases, budget, c.setting),
+  recheck: (c, _inputs, outcome, evidence, budget) => recheckCoverage(c.maxVertices, c.cases, outcome, evidence, budget, c.setting),
+};

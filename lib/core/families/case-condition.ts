@@ -1,0 +1,353 @@
+/**
+ * Machine-readable case conditions: a small language of graph properties that a case of a
+ * classification proof may carry beside its prose condition, and its exact evaluator.
+ *
+ * A condition is JSON:
+ *  - `{ "predicate": "max-degree", "relation": "<=", "value": 2 }`; relations "<", "<=", "=", ">=", ">";
+ *    numeric predicates: "max-degree" (Δ), "min-degree" (δ), "branch-vertices" (vertices of degree ≥ 3),
+ *    "vertices" (order), "edges" (size);
+ *  - `{ "predicate": "tree" }`, "connected", "bipartite", "has-cycle" (contains a cycle), "path" (a
+ *    connected graph with Δ ≤ 2 and no cycle);
+ *  - `{ "predicate": "leg-lengths", "value": [1, 2, 5] }`: a tree with exactly one branch vertex whose
+ *    legs (paths from it to the leaves) have exactly these lengths, in any order;
+ *  - `{ "predicate": "contains", "graph": "bQ" }` (graph6 text) or `"graph": { "format": "edges", "text": "0 1\n1 2" }`,
+ *    optional `"induced": true`: the pattern is a subgraph (induced subgraph) of G;
+ *  - `{ "and": [c1, c2, …] }`, `{ "or": [c1, …] }`, `{ "not": c }`.
+ * Exclusion of a subgraph is `{ "not": { "predicate": "contains", … } }`.
+ *
+ * Every answer is exact (integer degrees, graph search); framework-free, like all of lib/core.
+ */
+import { GraphError, type Graph } from "../graph";
+import { parseGraph } from "../input/parse";
+import { writeGraph6 } from "../input/graph6";
+import { NumberFormatError } from "../arithmetic/rational";
+import { Budget } from "../verdict";
+import { sweep, findCycle } from "./structure";
+import { decideContainment } from "../subgraph/subgraph";
+
+export const CONDITION_RELATIONS = ["<", "<=", "=", ">=", ">"] as const;
+export type ConditionRelation = (typeof CONDITION_RELATIONS)[number];
+export const NUMERIC_PREDICATES = ["max-degree", "min-degree", "branch-vertices", "vertices", "edges"] as const;
+export type NumericPredicate = (typeof NUMERIC_PREDICATES)[number];
+export const PLAIN_PREDICATES = ["tree", "connected", "bipartite", "has-cycle", "path"] as const;
+export type PlainPredicate = (typeof PLAIN_PREDICATES)[number];
+const ALL_PREDICATES = [...NUMERIC_PREDICATES, ...PLAIN_PREDICATES, "leg-lengths", "contains"] as const;
+
+/** Deepest nesting and most nodes a condition may have (it is evaluated once per enumerated graph). */
+export const CONDITION_MAX_DEPTH = 16;
+export const CONDITION_MAX_NODES = 200;
+/** Largest pattern of a "contains" condition. */
+export const CONDITION_PATTERN_MAX_VERTICES = 30;
+
+export type CaseCondition =
+  | { readonly predicate: NumericPredicate; readonly relation: ConditionRelation; readonly value: number }
+  | { readonly predicate: PlainPredicate }
+  | { readonly predicate: "leg-lengths"; readonly value: readonly number[] }
+  | { readonly predicate: "contains"; readonly graph: { readonly format: string; readonly text: string }; readonly induced?: boolean }
+  | { readonly and: readonly CaseCondition[] }
+  | { readonly or: readonly CaseCondition[] }
+  | { readonly not: CaseCondition };
+
+/** A malformed condition: `path` is the JSON path of the offending value, e.g. `$.and[1].value`. */
+export class ConditionError extends Error {
+  constructor(
+    readonly path: string,
+    readonly detail: string,
+  ) {
+    super(`${path}: ${detail}`);
+    this.name = "ConditionError";
+  }
+}
+
+const GRAPH_FORMATS = ["edges", "matrix", "graph6", "sparse6", "named"] as const;
+
+function shown(v: unknown): string {
+  if (v === null) return "null";
+  if (Array.isArray(v)) return "an array";
+  if (typeof v === "string") return v.length > 40 ? `a string of length ${v.length}` : `"${v}"`;
+  return typeof v === "object" ? "an object" : `${typeof v} ${String(v)}`;
+}
+
+function nonNegativeInteger(v: unknown, path: string, min = 0): number {
+  if (typeof v !== "number" || !Number.isSafeInteger(v) || v < min) throw new ConditionError(path, `expected an integer ≥ ${min}, got ${shown(v)}`);
+  return v;
+}
+
+const EXAMPLE = `e.g. { "predicate": "max-degree", "relation": "<=", "value": 2 }, { "predicate": "tree" }, { "not": { "predicate": "contains", "graph": "Bw" } } or { "and": [ … ] }`;
+
+/**
+ * Checks a parsed JSON value against the condition language and returns it normalised (pattern
+ * graphs read and re-encoded; unknown keys refused). `path` prefixes every error path.
+ */
+export function validateCondition(json: unknown, path = "$"): CaseCondition {
+  let nodes = 0;
+  const walk = (v: unknown, p: string, depth: number): CaseCondition => {
+    if (++nodes > CONDITION_MAX_NODES) throw new ConditionError(p, `a condition has at most ${CONDITION_MAX_NODES} parts`);
+    if (depth > CONDITION_MAX_DEPTH) throw new ConditionError(p, `a condition nests at most ${CONDITION_MAX_DEPTH} deep`);
+    if (typeof v !== "object" || v === null || Array.isArray(v)) throw new ConditionError(p, `expected a condition object (${EXAMPLE}), got ${shown(v)}`);
+    const o = v as Record<string, unknown>;
+    const keys = Object.keys(o);
+    const only = (allowed: readonly string[]) => {
+      for (const k of keys) if (!allowed.includes(k)) throw new ConditionError(`${p}.${k}`, `unknown field here; allowed: ${allowed.join(", ")}`);
+    };
+    for (const op of ["and", "or"] as const)
+      if (op in o) {
+        only([op]);
+        const list = o[op];
+        if (!Array.isArray(list) || list.length === 0) throw new ConditionError(`${p}.${op}`, `expected a non-empty array of conditions, got ${shown(list)}`);
+        const parts = list.map((c, i) => walk(c, `${p}.${op}[${i}]`, depth + 1));
+        return op === "and" ? { and: parts } : { or: parts };
+      }
+    if ("not" in o) {
+      only(["not"]);
+      return { not: walk(o.not, `${p}.not`, depth + 1) };
+    }
+    if (!("predicate" in o)) throw new ConditionError(p, `expected "predicate", "and", "or" or "not" (${EXAMPLE})`);
+    const predicate = o.predicate;
+    if (typeof predicate !== "string" || !(ALL_PREDICATES as readonly string[]).includes(predicate))
+      throw new ConditionError(`${p}.predicate`, `expected one of ${ALL_PREDICATES.map((a) => `"${a}"`).join(", ")}, got ${shown(predicate)}`);
+    if ((NUMERIC_PREDICATES as readonly string[]).includes(predicate)) {
+      only(["predicate", "relation", "value"]);
+      const relation = o.relation;
+      if (typeof relation !== "string" || !(CONDITION_RELATIONS as readonly string[]).includes(relation))
+        throw new ConditionError(`${p}.relation`, `expected one of ${CONDITION_RELATIONS.map((a) => `"${a}"`).join(", ")}, got ${shown(relation)}`);
+      return { predicate: predicate as NumericPredicate, relation: relation as ConditionRelation, value: nonNegativeInteger(o.value, `${p}.value`) };
+    }
+    if ((PLAIN_PREDICATES as readonly string[]).includes(predicate)) {
+      only(["predicate"]);
+      return { predicate: predicate as PlainPredicate };
+    }
+    if (predicate === "leg-lengths") {
+      only(["predicate", "value"]);
+      if (!Array.isArray(o.value) || o.value.length < 3)
+        throw new ConditionError(`${p}.value`, `expected the lengths of at least 3 legs, e.g. [1, 2, 5], got ${shown(o.value)}`);
+      const legs = o.value.map((x, i) => nonNegativeInteger(x, `${p}.value[${i}]`, 1)).sort((a, b) => a - b);
+      return { predicate: "leg-lengths", value: legs };
+    }
+    only(["predicate", "graph", "induced"]);
+    let format: string, text: string;
+    if (typeof o.graph === "string") [format, text] = ["graph6", o.graph];
+    else if (typeof o.graph === "object" && o.graph !== null && !Array.isArray(o.graph)) {
+      const g = o.graph as Record<string, unknown>;
+      for (const k of Object.keys(g))
+        if (k !== "format" && k !== "text") throw new ConditionError(`${p}.graph.${k}`, `unknown field; a graph is { "format", "text" }`);
+      if (typeof g.format !== "string" || !(GRAPH_FORMATS as readonly string[]).includes(g.format))
+        throw new ConditionError(`${p}.graph.format`, `expected one of ${GRAPH_FORMATS.map((a) => `"${a}"`).join(", ")}, got ${shown(g.format)}`);
+      if (typeof g.text !== "string") throw new ConditionError(`${p}.graph.text`, `expected a string, got ${shown(g.text)}`);
+      [format, text] = [g.format, g.text];
+    } else
+      throw new ConditionError(`${p}.graph`, `expected the pattern as graph6 text ("Bw") or { "format": "edges", "text": "0 1\\n1 2" }, got ${shown(o.graph)}`);
+    if (o.induced !== undefined && typeof o.induced !== "boolean") throw new ConditionError(`${p}.induced`, `expected true or false, got ${shown(o.induced)}`);
+    const textPath = typeof o.graph === "string" ? `${p}.graph` : `${p}.graph.text`;
+    let h: Graph;
+    try {
+      h = parseGraph(text, format as (typeof GRAPH_FORMATS)[number]);
+    } catch (e) {
+      if (e instanceof GraphError || e instanceof NumberFormatError) throw new ConditionError(textPath, e.message);
+      throw e;
+    }
+    if (h.n === 0) throw new ConditionError(textPath, "the pattern has no vertices");
+    if (h.n > CONDITION_PATTERN_MAX_VERTICES)
+      throw new ConditionError(textPath, `a pattern has at most ${CONDITION_PATTERN_MAX_VERTICES} vertices, got ${h.n}`);
+    if (h.edges.some((e) => e.u === e.v || e.m !== 1)) throw new ConditionError(textPath, "the pattern must be a simple graph (no loops, no multiple edges)");
+    return { predicate: "contains", graph: { format: "graph6", text: writeGraph6(h) }, ...(o.induced === true ? { induced: true } : {}) };
+  };
+  return walk(json, path, 0);
+}
+
+/** Parses JSON text and validates it; a syntax error is reported at `path`. */
+export function parseCondition(text: string, path = "$"): CaseCondition {
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (e) {
+    throw new ConditionError(path, `not valid JSON: ${(e as Error).message}`);
+  }
+  return validateCondition(json, path);
+}
+
+const SYMBOL: Record<ConditionRelation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
+const NAME: Record<NumericPredicate, string> = {
+  "max-degree": "Δ(G)",
+  "min-degree": "δ(G)",
+  "branch-vertices": "#branch vertices",
+  vertices: "|V(G)|",
+  edges: "|E(G)|",
+};
+const PLAIN_WORDS: Record<PlainPredicate, string> = {
+  tree: "G is a tree",
+  connected: "G is connected",
+  bipartite: "G is bipartite",
+  "has-cycle": "G contains a cycle",
+  path: "G is a path",
+};
+
+/** The condition in words and symbols, e.g. "Δ(G) ≤ 2 and not (G ⊇ Bw)". */
+export function describeCondition(c: CaseCondition): string {
+  const inner = (x: CaseCondition) => ("and" in x || "or" in x ? `(${describeCondition(x)})` : describeCondition(x));
+  if ("and" in c) return c.and.map(inner).join(" and ");
+  if ("or" in c) return c.or.map(inner).join(" or ");
+  if ("not" in c) return `not ${"predicate" in c.not ? `(${describeCondition(c.not)})` : inner(c.not)}`;
+  switch (c.predicate) {
+    case "leg-lengths":
+      return `G is a star-like tree with legs ${c.value.join(", ")}`;
+    case "contains":
+      return `G contains ${c.graph.text} (graph6) as ${c.induced ? "an induced" : "a"} subgraph`;
+    default:
+      return "relation" in c ? `${NAME[c.predicate]} ${SYMBOL[c.relation]} ${c.value}` : PLAIN_WORDS[c.predicate];
+  }
+}
+
+/** What is computed once per graph and shared by every condition evaluated on it. */
+export class ConditionContext {
+  private degrees?: number[];
+  private sweepResult?: ReturnType<typeof sweep>;
+  private patterns = new Map<string, Graph>();
+  private answers = new Map<string, boolean>();
+  constructor(
+    readonly g: Graph,
+    readonly budget: Budget,
+  ) {}
+  degreeList(): number[] {
+    // Distinct neighbours, as degree() in graph.ts counts them (loops and multiplicities not counted).
+    if (!this.degrees) {
+      const d = new Array<number>(this.g.n).fill(0);
+      for (const e of this.g.edges)
+        if (e.u !== e.v) {
+          d[e.u]++;
+          d[e.v]++;
+        }
+      this.degrees = d;
+    }
+    return this.degrees;
+  }
+  swept() {
+    return (this.sweepResult ??= sweep(this.g, this.budget));
+  }
+  connected(): boolean {
+    return this.g.n > 0 && this.swept().componentCount === 1;
+  }
+  acyclic(): boolean {
+    return this.memo("acyclic", () => findCycle(this.g, this.swept(), this.budget) === null);
+  }
+  memo(key: string, f: () => boolean): boolean {
+    let r = this.answers.get(key);
+    if (r === undefined) this.answers.set(key, (r = f()));
+    return r;
+  }
+  pattern(text: string): Graph {
+    let h = this.patterns.get(text);
+    if (!h) this.patterns.set(text, (h = parseGraph(text, "graph6")));
+    return h;
+  }
+}
+
+function compare(x: number, r: ConditionRelation, k: number): boolean {
+  switch (r) {
+    case "<":
+      return x < k;
+    case "<=":
+      return x <= k;
+    case "=":
+      return x === k;
+    case ">=":
+      return x >= k;
+    case ">":
+      return x > k;
+  }
+}
+
+function bipartite(g: Graph, budget: Budget): boolean {
+  const colour = new Int8Array(g.n).fill(-1);
+  const nbrs: number[][] = Array.from({ length: g.n }, () => []);
+  for (const e of g.edges) {
+    if (e.u === e.v) return false;
+    nbrs[e.u].push(e.v);
+    nbrs[e.v].push(e.u);
+  }
+  for (let s = 0; s < g.n; s++) {
+    if (colour[s] >= 0) continue;
+    colour[s] = 0;
+    const stack = [s];
+    while (stack.length) {
+      const u = stack.pop()!;
+      budget.tick();
+      for (const w of nbrs[u]) {
+        if (colour[w] < 0) {
+          colour[w] = 1 - colour[u];
+          stack.push(w);
+        } else if (colour[w] === colour[u]) return false;
+      }
+    }
+  }
+  return true;
+}
+
+/** Leg lengths of a tree with exactly one branch vertex (sorted), or null when G is not such a tree. */
+function starLegs(ctx: ConditionContext): number[] | null {
+  const g = ctx.g;
+  if (!ctx.connected() || g.edges.length !== g.n - 1) return null;
+  const deg = ctx.degreeList();
+  const branch = deg.flatMap((d, v) => (d >= 3 ? [v] : []));
+  if (branch.length !== 1) return null;
+  const nbrs: number[][] = Array.from({ length: g.n }, () => []);
+  for (const e of g.edges) {
+    nbrs[e.u].push(e.v);
+    nbrs[e.v].push(e.u);
+  }
+  const centre = branch[0];
+  const legs = nbrs[centre].map((first) => {
+    let [prev, cur, length] = [centre, first, 1];
+    while (deg[cur] === 2) {
+      const next = nbrs[cur][0] === prev ? nbrs[cur][1] : nbrs[cur][0];
+      [prev, cur, length] = [cur, next, length + 1];
+      ctx.budget.tick();
+    }
+    return length;
+  });
+  return legs.sort((a, b) => a - b);
+}
+
+/** Evaluates a condition on G exactly. */
+export function evaluateCondition(c: CaseCondition, g: Graph | ConditionContext, budget = new Budget()): boolean {
+  const ctx = g instanceof ConditionContext ? g : new ConditionContext(g, budget);
+  if ("and" in c) return c.and.every((x) => evaluateCondition(x, ctx));
+  if ("or" in c) return c.or.some((x) => evaluateCondition(x, ctx));
+  if ("not" in c) return !evaluateCondition(c.not, ctx);
+  const G = ctx.g;
+  switch (c.predicate) {
+    case "max-degree":
+      return compare(Math.max(0, ...ctx.degreeList()), c.relation, c.value);
+    case "min-degree":
+      return compare(G.n === 0 ? 0 : Math.min(...ctx.degreeList()), c.relation, c.value);
+    case "branch-vertices":
+      return compare(ctx.degreeList().filter((d) => d >= 3).length, c.relation, c.value);
+    case "vertices":
+      return compare(G.n, c.relation, c.value);
+    case "edges":
+      return compare(
+        G.edges.reduce((s, e) => s + e.m, 0),
+        c.relation,
+        c.value,
+      );
+    case "connected":
+      return ctx.connected();
+    case "tree":
+      return ctx.connected() && ctx.acyclic();
+    case "has-cycle":
+      return !ctx.acyclic();
+    case "path":
+      return ctx.connected() && ctx.acyclic() && ctx.degreeList().every((d) => d <= 2);
+    case "bipartite":
+      return ctx.memo("bipartite", () => bipartite(G, ctx.budget));
+    case "leg-lengths": {
+      const legs = starLegs(ctx);
+      return legs !== null && legs.length === c.value.length && legs.every((l, i) => l === c.value[i]);
+    }
+    case "contains":
+      return ctx.memo(
+        `contains:${c.induced ? "i" : "s"}:${c.graph.text}`,
+        () => "embedding" in decideContainment(ctx.pattern(c.graph.text), G, c.induced === true, ctx.budget),
+      );
+  }
+}
