@@ -17,6 +17,8 @@ import { listReferees } from "./rounds";
 export interface ReminderRunOptions {
   /** Tests only: throw after this many reminders were committed, before any is delivered (a crash half-way). */
   crashAfter?: number;
+  /** Only this proof's rounds (an operator re-running one proof's reminders; tests that must not touch other proofs). */
+  proofId?: number;
 }
 
 const day = (d: Date) => d.toISOString().slice(0, 10);
@@ -42,7 +44,7 @@ function reminderText(kind: ReminderKind, title: string, round: number, dueAt: D
 /** Queues every reminder due now and delivers the queue; returns how many reminders were queued by this run. */
 export async function sendDueReminders(now = new Date(), options: ReminderRunOptions = {}): Promise<{ queued: number }> {
   const { ReviewRound, RoundReferee, RefereeReport, RoundReminder, Proof } = models();
-  const rounds = await ReviewRound.findAll({ where: { closedAt: null } });
+  const rounds = await ReviewRound.findAll({ where: options.proofId === undefined ? { closedAt: null } : { closedAt: null, proofId: options.proofId } });
   let queued = 0;
   for (const round of rounds) {
     const proof = await Proof.findByPk(round.proofId, { attributes: ["id", "title", "remindBeforeDays", "remindAfterDays"] });

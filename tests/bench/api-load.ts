@@ -90,7 +90,10 @@ export async function startStack(): Promise<Stack> {
     }
     server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] });
     for (let i = 0; i < workerCount; i++)
-      workers.push(spawn("node_modules/.bin/tsx", ["scripts/worker.ts"], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] }));
+      // As `npm run worker`: the worker imports server-only modules, which need the react-server condition.
+      workers.push(
+        spawn("node_modules/.bin/tsx", ["--conditions=react-server", "scripts/worker.ts"], { env, detached: true, stdio: ["ignore", "ignore", "inherit"] }),
+      );
     console.log(`web server and ${workerCount} verification worker process(es)`);
     const url = `http://localhost:${port}`;
     await waitForHealth(url, 90);

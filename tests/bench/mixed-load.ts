@@ -15,6 +15,7 @@
  * instead, and CAIRN_BENCH_SKIP_BUILD=1 CAIRN_BENCH_DIST_DIR=.next reuses the build of the last `npm test`.
  * Clients run in this one Node process (undici's fetch, one connection per client at a time).
  */
+import { loadavg } from "node:os";
 import type { BenchOptions, BenchSection } from "./run";
 import { api, signIn, startStack } from "./api-load";
 
@@ -123,7 +124,12 @@ async function run(options: BenchOptions): Promise<void> {
       }
     }
 
-    console.log(`${clients} clients for ${seconds} s …`);
+    // The machine may be shared: its load average says how much of the two figures below is the app's own.
+    const load = () =>
+      loadavg()
+        .map((l) => l.toFixed(1))
+        .join(" / ");
+    console.log(`${clients} clients for ${seconds} s … (load average before: ${load()})`);
     const started = performance.now();
     await Promise.all(
       steps.map(async (s, k) => {
@@ -132,12 +138,14 @@ async function run(options: BenchOptions): Promise<void> {
           try {
             await one(kind, s, k, i);
           } catch (e) {
-            errors.push(`${kind}: ${e instanceof Error ? e.message : String(e)}`);
+            const cause = e instanceof Error && e.cause instanceof Error ? ` (${(e.cause as NodeJS.ErrnoException).code ?? e.cause.message})` : "";
+            errors.push(`${kind}: ${e instanceof Error ? e.message : String(e)}${cause}`);
           }
         }
       }),
     );
     const elapsed = (performance.now() - started) / 1000;
+    console.log(`  load average after: ${load()}`);
 
     // Row counts read back through the API: every acknowledged write, nothing else.
     const claims = ((await (await fetch(`${url}/api/proofs/${proof.id}/claims`, { headers: { cookie } })).json()) as { claims: unknown[] }).claims.length;
