@@ -5,6 +5,7 @@ import { jsonFetcher } from "@/components/proof/api-client";
 import type { RevisionDiff, RevisionView } from "@/lib/data/steps";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { remarkMarkRanges } from "@/lib/review/word-marks";
+import { COMPARE_ANCHOR } from "@/lib/review/compare-link";
 
 type Revision = Omit<RevisionView, "body">;
 
@@ -12,10 +13,21 @@ type Revision = Omit<RevisionView, "body">;
  * The step's revisions, and any two of them compared: both typeset side by side with the changed words
  * marked (struck through on the older side, underlined on the newer), and the change of the claim set.
  */
-export function RevisionHistory({ proofId, stepId, revisions }: { proofId: number; stepId: number; revisions: Revision[] }) {
+export function RevisionHistory({
+  proofId,
+  stepId,
+  revisions,
+  initial,
+}: {
+  proofId: number;
+  stepId: number;
+  revisions: Revision[];
+  /** The two revisions to compare first (from the page's `?compare=`, lib/review/compare-link.ts); else the last two. */
+  initial?: { from: number; to: number } | null;
+}) {
   const newest = revisions[0]?.number ?? 1;
-  const [from, setFrom] = useState(Math.max(1, newest - 1));
-  const [to, setTo] = useState(newest);
+  const [from, setFrom] = useState(initial?.from ?? Math.max(1, newest - 1));
+  const [to, setTo] = useState(initial?.to ?? newest);
   const key = revisions.length > 1 && from !== to ? `/api/proofs/${proofId}/steps/${stepId}/diff?from=${from}&to=${to}` : null;
   const { data, error, isLoading } = useSWR<{ diff: RevisionDiff }>(key, jsonFetcher);
   const select = (value: number, set: (n: number) => void, label: string) => (
@@ -33,7 +45,7 @@ export function RevisionHistory({ proofId, stepId, revisions }: { proofId: numbe
     </select>
   );
   return (
-    <section className="mt-8" aria-labelledby="history-heading" data-testid="revision-history">
+    <section id={COMPARE_ANCHOR} className="mt-8 scroll-mt-4" aria-labelledby="history-heading" data-testid="revision-history">
       <h2 id="history-heading" className="text-xl font-semibold">
         History
       </h2>

@@ -1,5 +1,5 @@
 "use client";
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, apiFetch } from "./api-client";
 import { AddCaseForm } from "./add-case-form";
@@ -9,7 +9,10 @@ import { useMoveTargets } from "./case-targets";
 
 type Pending = { what: "delete" } | { what: "move"; parentId: number | null };
 
-/** An author's controls on one case: sub-case, step, reorder, move under another case, delete (confirmed when it holds work). */
+/**
+ * An author's controls on one case, gathered in one menu (a native <details>, so it opens by keyboard and works
+ * before the script loads): step, sub-case, edit, reorder, move under another case, delete (confirmed when it holds work).
+ */
 export function CaseActions({
   proofId,
   caseId,
@@ -31,7 +34,7 @@ export function CaseActions({
   const [open, setOpen] = useState<"case" | "step" | "edit" | null>(null);
   const [confirming, setConfirming] = useState<{ pending: Pending; message: string } | null>(null);
   const [error, setError] = useState<string | null>(null);
-  // The menu's options are built when it is first focused: the page carries the list of cases once, not once per case.
+  // The menu's choices (and the "move under" options) are built when it is first opened: the page carries the list of cases once, not once per case.
   const [menuOpened, setMenuOpened] = useState(false);
   const targets = useMoveTargets(caseId, number);
   const url = `/api/proofs/${proofId}/cases/${caseId}`;
@@ -50,46 +53,76 @@ export function CaseActions({
     }
   };
 
+  const menu = useRef<HTMLDetailsElement>(null);
+  // Opened before the script ran: show the choices as soon as it runs.
+  useEffect(() => {
+    if (menu.current?.open) setMenuOpened(true);
+  }, []);
+  /** Each choice closes the menu: the form or the confirmation it opens shows below it. */
+  const choose = (action: () => void) => () => {
+    if (menu.current) menu.current.open = false;
+    action();
+  };
   const button = "rounded border border-stone-300 px-2 py-0.5 hover:bg-stone-100 disabled:opacity-40";
+  const item = "rounded px-2 py-1 text-left hover:bg-stone-100 disabled:opacity-40";
   return (
     <div className="mt-2 text-xs" data-testid={`case-actions-${number}`}>
-      <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className={button} onClick={() => setOpen(open === "step" ? null : "step")}>
-          + Step
-        </button>
-        <button type="button" className={button} onClick={() => setOpen(open === "case" ? null : "case")}>
-          + Sub-case
-        </button>
-        <button type="button" className={button} onClick={() => setOpen(open === "edit" ? null : "edit")}>
-          ✎ Edit
-        </button>
-        <button type="button" className={button} disabled={first} onClick={() => run({ what: "reorder", move: "up" })} aria-label={`move case ${number} up`}>
-          ↑
-        </button>
-        <button type="button" className={button} disabled={last} onClick={() => run({ what: "reorder", move: "down" })} aria-label={`move case ${number} down`}>
-          ↓
-        </button>
-        <select
-          className="rounded border border-stone-300 bg-white px-1 py-0.5"
-          aria-label={`move case ${number} under`}
-          value=""
-          onFocus={() => setMenuOpened(true)}
-          onPointerDown={() => setMenuOpened(true)}
-          onChange={(e) => run({ what: "move", parentId: e.target.value === "top" ? null : Number(e.target.value) })}
-        >
-          <option value="">move under…</option>
-          <option value="top">top level</option>
-          {menuOpened &&
-            targets.map((t) => (
-              <option key={t.id} value={t.id}>
-                → {t.number}
-              </option>
-            ))}
-        </select>
-        <button type="button" className={`${button} text-refuted`} onClick={() => run({ what: "delete" })}>
-          ✗ Delete
-        </button>
-      </div>
+      <details ref={menu} className="inline-block" onToggle={(e) => e.currentTarget.open && setMenuOpened(true)}>
+        <summary className="cursor-pointer rounded border border-stone-300 px-2 py-0.5 text-stone-700 hover:bg-stone-100">Change case {number} ▾</summary>
+        {/* The choices are rendered once the menu is first opened: an outline of many cases carries one summary per case. */}
+        {menuOpened && (
+          <div
+            className="mt-1 flex flex-wrap items-center gap-1 rounded border border-stone-200 bg-white p-1"
+            role="group"
+            aria-label={`Changes to case ${number}`}
+          >
+            <button type="button" className={item} onClick={choose(() => setOpen(open === "step" ? null : "step"))}>
+              Add a step
+            </button>
+            <button type="button" className={item} onClick={choose(() => setOpen(open === "case" ? null : "case"))}>
+              Add a sub-case
+            </button>
+            <button type="button" className={item} onClick={choose(() => setOpen(open === "edit" ? null : "edit"))}>
+              Edit title and condition
+            </button>
+            <button
+              type="button"
+              className={item}
+              disabled={first}
+              onClick={choose(() => run({ what: "reorder", move: "up" }))}
+              aria-label={`move case ${number} up`}
+            >
+              ↑ Move up
+            </button>
+            <button
+              type="button"
+              className={item}
+              disabled={last}
+              onClick={choose(() => run({ what: "reorder", move: "down" }))}
+              aria-label={`move case ${number} down`}
+            >
+              ↓ Move down
+            </button>
+            <select
+              className="rounded border border-stone-300 bg-white px-1 py-0.5"
+              aria-label={`move case ${number} under`}
+              value=""
+              onChange={(e) => choose(() => run({ what: "move", parentId: e.target.value === "top" ? null : Number(e.target.value) }))()}
+            >
+              <option value="">Move under…</option>
+              <option value="top">top level</option>
+              {targets.map((t) => (
+                <option key={t.id} value={t.id}>
+                  → {t.number}
+                </option>
+              ))}
+            </select>
+            <button type="button" className={`${item} text-refuted`} onClick={choose(() => run({ what: "delete" }))}>
+              Delete case…
+            </button>
+          </div>
+        )}
+      </details>
       {confirming && (
         <div role="alertdialog" aria-label="confirm" className="mt-2 rounded border border-undecided/50 bg-amber-50 p-2">
           <p>⚠ {confirming.message}</p>

@@ -1,5 +1,6 @@
 /** States of the review workflow, always as a glyph and a word (never colour alone). Case states: components/proof/case-state-badge.tsx. */
 import type { DisputeState, ProofState } from "@/lib/review/states";
+import { proofStandingText, type ProofStanding } from "@/lib/review/rounds";
 import { Mark } from "@/components/ui/mark";
 
 function Badge({ glyph, word, className, data }: { glyph: string; word: string; className: string; data: Record<string, string> }) {
@@ -29,4 +30,15 @@ export function VouchBadge({ stale }: { stale: boolean }) {
   ) : (
     <Badge glyph="◆" word="vouched" className="text-verified" data={{ "data-approval": "current" }} />
   );
+}
+
+const standingLook: Record<ProofStanding["stage"], { glyph: string; className: string }> = {
+  drafting: { glyph: "✎", className: "text-stone-600" },
+  "in review": { glyph: "◐", className: "text-lichen-700" },
+  decided: { glyph: "§", className: "text-stone-800" },
+};
+
+/** Where a proof stands in refereeing: drafting, in review (round N), decided (with the decision). */
+export function ProofStandingMark({ standing }: { standing: ProofStanding }) {
+  return <Badge {...standingLook[standing.stage]} word={proofStandingText(standing)} data={{ "data-proof-standing": standing.stage }} />;
 }

@@ -6,7 +6,9 @@
  */
 import { useState } from "react";
 import useSWR from "swr";
-import { useRouter } from "next/navigation";
+import Link from "next/link";
+import { usePathname, useRouter } from "next/navigation";
+import { compareQuery } from "@/lib/review/compare-link";
 import type { StepReviewView } from "@/lib/data/review-panel";
 import { VouchBadge } from "./badges";
 import { CommentBox, CommentThread } from "./comment-thread";
@@ -22,9 +24,10 @@ export interface StepReviewSlotProps {
 
 const fetcher = async (url: string): Promise<StepReviewView> => (await apiFetch<{ review: StepReviewView }>(url)).review;
 
-export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotProps) {
+export function StepReviewSlot({ proofId, stepId, revisionId, viewer }: StepReviewSlotProps) {
   const base = `/api/proofs/${proofId}/steps/${stepId}`;
   const router = useRouter();
+  const pathname = usePathname();
   const { data, error, mutate } = useSWR(`${base}/reviews`, fetcher);
   const [disputing, setDisputing] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
@@ -36,6 +39,8 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
   if (!data) return <p className="mt-2 text-sm text-stone-500">Loading the review…</p>;
 
   const at = revisionId ?? data.latestRevision?.id;
+  // The viewer's own vouch on an older revision (its id is the viewer's own even on a blind proof).
+  const mineSuperseded = data.mine.vouchedAt ? undefined : data.vouches.find((v) => v.stale && v.reviewerId === viewer.id);
   const viewingOld = revisionId !== null && data.latestRevision !== null && revisionId !== data.latestRevision.id;
   const verdict = async (kind: "vouch" | "dispute", comment?: string) => {
     // A vouch names the digest of what the referee read: a claim change meanwhile makes the server refuse it.
@@ -71,15 +76,29 @@ export function StepReviewSlot({ proofId, stepId, revisionId }: StepReviewSlotPr
       {data.vouches.length > 0 && (
         <ul className="space-y-1 text-sm">
           {data.vouches.map((a) => (
-            <li key={a.id} className="flex items-center gap-2" data-testid="approval">
+            <li key={a.id} className="flex flex-wrap items-baseline gap-x-2" data-testid="approval">
               <VouchBadge stale={a.stale} />
               {a.reviewerName} vouched for revision {a.revisionNumber}
-              {a.stale && data.latestRevision && <span className="text-stone-500">— revision {data.latestRevision.number} has changed since</span>}
+              {a.stale && data.latestRevision && (
+                <Link href={`${pathname}${compareQuery(a.revisionNumber, data.latestRevision.number)}`} className="text-lichen-700 underline">
+                  compare revision {a.revisionNumber} with {data.latestRevision.number}
+                </Link>
+              )}
             </li>
           ))}
         </ul>
       )}
 
+      {mineSuperseded && data.latestRevision && (
+        <p className="rounded border border-undecided/40 bg-amber-50 p-2 text-sm" data-testid="vouch-superseded-notice">
+          Your vouch for revision {mineSuperseded.revisionNumber} is superseded: revision {data.latestRevision.number} changed what it covers, so it no longer
+          counts.{" "}
+          <Link href={`${pathname}${compareQuery(mineSuperseded.revisionNumber, data.latestRevision.number)}`} className="text-lichen-700 underline">
+            Compare revision {mineSuperseded.revisionNumber} with revision {data.latestRevision.number}
+          </Link>{" "}
+          and vouch again if it still holds.
+        </p>
+      )}
       {viewingOld && (
         <p className="text-sm text-undecided">You are looking at an older revision; verdicts are given on revision {data.latestRevision!.number}.</p>
       )}

@@ -1,14 +1,19 @@
 import "server-only";
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
+import { refereeLens, type NameLens } from "./blind";
+import type { ProofRole } from "@/lib/access/rules";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import {
   caseState,
+  isUnresolved,
+  latestVouches,
   proofState,
   stepStatus,
   type CaseFacts,
   type CaseState,
   type ClaimStatus,
+  type DisputeState,
   type ProofState,
   type ReviewFact,
   type StepFacts,
@@ -19,9 +24,20 @@ export interface StepView {
   position: number;
   revision: { id: number; number: number; body: string; authorName: string; createdAt: string } | null;
   claims: ClaimStatus[];
+  /** The same claims as the overview lists them: what each states, and its verdict. */
+  claimItems: Array<{ id: number; statement: string; status: ClaimStatus }>;
   /** Derived from revisions, reviews and claims (lib/review/states.ts). */
   vouches: number;
   openDisputes: number;
+  /**
+   * The step's review as a reader of the overview needs it: each referee's latest vouch (superseded when
+   * given on an older revision) and the unresolved disputes with their state. Names pass the viewer's
+   * blind lens ("Referee k" for authors of a blind proof); no user ids.
+   */
+  review: {
+    vouches: Array<{ name: string; revision: number; superseded: boolean }>;
+    disputes: Array<{ id: number; name: string; state: DisputeState; revision: number }>;
+  };
 }
 
 export interface CaseView {
@@ -92,16 +108,37 @@ export interface ProofOverview {
   cases: CaseNode<CaseView>[];
   counts: Record<CaseState, number>;
   proofState: ProofState;
+  /** How many vouches a step needs. */
+  requiredApprovals: number;
 }
 
-/** The case tree with the counts per case state and the proof's derived state. */
-export async function getProofOverview(proofId: number, visible: ReadonlySet<number> | null = null): Promise<ProofOverview> {
-  const { tree, facts, required } = await loadTree(proofId);
+/**
+ * The case tree with the counts per case state and the proof's derived state, and under each step its
+ * claims and its review, with referees named as this viewer may see them (lib/data/blind.ts).
+ */
+export async function getProofOverview(
+  proofId: number,
+  visible: ReadonlySet<number> | null,
+  viewer: { id: number; role: ProofRole | null },
+): Promise<ProofOverview> {
+  const { tree, facts, required } = await loadTree(proofId, await refereeLens(proofId, viewer));
   const shown = pruneCaseTree(tree, visible);
-  return { cases: shown, counts: countCaseStates(shown), proofState: proofState(facts, required) };
+  return { cases: shown, counts: countCaseStates(shown), proofState: proofState(facts, required), requiredApprovals: required };
 }
 
-async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
+/** Groups rows by a key, keeping their order (one pass, so the tree's load stays linear in its size). */
+function groupBy<T>(rows: readonly T[], key: (row: T) => number): Map<number, T[]> {
+  const out = new Map<number, T[]>();
+  for (const r of rows) {
+    const list = out.get(key(r));
+    if (list) list.push(r);
+    else out.set(key(r), [r]);
+  }
+  return out;
+}
+
+/** `lens` null: no names are read (the tree is wanted for its numbers, not its review). */
+async function loadTree(proofId: number, lens: NameLens | null = null): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
   const { StepRevision, User, Claim, Review, Proof } = models();
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
@@ -113,15 +150,29 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
         StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
         Claim.findAll({
           where: { stepId: stepIds },
-          attributes: ["stepId", "status"],
+          attributes: ["id", "stepId", "status", "statement", "kind"],
           order: [
             ["position", "ASC"],
             ["id", "ASC"],
           ],
         }),
-        Review.findAll({ where: { stepId: stepIds } }),
+        Review.findAll({
+          where: { stepId: stepIds },
+          order: [
+            ["createdAt", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
       ])
     : [[], [], []];
+  const reviewerIds = [...new Set(reviews.map((r) => r.reviewerId))];
+  const names = new Map(
+    lens && reviewerIds.length
+      ? (await User.findAll({ where: { id: reviewerIds }, attributes: ["id", "name"] })).map((u) => [u.id, lens.name(u.id, u.name)])
+      : [],
+  );
+  const claimsByStep = groupBy(claims, (c) => c.stepId);
+  const reviewsByStep = groupBy(reviews, (r) => r.stepId);
   const latest = new Map<number, (typeof revisions)[number]>();
   const numberOf = new Map<number, number>();
   const authorsOf = new Map<number, Set<number>>();
@@ -133,15 +184,13 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
   const factsOf = (stepId: number): StepFacts => ({
     id: stepId,
     latestRevision: latest.get(stepId)?.number ?? 0,
-    claims: claims.filter((c) => c.stepId === stepId).map((c) => c.status),
-    reviews: reviews
-      .filter((r) => r.stepId === stepId)
-      .map((r): ReviewFact => ({
-        reviewerId: r.reviewerId,
-        revisionNumber: numberOf.get(r.revisionId) ?? 0,
-        verdict: r.verdict,
-        disputeState: r.disputeState,
-      })),
+    claims: (claimsByStep.get(stepId) ?? []).map((c) => c.status),
+    reviews: (reviewsByStep.get(stepId) ?? []).map((r): ReviewFact => ({
+      reviewerId: r.reviewerId,
+      revisionNumber: numberOf.get(r.revisionId) ?? 0,
+      verdict: r.verdict,
+      disputeState: r.disputeState,
+    })),
     authorIds: [...(authorsOf.get(stepId) ?? [])],
   });
   const facts = new Map(steps.map((s) => [s.id, factsOf(s.id)]));
@@ -157,12 +206,24 @@ async function loadTree(proofId: number): Promise<{ tree: CaseNode<CaseView>[]; 
       .map((s): StepView => {
         const r = latest.get(s.id);
         const status = stepStatus(facts.get(s.id)!, required);
+        const stepReviews = reviewsByStep.get(s.id) ?? [];
+        const revisionOf = (r: (typeof stepReviews)[number]) => numberOf.get(r.revisionId) ?? 0;
         return {
           id: s.id,
           position: s.position,
           claims: facts.get(s.id)!.claims,
+          claimItems: (claimsByStep.get(s.id) ?? []).map((c) => ({ id: c.id, statement: c.statement ?? c.kind, status: c.status })),
           vouches: status.vouches,
           openDisputes: status.openDisputes,
+          review: {
+            vouches: latestVouches(
+              stepReviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: revisionOf(r), verdict: r.verdict })),
+              facts.get(s.id)!.latestRevision,
+            ).map(({ review, superseded }) => ({ name: names.get(review.reviewerId) ?? "", revision: review.revisionNumber, superseded })),
+            disputes: stepReviews
+              .filter((r) => r.verdict === "dispute" && isUnresolved(r.disputeState))
+              .map((r) => ({ id: r.id, name: names.get(r.reviewerId) ?? "", state: r.disputeState!, revision: revisionOf(r) })),
+          },
           revision: r
             ? {
                 id: r.id,

@@ -4,6 +4,10 @@ import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import type { ProofRole } from "@/lib/access/rules";
 import { refereeLens } from "./blind";
+import { hiddenCaseIds } from "./cases";
+import { visibleCaseIds } from "@/lib/access";
+import { proofStanding, type ProofStanding } from "@/lib/review/rounds";
+import type { DisputeState } from "@/lib/review/states";
 
 export interface ProofListItem {
   id: number;
@@ -12,21 +16,47 @@ export interface ProofListItem {
   updatedAt: string;
   caseCount: number;
   memberCount: number;
+  /** Where the proof stands in refereeing (lib/review/rounds.ts): drafting, in review (round N), decided. */
+  standing: ProofStanding;
+  /** Unresolved disputes (raised, answered or upheld) on live steps this member may see. */
+  openDisputes: number;
 }
+
+const UNRESOLVED: DisputeState[] = ["raised", "answered", "upheld"];
 
 /** The proofs a user belongs to, with their role in each, most recently changed first. */
 export async function listProofsForUser(userId: number): Promise<ProofListItem[]> {
-  const { ProofMember, Proof, Case } = models();
+  const { ProofMember, Proof, Case, ReviewRound, RoundDecision, Review, Step } = models();
   const memberships = await ProofMember.findAll({
     where: { userId },
     include: [{ model: Proof, as: "proof", attributes: ["id", "title", "updatedAt"] }],
   });
   const ids = memberships.map((m) => m.proofId);
   if (ids.length === 0) return [];
-  const [caseCounts, memberCounts] = await Promise.all([
+  const [caseCounts, memberCounts, rounds, cases] = await Promise.all([
     Case.count({ where: { proofId: ids }, group: ["proofId"] }),
     ProofMember.count({ where: { proofId: ids }, group: ["proofId"] }),
+    ReviewRound.findAll({ where: { proofId: ids }, attributes: ["id", "proofId", "number"] }),
+    Case.findAll({ where: { proofId: ids }, attributes: ["id", "proofId", "parentId", "deletedAt"] }),
   ]);
+  const hidden = hiddenCaseIds(cases);
+  const steps = await Step.findAll({ where: { caseId: cases.filter((c) => !hidden.has(c.id)).map((c) => c.id) }, attributes: ["id", "caseId"] });
+  const [decisions, disputes, scopes] = await Promise.all([
+    rounds.length ? RoundDecision.findAll({ where: { roundId: rounds.map((r) => r.id) }, attributes: ["roundId", "decision"] }) : [],
+    steps.length ? Review.findAll({ where: { stepId: steps.map((s) => s.id), verdict: "dispute", disputeState: UNRESOLVED }, attributes: ["stepId"] }) : [],
+    Promise.all(memberships.map(async (m) => [m.proofId, await visibleCaseIds(m.proofId, userId, m.role)] as const)),
+  ]);
+  const caseOfStep = new Map(steps.map((s) => [s.id, s.caseId]));
+  const proofOfCase = new Map(cases.map((c) => [c.id, c.proofId]));
+  const visible = new Map(scopes);
+  const disputeCount = new Map<number, number>();
+  for (const d of disputes) {
+    const caseId = caseOfStep.get(d.stepId)!;
+    const proofId = proofOfCase.get(caseId)!;
+    if (hidden.has(caseId) || (visible.get(proofId) && !visible.get(proofId)!.has(caseId))) continue;
+    disputeCount.set(proofId, (disputeCount.get(proofId) ?? 0) + 1);
+  }
+  const decisionOf = new Map(decisions.map((d) => [d.roundId, d.decision]));
   const countOf = (rows: Array<{ proofId?: number; count: number }>, id: number) => Number(rows.find((r) => Number(r.proofId) === id)?.count ?? 0);
   return memberships
     .map((m) => {
@@ -38,6 +68,8 @@ export async function listProofsForUser(userId: number): Promise<ProofListItem[]
         updatedAt: p.updatedAt.toISOString(),
         caseCount: countOf(caseCounts as never, p.id),
         memberCount: countOf(memberCounts as never, p.id),
+        standing: proofStanding(rounds.filter((r) => r.proofId === p.id).map((r) => ({ number: r.number, decision: decisionOf.get(r.id) ?? null }))),
+        openDisputes: disputeCount.get(p.id) ?? 0,
       };
     })
     .sort((a, b) => b.updatedAt.localeCompare(a.updatedAt) || a.id - b.id);

@@ -6,7 +6,7 @@ import type { DisputeState } from "@/lib/review/states";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
 import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";
-import { stepStatus, type StepStatus } from "@/lib/review/states";
+import { latestVouches, stepStatus, type StepStatus } from "@/lib/review/states";
 import { claimStatuses, type StepRef } from "./reviews";
 import { canSeeStep } from "@/lib/access";
 import { claimsOf, digestOf } from "./revisions";
@@ -95,8 +95,10 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
   const tree = (rows: typeof comments): CommentNode[] => commentTree(rows, names, lens, numberOf);
   const refusal = verdictRefusal(viewer, step.authorIds, await canSeeStep(step, viewer.id));
   // Only the latest vouch per referee is listed; it is superseded when given on an older revision.
-  const latestVouch = new Map<number, (typeof reviews)[number]>();
-  for (const r of reviews) if (r.verdict === "vouch") latestVouch.set(r.reviewerId, r);
+  const listed = latestVouches(
+    reviews.map((r) => ({ reviewerId: r.reviewerId, revisionNumber: numberOf.get(r.revisionId) ?? 0, verdict: r.verdict, row: r })),
+    latestNumber,
+  );
   const latestRow = revisions.find((r) => r.id === step.latest?.id);
   const mineNow = reviews.find((r) => r.reviewerId === viewer.id && r.verdict === "vouch" && r.revisionId === step.latest?.id);
   return {
@@ -112,12 +114,12 @@ export async function getStepReview(step: StepRef, viewer: Actor): Promise<StepR
     mine: { vouchedAt: mineNow ? mineNow.createdAt.toISOString() : null },
     requiredApprovals: required,
     status,
-    vouches: [...latestVouch.values()].map((r) => ({
+    vouches: listed.map(({ review: { row: r, revisionNumber }, superseded }) => ({
       id: r.id,
       reviewerId: lens.id(r.reviewerId),
       reviewerName: names.get(r.reviewerId) ?? "",
-      revisionNumber: numberOf.get(r.revisionId) ?? 0,
-      stale: (numberOf.get(r.revisionId) ?? 0) !== latestNumber,
+      revisionNumber,
+      stale: superseded,
       at: r.createdAt.toISOString(),
     })),
     disputes: reviews

@@ -14,6 +14,7 @@ import { claimSetText, compareRevisions, describeChange, digestOfRevision, order
 import type { ClaimStatus } from "@/lib/review/states";
 import { recordEvent } from "./audit";
 import { notify } from "./notifications";
+import { compareQuery } from "@/lib/review/compare-link";
 
 type RevisionRow = InstanceType<ReturnType<typeof models>["StepRevision"]>;
 
@@ -67,7 +68,7 @@ export async function stepPhrase(stepId: number, transaction?: Transaction): Pro
   return `${placePhrase(place)} of “${proof?.title ?? ""}”`;
 }
 
-/** Tells every referee who vouched for `previous` that the new revision supersedes it, and why. */
+/** Tells every referee who vouched for `previous` that the new revision supersedes it, and why; the notice opens the two compared. */
 export async function noticeSuperseded(
   proofId: number,
   stepId: number,
@@ -87,7 +88,7 @@ export async function noticeSuperseded(
       proofId,
       stepId,
       message: `Your vouch for ${await stepPhrase(stepId, transaction)} at revision ${previous.number} is superseded by revision ${created.number}: ${change}. Read revision ${created.number} and vouch again if it still holds.`,
-      link: `/queue/${proofId}/${stepId}`,
+      link: `/queue/${proofId}/${stepId}${compareQuery(previous.number, created.number)}`,
     },
     transaction,
   );

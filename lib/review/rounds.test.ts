@@ -1,5 +1,15 @@
 import { describe, expect, it } from "vitest";
-import { ageInDays, isFinalDecision, mayDoInRound, refereeDisplayName, refereeStanding, remindersDue, reportAccess } from "./rounds";
+import {
+  ageInDays,
+  isFinalDecision,
+  mayDoInRound,
+  proofStanding,
+  proofStandingText,
+  refereeDisplayName,
+  refereeStanding,
+  remindersDue,
+  reportAccess,
+} from "./rounds";
 
 const DAY = 86_400_000;
 const due = new Date("2026-05-10T12:00:00Z");
@@ -88,5 +98,27 @@ describe("lateness and reminders", () => {
   it("counts the age of a dispute in whole days, never negative", () => {
     expect(ageInDays(at(0), at(4.9))).toBe(4);
     expect(ageInDays(at(1), at(0))).toBe(0);
+  });
+});
+
+describe("a proof's standing in the proof list", () => {
+  it("reads drafting before any round, in review while the latest round waits for its decision, decided after", () => {
+    const text = (rounds: Parameters<typeof proofStanding>[0]) => proofStandingText(proofStanding(rounds));
+    expect(text([])).toBe("drafting");
+    expect(text([{ number: 1, decision: null }])).toBe("in review, round 1");
+    expect(text([{ number: 1, decision: "major_revision" }])).toBe("decided: major revision (round 1)");
+    // The latest round by number decides, in whatever order the rows come.
+    expect(
+      text([
+        { number: 2, decision: null },
+        { number: 1, decision: "minor_revision" },
+      ]),
+    ).toBe("in review, round 2");
+    expect(
+      text([
+        { number: 2, decision: "accept" },
+        { number: 1, decision: "major_revision" },
+      ]),
+    ).toBe("decided: accept (round 2)");
   });
 });

@@ -114,3 +114,24 @@ export function remindersDue(dueAt: Date, now: Date, beforeDays: number, afterDa
 
 /** Whole days from `from` to `to`, for "open for 4 days" (never negative). */
 export const ageInDays = (from: Date, to: Date): number => Math.max(0, Math.floor((to.getTime() - from.getTime()) / DAY));
+
+/** Where a proof stands in refereeing, as the proof list shows it. */
+export type ProofStanding = { stage: "drafting" } | { stage: "in review"; round: number } | { stage: "decided"; round: number; decision: Recommendation };
+
+/**
+ * From its rounds: no round yet → drafting; the latest round without a decision → in review, round N;
+ * the latest round decided → decided, with the decision (a revision decision sends it back to the authors
+ * until the editor opens the next round).
+ */
+export function proofStanding(rounds: ReadonlyArray<{ number: number; decision: Recommendation | null }>): ProofStanding {
+  if (rounds.length === 0) return { stage: "drafting" };
+  const latest = rounds.reduce((a, b) => (b.number > a.number ? b : a));
+  return latest.decision === null ? { stage: "in review", round: latest.number } : { stage: "decided", round: latest.number, decision: latest.decision };
+}
+
+/** "drafting", "in review, round 2", "decided: minor revision (round 1)". */
+export function proofStandingText(s: ProofStanding): string {
+  if (s.stage === "drafting") return "drafting";
+  if (s.stage === "in review") return `in review, round ${s.round}`;
+  return `decided: ${recommendationLabel[s.decision]} (round ${s.round})`;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { caseState, proofState, stepStatus, type CaseFacts, type StepFacts } from "./states";
+import { caseState, latestVouches, proofState, stepStatus, type CaseFacts, type StepFacts } from "./states";
 
 // The rules under test are Cairn's own (see ../shared product notes: case and proof states); no outside source applies.
 const step = (over: Partial<StepFacts> = {}): StepFacts => ({ id: 1, latestRevision: 2, reviews: [], claims: [], authorIds: [9], ...over });
@@ -65,5 +65,17 @@ describe("proof state", () => {
     expect(proofState([settled, settled], 1)).toBe("ready to certify");
     expect(proofState([settled, one(step())], 1)).toBe("in progress");
     expect(proofState([], 1)).toBe("in progress");
+  });
+});
+
+describe("latest vouches", () => {
+  it("keeps each referee's last vouch, in the order first given, superseded when older than the latest revision", () => {
+    const v = (reviewerId: number, revisionNumber: number, verdict: "vouch" | "dispute" = "vouch") => ({ reviewerId, revisionNumber, verdict });
+    const listed = latestVouches([v(7, 1), v(8, 1), v(9, 2, "dispute"), v(7, 3)], 3);
+    expect(listed.map(({ review, superseded }) => [review.reviewerId, review.revisionNumber, superseded])).toEqual([
+      [7, 3, false],
+      [8, 1, true],
+    ]);
+    expect(latestVouches([], 1)).toEqual([]);
   });
 });

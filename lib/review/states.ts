@@ -96,3 +96,17 @@ export function proofState(cases: CaseFacts[], requiredApprovals: number): Proof
 function allSteps(c: CaseFacts): StepFacts[] {
   return [...c.steps, ...c.children.flatMap(allSteps)];
 }
+
+/**
+ * The vouch each referee last gave on a step, in the order given (`reviews` oldest first), each marked
+ * superseded when it was given on an older revision than the latest: what the review panel and the
+ * overview list under a step. (Counting, with authors and disputing referees left out, is stepStatus's.)
+ */
+export function latestVouches<T extends Pick<ReviewFact, "reviewerId" | "revisionNumber" | "verdict">>(
+  reviews: readonly T[],
+  latestRevision: number,
+): Array<{ review: T; superseded: boolean }> {
+  const last = new Map<number, T>();
+  for (const r of reviews) if (r.verdict === "vouch") last.set(r.reviewerId, r);
+  return [...last.values()].map((review) => ({ review, superseded: review.revisionNumber !== latestRevision }));
+}

@@ -59,7 +59,9 @@ describe("proof workspace in the browser", () => {
     expect(await page.locator('[data-case-number="1"] [data-case-state]').first().getAttribute("data-case-state")).toBe("drafting");
 
     // A step in case 1, written with math; it opens on its own page.
-    await page.getByTestId("case-actions-1").getByRole("button", { name: "+ Step" }).click();
+    // The case's controls are one menu: open it, then choose.
+    await page.getByTestId("case-actions-1").locator("summary").click();
+    await page.getByTestId("case-actions-1").getByRole("button", { name: "Add a step" }).click();
     await page.getByTestId("add-step").getByRole("textbox").fill("$K_{1,5} \\subseteq G$, hence\n\n$$\n\\rho(G) \\ge \\rho(K_{1,5}) = \\sqrt{5}.\n$$");
     await page.getByRole("button", { name: "Add step and open it" }).click();
     await page.waitForURL(/\/steps\/\d+$/);
@@ -111,10 +113,12 @@ describe("proof workspace in the browser", () => {
     expect(await table.getByRole("link", { name: "1(a)" }).count()).toBe(1);
 
     // Reordering renumbers: case 1 moves down and its step becomes 2(a); a case is edited in place.
+    await page.getByTestId("case-actions-1").locator("summary").click();
     await page.getByRole("button", { name: "move case 1 down" }).click();
     await page.locator('[data-case-number="1"]', { hasText: "All degrees at most 4" }).waitFor();
     await page.getByTestId("claims-table").getByRole("link", { name: "2(a)" }).waitFor();
-    await page.getByTestId("case-actions-1").getByRole("button", { name: "✎ Edit" }).click();
+    await page.getByTestId("case-actions-1").locator("summary").click();
+    await page.getByTestId("case-actions-1").getByRole("button", { name: "Edit title and condition" }).click();
     await page.getByTestId("edit-case").getByLabel("Title").fill("Maximum degree at most 4");
     await page.getByTestId("edit-case").getByRole("button", { name: "Save case" }).click();
     await page.locator('[data-case-number="1"] h3', { hasText: "Maximum degree at most 4" }).waitFor();
@@ -178,7 +182,8 @@ describe("proof workspace in the browser", () => {
     expect(await page.getByTestId("step").nth(1).textContent()).toContain("A step worth keeping.");
 
     const actions = page.getByTestId("case-actions-1");
-    await actions.getByRole("button", { name: "✗ Delete" }).click();
+    await actions.locator("summary").click();
+    await actions.getByRole("button", { name: "Delete case…" }).click();
     await actions.getByRole("button", { name: "Yes, delete it" }).click();
     await page.getByTestId("deleted-cases").waitFor();
     expect(await page.locator('[data-case-number="1"]').count()).toBe(0);

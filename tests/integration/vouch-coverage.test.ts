@@ -77,7 +77,8 @@ describe("a vouch covers the text and the claims of one revision", () => {
     expect(notice.message).toMatch(
       /^Your vouch for step 1\(a\) \(case 1, “[^”]+”\) of “vouch coverage .*” at revision 1 is superseded by revision 2: claim #\d+ \(spectral-radius-bound\) attached\. Read revision 2/,
     );
-    expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}`);
+    // The notice opens the referee's step page with the vouched revision compared to the latest.
+    expect(notice.link).toBe(`/queue/${fx.proofId}/${stepId}?compare=1..2#compare`);
 
     const stale = await vouch(stepId, { revisionId: r1.id });
     expect(stale.status).toBe(409);

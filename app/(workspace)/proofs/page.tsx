@@ -3,6 +3,7 @@ import Link from "next/link";
 import { requireUser } from "@/lib/session";
 import { listProofsForUser } from "@/lib/data/proofs";
 import { RoleTag } from "@/components/ui/role-tag";
+import { ProofStandingMark } from "@/components/review/badges";
 
 export const metadata: Metadata = { title: "Your proofs" };
 
@@ -29,6 +30,12 @@ export default async function ProofsPage() {
                 <Link href={`/proofs/${p.id}`} className="text-lg font-semibold text-lichen-700 hover:underline">
                   {p.title}
                 </Link>
+                <p className="mt-1 flex flex-wrap items-baseline gap-x-3 gap-y-1 text-sm" data-testid="proof-standing" data-stage={p.standing.stage}>
+                  <ProofStandingMark standing={p.standing} />
+                  <span className={p.openDisputes > 0 ? "text-undecided" : "text-stone-500"} data-open-disputes={p.openDisputes}>
+                    {p.openDisputes === 0 ? "no open dispute" : `⚑ ${p.openDisputes} open dispute${p.openDisputes === 1 ? "" : "s"}`}
+                  </span>
+                </p>
                 <p className="font-mono text-xs text-stone-500">
                   {p.caseCount} cases · {p.memberCount} members · updated {p.updatedAt.slice(0, 10)}
                 </p>

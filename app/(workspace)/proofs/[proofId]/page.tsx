@@ -32,7 +32,7 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
   const { proofId, standing, visible, user, role } = await pageAccess((await params).proofId);
   const [proof, overview, claims, deleted, exports, threads, changes] = await Promise.all([
     getProofSummary(proofId, { id: user.id, role }),
-    getProofOverview(proofId, visible),
+    getProofOverview(proofId, visible, { id: user.id, role }),
     listProofClaims(proofId, visible),
     listDeletedCases(proofId).then((rows) => withinScope(rows, (c) => c.id, visible)),
     may(standing, "exports.read") ? listExports(proofId) : Promise.resolve(null),
@@ -63,7 +63,10 @@ export default async function ProofPage({ params }: { params: Promise<{ proofId:
           <h2 className="mb-3 mt-10 text-xl font-semibold">Cases</h2>
           {overview.cases.length === 0 && <p className="text-stone-600">No cases yet. Split the proof into its first case below.</p>}
           <CaseTargets targets={targets}>
-            <CaseTree nodes={overview.cases} options={{ proofId, editable, conditionThreads: threads.conditions, changed: changes }} />
+            <CaseTree
+              nodes={overview.cases}
+              options={{ proofId, editable, required: overview.requiredApprovals, conditionThreads: threads.conditions, changed: changes }}
+            />
           </CaseTargets>
           {editable && <AddCaseForm proofId={proofId} parentId={null} />}
           <DeletedCases proofId={proofId} cases={deleted} editable={editable} />

@@ -13,6 +13,7 @@ import { verificationNotice } from "@/lib/data/claim-jobs";
 import { may } from "@/lib/access";
 import { getStep } from "@/lib/data/steps";
 import { RevisionHistory } from "@/components/editor/revision-history";
+import { parseCompare } from "@/lib/review/compare-link";
 
 export const metadata: Metadata = { title: "Review a step" };
 
@@ -20,7 +21,13 @@ export const metadata: Metadata = { title: "Review a step" };
  * One step to review, reached from the queue, reader first: the argument and its claims, with the review
  * panel beside them on a wide screen (below them on a phone).
  */
-export default async function QueueStepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
+export default async function QueueStepPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ proofId: string; stepId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const p = await params;
   const { access: viewer, step } = await stepPageAccess(p.proofId, p.stepId);
   const access = { user: viewer.user, role: viewer.role, step };
@@ -33,6 +40,8 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
   ]);
   const { revisions } = await getStep(proofId, step.id);
   const verification = await verificationNotice(claims);
+  // A superseded vouch's notice opens the page with the vouched revision compared to the latest.
+  const compare = parseCompare((await searchParams).compare, revisions[0]?.number ?? 0);
   const caseState = readiness.cases.find((c) => c.id === access.step.caseId)?.state;
   return (
     <main className="space-y-4">
@@ -76,7 +85,7 @@ export default async function QueueStepPage({ params }: { params: Promise<{ proo
           <StepReviewSlot proofId={proofId} stepId={step.id} revisionId={info.revision?.id ?? null} viewer={{ id: access.user.id, role: access.role }} />
         </div>
       </div>
-      <RevisionHistory proofId={proofId} stepId={step.id} revisions={revisions} />
+      <RevisionHistory key={compare ? `${compare.from}..${compare.to}` : "latest"} proofId={proofId} stepId={step.id} revisions={revisions} initial={compare} />
     </main>
   );
 }

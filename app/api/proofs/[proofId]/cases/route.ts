@@ -7,11 +7,11 @@ import { visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };
 
-/** The case tree, numbered, with each case's derived state, the counts per state and the proof state; any member. */
+/** The case tree, numbered, with each case's derived state, the counts per state and the proof state, and under each step its claims and review (blind names as the caller may see them); any member. */
 export const GET = route(async (_request: Request, { params }: Context) => {
   const proofId = idParam((await params).proofId, "This proof");
-  const { user } = await requireProofRole(proofId);
-  return Response.json(await getProofOverview(proofId, await visibleCaseIds(proofId, user.id)));
+  const { user, role } = await requireProofRole(proofId);
+  return Response.json(await getProofOverview(proofId, await visibleCaseIds(proofId, user.id), { id: user.id, role }));
 });
 
 /** Adds a case (top level, or under `parentId`) at the end of its siblings; authors only. */

@@ -20,10 +20,17 @@ import { FileList } from "@/components/files/file-list";
 import { FileUpload } from "@/components/files/file-upload";
 import { BatchForm } from "@/components/batches/batch-form";
 import { BatchList } from "@/components/batches/batch-list";
+import { parseCompare } from "@/lib/review/compare-link";
 
 export const metadata: Metadata = { title: "Step" };
 
-export default async function StepPage({ params }: { params: Promise<{ proofId: string; stepId: string }> }) {
+export default async function StepPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ proofId: string; stepId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const p = await params;
   // A reviewer invited to chosen cases sees only their steps; a step under a deleted case is gone.
   const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
@@ -31,6 +38,8 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
   const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
   const [claims, withdrawn, files] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id), listStepFiles(proofId, step.id)]);
   const verification = await verificationNotice(claims);
+  // A superseded vouch's notice opens the page with the vouched revision compared to the latest.
+  const compare = parseCompare((await searchParams).compare, step.revisions[0]?.number ?? 0);
   const isAuthor = may(standing, "steps.write");
   const references = isAuthor ? await proofReferences(proofId) : [];
   return (
@@ -86,7 +95,13 @@ export default async function StepPage({ params }: { params: Promise<{ proofId: 
       {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
       <BatchList proofId={proofId} stepId={step.id} canCancel={isAuthor} />
       {may(standing, "claims.write") && <BatchForm proofId={proofId} stepId={step.id} />}
-      <RevisionHistory proofId={proofId} stepId={step.id} revisions={step.revisions} />
+      <RevisionHistory
+        key={compare ? `${compare.from}..${compare.to}` : "latest"}
+        proofId={proofId}
+        stepId={step.id}
+        revisions={step.revisions}
+        initial={compare}
+      />
     </main>
   );
 }
