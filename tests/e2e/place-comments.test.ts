@@ -6,11 +6,10 @@
  * threads and marks case 1 as changed; the author replies, marks the list seen, and it stays cleared;
  * the editor's overview then lists the author's reply.
  */
-import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
-import { db } from "./access-fixture";
+import { proofOfNewAuthor, signInPerson } from "./new-author";
 
 const baseUrl = inject("baseUrl");
 const stamp = Date.now();
@@ -18,38 +17,16 @@ const AUTHOR = { name: "Perrin Ashdown", email: `perrin.ashdown.${stamp}@tarnhol
 let browser: Browser;
 let proofId = 0;
 
-async function signInAuthor(page: Page) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(AUTHOR.email);
-  await page.getByLabel("Password").fill(AUTHOR.password);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(`${baseUrl}/proofs`);
-}
+const signInAuthor = (page: Page) => signInPerson(page, baseUrl, AUTHOR);
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const hash = await bcrypt.hash(AUTHOR.password, 4);
-  await db((c) =>
-    c.query("INSERT INTO users (email, name, password_hash, role, created_at, updated_at) VALUES (?, ?, ?, 'member', NOW(3), NOW(3))", [
-      AUTHOR.email,
-      AUTHOR.name,
-      hash,
-    ]),
-  );
-  const context = await browser.newContext();
-  await signInAuthor(await context.newPage());
-  const api = async (method: string, path: string, data?: unknown) => {
-    const res = await context.request.fetch(`${baseUrl}${path}`, { method, data, headers: { origin: baseUrl } });
-    if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
-    return res.json();
-  };
-  proofId = (await api("POST", "/api/proofs", { title: `Cycles are regular ${stamp}`, statement: "Every cycle $C_n$ is $2$-regular." })).proof.id;
-  await api("POST", `/api/proofs/${proofId}/cases`, { title: "Short cycles", condition: "$n \\le 5$", parentId: null });
-  await db(async (c) => {
-    const [editor] = await c.query("SELECT id FROM users WHERE email = 'dov.ashgrove@tarnhollow.example'");
-    await c.query("INSERT INTO proof_members (proof_id, user_id, role, created_at) VALUES (?, ?, 'editor', NOW(3))", [proofId, editor.id]);
-  });
-  await context.close();
+  ({ proofId } = await proofOfNewAuthor(browser, baseUrl, AUTHOR, {
+    title: `Cycles are regular ${stamp}`,
+    statement: "Every cycle $C_n$ is $2$-regular.",
+    caseTitle: "Short cycles",
+    condition: "$n \\le 5$",
+  }));
 }, 120_000);
 
 afterAll(async () => {

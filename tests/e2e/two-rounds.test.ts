@@ -11,11 +11,10 @@
  */
 import { execFileSync } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
-import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signInAs } from "./browser";
-import { db } from "./access-fixture";
+import { proofOfNewAuthor, signInPerson, type Person } from "./new-author";
 
 const baseUrl = inject("baseUrl");
 const stamp = Date.now();
@@ -58,12 +57,7 @@ async function pageFor(signIn: (page: Page) => Promise<void>): Promise<Page> {
   await page.waitForURL(`${baseUrl}/proofs`);
   return page;
 }
-const signInWith = (who: { email: string; password: string }) => async (page: Page) => {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(who.email);
-  await page.getByLabel("Password").fill(who.password);
-  await page.getByRole("button", { name: "Sign in" }).click();
-};
+const signInWith = (who: Person) => (page: Page) => signInPerson(page, baseUrl, who);
 
 /** The reminder job as of `daysOn` days from now, for this proof only (scripts/send-reminders.ts). */
 function runReminders(daysOn: number): string {
@@ -77,31 +71,13 @@ function runReminders(daysOn: number): string {
 beforeAll(async () => {
   browser = await launchBrowser();
   // Setup: a new author (so that no demo person's mail changes), a proof with one case and one step, the demo editor as its editor.
-  const hash = await bcrypt.hash(AUTHOR.password, 4);
-  await db((c) =>
-    c.query("INSERT INTO users (email, name, password_hash, role, created_at, updated_at) VALUES (?, ?, ?, 'member', NOW(3), NOW(3))", [
-      AUTHOR.email,
-      AUTHOR.name,
-      hash,
-    ]),
-  );
-  const context = await browser.newContext();
-  const setupPage = await context.newPage();
-  await signInWith(AUTHOR)(setupPage);
-  await setupPage.waitForURL(`${baseUrl}/proofs`);
-  const api = async (method: string, path: string, data?: unknown) => {
-    const res = await context.request.fetch(`${baseUrl}${path}`, { method, data, headers: { origin: baseUrl } });
-    if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
-    return res.json();
-  };
-  proofId = (await api("POST", "/api/proofs", { title: TITLE, statement: "The star $K_{1,4}$ has spectral radius $2$." })).proof.id;
-  const caseId = (await api("POST", `/api/proofs/${proofId}/cases`, { title: "The star", condition: "$G = K_{1,4}$", parentId: null })).case.id;
-  stepId = (await api("POST", `/api/proofs/${proofId}/cases/${caseId}/steps`, { body: "Its adjacency matrix has rank 2 and trace of the square 8." })).step.id;
-  await db(async (c) => {
-    const [editor] = await c.query("SELECT id FROM users WHERE email = 'dov.ashgrove@tarnhollow.example'");
-    await c.query("INSERT INTO proof_members (proof_id, user_id, role, created_at) VALUES (?, ?, 'editor', NOW(3))", [proofId, editor.id]);
-  });
-  await context.close();
+  ({ proofId, stepId } = (await proofOfNewAuthor(browser, baseUrl, AUTHOR, {
+    title: TITLE,
+    statement: "The star $K_{1,4}$ has spectral radius $2$.",
+    caseTitle: "The star",
+    condition: "$G = K_{1,4}$",
+    step: "Its adjacency matrix has rank 2 and trace of the square 8.",
+  })) as { proofId: number; stepId: number });
 }, 120_000);
 
 afterAll(async () => {
@@ -149,7 +125,8 @@ describe("a two-round review in the browser", () => {
         .getByLabel(/due on/)
         .fill(due);
       await editor.getByRole("button", { name: `Open round ${n}` }).click();
-      await editor.getByText(`Round ${n} opened.`).waitFor();
+      // The form and its message leave the page once it refreshes with the round open: wait for the round itself.
+      await editor.locator(`[data-testid="round"][data-round="${n}"][data-state="open"]`).waitFor();
     };
     await openRound(1);
 
@@ -182,7 +159,7 @@ describe("a two-round review in the browser", () => {
     await decision.getByLabel(/^Decision/).selectOption({ label: "minor revision" });
     await decision.getByLabel(/Letter to the authors/).fill("Please name the eigenvalues $\\pm 2$ and $0$.");
     await decision.getByRole("button", { name: "Record the decision and mail the authors" }).click();
-    await editor.getByText("Decision recorded; the authors were mailed.").waitFor();
+    await editor.locator('[data-testid="round"][data-round="1"][data-state="decided"]').waitFor();
     const letter = await mailTo(AUTHOR.email, /Decision on round 1 of/);
     expect(letter.subject).toMatch(/minor revision/i);
     for (const secret of [WREN.name, WREN.email, YARROW.name, YARROW.email, "Wren's note", "Yarrow's note"]) expect(letter.text).not.toContain(secret);
@@ -216,7 +193,7 @@ describe("a two-round review in the browser", () => {
     await second.getByLabel(/^Decision/).selectOption({ label: "accept" });
     await second.getByLabel(/Letter to the authors/).fill("Accepted.");
     await second.getByRole("button", { name: "Record the decision and mail the authors" }).click();
-    await editor.getByText("Decision recorded; the authors were mailed.").waitFor();
+    await editor.locator('[data-testid="round"][data-round="2"][data-state="decided"]').waitFor();
     await mailTo(AUTHOR.email, /Decision on round 2 of/);
 
     // The author makes the certified export; its LaTeX lists both rounds and decisions, referees numbered.
