@@ -164,13 +164,44 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
 }
 
 /**
+ * A coverage claim attached to a step without `cases` takes its sub-cases from the step's case: one per
+ * live child case, labelled by its title, with the child's machine-readable condition. The filled-in
+ * claim carries the conditions itself, so the offline checker re-checks it from the bundle alone.
+ */
+async function fillCoverageCases(proofId: number, stepId: number, raw: Record<string, unknown>[]): Promise<Record<string, unknown>[]> {
+  if (!raw.some((c) => c.kind === "coverage" && c.cases === undefined)) return raw;
+  const { Step } = models();
+  const step = await Step.findByPk(stepId);
+  const children = (await liveCases(proofId)).filter((c) => step && c.parentId === step.caseId);
+  const found: Issue[] = [];
+  const out = raw.map((c, i) => {
+    if (c.kind !== "coverage" || c.cases !== undefined) return c;
+    if (children.length === 0) {
+      found.push({ path: `claims.${i}.cases`, message: 'This step\'s case has no sub-cases to take the conditions from; list the sub-cases in "cases".' });
+      return c;
+    }
+    const missing = children.filter((k) => !k.predicate);
+    if (missing.length) {
+      found.push({
+        path: `claims.${i}.cases`,
+        message: `Give every sub-case a machine-readable condition first (missing on: ${missing.map((k) => `"${k.title}"`).join(", ")}), or list the sub-cases in "cases".`,
+      });
+      return c;
+    }
+    return { ...c, cases: children.map((k) => ({ label: k.title, condition: JSON.parse(k.predicate!) as unknown })) };
+  });
+  if (found.length) throw invalid("Some claims need attention; nothing was saved.", found);
+  return out;
+}
+
+/**
  * Stores claims on a step (all or none) and queues their verification; they start `pending`.
  * Returns their ids in order. Malformed input is a 422 naming the field, and nothing is stored.
  */
 export async function storeClaims(proofId: number, stepId: number, userId: number, raw: Record<string, unknown>[]): Promise<number[]> {
   const { Claim } = models();
   await stepInProof(proofId, stepId);
-  const claims = await readClaims(raw);
+  const claims = await readClaims(await fillCoverageCases(proofId, stepId, raw));
   const stored = await getSequelize().transaction(async (transaction) => {
     // Locking the step row (lockLatest) serialises attaches to one step, so each claim takes its own place
     // (the unique index on (step_id, position) is the backstop), and serialises them against vouches.

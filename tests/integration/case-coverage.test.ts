@@ -91,6 +91,32 @@ describe("coverage claims through the API", () => {
     expect(reason).toMatch(/4 of the 31 graphs satisfy no sub-case/);
   });
 
+  it("fills in the sub-cases from the step's case's children, and says which child lacks a condition", async () => {
+    await actAs("author");
+    const path = await addCase(proofId, "A path", caseId);
+    const spider = await addCase(proofId, "One branch vertex", caseId);
+    const more = await addCase(proofId, "Two or more branch vertices", caseId);
+    const claim = { format: "cairn-claim/1", kind: "coverage", setting: "tree", maxVertices: 10 };
+    const attach = () => claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: [claim] }), params({ proofId, stepId }));
+    const setPredicate = (id: number, p: unknown) =>
+      caseRoute.PATCH(jsonRequest("/x", "PATCH", { predicate: JSON.stringify(p) }), params({ proofId, caseId: String(id) }));
+    expect((await setPredicate(path, { predicate: "path" })).status).toBe(200);
+    expect((await setPredicate(spider, { predicate: "branch-vertices", relation: "=", value: 1 })).status).toBe(200);
+    const missing = await attach();
+    expect(missing.status).toBe(422);
+    expect(JSON.stringify(await missing.json())).toMatch(/claims\.0\.cases.*missing on: \\"Two or more branch vertices\\"/);
+    expect((await setPredicate(more, { predicate: "branch-vertices", relation: ">=", value: 2 })).status).toBe(200);
+    const res = await attach();
+    expect(res.status).toBe(200);
+    const [c] = (await res.json()).claims as Array<{ id: number; status: string }>;
+    expect(c.status).toBe("verified");
+    const row = (await models().Claim.findByPk(c.id))!;
+    // The stored claim carries the children's conditions (the offline checker needs nothing else).
+    expect(JSON.parse(row.input).cases.map((x: { label: string }) => x.label)).toEqual(["A path", "One branch vertex", "Two or more branch vertices"]);
+    // All 1 + 1 + 1 + 2 + 3 + 6 + 11 + 23 + 47 + 106 = 201 trees on ≤ 10 vertices (OEIS A000055).
+    expect(row.reason).toMatch(/^All 201 graphs/);
+  });
+
   it("answers 422 with the path of a bad condition inside a coverage claim", async () => {
     await actAs("author");
     const bad = { format: "cairn-claim/1", kind: "coverage", maxVertices: 5, cases: [{ condition: { predicate: "planar" } }] };
