@@ -18,6 +18,8 @@ import {
 import { spawnSync } from "node:child_process";
 import { enumerateConnected } from "../../lib/core/families/enumeration";
 import { generateConnected, type GenerationOptions } from "../../lib/core/families/augmentation";
+import { checkCoverage, type CoverageCase } from "../../lib/core/families/coverage";
+import { validateCondition } from "../../lib/core/families/case-condition";
 import { parseBound } from "../../lib/core/arithmetic/bound";
 import { validateClaim } from "../../lib/core/claims/claim-schema";
 import { verifyClaim } from "../../lib/core/claims/claims";
@@ -292,6 +294,36 @@ function enumerationTasks(): BenchTask[] {
     counted("enumerate-connected-9", "connected graphs, ≤ 9 vertices", "all (no bound)", undefined, { maxVertices: 9 }),
     counted("enumerate-trees-16", "trees, ≤ 16 vertices", "all (no bound)", 5000, { maxVertices: 16, setting: { kind: "tree" } }),
     ...nautyTasks(),
+    ...coverageTasks(),
+  ];
+}
+
+/** Coverage claims at their caps: every graph enumerated and tested against each sub-case condition. */
+function coverageTasks(): BenchTask[] {
+  const task = (id: string, workload: string, n: number, setting: "simple" | "tree", cases: CoverageCase[]): BenchTask => ({
+    id,
+    workload,
+    task: `coverage of a ${cases.length}-way split (every graph tested)`,
+    quick: false,
+    targetMs: undefined,
+    prepare: () => null,
+    run: () => {
+      const v = checkCoverage(n, cases, new Budget(BENCH_STEPS), setting);
+      return `${v.status}; covered ${v.certificate?.covered.join(" / ")} of ${v.certificate?.orders.reduce((a, c) => a + c, 0)}`;
+    },
+  });
+  const condition = (c: unknown) => validateCondition(c);
+  return [
+    task("coverage-connected-8", "connected graphs, ≤ 8 vertices", 8, "simple", [
+      { condition: condition({ predicate: "max-degree", relation: "<=", value: 2 }) },
+      { condition: condition({ and: [{ predicate: "max-degree", relation: ">=", value: 3 }, { not: { predicate: "contains", graph: "Bw" } }] }) },
+      { condition: condition({ predicate: "contains", graph: "Bw" }) },
+    ]),
+    task("coverage-trees-16", "trees, ≤ 16 vertices", 16, "tree", [
+      { condition: condition({ predicate: "path" }) },
+      { condition: condition({ predicate: "branch-vertices", relation: "=", value: 1 }) },
+      { condition: condition({ predicate: "branch-vertices", relation: ">=", value: 2 }) },
+    ]),
   ];
 }
 
