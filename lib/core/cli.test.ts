@@ -73,6 +73,18 @@ describe("offline checker", () => {
     expect(badReport.exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
+  it("re-checks a coverage claim from the file alone (conditions and certificate in it); a dropped uncovered graph is caught", () => {
+    // Connected graphs on ≤ 4 vertices (OEIS A001349: 1, 1, 2, 6); the bipartite ones miss K3, the paw, the diamond and K4 (elementary).
+    const claim = validateClaim({ format: "cairn-claim/1", kind: "coverage", maxVertices: 4, cases: [{ condition: { predicate: "bipartite" } }] });
+    const certificate = verifyClaim(claim).verdict.certificate as { evidence: { uncovered: string[] } };
+    expect(certificate.evidence.uncovered).toHaveLength(4);
+    const ok = checkFile(writeJson("coverage-ok.json", { ...claim, certificate }));
+    expect(ok.lines[0].status).toBe("refuted");
+    expect(ok.lines[0].certificate?.matches).toBe(true);
+    const dropped = { ...certificate, evidence: { ...certificate.evidence, uncovered: certificate.evidence.uncovered.slice(1) } };
+    expect(checkFile(writeJson("coverage-bad.json", { ...claim, certificate: dropped })).lines[0].certificate?.matches).toBe(false);
+  });
+
   it("--verbose prints the reason and notes of each verdict", () => {
     const out: string[] = [];
     main(["--verbose", join(FIXTURES, "structure.json")], (s) => out.push(s));
