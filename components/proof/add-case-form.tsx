@@ -32,6 +32,13 @@ export function AddCaseForm({ proofId, parentId, onDone }: { proofId: number; pa
       <FormField label="Condition" hint="Markdown with $…$ math, e.g. “$G$ has a vertex of degree $\ge 4$”" error={formState.errors.condition?.message}>
         <input {...register("condition")} className={field} />
       </FormField>
+      <FormField
+        label="Machine-readable condition (optional, JSON)"
+        hint='e.g. { "predicate": "branch-vertices", "relation": "=", "value": 1 }; a coverage claim on the parent case tests the split with it'
+        error={formState.errors.predicate?.message}
+      >
+        <textarea {...register("predicate")} rows={2} className={`${field} font-mono`} aria-label="machine-readable condition" />
+      </FormField>
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
         Add {parentId ? "sub-case" : "case"}
