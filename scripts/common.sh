@@ -5,6 +5,8 @@
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 DATA="$ROOT/.data"
 mkdir -p "$DATA"
+# Cairn runs on loopback and reports nothing to anyone: the framework's usage telemetry stays off (set it to 0 to allow it).
+export NEXT_TELEMETRY_DISABLED="${NEXT_TELEMETRY_DISABLED:-1}"
 
 say() { printf '\033[1m[cairn]\033[0m %s\n' "$*"; }
 die() { printf '\033[1;31m[cairn] error:\033[0m %s\n' "$*" >&2; exit 1; }
