@@ -66,6 +66,51 @@ export function sparseGraphWorkload(n: number): Workload {
   return { name: `gnm3-${n}`, n, edges };
 }
 
+/**
+ * A connected 3-regular graph on n vertices (n even, n ≥ 6): the cycle 0 … n−1 plus a perfect matching
+ * of a shuffled order (Fisher–Yates with the LCG), reshuffled until no matching edge repeats a cycle
+ * edge; seed = 3000000 + n. ρ = 3, simple, with the all-ones vector (Perron–Frobenius; common practice).
+ */
+export function cubicWorkload(n: number): Workload {
+  if (n % 2 !== 0 || n < 6) throw new Error("a cubic workload needs an even n ≥ 6");
+  const rng = new Lcg(3_000_000 + n);
+  const cycle: Array<[number, number]> = [];
+  for (let i = 0; i < n; i++) cycle.push([Math.min(i, (i + 1) % n), Math.max(i, (i + 1) % n)]);
+  const onCycle = (a: number, b: number) => Math.abs(a - b) === 1 || Math.abs(a - b) === n - 1;
+  for (;;) {
+    const order = Array.from({ length: n }, (_, i) => i);
+    for (let i = n - 1; i > 0; i--) {
+      const j = rng.randint(i + 1);
+      [order[i], order[j]] = [order[j], order[i]];
+    }
+    const matching: Array<[number, number]> = [];
+    for (let i = 0; i < n; i += 2) matching.push([Math.min(order[i], order[i + 1]), Math.max(order[i], order[i + 1])]);
+    if (matching.every(([a, b]) => !onCycle(a, b))) return { name: `cubic-${n}`, n, edges: [...cycle, ...matching] };
+  }
+}
+
+/**
+ * Pairs of equal gadgets glued into a graph: for each gadget (a simple graph with an eigenvector x for
+ * the eigenvalue λ, e.g. an affine diagram and its null vector of 2I − A) two copies are added and the copies of gadget vertex `at` are both
+ * joined to one host vertex w. x on the first copy minus x on the second (0 elsewhere) is then an
+ * eigenvector of the whole graph for λ: at w the two contributions cancel, and each copy only sees w's
+ * value 0 (common practice: the same argument as for twin vertices). Host vertices are 0, 7, 14, ….
+ */
+export function gluedWorkload(host: Workload, gadget: Graph, at: number, pairs: number): Workload {
+  const k = gadget.n;
+  const edges: Array<[number, number]> = host.edges.map(([u, v]) => [u, v]);
+  let next = host.n;
+  for (let p = 0; p < pairs; p++) {
+    const w = (7 * p) % host.n;
+    for (let copy = 0; copy < 2; copy++) {
+      for (const { u, v } of gadget.edges) edges.push([next + u, next + v]);
+      edges.push([w, next + at]);
+      next += k;
+    }
+  }
+  return { name: `${host.name}-glued-${pairs}`, n: next, edges };
+}
+
 /** G(n, 1/2) in lexicographic pair order; seed = 2000000 + n. */
 export function halfDenseGraphWorkload(n: number): Workload {
   const rng = new Lcg(2_000_000 + n);

@@ -102,12 +102,12 @@ describe("certified floating-point front", () => {
     }
   });
 
-  it("declines when an eigenvalue sits at b, and the exact fallback counts the zeros (K_n at −1, C_n at 2), and a dense graph agrees with Descartes", () => {
+  it("counts eigenvalues at b by exact kernel vectors (K_n at −1, C_n at 2), and a dense graph agrees with Descartes", () => {
     // K_n: eigenvalues n − 1 and −1 (n − 1 times); C_n: 2cos(2πj/n), so 2 once (Brouwer & Haemers, Spectra of Graphs, §1.4).
     const k = complete(30);
     const r = sparseInertia(k, rat(-1), "none", big(), undefined, { degree: 2 });
     expect(counts(r)).toEqual([0, 1, 29]);
-    expect(r.front).toBeUndefined();
+    expect(r.front).toBe(30); // the 29 zeros were proven by kernel vectors (e_u − e_v), not by redoing the block exactly
     expect(counts(sparseInertia(cycle(40), rat(2), "none", big(), undefined, { degree: 1 }))).toEqual([39, 0, 1]);
     // A dense random graph (40 vertices, 400 edges) at small integers b, against Descartes.
     const g = randomGraph(40, 400, 77);
@@ -125,7 +125,7 @@ describe("certified floating-point front", () => {
         ],
         tiny,
       );
-      if (r) expect(r).toEqual(sgn > 0n ? { positive: 2, negative: 0 } : { positive: 1, negative: 1 });
+      if (r) expect(r).toEqual(sgn > 0n ? { positive: 2, negative: 0, zero: 0 } : { positive: 1, negative: 1, zero: 0 });
       else expect(r).toBeUndefined();
     }
     expect(
@@ -137,7 +137,7 @@ describe("certified floating-point front", () => {
         ],
         1n,
       ),
-    ).toBeUndefined(); // rank 1
+    ).toEqual({ positive: 1, negative: 0, zero: 2 }); // rank 1, eigenvalues 14, 0, 0: the kernel (−2, 1, 0), (−3, 0, 1) checked exactly
     expect(
       certifiedFrontInertia(
         [
@@ -147,7 +147,7 @@ describe("certified floating-point front", () => {
         ],
         -7n,
       ),
-    ).toEqual({ positive: 1, negative: 2 });
+    ).toEqual({ positive: 1, negative: 2, zero: 0 });
   });
 
   it("the bench workload G(n, m) of average degree 3 at n = 1000: the same inertia as the all-exact elimination", () => {

@@ -36,7 +36,12 @@ export function quotientByDouble(d: bigint): (x: bigint) => number {
 export interface FrontInertia {
   readonly positive: number;
   readonly negative: number;
+  /** Zero eigenvalues, each proven by an exact integer kernel vector (partial fallback below). */
+  readonly zero: number;
 }
+
+/** Largest number of discs around 0 for which exact kernel vectors are sought before the caller goes exact. */
+export const FRONT_KERNEL_LIMIT = 64;
 
 /**
  * The inertia of S = N/D (N symmetric, given by its rows as exact integers; D ≠ 0), or undefined when the
@@ -44,7 +49,7 @@ export interface FrontInertia {
  */
 export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: bigint, tick: (steps: number) => void = () => {}): FrontInertia | undefined {
   const f = rows.length;
-  if (f === 0) return { positive: 0, negative: 0 };
+  if (f === 0) return { positive: 0, negative: 0, zero: 0 };
   tick(f * f);
   const S = new Float64Array(f * f);
   const toDouble = quotientByDouble(d);
@@ -55,6 +60,9 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
   tick(f * f * f);
   const A = S.slice();
   const perm = Array.from({ length: f }, (_, i) => i);
+  let scale = 0;
+  for (let i = 0; i < f; i++) scale = Math.max(scale, Math.abs(S[i * f + i]));
+  const tiny = 2 ** -44 * scale;
   const swap = (a: number, b: number) => {
     if (a === b) return;
     for (let k = 0; k < f; k++) [A[a * f + k], A[b * f + k]] = [A[b * f + k], A[a * f + k]];
@@ -66,7 +74,13 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
     for (let i = k + 1; i < f; i++) if (Math.abs(A[i * f + i]) > Math.abs(A[p * f + p])) p = i;
     swap(k, p);
     const dk = A[k * f + k];
-    if (dk === 0 || !Number.isFinite(dk)) return undefined;
+    if (!Number.isFinite(dk)) return undefined;
+    // A pivot at rounding level (a true zero of S, or nearly one) is not eliminated: its column of L
+    // stays 0, which keeps X unit lower triangular, and its disc is settled below (kernel vectors).
+    if (Math.abs(dk) <= tiny) {
+      for (let i = k + 1; i < f; i++) A[i * f + k] = 0;
+      continue;
+    }
     const col = new Float64Array(f);
     for (let i = k + 1; i < f; i++) col[i] = A[i * f + k];
     for (let i = k + 1; i < f; i++) {
@@ -123,18 +137,150 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
     v[i] = s + 2 ** -50 * wSum;
   }
   const safety = 1 + 16 * gamma;
-  let positive = 0,
-    negative = 0;
+  // Disc i of B: centre B̃_ii, radius covering the off-diagonal sum, the error bound and the rounding of
+  // the centre itself. "Clear" discs lie strictly on one side of 0 (the test of the first version).
+  const centre = new Float64Array(f),
+    radius = new Float64Array(f);
+  const touching: number[] = [];
   for (let i = 0; i < f; i++) {
     let err = 0,
       off = 0;
     for (let k = 0; k < f; k++) err += Math.abs(X[i * f + k]) * v[k] + gamma * Math.abs(C[i * f + k]) * w[k];
     for (let j = 0; j < f; j++) if (j !== i) off += Math.abs(B[i * f + j]);
     const diag = B[i * f + i];
+    centre[i] = diag;
+    radius[i] = (off + err) * safety + 4 * gamma * Math.abs(diag) + 1e-300;
     // Written so that a NaN anywhere (∞·0 in a bound) declines instead of passing.
-    if (!(Math.abs(diag) * (1 - 4 * gamma) > (off + err) * safety + 1e-300)) return undefined;
-    if (diag > 0) positive++;
-    else negative++;
+    if (!Number.isFinite(radius[i]) || !Number.isFinite(diag)) return undefined;
+    if (!(Math.abs(diag) * (1 - 4 * gamma) > (off + err) * safety + 1e-300)) touching.push(i);
   }
-  return { positive, negative };
+  if (touching.length === 0) {
+    let positive = 0;
+    for (let i = 0; i < f; i++) if (centre[i] > 0) positive++;
+    return { positive, negative: f - positive, zero: 0 };
+  }
+  return deflate(rows, f, X, perm, centre, radius, tick);
+}
+
+/**
+ * Partial fallback when some discs touch 0. The discs are intervals of the real line (B is symmetric);
+ * each connected component of their union that is disjoint from the others holds exactly as many
+ * eigenvalues of B as it has discs (Gershgorin's theorem, Horn & Johnson Thm 6.1.1). Components away
+ * from 0 give their signs; the one component K through 0 holds |K| eigenvalues. Rows k ∈ K of X are
+ * approximate kernel vectors of S (S·Xᵀe_k = X⁻¹B e_k, and B e_k is small): their reduced echelon form is
+ * rounded to small rationals, scaled to integers and checked EXACTLY against the integer matrix N
+ * (N·y = 0 in BigInt). |K| exact, independent kernel vectors (an identity block at the echelon's pivot
+ * columns) prove nullity(S) ≥ |K|; the eigenvalues outside K are non-zero, so the |K| eigenvalues in K are
+ * all 0. If any step fails (K holds an eigenvalue merely near 0, entries that are not small rationals) the
+ * caller eliminates exactly, as before: only true zeros are settled here.
+ */
+function deflate(
+  rows: readonly (readonly bigint[])[],
+  f: number,
+  X: Float64Array,
+  perm: readonly number[],
+  centre: Float64Array,
+  radius: Float64Array,
+  tick: (steps: number) => void,
+): FrontInertia | undefined {
+  // Components of the union of intervals, with the radii widened so that rounding in c ± r cannot
+  // separate two intervals that meet.
+  const widen = (i: number) => radius[i] * (1 + 2 ** -40) + 2 ** -52 * Math.abs(centre[i]);
+  const order = Array.from({ length: f }, (_, i) => i).sort((a, b) => centre[a] - widen(a) - (centre[b] - widen(b)));
+  let positive = 0,
+    negative = 0;
+  let K: number[] = [];
+  for (let s = 0; s < f;) {
+    const comp = [order[s]];
+    let hi = centre[order[s]] + widen(order[s]);
+    const lo = centre[order[s]] - widen(order[s]);
+    let t = s + 1;
+    for (; t < f && centre[order[t]] - widen(order[t]) <= hi; t++) {
+      comp.push(order[t]);
+      hi = Math.max(hi, centre[order[t]] + widen(order[t]));
+    }
+    if (lo > 0) positive += comp.length;
+    else if (hi < 0) negative += comp.length;
+    else K = comp;
+    s = t;
+  }
+  const m = K.length;
+  if (m === 0 || m > FRONT_KERNEL_LIMIT || m > f) return undefined;
+  // Approximate kernel basis (front order), then reduced echelon form with complete pivoting.
+  tick(m * m * f);
+  const Y = K.map((k) => {
+    const y = new Float64Array(f);
+    for (let j = 0; j < f; j++) y[perm[j]] = X[k * f + j];
+    return y;
+  });
+  const pivotCol: number[] = [];
+  for (let r = 0; r < m; r++) {
+    let bi = r,
+      bj = -1,
+      best = 0;
+    for (let i = r; i < m; i++)
+      for (let j = 0; j < f; j++)
+        if (Math.abs(Y[i][j]) > best && !pivotCol.includes(j)) {
+          best = Math.abs(Y[i][j]);
+          bi = i;
+          bj = j;
+        }
+    if (bj < 0 || !Number.isFinite(best)) return undefined;
+    [Y[r], Y[bi]] = [Y[bi], Y[r]];
+    const pr = Y[r],
+      pv = pr[bj];
+    for (let j = 0; j < f; j++) pr[j] /= pv;
+    for (let i = 0; i < m; i++) {
+      if (i === r) continue;
+      const c = Y[i][bj];
+      if (c !== 0) for (let j = 0; j < f; j++) Y[i][j] -= c * pr[j];
+    }
+    pivotCol.push(bj);
+  }
+  // Round to small rationals, scale to integers, and check exactly.
+  for (let r = 0; r < m; r++) {
+    const entries: Array<[number, bigint, bigint]> = [];
+    let lcm = 1n;
+    for (let j = 0; j < f; j++) {
+      const isPivot = pivotCol.indexOf(j);
+      const q = isPivot >= 0 ? ([isPivot === r ? 1n : 0n, 1n] as const) : smallRational(Y[r][j]);
+      if (!q) return undefined;
+      if (q[0] === 0n) continue;
+      entries.push([j, q[0], q[1]]);
+      lcm = (lcm / gcd(lcm, q[1])) * q[1];
+    }
+    const y = entries.map(([j, a, d]) => [j, (a * lcm) / d] as const);
+    tick(f * y.length);
+    for (let i = 0; i < f; i++) {
+      let s = 0n;
+      for (const [j, a] of y) s += rows[i][j] * a;
+      if (s !== 0n) return undefined;
+    }
+  }
+  return { positive, negative, zero: m };
+}
+
+function gcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) [a, b] = [b, a % b];
+  return a < 0n ? -a : a;
+}
+
+/** x as a rational with denominator at most 2^12 within 2^-30·max(1, |x|) (continued fractions), [0, 1] below 2^-30, or undefined. */
+function smallRational(x: number): readonly [bigint, bigint] | undefined {
+  if (!Number.isFinite(x)) return undefined;
+  if (Math.abs(x) < 2 ** -30) return [0n, 1n];
+  const tol = 2 ** -30 * Math.max(1, Math.abs(x));
+  let [h0, h1, k0, k1] = [0, 1, 1, 0];
+  let r = x;
+  for (let step = 0; step < 40; step++) {
+    const a = Math.floor(r);
+    [h0, h1] = [h1, a * h1 + h0];
+    [k0, k1] = [k1, a * k1 + k0];
+    if (k1 > 4096 || !Number.isSafeInteger(h1)) return undefined;
+    if (Math.abs(x - h1 / k1) <= tol) return [BigInt(h1), BigInt(k1)];
+    const frac = r - a;
+    if (frac === 0) return undefined;
+    r = 1 / frac;
+  }
+  return undefined;
 }

@@ -31,8 +31,25 @@ const RELATIONS: readonly Relation[] = ["<", "<=", "=", ">=", ">"];
 const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
 
 export type SpectralRadiusCertificate =
-  /** Inertia of (at)I − A with no negative value: ρ <= at, and ρ < at when zero = 0. */
-  | { kind: "inertia"; at: string; engine: "forest" | "sparse"; steps?: PivotStep[]; signs?: string; positive: number; negative: 0; zero: number }
+  /**
+   * Inertia of (at)I − A: no negative value gives ρ <= at (ρ < at when zero = 0, ρ = at otherwise); a
+   * negative value gives ρ > at. Forest engine: negative is 0. Sparse engine: `steps` is the exact
+   * minimum-degree order (with the sign of each pivot in `signs`); when `front` is present, the
+   * vertices left after the last step form a dense front whose counts come from the certified
+   * floating-point check of float-front.ts (a proof: a-priori rounding bounds and Gershgorin discs,
+   * zeros by exact integer kernel vectors), which the re-check repeats on the same exact matrix.
+   */
+  | {
+      kind: "inertia";
+      at: string;
+      engine: "forest" | "sparse";
+      steps?: PivotStep[];
+      signs?: string;
+      front?: number;
+      positive: number;
+      negative: number;
+      zero: number;
+    }
   /**
    * Forest: the Jacobs–Trevisan elimination of (at)I − A with the given stop rule stops at vertex
    * `stoppedAt` on a value of sign `sign` (every earlier value positive): ρ >= at (ρ > at when sign is -1).
@@ -100,6 +117,11 @@ export function quadraticForm(g: Graph, b: Rational, x: ReadonlyMap<number, Rati
   return s;
 }
 
+/** ρ versus `at` from the complete inertia of (at)I − A (Perron–Frobenius: ρ = λ_max). */
+function inertiaRelation(r: { negative: number; zero: number }): Relation {
+  return r.negative > 0 ? ">" : r.zero > 0 ? "=" : "<";
+}
+
 /** What a certificate proves about ρ relative to its own point `at`. */
 type Fact = { rel: Relation; at: Rational };
 
@@ -134,20 +156,21 @@ function runAt(
   // A forest's early stop is certified by its sign alone when asked (the re-check repeats the
   // elimination): no witness vector, whose exact quadratic form can cost far more than the elimination.
   const witness = !probeOnly && !(signsOnly && forest);
-  const r = forest ? treeInertia(g, at, stop, budget, false, witness) : sparseInertia(g, at, stop, budget);
+  const r = forest ? treeInertia(g, at, stop, budget, false, witness) : sparseInertia(g, at, stop, budget, undefined, { degree: FLOAT_FRONT_DEGREE });
   const atText = ratToString(at);
   if (r.complete) {
-    const sparse = "steps" in r ? { steps: (r as SparseEliminationResult).steps, signs: (r as SparseEliminationResult).signs } : {};
+    const sr = r as SparseEliminationResult;
+    const sparse = "steps" in r ? { steps: sr.steps, signs: sr.signs, ...(sr.front !== undefined ? { front: sr.front } : {}) } : {};
     const cert: SpectralRadiusCertificate = {
       kind: "inertia",
       at: atText,
       engine: forest ? "forest" : "sparse",
       ...sparse,
       positive: r.positive,
-      negative: 0,
+      negative: r.negative,
       zero: r.zero,
     };
-    return { fact: { rel: r.zero > 0 ? "=" : "<", at }, cert, forest };
+    return { fact: { rel: inertiaRelation(r), at }, cert, forest };
   }
   // A probe whose failure is not going to be reported needs no certificate (and no costly re-evaluation).
   if (probeOnly) return { fact: { rel: ">=", at }, cert: { kind: "rayleigh", at: atText, vector: [], value: "0" }, forest };
@@ -222,10 +245,19 @@ function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation; cert:
 
 function explain(cert: SpectralRadiusCertificate, n: number): string {
   switch (cert.kind) {
-    case "inertia":
-      return cert.zero === 0
-        ? `All ${n} diagonal values of a matrix congruent to ${cert.at}I − A are positive, so ${cert.at}I − A is positive definite (Sylvester's law of inertia) and every eigenvalue of A is below ${cert.at}; ρ = λ_max for non-negative symmetric A (Perron–Frobenius).`
-        : `A matrix congruent to ${cert.at}I − A has ${cert.positive} positive and ${cert.zero} zero diagonal values and no negative one, so ${cert.at}I − A is positive semidefinite and singular: λ_max(A) = ρ = ${cert.at}.`;
+    case "inertia": {
+      const front = cert.front
+        ? ` The last ${cert.front} vertices of the elimination form a dense block whose signs were certified in floating point with a rigorous rounding bound (Gershgorin discs clear of 0; each zero eigenvalue shown by an exact integer kernel vector).`
+        : "";
+      if (cert.negative > 0)
+        return `A matrix congruent to ${cert.at}I − A has ${cert.negative} negative diagonal value(s), so ${cert.at}I − A has a negative eigenvalue (Sylvester's law of inertia) and λ_max(A) = ρ > ${cert.at} (Perron–Frobenius).${front}`;
+      return (
+        (cert.zero === 0
+          ? `All ${n} diagonal values of a matrix congruent to ${cert.at}I − A are positive, so ${cert.at}I − A is positive definite (Sylvester's law of inertia) and every eigenvalue of A is below ${cert.at}; ρ = λ_max for non-negative symmetric A (Perron–Frobenius).`
+          : `A matrix congruent to ${cert.at}I − A has ${cert.positive} positive and ${cert.zero} zero diagonal values and no negative one, so ${cert.at}I − A is positive semidefinite and singular: λ_max(A) = ρ = ${cert.at}.`) +
+        front
+      );
+    }
     case "rayleigh":
       return `The vector x in the certificate (support ${cert.vector.length}) has xᵀ(${cert.at}I − A)x = ${cert.value} ${cert.value.startsWith("-") ? "< 0" : "≤ 0"}, so the Rayleigh quotient xᵀAx/xᵀx is ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at} and ρ ${cert.value.startsWith("-") ? ">" : "≥"} ${cert.at}.`;
     case "algebraic-sparse":
@@ -430,9 +462,11 @@ export function recheckSpectralRadiusBound(
 
 function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {
   const pos = expectInt(c.positive, "certificate.positive", 0, g.n),
-    zero = expectInt(c.zero, "certificate.zero", 0, g.n);
-  if (c.negative !== 0) reject("certificate.negative must be 0");
-  if (pos + zero !== g.n) reject(`certificate counts ${pos} + ${zero} values for ${g.n} vertices`);
+    zero = expectInt(c.zero, "certificate.zero", 0, g.n),
+    negative = expectInt(c.negative, "certificate.negative", 0, g.n);
+  if (c.engine !== "sparse" && negative !== 0) reject("certificate.negative must be 0");
+  if (pos + negative + zero !== g.n) reject(`certificate counts ${pos} + ${negative} + ${zero} values for ${g.n} vertices`);
+  const front = c.front === undefined ? undefined : expectInt(c.front, "certificate.front", 2, g.n);
   let r: EliminationResult;
   if (c.engine === "forest") {
     if (!isForest(g)) reject("certificate.engine is forest but the graph has a cycle");
@@ -441,7 +475,7 @@ function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budg
     if (!Array.isArray(c.steps)) reject("certificate.steps must list the elimination order");
     let replayed;
     try {
-      replayed = sparseInertia(g, at, "none", budget, c.steps as PivotStep[]);
+      replayed = sparseInertia(g, at, "none", budget, c.steps as PivotStep[], front === undefined ? undefined : { degree: FLOAT_FRONT_DEGREE });
     } catch (e) {
       if (e instanceof ReplayError) reject(`certificate.steps: ${e.message}`);
       throw e;
@@ -454,11 +488,13 @@ function recheckInertia(g: Graph, at: Rational, c: Record<string, unknown>, budg
           : "certificate.signs does not match the elimination",
       );
     }
+    if (replayed.front !== front) reject(`certificate.front is ${front ?? "absent"}, but ${replayed.front ?? "no"} vertices are left after the steps`);
     r = replayed;
   } else return reject(`certificate.engine must be "forest" or "sparse"`);
-  if (!r.complete || r.negative > 0) reject(`${ratToString(at)}I − A has a negative value (at vertex ${r.stoppedAt ?? "?"}), not the claimed inertia`);
-  if (r.positive !== pos || r.zero !== zero) reject(`recomputed inertia (${r.positive}, 0, ${r.zero}) differs from the certificate's (${pos}, 0, ${zero})`);
-  return { rel: zero > 0 ? "=" : "<", at };
+  if (!r.complete) reject(`${ratToString(at)}I − A has a negative value (at vertex ${r.stoppedAt ?? "?"}), not the claimed inertia`);
+  if (r.positive !== pos || r.negative !== negative || r.zero !== zero)
+    reject(`recomputed inertia (${r.positive}, ${r.negative}, ${r.zero}) differs from the certificate's (${pos}, ${negative}, ${zero})`);
+  return { rel: inertiaRelation(r), at };
 }
 
 function recheckRayleigh(g: Graph, at: Rational, c: Record<string, unknown>, budget: Budget): Fact {

@@ -35,9 +35,11 @@ export interface SparseEliminationResult extends EliminationResult {
 }
 
 /**
- * When to hand the rest of a full elimination to the certified floating-point front (float-front.ts):
- * once the vertex of least current degree has `degree` neighbours or more. Only for full counts
- * (stop rule "none", no replay): certificates that replay an elimination order stay exact throughout.
+ * When to hand the rest of an elimination to the certified floating-point front (float-front.ts):
+ * once the vertex of least current degree has `degree` neighbours or more. Under an early-stop rule the
+ * exact steps before the front still stop at the first pivot that decides; past that point the front's
+ * count is complete. With `replay`, the front starts right after the last replayed step (the order a
+ * certificate lists), and the replay fails when the front's certificate does not hold.
  */
 export interface FrontOption {
   readonly degree: number;
@@ -174,7 +176,7 @@ export function sparseInertia(
 
   let frontTried = false;
   /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
-  const tryFront = (): { positive: number; negative: number; size: number } | undefined => {
+  const tryFront = (): { positive: number; negative: number; zero: number; size: number } | undefined => {
     const list: number[] = [];
     for (let v = 0; v < n; v++) if (alive[v]) list.push(v);
     const pos = new Map(list.map((v, i) => [v, i]));
@@ -191,7 +193,15 @@ export function sparseInertia(
   for (let done = 0; done < n;) {
     let piv: number,
       partner = -1;
-    if (!replay && front && stop === "none" && !frontTried && n - done > 1) {
+    if (replay && front && steps.length === replay.length) {
+      const r = tryFront();
+      if (!r) throw new ReplayError(`the floating-point certificate of the front of ${n - done} vertices left after ${steps.length} steps does not hold`);
+      positive += r.positive;
+      negative += r.negative;
+      zero += r.zero;
+      return result(true, { front: r.size });
+    }
+    if (!replay && front && !frontTried && n - done > 1) {
       const v = popMin();
       if (rows[v].size >= front.degree) {
         frontTried = true;
@@ -199,6 +209,7 @@ export function sparseInertia(
         if (r) {
           positive += r.positive;
           negative += r.negative;
+          zero += r.zero;
           return result(true, { front: r.size });
         }
       }
