@@ -24,5 +24,6 @@ export { RefereeReport } from "./referee-report";
 export { RoundDecision } from "./round-decision";
 export { RoundReminder } from "./round-reminder";
 export { StepFile } from "./step-file";
+export { PartUpload } from "./part-upload";
 export { FormerMember } from "./former-member";
 export { BatchClaim, BatchResult } from "./batch-claim";

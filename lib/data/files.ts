@@ -1,9 +1,11 @@
 import "server-only";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
-import { notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
+import { detectFile, UnpackedTooLarge, UnsupportedContent } from "@/lib/uploads/detect";
 import { fileStore } from "@/lib/storage";
 import type { DetectedFile, FileKind } from "@/lib/uploads/detect";
+import type { Transaction } from "sequelize";
 import type { GraphListFormat } from "@/lib/core/input/graph-list";
 import type { StepFile } from "@/models/step-file";
 
@@ -65,6 +67,29 @@ export function cleanFileName(name: string | null | undefined): string {
   return clean || "upload";
 }
 
+/** Unpacked gzip may be this many times the upload limit. */
+const UNPACK_FACTOR = 4;
+
+/**
+ * What the uploaded bytes are, decided by their content: 415 for content Cairn does not take (or that
+ * contradicts the `kind` the uploader chose), 413 when gzip unpacks past UNPACK_FACTOR × the limit.
+ */
+export function acceptUpload(bytes: Uint8Array, limit: number, kind?: FileKind | null): DetectedFile {
+  try {
+    return detectFile(bytes, limit * UNPACK_FACTOR, kind ?? undefined);
+  } catch (e) {
+    if (e instanceof UnsupportedContent) throw new AppError("unsupported_media_type", e.message);
+    if (e instanceof UnpackedTooLarge)
+      throw new AppError(
+        "too_large",
+        `The gzip file unpacks to more than ${UNPACK_FACTOR} × the upload limit (${e.limit} bytes); nothing was saved. Split the list into several files.`,
+        undefined,
+        { limitBytes: e.limit },
+      );
+    throw e;
+  }
+}
+
 /**
  * Stores the file and its row; `duplicate` when this step already had these bytes (its existing row
  * is returned and nothing new is written).
@@ -76,10 +101,13 @@ export async function saveStepFile(
   name: string,
   bytes: Uint8Array,
   detected: DetectedFile,
+  /** Run inside the row's transaction (an upload in parts deletes its own row there); throwing undoes the row. */
+  within?: (transaction: Transaction) => Promise<void>,
 ): Promise<{ file: StepFileView; duplicate: boolean; storedNew: boolean }> {
   const { StepFile, AuditEvent } = models();
   const put = await fileStore().put(bytes);
   const result = await getSequelize().transaction(async (transaction) => {
+    await within?.(transaction);
     const existing = await StepFile.findOne({ where: { stepId, sha256: put.sha256 }, transaction, lock: transaction.LOCK.UPDATE });
     if (existing) return { row: existing, duplicate: true };
     const row = await StepFile.create(

@@ -18,6 +18,7 @@ import { may } from "@/lib/access";
 import { listStepFiles } from "@/lib/data/files";
 import { FileList } from "@/components/files/file-list";
 import { FileUpload } from "@/components/files/file-upload";
+import { readEnv } from "@/lib/env";
 import { BatchForm } from "@/components/batches/batch-form";
 import { BatchList } from "@/components/batches/batch-list";
 import { parseCompare } from "@/lib/review/compare-link";
@@ -92,7 +93,7 @@ export default async function StepPage({
         </details>
       )}
       <FileList proofId={proofId} stepId={step.id} initial={files} />
-      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
+      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} partSize={readEnv().CAIRN_UPLOAD_PART_BYTES} />}
       <BatchList proofId={proofId} stepId={step.id} canCancel={isAuthor} />
       {may(standing, "claims.write") && <BatchForm proofId={proofId} stepId={step.id} />}
       <RevisionHistory
