@@ -313,17 +313,22 @@ function coverageTasks(): BenchTask[] {
     },
   });
   const condition = (c: unknown) => validateCondition(c);
+  const simpleSplit: CoverageCase[] = [
+    { condition: condition({ predicate: "max-degree", relation: "<=", value: 2 }) },
+    { condition: condition({ and: [{ predicate: "max-degree", relation: ">=", value: 3 }, { not: { predicate: "contains", graph: "Bw" } }] }) },
+    { condition: condition({ predicate: "contains", graph: "Bw" }) },
+  ];
+  const treeSplit: CoverageCase[] = [
+    { condition: condition({ predicate: "path" }) },
+    { condition: condition({ predicate: "branch-vertices", relation: "=", value: 1 }) },
+    { condition: condition({ predicate: "branch-vertices", relation: ">=", value: 2 }) },
+  ];
+  // The enumeration is streamed through the conditions, so the peak memory should not grow with the number of graphs.
   return [
-    task("coverage-connected-8", "connected graphs, ≤ 8 vertices", 8, "simple", [
-      { condition: condition({ predicate: "max-degree", relation: "<=", value: 2 }) },
-      { condition: condition({ and: [{ predicate: "max-degree", relation: ">=", value: 3 }, { not: { predicate: "contains", graph: "Bw" } }] }) },
-      { condition: condition({ predicate: "contains", graph: "Bw" }) },
-    ]),
-    task("coverage-trees-16", "trees, ≤ 16 vertices", 16, "tree", [
-      { condition: condition({ predicate: "path" }) },
-      { condition: condition({ predicate: "branch-vertices", relation: "=", value: 1 }) },
-      { condition: condition({ predicate: "branch-vertices", relation: ">=", value: 2 }) },
-    ]),
+    task("coverage-connected-8", "connected graphs, ≤ 8 vertices", 8, "simple", simpleSplit),
+    task("coverage-connected-9", "connected graphs, ≤ 9 vertices", 9, "simple", simpleSplit),
+    task("coverage-trees-16", "trees, ≤ 16 vertices", 16, "tree", treeSplit),
+    task("coverage-trees-18", "trees, ≤ 18 vertices", 18, "tree", treeSplit),
   ];
 }
 
