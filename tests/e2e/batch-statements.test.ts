@@ -45,7 +45,7 @@ beforeAll(async () => {
   ] as const) {
     writeFileSync(join(dir, name), lines.join("\n") + "\n");
     await page.getByTestId("file-input").setInputFiles(join(dir, name));
-    await expect.poll(async () => (await page.getByTestId("file-list").textContent()) ?? "", { timeout: 60_000 }).toContain(name);
+    await page.getByTestId("file-list").getByText(name).first().waitFor({ timeout: 60_000 });
   }
 });
 afterAll(async () => {
