@@ -126,6 +126,9 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "POST api/proofs/[proofId]/steps/[stepId]/reviews/route.ts": members(["reviewer"]),
   "GET api/proofs/[proofId]/steps/[stepId]/files/route.ts": ALL_MEMBERS,
   "POST api/proofs/[proofId]/steps/[stepId]/files/route.ts": AUTHORS,
+  // Files of a claim: read like the files of its step, uploaded by its uploaders.
+  "GET api/proofs/[proofId]/claims/[claimId]/files/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/claims/[claimId]/files/route.ts": AUTHORS,
   // Uploads in parts: the uploaders only (authors and the owner), like a one-request upload.
   "POST api/proofs/[proofId]/steps/[stepId]/uploads/route.ts": AUTHORS,
   "GET api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/route.ts": AUTHORS,

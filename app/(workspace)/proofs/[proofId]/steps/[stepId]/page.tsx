@@ -70,6 +70,7 @@ export default async function StepPage({
             initial={{ claims, withdrawn, verification }}
             canRecheck={may(standing, "claims.recheck")}
             canWithdraw={isAuthor}
+            uploadPartSize={may(standing, "files.upload") ? readEnv().CAIRN_UPLOAD_PART_BYTES : undefined}
           />
           <div className="mt-4">
             <VerdictCaution />
