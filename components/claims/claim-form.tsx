@@ -1,4 +1,5 @@
 "use client";
+import { ClaimPanel } from "./claim-panel";
 import { useState } from "react";
 import { ClaimPreview } from "./claim-preview";
 import { useForm, type UseFormRegister } from "react-hook-form";
@@ -101,15 +102,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   });
 
   return (
-    <form
-      onSubmit={submit}
-      className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4"
-      aria-labelledby="claim-form-heading"
-      data-testid="claim-form"
-    >
-      <h3 id="claim-form-heading" className="font-semibold">
-        Attach a claim
-      </h3>
+    <ClaimPanel name="claim-form" title="Attach a claim" onSubmit={submit}>
       <FormField label="Kind">
         <select {...register("kind")} className={input}>
           {CLAIM_KINDS.map((k) => (
@@ -294,6 +287,6 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         <textarea {...register("certificate")} rows={2} className={input} />
       </FormField>
       <SubmitRow label="Attach claim" busyLabel="Checking the input…" busy={formState.isSubmitting} message={message} />
-    </form>
+    </ClaimPanel>
   );
 }
