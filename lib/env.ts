@@ -46,6 +46,9 @@ const schema = z
     CAIRN_S3_ACCESS_KEY_ID: z.string().min(1).optional(),
     CAIRN_S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
     CAIRN_UPLOAD_MAX_BYTES: positiveInt.default(64 * 1024 * 1024),
+    // Uploads in parts (lib/uploads/parts.ts): files larger than one part go up part by part, staged here.
+    CAIRN_UPLOAD_PART_BYTES: positiveInt.default(8 * 1024 * 1024),
+    CAIRN_UPLOAD_PARTS_DIR: z.string().min(1).optional(),
   })
   .superRefine((env, ctx) => {
     if (env.CAIRN_STORAGE === "s3" && !env.CAIRN_S3_BUCKET)

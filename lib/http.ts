@@ -156,18 +156,17 @@ async function readLimited(request: Request, limit: number): Promise<string> {
 
 /** A file sent as the raw request body (uploads): 413 naming the limit past `limit` bytes (checked while reading). */
 export function readFileBody(request: Request, limit: number): Promise<Uint8Array> {
-  return readLimitedBytes(
-    request,
-    limit,
-    () =>
-      new AppError(
-        "too_large",
-        `The file is larger than the upload limit of ${sizeName(limit)}; nothing was saved. Compress a graph list with gzip, or split it into several files.`,
-        undefined,
-        { limitBytes: limit },
-      ),
-  );
+  return readLimitedBytes(request, limit, () => uploadTooLarge(limit));
 }
+
+/** 413 for a file past the upload limit (one request, or an upload in parts declared or put together past it), naming the limit. */
+export const uploadTooLarge = (limit: number) =>
+  new AppError(
+    "too_large",
+    `The file is larger than the upload limit of ${sizeName(limit)}; nothing was saved. Compress a graph list with gzip, or split it into several files.`,
+    undefined,
+    { limitBytes: limit },
+  );
 
 export { sizeName };
 

@@ -24,5 +24,7 @@ export { RefereeReport } from "./referee-report";
 export { RoundDecision } from "./round-decision";
 export { RoundReminder } from "./round-reminder";
 export { StepFile } from "./step-file";
+export { PartUpload } from "./part-upload";
+export { ClaimFile } from "./claim-file";
 export { FormerMember } from "./former-member";
 export { BatchClaim, BatchResult } from "./batch-claim";

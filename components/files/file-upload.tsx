@@ -1,7 +1,7 @@
 "use client";
 import { useRef, useState } from "react";
 import { useSWRConfig } from "swr";
-import { formatBytes, uploadWithProgress } from "./upload-request";
+import { formatBytes, sendFile } from "./upload-request";
 
 const KINDS = [
   { value: "", label: "decide by its content" },
@@ -14,7 +14,7 @@ const KINDS = [
  * Upload a file to a step: drop it on the area or choose it, watch the bytes go up, then see it in
  * the step's files. The server decides the type from the content and says so; a refusal says why.
  */
-export function FileUpload({ proofId, stepId }: { proofId: number; stepId: number }) {
+export function FileUpload({ proofId, stepId, partSize }: { proofId: number; stepId: number; /** Files larger than this go up in parts. */ partSize: number }) {
   const { mutate } = useSWRConfig();
   const input = useRef<HTMLInputElement>(null);
   const [kind, setKind] = useState("");
@@ -28,11 +28,8 @@ export function FileUpload({ proofId, stepId }: { proofId: number; stepId: numbe
     setMessage(null);
     setProblem(null);
     setProgress({ name: file.name, sent: 0, total: file.size });
-    const query = new URLSearchParams({ name: file.name, ...(kind ? { kind } : {}) });
     try {
-      const answer = await uploadWithProgress(`/api/proofs/${proofId}/steps/${stepId}/files?${query}`, file, (sent, total) =>
-        setProgress({ name: file.name, sent, total }),
-      );
+      const answer = await sendFile(proofId, stepId, file, kind, partSize, (sent, total) => setProgress({ name: file.name, sent, total }));
       if (answer.status === 200 || answer.status === 201) {
         const f = answer.body!.file!;
         setMessage(

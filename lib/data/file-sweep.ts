@@ -5,13 +5,15 @@ import "server-only";
  * (lib/data/files.ts), so an upload cut short can leave an object that no row names: those older than
  * the age below are deleted. The other way round, a row whose object is gone (a store restored from an
  * older backup, an object removed by hand) is reported, and deleted when nothing refers to it; a row a
- * batch claim was made over is kept, so the batch keeps its file's name, and the worker says so.
+ * batch claim was made over is kept, so the batch keeps its file's name, and the worker says so. Uploads in parts
+ * untouched for the same age are abandoned: their rows and staged parts are removed (lib/data/part-uploads.ts).
  */
 import { QueryTypes } from "sequelize";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { fileStore, sweepOrphans } from "@/lib/storage";
 import { isFileNamed } from "./files";
+import { sweepPartUploads } from "./part-uploads";
 import { recordEvent } from "./audit";
 
 export interface FileSweepReport {
@@ -21,6 +23,8 @@ export interface FileSweepReport {
   rowsRemoved: number;
   /** Rows whose object is missing but that a batch claim refers to (kept). */
   rowsKept: number;
+  /** Uploads in parts never finished (rows and staged parts), removed. */
+  uploadsRemoved: number;
 }
 
 /** Only files older than this are touched: an upload in flight has its object before its row. */
@@ -28,6 +32,8 @@ export const fileSweepAge = (): number => Number(process.env.CAIRN_FILE_SWEEP_AG
 
 export async function sweepStoredFiles(olderThanMs = fileSweepAge(), now = Date.now()): Promise<FileSweepReport> {
   const store = fileStore();
+  // Unfinished uploads in parts first: their staged parts are not in the store, and no row names them.
+  const uploadsRemoved = await sweepPartUploads(olderThanMs, now);
   const objectsRemoved = await sweepOrphans(store, isFileNamed, olderThanMs, now);
   const rows = await getSequelize().query<{ id: number; sha256: string; stepId: number; name: string; proofId: number; batches: number }>(
     `SELECT f.id, f.sha256, f.step_id AS stepId, f.name, c.proof_id AS proofId,
@@ -61,5 +67,5 @@ export async function sweepStoredFiles(olderThanMs = fileSweepAge(), now = Date.
       rowsRemoved += gone;
     });
   }
-  return { objectsRemoved, rowsRemoved, rowsKept };
+  return { objectsRemoved, rowsRemoved, rowsKept, uploadsRemoved };
 }

@@ -43,7 +43,8 @@ export interface FileSweepJobData {
 }
 
 export type JobData = ClaimJobData | BundleJobData | BatchJobData | FileSweepJobData;
-export type JobResult = { decided: boolean } | { decided: number } | BundleCheckReport | { objectsRemoved: number; rowsRemoved: number; rowsKept: number };
+export type JobResult =
+  { decided: boolean } | { decided: number } | BundleCheckReport | { objectsRemoved: number; rowsRemoved: number; rowsKept: number; uploadsRemoved: number };
 
 /** The file sweep's schedule: one repeatable job for all workers, every CAIRN_FILE_SWEEP_EVERY_MS (an hour by default). */
 export const FILE_SWEEP_SCHEDULER = "file-sweep";

@@ -288,9 +288,13 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
     .upsertJobScheduler(FILE_SWEEP_SCHEDULER, { every: fileSweepEvery() }, { name: FILE_SWEEP_SCHEDULER, data: { type: "file-sweep" } })
     .catch((e: Error) => log(`[cairn worker] the file sweep could not be scheduled: ${e.message}`));
   worker.on("completed", (job, result) => {
-    if (job.data.type === "file-sweep" && "objectsRemoved" in result && result.objectsRemoved + result.rowsRemoved + result.rowsKept > 0)
+    if (
+      job.data.type === "file-sweep" &&
+      "objectsRemoved" in result &&
+      result.objectsRemoved + result.rowsRemoved + result.rowsKept + result.uploadsRemoved > 0
+    )
       log(
-        `[cairn worker] file sweep: removed ${result.objectsRemoved} stored files no row names, ${result.rowsRemoved} rows whose file was missing; kept ${result.rowsKept} such rows a batch claim refers to`,
+        `[cairn worker] file sweep: removed ${result.objectsRemoved} stored files no row names, ${result.rowsRemoved} rows whose file was missing; kept ${result.rowsKept} such rows a batch claim refers to; removed ${result.uploadsRemoved} unfinished uploads in parts`,
       );
     if (job.data.type === "claim")
       log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);

@@ -21,6 +21,8 @@ export default async function setup(project: TestProject) {
     NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "e2e-secret-for-browser-tests",
     // Its own queue on the tests' Redis, apart from the integration tests' (another database).
     CAIRN_QUEUE_PREFIX: `${process.env.CAIRN_QUEUE_PREFIX ?? "cairn-test"}-e2e`,
+    // Small parts, so that a browser test sends a file in parts without a large file (the batch test's 39 KB list stays one request).
+    CAIRN_UPLOAD_PART_BYTES: process.env.CAIRN_UPLOAD_PART_BYTES ?? String(48 * 1024),
   };
   for (const script of ["scripts/migrate.ts", "scripts/seed.ts"]) execFileSync("node_modules/.bin/tsx", [script], { env, stdio: "inherit" });
   server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(E2E_PORT)], {
@@ -41,6 +43,7 @@ export default async function setup(project: TestProject) {
     await new Promise((r) => setTimeout(r, 300));
   }
   project.provide("baseUrl", base);
+  project.provide("partBytes", Number(env.CAIRN_UPLOAD_PART_BYTES));
   const worker = startTestWorker(env, ".data/e2e-worker.log");
   await worker.ready;
   return async () => {
@@ -58,5 +61,6 @@ export default async function setup(project: TestProject) {
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
+    partBytes: number;
   }
 }

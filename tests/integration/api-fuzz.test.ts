@@ -55,6 +55,7 @@ import * as preferencesRoute from "@/app/api/notifications/preferences/route";
 import * as passwordRoute from "@/app/api/account/password/route";
 import * as ownerRoute from "@/app/api/proofs/[proofId]/owner/route";
 import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
+import * as partUploadsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/route";
 
 const RUNS = Number(process.env.CAIRN_FUZZ_RUNS ?? 60);
 const ERROR_CODES = [
@@ -184,6 +185,15 @@ const TARGETS: Target[] = [
     call: batchesRoute.POST as Call,
     params: () => ({ proofId, stepId: String(step.id) }),
     valid: () => ({ fileId: 2147483000, op: "<", bound: "sqrt(2+sqrt(5))" }),
+  },
+  {
+    // Starting an upload in parts: a valid body makes an upload row (nothing stored until its parts are sent and it is finished).
+    file: "api/proofs/[proofId]/steps/[stepId]/uploads/route.ts",
+    method: "POST",
+    who: "author",
+    call: partUploadsRoute.POST as Call,
+    params: () => ({ proofId, stepId: String(step.id) }),
+    valid: () => ({ name: "trees-12.g6", size: 20000, sha256: "0".repeat(64), kind: "graph-list" }),
   },
   {
     file: "api/proofs/[proofId]/steps/[stepId]/comments/route.ts",

@@ -126,6 +126,17 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "POST api/proofs/[proofId]/steps/[stepId]/reviews/route.ts": members(["reviewer"]),
   "GET api/proofs/[proofId]/steps/[stepId]/files/route.ts": ALL_MEMBERS,
   "POST api/proofs/[proofId]/steps/[stepId]/files/route.ts": AUTHORS,
+  // Files of a claim: read like the files of its step, uploaded by its uploaders.
+  // Attaching the claims of an uploaded claims file (the fixture's file is a graph list: 422 past the access check).
+  "POST api/proofs/[proofId]/files/[fileId]/claims/route.ts": AUTHORS,
+  "GET api/proofs/[proofId]/claims/[claimId]/files/route.ts": ALL_MEMBERS,
+  "POST api/proofs/[proofId]/claims/[claimId]/files/route.ts": AUTHORS,
+  // Uploads in parts: the uploaders only (authors and the owner), like a one-request upload.
+  "POST api/proofs/[proofId]/steps/[stepId]/uploads/route.ts": AUTHORS,
+  "GET api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/route.ts": AUTHORS,
+  "DELETE api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/route.ts": AUTHORS,
+  "PUT api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/parts/[part]/route.ts": AUTHORS,
+  "POST api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/finish/route.ts": AUTHORS,
   "GET api/proofs/[proofId]/steps/[stepId]/batches/route.ts": ALL_MEMBERS,
   "POST api/proofs/[proofId]/steps/[stepId]/batches/route.ts": AUTHORS,
   "GET api/proofs/[proofId]/batches/[batchId]/route.ts": ALL_MEMBERS,
@@ -232,6 +243,8 @@ interface Fixture {
   fileOut: number;
   batchIn: number;
   batchOut: number;
+  uploadIn: number;
+  uploadOut: number;
   exportId: number;
   reviewId: number;
   invitationId: number;
@@ -314,6 +327,15 @@ async function buildFixture(): Promise<Fixture> {
   const fileOut = await upload(stepOut.id);
   const batchIn = await batchOf(stepIn.id, fileIn);
   const batchOut = await batchOf(stepOut.id, fileOut);
+  // An upload in parts of 10 bytes (one part), started and never sent.
+  const starts = await load("api/proofs/[proofId]/steps/[stepId]/uploads/route.ts");
+  const uploadOf = async (stepId: number) =>
+    (
+      (await ok(await starts.POST(jsonRequest("/x", "POST", { name: "later.g6", size: 10 }), params({ proofId, stepId: String(stepId) })), "upload in parts"))
+        .upload as { id: number }
+    ).id;
+  const uploadIn = await uploadOf(stepIn.id);
+  const uploadOut = await uploadOf(stepOut.id);
 
   // Attaching claims made a new revision of each step: the dispute is on the latest.
   const latest = (await models().StepRevision.findOne({ where: { stepId: stepIn.id }, order: [["number", "DESC"]] }))!;
@@ -366,6 +388,8 @@ async function buildFixture(): Promise<Fixture> {
     fileOut,
     batchIn,
     batchOut,
+    uploadIn,
+    uploadOut,
     exportId: (made.export as { id: number }).id,
     reviewId: dispute.reviewId as number,
     invitationId: invited.id as number,
@@ -383,6 +407,8 @@ function paramsFor(file: string, f: Fixture, out: boolean): Record<string, strin
     claimId: String(out ? f.claimOut : f.claimIn),
     fileId: String(out ? f.fileOut : f.fileIn),
     batchId: String(out ? f.batchOut : f.batchIn),
+    uploadId: String(out ? f.uploadOut : f.uploadIn),
+    part: "1",
     exportId: String(f.exportId),
     reviewId: String(f.reviewId),
     invitationId: String(f.invitationId),

@@ -17,7 +17,7 @@ import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { fileStore, sha256Hex } from "@/lib/storage";
-import { s3FakePort, startS3Fake, type S3Fake } from "../support/s3-fake";
+import { rememberEnv, s3FakePort, startS3Fake, STORAGE_KEYS, useStore, type S3Fake } from "../support/s3-fake";
 import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
 import * as fileRoute from "@/app/api/proofs/[proofId]/files/[fileId]/route";
 
@@ -25,16 +25,7 @@ let proofId: string;
 let stepId: string;
 let localDir: string;
 let fake: S3Fake;
-const STORAGE_KEYS = [
-  "CAIRN_STORAGE",
-  "CAIRN_STORAGE_DIR",
-  "CAIRN_S3_BUCKET",
-  "CAIRN_S3_ENDPOINT",
-  "CAIRN_S3_PATH_STYLE",
-  "CAIRN_S3_ACCESS_KEY_ID",
-  "CAIRN_S3_SECRET_ACCESS_KEY",
-];
-const saved = Object.fromEntries(STORAGE_KEYS.map((k) => [k, process.env[k]]));
+const restoreEnv = rememberEnv(STORAGE_KEYS);
 
 beforeAll(async () => {
   localDir = await mkdtemp(path.join(tmpdir(), "cairn-upload-"));
@@ -44,9 +35,7 @@ beforeAll(async () => {
   stepId = String((await addStep(proofId, caseId, "A computer search over all trees on 10 vertices.")).id);
 });
 afterAll(async () => {
-  for (const k of STORAGE_KEYS)
-    if (saved[k] === undefined) delete process.env[k];
-    else process.env[k] = saved[k];
+  restoreEnv();
   await dropProofs([proofId]);
   await fake?.stop();
   await rm(localDir, { recursive: true, force: true });
@@ -75,9 +64,7 @@ const objects = async () => {
 
 describe.each(["local", "s3"])("uploads with the %s store", (driver) => {
   beforeAll(() => {
-    for (const k of STORAGE_KEYS) delete process.env[k];
-    if (driver === "s3") Object.assign(process.env, fake.env);
-    else process.env.CAIRN_STORAGE_DIR = path.join(localDir, "files");
+    useStore(driver, fake, path.join(localDir, "files"));
   });
 
   // K_3 ("Bw") and the path P_3 ("Bg") in graph6 (nauty's formats.txt; worked by hand).

@@ -44,3 +44,31 @@ export async function startS3Fake(port: number, bucket = "cairn-test-files"): Pr
  * The unit and the integration tests may run at the same time, so each takes its own offset.
  */
 export const s3FakePort = (offset = 0): number => (Number(process.env.CAIRN_TEST_S3_PORT) || (Number(process.env.CAIRN_TEST_DB_PORT) || 3317) + 200) + offset;
+
+/** Every setting that chooses the file store. */
+export const STORAGE_KEYS = [
+  "CAIRN_STORAGE",
+  "CAIRN_STORAGE_DIR",
+  "CAIRN_S3_BUCKET",
+  "CAIRN_S3_ENDPOINT",
+  "CAIRN_S3_PATH_STYLE",
+  "CAIRN_S3_ACCESS_KEY_ID",
+  "CAIRN_S3_SECRET_ACCESS_KEY",
+];
+
+/** Notes these settings as they are now; the function returned puts them back (for a test file's afterAll). */
+export function rememberEnv(keys: string[]): () => void {
+  const saved = Object.fromEntries(keys.map((k) => [k, process.env[k]]));
+  return () => {
+    for (const k of keys)
+      if (saved[k] === undefined) delete process.env[k];
+      else process.env[k] = saved[k];
+  };
+}
+
+/** Points this process's file store at the fake (`s3`) or at `localDir` (`local`). */
+export function useStore(driver: string, fake: S3Fake, localDir: string): void {
+  for (const k of STORAGE_KEYS) delete process.env[k];
+  if (driver === "s3") Object.assign(process.env, fake.env);
+  else process.env.CAIRN_STORAGE_DIR = localDir;
+}

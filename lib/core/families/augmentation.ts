@@ -56,6 +56,8 @@ export interface GenerationOptions {
   readonly part?: { readonly index: number; readonly of: number };
   /** False: count only (no Graph objects kept). */
   readonly collect?: boolean;
+  /** Called with every graph this part reports, as it is found (with collect: false, nothing is kept: streaming). */
+  readonly onGraph?: (g: Graph) => void;
   readonly budget: Budget;
 }
 
@@ -240,10 +242,15 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     return D;
   };
 
+  const onGraph = options.onGraph;
   const emit = (node: Node, report: boolean) => {
     if (!report) return;
     counts[node.n - 1]++;
-    if (collect) levels[node.n - 1].push(toGraph(node.W, node.n));
+    if (collect || onGraph) {
+      const g = toGraph(node.W, node.n);
+      if (collect) levels[node.n - 1].push(g);
+      onGraph?.(g);
+    }
   };
 
   const generatorsOf = (node: Node): Int32Array[] => {
@@ -436,5 +443,56 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
   frontier.forEach((node, i) => {
     if (i % part.of === part.index) dfs(node);
   });
+  return { counts, levels, stats };
+}
+
+/** One part's result, plain data (it crosses process boundaries as JSON). */
+export interface PartResult {
+  readonly part: number;
+  readonly parts: number;
+  /** counts[k - 1] = graphs on k vertices this part found. */
+  readonly counts: number[];
+  /** The graphs found, per order, when collected (each as vertex count and weighted edges). */
+  readonly levels?: Graph[][];
+  readonly stats: GenerationStatistics;
+}
+
+/**
+ * Part `part` (0-based) of `parts` independent parts of the generation (see the module comment: a
+ * partition of the isomorphism classes by the subtrees below the split level). Pure: the job engine
+ * runs the parts on different workers and the offline checker may re-run any of them.
+ */
+export function enumeratePart(options: Omit<GenerationOptions, "part">, part: number, parts: number): PartResult {
+  const r = generateConnected({ ...options, part: { index: part, of: parts } });
+  return { part, parts, counts: r.counts, ...(options.collect !== false ? { levels: r.levels } : {}), stats: r.stats };
+}
+
+/**
+ * Merges the results of parts 0..k−1 of one enumeration (each exactly once) into the result of the
+ * whole: counts add up, the lists are concatenated (the classes are disjoint across parts). Throws
+ * when a part is missing, repeated, or from a different split.
+ */
+export function mergeParts(results: readonly PartResult[]): GenerationResult {
+  if (results.length === 0) throw new RangeError("no parts to merge");
+  const parts = results[0].parts;
+  const seen = new Array<boolean>(parts).fill(false);
+  for (const r of results) {
+    if (r.parts !== parts) throw new RangeError(`part ${r.part} is one of ${r.parts} parts, not of ${parts}`);
+    if (!(r.part >= 0 && r.part < parts)) throw new RangeError(`part ${r.part} does not exist: parts are numbered 0..${parts - 1}`);
+    if (seen[r.part]) throw new RangeError(`part ${r.part} is given twice`);
+    seen[r.part] = true;
+  }
+  const missing = seen.indexOf(false);
+  if (missing >= 0) throw new RangeError(`part ${missing} of ${parts} is missing`);
+  const N = Math.max(...results.map((r) => r.counts.length));
+  const counts = new Array<number>(N).fill(0);
+  const levels: Graph[][] = Array.from({ length: N }, () => []);
+  const stats: GenerationStatistics = { candidates: 0, invariantRejected: 0, labellings: 0, rowSum: 0, vector: 0, elimination: 0, splitLevel: 0 };
+  for (const r of [...results].sort((a, b) => a.part - b.part)) {
+    r.counts.forEach((c, i) => (counts[i] += c));
+    r.levels?.forEach((l, i) => levels[i].push(...l));
+    for (const k of ["candidates", "invariantRejected", "labellings", "rowSum", "vector", "elimination"] as const) stats[k] += r.stats[k];
+    stats.splitLevel = Math.max(stats.splitLevel, r.stats.splitLevel);
+  }
   return { counts, levels, stats };
 }

@@ -90,8 +90,8 @@ describe("coverage of a case split", () => {
         cases: [{ condition: { predicate: "max-degree", relation: "<<", value: 2 } }],
       }),
     ).toThrow(/\$\.cases\[0\]\.condition\.relation/);
-    expect(() => validateClaim({ format: "cairn-claim/1", kind: "coverage", maxVertices: 9, cases: [{ condition: { predicate: "tree" } }] })).toThrow(
-      /\$\.maxVertices: coverage is checked for at most 8/,
+    expect(() => validateClaim({ format: "cairn-claim/1", kind: "coverage", maxVertices: 10, cases: [{ condition: { predicate: "tree" } }] })).toThrow(
+      /\$\.maxVertices: coverage is checked for at most 9/,
     );
     const claim = validateClaim({
       format: "cairn-claim/1",

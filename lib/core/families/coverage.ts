@@ -6,9 +6,12 @@
  * graphs up to N vertices; beyond N the split is the authors' argument.
  */
 import { Budget, Verdict, withinBudget } from "../verdict";
-import { writeGraph6 } from "../input/graph6";
+import { parseGraph6, writeGraph6 } from "../input/graph6";
+import { canonicalKeyOf } from "./canonical-label";
+import { isConnected } from "./structure";
 import { graph6Mismatch } from "./enumeration";
-import { generateConnected } from "./augmentation";
+import { enumeratePart, mergeParts } from "./augmentation";
+import type { Graph } from "../graph";
 import { ConditionContext, describeCondition, evaluateCondition, type CaseCondition } from "./case-condition";
 
 import { COVERAGE_MAX_VERTICES, type EnumerationSetting as CoverageSetting } from "../claims/claim-schema";
@@ -27,8 +30,10 @@ export interface CoverageCertificate {
   orders: number[];
   /** covered[i] = number of graphs (all orders) satisfying the condition of sub-case i. */
   covered: number[];
-  /** Every graph no sub-case covers, in graph6, smallest order first. */
+  /** The graphs no sub-case covers, in graph6, smallest order first (at most COVERAGE_UNCOVERED_CAP of them). */
   uncovered: string[];
+  /** How many graphs no sub-case covers (absent in older certificates: then all are listed). */
+  uncoveredTotal?: number;
 }
 
 const settingWords = (s: CoverageSetting) => (s === "tree" ? "tree" : "connected simple graph");
@@ -50,6 +55,115 @@ export function coverageCaution(maxVertices: number): string {
   return `Checked only for graphs on at most ${maxVertices} vertices. That the sub-cases cover every larger graph, and that each sub-case's condition is what its prose says, is the authors' argument and the referees' to check.`;
 }
 
+/** At most this many uncovered graphs are kept (smallest orders first); the certificate still counts them all. */
+export const COVERAGE_UNCOVERED_CAP = 500;
+
+/** One part's coverage counts (plain data: it crosses process boundaries as JSON). */
+export interface CoveragePartResult {
+  readonly part: number;
+  readonly parts: number;
+  /** Graphs of the setting on 1, 2, …, N vertices this part enumerated. */
+  readonly orders: number[];
+  /** covered[i]: this part's graphs satisfying sub-case i. */
+  readonly covered: number[];
+  /** uncovered[k − 1]: graphs on k vertices no sub-case covers (graph6), at most `cap` per order. */
+  readonly uncovered: string[][];
+  /** All of this part's uncovered graphs, kept or not. */
+  readonly uncoveredTotal: number;
+}
+
+const checkRange = (maxVertices: number, setting: CoverageSetting) => {
+  if (!Number.isSafeInteger(maxVertices) || maxVertices < 1 || maxVertices > COVERAGE_MAX_VERTICES[setting])
+    throw new RangeError(`coverage is checked for 1..${COVERAGE_MAX_VERTICES[setting]} vertices in the setting "${setting}", got ${maxVertices}`);
+};
+
+/**
+ * Part `part` of `parts` of a coverage check (augmentation.ts: the parts partition the graphs). The
+ * enumeration is streamed through the conditions: only the counts and the uncovered graphs (up to
+ * `cap` per order) are kept, never the whole enumeration. Pure; may throw BudgetExceeded.
+ */
+export function coveragePart(
+  maxVertices: number,
+  cases: readonly CoverageCase[],
+  setting: CoverageSetting,
+  part: number,
+  parts: number,
+  budget: Budget,
+  cap = COVERAGE_UNCOVERED_CAP,
+): CoveragePartResult {
+  checkRange(maxVertices, setting);
+  const covered = new Array<number>(cases.length).fill(0);
+  const uncovered: string[][] = Array.from({ length: maxVertices }, () => []);
+  let uncoveredTotal = 0;
+  const onGraph = (g: Graph) => {
+    const ctx = new ConditionContext(g, budget);
+    let any = false;
+    cases.forEach((c, i) => {
+      budget.tick();
+      if (evaluateCondition(c.condition, ctx)) {
+        covered[i]++;
+        any = true;
+      }
+    });
+    if (any) return;
+    uncoveredTotal++;
+    if (uncovered[g.n - 1].length < cap) uncovered[g.n - 1].push(writeGraph6(g));
+  };
+  const r = enumeratePart({ maxVertices, setting: { kind: setting }, collect: false, onGraph, budget }, part, parts);
+  return { part, parts, orders: r.counts, covered, uncovered, uncoveredTotal };
+}
+
+/** Merges parts 0..k−1 (each exactly once) into the certificate of the whole check. */
+export function mergeCoverageParts(results: readonly CoveragePartResult[], cap = COVERAGE_UNCOVERED_CAP): CoverageCertificate {
+  // mergeParts checks that the parts are exactly 0..k−1 of one split, and adds the counts per order.
+  const { counts } = mergeParts(results.map((r) => ({ part: r.part, parts: r.parts, counts: r.orders, stats: NO_STATS })));
+  const covered = results[0].covered.map((_, i) => results.reduce((a, r) => a + r.covered[i], 0));
+  const byOrder = counts.map((_, k) => results.flatMap((r) => r.uncovered[k] ?? []));
+  return {
+    kind: "coverage",
+    orders: counts,
+    covered,
+    uncovered: byOrder.flat().slice(0, cap),
+    uncoveredTotal: results.reduce((a, r) => a + r.uncoveredTotal, 0),
+  };
+}
+
+const NO_STATS = { candidates: 0, invariantRejected: 0, labellings: 0, rowSum: 0, vector: 0, elimination: 0, splitLevel: 0 };
+
+/** The verdict on a coverage certificate computed here or merged from parts. */
+export function coverageVerdict(
+  maxVertices: number,
+  cases: readonly CoverageCase[],
+  setting: CoverageSetting,
+  certificate: CoverageCertificate,
+): Verdict<CoverageCertificate> {
+  const statement = coverageStatement(maxVertices, cases, setting);
+  const { orders, covered, uncovered } = certificate;
+  const missed = certificate.uncoveredTotal ?? uncovered.length;
+  const total = orders.reduce((a, b) => a + b, 0);
+  const perCase = cases.map((c, i) => `${caseName(c, i)} covers ${covered[i]}`).join(", ");
+  if (missed > 0)
+    return {
+      status: "refuted",
+      statement,
+      method: COVERAGE_METHOD,
+      certificate,
+      reason: `${missed} of the ${total} graphs satisfy no sub-case's condition: ${uncovered.slice(0, 20).join(", ")}${
+        missed > Math.min(20, uncovered.length)
+          ? `, and ${missed - Math.min(20, uncovered.length)} more (${missed > uncovered.length ? `the first ${uncovered.length}` : "all"} in the certificate)`
+          : ""
+      } (graph6); ${perCase}.`,
+    };
+  return {
+    status: "verified",
+    statement,
+    method: COVERAGE_METHOD,
+    certificate,
+    reason: `All ${total} graphs (${orders.map((c, i) => `${c} on ${i + 1}`).join(", ")}) satisfy the condition of at least one sub-case; ${perCase}.`,
+    notes: [coverageCaution(maxVertices)],
+  };
+}
+
 /** Decides whether the sub-case conditions cover every graph of the setting on at most maxVertices vertices. */
 export function checkCoverage(
   maxVertices: number,
@@ -58,49 +172,10 @@ export function checkCoverage(
   setting: CoverageSetting = "simple",
 ): Verdict<CoverageCertificate> {
   const statement = coverageStatement(maxVertices, cases, setting);
-  if (!Number.isSafeInteger(maxVertices) || maxVertices < 1 || maxVertices > COVERAGE_MAX_VERTICES[setting])
-    throw new RangeError(`coverage is checked for 1..${COVERAGE_MAX_VERTICES[setting]} vertices in the setting "${setting}", got ${maxVertices}`);
-  return withinBudget(statement, COVERAGE_METHOD, budget, () => {
-    const { levels } = generateConnected({ maxVertices, setting: { kind: setting }, budget });
-    const covered = new Array<number>(cases.length).fill(0);
-    const uncovered: string[] = [];
-    for (const level of levels)
-      for (const g of level) {
-        const ctx = new ConditionContext(g, budget);
-        let any = false;
-        cases.forEach((c, i) => {
-          budget.tick();
-          if (evaluateCondition(c.condition, ctx)) {
-            covered[i]++;
-            any = true;
-          }
-        });
-        if (!any) uncovered.push(writeGraph6(g));
-      }
-    const orders = levels.map((l) => l.length);
-    const total = orders.reduce((a, b) => a + b, 0);
-    const certificate: CoverageCertificate = { kind: "coverage", orders, covered, uncovered };
-    const perCase = cases.map((c, i) => `${caseName(c, i)} covers ${covered[i]}`).join(", ");
-    const caution = coverageCaution(maxVertices);
-    if (uncovered.length > 0)
-      return {
-        status: "refuted",
-        statement,
-        method: COVERAGE_METHOD,
-        certificate,
-        reason: `${uncovered.length} of the ${total} graphs satisfy no sub-case's condition: ${uncovered.slice(0, 20).join(", ")}${
-          uncovered.length > 20 ? `, and ${uncovered.length - 20} more (all in the certificate)` : ""
-        } (graph6); ${perCase}.`,
-      };
-    return {
-      status: "verified",
-      statement,
-      method: COVERAGE_METHOD,
-      certificate,
-      reason: `All ${total} graphs (${orders.map((c, i) => `${c} on ${i + 1}`).join(", ")}) satisfy the condition of at least one sub-case; ${perCase}.`,
-      notes: [caution],
-    };
-  });
+  checkRange(maxVertices, setting);
+  return withinBudget(statement, COVERAGE_METHOD, budget, () =>
+    coverageVerdict(maxVertices, cases, setting, mergeCoverageParts([coveragePart(maxVertices, cases, setting, 0, 1, budget)])),
+  );
 }
 
 /** Re-runs the coverage check and compares it with the certificate's counts and uncovered graphs, then the outcome. */
@@ -124,11 +199,46 @@ export function recheckCoverage(
     return fail(`certificate.orders ${JSON.stringify(e.orders)} differ from the enumeration's ${JSON.stringify(cert.orders)}`);
   if (JSON.stringify(e.covered) !== JSON.stringify(cert.covered))
     return fail(`certificate.covered ${JSON.stringify(e.covered)} differ from the per-sub-case counts ${JSON.stringify(cert.covered)}`);
+  const total = cert.uncoveredTotal ?? cert.uncovered.length;
+  if ((e.uncoveredTotal ?? (Array.isArray(e.uncovered) ? e.uncovered.length : -1)) !== total)
+    return fail(`certificate.uncoveredTotal must be ${total}, the number of graphs no sub-case covers`);
   if (!Array.isArray(e.uncovered) || e.uncovered.length !== cert.uncovered.length)
-    return fail(`certificate.uncovered must list the ${cert.uncovered.length} graph(s) no sub-case covers`);
-  // Compared up to isomorphism, so a checker that labels the graphs differently agrees.
-  const mismatch = graph6Mismatch(cert.uncovered, e.uncovered as unknown[], "certificate.uncovered", "a graph that no sub-case covers", budget);
+    return fail(`certificate.uncovered must list ${cert.uncovered.length} graph(s) no sub-case covers`);
+  // Compared up to isomorphism, so a checker that labels the graphs differently agrees. When the list was
+  // cut at the cap, parts merged in another order may keep other graphs: each listed one is then tested.
+  const mismatch =
+    total > cert.uncovered.length
+      ? uncoveredMismatch(maxVertices, cases, setting, e.uncovered as unknown[], budget)
+      : graph6Mismatch(cert.uncovered, e.uncovered as unknown[], "certificate.uncovered", "a graph that no sub-case covers", budget);
   if (mismatch) return fail(mismatch);
   if (again.status !== outcome) return fail(`the enumeration shows the claim is ${again.status}, not ${outcome}`);
   return { status: "verified", statement, method, reason: `the enumeration repeated gives the same counts and uncovered graphs, and the claim is ${outcome}` };
+}
+
+/** Each listed graph is a distinct graph of the setting on at most N vertices that no sub-case covers; else what is wrong. */
+function uncoveredMismatch(
+  maxVertices: number,
+  cases: readonly CoverageCase[],
+  setting: CoverageSetting,
+  given: readonly unknown[],
+  budget: Budget,
+): string | null {
+  const keys = new Set<string>();
+  for (const [i, text] of given.entries()) {
+    let g: Graph;
+    try {
+      g = parseGraph6(String(text));
+    } catch {
+      return `certificate.uncovered[${i}] is not graph6`;
+    }
+    const inSetting = g.n >= 1 && g.n <= maxVertices && isConnected(g, budget).status === "verified" && (setting !== "tree" || g.edges.length === g.n - 1);
+    if (!inSetting) return `certificate.uncovered[${i}] is not a ${settingWords(setting)} on at most ${maxVertices} vertices`;
+    const ctx = new ConditionContext(g, budget);
+    const by = cases.findIndex((c) => evaluateCondition(c.condition, ctx));
+    if (by >= 0) return `certificate.uncovered[${i}] satisfies ${caseName(cases[by], by)}`;
+    const k = canonicalKeyOf(g, budget);
+    if (keys.has(k)) return `certificate.uncovered[${i}] repeats a graph listed before it`;
+    keys.add(k);
+  }
+  return null;
 }

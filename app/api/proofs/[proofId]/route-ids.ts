@@ -11,6 +11,7 @@ const WHAT = {
   userId: "This member",
   fileId: "This file",
   batchId: "This batch claim",
+  uploadId: "This upload",
 } as const;
 type IdName = keyof typeof WHAT;
 

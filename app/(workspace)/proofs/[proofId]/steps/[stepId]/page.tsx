@@ -18,6 +18,7 @@ import { may } from "@/lib/access";
 import { listStepFiles } from "@/lib/data/files";
 import { FileList } from "@/components/files/file-list";
 import { FileUpload } from "@/components/files/file-upload";
+import { readEnv } from "@/lib/env";
 import { BatchForm } from "@/components/batches/batch-form";
 import { BatchList } from "@/components/batches/batch-list";
 import { parseCompare } from "@/lib/review/compare-link";
@@ -69,6 +70,7 @@ export default async function StepPage({
             initial={{ claims, withdrawn, verification }}
             canRecheck={may(standing, "claims.recheck")}
             canWithdraw={isAuthor}
+            uploadPartSize={may(standing, "files.upload") ? readEnv().CAIRN_UPLOAD_PART_BYTES : undefined}
           />
           <div className="mt-4">
             <VerdictCaution />
@@ -91,8 +93,8 @@ export default async function StepPage({
           <ClaimFileForm proofId={proofId} stepId={step.id} />
         </details>
       )}
-      <FileList proofId={proofId} stepId={step.id} initial={files} />
-      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} />}
+      <FileList proofId={proofId} stepId={step.id} initial={files} canAttach={may(standing, "files.upload")} />
+      {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} partSize={readEnv().CAIRN_UPLOAD_PART_BYTES} />}
       <BatchList proofId={proofId} stepId={step.id} canCancel={isAuthor} />
       {may(standing, "claims.write") && <BatchForm proofId={proofId} stepId={step.id} />}
       <RevisionHistory

@@ -1,16 +1,9 @@
-import { readFileBody, route, zodIssues } from "@/lib/http";
-import { AppError, invalid } from "@/lib/errors";
-import { readEnv } from "@/lib/env";
+import { route } from "@/lib/http";
 import { requireStepAccess } from "@/lib/access";
-import { listStepFiles, saveStepFile } from "@/lib/data/files";
-import { detectFile, UnpackedTooLarge, UnsupportedContent } from "@/lib/uploads/detect";
-import { uploadQuerySchema } from "@/lib/validations/upload";
+import { listStepFiles, receiveUpload } from "@/lib/data/files";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
-
-/** Unpacked gzip may be this many times the upload limit. */
-const UNPACK_FACTOR = 4;
 
 /** The files uploaded to this step; any member who sees the step. */
 export const GET = route(async (_request: Request, { params }: Context) => {
@@ -29,24 +22,6 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireStepAccess(proofId, stepId, "files.upload");
-  const query = uploadQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!query.success) throw invalid("Say which file this is.", zodIssues(query.error));
-  const limit = readEnv().CAIRN_UPLOAD_MAX_BYTES;
-  const bytes = await readFileBody(request, limit);
-  let detected;
-  try {
-    detected = detectFile(bytes, limit * UNPACK_FACTOR, query.data.kind);
-  } catch (e) {
-    if (e instanceof UnsupportedContent) throw new AppError("unsupported_media_type", e.message);
-    if (e instanceof UnpackedTooLarge)
-      throw new AppError(
-        "too_large",
-        `The gzip file unpacks to more than ${UNPACK_FACTOR} × the upload limit (${e.limit} bytes); nothing was saved. Split the list into several files.`,
-        undefined,
-        { limitBytes: e.limit },
-      );
-    throw e;
-  }
-  const { file, duplicate } = await saveStepFile(proofId, stepId, user.id, query.data.name, bytes, detected);
+  const { file, duplicate } = await receiveUpload(request, proofId, stepId, user.id);
   return Response.json({ file, duplicate }, { status: duplicate ? 200 : 201 });
 });
