@@ -25,5 +25,6 @@ export { RoundDecision } from "./round-decision";
 export { RoundReminder } from "./round-reminder";
 export { StepFile } from "./step-file";
 export { PartUpload } from "./part-upload";
+export { ClaimFile } from "./claim-file";
 export { FormerMember } from "./former-member";
 export { BatchClaim, BatchResult } from "./batch-claim";

@@ -6,6 +6,8 @@ export class PartUpload extends Model<InferAttributes<PartUpload>, InferCreation
   declare id: CreationOptional<number>;
   declare stepId: number;
   declare userId: number;
+  /** The claim (of this step) the file is for, or null for the step itself. */
+  declare claimId: number | null;
   declare name: string;
   declare kind: FileKind | null;
   /** The declared total size in bytes. */
@@ -23,6 +25,7 @@ export class PartUpload extends Model<InferAttributes<PartUpload>, InferCreation
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
         stepId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         userId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        claimId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         name: { type: DataTypes.STRING(255), allowNull: false },
         kind: { type: DataTypes.ENUM("graph-list", "claims", "document"), allowNull: true },
         size: {

@@ -6,9 +6,18 @@ import { SpectrumPlot } from "@/components/graph/spectrum-plot";
 import { apiFetch } from "@/components/proof/api-client";
 import { VerdictBadge } from "./verdict-badge";
 import { ClaimInputs, claimInputHref } from "./claim-inputs";
+import { ClaimFiles } from "@/components/files/claim-files";
 
 /** One claim: verdict, method, reason, certificate summary, who checked it with which checker, picture. */
-export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck: boolean; canWithdraw: boolean; onChanged: () => void }) {
+export function ClaimCard(props: {
+  claim: ClaimView;
+  proofId: number;
+  canRecheck: boolean;
+  canWithdraw: boolean;
+  onChanged: () => void;
+  /** Set for those who may upload files: the part size above which uploads go in parts. */
+  uploadPartSize?: number;
+}) {
   const { claim, proofId, canRecheck, canWithdraw, onChanged } = props;
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -112,6 +121,7 @@ export function ClaimCard(props: { claim: ClaimView; proofId: number; canRecheck
           {error}
         </p>
       )}
+      <ClaimFiles proofId={proofId} stepId={claim.stepId} claimId={claim.id} partSize={props.uploadPartSize} />
       {claim.picture && (
         <details className="mt-3" data-testid="claim-pictures">
           <summary className="cursor-pointer text-sm text-lichen-700">

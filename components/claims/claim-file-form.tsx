@@ -1,4 +1,5 @@
 "use client";
+import { ClaimPanel } from "./claim-panel";
 import { useState } from "react";
 import { useSWRConfig } from "swr";
 import { claimsFromDocument, describeClaimIssue, MAX_CLAIMS_PER_REQUEST } from "@/lib/validations/claim";
@@ -41,15 +42,7 @@ export function ClaimFileForm({ proofId, stepId }: { proofId: number; stepId: nu
   };
 
   return (
-    <form
-      onSubmit={submit}
-      className="mt-6 space-y-3 rounded border border-stone-200 bg-white p-4"
-      aria-labelledby="claim-file-heading"
-      data-testid="claim-file-form"
-    >
-      <h3 id="claim-file-heading" className="font-semibold">
-        Attach claims from a file
-      </h3>
+    <ClaimPanel name="claim-file-form" title="Attach claims from a file" onSubmit={submit}>
       <p className="text-sm text-stone-600">
         One <code>cairn-claim/1</code> claim, an array of claims, or a <code>cairn-claims/1</code> list (up to {MAX_CLAIMS_PER_REQUEST}), as the offline checker
         reads them. All are attached or none.
@@ -80,6 +73,6 @@ export function ClaimFileForm({ proofId, stepId }: { proofId: number; stepId: nu
         </div>
       )}
       <SubmitRow label="Attach all" busyLabel="Checking the input…" busy={busy} message={message} />
-    </form>
+    </ClaimPanel>
   );
 }

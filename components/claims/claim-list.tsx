@@ -8,8 +8,16 @@ import { ClaimCard } from "./claim-card";
 type StepClaims = { claims: ClaimView[]; withdrawn: WithdrawnClaimView[]; verification: VerificationService | null };
 
 /** The step's claims, polled every second while any is pending, and below them the withdrawn ones. */
-export function ClaimList(props: { proofId: number; stepId: number; initial: StepClaims; canRecheck: boolean; canWithdraw: boolean }) {
-  const { proofId, stepId, initial, canRecheck, canWithdraw } = props;
+export function ClaimList(props: {
+  proofId: number;
+  stepId: number;
+  initial: StepClaims;
+  canRecheck: boolean;
+  canWithdraw: boolean;
+  /** Set for those who may upload files to the claims: the part size above which uploads go in parts. */
+  uploadPartSize?: number;
+}) {
+  const { proofId, stepId, initial, canRecheck, canWithdraw, uploadPartSize } = props;
   const { data, error, mutate } = useSWR<StepClaims>(`/api/proofs/${proofId}/steps/${stepId}/claims`, jsonFetcher, {
     fallbackData: initial,
     refreshInterval: (latest) => (latest?.claims.some((c) => c.status === "pending") ? 1000 : 0),
@@ -36,7 +44,15 @@ export function ClaimList(props: { proofId: number; stepId: number; initial: Ste
       ) : (
         <ul className="mt-3 space-y-4">
           {claims.map((c) => (
-            <ClaimCard key={c.id} claim={c} proofId={proofId} canRecheck={canRecheck} canWithdraw={canWithdraw} onChanged={() => void mutate()} />
+            <ClaimCard
+              key={c.id}
+              claim={c}
+              proofId={proofId}
+              canRecheck={canRecheck}
+              canWithdraw={canWithdraw}
+              onChanged={() => void mutate()}
+              uploadPartSize={uploadPartSize}
+            />
           ))}
         </ul>
       )}

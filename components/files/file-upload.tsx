@@ -1,7 +1,7 @@
 "use client";
 import { useRef, useState } from "react";
 import { useSWRConfig } from "swr";
-import { formatBytes, uploadInParts, uploadWithProgress } from "./upload-request";
+import { formatBytes, sendFile } from "./upload-request";
 
 const KINDS = [
   { value: "", label: "decide by its content" },
@@ -28,12 +28,8 @@ export function FileUpload({ proofId, stepId, partSize }: { proofId: number; ste
     setMessage(null);
     setProblem(null);
     setProgress({ name: file.name, sent: 0, total: file.size });
-    const query = new URLSearchParams({ name: file.name, ...(kind ? { kind } : {}) });
-    const stepUrl = `/api/proofs/${proofId}/steps/${stepId}`;
-    const onProgress = (sent: number, total: number) => setProgress({ name: file.name, sent, total });
     try {
-      const answer =
-        file.size > partSize ? await uploadInParts(stepUrl, file, kind, onProgress) : await uploadWithProgress(`${stepUrl}/files?${query}`, file, onProgress);
+      const answer = await sendFile(proofId, stepId, file, kind, partSize, (sent, total) => setProgress({ name: file.name, sent, total }));
       if (answer.status === 200 || answer.status === 201) {
         const f = answer.body!.file!;
         setMessage(

@@ -59,12 +59,13 @@ export async function uploadInParts(
   kind: string,
   onProgress: (sent: number, total: number) => void,
   signal?: AbortSignal,
+  claimId?: number,
 ): Promise<UploadAnswer> {
   const json = async (res: Response): Promise<UploadAnswer["body"] & { upload?: PartUploadState }> => res.json().catch(() => null);
   const started = await fetch(`${stepUrl}/uploads`, {
     method: "POST",
     headers: { "content-type": "application/json" },
-    body: JSON.stringify({ name: file.name, size: file.size, ...(kind ? { kind } : {}) }),
+    body: JSON.stringify({ name: file.name, size: file.size, ...(kind ? { kind } : {}), ...(claimId ? { claimId } : {}) }),
     signal,
   });
   const start = await json(started);
@@ -101,4 +102,22 @@ export async function uploadInParts(
   if (upload.missing.length > 0) throw new Error("The connection kept failing during the upload; nothing was saved. Try again.");
   const finished = await fetch(`${base}/finish`, { method: "POST", signal });
   return { status: finished.status, body: await json(finished) };
+}
+
+/**
+ * Sends a file to a step (or, with `claimId`, to one of its claims): in one request up to `partSize` bytes, in parts above.
+ */
+export function sendFile(
+  proofId: number,
+  stepId: number,
+  file: File,
+  kind: string,
+  partSize: number,
+  onProgress: (sent: number, total: number) => void,
+  claimId?: number,
+): Promise<UploadAnswer> {
+  const stepUrl = `/api/proofs/${proofId}/steps/${stepId}`;
+  if (file.size > partSize) return uploadInParts(stepUrl, file, kind, onProgress, undefined, claimId);
+  const query = new URLSearchParams({ name: file.name, ...(kind ? { kind } : {}) });
+  return uploadWithProgress(`${claimId ? `/api/proofs/${proofId}/claims/${claimId}` : stepUrl}/files?${query}`, file, onProgress);
 }

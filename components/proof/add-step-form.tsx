@@ -1,11 +1,11 @@
 "use client";
-import { Controller, useForm } from "react-hook-form";
+import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { createStepSchema, type CreateStepInput } from "@/lib/validations/step";
 import { apiFetch } from "./api-client";
 import { FormProblem } from "./form-field";
-import { MathEditor } from "@/components/editor/math-editor";
+import { MathField } from "./math-field";
 
 /** Starts a step at the end of a case, then opens it for editing and claims. */
 export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: number }) {
@@ -21,19 +21,13 @@ export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: numb
   });
   return (
     <form onSubmit={submit} className="mt-2 space-y-2 rounded border border-stone-200 bg-stone-50 p-3" data-testid="add-step">
-      <Controller
+      <MathField
         control={control}
         name="body"
-        render={({ field: f }) => (
-          <MathEditor
-            value={f.value}
-            onChange={f.onChange}
-            label="First draft of the step"
-            hint="Markdown with $…$ math"
-            error={formState.errors.body?.message}
-            height={200}
-          />
-        )}
+        label="First draft of the step"
+        hint="Markdown with $…$ math"
+        error={formState.errors.body?.message}
+        height={200}
       />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">

@@ -1,10 +1,10 @@
 "use client";
-import { Controller, useForm, type UseFormReturn } from "react-hook-form";
+import { useForm, type UseFormReturn } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { createProofSchema, type CreateProofInput } from "@/lib/validations/proof";
 import { ApiError } from "./api-client";
 import { FormField, FormProblem } from "./form-field";
-import { MathEditor } from "@/components/editor/math-editor";
+import { MathField } from "./math-field";
 
 /** The form state of a proof's title and statement, checked by the schema the API uses. */
 export function useProofForm(defaultValues: CreateProofInput) {
@@ -26,19 +26,13 @@ export function ProofFields({ form, height, inputClass }: { form: UseFormReturn<
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={inputClass} />
       </FormField>
-      <Controller
+      <MathField
         control={control}
         name="statement"
-        render={({ field: f }) => (
-          <MathEditor
-            value={f.value}
-            onChange={f.onChange}
-            label="Statement"
-            hint="Markdown with $…$ and $$…$$ math"
-            error={formState.errors.statement?.message}
-            height={height}
-          />
-        )}
+        label="Statement"
+        hint="Markdown with $…$ and $$…$$ math"
+        error={formState.errors.statement?.message}
+        height={height}
       />
       <FormProblem message={formState.errors.root?.message} />
     </>

@@ -3,7 +3,7 @@
 import { useState, type ReactNode } from "react";
 import { useRouter } from "next/navigation";
 import { send } from "@/components/proof/api-client";
-import { RECOMMENDATIONS, recommendationLabel } from "@/lib/review/rounds";
+import { RecommendationSelect, TextField } from "./round-fields";
 
 function useSubmit() {
   const router = useRouter();
@@ -66,27 +66,18 @@ export function DecisionForm({ proofId, round }: { proofId: number; round: numbe
         );
       }}
     >
-      <label className="block text-sm">
-        <span className="font-semibold">Decision</span>
-        <select name="decision" value={decision} onChange={(e) => setDecision(e.target.value)} className="ml-2 rounded border border-stone-300 px-2 py-1">
-          <option value="">— choose —</option>
-          {RECOMMENDATIONS.map((r) => (
-            <option key={r} value={r}>
-              {recommendationLabel[r]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="block text-sm">
-        <span className="font-semibold">Letter to the authors</span> (Markdown with $math$)
-        <textarea
-          name="letter"
-          value={letter}
-          onChange={(e) => setLetter(e.target.value)}
-          rows={6}
-          className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm"
-        />
-      </label>
+      <RecommendationSelect name="decision" label="Decision" value={decision} onChange={setDecision} />
+      <TextField
+        name="letter"
+        label={
+          <>
+            <span className="font-semibold">Letter to the authors</span> (Markdown with $math$)
+          </>
+        }
+        value={letter}
+        onChange={setLetter}
+        rows={6}
+      />
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="attachReports" checked={attachReports} onChange={(e) => setAttach(e.target.checked)} />
         Attach the submitted reports (named as the blind setting allows; notes for the editors never go out)

@@ -3,7 +3,8 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { send } from "@/components/proof/api-client";
-import { RECOMMENDATIONS, recommendationLabel, type Recommendation } from "@/lib/review/rounds";
+import type { Recommendation } from "@/lib/review/rounds";
+import { RecommendationSelect, TextField } from "./round-fields";
 
 export interface ReportDraft {
   body: string;
@@ -53,44 +54,32 @@ export function ReportForm({ proofId, round, latest }: { proofId: number; round:
     );
   return (
     <form className="space-y-3" data-testid="report-form" onSubmit={(e) => e.preventDefault()}>
-      <label className="block text-sm">
-        <span className="font-semibold">Your report</span>{" "}
-        <span className="text-stone-600">(Markdown with $math$; the authors read it once the editor decides and attaches it)</span>
-        <textarea
-          name="body"
-          value={body}
-          onChange={(e) => setBody(e.target.value)}
-          rows={10}
-          className="mt-1 w-full rounded border border-stone-300 p-2 font-mono text-sm"
-        />
-      </label>
-      <label className="block text-sm">
-        <span className="font-semibold">Recommendation</span>
-        <select
-          name="recommendation"
-          value={recommendation}
-          onChange={(e) => setRecommendation(e.target.value)}
-          className="ml-2 rounded border border-stone-300 px-2 py-1"
-        >
-          <option value="">— choose —</option>
-          {RECOMMENDATIONS.map((r) => (
-            <option key={r} value={r}>
-              {recommendationLabel[r]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="block text-sm">
-        <span className="font-semibold">Note for the editors only</span>{" "}
-        <span className="text-stone-600">(never shown to the authors or to other referees)</span>
-        <textarea
-          name="editorNote"
-          value={editorNote}
-          onChange={(e) => setEditorNote(e.target.value)}
-          rows={3}
-          className="mt-1 w-full rounded border border-stone-300 p-2 text-sm"
-        />
-      </label>
+      <TextField
+        name="body"
+        label={
+          <>
+            <span className="font-semibold">Your report</span>{" "}
+            <span className="text-stone-600">(Markdown with $math$; the authors read it once the editor decides and attaches it)</span>
+          </>
+        }
+        value={body}
+        onChange={setBody}
+        rows={10}
+      />
+      <RecommendationSelect name="recommendation" label="Recommendation" value={recommendation} onChange={setRecommendation} />
+      <TextField
+        name="editorNote"
+        label={
+          <>
+            <span className="font-semibold">Note for the editors only</span>{" "}
+            <span className="text-stone-600">(never shown to the authors or to other referees)</span>
+          </>
+        }
+        value={editorNote}
+        onChange={setEditorNote}
+        rows={3}
+        mono={false}
+      />
       <div className="flex gap-2">
         <button
           type="button"

@@ -13,11 +13,11 @@ import "server-only";
  * its file; what it leaves (staged parts, an object no row names) is removed by the scheduled file sweep.
  */
 import { models } from "@/models";
-import { AppError, notFound } from "@/lib/errors";
+import { AppError, invalid, notFound } from "@/lib/errors";
 import { readEnv } from "@/lib/env";
 import { Op } from "sequelize";
 import { sizeName, uploadTooLarge } from "@/lib/http";
-import { acceptUpload, cleanFileName, saveStepFile, type StepFileView } from "./files";
+import { acceptUpload, cleanFileName, linkToClaim, saveStepFile, type StepFileView } from "./files";
 import { assembleParts, partCount, partLength, receivedParts, removeStaging, stagedUploads, writePart } from "@/lib/uploads/parts";
 import { sha256Hex } from "@/lib/storage";
 import type { PartUpload } from "@/models/part-upload";
@@ -55,13 +55,18 @@ const view = async (u: PartUpload): Promise<PartUploadView> => {
 export async function startPartUpload(
   stepId: number,
   userId: number,
-  input: { name: string; size: number; sha256?: string; kind?: FileKind },
+  input: { name: string; size: number; sha256?: string; kind?: FileKind; claimId?: number },
 ): Promise<PartUploadView> {
   const env = readEnv();
   if (input.size > env.CAIRN_UPLOAD_MAX_BYTES) throw uploadTooLarge(env.CAIRN_UPLOAD_MAX_BYTES);
+  if (input.claimId !== undefined) {
+    const claim = await models().Claim.findByPk(input.claimId, { attributes: ["id", "stepId"] });
+    if (!claim || claim.stepId !== stepId) throw invalid("This claim is not on this step.", [{ path: "claimId", message: "a claim of this step" }]);
+  }
   const row = await models().PartUpload.create({
     stepId,
     userId,
+    claimId: input.claimId ?? null,
     name: cleanFileName(input.name),
     kind: input.kind ?? null,
     size: input.size,
@@ -136,9 +141,10 @@ export async function finishPartUpload(proofId: number, stepId: number, userId: 
       `The parts put together have SHA-256 ${sha256}, not the ${u.sha256} declared at the start: a part was damaged on the way. Send the parts again, then finish.`,
     );
   const detected = acceptUpload(bytes, limit, u.kind);
-  const saved = await saveStepFile(proofId, stepId, userId, u.name, bytes, detected, async (transaction) => {
+  const saved = await saveStepFile(proofId, stepId, userId, u.name, bytes, detected, async (transaction, row) => {
     const gone = await models().PartUpload.destroy({ where: { id: u.id }, transaction });
     if (!gone) throw new AppError("conflict", "This upload was finished or abandoned meanwhile; nothing more was saved.");
+    if (u.claimId) await linkToClaim(u.claimId)(transaction, row);
   });
   await removeStaging(u.id);
   return { file: saved.file, duplicate: saved.duplicate };

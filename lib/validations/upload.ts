@@ -17,4 +17,6 @@ export const partUploadSchema = z.object({
     .transform((s) => s.toLowerCase())
     .optional(),
   kind: z.enum(FILE_KINDS, { message: `one of ${FILE_KINDS.join(", ")}` }).optional(),
+  /** A claim of the step the file is for (a supporting document or claims file of that claim). */
+  claimId: z.number().int().positive().max(4294967295).optional(),
 });

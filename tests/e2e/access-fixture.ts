@@ -7,7 +7,7 @@
  */
 import * as mariadb from "mariadb";
 import type { Browser, BrowserContext } from "playwright-core";
-import { signInAs } from "./browser";
+import { browserForFile, signInAs } from "./browser";
 import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
 
 export const ROLES = ["anonymous", "nonmember", "otherProof", "admin", "caseLimited", "reviewer", "coauthor", "owner", "editor"] as const;
@@ -136,4 +136,16 @@ export async function buildFixture(browser: Browser, baseUrl: string): Promise<F
     exportId: made.id,
     contexts,
   };
+}
+
+/**
+ * The fixture for a whole test file, built in the file's own browser before its first test. The object is filled
+ * in then, so read it inside tests only.
+ */
+export function fixtureForFile(baseUrl: string): Fixture {
+  const fx = {} as Fixture;
+  browserForFile(async (browser) => {
+    Object.assign(fx, await buildFixture(browser, baseUrl));
+  }, 180_000);
+  return fx;
 }

@@ -4,15 +4,12 @@
  * table; each answer is checked for its HTTP status, and every page a case-limited reviewer can open
  * is checked for titles of cases outside their scope. The API's own matrix is in tests/integration.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser } from "./browser";
-import { buildFixture, ROLES, type Fixture, type Role } from "./access-fixture";
+import { describe, expect, inject, it } from "vitest";
+import { fixtureForFile, ROLES, type Role } from "./access-fixture";
 import { pageRoutes } from "./page-routes";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let fx: Fixture;
+const fx = fixtureForFile(baseUrl);
 
 type Outcome = 200 | 403 | 404 | "sign-in" | "redirect";
 const ALL = (o: Outcome) => Object.fromEntries(ROLES.map((r) => [r, o])) as Record<Role, Outcome>;
@@ -60,14 +57,6 @@ function urlOf(variant: string): string {
     .replace("[exportId]", String(fx.exportId))
     .replace("[token]", "no-such-invitation-token-0000000000");
 }
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  fx = await buildFixture(browser, baseUrl);
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe("the page permission matrix", () => {
   it("has an expected outcome for every page in the file tree, and no stale row", () => {

@@ -1,4 +1,5 @@
 /** Debian's Chromium driven by playwright-core: no browser download, headless, no calls out. */
+import { afterAll, beforeAll } from "vitest";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { DEMO_PASSWORD, demoPeople, demoProof } from "@/seeders/demo-content";
 
@@ -17,6 +18,25 @@ export async function launchBrowser(): Promise<Browser> {
       "--disable-quic",
     ],
   });
+}
+
+/**
+ * One browser for the whole test file: launched (then `setup` run with it) before the first test, closed after the last.
+ * Returns a getter, since the browser exists only once the file's tests start.
+ */
+export function browserForFile(setup?: (browser: Browser) => Promise<void>, timeout?: number): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+    await setup?.(browser);
+  }, timeout);
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error("the browser is launched before the file's first test");
+    return browser;
+  };
 }
 
 /** Signs in through the real form as a demo person and waits for the proofs page. */

@@ -2,21 +2,17 @@ import { execFile } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { afterAll, describe, expect, inject, it } from "vitest";
 import { strFromU8, unzipSync } from "fflate";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, signInAs, openDemoProofAsAuthor } from "./browser";
+import type { Page } from "playwright-core";
+import { browserForFile, signInAs, openDemoProofAsAuthor } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
+const browser = browserForFile();
 const dir = mkdtempSync(join(tmpdir(), "cairn-e2e-export-"));
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
+afterAll(() => {
   rmSync(dir, { recursive: true, force: true });
 });
 
@@ -38,7 +34,7 @@ async function saveDownload(page: Page, linkName: string | RegExp, to: string): 
 
 describe("exporting the seeded proof in the browser", () => {
   it("exports a draft, downloads the bundle and the checker, and the bundle re-checks offline with Node alone", async () => {
-    const context = await browser.newContext({ acceptDownloads: true });
+    const context = await browser().newContext({ acceptDownloads: true });
     const page = await context.newPage();
     const proofId = await openDemoProofAsAuthor(page, baseUrl);
 
@@ -116,7 +112,7 @@ describe("exporting the seeded proof in the browser", () => {
   });
 
   it("a reviewer sees the exports but no export buttons", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInAs(page, baseUrl, "reviewer");
     await page.waitForURL(`${baseUrl}/proofs`);

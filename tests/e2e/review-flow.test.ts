@@ -6,23 +6,16 @@
  */
 import { readFileSync, existsSync, mkdirSync } from "node:fs";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
+import { describe, expect, inject, it } from "vitest";
+import type { Page } from "playwright-core";
+import { browserForFile, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
 /** Screenshots kept as test artefacts (git-ignored). */
 const SHOTS = join(process.cwd(), "test-results", "review");
-let browser: Browser;
+const browser = browserForFile();
 let usedLink = "";
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
 
 async function mailTo(address: string, timeoutMs = 15_000): Promise<{ subject: string; text: string }> {
   const file = process.env.CAIRN_MAIL_STORE;
@@ -38,7 +31,7 @@ async function mailTo(address: string, timeoutMs = 15_000): Promise<{ subject: s
 }
 
 async function personPage(key: string): Promise<Page> {
-  const page = await (await browser.newContext()).newPage();
+  const page = await (await browser().newContext()).newPage();
   await signInAs(page, baseUrl, key);
   await page.waitForURL(`${baseUrl}/proofs`);
   return page;
@@ -67,7 +60,7 @@ describe("review workflow in the browser", () => {
     const link = /(http\S+\/invitations\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
     expect(link.startsWith(baseUrl)).toBe(true);
     usedLink = link;
-    const reviewer = await (await browser.newContext()).newPage();
+    const reviewer = await (await browser().newContext()).newPage();
     await reviewer.goto(link);
     await reviewer.getByText("cases 3.2").waitFor();
     await reviewer.getByLabel("Your name").fill("Wren Halloway");
@@ -160,7 +153,7 @@ describe("review workflow in the browser", () => {
 
   it("refuses a used invitation link in the browser", async () => {
     expect(usedLink, "the flow above ran").not.toBe("");
-    const page = await (await browser.newContext()).newPage();
+    const page = await (await browser().newContext()).newPage();
     await page.goto(usedLink);
     expect(await page.getByTestId("invitation-closed").textContent()).toContain("already used");
     await page.context().close();
@@ -179,7 +172,7 @@ describe("review workflow in the browser", () => {
     await row.getByRole("button", { name: "Revoke" }).click();
     await row.getByText("⊘ revoked").waitFor();
     const link = /(http\S+\/invitations\/[A-Za-z0-9_-]+)/.exec((await mailTo(email)).text)![1];
-    const stranger = await (await browser.newContext()).newPage();
+    const stranger = await (await browser().newContext()).newPage();
     await stranger.goto(link);
     expect(await stranger.getByTestId("invitation-closed").textContent()).toContain("withdrawn by the proof's editor");
     for (const p of [editor, stranger]) await p.context().close();

@@ -4,22 +4,12 @@
  * and the Markdown editor run. Violations are collected from `securitypolicyviolation` events and from
  * Chromium's console.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext } from "playwright-core";
-import { launchBrowser } from "./browser";
-import { buildFixture, type Fixture } from "./access-fixture";
+import { describe, expect, inject, it } from "vitest";
+import type { BrowserContext } from "playwright-core";
+import { fixtureForFile, type Fixture } from "./access-fixture";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let fx: Fixture;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  fx = await buildFixture(browser, baseUrl);
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-});
+const fx = fixtureForFile(baseUrl);
 
 declare global {
   interface Window {

@@ -1,28 +1,20 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
+import { describe, expect, inject, it } from "vitest";
+import { browserForFile, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 describe("sign-in in the browser", () => {
   it("sends a signed-out visitor of /proofs to the sign-in page", async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await page.goto(`${baseUrl}/proofs`);
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     await page.close();
   });
 
   it("shows the neutral message for a wrong password and stays signed out", async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await signInAs(page, baseUrl, "coauthor", "not-the-password");
     const failure = page.getByTestId("sign-in-failure");
     await failure.waitFor();
@@ -32,7 +24,7 @@ describe("sign-in in the browser", () => {
   });
 
   it("signs a demo author in through the form and lists their proofs with their role", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInAs(page, baseUrl, "author");
     await page.waitForURL(`${baseUrl}/proofs`);

@@ -1,17 +1,10 @@
 /** The author's day in the browser: draft a proof with two cases, write a step with math, attach a claim, see its verdict and picture. */
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
+import { describe, expect, inject, it } from "vitest";
+import type { Page } from "playwright-core";
+import { browserForFile, signInAs } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 /** Signs the demo author in and makes (through the API) a proof with one case and one step; returns the step's page. */
 async function authorWithOneStep(page: Page, title: string, body: string): Promise<{ stepUrl: string; proofUrl: string; caseId: number }> {
@@ -26,7 +19,7 @@ async function authorWithOneStep(page: Page, title: string, body: string): Promi
 
 describe("proof workspace in the browser", () => {
   it("drafts a proof with two cases, a step with math and a verified claim with its picture", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signInAs(page, baseUrl, "author");
     await page.waitForURL(`${baseUrl}/proofs`);
@@ -126,7 +119,7 @@ describe("proof workspace in the browser", () => {
   });
 
   it("attaches every claim of a claims file at once (none when one cannot be read) and withdraws one", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     const { stepUrl } = await authorWithOneStep(page, "A claims file", "The Dynkin diagrams.");
     await page.goto(stepUrl);
@@ -170,7 +163,7 @@ describe("proof workspace in the browser", () => {
   });
 
   it("reorders the steps of a case, deletes the case (after confirming) and restores it with its steps", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     const { proofUrl, caseId } = await authorWithOneStep(page, "Delete and restore", "A step worth keeping.");
     await page.request.post(`${proofUrl.replace(baseUrl, `${baseUrl}/api`)}/cases/${caseId}/steps`, { data: { body: "A second step, $E_6$." } });
@@ -197,7 +190,7 @@ describe("proof workspace in the browser", () => {
   });
 
   it("attaches an enumeration claim through the form: N over the limit is refused beside N, the right list is verified", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     const { stepUrl } = await authorWithOneStep(page, "All small Dynkin diagrams", "Smith's list up to five vertices.");
     await page.goto(stepUrl);
@@ -219,7 +212,7 @@ describe("proof workspace in the browser", () => {
   });
 
   it("attaches Dynkin data through the form: an unknown line is refused beside the field, E8's data are verified", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     const { stepUrl } = await authorWithOneStep(page, "The Weyl group of E8", "Its order and Coxeter number.");
     await page.goto(stepUrl);
@@ -241,7 +234,7 @@ describe("proof workspace in the browser", () => {
   });
 
   it("keeps both edits when two tabs save the same step: 409, both texts shown, overwrite knowingly", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const first = await context.newPage();
     const { stepUrl } = await authorWithOneStep(first, "Two tabs", "First draft.");
     const second = await context.newPage();

@@ -16,6 +16,7 @@ import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { parseGraph } from "../input/parse";
 import { describeCondition } from "../families/case-condition";
 import { caseName, coverageCaution } from "../families/coverage";
+import { claimEnumerationSetting, settingWords } from "../families/enumeration";
 
 export const LARGE_INPUT_VERTICES = 200;
 export const LARGE_INPUT_CHARACTERS = 2_000;
@@ -237,7 +238,7 @@ function entriesOf(c: Claim): InputEntry[] {
         return v.encoded ?? `${g.format}: ${g.text.length > 60 ? `${g.text.slice(0, 60)}…` : g.text}`;
       });
       return [
-        text("setting", c.setting === "tree" ? "trees" : "connected simple graphs"),
+        text("setting", settingWords(claimEnumerationSetting(c))),
         text("at most N vertices", String(c.maxVertices)),
         text("relation", `ρ(G) ${RELATION_WORDS[c.op]} b`),
         text("bound b", c.bound),

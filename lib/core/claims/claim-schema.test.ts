@@ -39,13 +39,15 @@ describe("validateClaim", () => {
     expect(e.path).toBe("$.patterns[1].format");
   });
 
-  it("bounds an enumeration claim: N at most 20, op only < or <= (families closed under removing a vertex), setting simple or tree", () => {
+  it("bounds an enumeration claim: N at most 20, op only < or <= (families closed under removing a vertex), setting simple, tree, or multigraph with its bounds", () => {
     const base = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 6, op: "<", bound: "2", graphs: [p5] };
     expect(validateClaim(base)).toMatchObject({ kind: "enumeration", maxVertices: 6, graphs: [p5] });
     expect(validateClaim({ ...base, maxVertices: 20 })).toMatchObject({ maxVertices: 20 });
     expect(errorOf({ ...base, maxVertices: 21 }).path).toBe("$.maxVertices");
     expect(validateClaim({ ...base, setting: "tree" })).toMatchObject({ setting: "tree" });
-    expect(errorOf({ ...base, setting: "multigraph" }).path).toBe("$.setting");
+    expect(errorOf({ ...base, setting: "multigraphs" }).path).toBe("$.setting");
+    expect(errorOf({ ...base, setting: "multigraph" }).path).toBe("$.maxMultiplicity");
+    expect(validateClaim({ ...base, setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 })).toMatchObject({ setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 });
     expect(errorOf({ ...base, op: ">" }).path).toBe("$.op");
     expect(errorOf({ ...base, graphs: [p5, { format: "named" }] }).path).toBe("$.graphs[1].text");
   });

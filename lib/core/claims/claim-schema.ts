@@ -129,8 +129,12 @@ export interface StructureClaim extends ClaimCommon {
 export interface EnumerationClaim extends ClaimCommon {
   readonly kind: "enumeration";
   readonly maxVertices: number;
-  /** "simple" (the default) or "tree". */
-  readonly setting?: EnumerationSetting;
+  /** "simple" (the default), "tree", or "multigraph" (loops and multiple edges, with the two bounds below). */
+  readonly setting?: EnumerationClaimSetting;
+  /** Multigraph setting only: the largest edge multiplicity (1..MULTIGRAPH_MAX_WEIGHT). */
+  readonly maxMultiplicity?: number;
+  /** Multigraph setting only: the largest loop weight, the diagonal entry of A (0..MULTIGRAPH_MAX_WEIGHT). */
+  readonly maxLoop?: number;
   readonly op: "<" | "<=";
   readonly bound: string;
   readonly graphs: readonly GraphInput[];
@@ -207,6 +211,11 @@ export const DYNKIN_MAX_RANK = 60;
 export const ENUMERATION_RELATIONS = ["<", "<="] as const;
 export const ENUMERATION_SETTINGS = ["simple", "tree"] as const;
 export type EnumerationSetting = (typeof ENUMERATION_SETTINGS)[number];
+/** An enumeration claim may also run over graphs with loops and multiple edges. */
+export const ENUMERATION_CLAIM_SETTINGS = ["simple", "tree", "multigraph"] as const;
+export type EnumerationClaimSetting = (typeof ENUMERATION_CLAIM_SETTINGS)[number];
+/** Largest multiplicity and loop weight an enumeration claim may name. */
+export const MULTIGRAPH_MAX_WEIGHT = 4;
 /** Largest N an enumeration claim may name; the time budget decides what is reached within it. */
 export const ENUMERATION_MAX_VERTICES = 20;
 
@@ -352,7 +361,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   "characteristic-polynomial": ["graph", "coefficients"],
   eigenvalues: ["graph", "h", "multiset"],
   structure: ["graph", "predicate", "parameter", "relation"],
-  enumeration: ["maxVertices", "setting", "op", "bound", "graphs"],
+  enumeration: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "op", "bound", "graphs"],
   "dynkin-data": ["type", "graph", ...DYNKIN_DATA_FIELDS],
   coverage: ["maxVertices", "setting", "cases"],
 };
@@ -450,13 +459,29 @@ export function validateClaim(json: unknown, path = "$"): Claim {
         ...common,
         kind,
         maxVertices,
-        ...(o.setting !== undefined ? { setting: oneOf(o.setting, ENUMERATION_SETTINGS, `${path}.setting`) } : {}),
+        ...multigraphSetting(o, path),
         op: oneOf(o.op, ENUMERATION_RELATIONS, `${path}.op`),
         bound: boundText(o.bound, `${path}.bound`),
         graphs: graphs.map((g, i) => validateGraphInput(g, `${path}.graphs[${i}]`)),
       };
     }
   }
+}
+
+/** The setting of an enumeration claim, with maxMultiplicity and maxLoop exactly when it is "multigraph". */
+function multigraphSetting(o: Json, path: string): Pick<EnumerationClaim, "setting" | "maxMultiplicity" | "maxLoop"> {
+  const setting = o.setting === undefined ? undefined : oneOf(o.setting, ENUMERATION_CLAIM_SETTINGS, `${path}.setting`);
+  if (setting !== "multigraph") {
+    for (const k of ["maxMultiplicity", "maxLoop"] as const)
+      if (o[k] !== undefined) throw new ClaimError(`${path}.${k}`, `${k} is given only with "setting": "multigraph"`);
+    return setting !== undefined ? { setting } : {};
+  }
+  const weight = (k: "maxMultiplicity" | "maxLoop", min: number) => {
+    const v = integer(o[k], `${path}.${k}`, min);
+    if (v > MULTIGRAPH_MAX_WEIGHT) throw new ClaimError(`${path}.${k}`, `${k} is at most ${MULTIGRAPH_MAX_WEIGHT} (got ${v})`);
+    return v;
+  };
+  return { setting, maxMultiplicity: weight("maxMultiplicity", 1), maxLoop: weight("maxLoop", 0) };
 }
 
 /** A case condition read at its JSON path; its errors become ClaimErrors with the same path. */

@@ -4,7 +4,7 @@
  * polynomial is read; the core's Poly type stores x^0 first.
  */
 import type { CharacteristicPolynomialClaim, EigenvaluesClaim, EnumerationClaim, SpectralRadiusBoundClaim, VectorCertificateClaim } from "./claim-schema";
-import { checkEnumeration, enumerationStatement, recheckEnumeration } from "../families/enumeration";
+import { checkEnumeration, claimEnumerationSetting, enumerationStatement, recheckEnumeration } from "../families/enumeration";
 import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
 import { parseBound, type Bound } from "../arithmetic/bound";
 import { characteristicPolynomial, charpolyBerkowitz } from "../spectral/charpoly";
@@ -181,13 +181,13 @@ export const VECTOR_HANDLER: ClaimHandler<VectorCertificateClaim> = {
 
 /** "These are all the connected graphs on at most N vertices with ρ op b": exhaustive enumeration. */
 export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
-  statement: (c) => enumerationStatement(c.maxVertices, c.op, c.bound, c.graphs.length, c.setting),
+  statement: (c) => enumerationStatement(c.maxVertices, c.op, c.bound, c.graphs.length, claimEnumerationSetting(c)),
   limit: (c, inputs) => {
     const listed = inputs.patterns ?? [];
     const big = listed.findIndex((g) => g.n > 200 || g.edges.length > 2_000);
     return big >= 0 ? `listed graph ${big + 1} is far larger than any graph enumerated (${c.maxVertices} vertices at most)` : undefined;
   },
-  verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, c.setting),
+  verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, claimEnumerationSetting(c)),
   recheck: (c, inputs, outcome, evidence, budget) =>
-    recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, c.setting),
+    recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, claimEnumerationSetting(c)),
 };

@@ -14,7 +14,7 @@
 import { Graph, isSimple } from "../graph";
 import { Budget, Verdict, withinBudget } from "../verdict";
 import { Bound, parseBound } from "../arithmetic/bound";
-import { parseGraph6, writeGraph6 } from "../input/graph6";
+import { parseGraph6, parseSparse6, writeGraph6, writeSparse6 } from "../input/graph6";
 import { isConnected } from "./structure";
 import { isForest } from "../spectral/tree-inertia";
 import { canonicalKeyOf } from "./canonical-label";
@@ -31,7 +31,7 @@ export interface EnumerationCertificate {
   kind: "enumeration";
   /** Number of graphs found on 1, 2, …, N vertices. */
   counts: number[];
-  /** The graphs found, smallest first, each in graph6 (compared up to isomorphism on re-check). */
+  /** The graphs found, smallest first, each in graph6 — sparse6 when it has loops or multiple edges — (compared up to isomorphism on re-check). */
   graph6: string[];
 }
 
@@ -39,6 +39,15 @@ export interface EnumerationCertificate {
 export function isomorphic(a: Graph, b: Graph, budget?: Budget): boolean {
   if (a.n !== b.n || a.edges.length !== b.edges.length) return false;
   return canonicalKeyOf(a, budget) === canonicalKeyOf(b, budget);
+}
+
+/** The setting an enumeration claim names (claim-schema.ts), as the generator takes it. */
+export function claimEnumerationSetting(c: {
+  setting?: ClaimEnumerationSetting | "multigraph";
+  maxMultiplicity?: number;
+  maxLoop?: number;
+}): EnumerationSetting {
+  return c.setting === "multigraph" ? { kind: "multigraph", maxMultiplicity: c.maxMultiplicity ?? 1, maxLoop: c.maxLoop ?? 0 } : settingOf(c.setting);
 }
 
 const settingOf = (s: ClaimSetting | EnumerationSetting | undefined): EnumerationSetting =>
@@ -62,15 +71,42 @@ export function enumerateConnected(
 
 const SYMBOL: Record<EnumerationRelation, string> = { "<": "<", "<=": "≤" };
 
+/** The graphs an enumeration runs over, in words ("trees", "connected graphs with loops of weight ≤ 1 and edges of multiplicity ≤ 2"). */
+export function settingWords(setting: ClaimSetting | EnumerationSetting = "simple"): string {
+  const s = settingOf(setting);
+  if (s.kind === "tree") return "trees";
+  if (s.kind === "simple") return "connected simple graphs";
+  return `connected graphs with edges of multiplicity ≤ ${s.maxMultiplicity} and ${s.maxLoop === 0 ? "no loops" : `loops of weight ≤ ${s.maxLoop}`}`;
+}
+
+/** A found graph as text: graph6 when simple, sparse6 (leading ':', loops and multiple edges) otherwise. */
+export const graphText = (g: Graph): string => (isSimple(g) ? writeGraph6(g) : writeSparse6(g));
+/** Reads graphText's output back. */
+export const readGraphText = (t: string): Graph => (t.startsWith(":") ? parseSparse6(t) : parseGraph6(t));
+
+/** Why g is not a graph of the setting (loops, multiplicities, cycles), or null. Connectivity is checked apart. */
+function outsideSetting(g: Graph, setting: EnumerationSetting): string | null {
+  if (setting.kind !== "multigraph") {
+    if (!isSimple(g)) return "has a loop or a multiple edge; this claim is about simple graphs";
+    if (setting.kind === "tree" && !isForest(g)) return "has a cycle; this claim is about trees";
+    return null;
+  }
+  for (const e of g.edges) {
+    if (e.u === e.v && e.m > setting.maxLoop) return `has a loop of weight ${e.m}, more than ${setting.maxLoop}`;
+    if (e.u !== e.v && e.m > setting.maxMultiplicity) return `has an edge of multiplicity ${e.m}, more than ${setting.maxMultiplicity}`;
+  }
+  return null;
+}
+
 export function enumerationStatement(
   maxVertices: number,
   op: EnumerationRelation,
   b: Bound | string,
   listed: number,
-  setting: ClaimSetting = "simple",
+  setting: ClaimSetting | EnumerationSetting = "simple",
 ): string {
   const text = typeof b === "string" ? b : b.text;
-  return `the ${setting === "tree" ? "trees" : "connected simple graphs"} on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
+  return `the ${settingWords(setting)} on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
 }
 
 /**
@@ -84,7 +120,7 @@ export function checkEnumeration(
   bound: Bound | string,
   listed: readonly Graph[],
   budget: Budget = new Budget(),
-  setting: ClaimSetting = "simple",
+  setting: ClaimSetting | EnumerationSetting = "simple",
 ): Verdict<EnumerationCertificate> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const statement = enumerationStatement(maxVertices, op, b, listed.length, setting);
@@ -92,7 +128,7 @@ export function checkEnumeration(
   return withinBudget(statement, method, budget, () => {
     const { levels, checked } = enumerateConnected(maxVertices, op, b, budget, { setting });
     const found = levels.flat();
-    const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map((g) => writeGraph6(g)) };
+    const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map(graphText) };
     // Phrased to follow "found" or "enumerated" ("… found 20 graph(s) (…)"), never "found … found".
     const summary = `${found.length} graph(s) (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
     const refuted = (reason: string): Verdict<EnumerationCertificate> => ({
@@ -106,17 +142,19 @@ export function checkEnumeration(
     const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
     for (const [i, g] of listed.entries()) {
       if (g.n > maxVertices) return refuted(`listed graph ${i + 1} has ${g.n} vertices, more than ${maxVertices}`);
-      if (!isSimple(g)) return refuted(`listed graph ${i + 1} has a loop or a multiple edge; this claim is about simple graphs`);
+      const outside = outsideSetting(g, settingOf(setting));
+      if (outside) return refuted(`listed graph ${i + 1} ${outside}`);
       if (isConnected(g, budget).status !== "verified") return refuted(`listed graph ${i + 1} is not connected`);
-      if (setting === "tree" && !isForest(g)) return refuted(`listed graph ${i + 1} has a cycle; this claim is about trees`);
       const j = index.get(canonicalKeyOf(g, budget)) ?? -1;
-      if (j < 0) return refuted(`listed graph ${i + 1} (${writeGraph6(g)}) does not have ρ ${SYMBOL[op]} ${b.text}`);
+      if (j < 0) return refuted(`listed graph ${i + 1} (${graphText(g)}) does not have ρ ${SYMBOL[op]} ${b.text}`);
       if (matched[j] >= 0) return refuted(`listed graphs ${matched[j] + 1} and ${i + 1} are isomorphic`);
       matched[j] = i;
     }
     const missing = matched.indexOf(-1);
     if (missing >= 0)
-      return refuted(`a graph on ${found[missing].n} vertices (graph6 ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`);
+      return refuted(
+        `a graph on ${found[missing].n} vertices (${isSimple(found[missing]) ? "graph6" : "sparse6"} ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`,
+      );
     return {
       status: "verified",
       statement,
@@ -135,15 +173,15 @@ export function checkEnumeration(
 export function graph6Mismatch(expected: readonly string[], given: readonly unknown[], field: string, what: string, budget: Budget): string | null {
   const unused = new Map<string, number>();
   for (const t of expected) {
-    const k = canonicalKeyOf(parseGraph6(t), budget);
+    const k = canonicalKeyOf(readGraphText(t), budget);
     unused.set(k, (unused.get(k) ?? 0) + 1);
   }
   for (const [i, text] of given.entries()) {
     let g: Graph;
     try {
-      g = parseGraph6(String(text));
+      g = readGraphText(String(text));
     } catch {
-      return `${field}[${i}] is not graph6`;
+      return `${field}[${i}] is not graph6 (nor sparse6)`;
     }
     const k = canonicalKeyOf(g, budget);
     const left = unused.get(k) ?? 0;
@@ -162,7 +200,7 @@ export function recheckEnumeration(
   outcome: "verified" | "refuted",
   evidence: unknown,
   budget: Budget = new Budget(),
-  setting: ClaimSetting = "simple",
+  setting: ClaimSetting | EnumerationSetting = "simple",
 ): Verdict<undefined> {
   const again = checkEnumeration(maxVertices, op, bound, listed, budget, setting);
   const statement = `${again.statement} is ${outcome}`;

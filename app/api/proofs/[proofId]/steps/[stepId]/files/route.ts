@@ -1,9 +1,6 @@
-import { readFileBody, route, zodIssues } from "@/lib/http";
-import { invalid } from "@/lib/errors";
-import { readEnv } from "@/lib/env";
+import { route } from "@/lib/http";
 import { requireStepAccess } from "@/lib/access";
-import { acceptUpload, listStepFiles, saveStepFile } from "@/lib/data/files";
-import { uploadQuerySchema } from "@/lib/validations/upload";
+import { listStepFiles, receiveUpload } from "@/lib/data/files";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 
 type Context = { params: Promise<{ proofId: string; stepId: string }> };
@@ -25,11 +22,6 @@ export const GET = route(async (_request: Request, { params }: Context) => {
 export const POST = route(async (request: Request, { params }: Context) => {
   const { proofId, stepId } = await routeIds(params);
   const { user } = await requireStepAccess(proofId, stepId, "files.upload");
-  const query = uploadQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
-  if (!query.success) throw invalid("Say which file this is.", zodIssues(query.error));
-  const limit = readEnv().CAIRN_UPLOAD_MAX_BYTES;
-  const bytes = await readFileBody(request, limit);
-  const detected = acceptUpload(bytes, limit, query.data.kind);
-  const { file, duplicate } = await saveStepFile(proofId, stepId, user.id, query.data.name, bytes, detected);
+  const { file, duplicate } = await receiveUpload(request, proofId, stepId, user.id);
   return Response.json({ file, duplicate }, { status: duplicate ? 200 : 201 });
 });
