@@ -40,7 +40,8 @@ beforeAll(async () => {
   // Line 6 dropped, line 1 repeated at the end (line 106).
   const edited = [...trees.slice(0, 5), ...trees.slice(6), trees[0]];
   for (const [name, lines] of [
-    ["trees10-all.s6", trees],
+    // In reverse order: other bytes than another test's upload of nauty's list to this step (a step stores equal bytes once).
+    ["trees10-all.s6", [...trees].reverse()],
     ["trees10-edited.s6", edited],
   ] as const) {
     writeFileSync(join(dir, name), lines.join("\n") + "\n");

@@ -47,22 +47,24 @@ describe("a batch claim in the browser", () => {
     await form.getByLabel("bound").fill("4");
     await form.getByRole("button", { name: "Check every graph" }).click();
 
-    const progress = page.getByTestId("batch-progress").first();
+    // Other tests add batches to this step: this batch's card is the one over random-12.g6.
+    const card = page.getByTestId("batch-card").filter({ hasText: "random-12.g6" }).first();
+    const progress = card.getByTestId("batch-progress");
     await progress.waitFor();
     expect(await progress.textContent()).toMatch(new RegExp(`of ${COUNT} checked`));
-    const outcome = page.getByTestId("batch-outcome").first();
+    const outcome = card.getByTestId("batch-outcome");
     await outcome.waitFor({ timeout: 100_000 });
     const failing = Number(/(\d+) of 3000 graphs fail/.exec((await outcome.textContent()) ?? "")?.[1]);
     expect(failing).toBeGreaterThan(0);
 
-    await page.getByRole("button", { name: "show each graph" }).first().click();
-    await page.getByTestId("batch-result-row").first().waitFor();
+    await card.getByRole("button", { name: "show each graph" }).click();
+    await card.getByTestId("batch-result-row").first().waitFor();
     // "failures only" starts ticked when some graphs fail: every row shown is a failure.
-    const verdicts = await page.getByTestId("batch-result-row").locator("td:nth-child(2)").allTextContents();
+    const verdicts = await card.getByTestId("batch-result-row").locator("td:nth-child(2)").allTextContents();
     expect(verdicts.length).toBe(failing);
     expect(verdicts.every((v) => !v.includes("verified"))).toBe(true);
 
-    const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("download-failures").first().click()]);
+    const [download] = await Promise.all([page.waitForEvent("download"), card.getByTestId("download-failures").click()]);
     const saved = join(dir, "failures.g6");
     await download.saveAs(saved);
     const lines = readFileSync(saved, "utf8").trimEnd().split("\n");
