@@ -406,7 +406,7 @@ function pipelineTasks(): BenchTask[] {
   return (
     [
       [12, "2", 2, 1],
-      [20, "2", 2, 1],
+      [16, "2", 2, 1],
       [10, "sqrt(2+sqrt(5))", Math.sqrt(2 + Math.sqrt(5)), Math.sqrt(2 + Math.sqrt(5)) / 2],
       [16, "sqrt(2+sqrt(5))", Math.sqrt(2 + Math.sqrt(5)), Math.sqrt(2 + Math.sqrt(5)) / 2],
     ] as const
