@@ -30,9 +30,20 @@ const FAMILIES: Array<[string, string]> = [
 ];
 
 /** The request body for the statement chosen in the form. */
-function statementBody(kind: Kind, op: string, bound: string, patterns: string, induced: boolean, families: string[], setting: string, vertices: string) {
+function statementBody(
+  kind: Kind,
+  op: string,
+  bound: string,
+  patterns: string,
+  induced: boolean,
+  families: string[],
+  setting: string,
+  vertices: string,
+  limitOp: string,
+) {
   if (kind === "spectral-radius-bound") return { kind, op, bound };
-  if (kind === "enumeration-exactly") return { kind, setting, vertices: Number(vertices) };
+  // Optionally only those with ρ(G) < b (or ≤ b), with the bound field's value.
+  if (kind === "enumeration-exactly") return { kind, setting, vertices: Number(vertices), ...(limitOp ? { op: limitOp, bound } : {}) };
   if (kind === "identified-as") return { kind, families };
   return {
     kind,
@@ -58,6 +69,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [families, setFamilies] = useState<string[]>(["A", "D", "E"]);
   const [setting, setSetting] = useState("tree");
   const [vertices, setVertices] = useState("10");
+  const [limitOp, setLimitOp] = useState("");
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
@@ -71,7 +83,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
     try {
       const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
         method: "POST",
-        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices) },
+        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices, limitOp) },
       });
       setMessage(
         `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
@@ -175,6 +187,24 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
             className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"
           />
           <span>vertices</span>
+          <select
+            value={limitOp}
+            onChange={(e) => setLimitOp(e.target.value)}
+            aria-label="only those with ρ(G)"
+            className="rounded border border-stone-300 bg-white px-1 py-0.5"
+          >
+            <option value="">(all of them)</option>
+            <option value="<">with ρ(G) &lt;</option>
+            <option value="<=">with ρ(G) ≤</option>
+          </select>
+          {limitOp && (
+            <input
+              value={bound}
+              onChange={(e) => setBound(e.target.value)}
+              aria-label="bound"
+              className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
+            />
+          )}
         </div>
       )}
       {kind === "identified-as" && (

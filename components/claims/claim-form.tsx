@@ -14,6 +14,7 @@ import {
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
   COVERAGE_MAX_VERTICES,
+  MULTIGRAPH_MAX_WEIGHT,
 } from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
@@ -50,13 +51,14 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
   );
 }
 
-/** Which graphs an enumeration or coverage claim runs over. */
-function SettingSelect({ register, error }: { register: UseFormRegister<ClaimForm>; error?: string }) {
+/** Which graphs an enumeration or coverage claim runs over (loops and multiple edges: enumeration only). */
+function SettingSelect({ register, error, multigraph = false }: { register: UseFormRegister<ClaimForm>; error?: string; multigraph?: boolean }) {
   return (
     <FormField label="Which graphs" error={error}>
       <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
         <option value="simple">connected simple graphs</option>
         <option value="tree">trees</option>
+        {multigraph && <option value="multigraph">connected graphs with loops and multiple edges</option>}
       </select>
     </FormField>
   );
@@ -150,10 +152,20 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <SettingSelect register={register} error={err("enumerationSetting")} />
+          <SettingSelect register={register} error={err("enumerationSetting")} multigraph />
+          {watch("enumerationSetting") === "multigraph" && (
+            <div className="flex gap-2">
+              <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
+                <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
+              </FormField>
+              <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
+                <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
+              </FormField>
+            </div>
+          )}
           <FormField
             label="The graphs, all of them"
-            hint="connected simple graphs (or trees), separated by a line ---; e.g. A(5) --- D(5)"
+            hint="connected graphs of the setting, separated by a line ---; e.g. A(5) --- D(5); a loop of weight m at v is the edge line v v m"
             error={err("patternText")}
           >
             <div className="flex gap-2">

@@ -1,13 +1,37 @@
 "use client";
-import useSWR from "swr";
-import { jsonFetcher } from "@/components/proof/api-client";
+import { useState } from "react";
+import useSWR, { useSWRConfig } from "swr";
+import { apiFetch, jsonFetcher } from "@/components/proof/api-client";
 import type { StepFileView } from "@/lib/data/files";
 import { formatBytes } from "./upload-request";
 
 /** The files uploaded to a step, each with what its content is and a download link (members only). */
-export function FileList({ proofId, stepId, initial }: { proofId: number; stepId: number; initial: StepFileView[] }) {
+export function FileList({
+  proofId,
+  stepId,
+  initial,
+  canAttach = false,
+}: {
+  proofId: number;
+  stepId: number;
+  initial: StepFileView[];
+  /** Offer "attach its claims" on claims files (those who may upload). */
+  canAttach?: boolean;
+}) {
   const { data } = useSWR<{ files: StepFileView[] }>(`/api/proofs/${proofId}/steps/${stepId}/files`, jsonFetcher, { fallbackData: { files: initial } });
+  const { mutate } = useSWRConfig();
+  const [said, setSaid] = useState<string | null>(null);
   const files = data?.files ?? initial;
+  const attach = async (f: StepFileView) => {
+    setSaid(null);
+    try {
+      const { claims } = await apiFetch<{ claims: unknown[] }>(`/api/proofs/${proofId}/files/${f.id}/claims`, { method: "POST" });
+      setSaid(`Attached ${claims.length} ${claims.length === 1 ? "claim" : "claims"} from “${f.name}”; the checker is working on them.`);
+      await mutate(`/api/proofs/${proofId}/steps/${stepId}/claims`);
+    } catch (e) {
+      setSaid(`✗ ${(e as Error).message}`);
+    }
+  };
   return (
     <section className="mt-8" aria-labelledby="files-heading">
       <h2 id="files-heading" className="text-lg font-semibold">
@@ -30,9 +54,19 @@ export function FileList({ proofId, stepId, initial }: { proofId: number; stepId
               <span className="font-mono text-xs text-stone-400" title="SHA-256 of the bytes">
                 {f.sha256.slice(0, 12)}…
               </span>
+              {canAttach && f.kind === "claims" && (
+                <button type="button" onClick={() => void attach(f)} className="text-lichen-700 underline" data-testid="attach-file-claims">
+                  attach its claims to this step
+                </button>
+              )}
             </li>
           ))}
         </ul>
+      )}
+      {said && (
+        <p className="mt-2 text-sm" aria-live="polite" data-testid="attach-file-message">
+          {said}
+        </p>
       )}
     </section>
   );

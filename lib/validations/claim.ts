@@ -13,7 +13,7 @@ import {
   STRUCTURE_PREDICATES,
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
-  ENUMERATION_SETTINGS,
+  ENUMERATION_CLAIM_SETTINGS,
 } from "@/lib/core/claims/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
@@ -49,7 +49,9 @@ export const claimFormSchema = z.object({
   parameter: z.string(),
   degreeRelation: z.enum(DEGREE_RELATIONS),
   maxVertices: z.string(),
-  enumerationSetting: z.enum(ENUMERATION_SETTINGS),
+  enumerationSetting: z.enum(ENUMERATION_CLAIM_SETTINGS),
+  maxMultiplicity: z.string(),
+  maxLoop: z.string(),
   dynkinData: z.string(),
   cases: z.string(),
   certificate: z.string(),
@@ -76,6 +78,8 @@ export const emptyClaimForm: ClaimForm = {
   degreeRelation: "=",
   maxVertices: "",
   enumerationSetting: "simple",
+  maxMultiplicity: "2",
+  maxLoop: "1",
   dynkinData: "",
   cases: "",
   certificate: "",
@@ -198,6 +202,9 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
         op: f.op,
         bound: f.bound.trim(),
         ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}),
+        ...(f.enumerationSetting === "multigraph"
+          ? { setting: "multigraph", maxMultiplicity: wholeNumber(f.maxMultiplicity), maxLoop: wholeNumber(f.maxLoop) }
+          : {}),
         graphs: f.patternText
           .split(/^\s*---\s*$/m)
           .map((t) => t.trim())
@@ -206,6 +213,11 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       });
       break;
     case "coverage":
+      if (f.enumerationSetting === "multigraph")
+        issues.push({
+          field: "enumerationSetting",
+          message: "coverage runs over connected simple graphs or trees; loops and multiple edges are for enumeration claims",
+        });
       need("maxVertices", "the largest number of vertices N");
       if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer" });
       Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}) });
@@ -248,6 +260,9 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
   return issues.length ? { issues } : { claim };
 }
 
+/** A form's whole number as typed; anything else is passed on as text so the claim's validation names the field. */
+const wholeNumber = (t: string): number | string => (/^\s*\d+\s*$/.test(t) ? Number(t.trim()) : t.trim());
+
 /** The form field for an error path such as "claims.0.graph.text" or "claims.0.patterns[1].text". */
 export function formFieldOf(path: string): keyof ClaimForm | null {
   const rest = path.replace(/^claims\.\d+\.?/, "");
@@ -255,6 +270,8 @@ export function formFieldOf(path: string): keyof ClaimForm | null {
   if (/^(pattern|patterns|graphs)\b/.test(rest)) return "patternText";
   if (/^maxVertices\b/.test(rest)) return "maxVertices";
   if (/^setting\b/.test(rest)) return "enumerationSetting";
+  if (/^maxMultiplicity\b/.test(rest)) return "maxMultiplicity";
+  if (/^maxLoop\b/.test(rest)) return "maxLoop";
   if (/^(bound)\b/.test(rest)) return "bound";
   if (/^(op|relation)\b/.test(rest)) return "op";
   if (/^vector\b/.test(rest)) return "vector";

@@ -10,12 +10,16 @@ import {
   pathWorkload,
   randomTreeWorkload,
   sparseGraphWorkload,
+  cubicWorkload,
+  gluedWorkload,
   star4Workload,
   t12kWorkload,
   workloadGraph,
   type Workload,
 } from "./workloads";
 import { spawnSync } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
 import { enumerateConnected } from "../../lib/core/families/enumeration";
 import { generateConnected, type GenerationOptions } from "../../lib/core/families/augmentation";
 import { checkCoverage, type CoverageCase } from "../../lib/core/families/coverage";
@@ -28,6 +32,7 @@ import type { Graph } from "../../lib/core/graph";
 import { identifySmith } from "../../lib/core/families/identify";
 import { inertia, spectralRadiusBound } from "../../lib/core/spectral/inertia";
 import { rat } from "../../lib/core/arithmetic/rational";
+import { affineE } from "../../lib/core/input/constructors";
 import { findSubgraph } from "../../lib/core/subgraph/subgraph";
 import { perronApproximation } from "../../lib/core/spectral/perron";
 import { Budget } from "../../lib/core/verdict";
@@ -151,6 +156,40 @@ function sparseTasks(): BenchTask[] {
         },
       ),
       `G(n,m) deg 3, n=${n}`,
+    ),
+  ]);
+}
+
+function cubicTasks(): BenchTask[] {
+  // ρ = 3 exactly (connected 3-regular): the zero of 3I − A sits in the dense front, where the certified
+  // float front settles it by an exact kernel vector instead of redoing the block exactly.
+  return [2_000, 5_000].flatMap((n) => [
+    named(
+      graphTask(
+        `cubic-${n}-rho3`,
+        () => cubicWorkload(n),
+        "ρ = 3 (exact verdict, zero in the front)",
+        false,
+        (g) => {
+          const v = spectralRadiusBound(g, "=", "3", new Budget(BENCH_STEPS));
+          const c = v.certificate as { kind?: string; front?: number } | undefined;
+          return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
+        },
+      ),
+      `cubic n=${n}`,
+    ),
+    named(
+      graphTask(
+        `cubic-${n}-affine-glued`,
+        () => gluedWorkload(cubicWorkload(n), affineE(6), 6, 20),
+        "full inertia of 2I − A (20 glued Ẽ6 pairs)",
+        false,
+        (g) => {
+          const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+          return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front}` : ""}`;
+        },
+      ),
+      `cubic n=${n} affine-glued`,
     ),
   ]);
 }
@@ -294,6 +333,7 @@ function enumerationTasks(): BenchTask[] {
     counted("enumerate-connected-9", "connected graphs, ≤ 9 vertices", "all (no bound)", undefined, { maxVertices: 9 }),
     counted("enumerate-trees-16", "trees, ≤ 16 vertices", "all (no bound)", 5000, { maxVertices: 16, setting: { kind: "tree" } }),
     ...nautyTasks(),
+    ...pipelineTasks(),
     ...coverageTasks(),
   ];
 }
@@ -348,9 +388,41 @@ function nautyTasks(): BenchTask[] {
     quick: false,
     prepare: () => tool(name),
     run: (cmd) => {
-      if (!cmd) return "nauty not installed (apt-get install nauty)";
+      if (!cmd) return "nauty not installed (scripts/test-packages.sh installs it)";
       const r = spawnSync("sh", ["-c", `${cmd as string} ${args} 2>&1`], { encoding: "utf8" });
       return /(\d+ (?:graphs|trees) generated)/.exec(r.stdout)?.[1] ?? r.stdout.trim();
+    },
+  }));
+}
+
+/**
+ * The enumeration workloads through a general pipeline on the same machine: nauty's geng (connected graphs with
+ * Δ ≤ ⌊b²⌋ = 4 and m ≤ ⌊b·n/2⌋, the pruning the enumeration itself uses) piped into a float filter in plain Node
+ * (tests/bench/float-filter.mjs); timed end to end, per-order counts printed to compare with the enumerate rows.
+ */
+function pipelineTasks(): BenchTask[] {
+  const geng = () => [`nauty-geng`, "geng"].find((c) => spawnSync("sh", ["-c", `command -v ${c}`]).status === 0);
+  const filter = path.join(path.dirname(fileURLToPath(import.meta.url)), "float-filter.mjs");
+  return (
+    [
+      [12, "2", 2, 1],
+      [16, "2", 2, 1],
+      [10, "sqrt(2+sqrt(5))", Math.sqrt(2 + Math.sqrt(5)), Math.sqrt(2 + Math.sqrt(5)) / 2],
+      [16, "sqrt(2+sqrt(5))", Math.sqrt(2 + Math.sqrt(5)), Math.sqrt(2 + Math.sqrt(5)) / 2],
+    ] as const
+  ).map(([n, text, b, half]) => ({
+    id: `pipeline-geng-${n}-${text}`,
+    workload: `connected graphs, ≤ ${n} vertices, ρ ≤ ${text}`,
+    task: "geng -c -D4 | float filter (general pipeline, for comparison)",
+    quick: false,
+    prepare: () => geng(),
+    run: (cmd) => {
+      if (!cmd) return "nauty not installed (scripts/test-packages.sh installs it)";
+      const orders = Array.from({ length: n }, (_, i) => i + 1)
+        .map((k) => `${cmd as string} -q -c -D4 ${k} ${Math.max(k - 1, 0)}:${Math.floor(half * k + 1e-9)}`)
+        .join("; ");
+      const r = spawnSync("sh", ["-c", `(${orders}) | ${process.execPath} ${filter} ${b}`], { encoding: "utf8", maxBuffer: 1 << 24 });
+      return `counts ${r.stdout.trim()}`;
     },
   }));
 }
@@ -378,6 +450,7 @@ export const coreSection: BenchSection = {
   tasks: [
     ...spectralRadiusTasks(),
     ...sparseTasks(),
+    ...cubicTasks(),
     ...subgraphTasks(),
     ...charpolyTasks(),
     ...irrationalBoundTasks(),

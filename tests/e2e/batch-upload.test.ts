@@ -38,7 +38,8 @@ describe("a batch claim in the browser", () => {
     await expect
       .poll(async () => (await page.getByTestId("upload-message").textContent()) ?? "", { timeout: 60_000 })
       .toMatch(new RegExp(`graph6 list of ${COUNT} graphs`));
-    expect(await page.getByTestId("file-list").textContent()).toContain("random-12.g6");
+    // The list of files is fetched again after the upload; wait for it rather than read it at once.
+    await expect.poll(async () => (await page.getByTestId("file-list").textContent()) ?? "", { timeout: 30_000 }).toContain("random-12.g6");
 
     const form = page.getByTestId("batch-form");
     await form.getByLabel("graph list").selectOption({ label: `random-12.g6 (${COUNT} graphs)` });

@@ -56,3 +56,10 @@ export async function openDemoProofAsAuthor(page: Page, baseUrl: string): Promis
   await page.waitForURL(/\/proofs\/\d+$/);
   return Number(new URL(page.url()).pathname.split("/")[2]);
 }
+
+/** Signs the demo author in and opens the first step of the demo proof. */
+export async function openDemoStepAsAuthor(page: Page, baseUrl: string): Promise<void> {
+  await openDemoProofAsAuthor(page, baseUrl);
+  const stepHref = await page.locator('a[href*="/steps/"]').first().getAttribute("href");
+  await page.goto(`${baseUrl}${stepHref}`);
+}

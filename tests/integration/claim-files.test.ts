@@ -25,6 +25,7 @@ import * as startRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/r
 import * as partRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/parts/[part]/route";
 import * as finishRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/finish/route";
 import * as fileRoute from "@/app/api/proofs/[proofId]/files/[fileId]/route";
+import * as fileClaimsRoute from "@/app/api/proofs/[proofId]/files/[fileId]/claims/route";
 
 const PART = 1024;
 const restoreEnv = rememberEnv([...STORAGE_KEYS, "CAIRN_UPLOAD_PART_BYTES", "CAIRN_UPLOAD_PARTS_DIR"]);
@@ -183,5 +184,37 @@ describe.each(["local", "s3"])("files of a claim with the %s store", (driver) =>
     expect(done.status).toBe(201);
     const { file } = await done.json();
     expect(file).toMatchObject({ sha256: sha256Hex(text), claimIds: [claimIn] });
+  });
+
+  it("the claims of an uploaded claims file are attached to its step from the stored bytes; a graph list is refused (422), a referee too (403)", async () => {
+    await actAs("author");
+    const doc = bytes(
+      JSON.stringify({ format: "cairn-claims/1", claims: [{ ...spectral, graph: { format: "named", text: driver === "s3" ? "path(4)" : "path(2)" } }] }),
+    );
+    const up = await stepFilesRoute.POST(
+      new Request("http://localhost/x?name=claims.json", { method: "POST", body: doc as Uint8Array<ArrayBuffer> }),
+      params({ proofId, stepId: String(stepIn) }),
+    );
+    const { file } = await up.json();
+    expect(file.kind).toBe("claims");
+    const attach = (fileId: number) => fileClaimsRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, fileId: String(fileId) }));
+    await actAs("reviewer");
+    expect((await attach(file.id)).status).toBe(403);
+    await actAs("author");
+    const before = await models().Claim.count({ where: { stepId: stepIn } });
+    const res = await attach(file.id);
+    expect(res.status).toBe(202);
+    const { claims } = await res.json();
+    expect(claims).toHaveLength(1);
+    expect(claims[0]).toMatchObject({ stepId: stepIn, kind: "spectral-radius-bound" });
+    expect(await models().Claim.count({ where: { stepId: stepIn } })).toBe(before + 1);
+    const list = await stepFilesRoute.POST(
+      new Request("http://localhost/x?name=paths.g6", { method: "POST", body: bytes(driver === "s3" ? "Bg\n" : "Bw\n") as Uint8Array<ArrayBuffer> }),
+      params({ proofId, stepId: String(stepIn) }),
+    );
+    const refused = await attach((await list.json()).file.id);
+    expect(refused.status).toBe(422);
+    expect((await refused.json()).error.message).toMatch(/not a claims file/);
+    expect(await models().Claim.count({ where: { stepId: stepIn } })).toBe(before + 1);
   });
 });

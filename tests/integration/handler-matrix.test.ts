@@ -127,6 +127,8 @@ const EXPECTED: Record<string, Record<Role, Outcome>> = {
   "GET api/proofs/[proofId]/steps/[stepId]/files/route.ts": ALL_MEMBERS,
   "POST api/proofs/[proofId]/steps/[stepId]/files/route.ts": AUTHORS,
   // Files of a claim: read like the files of its step, uploaded by its uploaders.
+  // Attaching the claims of an uploaded claims file (the fixture's file is a graph list: 422 past the access check).
+  "POST api/proofs/[proofId]/files/[fileId]/claims/route.ts": AUTHORS,
   "GET api/proofs/[proofId]/claims/[claimId]/files/route.ts": ALL_MEMBERS,
   "POST api/proofs/[proofId]/claims/[claimId]/files/route.ts": AUTHORS,
   // Uploads in parts: the uploaders only (authors and the owner), like a one-request upload.

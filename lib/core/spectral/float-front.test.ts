@@ -7,14 +7,14 @@
 import { describe, expect, it } from "vitest";
 import { certifiedFrontInertia } from "./float-front";
 import { sparseInertia } from "./sparse-inertia";
-import { inertia } from "./inertia";
+import { inertia, spectralRadiusBound, recheckSpectralRadiusBound, type SpectralRadiusCertificate } from "./inertia";
 import { charpolyBerkowitz } from "./charpoly";
 import { buildGraph } from "../input/graph-build";
-import { complete, cycle } from "../input/constructors";
+import { affineE, complete, cycle, disjointUnion } from "../input/constructors";
 import { rat, type Rational } from "../arithmetic/rational";
 import { Budget } from "../verdict";
-import type { Graph } from "../graph";
-import { sparseGraphWorkload, workloadGraph } from "../../../tests/bench/workloads";
+import { adjacency, type Graph } from "../graph";
+import { cubicWorkload, gluedWorkload, sparseGraphWorkload, workloadGraph } from "../../../tests/bench/workloads";
 
 /** Random simple graph with n vertices and m edges from a seeded LCG (Numerical Recipes constants). */
 function randomGraph(n: number, m: number, seed: number): Graph {
@@ -156,5 +156,121 @@ describe("certified floating-point front", () => {
     const fast = inertia(g, rat(2), big());
     expect(fast.front).toBeGreaterThan(50);
     expect(counts(fast)).toEqual(counts(sparseInertia(g, rat(2), "none", big())));
+  });
+});
+
+/** The integer rows of bI − A (one dense front, D = 1). */
+function rowsOf(g: Graph, b: bigint): bigint[][] {
+  const { start, nbr, wt, diag } = adjacency(g);
+  return Array.from({ length: g.n }, (_, v) => {
+    const row = new Array<bigint>(g.n).fill(0n);
+    row[v] = b - BigInt(diag[v]);
+    for (let k = start[v]; k < start[v + 1]; k++) row[nbr[k]] -= BigInt(wt[k]);
+    return row;
+  });
+}
+
+/** g with a twin added for each listed vertex (same neighbours; joined to it when `adjacent`). */
+function withTwins(g: Graph, of: readonly number[], adjacent: boolean): Graph {
+  const edges = g.edges.map((e) => ({ u: e.u, v: e.v }));
+  of.forEach((v, i) => {
+    const t = g.n + i;
+    for (const e of g.edges) if (e.u === v || e.v === v) edges.push({ u: Math.min(t, e.u === v ? e.v : e.u), v: Math.max(t, e.u === v ? e.v : e.u) });
+    if (adjacent) edges.push({ u: v, v: t });
+  });
+  return buildGraph(g.n + of.length, edges);
+}
+
+const cubic = (n: number) => workloadGraph(cubicWorkload(n));
+
+describe("partial fallback: only true zeros of the front leave floating point", () => {
+  it("eigenvalues exactly at b (3 for cubic graphs, 0 and −1 for twins, 2 for glued affine Ẽ6 pairs) are proven by kernel vectors, as Descartes counts them", () => {
+    // A k-regular graph has k as an eigenvalue once per component (Brouwer & Haemers, Spectra of Graphs,
+    // Prop. 3.1.1, from memory). Twins u, v with N(u) = N(v) give A(e_u − e_v) = 0; with N[u] = N[v]
+    // (adjacent twins) A(e_u − e_v) = −(e_u − e_v) (common practice). Glued pairs: see gluedWorkload.
+    const cases: Array<[string, Graph, bigint, number]> = [
+      ["two cubic components at 3", disjointUnion(cubic(30), cubic(16)), 3n, 2],
+      ["cubic graph with 3 twins at 0", withTwins(cubic(36), [0, 5, 11], false), 0n, 3],
+      ["cubic graph with 3 adjacent twins at −1", withTwins(cubic(36), [0, 5, 11], true), -1n, 3],
+      ["Ẽ6 pairs glued into a cubic graph at 2", workloadGraph(gluedWorkload(cubicWorkload(20), affineE(6), 6, 2)), 2n, 2],
+    ];
+    for (const [name, g, b, atLeast] of cases) {
+      const expected = inertiaByDescartes(g, b);
+      expect(expected[2], name).toBeGreaterThanOrEqual(atLeast); // the construction works
+      const r = certifiedFrontInertia(rowsOf(g, b), 1n);
+      // At b = 0 the diagonal is all zero and the float front has only 1×1 pivots: it may decline there
+      // (the sparse elimination below pivots 2×2 exactly first); everywhere else the kernel vectors settle it.
+      if (b !== 0n) expect(r, `${name}: settled without an exact elimination`).toBeDefined();
+      if (r) expect(counts(r), name).toEqual(expected);
+      // Through the sparse elimination with the front forced at once: the same counts.
+      expect(counts(sparseInertia(g, rat(b), "none", big(), undefined, { degree: 2 })), name).toEqual(expected);
+    }
+  });
+
+  it("larger glued and twin graphs: the same counts as the all-exact elimination, the front settling the zero of 3I − A", () => {
+    // `front`: whether the certified front must have done the work. With twins the Schur complement is
+    // strongly indefinite, its error discs grow over many pivots and the front may decline (then the
+    // elimination goes on exactly); the glued Ẽ6 zeros are met by the exact steps before the front.
+    const cases: Array<[string, Graph, bigint, boolean]> = [
+      ["cubic n = 400 at 3", cubic(400), 3n, true],
+      ["cubic n = 300 + twins at 0", withTwins(cubic(300), [3, 40, 41, 150, 299], false), 0n, false],
+      ["cubic n = 300 + adjacent twins at −1", withTwins(cubic(300), [3, 40, 41, 150, 299], true), -1n, false],
+      ["Ẽ6 pairs in a cubic n = 300 at 2", workloadGraph(gluedWorkload(cubicWorkload(300), affineE(6), 6, 8)), 2n, true],
+    ];
+    for (const [name, g, b, front] of cases) {
+      const exact = sparseInertia(g, rat(b), "none", big());
+      const fast = sparseInertia(g, rat(b), "none", big(), undefined, { degree: 4 });
+      if (front) expect(fast.front, name).toBeGreaterThan(20);
+      expect(counts(fast), name).toEqual(counts(exact));
+      expect(exact.zero, name).toBeGreaterThanOrEqual(b === 2n ? 8 : 1); // 8 glued pairs; twins; the all-ones vector
+    }
+  });
+
+  it("never miscounts an eigenvalue 2^-80 away from b: b = 3 ± 2^-80 on cubic graphs, [[1,1],[1,1±2^-80]] as a front", () => {
+    // bI − A = (3I − A) ± 2^-80·I moves the single eigenvalue 0 of 3I − A (connected cubic graph) to ±2^-80.
+    const eps = 1n << 80n;
+    for (const n of [40, 200]) {
+      const g = cubic(n);
+      expect(counts(sparseInertia(g, rat(3n * eps + 1n, eps), "none", big(), undefined, { degree: 2 }))).toEqual([n, 0, 0]);
+      expect(counts(sparseInertia(g, rat(3n * eps - 1n, eps), "none", big(), undefined, { degree: 2 }))).toEqual([n - 1, 1, 0]);
+      expect(counts(sparseInertia(g, rat(3n), "none", big(), undefined, { degree: 2 }))).toEqual([n - 1, 0, 1]);
+      // The front alone, with D = 2^80: it may decline, but it must not certify a kernel vector that is not one.
+      const rows = rowsOf(g, 3n).map((row, i) => row.map((x, j) => x * eps + (i === j && i === 0 ? 1n : 0n)));
+      const r = certifiedFrontInertia(rows, eps);
+      if (r) expect(counts(r)).toEqual([n, 0, 0]); // a rank-one positive perturbation of a PSD matrix with a simple zero whose kernel vector (all ones) meets e_0
+    }
+  });
+});
+
+describe("ρ verdicts through the certified front", () => {
+  it("ρ = 3 for a cubic graph (n = 600) is decided through the front with one proven zero; ρ < 3 refuted, ρ ≤ 3 verified", () => {
+    // ρ of a connected k-regular graph is k, simple (Brouwer & Haemers, Spectra of Graphs, Prop. 3.1.1, from memory).
+    const g = cubic(600);
+    for (const [op, status] of [
+      ["=", "verified"],
+      ["<=", "verified"],
+      ["<", "refuted"],
+    ] as const) {
+      const v = spectralRadiusBound(g, op, "3", big());
+      expect(v.status, op).toBe(status);
+      const cert = v.certificate as SpectralRadiusCertificate & { kind: "inertia" };
+      if (op !== "<") {
+        expect(cert.kind).toBe("inertia");
+        expect(cert.front).toBeGreaterThan(50);
+        expect(cert.zero).toBe(1);
+      }
+      expect(recheckSpectralRadiusBound(g, op, "3", status, cert, big()).status).toBe("verified");
+      if (op !== "=") continue;
+      // Tampering: counts moved, the front dropped or resized, the order cut short, the outcome flipped.
+      const tampered: unknown[] = [
+        { ...cert, positive: cert.positive - 1, negative: cert.negative + 1 },
+        { ...cert, zero: 0, positive: cert.positive + 1 },
+        { ...cert, front: undefined },
+        { ...cert, front: cert.front! + 1 },
+        { ...cert, steps: cert.steps!.slice(0, -1) },
+      ];
+      for (const t of tampered) expect(recheckSpectralRadiusBound(g, op, "3", status, t, big()).status).toBe("refuted");
+      expect(recheckSpectralRadiusBound(g, op, "3", "refuted", cert, big()).status).toBe("refuted");
+    }
   });
 });

@@ -18,6 +18,8 @@
  * factor covering its own rounding.
  */
 
+import { gcd } from "../arithmetic/rational";
+
 const U = 2 ** -53;
 
 /**
@@ -258,11 +260,6 @@ function deflate(
     }
   }
   return { positive, negative, zero: m };
-}
-
-function gcd(a: bigint, b: bigint): bigint {
-  while (b !== 0n) [a, b] = [b, a % b];
-  return a < 0n ? -a : a;
 }
 
 /** x as a rational with denominator at most 2^12 within 2^-30·max(1, |x|) (continued fractions), [0, 1] below 2^-30, or undefined. */

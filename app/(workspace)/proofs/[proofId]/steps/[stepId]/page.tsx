@@ -93,7 +93,7 @@ export default async function StepPage({
           <ClaimFileForm proofId={proofId} stepId={step.id} />
         </details>
       )}
-      <FileList proofId={proofId} stepId={step.id} initial={files} />
+      <FileList proofId={proofId} stepId={step.id} initial={files} canAttach={may(standing, "files.upload")} />
       {may(standing, "files.upload") && <FileUpload proofId={proofId} stepId={step.id} partSize={readEnv().CAIRN_UPLOAD_PART_BYTES} />}
       <BatchList proofId={proofId} stepId={step.id} canCancel={isAuthor} />
       {may(standing, "claims.write") && <BatchForm proofId={proofId} stepId={step.id} />}
