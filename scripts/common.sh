@@ -85,14 +85,24 @@ db_start() {
 # db_stop NAME: stops the server started by db_start and waits (up to 20 s) until it has exited,
 # so that its data directory can be removed right after.
 db_stop() {
-  local dir="$DATA/$1" pid="" i
-  [ -f "$dir/mysqld.pid" ] && pid="$(cat "$dir/mysqld.pid" 2>/dev/null || true)"
+  local dir="$DATA/$1" pid
+  pid="$(pid_in "$dir/mysqld.pid")"
   if [ -S "$dir/mysqld.sock" ]; then
     mariadb-admin --no-defaults --socket="$dir/mysqld.sock" -uroot shutdown >/dev/null 2>&1 || true
   fi
-  if [ -n "$pid" ]; then
-    for i in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
-  fi
+  wait_exit "$pid" 100 0.2
+}
+
+# pid_in FILE: the process id written in FILE, or nothing when there is no such file.
+pid_in() {
+  if [ -f "$1" ]; then cat "$1" 2>/dev/null || true; fi
+}
+
+# wait_exit PID TRIES PAUSE: waits until process PID (if any) has exited, checking at most TRIES times, PAUSE seconds apart.
+wait_exit() {
+  local i
+  [ -n "$1" ] || return 0
+  for i in $(seq 1 "$2"); do kill -0 "$1" 2>/dev/null || return 0; sleep "$3"; done
 }
 
 # db_create NAME DATABASE USER PASSWORD: creates a database and an account for 127.0.0.1 (idempotent).
@@ -149,11 +159,11 @@ redis_start() {
 
 # redis_stop NAME: stops the Redis started by redis_start and waits (up to 10 s) until it has exited.
 redis_stop() {
-  local dir="$DATA/$1/redis" pid="" i
-  [ -f "$dir/redis.pid" ] && pid="$(cat "$dir/redis.pid" 2>/dev/null || true)"
+  local pid
+  pid="$(pid_in "$DATA/$1/redis/redis.pid")"
   [ -n "$pid" ] || return 0
   kill "$pid" 2>/dev/null || true
-  for i in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  wait_exit "$pid" 100 0.1
 }
 
 # worker_count: verification workers for `npm start`: one per core less one (the web server's), at least one.

@@ -10,6 +10,8 @@ import {
   pathWorkload,
   randomTreeWorkload,
   sparseGraphWorkload,
+  cubicWorkload,
+  gluedWorkload,
   star4Workload,
   t12kWorkload,
   workloadGraph,
@@ -30,6 +32,7 @@ import type { Graph } from "../../lib/core/graph";
 import { identifySmith } from "../../lib/core/families/identify";
 import { inertia, spectralRadiusBound } from "../../lib/core/spectral/inertia";
 import { rat } from "../../lib/core/arithmetic/rational";
+import { affineE } from "../../lib/core/input/constructors";
 import { findSubgraph } from "../../lib/core/subgraph/subgraph";
 import { perronApproximation } from "../../lib/core/spectral/perron";
 import { Budget } from "../../lib/core/verdict";
@@ -153,6 +156,40 @@ function sparseTasks(): BenchTask[] {
         },
       ),
       `G(n,m) deg 3, n=${n}`,
+    ),
+  ]);
+}
+
+function cubicTasks(): BenchTask[] {
+  // ρ = 3 exactly (connected 3-regular): the zero of 3I − A sits in the dense front, where the certified
+  // float front settles it by an exact kernel vector instead of redoing the block exactly.
+  return [2_000, 5_000].flatMap((n) => [
+    named(
+      graphTask(
+        `cubic-${n}-rho3`,
+        () => cubicWorkload(n),
+        "ρ = 3 (exact verdict, zero in the front)",
+        false,
+        (g) => {
+          const v = spectralRadiusBound(g, "=", "3", new Budget(BENCH_STEPS));
+          const c = v.certificate as { kind?: string; front?: number } | undefined;
+          return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
+        },
+      ),
+      `cubic n=${n}`,
+    ),
+    named(
+      graphTask(
+        `cubic-${n}-affine-glued`,
+        () => gluedWorkload(cubicWorkload(n), affineE(6), 6, 20),
+        "full inertia of 2I − A (20 glued Ẽ6 pairs)",
+        false,
+        (g) => {
+          const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+          return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front}` : ""}`;
+        },
+      ),
+      `cubic n=${n} affine-glued`,
     ),
   ]);
 }
@@ -413,6 +450,7 @@ export const coreSection: BenchSection = {
   tasks: [
     ...spectralRadiusTasks(),
     ...sparseTasks(),
+    ...cubicTasks(),
     ...subgraphTasks(),
     ...charpolyTasks(),
     ...irrationalBoundTasks(),

@@ -147,7 +147,17 @@ function printMachine(options: BenchOptions): void {
   );
 }
 
+/**
+ * The general-purpose tools timed beside Cairn (Debian's nauty: geng, gentreeg) are installed the way `npm test`
+ * installs them, when missing and when this runs as root; otherwise their rows say how to install them.
+ */
+function ensureComparisonTools(): void {
+  const r = spawnSync("bash", ["-c", "source scripts/common.sh; ensure_debian_package nauty-geng nauty"], { stdio: ["ignore", "inherit", "inherit"] });
+  if (r.status !== 0) console.log("(nauty could not be installed here: its comparison rows are left out)");
+}
+
 async function runSections(options: BenchOptions): Promise<void> {
+  ensureComparisonTools();
   printMachine(options);
   for (const section of SECTIONS) {
     console.log(`\n## ${section.name}`);

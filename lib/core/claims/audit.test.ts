@@ -9,6 +9,7 @@ import { rationalEnclosure } from "../arithmetic/number-field";
 import { boundApprox, enclose, parseBound, twoCosBound } from "../arithmetic/bound";
 import { eigs } from "mathjs";
 import { makeGraph, type Graph } from "../graph";
+import { complete } from "../input/constructors";
 import { findSubgraph, recheckSubgraph, excludeSubgraphs, recheckExclusion } from "../subgraph/subgraph";
 import { identifySmith, recheckIdentification } from "../families/identify";
 import { spectralRadiusBound, recheckSpectralRadiusBound, type Relation } from "../spectral/inertia";
@@ -286,13 +287,7 @@ describe("spectral verdicts against floating-point eigenvalues far from the boun
         expect(recheckSpectralRadiusBound(g, op, b, v.status as "verified" | "refuted", v.certificate).status).toBe("verified");
       }
     };
-    eq(
-      makeGraph(
-        4,
-        [0, 1, 2, 3].flatMap((u) => [1, 2, 3].filter((v) => v > u).map((v) => ({ u, v }))),
-      ),
-      "3",
-    );
+    eq(complete(4), "3");
     eq(
       makeGraph(
         5,

@@ -7,6 +7,7 @@
 import { eigs } from "mathjs";
 import { describe, expect, it } from "vitest";
 import { makeGraph, type Graph } from "../graph";
+import { affineE } from "../input/constructors";
 import { spectralRadiusBound } from "./inertia";
 import { Lcg } from "../../../tests/bench/workloads";
 
@@ -73,19 +74,7 @@ describe("exact ρ verdicts agree with mathjs eigs away from the bound", () => {
 
   it("graphs exactly on the bound are decided exactly (where floats cannot)", () => {
     // Smith 1970: ρ(Ẽ8) = 2 and ρ(C_n) = 2; K_{1,4} has ρ = √4 = 2 (Brouwer & Haemers §1.4.5: K_{1,n} has ±√n).
-    const e8t = makeGraph(
-      9,
-      [
-        [0, 1],
-        [1, 2],
-        [2, 3],
-        [3, 4],
-        [4, 5],
-        [5, 6],
-        [6, 7],
-        [5, 8],
-      ].map(([u, v]) => ({ u, v })),
-    );
+    const e8t = affineE(8); // Ẽ8 = T(1,2,5) on 9 vertices
     const star = makeGraph(
       5,
       [1, 2, 3, 4].map((v) => ({ u: 0, v })),
