@@ -130,10 +130,12 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
     await form.getByLabel("bound").fill("2");
     await form.getByRole("button", { name: "Check every graph" }).click();
 
-    const progress = page.getByTestId("batch-progress").first();
+    // Other tests add batches to this step: this batch's card is the one over trees-14.s6.
+    const card = page.getByTestId("batch-card").filter({ hasText: "trees-14.s6" }).first();
+    const progress = card.getByTestId("batch-progress");
     await progress.waitFor();
     const seen = new Set<string>();
-    const outcome = page.getByTestId("batch-outcome").first();
+    const outcome = card.getByTestId("batch-outcome");
     while (!(await outcome.isVisible())) {
       const t = (await progress.textContent().catch(() => null)) ?? "";
       if (t) seen.add(t);
@@ -142,9 +144,9 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
     expect([...seen].some((t) => new RegExp(`of ${TOTAL} checked`).test(t))).toBe(true);
     expect(await outcome.textContent()).toMatch(new RegExp(`\\b${TOTAL - 2} of ${TOTAL} graphs fail`));
 
-    await page.getByRole("button", { name: "show each graph" }).first().click();
-    await page.getByTestId("batch-result-row").first().waitFor();
-    const verdicts = await page.getByTestId("batch-result-row").locator("td:nth-child(2)").allTextContents();
+    await card.getByRole("button", { name: "show each graph" }).click();
+    await card.getByTestId("batch-result-row").first().waitFor();
+    const verdicts = await card.getByTestId("batch-result-row").locator("td:nth-child(2)").allTextContents();
     expect(verdicts).toHaveLength(TOTAL - 2);
     expect(verdicts.every((v) => !v.includes("verified"))).toBe(true);
 
@@ -154,12 +156,12 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
     expect(passing).toHaveLength(2);
     const expected = listedGraphs.filter((e) => !isDynkinAorD(e, N)).map((e) => JSON.stringify(e));
 
-    const [g6] = await Promise.all([page.waitForEvent("download"), page.getByTestId("download-failures").first().click()]);
+    const [g6] = await Promise.all([page.waitForEvent("download"), card.getByTestId("download-failures").click()]);
     await g6.saveAs(join(dir, "failures.g6"));
     const g6Lines = readFileSync(join(dir, "failures.g6"), "utf8").trimEnd().split("\n");
     expect(g6Lines.map((l) => edgeKey(parseGraph6(l))).sort()).toEqual([...expected].sort());
 
-    const [csv] = await Promise.all([page.waitForEvent("download"), page.getByTestId("download-csv").first().click()]);
+    const [csv] = await Promise.all([page.waitForEvent("download"), card.getByTestId("download-csv").click()]);
     await csv.saveAs(join(dir, "results.csv"));
     const rows = readFileSync(join(dir, "results.csv"), "utf8").trimEnd().split("\r\n");
     expect(rows[0]).toBe("line,verdict,graph6,vertices,edges,method,reason");
