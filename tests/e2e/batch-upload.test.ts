@@ -5,34 +5,25 @@
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser, openDemoProofAsAuthor } from "./browser";
+import { afterAll, describe, expect, inject, it } from "vitest";
+import { browserForFile, openDemoStepAsAuthor } from "./browser";
 import { randomGraph6List } from "../bench/batch-throughput";
 import { parseGraph6 } from "@/lib/core/input/graph6";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
 const dir = mkdtempSync(join(tmpdir(), "cairn-e2e-batch-"));
 const COUNT = 3000;
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+const browser = browserForFile();
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe("a batch claim in the browser", () => {
   it("uploads a graph list with a progress bar, checks every graph, shows the table and downloads the failures", async () => {
     const listPath = join(dir, "random-12.g6");
     writeFileSync(listPath, randomGraph6List(COUNT, 12, 77));
-    const context = await browser.newContext({ acceptDownloads: true });
+    const context = await browser().newContext({ acceptDownloads: true });
     const page = await context.newPage();
-    await openDemoProofAsAuthor(page, baseUrl);
-    const stepHref = await page.locator('a[href*="/steps/"]').first().getAttribute("href");
-    await page.goto(`${baseUrl}${stepHref}`);
+    await openDemoStepAsAuthor(page, baseUrl);
 
     await page.getByTestId("file-input").setInputFiles(listPath);
     await expect

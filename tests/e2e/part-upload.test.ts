@@ -7,26 +7,19 @@ import { createHash } from "node:crypto";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser, openDemoProofAsAuthor } from "./browser";
+import { afterAll, describe, expect, inject, it } from "vitest";
+import { browserForFile, openDemoStepAsAuthor } from "./browser";
 import { randomGraph6List } from "../bench/batch-throughput";
 
 const baseUrl = inject("baseUrl");
 const partBytes = inject("partBytes");
-let browser: Browser;
 const dir = mkdtempSync(join(tmpdir(), "cairn-e2e-parts-"));
 // 12-vertex graphs take 13 bytes a line in graph6 (1 + 11 characters, nauty's formats.txt; worked by hand), so this is
 // a little over 3 parts.
 const COUNT = Math.ceil((3.3 * partBytes) / 13);
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+const browser = browserForFile();
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe("an upload in parts in the browser", () => {
   it("sends a file larger than one part in parts, with a progress bar, and lists it", async () => {
@@ -35,15 +28,13 @@ describe("an upload in parts in the browser", () => {
     writeFileSync(listPath, text);
     const size = Buffer.byteLength(text);
     expect(size).toBeGreaterThan(3 * partBytes);
-    const context = await browser.newContext({ acceptDownloads: true });
+    const context = await browser().newContext({ acceptDownloads: true });
     const page = await context.newPage();
     const parts: string[] = [];
     page.on("request", (r) => {
       if (r.method() === "PUT" && /\/uploads\/\d+\/parts\/\d+$/.test(r.url())) parts.push(r.url().split("/").pop()!);
     });
-    await openDemoProofAsAuthor(page, baseUrl);
-    const stepHref = await page.locator('a[href*="/steps/"]').first().getAttribute("href");
-    await page.goto(`${baseUrl}${stepHref}`);
+    await openDemoStepAsAuthor(page, baseUrl);
 
     await page.getByTestId("file-input").setInputFiles(listPath);
     await expect
