@@ -18,7 +18,7 @@ const frameworkAndDatabase = {
 };
 
 export default tseslint.config(
-  { ignores: ["node_modules/**", ".next/**", ".data/**", "next-env.d.ts", "public/**", "bin/*.bundle.mjs"] },
+  { ignores: ["node_modules/**", ".next/**", ".next-*/**", ".data/**", "test-results/**", "next-env.d.ts", "public/**", "bin/*.bundle.mjs"] },
   {
     files: ["**/*.{ts,tsx,mjs}"],
     languageOptions: { parser: tseslint.parser },

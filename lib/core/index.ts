@@ -87,7 +87,14 @@ export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type Smi
 
 // Enumeration and coverage in independent parts (the job engine spreads them; the checker may re-run any).
 export { enumeratePart, mergeParts, type PartResult, type EnumerationSetting, type GenerationOptions } from "./families/augmentation";
-export { coveragePart, mergeCoverageParts, coverageVerdict, COVERAGE_UNCOVERED_CAP, type CoveragePartResult, type CoverageCertificate } from "./families/coverage";
+export {
+  coveragePart,
+  mergeCoverageParts,
+  coverageVerdict,
+  COVERAGE_UNCOVERED_CAP,
+  type CoveragePartResult,
+  type CoverageCertificate,
+} from "./families/coverage";
 
 // Spectra.
 export { spectralRadiusBound, recheckSpectralRadiusBound, inertia, type Relation, type SpectralRadiusCertificate } from "./spectral/inertia";

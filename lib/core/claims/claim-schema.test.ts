@@ -47,7 +47,11 @@ describe("validateClaim", () => {
     expect(validateClaim({ ...base, setting: "tree" })).toMatchObject({ setting: "tree" });
     expect(errorOf({ ...base, setting: "multigraphs" }).path).toBe("$.setting");
     expect(errorOf({ ...base, setting: "multigraph" }).path).toBe("$.maxMultiplicity");
-    expect(validateClaim({ ...base, setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 })).toMatchObject({ setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 });
+    expect(validateClaim({ ...base, setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 })).toMatchObject({
+      setting: "multigraph",
+      maxMultiplicity: 2,
+      maxLoop: 1,
+    });
     expect(errorOf({ ...base, op: ">" }).path).toBe("$.op");
     expect(errorOf({ ...base, graphs: [p5, { format: "named" }] }).path).toBe("$.graphs[1].text");
   });
