@@ -274,7 +274,11 @@ export async function exportedBatches(stepIds: readonly number[]): Promise<Map<n
     const file = await StepFile.findByPk(b.fileId);
     if (!file?.graphFormat) continue;
     const bytes = await fileStore().get(file.sha256);
-    if (!bytes) throw new Error(`batch claim ${b.id}: its file ${file.name} is missing from the file store`);
+    // A list gone from the store cannot be exported with its batch: say which one, rather than fail as a server error.
+    if (!bytes)
+      throw conflict(
+        `The graph list "${file.name}" of batch claim ${b.id} is missing from the file store, so the batch cannot be exported. Upload the list again or ask the site's administrator to restore the file.`,
+      );
     const text = graphListText(bytes, readEnv().CAIRN_UPLOAD_MAX_BYTES * 4);
     const results = await BatchResult.findAll({ where: { batchId: b.id }, order: [["entry", "ASC"]], attributes: ["entry", "line", "verdict", "certificate"] });
     const batch: SnapshotBatch = {
