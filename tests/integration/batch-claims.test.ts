@@ -4,16 +4,14 @@
  * Cairn's own enumeration) plus one bad line; progress, results, CSV and graph6 of the failures,
  * cancel, exactly-once chunks, and who may do what.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { spawnSync } from "node:child_process";
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
-import { closeQueue } from "@/lib/jobs/queue";
 import { runBatchChunk } from "@/lib/jobs/batch";
 import { generateConnected } from "@/lib/core/families/augmentation";
 import { writeGraph6, parseGraph6 } from "@/lib/core/input/graph6";
@@ -72,22 +70,25 @@ const trees = treesOn10();
 /** One line of the tree list as a graph (sparse6 from gentreeg, or graph6). */
 const treeGraph = (line: string) => readListedGraph({ line: 1, text: line }, line.startsWith(":") ? "sparse6" : "graph6");
 
+closeAfterAll(
+  async () => {
+    delete process.env.CAIRN_BATCH_CHUNK;
+    await dropProofs([proofId]);
+  },
+  { queue: true },
+);
 beforeAll(async () => {
-  proofId = await draftProof("Batch claims test");
-  const caseId = await addCase(proofId, "Trees on ten vertices");
-  stepId = String((await addStep(proofId, caseId, "Of the trees on 10 vertices only $A_{10}$ and $D_{10}$ have $\\rho < 2$.")).id);
+  ({ proofId, stepId } = await draftCaseStep(
+    "Batch claims test",
+    "Trees on ten vertices",
+    "Of the trees on 10 vertices only $A_{10}$ and $D_{10}$ have $\\rho < 2$.",
+  ));
   // OEIS A000055: 106 trees on 10 unlabeled vertices.
   expect(trees).toHaveLength(106);
   // One bad line at the end (line 107): "!" is no graph6/sparse6 byte.
   const bad = `${trees[0].slice(0, 3)}!${trees[0].slice(4)}`;
   listId = await upload([...trees, bad].join("\n") + "\n", "trees-10.s6");
   documentId = await upload("Notes on the search.\n", "notes.txt");
-});
-afterAll(async () => {
-  delete process.env.CAIRN_BATCH_CHUNK;
-  await dropProofs([proofId]);
-  await closeQueue();
-  await closeSequelize();
 });
 
 describe("a batch claim over the trees on 10 vertices", () => {
