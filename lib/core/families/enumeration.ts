@@ -50,7 +50,8 @@ export function claimEnumerationSetting(c: {
   return c.setting === "multigraph" ? { kind: "multigraph", maxMultiplicity: c.maxMultiplicity ?? 1, maxLoop: c.maxLoop ?? 0 } : settingOf(c.setting);
 }
 
-const settingOf = (s: ClaimSetting | EnumerationSetting | undefined): EnumerationSetting =>
+/** A setting named by a claim ("simple", "tree") or given as the generator takes it, as the generator takes it. */
+export const settingOf = (s: ClaimSetting | EnumerationSetting | undefined): EnumerationSetting =>
   s === undefined || s === "simple" ? SIMPLE : s === "tree" ? { kind: "tree" } : s;
 
 /**
@@ -71,12 +72,15 @@ export function enumerateConnected(
 
 const SYMBOL: Record<EnumerationRelation, string> = { "<": "<", "<=": "≤" };
 
-/** The graphs an enumeration runs over, in words ("trees", "connected graphs with loops of weight ≤ 1 and edges of multiplicity ≤ 2"). */
-export function settingWords(setting: ClaimSetting | EnumerationSetting = "simple"): string {
+/**
+ * The graphs an enumeration runs over, in words ("trees", "connected graphs with edges of multiplicity ≤ 2
+ * and loops of weight ≤ 1"); `one`: a single graph ("tree", "connected graph with …").
+ */
+export function settingWords(setting: ClaimSetting | EnumerationSetting = "simple", one = false): string {
   const s = settingOf(setting);
-  if (s.kind === "tree") return "trees";
-  if (s.kind === "simple") return "connected simple graphs";
-  return `connected graphs with edges of multiplicity ≤ ${s.maxMultiplicity} and ${s.maxLoop === 0 ? "no loops" : `loops of weight ≤ ${s.maxLoop}`}`;
+  if (s.kind === "tree") return one ? "tree" : "trees";
+  if (s.kind === "simple") return one ? "connected simple graph" : "connected simple graphs";
+  return `connected graph${one ? "" : "s"} with edges of multiplicity ≤ ${s.maxMultiplicity} and ${s.maxLoop === 0 ? "no loops" : `loops of weight ≤ ${s.maxLoop}`}`;
 }
 
 /** A found graph as text: graph6 when simple, sparse6 (leading ':', loops and multiple edges) otherwise. */
@@ -85,7 +89,7 @@ export const graphText = (g: Graph): string => (isSimple(g) ? writeGraph6(g) : w
 export const readGraphText = (t: string): Graph => (t.startsWith(":") ? parseSparse6(t) : parseGraph6(t));
 
 /** Why g is not a graph of the setting (loops, multiplicities, cycles), or null. Connectivity is checked apart. */
-function outsideSetting(g: Graph, setting: EnumerationSetting): string | null {
+export function outsideSetting(g: Graph, setting: EnumerationSetting): string | null {
   if (setting.kind !== "multigraph") {
     if (!isSimple(g)) return "has a loop or a multiple edge; this claim is about simple graphs";
     if (setting.kind === "tree" && !isForest(g)) return "has a cycle; this claim is about trees";
