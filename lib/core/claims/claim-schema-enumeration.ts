@@ -6,6 +6,7 @@
  */
 
 import { ConditionError, validateCondition, type CaseCondition } from "../families/case-condition";
+import { multigraphCoverageMaxVertices } from "../families/coverage-limits";
 import { ClaimError, array, boundText, integer, object, oneOf, string, validateGraphInput } from "./claim-schema-base";
 import type { ClaimCommon, GraphInput, Json } from "./claim-schema-base";
 
@@ -46,14 +47,17 @@ export interface CoverageCaseInput {
 }
 
 /**
- * Every connected simple graph (or, with setting "tree", every tree) on at most `maxVertices`
+ * Every connected simple graph (or, with setting "tree", every tree; with "multigraph", every
+ * connected graph with loops and multiple edges within the two bounds) on at most `maxVertices`
  * vertices satisfies the condition of at least one of `cases`.
  */
 export interface CoverageClaim extends ClaimCommon {
   readonly kind: "coverage";
   readonly maxVertices: number;
-  /** "simple" (the default) or "tree". */
-  readonly setting?: EnumerationSetting;
+  /** "simple" (the default), "tree", or "multigraph" (with maxMultiplicity and maxLoop, as for enumeration). */
+  readonly setting?: EnumerationClaimSetting;
+  readonly maxMultiplicity?: number;
+  readonly maxLoop?: number;
   readonly cases: readonly CoverageCaseInput[];
 }
 
@@ -78,7 +82,7 @@ export function enumerationClaim(o: Json, path: string, common: ClaimCommon): En
   };
 }
 
-/** The setting of an enumeration claim, with maxMultiplicity and maxLoop exactly when it is "multigraph". */
+/** The setting of an enumeration or coverage claim, with maxMultiplicity and maxLoop exactly when it is "multigraph". */
 function multigraphSetting(o: Json, path: string): Pick<EnumerationClaim, "setting" | "maxMultiplicity" | "maxLoop"> {
   const setting = o.setting === undefined ? undefined : oneOf(o.setting, ENUMERATION_CLAIM_SETTINGS, `${path}.setting`);
   if (setting !== "multigraph") {
@@ -95,9 +99,9 @@ function multigraphSetting(o: Json, path: string): Pick<EnumerationClaim, "setti
 }
 
 /** A case condition read at its JSON path; its errors become ClaimErrors with the same path. */
-export function conditionAt(v: unknown, path: string): CaseCondition {
+export function conditionAt(v: unknown, path: string, options: { multigraph?: boolean } = {}): CaseCondition {
   try {
-    return validateCondition(v, path);
+    return validateCondition(v, path, options);
   } catch (e) {
     if (e instanceof ConditionError) throw new ClaimError(e.path, e.detail);
     throw e;
@@ -105,13 +109,17 @@ export function conditionAt(v: unknown, path: string): CaseCondition {
 }
 
 export function coverageClaim(o: Json, path: string, common: ClaimCommon): CoverageClaim {
-  const setting = o.setting === undefined ? undefined : oneOf(o.setting, ENUMERATION_SETTINGS, `${path}.setting`);
+  const settings = multigraphSetting(o, path);
+  const { setting, maxMultiplicity, maxLoop } = settings;
+  const multigraph = setting === "multigraph";
   const maxVertices = integer(o.maxVertices, `${path}.maxVertices`, 1);
-  const cap = COVERAGE_MAX_VERTICES[setting ?? "simple"];
+  const cap = multigraph ? multigraphCoverageMaxVertices(maxMultiplicity!, maxLoop!) : COVERAGE_MAX_VERTICES[setting ?? "simple"];
   if (maxVertices > cap)
     throw new ClaimError(
       `${path}.maxVertices`,
-      `coverage is checked for at most ${cap} vertices in the setting "${setting ?? "simple"}" (the time a check may take), got ${maxVertices}`,
+      multigraph
+        ? `coverage with edge multiplicities ≤ ${maxMultiplicity} and loop weights ≤ ${maxLoop} is checked for at most ${cap} vertices (the number of graphs grows too fast beyond; lower maxMultiplicity or maxLoop to go further), got ${maxVertices}`
+        : `coverage is checked for at most ${cap} vertices in the setting "${setting ?? "simple"}" (the time a check may take), got ${maxVertices}`,
     );
   const list = array(o.cases, `${path}.cases`, 1);
   if (list.length > COVERAGE_MAX_CASES) throw new ClaimError(`${path}.cases`, `at most ${COVERAGE_MAX_CASES} sub-cases (got ${list.length})`);
@@ -121,7 +129,10 @@ export function coverageClaim(o: Json, path: string, common: ClaimCommon): Cover
     for (const key of Object.keys(e))
       if (key !== "label" && key !== "condition") throw new ClaimError(`${p}.${key}`, `unknown field; a sub-case is { "label": "3.1", "condition": { … } }`);
     if (e.condition === undefined) throw new ClaimError(`${p}.condition`, `each sub-case needs a machine-readable condition`);
-    return { ...(e.label !== undefined ? { label: string(e.label, `${p}.label`) } : {}), condition: conditionAt(e.condition, `${p}.condition`) };
+    return {
+      ...(e.label !== undefined ? { label: string(e.label, `${p}.label`) } : {}),
+      condition: conditionAt(e.condition, `${p}.condition`, { multigraph }),
+    };
   });
-  return { ...common, kind: "coverage", maxVertices, ...(setting !== undefined ? { setting } : {}), cases };
+  return { ...common, kind: "coverage", maxVertices, ...settings, cases };
 }

@@ -127,7 +127,7 @@ const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
   structure: ["graph", "predicate", "parameter", "relation"],
   enumeration: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "op", "bound", "graphs"],
   "dynkin-data": ["type", "graph", ...DYNKIN_DATA_FIELDS],
-  coverage: ["maxVertices", "setting", "cases"],
+  coverage: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "cases"],
 };
 
 /**
