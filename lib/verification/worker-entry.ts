@@ -9,6 +9,7 @@ import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/
 import { NumberFormatError } from "../core/arithmetic/rational";
 import { parseGraph } from "../core/input/parse";
 import { dynkinDiagram } from "../core/input/constructors";
+import { isMultilacedType, multilacedBondGraph } from "../core/spectral/dynkin-multilaced";
 import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
@@ -76,7 +77,9 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
         add(read({ format, text: String(t) }), format === "sparse6" ? `uncovered graph ${i + 1} (sparse6 ${String(t)})` : `uncovered graph ${i + 1}`);
       });
   } else if (claim.kind === "dynkin-data") {
-    add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
+    if (isMultilacedType(claim.type))
+      add(multilacedBondGraph(claim.type!), `${claim.type}: its bonds as 1, 2 or 3 edges, roots numbered as in Bourbaki (the arrow is not drawn)`);
+    else add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {
     add(read(claim.graph), "G", embeddingIn(evidence));
   }
