@@ -5,6 +5,7 @@ import { ApiError, apiFetch, jsonFetcher } from "@/components/proof/api-client";
 import { FormProblem, SubmitRow } from "@/components/proof/form-field";
 import type { StepFileView } from "@/lib/data/files";
 import { Choice } from "@/components/ui/choice";
+import { TextInput } from "@/components/ui/text-input";
 
 const OPS = ["<", "<=", "=", ">=", ">"] as const;
 const SHOWN: Record<(typeof OPS)[number], string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
@@ -78,9 +79,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
 
-  const boundField = (
-    <input value={bound} onChange={(e) => setBound(e.target.value)} aria-label="bound" className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono" />
-  );
+  const boundField = <TextInput value={bound} onValue={setBound} aria-label="bound" className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono" />;
   const chosen = fileId || (lists[0] ? String(lists[0].id) : "");
   const submit = async (e: React.FormEvent) => {
     e.preventDefault();
@@ -161,9 +160,9 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
             ]}
           />
           <span>on</span>
-          <input
+          <TextInput
             value={vertices}
-            onChange={(e) => setVertices(e.target.value)}
+            onValue={setVertices}
             aria-label="vertices"
             inputMode="numeric"
             className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"

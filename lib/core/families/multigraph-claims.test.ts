@@ -7,10 +7,19 @@ import { canonicalKeyOf } from "./canonical-label";
 import { generateConnected } from "./augmentation";
 import { readGraphText } from "./enumeration";
 import { parseBound } from "../arithmetic/bound";
+import { integerDeterminant } from "../arithmetic/determinant";
 import { ClaimError, validateClaim } from "../claims/claim-schema";
 import { recheckClaim, verifyClaim } from "../claims/claims";
 
 const budget = () => new Budget(1e11);
+/** The connected multigraphs (multiplicity and loops up to 2) on at most `maxVertices` vertices with ρ op 2, by size. */
+const levelsAgainst2 = (maxVertices: number, op: "<" | "<=") =>
+  generateConnected({
+    maxVertices,
+    setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
+    spectral: { op, bound: parseBound("2") },
+    budget: budget(),
+  }).levels;
 
 /**
  * Independent brute force (a different code path from the generator and canonical-label.ts): every
@@ -67,30 +76,11 @@ function bruteForce(n: number, maxMult: number, maxLoop: number, keep: (A: numbe
   return [...classes.values()].filter((m) => m.length > 0);
 }
 
-/** det by fraction-free (Bareiss) elimination on BigInts, exact. */
-function det(M: bigint[][]): bigint {
-  const a = M.map((r) => [...r]);
-  const n = a.length;
-  let prev = 1n,
-    sign = 1n;
-  for (let k = 0; k < n - 1; k++) {
-    if (a[k][k] === 0n) {
-      const r = a.findIndex((row, i) => i > k && row[k] !== 0n);
-      if (r < 0) return 0n;
-      [a[k], a[r]] = [a[r], a[k]];
-      sign = -sign;
-    }
-    for (let i = k + 1; i < n; i++) for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
-    prev = a[k][k];
-  }
-  return sign * a[n - 1][n - 1];
-}
-
 /** ρ(A) ≤ 2 ⟺ 2I − A is positive semidefinite ⟺ every principal minor ≥ 0; ρ(A) < 2 ⟺ every leading principal minor > 0 (Sylvester). */
 function rhoAtMostTwo(A: number[][], strict: boolean): boolean {
   const n = A.length;
   const B = A.map((r, i) => r.map((x, j) => BigInt((i === j ? 2 : 0) - x)));
-  const minor = (idx: number[]) => det(idx.map((i) => idx.map((j) => B[i][j])));
+  const minor = (idx: number[]) => integerDeterminant(idx.map((i) => idx.map((j) => B[i][j])));
   if (strict) return [...Array(n).keys()].every((k) => minor([...Array(k + 1).keys()]) > 0n);
   for (let mask = 1; mask < 1 << n; mask++) if (minor([...Array(n).keys()].filter((i) => mask & (1 << i))) < 0n) return false;
   return true;
@@ -123,12 +113,7 @@ describe("graphs with loops and multiple edges", () => {
 
   it("finds exactly the graphs with ρ < 2 and ρ ≤ 2 that the brute force finds (loops ≤ 2, multiplicities ≤ 2, n ≤ 4)", () => {
     for (const op of ["<", "<="] as const) {
-      const ours = generateConnected({
-        maxVertices: 4,
-        setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-        spectral: { op, bound: parseBound("2") },
-        budget: budget(),
-      }).levels;
+      const ours = levelsAgainst2(4, op);
       for (let n = 1; n <= 4; n++) {
         const brute = bruteForce(n, 2, 2, (A) => rhoAtMostTwo(A, op === "<")).map(toGraph);
         expect(keys(ours[n - 1]), `ρ ${op} 2 on ${n} vertices`).toEqual(keys(brute));
@@ -139,12 +124,7 @@ describe("graphs with loops and multiple edges", () => {
   it("ρ < 2 with loops: exactly A_n, D_n, E_6..8 and the path with a loop at one end (T_n), n ≤ 9", () => {
     // Smith's classification extended to symmetric non-negative integer matrices (J. H. Smith 1970; the
     // loop family T_n from memory): connected, ρ < 2 ⟺ A_n, D_n (n ≥ 4), E_6, E_7, E_8, or T_n.
-    const found = generateConnected({
-      maxVertices: 9,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const found = levelsAgainst2(9, "<");
     for (let n = 1; n <= 9; n++) {
       const expected = [path(n), loopPath(n), ...(n >= 4 ? [dynkinD(n)] : []), ...(n >= 6 && n <= 8 ? [dynkinE(n)] : [])];
       expect(keys(found[n - 1]), `n = ${n}`).toEqual(keys(expected));
@@ -152,12 +132,7 @@ describe("graphs with loops and multiple edges", () => {
   });
 
   it("ρ = 2 includes the loop of weight 2, the double edge, and the path with loops at both ends", () => {
-    const le = generateConnected({
-      maxVertices: 6,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<=", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const le = levelsAgainst2(6, "<=");
     const has = (g: Graph) => le[g.n - 1].some((h) => canonicalKeyOf(h) === canonicalKeyOf(g));
     expect(has(makeGraph(1, [{ u: 0, v: 0, m: 2 }]))).toBe(true);
     expect(has(makeGraph(2, [{ u: 0, v: 1, m: 2 }]))).toBe(true);
