@@ -51,16 +51,36 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
   );
 }
 
-/** Which graphs an enumeration or coverage claim runs over (loops and multiple edges: enumeration only). */
-function SettingSelect({ register, error, multigraph = false }: { register: UseFormRegister<ClaimForm>; error?: string; multigraph?: boolean }) {
+/** Which graphs an enumeration or coverage claim runs over, with the two bounds of the multigraph setting when it is chosen. */
+function SettingSelect({
+  register,
+  err,
+  multigraph,
+}: {
+  register: UseFormRegister<ClaimForm>;
+  err: (f: keyof ClaimForm) => string | undefined;
+  multigraph: boolean;
+}) {
   return (
-    <FormField label="Which graphs" error={error}>
-      <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
-        <option value="simple">connected simple graphs</option>
-        <option value="tree">trees</option>
-        {multigraph && <option value="multigraph">connected graphs with loops and multiple edges</option>}
-      </select>
-    </FormField>
+    <>
+      <FormField label="Which graphs" error={err("enumerationSetting")}>
+        <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
+          <option value="simple">connected simple graphs</option>
+          <option value="tree">trees</option>
+          <option value="multigraph">connected graphs with loops and multiple edges</option>
+        </select>
+      </FormField>
+      {multigraph && (
+        <div className="flex gap-2">
+          <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
+            <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
+          </FormField>
+          <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
+            <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
+          </FormField>
+        </div>
+      )}
+    </>
   );
 }
 
@@ -128,12 +148,12 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         <>
           <FormField
             label="N, the largest number of vertices"
-            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees`}
+            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees; with loops and multiple edges it depends on the two bounds (e.g. 7 for multiplicity 1 and loops 1)`}
             error={err("maxVertices")}
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <SettingSelect register={register} error={err("enumerationSetting")} />
+          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
           <FormField
             label="Sub-cases and their machine-readable conditions (JSON)"
             hint='e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]'
@@ -152,17 +172,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <SettingSelect register={register} error={err("enumerationSetting")} multigraph />
-          {watch("enumerationSetting") === "multigraph" && (
-            <div className="flex gap-2">
-              <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
-                <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
-              </FormField>
-              <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
-                <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
-              </FormField>
-            </div>
-          )}
+          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
           <FormField
             label="The graphs, all of them"
             hint="connected graphs of the setting, separated by a line ---; e.g. A(5) --- D(5); a loop of weight m at v is the edge line v v m"

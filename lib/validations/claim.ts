@@ -201,10 +201,7 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
         maxVertices: Number(f.maxVertices.trim()),
         op: f.op,
         bound: f.bound.trim(),
-        ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}),
-        ...(f.enumerationSetting === "multigraph"
-          ? { setting: "multigraph", maxMultiplicity: wholeNumber(f.maxMultiplicity), maxLoop: wholeNumber(f.maxLoop) }
-          : {}),
+        ...settingFields(f),
         graphs: f.patternText
           .split(/^\s*---\s*$/m)
           .map((t) => t.trim())
@@ -213,14 +210,9 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       });
       break;
     case "coverage":
-      if (f.enumerationSetting === "multigraph")
-        issues.push({
-          field: "enumerationSetting",
-          message: "coverage runs over connected simple graphs or trees; loops and multiple edges are for enumeration claims",
-        });
       need("maxVertices", "the largest number of vertices N");
       if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer" });
-      Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}) });
+      Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...settingFields(f) });
       if (f.cases.trim()) {
         try {
           claim.cases = JSON.parse(f.cases);
@@ -262,6 +254,13 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
 
 /** A form's whole number as typed; anything else is passed on as text so the claim's validation names the field. */
 const wholeNumber = (t: string): number | string => (/^\s*\d+\s*$/.test(t) ? Number(t.trim()) : t.trim());
+
+/** The setting fields of an enumeration or coverage claim, as the form names them. */
+function settingFields(f: ClaimForm): Record<string, unknown> {
+  if (f.enumerationSetting === "tree") return { setting: "tree" };
+  if (f.enumerationSetting === "multigraph") return { setting: "multigraph", maxMultiplicity: wholeNumber(f.maxMultiplicity), maxLoop: wholeNumber(f.maxLoop) };
+  return {};
+}
 
 /** The form field for an error path such as "claims.0.graph.text" or "claims.0.patterns[1].text". */
 export function formFieldOf(path: string): keyof ClaimForm | null {

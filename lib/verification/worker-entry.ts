@@ -69,7 +69,10 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
   } else if (claim.kind === "coverage") {
     const uncovered = (evidence as { uncovered?: unknown } | null)?.uncovered;
-    if (Array.isArray(uncovered)) uncovered.slice(0, 4).forEach((t, i) => add(read({ format: "graph6", text: String(t) }), `uncovered graph ${i + 1}`));
+    if (Array.isArray(uncovered))
+      uncovered
+        .slice(0, 4)
+        .forEach((t, i) => add(read({ format: String(t).startsWith(":") ? "sparse6" : "graph6", text: String(t) }), `uncovered graph ${i + 1}`));
   } else if (claim.kind === "dynkin-data") {
     add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {

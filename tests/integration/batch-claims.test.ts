@@ -33,6 +33,8 @@ import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches
 import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/cancel/route";
 import * as resultsRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/results/route";
+import * as exportsRoute from "@/app/api/proofs/[proofId]/exports/route";
+import { fileStore } from "@/lib/storage";
 
 let proofId: string;
 let stepId: string;
@@ -337,5 +339,24 @@ describe("the batch claims in the exported bundle", () => {
     const resealed = sealBundle(bundle.export, forged.items);
     const line = checkBundle(resealed, "forged.json").lines.find((l) => l.label === item.id)!;
     expect(line.text).toContain(`line ${r.line}: the bundle records "verified" but the re-check gives "refuted"`);
+  });
+
+  it("answers 409 naming the list when a batch's list is gone from the file store, writes no export, and exports again once it is back", async () => {
+    const { ProofExport, StepFile } = models();
+    const file = (await StepFile.findByPk(listId))!;
+    const bytes = (await fileStore().get(file.sha256))!;
+    const exportsBefore = await ProofExport.count({ where: { proofId: Number(proofId) } });
+    await fileStore().delete(file.sha256);
+    try {
+      await actAs("author");
+      const res = await exportsRoute.POST(jsonRequest("/x", "POST", { kind: "draft" }), params({ proofId }));
+      expect(res.status).toBe(409);
+      expect((await res.json()).error.message).toMatch(/graph list "trees-10\.s6" of batch claim \d+ is missing from the file store/);
+      expect(await ProofExport.count({ where: { proofId: Number(proofId) } })).toBe(exportsBefore);
+    } finally {
+      await fileStore().put(bytes);
+    }
+    const again = await exportsRoute.POST(jsonRequest("/x", "POST", { kind: "draft" }), params({ proofId }));
+    expect(again.status, await again.clone().text()).toBe(201);
   });
 });

@@ -224,13 +224,13 @@ function entriesOf(c: Claim): InputEntry[] {
     }
     case "coverage":
       return [
-        text("setting", c.setting === "tree" ? "trees" : "connected simple graphs"),
+        text("setting", settingWords(claimEnumerationSetting(c))),
         text("at most N vertices", String(c.maxVertices)),
         listEntry(
           `sub-cases (${c.cases.length}) and their conditions`,
           c.cases.map((x, i) => `${caseName(x, i)}: ${describeCondition(x.condition)}`),
         ),
-        text("what remains", coverageCaution(c.maxVertices)),
+        text("what remains", coverageCaution(c.maxVertices, claimEnumerationSetting(c))),
       ];
     case "enumeration": {
       const listed = c.graphs.map((g) => {
