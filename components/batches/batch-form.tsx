@@ -45,10 +45,18 @@ function statementBody(
   setting: string,
   vertices: string,
   limitOp: string,
+  weights: { maxMultiplicity: string; maxLoop: string },
 ) {
   if (kind === "spectral-radius-bound") return { kind, op, bound };
   // Optionally only those with ρ(G) < b (or ≤ b), with the bound field's value.
-  if (kind === "enumeration-exactly") return { kind, setting, vertices: Number(vertices), ...(limitOp ? { op: limitOp, bound } : {}) };
+  if (kind === "enumeration-exactly")
+    return {
+      kind,
+      setting,
+      vertices: Number(vertices),
+      ...(setting === "multigraph" ? { maxMultiplicity: Number(weights.maxMultiplicity), maxLoop: Number(weights.maxLoop) } : {}),
+      ...(limitOp ? { op: limitOp, bound } : {}),
+    };
   if (kind === "identified-as") return { kind, families };
   return {
     kind,
@@ -75,6 +83,8 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [setting, setSetting] = useState("tree");
   const [vertices, setVertices] = useState("10");
   const [limitOp, setLimitOp] = useState("");
+  const [maxMultiplicity, setMaxMultiplicity] = useState("2");
+  const [maxLoop, setMaxLoop] = useState("1");
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
@@ -89,7 +99,10 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
     try {
       const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
         method: "POST",
-        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices, limitOp) },
+        body: {
+          fileId: Number(chosen),
+          ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices, limitOp, { maxMultiplicity, maxLoop }),
+        },
       });
       setMessage(
         `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
@@ -157,8 +170,30 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
             options={[
               ["tree", "trees"],
               ["simple", "connected simple graphs"],
+              ["multigraph", "connected graphs with loops and multiple edges"],
             ]}
           />
+          {setting === "multigraph" && (
+            <>
+              {(
+                [
+                  ["of multiplicity ≤", "largest edge multiplicity", maxMultiplicity, setMaxMultiplicity],
+                  ["and loop weight ≤", "largest loop weight", maxLoop, setMaxLoop],
+                ] as const
+              ).map(([words, label, value, set]) => (
+                <label key={label} className="flex items-center gap-2">
+                  {words}
+                  <TextInput
+                    value={value}
+                    onValue={set}
+                    aria-label={label}
+                    inputMode="numeric"
+                    className="w-12 rounded border border-stone-300 px-2 py-0.5 font-mono"
+                  />
+                </label>
+              ))}
+            </>
+          )}
           <span>on</span>
           <TextInput
             value={vertices}

@@ -76,3 +76,22 @@ export const toGraph = (A: number[][]): Graph => {
   for (let u = 0; u < A.length; u++) for (let v = u; v < A.length; v++) if (A[u][v]) edges.push({ u, v, m: A[u][v] });
   return makeGraph(A.length, edges);
 };
+
+/**
+ * A deliberately leaky split of the connected graphs with loops and multiple edges: simple / has a loop /
+ * a multiple edge on at least 3 vertices. The only graph it misses is the double edge on 2 vertices
+ * (elementary: a non-simple loopless graph has a multiple edge, and on 2 vertices that is the double edge).
+ */
+export const LEAKY_MULTIGRAPH_SPLIT = [
+  { label: "simple", condition: { predicate: "simple" } },
+  { label: "looped", condition: { predicate: "loops", relation: ">=", value: 1 } },
+  {
+    label: "multiple, n ≥ 3",
+    condition: {
+      and: [
+        { predicate: "multiple-edges", relation: ">=", value: 1 },
+        { predicate: "vertices", relation: ">=", value: 3 },
+      ],
+    },
+  },
+] as const;

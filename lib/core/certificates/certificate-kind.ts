@@ -76,9 +76,7 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
         ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
         : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
     case "coverage":
-      return kind === "coverage"
-        ? { key: "coverage", words: "counts per order and sub-case, uncovered graphs (graph6, or sparse6 with loops and multiple edges)" }
-        : null;
+      return kind === "coverage" ? { key: "coverage", words: "counts per order and sub-case, uncovered graphs (graph6 or sparse6)" } : null;
     case "enumeration":
       return kind === "enumeration" ? { key: "enumeration", words: "list of the graphs found (graph6), with counts by order" } : null;
     default:
