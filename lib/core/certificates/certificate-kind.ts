@@ -72,6 +72,8 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       return kind && kind in STRUCTURE_WORDS ? { key: kind, words: STRUCTURE_WORDS[kind] } : null;
     case "dynkin-data":
       if (kind !== "dynkin-data") return null;
+      if ("cartanMatrix" in e)
+        return { key: "dynkin-data", words: "Cartan matrix, highest root, Coxeter graph's characteristic polynomial, Weyl group and quantum integer values" };
       return "marks" in e
         ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
         : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
