@@ -70,10 +70,12 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
   } else if (claim.kind === "coverage") {
     const uncovered = (evidence as { uncovered?: unknown } | null)?.uncovered;
+    // Named on the card in the certificate's own text: sparse6 (leading ':') with loops and multiple edges, else graph6.
     if (Array.isArray(uncovered))
-      uncovered
-        .slice(0, 4)
-        .forEach((t, i) => add(read({ format: String(t).startsWith(":") ? "sparse6" : "graph6", text: String(t) }), `uncovered graph ${i + 1}`));
+      uncovered.slice(0, 4).forEach((t, i) => {
+        const format = String(t).startsWith(":") ? "sparse6" : "graph6";
+        add(read({ format, text: String(t) }), format === "sparse6" ? `uncovered graph ${i + 1} (sparse6 ${String(t)})` : `uncovered graph ${i + 1}`);
+      });
   } else if (claim.kind === "dynkin-data") {
     if (isMultilacedType(claim.type))
       add(multilacedBondGraph(claim.type!), `${claim.type}: its bonds as 1, 2 or 3 edges, roots numbered as in Bourbaki (the arrow is not drawn)`);

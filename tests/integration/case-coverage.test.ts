@@ -141,6 +141,9 @@ describe("coverage claims through the API", () => {
     expect(JSON.parse(row.input)).toMatchObject({ setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 });
     const named = /satisfy no sub-case's condition: (\S+) \(sparse6\)/.exec(row.reason!)![1];
     expect(canonicalKeyOf(readGraphText(named))).toBe(canonicalKeyOf(makeGraph(2, [{ u: 0, v: 1, m: 2 }])));
+    // The card draws it (the double edge) and names it in sparse6.
+    const picture = JSON.parse(row.picture!) as { pictures: Array<{ title: string; edges: Array<[number, number, number]> }> };
+    expect(picture.pictures).toEqual([expect.objectContaining({ title: `uncovered graph 1 (sparse6 ${named})`, edges: [[0, 1, 2]] })]);
 
     // A predicate with no meaning there, and N past the cap for the bounds, are 422s naming the field; nothing is stored.
     const before = await models().Claim.count({ where: { stepId: Number(stepId) } });
