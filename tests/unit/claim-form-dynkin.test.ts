@@ -3,7 +3,11 @@
  * which the core accepts and verifies; unknown lines and bad integers are reported on the form field.
  */
 import { describe, expect, it } from "vitest";
-import { claimFromForm, emptyClaimForm, formFieldOf } from "@/lib/validations/claim";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import type { UseFormRegister } from "react-hook-form";
+import { DynkinFields } from "@/components/claims/dynkin-fields";
+import { claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
 import { namesMultilacedType, validateClaim } from "@/lib/core/claims/claim-schema";
 import { verifyClaim } from "@/lib/core/claims/claims";
 
@@ -47,6 +51,17 @@ describe("claim form: Dynkin data", () => {
     const wrong = claimFromForm({ ...emptyClaimForm, kind: "dynkin-data", family: "B5", dynkinData: "|W| = 1920" });
     if (!("claim" in wrong)) throw new Error(JSON.stringify(wrong));
     expect(verifyClaim(validateClaim(wrong.claim)).verdict.reason).toMatch(/\|W\(B5\)\| = 3840, not 1920/);
+  });
+
+  it("the type picker offers B, C, F and G beside A, D, E and says which ranks are accepted", () => {
+    const register = ((name: string) => ({ name, onChange: async () => {}, onBlur: async () => {}, ref: () => {} })) as unknown as UseFormRegister<ClaimForm>;
+    const html = renderToStaticMarkup(createElement(DynkinFields, { register, err: () => undefined }));
+    const offered = [...html.matchAll(/<option value="([^"]+)"/g)].map((m) => m[1]);
+    expect(offered).toEqual(expect.arrayContaining(["B5", "C4", "F4", "G2", "E8", "D4"]));
+    // Every offered type is one the claim accepts.
+    for (const t of offered) expect(validateClaim({ format: "cairn-claim/1", kind: "dynkin-data", type: t })).toMatchObject({ type: t });
+    expect(html).toContain("B_n (n ≥ 2), C_n (n ≥ 3)");
+    expect(html).toMatch(/list="dynkin-types"/);
   });
 
   it("reports an unknown line and a missing diagram on the form's own fields", () => {
