@@ -15,9 +15,12 @@ import {
   ENUMERATION_MAX_VERTICES,
   COVERAGE_MAX_VERTICES,
   MULTIGRAPH_MAX_WEIGHT,
+  namesMultilacedType,
 } from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
+import { DynkinFields } from "./dynkin-fields";
+import { claimInputClass } from "./claim-input-class";
 
 const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   "spectral-radius-bound": "spectral radius bound  ρ(G) op b",
@@ -33,7 +36,7 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   coverage: "coverage  every G, |G| ≤ N, is in some sub-case",
 };
 
-const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
+const input = claimInputClass;
 
 function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
   return (
@@ -51,16 +54,36 @@ function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat
   );
 }
 
-/** Which graphs an enumeration or coverage claim runs over (loops and multiple edges: enumeration only). */
-function SettingSelect({ register, error, multigraph = false }: { register: UseFormRegister<ClaimForm>; error?: string; multigraph?: boolean }) {
+/** Which graphs an enumeration or coverage claim runs over, with the two bounds of the multigraph setting when it is chosen. */
+function SettingSelect({
+  register,
+  err,
+  multigraph,
+}: {
+  register: UseFormRegister<ClaimForm>;
+  err: (f: keyof ClaimForm) => string | undefined;
+  multigraph: boolean;
+}) {
   return (
-    <FormField label="Which graphs" error={error}>
-      <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
-        <option value="simple">connected simple graphs</option>
-        <option value="tree">trees</option>
-        {multigraph && <option value="multigraph">connected graphs with loops and multiple edges</option>}
-      </select>
-    </FormField>
+    <>
+      <FormField label="Which graphs" error={err("enumerationSetting")}>
+        <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
+          <option value="simple">connected simple graphs</option>
+          <option value="tree">trees</option>
+          <option value="multigraph">connected graphs with loops and multiple edges</option>
+        </select>
+      </FormField>
+      {multigraph && (
+        <div className="flex gap-2">
+          <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
+            <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
+          </FormField>
+          <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
+            <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
+          </FormField>
+        </div>
+      )}
+    </>
   );
 }
 
@@ -78,6 +101,8 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   const twoGraphs = kind === "subgraph" || kind === "exclusion";
   const enumeration = kind === "enumeration";
   const coverage = kind === "coverage";
+  // B_n, C_n, F4, G2 have a multiple bond and are given by type only: no graph box.
+  const multilaced = kind === "dynkin-data" && namesMultilacedType(watch("family"));
 
   const submit = handleSubmit(async (values) => {
     setMessage(null);
@@ -128,12 +153,12 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         <>
           <FormField
             label="N, the largest number of vertices"
-            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees`}
+            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees; with loops and multiple edges it depends on the two bounds (e.g. 7 for multiplicity 1 and loops 1)`}
             error={err("maxVertices")}
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <SettingSelect register={register} error={err("enumerationSetting")} />
+          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
           <FormField
             label="Sub-cases and their machine-readable conditions (JSON)"
             hint='e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]'
@@ -152,17 +177,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           >
             <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
           </FormField>
-          <SettingSelect register={register} error={err("enumerationSetting")} multigraph />
-          {watch("enumerationSetting") === "multigraph" && (
-            <div className="flex gap-2">
-              <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
-                <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
-              </FormField>
-              <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
-                <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
-              </FormField>
-            </div>
-          )}
+          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
           <FormField
             label="The graphs, all of them"
             hint="connected graphs of the setting, separated by a line ---; e.g. A(5) --- D(5); a loop of weight m at v is the edge line v v m"
@@ -175,9 +190,9 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </FormField>
         </>
       )}
-      {!enumeration && !coverage && (
+      {!enumeration && !coverage && !multilaced && (
         <FormField
-          label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional)" : "Graph G"}
+          label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional; A, D, E only)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
           error={err("graphText")}
         >
@@ -229,20 +244,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           <input {...register("family")} className={input} />
         </FormField>
       )}
-      {kind === "dynkin-data" && (
-        <>
-          <FormField label="Type" hint="A_n, D_n, E6, E7 or E8; leave the graph empty to use the named diagram" error={err("family")}>
-            <input {...register("family")} className={input} aria-label="Dynkin type" />
-          </FormField>
-          <FormField
-            label="Stated data, one per line"
-            hint="h = 30 · rho = 2cos(pi/30) · exponents = 1, 7, … · marks = … · f = 1 · |W| = 696729600 · W(q) = … (highest power first) · [2]_q = 2cos(pi/30) · [k]_q > 0"
-            error={err("dynkinData")}
-          >
-            <textarea {...register("dynkinData")} rows={4} className={input} aria-label="stated Dynkin data" />
-          </FormField>
-        </>
-      )}
+      {kind === "dynkin-data" && <DynkinFields register={register} err={err} />}
       {kind === "characteristic-polynomial" && (
         <FormField label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
           <input {...register("coefficients")} className={input} />

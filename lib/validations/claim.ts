@@ -14,6 +14,7 @@ import {
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
   ENUMERATION_CLAIM_SETTINGS,
+  namesMultilacedType,
 } from "@/lib/core/claims/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
@@ -201,10 +202,7 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
         maxVertices: Number(f.maxVertices.trim()),
         op: f.op,
         bound: f.bound.trim(),
-        ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}),
-        ...(f.enumerationSetting === "multigraph"
-          ? { setting: "multigraph", maxMultiplicity: wholeNumber(f.maxMultiplicity), maxLoop: wholeNumber(f.maxLoop) }
-          : {}),
+        ...settingFields(f),
         graphs: f.patternText
           .split(/^\s*---\s*$/m)
           .map((t) => t.trim())
@@ -213,14 +211,9 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       });
       break;
     case "coverage":
-      if (f.enumerationSetting === "multigraph")
-        issues.push({
-          field: "enumerationSetting",
-          message: "coverage runs over connected simple graphs or trees; loops and multiple edges are for enumeration claims",
-        });
       need("maxVertices", "the largest number of vertices N");
       if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim())) issues.push({ field: "maxVertices", message: "N is a positive integer" });
-      Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...(f.enumerationSetting === "tree" ? { setting: "tree" } : {}) });
+      Object.assign(claim, { maxVertices: Number(f.maxVertices.trim()), ...settingFields(f) });
       if (f.cases.trim()) {
         try {
           claim.cases = JSON.parse(f.cases);
@@ -232,7 +225,8 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
     case "dynkin-data":
       if (!f.family.trim() && !f.graphText.trim()) issues.push({ field: "family", message: "Enter the type (e.g. E8), the graph G, or both." });
       if (f.family.trim()) claim.type = f.family.trim();
-      if (f.graphText.trim()) claim.graph = graph(f.graphFormat, f.graphText);
+      // The form hides the graph box for B_n, C_n, F4, G2 (given by type only), so text left in it is not sent.
+      if (f.graphText.trim() && !namesMultilacedType(f.family)) claim.graph = graph(f.graphFormat, f.graphText);
       Object.assign(claim, dynkinDataFromText(f.dynkinData, issues));
       break;
     case "structure": {
@@ -262,6 +256,13 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
 
 /** A form's whole number as typed; anything else is passed on as text so the claim's validation names the field. */
 const wholeNumber = (t: string): number | string => (/^\s*\d+\s*$/.test(t) ? Number(t.trim()) : t.trim());
+
+/** The setting fields of an enumeration or coverage claim, as the form names them. */
+function settingFields(f: ClaimForm): Record<string, unknown> {
+  if (f.enumerationSetting === "tree") return { setting: "tree" };
+  if (f.enumerationSetting === "multigraph") return { setting: "multigraph", maxMultiplicity: wholeNumber(f.maxMultiplicity), maxLoop: wholeNumber(f.maxLoop) };
+  return {};
+}
 
 /** The form field for an error path such as "claims.0.graph.text" or "claims.0.patterns[1].text". */
 export function formFieldOf(path: string): keyof ClaimForm | null {

@@ -1,12 +1,12 @@
 /**
- * The claim form's enumeration over graphs with loops and multiple edges: the setting and its two bounds
- * become the claim's fields, the core verifies it, and a bad bound comes back on its own form field.
+ * The claim form's enumeration and coverage over graphs with loops and multiple edges: the setting and its
+ * two bounds become the claim's fields, the core verifies it, and a bad bound comes back on its own form field.
  */
 import { describe, expect, it } from "vitest";
 import { formFieldOf } from "@/lib/validations/claim";
 import { ClaimError, validateClaim } from "@/lib/core/claims/claim-schema";
 import { verifyClaim } from "@/lib/core/claims/claims";
-import { claimOf, fromForm } from "./claim-form-fixture";
+import { claimOf } from "./claim-form-fixture";
 
 const MULTIGRAPHS = { kind: "enumeration", enumerationSetting: "multigraph" } as const;
 // The connected multigraphs with ρ < 2 on at most 2 vertices as adjacency matrices, A1, T1, A2, T2 (sources in the test name).
@@ -42,8 +42,14 @@ describe("claim form: enumeration with loops and multiple edges", () => {
     expect(formFieldOf("claims.0.maxMultiplicity")).toBe("maxMultiplicity");
   });
 
-  it("refuses loops and multiple edges on a coverage claim, on the setting field", () => {
-    const built = fromForm({ kind: "coverage", maxVertices: "3", enumerationSetting: "multigraph", cases: "[]" });
-    expect("issues" in built && built.issues.map((i) => i.field)).toContain("enumerationSetting");
+  it("builds a coverage claim over graphs with loops and multiple edges from the same two fields, and the core refutes a leaky split", () => {
+    const cases =
+      '[{ "label": "simple", "condition": { "predicate": "simple" } }, { "label": "looped", "condition": { "predicate": "loops", "relation": ">=", "value": 1 } }]';
+    const claim = claimOf({ ...MULTIGRAPHS, kind: "coverage", maxVertices: "2", maxMultiplicity: "2", maxLoop: "1", cases });
+    expect(claim).toMatchObject({ kind: "coverage", setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 });
+    const v = verifyClaim(validateClaim(claim)).verdict;
+    // On at most 2 vertices, the double edge is neither simple nor looped (elementary).
+    expect(v.status).toBe("refuted");
+    expect(v.reason).toMatch(/1 of the \d+ graphs satisfy no sub-case's condition: :\S+ \(sparse6\)/);
   });
 });

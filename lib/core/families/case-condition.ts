@@ -5,9 +5,10 @@
  * A condition is JSON:
  *  - `{ "predicate": "max-degree", "relation": "<=", "value": 2 }`; relations "<", "<=", "=", ">=", ">";
  *    numeric predicates: "max-degree" (Δ), "min-degree" (δ), "branch-vertices" (vertices of degree ≥ 3),
- *    "vertices" (order), "edges" (size);
+ *    "vertices" (order), "edges" (size), "loops" (Σ_v A_vv), "multiple-edges" (pairs u ≠ v joined by
+ *    at least 2 edges), "max-multiplicity" (largest A_uv, u ≠ v);
  *  - `{ "predicate": "tree" }`, "connected", "bipartite", "has-cycle" (contains a cycle), "path" (a
- *    connected graph with Δ ≤ 2 and no cycle);
+ *    connected graph with Δ ≤ 2 and no cycle), "simple" (no loop, no multiple edge);
  *  - `{ "predicate": "leg-lengths", "value": [1, 2, 5] }`: a tree with exactly one branch vertex whose
  *    legs (paths from it to the leaves) have exactly these lengths, in any order;
  *  - `{ "predicate": "contains", "graph": "bQ" }` (graph6 text) or `"graph": { "format": "edges", "text": "0 1\n1 2" }`,
@@ -15,11 +16,22 @@
  *  - `{ "and": [c1, c2, …] }`, `{ "or": [c1, …] }`, `{ "not": c }`.
  * Exclusion of a subgraph is `{ "not": { "predicate": "contains", … } }`.
  *
+ * Graphs with loops and multiple edges (the "multigraph" setting). A loop of weight l at v is l loops
+ * (A_vv = l); an edge of multiplicity m is m edges (A_uv = m). Conventions, common practice for
+ * multigraphs: deg(v) = Σ_{u≠v} A_uv + 2·A_vv (a loop counts 2), |E(G)| counts every edge and every
+ * loop once, so Σ deg = 2|E| (handshake); a loop is a cycle of length 1 and a multiple edge one of
+ * length 2, so a tree and a path are simple; bipartite graphs have no loop; "contains" keeps
+ * multiplicities (H ⊆ G when each edge and loop of H has at most G's multiplicity at its image;
+ * induced: equal multiplicities, loops included — subgraph.ts), and its pattern may itself carry
+ * loops and multiple edges. "branch-vertices" is refused there: with loops counting 2, "degree ≥ 3"
+ * would make the end of a path carrying a loop a branch vertex, which is not what the word means.
+ * On simple graphs every predicate reads as before.
+ *
  * Every answer is exact (integer degrees, graph search); framework-free, like all of lib/core.
  */
-import { GraphError, type Graph } from "../graph";
+import { GraphError, isSimple, type Graph } from "../graph";
 import { parseGraph } from "../input/parse";
-import { writeGraph6 } from "../input/graph6";
+import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { NumberFormatError } from "../arithmetic/rational";
 import { Budget } from "../verdict";
 import { sweep, findCycle } from "./structure";
@@ -27,9 +39,14 @@ import { decideContainment } from "../subgraph/subgraph";
 
 export const CONDITION_RELATIONS = ["<", "<=", "=", ">=", ">"] as const;
 export type ConditionRelation = (typeof CONDITION_RELATIONS)[number];
-export const NUMERIC_PREDICATES = ["max-degree", "min-degree", "branch-vertices", "vertices", "edges"] as const;
+export const NUMERIC_PREDICATES = ["max-degree", "min-degree", "branch-vertices", "vertices", "edges", "loops", "multiple-edges", "max-multiplicity"] as const;
 export type NumericPredicate = (typeof NUMERIC_PREDICATES)[number];
-export const PLAIN_PREDICATES = ["tree", "connected", "bipartite", "has-cycle", "path"] as const;
+export const PLAIN_PREDICATES = ["tree", "connected", "bipartite", "has-cycle", "path", "simple"] as const;
+/** Predicates refused in the multigraph setting, and why (see the module comment). */
+export const MULTIGRAPH_REFUSED: Readonly<Record<string, string>> = {
+  "branch-vertices":
+    'has no agreed meaning for graphs with loops and multiple edges (a loop counts 2 in a degree, so the end of a path carrying a loop would be a "branch vertex"); use "max-degree", "leg-lengths" (a simple star-like tree) or "simple" instead',
+};
 export type PlainPredicate = (typeof PLAIN_PREDICATES)[number];
 const ALL_PREDICATES = [...NUMERIC_PREDICATES, ...PLAIN_PREDICATES, "leg-lengths", "contains"] as const;
 
@@ -77,9 +94,12 @@ const EXAMPLE = `e.g. { "predicate": "max-degree", "relation": "<=", "value": 2 
 
 /**
  * Checks a parsed JSON value against the condition language and returns it normalised (pattern
- * graphs read and re-encoded; unknown keys refused). `path` prefixes every error path.
+ * graphs read and re-encoded; unknown keys refused). `path` prefixes every error path. With
+ * `multigraph`, patterns may carry loops and multiple edges (kept in sparse6) and the predicates of
+ * MULTIGRAPH_REFUSED are refused.
  */
-export function validateCondition(json: unknown, path = "$"): CaseCondition {
+export function validateCondition(json: unknown, path = "$", options: { multigraph?: boolean } = {}): CaseCondition {
+  const multigraph = options.multigraph === true;
   let nodes = 0;
   const walk = (v: unknown, p: string, depth: number): CaseCondition => {
     if (++nodes > CONDITION_MAX_NODES) throw new ConditionError(p, `a condition has at most ${CONDITION_MAX_NODES} parts`);
@@ -106,6 +126,7 @@ export function validateCondition(json: unknown, path = "$"): CaseCondition {
     const predicate = o.predicate;
     if (typeof predicate !== "string" || !(ALL_PREDICATES as readonly string[]).includes(predicate))
       throw new ConditionError(`${p}.predicate`, `expected one of ${ALL_PREDICATES.map((a) => `"${a}"`).join(", ")}, got ${shown(predicate)}`);
+    if (multigraph && MULTIGRAPH_REFUSED[predicate]) throw new ConditionError(`${p}.predicate`, `"${predicate}" ${MULTIGRAPH_REFUSED[predicate]}`);
     if ((NUMERIC_PREDICATES as readonly string[]).includes(predicate)) {
       only(["predicate", "relation", "value"]);
       const relation = o.relation;
@@ -149,21 +170,24 @@ export function validateCondition(json: unknown, path = "$"): CaseCondition {
     if (h.n === 0) throw new ConditionError(textPath, "the pattern has no vertices");
     if (h.n > CONDITION_PATTERN_MAX_VERTICES)
       throw new ConditionError(textPath, `a pattern has at most ${CONDITION_PATTERN_MAX_VERTICES} vertices, got ${h.n}`);
-    if (h.edges.some((e) => e.u === e.v || e.m !== 1)) throw new ConditionError(textPath, "the pattern must be a simple graph (no loops, no multiple edges)");
-    return { predicate: "contains", graph: { format: "graph6", text: writeGraph6(h) }, ...(o.induced === true ? { induced: true } : {}) };
+    const simple = isSimple(h);
+    if (!simple && !multigraph)
+      throw new ConditionError(textPath, 'the pattern must be a simple graph (no loops, no multiple edges) unless the setting is "multigraph"');
+    const stored = simple ? { format: "graph6", text: writeGraph6(h) } : { format: "sparse6", text: writeSparse6(h) };
+    return { predicate: "contains", graph: stored, ...(o.induced === true ? { induced: true } : {}) };
   };
   return walk(json, path, 0);
 }
 
 /** Parses JSON text and validates it; a syntax error is reported at `path`. */
-export function parseCondition(text: string, path = "$"): CaseCondition {
+export function parseCondition(text: string, path = "$", options: { multigraph?: boolean } = {}): CaseCondition {
   let json: unknown;
   try {
     json = JSON.parse(text);
   } catch (e) {
     throw new ConditionError(path, `not valid JSON: ${(e as Error).message}`);
   }
-  return validateCondition(json, path);
+  return validateCondition(json, path, options);
 }
 
 const SYMBOL: Record<ConditionRelation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
@@ -173,6 +197,9 @@ const NAME: Record<NumericPredicate, string> = {
   "branch-vertices": "#branch vertices",
   vertices: "|V(G)|",
   edges: "|E(G)|",
+  loops: "#loops",
+  "multiple-edges": "#multiple edges",
+  "max-multiplicity": "largest edge multiplicity",
 };
 const PLAIN_WORDS: Record<PlainPredicate, string> = {
   tree: "G is a tree",
@@ -180,6 +207,7 @@ const PLAIN_WORDS: Record<PlainPredicate, string> = {
   bipartite: "G is bipartite",
   "has-cycle": "G contains a cycle",
   path: "G is a path",
+  simple: "G is simple (no loop, no multiple edge)",
 };
 
 /** The condition in words and symbols, e.g. "Δ(G) ≤ 2 and not (G ⊇ Bw)". */
@@ -192,7 +220,7 @@ export function describeCondition(c: CaseCondition): string {
     case "leg-lengths":
       return `G is a star-like tree with legs ${c.value.join(", ")}`;
     case "contains":
-      return `G contains ${c.graph.text} (graph6) as ${c.induced ? "an induced" : "a"} subgraph`;
+      return `G contains ${c.graph.text} (${c.graph.format}) as ${c.induced ? "an induced" : "a"} subgraph`;
     default:
       return "relation" in c ? `${NAME[c.predicate]} ${SYMBOL[c.relation]} ${c.value}` : PLAIN_WORDS[c.predicate];
   }
@@ -209,14 +237,13 @@ export class ConditionContext {
     readonly budget: Budget,
   ) {}
   degreeList(): number[] {
-    // Distinct neighbours, as degree() in graph.ts counts them (loops and multiplicities not counted).
+    // Multiplicities counted and a loop counting 2 (the module comment); on a simple graph, the number of neighbours.
     if (!this.degrees) {
       const d = new Array<number>(this.g.n).fill(0);
-      for (const e of this.g.edges)
-        if (e.u !== e.v) {
-          d[e.u]++;
-          d[e.v]++;
-        }
+      for (const e of this.g.edges) {
+        d[e.u] += e.m;
+        d[e.v] += e.m;
+      }
       this.degrees = d;
     }
     return this.degrees;
@@ -237,7 +264,7 @@ export class ConditionContext {
   }
   pattern(text: string): Graph {
     let h = this.patterns.get(text);
-    if (!h) this.patterns.set(text, (h = parseGraph(text, "graph6")));
+    if (!h) this.patterns.set(text, (h = parseGraph(text, text.startsWith(":") ? "sparse6" : "graph6")));
     return h;
   }
 }
@@ -286,7 +313,7 @@ function bipartite(g: Graph, budget: Budget): boolean {
 /** Leg lengths of a tree with exactly one branch vertex (sorted), or null when G is not such a tree. */
 function starLegs(ctx: ConditionContext): number[] | null {
   const g = ctx.g;
-  if (!ctx.connected() || g.edges.length !== g.n - 1) return null;
+  if (!ctx.connected() || !ctx.acyclic()) return null;
   const deg = ctx.degreeList();
   const branch = deg.flatMap((d, v) => (d >= 3 ? [v] : []));
   if (branch.length !== 1) return null;
@@ -330,6 +357,18 @@ export function evaluateCondition(c: CaseCondition, g: Graph | ConditionContext,
         c.relation,
         c.value,
       );
+    case "loops":
+      return compare(
+        G.edges.reduce((s, e) => s + (e.u === e.v ? e.m : 0), 0),
+        c.relation,
+        c.value,
+      );
+    case "multiple-edges":
+      return compare(G.edges.filter((e) => e.u !== e.v && e.m >= 2).length, c.relation, c.value);
+    case "max-multiplicity":
+      return compare(Math.max(0, ...G.edges.map((e) => (e.u !== e.v ? e.m : 0))), c.relation, c.value);
+    case "simple":
+      return isSimple(G);
     case "connected":
       return ctx.connected();
     case "tree":

@@ -1,23 +1,38 @@
 /**
- * Coverage of a case split: "every connected simple graph (or tree) on at most N vertices satisfies
- * the condition of at least one sub-case", checked exhaustively over the isomorph-free enumeration
+ * Coverage of a case split: "every connected simple graph (or tree, or connected graph with loops and
+ * multiple edges of bounded weight) on at most N vertices satisfies the condition of at least one
+ * sub-case", checked exhaustively over the isomorph-free enumeration
  * by canonical augmentation (augmentation.ts; B. D. McKay, "Isomorph-free exhaustive generation",
  * J. Algorithms 26 (1998)). Conditions are exact (case-condition.ts), so the verdict is exact for
- * graphs up to N vertices; beyond N the split is the authors' argument.
+ * graphs up to N vertices; beyond N the split is the authors' argument. In the multigraph setting the
+ * uncovered graphs are written in sparse6 (graph6 has no loops or multiple edges), in the other
+ * settings in graph6.
  */
 import { Budget, Verdict, withinBudget } from "../verdict";
-import { parseGraph6, writeGraph6 } from "../input/graph6";
+import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { canonicalKeyOf } from "./canonical-label";
 import { isConnected } from "./structure";
-import { graph6Mismatch } from "./enumeration";
-import { enumeratePart, mergeParts } from "./augmentation";
+import { graph6Mismatch, outsideSetting, readGraphText, settingOf, settingWords } from "./enumeration";
+import { enumeratePart, mergeParts, type EnumerationSetting } from "./augmentation";
 import type { Graph } from "../graph";
 import { ConditionContext, describeCondition, evaluateCondition, type CaseCondition } from "./case-condition";
+import { multigraphCoverageMaxVertices } from "./coverage-limits";
 
-import { COVERAGE_MAX_VERTICES, type EnumerationSetting as CoverageSetting } from "../claims/claim-schema";
+import { COVERAGE_MAX_VERTICES, type EnumerationSetting as ClaimSetting } from "../claims/claim-schema";
 
 export { COVERAGE_MAX_VERTICES };
-export type { CoverageSetting };
+/** "simple", "tree", or a setting as the generator takes it (the multigraph setting with its two bounds). */
+export type CoverageSetting = ClaimSetting | EnumerationSetting;
+
+/** Largest N of a coverage check in the setting. */
+export function coverageMaxVertices(setting: CoverageSetting): number {
+  const s = settingOf(setting);
+  return s.kind === "multigraph" ? multigraphCoverageMaxVertices(s.maxMultiplicity, s.maxLoop) : COVERAGE_MAX_VERTICES[s.kind];
+}
+
+/** An uncovered graph as the certificate lists it: sparse6 in the multigraph setting, graph6 otherwise. */
+const uncoveredText = (g: Graph, setting: EnumerationSetting): string => (setting.kind === "multigraph" ? writeSparse6(g) : writeGraph6(g));
+const uncoveredFormat = (setting: CoverageSetting) => (settingOf(setting).kind === "multigraph" ? "sparse6" : "graph6");
 
 export interface CoverageCase {
   readonly label?: string;
@@ -30,20 +45,18 @@ export interface CoverageCertificate {
   orders: number[];
   /** covered[i] = number of graphs (all orders) satisfying the condition of sub-case i. */
   covered: number[];
-  /** The graphs no sub-case covers, in graph6, smallest order first (at most COVERAGE_UNCOVERED_CAP of them). */
+  /** The graphs no sub-case covers, smallest order first (at most COVERAGE_UNCOVERED_CAP of them): graph6, or sparse6 in the multigraph setting. */
   uncovered: string[];
   /** How many graphs no sub-case covers (absent in older certificates: then all are listed). */
   uncoveredTotal?: number;
 }
-
-const settingWords = (s: CoverageSetting) => (s === "tree" ? "tree" : "connected simple graph");
 
 export function caseName(c: CoverageCase, i: number): string {
   return c.label && c.label.trim() ? c.label.trim() : `sub-case ${i + 1}`;
 }
 
 export function coverageStatement(maxVertices: number, cases: readonly CoverageCase[], setting: CoverageSetting = "simple"): string {
-  return `every ${settingWords(setting)} on at most ${maxVertices} vertices satisfies the condition of at least one of the ${cases.length} sub-case(s): ${cases
+  return `every ${settingWords(setting, true)} on at most ${maxVertices} vertices satisfies the condition of at least one of the ${cases.length} sub-case(s): ${cases
     .map((c, i) => `${caseName(c, i)}: ${describeCondition(c.condition)}`)
     .join("; ")}`;
 }
@@ -51,8 +64,12 @@ export function coverageStatement(maxVertices: number, cases: readonly CoverageC
 export const COVERAGE_METHOD = "enumeration by canonical augmentation (McKay 1998), every sub-case condition tested exactly";
 
 /** What remains the authors' and referees' job when a coverage claim is verified. */
-export function coverageCaution(maxVertices: number): string {
-  return `Checked only for graphs on at most ${maxVertices} vertices. That the sub-cases cover every larger graph, and that each sub-case's condition is what its prose says, is the authors' argument and the referees' to check.`;
+export function coverageCaution(maxVertices: number, setting: CoverageSetting = "simple"): string {
+  const convention =
+    settingOf(setting).kind === "multigraph"
+      ? " Conditions read a graph with loops and multiple edges thus: a vertex's degree counts an edge by its multiplicity and a loop twice, the number of edges counts each loop once, and a loop or a multiple edge is a cycle."
+      : "";
+  return `Checked only for graphs on at most ${maxVertices} vertices. That the sub-cases cover every larger graph, and that each sub-case's condition is what its prose says, is the authors' argument and the referees' to check.${convention}`;
 }
 
 /** At most this many uncovered graphs are kept (smallest orders first); the certificate still counts them all. */
@@ -66,15 +83,18 @@ export interface CoveragePartResult {
   readonly orders: number[];
   /** covered[i]: this part's graphs satisfying sub-case i. */
   readonly covered: number[];
-  /** uncovered[k − 1]: graphs on k vertices no sub-case covers (graph6), at most `cap` per order. */
+  /** uncovered[k − 1]: graphs on k vertices no sub-case covers (graph6, or sparse6 in the multigraph setting), at most `cap` per order. */
   readonly uncovered: string[][];
+  /** uncoveredOrigins[k − 1][j]: the origin of uncovered[k − 1][j] (augmentation.ts), so merged parts keep the single run's order. */
+  readonly uncoveredOrigins?: number[][];
   /** All of this part's uncovered graphs, kept or not. */
   readonly uncoveredTotal: number;
 }
 
 const checkRange = (maxVertices: number, setting: CoverageSetting) => {
-  if (!Number.isSafeInteger(maxVertices) || maxVertices < 1 || maxVertices > COVERAGE_MAX_VERTICES[setting])
-    throw new RangeError(`coverage is checked for 1..${COVERAGE_MAX_VERTICES[setting]} vertices in the setting "${setting}", got ${maxVertices}`);
+  const max = coverageMaxVertices(setting);
+  if (!Number.isSafeInteger(maxVertices) || maxVertices < 1 || maxVertices > max)
+    throw new RangeError(`coverage is checked for 1..${max} vertices for ${settingWords(setting)}, got ${maxVertices}`);
 };
 
 /**
@@ -92,10 +112,12 @@ export function coveragePart(
   cap = COVERAGE_UNCOVERED_CAP,
 ): CoveragePartResult {
   checkRange(maxVertices, setting);
+  const generatorSetting = settingOf(setting);
   const covered = new Array<number>(cases.length).fill(0);
   const uncovered: string[][] = Array.from({ length: maxVertices }, () => []);
+  const uncoveredOrigins: number[][] = Array.from({ length: maxVertices }, () => []);
   let uncoveredTotal = 0;
-  const onGraph = (g: Graph) => {
+  const onGraph = (g: Graph, origin: number) => {
     const ctx = new ConditionContext(g, budget);
     let any = false;
     cases.forEach((c, i) => {
@@ -107,18 +129,31 @@ export function coveragePart(
     });
     if (any) return;
     uncoveredTotal++;
-    if (uncovered[g.n - 1].length < cap) uncovered[g.n - 1].push(writeGraph6(g));
+    if (uncovered[g.n - 1].length < cap) {
+      uncovered[g.n - 1].push(uncoveredText(g, generatorSetting));
+      uncoveredOrigins[g.n - 1].push(origin);
+    }
   };
-  const r = enumeratePart({ maxVertices, setting: { kind: setting }, collect: false, onGraph, budget }, part, parts);
-  return { part, parts, orders: r.counts, covered, uncovered, uncoveredTotal };
+  const r = enumeratePart({ maxVertices, setting: generatorSetting, collect: false, onGraph, budget }, part, parts);
+  return { part, parts, orders: r.counts, covered, uncovered, uncoveredOrigins, uncoveredTotal };
 }
 
-/** Merges parts 0..k−1 (each exactly once) into the certificate of the whole check. */
+/**
+ * Merges parts 0..k−1 (each exactly once) into the certificate of the whole check. When every part
+ * gives its origins, the uncovered graphs come in the order of a run in one part (by origin; each part
+ * keeps its first `cap` per order, which holds every graph of the merged first `cap`), so the
+ * certificate is the single run's.
+ */
 export function mergeCoverageParts(results: readonly CoveragePartResult[], cap = COVERAGE_UNCOVERED_CAP): CoverageCertificate {
   // mergeParts checks that the parts are exactly 0..k−1 of one split, and adds the counts per order.
   const { counts } = mergeParts(results.map((r) => ({ part: r.part, parts: r.parts, counts: r.orders, stats: NO_STATS })));
   const covered = results[0].covered.map((_, i) => results.reduce((a, r) => a + r.covered[i], 0));
-  const byOrder = counts.map((_, k) => results.flatMap((r) => r.uncovered[k] ?? []));
+  const sorted = [...results].sort((a, b) => a.part - b.part);
+  const ordered = sorted.every((r) => r.uncoveredOrigins);
+  const byOrder = counts.map((_, k) => {
+    const all = sorted.flatMap((r) => (r.uncovered[k] ?? []).map((text, j) => ({ text, origin: ordered ? r.uncoveredOrigins![k][j] : 0 })));
+    return all.sort((a, b) => a.origin - b.origin).map((u) => u.text);
+  });
   return {
     kind: "coverage",
     orders: counts,
@@ -152,7 +187,7 @@ export function coverageVerdict(
         missed > Math.min(20, uncovered.length)
           ? `, and ${missed - Math.min(20, uncovered.length)} more (${missed > uncovered.length ? `the first ${uncovered.length}` : "all"} in the certificate)`
           : ""
-      } (graph6); ${perCase}.`,
+      } (${uncoveredFormat(setting)}); ${perCase}.`,
     };
   return {
     status: "verified",
@@ -160,21 +195,26 @@ export function coverageVerdict(
     method: COVERAGE_METHOD,
     certificate,
     reason: `All ${total} graphs (${orders.map((c, i) => `${c} on ${i + 1}`).join(", ")}) satisfy the condition of at least one sub-case; ${perCase}.`,
-    notes: [coverageCaution(maxVertices)],
+    notes: [coverageCaution(maxVertices, setting)],
   };
 }
 
-/** Decides whether the sub-case conditions cover every graph of the setting on at most maxVertices vertices. */
+/**
+ * Decides whether the sub-case conditions cover every graph of the setting on at most maxVertices
+ * vertices; with `parts` (all parts 0..k−1 of one split, each once) merged from them instead, with
+ * the same verdict and certificate.
+ */
 export function checkCoverage(
   maxVertices: number,
   cases: readonly CoverageCase[],
   budget: Budget = new Budget(),
   setting: CoverageSetting = "simple",
+  parts?: readonly CoveragePartResult[],
 ): Verdict<CoverageCertificate> {
   const statement = coverageStatement(maxVertices, cases, setting);
   checkRange(maxVertices, setting);
   return withinBudget(statement, COVERAGE_METHOD, budget, () =>
-    coverageVerdict(maxVertices, cases, setting, mergeCoverageParts([coveragePart(maxVertices, cases, setting, 0, 1, budget)])),
+    coverageVerdict(maxVertices, cases, setting, mergeCoverageParts(parts ?? [coveragePart(maxVertices, cases, setting, 0, 1, budget)])),
   );
 }
 
@@ -227,12 +267,12 @@ function uncoveredMismatch(
   for (const [i, text] of given.entries()) {
     let g: Graph;
     try {
-      g = parseGraph6(String(text));
+      g = readGraphText(String(text));
     } catch {
-      return `certificate.uncovered[${i}] is not graph6`;
+      return `certificate.uncovered[${i}] is not ${uncoveredFormat(setting)}`;
     }
-    const inSetting = g.n >= 1 && g.n <= maxVertices && isConnected(g, budget).status === "verified" && (setting !== "tree" || g.edges.length === g.n - 1);
-    if (!inSetting) return `certificate.uncovered[${i}] is not a ${settingWords(setting)} on at most ${maxVertices} vertices`;
+    const inSetting = g.n >= 1 && g.n <= maxVertices && isConnected(g, budget).status === "verified" && outsideSetting(g, settingOf(setting)) === null;
+    if (!inSetting) return `certificate.uncovered[${i}] is not a ${settingWords(setting, true)} on at most ${maxVertices} vertices`;
     const ctx = new ConditionContext(g, budget);
     const by = cases.findIndex((c) => evaluateCondition(c.condition, ctx));
     if (by >= 0) return `certificate.uncovered[${i}] satisfies ${caseName(cases[by], by)}`;

@@ -7,100 +7,20 @@ import { canonicalKeyOf } from "./canonical-label";
 import { generateConnected } from "./augmentation";
 import { readGraphText } from "./enumeration";
 import { parseBound } from "../arithmetic/bound";
+import { bruteForce, rhoAtMostTwo, toGraph } from "../../../tests/support/multigraph-brute-force";
 import { ClaimError, validateClaim } from "../claims/claim-schema";
 import { recheckClaim, verifyClaim } from "../claims/claims";
 
 const budget = () => new Budget(1e11);
+/** The connected multigraphs (multiplicity and loops up to 2) on at most `maxVertices` vertices with ρ op 2, by size. */
+const levelsAgainst2 = (maxVertices: number, op: "<" | "<=") =>
+  generateConnected({
+    maxVertices,
+    setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
+    spectral: { op, bound: parseBound("2") },
+    budget: budget(),
+  }).levels;
 
-/**
- * Independent brute force (a different code path from the generator and canonical-label.ts): every
- * symmetric n×n matrix with diagonal 0..maxLoop and off-diagonal 0..maxMult, kept when connected, one
- * per class, the class named by the lexicographically least entry string over all n! permutations.
- */
-function bruteForce(n: number, maxMult: number, maxLoop: number, keep: (A: number[][]) => boolean = () => true): number[][][] {
-  const cells: Array<[number, number]> = [];
-  for (let i = 0; i < n; i++) for (let j = i; j < n; j++) cells.push([i, j]);
-  const perms: number[][] = [];
-  const permute = (p: number[], rest: number[]) =>
-    rest.length === 0
-      ? perms.push(p)
-      : rest.forEach((x, k) =>
-          permute(
-            [...p, x],
-            rest.filter((_, j) => j !== k),
-          ),
-        );
-  permute([], [...Array(n).keys()]);
-  const classes = new Map<string, number[][]>();
-  const A = Array.from({ length: n }, () => new Array<number>(n).fill(0));
-  const visit = (c: number) => {
-    if (c === cells.length) {
-      // connected: a search from vertex 0
-      const seen = new Set([0]);
-      const todo = [0];
-      while (todo.length) {
-        const u = todo.pop()!;
-        for (let v = 0; v < n; v++) if (v !== u && A[u][v] > 0 && !seen.has(v)) (seen.add(v), todo.push(v));
-      }
-      if (seen.size !== n) return;
-      let best = "";
-      for (const p of perms) {
-        const s = cells.map(([i, j]) => A[p[i]][p[j]]).join(",");
-        if (best === "" || s < best) best = s;
-      }
-      if (!classes.has(best) && keep(A))
-        classes.set(
-          best,
-          A.map((r) => [...r]),
-        );
-      else if (!classes.has(best)) classes.set(best, []); // remembered as seen, not kept
-      return;
-    }
-    const [i, j] = cells[c];
-    for (let w = 0; w <= (i === j ? maxLoop : maxMult); w++) {
-      A[i][j] = A[j][i] = w;
-      visit(c + 1);
-    }
-    A[i][j] = A[j][i] = 0;
-  };
-  visit(0);
-  return [...classes.values()].filter((m) => m.length > 0);
-}
-
-/** det by fraction-free (Bareiss) elimination on BigInts, exact. */
-function det(M: bigint[][]): bigint {
-  const a = M.map((r) => [...r]);
-  const n = a.length;
-  let prev = 1n,
-    sign = 1n;
-  for (let k = 0; k < n - 1; k++) {
-    if (a[k][k] === 0n) {
-      const r = a.findIndex((row, i) => i > k && row[k] !== 0n);
-      if (r < 0) return 0n;
-      [a[k], a[r]] = [a[r], a[k]];
-      sign = -sign;
-    }
-    for (let i = k + 1; i < n; i++) for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
-    prev = a[k][k];
-  }
-  return sign * a[n - 1][n - 1];
-}
-
-/** ρ(A) ≤ 2 ⟺ 2I − A is positive semidefinite ⟺ every principal minor ≥ 0; ρ(A) < 2 ⟺ every leading principal minor > 0 (Sylvester). */
-function rhoAtMostTwo(A: number[][], strict: boolean): boolean {
-  const n = A.length;
-  const B = A.map((r, i) => r.map((x, j) => BigInt((i === j ? 2 : 0) - x)));
-  const minor = (idx: number[]) => det(idx.map((i) => idx.map((j) => B[i][j])));
-  if (strict) return [...Array(n).keys()].every((k) => minor([...Array(k + 1).keys()]) > 0n);
-  for (let mask = 1; mask < 1 << n; mask++) if (minor([...Array(n).keys()].filter((i) => mask & (1 << i))) < 0n) return false;
-  return true;
-}
-
-const toGraph = (A: number[][]): Graph => {
-  const edges: Array<{ u: number; v: number; m: number }> = [];
-  for (let u = 0; u < A.length; u++) for (let v = u; v < A.length; v++) if (A[u][v]) edges.push({ u, v, m: A[u][v] });
-  return makeGraph(A.length, edges);
-};
 const keys = (gs: readonly Graph[]) => gs.map((g) => canonicalKeyOf(g)).sort();
 
 describe("graphs with loops and multiple edges", () => {
@@ -123,12 +43,7 @@ describe("graphs with loops and multiple edges", () => {
 
   it("finds exactly the graphs with ρ < 2 and ρ ≤ 2 that the brute force finds (loops ≤ 2, multiplicities ≤ 2, n ≤ 4)", () => {
     for (const op of ["<", "<="] as const) {
-      const ours = generateConnected({
-        maxVertices: 4,
-        setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-        spectral: { op, bound: parseBound("2") },
-        budget: budget(),
-      }).levels;
+      const ours = levelsAgainst2(4, op);
       for (let n = 1; n <= 4; n++) {
         const brute = bruteForce(n, 2, 2, (A) => rhoAtMostTwo(A, op === "<")).map(toGraph);
         expect(keys(ours[n - 1]), `ρ ${op} 2 on ${n} vertices`).toEqual(keys(brute));
@@ -139,12 +54,7 @@ describe("graphs with loops and multiple edges", () => {
   it("ρ < 2 with loops: exactly A_n, D_n, E_6..8 and the path with a loop at one end (T_n), n ≤ 9", () => {
     // Smith's classification extended to symmetric non-negative integer matrices (J. H. Smith 1970; the
     // loop family T_n from memory): connected, ρ < 2 ⟺ A_n, D_n (n ≥ 4), E_6, E_7, E_8, or T_n.
-    const found = generateConnected({
-      maxVertices: 9,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const found = levelsAgainst2(9, "<");
     for (let n = 1; n <= 9; n++) {
       const expected = [path(n), loopPath(n), ...(n >= 4 ? [dynkinD(n)] : []), ...(n >= 6 && n <= 8 ? [dynkinE(n)] : [])];
       expect(keys(found[n - 1]), `n = ${n}`).toEqual(keys(expected));
@@ -152,12 +62,7 @@ describe("graphs with loops and multiple edges", () => {
   });
 
   it("ρ = 2 includes the loop of weight 2, the double edge, and the path with loops at both ends", () => {
-    const le = generateConnected({
-      maxVertices: 6,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<=", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const le = levelsAgainst2(6, "<=");
     const has = (g: Graph) => le[g.n - 1].some((h) => canonicalKeyOf(h) === canonicalKeyOf(g));
     expect(has(makeGraph(1, [{ u: 0, v: 0, m: 2 }]))).toBe(true);
     expect(has(makeGraph(2, [{ u: 0, v: 1, m: 2 }]))).toBe(true);

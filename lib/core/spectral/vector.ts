@@ -22,7 +22,7 @@ import { adjacency, Graph, GraphError, label } from "../graph";
 import { Budget, Verdict, withinBudget } from "../verdict";
 import { Rational, add, div, mul, parseRational, rat, ratToString, sign, ZERO } from "../arithmetic/rational";
 import { Bound, compareToBound, parseBound } from "../arithmetic/bound";
-import type { Relation } from "./inertia";
+import type { Relation } from "./radius-certificate";
 
 const SYMBOL: Record<Relation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
 
