@@ -9,6 +9,7 @@ import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/
 import { NumberFormatError } from "../core/arithmetic/rational";
 import { parseGraph } from "../core/input/parse";
 import { dynkinDiagram } from "../core/input/constructors";
+import { isMultilacedType, multilacedBondGraph } from "../core/spectral/dynkin-multilaced";
 import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
@@ -69,12 +70,16 @@ export function claimPicture(claim: Claim, evidence: unknown): ClaimPicture {
     claim.patterns.slice(0, 4).forEach((p, i) => add(read(p), `H${i + 1} (excluded pattern)`));
   } else if (claim.kind === "coverage") {
     const uncovered = (evidence as { uncovered?: unknown } | null)?.uncovered;
+    // Named on the card in the certificate's own text: sparse6 (leading ':') with loops and multiple edges, else graph6.
     if (Array.isArray(uncovered))
-      uncovered
-        .slice(0, 4)
-        .forEach((t, i) => add(read({ format: String(t).startsWith(":") ? "sparse6" : "graph6", text: String(t) }), `uncovered graph ${i + 1}`));
+      uncovered.slice(0, 4).forEach((t, i) => {
+        const format = String(t).startsWith(":") ? "sparse6" : "graph6";
+        add(read({ format, text: String(t) }), format === "sparse6" ? `uncovered graph ${i + 1} (sparse6 ${String(t)})` : `uncovered graph ${i + 1}`);
+      });
   } else if (claim.kind === "dynkin-data") {
-    add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
+    if (isMultilacedType(claim.type))
+      add(multilacedBondGraph(claim.type!), `${claim.type}: its bonds as 1, 2 or 3 edges, roots numbered as in Bourbaki (the arrow is not drawn)`);
+    else add(claim.graph ? read(claim.graph) : dynkinDiagram(claim.type!), claim.type ? `G (${claim.type})` : "G");
   } else {
     add(read(claim.graph), "G", embeddingIn(evidence));
   }

@@ -23,6 +23,7 @@ import { TimedBudget } from "../time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
 import { methodWithCertificate } from "../certificates/certificate-kind";
 import { dynkinDiagram } from "../input/constructors";
+import { isMultilacedType } from "../spectral/dynkin-multilaced";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
 export const CHECKER_VERSION = "cairn-check/0.1.0";
@@ -121,7 +122,9 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
     case "coverage":
       return {};
     case "dynkin-data":
-      return { graph: claim.graph ? readClaimGraph(claim.graph, `${path}.graph`) : dynkinDiagram(claim.type!) };
+      // B_n, C_n, F4, G2 have no graph: a double or triple bond with an arrow is checked on the Cartan matrix.
+      if (claim.graph) return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
+      return isMultilacedType(claim.type) ? {} : { graph: dynkinDiagram(claim.type!) };
     default:
       return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
   }
