@@ -1,5 +1,5 @@
 "use client";
-import { FormField } from "@/components/proof/form-field";
+import { FormField, SubmitButton } from "@/components/proof/form-field";
 
 import { useState } from "react";
 import { useRouter } from "next/navigation";
@@ -46,13 +46,12 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
           {failure}
         </p>
       )}
-      <button
-        type="submit"
-        disabled={formState.isSubmitting}
+      <SubmitButton
+        busy={formState.isSubmitting}
+        label="Sign in"
+        busyLabel="Signing in…"
         className="w-full rounded bg-lichen-600 px-4 py-2 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60"
-      >
-        {formState.isSubmitting ? "Signing in…" : "Sign in"}
-      </button>
+      />
     </form>
   );
 }

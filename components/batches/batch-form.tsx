@@ -4,9 +4,14 @@ import useSWR, { useSWRConfig } from "swr";
 import { ApiError, apiFetch, jsonFetcher } from "@/components/proof/api-client";
 import { FormProblem, SubmitRow } from "@/components/proof/form-field";
 import type { StepFileView } from "@/lib/data/files";
+import { Choice } from "@/components/ui/choice";
+import { TextInput } from "@/components/ui/text-input";
 
 const OPS = ["<", "<=", "=", ">=", ">"] as const;
 const SHOWN: Record<(typeof OPS)[number], string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
+
+/** The inline selects of the form's sentence. */
+const inline = "rounded border border-stone-300 bg-white px-1 py-0.5";
 
 type Kind = "spectral-radius-bound" | "contains-one-of" | "contains-none-of" | "identified-as" | "enumeration-exactly";
 const KINDS: Record<Kind, string> = {
@@ -40,10 +45,18 @@ function statementBody(
   setting: string,
   vertices: string,
   limitOp: string,
+  weights: { maxMultiplicity: string; maxLoop: string },
 ) {
   if (kind === "spectral-radius-bound") return { kind, op, bound };
   // Optionally only those with ρ(G) < b (or ≤ b), with the bound field's value.
-  if (kind === "enumeration-exactly") return { kind, setting, vertices: Number(vertices), ...(limitOp ? { op: limitOp, bound } : {}) };
+  if (kind === "enumeration-exactly")
+    return {
+      kind,
+      setting,
+      vertices: Number(vertices),
+      ...(setting === "multigraph" ? { maxMultiplicity: Number(weights.maxMultiplicity), maxLoop: Number(weights.maxLoop) } : {}),
+      ...(limitOp ? { op: limitOp, bound } : {}),
+    };
   if (kind === "identified-as") return { kind, families };
   return {
     kind,
@@ -70,10 +83,13 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
   const [setting, setSetting] = useState("tree");
   const [vertices, setVertices] = useState("10");
   const [limitOp, setLimitOp] = useState("");
+  const [maxMultiplicity, setMaxMultiplicity] = useState("2");
+  const [maxLoop, setMaxLoop] = useState("1");
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | undefined>();
 
+  const boundField = <TextInput value={bound} onValue={setBound} aria-label="bound" className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono" />;
   const chosen = fileId || (lists[0] ? String(lists[0].id) : "");
   const submit = async (e: React.FormEvent) => {
     e.preventDefault();
@@ -83,7 +99,10 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
     try {
       const { batch, queued } = await apiFetch<{ batch: { total: number }; queued: boolean }>(`/api/proofs/${proofId}/steps/${stepId}/batches`, {
         method: "POST",
-        body: { fileId: Number(chosen), ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices, limitOp) },
+        body: {
+          fileId: Number(chosen),
+          ...statementBody(kind, op, bound, patterns, induced, families, setting, vertices, limitOp, { maxMultiplicity, maxLoop }),
+        },
       });
       setMessage(
         `Started over ${batch.total} graphs.${queued ? "" : " The job queue cannot be reached right now: the batch waits and starts when it is back."}`,
@@ -105,50 +124,24 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
       </h3>
       <div className="flex flex-wrap items-center gap-2 text-sm">
         <span>Every graph of</span>
-        <select
+        <Choice
           value={chosen}
           onChange={(e) => setFileId(e.target.value)}
           aria-label="graph list"
-          className="rounded border border-stone-300 bg-white px-1 py-0.5"
-        >
-          {lists.map((f) => (
-            <option key={f.id} value={f.id}>
-              {f.name} ({f.graphCount} graphs)
-            </option>
-          ))}
-        </select>
-        <select
-          value={kind}
-          onChange={(e) => setKind(e.target.value as Kind)}
-          aria-label="statement"
-          className="rounded border border-stone-300 bg-white px-1 py-0.5"
-        >
-          {(Object.keys(KINDS) as Kind[]).map((k) => (
-            <option key={k} value={k}>
-              {KINDS[k]}
-            </option>
-          ))}
-        </select>
+          className={inline}
+          options={lists.map((f) => [String(f.id), `${f.name} (${f.graphCount} graphs)`])}
+        />
+        <Choice value={kind} onChange={(e) => setKind(e.target.value as Kind)} aria-label="statement" className={inline} options={Object.entries(KINDS)} />
         {kind === "spectral-radius-bound" && (
           <>
-            <select
+            <Choice
               value={op}
               onChange={(e) => setOp(e.target.value as (typeof OPS)[number])}
               aria-label="relation"
-              className="rounded border border-stone-300 bg-white px-1 py-0.5"
-            >
-              {OPS.map((o) => (
-                <option key={o} value={o}>
-                  {SHOWN[o]}
-                </option>
-              ))}
-            </select>
-            <input
-              value={bound}
-              onChange={(e) => setBound(e.target.value)}
-              aria-label="bound"
-              className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
+              className={inline}
+              options={OPS.map((o) => [o, SHOWN[o]])}
             />
+            {boundField}
           </>
         )}
       </div>
@@ -169,42 +162,59 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
       {kind === "enumeration-exactly" && (
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <span>the</span>
-          <select
+          <Choice
             value={setting}
             onChange={(e) => setSetting(e.target.value)}
             aria-label="which graphs"
-            className="rounded border border-stone-300 bg-white px-1 py-0.5"
-          >
-            <option value="tree">trees</option>
-            <option value="simple">connected simple graphs</option>
-          </select>
+            className={inline}
+            options={[
+              ["tree", "trees"],
+              ["simple", "connected simple graphs"],
+              ["multigraph", "connected graphs with loops and multiple edges"],
+            ]}
+          />
+          {setting === "multigraph" && (
+            <>
+              {(
+                [
+                  ["of multiplicity ≤", "largest edge multiplicity", maxMultiplicity, setMaxMultiplicity],
+                  ["and loop weight ≤", "largest loop weight", maxLoop, setMaxLoop],
+                ] as const
+              ).map(([words, label, value, set]) => (
+                <label key={label} className="flex items-center gap-2">
+                  {words}
+                  <TextInput
+                    value={value}
+                    onValue={set}
+                    aria-label={label}
+                    inputMode="numeric"
+                    className="w-12 rounded border border-stone-300 px-2 py-0.5 font-mono"
+                  />
+                </label>
+              ))}
+            </>
+          )}
           <span>on</span>
-          <input
+          <TextInput
             value={vertices}
-            onChange={(e) => setVertices(e.target.value)}
+            onValue={setVertices}
             aria-label="vertices"
             inputMode="numeric"
             className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"
           />
           <span>vertices</span>
-          <select
+          <Choice
             value={limitOp}
             onChange={(e) => setLimitOp(e.target.value)}
             aria-label="only those with ρ(G)"
-            className="rounded border border-stone-300 bg-white px-1 py-0.5"
-          >
-            <option value="">(all of them)</option>
-            <option value="<">with ρ(G) &lt;</option>
-            <option value="<=">with ρ(G) ≤</option>
-          </select>
-          {limitOp && (
-            <input
-              value={bound}
-              onChange={(e) => setBound(e.target.value)}
-              aria-label="bound"
-              className="w-40 rounded border border-stone-300 px-2 py-0.5 font-mono"
-            />
-          )}
+            className={inline}
+            options={[
+              ["", "(all of them)"],
+              ["<", "with ρ(G) <"],
+              ["<=", "with ρ(G) ≤"],
+            ]}
+          />
+          {limitOp && boundField}
         </div>
       )}
       {kind === "identified-as" && (

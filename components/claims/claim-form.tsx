@@ -15,9 +15,12 @@ import {
   ENUMERATION_MAX_VERTICES,
   COVERAGE_MAX_VERTICES,
   MULTIGRAPH_MAX_WEIGHT,
+  namesMultilacedType,
 } from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
+import { DynkinFields } from "./dynkin-fields";
+import { claimInputClass } from "./claim-input-class";
 
 const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   "spectral-radius-bound": "spectral radius bound  ρ(G) op b",
@@ -33,7 +36,7 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
   coverage: "coverage  every G, |G| ≤ N, is in some sub-case",
 };
 
-const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 font-mono text-sm";
+const input = claimInputClass;
 
 function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
   return (
@@ -98,6 +101,8 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   const twoGraphs = kind === "subgraph" || kind === "exclusion";
   const enumeration = kind === "enumeration";
   const coverage = kind === "coverage";
+  // B_n, C_n, F4, G2 have a multiple bond and are given by type only: no graph box.
+  const multilaced = kind === "dynkin-data" && namesMultilacedType(watch("family"));
 
   const submit = handleSubmit(async (values) => {
     setMessage(null);
@@ -185,9 +190,9 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           </FormField>
         </>
       )}
-      {!enumeration && !coverage && (
+      {!enumeration && !coverage && !multilaced && (
         <FormField
-          label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional)" : "Graph G"}
+          label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional; A, D, E only)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
           error={err("graphText")}
         >
@@ -239,20 +244,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           <input {...register("family")} className={input} />
         </FormField>
       )}
-      {kind === "dynkin-data" && (
-        <>
-          <FormField label="Type" hint="A_n, D_n, E6, E7 or E8; leave the graph empty to use the named diagram" error={err("family")}>
-            <input {...register("family")} className={input} aria-label="Dynkin type" />
-          </FormField>
-          <FormField
-            label="Stated data, one per line"
-            hint="h = 30 · rho = 2cos(pi/30) · exponents = 1, 7, … · marks = … · f = 1 · |W| = 696729600 · W(q) = … (highest power first) · [2]_q = 2cos(pi/30) · [k]_q > 0"
-            error={err("dynkinData")}
-          >
-            <textarea {...register("dynkinData")} rows={4} className={input} aria-label="stated Dynkin data" />
-          </FormField>
-        </>
-      )}
+      {kind === "dynkin-data" && <DynkinFields register={register} err={err} />}
       {kind === "characteristic-polynomial" && (
         <FormField label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
           <input {...register("coefficients")} className={input} />

@@ -3,7 +3,7 @@ import { CAUTION_DOES_NOT, CAUTION_MEANS, recommendationWords, type DocCase, typ
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { ExportKindBadge } from "./export-kind-badge";
-import { TableScroll } from "@/components/ui/table-scroll";
+import { ScrollTable } from "@/components/ui/table-scroll";
 import { ClaimInputs } from "@/components/claims/claim-inputs";
 import { stepLabel } from "@/lib/proof-tree";
 
@@ -167,38 +167,26 @@ export function PrintDocument({ doc }: { doc: ExportDocument }) {
           Members: {doc.members.map((m) => `${m.name} (${m.role})`).join(", ")}. Each step needs {doc.requiredApprovals} approval
           {doc.requiredApprovals > 1 ? "s" : ""} at its latest revision.
         </p>
-        <TableScroll label="Approvals">
-          <table className="mt-3 w-full text-left text-sm">
-            <thead>
-              <tr>
-                <th>Step</th>
-                <th>Reviewer</th>
-                <th>Vouched for revision</th>
-                <th>Date</th>
-              </tr>
-            </thead>
-            <tbody>
-              {vouches.length === 0 && (
-                <tr>
-                  <td colSpan={4}>
-                    <em>No vouches recorded.</em>
-                  </td>
-                </tr>
-              )}
-              {vouches.map((a) => (
-                <tr key={`${a.step}-${a.reviewer}-${a.revision}`}>
-                  <td className="font-mono">{a.step}</td>
-                  <td>{a.reviewer}</td>
-                  <td>
-                    {a.revision}
-                    {a.stale ? " (superseded)" : ""}
-                  </td>
-                  <td>{when(a.at)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableScroll>
+        <ScrollTable label="Approvals" headers={["Step", "Reviewer", "Vouched for revision", "Date"]} className="mt-3 w-full text-left text-sm">
+          {vouches.length === 0 && (
+            <tr>
+              <td colSpan={4}>
+                <em>No vouches recorded.</em>
+              </td>
+            </tr>
+          )}
+          {vouches.map((a) => (
+            <tr key={`${a.step}-${a.reviewer}-${a.revision}`}>
+              <td className="font-mono">{a.step}</td>
+              <td>{a.reviewer}</td>
+              <td>
+                {a.revision}
+                {a.stale ? " (superseded)" : ""}
+              </td>
+              <td>{when(a.at)}</td>
+            </tr>
+          ))}
+        </ScrollTable>
       </section>
     </article>
   );

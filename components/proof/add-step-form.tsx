@@ -21,14 +21,7 @@ export function AddStepForm({ proofId, caseId }: { proofId: number; caseId: numb
   });
   return (
     <form onSubmit={submit} className="mt-2 space-y-2 rounded border border-stone-200 bg-stone-50 p-3" data-testid="add-step">
-      <MathField
-        control={control}
-        name="body"
-        label="First draft of the step"
-        hint="Markdown with $…$ math"
-        error={formState.errors.body?.message}
-        height={200}
-      />
+      <MathField control={control} name="body" label="First draft of the step" hint="Markdown with $…$ math" height={200} />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
         Add step and open it

@@ -6,6 +6,7 @@ import { AddCaseForm } from "./add-case-form";
 import { AddStepForm } from "./add-step-form";
 import { EditCaseForm } from "./edit-case-form";
 import { useMoveTargets } from "./case-targets";
+import { Choice } from "@/components/ui/choice";
 
 type Pending = { what: "delete" } | { what: "move"; parentId: number | null };
 
@@ -88,38 +89,30 @@ export function CaseActions({
             <button type="button" className={item} onClick={choose(() => setOpen(open === "edit" ? null : "edit"))}>
               Edit title and condition
             </button>
-            <button
-              type="button"
-              className={item}
-              disabled={first}
-              onClick={choose(() => run({ what: "reorder", move: "up" }))}
-              aria-label={`move case ${number} up`}
-            >
-              ↑ Move up
-            </button>
-            <button
-              type="button"
-              className={item}
-              disabled={last}
-              onClick={choose(() => run({ what: "reorder", move: "down" }))}
-              aria-label={`move case ${number} down`}
-            >
-              ↓ Move down
-            </button>
-            <select
+            {(
+              [
+                ["up", "↑ Move up", first],
+                ["down", "↓ Move down", last],
+              ] as const
+            ).map(([move, words, disabled]) => (
+              <button
+                key={move}
+                type="button"
+                className={item}
+                disabled={disabled}
+                onClick={choose(() => run({ what: "reorder", move }))}
+                aria-label={`move case ${number} ${move}`}
+              >
+                {words}
+              </button>
+            ))}
+            <Choice
               className="rounded border border-stone-300 bg-white px-1 py-0.5"
               aria-label={`move case ${number} under`}
               value=""
               onChange={(e) => choose(() => run({ what: "move", parentId: e.target.value === "top" ? null : Number(e.target.value) }))()}
-            >
-              <option value="">Move under…</option>
-              <option value="top">top level</option>
-              {targets.map((t) => (
-                <option key={t.id} value={t.id}>
-                  → {t.number}
-                </option>
-              ))}
-            </select>
+              options={[["", "Move under…"], ["top", "top level"], ...targets.map((t) => [String(t.id), `→ ${t.number}`] as const)]}
+            />
             <button type="button" className={`${item} text-refuted`} onClick={choose(() => run({ what: "delete" }))}>
               Delete case…
             </button>

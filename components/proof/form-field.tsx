@@ -14,13 +14,30 @@ export function FormField({ label, hint, error, children }: { label: string; hin
   );
 }
 
+/** A form's submit button: disabled, and saying `busyLabel`, while the form is being sent. */
+export function SubmitButton({
+  label,
+  busyLabel,
+  busy,
+  className = "rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60",
+}: {
+  label: string;
+  busyLabel: string;
+  busy: boolean;
+  className?: string;
+}) {
+  return (
+    <button type="submit" disabled={busy} className={className}>
+      {busy ? busyLabel : label}
+    </button>
+  );
+}
+
 /** A form's submit button (its label while busy) and the answer that came back, read out politely. */
 export function SubmitRow({ label, busyLabel, busy, message }: { label: string; busyLabel: string; busy: boolean; message: string | null }) {
   return (
     <div className="flex items-center gap-3">
-      <button type="submit" disabled={busy} className="rounded bg-lichen-700 px-3 py-1 text-white hover:bg-lichen-800 disabled:opacity-60">
-        {busy ? busyLabel : label}
-      </button>
+      <SubmitButton label={label} busyLabel={busyLabel} busy={busy} />
       {message && (
         <p className="text-sm" aria-live="polite">
           {message}

@@ -26,14 +26,7 @@ export function ProofFields({ form, height, inputClass }: { form: UseFormReturn<
       <FormField label="Title" error={formState.errors.title?.message}>
         <input {...register("title")} className={inputClass} />
       </FormField>
-      <MathField
-        control={control}
-        name="statement"
-        label="Statement"
-        hint="Markdown with $…$ and $$…$$ math"
-        error={formState.errors.statement?.message}
-        height={height}
-      />
+      <MathField control={control} name="statement" label="Statement" hint="Markdown with $…$ and $$…$$ math" height={height} />
       <FormProblem message={formState.errors.root?.message} />
     </>
   );

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
 import { send } from "@/components/proof/api-client";
+import { TextInput } from "@/components/ui/text-input";
 
 export function AcceptInvitation({ token, email, signedIn, roleWord = "reviewer" }: { token: string; email: string; signedIn: boolean; roleWord?: string }) {
   const router = useRouter();
@@ -41,19 +42,14 @@ export function AcceptInvitation({ token, email, signedIn, roleWord = "reviewer"
         <>
           <label className="block">
             <span className="text-sm font-semibold">Your name</span>
-            <input
-              value={name}
-              onChange={(e) => setName(e.target.value)}
-              autoComplete="name"
-              className="mt-1 block w-full rounded border border-stone-300 px-3 py-2"
-            />
+            <TextInput value={name} onValue={setName} autoComplete="name" className="mt-1 block w-full rounded border border-stone-300 px-3 py-2" />
           </label>
           <label className="block">
             <span className="text-sm font-semibold">Choose a password (at least 10 characters)</span>
-            <input
+            <TextInput
               type="password"
               value={password}
-              onChange={(e) => setPassword(e.target.value)}
+              onValue={setPassword}
               autoComplete="new-password"
               className="mt-1 block w-full rounded border border-stone-300 px-3 py-2 font-mono"
             />

@@ -1,7 +1,7 @@
 /** The proof's invitations, with whether each mail has gone out ("not sent yet" while it is retried). */
 import type { InvitationView } from "@/lib/data/invitations";
 import { ActionButton } from "./action-button";
-import { TableScroll } from "@/components/ui/table-scroll";
+import { ScrollTable } from "@/components/ui/table-scroll";
 
 const mailText = (m: InvitationView["mail"]) =>
   m.status === "sent"
@@ -15,35 +15,28 @@ const STATE_TEXT: Record<InvitationView["state"], string> = { accepted: "✓ acc
 export function InvitationList({ proofId, invitations }: { proofId: number; invitations: InvitationView[] }) {
   if (invitations.length === 0) return <p className="text-sm italic text-stone-500">No invitations yet.</p>;
   return (
-    <TableScroll label="Invitations">
-      <table className="w-full text-sm" data-testid="invitations">
-        <thead>
-          <tr className="border-b border-stone-300 text-left">
-            <th className="px-2 py-1">E-mail</th>
-            <th className="px-2 py-1">Scope</th>
-            <th className="px-2 py-1">Invitation</th>
-            <th className="px-2 py-1">Mail</th>
-          </tr>
-        </thead>
-        <tbody>
-          {invitations.map((i) => (
-            <tr key={i.id} className="border-b border-stone-100" data-testid="invitation" data-mail-status={i.mail.status}>
-              <td className="px-2 py-1 font-mono">{i.email}</td>
-              <td className="px-2 py-1">{i.scope}</td>
-              <td className="px-2 py-1">
-                {STATE_TEXT[i.state]}{" "}
-                {i.state === "waiting" && <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} method="DELETE" label="Revoke" />}
-              </td>
-              <td className="px-2 py-1">
-                <span title={i.mail.lastError ?? undefined}>{mailText(i.mail)}</span>{" "}
-                {i.mail.status !== "sent" && i.mail.id !== null && i.state !== "revoked" && (
-                  <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} label="Try again now" />
-                )}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </TableScroll>
+    <ScrollTable
+      label="Invitations"
+      headers={["E-mail", "Scope", "Invitation", "Mail"]}
+      testId="invitations"
+      headerClassName="border-b border-stone-300 text-left"
+      cellClassName="px-2 py-1"
+    >
+      {invitations.map((i) => (
+        <tr key={i.id} className="border-b border-stone-100" data-testid="invitation" data-mail-status={i.mail.status}>
+          <td className="px-2 py-1 font-mono">{i.email}</td>
+          <td className="px-2 py-1">{i.scope}</td>
+          <td className="px-2 py-1">
+            {STATE_TEXT[i.state]} {i.state === "waiting" && <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} method="DELETE" label="Revoke" />}
+          </td>
+          <td className="px-2 py-1">
+            <span title={i.mail.lastError ?? undefined}>{mailText(i.mail)}</span>{" "}
+            {i.mail.status !== "sent" && i.mail.id !== null && i.state !== "revoked" && (
+              <ActionButton url={`/api/proofs/${proofId}/invitations/${i.id}`} label="Try again now" />
+            )}
+          </td>
+        </tr>
+      ))}
+    </ScrollTable>
   );
 }

@@ -10,6 +10,7 @@ import { invitationSchema, type InvitationInput } from "@/lib/validations/invita
 type InviteFields = z.input<typeof invitationSchema>;
 import { send } from "@/components/proof/api-client";
 import type { ProofRole } from "@/lib/access/rules";
+import { SubmitButton } from "@/components/proof/form-field";
 
 const ROLE_LABEL: Record<ProofRole, string> = { reviewer: "a reviewer", author: "a co-author", editor: "an editor" };
 
@@ -78,13 +79,12 @@ export function InviteForm({ proofId, cases, roles }: { proofId: number; cases: 
           {formState.errors.caseIds && <span className="block text-refuted">{formState.errors.caseIds.message}</span>}
         </fieldset>
       )}
-      <button
-        type="submit"
-        disabled={formState.isSubmitting}
+      <SubmitButton
+        busy={formState.isSubmitting}
+        label="Send invitation"
+        busyLabel="Sending…"
         className="rounded bg-lichen-600 px-4 py-1.5 font-semibold text-white hover:bg-lichen-700 disabled:opacity-60"
-      >
-        {formState.isSubmitting ? "Sending…" : "Send invitation"}
-      </button>
+      />
       {result && (
         <p role={result.ok ? "status" : "alert"} className={`text-sm ${result.ok ? "text-verified" : "text-refuted"}`} data-testid="invite-result">
           {result.text}

@@ -6,6 +6,8 @@ import Link from "next/link";
 import { getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
 import type { QueueDisputeRow, QueueStepRow, ReviewerProgress } from "@/lib/data/review-queues";
 import { DisputeStateBadge } from "./badges";
+import { TextInput } from "@/components/ui/text-input";
+import { Choice } from "@/components/ui/choice";
 
 type Kind = "steps" | "disputes" | "progress" | "myDisputes";
 const TABLE_LABEL: Record<Kind, string> = { steps: "Steps to review", disputes: "Disputes", progress: "Reviewers’ progress", myDisputes: "Your disputes" };
@@ -95,24 +97,16 @@ export function QueueTable({ kind, rows, empty, testId }: { kind: Kind; rows: Ro
     <div className="space-y-2" data-testid={testId}>
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <label>
-          Filter{" "}
-          <input
-            value={globalFilter}
-            onChange={(e) => setGlobalFilter(e.target.value)}
-            className="rounded border border-stone-300 px-2 py-1"
-            placeholder="any text"
-          />
+          Filter <TextInput value={globalFilter} onValue={setGlobalFilter} className="rounded border border-stone-300 px-2 py-1" placeholder="any text" />
         </label>
         <label>
           {String(facetColumn?.columnDef.header)}{" "}
-          <select value={facetValue} onChange={(e) => setFacetValue(e.target.value)} className="rounded border border-stone-300 px-2 py-1">
-            <option value="">all</option>
-            {options.map((o) => (
-              <option key={o} value={o}>
-                {o}
-              </option>
-            ))}
-          </select>
+          <Choice
+            value={facetValue}
+            onChange={(e) => setFacetValue(e.target.value)}
+            className="rounded border border-stone-300 px-2 py-1"
+            options={[["", "all"], ...options.map((o) => [o, o] as const)]}
+          />
         </label>
       </div>
       <SortableTable table={table} label={TABLE_LABEL[kind]} rowTestId="queue-row" />

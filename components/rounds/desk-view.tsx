@@ -1,17 +1,30 @@
 /** The sections of the editor's desk. */
 import Link from "next/link";
-import { TableScroll } from "@/components/ui/table-scroll";
+import type { ReactNode } from "react";
+import { ScrollTable } from "@/components/ui/table-scroll";
 import type { Desk } from "@/lib/data/desk";
 import { RecommendationMark, ReportBlock } from "./round-card";
 
 const day = (iso: string) => iso.slice(0, 10);
 
+/** One section of the desk: a heading, then `empty` (in grey) when given, else the content. */
+function DeskSection({ testId, title, empty, children }: { testId: string; title: ReactNode; empty?: string | false; children?: ReactNode }) {
+  return (
+    <section className="space-y-2" data-testid={testId}>
+      <h2 className="text-xl font-semibold">{title}</h2>
+      {empty ? <p className="text-stone-600">{empty}</p> : children}
+    </section>
+  );
+}
+
 export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
   return (
     <>
-      <section className="space-y-2" data-testid="desk-progress">
-        <h2 className="text-xl font-semibold">Referees {desk.current ? `in round ${desk.current.number} (${desk.current.state})` : ""}</h2>
-        {!desk.current && <p className="text-stone-600">No round yet: open round 1 on the rounds page.</p>}
+      <DeskSection
+        testId="desk-progress"
+        title={`Referees ${desk.current ? `in round ${desk.current.number} (${desk.current.state})` : ""}`}
+        empty={!desk.current && "No round yet: open round 1 on the rounds page."}
+      >
         {desk.late.length > 0 && (
           <p role="note" className="font-semibold" data-testid="late">
             ⏰ Late: {desk.late.map((r) => `${r.referee} (${r.standing.daysLate} day${r.standing.daysLate === 1 ? "" : "s"})`).join(", ")}
@@ -32,66 +45,43 @@ export function DeskView({ proofId, desk }: { proofId: number; desk: Desk }) {
             ))}
           </ul>
         )}
-      </section>
-      <section className="space-y-2" data-testid="desk-disputes">
-        <h2 className="text-xl font-semibold">Open disputes ({desk.disputes.length})</h2>
-        {desk.disputes.length === 0 ? (
-          <p className="text-stone-600">None open.</p>
-        ) : (
-          <TableScroll label="Open disputes">
-            <table className="w-full text-sm">
-              <thead>
-                <tr className="text-left">
-                  <th>Step</th>
-                  <th>Raised by</th>
-                  <th>State</th>
-                  <th>Age</th>
-                </tr>
-              </thead>
-              <tbody>
-                {desk.disputes.map((d) => (
-                  <tr key={d.disputeId}>
-                    <td>
-                      <Link className="text-lichen-700 underline" href={`/proofs/${proofId}/steps/${d.stepId}`}>
-                        {d.stepLabel}
-                      </Link>
-                    </td>
-                    <td>{d.reviewerName}</td>
-                    <td className="[font-variant:small-caps]">{d.state}</td>
-                    <td>
-                      {d.ageDays} day{d.ageDays === 1 ? "" : "s"} (since {day(d.since)})
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </TableScroll>
-        )}
-      </section>
-      <section className="space-y-2" data-testid="desk-reports">
-        <h2 className="text-xl font-semibold">Reports received ({desk.reports.length})</h2>
+      </DeskSection>
+      <DeskSection testId="desk-disputes" title={`Open disputes (${desk.disputes.length})`} empty={desk.disputes.length === 0 && "None open."}>
+        <ScrollTable label="Open disputes" headers={["Step", "Raised by", "State", "Age"]}>
+          {desk.disputes.map((d) => (
+            <tr key={d.disputeId}>
+              <td>
+                <Link className="text-lichen-700 underline" href={`/proofs/${proofId}/steps/${d.stepId}`}>
+                  {d.stepLabel}
+                </Link>
+              </td>
+              <td>{d.reviewerName}</td>
+              <td className="[font-variant:small-caps]">{d.state}</td>
+              <td>
+                {d.ageDays} day{d.ageDays === 1 ? "" : "s"} (since {day(d.since)})
+              </td>
+            </tr>
+          ))}
+        </ScrollTable>
+      </DeskSection>
+      <DeskSection testId="desk-reports" title={`Reports received (${desk.reports.length})`}>
         {desk.reports.map((r) => (
           <div key={r.id}>
             <p className="text-xs text-stone-500">Round {r.round}</p>
             <ReportBlock report={r} />
           </div>
         ))}
-      </section>
-      <section className="space-y-2" data-testid="desk-decisions">
-        <h2 className="text-xl font-semibold">Decisions</h2>
-        {desk.decisions.length === 0 ? (
-          <p className="text-stone-600">None yet.</p>
-        ) : (
-          <ol className="space-y-1 text-sm">
-            {desk.decisions.map((d) => (
-              <li key={d.round}>
-                Round {d.round}: <RecommendationMark value={d.decision} /> — {d.editor}, {day(d.decidedAt)}
-                {d.reportsAttached ? ", reports attached" : ", reports not attached"}
-              </li>
-            ))}
-          </ol>
-        )}
-      </section>
+      </DeskSection>
+      <DeskSection testId="desk-decisions" title="Decisions" empty={desk.decisions.length === 0 && "None yet."}>
+        <ol className="space-y-1 text-sm">
+          {desk.decisions.map((d) => (
+            <li key={d.round}>
+              Round {d.round}: <RecommendationMark value={d.decision} /> — {d.editor}, {day(d.decidedAt)}
+              {d.reportsAttached ? ", reports attached" : ", reports not attached"}
+            </li>
+          ))}
+        </ol>
+      </DeskSection>
     </>
   );
 }

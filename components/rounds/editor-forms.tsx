@@ -1,39 +1,63 @@
 "use client";
 /** The editor's forms on the rounds page: open a round, record a decision, blind review and reminders. */
-import { useState, type ReactNode } from "react";
+import { useState, type FormHTMLAttributes, type ReactNode } from "react";
 import { useRouter } from "next/navigation";
 import { send } from "@/components/proof/api-client";
 import { RecommendationSelect, TextField } from "./round-fields";
 
-function useSubmit() {
+/** A form that sends `body()` to `url` when submitted, refreshes the page when saved, and says how it went after its fields. */
+function SendForm({
+  url,
+  method,
+  body,
+  done,
+  children,
+  ...form
+}: { url: string; method: string; body: () => unknown; done: string; children: ReactNode } & Omit<FormHTMLAttributes<HTMLFormElement>, "onSubmit">) {
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
-  const submit = async (url: string, method: string, body: unknown, done: string) => {
-    const res = await send(url, method, body);
+  const submit = async () => {
+    const res = await send(url, method, body());
     setMessage(res.ok ? { ok: true, text: done } : { ok: false, text: res.error ?? "Not saved." });
     if (res.ok) router.refresh();
   };
-  const shown: ReactNode = message && (
-    <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
-      {message.text}
-    </p>
+  return (
+    <form
+      {...form}
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit();
+      }}
+    >
+      {children}
+      {message && (
+        <p role={message.ok ? "status" : "alert"} className={`text-sm ${message.ok ? "text-verified" : "text-refuted"}`}>
+          {message.text}
+        </p>
+      )}
+    </form>
   );
-  return { submit, shown };
+}
+
+/** A number of days (0–60) inside a sentence. */
+function DaysField({ value, onChange }: { value: string; onChange: (v: string) => void }) {
+  return (
+    <input type="number" min={0} max={60} value={value} onChange={(e) => onChange(e.target.value)} className="w-14 rounded border border-stone-300 px-1" />
+  );
 }
 
 const button = "rounded border border-stone-300 bg-white px-3 py-1 text-sm hover:bg-stone-50";
 
 export function OpenRoundForm({ proofId, next }: { proofId: number; next: number }) {
-  const { submit, shown } = useSubmit();
   const [dueAt, setDueAt] = useState("");
   return (
-    <form
+    <SendForm
       data-testid="open-round"
       className="flex flex-wrap items-end gap-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void submit(`/api/proofs/${proofId}/rounds`, "POST", { dueAt }, `Round ${next} opened.`);
-      }}
+      url={`/api/proofs/${proofId}/rounds`}
+      method="POST"
+      body={() => ({ dueAt })}
+      done={`Round ${next} opened.`}
     >
       <label className="text-sm">
         <span className="block font-semibold">Reports for round {next} due on</span>
@@ -42,29 +66,22 @@ export function OpenRoundForm({ proofId, next }: { proofId: number; next: number
       <button type="submit" className={button}>
         Open round {next}
       </button>
-      {shown}
-    </form>
+    </SendForm>
   );
 }
 
 export function DecisionForm({ proofId, round }: { proofId: number; round: number }) {
-  const { submit, shown } = useSubmit();
   const [decision, setDecision] = useState("");
   const [letter, setLetter] = useState("");
   const [attachReports, setAttach] = useState(true);
   return (
-    <form
+    <SendForm
       data-testid="decision-form"
       className="space-y-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void submit(
-          `/api/proofs/${proofId}/rounds/${round}/decision`,
-          "POST",
-          { decision, letter, attachReports },
-          "Decision recorded; the authors were mailed.",
-        );
-      }}
+      url={`/api/proofs/${proofId}/rounds/${round}/decision`}
+      method="POST"
+      body={() => ({ decision, letter, attachReports })}
+      done="Decision recorded; the authors were mailed."
     >
       <RecommendationSelect name="decision" label="Decision" value={decision} onChange={setDecision} />
       <TextField
@@ -85,75 +102,48 @@ export function DecisionForm({ proofId, round }: { proofId: number; round: numbe
       <button type="submit" className={button}>
         Record the decision and mail the authors
       </button>
-      {shown}
-    </form>
+    </SendForm>
   );
 }
 
 export function ReviewPolicyForm({ proofId, blind, before, after }: { proofId: number; blind: boolean; before: number; after: number }) {
-  const { submit, shown } = useSubmit();
   const [b, setB] = useState(blind);
   const [days, setDays] = useState({ before: String(before), after: String(after) });
   return (
-    <form
+    <SendForm
       data-testid="review-policy"
       className="flex flex-wrap items-end gap-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void submit(
-          `/api/proofs/${proofId}/review-policy`,
-          "PATCH",
-          { blind: b, remindBeforeDays: Number(days.before), remindAfterDays: Number(days.after) },
-          "Saved.",
-        );
-      }}
+      url={`/api/proofs/${proofId}/review-policy`}
+      method="PATCH"
+      body={() => ({ blind: b, remindBeforeDays: Number(days.before), remindAfterDays: Number(days.after) })}
+      done="Saved."
     >
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="blind" checked={b} onChange={(e) => setB(e.target.checked)} />
         Blind review: authors see referees as “Referee 1, 2, …”
       </label>
       <label className="text-sm">
-        Remind{" "}
-        <input
-          type="number"
-          min={0}
-          max={60}
-          value={days.before}
-          onChange={(e) => setDays({ ...days, before: e.target.value })}
-          className="w-14 rounded border border-stone-300 px-1"
-        />{" "}
-        days before
+        Remind <DaysField value={days.before} onChange={(before) => setDays({ ...days, before })} /> days before
       </label>
       <label className="text-sm">
-        and{" "}
-        <input
-          type="number"
-          min={0}
-          max={60}
-          value={days.after}
-          onChange={(e) => setDays({ ...days, after: e.target.value })}
-          className="w-14 rounded border border-stone-300 px-1"
-        />{" "}
-        days after a due date
+        and <DaysField value={days.after} onChange={(after) => setDays({ ...days, after })} /> days after a due date
       </label>
       <button type="submit" className={button}>
         Save
       </button>
-      {shown}
-    </form>
+    </SendForm>
   );
 }
 
 export function RefereeDueForm({ proofId, round, refereeId, current }: { proofId: number; round: number; refereeId: number; current: string }) {
-  const { submit, shown } = useSubmit();
   const [dueAt, setDueAt] = useState(current.slice(0, 10));
   return (
-    <form
+    <SendForm
       className="inline-flex items-center gap-1"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void submit(`/api/proofs/${proofId}/rounds/${round}/referees/${refereeId}`, "PATCH", { dueAt }, "Moved.");
-      }}
+      url={`/api/proofs/${proofId}/rounds/${round}/referees/${refereeId}`}
+      method="PATCH"
+      body={() => ({ dueAt })}
+      done="Moved."
     >
       <input
         type="date"
@@ -165,7 +155,6 @@ export function RefereeDueForm({ proofId, round, refereeId, current }: { proofId
       <button type="submit" className="rounded border border-stone-300 bg-white px-2 py-0.5 text-xs hover:bg-stone-50">
         Move
       </button>
-      {shown}
-    </form>
+    </SendForm>
   );
 }

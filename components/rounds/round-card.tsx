@@ -1,6 +1,6 @@
 /** One review round as its viewer may see it: due date, decision and letter, the readable reports, the editor's referee table. */
 import type { ReactNode } from "react";
-import { TableScroll } from "@/components/ui/table-scroll";
+import { ScrollTable } from "@/components/ui/table-scroll";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { recommendationLabel } from "@/lib/review/rounds";
 import type { ReportView, RoundView } from "@/lib/data/rounds";
@@ -64,41 +64,28 @@ export function RoundCard({ proofId, round, children }: { proofId: number; round
         </div>
       )}
       {round.referees && round.referees.length > 0 && (
-        <TableScroll label="Referees">
-          <table className="w-full text-sm" data-testid="referees">
-            <thead>
-              <tr className="text-left">
-                <th>Referee</th>
-                <th>Due</th>
-                <th>Progress</th>
-                <th>Recommendation</th>
-              </tr>
-            </thead>
-            <tbody>
-              {round.referees.map((r) => (
-                <tr key={r.refereeId} data-late={r.standing.late}>
-                  <td>{r.referee}</td>
-                  <td>
-                    {day(r.dueAt)}{" "}
-                    {round.state === "open" && <RefereeDueForm proofId={proofId} round={round.number} refereeId={r.refereeId} current={r.dueAt} />}
-                  </td>
-                  <td>
-                    {r.standing.late ? (
-                      <strong>
-                        ⏰ late by {r.standing.daysLate} day{r.standing.daysLate === 1 ? "" : "s"}
-                      </strong>
-                    ) : (
-                      r.standing.progress
-                    )}
-                  </td>
-                  <td>
-                    <RecommendationMark value={r.recommendation} />
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableScroll>
+        <ScrollTable label="Referees" headers={["Referee", "Due", "Progress", "Recommendation"]} testId="referees">
+          {round.referees.map((r) => (
+            <tr key={r.refereeId} data-late={r.standing.late}>
+              <td>{r.referee}</td>
+              <td>
+                {day(r.dueAt)} {round.state === "open" && <RefereeDueForm proofId={proofId} round={round.number} refereeId={r.refereeId} current={r.dueAt} />}
+              </td>
+              <td>
+                {r.standing.late ? (
+                  <strong>
+                    ⏰ late by {r.standing.daysLate} day{r.standing.daysLate === 1 ? "" : "s"}
+                  </strong>
+                ) : (
+                  r.standing.progress
+                )}
+              </td>
+              <td>
+                <RecommendationMark value={r.recommendation} />
+              </td>
+            </tr>
+          ))}
+        </ScrollTable>
       )}
       {round.reports.map((r) => (
         <ReportBlock key={r.id} report={r} />

@@ -2,6 +2,7 @@
 /** Fields shared by the referee's report form and the editor's decision form. */
 import type { ReactNode } from "react";
 import { RECOMMENDATIONS, recommendationLabel } from "@/lib/review/rounds";
+import { Choice } from "@/components/ui/choice";
 
 /** A labelled Markdown text area bound to a string state. */
 export function TextField({
@@ -38,14 +39,13 @@ export function RecommendationSelect({ name, label, value, onChange }: { name: s
   return (
     <label className="block text-sm">
       <span className="font-semibold">{label}</span>
-      <select name={name} value={value} onChange={(e) => onChange(e.target.value)} className="ml-2 rounded border border-stone-300 px-2 py-1">
-        <option value="">— choose —</option>
-        {RECOMMENDATIONS.map((r) => (
-          <option key={r} value={r}>
-            {recommendationLabel[r]}
-          </option>
-        ))}
-      </select>
+      <Choice
+        name={name}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        className="ml-2 rounded border border-stone-300 px-2 py-1"
+        options={[["", "— choose —"], ...RECOMMENDATIONS.map((r) => [r, recommendationLabel[r]] as const)]}
+      />
     </label>
   );
 }

@@ -123,6 +123,29 @@ describe("offline checker", () => {
     expect(bad.exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
+  it("re-checks an exported G2 dynkin-data claim from the file alone and names a forged entry", () => {
+    // G2 (Bourbaki, Plate IX): highest root 3α1 + 2α2, exponents 1, 5, h = 6; |W(G2)| = 12, the dihedral group of order 12
+    // (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+    const claim = { format: "cairn-claim/1", kind: "dynkin-data", type: "G2", marks: [3, 2], exponents: [1, 5], weylGroupOrder: "12" };
+    const fresh = verifyClaim(validateClaim(claim));
+    expect(fresh.verdict.status).toBe("verified");
+    const certificate = fresh.verdict.certificate as { evidence: Record<string, unknown> };
+    const good = checkFile(writeJson("g2-good.json", { format: "cairn-claims/1", claims: [{ ...claim, certificate }] }));
+    expect(good.lines[0]).toMatchObject({ status: "verified", certificate: { matches: true } });
+    expect(good.exitCode).toBe(EXIT_OK);
+    // The Coxeter graph's characteristic polynomial of G2 is x² − 3 (M = [[0, √3], [√3, 0]]); x² − 2 is B2's.
+    expect(certificate.evidence.coxeterGraphCharpoly).toEqual(["1", "0", "-3"]);
+    const forged = { ...certificate, evidence: { ...certificate.evidence, coxeterGraphCharpoly: ["1", "0", "-2"] } };
+    const bad = checkFile(writeJson("g2-bad.json", { ...claim, certificate: forged }));
+    expect(bad.lines[0].certificate?.matches).toBe(false);
+    expect(bad.lines[0].certificate?.text).toMatch(/coxeterGraphCharpoly/);
+    expect(bad.exitCode).toBe(EXIT_NOT_VERIFIED);
+    // A claim with a wrong |W| is refuted by the checker itself (exit 1), naming the value.
+    const wrong = checkFile(writeJson("g2-wrong.json", { ...claim, weylGroupOrder: "24" }));
+    expect(wrong.lines[0].status).toBe("refuted");
+    expect(formatReport(wrong, true)).toMatch(/\|W\(G2\)\| = 12, not 24/);
+  });
+
   it("rejects unknown options with exit 2", () => {
     expect(main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
   });

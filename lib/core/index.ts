@@ -137,6 +137,8 @@ export {
   CHECKER_VERSION,
   verifyClaim,
   recheckClaim,
+  checkedInParts,
+  claimPart,
   claimCanonicalJson,
   claimDigest,
   readClaimGraph,

@@ -115,7 +115,7 @@ export async function createBatch(proofId: number, stepId: number, userId: numbe
         : wanted.kind === "identified-as"
           ? "families"
           : wanted.kind === "enumeration-exactly"
-            ? "vertices"
+            ? (/\b(maxMultiplicity|maxLoop)\b/.exec((e as Error).message)?.[1] ?? "vertices")
             : "patterns";
     if (e instanceof NumberFormatError || e instanceof Error)
       throw invalid(path === "bound" ? "The bound does not read." : `The ${path} do not read.`, [{ path, message: e.message }]);

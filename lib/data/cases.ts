@@ -1,24 +1,13 @@
 import "server-only";
+import { nameOf } from "./rows";
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
 import { refereeLens, type NameLens } from "./blind";
 import type { ProofRole } from "@/lib/access/rules";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
 import { describeCondition, parseCondition } from "@/lib/core/families/case-condition";
-import {
-  caseState,
-  isUnresolved,
-  latestVouches,
-  proofState,
-  stepStatus,
-  type CaseFacts,
-  type CaseState,
-  type ClaimStatus,
-  type DisputeState,
-  type ProofState,
-  type ReviewFact,
-  type StepFacts,
-} from "@/lib/review/states";
+import { caseState, isUnresolved, latestVouches, proofState, stepStatus } from "@/lib/review/states";
+import type { CaseFacts, CaseState, ClaimStatus, DisputeState, ProofState, ReviewFact, StepFacts } from "@/lib/review/states";
 
 export interface StepView {
   id: number;
@@ -88,6 +77,42 @@ export async function stepsOfCases(caseIds: number[]) {
   });
 }
 
+/**
+ * What the pages and the export read about these steps: their revisions (newest first, with the author's name),
+ * claims (in their order; only `claimAttributes` when given) and reviews (oldest first; with the reviewer's name
+ * when `reviewerNames`).
+ */
+export async function stepRecords(stepIds: number[], options: { claimAttributes?: string[]; reviewerNames?: boolean } = {}) {
+  const { StepRevision, User, Claim, Review } = models();
+  const none = stepIds.length === 0;
+  const [revisions, claims, reviews] = await Promise.all([
+    none
+      ? []
+      : StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
+    none
+      ? []
+      : Claim.findAll({
+          where: { stepId: stepIds },
+          ...(options.claimAttributes ? { attributes: options.claimAttributes } : {}),
+          order: [
+            ["position", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
+    none
+      ? []
+      : Review.findAll({
+          where: { stepId: stepIds },
+          ...(options.reviewerNames ? { include: [{ model: User, as: "reviewer", attributes: ["name"] }] } : {}),
+          order: [
+            ["createdAt", "ASC"],
+            ["id", "ASC"],
+          ],
+        }),
+  ]);
+  return { revisions, claims, reviews };
+}
+
 /** Every case of the proof, deleted ones included, in order; `lock` takes them FOR UPDATE inside the transaction. */
 export async function allCases(proofId: number, transaction?: Transaction, lock = false) {
   const { Case } = models();
@@ -152,32 +177,13 @@ function groupBy<T>(rows: readonly T[], key: (row: T) => number): Map<number, T[
 
 /** `lens` null: no names are read (the tree is wanted for its numbers, not its review). */
 async function loadTree(proofId: number, lens: NameLens | null = null): Promise<{ tree: CaseNode<CaseView>[]; facts: CaseFacts[]; required: number }> {
-  const { StepRevision, User, Claim, Review, Proof } = models();
+  const { User, Proof } = models();
   const cases = await liveCases(proofId);
   const proof = await Proof.findByPk(proofId, { attributes: ["requiredApprovals"] });
   const required = proof?.requiredApprovals ?? 1;
   const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
-  const [revisions, claims, reviews] = stepIds.length
-    ? await Promise.all([
-        StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
-        Claim.findAll({
-          where: { stepId: stepIds },
-          attributes: ["id", "stepId", "status", "statement", "kind"],
-          order: [
-            ["position", "ASC"],
-            ["id", "ASC"],
-          ],
-        }),
-        Review.findAll({
-          where: { stepId: stepIds },
-          order: [
-            ["createdAt", "ASC"],
-            ["id", "ASC"],
-          ],
-        }),
-      ])
-    : [[], [], []];
+  const { revisions, claims, reviews } = await stepRecords(stepIds, { claimAttributes: ["id", "stepId", "status", "statement", "kind"] });
   const reviewerIds = [...new Set(reviews.map((r) => r.reviewerId))];
   const names = new Map(
     lens && reviewerIds.length
@@ -243,7 +249,7 @@ async function loadTree(proofId: number, lens: NameLens | null = null): Promise<
                 id: r.id,
                 number: r.number,
                 body: r.body,
-                authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "",
+                authorName: nameOf(r, "author"),
                 createdAt: r.createdAt.toISOString(),
               }
             : null,

@@ -1,4 +1,5 @@
 import "server-only";
+import { storedJson } from "@/lib/stored-json";
 import { Op } from "sequelize";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
@@ -73,14 +74,7 @@ function certificateSummary(text: string, claimKind: string): ClaimView["certifi
   return { summary, bytes: text.length, preview: text.length > 1_500 ? `${text.slice(0, 1_500)}…` : text };
 }
 
-function certificateJson(text: string | null): unknown {
-  if (text === null) return null;
-  try {
-    return JSON.parse(text);
-  } catch {
-    return null;
-  }
-}
+const certificateJson = (text: string | null) => storedJson(text);
 
 function claimView(c: ClaimRow, progress: JobProgress | null = null): ClaimView {
   const checker = (c as unknown as { checker?: { name: string } | null }).checker;

@@ -1,4 +1,5 @@
 import "server-only";
+import { nameOf, pick } from "./rows";
 import { exportedBatches } from "./batches";
 import { textAuthors } from "@/lib/review/revisions";
 import { claimsOf, digestOf } from "./revisions";
@@ -19,15 +20,13 @@ import { renderLatex } from "@/lib/export/latex";
 import { certificationOf, type Certification, type ProofSnapshot, type SnapshotCase, type SnapshotRound, type SnapshotStep } from "@/lib/export/snapshot";
 import { buildCaseTree, type CaseNode } from "@/lib/proof-tree";
 import type { ClaimStatus, DisputeState } from "@/lib/review/states";
-import { liveCases, stepsOfCases } from "./cases";
+import { liveCases, stepRecords, stepsOfCases } from "./cases";
 import { listRoundViews } from "./rounds";
 import { recordEvent } from "./audit";
 
-const nameOf = (row: unknown, as: string) => (row as Record<string, { name?: string } | undefined>)[as]?.name ?? "";
-
 /** The proof as it stands: live cases in order, each step's latest revision, all reviews and claims. */
 export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | null> {
-  const { Proof, ProofMember, User, StepRevision, Review, Claim } = models();
+  const { Proof, ProofMember, User } = models();
   const proof = await Proof.findByPk(proofId);
   if (!proof) return null;
   const [members, cases] = await Promise.all([
@@ -43,26 +42,7 @@ export async function loadSnapshot(proofId: number): Promise<ProofSnapshot | nul
   ]);
   const steps = await stepsOfCases(cases.map((c) => c.id));
   const stepIds = steps.map((s) => s.id);
-  const [revisions, reviews, claims] = stepIds.length
-    ? await Promise.all([
-        StepRevision.findAll({ where: { stepId: stepIds }, include: [{ model: User, as: "author", attributes: ["name"] }], order: [["number", "DESC"]] }),
-        Review.findAll({
-          where: { stepId: stepIds },
-          include: [{ model: User, as: "reviewer", attributes: ["name"] }],
-          order: [
-            ["createdAt", "ASC"],
-            ["id", "ASC"],
-          ],
-        }),
-        Claim.findAll({
-          where: { stepId: stepIds },
-          order: [
-            ["position", "ASC"],
-            ["id", "ASC"],
-          ],
-        }),
-      ])
-    : [[], [], []];
+  const { revisions, reviews, claims } = await stepRecords(stepIds, { reviewerNames: true });
   const revisionNumber = new Map(revisions.map((r) => [r.id, r.number]));
   const batches = await exportedBatches(stepIds);
   // A blind proof's export goes to readers: referees appear as "Referee k" and the bundle keeps no mapping
@@ -183,12 +163,7 @@ type ExportRow = InstanceType<ReturnType<typeof models>["ProofExport"]>;
 
 function summaryOf(e: ExportRow): ExportSummary {
   return {
-    id: e.id,
-    proofId: e.proofId,
-    kind: e.kind,
-    manifestDigest: e.manifestDigest,
-    itemCount: e.itemCount,
-    claimCount: e.claimCount,
+    ...pick(e, ["id", "proofId", "kind", "manifestDigest", "itemCount", "claimCount"]),
     createdByName: nameOf(e, "creator") || null,
     createdAt: e.createdAt.toISOString(),
   };

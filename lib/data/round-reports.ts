@@ -15,13 +15,32 @@ async function latestOwn(roundId: number, refereeId: number, transaction: Transa
   return models().RefereeReport.findOne({ where: { roundId, refereeId }, order: [["version", "DESC"]], transaction, lock: transaction.LOCK.UPDATE });
 }
 
+/**
+ * Runs `change` on the referee's latest report of an open round (409 on a closed one), inside one transaction
+ * with that report locked, and returns the report it gives as the referee sees it.
+ */
+async function changeOwnReport(
+  proofId: number,
+  number: number,
+  refereeId: number,
+  change: (
+    round: Awaited<ReturnType<typeof loadRound>>,
+    latest: Awaited<ReturnType<typeof latestOwn>>,
+    transaction: Transaction,
+  ) => Promise<NonNullable<Awaited<ReturnType<typeof latestOwn>>>>,
+): Promise<ReportView> {
+  const report = await getSequelize().transaction(async (transaction) => {
+    const round = await loadRound(proofId, number, transaction);
+    if (round.closedAt) throw closedConflict(round);
+    return change(round, await latestOwn(round.id, refereeId, transaction), transaction);
+  });
+  return reportView(report, { id: refereeId, role: "reviewer" }, [], false, true);
+}
+
 /** Saves the referee's draft (creating version 1 on first save). 409 on a closed round or a submitted latest version. */
 export async function saveReportDraft(proofId: number, number: number, refereeId: number, input: ReportDraftInput): Promise<ReportView> {
   const { RefereeReport, RoundReferee } = models();
-  const saved = await getSequelize().transaction(async (transaction) => {
-    const round = await loadRound(proofId, number, transaction);
-    if (round.closedAt) throw closedConflict(round);
-    const latest = await latestOwn(round.id, refereeId, transaction);
+  return changeOwnReport(proofId, number, refereeId, async (round, latest, transaction) => {
     if (latest?.submittedAt)
       throw conflict(
         `Your report (version ${latest.version}) was submitted on ${day(latest.submittedAt)} and is read-only. Start a correction to change it; both versions are kept.`,
@@ -40,15 +59,11 @@ export async function saveReportDraft(proofId: number, number: number, refereeId
     if (latest) return latest.update(fields, { transaction });
     return RefereeReport.create({ roundId: round.id, refereeId, version: 1, body: "", recommendation: null, editorNote: "", ...fields }, { transaction });
   });
-  return reportView(saved, { id: refereeId, role: "reviewer" }, [], false, true);
 }
 
 /** Submits the referee's draft: once; it needs a report and a recommendation (422), an open round (409). */
 export async function submitReport(proofId: number, number: number, refereeId: number): Promise<ReportView> {
-  const submitted = await getSequelize().transaction(async (transaction) => {
-    const round = await loadRound(proofId, number, transaction);
-    if (round.closedAt) throw closedConflict(round);
-    const latest = await latestOwn(round.id, refereeId, transaction);
+  return changeOwnReport(proofId, number, refereeId, async (round, latest, transaction) => {
     if (!latest) throw conflict("There is no draft to submit: write your report first.", { reason: "no_draft" });
     if (latest.submittedAt)
       throw conflict(`Version ${latest.version} of your report was already submitted; a report is submitted once.`, {
@@ -73,15 +88,11 @@ export async function submitReport(proofId: number, number: number, refereeId: n
     );
     return latest;
   });
-  return reportView(submitted, { id: refereeId, role: "reviewer" }, [], false, true);
 }
 
 /** Starts a correction: a new draft version copied from the submitted one (which stays as it was). */
 export async function startCorrection(proofId: number, number: number, refereeId: number): Promise<ReportView> {
-  const created = await getSequelize().transaction(async (transaction) => {
-    const round = await loadRound(proofId, number, transaction);
-    if (round.closedAt) throw closedConflict(round);
-    const latest = await latestOwn(round.id, refereeId, transaction);
+  return changeOwnReport(proofId, number, refereeId, async (round, latest, transaction) => {
     if (!latest?.submittedAt)
       throw conflict(latest ? "Your latest version is still a draft: edit it instead." : "You have not submitted a report in this round yet.", {
         reason: latest ? "draft" : "no_report",
@@ -103,7 +114,6 @@ export async function startCorrection(proofId: number, number: number, refereeId
     );
     return next;
   });
-  return reportView(created, { id: refereeId, role: "reviewer" }, [], false, true);
 }
 
 /**

@@ -1,4 +1,5 @@
 import "server-only";
+import { nameOf, pick } from "./rows";
 import type { Transaction } from "sequelize";
 import { diffLines } from "diff";
 import { models } from "@/models";
@@ -39,11 +40,8 @@ type RevisionRow = InstanceType<ReturnType<typeof models>["StepRevision"]>;
 
 function revisionView(r: RevisionRow): RevisionView {
   return {
-    id: r.id,
-    number: r.number,
-    body: r.body,
-    authorId: r.authorId,
-    authorName: (r as unknown as { author?: { name: string } }).author?.name ?? "",
+    ...pick(r, ["id", "number", "body", "authorId"]),
+    authorName: nameOf(r, "author"),
     baseRevisionId: r.baseRevisionId ?? null,
     createdAt: r.createdAt.toISOString(),
   };

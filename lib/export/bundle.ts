@@ -5,6 +5,7 @@
 import { CHECKER_VERSION } from "@/lib/core/claims/claims";
 import { methodWithCertificate } from "@/lib/core/certificates/certificate-kind";
 import { stepLabel } from "@/lib/proof-tree";
+import { storedJson } from "@/lib/stored-json";
 import { sealBundle, type Bundle, type BundleItemType, type ClaimItemData, type ExportKind } from "@/lib/core/certificates/bundle";
 import { caseStateOf, certificationOf, flattenCases, type ProofSnapshot, type SnapshotClaim } from "./snapshot";
 
@@ -16,14 +17,7 @@ export const batchItemId = (caseNumber: string, stepPosition: number, ordinal: n
 export const claimItemId = (caseNumber: string, stepPosition: number, ordinal: number) => `claim ${stepLabel(caseNumber, stepPosition)}#${ordinal}`;
 
 /** JSON text from the database, parsed; text that is not JSON is kept as the text itself (the checker reports it). */
-function parsed(text: string | null): unknown {
-  if (text === null) return null;
-  try {
-    return JSON.parse(text);
-  } catch {
-    return text;
-  }
-}
+const parsed = (text: string | null) => storedJson(text, (t) => t);
 
 /** The claim without any certificate it carried (the certificate travels beside it). */
 function claimJson(c: SnapshotClaim): unknown {

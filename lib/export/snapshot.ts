@@ -5,17 +5,8 @@
 import type { BatchItemData } from "@/lib/core/certificates/batch-check";
 import type { CoveredClaim } from "@/lib/core/certificates/revision-digest";
 import { stepLabel } from "@/lib/proof-tree";
-import {
-  caseState,
-  proofState,
-  stepStatus,
-  type CaseFacts,
-  type CaseState,
-  type ClaimStatus,
-  type DisputeState,
-  type ProofState,
-  type StepFacts,
-} from "@/lib/review/states";
+import { caseState, proofState, stepStatus } from "@/lib/review/states";
+import type { CaseFacts, CaseState, ClaimStatus, DisputeState, ProofState, StepFacts } from "@/lib/review/states";
 
 export interface SnapshotReview {
   reviewerId: number;

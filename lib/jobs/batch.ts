@@ -7,7 +7,7 @@
  * A cancelled batch's remaining chunks do nothing.
  */
 import { QueryTypes, type Transaction } from "sequelize";
-import { duplicateReason, enumerationWords, settleEnumeration, type EnumerationBatchStatement } from "../core/claims/batch-enumeration";
+import { duplicateReason, enumerationFormat, enumerationWords, settleEnumeration, type EnumerationBatchStatement } from "../core/claims/batch-enumeration";
 import { getSequelize } from "../db";
 import { models } from "../../models";
 import { fileStore } from "../storage";
@@ -189,7 +189,7 @@ async function settleListedEnumeration(
     tally.refuted++;
   }
   const note = missing.length
-    ? `${missing.length} of the ${enumerationWords(statement)} ${missing.length === 1 ? "is" : "are"} not listed, e.g. (graph6) ${missing.slice(0, 5).join(" ")}`
+    ? `${missing.length} of the ${enumerationWords(statement)} ${missing.length === 1 ? "is" : "are"} not listed, e.g. (${enumerationFormat(statement)}) ${missing.slice(0, 5).join(" ")}`
     : null;
   return { missing: missing.length, note };
 }

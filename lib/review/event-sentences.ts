@@ -40,6 +40,50 @@ function cleanDetail(detail: string | null): string | null {
 
 const revisionOf = (detail: string | null) => /revision (\d+)/.exec(detail ?? "")?.[1] ?? null;
 
+/** Actions worded “<who> <phrase> <place>.” */
+const ON_PLACE: Record<string, string> = {
+  "case.created": "added",
+  "case.edited": "edited",
+  "case.moved": "moved",
+  "case.deleted": "deleted",
+  "case.restored": "restored",
+  "step.created": "added",
+  "step.moved": "moved",
+  "claim.cancelled": "cancelled the check of a claim on",
+  "dispute.answered": "answered the dispute on",
+  "dispute.withdrawn": "withdrew the dispute on",
+  "dispute.upheld": "upheld the dispute on",
+};
+
+/** Actions worded “<who> <phrase> <place> (<detail>).” */
+const ON_PLACE_NOTED: Record<string, string> = {
+  "claim.attached": "attached a claim to",
+  "claim.withdrawn": "withdrew a claim from",
+  "batch.created": "attached a batch claim to",
+  "batch.cancelled": "cancelled a batch claim on",
+  "file.uploaded": "uploaded a file to",
+};
+
+/** Actions worded “<who> <phrase>: <detail>.” */
+const WITH_DETAIL: Record<string, string> = {
+  "invitation.sent": "invited a referee",
+  "invitation.revoked": "revoked an invitation",
+  "member.scope_changed": "changed which cases a referee sees",
+  "member.scope_shared": "shared the whole proof with a referee",
+  "member.owner_changed": "handed over the proof",
+  "member.left": "left the proof",
+  "member.removed": "removed a member",
+  "settings.required_approvals": "changed how many vouches a step needs",
+  "settings.review_policy": "changed the review policy",
+  "round.opened": "opened a round of refereeing",
+  "round.due_date_set": "set a due date",
+  "round.decided": "recorded a decision",
+  "report.submitted": "submitted a report",
+  "report.correction_started": "reopened a report for correction",
+  "export.certified": "made a certified export",
+  "export.draft": "made a draft export",
+};
+
 /**
  * One sentence for a timeline event, naming who, what and where with the labels of the pages.
  * Unknown actions still read as a sentence ("… recorded “x.y” on …"), never as a bare code.
@@ -51,99 +95,37 @@ export function eventSentence(e: EventFacts): string {
   const rev = revisionOf(e.detail);
   const atRevision = rev ? ` at revision ${rev}` : "";
   const withDetail = (s: string) => `${s}${detail ? `: ${detail}` : ""}.`;
+  if (Object.hasOwn(ON_PLACE, e.action)) return `${who} ${ON_PLACE[e.action]} ${where}.`;
+  if (Object.hasOwn(ON_PLACE_NOTED, e.action)) return `${who} ${ON_PLACE_NOTED[e.action]} ${where}${detail ? ` (${detail})` : ""}.`;
+  if (Object.hasOwn(WITH_DETAIL, e.action)) return withDetail(`${who} ${WITH_DETAIL[e.action]}`);
   switch (e.action) {
     case "proof.created":
       return `${who} started the proof.`;
     case "proof.edited":
       return `${who} edited the proof's title or statement.`;
-    case "case.created":
-      return `${who} added ${where}.`;
-    case "case.edited":
-      return `${who} edited ${where}.`;
-    case "case.moved":
-      return `${who} moved ${where}.`;
     case "case.reparented":
       return withDetail(`${who} moved ${where} under another case`);
-    case "case.deleted":
-      return `${who} deleted ${where}.`;
-    case "case.restored":
-      return `${who} restored ${where}.`;
-    case "step.created":
-      return `${who} added ${where}.`;
     case "step.revised":
-      return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
-    case "step.moved":
-      return `${who} moved ${where}.`;
     case "revision.created":
       return `${who} saved ${rev ? `revision ${rev}` : "a revision"} of ${where}.`;
     case "demo.reviews":
       return `${who} added the demonstration reviews.`;
     case "demo.rounds":
       return `${who} added the demonstration rounds.`;
-    case "claim.attached":
-      return `${who} attached a claim to ${where}${detail ? ` (${detail})` : ""}.`;
     case "claim.decided":
       return withDetail(`A claim on ${where} was decided`);
     case "claim.rechecked":
       return `${who} asked for a claim on ${where} to be checked again.`;
-    case "claim.cancelled":
-      return `${who} cancelled the check of a claim on ${where}.`;
-    case "claim.withdrawn":
-      return `${who} withdrew a claim from ${where}${detail ? ` (${detail})` : ""}.`;
     case "review.vouched":
       return `${who} vouched for ${where}${atRevision}.`;
     case "review.disputed":
       return `${who} raised a dispute on ${where}${atRevision}.`;
-    case "dispute.answered":
-      return `${who} answered the dispute on ${where}.`;
-    case "dispute.withdrawn":
-      return `${who} withdrew the dispute on ${where}.`;
-    case "dispute.upheld":
-      return `${who} upheld the dispute on ${where}.`;
-    case "batch.created":
-      return `${who} attached a batch claim to ${where}${detail ? ` (${detail})` : ""}.`;
-    case "batch.cancelled":
-      return `${who} cancelled a batch claim on ${where}${detail ? ` (${detail})` : ""}.`;
-    case "file.uploaded":
-      return `${who} uploaded a file to ${where}${detail ? ` (${detail})` : ""}.`;
     case "comment.added":
       if (e.subjectType === "proof") return `${who} commented on the statement.`;
       if (e.subjectType === "case") return `${who} commented on the condition of ${where}.`;
       return `${who} commented on ${where}${e.detail?.startsWith("in dispute") ? " in a dispute thread" : ""}.`;
-    case "invitation.sent":
-      return withDetail(`${who} invited a referee`);
-    case "invitation.revoked":
-      return withDetail(`${who} revoked an invitation`);
     case "invitation.accepted":
       return `${who} accepted an invitation to referee.`;
-    case "member.scope_changed":
-      return withDetail(`${who} changed which cases a referee sees`);
-    case "member.scope_shared":
-      return withDetail(`${who} shared the whole proof with a referee`);
-    case "member.owner_changed":
-      return withDetail(`${who} handed over the proof`);
-    case "member.left":
-      return withDetail(`${who} left the proof`);
-    case "member.removed":
-      return withDetail(`${who} removed a member`);
-    case "settings.required_approvals":
-      return withDetail(`${who} changed how many vouches a step needs`);
-    case "settings.review_policy":
-      return withDetail(`${who} changed the review policy`);
-    case "round.opened":
-      return withDetail(`${who} opened a round of refereeing`);
-    case "round.due_date_set":
-      return withDetail(`${who} set a due date`);
-    case "round.decided":
-      return withDetail(`${who} recorded a decision`);
-    case "report.submitted":
-      return withDetail(`${who} submitted a report`);
-    case "report.correction_started":
-      return withDetail(`${who} reopened a report for correction`);
-    case "export.certified":
-      return withDetail(`${who} made a certified export`);
-    case "export.draft":
-      return withDetail(`${who} made a draft export`);
     // An action added later without its own sentence still reads as words, never as the code.
     default:
       return withDetail(`${who}: ${e.action.replace(/[._]/g, " ")}, on ${where}`);

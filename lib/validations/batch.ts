@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { RELATIONS } from "@/lib/core/claims/claim-schema";
+import { MULTIGRAPH_MAX_WEIGHT, RELATIONS } from "@/lib/core/claims/claim-schema";
 import { MAX_BATCH_PATTERNS } from "@/lib/core/claims/batch";
 import { ENUMERATION_BATCH_MAX } from "@/lib/core/claims/batch-enumeration";
 import { SMITH_FAMILIES } from "@/lib/core/families/smith-families";
@@ -36,11 +36,17 @@ const identified = z.object({
     .max(MAX_BATCH_PATTERNS),
 });
 
-/** The list is, up to isomorphism, exactly the trees (or connected simple graphs) on n vertices, optionally with ρ op b. */
+/**
+ * The list is, up to isomorphism, exactly the trees (or connected simple graphs, or connected graphs with loops and
+ * multiple edges within the two bounds) on n vertices, optionally with ρ op b. The size cap per setting and the
+ * pairing of the bounds with "multigraph" are the core's (validateEnumerationBatch), answered as 422 on "vertices".
+ */
 const enumeration = z.object({
   fileId,
   kind: z.literal("enumeration-exactly"),
-  setting: z.enum(["tree", "simple"], { message: "tree or simple" }),
+  setting: z.enum(["tree", "simple", "multigraph"], { message: "tree, simple or multigraph" }),
+  maxMultiplicity: z.number({ message: "the largest edge multiplicity, 1 to 4" }).int().min(1).max(MULTIGRAPH_MAX_WEIGHT).optional(),
+  maxLoop: z.number({ message: "the largest loop weight, 0 to 4" }).int().min(0).max(MULTIGRAPH_MAX_WEIGHT).optional(),
   vertices: z.number({ message: "the number of vertices" }).int().min(1).max(ENUMERATION_BATCH_MAX.tree),
   op: z.enum(["<", "<="], { message: "< or <=" }).optional(),
   bound: z.string().trim().min(1).max(500).optional(),

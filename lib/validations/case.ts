@@ -27,6 +27,10 @@ export function normalisedPredicate(text: string | null | undefined): string | n
   return text && text.trim() ? JSON.stringify(parseCondition(text)) : null;
 }
 
+/** A case's own fields as its forms edit them (adding a case and editing one). */
+export const caseFieldsSchema = z.object({ title: caseTitleSchema, condition: caseConditionSchema, predicate: casePredicateSchema });
+export type CaseFields = z.infer<typeof caseFieldsSchema>;
+
 export const createCaseSchema = z.object({
   /** The case this one refines; null or absent for a top-level case. */
   parentId: id.nullable().optional(),

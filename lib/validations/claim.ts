@@ -14,6 +14,7 @@ import {
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
   ENUMERATION_CLAIM_SETTINGS,
+  namesMultilacedType,
 } from "@/lib/core/claims/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
@@ -224,7 +225,8 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
     case "dynkin-data":
       if (!f.family.trim() && !f.graphText.trim()) issues.push({ field: "family", message: "Enter the type (e.g. E8), the graph G, or both." });
       if (f.family.trim()) claim.type = f.family.trim();
-      if (f.graphText.trim()) claim.graph = graph(f.graphFormat, f.graphText);
+      // The form hides the graph box for B_n, C_n, F4, G2 (given by type only), so text left in it is not sent.
+      if (f.graphText.trim() && !namesMultilacedType(f.family)) claim.graph = graph(f.graphFormat, f.graphText);
       Object.assign(claim, dynkinDataFromText(f.dynkinData, issues));
       break;
     case "structure": {

@@ -13,6 +13,16 @@ function fromEdges(n: number, edges: Array<[number, number]>): Graph {
   );
 }
 
+/** Graph from 0-based edges written "u-v u-v …". */
+const fromPairs = (n: number, pairs: string): Graph =>
+  makeGraph(
+    n,
+    pairs.split(" ").map((p) => {
+      const [u, v] = p.split("-").map(Number);
+      return { u, v };
+    }),
+  );
+
 const path = (n: number): Array<[number, number]> => Array.from({ length: n - 1 }, (_, i) => [i + 1, i + 2] as [number, number]);
 
 // Dynkin and affine diagrams with Bourbaki's numbering (Bourbaki, Lie Groups and Lie Algebras ch. 4–6, plates I–VII;
@@ -138,19 +148,7 @@ describe("drawings by structure", () => {
 
   it("centres the branch vertex of a star and keeps its legs straight", () => {
     // star-like tree with legs 2, 2, 2, 2 centred at vertex 0
-    const g = makeGraph(
-      9,
-      [
-        [0, 1],
-        [1, 2],
-        [0, 3],
-        [3, 4],
-        [0, 5],
-        [5, 6],
-        [0, 7],
-        [7, 8],
-      ].map(([u, v]) => ({ u, v })),
-    );
+    const g = fromPairs(9, "0-1 1-2 0-3 3-4 0-5 5-6 0-7 7-8");
     const p = points(g);
     const cx = p.reduce((s, q) => s + q[0], 0) / p.length,
       cy = p.reduce((s, q) => s + q[1], 0) / p.length;
@@ -223,42 +221,14 @@ describe("drawings by structure", () => {
 
   it("describes a unicyclic graph by its cycle", () => {
     // C4 with one pendant vertex (the "banner" graph)
-    const g = makeGraph(
-      5,
-      [
-        [0, 1],
-        [1, 2],
-        [2, 3],
-        [3, 0],
-        [0, 4],
-      ].map(([u, v]) => ({ u, v })),
-    );
+    const g = fromPairs(5, "0-1 1-2 2-3 3-0 0-4");
     expect(describeLayout(g, layoutByStructure(g))).toBe(
       "5 vertices, 5 edges; connected: a graph with one cycle on 5 vertices (a 4-cycle drawn as a polygon, trees hanging outward)",
     );
   });
 
   it("draws the same graph the same way every time, inside the box, and lays out every component", () => {
-    const petersen = makeGraph(
-      10,
-      [
-        [0, 1],
-        [1, 2],
-        [2, 3],
-        [3, 4],
-        [4, 0],
-        [0, 5],
-        [1, 6],
-        [2, 7],
-        [3, 8],
-        [4, 9],
-        [5, 7],
-        [7, 9],
-        [9, 6],
-        [6, 8],
-        [8, 5],
-      ].map(([u, v]) => ({ u, v })),
-    );
+    const petersen = fromPairs(10, "0-1 1-2 2-3 3-4 4-0 0-5 1-6 2-7 3-8 4-9 5-7 7-9 9-6 6-8 8-5");
     const g = makeGraph(14, [...petersen.edges, { u: 10, v: 11 }, { u: 12, v: 12, m: 1 }]);
     const a = layoutByStructure(g),
       b = layoutByStructure(g);

@@ -3,26 +3,14 @@
  * Each task builds its graph in `prepare` (untimed) and times only the check in `run`.
  */
 import type { BenchSection, BenchTask } from "./run";
-import {
-  extendedDWorkload,
-  extendedE8Workload,
-  halfDenseGraphWorkload,
-  pathWorkload,
-  randomTreeWorkload,
-  sparseGraphWorkload,
-  cubicWorkload,
-  gluedWorkload,
-  star4Workload,
-  t12kWorkload,
-  workloadGraph,
-  type Workload,
-} from "./workloads";
+import { cubicWorkload, extendedDWorkload, extendedE8Workload, gluedWorkload, halfDenseGraphWorkload, pathWorkload } from "./workloads";
+import { randomTreeWorkload, sparseGraphWorkload, star4Workload, t12kWorkload, workloadGraph, type Workload } from "./workloads";
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { enumerateConnected } from "../../lib/core/families/enumeration";
 import { generateConnected, type GenerationOptions } from "../../lib/core/families/augmentation";
-import { checkCoverage, type CoverageCase } from "../../lib/core/families/coverage";
+import { checkCoverage, type CoverageCase, type CoverageSetting } from "../../lib/core/families/coverage";
 import { validateCondition } from "../../lib/core/families/case-condition";
 import { parseBound } from "../../lib/core/arithmetic/bound";
 import { validateClaim } from "../../lib/core/claims/claim-schema";
@@ -30,7 +18,7 @@ import { verifyClaim } from "../../lib/core/claims/claims";
 import { characteristicPolynomial } from "../../lib/core/spectral/charpoly";
 import type { Graph } from "../../lib/core/graph";
 import { identifySmith } from "../../lib/core/families/identify";
-import { inertia, spectralRadiusBound } from "../../lib/core/spectral/inertia";
+import { inertia, spectralRadiusBound, type Relation } from "../../lib/core/spectral/inertia";
 import { rat } from "../../lib/core/arithmetic/rational";
 import { affineE } from "../../lib/core/input/constructors";
 import { findSubgraph } from "../../lib/core/subgraph/subgraph";
@@ -40,49 +28,42 @@ import { Budget } from "../../lib/core/verdict";
 /** A generous budget: the bench measures time, the default budget is the server's business. */
 const BENCH_STEPS = 50_000_000_000;
 
-function graphTask(id: string, w: () => Workload, task: string, quick: boolean, check: (g: Graph) => string, targetMs?: number): BenchTask {
-  return { id, workload: "", task, quick, targetMs, prepare: () => workloadGraph(w()), run: (g) => check(g as Graph) };
+/** A task on one workload graph, built untimed in `prepare`; `workload` is how the report names the graph. */
+function graphTask(workload: string, id: string, w: () => Workload, task: string, quick: boolean, check: (g: Graph) => string, targetMs?: number): BenchTask {
+  return { id, workload, task, quick, targetMs, prepare: () => workloadGraph(w()), run: (g) => check(g as Graph) };
 }
 
-function named(t: BenchTask, workload: string): BenchTask {
-  return { ...t, workload };
-}
+/** The exact verdict on ρ(G) op bound, with the kind of certificate (and the dense front it certified, if any). */
+const verdict = (op: Relation, bound: string) => (g: Graph) => {
+  const v = spectralRadiusBound(g, op, bound, new Budget(BENCH_STEPS));
+  const c = v.certificate as { kind?: string; front?: number } | undefined;
+  return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
+};
 
-const rhoBelow2 = (g: Graph) => spectralRadiusBound(g, "<", "2", new Budget(BENCH_STEPS)).status;
+/** The full inertia of 2I − A (elimination to the end), with the dense front certified in floating point, if any. */
+const inertiaAt2 = (g: Graph) => {
+  const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+  return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front} certified in floating point` : ""}`;
+};
 
 function spectralRadiusTasks(): BenchTask[] {
   const out: BenchTask[] = [];
   for (const n of [1_000, 100_000, 1_000_000]) {
     const target = n === 1_000_000 ? 2000 : undefined;
-    out.push(
-      named(
-        graphTask(`path-${n}-rho`, () => pathWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target),
-        `path P_${n}`,
-      ),
-    );
-    out.push(
-      named(
-        graphTask(`tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, rhoBelow2, target),
-        `tree-${n}`,
-      ),
-    );
+    out.push(graphTask(`path P_${n}`, `path-${n}-rho`, () => pathWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, verdict("<", "2"), target));
+    out.push(graphTask(`tree-${n}`, `tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, verdict("<", "2"), target));
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
   for (const n of [1_000, 100_000, 1_000_000])
     out.push(
-      named(
-        graphTask(
-          `tree-${n}-inertia`,
-          () => randomTreeWorkload(n),
-          "full inertia of 2I − A",
-          n === 1_000,
-          (g) => {
-            const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
-            return `(+${r.positive}, −${r.negative}, 0×${r.zero})`;
-          },
-          n === 1_000_000 ? 5000 : undefined,
-        ),
+      graphTask(
         `tree-${n}`,
+        `tree-${n}-inertia`,
+        () => randomTreeWorkload(n),
+        "full inertia of 2I − A",
+        n === 1_000,
+        inertiaAt2,
+        n === 1_000_000 ? 5000 : undefined,
       ),
     );
   // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
@@ -101,8 +82,7 @@ function spectralRadiusTasks(): BenchTask[] {
       },
       run: (input) => {
         const { g, bound } = input as { g: Graph; bound: string };
-        const v = spectralRadiusBound(g, "<", bound, new Budget(BENCH_STEPS));
-        return `${v.status} (${v.certificate?.kind ?? "-"})`;
+        return verdict("<", bound)(g);
       },
     });
   return out;
@@ -114,49 +94,20 @@ function sparseTasks(): BenchTask[] {
   return [200, 1_000, 2_000, 5_000].flatMap((n) => [
     ...(n <= 5_000
       ? [
-          named(
-            graphTask(
-              `gnm3-${n}-inertia`,
-              () => sparseGraphWorkload(n),
-              "full inertia of 2I − A",
-              n === 200,
-              (g) => {
-                const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
-                return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front} certified in floating point` : ""}`;
-              },
-              n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined,
-            ),
+          graphTask(
             `G(n,m) deg 3, n=${n}`,
+            `gnm3-${n}-inertia`,
+            () => sparseGraphWorkload(n),
+            "full inertia of 2I − A",
+            n === 200,
+            inertiaAt2,
+            n === 1_000 ? 5000 : n === 2_000 ? 2000 : undefined,
           ),
         ]
       : []),
-    named(
-      graphTask(
-        `gnm3-${n}-rho3`,
-        () => sparseGraphWorkload(n),
-        "ρ ≤ 3 (exact verdict)",
-        n === 200,
-        (g) => {
-          const v = spectralRadiusBound(g, "<=", "3", new Budget(BENCH_STEPS));
-          return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
-        },
-      ),
-      `G(n,m) deg 3, n=${n}`,
-    ),
+    graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, verdict("<=", "3")),
     // ρ ≈ 4.2–4.4 on these graphs (float hint), so ρ < 5 holds: the other direction of the same question.
-    named(
-      graphTask(
-        `gnm3-${n}-rho5`,
-        () => sparseGraphWorkload(n),
-        "ρ < 5 (exact verdict)",
-        n === 200,
-        (g) => {
-          const v = spectralRadiusBound(g, "<", "5", new Budget(BENCH_STEPS));
-          return `${v.status} (${v.certificate?.kind ?? "no certificate"})`;
-        },
-      ),
-      `G(n,m) deg 3, n=${n}`,
-    ),
+    graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho5`, () => sparseGraphWorkload(n), "ρ < 5 (exact verdict)", n === 200, verdict("<", "5")),
   ]);
 }
 
@@ -164,32 +115,14 @@ function cubicTasks(): BenchTask[] {
   // ρ = 3 exactly (connected 3-regular): the zero of 3I − A sits in the dense front, where the certified
   // float front settles it by an exact kernel vector instead of redoing the block exactly.
   return [2_000, 5_000].flatMap((n) => [
-    named(
-      graphTask(
-        `cubic-${n}-rho3`,
-        () => cubicWorkload(n),
-        "ρ = 3 (exact verdict, zero in the front)",
-        false,
-        (g) => {
-          const v = spectralRadiusBound(g, "=", "3", new Budget(BENCH_STEPS));
-          const c = v.certificate as { kind?: string; front?: number } | undefined;
-          return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
-        },
-      ),
-      `cubic n=${n}`,
-    ),
-    named(
-      graphTask(
-        `cubic-${n}-affine-glued`,
-        () => gluedWorkload(cubicWorkload(n), affineE(6), 6, 20),
-        "full inertia of 2I − A (20 glued Ẽ6 pairs)",
-        false,
-        (g) => {
-          const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
-          return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front}` : ""}`;
-        },
-      ),
+    graphTask(`cubic n=${n}`, `cubic-${n}-rho3`, () => cubicWorkload(n), "ρ = 3 (exact verdict, zero in the front)", false, verdict("=", "3")),
+    graphTask(
       `cubic n=${n} affine-glued`,
+      `cubic-${n}-affine-glued`,
+      () => gluedWorkload(cubicWorkload(n), affineE(6), 6, 20),
+      "full inertia of 2I − A (20 glued Ẽ6 pairs)",
+      false,
+      inertiaAt2,
     ),
   ]);
 }
@@ -232,44 +165,38 @@ function subgraphTasks(): BenchTask[] {
   };
   return [
     ...[1_000, 10_000, 100_000].map((n) =>
-      named(
-        graphTask(`tree-${n}-affineE8`, () => randomTreeWorkload(n), "find affine E8 (embedding)", n === 1_000, find(e8), n === 100_000 ? 1000 : undefined),
+      graphTask(
         `tree-${n}`,
+        `tree-${n}-affineE8`,
+        () => randomTreeWorkload(n),
+        "find affine E8 (embedding)",
+        n === 1_000,
+        find(e8),
+        n === 100_000 ? 1000 : undefined,
       ),
     ),
-    named(
-      graphTask("path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)),
-      "path P_100000",
-    ),
-    named(
-      graphTask("path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)),
-      "path P_1000",
-    ),
+    graphTask("path P_100000", "path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)),
+    graphTask("path P_1000", "path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)),
     ...[1_000, 100_000].map((n) =>
-      named(
-        graphTask(`affineD-${n}-affineE8`, () => extendedDWorkload(n), "affine E8 absent (proof of absence)", n === 1_000, find(e8)),
-        `extended D, n=${n}`,
-      ),
+      graphTask(`extended D, n=${n}`, `affineD-${n}-affineE8`, () => extendedDWorkload(n), "affine E8 absent (proof of absence)", n === 1_000, find(e8)),
     ),
   ];
 }
 
 function charpolyTasks(): BenchTask[] {
   return [20, 30, 40, 60, 100].map((n) =>
-    named(
-      graphTask(
-        `gnp-${n}-charpoly`,
-        () => halfDenseGraphWorkload(n),
-        "characteristic polynomial",
-        n <= 30,
-        (g) => {
-          const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
-          const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
-          return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
-        },
-        n === 100 ? 60 : undefined,
-      ),
+    graphTask(
       `G(n,1/2), n=${n}`,
+      `gnp-${n}-charpoly`,
+      () => halfDenseGraphWorkload(n),
+      "characteristic polynomial",
+      n <= 30,
+      (g) => {
+        const p = characteristicPolynomial(g, new Budget(BENCH_STEPS));
+        const digits = p.reduce((m, c) => Math.max(m, (c < 0n ? -c : c).toString().length), 0);
+        return `degree ${p.length - 1}, largest coefficient ${digits} digits`;
+      },
+      n === 100 ? 60 : undefined,
     ),
   );
 }
@@ -277,16 +204,14 @@ function charpolyTasks(): BenchTask[] {
 /** Irrational bounds exactly at ρ: ρ(P_n) = 2cos(π/(n+1)) (Brouwer & Haemers §1.4.4). */
 function irrationalBoundTasks(): BenchTask[] {
   return [20, 50, 100].map((n) =>
-    named(
-      graphTask(
-        `path-${n}-2cos`,
-        () => pathWorkload(n),
-        `ρ = 2cos(π/${n + 1}) (exact, irrational b)`,
-        n === 20,
-        (g) => spectralRadiusBound(g, "=", `2cos(pi/${n + 1})`, new Budget(BENCH_STEPS)).status,
-        n === 100 ? 100 : undefined,
-      ),
+    graphTask(
       `path P_${n}`,
+      `path-${n}-2cos`,
+      () => pathWorkload(n),
+      `ρ = 2cos(π/${n + 1}) (exact, irrational b)`,
+      n === 20,
+      verdict("=", `2cos(pi/${n + 1})`),
+      n === 100 ? 100 : undefined,
     ),
   );
 }
@@ -294,28 +219,17 @@ function irrationalBoundTasks(): BenchTask[] {
 function starlikeTasks(): BenchTask[] {
   // T(1,2,k), n = k + 4: ρ < 2 for k ≤ 4 (E6–E8), = 2 for k = 5, > 2 beyond (Smith 1970).
   return [16, 46, 96, 196].flatMap((k) => [
-    named(
-      graphTask(
-        `t12k-${k + 4}-rho`,
-        () => t12kWorkload(k),
-        "ρ vs 2: ρ ≤ 2 (exact verdict)",
-        k === 16,
-        (g) => spectralRadiusBound(g, "<=", "2", new Budget(BENCH_STEPS)).status,
-      ),
+    graphTask(`T(1,2,${k}) n=${k + 4}`, `t12k-${k + 4}-rho`, () => t12kWorkload(k), "ρ vs 2: ρ ≤ 2 (exact verdict)", k === 16, verdict("<=", "2")),
+    graphTask(
       `T(1,2,${k}) n=${k + 4}`,
-    ),
-    named(
-      graphTask(
-        `t12k-${k + 4}-identify`,
-        () => t12kWorkload(k),
-        "identification (Smith families)",
-        k === 16,
-        (g) => {
-          const v = identifySmith(g, undefined, new Budget(BENCH_STEPS));
-          return `${v.status} (${v.certificate?.kind ?? "-"})`;
-        },
-      ),
-      `T(1,2,${k}) n=${k + 4}`,
+      `t12k-${k + 4}-identify`,
+      () => t12kWorkload(k),
+      "identification (Smith families)",
+      k === 16,
+      (g) => {
+        const v = identifySmith(g, undefined, new Budget(BENCH_STEPS));
+        return `${v.status} (${v.certificate?.kind ?? "-"})`;
+      },
     ),
   ]);
 }
@@ -369,7 +283,7 @@ function enumerationTasks(): BenchTask[] {
 
 /** Coverage claims at their caps: every graph enumerated and tested against each sub-case condition. */
 function coverageTasks(): BenchTask[] {
-  const task = (id: string, workload: string, n: number, setting: "simple" | "tree", cases: CoverageCase[]): BenchTask => ({
+  const task = (id: string, workload: string, n: number, setting: CoverageSetting, cases: CoverageCase[]): BenchTask => ({
     id,
     workload,
     task: `coverage of a ${cases.length}-way split (every graph tested)`,
@@ -392,11 +306,28 @@ function coverageTasks(): BenchTask[] {
     { condition: condition({ predicate: "branch-vertices", relation: "=", value: 1 }) },
     { condition: condition({ predicate: "branch-vertices", relation: ">=", value: 2 }) },
   ];
+  const multigraph = (maxMultiplicity: number, maxLoop: number) => ({ kind: "multigraph", maxMultiplicity, maxLoop }) as const;
+  const multi = (c: unknown) => validateCondition(c, "$", { multigraph: true });
+  const multigraphSplit: CoverageCase[] = [
+    { condition: multi({ predicate: "simple" }) },
+    {
+      condition: multi({
+        and: [
+          { predicate: "loops", relation: ">=", value: 1 },
+          { predicate: "max-degree", relation: "<=", value: 4 },
+        ],
+      }),
+    },
+    { condition: multi({ predicate: "contains", graph: { format: "edges", text: "0 1 2" } }) },
+  ];
   // The enumeration is streamed through the conditions, so the peak memory should not grow with the number of graphs.
   return [
     task("coverage-connected-8", "connected graphs, ≤ 8 vertices", 8, "simple", simpleSplit),
     task("coverage-connected-9", "connected graphs, ≤ 9 vertices", 9, "simple", simpleSplit),
     task("coverage-trees-16", "trees, ≤ 16 vertices", 16, "tree", treeSplit),
+    // Graphs with loops and multiple edges at the claim's caps (coverage-limits.ts): 7 vertices for multiplicity 1 and loops 1, 5 for 2 and 2.
+    task("coverage-multigraphs-1-1-7", "connected graphs with loops ≤ 1, ≤ 7 vertices", 7, multigraph(1, 1), multigraphSplit),
+    task("coverage-multigraphs-2-2-5", "connected graphs with multiplicities ≤ 2 and loops ≤ 2, ≤ 5 vertices", 5, multigraph(2, 2), multigraphSplit),
     task("coverage-trees-18", "trees, ≤ 18 vertices", 18, "tree", treeSplit),
   ];
 }

@@ -1,17 +1,6 @@
 import { describe, expect, it } from "vitest";
-import {
-  extendedDWorkload,
-  extendedE8Workload,
-  halfDenseGraphWorkload,
-  pathWorkload,
-  randomTreeWorkload,
-  sparseGraphWorkload,
-  star4Workload,
-  t12kWorkload,
-  workloadDigest,
-  workloadGraph,
-  type Workload,
-} from "./workloads";
+import { extendedDWorkload, extendedE8Workload, halfDenseGraphWorkload, pathWorkload, randomTreeWorkload } from "./workloads";
+import { sparseGraphWorkload, star4Workload, t12kWorkload, workloadDigest, workloadGraph, type Workload } from "./workloads";
 
 // Expected edge counts and digests: the shared benchmark workload table (BENCH-WORKLOADS.md).
 const table: Array<[string, () => Workload, number, string]> = [

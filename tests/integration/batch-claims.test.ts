@@ -16,13 +16,15 @@ import { models } from "@/models";
 import { closeQueue } from "@/lib/jobs/queue";
 import { runBatchChunk } from "@/lib/jobs/batch";
 import { generateConnected } from "@/lib/core/families/augmentation";
-import { writeGraph6, parseGraph6 } from "@/lib/core/input/graph6";
-import { degree } from "@/lib/core/graph";
+import { writeGraph6, parseGraph6, writeSparse6 } from "@/lib/core/input/graph6";
+import { degree, makeGraph } from "@/lib/core/graph";
+import { canonicalKeyOf } from "@/lib/core/families/canonical-label";
+import { bruteForce, toGraph } from "../support/multigraph-brute-force";
 import { Budget } from "@/lib/core/verdict";
 import { recheckIdentification } from "@/lib/core/families/identify";
 import { recheckExclusion } from "@/lib/core/subgraph/subgraph";
 import { parseGraph } from "@/lib/core/input/parse";
-import { isomorphic } from "@/lib/core/families/enumeration";
+import { isomorphic, readGraphText } from "@/lib/core/families/enumeration";
 import { readListedGraph } from "@/lib/core/input/graph-list";
 import { loadSnapshot } from "@/lib/data/exports";
 import { buildBundle } from "@/lib/export/bundle";
@@ -303,6 +305,54 @@ describe("the list is exactly an enumeration, up to isomorphism", () => {
     // The named missing graph is the tree left out.
     const named = parseGraph6(/\(graph6\) (\S+)$/.exec(b.note)![1]);
     expect(isomorphic(named, treeGraph(trees[0]))).toBe(true);
+  });
+
+  it("graphs with loops and multiple edges from a sparse6 list: the missing class is named in sparse6, a relabelled repeat is refuted", async () => {
+    // Every connected graph on 3 vertices with multiplicities ≤ 2 and loops ≤ 1, from the independent brute force,
+    // with P3-with-a-looped-middle left out and the path with a double edge listed twice (the second relabelled).
+    const every = bruteForce(3, 2, 1).map(toGraph);
+    const loopedMiddle = makeGraph(3, [
+      { u: 0, v: 1 },
+      { u: 1, v: 2 },
+      { u: 1, v: 1, m: 1 },
+    ]);
+    const doubled = makeGraph(3, [
+      { u: 0, v: 1, m: 2 },
+      { u: 1, v: 2 },
+    ]);
+    const kept = every.filter((g) => canonicalKeyOf(g) !== canonicalKeyOf(loopedMiddle));
+    const text =
+      [
+        ...kept,
+        makeGraph(3, [
+          { u: 2, v: 1, m: 2 },
+          { u: 1, v: 0 },
+        ]),
+      ]
+        .map((g) => writeSparse6(g))
+        .join("\n") + "\n";
+    const id = await upload(text, "multi-3.s6");
+    const b = await run(id, { kind: "enumeration-exactly", setting: "multigraph", maxMultiplicity: 2, maxLoop: 1, vertices: 3 });
+    expect(b).toMatchObject({ status: "done", total: every.length, verified: every.length - 1, refuted: 1, missing: 1 });
+    expect(b.statement).toBe(
+      "the list is, up to isomorphism, exactly the connected graphs with edges of multiplicity ≤ 2 and loops of weight ≤ 1 on 3 vertices",
+    );
+    const named = /\(sparse6\) (\S+)$/.exec(b.note)![1];
+    expect(canonicalKeyOf(readGraphText(named))).toBe(canonicalKeyOf(loopedMiddle));
+    const rows = (await (await results(b.id, "only=failing")).json()).results;
+    const first = kept.findIndex((g) => canonicalKeyOf(g) === canonicalKeyOf(doubled)) + 1;
+    expect(rows).toEqual([
+      expect.objectContaining({
+        line: every.length,
+        verdict: "refuted",
+        reason: `G is isomorphic to the graph listed at line ${first}: the list must name each class once`,
+      }),
+    ]);
+    // Bounds that do not fit the setting: 422 naming the field.
+    await actAs("author");
+    const noLoop = await start({ fileId: id, kind: "enumeration-exactly", setting: "multigraph", maxMultiplicity: 2, vertices: 3 });
+    expect(noLoop.status).toBe(422);
+    expect((await noLoop.json()).error.issues[0].path).toBe("maxLoop");
   });
 
   it("refuses an enumeration too large to run (422 on vertices)", async () => {

@@ -12,6 +12,10 @@ import { getCaseTree } from "@/lib/data/cases";
 import { flattenCaseTree } from "@/lib/proof-tree";
 import * as caseRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/route";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
+import { makeGraph } from "@/lib/core/graph";
+import { canonicalKeyOf } from "@/lib/core/families/canonical-label";
+import { readGraphText } from "@/lib/core/families/enumeration";
+import { LEAKY_MULTIGRAPH_SPLIT } from "../support/multigraph-brute-force";
 
 let proofId: string;
 let caseId: number;
@@ -87,7 +91,7 @@ describe("coverage claims through the API", () => {
     // Trees on ≤ 5 vertices: 1 + 1 + 1 + 2 + 3 = 8 (OEIS A000055) of the 31 connected graphs (OEIS A001349).
     expect(reason).toMatch(/tree covers 8, cyclic covers 23/);
     // The method and its certificate words fit the 200-character column.
-    expect(rows.every((r) => r.method!.length < 200 && r.method!.endsWith("(graph6)"))).toBe(true);
+    expect(rows.every((r) => r.method!.length < 200 && r.method!.endsWith("(graph6 or sparse6)"))).toBe(true);
     expect(reason).toMatch(/4 of the 31 graphs satisfy no sub-case/);
   });
 
@@ -115,6 +119,45 @@ describe("coverage claims through the API", () => {
     expect(JSON.parse(row.input).cases.map((x: { label: string }) => x.label)).toEqual(["A path", "One branch vertex", "Two or more branch vertices"]);
     // All 1 + 1 + 1 + 2 + 3 + 6 + 11 + 23 + 47 + 106 = 201 trees on ≤ 10 vertices (OEIS A000055).
     expect(row.reason).toMatch(/^All 201 graphs/);
+  });
+
+  it("runs over graphs with loops and multiple edges: a leaky split is refuted naming the missing multigraph in sparse6", async () => {
+    await actAs("author");
+    const claim = (extra: Record<string, unknown>) => ({
+      format: "cairn-claim/1",
+      kind: "coverage",
+      setting: "multigraph",
+      maxMultiplicity: 2,
+      maxLoop: 1,
+      ...extra,
+    });
+    // LEAKY_MULTIGRAPH_SPLIT: on ≤ 4 vertices only the double edge on 2 vertices escapes.
+    const leaky = claim({ maxVertices: 4, cases: LEAKY_MULTIGRAPH_SPLIT });
+    const res = await claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims: [leaky] }), params({ proofId, stepId }));
+    expect(res.status).toBe(200);
+    const [c] = (await res.json()).claims as Array<{ id: number; status: string }>;
+    expect(c.status).toBe("refuted");
+    const row = (await models().Claim.findByPk(c.id))!;
+    expect(JSON.parse(row.input)).toMatchObject({ setting: "multigraph", maxMultiplicity: 2, maxLoop: 1 });
+    const named = /satisfy no sub-case's condition: (\S+) \(sparse6\)/.exec(row.reason!)![1];
+    expect(canonicalKeyOf(readGraphText(named))).toBe(canonicalKeyOf(makeGraph(2, [{ u: 0, v: 1, m: 2 }])));
+    // The card draws it (the double edge) and names it in sparse6.
+    const picture = JSON.parse(row.picture!) as { pictures: Array<{ title: string; edges: Array<[number, number, number]> }> };
+    expect(picture.pictures).toEqual([expect.objectContaining({ title: `uncovered graph 1 (sparse6 ${named})`, edges: [[0, 1, 2]] })]);
+
+    // A predicate with no meaning there, and N past the cap for the bounds, are 422s naming the field; nothing is stored.
+    const before = await models().Claim.count({ where: { stepId: Number(stepId) } });
+    const branch = claim({ maxVertices: 3, cases: [{ condition: { predicate: "branch-vertices", relation: "=", value: 0 } }] });
+    const bad = await claimsRoute.POST(jsonRequest("/x", "POST", { claims: [branch] }), params({ proofId, stepId }));
+    expect(bad.status).toBe(422);
+    expect(JSON.stringify(await bad.json())).toMatch(/claims\.0\.cases\[0\]\.condition\.predicate.*branch-vertices.*no agreed meaning/);
+    const big = await claimsRoute.POST(
+      jsonRequest("/x", "POST", { claims: [claim({ maxVertices: 9, cases: [{ condition: { predicate: "simple" } }] })] }),
+      params({ proofId, stepId }),
+    );
+    expect(big.status).toBe(422);
+    expect(JSON.stringify(await big.json())).toMatch(/claims\.0\.maxVertices.*at most 5 vertices/);
+    expect(await models().Claim.count({ where: { stepId: Number(stepId) } })).toBe(before);
   });
 
   it("answers 422 with the path of a bad condition inside a coverage claim", async () => {

@@ -4,6 +4,7 @@
  * of enumeration, coverage and the batch. Not part of the product.
  */
 import { makeGraph, type Graph } from "../../lib/core/graph";
+import { integerDeterminant } from "../../lib/core/arithmetic/determinant";
 
 /**
  * Independent brute force (a different code path from the generator and canonical-label.ts): every
@@ -60,30 +61,11 @@ export function bruteForce(n: number, maxMult: number, maxLoop: number, keep: (A
   return [...classes.values()].filter((m) => m.length > 0);
 }
 
-/** det by fraction-free (Bareiss) elimination on BigInts, exact. */
-function det(M: bigint[][]): bigint {
-  const a = M.map((r) => [...r]);
-  const n = a.length;
-  let prev = 1n,
-    sign = 1n;
-  for (let k = 0; k < n - 1; k++) {
-    if (a[k][k] === 0n) {
-      const r = a.findIndex((row, i) => i > k && row[k] !== 0n);
-      if (r < 0) return 0n;
-      [a[k], a[r]] = [a[r], a[k]];
-      sign = -sign;
-    }
-    for (let i = k + 1; i < n; i++) for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
-    prev = a[k][k];
-  }
-  return sign * a[n - 1][n - 1];
-}
-
 /** ρ(A) ≤ 2 ⟺ 2I − A is positive semidefinite ⟺ every principal minor ≥ 0; ρ(A) < 2 ⟺ every leading principal minor > 0 (Sylvester). */
 export function rhoAtMostTwo(A: number[][], strict: boolean): boolean {
   const n = A.length;
   const B = A.map((r, i) => r.map((x, j) => BigInt((i === j ? 2 : 0) - x)));
-  const minor = (idx: number[]) => det(idx.map((i) => idx.map((j) => B[i][j])));
+  const minor = (idx: number[]) => integerDeterminant(idx.map((i) => idx.map((j) => B[i][j])));
   if (strict) return [...Array(n).keys()].every((k) => minor([...Array(k + 1).keys()]) > 0n);
   for (let mask = 1; mask < 1 << n; mask++) if (minor([...Array(n).keys()].filter((i) => mask & (1 << i))) < 0n) return false;
   return true;
@@ -94,3 +76,22 @@ export const toGraph = (A: number[][]): Graph => {
   for (let u = 0; u < A.length; u++) for (let v = u; v < A.length; v++) if (A[u][v]) edges.push({ u, v, m: A[u][v] });
   return makeGraph(A.length, edges);
 };
+
+/**
+ * A deliberately leaky split of the connected graphs with loops and multiple edges: simple / has a loop /
+ * a multiple edge on at least 3 vertices. The only graph it misses is the double edge on 2 vertices
+ * (elementary: a non-simple loopless graph has a multiple edge, and on 2 vertices that is the double edge).
+ */
+export const LEAKY_MULTIGRAPH_SPLIT = [
+  { label: "simple", condition: { predicate: "simple" } },
+  { label: "looped", condition: { predicate: "loops", relation: ">=", value: 1 } },
+  {
+    label: "multiple, n ≥ 3",
+    condition: {
+      and: [
+        { predicate: "multiple-edges", relation: ">=", value: 1 },
+        { predicate: "vertices", relation: ">=", value: 3 },
+      ],
+    },
+  },
+] as const;

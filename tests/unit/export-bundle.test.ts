@@ -99,6 +99,40 @@ describe("bundle", () => {
     expect(forged.lines.find((l) => l.label === "claim 1(a)#1")?.certificate?.text).toMatch(/does NOT match: .*marks/);
   });
 
+  it("an exported B5 dynkin-data claim re-checks with the offline checker command; forged marks, re-sealed, are refused by name", async () => {
+    // B5 in Bourbaki's numbering (Plate II): highest root α1 + 2α2 + 2α3 + 2α4 + 2α5, h = 10, exponents 1, 3, 5, 7, 9;
+    // |W(B5)| = 2⁵·5! = 3840 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4).
+    const b5 = verifiedClaim({
+      id: "B5-data",
+      kind: "dynkin-data",
+      type: "B5",
+      coxeterNumber: 10,
+      exponents: [1, 3, 5, 7, 9],
+      marks: [1, 2, 2, 2, 2],
+      weylGroupOrder: "3840",
+    });
+    expect(b5.status, b5.reason ?? "").toBe("verified");
+    const snapshot = settledSnapshot(undefined, [b5]);
+    const b = buildBundle(snapshot, { kind: "draft", exportedAt: "2026-12-01T10:00:00.000Z", exportedBy: "Ada Quenby" });
+    const items = b.items.map((i) => {
+      if (i.id !== "claim 1(a)#1") return i;
+      const data = JSON.parse(JSON.stringify(i.data)) as { certificate: string | { evidence: { marks: number[] } } };
+      const cert = typeof data.certificate === "string" ? JSON.parse(data.certificate) : data.certificate;
+      // C5's marks (Plate III): a certificate for the other numbering must not pass for B5.
+      cert.evidence.marks = [2, 2, 2, 2, 1];
+      return { ...i, data: { ...data, certificate: typeof data.certificate === "string" ? JSON.stringify(cert) : cert } };
+    });
+    const resealed = sealBundle(
+      b.export,
+      items.map(({ id, type, data }) => ({ id, type, data })),
+    );
+    const [clean, forged] = await Promise.all([runChecker(b, "b5-clean.json"), runChecker(resealed, "b5-forged.json")]);
+    expect(clean.code, clean.out).toBe(0);
+    expect(clean.out).toMatch(/✓ verified\s+claim 1\(a\)#1/);
+    expect(forged.code).toBe(1);
+    expect(forged.out).toMatch(/certificate\.marks is \[2,2,2,2,1\]; recomputed for B5 it is \[1,2,2,2,2\]/);
+  });
+
   it("a changed verdict fails even when the tamperer re-seals every digest", () => {
     const b = fresh();
     const items = b.items.map((i) =>

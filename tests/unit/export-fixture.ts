@@ -38,8 +38,11 @@ const approve = (revisionNumber: number, digest: string): SnapshotReview => ({
   at: "2026-11-30T12:00:00.000Z",
 });
 
-/** Ready to certify: every step vouched at its latest revision, every claim verified, no dispute. */
-export function settledSnapshot(title = "Trees with spectral radius in (2, √(2+√5)]"): ProofSnapshot {
+/**
+ * Ready to certify: every step vouched at its latest revision, every claim verified, no dispute. `firstStepClaims`
+ * replaces the claims of the first step (its revision and vouch then cover those instead).
+ */
+export function settledSnapshot(title = "Trees with spectral radius in (2, √(2+√5)]", firstStepClaims?: SnapshotClaim[]): ProofSnapshot {
   const step = (id: number, body: string, claims: SnapshotClaim[] = []) => {
     const covered = claims.map((c) => ({ digest: c.digest ?? "", status: c.status }));
     const digest = revisionDigest({ number: 2, body, claims: covered });
@@ -75,7 +78,7 @@ export function settledSnapshot(title = "Trees with spectral radius in (2, √(2
 $$\rho(T) \ge \sqrt5 > \sqrt{2+\sqrt5}.$$
 - first, with *emphasis* and **bold**
 - second, with ` + "`code_x`",
-            [verifiedClaim({ id: "E8-tree", kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" })],
+            firstStepClaims ?? [verifiedClaim({ id: "E8-tree", kind: "structure", graph: { format: "named", text: "E(8)" }, predicate: "tree" })],
           ),
         ],
         children: [

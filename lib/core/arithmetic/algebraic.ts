@@ -16,6 +16,7 @@
 import { NumberFormatError, Rational, rat, add, sub, mul, div, cmp, midpoint, ratToNumber, sign, isqrt, neg, absBig, floor } from "./rational";
 import { Poly, trim, deg, lead, primitive, signAt, squarefree, sturmSequence, signVariations, rootBound, polyToString } from "./sturm";
 import { factorSquarefree } from "./factor";
+import { integerDeterminant } from "./determinant";
 
 export type Bound =
   | { readonly kind: "rational"; readonly text: string; readonly value: Rational }
@@ -126,25 +127,6 @@ export function algebraicBound(form: "sqrt" | "2cos" | "root" | "expression", te
 
 // ---------------------------------------------------------------- resultants
 
-/** Determinant of an integer matrix by fraction-free elimination (Bareiss 1968). */
-function determinant(m: bigint[][]): bigint {
-  const n = m.length;
-  const a = m.map((r) => r.slice());
-  let prev = 1n,
-    sgn = 1n;
-  for (let k = 0; k < n - 1; k++) {
-    if (a[k][k] === 0n) {
-      const swap = a.findIndex((r, i) => i > k && r[k] !== 0n);
-      if (swap < 0) return 0n;
-      [a[k], a[swap]] = [a[swap], a[k]];
-      sgn = -sgn;
-    }
-    for (let i = k + 1; i < n; i++) for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
-    prev = a[k][k];
-  }
-  return sgn * a[n - 1][n - 1];
-}
-
 /** Resultant of two univariate integer polynomials (Sylvester matrix). */
 function resultant(f: Poly, g: Poly): bigint {
   const m = deg(f),
@@ -163,7 +145,7 @@ function resultant(f: Poly, g: Poly): bigint {
     for (let j = 0; j <= n; j++) r[i + j] = g[n - j];
     rows.push(r);
   }
-  return determinant(rows);
+  return integerDeterminant(rows);
 }
 
 /** The integer polynomial of degree <= D through (k, values[k]), k = 0..D (Newton's divided differences). */

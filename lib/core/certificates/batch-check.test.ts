@@ -9,11 +9,10 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { checkBundle, sealBundle, type Bundle } from "./bundle";
 import type { BatchItemData } from "./batch-check";
-import { checkListedGraphs, batchStatement, type BatchStatement } from "../claims/batch";
-import { splitGraphList } from "../input/graph-list";
+import type { BatchStatement } from "../claims/batch";
+import { batchItemData, BUNDLE_HEADER } from "../../../tests/support/batch-item";
 import { generateConnected } from "../families/augmentation";
 import { writeGraph6 } from "../input/graph6";
-import { sha256Hex } from "../digest";
 import { Budget } from "../verdict";
 import { main } from "../cli";
 
@@ -21,29 +20,8 @@ import { main } from "../cli";
 const trees = generateConnected({ maxVertices: 10, setting: { kind: "tree" }, collect: true, budget: new Budget(1e9) }).levels[9].map((g) => writeGraph6(g));
 const text = trees.join("\n") + "\n";
 
-function batchData(statement: BatchStatement): BatchItemData {
-  const entries = splitGraphList(text, "graph6");
-  const results = checkListedGraphs(entries, "graph6", statement, 0, entries.length, 1e8);
-  const tally = { verified: 0, refuted: 0, undecided: 0, unreadable: 0 };
-  for (const r of results) tally[r.verdict]++;
-  return {
-    step: "step 1(a)",
-    statement,
-    words: batchStatement(statement),
-    status: "done",
-    file: { name: "trees-10.g6", format: "graph6", text, textSha256: sha256Hex(text), sha256: sha256Hex(text) },
-    counts: { total: results.length, ...tally },
-    results: results.map((r) => ({ entry: r.entry, line: r.line, verdict: r.verdict, certificate: r.certificate ? JSON.parse(r.certificate) : null })),
-    checkerVersion: "test",
-  };
-}
-const header = {
-  kind: "certified" as const,
-  exportedAt: "2026-01-01T00:00:00.000Z",
-  exportedBy: "Ada Quenby",
-  proofState: "ready to certify",
-  checkerVersion: "test",
-};
+const batchData = (statement: BatchStatement): BatchItemData => batchItemData(statement, text, "graph6", "trees-10.g6");
+const header = BUNDLE_HEADER;
 const seal = (data: unknown): Bundle => sealBundle(header, [{ id: "batch 1(a)#1", type: "batch", data }]);
 const batchLine = (b: unknown) => checkBundle(b, "bundle.json").lines.find((l) => l.label === "batch 1(a)#1")!;
 const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;

@@ -308,6 +308,14 @@ const PINS: { [K in ClaimKind]: Pin[] } = {
       method: /^identification, exact inertia at 2cos\(π\/h\)/,
       certificate: "dynkin-data",
     },
+    // |W(F4)| = 1152 (Humphreys, Reflection Groups and Coxeter Groups, Table 2.4; Bourbaki Plate VIII).
+    {
+      name: "|W(F4)| = 1152",
+      claim: { type: "F4", weylGroupOrder: "1152" },
+      status: "verified",
+      method: /^Cartan matrix from the root lengths and bonds; highest root by the reflection walk, h = 1 \+ its height; exponents from det\(xI − M\)/,
+      certificate: "dynkin-data",
+    },
     // Ẽ8 = T(1,2,5) is affine (Bourbaki Ch. VI §4.3), so it has no Coxeter number as a finite diagram.
     {
       name: "Ẽ8 is no finite Dynkin diagram",

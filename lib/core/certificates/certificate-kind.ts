@@ -72,13 +72,13 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       return kind && kind in STRUCTURE_WORDS ? { key: kind, words: STRUCTURE_WORDS[kind] } : null;
     case "dynkin-data":
       if (kind !== "dynkin-data") return null;
+      if ("cartanMatrix" in e)
+        return { key: "dynkin-data", words: "Cartan matrix, highest root, Coxeter graph's characteristic polynomial, Weyl group and quantum integer values" };
       return "marks" in e
         ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
         : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
     case "coverage":
-      return kind === "coverage"
-        ? { key: "coverage", words: "counts per order and sub-case, uncovered graphs (graph6, or sparse6 with loops and multiple edges)" }
-        : null;
+      return kind === "coverage" ? { key: "coverage", words: "counts per order and sub-case, uncovered graphs (graph6 or sparse6)" } : null;
     case "enumeration":
       return kind === "enumeration" ? { key: "enumeration", words: "list of the graphs found (graph6), with counts by order" } : null;
     default:

@@ -1,6 +1,8 @@
 /**
  * The batch statement "the list is, up to isomorphism, exactly the trees (or the connected simple
- * graphs) on n vertices [with ρ(G) op b]". The enumeration is Cairn's own (canonical augmentation,
+ * graphs, or the connected graphs with loops and multiple edges within two bounds) on n vertices
+ * [with ρ(G) op b]". In the multigraph setting the graphs the enumeration names (a missing class, a
+ * member's place) are written in sparse6, otherwise in graph6. The enumeration is Cairn's own (canonical augmentation,
  * families/enumeration.ts), one graph per isomorphism class in a fixed order; classes are compared by
  * canonical form (families/canonical-label.ts).
  *
@@ -9,18 +11,22 @@
  * a class listed twice makes the later listing refuted (`duplicateOf` names the first), and the classes
  * not listed at all are `missing`; both are settled once every graph is decided (settleEnumeration).
  */
-import { isSimple, type Graph } from "../graph";
+import type { Graph } from "../graph";
 import { Budget, type Verdict } from "../verdict";
 import { parseBound } from "../arithmetic/bound";
-import { writeGraph6 } from "../input/graph6";
+import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { canonicalKeyOf } from "../families/canonical-label";
-import { enumerateConnected } from "../families/enumeration";
+import { claimEnumerationSetting, enumerateConnected, outsideSetting, settingWords } from "../families/enumeration";
 import { isConnected } from "../families/structure";
-import { isForest } from "../spectral/tree-inertia";
+import { multigraphMaxVertices } from "../families/coverage-limits";
+import { MULTIGRAPH_MAX_WEIGHT } from "./claim-schema-enumeration";
 
 export interface EnumerationBatchStatement {
   kind: "enumeration-exactly";
-  setting: "tree" | "simple";
+  setting: "tree" | "simple" | "multigraph";
+  /** Multigraph setting only (and then both): the largest edge multiplicity (1..4) and loop weight (0..4). */
+  maxMultiplicity?: number;
+  maxLoop?: number;
   vertices: number;
   /** Optional ρ condition; without it, every class on `vertices` vertices. */
   op?: "<" | "<=";
@@ -29,6 +35,41 @@ export interface EnumerationBatchStatement {
 
 /** Largest n: 23,724 trees on 18 vertices (OEIS A000055); 11,117 connected graphs on 8 vertices (OEIS A001349). */
 export const ENUMERATION_BATCH_MAX = { tree: 18, simple: 8 } as const;
+/** The most graphs (estimated, coverage-limits.ts) a multigraph batch enumerates on its n vertices: about the trees on 18. */
+export const MULTIGRAPH_BATCH_GRAPHS = 30_000n;
+
+/** Largest n of an enumeration batch in its setting. */
+export function enumerationBatchMax(s: Pick<EnumerationBatchStatement, "setting" | "maxMultiplicity" | "maxLoop">): number {
+  return s.setting === "multigraph" ? multigraphMaxVertices(s.maxMultiplicity ?? 1, s.maxLoop ?? 0, MULTIGRAPH_BATCH_GRAPHS) : ENUMERATION_BATCH_MAX[s.setting];
+}
+
+/** Throws an Error saying what is wrong with the statement's setting, size or ρ condition. */
+export function validateEnumerationBatch(s: EnumerationBatchStatement): void {
+  if (s.setting !== "tree" && s.setting !== "simple" && s.setting !== "multigraph")
+    throw new Error(`unknown setting "${String(s.setting)}"; use tree, simple or multigraph`);
+  if (s.setting === "multigraph") {
+    for (const [k, min] of [
+      ["maxMultiplicity", 1],
+      ["maxLoop", 0],
+    ] as const) {
+      const v = s[k];
+      if (!Number.isInteger(v) || v! < min || v! > MULTIGRAPH_MAX_WEIGHT)
+        throw new Error(`with loops and multiple edges give ${k} as an integer from ${min} to ${MULTIGRAPH_MAX_WEIGHT}, got ${String(v)}`);
+    }
+  } else if (s.maxMultiplicity !== undefined || s.maxLoop !== undefined)
+    throw new Error('maxMultiplicity and maxLoop are given only with the setting "multigraph"');
+  const max = enumerationBatchMax(s);
+  if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max)
+    throw new Error(
+      `choose 1 to ${max} vertices for ${settingWords(claimEnumerationSetting(s))}${s.setting === "multigraph" ? " (lower maxMultiplicity or maxLoop to go further)" : ""}`,
+    );
+  if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
+  if (s.op !== undefined && s.op !== "<" && s.op !== "<=") throw new Error(`the relation of an enumeration is < or ≤, not "${String(s.op)}"`);
+}
+
+/** The format the statement's graphs are named in: sparse6 with loops and multiple edges, graph6 otherwise. */
+export const enumerationFormat = (s: EnumerationBatchStatement): "graph6" | "sparse6" => (s.setting === "multigraph" ? "sparse6" : "graph6");
+const enumerationText = (s: EnumerationBatchStatement, g: Graph): string => (s.setting === "multigraph" ? writeSparse6(g) : writeGraph6(g));
 
 export interface MemberCertificate {
   kind: "enumeration-member";
@@ -45,23 +86,23 @@ export interface Enumeration {
 const cache = new Map<string, Enumeration>();
 
 export function enumerationWords(s: EnumerationBatchStatement): string {
-  const what = s.setting === "tree" ? "trees" : "connected simple graphs";
+  const what = settingWords(claimEnumerationSetting(s));
   const rho = s.op && s.bound ? ` with ρ(G) ${s.op === "<" ? "<" : "≤"} ${parseBound(s.bound).text}` : "";
   return `${what} on ${s.vertices} vertices${rho}`;
 }
 
 /** The enumeration (cached per statement); throws on a statement out of range. */
 export function enumerationOf(s: EnumerationBatchStatement, budget = new Budget(1e10)): Enumeration {
-  const max = ENUMERATION_BATCH_MAX[s.setting];
-  if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max)
-    throw new Error(`the ${s.setting === "tree" ? "trees" : "connected simple graphs"} can be enumerated on 1 to ${max} vertices`);
-  if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
-  const key = JSON.stringify([s.setting, s.vertices, s.op ?? null, s.bound ?? null]);
+  validateEnumerationBatch(s);
+  const key = JSON.stringify([s.setting, s.maxMultiplicity ?? null, s.maxLoop ?? null, s.vertices, s.op ?? null, s.bound ?? null]);
   const hit = cache.get(key);
   if (hit) return hit;
-  // Without a ρ condition: ρ(G) ≤ Δ(G) ≤ n − 1 < n for every graph on n vertices (Perron–Frobenius; common knowledge).
-  const bound = parseBound(s.bound ?? String(s.vertices));
-  const graphs = enumerateConnected(s.vertices, s.op ?? "<", bound, budget, { setting: s.setting }).levels[s.vertices - 1] ?? [];
+  // Without a ρ condition: ρ(G) ≤ the largest row sum of A (Perron–Frobenius; common knowledge), which is at most
+  // (n − 1)·M + L with multiplicities ≤ M and loop weights ≤ L; so "ρ < (n − 1)·M + L + 1" keeps every graph.
+  const setting = claimEnumerationSetting(s);
+  const rowSum = setting.kind === "multigraph" ? (s.vertices - 1) * setting.maxMultiplicity + setting.maxLoop : s.vertices - 1;
+  const bound = parseBound(s.bound ?? String(rowSum + 1));
+  const graphs = enumerateConnected(s.vertices, s.op ?? "<", bound, budget, { setting }).levels[s.vertices - 1] ?? [];
   const e = { graphs, index: new Map(graphs.map((g, i) => [canonicalKeyOf(g), i])) };
   if (cache.size > 8) cache.clear();
   cache.set(key, e);
@@ -75,16 +116,16 @@ export function checkMember(s: EnumerationBatchStatement, g: Graph, budget: Budg
   const method = "canonical form looked up in the enumeration by canonical augmentation (McKay 1998)";
   const no = (reason: string): Verdict<MemberCertificate> => ({ status: "refuted", statement, method, reason });
   if (g.n !== s.vertices) return no(`G has ${g.n} vertices, not ${s.vertices}`);
-  if (!isSimple(g)) return no("G has a loop or a multiple edge");
+  const outside = outsideSetting(g, claimEnumerationSetting(s));
+  if (outside) return no(`G ${outside}`);
   if (isConnected(g, budget).status !== "verified") return no("G is not connected");
-  if (s.setting === "tree" && !isForest(g)) return no("G has a cycle");
   const index = e.index.get(canonicalKeyOf(g, budget));
   if (index === undefined) return no(`G is connected on ${s.vertices} vertices but not in the enumeration: ρ(G) is not within the bound`);
   return {
     status: "verified",
     statement,
     method,
-    reason: `G is isomorphic to graph ${index + 1} of the ${e.graphs.length} enumerated (${writeGraph6(e.graphs[index])}): equal canonical forms`,
+    reason: `G is isomorphic to graph ${index + 1} of the ${e.graphs.length} enumerated (${enumerationFormat(s)} ${enumerationText(s, e.graphs[index])}): equal canonical forms`,
     certificate: { kind: "enumeration-member", index, of: e.graphs.length },
   };
 }
@@ -104,7 +145,7 @@ export function recheckMember(s: EnumerationBatchStatement, g: Graph, certificat
 export interface EnumerationSettlement {
   /** Later listings of a class already listed: entry → the line of the first listing. */
   duplicates: Array<{ entry: number; firstLine: number }>;
-  /** Classes of the enumeration not listed, in graph6. */
+  /** Classes of the enumeration not listed, in graph6 (sparse6 in the multigraph setting: enumerationFormat). */
   missing: string[];
 }
 
@@ -123,7 +164,7 @@ export function settleEnumeration(
     if (seen === undefined) first.set(c.index, r.line);
     else duplicates.push({ entry: r.entry, firstLine: seen });
   }
-  const missing = e.graphs.flatMap((g, i) => (first.has(i) ? [] : [writeGraph6(g)]));
+  const missing = e.graphs.flatMap((g, i) => (first.has(i) ? [] : [enumerationText(s, g)]));
   return { duplicates, missing };
 }
 

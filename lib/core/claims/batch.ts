@@ -16,7 +16,7 @@ import { excludeSubgraphs } from "../subgraph/subgraph";
 import { identifySmith, type IsomorphismCertificate } from "../families/identify";
 import { isSmithFamily, SMITH_FAMILIES, type SmithFamily } from "../families/smith-families";
 import type { Verdict } from "../verdict";
-import { checkMember, ENUMERATION_BATCH_MAX, enumerationWords, type EnumerationBatchStatement } from "./batch-enumeration";
+import { checkMember, enumerationWords, validateEnumerationBatch, type EnumerationBatchStatement } from "./batch-enumeration";
 
 export type ListedVerdict = "verified" | "refuted" | "undecided" | "unreadable";
 
@@ -130,12 +130,7 @@ function prepare(s: BatchStatement): Prepared {
       };
     }
     case "enumeration-exactly": {
-      const max = ENUMERATION_BATCH_MAX[s.setting];
-      if (!max) throw new Error(`unknown setting "${String(s.setting)}"; use tree or simple`);
-      if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max)
-        throw new Error(`choose 1 to ${max} vertices for ${s.setting === "tree" ? "trees" : "connected simple graphs"}`);
-      if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
-      if (s.op !== undefined && s.op !== "<" && s.op !== "<=") throw new Error(`the relation of an enumeration is < or ≤, not "${String(s.op)}"`);
+      validateEnumerationBatch(s);
       // The enumeration itself runs on the first graph checked (in a worker), never when the statement is read.
       return { words: `the list is, up to isomorphism, exactly the ${enumerationWords(s)}`, check: (g, budget) => checkMember(s, g, budget) };
     }

@@ -5,7 +5,7 @@
  */
 import type { CoverageClaim } from "./claim-schema";
 import type { ClaimHandler } from "./claim-support";
-import { checkCoverage, coverageStatement, recheckCoverage } from "../families/coverage";
+import { checkCoverage, coveragePart, coverageStatement, recheckCoverage, type CoveragePartResult } from "../families/coverage";
 import { claimEnumerationSetting } from "../families/enumeration";
 
 export const COVERAGE_HANDLER: ClaimHandler<CoverageClaim> = {
@@ -13,4 +13,6 @@ export const COVERAGE_HANDLER: ClaimHandler<CoverageClaim> = {
   limit: () => undefined, // maxVertices and the number of sub-cases are capped by validateClaim
   verify: (c, _inputs, budget) => checkCoverage(c.maxVertices, c.cases, budget, claimEnumerationSetting(c)),
   recheck: (c, _inputs, outcome, evidence, budget) => recheckCoverage(c.maxVertices, c.cases, outcome, evidence, budget, claimEnumerationSetting(c)),
+  part: (c, _inputs, part, parts, budget) => coveragePart(c.maxVertices, c.cases, claimEnumerationSetting(c), part, parts, budget),
+  fromParts: (c, _inputs, parts, budget) => checkCoverage(c.maxVertices, c.cases, budget, claimEnumerationSetting(c), parts as readonly CoveragePartResult[]),
 };

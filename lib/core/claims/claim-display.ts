@@ -17,6 +17,7 @@ import { parseGraph } from "../input/parse";
 import { describeCondition } from "../families/case-condition";
 import { caseName, coverageCaution } from "../families/coverage";
 import { claimEnumerationSetting, settingWords } from "../families/enumeration";
+import { isMultilacedType } from "../spectral/dynkin-multilaced";
 
 export const LARGE_INPUT_VERTICES = 200;
 export const LARGE_INPUT_CHARACTERS = 2_000;
@@ -203,12 +204,16 @@ function entriesOf(c: Claim): InputEntry[] {
     case "dynkin-data": {
       const out: InputEntry[] = [];
       if (c.type) out.push(text("type", c.type));
+      const multilaced = isMultilacedType(c.type);
       if (c.graph) out.push(graph("graph G", c.graph, "G"));
+      else if (multilaced)
+        out.push(text("diagram", `${c.type}, roots numbered as in Bourbaki's plates (a multiple bond: checked on its Cartan matrix, not as a graph)`));
       else out.push(text("graph G", `the diagram ${c.type} (vertex order of the named diagram)`));
       if (c.coxeterNumber !== undefined) out.push(text("Coxeter number h", String(c.coxeterNumber)));
-      if (c.spectralRadius !== undefined) out.push(text("spectral radius ρ", c.spectralRadius));
+      if (c.spectralRadius !== undefined)
+        out.push(text(multilaced ? "spectral radius ρ(M) of the Coxeter graph's matrix M_ij = 2cos(π/m_ij)" : "spectral radius ρ", c.spectralRadius));
       if (c.exponents) out.push(listEntry("exponents m_i", c.exponents.map(String)));
-      if (c.marks) out.push(listEntry("marks a_i of the highest root (G's vertex order)", c.marks.map(String)));
+      if (c.marks) out.push(listEntry(`marks a_i of the highest root (${multilaced ? "Bourbaki's numbering" : "G's vertex order"})`, c.marks.map(String)));
       if (c.indexOfConnection !== undefined) out.push(text("index of connection f", String(c.indexOfConnection)));
       if (c.weylGroupOrder !== undefined) out.push(text("order of the Weyl group |W|", c.weylGroupOrder));
       if (c.poincarePolynomial) out.push(listEntry("Poincaré polynomial W(q), coefficients from the highest power down", c.poincarePolynomial));

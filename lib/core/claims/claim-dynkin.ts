@@ -1,7 +1,8 @@
 /**
  * The "dynkin-data" claim kind: the Coxeter number, ρ = 2cos(π/h), exponents, marks of the highest
  * root, index of connection, order and Poincaré polynomial of the Weyl group and the quantum integers
- * at q = e^{iπ/h} of a finite simply-laced Dynkin diagram, given by type or as a graph.
+ * at q = e^{iπ/h} of a finite simply-laced Dynkin diagram, given by type or as a graph (B_n, C_n, F4, G2: see
+ * claim-dynkin-multilaced.ts; the handler below sends them there).
  *
  * Verification: the graph is identified (isomorphism onto A_n, D_n, E6–E8, identify.ts); h is checked
  * on the graph by exact inertia (ρ(G) = 2cos(π/h), inertia.ts) and the exponents by the characteristic
@@ -11,28 +12,16 @@
  * re-checks, the marks as a dominant root of norm 2, and recomputes the rest.
  */
 import type { DynkinDataClaim } from "./claim-schema";
-import { CLAIM_LIMITS, ClaimInputError, graphOf, type ClaimHandler } from "./claim-support";
-import { parseBound, twoCosBound, type Bound } from "../arithmetic/bound";
-import { NumberFormatError } from "../arithmetic/rational";
+import { CLAIM_LIMITS, graphOf, type ClaimHandler } from "./claim-support";
+import { dynkinStatement, firstMismatch, openDynkinCertificate, high, list, quantumFacts, rhoOf, same, type DynkinFacts } from "./claim-dynkin-facts";
+import { recheckMultilacedDynkin, verifyMultilacedDynkin } from "./claim-dynkin-multilaced";
 import { recheckSpectralRadiusBound, spectralRadiusBound } from "../spectral/inertia";
 import { coxeterData, eigenvalueClaim, recheckEigenvalueClaim } from "../spectral/spectral";
 import { identifySmith, recheckIdentification } from "../families/identify";
 import { parseFamilyName, familyDisplay, isSmithFamily } from "../families/smith-families";
-import {
-  cartanMatrix,
-  chebyshevS,
-  equalsBound,
-  highestRootMarks,
-  indexOfConnection,
-  poincarePolynomial,
-  quantumIntegers,
-  reduceModMonic,
-  rhoMinimalPolynomial,
-  weylOrderFromExponents,
-  weylOrderFromMarks,
-} from "../spectral/dynkin-data";
-import { polyToString, type Poly } from "../arithmetic/sturm";
-import { expectIntArray, expectRecord } from "../certificates/certificate-check";
+import { cartanMatrix, highestRootMarks, indexOfConnection, poincarePolynomial, weylOrderFromExponents, weylOrderFromMarks } from "../spectral/dynkin-data";
+import { isMultilacedType } from "../spectral/dynkin-multilaced";
+import { expectIntArray } from "../certificates/certificate-check";
 import type { Graph } from "../graph";
 import type { Budget, Verdict } from "../verdict";
 
@@ -40,44 +29,10 @@ const METHOD =
   "identification, exact inertia at 2cos(π/h) and the characteristic polynomial; highest root by the dominant-root walk, det of the Cartan matrix, quantum integers in Z[2cos(π/h)]";
 const RECHECK_METHOD = "certificate re-check (identification, inertia and eigenvalue certificates; dominant root of norm 2; recomputation)";
 
-/** Everything the certificate states about the diagram besides its sub-certificates. */
-export interface DynkinFacts {
-  type: string;
-  rank: number;
-  coxeterNumber: number;
-  exponents: number[];
-  marks: number[];
-  indexOfConnection: string;
-  /** n!·a_1⋯a_n·f. */
-  weylGroupOrder: string;
-  /** ∏(m_i + 1), the same number computed from the exponents. */
-  weylGroupOrderFromExponents: string;
-  /** From the highest power of q down to q^0. */
-  poincarePolynomial: string[];
-  /** [k]_q for k = 1..h: coefficients in ρ = 2cos(π/h) from ρ^0 up, reduced modulo ρ's minimal polynomial, and the sign. */
-  quantumIntegers: { k: number; reduced: string[]; sign: number }[];
-}
-
-const high = (p: Poly) => [...p].reverse().map(String);
-
-function rhoOf(h: number): Bound {
-  return twoCosBound(1n, BigInt(h), `2cos(pi/${h})`);
-}
-
-function statedBound(text: string, field: string): Bound {
-  try {
-    return parseBound(text);
-  } catch (e) {
-    if (e instanceof NumberFormatError) throw new ClaimInputError(field, e.message);
-    throw e;
-  }
-}
-
 function computeFacts(g: Graph, type: string, budget: Budget): DynkinFacts {
   const d = coxeterData(type);
   const marks = highestRootMarks(g, budget);
   const f = indexOfConnection(g, budget);
-  const rho = rhoOf(d.coxeterNumber);
   return {
     type: d.type,
     rank: d.rank,
@@ -88,64 +43,8 @@ function computeFacts(g: Graph, type: string, budget: Budget): DynkinFacts {
     weylGroupOrder: String(weylOrderFromMarks(marks, f)),
     weylGroupOrderFromExponents: String(weylOrderFromExponents(d.exponents)),
     poincarePolynomial: high(poincarePolynomial(d.exponents)),
-    quantumIntegers: quantumIntegers(d.coxeterNumber, rho, budget).map((q) => ({ k: q.k, reduced: q.reduced.map(String), sign: q.sign })),
+    quantumIntegers: quantumFacts(d.coxeterNumber, budget),
   };
-}
-
-const list = (xs: readonly (number | string)[]) => xs.join(", ");
-
-/** The first stated value that differs from the facts (a sentence), or undefined when all hold. */
-function firstMismatch(c: DynkinDataClaim, facts: DynkinFacts, budget: Budget): string | undefined {
-  const h = facts.coxeterNumber;
-  if (c.type !== undefined && c.type !== facts.type) return `G is ${facts.type}, not ${c.type}`;
-  if (c.coxeterNumber !== undefined && c.coxeterNumber !== h) return `the Coxeter number of ${facts.type} is ${h}, not ${c.coxeterNumber}`;
-  const rho = rhoOf(h);
-  if (c.spectralRadius !== undefined && !equalsBound([0n, 1n], h, rho, statedBound(c.spectralRadius, "spectralRadius"), budget))
-    return `ρ = 2cos(π/${h}), which is not ${c.spectralRadius}`;
-  if (c.exponents !== undefined && list(c.exponents) !== list(facts.exponents))
-    return `the exponents of ${facts.type} are ${list(facts.exponents)}, not ${list(c.exponents)}`;
-  if (c.marks !== undefined && list(c.marks) !== list(facts.marks))
-    return `the marks of the highest root (in G's vertex order) are ${list(facts.marks)}, not ${list(c.marks)}`;
-  if (c.indexOfConnection !== undefined && String(c.indexOfConnection) !== facts.indexOfConnection)
-    return `the index of connection det(2I − A) is ${facts.indexOfConnection}, not ${c.indexOfConnection}`;
-  if (c.weylGroupOrder !== undefined && c.weylGroupOrder !== facts.weylGroupOrder)
-    return `|W(${facts.type})| = ${facts.weylGroupOrder}, not ${c.weylGroupOrder}`;
-  if (c.poincarePolynomial !== undefined && list(c.poincarePolynomial) !== list(facts.poincarePolynomial))
-    return `the Poincaré polynomial is ${polyToString(facts.poincarePolynomial.map(BigInt).reverse(), "q")}, not the one stated`;
-  if (c.quantumIntegers) {
-    const psi = rhoMinimalPolynomial(h);
-    for (const [i, q] of c.quantumIntegers.entries()) {
-      if (q.k > 100_000) throw new ClaimInputError(`quantumIntegers[${i}].k`, `k is at most 100000, got ${q.k}`);
-      const r = reduceModMonic(chebyshevS(q.k), psi);
-      if (!equalsBound(r, h, rho, statedBound(q.value, `quantumIntegers[${i}].value`), budget))
-        return `[${q.k}]_q at q = e^{iπ/${h}} is ${polyToString(r, "ρ")} with ρ = 2cos(π/${h}), which is not ${q.value}`;
-    }
-  }
-  if (c.quantumPositivity) {
-    const bad = facts.quantumIntegers.find((q) => (q.k < h ? q.sign <= 0 : q.sign !== 0));
-    if (bad) return `[${bad.k}]_q has sign ${bad.sign}`;
-  }
-  return undefined;
-}
-
-function diagramName(c: DynkinDataClaim): string {
-  return c.type ?? "G";
-}
-
-export function dynkinStatement(c: DynkinDataClaim): string {
-  const parts: string[] = [];
-  if (c.type && c.graph) parts.push(`G ≅ ${c.type}`);
-  if (c.coxeterNumber !== undefined) parts.push(`h = ${c.coxeterNumber}`);
-  if (c.spectralRadius !== undefined) parts.push(`ρ = ${c.spectralRadius}`);
-  if (c.exponents) parts.push(`exponents ${list(c.exponents)}`);
-  if (c.marks) parts.push(`highest root marks ${list(c.marks)}`);
-  if (c.indexOfConnection !== undefined) parts.push(`f = ${c.indexOfConnection}`);
-  if (c.weylGroupOrder !== undefined) parts.push(`|W| = ${c.weylGroupOrder}`);
-  if (c.poincarePolynomial) parts.push(`W(q) = ${polyToString(c.poincarePolynomial.map(BigInt).reverse(), "q")}`);
-  for (const q of c.quantumIntegers ?? []) parts.push(`[${q.k}]_q = ${q.value}`);
-  if (c.quantumPositivity) parts.push("[k]_q > 0 for 1 ≤ k < h, [h]_q = 0 (q = e^{iπ/h})");
-  const name = diagramName(c);
-  return parts.length === 0 ? `${name} is a finite simply-laced Dynkin diagram (its data computed)` : `${name}: ${parts.join("; ")}`;
 }
 
 function summary(f: DynkinFacts): string {
@@ -200,20 +99,10 @@ function verifyDynkin(c: DynkinDataClaim, g: Graph, budget: Budget): Verdict {
     : { status: "verified", statement, method: METHOD, reason: `${summary(facts)}.`, certificate };
 }
 
-function same(a: unknown, b: unknown): boolean {
-  return JSON.stringify(a) === JSON.stringify(b);
-}
-
 function recheckDynkin(c: DynkinDataClaim, g: Graph, outcome: "verified" | "refuted", evidence: unknown, budget: Budget): Verdict {
-  const statement = dynkinStatement(c);
-  const no = (why: string): Verdict => ({ status: "refuted", statement, method: RECHECK_METHOD, reason: `certificate rejected: ${why}` });
-  let e: Record<string, unknown>;
-  try {
-    e = expectRecord(evidence, "certificate");
-  } catch {
-    return no("the evidence is not an object");
-  }
-  if (e.kind !== "dynkin-data") return no(`certificate.kind is ${JSON.stringify(e.kind)}, expected "dynkin-data"`);
+  const opened = openDynkinCertificate(c, RECHECK_METHOD, evidence);
+  if ("refusal" in opened) return opened.refusal;
+  const { statement, no, e } = opened;
   const ident = recheckIdentification(g, e.identification, budget);
   if (ident.status !== "verified") return ident.status === "undecided" ? { ...ident, statement } : no(`identification: ${ident.reason}`);
   const iso = e.identification as { kind: string; family: string; parameter: number };
@@ -251,7 +140,7 @@ function recheckDynkin(c: DynkinDataClaim, g: Graph, outcome: "verified" | "refu
   if (e.weylGroupOrderFromExponents !== fromExponents || fromMarks !== fromExponents)
     return no(`certificate.weylGroupOrderFromExponents is ${JSON.stringify(e.weylGroupOrderFromExponents)}, ∏(m_i + 1) = ${fromExponents}`);
   if (!same(e.poincarePolynomial, high(poincarePolynomial(exponents)))) return no("certificate.poincarePolynomial is not ∏(1 + q + … + q^{m_i})");
-  const quantum = quantumIntegers(h, rhoOf(h), budget).map((q) => ({ k: q.k, reduced: q.reduced.map(String), sign: q.sign }));
+  const quantum = quantumFacts(h, budget);
   if (!Array.isArray(e.quantumIntegers) || e.quantumIntegers.length !== quantum.length)
     return no(`certificate.quantumIntegers must list [k]_q for k = 1..${h}`);
   const badQ = quantum.findIndex((q, i) => !same(e.quantumIntegers && (e.quantumIntegers as unknown[])[i], q));
@@ -264,12 +153,14 @@ function recheckDynkin(c: DynkinDataClaim, g: Graph, outcome: "verified" | "refu
   return { status: "verified", statement, method: RECHECK_METHOD, reason: truth ? `${summary(facts)}.` : `${miss}.` };
 }
 
+/** B_n, C_n, F4 and G2 are given by type only and checked without a graph (claim-dynkin-multilaced.ts). */
 export const DYNKIN_DATA_HANDLER: ClaimHandler<DynkinDataClaim> = {
   statement: (c) => dynkinStatement(c),
   limit: (_c, inputs) => {
-    const g = graphOf(inputs);
-    return g.n > CLAIM_LIMITS.dynkinRank ? `the diagram has ${g.n} vertices; the limit is ${CLAIM_LIMITS.dynkinRank}` : undefined;
+    const g = inputs.graph;
+    return g && g.n > CLAIM_LIMITS.dynkinRank ? `the diagram has ${g.n} vertices; the limit is ${CLAIM_LIMITS.dynkinRank}` : undefined;
   },
-  verify: (c, inputs, budget) => verifyDynkin(c, graphOf(inputs), budget),
-  recheck: (c, inputs, outcome, evidence, budget) => recheckDynkin(c, graphOf(inputs), outcome, evidence, budget),
+  verify: (c, inputs, budget) => (isMultilacedType(c.type) ? verifyMultilacedDynkin(c, budget) : verifyDynkin(c, graphOf(inputs), budget)),
+  recheck: (c, inputs, outcome, evidence, budget) =>
+    isMultilacedType(c.type) ? recheckMultilacedDynkin(c, outcome, evidence, budget) : recheckDynkin(c, graphOf(inputs), outcome, evidence, budget),
 };

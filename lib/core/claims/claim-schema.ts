@@ -77,7 +77,16 @@ export {
   type CoverageCaseInput,
   type CoverageClaim,
 } from "./claim-schema-enumeration";
-export { DYNKIN_DATA_FIELDS, DYNKIN_MAX_RANK, dynkinTypeName, type QuantumIntegerStatement, type DynkinDataClaim } from "./claim-schema-dynkin";
+export {
+  DYNKIN_DATA_FIELDS,
+  DYNKIN_MAX_RANK,
+  DYNKIN_TYPE_EXAMPLES,
+  FINITE_DYNKIN_TYPES,
+  dynkinTypeName,
+  namesMultilacedType,
+  type QuantumIntegerStatement,
+  type DynkinDataClaim,
+} from "./claim-schema-dynkin";
 
 export const CLAIM_KINDS = [
   "spectral-radius-bound",

@@ -4,7 +4,14 @@
  * polynomial is read; the core's Poly type stores x^0 first.
  */
 import type { CharacteristicPolynomialClaim, EigenvaluesClaim, EnumerationClaim, SpectralRadiusBoundClaim, VectorCertificateClaim } from "./claim-schema";
-import { checkEnumeration, claimEnumerationSetting, enumerationStatement, recheckEnumeration } from "../families/enumeration";
+import {
+  checkEnumeration,
+  claimEnumerationSetting,
+  enumerationPart,
+  enumerationStatement,
+  recheckEnumeration,
+  type EnumerationPart,
+} from "../families/enumeration";
 import { CLAIM_LIMITS, ClaimInputError, graphOf, overLimit, withOutcome, type ClaimHandler } from "./claim-support";
 import { parseBound, type Bound } from "../arithmetic/bound";
 import { characteristicPolynomial, charpolyBerkowitz } from "../spectral/charpoly";
@@ -190,4 +197,7 @@ export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
   verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, claimEnumerationSetting(c)),
   recheck: (c, inputs, outcome, evidence, budget) =>
     recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, claimEnumerationSetting(c)),
+  part: (c, _inputs, part, parts, budget) => enumerationPart(c.maxVertices, c.op, boundOf(c), budget, claimEnumerationSetting(c), part, parts),
+  fromParts: (c, inputs, parts, budget) =>
+    checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, claimEnumerationSetting(c), parts as readonly EnumerationPart[]),
 };

@@ -27,6 +27,13 @@ export interface ClaimHandler<K extends Claim = Claim> {
    * verified when it does, refuted when the evidence is rejected or proves something else.
    */
   recheck(claim: K, inputs: ParsedInputs, outcome: "verified" | "refuted", evidence: unknown, budget: Budget): Verdict;
+  /**
+   * Kinds whose check is an enumeration: part `part` of `parts` of it, as plain JSON (the job engine
+   * runs the parts on different workers and stores them), and the verdict from all parts, which is
+   * the verdict `verify` gives.
+   */
+  part?(claim: K, inputs: ParsedInputs, part: number, parts: number, budget: Budget): unknown;
+  fromParts?(claim: K, inputs: ParsedInputs, parts: readonly unknown[], budget: Budget): Verdict;
 }
 
 /**

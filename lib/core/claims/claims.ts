@@ -23,6 +23,7 @@ import { TimedBudget } from "../time-budget";
 import { ClaimInputError, type ClaimHandler, type ParsedInputs } from "./claim-support";
 import { methodWithCertificate } from "../certificates/certificate-kind";
 import { dynkinDiagram } from "../input/constructors";
+import { isMultilacedType } from "../spectral/dynkin-multilaced";
 
 /** Version of the checker that produced a verdict; stored with every result and bundle. */
 export const CHECKER_VERSION = "cairn-check/0.1.0";
@@ -74,6 +75,8 @@ export interface VerifyOptions {
   readonly timeLimitMs?: number;
   /** JSON path of the claim inside its document, used in error messages (default "$"). */
   readonly path?: string;
+  /** For kinds whose check is an enumeration: the results of all its parts (claimPart), merged instead of enumerating again. */
+  readonly parts?: readonly unknown[];
 }
 
 /** Canonical JSON of what a claim states: the id and certificate are left out, so they never change its digest. */
@@ -119,7 +122,9 @@ function parseInputs(claim: Claim, path: string): ParsedInputs {
     case "coverage":
       return {};
     case "dynkin-data":
-      return { graph: claim.graph ? readClaimGraph(claim.graph, `${path}.graph`) : dynkinDiagram(claim.type!) };
+      // B_n, C_n, F4, G2 have no graph: a double or triple bond with an arrow is checked on the Cartan matrix.
+      if (claim.graph) return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
+      return isMultilacedType(claim.type) ? {} : { graph: dynkinDiagram(claim.type!) };
     default:
       return { graph: readClaimGraph(claim.graph, `${path}.graph`) };
   }
@@ -197,7 +202,13 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
       verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}`, ranOn },
     };
   const checkStart = now();
-  const found = guarded(path, () => budgeted(statement, budget, () => handler.verify(claim, inputs, budget)));
+  const found = guarded(path, () =>
+    budgeted(statement, budget, () => {
+      if (!options.parts) return handler.verify(claim, inputs, budget);
+      if (!handler.fromParts) throw new RangeError(`"${claim.kind}" claims are not checked in parts`);
+      return handler.fromParts(claim, inputs, options.parts, budget);
+    }),
+  );
   const checkMs = elapsed(checkStart);
   const certificate: ClaimCertificate | undefined =
     found.status === "undecided" ? undefined : { kind: claim.kind, outcome: found.status, evidence: found.certificate };
@@ -215,6 +226,31 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
     timings: { parseMs, checkMs, recheckMs },
     certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check },
   };
+}
+
+/** Whether a claim's check is an enumeration the job engine may run in independent parts (claimPart). */
+export const checkedInParts = (claim: Claim): boolean => !!handlerOf(claim).part;
+
+/**
+ * Part `part` of `parts` of a claim's enumeration (plain JSON, for verifyClaim's `parts` once every
+ * part is in), or why this part cannot give one: input over the size limits, or the step budget
+ * exhausted (the claim is then undecided, as when it is checked in one piece). Throws ClaimError for
+ * input that cannot be read.
+ */
+export function claimPart(claim: Claim, part: number, parts: number, options: VerifyOptions = {}): { result: unknown } | { undecided: string } {
+  const path = options.path ?? "$";
+  const budget = budgetOf(options);
+  const handler = handlerOf(claim);
+  if (!handler.part) throw new RangeError(`"${claim.kind}" claims are not checked in parts`);
+  const inputs = parseInputs(claim, path);
+  const tooLarge = handler.limit(claim, inputs);
+  if (tooLarge) return { undecided: `input over the size limit for "${claim.kind}" claims: ${tooLarge}` };
+  try {
+    return { result: guarded(path, () => handler.part!(claim, inputs, part, parts, budget)) };
+  } catch (e) {
+    if (e instanceof BudgetExceeded) return { undecided: `part ${part + 1} of ${parts}: ${budgetReason(e)}` };
+    throw e;
+  }
 }
 
 function rejected(statement: string, why: string): Verdict {

@@ -56,8 +56,11 @@ export interface GenerationOptions {
   readonly part?: { readonly index: number; readonly of: number };
   /** False: count only (no Graph objects kept). */
   readonly collect?: boolean;
-  /** Called with every graph this part reports, as it is found (with collect: false, nothing is kept: streaming). */
-  readonly onGraph?: (g: Graph) => void;
+  /**
+   * Called with every graph this part reports, as it is found (with collect: false, nothing is kept:
+   * streaming), and its origin: the index of its ancestor at the split level (−1 at or above it).
+   */
+  readonly onGraph?: (g: Graph, origin: number) => void;
   readonly budget: Budget;
 }
 
@@ -74,6 +77,8 @@ export interface GenerationStatistics {
   elimination: number;
   /** The split level used for parts. */
   splitLevel: number;
+  /** The statistics at the split level: work every part repeats (levels up to the split level), counted once when parts merge. */
+  shared?: Omit<GenerationStatistics, "shared">;
 }
 
 export interface GenerationResult {
@@ -81,6 +86,8 @@ export interface GenerationResult {
   counts: number[];
   /** levels[k - 1]: the graphs on k vertices found, when collected. */
   levels: Graph[][];
+  /** origins[k - 1][j]: the origin (see onGraph) of levels[k - 1][j], when collected. */
+  origins: number[][];
   stats: GenerationStatistics;
 }
 
@@ -111,6 +118,9 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
   const stats: GenerationStatistics = { candidates: 0, invariantRejected: 0, labellings: 0, rowSum: 0, vector: 0, elimination: 0, splitLevel: 0 };
   const counts = new Array<number>(N).fill(0);
   const levels: Graph[][] = Array.from({ length: N }, () => []);
+  const origins: number[][] = Array.from({ length: N }, () => []);
+  /** The index of the split-level node whose subtree is being explored (−1 while at or above the split level). */
+  let origin = -1;
 
   // ---- exact spectral tests, memoised where they depend on integers only
   const op = spectral?.op;
@@ -248,8 +258,11 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     counts[node.n - 1]++;
     if (collect || onGraph) {
       const g = toGraph(node.W, node.n);
-      if (collect) levels[node.n - 1].push(g);
-      onGraph?.(g);
+      if (collect) {
+        levels[node.n - 1].push(g);
+        origins[node.n - 1].push(origin);
+      }
+      onGraph?.(g, origin);
     }
   };
 
@@ -433,6 +446,7 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     for (const r of frontier) emit(r, part.index === 0);
   }
   stats.splitLevel = level;
+  stats.shared = { ...stats };
   // ---- depth-first below the split level, this part's share
   const dfs = (node: Node) => {
     for (const ch of children(node)) {
@@ -441,9 +455,10 @@ export function generateConnected(options: GenerationOptions): GenerationResult 
     }
   };
   frontier.forEach((node, i) => {
+    origin = i;
     if (i % part.of === part.index) dfs(node);
   });
-  return { counts, levels, stats };
+  return { counts, levels, origins, stats };
 }
 
 /** One part's result, plain data (it crosses process boundaries as JSON). */
@@ -454,6 +469,8 @@ export interface PartResult {
   readonly counts: number[];
   /** The graphs found, per order, when collected (each as vertex count and weighted edges). */
   readonly levels?: Graph[][];
+  /** With `levels`: the origin of each graph (its ancestor's index at the split level, −1 at or above it). */
+  readonly origins?: number[][];
   readonly stats: GenerationStatistics;
 }
 
@@ -464,13 +481,14 @@ export interface PartResult {
  */
 export function enumeratePart(options: Omit<GenerationOptions, "part">, part: number, parts: number): PartResult {
   const r = generateConnected({ ...options, part: { index: part, of: parts } });
-  return { part, parts, counts: r.counts, ...(options.collect !== false ? { levels: r.levels } : {}), stats: r.stats };
+  return { part, parts, counts: r.counts, ...(options.collect !== false ? { levels: r.levels, origins: r.origins } : {}), stats: r.stats };
 }
 
 /**
  * Merges the results of parts 0..k−1 of one enumeration (each exactly once) into the result of the
- * whole: counts add up, the lists are concatenated (the classes are disjoint across parts). Throws
- * when a part is missing, repeated, or from a different split.
+ * whole: counts add up, the lists are joined (the classes are disjoint across parts) in the order one
+ * run in a single part reports them — by origin, then in each part's own order — when every part
+ * gives its origins. Throws when a part is missing, repeated, or from a different split.
  */
 export function mergeParts(results: readonly PartResult[]): GenerationResult {
   if (results.length === 0) throw new RangeError("no parts to merge");
@@ -487,12 +505,24 @@ export function mergeParts(results: readonly PartResult[]): GenerationResult {
   const N = Math.max(...results.map((r) => r.counts.length));
   const counts = new Array<number>(N).fill(0);
   const levels: Graph[][] = Array.from({ length: N }, () => []);
+  const origins: number[][] = Array.from({ length: N }, () => []);
   const stats: GenerationStatistics = { candidates: 0, invariantRejected: 0, labellings: 0, rowSum: 0, vector: 0, elimination: 0, splitLevel: 0 };
+  const ordered = results.every((r) => r.levels && r.origins);
   for (const r of [...results].sort((a, b) => a.part - b.part)) {
     r.counts.forEach((c, i) => (counts[i] += c));
     r.levels?.forEach((l, i) => levels[i].push(...l));
-    for (const k of ["candidates", "invariantRejected", "labellings", "rowSum", "vector", "elimination"] as const) stats[k] += r.stats[k];
+    if (ordered) r.origins!.forEach((o, i) => origins[i].push(...o));
+    // Every part repeats the levels up to the split level: their work is counted once (part 0's).
+    for (const k of ["candidates", "invariantRejected", "labellings", "rowSum", "vector", "elimination"] as const)
+      stats[k] += r.stats[k] - (r.part > 0 ? (r.stats.shared?.[k] ?? 0) : 0);
     stats.splitLevel = Math.max(stats.splitLevel, r.stats.splitLevel);
   }
-  return { counts, levels, stats };
+  if (ordered)
+    levels.forEach((level, i) => {
+      // A split-level node belongs to one part, which reports its subtree in the single run's order; a stable sort by origin restores the rest.
+      const order = level.map((_, j) => j).sort((a, b) => origins[i][a] - origins[i][b]);
+      levels[i] = order.map((j) => level[j]);
+      origins[i] = order.map((j) => origins[i][j]);
+    });
+  return { counts, levels, origins, stats };
 }

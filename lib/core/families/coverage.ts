@@ -85,6 +85,8 @@ export interface CoveragePartResult {
   readonly covered: number[];
   /** uncovered[k − 1]: graphs on k vertices no sub-case covers (graph6, or sparse6 in the multigraph setting), at most `cap` per order. */
   readonly uncovered: string[][];
+  /** uncoveredOrigins[k − 1][j]: the origin of uncovered[k − 1][j] (augmentation.ts), so merged parts keep the single run's order. */
+  readonly uncoveredOrigins?: number[][];
   /** All of this part's uncovered graphs, kept or not. */
   readonly uncoveredTotal: number;
 }
@@ -113,8 +115,9 @@ export function coveragePart(
   const generatorSetting = settingOf(setting);
   const covered = new Array<number>(cases.length).fill(0);
   const uncovered: string[][] = Array.from({ length: maxVertices }, () => []);
+  const uncoveredOrigins: number[][] = Array.from({ length: maxVertices }, () => []);
   let uncoveredTotal = 0;
-  const onGraph = (g: Graph) => {
+  const onGraph = (g: Graph, origin: number) => {
     const ctx = new ConditionContext(g, budget);
     let any = false;
     cases.forEach((c, i) => {
@@ -126,18 +129,31 @@ export function coveragePart(
     });
     if (any) return;
     uncoveredTotal++;
-    if (uncovered[g.n - 1].length < cap) uncovered[g.n - 1].push(uncoveredText(g, generatorSetting));
+    if (uncovered[g.n - 1].length < cap) {
+      uncovered[g.n - 1].push(uncoveredText(g, generatorSetting));
+      uncoveredOrigins[g.n - 1].push(origin);
+    }
   };
   const r = enumeratePart({ maxVertices, setting: generatorSetting, collect: false, onGraph, budget }, part, parts);
-  return { part, parts, orders: r.counts, covered, uncovered, uncoveredTotal };
+  return { part, parts, orders: r.counts, covered, uncovered, uncoveredOrigins, uncoveredTotal };
 }
 
-/** Merges parts 0..k−1 (each exactly once) into the certificate of the whole check. */
+/**
+ * Merges parts 0..k−1 (each exactly once) into the certificate of the whole check. When every part
+ * gives its origins, the uncovered graphs come in the order of a run in one part (by origin; each part
+ * keeps its first `cap` per order, which holds every graph of the merged first `cap`), so the
+ * certificate is the single run's.
+ */
 export function mergeCoverageParts(results: readonly CoveragePartResult[], cap = COVERAGE_UNCOVERED_CAP): CoverageCertificate {
   // mergeParts checks that the parts are exactly 0..k−1 of one split, and adds the counts per order.
   const { counts } = mergeParts(results.map((r) => ({ part: r.part, parts: r.parts, counts: r.orders, stats: NO_STATS })));
   const covered = results[0].covered.map((_, i) => results.reduce((a, r) => a + r.covered[i], 0));
-  const byOrder = counts.map((_, k) => results.flatMap((r) => r.uncovered[k] ?? []));
+  const sorted = [...results].sort((a, b) => a.part - b.part);
+  const ordered = sorted.every((r) => r.uncoveredOrigins);
+  const byOrder = counts.map((_, k) => {
+    const all = sorted.flatMap((r) => (r.uncovered[k] ?? []).map((text, j) => ({ text, origin: ordered ? r.uncoveredOrigins![k][j] : 0 })));
+    return all.sort((a, b) => a.origin - b.origin).map((u) => u.text);
+  });
   return {
     kind: "coverage",
     orders: counts,
@@ -183,17 +199,22 @@ export function coverageVerdict(
   };
 }
 
-/** Decides whether the sub-case conditions cover every graph of the setting on at most maxVertices vertices. */
+/**
+ * Decides whether the sub-case conditions cover every graph of the setting on at most maxVertices
+ * vertices; with `parts` (all parts 0..k−1 of one split, each once) merged from them instead, with
+ * the same verdict and certificate.
+ */
 export function checkCoverage(
   maxVertices: number,
   cases: readonly CoverageCase[],
   budget: Budget = new Budget(),
   setting: CoverageSetting = "simple",
+  parts?: readonly CoveragePartResult[],
 ): Verdict<CoverageCertificate> {
   const statement = coverageStatement(maxVertices, cases, setting);
   checkRange(maxVertices, setting);
   return withinBudget(statement, COVERAGE_METHOD, budget, () =>
-    coverageVerdict(maxVertices, cases, setting, mergeCoverageParts([coveragePart(maxVertices, cases, setting, 0, 1, budget)])),
+    coverageVerdict(maxVertices, cases, setting, mergeCoverageParts(parts ?? [coveragePart(maxVertices, cases, setting, 0, 1, budget)])),
   );
 }
 

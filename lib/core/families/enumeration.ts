@@ -19,7 +19,7 @@ import { isConnected } from "./structure";
 import { isForest } from "../spectral/tree-inertia";
 import { canonicalKeyOf } from "./canonical-label";
 import { ENUMERATION_MAX_VERTICES, type EnumerationSetting as ClaimEnumerationSetting } from "../claims/claim-schema";
-import { EnumerationSetting, GENERATION_MAX_VERTICES, GenerationStatistics, SIMPLE, generateConnected } from "./augmentation";
+import { EnumerationSetting, GENERATION_MAX_VERTICES, GenerationStatistics, SIMPLE, generateConnected, mergeParts } from "./augmentation";
 
 export type EnumerationRelation = "<" | "<=";
 
@@ -64,10 +64,10 @@ export function enumerateConnected(
   b: Bound,
   budget: Budget,
   options: { setting?: ClaimSetting | EnumerationSetting; part?: { index: number; of: number } } = {},
-): { levels: Graph[][]; checked: number; stats: GenerationStatistics } {
+): { levels: Graph[][]; origins: number[][]; checked: number; stats: GenerationStatistics } {
   if (maxVertices > GENERATION_MAX_VERTICES) throw new RangeError(`at most ${GENERATION_MAX_VERTICES} vertices can be enumerated`);
   const r = generateConnected({ maxVertices, setting: settingOf(options.setting), spectral: { op, bound: b }, part: options.part, budget });
-  return { levels: r.levels, checked: r.stats.rowSum + r.stats.vector + r.stats.elimination, stats: r.stats };
+  return { levels: r.levels, origins: r.origins, checked: r.stats.rowSum + r.stats.vector + r.stats.elimination, stats: r.stats };
 }
 
 const SYMBOL: Record<EnumerationRelation, string> = { "<": "<", "<=": "≤" };
@@ -113,10 +113,43 @@ export function enumerationStatement(
   return `the ${settingWords(setting)} on at most ${maxVertices} vertices with ρ(G) ${SYMBOL[op]} ${text} are, up to isomorphism, exactly the ${listed} listed`;
 }
 
+const ENUMERATION_METHOD = "exhaustive enumeration by canonical augmentation (McKay 1998) with exact ρ verdicts (complete by Perron–Frobenius monotonicity)";
+
+/** One part of an enumeration claim's generation (augmentation.ts), as plain JSON: it is stored and merged elsewhere. */
+export interface EnumerationPart {
+  readonly part: number;
+  readonly parts: number;
+  /** counts[k − 1]: graphs on k vertices this part found. */
+  readonly counts: number[];
+  /** texts[k − 1]: those graphs, each as graphText (graph6, or sparse6 with loops or multiple edges). */
+  readonly texts: string[][];
+  /** origins[k − 1][j]: the split-level ancestor of texts[k − 1][j], so merged parts keep the single run's order. */
+  readonly origins: number[][];
+  /** The generation's statistics (for the number of exact checks, counted once across parts). */
+  readonly stats: GenerationStatistics;
+}
+
+/** Part `part` of `parts` of the enumeration behind an enumeration claim (throws BudgetExceeded past the budget). */
+export function enumerationPart(
+  maxVertices: number,
+  op: EnumerationRelation,
+  bound: Bound | string,
+  budget: Budget,
+  setting: ClaimSetting | EnumerationSetting,
+  part: number,
+  parts: number,
+): EnumerationPart {
+  const b = typeof bound === "string" ? parseBound(bound) : bound;
+  const r = enumerateConnected(maxVertices, op, b, budget, { setting, part: { index: part, of: parts } });
+  return { part, parts, counts: r.levels.map((l) => l.length), texts: r.levels.map((l) => l.map(graphText)), origins: r.origins, stats: r.stats };
+}
+
 /**
  * Decides whether `listed` is, up to isomorphism, exactly the set of connected simple graphs on at
  * most `maxVertices` vertices with ρ op b. A refutation names the first listed graph that does not
- * belong, a repeated class, or a missing graph (in graph6).
+ * belong, a repeated class, or a missing graph (in graph6). With `parts` (all parts 0..k−1 of one
+ * split, each once; mergeParts refuses a missing, repeated or foreign part) the enumeration is not
+ * run again but merged from them, with the same verdict and certificate.
  */
 export function checkEnumeration(
   maxVertices: number,
@@ -125,49 +158,79 @@ export function checkEnumeration(
   listed: readonly Graph[],
   budget: Budget = new Budget(),
   setting: ClaimSetting | EnumerationSetting = "simple",
+  parts?: readonly EnumerationPart[],
 ): Verdict<EnumerationCertificate> {
   const b = typeof bound === "string" ? parseBound(bound) : bound;
   const statement = enumerationStatement(maxVertices, op, b, listed.length, setting);
-  const method = "exhaustive enumeration by canonical augmentation (McKay 1998) with exact ρ verdicts (complete by Perron–Frobenius monotonicity)";
-  return withinBudget(statement, method, budget, () => {
-    const { levels, checked } = enumerateConnected(maxVertices, op, b, budget, { setting });
-    const found = levels.flat();
-    const certificate: EnumerationCertificate = { kind: "enumeration", counts: levels.map((l) => l.length), graph6: found.map(graphText) };
-    // Phrased to follow "found" or "enumerated" ("… found 20 graph(s) (…)"), never "found … found".
-    const summary = `${found.length} graph(s) (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
-    const refuted = (reason: string): Verdict<EnumerationCertificate> => ({
-      status: "refuted",
-      statement,
-      method,
-      reason: `${reason}; the enumeration found ${summary}.`,
-      certificate,
-    });
-    const matched = new Array<number>(found.length).fill(-1);
-    const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
-    for (const [i, g] of listed.entries()) {
-      if (g.n > maxVertices) return refuted(`listed graph ${i + 1} has ${g.n} vertices, more than ${maxVertices}`);
-      const outside = outsideSetting(g, settingOf(setting));
-      if (outside) return refuted(`listed graph ${i + 1} ${outside}`);
-      if (isConnected(g, budget).status !== "verified") return refuted(`listed graph ${i + 1} is not connected`);
-      const j = index.get(canonicalKeyOf(g, budget)) ?? -1;
-      if (j < 0) return refuted(`listed graph ${i + 1} (${graphText(g)}) does not have ρ ${SYMBOL[op]} ${b.text}`);
-      if (matched[j] >= 0) return refuted(`listed graphs ${matched[j] + 1} and ${i + 1} are isomorphic`);
-      matched[j] = i;
+  return withinBudget(statement, ENUMERATION_METHOD, budget, () => {
+    if (!parts) {
+      const { levels, checked } = enumerateConnected(maxVertices, op, b, budget, { setting });
+      const found = levels.flat();
+      return enumerationVerdict(maxVertices, op, b, listed, budget, setting, { levels, texts: found.map(graphText), found, checked });
     }
-    const missing = matched.indexOf(-1);
-    if (missing >= 0)
-      return refuted(
-        `a graph on ${found[missing].n} vertices (${isSimple(found[missing]) ? "graph6" : "sparse6"} ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`,
-      );
-    return {
-      status: "verified",
-      statement,
-      method,
-      certificate,
-      reason: `Every listed graph is isomorphic to exactly one graph of the enumeration and every enumerated graph is listed; the enumeration found ${summary}.`,
-      notes: ["Completeness: every connected graph has a vertex whose removal keeps it connected, and removing a vertex never raises ρ."],
-    };
+    // Texts travel through the merge as the graphs' stand-ins; the graphs are read back for comparison.
+    const merged = mergeParts(
+      parts.map((p) => ({ part: p.part, parts: p.parts, counts: p.counts, levels: p.texts as unknown as Graph[][], origins: p.origins, stats: p.stats })),
+    );
+    if (merged.counts.length !== maxVertices) throw new RangeError(`the parts enumerate ${merged.counts.length} orders, the claim ${maxVertices}`);
+    const texts = (merged.levels as unknown as string[][]).flat();
+    const { rowSum, vector, elimination } = merged.stats;
+    return enumerationVerdict(maxVertices, op, b, listed, budget, setting, {
+      levels: merged.levels,
+      texts,
+      found: texts.map(readGraphText),
+      checked: rowSum + vector + elimination,
+    });
   });
+}
+
+function enumerationVerdict(
+  maxVertices: number,
+  op: EnumerationRelation,
+  b: Bound,
+  listed: readonly Graph[],
+  budget: Budget,
+  setting: ClaimSetting | EnumerationSetting,
+  run: { levels: readonly unknown[][]; texts: string[]; found: Graph[]; checked: number },
+): Verdict<EnumerationCertificate> {
+  const statement = enumerationStatement(maxVertices, op, b, listed.length, setting);
+  const method = ENUMERATION_METHOD;
+  const { found, checked } = run;
+  const certificate: EnumerationCertificate = { kind: "enumeration", counts: run.levels.map((l) => l.length), graph6: run.texts };
+  // Phrased to follow "found" or "enumerated" ("… found 20 graph(s) (…)"), never "found … found".
+  const summary = `${found.length} graph(s) (${certificate.counts.map((c, i) => `${c} on ${i + 1}`).join(", ")}), after ${checked} exact checks`;
+  const refuted = (reason: string): Verdict<EnumerationCertificate> => ({
+    status: "refuted",
+    statement,
+    method,
+    reason: `${reason}; the enumeration found ${summary}.`,
+    certificate,
+  });
+  const matched = new Array<number>(found.length).fill(-1);
+  const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
+  for (const [i, g] of listed.entries()) {
+    if (g.n > maxVertices) return refuted(`listed graph ${i + 1} has ${g.n} vertices, more than ${maxVertices}`);
+    const outside = outsideSetting(g, settingOf(setting));
+    if (outside) return refuted(`listed graph ${i + 1} ${outside}`);
+    if (isConnected(g, budget).status !== "verified") return refuted(`listed graph ${i + 1} is not connected`);
+    const j = index.get(canonicalKeyOf(g, budget)) ?? -1;
+    if (j < 0) return refuted(`listed graph ${i + 1} (${graphText(g)}) does not have ρ ${SYMBOL[op]} ${b.text}`);
+    if (matched[j] >= 0) return refuted(`listed graphs ${matched[j] + 1} and ${i + 1} are isomorphic`);
+    matched[j] = i;
+  }
+  const missing = matched.indexOf(-1);
+  if (missing >= 0)
+    return refuted(
+      `a graph on ${found[missing].n} vertices (${isSimple(found[missing]) ? "graph6" : "sparse6"} ${certificate.graph6[missing]}) with ρ ${SYMBOL[op]} ${b.text} is not listed`,
+    );
+  return {
+    status: "verified",
+    statement,
+    method,
+    certificate,
+    reason: `Every listed graph is isomorphic to exactly one graph of the enumeration and every enumerated graph is listed; the enumeration found ${summary}.`,
+    notes: ["Completeness: every connected graph has a vertex whose removal keeps it connected, and removing a vertex never raises ρ."],
+  };
 }
 
 /**

@@ -12,6 +12,14 @@ import { ClaimError, validateClaim } from "../claims/claim-schema";
 import { recheckClaim, verifyClaim } from "../claims/claims";
 
 const budget = () => new Budget(1e11);
+/** The connected multigraphs (multiplicity and loops up to 2) on at most `maxVertices` vertices with ρ op 2, by size. */
+const levelsAgainst2 = (maxVertices: number, op: "<" | "<=") =>
+  generateConnected({
+    maxVertices,
+    setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
+    spectral: { op, bound: parseBound("2") },
+    budget: budget(),
+  }).levels;
 
 const keys = (gs: readonly Graph[]) => gs.map((g) => canonicalKeyOf(g)).sort();
 
@@ -35,12 +43,7 @@ describe("graphs with loops and multiple edges", () => {
 
   it("finds exactly the graphs with ρ < 2 and ρ ≤ 2 that the brute force finds (loops ≤ 2, multiplicities ≤ 2, n ≤ 4)", () => {
     for (const op of ["<", "<="] as const) {
-      const ours = generateConnected({
-        maxVertices: 4,
-        setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-        spectral: { op, bound: parseBound("2") },
-        budget: budget(),
-      }).levels;
+      const ours = levelsAgainst2(4, op);
       for (let n = 1; n <= 4; n++) {
         const brute = bruteForce(n, 2, 2, (A) => rhoAtMostTwo(A, op === "<")).map(toGraph);
         expect(keys(ours[n - 1]), `ρ ${op} 2 on ${n} vertices`).toEqual(keys(brute));
@@ -51,12 +54,7 @@ describe("graphs with loops and multiple edges", () => {
   it("ρ < 2 with loops: exactly A_n, D_n, E_6..8 and the path with a loop at one end (T_n), n ≤ 9", () => {
     // Smith's classification extended to symmetric non-negative integer matrices (J. H. Smith 1970; the
     // loop family T_n from memory): connected, ρ < 2 ⟺ A_n, D_n (n ≥ 4), E_6, E_7, E_8, or T_n.
-    const found = generateConnected({
-      maxVertices: 9,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const found = levelsAgainst2(9, "<");
     for (let n = 1; n <= 9; n++) {
       const expected = [path(n), loopPath(n), ...(n >= 4 ? [dynkinD(n)] : []), ...(n >= 6 && n <= 8 ? [dynkinE(n)] : [])];
       expect(keys(found[n - 1]), `n = ${n}`).toEqual(keys(expected));
@@ -64,12 +62,7 @@ describe("graphs with loops and multiple edges", () => {
   });
 
   it("ρ = 2 includes the loop of weight 2, the double edge, and the path with loops at both ends", () => {
-    const le = generateConnected({
-      maxVertices: 6,
-      setting: { kind: "multigraph", maxMultiplicity: 2, maxLoop: 2 },
-      spectral: { op: "<=", bound: parseBound("2") },
-      budget: budget(),
-    }).levels;
+    const le = levelsAgainst2(6, "<=");
     const has = (g: Graph) => le[g.n - 1].some((h) => canonicalKeyOf(h) === canonicalKeyOf(g));
     expect(has(makeGraph(1, [{ u: 0, v: 0, m: 2 }]))).toBe(true);
     expect(has(makeGraph(2, [{ u: 0, v: 1, m: 2 }]))).toBe(true);

@@ -12,7 +12,7 @@ import { ConditionError, evaluateCondition, validateCondition } from "./case-con
 import { checkCoverage, coverageMaxVertices, recheckCoverage, type CoverageCase } from "./coverage";
 import { ClaimError, validateClaim } from "../claims/claim-schema";
 import { recheckClaim, verifyClaim } from "../claims/claims";
-import { bruteForce, rhoAtMostTwo, toGraph } from "../../../tests/support/multigraph-brute-force";
+import { bruteForce, LEAKY_MULTIGRAPH_SPLIT, rhoAtMostTwo, toGraph } from "../../../tests/support/multigraph-brute-force";
 
 const budget = () => new Budget(1e11);
 const sum = (xs: readonly number[]) => xs.reduce((a, b) => a + b, 0);
@@ -123,20 +123,7 @@ describe("coverage over graphs with loops and multiple edges", () => {
   });
 
   it("refutes a leaky split, naming the one missing multigraph in sparse6, and the re-check catches a tampered certificate", () => {
-    // simple / has a loop / a multiple edge on 3 or more vertices: only the double edge on 2 vertices escapes.
-    const leaky: CoverageCase[] = [
-      { label: "simple", condition: { predicate: "simple" } },
-      { label: "looped", condition: { predicate: "loops", relation: ">=", value: 1 } },
-      {
-        label: "multiple, n ≥ 3",
-        condition: {
-          and: [
-            { predicate: "multiple-edges", relation: ">=", value: 1 },
-            { predicate: "vertices", relation: ">=", value: 3 },
-          ],
-        },
-      },
-    ];
+    const leaky = LEAKY_MULTIGRAPH_SPLIT as unknown as CoverageCase[];
     const s = multigraph(2, 1);
     const v = checkCoverage(4, leaky, budget(), s);
     expect(v.status).toBe("refuted");

@@ -130,3 +130,92 @@ describe("coverage streamed and in parts", () => {
 });
 
 import { parseGraph6 as parseG6 } from "../input/graph6";
+
+import { generateConnected } from "./augmentation";
+import { parseBound } from "../arithmetic/bound";
+import { validateClaim } from "../claims/claim-schema";
+import { claimPart, verifyClaim } from "../claims/claims";
+
+describe("merged parts give the single run's result exactly", () => {
+  it("the same graphs in the same order, and the same statistics, as one run (connected graphs on ≤ 7 vertices; ρ ≤ 3 on ≤ 8)", () => {
+    for (const spectral of [undefined, { op: "<=" as const, bound: parseBound("3") }]) {
+      const N = spectral ? 8 : 7;
+      const whole = generateConnected({ maxVertices: N, spectral, budget: budget() });
+      for (const of of [2, 3, 7]) {
+        const parts = Array.from({ length: of }, (_, index) => generateConnected({ maxVertices: N, spectral, part: { index, of }, budget: budget() }));
+        const merged = mergeParts(parts.map((r, i) => ({ part: i, parts: of, counts: r.counts, levels: r.levels, origins: r.origins, stats: r.stats })));
+        expect(merged.levels.map((l) => l.map((g) => canonicalKeyOf(g)))).toEqual(whole.levels.map((l) => l.map((g) => canonicalKeyOf(g))));
+        // Same labelled graphs, not only the same classes.
+        expect(JSON.stringify(merged.levels)).toBe(JSON.stringify(whole.levels));
+        for (const k of ["candidates", "labellings", "rowSum", "vector", "elimination"] as const) expect(merged.stats[k], k).toBe(whole.stats[k]);
+      }
+      // Connected graphs on n ≤ 7 vertices: OEIS A001349.
+      if (!spectral) expect(whole.counts).toEqual(A001349.slice(0, 7));
+    }
+  });
+
+  const claimOf = (o: Record<string, unknown>) => validateClaim({ format: "cairn-claim/1", ...o });
+  const inParts = (claim: ReturnType<typeof validateClaim>, of: number) =>
+    Array.from({ length: of }, (_, i) => {
+      const r = claimPart(claim, i, of, { budget: budget() });
+      if (!("result" in r)) throw new Error(r.undecided);
+      // The parts travel as JSON between workers and the database.
+      return JSON.parse(JSON.stringify(r.result)) as unknown;
+    });
+  const same = (claim: ReturnType<typeof validateClaim>, of: number) => {
+    const single = verifyClaim(claim, { budget: budget() });
+    const merged = verifyClaim(claim, { budget: budget(), parts: inParts(claim, of) });
+    // Everything but the steps counted by this process's budget (the parts counted theirs; steps are not stored with a verdict).
+    const { steps: _a, ...m } = merged.verdict;
+    const { steps: _b, ...s } = single.verdict;
+    expect(m).toEqual(s);
+    expect(merged.digest).toBe(single.digest);
+    return single.verdict;
+  };
+
+  it("enumeration claims: verified, refuted by a missing graph, refuted by a stray one — verdict and certificate as one job gives them", () => {
+    const trees = generateConnected({ maxVertices: 10, setting: { kind: "tree" }, budget: budget() }).levels.flat();
+    const listed = trees.map((g) => ({ format: "graph6", text: writeGraph6(g) }));
+    const all = claimOf({ kind: "enumeration", setting: "tree", maxVertices: 10, op: "<=", bound: "100", graphs: listed });
+    const v = same(all, 3);
+    expect(v.status).toBe("verified");
+    // Trees on n ≤ 10 vertices: OEIS A000055.
+    expect((v.certificate!.evidence as { counts: number[] }).counts).toEqual(A000055.slice(0, 10));
+    const missing = same(claimOf({ kind: "enumeration", setting: "tree", maxVertices: 10, op: "<=", bound: "100", graphs: listed.slice(0, -1) }), 4);
+    expect(missing.status).toBe("refuted");
+    expect(missing.reason).toMatch(/is not listed/);
+    // Connected graphs on ≤ 7 vertices, none listed: refuted, all 996 (OEIS A001349) in the certificate.
+    const none = same(claimOf({ kind: "enumeration", maxVertices: 7, op: "<", bound: "7", graphs: [] }), 2);
+    expect(none.status).toBe("refuted");
+    expect((none.certificate!.evidence as { counts: number[] }).counts).toEqual(A001349.slice(0, 7));
+    // The path P4 ("Ch" in graph6) has ρ = 2cos(π/5) ≈ 1.618 (Brouwer & Haemers §1.4.4), so it is not among ρ < 1.5.
+    same(claimOf({ kind: "enumeration", maxVertices: 8, op: "<", bound: "3/2", graphs: [{ format: "graph6", text: "Ch" }] }), 2);
+    // Loops and double edges (sparse6 texts in the certificate).
+    same(claimOf({ kind: "enumeration", setting: "multigraph", maxMultiplicity: 2, maxLoop: 1, maxVertices: 4, op: "<=", bound: "5", graphs: [] }), 3);
+  });
+
+  it("coverage claims: the same counts per sub-case and the same uncovered graphs in the same order, also when cut at the cap", () => {
+    const leaky = [
+      { label: "Δ ≤ 2", condition: { predicate: "max-degree", relation: "<=", value: 2 } },
+      { label: "triangle", condition: { predicate: "contains", graph: "Bw" } },
+    ];
+    const v = same(claimOf({ kind: "coverage", maxVertices: 7, cases: leaky }), 3);
+    expect(v.status).toBe("refuted");
+    // Δ ≤ 2 alone leaves 984 of the 996 connected graphs on ≤ 7 vertices uncovered (see above): more than the cap.
+    const capped = same(claimOf({ kind: "coverage", maxVertices: 7, cases: [leaky[0]] }), 5);
+    expect((capped.certificate!.evidence as { uncoveredTotal: number }).uncoveredTotal).toBe(984);
+    const covering = same(claimOf({ kind: "coverage", setting: "tree", maxVertices: 12, cases: [{ condition: { predicate: "tree" } }] }), 2);
+    expect(covering.status).toBe("verified");
+    // Trees on ≤ 12 vertices: 1+1+1+2+3+6+11+23+47+106+235+551 = 987 (OEIS A000055).
+    expect(covering.reason).toMatch(/^All 987 graphs/);
+  });
+
+  it("refuses parts of another split or a missing part at the claim level", () => {
+    const claim = claimOf({ kind: "enumeration", maxVertices: 6, op: "<", bound: "7", graphs: [] });
+    const three = inParts(claim, 3);
+    expect(() => verifyClaim(claim, { budget: budget(), parts: three.slice(1) })).toThrow(/part 0 of 3 is missing/);
+    expect(() => verifyClaim(claim, { budget: budget(), parts: [three[0], three[0], three[2]] })).toThrow(/part 0 is given twice/);
+  });
+});
+
+import { writeGraph6 } from "../input/graph6";

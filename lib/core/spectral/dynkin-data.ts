@@ -25,6 +25,9 @@
 import type { Graph } from "../graph";
 import { GraphError } from "../graph";
 import type { Budget } from "../verdict";
+import { integerDeterminant } from "../arithmetic/determinant";
+
+export { integerDeterminant };
 import { enclose, type Bound } from "../arithmetic/bound";
 import { minimalPolynomial2Cos } from "../arithmetic/cyclotomic";
 import { deg, polyMul, polySub, rootsBetween, signAt, sturmSequence, trim, type Poly } from "../arithmetic/sturm";
@@ -70,30 +73,6 @@ export function highestRootMarks(g: Graph, budget?: Budget): number[] {
     }
     if (height > 4 * n + 4) throw new GraphError("the dominant-root walk does not end: the graph is not a finite simply-laced Dynkin diagram");
   }
-}
-
-/** det M of an integer matrix by Bareiss's fraction-free elimination (with row swaps on a zero pivot). */
-export function integerDeterminant(m: readonly (readonly bigint[])[], budget?: Budget): bigint {
-  const a = m.map((r) => r.slice());
-  const n = a.length;
-  let sign = 1n,
-    prev = 1n;
-  for (let k = 0; k < n; k++) {
-    budget?.tick(n * n);
-    let p = k;
-    while (p < n && a[p][k] === 0n) p++;
-    if (p === n) return 0n;
-    if (p !== k) {
-      [a[p], a[k]] = [a[k], a[p]];
-      sign = -sign;
-    }
-    for (let i = k + 1; i < n; i++) {
-      for (let j = k + 1; j < n; j++) a[i][j] = (a[i][j] * a[k][k] - a[i][k] * a[k][j]) / prev;
-      a[i][k] = 0n;
-    }
-    prev = a[k][k];
-  }
-  return sign * (n === 0 ? 1n : a[n - 1][n - 1]);
 }
 
 /** The index of connection f = det(2I − A). */

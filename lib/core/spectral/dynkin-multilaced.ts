@@ -18,10 +18,15 @@
  *   product ∏(x − 2cos(πm_i/h)) is a product of the integer minimal polynomials of 2cos(2π/N) over the Galois orbits
  *   of the exponents; the two are compared exactly.
  */
-import { GraphError } from "../graph";
+import { GraphError, type Graph } from "../graph";
 import { minimalPolynomial2Cos } from "../arithmetic/cyclotomic";
 import { deg, polyEquals, polyMul, polyScale, polySub, type Poly } from "../arithmetic/sturm";
 import { integerDeterminant, poincarePolynomial, weylOrderFromExponents, weylOrderFromMarks } from "./dynkin-data";
+
+/** A normalised type name ("B5", "F4") with a multiple bond; the simply-laced ones are "A…", "D…", "E…". */
+export function isMultilacedType(type: string | undefined): boolean {
+  return type !== undefined && /^[BCFG]\d+$/.test(type);
+}
 
 export interface MultilacedDiagram {
   readonly type: string;
@@ -125,6 +130,8 @@ export interface MultilacedData {
   readonly poincare: Poly;
   readonly coxeterNumber: number;
   readonly exponents: readonly number[];
+  /** det(xI − M) of the Coxeter graph's matrix M_ij = 2cos(π/m_ij), coefficients of x^0 first. */
+  readonly coxeterGraphCharpoly: Poly;
 }
 
 /** Every datum, with the two checks that tie them together; a mismatch is an error, not a verdict. */
@@ -136,8 +143,17 @@ export function multilacedData(type: string): MultilacedData {
   const fromMarks = weylOrderFromMarks(marks, f),
     fromExponents = weylOrderFromExponents(d.exponents);
   if (fromMarks !== fromExponents) throw new GraphError(`${d.type}: |W| from the marks (${fromMarks}) differs from |W| from the exponents (${fromExponents})`);
-  if (!polyEquals(coxeterGraphCharpoly(d), exponentPolynomial(d.coxeterNumber, d.exponents)))
+  // The height of the highest root is h − 1 (Humphreys, Reflection Groups and Coxeter Groups, §3.20; Bourbaki Ch. VI
+  // §1.11 Prop. 31; from memory): h is recomputed from the walk, not only read from the table.
+  const height = marks.reduce((s, a) => s + a, 0);
+  if (height + 1 !== d.coxeterNumber) throw new GraphError(`${d.type}: 1 + Σa_i = ${height + 1} differs from the Coxeter number ${d.coxeterNumber}`);
+  const charpoly = coxeterGraphCharpoly(d);
+  if (!polyEquals(charpoly, exponentPolynomial(d.coxeterNumber, d.exponents)))
     throw new GraphError(`${d.type}: the Coxeter graph's eigenvalues are not 2cos(πm/h) over the exponents`);
+  // The eigenvalues are then exactly the 2cos(πm_i/h); with m = 1 among them (and h − 1, as m ↔ h − m) the largest in
+  // absolute value is 2cos(π/h), so ρ(M) = 2cos(π/h).
+  if (!d.exponents.includes(1) || !d.exponents.includes(d.coxeterNumber - 1))
+    throw new GraphError(`${d.type}: 1 and h − 1 are not both exponents, so ρ(M) would not be 2cos(π/h)`);
   return {
     type: d.type,
     cartan,
@@ -147,5 +163,20 @@ export function multilacedData(type: string): MultilacedData {
     poincare: poincarePolynomial(d.exponents),
     coxeterNumber: d.coxeterNumber,
     exponents: d.exponents,
+    coxeterGraphCharpoly: charpoly,
+  };
+}
+
+/**
+ * The diagram as a graph for pictures only: the path α_1 — … — α_n in Bourbaki's numbering with the bond drawn as an
+ * edge of multiplicity a_ij·a_ji (1, 2, 3 lines); the arrow (which root is short) is not a graph's to carry.
+ */
+export function multilacedBondGraph(type: string): Graph {
+  const a = multilacedCartanMatrix(multilacedDiagram(type));
+  const n = a.length;
+  return {
+    n,
+    edges: Array.from({ length: n - 1 }, (_, i) => ({ u: i, v: i + 1, m: Number(a[i][i + 1] * a[i + 1][i]) })),
+    labels: Array.from({ length: n }, (_, i) => String(i + 1)),
   };
 }

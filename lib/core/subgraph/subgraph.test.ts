@@ -11,6 +11,29 @@ import { checkEmbedding, excludeSubgraphs, findSubgraph, recheckExclusion, reche
 
 const PETERSEN = parseGraph("IheA@GUAo"); // graph6 of the Petersen graph, from memory; parse.test.ts checks girth 5
 
+/**
+ * Brute force over all injections V(H) → V(G), the definition itself (common practice): an injection is kept
+ * when checkEmbedding accepts it; an H-edge back to an earlier vertex whose images are not adjacent prunes early.
+ */
+function bruteForce(h: Graph, g: Graph, induced: boolean): boolean {
+  const phi: number[] = [];
+  const used = new Set<number>();
+  const adjacent = (a: number, b: number) => g.edges.some((e) => (e.u === a && e.v === b) || (e.u === b && e.v === a));
+  const extend = (u: number): boolean => {
+    if (u === h.n) return checkEmbedding(h, g, phi, induced) === null;
+    for (let x = 0; x < g.n; x++) {
+      if (used.has(x)) continue;
+      if (!h.edges.every((e) => e.v !== u || e.u >= u || adjacent(phi[e.u], x))) continue;
+      phi[u] = x;
+      used.add(x);
+      if (extend(u + 1)) return true;
+      used.delete(x);
+    }
+    return false;
+  };
+  return extend(0);
+}
+
 describe("finding embeddings", () => {
   it("finds C5 in the Petersen graph and the embedding re-checks; a changed entry is rejected", () => {
     // The Petersen graph has girth 5, so it contains C5 (common practice; from memory).
@@ -122,23 +145,6 @@ describe("exclusion", () => {
 });
 
 describe("search agrees with brute force (property)", () => {
-  // Brute force over all injections V(H) → V(G): the definition itself (common practice).
-  function bruteForce(h: Graph, g: Graph, induced: boolean): boolean {
-    const phi: number[] = [];
-    const used = new Set<number>();
-    const extend = (u: number): boolean => {
-      if (u === h.n) return checkEmbedding(h, g, phi, induced) === null;
-      for (let x = 0; x < g.n; x++) {
-        if (used.has(x)) continue;
-        phi[u] = x;
-        used.add(x);
-        if (extend(u + 1)) return true;
-        used.delete(x);
-      }
-      return false;
-    };
-    return extend(0);
-  }
   const small = (maxN: number) =>
     fc.integer({ min: 1, max: maxN }).chain((n) =>
       fc
@@ -222,25 +228,7 @@ describe("tree dynamic programme (Matula 1978) against brute force", () => {
       fc.property(tree(1, 6), forest, (h, g) => {
         const budget = new Budget();
         const phi = embedTreeInForest(h, g, sweep(g, budget), budget);
-        // Brute force over injections, checking each H-edge to an earlier vertex as soon as both ends are placed.
-        const brute = (() => {
-          const perm: number[] = [],
-            used = new Set<number>();
-          const adjacent = (a: number, b: number) => g.edges.some((e) => (e.u === a && e.v === b) || (e.u === b && e.v === a));
-          const extend = (u: number): boolean => {
-            if (u === h.n) return true;
-            for (let x = 0; x < g.n; x++) {
-              if (used.has(x)) continue;
-              if (!h.edges.every((e) => (e.v !== u || e.u >= u ? true : adjacent(perm[e.u], x)))) continue;
-              perm[u] = x;
-              used.add(x);
-              if (extend(u + 1)) return true;
-              used.delete(x);
-            }
-            return false;
-          };
-          return extend(0);
-        })();
+        const brute = bruteForce(h, g, false);
         expect(phi !== null).toBe(brute);
         if (Array.isArray(phi)) expect(checkEmbedding(h, g, phi)).toBeNull();
       }),

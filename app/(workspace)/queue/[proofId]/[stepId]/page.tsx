@@ -6,14 +6,10 @@ import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
 import { CaseStateBadge } from "@/components/proof/case-state-badge";
-import { stepPageAccess } from "@/app/(workspace)/page-access";
 import { ClaimList } from "@/components/claims/claim-list";
-import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
-import { verificationNotice } from "@/lib/data/claim-jobs";
 import { may } from "@/lib/access";
-import { getStep } from "@/lib/data/steps";
+import { openStepPage, stepClaimLists, type StepPageProps } from "@/app/(workspace)/step-page";
 import { RevisionHistory } from "@/components/editor/revision-history";
-import { parseCompare } from "@/lib/review/compare-link";
 
 export const metadata: Metadata = { title: "Review a step" };
 
@@ -21,27 +17,12 @@ export const metadata: Metadata = { title: "Review a step" };
  * One step to review, reached from the queue, reader first: the argument and its claims, with the review
  * panel beside them on a wide screen (below them on a phone).
  */
-export default async function QueueStepPage({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ proofId: string; stepId: string }>;
-  searchParams: Promise<Record<string, string | string[] | undefined>>;
-}) {
-  const p = await params;
-  const { access: viewer, step } = await stepPageAccess(p.proofId, p.stepId);
+export default async function QueueStepPage(props: StepPageProps) {
+  const { access: viewer, ref: step, step: detail, compare } = await openStepPage(props);
   const access = { user: viewer.user, role: viewer.role, step };
   const proofId = viewer.proofId;
-  const [info, readiness, claims, withdrawn] = await Promise.all([
-    describeStep(step),
-    getReadiness(viewer.proofId, viewer.visible),
-    listStepClaims(step.id),
-    listWithdrawnClaims(step.id),
-  ]);
-  const { revisions } = await getStep(proofId, step.id);
-  const verification = await verificationNotice(claims);
-  // A superseded vouch's notice opens the page with the vouched revision compared to the latest.
-  const compare = parseCompare((await searchParams).compare, revisions[0]?.number ?? 0);
+  const [info, readiness, claimLists] = await Promise.all([describeStep(step), getReadiness(viewer.proofId, viewer.visible), stepClaimLists(step.id)]);
+  const { revisions } = detail;
   const caseState = readiness.cases.find((c) => c.id === access.step.caseId)?.state;
   return (
     <main className="space-y-4">
@@ -72,13 +53,7 @@ export default async function QueueStepPage({
           ) : (
             <p className="italic text-stone-500">This step has no revision yet.</p>
           )}
-          <ClaimList
-            proofId={proofId}
-            stepId={step.id}
-            initial={{ claims, withdrawn, verification }}
-            canRecheck={may(viewer.standing, "claims.recheck")}
-            canWithdraw={false}
-          />
+          <ClaimList proofId={proofId} stepId={step.id} initial={claimLists} canRecheck={may(viewer.standing, "claims.recheck")} canWithdraw={false} />
           <VerdictCaution />
         </div>
         <div className="min-w-0 lg:sticky lg:top-4 lg:self-start">

@@ -1,9 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { getProofSummary } from "@/lib/data/proofs";
-import { getStep } from "@/lib/data/steps";
-import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
-import { verificationNotice } from "@/lib/data/claim-jobs";
 import { proofReferences } from "@/lib/data/cases";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { StepEditor } from "@/components/editor/step-editor";
@@ -13,34 +10,26 @@ import { ClaimForm } from "@/components/claims/claim-form";
 import { ClaimFileForm } from "@/components/claims/claim-file-form";
 import { VerdictCaution } from "@/components/ui/caution";
 import { StepReviewSlot } from "@/components/review/step-review-slot";
-import { orNotFound, stepPageAccess } from "@/app/(workspace)/page-access";
 import { may } from "@/lib/access";
+import { openStepPage, stepClaimLists, type StepPageProps } from "@/app/(workspace)/step-page";
 import { listStepFiles } from "@/lib/data/files";
 import { FileList } from "@/components/files/file-list";
 import { FileUpload } from "@/components/files/file-upload";
 import { readEnv } from "@/lib/env";
 import { BatchForm } from "@/components/batches/batch-form";
 import { BatchList } from "@/components/batches/batch-list";
-import { parseCompare } from "@/lib/review/compare-link";
 
 export const metadata: Metadata = { title: "Step" };
 
-export default async function StepPage({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ proofId: string; stepId: string }>;
-  searchParams: Promise<Record<string, string | string[] | undefined>>;
-}) {
-  const p = await params;
+export default async function StepPage(props: StepPageProps) {
   // A reviewer invited to chosen cases sees only their steps; a step under a deleted case is gone.
-  const { access, step: ref } = await stepPageAccess(p.proofId, p.stepId);
+  const { access, step, compare } = await openStepPage(props);
   const { proofId, user, role, standing } = access;
-  const [proof, step] = await Promise.all([getProofSummary(proofId, { id: user.id, role }), orNotFound(getStep(proofId, ref.id))]);
-  const [claims, withdrawn, files] = await Promise.all([listStepClaims(step.id), listWithdrawnClaims(step.id), listStepFiles(proofId, step.id)]);
-  const verification = await verificationNotice(claims);
-  // A superseded vouch's notice opens the page with the vouched revision compared to the latest.
-  const compare = parseCompare((await searchParams).compare, step.revisions[0]?.number ?? 0);
+  const [proof, claimLists, files] = await Promise.all([
+    getProofSummary(proofId, { id: user.id, role }),
+    stepClaimLists(step.id),
+    listStepFiles(proofId, step.id),
+  ]);
   const isAuthor = may(standing, "steps.write");
   const references = isAuthor ? await proofReferences(proofId) : [];
   return (
@@ -67,7 +56,7 @@ export default async function StepPage({
           <ClaimList
             proofId={proofId}
             stepId={step.id}
-            initial={{ claims, withdrawn, verification }}
+            initial={claimLists}
             canRecheck={may(standing, "claims.recheck")}
             canWithdraw={isAuthor}
             uploadPartSize={may(standing, "files.upload") ? readEnv().CAIRN_UPLOAD_PART_BYTES : undefined}
