@@ -137,22 +137,7 @@ function cubicNearTasks(): BenchTask[] {
         ["rational", "2999999999/1000000000", "ρ < 3 − 1e-9 (rational b, exact verdict)"],
         ["irrational", `sqrt(${9 * 2 ** 30 - 1}/${2 ** 30})`, "ρ < √(9 − 2^-30) (irrational b, exact verdict)"],
       ] as const
-    ).map(([kind, bound, task]) =>
-      named(
-        graphTask(
-          `cubic-${n}-near-${kind}`,
-          () => cubicWorkload(n),
-          task,
-          false,
-          (g) => {
-            const v = spectralRadiusBound(g, "<", bound, new Budget(BENCH_STEPS));
-            const c = v.certificate as { kind?: string; front?: number } | undefined;
-            return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
-          },
-        ),
-        `cubic n=${n}`,
-      ),
-    ),
+    ).map(([kind, bound, task]) => graphTask(`cubic n=${n}`, `cubic-${n}-near-${kind}`, () => cubicWorkload(n), task, false, verdict("<", bound))),
   );
 }
 
