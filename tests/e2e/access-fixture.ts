@@ -7,8 +7,8 @@
  */
 import * as mariadb from "mariadb";
 import type { Browser, BrowserContext } from "playwright-core";
-import { browserForFile, signInAs } from "./browser";
-import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
+import { browserForFile, signedInContext } from "./browser";
+import { demoPeople } from "@/seeders/demo-content";
 
 export const ROLES = ["anonymous", "nonmember", "otherProof", "admin", "caseLimited", "reviewer", "coauthor", "owner", "editor"] as const;
 export type Role = (typeof ROLES)[number];
@@ -65,20 +65,7 @@ export async function db<T>(run: (c: mariadb.Connection) => Promise<T>): Promise
 }
 
 async function signedIn(browser: Browser, baseUrl: string, email: string | null): Promise<BrowserContext> {
-  const context = await browser.newContext();
-  if (email === null) return context;
-  const page = await context.newPage();
-  const key = demoPeople.find((p) => p.email === email)?.key;
-  if (key) await signInAs(page, baseUrl, key);
-  else {
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel("E-mail").fill(email);
-    await page.getByLabel("Password").fill(DEMO_PASSWORD);
-    await page.getByRole("button", { name: "Sign in" }).click();
-  }
-  await page.waitForURL(`${baseUrl}/proofs`);
-  await page.close();
-  return context;
+  return email === null ? browser.newContext() : signedInContext(browser, baseUrl, email);
 }
 
 export async function buildFixture(browser: Browser, baseUrl: string): Promise<Fixture> {

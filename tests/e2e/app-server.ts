@@ -24,24 +24,27 @@ export function e2eEnv(suffix = "e2e"): NodeJS.ProcessEnv {
 
 export interface AppServer {
   base: string;
-  stop(): void;
+  /** The process group's leader (next start). */
+  pid: number | undefined;
+  /** Sends `signal` (SIGTERM unless told) to the whole process group. */
+  stop(signal?: NodeJS.Signals): void;
 }
 
-export async function startAppServer(env: NodeJS.ProcessEnv, port: number): Promise<AppServer> {
+export async function startAppServer(env: NodeJS.ProcessEnv, port: number, timeoutMs = 60_000): Promise<AppServer> {
   const server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
     env: { ...env, NEXTAUTH_URL: `http://localhost:${port}` },
     detached: true,
     stdio: ["ignore", "ignore", "inherit"],
   });
-  const stop = () => {
+  const stop = (signal: NodeJS.Signals = "SIGTERM") => {
     try {
-      if (server.pid) process.kill(-server.pid, "SIGTERM");
+      if (server.pid) process.kill(-server.pid, signal);
     } catch {
       // already gone
     }
   };
   const base = `http://localhost:${port}`;
-  const deadline = Date.now() + 60_000;
+  const deadline = Date.now() + timeoutMs;
   for (;;) {
     try {
       const res = await fetch(`${base}/api/health`);
@@ -51,9 +54,21 @@ export async function startAppServer(env: NodeJS.ProcessEnv, port: number): Prom
     }
     if (Date.now() > deadline) {
       stop();
-      throw new Error(`the app did not answer on ${base}/api/health within 60 s`);
+      throw new Error(`the app did not answer on ${base}/api/health within ${timeoutMs / 1000} s`);
     }
     await new Promise((r) => setTimeout(r, 300));
   }
-  return { base, stop };
+  return { base, pid: server.pid, stop };
+}
+
+/** Asks `read` every 250 ms until it answers 200 or `timeoutMs` has passed; gives every status seen and the time taken. */
+export async function statusesUntilOk(read: () => Promise<Response>, timeoutMs: number): Promise<{ seen: number[]; ms: number }> {
+  const t0 = Date.now();
+  const seen: number[] = [];
+  for (;;) {
+    const { status } = await read();
+    seen.push(status);
+    if (status === 200 || Date.now() - t0 > timeoutMs) return { seen, ms: Date.now() - t0 };
+    await new Promise((r) => setTimeout(r, 250));
+  }
 }

@@ -19,7 +19,7 @@ import { join } from "node:path";
 import { ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { launchBrowser, openDemoStepAsAuthor } from "./browser";
+import { launchBrowser, openDemoStepAsAuthor, startBatch } from "./browser";
 import { db } from "./access-fixture";
 import { E2E_PORT, e2eEnv, startAppServer, type AppServer } from "./app-server";
 import { s3FakePort, startS3Fake, type S3Fake } from "../support/s3-fake";
@@ -132,14 +132,7 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
     expect((listed.Contents ?? []).map((o) => o.Key)).toContain(digest);
     s3.destroy();
 
-    const form = page.getByTestId("batch-form");
-    await form.getByLabel("graph list").selectOption({ label: `trees-14.s6 (${TOTAL} graphs)` });
-    await form.getByLabel("relation").selectOption("<");
-    await form.getByLabel("bound").fill("2");
-    await form.getByRole("button", { name: "Check every graph" }).click();
-
-    // Other tests add batches to this step: this batch's card is the one over trees-14.s6.
-    const card = page.getByTestId("batch-card").filter({ hasText: "trees-14.s6" }).first();
+    const card = await startBatch(page, "trees-14.s6", TOTAL, "<", "2");
     const progress = card.getByTestId("batch-progress");
     await progress.waitFor();
     const seen = new Set<string>();
@@ -196,13 +189,7 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
       const { page, context } = await openStepAndUpload("trees-10.s6", small);
 
       redis.down();
-      const form = page.getByTestId("batch-form");
-      await form.getByLabel("graph list").selectOption({ label: "trees-10.s6 (106 graphs)" });
-      await form.getByLabel("relation").selectOption("<");
-      await form.getByLabel("bound").fill("2");
-      await form.getByRole("button", { name: "Check every graph" }).click();
-
-      const card = page.getByTestId("batch-card").filter({ hasText: "trees-10.s6" }).first();
+      const card = await startBatch(page, "trees-10.s6", 106, "<", "2");
       await card.waitFor();
       const paused = page.getByTestId("batch-verification-paused");
       await paused.waitFor({ timeout: 30_000 });

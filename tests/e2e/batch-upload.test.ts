@@ -6,7 +6,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, inject, it } from "vitest";
-import { browserForFile, openDemoStepAsAuthor } from "./browser";
+import { browserForFile, openDemoStepAsAuthor, startBatch } from "./browser";
 import { randomGraph6List } from "../bench/batch-throughput";
 import { parseGraph6 } from "@/lib/core/input/graph6";
 
@@ -32,14 +32,7 @@ describe("a batch claim in the browser", () => {
     // The list of files is fetched again after the upload; wait for it rather than read it at once.
     await expect.poll(async () => (await page.getByTestId("file-list").textContent()) ?? "", { timeout: 30_000 }).toContain("random-12.g6");
 
-    const form = page.getByTestId("batch-form");
-    await form.getByLabel("graph list").selectOption({ label: `random-12.g6 (${COUNT} graphs)` });
-    await form.getByLabel("relation").selectOption("<");
-    await form.getByLabel("bound").fill("4");
-    await form.getByRole("button", { name: "Check every graph" }).click();
-
-    // Other tests add batches to this step: this batch's card is the one over random-12.g6.
-    const card = page.getByTestId("batch-card").filter({ hasText: "random-12.g6" }).first();
+    const card = await startBatch(page, "random-12.g6", COUNT, "<", "4");
     const progress = card.getByTestId("batch-progress");
     await progress.waitFor();
     expect(await progress.textContent()).toMatch(new RegExp(`of ${COUNT} checked`));

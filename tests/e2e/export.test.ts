@@ -5,7 +5,7 @@ import { join } from "node:path";
 import { afterAll, describe, expect, inject, it } from "vitest";
 import { strFromU8, unzipSync } from "fflate";
 import type { Page } from "playwright-core";
-import { browserForFile, signInAs, openDemoProofAsAuthor } from "./browser";
+import { browserForFile, signInAs, openDemoProofAs, openDemoProofAsAuthor } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
@@ -114,10 +114,7 @@ describe("exporting the seeded proof in the browser", () => {
   it("a reviewer sees the exports but no export buttons", async () => {
     const context = await browser().newContext();
     const page = await context.newPage();
-    await signInAs(page, baseUrl, "reviewer");
-    await page.waitForURL(`${baseUrl}/proofs`);
-    await page.getByRole("link", { name: demoProof.title }).click();
-    await page.waitForURL(/\/proofs\/\d+$/);
+    await openDemoProofAs(page, baseUrl, "reviewer");
     await page.goto(`${page.url()}/export`);
     await page.getByTestId("export-list").waitFor();
     expect(await page.getByRole("button", { name: "△ Export draft" }).count()).toBe(0);

@@ -16,12 +16,13 @@
  * The outage tests tests/integration/security-outage.test.ts and tests/e2e/outage-pages.test.ts cut a TCP relay
  * in front of the shared test database instead (it serves every other test file); this file stops a real one.
  */
-import net from "node:net";
-import { execFileSync, spawn, type ChildProcess } from "node:child_process";
+import { execFileSync } from "node:child_process";
 import * as mariadb from "mariadb";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPeople } from "@/seeders/demo-content";
 import { signInByFetch } from "../support/sign-in";
+import { freePort } from "../support/free-port";
+import { startAppServer, statusesUntilOk, type AppServer } from "./app-server";
 
 const KILLS = Number(process.env.CAIRN_FAULT_KILLS ?? 3);
 const CLIENTS = 6;
@@ -30,17 +31,9 @@ let dbPort = 0;
 let webPort = 0;
 let name = "";
 let base = "";
-let server: ChildProcess | undefined;
+let server: AppServer | undefined;
 let env: NodeJS.ProcessEnv = { ...process.env };
 let cookie = "";
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const probe = net.createServer().listen(0, "127.0.0.1", () => {
-      const { port } = probe.address() as net.AddressInfo;
-      probe.close(() => resolve(port));
-    });
-  });
 
 /** Runs a function of scripts/common.sh (the same db_start / db_stop that npm start and npm test use). */
 const sh = (script: string) =>
@@ -62,30 +55,7 @@ async function sql<T = Record<string, unknown>>(query: string, values: unknown[]
 }
 
 async function startServer(): Promise<void> {
-  server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(webPort)], {
-    env,
-    detached: true,
-    stdio: ["ignore", "ignore", "inherit"],
-  });
-  const deadline = Date.now() + 90_000;
-  for (;;) {
-    const up = await fetch(`${base}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    );
-    if (up) return;
-    if (Date.now() > deadline) throw new Error(`the fault-test server did not answer on ${base} within 90 s`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
-
-function killServer(signal: NodeJS.Signals): void {
-  if (!server?.pid) return;
-  try {
-    process.kill(-server.pid, signal);
-  } catch {
-    // already gone
-  }
+  server = await startAppServer(env, webPort, 90_000);
 }
 
 async function waitGone(pid: number): Promise<void> {
@@ -138,7 +108,7 @@ beforeAll(async () => {
 }, 240_000);
 
 afterAll(async () => {
-  killServer("SIGTERM");
+  server?.stop();
   if (server?.pid) await waitGone(server.pid);
   if (name) sh(`db_stop ${name}; rm -rf "$DATA/${name}"`);
 });
@@ -234,7 +204,7 @@ describe("faults", () => {
       const clients = states.map((s, me) => client(proofId, caseId, me, s, stopAfter));
       while (stopAfter.left > 0) await new Promise((r) => setTimeout(r, 10));
       const pid = server!.pid!;
-      killServer("SIGKILL");
+      server!.stop("SIGKILL");
       await Promise.all(clients);
       await waitGone(pid);
       const after = Object.values(acked).reduce((n, xs) => n + xs.length, 0);
@@ -357,15 +327,8 @@ describe("faults", () => {
     expect((await fetch(`${base}/api/health`)).status).toBe(503);
 
     sh(`db_start ${name} ${dbPort} >&2`);
-    const t0 = Date.now();
-    const seen: number[] = [];
-    for (;;) {
-      const status = (await get("/proofs")).status;
-      seen.push(status);
-      if (status === 200 || Date.now() - t0 > 30_000) break;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    console.log(`[faults] MariaDB started again: /proofs answered ${JSON.stringify(seen)} in ${Date.now() - t0} ms, same server process`);
+    const { seen, ms } = await statusesUntilOk(() => get("/proofs"), 30_000);
+    console.log(`[faults] MariaDB started again: /proofs answered ${JSON.stringify(seen)} in ${ms} ms, same server process`);
     expect(seen.every((s) => s === 200 || s === 503)).toBe(true);
     for (const path of [...PAGES, ...APIS]) expect((await get(path)).status, path).toBe(200);
     expect((await post(`/api/proofs/${proofId}/cases`, { title: "Written after the database came back", condition: "" })).status).toBe(201);

@@ -8,7 +8,7 @@ import { readFileSync, existsSync, mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import type { Page } from "playwright-core";
-import { browserForFile, signInAs } from "./browser";
+import { browserForFile, saveNewRevision, signInAs } from "./browser";
 import { demoProof } from "@/seeders/demo-content";
 
 const baseUrl = inject("baseUrl");
@@ -103,14 +103,11 @@ describe("review workflow in the browser", () => {
     expect(await notice.first().getAttribute("data-read")).toBe("false");
     expect((await mailTo("ada.quenby@tarnhollow.example")).subject).toContain("dispute");
     await author.goto(`${baseUrl}/proofs/${proofId}/steps/${stepId}`);
-    await author.getByTestId("step-edit").locator("summary").click();
-    const editorBox = author.getByLabel("step text (Markdown with $…$ math)");
-    await editorBox.waitFor();
-    await editorBox.fill(
+    await saveNewRevision(
+      author,
       "Since $T(2,2,c) \\subsetneq T(2,2,c+1)$, Perron–Frobenius makes $\\rho\\big(T(2,2,c)\\big)$ strictly increasing in $c$; it converges to $\\sqrt{2+\\sqrt5}$.",
+      2,
     );
-    await author.getByRole("button", { name: "Save as new revision" }).click();
-    await author.getByText("Saved as revision 2.").waitFor();
     await author.reload();
     const authorDispute = author.getByTestId("dispute");
     await authorDispute.getByLabel("Note with the change (optional)").fill("Revision 2 argues monotonicity by strict inclusion.");

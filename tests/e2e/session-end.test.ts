@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, BrowserContext } from "playwright-core";
-import { launchBrowser } from "./browser";
+import { launchBrowser, signedInContext } from "./browser";
 import { db } from "./access-fixture";
 import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
 
@@ -21,14 +21,7 @@ const PEOPLE = {
 const NEW_PASSWORD = "a-new-password-for-oskar";
 
 async function signedIn(email: string, password = DEMO_PASSWORD): Promise<{ context: BrowserContext; cookie: string }> {
-  const context = await browser.newContext();
-  const page = await context.newPage();
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(`${baseUrl}/proofs`);
-  await page.close();
+  const context = await signedInContext(browser, baseUrl, email, password);
   const cookie = (await context.cookies(baseUrl))
     .filter((c) => c.name.includes("session-token"))
     .map((c) => `${c.name}=${c.value}`)

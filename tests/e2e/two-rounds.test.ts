@@ -13,7 +13,7 @@ import { execFileSync } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { launchBrowser, signInAs } from "./browser";
+import { launchBrowser, saveNewRevision, signInAs } from "./browser";
 import { proofOfNewAuthor, signInPerson, type Person } from "./new-author";
 
 const baseUrl = inject("baseUrl");
@@ -173,12 +173,11 @@ describe("a two-round review in the browser", () => {
     const authorRounds = await author.content();
     for (const secret of [WREN.name, YARROW.name]) expect(authorRounds).not.toContain(secret);
     await author.goto(`${baseUrl}/proofs/${proofId}/steps/${stepId}`);
-    await author.getByTestId("step-edit").locator("summary").click();
-    const box = author.getByLabel("step text (Markdown with $…$ math)");
-    await box.waitFor();
-    await box.fill("Its adjacency matrix has rank 2, so two eigenvalues are nonzero; their squares sum to the trace of $A^2$, which is 8: they are $\\pm 2$.");
-    await author.getByRole("button", { name: "Save as new revision" }).click();
-    await author.getByText("Saved as revision 2.").waitFor();
+    await saveNewRevision(
+      author,
+      "Its adjacency matrix has rank 2, so two eigenvalues are nonzero; their squares sum to the trace of $A^2$, which is 8: they are $\\pm 2$.",
+      2,
+    );
 
     // Round 2: both referees vouch for revision 2 and recommend accepting; the editor accepts.
     await openRound(2);

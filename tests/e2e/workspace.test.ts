@@ -1,7 +1,7 @@
 /** The author's day in the browser: draft a proof with two cases, write a step with math, attach a claim, see its verdict and picture. */
 import { describe, expect, inject, it } from "vitest";
 import type { Page } from "playwright-core";
-import { browserForFile, signInAs } from "./browser";
+import { browserForFile, saveNewRevision, signInAs } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = browserForFile();
@@ -15,6 +15,29 @@ async function authorWithOneStep(page: Page, title: string, body: string): Promi
   const { case: c } = await post(`/api/proofs/${proof.id}/cases`, { title: "Only case", condition: "" });
   const { step } = await post(`/api/proofs/${proof.id}/cases/${c.id}/steps`, { body });
   return { stepUrl: `${baseUrl}/proofs/${proof.id}/steps/${step.id}`, proofUrl: `${baseUrl}/proofs/${proof.id}`, caseId: c.id };
+}
+
+/** A fresh context whose author has a new proof with one step, that step's page open; close the context when done. */
+async function claimFormOnNewStep(title: string, body: string) {
+  const context = await browser().newContext();
+  const page = await context.newPage();
+  const { stepUrl } = await authorWithOneStep(page, title, body);
+  await page.goto(stepUrl);
+  return { context, page, form: page.getByTestId("claim-form") };
+}
+
+/** Sends the claim form and waits for its refusal beside a field (an alert saying `problem`); no claim is attached. */
+async function attachRefused(page: Page, problem: string): Promise<void> {
+  const form = page.getByTestId("claim-form");
+  await form.getByRole("button", { name: "Attach claim" }).click();
+  await form.getByRole("alert").filter({ hasText: problem }).waitFor();
+  expect(await page.getByTestId("claim").count()).toBe(0);
+}
+
+/** Sends the claim form and waits for the claim's verdict: verified. */
+async function attachVerified(page: Page): Promise<void> {
+  await page.getByTestId("claim-form").getByRole("button", { name: "Attach claim" }).click();
+  await page.locator('[data-testid="claim"] [data-verdict="verified"]').waitFor();
 }
 
 describe("proof workspace in the browser", () => {
@@ -63,12 +86,7 @@ describe("proof workspace in the browser", () => {
     expect(await page.locator("main .katex-display").count()).toBeGreaterThanOrEqual(1);
 
     // A new revision through the editor, which opens on request (the page reads first).
-    await page.getByTestId("step-edit").locator("summary").click();
-    const editor = page.getByLabel("step text (Markdown with $…$ math)");
-    await editor.waitFor();
-    await editor.fill("Since $K_{1,5} \\subseteq G$ and $\\rho$ is monotone under subgraphs,\n\n$$\n\\rho(G) \\ge \\sqrt{5}.\n$$");
-    await page.getByRole("button", { name: "Save as new revision" }).click();
-    await page.getByText("Saved as revision 2.").waitFor();
+    await saveNewRevision(page, "Since $K_{1,5} \\subseteq G$ and $\\rho$ is monotone under subgraphs,\n\n$$\n\\rho(G) \\ge \\sqrt{5}.\n$$", 2);
 
     // A claim with malformed input shows the problem next to the field and saves nothing.
     const form = page.getByTestId("claim-form");
@@ -190,43 +208,29 @@ describe("proof workspace in the browser", () => {
   });
 
   it("attaches an enumeration claim through the form: N over the limit is refused beside N, the right list is verified", async () => {
-    const context = await browser().newContext();
-    const page = await context.newPage();
-    const { stepUrl } = await authorWithOneStep(page, "All small Dynkin diagrams", "Smith's list up to five vertices.");
-    await page.goto(stepUrl);
-    const form = page.getByTestId("claim-form");
+    const { context, page, form } = await claimFormOnNewStep("All small Dynkin diagrams", "Smith's list up to five vertices.");
     await form.getByLabel("Kind").selectOption("enumeration");
     await form.getByLabel("largest number of vertices").fill("21");
     await form.getByLabel("relation", { exact: true }).selectOption("<");
     await form.getByLabel("bound", { exact: true }).fill("2");
     // Smith 1970: the connected graphs with ρ < 2 on at most 5 vertices are A1–A5, D4 and D5.
     await form.getByLabel("listed graphs").fill(["A(1)", "A(2)", "A(3)", "A(4)", "D(4)", "A(5)", "D(5)"].join("\n---\n"));
-    await form.getByRole("button", { name: "Attach claim" }).click();
-    await form.getByRole("alert").filter({ hasText: "at most 20" }).waitFor();
-    expect(await page.getByTestId("claim").count()).toBe(0);
+    await attachRefused(page, "at most 20");
     await form.getByLabel("largest number of vertices").fill("5");
-    await form.getByRole("button", { name: "Attach claim" }).click();
-    await page.locator('[data-testid="claim"] [data-verdict="verified"]').waitFor();
+    await attachVerified(page);
     expect(await page.getByTestId("claim").first().textContent()).toContain("exactly the 7 listed");
     await context.close();
   });
 
   it("attaches Dynkin data through the form: an unknown line is refused beside the field, E8's data are verified", async () => {
-    const context = await browser().newContext();
-    const page = await context.newPage();
-    const { stepUrl } = await authorWithOneStep(page, "The Weyl group of E8", "Its order and Coxeter number.");
-    await page.goto(stepUrl);
-    const form = page.getByTestId("claim-form");
+    const { context, page, form } = await claimFormOnNewStep("The Weyl group of E8", "Its order and Coxeter number.");
     await form.getByLabel("Kind").selectOption("dynkin-data");
     await form.getByLabel("Dynkin type").fill("E8");
     await form.getByLabel("stated Dynkin data").fill("height = 29");
-    await form.getByRole("button", { name: "Attach claim" }).click();
-    await form.getByRole("alert").filter({ hasText: "is not one of" }).waitFor();
-    expect(await page.getByTestId("claim").count()).toBe(0);
+    await attachRefused(page, "is not one of");
     // h(E8) = 30 and |W(E8)| = 696729600 (Humphreys, Reflection Groups and Coxeter Groups, Tables 2.4 and 3.1).
     await form.getByLabel("stated Dynkin data").fill("h = 30\n|W| = 696729600\n[k]_q > 0");
-    await form.getByRole("button", { name: "Attach claim" }).click();
-    await page.locator('[data-testid="claim"] [data-verdict="verified"]').waitFor();
+    await attachVerified(page);
     const card = (await page.getByTestId("claim").first().textContent()) ?? "";
     expect(card).toContain("|W| = 696729600");
     expect(card).toContain("h = 30");

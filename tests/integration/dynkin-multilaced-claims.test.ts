@@ -2,15 +2,13 @@
  * dynkin-data claims on the diagrams with a multiple bond (B_n, C_n, F4, G2) through the API: attached to a step, checked
  * in the worker pool, the verdict and its reasons read back; names outside Bourbaki's ranges answer 422 naming the field.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
-import { closePool } from "@/lib/verification/pool";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
 
@@ -18,15 +16,13 @@ let proofId: string;
 let stepId: string;
 const dynkin = (o: object) => ({ format: "cairn-claim/1", kind: "dynkin-data", ...o });
 
+closeAfterAll(() => dropProofs([proofId]), { pool: true });
 beforeAll(async () => {
-  proofId = await draftProof("Weyl groups with a double bond");
-  const caseId = await addCase(proofId, "The diagram has a double bond");
-  stepId = String((await addStep(proofId, caseId, "Then it is $B_n$ or $C_n$, and $|W| = 2^n n!$.")).id);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closePool();
-  await closeSequelize();
+  ({ proofId, stepId } = await draftCaseStep(
+    "Weyl groups with a double bond",
+    "The diagram has a double bond",
+    "Then it is $B_n$ or $C_n$, and $|W| = 2^n n!$.",
+  ));
 });
 
 const attachAndWait = (claims: unknown) => claimsRoute.POST(jsonRequest("/x?wait=60", "POST", { claims }), params({ proofId, stepId }));
