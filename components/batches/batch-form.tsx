@@ -34,6 +34,19 @@ const FAMILIES: Array<[string, string]> = [
   ["fork_loop", "fork_loop"],
 ];
 
+/** A whole number inside the form's sentence. */
+function Count({ value, onValue, label, width }: { value: string; onValue: (v: string) => void; label: string; width: string }) {
+  return (
+    <TextInput
+      value={value}
+      onValue={onValue}
+      aria-label={label}
+      inputMode="numeric"
+      className={`${width} rounded border border-stone-300 px-2 py-0.5 font-mono`}
+    />
+  );
+}
+
 /** The request body for the statement chosen in the form. */
 function statementBody(
   kind: Kind,
@@ -183,25 +196,13 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
               ).map(([words, label, value, set]) => (
                 <label key={label} className="flex items-center gap-2">
                   {words}
-                  <TextInput
-                    value={value}
-                    onValue={set}
-                    aria-label={label}
-                    inputMode="numeric"
-                    className="w-12 rounded border border-stone-300 px-2 py-0.5 font-mono"
-                  />
+                  <Count value={value} onValue={set} label={label} width="w-12" />
                 </label>
               ))}
             </>
           )}
           <span>on</span>
-          <TextInput
-            value={vertices}
-            onValue={setVertices}
-            aria-label="vertices"
-            inputMode="numeric"
-            className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"
-          />
+          <Count value={vertices} onValue={setVertices} label="vertices" width="w-16" />
           <span>vertices</span>
           <Choice
             value={limitOp}
