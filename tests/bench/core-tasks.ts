@@ -127,6 +127,20 @@ function cubicTasks(): BenchTask[] {
   ]);
 }
 
+function cubicNearTasks(): BenchTask[] {
+  // ρ = 3 exactly (connected 3-regular) against bounds just below it: a rational 3 − 10^-9, whose long
+  // numerator and denominator make exact elimination steps grow fast (the certified floating-point steps
+  // of interval-elimination.ts take them), and an irrational √(9 − 2^-30) ≈ 3 − 5.6·10^-11.
+  return [1_000, 2_000].flatMap((n) =>
+    (
+      [
+        ["rational", "2999999999/1000000000", "ρ < 3 − 1e-9 (rational b, exact verdict)"],
+        ["irrational", `sqrt(${9 * 2 ** 30 - 1}/${2 ** 30})`, "ρ < √(9 − 2^-30) (irrational b, exact verdict)"],
+      ] as const
+    ).map(([kind, bound, task]) => graphTask(`cubic n=${n}`, `cubic-${n}-near-${kind}`, () => cubicWorkload(n), task, false, verdict("<", bound))),
+  );
+}
+
 function subgraphTasks(): BenchTask[] {
   const e8 = workloadGraph(extendedE8Workload());
   const star = workloadGraph(star4Workload());
@@ -382,6 +396,7 @@ export const coreSection: BenchSection = {
     ...spectralRadiusTasks(),
     ...sparseTasks(),
     ...cubicTasks(),
+    ...cubicNearTasks(),
     ...subgraphTasks(),
     ...charpolyTasks(),
     ...irrationalBoundTasks(),
