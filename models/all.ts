@@ -28,3 +28,4 @@ export { PartUpload } from "./part-upload";
 export { ClaimFile } from "./claim-file";
 export { FormerMember } from "./former-member";
 export { BatchClaim, BatchResult } from "./batch-claim";
+export { ClaimPart } from "./claim-part";

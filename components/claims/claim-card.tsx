@@ -77,11 +77,13 @@ export function ClaimCard(props: {
       </section>
       {claim.status === "pending" ? (
         <p className="mt-2 text-sm text-stone-600" aria-live="polite">
-          {claim.progress?.state === "checking"
-            ? `A verification worker (${claim.progress.worker ?? "unnamed"}) is checking this claim; the verdict appears here when it is done.`
-            : claim.progress?.state === "retrying"
-              ? `This claim's check is being tried again (a worker stopped while checking it; attempt ${claim.progress.attempts + 1}); the verdict appears here when it is done.`
-              : "This claim waits for a verification worker; the verdict appears here when it is done."}
+          {claim.progress?.parts
+            ? `This claim is checked in ${claim.progress.parts.of} independent parts, shared among the verification workers: ${claim.progress.parts.done} of ${claim.progress.parts.of} parts done; the verdict appears here when all are in.`
+            : claim.progress?.state === "checking"
+              ? `A verification worker (${claim.progress.worker ?? "unnamed"}) is checking this claim; the verdict appears here when it is done.`
+              : claim.progress?.state === "retrying"
+                ? `This claim's check is being tried again (a worker stopped while checking it; attempt ${claim.progress.attempts + 1}); the verdict appears here when it is done.`
+                : "This claim waits for a verification worker; the verdict appears here when it is done."}
         </p>
       ) : (
         <dl className="mt-2 grid grid-cols-[minmax(0,1fr)] gap-x-4 gap-y-1 text-sm sm:grid-cols-[9rem_minmax(0,1fr)]">

@@ -24,7 +24,7 @@ export function DynkinFields({ register, err }: { register: UseFormRegister<Clai
       </FormField>
       <FormField
         label="Stated data, one per line"
-        hint="h = 10 · rho = 2cos(pi/10) · exponents = 1, 3, … · marks = … · f = 2 · |W| = 3840 · W(q) = … (highest power first) · [2]_q = 2cos(pi/10) · [k]_q > 0"
+        hint="h = 10 · rho = 2cos(pi/10) (ρ of the Coxeter graph's matrix M_ij = 2cos(π/m_ij); for A, D, E that is ρ(G)) · exponents = 1, 3, … · marks = … · f = 2 · |W| = 3840 · W(q) = … (highest power first) · [2]_q = 2cos(pi/10) · [k]_q > 0"
         error={err("dynkinData")}
       >
         <textarea {...register("dynkinData")} rows={4} className={input} aria-label="stated Dynkin data" />

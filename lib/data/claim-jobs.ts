@@ -44,16 +44,28 @@ export async function verificationNotice(rows: Array<{ status: string }>): Promi
   return rows.some((r) => r.status === "pending") ? verificationService() : null;
 }
 
-/** Where each pending claim's job is (queued, being checked by which worker, retried); empty when Redis is away. */
+/**
+ * Where each pending claim's job is (queued, being checked by which worker, retried; for a claim
+ * checked in parts, how many parts are stored); empty when Redis is away.
+ */
 export async function pendingProgress(rows: Array<{ id: number; status: string; verifyRound: number }>): Promise<Map<number, JobProgress>> {
   const out = new Map<number, JobProgress>();
+  const pending = rows.filter((c) => c.status === "pending").slice(0, 50);
   try {
-    for (const r of rows.filter((c) => c.status === "pending").slice(0, 50)) {
+    for (const r of pending) {
       const p = await claimJobProgress(r.id, r.verifyRound);
       if (p) out.set(r.id, p);
     }
   } catch (e) {
     if (!(e instanceof QueueUnavailable)) throw e;
+  }
+  const inParts = pending.filter((r) => out.get(r.id)?.parts);
+  if (inParts.length) {
+    const stored = await models().ClaimPart.findAll({
+      where: { [Op.or]: inParts.map((r) => ({ claimId: r.id, verifyRound: r.verifyRound })) },
+      attributes: ["claimId"],
+    });
+    for (const s of stored) out.get(s.claimId)!.parts!.done++;
   }
   return out;
 }

@@ -23,6 +23,16 @@ export interface ClaimJobData {
   checkedBy: number;
 }
 
+/** Data of one part of a claim checked in independent parts (lib/jobs/claim-parts.ts): part `part` of `parts`, 0-based. */
+export interface ClaimPartJobData {
+  type: "claim-part";
+  claimId: number;
+  round: number;
+  checkedBy: number;
+  part: number;
+  parts: number;
+}
+
 /** Data of a certified export's re-check: the whole bundle, and how many claims it holds. */
 export interface BundleJobData {
   type: "bundle";
@@ -42,9 +52,13 @@ export interface FileSweepJobData {
   type: "file-sweep";
 }
 
-export type JobData = ClaimJobData | BundleJobData | BatchJobData | FileSweepJobData;
+export type JobData = ClaimJobData | ClaimPartJobData | BundleJobData | BatchJobData | FileSweepJobData;
 export type JobResult =
-  { decided: boolean } | { decided: number } | BundleCheckReport | { objectsRemoved: number; rowsRemoved: number; rowsKept: number; uploadsRemoved: number };
+  /** `parts`: the claim job handed the check to that many part jobs; `stored`: a part job stored its part. */
+  | { decided: boolean; parts?: number; stored?: boolean }
+  | { decided: number }
+  | BundleCheckReport
+  | { objectsRemoved: number; rowsRemoved: number; rowsKept: number; uploadsRemoved: number };
 
 /** The file sweep's schedule: one repeatable job for all workers, every CAIRN_FILE_SWEEP_EVERY_MS (an hour by default). */
 export const FILE_SWEEP_SCHEDULER = "file-sweep";
@@ -73,6 +87,20 @@ export function redisConnection(kind: "web" | "worker"): ConnectionOptions {
 
 /** Job ids: one job per claim and verification round, so queueing twice is harmless. */
 export const claimJobId = (claimId: number, round: number) => `claim-${claimId}-r${round}`;
+
+/** Job ids of a claim's parts: one job per claim, round and part, so queueing a part twice is harmless. */
+export const claimPartJobId = (claimId: number, round: number, part: number) => `claim-${claimId}-r${round}-p${part}`;
+
+/** Queues parts of a claim's check (idempotent per part); only workers queue them. */
+export async function queueClaimParts(data: Omit<ClaimPartJobData, "type" | "part">, parts: readonly number[]): Promise<void> {
+  await verificationQueue("worker").addBulk(
+    parts.map((part) => ({
+      name: "claim-part",
+      data: { type: "claim-part" as const, ...data, part },
+      opts: { jobId: claimPartJobId(data.claimId, data.round, part) },
+    })),
+  );
+}
 
 /** Graphs per batch job: a few thousand small graphs take a second or two, well inside a job's lock. */
 export const batchChunkSize = (): number => Number(process.env.CAIRN_BATCH_CHUNK) || 2_000;
@@ -179,12 +207,16 @@ export interface JobProgress {
   state: "queued" | "checking" | "retrying" | "unknown";
   worker: string | null;
   attempts: number;
+  /** When the claim is checked in independent parts: how many are stored (filled in by the data layer) of how many. */
+  parts?: { done: number; of: number };
 }
 
 export async function claimJobProgress(claimId: number, round: number): Promise<JobProgress | null> {
   const job = await bounded(() => verificationQueue().getJob(claimJobId(claimId, round)));
   if (!job) return null;
   const state = await bounded(() => job.getState());
+  const handed = (job.returnvalue as { parts?: unknown } | null)?.parts;
+  if (state === "completed" && typeof handed === "number") return { state: "checking", worker: null, attempts: 0, parts: { done: 0, of: handed } };
   const progress = (job.progress ?? {}) as { worker?: string };
   const retried = job.attemptsMade > 0 || (job.stalledCounter ?? 0) > 0;
   return {

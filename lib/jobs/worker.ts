@@ -11,16 +11,14 @@
  * `undecided` with the reason. A sweep every few seconds queues pending claims that have no job
  * (attached while Redis was away) and settles claims whose job failed for good.
  */
-import { hostname } from "node:os";
 import { QueryTypes } from "sequelize";
 import { Worker, type Job } from "bullmq";
 import { getSequelize } from "../db";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
-import { checkBundleInPool, CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
-import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
-import { deliverAfterCommit } from "../mail/outbox";
-import { recordEvent } from "../data/audit";
+import { checkBundleInPool } from "../verification/pool";
+import { decide, num, settleFailed, stillWanted, verifyInPool, workerName } from "./claim-decide";
+import { partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
 import { runBatchChunk, settleFailedChunk } from "./batch";
 import { sweepStoredFiles } from "../data/file-sweep";
 import {
@@ -43,124 +41,21 @@ import {
   type JobResult,
 } from "./queue";
 
-/** This worker's name, stored with each verdict it decides. */
-export const workerName = (): string => `${hostname()}:${process.pid}`;
-
-const num = (name: string, fallback: number) => Number(process.env[name]) || fallback;
-
-type Decision = Record<string, unknown>;
-
-/**
- * Stores a decision if the claim is still pending in this round; true when this call stored it. The
- * verdict is carried into the step's revisions in the same transaction (recordVerdictInRevisions:
- * a first verdict fills the revision that recorded the claim pending; a changed one makes a new
- * revision, supersedes vouches and notifies their referees), and the mail goes out after commit.
- */
-async function decide(claimId: number, round: number, checkedBy: number, decision: Decision): Promise<boolean> {
-  const { Claim } = models();
-  const stored = await getSequelize().transaction(async (transaction) => {
-    const found = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "stepId"], transaction });
-    if (!found) return false;
-    // The step row first, as attaches, withdrawals and vouches take it, then the claim row.
-    await lockLatest(found.stepId, transaction);
-    const [changed] = await Claim.unscoped().update(
-      { ...decision, checkedBy, checkedAt: new Date(), decidedBy: workerName() },
-      { where: { id: claimId, status: "pending", verifyRound: round }, transaction },
-    );
-    if (changed !== 1) return false;
-    const proof = await getSequelize().query<{ proofId: number }>("SELECT c.proof_id AS proofId FROM steps s JOIN cases c ON c.id = s.case_id WHERE s.id = ?", {
-      replacements: [found.stepId],
-      type: QueryTypes.SELECT,
-      transaction,
-    });
-    await recordEvent(
-      {
-        proofId: proof[0].proofId,
-        actorId: null,
-        action: "claim.decided",
-        subjectType: "claim",
-        subjectId: claimId,
-        detail: `${String(decision.status)} by worker ${workerName()}, checker ${String(decision.checkerVersion ?? "-")}`,
-      },
-      transaction,
-    );
-    await recordVerdictInRevisions(claimId, checkedBy, transaction);
-    return true;
-  });
-  if (stored) await deliverAfterCommit();
-  return stored;
-}
-
-const undecided = (method: string, reason: string): Decision => ({ status: "undecided", method, reason, certificate: null });
-
-/** Whether the claim still waits for this round's verdict (not decided, cancelled, withdrawn or re-queued). */
-async function stillWanted(claimId: number, round: number): Promise<boolean> {
-  const { Claim } = models();
-  const row = await Claim.unscoped().findByPk(claimId, { attributes: ["id", "status", "verifyRound", "withdrawnAt"] });
-  return !!row && row.status === "pending" && row.verifyRound === round && row.withdrawnAt === null;
-}
-
-async function verifyClaimJob(job: Job<JobData, JobResult>, data: ClaimJobData): Promise<{ decided: boolean }> {
+async function verifyClaimJob(job: Job<JobData, JobResult>, data: ClaimJobData): Promise<{ decided: boolean; parts?: number }> {
   const { Claim } = models();
   if (!(await stillWanted(data.claimId, data.round))) return { decided: false };
   const row = await Claim.unscoped().findByPk(data.claimId, { attributes: ["id", "input"] });
-  await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
-  // Cancelled, withdrawn or re-queued meanwhile (asked of the database, so it works across hosts): stop.
-  const cancel = new AbortController();
-  const watch = setInterval(
-    () => {
-      stillWanted(data.claimId, data.round).then(
-        (yes) => yes || cancel.abort(),
-        () => undefined,
-      );
-    },
-    num("CAIRN_CANCEL_POLL_MS", 1_000),
-  );
-  let decision: Decision;
-  try {
-    const answer = await runInPool(
-      { mode: "verify", claim: JSON.parse(row!.input) as ClaimJson, stepLimit: STEP_LIMIT, picture: true },
-      undefined,
-      cancel.signal,
-    );
-    if (answer.ok) {
-      const o = answer.outcome!;
-      const notes =
-        o.certificateMatches === null
-          ? ""
-          : o.certificateMatches
-            ? " The certificate given with the claim re-checked and agrees."
-            : " The certificate given with the claim did not re-check or disagrees with this verdict.";
-      decision = {
-        status: o.status,
-        statement: o.statement.slice(0, 500),
-        method: o.method.slice(0, 200),
-        reason: [o.reason + notes, o.ranOn].filter(Boolean).join(" "),
-        certificate: o.certificate,
-        digest: o.digest,
-        checkerVersion: o.checkerVersion,
-        picture: o.picture ? JSON.stringify(o.picture) : null,
-      };
-    } else {
-      decision = undecided("input", `the input could not be read: ${answer.problem.path}: ${answer.problem.detail}`);
-    }
-  } catch (e) {
-    if (e instanceof CheckCancelled) return { decided: false };
-    // A time limit or a thread out of memory is an answer (undecided), not a reason to try again.
-    if (!(e instanceof WorkerFailure)) throw e;
-    decision = undecided("worker", e.message);
-  } finally {
-    clearInterval(watch);
+  const claim = JSON.parse(row!.input) as ClaimJson;
+  // A large enumeration is checked in independent parts, one job each, merged by the last one in.
+  const parts = partsFor(claim);
+  if (parts > 1) {
+    await queueMissingParts(data, parts);
+    return { decided: false, parts };
   }
+  await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
+  const decision = await verifyInPool(data.claimId, data.round, claim);
+  if (decision === null) return { decided: false };
   return { decided: await decide(data.claimId, data.round, data.checkedBy, decision) };
-}
-
-/** A claim whose job failed for good is undecided, with the reason; never left pending. */
-export async function settleFailed(data: ClaimJobData, failedReason: string | undefined): Promise<boolean> {
-  const why = /stalled/i.test(failedReason ?? "")
-    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking this claim (killed, or out of memory); re-check to try again`
-    : `the verification failed ${JOB_ATTEMPTS} times (${(failedReason ?? "no reason given").slice(0, 300)}); re-check to try again`;
-  return decide(data.claimId, data.round, data.checkedBy, undecided("worker", why));
 }
 
 async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
@@ -169,6 +64,7 @@ async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
     return runBatchChunk(job.data, workerName());
   }
   if (job.data.type === "file-sweep") return sweepStoredFiles();
+  if (job.data.type === "claim-part") return runClaimPart(job, job.data);
   if (job.data.type === "bundle") {
     const data = job.data as BundleJobData;
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
@@ -203,7 +99,13 @@ export async function sweep(): Promise<{ queued: number; settled: number }> {
     const data: ClaimJobData = { type: "claim", claimId: r.id, round: r.verifyRound, checkedBy: r.checkedBy ?? r.createdBy };
     const job = await queue.getJob(claimJobId(r.id, r.verifyRound));
     const state = job ? await job.getState() : "missing";
-    if (state === "failed") {
+    const handed = state === "completed" ? (job!.returnvalue as { parts?: unknown } | null)?.parts : undefined;
+    if (typeof handed === "number") {
+      // Checked in parts: the claim job's work was to queue them; the parts are looked at instead.
+      const done = await sweepClaimParts(data, handed);
+      if (done === "settled") settled++;
+      if (done === "queued") queued++;
+    } else if (state === "failed") {
       if (await settleFailed(data, job!.failedReason)) settled++;
     } else if (state === "missing" || state === "unknown" || state === "completed") {
       // Completed yet still pending cannot normally happen (the job stores or finds it decided); queue it again.
@@ -278,6 +180,12 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       if (job.attemptsMade >= JOB_ATTEMPTS || /stalled/i.test(e.message)) void settleFailedChunk(data, e.message, workerName()).catch(() => undefined);
       return;
     }
+    if (job?.data.type === "claim-part") {
+      const data = job.data;
+      log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
+      if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(data, `part ${data.part + 1} of ${data.parts}: ${e.message}`).catch(() => undefined);
+      return;
+    }
     if (!job || job.data.type !== "claim") return;
     log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
     if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(job.data, e.message).catch(() => undefined);
@@ -296,8 +204,16 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       log(
         `[cairn worker] file sweep: removed ${result.objectsRemoved} stored files no row names, ${result.rowsRemoved} rows whose file was missing; kept ${result.rowsKept} such rows a batch claim refers to; removed ${result.uploadsRemoved} unfinished uploads in parts`,
       );
-    if (job.data.type === "claim")
+    if (job.data.type === "claim" && "decided" in result && "parts" in result && result.parts)
+      log(`[cairn worker] claim ${job.data.claimId} is checked in ${result.parts} parts`);
+    else if (job.data.type === "claim")
       log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
+    if (job.data.type === "claim-part" && !("stored" in result && result.stored))
+      log(`[cairn worker] claim ${job.data.claimId}: part ${job.data.part + 1} of ${job.data.parts} not needed any more; nothing stored`);
+    if (job.data.type === "claim-part" && "stored" in result && result.stored)
+      log(
+        `[cairn worker] claim ${job.data.claimId}: part ${job.data.part + 1} of ${job.data.parts} stored${"decided" in result && result.decided ? "; all parts in, claim decided" : ""}`,
+      );
   });
   let sweeping = true;
   const sweepLoop = (async () => {

@@ -10,7 +10,7 @@ import { execFileSync } from "node:child_process";
 import { mkdirSync, renameSync } from "node:fs";
 import path from "node:path";
 import { Piscina } from "piscina";
-import type { BundleTask, VerificationTask, WorkerAnswer } from "./types";
+import type { BundleTask, PartAnswer, PartTask, VerificationTask, WorkerAnswer } from "./types";
 import type { BundleCheckReport } from "../core/certificates/bundle";
 import { STEP_LIMIT, TIME_LIMIT_MS } from "./limits";
 import { isFresh, WORKER_SOURCES, workerBundlePath } from "./bundles";
@@ -42,11 +42,13 @@ export function workerFile(): string {
   return out;
 }
 
-// One pool, two entries of the worker module: the default (one claim) and `bundle` (a whole export).
-const g = globalThis as unknown as { __cairnVerifyPool?: Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport> };
+// One pool, three entries of the worker module: the default (one claim), `part` (one part of a claim) and `bundle` (a whole export).
+type Task = VerificationTask | PartTask | BundleTask;
+type Answer = WorkerAnswer | PartAnswer | BundleCheckReport;
+const g = globalThis as unknown as { __cairnVerifyPool?: Piscina<Task, Answer> };
 
-function pool(): Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport> {
-  g.__cairnVerifyPool ??= new Piscina<VerificationTask | BundleTask, WorkerAnswer | BundleCheckReport>({
+function pool(): Piscina<Task, Answer> {
+  g.__cairnVerifyPool ??= new Piscina<Task, Answer>({
     filename: workerFile(),
     minThreads: 1,
     // A worker process takes one job at a time; more cores mean more worker processes (npm start).
@@ -73,6 +75,11 @@ export function runInPool(task: VerificationTask, timeLimitMs = TIME_LIMIT_MS, c
   return run(task, timeLimitMs, undefined, cancel) as Promise<WorkerAnswer>;
 }
 
+/** Runs one part of a claim checked in parts, with the same time limit and cancel as a whole claim. */
+export function runPartInPool(task: PartTask, cancel?: AbortSignal, timeLimitMs = TIME_LIMIT_MS): Promise<PartAnswer> {
+  return run(task, timeLimitMs, "part", cancel) as Promise<PartAnswer>;
+}
+
 /** The check was stopped on purpose before it ended; nothing is stored for it. */
 export class CheckCancelled extends Error {
   constructor() {
@@ -90,7 +97,7 @@ export function checkBundleInPool(bundle: unknown, claims: number): Promise<Bund
   return run({ bundle, stepLimit: STEP_LIMIT }, limit, "bundle") as Promise<BundleCheckReport>;
 }
 
-async function run(task: VerificationTask | BundleTask, timeLimitMs: number, name?: string, cancel?: AbortSignal): Promise<WorkerAnswer | BundleCheckReport> {
+async function run(task: Task, timeLimitMs: number, name?: string, cancel?: AbortSignal): Promise<Answer> {
   const timeout = AbortSignal.timeout(timeLimitMs);
   try {
     return await pool().run(task, { signal: cancel ? AbortSignal.any([timeout, cancel]) : timeout, ...(name ? { name } : {}) });

@@ -10,7 +10,21 @@ export interface VerificationTask {
   stepLimit: number;
   /** Also compute the display picture (layout, float spectrum). */
   picture: boolean;
+  /** A claim checked in independent parts: every part's result (PartTask), merged instead of checking again. */
+  parts?: readonly unknown[];
 }
+
+/** One part of a claim checked in independent parts (run by the worker's `part` entry). */
+export interface PartTask {
+  claim: unknown;
+  /** 0-based, of `parts`. */
+  part: number;
+  parts: number;
+  stepLimit: number;
+}
+
+/** A part's result (plain JSON, stored until every part is in), or why it has none (the claim is then undecided). */
+export type PartAnswer = { ok: true; result: unknown } | { ok: true; undecided: string } | { ok: false; problem: InputProblem };
 
 /** Re-check a whole export bundle exactly as a reader will (run by the worker's `bundle` entry). */
 export interface BundleTask {

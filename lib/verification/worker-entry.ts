@@ -3,7 +3,7 @@
  * worker thread): validates and verifies one claim with the exact core under a step budget, and
  * computes its display picture. Nothing here touches the database; the server stores the outcome.
  */
-import { CHECKER_VERSION, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims/claims";
+import { CHECKER_VERSION, claimPart, describeRanOn, readClaimGraph, verifyClaim } from "../core/claims/claims";
 import { checkInputs } from "../core/claims/claim-inputs";
 import { ClaimError, validateClaim, type Claim, type GraphInput } from "../core/claims/claim-schema";
 import { NumberFormatError } from "../core/arithmetic/rational";
@@ -14,7 +14,7 @@ import { boundApprox, parseBound } from "../core/arithmetic/bound";
 import { Budget } from "../core/verdict";
 import type { Graph } from "../core/graph";
 import { pictureOf, type ClaimPicture, type GraphPicture } from "./picture";
-import type { BundleTask, VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
+import type { BundleTask, PartAnswer, PartTask, VerificationOutcome, VerificationTask, WorkerAnswer } from "./types";
 import { checkBundle, type BundleCheckReport } from "../core/certificates/bundle";
 import { setPriority } from "node:os";
 import { isMainThread } from "node:worker_threads";
@@ -105,13 +105,24 @@ export default function answer(task: VerificationTask): WorkerAnswer {
   }
 }
 
+/** The worker's `part` entry: one part of a claim checked in independent parts. */
+export function part(task: PartTask): PartAnswer {
+  try {
+    const r = claimPart(validateClaim(task.claim), task.part, task.parts, { budget: new Budget(task.stepLimit) });
+    return "result" in r ? { ok: true, result: r.result } : { ok: true, undecided: r.undecided };
+  } catch (e) {
+    if (e instanceof ClaimError) return { ok: false, problem: { path: e.path, detail: e.detail } };
+    throw e;
+  }
+}
+
 /** The worker's `bundle` entry: the offline checker's bundle re-check, off the thread that answers requests. */
 export function bundle(task: BundleTask): BundleCheckReport {
   return checkBundle(task.bundle, "bundle", { steps: task.stepLimit });
 }
 
 function verifyOne(claim: Claim, task: VerificationTask): VerificationOutcome {
-  const result = verifyClaim(claim, { budget: new Budget(task.stepLimit) });
+  const result = verifyClaim(claim, { budget: new Budget(task.stepLimit), ...(task.parts ? { parts: task.parts } : {}) });
   const v = result.verdict;
   const evidence = (v.certificate as { evidence?: unknown } | undefined)?.evidence;
   return {

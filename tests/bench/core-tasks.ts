@@ -10,7 +10,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { enumerateConnected } from "../../lib/core/families/enumeration";
 import { generateConnected, type GenerationOptions } from "../../lib/core/families/augmentation";
-import { checkCoverage, type CoverageCase } from "../../lib/core/families/coverage";
+import { checkCoverage, type CoverageCase, type CoverageSetting } from "../../lib/core/families/coverage";
 import { validateCondition } from "../../lib/core/families/case-condition";
 import { parseBound } from "../../lib/core/arithmetic/bound";
 import { validateClaim } from "../../lib/core/claims/claim-schema";
@@ -125,6 +125,20 @@ function cubicTasks(): BenchTask[] {
       inertiaAt2,
     ),
   ]);
+}
+
+function cubicNearTasks(): BenchTask[] {
+  // ρ = 3 exactly (connected 3-regular) against bounds just below it: a rational 3 − 10^-9, whose long
+  // numerator and denominator make exact elimination steps grow fast (the certified floating-point steps
+  // of interval-elimination.ts take them), and an irrational √(9 − 2^-30) ≈ 3 − 5.6·10^-11.
+  return [1_000, 2_000].flatMap((n) =>
+    (
+      [
+        ["rational", "2999999999/1000000000", "ρ < 3 − 1e-9 (rational b, exact verdict)"],
+        ["irrational", `sqrt(${9 * 2 ** 30 - 1}/${2 ** 30})`, "ρ < √(9 − 2^-30) (irrational b, exact verdict)"],
+      ] as const
+    ).map(([kind, bound, task]) => graphTask(`cubic n=${n}`, `cubic-${n}-near-${kind}`, () => cubicWorkload(n), task, false, verdict("<", bound))),
+  );
 }
 
 function subgraphTasks(): BenchTask[] {
@@ -254,7 +268,7 @@ function enumerationTasks(): BenchTask[] {
 
 /** Coverage claims at their caps: every graph enumerated and tested against each sub-case condition. */
 function coverageTasks(): BenchTask[] {
-  const task = (id: string, workload: string, n: number, setting: "simple" | "tree", cases: CoverageCase[]): BenchTask => ({
+  const task = (id: string, workload: string, n: number, setting: CoverageSetting, cases: CoverageCase[]): BenchTask => ({
     id,
     workload,
     task: `coverage of a ${cases.length}-way split (every graph tested)`,
@@ -277,11 +291,28 @@ function coverageTasks(): BenchTask[] {
     { condition: condition({ predicate: "branch-vertices", relation: "=", value: 1 }) },
     { condition: condition({ predicate: "branch-vertices", relation: ">=", value: 2 }) },
   ];
+  const multigraph = (maxMultiplicity: number, maxLoop: number) => ({ kind: "multigraph", maxMultiplicity, maxLoop }) as const;
+  const multi = (c: unknown) => validateCondition(c, "$", { multigraph: true });
+  const multigraphSplit: CoverageCase[] = [
+    { condition: multi({ predicate: "simple" }) },
+    {
+      condition: multi({
+        and: [
+          { predicate: "loops", relation: ">=", value: 1 },
+          { predicate: "max-degree", relation: "<=", value: 4 },
+        ],
+      }),
+    },
+    { condition: multi({ predicate: "contains", graph: { format: "edges", text: "0 1 2" } }) },
+  ];
   // The enumeration is streamed through the conditions, so the peak memory should not grow with the number of graphs.
   return [
     task("coverage-connected-8", "connected graphs, ≤ 8 vertices", 8, "simple", simpleSplit),
     task("coverage-connected-9", "connected graphs, ≤ 9 vertices", 9, "simple", simpleSplit),
     task("coverage-trees-16", "trees, ≤ 16 vertices", 16, "tree", treeSplit),
+    // Graphs with loops and multiple edges at the claim's caps (coverage-limits.ts): 7 vertices for multiplicity 1 and loops 1, 5 for 2 and 2.
+    task("coverage-multigraphs-1-1-7", "connected graphs with loops ≤ 1, ≤ 7 vertices", 7, multigraph(1, 1), multigraphSplit),
+    task("coverage-multigraphs-2-2-5", "connected graphs with multiplicities ≤ 2 and loops ≤ 2, ≤ 5 vertices", 5, multigraph(2, 2), multigraphSplit),
     task("coverage-trees-18", "trees, ≤ 18 vertices", 18, "tree", treeSplit),
   ];
 }
@@ -365,6 +396,7 @@ export const coreSection: BenchSection = {
     ...spectralRadiusTasks(),
     ...sparseTasks(),
     ...cubicTasks(),
+    ...cubicNearTasks(),
     ...subgraphTasks(),
     ...charpolyTasks(),
     ...irrationalBoundTasks(),

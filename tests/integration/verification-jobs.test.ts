@@ -1,25 +1,32 @@
 /**
  * Verification as BullMQ jobs in worker processes: a worker killed mid-check (SIGKILL) leaves its job
  * to another worker and the claim is decided exactly once; with Redis stopped claims wait `pending`
- * and the step says verification is paused, then they are checked when Redis is back; cancel.
+ * and the step says verification is paused, then they are checked when Redis is back; cancel; large
+ * enumeration and coverage claims checked in parts shared by two workers (the verdict a single job
+ * gives, the parts counted in the pending display, no verdict for a claim withdrawn meanwhile).
  * Each part runs its own workers on a queue prefix of its own (and the outage part its own Redis),
  * so the suite's shared worker never takes these jobs.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
 import { parseClaimSet } from "@/lib/review/revisions";
 import { startTestWorker, until, type TestWorker } from "../support/workers";
-import { ownRedis, type TestRedis } from "../support/redis";
+import { ownRedisForTest } from "../support/redis";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
+import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
+import { pendingProgress } from "@/lib/data/claim-jobs";
+import { claimPartJobId, verificationQueue } from "@/lib/jobs/queue";
+import { partsFor } from "@/lib/jobs/claim-parts";
+import { validateClaim, verifyClaim } from "@/lib/core";
+import { Budget } from "@/lib/core/verdict";
 
 let proofId: string;
 let stepId: string;
@@ -32,19 +39,14 @@ const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: n
 // and is not listed (from the definition of the claim).
 const slow = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 9, op: "<=", bound: "sqrt(2+sqrt(5))", graphs: [] };
 
+closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
-  proofId = await draftProof("Verification jobs test");
-  const caseId = await addCase(proofId, "Jobs");
-  stepId = String((await addStep(proofId, caseId, "Checked by the workers.")).id);
+  ({ proofId, stepId } = await draftCaseStep("Verification jobs test", "Jobs", "Checked by the workers."));
 });
 afterEach(async () => {
   for (const w of workers.splice(0)) w.stop("SIGKILL");
   await closeQueue();
   Object.assign(process.env, saved);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closeSequelize();
 });
 
 const attach = async (claims: unknown[]) => {
@@ -108,10 +110,7 @@ describe("cancel", () => {
     const id = claims[0].id;
     await until("the job to start", async () => (await claimJobProgress(id, 0))?.state === "checking");
     const cancel = () => cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(id) }));
-    await actAs(null);
-    expect((await cancel()).status).toBe(401);
-    await actAs("reviewer");
-    expect((await cancel()).status).toBe(403);
+    await expectStatusAs(cancel, { nobody: 401, reviewer: 403 });
     await actAs("author");
     const res = await cancel();
     expect(res.status).toBe(200);
@@ -126,14 +125,8 @@ describe("cancel", () => {
 });
 
 describe("Redis stopped", () => {
-  let redis: TestRedis;
-  afterAll(() => redis?.remove());
-
   it("claims wait pending and the step says verification is paused; they are checked when Redis is back", async () => {
-    redis = await ownRedis();
-    await redis.up();
-    process.env.REDIS_URL = redis.url;
-    process.env.CAIRN_QUEUE_PREFIX = "cairn-outage";
+    const redis = await ownRedisForTest("cairn-outage");
     const w = worker({ CAIRN_SWEEP_AFTER_MS: "500", CAIRN_SWEEP_INTERVAL_MS: "500" });
     await w.ready;
     const before = await attach([quick]);
@@ -162,4 +155,99 @@ describe("Redis stopped", () => {
     expect(await decisions(id)).toBe(1);
     expect(await until("the worker to reconnect", async () => !(await verificationService()).paused)).toBe(true);
   }, 180_000);
+});
+
+// Trees on n = 1..14 vertices: OEIS A000055. Connected graphs on n = 1..8 vertices: OEIS A001349.
+const A000055 = [1, 1, 1, 2, 3, 6, 11, 23, 47, 106, 235, 551, 1301, 3159];
+const A001349 = [1, 1, 2, 6, 21, 112, 853, 11117];
+
+const partRows = (id: number) => models().ClaimPart.findAll({ where: { claimId: id }, order: [["part", "ASC"]] });
+const twoWorkers = async (prefix: string) => {
+  process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-${prefix}`;
+  return Promise.all([worker(), worker()].map(nameOf));
+};
+/** What one job in this process gives for the claim: the single-job path the parts must agree with. */
+const single = (claim: object) => verifyClaim(validateClaim(claim), { budget: new Budget(1e12) }).verdict;
+
+const trees14 = { format: "cairn-claim/1", kind: "enumeration", setting: "tree", maxVertices: 14, op: "<=", bound: "100", graphs: [] };
+const graphs7 = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 7, op: "<", bound: "7", graphs: [] };
+const treeSplit = {
+  format: "cairn-claim/1",
+  kind: "coverage",
+  setting: "tree",
+  maxVertices: 12,
+  cases: [
+    { label: "a path", condition: { predicate: "path" } },
+    { label: "one branch vertex", condition: { predicate: "branch-vertices", relation: "=", value: 1 } },
+    { label: "two or more", condition: { predicate: "branch-vertices", relation: ">=", value: 2 } },
+  ],
+};
+
+describe("claims checked in parts", () => {
+  it("two workers take different parts; the verdicts and certificates are a single job's; progress counts the parts", async () => {
+    const names = await twoWorkers("share");
+    expect(new Set(names).size).toBe(2);
+    const claims = [trees14, graphs7, treeSplit];
+    expect(claims.map((c) => partsFor(validateClaim(c)))).toEqual([8, 2, 2]);
+    const ids = (await attach(claims)).claims.map((c) => c.id);
+    for (const id of ids) await verificationSettled(id);
+
+    for (const [i, id] of ids.entries()) {
+      const row = (await claimRow(id))!;
+      const want = single(claims[i]);
+      expect(row.status).toBe(want.status);
+      // Stored as a single job stores them (statement and method cut to their columns).
+      expect(row.statement).toBe(want.statement.slice(0, 500));
+      expect(row.method).toBe(want.method.slice(0, 200));
+      expect(row.reason!.startsWith(want.reason!)).toBe(true);
+      expect(JSON.parse(row.certificate!)).toEqual(want.certificate);
+      expect(await decisions(id)).toBe(1);
+      const parts = await partRows(id);
+      expect(parts.map((p) => p.part)).toEqual([...Array(partsFor(validateClaim(claims[i]))).keys()]);
+      expect(parts.every((p) => names.includes(p.worker) && p.undecided === null)).toBe(true);
+      // The claim job said how many parts it handed out; the pending display reads "k of K parts done".
+      const progress = await claimJobProgress(id, row.verifyRound);
+      expect(progress?.parts).toEqual({ done: 0, of: parts.length });
+      const shown = await pendingProgress([{ id, status: "pending", verifyRound: row.verifyRound }]);
+      expect(shown.get(id)?.parts).toEqual({ done: parts.length, of: parts.length });
+    }
+    // Both workers computed parts (eight parts of the trees on ≤ 14 vertices, two workers waiting for them).
+    const byWorker = new Set((await Promise.all(ids.map(partRows))).flat().map((p) => p.worker));
+    expect(byWorker).toEqual(new Set(names));
+
+    // Trees on ≤ 14 vertices (OEIS A000055), all missing from the empty list: refuted, every one counted.
+    expect(JSON.parse((await claimRow(ids[0]))!.certificate!).evidence.counts).toEqual(A000055);
+    // Connected graphs on ≤ 7 vertices (OEIS A001349; nauty's geng -c agrees, lib/core/families/parts.test.ts).
+    expect(JSON.parse((await claimRow(ids[1]))!.certificate!).evidence.counts).toEqual(A001349.slice(0, 7));
+    // The split of the trees covers all 987 trees on ≤ 12 vertices (OEIS A000055: 1+1+1+2+3+6+11+23+47+106+235+551).
+    expect((await claimRow(ids[2]))!.status).toBe("verified");
+    expect((await claimRow(ids[2]))!.reason).toMatch(/^All 987 graphs/);
+  }, 300_000);
+
+  it("a claim withdrawn while its parts run gets no verdict", async () => {
+    await twoWorkers("withdraw");
+    // Connected graphs on ≤ 8 vertices: 4 parts of a few seconds on a busy host.
+    const claim = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 8, op: "<", bound: "8", graphs: [] };
+    expect(partsFor(validateClaim(claim))).toBe(4);
+    const id = (await attach([claim])).claims[0].id;
+    await until("the first part to be stored", async () => (await partRows(id)).length > 0, 120_000);
+    await actAs("author");
+    const res = await claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId, claimId: String(id) }));
+    expect(res.status).toBe(200);
+    // Every part job ends (computed before the withdrawal, stopped during it, or skipped after it); then look again.
+    await until(
+      "every part job to end",
+      async () => {
+        const states = await Promise.all([0, 1, 2, 3].map(async (p) => (await verificationQueue().getJob(claimPartJobId(id, 0, p)))?.getState()));
+        return states.every((s) => s === "completed");
+      },
+      120_000,
+    );
+    const row = (await claimRow(id))!;
+    expect(row.withdrawnAt).not.toBeNull();
+    expect(row.status).toBe("pending");
+    expect(row.certificate).toBeNull();
+    expect(await decisions(id)).toBe(0);
+    expect(workers.some((w) => w.output.some((l) => l.includes(`claim ${id}`) && l.includes("claim decided")))).toBe(false);
+  }, 300_000);
 });

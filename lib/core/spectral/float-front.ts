@@ -57,6 +57,27 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
   const toDouble = quotientByDouble(d);
   for (let i = 0; i < f; i++) for (let j = 0; j < f; j++) S[i * f + j] = toDouble(rows[i][j]);
   for (let i = 0; i < S.length; i++) if (!Number.isFinite(S[i])) return undefined;
+  // |S̃_ij − S_ij| ≤ 2^-48|S̃_ij| + 2^-50 (quotientByDouble).
+  const R = new Float64Array(f * f);
+  for (let i = 0; i < S.length; i++) R[i] = 2 ** -48 * Math.abs(S[i]) + 2 ** -50;
+  return certifiedIntervalInertia(S, R, f, tick, rows);
+}
+
+/**
+ * The inertia shared by every symmetric matrix S with |S_ij − S̃_ij| ≤ R_ij (S̃ symmetric, given with R as
+ * f×f arrays in row order), or undefined when the certificate does not decide it. With `exact` (the
+ * integer rows N of S = N/D) discs through 0 may still be settled by exact kernel vectors; without it they
+ * decline.
+ */
+export function certifiedIntervalInertia(
+  S: Float64Array,
+  R: Float64Array,
+  f: number,
+  tick: (steps: number) => void = () => {},
+  exact?: readonly (readonly bigint[])[],
+): FrontInertia | undefined {
+  if (f === 0) return { positive: 0, negative: 0, zero: 0 };
+  for (let i = 0; i < S.length; i++) if (!Number.isFinite(S[i]) || !Number.isFinite(R[i]) || !(R[i] >= 0)) return undefined;
 
   // LDLᵀ with symmetric diagonal pivoting (largest |diagonal|) on a copy; perm[k] = original index.
   tick(f * f * f);
@@ -126,17 +147,16 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
     }
   for (let i = 0; i < B.length; i++) if (!Number.isFinite(B[i]) || !Number.isFinite(C[i]) || !Number.isFinite(X[i])) return undefined;
 
-  // Row sums of the error bound: |X|(Δ + γ|S̃|)(|X|ᵀe) + γ|C|(|X|ᵀe), Δ_ij ≤ 2^-48|S̃_ij| + 2^-50.
+  // Row sums of the error bound: |X|(Δ + γ|S̃|)(|X|ᵀe) + γ|C|(|X|ᵀe), Δ_ij ≤ R_ij (permuted like P).
   const gamma = (2 * (f + 2) * U) / (1 - 2 * (f + 2) * U);
   const w = new Float64Array(f); // |X|ᵀ e
   for (let i = 0; i < f; i++) for (let k = 0; k < f; k++) w[k] += Math.abs(X[i * f + k]);
-  const wSum = w.reduce((s, x) => s + x, 0);
   const v = new Float64Array(f); // (Δ + γ|P|) w
-  const rel = gamma + 2 ** -48;
   for (let i = 0; i < f; i++) {
     let s = 0;
-    for (let j = 0; j < f; j++) s += rel * Math.abs(P[i * f + j]) * w[j];
-    v[i] = s + 2 ** -50 * wSum;
+    const ri = perm[i] * f;
+    for (let j = 0; j < f; j++) s += (gamma * Math.abs(P[i * f + j]) + R[ri + perm[j]]) * w[j];
+    v[i] = s;
   }
   const safety = 1 + 16 * gamma;
   // Disc i of B: centre B̃_ii, radius covering the off-diagonal sum, the error bound and the rounding of
@@ -161,7 +181,7 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
     for (let i = 0; i < f; i++) if (centre[i] > 0) positive++;
     return { positive, negative: f - positive, zero: 0 };
   }
-  return deflate(rows, f, X, perm, centre, radius, tick);
+  return exact ? deflate(exact, f, X, perm, centre, radius, tick) : undefined;
 }
 
 /**

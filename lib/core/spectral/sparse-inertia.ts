@@ -22,6 +22,8 @@ import { Budget } from "../verdict";
 import { Rational, rat, add, mul, neg, ZERO } from "../arithmetic/rational";
 import type { EliminationResult, StopRule } from "./tree-inertia";
 import { certifiedFrontInertia } from "./float-front";
+import { intervalSparseInertia } from "./interval-elimination";
+import { DegreeQueue } from "./degree-queue";
 
 /** One elimination step as stored in certificates: a vertex (1x1 pivot or empty row) or a 2x2 pair. */
 export type PivotStep = number | [number, number];
@@ -43,6 +45,23 @@ export interface SparseEliminationResult extends EliminationResult {
  */
 export interface FrontOption {
   readonly degree: number;
+  /**
+   * Whether to try the certified floating-point elimination of the steps before the front first
+   * (interval-elimination.ts; the exact engine goes on whenever it declines). Default: from
+   * INTERVAL_MIN_VERTICES vertices, when b's numerator and denominator together pass INTERVAL_MIN_BITS
+   * bits, where exact steps grow fast.
+   */
+  readonly intervals?: boolean;
+}
+
+/** Length of b = p/q (bits of p plus bits of q) from which full counts try the interval elimination first. */
+export const INTERVAL_MIN_BITS = 24;
+
+/** Smaller graphs keep the exact engine by default (it is cheap there, and stops early with a witness). */
+export const INTERVAL_MIN_VERTICES = 100;
+
+function bitLength(x: bigint): number {
+  return (x < 0n ? -x : x).toString(2).length;
 }
 
 /** The default for full inertia counts: past this degree the front is dense and exact Bareiss steps are quadratic in it. */
@@ -75,6 +94,11 @@ export function sparseInertia(
   replay?: readonly PivotStep[],
   front?: FrontOption,
 ): SparseEliminationResult {
+  // Full counts (a front, or the replay of a certificate) try the certified floating-point steps first.
+  if ((front || replay) && (front?.intervals ?? (g.n >= INTERVAL_MIN_VERTICES && bitLength(b.num) + bitLength(b.den) > INTERVAL_MIN_BITS))) {
+    const r = intervalSparseInertia(g, b, front?.degree, (s) => budget.tick(s), replay);
+    if (r) return { ...r, complete: true };
+  }
   const n = g.n;
   const { start, nbr, wt, diag: loops } = adjacency(g);
   const p = b.num,
@@ -106,22 +130,9 @@ export function sparseInertia(
     negative = 0,
     zero = 0;
 
-  // Bucket queue by current degree (lazy: stale entries are skipped on pop).
-  const buckets: number[][] = [];
-  let minDeg = 0;
-  const push = (v: number) => {
-    const d = rows[v].size;
-    (buckets[d] ??= []).push(v);
-    if (d < minDeg) minDeg = d;
-  };
-  for (let v = 0; v < n; v++) push(v);
-  const popMin = (): number => {
-    for (;;) {
-      while (minDeg < buckets.length && (buckets[minDeg]?.length ?? 0) === 0) minDeg++;
-      const v = buckets[minDeg].pop()!;
-      if (alive[v] && rows[v].size === minDeg) return v;
-    }
-  };
+  const queue = new DegreeQueue((v) => rows[v].size, alive);
+  const push = (v: number) => queue.push(v);
+  const popMin = () => queue.pop();
 
   const setEntry = (i: number, j: number, val: bigint) => {
     if (i === j) {
