@@ -77,6 +77,7 @@ export class BatchResult extends Model<InferAttributes<BatchResult>, InferCreati
   declare line: number;
   declare verdict: BatchVerdict;
   declare graph6: string | null;
+  declare sparse6: string | null;
   declare vertices: number | null;
   declare edges: number | null;
   declare method: string | null;
@@ -92,6 +93,7 @@ export class BatchResult extends Model<InferAttributes<BatchResult>, InferCreati
         line: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         verdict: { type: DataTypes.ENUM("verified", "refuted", "undecided", "unreadable"), allowNull: false },
         graph6: { type: DataTypes.TEXT, allowNull: true },
+        sparse6: { type: DataTypes.TEXT, allowNull: true },
         vertices: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         edges: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         method: { type: DataTypes.STRING(200), allowNull: true },

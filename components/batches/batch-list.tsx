@@ -70,6 +70,9 @@ function BatchCard({ proofId, batch, canCancel, onChange }: { proofId: number; b
         <a href={`${base}?format=graph6`} className="text-lichen-700 underline" data-testid="download-failures">
           failing graphs (graph6)
         </a>
+        <a href={`${base}?format=sparse6`} className="text-lichen-700 underline" data-testid="download-failures-sparse6">
+          failing graphs (sparse6, loops and multiple edges included)
+        </a>
         <button type="button" onClick={() => setOpen(!open)} className="text-lichen-700 underline" aria-expanded={open}>
           {open ? "hide the table" : "show each graph"}
         </button>

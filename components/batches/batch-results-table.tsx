@@ -21,7 +21,11 @@ export function BatchResultsTable({ proofId, batch }: { proofId: number; batch: 
         header: "Verdict",
         cell: (c) => <span className={c.getValue() === "verified" ? "" : "text-refuted"}>{MARK[c.getValue()]}</span>,
       }),
-      column.accessor("graph6", { header: "graph6", cell: (c) => <code className="font-mono text-xs">{c.getValue() ?? "—"}</code> }),
+      column.accessor((r) => r.graph6 ?? r.sparse6 ?? "—", {
+        id: "graph",
+        header: "Graph (graph6, or sparse6 with loops or multiple edges)",
+        cell: (c) => <code className="font-mono text-xs">{c.getValue()}</code>,
+      }),
       column.accessor((r) => (r.vertices === null ? "—" : `${r.vertices} / ${r.edges}`), { id: "size", header: "Vertices / edges" }),
       column.accessor("reason", { header: "Why", cell: (c) => <span className="text-xs">{c.getValue()}</span> }),
       column.accessor("certificate", {

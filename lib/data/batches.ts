@@ -21,6 +21,7 @@ import { fileStore } from "@/lib/storage";
 import { graphListText } from "@/lib/uploads/detect";
 import { readEnv } from "@/lib/env";
 import { sha256Hex } from "@/lib/core/digest";
+import { parseGraph6, writeSparse6 } from "@/lib/core/input/graph6";
 import type { SnapshotBatch } from "@/lib/export/snapshot";
 import type { BatchStatement } from "@/lib/core/claims/batch";
 import type { CreateBatchInput } from "@/lib/validations/batch";
@@ -209,6 +210,8 @@ export interface BatchResultView {
   line: number;
   verdict: BatchVerdict;
   graph6: string | null;
+  /** sparse6 of a graph with loops or multiple edges (then graph6 is null). */
+  sparse6: string | null;
   vertices: number | null;
   edges: number | null;
   method: string | null;
@@ -221,6 +224,7 @@ const resultView = (r: BatchResult): BatchResultView => ({
   line: r.line,
   verdict: r.verdict,
   graph6: r.graph6,
+  sparse6: r.sparse6,
   vertices: r.vertices,
   edges: r.edges,
   method: r.method,
@@ -243,22 +247,29 @@ export async function batchResults(
   return rows.map(resultView);
 }
 
-/** The results as CSV (RFC 4180 quoting): line, verdict, graph6, vertices, edges, method, reason. */
+/** The results as CSV (RFC 4180 quoting): line, verdict, graph6, sparse6, vertices, edges, method, reason. */
 export function resultsCsv(rows: readonly BatchResultView[]): string {
   const q = (v: unknown) => {
     const s = v === null || v === undefined ? "" : String(v);
     return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
   };
-  const head = ["line", "verdict", "graph6", "vertices", "edges", "method", "reason"];
-  return [head.join(","), ...rows.map((r) => [r.line, r.verdict, r.graph6, r.vertices, r.edges, r.method, r.reason].map(q).join(","))].join("\r\n") + "\r\n";
+  const head = ["line", "verdict", "graph6", "sparse6", "vertices", "edges", "method", "reason"];
+  return (
+    [head.join(","), ...rows.map((r) => [r.line, r.verdict, r.graph6, r.sparse6, r.vertices, r.edges, r.method, r.reason].map(q).join(","))].join("\r\n") +
+    "\r\n"
+  );
 }
 
-/** The failing graphs that read, as a graph6 file (one per line); unreadable lines have no graph to write. */
-export const failuresGraph6 = (rows: readonly BatchResultView[]): string =>
-  rows
-    .filter((r) => r.verdict !== "verified" && r.graph6)
-    .map((r) => r.graph6)
-    .join("\n") + "\n";
+/**
+ * The failing graphs that read, one per line: `graph6` writes the simple ones (graph6 cannot say a loop or a
+ * multiple edge), `sparse6` every one (a simple graph re-written in sparse6). Unreadable lines have no graph to write.
+ */
+export function failuresFile(rows: readonly BatchResultView[], format: "graph6" | "sparse6"): string {
+  const failing = rows.filter((r) => r.verdict !== "verified");
+  const names =
+    format === "graph6" ? failing.map((r) => r.graph6) : failing.map((r) => r.sparse6 ?? (r.graph6 === null ? null : writeSparse6(parseGraph6(r.graph6))));
+  return names.filter((n): n is string => n !== null).join("\n") + "\n";
+}
 
 /**
  * The step's batch claims as a certified export carries them (lib/core/batch-check.ts re-checks them

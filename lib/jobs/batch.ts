@@ -14,9 +14,7 @@ import { fileStore } from "../storage";
 import { readEnv } from "../env";
 import { graphListText } from "../uploads/detect";
 import { readListedGraph, splitGraphList, type GraphListEntry, type GraphListFormat } from "../core/input/graph-list";
-import { checkListedGraphs, type BatchStatement, type ListedResult } from "../core/claims/batch";
-import { isSimple } from "../core/graph";
-import { writeGraph6 } from "../core/input/graph6";
+import { checkListedGraphs, listedShape, type BatchStatement, type ListedResult } from "../core/claims/batch";
 import type { Relation } from "../core/claims/claim-schema";
 import { JOB_ATTEMPTS, MAX_STALLED, type BatchJobData } from "./queue";
 
@@ -145,11 +143,11 @@ export async function settleFailedChunk(data: BatchJobData, failedReason: string
   const results: ListedResult[] = [];
   for (let i = from; i < to; i++) {
     const entry = entries?.[i];
-    let shape: Pick<ListedResult, "graph6" | "vertices" | "edges"> = { graph6: null, vertices: null, edges: null };
+    let shape: Pick<ListedResult, "graph6" | "sparse6" | "vertices" | "edges"> = { graph6: null, sparse6: null, vertices: null, edges: null };
     if (entry && file?.graphFormat)
       try {
         const g = readListedGraph(entry, file.graphFormat);
-        shape = { graph6: isSimple(g) && g.n > 0 ? writeGraph6(g) : null, vertices: g.n, edges: g.edges.length };
+        shape = listedShape(g);
       } catch {
         // left without its graph; the reason below says why it is undecided
       }

@@ -172,11 +172,12 @@ describe.skipIf(!trees)("a batch claim in the browser with the S3 file store", (
     const [csv] = await Promise.all([page.waitForEvent("download"), card.getByTestId("download-csv").click()]);
     await csv.saveAs(join(dir, "results.csv"));
     const rows = readFileSync(join(dir, "results.csv"), "utf8").trimEnd().split("\r\n");
-    expect(rows[0]).toBe("line,verdict,graph6,vertices,edges,method,reason");
+    expect(rows[0]).toBe("line,verdict,graph6,sparse6,vertices,edges,method,reason");
     const body = rows.slice(1).map((r) => r.split(","));
     // The CSV holds every line: a tree on 14 vertices each, verified exactly for A_14 and D_14.
     expect(body.map((r) => Number(r[0]))).toEqual(trees!.map((_, i) => i + 1));
-    for (const [line, verdict, graph6, vertices, edges] of body) {
+    for (const [line, verdict, graph6, sparse6, vertices, edges] of body) {
+      expect(sparse6).toBe(""); // trees are simple: named in graph6 only
       const listedEdges = listedGraphs[Number(line) - 1];
       expect(verdict === "verified").toBe(isDynkinAorD(listedEdges, N));
       expect([vertices, edges]).toEqual([String(N), String(N - 1)]);

@@ -4,16 +4,14 @@
  * Cairn's own enumeration) plus one bad line; progress, results, CSV and graph6 of the failures,
  * cancel, exactly-once chunks, and who may do what.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { spawnSync } from "node:child_process";
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
-import { closeQueue } from "@/lib/jobs/queue";
 import { runBatchChunk } from "@/lib/jobs/batch";
 import { generateConnected } from "@/lib/core/families/augmentation";
 import { writeGraph6, parseGraph6, writeSparse6 } from "@/lib/core/input/graph6";
@@ -76,22 +74,25 @@ const trees = treesOn10();
 /** One line of the tree list as a graph (sparse6 from gentreeg, or graph6). */
 const treeGraph = (line: string) => readListedGraph({ line: 1, text: line }, line.startsWith(":") ? "sparse6" : "graph6");
 
+closeAfterAll(
+  async () => {
+    delete process.env.CAIRN_BATCH_CHUNK;
+    await dropProofs([proofId]);
+  },
+  { queue: true },
+);
 beforeAll(async () => {
-  proofId = await draftProof("Batch claims test");
-  const caseId = await addCase(proofId, "Trees on ten vertices");
-  stepId = String((await addStep(proofId, caseId, "Of the trees on 10 vertices only $A_{10}$ and $D_{10}$ have $\\rho < 2$.")).id);
+  ({ proofId, stepId } = await draftCaseStep(
+    "Batch claims test",
+    "Trees on ten vertices",
+    "Of the trees on 10 vertices only $A_{10}$ and $D_{10}$ have $\\rho < 2$.",
+  ));
   // OEIS A000055: 106 trees on 10 unlabeled vertices.
   expect(trees).toHaveLength(106);
   // One bad line at the end (line 107): "!" is no graph6/sparse6 byte.
   const bad = `${trees[0].slice(0, 3)}!${trees[0].slice(4)}`;
   listId = await upload([...trees, bad].join("\n") + "\n", "trees-10.s6");
   documentId = await upload("Notes on the search.\n", "notes.txt");
-});
-afterAll(async () => {
-  delete process.env.CAIRN_BATCH_CHUNK;
-  await dropProofs([proofId]);
-  await closeQueue();
-  await closeSequelize();
 });
 
 describe("a batch claim over the trees on 10 vertices", () => {
@@ -142,7 +143,7 @@ describe("a batch claim over the trees on 10 vertices", () => {
     expect(failing.results).toHaveLength(105);
     const csv = await (await results(batch.id, "format=csv")).text();
     const csvLines = csv.trimEnd().split("\r\n");
-    expect(csvLines[0]).toBe("line,verdict,graph6,vertices,edges,method,reason");
+    expect(csvLines[0]).toBe("line,verdict,graph6,sparse6,vertices,edges,method,reason");
     expect(csvLines).toHaveLength(108);
     expect(csvLines.filter((l) => /^\d+,verified,/.test(l))).toHaveLength(2);
     const g6res = await results(batch.id, "format=graph6");
@@ -151,6 +152,12 @@ describe("a batch claim over the trees on 10 vertices", () => {
     // 104 refuted trees, each a tree on 10 vertices (9 edges); the unreadable line has no graph to write.
     expect(g6).toHaveLength(104);
     for (const line of g6) expect(parseGraph6(line).edges).toHaveLength(9);
+    // The same 104 failing trees in sparse6 (simple graphs re-written): each reads back as the graph6 line's graph.
+    const s6res = await results(batch.id, "format=sparse6");
+    expect(s6res.headers.get("content-disposition")).toMatch(/batch-\d+-failures\.s6/);
+    const s6 = (await s6res.text()).trimEnd().split("\n");
+    expect(s6).toHaveLength(104);
+    s6.forEach((line, i) => expect(canonicalKeyOf(readGraphText(line))).toBe(canonicalKeyOf(parseGraph6(g6[i]))));
 
     await actAs("outsider");
     expect((await results(batch.id)).status).toBe(403);
@@ -348,6 +355,12 @@ describe("the list is exactly an enumeration, up to isomorphism", () => {
         reason: `G is isomorphic to the graph listed at line ${first}: the list must name each class once`,
       }),
     ]);
+    // A graph with a double edge has no graph6: the row, the CSV and the sparse6 failures file name it in sparse6.
+    expect(rows[0].graph6).toBeNull();
+    expect(canonicalKeyOf(readGraphText(rows[0].sparse6))).toBe(canonicalKeyOf(doubled));
+    expect((await (await results(b.id, "format=csv")).text()).split("\r\n")[every.length]).toContain(`,refuted,,${rows[0].sparse6},3,2,`);
+    expect((await (await results(b.id, "format=sparse6")).text()).trimEnd().split("\n")).toEqual([rows[0].sparse6]);
+    expect((await (await results(b.id, "format=graph6")).text()).trim()).toBe("");
     // Bounds that do not fit the setting: 422 naming the field.
     await actAs("author");
     const noLoop = await start({ fileId: id, kind: "enumeration-exactly", setting: "multigraph", maxMultiplicity: 2, vertices: 3 });

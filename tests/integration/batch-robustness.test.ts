@@ -8,17 +8,16 @@
  * The kill and outage parts run their own workers on queue prefixes of their own (the outage part on
  * its own Redis), so the suite's shared worker never takes their jobs.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { utimes } from "node:fs/promises";
 import path from "node:path";
 import { QueryTypes } from "sequelize";
-import { actAs, params } from "./helpers";
-import { jsonRequest } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize, getSequelize } from "@/lib/db";
+import { actAs, closeAfterAll, jsonRequest, params } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
+import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { closeQueue, verificationQueue, FILE_SWEEP_SCHEDULER } from "@/lib/jobs/queue";
 import { listEntries } from "@/lib/jobs/batch";
@@ -28,7 +27,7 @@ import { LocalStore } from "@/lib/storage/local";
 import { sweepStoredFiles } from "@/lib/data/file-sweep";
 import { randomGraph6List } from "../bench/batch-throughput";
 import { startTestWorker, until, type TestWorker } from "../support/workers";
-import { ownRedis, type TestRedis } from "../support/redis";
+import { ownRedisForTest } from "../support/redis";
 import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
 import * as batchesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/batches/route";
 import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route";
@@ -40,10 +39,9 @@ const saved = { REDIS_URL: process.env.REDIS_URL, CAIRN_QUEUE_PREFIX: process.en
 // Short locks, so that a dead worker's chunk is taken over within seconds rather than the default 30 s.
 const fast = { CAIRN_JOB_LOCK_MS: "2000", CAIRN_JOB_STALLED_CHECK_MS: "1000" };
 
+closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
-  proofId = await draftProof("Batch robustness test");
-  const caseId = await addCase(proofId, "Random graphs");
-  stepId = String((await addStep(proofId, caseId, "A search over random graphs.")).id);
+  ({ proofId, stepId } = await draftCaseStep("Batch robustness test", "Random graphs", "A search over random graphs."));
 });
 afterEach(async () => {
   for (const w of workers.splice(0)) w.stop("SIGKILL");
@@ -51,10 +49,6 @@ afterEach(async () => {
   for (const [k, v] of Object.entries(saved))
     if (v === undefined) delete process.env[k];
     else process.env[k] = v;
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closeSequelize();
 });
 
 const worker = (env: Record<string, string> = {}) => {
@@ -140,14 +134,8 @@ describe("a worker killed mid-batch", () => {
 });
 
 describe("Redis stopped mid-batch", () => {
-  let redis: TestRedis;
-  afterAll(() => redis?.remove());
-
   it("the batch waits and the pages say verification is paused; a batch started meanwhile waits queued; both finish once Redis is back", async () => {
-    redis = await ownRedis();
-    await redis.up();
-    process.env.REDIS_URL = redis.url;
-    process.env.CAIRN_QUEUE_PREFIX = "cairn-batch-outage";
+    const redis = await ownRedisForTest("cairn-batch-outage");
     process.env.CAIRN_BATCH_CHUNK = "200";
     const w = worker({ CAIRN_SWEEP_AFTER_MS: "500", CAIRN_SWEEP_INTERVAL_MS: "500" });
     const name = await nameOf(w);

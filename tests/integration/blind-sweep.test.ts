@@ -6,7 +6,7 @@
  * names, their e-mail addresses and their numeric user ids (in an id field, or as "member #N").
  * The pages' HTML is swept by the browser test tests/e2e/blind-pages.test.ts.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
@@ -14,8 +14,7 @@ import { existsSync, readFileSync } from "node:fs";
 import { strFromU8, unzipSync } from "fflate";
 import { getServerSession } from "next-auth";
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, latestRevision, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision } from "./review-fixtures";
 import { models } from "@/models";
 import { listProofEvents } from "@/lib/data/audit";
 import { refereeLens } from "@/lib/data/blind";
@@ -53,7 +52,7 @@ import * as conditionComments from "@/app/api/proofs/[proofId]/cases/[caseId]/co
 const stamp = Date.now();
 const CELIA = { name: "Celia Marwood", email: "celia.marwood@tarnhollow.example" };
 const GALE = { name: "Gale Fenwick", email: `gale.fenwick.sweep.${stamp}@moorfield.example` };
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["blind sweep"], { afterDrop: () => models().User.destroy({ where: { id: galeId } }) });
 let galeId = 0;
 let exportId = 0;
 let title = "";
@@ -83,7 +82,6 @@ const read = async (get: Get, p: Record<string, string>, query = ""): Promise<{ 
 };
 
 beforeAll(async () => {
-  fx = await makeProof("blind sweep");
   title = (await models().Proof.findByPk(fx.proofId))!.title;
   galeId = (await models().User.create({ email: GALE.email, name: GALE.name, passwordHash: null, role: "member" })).id;
   await models().ProofMember.create({ proofId: fx.proofId, userId: galeId, role: "reviewer" });
@@ -154,12 +152,6 @@ beforeAll(async () => {
   const made = await exportsRoute.POST(jsonRequest("/x", "POST", { kind: "draft" }), params({ proofId: P }));
   expect(made.status).toBe(201);
   exportId = (await made.json()).export.id;
-});
-
-afterAll(async () => {
-  await dropProofs();
-  await models().User.destroy({ where: { id: galeId } });
-  await closeSequelize();
 });
 
 /** Every surface an author reaches, as text, labelled. */

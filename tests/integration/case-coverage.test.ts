@@ -1,13 +1,11 @@
 /** A case's machine-readable condition (PATCH .../cases/[caseId]) and the coverage claim through the API. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { addCase, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
-import { closePool } from "@/lib/verification/pool";
 import { getCaseTree } from "@/lib/data/cases";
 import { flattenCaseTree } from "@/lib/proof-tree";
 import * as caseRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/route";
@@ -21,15 +19,9 @@ let proofId: string;
 let caseId: number;
 let stepId: string;
 
+closeAfterAll(() => dropProofs([proofId]), { pool: true });
 beforeAll(async () => {
-  proofId = await draftProof("Case coverage test");
-  caseId = await addCase(proofId, "Trees");
-  stepId = String((await addStep(proofId, caseId, "Split by the number of branch vertices.")).id);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closePool();
-  await closeSequelize();
+  ({ proofId, caseId, stepId } = await draftCaseStep("Case coverage test", "Trees", "Split by the number of branch vertices."));
 });
 
 const patch = (body: unknown) => caseRoute.PATCH(jsonRequest("/x", "PATCH", body), params({ proofId, caseId: String(caseId) }));

@@ -4,17 +4,15 @@
  * downloadable by members; refused to outsiders (403), to the signed-out (401), to a referee limited to other cases
  * (403), to referees uploading (403); 404 for a claim of another proof; an upload in parts names its claim; 415 by content.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { mkdtemp, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { actAs, demoProofId, jsonRequest, params, userIdOf } from "./helpers";
+import { actAs, closeAfterAll, demoProofId, jsonRequest, params, userIdOf } from "./helpers";
 import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
-import { closeQueue } from "@/lib/jobs/queue";
 import { models } from "@/models";
 import { sha256Hex } from "@/lib/storage";
 import { rememberEnv, s3FakePort, startS3Fake, STORAGE_KEYS, useStore, type S3Fake } from "../support/s3-fake";
@@ -46,6 +44,15 @@ async function claimOn(stepId: number): Promise<number> {
   return (await res.json()).claims[0].id;
 }
 
+closeAfterAll(
+  async () => {
+    restoreEnv();
+    await dropProofs([proofId]);
+    await fake?.stop();
+    await rm(dir, { recursive: true, force: true });
+  },
+  { queue: true },
+);
 beforeAll(async () => {
   dir = await mkdtemp(path.join(tmpdir(), "cairn-claim-files-"));
   fake = await startS3Fake(s3FakePort(6));
@@ -56,14 +63,6 @@ beforeAll(async () => {
   stepOut = (await addStep(proofId, caseOut, "So has the star with three leaves.")).id;
   claimIn = await claimOn(stepIn);
   claimOut = await claimOn(stepOut);
-});
-afterAll(async () => {
-  restoreEnv();
-  await dropProofs([proofId]);
-  await fake?.stop();
-  await rm(dir, { recursive: true, force: true });
-  await closeQueue();
-  await closeSequelize();
 });
 
 const bytes = (s: string) => new TextEncoder().encode(s);

@@ -1,15 +1,13 @@
 /** Withdrawing a claim: authors only, history kept, and the claim stops counting everywhere. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, draftProof, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { getProofOverview } from "@/lib/data/cases";
 import { listProofClaims, verificationSettled } from "@/lib/data/claims";
-import { closePool } from "@/lib/verification/pool";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
 import * as recheckRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/recheck/route";
@@ -23,15 +21,9 @@ const named = (text: string) => ({ format: "named", text });
 const good = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: named("E(7)"), op: "<", bound: "2" };
 const typo = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: named("E(8)"), op: ">=", bound: "2" };
 
+closeAfterAll(() => dropProofs([proofId]), { pool: true });
 beforeAll(async () => {
-  proofId = await draftProof("Claim withdrawal test");
-  caseId = await addCase(proofId, "Trees with three legs");
-  stepId = String((await addStep(proofId, caseId, "$E_7$ and $\\tilde E_8$.")).id);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closePool();
-  await closeSequelize();
+  ({ proofId, caseId, stepId } = await draftCaseStep("Claim withdrawal test", "Trees with three legs", "$E_7$ and $\\tilde E_8$."));
 });
 
 const withdraw = (id: number) => claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId, claimId: String(id) }));

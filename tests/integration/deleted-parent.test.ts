@@ -2,25 +2,23 @@
  * A step under a deleted case — its own case live, a case above it deleted — is gone for writes as it is
  * for reads: verdicts, comments and dispute moves answer 404 and change nothing.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, latestRevision, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision } from "./review-fixtures";
 import { models } from "@/models";
 import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
 import * as reviewsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as commentsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/comments/route";
 import * as disputeRoute from "@/app/api/proofs/[proofId]/disputes/[reviewId]/route";
 
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["deleted parent"]);
 let disputeId: number;
 let revisionId: number;
 
 beforeAll(async () => {
-  fx = await makeProof("deleted parent");
   revisionId = (await latestRevision(fx.steps["2.1.1"])).id;
   await actAs("reviewer");
   const raised = await reviewsRoute.POST(
@@ -31,10 +29,6 @@ beforeAll(async () => {
   disputeId = (await raised.json()).reviewId;
   // Case 2 is deleted; its sub-case 2.1 (holding step 2.1.1) is not deleted on its own.
   await models().Case.update({ deletedAt: new Date() }, { where: { id: fx.cases["2"] } });
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
 });
 
 describe("a step under a deleted parent case", () => {

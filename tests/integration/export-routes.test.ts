@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, demoProofId, jsonRequest, params, userIdOf } from "./helpers";
+import { actAs, demoProofId, expectStatusAs, jsonRequest, params, userIdOf } from "./helpers";
 import { closeSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { checkBundle } from "@/lib/core/certificates/bundle";
@@ -242,10 +242,7 @@ describe("export files", () => {
 
   it("offers the self-contained checker to members only", async () => {
     const get = () => checkerRoute.GET(new Request(`http://localhost/api/proofs/${proofId}/exports/checker`), params({ proofId: String(proofId) }));
-    await actAs(null);
-    expect((await get()).status).toBe(401);
-    await actAs("outsider");
-    expect((await get()).status).toBe(403);
+    await expectStatusAs(get, { nobody: 401, outsider: 403 });
     await actAs("reviewer");
     const res = await get();
     expect(res.status).toBe(200);

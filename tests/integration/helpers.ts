@@ -2,8 +2,11 @@
  * Helpers for calling route handlers directly with `new Request(...)` as a chosen user.
  * `next-auth` is mocked in each test file (vi.mock) so that getServerSession returns `sessionFor(...)`.
  */
-import { vi } from "vitest";
+import { afterAll, expect, vi } from "vitest";
 import { getServerSession } from "next-auth";
+import { closeSequelize } from "@/lib/db";
+import { closeQueue } from "@/lib/jobs/queue";
+import { closePool } from "@/lib/verification/pool";
 import { models } from "@/models";
 import { demoPeople } from "@/seeders/demo-content";
 
@@ -44,5 +47,34 @@ export function jsonRequest(url: string, method: string, body?: unknown): Reques
     method,
     headers: { "content-type": "application/json" },
     body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
+  });
+}
+
+/** Calls `call` as each person in turn (demo keys; "nobody": signed out) and expects that person's status; a failure names the person. */
+export async function expectStatusAs(call: () => Promise<Response>, expected: Record<string, number>): Promise<void> {
+  for (const [who, status] of Object.entries(expected)) {
+    await actAs(who === "nobody" ? null : who);
+    expect((await call()).status, `as ${who}`).toBe(status);
+  }
+}
+
+export interface CloseOptions {
+  /** The file used the in-process verification pool. */
+  pool?: boolean;
+  /** The file used the job queue. */
+  queue?: boolean;
+}
+
+/**
+ * A test file's last clean-up: removes what the file made (`drop`), then closes the verification pool and the job
+ * queue if the file used them, then the database connection. Call it before the file's own afterAll hooks:
+ * Vitest runs after-hooks last registered first, so this one runs after them.
+ */
+export function closeAfterAll(drop?: () => Promise<unknown>, { pool = false, queue = false }: CloseOptions = {}): void {
+  afterAll(async () => {
+    await drop?.();
+    if (pool) await closePool();
+    if (queue) await closeQueue();
+    await closeSequelize();
   });
 }

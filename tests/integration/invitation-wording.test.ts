@@ -1,22 +1,14 @@
 /** The wording of invitation mails: a whole-proof invitation names the proof once. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, makeProof, waitForMail, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import * as invitations from "@/app/api/proofs/[proofId]/invitations/route";
 
-let fx: ReviewFixture;
-beforeAll(async () => {
-  fx = await makeProof("wording");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx] = reviewProofsForFile(["wording"]);
 
 describe("invitation mail", () => {
   it("reads 'to review the proof “…”' for the whole proof, never 'the whole proof of the proof'", async () => {

@@ -3,14 +3,13 @@
  * members (their vouches and disputes stay, attributed), handing over ownership; each change in the
  * audit trail. Route handlers against a real MariaDB and the local mail fake.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession } from "next-auth";
-import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, latestRevision, makeProof, waitForMail, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, expectStatusAs } from "./helpers";
+import { makeProof, reviewProofsForFile, latestRevision, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import { listProofEvents } from "@/lib/data/audit";
 import { refereeLens } from "@/lib/data/blind";
@@ -21,16 +20,8 @@ import * as members from "@/app/api/proofs/[proofId]/members/[userId]/route";
 import * as owner from "@/app/api/proofs/[proofId]/owner/route";
 import * as proofRoute from "@/app/api/proofs/[proofId]/route";
 
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["membership"]);
 const stamp = Date.now();
-
-beforeAll(async () => {
-  fx = await makeProof("membership");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
 
 const invite = (proofId: number, body: unknown) =>
   invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
@@ -143,10 +134,7 @@ describe("inviting co-authors and editors", () => {
     const { id } = await (await invite(fx.proofId, { email, scope: "proof", role: "editor" })).json();
     const revoke = () =>
       oneInvitation.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
-    await actAs("coauthor");
-    expect((await revoke()).status).toBe(403);
-    await actAs("editor");
-    expect((await revoke()).status).toBe(200);
+    await expectStatusAs(revoke, { coauthor: 403, editor: 200 });
     expect((await revoke()).status).toBe(409);
   });
 

@@ -4,13 +4,12 @@
  * may see them (blind: "Referee k" for authors) and only the cases a case-limited referee may see; and
  * the proof list's standing of each proof (drafting, in review round N, decided) with its open disputes.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { latestRevision, makeProof, dropProofs, revise, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision, revise } from "./review-fixtures";
 import { models } from "@/models";
 import { digestOfRevision } from "@/lib/review/revisions";
 import { flattenCaseTree, stepLabel } from "@/lib/proof-tree";
@@ -21,15 +20,7 @@ import * as proofsRoute from "@/app/api/proofs/route";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 
 const CELIA = "Celia Marwood";
-let fx: ReviewFixture;
-
-beforeAll(async () => {
-  fx = await makeProof("overview review");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx] = reviewProofsForFile(["overview review"]);
 
 const p = (stepId: number) => params({ proofId: String(fx.proofId), stepId: String(stepId) });
 const verdict = async (stepId: number, body: Record<string, unknown>) => {

@@ -5,7 +5,7 @@
  * 400 part number and length, 409 missing parts named, 409 SHA-256, 415 by content, 403/404 for non-members and
  * other steps); and an upload stopped between parts leaves no row, and the sweep removes its staged parts.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
@@ -13,9 +13,8 @@ import { mkdtemp, readdir, rm } from "node:fs/promises";
 import { randomBytes } from "node:crypto";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, closeAfterAll, jsonRequest, params } from "./helpers";
+import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { fileStore, sha256Hex } from "@/lib/storage";
 import { sweepPartUploads } from "@/lib/data/part-uploads";
@@ -35,20 +34,18 @@ let proofId: string;
 let stepId: string;
 let otherStepId: string;
 
-beforeAll(async () => {
-  dir = await mkdtemp(path.join(tmpdir(), "cairn-parts-"));
-  fake = await startS3Fake(s3FakePort(5));
-  proofId = await draftProof("Uploads in parts");
-  const caseId = await addCase(proofId, "Trees on twelve vertices");
-  stepId = String((await addStep(proofId, caseId, "A computer search over a long list of graphs.")).id);
-  otherStepId = String((await addStep(proofId, caseId, "Another step.")).id);
-});
-afterAll(async () => {
+closeAfterAll(async () => {
   restoreEnv();
   await dropProofs([proofId]);
   await fake?.stop();
   await rm(dir, { recursive: true, force: true });
-  await closeSequelize();
+});
+beforeAll(async () => {
+  dir = await mkdtemp(path.join(tmpdir(), "cairn-parts-"));
+  fake = await startS3Fake(s3FakePort(5));
+  const drafted = await draftCaseStep("Uploads in parts", "Trees on twelve vertices", "A computer search over a long list of graphs.");
+  ({ proofId, stepId } = drafted);
+  otherStepId = String((await addStep(proofId, drafted.caseId, "Another step.")).id);
 });
 
 const start = (body: unknown, step = stepId) => startRoute.POST(jsonRequest("/x", "POST", body), params({ proofId, stepId: step }));

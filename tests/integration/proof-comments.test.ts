@@ -3,14 +3,13 @@
  * 422 / 409 per role, threads with replies, the audit sentence, the notices, and a case-limited referee
  * who reads and writes only on the conditions of their cases.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession } from "next-auth";
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile } from "./review-fixtures";
 import { models } from "@/models";
 import { listProofEvents } from "@/lib/data/audit";
 import * as statement from "@/app/api/proofs/[proofId]/statement/comments/route";
@@ -20,8 +19,7 @@ import * as stepComments from "@/app/api/proofs/[proofId]/steps/[stepId]/comment
 
 type Node = { id: number; authorName: string; body: string; replies: Node[] };
 const HOLLIS = { name: "Hollis Varga", email: `hollis.varga.${Date.now()}@moorfield.example` };
-let fx: ReviewFixture;
-let other: ReviewFixture;
+const [fx, other] = reviewProofsForFile(["place comments", "place comments, other"], { afterDrop: () => models().User.destroy({ where: { id: hollisId } }) });
 let hollisId = 0;
 const P = () => String(fx.proofId);
 
@@ -41,18 +39,10 @@ const onCase = (key: string) => ({ proofId: P(), caseId: String(fx.cases[key]) }
 const counts = async () => ({ comments: await models().Comment.count(), events: await models().AuditEvent.count() });
 
 beforeAll(async () => {
-  fx = await makeProof("place comments");
-  other = await makeProof("place comments, other");
   // Hollis referees case 1 only (and so sees nothing of case 2, nor the statement's discussion).
   hollisId = (await models().User.create({ email: HOLLIS.email, name: HOLLIS.name, passwordHash: null, role: "member" })).id;
   await models().ProofMember.create({ proofId: fx.proofId, userId: hollisId, role: "reviewer" });
   await models().ReviewerScope.create({ proofId: fx.proofId, userId: hollisId, caseId: fx.cases["1"] });
-});
-
-afterAll(async () => {
-  await dropProofs();
-  await models().User.destroy({ where: { id: hollisId } });
-  await closeSequelize();
 });
 
 describe("comments on the statement and on conditions", () => {

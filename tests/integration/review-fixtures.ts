@@ -1,7 +1,8 @@
 /** Builds fresh proofs for the review tests, so they never depend on the demo's review state. */
 import { readFileSync, existsSync } from "node:fs";
+import { beforeAll } from "vitest";
 import { models } from "@/models";
-import { userIdOf } from "./helpers";
+import { closeAfterAll, userIdOf, type CloseOptions } from "./helpers";
 
 export interface ReviewFixture {
   proofId: number;
@@ -53,6 +54,23 @@ export async function makeProof(label = "review test"): Promise<ReviewFixture> {
     steps[key] = s.id;
   }
   return { proofId: proof.id, cases: { "1": c1.id, "2": c2.id, "2.1": c21.id }, steps, ids };
+}
+
+/**
+ * The usual set-up of a review test file: one fresh proof per label, made before its tests (the returned
+ * objects are filled in then), dropped after them (then `afterDrop`, for what the file made besides) with the
+ * connections closed (see closeAfterAll).
+ */
+export function reviewProofsForFile(labels: string[], { afterDrop, ...close }: CloseOptions & { afterDrop?: () => Promise<unknown> } = {}): ReviewFixture[] {
+  const fixtures = labels.map(() => ({}) as ReviewFixture);
+  closeAfterAll(async () => {
+    await dropProofs();
+    await afterDrop?.();
+  }, close);
+  beforeAll(async () => {
+    for (const [i, label] of labels.entries()) Object.assign(fixtures[i], await makeProof(label));
+  });
+  return fixtures;
 }
 
 export async function latestRevision(stepId: number) {

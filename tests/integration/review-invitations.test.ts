@@ -1,10 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { makeProof, waitForMail, dropProofs, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, expectStatusAs } from "./helpers";
+import { reviewProofsForFile, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import { authenticate } from "@/lib/data/users";
 import { hashToken } from "@/lib/data/invitations";
@@ -15,17 +14,7 @@ import * as scopes from "@/app/api/proofs/[proofId]/settings/scopes/[userId]/rou
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import { visibleCaseIds } from "@/lib/access";
 
-let fx: ReviewFixture;
-let other: ReviewFixture;
-
-beforeAll(async () => {
-  fx = await makeProof("invitations");
-  other = await makeProof("other");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx, other] = reviewProofsForFile(["invitations", "other"]);
 
 const invite = (proofId: number, body: unknown) =>
   invitations.POST(jsonRequest(`/api/proofs/${proofId}/invitations`, "POST", body), params({ proofId: String(proofId) }));
@@ -154,10 +143,7 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
     const revoke = () =>
       invitationRetry.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: String(fx.proofId), invitationId: String(id) }));
     // Only an editor or the proof's owner may revoke.
-    await actAs("reviewer");
-    expect((await revoke()).status).toBe(403);
-    await actAs("editor");
-    expect((await revoke()).status).toBe(200);
+    await expectStatusAs(revoke, { reviewer: 403, editor: 200 });
     expect((await revoke()).status).toBe(409); // already revoked
     const listed = await (await invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }))).json();
     expect(listed.invitations.find((i: { id: number }) => i.id === id)).toMatchObject({ state: "revoked" });
@@ -218,12 +204,7 @@ describe("POST /api/proofs/[proofId]/invitations", () => {
 describe("GET invitations and DELETE a reviewer's case limits", () => {
   it("lists reviewer invitations for editors only (401, 403 non-member and referee; a co-author sees co-author invitations only)", async () => {
     const list = () => invitations.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }));
-    await actAs(null);
-    expect((await list()).status).toBe(401);
-    await actAs("outsider");
-    expect((await list()).status).toBe(403);
-    await actAs("reviewer");
-    expect((await list()).status).toBe(403);
+    await expectStatusAs(list, { nobody: 401, outsider: 403, reviewer: 403 });
     await actAs("coauthor");
     const coauthors = await list();
     expect(coauthors.status).toBe(200);

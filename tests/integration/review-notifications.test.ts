@@ -1,10 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, latestRevision, makeProof, mailsTo, waitForMail, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision, mailsTo, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import { listProofEvents } from "@/lib/data/audit";
 import * as notifications from "@/app/api/notifications/route";
@@ -12,17 +11,8 @@ import * as preferences from "@/app/api/notifications/preferences/route";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as settings from "@/app/api/proofs/[proofId]/settings/route";
 
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["notifications"], { afterDrop: () => models().NotificationPreference.destroy({ where: {} }) });
 const BRAM = "bram.theroux@tarnhollow.example";
-
-beforeAll(async () => {
-  fx = await makeProof("notifications");
-});
-afterAll(async () => {
-  await dropProofs();
-  await models().NotificationPreference.destroy({ where: {} });
-  await closeSequelize();
-});
 
 const dispute = async (stepKey: string, comment: string) => {
   await actAs("reviewer");

@@ -1,10 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params, userIdOf } from "./helpers";
-import { latestRevision, makeProof, revise, waitForMail, dropProofs, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, userIdOf, expectStatusAs } from "./helpers";
+import { reviewProofsForFile, latestRevision, revise, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import { getReviewerQueue, getAuthorQueue, getReadiness, getReviewerProgress } from "@/lib/data/review-queues";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
@@ -13,17 +12,7 @@ import * as disputes from "@/app/api/proofs/[proofId]/disputes/route";
 import * as dispute from "@/app/api/proofs/[proofId]/disputes/[reviewId]/route";
 import * as settings from "@/app/api/proofs/[proofId]/settings/route";
 
-let fx: ReviewFixture;
-let other: ReviewFixture;
-
-beforeAll(async () => {
-  fx = await makeProof("verdicts");
-  other = await makeProof("verdicts-other");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx, other] = reviewProofsForFile(["verdicts", "verdicts-other"]);
 
 const p = (proofId: number, stepId?: number) => params({ proofId: String(proofId), stepId: String(stepId ?? "") });
 const verdict = (proofId: number, stepId: number, body: unknown) => reviews.POST(jsonRequest("/x", "POST", body), p(proofId, stepId));
@@ -151,16 +140,13 @@ describe("a dispute from open to closed", () => {
   });
 
   it("only authors mark it answered; the reviewer cannot (403), nor can a non-member (403) or anonymous (401)", async () => {
-    await actAs(null);
-    expect((await move(fx.proofId, disputeId, { to: "answered" })).status).toBe(401);
-    await actAs("outsider");
-    expect((await move(fx.proofId, disputeId, { to: "answered" })).status).toBe(403);
+    const answered = () => move(fx.proofId, disputeId, { to: "answered" });
+    await expectStatusAs(answered, { nobody: 401, outsider: 403 });
     await actAs("reviewer");
-    const res = await move(fx.proofId, disputeId, { to: "answered" });
+    const res = await answered();
     expect(res.status).toBe(403);
     expect((await res.json()).error.message).toMatch(/Only the proof's authors/);
-    await actAs("editor");
-    expect((await move(fx.proofId, disputeId, { to: "answered" })).status).toBe(403);
+    await expectStatusAs(answered, { editor: 403 });
   });
 
   it("answers 422 for a bad target and 404 for a dispute of another proof or an approval", async () => {
@@ -186,14 +172,14 @@ describe("a dispute from open to closed", () => {
   });
 
   it("the author cannot withdraw it (403); the referee upholds it; an editor withdraws it; withdrawn cannot be answered (409)", async () => {
-    await actAs("author");
-    expect((await move(fx.proofId, disputeId, { to: "withdrawn" })).status).toBe(403);
-    await actAs("reviewer");
-    expect((await move(fx.proofId, disputeId, { to: "upheld", comment: "Not yet: what about complex $x$?" })).status).toBe(200);
-    await actAs("author");
-    expect((await move(fx.proofId, disputeId, { to: "answered" })).status).toBe(200);
-    await actAs("editor");
-    expect((await move(fx.proofId, disputeId, { to: "withdrawn" })).status).toBe(200);
+    // Each move as who makes it, with the status it gets.
+    for (const [who, body, status] of [
+      ["author", { to: "withdrawn" }, 403],
+      ["reviewer", { to: "upheld", comment: "Not yet: what about complex $x$?" }, 200],
+      ["author", { to: "answered" }, 200],
+      ["editor", { to: "withdrawn" }, 200],
+    ] as const)
+      await expectStatusAs(() => move(fx.proofId, disputeId, body), { [who]: status });
     await actAs("author");
     const res = await move(fx.proofId, disputeId, { to: "answered" });
     expect(res.status).toBe(409);

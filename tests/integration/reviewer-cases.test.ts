@@ -1,26 +1,16 @@
 /** Changing a referee's cases after the invitation: PUT /api/proofs/[proofId]/settings/scopes/[userId]. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile } from "./review-fixtures";
 import { models } from "@/models";
 import { visibleCaseIds } from "@/lib/access";
 import { listProofEvents } from "@/lib/data/audit";
 import * as scopes from "@/app/api/proofs/[proofId]/settings/scopes/[userId]/route";
 
-let fx: ReviewFixture;
-let other: ReviewFixture;
-beforeAll(async () => {
-  fx = await makeProof("reviewer cases");
-  other = await makeProof("other");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx, other] = reviewProofsForFile(["reviewer cases", "other"]);
 
 const put = (userId: number, body: unknown, proofId = fx.proofId) =>
   scopes.PUT(jsonRequest("/x", "PUT", body), params({ proofId: String(proofId), userId: String(userId) }));

@@ -2,14 +2,13 @@
  * Review rounds, referees' reports, editor-only notes, decisions, the editor's desk, blind review and
  * reminders, through the route handlers against a real MariaDB and the local mail fake.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession } from "next-auth";
 import { actAs, demoProofId, jsonRequest, params } from "./helpers";
-import { dropProofs, makeProof, mailsTo, revise, waitForMail, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, mailsTo, revise, waitForMail } from "./review-fixtures";
 import { models } from "@/models";
 import { stepLabel } from "@/lib/proof-tree";
 import { sendDueReminders } from "@/lib/data/reminders";
@@ -33,7 +32,7 @@ import { listProofEvents } from "@/lib/data/audit";
 import { refereeLens } from "@/lib/data/blind";
 import { loadSnapshot } from "@/lib/data/exports";
 
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["rounds"], { afterDrop: () => models().User.destroy({ where: { id: galeId } }) });
 const stamp = Date.now();
 /** A second referee, made for this file (the demo has one). */
 const GALE = { name: "Gale Fenwick", email: `gale.fenwick.${stamp}@moorfield.example` };
@@ -65,15 +64,9 @@ const readDesk = (proofId = P()) => desk.GET(jsonRequest("/x", "GET"), params({ 
 const inDays = (d: number) => new Date(Date.now() + d * 86_400_000).toISOString();
 
 beforeAll(async () => {
-  fx = await makeProof("rounds");
   const gale = await models().User.create({ email: GALE.email, name: GALE.name, passwordHash: null, role: "member" });
   galeId = gale.id;
   await models().ProofMember.create({ proofId: fx.proofId, userId: galeId, role: "reviewer" });
-});
-afterAll(async () => {
-  await dropProofs();
-  await models().User.destroy({ where: { id: galeId } });
-  await closeSequelize();
 });
 
 describe("opening a round", () => {

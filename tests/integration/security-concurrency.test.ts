@@ -3,17 +3,15 @@
  * address; parallel step creates, case creates and claim attaches give unique consecutive
  * positions; of two racing saves of one step exactly one wins and the other gets 409.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { authenticate, MAX_FAILURES } from "@/lib/data/users";
 import { verificationSettled } from "@/lib/data/claims";
-import { closePool } from "@/lib/verification/pool";
 import { DEMO_PASSWORD, demoPeople } from "@/seeders/demo-content";
 import * as stepsRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/steps/route";
 import * as casesRoute from "@/app/api/proofs/[proofId]/cases/route";
@@ -24,14 +22,9 @@ import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
 let proofId: string;
 let caseId: number;
 
+closeAfterAll(() => dropProofs([proofId]), { pool: true });
 beforeAll(async () => {
-  proofId = await draftProof("Concurrency test");
-  caseId = await addCase(proofId, "Trees with a vertex of degree 3");
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closePool();
-  await closeSequelize();
+  ({ proofId, caseId } = await draftCaseStep("Concurrency test", "Trees with a vertex of degree 3"));
 });
 
 const consecutive = (n: number) => Array.from({ length: n }, (_, i) => i + 1);

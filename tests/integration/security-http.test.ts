@@ -3,13 +3,12 @@
  * site is refused with 403; a JSON body must say `application/json` (415); a body over the route's
  * limit is refused with 413 naming the limit, while it is being read (not after buffering it all).
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { BODY_LIMITS } from "@/lib/http";
 import * as casesRoute from "@/app/api/proofs/[proofId]/cases/route";
@@ -21,13 +20,9 @@ import * as proofRoute from "@/app/api/proofs/[proofId]/route";
 let proofId: string;
 let caseId: number;
 
+closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
-  proofId = await draftProof("Request guard test");
-  caseId = await addCase(proofId, "Trees");
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closeSequelize();
+  ({ proofId, caseId } = await draftCaseStep("Request guard test", "Trees"));
 });
 
 const stepCount = () => models().Step.count({ where: { caseId } });

@@ -4,7 +4,7 @@
  * proof's access at the next request, because membership is read from the database on each request,
  * not from the token. The browser-level test with real cookies is tests/e2e/session-end.test.ts.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
@@ -12,22 +12,14 @@ import { getServerSession, type Session } from "next-auth";
 import { encode } from "next-auth/jwt";
 import { authOptions } from "@/lib/auth";
 import { actAs, params } from "./helpers";
-import { dropProofs, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile } from "./review-fixtures";
 import { endSessions } from "@/lib/data/users";
 import { models } from "@/models";
 import * as proofsRoute from "@/app/api/proofs/route";
 import * as proofRoute from "@/app/api/proofs/[proofId]/route";
 import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
 
-let fx: ReviewFixture;
-beforeAll(async () => {
-  fx = await makeProof("session end");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closeSequelize();
-});
+const [fx] = reviewProofsForFile(["session end"]);
 
 const list = () => proofsRoute.GET(new Request("http://localhost/api/proofs"), params({}));
 const readProof = () => proofRoute.GET(new Request("http://localhost/x"), params({ proofId: String(fx.proofId) }));

@@ -4,14 +4,13 @@
  * rounds); on a blind proof the authors see "Referee k", never a referee's name or address; "mark as
  * seen" clears the list up to the newest change it showed. The route's 401 / 403 / 404 / 422.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { getServerSession } from "next-auth";
 import { actAs, jsonRequest, params } from "./helpers";
-import { dropProofs, latestRevision, makeProof, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision } from "./review-fixtures";
 import { models } from "@/models";
 import { openRound, recordDecision, saveReportDraft, submitReport } from "@/lib/data/rounds";
 import * as changes from "@/app/api/proofs/[proofId]/changes/route";
@@ -38,7 +37,7 @@ interface Changes {
 const stamp = Date.now();
 const GALE = { name: "Gale Fenwick", email: `gale.fenwick.visit.${stamp}@moorfield.example` };
 const HOLLIS = { name: "Hollis Varga", email: `hollis.varga.visit.${stamp}@moorfield.example` };
-let fx: ReviewFixture;
+const [fx] = reviewProofsForFile(["since last visit"], { afterDrop: () => models().User.destroy({ where: { id: [galeId, hollisId] } }) });
 let galeId = 0;
 let hollisId = 0;
 const P = () => String(fx.proofId);
@@ -65,7 +64,6 @@ async function revise(key: string) {
 }
 
 beforeAll(async () => {
-  fx = await makeProof("since last visit");
   const { User, ProofMember, ReviewerScope, Proof } = models();
   galeId = (await User.create({ email: GALE.email, name: GALE.name, passwordHash: null, role: "member" })).id;
   hollisId = (await User.create({ email: HOLLIS.email, name: HOLLIS.name, passwordHash: null, role: "member" })).id;
@@ -116,12 +114,6 @@ beforeAll(async () => {
     { id: fx.ids.editor, name: "Dov Ashgrove" },
     { decision: "minor_revision", letter: "Please revise.", attachReports: true },
   );
-});
-
-afterAll(async () => {
-  await dropProofs();
-  await models().User.destroy({ where: { id: [galeId, hollisId] } });
-  await closeSequelize();
 });
 
 describe("since your last visit", () => {

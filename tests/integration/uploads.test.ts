@@ -4,7 +4,7 @@
  * off half-way (no row, no object). Runs once with the local-disk store and once with the S3 store
  * against s3rver on loopback.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
@@ -12,9 +12,8 @@ import { mkdtemp, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { gzipSync } from "fflate";
-import { actAs, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, params, closeAfterAll } from "./helpers";
+import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { fileStore, sha256Hex } from "@/lib/storage";
 import { rememberEnv, s3FakePort, startS3Fake, STORAGE_KEYS, useStore, type S3Fake } from "../support/s3-fake";
@@ -27,19 +26,16 @@ let localDir: string;
 let fake: S3Fake;
 const restoreEnv = rememberEnv(STORAGE_KEYS);
 
-beforeAll(async () => {
-  localDir = await mkdtemp(path.join(tmpdir(), "cairn-upload-"));
-  fake = await startS3Fake(s3FakePort(1));
-  proofId = await draftProof("Uploads test");
-  const caseId = await addCase(proofId, "Trees on ten vertices");
-  stepId = String((await addStep(proofId, caseId, "A computer search over all trees on 10 vertices.")).id);
-});
-afterAll(async () => {
+closeAfterAll(async () => {
   restoreEnv();
   await dropProofs([proofId]);
   await fake?.stop();
   await rm(localDir, { recursive: true, force: true });
-  await closeSequelize();
+});
+beforeAll(async () => {
+  localDir = await mkdtemp(path.join(tmpdir(), "cairn-upload-"));
+  fake = await startS3Fake(s3FakePort(1));
+  ({ proofId, stepId } = await draftCaseStep("Uploads test", "Trees on ten vertices", "A computer search over all trees on 10 vertices."));
 });
 
 const bytes = (s: string) => new TextEncoder().encode(s);

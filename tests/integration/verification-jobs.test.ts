@@ -7,19 +7,18 @@
  * Each part runs its own workers on a queue prefix of its own (and the outage part its own Redis),
  * so the suite's shared worker never takes these jobs.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
 import { parseClaimSet } from "@/lib/review/revisions";
 import { startTestWorker, until, type TestWorker } from "../support/workers";
-import { ownRedis, type TestRedis } from "../support/redis";
+import { ownRedisForTest } from "../support/redis";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
@@ -40,19 +39,14 @@ const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: n
 // and is not listed (from the definition of the claim).
 const slow = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 9, op: "<=", bound: "sqrt(2+sqrt(5))", graphs: [] };
 
+closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
-  proofId = await draftProof("Verification jobs test");
-  const caseId = await addCase(proofId, "Jobs");
-  stepId = String((await addStep(proofId, caseId, "Checked by the workers.")).id);
+  ({ proofId, stepId } = await draftCaseStep("Verification jobs test", "Jobs", "Checked by the workers."));
 });
 afterEach(async () => {
   for (const w of workers.splice(0)) w.stop("SIGKILL");
   await closeQueue();
   Object.assign(process.env, saved);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closeSequelize();
 });
 
 const attach = async (claims: unknown[]) => {
@@ -116,10 +110,7 @@ describe("cancel", () => {
     const id = claims[0].id;
     await until("the job to start", async () => (await claimJobProgress(id, 0))?.state === "checking");
     const cancel = () => cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(id) }));
-    await actAs(null);
-    expect((await cancel()).status).toBe(401);
-    await actAs("reviewer");
-    expect((await cancel()).status).toBe(403);
+    await expectStatusAs(cancel, { nobody: 401, reviewer: 403 });
     await actAs("author");
     const res = await cancel();
     expect(res.status).toBe(200);
@@ -134,14 +125,8 @@ describe("cancel", () => {
 });
 
 describe("Redis stopped", () => {
-  let redis: TestRedis;
-  afterAll(() => redis?.remove());
-
   it("claims wait pending and the step says verification is paused; they are checked when Redis is back", async () => {
-    redis = await ownRedis();
-    await redis.up();
-    process.env.REDIS_URL = redis.url;
-    process.env.CAIRN_QUEUE_PREFIX = "cairn-outage";
+    const redis = await ownRedisForTest("cairn-outage");
     const w = worker({ CAIRN_SWEEP_AFTER_MS: "500", CAIRN_SWEEP_INTERVAL_MS: "500" });
     await w.ready;
     const before = await attach([quick]);

@@ -3,35 +3,26 @@
  * a vouch covers exactly one revision (its digest is stored), earlier vouches are superseded and their
  * referees notified, and a vouch on anything but the latest revision is refused with what changed.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { actAs, jsonRequest, params } from "./helpers";
-import { latestRevision, makeProof, dropProofs, type ReviewFixture } from "./review-fixtures";
-import { closeSequelize, getSequelize } from "@/lib/db";
+import { reviewProofsForFile, latestRevision } from "./review-fixtures";
+import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { storeClaims, verificationSettled } from "@/lib/data/claims";
 import { giveVerdict, loadStep } from "@/lib/data/reviews";
 import type { AppError } from "@/lib/errors";
 import { storeVerdict } from "@/lib/data/revisions";
 import { saveRevision } from "@/lib/data/steps";
-import { closePool } from "@/lib/verification/pool";
 import { digestOfRevision, parseClaimSet } from "@/lib/review/revisions";
 import * as reviews from "@/app/api/proofs/[proofId]/steps/[stepId]/reviews/route";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
 import * as diffRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/diff/route";
 
-let fx: ReviewFixture;
-beforeAll(async () => {
-  fx = await makeProof("vouch coverage");
-});
-afterAll(async () => {
-  await dropProofs();
-  await closePool();
-  await closeSequelize();
-});
+const [fx] = reviewProofsForFile(["vouch coverage"], { pool: true });
 
 const p = (stepId: number) => params({ proofId: String(fx.proofId), stepId: String(stepId) });
 const vouch = (stepId: number, body: Record<string, unknown>) => reviews.POST(jsonRequest("/x", "POST", { verdict: "vouch", ...body }), p(stepId));

@@ -1,14 +1,13 @@
 /** Claims on steps: 422 naming the field, verification off the request path in the worker pool, verdicts and pictures. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll } from "./helpers";
+import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
-import { closePool, runInPool } from "@/lib/verification/pool";
+import { runInPool } from "@/lib/verification/pool";
 import { CLAIM_KINDS } from "@/lib/core/claims/claim-schema";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as proofClaimsRoute from "@/app/api/proofs/[proofId]/claims/route";
@@ -24,15 +23,9 @@ const claim = <T extends object>(o: T) => ({ format: "cairn-claim/1", ...o });
 const starBound = claim({ kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" });
 const starInTree = claim({ kind: "subgraph", pattern: named("star(4)"), host: named("starlike(1,1,1,2,3)"), induced: false });
 
+closeAfterAll(() => dropProofs([proofId]), { pool: true });
 beforeAll(async () => {
-  proofId = await draftProof("Workspace claims test");
-  const caseId = await addCase(proofId, "A vertex of degree at least 5");
-  stepId = String((await addStep(proofId, caseId, "$K_{1,5} \\subseteq G$, so $\\rho(G) \\ge \\sqrt 5$.")).id);
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closePool();
-  await closeSequelize();
+  ({ proofId, stepId } = await draftCaseStep("Workspace claims test", "A vertex of degree at least 5", "$K_{1,5} \\subseteq G$, so $\\rho(G) \\ge \\sqrt 5$."));
 });
 
 const attach = (claims: unknown, step = stepId) => claimsRoute.POST(jsonRequest("/x", "POST", { claims }), params({ proofId, stepId: step }));

@@ -34,6 +34,20 @@ export async function addStep(proofId: string, caseId: number, body: string): Pr
   return (await res.json()).step;
 }
 
+export interface DraftedStep {
+  proofId: string;
+  caseId: number;
+  stepId: string;
+}
+
+/** A drafted proof (draftProof) with one case and, if `stepBody` is given, one step in it (stepId is "" without). */
+export async function draftCaseStep(title: string, caseTitle: string, stepBody?: string): Promise<DraftedStep> {
+  const proofId = await draftProof(title);
+  const caseId = await addCase(proofId, caseTitle);
+  const stepId = stepBody === undefined ? "" : String((await addStep(proofId, caseId, stepBody)).id);
+  return { proofId, caseId, stepId };
+}
+
 /** Removes the proofs a test file created, so other files see the demo data unchanged. */
 export async function dropProofs(ids: string[]): Promise<void> {
   await models().Proof.destroy({ where: { id: ids.map(Number) } });

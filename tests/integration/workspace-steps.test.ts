@@ -1,11 +1,10 @@
 /** Steps: immutable revisions, the stale-base 409 with the newer revision, history and diff. */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params } from "./helpers";
-import { addCase, addStep, draftProof, dropProofs } from "./workspace-fixture";
-import { closeSequelize } from "@/lib/db";
+import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs } from "./helpers";
+import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import * as stepsRoute from "@/app/api/proofs/[proofId]/cases/[caseId]/steps/route";
 import * as stepRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/route";
@@ -17,14 +16,10 @@ let proofId: string;
 let caseId: number;
 let step: { id: number; revisionId: number };
 
+closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
-  proofId = await draftProof("Workspace steps test");
-  caseId = await addCase(proofId, "Exactly one branch vertex");
+  ({ proofId, caseId } = await draftCaseStep("Workspace steps test", "Exactly one branch vertex"));
   step = await addStep(proofId, caseId, "Let $T = T(a,b,c)$.\n\nThen $\\rho(T) \\le 2$.");
-});
-afterAll(async () => {
-  await dropProofs([proofId]);
-  await closeSequelize();
 });
 
 const save = (body: unknown, stepId = String(step.id)) =>
@@ -40,12 +35,7 @@ describe("POST .../cases/[caseId]/steps", () => {
     expect((await models().StepRevision.findByPk(s.revisionId))!.number).toBe(1);
     expect((await post({ body: "   " })).status).toBe(422);
     expect((await post({ body: "x" }, "987654")).status).toBe(404);
-    await actAs(null);
-    expect((await post({ body: "x" })).status).toBe(401);
-    await actAs("reviewer");
-    expect((await post({ body: "x" })).status).toBe(403);
-    await actAs("outsider");
-    expect((await post({ body: "x" })).status).toBe(403);
+    await expectStatusAs(() => post({ body: "x" }), { nobody: 401, reviewer: 403, outsider: 403 });
   });
 });
 

@@ -5,7 +5,8 @@
  */
 import { execFileSync, spawn } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
+import { onTestFinished } from "vitest";
+import { freePort } from "./free-port";
 import { tmpdir } from "node:os";
 import path from "node:path";
 
@@ -17,14 +18,6 @@ export interface TestRedis {
   /** Stops it (if running) and removes its folder. */
   remove(): void;
 }
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const p = (s.address() as { port: number }).port;
-      s.close(() => resolve(p));
-    });
-  });
 
 /** Whether `redis-cli ping` on this port answers PONG. */
 export function redisAnswers(port: number): Promise<boolean> {
@@ -79,4 +72,14 @@ export async function ownRedis(): Promise<TestRedis> {
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+/** For one test: a Redis of its own, started and named in REDIS_URL, with the job queue under `queuePrefix`; removed once the test has finished. */
+export async function ownRedisForTest(queuePrefix: string): Promise<TestRedis> {
+  const redis = await ownRedis();
+  onTestFinished(() => redis.remove());
+  await redis.up();
+  process.env.REDIS_URL = redis.url;
+  process.env.CAIRN_QUEUE_PREFIX = queuePrefix;
+  return redis;
 }

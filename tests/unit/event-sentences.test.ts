@@ -3,7 +3,6 @@ import { describe, expect, it } from "vitest";
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { eventSentence, placePhrase } from "@/lib/review/event-sentences";
-import { labelSteps, stepLabel } from "@/lib/proof-tree";
 
 const root = join(import.meta.dirname, "..", "..");
 function sources(dir: string): string[] {
@@ -109,24 +108,5 @@ describe("event sentences", () => {
     ];
     for (const action of known)
       expect(eventSentence({ action, subjectType: "step", actorName: "Ada Quenby", detail: null, place }), action).not.toMatch(/^Ada Quenby: /);
-  });
-
-  it("number steps by their rank in the case, as the case tree and the step page do", () => {
-    const labels = labelSteps(
-      new Map([
-        [1, "1"],
-        [2, "2.1"],
-      ]),
-      [
-        { id: 10, caseId: 1, position: 3 },
-        { id: 11, caseId: 1, position: 7 },
-        { id: 12, caseId: 2, position: 2 },
-      ],
-    );
-    expect([...labels]).toEqual([
-      [10, stepLabel("1", 1)],
-      [11, stepLabel("1", 2)],
-      [12, stepLabel("2.1", 1)],
-    ]);
   });
 });

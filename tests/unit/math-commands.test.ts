@@ -29,22 +29,22 @@ describe("the editor's math-first toolbar", () => {
     expect(mathCommands().map((c) => c.name)).not.toContain("reference");
   });
 
-  it("wraps the selection in $…$, or leaves the cursor inside an empty formula", () => {
-    const a = area("so x^2 > 1", 3, 6);
-    inlineMath(a.state(), a.api);
-    expect(a.get().text).toBe("so $x^2$ > 1");
-    const b = area("ab", 1);
-    inlineMath(b.state(), b.api);
-    expect(b.get()).toEqual({ text: "a$$b", sel: { start: 2, end: 2 } });
-  });
-
-  it("puts display math on lines of its own, so the page and the PDF both set it displayed", () => {
-    const a = area("Hence \\rho < 2 follows", 6, 14);
-    displayMath(a.state(), a.api);
-    expect(a.get().text).toBe("Hence \n\n$$\n\\rho < 2\n$$\n follows");
-    const b = area("", 0);
-    displayMath(b.state(), b.api);
-    expect(b.get()).toEqual({ text: "$$\n\n$$\n", sel: { start: 3, end: 3 } });
+  it.each([
+    { what: "wraps the selection in $…$", command: inlineMath, text: "so x^2 > 1", start: 3, end: 6, after: { text: "so $x^2$ > 1" } },
+    { what: "cursor inside an empty $…$", command: inlineMath, text: "ab", start: 1, end: 1, after: { text: "a$$b", sel: { start: 2, end: 2 } } },
+    {
+      what: "puts display math on lines of its own, so the page and the PDF both set it displayed",
+      command: displayMath,
+      text: "Hence \\rho < 2 follows",
+      start: 6,
+      end: 14,
+      after: { text: "Hence \n\n$$\n\\rho < 2\n$$\n follows" },
+    },
+    { what: "cursor in an empty display formula", command: displayMath, text: "", start: 0, end: 0, after: { text: "$$\n\n$$\n", sel: { start: 3, end: 3 } } },
+  ])("$what", ({ command, text, start, end, after }) => {
+    const a = area(text, start, end);
+    command(a.state(), a.api);
+    expect(a.get()).toMatchObject(after);
   });
 
   it("inserts named graphs that KaTeX renders and the PDF export accepts", () => {

@@ -44,23 +44,14 @@ describe("step labels", () => {
     expect([...shuffled].sort(compareStepLabels)).toEqual(["1(b)", "1(z)", "1(aa)", "2(a)", "2(b)", "2.1(a)", "2.1.1(a)", "2.2(a)", "2.10(a)", "10(a)"]);
   });
 
-  it("follow each step's rank in its case, not its stored position", () => {
-    const labels = labelSteps(
-      new Map([
-        [1, "1"],
-        [2, "1.1"],
-      ]),
-      [
-        { id: 11, caseId: 1, position: 7 },
-        { id: 10, caseId: 1, position: 3 },
-        { id: 20, caseId: 2, position: 1 },
-        { id: 30, caseId: 9, position: 1 },
-      ],
-    );
-    expect([...labels].sort((a, b) => a[0] - b[0])).toEqual([
-      [10, "1(a)"],
-      [11, "1(b)"],
-      [20, "1.1(a)"],
-    ]);
+  const step = (id: number, caseId: number, position: number) => ({ id, caseId, position });
+  const entries = (labels: Record<number, string | undefined>) => Object.entries(labels).map(([id, label]) => [Number(id), label]);
+  it.each([
+    // Ranks 3 and 7 in case 1 give (a) and (b), whatever order the steps come in; a step of a case outside the tree gets no label.
+    { cases: { 1: "1", 2: "1.1" }, steps: [step(11, 1, 7), step(10, 1, 3), step(20, 2, 1), step(30, 9, 1)], labels: { 10: "1(a)", 11: "1(b)", 20: "1.1(a)" } },
+    // The timeline's labels (lib/review/event-sentences) come from here too: the same as the case tree and the step page.
+    { cases: { 1: "1", 2: "2.1" }, steps: [step(10, 1, 3), step(11, 1, 7), step(12, 2, 2)], labels: { 10: "1(a)", 11: "1(b)", 12: "2.1(a)" } },
+  ])("follow each step's rank in its case, not its stored position: $labels", ({ cases, steps, labels }) => {
+    expect([...labelSteps(new Map(entries(cases) as Array<[number, string]>), steps)]).toEqual(entries(labels));
   });
 });

@@ -8,7 +8,7 @@ import { parseBound, type Bound } from "../arithmetic/bound";
 import { spectralRadiusBound } from "../spectral/inertia";
 import { describeListProblem, readListedGraph, type GraphListEntry, type GraphListFormat } from "../input/graph-list";
 import { isSimple, type Graph } from "../graph";
-import { writeGraph6 } from "../input/graph6";
+import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { Budget } from "../verdict";
 import { RELATIONS, type Relation } from "./claim-schema";
 import { parseGraph } from "../input/parse";
@@ -26,6 +26,8 @@ export interface ListedResult {
   verdict: ListedVerdict;
   /** The graph in graph6 when it is simple (for the failures file), else null. */
   graph6: string | null;
+  /** The graph in sparse6 when it has loops or multiple edges (graph6 cannot say them), else null. */
+  sparse6: string | null;
   vertices: number | null;
   edges: number | null;
   method: string | null;
@@ -160,8 +162,19 @@ export function batchStatement(s: BatchStatement): string {
   return prepare(s).words;
 }
 
+/** How a listed graph is named in the results: graph6 when simple, sparse6 with loops or multiple edges; its size. */
+export function listedShape(g: Graph): Pick<ListedResult, "graph6" | "sparse6" | "vertices" | "edges"> {
+  const simple = isSimple(g);
+  return {
+    graph6: simple && g.n > 0 ? writeGraph6(g) : null,
+    sparse6: !simple && g.n > 0 ? writeSparse6(g) : null,
+    vertices: g.n,
+    edges: g.edges.length,
+  };
+}
+
 function checkOne(g: Graph, prepared: Prepared, stepLimit: number): Omit<ListedResult, "entry" | "line"> {
-  const shape = { graph6: isSimple(g) && g.n > 0 ? writeGraph6(g) : null, vertices: g.n, edges: g.edges.length };
+  const shape = listedShape(g);
   try {
     const v = prepared.check(g, new Budget(stepLimit));
     return {
@@ -202,6 +215,7 @@ export function checkListedGraphs(
         line: entry.line,
         verdict: "unreadable",
         graph6: null,
+        sparse6: null,
         vertices: null,
         edges: null,
         method: null,
