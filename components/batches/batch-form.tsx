@@ -4,7 +4,7 @@ import useSWR, { useSWRConfig } from "swr";
 import { ApiError, apiFetch, jsonFetcher } from "@/components/proof/api-client";
 import { FormProblem, SubmitRow } from "@/components/proof/form-field";
 import type { StepFileView } from "@/lib/data/files";
-import { Choice } from "@/components/ui/choice";
+import { Choice, type ChoiceOption } from "@/components/ui/choice";
 import { TextInput } from "@/components/ui/text-input";
 
 const OPS = ["<", "<=", "=", ">=", ">"] as const;
@@ -21,6 +21,18 @@ const KINDS: Record<Kind, string> = {
   "identified-as": "is identified as a member of",
   "enumeration-exactly": "— the list is exactly, up to isomorphism, the enumeration of",
 };
+/** Which graphs an enumeration statement lists. */
+const SETTINGS: ChoiceOption[] = [
+  ["tree", "trees"],
+  ["simple", "connected simple graphs"],
+  ["multigraph", "connected graphs with loops and multiple edges"],
+];
+/** An enumeration statement may keep only the graphs with ρ(G) below the bound. */
+const LIMITS: ChoiceOption[] = [
+  ["", "(all of them)"],
+  ["<", "with ρ(G) <"],
+  ["<=", "with ρ(G) ≤"],
+];
 /** Families of Smith's classification, as lib/core/smith-families.ts names them, with their display. */
 const FAMILIES: Array<[string, string]> = [
   ["A", "A"],
@@ -33,6 +45,19 @@ const FAMILIES: Array<[string, string]> = [
   ["loop_path2", "loop_path2"],
   ["fork_loop", "fork_loop"],
 ];
+
+/** A whole number inside the form's sentence. */
+function Count({ value, onValue, label, width }: { value: string; onValue: (v: string) => void; label: string; width: string }) {
+  return (
+    <TextInput
+      value={value}
+      onValue={onValue}
+      aria-label={label}
+      inputMode="numeric"
+      className={`${width} rounded border border-stone-300 px-2 py-0.5 font-mono`}
+    />
+  );
+}
 
 /** The request body for the statement chosen in the form. */
 function statementBody(
@@ -162,17 +187,7 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
       {kind === "enumeration-exactly" && (
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <span>the</span>
-          <Choice
-            value={setting}
-            onChange={(e) => setSetting(e.target.value)}
-            aria-label="which graphs"
-            className={inline}
-            options={[
-              ["tree", "trees"],
-              ["simple", "connected simple graphs"],
-              ["multigraph", "connected graphs with loops and multiple edges"],
-            ]}
-          />
+          <Choice value={setting} onChange={(e) => setSetting(e.target.value)} aria-label="which graphs" className={inline} options={SETTINGS} />
           {setting === "multigraph" && (
             <>
               {(
@@ -183,37 +198,15 @@ export function BatchForm({ proofId, stepId }: { proofId: number; stepId: number
               ).map(([words, label, value, set]) => (
                 <label key={label} className="flex items-center gap-2">
                   {words}
-                  <TextInput
-                    value={value}
-                    onValue={set}
-                    aria-label={label}
-                    inputMode="numeric"
-                    className="w-12 rounded border border-stone-300 px-2 py-0.5 font-mono"
-                  />
+                  <Count value={value} onValue={set} label={label} width="w-12" />
                 </label>
               ))}
             </>
           )}
           <span>on</span>
-          <TextInput
-            value={vertices}
-            onValue={setVertices}
-            aria-label="vertices"
-            inputMode="numeric"
-            className="w-16 rounded border border-stone-300 px-2 py-0.5 font-mono"
-          />
+          <Count value={vertices} onValue={setVertices} label="vertices" width="w-16" />
           <span>vertices</span>
-          <Choice
-            value={limitOp}
-            onChange={(e) => setLimitOp(e.target.value)}
-            aria-label="only those with ρ(G)"
-            className={inline}
-            options={[
-              ["", "(all of them)"],
-              ["<", "with ρ(G) <"],
-              ["<=", "with ρ(G) ≤"],
-            ]}
-          />
+          <Choice value={limitOp} onChange={(e) => setLimitOp(e.target.value)} aria-label="only those with ρ(G)" className={inline} options={LIMITS} />
           {limitOp && boundField}
         </div>
       )}

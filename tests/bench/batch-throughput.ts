@@ -2,11 +2,13 @@
  * Batch claim throughput: 10,000 random 12-vertex graphs (G(12, 1/2) from the shared LCG, seed
  * 12_000_000, see BENCH-WORKLOADS's LCG) in one graph6 file, "every graph has ρ(G) < 4", checked by
  * 1 and then 2 worker processes (`npm run worker`'s script) against a throwaway MariaDB and Redis.
- * Reports graphs per second from queueing to the last chunk stored, and each worker's peak RSS.
+ * Reports graphs per second from queueing to the last chunk stored, and each worker's peak RSS; then
+ * the seconds an enumeration claim checked in parts takes with 1 and 2 workers (timeClaimInParts).
  *
  * Ports: CAIRN_BENCH_BATCH_DB_PORT (default 3347), Redis at that + 3050. Chunks of CAIRN_BATCH_CHUNK
  * graphs (default here 1000, so that 2 workers share 10 chunks).
- * Alone: `npx tsx tests/bench/batch-throughput.ts`; in `npm run bench` as the section "batch claims".
+ * Alone: `npx tsx tests/bench/batch-throughput.ts` (`--parts`: the enumeration claim only); in `npm run bench` as the
+ * section "batch claims" (`--only parts`: the enumeration claim only).
  */
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -52,7 +54,7 @@ const groupPids = (pgid: number): number[] =>
     .map((s) => Number(s.trim()))
     .filter(Boolean);
 
-export async function runBatchThroughput(): Promise<void> {
+export async function runBatchThroughput(partsOnly = false): Promise<void> {
   const dbPort = Number(process.env.CAIRN_BENCH_BATCH_DB_PORT ?? 3347);
   const redisPort = dbPort + 3050;
   const name = `bench-batch-${dbPort}`;
@@ -100,7 +102,7 @@ export async function runBatchThroughput(): Promise<void> {
     });
     console.log(`${GRAPHS} random graphs on ${N} vertices (G(12,1/2), LCG seed 12000000), graph6, ${bytes.byteLength} bytes; chunks of ${batchChunkSize()}`);
     console.log(`workers  graphs/s  seconds  verified/refuted/undecided  peak RSS per worker (MiB)`);
-    for (const count of [1, 2]) {
+    for (const count of partsOnly ? [] : [1, 2]) {
       const workers = Array.from({ length: count }, () => startTestWorker({ ...process.env }, `${dataDir}/worker.log`));
       await Promise.all(workers.map((w) => w.ready));
       const batch = await BatchClaim.create({
@@ -135,6 +137,7 @@ export async function runBatchThroughput(): Promise<void> {
       for (const w of workers) w.stop();
       await new Promise((r) => setTimeout(r, 1_000));
     }
+    await timeClaimInParts(step.id, user.id, dataDir);
   } finally {
     await closeQueue();
     await closeSequelize();
@@ -142,12 +145,59 @@ export async function runBatchThroughput(): Promise<void> {
   }
 }
 
+/**
+ * An enumeration claim checked in parts (lib/jobs/claim-parts.ts) by 1 and then 2 worker processes:
+ * "the connected graphs on at most 8 vertices with ρ < 8 are exactly the 0 listed" (refuted; all
+ * 12,110 of them in the certificate, OEIS A001349), seconds from queueing to the stored verdict.
+ */
+async function timeClaimInParts(stepId: number, userId: number, dataDir: string): Promise<void> {
+  const { models } = await import("@/models");
+  const { queueClaim } = await import("@/lib/jobs/queue");
+  const { Claim, ClaimPart } = models();
+  const input = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 8, op: "<", bound: "8", graphs: [] };
+  console.log(`enumeration claim: connected graphs on ≤ 8 vertices, ρ < 8, checked in parts`);
+  console.log(`workers  seconds  verdict   parts done by each worker`);
+  for (const count of [1, 2]) {
+    const workers = Array.from({ length: count }, () => startTestWorker({ ...process.env }, `${dataDir}/worker.log`));
+    await Promise.all(workers.map((w) => w.ready));
+    const claim = await Claim.create({
+      stepId,
+      position: count,
+      kind: "enumeration",
+      input: JSON.stringify(input),
+      digest: null,
+      statement: null,
+      method: null,
+      reason: null,
+      certificate: null,
+      checkerVersion: null,
+      checkedBy: null,
+      checkedAt: null,
+      createdBy: userId,
+    });
+    const t0 = Date.now();
+    await queueClaim({ claimId: claim.id, round: 0, checkedBy: userId });
+    for (;;) {
+      await claim.reload();
+      if (claim.status !== "pending") break;
+      if (Date.now() - t0 > 1_200_000) throw new Error("the enumeration claim was not decided within 20 minutes");
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    const seconds = (claim.checkedAt!.getTime() - t0) / 1000;
+    const byWorker = new Map<string, number>();
+    for (const p of await ClaimPart.findAll({ where: { claimId: claim.id } })) byWorker.set(p.worker, (byWorker.get(p.worker) ?? 0) + 1);
+    console.log(`${String(count).padEnd(8)} ${seconds.toFixed(1).padEnd(8)} ${claim.status.padEnd(9)} ${[...byWorker.values()].join(", ")}`);
+    for (const w of workers) w.stop();
+    await new Promise((r) => setTimeout(r, 1_000));
+  }
+}
+
 export const batchThroughputSection: BenchSection = {
-  name: "batch claims: throughput on 10,000 random 12-vertex graphs, 1 and 2 worker processes",
+  name: "batch claims: throughput on 10,000 random 12-vertex graphs, and an enumeration claim in parts, 1 and 2 worker processes",
   async run(options: BenchOptions) {
-    if (options.quick || (options.only && !"batch".includes(options.only))) return console.log("(skipped: --quick or --only)");
-    await runBatchThroughput();
+    if (options.quick || (options.only && !["batch", "parts"].some((k) => k.includes(options.only!)))) return console.log("(skipped: --quick or --only)");
+    await runBatchThroughput(options.only === "parts");
   },
 };
 
-if (process.argv[1] === fileURLToPath(import.meta.url)) await runBatchThroughput();
+if (process.argv[1] === fileURLToPath(import.meta.url)) await runBatchThroughput(process.argv.includes("--parts"));

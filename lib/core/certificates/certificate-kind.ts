@@ -24,6 +24,33 @@ const STRUCTURE_WORDS: Record<string, string> = {
   legs: "centre and legs",
 };
 
+/** Claim kinds whose evidence is told apart by a field it carries: [field, key, words], the first present wins. */
+const BY_FIELD: Partial<Record<ClaimKind, ReadonlyArray<readonly [field: string, key: string, words: string]>>> = {
+  "vector-certificate": [
+    ["conclusion", "vector-check", "the stated vector, checked entrywise"],
+    ["failingVertex", "failing-vertex", "a vertex where the stated vector fails"],
+  ],
+  exclusion: [
+    ["found", "embedding", "embedding of one pattern in G"],
+    ["absent", "absence", "absence argument for each pattern"],
+  ],
+  "characteristic-polynomial": [["coefficients", "coefficients", "coefficients of det(xI − A)"]],
+  eigenvalues: [["charpoly", "charpoly", "characteristic polynomial χ_G"]],
+};
+
+/** Claim kinds whose evidence names its own kind: the kinds each may leave, with their words. */
+const BY_KIND: Partial<Record<ClaimKind, Readonly<Record<string, string>>>> = {
+  "spectral-radius-bound": SPECTRAL_CERTIFICATE_KIND,
+  identification: {
+    isomorphism: "isomorphism onto the family member",
+    "forbidden-subgraph": "embedding of a forbidden subgraph",
+    components: STRUCTURE_WORDS.components,
+  },
+  structure: STRUCTURE_WORDS,
+  coverage: { coverage: "counts per order and sub-case, uncovered graphs (graph6 or sparse6)" },
+  enumeration: { enumeration: "list of the graphs found (graph6), with counts by order" },
+};
+
 const record = (v: unknown): Record<string, unknown> | null =>
   typeof v === "object" && v !== null && !Array.isArray(v) ? (v as Record<string, unknown>) : null;
 
@@ -38,13 +65,14 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
   const e = "evidence" in envelope && "outcome" in envelope ? record(envelope.evidence) : envelope;
   if (!e) return { key: "unreadable", words: "unreadable evidence" };
   const kind = typeof e.kind === "string" ? e.kind : undefined;
+  const fields = BY_FIELD[claimKind as ClaimKind];
+  if (fields) {
+    const hit = fields.find(([field]) => field in e);
+    return hit ? { key: hit[1], words: hit[2] } : null;
+  }
+  const named = BY_KIND[claimKind as ClaimKind];
+  if (named) return kind && Object.hasOwn(named, kind) ? { key: kind, words: named[kind] } : null;
   switch (claimKind as ClaimKind) {
-    case "spectral-radius-bound":
-      return kind && kind in SPECTRAL_CERTIFICATE_KIND ? { key: kind, words: SPECTRAL_CERTIFICATE_KIND[kind as keyof typeof SPECTRAL_CERTIFICATE_KIND] } : null;
-    case "vector-certificate":
-      if ("conclusion" in e) return { key: "vector-check", words: "the stated vector, checked entrywise" };
-      if ("failingVertex" in e) return { key: "failing-vertex", words: "a vertex where the stated vector fails" };
-      return null;
     case "subgraph":
       if (kind === "embedding") return { key: "embedding", words: "embedding of H in G" };
       if (kind === "absence") {
@@ -55,21 +83,6 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
         };
       }
       return null;
-    case "exclusion":
-      if ("found" in e) return { key: "embedding", words: "embedding of one pattern in G" };
-      if ("absent" in e) return { key: "absence", words: "absence argument for each pattern" };
-      return null;
-    case "identification":
-      if (kind === "isomorphism") return { key: "isomorphism", words: "isomorphism onto the family member" };
-      if (kind === "forbidden-subgraph") return { key: "forbidden-subgraph", words: "embedding of a forbidden subgraph" };
-      if (kind === "components") return { key: "components", words: STRUCTURE_WORDS.components };
-      return null;
-    case "characteristic-polynomial":
-      return "coefficients" in e ? { key: "coefficients", words: "coefficients of det(xI − A)" } : null;
-    case "eigenvalues":
-      return "charpoly" in e ? { key: "charpoly", words: "characteristic polynomial χ_G" } : null;
-    case "structure":
-      return kind && kind in STRUCTURE_WORDS ? { key: kind, words: STRUCTURE_WORDS[kind] } : null;
     case "dynkin-data":
       if (kind !== "dynkin-data") return null;
       if ("cartanMatrix" in e)
@@ -77,10 +90,6 @@ export function certificateKindOf(claimKind: ClaimKind | string, certificate: un
       return "marks" in e
         ? { key: "dynkin-data", words: "identification, inertia and eigenvalue certificates, highest root, Weyl group and quantum integer values" }
         : { key: "dynkin-data", words: "identification of G (not the stated diagram)" };
-    case "coverage":
-      return kind === "coverage" ? { key: "coverage", words: "counts per order and sub-case, uncovered graphs (graph6 or sparse6)" } : null;
-    case "enumeration":
-      return kind === "enumeration" ? { key: "enumeration", words: "list of the graphs found (graph6), with counts by order" } : null;
     default:
       return null;
   }

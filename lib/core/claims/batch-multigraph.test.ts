@@ -17,6 +17,7 @@ import { checkBundle, sealBundle } from "../certificates/bundle";
 import type { BatchItemData } from "../certificates/batch-check";
 import { bruteForce, toGraph } from "../../../tests/support/multigraph-brute-force";
 import { batchItemData, BUNDLE_HEADER } from "../../../tests/support/batch-item";
+import { thrownBy } from "../../../tests/support/thrown";
 
 const ALL: EnumerationBatchStatement = { kind: "enumeration-exactly", setting: "multigraph", maxMultiplicity: 2, maxLoop: 1, vertices: 3 };
 // Every connected graph on 3 vertices with multiplicities ≤ 2 and loop weights ≤ 1, from the independent brute force.
@@ -90,14 +91,7 @@ describe("enumeration batch over graphs with loops and multiple edges", () => {
   });
 
   it("refuses bounds that do not fit the setting and sizes past the estimate, with messages that say what to change", () => {
-    const problem = (s: EnumerationBatchStatement) => {
-      try {
-        batchStatement(s);
-      } catch (e) {
-        return (e as Error).message;
-      }
-      return null;
-    };
+    const problem = (s: EnumerationBatchStatement) => thrownBy(() => batchStatement(s))?.message ?? null;
     expect(problem({ ...ALL, maxLoop: undefined })).toMatch(/give maxLoop as an integer from 0 to 4/);
     expect(problem({ kind: "enumeration-exactly", setting: "tree", vertices: 5, maxLoop: 1 })).toMatch(/only with the setting "multigraph"/);
     const max = enumerationBatchMax(ALL);

@@ -3,6 +3,7 @@
  * ClaimError with its JSON path, and the small readers (string, integer, rational and bound texts)
  * that turn a parsed JSON value into a typed field or a message a person can act on.
  */
+import { JsonPathError } from "../path-error";
 
 export const CLAIM_FORMAT = "cairn-claim/1";
 /** A file holding several claims: `{ "format": "cairn-claims/1", "claims": [...] }`. */
@@ -28,14 +29,8 @@ export interface ClaimCommon {
 }
 
 /** A malformed claim: `path` is the JSON path of the offending value, e.g. `$.claims[2].graph.format`. */
-export class ClaimError extends Error {
-  constructor(
-    readonly path: string,
-    readonly detail: string,
-  ) {
-    super(`${path}: ${detail}`);
-    this.name = "ClaimError";
-  }
+export class ClaimError extends JsonPathError {
+  override readonly name = "ClaimError";
 }
 
 /** Longest graph text accepted before any parsing (a 10^6-vertex tree as an edge list is ~14 MB). */

@@ -36,6 +36,7 @@ import { NumberFormatError } from "../arithmetic/rational";
 import { Budget } from "../verdict";
 import { sweep, findCycle } from "./structure";
 import { decideContainment } from "../subgraph/subgraph";
+import { JsonPathError } from "../path-error";
 
 export const CONDITION_RELATIONS = ["<", "<=", "=", ">=", ">"] as const;
 export type ConditionRelation = (typeof CONDITION_RELATIONS)[number];
@@ -66,14 +67,8 @@ export type CaseCondition =
   | { readonly not: CaseCondition };
 
 /** A malformed condition: `path` is the JSON path of the offending value, e.g. `$.and[1].value`. */
-export class ConditionError extends Error {
-  constructor(
-    readonly path: string,
-    readonly detail: string,
-  ) {
-    super(`${path}: ${detail}`);
-    this.name = "ConditionError";
-  }
+export class ConditionError extends JsonPathError {
+  override readonly name = "ConditionError";
 }
 
 const GRAPH_FORMATS = ["edges", "matrix", "graph6", "sparse6", "named"] as const;

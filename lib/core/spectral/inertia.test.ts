@@ -44,6 +44,14 @@ function floatEigenvalues(g: Graph): number[] {
 const affineE8 = makeGraph(9, [...Array.from({ length: 7 }, (_, i) => ({ u: i, v: i + 1 })), { u: 5, v: 8 }]);
 
 const verdict = (g: Graph, op: Relation, b: string) => spectralRadiusBound(g, op, b, new Budget(1e8));
+/** The verdict on ρ(G) op b, expected with this status and certificate kind, and re-checked as the offline checker does. */
+function settled(g: Graph, op: Relation, b: string, status: "verified" | "refuted", kind: string) {
+  const v = verdict(g, op, b);
+  expect(v.status).toBe(status);
+  expect(v.certificate!.kind).toBe(kind);
+  expect(recheckSpectralRadiusBound(g, op, b, status, v.certificate).status).toBe("verified");
+  return v;
+}
 
 describe("tree inertia (Jacobs–Trevisan) with zero pivots", () => {
   it("inertia of -A(P_n): eigenvalues 2cos(pi j/(n+1)) give floor(n/2) of each sign and one zero for odd n (Brouwer & Haemers §1.4.4)", () => {
@@ -196,10 +204,7 @@ describe("large graphs with a cycle: a vector certificate (Rayleigh or Collatz�
 
   it("does the same against an irrational bound, at a rational just above it: ρ > 2√2", () => {
     const g = sparse(400);
-    const v = verdict(g, ">", "sqrt(8)");
-    expect(v.status).toBe("verified");
-    expect(v.certificate!.kind).toBe("rayleigh");
-    expect(recheckSpectralRadiusBound(g, ">", "sqrt(8)", "verified", v.certificate).status).toBe("verified");
+    settled(g, ">", "sqrt(8)", "verified", "rayleigh");
     expect(inertia(g, rat(3)).negative).toBeGreaterThan(0); // ρ > 3 > 2√2
   });
 
@@ -233,19 +238,13 @@ describe("large graphs with a cycle: a vector certificate (Rayleigh or Collatz�
 
   it("compares with an irrational bound exactly: ρ < √20 (the float hint is 4.20)", () => {
     const g = sparse(400);
-    const v = verdict(g, "<", "sqrt(20)");
-    expect(v.status).toBe("verified");
-    expect(v.certificate!.kind).toBe("collatz-wielandt");
-    expect(recheckSpectralRadiusBound(g, "<", "sqrt(20)", "verified", v.certificate).status).toBe("verified");
+    settled(g, "<", "sqrt(20)", "verified", "collatz-wielandt");
     expect(inertia(g, rat(447n, 100n))).toMatchObject({ negative: 0 }); // ρ < 4.47 < √20
   });
 
   it("normalises each component on its own, so a small component does not fade: G(300) + C_50 has ρ < 5", () => {
     const g = disjointUnion(sparse(300), cycle(50));
-    const v = verdict(g, "<", "5");
-    expect(v.status).toBe("verified");
-    expect(v.certificate!.kind).toBe("collatz-wielandt");
-    expect(recheckSpectralRadiusBound(g, "<", "5", "verified", v.certificate).status).toBe("verified");
+    settled(g, "<", "5", "verified", "collatz-wielandt");
   });
 
   it("leaves b close to ρ to the elimination: the 300-cycle has ρ = 2 exactly (Brouwer & Haemers §1.4.3)", () => {
@@ -383,10 +382,7 @@ describe("irrational bounds on larger graphs with cycles: sparse elimination ove
   });
   it("K_{2,3} + C_200 (205 vertices, above the characteristic-polynomial limit) has ρ = sqrt 6 exactly (Brouwer & Haemers §1.4.2, §1.4.3)", () => {
     const g = disjointUnion(completeBipartite(2, 3), cycle(200));
-    const v = verdict(g, "=", "sqrt(6)");
-    expect(v.status).toBe("verified");
-    expect(v.certificate!.kind).toBe("algebraic-sparse");
-    expect(recheckSpectralRadiusBound(g, "=", "sqrt(6)", "verified", v.certificate).status).toBe("verified");
+    const v = settled(g, "=", "sqrt(6)", "verified", "algebraic-sparse");
     const c = structuredClone(v.certificate!) as SpectralRadiusCertificate & { kind: "algebraic-sparse" };
     c.zero = 0;
     c.positive = 205;

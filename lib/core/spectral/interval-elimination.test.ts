@@ -193,5 +193,9 @@ describe("ρ verdicts through the interval steps: certificates re-check and resi
     expect(repeated.reason).toMatch(/step 2/);
     if (cert.front !== undefined) expect(tamper((c) => (c.front = c.front! + 1)).status).toBe("refuted");
     expect(tamper((c) => c.steps!.pop()).status).toBe("refuted");
+    // Another point, even one where the same counts hold, is not the point the verdict eliminates at.
+    const moved = tamper((c) => (c.at = "4/1"));
+    expect(moved.status).toBe("refuted");
+    expect(moved.reason).toMatch(/bound b itself/);
   });
 });

@@ -46,6 +46,16 @@ export function recheckSpectralRadiusBound(
       const at = parseCertRational(c.at, "certificate.at");
       if (c.kind === "tree-signs" && (b.kind !== "algebraic" || !PROBE_BITS.some((bits) => cmp(enclose(b, bits).hi, at) === 0)))
         reject(`certificate.at must be the upper end of b's enclosure at ${PROBE_BITS.map((k) => `2^-${k}`).join(" or ")} (the points the verdict probes)`);
+      // An inertia count has one valid form: at the point the verdict eliminates (b itself, or an end of b's enclosure).
+      if (
+        c.kind === "inertia" &&
+        (b.kind === "rational" ? cmp(b.value, at) !== 0 : !PROBE_BITS.some((bits) => cmp(enclose(b, bits).hi, at) === 0 || cmp(enclose(b, bits).lo, at) === 0))
+      )
+        reject(
+          b.kind === "rational"
+            ? "certificate.at must be the bound b itself"
+            : `certificate.at must be an end of b's enclosure at ${PROBE_BITS.map((k) => `2^-${k}`).join(" or ")} (the points the verdict probes)`,
+        );
       const fact =
         c.kind === "inertia"
           ? recheckInertia(g, at, c, budget)
