@@ -234,6 +234,16 @@ describe("proof workspace in the browser", () => {
     const card = (await page.getByTestId("claim").first().textContent()) ?? "";
     expect(card).toContain("|W| = 696729600");
     expect(card).toContain("h = 30");
+    // F4 is given by type only: the form hides the graph box. |W(F4)| = 1152, h = 12 (Humphreys Table 2.4; Bourbaki Plate VIII):
+    // a doubled order is refuted naming the value, the published one verified.
+    await form.getByLabel("Dynkin type").fill("F4");
+    await form.getByLabel("graph G").waitFor({ state: "detached" });
+    await form.getByLabel("stated Dynkin data").fill("h = 12\n|W| = 2304");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await page.getByTestId("claim").filter({ hasText: "1152" }).locator('[data-verdict="refuted"]').first().waitFor();
+    await form.getByLabel("stated Dynkin data").fill("h = 12\n|W| = 1152\nexponents = 1, 5, 7, 11");
+    await form.getByRole("button", { name: "Attach claim" }).click();
+    await page.getByTestId("claim").filter({ hasText: "exponents" }).locator('[data-verdict="verified"]').first().waitFor();
     await context.close();
   });
 
