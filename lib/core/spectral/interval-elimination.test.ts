@@ -169,6 +169,26 @@ describe("ρ verdicts through the interval steps: certificates re-check and resi
       expect(re.status, re.reason).toBe("verified");
     }
   });
+  it("a regular graph at b = k ± 2^-60 is decided by its constant Perron vector, exactly, without any elimination (cubic, n = 1000)", () => {
+    // ρ = 3 for a 3-regular graph with the all-ones eigenvector (Brouwer & Haemers Prop. 3.1.2, from memory): power iteration
+    // suggests a constant vector, so xᵀ(bI − A)x = n·x²·(b − 3) and (Ax)_v / x_v = 3 are exact.
+    const h = cubic(1000);
+    const cases = [
+      [sub(rat(3), pow2(60)), "refuted", "rayleigh"],
+      [add(rat(3), pow2(60)), "verified", "collatz-wielandt"],
+    ] as const;
+    for (const [b, status, kind] of cases) {
+      const text = `${b.num}/${b.den}`;
+      const v = spectralRadiusBound(h, "<", text, big());
+      expect(v.status, text).toBe(status);
+      expect(v.certificate?.kind, text).toBe(kind);
+      expect(recheckSpectralRadiusBound(h, "<", text, status, v.certificate).status).toBe("verified");
+      // The certificate says nothing at the other side of 3: a Rayleigh vector for 3 − 2^-60 does not prove ρ > 3.
+      const other = `${(3n * b.den * 2n - b.num * 1n) / 1n}/${b.den}`;
+      expect(recheckSpectralRadiusBound(h, "<", other, status, v.certificate).status, other).toBe("refuted");
+    }
+  });
+
   it("a changed sign, count, step or front size of an interval-certified inertia is rejected", () => {
     // Below 200 vertices no vector certificate is tried first, so the elimination decides.
     const h = workloadGraph(sparseGraphWorkload(150));

@@ -93,7 +93,9 @@ export const VECTOR_FIRST_MIN_VERTICES = 200;
  * iteration only suggests a vector (entries rounded to integers); the proof is exact:
  * - ρ > b: xᵀ(at·I − A)x < 0 at a rational `at` ≥ b, computed in rationals (a Rayleigh certificate);
  * - ρ < b: x > 0 with (Ax)_v < b·x_v at every vertex, compared exactly with b (Collatz–Wielandt).
- * Undefined when the hint is too close to b or the exact check fails; the elimination then decides.
+ * When the hint is within 10⁻⁹ of b both are tried (an exact check, so a wrong guess costs one pass over
+ * the edges): a regular graph's Perron vector is constant, so its rounded vector is exact and decides b = k ± 2⁻⁶⁰
+ * at once. Undefined when neither check holds; the elimination then decides.
  */
 export function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation; cert: SpectralRadiusCertificate; at?: Rational } | undefined {
   if (g.n < VECTOR_FIRST_MIN_VERTICES || isForest(g)) return undefined;
@@ -102,7 +104,9 @@ export function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation
   budget.tick(hint.iterations * (g.n + 2 * g.edges.length));
   const approx = b.kind === "rational" ? Number(b.value.num) / Number(b.value.den) : boundApprox(b);
   const margin = 1e-9 * Math.max(1, Math.abs(approx));
-  if (hint.rho > approx + margin) {
+  const above = hint.rho > approx + margin;
+  const below = hint.rho < approx - margin;
+  if (!below) {
     const at = b.kind === "rational" ? b.value : enclose(b, 50).hi;
     // The component of largest ρ only: the others would add positive terms to xᵀ(at·I − A)x.
     const x = new Map<number, Rational>();
@@ -110,18 +114,19 @@ export function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation
       const k = Math.round(v * 2 ** 24);
       if (k > 0 && comp[i] === hint.top) x.set(i, rat(k));
     });
-    if (x.size === 0) return undefined;
-    const value = quadraticForm(g, at, x, budget);
-    if (sign(value) >= 0) return undefined;
-    return { rel: ">", at, cert: { kind: "rayleigh", at: ratToString(at), vector: [...x].map(([v, xv]) => [v, ratToString(xv)]), value: ratToString(value) } };
+    const value = x.size === 0 ? undefined : quadraticForm(g, at, x, budget);
+    if (value !== undefined && sign(value) < 0)
+      return {
+        rel: ">",
+        at,
+        cert: { kind: "rayleigh", at: ratToString(at), vector: [...x].map(([v, xv]) => [v, ratToString(xv)]), value: ratToString(value) },
+      };
+    if (above) return undefined;
   }
-  if (hint.rho < approx - margin) {
-    // Rounded up, so every entry is a positive integer.
-    const vector = Array.from(hint.vector, (v) => String(Math.max(1, Math.ceil(v * 2 ** 24))));
-    if (checkVectorCertificate(g, vector, "<", b, budget).status !== "verified") return undefined;
-    return { rel: "<", cert: { kind: "collatz-wielandt", vector } };
-  }
-  return undefined;
+  // Rounded up, so every entry is a positive integer.
+  const vector = Array.from(hint.vector, (v) => String(Math.max(1, Math.ceil(v * 2 ** 24))));
+  if (checkVectorCertificate(g, vector, "<", b, budget).status !== "verified") return undefined;
+  return { rel: "<", cert: { kind: "collatz-wielandt", vector } };
 }
 
 type AlgebraicCertificate = SpectralRadiusCertificate & { kind: "algebraic-tree" | "algebraic-sparse" };
