@@ -12,13 +12,14 @@ export class Claim extends Model<InferAttributes<Claim>, InferCreationAttributes
   declare input: string;
   declare digest: string | null;
   declare status: CreationOptional<ClaimStatus>;
-  declare statement: string | null;
-  declare method: string | null;
-  declare reason: string | null;
-  declare certificate: string | null;
-  declare checkerVersion: string | null;
-  declare checkedBy: number | null;
-  declare checkedAt: Date | null;
+  // The verdict's fields: null (the column default) until the checker decides, so a new claim names none of them.
+  declare statement: CreationOptional<string | null>;
+  declare method: CreationOptional<string | null>;
+  declare reason: CreationOptional<string | null>;
+  declare certificate: CreationOptional<string | null>;
+  declare checkerVersion: CreationOptional<string | null>;
+  declare checkedBy: CreationOptional<number | null>;
+  declare checkedAt: CreationOptional<Date | null>;
   /** Incremented by each re-check; a job stores its verdict only for the round it was queued for. */
   declare verifyRound: CreationOptional<number>;
   /** The worker (host:pid) that stored the verdict. */

@@ -4,18 +4,7 @@
  * `claimFormSchema` turns into that JSON. `formFieldOf` maps an error path back to the form field.
  */
 import { z } from "./zod";
-import {
-  CLAIM_FORMAT,
-  CLAIMS_FILE_FORMAT,
-  CLAIM_KINDS,
-  GRAPH_FORMATS,
-  RELATIONS,
-  STRUCTURE_PREDICATES,
-  DEGREE_RELATIONS,
-  ENUMERATION_MAX_VERTICES,
-  ENUMERATION_CLAIM_SETTINGS,
-  namesMultilacedType,
-} from "@/lib/core/claims/claim-schema";
+import * as schema from "@/lib/core/claims/claim-schema";
 
 export const MAX_CLAIMS_PER_REQUEST = 20;
 
@@ -26,18 +15,18 @@ export const attachClaimsSchema = z.object({
     .max(MAX_CLAIMS_PER_REQUEST, `Attach at most ${MAX_CLAIMS_PER_REQUEST} claims at once.`),
 });
 
-const graphFormat = z.enum(GRAPH_FORMATS);
+const graphFormat = z.enum(schema.GRAPH_FORMATS);
 
 /** Splits "1, 2 3" into ["1", "2", "3"]. */
 const listOf = (text: string) => text.split(/[\s,;]+/).filter(Boolean);
 
 export const claimFormSchema = z.object({
-  kind: z.enum(CLAIM_KINDS),
+  kind: z.enum(schema.CLAIM_KINDS),
   graphFormat: graphFormat,
   graphText: z.string(),
   patternFormat: graphFormat,
   patternText: z.string(),
-  op: z.enum(RELATIONS),
+  op: z.enum(schema.RELATIONS),
   bound: z.string(),
   vector: z.string(),
   induced: z.boolean(),
@@ -46,11 +35,11 @@ export const claimFormSchema = z.object({
   coefficients: z.string(),
   h: z.string(),
   multiset: z.string(),
-  predicate: z.enum(STRUCTURE_PREDICATES),
+  predicate: z.enum(schema.STRUCTURE_PREDICATES),
   parameter: z.string(),
-  degreeRelation: z.enum(DEGREE_RELATIONS),
+  degreeRelation: z.enum(schema.DEGREE_RELATIONS),
   maxVertices: z.string(),
-  enumerationSetting: z.enum(ENUMERATION_CLAIM_SETTINGS),
+  enumerationSetting: z.enum(schema.ENUMERATION_CLAIM_SETTINGS),
   maxMultiplicity: z.string(),
   maxLoop: z.string(),
   dynkinData: z.string(),
@@ -194,9 +183,9 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       Object.assign(claim, { h: Number(f.h.trim()), multiset: integers(f.multiset, "multiset", issues) });
       break;
     case "enumeration":
-      need("maxVertices", `the largest number of vertices N (at most ${ENUMERATION_MAX_VERTICES})`);
+      need("maxVertices", `the largest number of vertices N (at most ${schema.ENUMERATION_MAX_VERTICES})`);
       if (f.maxVertices.trim() && !/^\d+$/.test(f.maxVertices.trim()))
-        issues.push({ field: "maxVertices", message: `N is a positive integer (at most ${ENUMERATION_MAX_VERTICES})` });
+        issues.push({ field: "maxVertices", message: `N is a positive integer (at most ${schema.ENUMERATION_MAX_VERTICES})` });
       need("bound", "the bound, e.g. 2");
       Object.assign(claim, {
         maxVertices: Number(f.maxVertices.trim()),
@@ -226,7 +215,7 @@ export function claimFromForm(f: ClaimForm): { claim: Record<string, unknown> } 
       if (!f.family.trim() && !f.graphText.trim()) issues.push({ field: "family", message: "Enter the type (e.g. E8), the graph G, or both." });
       if (f.family.trim()) claim.type = f.family.trim();
       // The form hides the graph box for B_n, C_n, F4, G2 (given by type only), so text left in it is not sent.
-      if (f.graphText.trim() && !namesMultilacedType(f.family)) claim.graph = graph(f.graphFormat, f.graphText);
+      if (f.graphText.trim() && !schema.namesMultilacedType(f.family)) claim.graph = graph(f.graphFormat, f.graphText);
       Object.assign(claim, dynkinDataFromText(f.dynkinData, issues));
       break;
     case "structure": {
@@ -305,9 +294,10 @@ export function claimsFromDocument(text: string): { claims: Record<string, unkno
   const isObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
   let list: unknown[] | null = null;
   if (Array.isArray(json)) list = json;
-  else if (isObject(json) && json.format === CLAIM_FORMAT) list = [json];
-  else if (isObject(json) && json.format === CLAIMS_FILE_FORMAT && Array.isArray(json.claims)) list = json.claims;
-  if (list === null) return { problem: `Expected one "${CLAIM_FORMAT}" claim, an array of claims, or { "format": "${CLAIMS_FILE_FORMAT}", "claims": [...] }.` };
+  else if (isObject(json) && json.format === schema.CLAIM_FORMAT) list = [json];
+  else if (isObject(json) && json.format === schema.CLAIMS_FILE_FORMAT && Array.isArray(json.claims)) list = json.claims;
+  if (list === null)
+    return { problem: `Expected one "${schema.CLAIM_FORMAT}" claim, an array of claims, or { "format": "${schema.CLAIMS_FILE_FORMAT}", "claims": [...] }.` };
   if (list.length === 0) return { problem: "The document holds no claims." };
   if (list.length > MAX_CLAIMS_PER_REQUEST)
     return { problem: `The document holds ${list.length} claims; attach at most ${MAX_CLAIMS_PER_REQUEST} at once (split the file).` };

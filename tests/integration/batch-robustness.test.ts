@@ -8,18 +8,18 @@
  * The kill and outage parts run their own workers on queue prefixes of their own (the outage part on
  * its own Redis), so the suite's shared worker never takes their jobs.
  */
-import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
 import { utimes } from "node:fs/promises";
 import path from "node:path";
 import { QueryTypes } from "sequelize";
-import { actAs, closeAfterAll, jsonRequest, params } from "./helpers";
+import { actAs, closeAfterAll, jsonRequest, params, workersPerTest } from "./helpers";
 import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
-import { closeQueue, verificationQueue, FILE_SWEEP_SCHEDULER } from "@/lib/jobs/queue";
+import { verificationQueue, FILE_SWEEP_SCHEDULER } from "@/lib/jobs/queue";
 import { listEntries } from "@/lib/jobs/batch";
 import { checkListedGraphs } from "@/lib/core/claims/batch";
 import { fileStore, sha256Hex } from "@/lib/storage";
@@ -34,21 +34,13 @@ import * as batchRoute from "@/app/api/proofs/[proofId]/batches/[batchId]/route"
 
 let proofId: string;
 let stepId: string;
-const workers: TestWorker[] = [];
-const saved = { REDIS_URL: process.env.REDIS_URL, CAIRN_QUEUE_PREFIX: process.env.CAIRN_QUEUE_PREFIX, CAIRN_BATCH_CHUNK: process.env.CAIRN_BATCH_CHUNK };
+const { workers, saved } = workersPerTest(["REDIS_URL", "CAIRN_QUEUE_PREFIX", "CAIRN_BATCH_CHUNK"]);
 // Short locks, so that a dead worker's chunk is taken over within seconds rather than the default 30 s.
 const fast = { CAIRN_JOB_LOCK_MS: "2000", CAIRN_JOB_STALLED_CHECK_MS: "1000" };
 
 closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
   ({ proofId, stepId } = await draftCaseStep("Batch robustness test", "Random graphs", "A search over random graphs."));
-});
-afterEach(async () => {
-  for (const w of workers.splice(0)) w.stop("SIGKILL");
-  await closeQueue();
-  for (const [k, v] of Object.entries(saved))
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
 });
 
 const worker = (env: Record<string, string> = {}) => {

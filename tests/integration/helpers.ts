@@ -2,12 +2,17 @@
  * Helpers for calling route handlers directly with `new Request(...)` as a chosen user.
  * `next-auth` is mocked in each test file (vi.mock) so that getServerSession returns `sessionFor(...)`.
  */
-import { afterAll, expect, vi } from "vitest";
+import { afterAll, afterEach, beforeAll, expect, vi } from "vitest";
+import { mkdtemp, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { getServerSession } from "next-auth";
 import { closeSequelize } from "@/lib/db";
 import { closeQueue } from "@/lib/jobs/queue";
 import { closePool } from "@/lib/verification/pool";
 import { models } from "@/models";
+import type { TestWorker } from "../support/workers";
+import type { S3Fake } from "../support/s3-fake";
 import { demoPeople } from "@/seeders/demo-content";
 
 export async function userIdOf(key: string): Promise<number> {
@@ -77,4 +82,44 @@ export function closeAfterAll(drop?: () => Promise<unknown>, { pool = false, que
     if (queue) await closeQueue();
     await closeSequelize();
   });
+}
+
+/**
+ * This test file's verification workers: after each test they are killed (with the job queue closed) and the given
+ * settings are put back as they were when the file started; `saved` holds those values.
+ */
+export function workersPerTest(keys: readonly string[]): { workers: TestWorker[]; saved: Record<string, string | undefined> } {
+  const workers: TestWorker[] = [];
+  const saved = Object.fromEntries(keys.map((k) => [k, process.env[k]]));
+  afterEach(async () => {
+    for (const w of workers.splice(0)) w.stop("SIGKILL");
+    await closeQueue();
+    for (const k of keys)
+      if (saved[k] === undefined) delete process.env[k];
+      else process.env[k] = saved[k];
+  });
+  return { workers, saved };
+}
+
+/**
+ * A temporary folder and an S3 fake for this test file, set up before its tests; after them the fake stops, the folder
+ * goes, `drop` runs and the storage settings (and `keys`) are put back as they were.
+ */
+export function storesForFile(prefix: string, portOffset: number, keys: readonly string[], drop: () => Promise<unknown>): { dir: string; fake: S3Fake } {
+  const stores = {} as { dir: string; fake: S3Fake };
+  let restore = () => {};
+  closeAfterAll(async () => {
+    restore();
+    await drop();
+    await stores.fake?.stop();
+    if (stores.dir) await rm(stores.dir, { recursive: true, force: true });
+  });
+  beforeAll(async () => {
+    // Loaded here, so that the other test files do not load the S3 fake.
+    const s3 = await import("../support/s3-fake");
+    restore = s3.rememberEnv([...s3.STORAGE_KEYS, ...keys]);
+    stores.dir = await mkdtemp(path.join(tmpdir(), prefix));
+    stores.fake = await s3.startS3Fake(s3.s3FakePort(portOffset));
+  });
+  return stores;
 }

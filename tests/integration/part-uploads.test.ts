@@ -9,16 +9,15 @@ import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { mkdtemp, readdir, rm } from "node:fs/promises";
+import { readdir } from "node:fs/promises";
 import { randomBytes } from "node:crypto";
-import { tmpdir } from "node:os";
 import path from "node:path";
-import { actAs, closeAfterAll, jsonRequest, params } from "./helpers";
+import { actAs, jsonRequest, params, storesForFile } from "./helpers";
 import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { fileStore, sha256Hex } from "@/lib/storage";
 import { sweepPartUploads } from "@/lib/data/part-uploads";
-import { rememberEnv, s3FakePort, startS3Fake, STORAGE_KEYS, useStore, type S3Fake } from "../support/s3-fake";
+import { useStore } from "../support/s3-fake";
 import * as startRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/route";
 import * as uploadRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/route";
 import * as partRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/parts/[part]/route";
@@ -27,22 +26,12 @@ import * as fileRoute from "@/app/api/proofs/[proofId]/files/[fileId]/route";
 
 const PART = 1024;
 const PART_KEYS = ["CAIRN_UPLOAD_PART_BYTES", "CAIRN_UPLOAD_PARTS_DIR", "CAIRN_UPLOAD_MAX_BYTES"];
-const restoreEnv = rememberEnv([...STORAGE_KEYS, ...PART_KEYS]);
-let dir: string;
-let fake: S3Fake;
 let proofId: string;
 let stepId: string;
 let otherStepId: string;
+const stores = storesForFile("cairn-parts-", 5, PART_KEYS, () => dropProofs([proofId]));
 
-closeAfterAll(async () => {
-  restoreEnv();
-  await dropProofs([proofId]);
-  await fake?.stop();
-  await rm(dir, { recursive: true, force: true });
-});
 beforeAll(async () => {
-  dir = await mkdtemp(path.join(tmpdir(), "cairn-parts-"));
-  fake = await startS3Fake(s3FakePort(5));
   const drafted = await draftCaseStep("Uploads in parts", "Trees on twelve vertices", "A computer search over a long list of graphs.");
   ({ proofId, stepId } = drafted);
   otherStepId = String((await addStep(proofId, drafted.caseId, "Another step.")).id);
@@ -97,9 +86,9 @@ async function sendParts(bytes: Uint8Array, only?: number[]): Promise<number> {
 
 describe.each(["local", "s3"])("uploads in parts with the %s store", (driver) => {
   beforeAll(() => {
-    useStore(driver, fake, path.join(dir, "files"));
+    useStore(driver, stores.fake, path.join(stores.dir, "files"));
     process.env.CAIRN_UPLOAD_PART_BYTES = String(PART);
-    process.env.CAIRN_UPLOAD_PARTS_DIR = path.join(dir, `parts-${driver}`);
+    process.env.CAIRN_UPLOAD_PARTS_DIR = path.join(stores.dir, `parts-${driver}`);
   });
   const salt = driver === "s3" ? 1 : 2;
 

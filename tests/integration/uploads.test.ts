@@ -8,33 +8,21 @@ import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { mkdtemp, rm } from "node:fs/promises";
-import { tmpdir } from "node:os";
 import path from "node:path";
 import { gzipSync } from "fflate";
-import { actAs, params, closeAfterAll } from "./helpers";
+import { actAs, params, storesForFile } from "./helpers";
 import { addStep, draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { fileStore, sha256Hex } from "@/lib/storage";
-import { rememberEnv, s3FakePort, startS3Fake, STORAGE_KEYS, useStore, type S3Fake } from "../support/s3-fake";
+import { useStore } from "../support/s3-fake";
 import * as filesRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/files/route";
 import * as fileRoute from "@/app/api/proofs/[proofId]/files/[fileId]/route";
 
 let proofId: string;
 let stepId: string;
-let localDir: string;
-let fake: S3Fake;
-const restoreEnv = rememberEnv(STORAGE_KEYS);
+const stores = storesForFile("cairn-upload-", 1, [], () => dropProofs([proofId]));
 
-closeAfterAll(async () => {
-  restoreEnv();
-  await dropProofs([proofId]);
-  await fake?.stop();
-  await rm(localDir, { recursive: true, force: true });
-});
 beforeAll(async () => {
-  localDir = await mkdtemp(path.join(tmpdir(), "cairn-upload-"));
-  fake = await startS3Fake(s3FakePort(1));
   ({ proofId, stepId } = await draftCaseStep("Uploads test", "Trees on ten vertices", "A computer search over all trees on 10 vertices."));
 });
 
@@ -60,7 +48,7 @@ const objects = async () => {
 
 describe.each(["local", "s3"])("uploads with the %s store", (driver) => {
   beforeAll(() => {
-    useStore(driver, fake, path.join(localDir, "files"));
+    useStore(driver, stores.fake, path.join(stores.dir, "files"));
   });
 
   // K_3 ("Bw") and the path P_3 ("Bg") in graph6 (nauty's formats.txt; worked by hand).

@@ -7,15 +7,15 @@
  * Each part runs its own workers on a queue prefix of its own (and the outage part its own Redis),
  * so the suite's shared worker never takes these jobs.
  */
-import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs } from "./helpers";
+import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs, workersPerTest } from "./helpers";
 import { draftCaseStep, dropProofs } from "./workspace-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
-import { claimJobProgress, closeQueue, verificationService } from "@/lib/jobs/queue";
+import { claimJobProgress, verificationService } from "@/lib/jobs/queue";
 import { parseClaimSet } from "@/lib/review/revisions";
 import { startTestWorker, until, type TestWorker } from "../support/workers";
 import { ownRedisForTest } from "../support/redis";
@@ -30,8 +30,7 @@ import { Budget } from "@/lib/core/verdict";
 
 let proofId: string;
 let stepId: string;
-const workers: TestWorker[] = [];
-const saved = { REDIS_URL: process.env.REDIS_URL, CAIRN_QUEUE_PREFIX: process.env.CAIRN_QUEUE_PREFIX };
+const { workers, saved } = workersPerTest(["REDIS_URL", "CAIRN_QUEUE_PREFIX"]);
 const named = (text: string) => ({ format: "named", text });
 // ρ(K_{1,5}) = √5 exactly (a star with k leaves has spectral radius √k; from memory, common knowledge).
 const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" };
@@ -42,11 +41,6 @@ const slow = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 9, op:
 closeAfterAll(() => dropProofs([proofId]));
 beforeAll(async () => {
   ({ proofId, stepId } = await draftCaseStep("Verification jobs test", "Jobs", "Checked by the workers."));
-});
-afterEach(async () => {
-  for (const w of workers.splice(0)) w.stop("SIGKILL");
-  await closeQueue();
-  Object.assign(process.env, saved);
 });
 
 const attach = async (claims: unknown[]) => {

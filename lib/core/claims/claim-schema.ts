@@ -11,7 +11,7 @@
  * claim-schema-base.ts (shared readers), -spectral, -combinatorial, -enumeration and -dynkin.
  */
 
-import { CLAIM_FORMAT, ClaimError, describe, object, oneOf, string, type ClaimCommon } from "./claim-schema-base";
+import { CLAIM_FORMAT, ClaimError, describe, object, oneOf, string, type ClaimCommon, type Json } from "./claim-schema-base";
 import { DYNKIN_DATA_FIELDS, dynkinDataClaim, type DynkinDataClaim } from "./claim-schema-dynkin";
 import {
   characteristicPolynomialClaim,
@@ -116,18 +116,19 @@ export type Claim =
   | DynkinDataClaim
   | CoverageClaim;
 
-const KNOWN_KEYS: Record<ClaimKind, readonly string[]> = {
-  "spectral-radius-bound": ["graph", "op", "bound"],
-  "vector-certificate": ["graph", "vector", "relation", "bound"],
-  subgraph: ["pattern", "host", "induced", "embedding"],
-  exclusion: ["host", "patterns", "induced"],
-  identification: ["graph", "family"],
-  "characteristic-polynomial": ["graph", "coefficients"],
-  eigenvalues: ["graph", "h", "multiset"],
-  structure: ["graph", "predicate", "parameter", "relation"],
-  enumeration: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "op", "bound", "graphs"],
-  "dynkin-data": ["type", "graph", ...DYNKIN_DATA_FIELDS],
-  coverage: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "cases"],
+/** Each kind's fields besides format, kind, id and certificate, and the reader that checks and types them. */
+const KINDS: Record<ClaimKind, { keys: readonly string[]; read: (o: Json, path: string, common: ClaimCommon) => Claim }> = {
+  "spectral-radius-bound": { keys: ["graph", "op", "bound"], read: spectralRadiusBoundClaim },
+  "vector-certificate": { keys: ["graph", "vector", "relation", "bound"], read: vectorCertificateClaim },
+  subgraph: { keys: ["pattern", "host", "induced", "embedding"], read: subgraphClaim },
+  exclusion: { keys: ["host", "patterns", "induced"], read: exclusionClaim },
+  identification: { keys: ["graph", "family"], read: identificationClaim },
+  "characteristic-polynomial": { keys: ["graph", "coefficients"], read: characteristicPolynomialClaim },
+  eigenvalues: { keys: ["graph", "h", "multiset"], read: eigenvaluesClaim },
+  structure: { keys: ["graph", "predicate", "parameter", "relation"], read: structureClaim },
+  enumeration: { keys: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "op", "bound", "graphs"], read: enumerationClaim },
+  "dynkin-data": { keys: ["type", "graph", ...DYNKIN_DATA_FIELDS], read: dynkinDataClaim },
+  coverage: { keys: ["maxVertices", "setting", "maxMultiplicity", "maxLoop", "cases"], read: coverageClaim },
 };
 
 /**
@@ -139,7 +140,7 @@ export function validateClaim(json: unknown, path = "$"): Claim {
   const o = object(json, path);
   if (o.format !== CLAIM_FORMAT) throw new ClaimError(`${path}.format`, `expected "${CLAIM_FORMAT}", got ${describe(o.format)}`);
   const kind = oneOf(o.kind, CLAIM_KINDS, `${path}.kind`);
-  const allowed = new Set(["format", "kind", "id", "certificate", ...KNOWN_KEYS[kind]]);
+  const allowed = new Set(["format", "kind", "id", "certificate", ...KINDS[kind].keys]);
   for (const key of Object.keys(o))
     if (!allowed.has(key)) throw new ClaimError(`${path}.${key}`, `unknown field for a "${kind}" claim; allowed: ${[...allowed].join(", ")}`);
   const common: ClaimCommon = {
@@ -147,28 +148,5 @@ export function validateClaim(json: unknown, path = "$"): Claim {
     ...(o.id !== undefined ? { id: string(o.id, `${path}.id`) } : {}),
     ...(o.certificate !== undefined ? { certificate: o.certificate } : {}),
   };
-  switch (kind) {
-    case "spectral-radius-bound":
-      return spectralRadiusBoundClaim(o, path, common);
-    case "vector-certificate":
-      return vectorCertificateClaim(o, path, common);
-    case "subgraph":
-      return subgraphClaim(o, path, common);
-    case "exclusion":
-      return exclusionClaim(o, path, common);
-    case "identification":
-      return identificationClaim(o, path, common);
-    case "characteristic-polynomial":
-      return characteristicPolynomialClaim(o, path, common);
-    case "eigenvalues":
-      return eigenvaluesClaim(o, path, common);
-    case "structure":
-      return structureClaim(o, path, common);
-    case "dynkin-data":
-      return dynkinDataClaim(o, path, common);
-    case "coverage":
-      return coverageClaim(o, path, common);
-    case "enumeration":
-      return enumerationClaim(o, path, common);
-  }
+  return KINDS[kind].read(o, path, common);
 }
