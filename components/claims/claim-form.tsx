@@ -38,34 +38,66 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
 
 const input = claimInputClass;
 
-function FormatSelect({ name, register }: { name: "graphFormat" | "patternFormat"; register: UseFormRegister<ClaimForm> }) {
+/** A graph's text box with its format picker: G (`graph`) or the pattern(s) H and the enumeration's list (`pattern`). */
+function GraphTextField({
+  which,
+  register,
+  err,
+  label,
+  hint,
+  rows,
+  name,
+}: {
+  which: "graph" | "pattern";
+  register: UseFormRegister<ClaimForm>;
+  err: (f: keyof ClaimForm) => string | undefined;
+  label: string;
+  hint: string;
+  rows: number;
+  /** The text box's accessible name. */
+  name: string;
+}) {
+  const [format, text] = which === "graph" ? (["graphFormat", "graphText"] as const) : (["patternFormat", "patternText"] as const);
   return (
-    <select
-      {...register(name)}
-      className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs"
-      aria-label={name === "graphFormat" ? "format of G" : "format of H"}
-    >
-      {GRAPH_FORMATS.map((f) => (
-        <option key={f} value={f}>
-          {f}
-        </option>
-      ))}
-    </select>
+    <FormField label={label} hint={hint} error={err(text)}>
+      <div className="flex gap-2">
+        <select
+          {...register(format)}
+          className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs"
+          aria-label={which === "graph" ? "format of G" : "format of H"}
+        >
+          {GRAPH_FORMATS.map((f) => (
+            <option key={f} value={f}>
+              {f}
+            </option>
+          ))}
+        </select>
+        <textarea {...register(text)} rows={rows} className={input} aria-label={name} />
+      </div>
+    </FormField>
   );
 }
 
-/** Which graphs an enumeration or coverage claim runs over, with the two bounds of the multigraph setting when it is chosen. */
-function SettingSelect({
+/**
+ * The graphs an enumeration or coverage claim runs over: N, the setting, and the two bounds of the multigraph
+ * setting when it is chosen. `limit` says how large N may be for this kind of claim.
+ */
+function GraphRangeFields({
   register,
   err,
   multigraph,
+  limit,
 }: {
   register: UseFormRegister<ClaimForm>;
   err: (f: keyof ClaimForm) => string | undefined;
   multigraph: boolean;
+  limit: string;
 }) {
   return (
     <>
+      <FormField label="N, the largest number of vertices" hint={limit} error={err("maxVertices")}>
+        <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
+      </FormField>
       <FormField label="Which graphs" error={err("enumerationSetting")}>
         <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
           <option value="simple">connected simple graphs</option>
@@ -138,27 +170,24 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
         </select>
       </FormField>
       {twoGraphs && (
-        <FormField
+        <GraphTextField
+          which="pattern"
+          register={register}
+          err={err}
           label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"}
           hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"}
-          error={err("patternText")}
-        >
-          <div className="flex gap-2">
-            <FormatSelect name="patternFormat" register={register} />
-            <textarea {...register("patternText")} rows={2} className={input} aria-label="pattern H" />
-          </div>
-        </FormField>
+          rows={2}
+          name="pattern H"
+        />
       )}
       {coverage && (
         <>
-          <FormField
-            label="N, the largest number of vertices"
-            hint={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees; with loops and multiple edges it depends on the two bounds (e.g. 7 for multiplicity 1 and loops 1)`}
-            error={err("maxVertices")}
-          >
-            <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
-          </FormField>
-          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
+          <GraphRangeFields
+            register={register}
+            err={err}
+            multigraph={watch("enumerationSetting") === "multigraph"}
+            limit={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees; with loops and multiple edges it depends on the two bounds (e.g. 7 for multiplicity 1 and loops 1)`}
+          />
           <FormField
             label="Sub-cases and their machine-readable conditions (JSON)"
             hint='e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]'
@@ -170,37 +199,33 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       )}
       {enumeration && (
         <>
-          <FormField
-            label="N, the largest number of vertices"
-            hint={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`}
-            error={err("maxVertices")}
-          >
-            <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
-          </FormField>
-          <SettingSelect register={register} err={err} multigraph={watch("enumerationSetting") === "multigraph"} />
-          <FormField
+          <GraphRangeFields
+            register={register}
+            err={err}
+            multigraph={watch("enumerationSetting") === "multigraph"}
+            limit={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`}
+          />
+          <GraphTextField
+            which="pattern"
+            register={register}
+            err={err}
             label="The graphs, all of them"
             hint="connected graphs of the setting, separated by a line ---; e.g. A(5) --- D(5); a loop of weight m at v is the edge line v v m"
-            error={err("patternText")}
-          >
-            <div className="flex gap-2">
-              <FormatSelect name="patternFormat" register={register} />
-              <textarea {...register("patternText")} rows={4} className={input} aria-label="listed graphs" />
-            </div>
-          </FormField>
+            rows={4}
+            name="listed graphs"
+          />
         </>
       )}
       {!enumeration && !coverage && !multilaced && (
-        <FormField
+        <GraphTextField
+          which="graph"
+          register={register}
+          err={err}
           label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional; A, D, E only)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
-          error={err("graphText")}
-        >
-          <div className="flex gap-2">
-            <FormatSelect name="graphFormat" register={register} />
-            <textarea {...register("graphText")} rows={3} className={input} aria-label="graph G" />
-          </div>
-        </FormField>
+          rows={3}
+          name="graph G"
+        />
       )}
       {(kind === "spectral-radius-bound" || kind === "vector-certificate" || enumeration) && (
         <div className="flex gap-3">
