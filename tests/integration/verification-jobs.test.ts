@@ -218,6 +218,49 @@ describe("claims checked in parts", () => {
     expect((await claimRow(ids[2]))!.reason).toMatch(/^All 987 graphs/);
   }, 300_000);
 
+  it("a worker killed while it computes a part: another worker takes the part over, and the claim is decided once, as a single job decides it", async () => {
+    process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-partkill`;
+    // Short locks so that the dead worker's part is noticed within seconds, not the default 30 s.
+    const fast = { CAIRN_JOB_LOCK_MS: "2000", CAIRN_JOB_STALLED_CHECK_MS: "1000" };
+    const first = worker(fast);
+    const firstName = await nameOf(first);
+    // Connected graphs on ≤ 8 vertices, none listed: 4 parts.
+    const claim = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 8, op: "<", bound: "8", graphs: [] };
+    expect(partsFor(validateClaim(claim))).toBe(4);
+    const id = (await attach([claim])).claims[0].id;
+    const partState = (p: number) =>
+      verificationQueue()
+        .getJob(claimPartJobId(id, 0, p))
+        .then((j) => j?.getState());
+    const running = await until("a part to be running on the first worker", async () => {
+      for (const p of [0, 1, 2, 3]) if ((await partState(p)) === "active") return { part: p };
+      return null;
+    });
+    first.stop("SIGKILL");
+    const second = worker(fast);
+    const secondName = await nameOf(second);
+    await verificationSettled(id);
+    const row = (await claimRow(id))!;
+    const want = single(claim);
+    expect(row.status).toBe(want.status);
+    expect(JSON.parse(row.certificate!)).toEqual(want.certificate);
+    expect(row.decidedBy).toBe(secondName);
+    expect(await decisions(id)).toBe(1);
+    // Every part stored once. The part cut off by the kill is computed again by the second worker — unless the first
+    // stored it in the few milliseconds between the look and the kill; the second worker computes the parts left either way.
+    const parts = await partRows(id);
+    expect(parts.map((p) => p.part)).toEqual([0, 1, 2, 3]);
+    expect(parts.every((p) => [firstName, secondName].includes(p.worker))).toBe(true);
+    expect(parts.some((p) => p.worker === secondName)).toBe(true);
+    const cut = parts.find((p) => p.part === running.part)!;
+    if (cut.worker === secondName) {
+      const job = await verificationQueue().getJob(claimPartJobId(id, 0, running.part));
+      expect((job?.stalledCounter ?? 0) + (job?.attemptsMade ?? 0)).toBeGreaterThan(0);
+    }
+    // Connected graphs on ≤ 8 vertices: OEIS A001349 (1, 1, 2, 6, 21, 112, 853, 11117).
+    expect(JSON.parse(row.certificate!).evidence.counts).toEqual(A001349.slice(0, 8));
+  }, 300_000);
+
   it("a claim withdrawn while its parts run gets no verdict", async () => {
     await twoWorkers("withdraw");
     // Connected graphs on ≤ 8 vertices: 4 parts of a few seconds on a busy host.
