@@ -15,6 +15,7 @@ import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkedInParts } from "../core/claims/claims";
 import { boundApprox, parseBound } from "../core/arithmetic/bound";
+import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
 import { claimPartJobId, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
@@ -64,6 +65,7 @@ export async function runClaimPart(job: Job<JobData, JobResult>, data: ClaimPart
   if (!(await ClaimPart.count({ where }))) {
     const row = await Claim.unscoped().findByPk(data.claimId, { attributes: ["id", "input"] });
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
+    faultPoint(data.part + 1, job.attemptsMade + 1);
     const of = `part ${data.part + 1} of ${data.parts}`;
     let answer;
     try {
