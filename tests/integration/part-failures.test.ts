@@ -1,21 +1,27 @@
 /**
  * Parts of a claim checked in parts that throw (faults injected with CAIRN_TEST_FAULTS, read by the workers only
  * under NODE_ENV=test): a part that throws is tried again by BullMQ and the claim is decided once, as a single job
- * decides it. Each test runs its own worker on a queue prefix of its own, so the suite's shared worker never takes
- * these jobs.
+ * decides it; a part that throws on every attempt leaves the claim undecided, saying which part failed, how often
+ * and why (in the API and on the claim card), and a re-check runs it again. Each test runs its own worker on a
+ * queue prefix of its own, so the suite's shared worker never takes these jobs.
  */
 import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { workersPerTest } from "./helpers";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { actAs, params, workersPerTest } from "./helpers";
 import { claimJobsStep, A000055, A001349 } from "./claim-jobs-fixture";
 import { models } from "@/models";
-import { verificationSettled } from "@/lib/data/claims";
+import { verificationSettled, type ClaimView } from "@/lib/data/claims";
 import { claimPartJobId, verificationQueue } from "@/lib/jobs/queue";
 import { partsFor } from "@/lib/jobs/claim-parts";
 import { validateClaim, verifyClaim } from "@/lib/core";
 import { Budget } from "@/lib/core/verdict";
+import { ClaimCard } from "@/components/claims/claim-card";
+import * as claimRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/route";
+import * as recheckRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/recheck/route";
 
 const { workers, saved } = workersPerTest(["REDIS_URL", "CAIRN_QUEUE_PREFIX"]);
 const step = claimJobsStep("Parts that fail", workers);
@@ -61,5 +67,50 @@ describe("a part that throws", () => {
     // Connected graphs on ≤ 7 vertices: OEIS A001349. Trees on ≤ 13 vertices: OEIS A000055.
     expect(JSON.parse((await step.claimRow(ids[0]))!.certificate!).evidence.counts).toEqual(A001349.slice(0, 7));
     expect(JSON.parse((await step.claimRow(ids[1]))!.certificate!).evidence.counts).toEqual(A000055.slice(0, 13));
+  }, 300_000);
+
+  it("on every attempt: the claim is undecided saying which part failed, how often and why, on the card too; a re-check decides it", async () => {
+    process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-partfail`;
+    const failing = step.worker({ CAIRN_TEST_FAULTS: "part:2@*" });
+    await failing.ready;
+    const id = (await step.attach([graphs7])).claims[0].id;
+    await verificationSettled(id);
+    const reason = `part 2 of 2 failed 3 times (${fault(2, 3)}), so the claim could not be decided; re-check to try again`;
+    expect(await step.claimRow(id)).toMatchObject({ status: "undecided", method: "worker", reason, certificate: null, verifyRound: 0 });
+    expect(await step.decisions(id)).toBe(1);
+    // Part 1 was stored; part 2 never was, and its job failed for good after three attempts.
+    expect((await partRows(id)).map((p) => p.part)).toEqual([0]);
+    const job = (await partJob(id, 1))!;
+    expect(await job.getState()).toBe("failed");
+    expect(job.attemptsMade).toBe(3);
+
+    // The API and the claim card say the same, with the re-check button for the author.
+    await actAs("author");
+    const shown = (await (await claimRoute.GET(new Request("http://localhost/x"), params({ proofId: step.proofId(), claimId: String(id) }))).json())
+      .claim as ClaimView;
+    expect(shown).toMatchObject({ status: "undecided", method: "worker", reason });
+    const card = renderToStaticMarkup(
+      createElement(ClaimCard, { claim: shown, proofId: Number(step.proofId()), canRecheck: true, canWithdraw: true, onChanged: () => {} }),
+    );
+    expect(card).toContain("why undecided");
+    expect(card).toContain(reason);
+    expect(card).toContain("Re-check");
+
+    // With the fault gone (a worker without it), the author's re-check decides the claim in a new round, as a single job does.
+    failing.stop("SIGKILL");
+    const healthy = step.worker();
+    const name = await step.nameOf(healthy);
+    const res = await recheckRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: step.proofId(), claimId: String(id) }));
+    expect(res.status).toBe(202);
+    expect((await res.json()).claim).toMatchObject({ status: "pending" });
+    await verificationSettled(id);
+    const row = (await step.claimRow(id))!;
+    const want = single(graphs7);
+    expect(row).toMatchObject({ status: want.verdict.status, verifyRound: 1, decidedBy: name });
+    expect(JSON.parse(row.certificate!)).toEqual(want.verdict.certificate);
+    expect(await step.decisions(id)).toBe(2);
+    expect((await partRows(id, 1)).map((p) => p.part)).toEqual([0, 1]);
+    // Connected graphs on ≤ 7 vertices: OEIS A001349.
+    expect(JSON.parse(row.certificate!).evidence.counts).toEqual(A001349.slice(0, 7));
   }, 300_000);
 });
