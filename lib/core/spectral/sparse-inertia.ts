@@ -21,6 +21,7 @@ import { adjacency, Graph } from "../graph";
 import { Budget } from "../verdict";
 import { Rational, rat, add, mul, neg, ZERO } from "../arithmetic/rational";
 import type { EliminationResult, StopRule } from "./tree-inertia";
+import type { InertiaCounts } from "./inertia-counts";
 import { certifiedFrontInertia } from "./float-front";
 import { intervalSparseInertia } from "./interval-elimination";
 import { DegreeQueue } from "./degree-queue";
@@ -187,7 +188,7 @@ export function sparseInertia(
 
   let frontTried = false;
   /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
-  const tryFront = (): { positive: number; negative: number; zero: number; size: number } | undefined => {
+  const tryFront = (): (InertiaCounts & { size: number }) | undefined => {
     const list: number[] = [];
     for (let v = 0; v < n; v++) if (alive[v]) list.push(v);
     const pos = new Map(list.map((v, i) => [v, i]));
