@@ -156,7 +156,7 @@ function subgraphTasks(): BenchTask[] {
 }
 
 function charpolyTasks(): BenchTask[] {
-  return [20, 30, 40, 60, 100].map((n) =>
+  return [20, 30, 40, 60, 100, 200, 300].map((n) =>
     graphTask(
       `G(n,1/2), n=${n}`,
       `gnp-${n}-charpoly`,
