@@ -1,15 +1,14 @@
 import type { ClaimStatus } from "@/lib/review/states";
-import { Mark } from "@/components/ui/mark";
+import { LookMark, type MarkLook } from "@/components/ui/mark";
 
-const look: Record<ClaimStatus, { glyph: string; className: string }> = {
-  verified: { glyph: "✓", className: "text-verified" },
-  refuted: { glyph: "✗", className: "text-refuted" },
-  undecided: { glyph: "?", className: "text-undecided" },
-  pending: { glyph: "◌", className: "text-stone-600" },
+const look: Record<ClaimStatus, MarkLook> = {
+  verified: { glyph: "✓", tone: "text-verified" },
+  refuted: { glyph: "✗", tone: "text-refuted" },
+  undecided: { glyph: "?", tone: "text-undecided" },
+  pending: { glyph: "◌", tone: "text-stone-600", pulse: true },
 };
 
 /** A claim's verdict with a glyph and the word (never colour alone). */
 export function VerdictBadge({ status }: { status: ClaimStatus }) {
-  const l = look[status];
-  return <Mark glyph={l.glyph} word={status} tone={l.className} data={{ "data-verdict": status }} pulse={status === "pending"} />;
+  return <LookMark looks={look} value={status} attribute="data-verdict" />;
 }

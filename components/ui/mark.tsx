@@ -13,3 +13,18 @@ export function Mark({ glyph, word, tone, data, pulse = false }: { glyph: string
     </span>
   );
 }
+
+/** How one value of a verdict or state looks: its glyph, its colour class, and whether the glyph pulses (work under way). */
+export interface MarkLook {
+  glyph: string;
+  tone: string;
+  pulse?: boolean;
+}
+
+/**
+ * The mark of one value of a kind of state, read from the kind's table of looks: the word is the value itself, and the
+ * data attribute (e.g. `data-verdict`) carries it for tests and styles.
+ */
+export function LookMark<V extends string>({ looks, value, attribute }: { looks: Record<V, MarkLook>; value: V; attribute: `data-${string}` }) {
+  return <Mark {...looks[value]} word={value} data={{ [attribute]: value }} />;
+}

@@ -5,7 +5,7 @@ import { models } from "@/models";
 import { refereeLens, type NameLens } from "./blind";
 import type { ProofRole } from "@/lib/access/rules";
 import { buildCaseTree, casesBelow, flattenCaseTree, pruneCaseTree, stepLabel, type CaseNode } from "@/lib/proof-tree";
-import { describeCondition, parseCondition } from "@/lib/core/families/case-condition";
+import { readConditionText } from "@/lib/validations/case";
 import { caseState, isUnresolved, latestVouches, proofState, stepStatus } from "@/lib/review/states";
 import type { CaseFacts, CaseState, ClaimStatus, DisputeState, ProofState, ReviewFact, StepFacts } from "@/lib/review/states";
 
@@ -45,12 +45,9 @@ export interface CaseView {
 
 /** A stored machine-readable condition for display; one that no longer reads is shown as stored, with the problem. */
 function predicateView(json: string | null | undefined): CaseView["predicate"] {
-  if (!json) return null;
-  try {
-    return { json, words: describeCondition(parseCondition(json)) };
-  } catch (e) {
-    return { json, words: `unreadable: ${(e as Error).message}` };
-  }
+  const reading = json ? readConditionText(json) : null;
+  if (!json || !reading) return null;
+  return { json, words: "words" in reading ? reading.words : `unreadable: ${reading.path}: ${reading.problem}` };
 }
 
 export const CASE_STATES: readonly CaseState[] = ["drafting", "claim failing", "under review", "disputed", "settled"];
@@ -132,6 +129,15 @@ export async function liveCases(proofId: number, transaction?: Transaction, lock
   const all = await allCases(proofId, transaction, lock);
   const hidden = hiddenCaseIds(all);
   return all.filter((c) => !hidden.has(c.id));
+}
+
+/** The live sub-cases of a case in their order, numbered as the pages number them (lib/proof-tree.ts), with their stored conditions. */
+export async function subCasesOf(proofId: number, caseId: number): Promise<Array<{ id: number; number: string; title: string; predicate: string | null }>> {
+  const live = await liveCases(proofId);
+  const node = flattenCaseTree(
+    buildCaseTree(live.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title, predicate: c.predicate }))),
+  ).find((n) => n.id === caseId);
+  return (node?.children ?? []).map((k) => ({ id: k.id, number: k.number, title: k.title, predicate: k.predicate ?? null }));
 }
 
 /**

@@ -13,7 +13,8 @@ import { pendingProgress, scheduleVerification, verificationSettled, waitForVerd
 import { bounded, claimJobId, verificationQueue } from "@/lib/jobs/queue";
 import type { ClaimPicture } from "@/lib/verification/picture";
 import type { ClaimStatus } from "@/lib/review/states";
-import { liveCases, stepsOfCases } from "@/lib/data/cases";
+import { liveCases, stepsOfCases, subCasesOf } from "@/lib/data/cases";
+import { subCaseConditionIssue } from "@/lib/validations/case";
 import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
 import { stepInProof } from "@/lib/data/steps";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
@@ -164,9 +165,8 @@ async function readClaims(raw: Record<string, unknown>[]): Promise<ClaimJson[]> 
  */
 async function fillCoverageCases(proofId: number, stepId: number, raw: Record<string, unknown>[]): Promise<Record<string, unknown>[]> {
   if (!raw.some((c) => c.kind === "coverage" && c.cases === undefined)) return raw;
-  const { Step } = models();
-  const step = await Step.findByPk(stepId);
-  const children = (await liveCases(proofId)).filter((c) => step && c.parentId === step.caseId);
+  const step = await models().Step.findByPk(stepId);
+  const children = step ? await subCasesOf(proofId, step.caseId) : [];
   const found: Issue[] = [];
   const out = raw.map((c, i) => {
     if (c.kind !== "coverage" || c.cases !== undefined) return c;
@@ -182,6 +182,10 @@ async function fillCoverageCases(proofId: number, stepId: number, raw: Record<st
       });
       return c;
     }
+    // Each sub-case's condition must fit this claim's setting; the problem names the case and the part that does not fit.
+    const setting = { multigraph: c.setting === "multigraph" };
+    const wrong = children.flatMap((k, j) => subCaseConditionIssue({ ...k, predicate: k.predicate! }, setting, `claims.${i}.cases[${j}].condition`) ?? []);
+    found.push(...wrong);
     return { ...c, cases: children.map((k) => ({ label: k.title, condition: JSON.parse(k.predicate!) as unknown })) };
   });
   if (found.length) throw invalid("Some claims need attention; nothing was saved.", found);

@@ -1,5 +1,12 @@
 import { z } from "./zod";
-import { ConditionError, parseCondition } from "@/lib/core/families/case-condition";
+import type { Issue } from "@/lib/errors";
+import { ConditionError, describeCondition, parseCondition, type ConditionSetting } from "@/lib/core/families/case-condition";
+
+/**
+ * A case stores the whole condition language (patterns with loops and multiple edges, and "branch-vertices"
+ * alike); a coverage claim reads each sub-case's condition again in its own setting when it is made.
+ */
+export const STORED_CONDITION: ConditionSetting = { multigraph: "either" };
 
 const id = z.number().int().positive();
 export const caseTitleSchema = z.string().trim().min(1, "Give the case a title.").max(300, "Keep the title under 300 characters.");
@@ -13,18 +20,43 @@ export const casePredicateSchema = z
   .string()
   .max(20_000, "Keep the machine-readable condition under 20 000 characters.")
   .superRefine((text, ctx) => {
-    if (!text.trim()) return;
-    try {
-      parseCondition(text);
-    } catch (e) {
-      if (!(e instanceof ConditionError)) throw e;
-      ctx.addIssue({ code: "custom", message: `${e.message} (see the condition language in the help: { "predicate": "tree" }, { "and": [ … ] }, …)` });
-    }
+    const reading = readConditionText(text);
+    if (reading && "problem" in reading)
+      ctx.addIssue({
+        code: "custom",
+        message: `${reading.path}: ${reading.problem} (see the condition language in the help: { "predicate": "tree" }, { "and": [ … ] }, …)`,
+      });
   });
+
+/** A condition as typed, read: in words, or the problem at its JSON path; null when the text is empty. The form shows it live, the pages show stored ones. */
+export function readConditionText(text: string): { words: string } | { path: string; problem: string } | null {
+  if (!text.trim()) return null;
+  try {
+    return { words: describeCondition(parseCondition(text, "$", STORED_CONDITION)) };
+  } catch (e) {
+    if (!(e instanceof ConditionError)) throw e;
+    return { path: e.path, problem: e.detail };
+  }
+}
 
 /** The stored form: normalised JSON, or null for none. */
 export function normalisedPredicate(text: string | null | undefined): string | null {
-  return text && text.trim() ? JSON.stringify(parseCondition(text)) : null;
+  return text && text.trim() ? JSON.stringify(parseCondition(text, "$", STORED_CONDITION)) : null;
+}
+
+/**
+ * A sub-case's stored condition read again in a coverage claim's setting (simple graphs, or graphs with
+ * loops and multiple edges): null when it fits, else the problem at `path` (the claim's JSON path of the
+ * condition, extended to the part that does not fit), naming the case by its number.
+ */
+export function subCaseConditionIssue(sub: { number: string; title: string; predicate: string }, setting: ConditionSetting, path: string): Issue | null {
+  try {
+    parseCondition(sub.predicate, path, setting);
+    return null;
+  } catch (e) {
+    if (!(e instanceof ConditionError)) throw e;
+    return { path: e.path, message: `Case ${sub.number} “${sub.title}”: ${e.detail}` };
+  }
 }
 
 /** A case's own fields as its forms edit them (adding a case and editing one). */

@@ -51,6 +51,14 @@ export const MULTIGRAPH_REFUSED: Readonly<Record<string, string>> = {
 export type PlainPredicate = (typeof PLAIN_PREDICATES)[number];
 const ALL_PREDICATES = [...NUMERIC_PREDICATES, ...PLAIN_PREDICATES, "leg-lengths", "contains"] as const;
 
+/**
+ * The graphs a condition is read on: simple graphs (the default), graphs with loops and multiple edges
+ * (`multigraph: true`), or `"either"`: the whole language, as a case stores it before a claim names a setting.
+ */
+export interface ConditionSetting {
+  readonly multigraph?: boolean | "either";
+}
+
 /** Deepest nesting and most nodes a condition may have (it is evaluated once per enumerated graph). */
 export const CONDITION_MAX_DEPTH = 16;
 export const CONDITION_MAX_NODES = 200;
@@ -91,10 +99,13 @@ const EXAMPLE = `e.g. { "predicate": "max-degree", "relation": "<=", "value": 2 
  * Checks a parsed JSON value against the condition language and returns it normalised (pattern
  * graphs read and re-encoded; unknown keys refused). `path` prefixes every error path. With
  * `multigraph`, patterns may carry loops and multiple edges (kept in sparse6) and the predicates of
- * MULTIGRAPH_REFUSED are refused.
+ * MULTIGRAPH_REFUSED are refused. With `multigraph: "either"` (a case's stored condition, before any
+ * claim names a setting) the whole language is accepted; a coverage claim then validates each sub-case's
+ * condition again in its own setting.
  */
-export function validateCondition(json: unknown, path = "$", options: { multigraph?: boolean } = {}): CaseCondition {
+export function validateCondition(json: unknown, path = "$", options: ConditionSetting = {}): CaseCondition {
   const multigraph = options.multigraph === true;
+  const loopedPatterns = options.multigraph !== undefined && options.multigraph !== false;
   let nodes = 0;
   const walk = (v: unknown, p: string, depth: number): CaseCondition => {
     if (++nodes > CONDITION_MAX_NODES) throw new ConditionError(p, `a condition has at most ${CONDITION_MAX_NODES} parts`);
@@ -166,7 +177,7 @@ export function validateCondition(json: unknown, path = "$", options: { multigra
     if (h.n > CONDITION_PATTERN_MAX_VERTICES)
       throw new ConditionError(textPath, `a pattern has at most ${CONDITION_PATTERN_MAX_VERTICES} vertices, got ${h.n}`);
     const simple = isSimple(h);
-    if (!simple && !multigraph)
+    if (!simple && !loopedPatterns)
       throw new ConditionError(textPath, 'the pattern must be a simple graph (no loops, no multiple edges) unless the setting is "multigraph"');
     const stored = simple ? { format: "graph6", text: writeGraph6(h) } : { format: "sparse6", text: writeSparse6(h) };
     return { predicate: "contains", graph: stored, ...(o.induced === true ? { induced: true } : {}) };
@@ -175,7 +186,7 @@ export function validateCondition(json: unknown, path = "$", options: { multigra
 }
 
 /** Parses JSON text and validates it; a syntax error is reported at `path`. */
-export function parseCondition(text: string, path = "$", options: { multigraph?: boolean } = {}): CaseCondition {
+export function parseCondition(text: string, path = "$", options: ConditionSetting = {}): CaseCondition {
   let json: unknown;
   try {
     json = JSON.parse(text);
@@ -219,6 +230,69 @@ export function describeCondition(c: CaseCondition): string {
     default:
       return "relation" in c ? `${NAME[c.predicate]} ${SYMBOL[c.relation]} ${c.value}` : PLAIN_WORDS[c.predicate];
   }
+}
+
+/** Every word a condition may start with: the predicates and the three connectives. */
+export type ConditionWord = NumericPredicate | PlainPredicate | "leg-lengths" | "contains" | "and" | "or" | "not";
+
+/**
+ * What a person may write, one entry per predicate and connective, each with an example: the one list
+ * the case form's help is generated from (conditionGuide). `note` says where the setting matters.
+ */
+const GUIDE: Record<ConditionWord, { means: string; example: unknown; note?: string }> = {
+  "max-degree": { means: "the largest degree Δ(G)", example: { predicate: "max-degree", relation: "<=", value: 2 } },
+  "min-degree": { means: "the smallest degree δ(G)", example: { predicate: "min-degree", relation: ">=", value: 2 } },
+  "branch-vertices": {
+    means: "how many vertices have degree 3 or more",
+    example: { predicate: "branch-vertices", relation: "=", value: 1 },
+    note: "not with loops and multiple edges: a coverage claim in that setting refuses it",
+  },
+  vertices: { means: "the number of vertices", example: { predicate: "vertices", relation: "<=", value: 8 } },
+  edges: { means: "the number of edges (a loop counts once)", example: { predicate: "edges", relation: "<", value: 10 } },
+  loops: { means: "the number of loops", example: { predicate: "loops", relation: "=", value: 0 } },
+  "multiple-edges": { means: "how many pairs of vertices are joined by two or more edges", example: { predicate: "multiple-edges", relation: "<=", value: 1 } },
+  "max-multiplicity": { means: "the most edges joining two vertices", example: { predicate: "max-multiplicity", relation: "<=", value: 2 } },
+  tree: { means: "G is connected and has no cycle", example: { predicate: "tree" } },
+  connected: { means: "G is in one piece", example: { predicate: "connected" } },
+  bipartite: { means: "the vertices split into two sides with no edge (and no loop) inside a side", example: { predicate: "bipartite" } },
+  "has-cycle": { means: "G has a cycle (a loop and a double edge are cycles)", example: { predicate: "has-cycle" } },
+  path: { means: "G is a path", example: { predicate: "path" } },
+  simple: { means: "G has no loop and no multiple edge", example: { predicate: "simple" } },
+  "leg-lengths": {
+    means: "G is a tree with one branch vertex whose legs have these lengths, in any order",
+    example: { predicate: "leg-lengths", value: [1, 2, 5] },
+  },
+  contains: {
+    means: 'G has the pattern as a subgraph ("induced": true for an induced one); the pattern as graph6 text or { "format": "edges", "text": … }',
+    example: { predicate: "contains", graph: { format: "edges", text: "0 1\n1 1" } },
+    note: 'a pattern with a loop ("1 1") or a multiple edge ("0 1 2") only under a coverage claim on graphs with loops and multiple edges',
+  },
+  and: { means: "every part holds", example: { and: [{ predicate: "tree" }, { predicate: "max-degree", relation: "<=", value: 3 }] } },
+  or: { means: "at least one part holds", example: { or: [{ predicate: "path" }, { predicate: "has-cycle" }] } },
+  not: { means: "the part does not hold (this is how a subgraph is excluded)", example: { not: { predicate: "contains", graph: "Bw" } } },
+};
+
+export interface ConditionGuideEntry {
+  readonly word: ConditionWord;
+  readonly means: string;
+  /** The example as JSON text, and as describeCondition reads it. */
+  readonly example: string;
+  readonly reads: string;
+  readonly note?: string;
+}
+
+/** The condition language, one entry per word with an example and its reading (generated: the examples are validated here). */
+export function conditionGuide(): ConditionGuideEntry[] {
+  return (Object.keys(GUIDE) as ConditionWord[]).map((word) => {
+    const { means, example, note } = GUIDE[word];
+    return {
+      word,
+      means,
+      example: JSON.stringify(example),
+      reads: describeCondition(validateCondition(example, "$", { multigraph: "either" })),
+      ...(note ? { note } : {}),
+    };
+  });
 }
 
 /** What is computed once per graph and shared by every condition evaluated on it. */

@@ -7,6 +7,7 @@
 import { Rational } from "../arithmetic/rational";
 import type { StopRule } from "./tree-inertia";
 import type { PivotStep } from "./sparse-inertia";
+import type { InertiaCounts } from "./inertia-counts";
 
 export type Relation = "<" | "<=" | "=" | ">=" | ">";
 export const RELATIONS: readonly Relation[] = ["<", "<=", "=", ">=", ">"];
@@ -21,17 +22,14 @@ export type SpectralRadiusCertificate =
    * floating-point check of float-front.ts (a proof: a-priori rounding bounds and Gershgorin discs,
    * zeros by exact integer kernel vectors), which the re-check repeats on the same exact matrix.
    */
-  | {
+  | ({
       kind: "inertia";
       at: string;
       engine: "forest" | "sparse";
       steps?: PivotStep[];
       signs?: string;
       front?: number;
-      positive: number;
-      negative: number;
-      zero: number;
-    }
+    } & InertiaCounts)
   /**
    * Forest: the Jacobs–Trevisan elimination of (at)I − A with the given stop rule stops at vertex
    * `stoppedAt` on a value of sign `sign` (every earlier value positive): ρ >= at (ρ > at when sign is -1).
@@ -69,7 +67,7 @@ export type SpectralRadiusCertificate =
   | { kind: "sturm"; charpoly: string[]; lo: string; hi: string; rootsAbove: number; boundIsEigenvalue: boolean };
 
 /** ρ versus `at` from the complete inertia of (at)I − A (Perron–Frobenius: ρ = λ_max). */
-export function inertiaRelation(r: { negative: number; zero: number }): Relation {
+export function inertiaRelation(r: Pick<InertiaCounts, "negative" | "zero">): Relation {
   return r.negative > 0 ? ">" : r.zero > 0 ? "=" : "<";
 }
 

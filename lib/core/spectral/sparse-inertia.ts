@@ -21,6 +21,7 @@ import { adjacency, Graph } from "../graph";
 import { Budget } from "../verdict";
 import { Rational, rat, add, mul, neg, ZERO } from "../arithmetic/rational";
 import type { EliminationResult, StopRule } from "./tree-inertia";
+import type { InertiaCounts } from "./inertia-counts";
 import { certifiedFrontInertia, deflate, frontRowsKernel } from "./float-front";
 import { intervalElimination, type IntervalHint } from "./interval-elimination";
 import { DegreeQueue } from "./degree-queue";
@@ -207,7 +208,7 @@ export function sparseInertia(
     return { list, rowsN };
   };
   /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
-  const tryFront = (): { positive: number; negative: number; zero: number; size: number } | undefined => {
+  const tryFront = (): (InertiaCounts & { size: number }) | undefined => {
     const { list, rowsN } = frontRows();
     const r = certifiedFrontInertia(rowsN, D[t], (s) => budget.tick(s));
     return r && { ...r, size: list.length };

@@ -19,13 +19,11 @@ import { adjacency, Graph } from "../graph";
 import { Budget } from "../verdict";
 import type { Rational } from "../arithmetic/rational";
 import { Field, LAZY_RATIONALS, nextUp, nextDown } from "../arithmetic/number-field";
+import type { InertiaCounts } from "./inertia-counts";
 
 export type StopRule = "none" | "nonPositive" | "negative";
 
-export interface EliminationResult<T = Rational> {
-  positive: number;
-  negative: number;
-  zero: number;
+export interface EliminationResult<T = Rational> extends InertiaCounts {
   /** False when an early stop cut the run short (the counts then cover only the eliminated part). */
   complete: boolean;
   /** Vector with x^T (bI - A) x = witnessValue, present when the run stopped early. */
