@@ -86,7 +86,8 @@ export {
 export { SMITH_FAMILIES, parseFamilyName, familyDisplay, isSmithFamily, type SmithFamily } from "./families/smith-families";
 
 // Enumeration and coverage in independent parts (the job engine spreads them; the checker may re-run any).
-export { enumeratePart, mergeParts, type PartResult, type EnumerationSetting, type GenerationOptions } from "./families/augmentation";
+export { type EnumerationSetting, type GenerationOptions } from "./families/augmentation";
+export { enumeratePart, mergeParts, type PartResult } from "./families/augmentation-parts";
 export {
   coveragePart,
   mergeCoverageParts,

@@ -19,7 +19,8 @@ import { isConnected } from "./structure";
 import { isForest } from "../spectral/tree-inertia";
 import { canonicalKeyOf } from "./canonical-label";
 import { ENUMERATION_MAX_VERTICES, type EnumerationSetting as ClaimEnumerationSetting } from "../claims/claim-schema";
-import { EnumerationSetting, GENERATION_MAX_VERTICES, GenerationStatistics, SIMPLE, generateConnected, mergeParts } from "./augmentation";
+import { EnumerationSetting, GENERATION_MAX_VERTICES, GenerationStatistics, SIMPLE, generateConnected } from "./augmentation";
+import { mergeParts } from "./augmentation-parts";
 
 export type EnumerationRelation = "<" | "<=";
 

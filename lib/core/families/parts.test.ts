@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 import { Budget } from "../verdict";
 import { canonicalKeyOf } from "./canonical-label";
-import { enumeratePart, mergeParts, type EnumerationSetting } from "./augmentation";
+import { type EnumerationSetting } from "./augmentation";
+import { enumeratePart, mergeParts } from "./augmentation-parts";
 import { checkCoverage, coveragePart, mergeCoverageParts, coverageVerdict, recheckCoverage, type CoverageCase } from "./coverage";
 import { validateCondition } from "./case-condition";
 
