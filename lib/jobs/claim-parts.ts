@@ -14,7 +14,8 @@ import type { Job } from "bullmq";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkedInParts } from "../core/claims/claims";
-import { boundApprox, parseBound } from "../core/arithmetic/bound";
+import { parseBound } from "../core/arithmetic/bound";
+import { fewPerOrder } from "../core/families/few-per-order";
 import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
@@ -28,15 +29,15 @@ const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || 
 
 /**
  * How many parts a claim is checked in: 1 for kinds that are not enumerations, below the split order
- * of its setting, and for enumerations under a bound below 2.1 (those families have a handful of
- * graphs per order, so every part would repeat most of the work); otherwise 2, doubling with each
- * order above it, up to maxParts. The float value of the bound only chooses K; the verdict is exact.
+ * of its setting, and for enumerations under a bound b ≤ √(2+√5) (those families have a handful of
+ * graphs per order, families/few-per-order.ts, so every part would repeat most of the work); otherwise
+ * 2, doubling with each order above it, up to maxParts.
  */
 export function partsFor(claim: ClaimJson): number {
   if (!checkedInParts(claim) || (claim.kind !== "enumeration" && claim.kind !== "coverage")) return 1;
   if (claim.kind === "enumeration") {
     try {
-      if (boundApprox(parseBound(claim.bound)) < 2.1) return 1;
+      if (fewPerOrder(parseBound(claim.bound))) return 1;
     } catch {
       return 1; // an unreadable bound is reported by the single check
     }
