@@ -22,7 +22,7 @@ import { isForest, treeInertia, EliminationResult, StopRule } from "./tree-inert
 import { FOREST_CHARPOLY_LIMIT, forestEigenvalueCount } from "./forest-charpoly";
 import { sparseInertia, FLOAT_FRONT_DEGREE } from "./sparse-inertia";
 import { Relation, RELATIONS, SYMBOL, SpectralRadiusCertificate, CERTIFICATE_KIND, implies, explain } from "./radius-certificate";
-import { PROBE_BITS, runAt, vectorFirst, VECTOR_METHOD, algebraicElimination, sturmCertificate } from "./radius-probes";
+import { PROBE_BITS, runAt, vectorFirst, VECTOR_METHOD, algebraicElimination, sturmCertificate, floatDefinite } from "./radius-probes";
 
 export { CERTIFICATE_KIND, implies, type Relation, type SpectralRadiusCertificate } from "./radius-certificate";
 export { recheckSpectralRadiusBound } from "./radius-recheck";
@@ -72,6 +72,18 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
         VECTOR_METHOD[quick.rel === ">" ? "rayleigh" : "collatz-wielandt"],
         quick.at ? [`b lies below the rational ${ratToString(quick.at)}`] : [],
       );
+    // A graph with cycles: bI − A positive definite by one certified floating-point run at b's double enclosure
+    // (no rational probes); the certificate is the complete elimination over Q(b), which it implies.
+    if (!isForest(g) && floatDefinite(g, b, budget)) {
+      const cert: SpectralRadiusCertificate = {
+        kind: "algebraic-sparse",
+        stop: stop === "negative" ? "negative" : "nonPositive",
+        complete: true,
+        positive: g.n,
+        zero: 0,
+      };
+      return verdictFrom("<", cert, "certified floating-point elimination at a double enclosure of b (every pivot and the dense front's discs clear of 0)");
+    }
     for (const bits of PROBE_BITS) {
       const { lo, hi } = enclose(b, bits);
       const below = runAt(g, lo, "nonPositive", budget, true);
@@ -117,6 +129,7 @@ export function spectralRadiusSign(g: Graph, op: "<" | "<=", b: Bound, budget: B
     // Complete under "nonPositive": every pivot positive, ρ < b; under "negative": none negative, ρ ≤ b.
     return eliminate(b.value, stop).complete;
   }
+  if (!isForest(g) && floatDefinite(g, b, budget)) return true; // bI − A positive definite: ρ < b
   for (const bits of [20, 50]) {
     const { lo, hi } = enclose(b, bits);
     if (eliminate(lo, "nonPositive").complete) return true; // ρ < lo < b

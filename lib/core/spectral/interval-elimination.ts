@@ -51,6 +51,12 @@ const UP = 1 + 2 ** -48;
 const TINY = 2 ** -550;
 const MIN_PIVOT = 2 ** -400;
 const MAX_ENTRY = 2 ** 400;
+/**
+ * A certified pivot this small against its row is set aside too (while other vertices remain): dividing by
+ * it would multiply the error bounds of its neighbours by about (row / pivot)². An accuracy rule, not a
+ * correctness one: any certified pivot is a valid step.
+ */
+const SMALL_PIVOT = 2 ** -16;
 
 /** The shape of sparse-inertia.ts's result, complete (no early stop): every count is certified. */
 export interface IntervalEliminationResult {
@@ -173,7 +179,9 @@ export function intervalElimination(
     const d = diag[piv];
     const absD = Math.abs(d.m);
     const low = (absD - d.r) * (1 - 4 * U); // rounded down: a lower bound of |d|
-    if (!(absD > d.r) || !(absD >= MIN_PIVOT) || !(low > 0)) {
+    let rowMax = 0;
+    if (!replay) for (const c of rows[piv].values()) rowMax = Math.max(rowMax, Math.abs(c.m));
+    if (!(absD > d.r) || !(absD >= MIN_PIVOT) || !(low > 0) || (absD < SMALL_PIVOT * rowMax && eligibleCount > 1)) {
       // The interval holds 0 (or NaN), or underflow looms: not usable now. A replayed order must use it.
       if (replay) return {};
       eligible[piv] = 0;

@@ -14,6 +14,11 @@ import { add, rat, sub, type Rational } from "../arithmetic/rational";
 import { Budget } from "../verdict";
 import type { Graph } from "../graph";
 import { cubicWorkload, sparseGraphWorkload, workloadGraph } from "../../../tests/bench/workloads";
+import { enclose, parseBound, type Bound } from "../arithmetic/bound";
+import { AlgebraicField, rationalEnclosure } from "../arithmetic/number-field";
+import { fieldSparseDefiniteness } from "./field-sparse-inertia";
+import { floatDefinite } from "./radius-probes";
+import { perronApproximation } from "./perron";
 
 const big = () => new Budget(1e13);
 const counts = (r: { positive: number; negative: number; zero: number }) => [r.positive, r.negative, r.zero];
@@ -195,3 +200,75 @@ function workloadGraphAdjacency(g: Graph): { start: Int32Array; nbr: Int32Array 
   for (const e of g.edges) ((nbr[fill[e.u]++] = e.v), (nbr[fill[e.v]++] = e.u));
   return { start, nbr };
 }
+
+describe("an irrational b inside the floating-point elimination (a double enclosure of b)", () => {
+  /** The double enclosure the verdicts use: b's rational enclosure at 64 bits, each end rounded outward. */
+  const doubleEnclosure = (b: Bound & { kind: "algebraic" }) => {
+    const { lo, hi } = enclose(b, 64);
+    return { lo: rationalEnclosure(lo)![0], hi: rationalEnclosure(hi)![1] };
+  };
+  const algebraic = (text: string) => parseBound(text) as Bound & { kind: "algebraic" };
+
+  it("cycles C_n at b = 2cos(2πk/n) irrational (an eigenvalue of multiplicity 2; Brouwer & Haemers §1.4.3) decline, and at b ± 2^-20, 2^-40 count as the spectrum says", () => {
+    let tried = 0,
+      decided = 0;
+    for (const n of [7, 10, 16, 30]) {
+      const g = cycle(n);
+      const eig = Array.from({ length: n }, (_, j) => 2 * Math.cos((2 * Math.PI * j) / n));
+      for (const k of [1, 2, 3]) {
+        const value = 2 * Math.cos((2 * Math.PI * k) / n);
+        if (Math.abs(value - Math.round(value)) < 1e-9) continue; // rational: the tests above
+        // At b itself: the zero cannot be proven in floating point (no rational kernel vector), so the run declines.
+        const at = intervalElimination(g, doubleEnclosure(algebraic(`2cos(${2 * k}pi/${n})`)), FLOAT_FRONT_DEGREE, () => {});
+        expect(at.result, `C_${n} at 2cos(2π${k}/${n})`).toBeUndefined();
+        for (const [s, e] of [
+          ["+", 20],
+          ["-", 20],
+          ["+", 40],
+          ["-", 40],
+        ] as const) {
+          const b = algebraic(`2cos(${2 * k}pi/${n}) ${s} 2^-${e}`);
+          const bf = value + (s === "+" ? 1 : -1) * 2 ** -e;
+          // Eigenvalues are at least ~10^-3 apart here, far above 2^-40 and the float cosine's error.
+          const want = [eig.filter((x) => x < bf).length, eig.filter((x) => x > bf).length, 0];
+          expect(want[0] + want[1]).toBe(n);
+          const r = intervalElimination(g, doubleEnclosure(b), FLOAT_FRONT_DEGREE, () => {}).result;
+          // Near a double eigenvalue the error bounds grow through small pivots: the run may decline, never miscount.
+          tried++;
+          if (r) {
+            decided++;
+            expect(counts(r), `C_${n}, 2cos(2π${k}/${n}) ${s} 2^-${e}`).toEqual(want);
+          }
+        }
+      }
+    }
+    // A usefulness check, not a correctness one: most of these are decided in floating point.
+    expect(decided).toBeGreaterThan(tried / 2);
+  });
+
+  it("random degree-3 graphs at b = √r within 10^-12 and 10^-6 of ρ: the verdict agrees with the exact elimination over Q(b), and its certificate re-checks", () => {
+    for (const n of [40, 80]) {
+      const g = workloadGraph(sparseGraphWorkload(n));
+      const rho = perronApproximation(g, 100_000, 1e-15).rho;
+      for (const eps of [1e-12, -1e-12, 1e-6, -1e-6]) {
+        const text = `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})`;
+        const b = algebraic(text);
+        // The reference: minimum-degree elimination with exact arithmetic in Q(b) (field-sparse-inertia.ts).
+        const ref = fieldSparseDefiniteness(g, new AlgebraicField(b, big()), new AlgebraicField(b, big()).generator, "nonPositive", big());
+        const pd = ref.complete && ref.zero === 0;
+        expect(pd, `n ${n}, ρ ${eps}`).toBe(eps > 0);
+        if (pd) expect(floatDefinite(g, b, big()), `n ${n}, ρ + ${eps}`).toBe(true);
+        const v = spectralRadiusBound(g, "<", text, big());
+        expect(v.status, `n ${n}, ρ ${eps}`).toBe(pd ? "verified" : "refuted");
+        const re = recheckSpectralRadiusBound(g, "<", text, v.status as "verified" | "refuted", v.certificate);
+        expect(re.status, re.reason).toBe("verified");
+        if (pd) {
+          expect(v.certificate?.kind).toBe("algebraic-sparse");
+          // A claim of one zero pivot (ρ = b) instead of none is rejected.
+          const forged = { ...(v.certificate as object), positive: n - 1, zero: 1 };
+          expect(recheckSpectralRadiusBound(g, "<", text, "verified", forged).status).toBe("refuted");
+        }
+      }
+    }
+  });
+});

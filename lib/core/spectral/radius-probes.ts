@@ -9,7 +9,8 @@ import { Budget } from "../verdict";
 import { Rational, add, cmp, mul, rat, ratToString, sign, sub, ZERO } from "../arithmetic/rational";
 import { Bound, boundApprox, enclose, boundPolynomial } from "../arithmetic/bound";
 import { isForest, treeInertia, treeInertiaOver, StopRule } from "./tree-inertia";
-import { AlgebraicField } from "../arithmetic/number-field";
+import { AlgebraicField, rationalEnclosure } from "../arithmetic/number-field";
+import { intervalElimination } from "./interval-elimination";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, FLOAT_FRONT_DEGREE, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
@@ -131,6 +132,21 @@ export function vectorFirst(g: Graph, b: Bound, budget: Budget): { rel: Relation
 
 type AlgebraicCertificate = SpectralRadiusCertificate & { kind: "algebraic-tree" | "algebraic-sparse" };
 
+/**
+ * bI − A positive definite for an irrational b, shown by the certified floating-point elimination with b
+ * replaced by a double enclosure of it (interval-elimination.ts; from b's rational enclosure at 64 bits, each
+ * end rounded outward): every pivot and the front's discs are then certified for every b in the enclosure.
+ * True only when proven; false when some eigenvalue is within the error bound of b, or above it.
+ */
+export function floatDefinite(g: Graph, b: Bound & { kind: "algebraic" }, budget: Budget): boolean {
+  const { lo, hi } = enclose(b, 64);
+  const l = rationalEnclosure(lo),
+    h = rationalEnclosure(hi);
+  if (!l || !h) return false;
+  const r = intervalElimination(g, { lo: l[0], hi: h[1] }, FLOAT_FRONT_DEGREE, (s) => budget.tick(s)).result;
+  return r !== undefined && r.negative === 0 && r.zero === 0;
+}
+
 /** Exact elimination over Q(b) (Jacobs–Trevisan on forests, sparse otherwise): the fact about ρ versus b, and the certificate. */
 export function algebraicElimination(
   g: Graph,
@@ -145,6 +161,10 @@ export function algebraicElimination(
   if (kind === "algebraic-tree") {
     const r = treeInertiaOver(g, F, F.generator, st, budget);
     out = r.complete ? r : { ...r, sign: F.sign(r.witnessValue!) < 0 ? -1 : 0 };
+  } else if (floatDefinite(g, b, budget)) {
+    // Positive definite: every pivot of the exact elimination is positive, in any order, so it runs to the end
+    // with n positive pivots; that outcome is stated without computing it in Q(b).
+    out = { complete: true, positive: g.n, zero: 0 };
   } else out = fieldSparseDefiniteness(g, F, F.generator, st, budget);
   if (out.complete) return { rel: out.zero > 0 ? "=" : "<", cert: { kind, stop: st, complete: true, positive: out.positive, zero: out.zero } };
   return { rel: out.sign! < 0 ? ">" : ">=", cert: { kind, stop: st, complete: false, positive: 0, zero: 0, stoppedAt: out.stoppedAt, sign: out.sign } };
