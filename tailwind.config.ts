@@ -2,7 +2,7 @@ import type { Config } from "tailwindcss";
 
 /**
  * Cairn's palette: weathered stone neutrals with one accent, "lichen" (a deep green-teal).
- * Verdict colours always travel with a shape and a word (see components/ui/verdict-badge.tsx).
+ * Verdict colours always travel with a shape and a word (see components/ui/mark.tsx).
  */
 const config: Config = {
   content: ["./app/**/*.{ts,tsx}", "./components/**/*.{ts,tsx}"],

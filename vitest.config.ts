@@ -12,7 +12,12 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", environment: "node", include: ["lib/**/*.test.ts", "tests/unit/**/*.test.{ts,tsx}"], testTimeout: 60_000 },
+        test: {
+          name: "unit",
+          environment: "node",
+          include: ["lib/**/*.test.ts", "tests/unit/**/*.test.{ts,tsx}", "tests/bench/**/*.test.ts"],
+          testTimeout: 60_000,
+        },
       },
       {
         extends: true,

@@ -38,6 +38,12 @@ export function ClaimCard(props: {
     if (window.confirm("Withdraw this claim? It stays in the history with your name, but no longer counts for the step, the case or an export."))
       void act("DELETE", "");
   };
+  // The buttons at the end of the claim's top line, the first pushed to the right; one look for all.
+  const actions = [
+    canRecheck && claim.status !== "pending" && { label: "↻ Re-check", run: recheck },
+    canRecheck && claim.status === "pending" && { label: "■ Cancel check", run: () => void act("POST", "/cancel") },
+    canWithdraw && { label: "⨯ Withdraw", run: withdraw },
+  ].filter((a) => a !== false);
   const first = claim.picture?.pictures[0];
   return (
     <li className="rounded border border-stone-200 bg-white p-4" data-testid="claim" data-claim-id={claim.id}>
@@ -45,31 +51,17 @@ export function ClaimCard(props: {
         <VerdictBadge status={claim.status} />
         <span className="font-mono text-sm text-stone-500">{claim.kind}</span>
         <span className="font-semibold">{claim.statement ?? "being checked…"}</span>
-        {canRecheck && claim.status !== "pending" && (
-          <button type="button" onClick={recheck} disabled={busy} className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100">
-            ↻ Re-check
-          </button>
-        )}
-        {canRecheck && claim.status === "pending" && (
+        {actions.map((a, i) => (
           <button
+            key={a.label}
             type="button"
-            onClick={() => void act("POST", "/cancel")}
+            onClick={a.run}
             disabled={busy}
-            className="ml-auto rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100"
+            className={`${i === 0 ? "ml-auto " : ""}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}
           >
-            ■ Cancel check
+            {a.label}
           </button>
-        )}
-        {canWithdraw && (
-          <button
-            type="button"
-            onClick={withdraw}
-            disabled={busy}
-            className={`${canRecheck ? "" : "ml-auto "}rounded border border-stone-300 px-2 py-0.5 text-sm hover:bg-stone-100`}
-          >
-            ⨯ Withdraw
-          </button>
-        )}
+        ))}
       </div>
       <section aria-label="inputs" className="mt-2" data-testid="claim-card-inputs">
         <h4 className="text-xs uppercase tracking-wide text-stone-500">Inputs</h4>

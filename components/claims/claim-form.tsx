@@ -2,24 +2,23 @@
 import { ClaimPanel } from "./claim-panel";
 import { useState } from "react";
 import { ClaimPreview } from "./claim-preview";
-import { useForm, type UseFormRegister } from "react-hook-form";
+import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useSWRConfig } from "swr";
 import { claimFormSchema, claimFromForm, emptyClaimForm, formFieldOf, type ClaimForm } from "@/lib/validations/claim";
 import {
   CLAIM_KINDS,
-  GRAPH_FORMATS,
   RELATIONS,
   STRUCTURE_PREDICATES,
   DEGREE_RELATIONS,
   ENUMERATION_MAX_VERTICES,
   COVERAGE_MAX_VERTICES,
-  MULTIGRAPH_MAX_WEIGHT,
   namesMultilacedType,
 } from "@/lib/core/claims/claim-schema";
 import { ApiError, apiFetch } from "@/components/proof/api-client";
 import { FormField, SubmitRow } from "@/components/proof/form-field";
 import { DynkinFields } from "./dynkin-fields";
+import { ClaimTextField, GraphRangeFields, GraphTextField } from "./claim-fields";
 import { claimInputClass } from "./claim-input-class";
 
 const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
@@ -38,86 +37,12 @@ const KIND_LABEL: Record<(typeof CLAIM_KINDS)[number], string> = {
 
 const input = claimInputClass;
 
-/** A graph's text box with its format picker: G (`graph`) or the pattern(s) H and the enumeration's list (`pattern`). */
-function GraphTextField({
-  which,
-  register,
-  err,
-  label,
-  hint,
-  rows,
-  name,
-}: {
-  which: "graph" | "pattern";
-  register: UseFormRegister<ClaimForm>;
-  err: (f: keyof ClaimForm) => string | undefined;
-  label: string;
-  hint: string;
-  rows: number;
-  /** The text box's accessible name. */
-  name: string;
-}) {
-  const [format, text] = which === "graph" ? (["graphFormat", "graphText"] as const) : (["patternFormat", "patternText"] as const);
-  return (
-    <FormField label={label} hint={hint} error={err(text)}>
-      <div className="flex gap-2">
-        <select
-          {...register(format)}
-          className="rounded border border-stone-300 bg-white px-1 py-1 font-mono text-xs"
-          aria-label={which === "graph" ? "format of G" : "format of H"}
-        >
-          {GRAPH_FORMATS.map((f) => (
-            <option key={f} value={f}>
-              {f}
-            </option>
-          ))}
-        </select>
-        <textarea {...register(text)} rows={rows} className={input} aria-label={name} />
-      </div>
-    </FormField>
-  );
-}
+/** The forms a bound may take. */
+const BOUND_HINT = "2, 7/2, (1+sqrt(5))/2, phi, 1+sqrt(2), sqrt(2+sqrt(5)), 2cos(pi/7), root(x^3-x-1, 1, 2)";
 
-/**
- * The graphs an enumeration or coverage claim runs over: N, the setting, and the two bounds of the multigraph
- * setting when it is chosen. `limit` says how large N may be for this kind of claim.
- */
-function GraphRangeFields({
-  register,
-  err,
-  multigraph,
-  limit,
-}: {
-  register: UseFormRegister<ClaimForm>;
-  err: (f: keyof ClaimForm) => string | undefined;
-  multigraph: boolean;
-  limit: string;
-}) {
-  return (
-    <>
-      <FormField label="N, the largest number of vertices" hint={limit} error={err("maxVertices")}>
-        <input {...register("maxVertices")} className={input} aria-label="largest number of vertices" />
-      </FormField>
-      <FormField label="Which graphs" error={err("enumerationSetting")}>
-        <select {...register("enumerationSetting")} className={input} aria-label="which graphs are enumerated">
-          <option value="simple">connected simple graphs</option>
-          <option value="tree">trees</option>
-          <option value="multigraph">connected graphs with loops and multiple edges</option>
-        </select>
-      </FormField>
-      {multigraph && (
-        <div className="flex gap-2">
-          <FormField label="Largest edge multiplicity" hint={`1 to ${MULTIGRAPH_MAX_WEIGHT}`} error={err("maxMultiplicity")}>
-            <input {...register("maxMultiplicity")} className={input} aria-label="largest edge multiplicity" />
-          </FormField>
-          <FormField label="Largest loop weight" hint={`0 to ${MULTIGRAPH_MAX_WEIGHT} (the diagonal entry of A)`} error={err("maxLoop")}>
-            <input {...register("maxLoop")} className={input} aria-label="largest loop weight" />
-          </FormField>
-        </div>
-      )}
-    </>
-  );
-}
+/** The coverage claim's sub-cases, as the JSON box expects them. */
+const CASES_HINT =
+  'e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]';
 
 /** Attaches a claim of any kind the core offers; problems come back per field and are shown beside it. */
 export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number }) {
@@ -130,6 +55,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
   const kind = watch("kind");
   const predicate = watch("predicate");
   const err = (f: keyof ClaimForm) => formState.errors[f]?.message;
+  const fields = { register, err };
   const twoGraphs = kind === "subgraph" || kind === "exclusion";
   const enumeration = kind === "enumeration";
   const coverage = kind === "coverage";
@@ -172,8 +98,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       {twoGraphs && (
         <GraphTextField
           which="pattern"
-          register={register}
-          err={err}
+          {...fields}
           label={kind === "exclusion" ? "Excluded patterns H₁, H₂, …" : "Pattern H"}
           hint={kind === "exclusion" ? "separate patterns by a line ---" : "e.g. star(5)"}
           rows={2}
@@ -183,32 +108,30 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       {coverage && (
         <>
           <GraphRangeFields
-            register={register}
-            err={err}
+            {...fields}
             multigraph={watch("enumerationSetting") === "multigraph"}
             limit={`at most ${COVERAGE_MAX_VERTICES.simple} for connected simple graphs, ${COVERAGE_MAX_VERTICES.tree} for trees; with loops and multiple edges it depends on the two bounds (e.g. 7 for multiplicity 1 and loops 1)`}
           />
-          <FormField
+          <ClaimTextField
+            {...fields}
+            field="cases"
             label="Sub-cases and their machine-readable conditions (JSON)"
-            hint='e.g. [{ "label": "1", "condition": { "predicate": "max-degree", "relation": "<=", "value": 2 } }, { "label": "2", "condition": { "not": { "predicate": "tree" } } }]'
-            error={err("cases")}
-          >
-            <textarea {...register("cases")} rows={5} className={input} aria-label="sub-cases" />
-          </FormField>
+            hint={CASES_HINT}
+            rows={5}
+            name="sub-cases"
+          />
         </>
       )}
       {enumeration && (
         <>
           <GraphRangeFields
-            register={register}
-            err={err}
+            {...fields}
             multigraph={watch("enumerationSetting") === "multigraph"}
             limit={`at most ${ENUMERATION_MAX_VERTICES}; larger N may run out of time and stay undecided`}
           />
           <GraphTextField
             which="pattern"
-            register={register}
-            err={err}
+            {...fields}
             label="The graphs, all of them"
             hint="connected graphs of the setting, separated by a line ---; e.g. A(5) --- D(5); a loop of weight m at v is the edge line v v m"
             rows={4}
@@ -219,8 +142,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
       {!enumeration && !coverage && !multilaced && (
         <GraphTextField
           which="graph"
-          register={register}
-          err={err}
+          {...fields}
           label={twoGraphs ? "Host G" : kind === "dynkin-data" ? "Graph G (optional; A, D, E only)" : "Graph G"}
           hint="named (e.g. E~(8), two_branch(1,2; 3; 1,1)), edge list, adjacency matrix, graph6 or sparse6"
           rows={3}
@@ -236,9 +158,7 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
               ))}
             </select>
           </FormField>
-          <FormField label="Bound b" hint="2, 7/2, (1+sqrt(5))/2, phi, 1+sqrt(2), sqrt(2+sqrt(5)), 2cos(pi/7), root(x^3-x-1, 1, 2)" error={err("bound")}>
-            <input {...register("bound")} className={input} aria-label="bound" />
-          </FormField>
+          <ClaimTextField {...fields} field="bound" label="Bound b" hint={BOUND_HINT} name="bound" />
         </div>
       )}
       {!enumeration && !coverage && (
@@ -249,40 +169,22 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
           onBaseOne={() => setValue("graphText", `base = 1\n${watch("graphText")}`, { shouldDirty: true })}
         />
       )}
-      {kind === "vector-certificate" && (
-        <FormField label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" error={err("vector")}>
-          <input {...register("vector")} className={input} />
-        </FormField>
-      )}
+      {kind === "vector-certificate" && <ClaimTextField {...fields} field="vector" label="Vector x" hint="one rational per vertex, e.g. 1, 2, 3/2" />}
       {twoGraphs && (
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" {...register("induced")} /> induced
         </label>
       )}
       {kind === "subgraph" && (
-        <FormField label="Embedding (optional)" hint="host vertex of each pattern vertex, e.g. 0, 3, 4" error={err("embedding")}>
-          <input {...register("embedding")} className={input} />
-        </FormField>
+        <ClaimTextField {...fields} field="embedding" label="Embedding (optional)" hint="host vertex of each pattern vertex, e.g. 0, 3, 4" />
       )}
-      {kind === "identification" && (
-        <FormField label="Type (optional)" hint="e.g. E7, affine D5" error={err("family")}>
-          <input {...register("family")} className={input} />
-        </FormField>
-      )}
-      {kind === "dynkin-data" && <DynkinFields register={register} err={err} />}
-      {kind === "characteristic-polynomial" && (
-        <FormField label="Coefficients (optional)" hint="from xⁿ down to x⁰" error={err("coefficients")}>
-          <input {...register("coefficients")} className={input} />
-        </FormField>
-      )}
+      {kind === "identification" && <ClaimTextField {...fields} field="family" label="Type (optional)" hint="e.g. E7, affine D5" />}
+      {kind === "dynkin-data" && <DynkinFields {...fields} />}
+      {kind === "characteristic-polynomial" && <ClaimTextField {...fields} field="coefficients" label="Coefficients (optional)" hint="from xⁿ down to x⁰" />}
       {kind === "eigenvalues" && (
         <div className="flex gap-3">
-          <FormField label="h" error={err("h")}>
-            <input {...register("h")} className={input} />
-          </FormField>
-          <FormField label="Multiset of m" hint="e.g. 1, 7, 11, 13, 17, 19, 23, 29" error={err("multiset")}>
-            <input {...register("multiset")} className={input} />
-          </FormField>
+          <ClaimTextField {...fields} field="h" label="h" />
+          <ClaimTextField {...fields} field="multiset" label="Multiset of m" hint="e.g. 1, 7, 11, 13, 17, 19, 23, 29" />
         </div>
       )}
       {kind === "structure" && (
@@ -304,15 +206,11 @@ export function ClaimForm({ proofId, stepId }: { proofId: number; stepId: number
             </FormField>
           )}
           {(predicate === "max-degree" || predicate === "branch-vertices" || predicate === "leg-lengths") && (
-            <FormField label={predicate === "leg-lengths" ? "Leg lengths" : "Number"} error={err("parameter")}>
-              <input {...register("parameter")} className={input} />
-            </FormField>
+            <ClaimTextField {...fields} field="parameter" label={predicate === "leg-lengths" ? "Leg lengths" : "Number"} />
           )}
         </div>
       )}
-      <FormField label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" error={err("certificate")}>
-        <textarea {...register("certificate")} rows={2} className={input} />
-      </FormField>
+      <ClaimTextField {...fields} field="certificate" label="Certificate (optional JSON)" hint="a stored certificate to re-check with the claim" rows={2} />
       <SubmitRow label="Attach claim" busyLabel="Checking the input…" busy={formState.isSubmitting} message={message} />
     </ClaimPanel>
   );

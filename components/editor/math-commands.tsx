@@ -25,22 +25,26 @@ export interface Reference {
   text: string;
 }
 
-/** Graphs with customary names (common practice: Dynkin and affine diagrams, paths, cycles, stars, star-like trees). */
+/** The simply-laced Dynkin diagrams A_n, D_n, E6, E7, E8 (type, index), with the letter as the affine name writes it under a tilde. */
+const SIMPLY_LACED = [
+  ["A", "n", "Ã"],
+  ["D", "n", "D̃"],
+  ["E", "6", "Ẽ"],
+  ["E", "7", "Ẽ"],
+  ["E", "8", "Ẽ"],
+] as const;
+
+/**
+ * Graphs with customary names (common practice: Dynkin and affine diagrams, paths, cycles, stars, star-like trees). The
+ * affine diagrams are the Dynkin ones with a tilde (one more vertex each), so both come from one list.
+ */
 export const NAMED_GRAPH_SNIPPETS: ReadonlyArray<{ name: string; tex: string }> = [
   { name: "path P_n", tex: "P_{n}" },
   { name: "cycle C_n", tex: "C_{n}" },
   { name: "star K_{1,n}", tex: "K_{1,n}" },
   { name: "star-like tree T(p,q,r)", tex: "T(p,q,r)" },
-  { name: "Dynkin A_n", tex: "A_{n}" },
-  { name: "Dynkin D_n", tex: "D_{n}" },
-  { name: "Dynkin E_6", tex: "E_{6}" },
-  { name: "Dynkin E_7", tex: "E_{7}" },
-  { name: "Dynkin E_8", tex: "E_{8}" },
-  { name: "affine Ã_n", tex: "\\tilde{A}_{n}" },
-  { name: "affine D̃_n", tex: "\\tilde{D}_{n}" },
-  { name: "affine Ẽ_6", tex: "\\tilde{E}_{6}" },
-  { name: "affine Ẽ_7", tex: "\\tilde{E}_{7}" },
-  { name: "affine Ẽ_8", tex: "\\tilde{E}_{8}" },
+  ...SIMPLY_LACED.map(([type, index]) => ({ name: `Dynkin ${type}_${index}`, tex: `${type}_{${index}}` })),
+  ...SIMPLY_LACED.map(([type, index, tilde]) => ({ name: `affine ${tilde}_${index}`, tex: `\\tilde{${type}}_{${index}}` })),
 ];
 
 /** `$…$` around the selection, or an empty formula with the cursor inside it. */

@@ -9,7 +9,7 @@ export function AddCaseForm({ proofId, parentId, onDone }: { proofId: number; pa
       testId={parentId ? "add-sub-case" : "add-case"}
       titleLabel={parentId ? "Sub-case title" : "Case title"}
       conditionHint="Markdown with $…$ math, e.g. “$G$ has a vertex of degree $\ge 4$”"
-      predicateHint='e.g. { "predicate": "branch-vertices", "relation": "=", "value": 1 }; a coverage claim on the parent case tests the split with it'
+      predicateHint="a coverage claim on the parent case tests the split with it"
       submitLabel={`Add ${parentId ? "sub-case" : "case"}`}
       initial={{ title: "", condition: "", predicate: "" }}
       clear

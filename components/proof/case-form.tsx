@@ -1,9 +1,10 @@
 "use client";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { caseFieldsSchema, type CaseFields } from "@/lib/validations/case";
 import { FormField, FormProblem } from "./form-field";
+import { ConditionField } from "./condition-field";
 
 /**
  * A case's fields (title, prose condition, machine-readable condition) as the add and edit forms show them.
@@ -31,7 +32,11 @@ export function CaseForm({
   onDone?: () => void;
 }) {
   const router = useRouter();
-  const { register, handleSubmit, reset, setError, formState } = useForm<CaseFields>({ resolver: zodResolver(caseFieldsSchema), defaultValues: initial });
+  const { register, handleSubmit, reset, setError, formState, control } = useForm<CaseFields>({
+    resolver: zodResolver(caseFieldsSchema),
+    defaultValues: initial,
+  });
+  const predicate = useWatch({ control, name: "predicate" });
   const submit = handleSubmit(async (values) => {
     try {
       await save(values);
@@ -51,9 +56,7 @@ export function CaseForm({
       <FormField label="Condition" hint={conditionHint} error={formState.errors.condition?.message}>
         <input {...register("condition")} className={field} />
       </FormField>
-      <FormField label="Machine-readable condition (optional, JSON)" hint={predicateHint} error={formState.errors.predicate?.message}>
-        <textarea {...register("predicate")} rows={2} className={`${field} font-mono`} aria-label="machine-readable condition" />
-      </FormField>
+      <ConditionField text={predicate} field={register("predicate")} hint={predicateHint} submitProblem={formState.errors.predicate?.message} />
       <FormProblem message={formState.errors.root?.message} />
       <button type="submit" disabled={formState.isSubmitting} className="rounded bg-lichen-700 px-3 py-1 text-sm text-white hover:bg-lichen-800">
         {submitLabel}

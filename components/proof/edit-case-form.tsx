@@ -9,7 +9,7 @@ export function EditCaseForm({ proofId, caseId, initial, onDone }: { proofId: nu
     <CaseForm
       testId="edit-case"
       titleLabel="Title"
-      predicateHint='e.g. { "predicate": "max-degree", "relation": "<=", "value": 2 } or { "and": [{ "predicate": "tree" }, { "predicate": "branch-vertices", "relation": "=", "value": 1 }] }; a coverage claim tests the split into sub-cases with it'
+      predicateHint="a coverage claim on the parent case tests the split with it"
       submitLabel="Save case"
       initial={initial}
       save={(values) => apiFetch(`/api/proofs/${proofId}/cases/${caseId}`, { method: "PATCH", body: values })}

@@ -132,10 +132,17 @@ export async function verifyInPool(claimId: number, round: number, claim: ClaimJ
   }
 }
 
-/** A claim whose job failed for good is undecided, with the reason; never left pending. */
-export async function settleFailed(data: Omit<ClaimJobData, "type">, failedReason: string | undefined): Promise<boolean> {
+/**
+ * A claim whose job failed for good is undecided, with the reason; never left pending. `part` ("part 2
+ * of 4") names the part of a claim checked in parts whose job it was: the claim cannot be decided
+ * without it, and the reason says which part failed, how often and why.
+ */
+export async function settleFailed(data: Omit<ClaimJobData, "type">, failedReason: string | undefined, part?: string): Promise<boolean> {
+  const given = (failedReason ?? "no reason given").slice(0, 300);
   const why = /stalled/i.test(failedReason ?? "")
-    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking this claim (killed, or out of memory); re-check to try again`
-    : `the verification failed ${JOB_ATTEMPTS} times (${(failedReason ?? "no reason given").slice(0, 300)}); re-check to try again`;
+    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking ${part ? `${part} of ` : ""}this claim (killed, or out of memory); re-check to try again`
+    : part
+      ? `${part} failed ${JOB_ATTEMPTS} times (${given}), so the claim could not be decided; re-check to try again`
+      : `the verification failed ${JOB_ATTEMPTS} times (${given}); re-check to try again`;
   return decide(data.claimId, data.round, data.checkedBy, undecided("worker", why));
 }

@@ -14,7 +14,9 @@ import type { Job } from "bullmq";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkedInParts } from "../core/claims/claims";
-import { boundApprox, parseBound } from "../core/arithmetic/bound";
+import { parseBound } from "../core/arithmetic/bound";
+import { fewPerOrder } from "../core/families/few-per-order";
+import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
 import { claimPartJobId, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
@@ -27,15 +29,15 @@ const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || 
 
 /**
  * How many parts a claim is checked in: 1 for kinds that are not enumerations, below the split order
- * of its setting, and for enumerations under a bound below 2.1 (those families have a handful of
- * graphs per order, so every part would repeat most of the work); otherwise 2, doubling with each
- * order above it, up to maxParts. The float value of the bound only chooses K; the verdict is exact.
+ * of its setting, and for enumerations under a bound b ≤ √(2+√5) (those families have a handful of
+ * graphs per order, families/few-per-order.ts, so every part would repeat most of the work); otherwise
+ * 2, doubling with each order above it, up to maxParts.
  */
 export function partsFor(claim: ClaimJson): number {
   if (!checkedInParts(claim) || (claim.kind !== "enumeration" && claim.kind !== "coverage")) return 1;
   if (claim.kind === "enumeration") {
     try {
-      if (boundApprox(parseBound(claim.bound)) < 2.1) return 1;
+      if (fewPerOrder(parseBound(claim.bound))) return 1;
     } catch {
       return 1; // an unreadable bound is reported by the single check
     }
@@ -45,6 +47,9 @@ export function partsFor(claim: ClaimJson): number {
 }
 
 type ClaimRef = Omit<ClaimJobData, "type">;
+
+/** "part 2 of 4": a part as the reasons and the worker's log name it (1-based). */
+export const partWords = (p: Pick<ClaimPartJobData, "part" | "parts">): string => `part ${p.part + 1} of ${p.parts}`;
 
 const storedParts = async (c: ClaimRef) => models().ClaimPart.findAll({ where: { claimId: c.claimId, verifyRound: c.round }, order: [["part", "ASC"]] });
 
@@ -64,7 +69,8 @@ export async function runClaimPart(job: Job<JobData, JobResult>, data: ClaimPart
   if (!(await ClaimPart.count({ where }))) {
     const row = await Claim.unscoped().findByPk(data.claimId, { attributes: ["id", "input"] });
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
-    const of = `part ${data.part + 1} of ${data.parts}`;
+    faultPoint(data.part + 1, job.attemptsMade + 1);
+    const of = partWords(data);
     let answer;
     try {
       answer = await whileWanted(data.claimId, data.round, (signal) =>
@@ -139,7 +145,7 @@ export async function sweepClaimParts(c: ClaimRef, parts: number): Promise<"sett
     if (have.has(part)) continue;
     const job = await queue.getJob(claimPartJobId(c.claimId, c.round, part));
     const state = job ? await job.getState() : "missing";
-    if (state === "failed") return (await settleFailed(c, `part ${part + 1} of ${parts}: ${job!.failedReason}`)) ? "settled" : null;
+    if (state === "failed") return (await settleFailed(c, job!.failedReason, partWords({ part, parts }))) ? "settled" : null;
     if (state === "missing" || state === "unknown" || state === "completed") {
       if (job && state === "completed") await job.remove().catch(() => undefined);
       missing.push(part);

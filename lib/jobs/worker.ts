@@ -18,7 +18,7 @@ import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkBundleInPool } from "../verification/pool";
 import { decide, num, settleFailed, stillWanted, verifyInPool, workerName } from "./claim-decide";
-import { partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
+import { partWords, partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
 import { runBatchChunk, settleFailedChunk } from "./batch";
 import { sweepStoredFiles } from "../data/file-sweep";
 import {
@@ -183,7 +183,8 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
     if (job?.data.type === "claim-part") {
       const data = job.data;
       log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
-      if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(data, `part ${data.part + 1} of ${data.parts}: ${e.message}`).catch(() => undefined);
+      // Out of attempts, or its worker died too often: the claim cannot be decided without this part.
+      if (job.attemptsMade >= JOB_ATTEMPTS || /stalled/i.test(e.message)) void settleFailed(data, e.message, partWords(data)).catch(() => undefined);
       return;
     }
     if (!job || job.data.type !== "claim") return;

@@ -1,7 +1,6 @@
 import { z } from "zod";
-import { MULTIGRAPH_MAX_WEIGHT, RELATIONS } from "@/lib/core/claims/claim-schema";
+import { ENUMERATION_MAX_VERTICES, MULTIGRAPH_MAX_WEIGHT, RELATIONS } from "@/lib/core/claims/claim-schema";
 import { MAX_BATCH_PATTERNS } from "@/lib/core/claims/batch";
-import { ENUMERATION_BATCH_MAX } from "@/lib/core/claims/batch-enumeration";
 import { SMITH_FAMILIES } from "@/lib/core/families/smith-families";
 
 const fileId = z.number({ message: "choose an uploaded graph list" }).int().positive();
@@ -38,8 +37,8 @@ const identified = z.object({
 
 /**
  * The list is, up to isomorphism, exactly the trees (or connected simple graphs, or connected graphs with loops and
- * multiple edges within the two bounds) on n vertices, optionally with ρ op b. The size cap per setting and the
- * pairing of the bounds with "multigraph" are the core's (validateEnumerationBatch), answered as 422 on "vertices".
+ * multiple edges within the two bounds) on n vertices, optionally with ρ op b. The size cap per setting and bound and
+ * the pairing of the bounds with "multigraph" are the core's (validateEnumerationBatch), answered as 422 on "vertices".
  */
 const enumeration = z.object({
   fileId,
@@ -47,7 +46,11 @@ const enumeration = z.object({
   setting: z.enum(["tree", "simple", "multigraph"], { message: "tree, simple or multigraph" }),
   maxMultiplicity: z.number({ message: "the largest edge multiplicity, 1 to 4" }).int().min(1).max(MULTIGRAPH_MAX_WEIGHT).optional(),
   maxLoop: z.number({ message: "the largest loop weight, 0 to 4" }).int().min(0).max(MULTIGRAPH_MAX_WEIGHT).optional(),
-  vertices: z.number({ message: "the number of vertices" }).int().min(1).max(ENUMERATION_BATCH_MAX.tree),
+  vertices: z
+    .number({ message: "the number of vertices" })
+    .int()
+    .min(1)
+    .max(ENUMERATION_MAX_VERTICES, `at most ${ENUMERATION_MAX_VERTICES} vertices, as for an enumeration claim; lower the number of vertices`),
   op: z.enum(["<", "<="], { message: "< or <=" }).optional(),
   bound: z.string().trim().min(1).max(500).optional(),
 });

@@ -33,6 +33,14 @@ function graphTask(workload: string, id: string, w: () => Workload, task: string
   return { id, workload, task, quick, targetMs, prepare: () => workloadGraph(w()), run: (g) => check(g as Graph) };
 }
 
+/** One check on the random trees of the given sizes (smallest first): quick on the smallest, with `targetMs` on the largest. */
+function treeSeries(sizes: number[], id: string, task: string, check: (g: Graph) => string, targetMs?: number): BenchTask[] {
+  const last = sizes[sizes.length - 1];
+  return sizes.map((n) =>
+    graphTask(`tree-${n}`, `tree-${n}-${id}`, () => randomTreeWorkload(n), task, n === sizes[0], check, n === last ? targetMs : undefined),
+  );
+}
+
 /** The exact verdict on ρ(G) op bound, with the kind of certificate (and the dense front it certified, if any). */
 const verdict = (op: Relation, bound: string) => (g: Graph) => {
   const v = spectralRadiusBound(g, op, bound, new Budget(BENCH_STEPS));
@@ -54,18 +62,7 @@ function spectralRadiusTasks(): BenchTask[] {
     out.push(graphTask(`tree-${n}`, `tree-${n}-rho`, () => randomTreeWorkload(n), "ρ < 2 (exact verdict)", n === 1_000, verdict("<", "2"), target));
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
-  for (const n of [1_000, 100_000, 1_000_000])
-    out.push(
-      graphTask(
-        `tree-${n}`,
-        `tree-${n}-inertia`,
-        () => randomTreeWorkload(n),
-        "full inertia of 2I − A",
-        n === 1_000,
-        inertiaAt2,
-        n === 1_000_000 ? 5000 : undefined,
-      ),
-    );
+  out.push(...treeSeries([1_000, 100_000, 1_000_000], "inertia", "full inertia of 2I − A", inertiaAt2, 5000));
   // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
   // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
   for (const eps of [1e-12, -1e-12])
@@ -149,17 +146,7 @@ function subgraphTasks(): BenchTask[] {
     return `${v.status} (${v.method})`;
   };
   return [
-    ...[1_000, 10_000, 100_000].map((n) =>
-      graphTask(
-        `tree-${n}`,
-        `tree-${n}-affineE8`,
-        () => randomTreeWorkload(n),
-        "find affine E8 (embedding)",
-        n === 1_000,
-        find(e8),
-        n === 100_000 ? 1000 : undefined,
-      ),
-    ),
+    ...treeSeries([1_000, 10_000, 100_000], "affineE8", "find affine E8 (embedding)", find(e8), 1000),
     graphTask("path P_100000", "path-100000-star4", () => pathWorkload(100_000), "K_{1,4} absent (proof of absence)", false, find(star)),
     graphTask("path P_1000", "path-1000-star4", () => pathWorkload(1_000), "K_{1,4} absent (proof of absence)", true, find(star)),
     ...[1_000, 100_000].map((n) =>
@@ -169,7 +156,7 @@ function subgraphTasks(): BenchTask[] {
 }
 
 function charpolyTasks(): BenchTask[] {
-  return [20, 30, 40, 60, 100].map((n) =>
+  return [20, 30, 40, 60, 100, 200, 300].map((n) =>
     graphTask(
       `G(n,1/2), n=${n}`,
       `gnp-${n}-charpoly`,

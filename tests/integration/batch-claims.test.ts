@@ -15,7 +15,8 @@ import { models } from "@/models";
 import { runBatchChunk } from "@/lib/jobs/batch";
 import { generateConnected } from "@/lib/core/families/augmentation";
 import { writeGraph6, parseGraph6, writeSparse6 } from "@/lib/core/input/graph6";
-import { degree, makeGraph } from "@/lib/core/graph";
+import { degree, makeGraph, type Graph } from "@/lib/core/graph";
+import { affineA, affineD, dynkinA, dynkinD } from "@/lib/core/input/constructors";
 import { canonicalKeyOf } from "@/lib/core/families/canonical-label";
 import { bruteForce, toGraph } from "../support/multigraph-brute-force";
 import { Budget } from "@/lib/core/verdict";
@@ -373,6 +374,35 @@ describe("the list is exactly an enumeration, up to isomorphism", () => {
     const res = await start({ fileId: listId, kind: "enumeration-exactly", setting: "simple", vertices: 12 });
     expect(res.status).toBe(422);
     expect((await res.json()).error.issues[0].path).toBe("vertices");
+  });
+
+  it("under ρ ≤ 2 goes to 20 vertices: Smith's four graphs are the list, a list without D₂₀ names it; past the cap a 422 says what to lower", async () => {
+    // The connected graphs on 20 vertices with ρ ≤ 2: A₂₀, D₂₀ (ρ < 2), the cycle Ã₁₉ and D̃₁₉ (ρ = 2); J. H. Smith 1970,
+    // Brouwer & Haemers, Spectra of Graphs, Thm 3.1.3.
+    const smith20 = [dynkinA(20), dynkinD(20), affineA(19), affineD(19)];
+    const listOf = (gs: Graph[]) => gs.map((g) => writeGraph6(g)).join("\n") + "\n";
+    const statement = { kind: "enumeration-exactly", setting: "simple", vertices: 20, op: "<=", bound: "2" };
+    const id = await upload(listOf(smith20), "smith-20.g6");
+    expect(await run(id, statement)).toMatchObject({ status: "done", total: 4, verified: 4, refuted: 0, undecided: 0, missing: 0, note: null });
+    const short = await run(await upload(listOf(smith20.filter((g) => g !== smith20[1])), "smith-20-short.g6"), statement);
+    expect(short).toMatchObject({ status: "done", total: 3, verified: 3, missing: 1 });
+    expect(isomorphic(parseGraph6(/\(graph6\) (\S+)$/.exec(short.note)![1]), dynkinD(20))).toBe(true);
+
+    await actAs("author");
+    const refused = async (body: Record<string, unknown>) => {
+      const res = await start({ fileId: id, ...statement, ...body });
+      expect(res.status).toBe(422);
+      return (await res.json()).error.issues[0] as { path: string; message: string };
+    };
+    expect(await refused({ vertices: 21 })).toMatchObject({
+      path: "vertices",
+      message: "at most 20 vertices, as for an enumeration claim; lower the number of vertices",
+    });
+    // ρ ≤ 3 is above √(2+√5): the cap of every connected graph on n vertices applies (11,117 on 8 vertices, OEIS A001349).
+    expect(await refused({ vertices: 9, bound: "3" })).toMatchObject({
+      path: "vertices",
+      message: "choose 1 to 8 vertices for connected simple graphs (lower the number of vertices, or give a bound b ≤ sqrt(2+sqrt(5)) on ρ to go up to 20)",
+    });
   });
 });
 

@@ -7,17 +7,17 @@
  * Each part runs its own workers on a queue prefix of its own (and the outage part its own Redis),
  * so the suite's shared worker never takes these jobs.
  */
-import { beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("next-auth", async (importOriginal) => ({ ...(await importOriginal<typeof import("next-auth")>()), getServerSession: vi.fn() }));
 
-import { actAs, jsonRequest, params, closeAfterAll, expectStatusAs, workersPerTest } from "./helpers";
-import { draftCaseStep, dropProofs } from "./workspace-fixture";
+import { actAs, params, expectStatusAs, workersPerTest } from "./helpers";
+import { claimJobsStep, A000055, A001349 } from "./claim-jobs-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import { claimJobProgress, verificationService } from "@/lib/jobs/queue";
 import { parseClaimSet } from "@/lib/review/revisions";
-import { startTestWorker, until, type TestWorker } from "../support/workers";
+import { until } from "../support/workers";
 import { ownRedisForTest } from "../support/redis";
 import * as claimsRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/claims/route";
 import * as cancelRoute from "@/app/api/proofs/[proofId]/claims/[claimId]/cancel/route";
@@ -28,9 +28,9 @@ import { partsFor } from "@/lib/jobs/claim-parts";
 import { validateClaim, verifyClaim } from "@/lib/core";
 import { Budget } from "@/lib/core/verdict";
 
-let proofId: string;
-let stepId: string;
 const { workers, saved } = workersPerTest(["REDIS_URL", "CAIRN_QUEUE_PREFIX"]);
+const step = claimJobsStep("Verification jobs test", workers);
+const { attach, claimRow, decisions, nameOf, worker } = step;
 const named = (text: string) => ({ format: "named", text });
 // ρ(K_{1,5}) = √5 exactly (a star with k leaves has spectral radius √k; from memory, common knowledge).
 const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: named("star(5)"), op: ">=", bound: "sqrt(5)" };
@@ -38,33 +38,11 @@ const quick = { format: "cairn-claim/1", kind: "spectral-radius-bound", graph: n
 // and is not listed (from the definition of the claim).
 const slow = { format: "cairn-claim/1", kind: "enumeration", maxVertices: 9, op: "<=", bound: "sqrt(2+sqrt(5))", graphs: [] };
 
-closeAfterAll(() => dropProofs([proofId]));
-beforeAll(async () => {
-  ({ proofId, stepId } = await draftCaseStep("Verification jobs test", "Jobs", "Checked by the workers."));
-});
-
-const attach = async (claims: unknown[]) => {
-  await actAs("author");
-  const res = await claimsRoute.POST(jsonRequest("/x", "POST", { claims }), params({ proofId, stepId }));
-  return { status: res.status, claims: (await res.json()).claims as Array<{ id: number; status: string }> };
-};
-const stepClaims = async () => (await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId, stepId }))).json();
-const claimRow = (id: number) => models().Claim.unscoped().findByPk(id);
-const decisions = (id: number) => models().AuditEvent.count({ where: { action: "claim.decided", subjectType: "claim", subjectId: id } });
-const nameOf = async (w: TestWorker) => {
-  await w.ready;
-  return /\] (\S+) is taking verification jobs/.exec(w.output.join("\n"))![1];
-};
+const stepClaims = async () => (await claimsRoute.GET(new Request("http://localhost/x"), params({ proofId: step.proofId(), stepId: step.stepId() }))).json();
 /** The claim's status as the step's latest revision records it (what a vouch would cover). */
 const inLatestRevision = async (claimId: number) => {
-  const r = await models().StepRevision.findOne({ where: { stepId: Number(stepId) }, order: [["number", "DESC"]] });
+  const r = await models().StepRevision.findOne({ where: { stepId: Number(step.stepId()) }, order: [["number", "DESC"]] });
   return parseClaimSet(r!.claimSet).find((c) => c.id === claimId)?.status;
-};
-
-const worker = (env: Record<string, string> = {}) => {
-  const w = startTestWorker({ ...process.env, CAIRN_SWEEP_AFTER_MS: "600000", ...env }, `.data/jobs-test-worker-${workers.length}.log`);
-  workers.push(w);
-  return w;
 };
 
 describe("a worker killed mid-check", () => {
@@ -103,7 +81,7 @@ describe("cancel", () => {
     const { claims } = await attach([slow]);
     const id = claims[0].id;
     await until("the job to start", async () => (await claimJobProgress(id, 0))?.state === "checking");
-    const cancel = () => cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId, claimId: String(id) }));
+    const cancel = () => cancelRoute.POST(new Request("http://localhost/x", { method: "POST" }), params({ proofId: step.proofId(), claimId: String(id) }));
     await expectStatusAs(cancel, { nobody: 401, reviewer: 403 });
     await actAs("author");
     const res = await cancel();
@@ -150,10 +128,6 @@ describe("Redis stopped", () => {
     expect(await until("the worker to reconnect", async () => !(await verificationService()).paused)).toBe(true);
   }, 180_000);
 });
-
-// Trees on n = 1..14 vertices: OEIS A000055. Connected graphs on n = 1..8 vertices: OEIS A001349.
-const A000055 = [1, 1, 1, 2, 3, 6, 11, 23, 47, 106, 235, 551, 1301, 3159];
-const A001349 = [1, 1, 2, 6, 21, 112, 853, 11117];
 
 const partRows = (id: number) => models().ClaimPart.findAll({ where: { claimId: id }, order: [["part", "ASC"]] });
 const twoWorkers = async (prefix: string) => {
@@ -269,7 +243,7 @@ describe("claims checked in parts", () => {
     const id = (await attach([claim])).claims[0].id;
     await until("the first part to be stored", async () => (await partRows(id)).length > 0, 120_000);
     await actAs("author");
-    const res = await claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId, claimId: String(id) }));
+    const res = await claimRoute.DELETE(new Request("http://localhost/x", { method: "DELETE" }), params({ proofId: step.proofId(), claimId: String(id) }));
     expect(res.status).toBe(200);
     // Every part job ends (computed before the withdrawal, stopped during it, or skipped after it); then look again.
     await until(

@@ -54,3 +54,14 @@ describe("storage settings", () => {
     expect(() => readEnv({ CAIRN_UPLOAD_MAX_BYTES: "-3" })).toThrow(/CAIRN_UPLOAD_MAX_BYTES/);
   });
 });
+
+describe("the test-only fault setting", () => {
+  it("is read under NODE_ENV=test only, and refused elsewhere with what to do", () => {
+    expect(readEnv({ NODE_ENV: "test", CAIRN_TEST_FAULTS: "part:2@1,part:3@*" }).CAIRN_TEST_FAULTS).toBe("part:2@1,part:3@*");
+    expect(() => readEnv({ NODE_ENV: "production", CAIRN_TEST_FAULTS: "part:2@1" })).toThrow(
+      /CAIRN_TEST_FAULTS: makes verification fail on purpose .* unset it/,
+    );
+    expect(() => readEnv({ CAIRN_TEST_FAULTS: "part:2@1" })).toThrow(/here unset/);
+    expect(() => readEnv({ NODE_ENV: "test", CAIRN_TEST_FAULTS: "part:0@1" })).toThrow(/must be a comma-separated list like "part:2@1"/);
+  });
+});

@@ -19,7 +19,8 @@ import { canonicalKeyOf } from "../families/canonical-label";
 import { claimEnumerationSetting, enumerateConnected, outsideSetting, settingWords } from "../families/enumeration";
 import { isConnected } from "../families/structure";
 import { multigraphMaxVertices } from "../families/coverage-limits";
-import { MULTIGRAPH_MAX_WEIGHT } from "./claim-schema-enumeration";
+import { fewPerOrderText, FEW_PER_ORDER_BOUND } from "../families/few-per-order";
+import { ENUMERATION_MAX_VERTICES, MULTIGRAPH_MAX_WEIGHT } from "./claim-schema-enumeration";
 
 export interface EnumerationBatchStatement {
   kind: "enumeration-exactly";
@@ -33,13 +34,20 @@ export interface EnumerationBatchStatement {
   bound?: string;
 }
 
-/** Largest n: 23,724 trees on 18 vertices (OEIS A000055); 11,117 connected graphs on 8 vertices (OEIS A001349). */
+/** Largest n without a small bound: 23,724 trees on 18 vertices (OEIS A000055); 11,117 connected graphs on 8 vertices (OEIS A001349). */
 export const ENUMERATION_BATCH_MAX = { tree: 18, simple: 8 } as const;
 /** The most graphs (estimated, coverage-limits.ts) a multigraph batch enumerates on its n vertices: about the trees on 18. */
 export const MULTIGRAPH_BATCH_GRAPHS = 30_000n;
 
-/** Largest n of an enumeration batch in its setting. */
-export function enumerationBatchMax(s: Pick<EnumerationBatchStatement, "setting" | "maxMultiplicity" | "maxLoop">): number {
+/**
+ * Largest n of an enumeration batch. Under a bound b ≤ √(2+√5) the graphs are few per order in every setting
+ * (families/few-per-order.ts: Smith's graphs up to 2, Brouwer and Neumaier's above), so the batch goes as far as
+ * an enumeration claim may (ENUMERATION_MAX_VERTICES). Otherwise the list may hold every class on n vertices,
+ * and n stops where their number reaches about 30,000: the trees on 18, the connected graphs on 8, the
+ * multigraphs as estimated from their two bounds.
+ */
+export function enumerationBatchMax(s: Pick<EnumerationBatchStatement, "setting" | "maxMultiplicity" | "maxLoop" | "bound">): number {
+  if (fewPerOrderText(s.bound)) return ENUMERATION_MAX_VERTICES;
   return s.setting === "multigraph" ? multigraphMaxVertices(s.maxMultiplicity ?? 1, s.maxLoop ?? 0, MULTIGRAPH_BATCH_GRAPHS) : ENUMERATION_BATCH_MAX[s.setting];
 }
 
@@ -59,10 +67,12 @@ export function validateEnumerationBatch(s: EnumerationBatchStatement): void {
   } else if (s.maxMultiplicity !== undefined || s.maxLoop !== undefined)
     throw new Error('maxMultiplicity and maxLoop are given only with the setting "multigraph"');
   const max = enumerationBatchMax(s);
-  if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max)
-    throw new Error(
-      `choose 1 to ${max} vertices for ${settingWords(claimEnumerationSetting(s))}${s.setting === "multigraph" ? " (lower maxMultiplicity or maxLoop to go further)" : ""}`,
-    );
+  if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max) {
+    const further = fewPerOrderText(s.bound)
+      ? ` with ρ(G) ${s.op === "<" ? "<" : "≤"} ${s.bound} (as many as an enumeration claim allows)`
+      : ` (lower the number of vertices${s.setting === "multigraph" ? ", or lower maxMultiplicity or maxLoop to go further," : ""}, or give a bound b ≤ ${FEW_PER_ORDER_BOUND} on ρ to go up to ${ENUMERATION_MAX_VERTICES})`;
+    throw new Error(`choose 1 to ${max} vertices for ${settingWords(claimEnumerationSetting(s))}${further}`);
+  }
   if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
   if (s.op !== undefined && s.op !== "<" && s.op !== "<=") throw new Error(`the relation of an enumeration is < or ≤, not "${String(s.op)}"`);
 }

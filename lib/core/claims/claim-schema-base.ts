@@ -20,6 +20,11 @@ export interface GraphInput {
 export const RELATIONS = ["<", "<=", "=", ">=", ">"] as const;
 export type Relation = (typeof RELATIONS)[number];
 
+/** A relation field ("<", "<=", "=", ">=" or ">"). */
+export function relation(v: unknown, path: string): Relation {
+  return oneOf(v, RELATIONS, path);
+}
+
 export interface ClaimCommon {
   readonly format: typeof CLAIM_FORMAT;
   /** Optional identifier chosen by the author, shown by the checker. */
@@ -88,6 +93,28 @@ export function array(v: unknown, path: string, minLength = 0): unknown[] {
   return v;
 }
 
+/** Checks one JSON value and returns it typed, or throws a ClaimError naming `path`. */
+export type Reader<T> = (v: unknown, path: string) => T;
+
+/**
+ * Reads the named fields of a claim object, in the order given, each with its reader at its own path
+ * (`$.claims[2].bound`): the one place that names a field's path. A field whose reader returns undefined
+ * (an optional field left out) is left out of the result.
+ */
+export function fields<S extends Record<string, Reader<unknown>>>(o: Json, path: string, spec: S): { [K in keyof S]: ReturnType<S[K]> } {
+  const out: Record<string, unknown> = {};
+  for (const [key, read] of Object.entries(spec)) {
+    const v = read(o[key], `${path}.${key}`);
+    if (v !== undefined) out[key] = v;
+  }
+  return out as { [K in keyof S]: ReturnType<S[K]> };
+}
+
+/** A list of at least `minLength` entries, each read at its own index (`$.vector[3]`). */
+export function listOf<T>(read: Reader<T>, minLength = 0): Reader<T[]> {
+  return (v, path) => array(v, path, minLength).map((x, i) => read(x, `${path}[${i}]`));
+}
+
 export function optionalBoolean(v: unknown, path: string): boolean {
   if (v === undefined) return false;
   if (typeof v !== "boolean") throw new ClaimError(path, `expected true or false, got ${describe(v)}`);
@@ -134,5 +161,5 @@ export function validateGraphInput(v: unknown, path: string): GraphInput {
 
 /** The `graph` field of a claim object. */
 export function graphAt(o: Json, path: string): GraphInput {
-  return validateGraphInput(o.graph, `${path}.graph`);
+  return fields(o, path, { graph: validateGraphInput }).graph;
 }

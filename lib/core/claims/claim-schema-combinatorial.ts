@@ -5,7 +5,7 @@
  * has checked its format, kind and keys.
  */
 
-import { ClaimError, array, graphAt, integer, oneOf, optionalBoolean, string, validateGraphInput } from "./claim-schema-base";
+import { ClaimError, fields, graphAt, integer, listOf, oneOf, optionalBoolean, string, validateGraphInput } from "./claim-schema-base";
 import type { ClaimCommon, GraphInput, Json } from "./claim-schema-base";
 
 export const STRUCTURE_PREDICATES = ["connected", "bipartite", "tree", "forest", "acyclic", "max-degree", "branch-vertices", "leg-lengths"] as const;
@@ -51,7 +51,7 @@ export interface StructureClaim extends ClaimCommon {
 }
 
 export function subgraphClaim(o: Json, path: string, common: ClaimCommon): SubgraphClaim {
-  const embedding = o.embedding === undefined ? undefined : array(o.embedding, `${path}.embedding`).map((x, i) => integer(x, `${path}.embedding[${i}]`, 0));
+  const embedding = o.embedding === undefined ? undefined : listOf((x, at) => integer(x, at, 0))(o.embedding, `${path}.embedding`);
   return {
     ...common,
     kind: "subgraph",
@@ -63,13 +63,7 @@ export function subgraphClaim(o: Json, path: string, common: ClaimCommon): Subgr
 }
 
 export function exclusionClaim(o: Json, path: string, common: ClaimCommon): ExclusionClaim {
-  return {
-    ...common,
-    kind: "exclusion",
-    host: validateGraphInput(o.host, `${path}.host`),
-    patterns: array(o.patterns, `${path}.patterns`, 1).map((p, i) => validateGraphInput(p, `${path}.patterns[${i}]`)),
-    induced: optionalBoolean(o.induced, `${path}.induced`),
-  };
+  return { ...common, kind: "exclusion", ...fields(o, path, { host: validateGraphInput, patterns: listOf(validateGraphInput, 1), induced: optionalBoolean }) };
 }
 
 export function identificationClaim(o: Json, path: string, common: ClaimCommon): IdentificationClaim {
@@ -102,7 +96,7 @@ function structureParameter(o: Json, path: string): { predicate: StructurePredic
       return { predicate, parameter: integer(o.parameter, p, 0) };
     case "leg-lengths":
       if (o.parameter === undefined) throw new ClaimError(p, `"leg-lengths" needs a list of leg lengths, e.g. [1, 2, 5]`);
-      return { predicate, parameter: array(o.parameter, p, 1).map((x, i) => integer(x, `${p}[${i}]`, 1)) };
+      return { predicate, parameter: listOf((x, at) => integer(x, at, 1), 1)(o.parameter, p) };
     default:
       if (o.parameter !== undefined) throw new ClaimError(p, `"${predicate}" takes no parameter`);
       return { predicate };

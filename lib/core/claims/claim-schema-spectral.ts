@@ -6,7 +6,19 @@
 
 import { parseFamilyName } from "../families/smith-families";
 import { coxeterData } from "../spectral/spectral";
-import { ClaimError, RELATIONS, array, boundText, describe, integer, integerText, oneOf, rationalText, graphAt } from "./claim-schema-base";
+import {
+  ClaimError,
+  boundText,
+  describe,
+  fields,
+  integer,
+  integerText,
+  listOf,
+  rationalText,
+  relation,
+  graphAt,
+  validateGraphInput,
+} from "./claim-schema-base";
 import type { ClaimCommon, GraphInput, Json, Relation } from "./claim-schema-base";
 
 /** "ρ(G) op b" where b is a bound text: an integer or fraction "7/2", "sqrt(5)", "2cos(pi/7)", "2cos(pi p/q)". */
@@ -56,29 +68,19 @@ function byType(text: string, form: RegExp, example: string, path: string): { co
 }
 
 export function spectralRadiusBoundClaim(o: Json, path: string, common: ClaimCommon): SpectralRadiusBoundClaim {
-  return {
-    ...common,
-    kind: "spectral-radius-bound",
-    graph: graphAt(o, path),
-    op: oneOf(o.op, RELATIONS, `${path}.op`),
-    bound: boundText(o.bound, `${path}.bound`),
-  };
+  return { ...common, kind: "spectral-radius-bound", ...fields(o, path, { graph: validateGraphInput, op: relation, bound: boundText }) };
 }
 
 export function vectorCertificateClaim(o: Json, path: string, common: ClaimCommon): VectorCertificateClaim {
   return {
     ...common,
     kind: "vector-certificate",
-    graph: graphAt(o, path),
-    vector: array(o.vector, `${path}.vector`, 1).map((x, i) => rationalText(x, `${path}.vector[${i}]`)),
-    relation: oneOf(o.relation, RELATIONS, `${path}.relation`),
-    bound: boundText(o.bound, `${path}.bound`),
+    ...fields(o, path, { graph: validateGraphInput, vector: listOf(rationalText, 1), relation, bound: boundText }),
   };
 }
 
 export function characteristicPolynomialClaim(o: Json, path: string, common: ClaimCommon): CharacteristicPolynomialClaim {
-  const coefficients =
-    o.coefficients === undefined ? undefined : array(o.coefficients, `${path}.coefficients`, 1).map((c, i) => integerText(c, `${path}.coefficients[${i}]`));
+  const coefficients = o.coefficients === undefined ? undefined : listOf(integerText, 1)(o.coefficients, `${path}.coefficients`);
   return { ...common, kind: "characteristic-polynomial", graph: graphAt(o, path), ...(coefficients ? { coefficients } : {}) };
 }
 
@@ -94,6 +96,6 @@ export function eigenvaluesClaim(o: Json, path: string, common: ClaimCommon): Ei
     multiset:
       typeof o.multiset === "string"
         ? byType(o.multiset, /^exponents\s+of\s+(.+)$/i, "exponents of E7", `${path}.multiset`).exponents
-        : array(o.multiset, `${path}.multiset`).map((m, i) => integer(m, `${path}.multiset[${i}]`, 0)),
+        : listOf((m, at) => integer(m, at, 0))(o.multiset, `${path}.multiset`),
   };
 }

@@ -34,6 +34,31 @@ describe("validateClaim", () => {
     expect(e.message).toContain('"<="');
   });
 
+  it.each([
+    [{ kind: "subgraph", pattern: p5, host: p5, embedding: [0, -1] }, "$.embedding[1]"],
+    [{ kind: "eigenvalues", graph: p5, h: 6, multiset: [1, 1.5] }, "$.multiset[1]"],
+    [{ kind: "characteristic-polynomial", graph: p5, coefficients: ["1", "x"] }, "$.coefficients[1]"],
+    [{ kind: "characteristic-polynomial", graph: p5, coefficients: [] }, "$.coefficients"],
+    [{ kind: "exclusion", host: p5, patterns: [] }, "$.patterns"],
+    [{ kind: "exclusion", host: p5, patterns: [p5], induced: "yes" }, "$.induced"],
+  ])("names the path of a bad list entry or field: %j → %s", (claim, path) => {
+    expect(errorOf({ format: "cairn-claim/1", ...claim }).path).toBe(path);
+  });
+
+  it("keeps the fields in the order of the format (the stored JSON and its digest depend on it)", () => {
+    const keys = (c: Record<string, unknown>) => Object.keys(validateClaim({ format: "cairn-claim/1", ...c }));
+    expect(keys({ kind: "exclusion", patterns: [p5], host: p5 })).toEqual(["format", "kind", "host", "patterns", "induced"]);
+    expect(keys({ kind: "vector-certificate", bound: "2", relation: "<", vector: ["1"], graph: p5 })).toEqual([
+      "format",
+      "kind",
+      "graph",
+      "vector",
+      "relation",
+      "bound",
+    ]);
+    expect(keys({ kind: "spectral-radius-bound", bound: "2", op: "<", graph: p5 })).toEqual(["format", "kind", "graph", "op", "bound"]);
+  });
+
   it("names the path of a bad graph format inside an exclusion list", () => {
     const e = errorOf({ format: "cairn-claim/1", kind: "exclusion", host: p5, patterns: [p5, { format: "dot", text: "x" }] });
     expect(e.path).toBe("$.patterns[1].format");

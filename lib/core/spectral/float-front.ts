@@ -64,19 +64,31 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
 }
 
 /**
- * The inertia shared by every symmetric matrix S with |S_ij − S̃_ij| ≤ R_ij (S̃ symmetric, given with R as
- * f×f arrays in row order), or undefined when the certificate does not decide it. With `exact` (the
- * integer rows N of S = N/D) discs through 0 may still be settled by exact kernel vectors; without it they
- * decline.
+ * The factorisation behind a front's discs, kept when some disc touches 0 so that the discs can be settled
+ * by exact kernel vectors (of the front's integer rows, or of the whole matrix: interval-elimination.ts)
+ * without factorising again.
  */
-export function certifiedIntervalInertia(
+export interface FrontFactor {
+  readonly f: number;
+  /** X ≈ L⁻¹ in pivot order (unit lower triangular exactly), row-major f×f. */
+  readonly X: Float64Array;
+  /** perm[k] = front index of the k-th pivot. */
+  readonly perm: readonly number[];
+  readonly centre: Float64Array;
+  readonly radius: Float64Array;
+}
+
+/**
+ * The discs of B = X·S·Xᵀ for every symmetric S with |S_ij − S̃_ij| ≤ R_ij: the inertia when every disc is
+ * clear of 0, the factorisation when some disc touches 0, undefined on overflow or NaN.
+ */
+export function frontDiscs(
   S: Float64Array,
   R: Float64Array,
   f: number,
   tick: (steps: number) => void = () => {},
-  exact?: readonly (readonly bigint[])[],
-): FrontInertia | undefined {
-  if (f === 0) return { positive: 0, negative: 0, zero: 0 };
+): { inertia: FrontInertia } | { factor: FrontFactor } | undefined {
+  if (f === 0) return { inertia: { positive: 0, negative: 0, zero: 0 } };
   for (let i = 0; i < S.length; i++) if (!Number.isFinite(S[i]) || !Number.isFinite(R[i]) || !(R[i] >= 0)) return undefined;
 
   // LDLᵀ with symmetric diagonal pivoting (largest |diagonal|) on a copy; perm[k] = original index.
@@ -179,9 +191,45 @@ export function certifiedIntervalInertia(
   if (touching.length === 0) {
     let positive = 0;
     for (let i = 0; i < f; i++) if (centre[i] > 0) positive++;
-    return { positive, negative: f - positive, zero: 0 };
+    return { inertia: { positive, negative: f - positive, zero: 0 } };
   }
-  return exact ? deflate(exact, f, X, perm, centre, radius, tick) : undefined;
+  return { factor: { f, X, perm, centre, radius } };
+}
+
+/**
+ * The inertia shared by every symmetric matrix S with |S_ij − S̃_ij| ≤ R_ij (S̃ symmetric, given with R as
+ * f×f arrays in row order), or undefined when the certificate does not decide it. With `exact` (the
+ * integer rows N of S = N/D) discs through 0 may still be settled by exact kernel vectors; without it they
+ * decline.
+ */
+export function certifiedIntervalInertia(
+  S: Float64Array,
+  R: Float64Array,
+  f: number,
+  tick: (steps: number) => void = () => {},
+  exact?: readonly (readonly bigint[])[],
+): FrontInertia | undefined {
+  const d = frontDiscs(S, R, f, tick);
+  if (!d) return undefined;
+  if ("inertia" in d) return d.inertia;
+  return exact ? deflate(d.factor, frontRowsKernel(exact), tick) : undefined;
+}
+
+/** A kernel check for deflate: the rounded integer vector y on the front (entries [index, value]) is checked EXACTLY. */
+export type KernelCheck = (y: ReadonlyArray<readonly [number, bigint]>, tick: (steps: number) => void) => boolean;
+
+/** N·y = 0 in BigInt for the front's integer rows N. */
+export function frontRowsKernel(rows: readonly (readonly bigint[])[]): KernelCheck {
+  return (y, tick) => {
+    const f = rows.length;
+    tick(f * y.length);
+    for (let i = 0; i < f; i++) {
+      let s = 0n;
+      for (const [j, a] of y) s += rows[i][j] * a;
+      if (s !== 0n) return false;
+    }
+    return true;
+  };
 }
 
 /**
@@ -196,15 +244,8 @@ export function certifiedIntervalInertia(
  * all 0. If any step fails (K holds an eigenvalue merely near 0, entries that are not small rationals) the
  * caller eliminates exactly, as before: only true zeros are settled here.
  */
-function deflate(
-  rows: readonly (readonly bigint[])[],
-  f: number,
-  X: Float64Array,
-  perm: readonly number[],
-  centre: Float64Array,
-  radius: Float64Array,
-  tick: (steps: number) => void,
-): FrontInertia | undefined {
+export function deflate(factor: FrontFactor, check: KernelCheck, tick: (steps: number) => void): FrontInertia | undefined {
+  const { f, X, perm, centre, radius } = factor;
   // Components of the union of intervals, with the radii widened so that rounding in c ± r cannot
   // separate two intervals that meet.
   const widen = (i: number) => radius[i] * (1 + 2 ** -40) + 2 ** -52 * Math.abs(centre[i]);
@@ -261,25 +302,32 @@ function deflate(
   }
   // Round to small rationals, scale to integers, and check exactly.
   for (let r = 0; r < m; r++) {
-    const entries: Array<[number, bigint, bigint]> = [];
-    let lcm = 1n;
-    for (let j = 0; j < f; j++) {
-      const isPivot = pivotCol.indexOf(j);
-      const q = isPivot >= 0 ? ([isPivot === r ? 1n : 0n, 1n] as const) : smallRational(Y[r][j]);
-      if (!q) return undefined;
-      if (q[0] === 0n) continue;
-      entries.push([j, q[0], q[1]]);
-      lcm = (lcm / gcd(lcm, q[1])) * q[1];
-    }
-    const y = entries.map(([j, a, d]) => [j, (a * lcm) / d] as const);
-    tick(f * y.length);
-    for (let i = 0; i < f; i++) {
-      let s = 0n;
-      for (const [j, a] of y) s += rows[i][j] * a;
-      if (s !== 0n) return undefined;
-    }
+    const y = roundedIntegerVector(Y[r], (j) => {
+      const k = pivotCol.indexOf(j);
+      return k < 0 ? undefined : k === r ? 1 : 0;
+    });
+    if (!y || !check(y, tick)) return undefined;
   }
   return { positive, negative, zero: m };
+}
+
+/**
+ * y (doubles) rounded entrywise to small rationals (`fixed` gives exact entries where it is defined) and
+ * scaled by their common denominator: the non-zero entries [index, integer], or undefined when an entry
+ * is not close to a small rational.
+ */
+export function roundedIntegerVector(y: ArrayLike<number>, fixed: (j: number) => number | undefined = () => undefined): Array<[number, bigint]> | undefined {
+  const entries: Array<[number, bigint, bigint]> = [];
+  let lcm = 1n;
+  for (let j = 0; j < y.length; j++) {
+    const e = fixed(j);
+    const q = e !== undefined ? ([BigInt(e), 1n] as const) : smallRational(y[j]);
+    if (!q) return undefined;
+    if (q[0] === 0n) continue;
+    entries.push([j, q[0], q[1]]);
+    lcm = (lcm / gcd(lcm, q[1])) * q[1];
+  }
+  return entries.map(([j, a, d]) => [j, (a * lcm) / d]);
 }
 
 /** x as a rational with denominator at most 2^12 within 2^-30·max(1, |x|) (continued fractions), [0, 1] below 2^-30, or undefined. */

@@ -91,8 +91,9 @@ describe("certified floating-point elimination before the front", () => {
       expect(exact(complete(n), b)).toEqual(want);
       const r = interval(complete(n), b, undefined);
       if (r) expect(counts(r)).toEqual(want);
-      // An exact zero pivot (b = −1: bI − A = −J has rank 1) always holds 0 in its interval: declined.
-      expect(interval(complete(n), rat(-1), undefined)).toBeUndefined();
+      // Exact zero pivots (b = −1: bI − A = −J has rank 1) hold 0 in their intervals: they are set aside, and the
+      // front they form is settled by exact kernel vectors e_i − e_j of −J: (0, 1, n − 1).
+      expect(counts(interval(complete(n), rat(-1), undefined)!)).toEqual([0, 1, n - 1]);
     }
   });
 

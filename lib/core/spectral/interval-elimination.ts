@@ -19,12 +19,29 @@
  * widening); the denominator |m_d| − r_d is rounded down the same way.
  *
  * Sylvester's law of inertia makes the certified pivot signs, with the front's certified counts, the
- * inertia of bI − A. When a pivot's interval contains 0, a value overflows or the front declines, the
- * caller goes on with the exact elimination (sparse-inertia.ts): only a proof is returned, never a guess.
+ * inertia of bI − A: any order of non-zero 1×1 pivots is a congruence to a diagonal matrix.
+ *
+ * Pivots near 0. A pivot whose interval contains 0 (a true zero, as at b = 2 under a pendant K_{1,4}, or
+ * an eigenvalue of a piece within the error) is not used: the vertex is set aside and the elimination goes
+ * on with the others. Eliminating a neighbour changes its value; it is then tried again (the effect of a
+ * 2×2 pivot, in another order). Vertices still set aside at the end join the dense front. When discs of
+ * the front touch 0 and b is rational, each is settled by an exact kernel vector of the whole integer
+ * matrix qbI − qA: the front's approximate kernel vector, lifted through the floating-point L columns of
+ * the steps before it, rounded to small rationals and checked EXACTLY (one pass over the edges in BigInt).
+ * With k such vectors (independent: an identity block on the front) nullity(bI − A) ≥ k; the discs away
+ * from 0 hold the other eigenvalues of the front, none 0, so the k eigenvalues in the component through 0
+ * are all 0 (Gershgorin, Horn & Johnson Thm 6.1.1; the nullity of bI − A is that of the front, a Schur
+ * complement after non-zero pivots). Otherwise the caller (sparse-inertia.ts) goes on exactly, with the
+ * order found here and the front's factorisation (`hint`): it repeats the same steps in exact arithmetic and
+ * settles the same discs with the front's exact rows, without factorising again; only if that fails too does
+ * it eliminate the front exactly. Only a proof is returned, never a guess.
+ *
+ * An irrational b enters as a double enclosure (m_b, r_b) of b (from a rational enclosure at 64 bits): every
+ * bound above holds for each b in it, so the certified counts are those of bI − A for the exact b.
  */
 import { adjacency, Graph } from "../graph";
 import { Rational } from "../arithmetic/rational";
-import { certifiedIntervalInertia, quotientByDouble } from "./float-front";
+import { deflate, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
 import { DegreeQueue } from "./degree-queue";
 
 const U = 2 ** -53;
@@ -45,6 +62,18 @@ export interface IntervalEliminationResult {
   front?: number;
 }
 
+/**
+ * What a declined run leaves for the exact engine: its order of certified (non-zero) pivots and, when it
+ * reached a front whose discs touch 0, that front's vertices (ascending) and factorisation.
+ */
+export interface IntervalHint {
+  steps: number[];
+  front?: { vertices: number[]; factor: FrontFactor };
+}
+
+/** b − loop for each loop count, as a midpoint–radius pair: from a rational b, or from a double enclosure lo ≤ b ≤ hi. */
+export type DiagonalBase = { rational: Rational } | { lo: number; hi: number };
+
 interface Cell {
   m: number;
   r: number;
@@ -55,45 +84,57 @@ interface Cell {
  * Pivots in minimum-degree order until the least degree reaches `frontDegree`, then the dense front; with
  * `replay` the order is the given one and the front (when `frontDegree` is given) starts after its last step.
  */
-export function intervalSparseInertia(
+export function intervalSparseInertia(g: Graph, b: Rational, ...rest: RunOptions): IntervalEliminationResult | undefined {
+  return intervalElimination(g, { rational: b }, ...rest).result;
+}
+
+/** frontDegree, tick and replay of a run (see intervalSparseInertia). */
+type RunOptions = [frontDegree: number | undefined, tick: (steps: number) => void, replay?: readonly unknown[]];
+
+/** The certified elimination (see the header): the result, or a hint for the exact engine, or neither. */
+export function intervalElimination(
   g: Graph,
-  b: Rational,
-  frontDegree: number | undefined,
-  tick: (steps: number) => void,
-  replay?: readonly unknown[],
-): IntervalEliminationResult | undefined {
+  base: DiagonalBase,
+  ...[frontDegree, tick, replay]: RunOptions
+): { result?: IntervalEliminationResult; hint?: IntervalHint } {
   const n = g.n;
   const { start, nbr, wt, diag: loops } = adjacency(g);
-  const byQ = quotientByDouble(b.den);
+  const diagOf = diagonalCells(base);
+  if (!diagOf) return {};
   const diag: Cell[] = [];
   const rows: Array<Map<number, Cell>> = [];
   for (let v = 0; v < n; v++) {
-    // b − loop = (p − q·loop)/q as a double: error ≤ 2^-48|m| + 2^-50 (quotientByDouble).
-    const m = byQ(b.num - b.den * BigInt(loops[v]));
-    diag.push({ m, r: 2 ** -48 * Math.abs(m) + 2 ** -50 });
+    diag.push(diagOf(loops[v]));
     rows.push(new Map());
   }
   for (let v = 0; v < n; v++)
     for (let k = start[v]; k < start[v + 1]; k++) {
       const u = nbr[k];
       if (u > v) {
-        if (!Number.isSafeInteger(wt[k])) return undefined;
+        if (!Number.isSafeInteger(wt[k])) return {};
         const c = { m: -wt[k], r: 0 };
         rows[v].set(u, c);
         rows[u].set(v, c);
       }
     }
   const alive = new Uint8Array(n).fill(1);
+  // Vertices the queue may offer: alive and not set aside (a pivot within its error of 0).
+  const eligible = new Uint8Array(n).fill(1);
+  let eligibleCount = n,
+    remaining = n;
   const steps: number[] = [];
   const signs: string[] = [];
+  // Floating-point L columns (l_ip = a_ip / d_p), for lifting a kernel vector of the front (rational b only).
+  const lcols: Array<{ piv: number; col: Array<[number, number]> }> = [];
+  const keepL = "rational" in base;
   let positive = 0,
     negative = 0;
 
   // The same minimum-degree choice as the exact engine, so the orders agree while no exact
   // cancellation removes an entry there.
-  const queue = new DegreeQueue((v) => rows[v].size, alive);
+  const queue = new DegreeQueue((v) => rows[v].size, eligible);
 
-  const front = (): IntervalEliminationResult | undefined => {
+  const front = (): { result?: IntervalEliminationResult; hint?: IntervalHint } => {
     const list: number[] = [];
     for (let v = 0; v < n; v++) if (alive[v]) list.push(v);
     const f = list.length;
@@ -110,28 +151,35 @@ export function intervalSparseInertia(
         R[i * f + j] = c.r;
       }
     });
-    const r = certifiedIntervalInertia(S, R, f, tick);
-    if (!r) return undefined;
-    return { positive: positive + r.positive, negative: negative + r.negative, zero: r.zero, steps, signs: signs.join(""), front: f };
+    const d = frontDiscs(S, R, f, tick);
+    if (!d) return {};
+    const r = "inertia" in d ? d.inertia : keepL && "rational" in base ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick) : undefined;
+    if (!r) return { hint: "factor" in d ? { steps, front: { vertices: list, factor: d.factor } } : { steps } };
+    return { result: { positive: positive + r.positive, negative: negative + r.negative, zero: r.zero, steps, signs: signs.join(""), front: f } };
   };
 
-  for (let done = 0; done < n; done++) {
+  while (replay ? remaining > 0 : eligibleCount > 0) {
     let piv: number;
     if (replay) {
-      if (steps.length === replay.length) return frontDegree === undefined ? undefined : front();
+      if (steps.length === replay.length) return frontDegree === undefined ? {} : front();
       const st = replay[steps.length];
       // Pairs (2x2 pivots) and anything malformed are the exact engine's business (and its messages).
-      if (typeof st !== "number" || !Number.isInteger(st) || st < 0 || st >= n || !alive[st]) return undefined;
+      if (typeof st !== "number" || !Number.isInteger(st) || st < 0 || st >= n || !alive[st]) return {};
       piv = st;
     } else {
       piv = queue.peek();
-      if (frontDegree !== undefined && rows[piv].size >= frontDegree && n - done > 1) return front();
+      if (frontDegree !== undefined && rows[piv].size >= frontDegree && remaining > 1) return front();
     }
     const d = diag[piv];
     const absD = Math.abs(d.m);
-    if (!(absD > d.r) || !(absD >= MIN_PIVOT)) return undefined; // the interval holds 0 (or NaN), or underflow looms: not decided here
     const low = (absD - d.r) * (1 - 4 * U); // rounded down: a lower bound of |d|
-    if (!(low > 0)) return undefined;
+    if (!(absD > d.r) || !(absD >= MIN_PIVOT) || !(low > 0)) {
+      // The interval holds 0 (or NaN), or underflow looms: not usable now. A replayed order must use it.
+      if (replay) return {};
+      eligible[piv] = 0;
+      eligibleCount--;
+      continue;
+    }
     const nb = [...rows[piv]];
     tick(1 + (nb.length * (nb.length + 1)) / 2);
     const updates: Array<[number, number, Cell]> = [];
@@ -147,13 +195,17 @@ export function intervalSparseInertia(
         const rT = rP / low + (Math.abs(pm) * d.r) / (absD * low);
         // Rounding of pm, t (3u|t| covers both) and of m (u|m|).
         const r = ((old?.r ?? 0) + rT + 3 * U * Math.abs(t) + U * Math.abs(m) + 8 * TINY) * UP;
-        if (!(Math.abs(m) <= MAX_ENTRY) || !(r <= MAX_ENTRY)) return undefined; // overflow or NaN
+        if (!(Math.abs(m) <= MAX_ENTRY) || !(r <= MAX_ENTRY)) return {}; // overflow or NaN
         updates.push([i, j, { m, r }]);
       }
     }
+    if (keepL) lcols.push({ piv, col: nb.map(([i, c]) => [i, c.m / d.m]) });
     for (const u of rows[piv].keys()) rows[u].delete(piv);
     rows[piv].clear();
     alive[piv] = 0;
+    if (eligible[piv]) eligibleCount--;
+    eligible[piv] = 0;
+    remaining--;
     if (d.m > 0) positive++;
     else negative++;
     steps.push(piv);
@@ -174,7 +226,85 @@ export function intervalSparseInertia(
         }
       }
     }
-    for (const [i] of nb) queue.push(i);
+    // A neighbour set aside has a new value: it may be tried again.
+    for (const [i] of nb) {
+      if (!eligible[i]) {
+        eligible[i] = 1;
+        eligibleCount++;
+      }
+      queue.push(i);
+    }
   }
-  return { positive, negative, zero: 0, steps, signs: signs.join("") };
+  if (remaining > 0) return front(); // only vertices set aside are left
+  return { result: { positive, negative, zero: 0, steps, signs: signs.join("") } };
+}
+
+/** The diagonal cell of b − loop, for each loop count; undefined when b has no finite double enclosure. */
+function diagonalCells(base: DiagonalBase): ((loop: number) => Cell) | undefined {
+  if ("rational" in base) {
+    const b = base.rational;
+    const byQ = quotientByDouble(b.den);
+    // b − loop = (p − q·loop)/q as a double: error ≤ 2^-48|m| + 2^-50 (quotientByDouble).
+    return (loop) => {
+      const m = byQ(b.num - b.den * BigInt(loop));
+      return { m, r: 2 ** -48 * Math.abs(m) + 2 ** -50 };
+    };
+  }
+  const { lo, hi } = base;
+  if (!Number.isFinite(lo) || !Number.isFinite(hi) || !(lo <= hi)) return undefined;
+  // Midpoint and half-width of [lo, hi] (each rounded: widened by u of each operand), then one subtraction.
+  const mid = lo / 2 + hi / 2;
+  const half = (hi / 2 - lo / 2) * UP + U * (Math.abs(lo) + Math.abs(hi)) + TINY;
+  return (loop) => {
+    const m = mid - loop;
+    return { m, r: (half + U * Math.abs(m)) * UP };
+  };
+}
+
+/**
+ * The exact kernel check of a front vector y (integers on the front's vertices `list`, ascending) for
+ * qbI − qA as a whole: y is lifted through the floating-point L columns (x_p = −Σ l_ip x_i, newest
+ * first), every lifted entry is rounded to a small rational, the vector is scaled to integers and
+ * (p − q·loop_v)·x_v − q·Σ_u w_uv·x_u = 0 is checked at every vertex in BigInt.
+ */
+function liftedKernel(
+  g: Graph,
+  b: Rational,
+  list: readonly number[],
+  lcols: ReadonlyArray<{ piv: number; col: ReadonlyArray<[number, number]> }>,
+): KernelCheck {
+  return (y, tick) => {
+    const n = g.n;
+    const x = new Float64Array(n);
+    const onFront = new Int8Array(n);
+    for (const v of list) onFront[v] = 1;
+    for (const [j, a] of y) {
+      const value = Number(a);
+      if (!Number.isSafeInteger(value)) return false;
+      x[list[j]] = value;
+    }
+    let work = 0;
+    for (let k = lcols.length - 1; k >= 0; k--) {
+      const { piv, col } = lcols[k];
+      let s = 0;
+      for (const [i, l] of col) s += l * x[i];
+      x[piv] = -s;
+      work += col.length;
+    }
+    tick(work + n);
+    const xi = roundedIntegerVector(x, (v) => (onFront[v] ? x[v] : undefined));
+    if (!xi || xi.length === 0) return false;
+    const X = new Map(xi);
+    const { start, nbr, wt, diag: loops } = adjacency(g);
+    tick(n + start[n]);
+    for (let v = 0; v < n; v++) {
+      let s = (b.num - b.den * BigInt(loops[v])) * (X.get(v) ?? 0n);
+      for (let k = start[v]; k < start[v + 1]; k++) {
+        const xu = X.get(nbr[k]);
+        if (xu !== undefined) s -= b.den * BigInt(wt[k]) * xu;
+      }
+      if (s !== 0n) return false;
+    }
+    return true;
+  };
 }

@@ -22,8 +22,8 @@ import { Budget } from "../verdict";
 import { Rational, rat, add, mul, neg, ZERO } from "../arithmetic/rational";
 import type { EliminationResult, StopRule } from "./tree-inertia";
 import type { InertiaCounts } from "./inertia-counts";
-import { certifiedFrontInertia } from "./float-front";
-import { intervalSparseInertia } from "./interval-elimination";
+import { certifiedFrontInertia, deflate, frontRowsKernel } from "./float-front";
+import { intervalElimination, type IntervalHint } from "./interval-elimination";
 import { DegreeQueue } from "./degree-queue";
 
 /** One elimination step as stored in certificates: a vertex (1x1 pivot or empty row) or a 2x2 pair. */
@@ -48,9 +48,10 @@ export interface FrontOption {
   readonly degree: number;
   /**
    * Whether to try the certified floating-point elimination of the steps before the front first
-   * (interval-elimination.ts; the exact engine goes on whenever it declines). Default: from
-   * INTERVAL_MIN_VERTICES vertices, when b's numerator and denominator together pass INTERVAL_MIN_BITS
-   * bits, where exact steps grow fast.
+   * (interval-elimination.ts; the exact engine goes on whenever it declines, in the order it found and
+   * with its front's factorisation). Default: from INTERVAL_MIN_VERTICES vertices, for full counts (no
+   * early stop: the exact engine's Bareiss integers grow with every step) and whenever b's numerator and
+   * denominator together pass INTERVAL_MIN_BITS bits, where exact steps grow fast.
    */
   readonly intervals?: boolean;
 }
@@ -96,9 +97,15 @@ export function sparseInertia(
   front?: FrontOption,
 ): SparseEliminationResult {
   // Full counts (a front, or the replay of a certificate) try the certified floating-point steps first.
-  if ((front || replay) && (front?.intervals ?? (g.n >= INTERVAL_MIN_VERTICES && bitLength(b.num) + bitLength(b.den) > INTERVAL_MIN_BITS))) {
-    const r = intervalSparseInertia(g, b, front?.degree, (s) => budget.tick(s), replay);
-    if (r) return { ...r, complete: true };
+  let hint: IntervalHint | undefined;
+  if (
+    (front || replay) &&
+    (front?.intervals ?? (g.n >= INTERVAL_MIN_VERTICES && (stop === "none" || bitLength(b.num) + bitLength(b.den) > INTERVAL_MIN_BITS)))
+  ) {
+    const o = intervalElimination(g, { rational: b }, front?.degree, (s) => budget.tick(s), replay);
+    if (o.result) return { ...o.result, complete: true };
+    // Its order (every pivot certified non-zero) and its front's factorisation spare the exact engine a second factorisation.
+    if (!replay && stop === "none") hint = o.hint;
   }
   const n = g.n;
   const { start, nbr, wt, diag: loops } = adjacency(g);
@@ -187,8 +194,8 @@ export function sparseInertia(
   });
 
   let frontTried = false;
-  /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
-  const tryFront = (): (InertiaCounts & { size: number }) | undefined => {
+  /** The front's exact integer rows N (S = N / D_t) on the remaining vertices, ascending. */
+  const frontRows = (): { list: number[]; rowsN: bigint[][] } => {
     const list: number[] = [];
     for (let v = 0; v < n; v++) if (alive[v]) list.push(v);
     const pos = new Map(list.map((v, i) => [v, i]));
@@ -198,6 +205,11 @@ export function sparseInertia(
       for (const [u, e] of rows[v]) row[pos.get(u)!] = cur(e);
       return row;
     });
+    return { list, rowsN };
+  };
+  /** The inertia of the remaining Schur complement N/D_t, certified in floating point, or undefined. */
+  const tryFront = (): (InertiaCounts & { size: number }) | undefined => {
+    const { list, rowsN } = frontRows();
     const r = certifiedFrontInertia(rowsN, D[t], (s) => budget.tick(s));
     return r && { ...r, size: list.length };
   };
@@ -213,7 +225,26 @@ export function sparseInertia(
       zero += r.zero;
       return result(true, { front: r.size });
     }
-    if (!replay && front && !frontTried && n - done > 1) {
+    if (hint && steps.length === hint.steps.length && !frontTried) {
+      // The floating-point run's front, reached by the same exact steps: its discs through 0 are settled
+      // with the exact rows and the factorisation already made; otherwise the front is eliminated exactly.
+      frontTried = true;
+      const hf = hint.front;
+      if (hf) {
+        const { list, rowsN } = frontRows();
+        const r =
+          list.length === hf.vertices.length && list.every((v, i) => v === hf.vertices[i])
+            ? deflate(hf.factor, frontRowsKernel(rowsN), (s) => budget.tick(s))
+            : undefined;
+        if (r) {
+          positive += r.positive;
+          negative += r.negative;
+          zero += r.zero;
+          return result(true, { front: list.length });
+        }
+      }
+    }
+    if (!replay && front && !frontTried && n - done > 1 && !(hint && steps.length < hint.steps.length)) {
       const v = popMin();
       if (rows[v].size >= front.degree) {
         frontTried = true;
@@ -237,7 +268,8 @@ export function sparseInertia(
         if (!Number.isInteger(x) || x < 0 || x >= n || !alive[x]) throw new ReplayError(`step ${steps.length + 1}: vertex ${x} is not a remaining vertex`);
       piv = a;
       partner = c;
-    } else piv = popMin();
+    } else if (hint && steps.length < hint.steps.length) piv = hint.steps[steps.length];
+    else piv = popMin();
     const Dt = D[t];
     const nPP = cur(diag[piv]);
     const nb: Array<[number, bigint]> = [];
