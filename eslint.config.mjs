@@ -37,7 +37,7 @@ export default tseslint.config(
     },
   },
   {
-    files: ["lib/core/**/*.ts", "lib/proof-tree.ts", "lib/review/**/*.ts", "lib/verification/layout.ts", "lib/verification/picture.ts"],
+    files: ["lib/core/**/*.ts", "lib/proof-tree.ts", "lib/review/**/*.ts", "lib/verification/layout*.ts", "lib/verification/picture.ts"],
     rules: { "no-restricted-imports": ["error", frameworkAndDatabase] },
   },
 );

@@ -1,6 +1,6 @@
 import "server-only";
 import { getStep } from "@/lib/data/steps";
-import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claims";
+import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claim-lists";
 import { verificationNotice } from "@/lib/data/claim-jobs";
 import { parseCompare } from "@/lib/review/compare-link";
 import { orNotFound, stepPageAccess } from "./page-access";

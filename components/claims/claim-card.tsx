@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import type { ClaimView } from "@/lib/data/claims";
+import type { ClaimView } from "@/lib/data/claim-views";
 import { GraphPicture } from "@/components/graph/graph-picture";
 import { SpectrumPlot } from "@/components/graph/spectrum-plot";
 import { apiFetch } from "@/components/proof/api-client";

@@ -1,6 +1,7 @@
 "use client";
 import useSWR from "swr";
-import type { ClaimView, WithdrawnClaimView } from "@/lib/data/claims";
+import type { WithdrawnClaimView } from "@/lib/data/claim-lists";
+import type { ClaimView } from "@/lib/data/claim-views";
 import type { VerificationService } from "@/lib/jobs/queue";
 import { jsonFetcher } from "@/components/proof/api-client";
 import { ClaimCard } from "./claim-card";

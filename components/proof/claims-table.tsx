@@ -11,7 +11,7 @@ import {
   type ColumnFiltersState,
   type SortingState,
 } from "@tanstack/react-table";
-import type { ClaimRowView } from "@/lib/data/claims";
+import type { ClaimRowView } from "@/lib/data/claim-lists";
 import { VerdictBadge } from "@/components/claims/verdict-badge";
 import { compareStepLabels } from "@/lib/proof-tree";
 import { ClaimInputsShort, claimInputHref } from "@/components/claims/claim-inputs";

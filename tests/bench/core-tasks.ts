@@ -16,7 +16,7 @@ import { parseBound } from "../../lib/core/arithmetic/bound";
 import { validateClaim } from "../../lib/core/claims/claim-schema";
 import { verifyClaim } from "../../lib/core/claims/claims";
 import { characteristicPolynomial } from "../../lib/core/spectral/charpoly";
-import type { Graph } from "../../lib/core/graph";
+import { makeGraph, type Graph } from "../../lib/core/graph";
 import { identifySmith } from "../../lib/core/families/identify";
 import { inertia, spectralRadiusBound, type Relation } from "../../lib/core/spectral/inertia";
 import { rat } from "../../lib/core/arithmetic/rational";
@@ -48,11 +48,28 @@ const verdict = (op: Relation, bound: string) => (g: Graph) => {
   return `${v.status} (${c?.kind ?? "no certificate"}${c?.front ? `, front of ${c.front}` : ""})`;
 };
 
-/** The full inertia of 2I − A (elimination to the end), with the dense front certified in floating point, if any. */
-const inertiaAt2 = (g: Graph) => {
-  const r = inertia(g, rat(2), new Budget(BENCH_STEPS));
+/** The full inertia of bI − A (elimination to the end), with the dense front certified in floating point, if any. */
+const inertiaAt = (b: number) => (g: Graph) => {
+  const r = inertia(g, rat(b), new Budget(BENCH_STEPS));
   return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front} certified in floating point` : ""}`;
 };
+const inertiaAt2 = inertiaAt(2);
+
+/**
+ * A zero pivot at the top of a huge subtree: vertex 0 (loop of weight 2) joined to the root of tree-m and
+ * to the root of a copy with a loop of weight 4 at every vertex, whose elimination values at b = 2 are the
+ * negatives of the tree's; they cancel at vertex 0 exactly (tree-inertia-zeros.test.ts).
+ */
+function mirroredTree(m: number): Graph {
+  const edges: Array<{ u: number; v: number; m?: number }> = [
+    { u: 0, v: 0, m: 2 },
+    { u: 0, v: 1 },
+    { u: 0, v: m + 1 },
+  ];
+  for (const [a, b] of randomTreeWorkload(m).edges) edges.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
+  for (let i = 0; i < m; i++) edges.push({ u: m + 1 + i, v: m + 1 + i, m: 4 });
+  return makeGraph(2 * m + 1, edges);
+}
 
 function spectralRadiusTasks(): BenchTask[] {
   const out: BenchTask[] = [];
@@ -63,6 +80,26 @@ function spectralRadiusTasks(): BenchTask[] {
   }
   // The full inertia runs the elimination to the end (no early stop): the worst case for rational growth.
   out.push(...treeSeries([1_000, 100_000, 1_000_000], "inertia", "full inertia of 2I − A", inertiaAt2, 5000));
+  // Zero pivots by the hundred thousand: b = 0 (nullity n − 2ν) and b = 1; and one zero above 2·10^5 vertices.
+  for (const b of [0, 1])
+    out.push(
+      graphTask(
+        "tree-1000000",
+        `tree-1000000-inertia-b${b}`,
+        () => randomTreeWorkload(1_000_000),
+        b === 0 ? "full inertia of −A" : "full inertia of I − A",
+        false,
+        inertiaAt(b),
+      ),
+    );
+  out.push({
+    id: "tree-100000-mirrored-zero",
+    workload: "tree-100000 and its negated copy (200,001 vertices)",
+    task: "full inertia of 2I − A, a zero pivot at the top",
+    quick: false,
+    prepare: () => mirroredTree(100_000),
+    run: (g) => inertiaAt2(g as Graph),
+  });
   // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
   // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
   for (const eps of [1e-12, -1e-12])

@@ -2,8 +2,9 @@
  * Parts of a claim checked in parts that throw (faults injected with CAIRN_TEST_FAULTS, read by the workers only
  * under NODE_ENV=test): a part that throws is tried again by BullMQ and the claim is decided once, as a single job
  * decides it; a part that throws on every attempt leaves the claim undecided, saying which part failed, how often
- * and why (in the API and on the claim card), and a re-check runs it again. Each test runs its own worker on a
- * queue prefix of its own, so the suite's shared worker never takes these jobs.
+ * and why (in the API and on the claim card; the sweep settles it likewise when that was lost), and a re-check runs
+ * it again. Each test runs its own worker on a queue prefix of its own, so the suite's shared worker never takes
+ * these jobs.
  */
 import { describe, expect, it, vi } from "vitest";
 
@@ -14,9 +15,10 @@ import { renderToStaticMarkup } from "react-dom/server";
 import { actAs, params, workersPerTest } from "./helpers";
 import { claimJobsStep, A000055, A001349 } from "./claim-jobs-fixture";
 import { models } from "@/models";
-import { verificationSettled, type ClaimView } from "@/lib/data/claims";
+import { verificationSettled } from "@/lib/data/claims";
+import type { ClaimView } from "@/lib/data/claim-views";
 import { claimPartJobId, verificationQueue } from "@/lib/jobs/queue";
-import { partsFor } from "@/lib/jobs/claim-parts";
+import { partsFor, sweepClaimParts } from "@/lib/jobs/claim-parts";
 import { validateClaim, verifyClaim } from "@/lib/core";
 import { Budget } from "@/lib/core/verdict";
 import { ClaimCard } from "@/components/claims/claim-card";
@@ -96,6 +98,13 @@ describe("a part that throws", () => {
     expect(card).toContain(reason);
     expect(card).toContain("Re-check");
 
+    // The sweep settles it the same way when the failed event's settling was lost (the row put back to pending here).
+    const checkedBy = (await step.claimRow(id))!.checkedBy!;
+    await models().Claim.unscoped().update({ status: "pending", method: null, reason: null }, { where: { id } });
+    expect(await sweepClaimParts({ claimId: id, round: 0, checkedBy }, 2)).toBe("settled");
+    expect(await step.claimRow(id)).toMatchObject({ status: "undecided", method: "worker", reason, certificate: null, verifyRound: 0 });
+    expect(await step.decisions(id)).toBe(2);
+
     // With the fault gone (a worker without it), the author's re-check decides the claim in a new round, as a single job does.
     failing.stop("SIGKILL");
     const healthy = step.worker();
@@ -108,7 +117,7 @@ describe("a part that throws", () => {
     const want = single(graphs7);
     expect(row).toMatchObject({ status: want.verdict.status, verifyRound: 1, decidedBy: name });
     expect(JSON.parse(row.certificate!)).toEqual(want.verdict.certificate);
-    expect(await step.decisions(id)).toBe(2);
+    expect(await step.decisions(id)).toBe(3);
     expect((await partRows(id, 1)).map((p) => p.part)).toEqual([0, 1]);
     // Connected graphs on ≤ 7 vertices: OEIS A001349.
     expect(JSON.parse(row.certificate!).evidence.counts).toEqual(A001349.slice(0, 7));

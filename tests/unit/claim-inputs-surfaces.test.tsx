@@ -24,7 +24,8 @@ import { renderLatex } from "@/lib/export/latex";
 import { escapeLine } from "@/lib/export/latex-escape";
 import { compileLatex } from "@/lib/export/pdf";
 import type { ProofSnapshot, SnapshotClaim } from "@/lib/export/snapshot";
-import type { ClaimRowView, ClaimView } from "@/lib/data/claims";
+import type { ClaimRowView } from "@/lib/data/claim-lists";
+import type { ClaimView } from "@/lib/data/claim-views";
 import { ClaimCard } from "@/components/claims/claim-card";
 import { ClaimsTable } from "@/components/proof/claims-table";
 import { PrintDocument } from "@/components/export/print-document";
@@ -71,7 +72,7 @@ const EXAMPLES: { [K in ClaimKind]: { claim: Record<string, unknown>; shows: str
 
 const checked = (kind: string, claim: Record<string, unknown>): SnapshotClaim => verifiedClaim({ kind, ...claim });
 
-/** The card's view as lib/data/claims builds it (that module reads the database, so it is not imported here). */
+/** The card's view as lib/data/claim-views builds it (that module reads the database, so it is not imported here). */
 function cardView(c: SnapshotClaim, id: number): ClaimView {
   const certificate = c.certificate ? JSON.parse(c.certificate) : null;
   return {

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProofSummary } from "@/lib/data/proofs";
 import { getProofOverview, listDeletedCases } from "@/lib/data/cases";
-import { listProofClaims } from "@/lib/data/claims";
+import { listProofClaims } from "@/lib/data/claim-lists";
 import { commentsAnchor, flattenCaseTree } from "@/lib/proof-tree";
 import { MathMarkdown } from "@/components/markdown/math-markdown";
 import { CaseTree } from "@/components/proof/case-tree";

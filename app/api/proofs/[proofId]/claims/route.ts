@@ -1,6 +1,6 @@
 import { idParam, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { listProofClaims } from "@/lib/data/claims";
+import { listProofClaims } from "@/lib/data/claim-lists";
 import { visibleCaseIds } from "@/lib/access";
 
 type Context = { params: Promise<{ proofId: string }> };

@@ -2,7 +2,7 @@ import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
 import { moveStepSchema } from "@/lib/validations/step";
 import { getStep, moveStep } from "@/lib/data/steps";
-import { listStepClaims } from "@/lib/data/claims";
+import { listStepClaims } from "@/lib/data/claim-lists";
 import { routeIds } from "@/app/api/proofs/[proofId]/route-ids";
 import { requireStepAccess } from "@/lib/access";
 

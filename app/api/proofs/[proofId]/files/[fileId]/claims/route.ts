@@ -1,7 +1,7 @@
 import { route } from "@/lib/http";
 import { AppError, invalid } from "@/lib/errors";
 import { requireStepAccess } from "@/lib/access";
-import { attachClaims } from "@/lib/data/claims";
+import { attachClaims } from "@/lib/data/claim-attach";
 import { loadStepFile, readStoredFile } from "@/lib/data/files";
 import { asText } from "@/lib/uploads/detect";
 import { claimsFromDocument } from "@/lib/validations/claim";

@@ -1,6 +1,7 @@
 import { BODY_LIMITS, readBody, route } from "@/lib/http";
 import { requireProofRole } from "@/lib/session";
-import { attachClaims, awaitVerdicts, listStepClaims, listWithdrawnClaims, storeClaims } from "@/lib/data/claims";
+import { attachClaims, awaitVerdicts, storeClaims } from "@/lib/data/claim-attach";
+import { listStepClaims, listWithdrawnClaims } from "@/lib/data/claim-lists";
 import { stepInProof } from "@/lib/data/steps";
 import { verificationNotice } from "@/lib/data/claim-jobs";
 import { attachClaimsSchema } from "@/lib/validations/claim";
