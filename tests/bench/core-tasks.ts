@@ -140,6 +140,25 @@ function sparseTasks(): BenchTask[] {
         ]
       : []),
     graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, verdict("<=", "3")),
+    // ρ against an irrational bound within 10^-12 of it on a graph with cycles: √r with r a 50-bit dyadic rational
+    // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
+    ...(n === 2_000
+      ? [1e-12, -1e-12].map((eps): BenchTask => ({
+          id: `gnm3-${n}-near-${eps > 0 ? "above" : "below"}`,
+          workload: `G(n,m) deg 3, n=${n}`,
+          quick: false,
+          task: `ρ < √r, √r = ρ ${eps > 0 ? "+" : "−"} 1e-12 (irrational b)`,
+          prepare: () => {
+            const g = workloadGraph(sparseGraphWorkload(n));
+            const rho = perronApproximation(g, 100_000, 1e-15).rho;
+            return { g, bound: `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})` };
+          },
+          run: (input) => {
+            const { g, bound } = input as { g: Graph; bound: string };
+            return verdict("<", bound)(g);
+          },
+        }))
+      : []),
     // ρ ≈ 4.2–4.4 on these graphs (float hint), so ρ < 5 holds: the other direction of the same question.
     graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho5`, () => sparseGraphWorkload(n), "ρ < 5 (exact verdict)", n === 200, verdict("<", "5")),
   ]);
