@@ -112,6 +112,19 @@ export function flattenCaseTree<T extends CaseRow>(tree: CaseNode<T>[]): CaseNod
 }
 
 /**
+ * Every case of flat rows in reading order, numbered 1, 1.2, 1.2.3, with its title. The rows may be model
+ * instances: each is read field by field (spreading an instance would copy its internals, not its columns).
+ */
+export function numberedCases(rows: ReadonlyArray<CaseRow & { title: string }>): CaseNode<CaseRow & { title: string }>[] {
+  return flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title }))));
+}
+
+/** Each case's number ("2.1") by its id, from flat rows (model instances are read field by field). */
+export function caseNumbers(rows: ReadonlyArray<CaseRow>): Map<number, string> {
+  return new Map(flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+}
+
+/**
  * The part of a numbered tree a reader may see: visible cases keep their numbers and their visible
  * descendants; an invisible case is replaced by its visible descendants. `null` means everything.
  */

@@ -1,7 +1,7 @@
 "use client";
 import { useId, useMemo } from "react";
 import type { UseFormRegisterReturn } from "react-hook-form";
-import { conditionGuide } from "@/lib/core/families/case-condition";
+import { conditionGuide } from "@/lib/core/families/condition-words";
 import { readConditionText } from "@/lib/validations/case";
 import { Mark } from "@/components/ui/mark";
 

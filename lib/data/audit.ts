@@ -5,7 +5,7 @@ import "server-only";
  */
 import { Op, type Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
+import { caseNumbers, labelSteps } from "@/lib/proof-tree";
 import { eventSentence, placePhrase, type EventPlace } from "@/lib/review/event-sentences";
 import type { NameLens } from "./blind";
 
@@ -53,9 +53,7 @@ async function labels(
 ): Promise<{ cases: Map<number, string>; titles: Map<number, string>; steps: Map<number, string>; caseOfStep: Map<number, number> }> {
   const { Case, Step } = models();
   const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position", "title"] });
-  const cases = new Map(
-    flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
-  );
+  const cases = caseNumbers(rows);
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
   return {
     cases,

@@ -6,6 +6,7 @@ import { invalid, notFound, conflict } from "@/lib/errors";
 import { batchStatement } from "@/lib/core/claims/batch";
 import { CHECKER_VERSION } from "@/lib/core/claims/claims";
 import { NumberFormatError } from "@/lib/core/arithmetic/rational";
+import { JsonPathError } from "@/lib/core/path-error";
 import {
   batchChunkSize,
   QueueUnavailable,
@@ -116,8 +117,10 @@ export async function createBatch(proofId: number, stepId: number, userId: numbe
         : wanted.kind === "identified-as"
           ? "families"
           : wanted.kind === "enumeration-exactly"
-            ? (/\b(maxMultiplicity|maxLoop)\b/.exec((e as Error).message)?.[1] ?? "vertices")
+            ? "vertices"
             : "patterns";
+    if (e instanceof JsonPathError)
+      throw invalid(`The ${e.path === "vertices" ? "number of vertices" : e.path} does not fit.`, [{ path: e.path, message: e.detail }]);
     if (e instanceof NumberFormatError || e instanceof Error)
       throw invalid(path === "bound" ? "The bound does not read." : `The ${path} do not read.`, [{ path, message: e.message }]);
     throw e;

@@ -10,7 +10,7 @@ import { claimInputsView, type ClaimInputsView } from "@/lib/core/claims/claim-d
 import { pendingProgress } from "@/lib/data/claim-jobs";
 import type { ClaimStatus } from "@/lib/review/states";
 import { liveCases, stepsOfCases } from "@/lib/data/cases";
-import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { numberedCases, stepLabel } from "@/lib/proof-tree";
 import { certificateJson, claimView, withChecker, type ClaimView } from "@/lib/data/claim-views";
 
 export interface WithdrawnClaimView {
@@ -79,9 +79,7 @@ export async function listProofClaims(proofId: number, visible: ReadonlySet<numb
   const all = await liveCases(proofId);
   // Numbering uses every live case; the listing only the cases this reader may see.
   const cases = visible === null ? all : all.filter((c) => visible.has(c.id));
-  const numbered = new Map(
-    flattenCaseTree(buildCaseTree(all.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).map((n) => [n.id, n]),
-  );
+  const numbered = new Map(numberedCases(all).map((n) => [n.id, n]));
   const steps = await stepsOfCases(cases.map((c) => c.id));
   if (steps.length === 0) return [];
   const place = new Map<number, string>();

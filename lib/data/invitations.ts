@@ -10,7 +10,7 @@ import bcrypt from "bcryptjs";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
-import { buildCaseTree, flattenCaseTree } from "@/lib/proof-tree";
+import { caseNumbers } from "@/lib/proof-tree";
 import { deliverAfterCommit, deliverMail, enqueueMail, retryMailNow } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
 import type { ProofRole } from "@/lib/access/rules";
@@ -24,9 +24,8 @@ import { notify } from "./notifications";
 export const INVITATION_DAYS = 14;
 export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
-async function caseNumbers(proofId: number): Promise<Map<number, string>> {
-  const cases = await models().Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
-  return new Map(flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]));
+async function proofCaseNumbers(proofId: number): Promise<Map<number, string>> {
+  return caseNumbers(await models().Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] }));
 }
 
 /** The stored subject line is at most 300 characters: a long title is shortened there (the message body keeps it whole). */
@@ -52,7 +51,7 @@ export interface InvitationCreated {
 
 export async function createInvitation(proofId: number, inviter: CurrentUser, input: InvitationInput): Promise<InvitationCreated> {
   const { Proof, User, ProofMember, Invitation, InvitationCase } = models();
-  const numbers = await caseNumbers(proofId);
+  const numbers = await proofCaseNumbers(proofId);
   const role = input.role ?? "reviewer";
   const caseIds = role === "reviewer" && input.scope === "cases" ? [...new Set(input.caseIds ?? [])] : [];
   const foreign = caseIds.filter((id) => !numbers.has(id));
@@ -144,7 +143,7 @@ export async function listInvitations(proofId: number, roles?: readonly ProofRol
   const [scopes, mails, numbers] = await Promise.all([
     ids.length ? InvitationCase.findAll({ where: { invitationId: ids } }) : [],
     OutgoingMail.findAll({ where: { id: rows.map((r) => r.mailId).filter((x): x is number => x !== null) } }),
-    caseNumbers(proofId),
+    proofCaseNumbers(proofId),
   ]);
   const now = Date.now();
   return rows.map((r) => {
@@ -343,7 +342,7 @@ export async function shareWholeProof(proofId: number, reviewerId: number, actor
 /** The editor changes a referee's cases after the invitation: exactly these cases (and what lies below them). */
 export async function setReviewerCases(proofId: number, reviewerId: number, actorId: number, caseIds: number[]): Promise<{ scope: string }> {
   const { ProofMember, ReviewerScope } = models();
-  const numbers = await caseNumbers(proofId);
+  const numbers = await proofCaseNumbers(proofId);
   const chosen = [...new Set(caseIds)];
   const foreign = chosen.filter((id) => !numbers.has(id));
   if (foreign.length)

@@ -11,7 +11,7 @@ import { getSequelize } from "@/lib/db";
 import { models } from "@/models";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { expandScope, type Actor } from "@/lib/access/rules";
-import { buildCaseTree, commentsAnchor, flattenCaseTree } from "@/lib/proof-tree";
+import { caseNumbers, commentsAnchor } from "@/lib/proof-tree";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
 import { refereeLens } from "./blind";
 import { commentTree, type CommentNode } from "./comment-tree";
@@ -34,10 +34,10 @@ export const textDigest = (text: string) => createHash("sha256").update(text, "u
 /** A live case of this proof with its number ("2.1"), or 404 (a case of another proof or under a deleted case is not found). */
 export async function conditionCase(proofId: number, caseId: number, transaction?: Transaction) {
   const cases = await liveCases(proofId, transaction);
-  const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).find((c) => c.id === caseId);
+  const number = caseNumbers(cases).get(caseId);
   const row = cases.find((c) => c.id === caseId);
-  if (!node || !row) throw notFound("This case");
-  return { id: row.id, number: node.number, title: row.title, condition: row.condition };
+  if (number === undefined || !row) throw notFound("This case");
+  return { id: row.id, number, title: row.title, condition: row.condition };
 }
 
 const placeWhere = (proofId: number, place: CommentPlace) => ({ proofId, stepId: null, caseId: place.kind === "statement" ? null : place.caseId });

@@ -3,7 +3,7 @@ import "server-only";
 import { models } from "@/models";
 import { refereeLens } from "./blind";
 import type { DisputeState } from "@/lib/review/states";
-import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { numberedCases, stepLabel } from "@/lib/proof-tree";
 import { canMoveDispute, type DisputeTarget } from "@/lib/review/rules";
 import { disputeRefusal, verdictRefusal, type Actor } from "@/lib/access/rules";
 import { latestVouches, stepStatus, type StepStatus } from "@/lib/review/states";
@@ -168,7 +168,7 @@ export async function describeStep(step: StepRef): Promise<StepDescription> {
     Step.findByPk(step.id),
     step.latest ? StepRevision.findByPk(step.latest.id) : null,
   ]);
-  const numbered = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title }))));
+  const numbered = numberedCases(cases);
   const c = numbered.find((n) => n.id === step.caseId);
   const author = revision ? await User.findByPk(revision.authorId, { attributes: ["name"] }) : null;
   return {

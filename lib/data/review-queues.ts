@@ -5,7 +5,7 @@ import { textAuthors } from "@/lib/review/revisions";
  * the reviewer's and the author's queues, and per-reviewer progress for editors.
  */
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { buildCaseTree, flattenCaseTree, numberedCases, stepLabel } from "@/lib/proof-tree";
 import { caseState, proofState, stepStatus, isUnresolved, type CaseFacts, type CaseState, type ProofState, type StepFacts } from "@/lib/review/states";
 import { expandScope } from "@/lib/access/rules";
 import type { DisputeState } from "@/lib/review/states";
@@ -76,8 +76,7 @@ async function loadFacts(proofIds: number[]) {
   }));
   const numbered = new Map<number, { number: string; title: string; proofId: number }>();
   for (const pid of proofIds)
-    for (const n of flattenCaseTree(buildCaseTree(cases.filter((c) => c.proofId === pid))))
-      numbered.set(n.id, { number: n.number, title: n.title, proofId: pid });
+    for (const n of numberedCases(cases.filter((c) => c.proofId === pid))) numbered.set(n.id, { number: n.number, title: n.title, proofId: pid });
   const stepFacts = (s: StepRow): StepFacts => ({
     id: s.id,
     latestRevision: s.latestNumber,

@@ -8,7 +8,7 @@ import "server-only";
  */
 import type { Transaction } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, flattenCaseTree, labelSteps } from "@/lib/proof-tree";
+import { caseNumbers, labelSteps } from "@/lib/proof-tree";
 import { placePhrase, type EventPlace } from "@/lib/review/event-sentences";
 import { claimSetText, compareRevisions, describeChange, digestOfRevision, ordered, parseClaimSet, type RevisionClaim } from "@/lib/review/revisions";
 import type { ClaimStatus } from "@/lib/review/states";
@@ -61,9 +61,7 @@ export async function stepPhrase(stepId: number, transaction?: Transaction): Pro
     Step.findAll({ where: { caseId: here.id }, attributes: ["id", "caseId", "position"], transaction }),
     Proof.findByPk(here.proofId, { attributes: ["title"], transaction }),
   ]);
-  const numbers = new Map(
-    flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
-  );
+  const numbers = caseNumbers(cases);
   const place: EventPlace = { step: labelSteps(numbers, siblings).get(step.id) ?? null, caseNumber: numbers.get(here.id) ?? null, caseTitle: here.title };
   return `${placePhrase(place)} of “${proof?.title ?? ""}”`;
 }

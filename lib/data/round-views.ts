@@ -5,7 +5,7 @@ import "server-only";
  */
 import { Op } from "sequelize";
 import { models } from "@/models";
-import { buildCaseTree, compareStepLabels, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { caseNumbers, compareStepLabels, stepLabel } from "@/lib/proof-tree";
 import { recommendationLabel, refereeDisplayName, refereeStanding, reportAccess, type Recommendation, type RefereeStanding } from "@/lib/review/rounds";
 import type { ReviewRound } from "@/models/review-round";
 import type { RefereeReport } from "@/models/referee-report";
@@ -91,9 +91,7 @@ export interface RoundView {
 async function stepLabels(proofId: number): Promise<Map<number, string>> {
   const { Case, Step } = models();
   const rows = await Case.findAll({ where: { proofId }, attributes: ["id", "parentId", "position"] });
-  const cases = new Map(
-    flattenCaseTree(buildCaseTree(rows.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position })))).map((n) => [n.id, n.number]),
-  );
+  const cases = caseNumbers(rows);
   const steps = rows.length ? await Step.findAll({ where: { caseId: rows.map((c) => c.id) }, attributes: ["id", "caseId", "position"] }) : [];
   return new Map(steps.filter((s) => cases.has(s.caseId)).map((s) => [s.id, stepLabel(cases.get(s.caseId)!, s.position)]));
 }

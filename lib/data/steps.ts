@@ -5,7 +5,7 @@ import { diffLines } from "diff";
 import { models } from "@/models";
 import { getSequelize } from "@/lib/db";
 import { conflict, invalid, notFound } from "@/lib/errors";
-import { buildCaseTree, flattenCaseTree, stepLabel } from "@/lib/proof-tree";
+import { numberedCases, stepLabel } from "@/lib/proof-tree";
 import { liveCases } from "@/lib/data/cases";
 import { Op } from "sequelize";
 import { deliverAfterCommit } from "@/lib/mail/outbox";
@@ -56,9 +56,7 @@ export async function stepInProof(proofId: number, stepId: number, transaction?:
   const step = await Step.findByPk(stepId, { transaction });
   if (!step) throw notFound("This step");
   const cases = await liveCases(proofId, transaction);
-  const node = flattenCaseTree(buildCaseTree(cases.map((c) => ({ id: c.id, parentId: c.parentId, position: c.position, title: c.title })))).find(
-    (c) => c.id === step.caseId,
-  );
+  const node = numberedCases(cases).find((c) => c.id === step.caseId);
   if (!node) throw notFound("This step");
   return { step, node };
 }

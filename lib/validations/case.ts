@@ -1,6 +1,7 @@
 import { z } from "./zod";
 import type { Issue } from "@/lib/errors";
-import { ConditionError, describeCondition, parseCondition, type ConditionSetting } from "@/lib/core/families/case-condition";
+import { ConditionError, parseCondition, type ConditionSetting } from "@/lib/core/families/case-condition";
+import { describeCondition } from "@/lib/core/families/condition-words";
 
 /**
  * A case stores the whole condition language (patterns with loops and multiple edges, and "branch-vertices"

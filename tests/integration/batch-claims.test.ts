@@ -398,6 +398,8 @@ describe("the list is exactly an enumeration, up to isomorphism", () => {
       path: "vertices",
       message: "at most 20 vertices, as for an enumeration claim; lower the number of vertices",
     });
+    // A bound that does not read is answered on the bound, not on the number of vertices (common practice: name the field at fault).
+    expect(await refused({ vertices: 5, bound: "2+" })).toMatchObject({ path: "bound" });
     // ρ ≤ 3 is above √(2+√5): the cap of every connected graph on n vertices applies (11,117 on 8 vertices, OEIS A001349).
     expect(await refused({ vertices: 9, bound: "3" })).toMatchObject({
       path: "vertices",

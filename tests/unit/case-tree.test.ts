@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { casesBelow } from "@/lib/proof-tree";
+import { caseNumbers, casesBelow, numberedCases } from "@/lib/proof-tree";
 import { expandScope } from "@/lib/access/rules";
 import fc from "fast-check";
 
@@ -53,5 +53,46 @@ describe("casesBelow", () => {
         }
       }),
     );
+  });
+});
+
+// Numbers a case by its place among its siblings, at every depth (common practice: outline numbering).
+describe("numberedCases and caseNumbers", () => {
+  // A stand-in for a model instance: its columns are getters on the prototype, so a spread would copy nothing.
+  class Row {
+    constructor(private readonly v: { id: number; parentId: number | null; position: number; title: string }) {}
+    get id() {
+      return this.v.id;
+    }
+    get parentId() {
+      return this.v.parentId;
+    }
+    get position() {
+      return this.v.position;
+    }
+    get title() {
+      return this.v.title;
+    }
+  }
+  const instances = [
+    new Row({ id: 10, parentId: null, position: 2, title: "Two" }),
+    new Row({ id: 11, parentId: null, position: 1, title: "One" }),
+    new Row({ id: 12, parentId: 10, position: 1, title: "Two, first" }),
+    new Row({ id: 13, parentId: 12, position: 5, title: "Deep" }),
+  ];
+
+  it("reads model-like rows field by field and numbers them in reading order", () => {
+    expect(numberedCases(instances).map((n) => [n.number, n.id, n.title])).toEqual([
+      ["1", 11, "One"],
+      ["2", 10, "Two"],
+      ["2.1", 12, "Two, first"],
+      ["2.1.1", 13, "Deep"],
+    ]);
+    expect([...caseNumbers(instances)].sort((a, b) => a[0] - b[0])).toEqual([
+      [10, "2"],
+      [11, "1"],
+      [12, "2.1"],
+      [13, "2.1.1"],
+    ]);
   });
 });

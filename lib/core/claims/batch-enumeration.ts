@@ -14,6 +14,7 @@
 import type { Graph } from "../graph";
 import { Budget, type Verdict } from "../verdict";
 import { parseBound } from "../arithmetic/bound";
+import { JsonPathError } from "../path-error";
 import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { canonicalKeyOf } from "../families/canonical-label";
 import { claimEnumerationSetting, enumerateConnected, outsideSetting, settingWords } from "../families/enumeration";
@@ -51,10 +52,10 @@ export function enumerationBatchMax(s: Pick<EnumerationBatchStatement, "setting"
   return s.setting === "multigraph" ? multigraphMaxVertices(s.maxMultiplicity ?? 1, s.maxLoop ?? 0, MULTIGRAPH_BATCH_GRAPHS) : ENUMERATION_BATCH_MAX[s.setting];
 }
 
-/** Throws an Error saying what is wrong with the statement's setting, size or ρ condition. */
+/** Throws a JsonPathError naming the field (setting, maxMultiplicity, maxLoop, op, bound or vertices) that is wrong, and why. */
 export function validateEnumerationBatch(s: EnumerationBatchStatement): void {
   if (s.setting !== "tree" && s.setting !== "simple" && s.setting !== "multigraph")
-    throw new Error(`unknown setting "${String(s.setting)}"; use tree, simple or multigraph`);
+    throw new JsonPathError("setting", `unknown setting "${String(s.setting)}"; use tree, simple or multigraph`);
   if (s.setting === "multigraph") {
     for (const [k, min] of [
       ["maxMultiplicity", 1],
@@ -62,19 +63,29 @@ export function validateEnumerationBatch(s: EnumerationBatchStatement): void {
     ] as const) {
       const v = s[k];
       if (!Number.isInteger(v) || v! < min || v! > MULTIGRAPH_MAX_WEIGHT)
-        throw new Error(`with loops and multiple edges give ${k} as an integer from ${min} to ${MULTIGRAPH_MAX_WEIGHT}, got ${String(v)}`);
+        throw new JsonPathError(k, `with loops and multiple edges give ${k} as an integer from ${min} to ${MULTIGRAPH_MAX_WEIGHT}, got ${String(v)}`);
     }
   } else if (s.maxMultiplicity !== undefined || s.maxLoop !== undefined)
-    throw new Error('maxMultiplicity and maxLoop are given only with the setting "multigraph"');
+    throw new JsonPathError(
+      s.maxMultiplicity !== undefined ? "maxMultiplicity" : "maxLoop",
+      'maxMultiplicity and maxLoop are given only with the setting "multigraph"',
+    );
+  if ((s.op === undefined) !== (s.bound === undefined))
+    throw new JsonPathError(s.op === undefined ? "op" : "bound", "give both a relation and a bound, or neither");
+  if (s.op !== undefined && s.op !== "<" && s.op !== "<=") throw new JsonPathError("op", `the relation of an enumeration is < or ≤, not "${String(s.op)}"`);
+  if (s.bound !== undefined)
+    try {
+      parseBound(s.bound);
+    } catch (e) {
+      throw new JsonPathError("bound", (e as Error).message);
+    }
   const max = enumerationBatchMax(s);
   if (!Number.isInteger(s.vertices) || s.vertices < 1 || s.vertices > max) {
     const further = fewPerOrderText(s.bound)
       ? ` with ρ(G) ${s.op === "<" ? "<" : "≤"} ${s.bound} (as many as an enumeration claim allows)`
       : ` (lower the number of vertices${s.setting === "multigraph" ? ", or lower maxMultiplicity or maxLoop to go further," : ""}, or give a bound b ≤ ${FEW_PER_ORDER_BOUND} on ρ to go up to ${ENUMERATION_MAX_VERTICES})`;
-    throw new Error(`choose 1 to ${max} vertices for ${settingWords(claimEnumerationSetting(s))}${further}`);
+    throw new JsonPathError("vertices", `choose 1 to ${max} vertices for ${settingWords(claimEnumerationSetting(s))}${further}`);
   }
-  if ((s.op === undefined) !== (s.bound === undefined)) throw new Error("give both a relation and a bound, or neither");
-  if (s.op !== undefined && s.op !== "<" && s.op !== "<=") throw new Error(`the relation of an enumeration is < or ≤, not "${String(s.op)}"`);
 }
 
 /** The format the statement's graphs are named in: sparse6 with loops and multiple edges, graph6 otherwise. */

@@ -86,8 +86,14 @@ describe("the enumeration batch under a small bound", () => {
     expect(short.settled.missing).toHaveLength(1);
     expect(canonicalKeyOf(readGraphText(short.settled.missing[0]))).toBe(canonicalKeyOf(dynkinD(20)));
     expect(thrownBy(() => validateEnumerationBatch(statement(21, "<", "2")))?.message).toBe(
-      "choose 1 to 20 vertices for connected simple graphs with ρ(G) < 2 (as many as an enumeration claim allows)",
+      "vertices: choose 1 to 20 vertices for connected simple graphs with ρ(G) < 2 (as many as an enumeration claim allows)",
     );
+  });
+
+  it("names the field at fault: a bound that does not read is the bound's error, not the number of vertices", () => {
+    expect(thrownBy(() => validateEnumerationBatch(statement(5, "<=", "2+")))?.message).toMatch(/^bound: /);
+    expect(thrownBy(() => validateEnumerationBatch(statement(5, "<=", undefined)))?.message).toBe("bound: give both a relation and a bound, or neither");
+    expect(thrownBy(() => validateEnumerationBatch({ ...statement(5), maxLoop: 1 }))?.message).toMatch(/^maxLoop: /);
   });
 
   it("keeps the counting caps without a small bound, and says how to go further", () => {
@@ -97,7 +103,7 @@ describe("the enumeration batch under a small bound", () => {
     expect(enumerationBatchMax(statement(20, "<", "sqrt(2+sqrt(5))", "tree"))).toBe(20);
     expect(enumerationBatchMax({ ...statement(20, "<=", "2"), setting: "multigraph", maxMultiplicity: 4, maxLoop: 4 })).toBe(20);
     expect(thrownBy(() => validateEnumerationBatch(statement(9, "<=", "3")))?.message).toBe(
-      "choose 1 to 8 vertices for connected simple graphs (lower the number of vertices, or give a bound b ≤ sqrt(2+sqrt(5)) on ρ to go up to 20)",
+      "vertices: choose 1 to 8 vertices for connected simple graphs (lower the number of vertices, or give a bound b ≤ sqrt(2+sqrt(5)) on ρ to go up to 20)",
     );
   });
 });

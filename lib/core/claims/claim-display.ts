@@ -14,7 +14,7 @@ import { sha256Hex } from "../digest";
 import { degree, isSimple, summarizeGraph, type Graph } from "../graph";
 import { writeGraph6, writeSparse6 } from "../input/graph6";
 import { parseGraph } from "../input/parse";
-import { describeCondition } from "../families/case-condition";
+import { describeCondition } from "../families/condition-words";
 import { caseName, coverageCaution } from "../families/coverage";
 import { claimEnumerationSetting, settingWords } from "../families/enumeration";
 import { isMultilacedType } from "../spectral/dynkin-multilaced";

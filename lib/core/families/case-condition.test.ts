@@ -1,7 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { parseGraph } from "../input/parse";
 import { cycle, path, star, starlike, complete, completeBipartite } from "../input/constructors";
-import { ConditionError, describeCondition, evaluateCondition, parseCondition, validateCondition, type CaseCondition } from "./case-condition";
+import { ConditionError, parseCondition, validateCondition, type CaseCondition } from "./case-condition";
+import { describeCondition } from "./condition-words";
+import { evaluateCondition } from "./condition-eval";
 
 const holds = (c: unknown, g: ReturnType<typeof path>) => evaluateCondition(validateCondition(c), g);
 

@@ -4,16 +4,9 @@ import { parseGraph } from "../input/parse";
 import { path, star } from "../input/constructors";
 import { readGraphText } from "./enumeration";
 import { canonicalKeyOf } from "./canonical-label";
-import {
-  ConditionError,
-  NUMERIC_PREDICATES,
-  PLAIN_PREDICATES,
-  conditionGuide,
-  describeCondition,
-  evaluateCondition,
-  validateCondition,
-  type ConditionSetting,
-} from "./case-condition";
+import { ConditionError, NUMERIC_PREDICATES, PLAIN_PREDICATES, validateCondition, type ConditionSetting } from "./case-condition";
+import { conditionGuide, describeCondition } from "./condition-words";
+import { evaluateCondition } from "./condition-eval";
 
 const SIMPLE: ConditionSetting = {};
 const MULTI: ConditionSetting = { multigraph: true };

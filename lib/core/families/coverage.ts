@@ -16,7 +16,9 @@ import { graph6Mismatch, outsideSetting, readGraphText, settingOf, settingWords 
 import { type EnumerationSetting } from "./augmentation";
 import { enumeratePart, mergeParts } from "./augmentation-parts";
 import type { Graph } from "../graph";
-import { ConditionContext, describeCondition, evaluateCondition, type CaseCondition } from "./case-condition";
+import { type CaseCondition } from "./case-condition";
+import { describeCondition } from "./condition-words";
+import { ConditionContext, evaluateCondition } from "./condition-eval";
 import { multigraphCoverageMaxVertices } from "./coverage-limits";
 
 import { COVERAGE_MAX_VERTICES, type EnumerationSetting as ClaimSetting } from "../claims/claim-schema";
