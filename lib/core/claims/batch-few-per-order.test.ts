@@ -44,22 +44,14 @@ const check = (s: EnumerationBatchStatement, gs: readonly Graph[]) => {
   };
 };
 
-describe("bounds with few graphs per order", () => {
-  it("are exactly the bounds b ≤ √(2+√5), decided exactly", () => {
-    // √(2+√5) = √φ + 1/√φ ≈ 2.0581710 (φ the golden ratio; worked by hand: (√φ + 1/√φ)² = φ + 2 + 1/φ = 2 + √5).
-    for (const b of [
-      "2",
-      "3/2",
-      "2cos(pi/7)",
-      "sqrt(2+sqrt(5))",
-      "sqrt(sqrt(5)+2)",
-      "sqrt(phi)+1/sqrt(phi)",
-      "root(x^4-4x^2-1, 2, 3)",
-      "2.0581",
-      "sqrt(2+sqrt(5))-1/10^30",
-    ])
-      expect(fewPerOrder(parseBound(b)), b).toBe(true);
-    for (const b of ["2.0582", "sqrt(2+sqrt(5))+1/10^30", "(1+sqrt(5))/2+1/2", "3", "100"]) expect(fewPerOrder(parseBound(b)), b).toBe(false);
+// √(2+√5) = √φ + 1/√φ ≈ 2.0581710 (φ the golden ratio; worked by hand: (√φ + 1/√φ)² = φ + 2 + 1/φ = 2 + √5).
+const WITHIN = ["2", "3/2", "2cos(pi/7)", "sqrt(2+sqrt(5))", "sqrt(sqrt(5)+2)", "sqrt(phi)+1/sqrt(phi)", "root(x^4-4x^2-1, 2, 3)", "2.0581"];
+const BEYOND = ["2.0582", "sqrt(2+sqrt(5))+1/10^30", "(1+sqrt(5))/2+1/2", "3", "100"];
+
+describe("bounds with few graphs per order are exactly the bounds b ≤ √(2+√5), decided exactly", () => {
+  it.each([...WITHIN, "sqrt(2+sqrt(5))-1/10^30"])("%s is within", (b) => expect(fewPerOrder(parseBound(b))).toBe(true));
+  it.each(BEYOND)("%s is beyond", (b) => expect(fewPerOrder(parseBound(b))).toBe(false));
+  it("no bound, or one that does not read, is not small", () => {
     expect(fewPerOrderText(undefined)).toBe(false);
     expect(fewPerOrderText("not a bound")).toBe(false);
   });
