@@ -54,7 +54,7 @@ export function ConditionField({ text, field, hint, submitProblem }: { text: str
   );
 }
 
-/** What you can write: one line per predicate or connective, with an example and how it reads (lib/core/families/case-condition.ts). */
+/** What you can write: one line per predicate or connective, with an example and how it reads (lib/core/families/condition-words.ts). */
 function ConditionGuide() {
   const guide = useMemo(() => conditionGuide(), []);
   return (

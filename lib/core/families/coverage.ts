@@ -3,7 +3,7 @@
  * multiple edges of bounded weight) on at most N vertices satisfies the condition of at least one
  * sub-case", checked exhaustively over the isomorph-free enumeration
  * by canonical augmentation (augmentation.ts; B. D. McKay, "Isomorph-free exhaustive generation",
- * J. Algorithms 26 (1998)). Conditions are exact (case-condition.ts), so the verdict is exact for
+ * J. Algorithms 26 (1998)). Conditions are exact (condition-eval.ts), so the verdict is exact for
  * graphs up to N vertices; beyond N the split is the authors' argument. In the multigraph setting the
  * uncovered graphs are written in sparse6 (graph6 has no loops or multiple edges), in the other
  * settings in graph6.
