@@ -19,7 +19,7 @@ import { fewPerOrder } from "../core/families/few-per-order";
 import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
-import { claimPartJobId, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
+import { claimPartJobId, partWords, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
 
 /** Orders from which a claim is split, per setting (below them one job takes about a second or less). */
 const SPLIT_FROM: Record<string, number> = { simple: 7, tree: 12, multigraph: 5 };
@@ -47,9 +47,6 @@ export function partsFor(claim: ClaimJson): number {
 }
 
 type ClaimRef = Omit<ClaimJobData, "type">;
-
-/** "part 2 of 4": a part as the reasons and the worker's log name it (1-based). */
-export const partWords = (p: Pick<ClaimPartJobData, "part" | "parts">): string => `part ${p.part + 1} of ${p.parts}`;
 
 const storedParts = async (c: ClaimRef) => models().ClaimPart.findAll({ where: { claimId: c.claimId, verifyRound: c.round }, order: [["part", "ASC"]] });
 
