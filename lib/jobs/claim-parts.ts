@@ -14,11 +14,10 @@ import type { Job } from "bullmq";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { DEFAULT_MAX_PARTS, partsOf } from "../core/claims/part-count";
-import { partWords } from "../core/certificates/parts-plan";
 import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
-import { claimPartJobId, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
+import { claimPartJobId, partWords, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
 
 /** The most parts of one claim (CAIRN_CLAIM_PARTS_MAX, default 8). */
 const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || DEFAULT_MAX_PARTS);
@@ -27,8 +26,6 @@ const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || 
 export const partsFor = (claim: ClaimJson): number => partsOf(claim, maxParts());
 
 type ClaimRef = Omit<ClaimJobData, "type">;
-
-export { partWords };
 
 const storedParts = async (c: ClaimRef) => models().ClaimPart.findAll({ where: { claimId: c.claimId, verifyRound: c.round }, order: [["part", "ASC"]] });
 
