@@ -17,6 +17,7 @@ import { readClaimsDocument } from "./claims/claim-file";
 import { ClaimError } from "./claims/claim-schema";
 import { CHECKER_VERSION, describeRanOn, verifyClaim, type ClaimResult } from "./claims/claims";
 import { TimedBudget } from "./time-budget";
+import { claimPartsOptions } from "./certificates/parts-plan";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
 import { EXIT_MALFORMED, EXIT_OK, claimLineFields, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./certificates/check-report";
 
@@ -77,7 +78,7 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
     try {
       const steps = options.steps ?? DEFAULT_STEP_LIMIT;
       const budget = options.timeLimitMs !== undefined ? new TimedBudget(steps, options.timeLimitMs) : new Budget(steps);
-      lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path })));
+      lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path, ...claimPartsOptions(options.parts, entry.path, entry.claim) })));
     } catch (e) {
       // verifyClaim throws for malformed input (a graph text that does not parse, an embedding of the
       // wrong length). Anything else is a fault in the checker: a reader gets a line, not a stack trace,

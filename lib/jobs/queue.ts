@@ -10,6 +10,7 @@
  */
 import { Queue, type ConnectionOptions, type Job } from "bullmq";
 import type { BundleCheckReport } from "../core/certificates/bundle";
+import { partWords } from "../core/certificates/parts-plan";
 
 export const QUEUE_NAME = "verification";
 /** How long the web process waits for Redis before calling verification paused. */
@@ -202,8 +203,8 @@ export async function verificationService(): Promise<VerificationService> {
   }
 }
 
-/** "part 2 of 4": a part as the reasons, the claim card and the worker's log name it (1-based). */
-export const partWords = (p: Pick<ClaimPartJobData, "part" | "parts">): string => `part ${p.part + 1} of ${p.parts}`;
+/** "part 2 of 4": a part as the reasons, the claim card and the worker's log name it (1-based); the core's words, which the offline checker uses too. */
+export { partWords };
 
 /** BullMQ's reason for a failed attempt as stored in a claim's reason or shown while it is tried again: at most 300 characters. */
 export const failedReasonText = (failedReason: string | null | undefined): string => (failedReason || "no reason given").slice(0, 300);
