@@ -133,7 +133,9 @@ export function quotientByDoubleWord(d: bigint): (x: bigint) => DW | undefined {
   return (x) => {
     if (x === 0n) return { hi: 0, lo: 0 };
     const xs = x >> shift;
-    if (xs === 0n || xs === -1n) return { hi: 0, lo: 0 }; // |x/d| < 2^-167: inside the absolute term
+    // After a shift, 0 and −1 (floor of a small negative x) mean |x/d| < 2^-167: inside the absolute term. Without
+    // one, x is exact: x = −1 is −1/d (b − loop = −1 at b = −1), not 0.
+    if (shift > 0n && (xs === 0n || xs === -1n)) return { hi: 0, lo: 0 };
     const xBits = (xs < 0n ? -xs : xs).toString(16).length * 4;
     // Q = trunc(xs·2^s / dd) with |Q| ≥ 2^110: s ≥ 110 + bits(dd) − bits(xs) + 4 (hex rounding of the lengths).
     const s = 118 + ddBits - xBits;
