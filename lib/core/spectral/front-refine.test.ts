@@ -14,6 +14,9 @@ import { completeBipartite, cycle } from "../input/constructors";
 import { isqrt, rat, type Rational } from "../arithmetic/rational";
 import { quotientByDoubleWord } from "../arithmetic/double-word";
 import { Budget } from "../verdict";
+import { enclose, parseBound, type Bound } from "../arithmetic/bound";
+import { rationalEnclosure } from "../arithmetic/number-field";
+import { floatDefinite } from "./radius-probes";
 import { adjacency, type Graph } from "../graph";
 import { cubicWorkload, workloadGraph } from "../../../tests/bench/workloads";
 
@@ -133,6 +136,22 @@ describe("double-word step of the certified front", () => {
       expect(counts(sparseInertia(g, b, "none", big(), undefined, { degree })), name).toEqual(exact);
     },
   );
+
+  it("an irrational b within 2^-60 of ρ: √(306 ± 2^-60) for K_{17,18}, √(9 ± 2^-60) for a cubic graph — the double-word run decides", () => {
+    // ρ(K_{17,18}) = √306 (spectrum ±√306, 0³³; B&H §1.4, from memory); ρ = 3 for a connected cubic graph (B&H Prop. 3.1.1).
+    for (const [g, r] of [
+      [completeBipartite(17, 18), 306n],
+      [workloadGraph(cubicWorkload(60)), 9n],
+    ] as const)
+      for (const sgn of [1n, -1n]) {
+        const b = parseBound(`sqrt(${(r << 60n) + sgn}/${1n << 60n})`) as Bound & { kind: "algebraic" };
+        // The double run alone, at b's double enclosure, cannot separate b from ρ.
+        const { lo, hi } = enclose(b, 64);
+        const double = certifiedRun(g, { lo: rationalEnclosure(lo)![0], hi: rationalEnclosure(hi)![1] }, "double", 16, () => {}).result;
+        expect(double, `r = ${r}`).toBeUndefined();
+        expect(floatDefinite(g, b, big()), `r = ${r} ${sgn > 0 ? "+" : "−"} 2^-60`).toBe(sgn > 0n);
+      }
+  });
 
   it("ρ(K_{17,18}) < √306 + 2^-60 is verified by an inertia certificate that re-checks, and tampered certificates are refused", () => {
     const g = completeBipartite(17, 18);
