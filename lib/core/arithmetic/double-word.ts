@@ -133,8 +133,7 @@ export function quotientByDoubleWord(d: bigint): (x: bigint) => DW | undefined {
   return (x) => {
     if (x === 0n) return { hi: 0, lo: 0 };
     const xs = x >> shift;
-    // After a shift, 0 and −1 (floor of a small negative x) mean |x/d| < 2^-167: inside the absolute term. Without
-    // one, x is exact: x = −1 is −1/d (b − loop = −1 at b = −1), not 0.
+    // Shifted: |d| ≥ 2^169, so x' ∈ {0, −1} means |x/d| ≤ 2^-168, inside the absolute term (unshifted, x' = x is exact).
     if (shift > 0n && (xs === 0n || xs === -1n)) return { hi: 0, lo: 0 };
     const xBits = (xs < 0n ? -xs : xs).toString(16).length * 4;
     // Q = trunc(xs·2^s / dd) with |Q| ≥ 2^110: s ≥ 110 + bits(dd) − bits(xs) + 4 (hex rounding of the lengths).

@@ -14,6 +14,9 @@ import { completeBipartite, cycle } from "../input/constructors";
 import { isqrt, rat, type Rational } from "../arithmetic/rational";
 import { quotientByDoubleWord } from "../arithmetic/double-word";
 import { Budget } from "../verdict";
+import { enclose, parseBound, type Bound } from "../arithmetic/bound";
+import { rationalEnclosure } from "../arithmetic/number-field";
+import { floatDefinite } from "./radius-probes";
 import { adjacency, type Graph } from "../graph";
 import { cubicWorkload, workloadGraph } from "../../../tests/bench/workloads";
 
@@ -36,6 +39,14 @@ function petersen(): Graph {
 /** √s to within 2^-bits, as a dyadic rational (floor). */
 function sqrtApprox(s: bigint, bits: number): Rational {
   return rat(isqrt(s << BigInt(2 * bits)), 1n << BigInt(bits));
+}
+
+/** v·2^k as an exact BigInt (v = m·2^e with a 53-bit integer m; needs k + e ≥ 0). */
+function scaledExactly(v: number, k: bigint): bigint {
+  if (v === 0) return 0n;
+  const e = Math.floor(Math.log2(Math.abs(v))) - 60;
+  const m = v / 2 ** e; // an integer below 2^62, exact (a power-of-two scaling)
+  return BigInt(m) << (k + BigInt(e));
 }
 
 /** p/q + sgn·2^-e. */
@@ -81,15 +92,17 @@ const cycles: Array<[string, Graph, Rational, number]> = [
 
 describe("double-word step of the certified front", () => {
   it("the double-word quotient N/D is within 2^-104 of the exact value (checked exactly in BigInt)", () => {
-    const d = (1n << 3000n) + 12345678901234567n;
-    const toWord = quotientByDoubleWord(d);
-    for (const x of [d / 3n, -(d * 7n) / 5n, d >> 40n, (d << 20n) + 1n, 1n << 2900n]) {
-      const w = toWord(x)!;
+    const long = (1n << 3000n) + 12345678901234567n;
+    const pairs: Array<[bigint, bigint]> = [long / 3n, -(long * 7n) / 5n, long >> 40n, (long << 20n) + 1n, 1n << 2900n].map((x) => [x, long]);
+    // Short denominators, where nothing is shifted: −1/1, −1/3, 7/−5.
+    pairs.push([-1n, 1n], [-1n, 3n], [7n, -5n]);
+    for (const [x, d] of pairs) {
+      const w = quotientByDoubleWord(d)(x)!;
       // (hi + lo) as an exact dyadic rational, compared with x/d: |hi + lo − x/d|·d·2^k ≤ 2^-104·|x|·2^k.
       const k = 1200n;
-      const approx = BigInt(Math.round(w.hi * 2 ** 100)) * (1n << (k - 100n)) + BigInt(Math.round(w.lo * 2 ** 200)) * (1n << (k - 200n));
+      const approx = scaledExactly(w.hi, k) + scaledExactly(w.lo, k);
       const err = approx * d - (x << k);
-      expect((err < 0n ? -err : err) * (1n << 104n) <= (x < 0n ? -x : x) << k).toBe(true);
+      expect((err < 0n ? -err : err) * (1n << 104n) <= (x < 0n ? -x : x) << k, `${x}/${d}`).toBe(true);
     }
   });
 
@@ -144,6 +157,22 @@ describe("double-word step of the certified front", () => {
       expect(counts(sparseInertia(g, b, "none", big(), undefined, { degree })), name).toEqual(exact);
     },
   );
+
+  it("an irrational b within 2^-60 of ρ: √(306 ± 2^-60) for K_{17,18}, √(9 ± 2^-60) for a cubic graph — the double-word run decides", () => {
+    // ρ(K_{17,18}) = √306 (spectrum ±√306, 0³³; B&H §1.4, from memory); ρ = 3 for a connected cubic graph (B&H Prop. 3.1.1).
+    for (const [g, r] of [
+      [completeBipartite(17, 18), 306n],
+      [workloadGraph(cubicWorkload(60)), 9n],
+    ] as const)
+      for (const sgn of [1n, -1n]) {
+        const b = parseBound(`sqrt(${(r << 60n) + sgn}/${1n << 60n})`) as Bound & { kind: "algebraic" };
+        // The double run alone, at b's double enclosure, cannot separate b from ρ.
+        const { lo, hi } = enclose(b, 64);
+        const double = certifiedRun(g, { lo: rationalEnclosure(lo)![0], hi: rationalEnclosure(hi)![1] }, "double", 16, () => {}).result;
+        expect(double, `r = ${r}`).toBeUndefined();
+        expect(floatDefinite(g, b, big()), `r = ${r} ${sgn > 0 ? "+" : "−"} 2^-60`).toBe(sgn > 0n);
+      }
+  });
 
   it("ρ(K_{17,18}) < √306 + 2^-60 is verified by an inertia certificate that re-checks, and tampered certificates are refused", () => {
     const g = completeBipartite(17, 18);
