@@ -26,6 +26,8 @@ if (process.argv[2] === "--make-bundle") {
 }
 
 let main;
+// Threads for --parallel run the checker's own module again: the bundle as it is, the sources through cairn-check-thread.mjs.
+let start = {};
 if (existsSync(bundle)) {
   ({ main } = await import(new URL("./cairn-check.bundle.mjs", import.meta.url).href));
 } else {
@@ -41,5 +43,6 @@ if (existsSync(bundle)) {
   }
   register();
   ({ main } = await import(new URL("../lib/core/cli.ts", import.meta.url).href));
+  start = { script: new URL("./cairn-check-thread.mjs", import.meta.url) };
 }
-process.exitCode = main(process.argv.slice(2));
+process.exitCode = await main(process.argv.slice(2), undefined, start);

@@ -70,7 +70,11 @@ export function ClaimCard(props: {
       {claim.status === "pending" ? (
         <p className="mt-2 text-sm text-stone-600" aria-live="polite">
           {claim.progress?.parts
-            ? `This claim is checked in ${claim.progress.parts.of} independent parts, shared among the verification workers: ${claim.progress.parts.done} of ${claim.progress.parts.of} parts done; the verdict appears here when all are in.`
+            ? `This claim is checked in ${claim.progress.parts.of} independent parts, shared among the verification workers: ${claim.progress.parts.done} of ${claim.progress.parts.of} parts done; ${
+                claim.progress.parts.retrying?.length
+                  ? `${claim.progress.parts.retrying.map((r) => r.words).join("; ")}. The verdict appears here when all are in; a part that fails on every attempt leaves the claim undecided with its reason, and a re-check runs it again.`
+                  : "the verdict appears here when all are in."
+              }`
             : claim.progress?.state === "checking"
               ? `A verification worker (${claim.progress.worker ?? "unnamed"}) is checking this claim; the verdict appears here when it is done.`
               : claim.progress?.state === "retrying"

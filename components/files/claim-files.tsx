@@ -3,7 +3,7 @@ import { useState } from "react";
 import useSWR from "swr";
 import { jsonFetcher } from "@/components/proof/api-client";
 import type { StepFileView } from "@/lib/data/files";
-import { formatBytes, sendFile } from "./upload-request";
+import { formatBytes, refusalText, sendFile } from "./upload-request";
 
 /**
  * The files uploaded to a claim (supporting documents, a claims file), with download links, read from the step's file
@@ -29,7 +29,7 @@ export function ClaimFiles({ proofId, stepId, claimId, partSize }: { proofId: nu
         claimId,
       );
       if (answer.status === 200 || answer.status === 201) await mutate();
-      else setProblem(answer.body?.error?.message ?? `The server answered ${answer.status}; nothing was saved.`);
+      else setProblem(refusalText(answer));
     } catch (e) {
       setProblem((e as Error).message);
     } finally {

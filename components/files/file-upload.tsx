@@ -1,7 +1,7 @@
 "use client";
 import { useRef, useState } from "react";
 import { useSWRConfig } from "swr";
-import { formatBytes, sendFile } from "./upload-request";
+import { formatBytes, refusalText, sendFile } from "./upload-request";
 
 const KINDS = [
   { value: "", label: "decide by its content" },
@@ -37,7 +37,7 @@ export function FileUpload({ proofId, stepId, partSize }: { proofId: number; ste
         );
         await mutate(`/api/proofs/${proofId}/steps/${stepId}/files`);
       } else {
-        setProblem(answer.body?.error?.message ?? `The server answered ${answer.status}; nothing was saved.`);
+        setProblem(refusalText(answer));
       }
     } catch (e) {
       setProblem((e as Error).message);

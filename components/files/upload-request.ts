@@ -1,3 +1,5 @@
+import { ApiError, apiFetch } from "@/components/proof/api-client";
+
 /**
  * Sends one file as the raw body of a POST with XMLHttpRequest, which (unlike fetch) reports upload
  * progress. Resolves with the status and the parsed JSON answer; rejects only when the network fails.
@@ -35,6 +37,9 @@ export function uploadWithProgress(
   });
 }
 
+/** What the upload forms show for a refused upload: the server's message, or its status when it gave none. */
+export const refusalText = (answer: UploadAnswer): string => answer.body?.error?.message ?? `The server answered ${answer.status}; nothing was saved.`;
+
 export const formatBytes = (n: number): string =>
   n < 1024 ? `${n} bytes` : n < 1024 * 1024 ? `${(n / 1024).toFixed(1)} KiB` : `${(n / (1024 * 1024)).toFixed(1)} MiB`;
 
@@ -46,6 +51,24 @@ interface PartUploadState {
 }
 
 const ROUNDS = 4;
+
+/**
+ * The upload's JSON calls (start, which parts are in, finish) go through the one API client; a refusal comes back as
+ * the answer, with the server's error body, as a refused upload in one request does, so the form shows the server's
+ * message; a call that cannot reach the server says so. The parts themselves are raw bytes, not JSON: they go by
+ * uploadWithProgress (XMLHttpRequest, which reports upload progress; neither fetch nor the JSON client does).
+ */
+async function uploadCall<T>(url: string, init: { method?: string; body?: unknown; signal?: AbortSignal }): Promise<{ ok: T } | { refused: UploadAnswer }> {
+  try {
+    return { ok: await apiFetch<T>(url, init) };
+  } catch (e) {
+    // The server's own message (the form says "The server answered …; nothing was saved." when it gave none).
+    if (e instanceof ApiError)
+      return { refused: { status: e.status, body: { error: { message: typeof e.body.message === "string" ? e.body.message : undefined } } } };
+    if (init.signal?.aborted) throw e;
+    throw new Error("The connection failed during the upload; nothing was saved. Try again.");
+  }
+}
 
 /**
  * Sends a file larger than one part as an upload in parts (lib/data/part-uploads.ts): start, each part (with its
@@ -61,16 +84,13 @@ export async function uploadInParts(
   signal?: AbortSignal,
   claimId?: number,
 ): Promise<UploadAnswer> {
-  const json = async (res: Response): Promise<UploadAnswer["body"] & { upload?: PartUploadState }> => res.json().catch(() => null);
-  const started = await fetch(`${stepUrl}/uploads`, {
+  const started = await uploadCall<{ upload: PartUploadState }>(`${stepUrl}/uploads`, {
     method: "POST",
-    headers: { "content-type": "application/json" },
-    body: JSON.stringify({ name: file.name, size: file.size, ...(kind ? { kind } : {}), ...(claimId ? { claimId } : {}) }),
+    body: { name: file.name, size: file.size, ...(kind ? { kind } : {}), ...(claimId ? { claimId } : {}) },
     signal,
   });
-  const start = await json(started);
-  if (started.status !== 201 || !start?.upload) return { status: started.status, body: start };
-  let upload = start.upload;
+  if ("refused" in started) return started.refused;
+  let upload = started.ok.upload;
   const base = `${stepUrl}/uploads/${upload.id}`;
   const lengthOf = (n: number) => Math.min(upload.partSize, file.size - (n - 1) * upload.partSize);
   for (let round = 0; round < ROUNDS && upload.missing.length > 0; round++) {
@@ -94,14 +114,15 @@ export async function uploadInParts(
       done += lengthOf(n);
       onProgress(done, file.size);
     }
-    const asked = await fetch(base, { signal });
-    const state = await json(asked);
-    if (asked.status !== 200 || !state?.upload) return { status: asked.status, body: state };
-    upload = state.upload;
+    const asked = await uploadCall<{ upload: PartUploadState }>(base, { signal });
+    if ("refused" in asked) return asked.refused;
+    upload = asked.ok.upload;
   }
   if (upload.missing.length > 0) throw new Error("The connection kept failing during the upload; nothing was saved. Try again.");
-  const finished = await fetch(`${base}/finish`, { method: "POST", signal });
-  return { status: finished.status, body: await json(finished) };
+  const finished = await uploadCall<NonNullable<UploadAnswer["body"]>>(`${base}/finish`, { method: "POST", signal });
+  if ("refused" in finished) return finished.refused;
+  // The finish answers 201 for a new file and 200 when the step already had these bytes (duplicate).
+  return { status: finished.ok.duplicate ? 200 : 201, body: finished.ok };
 }
 
 /**

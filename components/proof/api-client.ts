@@ -16,11 +16,13 @@ export class ApiError extends Error {
   }
 }
 
-export async function apiFetch<T>(url: string, init?: { method?: string; body?: unknown }): Promise<T> {
+/** Calls a JSON route: the parsed answer, or ApiError with the server's message; `signal` stops the call (fetch's AbortError). */
+export async function apiFetch<T>(url: string, init?: { method?: string; body?: unknown; signal?: AbortSignal }): Promise<T> {
   const res = await fetch(url, {
     method: init?.method ?? "GET",
     headers: init?.body !== undefined ? { "content-type": "application/json" } : undefined,
     body: init?.body !== undefined ? JSON.stringify(init.body) : undefined,
+    signal: init?.signal,
   });
   const data = await res.json().catch(() => null);
   if (!res.ok) {

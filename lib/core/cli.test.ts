@@ -26,9 +26,9 @@ describe("offline checker", () => {
     expect(report.exitCode).toBe(EXIT_NOT_VERIFIED);
   });
 
-  it("exits 0 when everything is verified", () => {
+  it("exits 0 when everything is verified", async () => {
     const path = writeJson("ok.json", { format: "cairn-claim/1", kind: "structure", graph: { format: "named", text: "path(3)" }, predicate: "tree" });
-    expect(main([path], () => {})).toBe(EXIT_OK);
+    expect(await main([path], () => {})).toBe(EXIT_OK);
   });
 
   it("names the JSON path of a malformed claim and exits 2, still checking the others", () => {
@@ -52,10 +52,10 @@ describe("offline checker", () => {
     expect(report.lines[0].text).toMatch(/^\$\[0\]\.graph\.text: /);
   });
 
-  it("undecided counts against the exit code", () => {
+  it("undecided counts against the exit code", async () => {
     const path = writeJson("big.json", { format: "cairn-claim/1", kind: "structure", graph: { format: "named", text: "path(1000)" }, predicate: "connected" });
     const out: string[] = [];
-    expect(main(["--steps", "10", path], (s) => out.push(s))).toBe(EXIT_NOT_VERIFIED);
+    expect(await main(["--steps", "10", path], (s) => out.push(s))).toBe(EXIT_NOT_VERIFIED);
     expect(out.join("\n")).toContain("? undecided");
   });
 
@@ -85,15 +85,15 @@ describe("offline checker", () => {
     expect(checkFile(writeJson("coverage-bad.json", { ...claim, certificate: dropped })).lines[0].certificate?.matches).toBe(false);
   });
 
-  it("--verbose prints the reason and notes of each verdict", () => {
+  it("--verbose prints the reason and notes of each verdict", async () => {
     const out: string[] = [];
-    main(["--verbose", join(FIXTURES, "structure.json")], (s) => out.push(s));
+    await main(["--verbose", join(FIXTURES, "structure.json")], (s) => out.push(s));
     expect(out.join("\n")).toMatch(/\n    · a spanning tree exists and G has exactly n − 1 = 7 edges/);
   });
 
-  it("--json prints a machine-readable report", () => {
+  it("--json prints a machine-readable report", async () => {
     const out: string[] = [];
-    main(["--json", join(FIXTURES, "structure.json")], (s) => out.push(s));
+    await main(["--json", join(FIXTURES, "structure.json")], (s) => out.push(s));
     const parsed = JSON.parse(out.join("\n"));
     expect(parsed.reports[0].lines).toHaveLength(5);
     expect(parsed.reports[0].exitCode).toBe(EXIT_NOT_VERIFIED);
@@ -146,7 +146,7 @@ describe("offline checker", () => {
     expect(formatReport(wrong, true)).toMatch(/\|W\(G2\)\| = 12, not 24/);
   });
 
-  it("rejects unknown options with exit 2", () => {
-    expect(main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
+  it("rejects unknown options with exit 2", async () => {
+    expect(await main(["--frobnicate"], () => {})).toBe(EXIT_MALFORMED);
   });
 });

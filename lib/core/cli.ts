@@ -10,6 +10,8 @@
  *   2  the file or some claim in it is malformed (the message names the JSON path), or usage error.
  */
 import { readFileSync } from "node:fs";
+import { availableParallelism } from "node:os";
+import { isMainThread } from "node:worker_threads";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { BUNDLE_FORMAT, checkBundle } from "./certificates/bundle";
@@ -17,6 +19,8 @@ import { readClaimsDocument } from "./claims/claim-file";
 import { ClaimError } from "./claims/claim-schema";
 import { CHECKER_VERSION, describeRanOn, verifyClaim, type ClaimResult } from "./claims/claims";
 import { TimedBudget } from "./time-budget";
+import { claimPartsOptions } from "./certificates/parts-plan";
+import { partsOnThreads, type ThreadOptions } from "./cli-parts";
 import { Budget, DEFAULT_STEP_LIMIT } from "./verdict";
 import { EXIT_MALFORMED, EXIT_OK, claimLineFields, exitCodeOf, type CheckLine, type CheckOptions, type CheckReport } from "./certificates/check-report";
 
@@ -77,7 +81,7 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
     try {
       const steps = options.steps ?? DEFAULT_STEP_LIMIT;
       const budget = options.timeLimitMs !== undefined ? new TimedBudget(steps, options.timeLimitMs) : new Budget(steps);
-      lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path })));
+      lines.push(lineOf(label, verifyClaim(entry.claim, { budget, path: entry.path, ...claimPartsOptions(options.parts, entry.path, entry.claim) })));
     } catch (e) {
       // verifyClaim throws for malformed input (a graph text that does not parse, an embedding of the
       // wrong length). Anything else is a fault in the checker: a reader gets a line, not a stack trace,
@@ -94,21 +98,41 @@ function checkClaims(json: unknown, source: string, options: CheckOptions): Chec
   return { source, lines, exitCode: exitCodeOf(lines) };
 }
 
-/** Reads and checks one file; a file that is not JSON or not a known document is reported as malformed. */
-export function checkFile(path: string, options: CheckOptions = {}): CheckReport {
-  let json: unknown;
+/** Reads one file as JSON; a file that cannot be read or is not JSON is reported as malformed. */
+function readDocument(path: string): { json: unknown } | { report: CheckReport } {
   try {
-    json = JSON.parse(readFileSync(path, "utf8"));
+    return { json: JSON.parse(readFileSync(path, "utf8")) };
   } catch (e) {
     const why = e instanceof SyntaxError ? `not valid JSON: ${e.message}` : `cannot read: ${e instanceof Error ? e.message : String(e)}`;
-    return { source: path, lines: [{ label: "$", status: "malformed", text: why }], exitCode: EXIT_MALFORMED };
+    return { report: { source: path, lines: [{ label: "$", status: "malformed", text: why }], exitCode: EXIT_MALFORMED } };
   }
+}
+
+function checkRead(json: unknown, path: string, options: CheckOptions): CheckReport {
   try {
     return checkDocument(json, path, options);
   } catch (e) {
     if (e instanceof ClaimError) return { source: path, lines: [{ label: "$", status: "malformed", text: e.message }], exitCode: EXIT_MALFORMED };
     throw e;
   }
+}
+
+/** Reads and checks one file; a file that is not JSON or not a known document is reported as malformed. */
+export function checkFile(path: string, options: CheckOptions = {}): CheckReport {
+  const read = readDocument(path);
+  return "report" in read ? read.report : checkRead(read.json, path, options);
+}
+
+/**
+ * As checkFile, with the large enumeration and coverage claims checked in parts on worker threads
+ * (cli-parts.ts): the same report, verdicts and digests as checkFile gives.
+ */
+export async function checkFileOnThreads(path: string, options: CheckOptions, threads: Omit<ThreadOptions, "steps" | "timeLimitMs">): Promise<CheckReport> {
+  const read = readDocument(path);
+  if ("report" in read) return read.report;
+  const steps = options.steps ?? DEFAULT_STEP_LIMIT;
+  const parts = await partsOnThreads(read.json, { ...threads, steps, ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) });
+  return checkRead(read.json, path, { ...options, parts });
 }
 
 export function formatReport(report: CheckReport, verbose = false): string {
@@ -132,15 +156,22 @@ export function formatReport(report: CheckReport, verbose = false): string {
 /** A reader's machine should never hang on a claim: past this, the claim is reported undecided. */
 const DEFAULT_TIME_LIMIT_S = 120;
 
-const USAGE = `usage: cairn-check [--steps N] [--time-limit SECONDS] [--json] [--verbose] FILE...
-Checks Cairn claims files (cairn-claim/1, cairn-claims/1) exactly, offline.
+const USAGE = `usage: cairn-check [--steps N] [--time-limit SECONDS] [--parallel N] [--json] [--verbose] FILE...
+Checks Cairn claims files (cairn-claim/1, cairn-claims/1) and exported bundles (cairn-bundle/1) exactly, offline.
+--parallel N: check large enumeration and coverage claims in parts on N threads (default: the cores available; 1: in one piece).
 Exit 0: all verified; 1: something refuted, undecided or a certificate not matching; 2: malformed input.`;
 
-/** Runs the checker on command-line arguments; returns the exit code. */
-export function main(argv: string[], print: (s: string) => void = (s) => process.stdout.write(s + "\n")): number {
+/** How the checker starts its threads: this module again (the single-file bundle is one module), or a script that loads it. */
+export interface ThreadStart {
+  readonly script?: string | URL;
+}
+
+/** Runs the checker on command-line arguments; resolves to the exit code. */
+export async function main(argv: string[], print: (s: string) => void = (s) => process.stdout.write(s + "\n"), start: ThreadStart = {}): Promise<number> {
   const files: string[] = [];
   let steps: number | undefined;
   let seconds = DEFAULT_TIME_LIMIT_S;
+  let threads = availableParallelism();
   let json = false,
     verbose = false;
   for (let i = 0; i < argv.length; i++) {
@@ -162,6 +193,12 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
         print(`--time-limit needs a positive number of seconds\n${USAGE}`);
         return EXIT_MALFORMED;
       }
+    } else if (a === "--parallel") {
+      threads = Number(argv[++i]);
+      if (!Number.isSafeInteger(threads) || threads < 1 || threads > 256) {
+        print(`--parallel needs a number of threads from 1 to 256\n${USAGE}`);
+        return EXIT_MALFORMED;
+      }
     } else if (a === "--version") {
       print(CHECKER_VERSION);
       return EXIT_OK;
@@ -174,7 +211,10 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
     print(USAGE);
     return EXIT_MALFORMED;
   }
-  const reports = files.map((f) => checkFile(f, { steps, timeLimitMs: seconds * 1000 }));
+  const options = { steps, timeLimitMs: seconds * 1000 };
+  const reports: CheckReport[] = [];
+  for (const f of files)
+    reports.push(threads > 1 ? await checkFileOnThreads(f, options, { threads, script: start.script ?? new URL(import.meta.url) }) : checkFile(f, options));
   if (json) print(JSON.stringify({ checkerVersion: CHECKER_VERSION, reports }, null, 2));
   else {
     print(`cairn-check ${CHECKER_VERSION}`);
@@ -183,7 +223,10 @@ export function main(argv: string[], print: (s: string) => void = (s) => process
   return Math.max(...reports.map((r) => r.exitCode));
 }
 
-// Run when executed directly (`tsx lib/core/cli.ts`); bin/cairn-check.mjs imports and calls `main`.
-if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  process.exitCode = main(process.argv.slice(2));
+// Run when executed directly (`tsx lib/core/cli.ts`, or the single-file bundle); bin/cairn-check.mjs imports and calls `main`.
+// Never in a thread the checker started for parts (it runs this same module with the same command line).
+// Run from the TypeScript sources (`npm run check`), each thread loads the sources through bin/cairn-check-thread.mjs (tsx's loader).
+if (isMainThread && process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  const start = import.meta.url.endsWith(".ts") ? { script: new URL("../../bin/cairn-check-thread.mjs", import.meta.url) } : {};
+  void main(process.argv.slice(2), undefined, start).then((code) => (process.exitCode = code));
 }

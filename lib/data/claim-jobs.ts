@@ -1,7 +1,7 @@
 import "server-only";
 import { Op } from "sequelize";
 import { models } from "@/models";
-import { claimJobProgress, queueClaim, QueueUnavailable, verificationService, type JobProgress, type VerificationService } from "@/lib/jobs/queue";
+import { claimJobProgress, partRetries, queueClaim, QueueUnavailable, verificationService, type JobProgress, type VerificationService } from "@/lib/jobs/queue";
 
 /**
  * The web side of verification jobs: it queues a claim's job (BullMQ, taken by a worker process) and
@@ -46,7 +46,7 @@ export async function verificationNotice(rows: Array<{ status: string }>): Promi
 
 /**
  * Where each pending claim's job is (queued, being checked by which worker, retried; for a claim
- * checked in parts, how many parts are stored); empty when Redis is away.
+ * checked in parts, how many parts are stored and which are being tried again after a failure); empty when Redis is away.
  */
 export async function pendingProgress(rows: Array<{ id: number; status: string; verifyRound: number }>): Promise<Map<number, JobProgress>> {
   const out = new Map<number, JobProgress>();
@@ -63,9 +63,21 @@ export async function pendingProgress(rows: Array<{ id: number; status: string; 
   if (inParts.length) {
     const stored = await models().ClaimPart.findAll({
       where: { [Op.or]: inParts.map((r) => ({ claimId: r.id, verifyRound: r.verifyRound })) },
-      attributes: ["claimId"],
+      attributes: ["claimId", "part"],
     });
     for (const s of stored) out.get(s.claimId)!.parts!.done++;
+    // The parts not stored yet that are being tried again, with the attempt and the last failure's reason.
+    try {
+      for (const r of inParts) {
+        const parts = out.get(r.id)!.parts!;
+        const have = new Set(stored.filter((s) => s.claimId === r.id).map((s) => s.part));
+        const missing = Array.from({ length: parts.of }, (_, i) => i).filter((i) => !have.has(i));
+        const retrying = await partRetries(r.id, r.verifyRound, parts.of, missing);
+        if (retrying.length) parts.retrying = retrying;
+      }
+    } catch (e) {
+      if (!(e instanceof QueueUnavailable)) throw e;
+    }
   }
   return out;
 }

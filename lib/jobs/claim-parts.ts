@@ -13,43 +13,19 @@
 import type { Job } from "bullmq";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
-import { checkedInParts } from "../core/claims/claims";
-import { parseBound } from "../core/arithmetic/bound";
-import { fewPerOrder } from "../core/families/few-per-order";
+import { DEFAULT_MAX_PARTS, partsOf } from "../core/claims/part-count";
 import { faultPoint } from "./test-faults";
 import { runPartInPool, STEP_LIMIT, WorkerFailure } from "../verification/pool";
 import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted, workerName } from "./claim-decide";
-import { claimPartJobId, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
-
-/** Orders from which a claim is split, per setting (below them one job takes about a second or less). */
-const SPLIT_FROM: Record<string, number> = { simple: 7, tree: 12, multigraph: 5 };
+import { claimPartJobId, partWords, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
 
 /** The most parts of one claim (CAIRN_CLAIM_PARTS_MAX, default 8). */
-const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || 8);
+const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || DEFAULT_MAX_PARTS);
 
-/**
- * How many parts a claim is checked in: 1 for kinds that are not enumerations, below the split order
- * of its setting, and for enumerations under a bound b ≤ √(2+√5) (those families have a handful of
- * graphs per order, families/few-per-order.ts, so every part would repeat most of the work); otherwise
- * 2, doubling with each order above it, up to maxParts.
- */
-export function partsFor(claim: ClaimJson): number {
-  if (!checkedInParts(claim) || (claim.kind !== "enumeration" && claim.kind !== "coverage")) return 1;
-  if (claim.kind === "enumeration") {
-    try {
-      if (fewPerOrder(parseBound(claim.bound))) return 1;
-    } catch {
-      return 1; // an unreadable bound is reported by the single check
-    }
-  }
-  const over = claim.maxVertices - (SPLIT_FROM[claim.setting ?? "simple"] ?? Infinity);
-  return over < 0 ? 1 : Math.min(maxParts(), 2 ** (over + 1));
-}
+/** How many parts a claim is checked in (the core's rule, partsOf, with this deployment's most parts). */
+export const partsFor = (claim: ClaimJson): number => partsOf(claim, maxParts());
 
 type ClaimRef = Omit<ClaimJobData, "type">;
-
-/** "part 2 of 4": a part as the reasons and the worker's log name it (1-based). */
-export const partWords = (p: Pick<ClaimPartJobData, "part" | "parts">): string => `part ${p.part + 1} of ${p.parts}`;
 
 const storedParts = async (c: ClaimRef) => models().ClaimPart.findAll({ where: { claimId: c.claimId, verifyRound: c.round }, order: [["part", "ASC"]] });
 

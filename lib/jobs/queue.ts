@@ -10,6 +10,7 @@
  */
 import { Queue, type ConnectionOptions, type Job } from "bullmq";
 import type { BundleCheckReport } from "../core/certificates/bundle";
+import { partWords } from "../core/certificates/parts-plan";
 
 export const QUEUE_NAME = "verification";
 /** How long the web process waits for Redis before calling verification paused. */
@@ -202,13 +203,35 @@ export async function verificationService(): Promise<VerificationService> {
   }
 }
 
+/** "part 2 of 4": a part as the reasons, the claim card and the worker's log name it (1-based); the core's words, which the offline checker uses too. */
+export { partWords };
+
+/** BullMQ's reason for a failed attempt as stored in a claim's reason or shown while it is tried again: at most 300 characters. */
+export const failedReasonText = (failedReason: string | null | undefined): string => (failedReason || "no reason given").slice(0, 300);
+
+/**
+ * A part of a claim checked in parts that is being tried again: which part (1-based) of how many, the attempt it is
+ * on of how many it gets, and why the last attempt failed; `words` says it all in one phrase for the card and the API.
+ */
+export interface PartRetry {
+  part: number;
+  of: number;
+  attempt: number;
+  attempts: number;
+  after: string;
+  words: string;
+}
+
 /** Where a pending claim's job is: waiting its turn, being checked (by which worker), or retried. */
 export interface JobProgress {
   state: "queued" | "checking" | "retrying" | "unknown";
   worker: string | null;
   attempts: number;
-  /** When the claim is checked in independent parts: how many are stored (filled in by the data layer) of how many. */
-  parts?: { done: number; of: number };
+  /**
+   * When the claim is checked in independent parts: how many are stored (filled in by the data layer) of how many,
+   * and the parts not stored yet that are being tried again after a failed attempt (partRetries).
+   */
+  parts?: { done: number; of: number; retrying?: PartRetry[] };
 }
 
 export async function claimJobProgress(claimId: number, round: number): Promise<JobProgress | null> {
@@ -233,6 +256,35 @@ export async function claimJobProgress(claimId: number, round: number): Promise<
     worker: state === "active" ? (progress.worker ?? job.processedBy ?? null) : null,
     attempts: job.attemptsMade + (job.stalledCounter ?? 0),
   };
+}
+
+/**
+ * The parts among `missing` (0-based) whose job is being tried again: it failed at least once (or its worker stopped
+ * while running it) and has not failed for good. An attempt that threw is counted against JOB_ATTEMPTS with BullMQ's
+ * reason; a worker that stopped (killed, out of memory) against the stall limit.
+ */
+export async function partRetries(claimId: number, round: number, parts: number, missing: readonly number[]): Promise<PartRetry[]> {
+  const out: PartRetry[] = [];
+  for (const part of missing) {
+    const job = await bounded(() => verificationQueue().getJob(claimPartJobId(claimId, round, part)));
+    if (!job || (job.attemptsMade === 0 && !job.stalledCounter)) continue;
+    const state = await bounded(() => job.getState());
+    if (state === "failed" || state === "completed" || state === "unknown") continue;
+    const [attempt, attempts, after] =
+      job.attemptsMade > 0
+        ? [job.attemptsMade + 1, JOB_ATTEMPTS, failedReasonText(job.failedReason).replace(/[.\s]+$/, "")]
+        : [job.stalledCounter + 1, MAX_STALLED + 1, "its verification worker stopped while checking it (killed, or out of memory)"];
+    const which = partWords({ part, parts });
+    out.push({
+      part: part + 1,
+      of: parts,
+      attempt,
+      attempts,
+      after,
+      words: `${which} is being tried again (attempt ${attempt} of ${attempts}) after: ${after}`,
+    });
+  }
+  return out;
 }
 
 /**

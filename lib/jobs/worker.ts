@@ -18,7 +18,7 @@ import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
 import { checkBundleInPool } from "../verification/pool";
 import { decide, num, settleFailed, stillWanted, verifyInPool, workerName } from "./claim-decide";
-import { partWords, partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
+import { partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
 import { runBatchChunk, settleFailedChunk } from "./batch";
 import { sweepStoredFiles } from "../data/file-sweep";
 import {
@@ -29,6 +29,7 @@ import {
   queueBatchChunks,
   JOB_ATTEMPTS,
   MAX_STALLED,
+  partWords,
   QUEUE_NAME,
   queueClaim,
   queuePrefix,

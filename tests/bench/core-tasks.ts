@@ -159,26 +159,44 @@ function sparseTasks(): BenchTask[] {
         ]
       : []),
     graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho3`, () => sparseGraphWorkload(n), "ρ ≤ 3 (exact verdict)", n === 200, verdict("<=", "3")),
-    // ρ against an irrational bound near it on a graph with cycles: √r with r a 50-bit dyadic rational near (ρ + ε)²,
-    // ρ suggested by power iteration in `prepare` (untimed); the verdict is exact. ε = −10^-12 (a Rayleigh vector) and
-    // ε = +10^-10 (the float run at b's double enclosure); at ε = +10^-12 the front's error bound (~1.6·10^-10) does not
-    // separate ρ from b and no verdict came within 170 s, before or after that run existed: not a task until it does.
+    // ρ against a bound near it on a graph with cycles, ρ suggested by power iteration in `prepare` (untimed); the
+    // verdict is exact. Irrational: √r with r a 50-bit dyadic rational near (ρ + ε)²; rational: b = ρ + ε rounded to
+    // 2^-50. ε = −10^-12 is refuted by a Rayleigh vector; at ε = +10^-12 the front's double discs (radius ~1.6·10^-10)
+    // touch 0 and the row near 0 is recomputed in double-word arithmetic (front-refine.ts).
     ...(n === 2_000
-      ? [1e-10, -1e-12].map((eps): BenchTask => ({
-          id: `gnm3-${n}-near-${eps > 0 ? "above" : "below"}`,
-          workload: `G(n,m) deg 3, n=${n}`,
-          quick: false,
-          task: `ρ < √r, √r = ρ ${eps > 0 ? "+ 1e-10" : "− 1e-12"} (irrational b)`,
-          prepare: () => {
-            const g = workloadGraph(sparseGraphWorkload(n));
-            const rho = perronApproximation(g, 100_000, 1e-15).rho;
-            return { g, bound: `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})` };
-          },
-          run: (input) => {
-            const { g, bound } = input as { g: Graph; bound: string };
-            return verdict("<", bound)(g);
-          },
-        }))
+      ? [
+          ...[1e-12, -1e-12].map((eps): BenchTask => ({
+            id: `gnm3-${n}-near-${eps > 0 ? "above" : "below"}`,
+            workload: `G(n,m) deg 3, n=${n}`,
+            quick: false,
+            task: `ρ < √r, √r = ρ ${eps > 0 ? "+" : "−"} 1e-12 (irrational b)`,
+            prepare: () => {
+              const g = workloadGraph(sparseGraphWorkload(n));
+              const rho = perronApproximation(g, 100_000, 1e-15).rho;
+              return { g, bound: `sqrt(${Math.round((rho + eps) ** 2 * 2 ** 50)}/${2 ** 50})` };
+            },
+            run: (input) => {
+              const { g, bound } = input as { g: Graph; bound: string };
+              return verdict("<", bound)(g);
+            },
+          })),
+          {
+            id: `gnm3-${n}-near-above-rational`,
+            workload: `G(n,m) deg 3, n=${n}`,
+            quick: false,
+            targetMs: 5000,
+            task: "ρ < b, b = ρ + 1e-12 (rational b, 2^-50 grid)",
+            prepare: () => {
+              const g = workloadGraph(sparseGraphWorkload(n));
+              const rho = perronApproximation(g, 100_000, 1e-15).rho;
+              return { g, bound: `${Math.round((rho + 1e-12) * 2 ** 50)}/${2 ** 50}` };
+            },
+            run: (input) => {
+              const { g, bound } = input as { g: Graph; bound: string };
+              return verdict("<", bound)(g);
+            },
+          } satisfies BenchTask,
+        ]
       : []),
     // ρ ≈ 4.2–4.4 on these graphs (float hint), so ρ < 5 holds: the other direction of the same question.
     graphTask(`G(n,m) deg 3, n=${n}`, `gnm3-${n}-rho5`, () => sparseGraphWorkload(n), "ρ < 5 (exact verdict)", n === 200, verdict("<", "5")),

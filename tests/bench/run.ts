@@ -4,6 +4,7 @@
  *   npm run bench                 all sections, full sizes
  *   npm run bench -- --quick      small sizes only (a smoke run; not part of the unit tests)
  *   npm run bench -- --only tree  tasks whose id contains "tree"
+ *   npm run bench -- --only offline      the offline checker with --parallel 1 and 2 (tests/bench/offline-parts.ts)
  *   npm run bench -- --only mixed-load   50 clients, 60 s of mixed reads and writes on a 60-case proof (tests/bench/mixed-load.ts)
  *   npm run bench -- --runs 5     repetitions per task (default 3; the median is reported)
  *
@@ -23,6 +24,7 @@ import { apiLoadSection } from "./api-load";
 import { overviewBytesSection } from "./overview-bytes";
 import { batchThroughputSection } from "./batch-throughput";
 import { mixedLoadSection } from "./mixed-load";
+import { offlinePartsSection } from "./offline-parts";
 
 /** One timed job: `prepare` builds the input (untimed), `run` does the verification (timed). */
 export interface BenchTask {
@@ -53,7 +55,7 @@ export interface BenchOptions {
 }
 
 /** The sections of the benchmark, in print order. Add new sections here. */
-export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBytesSection, batchThroughputSection, mixedLoadSection];
+export const SECTIONS: BenchSection[] = [coreSection, apiLoadSection, overviewBytesSection, batchThroughputSection, offlinePartsSection, mixedLoadSection];
 
 interface ChildReport {
   readonly timesMs: number[];

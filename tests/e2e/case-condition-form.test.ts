@@ -38,9 +38,11 @@ describe("the case form's condition box", () => {
     const looped = '{ "predicate": "contains", "graph": { "format": "edges", "text": "0 1\\n1 1" } }';
     await box.fill(`{ "and": [ ${looped}, { "predicate": "max-degree", "relation": "<<", "value": 3 } ] }`);
     await reading.getByTestId("condition-problem").filter({ hasText: "$.and[1].relation" }).waitFor();
-    // Fixed: the condition in words (a looped pattern is kept in sparse6).
+    // Fixed: the condition in words, the looped pattern (an edge with a loop at one end) by its name, not its sparse6 text.
     await box.fill(`{ "and": [ ${looped}, { "predicate": "max-degree", "relation": "<=", "value": 3 } ] }`);
-    await reading.filter({ hasText: /reads\s*G contains \S+ \(sparse6\) as a subgraph and Δ\(G\) ≤ 3/ }).waitFor();
+    await reading
+      .filter({ hasText: /reads\s*G contains the tadpole T2 \(a path on 2 vertices with a loop at one end\) as a subgraph and Δ\(G\) ≤ 3/ })
+      .waitFor();
     const words = (await reading.textContent())!.replace(/^.*reads\s*/, "").trim();
 
     await form.getByRole("button", { name: "Add sub-case" }).click();

@@ -1,7 +1,8 @@
 /**
  * Parts of a claim checked in parts that throw (faults injected with CAIRN_TEST_FAULTS, read by the workers only
  * under NODE_ENV=test): a part that throws is tried again by BullMQ and the claim is decided once, as a single job
- * decides it; a part that throws on every attempt leaves the claim undecided, saying which part failed, how often
+ * decides it, and while it is tried again the API and the claim card say which part, on which attempt and after what
+ * failure; a part that throws on every attempt leaves the claim undecided, saying which part failed, how often
  * and why (in the API and on the claim card; the sweep settles it likewise when that was lost), and a re-check runs
  * it again. Each test runs its own worker on a queue prefix of its own, so the suite's shared worker never takes
  * these jobs.
@@ -17,7 +18,7 @@ import { claimJobsStep, A000055, A001349 } from "./claim-jobs-fixture";
 import { models } from "@/models";
 import { verificationSettled } from "@/lib/data/claims";
 import type { ClaimView } from "@/lib/data/claim-views";
-import { claimPartJobId, verificationQueue } from "@/lib/jobs/queue";
+import { claimPartJobId, partRetries, verificationQueue } from "@/lib/jobs/queue";
 import { partsFor, sweepClaimParts } from "@/lib/jobs/claim-parts";
 import { validateClaim, verifyClaim } from "@/lib/core";
 import { Budget } from "@/lib/core/verdict";
@@ -71,6 +72,52 @@ describe("a part that throws", () => {
     expect(JSON.parse((await step.claimRow(ids[1]))!.certificate!).evidence.counts).toEqual(A000055.slice(0, 13));
   }, 300_000);
 
+  it("while it is tried again, the API and the claim card say which part, on which attempt of how many, and after what failure", async () => {
+    process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-partretrying`;
+    // Part 2 throws on its first two attempts; BullMQ waits 1 s, then 2 s, before trying it again (exponential backoff):
+    // the window in which the claim is read here, every 100 ms, through the API.
+    const w = step.worker({ CAIRN_TEST_FAULTS: "part:2@1,part:2@2" });
+    await w.ready;
+    const id = (await step.attach([graphs7])).claims[0].id;
+    await actAs("author");
+    const read = async () =>
+      (await (await claimRoute.GET(new Request("http://localhost/x"), params({ proofId: step.proofId(), claimId: String(id) }))).json()).claim as ClaimView;
+    let seen: ClaimView | undefined;
+    for (const deadline = Date.now() + 120_000; !seen && Date.now() < deadline;) {
+      const view = await read();
+      if (view.status !== "pending") break;
+      if (view.progress?.parts?.retrying?.length) seen = view;
+      else await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(seen, "the claim was never read while its part 2 was being tried again").toBeDefined();
+    const parts = seen!.progress!.parts!;
+    expect(parts.of).toBe(2);
+    expect(parts.retrying).toHaveLength(1);
+    const [retry] = parts.retrying!;
+    // The attempt it is on follows the attempt that failed last, whose reason is given.
+    expect(retry).toMatchObject({ part: 2, of: 2, attempts: 3 });
+    expect([2, 3]).toContain(retry.attempt);
+    expect(retry.after).toBe(fault(2, retry.attempt - 1));
+    expect(retry.words).toBe(`part 2 of 2 is being tried again (attempt ${retry.attempt} of 3) after: ${fault(2, retry.attempt - 1)}`);
+    // The card says the same, with what happens if every attempt fails.
+    const card = renderToStaticMarkup(
+      createElement(ClaimCard, { claim: seen!, proofId: Number(step.proofId()), canRecheck: true, canWithdraw: true, onChanged: () => {} }),
+    );
+    expect(card).toContain(`${parts.done} of 2 parts done; ${retry.words}.`);
+    expect(card).toContain("a part that fails on every attempt leaves the claim undecided with its reason, and a re-check runs it again");
+
+    // The third attempt computes the part: the claim is decided once, as a single job decides it; the part is no longer said to be tried again.
+    await verificationSettled(id);
+    const row = (await step.claimRow(id))!;
+    const want = single(graphs7);
+    expect(row.status).toBe(want.verdict.status);
+    expect(row.digest).toBe(want.digest);
+    expect(await step.decisions(id)).toBe(1);
+    expect(await partRetries(id, 0, 2, [1])).toEqual([]);
+    // Connected graphs on ≤ 7 vertices: OEIS A001349.
+    expect(JSON.parse(row.certificate!).evidence.counts).toEqual(A001349.slice(0, 7));
+  }, 300_000);
+
   it("on every attempt: the claim is undecided saying which part failed, how often and why, on the card too; a re-check decides it", async () => {
     process.env.CAIRN_QUEUE_PREFIX = `${saved.CAIRN_QUEUE_PREFIX}-partfail`;
     const failing = step.worker({ CAIRN_TEST_FAULTS: "part:2@*" });
@@ -85,6 +132,8 @@ describe("a part that throws", () => {
     const job = (await partJob(id, 1))!;
     expect(await job.getState()).toBe("failed");
     expect(job.attemptsMade).toBe(3);
+    // Failed for good, it is no longer said to be tried again.
+    expect(await partRetries(id, 0, 2, [1])).toEqual([]);
 
     // The API and the claim card say the same, with the re-check button for the author.
     await actAs("author");

@@ -3,7 +3,9 @@
  * loopback: a file of several parts comes back byte for byte with its SHA-256; two uploads of the same bytes store
  * one object; retrying a part is harmless and the server says which parts it has; every refusal (413 declared,
  * 400 part number and length, 409 missing parts named, 409 SHA-256, 415 by content, 403/404 for non-members and
- * other steps); and an upload stopped between parts leaves no row, and the sweep removes its staged parts.
+ * other steps); the browser's upload client (components/files/upload-request.ts, its JSON calls through the one API
+ * client) against the same handlers, showing a refusal's own message; and an upload stopped between parts leaves no
+ * row, and the sweep removes its staged parts.
  */
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
@@ -23,6 +25,7 @@ import * as uploadRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/
 import * as partRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/parts/[part]/route";
 import * as finishRoute from "@/app/api/proofs/[proofId]/steps/[stepId]/uploads/[uploadId]/finish/route";
 import * as fileRoute from "@/app/api/proofs/[proofId]/files/[fileId]/route";
+import { refusalText, sendFile } from "@/components/files/upload-request";
 
 const PART = 1024;
 const PART_KEYS = ["CAIRN_UPLOAD_PART_BYTES", "CAIRN_UPLOAD_PARTS_DIR", "CAIRN_UPLOAD_MAX_BYTES"];
@@ -82,6 +85,55 @@ async function sendParts(bytes: Uint8Array, only?: number[]): Promise<number> {
     expect(r.status).toBe(200);
   }
   return upload.id;
+}
+
+/**
+ * Stubs the browser's fetch and XMLHttpRequest for components/files/upload-request.ts: each request to the upload routes
+ * is answered by the route handler in this process; returns the list of requests made ("fetch POST uploads", …).
+ */
+function stubBrowserRequests(): string[] {
+  const sent: string[] = [];
+  const serve = async (via: string, method: string, url: string, body?: BodyInit | null, headers?: HeadersInit): Promise<Response> => {
+    const m = /^\/api\/proofs\/(\d+)\/steps\/(\d+)\/uploads(?:\/(\d+)(?:\/(finish)|\/parts\/(\d+))?)?$/.exec(url);
+    if (!m) throw new Error(`no route for ${method} ${url} in this test`);
+    const request = new Request(`http://localhost${url}`, { method, body, headers });
+    const at = { proofId: m[1], stepId: m[2] };
+    sent.push(`${via} ${method} ${!m[3] ? "uploads" : m[4] ? "finish" : m[5] ? `parts/${m[5]}` : "upload"}`);
+    if (!m[3]) return startRoute.POST(request, params(at));
+    if (m[4]) return finishRoute.POST(request, params({ ...at, uploadId: m[3] }));
+    if (m[5]) return partRoute.PUT(request, params({ ...at, uploadId: m[3], part: m[5] }));
+    return uploadRoute.GET(request, params({ ...at, uploadId: m[3] }));
+  };
+  vi.stubGlobal("fetch", (url: string, init: RequestInit = {}) => serve("fetch", init.method ?? "GET", url, init.body, init.headers));
+  class BrowserXhr {
+    status = 0;
+    responseText = "";
+    upload: { onprogress?: (e: { loaded: number; total: number; lengthComputable: boolean }) => void } = {};
+    onload?: () => void;
+    onerror?: () => void;
+    onabort?: () => void;
+    private call = { method: "GET", url: "", headers: {} as Record<string, string> };
+    open(method: string, url: string) {
+      Object.assign(this.call, { method, url });
+    }
+    setRequestHeader(name: string, value: string) {
+      this.call.headers[name] = value;
+    }
+    abort() {
+      this.onabort?.();
+    }
+    send(body: Blob) {
+      void (async () => {
+        const bytes = new Uint8Array(await body.arrayBuffer());
+        const res = await serve("xhr", this.call.method, this.call.url, bytes, this.call.headers);
+        this.upload.onprogress?.({ loaded: bytes.byteLength, total: bytes.byteLength, lengthComputable: true });
+        [this.status, this.responseText] = [res.status, await res.text()];
+        this.onload?.();
+      })().catch(() => this.onerror?.());
+    }
+  }
+  vi.stubGlobal("XMLHttpRequest", BrowserXhr);
+  return sent;
 }
 
 describe.each(["local", "s3"])("uploads in parts with the %s store", (driver) => {
@@ -198,6 +250,51 @@ describe.each(["local", "s3"])("uploads in parts with the %s store", (driver) =>
     expect(refused.status).toBe(415);
     expect((await refused.json()).error.message).toMatch(/not PDF, PNG or gzip/);
     expect(await fileRows()).toBe(before);
+  });
+
+  it("the browser's upload client sends its JSON calls through the API client: a file arrives in parts, and a refusal shows the server's message", async () => {
+    await actAs("author");
+    // The browser's fetch and XMLHttpRequest, answered by the route handlers in this process (as the signed-in author).
+    const sent = stubBrowserRequests();
+    try {
+      const bytes = graphList(2 * PART + 5, salt + 60);
+      const file = new File([bytes as Uint8Array<ArrayBuffer>], "client.g6");
+      let progress = 0;
+      const answer = await sendFile(Number(proofId), Number(stepId), file, "", PART, (n) => (progress = n));
+      expect(answer.status).toBe(201);
+      expect(answer.body?.file?.name).toBe("client.g6");
+      expect(progress).toBe(bytes.byteLength);
+      // Start, ask which parts are in, finish: JSON through the API client; the three parts as raw bytes.
+      expect(sent).toEqual(["fetch POST uploads", "xhr PUT parts/1", "xhr PUT parts/2", "xhr PUT parts/3", "fetch GET upload", "fetch POST finish"]);
+
+      // A 4xx of the start: the form shows the server's own message (naming the limit), as the route gives it.
+      process.env.CAIRN_UPLOAD_MAX_BYTES = String(8 * PART);
+      try {
+        const big = new File([new Uint8Array(8 * PART + 1)], "big.g6");
+        const direct = (await (await start({ name: "big.g6", size: big.size })).json()).error.message as string;
+        expect(direct).toMatch(/upload limit of 8 KiB/);
+        const refused = await sendFile(Number(proofId), Number(stepId), big, "", PART, () => {});
+        expect(refused.status).toBe(413);
+        expect(refusalText(refused)).toBe(direct);
+      } finally {
+        delete process.env.CAIRN_UPLOAD_MAX_BYTES;
+      }
+
+      // A 4xx of the finish (the content is no file Cairn keeps): its message, not "The server answered …".
+      const jpeg = new Uint8Array(PART + 10);
+      jpeg.set([0xff, 0xd8, 0xff, 0xe0, 0, 0x10, 0x4a, 0x46, 0x49, 0x46]);
+      const refused = await sendFile(Number(proofId), Number(stepId), new File([jpeg], "graphs.g6"), "", PART, () => {});
+      expect(refused.status).toBe(415);
+      expect(refusalText(refused)).toMatch(/not PDF, PNG or gzip/);
+
+      // A JSON call that cannot reach the server says so in words, not as the browser's "Failed to fetch".
+      vi.stubGlobal("fetch", () => Promise.reject(new TypeError("Failed to fetch")));
+      await expect(sendFile(Number(proofId), Number(stepId), new File([jpeg], "graphs.g6"), "", PART, () => {})).rejects.toThrow(
+        "The connection failed during the upload; nothing was saved. Try again.",
+      );
+    } finally {
+      vi.unstubAllGlobals();
+    }
   });
 
   it("403 for a referee or an outsider, 401 signed out, 404 for an upload of another step", async () => {

@@ -10,6 +10,8 @@
  * `checkBundle` recomputes every digest and re-verifies every claim from scratch (a fresh verification
  * plus an independent re-check of the stored certificate), and compares each with the recorded verdict;
  * each step's vouches are checked against the digest of the revision (text and claims) they cover.
+ * A large enumeration or coverage claim may come with its parts computed elsewhere (`parts`,
+ * parts-plan.ts): its verdict and the re-check of its certificate are then merged from them.
  * Framework-free: the server, the offline checker and a bundled single-file checker all use it.
  */
 import { canonicalJson } from "../input/canonical";
@@ -21,6 +23,7 @@ import { Budget, DEFAULT_STEP_LIMIT } from "../verdict";
 import { claimLineFields, type CheckLine } from "./check-report";
 import { CERTIFICATE_SEPARATOR, certificateKindOf } from "./certificate-kind";
 import { checkBatchItem } from "./batch-check";
+import { claimPartsOptions, type PartsByClaim } from "./parts-plan";
 
 export const BUNDLE_FORMAT = "cairn-bundle/1";
 
@@ -105,7 +108,7 @@ function malformed(source: string, text: string): BundleCheckReport {
 }
 
 /** Re-verifies one claim item from scratch and compares the result with what the bundle records. */
-function checkClaimItem(item: BundleItem, changed: boolean, steps: number): BundleCheckLine {
+function checkClaimItem(item: BundleItem, changed: boolean, steps: number, parts?: PartsByClaim): BundleCheckLine {
   const label = item.id;
   const data = item.data as Partial<ClaimItemData> | undefined;
   const prefix = changed ? "CHANGED since export (its SHA-256 no longer matches); " : "";
@@ -121,7 +124,11 @@ function checkClaimItem(item: BundleItem, changed: boolean, steps: number): Bund
   const hasCertificate = data.certificate !== undefined && data.certificate !== null;
   let fresh;
   try {
-    fresh = verifyClaim(hasCertificate ? { ...claim, certificate: data.certificate } : claim, { budget: new Budget(steps), path: `${item.id}.data.claim` });
+    fresh = verifyClaim(hasCertificate ? { ...claim, certificate: data.certificate } : claim, {
+      budget: new Budget(steps),
+      path: `${item.id}.data.claim`,
+      ...claimPartsOptions(parts, item.id, claim),
+    });
   } catch (e) {
     if (e instanceof ClaimError) return { label, status: "malformed", text: `${prefix}${e.message}` };
     throw e;
@@ -212,7 +219,7 @@ function checkStepCover(item: BundleItem, claimItems: readonly BundleItem[]): Bu
  * 0 when all hold, 1 when a claim fails or anything was changed (each changed item is named), 2 when
  * the document is not a bundle at all.
  */
-export function checkBundle(json: unknown, source: string, options: { readonly steps?: number } = {}): BundleCheckReport {
+export function checkBundle(json: unknown, source: string, options: { readonly steps?: number; readonly parts?: PartsByClaim } = {}): BundleCheckReport {
   if (!isRecord(json) || json.format !== BUNDLE_FORMAT) return malformed(source, `not a ${BUNDLE_FORMAT} document`);
   const extra = Object.keys(json).filter((k) => !TOP_KEYS.includes(k));
   if (!isRecord(json.export) || !Array.isArray(json.items) || typeof json.manifestDigest !== "string")
@@ -248,7 +255,7 @@ export function checkBundle(json: unknown, source: string, options: { readonly s
       claims++;
       const owner = isRecord(item.data) ? String(item.data.step) : "";
       claimsOfStep.set(owner, [...(claimsOfStep.get(owner) ?? []), item]);
-      lines.push(checkClaimItem(item, changed, options.steps ?? DEFAULT_STEP_LIMIT));
+      lines.push(checkClaimItem(item, changed, options.steps ?? DEFAULT_STEP_LIMIT, options.parts));
     } else if (item.type === "batch") {
       // A batch claim: every listed graph re-decided and its certificate re-checked (batch-check.ts).
       batches++;

@@ -14,6 +14,7 @@ import { sha256Hex } from "../digest";
 import type { ClaimResult, ClaimTimings } from "../claims/claims";
 import type { GraphSummary } from "../graph";
 import type { BoundNormalForm } from "../arithmetic/bound";
+import type { PartsByClaim } from "./parts-plan";
 
 export const EXIT_OK = 0;
 export const EXIT_NOT_VERIFIED = 1;
@@ -78,6 +79,8 @@ export interface CheckOptions {
   readonly steps?: number;
   /** Wall-clock limit per claim in milliseconds (the checker command's default is 120 s). */
   readonly timeLimitMs?: number;
+  /** Claims checked in parts (parts-plan.ts): their parts, computed elsewhere, by claim key. */
+  readonly parts?: PartsByClaim;
 }
 
 /** The exit code of a list of lines: 2 if any is malformed, else 1 if any is not verified or its certificate does not match, else 0. */

@@ -12,7 +12,8 @@ export const COVERAGE_HANDLER: ClaimHandler<CoverageClaim> = {
   statement: (c) => coverageStatement(c.maxVertices, c.cases, claimEnumerationSetting(c)),
   limit: () => undefined, // maxVertices and the number of sub-cases are capped by validateClaim
   verify: (c, _inputs, budget) => checkCoverage(c.maxVertices, c.cases, budget, claimEnumerationSetting(c)),
-  recheck: (c, _inputs, outcome, evidence, budget) => recheckCoverage(c.maxVertices, c.cases, outcome, evidence, budget, claimEnumerationSetting(c)),
+  recheck: (c, _inputs, outcome, evidence, budget, parts) =>
+    recheckCoverage(c.maxVertices, c.cases, outcome, evidence, budget, claimEnumerationSetting(c), parts as readonly CoveragePartResult[] | undefined),
   part: (c, _inputs, part, parts, budget) => coveragePart(c.maxVertices, c.cases, claimEnumerationSetting(c), part, parts, budget),
   fromParts: (c, _inputs, parts, budget) => checkCoverage(c.maxVertices, c.cases, budget, claimEnumerationSetting(c), parts as readonly CoveragePartResult[]),
 };

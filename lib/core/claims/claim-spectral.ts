@@ -195,8 +195,18 @@ export const ENUMERATION_HANDLER: ClaimHandler<EnumerationClaim> = {
     return big >= 0 ? `listed graph ${big + 1} is far larger than any graph enumerated (${c.maxVertices} vertices at most)` : undefined;
   },
   verify: (c, inputs, budget) => checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, claimEnumerationSetting(c)),
-  recheck: (c, inputs, outcome, evidence, budget) =>
-    recheckEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], outcome, evidence, budget, claimEnumerationSetting(c)),
+  recheck: (c, inputs, outcome, evidence, budget, parts) =>
+    recheckEnumeration(
+      c.maxVertices,
+      c.op,
+      boundOf(c),
+      inputs.patterns ?? [],
+      outcome,
+      evidence,
+      budget,
+      claimEnumerationSetting(c),
+      parts as readonly EnumerationPart[] | undefined,
+    ),
   part: (c, _inputs, part, parts, budget) => enumerationPart(c.maxVertices, c.op, boundOf(c), budget, claimEnumerationSetting(c), part, parts),
   fromParts: (c, inputs, parts, budget) =>
     checkEnumeration(c.maxVertices, c.op, boundOf(c), inputs.patterns ?? [], budget, claimEnumerationSetting(c), parts as readonly EnumerationPart[]),

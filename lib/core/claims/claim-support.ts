@@ -24,9 +24,11 @@ export interface ClaimHandler<K extends Claim = Claim> {
   verify(claim: K, inputs: ParsedInputs, budget: Budget): Verdict;
   /**
    * Re-checks `evidence` (the check's own certificate) as proof that the claim has `outcome`:
-   * verified when it does, refuted when the evidence is rejected or proves something else.
+   * verified when it does, refuted when the evidence is rejected or proves something else. `parts`
+   * (kinds checked in parts only): the results of every part of the claim's enumeration, which the
+   * re-check compares the evidence with instead of running the enumeration again in one piece.
    */
-  recheck(claim: K, inputs: ParsedInputs, outcome: "verified" | "refuted", evidence: unknown, budget: Budget): Verdict;
+  recheck(claim: K, inputs: ParsedInputs, outcome: "verified" | "refuted", evidence: unknown, budget: Budget, parts?: readonly unknown[]): Verdict;
   /**
    * Kinds whose check is an enumeration: part `part` of `parts` of it, as plain JSON (the job engine
    * runs the parts on different workers and stores them), and the verdict from all parts, which is

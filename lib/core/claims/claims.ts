@@ -75,8 +75,13 @@ export interface VerifyOptions {
   readonly timeLimitMs?: number;
   /** JSON path of the claim inside its document, used in error messages (default "$"). */
   readonly path?: string;
-  /** For kinds whose check is an enumeration: the results of all its parts (claimPart), merged instead of enumerating again. */
+  /**
+   * For kinds whose check is an enumeration: the results of all its parts (claimPart), merged instead of
+   * enumerating again, for the verdict and for the re-check of a certificate the claim carries.
+   */
   readonly parts?: readonly unknown[];
+  /** For kinds checked in parts: a part that gave no result (it failed for good), so the claim is undecided with this reason. */
+  readonly partsFailed?: string;
 }
 
 /** Canonical JSON of what a claim states: the id and certificate are left out, so they never change its digest. */
@@ -201,6 +206,8 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
       timings: { parseMs, checkMs: 0 },
       verdict: { status: "undecided", statement, method: "size limits", reason: `input over the size limit for "${claim.kind}" claims: ${tooLarge}`, ranOn },
     };
+  if (options.partsFailed !== undefined)
+    return { ...base, timings: { parseMs, checkMs: 0 }, verdict: { status: "undecided", statement, method: PARTS_METHOD, reason: options.partsFailed, ranOn } };
   const checkStart = now();
   const found = guarded(path, () =>
     budgeted(statement, budget, () => {
@@ -217,7 +224,8 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
   if (verdict.certificate === undefined) delete (verdict as { certificate?: unknown }).certificate;
   if (carried === undefined) return { ...base, verdict, timings: { parseMs, checkMs } };
   const recheckStart = now();
-  const check = guarded(path, () => recheckParsed(claim, inputs, carried, budget instanceof TimedBudget ? budget.renewed() : new Budget(budget.limit)));
+  const again = budget instanceof TimedBudget ? budget.renewed() : new Budget(budget.limit);
+  const check = guarded(path, () => recheckParsed(claim, inputs, carried, again, options.parts));
   const recheckMs = elapsed(recheckStart);
   const outcome = (carried as { outcome?: unknown } | null)?.outcome;
   return {
@@ -227,6 +235,9 @@ export function verifyClaim(claim: Claim, options: VerifyOptions = {}): ClaimRes
     certificateCheck: { matches: check.status === "verified" && outcome === verdict.status, verdict: check },
   };
 }
+
+/** The method named when a claim checked in parts is undecided because a part gave no result. */
+export const PARTS_METHOD = "checked in parts";
 
 /** Whether a claim's check is an enumeration the job engine may run in independent parts (claimPart). */
 export const checkedInParts = (claim: Claim): boolean => !!handlerOf(claim).part;
@@ -257,7 +268,7 @@ function rejected(statement: string, why: string): Verdict {
   return { status: "refuted", statement, method: "certificate re-check", reason: `certificate rejected: ${why}` };
 }
 
-function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown, budget: Budget): Verdict {
+function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown, budget: Budget, parts?: readonly unknown[]): Verdict {
   const handler = handlerOf(claim);
   const statement = handler.statement(claim, inputs);
   const envelope = `certificate establishes the claim "${statement}" is`;
@@ -271,7 +282,7 @@ function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown,
   const tooLarge = handler.limit(claim, inputs);
   if (tooLarge) return { status: "undecided", statement: full, method: "size limits", reason: `input over the size limit: ${tooLarge}` };
   const outcome = c.outcome;
-  const v = budgeted(full, budget, () => handler.recheck(claim, inputs, outcome, c.evidence, budget));
+  const v = budgeted(full, budget, () => handler.recheck(claim, inputs, outcome, c.evidence, budget, parts));
   return { ...v, statement: full };
 }
 
@@ -283,5 +294,5 @@ function recheckParsed(claim: Claim, inputs: ParsedInputs, certificate: unknown,
 export function recheckClaim(claim: Claim, certificate: unknown, options: VerifyOptions = {}): Verdict {
   const path = options.path ?? "$";
   const inputs = parseInputs(claim, path);
-  return guarded(path, () => recheckParsed(claim, inputs, certificate, budgetOf(options)));
+  return guarded(path, () => recheckParsed(claim, inputs, certificate, budgetOf(options), options.parts));
 }

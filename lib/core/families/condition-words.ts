@@ -1,10 +1,16 @@
 /**
  * A case condition in words: describeCondition reads a validated condition in words and symbols
- * ("Δ(G) ≤ 2 and not (G ⊇ Bw)"), and conditionGuide lists the language (one entry per predicate and
- * connective, each example validated and read here), the one list the case form's help is built from.
+ * ("Δ(G) ≤ 2 and not (G ⊇ Bw)"), with a pattern that has loops or multiple edges read by its name or its edges
+ * (describePattern, the one reader for the case form in the browser and for the server); and conditionGuide lists
+ * the language (one entry per predicate and connective, each example validated and read here), the one list the case
+ * form's help is built from.
  * The language itself and its validation: case-condition.ts.
  */
 import { validateCondition, type CaseCondition, type ConditionRelation, type NumericPredicate, type PlainPredicate } from "./case-condition";
+import { makeGraph, type Graph } from "../graph";
+import { parseSparse6 } from "../input/graph6";
+import { affineA, forkLoop, loopPath, loopPath2 } from "../input/constructors";
+import { canonicalKeyOf } from "./canonical-label";
 
 const SYMBOL: Record<ConditionRelation, string> = { "<": "<", "<=": "≤", "=": "=", ">=": "≥", ">": ">" };
 const NAME: Record<NumericPredicate, string> = {
@@ -36,10 +42,64 @@ export function describeCondition(c: CaseCondition): string {
     case "leg-lengths":
       return `G is a star-like tree with legs ${c.value.join(", ")}`;
     case "contains":
-      return `G contains ${c.graph.text} (${c.graph.format}) as ${c.induced ? "an induced" : "a"} subgraph`;
+      return `G contains ${c.graph.format === "sparse6" ? describePattern(parseSparse6(c.graph.text)) : `${c.graph.text} (${c.graph.format})`} as ${c.induced ? "an induced" : "a"} subgraph`;
     default:
       return "relation" in c ? `${NAME[c.predicate]} ${SYMBOL[c.relation]} ${c.value}` : PLAIN_WORDS[c.predicate];
   }
+}
+
+const COUNT = ["no", "a", "two", "three"];
+/** "a loop", "two loops", "5 loops". */
+const loops = (l: number) => `${COUNT[l] ?? l} loop${l === 1 ? "" : "s"}`;
+/** "the edge 0–1", "a double edge 1–2", "a triple edge 1–2", "4 parallel edges 1–2". */
+const edgeWords = (u: number, v: number, m: number) =>
+  m === 1 ? `${u}–${v}` : m === 2 ? `a double edge ${u}–${v}` : m === 3 ? `a triple edge ${u}–${v}` : `${m} parallel edges ${u}–${v}`;
+const list = (items: string[]) => (items.length <= 1 ? items.join("") : `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`);
+
+/**
+ * The named patterns with loops or multiple edges, in the multigraph setting's words (a loop of weight l is l loops,
+ * an edge of multiplicity m is m edges: case-condition.ts). The loop families are the core's own graphs
+ * (constructors.ts, named as in smith-families.ts), so a name here means exactly the graph the core builds under it.
+ */
+function namedPatterns(n: number): Array<{ graph: Graph; words: string }> {
+  const out: Array<{ graph: Graph; words: string }> = [];
+  if (n === 1) {
+    out.push({ graph: loopPath(1), words: "K1 with a loop" }, { graph: affineA(0), words: "K1 with two loops (Ã0)" });
+  }
+  if (n === 2) out.push({ graph: affineA(1), words: "a double edge (Ã1)" }, { graph: makeGraph(2, [{ u: 0, v: 1, m: 3 }]), words: "a triple edge" });
+  if (n >= 2) {
+    out.push({ graph: loopPath(n), words: `the tadpole T${n} (a path on ${n} vertices with a loop at one end)` });
+    out.push({ graph: loopPath2(n), words: `a path on ${n} vertices with a loop at each end (loop_path2(${n}))` });
+  }
+  if (n >= 3)
+    out.push({
+      graph: forkLoop(n),
+      words:
+        n === 3
+          ? "a vertex with a loop and two leaves (fork_loop(3))"
+          : `a path on ${n - 2} vertices with a loop at one end and two leaves at the other (fork_loop(${n}))`,
+    });
+  return out;
+}
+
+/**
+ * A pattern with loops or multiple edges in words: its name when it is one of the named patterns (up to isomorphism,
+ * compared by canonical form), otherwise every vertex, edge, loop and multiple edge of it as stored, numbered from 0
+ * ("a graph on 3 vertices with the edge 0–1, a loop at 0 and a double edge 1–2"), so the words rebuild the graph.
+ */
+export function describePattern(h: Graph): string {
+  const size = h.edges.reduce((s, e) => s + e.m, 0);
+  const key = (g: Graph) => canonicalKeyOf(g);
+  const mine = key(h);
+  const named = namedPatterns(h.n).find((p) => p.graph.edges.reduce((s, e) => s + e.m, 0) === size && key(p.graph) === mine);
+  if (named) return named.words;
+  const simple = h.edges.filter((e) => e.u !== e.v && e.m === 1);
+  const parts = [
+    ...(simple.length ? [`the edge${simple.length === 1 ? "" : "s"} ${simple.map((e) => edgeWords(e.u, e.v, 1)).join(", ")}`] : []),
+    ...h.edges.filter((e) => e.u === e.v).map((e) => `${loops(e.m)} at ${e.u}`),
+    ...h.edges.filter((e) => e.u !== e.v && e.m > 1).map((e) => edgeWords(e.u, e.v, e.m)),
+  ];
+  return `a graph on ${h.n} vert${h.n === 1 ? "ex" : "ices"}${parts.length ? ` with ${list(parts)}` : " and no edge"}`;
 }
 
 /** Every word a condition may start with: the predicates and the three connectives. */

@@ -229,8 +229,10 @@ export function recheckCoverage(
   evidence: unknown,
   budget: Budget = new Budget(),
   setting: CoverageSetting = "simple",
+  parts?: readonly CoveragePartResult[],
 ): Verdict<undefined> {
-  const again = checkCoverage(maxVertices, cases, budget, setting);
+  // With the parts of a check in parts, the enumeration is the parts merged, not a second run in one piece.
+  const again = checkCoverage(maxVertices, cases, budget, setting, parts);
   const statement = `${again.statement} is ${outcome}`;
   const method = "certificate re-check (the enumeration and every condition repeated)";
   const fail = (reason: string): Verdict<undefined> => ({ status: "refuted", statement, method, reason });

@@ -235,14 +235,17 @@ function enumerationVerdict(
 }
 
 /**
- * Compares a certificate's list of graph6 texts with the expected one as multisets up to isomorphism
- * (same length assumed); returns what is wrong with the first entry that does not match, or null.
+ * Compares a certificate's list of graph6 texts with the expected one as multisets up to isomorphism;
+ * returns what is wrong with the first entry that does not match, or names the first expected graph
+ * the list lacks (in graph6, or sparse6 with loops or multiple edges), or null when they agree.
  */
 export function graph6Mismatch(expected: readonly string[], given: readonly unknown[], field: string, what: string, budget: Budget): string | null {
-  const unused = new Map<string, number>();
+  const unused = new Map<string, { left: number; text: string }>();
   for (const t of expected) {
     const k = canonicalKeyOf(readGraphText(t), budget);
-    unused.set(k, (unused.get(k) ?? 0) + 1);
+    const u = unused.get(k);
+    if (u) u.left++;
+    else unused.set(k, { left: 1, text: t });
   }
   for (const [i, text] of given.entries()) {
     let g: Graph;
@@ -251,13 +254,15 @@ export function graph6Mismatch(expected: readonly string[], given: readonly unkn
     } catch {
       return `${field}[${i}] is not graph6 (nor sparse6)`;
     }
-    const k = canonicalKeyOf(g, budget);
-    const left = unused.get(k) ?? 0;
-    if (left === 0) return `${field}[${i}] is not ${what}`;
-    unused.set(k, left - 1);
+    const u = unused.get(canonicalKeyOf(g, budget));
+    if (!u || u.left === 0) return `${field}[${i}] is not ${what} (${textFormat(String(text))} ${String(text)})`;
+    u.left--;
   }
-  return null;
+  const lacked = [...unused.values()].find((u) => u.left > 0);
+  return lacked ? `${field} lacks ${textFormat(lacked.text)} ${lacked.text}, ${what}` : null;
 }
+
+const textFormat = (t: string) => (t.startsWith(":") ? "sparse6" : "graph6");
 
 /** Re-runs the enumeration and compares it with the certificate's counts and graphs, then the outcome. */
 export function recheckEnumeration(
@@ -269,8 +274,10 @@ export function recheckEnumeration(
   evidence: unknown,
   budget: Budget = new Budget(),
   setting: ClaimSetting | EnumerationSetting = "simple",
+  parts?: readonly EnumerationPart[],
 ): Verdict<undefined> {
-  const again = checkEnumeration(maxVertices, op, bound, listed, budget, setting);
+  // With the parts of a check in parts, the enumeration is the parts merged, not a second run in one piece.
+  const again = checkEnumeration(maxVertices, op, bound, listed, budget, setting, parts);
   const statement = `${again.statement} is ${outcome}`;
   const method = "certificate re-check (the enumeration repeated)";
   const e = typeof evidence === "object" && evidence !== null ? (evidence as Partial<EnumerationCertificate>) : {};
@@ -278,12 +285,13 @@ export function recheckEnumeration(
   const fail = (reason: string): Verdict<undefined> => ({ status: "refuted", statement, method, reason });
   if (again.status === "undecided" || !cert) return { status: "undecided", statement, method, reason: again.reason };
   if (e.kind !== "enumeration") return fail(`certificate.kind must be "enumeration"`);
-  if (JSON.stringify(e.counts) !== JSON.stringify(cert.counts))
-    return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
-  // The graphs are compared up to isomorphism, so a checker that labels or orders them differently agrees.
-  if (!Array.isArray(e.graph6) || e.graph6.length !== cert.graph6.length) return fail(`certificate.graph6 must list the ${cert.graph6.length} graphs found`);
+  // The graphs first, so a list with a graph removed or added is refused naming that graph. They are
+  // compared up to isomorphism, so a checker that labels or orders them differently agrees.
+  if (!Array.isArray(e.graph6)) return fail(`certificate.graph6 must list the ${cert.graph6.length} graphs found`);
   const mismatch = graph6Mismatch(cert.graph6, e.graph6 as unknown[], "certificate.graph6", "one of the graphs the enumeration finds", budget);
   if (mismatch) return fail(mismatch);
+  if (JSON.stringify(e.counts) !== JSON.stringify(cert.counts))
+    return fail(`certificate.counts ${JSON.stringify(e.counts)} differ from the enumeration's ${JSON.stringify(cert.counts)}`);
   if (again.status !== outcome) return fail(`the enumeration shows the claim is ${again.status}, not ${outcome}`);
   return { status: "verified", statement, method, reason: `the enumeration repeated gives the same ${cert.graph6.length} graphs and the claim is ${outcome}` };
 }

@@ -16,9 +16,17 @@
  * §10.8 on the inertia of symmetric matrices), in its simplest form. Row sums of the error bound need
  * only matrix–vector products with |X|ᵀe; every bound computed in floating point is enlarged by a
  * factor covering its own rounding.
+ *
+ * Next precision step: when discs touch 0 and no exact kernel vector settles them, S = N/D is taken to
+ * double-word precision (about 104 bits, arithmetic/double-word.ts) and only the touching rows of B are
+ * recomputed in double-word arithmetic, the rest bounded through a Schur complement (front-refine.ts, whose
+ * header gives the error analysis). The same X and discs serve both steps, so only an eigenvalue within
+ * the double-word error bound of 0 — in practice a true zero — is left to the exact elimination.
  */
 
 import { gcd } from "../arithmetic/rational";
+import { QUOTIENT_ABS, QUOTIENT_REL, quotientByDoubleWord } from "../arithmetic/double-word";
+import { refineFront } from "./front-refine";
 
 const U = 2 ** -53;
 
@@ -60,7 +68,40 @@ export function certifiedFrontInertia(rows: readonly (readonly bigint[])[], d: b
   // |S̃_ij − S_ij| ≤ 2^-48|S̃_ij| + 2^-50 (quotientByDouble).
   const R = new Float64Array(f * f);
   for (let i = 0; i < S.length; i++) R[i] = 2 ** -48 * Math.abs(S[i]) + 2 ** -50;
-  return certifiedIntervalInertia(S, R, f, tick, rows);
+  const discs = frontDiscs(S, R, f, tick);
+  if (!discs) return undefined;
+  if ("inertia" in discs) return discs.inertia;
+  // Discs through 0: exact kernel vectors (true zeros), else the touching rows again in double-word
+  // arithmetic on S = N/D taken to about 104 bits (front-refine.ts).
+  return deflate(discs.factor, frontRowsKernel(rows), tick) ?? refineExactFront(rows, d, discs.factor, tick);
+}
+
+/** S = N/D in double-word form with its radius (quotientByDoubleWord), then the refinement of the touching rows. */
+function refineExactFront(rows: readonly (readonly bigint[])[], d: bigint, factor: FrontFactor, tick: (steps: number) => void): FrontInertia | undefined {
+  const f = rows.length;
+  tick(4 * f * f);
+  const toWord = quotientByDoubleWord(d);
+  const hi = new Float64Array(f * f),
+    lo = new Float64Array(f * f),
+    R = new Float64Array(f * f);
+  for (let i = 0; i < f; i++)
+    for (let j = 0; j < f; j++) {
+      const w = toWord(rows[i][j]);
+      if (!w) return undefined;
+      const k = i * f + j;
+      hi[k] = w.hi;
+      lo[k] = w.lo;
+      R[k] = QUOTIENT_REL * Math.abs(w.hi) * (1 + 2 ** -50) + QUOTIENT_ABS;
+    }
+  return refineFront(factor, hi, lo, R, discsOnly(tick), tick);
+}
+
+/** The double-precision disc certificate alone (no refinement, no kernel vectors): for the small matrix a refinement leaves. */
+export function discsOnly(tick: (steps: number) => void): (mid: Float64Array, rad: Float64Array, m: number) => FrontInertia | undefined {
+  return (mid, rad, m) => {
+    const d = frontDiscs(mid, rad, m, tick);
+    return d && "inertia" in d ? d.inertia : undefined;
+  };
 }
 
 /**
@@ -194,25 +235,6 @@ export function frontDiscs(
     return { inertia: { positive, negative: f - positive, zero: 0 } };
   }
   return { factor: { f, X, perm, centre, radius } };
-}
-
-/**
- * The inertia shared by every symmetric matrix S with |S_ij − S̃_ij| ≤ R_ij (S̃ symmetric, given with R as
- * f×f arrays in row order), or undefined when the certificate does not decide it. With `exact` (the
- * integer rows N of S = N/D) discs through 0 may still be settled by exact kernel vectors; without it they
- * decline.
- */
-export function certifiedIntervalInertia(
-  S: Float64Array,
-  R: Float64Array,
-  f: number,
-  tick: (steps: number) => void = () => {},
-  exact?: readonly (readonly bigint[])[],
-): FrontInertia | undefined {
-  const d = frontDiscs(S, R, f, tick);
-  if (!d) return undefined;
-  if ("inertia" in d) return d.inertia;
-  return exact ? deflate(d.factor, frontRowsKernel(exact), tick) : undefined;
 }
 
 /** A kernel check for deflate: the rounded integer vector y on the front (entries [index, value]) is checked EXACTLY. */

@@ -85,7 +85,11 @@ export function spectralRadiusBound(g: Graph, op: Relation, bound: Bound | strin
         positive: g.n,
         zero: 0,
       };
-      return verdictFrom("<", cert, "certified floating-point elimination at a double enclosure of b (every pivot and the dense front's discs clear of 0)");
+      return verdictFrom(
+        "<",
+        cert,
+        "certified floating-point elimination at a double enclosure of b (every pivot clear of 0; the dense front's discs clear of 0, its rows near 0 recomputed in double-word arithmetic where needed)",
+      );
     }
     for (const bits of PROBE_BITS) {
       const { lo, hi } = enclose(b, bits);

@@ -36,12 +36,23 @@
  * settles the same discs with the front's exact rows, without factorising again; only if that fails too does
  * it eliminate the front exactly. Only a proof is returned, never a guess.
  *
+ * Second precision step. When the double run declines, the same elimination runs again with double-word
+ * midpoints (arithmetic/double-word.ts: about 106 bits, each operation charged a relative DW_EPS = 2^-100;
+ * the radii stay doubles, propagated by the same rules, with the rounding terms 3u|t| + u|m| replaced by
+ * 4ε|t| + 2ε|s| — wordUpdate). b enters through a double-word quotient (QUOTIENT_REL, QUOTIENT_ABS) or a
+ * double-word enclosure. The front's double discs see the high words with the low words added to the radius;
+ * rows whose discs touch 0 are then recomputed in double-word arithmetic (front-refine.ts). The radii of the
+ * front are then about 2^-100 of the entries instead of 2^-50, so only eigenvalues within that much of 0 —
+ * in practice true zeros — are left to the kernel vectors and the exact engine.
+ *
  * An irrational b enters as a double enclosure (m_b, r_b) of b (from a rational enclosure at 64 bits): every
  * bound above holds for each b in it, so the certified counts are those of bI − A for the exact b.
  */
 import { adjacency, Graph } from "../graph";
 import { Rational } from "../arithmetic/rational";
-import { deflate, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
+import { deflate, discsOnly, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
+import { refineFront } from "./front-refine";
+import { DW_EPS, QUOTIENT_ABS, QUOTIENT_REL, dwAdd, dwMul, dwRecip, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { DegreeQueue } from "./degree-queue";
 
 const U = 2 ** -53;
@@ -77,13 +88,21 @@ export interface IntervalHint {
   front?: { vertices: number[]; factor: FrontFactor };
 }
 
-/** b − loop for each loop count, as a midpoint–radius pair: from a rational b, or from a double enclosure lo ≤ b ≤ hi. */
-export type DiagonalBase = { rational: Rational } | { lo: number; hi: number };
+/**
+ * b − loop for each loop count, as a midpoint–radius pair: from a rational b, or from a double enclosure
+ * lo ≤ b ≤ hi (with, for the double-word run, a double-word midpoint and half-width of a finer enclosure).
+ */
+export type DiagonalBase = { rational: Rational } | { lo: number; hi: number; word?: { mid: DW; half: number } };
 
+/** Midpoint m + l (l = 0 in the double run; the low word in the double-word run) and radius r. */
 interface Cell {
   m: number;
+  l: number;
   r: number;
 }
+
+/** The arithmetic of a run: doubles first; double words (arithmetic/double-word.ts) when the double run declines. */
+export type Precision = "double" | "double-word";
 
 /**
  * Full inertia of bI − A by the certified floating-point elimination, or undefined when it cannot decide.
@@ -97,15 +116,28 @@ export function intervalSparseInertia(g: Graph, b: Rational, ...rest: RunOptions
 /** frontDegree, tick and replay of a run (see intervalSparseInertia). */
 type RunOptions = [frontDegree: number | undefined, tick: (steps: number) => void, replay?: readonly unknown[]];
 
-/** The certified elimination (see the header): the result, or a hint for the exact engine, or neither. */
-export function intervalElimination(
+/**
+ * The certified elimination (see the header): the result, or a hint for the exact engine, or neither. The
+ * double run goes first; when it declines, the same elimination runs in double-word arithmetic.
+ */
+export function intervalElimination(g: Graph, base: DiagonalBase, ...rest: RunOptions): { result?: IntervalEliminationResult; hint?: IntervalHint } {
+  const first = certifiedRun(g, base, "double", ...rest);
+  if (first.result) return first;
+  const second = certifiedRun(g, base, "double-word", ...rest);
+  return second.result ? second : { hint: second.hint ?? first.hint };
+}
+
+/** One certified run in the given arithmetic. */
+export function certifiedRun(
   g: Graph,
   base: DiagonalBase,
+  precision: Precision,
   ...[frontDegree, tick, replay]: RunOptions
 ): { result?: IntervalEliminationResult; hint?: IntervalHint } {
   const n = g.n;
+  const word = precision === "double-word";
   const { start, nbr, wt, diag: loops } = adjacency(g);
-  const diagOf = diagonalCells(base);
+  const diagOf = diagonalCells(base, word);
   if (!diagOf) return {};
   const diag: Cell[] = [];
   const rows: Array<Map<number, Cell>> = [];
@@ -118,7 +150,7 @@ export function intervalElimination(
       const u = nbr[k];
       if (u > v) {
         if (!Number.isSafeInteger(wt[k])) return {};
-        const c = { m: -wt[k], r: 0 };
+        const c = { m: -wt[k], l: 0, r: 0 };
         rows[v].set(u, c);
         rows[u].set(v, c);
       }
@@ -146,20 +178,30 @@ export function intervalElimination(
     const f = list.length;
     const at = new Map(list.map((v, i) => [v, i]));
     const S = new Float64Array(f * f),
+      L = new Float64Array(f * f),
       R = new Float64Array(f * f);
     tick(f * f);
     list.forEach((v, i) => {
       S[i * f + i] = diag[v].m;
+      L[i * f + i] = diag[v].l;
       R[i * f + i] = diag[v].r;
       for (const [u, c] of rows[v]) {
         const j = at.get(u)!;
         S[i * f + j] = c.m;
+        L[i * f + j] = c.l;
         R[i * f + j] = c.r;
       }
     });
-    const d = frontDiscs(S, R, f, tick);
+    // The double discs see S_hi with the low words folded into the radius.
+    const RH = word ? R.map((r, k) => (r + Math.abs(L[k])) * UP) : R;
+    const d = frontDiscs(S, RH, f, tick);
     if (!d) return {};
-    const r = "inertia" in d ? d.inertia : keepL && "rational" in base ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick) : undefined;
+    // Discs through 0: exact kernel vectors first (true zeros), then the touching rows in double-word arithmetic.
+    const r =
+      "inertia" in d
+        ? d.inertia
+        : ((keepL && "rational" in base && !word ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick) : undefined) ??
+          refineFront(d.factor, S, word ? L : undefined, R, discsOnly(tick), tick));
     if (!r) return { hint: "factor" in d ? { steps, front: { vertices: list, factor: d.factor } } : { steps } };
     return { result: { positive: positive + r.positive, negative: negative + r.negative, zero: r.zero, steps, signs: signs.join(""), front: f } };
   };
@@ -178,7 +220,7 @@ export function intervalElimination(
     }
     const d = diag[piv];
     const absD = Math.abs(d.m);
-    const low = (absD - d.r) * (1 - 4 * U); // rounded down: a lower bound of |d|
+    const low = (absD - Math.abs(d.l) - d.r) * (1 - 4 * U); // rounded down: a lower bound of |d|
     let rowMax = 0;
     if (!replay) for (const c of rows[piv].values()) rowMax = Math.max(rowMax, Math.abs(c.m));
     if (!(absD > d.r) || !(absD >= MIN_PIVOT) || !(low > 0) || (absD < SMALL_PIVOT * rowMax && eligibleCount > 1)) {
@@ -191,11 +233,18 @@ export function intervalElimination(
     const nb = [...rows[piv]];
     tick(1 + (nb.length * (nb.length + 1)) / 2);
     const updates: Array<[number, number, Cell]> = [];
+    const inv = word ? dwRecip(d.m, d.l) : undefined;
     for (let a = 0; a < nb.length; a++) {
       const [i, ci] = nb[a];
       for (let c = a; c < nb.length; c++) {
         const [j, cj] = nb[c];
         const old = i === j ? diag[i] : rows[i].get(j);
+        if (inv) {
+          const cell = wordUpdate(old, ci, cj, d, inv, low);
+          if (!cell) return {};
+          updates.push([i, j, cell]);
+          continue;
+        }
         const pm = ci.m * cj.m;
         const t = pm / d.m;
         const m = (old?.m ?? 0) - t;
@@ -204,7 +253,7 @@ export function intervalElimination(
         // Rounding of pm, t (3u|t| covers both) and of m (u|m|).
         const r = ((old?.r ?? 0) + rT + 3 * U * Math.abs(t) + U * Math.abs(m) + 8 * TINY) * UP;
         if (!(Math.abs(m) <= MAX_ENTRY) || !(r <= MAX_ENTRY)) return {}; // overflow or NaN
-        updates.push([i, j, { m, r }]);
+        updates.push([i, j, { m, l: 0, r }]);
       }
     }
     if (keepL) lcols.push({ piv, col: nb.map(([i, c]) => [i, c.m / d.m]) });
@@ -220,13 +269,14 @@ export function intervalElimination(
     signs.push(d.m > 0 ? "+" : "-");
     for (const [i, j, c] of updates) {
       if (i === j) diag[i] = c;
-      else if (c.m === 0 && c.r === 0) {
+      else if (c.m === 0 && c.l === 0 && c.r === 0) {
         rows[i].delete(j);
         rows[j].delete(i);
       } else {
         const e = rows[i].get(j);
         if (e) {
           e.m = c.m;
+          e.l = c.l;
           e.r = c.r;
         } else {
           rows[i].set(j, c);
@@ -247,25 +297,60 @@ export function intervalElimination(
   return { result: { positive, negative, zero: 0, steps, signs: signs.join("") } };
 }
 
+/**
+ * One update s_ij = a_ij − a_ip·a_jp / d in double-word arithmetic: t = (a_ip·a_jp)·(1/d) by three operations
+ * (relative error ≤ (1 + ε)³ − 1 < 3.01ε, ε = DW_EPS) and s = a_ij − t by one (≤ ε|s̃|(1 + ε)): 4ε|t̃| + 2ε|s̃|
+ * covers both. The propagated radius is the double run's formula with the double-word midpoints (|m + l| ≤
+ * |m|(1 + u), inside the widening UP); undefined on overflow or NaN.
+ */
+function wordUpdate(old: Cell | undefined, ci: Cell, cj: Cell, d: Cell, inv: DW, low: number): Cell | undefined {
+  const p = dwMul(ci.m, ci.l, cj.m, cj.l);
+  const t = dwMul(p.hi, p.lo, inv.hi, inv.lo);
+  const s = dwAdd(old?.m ?? 0, old?.l ?? 0, -t.hi, -t.lo);
+  const absD = Math.abs(d.m);
+  const rP = Math.abs(ci.m) * cj.r + ci.r * Math.abs(cj.m) + ci.r * cj.r;
+  const rT = rP / low + (Math.abs(p.hi) * d.r) / (absD * low);
+  const r = ((old?.r ?? 0) + rT + 4 * DW_EPS * Math.abs(t.hi) + 2 * DW_EPS * Math.abs(s.hi) + 8 * TINY) * UP;
+  if (!(Math.abs(s.hi) <= MAX_ENTRY) || !(r <= MAX_ENTRY)) return undefined;
+  return { m: s.hi, l: s.lo, r };
+}
+
 /** The diagonal cell of b − loop, for each loop count; undefined when b has no finite double enclosure. */
-function diagonalCells(base: DiagonalBase): ((loop: number) => Cell) | undefined {
+function diagonalCells(base: DiagonalBase, word: boolean): ((loop: number) => Cell) | undefined {
   if ("rational" in base) {
     const b = base.rational;
+    if (word) {
+      const byQ = quotientByDoubleWord(b.den);
+      // b − loop = (p − q·loop)/q in double words: error ≤ QUOTIENT_REL·|b − loop| + QUOTIENT_ABS.
+      return (loop) => {
+        const w = byQ(b.num - b.den * BigInt(loop)) ?? { hi: NaN, lo: 0 };
+        return { m: w.hi, l: w.lo, r: QUOTIENT_REL * Math.abs(w.hi) * UP + QUOTIENT_ABS };
+      };
+    }
     const byQ = quotientByDouble(b.den);
     // b − loop = (p − q·loop)/q as a double: error ≤ 2^-48|m| + 2^-50 (quotientByDouble).
     return (loop) => {
       const m = byQ(b.num - b.den * BigInt(loop));
-      return { m, r: 2 ** -48 * Math.abs(m) + 2 ** -50 };
+      return { m, l: 0, r: 2 ** -48 * Math.abs(m) + 2 ** -50 };
     };
   }
   const { lo, hi } = base;
+  if (word && base.word) {
+    // b − loop = mid − loop ± half in double words (one subtraction of an integer: error ≤ ε|result|).
+    const { mid, half } = base.word;
+    if (!Number.isFinite(mid.hi) || !(half >= 0)) return undefined;
+    return (loop) => {
+      const w = dwAdd(mid.hi, mid.lo, -loop, 0);
+      return { m: w.hi, l: w.lo, r: (half + DW_EPS * Math.abs(w.hi) + TINY) * UP };
+    };
+  }
   if (!Number.isFinite(lo) || !Number.isFinite(hi) || !(lo <= hi)) return undefined;
   // Midpoint and half-width of [lo, hi] (each rounded: widened by u of each operand), then one subtraction.
   const mid = lo / 2 + hi / 2;
   const half = (hi / 2 - lo / 2) * UP + U * (Math.abs(lo) + Math.abs(hi)) + TINY;
   return (loop) => {
     const m = mid - loop;
-    return { m, r: (half + U * Math.abs(m)) * UP };
+    return { m, l: 0, r: (half + U * Math.abs(m)) * UP };
   };
 }
 

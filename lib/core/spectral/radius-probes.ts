@@ -11,6 +11,7 @@ import { Bound, boundApprox, enclose, boundPolynomial } from "../arithmetic/boun
 import { isForest, treeInertia, treeInertiaOver, StopRule } from "./tree-inertia";
 import { AlgebraicField, rationalEnclosure } from "../arithmetic/number-field";
 import { intervalElimination } from "./interval-elimination";
+import { QUOTIENT_ABS, QUOTIENT_REL, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
 import { sparseInertia, FLOAT_FRONT_DEGREE, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
@@ -143,8 +144,22 @@ export function floatDefinite(g: Graph, b: Bound & { kind: "algebraic" }, budget
   const l = rationalEnclosure(lo),
     h = rationalEnclosure(hi);
   if (!l || !h) return false;
-  const r = intervalElimination(g, { lo: l[0], hi: h[1] }, FLOAT_FRONT_DEGREE, (s) => budget.tick(s)).result;
+  const r = intervalElimination(g, { lo: l[0], hi: h[1], word: wordEnclosure(b) }, FLOAT_FRONT_DEGREE, (s) => budget.tick(s)).result;
   return r !== undefined && r.negative === 0 && r.zero === 0;
+}
+
+/**
+ * b as a double-word midpoint with a half-width, for the double-word run: the midpoint m of b's rational
+ * enclosure at 2^-128 in double words (error ≤ QUOTIENT_REL·|m| + QUOTIENT_ABS), the half-width (hi − lo)/2
+ * as a double rounded up (rationalEnclosure), both added.
+ */
+function wordEnclosure(b: Bound & { kind: "algebraic" }): { mid: DW; half: number } | undefined {
+  const { lo, hi } = enclose(b, 128);
+  const m = mul(add(lo, hi), rat(1n, 2n));
+  const mid = quotientByDoubleWord(m.den)(m.num);
+  const w = rationalEnclosure(mul(sub(hi, lo), rat(1n, 2n)));
+  if (!mid || !w) return undefined;
+  return { mid, half: (w[1] + QUOTIENT_REL * Math.abs(mid.hi) + QUOTIENT_ABS) * (1 + 2 ** -50) };
 }
 
 /** Exact elimination over Q(b) (Jacobs–Trevisan on forests, sparse otherwise): the fact about ρ versus b, and the certificate. */
