@@ -29,3 +29,4 @@ export { ClaimFile } from "./claim-file";
 export { FormerMember } from "./former-member";
 export { BatchClaim, BatchResult } from "./batch-claim";
 export { ClaimPart } from "./claim-part";
+export { BundleRecheck, BundleRecheckPart } from "./bundle-recheck";

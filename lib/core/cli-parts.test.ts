@@ -12,6 +12,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { checkDocument, checkFile, checkFileOnThreads, EXIT_NOT_VERIFIED, main } from "./cli";
 import { partsOnThreads } from "./cli-parts";
 import { DEFAULT_STEP_LIMIT } from "./verdict";
+import { sameRun } from "../../tests/support/bundle-items";
 
 const scratch = mkdtempSync(join(tmpdir(), "cairn-cli-parts-"));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
@@ -38,8 +39,6 @@ const claims = {
 };
 const file = join(scratch, "claims.json");
 writeFileSync(file, JSON.stringify(claims));
-/** A report without what measures the run itself (steps spent, milliseconds). */
-const sameRun = (v: unknown): unknown => JSON.parse(JSON.stringify(v, (k, x: unknown) => (k === "steps" || k === "timings" ? undefined : x)));
 
 describe("the offline checker on threads", () => {
   it("gives the report of the run in one piece, with the counts of OEIS A001349 and A000055", async () => {

@@ -13,7 +13,7 @@ import { CheckCancelled, runInPool, STEP_LIMIT, WorkerFailure } from "../verific
 import { lockLatest, recordVerdictInRevisions } from "../data/revisions";
 import { deliverAfterCommit } from "../mail/outbox";
 import { recordEvent } from "../data/audit";
-import { failedReasonText, JOB_ATTEMPTS, MAX_STALLED, type ClaimJobData } from "./queue";
+import { failedForGood, type ClaimJobData } from "./queue";
 
 /** This worker's name, stored with each verdict it decides. */
 export const workerName = (): string => `${hostname()}:${process.pid}`;
@@ -138,11 +138,6 @@ export async function verifyInPool(claimId: number, round: number, claim: ClaimJ
  * without it, and the reason says which part failed, how often and why.
  */
 export async function settleFailed(data: Omit<ClaimJobData, "type">, failedReason: string | undefined, part?: string): Promise<boolean> {
-  const given = failedReasonText(failedReason);
-  const why = /stalled/i.test(failedReason ?? "")
-    ? `the verification worker stopped ${MAX_STALLED + 1} times while checking ${part ? `${part} of ` : ""}this claim (killed, or out of memory); re-check to try again`
-    : part
-      ? `${part} failed ${JOB_ATTEMPTS} times (${given}), so the claim could not be decided; re-check to try again`
-      : `the verification failed ${JOB_ATTEMPTS} times (${given}); re-check to try again`;
+  const why = failedForGood(failedReason, part ? { part, outcome: "the claim could not be decided", again: "re-check to try again" } : undefined);
   return decide(data.claimId, data.round, data.checkedBy, undecided("worker", why));
 }

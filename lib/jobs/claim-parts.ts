@@ -20,7 +20,7 @@ import { decide, settleFailed, stillWanted, undecided, verifyInPool, whileWanted
 import { claimPartJobId, partWords, queueClaimParts, verificationQueue, type ClaimJobData, type ClaimPartJobData, type JobData, type JobResult } from "./queue";
 
 /** The most parts of one claim (CAIRN_CLAIM_PARTS_MAX, default 8). */
-const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || DEFAULT_MAX_PARTS);
+export const maxParts = () => Math.max(2, Number(process.env.CAIRN_CLAIM_PARTS_MAX) || DEFAULT_MAX_PARTS);
 
 /** How many parts a claim is checked in (the core's rule, partsOf, with this deployment's most parts). */
 export const partsFor = (claim: ClaimJson): number => partsOf(claim, maxParts());

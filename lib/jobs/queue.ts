@@ -11,6 +11,7 @@
 import { Queue, type ConnectionOptions, type Job } from "bullmq";
 import type { BundleCheckReport } from "../core/certificates/bundle";
 import { partWords } from "../core/certificates/parts-plan";
+import { models } from "../../models";
 
 export const QUEUE_NAME = "verification";
 /** How long the web process waits for Redis before calling verification paused. */
@@ -41,6 +42,18 @@ export interface BundleJobData {
   claims: number;
 }
 
+/**
+ * Data of one part of a large claim of a certified export's re-check (lib/jobs/bundle-parts.ts): part `part` of
+ * `parts` (0-based) of the claim item `item` of the re-check `recheckId` (a bundle_rechecks row, which holds the bundle).
+ */
+export interface BundlePartJobData {
+  type: "bundle-part";
+  recheckId: number;
+  item: string;
+  part: number;
+  parts: number;
+}
+
 /** Data of one chunk of a batch claim: entries [chunk × chunkSize, (chunk + 1) × chunkSize) of its list. */
 export interface BatchJobData {
   type: "batch";
@@ -53,12 +66,14 @@ export interface FileSweepJobData {
   type: "file-sweep";
 }
 
-export type JobData = ClaimJobData | ClaimPartJobData | BundleJobData | BatchJobData | FileSweepJobData;
+export type JobData = ClaimJobData | ClaimPartJobData | BundleJobData | BundlePartJobData | BatchJobData | FileSweepJobData;
 export type JobResult =
   /** `parts`: the claim job handed the check to that many part jobs; `stored`: a part job stored its part. */
   | { decided: boolean; parts?: number; stored?: boolean }
   | { decided: number }
   | BundleCheckReport
+  /** A bundle job that handed its large claims to part jobs: the re-check whose report the last part in writes. */
+  | { recheck: number; parts: number }
   | { objectsRemoved: number; rowsRemoved: number; rowsKept: number; uploadsRemoved: number };
 
 /** The file sweep's schedule: one repeatable job for all workers, every CAIRN_FILE_SWEEP_EVERY_MS (an hour by default). */
@@ -99,6 +114,20 @@ export async function queueClaimParts(data: Omit<ClaimPartJobData, "type" | "par
       name: "claim-part",
       data: { type: "claim-part" as const, ...data, part },
       opts: { jobId: claimPartJobId(data.claimId, data.round, part) },
+    })),
+  );
+}
+
+/** Job ids of a bundle re-check's parts: claim `claim` (its place among the split claims), part `part`. */
+export const bundlePartJobId = (recheckId: number, claim: number, part: number) => `bundle-r${recheckId}-c${claim}-p${part}`;
+
+/** Queues the parts of a bundle re-check (idempotent per part); only workers queue them. */
+export async function queueBundleParts(recheckId: number, parts: ReadonlyArray<{ claim: number; item: string; part: number; parts: number }>): Promise<void> {
+  await verificationQueue("worker").addBulk(
+    parts.map((p) => ({
+      name: "bundle-part",
+      data: { type: "bundle-part" as const, recheckId, item: p.item, part: p.part, parts: p.parts },
+      opts: { jobId: bundlePartJobId(recheckId, p.claim, p.part) },
     })),
   );
 }
@@ -210,6 +239,20 @@ export { partWords };
 export const failedReasonText = (failedReason: string | null | undefined): string => (failedReason || "no reason given").slice(0, 300);
 
 /**
+ * Why a job that failed for good leaves its claim undecided, in words a person can act on: a whole claim's job
+ * ("the verification failed 3 times (…); re-check to try again"), or a part's (`part`: "part 2 of 4"), which says
+ * what could not be done without it and how to try again — the claim's own check, or a bundle's re-check.
+ */
+export function failedForGood(failedReason: string | undefined, part?: { part: string; outcome: string; again: string }): string {
+  const given = failedReasonText(failedReason);
+  if (/stalled/i.test(failedReason ?? ""))
+    return `the verification worker stopped ${MAX_STALLED + 1} times while checking ${part ? `${part.part} of ` : ""}this claim (killed, or out of memory); ${part?.again ?? "re-check to try again"}`;
+  return part
+    ? `${part.part} failed ${JOB_ATTEMPTS} times (${given}), so ${part.outcome}; ${part.again}`
+    : `the verification failed ${JOB_ATTEMPTS} times (${given}); re-check to try again`;
+}
+
+/**
  * A part of a claim checked in parts that is being tried again: which part (1-based) of how many, the attempt it is
  * on of how many it gets, and why the last attempt failed; `words` says it all in one phrase for the card and the API.
  */
@@ -288,25 +331,38 @@ export async function partRetries(claimId: number, round: number, parts: number,
 }
 
 /**
- * Runs a certified export's bundle re-check as a job and waits for its report (polling the job,
- * every 200 ms, up to `ms`). Rejects with QueueUnavailable when Redis is away, or with an Error
- * saying why the job did not finish.
+ * Runs a certified export's bundle re-check as a job and waits for its report (polling every 200 ms, up to `ms`).
+ * A bundle with large enumeration or coverage claims is re-checked in parts (lib/jobs/bundle-parts.ts): the job
+ * then hands them to part jobs and the report is the one the last part in writes to its bundle_rechecks row, which
+ * is removed once read. Rejects with QueueUnavailable when Redis is away, or with an Error saying why the job did not finish.
  */
 export async function runBundleJob(bundle: unknown, claims: number, ms: number): Promise<BundleCheckReport> {
   const job: Job<JobData, JobResult> = await bounded(() => verificationQueue().add("bundle", { type: "bundle", bundle, claims }, { attempts: 2 }));
   const deadline = Date.now() + ms;
+  let recheck: number | null = null;
   for (;;) {
-    const state = await bounded(() => job.getState());
-    if (state === "completed") {
-      const done = await bounded(() => verificationQueue().getJob(job.id!));
-      return done!.returnvalue as BundleCheckReport;
-    }
-    if (state === "failed") {
-      const done = await bounded(() => verificationQueue().getJob(job.id!));
-      throw new Error(done?.failedReason || "the re-check failed");
+    if (recheck !== null) {
+      const row = await models().BundleRecheck.findByPk(recheck, { attributes: ["id", "report"] });
+      if (row?.report) {
+        await models().BundleRecheck.destroy({ where: { id: recheck } });
+        return JSON.parse(row.report) as BundleCheckReport;
+      }
+    } else {
+      const state = await bounded(() => job.getState());
+      if (state === "completed") {
+        const done = (await bounded(() => verificationQueue().getJob(job.id!)))!.returnvalue;
+        if (!("recheck" in done)) return done as BundleCheckReport;
+        recheck = done.recheck;
+        continue;
+      }
+      if (state === "failed") {
+        const done = await bounded(() => verificationQueue().getJob(job.id!));
+        throw new Error(done?.failedReason || "the re-check failed");
+      }
     }
     if (Date.now() > deadline) {
       await bounded(() => job.remove()).catch(() => undefined);
+      if (recheck !== null) await models().BundleRecheck.destroy({ where: { id: recheck } });
       throw new Error(`the re-check did not finish within ${Math.round(ms / 1000)} s`);
     }
     await new Promise((r) => setTimeout(r, 200));

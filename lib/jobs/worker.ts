@@ -16,7 +16,7 @@ import { Worker, type Job } from "bullmq";
 import { getSequelize } from "../db";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
-import { checkBundleInPool } from "../verification/pool";
+import { runBundlePart, runBundleRecheck, settleFailedBundlePart, sweepBundleRechecks } from "./bundle-parts";
 import { decide, num, settleFailed, stillWanted, verifyInPool, workerName } from "./claim-decide";
 import { partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
 import { runBatchChunk, settleFailedChunk } from "./batch";
@@ -36,7 +36,6 @@ import {
   redisConnection,
   verificationQueue,
   type BatchJobData,
-  type BundleJobData,
   type ClaimJobData,
   type JobData,
   type JobResult,
@@ -67,10 +66,11 @@ async function process_(job: Job<JobData, JobResult>): Promise<JobResult> {
   if (job.data.type === "file-sweep") return sweepStoredFiles();
   if (job.data.type === "claim-part") return runClaimPart(job, job.data);
   if (job.data.type === "bundle") {
-    const data = job.data as BundleJobData;
     await job.updateProgress({ worker: workerName(), startedAt: new Date().toISOString() });
-    return checkBundleInPool(data.bundle, data.claims);
+    // Its large claims are handed to part jobs (bundle-parts.ts); the rest is re-checked here.
+    return runBundleRecheck(job, job.data);
   }
+  if (job.data.type === "bundle-part") return runBundlePart(job, job.data);
   return verifyClaimJob(job, job.data);
 }
 
@@ -188,6 +188,13 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       if (job.attemptsMade >= JOB_ATTEMPTS || /stalled/i.test(e.message)) void settleFailed(data, e.message, partWords(data)).catch(() => undefined);
       return;
     }
+    if (job?.data.type === "bundle-part") {
+      const data = job.data;
+      log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
+      // Out of attempts, or its worker died too often: the bundle's re-check goes on with this claim undecided.
+      if (job.attemptsMade >= JOB_ATTEMPTS || /stalled/i.test(e.message)) void settleFailedBundlePart(data, e.message).catch(() => undefined);
+      return;
+    }
     if (!job || job.data.type !== "claim") return;
     log(`[cairn worker] job ${job.id} failed (attempt ${job.attemptsMade} of ${JOB_ATTEMPTS}): ${e.message}`);
     if (job.attemptsMade >= JOB_ATTEMPTS) void settleFailed(job.data, e.message).catch(() => undefined);
@@ -210,6 +217,10 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       log(`[cairn worker] claim ${job.data.claimId} is checked in ${result.parts} parts`);
     else if (job.data.type === "claim")
       log(`[cairn worker] claim ${job.data.claimId} ${"decided" in result && result.decided ? "decided" : "no longer pending; nothing stored"}`);
+    if (job.data.type === "bundle-part" && "stored" in result && result.stored)
+      log(
+        `[cairn worker] bundle re-check ${job.data.recheckId}: ${job.data.item}, part ${job.data.part + 1} of ${job.data.parts} stored${"decided" in result && result.decided ? "; all parts in, bundle re-checked" : ""}`,
+      );
     if (job.data.type === "claim-part" && !("stored" in result && result.stored))
       log(`[cairn worker] claim ${job.data.claimId}: part ${job.data.part + 1} of ${job.data.parts} not needed any more; nothing stored`);
     if (job.data.type === "claim-part" && "stored" in result && result.stored)
@@ -223,6 +234,8 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       try {
         const { queued, settled } = await sweep();
         if (queued || settled) log(`[cairn worker] sweep: queued ${queued} pending claims, settled ${settled} failed ones`);
+        const gone = await sweepBundleRechecks();
+        if (gone) log(`[cairn worker] sweep: removed ${gone} bundle re-checks nobody waits for any more`);
         const chunks = await sweepBatches();
         if (chunks.queued || chunks.settled) log(`[cairn worker] sweep: queued ${chunks.queued} batch chunks, settled ${chunks.settled} failed ones`);
       } catch (e) {

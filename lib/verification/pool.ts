@@ -12,6 +12,7 @@ import path from "node:path";
 import { Piscina } from "piscina";
 import type { BundleTask, PartAnswer, PartTask, VerificationTask, WorkerAnswer } from "./types";
 import type { BundleCheckReport } from "../core/certificates/bundle";
+import type { PartsByClaim } from "../core/certificates/parts-plan";
 import { STEP_LIMIT, TIME_LIMIT_MS } from "./limits";
 import { isFresh, WORKER_SOURCES, workerBundlePath } from "./bundles";
 
@@ -89,12 +90,12 @@ export class CheckCancelled extends Error {
 }
 
 /**
- * Re-checks an export bundle in the pool, exactly as the offline checker does; the limit grows with
- * the number of claims (each has the usual one), up to ten minutes.
+ * Re-checks an export bundle in the pool, exactly as the offline checker does (its large claims merged
+ * from `parts` when given); the limit grows with the number of claims (each has the usual one), up to ten minutes.
  */
-export function checkBundleInPool(bundle: unknown, claims: number): Promise<BundleCheckReport> {
+export function checkBundleInPool(bundle: unknown, claims: number, parts?: PartsByClaim): Promise<BundleCheckReport> {
   const limit = Math.min(TIME_LIMIT_MS * Math.max(1, claims), 600_000);
-  return run({ bundle, stepLimit: STEP_LIMIT }, limit, "bundle") as Promise<BundleCheckReport>;
+  return run({ bundle, stepLimit: STEP_LIMIT, ...(parts ? { parts } : {}) }, limit, "bundle") as Promise<BundleCheckReport>;
 }
 
 async function run(task: Task, timeLimitMs: number, name?: string, cancel?: AbortSignal): Promise<Answer> {

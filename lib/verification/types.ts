@@ -1,5 +1,6 @@
 /** What the server sends to a verification worker and what comes back (plain JSON both ways). */
 import type { ClaimPicture } from "./picture";
+import type { PartsByClaim } from "../core/certificates/parts-plan";
 
 export interface VerificationTask {
   /** "check": validate and read every input (fast, for a 422 on the request); "verify": run the exact check. */
@@ -32,6 +33,8 @@ export interface BundleTask {
   bundle: unknown;
   /** Step budget of each claim's check. */
   stepLimit: number;
+  /** Its large claims' parts, computed by part jobs (lib/jobs/bundle-parts.ts), by claim item id. */
+  parts?: PartsByClaim;
 }
 
 export interface VerificationOutcome {

@@ -118,7 +118,7 @@ export function part(task: PartTask): PartAnswer {
 
 /** The worker's `bundle` entry: the offline checker's bundle re-check, off the thread that answers requests. */
 export function bundle(task: BundleTask): BundleCheckReport {
-  return checkBundle(task.bundle, "bundle", { steps: task.stepLimit });
+  return checkBundle(task.bundle, "bundle", { steps: task.stepLimit, ...(task.parts ? { parts: task.parts } : {}) });
 }
 
 function verifyOne(claim: Claim, task: VerificationTask): VerificationOutcome {

@@ -11,6 +11,7 @@ import { claimPart, verifyClaim } from "../claims/claims";
 import { partsOf } from "../claims/part-count";
 import { Budget } from "../verdict";
 import { checkBundle, sealBundle, type ClaimItemData } from "./bundle";
+import { certifiedHeader, claimItem, sameRun } from "../../../tests/support/bundle-items";
 import { claimsToSplit, type PartsByClaim } from "./parts-plan";
 
 // Connected graphs on n = 1..7 vertices: OEIS A001349. Trees on n = 1..13 vertices: OEIS A000055.
@@ -93,41 +94,16 @@ describe("a claim carrying its own certificate, checked in parts", () => {
 
 // ---- bundles
 
-const header = {
-  kind: "certified" as const,
-  exportedAt: "2026-12-04T10:00:00.000Z",
-  exportedBy: "Mira Fenwold",
-  proofState: "ready to certify",
-  checkerVersion: "cairn-check/0.1.0",
-};
-
-function claimItem(id: string, c: Claim, certificate = verifyClaim(c, { budget: big() }).verdict.certificate) {
-  const v = verifyClaim(c, { budget: big() });
-  const data: ClaimItemData = {
-    step: "step 1(a)",
-    position: 1,
-    claim: c,
-    digest: v.digest,
-    verdict: { status: v.verdict.status, statement: v.verdict.statement, method: v.verdict.method, reason: v.verdict.reason },
-    certificate,
-    checkerVersion: v.checkerVersion,
-    checkedAt: "2026-12-04T09:00:00.000Z",
-  };
-  return { id, type: "claim" as const, data };
-}
-
 /** The parts of every split claim of a document, computed apart (as part jobs or checker threads do). */
 function partsOfDocument(json: unknown): PartsByClaim {
   return Object.fromEntries(claimsToSplit(json).map((s) => [s.key, { digest: s.digest, results: partsOfClaim(s.claim, s.parts) }]));
 }
 
 const copy = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
-/** A result without what measures the run itself (steps spent, milliseconds), which differs between one piece and parts. */
-const sameRun = (v: unknown): unknown => JSON.parse(JSON.stringify(v, (k, x: unknown) => (k === "steps" || k === "timings" ? undefined : x)));
 
 describe("a bundle re-checked in parts", () => {
   const items = [claimItem("claim 1(a)#1", graphs7), claimItem("claim 1(a)#2", listed), claimItem("claim 1(a)#3", coverage)];
-  const bundle = sealBundle(header, items);
+  const bundle = sealBundle(certifiedHeader, items);
 
   it("gives the report of the single re-check, line for line", () => {
     expect(claimsToSplit(copy(bundle)).map((s) => [s.key, s.parts])).toEqual([
@@ -160,7 +136,7 @@ describe("a bundle re-checked in parts", () => {
   const resealed = (edit: (d: ClaimItemData & { claim: Claim; certificate: { evidence: { counts: number[]; graph6: string[] } } }) => void) => {
     const edited = copy(items);
     edit(edited[1].data as never);
-    return copy(sealBundle(header, edited));
+    return copy(sealBundle(certifiedHeader, edited));
   };
 
   it.each([
