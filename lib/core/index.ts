@@ -99,6 +99,7 @@ export {
 
 // Spectra.
 export { spectralRadiusBound, recheckSpectralRadiusBound, inertia, type Relation, type SpectralRadiusCertificate } from "./spectral/inertia";
+export type { ZeroProof } from "./spectral/tree-zero-modular";
 export { characteristicPolynomial, charpolyBerkowitz } from "./spectral/charpoly";
 export { checkVectorCertificate, checkRayleighCertificate, recheckVectorCertificate, type VectorEvidence } from "./spectral/vector";
 export * from "./spectral/spectral";

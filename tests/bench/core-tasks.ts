@@ -20,6 +20,7 @@ import { characteristicPolynomial } from "../../lib/core/spectral/charpoly";
 import { makeGraph, type Graph } from "../../lib/core/graph";
 import { identifySmith } from "../../lib/core/families/identify";
 import { inertia, spectralRadiusBound, type Relation } from "../../lib/core/spectral/inertia";
+import type { ZeroProof } from "../../lib/core/spectral/tree-zero-modular";
 import { rat } from "../../lib/core/arithmetic/rational";
 import { affineE } from "../../lib/core/input/constructors";
 import { findSubgraph } from "../../lib/core/subgraph/subgraph";
@@ -50,9 +51,10 @@ const verdict = (op: Relation, bound: string) => (g: Graph) => {
 };
 
 /** The full inertia of bI − A (elimination to the end), with the dense front certified in floating point, if any. */
-const inertiaAt = (b: number) => (g: Graph) => {
-  const r = inertia(g, rat(b), new Budget(BENCH_STEPS));
-  return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front} certified in floating point` : ""}`;
+const inertiaAt = (b: number, zeroProof?: ZeroProof) => (g: Graph) => {
+  const r = inertia(g, rat(b), new Budget(BENCH_STEPS), { zeroProof });
+  const m = r.modular ? `, modular: ${r.modular.zeros} zeros, ${r.modular.primes} primes` : "";
+  return `(+${r.positive}, −${r.negative}, 0×${r.zero})${r.front ? `, front of ${r.front} certified in floating point` : ""}${m}`;
 };
 const inertiaAt2 = inertiaAt(2);
 
@@ -61,13 +63,13 @@ const inertiaAt2 = inertiaAt(2);
  * to the root of a copy with a loop of weight 4 at every vertex, whose elimination values at b = 2 are the
  * negatives of the tree's; they cancel at vertex 0 exactly (tree-inertia-zeros.test.ts).
  */
-function mirroredTree(m: number): Graph {
+function mirroredTree(m: number, tree: ReadonlyArray<readonly [number, number]> = randomTreeWorkload(m).edges): Graph {
   const edges: Array<{ u: number; v: number; m?: number }> = [
     { u: 0, v: 0, m: 2 },
     { u: 0, v: 1 },
     { u: 0, v: m + 1 },
   ];
-  for (const [a, b] of randomTreeWorkload(m).edges) edges.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
+  for (const [a, b] of tree) edges.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
   for (let i = 0; i < m; i++) edges.push({ u: m + 1 + i, v: m + 1 + i, m: 4 });
   return makeGraph(2 * m + 1, edges);
 }
@@ -101,6 +103,23 @@ function spectralRadiusTasks(): BenchTask[] {
     prepare: () => mirroredTree(100_000),
     run: (g) => inertiaAt2(g as Graph),
   });
+  // Zero at the top of a large subtree: exact vs modular (tree-zero-modular.ts), side by side on a mirrored
+  // caterpillar (spine of m/2 vertices, one leaf at each: determinants grow about a bit per vertex) and a
+  // mirrored random tree. "auto" is "exact" because of these figures.
+  const caterpillar = (m: number) => Array.from({ length: m - 1 }, (_, i): [number, number] => (i < m / 2 - 1 ? [i, i + 1] : [i - (m / 2 - 1), i + 1]));
+  for (const [name, m, tree] of [
+    ["caterpillar", 10_000, caterpillar],
+    ["random tree", 30_000, (k: number) => randomTreeWorkload(k).edges],
+  ] as const)
+    for (const zeroProof of ["exact", "modular"] as const)
+      out.push({
+        id: `mirrored-${name.replace(" ", "-")}-${m}-zero-${zeroProof}`,
+        workload: `mirrored ${name} (m = ${m}, ${2 * m + 1} vertices)`,
+        task: `zero at the top of a large subtree: ${zeroProof}`,
+        quick: false,
+        prepare: () => mirroredTree(m, tree(m)),
+        run: (g) => inertiaAt(2, zeroProof)(g as Graph),
+      });
   // ρ against an irrational bound within 10^-12 of it, on both sides: √r with r a 50-bit dyadic rational
   // near (ρ ± 10^-12)², ρ suggested by power iteration in `prepare` (untimed); the verdict is exact.
   for (const eps of [1e-12, -1e-12])

@@ -34,7 +34,21 @@ export interface Field<T> {
   smallPair?(a: T): [number, number] | undefined;
   /** Rationals only: the element num/den from exact integer doubles (den > 0). */
   fromPair?(num: number, den: number): T;
+  /** Rationals only: [num mod p, den mod p] in [0, p) for the value as this field writes it (any num/den, den > 0); pBig = BigInt(p). */
+  residuePair?(a: T, p: number, pBig: bigint): [number, number];
+  /** Rationals only: a double at least the denominator as this field writes it. */
+  denominatorUpper?(a: T): number;
 }
+
+const residuePair = (a: Rational, p: number, pBig: bigint): [number, number] => {
+  const x = Number(a.num % pBig);
+  return [x < 0 ? x + p : x, Number(a.den % pBig)];
+};
+/** The denominator as a double: exact up to 2^53, rounded up beyond. */
+const denominatorUpper = (a: Rational): number => {
+  const d = Number(a.den);
+  return a.den <= 9007199254740992n ? d : nextUp(d);
+};
 
 export const RATIONALS: Field<Rational> = {
   fromInt: (k) => rat(k),
@@ -44,6 +58,8 @@ export const RATIONALS: Field<Rational> = {
   sign,
   enclosure: (a) => rationalEnclosure(a),
   bits: (a) => Math.max(absBig(a.num).toString(16).length, a.den.toString(16).length) * 4,
+  residuePair,
+  denominatorUpper,
 };
 
 /**
@@ -71,6 +87,8 @@ export const LAZY_RATIONALS: Field<Rational> = {
   normalize: (a) => rat(a.num, a.den),
   smallPair: (a) => (a.num < PAIR && a.num > -PAIR && a.den < PAIR ? [Number(a.num), Number(a.den)] : undefined),
   fromPair: (num, den) => ({ num: BigInt(num), den: BigInt(den) }),
+  residuePair,
+  denominatorUpper,
 };
 
 // ------------------------------------------------------------ outward rounding

@@ -17,6 +17,7 @@ import { Budget } from "../verdict";
 import { enclose, parseBound, type Bound } from "../arithmetic/bound";
 import { rationalEnclosure } from "../arithmetic/number-field";
 import { floatDefinite } from "./radius-probes";
+import { checkDocument } from "../cli";
 import { adjacency, type Graph } from "../graph";
 import { cubicWorkload, workloadGraph } from "../../../tests/bench/workloads";
 
@@ -192,5 +193,27 @@ describe("double-word step of the certified front", () => {
     expect(recheckSpectralRadiusBound(g, "<", `${lower.num}/${lower.den}`, "verified", cert, big()).status).toBe("refuted");
     // And the verdict there is a refutation (ρ = √306 > b − 2^-59).
     expect(spectralRadiusBound(g, "<", `${lower.num}/${lower.den}`, big()).status).toBe("refuted");
+    // The offline checker (cli.ts) re-checks the carried certificate the same way: accepted as made, refused when tampered.
+    const claim = (evidence: unknown) => ({
+      format: "cairn-claims/1",
+      claims: [
+        {
+          format: "cairn-claim/1",
+          id: "K17-18",
+          kind: "spectral-radius-bound",
+          graph: { format: "named", text: "complete_bipartite(17,18)" },
+          op: "<",
+          bound: text,
+          certificate: { kind: "spectral-radius-bound", outcome: "verified", evidence },
+        },
+      ],
+    });
+    const good = checkDocument(claim(cert), "memory");
+    expect(good.lines[0].status).toBe("verified");
+    expect(good.lines[0].certificate?.matches).toBe(true);
+    expect(good.exitCode).toBe(0);
+    const bad = checkDocument(claim(flipped), "memory");
+    expect(bad.lines[0].certificate?.matches).toBe(false);
+    expect(bad.exitCode).not.toBe(0);
   });
 });

@@ -18,7 +18,7 @@ import { Graph, GraphError } from "../graph";
 import { Budget, Verdict, withinBudget } from "../verdict";
 import { Rational, ratToString } from "../arithmetic/rational";
 import { Bound, enclose, parseBound } from "../arithmetic/bound";
-import { isForest, treeInertia, EliminationResult, StopRule } from "./tree-inertia";
+import { isForest, treeInertia, EliminationResult, StopRule, type ZeroProof } from "./tree-inertia";
 import { FOREST_CHARPOLY_LIMIT, forestEigenvalueCount } from "./forest-charpoly";
 import { sparseInertia, FLOAT_FRONT_DEGREE } from "./sparse-inertia";
 import { Relation, RELATIONS, SYMBOL, SpectralRadiusCertificate, CERTIFICATE_KIND, implies, explain } from "./radius-certificate";
@@ -33,10 +33,13 @@ export const CHARPOLY_FALLBACK_LIMIT = 150;
 /**
  * Inertia (positive, negative, zero) of bI − A: eigenvalues of A below, above and at b. For graphs with
  * cycles the dense front of the elimination is certified in floating point where the error bound allows
- * (float-front.ts; `front` says how many vertices), exactly otherwise.
+ * (float-front.ts; `front` says how many vertices), exactly otherwise. For a forest, `zeroProof` says how a
+ * zero at the top of a large subtree is proved (tree-zero-modular.ts; the counts do not depend on it).
  */
-export function inertia(g: Graph, b: Rational, budget: Budget = new Budget()): EliminationResult & { front?: number } {
-  return isForest(g) ? treeInertia(g, b, "none", budget) : sparseInertia(g, b, "none", budget, undefined, { degree: FLOAT_FRONT_DEGREE });
+export function inertia(g: Graph, b: Rational, budget: Budget = new Budget(), options: { zeroProof?: ZeroProof } = {}): EliminationResult & { front?: number } {
+  return isForest(g)
+    ? treeInertia(g, b, "none", budget, false, true, options.zeroProof)
+    : sparseInertia(g, b, "none", budget, undefined, { degree: FLOAT_FRONT_DEGREE });
 }
 
 /** Exact verdict on ρ(G) op b. `bound` is a Bound or its text (see bound.ts for the syntax). */

@@ -20,6 +20,9 @@ import { Budget } from "../verdict";
 import type { Rational } from "../arithmetic/rational";
 import { Field, LAZY_RATIONALS, nextUp, nextDown } from "../arithmetic/number-field";
 import type { InertiaCounts } from "./inertia-counts";
+import { modularZeroProver, type ModularZeroStats, type ZeroProof } from "./tree-zero-modular";
+
+export type { ZeroProof } from "./tree-zero-modular";
 
 export type StopRule = "none" | "nonPositive" | "negative";
 
@@ -33,6 +36,8 @@ export interface EliminationResult<T = Rational> extends InertiaCounts {
   stoppedAt?: number;
   /** Sign of the value that stopped the run (-1 or 0), also when no witness was asked for. */
   stopSign?: -1 | 0;
+  /** What the modular zero proofs did, when any was tried (tree-zero-modular.ts). */
+  modular?: ModularZeroStats;
 }
 
 /** True when the graph, ignoring loops, has no cycle (multiple edges count as one weighted edge). */
@@ -96,15 +101,29 @@ export function bfsForest(g: Graph, budget?: Budget): { order: Int32Array; paren
  * `exactOnly` skips the intervals (for cross-checks). `witness = false` is the sign probe: an early stop
  * returns the counts so far and the sign of the stopping value only, with no vector and no exact value
  * (a probe whose outcome decides nothing, or whose certificate is the count, needs neither).
+ *
+ * `zeroProof` (rational b; no witness vector asked for): where an interval straddles 0 above a large
+ * subtree, "a(v) = 0" may be proved modulo primes instead of in exact rationals over the subtree
+ * (tree-zero-modular.ts): "modular" tries it wherever it applies, "exact" never; "auto" is "exact" (the exact
+ * rationals were cheaper on every workload measured: see ZeroProof). The counts are the same either way.
  */
-export function treeInertia(g: Graph, b: Rational, stop: StopRule, budget: Budget, exactOnly = false, witness = true): EliminationResult {
+export function treeInertia(g: Graph, b: Rational, ...args: EliminationOptions): EliminationResult {
   // Unreduced fractions inside; the witness and its value leave reduced.
-  return treeInertiaOver(g, LAZY_RATIONALS, b, stop, budget, exactOnly, witness);
+  return treeInertiaOver(g, LAZY_RATIONALS, b, ...args);
 }
 
+/** Stop rule, budget, then optionally exactOnly (default false), witness (default true) and zeroProof (default "auto"). */
+export type EliminationOptions = [stop: StopRule, budget: Budget, exactOnly?: boolean, witness?: boolean, zeroProof?: ZeroProof];
+
 /** The same elimination over any exact ordered field containing b (Q, or Q(b) for algebraic b). */
-export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, budget: Budget, exactOnly = false, witness = true): EliminationResult<T> {
-  const { start, nbr, wt, diag } = adjacency(g);
+export function treeInertiaOver<T>(
+  g: Graph,
+  F: Field<T>,
+  b: T,
+  ...[stop, budget, exactOnly = false, witness = true, zeroProof = "auto"]: EliminationOptions
+): EliminationResult<T> {
+  const adj = adjacency(g);
+  const { start, nbr, wt, diag } = adj;
   const { order, parent } = bfsForest(g, budget);
   const n = g.n;
   const lo = new Float64Array(n),
@@ -251,7 +270,46 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
       if (computeExact(list[i], false) >= 0) throw new Error("internal error: zero child below an interval-decided vertex");
     }
   };
+  // Modular zero proofs need b's residues, and no exact value below a proved zero (so no witness vector).
+  const modular =
+    zeroProof === "modular" && !exactOnly && F.residuePair !== undefined && F.denominatorUpper !== undefined && (stop === "none" || !witness)
+      ? modularZeroProver(
+          n,
+          {
+            ...adj,
+            lo,
+            hi,
+            isChild,
+            hasExact,
+            smallPair: (v, out) => {
+              if (exact[v] === undefined && bPair && sDen[v] !== 0) {
+                out[0] = sNum[v];
+                out[1] = sDen[v];
+                return true;
+              }
+              const pr = F.smallPair?.(exact[v]!);
+              if (!pr) return false;
+              out[0] = pr[0];
+              out[1] = pr[1];
+              return true;
+            },
+            largeResidues: (v, p, pBig) => F.residuePair!(exact[v]!, p, pBig),
+            bResidues: (p, pBig) => F.residuePair!(b, p, pBig),
+            qUp: F.denominatorUpper(b),
+          },
+          budget,
+        )
+      : undefined;
+  /** The first child of v (in adjacency order) whose exact value is 0, or -1 (a zero child decides v: its siblings need no exact values). */
+  const exactZeroChild = (v: number): number => {
+    for (let k = start[v]; k < start[v + 1]; k++) {
+      const c = nbr[k];
+      if (isChild(v, c) && hasExact(c) && exactSign(c) === 0) return c;
+    }
+    return -1;
+  };
   const norm = (a: T) => (F.normalize ? F.normalize(a) : a);
+  const done = <R extends EliminationResult<T>>(r: R): R => (modular && modular.stats.tried > 0 ? { ...r, modular: modular.stats } : r);
   let positive = 0,
     negative = 0,
     zero = 0;
@@ -260,7 +318,8 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     budget.tick(1 + start[v + 1] - start[v]);
     let needExact = bEnclosure === undefined;
     let aLo = 0,
-      aHi = 0;
+      aHi = 0,
+      straddles = false; // the interval of a(v) was computed in full and contains 0
     if (!needExact) {
       aLo = diag[v] === 0 ? bEnclosure![0] : nextDown(bEnclosure![0] - diag[v]);
       aHi = diag[v] === 0 ? bEnclosure![1] : nextUp(bEnclosure![1] - diag[v]);
@@ -280,12 +339,20 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
         aLo = nextDown(aLo - nextUp(w2 / lo[c]));
         aHi = nextUp(aHi - nextDown(w2 / hi[c]));
       }
-      if (!(aLo > 0 || aHi < 0)) needExact = true; // may be zero, or NaN
+      if (!needExact && !(aLo > 0 || aHi < 0)) {
+        needExact = true; // may be zero, or NaN
+        straddles = aLo <= 0 && aHi >= 0;
+      }
     }
     let s: number;
     if (needExact) {
-      for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) ensureExact(nbr[k]);
-      const zeroChild = computeExact(v, true);
+      let zeroChild = exactZeroChild(v);
+      if (zeroChild < 0 && straddles && modular?.proveZero(v, aLo, aHi)) {
+        setExact(v, F.fromInt(0)); // its subtree keeps intervals only: v's parent cuts S(v) off
+      } else if (zeroChild < 0) {
+        for (let k = start[v]; k < start[v + 1]; k++) if (isChild(v, nbr[k])) ensureExact(nbr[k]);
+        zeroChild = computeExact(v, true);
+      }
       if (zeroChild >= 0) {
         // Paper's rule: a(c) := 2, a(v) := -1/2, remove the edge from v to its parent.
         setExact(zeroChild, F.fromInt(2));
@@ -294,7 +361,7 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
         setExact(v, F.div(F.fromInt(-1), F.fromInt(2)));
         negative++;
         if (parent[v] >= 0) cut[v] = 1;
-        if (stop !== "none") return witness ? zeroChildWitness(v, zeroChild) : { positive, negative, zero, complete: false, stoppedAt: v, stopSign: -1 };
+        if (stop !== "none") return witness ? zeroChildWitness(v, zeroChild) : done({ positive, negative, zero, complete: false, stoppedAt: v, stopSign: -1 });
         continue;
       }
       s = exactSign(v);
@@ -307,13 +374,13 @@ export function treeInertiaOver<T>(g: Graph, F: Field<T>, b: T, stop: StopRule, 
     else if (s < 0) negative++;
     else zero++;
     if ((stop === "nonPositive" && s <= 0) || (stop === "negative" && s < 0)) {
-      if (!witness) return { positive, negative, zero, complete: false, stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
+      if (!witness) return done({ positive, negative, zero, complete: false, stoppedAt: v, stopSign: s < 0 ? -1 : 0 });
       ensureExact(v);
       const x = subtreeVector(g, F, v, parent, getExact, budget);
       return { positive, negative, zero, complete: false, witness: x, witnessValue: norm(getExact(v)), stoppedAt: v, stopSign: s < 0 ? -1 : 0 };
     }
   }
-  return { positive, negative, zero, complete: true };
+  return done({ positive, negative, zero, complete: true });
 
   function zeroChildWitness(v: number, c: number): EliminationResult<T> {
     const w = F.fromInt(edgeWeight(g, v, c));
