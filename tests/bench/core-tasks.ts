@@ -235,6 +235,27 @@ function bipartiteZeroTasks(): BenchTask[] {
   ];
 }
 
+function irrationalZeroTasks(): BenchTask[] {
+  // ρ = b at an irrational b on a graph with cycles: K_{17,18} (ρ = √306) beside a cubic graph (ρ = 3). The zero of
+  // √306·I − A is proven by a kernel vector over Q(√306) recognised from floating point (algebraic-kernel.ts); before,
+  // the whole elimination ran over Q(b) (n = 235: 37.6 s; n = 1035: more than 200 s).
+  return [200, 1_000].map((n) =>
+    graphTask(
+      `K_{17,18} ⊔ cubic n=${n}`,
+      `k1718-cubic-${n}-rho-sqrt306`,
+      () => {
+        const k = cubicWorkload(n);
+        const edges: Array<[number, number]> = k.edges.map(([u, v]) => [u, v]);
+        for (let i = 0; i < 17; i++) for (let j = 0; j < 18; j++) edges.push([n + i, n + 17 + j]);
+        return { name: `k1718-cubic-${n}`, n: n + 35, edges };
+      },
+      "ρ = √306 (irrational b, zero proven over Q(b))",
+      false,
+      verdict("=", "sqrt(306)"),
+    ),
+  );
+}
+
 function cubicNearTasks(): BenchTask[] {
   // ρ = 3 exactly (connected 3-regular) against bounds just below it: a rational 3 − 10^-9, whose long
   // numerator and denominator make exact elimination steps grow fast (the certified floating-point steps
@@ -494,6 +515,7 @@ export const coreSection: BenchSection = {
     ...spectralRadiusTasks(),
     ...sparseTasks(),
     ...bipartiteZeroTasks(),
+    ...irrationalZeroTasks(),
     ...cubicTasks(),
     ...cubicNearTasks(),
     ...subgraphTasks(),

@@ -267,6 +267,32 @@ export function frontRowsKernel(rows: readonly (readonly bigint[])[]): KernelChe
  * caller eliminates exactly, as before: only true zeros are settled here.
  */
 export function deflate(factor: FrontFactor, check: KernelCheck, tick: (steps: number) => void): FrontInertia | undefined {
+  // Round to small rationals, scale to integers, and check exactly.
+  return deflateWith(
+    factor,
+    (Y, pivotCol) =>
+      Y.every((row, r) => {
+        const y = roundedIntegerVector(row, (j) => {
+          const k = pivotCol.indexOf(j);
+          return k < 0 ? undefined : k === r ? 1 : 0;
+        });
+        return y !== undefined && check(y, tick);
+      }),
+    tick,
+  );
+}
+
+/**
+ * The same partial fallback with the kernel check left to the caller: `accept` receives the approximate kernel
+ * basis in reduced echelon form (rows on the front's indices, exactly 1 and 0 at the pivot columns `pivotCol`)
+ * and must return true only when it has proven that many independent exact kernel vectors (deflate: small
+ * rationals; interval-elimination.ts with an irrational b: vectors over Q(b), algebraic-kernel.ts).
+ */
+export function deflateWith(
+  factor: FrontFactor,
+  accept: (Y: readonly Float64Array[], pivotCol: readonly number[]) => boolean,
+  tick: (steps: number) => void,
+): FrontInertia | undefined {
   const { f, X, perm, centre, radius } = factor;
   // Components of the union of intervals, with the radii widened so that rounding in c ± r cannot
   // separate two intervals that meet.
@@ -322,15 +348,9 @@ export function deflate(factor: FrontFactor, check: KernelCheck, tick: (steps: n
     }
     pivotCol.push(bj);
   }
-  // Round to small rationals, scale to integers, and check exactly.
-  for (let r = 0; r < m; r++) {
-    const y = roundedIntegerVector(Y[r], (j) => {
-      const k = pivotCol.indexOf(j);
-      return k < 0 ? undefined : k === r ? 1 : 0;
-    });
-    if (!y || !check(y, tick)) return undefined;
-  }
-  return { positive, negative, zero: m };
+  // Exact identity at the pivot columns (the echelon form's, up to rounding).
+  Y.forEach((row, r) => pivotCol.forEach((j, k) => (row[j] = k === r ? 1 : 0)));
+  return accept(Y, pivotCol) ? { positive, negative, zero: m } : undefined;
 }
 
 /**

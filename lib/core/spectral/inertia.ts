@@ -9,7 +9,9 @@
  * stops. Irrational b: first rational enclosures lo < b < hi (PD at lo gives ρ < b; a Rayleigh vector
  * at hi gives ρ >= hi > b); if ρ lies inside the enclosure, forests are decided by the same elimination
  * over the field Q(b) (number-field.ts), other graphs by the characteristic polynomial and Sturm
- * sequences (gcd with the bound's polynomial settles ρ = b), up to CHARPOLY_FALLBACK_LIMIT vertices.
+ * sequences (gcd with the bound's polynomial settles ρ = b), up to CHARPOLY_FALLBACK_LIMIT vertices; above
+ * that, the certified floating-point elimination at b with its zeros proven over Q(b) (algebraic-kernel.ts),
+ * and the elimination over Q(b) where that does not decide.
  *
  * This module holds the verdicts; the certificate kinds and their wording are in radius-certificate.ts,
  * the computations at one point in radius-probes.ts, the independent re-check in radius-recheck.ts.

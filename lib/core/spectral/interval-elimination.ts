@@ -55,11 +55,14 @@
  * in practice true zeros — are left to the kernel vectors and the exact engine.
  *
  * An irrational b enters as a double enclosure (m_b, r_b) of b (from a rational enclosure at 64 bits): every
- * bound above holds for each b in it, so the certified counts are those of bI − A for the exact b.
+ * bound above holds for each b in it, so the certified counts are those of bI − A for the exact b. Discs of
+ * the front through 0 are then settled, when the caller gives a `kernel` check, by kernel vectors over Q(b):
+ * the front's approximate kernel basis is lifted through the L columns as for a rational b and handed to it
+ * (algebraic-kernel.ts recognises the vectors in Q(b) and checks them exactly).
  */
 import { adjacency, Graph } from "../graph";
 import { Rational } from "../arithmetic/rational";
-import { deflate, discsOnly, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
+import { deflate, deflateWith, discsOnly, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
 import { refineFront } from "./front-refine";
 import { DW_EPS, QUOTIENT_ABS, QUOTIENT_REL, dwAdd, dwMul, dwRecip, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { DegreeQueue } from "./degree-queue";
@@ -102,7 +105,14 @@ export interface IntervalHint {
  * b − loop for each loop count, as a midpoint–radius pair: from a rational b, or from a double enclosure
  * lo ≤ b ≤ hi (with, for the double-word run, a double-word midpoint and half-width of a finer enclosure).
  */
-export type DiagonalBase = { rational: Rational } | { lo: number; hi: number; word?: { mid: DW; half: number } };
+export type DiagonalBase = { rational: Rational } | { lo: number; hi: number; word?: { mid: DW; half: number }; kernel?: LiftedKernelCheck };
+
+/**
+ * For an irrational b: the proof of a front's zeros, given its approximate kernel basis lifted to whole vectors
+ * (floating point, through the L columns; exactly 1 and 0 at the vertices `J`). True only when as many
+ * independent exact kernel vectors of bI − A have been checked (algebraic-kernel.ts, over Q(b)).
+ */
+export type LiftedKernelCheck = (rows: readonly Float64Array[], J: readonly number[], tick: (steps: number) => void) => boolean;
 
 /** Midpoint m + l (l = 0 in the double run; the low word in the double-word run) and radius r. */
 interface Cell {
@@ -240,7 +250,7 @@ export function certifiedRun(
   const signs: string[] = [];
   // Floating-point L columns (l_ip = a_ip / d_p), for lifting a kernel vector of the front (rational b only).
   const lcols: LColumn[] = [];
-  const keepL = "rational" in base;
+  const keepL = "rational" in base || base.kernel !== undefined;
   let positive = 0,
     negative = 0,
     zero = 0;
@@ -277,8 +287,20 @@ export function certifiedRun(
     const r =
       "inertia" in d
         ? d.inertia
-        : ((keepL && "rational" in base && !word ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick) : undefined) ??
-          refineFront(d.factor, S, word ? L : undefined, R, discsOnly(tick), tick));
+        : ((keepL && !word
+            ? "rational" in base
+              ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick)
+              : deflateWith(
+                  d.factor,
+                  (Y, pivotCol) =>
+                    base.kernel!(
+                      Y.map((y) => liftVector(g.n, list, y, lcols, tick)),
+                      pivotCol.map((j) => list[j]),
+                      tick,
+                    ),
+                  tick,
+                )
+            : undefined) ?? refineFront(d.factor, S, word ? L : undefined, R, discsOnly(tick), tick));
     if (!r) return { hint: "factor" in d ? { steps, front: { vertices: list, factor: d.factor } } : { steps } };
     return { result: { positive: positive + r.positive, negative: negative + r.negative, zero: zero + r.zero, steps, signs: signs.join(""), front: f } };
   };
@@ -519,6 +541,38 @@ function diagonalCells(base: DiagonalBase, word: boolean): ((loop: number) => Ce
  * first), every lifted entry is rounded to a small rational, the vector is scaled to integers and
  * (p − q·loop_v)·x_v − q·Σ_u w_uv·x_u = 0 is checked at every vertex in BigInt.
  */
+/** x (set on the front) lifted through the floating-point L columns, newest first: x_p = −Σ l_ip x_i (pairs alike). */
+function liftInPlace(x: Float64Array, lcols: readonly LColumn[], tick: (steps: number) => void): void {
+  let work = 0;
+  for (let k = lcols.length - 1; k >= 0; k--) {
+    const L = lcols[k];
+    if ("partner" in L) {
+      let s1 = 0,
+        s2 = 0;
+      for (const [i, l1, l2] of L.col) {
+        s1 += l1 * x[i];
+        s2 += l2 * x[i];
+      }
+      x[L.piv] = -s1;
+      x[L.partner] = -s2;
+    } else {
+      let s = 0;
+      for (const [i, l] of L.col) s += l * x[i];
+      x[L.piv] = -s;
+    }
+    work += L.col.length;
+  }
+  tick(work + x.length);
+}
+
+/** A front vector y (front indices) as a whole vector lifted through the L columns. */
+function liftVector(n: number, list: readonly number[], y: Float64Array, lcols: readonly LColumn[], tick: (steps: number) => void): Float64Array {
+  const x = new Float64Array(n);
+  list.forEach((v, j) => (x[v] = y[j]));
+  liftInPlace(x, lcols, tick);
+  return x;
+}
+
 function liftedKernel(g: Graph, b: Rational, list: readonly number[], lcols: readonly LColumn[]): KernelCheck {
   return (y, tick) => {
     const n = g.n;
@@ -530,26 +584,7 @@ function liftedKernel(g: Graph, b: Rational, list: readonly number[], lcols: rea
       if (!Number.isSafeInteger(value)) return false;
       x[list[j]] = value;
     }
-    let work = 0;
-    for (let k = lcols.length - 1; k >= 0; k--) {
-      const L = lcols[k];
-      if ("partner" in L) {
-        let s1 = 0,
-          s2 = 0;
-        for (const [i, l1, l2] of L.col) {
-          s1 += l1 * x[i];
-          s2 += l2 * x[i];
-        }
-        x[L.piv] = -s1;
-        x[L.partner] = -s2;
-      } else {
-        let s = 0;
-        for (const [i, l] of L.col) s += l * x[i];
-        x[L.piv] = -s;
-      }
-      work += L.col.length;
-    }
-    tick(work + n);
+    liftInPlace(x, lcols, tick);
     const xi = roundedIntegerVector(x, (v) => (onFront[v] ? x[v] : undefined));
     if (!xi || xi.length === 0) return false;
     const X = new Map(xi);

@@ -13,6 +13,7 @@ import { AlgebraicField, rationalEnclosure } from "../arithmetic/number-field";
 import { intervalElimination } from "./interval-elimination";
 import { QUOTIENT_ABS, QUOTIENT_REL, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { fieldSparseDefiniteness } from "./field-sparse-inertia";
+import { algebraicIntervalInertia } from "./algebraic-kernel";
 import { sparseInertia, FLOAT_FRONT_DEGREE, type SparseEliminationResult } from "./sparse-inertia";
 import { characteristicPolynomial } from "./charpoly";
 import { perronVectorsByComponent } from "./perron";
@@ -180,7 +181,15 @@ export function algebraicElimination(
     // Positive definite: every pivot of the exact elimination is positive, in any order, so it runs to the end
     // with n positive pivots; that outcome is stated without computing it in Q(b).
     out = { complete: true, positive: g.n, zero: 0 };
-  } else out = fieldSparseDefiniteness(g, F, F.generator, st, budget);
+  } else {
+    // The full inertia at b's double enclosure, zeros proven by kernel vectors over Q(b) (algebraic-kernel.ts). With no
+    // negative eigenvalue it states what the exact elimination under "negative" gives, in any order: every pivot
+    // positive or an exact zero with an empty row (a PSD matrix), so n − k positive and k zero; the certificate is
+    // that outcome, and the re-check takes the same route.
+    const r = algebraicIntervalInertia(g, b, budget);
+    if (r && r.negative === 0) return { rel: r.zero > 0 ? "=" : "<", cert: { kind, stop: "negative", complete: true, positive: r.positive, zero: r.zero } };
+    out = fieldSparseDefiniteness(g, F, F.generator, st, budget);
+  }
   if (out.complete) return { rel: out.zero > 0 ? "=" : "<", cert: { kind, stop: st, complete: true, positive: out.positive, zero: out.zero } };
   return { rel: out.sign! < 0 ? ">" : ">=", cert: { kind, stop: st, complete: false, positive: 0, zero: 0, stoppedAt: out.stoppedAt, sign: out.sign } };
 }
