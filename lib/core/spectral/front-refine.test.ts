@@ -107,6 +107,17 @@ describe("double-word step of the certified front", () => {
     }
   });
 
+  it("small exact quotients stay exact: −1/1, 1/1, −3/2 (no shift, so −1 is a value, not the floor of a tiny one)", () => {
+    expect(quotientByDoubleWord(1n)(-1n)).toEqual({ hi: -1, lo: 0 });
+    expect(quotientByDoubleWord(1n)(1n)).toEqual({ hi: 1, lo: 0 });
+    expect(quotientByDoubleWord(2n)(-3n)).toEqual({ hi: -1.5, lo: 0 });
+    // At b = −1 the double-word run counts −I − A, not −A: C_7 has eigenvalues 2cos(2πk/7) (Brouwer & Haemers §1.4.3):
+    // 2, 1.247 (twice), −0.445 (twice), −1.802 (twice), so two lie below −1 and five above (below 0 there are four).
+    const word = certifiedRun(cycle(7), { rational: rat(-1) }, "double-word", 4, () => {});
+    expect(counts(word.result)).toEqual([2, 5, 0]);
+    expect(exactCounts(cycle(7), rat(-1))).toEqual([2, 5, 0]);
+  });
+
   it.each(cases)(
     "%s ± 2^-e (e = 40 … 70): the double-word run decides what the double run cannot, as the exact elimination counts",
     (name, g, lambda, degree) => {
