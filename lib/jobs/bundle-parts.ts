@@ -10,6 +10,7 @@
  * undecided and says which part failed, how often and why.
  */
 import type { Job } from "bullmq";
+import { Op } from "sequelize";
 import { models } from "../../models";
 import { claimsToSplit, type PartsOfClaim } from "../core/certificates/parts-plan";
 import type { BundleCheckReport } from "../core/certificates/bundle";
@@ -109,4 +110,12 @@ async function mergeIfComplete(recheckId: number): Promise<boolean> {
   }
   const [stored] = await BundleRecheck.update({ report: JSON.stringify(report) }, { where: { id: recheckId, report: null } });
   return stored === 1;
+}
+
+/**
+ * Re-checks nobody waits for any more (the web process that asked gave up or stopped: its longest wait is the
+ * ten-minute limit of a re-check plus a minute in the queue) are removed with their parts after half an hour.
+ */
+export async function sweepBundleRechecks(olderThanMs = 30 * 60_000): Promise<number> {
+  return models().BundleRecheck.destroy({ where: { createdAt: { [Op.lt]: new Date(Date.now() - olderThanMs) } } });
 }

@@ -16,7 +16,7 @@ import { Worker, type Job } from "bullmq";
 import { getSequelize } from "../db";
 import { models } from "../../models";
 import type { Claim as ClaimJson } from "../core/claims/claim-schema";
-import { runBundlePart, runBundleRecheck, settleFailedBundlePart } from "./bundle-parts";
+import { runBundlePart, runBundleRecheck, settleFailedBundlePart, sweepBundleRechecks } from "./bundle-parts";
 import { decide, num, settleFailed, stillWanted, verifyInPool, workerName } from "./claim-decide";
 import { partsFor, queueMissingParts, runClaimPart, sweepClaimParts } from "./claim-parts";
 import { runBatchChunk, settleFailedChunk } from "./batch";
@@ -234,6 +234,8 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
       try {
         const { queued, settled } = await sweep();
         if (queued || settled) log(`[cairn worker] sweep: queued ${queued} pending claims, settled ${settled} failed ones`);
+        const gone = await sweepBundleRechecks();
+        if (gone) log(`[cairn worker] sweep: removed ${gone} bundle re-checks nobody waits for any more`);
         const chunks = await sweepBatches();
         if (chunks.queued || chunks.settled) log(`[cairn worker] sweep: queued ${chunks.queued} batch chunks, settled ${chunks.settled} failed ones`);
       } catch (e) {

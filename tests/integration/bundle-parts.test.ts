@@ -11,6 +11,7 @@ import { workersPerTest } from "./helpers";
 import { A000055, A001349 } from "./claim-jobs-fixture";
 import { models } from "@/models";
 import { runBundleJob } from "@/lib/jobs/queue";
+import { sweepBundleRechecks } from "@/lib/jobs/bundle-parts";
 import { checkBundle, sealBundle } from "@/lib/core/certificates/bundle";
 import { claimsToSplit } from "@/lib/core/certificates/parts-plan";
 import { validateClaim } from "@/lib/core";
@@ -101,4 +102,24 @@ describe("a bundle re-checked in parts", () => {
     expect(report.lines[1].text).toContain(`part 2 of 4 failed 3 times (${fault(2, 3)}), ${again}`);
     expect(report.lines[0].text).toContain('the bundle records "refuted" but the re-check gives "undecided"');
   }, 300_000);
+
+  it("the sweep removes re-checks nobody waits for any more, with their parts, and keeps recent ones", async () => {
+    const { BundleRecheck, BundleRecheckPart } = models();
+    const old = await BundleRecheck.create({ jobId: "sweep-old", bundle: "{}", claims: 1, parts: 1, createdAt: new Date(Date.now() - 3_600_000) });
+    const recent = await BundleRecheck.create({ jobId: "sweep-recent", bundle: "{}", claims: 1, parts: 1 });
+    await BundleRecheckPart.create({
+      recheckId: old.id,
+      item: "claim 1(a)#1",
+      part: 0,
+      parts: 1,
+      digest: "0".repeat(64),
+      result: "{}",
+      undecided: null,
+      worker: "w",
+    });
+    expect(await sweepBundleRechecks()).toBe(1);
+    expect((await BundleRecheck.findAll()).map((r) => r.jobId)).toEqual(["sweep-recent"]);
+    expect(await BundleRecheckPart.count({ where: { recheckId: old.id } })).toBe(0);
+    await recent.destroy();
+  });
 });
