@@ -5,6 +5,7 @@
 import type { BenchSection, BenchTask } from "./run";
 import { cubicWorkload, extendedDWorkload, extendedE8Workload, gluedWorkload, halfDenseGraphWorkload, pathWorkload } from "./workloads";
 import { randomTreeWorkload, sparseGraphWorkload, star4Workload, t12kWorkload, workloadGraph, type Workload } from "./workloads";
+import { bipartiteWorkload, hexagonalWorkload, prismWorkload } from "./workloads";
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -217,6 +218,21 @@ function cubicTasks(): BenchTask[] {
       inertiaAt2,
     ),
   ]);
+}
+
+function bipartiteZeroTasks(): BenchTask[] {
+  // b = 0 on bipartite graphs with cycles: every diagonal entry of −A is 0, so the floating-point run pivots on
+  // 2×2 blocks [[0, a], [a, 0]] (interval-elimination.ts); before those, every vertex was set aside and the
+  // whole graph went to the exact engine (prism C_1000 □ K_2: 28 s).
+  const inertiaAt0 = inertiaAt(0);
+  return [
+    graphTask("prism C_1000 □ K_2", "prism-1000-inertia-b0", () => prismWorkload(1000), "full inertia of −A (bipartite)", false, inertiaAt0),
+    graphTask("prism C_5000 □ K_2", "prism-5000-inertia-b0", () => prismWorkload(5000), "full inertia of −A (bipartite)", false, inertiaAt0),
+    graphTask("hexagonal grid 40×50", "hex-40x50-inertia-b0", () => hexagonalWorkload(40, 50), "full inertia of −A (bipartite)", true, inertiaAt0),
+    ...[2_000, 3_000, 5_000].map((n) =>
+      graphTask(`bipartite deg 3, n=${n}`, `bip3-${n}-inertia-b0`, () => bipartiteWorkload(n), "full inertia of −A (bipartite)", false, inertiaAt0),
+    ),
+  ];
 }
 
 function cubicNearTasks(): BenchTask[] {
@@ -477,6 +493,7 @@ export const coreSection: BenchSection = {
   tasks: [
     ...spectralRadiusTasks(),
     ...sparseTasks(),
+    ...bipartiteZeroTasks(),
     ...cubicTasks(),
     ...cubicNearTasks(),
     ...subgraphTasks(),

@@ -111,6 +111,50 @@ export function gluedWorkload(host: Workload, gadget: Graph, at: number, pairs: 
   return { name: `${host.name}-glued-${pairs}`, n: next, edges };
 }
 
+/** The prism C_k □ K_2 (n = 2k): two k-cycles 0..k−1 and k..2k−1 joined by the matching i ~ k + i. Bipartite for even k. */
+export function prismWorkload(k: number): Workload {
+  const edges: Array<[number, number]> = [];
+  for (let i = 0; i < k; i++) {
+    const j = (i + 1) % k;
+    edges.push([Math.min(i, j), Math.max(i, j)], [k + Math.min(i, j), k + Math.max(i, j)], [i, k + i]);
+  }
+  return { name: `prism-${k}`, n: 2 * k, edges };
+}
+
+/**
+ * A hexagonal (honeycomb) grid as a brick wall: vertices (i, j) = i·cols + j, a path along each row, and the
+ * rung (i, j) ~ (i + 1, j) where i + j is even. Every face is a hexagon; bipartite by the parity of i + j.
+ */
+export function hexagonalWorkload(rows: number, cols: number): Workload {
+  const edges: Array<[number, number]> = [];
+  for (let i = 0; i < rows; i++)
+    for (let j = 0; j < cols; j++) {
+      const v = i * cols + j;
+      if (j + 1 < cols) edges.push([v, v + 1]);
+      if (i + 1 < rows && (i + j) % 2 === 0) edges.push([v, v + cols]);
+    }
+  return { name: `hex-${rows}x${cols}`, n: rows * cols, edges };
+}
+
+/**
+ * A random bipartite graph with sides 0..n/2−1 and n/2..n−1 and m = 3n/2 distinct edges (average degree 3);
+ * seed = 4000000 + n. Repeat: u = randint(n/2), then v = randint(n/2); skip a pair already drawn; else (u, n/2 + v).
+ */
+export function bipartiteWorkload(n: number): Workload {
+  const h = n / 2;
+  const rng = new Lcg(4_000_000 + n);
+  const seen = new Set<number>();
+  const edges: Array<[number, number]> = [];
+  while (edges.length < (3 * n) / 2) {
+    const u = rng.randint(h);
+    const v = rng.randint(h);
+    if (seen.has(u * h + v)) continue;
+    seen.add(u * h + v);
+    edges.push([u, h + v]);
+  }
+  return { name: `bip3-${n}`, n, edges };
+}
+
 /** G(n, 1/2) in lexicographic pair order; seed = 2000000 + n. */
 export function halfDenseGraphWorkload(n: number): Workload {
   const rng = new Lcg(2_000_000 + n);

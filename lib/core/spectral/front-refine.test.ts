@@ -17,6 +17,7 @@ import { Budget } from "../verdict";
 import { enclose, parseBound, type Bound } from "../arithmetic/bound";
 import { rationalEnclosure } from "../arithmetic/number-field";
 import { floatDefinite } from "./radius-probes";
+import { checkDocument } from "../cli";
 import { adjacency, type Graph } from "../graph";
 import { cubicWorkload, workloadGraph } from "../../../tests/bench/workloads";
 
@@ -106,6 +107,17 @@ describe("double-word step of the certified front", () => {
     }
   });
 
+  it("small exact quotients stay exact: −1/1, 1/1, −3/2 (no shift, so −1 is a value, not the floor of a tiny one)", () => {
+    expect(quotientByDoubleWord(1n)(-1n)).toEqual({ hi: -1, lo: 0 });
+    expect(quotientByDoubleWord(1n)(1n)).toEqual({ hi: 1, lo: 0 });
+    expect(quotientByDoubleWord(2n)(-3n)).toEqual({ hi: -1.5, lo: 0 });
+    // At b = −1 the double-word run counts −I − A, not −A: C_7 has eigenvalues 2cos(2πk/7) (Brouwer & Haemers §1.4.3):
+    // 2, 1.247 (twice), −0.445 (twice), −1.802 (twice), so two lie below −1 and five above (below 0 there are four).
+    const word = certifiedRun(cycle(7), { rational: rat(-1) }, "double-word", 4, () => {});
+    expect(counts(word.result)).toEqual([2, 5, 0]);
+    expect(exactCounts(cycle(7), rat(-1))).toEqual([2, 5, 0]);
+  });
+
   it.each(cases)(
     "%s ± 2^-e (e = 40 … 70): the double-word run decides what the double run cannot, as the exact elimination counts",
     (name, g, lambda, degree) => {
@@ -181,5 +193,27 @@ describe("double-word step of the certified front", () => {
     expect(recheckSpectralRadiusBound(g, "<", `${lower.num}/${lower.den}`, "verified", cert, big()).status).toBe("refuted");
     // And the verdict there is a refutation (ρ = √306 > b − 2^-59).
     expect(spectralRadiusBound(g, "<", `${lower.num}/${lower.den}`, big()).status).toBe("refuted");
+    // The offline checker (cli.ts) re-checks the carried certificate the same way: accepted as made, refused when tampered.
+    const claim = (evidence: unknown) => ({
+      format: "cairn-claims/1",
+      claims: [
+        {
+          format: "cairn-claim/1",
+          id: "K17-18",
+          kind: "spectral-radius-bound",
+          graph: { format: "named", text: "complete_bipartite(17,18)" },
+          op: "<",
+          bound: text,
+          certificate: { kind: "spectral-radius-bound", outcome: "verified", evidence },
+        },
+      ],
+    });
+    const good = checkDocument(claim(cert), "memory");
+    expect(good.lines[0].status).toBe("verified");
+    expect(good.lines[0].certificate?.matches).toBe(true);
+    expect(good.exitCode).toBe(0);
+    const bad = checkDocument(claim(flipped), "memory");
+    expect(bad.lines[0].certificate?.matches).toBe(false);
+    expect(bad.exitCode).not.toBe(0);
   });
 });

@@ -19,7 +19,16 @@
  * widening); the denominator |m_d| − r_d is rounded down the same way.
  *
  * Sylvester's law of inertia makes the certified pivot signs, with the front's certified counts, the
- * inertia of bI − A: any order of non-zero 1×1 pivots is a congruence to a diagonal matrix.
+ * inertia of bI − A: any order of non-zero 1×1 pivots and invertible 2×2 blocks is a congruence to a block
+ * diagonal matrix.
+ *
+ * 2×2 pivots. When a vertex's pivot cannot be used, a block [[d_p, a], [a, d_r]] with a neighbour r whose
+ * determinant interval lies below 0 is eliminated instead (inertia (1, 1), as the zero-pivot rule of the
+ * exact engine, Bunch & Parlett 1971); its update and L columns are computed in midpoint–radius arithmetic
+ * whose rounding terms are the exact rounding errors (error-free transformations), so exact operations stay
+ * exact. At b = 0 on a bipartite graph every diagonal entry is exactly 0 and entries between vertices of one
+ * side stay exactly 0, so the whole elimination runs on such blocks; a vertex left with an exact 0 and an
+ * empty row is a zero eigenvalue ("0" in the signs, as in the exact engine).
  *
  * Pivots near 0. A pivot whose interval contains 0 (a true zero, as at b = 2 under a pendant K_{1,4}, or
  * an eigenvalue of a piece within the error) is not used: the vertex is set aside and the elimination goes
@@ -31,7 +40,8 @@
  * With k such vectors (independent: an identity block on the front) nullity(bI − A) ≥ k; the discs away
  * from 0 hold the other eigenvalues of the front, none 0, so the k eigenvalues in the component through 0
  * are all 0 (Gershgorin, Horn & Johnson Thm 6.1.1; the nullity of bI − A is that of the front, a Schur
- * complement after non-zero pivots). Otherwise the caller (sparse-inertia.ts) goes on exactly, with the
+ * complement after non-zero pivots). Otherwise the touching rows are recomputed in double-word arithmetic
+ * (front-refine.ts; in both runs below), and if that fails too the caller (sparse-inertia.ts) goes on exactly, with the
  * order found here and the front's factorisation (`hint`): it repeats the same steps in exact arithmetic and
  * settles the same discs with the front's exact rows, without factorising again; only if that fails too does
  * it eliminate the front exactly. Only a proof is returned, never a guess.
@@ -54,6 +64,7 @@ import { deflate, discsOnly, frontDiscs, roundedIntegerVector, quotientByDouble,
 import { refineFront } from "./front-refine";
 import { DW_EPS, QUOTIENT_ABS, QUOTIENT_REL, dwAdd, dwMul, dwRecip, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { DegreeQueue } from "./degree-queue";
+import type { PivotStep } from "./sparse-inertia";
 
 const U = 2 ** -53;
 /** Widening factor and absolute term that make a radius computed in round-to-nearest an upper bound. */
@@ -74,7 +85,7 @@ export interface IntervalEliminationResult {
   positive: number;
   negative: number;
   zero: number;
-  steps: number[];
+  steps: PivotStep[];
   signs: string;
   front?: number;
 }
@@ -84,7 +95,7 @@ export interface IntervalEliminationResult {
  * reached a front whose discs touch 0, that front's vertices (ascending) and factorisation.
  */
 export interface IntervalHint {
-  steps: number[];
+  steps: PivotStep[];
   front?: { vertices: number[]; factor: FrontFactor };
 }
 
@@ -99,6 +110,72 @@ interface Cell {
   m: number;
   l: number;
   r: number;
+}
+
+/** A floating-point L column: x_piv = −Σ l_i x_i (1×1 pivot), or x_piv = −Σ l_i x_i and x_partner = −Σ l2_i x_i (2×2 pivot). */
+type LColumn = { piv: number; col: Array<[number, number]> } | { piv: number; partner: number; col: Array<[number, number, number]> };
+
+const ZERO_CELL: Cell = { m: 0, l: 0, r: 0 };
+const isExactZero = (c: Cell) => c.m === 0 && c.l === 0 && c.r === 0;
+/** A double-word cell as a double one: the low word joins the radius (|l| + r, widened); l = 0 is left as it is. */
+const flat = (c: Cell): Cell => (c.l === 0 ? c : { m: c.m, l: 0, r: (c.r + Math.abs(c.l)) * UP });
+
+/**
+ * The rounding error of a floating-point sum or product, exactly (error-free transformations: D. E. Knuth's
+ * TwoSum, T. J. Dekker's TwoProduct with Veltkamp's splitting; Higham, "Accuracy and Stability of Numerical
+ * Algorithms", 2nd ed. 2002, §4.3 and Problem 3.5, from memory). Exact for finite operands below 2^900 in size
+ * whose product is not below 2^-900; smaller products get the absolute bound TINY instead (their error is below
+ * 2^-953). The exact error instead of u·|result| keeps exact operations exact (radius 0): at b = 0 on a graph
+ * the entries stay small integers, where a bound that grew at every step of a long chain would not.
+ */
+function sumError(a: number, b: number, s: number): number {
+  const bb = s - a;
+  return Math.abs(a - (s - bb) + (b - bb));
+}
+
+const SPLIT = 134217729; // 2^27 + 1
+function productError(a: number, b: number, p: number): number {
+  if (Math.abs(p) < 2 ** -900) return p === 0 && (a === 0 || b === 0) ? 0 : TINY;
+  let c = SPLIT * a;
+  const ah = c - (c - a),
+    al = a - ah;
+  c = SPLIT * b;
+  const bh = c - (c - b),
+    bl = b - bh;
+  return Math.abs(ah * bh - p + ah * bl + al * bh + al * bl);
+}
+
+/** Midpoint–radius product: |xy − x̃ỹ| ≤ |x̃|r_y + r_x|ỹ| + r_x r_y, plus the rounding of x̃ỹ (its exact error). */
+function cellMul(cx: Cell, cy: Cell): Cell {
+  if (isExactZero(cx) || isExactZero(cy)) return ZERO_CELL;
+  const x = flat(cx),
+    y = flat(cy);
+  const m = x.m * y.m;
+  return { m, l: 0, r: (Math.abs(x.m) * y.r + x.r * Math.abs(y.m) + x.r * y.r + productError(x.m, y.m, m)) * UP };
+}
+
+/** Midpoint–radius x + s·y (s = ±1): the radii add, plus the rounding of the sum (its exact error). */
+function cellAdd(cx: Cell, cy: Cell, s: 1 | -1 = 1): Cell {
+  const x = flat(cx),
+    y = flat(cy);
+  const m = x.m + s * y.m;
+  return { m, l: 0, r: (x.r + y.r + sumError(x.m, s * y.m, m)) * UP };
+}
+
+/**
+ * Midpoint–radius 1/y for |ỹ| > r_y: |1/y − 1/ỹ| ≤ r_y / (|ỹ|(|ỹ| − r_y)), the denominator rounded down, plus the
+ * rounding of q = fl(1/ỹ): |1/ỹ − q| = |1 − ỹq| / |ỹ|, and ỹq = p + e exactly with 1 − p exact (p is within 2u of
+ * 1). Undefined when y may be 0, or is too small or too large (underflow, overflow).
+ */
+function cellInverse(cy: Cell): Cell | undefined {
+  const y = flat(cy);
+  const a = Math.abs(y.m);
+  const low = (a - y.r) * (1 - 4 * U);
+  if (!(a >= MIN_PIVOT) || !(low > 0) || !(a <= MAX_ENTRY)) return undefined;
+  const m = 1 / y.m;
+  const p = y.m * m;
+  const residual = Math.abs(1 - p) + productError(y.m, m, p);
+  return { m, l: 0, r: (y.r / (a * low * (1 - 4 * U)) + (residual * (1 + 4 * U)) / (a * (1 - 4 * U))) * UP };
 }
 
 /** The arithmetic of a run: doubles first; double words (arithmetic/double-word.ts) when the double run declines. */
@@ -160,13 +237,14 @@ export function certifiedRun(
   const eligible = new Uint8Array(n).fill(1);
   let eligibleCount = n,
     remaining = n;
-  const steps: number[] = [];
+  const steps: PivotStep[] = [];
   const signs: string[] = [];
   // Floating-point L columns (l_ip = a_ip / d_p), for lifting a kernel vector of the front (rational b only).
-  const lcols: Array<{ piv: number; col: Array<[number, number]> }> = [];
+  const lcols: LColumn[] = [];
   const keepL = "rational" in base;
   let positive = 0,
-    negative = 0;
+    negative = 0,
+    zero = 0;
 
   // The same minimum-degree choice as the exact engine, so the orders agree while no exact
   // cancellation removes an entry there.
@@ -203,22 +281,122 @@ export function certifiedRun(
         : ((keepL && "rational" in base && !word ? deflate(d.factor, liftedKernel(g, base.rational, list, lcols), tick) : undefined) ??
           refineFront(d.factor, S, word ? L : undefined, R, discsOnly(tick), tick));
     if (!r) return { hint: "factor" in d ? { steps, front: { vertices: list, factor: d.factor } } : { steps } };
-    return { result: { positive: positive + r.positive, negative: negative + r.negative, zero: r.zero, steps, signs: signs.join(""), front: f } };
+    return { result: { positive: positive + r.positive, negative: negative + r.negative, zero: zero + r.zero, steps, signs: signs.join(""), front: f } };
   };
 
+  /** Takes v out of the remaining matrix (its row and column) and of the queue. */
+  const remove = (v: number) => {
+    for (const u of rows[v].keys()) rows[u].delete(v);
+    rows[v].clear();
+    alive[v] = 0;
+    if (eligible[v]) eligibleCount--;
+    eligible[v] = 0;
+    remaining--;
+  };
+  /** Writes the updated cells (i ≤ j as listed), dropping exact zeros. */
+  const store = (updates: ReadonlyArray<readonly [number, number, Cell]>) => {
+    for (const [i, j, c] of updates) {
+      if (i === j) diag[i] = c;
+      else if (isExactZero(c)) {
+        rows[i].delete(j);
+        rows[j].delete(i);
+      } else {
+        const e = rows[i].get(j);
+        if (e) {
+          e.m = c.m;
+          e.l = c.l;
+          e.r = c.r;
+        } else {
+          rows[i].set(j, c);
+          rows[j].set(i, c);
+        }
+      }
+    }
+  };
+  /** Neighbours with new values may be tried again. */
+  const retry = (list: Iterable<number>) => {
+    for (const i of list) {
+      if (!eligible[i]) {
+        eligible[i] = 1;
+        eligibleCount++;
+      }
+      queue.push(i);
+    }
+  };
+
+  /**
+   * The 2×2 block B = [[d_p, a], [a, d_r]] of p and r as a pivot, when its determinant is certainly negative
+   * (inertia (1, 1), whatever the signs of d_p and d_r): the update S_ij −= [u_i v_i] B⁻¹ [u_j v_j]ᵀ
+   * (u = column p, v = column r) in midpoint–radius arithmetic. B⁻¹ = [[d_r, −a], [−a, d_p]] / det. Returns
+   * false (nothing changed) when the determinant is not certified negative or the block is ill-conditioned
+   * (−det below 2^-16·a², or |a| below 2^-16 of the rows' largest entry).
+   */
+  const pairPivot = (p: number, r: number, rowMax: number): boolean => {
+    const a = rows[p].get(r);
+    if (!a || !(Math.abs(a.m) >= SMALL_PIVOT * rowMax)) return false;
+    const det = cellAdd(cellMul(diag[p], diag[r]), cellMul(a, a), -1);
+    if (!(det.m < 0) || !(-det.m > det.r) || !(-det.m >= SMALL_PIVOT * a.m * a.m)) return false;
+    const inv = cellInverse(det);
+    if (!inv) return false;
+    const others = new Set<number>();
+    for (const i of rows[p].keys()) if (i !== r) others.add(i);
+    for (const i of rows[r].keys()) if (i !== p) others.add(i);
+    const list = [...others];
+    tick(2 + (list.length * (list.length + 1)) / 2);
+    // w_i = B⁻¹ [u_i v_i]ᵀ: the lift is x_p = −Σ w_i1 x_i, x_r = −Σ w_i2 x_i.
+    const u = list.map((i) => rows[p].get(i) ?? ZERO_CELL),
+      v = list.map((i) => rows[r].get(i) ?? ZERO_CELL);
+    const w1 = list.map((_, k) => cellMul(inv, cellAdd(cellMul(diag[r], u[k]), cellMul(a, v[k]), -1)));
+    const w2 = list.map((_, k) => cellMul(inv, cellAdd(cellMul(diag[p], v[k]), cellMul(a, u[k]), -1)));
+    const updates: Array<[number, number, Cell]> = [];
+    for (let x = 0; x < list.length; x++)
+      for (let y = x; y < list.length; y++) {
+        const t = cellAdd(cellMul(u[x], w1[y]), cellMul(v[x], w2[y]));
+        if (isExactZero(t)) continue;
+        const i = list[x],
+          j = list[y];
+        const c = cellAdd((i === j ? diag[i] : rows[i].get(j)) ?? ZERO_CELL, t, -1);
+        if (!(Math.abs(c.m) <= MAX_ENTRY) || !(c.r <= MAX_ENTRY)) return false; // overflow or NaN: nothing written yet
+        updates.push([i, j, c]);
+      }
+    if (keepL) lcols.push({ piv: p, partner: r, col: list.map((i, k) => [i, w1[k].m, w2[k].m]) });
+    remove(p);
+    remove(r);
+    positive++;
+    negative++;
+    steps.push([p, r]);
+    signs.push("±");
+    store(updates);
+    retry(list);
+    return true;
+  };
+
+  const isVertex = (x: unknown): x is number => typeof x === "number" && Number.isInteger(x) && x >= 0 && x < n && alive[x] === 1;
   while (replay ? remaining > 0 : eligibleCount > 0) {
     let piv: number;
     if (replay) {
       if (steps.length === replay.length) return frontDegree === undefined ? {} : front();
       const st = replay[steps.length];
-      // Pairs (2x2 pivots) and anything malformed are the exact engine's business (and its messages).
-      if (typeof st !== "number" || !Number.isInteger(st) || st < 0 || st >= n || !alive[st]) return {};
+      // Anything malformed is the exact engine's business (and its messages); so is a pair not certified here.
+      if (Array.isArray(st) && st.length === 2 && isVertex(st[0]) && isVertex(st[1]) && st[0] !== st[1]) {
+        if (pairPivot(st[0], st[1], 0)) continue;
+        return {};
+      }
+      if (!isVertex(st)) return {};
       piv = st;
     } else {
       piv = queue.peek();
       if (frontDegree !== undefined && rows[piv].size >= frontDegree && remaining > 1) return front();
     }
     const d = diag[piv];
+    if (isExactZero(d) && rows[piv].size === 0) {
+      // An exact zero with an exact zero row (b = 0 on what is left of a bipartite graph): a zero eigenvalue.
+      remove(piv);
+      zero++;
+      steps.push(piv);
+      signs.push("0");
+      continue;
+    }
     const absD = Math.abs(d.m);
     const low = (absD - Math.abs(d.l) - d.r) * (1 - 4 * U); // rounded down: a lower bound of |d|
     let rowMax = 0;
@@ -226,6 +404,10 @@ export function certifiedRun(
     if (!(absD > d.r) || !(absD >= MIN_PIVOT) || !(low > 0) || (absD < SMALL_PIVOT * rowMax && eligibleCount > 1)) {
       // The interval holds 0 (or NaN), or underflow looms: not usable now. A replayed order must use it.
       if (replay) return {};
+      // A 2×2 pivot with a neighbour whose block has a certainly negative determinant: the largest entry first
+      // (it bounds the growth of the update, as in Bunch–Kaufman pivoting), then the fewest neighbours.
+      const partners = [...rows[piv]].sort(([x, cx], [y, cy]) => Math.abs(cy.m) - Math.abs(cx.m) || rows[x].size - rows[y].size || x - y).map(([x]) => x);
+      if (partners.some((r) => pairPivot(piv, r, rowMax))) continue;
       eligible[piv] = 0;
       eligibleCount--;
       continue;
@@ -257,44 +439,17 @@ export function certifiedRun(
       }
     }
     if (keepL) lcols.push({ piv, col: nb.map(([i, c]) => [i, c.m / d.m]) });
-    for (const u of rows[piv].keys()) rows[u].delete(piv);
-    rows[piv].clear();
-    alive[piv] = 0;
-    if (eligible[piv]) eligibleCount--;
-    eligible[piv] = 0;
-    remaining--;
+    remove(piv);
     if (d.m > 0) positive++;
     else negative++;
     steps.push(piv);
     signs.push(d.m > 0 ? "+" : "-");
-    for (const [i, j, c] of updates) {
-      if (i === j) diag[i] = c;
-      else if (c.m === 0 && c.l === 0 && c.r === 0) {
-        rows[i].delete(j);
-        rows[j].delete(i);
-      } else {
-        const e = rows[i].get(j);
-        if (e) {
-          e.m = c.m;
-          e.l = c.l;
-          e.r = c.r;
-        } else {
-          rows[i].set(j, c);
-          rows[j].set(i, c);
-        }
-      }
-    }
+    store(updates);
     // A neighbour set aside has a new value: it may be tried again.
-    for (const [i] of nb) {
-      if (!eligible[i]) {
-        eligible[i] = 1;
-        eligibleCount++;
-      }
-      queue.push(i);
-    }
+    retry(nb.map(([i]) => i));
   }
   if (remaining > 0) return front(); // only vertices set aside are left
-  return { result: { positive, negative, zero: 0, steps, signs: signs.join("") } };
+  return { result: { positive, negative, zero, steps, signs: signs.join("") } };
 }
 
 /**
@@ -328,9 +483,14 @@ function diagonalCells(base: DiagonalBase, word: boolean): ((loop: number) => Ce
       };
     }
     const byQ = quotientByDouble(b.den);
+    // A power-of-two denominator and a numerator below 2^53: b − loop is a double exactly (radius 0), so that
+    // b = 0 keeps the exact zeros of a bipartite pattern exact.
+    const exact = b.den <= 1n << 1000n && (b.den & (b.den - 1n)) === 0n;
     // b − loop = (p − q·loop)/q as a double: error ≤ 2^-48|m| + 2^-50 (quotientByDouble).
     return (loop) => {
-      const m = byQ(b.num - b.den * BigInt(loop));
+      const num = b.num - b.den * BigInt(loop);
+      if (exact && num < 1n << 53n && -num < 1n << 53n) return { m: Number(num) / Number(b.den), l: 0, r: 0 };
+      const m = byQ(num);
       return { m, l: 0, r: 2 ** -48 * Math.abs(m) + 2 ** -50 };
     };
   }
@@ -360,12 +520,7 @@ function diagonalCells(base: DiagonalBase, word: boolean): ((loop: number) => Ce
  * first), every lifted entry is rounded to a small rational, the vector is scaled to integers and
  * (p − q·loop_v)·x_v − q·Σ_u w_uv·x_u = 0 is checked at every vertex in BigInt.
  */
-function liftedKernel(
-  g: Graph,
-  b: Rational,
-  list: readonly number[],
-  lcols: ReadonlyArray<{ piv: number; col: ReadonlyArray<[number, number]> }>,
-): KernelCheck {
+function liftedKernel(g: Graph, b: Rational, list: readonly number[], lcols: readonly LColumn[]): KernelCheck {
   return (y, tick) => {
     const n = g.n;
     const x = new Float64Array(n);
@@ -378,11 +533,22 @@ function liftedKernel(
     }
     let work = 0;
     for (let k = lcols.length - 1; k >= 0; k--) {
-      const { piv, col } = lcols[k];
-      let s = 0;
-      for (const [i, l] of col) s += l * x[i];
-      x[piv] = -s;
-      work += col.length;
+      const L = lcols[k];
+      if ("partner" in L) {
+        let s1 = 0,
+          s2 = 0;
+        for (const [i, l1, l2] of L.col) {
+          s1 += l1 * x[i];
+          s2 += l2 * x[i];
+        }
+        x[L.piv] = -s1;
+        x[L.partner] = -s2;
+      } else {
+        let s = 0;
+        for (const [i, l] of L.col) s += l * x[i];
+        x[L.piv] = -s;
+      }
+      work += L.col.length;
     }
     tick(work + n);
     const xi = roundedIntegerVector(x, (v) => (onFront[v] ? x[v] : undefined));

@@ -83,8 +83,8 @@ describe("pivots within their error of 0 are set aside, zeros proven by exact ke
         const want = fromSpectrum(spectrum, b);
         expect(exact(g, rat(b)), `C_${n} at ${b}`).toEqual(want);
         const r = intervalSparseInertia(g, rat(b), undefined, () => {});
-        // At b = 0 every pivot of the bipartite cycle starts at 0: set aside, they need a 2×2 pivot (below).
-        if (b !== 0) expect(r && counts(r), `C_${n} at ${b}`).toEqual(want);
+        // At b = 0 every pivot of the bipartite cycle is 0: 2×2 pivots on edges (block-pivots.test.ts).
+        expect(r && counts(r), `C_${n} at ${b}`).toEqual(want);
         expect(counts(full(g, rat(b))), `C_${n} at ${b}`).toEqual(want);
       }
     }
@@ -109,7 +109,7 @@ describe("pivots within their error of 0 are set aside, zeros proven by exact ke
     for (const b of [3, 1, 0, -1, -3, 2]) {
       const want = exact(mk, rat(b));
       const r = intervalSparseInertia(mk, rat(b), undefined, () => {});
-      if (b !== 0) expect(r && counts(r), `Möbius–Kantor at ${b}`).toEqual(want);
+      expect(r && counts(r), `Möbius–Kantor at ${b}`).toEqual(want);
       expect(counts(full(mk, rat(b))), `Möbius–Kantor at ${b}`).toEqual(want);
     }
     expect(exact(mk, rat(3))).toEqual([15, 0, 1]);

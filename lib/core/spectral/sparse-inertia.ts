@@ -268,8 +268,10 @@ export function sparseInertia(
         if (!Number.isInteger(x) || x < 0 || x >= n || !alive[x]) throw new ReplayError(`step ${steps.length + 1}: vertex ${x} is not a remaining vertex`);
       piv = a;
       partner = c;
-    } else if (hint && steps.length < hint.steps.length) piv = hint.steps[steps.length];
-    else piv = popMin();
+    } else if (hint && steps.length < hint.steps.length) {
+      const st = hint.steps[steps.length];
+      [piv, partner] = typeof st === "number" ? [st, -1] : st;
+    } else piv = popMin();
     const Dt = D[t];
     const nPP = cur(diag[piv]);
     const nb: Array<[number, bigint]> = [];
@@ -289,7 +291,7 @@ export function sparseInertia(
       if (stop === "nonPositive") return result(false, { witness: lift(new Map([[piv, rat(1)]])), witnessValue: ZERO, stoppedAt: piv });
       continue;
     }
-    if (nPP === 0n) {
+    if (nPP === 0n || partner >= 0) {
       if (replay && partner < 0) throw new ReplayError(`step ${steps.length + 1}: the pivot at vertex ${piv} is zero but its row is not`);
       let r = partner;
       if (r < 0) {
@@ -302,7 +304,11 @@ export function sparseInertia(
       }
       const nPR = cur(rows[piv].get(r));
       if (nPR === 0n) throw new ReplayError(`step ${steps.length + 1}: vertices ${piv} and ${r} do not form an invertible 2x2 pivot`);
-      if (stop !== "none") {
+      // Any 2x2 block with a negative determinant has inertia (1, 1); a zero diagonal entry with a non-zero
+      // off-diagonal one is the case the elimination meets by itself, the float run (interval-elimination.ts) the other.
+      if (nPP * cur(diag[r]) - nPR * nPR >= 0n)
+        throw new ReplayError(`step ${steps.length + 1}: the 2x2 block of vertices ${piv} and ${r} does not have a negative determinant`);
+      if (stop !== "none" && nPP === 0n) {
         // Indefinite: y = t e_piv + e_r has y^T S y = S_rr + 2 t S_pr = -1 for t = -(N_rr + D)/(2 N_pr)
         // (S of the scaled matrix qbI - qA, so -1/q for bI - A).
         const nRR = cur(diag[r]);
@@ -312,7 +318,7 @@ export function sparseInertia(
         ]);
         return result(false, { witness: lift(y), witnessValue: rat(-1n, q), stoppedAt: piv });
       }
-      eliminatePair(piv, r, nPR, Dt);
+      eliminatePair(piv, r, nPP, nPR, Dt);
       positive++;
       negative++;
       steps.push([piv, r]);
@@ -320,7 +326,6 @@ export function sparseInertia(
       done += 2;
       continue;
     }
-    if (partner >= 0) throw new ReplayError(`step ${steps.length + 1}: a 2x2 pivot at vertex ${piv} whose diagonal entry is not zero`);
     const s = (nPP > 0n ? 1 : -1) * (Dt > 0n ? 1 : -1);
     if (s > 0) positive++;
     else negative++;
@@ -349,8 +354,13 @@ export function sparseInertia(
   }
   return result(true);
 
-  function eliminatePair(pv: number, r: number, nPR: bigint, Dt: bigint): void {
+  /**
+   * The 2x2 pivot on {pv, r} (block [[N_pp, N_pr], [N_pr, N_rr]] with determinant δ < 0): by Sylvester's identity
+   * the new bordered minors are (δ·N_ij − [N_ip N_ir] adj [N_jp N_jr]ᵀ) / D_t² and the new block minor is δ / D_t.
+   */
+  function eliminatePair(pv: number, r: number, nPP: bigint, nPR: bigint, Dt: bigint): void {
     const nRR = cur(diag[r]);
+    const delta = nPP * nRR - nPR * nPR;
     const others = new Map<number, [bigint, bigint]>(); // i -> [N_ip, N_ir]
     for (const [i, e] of rows[pv]) if (i !== r) others.set(i, [cur(e), 0n]);
     for (const [i, e] of rows[r]) if (i !== pv) others.set(i, [others.get(i)?.[0] ?? 0n, cur(e)]);
@@ -363,12 +373,12 @@ export function sparseInertia(
       for (let c = a; c < list.length; c++) {
         const [j, [jP, jR]] = list[c];
         const nIJ = i === j ? cur(diag[i]) : cur(rows[i].get(j));
-        updates.push([i, j, (nPR * (iP * jR + iR * jP) - nPR * nPR * nIJ - nRR * iP * jP) / D2]);
+        updates.push([i, j, (delta * nIJ - nRR * iP * jP + nPR * (iP * jR + iR * jP) - nPP * iR * jR) / D2]);
       }
     }
     removeVertex(pv);
     removeVertex(r);
-    D.push(-(nPR * nPR) / Dt);
+    D.push(delta / Dt);
     t++;
     for (const [i, j, val] of updates) setEntry(i, j, val);
     for (const [i] of list) push(i);
