@@ -83,7 +83,7 @@ describe("a batch claim in the bundle", () => {
     expect(batchLine(seal(counted)).text).toMatch(/the recorded counts \(3 verified/);
   });
 
-  it("names an unsealed change as changed, and the checker command exits 1 on a tampered bundle, 0 on the honest one", () => {
+  it("names an unsealed change as changed, and the checker command exits 1 on a tampered bundle, 0 on the honest one", async () => {
     const honest = seal(allHold);
     const changed = clone(honest) as unknown as { items: Array<{ data: BatchItemData }> };
     (changed.items[0].data.results[0] as { verdict: string }).verdict = "refuted";
@@ -93,8 +93,8 @@ describe("a batch claim in the bundle", () => {
     writeFileSync(join(dir, "honest.json"), JSON.stringify(honest));
     writeFileSync(join(dir, "tampered.json"), JSON.stringify(changed));
     const out: string[] = [];
-    expect(main([join(dir, "honest.json")], (l) => out.push(l))).toBe(0);
-    expect(main([join(dir, "tampered.json")], (l) => out.push(l))).toBe(1);
+    expect(await main([join(dir, "honest.json")], (l) => out.push(l))).toBe(0);
+    expect(await main([join(dir, "tampered.json")], (l) => out.push(l))).toBe(1);
     expect(out.join("\n")).toMatch(/batch 1\(a\)#1/);
   });
 });

@@ -73,9 +73,9 @@ function validate(value: unknown, schema: Schema, root: Schema, path = "$"): str
   return errors;
 }
 
-function runJson(args: string[]): unknown {
+async function runJson(args: string[]): Promise<unknown> {
   let out = "";
-  main(["--json", ...args], (s) => {
+  await main(["--json", ...args], (s) => {
     out += s;
   });
   return JSON.parse(out);
@@ -92,11 +92,11 @@ describe("the checker's --json report follows lib/core/certificates/report.schem
     expect(validate({ ...ok, extra: 1 }, SCHEMA, SCHEMA)).toEqual(["$: unexpected property extra"]);
   });
 
-  it("on every claims fixture (verified, refuted, malformed, carried certificates), with separate fields for each checked claim", () => {
+  it("on every claims fixture (verified, refuted, malformed, carried certificates), with separate fields for each checked claim", async () => {
     const files = readdirSync(FIXTURES)
       .filter((f) => f.endsWith(".json"))
       .map((f) => join(FIXTURES, f));
-    const report = runJson(files) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
+    const report = (await runJson(files)) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
     expect(validate(report, SCHEMA, SCHEMA)).toEqual([]);
     const lines = report.reports.flatMap((r) => r.lines);
     const checked = lines.filter((l) => l.status !== "malformed");
@@ -111,9 +111,9 @@ describe("the checker's --json report follows lib/core/certificates/report.schem
     expect(lines.some((l) => l.status === "malformed")).toBe(true);
   });
 
-  it("undecided verdicts under a tiny budget: the reason says 'budget exceeded' once", () => {
+  it("undecided verdicts under a tiny budget: the reason says 'budget exceeded' once", async () => {
     const files = ["spectral-radius-bound.json", "vector-certificate.json", "with-certificates.json", "subgraph.json"].map((f) => join(FIXTURES, f));
-    const report = runJson(["--steps", "3", ...files]) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
+    const report = (await runJson(["--steps", "3", ...files])) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
     expect(validate(report, SCHEMA, SCHEMA)).toEqual([]);
     const lines = report.reports.flatMap((r) => r.lines);
     const undecided = lines.filter((l) => l.status === "undecided");
@@ -129,7 +129,7 @@ describe("the checker's --json report follows lib/core/certificates/report.schem
     }
   });
 
-  it("a bound is reported in normal form", () => {
+  it("a bound is reported in normal form", async () => {
     const dir = mkdtempSync(join(tmpdir(), "cairn-report-"));
     const path = join(dir, "phi.json");
     writeFileSync(
@@ -143,7 +143,7 @@ describe("the checker's --json report follows lib/core/certificates/report.schem
         bound: "(1+sqrt(5))/2",
       }),
     );
-    const report = runJson([path]) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
+    const report = (await runJson([path])) as { reports: Array<{ lines: Array<Record<string, unknown>> }> };
     expect(validate(report, SCHEMA, SCHEMA)).toEqual([]);
     // ρ(P4) = 2cos(π/5) = φ (Brouwer & Haemers §1.4.4).
     expect(report.reports[0].lines[0]).toMatchObject({

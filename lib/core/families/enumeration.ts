@@ -208,7 +208,11 @@ function enumerationVerdict(
     certificate,
   });
   const matched = new Array<number>(found.length).fill(-1);
-  const index = new Map(found.map((f, j) => [canonicalKeyOf(f, budget), j]));
+  // Only graphs of an order and size some listed graph has can match one (isomorphic graphs share both), so only
+  // those are labelled canonically: with few or no graphs listed, most of the enumeration needs no second labelling.
+  const shapes = new Set(listed.map((g) => `${g.n} ${g.edges.length}`));
+  const index = new Map<string, number>();
+  found.forEach((f, j) => shapes.has(`${f.n} ${f.edges.length}`) && index.set(canonicalKeyOf(f, budget), j));
   for (const [i, g] of listed.entries()) {
     if (g.n > maxVertices) return refuted(`listed graph ${i + 1} has ${g.n} vertices, more than ${maxVertices}`);
     const outside = outsideSetting(g, settingOf(setting));

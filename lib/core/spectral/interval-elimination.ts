@@ -40,7 +40,8 @@
  * With k such vectors (independent: an identity block on the front) nullity(bI − A) ≥ k; the discs away
  * from 0 hold the other eigenvalues of the front, none 0, so the k eigenvalues in the component through 0
  * are all 0 (Gershgorin, Horn & Johnson Thm 6.1.1; the nullity of bI − A is that of the front, a Schur
- * complement after non-zero pivots). Otherwise the caller (sparse-inertia.ts) goes on exactly, with the
+ * complement after non-zero pivots). Otherwise the touching rows are recomputed in double-word arithmetic
+ * (front-refine.ts; in both runs below), and if that fails too the caller (sparse-inertia.ts) goes on exactly, with the
  * order found here and the front's factorisation (`hint`): it repeats the same steps in exact arithmetic and
  * settles the same discs with the front's exact rows, without factorising again; only if that fails too does
  * it eliminate the front exactly. Only a proof is returned, never a guess.

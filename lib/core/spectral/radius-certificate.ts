@@ -109,7 +109,7 @@ export function explain(cert: SpectralRadiusCertificate, n: number): string {
   switch (cert.kind) {
     case "inertia": {
       const front = cert.front
-        ? ` The last ${cert.front} vertices of the elimination form a dense block whose signs were certified in floating point with a rigorous rounding bound (Gershgorin discs clear of 0; each zero eigenvalue shown by an exact integer kernel vector).`
+        ? ` The last ${cert.front} vertices of the elimination form a dense block whose signs were certified in floating point with a rigorous rounding bound (Gershgorin discs clear of 0, rows near 0 recomputed in double-word arithmetic; each zero eigenvalue shown by an exact integer kernel vector).`
         : "";
       if (cert.negative > 0)
         return `A matrix congruent to ${cert.at}I − A has ${cert.negative} negative diagonal value(s), so ${cert.at}I − A has a negative eigenvalue (Sylvester's law of inertia) and λ_max(A) = ρ > ${cert.at} (Perron–Frobenius).${front}`;

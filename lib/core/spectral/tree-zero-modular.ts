@@ -40,9 +40,14 @@ import type { Budget } from "../verdict";
  *   the same with 200,001 vertices, 3,212 primes: exact 170 ms, modular 5.4–6.8 s;
  *   mirrored path, 200,001 vertices, 1 prime (bounded determinants): exact 85–100 ms, modular 95–140 ms
  *   (here the per-vertex layout and bound cost about as much as the exact values in doubles);
- *   the 10^6-vertex random tree at b = 0, 1, 2: no interval straddles 0 above more than 200 vertices.
+ *   the 10^6-vertex random tree at b = 0, 1, 2: no interval straddles 0 above more than 200 vertices (whole
+ *   elimination, CPU: b = 0 exact 3.6 s, modular 5.8 s with no attempt made (noise, or the memo of n entries);
+ *   b = 2 exact 2.2 s, modular 1.9 s with 8,463 one-prime proofs on small subtrees, within the noise).
+ * `npm run bench -- --only mirrored` (whole elimination, median CPU of 3 runs, load 8.5): mirrored caterpillar
+ * exact 229 ms, modular 390 ms; mirrored random tree (m = 30,000) exact 140 ms, modular 959 ms.
  * The bench pair "zero at the top of a large subtree: exact vs modular" (tests/bench/core-tasks.ts) keeps
- * the figures side by side.
+ * the figures side by side; `npm run bench -- --only tree-1000000-inertia` showed no slowdown from the option
+ * (CPU, two alternating runs each, b = 2 / 0 / 1: before 2.1–2.4 / 3.2–3.3 / 2.3–2.8 s, after 1.4–1.8 / 2.7–3.6 / 2.6–3.0 s).
  */
 export type ZeroProof = "exact" | "modular" | "auto";
 
