@@ -5,6 +5,10 @@ import { describe, expect, it } from "vitest";
 import { checkFile, EXIT_MALFORMED, EXIT_NOT_VERIFIED, EXIT_OK, formatReport, main } from "./cli";
 import { validateClaim } from "./claims/claim-schema";
 import { verifyClaim } from "./claims/claims";
+import { intervalSparseInertia } from "./spectral/interval-elimination";
+import { FLOAT_FRONT_DEGREE } from "./spectral/sparse-inertia";
+import { rat } from "./arithmetic/rational";
+import { prismWorkload, workloadGraph } from "../../tests/bench/workloads";
 
 const FIXTURES = join(import.meta.dirname, "../../tests/fixtures/claims");
 const scratch = mkdtempSync(join(tmpdir(), "cairn-cli-"));
@@ -97,6 +101,40 @@ describe("offline checker", () => {
     const parsed = JSON.parse(out.join("\n"));
     expect(parsed.reports[0].lines).toHaveLength(5);
     expect(parsed.reports[0].exitCode).toBe(EXIT_NOT_VERIFIED);
+  });
+
+  it("re-checks an inertia certificate whose steps are 2×2 pivots (b = 0 on a bipartite prism) and rejects one with a pair's sign changed", () => {
+    // The prism C_12 □ K_2 at b = 0: every pivot of −A is 0, the float run pivots on edges (interval-elimination.ts).
+    const g = workloadGraph(prismWorkload(12));
+    const run = intervalSparseInertia(g, rat(0), FLOAT_FRONT_DEGREE, () => {})!;
+    const evidence = {
+      kind: "inertia",
+      at: "0",
+      engine: "sparse",
+      steps: run.steps,
+      signs: run.signs,
+      positive: run.positive,
+      negative: run.negative,
+      zero: run.zero,
+    };
+    // ρ(G) ≤ 0 is false: the certificate shows a negative value of 0·I − A.
+    const claim = {
+      format: "cairn-claim/1",
+      kind: "spectral-radius-bound",
+      graph: { format: "edges", text: g.edges.map((e) => `${e.u} ${e.v}`).join("\n") },
+      op: "<=",
+      bound: "0",
+    };
+    const ok = checkFile(writeJson("pairs-ok.json", { ...claim, certificate: { kind: "spectral-radius-bound", outcome: "refuted", evidence } }));
+    expect(ok.lines[0].status).toBe("refuted");
+    expect(ok.lines[0].certificate?.matches, ok.lines[0].certificate?.text).toBe(true);
+    const i = run.signs.indexOf("±");
+    const signs = `${run.signs.slice(0, i)}+${run.signs.slice(i + 1)}`;
+    const bad = checkFile(
+      writeJson("pairs-bad.json", { ...claim, certificate: { kind: "spectral-radius-bound", outcome: "refuted", evidence: { ...evidence, signs } } }),
+    );
+    expect(bad.lines[0].certificate?.matches).toBe(false);
+    expect(formatReport(bad)).toContain("certificate does NOT match");
   });
 
   it("stored certificates keep re-checking (a change of certificate format must not orphan old claims)", () => {
