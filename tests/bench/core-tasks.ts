@@ -5,7 +5,7 @@
 import type { BenchSection, BenchTask } from "./run";
 import { cubicWorkload, extendedDWorkload, extendedE8Workload, gluedWorkload, halfDenseGraphWorkload, pathWorkload } from "./workloads";
 import { randomTreeWorkload, sparseGraphWorkload, star4Workload, t12kWorkload, workloadGraph, type Workload } from "./workloads";
-import { bipartiteWorkload, hexagonalWorkload, prismWorkload } from "./workloads";
+import { bipartiteWorkload, hexagonalWorkload, mirroredTree, prismWorkload } from "./workloads";
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -58,22 +58,6 @@ const inertiaAt = (b: number, zeroProof?: ZeroProof) => (g: Graph) => {
 };
 const inertiaAt2 = inertiaAt(2);
 
-/**
- * A zero pivot at the top of a huge subtree: vertex 0 (loop of weight 2) joined to the root of tree-m and
- * to the root of a copy with a loop of weight 4 at every vertex, whose elimination values at b = 2 are the
- * negatives of the tree's; they cancel at vertex 0 exactly (tree-inertia-zeros.test.ts).
- */
-function mirroredTree(m: number, tree: ReadonlyArray<readonly [number, number]> = randomTreeWorkload(m).edges): Graph {
-  const edges: Array<{ u: number; v: number; m?: number }> = [
-    { u: 0, v: 0, m: 2 },
-    { u: 0, v: 1 },
-    { u: 0, v: m + 1 },
-  ];
-  for (const [a, b] of tree) edges.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
-  for (let i = 0; i < m; i++) edges.push({ u: m + 1 + i, v: m + 1 + i, m: 4 });
-  return makeGraph(2 * m + 1, edges);
-}
-
 function spectralRadiusTasks(): BenchTask[] {
   const out: BenchTask[] = [];
   for (const n of [1_000, 100_000, 1_000_000]) {
@@ -100,7 +84,7 @@ function spectralRadiusTasks(): BenchTask[] {
     workload: "tree-100000 and its negated copy (200,001 vertices)",
     task: "full inertia of 2I − A, a zero pivot at the top",
     quick: false,
-    prepare: () => mirroredTree(100_000),
+    prepare: () => mirroredTree(100_000, randomTreeWorkload(100_000).edges),
     run: (g) => inertiaAt2(g as Graph),
   });
   // Zero at the top of a large subtree: exact vs modular (tree-zero-modular.ts), side by side on a mirrored

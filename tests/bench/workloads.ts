@@ -221,3 +221,21 @@ export function workloadGraph(w: Workload): Graph {
     w.edges.map(([u, v]) => ({ u, v })),
   );
 }
+
+/**
+ * A zero pivot at the top of a huge subtree (tree elimination at b = 2): vertex 0 with a loop of weight 2,
+ * joined to the root of a tree R on m vertices (edges on 0..m−1) and to the root of a copy R' with a loop of
+ * weight 4 at every vertex. At b = 2 the elimination values on R' are the negatives of those on R (diagonal
+ * 2 − 4 = −2: a'(u) = −2 − Σ 1/a'(c) = −a(u)), so a(0) = (2 − 2) − 1/a(root) + 1/a(root) = 0: a zero above
+ * every exact rational of R and R'. Shared by the bench and tree-inertia-zeros.test.ts.
+ */
+export function mirroredTree(m: number, tree: ReadonlyArray<readonly [number, number]>): Graph {
+  const edges: Array<{ u: number; v: number; m?: number }> = [
+    { u: 0, v: 0, m: 2 },
+    { u: 0, v: 1 },
+    { u: 0, v: m + 1 },
+  ];
+  for (const [a, b] of tree) edges.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
+  for (let i = 0; i < m; i++) edges.push({ u: m + 1 + i, v: m + 1 + i, m: 4 });
+  return makeGraph(2 * m + 1, edges);
+}

@@ -70,13 +70,18 @@ export function dwAdd(xh: number, xl: number, yh: number, yl: number): DW {
 /** 2Prod by Dekker's splitting: [p, e] with p + e = a·b exactly. */
 function twoProd(a: number, b: number): [number, number] {
   const p = a * b;
+  return [p, productErrorTerm(a, b, p)];
+}
+
+/** e = a·b − p exactly, for p = fl(a·b) (Dekker's splitting; no underflow, |a|, |b| < 2^996). */
+export function productErrorTerm(a: number, b: number, p: number): number {
   let g = SPLIT * a;
   const ah = g - (g - a),
     al = a - ah;
   g = SPLIT * b;
   const bh = g - (g - b),
     bl = b - bh;
-  return [p, ah * bh - p + ah * bl + al * bh + al * bl];
+  return ah * bh - p + ah * bl + al * bh + al * bl;
 }
 
 /** x·y for a double-word x and a double y (DWTimesFP1). */

@@ -65,7 +65,7 @@ import { adjacency, Graph } from "../graph";
 import { Rational } from "../arithmetic/rational";
 import { deflate, deflateWith, discsOnly, frontDiscs, roundedIntegerVector, quotientByDouble, type FrontFactor, type KernelCheck } from "./float-front";
 import { refineFront } from "./front-refine";
-import { DW_EPS, QUOTIENT_ABS, QUOTIENT_REL, dwAdd, dwMul, dwRecip, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
+import { DW_EPS, QUOTIENT_ABS, QUOTIENT_REL, dwAdd, dwMul, dwRecip, productErrorTerm, quotientByDoubleWord, type DW } from "../arithmetic/double-word";
 import { DegreeQueue } from "./degree-queue";
 import type { PivotStep } from "./sparse-inertia";
 
@@ -143,16 +143,10 @@ function sumError(a: number, b: number, s: number): number {
   return Math.abs(a - (s - bb) + (b - bb));
 }
 
-const SPLIT = 134217729; // 2^27 + 1
+/** |a·b − fl(a·b)|, exact (Dekker), or TINY below the range where the splitting is exact. */
 function productError(a: number, b: number, p: number): number {
   if (Math.abs(p) < 2 ** -900) return p === 0 && (a === 0 || b === 0) ? 0 : TINY;
-  let c = SPLIT * a;
-  const ah = c - (c - a),
-    al = a - ah;
-  c = SPLIT * b;
-  const bh = c - (c - b),
-    bl = b - bh;
-  return Math.abs(ah * bh - p + ah * bl + al * bh + al * bl);
+  return Math.abs(productErrorTerm(a, b, p));
 }
 
 /** Midpoint–radius product: |xy − x̃ỹ| ≤ |x̃|r_y + r_x|ỹ| + r_x r_y, plus the rounding of x̃ỹ (its exact error). */

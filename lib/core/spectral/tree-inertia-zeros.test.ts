@@ -12,6 +12,7 @@ import { path } from "../input/constructors";
 import { treeInertia } from "./tree-inertia";
 import { sparseInertia } from "./sparse-inertia";
 import { modularZeroProver } from "./tree-zero-modular";
+import { mirroredTree } from "../../../tests/bench/workloads";
 
 /** Random recursive tree as in the benchmark workloads (BENCH-WORKLOADS.md): edge (randint(i), i), LCG seeded with `seed`. */
 function recursiveTreeEdges(n: number, seed: number): Array<[number, number]> {
@@ -41,22 +42,8 @@ function forestMatching(n: number, edges: Array<[number, number]>): number {
   return size;
 }
 
-/**
- * Vertex 0 with a loop of weight 2, joined to the root of a tree R and to the root of a copy R' that has a
- * loop of weight 4 at every vertex. At b = 2 the elimination values on R' are the negatives of those on R
- * (diagonal 2 − 4 = −2: a'(u) = −2 − Σ 1/a'(c) = −a(u)), so a(0) = (2 − 2) − 1/a(root) + 1/a(root) = 0:
- * a zero pivot at the top of a subtree of 2m + 1 vertices, above every exact rational of R and R'.
- */
-function mirrored(m: number, edges: Array<[number, number]>): Graph {
-  const all: Array<{ u: number; v: number; m?: number }> = [
-    { u: 0, v: 0, m: 2 },
-    { u: 0, v: 1 },
-    { u: 0, v: m + 1 },
-  ];
-  for (const [a, b] of edges) all.push({ u: a + 1, v: b + 1 }, { u: a + m + 1, v: b + m + 1 });
-  for (let i = 0; i < m; i++) all.push({ u: m + 1 + i, v: m + 1 + i, m: 4 });
-  return makeGraph(2 * m + 1, all);
-}
+/** The mirrored tree of the bench workloads (a zero pivot at the top of a subtree of 2m + 1 vertices at b = 2). */
+const mirrored = mirroredTree;
 
 const counts = (r: { positive: number; negative: number; zero: number }) => [r.positive, r.negative, r.zero];
 
